@@ -1,0 +1,34 @@
+import { spawn, type ChildProcess, type SpawnOptions } from "node:child_process";
+
+/** Runs a command to completion with its output passed through; rejects on a non-zero exit. */
+export function runStep(command: string, args: string[], options: SpawnOptions = {}): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(command, args, { stdio: "inherit", ...options });
+    child.once("error", reject);
+    child.once("exit", (code, signal) =>
+      code === 0 ? resolve() : reject(new Error(`${command} ${args.join(" ")} failed (${signal ?? `exit ${code}`})`)),
+    );
+  });
+}
+
+/** Runs a command and resolves with its exit code, whatever it is. */
+export function runForExitCode(command: string, args: string[], options: SpawnOptions = {}): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const child = spawn(command, args, { stdio: "inherit", ...options });
+    child.once("error", reject);
+    child.once("exit", (code, signal) => resolve(code ?? (signal ? 128 : 1)));
+  });
+}
+
+/** Stops a child we started and waits for it to be gone. */
+export function stopChild(child: ChildProcess, timeoutMs = 5000): Promise<void> {
+  if (child.exitCode !== null || child.signalCode !== null) return Promise.resolve();
+  return new Promise((resolve) => {
+    const timer = setTimeout(() => child.kill("SIGKILL"), timeoutMs);
+    child.once("exit", () => {
+      clearTimeout(timer);
+      resolve();
+    });
+    child.kill("SIGTERM");
+  });
+}

@@ -1,0 +1,34 @@
+import { execFile } from "node:child_process";
+import { promisify } from "node:util";
+
+const run = promisify(execFile);
+
+export interface SystemNeed {
+  /** A command on PATH that shows the need is met. */
+  command: string;
+  /** Debian packages that provide it. */
+  packages: string[];
+}
+
+export const MARIADB: SystemNeed = { command: "mariadbd", packages: ["mariadb-server", "mariadb-client"] };
+export const CHROMIUM: SystemNeed = { command: "chromium", packages: ["chromium", "fonts-dejavu-core"] };
+
+async function onPath(command: string): Promise<boolean> {
+  try {
+    await run("sh", ["-c", `command -v ${command}`]);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** Installs, with apt-get, the Debian packages of every need whose command is missing. */
+export async function ensureSystemPackages(needs: SystemNeed[], log: (line: string) => void = console.log): Promise<void> {
+  const missing: string[] = [];
+  for (const need of needs) if (!(await onPath(need.command))) missing.push(...need.packages);
+  if (missing.length === 0) return;
+  log(`Installing Debian packages: ${missing.join(" ")} (about a minute)…`);
+  const opts = { env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" }, maxBuffer: 256 * 1024 * 1024 };
+  await run("apt-get", ["update", "-qq"], opts);
+  await run("apt-get", ["install", "-y", "-qq", "--no-install-recommends", ...missing], opts);
+}

@@ -1,0 +1,75 @@
+// Everything createApp() needs, built once from the Config. Tests build one against their own MariaDB.
+import session from "express-session";
+import MySQLStoreFactory from "express-mysql-session";
+import type { DataSource } from "typeorm";
+import type { Config } from "./config/env.js";
+import { createDataSource } from "./db/create-data-source.js";
+import { createLogger, type Logger } from "./lib/logger.js";
+import { createMailer, type Mailer } from "./lib/mailer.js";
+import { AuthService } from "./modules/auth/auth.service.js";
+import { MailService } from "./modules/mail/mail.service.js";
+import { PropertyService } from "./modules/properties/property.service.js";
+import { TenancyService } from "./modules/tenancies/tenancy.service.js";
+import { UserService } from "./modules/users/user.service.js";
+
+export interface Services {
+  auth: AuthService;
+  mail: MailService;
+  properties: PropertyService;
+  tenancies: TenancyService;
+  users: UserService;
+}
+
+export interface AppContext {
+  config: Config;
+  logger: Logger;
+  dataSource: DataSource;
+  mailer: Mailer;
+  sessionStore: session.Store;
+  services: Services;
+  close(): Promise<void>;
+}
+
+export function createServices(config: Config, dataSource: DataSource, mailer: Mailer, logger: Logger): Services {
+  const mail = new MailService(dataSource, mailer, logger);
+  const properties = new PropertyService(dataSource);
+  const tenancies = new TenancyService(dataSource);
+  const users = new UserService(dataSource);
+  const auth = new AuthService(dataSource, config, mail, properties, tenancies);
+  return { auth, mail, properties, tenancies, users };
+}
+
+/** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */
+export async function createAppContext(config: Config, options: { migrate?: boolean } = {}): Promise<AppContext> {
+  const logger = createLogger(config.logLevel);
+  const dataSource = createDataSource(config.db);
+  await dataSource.initialize();
+  if (options.migrate) await dataSource.runMigrations({ transaction: "each" });
+  const mailer = createMailer(config);
+  const MySQLStore = MySQLStoreFactory(session);
+  const store = new MySQLStore({
+    host: config.db.host,
+    port: config.db.port,
+    user: config.db.user,
+    password: config.db.password,
+    database: config.db.name,
+    // The table comes from our migrations.
+    createDatabaseTable: false,
+    clearExpired: true,
+    checkExpirationInterval: 15 * 60_000,
+    expiration: 12 * 3_600_000,
+  });
+  return {
+    config,
+    logger,
+    dataSource,
+    mailer,
+    sessionStore: store,
+    services: createServices(config, dataSource, mailer, logger),
+    async close() {
+      mailer.close();
+      await store.close().catch(() => undefined);
+      if (dataSource.isInitialized) await dataSource.destroy();
+    },
+  };
+}

@@ -1,0 +1,80 @@
+import { existsSync } from "node:fs";
+import path from "node:path";
+import express, { type Express } from "express";
+import session from "express-session";
+import helmet from "helmet";
+import { pinoHttp } from "pino-http";
+import { csrfSync } from "csrf-sync";
+import type { AppContext } from "./app-context.js";
+import { apiNotFound, errorHandler } from "./middleware/error-handler.js";
+import { createAuthRouter } from "./modules/auth/auth.routes.js";
+import { createPassport } from "./modules/auth/passport.js";
+import { createHealthRouter } from "./modules/health/health.routes.js";
+import { createPropertiesRouter } from "./modules/properties/properties.routes.js";
+import { createMyHomeRouter } from "./modules/tenancies/tenancies.routes.js";
+import { createUsersRouter } from "./modules/users/users.routes.js";
+
+/** The whole HTTP app, without listening (tests drive it through supertest). */
+export function createApp(ctx: AppContext): Express {
+  const { config, services } = ctx;
+  const app = express();
+  app.disable("x-powered-by");
+  app.set("trust proxy", config.trustProxy);
+  app.set("query parser", "simple");
+
+  app.use(helmet({ crossOriginEmbedderPolicy: false }));
+  app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => req.url === "/api/health" } }));
+
+  const api = express.Router();
+  api.use(express.json({ limit: "2mb" }));
+  // Health first: it must answer even when the session store (MariaDB) does not.
+  api.use("/health", createHealthRouter({ dataSource: ctx.dataSource }));
+
+  api.use(
+    session({
+      name: "dewline.sid",
+      secret: config.sessionSecret,
+      store: ctx.sessionStore,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: "lax",
+        // Secure whenever the request came over HTTPS (behind a proxy, set TRUST_PROXY=true).
+        secure: "auto",
+        maxAge: 12 * 3_600_000,
+      },
+    }),
+  );
+  const passport = createPassport(services.auth);
+  api.use(passport.session());
+
+  const { csrfSynchronisedProtection, generateToken } = csrfSync({
+    getTokenFromRequest: (req) => req.get("x-csrf-token"),
+    errorConfig: { statusCode: 403, code: "csrf_invalid", message: "Invalid or missing CSRF token." },
+  });
+  api.use(csrfSynchronisedProtection);
+
+  api.use("/auth", createAuthRouter({ config, auth: services.auth, passport, csrfToken: generateToken }));
+  api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
+  api.use("/properties", createPropertiesRouter({ properties: services.properties }));
+  api.use("/users", createUsersRouter({ users: services.users }));
+  api.use(apiNotFound);
+
+  app.use("/api", api);
+
+  const indexHtml = path.join(config.clientDistDir, "index.html");
+  if (existsSync(indexHtml)) {
+    app.use(express.static(config.clientDistDir, { index: false, maxAge: "1h" }));
+    // Every other GET is a client route; the client shows its own 404 page for unknown paths.
+    app.get("/{*splat}", (_req, res) => res.sendFile(indexHtml));
+  } else {
+    app.get("/{*splat}", (_req, res) => {
+      res.status(503).type("text").send("The Dewline client has not been built yet: run `npm run build` (npm start does this for you).");
+    });
+  }
+
+  app.use(errorHandler(config.env === "development"));
+  return app;
+}

@@ -1,0 +1,84 @@
+// The only reader of process.env. Everything else imports the checked Config.
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import { z } from "zod";
+
+const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+
+const port = z.coerce.number().int().min(1).max(65535);
+
+const schema = z
+  .object({
+    NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
+    HOST: z.string().default("127.0.0.1"),
+    PORT: port.default(3000),
+    APP_URL: z.url().optional(),
+    DB_HOST: z.string().default("127.0.0.1"),
+    DB_PORT: port.default(13306),
+    DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/).default("dewline"),
+    DB_USER: z.string().regex(/^[A-Za-z0-9_]+$/).default("dewline"),
+    DB_PASSWORD: z.string().min(1).optional(),
+    SESSION_SECRET: z.string().min(32).optional(),
+    SMTP_HOST: z.string().default("127.0.0.1"),
+    SMTP_PORT: port.default(1025),
+    MAIL_FROM: z.string().default("Dewline <no-reply@dewline.example>"),
+    MAIL_WEB_PORT: port.default(1080),
+    DEMO_PASSWORD: z.string().min(8, "DEMO_PASSWORD needs at least 8 characters").default("dewline-demo"),
+    UPLOADS_DIR: z.string().default(path.join(projectRoot, "uploads")),
+    CLIENT_DIST_DIR: z.string().default(path.join(projectRoot, "dist")),
+    LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).optional(),
+    LOGIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
+    LOGIN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+    TRUST_PROXY: z.stringbool().default(false),
+  })
+  .superRefine((env, ctx) => {
+    if (env.NODE_ENV === "production") {
+      for (const key of ["DB_PASSWORD", "SESSION_SECRET", "APP_URL"] as const) {
+        if (!env[key]) ctx.addIssue({ code: "custom", path: [key], message: `${key} must be set in production` });
+      }
+    }
+  });
+
+export interface Config {
+  env: "development" | "test" | "production";
+  host: string;
+  port: number;
+  appUrl: string;
+  db: { host: string; port: number; name: string; user: string; password: string };
+  sessionSecret: string;
+  smtp: { host: string; port: number; from: string; webPort: number };
+  demoPassword: string;
+  uploadsDir: string;
+  clientDistDir: string;
+  logLevel: string;
+  login: { maxFailures: number; windowMs: number };
+  trustProxy: boolean;
+}
+
+// Development-only defaults, so a fresh clone runs without a .env file. Production must set its own.
+const DEV_DB_PASSWORD = "dewline-local-only";
+const DEV_SESSION_SECRET = "dewline-development-session-secret-not-for-production";
+
+export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = schema.safeParse(source);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join(".")}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join("\n")}`);
+  }
+  const e = parsed.data;
+  return {
+    env: e.NODE_ENV,
+    host: e.HOST,
+    port: e.PORT,
+    appUrl: (e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ""),
+    db: { host: e.DB_HOST, port: e.DB_PORT, name: e.DB_NAME, user: e.DB_USER, password: e.DB_PASSWORD ?? DEV_DB_PASSWORD },
+    sessionSecret: e.SESSION_SECRET ?? DEV_SESSION_SECRET,
+    smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, from: e.MAIL_FROM, webPort: e.MAIL_WEB_PORT },
+    demoPassword: e.DEMO_PASSWORD,
+    uploadsDir: e.UPLOADS_DIR,
+    clientDistDir: e.CLIENT_DIST_DIR,
+    logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === "test" ? "silent" : "info"),
+    login: { maxFailures: e.LOGIN_MAX_FAILURES, windowMs: e.LOGIN_WINDOW_MINUTES * 60_000 },
+    trustProxy: e.TRUST_PROXY,
+  };
+}

@@ -1,0 +1,9 @@
+import { UserToken } from "../modules/auth/user-token.entity.js";
+import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
+import { Organisation } from "../modules/organisations/organisation.entity.js";
+import { Property } from "../modules/properties/property.entity.js";
+import { Room } from "../modules/properties/room.entity.js";
+import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
+import { User } from "../modules/users/user.entity.js";
+
+export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail];

@@ -1,0 +1,5 @@
+// Every migration, in order. A newly generated migration is added here by hand (see DEVELOPERS.md),
+// so the app, the CLI and the tests load exactly the same list without file globbing.
+import { Foundation1796180785107 } from "./migrations/1796180785107-Foundation.js";
+
+export const migrations = [Foundation1796180785107];

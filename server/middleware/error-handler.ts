@@ -1,0 +1,53 @@
+import type { ErrorRequestHandler, RequestHandler } from "express";
+import { AppError, NotFoundError } from "../lib/errors.js";
+
+interface HttpLikeError {
+  status?: number;
+  statusCode?: number;
+  type?: string;
+  code?: string;
+  expose?: boolean;
+  message?: string;
+}
+
+/** Errors from libraries (body parser, CSRF, multer) that carry their own HTTP meaning. */
+function fromLibrary(err: HttpLikeError): AppError | null {
+  if (err.code === "EBADCSRFTOKEN" || err.code === "csrf_invalid") {
+    return new AppError(403, "csrf_invalid", "The security token of this request is missing or out of date. Reload the page and try again.");
+  }
+  if (err.type === "entity.parse.failed") return new AppError(400, "invalid_json", "The request body is not valid JSON.");
+  if (err.type === "entity.too.large") return new AppError(413, "payload_too_large", "The request body is too large.");
+  if (err.type === "encoding.unsupported" || err.type === "charset.unsupported") {
+    return new AppError(415, "unsupported_media_type", "The request body's encoding is not supported; send UTF-8 JSON.");
+  }
+  const status = err.status ?? err.statusCode;
+  if (status && status >= 400 && status < 500 && err.expose !== false) {
+    return new AppError(status, err.code ?? "bad_request", err.message ?? "Bad request.");
+  }
+  return null;
+}
+
+export function errorHandler(showInternals: boolean): ErrorRequestHandler {
+  return (err, req, res, _next) => {
+    const known = err instanceof AppError ? err : fromLibrary(err as HttpLikeError);
+    if (!known) {
+      req.log?.error({ err }, "unhandled error");
+      res.status(500).json({
+        error: {
+          code: "internal",
+          message: "Something went wrong on our side. Please try again; if it keeps happening, tell your landlord's support team.",
+          ...(showInternals ? { details: { message: String(err?.message ?? err), stack: err?.stack } } : {}),
+        },
+      });
+      return;
+    }
+    if (known.headers) res.set(known.headers);
+    res.status(known.status).json({
+      error: { code: known.code, message: known.message, ...(known.details !== undefined ? { details: known.details } : {}) },
+    });
+  };
+}
+
+export const apiNotFound: RequestHandler = (req) => {
+  throw new NotFoundError(`There is no API route ${req.method} ${req.originalUrl.split("?")[0]}.`);
+};

@@ -1,0 +1,164 @@
+import { IsNull, MoreThan, type DataSource, type EntityManager } from "typeorm";
+import type { Config } from "../../config/env.js";
+import { ConflictError, ForbiddenError, NotFoundError } from "../../lib/errors.js";
+import type { MailService } from "../mail/mail.service.js";
+import { Organisation } from "../organisations/organisation.entity.js";
+import type { PropertyService } from "../properties/property.service.js";
+import type { TenancyService } from "../tenancies/tenancy.service.js";
+import { User } from "../users/user.entity.js";
+import type { Actor } from "./actor.js";
+import type { InvitationInput } from "./auth.schemas.js";
+import { hashPassword, verifyPassword } from "./passwords.js";
+import { hashToken, newToken } from "./tokens.js";
+import { UserToken, type TokenPurpose } from "./user-token.entity.js";
+
+const INVITATION_HOURS = 72;
+const RESET_MINUTES = 60;
+const INVALID_LINK = "This link is not valid any more: it may have been used already or have expired. Ask for a new one.";
+
+export const toActor = (u: User): Actor => ({ id: u.id, email: u.email, name: u.name, role: u.role, organisationId: u.organisationId });
+
+export class AuthService {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly config: Config,
+    private readonly mail: MailService,
+    private readonly properties: PropertyService,
+    private readonly tenancies: TenancyService,
+  ) {}
+
+  private get users() {
+    return this.dataSource.getRepository(User);
+  }
+
+  /** The active user with these credentials, or null. Never says which half was wrong. */
+  async verifyCredentials(email: string, password: string): Promise<Actor | null> {
+    const user = await this.users.findOneBy({ email: email.trim().toLowerCase() });
+    const ok = await verifyPassword(user?.status === "active" ? user.passwordHash : null, password);
+    if (!user || !ok) return null;
+    await this.users.update(user.id, { lastSignInAt: new Date() });
+    return toActor(user);
+  }
+
+  /** Loads the actor behind a session; null when the user is gone or no longer active. */
+  async actorById(id: number): Promise<Actor | null> {
+    const user = await this.users.findOneBy({ id });
+    return user && user.status === "active" ? toActor(user) : null;
+  }
+
+  /**
+   * Admins invite anyone into their organisation; officers invite tenants to a home of theirs.
+   * The user, the tenancy, the token and the outbox row are written together.
+   */
+  async invite(actor: Actor, input: InvitationInput): Promise<{ userId: number; expiresAt: Date }> {
+    if (actor.role !== "admin" && !(actor.role === "officer" && input.role === "tenant")) {
+      throw new ForbiddenError("Only an administrator can invite staff; officers can invite tenants.");
+    }
+    if (input.role === "tenant") await this.properties.getForStaff(actor, input.propertyId!);
+    const { token, hash } = newToken();
+    const expiresAt = new Date(Date.now() + INVITATION_HOURS * 3_600_000);
+    const { user, deliver } = await this.dataSource.transaction(async (m) => {
+      if (await m.getRepository(User).existsBy({ email: input.email })) {
+        throw new ConflictError("Someone with that e-mail address already has an account.");
+      }
+      const user = await m.getRepository(User).save(
+        m.getRepository(User).create({
+          organisationId: actor.organisationId,
+          email: input.email,
+          name: input.name,
+          role: input.role,
+          status: "invited",
+          passwordHash: null,
+        }),
+      );
+      if (input.role === "tenant") {
+        await this.tenancies.start(m, { propertyId: input.propertyId!, tenantUserId: user.id, householdNotes: input.householdNotes ?? null });
+      }
+      await this.saveToken(m, user.id, "invitation", hash, expiresAt, actor.id);
+      const organisation = await m.getRepository(Organisation).findOneByOrFail({ id: actor.organisationId });
+      const deliver = await this.mail.enqueue(m, {
+        to: user.email,
+        template: "invitation",
+        organisationId: actor.organisationId,
+        related: { type: "user", id: user.id },
+        data: {
+          name: user.name,
+          organisationName: organisation.name,
+          inviterName: actor.name,
+          link: `${this.config.appUrl}/invitation/${token}`,
+          expiresHours: INVITATION_HOURS,
+        },
+      });
+      return { user, deliver };
+    });
+    await deliver();
+    return { userId: user.id, expiresAt };
+  }
+
+  /** Who an invitation link is for, so the page can greet them. */
+  async describeInvitation(token: string): Promise<{ email: string; name: string; organisationName: string }> {
+    const row = await this.findLiveToken(this.dataSource.manager, token, "invitation");
+    const user = await this.users.findOneOrFail({ where: { id: row.userId }, relations: { organisation: true } });
+    return { email: user.email, name: user.name, organisationName: user.organisation!.name };
+  }
+
+  async acceptInvitation(token: string, password: string): Promise<void> {
+    const passwordHash = await hashPassword(password);
+    await this.dataSource.transaction(async (m) => {
+      const row = await this.consumeToken(m, token, "invitation");
+      await m.getRepository(User).update(row.userId, { passwordHash, status: "active" });
+    });
+  }
+
+  /** Always succeeds from the caller's point of view, so it cannot be used to find accounts. */
+  async requestPasswordReset(email: string): Promise<void> {
+    const user = await this.users.findOneBy({ email });
+    if (!user || user.status !== "active") return;
+    const { token, hash } = newToken();
+    const deliver = await this.dataSource.transaction(async (m) => {
+      await this.saveToken(m, user.id, "password-reset", hash, new Date(Date.now() + RESET_MINUTES * 60_000), null);
+      return this.mail.enqueue(m, {
+        to: user.email,
+        template: "passwordReset",
+        organisationId: user.organisationId,
+        related: { type: "user", id: user.id },
+        data: { name: user.name, link: `${this.config.appUrl}/reset-password/${token}`, expiresMinutes: RESET_MINUTES },
+      });
+    });
+    await deliver();
+  }
+
+  async resetPassword(token: string, password: string): Promise<void> {
+    const passwordHash = await hashPassword(password);
+    await this.dataSource.transaction(async (m) => {
+      const row = await this.consumeToken(m, token, "password-reset");
+      const user = await m.getRepository(User).findOneByOrFail({ id: row.userId });
+      if (user.status !== "active") throw new NotFoundError(INVALID_LINK);
+      await m.getRepository(User).update(user.id, { passwordHash });
+      // Any other reset link still outstanding stops working too.
+      await m.getRepository(UserToken).update({ userId: user.id, purpose: "password-reset", usedAt: IsNull() }, { usedAt: new Date() });
+    });
+  }
+
+  private async saveToken(m: EntityManager, userId: number, purpose: TokenPurpose, tokenHash: string, expiresAt: Date, createdById: number | null) {
+    // A new link replaces any earlier one of the same kind.
+    await m.getRepository(UserToken).update({ userId, purpose, usedAt: IsNull() }, { usedAt: new Date() });
+    await m.getRepository(UserToken).insert({ userId, purpose, tokenHash, expiresAt, createdById, usedAt: null });
+  }
+
+  private async findLiveToken(m: EntityManager, token: string, purpose: TokenPurpose, lock = false): Promise<UserToken> {
+    const row = await m.getRepository(UserToken).findOne({
+      where: { tokenHash: hashToken(token), purpose, usedAt: IsNull(), expiresAt: MoreThan(new Date()) },
+      ...(lock ? { lock: { mode: "pessimistic_write" as const } } : {}),
+    });
+    if (!row) throw new NotFoundError(INVALID_LINK);
+    return row;
+  }
+
+  /** Marks the token used inside the transaction; a second use (even a concurrent one) finds nothing. */
+  private async consumeToken(m: EntityManager, token: string, purpose: TokenPurpose): Promise<UserToken> {
+    const row = await this.findLiveToken(m, token, purpose, true);
+    await m.getRepository(UserToken).update(row.id, { usedAt: new Date() });
+    return row;
+  }
+}

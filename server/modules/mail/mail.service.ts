@@ -1,0 +1,62 @@
+import type { DataSource, EntityManager } from "typeorm";
+import type { Logger } from "../../lib/logger.js";
+import type { Mailer } from "../../lib/mailer.js";
+import { mailTemplates, type MailTemplateName } from "./mail-templates.js";
+import { OutboxEmail } from "./outbox-email.entity.js";
+
+export interface SendMail<T extends MailTemplateName> {
+  to: string;
+  template: T;
+  data: Parameters<(typeof mailTemplates)[T]>[0];
+  organisationId?: number | null;
+  related?: { type: string; id: number };
+}
+
+/** Renders, records in the outbox, then sends. A failed send is recorded, never thrown at the caller. */
+export class MailService {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly mailer: Mailer,
+    private readonly logger: Logger,
+  ) {}
+
+  /**
+   * Records the e-mail as pending inside the caller's transaction (so it exists exactly when the
+   * record it is about exists), returning a function that sends it once the transaction has committed.
+   */
+  async enqueue<T extends MailTemplateName>(manager: EntityManager, mail: SendMail<T>): Promise<() => Promise<OutboxEmail>> {
+    const render = mailTemplates[mail.template] as (d: typeof mail.data) => { subject: string; text: string };
+    const rendered = render(mail.data);
+    const row = await manager.getRepository(OutboxEmail).save(
+      manager.getRepository(OutboxEmail).create({
+        organisationId: mail.organisationId ?? null,
+        toAddress: mail.to,
+        subject: rendered.subject,
+        template: mail.template,
+        relatedType: mail.related?.type ?? null,
+        relatedId: mail.related?.id ?? null,
+        status: "pending",
+      }),
+    );
+    return () => this.deliver(row, rendered.text);
+  }
+
+  async send<T extends MailTemplateName>(mail: SendMail<T>): Promise<OutboxEmail> {
+    const deliver = await this.enqueue(this.dataSource.manager, mail);
+    return deliver();
+  }
+
+  private async deliver(row: OutboxEmail, text: string): Promise<OutboxEmail> {
+    const repo = this.dataSource.getRepository(OutboxEmail);
+    try {
+      const { messageId } = await this.mailer.send({ to: row.toAddress, subject: row.subject, text });
+      Object.assign(row, { status: "sent", messageId, sentAt: new Date(), error: null });
+    } catch (error) {
+      const message = error instanceof Error ? error.message : String(error);
+      this.logger.warn({ outboxId: row.id, err: message }, "e-mail could not be sent");
+      Object.assign(row, { status: "failed", error: message.slice(0, 2000) });
+    }
+    await repo.update(row.id, { status: row.status, messageId: row.messageId, sentAt: row.sentAt, error: row.error });
+    return row;
+  }
+}

@@ -1,0 +1,69 @@
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn } from "typeorm";
+import { Organisation } from "../organisations/organisation.entity.js";
+import { Room } from "./room.entity.js";
+
+export const BUILT_FORMS = ["detached", "semi-detached", "end-terrace", "mid-terrace", "flat", "maisonette", "bungalow"] as const;
+export const WALL_TYPES = ["solid-brick", "solid-stone", "unfilled-cavity", "filled-cavity", "system-built", "timber-frame", "insulated"] as const;
+export const GLAZING_TYPES = ["single", "old-double", "modern-double", "triple", "mixed"] as const;
+export const HEATING_TYPES = ["gas-boiler", "electric-storage", "electric-direct", "heat-pump", "district", "other", "none"] as const;
+export type BuiltForm = (typeof BUILT_FORMS)[number];
+export type WallType = (typeof WALL_TYPES)[number];
+export type GlazingType = (typeof GLAZING_TYPES)[number];
+export type HeatingType = (typeof HEATING_TYPES)[number];
+
+@Entity({ name: "properties" })
+@Index("idx_properties_org_estate", ["organisationId", "estate"])
+@Index("idx_properties_org_postcode", ["organisationId", "postcode"])
+@Index("uq_properties_org_uprn", ["organisationId", "uprn"], { unique: true })
+export class Property {
+  @PrimaryGeneratedColumn({ type: "int", unsigned: true })
+  id: number;
+
+  @Column({ name: "organisation_id", type: "int", unsigned: true })
+  organisationId: number;
+
+  @ManyToOne(() => Organisation, { onDelete: "RESTRICT" })
+  @JoinColumn({ name: "organisation_id" })
+  organisation?: Organisation;
+
+  @Column({ name: "address_line1", type: "varchar", length: 190 })
+  addressLine1: string;
+
+  @Column({ name: "address_line2", type: "varchar", length: 190, nullable: true })
+  addressLine2: string | null;
+
+  @Column({ type: "varchar", length: 100 })
+  town: string;
+
+  /** Upper case with one space, e.g. "AB1 2CD". */
+  @Column({ type: "varchar", length: 10 })
+  postcode: string;
+
+  /** Unique Property Reference Number (up to 12 digits), where the landlord knows it. */
+  @Column({ type: "varchar", length: 12, nullable: true })
+  uprn: string | null;
+
+  @Column({ type: "varchar", length: 100 })
+  estate: string;
+
+  @Column({ type: "varchar", length: 100, nullable: true })
+  block: string | null;
+
+  @Column({ name: "built_form", type: "varchar", length: 20 })
+  builtForm: BuiltForm;
+
+  @Column({ name: "wall_type", type: "varchar", length: 20 })
+  wallType: WallType;
+
+  @Column({ name: "glazing_type", type: "varchar", length: 20 })
+  glazingType: GlazingType;
+
+  @Column({ name: "heating_type", type: "varchar", length: 20 })
+  heatingType: HeatingType;
+
+  @OneToMany(() => Room, (room) => room.property)
+  rooms?: Room[];
+
+  @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })
+  createdAt: Date;
+}

@@ -1,0 +1,50 @@
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from "typeorm";
+import { Organisation } from "../organisations/organisation.entity.js";
+
+export const ROLES = ["tenant", "officer", "maintenance", "admin"] as const;
+export type Role = (typeof ROLES)[number];
+export const STAFF_ROLES = ["officer", "maintenance", "admin"] as const satisfies readonly Role[];
+
+/** invited: has a pending invitation and no password yet; disabled: may not sign in. */
+export const USER_STATUSES = ["invited", "active", "disabled"] as const;
+export type UserStatus = (typeof USER_STATUSES)[number];
+
+@Entity({ name: "users" })
+@Index("idx_users_organisation_role", ["organisationId", "role"])
+export class User {
+  @PrimaryGeneratedColumn({ type: "int", unsigned: true })
+  id: number;
+
+  @Column({ name: "organisation_id", type: "int", unsigned: true })
+  organisationId: number;
+
+  @ManyToOne(() => Organisation, { onDelete: "RESTRICT" })
+  @JoinColumn({ name: "organisation_id" })
+  organisation?: Organisation;
+
+  /** Stored lower-cased and trimmed. */
+  @Index("uq_users_email", { unique: true })
+  @Column({ type: "varchar", length: 190 })
+  email: string;
+
+  @Column({ type: "varchar", length: 190 })
+  name: string;
+
+  @Column({ name: "password_hash", type: "varchar", length: 255, nullable: true })
+  passwordHash: string | null;
+
+  @Column({ type: "varchar", length: 20 })
+  role: Role;
+
+  @Column({ type: "varchar", length: 20, default: "active" })
+  status: UserStatus;
+
+  @Column({ name: "last_sign_in_at", type: "datetime", precision: 3, nullable: true })
+  lastSignInAt: Date | null;
+
+  @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })
+  createdAt: Date;
+
+  @UpdateDateColumn({ name: "updated_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)", onUpdate: "CURRENT_TIMESTAMP(3)" })
+  updatedAt: Date;
+}

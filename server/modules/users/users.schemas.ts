@@ -1,0 +1,14 @@
+import { z } from "zod";
+import { ROLES } from "./user.entity.js";
+
+export const userListQuerySchema = z.object({
+  role: z.enum(ROLES).optional(),
+  q: z.string().trim().max(100).optional(),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200, "pageSize can be at most 200.").default(50),
+});
+export type UserListQuery = z.infer<typeof userListQuerySchema>;
+
+export const userUpdateSchema = z
+  .object({ status: z.enum(["active", "disabled"], { error: "status must be active or disabled." }) })
+  .strict();
