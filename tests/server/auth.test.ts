@@ -1,7 +1,7 @@
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { anonymousClient, createTestApp, signedInClient, type TestApp } from "../support/test-app.js";
-import { makeLandlord, PASSWORD } from "../support/factories.js";
+import { makeLandlord, makeUser, PASSWORD } from "../support/factories.js";
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -106,7 +106,6 @@ describe("sign-in", () => {
   });
 
   it("refuses a disabled account with the same 401 as a wrong password", async () => {
-    const { makeUser } = await import("../support/factories.js");
     const disabled = await makeUser(t.ctx.dataSource, landlord.org, "officer", { status: "disabled" });
     const client = await anonymousClient(t.app);
     const res = await client.post("/api/auth/login", { email: disabled.email, password: PASSWORD }).expect(401);

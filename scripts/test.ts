@@ -1,0 +1,20 @@
+// `npm test`: installs what the tests need (Debian's MariaDB and Chromium), type-checks, builds the
+// client for the browser tests, then runs every vitest project. Each database-backed project starts
+// its own throwaway MariaDB and removes it at the end. Extra arguments go to vitest.
+import { projectRoot } from "./lib/paths.js";
+import { runForExitCode, runStep } from "./lib/processes.js";
+import { CHROMIUM, ensureSystemPackages, MARIADB } from "./lib/system-packages.js";
+
+const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
+
+await ensureSystemPackages([MARIADB, CHROMIUM], step);
+step("Type-checking (tsc -b)…");
+await runStep(process.execPath, ["node_modules/typescript/bin/tsc", "-b"], { cwd: projectRoot });
+step("Building the client for the browser tests…");
+await runStep(process.execPath, ["node_modules/vite/bin/vite.js", "build", "--logLevel", "warn"], { cwd: projectRoot });
+step("Running the tests…");
+const code = await runForExitCode(process.execPath, ["node_modules/vitest/vitest.mjs", "run", ...process.argv.slice(2)], {
+  cwd: projectRoot,
+  env: { ...process.env, NODE_ENV: "test" },
+});
+process.exit(code);

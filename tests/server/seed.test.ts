@@ -1,0 +1,54 @@
+import { afterAll, beforeAll, expect, it } from "vitest";
+import { loadConfig } from "../../server/config/env.js";
+import { createDataSource } from "../../server/db/create-data-source.js";
+import { DEMO_ACCOUNTS, DEMO_ORGANISATION, seedDemo } from "../../server/db/seeds/demo.js";
+import { Organisation } from "../../server/modules/organisations/organisation.entity.js";
+import { Property } from "../../server/modules/properties/property.entity.js";
+import { Tenancy } from "../../server/modules/tenancies/tenancy.entity.js";
+import { runSeed } from "../../scripts/seed.js";
+import { createTestApp, signedInClient, type TestApp } from "../support/test-app.js";
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(() => t.close());
+
+it("creates the demo landlord once, with about 120 homes on three estates, and the demo accounts sign in", async () => {
+  const first = await seedDemo(t.ctx.dataSource, "demo-password-1");
+  const second = await seedDemo(t.ctx.dataSource, "demo-password-2");
+  expect(first.created).toBe(true);
+  expect(second.created).toBe(false);
+  const orgs = await t.ctx.dataSource.getRepository(Organisation).findBy({ name: DEMO_ORGANISATION });
+  expect(orgs).toHaveLength(1);
+  const homes = await t.ctx.dataSource.getRepository(Property).findBy({ organisationId: orgs[0]!.id });
+  expect(homes).toHaveLength(120);
+  expect(new Set(homes.map((h) => h.estate)).size).toBe(3);
+  expect(homes.some((h) => h.glazingType === "single")).toBe(true);
+  expect(homes.some((h) => h.wallType === "filled-cavity")).toBe(true);
+  expect(homes.some((h) => h.wallType === "solid-brick")).toBe(true);
+
+  // The second run set the password again; the two demo tenants live in different homes.
+  for (const account of DEMO_ACCOUNTS) {
+    const me = await (await signedInClient(t.app, account.email, "demo-password-2")).get("/api/auth/me").expect(200);
+    expect(me.body.role).toBe(account.role);
+  }
+  const tenancies = t.ctx.dataSource.getRepository(Tenancy);
+  const [a, b] = await Promise.all(
+    ["tenant@example.org", "tenant2@example.org"].map(async (email) => {
+      const client = await signedInClient(t.app, email, "demo-password-2");
+      return (await client.get("/api/me/home").expect(200)).body.property.id as number;
+    }),
+  );
+  expect(a).not.toBe(b);
+  expect(await tenancies.countBy({ propertyId: a })).toBe(1);
+});
+
+it("refuses to seed when NODE_ENV=production", async () => {
+  const config = { ...loadConfig(), env: "production" as const };
+  await expect(runSeed(config)).rejects.toThrow(/production/);
+  // Nothing was opened: a DataSource for the same database still initialises and closes normally.
+  const ds = createDataSource(config.db);
+  await ds.initialize();
+  await ds.destroy();
+});
