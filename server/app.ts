@@ -11,6 +11,8 @@ import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
 import { createHealthRouter } from "./modules/health/health.routes.js";
 import { createPropertiesRouter } from "./modules/properties/properties.routes.js";
+import { openApiDocument } from "./modules/psychrometrics/openapi.js";
+import { createPsychrometricsRouter } from "./modules/psychrometrics/psychrometrics.routes.js";
 import { createMyHomeRouter } from "./modules/tenancies/tenancies.routes.js";
 import { createUsersRouter } from "./modules/users/users.routes.js";
 
@@ -26,9 +28,15 @@ export function createApp(ctx: AppContext): Express {
   app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => req.url === "/api/health" } }));
 
   const api = express.Router();
-  api.use(express.json({ limit: "2mb" }));
-  // Health first: it must answer even when the session store (MariaDB) does not.
+  // Health and the public calculator API come before sessions: they must answer even when the
+  // session store (MariaDB) does not, and they change nothing, so they need no CSRF token.
   api.use("/health", createHealthRouter({ dataSource: ctx.dataSource }));
+  api.use("/psychrometrics", createPsychrometricsRouter());
+  api.get("/openapi.json", (_req, res) => {
+    res.json(openApiDocument(config.appUrl));
+  });
+
+  api.use(express.json({ limit: "2mb" }));
 
   api.use(
     session({
