@@ -1,0 +1,77 @@
+// Dewline's risk engine: pure functions on psychrolib, no I/O. Shared by the server and the client.
+export {
+  GAS_CONSTANT_WATER_VAPOUR,
+  STANDARD_PRESSURE_PA,
+  absoluteHumidityFromVapourPressureGPerM3,
+  absoluteHumidityGPerM3,
+  dewPointC,
+  dewPointFromVapourPressureC,
+  humidityRatio,
+  relativeHumidityPctFromVapourPressure,
+  saturationVapourPressurePa,
+  vapourPressureFromDewPointPa,
+  vapourPressurePa,
+} from "./psychrometrics.js";
+export {
+  BORDERLINE_SURFACE_RH_PCT,
+  BUILDING_ELEMENTS,
+  CONDENSATION_SURFACE_RH_PCT,
+  CORNER_TEMPERATURE_FACTOR,
+  CRITICAL_TEMPERATURE_FACTOR,
+  ELEMENT_IDS,
+  MIN_TEMPERATURE_DIFFERENCE_FOR_FACTOR_K,
+  MOULD_SURFACE_RH_PCT,
+  RSI_GLAZING_M2K_PER_W,
+  RSI_OPAQUE_M2K_PER_W,
+  SURFACE_STATES,
+  estimateSurfaceTemperatureC,
+  getBuildingElement,
+  isElementId,
+  minimumTemperatureFactor,
+  surfaceRelativeHumidityPct,
+  surfaceState,
+  temperatureFactor,
+  temperatureFactorFromUValue,
+} from "./surface.js";
+export type {
+  BuildingElement,
+  ElementId,
+  MinimumTemperatureFactor,
+  MinimumTemperatureFactorInput,
+  SurfaceState,
+} from "./surface.js";
+export {
+  DECLINE_AFTER_24H_PER_HOUR,
+  DECLINE_FIRST_6H_PER_HOUR,
+  MATERIAL_CLASSES,
+  MATERIAL_SENSITIVITIES,
+  MAX_MOULD_INDEX,
+  createMouldIndexState,
+  criticalRelativeHumidityPct,
+  isFavourableForGrowth,
+  materialClass,
+  maximumMouldIndex,
+  mouldDecline,
+  mouldGrowthRatePerDay,
+  stepMouldIndex,
+} from "./mould-index.js";
+export type { MaterialClass, MaterialSensitivity, MouldIndexState } from "./mould-index.js";
+export {
+  ASSUMED_OUTDOOR_RH_PCT,
+  HIGH_MOISTURE_LOAD_CLASS,
+  moistureLoadBoundaryGPerM3,
+  moistureLoadClass,
+} from "./moisture-load.js";
+export { evaluatePoint } from "./point.js";
+export type { PointInput, PointResult, SurfaceResult, SurfaceSource } from "./point.js";
+export {
+  MAX_INTEGRATION_GAP_HOURS,
+  MIN_WINDOW_COVER_DAYS,
+  ROLLING_WINDOW_DAYS,
+  evaluateSeries,
+  mouldIndexTrajectory,
+  worstRollingMean,
+} from "./series.js";
+export type { MouldIndexPoint, SeriesGap, SeriesInput, SeriesReading, SeriesResult } from "./series.js";
+export { HIGH_AIR_RH_PCT, MIN_OBSERVED_HOURS, diagnose } from "./diagnosis.js";
+export type { Diagnosis, DiagnosisFacts, DiagnosisKind } from "./diagnosis.js";

@@ -1,0 +1,14 @@
+// Number formatting for reason strings: fixed decimals rounded half up on the decimal value
+// (0.475 → "0.48", which toFixed gets wrong from the binary value), never "-0.0".
+
+export function fixed(value: number, digits: number): string {
+  const scale = 10 ** digits;
+  const scaled = Number((value * scale).toPrecision(12));
+  const text = (Math.round(scaled) / scale).toFixed(digits);
+  return /^-0(\.0+)?$/.test(text) ? text.slice(1) : text;
+}
+
+export const celsius = (value: number): string => `${fixed(value, 1)} °C`;
+export const percent = (value: number): string => `${fixed(value, 0)} %`;
+export const factor = (value: number): string => fixed(value, 2);
+export const hours = (value: number): string => fixed(value, value < 10 ? 1 : 0);
