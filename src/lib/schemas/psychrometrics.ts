@@ -48,6 +48,12 @@ export const seriesReadingSchema = z.object({
   relativeHumidityPct: relativeHumidity,
   surfaceTemperatureC: surfaceTemperatureC.optional(),
   outdoorTemperatureC: outdoorTemperatureC.optional(),
+  /** Where a logger also records outdoor humidity; otherwise the engine assumes a typical value and says so. */
+  outdoorRelativeHumidityPct: z
+    .number({ error: "outdoorRelativeHumidityPct must be a number in %." })
+    .gt(0, "outdoorRelativeHumidityPct must be more than 0 %.")
+    .max(100, "outdoorRelativeHumidityPct must be at most 100 %.")
+    .optional(),
 });
 
 export const evaluateSeriesSchema = z.object({
