@@ -1,0 +1,99 @@
+import { useQueryClient, type QueryClient } from "@tanstack/react-query";
+import { useMemo } from "react";
+import { createBrowserRouter, redirect, RouterProvider, type LoaderFunction, type RouteObject } from "react-router-dom";
+import { RootRouteError, RouteError } from "@/components/errors/route-error";
+import { LoadingState } from "@/components/ui/spinner";
+import { meQueryOptions } from "@/features/auth/api/get-me";
+import { RoleGate, signInPath } from "@/features/auth/components/role-gate";
+import { roleHome } from "@/features/auth/roles";
+import type { Role } from "@/lib/roles";
+
+/** What a lazily loaded route module may export: the page (default) and a loader that warms the cache. */
+interface RouteModule {
+  default: React.ComponentType;
+  clientLoader?: (queryClient: QueryClient) => LoaderFunction;
+}
+
+const lazyRoute = (queryClient: QueryClient, load: () => Promise<RouteModule>) => async () => {
+  const { default: Component, clientLoader } = await load();
+  return { Component, ...(clientLoader ? { loader: clientLoader(queryClient) } : {}) };
+};
+
+/** Signed-out visitors are sent to sign in, and come back here afterwards. */
+const requireUser =
+  (queryClient: QueryClient): LoaderFunction =>
+  async ({ request }) => {
+    const user = await queryClient.ensureQueryData(meQueryOptions());
+    if (!user) {
+      const url = new URL(request.url);
+      throw redirect(signInPath(url.pathname + url.search));
+    }
+    return null;
+  };
+
+/** `/` goes to each role's own first screen. */
+const startPage =
+  (queryClient: QueryClient): LoaderFunction =>
+  async () => {
+    const user = await queryClient.ensureQueryData(meQueryOptions());
+    throw redirect(user ? roleHome(user.role).path : "/sign-in");
+  };
+
+const STAFF: readonly Role[] = ["officer", "maintenance", "admin"];
+
+export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
+  const page = (path: string, load: () => Promise<RouteModule>): RouteObject => ({
+    path,
+    lazy: lazyRoute(queryClient, load),
+    errorElement: <RouteError />,
+  });
+  const gate = (roles: readonly Role[], children: RouteObject[]): RouteObject => ({
+    element: <RoleGate roles={roles} />,
+    errorElement: <RouteError />,
+    children,
+  });
+
+  return [
+    {
+      id: "root",
+      errorElement: <RootRouteError />,
+      hydrateFallbackElement: <LoadingState className="justify-center py-20">Opening Dewline…</LoadingState>,
+      children: [
+        { index: true, loader: startPage(queryClient), element: <LoadingState />, errorElement: <RootRouteError /> },
+        {
+          // Pages anyone may open.
+          lazy: lazyRoute(queryClient, () => import("./routes/public/root")),
+          errorElement: <RootRouteError />,
+          children: [
+            page("sign-in", () => import("./routes/auth/sign-in")),
+            page("forgot-password", () => import("./routes/auth/forgot-password")),
+            page("reset-password/:token", () => import("./routes/auth/reset-password")),
+            page("invitation/:token", () => import("./routes/auth/invitation")),
+            page("calculator", () => import("./routes/public/calculator")),
+            page("*", () => import("./routes/not-found")),
+          ],
+        },
+        {
+          // The signed-in area: header, navigation and sign-out around every page.
+          id: "app",
+          loader: requireUser(queryClient),
+          lazy: async () => ({ Component: (await import("./routes/app/root")).default }),
+          errorElement: <RootRouteError />,
+          children: [
+            gate(["tenant"], [page("home", () => import("./routes/tenant/home"))]),
+            gate(["officer"], [page("queue", () => import("./routes/staff/queue"))]),
+            gate(["maintenance"], [page("works", () => import("./routes/staff/works"))]),
+            gate(STAFF, [page("homes", () => import("./routes/staff/homes"))]),
+            gate(["admin"], [page("admin", () => import("./routes/admin/users"))]),
+          ],
+        },
+      ],
+    },
+  ];
+}
+
+export function AppRouter() {
+  const queryClient = useQueryClient();
+  const router = useMemo(() => createBrowserRouter(createAppRoutes(queryClient)), [queryClient]);
+  return <RouterProvider router={router} />;
+}

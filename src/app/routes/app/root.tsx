@@ -1,0 +1,56 @@
+import { Navigate, Outlet, useLocation, useNavigate } from "react-router-dom";
+import { AppLayout, type NavItem } from "@/components/layouts/app-layout";
+import { useMe } from "@/features/auth/api/get-me";
+import { useLogout } from "@/features/auth/api/logout";
+import { signInPath } from "@/features/auth/components/role-gate";
+import { roleHome } from "@/features/auth/roles";
+import { roleLabels, type Role } from "@/lib/roles";
+
+const navByRole: Record<Role, NavItem[]> = {
+  tenant: [
+    { to: "/home", label: "My home" },
+    { to: "/calculator", label: "Dew point calculator" },
+  ],
+  officer: [
+    { to: "/queue", label: "Case queue" },
+    { to: "/homes", label: "Homes" },
+    { to: "/calculator", label: "Calculator" },
+  ],
+  maintenance: [
+    { to: "/works", label: "Works" },
+    { to: "/homes", label: "Homes" },
+    { to: "/calculator", label: "Calculator" },
+  ],
+  admin: [
+    { to: "/admin", label: "Users and invitations" },
+    { to: "/homes", label: "Homes" },
+    { to: "/calculator", label: "Calculator" },
+  ],
+};
+
+export default function AppRoot() {
+  const { data: user } = useMe();
+  const location = useLocation();
+  const navigate = useNavigate();
+  const logout = useLogout({ onSuccess: () => navigate("/sign-in", { replace: true, state: { signedOut: true } }) });
+
+  // The session ended while the page was open (or someone signed out in another way).
+  if (!user) {
+    if (logout.isPending || logout.isSuccess) return null;
+    return <Navigate to={signInPath(location.pathname + location.search)} replace />;
+  }
+
+  return (
+    <AppLayout
+      variant={user.role === "tenant" ? "tenant" : "staff"}
+      userName={user.name}
+      roleLabel={roleLabels[user.role]}
+      homePath={roleHome(user.role).path}
+      nav={navByRole[user.role]}
+      onSignOut={() => logout.mutate()}
+      signingOut={logout.isPending}
+    >
+      <Outlet />
+    </AppLayout>
+  );
+}

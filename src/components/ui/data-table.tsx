@@ -1,0 +1,211 @@
+import { useId, type ReactNode } from "react";
+import {
+  createColumnHelper,
+  rowPaginationFeature,
+  tableFeatures,
+  useTable,
+  type ColumnDef,
+  type PaginationState,
+  type ReactTable,
+  type RowData,
+  type Updater,
+} from "@tanstack/react-table";
+import { cn } from "@/lib/cn";
+import { Button } from "./button";
+import { EmptyState } from "./empty-state";
+import { Spinner } from "./spinner";
+
+/** Every Dewline table is paginated on the server: the table only renders the page it is given. */
+export const dataTableFeatures = tableFeatures({ rowPaginationFeature });
+export type DataTableFeatures = typeof dataTableFeatures;
+export type DataTableInstance<Row extends RowData> = ReactTable<DataTableFeatures, Row>;
+
+/** Column helper bound to our table features. */
+export const dataTableColumnHelper = <Row extends RowData>() => createColumnHelper<DataTableFeatures, Row>();
+
+export const PAGE_SIZE_OPTIONS = [10, 25, 50, 100] as const;
+
+interface UseServerTableOptions<Row extends RowData> {
+  columns: ColumnDef<DataTableFeatures, Row, any>[];
+  data: readonly Row[];
+  rowCount: number | undefined;
+  pagination: PaginationState;
+  onPaginationChange: (next: PaginationState) => void;
+  getRowId?: (row: Row) => string;
+}
+
+/** A v9 table with manual (server-side) pagination whose page state is owned by the caller (the URL). */
+export function useServerTable<Row extends RowData>({ columns, data, rowCount, pagination, onPaginationChange, getRowId }: UseServerTableOptions<Row>) {
+  return useTable({
+    features: dataTableFeatures,
+    columns,
+    data,
+    ...(getRowId ? { getRowId: (row: Row) => getRowId(row) } : {}),
+    manualPagination: true,
+    rowCount: rowCount ?? 0,
+    state: { pagination },
+    onPaginationChange: (updater: Updater<PaginationState>) => {
+      onPaginationChange(typeof updater === "function" ? updater(pagination) : updater);
+    },
+  });
+}
+
+interface DataTableProps<Row extends RowData> {
+  table: DataTableInstance<Row>;
+  /** The table's accessible name, shown as its caption unless hideCaption. */
+  caption: string;
+  hideCaption?: boolean;
+  /** True before the first page has arrived. */
+  loading?: boolean;
+  /** True while another page is being fetched (the old one stays visible). */
+  fetching?: boolean;
+  error?: ReactNode;
+  empty?: ReactNode;
+  /** What the rows are, for "Showing 1–25 of 80 homes". */
+  noun?: { one: string; many: string };
+  pageSizeOptions?: readonly number[];
+  className?: string;
+}
+
+export function DataTable<Row extends RowData>({
+  table,
+  caption,
+  hideCaption,
+  loading = false,
+  fetching = false,
+  error,
+  empty,
+  noun = { one: "row", many: "rows" },
+  pageSizeOptions = PAGE_SIZE_OPTIONS,
+  className,
+}: DataTableProps<Row>) {
+  const headerGroups = table.getHeaderGroups();
+  const rows = table.getRowModel().rows;
+  const columnCount = table.getAllLeafColumns().length;
+
+  let body: ReactNode;
+  if (loading) {
+    body = (
+      <tr>
+        <td colSpan={columnCount} className="px-3 py-6">
+          <div role="status" className="flex items-center gap-2 text-ink-soft">
+            <Spinner size="sm" label="" /> Loading {noun.many}…
+          </div>
+        </td>
+      </tr>
+    );
+  } else if (error) {
+    body = (
+      <tr>
+        <td colSpan={columnCount} className="px-3 py-4">
+          {error}
+        </td>
+      </tr>
+    );
+  } else if (rows.length === 0) {
+    body = (
+      <tr>
+        <td colSpan={columnCount} className="p-3">
+          {empty ?? <EmptyState title={`No ${noun.many} to show`} />}
+        </td>
+      </tr>
+    );
+  } else {
+    body = rows.map((row) => (
+      <tr key={row.id} className="border-t border-line even:bg-paper/60 hover:bg-dew-50">
+        {row.getAllCells().map((cell) => (
+          <td key={cell.id} className="px-3 py-2 align-top">
+            <table.FlexRender cell={cell} />
+          </td>
+        ))}
+      </tr>
+    ));
+  }
+
+  return (
+    <div className={cn("flex flex-col gap-3", className)}>
+      {/* Focusable so keyboard users can scroll a wide table sideways on a small screen. */}
+      <div
+        role="region"
+        aria-label={`${caption} (scrolls sideways)`}
+        tabIndex={0}
+        className="relative overflow-x-auto rounded-md border border-line bg-surface"
+      >
+        <table className="w-full border-collapse text-left text-sm" aria-busy={loading || fetching || undefined}>
+          <caption className={cn("px-3 pt-3 pb-1 text-left font-bold", hideCaption && "sr-only")}>{caption}</caption>
+          <thead className="bg-dew-50 text-ink">
+            {headerGroups.map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => (
+                  <th key={header.id} scope="col" colSpan={header.colSpan} className="border-b border-line-strong px-3 py-2 font-bold whitespace-nowrap">
+                    {header.isPlaceholder ? null : <table.FlexRender header={header} />}
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody>{body}</tbody>
+        </table>
+      </div>
+      <Pagination table={table} noun={noun} pageSizeOptions={pageSizeOptions} fetching={fetching} disabled={loading} />
+    </div>
+  );
+}
+
+interface PaginationProps<Row extends RowData> {
+  table: DataTableInstance<Row>;
+  noun: { one: string; many: string };
+  pageSizeOptions: readonly number[];
+  fetching: boolean;
+  disabled: boolean;
+}
+
+function Pagination<Row extends RowData>({ table, noun, pageSizeOptions, fetching, disabled }: PaginationProps<Row>) {
+  const sizeId = useId();
+  const { pageIndex, pageSize } = table.state.pagination;
+  const total = table.getRowCount();
+  const pageCount = Math.max(1, table.getPageCount());
+  const first = total === 0 ? 0 : pageIndex * pageSize + 1;
+  const last = Math.min(total, (pageIndex + 1) * pageSize);
+  const sizes = pageSizeOptions.includes(pageSize) ? pageSizeOptions : [...pageSizeOptions, pageSize].sort((a, b) => a - b);
+
+  return (
+    <nav aria-label={`Pages of ${noun.many}`} className="flex flex-wrap items-center justify-between gap-3 text-sm">
+      <p aria-live="polite" className="text-ink-soft">
+        {total === 0 ? `No ${noun.many}` : `Showing ${first}–${last} of ${total} ${total === 1 ? noun.one : noun.many}`}
+        {fetching ? (
+          <span className="ml-2 inline-flex items-center gap-1">
+            <Spinner size="sm" label="" /> Updating…
+          </span>
+        ) : null}
+      </p>
+      <div className="flex flex-wrap items-center gap-2">
+        <label htmlFor={sizeId} className="font-semibold">
+          Rows per page
+        </label>
+        <select
+          id={sizeId}
+          value={pageSize}
+          disabled={disabled}
+          onChange={(e) => table.setPagination({ pageIndex: 0, pageSize: Number(e.target.value) })}
+          className="min-h-8 rounded-md border border-line-strong bg-surface px-2"
+        >
+          {sizes.map((size) => (
+            <option key={size} value={size}>
+              {size}
+            </option>
+          ))}
+        </select>
+        <Button size="sm" variant="secondary" onClick={() => table.previousPage()} disabled={disabled || !table.getCanPreviousPage()}>
+          <span aria-hidden="true">‹</span> Previous page
+        </Button>
+        <span className="px-1 whitespace-nowrap">
+          Page {Math.min(pageIndex + 1, pageCount)} of {pageCount}
+        </span>
+        <Button size="sm" variant="secondary" onClick={() => table.nextPage()} disabled={disabled || !table.getCanNextPage()}>
+          Next page <span aria-hidden="true">›</span>
+        </Button>
+      </div>
+    </nav>
+  );
+}

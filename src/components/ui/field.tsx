@@ -1,0 +1,131 @@
+import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from "react";
+import { cn } from "@/lib/cn";
+
+/** Classes shared by every text-like control, so inputs, selects and text areas line up. */
+export const controlClasses =
+  "block w-full rounded-md border border-line-strong bg-surface px-3 text-base text-ink placeholder:text-ink-soft " +
+  "aria-invalid:border-rust-700 aria-invalid:border-2 disabled:bg-paper disabled:text-ink-soft";
+
+interface FieldShellProps {
+  id: string;
+  label: ReactNode;
+  hint?: ReactNode;
+  error?: string;
+  /** Hides the label visually (it is still the control's accessible name). */
+  hideLabel?: boolean;
+  optional?: boolean;
+  className?: string;
+  children: ReactNode;
+}
+
+export const hintId = (id: string) => `${id}-hint`;
+export const errorId = (id: string) => `${id}-error`;
+
+/** The ids a control should name in aria-describedby: its hint and its error, when shown. */
+export function describedBy(id: string, hint?: ReactNode, error?: string): string | undefined {
+  const ids = [hint ? hintId(id) : null, error ? errorId(id) : null].filter(Boolean);
+  return ids.length ? ids.join(" ") : undefined;
+}
+
+export function FieldShell({ id, label, hint, error, hideLabel, optional, className, children }: FieldShellProps) {
+  return (
+    <div className={cn("flex flex-col gap-1", className)}>
+      <label htmlFor={id} className={cn("font-semibold text-ink", hideLabel && "sr-only")}>
+        {label}
+        {optional ? <span className="font-normal text-ink-soft"> (optional)</span> : null}
+      </label>
+      {hint ? (
+        <p id={hintId(id)} className="text-sm text-ink-soft">
+          {hint}
+        </p>
+      ) : null}
+      {error ? (
+        <p id={errorId(id)} className="flex items-start gap-1 text-sm font-semibold text-rust-700">
+          <svg viewBox="0 0 16 16" className="mt-0.5 size-4 shrink-0" aria-hidden="true">
+            <circle cx="8" cy="8" r="7" fill="currentColor" />
+            <path d="M8 4v5M8 11.2v.1" stroke="#fff" strokeWidth="1.8" strokeLinecap="round" />
+          </svg>
+          <span>{error}</span>
+        </p>
+      ) : null}
+      {children}
+    </div>
+  );
+}
+
+interface CommonFieldProps {
+  label: ReactNode;
+  hint?: ReactNode;
+  error?: string;
+  hideLabel?: boolean;
+  optional?: boolean;
+  /** Classes for the wrapper (label, hint, error and control). */
+  className?: string;
+  controlClassName?: string;
+}
+
+export interface InputProps extends CommonFieldProps, Omit<InputHTMLAttributes<HTMLInputElement>, "className"> {
+  ref?: Ref<HTMLInputElement>;
+}
+
+export function Input({ label, hint, error, hideLabel, optional, className, controlClassName, id, ref, ...props }: InputProps) {
+  const autoId = useId();
+  const inputId = id ?? autoId;
+  return (
+    <FieldShell id={inputId} label={label} hint={hint} error={error} hideLabel={hideLabel} optional={optional} className={className}>
+      <input
+        ref={ref}
+        id={inputId}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(inputId, hint, error)}
+        className={cn(controlClasses, "min-h-10 py-2", controlClassName)}
+        {...props}
+      />
+    </FieldShell>
+  );
+}
+
+export interface SelectProps extends CommonFieldProps, Omit<SelectHTMLAttributes<HTMLSelectElement>, "className"> {
+  ref?: Ref<HTMLSelectElement>;
+}
+
+export function Select({ label, hint, error, hideLabel, optional, className, controlClassName, id, ref, children, ...props }: SelectProps) {
+  const autoId = useId();
+  const selectId = id ?? autoId;
+  return (
+    <FieldShell id={selectId} label={label} hint={hint} error={error} hideLabel={hideLabel} optional={optional} className={className}>
+      <select
+        ref={ref}
+        id={selectId}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(selectId, hint, error)}
+        className={cn(controlClasses, "min-h-10 py-2 pr-8", controlClassName)}
+        {...props}
+      >
+        {children}
+      </select>
+    </FieldShell>
+  );
+}
+
+export interface TextareaProps extends CommonFieldProps, Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, "className"> {
+  ref?: Ref<HTMLTextAreaElement>;
+}
+
+export function Textarea({ label, hint, error, hideLabel, optional, className, controlClassName, id, ref, rows = 3, ...props }: TextareaProps) {
+  const autoId = useId();
+  const textareaId = id ?? autoId;
+  return (
+    <FieldShell id={textareaId} label={label} hint={hint} error={error} hideLabel={hideLabel} optional={optional} className={className}>
+      <textarea
+        ref={ref}
+        id={textareaId}
+        rows={rows}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(textareaId, hint, error)}
+        className={cn(controlClasses, "py-2", controlClassName)}
+        {...props}
+      />
+    </FieldShell>
+  );
+}

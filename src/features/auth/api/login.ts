@@ -1,0 +1,37 @@
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { z } from "zod";
+import { api, setCsrfToken } from "@/lib/api-client";
+import type { User } from "../roles";
+import { authKeys } from "./auth-keys";
+
+export const signInSchema = z.object({
+  email: z.string().trim().min(1, "Enter your e-mail address.").pipe(z.email("Enter a valid e-mail address, like name@example.org.")),
+  password: z.string().min(1, "Enter your password."),
+});
+export type SignInInput = z.infer<typeof signInSchema>;
+
+interface LoginResponse {
+  user: User;
+  csrfToken: string;
+}
+
+export async function login(input: SignInInput): Promise<User> {
+  const res = await api.post<LoginResponse>("/auth/login", input);
+  // Signing in starts a new session with a new token: the old one is no use any more.
+  setCsrfToken(res.csrfToken);
+  return res.user;
+}
+
+export function useLogin(options: { onSuccess?: (user: User) => void } = {}) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationKey: [...authKeys.all, "login"],
+    mutationFn: login,
+    onSuccess: (user) => {
+      // Anything cached belonged to the signed-out visitor (or someone else): start clean.
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
+      queryClient.setQueryData(authKeys.me(), user);
+      options.onSuccess?.(user);
+    },
+  });
+}

@@ -1,0 +1,29 @@
+import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import type { PropertySummary } from "@/lib/homes";
+import { propertyKeys, type PropertyListFilters } from "./property-keys";
+
+export interface PropertyPage {
+  items: PropertySummary[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export const getProperties = (filters: PropertyListFilters, signal?: AbortSignal) =>
+  api.get<PropertyPage>("/properties", {
+    query: { q: filters.q || undefined, estate: filters.estate || undefined, page: filters.page, pageSize: filters.pageSize },
+    signal,
+  });
+
+export const propertiesQueryOptions = (filters: PropertyListFilters) =>
+  queryOptions({
+    queryKey: propertyKeys.list(filters),
+    queryFn: ({ signal }) => getProperties(filters, signal),
+    // Keep the last page on screen while the next one loads, so the table does not jump.
+    placeholderData: keepPreviousData,
+  });
+
+export function useProperties(filters: PropertyListFilters, options: { enabled?: boolean } = {}) {
+  return useQuery({ ...propertiesQueryOptions(filters), enabled: options.enabled ?? true });
+}

@@ -1,0 +1,167 @@
+/**
+ * The one way the client talks to the server: JSON under /api, same-origin cookies, a CSRF token
+ * on every state-changing request, and one error shape (`ApiError`) for everything that fails.
+ */
+
+export interface ApiErrorDetail {
+  field: string;
+  message: string;
+}
+
+export class ApiError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly details?: unknown;
+
+  constructor(status: number, code: string, message: string, details?: unknown) {
+    super(message);
+    this.name = "ApiError";
+    this.status = status;
+    this.code = code;
+    this.details = details;
+  }
+
+  /** Field-level messages of a 400 validation error, if the server sent them. */
+  get fieldErrors(): ApiErrorDetail[] {
+    if (!Array.isArray(this.details)) return [];
+    return this.details.filter(
+      (d): d is ApiErrorDetail => typeof d === "object" && d !== null && typeof d.field === "string" && typeof d.message === "string",
+    );
+  }
+}
+
+export const isApiError = (e: unknown): e is ApiError => e instanceof ApiError;
+
+const NETWORK_MESSAGE = "We could not reach Dewline. Check your internet connection and try again.";
+const UNKNOWN_MESSAGE = "Something went wrong on our side. Please try again in a moment.";
+
+const UNSAFE_METHODS = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+let csrfToken: string | null = null;
+let csrfRequest: Promise<string> | null = null;
+
+/** Stores the token the server handed out (after sign-in the session is new, so is the token). */
+export function setCsrfToken(token: string | null): void {
+  csrfToken = token;
+  csrfRequest = null;
+}
+
+/** Forgets the token (after sign-out): the next unsafe request fetches a fresh one. */
+export function clearCsrfToken(): void {
+  setCsrfToken(null);
+}
+
+async function fetchCsrfToken(): Promise<string> {
+  const body = await request<{ csrfToken: string }>("GET", "/auth/csrf", {});
+  return body.csrfToken;
+}
+
+async function getCsrfToken(): Promise<string> {
+  if (csrfToken) return csrfToken;
+  // Several requests at once share one token fetch.
+  csrfRequest ??= fetchCsrfToken().then(
+    (token) => {
+      csrfToken = token;
+      csrfRequest = null;
+      return token;
+    },
+    (err: unknown) => {
+      csrfRequest = null;
+      throw err;
+    },
+  );
+  return csrfRequest;
+}
+
+export type QueryValue = string | number | boolean | null | undefined;
+
+export interface RequestOptions {
+  body?: unknown;
+  query?: Record<string, QueryValue>;
+  signal?: AbortSignal;
+}
+
+function buildUrl(path: string, query?: Record<string, QueryValue>): string {
+  const url = `/api${path.startsWith("/") ? path : `/${path}`}`;
+  if (!query) return url;
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) {
+    if (value === undefined || value === null || value === "") continue;
+    params.set(key, String(value));
+  }
+  const qs = params.toString();
+  return qs ? `${url}?${qs}` : url;
+}
+
+async function toApiError(res: Response): Promise<ApiError> {
+  let payload: unknown = null;
+  try {
+    payload = await res.json();
+  } catch {
+    // Not JSON (a proxy page, an empty body): fall back to a general message.
+  }
+  const err = (payload as { error?: { code?: unknown; message?: unknown; details?: unknown } } | null)?.error;
+  if (err && typeof err.message === "string") {
+    return new ApiError(res.status, typeof err.code === "string" ? err.code : "error", err.message, err.details);
+  }
+  return new ApiError(res.status, res.status === 404 ? "not_found" : "http_error", UNKNOWN_MESSAGE);
+}
+
+async function send(method: string, path: string, options: RequestOptions, token: string | null): Promise<Response> {
+  const headers: Record<string, string> = { Accept: "application/json" };
+  if (options.body !== undefined) headers["Content-Type"] = "application/json";
+  if (token) headers["X-CSRF-Token"] = token;
+  try {
+    return await fetch(buildUrl(path, options.query), {
+      method,
+      headers,
+      credentials: "same-origin",
+      body: options.body !== undefined ? JSON.stringify(options.body) : undefined,
+      signal: options.signal,
+    });
+  } catch (e) {
+    if (e instanceof DOMException && e.name === "AbortError") throw e;
+    throw new ApiError(0, "network_error", NETWORK_MESSAGE);
+  }
+}
+
+async function request<T>(method: string, path: string, options: RequestOptions): Promise<T> {
+  const unsafe = UNSAFE_METHODS.has(method);
+  let res = await send(method, path, options, unsafe ? await getCsrfToken() : null);
+
+  if (!res.ok && unsafe && res.status === 403) {
+    const error = await toApiError(res);
+    if (error.code !== "csrf_invalid") throw error;
+    // The session (and its token) may have changed since we cached it: fetch once more, retry once.
+    clearCsrfToken();
+    res = await send(method, path, options, await getCsrfToken());
+  }
+
+  if (!res.ok) throw await toApiError(res);
+  if (res.status === 204 || res.headers.get("Content-Length") === "0") return undefined as T;
+  const text = await res.text();
+  if (!text) return undefined as T;
+  try {
+    return JSON.parse(text) as T;
+  } catch {
+    throw new ApiError(res.status, "invalid_response", UNKNOWN_MESSAGE);
+  }
+}
+
+export const api = {
+  get: <T>(path: string, options: Omit<RequestOptions, "body"> = {}) => request<T>("GET", path, options),
+  post: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) => request<T>("POST", path, { ...options, body }),
+  put: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) => request<T>("PUT", path, { ...options, body }),
+  patch: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) => request<T>("PATCH", path, { ...options, body }),
+  delete: <T>(path: string, options: Omit<RequestOptions, "body"> = {}) => request<T>("DELETE", path, options),
+};
+
+/** The message to show a person for any thrown value. */
+export function errorMessage(error: unknown, fallback = UNKNOWN_MESSAGE): string {
+  if (error instanceof ApiError) {
+    // A 400 names the field first ("token: This link is not valid."); the detail reads better.
+    const first = error.status === 400 ? error.fieldErrors[0] : undefined;
+    return first?.message ?? error.message;
+  }
+  return fallback;
+}

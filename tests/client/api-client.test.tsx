@@ -1,0 +1,104 @@
+import { beforeEach, describe, expect, it } from "vitest";
+import { ApiError, api, clearCsrfToken, errorMessage, setCsrfToken } from "@/lib/api-client";
+import { apiError, mockApi } from "./support/api-mock";
+
+describe("api client", () => {
+  beforeEach(() => clearCsrfToken());
+
+  it("fetches the CSRF token once and sends it on every state-changing request", async () => {
+    const { callsTo } = mockApi({
+      "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },
+      "PATCH /api/users/7": { body: { id: 7, status: "disabled" } },
+      "GET /api/users": { body: { items: [], total: 0, page: 1, pageSize: 25 } },
+    });
+
+    await api.get("/users");
+    await api.patch("/users/7", { status: "disabled" });
+    await api.patch("/users/7", { status: "disabled" });
+
+    expect(callsTo("GET", "/api/auth/csrf")).toHaveLength(1);
+    const [getUsers] = callsTo("GET", "/api/users");
+    expect(getUsers!.headers.get("X-CSRF-Token")).toBeNull();
+    for (const call of callsTo("PATCH", "/api/users/7")) {
+      expect(call.headers.get("X-CSRF-Token")).toBe("token-1");
+      expect(call.body).toEqual({ status: "disabled" });
+    }
+  });
+
+  it("refetches the token and retries once when the server says it is invalid", async () => {
+    let issued = 0;
+    const { callsTo } = mockApi({
+      "GET /api/auth/csrf": () => ({ body: { csrfToken: `token-${++issued}` } }),
+      "POST /api/auth/invitations": (call) =>
+        call.headers.get("X-CSRF-Token") === "token-2"
+          ? { status: 201, body: { userId: 9, expiresAt: "2026-01-04T10:00:00.000Z" } }
+          : apiError(403, "csrf_invalid", "The security token of this request is missing or out of date. Reload the page and try again."),
+    });
+
+    const result = await api.post("/auth/invitations", { email: "a@example.org", name: "A", role: "officer" });
+
+    expect(result).toEqual({ userId: 9, expiresAt: "2026-01-04T10:00:00.000Z" });
+    expect(callsTo("GET", "/api/auth/csrf")).toHaveLength(2);
+    expect(callsTo("POST", "/api/auth/invitations").map((c) => c.headers.get("X-CSRF-Token"))).toEqual(["token-1", "token-2"]);
+  });
+
+  it("retries only once: a second csrf_invalid reaches the caller as an ApiError", async () => {
+    const { callsTo } = mockApi({
+      "GET /api/auth/csrf": { body: { csrfToken: "stale" } },
+      "POST /api/auth/logout": apiError(403, "csrf_invalid", "The security token of this request is missing or out of date."),
+    });
+
+    const error = await api.post("/auth/logout").catch((e: unknown) => e);
+
+    expect(error).toBeInstanceOf(ApiError);
+    expect(error).toMatchObject({ status: 403, code: "csrf_invalid" });
+    expect(callsTo("POST", "/api/auth/logout")).toHaveLength(2);
+  });
+
+  it("does not retry other 403s", async () => {
+    const { callsTo } = mockApi({
+      "GET /api/auth/csrf": { body: { csrfToken: "t" } },
+      "PATCH /api/users/1": apiError(403, "role_not_allowed", "Your account is not allowed to use this part of Dewline."),
+    });
+    await expect(api.patch("/users/1", { status: "active" })).rejects.toMatchObject({ code: "role_not_allowed" });
+    expect(callsTo("PATCH", "/api/users/1")).toHaveLength(1);
+  });
+
+  it("uses a token handed over by sign-in, and fetches a new one after it is dropped", async () => {
+    const { callsTo } = mockApi({
+      "GET /api/auth/csrf": { body: { csrfToken: "fresh" } },
+      "POST /api/auth/logout": { status: 204 },
+    });
+
+    setCsrfToken("from-login");
+    await api.post("/auth/logout");
+    clearCsrfToken();
+    await api.post("/auth/logout");
+
+    expect(callsTo("POST", "/api/auth/logout").map((c) => c.headers.get("X-CSRF-Token"))).toEqual(["from-login", "fresh"]);
+  });
+
+  it("turns the server's error shape into an ApiError with status, code, message and details", async () => {
+    const details = [{ field: "email", message: "Enter a valid e-mail address, like name@example.org." }];
+    mockApi({
+      "GET /api/auth/csrf": { body: { csrfToken: "t" } },
+      "POST /api/auth/password-reset": apiError(400, "validation_failed", "email: Enter a valid e-mail address, like name@example.org.", details),
+    });
+
+    const error = (await api.post("/auth/password-reset", { email: "nope" }).catch((e: unknown) => e)) as ApiError;
+
+    expect(error).toBeInstanceOf(ApiError);
+    expect(error.status).toBe(400);
+    expect(error.code).toBe("validation_failed");
+    expect(error.fieldErrors).toEqual(details);
+    expect(errorMessage(error)).toBe("Enter a valid e-mail address, like name@example.org.");
+  });
+
+  it("reports a network failure in plain words", async () => {
+    mockApi({});
+    globalThis.fetch = (async () => {
+      throw new TypeError("Failed to fetch");
+    }) as typeof fetch;
+    await expect(api.get("/auth/me")).rejects.toMatchObject({ status: 0, code: "network_error" });
+  });
+});

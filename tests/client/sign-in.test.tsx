@@ -1,0 +1,113 @@
+import { screen, within } from "@testing-library/react";
+import userEvent from "@testing-library/user-event";
+import { beforeEach, describe, expect, it } from "vitest";
+import { clearCsrfToken } from "@/lib/api-client";
+import { apiError, mockApi, propertyPage, unauthenticated, users } from "./support/api-mock";
+import { renderApp } from "./support/render-app";
+
+describe("sign-in page", () => {
+  beforeEach(() => clearCsrfToken());
+
+  it("checks the fields before sending anything", async () => {
+    const { callsTo } = mockApi({ "GET /api/auth/me": unauthenticated });
+    renderApp("/sign-in");
+    const user = userEvent.setup();
+
+    expect(await screen.findByRole("heading", { level: 1, name: "Sign in" })).toBeInTheDocument();
+    await user.click(screen.getByRole("button", { name: "Sign in" }));
+
+    const email = screen.getByLabelText("E-mail address");
+    expect(email).toHaveAccessibleDescription("Enter your e-mail address.");
+    expect(email).toBeInvalid();
+    expect(screen.getByLabelText("Password")).toHaveAccessibleDescription("Enter your password.");
+
+    await user.type(email, "not-an-address");
+    await user.click(screen.getByRole("button", { name: "Sign in" }));
+    expect(email).toHaveAccessibleDescription("Enter a valid e-mail address, like name@example.org.");
+    expect(callsTo("POST", "/api/auth/login")).toHaveLength(0);
+  });
+
+  it("shows the server's message when the e-mail and password do not match", async () => {
+    const message = "That e-mail address and password do not match an active account.";
+    const { callsTo } = mockApi({
+      "GET /api/auth/me": unauthenticated,
+      "GET /api/auth/csrf": { body: { csrfToken: "pre-login" } },
+      "POST /api/auth/login": apiError(401, "invalid_credentials", message),
+    });
+    renderApp("/sign-in");
+    const user = userEvent.setup();
+
+    await user.type(await screen.findByLabelText("E-mail address"), "officer@example.org");
+    await user.type(screen.getByLabelText("Password"), "wrong password");
+    await user.click(screen.getByRole("button", { name: "Sign in" }));
+
+    const alert = await screen.findByRole("alert");
+    expect(alert).toHaveTextContent(message);
+    const [login] = callsTo("POST", "/api/auth/login");
+    expect(login!.body).toEqual({ email: "officer@example.org", password: "wrong password" });
+    expect(login!.headers.get("X-CSRF-Token")).toBe("pre-login");
+    expect(screen.getByRole("heading", { level: 1, name: "Sign in" })).toBeInTheDocument();
+  });
+
+  it("shows when to try again after too many attempts", async () => {
+    mockApi({
+      "GET /api/auth/me": unauthenticated,
+      "GET /api/auth/csrf": { body: { csrfToken: "t" } },
+      "POST /api/auth/login": apiError(429, "too_many_requests", "Too many unsuccessful sign-in attempts. Try again in 15 minutes.", {
+        retryAfterSeconds: 900,
+      }),
+    });
+    renderApp("/sign-in");
+    const user = userEvent.setup();
+
+    await user.type(await screen.findByLabelText("E-mail address"), "officer@example.org");
+    await user.type(screen.getByLabelText("Password"), "guess");
+    await user.click(screen.getByRole("button", { name: "Sign in" }));
+
+    expect(await screen.findByRole("alert")).toHaveTextContent("Try again in 15 minutes.");
+  });
+
+  it("signs in, keeps the new CSRF token and returns to the page that asked for it", async () => {
+    let signedIn = false;
+    const { callsTo } = mockApi({
+      "GET /api/auth/me": () => (signedIn ? { body: users.officer } : unauthenticated),
+      "GET /api/auth/csrf": { body: { csrfToken: "pre-login" } },
+      "POST /api/auth/login": () => {
+        signedIn = true;
+        return { body: { user: users.officer, csrfToken: "post-login" } };
+      },
+      "POST /api/auth/logout": { status: 204 },
+      "GET /api/properties": (call) => ({ body: propertyPage(call.search) }),
+      "GET /api/properties/estates": { body: { estates: ["Kestrel Rise"] } },
+    });
+    const { router } = renderApp("/homes?page=2");
+    const user = userEvent.setup();
+
+    // Sent to sign in first, then back to the page it wanted.
+    expect(await screen.findByRole("heading", { level: 1, name: "Sign in" })).toBeInTheDocument();
+    expect(router.state.location.search).toBe(`?next=${encodeURIComponent("/homes?page=2")}`);
+    await user.type(screen.getByLabelText("E-mail address"), "officer@example.org");
+    await user.type(screen.getByLabelText("Password"), "dewline-demo");
+    await user.click(screen.getByRole("button", { name: "Sign in" }));
+
+    expect(await screen.findByRole("heading", { level: 1, name: "Homes" })).toBeInTheDocument();
+    expect(router.state.location.pathname + router.state.location.search).toBe("/homes?page=2");
+    const banner = screen.getByRole("banner");
+    expect(within(banner).getByText("Priya Venn")).toBeInTheDocument();
+    expect(within(banner).getByText("Housing officer")).toBeInTheDocument();
+
+    // Sign out uses the token from the sign-in response, then forgets it.
+    await user.click(within(banner).getByRole("button", { name: "Sign out" }));
+    expect(await screen.findByRole("heading", { level: 1, name: "Sign in" })).toBeInTheDocument();
+    expect(callsTo("POST", "/api/auth/logout")[0]!.headers.get("X-CSRF-Token")).toBe("post-login");
+    expect(screen.getByText("You have signed out.")).toBeInTheDocument();
+  });
+
+  it("links to the forgotten-password page", async () => {
+    mockApi({ "GET /api/auth/me": unauthenticated });
+    renderApp("/sign-in");
+    const user = userEvent.setup();
+    await user.click(await screen.findByRole("link", { name: "Forgot your password?" }));
+    expect(await screen.findByRole("heading", { level: 1, name: "Forgotten your password?" })).toBeInTheDocument();
+  });
+});
