@@ -47,7 +47,7 @@ try {
   step(`Starting the mail catcher (SMTP 127.0.0.1:${config.smtp.port}, inbox on port ${config.smtp.webPort})…`);
   mailCatcher = spawn(
     process.execPath,
-    ["node_modules/maildev/dist/bin/maildev.js", "--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "-s", String(config.smtp.port), "-w", String(config.smtp.webPort), "--silent"],
+    ["node_modules/maildev/bin/maildev", "--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "-s", String(config.smtp.port), "-w", String(config.smtp.webPort), "--silent"],
     { cwd: projectRoot, stdio: ["ignore", "ignore", "inherit"] },
   );
   mailCatcher.once("exit", (code) => {
