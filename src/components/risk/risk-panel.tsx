@@ -1,0 +1,183 @@
+// The risk engine's answer for one reading, in words and numbers. Presentational only: the
+// calculator, the tenant's report and the officer's case view each pass it a result.
+import { useId, type ReactNode } from "react";
+import { CRITICAL_TEMPERATURE_FACTOR, type PointResult, type SurfaceResult, type SurfaceState } from "@/lib/domain";
+import { celsius, factor, fixed, percent } from "@/lib/domain/wording";
+import { cn } from "@/lib/cn";
+import { STATE_LABELS, SURFACE_SOURCE_LABELS } from "./state-labels";
+
+export interface RiskPanelProps {
+  result: PointResult;
+  /** A heading for the panel; without one the panel is a plain group inside its parent's section. */
+  title?: ReactNode;
+  /** Heading level of the title, so the page outline stays right (2 by default). */
+  headingLevel?: 2 | 3;
+  /** Badge and key numbers only, with the reasons folded away: for lists and side panels. */
+  compact?: boolean;
+  className?: string;
+}
+
+const badgeTones: Record<SurfaceState, string> = {
+  condensing: "border-risk-condensing-edge bg-risk-condensing-bg text-risk-condensing-fg",
+  "mould-risk": "border-risk-mould-edge bg-risk-mould-bg text-risk-mould-fg",
+  borderline: "border-risk-borderline-edge bg-risk-borderline-bg text-risk-borderline-fg",
+  dry: "border-risk-dry-edge bg-risk-dry-bg text-risk-dry-fg",
+};
+
+export function RiskPanel({ result, title, headingLevel = 2, compact = false, className }: RiskPanelProps) {
+  const headingId = useId();
+  const { surface } = result;
+  const state = STATE_LABELS[surface.state];
+  const Heading = headingLevel === 2 ? "h2" : "h3";
+  const Tag = title ? "section" : "div";
+
+  return (
+    <Tag
+      aria-labelledby={title ? headingId : undefined}
+      className={cn("flex flex-col rounded-lg border border-line bg-surface shadow-card", compact ? "gap-3 p-3" : "gap-4 p-4 sm:p-5", className)}
+    >
+      {title ? (
+        <Heading id={headingId} className={cn("font-bold text-ink", headingLevel === 2 ? "text-xl" : "text-lg")}>
+          {title}
+        </Heading>
+      ) : null}
+
+      <div className={cn("flex items-start gap-3 rounded-md border-2", compact ? "px-3 py-2" : "px-4 py-3", badgeTones[surface.state])}>
+        <StateIcon state={surface.state} className={cn("shrink-0", compact ? "size-6" : "size-8")} />
+        <div className="flex flex-col gap-0.5">
+          <p className={cn("font-bold", compact ? "text-base" : "text-lg")}>
+            <span className="sr-only">Surface state: </span>
+            <span>{state.label}</span>
+          </p>
+          <p className={compact ? "text-sm" : undefined}>{state.summary}</p>
+        </div>
+      </div>
+      {compact ? null : <p className="text-ink-soft">{state.explanation}</p>}
+
+      <dl className={cn("grid gap-x-4", compact ? "grid-cols-1 gap-y-1 text-sm sm:grid-cols-2" : "grid-cols-1 gap-y-3 sm:grid-cols-2")}>
+        <Figure term="Dew point" value={celsius(result.dewPointC)}>
+          {compact ? null : "Any surface colder than this gets wet."}
+        </Figure>
+        <Figure term="Surface temperature" value={celsius(surface.temperatureC)}>
+          {capitalise(SURFACE_SOURCE_LABELS[surface.source])}. {compact ? null : dewPointGap(surface.temperatureC, result.dewPointC)}
+        </Figure>
+        <Figure term="Relative humidity at the surface" value={surfaceHumidity(surface)}>
+          {surface.relativeHumidityPct >= 100 ? "Saturated: the air at the surface can hold no more water." : null}
+        </Figure>
+        {surface.temperatureFactor !== undefined ? (
+          <Figure term="Temperature factor" value={factor(surface.temperatureFactor)}>
+            {temperatureFactorWords(surface)}
+          </Figure>
+        ) : null}
+        <Figure term="Absolute humidity" value={`${fixed(result.absoluteHumidityGPerM3, 1)} g/m³`}>
+          {compact ? null : "Grams of water vapour in each cubic metre of room air."}
+        </Figure>
+      </dl>
+
+      {result.reasons.length ? (
+        compact ? (
+          <details className="text-sm">
+            <summary className="cursor-pointer rounded-sm font-semibold text-dew-700">Why this result</summary>
+            <Reasons reasons={result.reasons} />
+          </details>
+        ) : (
+          <div>
+            <p className="font-bold">Why this result</p>
+            <Reasons reasons={result.reasons} />
+          </div>
+        )
+      ) : null}
+    </Tag>
+  );
+}
+
+function Figure({ term, value, children }: { term: string; value: string; children?: ReactNode }) {
+  return (
+    <div className="flex flex-col">
+      <dt className="text-sm font-semibold text-ink-soft">{term}</dt>
+      <dd className="flex flex-col">
+        <span className="text-lg font-bold text-ink tabular-nums">{value}</span>
+        {children ? <span className="text-sm text-ink-soft">{children}</span> : null}
+      </dd>
+    </div>
+  );
+}
+
+function Reasons({ reasons }: { reasons: readonly string[] }) {
+  return (
+    <ul className="mt-1 list-disc space-y-1 pl-5">
+      {reasons.map((reason) => (
+        <li key={reason}>{reason}</li>
+      ))}
+    </ul>
+  );
+}
+
+/** The engine keeps the raw ratio (above 100 below the dew point); air cannot be wetter than saturated. */
+function surfaceHumidity(surface: SurfaceResult): string {
+  return surface.relativeHumidityPct >= 100 ? "100 %" : percent(surface.relativeHumidityPct);
+}
+
+function dewPointGap(surfaceC: number, dewPointC: number): string {
+  const gap = surfaceC - dewPointC;
+  const size = `${fixed(Math.abs(gap), 1)} °C`;
+  if (size === "0.0 °C") return "At the dew point.";
+  return gap < 0 ? `${size} colder than the dew point.` : `${size} warmer than the dew point.`;
+}
+
+function temperatureFactorWords(surface: SurfaceResult): string {
+  const value = surface.temperatureFactor ?? 0;
+  const basis =
+    surface.source === "estimated"
+      ? "Typical for the element chosen, on a scale from as cold as outdoors (0) to as warm as the room (1)"
+      : "From the temperatures given, on a scale from as cold as outdoors (0) to as warm as the room (1)";
+  // Compare the value as shown, so "0.75" never reads as below 0.75.
+  const meets = Number(factor(value)) >= CRITICAL_TEMPERATURE_FACTOR;
+  return meets
+    ? `${basis}. At or above the ${CRITICAL_TEMPERATURE_FACTOR} that BRE IP 1/06 asks of surfaces in homes.`
+    : `${basis}. Below the ${CRITICAL_TEMPERATURE_FACTOR} that BRE IP 1/06 asks of surfaces in homes: it runs cold when it is cold outside.`;
+}
+
+const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+
+/** Our own icons, one shape per state so the badge reads without colour. */
+function StateIcon({ state, className }: { state: SurfaceState; className?: string }) {
+  const common = { viewBox: "0 0 32 32", className, "aria-hidden": true, focusable: false } as const;
+  switch (state) {
+    case "condensing":
+      // Three drops running down a pane.
+      return (
+        <svg {...common}>
+          <path d="M9 5c-2.4 3.6-4 6-4 8.2a4 4 0 0 0 8 0C13 11 11.4 8.6 9 5z" fill="currentColor" />
+          <path d="M21 3c-2 3-3.4 5-3.4 6.9a3.4 3.4 0 0 0 6.8 0C24.4 8 23 6 21 3z" fill="currentColor" />
+          <path d="M17 16c-2.6 3.9-4.4 6.5-4.4 8.9a4.4 4.4 0 0 0 8.8 0c0-2.4-1.8-5-4.4-8.9z" fill="currentColor" />
+        </svg>
+      );
+    case "mould-risk":
+      // A warning triangle with spots inside.
+      return (
+        <svg {...common}>
+          <path d="M16 3 30 28H2L16 3z" fill="none" stroke="currentColor" strokeWidth="2.5" strokeLinejoin="round" />
+          <circle cx="16" cy="15" r="2.2" fill="currentColor" />
+          <circle cx="12" cy="22" r="2" fill="currentColor" />
+          <circle cx="20" cy="22" r="2" fill="currentColor" />
+        </svg>
+      );
+    case "borderline":
+      // A half-filled gauge.
+      return (
+        <svg {...common}>
+          <circle cx="16" cy="16" r="12" fill="none" stroke="currentColor" strokeWidth="2.5" />
+          <path d="M16 4a12 12 0 0 1 0 24z" fill="currentColor" />
+        </svg>
+      );
+    case "dry":
+      // A tick in a circle.
+      return (
+        <svg {...common}>
+          <circle cx="16" cy="16" r="12" fill="none" stroke="currentColor" strokeWidth="2.5" />
+          <path d="m10 16.5 4 4 8-9" fill="none" stroke="currentColor" strokeWidth="3" strokeLinecap="round" strokeLinejoin="round" />
+        </svg>
+      );
+  }
+}
