@@ -7,6 +7,11 @@ import { createDataSource } from "./db/create-data-source.js";
 import { createLogger, type Logger } from "./lib/logger.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
 import { AuthService } from "./modules/auth/auth.service.js";
+import { CaseService } from "./modules/cases/case.service.js";
+import { EvaluationService } from "./modules/evaluation/evaluation.service.js";
+import { PhotoService } from "./modules/photos/photo.service.js";
+import { ReadingImportService } from "./modules/readings/reading-import.service.js";
+import { ReadingService } from "./modules/readings/reading.service.js";
 import { MailService } from "./modules/mail/mail.service.js";
 import { PropertyService } from "./modules/properties/property.service.js";
 import { TenancyService } from "./modules/tenancies/tenancy.service.js";
@@ -14,6 +19,11 @@ import { UserService } from "./modules/users/user.service.js";
 
 export interface Services {
   auth: AuthService;
+  cases: CaseService;
+  evaluation: EvaluationService;
+  imports: ReadingImportService;
+  photos: PhotoService;
+  readings: ReadingService;
   mail: MailService;
   properties: PropertyService;
   tenancies: TenancyService;
@@ -36,7 +46,12 @@ export function createServices(config: Config, dataSource: DataSource, mailer: M
   const tenancies = new TenancyService(dataSource);
   const users = new UserService(dataSource);
   const auth = new AuthService(dataSource, config, mail, properties, tenancies);
-  return { auth, mail, properties, tenancies, users };
+  const cases = new CaseService(dataSource, config, mail, properties, tenancies);
+  const photos = new PhotoService(dataSource, config, cases);
+  const readings = new ReadingService(dataSource, cases);
+  const imports = new ReadingImportService(dataSource, cases);
+  const evaluation = new EvaluationService(cases, readings);
+  return { auth, cases, evaluation, imports, mail, photos, properties, readings, tenancies, users };
 }
 
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */

@@ -9,6 +9,9 @@ import type { AppContext } from "./app-context.js";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.js";
 import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
+import { createCasesRouter, createMyCasesRouter } from "./modules/cases/cases.routes.js";
+import { createPhotosRouter } from "./modules/photos/photos.routes.js";
+import { createReadingsRouter } from "./modules/readings/readings.routes.js";
 import { createHealthRouter } from "./modules/health/health.routes.js";
 import { createPropertiesRouter } from "./modules/properties/properties.routes.js";
 import { openApiDocument } from "./modules/psychrometrics/openapi.js";
@@ -66,6 +69,10 @@ export function createApp(ctx: AppContext): Express {
 
   api.use("/auth", createAuthRouter({ config, auth: services.auth, passport, csrfToken: generateToken }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
+  api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
+  api.use("/cases", createCasesRouter({ cases: services.cases, photos: services.photos }));
+  api.use("/cases", createReadingsRouter({ cases: services.cases, readings: services.readings, imports: services.imports, evaluation: services.evaluation }));
+  api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties }));
   api.use("/users", createUsersRouter({ users: services.users }));
   api.use(apiNotFound);

@@ -1,3 +1,8 @@
+import { CaseEvent } from "../modules/cases/case-event.entity.js";
+import { Case } from "../modules/cases/case.entity.js";
+import { Photo } from "../modules/photos/photo.entity.js";
+import { ReadingImport } from "../modules/readings/reading-import.entity.js";
+import { Reading } from "../modules/readings/reading.entity.js";
 import { UserToken } from "../modules/auth/user-token.entity.js";
 import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
 import { Organisation } from "../modules/organisations/organisation.entity.js";
@@ -6,4 +11,4 @@ import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
 
-export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail];
+export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport];

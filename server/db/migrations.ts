@@ -1,5 +1,6 @@
 // Every migration, in order. A newly generated migration is added here by hand (see DEVELOPERS.md),
 // so the app, the CLI and the tests load exactly the same list without file globbing.
 import { Foundation1796180785107 } from "./migrations/1796180785107-Foundation.js";
+import { CasesPhotosReadings1796181981716 } from "./migrations/1796181981716-CasesPhotosReadings.js";
 
-export const migrations = [Foundation1796180785107];
+export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716];

@@ -11,7 +11,15 @@ interface HttpLikeError {
 }
 
 /** Errors from libraries (body parser, CSRF, multer) that carry their own HTTP meaning. */
-function fromLibrary(err: HttpLikeError): AppError | null {
+function fromLibrary(err: HttpLikeError & { name?: string; field?: string }): AppError | null {
+  if (err.name === "MulterError") {
+    if (err.code === "LIMIT_FILE_SIZE") return new AppError(413, "payload_too_large", "A file is too large: each photo can be at most 15 MB.");
+    if (err.code === "LIMIT_FILE_COUNT") return new AppError(400, "too_many_files", "Send at most 10 photos at a time.");
+    if (err.code === "LIMIT_UNEXPECTED_FILE") {
+      return new AppError(400, "too_many_files", `Unexpected file field "${err.field ?? ""}", or too many files: send at most 10 photos at a time in the "photos" field.`);
+    }
+    return new AppError(400, "bad_upload", "The upload could not be read. Please try again.");
+  }
   if (err.code === "EBADCSRFTOKEN" || err.code === "csrf_invalid") {
     return new AppError(403, "csrf_invalid", "The security token of this request is missing or out of date. Reload the page and try again.");
   }

@@ -80,7 +80,15 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           lazy: async () => ({ Component: (await import("./routes/app/root")).default }),
           errorElement: <RootRouteError />,
           children: [
-            gate(["tenant"], [page("home", () => import("./routes/tenant/home"))]),
+            gate(
+              ["tenant"],
+              [
+                page("home", () => import("./routes/tenant/home")),
+                page("report", () => import("./routes/tenant/report")),
+                page("cases", () => import("./routes/tenant/cases")),
+                page("cases/:id", () => import("./routes/tenant/case")),
+              ],
+            ),
             gate(["officer"], [page("queue", () => import("./routes/staff/queue"))]),
             gate(["maintenance"], [page("works", () => import("./routes/staff/works"))]),
             gate(STAFF, [page("homes", () => import("./routes/staff/homes"))]),

@@ -1,6 +1,7 @@
 /**
- * The one way the client talks to the server: JSON under /api, same-origin cookies, a CSRF token
- * on every state-changing request, and one error shape (`ApiError`) for everything that fails.
+ * The one way the client talks to the server: JSON under /api (or FormData for uploads), same-origin
+ * cookies, a CSRF token on every state-changing request, and one error shape (`ApiError`) for
+ * everything that fails.
  */
 
 export interface ApiErrorDetail {
@@ -109,14 +110,16 @@ async function toApiError(res: Response): Promise<ApiError> {
 
 async function send(method: string, path: string, options: RequestOptions, token: string | null): Promise<Response> {
   const headers: Record<string, string> = { Accept: "application/json" };
-  if (options.body !== undefined) headers["Content-Type"] = "application/json";
+  // Multipart bodies go as they are: the browser sets the Content-Type with its boundary.
+  const multipart = typeof FormData !== "undefined" && options.body instanceof FormData;
+  if (options.body !== undefined && !multipart) headers["Content-Type"] = "application/json";
   if (token) headers["X-CSRF-Token"] = token;
   try {
     return await fetch(buildUrl(path, options.query), {
       method,
       headers,
       credentials: "same-origin",
-      body: options.body !== undefined ? JSON.stringify(options.body) : undefined,
+      body: options.body === undefined ? undefined : multipart ? (options.body as FormData) : JSON.stringify(options.body),
       signal: options.signal,
     });
   } catch (e) {

@@ -33,6 +33,33 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
+  caseAcknowledgement(d: { name: string; reference: string; address: string; link: string; organisationName: string }): RenderedMail {
+    return {
+      subject: `We have your report ${d.reference}`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `Thank you for telling us about damp or mould at ${d.address}. Your reference is ${d.reference}.`,
+        "",
+        `What happens next: ${d.organisationName} will look into every report, whatever any readings show. An officer will review it and contact you about an inspection. You can follow the case, add photos or readings, and tell us if it gets worse at:`,
+        d.link,
+        "",
+        "If water is coming through a ceiling near lights or sockets, or you smell gas, call your landlord's emergency line straight away.",
+      ].join("\n"),
+    };
+  },
+  caseAlert(d: { reference: string; address: string; reasons: string[]; link: string }): RenderedMail {
+    return {
+      subject: `Priority damp report ${d.reference}: ${d.address}`,
+      text: [
+        `A new damp or mould report, ${d.reference} at ${d.address}, needs prompt attention:`,
+        "",
+        ...d.reasons.map((r) => `- ${r}`),
+        "",
+        d.link,
+      ].join("\n"),
+    };
+  },
 } as const;
 
 export type MailTemplateName = keyof typeof mailTemplates;

@@ -25,6 +25,11 @@ export class MailService {
    * record it is about exists), returning a function that sends it once the transaction has committed.
    */
   async enqueue<T extends MailTemplateName>(manager: EntityManager, mail: SendMail<T>): Promise<() => Promise<OutboxEmail>> {
+    return (await this.enqueueWithId(manager, mail)).deliver;
+  }
+
+  /** As enqueue, also telling the outbox row's id (case timelines link to it). */
+  async enqueueWithId<T extends MailTemplateName>(manager: EntityManager, mail: SendMail<T>): Promise<{ outboxId: number; deliver: () => Promise<OutboxEmail> }> {
     const render = mailTemplates[mail.template] as (d: typeof mail.data) => { subject: string; text: string };
     const rendered = render(mail.data);
     const row = await manager.getRepository(OutboxEmail).save(
@@ -38,7 +43,7 @@ export class MailService {
         status: "pending",
       }),
     );
-    return () => this.deliver(row, rendered.text);
+    return { outboxId: row.id, deliver: () => this.deliver(row, rendered.text) };
   }
 
   async send<T extends MailTemplateName>(mail: SendMail<T>): Promise<OutboxEmail> {

@@ -75,3 +75,5 @@ export {
 export type { MouldIndexPoint, SeriesGap, SeriesInput, SeriesReading, SeriesResult } from "./series.js";
 export { HIGH_AIR_RH_PCT, MIN_OBSERVED_HOURS, diagnose } from "./diagnosis.js";
 export type { Diagnosis, DiagnosisFacts, DiagnosisKind } from "./diagnosis.js";
+export { elementsForReport, glazingElement, wallElement } from "./home-elements.js";
+export type { GlazingKind, WallKind } from "./home-elements.js";

@@ -9,6 +9,7 @@ import { roleLabels, type Role } from "@/lib/roles";
 const navByRole: Record<Role, NavItem[]> = {
   tenant: [
     { to: "/home", label: "My home" },
+    { to: "/cases", label: "My reports" },
     { to: "/calculator", label: "Dew point calculator" },
   ],
   officer: [

@@ -1,16 +1,22 @@
 import type { QueryClient } from "@tanstack/react-query";
 import { Alert } from "@/components/ui/alert";
+import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { LoadingState } from "@/components/ui/spinner";
 import { signedInAs } from "@/features/auth/api/require-role";
 import { myHomeQueryOptions, useMyHome } from "@/features/my-home/api/get-my-home";
 import { HomeSummary } from "@/features/my-home/components/home-summary";
-import { ReportComingSoon } from "@/features/my-home/components/report-coming-soon";
+import { myCasesQueryOptions } from "@/features/cases/api/get-my-cases";
+import { MyCases } from "@/features/cases/components/case-list";
+import { StartReport } from "@/features/report/components/start-report";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { streetAddress } from "@/lib/homes";
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
-  if (await signedInAs(queryClient, ["tenant"])) void queryClient.prefetchQuery(myHomeQueryOptions());
+  if (await signedInAs(queryClient, ["tenant"])) {
+    void queryClient.prefetchQuery(myHomeQueryOptions());
+    void queryClient.prefetchQuery(myCasesQueryOptions());
+  }
   return null;
 };
 
@@ -35,7 +41,10 @@ export default function MyHomePage() {
         </Alert>
       ) : (
         <div className="flex flex-col gap-5">
-          <ReportComingSoon />
+          <StartReport />
+          <Panel title="Your reports" id="home-reports">
+            <MyCases limit={3} headingLevel={3} emptyAction={false} />
+          </Panel>
           <HomeSummary home={home.data} />
         </div>
       )}

@@ -1,0 +1,93 @@
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, JoinTable, ManyToMany, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from "typeorm";
+import type { Area, CaseStatus, Channel, Duration, Location, Observation, Vulnerability } from "../../../src/lib/schemas/case-report.js";
+import { Property } from "../properties/property.entity.js";
+import { Room } from "../properties/room.entity.js";
+
+export interface Equipment {
+  heatingUsable?: string;
+  extractorFanWorks?: string;
+  trickleVentsOpen?: string;
+}
+
+/** One report of damp, condensation or mould at a home, from the first moment to closure. */
+@Entity({ name: "cases" })
+@Index("idx_cases_org_status", ["organisationId", "status"])
+@Index("idx_cases_property", ["propertyId", "createdAt"])
+@Index("idx_cases_tenant", ["tenantUserId", "createdAt"])
+export class Case {
+  @PrimaryGeneratedColumn({ type: "int", unsigned: true })
+  id: number;
+
+  /** e.g. DW-2026-00042: the year the landlord became aware and the case id. */
+  @Index("uq_cases_reference", { unique: true })
+  @Column({ type: "varchar", length: 20, nullable: true })
+  reference: string | null;
+
+  @Column({ name: "organisation_id", type: "int", unsigned: true })
+  organisationId: number;
+
+  @Column({ name: "property_id", type: "int", unsigned: true })
+  propertyId: number;
+
+  @ManyToOne(() => Property, { onDelete: "RESTRICT" })
+  @JoinColumn({ name: "property_id" })
+  property?: Property;
+
+  @ManyToMany(() => Room)
+  @JoinTable({ name: "case_rooms", joinColumn: { name: "case_id" }, inverseJoinColumn: { name: "room_id" } })
+  rooms?: Room[];
+
+  /** Who entered the report: the tenant, or the staff member who logged it. */
+  @Column({ name: "reporter_user_id", type: "int", unsigned: true })
+  reporterUserId: number;
+
+  /** The tenant the case is about, when known; they follow it online. */
+  @Column({ name: "tenant_user_id", type: "int", unsigned: true, nullable: true })
+  tenantUserId: number | null;
+
+  @Column({ type: "varchar", length: 20 })
+  channel: Channel;
+
+  /** When the landlord became aware: legal deadlines run from here (UTC). */
+  @Column({ name: "aware_at", type: "datetime", precision: 3 })
+  awareAt: Date;
+
+  @Column({ type: "text" })
+  description: string;
+
+  @Column({ type: "simple-json" })
+  locations: Location[];
+
+  @Column({ type: "simple-json" })
+  observations: Observation[];
+
+  @Column({ type: "varchar", length: 20, nullable: true })
+  since: Duration | null;
+
+  @Column({ type: "varchar", length: 10, nullable: true })
+  area: Area | null;
+
+  /** null: the tenant skipped the question; []: none of these. */
+  @Column({ type: "simple-json", nullable: true })
+  vulnerability: Vulnerability[] | null;
+
+  /** Denormalised from `vulnerability` for filtering. */
+  @Column({ name: "vulnerable_household", type: "boolean", default: false })
+  vulnerableHousehold: boolean;
+
+  @Column({ type: "simple-json", nullable: true })
+  equipment: Equipment | null;
+
+  @Column({ type: "varchar", length: 20, default: "new" })
+  status: CaseStatus;
+
+  /** Set once officers have been told of a risky or vulnerable report, so they are told once. */
+  @Column({ name: "officers_alerted_at", type: "datetime", precision: 3, nullable: true })
+  officersAlertedAt: Date | null;
+
+  @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })
+  createdAt: Date;
+
+  @UpdateDateColumn({ name: "updated_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)", onUpdate: "CURRENT_TIMESTAMP(3)" })
+  updatedAt: Date;
+}

@@ -1,0 +1,33 @@
+import type { CaseEvent } from "./case-event.entity.js";
+import type { Case } from "./case.entity.js";
+
+export const toCaseDto = (c: Case) => ({
+  id: c.id,
+  reference: c.reference,
+  status: c.status,
+  channel: c.channel,
+  awareAt: c.awareAt.toISOString(),
+  createdAt: c.createdAt.toISOString(),
+  description: c.description,
+  locations: c.locations,
+  observations: c.observations,
+  since: c.since,
+  area: c.area,
+  vulnerability: c.vulnerability,
+  equipment: c.equipment,
+  property: c.property
+    ? { id: c.property.id, addressLine1: c.property.addressLine1, addressLine2: c.property.addressLine2, town: c.property.town, postcode: c.property.postcode, estate: c.property.estate }
+    : { id: c.propertyId },
+  rooms: (c.rooms ?? []).map((r) => ({ id: r.id, name: r.name, kind: r.kind })),
+  homeRooms: (c.property?.rooms ?? []).map((r) => ({ id: r.id, name: r.name, kind: r.kind })),
+});
+export type CaseDto = ReturnType<typeof toCaseDto>;
+
+export const toCaseEventDto = ({ event, actor }: { event: CaseEvent; actor: { name: string; role: string } | null }) => ({
+  id: Number(event.id),
+  type: event.type,
+  at: event.createdAt.toISOString(),
+  actor,
+  before: event.before,
+  after: event.after,
+});

@@ -1,0 +1,244 @@
+import { In, type DataSource, type EntityManager } from "typeorm";
+import type { CaseReport, StaffCaseReport } from "../../../src/lib/schemas/case-report.js";
+import type { Config } from "../../config/env.js";
+import { NotFoundError, ValidationError } from "../../lib/errors.js";
+import { isStaff, type Actor } from "../auth/actor.js";
+import type { MailTemplateName } from "../mail/mail-templates.js";
+import type { MailService, SendMail } from "../mail/mail.service.js";
+import { Organisation } from "../organisations/organisation.entity.js";
+import type { Property } from "../properties/property.entity.js";
+import type { PropertyService } from "../properties/property.service.js";
+import { Room } from "../properties/room.entity.js";
+import { Tenancy } from "../tenancies/tenancy.entity.js";
+import type { TenancyService } from "../tenancies/tenancy.service.js";
+import { User } from "../users/user.entity.js";
+import { CaseEvent } from "./case-event.entity.js";
+import { Case } from "./case.entity.js";
+
+export const formatReference = (awareAt: Date, id: number) => `DW-${awareAt.getUTCFullYear()}-${String(id).padStart(5, "0")}`;
+export const addressOf = (p: Pick<Property, "addressLine1" | "town" | "postcode">) => `${p.addressLine1}, ${p.town} ${p.postcode}`;
+
+const VULNERABILITY_WORDS: Record<string, string> = {
+  "children-under-15": "children under 15",
+  "over-65": "someone over 65",
+  "breathing-or-immune": "someone with a breathing or immune condition",
+  pregnancy: "a pregnancy",
+  disability: "someone with a disability",
+};
+
+/** Case lifecycle start, access and history. Every change is written with its CaseEvent in one transaction. */
+export class CaseService {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly config: Config,
+    private readonly mail: MailService,
+    private readonly properties: PropertyService,
+    private readonly tenancies: TenancyService,
+  ) {}
+
+  async recordEvent(m: EntityManager, e: { caseId: number; actorId: number | null; type: string; before?: Record<string, unknown> | null; after?: Record<string, unknown> | null }) {
+    await m.getRepository(CaseEvent).save(
+      m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before: e.before ?? null, after: e.after ?? null }),
+    );
+  }
+
+  /** A tenant reports for their own home; staff log a report on a tenant's behalf with its channel and awareness date. */
+  async create(actor: Actor, input: CaseReport | StaffCaseReport): Promise<Case> {
+    let property: Property;
+    let tenantUserId: number | null;
+    let channel: Case["channel"];
+    let awareAt: Date;
+    if (isStaff(actor)) {
+      const staff = input as StaffCaseReport;
+      property = await this.properties.getForStaff(actor, staff.propertyId);
+      tenantUserId = staff.tenantUserId ?? (await this.currentTenantOf(property.id));
+      if (staff.tenantUserId !== undefined && !(await this.livesAt(staff.tenantUserId, property.id))) {
+        throw new ValidationError("tenantUserId: that tenant does not live at this home.", [{ field: "tenantUserId", message: "That tenant does not live at this home." }]);
+      }
+      channel = staff.channel;
+      awareAt = new Date(staff.awareAt);
+      if (awareAt.getTime() > Date.now() + 60_000) {
+        throw new ValidationError("awareAt: the date the landlord became aware cannot be in the future.", [{ field: "awareAt", message: "Cannot be in the future." }]);
+      }
+    } else {
+      const home = await this.tenancies.homeOf(actor);
+      const wanted = input.propertyId;
+      if (wanted !== undefined && wanted !== home.property.id) throw new NotFoundError("No such home.");
+      property = home.property;
+      tenantUserId = actor.id;
+      channel = "tenant-online";
+      awareAt = new Date();
+    }
+    const roomIds = [...new Set(input.roomIds ?? [])];
+    const propertyRooms = new Set((property.rooms ?? []).map((r) => r.id));
+    const strange = roomIds.filter((id) => !propertyRooms.has(id));
+    if (strange.length) {
+      throw new ValidationError("roomIds: choose rooms of this home.", [{ field: "roomIds", message: `Room ${strange.join(", ")} is not part of this home.` }]);
+    }
+
+    const { saved, deliveries } = await this.dataSource.transaction(async (m) => {
+      const repo = m.getRepository(Case);
+      const vulnerability = input.vulnerability === undefined ? null : [...new Set(input.vulnerability)];
+      const row = repo.create({
+        organisationId: property.organisationId,
+        propertyId: property.id,
+        reporterUserId: actor.id,
+        tenantUserId,
+        channel,
+        awareAt,
+        description: input.description,
+        locations: input.locations,
+        observations: input.observations,
+        since: input.since ?? null,
+        area: input.area ?? null,
+        vulnerability,
+        vulnerableHousehold: (vulnerability?.length ?? 0) > 0,
+        equipment: input.equipment ?? null,
+        status: "new",
+        reference: null,
+        officersAlertedAt: null,
+      });
+      const saved = await repo.save(row);
+      saved.reference = formatReference(awareAt, saved.id);
+      await repo.update(saved.id, { reference: saved.reference });
+      if (roomIds.length) {
+        await m.createQueryBuilder().relation(Case, "rooms").of(saved.id).add(roomIds);
+      }
+      await this.recordEvent(m, {
+        caseId: saved.id,
+        actorId: actor.id,
+        type: "case-created",
+        after: {
+          reference: saved.reference,
+          status: "new",
+          channel,
+          awareAt: awareAt.toISOString(),
+          description: saved.description,
+          locations: saved.locations,
+          observations: saved.observations,
+          roomIds,
+          since: saved.since,
+          area: saved.area,
+          vulnerability,
+        },
+      });
+      const deliveries: (() => Promise<unknown>)[] = [];
+      const organisation = await m.getRepository(Organisation).findOneByOrFail({ id: property.organisationId });
+      if (tenantUserId !== null) {
+        const tenant = await m.getRepository(User).findOneByOrFail({ id: tenantUserId });
+        deliveries.push(
+          await this.queueMail(m, saved, {
+            to: tenant.email,
+            template: "caseAcknowledgement",
+            data: { name: tenant.name, reference: saved.reference, address: addressOf(property), link: `${this.config.appUrl}/cases/${saved.id}`, organisationName: organisation.name },
+          }),
+        );
+      }
+      if (saved.vulnerableHousehold) {
+        const reasons = [`The household includes ${vulnerability!.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`];
+        deliveries.push(...(await this.alertOfficers(m, saved, property, reasons)));
+      }
+      return { saved, deliveries };
+    });
+    for (const deliver of deliveries) await deliver();
+    return saved;
+  }
+
+  /**
+   * E-mails every active officer of the case's landlord once per case (the first time a report is
+   * risky or vulnerable), inside the caller's transaction; returns the senders to run after commit.
+   */
+  async alertOfficers(m: EntityManager, c: Case, property: Property, reasons: string[]): Promise<(() => Promise<unknown>)[]> {
+    if (c.officersAlertedAt) return [];
+    const officers = await m.getRepository(User).findBy({ organisationId: c.organisationId, role: "officer", status: "active" });
+    c.officersAlertedAt = new Date();
+    await m.getRepository(Case).update(c.id, { officersAlertedAt: c.officersAlertedAt });
+    const out: (() => Promise<unknown>)[] = [];
+    for (const officer of officers) {
+      out.push(
+        await this.queueMail(m, c, {
+          to: officer.email,
+          template: "caseAlert",
+          data: { reference: c.reference!, address: addressOf(property), reasons, link: `${this.config.appUrl}/cases/${c.id}` },
+        }),
+      );
+    }
+    return out;
+  }
+
+  /** Alerts officers in a transaction of its own (used after readings are added). */
+  async alertOfficersNow(c: Case, reasons: string[]): Promise<void> {
+    const deliveries = await this.dataSource.transaction(async (m) => {
+      const fresh = await m.getRepository(Case).findOne({ where: { id: c.id }, lock: { mode: "pessimistic_write" } });
+      if (!fresh || fresh.officersAlertedAt) return [];
+      return this.alertOfficers(m, fresh, c.property!, reasons);
+    });
+    for (const d of deliveries) await d();
+  }
+
+  /** Queues an e-mail about the case and records it on the case's timeline. */
+  private async queueMail<T extends MailTemplateName>(m: EntityManager, c: Case, mail: Pick<SendMail<T>, "to" | "template" | "data">) {
+    const { deliver, outboxId } = await this.mail.enqueueWithId(m, { ...mail, organisationId: c.organisationId, related: { type: "case", id: c.id } });
+    await this.recordEvent(m, { caseId: c.id, actorId: null, type: "email-queued", after: { outboxId, to: mail.to, template: mail.template } });
+    return deliver;
+  }
+
+  private async currentTenantOf(propertyId: number): Promise<number | null> {
+    const today = new Date().toISOString().slice(0, 10);
+    const row = await this.dataSource
+      .getRepository(Tenancy)
+      .createQueryBuilder("t")
+      .where("t.property_id = :propertyId AND t.start_date <= :today AND (t.end_date IS NULL OR t.end_date >= :today)", { propertyId, today })
+      .orderBy("t.start_date", "DESC")
+      .getOne();
+    return row?.tenantUserId ?? null;
+  }
+
+  private async livesAt(tenantUserId: number, propertyId: number): Promise<boolean> {
+    return (await this.currentTenantOf(propertyId)) === tenantUserId ||
+      (await this.dataSource.getRepository(Tenancy).existsBy({ tenantUserId, propertyId }));
+  }
+
+  /**
+   * The case if the actor may see it: staff of its landlord, or the tenant it is about.
+   * Anything else is a 404, so a case's existence is never revealed.
+   */
+  async getForActor(actor: Actor, id: number, m: EntityManager = this.dataSource.manager): Promise<Case> {
+    const c = await m.getRepository(Case).findOne({ where: { id }, relations: { rooms: true, property: { rooms: true } } });
+    const allowed = c && (isStaff(actor) ? c.organisationId === actor.organisationId : c.tenantUserId === actor.id);
+    if (!c || !allowed) throw new NotFoundError("No such case.");
+    return c;
+  }
+
+  async listForTenant(actor: Actor): Promise<Case[]> {
+    return this.dataSource.getRepository(Case).find({
+      where: { tenantUserId: actor.id },
+      relations: { property: true, rooms: true },
+      order: { createdAt: "DESC" },
+      take: 200,
+    });
+  }
+
+  async events(actor: Actor, id: number) {
+    const c = await this.getForActor(actor, id);
+    const events = await this.dataSource.getRepository(CaseEvent).find({ where: { caseId: c.id }, order: { id: "ASC" } });
+    const actorIds = [...new Set(events.map((e) => e.actorUserId).filter((v): v is number => v !== null))];
+    const users = actorIds.length ? await this.dataSource.getRepository(User).findBy({ id: In(actorIds) }) : [];
+    const names = new Map(users.map((u) => [u.id, { name: u.name, role: u.role }]));
+    return events.map((e) => ({ event: e, actor: e.actorUserId === null ? null : (names.get(e.actorUserId) ?? null) }));
+  }
+
+  /** "It's got worse": recorded on the timeline, and officers are told if they have not been yet. */
+  async reportWorse(actor: Actor, id: number, note: string): Promise<void> {
+    const deliveries = await this.dataSource.transaction(async (m) => {
+      const c = await this.getForActor(actor, id, m);
+      await this.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "tenant-got-worse", after: { note } });
+      return this.alertOfficers(m, c, c.property!, [`The tenant says it has got worse: "${note}"`]);
+    });
+    for (const d of deliveries) await d();
+  }
+
+  roomsOf(c: Case): Room[] {
+    return c.property?.rooms ?? [];
+  }
+}

@@ -1,0 +1,11 @@
+import type { Photo } from "./photo.entity.js";
+
+export const toPhotoDto = (p: Photo) => ({
+  id: p.id,
+  url: `/api/photos/${p.id}`,
+  thumbnailUrl: `/api/photos/${p.id}/thumbnail`,
+  width: p.width,
+  height: p.height,
+  sha256: p.sha256,
+  createdAt: p.createdAt.toISOString(),
+});

@@ -1,0 +1,166 @@
+// Readings of a case: typed in by hand, listed, and handed to the risk engine as a series.
+import type { DataSource, EntityManager } from "typeorm";
+import type { SeriesReading } from "../../../src/lib/domain/series.js";
+import { ValidationError } from "../../lib/errors.js";
+import { AIR_TEMPERATURE_C, OUTDOOR_TEMPERATURE_C, RELATIVE_HUMIDITY_PCT, SURFACE_TEMPERATURE_C } from "./csv/limits.js";
+import { round2 } from "./csv/numbers.js";
+import { toSqlUtc } from "./csv/rows.js";
+import type { ReadingSource } from "./reading.entity.js";
+
+export interface ManualReading {
+  roomId: number;
+  takenAt: Date;
+  airTemperatureC: number;
+  relativeHumidityPct: number;
+  surfaceTemperatureC?: number;
+  outdoorTemperatureC?: number;
+}
+
+export interface ReadingView {
+  id: number;
+  roomId: number;
+  /** UTC, whole seconds. */
+  takenAt: Date;
+  airTemperatureC: number;
+  relativeHumidityPct: number;
+  surfaceTemperatureC: number | null;
+  outdoorTemperatureC: number | null;
+  source: ReadingSource;
+  importId: number | null;
+}
+
+/** A reading as the risk engine takes it, with the time as a Date. */
+export type SeriesPoint = SeriesReading & { at: Date };
+
+/** Most readings list() returns when no limit is given. */
+export const DEFAULT_LIST_LIMIT = 100_000;
+const INSERT_CHUNK = 1_000;
+
+interface ReadingRow {
+  id: string;
+  room_id: number;
+  taken_at: Date;
+  air_temperature_c: string;
+  relative_humidity_pct: string;
+  surface_temperature_c: string | null;
+  outdoor_temperature_c: string | null;
+  source: ReadingSource;
+  import_id: number | null;
+}
+
+const num = (v: string | null): number | null => (v === null ? null : Number(v));
+
+function checkManual(readings: readonly ManualReading[]): void {
+  const details: { field: string; message: string }[] = [];
+  const range = (i: number, field: string, v: number | undefined, r: { min: number; max: number }, required: boolean) => {
+    if (v === undefined || v === null) {
+      if (required) details.push({ field: `${i}.${field}`, message: `${field} is required.` });
+    } else if (!Number.isFinite(v) || v < r.min || v > r.max) {
+      details.push({ field: `${i}.${field}`, message: `${field} must be between ${r.min} and ${r.max} °C.` });
+    }
+  };
+  readings.forEach((r, i) => {
+    if (!Number.isInteger(r.roomId) || r.roomId <= 0) details.push({ field: `${i}.roomId`, message: "roomId must be a room of this home." });
+    if (!(r.takenAt instanceof Date) || Number.isNaN(r.takenAt.getTime())) details.push({ field: `${i}.takenAt`, message: "takenAt must be a date and time." });
+    range(i, "airTemperatureC", r.airTemperatureC, AIR_TEMPERATURE_C, true);
+    range(i, "surfaceTemperatureC", r.surfaceTemperatureC, SURFACE_TEMPERATURE_C, false);
+    range(i, "outdoorTemperatureC", r.outdoorTemperatureC, OUTDOOR_TEMPERATURE_C, false);
+    const rh = r.relativeHumidityPct;
+    if (!Number.isFinite(rh) || rh <= RELATIVE_HUMIDITY_PCT.above || rh > RELATIVE_HUMIDITY_PCT.max) {
+      details.push({ field: `${i}.relativeHumidityPct`, message: "relativeHumidityPct must be more than 0 and at most 100 %." });
+    }
+  });
+  if (details.length > 0) throw new ValidationError(`${details[0].field}: ${details[0].message}`, details);
+}
+
+/** Writes the case timeline entry inside the readings' own transaction (CaseService does). */
+export interface CaseEventRecorder {
+  recordEvent(m: EntityManager, e: { caseId: number; actorId: number | null; type: string; after?: Record<string, unknown> | null }): Promise<void>;
+}
+
+export class ReadingService {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly events: CaseEventRecorder,
+  ) {}
+
+  /**
+   * Adds readings typed in by hand, in one transaction. A reading at a time the room already has
+   * (to the second) is skipped and counted as a duplicate, as with imports.
+   * The case's timeline records who added them, in the same transaction.
+   */
+  async addManual(caseId: number, readings: readonly ManualReading[], options: { actorId: number }): Promise<{ imported: number; duplicates: number }> {
+    checkManual(readings);
+    if (readings.length === 0) return { imported: 0, duplicates: 0 };
+    return this.dataSource.transaction(async (m) => {
+      let imported = 0;
+      for (let start = 0; start < readings.length; start += INSERT_CHUNK) {
+        const chunk = readings.slice(start, start + INSERT_CHUNK);
+        const params: unknown[] = [];
+        for (const r of chunk) {
+          params.push(
+            caseId,
+            r.roomId,
+            toSqlUtc(Math.floor(r.takenAt.getTime() / 1000) * 1000),
+            round2(r.airTemperatureC),
+            round2(r.relativeHumidityPct),
+            r.surfaceTemperatureC === undefined || r.surfaceTemperatureC === null ? null : round2(r.surfaceTemperatureC),
+            r.outdoorTemperatureC === undefined || r.outdoorTemperatureC === null ? null : round2(r.outdoorTemperatureC),
+          );
+        }
+        const values = chunk.map(() => "(?,?,?,?,?,?,?,'manual',NULL)").join(",");
+        const result: { affectedRows: number } = await m.query(
+          "INSERT IGNORE INTO readings (case_id, room_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c, source, import_id) VALUES " +
+            values,
+          params,
+        );
+        imported += result.affectedRows;
+      }
+      const duplicates = readings.length - imported;
+      const roomIds = [...new Set(readings.map((r) => r.roomId))];
+      await this.events.recordEvent(m, { caseId, actorId: options.actorId, type: "readings-added", after: { imported, duplicates, roomIds, roomId: roomIds[0] } });
+      return { imported, duplicates };
+    });
+  }
+
+  /** Readings of a case (one room, or all), oldest first; at most `limit` (the oldest ones). */
+  async list(caseId: number, opts: { roomId?: number; limit?: number } = {}): Promise<ReadingView[]> {
+    const limit = Math.max(1, Math.min(opts.limit ?? DEFAULT_LIST_LIMIT, 1_000_000));
+    const rows: ReadingRow[] = await this.dataSource.query(
+      "SELECT id, room_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c, source, import_id " +
+        `FROM readings WHERE case_id = ?${opts.roomId === undefined ? "" : " AND room_id = ?"} ORDER BY taken_at, room_id, id LIMIT ?`,
+      opts.roomId === undefined ? [caseId, limit] : [caseId, opts.roomId, limit],
+    );
+    return rows.map((r) => ({
+      id: Number(r.id),
+      roomId: r.room_id,
+      takenAt: r.taken_at,
+      airTemperatureC: Number(r.air_temperature_c),
+      relativeHumidityPct: Number(r.relative_humidity_pct),
+      surfaceTemperatureC: num(r.surface_temperature_c),
+      outdoorTemperatureC: num(r.outdoor_temperature_c),
+      source: r.source,
+      importId: r.import_id,
+    }));
+  }
+
+  /** A case's readings (one room, or all) oldest first, shaped for the risk engine's evaluateSeries. */
+  async seriesFor(caseId: number, roomId?: number): Promise<SeriesPoint[]> {
+    const rows: Pick<ReadingRow, "taken_at" | "air_temperature_c" | "relative_humidity_pct" | "surface_temperature_c" | "outdoor_temperature_c">[] =
+      await this.dataSource.query(
+        "SELECT taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c " +
+          `FROM readings WHERE case_id = ?${roomId === undefined ? "" : " AND room_id = ?"} ORDER BY taken_at, room_id, id`,
+        roomId === undefined ? [caseId] : [caseId, roomId],
+      );
+    return rows.map((r) => {
+      const reading: SeriesPoint = {
+        at: r.taken_at,
+        airTemperatureC: Number(r.air_temperature_c),
+        relativeHumidityPct: Number(r.relative_humidity_pct),
+      };
+      if (r.surface_temperature_c !== null) reading.surfaceTemperatureC = Number(r.surface_temperature_c);
+      if (r.outdoor_temperature_c !== null) reading.outdoorTemperatureC = Number(r.outdoor_temperature_c);
+      return reading;
+    });
+  }
+}

@@ -1,0 +1,106 @@
+import { rm } from "node:fs/promises";
+import { Router, type RequestHandler } from "express";
+import multer from "multer";
+import { parse } from "../../lib/validation.js";
+import { ValidationError } from "../../lib/errors.js";
+import { actorOf } from "../../middleware/auth.js";
+import type { CaseService } from "../cases/case.service.js";
+import { uploadTmpDir } from "../cases/upload-dir.js";
+import type { EvaluationService } from "../evaluation/evaluation.service.js";
+import { idParamsSchema } from "../properties/properties.schemas.js";
+import type { ReadingImportService } from "./reading-import.service.js";
+import type { ReadingService } from "./reading.service.js";
+import { importFieldsSchema, importParamsSchema, manualReadingsSchema, readingsQuerySchema } from "./readings.schemas.js";
+
+/** A logger export of a year at one-minute intervals is ~30 MB; allow generous headroom. */
+const MAX_CSV_BYTES = 200 * 1024 * 1024;
+
+interface Deps {
+  cases: CaseService;
+  readings: ReadingService;
+  imports: ReadingImportService;
+  evaluation: EvaluationService;
+}
+
+/** Mounted at /api/cases: `/:id/readings…` and `/:id/evaluation`. */
+export function createReadingsRouter({ cases, readings, imports, evaluation }: Deps): Router {
+  const router = Router();
+  const csvUpload = multer({ dest: uploadTmpDir, limits: { fileSize: MAX_CSV_BYTES, files: 1, fields: 10 } }).single("file");
+
+  /** Checks the case and the room before anything is uploaded; puts the case on res.locals. */
+  const caseAccess: RequestHandler = async (req, res, next) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    res.locals.case = await cases.getForActor(actorOf(req), id);
+    next();
+  };
+  const requireRoomOfCase = (roomIds: number[], caseRooms: { id: number }[]) => {
+    const ok = new Set(caseRooms.map((r) => r.id));
+    const bad = roomIds.filter((r) => !ok.has(r));
+    if (bad.length) throw new ValidationError("roomId: choose a room of this home.", [{ field: "roomId", message: `Room ${bad.join(", ")} is not part of this home.` }]);
+  };
+
+  router.get("/:id/readings", caseAccess, async (req, res) => {
+    const { roomId } = parse(readingsQuerySchema, req.query, "query");
+    const rows = await readings.list(res.locals.case.id, { roomId, limit: 50_000 });
+    res.json({ readings: rows });
+  });
+
+  router.post("/:id/readings", caseAccess, async (req, res) => {
+    const input = parse(manualReadingsSchema, req.body);
+    const c = res.locals.case;
+    requireRoomOfCase(input.map((r) => r.roomId), cases.roomsOf(c));
+    const result = await readings.addManual(
+      c.id,
+      input.map((r) => ({ ...r, takenAt: new Date(r.takenAt) })),
+      { actorId: actorOf(req).id },
+    );
+    await evaluation.alertIfRisky(actorOf(req), c.id);
+    res.status(201).json({ ...result, rejected: 0 });
+  });
+
+  router.post("/:id/readings/import/preview", caseAccess, csvUpload, async (req, res) => {
+    const file = req.file;
+    if (!file) throw new ValidationError("file: choose a CSV file.", [{ field: "file", message: "Choose a CSV file." }]);
+    try {
+      res.json(await imports.preview(file.path));
+    } finally {
+      await rm(file.path, { force: true });
+    }
+  });
+
+  router.post("/:id/readings/import", caseAccess, csvUpload, async (req, res) => {
+    const file = req.file;
+    try {
+      if (!file) throw new ValidationError("file: choose a CSV file.", [{ field: "file", message: "Choose a CSV file." }]);
+      const fields = parse(importFieldsSchema, req.body);
+      const c = res.locals.case;
+      requireRoomOfCase([fields.roomId], cases.roomsOf(c));
+      const result = await imports.import({
+        caseId: c.id,
+        roomId: fields.roomId,
+        actorId: actorOf(req).id,
+        filePath: file.path,
+        fileName: file.originalname,
+        mapping: fields.mapping as never,
+      });
+      await evaluation.alertIfRisky(actorOf(req), c.id);
+      res.status(201).json(result);
+    } finally {
+      if (file) await rm(file.path, { force: true });
+    }
+  });
+
+  router.get("/:id/readings/imports/:importId/rejected.csv", async (req, res) => {
+    const { id, importId } = parse(importParamsSchema, req.params, "params");
+    const c = await cases.getForActor(actorOf(req), id);
+    const csv = await imports.rejectedReport(c.id, importId);
+    res.type("text/csv").attachment(`rejected-rows-import-${importId}.csv`).send(csv);
+  });
+
+  router.get("/:id/evaluation", async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    res.json(await evaluation.forCase(actorOf(req), id));
+  });
+
+  return router;
+}

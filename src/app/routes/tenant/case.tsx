@@ -1,0 +1,300 @@
+import { useQueryClient, type QueryClient } from "@tanstack/react-query";
+import { useEffect, useRef, useState, type ReactNode, type RefObject } from "react";
+import { Link, useLocation, useNavigate, useParams, type LoaderFunctionArgs } from "react-router-dom";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { Panel } from "@/components/ui/card";
+import { LoadingState } from "@/components/ui/spinner";
+import { PageHeader } from "@/components/ui/page-header";
+import { signedInAs } from "@/features/auth/api/require-role";
+import { caseKeys } from "@/features/cases/api/cases-keys";
+import { caseQueryOptions, useCase } from "@/features/cases/api/get-case";
+import { caseEvaluationQueryOptions, useCaseEvaluation } from "@/features/cases/api/get-case-evaluation";
+import { caseEventsQueryOptions, useCaseEvents } from "@/features/cases/api/get-case-events";
+import { useCasePhotos } from "@/features/cases/api/get-case-photos";
+import { useCaseReadings } from "@/features/cases/api/get-case-readings";
+import { caseTitle, type CaseDto } from "@/features/cases/api/types";
+import { CaseEvaluationView } from "@/features/cases/components/case-evaluation";
+import { StatusBadge } from "@/features/cases/components/case-status";
+import { CaseTimeline } from "@/features/cases/components/case-timeline";
+import { LandlordMessages } from "@/features/cases/components/landlord-messages";
+import { PhotoGallery } from "@/features/cases/components/photo-gallery";
+import { ReadingsSection } from "@/features/cases/components/readings-section";
+import { WorseButton } from "@/features/cases/components/worse-dialog";
+import { statusMeaning } from "@/features/cases/labels";
+import { AddPhotos } from "@/features/report/components/add-photos";
+import { AddReadings } from "@/features/report/components/add-readings";
+import { ReportFollowUp } from "@/features/report/components/report-follow-up";
+import { ReportSummary } from "@/features/report/components/report-summary";
+import { ApiError, errorMessage } from "@/lib/api-client";
+import { formatDate } from "@/lib/dates";
+
+const caseIdOf = (raw: string | undefined): number | null => {
+  const id = Number(raw);
+  return Number.isInteger(id) && id > 0 ? id : null;
+};
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ params }: LoaderFunctionArgs) => {
+    const id = caseIdOf(params.id);
+    if (id !== null && (await signedInAs(queryClient, ["tenant"]))) {
+      void queryClient.prefetchQuery(caseQueryOptions(id));
+      void queryClient.prefetchQuery(caseEventsQueryOptions(id));
+      void queryClient.prefetchQuery(caseEvaluationQueryOptions(id));
+    }
+    return null;
+  };
+
+function justSentFrom(state: unknown): { complete: boolean } | null {
+  if (typeof state !== "object" || state === null || (state as { justSent?: unknown }).justSent !== true) return null;
+  return { complete: (state as { complete?: unknown }).complete !== false };
+}
+
+export default function CasePage() {
+  const id = caseIdOf(useParams().id);
+  if (id === null) return <CaseNotFound />;
+  return <CaseView id={id} />;
+}
+
+function CaseNotFound({ message }: { message?: string }) {
+  return (
+    <>
+      <title>Report not found · Dewline</title>
+      <PageHeader title="Report not found" />
+      <Alert tone="info" title="We couldn't find this report">
+        <p>{message ?? "The link may be wrong, or the report may belong to another account."}</p>
+        <p className="mt-1">
+          <Link to="/cases">Go to My reports</Link>
+        </p>
+      </Alert>
+    </>
+  );
+}
+
+function CaseView({ id }: { id: number }) {
+  const queryClient = useQueryClient();
+  const location = useLocation();
+  const navigate = useNavigate();
+  const [justSent] = useState(() => justSentFrom(location.state));
+  // The thanks are for this visit only: a reload or a later visit shows the case plainly.
+  useEffect(() => {
+    if (justSentFrom(location.state)) navigate(location.pathname, { replace: true, state: null });
+  }, [location.state, location.pathname, navigate]);
+  const kase = useCase(id);
+  const refresh = () => void queryClient.invalidateQueries({ queryKey: caseKeys.detail(id) });
+
+  if (kase.isPending) return <LoadingState>Loading your report…</LoadingState>;
+  if (kase.isError) {
+    if (kase.error instanceof ApiError && kase.error.status === 404) return <CaseNotFound message={kase.error.message} />;
+    return (
+      <>
+        <title>Report · Dewline</title>
+        <PageHeader title="Your report" />
+        <Alert tone="danger" title="We couldn't load this report">
+          {errorMessage(kase.error)}
+        </Alert>
+      </>
+    );
+  }
+  const c = kase.data;
+  const title = caseTitle(c);
+
+  return (
+    <>
+      <title>{`${title} · Dewline`}</title>
+      <PageHeader
+        title={title}
+        description={
+          <span className="flex flex-col gap-1">
+            <StatusBadge status={c.status} />
+            <span>
+              Sent on {formatDate(c.createdAt)}
+              {c.property.addressLine1 ? ` · ${c.property.addressLine1}` : ""}
+            </span>
+          </span>
+        }
+      />
+      <div className="flex flex-col gap-5">
+        {justSent ? (
+          <Alert tone="success" title="Thank you. Your report has been sent">
+            <p>
+              Your reference is <strong>{title}</strong>. Your landlord has been told and will look into it.
+              {justSent.complete ? "" : " One part still needs your help, just below."}
+            </p>
+          </Alert>
+        ) : null}
+        <ReportFollowUp caseId={id} rooms={c.homeRooms} onChanged={refresh} />
+        <NextSteps c={c} onChanged={refresh} />
+        <EvaluationPanel id={id} />
+        <MessagesPanel id={id} />
+        <TimelinePanel c={c} />
+        <PhotosPanel id={id} />
+        <ReadingsPanel c={c} />
+        <Panel title="What you told us" id="case-answers">
+          <ReportSummary
+            sentAt={c.createdAt}
+            answers={{
+              description: c.description,
+              locations: c.locations,
+              observations: c.observations,
+              roomNames: c.rooms.map((r) => r.name),
+              since: c.since,
+              area: c.area,
+              vulnerability: c.vulnerability,
+              equipment: c.equipment,
+            }}
+          />
+        </Panel>
+      </div>
+    </>
+  );
+}
+
+type Action = "photos" | "readings" | null;
+
+function NextSteps({ c, onChanged }: { c: CaseDto; onChanged: () => void }) {
+  const [open, setOpen] = useState<Action>(null);
+  const actionRef = useRef<HTMLHeadingElement>(null);
+  const photosButton = useRef<HTMLButtonElement>(null);
+  const readingsButton = useRef<HTMLButtonElement>(null);
+  // Focus goes back to the button that opened the panel.
+  const close = () => {
+    (open === "photos" ? photosButton : readingsButton).current?.focus();
+    setOpen(null);
+  };
+  useEffect(() => {
+    if (open) actionRef.current?.focus();
+  }, [open]);
+  const toggle = (action: Exclude<Action, null>) => setOpen((current) => (current === action ? null : action));
+  const meaning = statusMeaning(c.status);
+
+  return (
+    <>
+      <Panel title="What happens next" id="case-next">
+        {meaning ? <p>{meaning}</p> : null}
+        <p className="mt-2">You can add to your report at any time.</p>
+        <div className="mt-3 flex flex-wrap gap-2">
+          <Button ref={photosButton} variant="secondary" aria-expanded={open === "photos"} aria-controls="case-add-photos" onClick={() => toggle("photos")}>
+            Add photos
+          </Button>
+          <Button ref={readingsButton} variant="secondary" aria-expanded={open === "readings"} aria-controls="case-add-readings" onClick={() => toggle("readings")}>
+            Add readings
+          </Button>
+          <WorseButton caseId={c.id} onReported={onChanged} />
+        </div>
+      </Panel>
+      {open === "photos" ? (
+        <ActionPanel id="case-add-photos" title="Add more photos" headingRef={actionRef} onClose={close}>
+          <AddPhotos caseId={c.id} onAdded={onChanged} />
+        </ActionPanel>
+      ) : null}
+      {open === "readings" ? (
+        <ActionPanel id="case-add-readings" title="Add more readings" headingRef={actionRef} onClose={close}>
+          <AddReadings caseId={c.id} rooms={c.homeRooms} onAdded={onChanged} headingLevel={3} />
+        </ActionPanel>
+      ) : null}
+    </>
+  );
+}
+
+interface ActionPanelProps {
+  id: string;
+  title: string;
+  headingRef: RefObject<HTMLHeadingElement | null>;
+  onClose: () => void;
+  children: ReactNode;
+}
+
+function ActionPanel({ id, title, headingRef, onClose, children }: ActionPanelProps) {
+  return (
+    <section id={id} aria-labelledby={`${id}-heading`} className="flex flex-col gap-4 rounded-lg border-2 border-dew-600 bg-surface p-4 shadow-card sm:p-5">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id={`${id}-heading`} ref={headingRef} tabIndex={-1} className="text-xl font-bold focus:outline-none">
+          {title}
+        </h2>
+        <Button variant="ghost" size="sm" onClick={onClose}>
+          Close<span className="sr-only"> {title.toLowerCase()}</span>
+        </Button>
+      </div>
+      {children}
+    </section>
+  );
+}
+
+function EvaluationPanel({ id }: { id: number }) {
+  const evaluation = useCaseEvaluation(id);
+  return (
+    <Panel title="What your readings show" id="case-evaluation">
+      {evaluation.isPending ? (
+        <LoadingState>Working out what the readings show…</LoadingState>
+      ) : evaluation.isError ? (
+        <Alert tone="warning" title="We couldn't work out the readings just now">
+          {errorMessage(evaluation.error)}
+        </Alert>
+      ) : (
+        <CaseEvaluationView evaluation={evaluation.data} emptyHint="you can add some with “Add readings” above." />
+      )}
+    </Panel>
+  );
+}
+
+function MessagesPanel({ id }: { id: number }) {
+  const events = useCaseEvents(id);
+  return (
+    <Panel title="Messages from your landlord" id="case-messages">
+      {events.isPending ? (
+        <LoadingState>Loading messages…</LoadingState>
+      ) : events.isError ? (
+        <Alert tone="warning">{errorMessage(events.error)}</Alert>
+      ) : (
+        <LandlordMessages events={events.data} />
+      )}
+    </Panel>
+  );
+}
+
+function TimelinePanel({ c }: { c: CaseDto }) {
+  const events = useCaseEvents(c.id);
+  return (
+    <Panel title="What has happened so far" id="case-timeline">
+      {events.isPending ? (
+        <LoadingState>Loading what has happened…</LoadingState>
+      ) : events.isError ? (
+        <Alert tone="warning">{errorMessage(events.error)}</Alert>
+      ) : (
+        <CaseTimeline events={events.data} rooms={c.homeRooms} />
+      )}
+    </Panel>
+  );
+}
+
+function PhotosPanel({ id }: { id: number }) {
+  const photos = useCasePhotos(id);
+  return (
+    <Panel title="Photos" id="case-photos">
+      {photos.isPending ? (
+        <LoadingState>Loading photos…</LoadingState>
+      ) : photos.isError ? (
+        <Alert tone="warning">{errorMessage(photos.error)}</Alert>
+      ) : (
+        <PhotoGallery photos={photos.data} emptyText="No photos yet" />
+      )}
+    </Panel>
+  );
+}
+
+function ReadingsPanel({ c }: { c: CaseDto }) {
+  const readings = useCaseReadings(c.id);
+  return (
+    <Panel title="Readings" id="case-readings">
+      {readings.isPending ? (
+        <LoadingState>Loading readings…</LoadingState>
+      ) : readings.isError ? (
+        <Alert tone="warning">{errorMessage(readings.error)}</Alert>
+      ) : (
+        <ReadingsSection readings={readings.data} rooms={c.homeRooms} />
+      )}
+    </Panel>
+  );
+}

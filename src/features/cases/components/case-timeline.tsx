@@ -1,0 +1,120 @@
+import type { ReactNode } from "react";
+import { formatDateTime } from "@/lib/dates";
+import { isRole, roleLabels } from "@/lib/roles";
+import type { CaseEvent, CaseRoom } from "../api/types";
+import { humanise, statusLabel, statusMeaning } from "../labels";
+
+export type Audience = "tenant" | "staff";
+
+interface CaseTimelineProps {
+  events: readonly CaseEvent[];
+  rooms: readonly CaseRoom[];
+  /** Tenants read "you"; staff read names, and see who e-mails went to. */
+  audience?: Audience;
+}
+
+interface Entry {
+  title: string;
+  detail?: ReactNode;
+}
+
+const count = (n: number, one: string, many: string) => `${n.toLocaleString("en-GB")} ${n === 1 ? one : many}`;
+const num = (v: unknown): number => (typeof v === "number" && Number.isFinite(v) ? v : 0);
+const str = (v: unknown): string | undefined => (typeof v === "string" && v.trim() ? v : undefined);
+
+function byWhom(event: CaseEvent, audience: Audience): string {
+  if (!event.actor) return "";
+  if (audience === "tenant" && event.actor.role === "tenant") return "";
+  const role = isRole(event.actor.role) ? roleLabels[event.actor.role] : humanise(event.actor.role);
+  return `${event.actor.name} (${role})`;
+}
+
+/** One plain sentence (and sometimes a detail) for each kind of event; unknown kinds still show. */
+export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audience: Audience = "tenant"): Entry {
+  const after = event.after ?? {};
+  const before = event.before ?? {};
+  const roomName = (id: unknown) => rooms.find((r) => r.id === id)?.name;
+  const you = audience === "tenant" && event.actor?.role === "tenant";
+  const who = byWhom(event, audience);
+  const inRoom = (id: unknown) => (roomName(id) ? ` for ${roomName(id)}` : "");
+
+  switch (event.type) {
+    case "case-created":
+      return { title: you ? "You sent this report." : who ? `${who} logged this report.` : "The report was received." };
+    case "email-queued": {
+      const to = str(after.to);
+      return { title: audience === "staff" && to ? `An e-mail about this report was sent to ${to}.` : "An e-mail about this report was sent." };
+    }
+    case "photos-added": {
+      const ids = Array.isArray(after.photoIds) ? after.photoIds.length : 0;
+      const what = ids ? count(ids, "photo was", "photos were") : "Photos were";
+      return { title: `${what} added${you ? " by you" : who ? ` by ${who}` : ""}.` };
+    }
+    case "readings-added": {
+      const duplicates = num(after.duplicates);
+      return {
+        title: `${count(num(after.imported), "reading was", "readings were")} added by hand${inRoom(after.roomId)}.`,
+        detail: duplicates ? `${count(duplicates, "reading was", "readings were")} already there, so ${duplicates === 1 ? "it was" : "they were"} skipped.` : undefined,
+      };
+    }
+    case "readings-imported": {
+      const duplicates = num(after.duplicates);
+      const rejected = num(after.rejected);
+      const notes = [
+        duplicates ? `${count(duplicates, "reading was", "readings were")} already there.` : "",
+        rejected ? `${count(rejected, "row", "rows")} of the file couldn't be read.` : "",
+      ].filter(Boolean);
+      return {
+        title: `${count(num(after.imported), "reading was", "readings were")} added from a logger file${inRoom(after.roomId)}.`,
+        detail: notes.length ? notes.join(" ") : undefined,
+      };
+    }
+    case "tenant-got-worse": {
+      const note = str(after.note);
+      return {
+        title: you ? "You told your landlord it has got worse." : `${who || "The tenant"} said it has got worse.`,
+        detail: note ? <blockquote className="border-l-4 border-line-strong pl-3 whitespace-pre-line">{note}</blockquote> : undefined,
+      };
+    }
+    case "status-changed": {
+      const to = str(after.status);
+      const from = str(before.status);
+      return {
+        title: to ? `The status changed to “${statusLabel(to)}”.` : "The status changed.",
+        detail: [from ? `It was “${statusLabel(from)}”.` : "", to ? (statusMeaning(to) ?? "") : ""].filter(Boolean).join(" ") || undefined,
+      };
+    }
+    case "message-to-tenant": {
+      const body = str(after.body);
+      return {
+        title: audience === "tenant" ? (who ? `${who} sent you a message.` : "Your landlord sent you a message.") : `${who || "Staff"} sent the tenant a message.`,
+        detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
+      };
+    }
+    default:
+      return { title: `${humanise(event.type)}${who ? `, by ${who}` : ""}.` };
+  }
+}
+
+/** What has happened to a case, newest first. */
+export function CaseTimeline({ events, rooms, audience = "tenant" }: CaseTimelineProps) {
+  if (events.length === 0) return <p className="text-ink-soft">Nothing has happened yet.</p>;
+  const newestFirst = [...events].sort((a, b) => Date.parse(b.at) - Date.parse(a.at) || b.id - a.id);
+  return (
+    <ol className="relative flex flex-col gap-4 border-l-2 border-dew-200 pl-5">
+      {newestFirst.map((event) => {
+        const entry = describeEvent(event, rooms, audience);
+        return (
+          <li key={event.id} className="relative">
+            <span aria-hidden="true" className="absolute top-1.5 -left-[1.6rem] size-3 rounded-pill border-2 border-dew-700 bg-surface" />
+            <p className="text-sm text-ink-soft">
+              <time dateTime={event.at}>{formatDateTime(event.at)}</time>
+            </p>
+            <p className="font-semibold">{entry.title}</p>
+            {entry.detail ? <div className="mt-1 text-ink">{entry.detail}</div> : null}
+          </li>
+        );
+      })}
+    </ol>
+  );
+}

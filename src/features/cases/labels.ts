@@ -1,0 +1,52 @@
+// Plain words for a case's status and for what has happened to it. Written for the person who
+// reported; staff views can pass their own audience later.
+import type { CaseStatus } from "@/lib/schemas/case-report";
+
+export const statusLabels: Record<CaseStatus, { label: string; meaning: string }> = {
+  new: { label: "Sent", meaning: "Your landlord has your report and will look at it soon." },
+  triaged: { label: "Being looked into", meaning: "Your landlord has read your report and is deciding what to do first." },
+  "inspection-booked": { label: "Visit booked", meaning: "Someone is coming to look at the damp or mould in your home." },
+  investigated: { label: "Visited", meaning: "Your home has been looked at, and the cause is being worked out." },
+  "works-planned": { label: "Repair planned", meaning: "Repair work has been planned." },
+  "works-done": { label: "Repair done", meaning: "The repair work has been done." },
+  monitoring: { label: "Checking it lasts", meaning: "Your landlord is checking that the problem stays fixed." },
+  closed: { label: "Finished", meaning: "This report is finished. If the damp or mould comes back, please report it again." },
+  cancelled: { label: "Withdrawn", meaning: "This report was withdrawn." },
+};
+
+export function statusLabel(status: string): string {
+  return (statusLabels as Record<string, { label: string }>)[status]?.label ?? humanise(status);
+}
+
+export function statusMeaning(status: string): string | undefined {
+  return (statusLabels as Record<string, { meaning: string }>)[status]?.meaning;
+}
+
+/** "works-planned" → "Works planned": something readable for a value we have no words for yet. */
+export function humanise(value: string): string {
+  const words = value.replace(/[-_]+/g, " ").trim();
+  return words ? words.charAt(0).toUpperCase() + words.slice(1) : value;
+}
+
+export const sourceLabels: Record<string, string> = {
+  manual: "By hand",
+  import: "Logger file",
+};
+
+/** What the readings over time point to (the engine's diagnosis kinds), said about the home. */
+export const diagnosisLabels: Record<string, { title: string; note?: string }> = {
+  "ventilation-or-moisture-load": { title: "The air indoors holds a lot of moisture for the ventilation the room has" },
+  "cold-surface": { title: "A surface in this room runs colder than it should" },
+  "likely-not-condensation": {
+    title: "This may not be condensation: water could be getting in",
+    note: "A leak, or damp coming through a wall or up from the ground, needs a survey to find.",
+  },
+  "no-risk-found": {
+    title: "These readings didn't show condensation or mould-growth conditions",
+    note: "Damp comes and goes with the weather, and some causes don't show in readings. Your landlord will still look into your report.",
+  },
+  "insufficient-data": {
+    title: "Not enough readings yet to see a pattern",
+    note: "Readings over at least a day, or a logger left for a week or two, show much more.",
+  },
+};

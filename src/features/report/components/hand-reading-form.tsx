@@ -1,0 +1,202 @@
+import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from "react";
+import { ReportStillMatters } from "@/components/risk/cautions";
+import { RiskPanel } from "@/components/risk/risk-panel";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { Input, Select } from "@/components/ui/field";
+import { evaluatePoint, type PointResult } from "@/lib/domain";
+import type { HandReading, RoomOption } from "../api/types";
+import { checkHandReading, localNow, previewInput, type HandReadingErrors, type HandReadingFields } from "../lib/hand-reading";
+
+interface HandReadingFormProps {
+  rooms: readonly RoomOption[];
+  /** Resolves true (or nothing) when the reading was kept; false keeps the fields as typed. */
+  onAdd: (reading: HandReading) => Promise<boolean | void> | boolean | void;
+  busy?: boolean;
+  /** A message from the server about the last reading. */
+  error?: string | null;
+  /** Tells the parent whether something is typed but not added yet. */
+  onDirtyChange?: (dirty: boolean) => void;
+  defaultRoomId?: number;
+  headingLevel?: 2 | 3 | 4;
+}
+
+const ORDER: (keyof HandReadingFields)[] = ["roomId", "airTemperatureC", "relativeHumidityPct", "surfaceTemperatureC", "outdoorTemperatureC", "takenAt"];
+
+const blank = (roomId: string): HandReadingFields => ({
+  roomId,
+  airTemperatureC: "",
+  relativeHumidityPct: "",
+  surfaceTemperatureC: "",
+  outdoorTemperatureC: "",
+  takenAt: localNow(),
+});
+
+/**
+ * One reading from a thermometer and hygrometer (and a surface thermometer, if there is one),
+ * with the engine's answer shown as it is typed. Not a <form>: it also sits inside the report form.
+ */
+export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defaultRoomId, headingLevel = 3 }: HandReadingFormProps) {
+  const initialRoom = defaultRoomId ?? (rooms.length === 1 ? rooms[0]!.id : undefined);
+  const [fields, setFields] = useState<HandReadingFields>(() => blank(initialRoom ? String(initialRoom) : ""));
+  const [errors, setErrors] = useState<HandReadingErrors>({});
+  const [added, setAdded] = useState<string | null>(null);
+  const previewId = useId();
+  const refs = useRef<Partial<Record<keyof HandReadingFields, HTMLInputElement | HTMLSelectElement | null>>>({});
+
+  const dirty = Boolean(fields.airTemperatureC || fields.relativeHumidityPct || fields.surfaceTemperatureC || fields.outdoorTemperatureC);
+  const dirtyRef = useRef(onDirtyChange);
+  dirtyRef.current = onDirtyChange;
+  useEffect(() => dirtyRef.current?.(dirty), [dirty]);
+
+  const preview = useMemo((): PointResult | null => {
+    const input = previewInput(fields);
+    if (!input) return null;
+    try {
+      return evaluatePoint(input);
+    } catch {
+      return null;
+    }
+  }, [fields]);
+
+  const set = (key: keyof HandReadingFields) => (e: { target: { value: string } }) => {
+    setAdded(null);
+    setFields((f) => ({ ...f, [key]: e.target.value }));
+    if (errors[key]) setErrors((prev) => ({ ...prev, [key]: undefined }));
+  };
+
+  const add = async () => {
+    const { reading, errors: found } = checkHandReading(fields);
+    setErrors(found);
+    if (!reading) {
+      const first = ORDER.find((k) => found[k]);
+      if (first) refs.current[first]?.focus();
+      return;
+    }
+    const kept = await onAdd(reading);
+    if (kept === false) return;
+    const room = rooms.find((r) => r.id === reading.roomId)?.name ?? "the room";
+    setAdded(`Reading added for ${room}.`);
+    setFields(blank(fields.roomId));
+    refs.current.airTemperatureC?.focus();
+  };
+
+  // Enter adds the reading rather than submitting a surrounding form.
+  const onKeyDown = (e: KeyboardEvent) => {
+    if (e.key === "Enter" && e.target instanceof HTMLInputElement) {
+      e.preventDefault();
+      void add();
+    }
+  };
+
+  const Heading = ({ 2: "h2", 3: "h3", 4: "h4" } as const)[headingLevel];
+  const ref = (key: keyof HandReadingFields) => (el: HTMLInputElement | HTMLSelectElement | null) => {
+    refs.current[key] = el;
+  };
+
+  if (rooms.length === 0) {
+    return (
+      <Alert tone="info" live="none" title="Readings need a room">
+        No rooms are listed for your home yet, so readings can't be added. Your landlord's team can add the rooms.
+      </Alert>
+    );
+  }
+
+  return (
+    <div className="flex flex-col gap-4" onKeyDown={onKeyDown}>
+      <Select label="Room" ref={ref("roomId")} value={fields.roomId} onChange={set("roomId")} error={errors.roomId} controlClassName="sm:max-w-xs">
+        <option value="">Choose a room</option>
+        {rooms.map((room) => (
+          <option key={room.id} value={room.id}>
+            {room.name}
+          </option>
+        ))}
+      </Select>
+      <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
+        <Input
+          label="Air temperature (°C)"
+          ref={ref("airTemperatureC")}
+          inputMode="decimal"
+          autoComplete="off"
+          value={fields.airTemperatureC}
+          onChange={set("airTemperatureC")}
+          error={errors.airTemperatureC}
+          hint="From a room thermometer, for example 18.5"
+        />
+        <Input
+          label="Relative humidity (%)"
+          ref={ref("relativeHumidityPct")}
+          inputMode="decimal"
+          autoComplete="off"
+          value={fields.relativeHumidityPct}
+          onChange={set("relativeHumidityPct")}
+          error={errors.relativeHumidityPct}
+          hint="From a hygrometer, for example 65"
+        />
+        <Input
+          label="Surface temperature (°C)"
+          optional
+          ref={ref("surfaceTemperatureC")}
+          autoComplete="off"
+          value={fields.surfaceTemperatureC}
+          onChange={set("surfaceTemperatureC")}
+          error={errors.surfaceTemperatureC}
+          hint="If you have a surface (infrared) thermometer: point it at the damp wall or window"
+        />
+        <Input
+          label="Outdoor temperature (°C)"
+          optional
+          ref={ref("outdoorTemperatureC")}
+          autoComplete="off"
+          value={fields.outdoorTemperatureC}
+          onChange={set("outdoorTemperatureC")}
+          error={errors.outdoorTemperatureC}
+          hint="From a weather app is fine. Below zero? Type a minus sign, for example -2"
+        />
+      </div>
+      <Input
+        label="When was it taken?"
+        type="datetime-local"
+        ref={ref("takenAt")}
+        value={fields.takenAt}
+        max={localNow()}
+        onChange={set("takenAt")}
+        error={errors.takenAt}
+        controlClassName="sm:max-w-xs"
+      />
+      {error ? <Alert tone="danger" title="The reading was not added">{error}</Alert> : null}
+      <div className="flex flex-wrap items-center gap-3">
+        <Button variant="secondary" onClick={() => void add()} busy={busy}>
+          Add this reading
+        </Button>
+        {dirty ? (
+          <Button
+            variant="ghost"
+            size="sm"
+            onClick={() => {
+              setFields(blank(fields.roomId));
+              setErrors({});
+            }}
+          >
+            Clear the numbers
+          </Button>
+        ) : null}
+      </div>
+      <p role="status" className="text-sm font-semibold text-moss-700">
+        {added}
+      </p>
+
+      <section aria-labelledby={`${previewId}-heading`} className="flex flex-col gap-3">
+        <Heading id={`${previewId}-heading`} className="text-lg font-bold">
+          What this reading shows
+        </Heading>
+        {preview ? (
+          <RiskPanel result={preview} compact />
+        ) : (
+          <p className="text-ink-soft">Type the air temperature and relative humidity to see the dew point and how damp the surface is.</p>
+        )}
+        <ReportStillMatters />
+      </section>
+    </div>
+  );
+}

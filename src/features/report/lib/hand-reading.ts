@@ -1,0 +1,93 @@
+// Checks a reading typed in by hand. The ranges are those the server accepts
+// (src/lib/schemas/psychrometrics.ts: air −20…50 °C, surfaces −30…50 °C, outdoors −30…40 °C,
+// 0 < RH ≤ 100 %), with messages for people rather than field names.
+import type { PointInput } from "@/lib/domain";
+import type { HandReading } from "../api/types";
+
+export interface HandReadingFields {
+  roomId: string;
+  airTemperatureC: string;
+  relativeHumidityPct: string;
+  surfaceTemperatureC: string;
+  outdoorTemperatureC: string;
+  /** datetime-local value: "2026-01-15T07:30", local time. */
+  takenAt: string;
+}
+
+export type HandReadingErrors = Partial<Record<keyof HandReadingFields, string>>;
+
+/** Accepts "19,5" as well as "19.5", and a typographic minus. */
+export function parseDecimal(text: string): number | undefined {
+  const t = text.trim().replace(",", ".").replace("\u2212", "-");
+  if (t === "") return undefined;
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)$/.test(t)) return Number.NaN;
+  return Number(t);
+}
+
+const pad = (n: number) => String(n).padStart(2, "0");
+
+/** Now, for a datetime-local input (local time, to the minute). */
+export function localNow(date = new Date()): string {
+  return `${date.getFullYear()}-${pad(date.getMonth() + 1)}-${pad(date.getDate())}T${pad(date.getHours())}:${pad(date.getMinutes())}`;
+}
+
+const inRange = (label: string, value: number | undefined, min: number, max: number, required: boolean): string | undefined => {
+  if (value === undefined) return required ? `Enter the ${label}.` : undefined;
+  if (Number.isNaN(value)) return `Enter the ${label} as a number, for example 18.5.`;
+  if (value < min || value > max) return `The ${label} should be between ${min} and ${max} °C. Please check the number.`;
+  return undefined;
+};
+
+/** The live preview only needs the air: what the engine can say so far, or null. */
+export function previewInput(fields: HandReadingFields): PointInput | null {
+  const air = parseDecimal(fields.airTemperatureC);
+  const rh = parseDecimal(fields.relativeHumidityPct);
+  if (air === undefined || rh === undefined || Number.isNaN(air) || Number.isNaN(rh)) return null;
+  if (air < -20 || air > 50 || !(rh > 0 && rh <= 100)) return null;
+  const surface = parseDecimal(fields.surfaceTemperatureC);
+  const outdoor = parseDecimal(fields.outdoorTemperatureC);
+  const input: PointInput = { airTemperatureC: air, relativeHumidityPct: rh };
+  if (surface !== undefined && !Number.isNaN(surface) && surface >= -30 && surface <= 50) input.surfaceTemperatureC = surface;
+  if (outdoor !== undefined && !Number.isNaN(outdoor) && outdoor >= -30 && outdoor <= 40) input.outdoorTemperatureC = outdoor;
+  return input;
+}
+
+export function checkHandReading(fields: HandReadingFields, now = Date.now()): { reading?: HandReading; errors: HandReadingErrors } {
+  const errors: HandReadingErrors = {};
+  const roomId = Number(fields.roomId);
+  if (!fields.roomId || !Number.isInteger(roomId) || roomId <= 0) errors.roomId = "Choose the room the reading was taken in.";
+
+  const air = parseDecimal(fields.airTemperatureC);
+  const airError = inRange("air temperature", air, -20, 50, true);
+  if (airError) errors.airTemperatureC = airError;
+
+  const rh = parseDecimal(fields.relativeHumidityPct);
+  if (rh === undefined) errors.relativeHumidityPct = "Enter the relative humidity.";
+  else if (Number.isNaN(rh)) errors.relativeHumidityPct = "Enter the relative humidity as a number, for example 65.";
+  else if (!(rh > 0 && rh <= 100)) errors.relativeHumidityPct = "Relative humidity should be more than 0 and at most 100 %. Please check the number.";
+
+  const surface = parseDecimal(fields.surfaceTemperatureC);
+  const surfaceError = inRange("surface temperature", surface, -30, 50, false);
+  if (surfaceError) errors.surfaceTemperatureC = surfaceError;
+
+  const outdoor = parseDecimal(fields.outdoorTemperatureC);
+  const outdoorError = inRange("outdoor temperature", outdoor, -30, 40, false);
+  if (outdoorError) errors.outdoorTemperatureC = outdoorError;
+
+  const at = fields.takenAt ? new Date(fields.takenAt) : new Date(Number.NaN);
+  if (Number.isNaN(at.getTime())) errors.takenAt = "Enter the date and time the reading was taken.";
+  // A few minutes' grace for a phone clock that runs ahead.
+  else if (at.getTime() > now + 5 * 60_000) errors.takenAt = "The time is in the future. Please check the date and time.";
+  else if (at.getFullYear() < 2000) errors.takenAt = "Please check the year of the reading.";
+
+  if (Object.keys(errors).length > 0) return { errors };
+  const reading: HandReading = {
+    roomId,
+    takenAt: at.toISOString(),
+    airTemperatureC: air!,
+    relativeHumidityPct: rh!,
+  };
+  if (surface !== undefined) reading.surfaceTemperatureC = surface;
+  if (outdoor !== undefined) reading.outdoorTemperatureC = outdoor;
+  return { reading, errors };
+}

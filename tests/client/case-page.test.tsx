@@ -1,0 +1,279 @@
+import { screen, waitFor, within } from "@testing-library/react";
+import userEvent from "@testing-library/user-event";
+import { beforeEach, describe, expect, it } from "vitest";
+import { evaluatePoint, evaluateSeries } from "@/lib/domain";
+import { clearCsrfToken } from "@/lib/api-client";
+import { mockApi, users, type MockReply, type RecordedCall } from "./support/api-mock";
+import { renderApp } from "./support/render-app";
+
+const homeRooms = [
+  { id: 1, name: "Living room", kind: "living" },
+  { id: 2, name: "Bedroom 1", kind: "bedroom" },
+];
+
+const theCase = {
+  id: 42,
+  reference: "DW-2026-00042",
+  status: "triaged",
+  channel: "tenant-online",
+  awareAt: "2026-01-10T08:00:00.000Z",
+  createdAt: "2026-01-10T08:00:00.000Z",
+  description: "Black mould in the bedroom corner",
+  locations: ["corner", "window"],
+  observations: ["mould-spots", "condensation"],
+  since: "months",
+  area: "a4",
+  vulnerability: ["children-under-15"],
+  equipment: { heatingUsable: "yes", extractorFanWorks: "none-fitted" },
+  property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX3 1AA", estate: "Millbeck Terraces" },
+  rooms: [{ id: 2, name: "Bedroom 1", kind: "bedroom" }],
+  homeRooms,
+};
+
+const tenantActor = { name: users.tenant.name, role: "tenant" };
+const officer = { name: "Priya Venn", role: "officer" };
+const events = [
+  { id: 1, type: "case-created", at: "2026-01-10T08:00:00.000Z", actor: tenantActor, before: null, after: null },
+  { id: 2, type: "email-queued", at: "2026-01-10T08:00:01.000Z", actor: null, before: null, after: { outboxId: 9, to: "officers@example.org", template: "case-new" } },
+  { id: 3, type: "photos-added", at: "2026-01-10T08:01:00.000Z", actor: tenantActor, before: null, after: { photoIds: [7, 8] } },
+  {
+    id: 4,
+    type: "readings-imported",
+    at: "2026-01-11T09:00:00.000Z",
+    actor: tenantActor,
+    before: null,
+    after: { importId: 3, imported: 48, duplicates: 0, rejected: 2, roomId: 2 },
+  },
+  { id: 5, type: "status-changed", at: "2026-01-12T10:00:00.000Z", actor: officer, before: { status: "new" }, after: { status: "triaged" } },
+  { id: 6, type: "message-to-tenant", at: "2026-01-12T10:05:00.000Z", actor: officer, before: null, after: { body: "We will visit on Tuesday morning." } },
+  { id: 7, type: "survey-scheduled", at: "2026-01-12T11:00:00.000Z", actor: officer, before: null, after: {} },
+];
+
+const photo = (id: number) => ({
+  id,
+  url: `/api/photos/${id}`,
+  thumbnailUrl: `/api/photos/${id}/thumbnail`,
+  width: 1600,
+  height: 1200,
+  sha256: "cd".repeat(32),
+  createdAt: "2026-01-10T08:01:00.000Z",
+});
+
+// Two days of hourly readings in the bedroom: humid air against a cold corner.
+const readings = Array.from({ length: 48 }, (_, i) => ({
+  id: i + 1,
+  roomId: 2,
+  takenAt: new Date(Date.UTC(2026, 0, 9, 0) + i * 3_600_000).toISOString(),
+  airTemperatureC: 18,
+  relativeHumidityPct: 72,
+  surfaceTemperatureC: 12.5,
+  outdoorTemperatureC: 4,
+  source: "import",
+}));
+const latest = readings[readings.length - 1]!;
+
+// The evaluation is the engine's own output for these readings, as the server would send it.
+const evaluation = {
+  statement: "Your landlord will look into this report whatever the readings show: readings help us understand the cause.",
+  rooms: [
+    {
+      roomId: 2,
+      roomName: "Bedroom 1",
+      readingsCount: readings.length,
+      latest: {
+        takenAt: latest.takenAt,
+        airTemperatureC: latest.airTemperatureC,
+        relativeHumidityPct: latest.relativeHumidityPct,
+        surfaceTemperatureC: latest.surfaceTemperatureC,
+        outdoorTemperatureC: latest.outdoorTemperatureC,
+      },
+      surfaces: [
+        {
+          element: "corner-thermal-bridge",
+          label: "External corner of a solid wall (thermal bridge) (measured surface)",
+          result: evaluatePoint({ airTemperatureC: 18, relativeHumidityPct: 72, surfaceTemperatureC: 12.5, outdoorTemperatureC: 4, element: "corner-thermal-bridge" }),
+        },
+      ],
+      series: evaluateSeries({
+        readings: readings.map((r) => ({ at: r.takenAt, airTemperatureC: r.airTemperatureC, relativeHumidityPct: r.relativeHumidityPct, surfaceTemperatureC: r.surfaceTemperatureC, outdoorTemperatureC: r.outdoorTemperatureC })),
+        element: "corner-thermal-bridge",
+      }),
+    },
+  ],
+};
+
+function caseApi(overrides: Record<string, MockReply | ((call: RecordedCall, nth: number) => MockReply)> = {}) {
+  return mockApi({
+    "GET /api/auth/me": { body: users.tenant },
+    "GET /api/auth/csrf": { body: { csrfToken: "csrf-1" } },
+    "GET /api/cases/42": { body: theCase },
+    "GET /api/cases/42/events": { body: { events } },
+    "GET /api/cases/42/photos": { body: { photos: [photo(7), photo(8)] } },
+    "GET /api/cases/42/readings": { body: { readings } },
+    "GET /api/cases/42/evaluation": { body: evaluation },
+    ...overrides,
+  });
+}
+
+async function openCase() {
+  const view = renderApp("/cases/42");
+  expect(await screen.findByRole("heading", { level: 1, name: "DW-2026-00042" })).toBeInTheDocument();
+  return view;
+}
+
+describe("case page", () => {
+  beforeEach(() => clearCsrfToken());
+
+  it("tells the story of the case in plain sentences, with the landlord's messages", async () => {
+    caseApi();
+    await openCase();
+    expect(screen.getAllByText("Being looked into").length).toBeGreaterThan(0);
+
+    const timeline = screen.getByRole("region", { name: "What has happened so far" });
+    const entries = await within(timeline).findAllByRole("listitem");
+    expect(entries).toHaveLength(events.length);
+    // Newest first.
+    expect(entries[0]).toHaveTextContent("Survey scheduled, by Priya Venn (Housing officer).");
+    expect(within(timeline).getByText("You sent this report.")).toBeInTheDocument();
+    expect(within(timeline).getByText("An e-mail about this report was sent.")).toBeInTheDocument();
+    expect(within(timeline).queryByText(/officers@example\.org/)).not.toBeInTheDocument();
+    expect(within(timeline).getByText("2 photos were added by you.")).toBeInTheDocument();
+    expect(within(timeline).getByText("48 readings were added from a logger file for Bedroom 1.")).toBeInTheDocument();
+    expect(within(timeline).getByText("2 rows of the file couldn't be read.")).toBeInTheDocument();
+    expect(within(timeline).getByText("The status changed to “Being looked into”.")).toBeInTheDocument();
+
+    const messages = screen.getByRole("region", { name: "Messages from your landlord" });
+    expect(within(messages).getByText("We will visit on Tuesday morning.")).toBeInTheDocument();
+    expect(within(messages).getByText(/Priya Venn, Housing officer/)).toBeInTheDocument();
+
+    const answers = screen.getByRole("region", { name: "What you told us" });
+    expect(within(answers).getByText("A corner of the room")).toBeInTheDocument();
+    expect(within(answers).getByText("Children under 15")).toBeInTheDocument();
+    expect(within(answers).getByText("There isn't one")).toBeInTheDocument();
+  });
+
+  it("says so kindly when there are no messages yet", async () => {
+    caseApi({ "GET /api/cases/42/events": { body: { events: events.slice(0, 2) } } });
+    await openCase();
+    const messages = screen.getByRole("region", { name: "Messages from your landlord" });
+    expect(await within(messages).findByText("No messages yet")).toBeInTheDocument();
+  });
+
+  it("shows the engine's result per room and surface, with the cautions and the promise to investigate", async () => {
+    caseApi();
+    await openCase();
+    const panel = screen.getByRole("region", { name: "What your readings show" });
+    expect(await within(panel).findByRole("heading", { level: 3, name: "Bedroom 1" })).toBeInTheDocument();
+    const result = evaluation.rooms[0]!.surfaces[0]!.result;
+    expect(result.surface.state).toBe("condensing");
+    expect(within(panel).getByText("Condensing")).toBeInTheDocument();
+    expect(within(panel).getByText(`${result.dewPointC.toFixed(1)} °C`)).toBeInTheDocument();
+    expect(within(panel).getByText(evaluation.statement)).toBeInTheDocument();
+    expect(within(panel).getByText(/Whatever these numbers say, if you see damp or mould, tell your landlord/)).toBeInTheDocument();
+    expect(within(panel).getByRole("heading", { name: "Keeping safe" })).toBeInTheDocument();
+    // The readings over time, in words.
+    for (const reason of evaluation.rooms[0]!.series.diagnosis.reasons) expect(within(panel).getByText(reason)).toBeInTheDocument();
+  });
+
+  it("shows the photos and opens one full size in a dialog that Escape closes", async () => {
+    caseApi();
+    await openCase();
+    const photos = screen.getByRole("region", { name: "Photos" });
+    const first = await within(photos).findByRole("button", { name: /Open photo 1 of 2/ });
+    expect(within(first).getByRole("presentation", { hidden: true })).toHaveAttribute("src", "/api/photos/7/thumbnail");
+
+    const user = userEvent.setup();
+    await user.click(first);
+    const dialog = await screen.findByRole("dialog", { name: "Photo 1 of 2" });
+    expect(within(dialog).getByRole("img", { name: /Photo 1 of 2/ })).toHaveAttribute("src", "/api/photos/7");
+    await user.click(within(dialog).getByRole("button", { name: /Next photo/ }));
+    expect(within(dialog).getByRole("img", { name: /Photo 2 of 2/ })).toHaveAttribute("src", "/api/photos/8");
+    await user.keyboard("{Escape}");
+    await waitFor(() => expect(screen.queryByRole("dialog")).not.toBeInTheDocument());
+    expect(first).toHaveFocus();
+  });
+
+  it("lists the readings with dew point and surface humidity worked out in the browser", async () => {
+    caseApi();
+    await openCase();
+    const table = await screen.findByRole("table", { name: /Readings in Bedroom 1, newest first/ });
+    const rows = within(table).getAllByRole("row");
+    expect(rows).toHaveLength(1 + 25);
+    // 18 °C at 72 % has a dew point of about 12.9 °C; at a 12.5 °C surface the humidity is 100 %.
+    expect(within(rows[1]!).getByText("12.9 °C")).toBeInTheDocument();
+    expect(within(rows[1]!).getByText("100 %")).toBeInTheDocument();
+    expect(screen.getByText("Showing 1–25 of 48 readings")).toBeInTheDocument();
+    await userEvent.setup().click(screen.getByRole("button", { name: /Next page/ }));
+    expect(screen.getByText("Showing 26–48 of 48 readings")).toBeInTheDocument();
+  });
+
+  it("sends “It's got worse” with a note and refreshes the timeline", async () => {
+    const { callsTo } = caseApi({ "POST /api/cases/42/worse": { status: 204 } });
+    await openCase();
+    await screen.findAllByText("You sent this report.");
+    const user = userEvent.setup();
+    const open = screen.getByRole("button", { name: "It's got worse" });
+    await user.click(open);
+    const dialog = await screen.findByRole("dialog", { name: "Tell your landlord it has got worse" });
+    const note = within(dialog).getByLabelText("What has changed?");
+    expect(note).toHaveFocus();
+    await user.click(within(dialog).getByRole("button", { name: "Send to my landlord" }));
+    expect(within(dialog).getByText("Tell us briefly what has changed.")).toBeInTheDocument();
+    await user.type(note, "The mould has spread to the wardrobe.");
+    await user.click(within(dialog).getByRole("button", { name: "Send to my landlord" }));
+
+    expect(await screen.findByText("Thank you, your landlord has been told")).toBeInTheDocument();
+    expect(callsTo("POST", "/api/cases/42/worse")[0]!.body).toEqual({ note: "The mould has spread to the wardrobe." });
+    await waitFor(() => expect(callsTo("GET", "/api/cases/42/events").length).toBeGreaterThanOrEqual(2));
+    expect(open).toHaveFocus();
+  });
+
+  it("adds a reading by hand from the case page and works out the readings again", async () => {
+    const { callsTo } = caseApi({ "POST /api/cases/42/readings": { status: 201, body: { imported: 1, duplicates: 0, rejected: 0 } } });
+    await openCase();
+    const user = userEvent.setup();
+    await user.click(screen.getByRole("button", { name: "Add readings" }));
+    const panel = screen.getByRole("region", { name: "Add more readings" });
+    await user.click(within(panel).getByRole("button", { name: "Add this reading" }));
+    expect(within(panel).getByText("Choose the room the reading was taken in.")).toBeInTheDocument();
+    expect(within(panel).getByLabelText("Room")).toHaveFocus();
+    await user.selectOptions(within(panel).getByLabelText("Room"), "Living room");
+    await user.type(within(panel).getByLabelText("Air temperature (°C)"), "21,5");
+    await user.type(within(panel).getByLabelText("Relative humidity (%)"), "55");
+    expect(within(panel).getByText("Dry")).toBeInTheDocument();
+    await user.click(within(panel).getByRole("button", { name: "Add this reading" }));
+
+    expect(await within(panel).findByText("Reading added for Living room.")).toBeInTheDocument();
+    expect(callsTo("POST", "/api/cases/42/readings")[0]!.body).toEqual([
+      { roomId: 1, takenAt: expect.stringMatching(/Z$/), airTemperatureC: 21.5, relativeHumidityPct: 55 },
+    ]);
+    await waitFor(() => expect(callsTo("GET", "/api/cases/42/evaluation").length).toBeGreaterThanOrEqual(2));
+    await user.click(within(panel).getByRole("button", { name: /^Close/ }));
+    expect(screen.getByRole("button", { name: "Add readings" })).toHaveFocus();
+  });
+
+  it("adds photos from the case page, with the server's message when one is refused", async () => {
+    const tooBig = "This photo is larger than 15 MB.";
+    const { callsTo } = caseApi({
+      "POST /api/cases/42/photos": (_call, nth) => (nth === 0 ? { status: 413, body: { error: { code: "payload_too_large", message: tooBig } } } : { status: 201, body: { photos: [photo(9)] } }),
+    });
+    await openCase();
+    const user = userEvent.setup();
+    await user.click(screen.getByRole("button", { name: "Add photos" }));
+    const panel = screen.getByRole("region", { name: "Add more photos" });
+    await user.upload(within(panel).getByLabelText("Add photos"), new File([new Uint8Array([0xff, 0xd8, 0xff])], "mould.jpg", { type: "image/jpeg" }));
+    await user.click(within(panel).getByRole("button", { name: "Send photo" }));
+    expect(await within(panel).findByText(tooBig)).toBeInTheDocument();
+    await user.click(within(panel).getByRole("button", { name: "Send photo" }));
+    expect(await within(panel).findByText("1 photo added")).toBeInTheDocument();
+    expect(callsTo("POST", "/api/cases/42/photos")).toHaveLength(2);
+    await waitFor(() => expect(callsTo("GET", "/api/cases/42/photos").length).toBeGreaterThanOrEqual(2));
+  });
+
+  it("says a report is not found rather than showing someone else's", async () => {
+    caseApi({ "GET /api/cases/43": { status: 404, body: { error: { code: "not_found", message: "No such case." } } } });
+    renderApp("/cases/43");
+    expect(await screen.findByRole("heading", { level: 1, name: "Report not found" })).toBeInTheDocument();
+    expect(screen.getByRole("link", { name: "Go to My reports" })).toHaveAttribute("href", "/cases");
+  });
+});
