@@ -4,14 +4,14 @@ import { promisify } from "node:util";
 const run = promisify(execFile);
 
 export interface SystemNeed {
-  /** A command on PATH that shows the need is met. */
-  command: string;
+  /** Commands on PATH that show the need is met (all of them). */
+  commands: string[];
   /** Debian packages that provide it. */
   packages: string[];
 }
 
-export const MARIADB: SystemNeed = { command: "mariadbd", packages: ["mariadb-server", "mariadb-client"] };
-export const CHROMIUM: SystemNeed = { command: "chromium", packages: ["chromium", "fonts-dejavu-core"] };
+export const MARIADB: SystemNeed = { commands: ["mariadbd", "mariadb-install-db", "mariadb-admin", "mariadb"], packages: ["mariadb-server", "mariadb-client"] };
+export const CHROMIUM: SystemNeed = { commands: ["chromium"], packages: ["chromium", "fonts-dejavu-core"] };
 
 async function onPath(command: string): Promise<boolean> {
   try {
@@ -25,7 +25,14 @@ async function onPath(command: string): Promise<boolean> {
 /** Installs, with apt-get, the Debian packages of every need whose command is missing. */
 export async function ensureSystemPackages(needs: SystemNeed[], log: (line: string) => void = console.log): Promise<void> {
   const missing: string[] = [];
-  for (const need of needs) if (!(await onPath(need.command))) missing.push(...need.packages);
+  for (const need of needs) {
+    for (const command of need.commands) {
+      if (!(await onPath(command))) {
+        missing.push(...need.packages);
+        break;
+      }
+    }
+  }
   if (missing.length === 0) return;
   log(`Installing Debian packages: ${missing.join(" ")} (about a minute)…`);
   const opts = { env: { ...process.env, DEBIAN_FRONTEND: "noninteractive" }, maxBuffer: 256 * 1024 * 1024 };
