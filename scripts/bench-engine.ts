@@ -14,21 +14,10 @@ import { createApp } from "../server/app.js";
 import { createAppContext } from "../server/app-context.js";
 import { loadConfig } from "../server/config/env.js";
 import { ensureAppDatabase, freePort, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
+import { mulberry32 } from "../server/lib/random.js";
 
 const HOUR_MS = 3_600_000;
 const START_MS = Date.UTC(2025, 10, 1); // 1 November 2025, a winter run
-
-/** Deterministic PRNG (mulberry32), so every run sees the same readings. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /**
  * n hourly-ish readings (55–65 min apart, the odd 4-hour gap) of plausible winter values: air

@@ -25,22 +25,11 @@ import { createMailer } from "../server/lib/mailer.js";
 import { User } from "../server/modules/users/user.entity.js";
 import { ZoneConverter } from "../server/modules/readings/csv/time-zone.js";
 import { ensureAppDatabase, freePort, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
+import { mulberry32 } from "../server/lib/random.js";
 
 const ROWS = 1_000_000;
 const START_UTC_MS = Date.UTC(2024, 10, 1); // 1 November 2024; a million minutes later is September 2026
 const MB = 1024 * 1024;
-
-/** Deterministic PRNG (mulberry32), so every run writes the same file. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const pad = (n: number) => (n < 10 ? `0${n}` : String(n));
 const wallText = (ms: number) => {

@@ -9,6 +9,7 @@ import { Property } from "../../modules/properties/property.entity.js";
 import { Room, type RoomKind } from "../../modules/properties/room.entity.js";
 import { Tenancy } from "../../modules/tenancies/tenancy.entity.js";
 import { User, type Role } from "../../modules/users/user.entity.js";
+import { mulberry32 } from "../../lib/random.js";
 
 export const DEMO_ORGANISATION = "Brackenfold Housing Association";
 const OTHER_ORGANISATION = "Fernhollow Lettings";
@@ -31,15 +32,6 @@ interface EstatePlan {
   pick(i: number): { builtForm: BuiltForm; wallType: WallType; glazingType: GlazingType; heatingType: HeatingType; block: string | null };
 }
 
-// A small deterministic generator, so every seeded database is the same.
-function mulberry32(seed: number) {
-  return () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 const rand = mulberry32(20261202);
 const choose = <T>(items: readonly T[]) => items[Math.floor(rand() * items.length)]!;
 
