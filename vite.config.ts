@@ -28,6 +28,7 @@ export default defineConfig({
           include: ["tests/client/**/*.test.tsx"],
           environment: "happy-dom",
           setupFiles: ["tests/setup/client-setup.ts"],
+          testTimeout: 20_000,
         },
       },
       {

@@ -1,6 +1,10 @@
 import "@testing-library/jest-dom/vitest";
-import { cleanup } from "@testing-library/react";
+import { cleanup, configure } from "@testing-library/react";
 import { afterEach, vi } from "vitest";
+
+// Lazy route modules load through Vite's transform on first use; on a busy 2-core machine that
+// can take longer than Testing Library's default 1 s wait, which made a find* call flaky.
+configure({ asyncUtilTimeout: 5000 });
 
 afterEach(() => {
   cleanup();
