@@ -2,5 +2,6 @@
 // so the app, the CLI and the tests load exactly the same list without file globbing.
 import { Foundation1796180785107 } from "./migrations/1796180785107-Foundation.js";
 import { CasesPhotosReadings1796181981716 } from "./migrations/1796181981716-CasesPhotosReadings.js";
+import { CaseAssigneeAndHazardClass1796184941727 } from "./migrations/1796184941727-CaseAssigneeAndHazardClass.js";
 
-export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716];
+export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716, CaseAssigneeAndHazardClass1796184941727];

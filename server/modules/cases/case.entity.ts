@@ -3,6 +3,9 @@ import type { Area, CaseStatus, Channel, Duration, Location, Observation, Vulner
 import { Property } from "../properties/property.entity.js";
 import { Room } from "../properties/room.entity.js";
 
+export const HAZARD_CLASSES = ["emergency", "significant", "not-significant"] as const;
+export type HazardClass = (typeof HAZARD_CLASSES)[number];
+
 export interface Equipment {
   heatingUsable?: string;
   extractorFanWorks?: string;
@@ -14,6 +17,7 @@ export interface Equipment {
 @Index("idx_cases_org_status", ["organisationId", "status"])
 @Index("idx_cases_property", ["propertyId", "createdAt"])
 @Index("idx_cases_tenant", ["tenantUserId", "createdAt"])
+@Index("idx_cases_org_assignee", ["organisationId", "assigneeUserId"])
 export class Case {
   @PrimaryGeneratedColumn({ type: "int", unsigned: true })
   id: number;
@@ -80,6 +84,17 @@ export class Case {
 
   @Column({ type: "varchar", length: 20, default: "new" })
   status: CaseStatus;
+
+  /** The staff member working the case; null when unassigned. */
+  @Column({ name: "assignee_user_id", type: "int", unsigned: true, nullable: true })
+  assigneeUserId: number | null;
+
+  /** The officer's classification of the hazard; null until classified. Deadlines follow it. */
+  @Column({ name: "hazard_class", type: "varchar", length: 20, nullable: true })
+  hazardClass: HazardClass | null;
+
+  @Column({ name: "hazard_class_reason", type: "text", nullable: true })
+  hazardClassReason: string | null;
 
   /** Set once officers have been told of a risky or vulnerable report, so they are told once. */
   @Column({ name: "officers_alerted_at", type: "datetime", precision: 3, nullable: true })

@@ -1,7 +1,8 @@
 import { In, type DataSource, type EntityManager } from "typeorm";
 import type { CaseReport, StaffCaseReport } from "../../../src/lib/schemas/case-report.js";
 import type { Config } from "../../config/env.js";
-import { NotFoundError, ValidationError } from "../../lib/errors.js";
+import { CASE_TRANSITIONS, canTransition, transitionNeedsReason } from "../../../src/lib/domain/case-workflow.js";
+import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
 import type { MailTemplateName } from "../mail/mail-templates.js";
 import type { MailService, SendMail } from "../mail/mail.service.js";
@@ -14,6 +15,7 @@ import type { TenancyService } from "../tenancies/tenancy.service.js";
 import { User } from "../users/user.entity.js";
 import { CaseEvent } from "./case-event.entity.js";
 import { Case } from "./case.entity.js";
+import type { CasePatch } from "./cases.schemas.js";
 
 export const formatReference = (awareAt: Date, id: number) => `DW-${awareAt.getUTCFullYear()}-${String(id).padStart(5, "0")}`;
 export const addressOf = (p: Pick<Property, "addressLine1" | "town" | "postcode">) => `${p.addressLine1}, ${p.town} ${p.postcode}`;
@@ -236,6 +238,55 @@ export class CaseService {
       return this.alertOfficers(m, c, c.property!, [`The tenant says it has got worse: "${note}"`]);
     });
     for (const d of deliveries) await d();
+  }
+
+  /**
+   * Staff change a case's status (only along the workflow: 409 otherwise), assignee or hazard
+   * classification. Each change is its own CaseEvent, written with the change in one transaction.
+   */
+  async update(actor: Actor, id: number, patch: CasePatch): Promise<Case> {
+    await this.dataSource.transaction(async (m) => {
+      await this.getForActor(actor, id, m);
+      const c = await m.getRepository(Case).findOneOrFail({ where: { id }, lock: { mode: "pessimistic_write" } });
+      const changes: Partial<Case> = {};
+      if (patch.status !== undefined && patch.status !== c.status) {
+        if (!canTransition(c.status, patch.status)) {
+          throw new ConflictError(`A case that is ${c.status} cannot move to ${patch.status}. From ${c.status} it can move to: ${CASE_TRANSITIONS[c.status].join(", ")}.`, {
+            from: c.status,
+            to: patch.status,
+            allowed: CASE_TRANSITIONS[c.status],
+          });
+        }
+        if (transitionNeedsReason(c.status, patch.status) && !patch.reason) {
+          throw new ValidationError("reason: say why the case is being cancelled or reopened.", [{ field: "reason", message: "Say why the case is being cancelled or reopened." }]);
+        }
+        await this.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "status-changed", before: { status: c.status }, after: { status: patch.status, reason: patch.reason ?? null } });
+        changes.status = patch.status;
+      }
+      if (patch.assigneeId !== undefined && patch.assigneeId !== c.assigneeUserId) {
+        if (patch.assigneeId !== null) {
+          const assignee = await m.getRepository(User).findOneBy({ id: patch.assigneeId, organisationId: c.organisationId, status: "active" });
+          if (!assignee || assignee.role === "tenant") {
+            throw new ValidationError("assigneeId: choose an active staff member of this landlord.", [{ field: "assigneeId", message: "Choose an active staff member of this landlord." }]);
+          }
+        }
+        await this.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "assignee-changed", before: { assigneeId: c.assigneeUserId }, after: { assigneeId: patch.assigneeId } });
+        changes.assigneeUserId = patch.assigneeId;
+      }
+      if (patch.hazardClass !== undefined) {
+        await this.recordEvent(m, {
+          caseId: c.id,
+          actorId: actor.id,
+          type: "hazard-classified",
+          before: { hazardClass: c.hazardClass, reason: c.hazardClassReason },
+          after: { hazardClass: patch.hazardClass, reason: patch.reason },
+        });
+        changes.hazardClass = patch.hazardClass;
+        changes.hazardClassReason = patch.reason ?? null;
+      }
+      if (Object.keys(changes).length) await m.getRepository(Case).update(c.id, changes);
+    });
+    return this.getForActor(actor, id);
   }
 
   roomsOf(c: Case): Room[] {

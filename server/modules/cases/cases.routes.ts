@@ -9,7 +9,7 @@ import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_UPLOAD, type PhotoService } from "../ph
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { CaseService } from "./case.service.js";
 import { toCaseDto, toCaseEventDto } from "./case.mapper.js";
-import { worseSchema } from "./cases.schemas.js";
+import { casePatchSchema, worseSchema } from "./cases.schemas.js";
 import { uploadTmpDir } from "./upload-dir.js";
 
 
@@ -28,6 +28,12 @@ export function createCasesRouter({ cases, photos }: { cases: CaseService; photo
   router.get("/:id", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     res.json(toCaseDto(await cases.getForActor(actorOf(req), id)));
+  });
+
+  router.patch("/:id", requireRole("officer", "admin"), async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const patch = parse(casePatchSchema, req.body);
+    res.json(toCaseDto(await cases.update(actorOf(req), id, patch)));
   });
 
   router.get("/:id/events", async (req, res) => {

@@ -3,3 +3,20 @@ import { z } from "zod";
 export const worseSchema = z.object({
   note: z.string({ error: "Tell us briefly what has changed." }).trim().min(3, "Tell us briefly what has changed.").max(2000),
 });
+
+import { CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
+import { HAZARD_CLASSES } from "./case.entity.js";
+
+export const casePatchSchema = z
+  .object({
+    status: z.enum(CASE_STATUSES, { error: `status must be one of ${CASE_STATUSES.join(", ")}.` }).optional(),
+    assigneeId: z.number({ error: "assigneeId must be a user id, or null to unassign." }).int().positive().nullable().optional(),
+    hazardClass: z.enum(HAZARD_CLASSES, { error: `hazardClass must be one of ${HAZARD_CLASSES.join(", ")}.` }).optional(),
+    reason: z.string().trim().min(3, "Give a short reason.").max(2000).optional(),
+  })
+  .strict()
+  .refine((p) => p.status !== undefined || p.assigneeId !== undefined || p.hazardClass !== undefined, {
+    message: "Send at least one of status, assigneeId or hazardClass.",
+  })
+  .refine((p) => p.hazardClass === undefined || p.reason !== undefined, { path: ["reason"], message: "Say why the hazard is classified this way." });
+export type CasePatch = z.infer<typeof casePatchSchema>;

@@ -77,3 +77,24 @@ export { HIGH_AIR_RH_PCT, MIN_OBSERVED_HOURS, diagnose } from "./diagnosis.js";
 export type { Diagnosis, DiagnosisFacts, DiagnosisKind } from "./diagnosis.js";
 export { elementsForReport, glazingElement, wallElement } from "./home-elements.js";
 export type { GlazingKind, WallKind } from "./home-elements.js";
+export { CASE_STATUSES, CASE_TRANSITIONS, canTransition, transitionNeedsReason } from "./case-workflow.js";
+export type { CaseStatus } from "./case-workflow.js";
+export {
+  LONDON_TIME_ZONE,
+  addCalendarDays,
+  addWorkingDays,
+  bankHolidayDates,
+  endOfLocalDay,
+  isWorkingDay,
+  localDate,
+  workingDaysBetween,
+} from "./working-days.js";
+export type { IsoDate } from "./working-days.js";
+export {
+  DEADLINE_STAGES,
+  ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY,
+  HAZARD_CLASSES,
+  computeDeadlines,
+  nextDeadline,
+} from "./deadlines.js";
+export type { Deadline, DeadlineFacts, DeadlinePolicy, DeadlineStage, DeadlineState, HazardClass } from "./deadlines.js";

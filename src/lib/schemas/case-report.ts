@@ -1,6 +1,10 @@
 // A damp or mould report: the stored values and the schema that both the tenant's form and the
 // server validate with. Labels for people live in the client.
 import { z } from "zod";
+import type { CaseStatus } from "../domain/case-workflow.js";
+
+export { CASE_STATUSES } from "../domain/case-workflow.js";
+export type { CaseStatus };
 
 export const CHANNELS = ["tenant-online", "phone", "letter", "email", "visit"] as const;
 export const STAFF_CHANNELS = ["phone", "letter", "email", "visit"] as const;
@@ -9,7 +13,6 @@ export const OBSERVATIONS = ["condensation", "mould-spots", "musty-smell", "peel
 export const DURATIONS = ["days", "weeks", "months", "over-a-year", "not-sure"] as const;
 export const AREAS = ["hand", "a4", "door", "larger"] as const;
 export const VULNERABILITIES = ["children-under-15", "over-65", "breathing-or-immune", "pregnancy", "disability"] as const;
-export const CASE_STATUSES = ["new", "triaged", "inspection-booked", "investigated", "works-planned", "works-done", "monitoring", "closed", "cancelled"] as const;
 /** Neutral questions about the home's equipment; every answer is a fact about the home, never a fault. */
 export const EQUIPMENT_ANSWERS = ["yes", "no", "sometimes", "not-sure", "none-fitted"] as const;
 
@@ -19,7 +22,6 @@ export type Observation = (typeof OBSERVATIONS)[number];
 export type Duration = (typeof DURATIONS)[number];
 export type Area = (typeof AREAS)[number];
 export type Vulnerability = (typeof VULNERABILITIES)[number];
-export type CaseStatus = (typeof CASE_STATUSES)[number];
 export type EquipmentAnswer = (typeof EQUIPMENT_ANSWERS)[number];
 
 const list = <T extends readonly [string, ...string[]]>(values: T, field: string, what: string) =>
