@@ -1,10 +1,8 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, JoinTable, ManyToMany, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from "typeorm";
+import type { HazardClass } from "../../../src/lib/domain/deadlines.js";
 import type { Area, CaseStatus, Channel, Duration, Location, Observation, Vulnerability } from "../../../src/lib/schemas/case-report.js";
 import { Property } from "../properties/property.entity.js";
 import { Room } from "../properties/room.entity.js";
-
-export const HAZARD_CLASSES = ["emergency", "significant", "not-significant"] as const;
-export type HazardClass = (typeof HAZARD_CLASSES)[number];
 
 export interface Equipment {
   heatingUsable?: string;

@@ -5,7 +5,7 @@ export const worseSchema = z.object({
 });
 
 import { CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
-import { HAZARD_CLASSES } from "./case.entity.js";
+import { HAZARD_CLASSES } from "../../../src/lib/domain/deadlines.js";
 
 export const casePatchSchema = z
   .object({
