@@ -91,3 +91,30 @@ describe("who may change a case", () => {
     expect((await t.ctx.dataSource.getRepository(Case).findOneByOrFail({ id: c.id })).status).toBe("new");
   });
 });
+
+describe("deadlines", () => {
+  it("gives a significant case logged by phone on Friday 19 December 2025 an investigation deadline across Christmas", async () => {
+    // 10 working days after Fri 19 Dec 2025, skipping the weekends and the bank holidays of
+    // Thu 25 Dec, Fri 26 Dec and Thu 1 Jan (the holiday package's data for 2025 and 2026):
+    // 22, 23, 24, 29, 30, 31 Dec, 2, 5, 6, 7 Jan → end of Wed 7 January 2026 in London (GMT).
+    // That is long past, and no investigation was recorded, so the stage shows as missed.
+    const res = await officer
+      .post("/api/cases", { ...report, propertyId: landlord.home.id, channel: "phone", awareAt: "2025-12-19T10:00:00Z" })
+      .expect(201);
+    await officer.patch(`/api/cases/${res.body.id}`, { hazardClass: "significant", reason: "Mould over a large area of the bedroom." }).expect(200);
+    const { body } = await officer.get(`/api/cases/${res.body.id}/deadlines`).expect(200);
+    expect(body.deadlines.map((d: { stage: string }) => d.stage)).toEqual(["make-safe", "investigate", "summary", "safety-work", "supplementary-work"]);
+    expect(body.deadlines[0].state).toBe("not-applicable");
+    expect(body.deadlines[1]).toEqual({ stage: "investigate", dueAt: "2026-01-07T23:59:59.999Z", doneAt: null, state: "missed" });
+    await tenant.get(`/api/cases/${res.body.id}/deadlines`).expect(403);
+  });
+
+  it("gives an emergency 24 hours to make safe", async () => {
+    const c = await newCase();
+    await officer.patch(`/api/cases/${c.id}`, { hazardClass: "emergency", reason: "Water through the ceiling light fitting." }).expect(200);
+    const { body } = await officer.get(`/api/cases/${c.id}/deadlines`).expect(200);
+    const awareAt = (await officer.get(`/api/cases/${c.id}`)).body.awareAt;
+    expect(body.deadlines[0].dueAt).toBe(new Date(new Date(awareAt).getTime() + 24 * 3_600_000).toISOString());
+    expect(body.deadlines[0].state).toBe("pending");
+  });
+});

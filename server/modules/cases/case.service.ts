@@ -1,6 +1,7 @@
 import { In, type DataSource, type EntityManager } from "typeorm";
 import type { CaseReport, StaffCaseReport } from "../../../src/lib/schemas/case-report.js";
 import type { Config } from "../../config/env.js";
+import { computeDeadlines, ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, type Deadline } from "../../../src/lib/domain/deadlines.js";
 import { CASE_TRANSITIONS, canTransition, transitionNeedsReason } from "../../../src/lib/domain/case-workflow.js";
 import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
@@ -287,6 +288,16 @@ export class CaseService {
       if (Object.keys(changes).length) await m.getRepository(Case).update(c.id, changes);
     });
     return this.getForActor(actor, id);
+  }
+
+  /**
+   * The legal clocks of the case under the England social-housing default policy. Until inspections,
+   * written summaries and works are recorded (later work), only the awareness date and the hazard
+   * class drive them, so later stages stay pending without a due date.
+   */
+  async deadlines(actor: Actor, id: number, now = new Date()): Promise<Deadline[]> {
+    const c = await this.getForActor(actor, id);
+    return computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, now, policy: ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY });
   }
 
   roomsOf(c: Case): Room[] {
