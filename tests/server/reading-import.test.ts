@@ -402,6 +402,7 @@ describe("readings", () => {
     ]);
     expect((await readings.list(c.caseId, { roomId: c.otherRoomId })).length).toBe(1);
     expect((await readings.list(c.caseId, { limit: 2 })).map((r) => r.takenAt.toISOString())).toEqual(["2025-01-15T09:00:00.000Z", "2025-01-15T09:30:00.000Z"]);
+    expect((await readings.list(c.caseId, { limit: 2, newest: true })).map((r) => r.takenAt.toISOString())).toEqual(["2025-01-15T09:30:00.000Z", "2025-01-15T10:00:00.000Z"]);
 
     expect(await readings.seriesFor(c.caseId, c.roomId)).toEqual([
       { at: at("2025-01-15T09:00:00Z"), airTemperatureC: 18, relativeHumidityPct: 72, outdoorTemperatureC: -2 },

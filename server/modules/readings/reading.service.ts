@@ -123,14 +123,17 @@ export class ReadingService {
     });
   }
 
-  /** Readings of a case (one room, or all), oldest first; at most `limit` (the oldest ones). */
-  async list(caseId: number, opts: { roomId?: number; limit?: number } = {}): Promise<ReadingView[]> {
+  /** Readings of a case (one room, or all), oldest first; at most `limit` (the oldest ones, or with `newest` the latest). */
+  async list(caseId: number, opts: { roomId?: number; limit?: number; newest?: boolean } = {}): Promise<ReadingView[]> {
     const limit = Math.max(1, Math.min(opts.limit ?? DEFAULT_LIST_LIMIT, 1_000_000));
-    const rows: ReadingRow[] = await this.dataSource.query(
+    const select =
       "SELECT id, room_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c, source, import_id " +
-        `FROM readings WHERE case_id = ?${opts.roomId === undefined ? "" : " AND room_id = ?"} ORDER BY taken_at, room_id, id LIMIT ?`,
-      opts.roomId === undefined ? [caseId, limit] : [caseId, opts.roomId, limit],
-    );
+      `FROM readings WHERE case_id = ?${opts.roomId === undefined ? "" : " AND room_id = ?"}`;
+    // newest: the latest `limit` readings (what a chart wants), still returned oldest first.
+    const sql = opts.newest
+      ? `SELECT * FROM (${select} ORDER BY taken_at DESC, room_id DESC, id DESC LIMIT ?) latest ORDER BY taken_at, room_id, id`
+      : `${select} ORDER BY taken_at, room_id, id LIMIT ?`;
+    const rows: ReadingRow[] = await this.dataSource.query(sql, opts.roomId === undefined ? [caseId, limit] : [caseId, opts.roomId, limit]);
     return rows.map((r) => ({
       id: Number(r.id),
       roomId: r.room_id,

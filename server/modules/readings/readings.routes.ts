@@ -41,7 +41,7 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
 
   router.get("/:id/readings", caseAccess, async (req, res) => {
     const { roomId } = parse(readingsQuerySchema, req.query, "query");
-    const rows = await readings.list(res.locals.case.id, { roomId, limit: 50_000 });
+    const rows = await readings.list(res.locals.case.id, { roomId, limit: 50_000, newest: true });
     res.json({ readings: rows });
   });
 
