@@ -98,3 +98,25 @@ export {
   nextDeadline,
 } from "./deadlines.js";
 export type { Deadline, DeadlineFacts, DeadlinePolicy, DeadlineStage, DeadlineState, HazardClass } from "./deadlines.js";
+export {
+  BANDS,
+  CATEGORY_1_MIN_SCORE,
+  CLASS_WEIGHTS,
+  HARM_CLASSES,
+  LIKELIHOOD_POINTS,
+  SPREAD_POINTS,
+  bandFor,
+  categoryFor,
+  hhsrsScore,
+  validateAssessment,
+} from "./hhsrs.js";
+export type { AssessmentProblem, Band, BandRange, HarmClass, HhsrsAssessment, HhsrsResult } from "./hhsrs.js";
+export {
+  MAX_TRIAGE_SCORE,
+  TRIAGE_AREAS,
+  TRIAGE_FACTORS,
+  TRIAGE_VULNERABILITIES,
+  TRIAGE_WEIGHTS,
+  triagePriority,
+} from "./triage-priority.js";
+export type { TriageArea, TriageFactor, TriageInput, TriagePart, TriagePriority, TriageVulnerability } from "./triage-priority.js";
