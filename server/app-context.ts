@@ -6,6 +6,7 @@ import type { Config } from "./config/env.js";
 import { createDataSource } from "./db/create-data-source.js";
 import { createLogger, type Logger } from "./lib/logger.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
+import { AssessmentService } from "./modules/assessments/assessment.service.js";
 import { AuthService } from "./modules/auth/auth.service.js";
 import { CaseService } from "./modules/cases/case.service.js";
 import { EvaluationService } from "./modules/evaluation/evaluation.service.js";
@@ -18,6 +19,7 @@ import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { UserService } from "./modules/users/user.service.js";
 
 export interface Services {
+  assessments: AssessmentService;
   auth: AuthService;
   cases: CaseService;
   evaluation: EvaluationService;
@@ -51,7 +53,8 @@ export function createServices(config: Config, dataSource: DataSource, mailer: M
   const readings = new ReadingService(dataSource, cases);
   const imports = new ReadingImportService(dataSource, cases);
   const evaluation = new EvaluationService(cases, readings);
-  return { auth, cases, evaluation, imports, mail, photos, properties, readings, tenancies, users };
+  const assessments = new AssessmentService(dataSource, cases);
+  return { assessments, auth, cases, evaluation, imports, mail, photos, properties, readings, tenancies, users };
 }
 
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */

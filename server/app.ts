@@ -9,6 +9,7 @@ import type { AppContext } from "./app-context.js";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.js";
 import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
+import { createAssessmentsRouter } from "./modules/assessments/assessments.routes.js";
 import { createCasesRouter, createMyCasesRouter } from "./modules/cases/cases.routes.js";
 import { createPhotosRouter } from "./modules/photos/photos.routes.js";
 import { createReadingsRouter } from "./modules/readings/readings.routes.js";
@@ -72,6 +73,7 @@ export function createApp(ctx: AppContext): Express {
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
   api.use("/cases", createCasesRouter({ cases: services.cases, photos: services.photos }));
   api.use("/cases", createReadingsRouter({ cases: services.cases, readings: services.readings, imports: services.imports, evaluation: services.evaluation }));
+  api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties }));
   api.use("/users", createUsersRouter({ users: services.users }));

@@ -3,6 +3,7 @@ import { Case } from "../modules/cases/case.entity.js";
 import { Photo } from "../modules/photos/photo.entity.js";
 import { ReadingImport } from "../modules/readings/reading-import.entity.js";
 import { Reading } from "../modules/readings/reading.entity.js";
+import { HhsrsAssessmentRecord } from "../modules/assessments/assessment.entity.js";
 import { UserToken } from "../modules/auth/user-token.entity.js";
 import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
 import { Organisation } from "../modules/organisations/organisation.entity.js";
@@ -11,4 +12,4 @@ import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
 
-export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport];
+export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport, HhsrsAssessmentRecord];
