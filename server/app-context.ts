@@ -7,6 +7,7 @@ import { createDataSource } from "./db/create-data-source.js";
 import { createLogger, type Logger } from "./lib/logger.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
 import { AssessmentService } from "./modules/assessments/assessment.service.js";
+import { InspectionService } from "./modules/inspections/inspection.service.js";
 import { AuthService } from "./modules/auth/auth.service.js";
 import { CaseService } from "./modules/cases/case.service.js";
 import { EvaluationService } from "./modules/evaluation/evaluation.service.js";
@@ -19,6 +20,7 @@ import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { UserService } from "./modules/users/user.service.js";
 
 export interface Services {
+  inspections: InspectionService;
   assessments: AssessmentService;
   auth: AuthService;
   cases: CaseService;
@@ -54,7 +56,8 @@ export function createServices(config: Config, dataSource: DataSource, mailer: M
   const imports = new ReadingImportService(dataSource, cases);
   const evaluation = new EvaluationService(cases, readings);
   const assessments = new AssessmentService(dataSource, cases);
-  return { assessments, auth, cases, evaluation, imports, mail, photos, properties, readings, tenancies, users };
+  const inspections = new InspectionService(dataSource, config, cases, mail);
+  return { assessments, inspections, auth, cases, evaluation, imports, mail, photos, properties, readings, tenancies, users };
 }
 
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */

@@ -4,6 +4,8 @@ import { Photo } from "../modules/photos/photo.entity.js";
 import { ReadingImport } from "../modules/readings/reading-import.entity.js";
 import { Reading } from "../modules/readings/reading.entity.js";
 import { HhsrsAssessmentRecord } from "../modules/assessments/assessment.entity.js";
+import { Inspection } from "../modules/inspections/inspection.entity.js";
+import { WrittenSummary } from "../modules/inspections/written-summary.entity.js";
 import { UserToken } from "../modules/auth/user-token.entity.js";
 import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
 import { Organisation } from "../modules/organisations/organisation.entity.js";
@@ -12,4 +14,4 @@ import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
 
-export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport, HhsrsAssessmentRecord];
+export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport, HhsrsAssessmentRecord, Inspection, WrittenSummary];

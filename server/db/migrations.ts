@@ -4,5 +4,6 @@ import { Foundation1796180785107 } from "./migrations/1796180785107-Foundation.j
 import { CasesPhotosReadings1796181981716 } from "./migrations/1796181981716-CasesPhotosReadings.js";
 import { CaseAssigneeAndHazardClass1796184941727 } from "./migrations/1796184941727-CaseAssigneeAndHazardClass.js";
 import { HhsrsAssessments1796185629417 } from "./migrations/1796185629417-HhsrsAssessments.js";
+import { InspectionsAndSummaries1796185801114 } from "./migrations/1796185801114-InspectionsAndSummaries.js";
 
-export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716, CaseAssigneeAndHazardClass1796184941727, HhsrsAssessments1796185629417];
+export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716, CaseAssigneeAndHazardClass1796184941727, HhsrsAssessments1796185629417, InspectionsAndSummaries1796185801114];

@@ -1,7 +1,6 @@
 import { In, type DataSource, type EntityManager } from "typeorm";
 import type { CaseReport, StaffCaseReport } from "../../../src/lib/schemas/case-report.js";
 import type { Config } from "../../config/env.js";
-import { computeDeadlines, ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, type Deadline } from "../../../src/lib/domain/deadlines.js";
 import { CASE_TRANSITIONS, canTransition, transitionNeedsReason } from "../../../src/lib/domain/case-workflow.js";
 import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
@@ -224,7 +223,9 @@ export class CaseService {
 
   async events(actor: Actor, id: number) {
     const c = await this.getForActor(actor, id);
-    const events = await this.dataSource.getRepository(CaseEvent).find({ where: { caseId: c.id }, order: { id: "ASC" } });
+    const all = await this.dataSource.getRepository(CaseEvent).find({ where: { caseId: c.id }, order: { id: "ASC" } });
+    // Internal notes are for staff only.
+    const events = isStaff(actor) ? all : all.filter((e) => e.type !== "internal-note");
     const actorIds = [...new Set(events.map((e) => e.actorUserId).filter((v): v is number => v !== null))];
     const users = actorIds.length ? await this.dataSource.getRepository(User).findBy({ id: In(actorIds) }) : [];
     const names = new Map(users.map((u) => [u.id, { name: u.name, role: u.role }]));
@@ -288,16 +289,6 @@ export class CaseService {
       if (Object.keys(changes).length) await m.getRepository(Case).update(c.id, changes);
     });
     return this.getForActor(actor, id);
-  }
-
-  /**
-   * The legal clocks of the case under the England social-housing default policy. Until inspections,
-   * written summaries and works are recorded (later work), only the awareness date and the hazard
-   * class drive them, so later stages stay pending without a due date.
-   */
-  async deadlines(actor: Actor, id: number, now = new Date()): Promise<Deadline[]> {
-    const c = await this.getForActor(actor, id);
-    return computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, now, policy: ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY });
   }
 
   roomsOf(c: Case): Room[] {

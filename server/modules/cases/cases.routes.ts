@@ -36,12 +36,6 @@ export function createCasesRouter({ cases, photos }: { cases: CaseService; photo
     res.json(toCaseDto(await cases.update(actorOf(req), id, patch)));
   });
 
-  router.get("/:id/deadlines", requireRole("officer", "maintenance", "admin"), async (req, res) => {
-    const { id } = parse(idParamsSchema, req.params, "params");
-    const deadlines = await cases.deadlines(actorOf(req), id);
-    res.json({ deadlines: deadlines.map((d) => ({ stage: d.stage, dueAt: d.dueAt?.toISOString() ?? null, doneAt: d.doneAt?.toISOString() ?? null, state: d.state })) });
-  });
-
   router.get("/:id/events", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     res.json({ events: (await cases.events(actorOf(req), id)).map(toCaseEventDto) });

@@ -60,6 +60,18 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
+  caseMessage(d: { name: string; reference: string; senderName: string; body: string; link: string }): RenderedMail {
+    return {
+      subject: `A message about your report ${d.reference}`,
+      text: [`Hello ${d.name},`, "", `${d.senderName} wrote about your report ${d.reference}:`, "", d.body, "", "You can reply and follow the case at:", d.link].join("\n"),
+    };
+  },
+  writtenSummary(d: { name: string; reference: string; body: string; link: string }): RenderedMail {
+    return {
+      subject: `What we found and what happens next: ${d.reference}`,
+      text: [`Hello ${d.name},`, "", d.body, "", "The summary is also on your case page:", d.link].join("\n"),
+    };
+  },
 } as const;
 
 export type MailTemplateName = keyof typeof mailTemplates;

@@ -1,0 +1,102 @@
+import type { DataSource } from "typeorm";
+import { canTransition } from "../../../src/lib/domain/case-workflow.js";
+import type { Config } from "../../config/env.js";
+import { ConflictError, ValidationError } from "../../lib/errors.js";
+import type { Actor } from "../auth/actor.js";
+import { Case } from "../cases/case.entity.js";
+import type { CaseService } from "../cases/case.service.js";
+import type { MailService } from "../mail/mail.service.js";
+import { User } from "../users/user.entity.js";
+import { Inspection } from "./inspection.entity.js";
+import type { InspectionInput } from "./inspections.schemas.js";
+import { WrittenSummary } from "./written-summary.entity.js";
+
+/** The investigation of a case: inspections, the written summary to the tenant, and messages. */
+export class InspectionService {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly config: Config,
+    private readonly cases: CaseService,
+    private readonly mail: MailService,
+  ) {}
+
+  /** Records an inspection; the case moves to `investigated` when the workflow allows it from where it is. */
+  async record(actor: Actor, caseId: number, input: InspectionInput): Promise<Inspection> {
+    return this.dataSource.transaction(async (m) => {
+      const c = await this.cases.getForActor(actor, caseId, m);
+      const rooms = new Set(this.cases.roomsOf(c).map((r) => r.id));
+      const strange = input.roomReadings.filter((r) => !rooms.has(r.roomId)).map((r) => r.roomId);
+      if (strange.length) throw new ValidationError("roomReadings: choose rooms of this home.", [{ field: "roomReadings", message: `Room ${strange.join(", ")} is not part of this home.` }]);
+      const inspectedAt = new Date(input.inspectedAt);
+      if (inspectedAt.getTime() > Date.now() + 60_000) throw new ValidationError("inspectedAt: an inspection cannot be recorded in the future.", [{ field: "inspectedAt", message: "Cannot be in the future." }]);
+      const repo = m.getRepository(Inspection);
+      const saved = await repo.save(repo.create({ ...input, caseId: c.id, inspectedAt, inspectorUserId: actor.id }));
+      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "inspection-recorded", after: { inspectionId: saved.id, inspectedAt: inspectedAt.toISOString(), cause: input.cause, mouldExtent: input.mouldExtent } });
+      const fresh = await m.getRepository(Case).findOneOrFail({ where: { id: c.id }, lock: { mode: "pessimistic_write" } });
+      if (fresh.status !== "investigated" && canTransition(fresh.status, "investigated")) {
+        await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "status-changed", before: { status: fresh.status }, after: { status: "investigated", reason: "Inspection recorded." } });
+        await m.getRepository(Case).update(c.id, { status: "investigated" });
+      }
+      return saved;
+    });
+  }
+
+  async list(actor: Actor, caseId: number): Promise<Inspection[]> {
+    const c = await this.cases.getForActor(actor, caseId);
+    return this.dataSource.getRepository(Inspection).find({ where: { caseId: c.id }, order: { inspectedAt: "ASC", id: "ASC" } });
+  }
+
+  /** When the investigation ended (the first inspection) and the summary was first sent: the clocks' triggers. */
+  async milestones(caseId: number): Promise<{ investigationEndedAt: Date | null; summarySentAt: Date | null }> {
+    const first = await this.dataSource.getRepository(Inspection).findOne({ where: { caseId }, order: { inspectedAt: "ASC" } });
+    const summary = await this.dataSource.getRepository(WrittenSummary).findOne({ where: { caseId }, order: { sentAt: "ASC" } });
+    return { investigationEndedAt: first?.inspectedAt ?? null, summarySentAt: summary?.sentAt ?? null };
+  }
+
+  /** Sends the written summary to the tenant (after an inspection), recorded with its time. */
+  async sendSummary(actor: Actor, caseId: number, body: string): Promise<WrittenSummary> {
+    const { saved, deliver } = await this.dataSource.transaction(async (m) => {
+      const c = await this.cases.getForActor(actor, caseId, m);
+      if (!(await m.getRepository(Inspection).existsBy({ caseId: c.id }))) {
+        throw new ConflictError("Record the inspection before sending the written summary of it.");
+      }
+      if (c.tenantUserId === null) throw new ConflictError("This case has no tenant account to send the summary to.");
+      const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
+      const { outboxId, deliver } = await this.mail.enqueueWithId(m, {
+        to: tenant.email,
+        template: "writtenSummary",
+        organisationId: c.organisationId,
+        related: { type: "case", id: c.id },
+        data: { name: tenant.name, reference: c.reference!, body, link: `${this.config.appUrl}/cases/${c.id}` },
+      });
+      const repo = m.getRepository(WrittenSummary);
+      const saved = await repo.save(repo.create({ caseId: c.id, senderUserId: actor.id, body, outboxId, sentAt: new Date() }));
+      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "summary-sent", after: { summaryId: saved.id, body, outboxId } });
+      return { saved, deliver };
+    });
+    await deliver();
+    return saved;
+  }
+
+  /** A message to the tenant (shown on their case page and e-mailed) or an internal note staff only see. */
+  async message(actor: Actor, caseId: number, body: string, internal: boolean): Promise<void> {
+    const deliver = await this.dataSource.transaction(async (m) => {
+      const c = await this.cases.getForActor(actor, caseId, m);
+      if (internal) {
+        await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "internal-note", after: { body } });
+        return null;
+      }
+      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "message-to-tenant", after: { body } });
+      if (c.tenantUserId === null) return null;
+      const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
+      return this.mail.enqueue(m, {
+        to: tenant.email,
+        template: "caseMessage",
+        organisationId: c.organisationId,
+        related: { type: "case", id: c.id },
+        data: { name: tenant.name, reference: c.reference!, senderName: actor.name, body, link: `${this.config.appUrl}/cases/${c.id}` },
+      });
+    });
+    if (deliver) await deliver();
+  }
+}

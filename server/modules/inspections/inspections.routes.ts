@@ -1,0 +1,51 @@
+import { Router } from "express";
+import { computeDeadlines, ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY } from "../../../src/lib/domain/deadlines.js";
+import { parse } from "../../lib/validation.js";
+import { actorOf, requireRole } from "../../middleware/auth.js";
+import type { CaseService } from "../cases/case.service.js";
+import { idParamsSchema } from "../properties/properties.schemas.js";
+import type { InspectionService } from "./inspection.service.js";
+import { inspectionSchema, messageSchema, summarySchema } from "./inspections.schemas.js";
+
+/** Mounted at /api/cases: inspections, the written summary, messages and the deadline clocks. */
+export function createInspectionsRouter({ cases, inspections }: { cases: CaseService; inspections: InspectionService }): Router {
+  const router = Router();
+  const staff = requireRole("officer", "maintenance", "admin");
+  const officers = requireRole("officer", "admin");
+
+  router.post("/:id/inspections", officers, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const saved = await inspections.record(actorOf(req), id, parse(inspectionSchema, req.body));
+    res.status(201).json({ id: saved.id, inspectedAt: saved.inspectedAt.toISOString(), cause: saved.cause, mouldExtent: saved.mouldExtent });
+  });
+
+  router.get("/:id/inspections", staff, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    res.json({ inspections: await inspections.list(actorOf(req), id) });
+  });
+
+  router.post("/:id/summary", officers, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const { body } = parse(summarySchema, req.body);
+    const saved = await inspections.sendSummary(actorOf(req), id, body);
+    res.status(201).json({ id: saved.id, sentAt: saved.sentAt.toISOString() });
+  });
+
+  router.post("/:id/messages", staff, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const { body, internal } = parse(messageSchema, req.body);
+    await inspections.message(actorOf(req), id, body, internal);
+    res.status(201).json({ ok: true });
+  });
+
+  router.get("/:id/deadlines", staff, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const c = await cases.getForActor(actorOf(req), id);
+    const milestones = await inspections.milestones(c.id);
+    // Under the England social-housing default; a per-landlord policy is still to come.
+    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now: new Date(), policy: ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY });
+    res.json({ deadlines: deadlines.map((d) => ({ stage: d.stage, dueAt: d.dueAt?.toISOString() ?? null, doneAt: d.doneAt?.toISOString() ?? null, state: d.state })) });
+  });
+
+  return router;
+}
