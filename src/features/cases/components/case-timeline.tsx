@@ -91,6 +91,25 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
+    case "summary-sent": {
+      const body = str(after.body);
+      return {
+        title: audience === "tenant" ? "Your landlord sent you a written summary of what they found and what happens next." : `${who || "Staff"} sent the tenant the written summary.`,
+        detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
+      };
+    }
+    case "inspection-recorded":
+      return { title: audience === "tenant" ? "The inspection of your home was recorded." : `${who || "Staff"} recorded the inspection.` };
+    case "hazard-classified":
+      return { title: "Your landlord assessed how serious the hazard is." };
+    case "hhsrs-assessed":
+      return { title: audience === "tenant" ? "Your landlord recorded a health and safety (HHSRS) assessment." : `${who || "Staff"} recorded an HHSRS assessment: band ${String(after.band ?? "?")}, Category ${String(after.category ?? "?")}.` };
+    case "assignee-changed":
+      return { title: audience === "tenant" ? "A member of staff was given this report to look after." : "The assignee changed." };
+    case "internal-note": {
+      const body = str(after.body);
+      return { title: `${who || "Staff"} added an internal note.`, detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined };
+    }
     default:
       return { title: `${humanise(event.type)}${who ? `, by ${who}` : ""}.` };
   }
