@@ -23,7 +23,7 @@ import { loadConfig } from "../server/config/env.js";
 import { createLogger } from "../server/lib/logger.js";
 import { createMailer } from "../server/lib/mailer.js";
 import { User } from "../server/modules/users/user.entity.js";
-import { ZoneConverter } from "../server/modules/readings/csv/time-zone.js";
+import { ZoneConverter } from "../src/lib/domain/time-zone.js";
 import { ensureAppDatabase, freePort, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { mulberry32 } from "../server/lib/random.js";
 

@@ -9,7 +9,7 @@ import { proposeMapping, roleFromHeader, unitFromHeader, type Mapping } from "..
 import { fahrenheitToCelsius, parseNumber } from "../../server/modules/readings/csv/numbers.js";
 import { RejectedReport } from "../../server/modules/readings/csv/report.js";
 import { createRowConverter, emptyRow } from "../../server/modules/readings/csv/rows.js";
-import { ZoneConverter } from "../../server/modules/readings/csv/time-zone.js";
+import { ZoneConverter } from "../../src/lib/domain/time-zone.js";
 
 const iso = (ms: number) => new Date(ms).toISOString();
 

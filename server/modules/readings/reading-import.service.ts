@@ -26,7 +26,7 @@ import { csvOptions, detectLayout, type Layout } from "./csv/layout.js";
 import { COLUMN_ROLES, proposeMapping, temperatureUnitOf, type Mapping, type MappingOverride, type MappingProposal } from "./csv/mapping.js";
 import { RejectedReport } from "./csv/report.js";
 import { createRowConverter, emptyRow, isBlankRecord, type ConvertedRow } from "./csv/rows.js";
-import { isTimeZone } from "./csv/time-zone.js";
+import { isTimeZone } from "../../../src/lib/domain/time-zone.js";
 import { ReadingImport } from "./reading-import.entity.js";
 
 export type { Mapping, MappingOverride } from "./csv/mapping.js";

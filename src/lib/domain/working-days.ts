@@ -17,6 +17,7 @@
 //   GMT/BST changes are handled and the process time zone plays no part. The holidays are England
 //   and Wales's whatever the zone.
 import Holidays from "date-holidays";
+import { ZoneConverter } from "./time-zone.js";
 
 export const LONDON_TIME_ZONE = "Europe/London";
 
@@ -30,7 +31,7 @@ let englandHolidays: Holidays | undefined;
 const bankHolidaysByYear = new Map<number, readonly IsoDate[]>();
 /** Bank holidays of every year loaded so far, as day numbers (days since 1970-01-01). */
 const bankHolidayDays = new Set<number>();
-const formatters = new Map<string, Intl.DateTimeFormat>();
+const zones = new Map<string, ZoneConverter>();
 const dayEnds = new Map<string, number>();
 const MAX_CACHED_DAY_ENDS = 10_000;
 
@@ -126,8 +127,7 @@ function dayNumber(date: IsoDate): number {
 }
 
 function localDayNumber(instant: Date, timeZone: string): number {
-  const p = localParts(requireInstant(instant, "instant").getTime(), timeZone);
-  return utcMs(p.year, p.month, p.day) / DAY_MS;
+  return localDayAt(requireInstant(instant, "instant").getTime(), timeZone);
 }
 
 /** The last millisecond of local day `day` in `timeZone`, memoised. */
@@ -158,53 +158,17 @@ function startOfDayNumber(day: number, timeZone: string): number {
 }
 
 function localDayAt(epochMs: number, timeZone: string): number {
-  const p = localParts(epochMs, timeZone);
-  return utcMs(p.year, p.month, p.day) / DAY_MS;
+  return Math.floor((epochMs + zoneOffsetMs(epochMs, timeZone)) / DAY_MS);
 }
 
-/** Local wall time minus UTC at `epochMs`, in ms. */
+/** Local wall time minus UTC at `epochMs`, in ms (the shared Intl-based converter, one per zone). */
 function zoneOffsetMs(epochMs: number, timeZone: string): number {
-  const p = localParts(epochMs, timeZone);
-  const wholeSecond = Math.floor(epochMs / 1000) * 1000;
-  return utcMs(p.year, p.month, p.day, p.hour, p.minute, p.second) - wholeSecond;
-}
-
-interface LocalParts {
-  year: number;
-  month: number;
-  day: number;
-  hour: number;
-  minute: number;
-  second: number;
-}
-
-function localParts(epochMs: number, timeZone: string): LocalParts {
-  let format = formatters.get(timeZone);
-  if (!format) {
-    format = new Intl.DateTimeFormat("en-US", {
-      timeZone,
-      hourCycle: "h23",
-      year: "numeric",
-      month: "numeric",
-      day: "numeric",
-      hour: "numeric",
-      minute: "numeric",
-      second: "numeric",
-    });
-    formatters.set(timeZone, format);
+  let zone = zones.get(timeZone);
+  if (!zone) {
+    zone = new ZoneConverter(timeZone);
+    zones.set(timeZone, zone);
   }
-  const parts: Record<string, number> = {};
-  for (const { type, value } of format.formatToParts(epochMs)) {
-    if (type !== "literal") parts[type] = Number(value);
-  }
-  return {
-    year: parts.year!,
-    month: parts.month!,
-    day: parts.day!,
-    hour: parts.hour!,
-    minute: parts.minute!,
-    second: parts.second!,
-  };
+  return zone.offsetAt(epochMs);
 }
 
 /** Like Date.UTC, without its mapping of years 0–99 to 1900–1999. */

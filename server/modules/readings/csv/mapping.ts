@@ -1,7 +1,7 @@
 // Which column holds what: proposed from the header names first, then from the values.
 import { detectDateFormat, type DateFormat } from "./dates.js";
 import { parseNumber } from "./numbers.js";
-import { DEFAULT_TIME_ZONE } from "./time-zone.js";
+import { DEFAULT_TIME_ZONE } from "../../../../src/lib/domain/time-zone.js";
 
 export type TemperatureUnit = "C" | "F";
 

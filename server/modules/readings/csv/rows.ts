@@ -12,7 +12,7 @@ import {
 } from "./limits.js";
 import type { Mapping } from "./mapping.js";
 import { fahrenheitToCelsius, parseNumber, round2 } from "./numbers.js";
-import { ZoneConverter } from "./time-zone.js";
+import { ZoneConverter } from "../../../../src/lib/domain/time-zone.js";
 
 export interface RowConverterOptions {
   decimalComma: boolean;
