@@ -1,10 +1,9 @@
 import { Brackets, type DataSource } from "typeorm";
 import { NotFoundError } from "../../lib/errors.js";
+import { escapeLike } from "../../lib/sql.js";
 import type { Actor } from "../auth/actor.js";
 import type { PropertyListQuery } from "./properties.schemas.js";
 import { Property } from "./property.entity.js";
-
-const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 export class PropertyService {
   constructor(private readonly dataSource: DataSource) {}

@@ -1,5 +1,6 @@
 import { Brackets, type DataSource } from "typeorm";
 import { ConflictError, NotFoundError } from "../../lib/errors.js";
+import { escapeLike } from "../../lib/sql.js";
 import type { Actor } from "../auth/actor.js";
 import { User } from "./user.entity.js";
 import type { UserListQuery } from "./users.schemas.js";
@@ -11,7 +12,7 @@ export class UserService {
     const qb = this.dataSource.getRepository(User).createQueryBuilder("u").where("u.organisation_id = :org", { org: actor.organisationId });
     if (query.role) qb.andWhere("u.role = :role", { role: query.role });
     if (query.q) {
-      const like = `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+      const like = `%${escapeLike(query.q)}%`;
       qb.andWhere(new Brackets((w) => w.where("u.name LIKE :like", { like }).orWhere("u.email LIKE :like", { like })));
     }
     const [items, total] = await qb
