@@ -8,6 +8,7 @@ import { createLogger, type Logger } from "./lib/logger.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
 import { AssessmentService } from "./modules/assessments/assessment.service.js";
 import { InspectionService } from "./modules/inspections/inspection.service.js";
+import { PolicyService } from "./modules/policy/policy.service.js";
 import { AuthService } from "./modules/auth/auth.service.js";
 import { CaseService } from "./modules/cases/case.service.js";
 import { EvaluationService } from "./modules/evaluation/evaluation.service.js";
@@ -20,6 +21,7 @@ import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { UserService } from "./modules/users/user.service.js";
 
 export interface Services {
+  policy: PolicyService;
   inspections: InspectionService;
   assessments: AssessmentService;
   auth: AuthService;
@@ -57,7 +59,8 @@ export function createServices(config: Config, dataSource: DataSource, mailer: M
   const evaluation = new EvaluationService(cases, readings);
   const assessments = new AssessmentService(dataSource, cases);
   const inspections = new InspectionService(dataSource, config, cases, mail);
-  return { assessments, inspections, auth, cases, evaluation, imports, mail, photos, properties, readings, tenancies, users };
+  const policy = new PolicyService(dataSource);
+  return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, readings, tenancies, users };
 }
 
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */

@@ -11,6 +11,7 @@ import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
 import { createAssessmentsRouter } from "./modules/assessments/assessments.routes.js";
 import { createInspectionsRouter } from "./modules/inspections/inspections.routes.js";
+import { createPolicyRouter } from "./modules/policy/policy.routes.js";
 import { createCasesRouter, createMyCasesRouter } from "./modules/cases/cases.routes.js";
 import { createPhotosRouter } from "./modules/photos/photos.routes.js";
 import { createReadingsRouter } from "./modules/readings/readings.routes.js";
@@ -75,7 +76,8 @@ export function createApp(ctx: AppContext): Express {
   api.use("/cases", createCasesRouter({ cases: services.cases, photos: services.photos }));
   api.use("/cases", createReadingsRouter({ cases: services.cases, readings: services.readings, imports: services.imports, evaluation: services.evaluation }));
   api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
-  api.use("/cases", createInspectionsRouter({ cases: services.cases, inspections: services.inspections }));
+  api.use("/cases", createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy }));
+  api.use("/policy", createPolicyRouter({ policy: services.policy }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties }));
   api.use("/users", createUsersRouter({ users: services.users }));

@@ -5,5 +5,6 @@ import { CasesPhotosReadings1796181981716 } from "./migrations/1796181981716-Cas
 import { CaseAssigneeAndHazardClass1796184941727 } from "./migrations/1796184941727-CaseAssigneeAndHazardClass.js";
 import { HhsrsAssessments1796185629417 } from "./migrations/1796185629417-HhsrsAssessments.js";
 import { InspectionsAndSummaries1796185801114 } from "./migrations/1796185801114-InspectionsAndSummaries.js";
+import { DeadlinePolicies1796186425570 } from "./migrations/1796186425570-DeadlinePolicies.js";
 
-export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716, CaseAssigneeAndHazardClass1796184941727, HhsrsAssessments1796185629417, InspectionsAndSummaries1796185801114];
+export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716, CaseAssigneeAndHazardClass1796184941727, HhsrsAssessments1796185629417, InspectionsAndSummaries1796185801114, DeadlinePolicies1796186425570];

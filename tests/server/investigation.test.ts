@@ -89,3 +89,29 @@ describe("the investigation", () => {
     await outsider.get(`/api/cases/${c.id}/deadlines`).expect(404);
   });
 });
+
+describe("the landlord's deadline policy", () => {
+  it("uses the England default until an admin sets the landlord's own timeframes, which the clocks then follow", async () => {
+    const fresh = await makeLandlord(t.ctx.dataSource);
+    const admin = await signedInClient(t.app, fresh.admin.email, PASSWORD);
+    const staff = await signedInClient(t.app, fresh.officer.email, PASSWORD);
+    // TRADE.md §5: 24 hours, 10, 3 and 5 working days, 12 weeks.
+    expect((await staff.get("/api/policy").expect(200)).body).toEqual({
+      emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, source: "default",
+    });
+    const c = (await staff.post("/api/cases", { ...report, propertyId: fresh.home.id, channel: "phone", awareAt: "2025-12-19T10:00:00Z" }).expect(201)).body;
+    const due = async () => (await staff.get(`/api/cases/${c.id}/deadlines`)).body.deadlines.find((d: { stage: string }) => d.stage === "investigate").dueAt;
+    expect(await due()).toBe("2026-01-07T23:59:59.999Z");
+    const own = { emergencyMakeSafeHours: 12, investigateWorkingDays: 5, summaryWorkingDays: 2, safetyWorkWorkingDays: 3, supplementaryWorkWeeks: 8 };
+    await staff.agent.put("/api/policy").set("X-CSRF-Token", staff.csrf).send(own).expect(403);
+    expect((await admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send(own).expect(200)).body).toEqual({ ...own, source: "landlord" });
+    // 5 working days after Fri 19 Dec 2025, skipping 25 and 26 Dec (the holiday package's data): 22, 23, 24, 29, 30 Dec.
+    expect(await due()).toBe("2025-12-30T23:59:59.999Z");
+    // Another landlord still has the default.
+    expect((await officer.get("/api/policy").expect(200)).body.source).toBe("default");
+    const bad = await admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send({ ...own, investigateWorkingDays: 0 }).expect(400);
+    expect(bad.body.error.details[0].field).toBe("investigateWorkingDays");
+    expect((await admin.agent.delete("/api/policy").set("X-CSRF-Token", admin.csrf).expect(200)).body.source).toBe("default");
+    await tenant.get("/api/policy").expect(403);
+  });
+});

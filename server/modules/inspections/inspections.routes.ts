@@ -1,14 +1,15 @@
 import { Router } from "express";
-import { computeDeadlines, ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY } from "../../../src/lib/domain/deadlines.js";
+import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
+import type { PolicyService } from "../policy/policy.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { InspectionService } from "./inspection.service.js";
 import { inspectionSchema, messageSchema, summarySchema } from "./inspections.schemas.js";
 
 /** Mounted at /api/cases: inspections, the written summary, messages and the deadline clocks. */
-export function createInspectionsRouter({ cases, inspections }: { cases: CaseService; inspections: InspectionService }): Router {
+export function createInspectionsRouter({ cases, inspections, policy }: { cases: CaseService; inspections: InspectionService; policy: PolicyService }): Router {
   const router = Router();
   const staff = requireRole("officer", "maintenance", "admin");
   const officers = requireRole("officer", "admin");
@@ -42,8 +43,8 @@ export function createInspectionsRouter({ cases, inspections }: { cases: CaseSer
     const { id } = parse(idParamsSchema, req.params, "params");
     const c = await cases.getForActor(actorOf(req), id);
     const milestones = await inspections.milestones(c.id);
-    // Under the England social-housing default; a per-landlord policy is still to come.
-    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now: new Date(), policy: ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY });
+    const { source: _source, ...timeframes } = await policy.forOrganisation(c.organisationId);
+    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now: new Date(), policy: timeframes });
     res.json({ deadlines: deadlines.map((d) => ({ stage: d.stage, dueAt: d.dueAt?.toISOString() ?? null, doneAt: d.doneAt?.toISOString() ?? null, state: d.state })) });
   });
 
