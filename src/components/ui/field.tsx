@@ -39,15 +39,7 @@ export function FieldShell({ id, label, hint, error, hideLabel, optional, classN
           {hint}
         </p>
       ) : null}
-      {error ? (
-        <p id={errorId(id)} className="flex items-start gap-1 text-sm font-semibold text-rust-700">
-          <svg viewBox="0 0 16 16" className="mt-0.5 size-4 shrink-0" aria-hidden="true">
-            <circle cx="8" cy="8" r="7" fill="currentColor" />
-            <path d="M8 4v5M8 11.2v.1" stroke="#fff" strokeWidth="1.8" strokeLinecap="round" />
-          </svg>
-          <span>{error}</span>
-        </p>
-      ) : null}
+      {error ? <FieldError id={errorId(id)}>{error}</FieldError> : null}
       {children}
     </div>
   );
@@ -127,5 +119,18 @@ export function Textarea({ label, hint, error, hideLabel, optional, className, c
         {...props}
       />
     </FieldShell>
+  );
+}
+
+/** A field's error message, with an icon so it does not rely on colour alone. */
+export function FieldError({ id, children }: { id: string; children: ReactNode }) {
+  return (
+    <p id={id} className="flex items-start gap-1 text-sm font-semibold text-rust-700">
+      <svg viewBox="0 0 16 16" className="mt-0.5 size-4 shrink-0" aria-hidden="true">
+        <circle cx="8" cy="8" r="7" fill="currentColor" />
+        <path d="M8 4v5M8 11.2v.1" stroke="#fff" strokeWidth="1.8" strokeLinecap="round" />
+      </svg>
+      <span>{children}</span>
+    </p>
   );
 }

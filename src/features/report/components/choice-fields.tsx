@@ -1,5 +1,6 @@
 import { useId, type ReactNode, type Ref } from "react";
 import { cn } from "@/lib/cn";
+import { FieldError } from "@/components/ui/field";
 import type { Choice } from "../labels";
 
 interface GroupShellProps {
@@ -26,15 +27,7 @@ function GroupShell({ legend, hint, error, large, className, children }: GroupSh
           {hint}
         </p>
       ) : null}
-      {error ? (
-        <p id={errorId} className="flex items-start gap-1 text-sm font-semibold text-rust-700">
-          <svg viewBox="0 0 16 16" className="mt-0.5 size-4 shrink-0" aria-hidden="true">
-            <circle cx="8" cy="8" r="7" fill="currentColor" />
-            <path d="M8 4v5M8 11.2v.1" stroke="#fff" strokeWidth="1.8" strokeLinecap="round" />
-          </svg>
-          <span>{error}</span>
-        </p>
-      ) : null}
+      {error ? <FieldError id={errorId}>{error}</FieldError> : null}
       {children}
     </fieldset>
   );
