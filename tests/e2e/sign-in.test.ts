@@ -55,7 +55,9 @@ describe("signed-in journeys", () => {
       await page.goto(`${served.url}/queue`);
       await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Not allowed");
       expect(new URL(page.url()).pathname).toBe("/queue");
+      // Wait until signing out has finished: the pages share one browser profile (and its cookie).
       await page.getByRole("button", { name: "Sign out" }).click();
+      await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Sign in");
     } finally {
       await page.close();
     }
