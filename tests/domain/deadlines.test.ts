@@ -12,7 +12,7 @@ import {
   type Deadline,
   type DeadlineFacts,
   type DeadlineStage,
-} from "../../src/lib/domain/index.js";
+} from "../../src/lib/domain/deadlines.js";
 
 const at = (iso: string) => new Date(iso);
 const policy = ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY;

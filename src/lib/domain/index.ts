@@ -79,25 +79,8 @@ export { elementsForReport, glazingElement, wallElement } from "./home-elements.
 export type { GlazingKind, WallKind } from "./home-elements.js";
 export { CASE_STATUSES, CASE_TRANSITIONS, canTransition, transitionNeedsReason } from "./case-workflow.js";
 export type { CaseStatus } from "./case-workflow.js";
-export {
-  LONDON_TIME_ZONE,
-  addCalendarDays,
-  addWorkingDays,
-  bankHolidayDates,
-  endOfLocalDay,
-  isWorkingDay,
-  localDate,
-  workingDaysBetween,
-} from "./working-days.js";
-export type { IsoDate } from "./working-days.js";
-export {
-  DEADLINE_STAGES,
-  ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY,
-  HAZARD_CLASSES,
-  computeDeadlines,
-  nextDeadline,
-} from "./deadlines.js";
-export type { Deadline, DeadlineFacts, DeadlinePolicy, DeadlineStage, DeadlineState, HazardClass } from "./deadlines.js";
+// working-days.ts and deadlines.ts are deliberately not re-exported here: they load the bank-holiday
+// data package (about 0.8 MB, not tree-shaken), which the browser does not need. Import them directly.
 export {
   BANDS,
   CATEGORY_1_MIN_SCORE,
