@@ -13,8 +13,8 @@ export async function runSeed(config: Config): Promise<string> {
     await dataSource.runMigrations({ transaction: "each" });
     const result = await seedDemo(dataSource, config.demoPassword);
     return result.created
-      ? `Demo data created: ${result.homes} homes, ${result.tenants} tenant accounts.`
-      : "Demo data already present; demo account passwords set again.";
+      ? `Demo data created: ${result.homes} homes, ${result.tenants} tenant accounts, ${result.cases} cases.`
+      : `Demo data already present; demo account passwords set again${result.cases ? `, ${result.cases} demo cases added` : ""}.`;
   } finally {
     await dataSource.destroy();
   }

@@ -6,6 +6,7 @@ import type { Server } from "node:http";
 import { loadConfig } from "../server/config/env.js";
 import { createApp } from "../server/app.js";
 import { createAppContext, type AppContext } from "../server/app-context.js";
+import { startBackgroundJobs } from "../server/background.js";
 import { DEMO_ACCOUNTS } from "../server/db/seeds/demo.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { projectDbDir, projectRoot } from "./lib/paths.js";
@@ -19,9 +20,11 @@ let mariaDbStartedHere = false;
 let mailCatcher: ChildProcess | undefined;
 let server: Server | undefined;
 let ctx: AppContext | undefined;
+let stopBackgroundJobs: (() => void) | undefined;
 
 async function shutdown(code: number) {
   step("Stopping…");
+  stopBackgroundJobs?.();
   server?.close();
   server?.closeAllConnections();
   await ctx?.close().catch(() => undefined);
@@ -59,6 +62,7 @@ try {
 
   ctx = await createAppContext(config);
   const app = createApp(ctx);
+  stopBackgroundJobs = startBackgroundJobs(ctx);
   await new Promise<void>((resolve, reject) => {
     server = app.listen(config.port, config.host, () => resolve());
     server.once("error", reject);

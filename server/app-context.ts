@@ -11,6 +11,7 @@ import { InspectionService } from "./modules/inspections/inspection.service.js";
 import { PolicyService } from "./modules/policy/policy.service.js";
 import { AuthService } from "./modules/auth/auth.service.js";
 import { CaseService } from "./modules/cases/case.service.js";
+import { DigestService } from "./modules/digest/digest.service.js";
 import { EvaluationService } from "./modules/evaluation/evaluation.service.js";
 import { PhotoService } from "./modules/photos/photo.service.js";
 import { ReadingImportService } from "./modules/readings/reading-import.service.js";
@@ -18,6 +19,8 @@ import { ReadingService } from "./modules/readings/reading.service.js";
 import { MailService } from "./modules/mail/mail.service.js";
 import { PropertyService } from "./modules/properties/property.service.js";
 import { TenancyService } from "./modules/tenancies/tenancy.service.js";
+import { QueueService } from "./modules/triage/queue.service.js";
+import { TriageService } from "./modules/triage/triage.service.js";
 import { UserService } from "./modules/users/user.service.js";
 
 export interface Services {
@@ -26,12 +29,15 @@ export interface Services {
   assessments: AssessmentService;
   auth: AuthService;
   cases: CaseService;
+  digest: DigestService;
   evaluation: EvaluationService;
   imports: ReadingImportService;
   photos: PhotoService;
   readings: ReadingService;
   mail: MailService;
   properties: PropertyService;
+  queue: QueueService;
+  triage: TriageService;
   tenancies: TenancyService;
   users: UserService;
 }
@@ -60,7 +66,10 @@ export function createServices(config: Config, dataSource: DataSource, mailer: M
   const assessments = new AssessmentService(dataSource, cases);
   const inspections = new InspectionService(dataSource, config, cases, mail);
   const policy = new PolicyService(dataSource);
-  return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, readings, tenancies, users };
+  const triage = new TriageService(dataSource, cases, evaluation, policy, inspections);
+  const queue = new QueueService(dataSource, triage);
+  const digest = new DigestService(dataSource, config, mail, logger);
+  return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, queue, readings, tenancies, triage, users, digest };
 }
 
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */

@@ -20,7 +20,9 @@ import { createPropertiesRouter } from "./modules/properties/properties.routes.j
 import { openApiDocument } from "./modules/psychrometrics/openapi.js";
 import { createPsychrometricsRouter } from "./modules/psychrometrics/psychrometrics.routes.js";
 import { createMyHomeRouter } from "./modules/tenancies/tenancies.routes.js";
-import { createUsersRouter } from "./modules/users/users.routes.js";
+import { createTriageRouter } from "./modules/triage/triage.routes.js";
+import { createStaffRouter, createUsersRouter } from "./modules/users/users.routes.js";
+import { requireAuth } from "./middleware/auth.js";
 
 /** The whole HTTP app, without listening (tests drive it through supertest). */
 export function createApp(ctx: AppContext): Express {
@@ -73,6 +75,7 @@ export function createApp(ctx: AppContext): Express {
   api.use("/auth", createAuthRouter({ config, auth: services.auth, passport, csrfToken: generateToken }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
+  api.use("/cases", requireAuth, createTriageRouter({ cases: services.cases, queue: services.queue, triage: services.triage }));
   api.use("/cases", createCasesRouter({ cases: services.cases, photos: services.photos }));
   api.use("/cases", createReadingsRouter({ cases: services.cases, readings: services.readings, imports: services.imports, evaluation: services.evaluation }));
   api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
@@ -81,6 +84,7 @@ export function createApp(ctx: AppContext): Express {
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties }));
   api.use("/users", createUsersRouter({ users: services.users }));
+  api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use(apiNotFound);
 
   app.use("/api", api);

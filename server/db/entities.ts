@@ -7,6 +7,7 @@ import { HhsrsAssessmentRecord } from "../modules/assessments/assessment.entity.
 import { Inspection } from "../modules/inspections/inspection.entity.js";
 import { WrittenSummary } from "../modules/inspections/written-summary.entity.js";
 import { DeadlinePolicyRecord } from "../modules/policy/deadline-policy.entity.js";
+import { DeadlineDigest } from "../modules/digest/deadline-digest.entity.js";
 import { UserToken } from "../modules/auth/user-token.entity.js";
 import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
 import { Organisation } from "../modules/organisations/organisation.entity.js";
@@ -15,4 +16,4 @@ import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
 
-export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport, HhsrsAssessmentRecord, Inspection, WrittenSummary, DeadlinePolicyRecord];
+export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport, HhsrsAssessmentRecord, Inspection, WrittenSummary, DeadlinePolicyRecord, DeadlineDigest];

@@ -6,5 +6,7 @@ import { CaseAssigneeAndHazardClass1796184941727 } from "./migrations/1796184941
 import { HhsrsAssessments1796185629417 } from "./migrations/1796185629417-HhsrsAssessments.js";
 import { InspectionsAndSummaries1796185801114 } from "./migrations/1796185801114-InspectionsAndSummaries.js";
 import { DeadlinePolicies1796186425570 } from "./migrations/1796186425570-DeadlinePolicies.js";
+import { TriageFigures1796188877489 } from "./migrations/1796188877489-TriageFigures.js";
+import { DeadlineDigests1796189021283 } from "./migrations/1796189021283-DeadlineDigests.js";
 
-export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716, CaseAssigneeAndHazardClass1796184941727, HhsrsAssessments1796185629417, InspectionsAndSummaries1796185801114, DeadlinePolicies1796186425570];
+export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716, CaseAssigneeAndHazardClass1796184941727, HhsrsAssessments1796185629417, InspectionsAndSummaries1796185801114, DeadlinePolicies1796186425570, TriageFigures1796188877489, DeadlineDigests1796189021283];

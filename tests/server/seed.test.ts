@@ -42,6 +42,23 @@ it("creates the demo landlord once, with about 120 homes on three estates, and t
   );
   expect(a).not.toBe(b);
   expect(await tenancies.countBy({ propertyId: a })).toBe(1);
+  expect(first.cases).toBeGreaterThan(20);
+  expect(second.cases).toBe(0);
+});
+
+it("gives the officer a live queue: open and overdue cases, risk states from readings, an assessed one", async () => {
+  const officer = await signedInClient(t.app, "officer@example.org", "demo-password-2");
+  const { items, total } = (await officer.get("/api/cases?pageSize=200").expect(200)).body;
+  expect(total).toBeGreaterThan(20);
+  const open = items.filter((i: { status: string }) => !["closed", "cancelled"].includes(i.status));
+  expect(open.length).toBeGreaterThan(15);
+  expect(items.some((i: { overdue: boolean; vulnerableHousehold: boolean }) => i.overdue && i.vulnerableHousehold)).toBe(true);
+  expect(new Set(items.map((i: { riskState: string | null }) => i.riskState))).toEqual(new Set(["condensing", "mould-risk", "dry", null].filter((s) => items.some((i: { riskState: string | null }) => i.riskState === s))));
+  expect(items.some((i: { riskState: string | null }) => i.riskState === "condensing" || i.riskState === "mould-risk")).toBe(true);
+  expect(items.some((i: { hhsrs: unknown }) => i.hhsrs !== null)).toBe(true);
+  // The two named demo tenants start with no cases of their own, so the walkthrough begins clean.
+  const tenant2 = await signedInClient(t.app, "tenant2@example.org", "demo-password-2");
+  expect((await tenant2.get("/api/me/cases").expect(200)).body.items).toEqual([]);
 });
 
 it("refuses to seed when NODE_ENV=production", async () => {

@@ -10,6 +10,7 @@ import { Room, type RoomKind } from "../../modules/properties/room.entity.js";
 import { Tenancy } from "../../modules/tenancies/tenancy.entity.js";
 import { User, type Role } from "../../modules/users/user.entity.js";
 import { mulberry32 } from "../../lib/random.js";
+import { seedDemoCases } from "./demo-cases.js";
 
 export const DEMO_ORGANISATION = "Brackenfold Housing Association";
 const OTHER_ORGANISATION = "Fernhollow Lettings";
@@ -163,7 +164,7 @@ async function createOtherOrganisation(m: EntityManager, passwordHash: string) {
  * Creates the demo once; on later runs only resets the demo accounts' password to `password`.
  * Everything is written in one transaction, so an interrupted seed leaves nothing behind.
  */
-export async function seedDemo(dataSource: DataSource, password: string): Promise<{ created: boolean; homes?: number; tenants?: number }> {
+export async function seedDemo(dataSource: DataSource, password: string): Promise<{ created: boolean; homes?: number; tenants?: number; cases: number }> {
   const passwordHash = await hashPassword(password);
   return dataSource.transaction(async (m) => {
     const existing = await m.getRepository(Organisation).findOneBy({ name: DEMO_ORGANISATION });
@@ -171,10 +172,14 @@ export async function seedDemo(dataSource: DataSource, password: string): Promis
       for (const a of [...DEMO_ACCOUNTS, OTHER_ADMIN]) {
         await m.getRepository(User).update({ email: a.email }, { passwordHash, status: "active" });
       }
-      return { created: false };
+      // A demo seeded before there were demo cases gets them now.
+      const cases = await seedDemoCases(m, existing.id);
+      return { created: false, cases };
     }
     const counts = await createOrganisationWithHomes(m, passwordHash);
     await createOtherOrganisation(m, passwordHash);
-    return { created: true, ...counts };
+    const org = await m.getRepository(Organisation).findOneByOrFail({ name: DEMO_ORGANISATION });
+    const cases = await seedDemoCases(m, org.id);
+    return { created: true, ...counts, cases };
   });
 }

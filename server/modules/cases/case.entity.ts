@@ -1,5 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, JoinTable, ManyToMany, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from "typeorm";
-import type { HazardClass } from "../../../src/lib/domain/deadlines.js";
+import type { DeadlineStage, HazardClass } from "../../../src/lib/domain/deadlines.js";
+import type { SurfaceState } from "../../../src/lib/domain/surface.js";
 import type { Area, CaseStatus, Channel, Duration, Location, Observation, Vulnerability } from "../../../src/lib/schemas/case-report.js";
 import { Property } from "../properties/property.entity.js";
 import { Room } from "../properties/room.entity.js";
@@ -16,6 +17,12 @@ export interface Equipment {
 @Index("idx_cases_property", ["propertyId", "createdAt"])
 @Index("idx_cases_tenant", ["tenantUserId", "createdAt"])
 @Index("idx_cases_org_assignee", ["organisationId", "assigneeUserId"])
+@Index("idx_cases_org_due", ["organisationId", "nextDueAt"])
+@Index("idx_cases_triage_due", ["triageDueAt"])
+// Descending priority then ascending due time: the queue's default order. TypeORM cannot declare a
+// descending index, so the migration creates it and TypeORM leaves it alone.
+// (organisation_id, priority DESC, next_due_at)
+@Index("idx_cases_queue", { synchronize: false })
 export class Case {
   @PrimaryGeneratedColumn({ type: "int", unsigned: true })
   id: number;
@@ -97,6 +104,44 @@ export class Case {
   /** Set once officers have been told of a risky or vulnerable report, so they are told once. */
   @Column({ name: "officers_alerted_at", type: "datetime", precision: 3, nullable: true })
   officersAlertedAt: Date | null;
+
+  // Triage figures, kept on the case so the queue can filter and sort thousands of cases quickly.
+  // TriageService writes them; every change to a case marks them stale (triageDueAt = now) in the
+  // change's own transaction, and they are also due again when the clock moves the deadline factor.
+
+  /** The risk engine's worst surface state over the case's rooms; null while there are no readings. */
+  @Column({ name: "risk_state", type: "varchar", length: 12, nullable: true })
+  riskState: SurfaceState | null;
+
+  /** The VTT mould index at the latest reading (the highest over the case's rooms), 0–6; null while there are no readings. */
+  @Column({ name: "mould_index", type: "decimal", precision: 4, scale: 2, nullable: true, transformer: { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) } })
+  mouldIndex: number | null;
+
+  /** From the latest HHSRS assessment; null until assessed. */
+  @Column({ name: "hhsrs_band", type: "char", length: 1, nullable: true })
+  hhsrsBand: string | null;
+
+  @Column({ name: "hhsrs_category", type: "tinyint", unsigned: true, nullable: true })
+  hhsrsCategory: 1 | 2 | null;
+
+  /** Another case at the same home whose awareness date is within 12 months of this one's. */
+  @Column({ type: "boolean", default: false })
+  recurrence: boolean;
+
+  /** Triage priority 0–100 (src/lib/domain/triage-priority.ts). */
+  @Column({ type: "tinyint", unsigned: true, default: 0 })
+  priority: number;
+
+  /** The earliest deadline not yet done; null when none is running. nextDueAt may be past (overdue). */
+  @Column({ name: "next_stage", type: "varchar", length: 20, nullable: true })
+  nextStage: DeadlineStage | null;
+
+  @Column({ name: "next_due_at", type: "datetime", precision: 3, nullable: true })
+  nextDueAt: Date | null;
+
+  /** When the triage figures must be worked out again; null when they hold until the case changes. */
+  @Column({ name: "triage_due_at", type: "datetime", precision: 3, nullable: true, default: () => "CURRENT_TIMESTAMP(3)" })
+  triageDueAt: Date | null;
 
   @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })
   createdAt: Date;

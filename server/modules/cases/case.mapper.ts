@@ -6,6 +6,7 @@ export const toCaseDto = (c: Case) => ({
   reference: c.reference,
   status: c.status,
   assigneeId: c.assigneeUserId,
+  tenantUserId: c.tenantUserId,
   hazardClass: c.hazardClass,
   hazardClassReason: c.hazardClassReason,
   channel: c.channel,
@@ -26,11 +27,20 @@ export const toCaseDto = (c: Case) => ({
 });
 export type CaseDto = ReturnType<typeof toCaseDto>;
 
-export const toCaseEventDto = ({ event, actor }: { event: CaseEvent; actor: { name: string; role: string } | null }) => ({
+export interface CaseEventEmail {
+  status: string;
+  to: string;
+  template: string;
+  sentAt: string | null;
+  error: string | null;
+}
+
+export const toCaseEventDto = ({ event, actor, email }: { event: CaseEvent; actor: { name: string; role: string } | null; email: CaseEventEmail | null }) => ({
   id: Number(event.id),
   type: event.type,
   at: event.createdAt.toISOString(),
   actor,
   before: event.before,
   after: event.after,
+  email,
 });

@@ -6,6 +6,7 @@ import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.
 import { isStaff, type Actor } from "../auth/actor.js";
 import type { MailTemplateName } from "../mail/mail-templates.js";
 import type { MailService, SendMail } from "../mail/mail.service.js";
+import { OutboxEmail } from "../mail/outbox-email.entity.js";
 import { Organisation } from "../organisations/organisation.entity.js";
 import type { Property } from "../properties/property.entity.js";
 import type { PropertyService } from "../properties/property.service.js";
@@ -13,6 +14,7 @@ import { Room } from "../properties/room.entity.js";
 import { Tenancy } from "../tenancies/tenancy.entity.js";
 import type { TenancyService } from "../tenancies/tenancy.service.js";
 import { User } from "../users/user.entity.js";
+import { markTriageStale } from "../triage/triage.service.js";
 import { CaseEvent } from "./case-event.entity.js";
 import { Case } from "./case.entity.js";
 import type { CasePatch } from "./cases.schemas.js";
@@ -38,10 +40,15 @@ export class CaseService {
     private readonly tenancies: TenancyService,
   ) {}
 
+  /**
+   * Writes a CaseEvent in the caller's transaction. Every change to a case goes through here, so
+   * this is also where the case's triage figures are marked stale (see TriageService).
+   */
   async recordEvent(m: EntityManager, e: { caseId: number; actorId: number | null; type: string; before?: Record<string, unknown> | null; after?: Record<string, unknown> | null }) {
     await m.getRepository(CaseEvent).save(
       m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before: e.before ?? null, after: e.after ?? null }),
     );
+    await markTriageStale(m, { caseIds: [e.caseId] });
   }
 
   /** A tenant reports for their own home; staff log a report on a tenant's behalf with its channel and awareness date. */
@@ -106,6 +113,8 @@ export class CaseService {
       if (roomIds.length) {
         await m.createQueryBuilder().relation(Case, "rooms").of(saved.id).add(roomIds);
       }
+      // Another case at this home changes the others' recurrence.
+      await markTriageStale(m, { propertyId: property.id });
       await this.recordEvent(m, {
         caseId: saved.id,
         actorId: actor.id,
@@ -224,12 +233,21 @@ export class CaseService {
   async events(actor: Actor, id: number) {
     const c = await this.getForActor(actor, id);
     const all = await this.dataSource.getRepository(CaseEvent).find({ where: { caseId: c.id }, order: { id: "ASC" } });
-    // Internal notes are for staff only.
-    const events = isStaff(actor) ? all : all.filter((e) => e.type !== "internal-note");
+    const staff = isStaff(actor);
+    // Internal notes are for staff only, and so are e-mails to anyone but the tenant themselves.
+    const events = staff ? all : all.filter((e) => e.type !== "internal-note" && !(e.type === "email-queued" && e.after?.to !== actor.email));
     const actorIds = [...new Set(events.map((e) => e.actorUserId).filter((v): v is number => v !== null))];
     const users = actorIds.length ? await this.dataSource.getRepository(User).findBy({ id: In(actorIds) }) : [];
     const names = new Map(users.map((u) => [u.id, { name: u.name, role: u.role }]));
-    return events.map((e) => ({ event: e, actor: e.actorUserId === null ? null : (names.get(e.actorUserId) ?? null) }));
+    // Staff see each e-mail's delivery as the outbox records it now.
+    const outboxIds = staff ? [...new Set(events.map((e) => e.after?.outboxId).filter((v): v is number => typeof v === "number"))] : [];
+    const outbox = outboxIds.length ? await this.dataSource.getRepository(OutboxEmail).findBy({ id: In(outboxIds) }) : [];
+    const emails = new Map(outbox.map((o) => [o.id, { status: o.status, to: o.toAddress, template: o.template, sentAt: o.sentAt?.toISOString() ?? null, error: o.error }]));
+    return events.map((e) => ({
+      event: e,
+      actor: e.actorUserId === null ? null : (names.get(e.actorUserId) ?? null),
+      email: typeof e.after?.outboxId === "number" ? (emails.get(e.after.outboxId) ?? null) : null,
+    }));
   }
 
   /** "It's got worse": recorded on the timeline, and officers are told if they have not been yet. */

@@ -6,6 +6,8 @@ import {
   type ElementId,
   type PointResult,
   type SeriesResult,
+  type SurfaceState,
+  SURFACE_STATES,
 } from "../../../src/lib/domain/index.js";
 import type { Actor } from "../auth/actor.js";
 import type { Case } from "../cases/case.entity.js";
@@ -43,6 +45,20 @@ export class EvaluationService {
   async forCase(actor: Actor, caseId: number): Promise<{ statement: string; rooms: RoomEvaluation[] }> {
     const c = await this.cases.getForActor(actor, caseId);
     return { statement: INVESTIGATION_STATEMENT, rooms: await this.evaluate(c) };
+  }
+
+  /** The worst surface state and the highest current mould index over the case's rooms; nulls while there are no readings. */
+  async riskOf(c: Case): Promise<{ state: SurfaceState | null; mouldIndex: number | null }> {
+    const rooms = await this.evaluate(c);
+    let state: SurfaceState | null = null;
+    let mouldIndex: number | null = null;
+    for (const room of rooms) {
+      for (const s of room.surfaces) {
+        if (state === null || SURFACE_STATES.indexOf(s.result.surface.state) > SURFACE_STATES.indexOf(state)) state = s.result.surface.state;
+      }
+      if (room.series) mouldIndex = Math.max(mouldIndex ?? 0, room.series.mouldIndex.final);
+    }
+    return { state, mouldIndex };
   }
 
   private async evaluate(c: Case): Promise<RoomEvaluation[]> {

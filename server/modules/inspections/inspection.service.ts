@@ -86,16 +86,20 @@ export class InspectionService {
         await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "internal-note", after: { body } });
         return null;
       }
-      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "message-to-tenant", after: { body } });
-      if (c.tenantUserId === null) return null;
+      if (c.tenantUserId === null) {
+        await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "message-to-tenant", after: { body } });
+        return null;
+      }
       const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
-      return this.mail.enqueue(m, {
+      const { outboxId, deliver } = await this.mail.enqueueWithId(m, {
         to: tenant.email,
         template: "caseMessage",
         organisationId: c.organisationId,
         related: { type: "case", id: c.id },
         data: { name: tenant.name, reference: c.reference!, senderName: actor.name, body, link: `${this.config.appUrl}/cases/${c.id}` },
       });
+      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "message-to-tenant", after: { body, outboxId } });
+      return deliver;
     });
     if (deliver) await deliver();
   }

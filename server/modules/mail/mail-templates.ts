@@ -72,6 +72,39 @@ export const mailTemplates = {
       text: [`Hello ${d.name},`, "", d.body, "", "The summary is also on your case page:", d.link].join("\n"),
     };
   },
+  deadlineDigest(d: {
+    name: string;
+    /** The London day the digest is for, in words ("Tuesday 3 December 2024"). */
+    date: string;
+    /** The end of the window, in words ("the end of Thursday 5 December 2024"). */
+    windowEnd: string;
+    /** Overdue first, then by due time. */
+    items: { reference: string; address: string; stage: string; due: string; overdue: boolean; assignedToYou: boolean; link: string }[];
+    queueLink: string;
+  }): RenderedMail {
+    const overdue = d.items.filter((i) => i.overdue).length;
+    const count = (n: number) => `${n} ${n === 1 ? "case" : "cases"}`;
+    return {
+      subject: `Deadlines for ${d.date}: ${count(d.items.length)}${overdue ? `, ${overdue} overdue` : ""}`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `These damp and mould cases have a deadline that has passed or falls due by ${d.windowEnd} (the next two working days). Overdue cases come first.`,
+        "",
+        ...d.items.flatMap((i) => [
+          `${i.overdue ? "OVERDUE: " : ""}${i.reference}, ${i.address}`,
+          `  ${i.stage}: ${i.overdue ? `was due ${i.due}, and is now overdue` : `due ${i.due}`}`,
+          `  ${i.assignedToYou ? "Assigned to you" : "Not assigned to anyone yet"}`,
+          `  ${i.link}`,
+          "",
+        ]),
+        "Every case with a deadline in the next two days, in the queue:",
+        d.queueLink,
+        "",
+        "Times are UK time. Working days leave out weekends and bank holidays in England and Wales.",
+      ].join("\n"),
+    };
+  },
 } as const;
 
 export type MailTemplateName = keyof typeof mailTemplates;

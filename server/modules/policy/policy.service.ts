@@ -1,6 +1,7 @@
 import type { DataSource } from "typeorm";
 import { ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, type DeadlinePolicy } from "../../../src/lib/domain/deadlines.js";
 import type { Actor } from "../auth/actor.js";
+import { markTriageStale } from "../triage/triage.service.js";
 import { DeadlinePolicyRecord } from "./deadline-policy.entity.js";
 
 export interface PolicyView extends DeadlinePolicy {
@@ -19,12 +20,19 @@ export class PolicyService {
   }
 
   async update(actor: Actor, policy: DeadlinePolicy): Promise<PolicyView> {
-    await this.dataSource.getRepository(DeadlinePolicyRecord).save({ organisationId: actor.organisationId, ...policy, updatedById: actor.id });
+    await this.dataSource.transaction(async (m) => {
+      await m.getRepository(DeadlinePolicyRecord).save({ organisationId: actor.organisationId, ...policy, updatedById: actor.id });
+      // Every open case's deadlines follow the policy.
+      await markTriageStale(m, { organisationId: actor.organisationId });
+    });
     return this.forOrganisation(actor.organisationId);
   }
 
   async reset(actor: Actor): Promise<PolicyView> {
-    await this.dataSource.getRepository(DeadlinePolicyRecord).delete({ organisationId: actor.organisationId });
+    await this.dataSource.transaction(async (m) => {
+      await m.getRepository(DeadlinePolicyRecord).delete({ organisationId: actor.organisationId });
+      await markTriageStale(m, { organisationId: actor.organisationId });
+    });
     return this.forOrganisation(actor.organisationId);
   }
 }

@@ -1,4 +1,4 @@
-import { Brackets, type DataSource } from "typeorm";
+import { Brackets, In, type DataSource } from "typeorm";
 import { ConflictError, NotFoundError } from "../../lib/errors.js";
 import { escapeLike } from "../../lib/sql.js";
 import type { Actor } from "../auth/actor.js";
@@ -7,6 +7,14 @@ import type { UserListQuery } from "./users.schemas.js";
 
 export class UserService {
   constructor(private readonly dataSource: DataSource) {}
+
+  /** Active officers, maintenance staff and admins of the actor's landlord, by name. */
+  async activeStaff(actor: Actor): Promise<User[]> {
+    return this.dataSource.getRepository(User).find({
+      where: { organisationId: actor.organisationId, status: "active", role: In(["officer", "maintenance", "admin"]) },
+      order: { name: "ASC" },
+    });
+  }
 
   async list(actor: Actor, query: UserListQuery): Promise<{ items: User[]; total: number }> {
     const qb = this.dataSource.getRepository(User).createQueryBuilder("u").where("u.organisation_id = :org", { org: actor.organisationId });

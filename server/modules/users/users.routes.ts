@@ -1,6 +1,6 @@
 import { Router } from "express";
 import { parse } from "../../lib/validation.js";
-import { actorOf, requireRole } from "../../middleware/auth.js";
+import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import { toUserDto } from "./user.mapper.js";
 import type { UserService } from "./user.service.js";
@@ -22,5 +22,15 @@ export function createUsersRouter({ users }: { users: UserService }): Router {
     res.json(toUserDto(await users.setStatus(actorOf(req), id, status)));
   });
 
+  return router;
+}
+
+/** `GET /api/staff`: the landlord's active staff, the people a case can be assigned to (any staff role). */
+export function createStaffRouter({ users }: { users: UserService }): Router {
+  const router = Router();
+  router.get("/", requireStaff, async (req, res) => {
+    const staff = await users.activeStaff(actorOf(req));
+    res.json({ users: staff.map((u) => ({ id: u.id, name: u.name, role: u.role })) });
+  });
   return router;
 }

@@ -101,5 +101,6 @@ export {
   TRIAGE_VULNERABILITIES,
   TRIAGE_WEIGHTS,
   triagePriority,
+  hoursUntilDeadlinePartChanges,
 } from "./triage-priority.js";
 export type { TriageArea, TriageFactor, TriageInput, TriagePart, TriagePriority, TriageVulnerability } from "./triage-priority.js";

@@ -245,3 +245,20 @@ export function triagePriority(input: TriageInput): TriagePriority {
   // The maxima total 100, so this clamp is a guard that never cuts: parts always add up to the score.
   return { score: Math.max(0, Math.min(MAX_TRIAGE_SCORE, total)), parts };
 }
+
+/**
+ * Hours from now until the deadline factor of a case whose next deadline is `hoursUntilDeadline`
+ * away next changes by the clock alone (a step boundary is crossed, or the deadline passes);
+ * null when it will not change again (already overdue, or no deadline). A queue keeps its stored
+ * scores true by working them out again at that moment.
+ */
+export function hoursUntilDeadlinePartChanges(hoursUntilDeadline: number | null): number | null {
+  if (isAbsent(hoursUntilDeadline)) return null;
+  requireFinite(hoursUntilDeadline, "hours until deadline");
+  if (hoursUntilDeadline < 0) return null;
+  // Steps apply up to and including their hours, so the part changes once `hours` reaches the next
+  // step down; at 0 it is still "due", and overdue strictly after.
+  const boundaries = [...TRIAGE_WEIGHTS.deadline.steps.map((s) => s.withinHours), 0].sort((a, b) => b - a);
+  const next = boundaries.find((b) => b < hoursUntilDeadline);
+  return next === undefined ? hoursUntilDeadline : hoursUntilDeadline - next;
+}

@@ -1,0 +1,200 @@
+import { Brackets, type DataSource, type SelectQueryBuilder } from "typeorm";
+import { CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
+import { SURFACE_STATES } from "../../../src/lib/domain/surface.js";
+import { TRIAGE_AREAS } from "../../../src/lib/domain/triage-priority.js";
+import { escapeLike } from "../../lib/sql.js";
+import type { Actor } from "../auth/actor.js";
+import { Case } from "../cases/case.entity.js";
+import { User } from "../users/user.entity.js";
+import type { QueueQuery, QueueSort } from "./queue.schemas.js";
+import type { TriageService } from "./triage.service.js";
+
+export interface QueueRow {
+  id: number;
+  reference: string;
+  status: string;
+  channel: string;
+  awareAt: Date;
+  createdAt: Date;
+  propertyId: number;
+  addressLine1: string;
+  town: string;
+  postcode: string;
+  estate: string;
+  block: string | null;
+  riskState: string | null;
+  mouldIndex: string | null;
+  area: string | null;
+  vulnerableHousehold: number;
+  hazardClass: string | null;
+  hhsrsBand: string | null;
+  hhsrsCategory: number | null;
+  priority: number;
+  nextStage: string | null;
+  nextDueAt: Date | null;
+  assigneeId: number | null;
+  assigneeName: string | null;
+}
+
+const sqlList = (values: readonly string[]) => values.map((v) => `'${v}'`).join(", ");
+
+/**
+ * Sort expressions. Fixed strings only (never user text). Nullable columns sort their nulls last
+ * in both directions; ordered vocabularies sort in their meaning's order, not alphabetically.
+ */
+const SORTS: Record<Exclude<QueueSort, "priority">, { expr: string; nullable: boolean }> = {
+  reference: { expr: "c.reference", nullable: false },
+  address: { expr: "NATURAL_SORT_KEY(p.address_line1)", nullable: false },
+  estate: { expr: "p.estate", nullable: false },
+  rooms: { expr: "(SELECT MIN(r.name) FROM case_rooms cr JOIN rooms r ON r.id = cr.room_id WHERE cr.case_id = c.id)", nullable: true },
+  awareAt: { expr: "c.aware_at", nullable: false },
+  channel: { expr: "c.channel", nullable: false },
+  // FIELD() gives 0 for NULL: no readings sorts below dry.
+  risk: { expr: `FIELD(c.risk_state, ${sqlList(SURFACE_STATES)})`, nullable: false },
+  mouldIndex: { expr: "c.mould_index", nullable: true },
+  area: { expr: `FIELD(c.area, ${sqlList(TRIAGE_AREAS)})`, nullable: true },
+  vulnerable: { expr: "c.vulnerable_household", nullable: false },
+  // Band A is the most serious; ascending puts A first.
+  band: { expr: "c.hhsrs_band", nullable: true },
+  due: { expr: "c.next_due_at", nullable: true },
+  status: { expr: `FIELD(c.status, ${sqlList(CASE_STATUSES)})`, nullable: false },
+  assignee: { expr: "u.name", nullable: true },
+};
+
+/** The officers' queue: one landlord's cases filtered, sorted and paged on the stored triage figures. */
+export class QueueService {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly triage: TriageService,
+  ) {}
+
+  async list(actor: Actor, query: QueueQuery, now = new Date()): Promise<{ rows: QueueRow[]; rooms: Map<number, { id: number; name: string }[]>; total: number }> {
+    // Figures marked stale by a change (or by the clock) are worked out before anyone reads them.
+    await this.triage.refreshStale(actor.organisationId, 50);
+
+    const base = this.dataSource.getRepository(Case).createQueryBuilder("c").where("c.organisation_id = :org", { org: actor.organisationId });
+    const needsProperty = this.applyFilters(base, actor, query, now);
+
+    const counter = base.clone().select("COUNT(*)", "n");
+    if (needsProperty) counter.innerJoin("c.property", "p");
+    const list = base
+      .clone()
+      .innerJoin("c.property", "p")
+      .leftJoin(User, "u", "u.id = c.assignee_user_id")
+      .select([
+        "c.id AS id",
+        "c.reference AS reference",
+        "c.status AS status",
+        "c.channel AS channel",
+        "c.aware_at AS awareAt",
+        "c.created_at AS createdAt",
+        "p.id AS propertyId",
+        "p.address_line1 AS addressLine1",
+        "p.town AS town",
+        "p.postcode AS postcode",
+        "p.estate AS estate",
+        "p.block AS block",
+        "c.risk_state AS riskState",
+        "c.mould_index AS mouldIndex",
+        "c.area AS area",
+        "c.vulnerable_household AS vulnerableHousehold",
+        "c.hazard_class AS hazardClass",
+        "c.hhsrs_band AS hhsrsBand",
+        "c.hhsrs_category AS hhsrsCategory",
+        "c.priority AS priority",
+        "c.next_stage AS nextStage",
+        "c.next_due_at AS nextDueAt",
+        "u.id AS assigneeId",
+        "u.name AS assigneeName",
+      ]);
+    this.applySort(list, query);
+    list.offset((query.page - 1) * query.pageSize).limit(query.pageSize);
+
+    const [rows, count] = await Promise.all([list.getRawMany<QueueRow>(), counter.getRawOne<{ n: string | number }>()]);
+    return { rows, rooms: await this.roomsOf(rows.map((r) => r.id)), total: Number(count?.n ?? 0) };
+  }
+
+  /** Adds the WHERE clauses; says whether any of them needs the home (`p`). */
+  private applyFilters(qb: SelectQueryBuilder<Case>, actor: Actor, query: QueueQuery, now: Date): boolean {
+    let needsProperty = false;
+    if (query.status?.length) qb.andWhere("c.status IN (:...statuses)", { statuses: query.status });
+    if (query.risk?.length) {
+      const states = query.risk.filter((r) => r !== "unknown");
+      const unknown = query.risk.includes("unknown");
+      qb.andWhere(
+        new Brackets((w) => {
+          if (states.length) w.orWhere("c.risk_state IN (:...states)", { states });
+          if (unknown) w.orWhere("c.risk_state IS NULL");
+        }),
+      );
+    }
+    if (query.category?.length) {
+      const categories = query.category.filter((v) => v !== "none").map(Number);
+      const none = query.category.includes("none");
+      qb.andWhere(
+        new Brackets((w) => {
+          if (categories.length) w.orWhere("c.hhsrs_category IN (:...categories)", { categories });
+          if (none) w.orWhere("c.hhsrs_category IS NULL");
+        }),
+      );
+    }
+    if (query.band?.length) qb.andWhere("c.hhsrs_band IN (:...bands)", { bands: query.band });
+    if (query.estate) {
+      qb.andWhere("p.estate = :estate", { estate: query.estate });
+      needsProperty = true;
+    }
+    if (query.vulnerable !== undefined) qb.andWhere("c.vulnerable_household = :vulnerable", { vulnerable: query.vulnerable });
+    if (query.overdue === true) qb.andWhere("c.next_due_at < :now", { now });
+    if (query.overdue === false) qb.andWhere("(c.next_due_at IS NULL OR c.next_due_at >= :now)", { now });
+    if (query.dueWithin !== undefined) qb.andWhere("c.next_due_at <= :dueBy", { dueBy: new Date(now.getTime() + query.dueWithin * 86_400_000) });
+    if (query.assignee === "me") qb.andWhere("c.assignee_user_id = :me", { me: actor.id });
+    else if (query.assignee === "unassigned") qb.andWhere("c.assignee_user_id IS NULL");
+    else if (query.assignee) qb.andWhere("c.assignee_user_id = :assignee", { assignee: Number(query.assignee) });
+    if (query.q) {
+      const like = `%${escapeLike(query.q)}%`;
+      const compact = `%${escapeLike(query.q.replace(/\s+/g, ""))}%`;
+      qb.andWhere(
+        new Brackets((w) =>
+          w
+            .where("c.reference LIKE :like", { like })
+            .orWhere("p.address_line1 LIKE :like", { like })
+            .orWhere("p.town LIKE :like", { like })
+            .orWhere("REPLACE(p.postcode, ' ', '') LIKE :compact", { compact }),
+        ),
+      );
+      needsProperty = true;
+    }
+    return needsProperty;
+  }
+
+  private applySort(qb: SelectQueryBuilder<Case>, query: QueueQuery) {
+    if (query.sort === "priority") {
+      // The default order, served by idx_cases_queue: priority, then the nearest deadline.
+      const dir = query.order === "asc" ? "ASC" : "DESC";
+      qb.orderBy("c.priority", dir).addOrderBy("c.next_due_at", dir === "DESC" ? "ASC" : "DESC").addOrderBy("c.id", "ASC");
+      return;
+    }
+    const { expr, nullable } = SORTS[query.sort];
+    const dir = query.order === "desc" ? "DESC" : "ASC";
+    qb.orderBy();
+    if (nullable) qb.addOrderBy(`(${expr}) IS NULL`, "ASC");
+    qb.addOrderBy(expr, dir).addOrderBy("c.id", "ASC");
+  }
+
+  private async roomsOf(caseIds: number[]): Promise<Map<number, { id: number; name: string }[]>> {
+    const out = new Map<number, { id: number; name: string }[]>();
+    if (!caseIds.length) return out;
+    const rows: { caseId: number; id: number; name: string }[] = await this.dataSource.query(
+      "SELECT cr.case_id AS caseId, r.id AS id, r.name AS name FROM case_rooms cr JOIN rooms r ON r.id = cr.room_id WHERE cr.case_id IN (?) ORDER BY r.name",
+      [caseIds],
+    );
+    for (const r of rows) out.set(r.caseId, [...(out.get(r.caseId) ?? []), { id: r.id, name: r.name }]);
+    return out;
+  }
+
+  /** Other cases at the same home as this one, newest first. */
+  async related(c: Case): Promise<Case[]> {
+    const all = await this.dataSource.getRepository(Case).find({ where: { propertyId: c.propertyId, organisationId: c.organisationId }, order: { awareAt: "DESC" }, take: 50 });
+    return all.filter((o) => o.id !== c.id);
+  }
+}

@@ -1,0 +1,60 @@
+import { Router } from "express";
+import { AppError } from "../../lib/errors.js";
+import { parse } from "../../lib/validation.js";
+import { actorOf, requireRole } from "../../middleware/auth.js";
+import type { CaseService } from "../cases/case.service.js";
+import { idParamsSchema } from "../properties/properties.schemas.js";
+import { toQueueItemDto } from "./queue.mapper.js";
+import { bulkUpdateSchema, queueQuerySchema } from "./queue.schemas.js";
+import type { QueueService } from "./queue.service.js";
+import type { TriageService } from "./triage.service.js";
+
+/** Mounted at /api/cases before the cases router: the queue, bulk changes, priority breakdown and related cases. */
+export function createTriageRouter({ cases, queue, triage }: { cases: CaseService; queue: QueueService; triage: TriageService }): Router {
+  const router = Router();
+  const staff = requireRole("officer", "maintenance", "admin");
+  const officers = requireRole("officer", "admin");
+
+  router.get("/", staff, async (req, res) => {
+    const query = parse(queueQuerySchema, req.query, "query");
+    const now = new Date();
+    const { rows, rooms, total } = await queue.list(actorOf(req), query, now);
+    res.json({ items: rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now)), total, page: query.page, pageSize: query.pageSize });
+  });
+
+  router.post("/bulk", officers, async (req, res) => {
+    const { ids, status, assigneeId, reason } = parse(bulkUpdateSchema, req.body);
+    const actor = actorOf(req);
+    const updated: number[] = [];
+    const failed: { id: number; reference: string | null; message: string }[] = [];
+    // Each case changes in its own transaction, by the same rules as PATCH /api/cases/:id.
+    for (const id of [...new Set(ids)]) {
+      try {
+        await cases.update(actor, id, { status, assigneeId, reason });
+        updated.push(id);
+      } catch (error) {
+        if (!(error instanceof AppError)) throw error;
+        const reference = await cases.getForActor(actor, id).then((c) => c.reference, () => null);
+        failed.push({ id, reference, message: error.message });
+      }
+    }
+    res.json({ updated, failed });
+  });
+
+  router.get("/:id/triage", staff, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const { score, parts, computedAt } = await triage.breakdown(actorOf(req), id);
+    res.json({ score, parts, computedAt: computedAt.toISOString() });
+  });
+
+  router.get("/:id/related", staff, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const c = await cases.getForActor(actorOf(req), id);
+    const others = await queue.related(c);
+    res.json({
+      cases: others.map((o) => ({ id: o.id, reference: o.reference, status: o.status, awareAt: o.awareAt.toISOString(), hazardClass: o.hazardClass, description: o.description.slice(0, 200) })),
+    });
+  });
+
+  return router;
+}

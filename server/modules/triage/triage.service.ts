@@ -1,0 +1,132 @@
+import { type DataSource, type EntityManager } from "typeorm";
+import { computeDeadlines, type Deadline } from "../../../src/lib/domain/deadlines.js";
+import { hoursUntilDeadlinePartChanges, triagePriority, type TriagePriority, type TriageVulnerability } from "../../../src/lib/domain/triage-priority.js";
+import type { Actor } from "../auth/actor.js";
+import { HhsrsAssessmentRecord } from "../assessments/assessment.entity.js";
+import { Case } from "../cases/case.entity.js";
+import type { CaseService } from "../cases/case.service.js";
+import type { EvaluationService } from "../evaluation/evaluation.service.js";
+import type { InspectionService } from "../inspections/inspection.service.js";
+import type { PolicyService } from "../policy/policy.service.js";
+import { OPEN_STATUSES } from "./queue.schemas.js";
+
+const HOUR_MS = 3_600_000;
+const YEAR_MS = 365 * 24 * HOUR_MS;
+
+/** The earliest deadline not yet done, passed or not; none for a closed or cancelled case. */
+export function nextDeadline(status: Case["status"], deadlines: Deadline[]): Deadline | null {
+  if (!OPEN_STATUSES.includes(status)) return null;
+  const running = deadlines.filter((d) => d.doneAt === null && d.dueAt !== null && (d.state === "pending" || d.state === "missed"));
+  running.sort((a, b) => a.dueAt!.getTime() - b.dueAt!.getTime());
+  return running[0] ?? null;
+}
+
+/** Marks cases' triage figures stale inside the caller's transaction (see TriageService). */
+export async function markTriageStale(m: EntityManager, where: { caseIds: number[] } | { propertyId: number } | { organisationId: number }): Promise<void> {
+  const qb = m.createQueryBuilder().update(Case).set({ triageDueAt: () => "CURRENT_TIMESTAMP(3)" });
+  if ("caseIds" in where) qb.where("id IN (:...ids)", { ids: where.caseIds.length ? where.caseIds : [0] });
+  else if ("propertyId" in where) qb.where("property_id = :p", { p: where.propertyId });
+  else qb.where("organisation_id = :o AND status IN (:...open)", { o: where.organisationId, open: OPEN_STATUSES });
+  await qb.execute();
+}
+
+/**
+ * The triage figures stored on each case for the queue (risk state, mould index, HHSRS result,
+ * recurrence, next deadline, priority).
+ *
+ * How they stay true: every change to a case writes a CaseEvent, and writing one marks the case's
+ * figures stale (`triage_due_at` = now) in the change's own transaction. Readers (the queue, the
+ * case page) and a background sweep work stale cases out again. A figure that changes with the
+ * clock alone (the deadline factor) sets `triage_due_at` to the moment it changes. A refresh holds
+ * the case row's lock, so a change made meanwhile marks the case stale again after it and is not
+ * lost; a process that dies halfway leaves the mark in place for the next reader.
+ */
+export class TriageService {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly cases: CaseService,
+    private readonly evaluation: EvaluationService,
+    private readonly policy: PolicyService,
+    private readonly inspections: InspectionService,
+  ) {}
+
+  /** Works one case's figures out now and stores them; returns the priority with its parts. */
+  async refresh(caseId: number, now = new Date()): Promise<TriagePriority | null> {
+    return this.dataSource.transaction(async (m) => {
+      const locked: unknown[] = await m.query("SELECT id FROM cases WHERE id = ? FOR UPDATE", [caseId]);
+      if (locked.length === 0) return null;
+      const c = await m.getRepository(Case).findOneOrFail({ where: { id: caseId }, relations: { rooms: true, property: { rooms: true } } });
+      const facts = await this.factsFor(m, c, now);
+      const priority = triagePriority(facts.input);
+      const changesInHours = hoursUntilDeadlinePartChanges(facts.input.hoursUntilDeadline);
+      await m.getRepository(Case).update(c.id, {
+        riskState: facts.risk.state,
+        mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
+        hhsrsBand: facts.latestAssessment?.band ?? null,
+        hhsrsCategory: (facts.latestAssessment?.category as 1 | 2 | undefined) ?? null,
+        recurrence: facts.input.recurrence,
+        priority: priority.score,
+        nextStage: facts.next?.stage ?? null,
+        nextDueAt: facts.next?.dueAt ?? null,
+        // 1 ms past the boundary, so the step has certainly been crossed when it is worked out again.
+        triageDueAt: changesInHours === null ? null : new Date(now.getTime() + changesInHours * HOUR_MS + 1),
+        // Keep updated_at for real changes to the case, not for its derived figures.
+        updatedAt: () => "updated_at",
+      } as unknown as Partial<Case>);
+      return priority;
+    });
+  }
+
+  /** Refreshes up to `limit` stale cases (of one landlord, or all); returns how many. */
+  async refreshStale(organisationId?: number, limit = 100): Promise<number> {
+    const qb = this.dataSource.getRepository(Case).createQueryBuilder("c").select("c.id", "id").where("c.triage_due_at <= CURRENT_TIMESTAMP(3)");
+    if (organisationId !== undefined) qb.andWhere("c.organisation_id = :org", { org: organisationId });
+    const rows: { id: number }[] = await qb.orderBy("c.triage_due_at", "ASC").limit(limit).getRawMany();
+    for (const { id } of rows) await this.refresh(id);
+    return rows.length;
+  }
+
+  /** The case page's "how the priority was made up", worked out now. */
+  async breakdown(actor: Actor, caseId: number): Promise<TriagePriority & { computedAt: Date }> {
+    const c = await this.cases.getForActor(actor, caseId);
+    const now = new Date();
+    const priority = await this.refresh(c.id, now);
+    return { ...priority!, computedAt: now };
+  }
+
+  private async factsFor(m: EntityManager, c: Case, now: Date) {
+    const [policy, milestones, risk, latestAssessment, recurrence] = await Promise.all([
+      this.policy.forOrganisation(c.organisationId),
+      this.inspections.milestones(c.id),
+      this.evaluation.riskOf(c),
+      m.getRepository(HhsrsAssessmentRecord).findOne({ where: { caseId: c.id }, order: { version: "DESC" } }),
+      m
+        .getRepository(Case)
+        .createQueryBuilder("o")
+        .where("o.property_id = :p AND o.id <> :id AND o.aware_at BETWEEN :from AND :to", {
+          p: c.propertyId,
+          id: c.id,
+          from: new Date(c.awareAt.getTime() - YEAR_MS),
+          to: new Date(c.awareAt.getTime() + YEAR_MS),
+        })
+        .getExists(),
+    ]);
+    const { source: _source, ...timeframes } = policy;
+    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now, policy: timeframes });
+    const next = nextDeadline(c.status, deadlines);
+    return {
+      risk,
+      latestAssessment,
+      next,
+      input: {
+        surfaceState: risk.state ?? ("unknown" as const),
+        mouldIndex: risk.mouldIndex,
+        affectedArea: c.area ?? ("unknown" as const),
+        vulnerabilities: c.vulnerability === null ? ("skipped" as const) : (c.vulnerability as TriageVulnerability[]),
+        hhsrsCategory: (latestAssessment?.category as 1 | 2 | undefined) ?? null,
+        recurrence,
+        hoursUntilDeadline: next ? (next.dueAt!.getTime() - now.getTime()) / HOUR_MS : null,
+      },
+    };
+  }
+}

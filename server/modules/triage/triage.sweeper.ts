@@ -1,0 +1,28 @@
+import type { Logger } from "../../lib/logger.js";
+import type { TriageService } from "./triage.service.js";
+
+const SWEEP_EVERY_MS = 30_000;
+
+/**
+ * Works out stale triage figures in the background (cases changed while nobody looked at the queue,
+ * or whose deadline factor has moved with the clock), so e-mail digests and reports read true figures.
+ * Returns a stop function.
+ */
+export function startTriageSweeper(triage: TriageService, logger: Logger): () => void {
+  let running = false;
+  const timer = setInterval(() => {
+    if (running) return;
+    running = true;
+    triage
+      .refreshStale(undefined, 500)
+      .then((n) => {
+        if (n) logger.debug({ refreshed: n }, "triage figures refreshed");
+      })
+      .catch((error: unknown) => logger.error({ err: error }, "triage sweep failed"))
+      .finally(() => {
+        running = false;
+      });
+  }, SWEEP_EVERY_MS);
+  timer.unref();
+  return () => clearInterval(timer);
+}
