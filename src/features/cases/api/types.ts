@@ -29,6 +29,11 @@ export interface CaseDto {
   property: { id: number; addressLine1?: string; addressLine2?: string | null; town?: string; postcode?: string; estate?: string };
   rooms: CaseRoom[];
   homeRooms: CaseRoom[];
+  /** Staff views: who looks after the case, and how serious the hazard was judged (and why). */
+  assigneeId?: number | null;
+  hazardClass?: "emergency" | "significant" | "not-significant" | string | null;
+  hazardClassReason?: string | null;
+  tenantUserId?: number | null;
 }
 
 export interface CaseEvent {
@@ -38,6 +43,16 @@ export interface CaseEvent {
   actor: { name: string; role: string } | null;
   before: Record<string, unknown> | null;
   after: Record<string, unknown> | null;
+  /** Staff only: the e-mail this event queued, and how its sending went. */
+  email?: CaseEventEmail | null;
+}
+
+export interface CaseEventEmail {
+  status: "pending" | "sent" | "failed" | string;
+  to: string;
+  template: string;
+  sentAt: string | null;
+  error: string | null;
 }
 
 export interface CasePhoto {

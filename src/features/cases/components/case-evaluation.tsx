@@ -10,6 +10,8 @@ interface CaseEvaluationViewProps {
   evaluation: CaseEvaluation;
   /** Shown when there are no readings: how to add some (the page knows where the button is). */
   emptyHint?: string;
+  /** Staff views leave out the prompt addressed to the tenant ("tell your landlord"). */
+  audience?: "tenant" | "staff";
 }
 
 const hoursText = (h: number) => `${fixed(h, h < 10 ? 1 : 0)} ${h === 1 ? "hour" : "hours"}`;
@@ -19,10 +21,10 @@ const hoursText = (h: number) => `${fixed(h, h < 10 ? 1 : 0)} ${h === 1 ? "hour"
  * what the readings over time suggest. Always with the cautions, and always with the promise that
  * the report is looked into whatever the numbers say.
  */
-export function CaseEvaluationView({ evaluation, emptyHint }: CaseEvaluationViewProps) {
+export function CaseEvaluationView({ evaluation, emptyHint, audience = "tenant" }: CaseEvaluationViewProps) {
   return (
     <div className="flex flex-col gap-5">
-      <ReportStillMatters />
+      {audience === "tenant" ? <ReportStillMatters /> : null}
       {evaluation.statement ? <p className="font-semibold">{evaluation.statement}</p> : null}
       {evaluation.rooms.length === 0 ? (
         <p className="text-ink-soft">

@@ -1,7 +1,7 @@
 import type { ReactNode } from "react";
 import { formatDateTime } from "@/lib/dates";
 import { isRole, roleLabels } from "@/lib/roles";
-import type { CaseEvent, CaseRoom } from "../api/types";
+import type { CaseEvent, CaseEventEmail, CaseRoom } from "../api/types";
 import { humanise, statusLabel, statusMeaning } from "../labels";
 
 export type Audience = "tenant" | "staff";
@@ -11,6 +11,8 @@ interface CaseTimelineProps {
   rooms: readonly CaseRoom[];
   /** Tenants read "you"; staff read names, and see who e-mails went to. */
   audience?: Audience;
+  /** Staff views: names for user ids an event mentions (the assignee). */
+  staffNames?: ReadonlyMap<number, string>;
 }
 
 interface Entry {
@@ -30,7 +32,7 @@ function byWhom(event: CaseEvent, audience: Audience): string {
 }
 
 /** One plain sentence (and sometimes a detail) for each kind of event; unknown kinds still show. */
-export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audience: Audience = "tenant"): Entry {
+export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audience: Audience = "tenant", staffNames?: ReadonlyMap<number, string>): Entry {
   const after = event.after ?? {};
   const before = event.before ?? {};
   const roomName = (id: unknown) => rooms.find((r) => r.id === id)?.name;
@@ -43,6 +45,8 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
       return { title: you ? "You sent this report." : who ? `${who} logged this report.` : "The report was received." };
     case "email-queued": {
       const to = str(after.to);
+      // Staff see below whether it has actually left the outbox.
+      if (audience === "staff" && event.email) return { title: "An e-mail about this report was queued." };
       return { title: audience === "staff" && to ? `An e-mail about this report was sent to ${to}.` : "An e-mail about this report was sent." };
     }
     case "photos-added": {
@@ -79,9 +83,11 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
     case "status-changed": {
       const to = str(after.status);
       const from = str(before.status);
+      const reason = audience === "staff" ? str(after.reason) : undefined;
       return {
-        title: to ? `The status changed to “${statusLabel(to)}”.` : "The status changed.",
-        detail: [from ? `It was “${statusLabel(from)}”.` : "", to ? (statusMeaning(to) ?? "") : ""].filter(Boolean).join(" ") || undefined,
+        title: to ? `The status changed to “${statusLabel(to)}”${audience === "staff" && who ? `, by ${who}` : ""}.` : "The status changed.",
+        detail:
+          [from ? `It was “${statusLabel(from)}”.` : "", to ? (statusMeaning(to) ?? "") : "", reason ? `Reason: ${reason}` : ""].filter(Boolean).join(" ") || undefined,
       };
     }
     case "message-to-tenant": {
@@ -100,12 +106,24 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
     }
     case "inspection-recorded":
       return { title: audience === "tenant" ? "The inspection of your home was recorded." : `${who || "Staff"} recorded the inspection.` };
-    case "hazard-classified":
-      return { title: "Your landlord assessed how serious the hazard is." };
+    case "hazard-classified": {
+      if (audience === "tenant") return { title: "Your landlord assessed how serious the hazard is." };
+      const to = str(after.hazardClass);
+      const reason = str(after.reason);
+      return {
+        title: `${who || "Staff"} classified the hazard as ${to ? (hazardClassWords[to] ?? humanise(to)).toLowerCase() : "unknown"}.`,
+        detail: reason ? `Reason: ${reason}` : undefined,
+      };
+    }
     case "hhsrs-assessed":
       return { title: audience === "tenant" ? "Your landlord recorded a health and safety (HHSRS) assessment." : `${who || "Staff"} recorded an HHSRS assessment: band ${String(after.band ?? "?")}, Category ${String(after.category ?? "?")}.` };
-    case "assignee-changed":
-      return { title: audience === "tenant" ? "A member of staff was given this report to look after." : "The assignee changed." };
+    case "assignee-changed": {
+      if (audience === "tenant") return { title: "A member of staff was given this report to look after." };
+      const id = after.assigneeId;
+      if (id === null) return { title: `${who || "Staff"} left the case unassigned.` };
+      const name = typeof id === "number" ? staffNames?.get(id) : undefined;
+      return { title: name ? `${who || "Staff"} assigned the case to ${name}.` : "The assignee changed." };
+    }
     case "internal-note": {
       const body = str(after.body);
       return { title: `${who || "Staff"} added an internal note.`, detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined };
@@ -116,13 +134,13 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
 }
 
 /** What has happened to a case, newest first. */
-export function CaseTimeline({ events, rooms, audience = "tenant" }: CaseTimelineProps) {
+export function CaseTimeline({ events, rooms, audience = "tenant", staffNames }: CaseTimelineProps) {
   if (events.length === 0) return <p className="text-ink-soft">Nothing has happened yet.</p>;
   const newestFirst = [...events].sort((a, b) => Date.parse(b.at) - Date.parse(a.at) || b.id - a.id);
   return (
     <ol className="relative flex flex-col gap-4 border-l-2 border-dew-200 pl-5">
       {newestFirst.map((event) => {
-        const entry = describeEvent(event, rooms, audience);
+        const entry = describeEvent(event, rooms, audience, staffNames);
         return (
           <li key={event.id} className="relative">
             <span aria-hidden="true" className="absolute top-1.5 -left-[1.6rem] size-3 rounded-pill border-2 border-dew-700 bg-surface" />
@@ -131,9 +149,67 @@ export function CaseTimeline({ events, rooms, audience = "tenant" }: CaseTimelin
             </p>
             <p className="font-semibold">{entry.title}</p>
             {entry.detail ? <div className="mt-1 text-ink">{entry.detail}</div> : null}
+            {audience === "staff" && event.email ? <EmailDelivery email={event.email} /> : null}
           </li>
         );
       })}
     </ol>
+  );
+}
+
+const hazardClassWords: Record<string, string> = {
+  emergency: "An emergency hazard",
+  significant: "A significant hazard",
+  "not-significant": "Not a significant hazard",
+};
+
+/** What each e-mail is, in words (server/modules/mail/mail-templates.ts). */
+const emailTemplateLabels: Record<string, string> = {
+  caseAcknowledgement: "Acknowledgement of the report",
+  caseAlert: "Alert to officers",
+  caseMessage: "Message to the tenant",
+  writtenSummary: "Written summary",
+  invitation: "Invitation",
+  passwordReset: "Password reset",
+};
+
+/** Staff only: who an event's e-mail went to, which e-mail it was, and whether it left the outbox. */
+function EmailDelivery({ email }: { email: CaseEventEmail }) {
+  const what = emailTemplateLabels[email.template] ?? humanise(email.template);
+  return (
+    <div className="mt-1 flex flex-col gap-0.5 rounded-md border border-line bg-paper px-3 py-2 text-sm">
+      <p>
+        <span className="font-semibold">E-mail:</span> {what}, to <span className="break-all">{email.to}</span>
+      </p>
+      <p className="flex items-start gap-1.5">
+        <DeliveryIcon status={email.status} />
+        {email.status === "sent" ? (
+          <span>Sent{email.sentAt ? <> at <time dateTime={email.sentAt}>{formatDateTime(email.sentAt)}</time></> : null}</span>
+        ) : email.status === "failed" ? (
+          <span className="font-semibold text-rust-700">Failed to send{email.error ? `: ${email.error}` : ""}</span>
+        ) : email.status === "pending" ? (
+          <span>Waiting to be sent</span>
+        ) : (
+          <span>{humanise(email.status)}</span>
+        )}
+      </p>
+    </div>
+  );
+}
+
+function DeliveryIcon({ status }: { status: string }) {
+  return (
+    <svg viewBox="0 0 16 16" className="mt-0.5 size-4 shrink-0" aria-hidden="true" focusable="false">
+      {status === "sent" ? (
+        <path d="M3 8.5l3 3 7-7" fill="none" stroke="currentColor" strokeWidth="2" strokeLinecap="round" strokeLinejoin="round" />
+      ) : status === "failed" ? (
+        <path d="M4 4l8 8M12 4l-8 8" fill="none" stroke="currentColor" strokeWidth="2" strokeLinecap="round" />
+      ) : (
+        <>
+          <circle cx="8" cy="8" r="6" fill="none" stroke="currentColor" strokeWidth="1.6" />
+          <path d="M8 4.5V8l2.5 1.5" fill="none" stroke="currentColor" strokeWidth="1.6" strokeLinecap="round" />
+        </>
+      )}
+    </svg>
   );
 }

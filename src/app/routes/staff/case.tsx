@@ -1,0 +1,315 @@
+import { useQueryClient, type QueryClient } from "@tanstack/react-query";
+import { useMemo, useState } from "react";
+import { Link, useParams, type LoaderFunctionArgs } from "react-router-dom";
+import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
+import { Panel } from "@/components/ui/card";
+import { PageHeader } from "@/components/ui/page-header";
+import { LoadingState } from "@/components/ui/spinner";
+import { useUser } from "@/features/auth/api/get-me";
+import { signedInAs } from "@/features/auth/api/require-role";
+import { roleHome } from "@/features/auth/roles";
+import { caseKeys } from "@/features/cases/api/cases-keys";
+import { caseQueryOptions, useCase } from "@/features/cases/api/get-case";
+import { caseEvaluationQueryOptions, useCaseEvaluation } from "@/features/cases/api/get-case-evaluation";
+import { caseEventsQueryOptions, useCaseEvents } from "@/features/cases/api/get-case-events";
+import { useCasePhotos } from "@/features/cases/api/get-case-photos";
+import { useCaseReadings } from "@/features/cases/api/get-case-readings";
+import type { CaseDto } from "@/features/cases/api/types";
+import { CaseEvaluationView } from "@/features/cases/components/case-evaluation";
+import { StatusBadge } from "@/features/cases/components/case-status";
+import { CaseTimeline } from "@/features/cases/components/case-timeline";
+import { PhotoGallery } from "@/features/cases/components/photo-gallery";
+import { ReadingsSection } from "@/features/cases/components/readings-section";
+import { statusLabel } from "@/features/cases/labels";
+import { deadlinesQueryOptions } from "@/features/case-workspace/api/get-deadlines";
+import { useStaff } from "@/features/case-workspace/api/get-staff";
+import { triageQueryOptions } from "@/features/case-workspace/api/get-triage";
+import { ActionsPanel } from "@/features/case-workspace/components/actions-panel";
+import { AssessmentForm, AssessmentVersions } from "@/features/case-workspace/components/assessment-section";
+import { CaseHeader, staffName, workspaceTitle } from "@/features/case-workspace/components/case-header";
+import { DeadlinesPanel } from "@/features/case-workspace/components/deadlines-panel";
+import { DiagnosisHints } from "@/features/case-workspace/components/diagnosis-hints";
+import { InspectionForm, InspectionList } from "@/features/case-workspace/components/inspection-section";
+import { MessageForm } from "@/features/case-workspace/components/message-form";
+import { QueryState } from "@/features/case-workspace/components/query-state";
+import { RelatedCases } from "@/features/case-workspace/components/related-cases";
+import { SummarySection } from "@/features/case-workspace/components/summary-section";
+import { TriagePanel } from "@/features/case-workspace/components/triage-panel";
+import { useUploadPhotos } from "@/features/report/api/upload-photos";
+import { PhotoPicker } from "@/features/report/components/photo-picker";
+import { ReportSummary } from "@/features/report/components/report-summary";
+import { ApiError, errorMessage } from "@/lib/api-client";
+import { roleLabels, STAFF_ROLES, type Role } from "@/lib/roles";
+
+const caseIdOf = (raw: string | undefined): number | null => {
+  const id = Number(raw);
+  return Number.isInteger(id) && id > 0 ? id : null;
+};
+
+/** Officers and administrators change a case; maintenance leads read it (and may write messages). */
+const canAct = (role: Role) => role === "officer" || role === "admin";
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ params }: LoaderFunctionArgs) => {
+    const id = caseIdOf(params.id);
+    if (id !== null && (await signedInAs(queryClient, STAFF_ROLES))) {
+      void queryClient.prefetchQuery(caseQueryOptions(id));
+      void queryClient.prefetchQuery(caseEventsQueryOptions(id));
+      void queryClient.prefetchQuery(deadlinesQueryOptions(id));
+      void queryClient.prefetchQuery(triageQueryOptions(id));
+      void queryClient.prefetchQuery(caseEvaluationQueryOptions(id));
+    }
+    return null;
+  };
+
+export default function StaffCasePage() {
+  const id = caseIdOf(useParams().id);
+  if (id === null) return <CaseNotFound />;
+  return <Workspace id={id} />;
+}
+
+function CaseNotFound({ message }: { message?: string }) {
+  const user = useUser();
+  const home = roleHome(user.role);
+  return (
+    <>
+      <title>Case not found · Dewline</title>
+      <PageHeader title="Case not found" />
+      <Alert tone="info" title="We couldn't find this case">
+        <p>{message ?? "The link may be wrong, or the case may belong to another landlord."}</p>
+        <p className="mt-1">
+          <Link to={home.path}>Go to {home.label}</Link>
+        </p>
+      </Alert>
+    </>
+  );
+}
+
+const SECTIONS = [
+  ["case-actions", "Actions"],
+  ["case-deadlines", "Deadlines"],
+  ["case-triage", "Triage priority"],
+  ["case-related", "Other cases"],
+  ["case-report", "Report"],
+  ["case-photos", "Photos"],
+  ["case-readings", "Readings"],
+  ["case-inspections", "Inspections"],
+  ["case-hhsrs", "HHSRS"],
+  ["case-summary", "Written summary"],
+  ["case-messages", "Messages"],
+  ["case-timeline", "Timeline"],
+] as const;
+
+function Workspace({ id }: { id: number }) {
+  const user = useUser();
+  const kase = useCase(id);
+  const staff = useStaff();
+  const nameOf = useMemo(() => (userId: number) => (userId === user.id ? `${user.name} (you)` : staffName(staff.data, userId)), [staff.data, user]);
+  const sender = useMemo(() => ({ name: user.name, role: roleLabels[user.role] }), [user.name, user.role]);
+
+  if (kase.isPending) return <LoadingState>Loading the case…</LoadingState>;
+  if (kase.isError) {
+    if (kase.error instanceof ApiError && kase.error.status === 404) return <CaseNotFound message={kase.error.message} />;
+    return (
+      <>
+        <title>Case · Dewline</title>
+        <PageHeader title="Case" />
+        <Alert tone="danger" title="We couldn't load this case">
+          {errorMessage(kase.error)}
+        </Alert>
+      </>
+    );
+  }
+  const c = kase.data;
+  const officer = canAct(user.role);
+
+  return (
+    <>
+      <title>{`${workspaceTitle(c)} · Dewline`}</title>
+      <CaseHeader c={c} status={<StatusBadge status={c.status} />} />
+      <nav aria-label="On this page" className="mb-5">
+        <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
+          {SECTIONS.map(([anchor, label]) => (
+            <li key={anchor}>
+              <a href={`#${anchor}`} className="font-semibold text-dew-700 underline underline-offset-2 hover:text-dew-900">
+                {label}
+              </a>
+            </li>
+          ))}
+        </ul>
+      </nav>
+      <div className="flex flex-col gap-5">
+        <div className="grid grid-cols-1 items-start gap-5 xl:grid-cols-2">
+          <ActionsPanel c={c} statusLabel={statusLabel} me={user} canAct={officer} />
+          <div className="flex min-w-0 flex-col gap-5">
+            <DeadlinesPanel caseId={id} />
+            <TriagePanel caseId={id} />
+            <Panel title="Other cases at this home" id="case-related">
+              <RelatedCases caseId={id} Status={StatusBadge} />
+            </Panel>
+          </div>
+        </div>
+        <Panel title="The tenant's report" id="case-report">
+          <p className="mb-2 text-sm text-ink-soft">The questions as the tenant saw them, with their answers.</p>
+          <ReportSummary
+            sentAt={c.createdAt}
+            answers={{
+              description: c.description,
+              locations: c.locations,
+              observations: c.observations,
+              roomNames: c.rooms.map((r) => r.name),
+              since: c.since,
+              area: c.area,
+              vulnerability: c.vulnerability,
+              equipment: c.equipment,
+            }}
+          />
+        </Panel>
+        <PhotosPanel id={id} />
+        <ReadingsPanel c={c} />
+        <EvaluationPanels id={id} />
+        <Panel title="Inspections" id="case-inspections">
+          <div className="flex flex-col gap-5">
+            {officer ? (
+              <section aria-labelledby="case-inspection-form-heading" className="flex flex-col gap-3">
+                <h3 id="case-inspection-form-heading" className="text-lg font-bold">
+                  Record an inspection
+                </h3>
+                <InspectionForm caseId={id} rooms={c.homeRooms} photoUpload={<InspectionPhotos caseId={id} />} />
+              </section>
+            ) : null}
+            <section aria-labelledby="case-inspection-list-heading" className="flex flex-col gap-3">
+              <h3 id="case-inspection-list-heading" className="text-lg font-bold">
+                Recorded inspections
+              </h3>
+              <InspectionList caseId={id} rooms={c.homeRooms} staffName={nameOf} />
+            </section>
+          </div>
+        </Panel>
+        <Panel title="HHSRS assessment" id="case-hhsrs">
+          <div className="flex flex-col gap-5">
+            <p className="text-sm text-ink-soft">Hazard 1, damp and mould growth. The server works out the score, band and Category.</p>
+            {officer ? (
+              <section aria-labelledby="case-hhsrs-form-heading" className="flex flex-col gap-3">
+                <h3 id="case-hhsrs-form-heading" className="text-lg font-bold">
+                  New assessment
+                </h3>
+                <AssessmentForm caseId={id} />
+              </section>
+            ) : null}
+            <section aria-labelledby="case-hhsrs-versions-heading" className="flex flex-col gap-3">
+              <h3 id="case-hhsrs-versions-heading" className="text-lg font-bold">
+                Every version
+              </h3>
+              <AssessmentVersions caseId={id} staffName={nameOf} />
+            </section>
+          </div>
+        </Panel>
+        <Panel title="Written summary" id="case-summary">
+          <SummarySection c={c} sender={sender} canSend={officer} />
+        </Panel>
+        <Panel title="Messages and notes" id="case-messages">
+          <MessageForm caseId={id} />
+        </Panel>
+        <TimelinePanel c={c} staffNames={staff.data} />
+      </div>
+    </>
+  );
+}
+
+function PhotosPanel({ id }: { id: number }) {
+  const photos = useCasePhotos(id);
+  return (
+    <Panel title="Photos" id="case-photos">
+      <QueryState query={photos} loading="Loading photos…" failed="We couldn't load the photos">
+        {(list) => <PhotoGallery photos={list} emptyText="No photos yet" />}
+      </QueryState>
+    </Panel>
+  );
+}
+
+/** Inspection photos join the case's photos through the same upload the tenant uses. */
+function InspectionPhotos({ caseId }: { caseId: number }) {
+  const queryClient = useQueryClient();
+  const [files, setFiles] = useState<File[]>([]);
+  const [added, setAdded] = useState<number | null>(null);
+  const upload = useUploadPhotos(caseId);
+  return (
+    <div className="flex flex-col gap-3">
+      <PhotoPicker
+        value={files}
+        onChange={(next) => {
+          setFiles(next);
+          setAdded(null);
+          upload.reset();
+        }}
+        serverError={upload.isError ? errorMessage(upload.error) : null}
+        disabled={upload.isPending}
+      />
+      {added !== null ? <Alert tone="success" title={added === 1 ? "1 photo added to the case" : `${added} photos added to the case`} /> : null}
+      <div>
+        <Button
+          variant="secondary"
+          disabled={files.length === 0}
+          busy={upload.isPending}
+          onClick={() =>
+            upload.mutate(files, {
+              onSuccess: (result) => {
+                setFiles([]);
+                setAdded(result.photos.length);
+                void queryClient.invalidateQueries({ queryKey: caseKeys.photos(caseId) });
+                void queryClient.invalidateQueries({ queryKey: caseKeys.events(caseId) });
+              },
+            })
+          }
+        >
+          {files.length > 1 ? `Send ${files.length} photos` : "Send photo"}
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+function ReadingsPanel({ c }: { c: CaseDto }) {
+  const readings = useCaseReadings(c.id);
+  return (
+    <Panel title="Readings" id="case-readings">
+      <QueryState query={readings} loading="Loading readings…" failed="We couldn't load the readings">
+        {(list) => <ReadingsSection readings={list} rooms={c.homeRooms} />}
+      </QueryState>
+    </Panel>
+  );
+}
+
+function EvaluationPanels({ id }: { id: number }) {
+  const evaluation = useCaseEvaluation(id);
+  return (
+    <>
+      <Panel title="Diagnosis hints" id="case-diagnosis">
+        <QueryState query={evaluation} loading="Working out what the readings point to…" failed="We couldn't work out the readings just now">
+          {(e) => <DiagnosisHints rooms={e.rooms} />}
+        </QueryState>
+      </Panel>
+      <Panel title="What the readings show" id="case-evaluation">
+        <QueryState query={evaluation} loading="Working out what the readings show…" failed="We couldn't work out the readings just now">
+          {(e) => <CaseEvaluationView evaluation={e} audience="staff" />}
+        </QueryState>
+      </Panel>
+    </>
+  );
+}
+
+function TimelinePanel({ c, staffNames }: { c: CaseDto; staffNames: readonly { id: number; name: string }[] | undefined }) {
+  const events = useCaseEvents(c.id);
+  const names = useMemo(() => new Map((staffNames ?? []).map((s) => [s.id, s.name])), [staffNames]);
+  return (
+    <Panel title="Timeline" id="case-timeline">
+      <p className="mb-3 text-sm text-ink-soft">Everything that has happened, newest first, with internal notes and where each e-mail went.</p>
+      <QueryState query={events} loading="Loading the timeline…" failed="We couldn't load the timeline">
+        {(list) => <CaseTimeline events={list} rooms={c.homeRooms} audience="staff" staffNames={names} />}
+      </QueryState>
+    </Panel>
+  );
+}

@@ -1,0 +1,18 @@
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import { refreshCaseWork } from "./refresh-case";
+import type { InspectionInput } from "./types";
+import { workspaceKeys } from "./workspace-keys";
+
+/** Records what was found on site; the first inspection ends the investigation stage. */
+export const recordInspection = (id: number, input: InspectionInput) =>
+  api.post<{ id: number; inspectedAt: string; cause: string; mouldExtent: string }>(`/cases/${id}/inspections`, input);
+
+export function useRecordInspection(id: number) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationKey: [...workspaceKeys.inspections(id), "record"],
+    mutationFn: (input: InspectionInput) => recordInspection(id, input),
+    onSuccess: () => refreshCaseWork(queryClient, id),
+  });
+}
