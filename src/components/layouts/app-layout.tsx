@@ -9,6 +9,8 @@ import { SkipLink } from "./skip-link";
 export interface NavItem {
   to: string;
   label: string;
+  /** Active only on this exact path, not on the pages under it (e.g. /admin but not /admin/policy). */
+  end?: boolean;
 }
 
 interface AppLayoutProps {
@@ -41,6 +43,7 @@ export function AppLayout({ variant, userName, roleLabel, homePath, nav, onSignO
                 <li key={item.to}>
                   <NavLink
                     to={item.to}
+                    end={item.end}
                     className={({ isActive }) =>
                       cn(
                         "inline-flex min-h-9 items-center rounded-md px-3 font-semibold text-mist no-underline hover:bg-dew-900 hover:text-paper",

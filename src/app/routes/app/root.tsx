@@ -23,7 +23,8 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/calculator", label: "Calculator" },
   ],
   admin: [
-    { to: "/admin", label: "Users and invitations" },
+    { to: "/admin", label: "Users and invitations", end: true },
+    { to: "/admin/policy", label: "Deadline policy" },
     { to: "/homes", label: "Homes" },
     { to: "/calculator", label: "Calculator" },
   ],
