@@ -10,7 +10,7 @@ const rowsOf = (table: HTMLElement) => within(table).getAllByRole("row").slice(1
 describe("Homes table (server-side pages)", () => {
   beforeEach(() => clearCsrfToken());
 
-  function setup(url = "/queue", total = 60) {
+  function setup(url = "/homes", total = 60) {
     const api = mockApi({
       "GET /api/auth/me": { body: users.officer },
       "GET /api/properties": (call) => ({ body: propertyPage(call.search, total) }),

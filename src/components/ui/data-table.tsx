@@ -1,13 +1,19 @@
 import { useId, type ReactNode } from "react";
 import {
+  columnVisibilityFeature,
   createColumnHelper,
   rowPaginationFeature,
+  rowSelectionFeature,
+  rowSortingFeature,
   tableFeatures,
   useTable,
   type ColumnDef,
+  type ColumnVisibilityState,
   type PaginationState,
   type ReactTable,
   type RowData,
+  type RowSelectionState,
+  type SortingState,
   type Updater,
 } from "@tanstack/react-table";
 import { cn } from "@/lib/cn";
@@ -15,8 +21,12 @@ import { Button } from "./button";
 import { EmptyState } from "./empty-state";
 import { Spinner } from "./spinner";
 
-/** Every Dewline table is paginated on the server: the table only renders the page it is given. */
-export const dataTableFeatures = tableFeatures({ rowPaginationFeature });
+/**
+ * Every Dewline table is paginated on the server: the table only renders the page it is given.
+ * Sorting (on the server too), column hiding and row selection are there for the tables that ask
+ * for them in useServerTable; a table that does not gets none of them.
+ */
+export const dataTableFeatures = tableFeatures({ rowPaginationFeature, rowSortingFeature, columnVisibilityFeature, rowSelectionFeature });
 export type DataTableFeatures = typeof dataTableFeatures;
 export type DataTableInstance<Row extends RowData> = ReactTable<DataTableFeatures, Row>;
 
@@ -32,10 +42,34 @@ interface UseServerTableOptions<Row extends RowData> {
   pagination: PaginationState;
   onPaginationChange: (next: PaginationState) => void;
   getRowId?: (row: Row) => string;
+  /** Server-side sorting, owned by the caller; without it no column is sortable. */
+  sorting?: SortingState;
+  onSortingChange?: (next: SortingState) => void;
+  /** Which columns are hidden ({ id: false }), owned by the caller. */
+  columnVisibility?: ColumnVisibilityState;
+  onColumnVisibilityChange?: (next: ColumnVisibilityState) => void;
+  /** Selected row ids, owned by the caller; without it rows cannot be selected. */
+  rowSelection?: RowSelectionState;
+  onRowSelectionChange?: (next: RowSelectionState) => void;
 }
 
+const resolve = <T,>(updater: Updater<T>, current: T): T => (typeof updater === "function" ? (updater as (old: T) => T)(current) : updater);
+
 /** A v9 table with manual (server-side) pagination whose page state is owned by the caller (the URL). */
-export function useServerTable<Row extends RowData>({ columns, data, rowCount, pagination, onPaginationChange, getRowId }: UseServerTableOptions<Row>) {
+export function useServerTable<Row extends RowData>({
+  columns,
+  data,
+  rowCount,
+  pagination,
+  onPaginationChange,
+  getRowId,
+  sorting,
+  onSortingChange,
+  columnVisibility,
+  onColumnVisibilityChange,
+  rowSelection,
+  onRowSelectionChange,
+}: UseServerTableOptions<Row>) {
   return useTable({
     features: dataTableFeatures,
     columns,
@@ -43,11 +77,36 @@ export function useServerTable<Row extends RowData>({ columns, data, rowCount, p
     ...(getRowId ? { getRowId: (row: Row) => getRowId(row) } : {}),
     manualPagination: true,
     rowCount: rowCount ?? 0,
-    state: { pagination },
-    onPaginationChange: (updater: Updater<PaginationState>) => {
-      onPaginationChange(typeof updater === "function" ? updater(pagination) : updater);
+    // One column at a time, sorted by the server; a sorted column flips between asc and desc.
+    manualSorting: true,
+    enableSorting: sorting !== undefined,
+    enableMultiSort: false,
+    enableSortingRemoval: false,
+    enableRowSelection: rowSelection !== undefined,
+    state: {
+      pagination,
+      ...(sorting ? { sorting } : {}),
+      ...(columnVisibility ? { columnVisibility } : {}),
+      ...(rowSelection ? { rowSelection } : {}),
     },
+    onPaginationChange: (updater: Updater<PaginationState>) => {
+      onPaginationChange(resolve(updater, pagination));
+    },
+    ...(sorting && onSortingChange ? { onSortingChange: (updater: Updater<SortingState>) => onSortingChange(resolve(updater, sorting)) } : {}),
+    ...(columnVisibility && onColumnVisibilityChange
+      ? { onColumnVisibilityChange: (updater: Updater<ColumnVisibilityState>) => onColumnVisibilityChange(resolve(updater, columnVisibility)) }
+      : {}),
+    ...(rowSelection && onRowSelectionChange
+      ? { onRowSelectionChange: (updater: Updater<RowSelectionState>) => onRowSelectionChange(resolve(updater, rowSelection)) }
+      : {}),
   });
+}
+
+/** The aria-sort value for a column header: only sortable columns carry one. */
+function ariaSort(column: { getCanSort: () => boolean; getIsSorted: () => false | "asc" | "desc" }) {
+  if (!column.getCanSort()) return undefined;
+  const sorted = column.getIsSorted();
+  return sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : "none";
 }
 
 interface DataTableProps<Row extends RowData> {
@@ -81,7 +140,7 @@ export function DataTable<Row extends RowData>({
 }: DataTableProps<Row>) {
   const headerGroups = table.getHeaderGroups();
   const rows = table.getRowModel().rows;
-  const columnCount = table.getAllLeafColumns().length;
+  const columnCount = table.getVisibleLeafColumns().length;
 
   let body: ReactNode;
   if (loading) {
@@ -112,8 +171,8 @@ export function DataTable<Row extends RowData>({
     );
   } else {
     body = rows.map((row) => (
-      <tr key={row.id} className="border-t border-line even:bg-paper/60 hover:bg-dew-50">
-        {row.getAllCells().map((cell) => (
+      <tr key={row.id} className={cn("border-t border-line even:bg-paper/60 hover:bg-dew-50", row.getIsSelected() && "bg-dew-50 even:bg-dew-50")}>
+        {row.getVisibleCells().map((cell) => (
           <td key={cell.id} className="px-3 py-2 align-top">
             <table.FlexRender cell={cell} />
           </td>
@@ -137,7 +196,13 @@ export function DataTable<Row extends RowData>({
             {headerGroups.map((group) => (
               <tr key={group.id}>
                 {group.headers.map((header) => (
-                  <th key={header.id} scope="col" colSpan={header.colSpan} className="border-b border-line-strong px-3 py-2 font-bold whitespace-nowrap">
+                  <th
+                    key={header.id}
+                    scope="col"
+                    colSpan={header.colSpan}
+                    aria-sort={header.isPlaceholder ? undefined : ariaSort(header.column)}
+                    className="border-b border-line-strong px-3 py-2 font-bold whitespace-nowrap"
+                  >
                     {header.isPlaceholder ? null : <table.FlexRender header={header} />}
                   </th>
                 ))}

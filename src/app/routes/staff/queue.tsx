@@ -1,34 +1,35 @@
 import type { QueryClient } from "@tanstack/react-query";
 import type { LoaderFunctionArgs } from "react-router-dom";
 import { Panel } from "@/components/ui/card";
-import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
-import { prefetchHomesTable } from "@/features/properties/api/prefetch-homes";
-import { HomesTable } from "@/features/properties/components/homes-table";
+import { StatusBadge } from "@/features/cases/components/case-status";
+import { statusLabel } from "@/features/cases/labels";
+import { estatesQueryOptions, useEstates } from "@/features/properties/api/get-estates";
+import { prefetchCaseQueue } from "@/features/queue/api/prefetch-queue";
+import { CaseQueueTable } from "@/features/queue/components/case-queue-table";
 
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
-    if (await signedInAs(queryClient, ["officer"])) prefetchHomesTable(queryClient, request.url);
+    if (await signedInAs(queryClient, ["officer"])) {
+      prefetchCaseQueue(queryClient, request.url);
+      void queryClient.prefetchQuery(estatesQueryOptions());
+    }
     return null;
   };
 
+const renderStatus = (status: string) => <StatusBadge status={status} className="whitespace-nowrap" />;
+
 export default function CaseQueuePage() {
+  const estates = useEstates();
   return (
     <>
       <title>Case queue · Dewline</title>
-      <PageHeader title="Case queue" description="Reports from tenants, waiting for you to look at them." />
-      <div className="flex flex-col gap-5">
-        <Panel title="Cases" id="cases">
-          <EmptyState title="Cases will appear here">
-            When tenants report damp, condensation or mould, their reports will be listed here for you to review and act on.
-          </EmptyState>
-        </Panel>
-        <Panel title="Homes" id="homes">
-          <HomesTable />
-        </Panel>
-      </div>
+      <PageHeader title="Case queue" description="Reports from tenants, most urgent first. Filter, sort and share the view: it is all in the link." />
+      <Panel as="div">
+        <CaseQueueTable statusLabel={statusLabel} renderStatus={renderStatus} estates={estates.data} />
+      </Panel>
     </>
   );
 }

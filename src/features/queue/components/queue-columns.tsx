@@ -1,0 +1,251 @@
+import { useEffect, useRef, type ReactNode } from "react";
+import { dataTableColumnHelper } from "@/components/ui/data-table";
+import { TextLink } from "@/components/ui/text-link";
+import { cn } from "@/lib/cn";
+import type { QueueItem } from "../api/types";
+import { areaLabels, channelLabels, deadlineStageLabels, formatDay, formatDayTime, labelFor, riskLabels } from "../lib/labels";
+import type { QueueSort } from "../lib/queue-view";
+import { TimeLeftText } from "./time-left";
+
+/** The heading of each data column; the column ids are the API's sort keys. */
+export const COLUMN_LABELS: Record<QueueSort, string> = {
+  reference: "Reference",
+  address: "Address",
+  estate: "Estate and block",
+  rooms: "Rooms",
+  awareAt: "Reported",
+  channel: "Channel",
+  risk: "Risk state",
+  mouldIndex: "Mould index",
+  area: "Affected area",
+  vulnerable: "Vulnerable household",
+  band: "HHSRS",
+  priority: "Priority",
+  due: "Next deadline",
+  status: "Status",
+  assignee: "Assigned to",
+};
+
+export const caseReference = (item: Pick<QueueItem, "id" | "reference">) => item.reference ?? `Case ${item.id}`;
+
+interface SortableColumn {
+  getIsSorted: () => false | "asc" | "desc";
+  getToggleSortingHandler: () => undefined | ((event: unknown) => void);
+}
+
+/** A column heading that sorts the queue on the server; the <th> carries aria-sort (DataTable). */
+function SortButton({ column, children }: { column: SortableColumn; children: ReactNode }) {
+  const sorted = column.getIsSorted();
+  return (
+    <button
+      type="button"
+      onClick={column.getToggleSortingHandler()}
+      className="-mx-1 inline-flex items-center gap-1 rounded-sm px-1 py-0.5 font-bold whitespace-nowrap hover:bg-dew-100"
+    >
+      {children}
+      <svg viewBox="0 0 12 16" className={cn("size-3.5 shrink-0", sorted ? "text-ink" : "text-ink-soft")} aria-hidden="true">
+        <path d="M6 2 10 6.5H2z" fill={sorted === "asc" ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.2" strokeLinejoin="round" />
+        <path d="M6 14 2 9.5h8z" fill={sorted === "desc" ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.2" strokeLinejoin="round" />
+      </svg>
+    </button>
+  );
+}
+
+function Checkbox({ checked, indeterminate = false, label, onChange }: { checked: boolean; indeterminate?: boolean; label: string; onChange: (checked: boolean) => void }) {
+  const ref = useRef<HTMLInputElement>(null);
+  useEffect(() => {
+    if (ref.current) ref.current.indeterminate = indeterminate;
+  }, [indeterminate]);
+  return (
+    <input
+      ref={ref}
+      type="checkbox"
+      aria-label={label}
+      checked={checked}
+      onChange={(e) => onChange(e.target.checked)}
+      className="size-4 accent-dew-700"
+    />
+  );
+}
+
+const Missing = ({ children }: { children: ReactNode }) => <span className="text-ink-soft">{children}</span>;
+
+const column = dataTableColumnHelper<QueueItem>();
+
+interface ColumnOptions {
+  renderStatus: (status: string) => ReactNode;
+  now: number;
+}
+
+export function queueColumns({ renderStatus, now }: ColumnOptions) {
+  const sortable = (id: QueueSort) => ({
+    id,
+    header: ({ column: c }: { column: SortableColumn }) => <SortButton column={c}>{COLUMN_LABELS[id]}</SortButton>,
+    // Most urgent first for priority; A to Z, smallest or earliest first for the rest (as the API).
+    sortDescFirst: id === "priority",
+  });
+
+  return column.columns([
+    column.display({
+      id: "select",
+      enableSorting: false,
+      enableHiding: false,
+      header: ({ table }) => (
+        <Checkbox
+          label="Select every case on this page"
+          checked={table.getIsAllPageRowsSelected()}
+          indeterminate={table.getIsSomePageRowsSelected() && !table.getIsAllPageRowsSelected()}
+          onChange={(checked) => table.toggleAllPageRowsSelected(checked)}
+        />
+      ),
+      cell: ({ row }) => (
+        <Checkbox label={`Select ${caseReference(row.original)}`} checked={row.getIsSelected()} onChange={(checked) => row.toggleSelected(checked)} />
+      ),
+    }),
+    column.accessor((r) => r.reference ?? "", {
+      ...sortable("reference"),
+      enableHiding: false,
+      cell: ({ row }) => (
+        <TextLink to={`/cases/${row.original.id}`} className="whitespace-nowrap">
+          {caseReference(row.original)}
+        </TextLink>
+      ),
+    }),
+    column.accessor((r) => r.property.addressLine1, {
+      ...sortable("address"),
+      cell: ({ row }) => (
+        <span className="block min-w-40">
+          <span className="font-semibold">{row.original.property.addressLine1}</span>
+          <span className="block text-ink-soft">
+            {row.original.property.town}, <span className="whitespace-nowrap">{row.original.property.postcode}</span>
+          </span>
+        </span>
+      ),
+    }),
+    column.accessor((r) => r.property.estate, {
+      ...sortable("estate"),
+      cell: ({ row }) => (
+        <span>
+          {row.original.property.estate}
+          {row.original.property.block ? <span className="block text-ink-soft">{row.original.property.block}</span> : null}
+        </span>
+      ),
+    }),
+    column.accessor((r) => r.rooms.map((room) => room.name).join(", "), {
+      ...sortable("rooms"),
+      cell: ({ row }) =>
+        row.original.rooms.length ? (
+          <span className="flex flex-col">
+            {row.original.rooms.map((room) => (
+              <span key={room.id} className="whitespace-nowrap">
+                {room.name}
+              </span>
+            ))}
+          </span>
+        ) : (
+          <Missing>Not given</Missing>
+        ),
+    }),
+    column.accessor((r) => r.awareAt, {
+      ...sortable("awareAt"),
+      cell: ({ row }) => (
+        <time dateTime={row.original.awareAt} className="whitespace-nowrap">
+          {formatDay(row.original.awareAt)}
+        </time>
+      ),
+    }),
+    column.accessor((r) => r.channel, {
+      ...sortable("channel"),
+      cell: (info) => <span className="whitespace-nowrap">{labelFor(channelLabels, info.getValue())}</span>,
+    }),
+    column.accessor((r) => r.riskState ?? "unknown", {
+      ...sortable("risk"),
+      cell: ({ row }) =>
+        row.original.riskState ? (
+          <span className="font-semibold whitespace-nowrap">{riskLabels[row.original.riskState]}</span>
+        ) : (
+          <Missing>{riskLabels.unknown}</Missing>
+        ),
+    }),
+    column.accessor((r) => r.mouldIndex ?? -1, {
+      ...sortable("mouldIndex"),
+      cell: ({ row }) =>
+        row.original.mouldIndex === null ? (
+          <Missing>
+            <span aria-hidden="true">—</span>
+            <span className="sr-only">Not worked out</span>
+          </Missing>
+        ) : (
+          <span className="whitespace-nowrap">
+            {row.original.mouldIndex.toFixed(1)}
+            <span className="text-ink-soft"> of 6</span>
+          </span>
+        ),
+    }),
+    column.accessor((r) => r.area ?? "", {
+      ...sortable("area"),
+      cell: (info) => (info.getValue() ? labelFor(areaLabels, info.getValue()) : <Missing>Not given</Missing>),
+    }),
+    column.accessor((r) => (r.vulnerableHousehold ? 1 : 0), {
+      ...sortable("vulnerable"),
+      cell: ({ row }) =>
+        row.original.vulnerableHousehold ? (
+          <span className="inline-flex items-center gap-1 font-semibold whitespace-nowrap">
+            <svg viewBox="0 0 16 16" className="size-4 shrink-0" aria-hidden="true">
+              <circle cx="8" cy="8" r="7" fill="currentColor" />
+              <path d="M8 4v5M8 11.2v.1" stroke="#fff" strokeWidth="1.8" strokeLinecap="round" />
+            </svg>
+            Yes
+          </span>
+        ) : (
+          "No"
+        ),
+    }),
+    column.accessor((r) => r.hhsrs?.band ?? "", {
+      ...sortable("band"),
+      cell: ({ row }) =>
+        row.original.hhsrs ? (
+          <span className="whitespace-nowrap">
+            Band {row.original.hhsrs.band}
+            <span className={cn("block", row.original.hhsrs.category === 1 ? "font-bold" : "text-ink-soft")}>
+              Category {row.original.hhsrs.category}
+            </span>
+          </span>
+        ) : (
+          <Missing>Not assessed</Missing>
+        ),
+    }),
+    column.accessor((r) => r.priority, {
+      ...sortable("priority"),
+      cell: (info) => (
+        <span className="font-semibold whitespace-nowrap tabular-nums">
+          {info.getValue()}
+          <span className="font-normal text-ink-soft"> / 100</span>
+        </span>
+      ),
+    }),
+    column.accessor((r) => r.nextDeadline?.dueAt ?? "", {
+      ...sortable("due"),
+      cell: ({ row }) => {
+        const next = row.original.nextDeadline;
+        if (!next) return <Missing>No deadline running</Missing>;
+        return (
+          <span className="flex flex-col">
+            <span className="whitespace-nowrap">
+              {labelFor(deadlineStageLabels, next.stage)}, <time dateTime={next.dueAt}>{formatDayTime(next.dueAt)}</time>
+            </span>
+            <TimeLeftText dueAt={next.dueAt} overdue={row.original.overdue} now={now} />
+          </span>
+        );
+      },
+    }),
+    column.accessor((r) => String(r.status), {
+      ...sortable("status"),
+      cell: (info) => renderStatus(info.getValue()),
+    }),
+    column.accessor((r) => r.assignee?.name ?? "", {
+      ...sortable("assignee"),
+      cell: ({ row }) => (row.original.assignee ? <span className="whitespace-nowrap">{row.original.assignee.name}</span> : <Missing>Unassigned</Missing>),
+    }),
+  ]);
+}

@@ -1,0 +1,67 @@
+import { useSearchParams } from "react-router-dom";
+import { usePatchSearchParams, type SearchPatch } from "@/lib/search-params";
+import {
+  defaultOrder,
+  FILTER_KEYS,
+  HHSRS_BANDS,
+  HIDEABLE_COLUMNS,
+  isFiltered,
+  listParam,
+  QUEUE_CATEGORIES,
+  QUEUE_DEFAULT_PAGE_SIZE,
+  QUEUE_DEFAULT_SORT,
+  QUEUE_RISKS,
+  queueViewFrom,
+  statusParam,
+  type HhsrsBand,
+  type HideableColumn,
+  type QueueCategory,
+  type QueueRisk,
+  type QueueSort,
+  type SortOrder,
+  type StatusFilter,
+} from "../lib/queue-view";
+
+// Values equal to these are left out of the URL, so the default view is plain /queue.
+const defaults: SearchPatch = { status: "open", sort: QUEUE_DEFAULT_SORT, page: 1, pageSize: QUEUE_DEFAULT_PAGE_SIZE };
+
+/** The deadline filter as one choice: any, overdue, or due within N days (overdue included). */
+export type DeadlineChoice = "" | "overdue" | number;
+
+/**
+ * The whole state of the case queue lives in the URL: filters (status, risk, category, band,
+ * estate, vulnerable, overdue or dueWithin, assignee, q), sort and order, page and pageSize, and
+ * the hidden columns (hide). A bookmarked or shared link opens exactly the same view.
+ * A new filter or sort starts again at page 1.
+ */
+export function useQueueTableParams() {
+  const [searchParams] = useSearchParams();
+  const patch = usePatchSearchParams(defaults);
+  const { params, hidden } = queueViewFrom(searchParams);
+  const filter = (change: SearchPatch, replace = false) => patch({ ...change, page: 1 }, { replace });
+
+  return {
+    params,
+    hidden,
+    filtered: isFiltered(params),
+    deadline: (params.overdue ? "overdue" : (params.dueWithin ?? "")) as DeadlineChoice,
+    setStatus: (status: StatusFilter) => filter({ status: statusParam(status) }),
+    setRisk: (risk: QueueRisk[]) => filter({ risk: listParam(QUEUE_RISKS, risk) }),
+    setCategory: (category: QueueCategory[]) => filter({ category: listParam(QUEUE_CATEGORIES, category) }),
+    setBand: (band: HhsrsBand[]) => filter({ band: listParam(HHSRS_BANDS, band) }),
+    setEstate: (estate: string) => filter({ estate }),
+    setVulnerable: (vulnerable: "" | "true" | "false") => filter({ vulnerable }),
+    setDeadline: (choice: DeadlineChoice) =>
+      filter({ overdue: choice === "overdue" ? "true" : null, dueWithin: typeof choice === "number" ? choice : null }),
+    setAssignee: (assignee: string) => filter({ assignee }),
+    setSearch: (q: string) => filter({ q: q.trim() }, true),
+    setSort: (sort: QueueSort, order: SortOrder) => filter({ sort, order: order === defaultOrder(sort) ? null : order }),
+    setPage: (page: number, pageSize: number) => patch({ page, pageSize }),
+    // Showing or hiding a column is not a step worth going Back through.
+    setHidden: (columns: readonly HideableColumn[]) => patch({ hide: listParam(HIDEABLE_COLUMNS, columns) }, { replace: true }),
+    /** Back to open cases with no other filter; the sort, page size and columns stay as they are. */
+    clearFilters: () => filter(Object.fromEntries(FILTER_KEYS.map((key) => [key, null]))),
+  };
+}
+
+export type QueueTableParams = ReturnType<typeof useQueueTableParams>;
