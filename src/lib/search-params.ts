@@ -1,4 +1,4 @@
-import { useCallback } from "react";
+import { useCallback, useEffect, useRef } from "react";
 import { useSearchParams } from "react-router-dom";
 
 export type SearchPatch = Record<string, string | number | null | undefined>;
@@ -24,16 +24,24 @@ const noDefaults: SearchPatch = {};
  * Pass `defaults` as a module-level constant.
  */
 export function usePatchSearchParams(defaults: SearchPatch = noDefaults) {
-  const [, setSearchParams] = useSearchParams();
+  const [searchParams, setSearchParams] = useSearchParams();
+  // A navigation waits for the route's loader before the URL changes, so a second patch made in the
+  // meantime would start from the old URL and drop the first. Patches build on the last one asked for
+  // until the URL has caught up.
+  const pending = useRef<URLSearchParams | null>(null);
+  useEffect(() => {
+    pending.current = null;
+  }, [searchParams]);
   return useCallback(
     (patch: SearchPatch, options: { replace?: boolean } = {}) => {
       setSearchParams(
         (prev) => {
-          const next = new URLSearchParams(prev);
+          const next = new URLSearchParams(pending.current ?? prev);
           for (const [key, value] of Object.entries(patch)) {
             if (value === undefined || value === null || value === "" || String(value) === String(defaults[key] ?? "")) next.delete(key);
             else next.set(key, String(value));
           }
+          pending.current = next;
           return next;
         },
         { replace: options.replace ?? false },

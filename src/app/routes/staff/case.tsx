@@ -23,7 +23,7 @@ import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { statusLabel } from "@/features/cases/labels";
 import { deadlinesQueryOptions } from "@/features/case-workspace/api/get-deadlines";
-import { useStaff } from "@/features/case-workspace/api/get-staff";
+import { useStaff } from "@/lib/staff";
 import { triageQueryOptions } from "@/features/case-workspace/api/get-triage";
 import { ActionsPanel } from "@/features/case-workspace/components/actions-panel";
 import { AssessmentForm, AssessmentVersions } from "@/features/case-workspace/components/assessment-section";

@@ -56,11 +56,7 @@ export interface CaseDeadline {
   state: DeadlineState | string;
 }
 
-export interface StaffMember {
-  id: number;
-  name: string;
-  role: string;
-}
+export type { StaffMember } from "@/lib/staff";
 
 export interface RelatedCase {
   id: number;

@@ -12,6 +12,5 @@ export const workspaceKeys = {
   inspections: (id: number) => [...workspaceKeys.case(id), "inspections"] as const,
   assessments: (id: number) => [...workspaceKeys.case(id), "assessments"] as const,
   related: (id: number) => [...workspaceKeys.case(id), "related"] as const,
-  staff: () => ["staff"] as const,
   policy: () => ["policy"] as const,
 };

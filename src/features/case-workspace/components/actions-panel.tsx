@@ -8,7 +8,7 @@ import { LoadingState } from "@/components/ui/spinner";
 import { errorMessage } from "@/lib/api-client";
 import { CASE_STATUSES, CASE_TRANSITIONS, transitionNeedsReason, type CaseStatus } from "@/lib/domain/case-workflow";
 import { isRole, roleLabels } from "@/lib/roles";
-import { useStaff } from "../api/get-staff";
+import { useStaff } from "@/lib/staff";
 import type { HazardClass, WorkspaceCase } from "../api/types";
 import { useUpdateCase } from "../api/update-case";
 import { HAZARD_CLASS_CHOICES, hazardClassLabel } from "../lib/labels";

@@ -2,7 +2,7 @@ import type { ReactNode } from "react";
 import { PageHeader } from "@/components/ui/page-header";
 import { Spinner } from "@/components/ui/spinner";
 import { useDeadlines } from "../api/get-deadlines";
-import { useStaff } from "../api/get-staff";
+import { useStaff } from "@/lib/staff";
 import type { StaffMember, WorkspaceCase } from "../api/types";
 import { nextDeadline } from "../lib/deadline-view";
 import { hazardClassLabel, stageLabel } from "../lib/labels";

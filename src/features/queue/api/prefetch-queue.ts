@@ -1,7 +1,7 @@
 import type { QueryClient } from "@tanstack/react-query";
 import { queueViewFrom } from "../lib/queue-view";
 import { caseQueueQueryOptions } from "./get-case-queue";
-import { staffQueryOptions } from "./get-staff";
+import { staffQueryOptions } from "@/lib/staff";
 
 /** Warms the cache for the queue as the URL describes it, without waiting for it. */
 export function prefetchCaseQueue(queryClient: QueryClient, url: string | URL): void {

@@ -9,5 +9,4 @@ export const queueKeys = {
   all: ["cases", "queue"] as const,
   lists: () => [...queueKeys.all, "list"] as const,
   list: (params: QueueListParams) => [...queueKeys.lists(), params] as const,
-  staff: () => ["staff"] as const,
 };

@@ -3,7 +3,6 @@
 import type { DeadlineStage, HazardClass } from "@/lib/domain/deadlines";
 import type { SurfaceState } from "@/lib/domain";
 import type { Area, CaseStatus } from "@/lib/schemas/case-report";
-import type { Role } from "@/lib/roles";
 
 export interface QueueItem {
   id: number;
@@ -38,11 +37,7 @@ export interface QueuePage {
   pageSize: number;
 }
 
-export interface StaffMember {
-  id: number;
-  name: string;
-  role: Role | string;
-}
+export type { StaffMember } from "@/lib/staff";
 
 /** One bulk change: every case gets the same assignee, or moves to the same status. */
 export interface BulkUpdate {

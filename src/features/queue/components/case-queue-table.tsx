@@ -7,7 +7,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { errorMessage } from "@/lib/api-client";
 import { useBulkUpdateCases } from "../api/bulk-update-cases";
 import { useCaseQueue } from "../api/get-case-queue";
-import { useStaff } from "../api/get-staff";
+import { useStaff } from "@/lib/staff";
 import type { BulkUpdate, QueueItem } from "../api/types";
 import { useNow } from "../hooks/use-now";
 import { useQueueTableParams } from "../hooks/use-queue-table-params";
