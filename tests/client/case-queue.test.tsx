@@ -69,7 +69,7 @@ describe("Case queue", () => {
     expect(within(table).getByRole("columnheader", { name: "Priority" })).toHaveAttribute("aria-sort", "descending");
     expect(within(table).getByRole("columnheader", { name: "Reference" })).toHaveAttribute("aria-sort", "none");
     expect(within(table).getByRole("link", { name: "DW-2026-00001" })).toHaveAttribute("href", "/cases/1");
-    expect(within(rowsOf(table)[1]!).getByText("Being looked into")).toBeInTheDocument();
+    expect(within(rowsOf(table)[1]!).getByText("Triaged")).toBeInTheDocument();
     expect(screen.getByText("Showing 1–3 of 3 cases")).toBeInTheDocument();
     expect(screen.getByText("Page 1 of 1")).toBeInTheDocument();
     // Homes have their own page now.
@@ -117,14 +117,14 @@ describe("Case queue", () => {
     expect(within(table).queryByRole("columnheader", { name: "Channel" })).not.toBeInTheDocument();
 
     const user = userEvent.setup();
-    const statusButton = screen.getByRole("button", { name: "Status Sent, Being looked into" });
+    const statusButton = screen.getByRole("button", { name: "Status New, Triaged" });
     await user.click(statusButton);
     expect(statusButton).toHaveAttribute("aria-expanded", "true");
-    expect(screen.getByRole("checkbox", { name: "Sent" })).toBeChecked();
-    expect(screen.getByRole("checkbox", { name: "Being looked into" })).toBeChecked();
-    expect(screen.getByRole("checkbox", { name: "Visit booked" })).not.toBeChecked();
+    expect(screen.getByRole("checkbox", { name: "New" })).toBeChecked();
+    expect(screen.getByRole("checkbox", { name: "Triaged" })).toBeChecked();
+    expect(screen.getByRole("checkbox", { name: "Inspection booked" })).not.toBeChecked();
     // Ticking one more status goes to the URL and back to page 1.
-    await user.click(screen.getByRole("checkbox", { name: "Visit booked" }));
+    await user.click(screen.getByRole("checkbox", { name: "Inspection booked" }));
     await waitFor(() => expect(search(router).get("status")).toBe("new,triaged,inspection-booked"));
     expect(search(router).get("page")).toBeNull();
     await waitFor(() => expect(callsTo("GET", "/api/cases").at(-1)!.search.get("status")).toBe("new,triaged,inspection-booked"));
@@ -279,14 +279,14 @@ describe("Case queue", () => {
 
     await user.click(screen.getByRole("button", { name: "Change status…" }));
     const dialog = await screen.findByRole("dialog", { name: "Change the status of 3 cases?" });
-    await user.selectOptions(within(dialog).getByRole("combobox", { name: "New status" }), "Withdrawn");
-    expect(dialog).toHaveTextContent("3 cases will move to Withdrawn.");
-    await user.click(within(dialog).getByRole("button", { name: "Move to Withdrawn" }));
+    await user.selectOptions(within(dialog).getByRole("combobox", { name: "New status" }), "Cancelled");
+    expect(dialog).toHaveTextContent("3 cases will move to Cancelled.");
+    await user.click(within(dialog).getByRole("button", { name: "Move to Cancelled" }));
     expect(within(dialog).getByText("Give a short reason (at least 3 characters).")).toBeInTheDocument();
     expect(callsTo("POST", "/api/cases/bulk")).toHaveLength(0);
 
     await user.type(within(dialog).getByRole("textbox", { name: "Reason" }), "Reported twice by the same household");
-    await user.click(within(dialog).getByRole("button", { name: "Move to Withdrawn" }));
+    await user.click(within(dialog).getByRole("button", { name: "Move to Cancelled" }));
     expect(await screen.findByText("3 cases updated")).toBeInTheDocument();
     expect(callsTo("POST", "/api/cases/bulk")[0]!.body).toEqual({ ids: [1, 2, 3], status: "cancelled", reason: "Reported twice by the same household" });
   });

@@ -190,7 +190,7 @@ describe("case workspace", () => {
     // Header: address, status, assignee, hazard class, next deadline.
     expect(screen.getByText("1 Tanner Row, Easterby, ZX3 1AA")).toBeInTheDocument();
     const facts = screen.getByText("Assigned to").closest("dl")!;
-    expect(within(facts).getByText("Being looked into")).toBeInTheDocument();
+    expect(within(facts).getByText("Triaged")).toBeInTheDocument();
     expect(await within(facts).findByText("Priya Venn")).toBeInTheDocument();
     expect(within(facts).getByText("Significant hazard")).toBeInTheDocument();
     expect(await within(facts).findByText("Investigate")).toBeInTheDocument();
@@ -253,7 +253,7 @@ describe("case workspace", () => {
     // Other cases at this home link to their own page.
     const relatedPanel = region("Other cases at this home");
     expect(await within(relatedPanel).findByRole("link", { name: "DW-2025-00017" })).toHaveAttribute("href", "/cases/17");
-    expect(within(relatedPanel).getByText("Finished")).toBeInTheDocument();
+    expect(within(relatedPanel).getByText("Closed")).toBeInTheDocument();
   });
 
   it("offers only the status moves the workflow allows, asks for a reason to cancel, and shows the server's refusal", async () => {
@@ -264,7 +264,7 @@ describe("case workspace", () => {
     const select = within(actions).getByLabelText(/^Move to/);
     const options = within(select).getAllByRole("option").slice(1);
     expect(options.map((o) => (o as HTMLOptionElement).value)).toEqual([...CASE_TRANSITIONS.triaged]);
-    expect(options.map((o) => o.textContent)).toEqual(["Visit booked", "Visited", "Withdrawn"]);
+    expect(options.map((o) => o.textContent)).toEqual(["Inspection booked", "Investigated", "Cancelled"]);
 
     const user = userEvent.setup();
     await user.selectOptions(select, "cancelled");
@@ -291,7 +291,7 @@ describe("case workspace", () => {
     const user = userEvent.setup();
     await user.selectOptions(within(actions).getByLabelText(/^Move to/), "inspection-booked");
     await user.click(within(actions).getByRole("button", { name: "Change status" }));
-    expect(await within(actions).findByText("The status is now “Visit booked”.")).toBeInTheDocument();
+    expect(await within(actions).findByText("The status is now “Inspection booked”.")).toBeInTheDocument();
     expect(callsTo("PATCH", "/api/cases/42")[0]!.body).toEqual({ status: "inspection-booked" });
     await waitFor(() => {
       expect(callsTo("GET", "/api/cases/42/deadlines").length).toBeGreaterThanOrEqual(2);

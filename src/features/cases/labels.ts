@@ -14,6 +14,25 @@ export const statusLabels: Record<CaseStatus, { label: string; meaning: string }
   cancelled: { label: "Withdrawn", meaning: "This report was withdrawn." },
 };
 
+/** The workflow's own names, for staff: the stages they move a case through. */
+export const staffStatusLabels: Record<CaseStatus, string> = {
+  new: "New",
+  triaged: "Triaged",
+  "inspection-booked": "Inspection booked",
+  investigated: "Investigated",
+  "works-planned": "Works planned",
+  "works-done": "Works done",
+  monitoring: "Monitoring",
+  closed: "Closed",
+  cancelled: "Cancelled",
+};
+
+export type Audience = "tenant" | "staff";
+
+export function statusLabelFor(audience: Audience): (status: string) => string {
+  return audience === "staff" ? (status) => (staffStatusLabels as Record<string, string>)[status] ?? humanise(status) : statusLabel;
+}
+
 export function statusLabel(status: string): string {
   return (statusLabels as Record<string, { label: string }>)[status]?.label ?? humanise(status);
 }

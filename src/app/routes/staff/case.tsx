@@ -21,7 +21,7 @@ import { StatusBadge } from "@/features/cases/components/case-status";
 import { CaseTimeline } from "@/features/cases/components/case-timeline";
 import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
-import { statusLabel } from "@/features/cases/labels";
+import { statusLabelFor } from "@/features/cases/labels";
 import { deadlinesQueryOptions } from "@/features/case-workspace/api/get-deadlines";
 import { useStaff } from "@/lib/staff";
 import { triageQueryOptions } from "@/features/case-workspace/api/get-triage";
@@ -63,6 +63,8 @@ export const clientLoader =
     }
     return null;
   };
+
+const StaffStatusBadge = ({ status }: { status: string }) => <StatusBadge status={status} audience="staff" />;
 
 export default function StaffCasePage() {
   const id = caseIdOf(useParams().id);
@@ -128,7 +130,7 @@ function Workspace({ id }: { id: number }) {
   return (
     <>
       <title>{`${workspaceTitle(c)} · Dewline`}</title>
-      <CaseHeader c={c} status={<StatusBadge status={c.status} />} />
+      <CaseHeader c={c} status={<StatusBadge status={c.status} audience="staff" />} />
       <nav aria-label="On this page" className="mb-5">
         <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
           {SECTIONS.map(([anchor, label]) => (
@@ -142,12 +144,12 @@ function Workspace({ id }: { id: number }) {
       </nav>
       <div className="flex flex-col gap-5">
         <div className="grid grid-cols-1 items-start gap-5 xl:grid-cols-2">
-          <ActionsPanel c={c} statusLabel={statusLabel} me={user} canAct={officer} />
+          <ActionsPanel c={c} statusLabel={statusLabelFor("staff")} me={user} canAct={officer} />
           <div className="flex min-w-0 flex-col gap-5">
             <DeadlinesPanel caseId={id} />
             <TriagePanel caseId={id} />
             <Panel title="Other cases at this home" id="case-related">
-              <RelatedCases caseId={id} Status={StatusBadge} />
+              <RelatedCases caseId={id} Status={StaffStatusBadge} />
             </Panel>
           </div>
         </div>

@@ -4,7 +4,7 @@ import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
 import { StatusBadge } from "@/features/cases/components/case-status";
-import { statusLabel } from "@/features/cases/labels";
+import { statusLabelFor } from "@/features/cases/labels";
 import { estatesQueryOptions, useEstates } from "@/features/properties/api/get-estates";
 import { prefetchCaseQueue } from "@/features/queue/api/prefetch-queue";
 import { CaseQueueTable } from "@/features/queue/components/case-queue-table";
@@ -19,7 +19,7 @@ export const clientLoader =
     return null;
   };
 
-const renderStatus = (status: string) => <StatusBadge status={status} className="whitespace-nowrap" />;
+const renderStatus = (status: string) => <StatusBadge status={status} audience="staff" className="whitespace-nowrap" />;
 
 export default function CaseQueuePage() {
   const estates = useEstates();
@@ -28,7 +28,7 @@ export default function CaseQueuePage() {
       <title>Case queue · Dewline</title>
       <PageHeader title="Case queue" description="Reports from tenants, most urgent first. Filter, sort and share the view: it is all in the link." />
       <Panel as="div">
-        <CaseQueueTable statusLabel={statusLabel} renderStatus={renderStatus} estates={estates.data} />
+        <CaseQueueTable statusLabel={statusLabelFor("staff")} renderStatus={renderStatus} estates={estates.data} />
       </Panel>
     </>
   );

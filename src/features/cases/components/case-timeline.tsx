@@ -2,9 +2,9 @@ import type { ReactNode } from "react";
 import { formatDateTime } from "@/lib/dates";
 import { isRole, roleLabels } from "@/lib/roles";
 import type { CaseEvent, CaseEventEmail, CaseRoom } from "../api/types";
-import { humanise, statusLabel, statusMeaning } from "../labels";
+import { humanise, statusLabelFor, statusMeaning, type Audience } from "../labels";
 
-export type Audience = "tenant" | "staff";
+export type { Audience } from "../labels";
 
 interface CaseTimelineProps {
   events: readonly CaseEvent[];
@@ -84,10 +84,11 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
       const to = str(after.status);
       const from = str(before.status);
       const reason = audience === "staff" ? str(after.reason) : undefined;
+      const statusLabel = statusLabelFor(audience);
       return {
         title: to ? `The status changed to “${statusLabel(to)}”${audience === "staff" && who ? `, by ${who}` : ""}.` : "The status changed.",
         detail:
-          [from ? `It was “${statusLabel(from)}”.` : "", to ? (statusMeaning(to) ?? "") : "", reason ? `Reason: ${reason}` : ""].filter(Boolean).join(" ") || undefined,
+          [from ? `It was “${statusLabel(from)}”.` : "", to && audience === "tenant" ? (statusMeaning(to) ?? "") : "", reason ? `Reason: ${reason}` : ""].filter(Boolean).join(" ") || undefined,
       };
     }
     case "message-to-tenant": {
