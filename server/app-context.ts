@@ -22,6 +22,8 @@ import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { QueueService } from "./modules/triage/queue.service.js";
 import { TriageService } from "./modules/triage/triage.service.js";
 import { UserService } from "./modules/users/user.service.js";
+import { VerificationService } from "./modules/works/verification.service.js";
+import { WorkOrderService } from "./modules/works/work-order.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -38,6 +40,8 @@ export interface Services {
   properties: PropertyService;
   queue: QueueService;
   triage: TriageService;
+  works: WorkOrderService;
+  verification: VerificationService;
   tenancies: TenancyService;
   users: UserService;
 }
@@ -69,7 +73,9 @@ export function createServices(config: Config, dataSource: DataSource, mailer: M
   const triage = new TriageService(dataSource, cases, evaluation, policy, inspections);
   const queue = new QueueService(dataSource, triage);
   const digest = new DigestService(dataSource, config, mail, logger);
-  return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, queue, readings, tenancies, triage, users, digest };
+  const works = new WorkOrderService(dataSource, config, cases, mail, policy, inspections);
+  const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger);
+  return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, queue, readings, tenancies, triage, users, digest, works, verification };
 }
 
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */

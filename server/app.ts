@@ -23,6 +23,7 @@ import { createMyHomeRouter } from "./modules/tenancies/tenancies.routes.js";
 import { createTriageRouter } from "./modules/triage/triage.routes.js";
 import { createStaffRouter, createUsersRouter } from "./modules/users/users.routes.js";
 import { requireAuth } from "./middleware/auth.js";
+import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
 
 /** The whole HTTP app, without listening (tests drive it through supertest). */
 export function createApp(ctx: AppContext): Express {
@@ -80,6 +81,9 @@ export function createApp(ctx: AppContext): Express {
   api.use("/cases", createReadingsRouter({ cases: services.cases, readings: services.readings, imports: services.imports, evaluation: services.evaluation }));
   api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
   api.use("/cases", createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy }));
+  api.use("/cases", requireAuth, createCaseWorksRouter({ works: services.works, verification: services.verification, photos: services.photos }));
+  api.use("/work-orders", requireAuth, createWorkOrdersRouter({ works: services.works, verification: services.verification, photos: services.photos }));
+  api.use("/contractors", requireAuth, createContractorsRouter({ works: services.works }));
   api.use("/policy", createPolicyRouter({ policy: services.policy }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties }));

@@ -3,12 +3,15 @@
 import type { AppContext } from "./app-context.js";
 import { startDigestScheduler } from "./modules/digest/digest.scheduler.js";
 import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
+import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
 
-/** Starts the triage sweep and the deadline digest; returns a function that stops both. */
+/** Starts the triage sweep, the deadline digest and the end-of-monitoring reminders; returns a function that stops them. */
 export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger">): () => void {
   const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger);
   const digestScheduler = startDigestScheduler(ctx.services, ctx.logger);
+  const stopReminders = startMonitoringReminders(ctx.services.verification, ctx.logger);
   return () => {
+    stopReminders();
     stopTriageSweeper();
     digestScheduler.stop();
   };

@@ -1,5 +1,9 @@
 import { CaseEvent } from "../modules/cases/case-event.entity.js";
 import { Case } from "../modules/cases/case.entity.js";
+import { WorkOrderBooking } from "../modules/works/booking.entity.js";
+import { Contractor } from "../modules/works/contractor.entity.js";
+import { OperativeSlot } from "../modules/works/operative-slot.entity.js";
+import { WorkOrder } from "../modules/works/work-order.entity.js";
 import { Photo } from "../modules/photos/photo.entity.js";
 import { ReadingImport } from "../modules/readings/reading-import.entity.js";
 import { Reading } from "../modules/readings/reading.entity.js";
@@ -16,4 +20,4 @@ import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
 
-export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport, HhsrsAssessmentRecord, Inspection, WrittenSummary, DeadlinePolicyRecord, DeadlineDigest];
+export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport, HhsrsAssessmentRecord, Inspection, WrittenSummary, DeadlinePolicyRecord, DeadlineDigest, WorkOrder, WorkOrderBooking, OperativeSlot, Contractor];

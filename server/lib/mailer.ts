@@ -6,6 +6,7 @@ export interface MailMessage {
   subject: string;
   text: string;
   html?: string;
+  attachments?: { filename: string; content: string; contentType: string }[];
 }
 
 export interface Mailer {

@@ -18,6 +18,8 @@ export interface Equipment {
 @Index("idx_cases_tenant", ["tenantUserId", "createdAt"])
 @Index("idx_cases_org_assignee", ["organisationId", "assigneeUserId"])
 @Index("idx_cases_org_due", ["organisationId", "nextDueAt"])
+// The queue's counts of open cases by vulnerability and deadline read this index alone.
+@Index("idx_cases_org_status_vulnerable_due", ["organisationId", "status", "vulnerableHousehold", "nextDueAt"])
 @Index("idx_cases_triage_due", ["triageDueAt"])
 // Descending priority then ascending due time: the queue's default order. TypeORM cannot declare a
 // descending index, so the migration creates it and TypeORM leaves it alone.
@@ -104,6 +106,18 @@ export class Case {
   /** Set once officers have been told of a risky or vulnerable report, so they are told once. */
   @Column({ name: "officers_alerted_at", type: "datetime", precision: 3, nullable: true })
   officersAlertedAt: Date | null;
+
+  /** When the last of the case's work orders was completed; monitoring runs from here. */
+  @Column({ name: "works_done_at", type: "datetime", precision: 3, nullable: true })
+  worksDoneAt: Date | null;
+
+  /** The end of the monitoring period after the works (works_done_at + the policy's monitoring days). */
+  @Column({ name: "monitoring_ends_at", type: "datetime", precision: 3, nullable: true })
+  monitoringEndsAt: Date | null;
+
+  /** Set once the end-of-monitoring reminders have been queued, so they go once. */
+  @Column({ name: "monitoring_reminded_at", type: "datetime", precision: 3, nullable: true })
+  monitoringRemindedAt: Date | null;
 
   // Triage figures, kept on the case so the queue can filter and sort thousands of cases quickly.
   // TriageService writes them; every change to a case marks them stale (triageDueAt = now) in the

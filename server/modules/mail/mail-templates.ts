@@ -1,8 +1,17 @@
 // Plain-text-first e-mails. Each template takes only what it shows.
+export interface MailAttachment {
+  filename: string;
+  content: string;
+  contentType: string;
+}
+
 export interface RenderedMail {
   subject: string;
   text: string;
+  attachments?: MailAttachment[];
 }
+
+const calendarFile = (ics: string): MailAttachment[] => [{ filename: "appointment.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=REQUEST" }];
 
 export const mailTemplates = {
   invitation(d: { name: string; organisationName: string; inviterName: string; link: string; expiresHours: number }): RenderedMail {
@@ -103,6 +112,56 @@ export const mailTemplates = {
         "",
         "Times are UK time. Working days leave out weekends and bank holidays in England and Wales.",
       ].join("\n"),
+    };
+  },
+  appointmentProposed(d: { name: string; reference: string; workWords: string; slotWords: string; address: string; link: string; ics: string; forOperative: boolean; accessNotes: string | null }): RenderedMail {
+    return {
+      subject: `${d.forOperative ? "Booked" : "Proposed appointment"}: ${d.workWords}, ${d.slotWords} (${d.reference})`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        d.forOperative
+          ? `You are booked for ${d.workWords} at ${d.address}, ${d.slotWords}. The tenant has been asked to confirm.`
+          : `We would like to come to ${d.address} for ${d.workWords} on ${d.slotWords}. Please confirm on your case page, or ask for another time if this one does not suit you:`,
+        ...(d.forOperative ? [] : [d.link]),
+        ...(d.forOperative && d.accessNotes ? ["", `Access and household notes: ${d.accessNotes}`] : []),
+        "",
+        "The appointment is attached as a calendar file.",
+      ].join("\n"),
+      attachments: calendarFile(d.ics),
+    };
+  },
+  appointmentConfirmed(d: { name: string; reference: string; workWords: string; slotWords: string; address: string; link: string; ics: string }): RenderedMail {
+    return {
+      subject: `Confirmed: ${d.workWords}, ${d.slotWords} (${d.reference})`,
+      text: [`Hello ${d.name},`, "", `The appointment for ${d.workWords} at ${d.address} is confirmed for ${d.slotWords}.`, d.link, "", "The appointment is attached as a calendar file."].join("\n"),
+      attachments: calendarFile(d.ics),
+    };
+  },
+  appointmentChangeRequested(d: { name: string; reference: string; workWords: string; slotWords: string; address: string; reason: string; link: string }): RenderedMail {
+    return {
+      subject: `Another slot wanted: ${d.workWords} at ${d.address} (${d.reference})`,
+      text: [`Hello ${d.name},`, "", `The tenant at ${d.address} cannot make ${d.slotWords} for ${d.workWords} and asks for another slot:`, `"${d.reason}"`, "", "Please book another slot:", d.link].join("\n"),
+    };
+  },
+  monitoringStarted(d: { name: string; reference: string; days: number; endsOn: string; link: string }): RenderedMail {
+    return {
+      subject: `Checking the repair worked: ${d.reference}`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `The work on your report ${d.reference} is done. Over the next ${d.days} days, until ${d.endsOn}, we will check that the damp and mould have really stopped.`,
+        "If you have a thermometer and humidity meter (hygrometer) or a data logger, please add readings on your case page now and then, in the rooms that were affected. Tell us at once if anything comes back:",
+        d.link,
+      ].join("\n"),
+    };
+  },
+  monitoringEnded(d: { name: string; reference: string; link: string; forLead: boolean; readingsAfter: number }): RenderedMail {
+    return {
+      subject: d.forLead ? `Monitoring ended, decide if the fix worked: ${d.reference}` : `Please add readings: ${d.reference}`,
+      text: d.forLead
+        ? [`Hello ${d.name},`, "", `The monitoring period for ${d.reference} has ended with ${d.readingsAfter} readings after the works. Compare before and after and record whether the fix worked:`, d.link].join("\n")
+        : [`Hello ${d.name},`, "", `The monitoring period after the work on ${d.reference} has ended. If you have readings from the last few weeks, please add them now so we can see whether the damp has stopped, and tell us if the mould has come back:`, d.link].join("\n"),
     };
   },
 } as const;

@@ -1,7 +1,7 @@
 import type { DataSource, EntityManager } from "typeorm";
 import type { Logger } from "../../lib/logger.js";
 import type { Mailer } from "../../lib/mailer.js";
-import { mailTemplates, type MailTemplateName } from "./mail-templates.js";
+import { mailTemplates, type MailTemplateName, type RenderedMail } from "./mail-templates.js";
 import { OutboxEmail } from "./outbox-email.entity.js";
 
 export interface SendMail<T extends MailTemplateName> {
@@ -30,7 +30,7 @@ export class MailService {
 
   /** As enqueue, also telling the outbox row's id (case timelines link to it). */
   async enqueueWithId<T extends MailTemplateName>(manager: EntityManager, mail: SendMail<T>): Promise<{ outboxId: number; deliver: () => Promise<OutboxEmail> }> {
-    const render = mailTemplates[mail.template] as (d: typeof mail.data) => { subject: string; text: string };
+    const render = mailTemplates[mail.template] as (d: typeof mail.data) => RenderedMail;
     const rendered = render(mail.data);
     const row = await manager.getRepository(OutboxEmail).save(
       manager.getRepository(OutboxEmail).create({
@@ -43,7 +43,7 @@ export class MailService {
         status: "pending",
       }),
     );
-    return { outboxId: row.id, deliver: () => this.deliver(row, rendered.text) };
+    return { outboxId: row.id, deliver: () => this.deliver(row, rendered) };
   }
 
   async send<T extends MailTemplateName>(mail: SendMail<T>): Promise<OutboxEmail> {
@@ -51,10 +51,10 @@ export class MailService {
     return deliver();
   }
 
-  private async deliver(row: OutboxEmail, text: string): Promise<OutboxEmail> {
+  private async deliver(row: OutboxEmail, { text, attachments }: RenderedMail): Promise<OutboxEmail> {
     const repo = this.dataSource.getRepository(OutboxEmail);
     try {
-      const { messageId } = await this.mailer.send({ to: row.toAddress, subject: row.subject, text });
+      const { messageId } = await this.mailer.send({ to: row.toAddress, subject: row.subject, text, attachments });
       Object.assign(row, { status: "sent", messageId, sentAt: new Date(), error: null });
     } catch (error) {
       const message = error instanceof Error ? error.message : String(error);

@@ -13,6 +13,10 @@ export class Photo {
   @Column({ name: "case_id", type: "int", unsigned: true })
   caseId: number;
 
+  /** Set for photos taken as evidence of a work order (after the works); null for the case's own photos. */
+  @Column({ name: "work_order_id", type: "int", unsigned: true, nullable: true })
+  workOrderId: number | null;
+
   @Column({ name: "uploaded_by_id", type: "int", unsigned: true })
   uploadedById: number;
 

@@ -7,5 +7,6 @@ export const toPhotoDto = (p: Photo) => ({
   width: p.width,
   height: p.height,
   sha256: p.sha256,
+  workOrderId: p.workOrderId,
   createdAt: p.createdAt.toISOString(),
 });

@@ -27,7 +27,7 @@ export class PhotoService {
    * Adds photos to a case: all of them or, if any is refused, none. A photo already on the case
    * (same stored bytes) is not stored twice; its existing record is returned.
    */
-  async addToCase(actor: Actor, caseId: number, files: UploadedFile[]): Promise<Photo[]> {
+  async addToCase(actor: Actor, caseId: number, files: UploadedFile[], options: { workOrderId?: number } = {}): Promise<Photo[]> {
     const written: ProcessedPhoto[] = [];
     try {
       if (files.length === 0) throw new ValidationError("photos: choose at least one photo.", [{ field: "photos", message: "Choose at least one photo." }]);
@@ -50,6 +50,7 @@ export class PhotoService {
             repo.create({
               organisationId: c.organisationId,
               caseId: c.id,
+              workOrderId: options.workOrderId ?? null,
               uploadedById: actor.id,
               displayPath: path.relative(this.config.uploadsDir, p.displayFile),
               thumbnailPath: path.relative(this.config.uploadsDir, p.thumbnailFile),
@@ -62,7 +63,7 @@ export class PhotoService {
           out.push(saved);
           added.push(saved.id);
         }
-        if (added.length) await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "photos-added", after: { photoIds: added } });
+        if (added.length) await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "photos-added", after: { photoIds: added, workOrderId: options.workOrderId ?? null } });
         return out;
       });
       return result;

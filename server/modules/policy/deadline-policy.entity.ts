@@ -21,6 +21,10 @@ export class DeadlinePolicyRecord {
   @Column({ name: "supplementary_work_weeks", type: "smallint", unsigned: true })
   supplementaryWorkWeeks: number;
 
+  /** Days of readings after the works before the fix is judged (our default 21: common practice, no source). */
+  @Column({ name: "monitoring_days", type: "smallint", unsigned: true, default: 21 })
+  monitoringDays: number;
+
   @Column({ name: "updated_by_id", type: "int", unsigned: true })
   updatedById: number;
 

@@ -15,5 +15,7 @@ export const deadlinePolicySchema = z
     summaryWorkingDays: whole("summaryWorkingDays", 1, 30, "working days"),
     safetyWorkWorkingDays: whole("safetyWorkWorkingDays", 1, 60, "working days"),
     supplementaryWorkWeeks: whole("supplementaryWorkWeeks", 1, 52, "weeks"),
+    /** Optional so older clients keep working; 21 days when not sent. */
+    monitoringDays: whole("monitoringDays", 7, 90, "days").default(21),
   })
   .strict();

@@ -4,7 +4,12 @@ import type { Actor } from "../auth/actor.js";
 import { markTriageStale } from "../triage/triage.service.js";
 import { DeadlinePolicyRecord } from "./deadline-policy.entity.js";
 
+/** Days of readings after the works before the fix is judged: our default (common practice, no source). */
+export const DEFAULT_MONITORING_DAYS = 21;
+
 export interface PolicyView extends DeadlinePolicy {
+  /** The monitoring period after works, in days. */
+  monitoringDays: number;
   source: "default" | "landlord";
 }
 
@@ -14,12 +19,12 @@ export class PolicyService {
   /** The landlord's timeframes, or the England social-housing default (TRADE.md §5) when none are set. */
   async forOrganisation(organisationId: number): Promise<PolicyView> {
     const row = await this.dataSource.getRepository(DeadlinePolicyRecord).findOneBy({ organisationId });
-    if (!row) return { ...ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, source: "default" };
-    const { emergencyMakeSafeHours, investigateWorkingDays, summaryWorkingDays, safetyWorkWorkingDays, supplementaryWorkWeeks } = row;
-    return { emergencyMakeSafeHours, investigateWorkingDays, summaryWorkingDays, safetyWorkWorkingDays, supplementaryWorkWeeks, source: "landlord" };
+    if (!row) return { ...ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, monitoringDays: DEFAULT_MONITORING_DAYS, source: "default" };
+    const { emergencyMakeSafeHours, investigateWorkingDays, summaryWorkingDays, safetyWorkWorkingDays, supplementaryWorkWeeks, monitoringDays } = row;
+    return { emergencyMakeSafeHours, investigateWorkingDays, summaryWorkingDays, safetyWorkWorkingDays, supplementaryWorkWeeks, monitoringDays, source: "landlord" };
   }
 
-  async update(actor: Actor, policy: DeadlinePolicy): Promise<PolicyView> {
+  async update(actor: Actor, policy: DeadlinePolicy & { monitoringDays: number }): Promise<PolicyView> {
     await this.dataSource.transaction(async (m) => {
       await m.getRepository(DeadlinePolicyRecord).save({ organisationId: actor.organisationId, ...policy, updatedById: actor.id });
       // Every open case's deadlines follow the policy.

@@ -1,4 +1,4 @@
-import { Brackets, type DataSource, type SelectQueryBuilder } from "typeorm";
+import { Brackets, type DataSource, type ObjectLiteral, type SelectQueryBuilder } from "typeorm";
 import { CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
 import { SURFACE_STATES } from "../../../src/lib/domain/surface.js";
 import { TRIAGE_AREAS } from "../../../src/lib/domain/triage-priority.js";
@@ -61,6 +61,9 @@ const SORTS: Record<Exclude<QueueSort, "priority">, { expr: string; nullable: bo
   assignee: { expr: "u.name", nullable: true },
 };
 
+/** Sorts whose expression reads the home (`p`). */
+const SORTS_ON_PROPERTY = new Set<QueueSort>(["address", "estate"]);
+
 /** The officers' queue: one landlord's cases filtered, sorted and paged on the stored triage figures. */
 export class QueueService {
   constructor(
@@ -77,8 +80,21 @@ export class QueueService {
 
     const counter = base.clone().select("COUNT(*)", "n");
     if (needsProperty) counter.innerJoin("c.property", "p");
-    const list = base
-      .clone()
+
+    // The page's ids first, from the cases alone where the filters and the sort allow, then the
+    // rows for those ids (a deferred join). For the default order MariaDB walks idx_cases_queue
+    // and steps over a deep page's offset inside the index, instead of joining every case to its
+    // home and sorting them all (bench:queue: page 2000 went from ~700 ms to ~10 ms).
+    const page = base.clone().select("c.id", "id");
+    if (needsProperty || SORTS_ON_PROPERTY.has(query.sort)) page.innerJoin("c.property", "p");
+    if (query.sort === "assignee") page.leftJoin(User, "u", "u.id = c.assignee_user_id");
+    this.applySort(page, query);
+    page.offset((query.page - 1) * query.pageSize).limit(query.pageSize);
+
+    const list = this.dataSource
+      .createQueryBuilder()
+      .from(`(${page.getQuery()})`, "page")
+      .innerJoin(Case, "c", "c.id = page.id")
       .innerJoin("c.property", "p")
       .leftJoin(User, "u", "u.id = c.assignee_user_id")
       .select([
@@ -106,9 +122,9 @@ export class QueueService {
         "c.next_due_at AS nextDueAt",
         "u.id AS assigneeId",
         "u.name AS assigneeName",
-      ]);
+      ])
+      .setParameters(page.getParameters());
     this.applySort(list, query);
-    list.offset((query.page - 1) * query.pageSize).limit(query.pageSize);
 
     const [rows, count] = await Promise.all([list.getRawMany<QueueRow>(), counter.getRawOne<{ n: string | number }>()]);
     return { rows, rooms: await this.roomsOf(rows.map((r) => r.id)), total: Number(count?.n ?? 0) };
@@ -153,21 +169,25 @@ export class QueueService {
     if (query.q) {
       const like = `%${escapeLike(query.q)}%`;
       const compact = `%${escapeLike(query.q.replace(/\s+/g, ""))}%`;
+      // A reference is DW-, a year, a dash and digits (formatReference): text holding any other
+      // ASCII letter cannot be part of one. Leaving that test out of the OR lets MariaDB use the
+      // home's columns alone: with it, every case has to be joined to its home and tested
+      // (bench:queue: a street name went from ~450 ms to ~10 ms for the page, ~15 ms for the count).
+      const mayBeReference = !/[a-ce-vx-z]/i.test(query.q);
       qb.andWhere(
-        new Brackets((w) =>
-          w
-            .where("c.reference LIKE :like", { like })
-            .orWhere("p.address_line1 LIKE :like", { like })
+        new Brackets((w) => {
+          if (mayBeReference) w.orWhere("c.reference LIKE :like", { like });
+          w.orWhere("p.address_line1 LIKE :like", { like })
             .orWhere("p.town LIKE :like", { like })
-            .orWhere("REPLACE(p.postcode, ' ', '') LIKE :compact", { compact }),
-        ),
+            .orWhere("REPLACE(p.postcode, ' ', '') LIKE :compact", { compact });
+        }),
       );
       needsProperty = true;
     }
     return needsProperty;
   }
 
-  private applySort(qb: SelectQueryBuilder<Case>, query: QueueQuery) {
+  private applySort(qb: SelectQueryBuilder<ObjectLiteral>, query: QueueQuery) {
     if (query.sort === "priority") {
       // The default order, served by idx_cases_queue: priority, then the nearest deadline.
       const dir = query.order === "asc" ? "ASC" : "DESC";

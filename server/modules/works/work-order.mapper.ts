@@ -1,0 +1,54 @@
+import { isStaff, type Actor } from "../auth/actor.js";
+import { slotInstants } from "./appointment.js";
+import type { WorkOrder } from "./work-order.entity.js";
+import type { WorkOrderService } from "./work-order.service.js";
+
+type Context = Awaited<ReturnType<WorkOrderService["context"]>>;
+
+export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor) {
+  const c = ctx.cases.get(w.caseId);
+  const rooms = (c?.property?.rooms ?? []).filter((r) => w.roomIds.includes(r.id)).map((r) => ({ id: r.id, name: r.name }));
+  const assignee = w.assigneeUserId ? ctx.users.get(w.assigneeUserId) : undefined;
+  const contractor = w.contractorId ? ctx.contractors.get(w.contractorId) : undefined;
+  const staff = isStaff(actor);
+  const bookings = ctx.bookings.get(w.id) ?? [];
+  const active = bookings.find((b) => b.state === "active");
+  const slot = w.slotDate && w.slotWindow ? { date: w.slotDate, window: w.slotWindow, startsAt: slotInstants(w.slotDate, w.slotWindow).start.toISOString(), endsAt: slotInstants(w.slotDate, w.slotWindow).end.toISOString() } : null;
+  const completedBy = w.completedById ? ctx.users.get(w.completedById) : undefined;
+  return {
+    id: w.id,
+    caseId: w.caseId,
+    caseReference: c?.reference ?? null,
+    status: w.status,
+    type: w.type,
+    description: w.description,
+    priority: w.priority,
+    targetDate: w.targetDate,
+    rooms,
+    property: c?.property ? { id: c.property.id, addressLine1: c.property.addressLine1, town: c.property.town, postcode: c.property.postcode, estate: c.property.estate } : null,
+    assignee: assignee ? { id: assignee.id, name: assignee.name } : null,
+    contractor: contractor ? { id: contractor.id, name: contractor.name, ...(staff ? { email: contractor.email } : {}) } : null,
+    slot,
+    booking: active ? { response: active.tenantResponse, reason: active.tenantReason, respondedAt: active.respondedAt?.toISOString() ?? null } : null,
+    ...(staff
+      ? {
+          bookings: bookings.map((b) => ({
+            id: b.id,
+            date: b.slotDate,
+            window: b.slotWindow,
+            assignee: b.assigneeUserId ? { id: b.assigneeUserId, name: ctx.users.get(b.assigneeUserId)?.name ?? null } : null,
+            contractor: b.contractorId ? { id: b.contractorId, name: ctx.contractors.get(b.contractorId)?.name ?? null } : null,
+            state: b.state,
+            response: b.tenantResponse,
+            reason: b.tenantReason,
+            createdAt: b.createdAt.toISOString(),
+          })),
+          accessNotes: ctx.accessNotes.get(w.caseId) ?? null,
+        }
+      : {}),
+    completion: w.completedAt
+      ? { at: w.completedAt.toISOString(), by: completedBy?.name ?? null, note: w.completionNote, materials: staff ? w.materials : null, minutesOnSite: staff ? w.minutesOnSite : null, followOn: staff ? w.followOn : null }
+      : null,
+    createdAt: w.createdAt.toISOString(),
+  };
+}

@@ -1,0 +1,406 @@
+import { In, QueryFailedError, type DataSource, type EntityManager } from "typeorm";
+import { canTransition } from "../../../src/lib/domain/case-workflow.js";
+import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
+import { addWorkingDays, localDate } from "../../../src/lib/domain/working-days.js";
+import type { Config } from "../../config/env.js";
+import { AppError, ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
+import { isStaff, type Actor } from "../auth/actor.js";
+import { Case } from "../cases/case.entity.js";
+import { addressOf, type CaseService } from "../cases/case.service.js";
+import type { InspectionService } from "../inspections/inspection.service.js";
+import type { MailService } from "../mail/mail.service.js";
+import type { PolicyService } from "../policy/policy.service.js";
+import { Property } from "../properties/property.entity.js";
+import { Tenancy } from "../tenancies/tenancy.entity.js";
+import { User } from "../users/user.entity.js";
+import { appointmentIcs, describeSlot, halvesOf } from "./appointment.js";
+import { WorkOrderBooking } from "./booking.entity.js";
+import { Contractor } from "./contractor.entity.js";
+import { OperativeSlot } from "./operative-slot.entity.js";
+import { WorkOrder, type SlotWindow } from "./work-order.entity.js";
+import type { WorkOrderCreate, WorkOrderListQuery } from "./works.schemas.js";
+
+export const WORK_WORDS: Record<WorkOrder["type"], string> = {
+  "extractor-fan": "extractor fan fitting or repair",
+  "fan-upgrade": "extractor fan upgrade (continuous or humidity-controlled)",
+  "trickle-vents": "trickle vents fitted or unblocked",
+  "door-undercut": "doors undercut for air to flow",
+  "piv-unit": "positive input ventilation unit",
+  "mould-wash": "mould wash and fungicidal treatment",
+  "mould-resistant-decoration": "redecoration with mould-resistant paint",
+  insulation: "insulation or thermal-bridge repair",
+  "draught-proofing": "draught-proofing",
+  heating: "heating repair or upgrade",
+  "leak-repair": "leak repair",
+  "roof-gutter": "roof, gutter or downpipe repair",
+  "damp-proofing": "damp-proof course or render repair",
+  other: "repair work",
+};
+
+const VULNERABILITY_WORDS: Record<string, string> = {
+  "children-under-15": "children under 15",
+  "over-65": "someone over 65",
+  "breathing-or-immune": "someone with a breathing or immune condition",
+  pregnancy: "a pregnancy",
+  disability: "someone with a disability",
+};
+
+/** The statuses a case may take a new work order in. */
+const ORDERABLE: readonly Case["status"][] = ["investigated", "works-planned"];
+const OPEN_ORDER: readonly WorkOrder["status"][] = ["unscheduled", "scheduled", "confirmed", "change-requested"];
+const DAY_MS = 86_400_000;
+
+const isDuplicate = (error: unknown) =>
+  error instanceof QueryFailedError && ((error.driverError as { code?: string; errno?: number } | undefined)?.code === "ER_DUP_ENTRY" || (error.driverError as { errno?: number })?.errno === 1062);
+
+type Deliveries = (() => Promise<unknown>)[];
+
+/**
+ * Work orders: created from an investigated case, scheduled into operatives' half-days (the unique
+ * key on operative_slots refuses double-booking), answered by the tenant, completed with evidence.
+ * The case's status follows its orders. Every change writes its CaseEvent in the same transaction,
+ * and e-mails are queued there and sent after commit.
+ */
+export class WorkOrderService {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly config: Config,
+    private readonly cases: CaseService,
+    private readonly mail: MailService,
+    private readonly policy: PolicyService,
+    private readonly inspections: InspectionService,
+  ) {}
+
+  /** A work order the actor may see (staff of its landlord, or the tenant of its case); 404 otherwise. */
+  async getForActor(actor: Actor, id: number, m: EntityManager = this.dataSource.manager, lock = false): Promise<WorkOrder> {
+    const wo = await m.getRepository(WorkOrder).findOne({ where: { id }, ...(lock ? { lock: { mode: "pessimistic_write" as const } } : {}) });
+    if (!wo) throw new NotFoundError("No such work order.");
+    await this.cases.getForActor(actor, wo.caseId, m).catch(() => {
+      throw new NotFoundError("No such work order.");
+    });
+    return wo;
+  }
+
+  async create(actor: Actor, caseId: number, input: WorkOrderCreate, outer?: EntityManager): Promise<WorkOrder> {
+    const run = async (m: EntityManager) => {
+      const c = await this.cases.getForActor(actor, caseId, m);
+      if (!ORDERABLE.includes(c.status)) {
+        throw new ConflictError(
+          c.status === "monitoring" || c.status === "works-done"
+            ? "The works on this case are done and being checked. If the fix did not work, record that first: the case goes back to investigated with a new work order."
+            : `Work orders are made once the case has been investigated; this case is ${c.status}. Record the inspection first.`,
+        );
+      }
+      const rooms = new Set(this.cases.roomsOf(c).map((r) => r.id));
+      const roomIds = [...new Set(input.roomIds ?? c.rooms?.map((r) => r.id) ?? [])];
+      const strange = roomIds.filter((r) => !rooms.has(r));
+      if (strange.length) throw new ValidationError("roomIds: choose rooms of this home.", [{ field: "roomIds", message: `Room ${strange.join(", ")} is not part of this home.` }]);
+      const targetDate = input.targetDate ?? (await this.defaultTargetDate(c));
+      const repo = m.getRepository(WorkOrder);
+      const saved = await repo.save(
+        repo.create({
+          organisationId: c.organisationId,
+          caseId: c.id,
+          type: input.type,
+          description: input.description,
+          roomIds,
+          priority: input.priority ?? (c.hazardClass === "emergency" ? "emergency" : "routine"),
+          targetDate,
+          status: "unscheduled",
+          createdById: actor.id,
+        }),
+      );
+      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "work-order-created", after: { workOrderId: saved.id, type: saved.type, description: saved.description, targetDate, priority: saved.priority } });
+      return saved;
+    };
+    return outer ? run(outer) : this.dataSource.transaction(run);
+  }
+
+  /** The safety-work deadline's London date when it is running, else the supplementary work's, else the policy's safety-work days from today. */
+  private async defaultTargetDate(c: Case): Promise<string> {
+    const { source: _s, monitoringDays: _m, ...policy } = await this.policy.forOrganisation(c.organisationId);
+    const milestones = await this.inspections.milestones(c.id);
+    const now = new Date();
+    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now, policy });
+    const running = (stage: string) => deadlines.find((d) => d.stage === stage && d.dueAt && !d.doneAt && d.state !== "not-applicable");
+    const due = running("safety-work")?.dueAt ?? running("make-safe")?.dueAt ?? running("supplementary-work")?.dueAt ?? addWorkingDays(now, policy.safetyWorkWorkingDays);
+    // A deadline already passed: as soon as possible, which is today.
+    return localDate(due.getTime() < now.getTime() ? now : due);
+  }
+
+  async listForCase(actor: Actor, caseId: number): Promise<WorkOrder[]> {
+    const c = await this.cases.getForActor(actor, caseId);
+    return this.dataSource.getRepository(WorkOrder).find({ where: { caseId: c.id }, order: { id: "ASC" } });
+  }
+
+  async list(actor: Actor, q: WorkOrderListQuery): Promise<{ items: WorkOrder[]; total: number }> {
+    const qb = this.dataSource.getRepository(WorkOrder).createQueryBuilder("w").where("w.organisation_id = :org", { org: actor.organisationId });
+    if (q.status?.length) qb.andWhere("w.status IN (:...statuses)", { statuses: q.status });
+    if (q.type) qb.andWhere("w.type = :type", { type: q.type });
+    if (q.assignee === "me") qb.andWhere("w.assignee_user_id = :me", { me: actor.id });
+    else if (q.assignee === "unassigned") qb.andWhere("w.assignee_user_id IS NULL AND w.contractor_id IS NULL");
+    else if (q.assignee) qb.andWhere("w.assignee_user_id = :a", { a: Number(q.assignee) });
+    if (q.from) qb.andWhere("w.slot_date >= :from", { from: q.from });
+    if (q.to) qb.andWhere("w.slot_date <= :to", { to: q.to });
+    if (q.caseId) qb.andWhere("w.case_id = :caseId", { caseId: q.caseId });
+    const dir = q.order === "desc" ? "DESC" : "ASC";
+    const column = { target: "w.target_date", slot: "w.slot_date", created: "w.created_at", priority: "FIELD(w.priority, 'emergency', 'urgent', 'routine')", type: "w.type", status: "FIELD(w.status, 'unscheduled', 'change-requested', 'scheduled', 'confirmed', 'done', 'cancelled')" }[q.sort];
+    if (q.sort === "slot") qb.orderBy("w.slot_date IS NULL", "ASC").addOrderBy("w.slot_date", dir).addOrderBy("FIELD(w.slot_window, 'am', 'all-day', 'pm')", "ASC");
+    else qb.orderBy(column, dir);
+    qb.addOrderBy("w.id", "ASC").skip((q.page - 1) * q.pageSize).take(q.pageSize);
+    const [items, total] = await qb.getManyAndCount();
+    return { items, total };
+  }
+
+  /** Books (or re-books) the order into a slot for an operative or a contractor. */
+  async schedule(actor: Actor, id: number, input: { assigneeId?: number | null; contractorId?: number | null; slot: { date: string; window: SlotWindow } }): Promise<WorkOrder> {
+    const today = localDate(new Date());
+    if (input.slot.date < today) throw new ValidationError("slot.date: choose today or a later day.", [{ field: "slot.date", message: "Choose today or a later day." }]);
+    const deliveries: Deliveries = [];
+    await this.dataSource.transaction(async (m) => {
+      const wo = await this.getForActor(actor, id, m, true);
+      if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is ${wo.status}; it cannot be booked.`);
+      const c = await this.cases.getForActor(actor, wo.caseId, m);
+      let operative: User | null = null;
+      let contractor: Contractor | null = null;
+      if (input.assigneeId) {
+        operative = await m.getRepository(User).findOneBy({ id: input.assigneeId, organisationId: wo.organisationId, status: "active", role: "maintenance" });
+        if (!operative) throw new ValidationError("assigneeId: choose an active operative (a maintenance member of staff) of this landlord.", [{ field: "assigneeId", message: "Choose an active operative of this landlord." }]);
+      } else if (input.contractorId) {
+        contractor = await m.getRepository(Contractor).findOneBy({ id: input.contractorId, organisationId: wo.organisationId });
+        if (!contractor) throw new ValidationError("contractorId: choose one of this landlord's contractors.", [{ field: "contractorId", message: "Choose one of this landlord's contractors." }]);
+      }
+      // The old appointment is kept on record and frees its half-days.
+      const bookings = m.getRepository(WorkOrderBooking);
+      const previous = await bookings.findOneBy({ workOrderId: wo.id, state: "active" });
+      if (previous) {
+        await m.getRepository(OperativeSlot).delete({ bookingId: previous.id });
+        await bookings.update(previous.id, { state: "replaced" });
+      }
+      const booking = await bookings.save(
+        bookings.create({ workOrderId: wo.id, assigneeUserId: operative?.id ?? null, contractorId: contractor?.id ?? null, slotDate: input.slot.date, slotWindow: input.slot.window, state: "active", createdById: actor.id }),
+      );
+      if (operative) {
+        try {
+          await m.getRepository(OperativeSlot).insert(halvesOf(input.slot.window).map((half) => ({ userId: operative!.id, slotDate: input.slot.date, half, bookingId: booking.id })));
+        } catch (error) {
+          if (!isDuplicate(error)) throw error;
+          throw new AppError(409, "double_booked", `${operative.name} is already booked on ${describeSlot(input.slot.date, input.slot.window).replace(/, (morning|afternoon|all day).*$/, "")}, ${input.slot.window === "all-day" ? "for part of that day" : input.slot.window === "am" ? "morning" : "afternoon"}. Choose another slot or operative.`);
+        }
+      }
+      const sequence = wo.scheduleCount;
+      await m.getRepository(WorkOrder).update(wo.id, {
+        status: "scheduled",
+        assigneeUserId: operative?.id ?? null,
+        contractorId: contractor?.id ?? null,
+        slotDate: input.slot.date,
+        slotWindow: input.slot.window,
+        scheduleCount: wo.scheduleCount + 1,
+      });
+      await this.cases.recordEvent(m, {
+        caseId: c.id,
+        actorId: actor.id,
+        type: "work-order-scheduled",
+        before: previous ? { date: previous.slotDate, window: previous.slotWindow } : null,
+        after: { workOrderId: wo.id, date: input.slot.date, window: input.slot.window, assignee: operative?.name ?? null, contractor: contractor?.name ?? null, rescheduled: Boolean(previous) },
+      });
+      await this.moveCase(m, actor, c, "works-planned", "The works are booked.");
+      const property = c.property!;
+      const ics = appointmentIcs({
+        workOrderId: wo.id,
+        sequence,
+        date: input.slot.date,
+        window: input.slot.window,
+        title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+        description: wo.description,
+        location: addressOf(property),
+        organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
+      });
+      const common = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords: describeSlot(input.slot.date, input.slot.window), address: addressOf(property), ics };
+      if (c.tenantUserId !== null) {
+        const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
+        deliveries.push(await this.queueMail(m, c, { to: tenant.email, template: "appointmentProposed", data: { ...common, name: tenant.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: false, accessNotes: null } }));
+      }
+      const worker = operative ?? contractor;
+      if (worker) {
+        deliveries.push(
+          await this.queueMail(m, c, { to: worker.email, template: "appointmentProposed", data: { ...common, name: worker.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: true, accessNotes: await this.accessNotes(m, c) } }),
+        );
+      }
+    });
+    for (const d of deliveries) await d();
+    return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
+  }
+
+  /** The tenant confirms the proposed appointment or asks for another slot. */
+  async respond(actor: Actor, id: number, input: { response: "confirm" | "another-slot"; reason?: string }): Promise<WorkOrder> {
+    if (isStaff(actor)) throw new NotFoundError("No such work order.");
+    const deliveries: Deliveries = [];
+    await this.dataSource.transaction(async (m) => {
+      const wo = await this.getForActor(actor, id, m, true);
+      const c = await this.cases.getForActor(actor, wo.caseId, m);
+      if (c.tenantUserId !== actor.id) throw new NotFoundError("No such work order.");
+      if (!["scheduled", "confirmed", "change-requested"].includes(wo.status) || !wo.slotDate || !wo.slotWindow) {
+        throw new ConflictError("There is no appointment waiting for your answer on this work.");
+      }
+      const booking = await m.getRepository(WorkOrderBooking).findOneByOrFail({ workOrderId: wo.id, state: "active" });
+      if (input.response === "confirm" && wo.status === "change-requested") throw new ConflictError("You have asked for another time; your landlord will offer a new slot.");
+      const confirmed = input.response === "confirm";
+      await m.getRepository(WorkOrderBooking).update(booking.id, { tenantResponse: confirmed ? "confirmed" : "change-requested", tenantReason: input.reason ?? null, respondedAt: new Date() });
+      await m.getRepository(WorkOrder).update(wo.id, { status: confirmed ? "confirmed" : "change-requested" });
+      await this.cases.recordEvent(m, {
+        caseId: c.id,
+        actorId: actor.id,
+        type: confirmed ? "booking-confirmed" : "booking-change-requested",
+        after: { workOrderId: wo.id, date: wo.slotDate, window: wo.slotWindow, reason: input.reason ?? null },
+      });
+      const property = c.property!;
+      const slotWords = describeSlot(wo.slotDate, wo.slotWindow);
+      const worker = wo.assigneeUserId ? await m.getRepository(User).findOneByOrFail({ id: wo.assigneeUserId }) : wo.contractorId ? await m.getRepository(Contractor).findOneByOrFail({ id: wo.contractorId }) : null;
+      const link = `${this.config.appUrl}/cases/${c.id}`;
+      if (confirmed) {
+        const ics = appointmentIcs({ workOrderId: wo.id, sequence: Math.max(0, wo.scheduleCount - 1), date: wo.slotDate, window: wo.slotWindow, title: `${WORK_WORDS[wo.type]} (${c.reference})`, description: wo.description, location: addressOf(property), organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, "") });
+        const data = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords, address: addressOf(property), link, ics };
+        deliveries.push(await this.queueMail(m, c, { to: actor.email, template: "appointmentConfirmed", data: { ...data, name: actor.name } }));
+        if (worker) deliveries.push(await this.queueMail(m, c, { to: worker.email, template: "appointmentConfirmed", data: { ...data, name: worker.name } }));
+      } else {
+        const lead = await m.getRepository(User).findOneBy({ id: booking.createdById });
+        const to = new Map<string, string>();
+        if (worker) to.set(worker.email, worker.name);
+        if (lead) to.set(lead.email, lead.name);
+        for (const [email, name] of to) {
+          deliveries.push(await this.queueMail(m, c, { to: email, template: "appointmentChangeRequested", data: { name, reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords, address: addressOf(property), reason: input.reason!, link } }));
+        }
+      }
+    });
+    for (const d of deliveries) await d();
+    return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
+  }
+
+  /** Records what was done. The last open order of a case moves it to works-done and into monitoring. */
+  async complete(actor: Actor, id: number, input: { note: string; materials?: string; minutesOnSite?: number; followOn?: string }): Promise<WorkOrder> {
+    const deliveries: Deliveries = [];
+    await this.dataSource.transaction(async (m) => {
+      const wo = await this.getForActor(actor, id, m, true);
+      if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is already ${wo.status}.`);
+      const c = await this.cases.getForActor(actor, wo.caseId, m);
+      const now = new Date();
+      await m.getRepository(WorkOrder).update(wo.id, {
+        status: "done",
+        completedAt: now,
+        completedById: actor.id,
+        completionNote: input.note,
+        materials: input.materials ?? null,
+        minutesOnSite: input.minutesOnSite ?? null,
+        followOn: input.followOn ?? null,
+      });
+      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "work-order-completed", after: { workOrderId: wo.id, note: input.note, followOn: input.followOn ?? null } });
+      const stillOpen = await m.getRepository(WorkOrder).countBy({ caseId: c.id, status: In([...OPEN_ORDER]) });
+      if (stillOpen === 0) deliveries.push(...(await this.startMonitoring(m, actor, c, now)));
+    });
+    for (const d of deliveries) await d();
+    return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
+  }
+
+  async cancel(actor: Actor, id: number, reason: string): Promise<WorkOrder> {
+    await this.dataSource.transaction(async (m) => {
+      const wo = await this.getForActor(actor, id, m, true);
+      if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is already ${wo.status}.`);
+      const booking = await m.getRepository(WorkOrderBooking).findOneBy({ workOrderId: wo.id, state: "active" });
+      if (booking) {
+        await m.getRepository(OperativeSlot).delete({ bookingId: booking.id });
+        await m.getRepository(WorkOrderBooking).update(booking.id, { state: "cancelled" });
+      }
+      await m.getRepository(WorkOrder).update(wo.id, { status: "cancelled" });
+      await this.cases.recordEvent(m, { caseId: wo.caseId, actorId: actor.id, type: "work-order-cancelled", after: { workOrderId: wo.id, reason } });
+    });
+    return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
+  }
+
+  /** works-done, then monitoring for the policy's days, with an e-mail to the tenant asking for readings. */
+  private async startMonitoring(m: EntityManager, actor: Actor, c: Case, now: Date): Promise<Deliveries> {
+    const { monitoringDays } = await this.policy.forOrganisation(c.organisationId);
+    // Orders completed without ever being booked: the case passes through works-planned.
+    await this.moveCase(m, actor, c, "works-planned", "Works recorded.");
+    await this.moveCase(m, actor, c, "works-done", "Every work order is done.");
+    const endsAt = new Date(now.getTime() + monitoringDays * DAY_MS);
+    await m.getRepository(Case).update(c.id, { worksDoneAt: now, monitoringEndsAt: endsAt, monitoringRemindedAt: null });
+    await this.moveCase(m, actor, c, "monitoring", `Checking the fix with readings for ${monitoringDays} days.`);
+    await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "monitoring-started", after: { worksDoneAt: now.toISOString(), endsAt: endsAt.toISOString(), days: monitoringDays } });
+    if (c.tenantUserId === null) return [];
+    const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
+    const endsOn = endsAt.toLocaleDateString("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "Europe/London" });
+    return [await this.queueMail(m, c, { to: tenant.email, template: "monitoringStarted", data: { name: tenant.name, reference: c.reference!, days: monitoringDays, endsOn, link: `${this.config.appUrl}/cases/${c.id}` } })];
+  }
+
+  /** Moves the case along the workflow when it can and is not there yet (c.status is kept current). */
+  async moveCase(m: EntityManager, actor: Actor, c: Case, to: Case["status"], reason: string): Promise<void> {
+    const fresh = await m.getRepository(Case).findOneOrFail({ where: { id: c.id }, lock: { mode: "pessimistic_write" } });
+    if (fresh.status === to || !canTransition(fresh.status, to)) {
+      c.status = fresh.status;
+      return;
+    }
+    await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "status-changed", before: { status: fresh.status }, after: { status: to, reason } });
+    await m.getRepository(Case).update(c.id, { status: to });
+    c.status = to;
+  }
+
+  /** Household notes and vulnerability in words, for the operative going to the home. */
+  async accessNotes(m: EntityManager, c: Case): Promise<string | null> {
+    const parts: string[] = [];
+    if (c.vulnerability?.length) parts.push(`The household includes ${c.vulnerability.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`);
+    const tenancy = c.tenantUserId ? await m.getRepository(Tenancy).findOne({ where: { propertyId: c.propertyId, tenantUserId: c.tenantUserId }, order: { startDate: "DESC" } }) : null;
+    if (tenancy?.householdNotes) parts.push(tenancy.householdNotes);
+    return parts.length ? parts.join(" ") : null;
+  }
+
+  async bookingsOf(ids: number[]): Promise<Map<number, WorkOrderBooking[]>> {
+    const out = new Map<number, WorkOrderBooking[]>();
+    if (!ids.length) return out;
+    for (const b of await this.dataSource.getRepository(WorkOrderBooking).find({ where: { workOrderId: In(ids) }, order: { id: "ASC" } })) {
+      out.set(b.workOrderId, [...(out.get(b.workOrderId) ?? []), b]);
+    }
+    return out;
+  }
+
+  /** What the DTOs need besides the orders: cases, homes, rooms, people and contractors, by id. */
+  async context(orders: WorkOrder[]) {
+    const caseIds = [...new Set(orders.map((o) => o.caseId))];
+    const cases = caseIds.length ? await this.dataSource.getRepository(Case).find({ where: { id: In(caseIds) }, relations: { property: { rooms: true } } }) : [];
+    const bookings = await this.bookingsOf(orders.map((o) => o.id));
+    const allBookings = [...bookings.values()].flat();
+    const userIds = [...new Set([...orders.flatMap((o) => [o.assigneeUserId, o.completedById]), ...allBookings.map((b) => b.assigneeUserId)].filter((v): v is number => v !== null))];
+    const users = userIds.length ? await this.dataSource.getRepository(User).findBy({ id: In(userIds) }) : [];
+    const contractorIds = [...new Set([...orders.map((o) => o.contractorId), ...allBookings.map((b) => b.contractorId)].filter((v): v is number => v !== null))];
+    const contractors = contractorIds.length ? await this.dataSource.getRepository(Contractor).findBy({ id: In(contractorIds) }) : [];
+    const accessNotes = new Map<number, string | null>();
+    for (const c of cases) accessNotes.set(c.id, await this.accessNotes(this.dataSource.manager, c));
+    return {
+      cases: new Map(cases.map((c) => [c.id, c])),
+      users: new Map(users.map((u) => [u.id, u])),
+      contractors: new Map(contractors.map((k) => [k.id, k])),
+      bookings,
+      accessNotes,
+    };
+  }
+
+  /** Queues an e-mail about the case in the caller's transaction and puts it on the timeline. */
+  async queueMail<T extends Parameters<MailService["enqueueWithId"]>[1]["template"]>(m: EntityManager, c: Case, mail: { to: string; template: T; data: Parameters<MailService["enqueueWithId"]>[1]["data"] & object }) {
+    const { deliver, outboxId } = await this.mail.enqueueWithId(m, { ...mail, organisationId: c.organisationId, related: { type: "case", id: c.id } } as never);
+    await this.cases.recordEvent(m, { caseId: c.id, actorId: null, type: "email-queued", after: { outboxId, to: mail.to, template: mail.template } });
+    return deliver;
+  }
+
+  async contractors(actor: Actor): Promise<Contractor[]> {
+    return this.dataSource.getRepository(Contractor).find({ where: { organisationId: actor.organisationId }, order: { name: "ASC" } });
+  }
+
+  async addContractor(actor: Actor, input: { name: string; email: string; phone?: string; trade?: string }): Promise<Contractor> {
+    const repo = this.dataSource.getRepository(Contractor);
+    return repo.save(repo.create({ organisationId: actor.organisationId, name: input.name, email: input.email, phone: input.phone ?? null, trade: input.trade ?? null }));
+  }
+
+  propertyOf(c: Case): Property {
+    return c.property!;
+  }
+}

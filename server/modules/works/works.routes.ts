@@ -1,0 +1,109 @@
+import { Router } from "express";
+import multer from "multer";
+import { parse } from "../../lib/validation.js";
+import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
+import type { Actor } from "../auth/actor.js";
+import { uploadTmpDir } from "../cases/upload-dir.js";
+import { toPhotoDto } from "../photos/photo.mapper.js";
+import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_UPLOAD, type PhotoService } from "../photos/photo.service.js";
+import { idParamsSchema } from "../properties/properties.schemas.js";
+import type { VerificationService } from "./verification.service.js";
+import type { WorkOrder } from "./work-order.entity.js";
+import { toWorkOrderDto } from "./work-order.mapper.js";
+import type { WorkOrderService } from "./work-order.service.js";
+import { bookingResponseSchema, contractorSchema, verificationOutcomeSchema, workOrderCreateSchema, workOrderListQuerySchema, workOrderPatchSchema } from "./works.schemas.js";
+
+interface Deps {
+  works: WorkOrderService;
+  verification: VerificationService;
+  photos: PhotoService;
+}
+
+const leads = requireRole("maintenance", "admin");
+
+async function dtos(works: WorkOrderService, orders: WorkOrder[], actor: Actor) {
+  const ctx = await works.context(orders);
+  return orders.map((o) => toWorkOrderDto(o, ctx, actor));
+}
+
+/** Mounted at /api/cases: a case's work orders and the check that the fix worked. */
+export function createCaseWorksRouter({ works, verification }: Deps): Router {
+  const router = Router();
+  router.post("/:id/work-orders", requireRole("officer", "maintenance", "admin"), async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const created = await works.create(actorOf(req), id, parse(workOrderCreateSchema, req.body));
+    res.status(201).json((await dtos(works, [created], actorOf(req)))[0]);
+  });
+  router.get("/:id/work-orders", async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    res.json({ workOrders: await dtos(works, await works.listForCase(actorOf(req), id), actorOf(req)) });
+  });
+  router.get("/:id/verification", async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    res.json(await verification.view(actorOf(req), id));
+  });
+  router.post("/:id/verification", leads, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    await verification.decide(actorOf(req), id, parse(verificationOutcomeSchema, req.body));
+    res.json(await verification.view(actorOf(req), id));
+  });
+  return router;
+}
+
+/** `/api/work-orders`: the maintenance lead's list, scheduling, completion, photos and the tenant's answer. */
+export function createWorkOrdersRouter({ works, photos }: Deps): Router {
+  const router = Router();
+  const photoUpload = multer({ dest: uploadTmpDir, limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 } }).array("photos", MAX_PHOTOS_PER_UPLOAD);
+
+  router.get("/", requireStaff, async (req, res) => {
+    const query = parse(workOrderListQuerySchema, req.query, "query");
+    const { items, total } = await works.list(actorOf(req), query);
+    res.json({ items: await dtos(works, items, actorOf(req)), total, page: query.page, pageSize: query.pageSize });
+  });
+
+  router.patch("/:id", leads, async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const patch = parse(workOrderPatchSchema, req.body);
+    const actor = actorOf(req);
+    const updated = "complete" in patch ? await works.complete(actor, id, patch.complete) : "cancel" in patch ? await works.cancel(actor, id, patch.cancel.reason) : await works.schedule(actor, id, patch);
+    res.json((await dtos(works, [updated], actor))[0]);
+  });
+
+  router.post(
+    "/:id/photos",
+    leads,
+    async (req, res, next) => {
+      const { id } = parse(idParamsSchema, req.params, "params");
+      res.locals.workOrder = await works.getForActor(actorOf(req), id);
+      next();
+    },
+    photoUpload,
+    async (req, res) => {
+      const wo = res.locals.workOrder as WorkOrder;
+      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
+      const added = await photos.addToCase(actorOf(req), wo.caseId, files, { workOrderId: wo.id });
+      res.status(201).json({ photos: added.map(toPhotoDto) });
+    },
+  );
+
+  router.post("/:id/booking-response", requireRole("tenant"), async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const updated = await works.respond(actorOf(req), id, parse(bookingResponseSchema, req.body));
+    res.json((await dtos(works, [updated], actorOf(req)))[0]);
+  });
+
+  return router;
+}
+
+/** `/api/contractors`. */
+export function createContractorsRouter({ works }: Pick<Deps, "works">): Router {
+  const router = Router();
+  router.get("/", requireStaff, async (req, res) => {
+    res.json({ contractors: (await works.contractors(actorOf(req))).map((k) => ({ id: k.id, name: k.name, email: k.email, phone: k.phone, trade: k.trade })) });
+  });
+  router.post("/", leads, async (req, res) => {
+    const k = await works.addContractor(actorOf(req), parse(contractorSchema, req.body));
+    res.status(201).json({ id: k.id, name: k.name, email: k.email, phone: k.phone, trade: k.trade });
+  });
+  return router;
+}

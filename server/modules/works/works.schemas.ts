@@ -1,0 +1,104 @@
+import { z } from "zod";
+import { SLOT_WINDOWS, WORK_ORDER_PRIORITIES, WORK_ORDER_STATUSES, WORK_ORDER_TYPES } from "./work-order.entity.js";
+
+const isoDate = (field: string) =>
+  z
+    .string({ error: `${field} must be a date, YYYY-MM-DD.` })
+    .regex(/^\d{4}-\d{2}-\d{2}$/, `${field} must be a date, YYYY-MM-DD.`)
+    .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), `${field} is not a real date.`);
+
+export const workOrderCreateSchema = z
+  .object({
+    type: z.enum(WORK_ORDER_TYPES, { error: `type must be one of ${WORK_ORDER_TYPES.join(", ")}.` }),
+    description: z.string({ error: "Describe the work." }).trim().min(5, "Describe the work in a few words.").max(4000),
+    roomIds: z.array(z.number().int().positive()).max(30).optional(),
+    priority: z.enum(WORK_ORDER_PRIORITIES, { error: `priority must be one of ${WORK_ORDER_PRIORITIES.join(", ")}.` }).optional(),
+    targetDate: isoDate("targetDate").optional(),
+  })
+  .strict();
+export type WorkOrderCreate = z.infer<typeof workOrderCreateSchema>;
+
+export const slotSchema = z.object({
+  date: isoDate("slot.date"),
+  window: z.enum(SLOT_WINDOWS, { error: `slot.window must be one of ${SLOT_WINDOWS.join(", ")}.` }),
+});
+
+export const workOrderPatchSchema = z.union([
+  z
+    .object({
+      assigneeId: z.number({ error: "assigneeId must be an operative's user id." }).int().positive().nullable().optional(),
+      contractorId: z.number({ error: "contractorId must be a contractor id." }).int().positive().nullable().optional(),
+      slot: slotSchema,
+    })
+    .strict()
+    .refine((p) => (p.assigneeId ?? null) !== null || (p.contractorId ?? null) !== null, { message: "Choose an operative (assigneeId) or a contractor (contractorId)." }),
+  z
+    .object({
+      complete: z
+        .object({
+          note: z.string({ error: "Say what was done." }).trim().min(5, "Say what was done, in a sentence.").max(8000),
+          materials: z.string().trim().max(4000).optional(),
+          minutesOnSite: z.number({ error: "minutesOnSite must be a number of minutes." }).int().min(1).max(24 * 60 * 5).optional(),
+          followOn: z.string().trim().max(4000).optional(),
+        })
+        .strict(),
+    })
+    .strict(),
+  z.object({ cancel: z.object({ reason: z.string().trim().min(3, "Give a short reason.").max(2000) }).strict() }).strict(),
+]);
+export type WorkOrderPatch = z.infer<typeof workOrderPatchSchema>;
+
+export const bookingResponseSchema = z
+  .object({
+    response: z.enum(["confirm", "another-slot"], { error: "response must be confirm or another-slot." }),
+    reason: z.string().trim().min(3, "Tell us which days or times suit you better.").max(2000).optional(),
+  })
+  .strict()
+  .refine((b) => b.response === "confirm" || b.reason !== undefined, { path: ["reason"], message: "Tell us which days or times suit you better." });
+
+export const WORK_ORDER_SORTS = ["target", "slot", "created", "priority", "type", "status"] as const;
+export const workOrderListQuerySchema = z.object({
+  status: z
+    .string()
+    .trim()
+    .transform((raw, ctx) => {
+      const values = [...new Set(raw.split(",").map((v) => v.trim()).filter(Boolean))];
+      const strange = values.filter((v) => !(WORK_ORDER_STATUSES as readonly string[]).includes(v));
+      if (strange.length) {
+        ctx.addIssue({ code: "custom", message: `status: ${strange.join(", ")} is not one of ${WORK_ORDER_STATUSES.join(", ")}.` });
+        return z.NEVER;
+      }
+      return values as (typeof WORK_ORDER_STATUSES)[number][];
+    })
+    .optional(),
+  type: z.enum(WORK_ORDER_TYPES, { error: `type must be one of ${WORK_ORDER_TYPES.join(", ")}.` }).optional(),
+  assignee: z.string().trim().regex(/^(me|unassigned|[1-9]\d*)$/, "assignee must be me, unassigned or a user id.").optional(),
+  from: isoDate("from").optional(),
+  to: isoDate("to").optional(),
+  caseId: z.coerce.number().int().positive().optional(),
+  sort: z.enum(WORK_ORDER_SORTS, { error: `sort must be one of ${WORK_ORDER_SORTS.join(", ")}.` }).default("target"),
+  order: z.enum(["asc", "desc"]).default("asc"),
+  page: z.coerce.number().int().min(1).default(1),
+  pageSize: z.coerce.number().int().min(1).max(200, "pageSize can be at most 200.").default(25),
+});
+export type WorkOrderListQuery = z.infer<typeof workOrderListQuerySchema>;
+
+export const contractorSchema = z
+  .object({
+    name: z.string({ error: "Give the contractor's name." }).trim().min(2, "Give the contractor's name.").max(190),
+    email: z.email({ error: "Give an e-mail address the contractor reads." }).max(190),
+    phone: z.string().trim().max(40).optional(),
+    trade: z.string().trim().max(100).optional(),
+  })
+  .strict();
+
+export const verificationOutcomeSchema = z.discriminatedUnion("effective", [
+  z.object({ effective: z.literal(true), note: z.string().trim().min(3, "Say what the readings showed.").max(4000) }).strict(),
+  z
+    .object({
+      effective: z.literal(false),
+      note: z.string().trim().min(3, "Say what the readings showed.").max(4000),
+      workOrder: workOrderCreateSchema,
+    })
+    .strict(),
+]);
