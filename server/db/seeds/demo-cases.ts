@@ -11,6 +11,10 @@ import { Property } from "../../modules/properties/property.entity.js";
 import { Reading } from "../../modules/readings/reading.entity.js";
 import { Tenancy } from "../../modules/tenancies/tenancy.entity.js";
 import { User } from "../../modules/users/user.entity.js";
+import { WorkOrderBooking } from "../../modules/works/booking.entity.js";
+import { Contractor } from "../../modules/works/contractor.entity.js";
+import { OperativeSlot } from "../../modules/works/operative-slot.entity.js";
+import { WorkOrder, type WorkOrderType } from "../../modules/works/work-order.entity.js";
 import { hhsrsScore, validateAssessment } from "../../../src/lib/domain/hhsrs.js";
 import type { Area, CaseStatus, Channel, Location, Observation, Vulnerability } from "../../../src/lib/schemas/case-report.js";
 import type { HazardClass } from "../../../src/lib/domain/deadlines.js";
@@ -61,8 +65,8 @@ const PLAN: DemoCase[] = [
   { home: 66, daysAgo: 13, channel: "phone", status: "investigated", hazardClass: "significant", description: "Damp spreading from the corner of the ceiling after a storm.", locations: ["ceiling", "corner"], observations: ["wet-patches"], area: "a4", vulnerability: [], inspectedAfterDays: 3, cause: "roof-gutter", assigned: true },
   { home: 70, daysAgo: 20, channel: "tenant-online", status: "works-planned", hazardClass: "significant", description: "Condensation and mould in the kitchen; the cooker hood does not vent outside.", locations: ["external-wall", "window"], observations: ["condensation", "mould-spots"], area: "a4", vulnerability: ["over-65"], readings: "damp", inspectedAfterDays: 5, cause: "condensation", assessment: { likelihood: 100, spread: [0, 10, 21.5, 68.5] }, assigned: true },
   { home: 74, daysAgo: 26, channel: "letter", status: "works-planned", hazardClass: "significant", description: "Black mould on the bathroom ceiling and around the bath.", locations: ["ceiling"], observations: ["mould-spots"], area: "a4", vulnerability: [], inspectedAfterDays: 4, cause: "condensation", assigned: true },
-  { home: 78, daysAgo: 34, channel: "tenant-online", status: "works-done", hazardClass: "significant", description: "Mould in the back bedroom every winter.", locations: ["external-wall", "corner"], observations: ["mould-spots"], area: "door", vulnerability: ["children-under-15"], inspectedAfterDays: 5, cause: "condensation", assigned: true },
-  { home: 82, daysAgo: 38, channel: "phone", status: "monitoring", hazardClass: "significant", description: "Water stains under the kitchen window after rain.", locations: ["window"], observations: ["wet-patches"], area: "hand", vulnerability: [], readings: "dry", inspectedAfterDays: 2, cause: "penetrating-damp", assigned: true },
+  { home: 78, daysAgo: 20, channel: "tenant-online", status: "monitoring", hazardClass: "significant", description: "Mould in the back bedroom every winter.", locations: ["external-wall", "corner"], observations: ["mould-spots"], area: "door", vulnerability: ["over-65"], readings: "wet", inspectedAfterDays: 5, cause: "condensation", assigned: true },
+  { home: 82, daysAgo: 38, channel: "phone", status: "monitoring", hazardClass: "significant", description: "Water stains under the kitchen window after rain.", locations: ["window"], observations: ["wet-patches"], area: "hand", vulnerability: [], readings: "damp", inspectedAfterDays: 2, cause: "penetrating-damp", assigned: true },
   { home: 86, daysAgo: 45, channel: "tenant-online", status: "closed", hazardClass: "significant", description: "Steamed-up windows and mould on the frames.", locations: ["window"], observations: ["condensation", "mould-spots"], area: "hand", vulnerability: [], inspectedAfterDays: 4, cause: "condensation" },
   { home: 90, daysAgo: 60, channel: "email", status: "closed", hazardClass: "not-significant", description: "Slight musty smell in the under-stairs cupboard.", locations: ["behind-furniture"], observations: ["musty-smell"], area: "hand", vulnerability: [], inspectedAfterDays: 6, cause: "other-unknown" },
   // A second report at the same home as the overdue child's-bedroom case above (a recurrence).
@@ -114,6 +118,7 @@ export async function seedDemoCases(m: EntityManager, organisationId: number, no
   const tenancies = await m.getRepository(Tenancy).find({ where: {} });
   const tenantAt = new Map(tenancies.map((t) => [t.propertyId, t.tenantUserId]));
   const officer = await m.getRepository(User).findOneByOrFail({ organisationId, role: "officer", email: "officer@example.org" });
+  const maintenance = await m.getRepository(User).findOneByOrFail({ organisationId, role: "maintenance", email: "maintenance@example.org" });
   let n = 0;
   for (const plan of PLAN) {
     const home = homes[plan.home % homes.length]!;
@@ -169,7 +174,49 @@ export async function seedDemoCases(m: EntityManager, organisationId: number, no
       await m.getRepository(HhsrsAssessmentRecord).save({ caseId: row.id, version: 1, assessorUserId: officer.id, ...plan.assessment, justification: "Demo assessment from the inspection's findings.", score: result.score, band: result.band, category: result.category });
       await events.save(events.create({ caseId: row.id, actorUserId: officer.id, type: "hhsrs-assessed", before: null, after: { version: 1, score: result.displayScore, band: result.band, category: result.category } }));
     }
+    if (plan.status === "works-planned" || plan.status === "monitoring") {
+      await seedWorks(m, row, plan, maintenance, room?.id ?? null, awareAt, now, random);
+    }
     n++;
   }
+  await m.getRepository(Contractor).save([
+    { organisationId, name: "Airflow Ventilation Services", email: "bookings@airflow-vent.example.org", phone: "01632 960 118", trade: "ventilation" },
+    { organisationId, name: "Ridgeline Roofing", email: "jobs@ridgeline-roofing.example.org", phone: null, trade: "roofing and gutters" },
+  ]);
   return n;
+}
+
+const WORK_FOR_CAUSE: Partial<Record<Cause, { type: WorkOrderType; description: string }>> = {
+  condensation: { type: "extractor-fan", description: "Replace the bathroom extract fan with a continuous-running one with humidity boost, and free the trickle vents." },
+  "roof-gutter": { type: "roof-gutter", description: "Clear and re-align the gutter above the bedroom and repair the downpipe joint." },
+  "penetrating-damp": { type: "damp-proofing", description: "Repoint the wall under the kitchen window and reseal the sill." },
+};
+
+/** A booked order for works-planned cases; a completed one, with readings after it, for cases being monitored. */
+async function seedWorks(m: EntityManager, c: Case, plan: DemoCase, maintenance: User, roomId: number | null, awareAt: Date, now: Date, random: () => number) {
+  const work = WORK_FOR_CAUSE[plan.cause ?? "condensation"] ?? WORK_FOR_CAUSE.condensation!;
+  const londonDate = (d: Date) => d.toLocaleDateString("en-CA", { timeZone: "Europe/London" });
+  const weekdayAfter = (d: Date, days: number) => {
+    const x = new Date(d.getTime() + days * DAY_MS);
+    while (x.getUTCDay() === 0 || x.getUTCDay() === 6) x.setUTCDate(x.getUTCDate() + 1);
+    return x;
+  };
+  const events = m.getRepository(CaseEvent);
+  if (plan.status === "works-planned") {
+    const slotDate = londonDate(weekdayAfter(now, 2 + (c.id % 3)));
+    const window = c.id % 2 ? "am" : "pm";
+    const wo = await m.getRepository(WorkOrder).save({ organisationId: c.organisationId, caseId: c.id, type: work.type, description: work.description, roomIds: roomId ? [roomId] : [], priority: "routine", targetDate: londonDate(weekdayAfter(now, 5)), status: "scheduled", assigneeUserId: maintenance.id, contractorId: null, slotDate, slotWindow: window, scheduleCount: 1, createdById: maintenance.id });
+    const booking = await m.getRepository(WorkOrderBooking).save({ workOrderId: wo.id, assigneeUserId: maintenance.id, contractorId: null, slotDate, slotWindow: window, state: "active", createdById: maintenance.id });
+    await m.getRepository(OperativeSlot).insert({ userId: maintenance.id, slotDate, half: window, bookingId: booking.id });
+    await events.save(events.create({ caseId: c.id, actorUserId: maintenance.id, type: "work-order-scheduled", before: null, after: { workOrderId: wo.id, date: slotDate, window, assignee: maintenance.name } }));
+    return;
+  }
+  const doneAt = new Date(Math.min(now.getTime() - 8 * DAY_MS, awareAt.getTime() + ((plan.inspectedAfterDays ?? 5) + 6) * DAY_MS));
+  const wo = await m.getRepository(WorkOrder).save({ organisationId: c.organisationId, caseId: c.id, type: work.type, description: work.description, roomIds: roomId ? [roomId] : [], priority: "routine", targetDate: londonDate(doneAt), status: "done", assigneeUserId: maintenance.id, contractorId: null, slotDate: londonDate(doneAt), slotWindow: "am", scheduleCount: 1, completedAt: doneAt, completedById: maintenance.id, completionNote: "Work done as described; tested and left clean.", createdById: maintenance.id });
+  await m.getRepository(WorkOrderBooking).save({ workOrderId: wo.id, assigneeUserId: maintenance.id, contractorId: null, slotDate: londonDate(doneAt), slotWindow: "am", state: "active", tenantResponse: "confirmed", respondedAt: new Date(doneAt.getTime() - 3 * DAY_MS), createdById: maintenance.id });
+  await m.getRepository(Case).update(c.id, { worksDoneAt: doneAt, monitoringEndsAt: new Date(doneAt.getTime() + 21 * DAY_MS) });
+  await events.save(events.create({ caseId: c.id, actorUserId: maintenance.id, type: "work-order-completed", before: null, after: { workOrderId: wo.id, note: "Work done as described; tested and left clean." } }));
+  await events.save(events.create({ caseId: c.id, actorUserId: maintenance.id, type: "monitoring-started", before: null, after: { worksDoneAt: doneAt.toISOString(), days: 21 } }));
+  // A week of drier readings since the works, for the before/after comparison.
+  if (roomId && plan.readings) await m.getRepository(Reading).insert(readingsFor("dry", c.id, roomId, Math.min(now.getTime(), doneAt.getTime() + 7 * DAY_MS), random));
 }
