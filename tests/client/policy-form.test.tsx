@@ -5,12 +5,13 @@ import { ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, type DeadlinePolicy } from "@/li
 import { clearCsrfToken } from "@/lib/api-client";
 import { ENGLAND_DEFAULT, POLICY_FIELDS } from "@/features/policy/api/types";
 import { deadlinePolicySchema } from "../../server/modules/policy/policy.schemas";
+import { DEFAULT_MONITORING_DAYS } from "../../server/modules/policy/policy.service";
 import { parse } from "../../server/lib/validation";
 import { ValidationError } from "../../server/lib/errors";
 import { apiError, mockApi, users, type MockReply } from "./support/api-mock";
 import { renderApp } from "./support/render-app";
 
-const DEFAULT = { ...ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY };
+const DEFAULT = { ...ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, monitoringDays: DEFAULT_MONITORING_DAYS };
 
 /**
  * A stand-in for /api/policy that keeps the landlord's timeframes between calls and checks a PUT
@@ -54,6 +55,7 @@ describe("the deadline policy page", () => {
     expect(field(/Written summary within/)).toHaveValue("3");
     expect(field(/Safety work begun within/)).toHaveValue("5");
     expect(field(/Further work begun within/)).toHaveValue("12");
+    expect(field(/Check the fix for/)).toHaveValue("21");
     expect(field(/Make the home safe within/)).toHaveAccessibleDescription(/emergency hazard.*England default: 24 hours\. From 1 to 72 hours\./);
     expect(field(/Further work begun within/)).toHaveAccessibleDescription(/England default: 12 weeks/);
     expect(screen.getByText(/deadlines of every open case follow this policy/)).toBeInTheDocument();

@@ -2,10 +2,14 @@
 // Types only from the domain: importing deadlines.ts itself would pull the bank-holiday data into the browser.
 import type { DeadlinePolicy } from "@/lib/domain/deadlines";
 
+/** The timeframes plus the monitoring period after works (not a statutory deadline). */
+export interface LandlordPolicy extends DeadlinePolicy {
+  monitoringDays: number;
+}
 export type { DeadlinePolicy };
-export type PolicyField = keyof DeadlinePolicy;
+export type PolicyField = keyof LandlordPolicy;
 
-export interface PolicyView extends DeadlinePolicy {
+export interface PolicyView extends LandlordPolicy {
   /** "landlord": the organisation's own timeframes; "default": the England social-housing default. */
   source: "default" | "landlord";
 }
@@ -14,12 +18,14 @@ export interface PolicyView extends DeadlinePolicy {
  * The England social-housing default (src/lib/domain/deadlines.ts ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY,
  * copied so the page can show it without loading the holiday data; a client test checks they match).
  */
-export const ENGLAND_DEFAULT: Readonly<DeadlinePolicy> = {
+export const ENGLAND_DEFAULT: Readonly<LandlordPolicy> = {
   emergencyMakeSafeHours: 24,
   investigateWorkingDays: 10,
   summaryWorkingDays: 3,
   safetyWorkWorkingDays: 5,
   supplementaryWorkWeeks: 12,
+  // Not a legal timeframe: our default (server/modules/policy/policy.service.ts DEFAULT_MONITORING_DAYS).
+  monitoringDays: 21,
 };
 
 export interface PolicyFieldInfo {
@@ -77,6 +83,15 @@ export const POLICY_FIELDS: readonly PolicyFieldInfo[] = [
       "The weeks from the end of the investigation to when any further work that stops the damp or mould coming back must have started. Counted in calendar weeks, weekends included.",
     min: 1,
     max: 52,
+  },
+  {
+    name: "monitoringDays",
+    label: "Check the fix for (days)",
+    unit: { one: "day", many: "days" },
+    explanation:
+      "Not a legal timeframe: how long readings are collected after the works before the maintenance lead decides whether the damp has really stopped. Tenant and lead are reminded when it ends.",
+    min: 7,
+    max: 90,
   },
 ];
 

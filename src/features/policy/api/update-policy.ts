@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { api } from "@/lib/api-client";
 import { policyKeys } from "./policy-keys";
-import { POLICY_FIELDS, type DeadlinePolicy, type PolicyView } from "./types";
+import { POLICY_FIELDS, type LandlordPolicy, type PolicyView } from "./types";
 
 // The form checks only that each box holds a whole number; the limits are the server's, and its
 // messages are shown beside the fields.
@@ -14,17 +14,17 @@ const wholeNumber = (unit: string) =>
     .regex(/^\d+$/, `Enter a whole number of ${unit}, using digits only.`);
 
 export const policyFormSchema = z.object(
-  Object.fromEntries(POLICY_FIELDS.map((f) => [f.name, wholeNumber(f.unit.many)])) as Record<keyof DeadlinePolicy, ReturnType<typeof wholeNumber>>,
+  Object.fromEntries(POLICY_FIELDS.map((f) => [f.name, wholeNumber(f.unit.many)])) as Record<keyof LandlordPolicy, ReturnType<typeof wholeNumber>>,
 );
 export type PolicyFormValues = z.infer<typeof policyFormSchema>;
 
-export const toFormValues = (policy: DeadlinePolicy): PolicyFormValues =>
+export const toFormValues = (policy: LandlordPolicy): PolicyFormValues =>
   Object.fromEntries(POLICY_FIELDS.map((f) => [f.name, String(policy[f.name])])) as PolicyFormValues;
 
-export const fromFormValues = (values: PolicyFormValues): DeadlinePolicy =>
-  Object.fromEntries(POLICY_FIELDS.map((f) => [f.name, Number(values[f.name])])) as unknown as DeadlinePolicy;
+export const fromFormValues = (values: PolicyFormValues): LandlordPolicy =>
+  Object.fromEntries(POLICY_FIELDS.map((f) => [f.name, Number(values[f.name])])) as unknown as LandlordPolicy;
 
-export const updatePolicy = (policy: DeadlinePolicy) => api.put<PolicyView>("/policy", policy);
+export const updatePolicy = (policy: LandlordPolicy) => api.put<PolicyView>("/policy", policy);
 
 export function useUpdatePolicy() {
   const queryClient = useQueryClient();
