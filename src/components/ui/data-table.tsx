@@ -1,4 +1,4 @@
-import { useId, type ReactNode } from "react";
+import { Fragment, useId, type ReactNode } from "react";
 import {
   columnVisibilityFeature,
   createColumnHelper,
@@ -124,6 +124,8 @@ interface DataTableProps<Row extends RowData> {
   noun?: { one: string; many: string };
   pageSizeOptions?: readonly number[];
   className?: string;
+  /** Content shown under a row across every column (an expanded row); null or undefined for none. */
+  renderDetail?: (row: Row) => ReactNode;
 }
 
 export function DataTable<Row extends RowData>({
@@ -137,6 +139,7 @@ export function DataTable<Row extends RowData>({
   noun = { one: "row", many: "rows" },
   pageSizeOptions = PAGE_SIZE_OPTIONS,
   className,
+  renderDetail,
 }: DataTableProps<Row>) {
   const headerGroups = table.getHeaderGroups();
   const rows = table.getRowModel().rows;
@@ -170,15 +173,27 @@ export function DataTable<Row extends RowData>({
       </tr>
     );
   } else {
-    body = rows.map((row) => (
-      <tr key={row.id} className={cn("border-t border-line even:bg-paper/60 hover:bg-dew-50", row.getIsSelected() && "bg-dew-50 even:bg-dew-50")}>
-        {row.getVisibleCells().map((cell) => (
-          <td key={cell.id} className="px-3 py-2 align-top">
-            <table.FlexRender cell={cell} />
-          </td>
-        ))}
-      </tr>
-    ));
+    body = rows.map((row) => {
+      const detail = renderDetail?.(row.original);
+      return (
+        <Fragment key={row.id}>
+          <tr className={cn("border-t border-line even:bg-paper/60 hover:bg-dew-50", row.getIsSelected() && "bg-dew-50 even:bg-dew-50")}>
+            {row.getVisibleCells().map((cell) => (
+              <td key={cell.id} className="px-3 py-2 align-top">
+                <table.FlexRender cell={cell} />
+              </td>
+            ))}
+          </tr>
+          {detail ? (
+            <tr className="bg-paper/60">
+              <td colSpan={columnCount} className="px-3 pt-1 pb-3">
+                {detail}
+              </td>
+            </tr>
+          ) : null}
+        </Fragment>
+      );
+    });
   }
 
   return (

@@ -22,7 +22,12 @@ import { CaseTimeline } from "@/features/cases/components/case-timeline";
 import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { statusLabelFor } from "@/features/cases/labels";
-import { deadlinesQueryOptions } from "@/features/case-workspace/api/get-deadlines";
+import { deadlinesQueryOptions, useDeadlines } from "@/features/case-workspace/api/get-deadlines";
+import { workOrdersQueryOptions } from "@/features/case-works/api/get-work-orders";
+import { useUploadWorkOrderPhotos } from "@/features/case-works/api/upload-work-order-photos";
+import { NewWorkOrderForm } from "@/features/case-works/components/new-work-order-form";
+import { VerificationSection } from "@/features/case-works/components/verification-section";
+import { WorkOrderList } from "@/features/case-works/components/work-order-list";
 import { useStaff } from "@/lib/staff";
 import { triageQueryOptions } from "@/features/case-workspace/api/get-triage";
 import { ActionsPanel } from "@/features/case-workspace/components/actions-panel";
@@ -49,6 +54,9 @@ const caseIdOf = (raw: string | undefined): number | null => {
 
 /** Officers and administrators change a case; maintenance leads read it (and may write messages). */
 const canAct = (role: Role) => role === "officer" || role === "admin";
+/** Officers, maintenance leads and administrators order works; maintenance leads and administrators book, complete and verify them. */
+const canOrderWorks = (role: Role) => role === "officer" || role === "maintenance" || role === "admin";
+const canManageWorks = (role: Role) => role === "maintenance" || role === "admin";
 
 export const clientLoader =
   (queryClient: QueryClient) =>
@@ -60,6 +68,7 @@ export const clientLoader =
       void queryClient.prefetchQuery(deadlinesQueryOptions(id));
       void queryClient.prefetchQuery(triageQueryOptions(id));
       void queryClient.prefetchQuery(caseEvaluationQueryOptions(id));
+      void queryClient.prefetchQuery(workOrdersQueryOptions(id));
     }
     return null;
   };
@@ -100,6 +109,8 @@ const SECTIONS = [
   ["case-inspections", "Inspections"],
   ["case-hhsrs", "HHSRS"],
   ["case-summary", "Written summary"],
+  ["case-works", "Works"],
+  ["case-verification", "Did the fix work?"],
   ["case-messages", "Messages"],
   ["case-timeline", "Timeline"],
 ] as const;
@@ -212,6 +223,10 @@ function Workspace({ id }: { id: number }) {
         <Panel title="Written summary" id="case-summary">
           <SummarySection c={c} sender={sender} canSend={officer} />
         </Panel>
+        <WorksPanel c={c} role={user.role} />
+        <Panel title="Did the fix work?" id="case-verification">
+          <VerificationSection caseId={id} caseStatus={c.status} canDecide={canManageWorks(user.role)} />
+        </Panel>
         <Panel title="Messages and notes" id="case-messages">
           <MessageForm caseId={id} />
         </Panel>
@@ -268,6 +283,71 @@ function InspectionPhotos({ caseId }: { caseId: number }) {
           }
         >
           {files.length > 1 ? `Send ${files.length} photos` : "Send photo"}
+        </Button>
+      </div>
+    </div>
+  );
+}
+
+function WorksPanel({ c, role }: { c: CaseDto; role: Role }) {
+  const deadlines = useDeadlines(c.id);
+  const safetyWork = deadlines.data?.find((d) => d.stage === "safety-work")?.dueAt ?? null;
+  return (
+    <Panel title="Works" id="case-works">
+      <div className="flex flex-col gap-5">
+        {canOrderWorks(role) ? (
+          <section aria-labelledby="case-works-form-heading" className="flex flex-col gap-3">
+            <h3 id="case-works-form-heading" className="text-lg font-bold">
+              New work order
+            </h3>
+            <NewWorkOrderForm caseId={c.id} rooms={c.homeRooms} safetyWorkDueAt={safetyWork} />
+          </section>
+        ) : null}
+        <section aria-labelledby="case-works-list-heading" className="flex flex-col gap-3">
+          <h3 id="case-works-list-heading" className="text-lg font-bold">
+            Work orders
+          </h3>
+          <WorkOrderList caseId={c.id} canManage={canManageWorks(role)} Gallery={PhotoGallery} PhotoUpload={WorkOrderPhotos} />
+        </section>
+      </div>
+    </Panel>
+  );
+}
+
+/** After-photos of a work order, through the same picker as the case's photos. */
+function WorkOrderPhotos({ caseId, workOrderId }: { caseId: number; workOrderId: number }) {
+  const [files, setFiles] = useState<File[]>([]);
+  const [added, setAdded] = useState<number | null>(null);
+  const upload = useUploadWorkOrderPhotos(caseId, workOrderId);
+  return (
+    <div className="flex flex-col gap-3">
+      <PhotoPicker
+        value={files}
+        onChange={(next) => {
+          setFiles(next);
+          setAdded(null);
+          upload.reset();
+        }}
+        serverError={upload.isError ? errorMessage(upload.error) : null}
+        disabled={upload.isPending}
+        hint="Photos of the finished work. JPEG, PNG, WebP or AVIF, up to 15 MB each."
+      />
+      {added !== null ? <Alert tone="success" title={added === 1 ? "1 after-photo added" : `${added} after-photos added`} /> : null}
+      <div>
+        <Button
+          variant="secondary"
+          disabled={files.length === 0}
+          busy={upload.isPending}
+          onClick={() =>
+            upload.mutate(files, {
+              onSuccess: (result) => {
+                setFiles([]);
+                setAdded(result.photos.length);
+              },
+            })
+          }
+        >
+          {files.length > 1 ? `Send ${files.length} after-photos` : "Send after-photo"}
         </Button>
       </div>
     </div>

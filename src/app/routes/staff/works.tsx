@@ -1,16 +1,17 @@
 import type { QueryClient } from "@tanstack/react-query";
 import type { LoaderFunctionArgs } from "react-router-dom";
 import { Panel } from "@/components/ui/card";
-import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
-import { prefetchHomesTable } from "@/features/properties/api/prefetch-homes";
-import { HomesTable } from "@/features/properties/components/homes-table";
+import { prefetchWorks } from "@/features/works/api/prefetch-works";
+import { ContractorsPanel } from "@/features/works/components/contractors-panel";
+import { WeekBoard } from "@/features/works/components/week-board";
+import { WorkOrdersTable } from "@/features/works/components/work-orders-table";
 
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
-    if (await signedInAs(queryClient, ["maintenance"])) prefetchHomesTable(queryClient, request.url);
+    if (await signedInAs(queryClient, ["maintenance"])) prefetchWorks(queryClient, request.url);
     return null;
   };
 
@@ -18,16 +19,19 @@ export default function WorksPage() {
   return (
     <>
       <title>Works · Dewline</title>
-      <PageHeader title="Works" description="Repairs to plan, carry out and check." />
+      <PageHeader
+        title="Works"
+        description="Book repairs into your team's week, follow the tenants' answers, and keep the orders moving. The week and the table's view are in the link."
+      />
       <div className="flex flex-col gap-5">
-        <Panel title="Works orders" id="works-orders">
-          <EmptyState title="Works orders will appear here">
-            Once a housing officer asks for work on a home, the order will be listed here to schedule, and then to check it fixed
-            the problem.
-          </EmptyState>
+        <Panel title="Week board" id="week-board">
+          <WeekBoard />
         </Panel>
-        <Panel title="Homes" id="homes">
-          <HomesTable />
+        <Panel title="Orders to schedule and booked" id="work-orders">
+          <WorkOrdersTable />
+        </Panel>
+        <Panel title="Contractors" id="contractors">
+          <ContractorsPanel />
         </Panel>
       </div>
     </>

@@ -22,6 +22,7 @@ import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
 import { statusMeaning } from "@/features/cases/labels";
+import { TenantRepairs } from "@/features/case-works/components/tenant-repairs";
 import { AddPhotos } from "@/features/report/components/add-photos";
 import { AddReadings } from "@/features/report/components/add-readings";
 import { ReportFollowUp } from "@/features/report/components/report-follow-up";
@@ -126,6 +127,7 @@ function CaseView({ id }: { id: number }) {
         ) : null}
         <ReportFollowUp caseId={id} rooms={c.homeRooms} onChanged={refresh} />
         <NextSteps c={c} onChanged={refresh} />
+        <TenantRepairs caseId={id} caseStatus={c.status} readingsHref="#case-next" />
         <EvaluationPanel id={id} />
         <MessagesPanel id={id} />
         <TimelinePanel c={c} />

@@ -12,7 +12,7 @@ import { useStaff } from "@/lib/staff";
 import type { HazardClass, WorkspaceCase } from "../api/types";
 import { useUpdateCase } from "../api/update-case";
 import { HAZARD_CLASS_CHOICES, hazardClassLabel } from "../lib/labels";
-import { RadioGroup } from "./radio-group";
+import { RadioGroup } from "@/components/ui/option-radio-group";
 
 const isCaseStatus = (s: string): s is CaseStatus => (CASE_STATUSES as readonly string[]).includes(s);
 

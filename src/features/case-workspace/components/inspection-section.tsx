@@ -12,7 +12,7 @@ import { checkInspection, hasErrors, MAX_ROOM_ROWS, type InspectionErrors, type 
 import { CAUSE_CHOICES, MOISTURE_UNITS, MOULD_EXTENT_CHOICES, labelOf } from "../lib/labels";
 import { formatLondonDateTime, londonLocalInput } from "../lib/london-time";
 import { QueryState } from "./query-state";
-import { RadioGroup } from "./radio-group";
+import { RadioGroup } from "@/components/ui/option-radio-group";
 
 let rowSeq = 0;
 const blankRow = (roomId = ""): RoomRowFields => ({

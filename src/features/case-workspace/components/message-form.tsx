@@ -5,7 +5,7 @@ import { Textarea } from "@/components/ui/field";
 import { errorMessage } from "@/lib/api-client";
 import { useSendMessage } from "../api/send-message";
 import type { Choice } from "../lib/labels";
-import { RadioGroup } from "./radio-group";
+import { RadioGroup } from "@/components/ui/option-radio-group";
 
 type Audience = "tenant" | "internal";
 

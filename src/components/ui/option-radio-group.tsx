@@ -1,19 +1,24 @@
 import { useId, type ReactNode, type Ref } from "react";
 import { FieldError } from "@/components/ui/field";
 import { cn } from "@/lib/cn";
-import type { Choice } from "../lib/labels";
+
+export interface RadioChoice<V extends string> {
+  value: V;
+  label: string;
+  hint?: string;
+}
 
 interface RadioGroupProps<V extends string> {
   legend: ReactNode;
   hint?: ReactNode;
   error?: string;
-  options: readonly Choice<V>[];
+  options: readonly RadioChoice<V>[];
   value: V | "";
   onChange: (next: V) => void;
-  /** Given to the first option, so a failed check can move focus to the group. */
   inputRef?: Ref<HTMLInputElement>;
   disabled?: boolean;
-  columns?: boolean;
+  /** Columns from the small breakpoint up; `true` means 2. */
+  columns?: 1 | 2 | 3 | boolean;
   className?: string;
 }
 
@@ -22,7 +27,8 @@ const optionRow =
   "hover:bg-dew-50 has-[:checked]:border-2 has-[:checked]:border-dew-700 has-[:checked]:bg-dew-50";
 
 /** A fieldset of radio buttons whose legend names the group; hint and error are read with it. */
-export function RadioGroup<V extends string>({ legend, hint, error, options, value, onChange, inputRef, disabled, columns, className }: RadioGroupProps<V>) {
+export function RadioGroup<V extends string>({ legend, hint, error, options, value, onChange, inputRef, disabled, columns = 1, className }: RadioGroupProps<V>) {
+  const cols = columns === true ? 2 : columns === false ? 1 : columns;
   const id = useId();
   const describedBy = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean).join(" ") || undefined;
   return (
@@ -34,7 +40,7 @@ export function RadioGroup<V extends string>({ legend, hint, error, options, val
         </p>
       ) : null}
       {error ? <FieldError id={`${id}-error`}>{error}</FieldError> : null}
-      <div className={cn("grid grid-cols-1 gap-2", columns && "sm:grid-cols-2")}>
+      <div className={cn("grid grid-cols-1 gap-2", cols === 2 && "sm:grid-cols-2", cols === 3 && "sm:grid-cols-3")}>
         {options.map((option, i) => (
           <label key={option.value} className={optionRow}>
             <input

@@ -1,0 +1,17 @@
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import { refreshWorks } from "./refresh-works";
+import type { WorkOrder, WorkOrderPatch } from "./types";
+import { worksKeys } from "./works-keys";
+
+/** Schedule or reschedule (409 when the operative is already booked), complete, or cancel. */
+export const updateWorkOrder = (id: number, patch: WorkOrderPatch) => api.patch<WorkOrder>(`/work-orders/${id}`, patch);
+
+export function useUpdateWorkOrder(caseId: number, workOrderId: number, what: "schedule" | "complete" | "cancel") {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationKey: [...worksKeys.workOrders(caseId), workOrderId, what],
+    mutationFn: (patch: WorkOrderPatch) => updateWorkOrder(workOrderId, patch),
+    onSuccess: () => refreshWorks(queryClient, caseId),
+  });
+}

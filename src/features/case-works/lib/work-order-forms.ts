@@ -1,0 +1,94 @@
+// The checks the works forms make before sending: the same rules as the server's schemas
+// (server/modules/works/works.schemas.ts), with messages that say what to do.
+import type { CompletionInput, SlotWindow, WorkOrderInput, WorkOrderPriority, WorkOrderType } from "../api/types";
+import { WORK_ORDER_TYPES } from "../api/types";
+import { londonToday } from "./labels";
+
+export interface NewOrderFields {
+  type: WorkOrderType | "";
+  description: string;
+  roomIds: number[];
+  priority: WorkOrderPriority | "";
+  targetDate: string;
+}
+
+export type NewOrderErrors = Partial<Record<"type" | "description" | "priority" | "targetDate", string>>;
+
+export const blankNewOrder = (): NewOrderFields => ({ type: "", description: "", roomIds: [], priority: "routine", targetDate: "" });
+
+const DATE = /^\d{4}-\d{2}-\d{2}$/;
+const realDate = (s: string) => DATE.test(s) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s);
+
+export function checkNewOrder(f: NewOrderFields): { input: WorkOrderInput | null; errors: NewOrderErrors } {
+  const errors: NewOrderErrors = {};
+  if (!f.type || !(WORK_ORDER_TYPES as readonly string[]).includes(f.type)) errors.type = "Choose the type of work.";
+  const description = f.description.trim();
+  if (description.length < 5) errors.description = "Describe the work in a few words (at least 5 characters).";
+  else if (description.length > 4000) errors.description = "Keep the description under 4,000 characters.";
+  const targetDate = f.targetDate.trim();
+  if (targetDate && !realDate(targetDate)) errors.targetDate = "Enter a real date, or leave it empty to use the deadline.";
+  if (Object.keys(errors).length) return { input: null, errors };
+  return {
+    input: {
+      type: f.type as WorkOrderType,
+      description,
+      ...(f.roomIds.length ? { roomIds: f.roomIds } : {}),
+      ...(f.priority ? { priority: f.priority } : {}),
+      ...(targetDate ? { targetDate } : {}),
+    },
+    errors,
+  };
+}
+
+export interface ScheduleFields {
+  who: "operative" | "contractor";
+  assigneeId: string;
+  contractorId: string;
+  date: string;
+  window: SlotWindow | "";
+}
+
+export type ScheduleErrors = Partial<Record<"assignee" | "date" | "window", string>>;
+
+export function checkSchedule(f: ScheduleFields, today: string = londonToday()): ScheduleErrors {
+  const errors: ScheduleErrors = {};
+  if (f.who === "operative" && !f.assigneeId) errors.assignee = "Choose the operative who will do the work.";
+  if (f.who === "contractor" && !f.contractorId) errors.assignee = "Choose the contractor who will do the work.";
+  if (!f.date) errors.date = "Choose the day of the appointment.";
+  else if (!realDate(f.date)) errors.date = "Enter a real date.";
+  else if (f.date < today) errors.date = "The appointment cannot be in the past. Choose today or a later day.";
+  if (!f.window) errors.window = "Choose the morning, the afternoon or all day.";
+  return errors;
+}
+
+export interface CompletionFields {
+  note: string;
+  materials: string;
+  minutesOnSite: string;
+  followOn: string;
+}
+
+export type CompletionErrors = Partial<Record<keyof CompletionFields, string>>;
+
+export const blankCompletion = (): CompletionFields => ({ note: "", materials: "", minutesOnSite: "", followOn: "" });
+
+export function checkCompletion(f: CompletionFields): { input: CompletionInput | null; errors: CompletionErrors } {
+  const errors: CompletionErrors = {};
+  const note = f.note.trim();
+  if (note.length === 0) errors.note = "Say what was done: the tenant and the officer read it.";
+  else if (note.length < 5) errors.note = "Say what was done in a sentence (at least 5 characters).";
+  const minutesRaw = f.minutesOnSite.trim();
+  let minutes: number | undefined;
+  if (minutesRaw) {
+    minutes = Number(minutesRaw);
+    if (!/^\d+$/.test(minutesRaw) || !Number.isInteger(minutes) || minutes < 1 || minutes > 7200)
+      errors.minutesOnSite = "Give the time on site as a whole number of minutes, for example 90.";
+  }
+  if (Object.keys(errors).length) return { input: null, errors };
+  const materials = f.materials.trim();
+  const followOn = f.followOn.trim();
+  return {
+    input: { note, ...(materials ? { materials } : {}), ...(minutes !== undefined ? { minutesOnSite: minutes } : {}), ...(followOn ? { followOn } : {}) },
+    errors,
+  };
+}

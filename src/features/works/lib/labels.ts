@@ -1,0 +1,59 @@
+// Plain words for the values of a work order.
+import type { BookingResponse, SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "../api/types";
+
+export const typeLabels: Record<WorkOrderType, string> = {
+  "extractor-fan": "Extractor fan",
+  "fan-upgrade": "Fan upgrade",
+  "trickle-vents": "Trickle vents",
+  "door-undercut": "Door undercut",
+  "piv-unit": "Positive input ventilation unit",
+  "mould-wash": "Mould wash",
+  "mould-resistant-decoration": "Mould-resistant decoration",
+  insulation: "Insulation",
+  "draught-proofing": "Draught-proofing",
+  heating: "Heating",
+  "leak-repair": "Leak repair",
+  "roof-gutter": "Roof or gutter repair",
+  "damp-proofing": "Damp-proofing",
+  other: "Other work",
+};
+
+export const priorityLabels: Record<WorkOrderPriority, string> = {
+  emergency: "Emergency",
+  urgent: "Urgent",
+  routine: "Routine",
+};
+
+export const statusLabels: Record<WorkOrderStatus, string> = {
+  unscheduled: "To schedule",
+  scheduled: "Slot offered",
+  "change-requested": "Tenant wants another slot",
+  confirmed: "Slot confirmed",
+  done: "Done",
+  cancelled: "Cancelled",
+};
+
+export const windowLabels: Record<SlotWindow, string> = {
+  am: "Morning, 8am to 12 noon",
+  pm: "Afternoon, 12 noon to 5pm",
+  "all-day": "All day, 8am to 5pm",
+};
+
+export const windowShortLabels: Record<SlotWindow, string> = {
+  am: "Morning 8–12",
+  pm: "Afternoon 12–5",
+  "all-day": "All day 8–5",
+};
+
+/** The tenant's answer to the booking, in words. */
+export type TenantAnswer = "awaiting" | BookingResponse;
+export const answerLabels: Record<TenantAnswer, string> = {
+  awaiting: "Awaiting reply",
+  confirmed: "Confirmed",
+  "change-requested": "Asked for another slot",
+};
+
+export const labelFor = (labels: Record<string, string>, value: string | null | undefined, missing = "—"): string =>
+  value ? (labels[value] ?? value) : missing;
+
+export const orderReference = (order: { caseReference: string | null; caseId: number }) => order.caseReference ?? `Case ${order.caseId}`;

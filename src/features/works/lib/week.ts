@@ -1,0 +1,42 @@
+// Calendar dates (YYYY-MM-DD, London) for the week board: today, the Monday of a week, and the days
+// Monday to Friday. Dates are handled as UTC midnights so no time zone can shift them a day.
+
+const DAY_MS = 86_400_000;
+const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+const londonDate = new Intl.DateTimeFormat("en-CA", { timeZone: "Europe/London", year: "numeric", month: "2-digit", day: "2-digit" });
+
+/** Today's date in London, YYYY-MM-DD. */
+export function todayInLondon(now: Date = new Date()): string {
+  return londonDate.format(now);
+}
+
+const toUtc = (date: string) => Date.parse(`${date}T00:00:00Z`);
+const fromUtc = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+
+/** True for a real calendar date written YYYY-MM-DD. */
+export function isIsoDate(value: string): boolean {
+  return ISO_DATE.test(value) && !Number.isNaN(toUtc(value)) && fromUtc(toUtc(value)) === value;
+}
+
+export const addDays = (date: string, days: number) => fromUtc(toUtc(date) + days * DAY_MS);
+
+/** The Monday of the week a date falls in. */
+export function mondayOf(date: string): string {
+  const weekday = new Date(toUtc(date)).getUTCDay(); // 0 Sunday … 6 Saturday
+  return addDays(date, -((weekday + 6) % 7));
+}
+
+/** Monday to Friday of the week starting on `monday`. */
+export const workingDays = (monday: string): string[] => [0, 1, 2, 3, 4].map((i) => addDays(monday, i));
+
+const longDay = new Intl.DateTimeFormat("en-GB", { weekday: "long", day: "numeric", month: "long", timeZone: "UTC" });
+const longDayYear = new Intl.DateTimeFormat("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+const shortDay = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
+
+/** "Monday 7 December" */
+export const formatWeekday = (date: string) => longDay.format(new Date(toUtc(date)));
+/** "Monday 7 December 2026" */
+export const formatLongDate = (date: string) => longDayYear.format(new Date(toUtc(date)));
+/** "7 Dec 2026" */
+export const formatShortDate = (date: string) => (isIsoDate(date) ? shortDay.format(new Date(toUtc(date))) : date);
