@@ -1,32 +1,19 @@
 // The shapes of the maintenance journey's API (the works contract: server/modules/works), as the
 // case workspace and the tenant's case page read and send them.
 import type { BeforeAfter } from "@/lib/domain/verification";
+import type { BookingResponse, ScheduleBody, SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "@/lib/work-orders";
 
-export const WORK_ORDER_TYPES = [
-  "extractor-fan",
-  "fan-upgrade",
-  "trickle-vents",
-  "door-undercut",
-  "piv-unit",
-  "mould-wash",
-  "mould-resistant-decoration",
-  "insulation",
-  "draught-proofing",
-  "heating",
-  "leak-repair",
-  "roof-gutter",
-  "damp-proofing",
-  "other",
-] as const;
-export type WorkOrderType = (typeof WORK_ORDER_TYPES)[number];
-
-export const WORK_ORDER_PRIORITIES = ["emergency", "urgent", "routine"] as const;
-export type WorkOrderPriority = (typeof WORK_ORDER_PRIORITIES)[number];
-
-export type WorkOrderStatus = "unscheduled" | "scheduled" | "confirmed" | "change-requested" | "done" | "cancelled";
-
-export const SLOT_WINDOWS = ["am", "pm", "all-day"] as const;
-export type SlotWindow = (typeof SLOT_WINDOWS)[number];
+export {
+  SLOT_WINDOWS,
+  WORK_ORDER_PRIORITIES,
+  WORK_ORDER_TYPES,
+  type BookingResponse,
+  type SlotWindow,
+  type WorkOrderPriority,
+  type WorkOrderStatus,
+  type WorkOrderType,
+} from "@/lib/work-orders";
+export type { Contractor } from "@/lib/contractors";
 
 export interface Slot {
   /** A London calendar date, YYYY-MM-DD. */
@@ -35,8 +22,6 @@ export interface Slot {
   startsAt?: string;
   endsAt?: string;
 }
-
-export type BookingResponse = "confirmed" | "change-requested";
 
 export interface BookingAnswer {
   response: BookingResponse | string | null;
@@ -99,8 +84,7 @@ export interface WorkOrderInput {
 
 /** PATCH /api/work-orders/:id, one of three changes. */
 export type WorkOrderPatch =
-  | { assigneeId: number; slot: { date: string; window: SlotWindow } }
-  | { contractorId: number; slot: { date: string; window: SlotWindow } }
+  | ScheduleBody
   | { complete: CompletionInput }
   | { cancel: { reason: string } };
 
@@ -109,14 +93,6 @@ export interface CompletionInput {
   materials?: string;
   minutesOnSite?: number;
   followOn?: string;
-}
-
-export interface Contractor {
-  id: number;
-  name: string;
-  email: string;
-  phone?: string | null;
-  trade?: string | null;
 }
 
 export interface WorkPhoto {

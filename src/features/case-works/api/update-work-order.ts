@@ -1,11 +1,11 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { api } from "@/lib/api-client";
+import { patchWorkOrder } from "@/lib/work-orders";
 import { refreshWorks } from "./refresh-works";
 import type { WorkOrder, WorkOrderPatch } from "./types";
 import { worksKeys } from "./works-keys";
 
 /** Schedule or reschedule (409 when the operative is already booked), complete, or cancel. */
-export const updateWorkOrder = (id: number, patch: WorkOrderPatch) => api.patch<WorkOrder>(`/work-orders/${id}`, patch);
+export const updateWorkOrder = (id: number, patch: WorkOrderPatch) => patchWorkOrder<WorkOrder>(id, patch);
 
 export function useUpdateWorkOrder(caseId: number, workOrderId: number, what: "schedule" | "complete" | "cancel") {
   const queryClient = useQueryClient();

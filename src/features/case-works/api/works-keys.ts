@@ -13,5 +13,4 @@ export const worksKeys = {
   verification: (id: number) => [...worksKeys.case(id), "verification"] as const,
   /** The /works page's lists of work orders across cases. */
   allWorkOrders: () => ["work-orders"] as const,
-  contractors: () => ["contractors"] as const,
 };

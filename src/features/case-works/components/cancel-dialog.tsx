@@ -6,7 +6,7 @@ import { errorMessage } from "@/lib/api-client";
 import type { WorkOrder } from "../api/types";
 import { useUpdateWorkOrder } from "../api/update-work-order";
 import { workTypeLabel } from "../lib/labels";
-import { FormDialog } from "./form-dialog";
+import { Modal } from "@/components/ui/modal";
 
 interface CancelDialogProps {
   order: WorkOrder;
@@ -18,9 +18,9 @@ interface CancelDialogProps {
 /** Cancelling needs a reason, and this dialog is the confirmation: nothing is sent before its button. */
 export function CancelDialog({ order, open, onClose, onDone }: CancelDialogProps) {
   return (
-    <FormDialog open={open} onClose={onClose} title={`Cancel this work order? ${workTypeLabel(order.type)}`}>
+    <Modal open={open} onClose={onClose} title={`Cancel this work order? ${workTypeLabel(order.type)}`}>
       {open ? <CancelForm order={order} onClose={onClose} onDone={onDone} /> : null}
-    </FormDialog>
+    </Modal>
   );
 }
 

@@ -7,7 +7,7 @@ import type { WorkOrder } from "../api/types";
 import { useUpdateWorkOrder } from "../api/update-work-order";
 import { workTypeLabel } from "../lib/labels";
 import { blankCompletion, checkCompletion, type CompletionErrors, type CompletionFields } from "../lib/work-order-forms";
-import { FormDialog } from "./form-dialog";
+import { Modal } from "@/components/ui/modal";
 
 interface CompletionDialogProps {
   order: WorkOrder;
@@ -19,9 +19,9 @@ interface CompletionDialogProps {
 /** What was done on site. The after-photos are added once the completion is recorded. */
 export function CompletionDialog({ order, open, onClose, onDone }: CompletionDialogProps) {
   return (
-    <FormDialog open={open} onClose={onClose} title={`Record completion: ${workTypeLabel(order.type)}`}>
+    <Modal open={open} onClose={onClose} title={`Record completion: ${workTypeLabel(order.type)}`}>
       {open ? <CompletionForm order={order} onClose={onClose} onDone={onDone} /> : null}
-    </FormDialog>
+    </Modal>
   );
 }
 

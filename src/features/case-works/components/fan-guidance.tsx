@@ -1,4 +1,4 @@
-import { CONTINUOUS_EXTRACT_HIGH, EXTRACT_RATES_SOURCE, INTERMITTENT_EXTRACT } from "../lib/extract-rates";
+import { CONTINUOUS_EXTRACT_RATES, ELECTRICAL_CAUTION, EXTRACT_RATES_DOCUMENT, INTERMITTENT_EXTRACT_RATES } from "@/lib/extract-rates";
 
 /** Extract rates for fan work, with their source, and the caution that fans are electrical work. */
 export function FanGuidance() {
@@ -6,7 +6,7 @@ export function FanGuidance() {
     <aside aria-label="Extract rates for fans" className="flex flex-col gap-2 rounded-md border border-dew-600 bg-dew-50 p-3 text-sm">
       <p className="font-bold">Extract rates for fans</p>
       <p>
-        Minimum rates from <cite>{EXTRACT_RATES_SOURCE}</cite>. Choose a fan that reaches at least the rate for the room.
+        Minimum rates from <cite>{EXTRACT_RATES_DOCUMENT}</cite>. Choose a fan that reaches at least the rate for the room.
       </p>
       <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <table className="text-left">
@@ -18,11 +18,11 @@ export function FanGuidance() {
             </tr>
           </thead>
           <tbody>
-            {INTERMITTENT_EXTRACT.map((r) => (
+            {INTERMITTENT_EXTRACT_RATES.map((r) => (
               <tr key={`${r.room}-${r.litresPerSecond}`}>
                 <td className="pr-3">
-                  {r.room}
-                  {r.note ? <span className="text-ink-soft"> ({r.note})</span> : null}
+                  {r.label}
+                  {r.condition ? <span className="text-ink-soft"> ({r.condition})</span> : null}
                 </td>
                 <td>{r.litresPerSecond} l/s</td>
               </tr>
@@ -38,19 +38,16 @@ export function FanGuidance() {
             </tr>
           </thead>
           <tbody>
-            {CONTINUOUS_EXTRACT_HIGH.map((r) => (
+            {CONTINUOUS_EXTRACT_RATES.map((r) => (
               <tr key={r.room}>
-                <td className="pr-3">{r.room}</td>
+                <td className="pr-3">{r.label}</td>
                 <td>{r.litresPerSecond} l/s</td>
               </tr>
             ))}
           </tbody>
         </table>
       </div>
-      <p>
-        <strong>Fitting or wiring a fan is electrical work.</strong> It must be done by a qualified electrician and follow local
-        regulations (in England, Part P of the Building Regulations).
-      </p>
+      <p className="font-semibold">{ELECTRICAL_CAUTION}</p>
     </aside>
   );
 }

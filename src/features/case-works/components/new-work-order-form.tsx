@@ -5,7 +5,8 @@ import { Input, Select, Textarea } from "@/components/ui/field";
 import { errorMessage } from "@/lib/api-client";
 import { useCreateWorkOrder } from "../api/create-work-order";
 import { WORK_ORDER_TYPES, type WorkOrderPriority, type WorkOrderType } from "../api/types";
-import { PRIORITY_CHOICES, WORK_TYPE_WORDS, isFanType, longDate, workTypeLabel } from "../lib/labels";
+import { isFanWork } from "@/lib/extract-rates";
+import { PRIORITY_CHOICES, WORK_TYPE_WORDS, longDate, workTypeLabel } from "../lib/labels";
 import { blankNewOrder, checkNewOrder, type NewOrderErrors, type NewOrderFields } from "../lib/work-order-forms";
 import { FanGuidance } from "./fan-guidance";
 import { RadioGroup } from "@/components/ui/option-radio-group";
@@ -67,7 +68,7 @@ export function NewWorkOrderForm({ caseId, rooms, safetyWorkDueAt }: NewWorkOrde
           </option>
         ))}
       </Select>
-      {fields.type && isFanType(fields.type) ? <FanGuidance /> : null}
+      {fields.type && isFanWork(fields.type) ? <FanGuidance /> : null}
       <Textarea
         ref={descriptionRef}
         label="Description"

@@ -5,12 +5,13 @@ import { Input, Select } from "@/components/ui/field";
 import { LoadingState } from "@/components/ui/spinner";
 import { errorMessage } from "@/lib/api-client";
 import { useStaff } from "@/lib/staff";
-import { useContractors } from "../api/get-contractors";
+import { useContractors } from "@/lib/contractors";
 import type { SlotWindow, WorkOrder, WorkOrderPatch } from "../api/types";
 import { useUpdateWorkOrder } from "../api/update-work-order";
-import { WINDOW_CHOICES, londonToday, slotForStaff, workTypeLabel } from "../lib/labels";
+import { todayInLondon } from "@/lib/work-orders";
+import { WINDOW_CHOICES, slotForStaff, workTypeLabel } from "../lib/labels";
 import { checkSchedule, type ScheduleErrors, type ScheduleFields } from "../lib/work-order-forms";
-import { FormDialog } from "./form-dialog";
+import { Modal } from "@/components/ui/modal";
 import { RadioGroup } from "@/components/ui/option-radio-group";
 
 interface ScheduleDialogProps {
@@ -36,9 +37,9 @@ const initialFields = (o: WorkOrder): ScheduleFields => ({
 /** Who does the work and when: the tenant is sent the offered appointment. */
 export function ScheduleDialog({ order, open, onClose, onDone }: ScheduleDialogProps) {
   return (
-    <FormDialog open={open} onClose={onClose} title={`${order.slot ? "Reschedule" : "Schedule"}: ${workTypeLabel(order.type)}`}>
+    <Modal open={open} onClose={onClose} title={`${order.slot ? "Reschedule" : "Schedule"}: ${workTypeLabel(order.type)}`}>
       {open ? <ScheduleForm order={order} onClose={onClose} onDone={onDone} /> : null}
-    </FormDialog>
+    </Modal>
   );
 }
 
@@ -51,7 +52,7 @@ function ScheduleForm({ order, onClose, onDone }: Omit<ScheduleDialogProps, "ope
   const whoRef = useRef<HTMLSelectElement>(null);
   const dateRef = useRef<HTMLInputElement>(null);
   const windowRef = useRef<HTMLInputElement>(null);
-  const today = londonToday();
+  const today = todayInLondon();
   const operatives = (staff.data ?? []).filter((s) => s.role === "maintenance");
 
   const set = <K extends keyof ScheduleFields>(key: K, value: ScheduleFields[K]) => {

@@ -1,6 +1,6 @@
 // Plain words for work orders. The stored values are the server's (server/modules/works/
 // work-order.entity.ts); these are what staff and tenants read.
-import type { SlotWindow, WorkOrderPriority, WorkOrderType } from "../api/types";
+import { SLOT_WINDOWS, priorityLabels, windowHours, windowNames, type SlotWindow, type WorkOrderPriority, type WorkOrderType } from "@/lib/work-orders";
 
 export interface Choice<V extends string> {
   value: V;
@@ -37,18 +37,14 @@ const isType = (t: string): t is WorkOrderType => Object.hasOwn(WORK_TYPE_WORDS,
 export const workTypeLabel = (type: string): string => (isType(type) ? WORK_TYPE_WORDS[type].label : type);
 export const workTypeForTenant = (type: string): string => (isType(type) ? WORK_TYPE_WORDS[type].tenant : "carry out repair work");
 
-/** The two kinds of work that fit or change an extractor fan: they get the extract-rate guidance. */
-export const FAN_TYPES: readonly string[] = ["extractor-fan", "fan-upgrade"];
-export const isFanType = (type: string) => FAN_TYPES.includes(type);
-
 /** Work that involves the home's electrics or gas: the tenant is told the power may go off for a while. */
 const SERVICE_TYPES: readonly string[] = ["extractor-fan", "fan-upgrade", "piv-unit", "heating"];
 export const touchesServices = (type: string) => SERVICE_TYPES.includes(type);
 
 export const PRIORITY_CHOICES: readonly Choice<WorkOrderPriority>[] = [
-  { value: "emergency", label: "Emergency", hint: "A danger to health or safety now." },
-  { value: "urgent", label: "Urgent", hint: "Needs doing within days." },
-  { value: "routine", label: "Routine", hint: "Planned work by the target date." },
+  { value: "emergency", label: priorityLabels.emergency, hint: "A danger to health or safety now." },
+  { value: "urgent", label: priorityLabels.urgent, hint: "Needs doing within days." },
+  { value: "routine", label: priorityLabels.routine, hint: "Planned work by the target date." },
 ];
 export const priorityLabel = (p: string) => PRIORITY_CHOICES.find((c) => c.value === p)?.label ?? p;
 
@@ -62,12 +58,8 @@ const STATUS_WORDS: Record<string, string> = {
 };
 export const workStatusLabel = (status: string) => STATUS_WORDS[status] ?? status;
 
-/** The windows with their London hours (ours; the usual morning/afternoon split, no source). */
-export const WINDOW_CHOICES: readonly Choice<SlotWindow>[] = [
-  { value: "am", label: "Morning", hint: "8am to 12 noon" },
-  { value: "pm", label: "Afternoon", hint: "12 noon to 5pm" },
-  { value: "all-day", label: "All day", hint: "8am to 5pm" },
-];
+/** The windows with their London hours. */
+export const WINDOW_CHOICES: readonly Choice<SlotWindow>[] = SLOT_WINDOWS.map((w) => ({ value: w, label: windowNames[w], hint: windowHours[w] }));
 
 const STAFF_WINDOW: Record<string, string> = { am: "morning 8am–12", pm: "afternoon 12–5pm", "all-day": "all day 8am–5pm" };
 const TENANT_WINDOW: Record<string, string> = {
@@ -92,13 +84,6 @@ export const slotForStaff = (slot: { date: string; window: string }) => `${longD
 export function slotForTenant(slot: { date: string; window: string }, now: Date = new Date()): string {
   const thisYear = slot.date.slice(0, 4) === String(now.getFullYear());
   return `${calendarDate(slot.date, !thisYear).replace(",", "")}, ${TENANT_WINDOW[slot.window] ?? slot.window}`;
-}
-
-/** Today's date in London as YYYY-MM-DD: the earliest day an appointment can be booked. */
-export function londonToday(at: Date = new Date()): string {
-  const parts = new Intl.DateTimeFormat("en-CA", { timeZone: "Europe/London", year: "numeric", month: "2-digit", day: "2-digit" }).formatToParts(at);
-  const get = (t: string) => parts.find((p) => p.type === t)?.value ?? "";
-  return `${get("year")}-${get("month")}-${get("day")}`;
 }
 
 /** "1 hour 30 minutes" from 90. */

@@ -2,7 +2,7 @@
 // (server/modules/works/works.schemas.ts), with messages that say what to do.
 import type { CompletionInput, SlotWindow, WorkOrderInput, WorkOrderPriority, WorkOrderType } from "../api/types";
 import { WORK_ORDER_TYPES } from "../api/types";
-import { londonToday } from "./labels";
+import { isIsoDate, todayInLondon } from "@/lib/work-orders";
 
 export interface NewOrderFields {
   type: WorkOrderType | "";
@@ -16,9 +16,6 @@ export type NewOrderErrors = Partial<Record<"type" | "description" | "priority" 
 
 export const blankNewOrder = (): NewOrderFields => ({ type: "", description: "", roomIds: [], priority: "routine", targetDate: "" });
 
-const DATE = /^\d{4}-\d{2}-\d{2}$/;
-const realDate = (s: string) => DATE.test(s) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s);
-
 export function checkNewOrder(f: NewOrderFields): { input: WorkOrderInput | null; errors: NewOrderErrors } {
   const errors: NewOrderErrors = {};
   if (!f.type || !(WORK_ORDER_TYPES as readonly string[]).includes(f.type)) errors.type = "Choose the type of work.";
@@ -26,7 +23,7 @@ export function checkNewOrder(f: NewOrderFields): { input: WorkOrderInput | null
   if (description.length < 5) errors.description = "Describe the work in a few words (at least 5 characters).";
   else if (description.length > 4000) errors.description = "Keep the description under 4,000 characters.";
   const targetDate = f.targetDate.trim();
-  if (targetDate && !realDate(targetDate)) errors.targetDate = "Enter a real date, or leave it empty to use the deadline.";
+  if (targetDate && !isIsoDate(targetDate)) errors.targetDate = "Enter a real date, or leave it empty to use the deadline.";
   if (Object.keys(errors).length) return { input: null, errors };
   return {
     input: {
@@ -50,12 +47,12 @@ export interface ScheduleFields {
 
 export type ScheduleErrors = Partial<Record<"assignee" | "date" | "window", string>>;
 
-export function checkSchedule(f: ScheduleFields, today: string = londonToday()): ScheduleErrors {
+export function checkSchedule(f: ScheduleFields, today: string = todayInLondon()): ScheduleErrors {
   const errors: ScheduleErrors = {};
   if (f.who === "operative" && !f.assigneeId) errors.assignee = "Choose the operative who will do the work.";
   if (f.who === "contractor" && !f.contractorId) errors.assignee = "Choose the contractor who will do the work.";
   if (!f.date) errors.date = "Choose the day of the appointment.";
-  else if (!realDate(f.date)) errors.date = "Enter a real date.";
+  else if (!isIsoDate(f.date)) errors.date = "Enter a real date.";
   else if (f.date < today) errors.date = "The appointment cannot be in the past. Choose today or a later day.";
   if (!f.window) errors.window = "Choose the morning, the afternoon or all day.";
   return errors;

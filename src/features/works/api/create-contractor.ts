@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { api } from "@/lib/api-client";
 import type { Contractor, ContractorInput } from "./types";
-import { contractorKeys } from "./works-keys";
+import { contractorKeys } from "@/lib/contractors";
 
 /** The same rules as the server's (POST /api/contractors), with messages for the form. */
 export const contractorFormSchema = z.object({

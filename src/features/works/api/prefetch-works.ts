@@ -1,7 +1,7 @@
 import type { QueryClient } from "@tanstack/react-query";
 import { staffQueryOptions } from "@/lib/staff";
 import { orderViewFrom, weekFrom, weekRange } from "../lib/works-view";
-import { contractorsQueryOptions } from "./get-contractors";
+import { contractorsQueryOptions } from "@/lib/contractors";
 import { weekOrdersQueryOptions, workOrdersQueryOptions } from "./get-work-orders";
 
 /** Warms the cache for the Works page as the URL describes it, without waiting for it. */

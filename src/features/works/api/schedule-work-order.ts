@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { api } from "@/lib/api-client";
+import { patchWorkOrder } from "@/lib/work-orders";
 import type { ScheduleBody, WorkOrder } from "./types";
 import { worksKeys } from "./works-keys";
 
-export const scheduleWorkOrder = ({ id, body }: { id: number; body: ScheduleBody }) => api.patch<WorkOrder>(`/work-orders/${id}`, body);
+export const scheduleWorkOrder = ({ id, body }: { id: number; body: ScheduleBody }) => patchWorkOrder<WorkOrder>(id, body);
 
 export function useScheduleWorkOrder() {
   const queryClient = useQueryClient();

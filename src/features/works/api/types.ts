@@ -1,37 +1,20 @@
 // The shapes of the maintenance journey's API (GET/PATCH /api/work-orders, GET/POST /api/contractors),
-// as the works contract sets them out. The client keeps its own copy of the value lists: it never
-// imports server code.
+// as the works contract sets them out. The value lists are shared with the case's works (src/lib/work-orders.ts).
+import type { BookingResponse, SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "@/lib/work-orders";
 
-export const WORK_ORDER_TYPES = [
-  "extractor-fan",
-  "fan-upgrade",
-  "trickle-vents",
-  "door-undercut",
-  "piv-unit",
-  "mould-wash",
-  "mould-resistant-decoration",
-  "insulation",
-  "draught-proofing",
-  "heating",
-  "leak-repair",
-  "roof-gutter",
-  "damp-proofing",
-  "other",
-] as const;
-export type WorkOrderType = (typeof WORK_ORDER_TYPES)[number];
-
-export const WORK_ORDER_PRIORITIES = ["emergency", "urgent", "routine"] as const;
-export type WorkOrderPriority = (typeof WORK_ORDER_PRIORITIES)[number];
-
-/** unscheduled → scheduled (proposed to the tenant) → confirmed | change-requested → (scheduled again) → done; or cancelled. */
-export const WORK_ORDER_STATUSES = ["unscheduled", "scheduled", "change-requested", "confirmed", "done", "cancelled"] as const;
-export type WorkOrderStatus = (typeof WORK_ORDER_STATUSES)[number];
-
-/** am 8–12, pm 12–17, all-day 8–17, London time. */
-export const SLOT_WINDOWS = ["am", "pm", "all-day"] as const;
-export type SlotWindow = (typeof SLOT_WINDOWS)[number];
-
-export type BookingResponse = "confirmed" | "change-requested";
+export {
+  SLOT_WINDOWS,
+  WORK_ORDER_PRIORITIES,
+  WORK_ORDER_STATUSES,
+  WORK_ORDER_TYPES,
+  type BookingResponse,
+  type ScheduleBody,
+  type SlotWindow,
+  type WorkOrderPriority,
+  type WorkOrderStatus,
+  type WorkOrderType,
+} from "@/lib/work-orders";
+export type { Contractor } from "@/lib/contractors";
 
 export interface WorkOrderSlot {
   /** A London calendar date, YYYY-MM-DD. */
@@ -83,19 +66,6 @@ export interface WorkOrderPage {
   total: number;
   page: number;
   pageSize: number;
-}
-
-/** PATCH /api/work-orders/:id to book (or rebook) an operative or a contractor. */
-export type ScheduleBody =
-  | { assigneeId: number; slot: { date: string; window: SlotWindow } }
-  | { contractorId: number; slot: { date: string; window: SlotWindow } };
-
-export interface Contractor {
-  id: number;
-  name: string;
-  email: string;
-  phone: string | null;
-  trade: string | null;
 }
 
 export interface ContractorInput {

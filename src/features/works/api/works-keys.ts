@@ -11,8 +11,3 @@ export const worksKeys = {
   weeks: () => [...worksKeys.all, "week"] as const,
   week: (week: WeekParams) => [...worksKeys.weeks(), week] as const,
 };
-
-export const contractorKeys = {
-  all: ["contractors"] as const,
-  list: () => [...contractorKeys.all, "list"] as const,
-};

@@ -8,7 +8,7 @@ import { Input } from "@/components/ui/field";
 import { LoadingState } from "@/components/ui/spinner";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { contractorFormSchema, useCreateContractor, type ContractorFormInput } from "../api/create-contractor";
-import { useContractors } from "../api/get-contractors";
+import { useContractors } from "@/lib/contractors";
 
 const FIELDS = ["name", "email", "phone", "trade"] as const;
 const blank: ContractorFormInput = { name: "", email: "", phone: "", trade: "" };

@@ -1,5 +1,5 @@
 import { cn } from "@/lib/cn";
-import { CONTINUOUS_EXTRACT_RATES, ELECTRICAL_CAUTION, INTERMITTENT_EXTRACT_RATES, type ExtractRate } from "../lib/extract-rates";
+import { CONTINUOUS_EXTRACT_RATES, ELECTRICAL_CAUTION, INTERMITTENT_EXTRACT_RATES, type ExtractRate } from "@/lib/extract-rates";
 
 function RateList({ rates }: { rates: readonly ExtractRate[] }) {
   return (

@@ -1,14 +1,14 @@
-import { useEffect, useId, useRef, useState, type FormEvent } from "react";
+import { useId, useRef, useState, type FormEvent } from "react";
+import { Modal } from "@/components/ui/modal";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { FieldError, Input, Select } from "@/components/ui/field";
 import { errorMessage, isApiError } from "@/lib/api-client";
-import { cn } from "@/lib/cn";
 import { useStaff } from "@/lib/staff";
-import { useContractors } from "../api/get-contractors";
+import { useContractors } from "@/lib/contractors";
 import { useScheduleWorkOrder } from "../api/schedule-work-order";
 import { SLOT_WINDOWS, type ScheduleBody, type SlotWindow, type WorkOrder } from "../api/types";
-import { isFanWork } from "../lib/extract-rates";
+import { isFanWork } from "@/lib/extract-rates";
 import { labelFor, orderReference, typeLabels, windowLabels, windowShortLabels } from "../lib/labels";
 import { formatLongDate, formatShortDate, isIsoDate, todayInLondon } from "../lib/week";
 import { FanGuidance } from "./fan-guidance";
@@ -37,44 +37,18 @@ const whoOf = (order: WorkOrder) => (order.assignee ? `operative:${order.assigne
 /**
  * Books an operative or a contractor for a work order: who, which day (today or later) and which
  * half of it. A clash with another booking (409) is shown here, and the dialog stays open so
- * another slot or person can be chosen. Exported for the case workspace to reuse.
+ * another slot or person can be chosen.
  */
 export function ScheduleDialog({ order, onClose, onScheduled }: ScheduleDialogProps) {
-  const ref = useRef<HTMLDialogElement>(null);
-  const open = order !== null;
-
-  useEffect(() => {
-    const dialog = ref.current;
-    if (!dialog) return;
-    if (open && !dialog.open) {
-      if (typeof dialog.showModal === "function") dialog.showModal();
-      else dialog.setAttribute("open", "");
-    } else if (!open && dialog.open) {
-      if (typeof dialog.close === "function") dialog.close();
-      else dialog.removeAttribute("open");
-    }
-  }, [open]);
-
-  const titleId = useId();
+  const rebooking = order ? isReschedule(order) : false;
   return (
-    <dialog
-      ref={ref}
-      aria-labelledby={titleId}
-      onCancel={(event) => {
-        event.preventDefault();
-        onClose();
-      }}
-      className={cn(
-        "m-auto max-h-[calc(100vh-2rem)] w-[min(40rem,calc(100vw-2rem))] overflow-y-auto rounded-lg border border-line bg-surface p-0 text-ink shadow-dialog",
-        !open && "hidden",
-      )}
-    >
-      {order ? <ScheduleForm key={order.id} order={order} titleId={titleId} onClose={onClose} onScheduled={onScheduled} /> : null}
-    </dialog>
+    <Modal open={order !== null} onClose={onClose} title={order ? `${rebooking ? "Reschedule" : "Schedule"} ${orderReference(order)}` : ""}>
+      {order ? <ScheduleForm key={order.id} order={order} onClose={onClose} onScheduled={onScheduled} /> : null}
+    </Modal>
   );
 }
 
-function ScheduleForm({ order, titleId, onClose, onScheduled }: { order: WorkOrder; titleId: string; onClose: () => void; onScheduled?: (order: WorkOrder) => void }) {
+function ScheduleForm({ order, onClose, onScheduled }: { order: WorkOrder; onClose: () => void; onScheduled?: (order: WorkOrder) => void }) {
   const staff = useStaff();
   const contractors = useContractors();
   const schedule = useScheduleWorkOrder();
@@ -90,10 +64,6 @@ function ScheduleForm({ order, titleId, onClose, onScheduled }: { order: WorkOrd
   const dateRef = useRef<HTMLInputElement>(null);
   const windowRef = useRef<HTMLInputElement>(null);
   const windowId = useId();
-
-  useEffect(() => {
-    whoRef.current?.focus();
-  }, []);
 
   const busy = schedule.isPending;
   const clash = schedule.isError && isApiError(schedule.error) && schedule.error.status === 409;
@@ -132,13 +102,9 @@ function ScheduleForm({ order, titleId, onClose, onScheduled }: { order: WorkOrd
 
   const current = order.slot;
   const currentWho = order.assignee?.name ?? order.contractor?.name;
-  const reference = orderReference(order);
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-4 p-5">
-      <h2 id={titleId} className="text-xl font-bold">
-        {rebooking ? "Reschedule" : "Schedule"} {reference}
-      </h2>
+    <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       <div className="flex flex-col gap-1">
         <p>
           <span className="font-semibold">{labelFor(typeLabels, order.type)}</span> at {order.property.addressLine1}, {order.property.town}{" "}

@@ -9,7 +9,7 @@ import { useStaff } from "@/lib/staff";
 import { useWorkOrders } from "../api/get-work-orders";
 import type { WorkOrder } from "../api/types";
 import { useOrdersTableParams } from "../hooks/use-works-params";
-import { isFanWork } from "../lib/extract-rates";
+import { isFanWork } from "@/lib/extract-rates";
 import { orderReference } from "../lib/labels";
 import { todayInLondon } from "../lib/week";
 import { ORDER_SORTS, type OrderSort } from "../lib/works-view";

@@ -1,5 +1,6 @@
 // Plain words for the values of a work order.
-import type { BookingResponse, SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "../api/types";
+import { windowHours, windowNames } from "@/lib/work-orders";
+import type { BookingResponse, SlotWindow, WorkOrderStatus, WorkOrderType } from "../api/types";
 
 export const typeLabels: Record<WorkOrderType, string> = {
   "extractor-fan": "Extractor fan",
@@ -18,11 +19,7 @@ export const typeLabels: Record<WorkOrderType, string> = {
   other: "Other work",
 };
 
-export const priorityLabels: Record<WorkOrderPriority, string> = {
-  emergency: "Emergency",
-  urgent: "Urgent",
-  routine: "Routine",
-};
+export { priorityLabels } from "@/lib/work-orders";
 
 export const statusLabels: Record<WorkOrderStatus, string> = {
   unscheduled: "To schedule",
@@ -34,9 +31,9 @@ export const statusLabels: Record<WorkOrderStatus, string> = {
 };
 
 export const windowLabels: Record<SlotWindow, string> = {
-  am: "Morning, 8am to 12 noon",
-  pm: "Afternoon, 12 noon to 5pm",
-  "all-day": "All day, 8am to 5pm",
+  am: `${windowNames.am}, ${windowHours.am}`,
+  pm: `${windowNames.pm}, ${windowHours.pm}`,
+  "all-day": `${windowNames["all-day"]}, ${windowHours["all-day"]}`,
 };
 
 export const windowShortLabels: Record<SlotWindow, string> = {

@@ -1,23 +1,14 @@
 // Calendar dates (YYYY-MM-DD, London) for the week board: today, the Monday of a week, and the days
 // Monday to Friday. Dates are handled as UTC midnights so no time zone can shift them a day.
 
+import { isIsoDate, todayInLondon } from "@/lib/work-orders";
+
+export { isIsoDate, todayInLondon };
+
 const DAY_MS = 86_400_000;
-const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
-
-const londonDate = new Intl.DateTimeFormat("en-CA", { timeZone: "Europe/London", year: "numeric", month: "2-digit", day: "2-digit" });
-
-/** Today's date in London, YYYY-MM-DD. */
-export function todayInLondon(now: Date = new Date()): string {
-  return londonDate.format(now);
-}
 
 const toUtc = (date: string) => Date.parse(`${date}T00:00:00Z`);
 const fromUtc = (ms: number) => new Date(ms).toISOString().slice(0, 10);
-
-/** True for a real calendar date written YYYY-MM-DD. */
-export function isIsoDate(value: string): boolean {
-  return ISO_DATE.test(value) && !Number.isNaN(toUtc(value)) && fromUtc(toUtc(value)) === value;
-}
 
 export const addDays = (date: string, days: number) => fromUtc(toUtc(date) + days * DAY_MS);
 

@@ -1,20 +1,25 @@
-import { useEffect, useId, useRef, type ReactNode } from "react";
+import { useEffect, useId, useRef, type ReactNode, type RefObject } from "react";
 import { cn } from "@/lib/cn";
 
-interface FormDialogProps {
+interface ModalProps {
   open: boolean;
   onClose: () => void;
   title: ReactNode;
+  /** Hides the title visually (it still names the dialog). */
+  hideTitle?: boolean;
+  /** Where focus starts; the first focusable element of the dialog otherwise. */
+  initialFocusRef?: RefObject<HTMLElement | null>;
   /** Escape does nothing while something is being sent. */
   busy?: boolean;
+  className?: string;
   children: ReactNode;
 }
 
 /**
- * A form on the native modal <dialog>: the browser keeps focus inside and hides the page behind
- * from assistive technology; Escape closes it, and focus goes back to the button that opened it.
+ * The native modal <dialog>: the browser keeps focus inside and hides the page behind from
+ * assistive technology; Escape closes it, and focus goes back to what opened it.
  */
-export function FormDialog({ open, onClose, title, busy, children }: FormDialogProps) {
+export function Modal({ open, onClose, title, hideTitle, initialFocusRef, busy, className, children }: ModalProps) {
   const ref = useRef<HTMLDialogElement>(null);
   const opener = useRef<HTMLElement | null>(null);
   const titleId = useId();
@@ -26,14 +31,22 @@ export function FormDialog({ open, onClose, title, busy, children }: FormDialogP
       opener.current = document.activeElement instanceof HTMLElement ? document.activeElement : null;
       if (typeof dialog.showModal === "function") dialog.showModal();
       else dialog.setAttribute("open", "");
-      dialog.querySelector<HTMLElement>("input, select, textarea, button")?.focus();
+      (initialFocusRef?.current ?? dialog.querySelector<HTMLElement>("button, [href], input, select, textarea"))?.focus();
     } else if (!open && dialog.open) {
       if (typeof dialog.close === "function") dialog.close();
       else dialog.removeAttribute("open");
       opener.current?.focus();
       opener.current = null;
     }
-  }, [open]);
+  }, [open, initialFocusRef]);
+
+  // Closed by unmounting while open: still give focus back.
+  useEffect(
+    () => () => {
+      opener.current?.focus();
+    },
+    [],
+  );
 
   return (
     <dialog
@@ -44,6 +57,7 @@ export function FormDialog({ open, onClose, title, busy, children }: FormDialogP
         if (!busy) onClose();
       }}
       onKeyDown={(event) => {
+        // Handled here as well as by `cancel`, so Escape works the same everywhere.
         if (event.key === "Escape") {
           event.preventDefault();
           if (!busy) onClose();
@@ -52,11 +66,12 @@ export function FormDialog({ open, onClose, title, busy, children }: FormDialogP
       className={cn(
         "m-auto max-h-[calc(100dvh-2rem)] w-[min(40rem,calc(100vw-2rem))] overflow-auto rounded-lg border border-line bg-surface p-0 text-ink shadow-dialog",
         !open && "hidden",
+        className,
       )}
     >
       {open ? (
         <div className="flex flex-col gap-4 p-5">
-          <h2 id={titleId} className="text-xl font-bold">
+          <h2 id={titleId} className={cn("text-xl font-bold", hideTitle && "sr-only")}>
             {title}
           </h2>
           {children}

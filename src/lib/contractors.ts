@@ -1,0 +1,31 @@
+// The landlord's contractors (GET /api/contractors): who, besides the operatives, can be booked for
+// a work order. Shared by the Works page and the case's works, under one query key.
+import { queryOptions, useQuery } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+
+export interface Contractor {
+  id: number;
+  name: string;
+  email: string;
+  phone: string | null;
+  trade: string | null;
+}
+
+export const contractorKeys = {
+  all: ["contractors"] as const,
+  list: () => [...contractorKeys.all, "list"] as const,
+};
+
+export const getContractors = async (signal?: AbortSignal): Promise<Contractor[]> =>
+  (await api.get<{ contractors: Contractor[] }>("/contractors", { signal })).contractors;
+
+export const contractorsQueryOptions = () =>
+  queryOptions({
+    queryKey: contractorKeys.list(),
+    queryFn: ({ signal }) => getContractors(signal),
+    staleTime: 5 * 60_000,
+  });
+
+export function useContractors(options: { enabled?: boolean } = {}) {
+  return useQuery({ ...contractorsQueryOptions(), enabled: options.enabled ?? true });
+}

@@ -1,0 +1,73 @@
+// What the /works page and the case's works sections share about work orders: the value lists of
+// the works contract (server/modules/works/work-order.entity.ts; the client keeps its own copy and
+// never imports server code), the London calendar day, and the PATCH that books a visit.
+// No React here.
+import { api } from "@/lib/api-client";
+
+export const WORK_ORDER_TYPES = [
+  "extractor-fan",
+  "fan-upgrade",
+  "trickle-vents",
+  "door-undercut",
+  "piv-unit",
+  "mould-wash",
+  "mould-resistant-decoration",
+  "insulation",
+  "draught-proofing",
+  "heating",
+  "leak-repair",
+  "roof-gutter",
+  "damp-proofing",
+  "other",
+] as const;
+export type WorkOrderType = (typeof WORK_ORDER_TYPES)[number];
+
+export const WORK_ORDER_PRIORITIES = ["emergency", "urgent", "routine"] as const;
+export type WorkOrderPriority = (typeof WORK_ORDER_PRIORITIES)[number];
+
+/** unscheduled → scheduled (proposed to the tenant) → confirmed | change-requested → (scheduled again) → done; or cancelled. */
+export const WORK_ORDER_STATUSES = ["unscheduled", "scheduled", "change-requested", "confirmed", "done", "cancelled"] as const;
+export type WorkOrderStatus = (typeof WORK_ORDER_STATUSES)[number];
+
+/** am 8–12, pm 12–17, all-day 8–17, London time (ours; the usual morning/afternoon split, no source). */
+export const SLOT_WINDOWS = ["am", "pm", "all-day"] as const;
+export type SlotWindow = (typeof SLOT_WINDOWS)[number];
+
+export type BookingResponse = "confirmed" | "change-requested";
+
+/** Priorities in words, the same on every screen. */
+export const priorityLabels: Record<WorkOrderPriority, string> = {
+  emergency: "Emergency",
+  urgent: "Urgent",
+  routine: "Routine",
+};
+
+/** The windows' names and their London hours. */
+export const windowNames: Record<SlotWindow, string> = { am: "Morning", pm: "Afternoon", "all-day": "All day" };
+export const windowHours: Record<SlotWindow, string> = { am: "8am to 12 noon", pm: "12 noon to 5pm", "all-day": "8am to 5pm" };
+
+const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
+const londonDate = new Intl.DateTimeFormat("en-CA", { timeZone: "Europe/London", year: "numeric", month: "2-digit", day: "2-digit" });
+
+/** Today's date in London, YYYY-MM-DD: the earliest day a visit can be booked. */
+export function todayInLondon(now: Date = new Date()): string {
+  return londonDate.format(now);
+}
+
+/** True for a real calendar date written YYYY-MM-DD. */
+export function isIsoDate(value: string): boolean {
+  if (!ISO_DATE.test(value)) return false;
+  const ms = Date.parse(`${value}T00:00:00Z`);
+  return !Number.isNaN(ms) && new Date(ms).toISOString().slice(0, 10) === value;
+}
+
+/** PATCH /api/work-orders/:id to book (or rebook) an operative or a contractor. */
+export type ScheduleBody =
+  | { assigneeId: number; slot: { date: string; window: SlotWindow } }
+  | { contractorId: number; slot: { date: string; window: SlotWindow } };
+
+/**
+ * PATCH /api/work-orders/:id: schedule or reschedule (409 `double_booked` when the operative already
+ * has that half-day), complete or cancel. Each screen says which order shape it reads back.
+ */
+export const patchWorkOrder = <TOrder>(id: number, body: object) => api.patch<TOrder>(`/work-orders/${id}`, body);
