@@ -95,16 +95,16 @@ describe("the landlord's deadline policy", () => {
     const fresh = await makeLandlord(t.ctx.dataSource);
     const admin = await signedInClient(t.app, fresh.admin.email, PASSWORD);
     const staff = await signedInClient(t.app, fresh.officer.email, PASSWORD);
-    // TRADE.md §5: 24 hours, 10, 3 and 5 working days, 12 weeks.
+    // TRADE.md §5: 24 hours, 10, 3 and 5 working days, 12 weeks; and our 21-day monitoring period.
     expect((await staff.get("/api/policy").expect(200)).body).toEqual({
-      emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, source: "default",
+      emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, monitoringDays: 21, source: "default",
     });
     const c = (await staff.post("/api/cases", { ...report, propertyId: fresh.home.id, channel: "phone", awareAt: "2025-12-19T10:00:00Z" }).expect(201)).body;
     const due = async () => (await staff.get(`/api/cases/${c.id}/deadlines`)).body.deadlines.find((d: { stage: string }) => d.stage === "investigate").dueAt;
     expect(await due()).toBe("2026-01-07T23:59:59.999Z");
     const own = { emergencyMakeSafeHours: 12, investigateWorkingDays: 5, summaryWorkingDays: 2, safetyWorkWorkingDays: 3, supplementaryWorkWeeks: 8 };
     await staff.agent.put("/api/policy").set("X-CSRF-Token", staff.csrf).send(own).expect(403);
-    expect((await admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send(own).expect(200)).body).toEqual({ ...own, source: "landlord" });
+    expect((await admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send(own).expect(200)).body).toEqual({ ...own, monitoringDays: 21, source: "landlord" });
     // 5 working days after Fri 19 Dec 2025, skipping 25 and 26 Dec (the holiday package's data): 22, 23, 24, 29, 30 Dec.
     expect(await due()).toBe("2025-12-30T23:59:59.999Z");
     // Another landlord still has the default.

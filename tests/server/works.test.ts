@@ -160,6 +160,11 @@ describe("the case follows its orders", () => {
     expect(photo.body.photos[0].workOrderId).toBe(wash.id);
     await lead.patch(`/api/work-orders/${wash.id}`, { complete: { note: "Washed the ceiling with fungicide and let it dry.", followOn: "Repaint with mould-resistant paint in a week." } }).expect(200);
     expect(await status(caseId)).toBe("monitoring");
+    // Work has begun: the safety-work and supplementary-work clocks have stopped, in time.
+    const after = Object.fromEntries((await officer.get(`/api/cases/${caseId}/deadlines`)).body.deadlines.map((d: { stage: string }) => [d.stage, d]));
+    expect(after["safety-work"]).toMatchObject({ state: "met" });
+    expect(after["supplementary-work"]).toMatchObject({ state: "met" });
+    expect(after["safety-work"].doneAt).not.toBeNull();
     const events = (await officer.get(`/api/cases/${caseId}/events`)).body.events;
     const moves = events.filter((e: { type: string }) => e.type === "status-changed").map((e: { after: { status: string } }) => e.after.status);
     expect(moves.slice(-3)).toEqual(["works-planned", "works-done", "monitoring"]);

@@ -46,11 +46,19 @@ export class InspectionService {
     return this.dataSource.getRepository(Inspection).find({ where: { caseId: c.id }, order: { inspectedAt: "ASC", id: "ASC" } });
   }
 
-  /** When the investigation ended (the first inspection) and the summary was first sent: the clocks' triggers. */
-  async milestones(caseId: number): Promise<{ investigationEndedAt: Date | null; summarySentAt: Date | null }> {
+  /**
+   * The clocks' triggers and stops: when the investigation ended (the first inspection), the summary
+   * was first sent, and work began. Work counts as begun when the first work order is completed
+   * (ours: the visit has certainly happened then; a booked visit may still fall through). That one
+   * moment stops both the safety-work and the supplementary-work clocks, as we do not yet tell the
+   * two kinds of work apart.
+   */
+  async milestones(caseId: number): Promise<{ investigationEndedAt: Date | null; summarySentAt: Date | null; safetyWorkStartedAt: Date | null; supplementaryWorkStartedAt: Date | null }> {
     const first = await this.dataSource.getRepository(Inspection).findOne({ where: { caseId }, order: { inspectedAt: "ASC" } });
     const summary = await this.dataSource.getRepository(WrittenSummary).findOne({ where: { caseId }, order: { sentAt: "ASC" } });
-    return { investigationEndedAt: first?.inspectedAt ?? null, summarySentAt: summary?.sentAt ?? null };
+    const [work] = (await this.dataSource.query("SELECT MIN(completed_at) AS at FROM work_orders WHERE case_id = ? AND status = 'done'", [caseId])) as { at: Date | null }[];
+    const workBegan = work?.at ? new Date(work.at) : null;
+    return { investigationEndedAt: first?.inspectedAt ?? null, summarySentAt: summary?.sentAt ?? null, safetyWorkStartedAt: workBegan, supplementaryWorkStartedAt: workBegan };
   }
 
   /** Sends the written summary to the tenant (after an inspection), recorded with its time. */
