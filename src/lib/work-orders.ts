@@ -22,6 +22,24 @@ export const WORK_ORDER_TYPES = [
 ] as const;
 export type WorkOrderType = (typeof WORK_ORDER_TYPES)[number];
 
+/** The types' short names, the same on every screen that names an order in a word or two. */
+export const workTypeNames: Record<WorkOrderType, string> = {
+  "extractor-fan": "Extractor fan",
+  "fan-upgrade": "Fan upgrade",
+  "trickle-vents": "Trickle vents",
+  "door-undercut": "Door undercut",
+  "piv-unit": "Positive input ventilation unit",
+  "mould-wash": "Mould wash",
+  "mould-resistant-decoration": "Mould-resistant decoration",
+  insulation: "Insulation",
+  "draught-proofing": "Draught-proofing",
+  heating: "Heating",
+  "leak-repair": "Leak repair",
+  "roof-gutter": "Roof or gutter repair",
+  "damp-proofing": "Damp-proofing",
+  other: "Other work",
+};
+
 export const WORK_ORDER_PRIORITIES = ["emergency", "urgent", "routine"] as const;
 export type WorkOrderPriority = (typeof WORK_ORDER_PRIORITIES)[number];
 

@@ -202,9 +202,9 @@ describe("the works of a case, for staff", () => {
 
     const type = within(works).getByLabelText("Type of work");
     expect(within(type).getAllByRole("option").slice(1)).toHaveLength(14);
-    expect(within(works).queryByRole("complementary", { name: "Extract rates for fans" })).not.toBeInTheDocument();
+    expect(within(works).queryByRole("complementary", { name: "Extract rates for fan work" })).not.toBeInTheDocument();
     await user.selectOptions(type, "extractor-fan");
-    const guidance = within(works).getByRole("complementary", { name: "Extract rates for fans" });
+    const guidance = within(works).getByRole("complementary", { name: "Extract rates for fan work" });
     // Approved Document F (England, 2021), Vol. 1, as TRADE.md §6 quotes it.
     expect(within(guidance).getByText("Approved Document F (England, 2021), Volume 1")).toBeInTheDocument();
     const intermittent = within(guidance).getByRole("table", { name: "Intermittent extract" });
@@ -251,12 +251,13 @@ describe("the works of a case, for staff", () => {
     const message = "Dale Whitcombe is already booked on Tuesday 8 December 2099, morning. Choose another slot or operative.";
     const api = staffApi(users.maintenance, "investigated", {
       "GET /api/cases/42/work-orders": { body: { workOrders: [unbooked] } },
-      "PATCH /api/work-orders/7": apiError(409, "double_booked", message),
+      "PATCH /api/work-orders/7": (call, nth) =>
+        nth === 0 ? apiError(409, "double_booked", message) : { body: { ...unbooked, status: "scheduled", assignee: { id: 3, name: "Dale Whitcombe" }, slot: { date: "2099-12-08", window: "pm" } } },
     });
     await openWorkspace();
     const fan = await orderItem("Extractor fan: fit or repair");
     await user.click(within(fan).getByRole("button", { name: /^Schedule…/ }));
-    const dialog = await screen.findByRole("dialog", { name: "Schedule: Extractor fan: fit or repair" });
+    const dialog = await screen.findByRole("dialog", { name: "Schedule DW-2026-00042" });
 
     // Only maintenance staff are operatives.
     const operative = within(dialog).getByLabelText("Operative");
@@ -264,18 +265,34 @@ describe("the works of a case, for staff", () => {
 
     // A day in the past is refused before anything is sent.
     await user.selectOptions(operative, "3");
-    fireEvent.change(within(dialog).getByLabelText("Day"), { target: { value: "2020-01-06" } });
+    fireEvent.change(within(dialog).getByLabelText("Day of the visit"), { target: { value: "2020-01-06" } });
     await user.click(within(dialog).getByRole("radio", { name: /^Morning/ }));
     await user.click(within(dialog).getByRole("button", { name: "Book the visit" }));
-    expect(within(dialog).getByText(/cannot be in the past/)).toBeInTheDocument();
+    expect(within(dialog).getByText(/cannot be booked in the past/)).toBeInTheDocument();
     expect(api.callsTo("PATCH", "/api/work-orders/7")).toHaveLength(0);
 
-    fireEvent.change(within(dialog).getByLabelText("Day"), { target: { value: "2099-12-08" } });
+    fireEvent.change(within(dialog).getByLabelText("Day of the visit"), { target: { value: "2099-12-08" } });
     await user.click(within(dialog).getByRole("radio", { name: /^Morning/ }));
     await user.click(within(dialog).getByRole("button", { name: "Book the visit" }));
-    expect(await within(dialog).findByText(message)).toBeInTheDocument();
+    const alert = await within(dialog).findByRole("alert");
+    expect(alert).toHaveTextContent("That slot is already taken");
+    expect(alert).toHaveTextContent(message);
     expect(api.callsTo("PATCH", "/api/work-orders/7")[0]!.body).toEqual({ assigneeId: 3, slot: { date: "2099-12-08", window: "am" } });
-    expect(screen.getByRole("dialog", { name: "Schedule: Extractor fan: fit or repair" })).toBeInTheDocument();
+    expect(screen.getByRole("dialog", { name: "Schedule DW-2026-00042" })).toBeInTheDocument();
+
+    // Another half-day goes through: the dialog closes, the case and its works are fetched again, not its readings.
+    const caseCalls = api.callsTo("GET", "/api/cases/42").length;
+    const orderCalls = api.callsTo("GET", "/api/cases/42/work-orders").length;
+    const readingCalls = api.callsTo("GET", "/api/cases/42/readings").length;
+    await user.click(within(dialog).getByRole("radio", { name: /^Afternoon/ }));
+    await user.click(within(dialog).getByRole("button", { name: "Book the visit" }));
+    await waitFor(() => expect(screen.queryByRole("dialog")).not.toBeInTheDocument());
+    expect(api.callsTo("PATCH", "/api/work-orders/7")[1]!.body).toEqual({ assigneeId: 3, slot: { date: "2099-12-08", window: "pm" } });
+    expect(await within(fan).findByText("Booked Dale Whitcombe for Tuesday 8 December 2099, afternoon 12–5pm. The tenant has been asked to confirm.")).toBeInTheDocument();
+    expect(api.callsTo("GET", "/api/cases/42").length).toBeGreaterThan(caseCalls);
+    expect(api.callsTo("GET", "/api/cases/42/work-orders").length).toBeGreaterThan(orderCalls);
+    expect(readingCalls).toBeGreaterThan(0);
+    expect(api.callsTo("GET", "/api/cases/42/readings")).toHaveLength(readingCalls);
   });
 
   it("requires a note of what was done before recording completion", async () => {

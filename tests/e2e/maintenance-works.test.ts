@@ -93,7 +93,7 @@ it("books, confirms, completes and verifies an extractor-fan fix", async () => {
   const dialog = page.getByRole("dialog");
   await dialog.getByLabel("Operative", { exact: true }).selectOption({ label: "Dale Whitcombe" });
   const day = bookingDay();
-  await dialog.getByLabel("Day", { exact: true }).fill(day);
+  await dialog.getByLabel("Day of the visit", { exact: true }).fill(day);
   await dialog.getByRole("radio", { name: /^Morning/ }).check();
   await dialog.getByRole("button", { name: "Book the visit" }).click();
   await dialog.waitFor({ state: "hidden" });

@@ -2,13 +2,13 @@ import { useId, useRef, useState, type FormEvent } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input, Select, Textarea } from "@/components/ui/field";
+import { FanGuidance } from "@/components/works/fan-guidance";
 import { errorMessage } from "@/lib/api-client";
 import { useCreateWorkOrder } from "../api/create-work-order";
 import { WORK_ORDER_TYPES, type WorkOrderPriority, type WorkOrderType } from "../api/types";
 import { isFanWork } from "@/lib/extract-rates";
 import { PRIORITY_CHOICES, WORK_TYPE_WORDS, longDate, workTypeLabel } from "../lib/labels";
 import { blankNewOrder, checkNewOrder, type NewOrderErrors, type NewOrderFields } from "../lib/work-order-forms";
-import { FanGuidance } from "./fan-guidance";
 import { RadioGroup } from "@/components/ui/option-radio-group";
 
 interface NewWorkOrderFormProps {
@@ -68,7 +68,7 @@ export function NewWorkOrderForm({ caseId, rooms, safetyWorkDueAt }: NewWorkOrde
           </option>
         ))}
       </Select>
-      {fields.type && isFanWork(fields.type) ? <FanGuidance /> : null}
+      {fields.type && isFanWork(fields.type) ? <FanGuidance headingLevel={4} /> : null}
       <Textarea
         ref={descriptionRef}
         label="Description"

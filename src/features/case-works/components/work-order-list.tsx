@@ -3,6 +3,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { LoadingState } from "@/components/ui/spinner";
+import { ScheduleDialog } from "@/components/works/schedule-dialog";
 import { errorMessage } from "@/lib/api-client";
 import { useWorkOrders } from "../api/get-work-orders";
 import { photosOfOrder, useWorkPhotos } from "../api/get-work-photos";
@@ -12,7 +13,6 @@ import { formatLondon } from "../lib/when";
 import { BookingAnswerView } from "./booking-answer";
 import { CancelDialog } from "./cancel-dialog";
 import { CompletionDialog } from "./completion-dialog";
-import { ScheduleDialog } from "./schedule-dialog";
 
 export interface WorkOrderListProps {
   caseId: number;
@@ -50,6 +50,12 @@ export function WorkOrderList({ caseId, canManage, Gallery, PhotoUpload }: WorkO
     </ol>
   );
 }
+
+/** What staff read once a visit is booked: who, when, and that the tenant is asked. */
+const bookedMessage = (o: WorkOrder) => {
+  const who = o.assignee?.name ?? o.contractor?.name ?? "the visit";
+  return o.slot ? `Booked ${who} for ${slotForStaff(o.slot)}. The tenant has been asked to confirm.` : "The visit is booked. The tenant has been asked to confirm.";
+};
 
 type Open = "schedule" | "complete" | "cancel" | null;
 
@@ -176,7 +182,7 @@ function WorkOrderItem({ order: o, canManage, photos, Gallery, PhotoUpload }: It
           </Button>
         </div>
       ) : null}
-      <ScheduleDialog order={o} open={open === "schedule"} onClose={() => setOpen(null)} onDone={finish} />
+      <ScheduleDialog order={open === "schedule" ? o : null} onClose={() => setOpen(null)} onScheduled={(booked) => finish(bookedMessage(booked))} />
       <CompletionDialog order={o} open={open === "complete"} onClose={() => setOpen(null)} onDone={finish} />
       <CancelDialog order={o} open={open === "cancel"} onClose={() => setOpen(null)} onDone={finish} />
     </li>

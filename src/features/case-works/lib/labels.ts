@@ -1,6 +1,6 @@
 // Plain words for work orders. The stored values are the server's (server/modules/works/
 // work-order.entity.ts); these are what staff and tenants read.
-import { SLOT_WINDOWS, priorityLabels, windowHours, windowNames, type SlotWindow, type WorkOrderPriority, type WorkOrderType } from "@/lib/work-orders";
+import { priorityLabels, type WorkOrderPriority, type WorkOrderType } from "@/lib/work-orders";
 
 export interface Choice<V extends string> {
   value: V;
@@ -57,9 +57,6 @@ const STATUS_WORDS: Record<string, string> = {
   cancelled: "Cancelled",
 };
 export const workStatusLabel = (status: string) => STATUS_WORDS[status] ?? status;
-
-/** The windows with their London hours. */
-export const WINDOW_CHOICES: readonly Choice<SlotWindow>[] = SLOT_WINDOWS.map((w) => ({ value: w, label: windowNames[w], hint: windowHours[w] }));
 
 const STAFF_WINDOW: Record<string, string> = { am: "morning 8am–12", pm: "afternoon 12–5pm", "all-day": "all day 8am–5pm" };
 const TENANT_WINDOW: Record<string, string> = {

@@ -1,8 +1,8 @@
 // The checks the works forms make before sending: the same rules as the server's schemas
 // (server/modules/works/works.schemas.ts), with messages that say what to do.
-import type { CompletionInput, SlotWindow, WorkOrderInput, WorkOrderPriority, WorkOrderType } from "../api/types";
+import type { CompletionInput, WorkOrderInput, WorkOrderPriority, WorkOrderType } from "../api/types";
 import { WORK_ORDER_TYPES } from "../api/types";
-import { isIsoDate, todayInLondon } from "@/lib/work-orders";
+import { isIsoDate } from "@/lib/work-orders";
 
 export interface NewOrderFields {
   type: WorkOrderType | "";
@@ -35,27 +35,6 @@ export function checkNewOrder(f: NewOrderFields): { input: WorkOrderInput | null
     },
     errors,
   };
-}
-
-export interface ScheduleFields {
-  who: "operative" | "contractor";
-  assigneeId: string;
-  contractorId: string;
-  date: string;
-  window: SlotWindow | "";
-}
-
-export type ScheduleErrors = Partial<Record<"assignee" | "date" | "window", string>>;
-
-export function checkSchedule(f: ScheduleFields, today: string = todayInLondon()): ScheduleErrors {
-  const errors: ScheduleErrors = {};
-  if (f.who === "operative" && !f.assigneeId) errors.assignee = "Choose the operative who will do the work.";
-  if (f.who === "contractor" && !f.contractorId) errors.assignee = "Choose the contractor who will do the work.";
-  if (!f.date) errors.date = "Choose the day of the appointment.";
-  else if (!isIsoDate(f.date)) errors.date = "Enter a real date.";
-  else if (f.date < today) errors.date = "The appointment cannot be in the past. Choose today or a later day.";
-  if (!f.window) errors.window = "Choose the morning, the afternoon or all day.";
-  return errors;
 }
 
 export interface CompletionFields {

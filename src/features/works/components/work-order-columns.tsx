@@ -8,7 +8,6 @@ import type { WorkOrder } from "../api/types";
 import { labelFor, orderReference, priorityLabels, statusLabels, typeLabels, windowShortLabels } from "../lib/labels";
 import { formatShortDate } from "../lib/week";
 import type { OrderSort } from "../lib/works-view";
-import { canSchedule, isReschedule } from "./schedule-dialog";
 import { TenantAnswerText } from "./tenant-answer";
 
 /** The headings of the sortable columns; their ids are the API's sort keys. */
@@ -47,6 +46,11 @@ function SortButton({ column, children }: { column: SortableColumn; children: Re
 const Missing = ({ children }: { children: ReactNode }) => <span className="text-ink-soft">{children}</span>;
 
 const OPEN = ["unscheduled", "scheduled", "change-requested", "confirmed"];
+
+/** The orders that can be booked or rebooked from the Works page: the open ones. */
+const canSchedule = (order: Pick<WorkOrder, "status">) => OPEN.includes(order.status);
+/** Scheduling again replaces a booking; an order with no slot is booked for the first time. */
+const isReschedule = (order: Pick<WorkOrder, "slot">) => order.slot !== null;
 
 /** Past its target date and not yet done: said in words with an icon, not by colour alone. */
 export function TargetDate({ order, today }: { order: WorkOrder; today: string }) {

@@ -4,6 +4,8 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { DataTable, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
+import { FanGuidance } from "@/components/works/fan-guidance";
+import { ScheduleDialog } from "@/components/works/schedule-dialog";
 import { errorMessage } from "@/lib/api-client";
 import { useStaff } from "@/lib/staff";
 import { useWorkOrders } from "../api/get-work-orders";
@@ -13,8 +15,6 @@ import { isFanWork } from "@/lib/extract-rates";
 import { orderReference } from "../lib/labels";
 import { todayInLondon } from "../lib/week";
 import { ORDER_SORTS, type OrderSort } from "../lib/works-view";
-import { FanGuidance } from "./fan-guidance";
-import { ScheduleDialog } from "./schedule-dialog";
 import { detailId, ExpandedRowsContext, workOrderColumns } from "./work-order-columns";
 import { WorkOrdersFilters } from "./work-orders-filters";
 

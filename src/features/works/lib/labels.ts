@@ -1,23 +1,8 @@
 // Plain words for the values of a work order.
 import { windowHours, windowNames } from "@/lib/work-orders";
-import type { BookingResponse, SlotWindow, WorkOrderStatus, WorkOrderType } from "../api/types";
+import type { BookingResponse, SlotWindow, WorkOrderStatus } from "../api/types";
 
-export const typeLabels: Record<WorkOrderType, string> = {
-  "extractor-fan": "Extractor fan",
-  "fan-upgrade": "Fan upgrade",
-  "trickle-vents": "Trickle vents",
-  "door-undercut": "Door undercut",
-  "piv-unit": "Positive input ventilation unit",
-  "mould-wash": "Mould wash",
-  "mould-resistant-decoration": "Mould-resistant decoration",
-  insulation: "Insulation",
-  "draught-proofing": "Draught-proofing",
-  heating: "Heating",
-  "leak-repair": "Leak repair",
-  "roof-gutter": "Roof or gutter repair",
-  "damp-proofing": "Damp-proofing",
-  other: "Other work",
-};
+export { workTypeNames as typeLabels } from "@/lib/work-orders";
 
 export { priorityLabels } from "@/lib/work-orders";
 
