@@ -1,26 +1,11 @@
-// What the /works page and the case's works sections share about work orders: the value lists of
-// the works contract (server/modules/works/work-order.entity.ts; the client keeps its own copy and
-// never imports server code), the London calendar day, and the PATCH that books a visit.
-// No React here.
+// What the /works page and the case's works sections share about work orders: the API's value lists
+// (src/lib/schemas/work-orders.ts, shared with the server), their names, the London calendar day,
+// and the PATCH that books a visit. No React here.
 import { api } from "@/lib/api-client";
+import type { SlotWindow, WorkOrderPriority, WorkOrderType } from "@/lib/schemas/work-orders";
 
-export const WORK_ORDER_TYPES = [
-  "extractor-fan",
-  "fan-upgrade",
-  "trickle-vents",
-  "door-undercut",
-  "piv-unit",
-  "mould-wash",
-  "mould-resistant-decoration",
-  "insulation",
-  "draught-proofing",
-  "heating",
-  "leak-repair",
-  "roof-gutter",
-  "damp-proofing",
-  "other",
-] as const;
-export type WorkOrderType = (typeof WORK_ORDER_TYPES)[number];
+export { SLOT_WINDOWS, WORK_ORDER_PRIORITIES, WORK_ORDER_STATUSES, WORK_ORDER_TYPES } from "@/lib/schemas/work-orders";
+export type { BookingResponse, SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "@/lib/schemas/work-orders";
 
 /** The types' short names, the same on every screen that names an order in a word or two. */
 export const workTypeNames: Record<WorkOrderType, string> = {
@@ -39,19 +24,6 @@ export const workTypeNames: Record<WorkOrderType, string> = {
   "damp-proofing": "Damp-proofing",
   other: "Other work",
 };
-
-export const WORK_ORDER_PRIORITIES = ["emergency", "urgent", "routine"] as const;
-export type WorkOrderPriority = (typeof WORK_ORDER_PRIORITIES)[number];
-
-/** unscheduled → scheduled (proposed to the tenant) → confirmed | change-requested → (scheduled again) → done; or cancelled. */
-export const WORK_ORDER_STATUSES = ["unscheduled", "scheduled", "change-requested", "confirmed", "done", "cancelled"] as const;
-export type WorkOrderStatus = (typeof WORK_ORDER_STATUSES)[number];
-
-/** am 8–12, pm 12–17, all-day 8–17, London time (ours; the usual morning/afternoon split, no source). */
-export const SLOT_WINDOWS = ["am", "pm", "all-day"] as const;
-export type SlotWindow = (typeof SLOT_WINDOWS)[number];
-
-export type BookingResponse = "confirmed" | "change-requested";
 
 /** Priorities in words, the same on every screen. */
 export const priorityLabels: Record<WorkOrderPriority, string> = {

@@ -131,6 +131,16 @@ describe("the stored triage figures", () => {
     expect(b.priority).toBeGreaterThan(0);
   });
 
+  it("are worked out by many readers at once without holding connections against each other", async () => {
+    // Twenty readers refreshing the same stale cases together, more than the connection pool holds:
+    // a refresh that kept a transaction open while reading on other connections used to stall here.
+    await t.ctx.dataSource.getRepository(Case).update({ organisationId: landlord.org.id }, { triageDueAt: new Date(Date.now() - 1000) });
+    const counts = await Promise.all(Array.from({ length: 20 }, () => t.ctx.services.triage.refreshStale(landlord.org.id, 50)));
+    expect(counts.every((n) => n >= 0)).toBe(true);
+    const stale = await t.ctx.dataSource.getRepository(Case).createQueryBuilder("c").where("c.organisation_id = :o AND c.triage_due_at <= NOW(3) - INTERVAL 1 SECOND", { o: landlord.org.id }).getCount();
+    expect(stale).toBe(0);
+  });
+
   it("lists related cases at the same home", async () => {
     const { cases } = (await officer.get(`/api/cases/${ids.A}/related`).expect(200)).body;
     expect(cases.map((c: { id: number }) => c.id)).toEqual([ids.B]);

@@ -66,6 +66,9 @@ const SORTS_ON_PROPERTY = new Set<QueueSort>(["address", "estate"]);
 
 /** The officers' queue: one landlord's cases filtered, sorted and paged on the stored triage figures. */
 export class QueueService {
+  /** Per landlord: the refresh of stale figures running now, and the one queued behind it. */
+  private readonly refreshes = new Map<number, { running: Promise<void>; next?: Promise<void> }>();
+
   constructor(
     private readonly dataSource: DataSource,
     private readonly triage: TriageService,
@@ -73,7 +76,7 @@ export class QueueService {
 
   async list(actor: Actor, query: QueueQuery, now = new Date()): Promise<{ rows: QueueRow[]; rooms: Map<number, { id: number; name: string }[]>; total: number }> {
     // Figures marked stale by a change (or by the clock) are worked out before anyone reads them.
-    await this.triage.refreshStale(actor.organisationId, 50);
+    await this.refreshStale(actor.organisationId);
 
     const base = this.dataSource.getRepository(Case).createQueryBuilder("c").where("c.organisation_id = :org", { org: actor.organisationId });
     const needsProperty = this.applyFilters(base, actor, query, now);
@@ -128,6 +131,31 @@ export class QueueService {
 
     const [rows, count] = await Promise.all([list.getRawMany<QueueRow>(), counter.getRawOne<{ n: string | number }>()]);
     return { rows, rooms: await this.roomsOf(rows.map((r) => r.id)), total: Number(count?.n ?? 0) };
+  }
+
+  /**
+   * One refresh of a landlord's stale figures at a time. Readers who arrive while one runs wait for
+   * a single further run (which also covers cases marked stale meanwhile), rather than each
+   * refreshing the same cases at once: twenty officers opening the queue together used to queue
+   * on the same row locks, each holding a pooled connection, until they timed out (bench:queue).
+   */
+  private refreshStale(organisationId: number): Promise<void> {
+    const current = this.refreshes.get(organisationId);
+    if (current) return (current.next ??= current.running.then(() => this.startRefresh(organisationId), () => this.startRefresh(organisationId)));
+    return this.startRefresh(organisationId);
+  }
+
+  private startRefresh(organisationId: number): Promise<void> {
+    const running = this.triage.refreshStale(organisationId, 50).then(() => undefined);
+    const entry: { running: Promise<void>; next?: Promise<void> } = { running };
+    this.refreshes.set(organisationId, entry);
+    // The queued run (if any) has replaced this entry by the time this runs; otherwise the landlord is idle.
+    void running
+      .catch(() => undefined)
+      .then(() => {
+        if (this.refreshes.get(organisationId) === entry && !entry.next) this.refreshes.delete(organisationId);
+      });
+    return running;
   }
 
   /** Adds the WHERE clauses; says whether any of them needs the home (`p`). */

@@ -37,9 +37,9 @@ export async function markTriageStale(m: EntityManager, where: { caseIds: number
  * How they stay true: every change to a case writes a CaseEvent, and writing one marks the case's
  * figures stale (`triage_due_at` = now) in the change's own transaction. Readers (the queue, the
  * case page) and a background sweep work stale cases out again. A figure that changes with the
- * clock alone (the deadline factor) sets `triage_due_at` to the moment it changes. A refresh holds
- * the case row's lock, so a change made meanwhile marks the case stale again after it and is not
- * lost; a process that dies halfway leaves the mark in place for the next reader.
+ * clock alone (the deadline factor) sets `triage_due_at` to the moment it changes. A refresh writes
+ * only if the case is unchanged since it read the facts, so a change made meanwhile is not lost; a
+ * process that dies halfway leaves the mark in place for the next reader.
  */
 export class TriageService {
   constructor(
@@ -50,15 +50,25 @@ export class TriageService {
     private readonly inspections: InspectionService,
   ) {}
 
-  /** Works one case's figures out now and stores them; returns the priority with its parts. */
+  /**
+   * Works one case's figures out now and stores them; returns the priority with its parts.
+   * The facts are read without holding anything (a refresh never keeps one pooled connection waiting
+   * on another); the write then takes the case row's lock and happens only if the case has not
+   * changed meanwhile (its stale mark and updated_at are as they were). A case changed meanwhile stays
+   * marked, and the next reader works it out again.
+   */
   async refresh(caseId: number, now = new Date()): Promise<TriagePriority | null> {
-    return this.dataSource.transaction(async (m) => {
-      const locked: unknown[] = await m.query("SELECT id FROM cases WHERE id = ? FOR UPDATE", [caseId]);
-      if (locked.length === 0) return null;
-      const c = await m.getRepository(Case).findOneOrFail({ where: { id: caseId }, relations: { rooms: true, property: { rooms: true } } });
-      const facts = await this.factsFor(m, c, now);
-      const priority = triagePriority(facts.input);
-      const changesInHours = hoursUntilDeadlinePartChanges(facts.input.hoursUntilDeadline);
+    const c = await this.dataSource.getRepository(Case).findOne({ where: { id: caseId }, relations: { rooms: true, property: { rooms: true } } });
+    if (!c) return null;
+    const seen = { due: c.triageDueAt?.getTime() ?? null, updated: c.updatedAt.getTime() };
+    const facts = await this.factsFor(this.dataSource.manager, c, now);
+    const priority = triagePriority(facts.input);
+    const changesInHours = hoursUntilDeadlinePartChanges(facts.input.hoursUntilDeadline);
+    await this.dataSource.transaction(async (m) => {
+      const [row] = (await m.query("SELECT triage_due_at, updated_at FROM cases WHERE id = ? FOR UPDATE", [caseId])) as { triage_due_at: Date | null; updated_at: Date }[];
+      if (!row) return;
+      const time = (d: Date | null) => (d === null ? null : new Date(d).getTime());
+      if (time(row.triage_due_at) !== seen.due || time(row.updated_at) !== seen.updated) return;
       await m.getRepository(Case).update(c.id, {
         riskState: facts.risk.state,
         mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
@@ -73,8 +83,8 @@ export class TriageService {
         // Keep updated_at for real changes to the case, not for its derived figures.
         updatedAt: () => "updated_at",
       } as unknown as Partial<Case>);
-      return priority;
     });
+    return priority;
   }
 
   /** Refreshes up to `limit` stale cases (of one landlord, or all); returns how many. */

@@ -1,35 +1,8 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from "typeorm";
 
-export const WORK_ORDER_TYPES = [
-  "extractor-fan",
-  "fan-upgrade",
-  "trickle-vents",
-  "door-undercut",
-  "piv-unit",
-  "mould-wash",
-  "mould-resistant-decoration",
-  "insulation",
-  "draught-proofing",
-  "heating",
-  "leak-repair",
-  "roof-gutter",
-  "damp-proofing",
-  "other",
-] as const;
-export type WorkOrderType = (typeof WORK_ORDER_TYPES)[number];
-
-export const WORK_ORDER_PRIORITIES = ["emergency", "urgent", "routine"] as const;
-export type WorkOrderPriority = (typeof WORK_ORDER_PRIORITIES)[number];
-
-/**
- * unscheduled → scheduled (an appointment proposed to the tenant) → confirmed by the tenant, or
- * change-requested (the tenant asked for another slot) → scheduled again → done. cancelled at any point before done.
- */
-export const WORK_ORDER_STATUSES = ["unscheduled", "scheduled", "confirmed", "change-requested", "done", "cancelled"] as const;
-export type WorkOrderStatus = (typeof WORK_ORDER_STATUSES)[number];
-
-export const SLOT_WINDOWS = ["am", "pm", "all-day"] as const;
-export type SlotWindow = (typeof SLOT_WINDOWS)[number];
+export { SLOT_WINDOWS, WORK_ORDER_PRIORITIES, WORK_ORDER_STATUSES, WORK_ORDER_TYPES } from "../../../src/lib/schemas/work-orders.js";
+export type { SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "../../../src/lib/schemas/work-orders.js";
+import type { SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "../../../src/lib/schemas/work-orders.js";
 
 /** One piece of work to fix a case: what, where, how soon, who, when, and what was done. */
 @Entity({ name: "work_orders" })
