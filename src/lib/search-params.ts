@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useRef } from "react";
-import { useSearchParams } from "react-router-dom";
+import { useNavigation, useSearchParams } from "react-router-dom";
 
 export type SearchPatch = Record<string, string | number | null | undefined>;
 
@@ -25,13 +25,14 @@ const noDefaults: SearchPatch = {};
  */
 export function usePatchSearchParams(defaults: SearchPatch = noDefaults) {
   const [searchParams, setSearchParams] = useSearchParams();
-  // A navigation waits for the route's loader before the URL changes, so a second patch made in the
-  // meantime would start from the old URL and drop the first. Patches build on the last one asked for
-  // until the URL has caught up.
+  const navigation = useNavigation();
+  // A navigation waits for the route's loader before the URL changes, so a patch made in the meantime
+  // would start from the old URL and drop the one before it. Patches build on the last one asked for
+  // until no navigation is in flight (the URL has then caught up, or the navigation went elsewhere).
   const pending = useRef<URLSearchParams | null>(null);
   useEffect(() => {
-    pending.current = null;
-  }, [searchParams]);
+    if (navigation.state === "idle") pending.current = null;
+  }, [navigation.state, searchParams]);
   return useCallback(
     (patch: SearchPatch, options: { replace?: boolean } = {}) => {
       setSearchParams(

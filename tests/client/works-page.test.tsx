@@ -304,10 +304,14 @@ describe("Works page", () => {
     const user = userEvent.setup();
     await user.selectOptions(screen.getByRole("combobox", { name: "Type of work" }), "Extractor fan");
     await waitFor(() => expect(search(router).get("type")).toBe("extractor-fan"));
+    // Each next step waits until the page shows the last one, as a person would.
+    await waitFor(() => expect(screen.getByRole("combobox", { name: "Type of work" })).toHaveValue("extractor-fan"));
     await user.selectOptions(screen.getByRole("combobox", { name: "Booked with" }), "Sam Okafor");
     await waitFor(() => expect(search(router).get("assignee")).toBe("4"));
+    await waitFor(() => expect(screen.getByRole("combobox", { name: "Booked with" })).toHaveValue("4"));
     await user.click(screen.getByRole("checkbox", { name: "Done" }));
     await waitFor(() => expect(search(router).get("status")).toBe("unscheduled,scheduled,change-requested,confirmed,done"));
+    await waitFor(() => expect(screen.getByRole("checkbox", { name: "Done" })).toBeChecked());
     await user.click(within(table).getByRole("button", { name: "Slot" }));
     await waitFor(() => expect(search(router).get("sort")).toBe("slot"));
 
