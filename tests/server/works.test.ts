@@ -88,6 +88,23 @@ describe("double-booking", () => {
     await lead.patch(`/api/work-orders/${other.id}`, { assigneeId: landlord.maintenance.id, slot: { date: first, window: "pm" } }).expect(200);
   });
 
+  it("cancelling a booked visit frees the slot and takes it out of both calendars", async () => {
+    const caseId = await investigatedCase();
+    const wo = (await officer.post(`/api/cases/${caseId}/work-orders`, { type: "mould-wash", description: "Fungicidal wash of the bedroom wall." }).expect(201)).body;
+    const date = futureDate(25);
+    await lead.patch(`/api/work-orders/${wo.id}`, { assigneeId: operative2Id, slot: { date, window: "all-day" } }).expect(200);
+    await lead.patch(`/api/work-orders/${wo.id}`, { cancel: { reason: "The tenant had the wall washed under the contents insurance." } }).expect(200);
+    const mail = await t.mail.lastTo(landlord.tenant.email);
+    expect(mail.subject).toMatch(/^Cancelled/);
+    const ics = /BEGIN:VCALENDAR[\s\S]*END:VCALENDAR/.exec(mail.raw)![0];
+    const calendar = new ICAL.Component(ICAL.parse(ics));
+    expect(calendar.getFirstPropertyValue("method")).toBe("CANCEL");
+    expect(new ICAL.Event(calendar.getFirstSubcomponent("vevent")!).uid).toBe(`work-order-${wo.id}@dewline`);
+    // The operative's day is free again.
+    const other = (await officer.post(`/api/cases/${caseId}/work-orders`, { type: "heating", description: "Bleed and balance the radiators." }).expect(201)).body;
+    await lead.patch(`/api/work-orders/${other.id}`, { assigneeId: operative2Id, slot: { date, window: "am" } }).expect(200);
+  });
+
   it("refuses a day in the past and someone who is not an operative", async () => {
     const caseId = await investigatedCase();
     const wo = (await officer.post(`/api/cases/${caseId}/work-orders`, { type: "heating", description: "Repair the radiator valve." }).expect(201)).body;

@@ -144,6 +144,13 @@ export const mailTemplates = {
       text: [`Hello ${d.name},`, "", `The tenant at ${d.address} cannot make ${d.slotWords} for ${d.workWords} and asks for another slot:`, `"${d.reason}"`, "", "Please book another slot:", d.link].join("\n"),
     };
   },
+  appointmentCancelled(d: { name: string; reference: string; workWords: string; slotWords: string; address: string; reason: string; link: string; ics: string }): RenderedMail {
+    return {
+      subject: `Cancelled: ${d.workWords}, ${d.slotWords} (${d.reference})`,
+      text: [`Hello ${d.name},`, "", `The visit for ${d.workWords} at ${d.address} on ${d.slotWords} is cancelled.`, `Reason: ${d.reason}`, d.link, "", "The attached calendar file removes it from your calendar."].join("\n"),
+      attachments: [{ filename: "appointment.ics", content: d.ics, contentType: "text/calendar; charset=utf-8; method=CANCEL" }],
+    };
+  },
   monitoringStarted(d: { name: string; reference: string; days: number; endsOn: string; link: string }): RenderedMail {
     return {
       subject: `Checking the repair worked: ${d.reference}`,

@@ -302,7 +302,9 @@ export class WorkOrderService {
     return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
   }
 
+  /** Cancels the order; a booked visit is taken out of the tenant's and the operative's calendars (METHOD:CANCEL). */
   async cancel(actor: Actor, id: number, reason: string): Promise<WorkOrder> {
+    const deliveries: Deliveries = [];
     await this.dataSource.transaction(async (m) => {
       const wo = await this.getForActor(actor, id, m, true);
       if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is already ${wo.status}.`);
@@ -313,7 +315,18 @@ export class WorkOrderService {
       }
       await m.getRepository(WorkOrder).update(wo.id, { status: "cancelled" });
       await this.cases.recordEvent(m, { caseId: wo.caseId, actorId: actor.id, type: "work-order-cancelled", after: { workOrderId: wo.id, reason } });
+      if (!booking) return;
+      const c = await this.cases.getForActor(actor, wo.caseId, m);
+      const property = c.property!;
+      const ics = appointmentIcs({ workOrderId: wo.id, sequence: wo.scheduleCount, date: booking.slotDate, window: booking.slotWindow, title: `${WORK_WORDS[wo.type]} (${c.reference})`, description: wo.description, location: addressOf(property), organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""), cancelled: true });
+      const data = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords: describeSlot(booking.slotDate, booking.slotWindow), address: addressOf(property), reason, link: `${this.config.appUrl}/cases/${c.id}`, ics };
+      const people: { email: string; name: string }[] = [];
+      if (c.tenantUserId !== null) people.push(await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId }));
+      if (booking.assigneeUserId) people.push(await m.getRepository(User).findOneByOrFail({ id: booking.assigneeUserId }));
+      else if (booking.contractorId) people.push(await m.getRepository(Contractor).findOneByOrFail({ id: booking.contractorId }));
+      for (const p of people) deliveries.push(await this.queueMail(m, c, { to: p.email, template: "appointmentCancelled", data: { ...data, name: p.name } }));
     });
+    for (const d of deliveries) await d();
     return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
   }
 
