@@ -17,6 +17,7 @@ import {
   type Updater,
 } from "@tanstack/react-table";
 import { cn } from "@/lib/cn";
+import { Alert } from "./alert";
 import { Button } from "./button";
 import { EmptyState } from "./empty-state";
 import { Spinner } from "./spinner";
@@ -126,6 +127,41 @@ interface DataTableProps<Row extends RowData> {
   className?: string;
   /** Content shown under a row across every column (an expanded row); null or undefined for none. */
   renderDetail?: (row: Row) => ReactNode;
+}
+
+export interface SortableColumn {
+  getIsSorted: () => false | "asc" | "desc";
+  getToggleSortingHandler: () => undefined | ((event: unknown) => void);
+}
+
+/** A column heading that sorts a server-side table; the <th> carries aria-sort (DataTable). */
+export function SortButton({ column, children }: { column: SortableColumn; children: ReactNode }) {
+  const sorted = column.getIsSorted();
+  return (
+    <button
+      type="button"
+      onClick={column.getToggleSortingHandler()}
+      className="-mx-1 inline-flex items-center gap-1 rounded-sm px-1 py-0.5 font-bold whitespace-nowrap hover:bg-dew-100"
+    >
+      {children}
+      <svg viewBox="0 0 12 16" className={cn("size-3.5 shrink-0", sorted ? "text-ink" : "text-ink-soft")} aria-hidden="true">
+        <path d="M6 2 10 6.5H2z" fill={sorted === "asc" ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.2" strokeLinejoin="round" />
+        <path d="M6 14 2 9.5h8z" fill={sorted === "desc" ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.2" strokeLinejoin="round" />
+      </svg>
+    </button>
+  );
+}
+
+/** The table's failed-to-load message with the server's words and a retry. */
+export function TableLoadError({ title, message, onRetry }: { title: string; message: string; onRetry: () => void }) {
+  return (
+    <Alert tone="danger" title={title}>
+      <p>{message}</p>
+      <Button size="sm" variant="secondary" className="mt-2" onClick={onRetry}>
+        Try again
+      </Button>
+    </Alert>
+  );
 }
 
 export function DataTable<Row extends RowData>({

@@ -1,8 +1,7 @@
 import { useQueryClient, type QueryClient } from "@tanstack/react-query";
-import { useMemo, useState } from "react";
+import { useMemo } from "react";
 import { Link, useParams, type LoaderFunctionArgs } from "react-router-dom";
 import { Alert } from "@/components/ui/alert";
-import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { LoadingState } from "@/components/ui/spinner";
@@ -42,7 +41,7 @@ import { RelatedCases } from "@/features/case-workspace/components/related-cases
 import { SummarySection } from "@/features/case-workspace/components/summary-section";
 import { TriagePanel } from "@/features/case-workspace/components/triage-panel";
 import { useUploadPhotos } from "@/features/report/api/upload-photos";
-import { PhotoPicker } from "@/features/report/components/photo-picker";
+import { PhotoUploadForm } from "@/features/report/components/add-photos";
 import { ReportSummary } from "@/features/report/components/report-summary";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { roleLabels, STAFF_ROLES, type Role } from "@/lib/roles";
@@ -250,42 +249,18 @@ function PhotosPanel({ id }: { id: number }) {
 /** Inspection photos join the case's photos through the same upload the tenant uses. */
 function InspectionPhotos({ caseId }: { caseId: number }) {
   const queryClient = useQueryClient();
-  const [files, setFiles] = useState<File[]>([]);
-  const [added, setAdded] = useState<number | null>(null);
   const upload = useUploadPhotos(caseId);
   return (
-    <div className="flex flex-col gap-3">
-      <PhotoPicker
-        value={files}
-        onChange={(next) => {
-          setFiles(next);
-          setAdded(null);
-          upload.reset();
-        }}
-        serverError={upload.isError ? errorMessage(upload.error) : null}
-        disabled={upload.isPending}
-      />
-      {added !== null ? <Alert tone="success" title={added === 1 ? "1 photo added to the case" : `${added} photos added to the case`} /> : null}
-      <div>
-        <Button
-          variant="secondary"
-          disabled={files.length === 0}
-          busy={upload.isPending}
-          onClick={() =>
-            upload.mutate(files, {
-              onSuccess: (result) => {
-                setFiles([]);
-                setAdded(result.photos.length);
-                void queryClient.invalidateQueries({ queryKey: caseKeys.photos(caseId) });
-                void queryClient.invalidateQueries({ queryKey: caseKeys.events(caseId) });
-              },
-            })
-          }
-        >
-          {files.length > 1 ? `Send ${files.length} photos` : "Send photo"}
-        </Button>
-      </div>
-    </div>
+    <PhotoUploadForm
+      upload={upload}
+      buttonVariant="secondary"
+      sendLabel={(n) => (n > 1 ? `Send ${n} photos` : "Send photo")}
+      addedTitle={(n) => (n === 1 ? "1 photo added to the case" : `${n} photos added to the case`)}
+      onAdded={() => {
+        void queryClient.invalidateQueries({ queryKey: caseKeys.photos(caseId) });
+        void queryClient.invalidateQueries({ queryKey: caseKeys.events(caseId) });
+      }}
+    />
   );
 }
 
@@ -316,41 +291,15 @@ function WorksPanel({ c, role }: { c: CaseDto; role: Role }) {
 
 /** After-photos of a work order, through the same picker as the case's photos. */
 function WorkOrderPhotos({ caseId, workOrderId }: { caseId: number; workOrderId: number }) {
-  const [files, setFiles] = useState<File[]>([]);
-  const [added, setAdded] = useState<number | null>(null);
   const upload = useUploadWorkOrderPhotos(caseId, workOrderId);
   return (
-    <div className="flex flex-col gap-3">
-      <PhotoPicker
-        value={files}
-        onChange={(next) => {
-          setFiles(next);
-          setAdded(null);
-          upload.reset();
-        }}
-        serverError={upload.isError ? errorMessage(upload.error) : null}
-        disabled={upload.isPending}
-        hint="Photos of the finished work. JPEG, PNG, WebP or AVIF, up to 15 MB each."
-      />
-      {added !== null ? <Alert tone="success" title={added === 1 ? "1 after-photo added" : `${added} after-photos added`} /> : null}
-      <div>
-        <Button
-          variant="secondary"
-          disabled={files.length === 0}
-          busy={upload.isPending}
-          onClick={() =>
-            upload.mutate(files, {
-              onSuccess: (result) => {
-                setFiles([]);
-                setAdded(result.photos.length);
-              },
-            })
-          }
-        >
-          {files.length > 1 ? `Send ${files.length} after-photos` : "Send after-photo"}
-        </Button>
-      </div>
-    </div>
+    <PhotoUploadForm
+      upload={upload}
+      buttonVariant="secondary"
+      hint="Photos of the finished work. JPEG, PNG, WebP or AVIF, up to 15 MB each."
+      sendLabel={(n) => (n > 1 ? `Send ${n} after-photos` : "Send after-photo")}
+      addedTitle={(n) => (n === 1 ? "1 after-photo added" : `${n} after-photos added`)}
+    />
   );
 }
 

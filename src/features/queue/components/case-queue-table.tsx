@@ -1,8 +1,7 @@
 import { useMemo, useState, type ReactNode } from "react";
 import type { ColumnVisibilityState, RowSelectionState, SortingState } from "@tanstack/react-table";
-import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
-import { DataTable, useServerTable } from "@/components/ui/data-table";
+import { DataTable, TableLoadError, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { errorMessage } from "@/lib/api-client";
 import { useBulkUpdateCases } from "../api/bulk-update-cases";
@@ -147,16 +146,7 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
         noun={{ one: "case", many: "cases" }}
         loading={queue.isPending}
         fetching={queue.isFetching && !queue.isPending}
-        error={
-          queue.isError ? (
-            <Alert tone="danger" title="We could not load the case queue">
-              <p>{errorMessage(queue.error)}</p>
-              <Button size="sm" variant="secondary" className="mt-2" onClick={() => void queue.refetch()}>
-                Try again
-              </Button>
-            </Alert>
-          ) : undefined
-        }
+        error={queue.isError ? <TableLoadError title="We could not load the case queue" message={errorMessage(queue.error)} onRetry={() => void queue.refetch()} /> : undefined}
         empty={empty}
       />
 

@@ -1,24 +1,37 @@
-import { useState } from "react";
+import { useState, type ReactNode } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { errorMessage } from "@/lib/api-client";
 import { useUploadPhotos } from "../api/upload-photos";
 import { PhotoPicker } from "./photo-picker";
 
-interface AddPhotosProps {
-  caseId: number;
-  /** After photos were added: the page refreshes what it shows. */
+/** What PhotoUploadForm needs of an upload mutation (TanStack Query's useMutation result fits). */
+export interface PhotoUploadMutation {
+  mutate(files: File[], options: { onSuccess: (result: { photos: unknown[] }) => void }): void;
+  reset(): void;
+  isPending: boolean;
+  isError: boolean;
+  error: unknown;
+}
+
+interface PhotoUploadFormProps {
+  upload: PhotoUploadMutation;
+  /** The button's words for one or several photos. */
+  sendLabel: (count: number) => string;
+  /** The success notice's title, and an optional line under it. */
+  addedTitle: (count: number) => string;
+  addedText?: ReactNode;
+  hint?: string;
+  buttonVariant?: "primary" | "secondary";
   onAdded?: (count: number) => void;
 }
 
-/** More photos for a report that has been sent: the same picker as the report form. */
-export function AddPhotos({ caseId, onAdded }: AddPhotosProps) {
+/** Choose photos with the report form's picker and send them with the given upload: one form for every place that adds photos. */
+export function PhotoUploadForm({ upload, sendLabel, addedTitle, addedText, hint, buttonVariant, onAdded }: PhotoUploadFormProps) {
   const [files, setFiles] = useState<File[]>([]);
   const [added, setAdded] = useState<number | null>(null);
-  const upload = useUploadPhotos(caseId);
-
   return (
-    <div className="flex flex-col gap-4">
+    <div className="flex flex-col gap-3">
       <PhotoPicker
         value={files}
         onChange={(next) => {
@@ -28,14 +41,12 @@ export function AddPhotos({ caseId, onAdded }: AddPhotosProps) {
         }}
         serverError={upload.isError ? errorMessage(upload.error) : null}
         disabled={upload.isPending}
+        hint={hint}
       />
-      {added !== null ? (
-        <Alert tone="success" title={added === 1 ? "1 photo added" : `${added} photos added`}>
-          Thank you. Your landlord can see them now.
-        </Alert>
-      ) : null}
+      {added !== null ? <Alert tone="success" title={addedTitle(added)}>{addedText}</Alert> : null}
       <div>
         <Button
+          variant={buttonVariant}
           disabled={files.length === 0}
           busy={upload.isPending}
           onClick={() =>
@@ -48,9 +59,29 @@ export function AddPhotos({ caseId, onAdded }: AddPhotosProps) {
             })
           }
         >
-          {files.length > 1 ? `Send ${files.length} photos` : "Send photo"}
+          {sendLabel(files.length)}
         </Button>
       </div>
     </div>
+  );
+}
+
+interface AddPhotosProps {
+  caseId: number;
+  /** After photos were added: the page refreshes what it shows. */
+  onAdded?: (count: number) => void;
+}
+
+/** More photos for a report that has been sent: the same picker as the report form. */
+export function AddPhotos({ caseId, onAdded }: AddPhotosProps) {
+  const upload = useUploadPhotos(caseId);
+  return (
+    <PhotoUploadForm
+      upload={upload}
+      sendLabel={(n) => (n > 1 ? `Send ${n} photos` : "Send photo")}
+      addedTitle={(n) => (n === 1 ? "1 photo added" : `${n} photos added`)}
+      addedText="Thank you. Your landlord can see them now."
+      onAdded={onAdded}
+    />
   );
 }

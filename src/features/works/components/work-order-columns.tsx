@@ -1,6 +1,6 @@
 import { createContext, useContext, type ReactNode } from "react";
 import { Button } from "@/components/ui/button";
-import { dataTableColumnHelper } from "@/components/ui/data-table";
+import { dataTableColumnHelper, SortButton, type SortableColumn } from "@/components/ui/data-table";
 import { TextLink } from "@/components/ui/text-link";
 import { formatDateTime } from "@/lib/dates";
 import { cn } from "@/lib/cn";
@@ -20,28 +20,6 @@ export const SORT_LABELS: Record<OrderSort, string> = {
   created: "Ordered",
 };
 
-interface SortableColumn {
-  getIsSorted: () => false | "asc" | "desc";
-  getToggleSortingHandler: () => undefined | ((event: unknown) => void);
-}
-
-/** A column heading that sorts the orders on the server; the <th> carries aria-sort (DataTable). */
-function SortButton({ column, children }: { column: SortableColumn; children: ReactNode }) {
-  const sorted = column.getIsSorted();
-  return (
-    <button
-      type="button"
-      onClick={column.getToggleSortingHandler()}
-      className="-mx-1 inline-flex items-center gap-1 rounded-sm px-1 py-0.5 font-bold whitespace-nowrap hover:bg-dew-100"
-    >
-      {children}
-      <svg viewBox="0 0 12 16" className={cn("size-3.5 shrink-0", sorted ? "text-ink" : "text-ink-soft")} aria-hidden="true">
-        <path d="M6 2 10 6.5H2z" fill={sorted === "asc" ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.2" strokeLinejoin="round" />
-        <path d="M6 14 2 9.5h8z" fill={sorted === "desc" ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.2" strokeLinejoin="round" />
-      </svg>
-    </button>
-  );
-}
 
 const Missing = ({ children }: { children: ReactNode }) => <span className="text-ink-soft">{children}</span>;
 

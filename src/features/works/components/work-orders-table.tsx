@@ -2,7 +2,7 @@ import { useCallback, useMemo, useState, type ReactNode } from "react";
 import type { SortingState } from "@tanstack/react-table";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
-import { DataTable, useServerTable } from "@/components/ui/data-table";
+import { DataTable, TableLoadError, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { FanGuidance } from "@/components/works/fan-guidance";
 import { ScheduleDialog } from "@/components/works/schedule-dialog";
@@ -133,16 +133,7 @@ export function WorkOrdersTable() {
           noun={{ one: "order", many: "orders" }}
           loading={orders.isPending}
           fetching={orders.isFetching && !orders.isPending}
-          error={
-            orders.isError ? (
-              <Alert tone="danger" title="We could not load the work orders">
-                <p>{errorMessage(orders.error)}</p>
-                <Button size="sm" variant="secondary" className="mt-2" onClick={() => void orders.refetch()}>
-                  Try again
-                </Button>
-              </Alert>
-            ) : undefined
-          }
+          error={orders.isError ? <TableLoadError title="We could not load the work orders" message={errorMessage(orders.error)} onRetry={() => void orders.refetch()} /> : undefined}
           empty={empty}
           renderDetail={(order) => (expanded.has(order.id) ? <OrderDetails order={order} /> : null)}
         />
