@@ -3,6 +3,7 @@ import userEvent from "@testing-library/user-event";
 import { beforeEach, describe, expect, it } from "vitest";
 import { clearCsrfToken } from "@/lib/api-client";
 import { apiError, mockApi, users, type MockReply, type RecordedCall } from "./support/api-mock";
+import { workspaceCase } from "./support/case-fixtures";
 import { renderApp } from "./support/render-app";
 
 const homeRooms = [
@@ -11,28 +12,7 @@ const homeRooms = [
   { id: 3, name: "Bathroom", kind: "bathroom" },
 ];
 
-const caseOf = (status: string) => ({
-  id: 42,
-  reference: "DW-2026-00042",
-  status,
-  assigneeId: 2,
-  hazardClass: "significant",
-  hazardClassReason: "Mould in a child's bedroom.",
-  tenantUserId: 11,
-  channel: "tenant-online",
-  awareAt: "2026-01-10T08:00:00.000Z",
-  createdAt: "2026-01-10T08:00:00.000Z",
-  description: "Black mould in the bedroom corner",
-  locations: ["corner"],
-  observations: ["mould-spots"],
-  since: "months",
-  area: "a4",
-  vulnerability: ["children-under-15"],
-  equipment: { heatingUsable: "yes" },
-  property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX3 1AA", estate: "Millbeck Terraces" },
-  rooms: [{ id: 2, name: "Bedroom 1", kind: "bedroom" }],
-  homeRooms,
-});
+const caseOf = (status: string) => workspaceCase({ status, homeRooms });
 
 const staff = [
   { id: 2, name: "Priya Venn", role: "officer" },
