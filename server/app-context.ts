@@ -73,7 +73,7 @@ export function createServices(config: Config, dataSource: DataSource, mailer: M
   const triage = new TriageService(dataSource, cases, evaluation, policy, inspections);
   const queue = new QueueService(dataSource, triage);
   const digest = new DigestService(dataSource, config, mail, logger);
-  const works = new WorkOrderService(dataSource, config, cases, mail, policy, inspections);
+  const works = new WorkOrderService(dataSource, config, cases, policy, inspections);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger);
   return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, queue, readings, tenancies, triage, users, digest, works, verification };
 }

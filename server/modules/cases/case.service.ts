@@ -30,6 +30,9 @@ const VULNERABILITY_WORDS: Record<string, string> = {
   disability: "someone with a disability",
 };
 
+/** "The household includes children under 15, someone over 65." for officers' and operatives' eyes. */
+export const householdIncludes = (vulnerability: readonly string[]) => `The household includes ${vulnerability.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`;
+
 /** Case lifecycle start, access and history. Every change is written with its CaseEvent in one transaction. */
 export class CaseService {
   constructor(
@@ -146,7 +149,7 @@ export class CaseService {
         );
       }
       if (saved.vulnerableHousehold) {
-        const reasons = [`The household includes ${vulnerability!.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`];
+        const reasons = [householdIncludes(vulnerability!)];
         deliveries.push(...(await this.alertOfficers(m, saved, property, reasons)));
       }
       return { saved, deliveries };
@@ -187,8 +190,8 @@ export class CaseService {
     for (const d of deliveries) await d();
   }
 
-  /** Queues an e-mail about the case and records it on the case's timeline. */
-  private async queueMail<T extends MailTemplateName>(m: EntityManager, c: Case, mail: Pick<SendMail<T>, "to" | "template" | "data">) {
+  /** Queues an e-mail about the case in the caller's transaction and records it on the timeline; returns the sender to run after commit. */
+  async queueMail<T extends MailTemplateName>(m: EntityManager, c: Case, mail: Pick<SendMail<T>, "to" | "template" | "data">) {
     const { deliver, outboxId } = await this.mail.enqueueWithId(m, { ...mail, organisationId: c.organisationId, related: { type: "case", id: c.id } });
     await this.recordEvent(m, { caseId: c.id, actorId: null, type: "email-queued", after: { outboxId, to: mail.to, template: mail.template } });
     return deliver;

@@ -93,13 +93,13 @@ export class VerificationService {
           const out: (() => Promise<unknown>)[] = [];
           if (fresh.tenantUserId) {
             const tenant = await m.getRepository(User).findOneByOrFail({ id: fresh.tenantUserId });
-            out.push(await this.works.queueMail(m, fresh, { to: tenant.email, template: "monitoringEnded", data: { name: tenant.name, reference: fresh.reference!, link, forLead: false, readingsAfter } }));
+            out.push(await this.cases.queueMail(m, fresh, { to: tenant.email, template: "monitoringEnded", data: { name: tenant.name, reference: fresh.reference!, link, forLead: false, readingsAfter } }));
           }
           // The leads: whoever completed or booked the works.
           const orders = await m.getRepository(WorkOrder).findBy({ caseId: c.id });
           const leadIds = [...new Set(orders.flatMap((o) => [o.completedById, o.createdById]).filter((v): v is number => v !== null))];
           for (const lead of leadIds.length ? await m.getRepository(User).createQueryBuilder("u").where("u.id IN (:...ids) AND u.status = 'active' AND u.role IN ('maintenance', 'admin')", { ids: leadIds }).getMany() : []) {
-            out.push(await this.works.queueMail(m, fresh, { to: lead.email, template: "monitoringEnded", data: { name: lead.name, reference: fresh.reference!, link, forLead: true, readingsAfter } }));
+            out.push(await this.cases.queueMail(m, fresh, { to: lead.email, template: "monitoringEnded", data: { name: lead.name, reference: fresh.reference!, link, forLead: true, readingsAfter } }));
           }
           return out;
         });

@@ -6,9 +6,8 @@ import type { Config } from "../../config/env.js";
 import { AppError, ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
 import { Case } from "../cases/case.entity.js";
-import { addressOf, type CaseService } from "../cases/case.service.js";
+import { addressOf, householdIncludes, type CaseService } from "../cases/case.service.js";
 import type { InspectionService } from "../inspections/inspection.service.js";
-import type { MailService } from "../mail/mail.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
 import { Property } from "../properties/property.entity.js";
 import { Tenancy } from "../tenancies/tenancy.entity.js";
@@ -37,14 +36,6 @@ export const WORK_WORDS: Record<WorkOrder["type"], string> = {
   other: "repair work",
 };
 
-const VULNERABILITY_WORDS: Record<string, string> = {
-  "children-under-15": "children under 15",
-  "over-65": "someone over 65",
-  "breathing-or-immune": "someone with a breathing or immune condition",
-  pregnancy: "a pregnancy",
-  disability: "someone with a disability",
-};
-
 /** The statuses a case may take a new work order in. */
 const ORDERABLE: readonly Case["status"][] = ["investigated", "works-planned"];
 const OPEN_ORDER: readonly WorkOrder["status"][] = ["unscheduled", "scheduled", "confirmed", "change-requested"];
@@ -66,7 +57,6 @@ export class WorkOrderService {
     private readonly dataSource: DataSource,
     private readonly config: Config,
     private readonly cases: CaseService,
-    private readonly mail: MailService,
     private readonly policy: PolicyService,
     private readonly inspections: InspectionService,
   ) {}
@@ -219,12 +209,12 @@ export class WorkOrderService {
       const common = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords: describeSlot(input.slot.date, input.slot.window), address: addressOf(property), ics };
       if (c.tenantUserId !== null) {
         const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
-        deliveries.push(await this.queueMail(m, c, { to: tenant.email, template: "appointmentProposed", data: { ...common, name: tenant.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: false, accessNotes: null } }));
+        deliveries.push(await this.cases.queueMail(m, c, { to: tenant.email, template: "appointmentProposed", data: { ...common, name: tenant.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: false, accessNotes: null } }));
       }
       const worker = operative ?? contractor;
       if (worker) {
         deliveries.push(
-          await this.queueMail(m, c, { to: worker.email, template: "appointmentProposed", data: { ...common, name: worker.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: true, accessNotes: await this.accessNotes(m, c) } }),
+          await this.cases.queueMail(m, c, { to: worker.email, template: "appointmentProposed", data: { ...common, name: worker.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: true, accessNotes: await this.accessNotes(m, c) } }),
         );
       }
     });
@@ -261,15 +251,15 @@ export class WorkOrderService {
       if (confirmed) {
         const ics = appointmentIcs({ workOrderId: wo.id, sequence: Math.max(0, wo.scheduleCount - 1), date: wo.slotDate, window: wo.slotWindow, title: `${WORK_WORDS[wo.type]} (${c.reference})`, description: wo.description, location: addressOf(property), organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, "") });
         const data = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords, address: addressOf(property), link, ics };
-        deliveries.push(await this.queueMail(m, c, { to: actor.email, template: "appointmentConfirmed", data: { ...data, name: actor.name } }));
-        if (worker) deliveries.push(await this.queueMail(m, c, { to: worker.email, template: "appointmentConfirmed", data: { ...data, name: worker.name } }));
+        deliveries.push(await this.cases.queueMail(m, c, { to: actor.email, template: "appointmentConfirmed", data: { ...data, name: actor.name } }));
+        if (worker) deliveries.push(await this.cases.queueMail(m, c, { to: worker.email, template: "appointmentConfirmed", data: { ...data, name: worker.name } }));
       } else {
         const lead = await m.getRepository(User).findOneBy({ id: booking.createdById });
         const to = new Map<string, string>();
         if (worker) to.set(worker.email, worker.name);
         if (lead) to.set(lead.email, lead.name);
         for (const [email, name] of to) {
-          deliveries.push(await this.queueMail(m, c, { to: email, template: "appointmentChangeRequested", data: { name, reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords, address: addressOf(property), reason: input.reason!, link } }));
+          deliveries.push(await this.cases.queueMail(m, c, { to: email, template: "appointmentChangeRequested", data: { name, reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords, address: addressOf(property), reason: input.reason!, link } }));
         }
       }
     });
@@ -324,7 +314,7 @@ export class WorkOrderService {
       if (c.tenantUserId !== null) people.push(await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId }));
       if (booking.assigneeUserId) people.push(await m.getRepository(User).findOneByOrFail({ id: booking.assigneeUserId }));
       else if (booking.contractorId) people.push(await m.getRepository(Contractor).findOneByOrFail({ id: booking.contractorId }));
-      for (const p of people) deliveries.push(await this.queueMail(m, c, { to: p.email, template: "appointmentCancelled", data: { ...data, name: p.name } }));
+      for (const p of people) deliveries.push(await this.cases.queueMail(m, c, { to: p.email, template: "appointmentCancelled", data: { ...data, name: p.name } }));
     });
     for (const d of deliveries) await d();
     return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
@@ -343,7 +333,7 @@ export class WorkOrderService {
     if (c.tenantUserId === null) return [];
     const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
     const endsOn = endsAt.toLocaleDateString("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "Europe/London" });
-    return [await this.queueMail(m, c, { to: tenant.email, template: "monitoringStarted", data: { name: tenant.name, reference: c.reference!, days: monitoringDays, endsOn, link: `${this.config.appUrl}/cases/${c.id}` } })];
+    return [await this.cases.queueMail(m, c, { to: tenant.email, template: "monitoringStarted", data: { name: tenant.name, reference: c.reference!, days: monitoringDays, endsOn, link: `${this.config.appUrl}/cases/${c.id}` } })];
   }
 
   /** Moves the case along the workflow when it can and is not there yet (c.status is kept current). */
@@ -361,7 +351,7 @@ export class WorkOrderService {
   /** Household notes and vulnerability in words, for the operative going to the home. */
   async accessNotes(m: EntityManager, c: Case): Promise<string | null> {
     const parts: string[] = [];
-    if (c.vulnerability?.length) parts.push(`The household includes ${c.vulnerability.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`);
+    if (c.vulnerability?.length) parts.push(householdIncludes(c.vulnerability));
     const tenancy = c.tenantUserId ? await m.getRepository(Tenancy).findOne({ where: { propertyId: c.propertyId, tenantUserId: c.tenantUserId }, order: { startDate: "DESC" } }) : null;
     if (tenancy?.householdNotes) parts.push(tenancy.householdNotes);
     return parts.length ? parts.join(" ") : null;
@@ -395,13 +385,6 @@ export class WorkOrderService {
       bookings,
       accessNotes,
     };
-  }
-
-  /** Queues an e-mail about the case in the caller's transaction and puts it on the timeline. */
-  async queueMail<T extends Parameters<MailService["enqueueWithId"]>[1]["template"]>(m: EntityManager, c: Case, mail: { to: string; template: T; data: Parameters<MailService["enqueueWithId"]>[1]["data"] & object }) {
-    const { deliver, outboxId } = await this.mail.enqueueWithId(m, { ...mail, organisationId: c.organisationId, related: { type: "case", id: c.id } } as never);
-    await this.cases.recordEvent(m, { caseId: c.id, actorId: null, type: "email-queued", after: { outboxId, to: mail.to, template: mail.template } });
-    return deliver;
   }
 
   async contractors(actor: Actor): Promise<Contractor[]> {
