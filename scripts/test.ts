@@ -10,6 +10,8 @@ const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
 await ensureSystemPackages([MARIADB, CHROMIUM], step);
 step("Type-checking (tsc -b)…");
 await runStep(process.execPath, ["node_modules/typescript/bin/tsc", "-b"], { cwd: projectRoot });
+step("Linting (ESLint, Prettier, server module circles)…");
+await runStep("npm", ["run", "--silent", "lint"], { cwd: projectRoot });
 step("Building the client for the browser tests…");
 await runStep(process.execPath, ["node_modules/vite/bin/vite.js", "build", "--logLevel", "warn"], { cwd: projectRoot });
 step("Running the tests…");
