@@ -98,6 +98,9 @@ export default tseslint.config(
     },
     rules: {
       "import-x/no-cycle": ["error", { ignoreExternal: true }],
+      // TypeScript checks default and namespace imports itself, with esModuleInterop (typescript-eslint's advice).
+      "import-x/default": "off",
+      "import-x/namespace": "off",
       "import-x/no-named-as-default-member": "off",
       "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_", caughtErrorsIgnorePattern: "^_" }],
       "@typescript-eslint/consistent-type-imports": ["error", { fixStyle: "inline-type-imports" }],
@@ -109,6 +112,14 @@ export default tseslint.config(
     languageOptions: { globals: { ...globals.browser } },
   },
   { files: ["src/**/*.tsx"], ...jsxA11y.flatConfigs.recommended },
+  {
+    files: ["src/**/*.tsx"],
+    rules: {
+      // A scrolling region must be reachable by keyboard (axe: scrollable-region-focusable), so a
+      // labelled region may take tabIndex={0} as a tab panel may.
+      "jsx-a11y/no-noninteractive-tabindex": ["error", { tags: [], roles: ["tabpanel", "region"], allowExpressionValues: true }],
+    },
+  },
   {
     files: ["src/**/*.{ts,tsx}"],
     rules: { "import-x/no-restricted-paths": ["error", { zones: clientZones }] },

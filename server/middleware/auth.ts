@@ -6,7 +6,8 @@ import { STAFF_ROLES, type Role } from "../modules/users/user.entity.js";
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
-    // passport's req.user is our Actor.
+    // passport's req.user is our Actor (declaration merging needs the empty body).
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
     interface User extends Actor {}
   }
 }

@@ -1,5 +1,5 @@
 // The public calculator in Chromium, signed out: results follow the typing, and axe finds nothing serious.
-import AxeBuilder from "@axe-core/playwright";
+import { AxeBuilder } from "@axe-core/playwright";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, type Browser } from "../support/browser.js";
 import { serveDemoApp, type ServedApp } from "../support/served-app.js";

@@ -1,7 +1,7 @@
 // The officer's journey in Chromium: the queue filtered to overdue cases with a vulnerable
 // household, the top case opened, an inspection and an HHSRS assessment recorded, the written
 // summary sent, and the tenant reading it on their own case page. An axe-core scan of the queue.
-import AxeBuilder from "@axe-core/playwright";
+import { AxeBuilder } from "@axe-core/playwright";
 import type { Page } from "playwright-core";
 import { afterAll, beforeAll, expect, it } from "vitest";
 import { Case } from "../../server/modules/cases/case.entity.js";

@@ -3,7 +3,7 @@
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import AxeBuilder from "@axe-core/playwright";
+import { AxeBuilder } from "@axe-core/playwright";
 import { afterAll, beforeAll, expect, it } from "vitest";
 import { launchBrowser, type Browser } from "../support/browser.js";
 import { jpegWithGps } from "../support/images.js";

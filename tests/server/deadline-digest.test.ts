@@ -16,7 +16,7 @@ import { startDigestScheduler } from "../../server/modules/digest/digest.schedul
 import { OutboxEmail } from "../../server/modules/mail/outbox-email.entity.js";
 import type { Property } from "../../server/modules/properties/property.entity.js";
 import type { User } from "../../server/modules/users/user.entity.js";
-import { makeLandlord, makeProperty, makeUser } from "../support/factories.js";
+import { makeLandlord, makeUser } from "../support/factories.js";
 import { createTestApp, type TestApp } from "../support/test-app.js";
 
 let t: TestApp;

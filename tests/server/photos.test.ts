@@ -1,5 +1,5 @@
 // The photo pipeline through the API: decoding, metadata stripped, re-encoded copies, dedupe and access.
-import { existsSync, readdirSync } from "node:fs";
+import { existsSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
 import path from "node:path";
 import sharp from "sharp";
 import request from "supertest";
@@ -8,7 +8,6 @@ import { Photo } from "../../server/modules/photos/photo.entity.js";
 import { heicHeader, jpegWithGps, png, sidewaysJpeg } from "../support/images.js";
 import { makeLandlord, makeProperty, makeTenant, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
-import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 
 const uploads = mkdtempSync(path.join(tmpdir(), "dewline-test-uploads-"));

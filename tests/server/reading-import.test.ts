@@ -8,8 +8,8 @@ import { AppError } from "../../server/lib/errors.js";
 import { Case } from "../../server/modules/cases/case.entity.js";
 import { Room } from "../../server/modules/properties/room.entity.js";
 import { ReadingImport } from "../../server/modules/readings/reading-import.entity.js";
-import { ReadingImportService, BATCH_ROWS, HEAD_BYTES } from "../../server/modules/readings/reading-import.service.js";
-import { ReadingService } from "../../server/modules/readings/reading.service.js";
+import { type ReadingImportService, BATCH_ROWS, HEAD_BYTES } from "../../server/modules/readings/reading-import.service.js";
+import { type ReadingService } from "../../server/modules/readings/reading.service.js";
 import { makeLandlord } from "../support/factories.js";
 import { createTestApp, type TestApp } from "../support/test-app.js";
 

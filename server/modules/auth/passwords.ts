@@ -1,4 +1,4 @@
-import argon2 from "argon2";
+import * as argon2 from "argon2";
 
 // argon2id with the library's defaults (64 MiB, 3 passes): deliberately slow.
 export const hashPassword = (password: string) => argon2.hash(password, { type: argon2.argon2id });

@@ -164,7 +164,7 @@ class JsonBatch {
 /** The last part of a browser-given name, without control characters, at most 255 characters. */
 export function displayFileName(name: string): string {
   const base = name.split(/[/\\]/).pop() ?? "";
-  const clean = base.replace(/[\u0000-\u001f\u007f]/g, "").trim();
+  const clean = base.replace(/\p{Cc}/gu, "").trim();
   const chars = Array.from(clean === "" || clean === "." || clean === ".." ? "readings.csv" : clean);
   return chars.slice(0, 255).join("");
 }

@@ -37,6 +37,8 @@ export const dataTableColumnHelper = <Row extends RowData>() => createColumnHelp
 export const PAGE_SIZE_OPTIONS = [10, 25, 50, 100] as const;
 
 interface UseServerTableOptions<Row extends RowData> {
+  // Columns of different value types in one array: TanStack Table's own typing for this is `any`.
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
   columns: ColumnDef<DataTableFeatures, Row, any>[];
   data: readonly Row[];
   rowCount: number | undefined;

@@ -1,7 +1,6 @@
 // Moist-air properties in SI units, on psychrolib (ASHRAE Handbook—Fundamentals 2017, ch. 1).
 // Temperatures in °C, pressures in Pa, relative humidity in % (0–100) at this module's edge;
 // psychrolib itself takes RH as a fraction 0–1.
-/// <reference path="./psychrolib.d.ts" />
 import psychrolib from "psychrolib";
 import { requireFinite, requireRelativeHumidityPct, requireTemperatureC } from "./guards.js";
 

@@ -210,16 +210,25 @@ export function proposeMapping(headers: readonly string[] | null, rows: readonly
   const numeric = facts.filter((c) => !taken.has(c.index) && isNumeric(c));
   if (found.humidity === undefined) {
     const byUnit = numeric.find((c) => c.cellUnits.pct > 0 && c.index !== found.temperature);
-    if (byUnit) assign("humidity", byUnit.index), guessed.push(`humidity = ${label(headers, byUnit.index)}`);
+    if (byUnit) {
+      assign("humidity", byUnit.index);
+      guessed.push(`humidity = ${label(headers, byUnit.index)}`);
+    }
   }
   if (found.temperature === undefined) {
     const byUnit = numeric.find((c) => !taken.has(c.index) && c.cellUnits.C + c.cellUnits.F > 0);
     const first = byUnit ?? numeric.find((c) => !taken.has(c.index));
-    if (first) assign("temperature", first.index), guessed.push(`temperature = ${label(headers, first.index)}`);
+    if (first) {
+      assign("temperature", first.index);
+      guessed.push(`temperature = ${label(headers, first.index)}`);
+    }
   }
   if (found.humidity === undefined) {
     const next = numeric.find((c) => !taken.has(c.index) && fitsHumidity(c));
-    if (next) assign("humidity", next.index), guessed.push(`humidity = ${label(headers, next.index)}`);
+    if (next) {
+      assign("humidity", next.index);
+      guessed.push(`humidity = ${label(headers, next.index)}`);
+    }
   }
   if (guessed.length > 0) {
     problems.push(
