@@ -1,6 +1,6 @@
 // The real server entry (server/server.ts, run as its own process as in production) shuts down
-// gracefully: on SIGTERM readiness fails at once, a request already in flight still gets its full
-// answer, and the process exits 0.
+// gracefully: on SIGTERM readiness fails at once, then it stops accepting connections, a request
+// already in flight still gets its full answer, and the process exits 0.
 import { spawn, type ChildProcess } from "node:child_process";
 import http from "node:http";
 import { afterAll, expect, it } from "vitest";
@@ -47,7 +47,20 @@ async function until(port: number, path: string, accept: (a: Answer) => boolean,
   throw new Error(`${path} never gave the awaited answer; last: ${last instanceof Error ? last.message : JSON.stringify(last)}`);
 }
 
-it("on SIGTERM turns unready, finishes the request in flight and exits 0", { timeout: 120_000 }, async () => {
+/** Waits until the server refuses new connections (it has stopped listening). */
+async function untilRefused(port: number, tries = 300): Promise<void> {
+  for (let i = 0; i < tries; i++) {
+    const refused = await get(port, "/api/health/live").then(
+      () => false,
+      (error: NodeJS.ErrnoException) => error.code === "ECONNREFUSED",
+    );
+    if (refused) return;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error("the server never stopped accepting connections");
+}
+
+it("on SIGTERM turns unready, stops accepting, finishes the request in flight and exits 0", { timeout: 120_000 }, async () => {
   const port = await freePort();
   let output = "";
   child = spawn(process.execPath, ["--import", "tsx", "server/server.ts"], {
@@ -62,7 +75,7 @@ it("on SIGTERM turns unready, finishes the request in flight and exits 0", { tim
       LOG_LEVEL: "info",
       SMTP_PORT: String(await freePort()),
       // Long enough for the probes below to see "unready" while the server still accepts; the test
-      // does not wait for it to pass, it waits for the states.
+      // waits for the states (unready, then refusing), not for this time.
       SHUTDOWN_DELAY_MS: "3000",
       SHUTDOWN_TIMEOUT_MS: "30000",
     },
@@ -117,6 +130,8 @@ it("on SIGTERM turns unready, finishes the request in flight and exits 0", { tim
   child.kill("SIGTERM");
   const unready = await until(port, "/api/health/ready", (a) => a.status === 503);
   expect(JSON.parse(unready.body)).toMatchObject({ status: "unready", reason: "shutting_down" });
+  // Then it stops accepting connections, while our request is still open.
+  await untilRefused(port);
   markDraining();
 
   const res = await answer;

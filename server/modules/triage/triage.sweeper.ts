@@ -8,7 +8,11 @@ const SWEEP_EVERY_MS = 30_000;
  * or whose deadline factor has moved with the clock), so e-mail digests and reports read true figures.
  * Returns a stop function, which resolves once a sweep in progress has finished.
  */
-export function startTriageSweeper(triage: TriageService, logger: Logger): () => Promise<void> {
+export function startTriageSweeper(
+  triage: Pick<TriageService, "refreshStale">,
+  logger: Logger,
+  { everyMs = SWEEP_EVERY_MS }: { everyMs?: number } = {},
+): () => Promise<void> {
   let running: Promise<void> | null = null;
   const timer = setInterval(() => {
     if (running) return;
@@ -21,7 +25,7 @@ export function startTriageSweeper(triage: TriageService, logger: Logger): () =>
       .finally(() => {
         running = null;
       });
-  }, SWEEP_EVERY_MS);
+  }, everyMs);
   timer.unref();
   return async () => {
     clearInterval(timer);

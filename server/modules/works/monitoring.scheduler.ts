@@ -7,7 +7,11 @@ const EVERY_MS = 10 * 60_000;
  * Every 10 minutes: the reminders for monitoring periods that have ended. Returns a stop function,
  * which resolves once a run in progress has finished.
  */
-export function startMonitoringReminders(verification: VerificationService, logger: Logger): () => Promise<void> {
+export function startMonitoringReminders(
+  verification: Pick<VerificationService, "sendDueReminders">,
+  logger: Logger,
+  { everyMs = EVERY_MS }: { everyMs?: number } = {},
+): () => Promise<void> {
   let running: Promise<void> | null = null;
   const timer = setInterval(() => {
     if (running) return;
@@ -18,7 +22,7 @@ export function startMonitoringReminders(verification: VerificationService, logg
       .finally(() => {
         running = null;
       });
-  }, EVERY_MS);
+  }, everyMs);
   timer.unref();
   return async () => {
     clearInterval(timer);
