@@ -1,6 +1,7 @@
 // `npm run seed`: migrations, then the demo scenario, into the database the configuration points at.
 import { loadConfig, type Config } from "../server/config/env.js";
 import { createDataSource } from "../server/db/create-data-source.js";
+import { migrateToLatest } from "../server/db/migrate.js";
 import { seedDemo } from "../server/db/seeds/demo.js";
 
 export async function runSeed(config: Config): Promise<string> {
@@ -10,7 +11,8 @@ export async function runSeed(config: Config): Promise<string> {
   const dataSource = createDataSource(config.db);
   await dataSource.initialize();
   try {
-    await dataSource.runMigrations({ transaction: "each" });
+    // A development convenience: `npm run seed` alone brings a fresh database up to date first.
+    await migrateToLatest(dataSource);
     const result = await seedDemo(dataSource, config.demoPassword);
     return result.created
       ? `Demo data created: ${result.homes} homes, ${result.tenants} tenant accounts, ${result.cases} cases.`

@@ -1,16 +1,15 @@
 // `npm start`: everything a person needs to try Dewline on this machine — Debian packages, the client
-// build, MariaDB and a mail catcher on loopback, migrations, the demo data, then the app itself.
-// Ctrl-C stops everything this script started.
+// and server builds, MariaDB and a mail catcher on loopback, migrations, the demo data, then the
+// compiled server (`node dist-server/server/server.js`, as in production). Ctrl-C stops everything
+// this script started; the server drains its requests first.
 import { spawn, type ChildProcess } from "node:child_process";
-import type { Server } from "node:http";
+import { rmSync } from "node:fs";
+import path from "node:path";
 import { loadConfig } from "../server/config/env.js";
-import { createApp } from "../server/app.js";
-import { createAppContext, type AppContext } from "../server/app-context.js";
-import { startBackgroundJobs } from "../server/background.js";
 import { DEMO_ACCOUNTS } from "../server/db/seeds/demo.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { projectDbDir, projectRoot } from "./lib/paths.js";
-import { runStep, stopChild } from "./lib/processes.js";
+import { runStep, stopChild, waitUntilReady } from "./lib/processes.js";
 import { ensureSystemPackages, MARIADB } from "./lib/system-packages.js";
 import { runSeed } from "./seed.js";
 
@@ -18,16 +17,15 @@ const config = loadConfig();
 const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
 let mariaDbStartedHere = false;
 let mailCatcher: ChildProcess | undefined;
-let server: Server | undefined;
-let ctx: AppContext | undefined;
-let stopBackgroundJobs: (() => void) | undefined;
+let server: ChildProcess | undefined;
+let stopping = false;
 
 async function shutdown(code: number) {
+  if (stopping) return;
+  stopping = true;
   step("Stopping…");
-  stopBackgroundJobs?.();
-  server?.close();
-  server?.closeAllConnections();
-  await ctx?.close().catch(() => undefined);
+  // The server drains for at most SHUTDOWN_DELAY_MS + SHUTDOWN_TIMEOUT_MS; give it that and a little more.
+  if (server) await stopChild(server, config.shutdown.delayMs + config.shutdown.timeoutMs + 5000);
   if (mailCatcher) await stopChild(mailCatcher);
   if (mariaDbStartedHere) await stopMariaDb(projectDbDir);
   process.exit(code);
@@ -38,7 +36,9 @@ process.on("SIGTERM", () => void shutdown(0));
 try {
   await ensureSystemPackages([MARIADB], step);
 
-  step("Building the client (vite build)…");
+  step("Building the server (tsc → dist-server) and the client (vite build)…");
+  rmSync(path.join(projectRoot, "dist-server"), { recursive: true, force: true });
+  await runStep(process.execPath, ["node_modules/typescript/bin/tsc", "-p", "server/tsconfig.build.json"], { cwd: projectRoot });
   await runStep(process.execPath, ["node_modules/vite/bin/vite.js", "build", "--logLevel", "warn"], { cwd: projectRoot });
 
   step(`Starting MariaDB on 127.0.0.1:${config.db.port} (data in .data/mariadb)…`);
@@ -57,16 +57,24 @@ try {
     if (code !== null && code !== 0) console.warn(`The mail catcher stopped (exit ${code}); is another one already using port ${config.smtp.port}?`);
   });
 
-  step("Migrating and seeding the demo…");
+  step("Migrating the database (npm run db:migrate)…");
+  await runStep(process.execPath, ["dist-server/server/migrate.js"], { cwd: projectRoot });
+  step("Seeding the demo…");
   step(await runSeed(config));
 
-  ctx = await createAppContext(config);
-  const app = createApp(ctx);
-  stopBackgroundJobs = startBackgroundJobs(ctx);
-  await new Promise<void>((resolve, reject) => {
-    server = app.listen(config.port, config.host, () => resolve());
-    server.once("error", reject);
+  step("Starting the server (node dist-server/server/server.js)…");
+  server = spawn(process.execPath, ["dist-server/server/server.js"], { cwd: projectRoot, stdio: "inherit" });
+  const serverExit = new Promise<never>((_resolve, reject) => {
+    server?.once("exit", (code, signal) => {
+      if (!stopping) reject(new Error(`the server stopped (${signal ?? `exit ${code}`})`));
+    });
   });
+  serverExit.catch(async (error: Error) => {
+    console.error(`\n${error.message}`);
+    await shutdown(1);
+  });
+  const local = config.host === "0.0.0.0" || config.host === "::" ? "127.0.0.1" : config.host;
+  await Promise.race([waitUntilReady(`http://${local.includes(":") ? `[${local}]` : local}:${config.port}/api/health/ready`), serverExit]);
 
   const width = Math.max(...DEMO_ACCOUNTS.map((a) => a.email.length));
   console.log(`

@@ -7,6 +7,7 @@ import { pinoHttp } from "pino-http";
 import { csrfSync } from "csrf-sync";
 import type { AppContext } from "./app-context.js";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.js";
+import { requestId } from "./middleware/request-id.js";
 import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
 import { createAssessmentsRouter } from "./modules/assessments/assessments.routes.js";
@@ -25,21 +26,32 @@ import { createStaffRouter, createUsersRouter } from "./modules/users/users.rout
 import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
 
+export interface AppOptions {
+  /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
+  isDraining?: () => boolean;
+}
+
 /** The whole HTTP app, without listening (tests drive it through supertest). */
-export function createApp(ctx: AppContext): Express {
+export function createApp(ctx: AppContext, { isDraining = () => false }: AppOptions = {}): Express {
   const { config, services } = ctx;
   const app = express();
   app.disable("x-powered-by");
   app.set("trust proxy", config.trustProxy);
   app.set("query parser", "simple");
 
+  app.use(requestId());
+  app.use((_req, res, next) => {
+    // While draining, each response closes its connection, so keep-alive clients reconnect elsewhere.
+    if (isDraining()) res.setHeader("Connection", "close");
+    next();
+  });
   app.use(helmet({ crossOriginEmbedderPolicy: false }));
-  app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => req.url === "/api/health" } }));
+  app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => req.url?.startsWith("/api/health") ?? false } }));
 
   const api = express.Router();
   // Health and the public calculator API come before sessions: they must answer even when the
   // session store (MariaDB) does not, and they change nothing, so they need no CSRF token.
-  api.use("/health", createHealthRouter({ dataSource: ctx.dataSource }));
+  api.use("/health", createHealthRouter({ dataSource: ctx.dataSource, isDraining }));
   api.use("/psychrometrics", createPsychrometricsRouter());
   api.get("/openapi.json", (_req, res) => {
     res.json(openApiDocument(config.appUrl));

@@ -5,14 +5,16 @@ import { startDigestScheduler } from "./modules/digest/digest.scheduler.js";
 import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
 import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
 
-/** Starts the triage sweep, the deadline digest and the end-of-monitoring reminders; returns a function that stops them. */
-export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger">): () => void {
+/**
+ * Starts the triage sweep, the deadline digest and the end-of-monitoring reminders; returns a function
+ * that stops them and resolves once any job already running has finished (so shutdown can close the
+ * database after it, not under it).
+ */
+export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger">): () => Promise<void> {
   const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger);
   const digestScheduler = startDigestScheduler(ctx.services, ctx.logger);
   const stopReminders = startMonitoringReminders(ctx.services.verification, ctx.logger);
-  return () => {
-    stopReminders();
-    stopTriageSweeper();
-    digestScheduler.stop();
+  return async () => {
+    await Promise.all([stopReminders(), stopTriageSweeper(), digestScheduler.stop()]);
   };
 }

@@ -32,3 +32,20 @@ export function stopChild(child: ChildProcess, timeoutMs = 5000): Promise<void> 
     child.kill("SIGTERM");
   });
 }
+
+/** Polls `url` until it answers 200; rejects with the last answer after `timeoutMs`. */
+export async function waitUntilReady(url: string, timeoutMs = 60_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  let last = "no answer";
+  while (Date.now() < deadline) {
+    try {
+      const res = await fetch(url);
+      if (res.ok) return;
+      last = `${res.status} ${await res.text()}`;
+    } catch (error) {
+      last = error instanceof Error ? error.message : String(error);
+    }
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`${url} was not ready within ${timeoutMs / 1000} s (last answer: ${last})`);
+}

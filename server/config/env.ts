@@ -1,9 +1,17 @@
 // The only reader of process.env. Everything else imports the checked Config.
+import { existsSync } from "node:fs";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { z } from "zod";
 
-const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "../..");
+/** The folder holding package.json: the same whether this file runs from server/ (tsx) or dist-server/server/ (compiled). */
+function findProjectRoot(from: string): string {
+  for (let dir = from; ; dir = path.dirname(dir)) {
+    if (existsSync(path.join(dir, "package.json"))) return dir;
+    if (path.dirname(dir) === dir) return path.resolve(from, "../..");
+  }
+}
+const projectRoot = findProjectRoot(path.dirname(fileURLToPath(import.meta.url)));
 
 const port = z.coerce.number().int().min(1).max(65535);
 
@@ -30,6 +38,8 @@ const schema = z
     LOGIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
     LOGIN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
     TRUST_PROXY: z.stringbool().default(false),
+    SHUTDOWN_DELAY_MS: z.coerce.number().int().min(0).default(0),
+    SHUTDOWN_TIMEOUT_MS: z.coerce.number().int().min(0).default(10_000),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === "production") {
@@ -53,6 +63,11 @@ export interface Config {
   logLevel: string;
   login: { maxFailures: number; windowMs: number };
   trustProxy: boolean;
+  /**
+   * On SIGTERM/SIGINT: keep accepting for `delayMs` while readiness already fails (so a load balancer
+   * stops sending traffic), then wait at most `timeoutMs` for requests and background jobs to finish.
+   */
+  shutdown: { delayMs: number; timeoutMs: number };
 }
 
 // Development-only defaults, so a fresh clone runs without a .env file. Production must set its own.
@@ -80,5 +95,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === "test" ? "silent" : "info"),
     login: { maxFailures: e.LOGIN_MAX_FAILURES, windowMs: e.LOGIN_WINDOW_MINUTES * 60_000 },
     trustProxy: e.TRUST_PROXY,
+    shutdown: { delayMs: e.SHUTDOWN_DELAY_MS, timeoutMs: e.SHUTDOWN_TIMEOUT_MS },
   };
 }

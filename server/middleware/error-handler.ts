@@ -44,6 +44,8 @@ export function errorHandler(showInternals: boolean): ErrorRequestHandler {
         error: {
           code: "internal",
           message: "Something went wrong on our side. Please try again; if it keeps happening, tell your landlord's support team.",
+          // The same id is in the X-Request-Id header and the log line of the error.
+          requestId: req.id === undefined ? undefined : String(req.id),
           ...(showInternals ? { details: { message: String(err?.message ?? err), stack: err?.stack } } : {}),
         },
       });

@@ -1,4 +1,4 @@
-// /api/health against a MariaDB of this file's own, which the test stops and starts again.
+// /api/health (and /ready, /live) against a MariaDB of this file's own, which the test stops and starts again.
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
@@ -37,6 +37,10 @@ it("reports the database up, then 503 while MariaDB is stopped, then recovers by
   await stopMariaDb(dir);
   const down = await request(t.app).get("/api/health").expect(503);
   expect(down.body.db).toBe("down");
+  // Readiness fails with its reason; liveness does not (the process is fine, restarting it would not help).
+  const unready = await request(t.app).get("/api/health/ready").expect(503);
+  expect(unready.body).toMatchObject({ status: "unready", reason: "database_down" });
+  await request(t.app).get("/api/health/live").expect(200);
 
   await startMariaDb({ dir, port });
   let last = 0;
@@ -45,4 +49,5 @@ it("reports the database up, then 503 while MariaDB is stopped, then recovers by
     if (last !== 200) await new Promise((r) => setTimeout(r, 200));
   }
   expect(last).toBe(200);
+  await request(t.app).get("/api/health/ready").expect(200, { status: "ready" });
 });

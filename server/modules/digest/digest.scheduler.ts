@@ -38,7 +38,8 @@ export async function sendDigestsNow(services: DigestServices, now: Date): Promi
 export interface DigestScheduler {
   /** One check now, as the timer does it (resolves when the check is over; never rejects). */
   check(): Promise<void>;
-  stop(): void;
+  /** Stops the timers; resolves once a run in progress has finished. */
+  stop(): Promise<void>;
 }
 
 const hourFormat = new Intl.DateTimeFormat("en-GB", { timeZone: LONDON_TIME_ZONE, hour: "numeric", hourCycle: "h23" });
@@ -87,10 +88,11 @@ export function startDigestScheduler(
 
   return {
     check,
-    stop() {
+    async stop() {
       stopped = true;
       clearTimeout(first);
       clearInterval(timer);
+      await running;
     },
   };
 }

@@ -3,19 +3,29 @@ import type { VerificationService } from "./verification.service.js";
 
 const EVERY_MS = 10 * 60_000;
 
-/** Every 10 minutes: the reminders for monitoring periods that have ended. Returns a stop function. */
-export function startMonitoringReminders(verification: VerificationService, logger: Logger): () => void {
-  let running = false;
+/**
+ * Every 10 minutes: the reminders for monitoring periods that have ended. Returns a stop function,
+ * which resolves once a run in progress has finished.
+ */
+export function startMonitoringReminders(
+  verification: Pick<VerificationService, "sendDueReminders">,
+  logger: Logger,
+  { everyMs = EVERY_MS }: { everyMs?: number } = {},
+): () => Promise<void> {
+  let running: Promise<void> | null = null;
   const timer = setInterval(() => {
     if (running) return;
-    running = true;
-    verification
+    running = verification
       .sendDueReminders()
+      .then(() => undefined)
       .catch((error: unknown) => logger.error({ err: error }, "monitoring reminders failed"))
       .finally(() => {
-        running = false;
+        running = null;
       });
-  }, EVERY_MS);
+  }, everyMs);
   timer.unref();
-  return () => clearInterval(timer);
+  return async () => {
+    clearInterval(timer);
+    await running;
+  };
 }
