@@ -48,6 +48,11 @@ export class AssessmentService {
     });
   }
 
+  /** The case's latest assessment, or null (no access check: for triage). */
+  async latest(caseId: number): Promise<HhsrsAssessmentRecord | null> {
+    return this.dataSource.getRepository(HhsrsAssessmentRecord).findOne({ where: { caseId }, order: { version: "DESC" } });
+  }
+
   async list(actor: Actor, caseId: number) {
     const c = await this.cases.getForActor(actor, caseId);
     return this.dataSource.getRepository(HhsrsAssessmentRecord).find({ where: { caseId: c.id }, order: { version: "ASC" } });

@@ -29,6 +29,29 @@ export class TenancyService {
     });
   }
 
+  /** The tenant living at the home now (the latest current tenancy), or null. */
+  async currentTenantOf(propertyId: number, m: EntityManager = this.dataSource.manager): Promise<number | null> {
+    const d = today();
+    const row = await m
+      .getRepository(Tenancy)
+      .createQueryBuilder("t")
+      .where("t.property_id = :propertyId AND t.start_date <= :today AND (t.end_date IS NULL OR t.end_date >= :today)", { propertyId, today: d })
+      .orderBy("t.start_date", "DESC")
+      .getOne();
+    return row?.tenantUserId ?? null;
+  }
+
+  /** Whether the tenant has ever had a tenancy of the home. */
+  async hasLivedAt(tenantUserId: number, propertyId: number): Promise<boolean> {
+    return this.dataSource.getRepository(Tenancy).existsBy({ tenantUserId, propertyId });
+  }
+
+  /** The household notes of the tenant's latest tenancy of the home, or null. */
+  async householdNotes(propertyId: number, tenantUserId: number, m: EntityManager = this.dataSource.manager): Promise<string | null> {
+    const t = await m.getRepository(Tenancy).findOne({ where: { propertyId, tenantUserId }, order: { startDate: "DESC" } });
+    return t?.householdNotes ?? null;
+  }
+
   /** The home a tenant lives in now, with its rooms. */
   async homeOf(actor: Actor): Promise<{ tenancy: Tenancy; property: Property }> {
     const tenancy = await this.currentFor(actor);

@@ -1,12 +1,58 @@
-import { Brackets, In, type DataSource } from "typeorm";
+import { Brackets, In, type DataSource, type EntityManager } from "typeorm";
 import { ConflictError, NotFoundError } from "../../lib/errors.js";
 import { escapeLike } from "../../lib/sql.js";
 import type { Actor } from "../auth/actor.js";
-import { User } from "./user.entity.js";
+import { User, type Role } from "./user.entity.js";
 import type { UserListQuery } from "./users.schemas.js";
+
+/** What other modules need to know of a person: enough to name them and write to them. */
+export interface Person {
+  id: number;
+  name: string;
+  email: string;
+  role: Role;
+  organisationId: number | null;
+}
+
+const personOf = (u: User): Person => ({ id: u.id, name: u.name, email: u.email, role: u.role, organisationId: u.organisationId });
 
 export class UserService {
   constructor(private readonly dataSource: DataSource) {}
+
+  /** One person by id, any status (inside the caller's transaction when given one); fails if there is none. */
+  async person(id: number, m: EntityManager = this.dataSource.manager): Promise<Person> {
+    return personOf(await m.getRepository(User).findOneByOrFail({ id }));
+  }
+
+  /** People by id, any status; missing ids are left out. */
+  async people(ids: readonly number[], m: EntityManager = this.dataSource.manager): Promise<Map<number, Person>> {
+    if (!ids.length) return new Map();
+    const rows = await m.getRepository(User).findBy({ id: In([...new Set(ids)]) });
+    return new Map(rows.map((u) => [u.id, personOf(u)]));
+  }
+
+  /**
+   * An active member of the landlord's staff with one of `roles` (any staff role when not given), or
+   * null: a tenant, someone disabled or another landlord's staff is not found.
+   */
+  async findStaff(organisationId: number, id: number, roles: readonly Role[] = ["officer", "maintenance", "admin"], m: EntityManager = this.dataSource.manager): Promise<Person | null> {
+    const u = await m.getRepository(User).findOneBy({ id, organisationId, status: "active", role: In([...roles]) });
+    return u ? personOf(u) : null;
+  }
+
+  /** Active officers of any of these landlords, by id. */
+  async activeOfficersOf(organisationIds: readonly number[]): Promise<Person[]> {
+    if (!organisationIds.length) return [];
+    const rows = await this.dataSource.getRepository(User).find({ where: { organisationId: In([...organisationIds]), role: "officer", status: "active" }, order: { id: "ASC" } });
+    return rows.map(personOf);
+  }
+
+  /** Active staff of the landlord with one of `roles`, optionally only among `ids`. */
+  async activeStaffOf(organisationId: number, roles: readonly Role[], m: EntityManager = this.dataSource.manager, ids?: readonly number[]): Promise<Person[]> {
+    if (ids && !ids.length) return [];
+    const rows = await m.getRepository(User).findBy({ organisationId, status: "active", role: In([...roles]), ...(ids ? { id: In([...ids]) } : {}) });
+    return rows.map(personOf);
+  }
 
   /** Active officers, maintenance staff and admins of the actor's landlord, by name. */
   async activeStaff(actor: Actor): Promise<User[]> {
