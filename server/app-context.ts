@@ -60,10 +60,10 @@ export interface AppContext {
 export function createServices(config: Config, dataSource: DataSource, mailer: Mailer, logger: Logger): Services {
   const mail = new MailService(dataSource, mailer, logger);
   const properties = new PropertyService(dataSource);
-  const tenancies = new TenancyService(dataSource);
+  const tenancies = new TenancyService(dataSource, properties);
   const users = new UserService(dataSource);
   const organisations = new OrganisationService(dataSource);
-  const auth = new AuthService(dataSource, config, mail, properties, tenancies);
+  const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations);
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations);
   const photos = new PhotoService(dataSource, config, cases);
   const readings = new ReadingService(dataSource, cases);

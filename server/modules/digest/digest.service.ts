@@ -110,7 +110,7 @@ export class DigestService {
     );
 
     for (const officer of officers) {
-      const cases = (byOrganisation.get(officer.organisationId!) ?? []).filter((c) => c.assigneeUserId === null || c.assigneeUserId === officer.id);
+      const cases = (byOrganisation.get(officer.organisationId) ?? []).filter((c) => c.assigneeUserId === null || c.assigneeUserId === officer.id);
       if (cases.length === 0) continue;
       if (done.has(officer.id)) {
         run.alreadySent += 1;

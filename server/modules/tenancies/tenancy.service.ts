@@ -1,13 +1,17 @@
 import { IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
 import { NotFoundError } from "../../lib/errors.js";
-import type { Actor } from "../auth/actor.js";
-import { Property } from "../properties/property.entity.js";
+import type { Actor } from "../../lib/actor.js";
+import type { Property } from "../properties/property.entity.js";
+import type { PropertyService } from "../properties/property.service.js";
 import { Tenancy } from "./tenancy.entity.js";
 
 const today = () => new Date().toISOString().slice(0, 10);
 
 export class TenancyService {
-  constructor(private readonly dataSource: DataSource) {}
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly properties: PropertyService,
+  ) {}
 
   /** Starts a tenancy today (inside the caller's transaction). */
   async start(m: EntityManager, t: { propertyId: number; tenantUserId: number; householdNotes: string | null; startDate?: string }) {
@@ -56,9 +60,7 @@ export class TenancyService {
   async homeOf(actor: Actor): Promise<{ tenancy: Tenancy; property: Property }> {
     const tenancy = await this.currentFor(actor);
     if (!tenancy) throw new NotFoundError("We could not find a current tenancy for your account. Please contact your landlord.");
-    const property = await this.dataSource
-      .getRepository(Property)
-      .findOneOrFail({ where: { id: tenancy.propertyId }, relations: { rooms: true } });
+    const property = await this.properties.homeWithRooms(tenancy.propertyId);
     return { tenancy, property };
   }
 }

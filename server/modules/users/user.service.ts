@@ -1,7 +1,7 @@
 import { Brackets, In, type DataSource, type EntityManager } from "typeorm";
 import { ConflictError, NotFoundError } from "../../lib/errors.js";
 import { escapeLike } from "../../lib/sql.js";
-import type { Actor } from "../auth/actor.js";
+import type { Actor } from "../../lib/actor.js";
 import { User, type Role } from "./user.entity.js";
 import type { UserListQuery } from "./users.schemas.js";
 
@@ -11,7 +11,7 @@ export interface Person {
   name: string;
   email: string;
   role: Role;
-  organisationId: number | null;
+  organisationId: number;
 }
 
 const personOf = (u: User): Person => ({ id: u.id, name: u.name, email: u.email, role: u.role, organisationId: u.organisationId });
@@ -38,6 +38,33 @@ export class UserService {
   async findStaff(organisationId: number, id: number, roles: readonly Role[] = ["officer", "maintenance", "admin"], m: EntityManager = this.dataSource.manager): Promise<Person | null> {
     const u = await m.getRepository(User).findOneBy({ id, organisationId, status: "active", role: In([...roles]) });
     return u ? personOf(u) : null;
+  }
+
+  // Accounts, for AuthService: sign-in, invitations and password resets.
+
+  /** The account with this e-mail address or id, with its status and password hash (for AuthService only), or null. */
+  async account(where: { email: string } | { id: number }, m: EntityManager = this.dataSource.manager): Promise<(Person & Pick<User, "status" | "passwordHash">) | null> {
+    const u = await m.getRepository(User).findOneBy(where);
+    return u ? { ...personOf(u), status: u.status, passwordHash: u.passwordHash } : null;
+  }
+
+  async emailTaken(email: string, m: EntityManager = this.dataSource.manager): Promise<boolean> {
+    return m.getRepository(User).existsBy({ email });
+  }
+
+  /** A new account waiting for its invitation to be accepted (no password yet), in the caller's transaction. */
+  async createInvited(m: EntityManager, input: { organisationId: number; email: string; name: string; role: Role }): Promise<Person> {
+    const repo = m.getRepository(User);
+    return personOf(await repo.save(repo.create({ ...input, status: "invited", passwordHash: null })));
+  }
+
+  /** Sets the password hash; `activate` also makes an invited account active. */
+  async setPasswordHash(m: EntityManager, id: number, passwordHash: string, activate = false): Promise<void> {
+    await m.getRepository(User).update(id, activate ? { passwordHash, status: "active" } : { passwordHash });
+  }
+
+  async recordSignIn(id: number, at: Date): Promise<void> {
+    await this.dataSource.getRepository(User).update(id, { lastSignInAt: at });
   }
 
   /** Active officers of any of these landlords, by id. */
