@@ -124,6 +124,11 @@ export class ReadingService {
     });
   }
 
+  /** How many readings the case has taken at or after `since` (inside the caller's transaction when given one). */
+  async countSince(caseId: number, since: Date, m: EntityManager = this.dataSource.manager): Promise<number> {
+    return Number((await m.query("SELECT COUNT(*) AS n FROM readings WHERE case_id = ? AND taken_at >= ?", [caseId, since]))[0]?.n ?? 0);
+  }
+
   /** Readings of a case (one room, or all), oldest first; at most `limit` (the oldest ones, or with `newest` the latest). */
   async list(caseId: number, opts: { roomId?: number; limit?: number; newest?: boolean } = {}): Promise<ReadingView[]> {
     const limit = Math.max(1, Math.min(opts.limit ?? DEFAULT_LIST_LIMIT, 1_000_000));

@@ -83,7 +83,7 @@ export class VerificationService {
           if (!fresh || fresh.monitoringRemindedAt) return [];
           await this.cases.markMonitoringReminded(m, c.id, now);
           const link = `${this.config.appUrl}/cases/${c.id}`;
-          const readingsAfter = Number((await m.query("SELECT COUNT(*) AS n FROM readings WHERE case_id = ? AND taken_at >= ?", [c.id, fresh.worksDoneAt]))[0]?.n ?? 0);
+          const readingsAfter = await this.readings.countSince(c.id, fresh.worksDoneAt!, m);
           const out: (() => Promise<unknown>)[] = [];
           if (fresh.tenantUserId) {
             const tenant = await this.users.person(fresh.tenantUserId, m);
