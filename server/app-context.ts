@@ -17,6 +17,7 @@ import { PhotoService } from "./modules/photos/photo.service.js";
 import { ReadingImportService } from "./modules/readings/reading-import.service.js";
 import { ReadingService } from "./modules/readings/reading.service.js";
 import { MailService } from "./modules/mail/mail.service.js";
+import { OrganisationService } from "./modules/organisations/organisation.service.js";
 import { PropertyService } from "./modules/properties/property.service.js";
 import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { QueueService } from "./modules/triage/queue.service.js";
@@ -59,22 +60,23 @@ export interface AppContext {
 export function createServices(config: Config, dataSource: DataSource, mailer: Mailer, logger: Logger): Services {
   const mail = new MailService(dataSource, mailer, logger);
   const properties = new PropertyService(dataSource);
-  const tenancies = new TenancyService(dataSource);
+  const tenancies = new TenancyService(dataSource, properties);
   const users = new UserService(dataSource);
-  const auth = new AuthService(dataSource, config, mail, properties, tenancies);
-  const cases = new CaseService(dataSource, config, mail, properties, tenancies);
+  const organisations = new OrganisationService(dataSource);
+  const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations);
+  const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations);
   const photos = new PhotoService(dataSource, config, cases);
   const readings = new ReadingService(dataSource, cases);
   const imports = new ReadingImportService(dataSource, cases);
   const evaluation = new EvaluationService(cases, readings);
   const assessments = new AssessmentService(dataSource, cases);
-  const inspections = new InspectionService(dataSource, config, cases, mail);
-  const policy = new PolicyService(dataSource);
-  const triage = new TriageService(dataSource, cases, evaluation, policy, inspections);
+  const inspections = new InspectionService(dataSource, config, cases, mail, users);
+  const policy = new PolicyService(dataSource, cases);
+  const triage = new TriageService(cases, evaluation, policy, inspections, assessments);
   const queue = new QueueService(dataSource, triage);
-  const digest = new DigestService(dataSource, config, mail, logger);
-  const works = new WorkOrderService(dataSource, config, cases, policy, inspections);
-  const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger);
+  const digest = new DigestService(dataSource, config, mail, logger, cases, users);
+  const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies);
+  const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users);
   return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, queue, readings, tenancies, triage, users, digest, works, verification };
 }
 

@@ -14,8 +14,9 @@ import { createAssessmentsRouter } from "./modules/assessments/assessments.route
 import { createInspectionsRouter } from "./modules/inspections/inspections.routes.js";
 import { createPolicyRouter } from "./modules/policy/policy.routes.js";
 import { createCasesRouter, createMyCasesRouter } from "./modules/cases/cases.routes.js";
-import { createPhotosRouter } from "./modules/photos/photos.routes.js";
+import { createCasePhotosRouter, createPhotosRouter } from "./modules/photos/photos.routes.js";
 import { createReadingsRouter } from "./modules/readings/readings.routes.js";
+import { createEvaluationRouter } from "./modules/evaluation/evaluation.routes.js";
 import { createHealthRouter } from "./modules/health/health.routes.js";
 import { createPropertiesRouter } from "./modules/properties/properties.routes.js";
 import { openApiDocument } from "./modules/psychrometrics/openapi.js";
@@ -89,8 +90,10 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
   api.use("/cases", requireAuth, createTriageRouter({ cases: services.cases, queue: services.queue, triage: services.triage }));
-  api.use("/cases", createCasesRouter({ cases: services.cases, photos: services.photos }));
+  api.use("/cases", createCasesRouter({ cases: services.cases }));
+  api.use("/cases", createCasePhotosRouter({ cases: services.cases, photos: services.photos }));
   api.use("/cases", createReadingsRouter({ cases: services.cases, readings: services.readings, imports: services.imports, evaluation: services.evaluation }));
+  api.use("/cases", createEvaluationRouter({ evaluation: services.evaluation }));
   api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
   api.use("/cases", createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy }));
   api.use("/cases", requireAuth, createCaseWorksRouter({ works: services.works, verification: services.verification, photos: services.photos }));

@@ -22,7 +22,7 @@ export class AssessmentService {
       const c = await this.cases.getForActor(actor, caseId, m);
       const repo = m.getRepository(HhsrsAssessmentRecord);
       // The case row lock serialises versions of one case.
-      await m.query("SELECT id FROM cases WHERE id = ? FOR UPDATE", [c.id]);
+      await this.cases.lockRow(m, c.id);
       const last = await repo.findOne({ where: { caseId: c.id }, order: { version: "DESC" } });
       const saved = await repo.save(
         repo.create({
@@ -46,6 +46,11 @@ export class AssessmentService {
       });
       return { record: saved, displayScore: result.displayScore };
     });
+  }
+
+  /** The case's latest assessment, or null (no access check: for triage). */
+  async latest(caseId: number): Promise<HhsrsAssessmentRecord | null> {
+    return this.dataSource.getRepository(HhsrsAssessmentRecord).findOne({ where: { caseId }, order: { version: "DESC" } });
   }
 
   async list(actor: Actor, caseId: number) {

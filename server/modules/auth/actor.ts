@@ -1,12 +1,3 @@
-import type { Role } from "../users/user.entity.js";
-
-/** The signed-in user as every service sees it (also `req.user`). */
-export interface Actor {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  organisationId: number;
-}
-
-export const isStaff = (actor: Actor) => actor.role !== "tenant";
+// The Actor is defined in server/lib/actor.ts (below every module, so users, properties and
+// tenancies need not import auth); re-exported here for the modules that import it from auth.
+export { isStaff, type Actor } from "../../lib/actor.js";

@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { ROLES } from "../users/user.entity.js";
+import { ROLES } from "../../../src/lib/roles.js";
 
 export const emailSchema = z
   .string({ error: "Enter an e-mail address." })

@@ -2,10 +2,10 @@ import { IsNull, MoreThan, type DataSource, type EntityManager } from "typeorm";
 import type { Config } from "../../config/env.js";
 import { ConflictError, ForbiddenError, NotFoundError } from "../../lib/errors.js";
 import type { MailService } from "../mail/mail.service.js";
-import { Organisation } from "../organisations/organisation.entity.js";
+import type { OrganisationService } from "../organisations/organisation.service.js";
 import type { PropertyService } from "../properties/property.service.js";
 import type { TenancyService } from "../tenancies/tenancy.service.js";
-import { User } from "../users/user.entity.js";
+import type { Person, UserService } from "../users/user.service.js";
 import type { Actor } from "./actor.js";
 import type { InvitationInput } from "./auth.schemas.js";
 import { hashPassword, verifyPassword } from "./passwords.js";
@@ -16,7 +16,7 @@ const INVITATION_HOURS = 72;
 const RESET_MINUTES = 60;
 const INVALID_LINK = "This link is not valid any more: it may have been used already or have expired. Ask for a new one.";
 
-export const toActor = (u: User): Actor => ({ id: u.id, email: u.email, name: u.name, role: u.role, organisationId: u.organisationId });
+export const toActor = (u: Person): Actor => ({ id: u.id, email: u.email, name: u.name, role: u.role, organisationId: u.organisationId });
 
 export class AuthService {
   constructor(
@@ -25,24 +25,22 @@ export class AuthService {
     private readonly mail: MailService,
     private readonly properties: PropertyService,
     private readonly tenancies: TenancyService,
+    private readonly users: UserService,
+    private readonly organisations: OrganisationService,
   ) {}
-
-  private get users() {
-    return this.dataSource.getRepository(User);
-  }
 
   /** The active user with these credentials, or null. Never says which half was wrong. */
   async verifyCredentials(email: string, password: string): Promise<Actor | null> {
-    const user = await this.users.findOneBy({ email: email.trim().toLowerCase() });
+    const user = await this.users.account({ email: email.trim().toLowerCase() });
     const ok = await verifyPassword(user?.status === "active" ? user.passwordHash : null, password);
     if (!user || !ok) return null;
-    await this.users.update(user.id, { lastSignInAt: new Date() });
+    await this.users.recordSignIn(user.id, new Date());
     return toActor(user);
   }
 
   /** Loads the actor behind a session; null when the user is gone or no longer active. */
   async actorById(id: number): Promise<Actor | null> {
-    const user = await this.users.findOneBy({ id });
+    const user = await this.users.account({ id });
     return user && user.status === "active" ? toActor(user) : null;
   }
 
@@ -58,24 +56,15 @@ export class AuthService {
     const { token, hash } = newToken();
     const expiresAt = new Date(Date.now() + INVITATION_HOURS * 3_600_000);
     const { user, deliver } = await this.dataSource.transaction(async (m) => {
-      if (await m.getRepository(User).existsBy({ email: input.email })) {
+      if (await this.users.emailTaken(input.email, m)) {
         throw new ConflictError("Someone with that e-mail address already has an account.");
       }
-      const user = await m.getRepository(User).save(
-        m.getRepository(User).create({
-          organisationId: actor.organisationId,
-          email: input.email,
-          name: input.name,
-          role: input.role,
-          status: "invited",
-          passwordHash: null,
-        }),
-      );
+      const user = await this.users.createInvited(m, { organisationId: actor.organisationId, email: input.email, name: input.name, role: input.role });
       if (input.role === "tenant") {
         await this.tenancies.start(m, { propertyId: input.propertyId!, tenantUserId: user.id, householdNotes: input.householdNotes ?? null });
       }
       await this.saveToken(m, user.id, "invitation", hash, expiresAt, actor.id);
-      const organisation = await m.getRepository(Organisation).findOneByOrFail({ id: actor.organisationId });
+      const organisationName = await this.organisations.nameOf(actor.organisationId, m);
       const deliver = await this.mail.enqueue(m, {
         to: user.email,
         template: "invitation",
@@ -83,7 +72,7 @@ export class AuthService {
         related: { type: "user", id: user.id },
         data: {
           name: user.name,
-          organisationName: organisation.name,
+          organisationName,
           inviterName: actor.name,
           link: `${this.config.appUrl}/invitation/${token}`,
           expiresHours: INVITATION_HOURS,
@@ -98,21 +87,21 @@ export class AuthService {
   /** Who an invitation link is for, so the page can greet them. */
   async describeInvitation(token: string): Promise<{ email: string; name: string; organisationName: string }> {
     const row = await this.findLiveToken(this.dataSource.manager, token, "invitation");
-    const user = await this.users.findOneOrFail({ where: { id: row.userId }, relations: { organisation: true } });
-    return { email: user.email, name: user.name, organisationName: user.organisation!.name };
+    const user = await this.users.person(row.userId);
+    return { email: user.email, name: user.name, organisationName: await this.organisations.nameOf(user.organisationId) };
   }
 
   async acceptInvitation(token: string, password: string): Promise<void> {
     const passwordHash = await hashPassword(password);
     await this.dataSource.transaction(async (m) => {
       const row = await this.consumeToken(m, token, "invitation");
-      await m.getRepository(User).update(row.userId, { passwordHash, status: "active" });
+      await this.users.setPasswordHash(m, row.userId, passwordHash, true);
     });
   }
 
   /** Always succeeds from the caller's point of view, so it cannot be used to find accounts. */
   async requestPasswordReset(email: string): Promise<void> {
-    const user = await this.users.findOneBy({ email });
+    const user = await this.users.account({ email });
     if (!user || user.status !== "active") return;
     const { token, hash } = newToken();
     const deliver = await this.dataSource.transaction(async (m) => {
@@ -132,9 +121,9 @@ export class AuthService {
     const passwordHash = await hashPassword(password);
     await this.dataSource.transaction(async (m) => {
       const row = await this.consumeToken(m, token, "password-reset");
-      const user = await m.getRepository(User).findOneByOrFail({ id: row.userId });
-      if (user.status !== "active") throw new NotFoundError(INVALID_LINK);
-      await m.getRepository(User).update(user.id, { passwordHash });
+      const user = await this.users.account({ id: row.userId }, m);
+      if (!user || user.status !== "active") throw new NotFoundError(INVALID_LINK);
+      await this.users.setPasswordHash(m, user.id, passwordHash);
       // Any other reset link still outstanding stops working too.
       await m.getRepository(UserToken).update({ userId: user.id, purpose: "password-reset", usedAt: IsNull() }, { usedAt: new Date() });
     });

@@ -17,6 +17,7 @@ export class CaseEvent {
   @Column({ name: "actor_user_id", type: "int", unsigned: true, nullable: true })
   actorUserId: number | null;
 
+  /** Written only through CaseService.recordEvent, so one of the kinds in case-events.ts, whose payload `before` and `after` hold. */
   @Column({ type: "varchar", length: 40 })
   type: string;
 

@@ -1,21 +1,19 @@
-import { In, type DataSource, type EntityManager } from "typeorm";
+import { In, LessThanOrEqual, type DataSource, type EntityManager } from "typeorm";
 import type { CaseReport, StaffCaseReport } from "../../../src/lib/schemas/case-report.js";
 import type { Config } from "../../config/env.js";
-import { CASE_TRANSITIONS, canTransition, transitionNeedsReason } from "../../../src/lib/domain/case-workflow.js";
+import { CASE_TRANSITIONS, OPEN_CASE_STATUSES, canTransition, transitionNeedsReason, type CaseStatus } from "../../../src/lib/domain/case-workflow.js";
 import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
 import type { MailTemplateName } from "../mail/mail-templates.js";
 import type { MailService, SendMail } from "../mail/mail.service.js";
-import { OutboxEmail } from "../mail/outbox-email.entity.js";
-import { Organisation } from "../organisations/organisation.entity.js";
+import type { OrganisationService } from "../organisations/organisation.service.js";
 import type { Property } from "../properties/property.entity.js";
 import type { PropertyService } from "../properties/property.service.js";
-import { Room } from "../properties/room.entity.js";
-import { Tenancy } from "../tenancies/tenancy.entity.js";
+import type { Room } from "../properties/room.entity.js";
 import type { TenancyService } from "../tenancies/tenancy.service.js";
-import { User } from "../users/user.entity.js";
-import { markTriageStale } from "../triage/triage.service.js";
+import type { UserService } from "../users/user.service.js";
 import { CaseEvent } from "./case-event.entity.js";
+import { asCaseEvent, type CaseEventOf, type CaseEventType, type NewCaseEvent } from "./case-events.js";
 import { Case } from "./case.entity.js";
 import type { CasePatch } from "./cases.schemas.js";
 
@@ -33,7 +31,13 @@ const VULNERABILITY_WORDS: Record<string, string> = {
 /** "The household includes children under 15, someone over 65." for officers' and operatives' eyes. */
 export const householdIncludes = (vulnerability: readonly string[]) => `The household includes ${vulnerability.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`;
 
-/** Case lifecycle start, access and history. Every change is written with its CaseEvent in one transaction. */
+/** The triage figures stored on a case for the queue, worked out by TriageService. */
+export type TriageFigures = Pick<Case, "riskState" | "mouldIndex" | "hhsrsBand" | "hhsrsCategory" | "recurrence" | "priority" | "nextStage" | "nextDueAt" | "triageDueAt">;
+
+/**
+ * Case lifecycle start, access and history. The cases table's one owner: its rows, its status and
+ * its stored figures change only here, each change with its CaseEvent in one transaction.
+ */
 export class CaseService {
   constructor(
     private readonly dataSource: DataSource,
@@ -41,17 +45,158 @@ export class CaseService {
     private readonly mail: MailService,
     private readonly properties: PropertyService,
     private readonly tenancies: TenancyService,
+    private readonly users: UserService,
+    private readonly organisations: OrganisationService,
   ) {}
 
   /**
    * Writes a CaseEvent in the caller's transaction. Every change to a case goes through here, so
    * this is also where the case's triage figures are marked stale (see TriageService).
    */
-  async recordEvent(m: EntityManager, e: { caseId: number; actorId: number | null; type: string; before?: Record<string, unknown> | null; after?: Record<string, unknown> | null }) {
+  async recordEvent(m: EntityManager, e: NewCaseEvent) {
+    const before = "before" in e ? (e.before as Record<string, unknown> | null) : null;
     await m.getRepository(CaseEvent).save(
-      m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before: e.before ?? null, after: e.after ?? null }),
+      m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before, after: e.after as Record<string, unknown> }),
     );
-    await markTriageStale(m, { caseIds: [e.caseId] });
+    await this.markStale(m, { caseIds: [e.caseId] });
+  }
+
+  /**
+   * Marks cases' triage figures stale inside the caller's transaction (`triage_due_at` = now), so
+   * TriageService works them out again: a case changed, another case at its home (recurrence), or
+   * every open case of a landlord whose deadline policy changed.
+   */
+  async markStale(m: EntityManager, where: { caseIds: number[] } | { propertyId: number } | { organisationId: number }): Promise<void> {
+    const qb = m.createQueryBuilder().update(Case).set({ triageDueAt: () => "CURRENT_TIMESTAMP(3)" });
+    if ("caseIds" in where) qb.where("id IN (:...ids)", { ids: where.caseIds.length ? where.caseIds : [0] });
+    else if ("propertyId" in where) qb.where("property_id = :p", { p: where.propertyId });
+    else qb.where("organisation_id = :o AND status IN (:...open)", { o: where.organisationId, open: OPEN_CASE_STATUSES });
+    await qb.execute();
+  }
+
+  /**
+   * The one way a case's status changes: takes the case row's lock, checks the move against the
+   * workflow (src/lib/domain/case-workflow.ts), stores the status and writes its `status-changed`
+   * event (which marks the triage figures stale) in the caller's transaction.
+   *
+   * A move the workflow refuses is a 409 and changes nothing; so is a cancel or reopen without a
+   * reason (400). With `ifAllowed` (the case following its work: an inspection, a booking, the
+   * works done) a refused move is skipped instead. A move to where the case already is changes
+   * nothing. Returns the status the case is in afterwards.
+   */
+  async transition(m: EntityManager, caseId: number, to: CaseStatus, reason: string | null, actor: Pick<Actor, "id"> | null, options: { ifAllowed?: boolean } = {}): Promise<{ from: CaseStatus; status: CaseStatus; moved: boolean }> {
+    const c = await this.lockRow(m, caseId);
+    const from = c.status;
+    if (from === to) return { from, status: from, moved: false };
+    if (!canTransition(from, to)) {
+      if (options.ifAllowed) return { from, status: from, moved: false };
+      throw new ConflictError(`A case that is ${from} cannot move to ${to}. From ${from} it can move to: ${CASE_TRANSITIONS[from].join(", ")}.`, {
+        from,
+        to,
+        allowed: CASE_TRANSITIONS[from],
+      });
+    }
+    if (transitionNeedsReason(from, to) && !reason) {
+      throw new ValidationError("reason: say why the case is being cancelled or reopened.", [{ field: "reason", message: "Say why the case is being cancelled or reopened." }]);
+    }
+    await this.recordEvent(m, { caseId, actorId: actor?.id ?? null, type: "status-changed", before: { status: from }, after: { status: to, reason } });
+    await m.getRepository(Case).update(caseId, { status: to });
+    return { from, status: to, moved: true };
+  }
+
+  /** The case row, locked for the rest of the caller's transaction. */
+  async lockRow(m: EntityManager, caseId: number): Promise<Case> {
+    return m.getRepository(Case).findOneOrFail({ where: { id: caseId }, lock: { mode: "pessimistic_write" } });
+  }
+
+  /** The works on the case are done: the monitoring period starts now and runs to `endsAt`. */
+  async startMonitoringPeriod(m: EntityManager, caseId: number, worksDoneAt: Date, endsAt: Date): Promise<void> {
+    await m.getRepository(Case).update(caseId, { worksDoneAt, monitoringEndsAt: endsAt, monitoringRemindedAt: null });
+  }
+
+  /** Cases whose monitoring period has ended and whose reminder has not gone yet. */
+  async dueForMonitoringReminder(now: Date, limit = 100): Promise<Case[]> {
+    return this.dataSource
+      .getRepository(Case)
+      .createQueryBuilder("c")
+      .where("c.status = 'monitoring' AND c.monitoring_ends_at <= :now AND c.monitoring_reminded_at IS NULL", { now })
+      .limit(limit)
+      .getMany();
+  }
+
+  /** Records that the end-of-monitoring reminder has gone (in the caller's transaction, under the row lock). */
+  async markMonitoringReminded(m: EntityManager, caseId: number, at: Date): Promise<void> {
+    await m.getRepository(Case).update(caseId, { monitoringRemindedAt: at });
+  }
+
+  /**
+   * Every landlord's open cases whose next deadline falls at or before `by` (overdue included),
+   * soonest first, with their homes' addresses: what the officers' daily digest lists.
+   */
+  async openDueBy(by: Date): Promise<Case[]> {
+    return this.dataSource.getRepository(Case).find({
+      select: { id: true, organisationId: true, reference: true, assigneeUserId: true, nextStage: true, nextDueAt: true, property: { id: true, addressLine1: true, town: true, postcode: true } },
+      where: { status: In([...OPEN_CASE_STATUSES]), nextDueAt: LessThanOrEqual(by) },
+      relations: { property: true },
+      order: { nextDueAt: "ASC", id: "ASC" },
+    });
+  }
+
+  /** One case with its rooms and its home's rooms, without an access check (for background work: triage). */
+  async findById(id: number): Promise<Case | null> {
+    return this.dataSource.getRepository(Case).findOne({ where: { id }, relations: { rooms: true, property: { rooms: true } } });
+  }
+
+  /** Cases by id with their homes and the homes' rooms, without an access check (callers have checked the orders they came from). */
+  async findByIds(ids: readonly number[]): Promise<Case[]> {
+    if (!ids.length) return [];
+    return this.dataSource.getRepository(Case).find({ where: { id: In([...new Set(ids)]) }, relations: { property: { rooms: true } } });
+  }
+
+  /** Other cases of the same landlord at the same home, newest first (at most 49). */
+  async relatedTo(c: Case): Promise<Case[]> {
+    const all = await this.dataSource.getRepository(Case).find({ where: { propertyId: c.propertyId, organisationId: c.organisationId }, order: { awareAt: "DESC" }, take: 50 });
+    return all.filter((o) => o.id !== c.id);
+  }
+
+  /** Whether another case at the same home became known within `withinMs` of this one (recurrence). */
+  async hasOtherCaseNear(c: Pick<Case, "id" | "propertyId" | "awareAt">, withinMs: number): Promise<boolean> {
+    return this.dataSource
+      .getRepository(Case)
+      .createQueryBuilder("o")
+      .where("o.property_id = :p AND o.id <> :id AND o.aware_at BETWEEN :from AND :to", {
+        p: c.propertyId,
+        id: c.id,
+        from: new Date(c.awareAt.getTime() - withinMs),
+        to: new Date(c.awareAt.getTime() + withinMs),
+      })
+      .getExists();
+  }
+
+  /** Ids of cases whose triage figures are stale (of one landlord, or all), the longest-stale first. */
+  async staleIds(organisationId: number | undefined, limit: number): Promise<number[]> {
+    const qb = this.dataSource.getRepository(Case).createQueryBuilder("c").select("c.id", "id").where("c.triage_due_at <= CURRENT_TIMESTAMP(3)");
+    if (organisationId !== undefined) qb.andWhere("c.organisation_id = :org", { org: organisationId });
+    const rows: { id: number }[] = await qb.orderBy("c.triage_due_at", "ASC").limit(limit).getRawMany();
+    return rows.map((r) => r.id);
+  }
+
+  /**
+   * Stores the triage figures TriageService worked out from facts read when the case was as `seen`.
+   * Takes the case row's lock and writes only if the case is unchanged since (its stale mark and
+   * updated_at are as they were): a change made meanwhile keeps its stale mark, and the next reader
+   * works the figures out again. Returns whether they were written. updated_at is left alone: it
+   * stands for real changes to the case, not for its derived figures.
+   */
+  async storeTriageFigures(caseId: number, seen: { triageDueAt: Date | null; updatedAt: Date }, figures: TriageFigures): Promise<boolean> {
+    return this.dataSource.transaction(async (m) => {
+      const [row] = (await m.query("SELECT triage_due_at, updated_at FROM cases WHERE id = ? FOR UPDATE", [caseId])) as { triage_due_at: Date | null; updated_at: Date }[];
+      if (!row) return false;
+      const time = (d: Date | null) => (d === null ? null : new Date(d).getTime());
+      if (time(row.triage_due_at) !== time(seen.triageDueAt) || time(row.updated_at) !== seen.updatedAt.getTime()) return false;
+      await m.getRepository(Case).update(caseId, { ...figures, updatedAt: () => "updated_at" } as unknown as Partial<Case>);
+      return true;
+    });
   }
 
   /** A tenant reports for their own home; staff log a report on a tenant's behalf with its channel and awareness date. */
@@ -63,7 +208,7 @@ export class CaseService {
     if (isStaff(actor)) {
       const staff = input as StaffCaseReport;
       property = await this.properties.getForStaff(actor, staff.propertyId);
-      tenantUserId = staff.tenantUserId ?? (await this.currentTenantOf(property.id));
+      tenantUserId = staff.tenantUserId ?? (await this.tenancies.currentTenantOf(property.id));
       if (staff.tenantUserId !== undefined && !(await this.livesAt(staff.tenantUserId, property.id))) {
         throw new ValidationError("tenantUserId: that tenant does not live at this home.", [{ field: "tenantUserId", message: "That tenant does not live at this home." }]);
       }
@@ -117,7 +262,7 @@ export class CaseService {
         await m.createQueryBuilder().relation(Case, "rooms").of(saved.id).add(roomIds);
       }
       // Another case at this home changes the others' recurrence.
-      await markTriageStale(m, { propertyId: property.id });
+      await this.markStale(m, { propertyId: property.id });
       await this.recordEvent(m, {
         caseId: saved.id,
         actorId: actor.id,
@@ -137,14 +282,14 @@ export class CaseService {
         },
       });
       const deliveries: (() => Promise<unknown>)[] = [];
-      const organisation = await m.getRepository(Organisation).findOneByOrFail({ id: property.organisationId });
+      const organisationName = await this.organisations.nameOf(property.organisationId, m);
       if (tenantUserId !== null) {
-        const tenant = await m.getRepository(User).findOneByOrFail({ id: tenantUserId });
+        const tenant = await this.users.person(tenantUserId, m);
         deliveries.push(
           await this.queueMail(m, saved, {
             to: tenant.email,
             template: "caseAcknowledgement",
-            data: { name: tenant.name, reference: saved.reference, address: addressOf(property), link: `${this.config.appUrl}/cases/${saved.id}`, organisationName: organisation.name },
+            data: { name: tenant.name, reference: saved.reference, address: addressOf(property), link: `${this.config.appUrl}/cases/${saved.id}`, organisationName },
           }),
         );
       }
@@ -164,7 +309,7 @@ export class CaseService {
    */
   async alertOfficers(m: EntityManager, c: Case, property: Property, reasons: string[]): Promise<(() => Promise<unknown>)[]> {
     if (c.officersAlertedAt) return [];
-    const officers = await m.getRepository(User).findBy({ organisationId: c.organisationId, role: "officer", status: "active" });
+    const officers = await this.users.activeStaffOf(c.organisationId, ["officer"], m);
     c.officersAlertedAt = new Date();
     await m.getRepository(Case).update(c.id, { officersAlertedAt: c.officersAlertedAt });
     const out: (() => Promise<unknown>)[] = [];
@@ -183,7 +328,7 @@ export class CaseService {
   /** Alerts officers in a transaction of its own (used after readings are added). */
   async alertOfficersNow(c: Case, reasons: string[]): Promise<void> {
     const deliveries = await this.dataSource.transaction(async (m) => {
-      const fresh = await m.getRepository(Case).findOne({ where: { id: c.id }, lock: { mode: "pessimistic_write" } });
+      const fresh = await this.lockRow(m, c.id).catch(() => null);
       if (!fresh || fresh.officersAlertedAt) return [];
       return this.alertOfficers(m, fresh, c.property!, reasons);
     });
@@ -197,20 +342,8 @@ export class CaseService {
     return deliver;
   }
 
-  private async currentTenantOf(propertyId: number): Promise<number | null> {
-    const today = new Date().toISOString().slice(0, 10);
-    const row = await this.dataSource
-      .getRepository(Tenancy)
-      .createQueryBuilder("t")
-      .where("t.property_id = :propertyId AND t.start_date <= :today AND (t.end_date IS NULL OR t.end_date >= :today)", { propertyId, today })
-      .orderBy("t.start_date", "DESC")
-      .getOne();
-    return row?.tenantUserId ?? null;
-  }
-
   private async livesAt(tenantUserId: number, propertyId: number): Promise<boolean> {
-    return (await this.currentTenantOf(propertyId)) === tenantUserId ||
-      (await this.dataSource.getRepository(Tenancy).existsBy({ tenantUserId, propertyId }));
+    return (await this.tenancies.currentTenantOf(propertyId)) === tenantUserId || (await this.tenancies.hasLivedAt(tenantUserId, propertyId));
   }
 
   /**
@@ -240,17 +373,22 @@ export class CaseService {
     // Internal notes are for staff only, and so are e-mails to anyone but the tenant themselves.
     const events = staff ? all : all.filter((e) => e.type !== "internal-note" && !(e.type === "email-queued" && e.after?.to !== actor.email));
     const actorIds = [...new Set(events.map((e) => e.actorUserId).filter((v): v is number => v !== null))];
-    const users = actorIds.length ? await this.dataSource.getRepository(User).findBy({ id: In(actorIds) }) : [];
-    const names = new Map(users.map((u) => [u.id, { name: u.name, role: u.role }]));
+    const names = new Map([...(await this.users.people(actorIds)).values()].map((u) => [u.id, { name: u.name, role: u.role }]));
     // Staff see each e-mail's delivery as the outbox records it now.
     const outboxIds = staff ? [...new Set(events.map((e) => e.after?.outboxId).filter((v): v is number => typeof v === "number"))] : [];
-    const outbox = outboxIds.length ? await this.dataSource.getRepository(OutboxEmail).findBy({ id: In(outboxIds) }) : [];
-    const emails = new Map(outbox.map((o) => [o.id, { status: o.status, to: o.toAddress, template: o.template, sentAt: o.sentAt?.toISOString() ?? null, error: o.error }]));
+    const emails = await this.mail.deliveries(outboxIds);
     return events.map((e) => ({
       event: e,
       actor: e.actorUserId === null ? null : (names.get(e.actorUserId) ?? null),
       email: typeof e.after?.outboxId === "number" ? (emails.get(e.after.outboxId) ?? null) : null,
     }));
+  }
+
+  /** The case's latest event of one kind, with its typed payload, or null. */
+  async latestEvent<T extends CaseEventType>(caseId: number, type: T): Promise<(CaseEventOf<T> & { actorUserId: number | null; createdAt: Date }) | null> {
+    const row = await this.dataSource.getRepository(CaseEvent).findOne({ where: { caseId, type }, order: { id: "DESC" } });
+    const event = row && asCaseEvent(row, type);
+    return row && event ? { ...event, actorUserId: row.actorUserId, createdAt: row.createdAt } : null;
   }
 
   /** "It's got worse": recorded on the timeline, and officers are told if they have not been yet. */
@@ -270,26 +408,13 @@ export class CaseService {
   async update(actor: Actor, id: number, patch: CasePatch): Promise<Case> {
     await this.dataSource.transaction(async (m) => {
       await this.getForActor(actor, id, m);
-      const c = await m.getRepository(Case).findOneOrFail({ where: { id }, lock: { mode: "pessimistic_write" } });
+      const c = await this.lockRow(m, id);
       const changes: Partial<Case> = {};
-      if (patch.status !== undefined && patch.status !== c.status) {
-        if (!canTransition(c.status, patch.status)) {
-          throw new ConflictError(`A case that is ${c.status} cannot move to ${patch.status}. From ${c.status} it can move to: ${CASE_TRANSITIONS[c.status].join(", ")}.`, {
-            from: c.status,
-            to: patch.status,
-            allowed: CASE_TRANSITIONS[c.status],
-          });
-        }
-        if (transitionNeedsReason(c.status, patch.status) && !patch.reason) {
-          throw new ValidationError("reason: say why the case is being cancelled or reopened.", [{ field: "reason", message: "Say why the case is being cancelled or reopened." }]);
-        }
-        await this.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "status-changed", before: { status: c.status }, after: { status: patch.status, reason: patch.reason ?? null } });
-        changes.status = patch.status;
-      }
+      if (patch.status !== undefined) await this.transition(m, c.id, patch.status, patch.reason ?? null, actor);
       if (patch.assigneeId !== undefined && patch.assigneeId !== c.assigneeUserId) {
         if (patch.assigneeId !== null) {
-          const assignee = await m.getRepository(User).findOneBy({ id: patch.assigneeId, organisationId: c.organisationId, status: "active" });
-          if (!assignee || assignee.role === "tenant") {
+          const assignee = await this.users.findStaff(c.organisationId, patch.assigneeId, undefined, m);
+          if (!assignee) {
             throw new ValidationError("assigneeId: choose an active staff member of this landlord.", [{ field: "assigneeId", message: "Choose an active staff member of this landlord." }]);
           }
         }

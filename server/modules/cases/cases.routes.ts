@@ -1,22 +1,22 @@
 import { Router } from "express";
-import multer from "multer";
 import { caseReportSchema, staffCaseSchema } from "../../../src/lib/schemas/case-report.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth, requireRole } from "../../middleware/auth.js";
 import { isStaff } from "../auth/actor.js";
-import { toPhotoDto } from "../photos/photo.mapper.js";
-import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_UPLOAD, type PhotoService } from "../photos/photo.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { CaseService } from "./case.service.js";
 import { toCaseDto, toCaseEventDto } from "./case.mapper.js";
 import { casePatchSchema, worseSchema } from "./cases.schemas.js";
-import { uploadTmpDir } from "./upload-dir.js";
 
+/** Each case's photo count and first photo (PhotoService gives it; cases depend on no photo code). */
+export interface CasePhotoSummaries {
+  summaries(caseIds: number[]): Promise<Map<number, { count: number; firstId: number }>>;
+}
 
-export function createCasesRouter({ cases, photos }: { cases: CaseService; photos: PhotoService }): Router {
+/** The case itself; its photos' routes are in photos.routes.ts (createCasePhotosRouter). */
+export function createCasesRouter({ cases }: { cases: CaseService }): Router {
   const router = Router();
   router.use(requireAuth);
-  const photoUpload = multer({ dest: uploadTmpDir, limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 } }).array("photos", MAX_PHOTOS_PER_UPLOAD);
 
   router.post("/", requireRole("tenant", "officer", "admin"), async (req, res) => {
     const actor = actorOf(req);
@@ -48,33 +48,11 @@ export function createCasesRouter({ cases, photos }: { cases: CaseService; photo
     res.status(204).end();
   });
 
-  router.get("/:id/photos", async (req, res) => {
-    const { id } = parse(idParamsSchema, req.params, "params");
-    res.json({ photos: (await photos.listForCase(actorOf(req), id)).map(toPhotoDto) });
-  });
-
-  router.post(
-    "/:id/photos",
-    // Access first, so nothing is even written to a temporary file for a case the user cannot see.
-    async (req, _res, next) => {
-      const { id } = parse(idParamsSchema, req.params, "params");
-      await cases.getForActor(actorOf(req), id);
-      next();
-    },
-    photoUpload,
-    async (req, res) => {
-      const { id } = parse(idParamsSchema, req.params, "params");
-      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
-      const added = await photos.addToCase(actorOf(req), id, files);
-      res.status(201).json({ photos: added.map(toPhotoDto) });
-    },
-  );
-
   return router;
 }
 
 /** `GET /api/me/cases`: the tenant's own cases, each with its photo count and first thumbnail. */
-export function createMyCasesRouter({ cases, photos }: { cases: CaseService; photos: PhotoService }): Router {
+export function createMyCasesRouter({ cases, photos }: { cases: CaseService; photos: CasePhotoSummaries }): Router {
   const router = Router();
   router.get("/", requireRole("tenant"), async (req, res) => {
     const items = await cases.listForTenant(actorOf(req));

@@ -12,15 +12,15 @@
 //   e-mail, and the e-mail is sent after the commit. A crash before the commit leaves nothing (the
 //   next run sends it); after the commit the day counts as done (the outbox row shows whether the
 //   send worked). Two runs at once: the second insert hits the unique key and rolls its e-mail back.
-import { In, LessThanOrEqual, Not, type DataSource } from "typeorm";
+import { In, type DataSource } from "typeorm";
 import type { DeadlineStage } from "../../../src/lib/domain/deadlines.js";
 import { addWorkingDays, endOfLocalDay, isWorkingDay, localDate, LONDON_TIME_ZONE } from "../../../src/lib/domain/working-days.js";
 import type { Config } from "../../config/env.js";
 import type { Logger } from "../../lib/logger.js";
-import { Case } from "../cases/case.entity.js";
-import { addressOf } from "../cases/case.service.js";
+import type { Case } from "../cases/case.entity.js";
+import { addressOf, type CaseService } from "../cases/case.service.js";
 import type { MailService } from "../mail/mail.service.js";
-import { User } from "../users/user.entity.js";
+import type { Person, UserService } from "../users/user.service.js";
 import { DeadlineDigest } from "./deadline-digest.entity.js";
 
 /** How many working days ahead the digest looks (after today). */
@@ -47,8 +47,6 @@ export interface DigestRun {
   /** Officers whose digest could not be recorded (logged; the next run tries again). */
   failed: number;
 }
-
-const OPEN_EXCLUDED = ["closed", "cancelled"] as const;
 
 const dayParts = new Intl.DateTimeFormat("en-GB", { timeZone: LONDON_TIME_ZONE, weekday: "long", day: "numeric", month: "long", year: "numeric" });
 const timeParts = new Intl.DateTimeFormat("en-GB", { timeZone: LONDON_TIME_ZONE, hour: "2-digit", minute: "2-digit", hourCycle: "h23" });
@@ -84,6 +82,8 @@ export class DigestService {
     private readonly config: Config,
     private readonly mail: MailService,
     private readonly logger: Logger,
+    private readonly cases: CaseService,
+    private readonly users: UserService,
   ) {}
 
   /** Sends today's digests (London day of `now`) to every officer who has not had one yet. */
@@ -94,12 +94,7 @@ export class DigestService {
     const windowEnd = addWorkingDays(now, DIGEST_WORKING_DAYS);
 
     // Every landlord at once: open cases with a deadline at or before the end of the window.
-    const due = await this.dataSource.getRepository(Case).find({
-      select: { id: true, organisationId: true, reference: true, assigneeUserId: true, nextStage: true, nextDueAt: true, property: { id: true, addressLine1: true, town: true, postcode: true } },
-      where: { status: Not(In([...OPEN_EXCLUDED])), nextDueAt: LessThanOrEqual(windowEnd) },
-      relations: { property: true },
-      order: { nextDueAt: "ASC", id: "ASC" },
-    });
+    const due = await this.cases.openDueBy(windowEnd);
     if (due.length === 0) return run;
 
     const byOrganisation = new Map<number, Case[]>();
@@ -108,10 +103,7 @@ export class DigestService {
       if (list) list.push(c);
       else byOrganisation.set(c.organisationId, [c]);
     }
-    const officers = await this.dataSource.getRepository(User).find({
-      where: { organisationId: In([...byOrganisation.keys()]), role: "officer", status: "active" },
-      order: { id: "ASC" },
-    });
+    const officers = await this.users.activeOfficersOf([...byOrganisation.keys()]);
     if (officers.length === 0) return run;
     const done = new Set(
       (await this.dataSource.getRepository(DeadlineDigest).find({ select: { userId: true }, where: { digestDate: date, userId: In(officers.map((o) => o.id)) } })).map((d) => d.userId),
@@ -136,7 +128,7 @@ export class DigestService {
     return run;
   }
 
-  private async sendOne(officer: User, cases: Case[], at: { now: Date; date: string; windowEnd: Date }): Promise<"sent" | "already-sent"> {
+  private async sendOne(officer: Person, cases: Case[], at: { now: Date; date: string; windowEnd: Date }): Promise<"sent" | "already-sent"> {
     const nowMs = at.now.getTime();
     const items = cases
       .map((c) => ({ c, overdue: c.nextDueAt!.getTime() < nowMs }))

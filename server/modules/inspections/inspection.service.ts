@@ -1,12 +1,10 @@
 import type { DataSource } from "typeorm";
-import { canTransition } from "../../../src/lib/domain/case-workflow.js";
 import type { Config } from "../../config/env.js";
 import { ConflictError, ValidationError } from "../../lib/errors.js";
 import type { Actor } from "../auth/actor.js";
-import { Case } from "../cases/case.entity.js";
 import type { CaseService } from "../cases/case.service.js";
 import type { MailService } from "../mail/mail.service.js";
-import { User } from "../users/user.entity.js";
+import type { UserService } from "../users/user.service.js";
 import { Inspection } from "./inspection.entity.js";
 import type { InspectionInput } from "./inspections.schemas.js";
 import { WrittenSummary } from "./written-summary.entity.js";
@@ -18,6 +16,7 @@ export class InspectionService {
     private readonly config: Config,
     private readonly cases: CaseService,
     private readonly mail: MailService,
+    private readonly users: UserService,
   ) {}
 
   /** Records an inspection; the case moves to `investigated` when the workflow allows it from where it is. */
@@ -32,11 +31,7 @@ export class InspectionService {
       const repo = m.getRepository(Inspection);
       const saved = await repo.save(repo.create({ ...input, caseId: c.id, inspectedAt, inspectorUserId: actor.id }));
       await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "inspection-recorded", after: { inspectionId: saved.id, inspectedAt: inspectedAt.toISOString(), cause: input.cause, mouldExtent: input.mouldExtent } });
-      const fresh = await m.getRepository(Case).findOneOrFail({ where: { id: c.id }, lock: { mode: "pessimistic_write" } });
-      if (fresh.status !== "investigated" && canTransition(fresh.status, "investigated")) {
-        await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "status-changed", before: { status: fresh.status }, after: { status: "investigated", reason: "Inspection recorded." } });
-        await m.getRepository(Case).update(c.id, { status: "investigated" });
-      }
+      await this.cases.transition(m, c.id, "investigated", "Inspection recorded.", actor, { ifAllowed: true });
       return saved;
     });
   }
@@ -69,7 +64,7 @@ export class InspectionService {
         throw new ConflictError("Record the inspection before sending the written summary of it.");
       }
       if (c.tenantUserId === null) throw new ConflictError("This case has no tenant account to send the summary to.");
-      const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
+      const tenant = await this.users.person(c.tenantUserId, m);
       const { outboxId, deliver } = await this.mail.enqueueWithId(m, {
         to: tenant.email,
         template: "writtenSummary",
@@ -98,7 +93,7 @@ export class InspectionService {
         await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "message-to-tenant", after: { body } });
         return null;
       }
-      const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
+      const tenant = await this.users.person(c.tenantUserId, m);
       const { outboxId, deliver } = await this.mail.enqueueWithId(m, {
         to: tenant.email,
         template: "caseMessage",

@@ -1,4 +1,4 @@
-import type { DataSource, EntityManager } from "typeorm";
+import { In, type DataSource, type EntityManager } from "typeorm";
 import type { Logger } from "../../lib/logger.js";
 import type { Mailer } from "../../lib/mailer.js";
 import { mailTemplates, type MailTemplateName, type RenderedMail } from "./mail-templates.js";
@@ -44,6 +44,13 @@ export class MailService {
       }),
     );
     return { outboxId: row.id, deliver: () => this.deliver(row, rendered) };
+  }
+
+  /** How each outbox row stands now (case timelines show staff each e-mail's delivery). */
+  async deliveries(ids: readonly number[]): Promise<Map<number, { status: string; to: string; template: string; sentAt: string | null; error: string | null }>> {
+    if (!ids.length) return new Map();
+    const rows = await this.dataSource.getRepository(OutboxEmail).findBy({ id: In([...new Set(ids)]) });
+    return new Map(rows.map((o) => [o.id, { status: o.status, to: o.toAddress, template: o.template, sentAt: o.sentAt?.toISOString() ?? null, error: o.error }]));
   }
 
   async send<T extends MailTemplateName>(mail: SendMail<T>): Promise<OutboxEmail> {

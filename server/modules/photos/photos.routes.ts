@@ -1,8 +1,43 @@
 import { Router, type RequestHandler } from "express";
+import multer from "multer";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth } from "../../middleware/auth.js";
+import type { CaseService } from "../cases/case.service.js";
+import { uploadTmpDir } from "../cases/upload-dir.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
-import type { PhotoService } from "./photo.service.js";
+import { toPhotoDto } from "./photo.mapper.js";
+import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_UPLOAD, type PhotoService } from "./photo.service.js";
+
+/** Mounted at /api/cases: a case's photos, `GET` and `POST /:id/photos`. */
+export function createCasePhotosRouter({ cases, photos }: { cases: CaseService; photos: PhotoService }): Router {
+  const router = Router();
+  router.use(requireAuth);
+  const photoUpload = multer({ dest: uploadTmpDir, limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 } }).array("photos", MAX_PHOTOS_PER_UPLOAD);
+
+  router.get("/:id/photos", async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    res.json({ photos: (await photos.listForCase(actorOf(req), id)).map(toPhotoDto) });
+  });
+
+  router.post(
+    "/:id/photos",
+    // Access first, so nothing is even written to a temporary file for a case the user cannot see.
+    async (req, _res, next) => {
+      const { id } = parse(idParamsSchema, req.params, "params");
+      await cases.getForActor(actorOf(req), id);
+      next();
+    },
+    photoUpload,
+    async (req, res) => {
+      const { id } = parse(idParamsSchema, req.params, "params");
+      const files = (req.files as Express.Multer.File[] | undefined) ?? [];
+      const added = await photos.addToCase(actorOf(req), id, files);
+      res.status(201).json({ photos: added.map(toPhotoDto) });
+    },
+  );
+
+  return router;
+}
 
 /** `GET /api/photos/:id` and `/thumbnail`: only through here, never as public static files. */
 export function createPhotosRouter({ photos }: { photos: PhotoService }): Router {

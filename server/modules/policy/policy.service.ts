@@ -1,7 +1,7 @@
 import type { DataSource } from "typeorm";
 import { ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, type DeadlinePolicy } from "../../../src/lib/domain/deadlines.js";
 import type { Actor } from "../auth/actor.js";
-import { markTriageStale } from "../triage/triage.service.js";
+import type { CaseService } from "../cases/case.service.js";
 import { DeadlinePolicyRecord } from "./deadline-policy.entity.js";
 
 /** Days of readings after the works before the fix is judged: our default (common practice, no source). */
@@ -14,7 +14,10 @@ export interface PolicyView extends DeadlinePolicy {
 }
 
 export class PolicyService {
-  constructor(private readonly dataSource: DataSource) {}
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly cases: CaseService,
+  ) {}
 
   /** The landlord's timeframes, or the England social-housing default (TRADE.md §5) when none are set. */
   async forOrganisation(organisationId: number): Promise<PolicyView> {
@@ -28,7 +31,7 @@ export class PolicyService {
     await this.dataSource.transaction(async (m) => {
       await m.getRepository(DeadlinePolicyRecord).save({ organisationId: actor.organisationId, ...policy, updatedById: actor.id });
       // Every open case's deadlines follow the policy.
-      await markTriageStale(m, { organisationId: actor.organisationId });
+      await this.cases.markStale(m, { organisationId: actor.organisationId });
     });
     return this.forOrganisation(actor.organisationId);
   }
@@ -36,7 +39,7 @@ export class PolicyService {
   async reset(actor: Actor): Promise<PolicyView> {
     await this.dataSource.transaction(async (m) => {
       await m.getRepository(DeadlinePolicyRecord).delete({ organisationId: actor.organisationId });
-      await markTriageStale(m, { organisationId: actor.organisationId });
+      await this.cases.markStale(m, { organisationId: actor.organisationId });
     });
     return this.forOrganisation(actor.organisationId);
   }

@@ -1,7 +1,7 @@
 import { Brackets, type DataSource } from "typeorm";
 import { NotFoundError } from "../../lib/errors.js";
 import { escapeLike } from "../../lib/sql.js";
-import type { Actor } from "../auth/actor.js";
+import type { Actor } from "../../lib/actor.js";
 import type { PropertyListQuery } from "./properties.schemas.js";
 import { Property } from "./property.entity.js";
 
@@ -46,6 +46,11 @@ export class PropertyService {
       .findOne({ where: { id, organisationId: actor.organisationId }, relations: { rooms: true } });
     if (!property) throw new NotFoundError("No such home.");
     return property;
+  }
+
+  /** The tenant's home with its rooms (TenancyService has decided it is theirs). */
+  async homeWithRooms(id: number): Promise<Property> {
+    return this.dataSource.getRepository(Property).findOneOrFail({ where: { id }, relations: { rooms: true } });
   }
 
   async estates(actor: Actor): Promise<string[]> {

@@ -2,6 +2,7 @@
 import type { DataSource, EntityManager } from "typeorm";
 import type { SeriesReading } from "../../../src/lib/domain/series.js";
 import { ValidationError } from "../../lib/errors.js";
+import type { NewCaseEvent } from "../cases/case-events.js";
 import { AIR_TEMPERATURE_C, OUTDOOR_TEMPERATURE_C, RELATIVE_HUMIDITY_PCT, SURFACE_TEMPERATURE_C } from "./csv/limits.js";
 import { round2 } from "./csv/numbers.js";
 import { toSqlUtc } from "./csv/rows.js";
@@ -75,7 +76,7 @@ function checkManual(readings: readonly ManualReading[]): void {
 
 /** Writes the case timeline entry inside the readings' own transaction (CaseService does). */
 export interface CaseEventRecorder {
-  recordEvent(m: EntityManager, e: { caseId: number; actorId: number | null; type: string; after?: Record<string, unknown> | null }): Promise<void>;
+  recordEvent(m: EntityManager, e: NewCaseEvent): Promise<void>;
 }
 
 export class ReadingService {
@@ -121,6 +122,11 @@ export class ReadingService {
       await this.events.recordEvent(m, { caseId, actorId: options.actorId, type: "readings-added", after: { imported, duplicates, roomIds, roomId: roomIds[0] } });
       return { imported, duplicates };
     });
+  }
+
+  /** How many readings the case has taken at or after `since` (inside the caller's transaction when given one). */
+  async countSince(caseId: number, since: Date, m: EntityManager = this.dataSource.manager): Promise<number> {
+    return Number((await m.query("SELECT COUNT(*) AS n FROM readings WHERE case_id = ? AND taken_at >= ?", [caseId, since]))[0]?.n ?? 0);
   }
 
   /** Readings of a case (one room, or all), oldest first; at most `limit` (the oldest ones, or with `newest` the latest). */

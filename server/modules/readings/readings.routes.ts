@@ -6,7 +6,7 @@ import { ValidationError } from "../../lib/errors.js";
 import { actorOf } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
 import { uploadTmpDir } from "../cases/upload-dir.js";
-import type { EvaluationService } from "../evaluation/evaluation.service.js";
+import type { Actor } from "../auth/actor.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { ReadingImportService } from "./reading-import.service.js";
 import type { ReadingService } from "./reading.service.js";
@@ -19,10 +19,11 @@ interface Deps {
   cases: CaseService;
   readings: ReadingService;
   imports: ReadingImportService;
-  evaluation: EvaluationService;
+  /** Tells officers when the new readings make the case risky (EvaluationService; readings depend on no evaluation code). */
+  evaluation: { alertIfRisky(actor: Actor, caseId: number): Promise<void> };
 }
 
-/** Mounted at /api/cases: `/:id/readings…` and `/:id/evaluation`. */
+/** Mounted at /api/cases: `/:id/readings…` (the evaluation is in evaluation.routes.ts). */
 export function createReadingsRouter({ cases, readings, imports, evaluation }: Deps): Router {
   const router = Router();
   const csvUpload = multer({ dest: uploadTmpDir, limits: { fileSize: MAX_CSV_BYTES, files: 1, fields: 10 } }).single("file");
@@ -95,11 +96,6 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
     const c = await cases.getForActor(actorOf(req), id);
     const csv = await imports.rejectedReport(c.id, importId);
     res.type("text/csv").attachment(`rejected-rows-import-${importId}.csv`).send(csv);
-  });
-
-  router.get("/:id/evaluation", async (req, res) => {
-    const { id } = parse(idParamsSchema, req.params, "params");
-    res.json(await evaluation.forCase(actorOf(req), id));
   });
 
   return router;

@@ -1,13 +1,17 @@
 import { IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
 import { NotFoundError } from "../../lib/errors.js";
-import type { Actor } from "../auth/actor.js";
-import { Property } from "../properties/property.entity.js";
+import type { Actor } from "../../lib/actor.js";
+import type { Property } from "../properties/property.entity.js";
+import type { PropertyService } from "../properties/property.service.js";
 import { Tenancy } from "./tenancy.entity.js";
 
 const today = () => new Date().toISOString().slice(0, 10);
 
 export class TenancyService {
-  constructor(private readonly dataSource: DataSource) {}
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly properties: PropertyService,
+  ) {}
 
   /** Starts a tenancy today (inside the caller's transaction). */
   async start(m: EntityManager, t: { propertyId: number; tenantUserId: number; householdNotes: string | null; startDate?: string }) {
@@ -29,13 +33,34 @@ export class TenancyService {
     });
   }
 
+  /** The tenant living at the home now (the latest current tenancy), or null. */
+  async currentTenantOf(propertyId: number, m: EntityManager = this.dataSource.manager): Promise<number | null> {
+    const d = today();
+    const row = await m
+      .getRepository(Tenancy)
+      .createQueryBuilder("t")
+      .where("t.property_id = :propertyId AND t.start_date <= :today AND (t.end_date IS NULL OR t.end_date >= :today)", { propertyId, today: d })
+      .orderBy("t.start_date", "DESC")
+      .getOne();
+    return row?.tenantUserId ?? null;
+  }
+
+  /** Whether the tenant has ever had a tenancy of the home. */
+  async hasLivedAt(tenantUserId: number, propertyId: number): Promise<boolean> {
+    return this.dataSource.getRepository(Tenancy).existsBy({ tenantUserId, propertyId });
+  }
+
+  /** The household notes of the tenant's latest tenancy of the home, or null. */
+  async householdNotes(propertyId: number, tenantUserId: number, m: EntityManager = this.dataSource.manager): Promise<string | null> {
+    const t = await m.getRepository(Tenancy).findOne({ where: { propertyId, tenantUserId }, order: { startDate: "DESC" } });
+    return t?.householdNotes ?? null;
+  }
+
   /** The home a tenant lives in now, with its rooms. */
   async homeOf(actor: Actor): Promise<{ tenancy: Tenancy; property: Property }> {
     const tenancy = await this.currentFor(actor);
     if (!tenancy) throw new NotFoundError("We could not find a current tenancy for your account. Please contact your landlord.");
-    const property = await this.dataSource
-      .getRepository(Property)
-      .findOneOrFail({ where: { id: tenancy.propertyId }, relations: { rooms: true } });
+    const property = await this.properties.homeWithRooms(tenancy.propertyId);
     return { tenancy, property };
   }
 }

@@ -1,11 +1,11 @@
 import { z } from "zod";
-import { CASE_STATUSES, type CaseStatus } from "../../../src/lib/domain/case-workflow.js";
+import { CASE_STATUSES, OPEN_CASE_STATUSES, type CaseStatus } from "../../../src/lib/domain/case-workflow.js";
 import { BANDS } from "../../../src/lib/domain/hhsrs.js";
 
 export const QUEUE_SORTS = ["reference", "address", "estate", "rooms", "awareAt", "channel", "risk", "mouldIndex", "area", "vulnerable", "band", "priority", "due", "status", "assignee"] as const;
 export type QueueSort = (typeof QUEUE_SORTS)[number];
 
-export const OPEN_STATUSES: readonly CaseStatus[] = CASE_STATUSES.filter((s) => s !== "closed" && s !== "cancelled");
+export const OPEN_STATUSES: readonly CaseStatus[] = OPEN_CASE_STATUSES;
 const RISKS = ["condensing", "mould-risk", "borderline", "dry", "unknown"] as const;
 const CATEGORIES = ["1", "2", "none"] as const;
 const BAND_LETTERS = BANDS.map((b) => b.band);

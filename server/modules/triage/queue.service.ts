@@ -240,9 +240,4 @@ export class QueueService {
     return out;
   }
 
-  /** Other cases at the same home as this one, newest first. */
-  async related(c: Case): Promise<Case[]> {
-    const all = await this.dataSource.getRepository(Case).find({ where: { propertyId: c.propertyId, organisationId: c.organisationId }, order: { awareAt: "DESC" }, take: 50 });
-    return all.filter((o) => o.id !== c.id);
-  }
 }

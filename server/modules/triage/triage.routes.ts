@@ -50,7 +50,7 @@ export function createTriageRouter({ cases, queue, triage }: { cases: CaseServic
   router.get("/:id/related", staff, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const c = await cases.getForActor(actorOf(req), id);
-    const others = await queue.related(c);
+    const others = await cases.relatedTo(c);
     res.json({
       cases: others.map((o) => ({ id: o.id, reference: o.reference, status: o.status, awareAt: o.awareAt.toISOString(), hazardClass: o.hazardClass, description: o.description.slice(0, 200) })),
     });

@@ -1,9 +1,8 @@
-import { type DataSource, type EntityManager } from "typeorm";
 import { computeDeadlines, type Deadline } from "../../../src/lib/domain/deadlines.js";
 import { hoursUntilDeadlinePartChanges, triagePriority, type TriagePriority, type TriageVulnerability } from "../../../src/lib/domain/triage-priority.js";
 import type { Actor } from "../auth/actor.js";
-import { HhsrsAssessmentRecord } from "../assessments/assessment.entity.js";
-import { Case } from "../cases/case.entity.js";
+import type { AssessmentService } from "../assessments/assessment.service.js";
+import type { Case } from "../cases/case.entity.js";
 import type { CaseService } from "../cases/case.service.js";
 import type { EvaluationService } from "../evaluation/evaluation.service.js";
 import type { InspectionService } from "../inspections/inspection.service.js";
@@ -21,21 +20,12 @@ export function nextDeadline(status: Case["status"], deadlines: Deadline[]): Dea
   return running[0] ?? null;
 }
 
-/** Marks cases' triage figures stale inside the caller's transaction (see TriageService). */
-export async function markTriageStale(m: EntityManager, where: { caseIds: number[] } | { propertyId: number } | { organisationId: number }): Promise<void> {
-  const qb = m.createQueryBuilder().update(Case).set({ triageDueAt: () => "CURRENT_TIMESTAMP(3)" });
-  if ("caseIds" in where) qb.where("id IN (:...ids)", { ids: where.caseIds.length ? where.caseIds : [0] });
-  else if ("propertyId" in where) qb.where("property_id = :p", { p: where.propertyId });
-  else qb.where("organisation_id = :o AND status IN (:...open)", { o: where.organisationId, open: OPEN_STATUSES });
-  await qb.execute();
-}
-
 /**
  * The triage figures stored on each case for the queue (risk state, mould index, HHSRS result,
  * recurrence, next deadline, priority).
  *
  * How they stay true: every change to a case writes a CaseEvent, and writing one marks the case's
- * figures stale (`triage_due_at` = now) in the change's own transaction. Readers (the queue, the
+ * figures stale (CaseService.recordEvent, CaseService.markStale) (`triage_due_at` = now) in the change's own transaction. Readers (the queue, the
  * case page) and a background sweep work stale cases out again. A figure that changes with the
  * clock alone (the deadline factor) sets `triage_due_at` to the moment it changes. A refresh writes
  * only if the case is unchanged since it read the facts, so a change made meanwhile is not lost; a
@@ -43,57 +33,47 @@ export async function markTriageStale(m: EntityManager, where: { caseIds: number
  */
 export class TriageService {
   constructor(
-    private readonly dataSource: DataSource,
     private readonly cases: CaseService,
     private readonly evaluation: EvaluationService,
     private readonly policy: PolicyService,
     private readonly inspections: InspectionService,
+    private readonly assessments: AssessmentService,
   ) {}
 
   /**
    * Works one case's figures out now and stores them; returns the priority with its parts.
    * The facts are read without holding anything (a refresh never keeps one pooled connection waiting
-   * on another); the write then takes the case row's lock and happens only if the case has not
-   * changed meanwhile (its stale mark and updated_at are as they were). A case changed meanwhile stays
-   * marked, and the next reader works it out again.
+   * on another); CaseService.storeTriageFigures then takes the case row's lock and writes only if the
+   * case has not changed meanwhile (its stale mark and updated_at are as they were). A case changed
+   * meanwhile stays marked, and the next reader works it out again.
    */
   async refresh(caseId: number, now = new Date()): Promise<TriagePriority | null> {
-    const c = await this.dataSource.getRepository(Case).findOne({ where: { id: caseId }, relations: { rooms: true, property: { rooms: true } } });
+    const c = await this.cases.findById(caseId);
     if (!c) return null;
-    const seen = { due: c.triageDueAt?.getTime() ?? null, updated: c.updatedAt.getTime() };
-    const facts = await this.factsFor(this.dataSource.manager, c, now);
+    const seen = { triageDueAt: c.triageDueAt, updatedAt: c.updatedAt };
+    const facts = await this.factsFor(c, now);
     const priority = triagePriority(facts.input);
     const changesInHours = hoursUntilDeadlinePartChanges(facts.input.hoursUntilDeadline);
-    await this.dataSource.transaction(async (m) => {
-      const [row] = (await m.query("SELECT triage_due_at, updated_at FROM cases WHERE id = ? FOR UPDATE", [caseId])) as { triage_due_at: Date | null; updated_at: Date }[];
-      if (!row) return;
-      const time = (d: Date | null) => (d === null ? null : new Date(d).getTime());
-      if (time(row.triage_due_at) !== seen.due || time(row.updated_at) !== seen.updated) return;
-      await m.getRepository(Case).update(c.id, {
-        riskState: facts.risk.state,
-        mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
-        hhsrsBand: facts.latestAssessment?.band ?? null,
-        hhsrsCategory: (facts.latestAssessment?.category as 1 | 2 | undefined) ?? null,
-        recurrence: facts.input.recurrence,
-        priority: priority.score,
-        nextStage: facts.next?.stage ?? null,
-        nextDueAt: facts.next?.dueAt ?? null,
-        // 1 ms past the boundary, so the step has certainly been crossed when it is worked out again.
-        triageDueAt: changesInHours === null ? null : new Date(now.getTime() + changesInHours * HOUR_MS + 1),
-        // Keep updated_at for real changes to the case, not for its derived figures.
-        updatedAt: () => "updated_at",
-      } as unknown as Partial<Case>);
+    await this.cases.storeTriageFigures(c.id, seen, {
+      riskState: facts.risk.state,
+      mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
+      hhsrsBand: facts.latestAssessment?.band ?? null,
+      hhsrsCategory: (facts.latestAssessment?.category as 1 | 2 | undefined) ?? null,
+      recurrence: facts.input.recurrence,
+      priority: priority.score,
+      nextStage: facts.next?.stage ?? null,
+      nextDueAt: facts.next?.dueAt ?? null,
+      // 1 ms past the boundary, so the step has certainly been crossed when it is worked out again.
+      triageDueAt: changesInHours === null ? null : new Date(now.getTime() + changesInHours * HOUR_MS + 1),
     });
     return priority;
   }
 
   /** Refreshes up to `limit` stale cases (of one landlord, or all); returns how many. */
   async refreshStale(organisationId?: number, limit = 100): Promise<number> {
-    const qb = this.dataSource.getRepository(Case).createQueryBuilder("c").select("c.id", "id").where("c.triage_due_at <= CURRENT_TIMESTAMP(3)");
-    if (organisationId !== undefined) qb.andWhere("c.organisation_id = :org", { org: organisationId });
-    const rows: { id: number }[] = await qb.orderBy("c.triage_due_at", "ASC").limit(limit).getRawMany();
-    for (const { id } of rows) await this.refresh(id);
-    return rows.length;
+    const ids = await this.cases.staleIds(organisationId, limit);
+    for (const id of ids) await this.refresh(id);
+    return ids.length;
   }
 
   /** The case page's "how the priority was made up", worked out now. */
@@ -104,22 +84,13 @@ export class TriageService {
     return { ...priority!, computedAt: now };
   }
 
-  private async factsFor(m: EntityManager, c: Case, now: Date) {
+  private async factsFor(c: Case, now: Date) {
     const [policy, milestones, risk, latestAssessment, recurrence] = await Promise.all([
       this.policy.forOrganisation(c.organisationId),
       this.inspections.milestones(c.id),
       this.evaluation.riskOf(c),
-      m.getRepository(HhsrsAssessmentRecord).findOne({ where: { caseId: c.id }, order: { version: "DESC" } }),
-      m
-        .getRepository(Case)
-        .createQueryBuilder("o")
-        .where("o.property_id = :p AND o.id <> :id AND o.aware_at BETWEEN :from AND :to", {
-          p: c.propertyId,
-          id: c.id,
-          from: new Date(c.awareAt.getTime() - YEAR_MS),
-          to: new Date(c.awareAt.getTime() + YEAR_MS),
-        })
-        .getExists(),
+      this.assessments.latest(c.id),
+      this.cases.hasOtherCaseNear(c, YEAR_MS),
     ]);
     const { source: _source, ...timeframes } = policy;
     const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now, policy: timeframes });

@@ -1,4 +1,4 @@
-import type { Actor } from "../auth/actor.js";
+import type { Actor } from "../../lib/actor.js";
 import type { User } from "./user.entity.js";
 
 export const toMeDto = (a: Actor) => ({ id: a.id, email: a.email, name: a.name, role: a.role, organisationId: a.organisationId });

@@ -5,12 +5,10 @@ import type { Config } from "../../config/env.js";
 import { ConflictError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
 import type { Actor } from "../auth/actor.js";
-import { CaseEvent } from "../cases/case-event.entity.js";
-import { Case } from "../cases/case.entity.js";
 import type { CaseService } from "../cases/case.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
 import type { ReadingService } from "../readings/reading.service.js";
-import { User } from "../users/user.entity.js";
+import type { UserService } from "../users/user.service.js";
 import { WorkOrder } from "./work-order.entity.js";
 import type { WorkOrderService } from "./work-order.service.js";
 import type { WorkOrderCreate } from "./works.schemas.js";
@@ -34,16 +32,17 @@ export class VerificationService {
     private readonly works: WorkOrderService,
     private readonly policy: PolicyService,
     private readonly logger: Logger,
+    private readonly users: UserService,
   ) {}
 
   async view(actor: Actor, caseId: number): Promise<VerificationView> {
     const c = await this.cases.getForActor(actor, caseId);
     const { monitoringDays } = await this.policy.forOrganisation(c.organisationId);
-    const decided = await this.dataSource.getRepository(CaseEvent).findOne({ where: { caseId: c.id, type: "fix-verified" }, order: { id: "DESC" } });
+    const decided = await this.cases.latestEvent(c.id, "fix-verified");
     // A decision counts for the current works only (a later round of works starts afresh).
     const outcomeEvent = decided && c.worksDoneAt && decided.createdAt >= c.worksDoneAt ? decided : null;
-    const by = outcomeEvent?.actorUserId ? ((await this.dataSource.getRepository(User).findOneBy({ id: outcomeEvent.actorUserId }))?.name ?? null) : null;
-    const outcome = outcomeEvent ? { effective: Boolean(outcomeEvent.after?.effective), note: String(outcomeEvent.after?.note ?? ""), at: outcomeEvent.createdAt.toISOString(), by } : null;
+    const by = outcomeEvent?.actorUserId ? ((await this.users.people([outcomeEvent.actorUserId])).get(outcomeEvent.actorUserId)?.name ?? null) : null;
+    const outcome = outcomeEvent ? { effective: Boolean(outcomeEvent.after.effective), note: String(outcomeEvent.after.note ?? ""), at: outcomeEvent.createdAt.toISOString(), by } : null;
     if (!c.worksDoneAt) return { state: "no-works", worksDoneAt: null, monitoringEndsAt: null, monitoringDays, rooms: [], outcome: null };
     const property = c.property!;
     const element = elementsForReport(property, c.locations)[0];
@@ -61,7 +60,7 @@ export class VerificationService {
   async decide(actor: Actor, caseId: number, input: { effective: true; note: string } | { effective: false; note: string; workOrder: WorkOrderCreate }): Promise<void> {
     await this.dataSource.transaction(async (m) => {
       const c = await this.cases.getForActor(actor, caseId, m);
-      const fresh = await m.getRepository(Case).findOneOrFail({ where: { id: c.id }, lock: { mode: "pessimistic_write" } });
+      const fresh = await this.cases.lockRow(m, c.id);
       if (fresh.status !== "monitoring") throw new ConflictError(`The fix is judged while the case is being monitored after the works; this case is ${fresh.status}.`);
       await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "fix-verified", after: { effective: input.effective, note: input.note } });
       if (input.effective) {
@@ -75,30 +74,25 @@ export class VerificationService {
 
   /** When a monitoring period has ended: remind the tenant to add readings and tell the lead to decide. Once per period. */
   async sendDueReminders(now = new Date()): Promise<number> {
-    const due = await this.dataSource
-      .getRepository(Case)
-      .createQueryBuilder("c")
-      .where("c.status = 'monitoring' AND c.monitoring_ends_at <= :now AND c.monitoring_reminded_at IS NULL", { now })
-      .limit(100)
-      .getMany();
+    const due = await this.cases.dueForMonitoringReminder(now, 100);
     let sent = 0;
     for (const c of due) {
       try {
         const deliveries = await this.dataSource.transaction(async (m) => {
-          const fresh = await m.getRepository(Case).findOne({ where: { id: c.id }, lock: { mode: "pessimistic_write" } });
+          const fresh = await this.cases.lockRow(m, c.id).catch(() => null);
           if (!fresh || fresh.monitoringRemindedAt) return [];
-          await m.getRepository(Case).update(c.id, { monitoringRemindedAt: now });
+          await this.cases.markMonitoringReminded(m, c.id, now);
           const link = `${this.config.appUrl}/cases/${c.id}`;
-          const readingsAfter = Number((await m.query("SELECT COUNT(*) AS n FROM readings WHERE case_id = ? AND taken_at >= ?", [c.id, fresh.worksDoneAt]))[0]?.n ?? 0);
+          const readingsAfter = await this.readings.countSince(c.id, fresh.worksDoneAt!, m);
           const out: (() => Promise<unknown>)[] = [];
           if (fresh.tenantUserId) {
-            const tenant = await m.getRepository(User).findOneByOrFail({ id: fresh.tenantUserId });
+            const tenant = await this.users.person(fresh.tenantUserId, m);
             out.push(await this.cases.queueMail(m, fresh, { to: tenant.email, template: "monitoringEnded", data: { name: tenant.name, reference: fresh.reference!, link, forLead: false, readingsAfter } }));
           }
           // The leads: whoever completed or booked the works.
           const orders = await m.getRepository(WorkOrder).findBy({ caseId: c.id });
           const leadIds = [...new Set(orders.flatMap((o) => [o.completedById, o.createdById]).filter((v): v is number => v !== null))];
-          for (const lead of leadIds.length ? await m.getRepository(User).createQueryBuilder("u").where("u.id IN (:...ids) AND u.status = 'active' AND u.role IN ('maintenance', 'admin')", { ids: leadIds }).getMany() : []) {
+          for (const lead of await this.users.activeStaffOf(fresh.organisationId, ["maintenance", "admin"], m, leadIds)) {
             out.push(await this.cases.queueMail(m, fresh, { to: lead.email, template: "monitoringEnded", data: { name: lead.name, reference: fresh.reference!, link, forLead: true, readingsAfter } }));
           }
           return out;

@@ -1,17 +1,16 @@
 import { In, QueryFailedError, type DataSource, type EntityManager } from "typeorm";
-import { canTransition } from "../../../src/lib/domain/case-workflow.js";
 import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
 import { addWorkingDays, localDate } from "../../../src/lib/domain/working-days.js";
 import type { Config } from "../../config/env.js";
 import { AppError, ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
-import { Case } from "../cases/case.entity.js";
+import type { Case } from "../cases/case.entity.js";
 import { addressOf, householdIncludes, type CaseService } from "../cases/case.service.js";
 import type { InspectionService } from "../inspections/inspection.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
-import { Property } from "../properties/property.entity.js";
-import { Tenancy } from "../tenancies/tenancy.entity.js";
-import { User } from "../users/user.entity.js";
+import type { Property } from "../properties/property.entity.js";
+import type { TenancyService } from "../tenancies/tenancy.service.js";
+import type { Person, UserService } from "../users/user.service.js";
 import { appointmentIcs, describeSlot, halvesOf } from "./appointment.js";
 import { WorkOrderBooking } from "./booking.entity.js";
 import { Contractor } from "./contractor.entity.js";
@@ -59,6 +58,8 @@ export class WorkOrderService {
     private readonly cases: CaseService,
     private readonly policy: PolicyService,
     private readonly inspections: InspectionService,
+    private readonly users: UserService,
+    private readonly tenancies: TenancyService,
   ) {}
 
   /** A work order the actor may see (staff of its landlord, or the tenant of its case); 404 otherwise. */
@@ -151,10 +152,10 @@ export class WorkOrderService {
       const wo = await this.getForActor(actor, id, m, true);
       if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is ${wo.status}; it cannot be booked.`);
       const c = await this.cases.getForActor(actor, wo.caseId, m);
-      let operative: User | null = null;
+      let operative: Person | null = null;
       let contractor: Contractor | null = null;
       if (input.assigneeId) {
-        operative = await m.getRepository(User).findOneBy({ id: input.assigneeId, organisationId: wo.organisationId, status: "active", role: "maintenance" });
+        operative = await this.users.findStaff(wo.organisationId, input.assigneeId, ["maintenance"], m);
         if (!operative) throw new ValidationError("assigneeId: choose an active operative (a maintenance member of staff) of this landlord.", [{ field: "assigneeId", message: "Choose an active operative of this landlord." }]);
       } else if (input.contractorId) {
         contractor = await m.getRepository(Contractor).findOneBy({ id: input.contractorId, organisationId: wo.organisationId });
@@ -208,7 +209,7 @@ export class WorkOrderService {
       });
       const common = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords: describeSlot(input.slot.date, input.slot.window), address: addressOf(property), ics };
       if (c.tenantUserId !== null) {
-        const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
+        const tenant = await this.users.person(c.tenantUserId, m);
         deliveries.push(await this.cases.queueMail(m, c, { to: tenant.email, template: "appointmentProposed", data: { ...common, name: tenant.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: false, accessNotes: null } }));
       }
       const worker = operative ?? contractor;
@@ -246,7 +247,7 @@ export class WorkOrderService {
       });
       const property = c.property!;
       const slotWords = describeSlot(wo.slotDate, wo.slotWindow);
-      const worker = wo.assigneeUserId ? await m.getRepository(User).findOneByOrFail({ id: wo.assigneeUserId }) : wo.contractorId ? await m.getRepository(Contractor).findOneByOrFail({ id: wo.contractorId }) : null;
+      const worker = wo.assigneeUserId ? await this.users.person(wo.assigneeUserId, m) : wo.contractorId ? await m.getRepository(Contractor).findOneByOrFail({ id: wo.contractorId }) : null;
       const link = `${this.config.appUrl}/cases/${c.id}`;
       if (confirmed) {
         const ics = appointmentIcs({ workOrderId: wo.id, sequence: Math.max(0, wo.scheduleCount - 1), date: wo.slotDate, window: wo.slotWindow, title: `${WORK_WORDS[wo.type]} (${c.reference})`, description: wo.description, location: addressOf(property), organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, "") });
@@ -254,7 +255,7 @@ export class WorkOrderService {
         deliveries.push(await this.cases.queueMail(m, c, { to: actor.email, template: "appointmentConfirmed", data: { ...data, name: actor.name } }));
         if (worker) deliveries.push(await this.cases.queueMail(m, c, { to: worker.email, template: "appointmentConfirmed", data: { ...data, name: worker.name } }));
       } else {
-        const lead = await m.getRepository(User).findOneBy({ id: booking.createdById });
+        const lead = (await this.users.people([booking.createdById], m)).get(booking.createdById) ?? null;
         const to = new Map<string, string>();
         if (worker) to.set(worker.email, worker.name);
         if (lead) to.set(lead.email, lead.name);
@@ -311,8 +312,8 @@ export class WorkOrderService {
       const ics = appointmentIcs({ workOrderId: wo.id, sequence: wo.scheduleCount, date: booking.slotDate, window: booking.slotWindow, title: `${WORK_WORDS[wo.type]} (${c.reference})`, description: wo.description, location: addressOf(property), organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""), cancelled: true });
       const data = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords: describeSlot(booking.slotDate, booking.slotWindow), address: addressOf(property), reason, link: `${this.config.appUrl}/cases/${c.id}`, ics };
       const people: { email: string; name: string }[] = [];
-      if (c.tenantUserId !== null) people.push(await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId }));
-      if (booking.assigneeUserId) people.push(await m.getRepository(User).findOneByOrFail({ id: booking.assigneeUserId }));
+      if (c.tenantUserId !== null) people.push(await this.users.person(c.tenantUserId, m));
+      if (booking.assigneeUserId) people.push(await this.users.person(booking.assigneeUserId, m));
       else if (booking.contractorId) people.push(await m.getRepository(Contractor).findOneByOrFail({ id: booking.contractorId }));
       for (const p of people) deliveries.push(await this.cases.queueMail(m, c, { to: p.email, template: "appointmentCancelled", data: { ...data, name: p.name } }));
     });
@@ -327,33 +328,26 @@ export class WorkOrderService {
     await this.moveCase(m, actor, c, "works-planned", "Works recorded.");
     await this.moveCase(m, actor, c, "works-done", "Every work order is done.");
     const endsAt = new Date(now.getTime() + monitoringDays * DAY_MS);
-    await m.getRepository(Case).update(c.id, { worksDoneAt: now, monitoringEndsAt: endsAt, monitoringRemindedAt: null });
+    await this.cases.startMonitoringPeriod(m, c.id, now, endsAt);
     await this.moveCase(m, actor, c, "monitoring", `Checking the fix with readings for ${monitoringDays} days.`);
     await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "monitoring-started", after: { worksDoneAt: now.toISOString(), endsAt: endsAt.toISOString(), days: monitoringDays } });
     if (c.tenantUserId === null) return [];
-    const tenant = await m.getRepository(User).findOneByOrFail({ id: c.tenantUserId });
+    const tenant = await this.users.person(c.tenantUserId, m);
     const endsOn = endsAt.toLocaleDateString("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "Europe/London" });
     return [await this.cases.queueMail(m, c, { to: tenant.email, template: "monitoringStarted", data: { name: tenant.name, reference: c.reference!, days: monitoringDays, endsOn, link: `${this.config.appUrl}/cases/${c.id}` } })];
   }
 
   /** Moves the case along the workflow when it can and is not there yet (c.status is kept current). */
   async moveCase(m: EntityManager, actor: Actor, c: Case, to: Case["status"], reason: string): Promise<void> {
-    const fresh = await m.getRepository(Case).findOneOrFail({ where: { id: c.id }, lock: { mode: "pessimistic_write" } });
-    if (fresh.status === to || !canTransition(fresh.status, to)) {
-      c.status = fresh.status;
-      return;
-    }
-    await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "status-changed", before: { status: fresh.status }, after: { status: to, reason } });
-    await m.getRepository(Case).update(c.id, { status: to });
-    c.status = to;
+    c.status = (await this.cases.transition(m, c.id, to, reason, actor, { ifAllowed: true })).status;
   }
 
   /** Household notes and vulnerability in words, for the operative going to the home. */
   async accessNotes(m: EntityManager, c: Case): Promise<string | null> {
     const parts: string[] = [];
     if (c.vulnerability?.length) parts.push(householdIncludes(c.vulnerability));
-    const tenancy = c.tenantUserId ? await m.getRepository(Tenancy).findOne({ where: { propertyId: c.propertyId, tenantUserId: c.tenantUserId }, order: { startDate: "DESC" } }) : null;
-    if (tenancy?.householdNotes) parts.push(tenancy.householdNotes);
+    const householdNotes = c.tenantUserId ? await this.tenancies.householdNotes(c.propertyId, c.tenantUserId, m) : null;
+    if (householdNotes) parts.push(householdNotes);
     return parts.length ? parts.join(" ") : null;
   }
 
@@ -369,18 +363,18 @@ export class WorkOrderService {
   /** What the DTOs need besides the orders: cases, homes, rooms, people and contractors, by id. */
   async context(orders: WorkOrder[]) {
     const caseIds = [...new Set(orders.map((o) => o.caseId))];
-    const cases = caseIds.length ? await this.dataSource.getRepository(Case).find({ where: { id: In(caseIds) }, relations: { property: { rooms: true } } }) : [];
+    const cases = await this.cases.findByIds(caseIds);
     const bookings = await this.bookingsOf(orders.map((o) => o.id));
     const allBookings = [...bookings.values()].flat();
     const userIds = [...new Set([...orders.flatMap((o) => [o.assigneeUserId, o.completedById]), ...allBookings.map((b) => b.assigneeUserId)].filter((v): v is number => v !== null))];
-    const users = userIds.length ? await this.dataSource.getRepository(User).findBy({ id: In(userIds) }) : [];
+    const users = await this.users.people(userIds);
     const contractorIds = [...new Set([...orders.map((o) => o.contractorId), ...allBookings.map((b) => b.contractorId)].filter((v): v is number => v !== null))];
     const contractors = contractorIds.length ? await this.dataSource.getRepository(Contractor).findBy({ id: In(contractorIds) }) : [];
     const accessNotes = new Map<number, string | null>();
     for (const c of cases) accessNotes.set(c.id, await this.accessNotes(this.dataSource.manager, c));
     return {
       cases: new Map(cases.map((c) => [c.id, c])),
-      users: new Map(users.map((u) => [u.id, u])),
+      users,
       contractors: new Map(contractors.map((k) => [k.id, k])),
       bookings,
       accessNotes,

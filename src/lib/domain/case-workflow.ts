@@ -3,6 +3,8 @@
 // The side moves (back a step, cancel, reopen) are our own choice of what real work needs.
 export const CASE_STATUSES = ["new", "triaged", "inspection-booked", "investigated", "works-planned", "works-done", "monitoring", "closed", "cancelled"] as const;
 export type CaseStatus = (typeof CASE_STATUSES)[number];
+/** Every status but the two ends (closed, cancelled). */
+export const OPEN_CASE_STATUSES: readonly CaseStatus[] = CASE_STATUSES.filter((s) => s !== "closed" && s !== "cancelled");
 
 export const CASE_TRANSITIONS: Readonly<Record<CaseStatus, readonly CaseStatus[]>> = {
   new: ["triaged", "cancelled"],
