@@ -48,7 +48,7 @@ import { type Case } from "../server/modules/cases/case.entity.js";
 import { formatReference } from "../server/modules/cases/case.service.js";
 import { EvaluationService } from "../server/modules/evaluation/evaluation.service.js";
 import { Organisation } from "../server/modules/organisations/organisation.entity.js";
-import { queueQuerySchema } from "../server/modules/triage/queue.schemas.js";
+import { queueQuerySchema } from "../server/modules/cases/case-queue.schemas.js";
 import { nextDeadline } from "../server/modules/triage/triage.service.js";
 import { User } from "../server/modules/users/user.entity.js";
 import { ensureAppDatabase, freePort, startMariaDb, stopMariaDb } from "./lib/mariadb.js";

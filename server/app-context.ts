@@ -20,7 +20,7 @@ import { MailService } from "./modules/mail/mail.service.js";
 import { OrganisationService } from "./modules/organisations/organisation.service.js";
 import { PropertyService } from "./modules/properties/property.service.js";
 import { TenancyService } from "./modules/tenancies/tenancy.service.js";
-import { QueueService } from "./modules/triage/queue.service.js";
+import { QueueService } from "./modules/cases/case-queue.service.js";
 import { TriageService } from "./modules/triage/triage.service.js";
 import { UserService } from "./modules/users/user.service.js";
 import { VerificationService } from "./modules/works/verification.service.js";

@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { CASE_STATUSES } from "../../src/lib/domain/case-workflow.js";
 import { SURFACE_STATES } from "../../src/lib/domain/surface.js";
 import { TRIAGE_AREAS } from "../../src/lib/domain/triage-priority.js";
-import { QUEUE_SORTS } from "../../server/modules/triage/queue.schemas.js";
+import { QUEUE_SORTS } from "../../server/modules/cases/case-queue.schemas.js";
 import { Case } from "../../server/modules/cases/case.entity.js";
 import { makeLandlord, makeProperty, makeTenant, makeUser, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";

@@ -7,15 +7,16 @@ import { isStaff, type Actor } from "../auth/actor.js";
 import type { MailTemplateName } from "../mail/mail-templates.js";
 import type { MailService, SendMail } from "../mail/mail.service.js";
 import type { OrganisationService } from "../organisations/organisation.service.js";
-import type { Property } from "../properties/property.entity.js";
-import type { PropertyService } from "../properties/property.service.js";
-import type { Room } from "../properties/room.entity.js";
+import type { Property, PropertyService, Room } from "../properties/property.service.js";
 import type { TenancyService } from "../tenancies/tenancy.service.js";
 import type { UserService } from "../users/user.service.js";
 import { CaseEvent } from "./case-event.entity.js";
 import { asCaseEvent, type CaseEventOf, type CaseEventType, type NewCaseEvent } from "./case-events.js";
 import { Case } from "./case.entity.js";
 import type { CasePatch } from "./cases.schemas.js";
+
+/** The case record other modules receive from this service (they never query the entity themselves). */
+export type { Case } from "./case.entity.js";
 
 export const formatReference = (awareAt: Date, id: number) => `DW-${awareAt.getUTCFullYear()}-${String(id).padStart(5, "0")}`;
 export const addressOf = (p: Pick<Property, "addressLine1" | "town" | "postcode">) => `${p.addressLine1}, ${p.town} ${p.postcode}`;

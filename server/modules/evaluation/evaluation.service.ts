@@ -10,8 +10,7 @@ import {
   SURFACE_STATES,
 } from "../../../src/lib/domain/index.js";
 import type { Actor } from "../auth/actor.js";
-import type { Case } from "../cases/case.entity.js";
-import type { CaseService } from "../cases/case.service.js";
+import type { Case, CaseService } from "../cases/case.service.js";
 import type { ReadingService } from "../readings/reading.service.js";
 
 export const INVESTIGATION_STATEMENT =

@@ -1,6 +1,7 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn } from "typeorm";
 import { Organisation } from "../organisations/organisation.entity.js";
-import { Room } from "./room.entity.js";
+// Named, not imported as a value: Room refers back to Property, and ES modules must not load in a circle.
+import type { Room } from "./room.entity.js";
 
 export const BUILT_FORMS = ["detached", "semi-detached", "end-terrace", "mid-terrace", "flat", "maisonette", "bungalow"] as const;
 export const WALL_TYPES = ["solid-brick", "solid-stone", "unfilled-cavity", "filled-cavity", "system-built", "timber-frame", "insulated"] as const;
@@ -61,7 +62,7 @@ export class Property {
   @Column({ name: "heating_type", type: "varchar", length: 20 })
   heatingType: HeatingType;
 
-  @OneToMany(() => Room, (room) => room.property)
+  @OneToMany("Room", (room: Room) => room.property)
   rooms?: Room[];
 
   @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })

@@ -5,6 +5,10 @@ import type { Actor } from "../../lib/actor.js";
 import type { PropertyListQuery } from "./properties.schemas.js";
 import { Property } from "./property.entity.js";
 
+/** The records other modules receive from this service (they never query the entities themselves). */
+export type { Property } from "./property.entity.js";
+export type { Room } from "./room.entity.js";
+
 export class PropertyService {
   constructor(private readonly dataSource: DataSource) {}
 

@@ -1,8 +1,7 @@
 import { IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
 import { NotFoundError } from "../../lib/errors.js";
 import type { Actor } from "../../lib/actor.js";
-import type { Property } from "../properties/property.entity.js";
-import type { PropertyService } from "../properties/property.service.js";
+import type { Property, PropertyService } from "../properties/property.service.js";
 import { Tenancy } from "./tenancy.entity.js";
 
 const today = () => new Date().toISOString().slice(0, 10);

@@ -1,4 +1,4 @@
-import type { QueueRow } from "./queue.service.js";
+import type { QueueRow } from "../cases/case-queue.service.js";
 
 const iso = (d: Date | string) => new Date(d).toISOString();
 

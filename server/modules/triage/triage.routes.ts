@@ -5,8 +5,8 @@ import { actorOf, requireRole } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import { toQueueItemDto } from "./queue.mapper.js";
-import { bulkUpdateSchema, queueQuerySchema } from "./queue.schemas.js";
-import type { QueueService } from "./queue.service.js";
+import { bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
+import type { QueueService } from "../cases/case-queue.service.js";
 import type { TriageService } from "./triage.service.js";
 
 /** Mounted at /api/cases before the cases router: the queue, bulk changes, priority breakdown and related cases. */

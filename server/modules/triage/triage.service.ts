@@ -2,12 +2,11 @@ import { computeDeadlines, type Deadline } from "../../../src/lib/domain/deadlin
 import { hoursUntilDeadlinePartChanges, triagePriority, type TriagePriority, type TriageVulnerability } from "../../../src/lib/domain/triage-priority.js";
 import type { Actor } from "../auth/actor.js";
 import type { AssessmentService } from "../assessments/assessment.service.js";
-import type { Case } from "../cases/case.entity.js";
-import type { CaseService } from "../cases/case.service.js";
+import type { Case, CaseService } from "../cases/case.service.js";
 import type { EvaluationService } from "../evaluation/evaluation.service.js";
 import type { InspectionService } from "../inspections/inspection.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
-import { OPEN_STATUSES } from "./queue.schemas.js";
+import { OPEN_STATUSES } from "../cases/case-queue.schemas.js";
 
 const HOUR_MS = 3_600_000;
 const YEAR_MS = 365 * 24 * HOUR_MS;

@@ -4,11 +4,11 @@ import { addWorkingDays, localDate } from "../../../src/lib/domain/working-days.
 import type { Config } from "../../config/env.js";
 import { AppError, ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
-import type { Case } from "../cases/case.entity.js";
-import { addressOf, householdIncludes, type CaseService } from "../cases/case.service.js";
+import type { Case, CaseService } from "../cases/case.service.js";
+import { addressOf, householdIncludes } from "../cases/case.service.js";
 import type { InspectionService } from "../inspections/inspection.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
-import type { Property } from "../properties/property.entity.js";
+import type { Property } from "../properties/property.service.js";
 import type { TenancyService } from "../tenancies/tenancy.service.js";
 import type { Person, UserService } from "../users/user.service.js";
 import { appointmentIcs, describeSlot, halvesOf } from "./appointment.js";
