@@ -6,9 +6,9 @@ import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
 import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
 
 /** Starts the triage sweep, the deadline digest and the end-of-monitoring reminders; returns a function that stops them. */
-export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger">): () => void {
+export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" | "clock">): () => void {
   const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger);
-  const digestScheduler = startDigestScheduler(ctx.services, ctx.logger);
+  const digestScheduler = startDigestScheduler(ctx.services, ctx.logger, { clock: () => ctx.clock.now() });
   const stopReminders = startMonitoringReminders(ctx.services.verification, ctx.logger);
   return () => {
     stopReminders();

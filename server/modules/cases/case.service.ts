@@ -18,6 +18,7 @@ import { markTriageStale } from "../triage/triage.service.js";
 import { CaseEvent } from "./case-event.entity.js";
 import { Case } from "./case.entity.js";
 import type { CasePatch } from "./cases.schemas.js";
+import type { Clock } from "../../lib/clock.js";
 
 export const formatReference = (awareAt: Date, id: number) => `DW-${awareAt.getUTCFullYear()}-${String(id).padStart(5, "0")}`;
 export const addressOf = (p: Pick<Property, "addressLine1" | "town" | "postcode">) => `${p.addressLine1}, ${p.town} ${p.postcode}`;
@@ -41,6 +42,7 @@ export class CaseService {
     private readonly mail: MailService,
     private readonly properties: PropertyService,
     private readonly tenancies: TenancyService,
+    private readonly clock: Clock,
   ) {}
 
   /**
@@ -49,7 +51,8 @@ export class CaseService {
    */
   async recordEvent(m: EntityManager, e: { caseId: number; actorId: number | null; type: string; before?: Record<string, unknown> | null; after?: Record<string, unknown> | null }) {
     await m.getRepository(CaseEvent).save(
-      m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before: e.before ?? null, after: e.after ?? null }),
+      // created_at from the clock, not the column default: rules compare it with times the clock set (e.g. works done).
+      m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before: e.before ?? null, after: e.after ?? null, createdAt: this.clock.now() }),
     );
     await markTriageStale(m, { caseIds: [e.caseId] });
   }
@@ -69,7 +72,7 @@ export class CaseService {
       }
       channel = staff.channel;
       awareAt = new Date(staff.awareAt);
-      if (awareAt.getTime() > Date.now() + 60_000) {
+      if (awareAt.getTime() > this.clock.now().getTime() + 60_000) {
         throw new ValidationError("awareAt: the date the landlord became aware cannot be in the future.", [{ field: "awareAt", message: "Cannot be in the future." }]);
       }
     } else {
@@ -79,7 +82,7 @@ export class CaseService {
       property = home.property;
       tenantUserId = actor.id;
       channel = "tenant-online";
-      awareAt = new Date();
+      awareAt = this.clock.now();
     }
     const roomIds = [...new Set(input.roomIds ?? [])];
     const propertyRooms = new Set((property.rooms ?? []).map((r) => r.id));
@@ -109,6 +112,8 @@ export class CaseService {
         status: "new",
         reference: null,
         officersAlertedAt: null,
+        // The report's received time is the clock's, like its awareness date, not the column default.
+        createdAt: this.clock.now(),
       });
       const saved = await repo.save(row);
       saved.reference = formatReference(awareAt, saved.id);
@@ -165,7 +170,7 @@ export class CaseService {
   async alertOfficers(m: EntityManager, c: Case, property: Property, reasons: string[]): Promise<(() => Promise<unknown>)[]> {
     if (c.officersAlertedAt) return [];
     const officers = await m.getRepository(User).findBy({ organisationId: c.organisationId, role: "officer", status: "active" });
-    c.officersAlertedAt = new Date();
+    c.officersAlertedAt = this.clock.now();
     await m.getRepository(Case).update(c.id, { officersAlertedAt: c.officersAlertedAt });
     const out: (() => Promise<unknown>)[] = [];
     for (const officer of officers) {
@@ -198,7 +203,7 @@ export class CaseService {
   }
 
   private async currentTenantOf(propertyId: number): Promise<number | null> {
-    const today = new Date().toISOString().slice(0, 10);
+    const today = this.clock.now().toISOString().slice(0, 10);
     const row = await this.dataSource
       .getRepository(Tenancy)
       .createQueryBuilder("t")

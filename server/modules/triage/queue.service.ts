@@ -8,6 +8,7 @@ import { Case } from "../cases/case.entity.js";
 import { User } from "../users/user.entity.js";
 import type { QueueQuery, QueueSort } from "./queue.schemas.js";
 import type { TriageService } from "./triage.service.js";
+import type { Clock } from "../../lib/clock.js";
 
 export interface QueueRow {
   id: number;
@@ -72,9 +73,10 @@ export class QueueService {
   constructor(
     private readonly dataSource: DataSource,
     private readonly triage: TriageService,
+    private readonly clock: Clock,
   ) {}
 
-  async list(actor: Actor, query: QueueQuery, now = new Date()): Promise<{ rows: QueueRow[]; rooms: Map<number, { id: number; name: string }[]>; total: number }> {
+  async list(actor: Actor, query: QueueQuery, now = this.clock.now()): Promise<{ rows: QueueRow[]; rooms: Map<number, { id: number; name: string }[]>; total: number }> {
     // Figures marked stale by a change (or by the clock) are worked out before anyone reads them.
     await this.refreshStale(actor.organisationId);
 

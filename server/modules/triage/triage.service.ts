@@ -9,6 +9,7 @@ import type { EvaluationService } from "../evaluation/evaluation.service.js";
 import type { InspectionService } from "../inspections/inspection.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
 import { OPEN_STATUSES } from "./queue.schemas.js";
+import type { Clock } from "../../lib/clock.js";
 
 const HOUR_MS = 3_600_000;
 const YEAR_MS = 365 * 24 * HOUR_MS;
@@ -21,9 +22,16 @@ export function nextDeadline(status: Case["status"], deadlines: Deadline[]): Dea
   return running[0] ?? null;
 }
 
+/**
+ * The stale mark: the database's own time put a century back, so it is due whatever the clock says
+ * (tests and dry runs move the app's clock to other dates) and still differs from one change to the
+ * next (a refresh compares it to see whether the case changed meanwhile).
+ */
+const STALE_MARK = "CURRENT_TIMESTAMP(3) - INTERVAL 100 YEAR";
+
 /** Marks cases' triage figures stale inside the caller's transaction (see TriageService). */
 export async function markTriageStale(m: EntityManager, where: { caseIds: number[] } | { propertyId: number } | { organisationId: number }): Promise<void> {
-  const qb = m.createQueryBuilder().update(Case).set({ triageDueAt: () => "CURRENT_TIMESTAMP(3)" });
+  const qb = m.createQueryBuilder().update(Case).set({ triageDueAt: () => STALE_MARK });
   if ("caseIds" in where) qb.where("id IN (:...ids)", { ids: where.caseIds.length ? where.caseIds : [0] });
   else if ("propertyId" in where) qb.where("property_id = :p", { p: where.propertyId });
   else qb.where("organisation_id = :o AND status IN (:...open)", { o: where.organisationId, open: OPEN_STATUSES });
@@ -35,7 +43,7 @@ export async function markTriageStale(m: EntityManager, where: { caseIds: number
  * recurrence, next deadline, priority).
  *
  * How they stay true: every change to a case writes a CaseEvent, and writing one marks the case's
- * figures stale (`triage_due_at` = now) in the change's own transaction. Readers (the queue, the
+ * figures stale (`triage_due_at` in the past, see STALE_MARK) in the change's own transaction. Readers (the queue, the
  * case page) and a background sweep work stale cases out again. A figure that changes with the
  * clock alone (the deadline factor) sets `triage_due_at` to the moment it changes. A refresh writes
  * only if the case is unchanged since it read the facts, so a change made meanwhile is not lost; a
@@ -48,6 +56,7 @@ export class TriageService {
     private readonly evaluation: EvaluationService,
     private readonly policy: PolicyService,
     private readonly inspections: InspectionService,
+    private readonly clock: Clock,
   ) {}
 
   /**
@@ -57,7 +66,7 @@ export class TriageService {
    * changed meanwhile (its stale mark and updated_at are as they were). A case changed meanwhile stays
    * marked, and the next reader works it out again.
    */
-  async refresh(caseId: number, now = new Date()): Promise<TriagePriority | null> {
+  async refresh(caseId: number, now = this.clock.now()): Promise<TriagePriority | null> {
     const c = await this.dataSource.getRepository(Case).findOne({ where: { id: caseId }, relations: { rooms: true, property: { rooms: true } } });
     if (!c) return null;
     const seen = { due: c.triageDueAt?.getTime() ?? null, updated: c.updatedAt.getTime() };
@@ -89,7 +98,7 @@ export class TriageService {
 
   /** Refreshes up to `limit` stale cases (of one landlord, or all); returns how many. */
   async refreshStale(organisationId?: number, limit = 100): Promise<number> {
-    const qb = this.dataSource.getRepository(Case).createQueryBuilder("c").select("c.id", "id").where("c.triage_due_at <= CURRENT_TIMESTAMP(3)");
+    const qb = this.dataSource.getRepository(Case).createQueryBuilder("c").select("c.id", "id").where("c.triage_due_at <= :now", { now: this.clock.now() });
     if (organisationId !== undefined) qb.andWhere("c.organisation_id = :org", { org: organisationId });
     const rows: { id: number }[] = await qb.orderBy("c.triage_due_at", "ASC").limit(limit).getRawMany();
     for (const { id } of rows) await this.refresh(id);
@@ -99,7 +108,7 @@ export class TriageService {
   /** The case page's "how the priority was made up", worked out now. */
   async breakdown(actor: Actor, caseId: number): Promise<TriagePriority & { computedAt: Date }> {
     const c = await this.cases.getForActor(actor, caseId);
-    const now = new Date();
+    const now = this.clock.now();
     const priority = await this.refresh(c.id, now);
     return { ...priority!, computedAt: now };
   }
