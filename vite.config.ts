@@ -51,7 +51,10 @@ export default defineConfig({
           environment: "node",
           globalSetup: ["tests/setup/global-mariadb.ts"],
           setupFiles: ["tests/setup/server-setup.ts"],
-          testTimeout: 60_000,
+          // A browser on a busy 2-core machine: expect.poll waits for a state up to 20 s (vitest's
+          // default is 1 s), and a whole journey may take minutes.
+          expect: { poll: { timeout: 20_000, interval: 100 } },
+          testTimeout: 180_000,
           hookTimeout: 120_000,
           fileParallelism: false,
         },

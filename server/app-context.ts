@@ -3,6 +3,7 @@ import session from "express-session";
 import MySQLStoreFactory from "express-mysql-session";
 import type { DataSource } from "typeorm";
 import type { Config } from "./config/env.js";
+import { systemClock, type Clock } from "./lib/clock.js";
 import { createDataSource } from "./db/create-data-source.js";
 import { createLogger, type Logger } from "./lib/logger.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
@@ -49,6 +50,8 @@ export interface Services {
 
 export interface AppContext {
   config: Config;
+  /** "Now" for every service, route and background job (tests hand in their own). */
+  clock: Clock;
   logger: Logger;
   dataSource: DataSource;
   mailer: Mailer;
@@ -57,31 +60,32 @@ export interface AppContext {
   close(): Promise<void>;
 }
 
-export function createServices(config: Config, dataSource: DataSource, mailer: Mailer, logger: Logger): Services {
-  const mail = new MailService(dataSource, mailer, logger);
+export function createServices(config: Config, dataSource: DataSource, mailer: Mailer, logger: Logger, clock: Clock = systemClock): Services {
+  const mail = new MailService(dataSource, mailer, logger, clock);
   const properties = new PropertyService(dataSource);
-  const tenancies = new TenancyService(dataSource, properties);
+  const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource);
   const organisations = new OrganisationService(dataSource);
-  const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations);
-  const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations);
+  const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
+  const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const photos = new PhotoService(dataSource, config, cases);
   const readings = new ReadingService(dataSource, cases);
-  const imports = new ReadingImportService(dataSource, cases);
+  const imports = new ReadingImportService(dataSource, cases, clock);
   const evaluation = new EvaluationService(cases, readings);
   const assessments = new AssessmentService(dataSource, cases);
-  const inspections = new InspectionService(dataSource, config, cases, mail, users);
+  const inspections = new InspectionService(dataSource, config, cases, mail, users, clock);
   const policy = new PolicyService(dataSource, cases);
-  const triage = new TriageService(cases, evaluation, policy, inspections, assessments);
-  const queue = new QueueService(dataSource, triage);
+  const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
+  const queue = new QueueService(dataSource, triage, clock);
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
-  const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies);
-  const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users);
+  const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
+  const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
   return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, queue, readings, tenancies, triage, users, digest, works, verification };
 }
 
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */
-export async function createAppContext(config: Config, options: { migrate?: boolean } = {}): Promise<AppContext> {
+export async function createAppContext(config: Config, options: { migrate?: boolean; clock?: Clock } = {}): Promise<AppContext> {
+  const clock = options.clock ?? systemClock;
   const logger = createLogger(config.logLevel);
   const dataSource = createDataSource(config.db);
   await dataSource.initialize();
@@ -102,11 +106,12 @@ export async function createAppContext(config: Config, options: { migrate?: bool
   });
   return {
     config,
+    clock,
     logger,
     dataSource,
     mailer,
     sessionStore: store,
-    services: createServices(config, dataSource, mailer, logger),
+    services: createServices(config, dataSource, mailer, logger, clock),
     async close() {
       mailer.close();
       await store.close().catch(() => undefined);

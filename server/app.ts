@@ -34,7 +34,7 @@ export interface AppOptions {
 
 /** The whole HTTP app, without listening (tests drive it through supertest). */
 export function createApp(ctx: AppContext, { isDraining = () => false }: AppOptions = {}): Express {
-  const { config, services } = ctx;
+  const { config, services, clock } = ctx;
   const app = express();
   app.disable("x-powered-by");
   app.set("trust proxy", config.trustProxy);
@@ -89,13 +89,13 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/auth", createAuthRouter({ config, auth: services.auth, passport, csrfToken: generateToken }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
-  api.use("/cases", requireAuth, createTriageRouter({ cases: services.cases, queue: services.queue, triage: services.triage }));
+  api.use("/cases", requireAuth, createTriageRouter({ cases: services.cases, queue: services.queue, triage: services.triage, clock }));
   api.use("/cases", createCasesRouter({ cases: services.cases }));
   api.use("/cases", createCasePhotosRouter({ cases: services.cases, photos: services.photos }));
   api.use("/cases", createReadingsRouter({ cases: services.cases, readings: services.readings, imports: services.imports, evaluation: services.evaluation }));
   api.use("/cases", createEvaluationRouter({ evaluation: services.evaluation }));
   api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
-  api.use("/cases", createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy }));
+  api.use("/cases", createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy, clock }));
   api.use("/cases", requireAuth, createCaseWorksRouter({ works: services.works, verification: services.verification, photos: services.photos }));
   api.use("/work-orders", requireAuth, createWorkOrdersRouter({ works: services.works, verification: services.verification, photos: services.photos }));
   api.use("/contractors", requireAuth, createContractorsRouter({ works: services.works }));

@@ -10,9 +10,9 @@ import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.j
  * that stops them and resolves once any job already running has finished (so shutdown can close the
  * database after it, not under it).
  */
-export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger">): () => Promise<void> {
+export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" | "clock">): () => Promise<void> {
   const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger);
-  const digestScheduler = startDigestScheduler(ctx.services, ctx.logger);
+  const digestScheduler = startDigestScheduler(ctx.services, ctx.logger, { clock: () => ctx.clock.now() });
   const stopReminders = startMonitoringReminders(ctx.services.verification, ctx.logger);
   return async () => {
     await Promise.all([stopReminders(), stopTriageSweeper(), digestScheduler.stop()]);

@@ -13,6 +13,7 @@ import { launchBrowser, type Browser } from "../support/browser.js";
 import { jpegWithGps } from "../support/images.js";
 import { DEMO_PASSWORD, serveDemoApp, type ServedApp } from "../support/served-app.js";
 import { signedInClient, type Client } from "../support/test-app.js";
+import { msAgo, workingDayAhead } from "../support/test-clock.js";
 
 let served: ServedApp;
 let browser: Browser;
@@ -37,12 +38,12 @@ beforeAll(async () => {
   ).body.id;
   // Before the works: 20 °C, 75 % with the ceiling at 15 °C (surface RH ≈ 103 % → condensing), days 6 to 4 ago.
   await sam
-    .post(`/api/cases/${caseId}/readings`, Array.from({ length: 48 }, (_, h) => ({ roomId: bathroomId, takenAt: new Date(Date.now() - (6 * 24 - h) * HOUR).toISOString(), airTemperatureC: 20, relativeHumidityPct: 75, surfaceTemperatureC: 15 })))
+    .post(`/api/cases/${caseId}/readings`, Array.from({ length: 48 }, (_, h) => ({ roomId: bathroomId, takenAt: msAgo((6 * 24 - h) * HOUR).toISOString(), airTemperatureC: 20, relativeHumidityPct: 75, surfaceTemperatureC: 15 })))
     .expect(201);
   const officer = await signedInClient(served.app, "officer@example.org", DEMO_PASSWORD);
   await officer.patch(`/api/cases/${caseId}`, { status: "triaged", hazardClass: "significant", reason: "Mould over the bath; the extract fan has failed." }).expect(200);
   await officer
-    .post(`/api/cases/${caseId}/inspections`, { inspectedAt: new Date(Date.now() - 2 * HOUR).toISOString(), cause: "condensation", mouldExtent: "under-1-m2", findings: "The bathroom extract fan has failed; condensation mould on the ceiling above the bath.", roomReadings: [] })
+    .post(`/api/cases/${caseId}/inspections`, { inspectedAt: msAgo(2 * HOUR).toISOString(), cause: "condensation", mouldExtent: "under-1-m2", findings: "The bathroom extract fan has failed; condensation mould on the ceiling above the bath.", roomReadings: [] })
     .expect(201);
 });
 afterAll(async () => {
@@ -64,12 +65,8 @@ async function signOut(page: Page) {
   await page.getByRole("heading", { name: "Sign in" }).waitFor();
 }
 
-/** The next weekday at least ten days ahead (clear of the demo's bookings), as YYYY-MM-DD. */
-function bookingDay(): string {
-  const d = new Date(Date.now() + 10 * 86_400_000);
-  while (d.getUTCDay() === 0 || d.getUTCDay() === 6) d.setUTCDate(d.getUTCDate() + 1);
-  return d.toISOString().slice(0, 10);
-}
+/** The next working day at least ten days ahead (clear of the demo's bookings), as YYYY-MM-DD. */
+const bookingDay = () => workingDayAhead(10);
 
 it("books, confirms, completes and verifies an extractor-fan fix", async () => {
   const page = await browser.context.newPage();
@@ -124,7 +121,7 @@ it("books, confirms, completes and verifies an extractor-fan fix", async () => {
 
   // Readings after the works: move the works three days back (as if they were done then), and Sam's
   // hygrometer shows 20 °C and 55 % with the ceiling at 18 °C since.
-  const worksDoneAt = new Date(Date.now() - 3 * 24 * HOUR);
+  const worksDoneAt = msAgo(3 * 24 * HOUR);
   await served.ctx.dataSource.getRepository(Case).update(caseId, { worksDoneAt, monitoringEndsAt: new Date(worksDoneAt.getTime() + 21 * 24 * HOUR) });
   await sam
     .post(`/api/cases/${caseId}/readings`, Array.from({ length: 48 }, (_, h) => ({ roomId: bathroomId, takenAt: new Date(worksDoneAt.getTime() + (h + 1) * HOUR).toISOString(), airTemperatureC: 20, relativeHumidityPct: 55, surfaceTemperatureC: 18 })))

@@ -8,6 +8,7 @@ import { Case } from "../../server/modules/cases/case.entity.js";
 import { launchBrowser, type Browser } from "../support/browser.js";
 import { DEMO_PASSWORD, serveDemoApp, type ServedApp } from "../support/served-app.js";
 import { signedInClient } from "../support/test-app.js";
+import { msAgo, testClock } from "../support/test-clock.js";
 
 let served: ServedApp;
 let browser: Browser;
@@ -39,7 +40,7 @@ beforeAll(async () => {
   // Two days of hourly readings from a cheap hygrometer and a surface thermometer: condensing throughout.
   const readings = Array.from({ length: 48 }, (_, h) => ({
     roomId: bedroom.id,
-    takenAt: new Date(Date.now() - (48 - h) * 3_600_000).toISOString(),
+    takenAt: msAgo((48 - h) * 3_600_000).toISOString(),
     airTemperatureC: 18,
     relativeHumidityPct: 82,
     surfaceTemperatureC: 11,
@@ -47,7 +48,7 @@ beforeAll(async () => {
   await sam.post(`/api/cases/${caseId}/readings`, readings).expect(201);
   // Backdate the awareness by three weeks, as if the report had been sitting there (and mark the
   // figures stale, as any change does).
-  await served.ctx.dataSource.getRepository(Case).update(caseId, { awareAt: new Date(Date.now() - 21 * 86_400_000), triageDueAt: new Date() });
+  await served.ctx.dataSource.getRepository(Case).update(caseId, { awareAt: msAgo(21 * 86_400_000), triageDueAt: testClock.now() });
 });
 afterAll(async () => {
   await browser?.close();

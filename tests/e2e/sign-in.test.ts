@@ -37,7 +37,7 @@ describe("signed-in journeys", () => {
       try {
         await signIn(page, home.email);
         await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe(home.heading);
-        expect(new URL(page.url()).pathname).toBe(home.path);
+        await expect.poll(() => new URL(page.url()).pathname).toBe(home.path);
         await page.getByRole("button", { name: "Sign out" }).click();
         await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Sign in");
       } finally {
@@ -54,7 +54,7 @@ describe("signed-in journeys", () => {
       await expect.poll(() => page.getByText("Millbeck Terraces").first().isVisible()).toBe(true);
       await page.goto(`${served.url}/queue`);
       await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Not allowed");
-      expect(new URL(page.url()).pathname).toBe("/queue");
+      await expect.poll(() => new URL(page.url()).pathname).toBe("/queue");
       // Wait until signing out has finished: the pages share one browser profile (and its cookie).
       await page.getByRole("button", { name: "Sign out" }).click();
       await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Sign in");

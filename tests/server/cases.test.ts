@@ -4,7 +4,9 @@ import { CaseEvent } from "../../server/modules/cases/case-event.entity.js";
 import { OutboxEmail } from "../../server/modules/mail/outbox-email.entity.js";
 import { Case } from "../../server/modules/cases/case.entity.js";
 import { makeLandlord, makeTenant, makeProperty, PASSWORD } from "../support/factories.js";
+import { outboxCount } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
+import { testClock } from "../support/test-clock.js";
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -24,7 +26,10 @@ describe("a tenant reports", () => {
   it("accepts the smallest valid report for their own home with a reference and status new", async () => {
     const res = await tenant.post("/api/cases", smallest).expect(201);
     expect(res.body).toMatchObject({ status: "new", channel: "tenant-online", property: { id: landlord.home.id }, locations: ["window"], observations: ["condensation"], vulnerability: null });
-    expect(res.body.reference).toMatch(new RegExp(`^DW-${new Date().getUTCFullYear()}-\\d{5}$`));
+    // Aware now (by the app's clock), and the reference carries that year.
+    const awareAt = new Date(res.body.awareAt);
+    expect(Math.abs(awareAt.getTime() - testClock.now().getTime())).toBeLessThan(60_000);
+    expect(res.body.reference).toMatch(new RegExp(`^DW-${awareAt.getUTCFullYear()}-\\d{5}$`));
     const events = await tenant.get(`/api/cases/${res.body.id}/events`).expect(200);
     expect(events.body.events[0]).toMatchObject({ type: "case-created", actor: { name: landlord.tenant.name, role: "tenant" } });
     expect(events.body.events[0].after).toMatchObject({ status: "new", reference: res.body.reference });
@@ -48,7 +53,8 @@ describe("a tenant reports", () => {
     expect(alert.subject).toContain(res.body.reference);
     expect(alert.raw).toMatch(/children under 15/);
     await tenant.post(`/api/cases/${res.body.id}/worse`, { note: "Spreading behind the cot." }).expect(204);
-    await new Promise((r) => setTimeout(r, 100));
+    // Once: the outbox (written in the request's transaction) holds one alert to this officer about this case.
+    expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "caseAlert", caseId: res.body.id })).toBe(1);
     expect(t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length).toBe(before + 1);
     const row = await t.ctx.dataSource.getRepository(Case).findOneByOrFail({ id: res.body.id });
     expect(row.vulnerableHousehold).toBe(true);

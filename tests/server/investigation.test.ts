@@ -2,6 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { makeLandlord, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
+import { hoursAgo } from "../support/test-clock.js";
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -52,7 +53,7 @@ describe("the investigation", () => {
     const early = await officer.post(`/api/cases/${c.id}/summary`, body).expect(409);
     expect(early.body.error.message).toMatch(/inspection/);
     await officer.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(200);
-    await officer.post(`/api/cases/${c.id}/inspections`, inspection(new Date(Date.now() - 3_600_000).toISOString())).expect(201);
+    await officer.post(`/api/cases/${c.id}/inspections`, inspection(hoursAgo(1).toISOString())).expect(201);
     await officer.post(`/api/cases/${c.id}/summary`, body).expect(201);
     const mail = await t.mail.lastTo(landlord.tenant.email);
     expect(mail.subject).toContain(c.reference);

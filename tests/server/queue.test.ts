@@ -8,6 +8,7 @@ import { QUEUE_SORTS } from "../../server/modules/cases/case-queue.schemas.js";
 import { Case } from "../../server/modules/cases/case.entity.js";
 import { makeLandlord, makeProperty, makeTenant, makeUser, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
+import { msAgo, testClock } from "../support/test-clock.js";
 
 interface Item {
   id: number;
@@ -35,7 +36,7 @@ let tenant: Client;
 let secondOfficerId: number;
 const ids: Record<string, number> = {};
 const DAY = 86_400_000;
-const daysAgo = (n: number) => new Date(Date.now() - n * DAY).toISOString();
+const daysAgo = (n: number) => msAgo(n * DAY).toISOString();
 
 async function all(query = ""): Promise<{ items: Item[]; total: number }> {
   const res = await officer.get(`/api/cases?pageSize=200${query ? `&${query}` : ""}`).expect(200);
@@ -126,7 +127,7 @@ describe("the stored triage figures", () => {
 
   it("are worked out again when the clock crosses a deadline step", async () => {
     // Pretend the figures were last worked out long ago and are due now: the queue refreshes before it answers.
-    await t.ctx.dataSource.getRepository(Case).update(ids.B, { priority: 0, triageDueAt: new Date(Date.now() - 1000) });
+    await t.ctx.dataSource.getRepository(Case).update(ids.B, { priority: 0, triageDueAt: msAgo(1000) });
     const b = byKey((await all()).items).B;
     expect(b.priority).toBeGreaterThan(0);
   });
@@ -134,10 +135,10 @@ describe("the stored triage figures", () => {
   it("are worked out by many readers at once without holding connections against each other", async () => {
     // Twenty readers refreshing the same stale cases together, more than the connection pool holds:
     // a refresh that kept a transaction open while reading on other connections used to stall here.
-    await t.ctx.dataSource.getRepository(Case).update({ organisationId: landlord.org.id }, { triageDueAt: new Date(Date.now() - 1000) });
+    await t.ctx.dataSource.getRepository(Case).update({ organisationId: landlord.org.id }, { triageDueAt: msAgo(1000) });
     const counts = await Promise.all(Array.from({ length: 20 }, () => t.ctx.services.triage.refreshStale(landlord.org.id, 50)));
     expect(counts.every((n) => n >= 0)).toBe(true);
-    const stale = await t.ctx.dataSource.getRepository(Case).createQueryBuilder("c").where("c.organisation_id = :o AND c.triage_due_at <= NOW(3) - INTERVAL 1 SECOND", { o: landlord.org.id }).getCount();
+    const stale = await t.ctx.dataSource.getRepository(Case).createQueryBuilder("c").where("c.organisation_id = :o AND c.triage_due_at <= :before", { o: landlord.org.id, before: msAgo(1000) }).getCount();
     expect(stale).toBe(0);
   });
 
@@ -163,7 +164,7 @@ describe("filters", () => {
     ["vulnerable=false", (i) => !i.vulnerableHousehold],
     ["overdue=true", (i) => i.overdue],
     ["overdue=false", (i) => !i.overdue],
-    ["dueWithin=5", (i) => i.nextDeadline !== null && Date.parse(i.nextDeadline.dueAt) <= Date.now() + 5 * DAY],
+    ["dueWithin=5", (i) => i.nextDeadline !== null && Date.parse(i.nextDeadline.dueAt) <= testClock.now().getTime() + 5 * DAY],
     ["assignee=me", (i) => i.assignee?.name === "Test officer"],
     ["assignee=unassigned", (i) => i.assignee === null],
     ["q=heron", (i) => /heron/i.test(i.property.addressLine1)],

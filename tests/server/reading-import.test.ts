@@ -12,6 +12,7 @@ import { type ReadingImportService, BATCH_ROWS, HEAD_BYTES } from "../../server/
 import { type ReadingService } from "../../server/modules/readings/reading.service.js";
 import { makeLandlord } from "../support/factories.js";
 import { createTestApp, type TestApp } from "../support/test-app.js";
+import { testClock } from "../support/test-clock.js";
 
 let t: TestApp;
 let imports: ReadingImportService;
@@ -40,7 +41,7 @@ async function makeCase() {
       reporterUserId: tenant.id,
       tenantUserId: tenant.id,
       channel: "tenant-online",
-      awareAt: new Date(),
+      awareAt: testClock.now(),
       description: "Black mould on the bedroom window frame.",
       locations: ["window"],
       observations: ["condensation"],

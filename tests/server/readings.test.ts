@@ -1,7 +1,13 @@
 // Readings by hand, the evaluation of a case and the officers' alert when a surface is at risk.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { makeLandlord, makeProperty, makeTenant, PASSWORD } from "../support/factories.js";
+import { outboxCount } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
+import { daysAgo } from "../support/test-clock.js";
+
+// Reading times a few days back by the test clock, on the hour: at(0) is 07:00 UTC ten days ago.
+const BASE_MS = Math.floor(daysAgo(10).getTime() / 86_400_000) * 86_400_000 + 7 * 3_600_000;
+const at = (hours: number) => new Date(BASE_MS + hours * 3_600_000).toISOString();
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -21,10 +27,10 @@ afterAll(() => t.close());
 
 describe("readings by hand", () => {
   it("stores readings, skips a duplicate of the same room and time, and evaluates the room", async () => {
-    const reading = { roomId: bedroomId, takenAt: "2026-11-30T07:00:00Z", airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 };
+    const reading = { roomId: bedroomId, takenAt: at(24), airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 };
     const first = await tenant.post(`/api/cases/${caseId}/readings`, [reading]).expect(201);
     expect(first.body).toEqual({ imported: 1, duplicates: 0, rejected: 0 });
-    const again = await tenant.post(`/api/cases/${caseId}/readings`, [reading, { roomId: bedroomId, takenAt: "2026-11-30T08:00:00Z", airTemperatureC: 19, relativeHumidityPct: 70 }]).expect(201);
+    const again = await tenant.post(`/api/cases/${caseId}/readings`, [reading, { roomId: bedroomId, takenAt: at(25), airTemperatureC: 19, relativeHumidityPct: 70 }]).expect(201);
     expect(again.body).toEqual({ imported: 1, duplicates: 1, rejected: 0 });
     const events = (await tenant.get(`/api/cases/${caseId}/events`)).body.events.filter((e: { type: string }) => e.type === "readings-added");
     expect(events.map((e: { after: { imported: number; duplicates: number } }) => [e.after.imported, e.after.duplicates])).toEqual([[1, 0], [1, 1]]);
@@ -46,21 +52,22 @@ describe("readings by hand", () => {
   it("evaluates a measured window surface at 9 °C with air at 19 °C / 78 % as condensing and alerts the officers once", async () => {
     const c = (await tenant.post("/api/cases", { description: "Window streaming.", locations: ["window"], observations: ["condensation"], roomIds: [bedroomId] }).expect(201)).body;
     const before = t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length;
-    await tenant.post(`/api/cases/${c.id}/readings`, [{ roomId: bedroomId, takenAt: "2026-12-01T07:00:00Z", airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 }]).expect(201);
+    await tenant.post(`/api/cases/${c.id}/readings`, [{ roomId: bedroomId, takenAt: at(48), airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 }]).expect(201);
     const evaluation = await tenant.get(`/api/cases/${c.id}/evaluation`).expect(200);
     expect(evaluation.body.rooms[0].surfaces[0].result.surface).toMatchObject({ source: "measured", temperatureC: 9, state: "condensing" });
     const alert = await t.mail.lastTo(landlord.officer.email);
     expect(alert.subject).toContain(c.reference);
     expect(alert.raw).toMatch(/condensing/);
-    await tenant.post(`/api/cases/${c.id}/readings`, [{ roomId: bedroomId, takenAt: "2026-12-01T08:00:00Z", airTemperatureC: 19, relativeHumidityPct: 80, surfaceTemperatureC: 8 }]).expect(201);
-    await new Promise((r) => setTimeout(r, 100));
+    await tenant.post(`/api/cases/${c.id}/readings`, [{ roomId: bedroomId, takenAt: at(49), airTemperatureC: 19, relativeHumidityPct: 80, surfaceTemperatureC: 8 }]).expect(201);
+    // Once: one alert to this officer about this case in the outbox, written before the second reply.
+    expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "caseAlert", caseId: c.id })).toBe(1);
     expect(t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length).toBe(before + 1);
   });
 
   it("validates every reading and changes nothing when one is bad", async () => {
-    const good = { roomId: bedroomId, takenAt: "2026-11-29T07:00:00Z", airTemperatureC: 18, relativeHumidityPct: 60 };
+    const good = { roomId: bedroomId, takenAt: at(0), airTemperatureC: 18, relativeHumidityPct: 60 };
     const count = (await tenant.get(`/api/cases/${caseId}/readings`)).body.readings.length;
-    const bad = await tenant.post(`/api/cases/${caseId}/readings`, [good, { ...good, takenAt: "2026-11-29T08:00:00Z", relativeHumidityPct: 101 }]).expect(400);
+    const bad = await tenant.post(`/api/cases/${caseId}/readings`, [good, { ...good, takenAt: at(1), relativeHumidityPct: 101 }]).expect(400);
     expect(bad.body.error.details[0].field).toBe("1.relativeHumidityPct");
     await tenant.post(`/api/cases/${caseId}/readings`, [{ ...good, airTemperatureC: "warm" }]).expect(400);
     await tenant.post(`/api/cases/${caseId}/readings`, [{ ...good, takenAt: "yesterday" }]).expect(400);
@@ -77,7 +84,7 @@ describe("readings by hand", () => {
     const client = await signedInClient(t.app, neighbour.email, PASSWORD);
     await client.get(`/api/cases/${caseId}/readings`).expect(404);
     await client.get(`/api/cases/${caseId}/evaluation`).expect(404);
-    await client.post(`/api/cases/${caseId}/readings`, [{ roomId: bedroomId, takenAt: "2026-11-29T07:00:00Z", airTemperatureC: 18, relativeHumidityPct: 60 }]).expect(404);
+    await client.post(`/api/cases/${caseId}/readings`, [{ roomId: bedroomId, takenAt: at(0), airTemperatureC: 18, relativeHumidityPct: 60 }]).expect(404);
     const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
     await officer.get(`/api/cases/${caseId}/evaluation`).expect(200);
   });
@@ -88,8 +95,8 @@ describe("logger CSV import through the API", () => {
   const thousandRows = () => {
     const rows: string[] = [];
     for (let i = 0; i < 1000; i++) {
-      const at = new Date(Date.UTC(2026, 10, 1) + i * 600_000).toISOString();
-      rows.push(`${at},${(18 + (i % 10) / 10).toFixed(1)},${65 + (i % 20)}`);
+      const time = new Date(BASE_MS - 28 * 86_400_000 + i * 600_000).toISOString();
+      rows.push(`${time},${(18 + (i % 10) / 10).toFixed(1)},${65 + (i % 20)}`);
     }
     rows[99] = rows[99]!.replace(/,[\d.]+,/, ",warm,"); // line 101
     rows[499] = rows[499]!.replace(/,\d+$/, ",130"); // line 501

@@ -15,8 +15,8 @@ beforeAll(async () => {
 afterAll(() => t.close());
 
 it("creates the demo landlord once, with about 120 homes on three estates, and the demo accounts sign in", async () => {
-  const first = await seedDemo(t.ctx.dataSource, "demo-password-1");
-  const second = await seedDemo(t.ctx.dataSource, "demo-password-2");
+  const first = await seedDemo(t.ctx.dataSource, "demo-password-1", t.ctx.clock.now());
+  const second = await seedDemo(t.ctx.dataSource, "demo-password-2", t.ctx.clock.now());
   expect(first.created).toBe(true);
   expect(second.created).toBe(false);
   const orgs = await t.ctx.dataSource.getRepository(Organisation).findBy({ name: DEMO_ORGANISATION });

@@ -8,6 +8,7 @@ import { appointmentIcs } from "../../server/modules/works/appointment.js";
 import { makeLandlord, makeProperty, makeTenant, makeUser, PASSWORD } from "../support/factories.js";
 import { jpegWithGps } from "../support/images.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
+import { hoursAgo, msAgo, workingDayAhead, workingDaysAhead } from "../support/test-clock.js";
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -17,14 +18,10 @@ let tenant: Client;
 let neighbour: Client;
 let operative2Id: number;
 const report = { description: "Black mould on the bathroom ceiling and the window.", locations: ["ceiling"], observations: ["mould-spots"] };
-const inspection = { inspectedAt: new Date(Date.now() - 3_600_000).toISOString(), cause: "condensation", mouldExtent: "under-1-m2", findings: "Extract fan not working; condensation mould on the ceiling above the bath.", roomReadings: [] };
+const inspection = { inspectedAt: hoursAgo(1).toISOString(), cause: "condensation", mouldExtent: "under-1-m2", findings: "Extract fan not working; condensation mould on the ceiling above the bath.", roomReadings: [] };
 
-/** A London date some days ahead, on a weekday. */
-function futureDate(days: number): string {
-  const d = new Date(Date.now() + days * 86_400_000);
-  while (d.getUTCDay() === 0 || d.getUTCDay() === 6) d.setUTCDate(d.getUTCDate() + 1);
-  return d.toISOString().slice(0, 10);
-}
+/** A London working day at least `days` days ahead of the test clock. */
+const futureDate = (days: number) => workingDayAhead(days);
 
 async function investigatedCase(): Promise<number> {
   const c = (await tenant.post("/api/cases", report).expect(201)).body;
@@ -75,8 +72,8 @@ describe("double-booking", () => {
   it("frees the old slot on rescheduling and keeps the old booking in the history", async () => {
     const caseId = await investigatedCase();
     const wo = (await officer.post(`/api/cases/${caseId}/work-orders`, { type: "trickle-vents", description: "Free the painted-over trickle vents." }).expect(201)).body;
-    const first = futureDate(16);
-    const second = futureDate(17);
+    // Two different working days: "16 and 17 days ahead" fell on the same Monday from a Thursday or a Friday.
+    const [first, second] = workingDaysAhead(16, 2);
     await lead.patch(`/api/work-orders/${wo.id}`, { assigneeId: landlord.maintenance.id, slot: { date: first, window: "pm" } }).expect(200);
     const moved = (await lead.patch(`/api/work-orders/${wo.id}`, { assigneeId: landlord.maintenance.id, slot: { date: second, window: "pm" } }).expect(200)).body;
     expect(moved.bookings.map((x: { date: string; state: string }) => [x.date, x.state])).toEqual([
@@ -226,7 +223,7 @@ describe("the end of the monitoring period", () => {
     const caseId = await investigatedCase();
     const wo = (await officer.post(`/api/cases/${caseId}/work-orders`, { type: "mould-wash", description: "Wash the mould." }).expect(201)).body;
     await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Washed with fungicide." } }).expect(200);
-    await t.ctx.dataSource.getRepository(Case).update(caseId, { monitoringEndsAt: new Date(Date.now() - 60_000) });
+    await t.ctx.dataSource.getRepository(Case).update(caseId, { monitoringEndsAt: msAgo(60_000) });
     const before = t.mail.mails.length;
     expect(await t.ctx.services.verification.sendDueReminders()).toBeGreaterThanOrEqual(1);
     const sent = t.mail.mails.slice(before);

@@ -44,7 +44,7 @@ export async function startMailCatcher(): Promise<MailCatcher> {
   return {
     port,
     mails,
-    async lastTo(to, timeoutMs = 3000) {
+    async lastTo(to, timeoutMs = 20_000) {
       const deadline = Date.now() + timeoutMs;
       for (;;) {
         const found = mails.filter((m) => m.to.includes(to)).at(-1);

@@ -11,7 +11,7 @@ export interface ServedApp extends TestApp {
 
 export async function serveDemoApp(): Promise<ServedApp> {
   const t = await createTestApp();
-  await seedDemo(t.ctx.dataSource, DEMO_PASSWORD);
+  await seedDemo(t.ctx.dataSource, DEMO_PASSWORD, t.ctx.clock.now());
   const server: Server = await new Promise((resolve) => {
     const s = t.app.listen(0, "127.0.0.1", () => resolve(s));
   });

@@ -1,10 +1,11 @@
-// Builds the real app against the run's throwaway MariaDB and an in-process SMTP catcher.
+// Builds the real app against the run's throwaway MariaDB and an in-process SMTP catcher, on the test clock.
 import type { Express } from "express";
 import request from "supertest";
 import { createApp } from "../../server/app.js";
 import { createAppContext, type AppContext } from "../../server/app-context.js";
 import { loadConfig, type Config } from "../../server/config/env.js";
 import { startMailCatcher, type MailCatcher } from "./mail-catcher.js";
+import { testClock } from "./test-clock.js";
 
 export interface TestApp {
   ctx: AppContext;
@@ -17,7 +18,7 @@ export async function createTestApp(env: Record<string, string> = {}, adjust?: (
   const mail = await startMailCatcher();
   let config = loadConfig({ ...process.env, SMTP_PORT: String(mail.port), APP_URL: "http://dewline.test", ...env });
   if (adjust) config = adjust(config);
-  const ctx = await createAppContext(config);
+  const ctx = await createAppContext(config, { clock: testClock });
   const app = createApp(ctx);
   return {
     ctx,

@@ -162,9 +162,10 @@ async function createOtherOrganisation(m: EntityManager, passwordHash: string) {
 
 /**
  * Creates the demo once; on later runs only resets the demo accounts' password to `password`.
- * Everything is written in one transaction, so an interrupted seed leaves nothing behind.
+ * Everything is written in one transaction, so an interrupted seed leaves nothing behind. The demo
+ * cases are dated back from `now` (tests pass their clock's).
  */
-export async function seedDemo(dataSource: DataSource, password: string): Promise<{ created: boolean; homes?: number; tenants?: number; cases: number }> {
+export async function seedDemo(dataSource: DataSource, password: string, now: Date = new Date()): Promise<{ created: boolean; homes?: number; tenants?: number; cases: number }> {
   const passwordHash = await hashPassword(password);
   return dataSource.transaction(async (m) => {
     const existing = await m.getRepository(Organisation).findOneBy({ name: DEMO_ORGANISATION });
@@ -173,13 +174,13 @@ export async function seedDemo(dataSource: DataSource, password: string): Promis
         await m.getRepository(User).update({ email: a.email }, { passwordHash, status: "active" });
       }
       // A demo seeded before there were demo cases gets them now.
-      const cases = await seedDemoCases(m, existing.id);
+      const cases = await seedDemoCases(m, existing.id, now);
       return { created: false, cases };
     }
     const counts = await createOrganisationWithHomes(m, passwordHash);
     await createOtherOrganisation(m, passwordHash);
     const org = await m.getRepository(Organisation).findOneByOrFail({ name: DEMO_ORGANISATION });
-    const cases = await seedDemoCases(m, org.id);
+    const cases = await seedDemoCases(m, org.id, now);
     return { created: true, ...counts, cases };
   });
 }

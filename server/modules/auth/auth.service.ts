@@ -11,6 +11,7 @@ import type { InvitationInput } from "./auth.schemas.js";
 import { hashPassword, verifyPassword } from "./passwords.js";
 import { hashToken, newToken } from "./tokens.js";
 import { UserToken, type TokenPurpose } from "./user-token.entity.js";
+import type { Clock } from "../../lib/clock.js";
 
 const INVITATION_HOURS = 72;
 const RESET_MINUTES = 60;
@@ -27,6 +28,7 @@ export class AuthService {
     private readonly tenancies: TenancyService,
     private readonly users: UserService,
     private readonly organisations: OrganisationService,
+    private readonly clock: Clock,
   ) {}
 
   /** The active user with these credentials, or null. Never says which half was wrong. */
@@ -34,7 +36,7 @@ export class AuthService {
     const user = await this.users.account({ email: email.trim().toLowerCase() });
     const ok = await verifyPassword(user?.status === "active" ? user.passwordHash : null, password);
     if (!user || !ok) return null;
-    await this.users.recordSignIn(user.id, new Date());
+    await this.users.recordSignIn(user.id, this.clock.now());
     return toActor(user);
   }
 
@@ -54,7 +56,7 @@ export class AuthService {
     }
     if (input.role === "tenant") await this.properties.getForStaff(actor, input.propertyId!);
     const { token, hash } = newToken();
-    const expiresAt = new Date(Date.now() + INVITATION_HOURS * 3_600_000);
+    const expiresAt = new Date(this.clock.now().getTime() + INVITATION_HOURS * 3_600_000);
     const { user, deliver } = await this.dataSource.transaction(async (m) => {
       if (await this.users.emailTaken(input.email, m)) {
         throw new ConflictError("Someone with that e-mail address already has an account.");
@@ -105,7 +107,7 @@ export class AuthService {
     if (!user || user.status !== "active") return;
     const { token, hash } = newToken();
     const deliver = await this.dataSource.transaction(async (m) => {
-      await this.saveToken(m, user.id, "password-reset", hash, new Date(Date.now() + RESET_MINUTES * 60_000), null);
+      await this.saveToken(m, user.id, "password-reset", hash, new Date(this.clock.now().getTime() + RESET_MINUTES * 60_000), null);
       return this.mail.enqueue(m, {
         to: user.email,
         template: "passwordReset",
@@ -125,19 +127,19 @@ export class AuthService {
       if (!user || user.status !== "active") throw new NotFoundError(INVALID_LINK);
       await this.users.setPasswordHash(m, user.id, passwordHash);
       // Any other reset link still outstanding stops working too.
-      await m.getRepository(UserToken).update({ userId: user.id, purpose: "password-reset", usedAt: IsNull() }, { usedAt: new Date() });
+      await m.getRepository(UserToken).update({ userId: user.id, purpose: "password-reset", usedAt: IsNull() }, { usedAt: this.clock.now() });
     });
   }
 
   private async saveToken(m: EntityManager, userId: number, purpose: TokenPurpose, tokenHash: string, expiresAt: Date, createdById: number | null) {
     // A new link replaces any earlier one of the same kind.
-    await m.getRepository(UserToken).update({ userId, purpose, usedAt: IsNull() }, { usedAt: new Date() });
+    await m.getRepository(UserToken).update({ userId, purpose, usedAt: IsNull() }, { usedAt: this.clock.now() });
     await m.getRepository(UserToken).insert({ userId, purpose, tokenHash, expiresAt, createdById, usedAt: null });
   }
 
   private async findLiveToken(m: EntityManager, token: string, purpose: TokenPurpose, lock = false): Promise<UserToken> {
     const row = await m.getRepository(UserToken).findOne({
-      where: { tokenHash: hashToken(token), purpose, usedAt: IsNull(), expiresAt: MoreThan(new Date()) },
+      where: { tokenHash: hashToken(token), purpose, usedAt: IsNull(), expiresAt: MoreThan(this.clock.now()) },
       ...(lock ? { lock: { mode: "pessimistic_write" as const } } : {}),
     });
     if (!row) throw new NotFoundError(INVALID_LINK);
@@ -147,7 +149,7 @@ export class AuthService {
   /** Marks the token used inside the transaction; a second use (even a concurrent one) finds nothing. */
   private async consumeToken(m: EntityManager, token: string, purpose: TokenPurpose): Promise<UserToken> {
     const row = await this.findLiveToken(m, token, purpose, true);
-    await m.getRepository(UserToken).update(row.id, { usedAt: new Date() });
+    await m.getRepository(UserToken).update(row.id, { usedAt: this.clock.now() });
     return row;
   }
 }

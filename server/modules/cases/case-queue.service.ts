@@ -11,6 +11,7 @@ import { Case } from "./case.entity.js";
 export interface StaleFiguresRefresher {
   refreshStale(organisationId: number, limit: number): Promise<unknown>;
 }
+import type { Clock } from "../../lib/clock.js";
 
 export interface QueueRow {
   id: number;
@@ -75,9 +76,10 @@ export class QueueService {
   constructor(
     private readonly dataSource: DataSource,
     private readonly figures: StaleFiguresRefresher,
+    private readonly clock: Clock,
   ) {}
 
-  async list(actor: Actor, query: QueueQuery, now = new Date()): Promise<{ rows: QueueRow[]; rooms: Map<number, { id: number; name: string }[]>; total: number }> {
+  async list(actor: Actor, query: QueueQuery, now = this.clock.now()): Promise<{ rows: QueueRow[]; rooms: Map<number, { id: number; name: string }[]>; total: number }> {
     // Figures marked stale by a change (or by the clock) are worked out before anyone reads them.
     await this.refreshStale(actor.organisationId);
 

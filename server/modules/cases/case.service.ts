@@ -14,9 +14,17 @@ import { CaseEvent } from "./case-event.entity.js";
 import { asCaseEvent, type CaseEventOf, type CaseEventType, type NewCaseEvent } from "./case-events.js";
 import { Case } from "./case.entity.js";
 import type { CasePatch } from "./cases.schemas.js";
+import type { Clock } from "../../lib/clock.js";
 
 /** The case record other modules receive from this service (they never query the entity themselves). */
 export type { Case } from "./case.entity.js";
+
+/**
+ * The stale mark: the database's own time put a century back, so it is due whatever the clock says
+ * (tests and dry runs move the app's clock to other dates) and still differs from one change to the
+ * next (a refresh compares it to see whether the case changed meanwhile).
+ */
+const STALE_MARK = "CURRENT_TIMESTAMP(3) - INTERVAL 100 YEAR";
 
 export const formatReference = (awareAt: Date, id: number) => `DW-${awareAt.getUTCFullYear()}-${String(id).padStart(5, "0")}`;
 export const addressOf = (p: Pick<Property, "addressLine1" | "town" | "postcode">) => `${p.addressLine1}, ${p.town} ${p.postcode}`;
@@ -48,6 +56,7 @@ export class CaseService {
     private readonly tenancies: TenancyService,
     private readonly users: UserService,
     private readonly organisations: OrganisationService,
+    private readonly clock: Clock,
   ) {}
 
   /**
@@ -57,7 +66,8 @@ export class CaseService {
   async recordEvent(m: EntityManager, e: NewCaseEvent) {
     const before = "before" in e ? (e.before as Record<string, unknown> | null) : null;
     await m.getRepository(CaseEvent).save(
-      m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before, after: e.after as Record<string, unknown> }),
+      // created_at from the clock, not the column default: rules compare it with times the clock set (e.g. works done).
+      m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before, after: e.after as Record<string, unknown>, createdAt: this.clock.now() }),
     );
     await this.markStale(m, { caseIds: [e.caseId] });
   }
@@ -68,7 +78,7 @@ export class CaseService {
    * every open case of a landlord whose deadline policy changed.
    */
   async markStale(m: EntityManager, where: { caseIds: number[] } | { propertyId: number } | { organisationId: number }): Promise<void> {
-    const qb = m.createQueryBuilder().update(Case).set({ triageDueAt: () => "CURRENT_TIMESTAMP(3)" });
+    const qb = m.createQueryBuilder().update(Case).set({ triageDueAt: () => STALE_MARK });
     if ("caseIds" in where) qb.where("id IN (:...ids)", { ids: where.caseIds.length ? where.caseIds : [0] });
     else if ("propertyId" in where) qb.where("property_id = :p", { p: where.propertyId });
     else qb.where("organisation_id = :o AND status IN (:...open)", { o: where.organisationId, open: OPEN_CASE_STATUSES });
@@ -176,7 +186,7 @@ export class CaseService {
 
   /** Ids of cases whose triage figures are stale (of one landlord, or all), the longest-stale first. */
   async staleIds(organisationId: number | undefined, limit: number): Promise<number[]> {
-    const qb = this.dataSource.getRepository(Case).createQueryBuilder("c").select("c.id", "id").where("c.triage_due_at <= CURRENT_TIMESTAMP(3)");
+    const qb = this.dataSource.getRepository(Case).createQueryBuilder("c").select("c.id", "id").where("c.triage_due_at <= :now", { now: this.clock.now() });
     if (organisationId !== undefined) qb.andWhere("c.organisation_id = :org", { org: organisationId });
     const rows: { id: number }[] = await qb.orderBy("c.triage_due_at", "ASC").limit(limit).getRawMany();
     return rows.map((r) => r.id);
@@ -215,7 +225,7 @@ export class CaseService {
       }
       channel = staff.channel;
       awareAt = new Date(staff.awareAt);
-      if (awareAt.getTime() > Date.now() + 60_000) {
+      if (awareAt.getTime() > this.clock.now().getTime() + 60_000) {
         throw new ValidationError("awareAt: the date the landlord became aware cannot be in the future.", [{ field: "awareAt", message: "Cannot be in the future." }]);
       }
     } else {
@@ -225,7 +235,7 @@ export class CaseService {
       property = home.property;
       tenantUserId = actor.id;
       channel = "tenant-online";
-      awareAt = new Date();
+      awareAt = this.clock.now();
     }
     const roomIds = [...new Set(input.roomIds ?? [])];
     const propertyRooms = new Set((property.rooms ?? []).map((r) => r.id));
@@ -255,6 +265,8 @@ export class CaseService {
         status: "new",
         reference: null,
         officersAlertedAt: null,
+        // The report's received time is the clock's, like its awareness date, not the column default.
+        createdAt: this.clock.now(),
       });
       const saved = await repo.save(row);
       saved.reference = formatReference(awareAt, saved.id);
@@ -311,7 +323,7 @@ export class CaseService {
   async alertOfficers(m: EntityManager, c: Case, property: Property, reasons: string[]): Promise<(() => Promise<unknown>)[]> {
     if (c.officersAlertedAt) return [];
     const officers = await this.users.activeStaffOf(c.organisationId, ["officer"], m);
-    c.officersAlertedAt = new Date();
+    c.officersAlertedAt = this.clock.now();
     await m.getRepository(Case).update(c.id, { officersAlertedAt: c.officersAlertedAt });
     const out: (() => Promise<unknown>)[] = [];
     for (const officer of officers) {

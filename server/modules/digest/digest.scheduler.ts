@@ -6,6 +6,7 @@
 // server keeps running. Started by the server entry, never by createApp, so tests' apps start no
 // timers.
 import { localDate, LONDON_TIME_ZONE } from "../../../src/lib/domain/working-days.js";
+import { systemClock } from "../../lib/clock.js";
 import type { Logger } from "../../lib/logger.js";
 import type { TriageService } from "../triage/triage.service.js";
 import type { DigestRun, DigestService } from "./digest.service.js";
@@ -54,7 +55,8 @@ export function startDigestScheduler(
   logger: Logger,
   options: { clock?: () => Date; intervalMs?: number; firstCheckMs?: number } = {},
 ): DigestScheduler {
-  const clock = options.clock ?? (() => new Date());
+  // Whoever starts the scheduler hands in the AppContext's clock (see background.ts).
+  const clock = options.clock ?? (() => systemClock.now());
   let doneFor: string | null = null;
   let running: Promise<void> | null = null;
   let stopped = false;

@@ -8,6 +8,7 @@ import type { UserService } from "../users/user.service.js";
 import { Inspection } from "./inspection.entity.js";
 import type { InspectionInput } from "./inspections.schemas.js";
 import { WrittenSummary } from "./written-summary.entity.js";
+import type { Clock } from "../../lib/clock.js";
 
 /** The investigation of a case: inspections, the written summary to the tenant, and messages. */
 export class InspectionService {
@@ -17,6 +18,7 @@ export class InspectionService {
     private readonly cases: CaseService,
     private readonly mail: MailService,
     private readonly users: UserService,
+    private readonly clock: Clock,
   ) {}
 
   /** Records an inspection; the case moves to `investigated` when the workflow allows it from where it is. */
@@ -27,7 +29,7 @@ export class InspectionService {
       const strange = input.roomReadings.filter((r) => !rooms.has(r.roomId)).map((r) => r.roomId);
       if (strange.length) throw new ValidationError("roomReadings: choose rooms of this home.", [{ field: "roomReadings", message: `Room ${strange.join(", ")} is not part of this home.` }]);
       const inspectedAt = new Date(input.inspectedAt);
-      if (inspectedAt.getTime() > Date.now() + 60_000) throw new ValidationError("inspectedAt: an inspection cannot be recorded in the future.", [{ field: "inspectedAt", message: "Cannot be in the future." }]);
+      if (inspectedAt.getTime() > this.clock.now().getTime() + 60_000) throw new ValidationError("inspectedAt: an inspection cannot be recorded in the future.", [{ field: "inspectedAt", message: "Cannot be in the future." }]);
       const repo = m.getRepository(Inspection);
       const saved = await repo.save(repo.create({ ...input, caseId: c.id, inspectedAt, inspectorUserId: actor.id }));
       await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "inspection-recorded", after: { inspectionId: saved.id, inspectedAt: inspectedAt.toISOString(), cause: input.cause, mouldExtent: input.mouldExtent } });
@@ -73,7 +75,7 @@ export class InspectionService {
         data: { name: tenant.name, reference: c.reference!, body, link: `${this.config.appUrl}/cases/${c.id}` },
       });
       const repo = m.getRepository(WrittenSummary);
-      const saved = await repo.save(repo.create({ caseId: c.id, senderUserId: actor.id, body, outboxId, sentAt: new Date() }));
+      const saved = await repo.save(repo.create({ caseId: c.id, senderUserId: actor.id, body, outboxId, sentAt: this.clock.now() }));
       await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "summary-sent", after: { summaryId: saved.id, body, outboxId } });
       return { saved, deliver };
     });

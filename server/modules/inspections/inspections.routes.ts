@@ -1,5 +1,6 @@
 import { Router } from "express";
 import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
+import type { Clock } from "../../lib/clock.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
@@ -9,7 +10,7 @@ import type { InspectionService } from "./inspection.service.js";
 import { inspectionSchema, messageSchema, summarySchema } from "./inspections.schemas.js";
 
 /** Mounted at /api/cases: inspections, the written summary, messages and the deadline clocks. */
-export function createInspectionsRouter({ cases, inspections, policy }: { cases: CaseService; inspections: InspectionService; policy: PolicyService }): Router {
+export function createInspectionsRouter({ cases, inspections, policy, clock }: { cases: CaseService; inspections: InspectionService; policy: PolicyService; clock: Clock }): Router {
   const router = Router();
   const staff = requireRole("officer", "maintenance", "admin");
   const officers = requireRole("officer", "admin");
@@ -44,7 +45,7 @@ export function createInspectionsRouter({ cases, inspections, policy }: { cases:
     const c = await cases.getForActor(actorOf(req), id);
     const milestones = await inspections.milestones(c.id);
     const { source: _source, ...timeframes } = await policy.forOrganisation(c.organisationId);
-    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now: new Date(), policy: timeframes });
+    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now: clock.now(), policy: timeframes });
     res.json({ deadlines: deadlines.map((d) => ({ stage: d.stage, dueAt: d.dueAt?.toISOString() ?? null, doneAt: d.doneAt?.toISOString() ?? null, state: d.state })) });
   });
 

@@ -3,6 +3,7 @@ import type { Logger } from "../../lib/logger.js";
 import type { Mailer } from "../../lib/mailer.js";
 import { mailTemplates, type MailTemplateName, type RenderedMail } from "./mail-templates.js";
 import { OutboxEmail } from "./outbox-email.entity.js";
+import type { Clock } from "../../lib/clock.js";
 
 export interface SendMail<T extends MailTemplateName> {
   to: string;
@@ -18,6 +19,7 @@ export class MailService {
     private readonly dataSource: DataSource,
     private readonly mailer: Mailer,
     private readonly logger: Logger,
+    private readonly clock: Clock,
   ) {}
 
   /**
@@ -62,7 +64,7 @@ export class MailService {
     const repo = this.dataSource.getRepository(OutboxEmail);
     try {
       const { messageId } = await this.mailer.send({ to: row.toAddress, subject: row.subject, text, attachments });
-      Object.assign(row, { status: "sent", messageId, sentAt: new Date(), error: null });
+      Object.assign(row, { status: "sent", messageId, sentAt: this.clock.now(), error: null });
     } catch (error) {
       const message = error instanceof Error ? error.message : String(error);
       this.logger.warn({ outboxId: row.id, err: message }, "e-mail could not be sent");

@@ -28,6 +28,7 @@ import { RejectedReport } from "./csv/report.js";
 import { createRowConverter, emptyRow, isBlankRecord, type ConvertedRow } from "./csv/rows.js";
 import { isTimeZone } from "../../../src/lib/domain/time-zone.js";
 import { ReadingImport } from "./reading-import.entity.js";
+import type { Clock } from "../../lib/clock.js";
 
 export type { Mapping, MappingOverride } from "./csv/mapping.js";
 
@@ -179,6 +180,7 @@ export class ReadingImportService {
   constructor(
     private readonly dataSource: DataSource,
     private readonly events: CaseEventRecorder,
+    private readonly clock: Clock,
   ) {}
 
   /** How we would read the file, from its first 64 KB. 422 when it is not UTF-8 CSV or lacks the columns we need. */
@@ -200,7 +202,7 @@ export class ReadingImportService {
   async import(input: ImportInput): Promise<ImportResult> {
     const { layout, proposal } = await this.inspect(input.filePath);
     const mapping = this.resolveMapping(layout, proposal, input.mapping);
-    const convert = createRowConverter(mapping, { decimalComma: layout.decimalComma, nowMs: Date.now() });
+    const convert = createRowConverter(mapping, { decimalComma: layout.decimalComma, nowMs: this.clock.now().getTime() });
     const fileName = displayFileName(input.fileName);
 
     return this.dataSource.transaction(async (m) => {

@@ -1,28 +1,33 @@
 import { IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
+import type { Clock } from "../../lib/clock.js";
 import { NotFoundError } from "../../lib/errors.js";
 import type { Actor } from "../../lib/actor.js";
 import type { Property, PropertyService } from "../properties/property.service.js";
 import { Tenancy } from "./tenancy.entity.js";
 
-const today = () => new Date().toISOString().slice(0, 10);
-
 export class TenancyService {
   constructor(
     private readonly dataSource: DataSource,
     private readonly properties: PropertyService,
+    private readonly clock: Clock,
   ) {}
+
+  /** Today's date (UTC), against which tenancies' start and end dates are read. */
+  private today(): string {
+    return this.clock.now().toISOString().slice(0, 10);
+  }
 
   /** Starts a tenancy today (inside the caller's transaction). */
   async start(m: EntityManager, t: { propertyId: number; tenantUserId: number; householdNotes: string | null; startDate?: string }) {
     return m.getRepository(Tenancy).save(
-      m.getRepository(Tenancy).create({ ...t, startDate: t.startDate ?? today(), endDate: null }),
+      m.getRepository(Tenancy).create({ ...t, startDate: t.startDate ?? this.today(), endDate: null }),
     );
   }
 
   /** The tenant's current tenancy (started, not ended), or null. The one place a tenant's home is decided. */
   async currentFor(actor: Actor): Promise<Tenancy | null> {
     const repo = this.dataSource.getRepository(Tenancy);
-    const d = today();
+    const d = this.today();
     return repo.findOne({
       where: [
         { tenantUserId: actor.id, startDate: LessThanOrEqual(d), endDate: IsNull() },
@@ -34,7 +39,7 @@ export class TenancyService {
 
   /** The tenant living at the home now (the latest current tenancy), or null. */
   async currentTenantOf(propertyId: number, m: EntityManager = this.dataSource.manager): Promise<number | null> {
-    const d = today();
+    const d = this.today();
     const row = await m
       .getRepository(Tenancy)
       .createQueryBuilder("t")

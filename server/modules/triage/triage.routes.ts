@@ -1,4 +1,5 @@
 import { Router } from "express";
+import type { Clock } from "../../lib/clock.js";
 import { AppError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
@@ -10,14 +11,14 @@ import type { QueueService } from "../cases/case-queue.service.js";
 import type { TriageService } from "./triage.service.js";
 
 /** Mounted at /api/cases before the cases router: the queue, bulk changes, priority breakdown and related cases. */
-export function createTriageRouter({ cases, queue, triage }: { cases: CaseService; queue: QueueService; triage: TriageService }): Router {
+export function createTriageRouter({ cases, queue, triage, clock }: { cases: CaseService; queue: QueueService; triage: TriageService; clock: Clock }): Router {
   const router = Router();
   const staff = requireRole("officer", "maintenance", "admin");
   const officers = requireRole("officer", "admin");
 
   router.get("/", staff, async (req, res) => {
     const query = parse(queueQuerySchema, req.query, "query");
-    const now = new Date();
+    const now = clock.now();
     const { rows, rooms, total } = await queue.list(actorOf(req), query, now);
     res.json({ items: rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now)), total, page: query.page, pageSize: query.pageSize });
   });

@@ -7,6 +7,7 @@ import type { EvaluationService } from "../evaluation/evaluation.service.js";
 import type { InspectionService } from "../inspections/inspection.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
 import { OPEN_STATUSES } from "../cases/case-queue.schemas.js";
+import type { Clock } from "../../lib/clock.js";
 
 const HOUR_MS = 3_600_000;
 const YEAR_MS = 365 * 24 * HOUR_MS;
@@ -24,7 +25,7 @@ export function nextDeadline(status: Case["status"], deadlines: Deadline[]): Dea
  * recurrence, next deadline, priority).
  *
  * How they stay true: every change to a case writes a CaseEvent, and writing one marks the case's
- * figures stale (CaseService.recordEvent, CaseService.markStale) (`triage_due_at` = now) in the change's own transaction. Readers (the queue, the
+ * figures stale (CaseService.recordEvent, CaseService.markStale: `triage_due_at` in the past) in the change's own transaction. Readers (the queue, the
  * case page) and a background sweep work stale cases out again. A figure that changes with the
  * clock alone (the deadline factor) sets `triage_due_at` to the moment it changes. A refresh writes
  * only if the case is unchanged since it read the facts, so a change made meanwhile is not lost; a
@@ -37,6 +38,7 @@ export class TriageService {
     private readonly policy: PolicyService,
     private readonly inspections: InspectionService,
     private readonly assessments: AssessmentService,
+    private readonly clock: Clock,
   ) {}
 
   /**
@@ -46,7 +48,7 @@ export class TriageService {
    * case has not changed meanwhile (its stale mark and updated_at are as they were). A case changed
    * meanwhile stays marked, and the next reader works it out again.
    */
-  async refresh(caseId: number, now = new Date()): Promise<TriagePriority | null> {
+  async refresh(caseId: number, now = this.clock.now()): Promise<TriagePriority | null> {
     const c = await this.cases.findById(caseId);
     if (!c) return null;
     const seen = { triageDueAt: c.triageDueAt, updatedAt: c.updatedAt };
@@ -78,7 +80,7 @@ export class TriageService {
   /** The case page's "how the priority was made up", worked out now. */
   async breakdown(actor: Actor, caseId: number): Promise<TriagePriority & { computedAt: Date }> {
     const c = await this.cases.getForActor(actor, caseId);
-    const now = new Date();
+    const now = this.clock.now();
     const priority = await this.refresh(c.id, now);
     return { ...priority!, computedAt: now };
   }

@@ -12,6 +12,7 @@ import type { UserService } from "../users/user.service.js";
 import { WorkOrder } from "./work-order.entity.js";
 import type { WorkOrderService } from "./work-order.service.js";
 import type { WorkOrderCreate } from "./works.schemas.js";
+import type { Clock } from "../../lib/clock.js";
 
 export interface VerificationView {
   state: "no-works" | "monitoring" | "ended" | "decided";
@@ -33,6 +34,7 @@ export class VerificationService {
     private readonly policy: PolicyService,
     private readonly logger: Logger,
     private readonly users: UserService,
+    private readonly clock: Clock,
   ) {}
 
   async view(actor: Actor, caseId: number): Promise<VerificationView> {
@@ -52,7 +54,7 @@ export class VerificationService {
       if (series.length === 0) continue;
       rooms.push({ roomId: room.id, roomName: room.name, comparison: compareBeforeAfter({ readings: series, worksDoneAt: c.worksDoneAt, element, surfaceWet: c.observations.includes("wet-patches") || c.observations.includes("leak") }) });
     }
-    const state = outcome ? "decided" : c.monitoringEndsAt && c.monitoringEndsAt.getTime() <= Date.now() ? "ended" : "monitoring";
+    const state = outcome ? "decided" : c.monitoringEndsAt && c.monitoringEndsAt.getTime() <= this.clock.now().getTime() ? "ended" : "monitoring";
     return { state, worksDoneAt: c.worksDoneAt.toISOString(), monitoringEndsAt: c.monitoringEndsAt?.toISOString() ?? null, monitoringDays, rooms, outcome };
   }
 
@@ -73,7 +75,7 @@ export class VerificationService {
   }
 
   /** When a monitoring period has ended: remind the tenant to add readings and tell the lead to decide. Once per period. */
-  async sendDueReminders(now = new Date()): Promise<number> {
+  async sendDueReminders(now = this.clock.now()): Promise<number> {
     const due = await this.cases.dueForMonitoringReminder(now, 100);
     let sent = 0;
     for (const c of due) {

@@ -17,6 +17,7 @@ import { Contractor } from "./contractor.entity.js";
 import { OperativeSlot } from "./operative-slot.entity.js";
 import { WorkOrder, type SlotWindow } from "./work-order.entity.js";
 import type { WorkOrderCreate, WorkOrderListQuery } from "./works.schemas.js";
+import type { Clock } from "../../lib/clock.js";
 
 export const WORK_WORDS: Record<WorkOrder["type"], string> = {
   "extractor-fan": "extractor fan fitting or repair",
@@ -60,6 +61,7 @@ export class WorkOrderService {
     private readonly inspections: InspectionService,
     private readonly users: UserService,
     private readonly tenancies: TenancyService,
+    private readonly clock: Clock,
   ) {}
 
   /** A work order the actor may see (staff of its landlord, or the tenant of its case); 404 otherwise. */
@@ -111,7 +113,7 @@ export class WorkOrderService {
   private async defaultTargetDate(c: Case): Promise<string> {
     const { source: _s, monitoringDays: _m, ...policy } = await this.policy.forOrganisation(c.organisationId);
     const milestones = await this.inspections.milestones(c.id);
-    const now = new Date();
+    const now = this.clock.now();
     const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now, policy });
     const running = (stage: string) => deadlines.find((d) => d.stage === stage && d.dueAt && !d.doneAt && d.state !== "not-applicable");
     const due = running("safety-work")?.dueAt ?? running("make-safe")?.dueAt ?? running("supplementary-work")?.dueAt ?? addWorkingDays(now, policy.safetyWorkWorkingDays);
@@ -145,7 +147,7 @@ export class WorkOrderService {
 
   /** Books (or re-books) the order into a slot for an operative or a contractor. */
   async schedule(actor: Actor, id: number, input: { assigneeId?: number | null; contractorId?: number | null; slot: { date: string; window: SlotWindow } }): Promise<WorkOrder> {
-    const today = localDate(new Date());
+    const today = localDate(this.clock.now());
     if (input.slot.date < today) throw new ValidationError("slot.date: choose today or a later day.", [{ field: "slot.date", message: "Choose today or a later day." }]);
     const deliveries: Deliveries = [];
     await this.dataSource.transaction(async (m) => {
@@ -237,7 +239,7 @@ export class WorkOrderService {
       const booking = await m.getRepository(WorkOrderBooking).findOneByOrFail({ workOrderId: wo.id, state: "active" });
       if (input.response === "confirm" && wo.status === "change-requested") throw new ConflictError("You have asked for another time; your landlord will offer a new slot.");
       const confirmed = input.response === "confirm";
-      await m.getRepository(WorkOrderBooking).update(booking.id, { tenantResponse: confirmed ? "confirmed" : "change-requested", tenantReason: input.reason ?? null, respondedAt: new Date() });
+      await m.getRepository(WorkOrderBooking).update(booking.id, { tenantResponse: confirmed ? "confirmed" : "change-requested", tenantReason: input.reason ?? null, respondedAt: this.clock.now() });
       await m.getRepository(WorkOrder).update(wo.id, { status: confirmed ? "confirmed" : "change-requested" });
       await this.cases.recordEvent(m, {
         caseId: c.id,
@@ -275,7 +277,7 @@ export class WorkOrderService {
       const wo = await this.getForActor(actor, id, m, true);
       if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is already ${wo.status}.`);
       const c = await this.cases.getForActor(actor, wo.caseId, m);
-      const now = new Date();
+      const now = this.clock.now();
       await m.getRepository(WorkOrder).update(wo.id, {
         status: "done",
         completedAt: now,
