@@ -268,6 +268,7 @@ function InspectionPhotos({ caseId }: { caseId: number }) {
 
 function WorksPanel({ c, role }: { c: CaseDto; role: Role }) {
   const deadlines = useDeadlines(c.id);
+  const photos = useCasePhotos(c.id);
   const safetyWork = deadlines.data?.find((d) => d.stage === "safety-work")?.dueAt ?? null;
   return (
     <Panel title="Works" id="case-works">
@@ -284,7 +285,7 @@ function WorksPanel({ c, role }: { c: CaseDto; role: Role }) {
           <h3 id="case-works-list-heading" className="text-lg font-bold">
             Work orders
           </h3>
-          <WorkOrderList caseId={c.id} canManage={canManageWorks(role)} Gallery={PhotoGallery} PhotoUpload={WorkOrderPhotos} />
+          <WorkOrderList caseId={c.id} canManage={canManageWorks(role)} photos={photos.data} Gallery={PhotoGallery} PhotoUpload={WorkOrderPhotos} />
         </section>
       </div>
     </Panel>

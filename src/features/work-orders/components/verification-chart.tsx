@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import uPlot from "uplot";
+import { LONDON } from "@/lib/dates";
 import "uplot/dist/uPlot.min.css";
 import { MOULD_SURFACE_RH_PCT } from "@/lib/domain";
 import type { BeforeAfter } from "../api/case-types";
@@ -38,6 +39,8 @@ export function VerificationChart({ roomName, comparison }: { roomName: string; 
         { label: "After the works", scale: "%", stroke: COLOURS.after, width: 2.5, value: fmt },
         { label: `Mould-growth level (${MOULD_SURFACE_RH_PCT} %)`, scale: "%", stroke: COLOURS.limit, width: 1.5, dash: [8, 6], points: { show: false } },
       ],
+      // The time axis in London time, as every date on screen (uPlot would use the browser's zone).
+      tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), LONDON),
       scales: { x: { time: true }, "%": { range: [0, 100] } },
       axes: [
         { stroke: COLOURS.axis, grid: { stroke: COLOURS.grid } },

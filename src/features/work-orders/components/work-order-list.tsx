@@ -6,7 +6,6 @@ import { LoadingState } from "@/components/ui/spinner";
 import { ScheduleDialog } from "./schedule-dialog";
 import { errorMessage } from "@/lib/api-client";
 import { useCaseWorkOrders } from "../api/get-case-work-orders";
-import { photosOfOrder, useWorkPhotos } from "../api/get-work-photos";
 import type { BookingHistoryItem, WorkOrder, WorkPhoto } from "../api/case-types";
 import { longDate, minutesInWords, priorityLabel, slotForStaff, workStatusLabel, workTypeLabel } from "../lib/words";
 import { formatDateTimeZoned } from "@/lib/dates";
@@ -18,6 +17,8 @@ export interface WorkOrderListProps {
   caseId: number;
   /** Maintenance leads and administrators book, complete and cancel. */
   canManage: boolean;
+  /** The case's photos (read by the page, under the case's photos key); an order shows those taken after its works. undefined while loading. */
+  photos: readonly WorkPhoto[] | undefined;
   /** The app's photo gallery (thumbnails that open full size), supplied by the page. */
   Gallery: ComponentType<{ photos: WorkPhoto[]; emptyText: string }>;
   /** The app's photo picker and upload for one work order, supplied by the page. */
@@ -30,10 +31,12 @@ const RANK: Record<string, number> = { "change-requested": 0, unscheduled: 1, sc
 const ordered = (list: readonly WorkOrder[]) =>
   [...list].sort((a, b) => (RANK[a.status] ?? 9) - (RANK[b.status] ?? 9) || Date.parse(b.createdAt) - Date.parse(a.createdAt) || b.id - a.id);
 
+/** The photos of one work order, oldest first. */
+const photosOfOrder = (photos: readonly WorkPhoto[], workOrderId: number) => photos.filter((p) => p.workOrderId === workOrderId);
+
 /** Every work order of the case, with who, when, the tenant's answer and what was done. */
-export function WorkOrderList({ caseId, canManage, Gallery, PhotoUpload }: WorkOrderListProps) {
+export function WorkOrderList({ caseId, canManage, photos, Gallery, PhotoUpload }: WorkOrderListProps) {
   const orders = useCaseWorkOrders(caseId);
-  const photos = useWorkPhotos(caseId);
   if (orders.isPending) return <LoadingState className="py-4">Loading the work orders…</LoadingState>;
   if (orders.isError)
     return (
@@ -45,7 +48,7 @@ export function WorkOrderList({ caseId, canManage, Gallery, PhotoUpload }: WorkO
   return (
     <ol className="flex flex-col gap-4">
       {ordered(orders.data).map((o) => (
-        <WorkOrderItem key={o.id} order={o} canManage={canManage} photos={photos.data ? photosOfOrder(photos.data, o.id) : null} Gallery={Gallery} PhotoUpload={PhotoUpload} />
+        <WorkOrderItem key={o.id} order={o} canManage={canManage} photos={photos ? photosOfOrder(photos, o.id) : null} Gallery={Gallery} PhotoUpload={PhotoUpload} />
       ))}
     </ol>
   );
@@ -59,7 +62,7 @@ const bookedMessage = (o: WorkOrder) => {
 
 type Open = "schedule" | "complete" | "cancel" | null;
 
-interface ItemProps extends Omit<WorkOrderListProps, "caseId"> {
+interface ItemProps extends Omit<WorkOrderListProps, "caseId" | "photos"> {
   order: WorkOrder;
   photos: WorkPhoto[] | null;
 }
