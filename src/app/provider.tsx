@@ -1,6 +1,6 @@
 import { MutationCache, QueryCache, QueryClientProvider, type QueryClient } from "@tanstack/react-query";
 import { useState, type ReactNode } from "react";
-import { authKeys } from "@/features/auth/api/auth-keys";
+import { authKeys } from "@/lib/query-keys";
 import { ApiError } from "@/lib/api-client";
 import { createQueryClient } from "@/lib/query-client";
 

@@ -2,6 +2,7 @@
 // a work order. Shared by the Works page and the case's works, under one query key.
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { contractorKeys } from "@/lib/query-keys";
 
 export interface Contractor {
   id: number;
@@ -11,10 +12,6 @@ export interface Contractor {
   trade: string | null;
 }
 
-export const contractorKeys = {
-  all: ["contractors"] as const,
-  list: () => [...contractorKeys.all, "list"] as const,
-};
 
 export const getContractors = async (signal?: AbortSignal): Promise<Contractor[]> =>
   (await api.get<{ contractors: Contractor[] }>("/contractors", { signal })).contractors;

@@ -1,23 +1,153 @@
-const dateFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "long", year: "numeric" });
-const dateTimeFormat = new Intl.DateTimeFormat("en-GB", {
+// Every date and time the client shows, in London time (Europe/London) whatever the viewer's own
+// zone: a deadline reads the same on every screen and on every machine. Where the hour matters
+// (deadlines, appointments, anything someone acts on) the zone is said beside it, "23:59 BST" or
+// "23:59 GMT", so nobody has to guess. Calendar dates (YYYY-MM-DD, already London days) are shown as
+// they are, never shifted a day.
+import { DEFAULT_TIME_ZONE, ZoneConverter } from "@/lib/domain/time-zone";
+
+/** The zone every date and time is shown in. */
+export const LONDON = DEFAULT_TIME_ZONE;
+
+const london = (options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat("en-GB", { timeZone: LONDON, ...options });
+/** For calendar dates: read at UTC midnight and written in UTC, so the day never moves. */
+const calendar = (options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", ...options });
+
+const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+/** True for a real calendar date written YYYY-MM-DD. */
+export function isIsoDate(value: string): boolean {
+  if (!ISO_DATE.test(value)) return false;
+  const ms = Date.parse(`${value}T00:00:00Z`);
+  return !Number.isNaN(ms) && new Date(ms).toISOString().slice(0, 10) === value;
+}
+
+const instant = (iso: string | null | undefined): Date | null => {
+  if (!iso) return null;
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? null : d;
+};
+const calendarDay = (date: string): Date => new Date(`${date.slice(0, 10)}T00:00:00Z`);
+
+/** Formats an instant, or gives back what it was given when it is not one (so nothing vanishes). */
+const showInstant = (format: Intl.DateTimeFormat) => (iso: string | null | undefined) => {
+  const d = instant(iso);
+  return d ? format.format(d) : (iso ?? "");
+};
+
+// ---- Instants (ISO timestamps), in London time ----
+
+const calendarDayMonthYear = calendar({ day: "numeric", month: "long", year: "numeric" });
+const dayMonthYear = london({ day: "numeric", month: "long", year: "numeric" });
+const dayMonthYearShort = london({ day: "numeric", month: "short", year: "numeric" });
+const dateTime = london({ day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" });
+const dateTimeZone = london({ day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZoneName: "short" });
+const weekdayDateTimeZone = london({
+  weekday: "short",
   day: "numeric",
   month: "short",
   year: "numeric",
   hour: "2-digit",
   minute: "2-digit",
+  timeZoneName: "short",
 });
+const dayTimeZone = london({ day: "numeric", month: "short", hour: "2-digit", minute: "2-digit", timeZoneName: "short" });
+const longWeekdayDate = london({ weekday: "long", day: "numeric", month: "long", year: "numeric" });
+const clockZone = london({ hour: "2-digit", minute: "2-digit", timeZoneName: "short" });
 
-/** "3 March 2024" from "2024-03-03" (a calendar date, read as local so it never shifts a day). */
-export function formatDate(isoDate: string | null | undefined): string {
-  if (!isoDate) return "";
-  const [y, m, d] = isoDate.slice(0, 10).split("-").map(Number);
-  if (!y || !m || !d) return isoDate;
-  return dateFormat.format(new Date(y, m - 1, d));
+/**
+ * "3 March 2024". A calendar date ("2024-03-03") is shown as it is; an instant is shown as the
+ * London day it falls on.
+ */
+export function formatDate(value: string | null | undefined): string {
+  if (!value) return "";
+  if (isIsoDate(value)) return calendarDayMonthYear.format(calendarDay(value));
+  return showInstant(dayMonthYear)(value);
 }
 
-/** "3 Mar 2024, 14:05" from an ISO timestamp. */
-export function formatDateTime(iso: string | null | undefined): string {
-  if (!iso) return "";
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dateTimeFormat.format(date);
+/** "3 Mar 2024, 14:05", London time: when something happened (a photo, a message, a reading). */
+export const formatDateTime = showInstant(dateTime);
+
+/** "3 Mar 2024", the London day of an instant. */
+export const formatDay = showInstant(dayMonthYearShort);
+
+/** "3 Mar 2024, 14:05 GMT": a moment someone acts on, with its zone. */
+export const formatDateTimeZoned = showInstant(dateTimeZone);
+
+/** "Tue, 13 Jan 2026, 17:00 GMT": deadlines and records in the case workspace. */
+export const formatWeekdayDateTimeZoned = showInstant(weekdayDateTimeZone);
+
+/** "3 Mar, 23:59 BST": a deadline in a table, where the year is plain from the context. */
+export const formatDayTimeZoned = showInstant(dayTimeZone);
+
+/** "Tuesday, 13 January 2026 at 17:00 GMT": for letters to tenants. */
+export function formatLongDateTime(iso: string | null | undefined): string {
+  const d = instant(iso);
+  return d ? `${longWeekdayDate.format(d)} at ${clockZone.format(d)}` : (iso ?? "");
+}
+
+/** "Thursday 24 December 2026", the London day of an instant. */
+export function formatLongDay(iso: string | null | undefined): string {
+  const d = instant(iso);
+  return d ? longWeekdayDate.format(d).replace(",", "") : (iso ?? "");
+}
+
+const isoDay = new Intl.DateTimeFormat("en-CA", { timeZone: LONDON, year: "numeric", month: "2-digit", day: "2-digit" });
+
+/** The London calendar date of an instant, YYYY-MM-DD. */
+export const londonDateOf = (at: Date): string => isoDay.format(at);
+
+/** Today's date in London, YYYY-MM-DD. */
+export const todayInLondon = (now: Date = new Date()): string => londonDateOf(now);
+
+// ---- Calendar dates (YYYY-MM-DD) ----
+
+const calendarLong = calendar({ weekday: "long", day: "numeric", month: "long", year: "numeric" });
+const calendarLongNoYear = calendar({ weekday: "long", day: "numeric", month: "long" });
+const calendarShort = calendar({ day: "numeric", month: "short", year: "numeric" });
+
+/** "Tuesday 8 December 2026" from "2026-12-08" (without the year when `withYear` is false). */
+export function formatCalendarLong(date: string, withYear = true): string {
+  if (!isIsoDate(date.slice(0, 10))) return date;
+  return (withYear ? calendarLong : calendarLongNoYear).format(calendarDay(date)).replace(",", "");
+}
+
+/** "7 Dec 2026" from "2026-12-07". */
+export const formatCalendarShort = (date: string): string => (isIsoDate(date) ? calendarShort.format(calendarDay(date)) : date);
+
+// ---- datetime-local inputs, read and written as London time ----
+
+const pad = (n: number) => String(n).padStart(2, "0");
+const parts = new Intl.DateTimeFormat("en-US", {
+  timeZone: LONDON,
+  hourCycle: "h23",
+  year: "numeric",
+  month: "numeric",
+  day: "numeric",
+  hour: "numeric",
+  minute: "numeric",
+});
+
+/** Now (or any instant) as a datetime-local value in London time: "2026-01-13T09:30". */
+export function londonLocalInput(at: Date = new Date()): string {
+  const p: Record<string, number> = {};
+  for (const part of parts.formatToParts(at)) if (part.type !== "literal") p[part.type] = Number(part.value);
+  return `${p.year}-${pad(p.month!)}-${pad(p.day!)}T${pad(p.hour!)}:${pad(p.minute!)}`;
+}
+
+let converter: ZoneConverter | null = null;
+
+/**
+ * A datetime-local value read as London time, as an ISO instant. null when it is not a date-time,
+ * or names a time that does not happen (the hour skipped when the clocks go forward).
+ */
+export function londonLocalToIso(value: string): string | null {
+  const m = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})(?::(\d{2}))?$/.exec(value.trim());
+  if (!m) return null;
+  const [, y, mo, d, h, mi, s] = m.map(Number) as number[];
+  const wall = Date.UTC(y!, mo! - 1, d!, h!, mi!, Number.isNaN(s) ? 0 : (s ?? 0));
+  const check = new Date(wall);
+  if (check.getUTCMonth() !== mo! - 1 || check.getUTCDate() !== d!) return null;
+  converter ??= new ZoneConverter(LONDON);
+  const utc = converter.toUtc(wall);
+  return Number.isNaN(utc) ? null : new Date(utc).toISOString();
 }

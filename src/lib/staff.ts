@@ -2,6 +2,7 @@
 // and the case workspace, under one query key, so both read the same shape from the cache.
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import { staffKeys } from "@/lib/query-keys";
 import type { Role } from "@/lib/roles";
 
 export interface StaffMember {
@@ -10,13 +11,12 @@ export interface StaffMember {
   role: Role | string;
 }
 
-export const staffKeys = { all: ["staff"] as const };
 
 export const getStaff = async (signal?: AbortSignal): Promise<StaffMember[]> => (await api.get<{ users: StaffMember[] }>("/staff", { signal })).users;
 
 export const staffQueryOptions = () =>
   queryOptions({
-    queryKey: staffKeys.all,
+    queryKey: staffKeys.list(),
     queryFn: ({ signal }) => getStaff(signal),
     staleTime: 5 * 60_000,
   });

@@ -8,7 +8,7 @@ import { LoadingState } from "@/components/ui/spinner";
 import { useUser } from "@/features/auth/api/get-me";
 import { signedInAs } from "@/features/auth/api/require-role";
 import { roleHome } from "@/features/auth/roles";
-import { caseKeys } from "@/features/cases/api/cases-keys";
+import { caseKeys } from "@/lib/query-keys";
 import { caseQueryOptions, useCase } from "@/features/cases/api/get-case";
 import { caseEvaluationQueryOptions, useCaseEvaluation } from "@/features/cases/api/get-case-evaluation";
 import { caseEventsQueryOptions, useCaseEvents } from "@/features/cases/api/get-case-events";
@@ -22,17 +22,18 @@ import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { statusLabelFor } from "@/features/cases/labels";
 import { deadlinesQueryOptions, useDeadlines } from "@/features/case-workspace/api/get-deadlines";
-import { workOrdersQueryOptions } from "@/features/case-works/api/get-work-orders";
-import { useUploadWorkOrderPhotos } from "@/features/case-works/api/upload-work-order-photos";
-import { NewWorkOrderForm } from "@/features/case-works/components/new-work-order-form";
-import { VerificationSection } from "@/features/case-works/components/verification-section";
-import { WorkOrderList } from "@/features/case-works/components/work-order-list";
+import { caseWorkOrdersQueryOptions } from "@/features/work-orders/api/get-case-work-orders";
+import { useUploadWorkOrderPhotos } from "@/features/work-orders/api/upload-work-order-photos";
+import { NewWorkOrderForm } from "@/features/work-orders/components/new-work-order-form";
+import { VerificationSection } from "@/features/work-orders/components/verification-section";
+import { WorkOrderList } from "@/features/work-orders/components/work-order-list";
 import { useStaff } from "@/lib/staff";
 import { triageQueryOptions } from "@/features/case-workspace/api/get-triage";
 import { ActionsPanel } from "@/features/case-workspace/components/actions-panel";
 import { AssessmentForm, AssessmentVersions } from "@/features/case-workspace/components/assessment-section";
 import { CaseHeader, staffName, workspaceTitle } from "@/features/case-workspace/components/case-header";
 import { DeadlinesPanel } from "@/features/case-workspace/components/deadlines-panel";
+import { usePolicy } from "@/features/policy/api/get-policy";
 import { DiagnosisHints } from "@/features/case-workspace/components/diagnosis-hints";
 import { InspectionForm, InspectionList } from "@/features/case-workspace/components/inspection-section";
 import { MessageForm } from "@/features/case-workspace/components/message-form";
@@ -67,7 +68,7 @@ export const clientLoader =
       void queryClient.prefetchQuery(deadlinesQueryOptions(id));
       void queryClient.prefetchQuery(triageQueryOptions(id));
       void queryClient.prefetchQuery(caseEvaluationQueryOptions(id));
-      void queryClient.prefetchQuery(workOrdersQueryOptions(id));
+      void queryClient.prefetchQuery(caseWorkOrdersQueryOptions(id));
     }
     return null;
   };
@@ -118,6 +119,7 @@ function Workspace({ id }: { id: number }) {
   const user = useUser();
   const kase = useCase(id);
   const staff = useStaff();
+  const policy = usePolicy();
   const nameOf = useMemo(() => (userId: number) => (userId === user.id ? `${user.name} (you)` : staffName(staff.data, userId)), [staff.data, user]);
   const sender = useMemo(() => ({ name: user.name, role: roleLabels[user.role] }), [user.name, user.role]);
 
@@ -156,7 +158,7 @@ function Workspace({ id }: { id: number }) {
         <div className="grid grid-cols-1 items-start gap-5 xl:grid-cols-2">
           <ActionsPanel c={c} statusLabel={statusLabelFor("staff")} me={user} canAct={officer} />
           <div className="flex min-w-0 flex-col gap-5">
-            <DeadlinesPanel caseId={id} />
+            <DeadlinesPanel caseId={id} policySource={policy.data?.source} />
             <TriagePanel caseId={id} />
             <Panel title="Other cases at this home" id="case-related">
               <RelatedCases caseId={id} Status={StaffStatusBadge} />
@@ -266,6 +268,7 @@ function InspectionPhotos({ caseId }: { caseId: number }) {
 
 function WorksPanel({ c, role }: { c: CaseDto; role: Role }) {
   const deadlines = useDeadlines(c.id);
+  const photos = useCasePhotos(c.id);
   const safetyWork = deadlines.data?.find((d) => d.stage === "safety-work")?.dueAt ?? null;
   return (
     <Panel title="Works" id="case-works">
@@ -282,7 +285,7 @@ function WorksPanel({ c, role }: { c: CaseDto; role: Role }) {
           <h3 id="case-works-list-heading" className="text-lg font-bold">
             Work orders
           </h3>
-          <WorkOrderList caseId={c.id} canManage={canManageWorks(role)} Gallery={PhotoGallery} PhotoUpload={WorkOrderPhotos} />
+          <WorkOrderList caseId={c.id} canManage={canManageWorks(role)} photos={photos.data} Gallery={PhotoGallery} PhotoUpload={WorkOrderPhotos} />
         </section>
       </div>
     </Panel>

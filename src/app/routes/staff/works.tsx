@@ -3,10 +3,10 @@ import type { LoaderFunctionArgs } from "react-router-dom";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
-import { prefetchWorks } from "@/features/works/api/prefetch-works";
-import { ContractorsPanel } from "@/features/works/components/contractors-panel";
-import { WeekBoard } from "@/features/works/components/week-board";
-import { WorkOrdersTable } from "@/features/works/components/work-orders-table";
+import { prefetchWorks } from "@/features/work-orders/api/prefetch-works";
+import { ContractorsPanel } from "@/features/work-orders/components/contractors-panel";
+import { WeekBoard } from "@/features/work-orders/components/week-board";
+import { WorkOrdersTable } from "@/features/work-orders/components/work-orders-table";
 
 export const clientLoader =
   (queryClient: QueryClient) =>

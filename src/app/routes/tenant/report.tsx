@@ -6,7 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { LoadingState } from "@/components/ui/spinner";
 import { useUser } from "@/features/auth/api/get-me";
 import { signedInAs } from "@/features/auth/api/require-role";
-import { caseKeys } from "@/features/cases/api/cases-keys";
+import { caseKeys } from "@/lib/query-keys";
 import type { CaseDto } from "@/features/cases/api/types";
 import { myHomeQueryOptions, useMyHome } from "@/features/my-home/api/get-my-home";
 import { ReportForm } from "@/features/report/components/report-form";

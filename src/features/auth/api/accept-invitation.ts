@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { authKeys } from "./auth-keys";
+import { authKeys } from "@/lib/query-keys";
 
 export const acceptInvitation = (input: { token: string; password: string }) => api.post<void>("/auth/invitations/accept", input);
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { authKeys } from "./auth-keys";
+import { authKeys } from "@/lib/query-keys";
 
 export interface InvitationDescription {
   email: string;

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { ApiError, api } from "@/lib/api-client";
 import type { User } from "../roles";
-import { authKeys } from "./auth-keys";
+import { authKeys } from "@/lib/query-keys";
 
 /** The signed-in user, or null when nobody is signed in (a 401 is an answer here, not an error). */
 export async function getMe(signal?: AbortSignal): Promise<User | null> {

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { api, setCsrfToken } from "@/lib/api-client";
 import type { User } from "../roles";
-import { authKeys } from "./auth-keys";
+import { authKeys } from "@/lib/query-keys";
 
 export const signInSchema = z.object({
   email: z.string().trim().min(1, "Enter your e-mail address.").pipe(z.email("Enter a valid e-mail address, like name@example.org.")),

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api, clearCsrfToken } from "@/lib/api-client";
-import { authKeys } from "./auth-keys";
+import { authKeys } from "@/lib/query-keys";
 
 export async function logout(): Promise<void> {
   try {

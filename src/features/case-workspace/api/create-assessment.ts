@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { refreshCaseWork } from "./refresh-case";
 import type { Assessment, AssessmentInput } from "./types";
-import { workspaceKeys } from "./workspace-keys";
+import { caseKeys } from "@/lib/query-keys";
 
 /** A new HHSRS assessment version; the server scores it and decides band and Category. */
 export const createAssessment = (id: number, input: AssessmentInput) => api.post<Assessment>(`/cases/${id}/assessments`, input);
@@ -10,7 +10,7 @@ export const createAssessment = (id: number, input: AssessmentInput) => api.post
 export function useCreateAssessment(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationKey: [...workspaceKeys.assessments(id), "create"],
+    mutationKey: [...caseKeys.assessments(id), "create"],
     mutationFn: (input: AssessmentInput) => createAssessment(id, input),
     onSuccess: () => refreshCaseWork(queryClient, id),
   });

@@ -1,14 +1,14 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { CaseDeadline } from "./types";
-import { workspaceKeys } from "./workspace-keys";
+import { caseKeys } from "@/lib/query-keys";
 
 /** The five statutory stages, always in the same order. */
 export const getDeadlines = (id: number, signal?: AbortSignal) => api.get<{ deadlines: CaseDeadline[] }>(`/cases/${id}/deadlines`, { signal });
 
 export const deadlinesQueryOptions = (id: number) =>
   queryOptions({
-    queryKey: workspaceKeys.deadlines(id),
+    queryKey: caseKeys.deadlines(id),
     queryFn: ({ signal }) => getDeadlines(id, signal),
     select: (data) => data.deadlines,
   });

@@ -1,14 +1,14 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Triage } from "./types";
-import { workspaceKeys } from "./workspace-keys";
+import { caseKeys } from "@/lib/query-keys";
 
 /** The triage priority: the score out of 100 and the parts it is made of. */
 export const getTriage = (id: number, signal?: AbortSignal) => api.get<Triage>(`/cases/${id}/triage`, { signal });
 
 export const triageQueryOptions = (id: number) =>
   queryOptions({
-    queryKey: workspaceKeys.triage(id),
+    queryKey: caseKeys.triage(id),
     queryFn: ({ signal }) => getTriage(id, signal),
   });
 

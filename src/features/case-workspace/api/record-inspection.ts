@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { refreshCaseWork } from "./refresh-case";
 import type { InspectionInput } from "./types";
-import { workspaceKeys } from "./workspace-keys";
+import { caseKeys } from "@/lib/query-keys";
 
 /** Records what was found on site; the first inspection ends the investigation stage. */
 export const recordInspection = (id: number, input: InspectionInput) =>
@@ -11,7 +11,7 @@ export const recordInspection = (id: number, input: InspectionInput) =>
 export function useRecordInspection(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationKey: [...workspaceKeys.inspections(id), "record"],
+    mutationKey: [...caseKeys.inspections(id), "record"],
     mutationFn: (input: InspectionInput) => recordInspection(id, input),
     onSuccess: () => refreshCaseWork(queryClient, id),
   });

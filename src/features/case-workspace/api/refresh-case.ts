@@ -1,5 +1,5 @@
 import type { QueryClient } from "@tanstack/react-query";
-import { workspaceKeys } from "./workspace-keys";
+import { caseKeys } from "@/lib/query-keys";
 
 /**
  * After any change to a case: the case itself and everything that follows from it. The case key
@@ -7,11 +7,11 @@ import { workspaceKeys } from "./workspace-keys";
  */
 export function refreshCaseWork(queryClient: QueryClient, id: number): Promise<unknown> {
   return Promise.all([
-    queryClient.invalidateQueries({ queryKey: workspaceKeys.case(id), exact: true }),
-    queryClient.invalidateQueries({ queryKey: workspaceKeys.events(id) }),
-    queryClient.invalidateQueries({ queryKey: workspaceKeys.deadlines(id) }),
-    queryClient.invalidateQueries({ queryKey: workspaceKeys.triage(id) }),
-    queryClient.invalidateQueries({ queryKey: workspaceKeys.inspections(id) }),
-    queryClient.invalidateQueries({ queryKey: workspaceKeys.assessments(id) }),
+    queryClient.invalidateQueries({ queryKey: caseKeys.detail(id), exact: true }),
+    queryClient.invalidateQueries({ queryKey: caseKeys.events(id) }),
+    queryClient.invalidateQueries({ queryKey: caseKeys.deadlines(id) }),
+    queryClient.invalidateQueries({ queryKey: caseKeys.triage(id) }),
+    queryClient.invalidateQueries({ queryKey: caseKeys.inspections(id) }),
+    queryClient.invalidateQueries({ queryKey: caseKeys.assessments(id) }),
   ]);
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { refreshCaseWork } from "./refresh-case";
-import { workspaceKeys } from "./workspace-keys";
+import { caseKeys } from "@/lib/query-keys";
 
 export interface MessageInput {
   body: string;
@@ -14,7 +14,7 @@ export const sendMessage = (id: number, input: MessageInput) => api.post<{ ok: t
 export function useSendMessage(id: number) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationKey: [...workspaceKeys.case(id), "message"],
+    mutationKey: [...caseKeys.detail(id), "message"],
     mutationFn: (input: MessageInput) => sendMessage(id, input),
     onSuccess: () => refreshCaseWork(queryClient, id),
   });

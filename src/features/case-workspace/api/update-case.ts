@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { refreshCaseWork } from "./refresh-case";
 import type { CasePatch, WorkspaceCase } from "./types";
-import { workspaceKeys } from "./workspace-keys";
+import { caseKeys } from "@/lib/query-keys";
 
 /** A status move, an assignment or a hazard classification. 409 when the workflow does not allow the move. */
 export const updateCase = (id: number, patch: CasePatch) => api.patch<WorkspaceCase>(`/cases/${id}`, patch);
@@ -10,7 +10,7 @@ export const updateCase = (id: number, patch: CasePatch) => api.patch<WorkspaceC
 export function useUpdateCase(id: number, what: "status" | "assignee" | "hazard") {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationKey: [...workspaceKeys.case(id), "update", what],
+    mutationKey: [...caseKeys.detail(id), "update", what],
     mutationFn: (patch: CasePatch) => updateCase(id, patch),
     onSuccess: () => refreshCaseWork(queryClient, id),
   });

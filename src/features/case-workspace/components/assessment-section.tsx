@@ -9,7 +9,7 @@ import { useCreateAssessment } from "../api/create-assessment";
 import { useAssessments } from "../api/get-assessments";
 import type { Assessment } from "../api/types";
 import { checkAssessment, errorsFound, spreadTotal, type AssessmentErrors, type AssessmentFields } from "../lib/assessment-form";
-import { formatLondonDateTime } from "../lib/london-time";
+import { formatWeekdayDateTimeZoned } from "@/lib/dates";
 import { tenthsText } from "../lib/numbers";
 import { QueryState } from "./query-state";
 
@@ -176,7 +176,7 @@ export function AssessmentVersions({ caseId, staffName }: { caseId: number; staf
                       {i === 0 ? <span className="font-normal text-ink-soft"> (latest)</span> : null}: {categoryText(a)}
                     </h4>
                     <p className="text-sm text-ink-soft">
-                      <time dateTime={a.createdAt}>{formatLondonDateTime(a.createdAt)}</time>, by {staffName(a.assessorId)}
+                      <time dateTime={a.createdAt}>{formatWeekdayDateTimeZoned(a.createdAt)}</time>, by {staffName(a.assessorId)}
                     </p>
                     <dl className="grid grid-cols-1 gap-x-4 gap-y-1 text-sm sm:grid-cols-[auto_1fr]">
                       <dt className="font-semibold">Score</dt>

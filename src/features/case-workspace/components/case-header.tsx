@@ -6,7 +6,7 @@ import { useStaff } from "@/lib/staff";
 import type { StaffMember, WorkspaceCase } from "../api/types";
 import { nextDeadline } from "../lib/deadline-view";
 import { hazardClassLabel, stageLabel } from "../lib/labels";
-import { formatLondonDateTime } from "../lib/london-time";
+import { formatWeekdayDateTimeZoned } from "@/lib/dates";
 
 export const caseAddress = (c: Pick<WorkspaceCase, "property">): string =>
   [c.property.addressLine1, c.property.addressLine2, c.property.town, c.property.postcode].filter(Boolean).join(", ");
@@ -82,7 +82,7 @@ function NextDeadlineText({ caseId }: { caseId: number }) {
       </span>
       <span className="font-normal">
         {next.overdue ? "was due " : "due "}
-        <time dateTime={next.deadline.dueAt!}>{formatLondonDateTime(next.deadline.dueAt)}</time>
+        <time dateTime={next.deadline.dueAt!}>{formatWeekdayDateTimeZoned(next.deadline.dueAt)}</time>
       </span>
     </span>
   );

@@ -1,24 +1,25 @@
 import { Panel } from "@/components/ui/card";
 import { useDeadlines } from "../api/get-deadlines";
-import { usePolicy } from "../api/get-policy";
 import type { CaseDeadline } from "../api/types";
 import { stageLabel, stateLabel } from "../lib/labels";
-import { formatLondonDateTime } from "../lib/london-time";
+import { formatWeekdayDateTimeZoned } from "@/lib/dates";
 import { QueryState } from "./query-state";
 
 const AFTER_INSPECTION = new Set(["summary", "safety-work", "supplementary-work"]);
 
 function dueText(d: CaseDeadline): string {
-  if (d.dueAt) return formatLondonDateTime(d.dueAt);
+  if (d.dueAt) return formatWeekdayDateTimeZoned(d.dueAt);
   if (d.state === "not-applicable") return "Does not apply";
   if (AFTER_INSPECTION.has(d.stage)) return "Starts when the inspection is recorded";
   return "No fixed date";
 }
 
-/** Every statutory stage: when it is due and was done (UK time), and its state in words and an icon. */
-export function DeadlinesPanel({ caseId }: { caseId: number }) {
+/**
+ * Every statutory stage: when it is due and was done (UK time), and its state in words and an icon.
+ * `policySource` says whose timeframes they are (the page reads the policy from the policy feature).
+ */
+export function DeadlinesPanel({ caseId, policySource }: { caseId: number; policySource?: "default" | "landlord" | undefined }) {
   const deadlines = useDeadlines(caseId);
-  const policy = usePolicy();
   return (
     <Panel title="Deadlines" id="case-deadlines">
       <QueryState query={deadlines} loading="Loading the deadlines…" failed="We couldn't load the deadlines">
@@ -37,7 +38,7 @@ export function DeadlinesPanel({ caseId }: { caseId: number }) {
                     <dt className="text-ink-soft">Due</dt>
                     <dd>{d.dueAt ? <time dateTime={d.dueAt}>{dueText(d)}</time> : dueText(d)}</dd>
                     <dt className="text-ink-soft">Done</dt>
-                    <dd>{d.doneAt ? <time dateTime={d.doneAt}>{formatLondonDateTime(d.doneAt)}</time> : "Not yet"}</dd>
+                    <dd>{d.doneAt ? <time dateTime={d.doneAt}>{formatWeekdayDateTimeZoned(d.doneAt)}</time> : "Not yet"}</dd>
                   </dl>
                 </li>
               ))}
@@ -47,7 +48,7 @@ export function DeadlinesPanel({ caseId }: { caseId: number }) {
       </QueryState>
       <p className="mt-3 text-xs text-ink-soft">
         Times are UK time (Europe/London).{" "}
-        {policy.data ? (policy.data.source === "landlord" ? "Timeframes: your organisation's own policy." : "Timeframes: the England social-housing default.") : null}
+        {policySource ? (policySource === "landlord" ? "Timeframes: your organisation's own policy." : "Timeframes: the England social-housing default.") : null}
       </p>
     </Panel>
   );

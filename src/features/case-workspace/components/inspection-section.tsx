@@ -10,7 +10,7 @@ import { useRecordInspection } from "../api/record-inspection";
 import type { Inspection, MoistureUnit, WorkspaceRoom } from "../api/types";
 import { checkInspection, hasErrors, MAX_ROOM_ROWS, type InspectionErrors, type InspectionFields, type RoomRowFields } from "../lib/inspection-form";
 import { CAUSE_CHOICES, MOISTURE_UNITS, MOULD_EXTENT_CHOICES, labelOf } from "../lib/labels";
-import { formatLondonDateTime, londonLocalInput } from "../lib/london-time";
+import { formatWeekdayDateTimeZoned, londonLocalInput } from "@/lib/dates";
 import { QueryState } from "./query-state";
 import { RadioGroup } from "@/components/ui/option-radio-group";
 
@@ -86,7 +86,7 @@ export function InspectionForm({ caseId, rooms, photoUpload }: InspectionFormPro
     if (!input) return;
     record.mutate(input, {
       onSuccess: () => {
-        setSaved(`Inspection of ${formatLondonDateTime(input.inspectedAt)} recorded.`);
+        setSaved(`Inspection of ${formatWeekdayDateTimeZoned(input.inspectedAt)} recorded.`);
         setFields(blankForm());
         setErrors({ rooms: {} });
         setAttempt(0);
@@ -281,7 +281,7 @@ function InspectionItem({ inspection: i, rooms, staffName }: { inspection: Inspe
   return (
     <li className="flex flex-col gap-2 rounded-md border border-line bg-paper p-3">
       <h4 id={headingId} className="font-bold">
-        Inspection of <time dateTime={i.inspectedAt}>{formatLondonDateTime(i.inspectedAt)}</time>
+        Inspection of <time dateTime={i.inspectedAt}>{formatWeekdayDateTimeZoned(i.inspectedAt)}</time>
       </h4>
       <dl className="grid grid-cols-1 gap-x-4 gap-y-1 text-sm sm:grid-cols-[auto_1fr]">
         {i.inspectorUserId !== undefined ? (

@@ -10,7 +10,7 @@ import { useDeadlines } from "../api/get-deadlines";
 import { useInspections } from "../api/get-inspections";
 import { useSendSummary } from "../api/send-summary";
 import type { SentSummary, WorkspaceCase } from "../api/types";
-import { formatLondonDateTime } from "../lib/london-time";
+import { formatWeekdayDateTimeZoned } from "@/lib/dates";
 import { buildSummaryTemplate, hasPlaceholder } from "../lib/summary-template";
 import { caseAddress } from "./case-header";
 
@@ -94,7 +94,7 @@ export function SummarySection({ c, sender, canSend }: SummarySectionProps) {
       ) : null}
       {firstSentAt ? (
         <p>
-          A written summary was first sent <time dateTime={firstSentAt}>{formatLondonDateTime(firstSentAt)}</time>. Another one can be sent as a
+          A written summary was first sent <time dateTime={firstSentAt}>{formatWeekdayDateTimeZoned(firstSentAt)}</time>. Another one can be sent as a
           correction; both stay in the timeline.
         </p>
       ) : null}
@@ -126,7 +126,7 @@ export function SummarySection({ c, sender, canSend }: SummarySectionProps) {
           </Alert>
         ) : null}
         {sent ? (
-          <Alert tone="success" title={`Sent at ${formatLondonDateTime(sent.sentAt)}`}>
+          <Alert tone="success" title={`Sent at ${formatWeekdayDateTimeZoned(sent.sentAt)}`}>
             The tenant can read it on their case page, and an e-mail is on its way to them.
           </Alert>
         ) : null}

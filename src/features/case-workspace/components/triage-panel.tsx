@@ -1,5 +1,5 @@
 import { Panel } from "@/components/ui/card";
-import { formatLondonDateTime } from "../lib/london-time";
+import { formatWeekdayDateTimeZoned } from "@/lib/dates";
 import { useTriage } from "../api/get-triage";
 import { triageFactorLabel } from "../lib/labels";
 import { QueryState } from "./query-state";
@@ -49,7 +49,7 @@ export function TriagePanel({ caseId }: { caseId: number }) {
               </tbody>
             </table>
             <p className="text-xs text-ink-soft">
-              Worked out <time dateTime={t.computedAt}>{formatLondonDateTime(t.computedAt)}</time>.
+              Worked out <time dateTime={t.computedAt}>{formatWeekdayDateTimeZoned(t.computedAt)}</time>.
             </p>
           </div>
         )}

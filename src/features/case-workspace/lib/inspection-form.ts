@@ -2,7 +2,7 @@
 // (server/modules/inspections/inspections.schemas.ts and src/lib/schemas/psychrometrics.ts:
 // air −20…50 °C, surfaces −30…50 °C, 0 < RH ≤ 100 %, moisture 0…100), with messages for people.
 import type { Cause, InspectionInput, InspectionRoomReading, MoistureUnit, MouldExtent } from "../api/types";
-import { londonLocalToIso } from "./london-time";
+import { londonLocalToIso } from "@/lib/dates";
 import { parseDecimal, parseDecimalList } from "./numbers";
 
 export interface RoomRowFields {

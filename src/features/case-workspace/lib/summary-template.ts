@@ -3,7 +3,7 @@
 // clocks). The officer edits it before sending; the parts only they can write are left as
 // "[Fill in: …]" and sending waits until none is left. It judges the building, never the people
 // living there.
-import { formatLondonLong } from "./london-time";
+import { formatLongDateTime } from "@/lib/dates";
 
 export interface SummaryInspection {
   inspectedAt: string;
@@ -89,8 +89,8 @@ function workLines(deadlines: readonly SummaryDeadline[]): string[] {
   for (const d of deadlines) {
     const work = STAGE_WORK[d.stage];
     if (!work || d.doneAt || !d.dueAt) continue;
-    if (d.state === "pending") lines.push(`- We will ${work} by ${formatLondonLong(d.dueAt)}.`);
-    else if (d.state === "missed") lines.push(`- We will ${work} as soon as possible: we should have done so by ${formatLondonLong(d.dueAt)}, and we are sorry for the delay.`);
+    if (d.state === "pending") lines.push(`- We will ${work} by ${formatLongDateTime(d.dueAt)}.`);
+    else if (d.state === "missed") lines.push(`- We will ${work} as soon as possible: we should have done so by ${formatLongDateTime(d.dueAt)}, and we are sorry for the delay.`);
   }
   return lines;
 }
@@ -103,7 +103,7 @@ export function buildSummaryTemplate(input: SummaryTemplateInput): string {
 
   const found = inspection
     ? [
-        `We inspected your home on ${formatLondonLong(inspection.inspectedAt)}.`,
+        `We inspected your home on ${formatLongDateTime(inspection.inspectedAt)}.`,
         inspection.findings.trim(),
         MOULD_SENTENCES[inspection.mouldExtent] ?? "",
       ].filter(Boolean)

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { caseKeys } from "./cases-keys";
+import { caseKeys } from "@/lib/query-keys";
 import type { CaseEvaluation } from "./types";
 
 export const getCaseEvaluation = (id: number, signal?: AbortSignal) => api.get<CaseEvaluation>(`/cases/${id}/evaluation`, { signal });

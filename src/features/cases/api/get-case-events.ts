@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { caseKeys } from "./cases-keys";
+import { caseKeys } from "@/lib/query-keys";
 import type { CaseEvent } from "./types";
 
 export const getCaseEvents = (id: number, signal?: AbortSignal) => api.get<{ events: CaseEvent[] }>(`/cases/${id}/events`, { signal });

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { caseKeys } from "./cases-keys";
+import { caseKeys } from "@/lib/query-keys";
 import type { CaseReading } from "./types";
 
 /** Up to 50 000 readings, oldest first; all rooms unless one is named. */

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { caseKeys } from "./cases-keys";
+import { caseKeys } from "@/lib/query-keys";
 import type { CaseDto } from "./types";
 
 export const getCase = (id: number, signal?: AbortSignal) => api.get<CaseDto>(`/cases/${id}`, { signal });

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { caseKeys } from "./cases-keys";
+import { caseKeys } from "@/lib/query-keys";
 
 export const reportWorse = (id: number, note: string) => api.post<void>(`/cases/${id}/worse`, { note });
 

@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useRef, useState } from "react";
 import uPlot from "uplot";
+import { LONDON } from "@/lib/dates";
 import "uplot/dist/uPlot.min.css";
 import { MOULD_SURFACE_RH_PCT } from "@/lib/domain";
 import type { CaseReading } from "../api/types";
@@ -64,6 +65,8 @@ export function ReadingsChart({ readings, title }: ReadingsChartProps) {
       width: Math.max(280, el.clientWidth),
       height: HEIGHT,
       series,
+      // The time axis in London time, as every date on screen (uPlot would use the browser's zone).
+      tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), LONDON),
       scales: { x: { time: true }, "%": { range: [0, 100] } },
       axes: [
         { stroke: COLOURS.axis, grid: { stroke: COLOURS.grid } },

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Property } from "@/lib/homes";
-import { myHomeKeys } from "./my-home-keys";
+import { myHomeKeys } from "@/lib/query-keys";
 
 export interface MyHome {
   tenancy: { id: number; startDate: string; endDate: string | null };

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { policyKeys } from "./policy-keys";
+import { policyKeys } from "@/lib/query-keys";
 import type { PolicyView } from "./types";
 
 export const getPolicy = (signal?: AbortSignal) => api.get<PolicyView>("/policy", { signal });

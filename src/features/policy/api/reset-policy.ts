@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { policyKeys } from "./policy-keys";
+import { policyKeys } from "@/lib/query-keys";
 import type { PolicyView } from "./types";
 
 /** Removes the landlord's own timeframes: the England default applies again. */

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { api } from "@/lib/api-client";
-import { policyKeys } from "./policy-keys";
+import { policyKeys } from "@/lib/query-keys";
 import { POLICY_FIELDS, type LandlordPolicy, type PolicyView } from "./types";
 
 // The form checks only that each box holds a whole number; the limits are the server's, and its

@@ -1,7 +1,14 @@
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { PropertySummary } from "@/lib/homes";
-import { propertyKeys, type PropertyListFilters } from "./property-keys";
+import { propertyKeys } from "@/lib/query-keys";
+
+export interface PropertyListFilters {
+  q: string;
+  estate: string;
+  page: number;
+  pageSize: number;
+}
 
 export interface PropertyPage {
   items: PropertySummary[];

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { Property } from "@/lib/homes";
-import { propertyKeys } from "./property-keys";
+import { propertyKeys } from "@/lib/query-keys";
 
 export const getProperty = (id: number, signal?: AbortSignal) => api.get<Property>(`/properties/${id}`, { signal });
 

@@ -1,6 +1,6 @@
 import { useSearchParams } from "react-router-dom";
 import { readPositiveInt, readString, usePatchSearchParams } from "@/lib/search-params";
-import type { PropertyListFilters } from "../api/property-keys";
+import type { PropertyListFilters } from "../api/get-properties";
 
 export const HOMES_DEFAULT_PAGE_SIZE = 25;
 const defaults = { page: 1, pageSize: HOMES_DEFAULT_PAGE_SIZE };

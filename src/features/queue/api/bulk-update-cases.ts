@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { queueKeys } from "./queue-keys";
+import { caseKeys } from "@/lib/query-keys";
 import type { BulkUpdate, BulkUpdateResult } from "./types";
 
 export const bulkUpdateCases = (body: BulkUpdate) => api.post<BulkUpdateResult>("/cases/bulk", body);
@@ -10,6 +10,6 @@ export function useBulkUpdateCases() {
   return useMutation({
     mutationFn: bulkUpdateCases,
     // Some cases may have changed even when others failed: refresh the queue and every open case.
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: queueKeys.cases }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: caseKeys.all }),
   });
 }

@@ -3,7 +3,8 @@ import { dataTableColumnHelper, SortButton, type SortableColumn } from "@/compon
 import { TextLink } from "@/components/ui/text-link";
 import { cn } from "@/lib/cn";
 import type { QueueItem } from "../api/types";
-import { areaLabels, channelLabels, deadlineStageLabels, formatDay, formatDayTime, labelFor, riskLabels } from "../lib/labels";
+import { formatDay, formatDayTimeZoned } from "@/lib/dates";
+import { areaLabels, channelLabels, deadlineStageLabels, labelFor, riskLabels } from "../lib/labels";
 import type { QueueSort } from "../lib/queue-view";
 import { TimeLeftText } from "./time-left";
 
@@ -210,7 +211,7 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
         return (
           <span className="flex flex-col">
             <span className="whitespace-nowrap">
-              {labelFor(deadlineStageLabels, next.stage)}, <time dateTime={next.dueAt}>{formatDayTime(next.dueAt)}</time>
+              {labelFor(deadlineStageLabels, next.stage)}, <time dateTime={next.dueAt}>{formatDayTimeZoned(next.dueAt)}</time>
             </span>
             <TimeLeftText dueAt={next.dueAt} overdue={row.original.overdue} now={now} />
           </span>

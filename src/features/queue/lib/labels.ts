@@ -43,20 +43,5 @@ export const categoryLabels: Record<QueueCategory, string> = {
 export const labelFor = (labels: Record<string, string>, value: string | null | undefined, missing = "—"): string =>
   value ? (labels[value] ?? value) : missing;
 
-const dayFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric" });
-const dayTimeFormat = new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", hour: "2-digit", minute: "2-digit" });
-
-/** "3 Mar 2026" in the viewer's time zone. */
-export function formatDay(iso: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dayFormat.format(date);
-}
-
-/** "3 Mar, 14:05" in the viewer's time zone. */
-export function formatDayTime(iso: string): string {
-  const date = new Date(iso);
-  return Number.isNaN(date.getTime()) ? iso : dayTimeFormat.format(date);
-}
-
 export const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 export const casesCount = (n: number) => plural(n, "case", "cases");

@@ -1,6 +1,6 @@
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { reportKeys } from "./report-keys";
+import { reportKeys } from "@/lib/query-keys";
 import type { HandReading, ReadingsAdded } from "./types";
 
 export const addReadings = (caseId: number, readings: readonly HandReading[]) => api.post<ReadingsAdded>(`/cases/${caseId}/readings`, readings);

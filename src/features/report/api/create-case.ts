@@ -1,7 +1,7 @@
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { CaseReport } from "@/lib/schemas/case-report";
-import { reportKeys } from "./report-keys";
+import { reportKeys } from "@/lib/query-keys";
 import type { CreatedCase } from "./types";
 
 export const createCase = (report: CaseReport) => api.post<CreatedCase>("/cases", report);

@@ -1,6 +1,6 @@
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { reportKeys } from "./report-keys";
+import { reportKeys } from "@/lib/query-keys";
 import type { ImportMapping, ImportResult } from "./types";
 
 export interface ImportReadingsInput {

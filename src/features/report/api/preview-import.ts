@@ -1,6 +1,6 @@
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { reportKeys } from "./report-keys";
+import { reportKeys } from "@/lib/query-keys";
 import type { ImportPreview } from "./types";
 
 /** The server reads the start of the file and proposes which column is which. */

@@ -1,6 +1,6 @@
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { reportKeys } from "./report-keys";
+import { reportKeys } from "@/lib/query-keys";
 import type { UploadedPhoto } from "./types";
 
 /** Multipart, field `photos`: 1–10 files of up to 15 MB each. */

@@ -1,6 +1,7 @@
 // Checks a reading typed in by hand. The ranges are those the server accepts
 // (src/lib/schemas/psychrometrics.ts: air −20…50 °C, surfaces −30…50 °C, outdoors −30…40 °C,
 // 0 < RH ≤ 100 %), with messages for people rather than field names.
+import { londonLocalInput, londonLocalToIso } from "@/lib/dates";
 import type { PointInput } from "@/lib/domain";
 import type { HandReading } from "../api/types";
 
@@ -24,12 +25,8 @@ export function parseDecimal(text: string): number | undefined {
   return Number(t);
 }
 
-const pad = (n: number) => String(n).padStart(2, "0");
-
-/** Now, for a datetime-local input (local time, to the minute). */
-export function localNow(date = new Date()): string {
-  return `${date.getFullYear()}-${pad(date.getMonth() + 1)}-${pad(date.getDate())}T${pad(date.getHours())}:${pad(date.getMinutes())}`;
-}
+/** Now, for a datetime-local input (London time, as every date on screen, to the minute). */
+export const localNow = (date = new Date()): string => londonLocalInput(date);
 
 const inRange = (label: string, value: number | undefined, min: number, max: number, required: boolean): string | undefined => {
   if (value === undefined) return required ? `Enter the ${label}.` : undefined;
@@ -74,11 +71,13 @@ export function checkHandReading(fields: HandReadingFields, now = Date.now()): {
   const outdoorError = inRange("outdoor temperature", outdoor, -30, 40, false);
   if (outdoorError) errors.outdoorTemperatureC = outdoorError;
 
-  const at = fields.takenAt ? new Date(fields.takenAt) : new Date(Number.NaN);
+  // Typed as London time; null for a time that does not happen (the hour skipped when the clocks go forward).
+  const iso = fields.takenAt ? londonLocalToIso(fields.takenAt) : null;
+  const at = iso ? new Date(iso) : new Date(Number.NaN);
   if (Number.isNaN(at.getTime())) errors.takenAt = "Enter the date and time the reading was taken.";
   // A few minutes' grace for a phone clock that runs ahead.
   else if (at.getTime() > now + 5 * 60_000) errors.takenAt = "The time is in the future. Please check the date and time.";
-  else if (at.getFullYear() < 2000) errors.takenAt = "Please check the year of the reading.";
+  else if (at.getUTCFullYear() < 2000) errors.takenAt = "Please check the year of the reading.";
 
   if (Object.keys(errors).length > 0) return { errors };
   const reading: HandReading = {

@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { api } from "@/lib/api-client";
 import { ROLES } from "@/lib/roles";
-import { userKeys } from "./user-keys";
+import { userKeys } from "@/lib/query-keys";
 
 export const invitationFormSchema = z
   .object({

@@ -1,7 +1,14 @@
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { ManagedUser } from "./types";
-import { userKeys, type UserListFilters } from "./user-keys";
+import { userKeys } from "@/lib/query-keys";
+
+export interface UserListFilters {
+  role: string;
+  q: string;
+  page: number;
+  pageSize: number;
+}
 
 export interface UserPage {
   items: ManagedUser[];

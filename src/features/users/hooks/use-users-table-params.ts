@@ -1,7 +1,7 @@
 import { useSearchParams } from "react-router-dom";
 import { readPositiveInt, readString, usePatchSearchParams } from "@/lib/search-params";
 import { isRole } from "@/lib/roles";
-import type { UserListFilters } from "../api/user-keys";
+import type { UserListFilters } from "../api/get-users";
 
 export const USERS_DEFAULT_PAGE_SIZE = 25;
 const defaults = { page: 1, pageSize: USERS_DEFAULT_PAGE_SIZE };

@@ -1,4 +1,0 @@
-export const myHomeKeys = {
-  all: ["my-home"] as const,
-  current: () => [...myHomeKeys.all, "current"] as const,
-};

@@ -1,0 +1,44 @@
+import type { UseFormReturn } from "react-hook-form";
+import { Textarea } from "@/components/ui/field";
+import { LOCATIONS, OBSERVATIONS, type CaseReport } from "@/lib/schemas/case-report";
+import type { RoomOption } from "../../api/types";
+import { choices, locationLabels, observationLabels } from "../../labels";
+import type { ReportFormValues } from "../../lib/draft";
+import { ChoiceField } from "../choice-field";
+
+/** Step 1: what the tenant can see, where, and in which rooms. */
+export function DescribeStep({ form, rooms }: { form: UseFormReturn<ReportFormValues, unknown, CaseReport>; rooms: readonly RoomOption[] }) {
+  const { control, register, formState } = form;
+  return (
+    <div className="flex flex-col gap-6">
+      <Textarea
+        label="What can you see?"
+        hint="In your own words. For example: black spots on the bedroom ceiling, and water on the windows every morning."
+        rows={4}
+        error={formState.errors.description?.message}
+        {...register("description")}
+      />
+      <ChoiceField control={control} name="locations" kind="checkbox" legend="Where is it?" hint="Choose all that apply." columns options={choices(locationLabels, LOCATIONS)} />
+      <ChoiceField
+        control={control}
+        name="observations"
+        kind="checkbox"
+        legend="What have you noticed?"
+        hint="Choose all that apply."
+        columns
+        options={choices(observationLabels, OBSERVATIONS)}
+      />
+      {rooms.length ? (
+        <ChoiceField
+          control={control}
+          name="roomIds"
+          kind="checkbox"
+          legend="Which rooms? (optional)"
+          hint="Choose all that apply."
+          columns
+          options={rooms.map((r) => ({ value: r.id, label: r.name }))}
+        />
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,99 @@
+// Every TanStack Query key of the client, one factory per resource, from general to specific
+// (`caseKeys.all` → `lists()` → `list(filters)` → `details()` → `detail(id)` → `events(id)` …), so
+// invalidating a prefix refreshes everything under it. A key holds every variable its query function
+// reads. Features build their `queryOptions` from these and nobody writes a key as a literal; the keys
+// live here, not in a feature, because several features read the same resource (a case's photos, the
+// lists of work orders) and features do not import each other.
+
+export const authKeys = {
+  all: ["auth"] as const,
+  me: () => [...authKeys.all, "me"] as const,
+  invitations: () => [...authKeys.all, "invitation"] as const,
+  invitation: (token: string) => [...authKeys.invitations(), token] as const,
+};
+
+/**
+ * Cases and everything about one case. Invalidating `detail(id)` refreshes the case and its parts;
+ * invalidating `lists()` refreshes the tenant's list and the officers' queue.
+ */
+export const caseKeys = {
+  all: ["cases"] as const,
+  lists: () => [...caseKeys.all, "list"] as const,
+  mine: () => [...caseKeys.lists(), "mine"] as const,
+  /** The officers' queue: filters, sort and page as the URL has them. */
+  queues: () => [...caseKeys.lists(), "queue"] as const,
+  queue: <P extends object>(params: P) => [...caseKeys.queues(), params] as const,
+  details: () => [...caseKeys.all, "detail"] as const,
+  detail: (id: number) => [...caseKeys.details(), id] as const,
+  events: (id: number) => [...caseKeys.detail(id), "events"] as const,
+  /** The case's photos, the work orders' after-photos among them. */
+  photos: (id: number) => [...caseKeys.detail(id), "photos"] as const,
+  readings: (id: number, roomId?: number) => [...caseKeys.detail(id), "readings", { roomId: roomId ?? null }] as const,
+  evaluation: (id: number) => [...caseKeys.detail(id), "evaluation"] as const,
+  triage: (id: number) => [...caseKeys.detail(id), "triage"] as const,
+  deadlines: (id: number) => [...caseKeys.detail(id), "deadlines"] as const,
+  inspections: (id: number) => [...caseKeys.detail(id), "inspections"] as const,
+  assessments: (id: number) => [...caseKeys.detail(id), "assessments"] as const,
+  related: (id: number) => [...caseKeys.detail(id), "related"] as const,
+  workOrders: (id: number) => [...caseKeys.detail(id), "work-orders"] as const,
+  verification: (id: number) => [...caseKeys.detail(id), "verification"] as const,
+};
+
+/** Work orders across cases (the /works table and week board); a case's own orders are `caseKeys.workOrders(id)`. */
+export const workOrderKeys = {
+  all: ["work-orders"] as const,
+  lists: () => [...workOrderKeys.all, "list"] as const,
+  list: <P extends object>(params: P) => [...workOrderKeys.lists(), params] as const,
+  weeks: () => [...workOrderKeys.all, "week"] as const,
+  week: <W extends object>(week: W) => [...workOrderKeys.weeks(), week] as const,
+};
+
+/** The landlord's deadline timeframes (GET /api/policy): one key for every screen that reads them. */
+export const policyKeys = {
+  all: ["policy"] as const,
+  current: () => [...policyKeys.all, "current"] as const,
+};
+
+/** The landlord's active staff (GET /api/staff). */
+export const staffKeys = {
+  all: ["staff"] as const,
+  list: () => [...staffKeys.all, "list"] as const,
+};
+
+/** The landlord's contractors (GET /api/contractors). */
+export const contractorKeys = {
+  all: ["contractors"] as const,
+  list: () => [...contractorKeys.all, "list"] as const,
+};
+
+/** Homes (properties) and their estates. */
+export const propertyKeys = {
+  all: ["properties"] as const,
+  lists: () => [...propertyKeys.all, "list"] as const,
+  list: <F extends object>(filters: F) => [...propertyKeys.lists(), filters] as const,
+  estates: () => [...propertyKeys.all, "estates"] as const,
+  details: () => [...propertyKeys.all, "detail"] as const,
+  detail: (id: number) => [...propertyKeys.details(), id] as const,
+};
+
+/** The tenant's own home. */
+export const myHomeKeys = {
+  all: ["my-home"] as const,
+  current: () => [...myHomeKeys.all, "current"] as const,
+};
+
+export const userKeys = {
+  all: ["users"] as const,
+  lists: () => [...userKeys.all, "list"] as const,
+  list: <F extends object>(filters: F) => [...userKeys.lists(), filters] as const,
+};
+
+/** Mutation keys of the tenant's report (its reads are the case's, under `caseKeys`). */
+export const reportKeys = {
+  all: ["report"] as const,
+  create: () => [...reportKeys.all, "create"] as const,
+  photos: (caseId: number) => [...reportKeys.all, caseId, "photos"] as const,
+  readings: (caseId: number) => [...reportKeys.all, caseId, "readings"] as const,
+  importPreview: (caseId: number) => [...reportKeys.all, caseId, "import-preview"] as const,
+  import: (caseId: number) => [...reportKeys.all, caseId, "import"] as const,
+};
