@@ -1,4 +1,7 @@
 import { Router } from "express";
+import { caseEventsResponse, myCasesResponse } from "../../../src/lib/contracts/cases.js";
+import { photoListResponse } from "../../../src/lib/contracts/photos.js";
+import { shaped } from "../../lib/contract.js";
 import multer from "multer";
 import { caseReportSchema, staffCaseSchema } from "../../../src/lib/schemas/case-report.js";
 import { parse } from "../../lib/validation.js";
@@ -38,7 +41,7 @@ export function createCasesRouter({ cases, photos }: { cases: CaseService; photo
 
   router.get("/:id/events", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json({ events: (await cases.events(actorOf(req), id)).map(toCaseEventDto) });
+    res.json(shaped(caseEventsResponse, { events: (await cases.events(actorOf(req), id)).map(toCaseEventDto) }));
   });
 
   router.post("/:id/worse", requireRole("tenant"), async (req, res) => {
@@ -50,7 +53,7 @@ export function createCasesRouter({ cases, photos }: { cases: CaseService; photo
 
   router.get("/:id/photos", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json({ photos: (await photos.listForCase(actorOf(req), id)).map(toPhotoDto) });
+    res.json(shaped(photoListResponse, { photos: (await photos.listForCase(actorOf(req), id)).map(toPhotoDto) }));
   });
 
   router.post(
@@ -66,7 +69,7 @@ export function createCasesRouter({ cases, photos }: { cases: CaseService; photo
       const { id } = parse(idParamsSchema, req.params, "params");
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       const added = await photos.addToCase(actorOf(req), id, files);
-      res.status(201).json({ photos: added.map(toPhotoDto) });
+      res.status(201).json(shaped(photoListResponse, { photos: added.map(toPhotoDto) }));
     },
   );
 
@@ -79,12 +82,14 @@ export function createMyCasesRouter({ cases, photos }: { cases: CaseService; pho
   router.get("/", requireRole("tenant"), async (req, res) => {
     const items = await cases.listForTenant(actorOf(req));
     const summaries = await photos.summaries(items.map((c) => c.id));
-    res.json({
-      items: items.map((c) => {
-        const s = summaries.get(c.id);
-        return { ...toCaseDto(c), photoCount: s?.count ?? 0, thumbnailUrl: s ? `/api/photos/${s.firstId}/thumbnail` : null };
+    res.json(
+      shaped(myCasesResponse, {
+        items: items.map((c) => {
+          const s = summaries.get(c.id);
+          return { ...toCaseDto(c), photoCount: s?.count ?? 0, thumbnailUrl: s ? `/api/photos/${s.firstId}/thumbnail` : null };
+        }),
       }),
-    });
+    );
   });
   return router;
 }

@@ -1,4 +1,6 @@
 import { Router } from "express";
+import { healthResponse } from "../../../src/lib/contracts/health.js";
+import { shaped } from "../../lib/contract.js";
 import type { DataSource } from "typeorm";
 
 const DB_TIMEOUT_MS = 2000;
@@ -22,7 +24,7 @@ export function createHealthRouter({ dataSource }: { dataSource: DataSource }): 
   const router = Router();
   router.get("/", async (_req, res) => {
     const up = await databaseAnswers(dataSource);
-    res.status(up ? 200 : 503).json({ status: up ? "ok" : "degraded", db: up ? "up" : "down" });
+    res.status(up ? 200 : 503).json(shaped(healthResponse, { status: up ? "ok" : "degraded", db: up ? "up" : "down" }));
   });
   return router;
 }

@@ -1,11 +1,14 @@
+import type { z } from "zod";
+import type { contractorResponse, workOrderResponse } from "../../../src/lib/contracts/works.js";
 import { isStaff, type Actor } from "../auth/actor.js";
 import { slotInstants } from "./appointment.js";
+import type { Contractor } from "./contractor.entity.js";
 import type { WorkOrder } from "./work-order.entity.js";
 import type { WorkOrderService } from "./work-order.service.js";
 
 type Context = Awaited<ReturnType<WorkOrderService["context"]>>;
 
-export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor) {
+export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor): z.input<typeof workOrderResponse> {
   const c = ctx.cases.get(w.caseId);
   const rooms = (c?.property?.rooms ?? []).filter((r) => w.roomIds.includes(r.id)).map((r) => ({ id: r.id, name: r.name }));
   const assignee = w.assigneeUserId ? ctx.users.get(w.assigneeUserId) : undefined;
@@ -52,3 +55,5 @@ export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor) {
     createdAt: w.createdAt.toISOString(),
   };
 }
+
+export const toContractorDto = (k: Contractor): z.input<typeof contractorResponse> => ({ id: k.id, name: k.name, email: k.email, phone: k.phone, trade: k.trade });
