@@ -2,14 +2,9 @@
 // a work order. Shared by the Works page and the case's works, under one query key.
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { ContractorResponse } from "@/lib/contracts";
 
-export interface Contractor {
-  id: number;
-  name: string;
-  email: string;
-  phone: string | null;
-  trade: string | null;
-}
+export type Contractor = ContractorResponse;
 
 export const contractorKeys = {
   all: ["contractors"] as const,

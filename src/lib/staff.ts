@@ -2,13 +2,9 @@
 // and the case workspace, under one query key, so both read the same shape from the cache.
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Role } from "@/lib/roles";
+import type { StaffMember } from "@/lib/contracts";
 
-export interface StaffMember {
-  id: number;
-  name: string;
-  role: Role | string;
-}
+export type { StaffMember };
 
 export const staffKeys = { all: ["staff"] as const };
 

@@ -32,6 +32,7 @@ export const inspectionListResponse = z.object({ inspections: z.array(inspection
 
 /** POST /api/cases/:id/inspections. */
 export const inspectionRecordedResponse = z.object({ id, inspectedAt: instant, cause: z.enum(CAUSES), mouldExtent: z.enum(MOULD_EXTENTS) });
+export type InspectionRecorded = z.infer<typeof inspectionRecordedResponse>;
 
 /** POST /api/cases/:id/summary. */
 export const summarySentResponse = z.object({ id, sentAt: instant });

@@ -50,7 +50,7 @@ export const workOrderResponse = z.object({
   priority: z.enum(WORK_ORDER_PRIORITIES),
   targetDate: calendarDate,
   rooms: z.array(idName),
-  property: z.object({ id, addressLine1: z.string(), town: z.string(), postcode: z.string(), estate: z.string() }).nullable(),
+  property: z.object({ id, addressLine1: z.string(), town: z.string(), postcode: z.string(), estate: z.string() }),
   assignee: idName.nullable(),
   /** The e-mail address only for staff. */
   contractor: z.object({ id, name: z.string(), email: z.string().optional() }).nullable(),

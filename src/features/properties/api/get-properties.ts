@@ -1,14 +1,10 @@
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { PropertySummary } from "@/lib/homes";
+import type { z } from "zod";
+import type { propertyPageResponse } from "@/lib/contracts";
 import { propertyKeys, type PropertyListFilters } from "./property-keys";
 
-export interface PropertyPage {
-  items: PropertySummary[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export type PropertyPage = z.infer<typeof propertyPageResponse>;
 
 export const getProperties = (filters: PropertyListFilters, signal?: AbortSignal) =>
   api.get<PropertyPage>("/properties", {

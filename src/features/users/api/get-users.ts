@@ -1,14 +1,9 @@
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { ManagedUser } from "./types";
+import type { UserPageResponse } from "@/lib/contracts";
 import { userKeys, type UserListFilters } from "./user-keys";
 
-export interface UserPage {
-  items: ManagedUser[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export type UserPage = UserPageResponse;
 
 export const getUsers = (filters: UserListFilters, signal?: AbortSignal) =>
   api.get<UserPage>("/users", {
