@@ -57,6 +57,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/psychrometrics/openapi.json", "public", "The OpenAPI document of the public risk-engine API", { mediaType: "application/json" }),
   e("GET", "/api/openapi.json", STAFF, "This document", { mediaType: "application/json" }),
   e("GET", "/api/docs", STAFF, "The interactive API reference", { mediaType: "text/html" }),
+  e("GET", "/api/docs/start.js", STAFF, "The reference page's start script (its other files are static)", { mediaType: "text/javascript" }),
 
   e("GET", "/api/auth/csrf", "public", "A CSRF token for the session", csrfResponse),
   e("POST", "/api/auth/login", "public", "Sign in", loginResponse),
