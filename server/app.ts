@@ -8,6 +8,7 @@ import { csrfSync } from "csrf-sync";
 import type { AppContext } from "./app-context.js";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.js";
 import { requestId } from "./middleware/request-id.js";
+import { createApiDocsRouter } from "./modules/api-docs/api-docs.routes.js";
 import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
 import { createAssessmentsRouter } from "./modules/assessments/assessments.routes.js";
@@ -54,7 +55,8 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   // session store (MariaDB) does not, and they change nothing, so they need no CSRF token.
   api.use("/health", createHealthRouter({ dataSource: ctx.dataSource, isDraining }));
   api.use("/psychrometrics", createPsychrometricsRouter());
-  api.get("/openapi.json", (_req, res) => {
+  // The public risk-engine API's own document stays public; the whole API's is for staff (below).
+  api.get("/psychrometrics/openapi.json", (_req, res) => {
     res.json(openApiDocument(config.appUrl));
   });
 
@@ -104,6 +106,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/properties", createPropertiesRouter({ properties: services.properties }));
   api.use("/users", createUsersRouter({ users: services.users }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
+  api.use(createApiDocsRouter({ appUrl: config.appUrl }));
   api.use(apiNotFound);
 
   app.use("/api", api);

@@ -2,15 +2,10 @@
 // a work order. Shared by the Works page and the case's works, under one query key.
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { ContractorResponse } from "@/lib/contracts";
 import { contractorKeys } from "@/lib/query-keys";
 
-export interface Contractor {
-  id: number;
-  name: string;
-  email: string;
-  phone: string | null;
-  trade: string | null;
-}
+export type Contractor = ContractorResponse;
 
 
 export const getContractors = async (signal?: AbortSignal): Promise<Contractor[]> =>

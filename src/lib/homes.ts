@@ -1,4 +1,5 @@
 /** Shapes and plain-language labels for homes, shared by every feature that shows one. */
+import type { PropertyResponse, PropertySummaryResponse, RoomResponse } from "./contracts/properties.js";
 
 export const BUILT_FORMS = ["detached", "semi-detached", "end-terrace", "mid-terrace", "flat", "maisonette", "bungalow"] as const;
 export const WALL_TYPES = ["solid-brick", "solid-stone", "unfilled-cavity", "filled-cavity", "system-built", "timber-frame", "insulated"] as const;
@@ -12,30 +13,10 @@ export type GlazingType = (typeof GLAZING_TYPES)[number];
 export type HeatingType = (typeof HEATING_TYPES)[number];
 export type RoomKind = (typeof ROOM_KINDS)[number];
 
-export interface Room {
-  id: number;
-  name: string;
-  kind: RoomKind;
-}
-
-export interface PropertySummary {
-  id: number;
-  addressLine1: string;
-  addressLine2: string | null;
-  town: string;
-  postcode: string;
-  uprn: string | null;
-  estate: string;
-  block: string | null;
-  builtForm: BuiltForm;
-  wallType: WallType;
-  glazingType: GlazingType;
-  heatingType: HeatingType;
-}
-
-export interface Property extends PropertySummary {
-  rooms: Room[];
-}
+// The response shapes come from the API contract (src/lib/contracts/properties.ts), which takes its value lists from here.
+export type Room = RoomResponse;
+export type PropertySummary = PropertySummaryResponse;
+export type Property = PropertyResponse;
 
 export const builtFormLabels: Record<BuiltForm, string> = {
   detached: "Detached house",

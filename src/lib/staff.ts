@@ -2,14 +2,10 @@
 // and the case workspace, under one query key, so both read the same shape from the cache.
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { StaffMember } from "@/lib/contracts";
 import { staffKeys } from "@/lib/query-keys";
-import type { Role } from "@/lib/roles";
 
-export interface StaffMember {
-  id: number;
-  name: string;
-  role: Role | string;
-}
+export type { StaffMember };
 
 
 export const getStaff = async (signal?: AbortSignal): Promise<StaffMember[]> => (await api.get<{ users: StaffMember[] }>("/staff", { signal })).users;

@@ -8,7 +8,7 @@ describe("api client", () => {
   it("fetches the CSRF token once and sends it on every state-changing request", async () => {
     const { callsTo } = mockApi({
       "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },
-      "PATCH /api/users/7": { body: { id: 7, status: "disabled" } },
+      "PATCH /api/users/7": { body: { id: 7, email: "dale@example.org", name: "Dale Whitcombe", role: "maintenance", status: "disabled", lastSignInAt: null, createdAt: "2026-01-04T10:00:00.000Z" } },
       "GET /api/users": { body: { items: [], total: 0, page: 1, pageSize: 25 } },
     });
 

@@ -14,6 +14,10 @@ const aCase = (id: number, status: string, createdAt: string, rooms: typeof home
   id,
   reference: `DW-2026-${String(id).padStart(5, "0")}`,
   status,
+  assigneeId: null,
+  hazardClass: null,
+  hazardClassReason: null,
+  tenantUserId: users.tenant.id,
   channel: "tenant-online",
   awareAt: createdAt,
   createdAt,
@@ -27,6 +31,8 @@ const aCase = (id: number, status: string, createdAt: string, rooms: typeof home
   property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX3 1AA", estate: "Millbeck Terraces" },
   rooms,
   homeRooms,
+  photoCount: 0,
+  thumbnailUrl: null,
 });
 
 const cases = [

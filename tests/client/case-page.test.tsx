@@ -15,6 +15,11 @@ const theCase = {
   id: 42,
   reference: "DW-2026-00042",
   status: "triaged",
+  // The server sends these to the tenant too (see GET /api/cases/:id in src/lib/contracts/cases.ts).
+  assigneeId: null,
+  hazardClass: null,
+  hazardClassReason: null,
+  tenantUserId: users.tenant.id,
   channel: "tenant-online",
   awareAt: "2026-01-10T08:00:00.000Z",
   createdAt: "2026-01-10T08:00:00.000Z",
@@ -47,7 +52,7 @@ const events = [
   { id: 5, type: "status-changed", at: "2026-01-12T10:00:00.000Z", actor: officer, before: { status: "new" }, after: { status: "triaged" } },
   { id: 6, type: "message-to-tenant", at: "2026-01-12T10:05:00.000Z", actor: officer, before: null, after: { body: "We will visit on Tuesday morning." } },
   { id: 7, type: "survey-scheduled", at: "2026-01-12T11:00:00.000Z", actor: officer, before: null, after: {} },
-];
+].map((e) => ({ ...e, email: null }));
 
 const photo = (id: number) => ({
   id,
@@ -56,6 +61,7 @@ const photo = (id: number) => ({
   width: 1600,
   height: 1200,
   sha256: "cd".repeat(32),
+  workOrderId: null,
   createdAt: "2026-01-10T08:01:00.000Z",
 });
 
@@ -69,6 +75,7 @@ const readings = Array.from({ length: 48 }, (_, i) => ({
   surfaceTemperatureC: 12.5,
   outdoorTemperatureC: 4,
   source: "import",
+  importId: 3,
 }));
 const latest = readings[readings.length - 1]!;
 

@@ -4,15 +4,17 @@ import { beforeEach, describe, expect, it } from "vitest";
 import { clearCsrfToken } from "@/lib/api-client";
 import { apiError, mockApi, users, type MockReply, type RecordedCall } from "./support/api-mock";
 import { workspaceCase } from "./support/case-fixtures";
+import type { RoomResponse } from "@/lib/contracts";
+import type { CaseStatus } from "@/lib/schemas/case-report";
 import { renderApp } from "./support/render-app";
 
-const homeRooms = [
+const homeRooms: RoomResponse[] = [
   { id: 1, name: "Living room", kind: "living" },
   { id: 2, name: "Bedroom 1", kind: "bedroom" },
   { id: 3, name: "Bathroom", kind: "bathroom" },
 ];
 
-const caseOf = (status: string) => workspaceCase({ status, homeRooms });
+const caseOf = (status: CaseStatus) => workspaceCase({ status, homeRooms });
 
 const staff = [
   { id: 2, name: "Priya Venn", role: "officer" },
@@ -82,7 +84,7 @@ const noWorks = { state: "no-works", worksDoneAt: null, monitoringEndsAt: null, 
 
 type Routes = Record<string, MockReply | ((call: RecordedCall, nth: number) => MockReply)>;
 
-function staffApi(user: (typeof users)[keyof typeof users], status: string, overrides: Routes = {}) {
+function staffApi(user: (typeof users)[keyof typeof users], status: CaseStatus, overrides: Routes = {}) {
   return mockApi({
     "GET /api/auth/me": { body: user },
     "GET /api/auth/csrf": { body: { csrfToken: "csrf-1" } },
@@ -110,7 +112,7 @@ function staffApi(user: (typeof users)[keyof typeof users], status: string, over
     "GET /api/cases/42/verification": { body: noWorks },
     "GET /api/staff": { body: { users: staff } },
     "GET /api/contractors": { body: { contractors: [] } },
-    "GET /api/policy": { body: { emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, source: "default" } },
+    "GET /api/policy": { body: { emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, monitoringDays: 21, source: "default" } },
     ...overrides,
   });
 }
@@ -232,7 +234,7 @@ describe("the works of a case, for staff", () => {
     const api = staffApi(users.maintenance, "investigated", {
       "GET /api/cases/42/work-orders": { body: { workOrders: [unbooked] } },
       "PATCH /api/work-orders/7": (call, nth) =>
-        nth === 0 ? apiError(409, "double_booked", message) : { body: { ...unbooked, status: "scheduled", assignee: { id: 3, name: "Dale Whitcombe" }, slot: { date: "2099-12-08", window: "pm" } } },
+        nth === 0 ? apiError(409, "double_booked", message) : { body: { ...unbooked, status: "scheduled", assignee: { id: 3, name: "Dale Whitcombe" }, slot: { date: "2099-12-08", window: "pm", startsAt: "2099-12-08T12:00:00.000Z", endsAt: "2099-12-08T17:00:00.000Z" } } },
     });
     await openWorkspace();
     const fan = await orderItem("Extractor fan: fit or repair");
@@ -411,7 +413,7 @@ describe("the works of a case, for staff", () => {
   });
 });
 
-function tenantApi(status: string, workOrders: unknown[], overrides: Routes = {}) {
+function tenantApi(status: CaseStatus, workOrders: unknown[], overrides: Routes = {}) {
   return mockApi({
     "GET /api/auth/me": { body: users.tenant },
     "GET /api/auth/csrf": { body: { csrfToken: "csrf-1" } },

@@ -105,6 +105,7 @@ const readings = Array.from({ length: 48 }, (_, i) => ({
   surfaceTemperatureC: 12.5,
   outdoorTemperatureC: 4,
   source: "import",
+  importId: 3,
 }));
 const series = evaluateSeries({
   readings: readings.map((r) => ({ at: r.takenAt, airTemperatureC: r.airTemperatureC, relativeHumidityPct: r.relativeHumidityPct, surfaceTemperatureC: r.surfaceTemperatureC, outdoorTemperatureC: r.outdoorTemperatureC })),
@@ -132,7 +133,7 @@ function workspaceApi(user: (typeof users)[keyof typeof users] = users.officer, 
     "GET /api/cases/42/assessments": { body: { assessments: [] } },
     "GET /api/cases/42/related": { body: related },
     "GET /api/staff": { body: { users: staff } },
-    "GET /api/policy": { body: { emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, source: "default" } },
+    "GET /api/policy": { body: { emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, monitoringDays: 21, source: "default" } },
     ...overrides,
   });
 }

@@ -14,6 +14,10 @@ const theCase = {
   id: 42,
   reference: "DW-2026-00042",
   status: "new",
+  assigneeId: null,
+  hazardClass: null,
+  hazardClassReason: null,
+  tenantUserId: 11,
   channel: "tenant-online",
   awareAt: "2026-01-15T09:00:00.000Z",
   createdAt: "2026-01-15T09:00:00.000Z",
@@ -32,17 +36,16 @@ const theCase = {
 const csv = ["Time;Temp;RH;Probe", "15/01/2026 07:00;19,2;71;12,4", "15/01/2026 07:10;19,1;72;12,3"].join("\n");
 const loggerFile = () => new File([csv], "bedroom-logger.csv", { type: "text/csv" });
 
-/** What the server proposes: it took the probe for the humidity, which the person corrects. */
+/** What the server proposes (columns by position): it took the probe for the humidity, which the person corrects. */
 const preview = {
   delimiter: ";",
+  decimalComma: true,
   hasHeader: true,
   headers: ["Time", "Temp", "RH", "Probe"],
   mapping: {
-    timestamp: "Time",
-    temperature: "Temp",
-    humidity: "Probe",
-    surfaceTemperature: null,
-    outdoorTemperature: null,
+    timestamp: 0,
+    temperature: 1,
+    humidity: 3,
     temperatureUnit: "C",
     dateFormat: "DD/MM/YYYY",
     timeZone: "Europe/London",
@@ -124,11 +127,12 @@ describe("logger CSV import", () => {
     const sent = formDataOf(fetchMock, "/api/cases/42/readings/import")!;
     expect(sent.get("roomId")).toBe("2");
     expect((sent.get("file") as File).name).toBe("bedroom-logger.csv");
+    // By position, as the server proposed them and as its import accepts them.
     expect(JSON.parse(String(sent.get("mapping")))).toEqual({
-      timestamp: "Time",
-      temperature: "Temp",
-      humidity: "RH",
-      surfaceTemperature: "Probe",
+      timestamp: 0,
+      temperature: 1,
+      humidity: 2,
+      surfaceTemperature: 3,
       temperatureUnit: "C",
       dateFormat: "DD/MM/YYYY",
       timeZone: "Europe/London",

@@ -21,6 +21,10 @@ const created = {
   id: 42,
   reference: "DW-2026-00042",
   status: "new",
+  assigneeId: null,
+  hazardClass: null,
+  hazardClassReason: null,
+  tenantUserId: 11,
   channel: "tenant-online",
   awareAt: "2026-01-15T09:00:00.000Z",
   createdAt: "2026-01-15T09:00:00.000Z",
@@ -43,6 +47,7 @@ const photo = (id: number) => ({
   width: 1600,
   height: 1200,
   sha256: "ab".repeat(32),
+  workOrderId: null,
   createdAt: "2026-01-15T09:00:05.000Z",
 });
 

@@ -46,6 +46,11 @@ function makeOrder(id: number, overrides: Record<string, unknown> = {}) {
 const slot = (date: string, window: "am" | "pm" | "all-day") => ({ date, window, startsAt: `${date}T08:00:00.000Z`, endsAt: `${date}T17:00:00.000Z` });
 const dale = { id: 3, name: "Dale Whitcombe" };
 const sam = { id: 4, name: "Sam Okafor" };
+/** The order as PATCH /api/work-orders/:id answers a booking: the slot the request asked for, with its times. */
+const bookedAs = <O extends object>(order: O, body: unknown) => {
+  const { slot: asked } = body as { slot: { date: string; window: "am" | "pm" | "all-day" } };
+  return { ...order, slot: slot(asked.date, asked.window) };
+};
 
 /** The week board's bookings for the week starting `monday`. */
 function weekOrders(monday: string) {
@@ -195,7 +200,7 @@ describe("Works page", () => {
   it("books an operative from the table with the right PATCH body, then closes and refreshes", async () => {
     const date = plus(today, 7);
     const { callsTo } = setup("/works", {
-      "PATCH /api/work-orders/11": (call) => ({ body: { ...tableOrders[0], status: "scheduled", assignee: sam, slot: slot(date, "pm"), ...(call.body as object) } }),
+      "PATCH /api/work-orders/11": (call) => ({ body: bookedAs({ ...tableOrders[0], status: "scheduled", assignee: sam }, call.body) }),
     });
     const table = await ordersTable();
     const user = userEvent.setup();
@@ -256,7 +261,7 @@ describe("Works page", () => {
     const clash = "Dale Whitcombe is already booked on Tuesday 8 December 2026, morning. Choose another slot or operative.";
     const { callsTo } = setup("/works", {
       "PATCH /api/work-orders/12": (call, nth) =>
-        nth === 0 ? apiError(409, "double_booked", clash) : { body: { ...tableOrders[1], ...(call.body as object) } },
+        nth === 0 ? apiError(409, "double_booked", clash) : { body: bookedAs(tableOrders[1]!, call.body) },
     });
     const table = await ordersTable();
     const user = userEvent.setup();

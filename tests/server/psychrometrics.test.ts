@@ -130,7 +130,7 @@ describe("limits and documentation", () => {
   });
 
   it("serves an OpenAPI 3.1 document describing both routes", async () => {
-    const res = await request(t.app).get("/api/openapi.json").expect(200);
+    const res = await request(t.app).get("/api/psychrometrics/openapi.json").expect(200);
     expect(res.body.openapi).toBe("3.1.0");
     const evaluateBody = res.body.paths["/api/psychrometrics/evaluate"].post.requestBody.content["application/json"].schema;
     expect(evaluateBody.required).toEqual(expect.arrayContaining(["airTemperatureC", "relativeHumidityPct"]));

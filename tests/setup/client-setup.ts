@@ -1,6 +1,7 @@
 import "@testing-library/jest-dom/vitest";
 import { cleanup, configure } from "@testing-library/react";
 import { afterEach, vi } from "vitest";
+import { takeMockMisfits } from "../client/support/api-mock";
 
 // Lazy route modules load through Vite's transform on first use; on a busy 2-core machine that
 // can take longer than Testing Library's default 1 s wait, which made a find* call flaky.
@@ -10,4 +11,7 @@ afterEach(() => {
   cleanup();
   vi.unstubAllGlobals();
   vi.restoreAllMocks();
+  // A mocked API reply that does not fit the API contract fails the test, even if the page coped.
+  const misfits = takeMockMisfits();
+  if (misfits.length > 0) throw new Error(misfits.map((e) => e.message).join("\n\n"));
 });

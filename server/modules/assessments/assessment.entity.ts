@@ -38,7 +38,7 @@ export class HhsrsAssessmentRecord {
   band: string;
 
   @Column({ type: "tinyint", unsigned: true })
-  category: number;
+  category: 1 | 2;
 
   @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })
   createdAt: Date;

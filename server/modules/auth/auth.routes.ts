@@ -1,4 +1,6 @@
 import { Router, type Request } from "express";
+import { csrfResponse, invitationCreatedResponse, invitationDescriptionResponse, loginResponse, passwordResetRequestedResponse } from "../../../src/lib/contracts/auth.js";
+import { shaped } from "../../lib/contract.js";
 import type { Authenticator } from "./passport.js";
 import type { Config } from "../../config/env.js";
 import { AppError } from "../../lib/errors.js";
@@ -43,7 +45,7 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
   const resetLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many password reset requests." });
 
   router.get("/csrf", (req, res) => {
-    res.json({ csrfToken: csrfToken(req) });
+    res.json(shaped(csrfResponse, { csrfToken: csrfToken(req) }));
   });
 
   router.post("/login", perIp, perAccount, async (req, res) => {
@@ -52,7 +54,7 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
     if (!actor) throw new AppError(401, "invalid_credentials", "That e-mail address and password do not match an active account.");
     // passport ≥ 0.6 regenerates the session here, so a pre-sign-in session id is never reused.
     await logIn(req, actor);
-    res.json({ user: toMeDto(actor), csrfToken: csrfToken(req, true) });
+    res.json(shaped(loginResponse, { user: toMeDto(actor), csrfToken: csrfToken(req, true) }));
   });
 
   router.post("/logout", async (req, res) => {
@@ -67,12 +69,12 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
   router.post("/invitations", requireRole("admin", "officer"), async (req, res) => {
     const input = parse(invitationSchema, req.body);
     const result = await auth.invite(actorOf(req), input);
-    res.status(201).json({ userId: result.userId, expiresAt: result.expiresAt.toISOString() });
+    res.status(201).json(shaped(invitationCreatedResponse, { userId: result.userId, expiresAt: result.expiresAt.toISOString() }));
   });
 
   router.get("/invitations/:token", async (req, res) => {
     const { token } = parse(tokenParamsSchema, req.params, "params");
-    res.json(await auth.describeInvitation(token));
+    res.json(shaped(invitationDescriptionResponse, await auth.describeInvitation(token)));
   });
 
   router.post("/invitations/accept", async (req, res) => {
@@ -84,7 +86,7 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
   router.post("/password-reset", resetLimit, async (req, res) => {
     const { email } = parse(passwordResetRequestSchema, req.body);
     await auth.requestPasswordReset(email);
-    res.status(202).json({ message: "If an active account uses that address, we have sent it a link to choose a new password." });
+    res.status(202).json(shaped(passwordResetRequestedResponse, { message: "If an active account uses that address, we have sent it a link to choose a new password." }));
   });
 
   router.post("/password-reset/confirm", async (req, res) => {

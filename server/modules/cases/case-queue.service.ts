@@ -1,4 +1,7 @@
 import { Brackets, type DataSource, type ObjectLiteral, type SelectQueryBuilder } from "typeorm";
+import type { DeadlineStage, HazardClass } from "../../../src/lib/domain/deadlines.js";
+import type { SurfaceState } from "../../../src/lib/domain/surface.js";
+import type { Area, CaseStatus, Channel } from "../../../src/lib/schemas/case-report.js";
 import { CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
 import { SURFACE_STATES } from "../../../src/lib/domain/surface.js";
 import { TRIAGE_AREAS } from "../../../src/lib/domain/triage-priority.js";
@@ -16,8 +19,8 @@ import type { Clock } from "../../lib/clock.js";
 export interface QueueRow {
   id: number;
   reference: string;
-  status: string;
-  channel: string;
+  status: CaseStatus;
+  channel: Channel;
   awareAt: Date;
   createdAt: Date;
   propertyId: number;
@@ -26,15 +29,15 @@ export interface QueueRow {
   postcode: string;
   estate: string;
   block: string | null;
-  riskState: string | null;
+  riskState: SurfaceState | null;
   mouldIndex: string | null;
-  area: string | null;
+  area: Area | null;
   vulnerableHousehold: number;
-  hazardClass: string | null;
+  hazardClass: HazardClass | null;
   hhsrsBand: string | null;
   hhsrsCategory: number | null;
   priority: number;
-  nextStage: string | null;
+  nextStage: DeadlineStage | null;
   nextDueAt: Date | null;
   assigneeId: number | null;
   assigneeName: string | null;

@@ -1,14 +1,14 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, JoinTable, ManyToMany, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from "typeorm";
 import type { DeadlineStage, HazardClass } from "../../../src/lib/domain/deadlines.js";
 import type { SurfaceState } from "../../../src/lib/domain/surface.js";
-import type { Area, CaseStatus, Channel, Duration, Location, Observation, Vulnerability } from "../../../src/lib/schemas/case-report.js";
+import type { Area, CaseStatus, Channel, Duration, EquipmentAnswer, Location, Observation, Vulnerability } from "../../../src/lib/schemas/case-report.js";
 import { Property } from "../properties/property.entity.js";
 import { Room } from "../properties/room.entity.js";
 
 export interface Equipment {
-  heatingUsable?: string;
-  extractorFanWorks?: string;
-  trickleVentsOpen?: string;
+  heatingUsable?: EquipmentAnswer;
+  extractorFanWorks?: EquipmentAnswer;
+  trickleVentsOpen?: EquipmentAnswer;
 }
 
 /** One report of damp, condensation or mould at a home, from the first moment to closure. */

@@ -1,7 +1,9 @@
+import type { z } from "zod";
+import type { caseEventEmail, caseEventResponse, caseResponse } from "../../../src/lib/contracts/cases.js";
 import type { CaseEvent } from "./case-event.entity.js";
 import type { Case } from "./case.entity.js";
 
-export const toCaseDto = (c: Case) => ({
+export const toCaseDto = (c: Case): z.input<typeof caseResponse> => ({
   id: c.id,
   reference: c.reference,
   status: c.status,
@@ -25,17 +27,11 @@ export const toCaseDto = (c: Case) => ({
   rooms: (c.rooms ?? []).map((r) => ({ id: r.id, name: r.name, kind: r.kind })),
   homeRooms: (c.property?.rooms ?? []).map((r) => ({ id: r.id, name: r.name, kind: r.kind })),
 });
-export type CaseDto = ReturnType<typeof toCaseDto>;
+export type CaseDto = z.input<typeof caseResponse>;
 
-export interface CaseEventEmail {
-  status: string;
-  to: string;
-  template: string;
-  sentAt: string | null;
-  error: string | null;
-}
+export type CaseEventEmail = z.input<typeof caseEventEmail>;
 
-export const toCaseEventDto = ({ event, actor, email }: { event: CaseEvent; actor: { name: string; role: string } | null; email: CaseEventEmail | null }) => ({
+export const toCaseEventDto = ({ event, actor, email }: { event: CaseEvent; actor: { name: string; role: string } | null; email: CaseEventEmail | null }): z.input<typeof caseEventResponse> => ({
   id: Number(event.id),
   type: event.type,
   at: event.createdAt.toISOString(),

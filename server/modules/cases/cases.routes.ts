@@ -1,4 +1,6 @@
 import { Router } from "express";
+import { caseEventsResponse, myCasesResponse } from "../../../src/lib/contracts/cases.js";
+import { shaped } from "../../lib/contract.js";
 import { caseReportSchema, staffCaseSchema } from "../../../src/lib/schemas/case-report.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth, requireRole } from "../../middleware/auth.js";
@@ -38,7 +40,7 @@ export function createCasesRouter({ cases }: { cases: CaseService }): Router {
 
   router.get("/:id/events", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json({ events: (await cases.events(actorOf(req), id)).map(toCaseEventDto) });
+    res.json(shaped(caseEventsResponse, { events: (await cases.events(actorOf(req), id)).map(toCaseEventDto) }));
   });
 
   router.post("/:id/worse", requireRole("tenant"), async (req, res) => {
@@ -57,12 +59,14 @@ export function createMyCasesRouter({ cases, photos }: { cases: CaseService; pho
   router.get("/", requireRole("tenant"), async (req, res) => {
     const items = await cases.listForTenant(actorOf(req));
     const summaries = await photos.summaries(items.map((c) => c.id));
-    res.json({
-      items: items.map((c) => {
-        const s = summaries.get(c.id);
-        return { ...toCaseDto(c), photoCount: s?.count ?? 0, thumbnailUrl: s ? `/api/photos/${s.firstId}/thumbnail` : null };
+    res.json(
+      shaped(myCasesResponse, {
+        items: items.map((c) => {
+          const s = summaries.get(c.id);
+          return { ...toCaseDto(c), photoCount: s?.count ?? 0, thumbnailUrl: s ? `/api/photos/${s.firstId}/thumbnail` : null };
+        }),
       }),
-    });
+    );
   });
   return router;
 }

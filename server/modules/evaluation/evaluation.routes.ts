@@ -1,4 +1,6 @@
 import { Router } from "express";
+import { evaluationResponse } from "../../../src/lib/contracts/evaluation.js";
+import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf } from "../../middleware/auth.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
@@ -9,7 +11,7 @@ export function createEvaluationRouter({ evaluation }: { evaluation: EvaluationS
   const router = Router();
   router.get("/:id/evaluation", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json(await evaluation.forCase(actorOf(req), id));
+    res.json(shaped(evaluationResponse, await evaluation.forCase(actorOf(req), id)));
   });
   return router;
 }

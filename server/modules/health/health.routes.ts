@@ -1,4 +1,6 @@
 import { Router } from "express";
+import { healthResponse } from "../../../src/lib/contracts/health.js";
+import { shaped } from "../../lib/contract.js";
 import type { DataSource } from "typeorm";
 import { pendingMigrations } from "../../db/migrate.js";
 
@@ -56,7 +58,7 @@ export function createHealthRouter({ dataSource, isDraining = () => false }: Hea
   });
   router.get("/", async (_req, res) => {
     const up = await databaseAnswers(dataSource);
-    res.status(up ? 200 : 503).json({ status: up ? "ok" : "degraded", db: up ? "up" : "down" });
+    res.status(up ? 200 : 503).json(shaped(healthResponse, { status: up ? "ok" : "degraded", db: up ? "up" : "down" }));
   });
   router.get("/live", (_req, res) => {
     res.json({ status: "live" });

@@ -1,4 +1,8 @@
 import { Router } from "express";
+import { okResponse } from "../../../src/lib/contracts/common.js";
+import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "../../../src/lib/contracts/inspections.js";
+import { shaped } from "../../lib/contract.js";
+import { toInspectionDto } from "./inspection.mapper.js";
 import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
 import type { Clock } from "../../lib/clock.js";
 import { parse } from "../../lib/validation.js";
@@ -18,26 +22,26 @@ export function createInspectionsRouter({ cases, inspections, policy, clock }: {
   router.post("/:id/inspections", officers, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const saved = await inspections.record(actorOf(req), id, parse(inspectionSchema, req.body));
-    res.status(201).json({ id: saved.id, inspectedAt: saved.inspectedAt.toISOString(), cause: saved.cause, mouldExtent: saved.mouldExtent });
+    res.status(201).json(shaped(inspectionRecordedResponse, { id: saved.id, inspectedAt: saved.inspectedAt.toISOString(), cause: saved.cause, mouldExtent: saved.mouldExtent }));
   });
 
   router.get("/:id/inspections", staff, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json({ inspections: await inspections.list(actorOf(req), id) });
+    res.json(shaped(inspectionListResponse, { inspections: (await inspections.list(actorOf(req), id)).map(toInspectionDto) }));
   });
 
   router.post("/:id/summary", officers, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const { body } = parse(summarySchema, req.body);
     const saved = await inspections.sendSummary(actorOf(req), id, body);
-    res.status(201).json({ id: saved.id, sentAt: saved.sentAt.toISOString() });
+    res.status(201).json(shaped(summarySentResponse, { id: saved.id, sentAt: saved.sentAt.toISOString() }));
   });
 
   router.post("/:id/messages", staff, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const { body, internal } = parse(messageSchema, req.body);
     await inspections.message(actorOf(req), id, body, internal);
-    res.status(201).json({ ok: true });
+    res.status(201).json(shaped(okResponse, { ok: true }));
   });
 
   router.get("/:id/deadlines", staff, async (req, res) => {
@@ -46,7 +50,7 @@ export function createInspectionsRouter({ cases, inspections, policy, clock }: {
     const milestones = await inspections.milestones(c.id);
     const { source: _source, ...timeframes } = await policy.forOrganisation(c.organisationId);
     const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now: clock.now(), policy: timeframes });
-    res.json({ deadlines: deadlines.map((d) => ({ stage: d.stage, dueAt: d.dueAt?.toISOString() ?? null, doneAt: d.doneAt?.toISOString() ?? null, state: d.state })) });
+    res.json(shaped(deadlinesResponse, { deadlines: deadlines.map((d) => ({ stage: d.stage, dueAt: d.dueAt?.toISOString() ?? null, doneAt: d.doneAt?.toISOString() ?? null, state: d.state })) }));
   });
 
   return router;

@@ -2,7 +2,7 @@ import { In, type DataSource, type EntityManager } from "typeorm";
 import type { Logger } from "../../lib/logger.js";
 import type { Mailer } from "../../lib/mailer.js";
 import { mailTemplates, type MailTemplateName, type RenderedMail } from "./mail-templates.js";
-import { OutboxEmail } from "./outbox-email.entity.js";
+import { OutboxEmail, type OutboxStatus } from "./outbox-email.entity.js";
 import type { Clock } from "../../lib/clock.js";
 
 export interface SendMail<T extends MailTemplateName> {
@@ -49,7 +49,7 @@ export class MailService {
   }
 
   /** How each outbox row stands now (case timelines show staff each e-mail's delivery). */
-  async deliveries(ids: readonly number[]): Promise<Map<number, { status: string; to: string; template: string; sentAt: string | null; error: string | null }>> {
+  async deliveries(ids: readonly number[]): Promise<Map<number, { status: OutboxStatus; to: string; template: string; sentAt: string | null; error: string | null }>> {
     if (!ids.length) return new Map();
     const rows = await this.dataSource.getRepository(OutboxEmail).findBy({ id: In([...new Set(ids)]) });
     return new Map(rows.map((o) => [o.id, { status: o.status, to: o.toAddress, template: o.template, sentAt: o.sentAt?.toISOString() ?? null, error: o.error }]));

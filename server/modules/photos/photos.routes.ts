@@ -1,5 +1,7 @@
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
+import { photoListResponse } from "../../../src/lib/contracts/photos.js";
+import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
@@ -16,7 +18,7 @@ export function createCasePhotosRouter({ cases, photos }: { cases: CaseService; 
 
   router.get("/:id/photos", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json({ photos: (await photos.listForCase(actorOf(req), id)).map(toPhotoDto) });
+    res.json(shaped(photoListResponse, { photos: (await photos.listForCase(actorOf(req), id)).map(toPhotoDto) }));
   });
 
   router.post(
@@ -32,7 +34,7 @@ export function createCasePhotosRouter({ cases, photos }: { cases: CaseService; 
       const { id } = parse(idParamsSchema, req.params, "params");
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       const added = await photos.addToCase(actorOf(req), id, files);
-      res.status(201).json({ photos: added.map(toPhotoDto) });
+      res.status(201).json(shaped(photoListResponse, { photos: added.map(toPhotoDto) }));
     },
   );
 

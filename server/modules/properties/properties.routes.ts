@@ -1,4 +1,6 @@
 import { Router } from "express";
+import { estatesResponse, propertyPageResponse } from "../../../src/lib/contracts/properties.js";
+import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireStaff } from "../../middleware/auth.js";
 import { idParamsSchema, propertyListQuerySchema } from "./properties.schemas.js";
@@ -12,11 +14,11 @@ export function createPropertiesRouter({ properties }: { properties: PropertySer
   router.get("/", async (req, res) => {
     const query = parse(propertyListQuerySchema, req.query, "query");
     const { items, total } = await properties.list(actorOf(req), query);
-    res.json({ items: items.map(toPropertySummaryDto), total, page: query.page, pageSize: query.pageSize });
+    res.json(shaped(propertyPageResponse, { items: items.map(toPropertySummaryDto), total, page: query.page, pageSize: query.pageSize }));
   });
 
   router.get("/estates", async (req, res) => {
-    res.json({ estates: await properties.estates(actorOf(req)) });
+    res.json(shaped(estatesResponse, { estates: await properties.estates(actorOf(req)) }));
   });
 
   router.get("/:id", async (req, res) => {

@@ -1,9 +1,11 @@
+import type { z } from "zod";
+import type { propertyResponse, propertySummaryResponse, roomResponse } from "../../../src/lib/contracts/properties.js";
 import type { Property } from "./property.entity.js";
 import type { Room } from "./room.entity.js";
 
-export const toRoomDto = (r: Room) => ({ id: r.id, name: r.name, kind: r.kind });
+export const toRoomDto = (r: Room): z.input<typeof roomResponse> => ({ id: r.id, name: r.name, kind: r.kind });
 
-export const toPropertySummaryDto = (p: Property) => ({
+export const toPropertySummaryDto = (p: Property): z.input<typeof propertySummaryResponse> => ({
   id: p.id,
   addressLine1: p.addressLine1,
   addressLine2: p.addressLine2,
@@ -18,10 +20,10 @@ export const toPropertySummaryDto = (p: Property) => ({
   heatingType: p.heatingType,
 });
 
-export const toPropertyDto = (p: Property) => ({
+export const toPropertyDto = (p: Property): z.input<typeof propertyResponse> => ({
   ...toPropertySummaryDto(p),
   rooms: (p.rooms ?? []).slice().sort((a, b) => a.id - b.id).map(toRoomDto),
 });
 
-export type PropertySummaryDto = ReturnType<typeof toPropertySummaryDto>;
-export type PropertyDto = ReturnType<typeof toPropertyDto>;
+export type PropertySummaryDto = z.input<typeof propertySummaryResponse>;
+export type PropertyDto = z.input<typeof propertyResponse>;

@@ -1,4 +1,6 @@
 import { rm } from "node:fs/promises";
+import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "../../../src/lib/contracts/readings.js";
+import { shaped } from "../../lib/contract.js";
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
 import { parse } from "../../lib/validation.js";
@@ -43,7 +45,7 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
   router.get("/:id/readings", caseAccess, async (req, res) => {
     const { roomId } = parse(readingsQuerySchema, req.query, "query");
     const rows = await readings.list(res.locals.case.id, { roomId, limit: 50_000, newest: true });
-    res.json({ readings: rows });
+    res.json(shaped(readingsResponse, { readings: rows.map((r) => ({ ...r, takenAt: r.takenAt.toISOString() })) }));
   });
 
   router.post("/:id/readings", caseAccess, async (req, res) => {
@@ -56,14 +58,14 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
       { actorId: actorOf(req).id },
     );
     await evaluation.alertIfRisky(actorOf(req), c.id);
-    res.status(201).json({ ...result, rejected: 0 });
+    res.status(201).json(shaped(readingsAddedResponse, { ...result, rejected: 0 }));
   });
 
   router.post("/:id/readings/import/preview", caseAccess, csvUpload, async (req, res) => {
     const file = req.file;
     if (!file) throw new ValidationError("file: choose a CSV file.", [{ field: "file", message: "Choose a CSV file." }]);
     try {
-      res.json(await imports.preview(file.path));
+      res.json(shaped(importPreviewResponse, await imports.preview(file.path)));
     } finally {
       await rm(file.path, { force: true });
     }
@@ -85,7 +87,7 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
         mapping: fields.mapping as never,
       });
       await evaluation.alertIfRisky(actorOf(req), c.id);
-      res.status(201).json(result);
+      res.status(201).json(shaped(importResultResponse, result));
     } finally {
       if (file) await rm(file.path, { force: true });
     }

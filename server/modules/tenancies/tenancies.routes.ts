@@ -1,4 +1,6 @@
 import { Router } from "express";
+import { myHomeResponse } from "../../../src/lib/contracts/properties.js";
+import { shaped } from "../../lib/contract.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
 import { toPropertyDto } from "../properties/property.mapper.js";
 import type { TenancyService } from "./tenancy.service.js";
@@ -8,10 +10,12 @@ export function createMyHomeRouter({ tenancies }: { tenancies: TenancyService })
   const router = Router();
   router.get("/home", requireRole("tenant"), async (req, res) => {
     const { tenancy, property } = await tenancies.homeOf(actorOf(req));
-    res.json({
-      tenancy: { id: tenancy.id, startDate: tenancy.startDate, endDate: tenancy.endDate },
-      property: toPropertyDto(property),
-    });
+    res.json(
+      shaped(myHomeResponse, {
+        tenancy: { id: tenancy.id, startDate: tenancy.startDate, endDate: tenancy.endDate },
+        property: toPropertyDto(property),
+      }),
+    );
   });
   return router;
 }

@@ -1,8 +1,10 @@
+import type { z } from "zod";
+import type { queueItem } from "../../../src/lib/contracts/triage.js";
 import type { QueueRow } from "../cases/case-queue.service.js";
 
 const iso = (d: Date | string) => new Date(d).toISOString();
 
-export const toQueueItemDto = (r: QueueRow, rooms: { id: number; name: string }[], now: Date) => {
+export const toQueueItemDto = (r: QueueRow, rooms: { id: number; name: string }[], now: Date): z.input<typeof queueItem> => {
   const dueAt = r.nextDueAt === null ? null : new Date(r.nextDueAt);
   return {
     id: r.id,
@@ -20,9 +22,9 @@ export const toQueueItemDto = (r: QueueRow, rooms: { id: number; name: string }[
     hazardClass: r.hazardClass,
     hhsrs: r.hhsrsBand === null ? null : { band: r.hhsrsBand, category: Number(r.hhsrsCategory) as 1 | 2 },
     priority: Number(r.priority),
-    nextDeadline: dueAt === null ? null : { stage: r.nextStage, dueAt: dueAt.toISOString() },
+    nextDeadline: dueAt === null || r.nextStage === null ? null : { stage: r.nextStage, dueAt: dueAt.toISOString() },
     overdue: dueAt !== null && dueAt.getTime() < now.getTime(),
-    assignee: r.assigneeId === null ? null : { id: r.assigneeId, name: r.assigneeName },
+    assignee: r.assigneeId === null || r.assigneeName === null ? null : { id: r.assigneeId, name: r.assigneeName },
   };
 };
-export type QueueItemDto = ReturnType<typeof toQueueItemDto>;
+export type QueueItemDto = z.input<typeof queueItem>;

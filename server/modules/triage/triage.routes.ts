@@ -1,5 +1,8 @@
 import { Router } from "express";
 import type { Clock } from "../../lib/clock.js";
+import { relatedCasesResponse } from "../../../src/lib/contracts/cases.js";
+import { bulkUpdateResponse, queuePageResponse, triageResponse } from "../../../src/lib/contracts/triage.js";
+import { shaped } from "../../lib/contract.js";
 import { AppError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
@@ -20,7 +23,7 @@ export function createTriageRouter({ cases, queue, triage, clock }: { cases: Cas
     const query = parse(queueQuerySchema, req.query, "query");
     const now = clock.now();
     const { rows, rooms, total } = await queue.list(actorOf(req), query, now);
-    res.json({ items: rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now)), total, page: query.page, pageSize: query.pageSize });
+    res.json(shaped(queuePageResponse, { items: rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now)), total, page: query.page, pageSize: query.pageSize }));
   });
 
   router.post("/bulk", officers, async (req, res) => {
@@ -39,22 +42,24 @@ export function createTriageRouter({ cases, queue, triage, clock }: { cases: Cas
         failed.push({ id, reference, message: error.message });
       }
     }
-    res.json({ updated, failed });
+    res.json(shaped(bulkUpdateResponse, { updated, failed }));
   });
 
   router.get("/:id/triage", staff, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const { score, parts, computedAt } = await triage.breakdown(actorOf(req), id);
-    res.json({ score, parts, computedAt: computedAt.toISOString() });
+    res.json(shaped(triageResponse, { score, parts, computedAt: computedAt.toISOString() }));
   });
 
   router.get("/:id/related", staff, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const c = await cases.getForActor(actorOf(req), id);
     const others = await cases.relatedTo(c);
-    res.json({
-      cases: others.map((o) => ({ id: o.id, reference: o.reference, status: o.status, awareAt: o.awareAt.toISOString(), hazardClass: o.hazardClass, description: o.description.slice(0, 200) })),
-    });
+    res.json(
+      shaped(relatedCasesResponse, {
+        cases: others.map((o) => ({ id: o.id, reference: o.reference, status: o.status, awareAt: o.awareAt.toISOString(), hazardClass: o.hazardClass, description: o.description.slice(0, 200) })),
+      }),
+    );
   });
 
   return router;

@@ -1,9 +1,12 @@
+import type { z } from "zod";
+import type { meResponse } from "../../../src/lib/contracts/auth.js";
+import type { staffMember, userResponse } from "../../../src/lib/contracts/users.js";
 import type { Actor } from "../../lib/actor.js";
 import type { User } from "./user.entity.js";
 
-export const toMeDto = (a: Actor) => ({ id: a.id, email: a.email, name: a.name, role: a.role, organisationId: a.organisationId });
+export const toMeDto = (a: Actor): z.input<typeof meResponse> => ({ id: a.id, email: a.email, name: a.name, role: a.role, organisationId: a.organisationId });
 
-export const toUserDto = (u: User) => ({
+export const toUserDto = (u: User): z.input<typeof userResponse> => ({
   id: u.id,
   email: u.email,
   name: u.name,
@@ -12,3 +15,5 @@ export const toUserDto = (u: User) => ({
   lastSignInAt: u.lastSignInAt?.toISOString() ?? null,
   createdAt: u.createdAt.toISOString(),
 });
+
+export const toStaffMemberDto = (u: User): z.input<typeof staffMember> => ({ id: u.id, name: u.name, role: u.role });

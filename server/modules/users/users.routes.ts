@@ -1,8 +1,10 @@
 import { Router } from "express";
+import { staffListResponse, userPageResponse } from "../../../src/lib/contracts/users.js";
+import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
-import { toUserDto } from "./user.mapper.js";
+import { toStaffMemberDto, toUserDto } from "./user.mapper.js";
 import type { UserService } from "./user.service.js";
 import { userListQuerySchema, userUpdateSchema } from "./users.schemas.js";
 
@@ -13,7 +15,7 @@ export function createUsersRouter({ users }: { users: UserService }): Router {
   router.get("/", async (req, res) => {
     const query = parse(userListQuerySchema, req.query, "query");
     const { items, total } = await users.list(actorOf(req), query);
-    res.json({ items: items.map(toUserDto), total, page: query.page, pageSize: query.pageSize });
+    res.json(shaped(userPageResponse, { items: items.map(toUserDto), total, page: query.page, pageSize: query.pageSize }));
   });
 
   router.patch("/:id", async (req, res) => {
@@ -30,7 +32,7 @@ export function createStaffRouter({ users }: { users: UserService }): Router {
   const router = Router();
   router.get("/", requireStaff, async (req, res) => {
     const staff = await users.activeStaff(actorOf(req));
-    res.json({ users: staff.map((u) => ({ id: u.id, name: u.name, role: u.role })) });
+    res.json(shaped(staffListResponse, { users: staff.map(toStaffMemberDto) }));
   });
   return router;
 }

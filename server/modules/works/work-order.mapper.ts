@@ -1,13 +1,19 @@
+import type { z } from "zod";
+import type { contractorResponse, workOrderResponse } from "../../../src/lib/contracts/works.js";
 import { isStaff, type Actor } from "../auth/actor.js";
 import { slotInstants } from "./appointment.js";
+import type { Contractor } from "./contractor.entity.js";
 import type { WorkOrder } from "./work-order.entity.js";
 import type { WorkOrderService } from "./work-order.service.js";
 
 type Context = Awaited<ReturnType<WorkOrderService["context"]>>;
 
-export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor) {
+export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor): z.input<typeof workOrderResponse> {
   const c = ctx.cases.get(w.caseId);
-  const rooms = (c?.property?.rooms ?? []).filter((r) => w.roomIds.includes(r.id)).map((r) => ({ id: r.id, name: r.name }));
+  // The context loads every order's case with its home (a foreign key on both), so this cannot happen.
+  if (!c?.property) throw new Error(`work order ${w.id}: its case and home were not loaded`);
+  const home = c.property;
+  const rooms = (home.rooms ?? []).filter((r) => w.roomIds.includes(r.id)).map((r) => ({ id: r.id, name: r.name }));
   const assignee = w.assigneeUserId ? ctx.users.get(w.assigneeUserId) : undefined;
   const contractor = w.contractorId ? ctx.contractors.get(w.contractorId) : undefined;
   const staff = isStaff(actor);
@@ -18,14 +24,14 @@ export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor) {
   return {
     id: w.id,
     caseId: w.caseId,
-    caseReference: c?.reference ?? null,
+    caseReference: c.reference,
     status: w.status,
     type: w.type,
     description: w.description,
     priority: w.priority,
     targetDate: w.targetDate,
     rooms,
-    property: c?.property ? { id: c.property.id, addressLine1: c.property.addressLine1, town: c.property.town, postcode: c.property.postcode, estate: c.property.estate } : null,
+    property: { id: home.id, addressLine1: home.addressLine1, town: home.town, postcode: home.postcode, estate: home.estate },
     assignee: assignee ? { id: assignee.id, name: assignee.name } : null,
     contractor: contractor ? { id: contractor.id, name: contractor.name, ...(staff ? { email: contractor.email } : {}) } : null,
     slot,
@@ -52,3 +58,5 @@ export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor) {
     createdAt: w.createdAt.toISOString(),
   };
 }
+
+export const toContractorDto = (k: Contractor): z.input<typeof contractorResponse> => ({ id: k.id, name: k.name, email: k.email, phone: k.phone, trade: k.trade });

@@ -1,4 +1,7 @@
 import { Router } from "express";
+import { photoListResponse } from "../../../src/lib/contracts/photos.js";
+import { caseWorkOrdersResponse, contractorListResponse, verificationResponse, workOrderPageResponse } from "../../../src/lib/contracts/works.js";
+import { shaped } from "../../lib/contract.js";
 import multer from "multer";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
@@ -9,7 +12,7 @@ import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_UPLOAD, type PhotoService } from "../ph
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { VerificationService } from "./verification.service.js";
 import type { WorkOrder } from "./work-order.entity.js";
-import { toWorkOrderDto } from "./work-order.mapper.js";
+import { toContractorDto, toWorkOrderDto } from "./work-order.mapper.js";
 import type { WorkOrderService } from "./work-order.service.js";
 import { bookingResponseSchema, contractorSchema, verificationOutcomeSchema, workOrderCreateSchema, workOrderListQuerySchema, workOrderPatchSchema } from "./works.schemas.js";
 
@@ -36,16 +39,16 @@ export function createCaseWorksRouter({ works, verification }: Deps): Router {
   });
   router.get("/:id/work-orders", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json({ workOrders: await dtos(works, await works.listForCase(actorOf(req), id), actorOf(req)) });
+    res.json(shaped(caseWorkOrdersResponse, { workOrders: await dtos(works, await works.listForCase(actorOf(req), id), actorOf(req)) }));
   });
   router.get("/:id/verification", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json(await verification.view(actorOf(req), id));
+    res.json(shaped(verificationResponse, await verification.view(actorOf(req), id)));
   });
   router.post("/:id/verification", leads, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     await verification.decide(actorOf(req), id, parse(verificationOutcomeSchema, req.body));
-    res.json(await verification.view(actorOf(req), id));
+    res.json(shaped(verificationResponse, await verification.view(actorOf(req), id)));
   });
   return router;
 }
@@ -58,7 +61,7 @@ export function createWorkOrdersRouter({ works, photos }: Deps): Router {
   router.get("/", requireStaff, async (req, res) => {
     const query = parse(workOrderListQuerySchema, req.query, "query");
     const { items, total } = await works.list(actorOf(req), query);
-    res.json({ items: await dtos(works, items, actorOf(req)), total, page: query.page, pageSize: query.pageSize });
+    res.json(shaped(workOrderPageResponse, { items: await dtos(works, items, actorOf(req)), total, page: query.page, pageSize: query.pageSize }));
   });
 
   router.patch("/:id", leads, async (req, res) => {
@@ -82,7 +85,7 @@ export function createWorkOrdersRouter({ works, photos }: Deps): Router {
       const wo = res.locals.workOrder as WorkOrder;
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       const added = await photos.addToCase(actorOf(req), wo.caseId, files, { workOrderId: wo.id });
-      res.status(201).json({ photos: added.map(toPhotoDto) });
+      res.status(201).json(shaped(photoListResponse, { photos: added.map(toPhotoDto) }));
     },
   );
 
@@ -99,11 +102,11 @@ export function createWorkOrdersRouter({ works, photos }: Deps): Router {
 export function createContractorsRouter({ works }: Pick<Deps, "works">): Router {
   const router = Router();
   router.get("/", requireStaff, async (req, res) => {
-    res.json({ contractors: (await works.contractors(actorOf(req))).map((k) => ({ id: k.id, name: k.name, email: k.email, phone: k.phone, trade: k.trade })) });
+    res.json(shaped(contractorListResponse, { contractors: (await works.contractors(actorOf(req))).map(toContractorDto) }));
   });
   router.post("/", leads, async (req, res) => {
     const k = await works.addContractor(actorOf(req), parse(contractorSchema, req.body));
-    res.status(201).json({ id: k.id, name: k.name, email: k.email, phone: k.phone, trade: k.trade });
+    res.status(201).json(toContractorDto(k));
   });
   return router;
 }

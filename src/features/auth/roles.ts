@@ -1,12 +1,8 @@
+import type { Me } from "@/lib/contracts";
 import { STAFF_ROLES, type Role } from "@/lib/roles";
 
-export interface User {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  organisationId: number;
-}
+/** The signed-in user (GET /api/auth/me). */
+export type User = Me;
 
 const roleHomes: Record<Role, { path: string; label: string }> = {
   tenant: { path: "/home", label: "My home" },

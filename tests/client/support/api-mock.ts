@@ -1,4 +1,6 @@
-import { vi } from "vitest";
+import { expect, vi } from "vitest";
+import type { z } from "zod";
+import { endpointFor, errorResponse, isJsonSchema } from "@/lib/contracts";
 
 export interface MockReply {
   status?: number;
@@ -16,12 +18,56 @@ export interface RecordedCall {
 
 type Handler = MockReply | ((call: RecordedCall, nth: number) => MockReply);
 
+/** Every misfit of every mockApi in the running test; tests/setup/client-setup.ts fails the test on any. */
+const allMisfits: Error[] = [];
+export function takeMockMisfits(): Error[] {
+  return allMisfits.splice(0);
+}
+
+/** Why a canned body does not fit a schema, or null when it does (path: message, one per line). */
+function misfit(schema: z.ZodType, value: unknown): string | null {
+  const result = schema.safeParse(value);
+  return result.success ? null : result.error.issues.map((i) => `${i.path.join(".") || "(body)"}: ${i.message}`).join("\n");
+}
+
 /**
- * Stubs global fetch with canned API replies keyed by "METHOD /api/path" (no query string).
- * Unknown routes answer 404 in the server's error shape, so a missing stub shows up as an error.
+ * A fixture built as the API contract (src/lib/contracts) says the server answers: fails the test when
+ * it does not fit, and returns it as the client will see it (unknown fields dropped, as the type says).
+ */
+export function mockReply<S extends z.ZodType>(schema: S, value: z.input<S>): z.output<S> {
+  const result = schema.safeParse(value);
+  expect(result.success ? null : misfit(schema, value), "the mocked reply fits the API contract").toBeNull();
+  return result.data as z.output<S>;
+}
+
+/**
+ * Checks one canned reply against the contract: a success with the route's schema (the route must be
+ * in ENDPOINTS), an error with the server's error shape. Throws, so the test fails, naming the field.
+ */
+export function checkReply(method: string, path: string, reply: MockReply): void {
+  const status = reply.status ?? 200;
+  const endpoint = endpointFor(method, path);
+  if (!endpoint) throw new Error(`Mocked reply for ${method} ${path}: the API contract has no such route (src/lib/contracts/endpoints.ts).`);
+  if (status >= 400) {
+    const why = misfit(errorResponse, reply.body);
+    if (why) throw new Error(`Mocked error for ${method} ${path} is not in the server's error shape:\n${why}`);
+    return;
+  }
+  if (status === 204 || endpoint.response === null) return;
+  if (!isJsonSchema(endpoint.response)) return;
+  const why = misfit(endpoint.response, reply.body);
+  if (why) throw new Error(`Mocked reply for ${method} ${path} does not fit the API contract:\n${why}`);
+}
+
+/**
+ * Stubs global fetch with canned API replies keyed by "METHOD /api/path" (no query string). Every
+ * reply is checked against the API contract first (checkReply), so a mock cannot say what the
+ * server never would. Unknown routes answer 404 in the server's error shape, so a missing stub
+ * shows up as an error.
  */
 export function mockApi(routes: Record<string, Handler>) {
   const calls: RecordedCall[] = [];
+  const misfits: Error[] = [];
   const counts = new Map<string, number>();
   const fetchMock = vi.fn(async (input: RequestInfo | URL, init: RequestInit = {}) => {
     const url = new URL(typeof input === "string" ? input : input instanceof URL ? input.href : input.url, "http://localhost");
@@ -43,6 +89,15 @@ export function mockApi(routes: Record<string, Handler>) {
         ? handler(call, nth)
         : handler
       : { status: 404, body: { error: { code: "not_found", message: `There is no API route ${key}.` } } };
+    if (handler) {
+      try {
+        checkReply(method, url.pathname, reply);
+      } catch (error) {
+        misfits.push(error as Error);
+        allMisfits.push(error as Error);
+        throw error;
+      }
+    }
     const status = reply.status ?? 200;
     const hasBody = reply.body !== undefined && status !== 204;
     return new Response(hasBody ? JSON.stringify(reply.body) : null, {
@@ -54,6 +109,8 @@ export function mockApi(routes: Record<string, Handler>) {
   return {
     fetchMock,
     calls,
+    /** Replies that did not fit the contract (each also rejected its fetch). */
+    misfits,
     callsTo: (method: string, path: string) => calls.filter((c) => c.method === method && c.path === path),
   };
 }

@@ -1,11 +1,15 @@
 // One staff-side case as GET /api/cases/:id answers it, for the workspace and case-works tests.
-const DEFAULT_ROOMS = [
+import { caseResponse, type RoomResponse } from "@/lib/contracts";
+import type { CaseStatus } from "@/lib/schemas/case-report";
+import { mockReply } from "./api-mock";
+
+const DEFAULT_ROOMS: RoomResponse[] = [
   { id: 1, name: "Living room", kind: "living" },
   { id: 2, name: "Bedroom 1", kind: "bedroom" },
 ];
 
-export function workspaceCase(over: { status?: string; homeRooms?: { id: number; name: string; kind: string }[] } = {}) {
-  return {
+export function workspaceCase(over: { status?: CaseStatus; homeRooms?: RoomResponse[] } = {}) {
+  return mockReply(caseResponse, {
     id: 42,
     reference: "DW-2026-00042",
     status: over.status ?? "triaged",
@@ -26,5 +30,5 @@ export function workspaceCase(over: { status?: string; homeRooms?: { id: number;
     property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX3 1AA", estate: "Millbeck Terraces" },
     rooms: [{ id: 2, name: "Bedroom 1", kind: "bedroom" }],
     homeRooms: over.homeRooms ?? DEFAULT_ROOMS,
-  };
+  });
 }

@@ -1,12 +1,9 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
+import type { InvitationDescription } from "@/lib/contracts";
 import { authKeys } from "@/lib/query-keys";
 
-export interface InvitationDescription {
-  email: string;
-  name: string;
-  organisationName: string;
-}
+export type { InvitationDescription };
 
 export const getInvitation = (token: string, signal?: AbortSignal) =>
   api.get<InvitationDescription>(`/auth/invitations/${encodeURIComponent(token)}`, { signal });

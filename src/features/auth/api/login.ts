@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { api, setCsrfToken } from "@/lib/api-client";
+import type { LoginResponse } from "@/lib/contracts";
 import type { User } from "../roles";
 import { authKeys } from "@/lib/query-keys";
 
@@ -9,11 +10,6 @@ export const signInSchema = z.object({
   password: z.string().min(1, "Enter your password."),
 });
 export type SignInInput = z.infer<typeof signInSchema>;
-
-interface LoginResponse {
-  user: User;
-  csrfToken: string;
-}
 
 export async function login(input: SignInInput): Promise<User> {
   const res = await api.post<LoginResponse>("/auth/login", input);

@@ -1,34 +1,30 @@
-// The shapes the officer's case workspace reads and sends (server/modules/cases, inspections,
-// assessments, policy, and the triage, related and staff routes of the officer journey contract).
+// The shapes the officer's case workspace reads (inferred from the API contract, src/lib/contracts)
+// and the requests it sends.
+import type {
+  AssessmentResponse,
+  CaseDeadline as ContractDeadline,
+  CaseResponse,
+  InspectionResponse,
+  PolicyResponse,
+  RelatedCase as ContractRelatedCase,
+  SummarySent,
+  TriageResponse,
+} from "@/lib/contracts";
+import type { CAUSES, DEADLINE_STAGES, DEADLINE_STATES, HAZARD_CLASSES, MOULD_EXTENTS } from "@/lib/contracts";
 
-export type HazardClass = "emergency" | "significant" | "not-significant";
-export type DeadlineStage = "make-safe" | "investigate" | "summary" | "safety-work" | "supplementary-work";
-export type DeadlineState = "pending" | "met" | "missed" | "not-applicable";
-export type Cause = "condensation" | "penetrating-damp" | "rising-damp" | "plumbing-leak" | "roof-gutter" | "other-unknown";
-export type MouldExtent = "none" | "under-1-m2" | "1-to-5-m2" | "over-5-m2";
+export type HazardClass = (typeof HAZARD_CLASSES)[number];
+export type DeadlineStage = (typeof DEADLINE_STAGES)[number];
+export type DeadlineState = (typeof DEADLINE_STATES)[number];
+export type Cause = (typeof CAUSES)[number];
+export type MouldExtent = (typeof MOULD_EXTENTS)[number];
 export type MoistureUnit = "pct" | "wme";
 
-export interface WorkspaceRoom {
-  id: number;
-  name: string;
-}
+export type WorkspaceRoom = Pick<CaseResponse["rooms"][number], "id" | "name">;
 
 /** The parts of GET /api/cases/:id the workspace reads (the page passes the whole case). */
-export interface WorkspaceCase {
-  id: number;
-  reference: string | null;
-  status: string;
-  awareAt: string;
-  createdAt: string;
-  assigneeId?: number | null;
-  hazardClass?: string | null;
-  hazardClassReason?: string | null;
-  property: { id: number; addressLine1?: string; addressLine2?: string | null; town?: string; postcode?: string; estate?: string };
-  rooms: WorkspaceRoom[];
-  homeRooms: WorkspaceRoom[];
-}
+export type WorkspaceCase = Pick<CaseResponse, "id" | "reference" | "status" | "awareAt" | "createdAt" | "assigneeId" | "hazardClass" | "hazardClassReason" | "property" | "rooms" | "homeRooms">;
 
-/** PATCH /api/cases/:id: one change at a time from the workspace. */
+/** PATCH /api/cases/:id: one change at a time from the workspace (server/modules/cases/cases.schemas.ts). */
 export interface CasePatch {
   status?: string;
   assigneeId?: number | null;
@@ -36,90 +32,24 @@ export interface CasePatch {
   reason?: string;
 }
 
-export interface TriagePart {
-  factor: string;
-  points: number;
-  max: number;
-  explanation: string;
-}
-
-export interface Triage {
-  score: number;
-  parts: TriagePart[];
-  computedAt: string;
-}
-
-export interface CaseDeadline {
-  stage: DeadlineStage | string;
-  dueAt: string | null;
-  doneAt: string | null;
-  state: DeadlineState | string;
-}
+export type Triage = TriageResponse;
+export type TriagePart = Triage["parts"][number];
+export type CaseDeadline = ContractDeadline;
 
 export type { StaffMember } from "@/lib/staff";
 
-export interface RelatedCase {
-  id: number;
-  reference: string | null;
-  status: string;
-  awareAt: string;
-  hazardClass: string | null;
-  description: string;
-}
+export type RelatedCase = ContractRelatedCase;
 
-export interface InspectionRoomReading {
-  roomId: number;
-  airTemperatureC?: number;
-  relativeHumidityPct?: number;
-  surfaceTemperaturesC?: number[];
-  moisture?: { value: number; unit: MoistureUnit };
-  note?: string;
-}
+export type Inspection = InspectionResponse;
+export type InspectionRoomReading = Inspection["roomReadings"][number];
 
 /** POST /api/cases/:id/inspections (server/modules/inspections/inspections.schemas.ts). */
-export interface InspectionInput {
-  inspectedAt: string;
-  cause: Cause;
-  mouldExtent: MouldExtent;
-  findings: string;
-  roomReadings: InspectionRoomReading[];
-}
+export type InspectionInput = Pick<Inspection, "inspectedAt" | "cause" | "mouldExtent" | "findings" | "roomReadings">;
 
-export interface Inspection extends InspectionInput {
-  id: number;
-  caseId?: number;
-  inspectorUserId?: number;
-  createdAt?: string;
-  cause: Cause;
-}
+/** POST /api/cases/:id/assessments (server/modules/assessments/assessments.schemas.ts). */
+export type AssessmentInput = Pick<AssessmentResponse, "likelihood" | "spread" | "justification">;
+export type Assessment = AssessmentResponse;
 
-export interface AssessmentInput {
-  likelihood: number;
-  spread: [number, number, number, number];
-  justification: string;
-}
+export type DeadlinePolicy = PolicyResponse;
 
-export interface Assessment extends AssessmentInput {
-  id: number;
-  version: number;
-  /** Cut (not rounded) to two decimals by the server. */
-  score: number;
-  band: string;
-  category: 1 | 2 | number;
-  assessorId: number;
-  createdAt: string;
-}
-
-export interface DeadlinePolicy {
-  emergencyMakeSafeHours: number;
-  investigateWorkingDays: number;
-  summaryWorkingDays: number;
-  safetyWorkWorkingDays: number;
-  supplementaryWorkWeeks: number;
-  source: "default" | "landlord" | string;
-}
-
-export interface SentSummary {
-  id: number;
-  sentAt: string;
-}
+export type SentSummary = SummarySent;

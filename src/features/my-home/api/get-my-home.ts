@@ -1,12 +1,9 @@
 import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { Property } from "@/lib/homes";
+import type { MyHomeResponse } from "@/lib/contracts";
 import { myHomeKeys } from "@/lib/query-keys";
 
-export interface MyHome {
-  tenancy: { id: number; startDate: string; endDate: string | null };
-  property: Property;
-}
+export type MyHome = MyHomeResponse;
 
 export const getMyHome = (signal?: AbortSignal) => api.get<MyHome>("/me/home", { signal });
 

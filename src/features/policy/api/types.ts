@@ -1,18 +1,14 @@
-// The landlord's deadline timeframes as GET/PUT/DELETE /api/policy answer them.
+// The landlord's deadline timeframes as GET/PUT/DELETE /api/policy answer them (src/lib/contracts/policy.ts).
 // Types only from the domain: importing deadlines.ts itself would pull the bank-holiday data into the browser.
+import type { PolicyResponse } from "@/lib/contracts";
 import type { DeadlinePolicy } from "@/lib/domain/deadlines";
 
 /** The timeframes plus the monitoring period after works (not a statutory deadline). */
-export interface LandlordPolicy extends DeadlinePolicy {
-  monitoringDays: number;
-}
+export type LandlordPolicy = Omit<PolicyResponse, "source">;
 export type { DeadlinePolicy };
 export type PolicyField = keyof LandlordPolicy;
 
-export interface PolicyView extends LandlordPolicy {
-  /** "landlord": the organisation's own timeframes; "default": the England social-housing default. */
-  source: "default" | "landlord";
-}
+export type PolicyView = PolicyResponse;
 
 /**
  * The England social-housing default (src/lib/domain/deadlines.ts ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY,

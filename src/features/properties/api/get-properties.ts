@@ -1,6 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { PropertySummary } from "@/lib/homes";
+import type { z } from "zod";
+import type { propertyPageResponse } from "@/lib/contracts";
 import { propertyKeys } from "@/lib/query-keys";
 
 export interface PropertyListFilters {
@@ -10,12 +11,7 @@ export interface PropertyListFilters {
   pageSize: number;
 }
 
-export interface PropertyPage {
-  items: PropertySummary[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export type PropertyPage = z.infer<typeof propertyPageResponse>;
 
 export const getProperties = (filters: PropertyListFilters, signal?: AbortSignal) =>
   api.get<PropertyPage>("/properties", {

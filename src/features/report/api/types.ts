@@ -1,22 +1,11 @@
-// The parts of the server's answers that the report feature reads.
+// The server's answers the report feature reads (inferred from the API contract, src/lib/contracts)
+// and the requests it sends.
+import type { CaseResponse, ImportPreviewResponse, ImportResultResponse, PhotoResponse, ReadingsAdded as ContractReadingsAdded } from "@/lib/contracts";
 
 /** What POST /api/cases answers (the whole case; the form needs only these). */
-export interface CreatedCase {
-  id: number;
-  reference: string | null;
-  status: string;
-  createdAt: string;
-}
+export type CreatedCase = Pick<CaseResponse, "id" | "reference" | "status" | "createdAt">;
 
-export interface UploadedPhoto {
-  id: number;
-  url: string;
-  thumbnailUrl: string;
-  width: number;
-  height: number;
-  sha256: string;
-  createdAt: string;
-}
+export type UploadedPhoto = PhotoResponse;
 
 /** One reading typed in by hand, as POST /api/cases/:id/readings takes it. */
 export interface HandReading {
@@ -29,15 +18,12 @@ export interface HandReading {
   outdoorTemperatureC?: number;
 }
 
-export interface ReadingsAdded {
-  imported: number;
-  duplicates: number;
-  rejected: number;
-}
+export type ReadingsAdded = ContractReadingsAdded;
 
 /** A column is named by its header or by its position, as the server proposed it. */
 export type ColumnRef = string | number;
 
+/** The mapping sent back with POST /api/cases/:id/readings/import (the user may change the proposal). */
 export interface ImportMapping {
   timestamp: ColumnRef;
   temperature: ColumnRef;
@@ -49,22 +35,8 @@ export interface ImportMapping {
   timeZone: string;
 }
 
-export interface ImportPreview {
-  delimiter: string;
-  hasHeader: boolean;
-  headers: string[];
-  mapping: ImportMapping;
-  sampleRows: string[][];
-  problems: string[];
-}
-
-export interface ImportResult {
-  importId: number;
-  imported: number;
-  duplicates: number;
-  rejected: number;
-  rejectedReportUrl?: string;
-}
+export type ImportPreview = ImportPreviewResponse;
+export type ImportResult = ImportResultResponse;
 
 /** A room of the home, as the pages hand it to the report's components. */
 export interface RoomOption {

@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { api } from "@/lib/api-client";
+import type { InvitationCreated } from "@/lib/contracts";
 import { ROLES } from "@/lib/roles";
 import { userKeys } from "@/lib/query-keys";
 
@@ -23,10 +24,7 @@ export const invitationFormSchema = z
   });
 export type InvitationFormInput = z.infer<typeof invitationFormSchema>;
 
-export interface InvitationCreated {
-  userId: number;
-  expiresAt: string;
-}
+export type { InvitationCreated };
 
 export function createInvitation(input: InvitationFormInput): Promise<InvitationCreated> {
   const tenant = input.role === "tenant";

@@ -1,6 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import type { ManagedUser } from "./types";
+import type { UserPageResponse } from "@/lib/contracts";
 import { userKeys } from "@/lib/query-keys";
 
 export interface UserListFilters {
@@ -10,12 +10,7 @@ export interface UserListFilters {
   pageSize: number;
 }
 
-export interface UserPage {
-  items: ManagedUser[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export type UserPage = UserPageResponse;
 
 export const getUsers = (filters: UserListFilters, signal?: AbortSignal) =>
   api.get<UserPage>("/users", {

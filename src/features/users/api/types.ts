@@ -1,16 +1,7 @@
-import type { Role } from "@/lib/roles";
+import type { UserResponse, UserStatus } from "@/lib/contracts";
 
-export type UserStatus = "invited" | "active" | "disabled";
-
-export interface ManagedUser {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  status: UserStatus;
-  lastSignInAt: string | null;
-  createdAt: string;
-}
+export type { UserStatus };
+export type ManagedUser = UserResponse;
 
 export const userStatusLabels: Record<UserStatus, string> = {
   invited: "Invited",

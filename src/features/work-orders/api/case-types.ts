@@ -1,7 +1,7 @@
-// The shapes of the maintenance journey's API (the works contract: server/modules/works), as the
-// case workspace and the tenant's case page read and send them.
-import type { BeforeAfter } from "@/lib/domain/verification";
-import type { BookingResponse, ScheduleBody, SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "../lib/work-orders";
+// The shapes of the maintenance journey's API as the case workspace and the tenant's case page read
+// them (inferred from the API contract, src/lib/contracts/works.ts), and the requests they send.
+import type { PhotoResponse, VerificationResponse, WorkOrderResponse } from "@/lib/contracts";
+import type { ScheduleBody, WorkOrderPriority, WorkOrderType } from "../lib/work-orders";
 
 export {
   SLOT_WINDOWS,
@@ -15,63 +15,11 @@ export {
 } from "../lib/work-orders";
 export type { Contractor } from "@/lib/contractors";
 
-export interface Slot {
-  /** A London calendar date, YYYY-MM-DD. */
-  date: string;
-  window: SlotWindow | string;
-  startsAt?: string;
-  endsAt?: string;
-}
-
-export interface BookingAnswer {
-  response: BookingResponse | string | null;
-  reason: string | null;
-  respondedAt: string | null;
-}
-
-export interface BookingHistoryItem {
-  id: number;
-  date: string;
-  window: SlotWindow | string;
-  assignee: { id: number; name: string } | null;
-  contractor: { id: number; name: string } | null;
-  state: "active" | "replaced" | "cancelled" | string;
-  response: BookingResponse | string | null;
-  reason: string | null;
-  createdAt: string;
-}
-
-export interface Completion {
-  at: string;
-  by: string;
-  note: string;
-  materials: string | null;
-  minutesOnSite: number | null;
-  followOn: string | null;
-}
-
-export interface WorkOrder {
-  id: number;
-  caseId: number;
-  caseReference: string | null;
-  status: WorkOrderStatus | string;
-  type: WorkOrderType | string;
-  description: string;
-  priority: WorkOrderPriority | string;
-  targetDate: string | null;
-  rooms: { id: number; name: string }[];
-  property?: { id: number; addressLine1?: string; town?: string; postcode?: string; estate?: string };
-  assignee: { id: number; name: string } | null;
-  contractor: { id: number; name: string; email?: string } | null;
-  slot: Slot | null;
-  booking: BookingAnswer | null;
-  /** Staff only: every booking, the replaced ones too. */
-  bookings?: BookingHistoryItem[];
-  /** Staff only: what the operative should know before the visit. */
-  accessNotes?: string | null;
-  completion: Completion | null;
-  createdAt: string;
-}
+export type WorkOrder = WorkOrderResponse;
+export type Slot = NonNullable<WorkOrder["slot"]>;
+export type BookingAnswer = NonNullable<WorkOrder["booking"]>;
+export type BookingHistoryItem = NonNullable<WorkOrder["bookings"]>[number];
+export type Completion = NonNullable<WorkOrder["completion"]>;
 
 /** POST /api/cases/:id/work-orders. */
 export interface WorkOrderInput {
@@ -95,41 +43,12 @@ export interface CompletionInput {
   followOn?: string;
 }
 
-export interface WorkPhoto {
-  id: number;
-  url: string;
-  thumbnailUrl: string;
-  width: number;
-  height: number;
-  sha256: string;
-  createdAt: string;
-  /** Set for the photos taken after a work order's works. */
-  workOrderId?: number | null;
-}
+export type WorkPhoto = PhotoResponse;
 
-export type VerificationState = "no-works" | "monitoring" | "ended" | "decided";
-
-export interface RoomComparison {
-  roomId: number;
-  roomName: string;
-  comparison: BeforeAfter;
-}
-
-export interface VerificationOutcome {
-  effective: boolean;
-  note: string;
-  at: string;
-  by: string;
-}
-
-export interface Verification {
-  state: VerificationState | string;
-  worksDoneAt: string | null;
-  monitoringEndsAt: string | null;
-  monitoringDays: number;
-  rooms: RoomComparison[];
-  outcome: VerificationOutcome | null;
-}
+export type Verification = VerificationResponse;
+export type VerificationState = Verification["state"];
+export type RoomComparison = Verification["rooms"][number];
+export type VerificationOutcome = NonNullable<Verification["outcome"]>;
 
 /** POST /api/cases/:id/verification. */
 export type VerificationInput =

@@ -1,0 +1,58 @@
+// The request side of every route: ENDPOINTS (src/lib/contracts/endpoints.ts) lists method, path, who
+// may call it and the success reply; this adds the zod schemas the routes validate their input with.
+// tests/server/api-docs.test.ts walks the mounted routers and fails on a route missing from either list.
+import type { z } from "zod";
+import { ENDPOINTS, type Endpoint } from "../../../src/lib/contracts/endpoints.js";
+import { caseReportSchema, staffCaseSchema } from "../../../src/lib/schemas/case-report.js";
+import { evaluatePointSchema, evaluateSeriesSchema } from "../../../src/lib/schemas/psychrometrics.js";
+import { assessmentSchema } from "../assessments/assessments.schemas.js";
+import { acceptInvitationSchema, invitationSchema, loginSchema, passwordResetRequestSchema, passwordResetSchema } from "../auth/auth.schemas.js";
+import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
+import { inspectionSchema, messageSchema, summarySchema } from "../inspections/inspections.schemas.js";
+import { deadlinePolicySchema } from "../policy/policy.schemas.js";
+import { propertyListQuerySchema } from "../properties/properties.schemas.js";
+import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
+import { bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
+import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
+import { bookingResponseSchema, contractorSchema, verificationOutcomeSchema, workOrderCreateSchema, workOrderListQuerySchema, workOrderPatchSchema } from "../works/works.schemas.js";
+
+export interface RequestSchemas {
+  body?: z.ZodType | readonly z.ZodType[];
+  query?: z.ZodType;
+}
+
+/** "METHOD /api/path" → what the route parses from the request. */
+export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
+  "POST /api/psychrometrics/evaluate": { body: evaluatePointSchema },
+  "POST /api/psychrometrics/series": { body: evaluateSeriesSchema },
+  "POST /api/auth/login": { body: loginSchema },
+  "POST /api/auth/invitations": { body: invitationSchema },
+  "POST /api/auth/invitations/accept": { body: acceptInvitationSchema },
+  "POST /api/auth/password-reset": { body: passwordResetRequestSchema },
+  "POST /api/auth/password-reset/confirm": { body: passwordResetSchema },
+  "GET /api/cases": { query: queueQuerySchema },
+  "POST /api/cases/bulk": { body: bulkUpdateSchema },
+  "POST /api/cases": { body: [caseReportSchema, staffCaseSchema] },
+  "PATCH /api/cases/:id": { body: casePatchSchema },
+  "POST /api/cases/:id/worse": { body: worseSchema },
+  "GET /api/cases/:id/readings": { query: readingsQuerySchema },
+  "POST /api/cases/:id/readings": { body: manualReadingsSchema },
+  "POST /api/cases/:id/readings/import": { body: importFieldsSchema },
+  "POST /api/cases/:id/assessments": { body: assessmentSchema },
+  "POST /api/cases/:id/inspections": { body: inspectionSchema },
+  "POST /api/cases/:id/summary": { body: summarySchema },
+  "POST /api/cases/:id/messages": { body: messageSchema },
+  "POST /api/cases/:id/work-orders": { body: workOrderCreateSchema },
+  "POST /api/cases/:id/verification": { body: verificationOutcomeSchema },
+  "GET /api/work-orders": { query: workOrderListQuerySchema },
+  "PATCH /api/work-orders/:id": { body: workOrderPatchSchema },
+  "POST /api/work-orders/:id/booking-response": { body: bookingResponseSchema },
+  "POST /api/contractors": { body: contractorSchema },
+  "PUT /api/policy": { body: deadlinePolicySchema },
+  "GET /api/properties": { query: propertyListQuerySchema },
+  "GET /api/users": { query: userListQuerySchema },
+  "PATCH /api/users/:id": { body: userUpdateSchema },
+};
+
+export const keyOf = (e: Pick<Endpoint, "method" | "path">) => `${e.method} ${e.path}`;
+export const ROUTES: readonly (Endpoint & RequestSchemas)[] = ENDPOINTS.map((e) => ({ ...e, ...REQUESTS[keyOf(e)] }));

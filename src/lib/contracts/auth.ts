@@ -1,0 +1,22 @@
+import { z } from "zod";
+import { ROLES } from "../roles.js";
+import { id, instant, messageResponse } from "./common.js";
+
+/** The signed-in user (GET /api/auth/me; `user` of POST /api/auth/login). */
+export const meResponse = z.object({ id, email: z.string(), name: z.string(), role: z.enum(ROLES), organisationId: id });
+export type Me = z.infer<typeof meResponse>;
+
+export const csrfResponse = z.object({ csrfToken: z.string() });
+export const loginResponse = z.object({ user: meResponse, csrfToken: z.string() });
+export type LoginResponse = z.infer<typeof loginResponse>;
+
+/** POST /api/auth/invitations. */
+export const invitationCreatedResponse = z.object({ userId: id, expiresAt: instant });
+export type InvitationCreated = z.infer<typeof invitationCreatedResponse>;
+
+/** GET /api/auth/invitations/:token. */
+export const invitationDescriptionResponse = z.object({ email: z.string(), name: z.string(), organisationName: z.string() });
+export type InvitationDescription = z.infer<typeof invitationDescriptionResponse>;
+
+/** POST /api/auth/password-reset (202, the same whatever the address). */
+export const passwordResetRequestedResponse = messageResponse;

@@ -1,0 +1,135 @@
+// Every route of the API with its success reply: the list the OpenAPI document is built from
+// (server/api-registry.ts adds the server's request schemas) and the client's test mocks are checked by.
+// A server test walks the Express app and fails when a mounted route is missing here, or the reverse.
+import { z } from "zod";
+import type { Role } from "../roles.js";
+import { assessmentListResponse, assessmentResponse } from "./assessments.js";
+import { csrfResponse, invitationCreatedResponse, invitationDescriptionResponse, loginResponse, meResponse, passwordResetRequestedResponse } from "./auth.js";
+import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse } from "./cases.js";
+import { okResponse } from "./common.js";
+import { evaluationResponse } from "./evaluation.js";
+import { healthResponse } from "./health.js";
+import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
+import { photoListResponse } from "./photos.js";
+import { policyResponse } from "./policy.js";
+import { estatesResponse, myHomeResponse, propertyPageResponse, propertyResponse } from "./properties.js";
+import { pointResult, seriesResult } from "./psychrometrics.js";
+import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
+import { bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
+import { staffListResponse, userPageResponse, userResponse } from "./users.js";
+import { caseWorkOrdersResponse, contractorListResponse, contractorResponse, verificationResponse, workOrderPageResponse, workOrderResponse } from "./works.js";
+
+export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
+/** Who may call a route: anyone, anyone signed in, or the roles listed. */
+export type Access = "public" | "signed-in" | readonly Role[];
+
+export interface Endpoint {
+  method: HttpMethod;
+  /** The full path in Express's notation, e.g. /api/cases/:id. */
+  path: string;
+  access: Access;
+  summary: string;
+  /** The success status and its body: a schema for JSON, a media type for anything else, null for none. */
+  status: 200 | 201 | 202 | 204;
+  response: z.ZodType | { mediaType: string } | null;
+  /** Sent as multipart/form-data (files) rather than JSON. */
+  multipart?: boolean;
+}
+
+const STAFF = ["officer", "maintenance", "admin"] as const;
+const OFFICERS = ["officer", "admin"] as const;
+const LEADS = ["maintenance", "admin"] as const;
+
+const e = (method: HttpMethod, path: string, access: Access, summary: string, response: Endpoint["response"], status: Endpoint["status"] = 200, extra: Partial<Endpoint> = {}): Endpoint => ({
+  method,
+  path,
+  access,
+  summary,
+  status,
+  response,
+  ...extra,
+});
+
+export const ENDPOINTS: readonly Endpoint[] = [
+  e("GET", "/api/health", "public", "Is the service and its database up", healthResponse),
+  e("POST", "/api/psychrometrics/evaluate", "public", "Evaluate one reading (risk engine)", pointResult),
+  e("POST", "/api/psychrometrics/series", "public", "Evaluate a time series of readings (risk engine)", seriesResult),
+  e("GET", "/api/psychrometrics/openapi.json", "public", "The OpenAPI document of the public risk-engine API", { mediaType: "application/json" }),
+  e("GET", "/api/openapi.json", STAFF, "This document", { mediaType: "application/json" }),
+  e("GET", "/api/docs", STAFF, "The interactive API reference", { mediaType: "text/html" }),
+  e("GET", "/api/docs/start.js", STAFF, "The reference page's start script (its other files are static)", { mediaType: "text/javascript" }),
+
+  e("GET", "/api/auth/csrf", "public", "A CSRF token for the session", csrfResponse),
+  e("POST", "/api/auth/login", "public", "Sign in", loginResponse),
+  e("POST", "/api/auth/logout", "public", "Sign out", null, 204),
+  e("GET", "/api/auth/me", "signed-in", "The signed-in user", meResponse),
+  e("POST", "/api/auth/invitations", ["admin", "officer"], "Invite a person", invitationCreatedResponse, 201),
+  e("GET", "/api/auth/invitations/:token", "public", "Who an invitation is for", invitationDescriptionResponse),
+  e("POST", "/api/auth/invitations/accept", "public", "Accept an invitation and choose a password", null, 204),
+  e("POST", "/api/auth/password-reset", "public", "Ask for a password reset link", passwordResetRequestedResponse, 202),
+  e("POST", "/api/auth/password-reset/confirm", "public", "Choose a new password with a reset link", null, 204),
+
+  e("GET", "/api/me/home", ["tenant"], "The tenant's home", myHomeResponse),
+  e("GET", "/api/me/cases", ["tenant"], "The tenant's cases", myCasesResponse),
+
+  e("GET", "/api/cases", STAFF, "The officers' queue", queuePageResponse),
+  e("POST", "/api/cases/bulk", OFFICERS, "Assign or move many cases", bulkUpdateResponse),
+  e("GET", "/api/cases/:id/triage", STAFF, "A case's priority and how it was worked out", triageResponse),
+  e("GET", "/api/cases/:id/related", STAFF, "Other cases of the same home", relatedCasesResponse),
+  e("POST", "/api/cases", ["tenant", "officer", "admin"], "Report damp or mould (a tenant), or record a report (staff)", caseResponse, 201),
+  e("GET", "/api/cases/:id", "signed-in", "A case", caseResponse),
+  e("PATCH", "/api/cases/:id", OFFICERS, "Change a case's status, assignee or hazard class", caseResponse),
+  e("GET", "/api/cases/:id/events", "signed-in", "A case's timeline", caseEventsResponse),
+  e("POST", "/api/cases/:id/worse", ["tenant"], "Tell the landlord it got worse", null, 204),
+  e("GET", "/api/cases/:id/photos", "signed-in", "A case's photos", photoListResponse),
+  e("POST", "/api/cases/:id/photos", "signed-in", "Add photos to a case", photoListResponse, 201, { multipart: true }),
+  e("GET", "/api/cases/:id/readings", "signed-in", "A case's readings, newest first", readingsResponse),
+  e("POST", "/api/cases/:id/readings", "signed-in", "Add readings by hand", readingsAddedResponse, 201),
+  e("POST", "/api/cases/:id/readings/import/preview", "signed-in", "Propose how to read a logger's CSV file", importPreviewResponse, 200, { multipart: true }),
+  e("POST", "/api/cases/:id/readings/import", "signed-in", "Import a logger's CSV file", importResultResponse, 201, { multipart: true }),
+  e("GET", "/api/cases/:id/readings/imports/:importId/rejected.csv", "signed-in", "The rows an import rejected, with the reasons", { mediaType: "text/csv" }),
+  e("GET", "/api/cases/:id/evaluation", "signed-in", "The risk engine over a case's readings", evaluationResponse),
+  e("POST", "/api/cases/:id/assessments", OFFICERS, "Record an HHSRS assessment", assessmentResponse, 201),
+  e("GET", "/api/cases/:id/assessments", STAFF, "Every version of a case's HHSRS assessment", assessmentListResponse),
+  e("POST", "/api/cases/:id/inspections", OFFICERS, "Record an inspection", inspectionRecordedResponse, 201),
+  e("GET", "/api/cases/:id/inspections", STAFF, "A case's inspections", inspectionListResponse),
+  e("POST", "/api/cases/:id/summary", OFFICERS, "Send the tenant the written summary", summarySentResponse, 201),
+  e("POST", "/api/cases/:id/messages", STAFF, "Message the tenant, or add an internal note", okResponse, 201),
+  e("GET", "/api/cases/:id/deadlines", STAFF, "A case's statutory clocks", deadlinesResponse),
+  e("POST", "/api/cases/:id/work-orders", STAFF, "Raise a work order", workOrderResponse, 201),
+  e("GET", "/api/cases/:id/work-orders", "signed-in", "A case's work orders", caseWorkOrdersResponse),
+  e("GET", "/api/cases/:id/verification", "signed-in", "Readings before and after the works", verificationResponse),
+  e("POST", "/api/cases/:id/verification", LEADS, "Decide whether the works fixed the damp", verificationResponse),
+
+  e("GET", "/api/work-orders", STAFF, "Work orders, filtered and sorted", workOrderPageResponse),
+  e("PATCH", "/api/work-orders/:id", LEADS, "Schedule, complete or cancel a work order", workOrderResponse),
+  e("POST", "/api/work-orders/:id/photos", LEADS, "Add photos taken after the works", photoListResponse, 201, { multipart: true }),
+  e("POST", "/api/work-orders/:id/booking-response", ["tenant"], "Confirm a visit or ask for another time", workOrderResponse),
+  e("GET", "/api/contractors", STAFF, "The landlord's contractors", contractorListResponse),
+  e("POST", "/api/contractors", LEADS, "Add a contractor", contractorResponse, 201),
+
+  e("GET", "/api/policy", STAFF, "The landlord's deadline timeframes", policyResponse),
+  e("PUT", "/api/policy", ["admin"], "Set the landlord's deadline timeframes", policyResponse),
+  e("DELETE", "/api/policy", ["admin"], "Go back to the default timeframes", policyResponse),
+
+  e("GET", "/api/photos/:id", "signed-in", "A photo (display size)", { mediaType: "image/jpeg" }),
+  e("GET", "/api/photos/:id/thumbnail", "signed-in", "A photo's thumbnail", { mediaType: "image/jpeg" }),
+
+  e("GET", "/api/properties", STAFF, "The landlord's homes", propertyPageResponse),
+  e("GET", "/api/properties/estates", STAFF, "The estates' names", estatesResponse),
+  e("GET", "/api/properties/:id", STAFF, "A home and its rooms", propertyResponse),
+  e("GET", "/api/users", ["admin"], "The landlord's accounts", userPageResponse),
+  e("PATCH", "/api/users/:id", ["admin"], "Disable or re-enable an account", userResponse),
+  e("GET", "/api/staff", STAFF, "Who a case can be assigned to", staffListResponse),
+];
+
+const patternOf = (path: string) => new RegExp(`^${path.replace(/[.]/g, "\\.").replace(/:[A-Za-z]+/g, "[^/]+")}$`);
+const compiled = ENDPOINTS.map((endpoint) => ({ endpoint, pattern: patternOf(endpoint.path) }));
+
+/** The endpoint a concrete request goes to (`GET`, `/api/cases/42`); literal paths win over `:id`. */
+export function endpointFor(method: string, path: string): Endpoint | undefined {
+  const matches = compiled.filter((c) => c.endpoint.method === method.toUpperCase() && c.pattern.test(path));
+  return matches.sort((a, b) => (a.endpoint.path.includes(":") ? 1 : 0) - (b.endpoint.path.includes(":") ? 1 : 0))[0]?.endpoint;
+}
+
+export const isJsonSchema = (r: Endpoint["response"]): r is z.ZodType => r !== null && !("mediaType" in r);

@@ -1,0 +1,25 @@
+import { z } from "zod";
+import { id, instant } from "./common.js";
+import { pointResult, seriesResult } from "./psychrometrics.js";
+
+export const surfaceEvaluation = z.object({ element: z.string(), label: z.string(), result: pointResult });
+
+export const roomEvaluation = z.object({
+  roomId: id,
+  roomName: z.string(),
+  readingsCount: z.number().int(),
+  latest: z
+    .object({ takenAt: instant, airTemperatureC: z.number(), relativeHumidityPct: z.number(), surfaceTemperatureC: z.number().nullable(), outdoorTemperatureC: z.number().nullable() })
+    .nullable(),
+  surfaces: z.array(surfaceEvaluation),
+  series: seriesResult.nullable(),
+});
+export type RoomEvaluationResponse = z.infer<typeof roomEvaluation>;
+
+/** GET /api/cases/:id/evaluation. */
+export const evaluationResponse = z.object({
+  /** The server's sentence that the landlord investigates whatever the readings say. */
+  statement: z.string(),
+  rooms: z.array(roomEvaluation),
+});
+export type EvaluationResponse = z.infer<typeof evaluationResponse>;

@@ -1,0 +1,14 @@
+import { z } from "zod";
+
+/** GET/PUT/DELETE /api/policy: the landlord's deadline timeframes and the monitoring period. */
+export const policyResponse = z.object({
+  emergencyMakeSafeHours: z.number().int(),
+  investigateWorkingDays: z.number().int(),
+  summaryWorkingDays: z.number().int(),
+  safetyWorkWorkingDays: z.number().int(),
+  supplementaryWorkWeeks: z.number().int(),
+  monitoringDays: z.number().int(),
+  /** "landlord": the organisation's own timeframes; "default": the England social-housing default. */
+  source: z.enum(["default", "landlord"]),
+});
+export type PolicyResponse = z.infer<typeof policyResponse>;
