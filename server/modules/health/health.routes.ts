@@ -1,5 +1,5 @@
 import { Router } from "express";
-import { healthResponse } from "../../../src/lib/contracts/health.js";
+import { healthResponse, livenessResponse, readinessResponse } from "../../../src/lib/contracts/health.js";
 import { shaped } from "../../lib/contract.js";
 import type { DataSource } from "typeorm";
 import { pendingMigrations } from "../../db/migrate.js";
@@ -61,16 +61,16 @@ export function createHealthRouter({ dataSource, isDraining = () => false }: Hea
     res.status(up ? 200 : 503).json(shaped(healthResponse, { status: up ? "ok" : "degraded", db: up ? "up" : "down" }));
   });
   router.get("/live", (_req, res) => {
-    res.json({ status: "live" });
+    res.json(shaped(livenessResponse, { status: "live" }));
   });
   router.get("/ready", async (_req, res) => {
     const readiness = await checkReadiness(dataSource, isDraining);
     if (readiness.ready) {
-      res.json({ status: "ready" });
+      res.json(shaped(readinessResponse, { status: "ready" }));
       return;
     }
     const { ready: _ready, ...why } = readiness;
-    res.status(503).json({ status: "unready", ...why });
+    res.status(503).json(shaped(readinessResponse, { status: "unready", ...why }));
   });
   return router;
 }

@@ -8,7 +8,7 @@ import { csrfResponse, invitationCreatedResponse, invitationDescriptionResponse,
 import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse } from "./cases.js";
 import { okResponse } from "./common.js";
 import { evaluationResponse } from "./evaluation.js";
-import { healthResponse } from "./health.js";
+import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse } from "./photos.js";
 import { policyResponse } from "./policy.js";
@@ -52,6 +52,8 @@ const e = (method: HttpMethod, path: string, access: Access, summary: string, re
 
 export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/health", "public", "Is the service and its database up", healthResponse),
+  e("GET", "/api/health/live", "public", "Is the process up and serving (liveness)", livenessResponse),
+  e("GET", "/api/health/ready", "public", "May traffic be sent here: database answers, migrations current, not shutting down (readiness; 503 with the reason otherwise)", readinessResponse),
   e("POST", "/api/psychrometrics/evaluate", "public", "Evaluate one reading (risk engine)", pointResult),
   e("POST", "/api/psychrometrics/series", "public", "Evaluate a time series of readings (risk engine)", seriesResult),
   e("GET", "/api/psychrometrics/openapi.json", "public", "The OpenAPI document of the public risk-engine API", { mediaType: "application/json" }),
