@@ -70,7 +70,7 @@ it("reports a steamed-up bedroom window with a photo and 19 °C / 78 % with the 
   await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("My reports");
   const card = page.getByRole("listitem").filter({ hasText: reference });
   await expect.poll(() => card.count()).toBe(1);
-  const thumb = card.getByRole("img", { name: `First photo of ${reference}` });
+  const thumb = card.getByRole("img", { name: `First sent with ${reference}` });
   await expect.poll(() => thumb.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0)).toBe(true);
   await page.close();
 });

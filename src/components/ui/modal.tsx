@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, type ReactNode, type RefObject } from "react";
+import { useEffect, useId, useRef, type KeyboardEventHandler, type ReactNode, type RefObject } from "react";
 import { cn } from "@/lib/cn";
 
 interface ModalProps {
@@ -11,6 +11,8 @@ interface ModalProps {
   initialFocusRef?: RefObject<HTMLElement | null>;
   /** Escape does nothing while something is being sent. */
   busy?: boolean;
+  /** Keys the dialog handles besides Escape (arrow keys to page through, say). */
+  onKeyDown?: KeyboardEventHandler<HTMLDialogElement>;
   className?: string;
   children: ReactNode;
 }
@@ -19,7 +21,7 @@ interface ModalProps {
  * The native modal <dialog>: the browser keeps focus inside and hides the page behind from
  * assistive technology; Escape closes it, and focus goes back to what opened it.
  */
-export function Modal({ open, onClose, title, hideTitle, initialFocusRef, busy, className, children }: ModalProps) {
+export function Modal({ open, onClose, title, hideTitle, initialFocusRef, busy, onKeyDown, className, children }: ModalProps) {
   const ref = useRef<HTMLDialogElement>(null);
   const opener = useRef<HTMLElement | null>(null);
   const titleId = useId();
@@ -57,6 +59,7 @@ export function Modal({ open, onClose, title, hideTitle, initialFocusRef, busy, 
         if (!busy) onClose();
       }}
       onKeyDown={(event) => {
+        onKeyDown?.(event);
         // Handled here as well as by `cancel`, so Escape works the same everywhere.
         if (event.key === "Escape") {
           event.preventDefault();

@@ -33,14 +33,22 @@ export function RadioGroup<V extends string>({ legend, hint, error, options, val
   const describedBy = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean).join(" ") || undefined;
   return (
     <fieldset aria-describedby={describedBy} disabled={disabled} className={cn("flex min-w-0 flex-col gap-2", className)}>
-      <legend className="mb-1 font-bold text-ink">{legend}</legend>
+      <legend id={`${id}-legend`} className="mb-1 font-bold text-ink">
+        {legend}
+      </legend>
       {hint ? (
         <p id={`${id}-hint`} className="-mt-1 text-sm text-ink-soft">
           {hint}
         </p>
       ) : null}
       {error ? <FieldError id={`${id}-error`}>{error}</FieldError> : null}
-      <div className={cn("grid grid-cols-1 gap-2", cols === 2 && "sm:grid-cols-2", cols === 3 && "sm:grid-cols-3")}>
+      {/* The radios' own group carries the invalid state: a radio input does not support aria-invalid. */}
+      <div
+        role="radiogroup"
+        aria-labelledby={`${id}-legend`}
+        aria-invalid={error ? true : undefined}
+        className={cn("grid grid-cols-1 gap-2", cols === 2 && "sm:grid-cols-2", cols === 3 && "sm:grid-cols-3")}
+      >
         {options.map((option, i) => (
           <label key={option.value} className={optionRow}>
             <input
@@ -50,7 +58,6 @@ export function RadioGroup<V extends string>({ legend, hint, error, options, val
               value={option.value}
               checked={value === option.value}
               onChange={() => onChange(option.value)}
-              aria-invalid={error ? true : undefined}
               className="mt-0.5 size-5 shrink-0 accent-dew-700"
             />
             <span className="flex flex-col">

@@ -23,8 +23,13 @@ export function SearchField({ label, value, onSearch, placeholder, hint, debounc
   useEffect(() => {
     latest.current = onSearch;
   }, [onSearch]);
-  // Follow the URL (Back, a cleared filter) without eating a trailing space while someone types.
-  useEffect(() => setDraft((d) => (d.trim() === value ? d : value)), [value]);
+  // Follow the URL (Back, a cleared filter) without eating a trailing space while someone types:
+  // adjusted during render when the applied search changes (react.dev, "You might not need an effect").
+  const [applied, setApplied] = useState(value);
+  if (applied !== value) {
+    setApplied(value);
+    setDraft((d) => (d.trim() === value ? d : value));
+  }
   useEffect(() => () => clearTimeout(timer.current), []);
 
   const schedule = (next: string) => {

@@ -71,10 +71,11 @@ export function Calculator() {
     defaultValues: EMPTY_FORM,
   });
   const watched = useWatch({ control });
-  const values: CalculatorFormValues = { ...EMPTY_FORM, ...watched };
-  const valuesKey = JSON.stringify(values);
-  // Keyed on the content: useWatch hands over a new object on every render.
+  // Keyed on the content: useWatch hands over a new object on every render. The key is built from
+  // its own copy so nothing read later in render can change it.
+  const valuesKey = JSON.stringify({ ...EMPTY_FORM, ...watched });
   const outcome = useMemo(() => evaluateForm(JSON.parse(valuesKey) as CalculatorFormValues), [valuesKey]);
+  const values: CalculatorFormValues = { ...EMPTY_FORM, ...watched };
 
   // Keep the last good result to show (greyed) while a field is being corrected.
   const [lastResult, setLastResult] = useState<PointResult | null>(null);

@@ -45,12 +45,14 @@ export function InspectionForm({ caseId, rooms, photoUpload }: InspectionFormPro
   const formRef = useRef<HTMLFormElement>(null);
   const addRef = useRef<HTMLButtonElement>(null);
 
-  // After a failed check, focus goes to the first field with a problem.
+  // After a failed check, focus goes to the first field with a problem: `attempt` counts only the
+  // presses of the button that found one, not the errors clearing as someone types.
   useEffect(() => {
-    if (attempt === 0 || !hasErrors(errors)) return;
+    if (attempt === 0) return;
     const first = formRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]');
-    first?.focus();
-    // Only after a press of the button, not while errors clear as someone types.
+    // A set of radios marks its group invalid; focus goes to its first radio.
+    const target = first?.getAttribute("role") === "radiogroup" ? first.querySelector<HTMLElement>("input") : first;
+    target?.focus();
   }, [attempt]);
 
   const set = <K extends keyof InspectionFields>(key: K, value: InspectionFields[K]) => {
@@ -82,7 +84,7 @@ export function InspectionForm({ caseId, rooms, photoUpload }: InspectionFormPro
     setSaved(null);
     const { input, errors: found } = checkInspection(fields);
     setErrors(found);
-    setAttempt((n) => n + 1);
+    if (hasErrors(found)) setAttempt((n) => n + 1);
     if (!input) return;
     record.mutate(input, {
       onSuccess: () => {

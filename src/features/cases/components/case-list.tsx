@@ -47,7 +47,7 @@ export function CaseList({ cases, headingLevel = 2 }: CaseListProps) {
               {c.thumbnailUrl ? (
                 <img
                   src={c.thumbnailUrl}
-                  alt={`First photo of ${caseTitle(c)}`}
+                  alt={`First sent with ${caseTitle(c)}`}
                   className="h-16 w-16 shrink-0 rounded-md border border-line object-cover"
                   loading="lazy"
                 />

@@ -48,18 +48,22 @@ export function PhotoGallery({ photos, emptyText = "No photos yet." }: PhotoGall
         ))}
       </ul>
 
-      <Modal open={current !== null && current !== undefined} onClose={() => setOpen(null)} title={open === null ? "Photo" : `Photo ${open + 1} of ${photos.length}`} initialFocusRef={closeRef} className="w-[min(64rem,calc(100vw-1rem))]">
+      <Modal
+        open={current !== null && current !== undefined}
+        onClose={() => setOpen(null)}
+        title={open === null ? "Photo" : `Photo ${open + 1} of ${photos.length}`}
+        initialFocusRef={closeRef}
+        onKeyDown={(e) => {
+          if (e.key === "ArrowRight") step(1);
+          if (e.key === "ArrowLeft") step(-1);
+        }}
+        className="w-[min(64rem,calc(100vw-1rem))]"
+      >
         {current ? (
-          <div
-            className="flex flex-col gap-3"
-            onKeyDown={(e) => {
-              if (e.key === "ArrowRight") step(1);
-              if (e.key === "ArrowLeft") step(-1);
-            }}
-          >
+          <div className="flex flex-col gap-3">
             <img
               src={current.url}
-              alt={`Photo ${open! + 1} of ${photos.length}, added ${formatDateTime(current.createdAt)}`}
+              alt={`${open! + 1} of ${photos.length}, added ${formatDateTime(current.createdAt)}`}
               width={current.width}
               height={current.height}
               className="mx-auto h-auto max-h-[70dvh] w-auto max-w-full rounded-md bg-paper object-contain"

@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, useState, type ReactNode } from "react";
+import { useEffect, useId, useRef, useState, type KeyboardEvent, type ReactNode } from "react";
 import { cn } from "@/lib/cn";
 
 interface FilterPopoverProps {
@@ -12,8 +12,9 @@ interface FilterPopoverProps {
 }
 
 /**
- * A disclosure: a button that shows and hides a panel of checkboxes under it. Escape closes the
- * panel and puts focus back on the button; so does a click or focus outside it.
+ * A disclosure: a button that shows and hides a panel of checkboxes under it (a non-modal dialog
+ * named by the label). Escape, on the button or in the panel, closes the panel and puts focus back
+ * on the button; a click or focus outside it closes it too.
  */
 export function FilterPopover({ label, summary, children, align = "start", className }: FilterPopoverProps) {
   const [open, setOpen] = useState(false);
@@ -32,17 +33,18 @@ export function FilterPopover({ label, summary, children, align = "start", class
     return () => document.removeEventListener("pointerdown", onPointerDown);
   }, [open]);
 
+  const closeOnEscape = (event: KeyboardEvent) => {
+    if (event.key === "Escape" && open) {
+      event.stopPropagation();
+      setOpen(false);
+      button.current?.focus();
+    }
+  };
+
   return (
     <div
       ref={root}
       className={cn("relative flex flex-col gap-1", className)}
-      onKeyDown={(event) => {
-        if (event.key === "Escape" && open) {
-          event.stopPropagation();
-          setOpen(false);
-          button.current?.focus();
-        }
-      }}
       onBlur={(event) => {
         const next = event.relatedTarget as Node | null;
         if (open && next && !event.currentTarget.contains(next)) setOpen(false);
@@ -58,6 +60,7 @@ export function FilterPopover({ label, summary, children, align = "start", class
         aria-controls={panelId}
         aria-labelledby={`${labelId} ${summaryId}`}
         onClick={() => setOpen((o) => !o)}
+        onKeyDown={closeOnEscape}
         className="inline-flex min-h-9 items-center justify-between gap-2 rounded-md border border-line-strong bg-surface px-3 py-1.5 text-left text-sm hover:bg-dew-50"
       >
         <span id={summaryId} className="max-w-48 truncate">
@@ -67,16 +70,20 @@ export function FilterPopover({ label, summary, children, align = "start", class
           <path d="M4 6l4 4 4-4" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
         </svg>
       </button>
-      <div
+      {/* A non-modal <dialog>: shown with `open`, never showModal(), so the page stays usable. */}
+      <dialog
         id={panelId}
+        open={open}
+        aria-labelledby={labelId}
         hidden={!open}
+        onKeyDown={closeOnEscape}
         className={cn(
-          "absolute top-full z-20 mt-1 flex max-h-[70vh] min-w-60 flex-col gap-3 overflow-y-auto rounded-md border border-line-strong bg-surface p-3 text-sm shadow-card",
-          align === "end" ? "right-0" : "left-0",
+          "absolute top-full z-20 m-0 mt-1 flex max-h-[70vh] min-w-60 flex-col gap-3 overflow-y-auto rounded-md border border-line-strong bg-surface p-3 text-sm text-ink shadow-card",
+          align === "end" ? "right-0 left-auto" : "right-auto left-0",
         )}
       >
         {open ? children : null}
-      </div>
+      </dialog>
     </div>
   );
 }

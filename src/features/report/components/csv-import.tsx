@@ -1,4 +1,4 @@
-import { useEffect, useId, useRef, useState } from "react";
+import { useEffect, useEffectEvent, useId, useRef, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/field";
@@ -117,13 +117,7 @@ export function CsvImport({ caseId, rooms, initialFile = null, initialRoomId = n
   const doneRef = useRef<HTMLDivElement>(null);
   const Heading = ({ 2: "h2", 3: "h3", 4: "h4" } as const)[headingLevel];
 
-  const runPreview = (chosen: File | null, room: number | null) => {
-    const errors = {
-      file: chosen ? undefined : "Choose the logger file.",
-      room: room === null ? "Choose where the logger was." : undefined,
-    };
-    setChooseErrors(errors);
-    if (!chosen || room === null) return;
+  const sendPreview = (chosen: File) => {
     previewMutation.mutate(chosen, {
       onSuccess: (p) => {
         setPreview(p);
@@ -134,14 +128,25 @@ export function CsvImport({ caseId, rooms, initialFile = null, initialRoomId = n
     });
   };
 
-  // A file handed over from the report form is checked at once: the person already chose it.
+  const runPreview = (chosen: File | null, room: number | null) => {
+    const errors = {
+      file: chosen ? undefined : "Choose the logger file.",
+      room: room === null ? "Choose where the logger was." : undefined,
+    };
+    setChooseErrors(errors);
+    if (!chosen || room === null) return;
+    sendPreview(chosen);
+  };
+
+  // A file handed over from the report form is checked at once: the person already chose it, and
+  // with a room known there is nothing to complain about. Runs once, for the handed-over file only.
   const started = useRef(false);
-  useEffect(() => {
+  const previewHandedOver = useEffectEvent(() => {
     if (started.current || !initialFile) return;
     started.current = true;
-    if (initialRoomId !== null || rooms.length === 1) runPreview(initialFile, initialRoomId ?? rooms[0]!.id);
-    // Runs once, for the handed-over file only.
-  }, []);
+    if (initialRoomId !== null || rooms.length === 1) sendPreview(initialFile);
+  });
+  useEffect(() => previewHandedOver(), []);
 
   useEffect(() => {
     if (phase === "check") checkHeadingRef.current?.focus();

@@ -1,4 +1,4 @@
-import { useEffect, useId, useMemo, useRef, useState, type KeyboardEvent } from "react";
+import { useEffect, useEffectEvent, useId, useMemo, useRef, useState, type KeyboardEvent } from "react";
 import { ReportStillMatters } from "@/components/risk/cautions";
 import { RiskPanel } from "@/components/risk/risk-panel";
 import { Alert } from "@/components/ui/alert";
@@ -42,12 +42,17 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
   const [errors, setErrors] = useState<HandReadingErrors>({});
   const [added, setAdded] = useState<string | null>(null);
   const previewId = useId();
-  const refs = useRef<Partial<Record<keyof HandReadingFields, HTMLInputElement | HTMLSelectElement | null>>>({});
+  const roomRef = useRef<HTMLSelectElement>(null);
+  const airRef = useRef<HTMLInputElement>(null);
+  const humidityRef = useRef<HTMLInputElement>(null);
+  const surfaceRef = useRef<HTMLInputElement>(null);
+  const outdoorRef = useRef<HTMLInputElement>(null);
+  const takenAtRef = useRef<HTMLInputElement>(null);
 
   const dirty = Boolean(fields.airTemperatureC || fields.relativeHumidityPct || fields.surfaceTemperatureC || fields.outdoorTemperatureC);
-  const dirtyRef = useRef(onDirtyChange);
-  dirtyRef.current = onDirtyChange;
-  useEffect(() => dirtyRef.current?.(dirty), [dirty]);
+  // Told only when `dirty` changes, with the parent's latest callback.
+  const tellDirty = useEffectEvent((next: boolean) => onDirtyChange?.(next));
+  useEffect(() => tellDirty(dirty), [dirty]);
 
   const preview = useMemo((): PointResult | null => {
     const input = previewInput(fields);
@@ -70,7 +75,15 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
     setErrors(found);
     if (!reading) {
       const first = ORDER.find((k) => found[k]);
-      if (first) refs.current[first]?.focus();
+      const controls = {
+        roomId: roomRef,
+        airTemperatureC: airRef,
+        relativeHumidityPct: humidityRef,
+        surfaceTemperatureC: surfaceRef,
+        outdoorTemperatureC: outdoorRef,
+        takenAt: takenAtRef,
+      };
+      if (first) controls[first].current?.focus();
       return;
     }
     const kept = await onAdd(reading);
@@ -78,10 +91,10 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
     const room = rooms.find((r) => r.id === reading.roomId)?.name ?? "the room";
     setAdded(`Reading added for ${room}.`);
     setFields(blank(fields.roomId));
-    refs.current.airTemperatureC?.focus();
+    airRef.current?.focus();
   };
 
-  // Enter adds the reading rather than submitting a surrounding form.
+  // Enter in a text box adds the reading rather than submitting a surrounding form.
   const onKeyDown = (e: KeyboardEvent) => {
     if (e.key === "Enter" && e.target instanceof HTMLInputElement) {
       e.preventDefault();
@@ -90,9 +103,6 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
   };
 
   const Heading = ({ 2: "h2", 3: "h3", 4: "h4" } as const)[headingLevel];
-  const ref = (key: keyof HandReadingFields) => (el: HTMLInputElement | HTMLSelectElement | null) => {
-    refs.current[key] = el;
-  };
 
   if (rooms.length === 0) {
     return (
@@ -103,8 +113,8 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
   }
 
   return (
-    <div className="flex flex-col gap-4" onKeyDown={onKeyDown}>
-      <Select label="Room" ref={ref("roomId")} value={fields.roomId} onChange={set("roomId")} error={errors.roomId} controlClassName="sm:max-w-xs">
+    <div className="flex flex-col gap-4">
+      <Select label="Room" ref={roomRef} value={fields.roomId} onChange={set("roomId")} error={errors.roomId} controlClassName="sm:max-w-xs">
         <option value="">Choose a room</option>
         {rooms.map((room) => (
           <option key={room.id} value={room.id}>
@@ -115,7 +125,8 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
       <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         <Input
           label="Air temperature (°C)"
-          ref={ref("airTemperatureC")}
+          ref={airRef}
+          onKeyDown={onKeyDown}
           inputMode="decimal"
           autoComplete="off"
           value={fields.airTemperatureC}
@@ -125,7 +136,8 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
         />
         <Input
           label="Relative humidity (%)"
-          ref={ref("relativeHumidityPct")}
+          ref={humidityRef}
+          onKeyDown={onKeyDown}
           inputMode="decimal"
           autoComplete="off"
           value={fields.relativeHumidityPct}
@@ -136,7 +148,8 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
         <Input
           label="Surface temperature (°C)"
           optional
-          ref={ref("surfaceTemperatureC")}
+          ref={surfaceRef}
+          onKeyDown={onKeyDown}
           autoComplete="off"
           value={fields.surfaceTemperatureC}
           onChange={set("surfaceTemperatureC")}
@@ -146,7 +159,8 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
         <Input
           label="Outdoor temperature (°C)"
           optional
-          ref={ref("outdoorTemperatureC")}
+          ref={outdoorRef}
+          onKeyDown={onKeyDown}
           autoComplete="off"
           value={fields.outdoorTemperatureC}
           onChange={set("outdoorTemperatureC")}
@@ -157,7 +171,8 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
       <Input
         label="When was it taken?"
         type="datetime-local"
-        ref={ref("takenAt")}
+        ref={takenAtRef}
+        onKeyDown={onKeyDown}
         value={fields.takenAt}
         max={localNow()}
         onChange={set("takenAt")}

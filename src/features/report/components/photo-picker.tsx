@@ -1,4 +1,4 @@
-import { useEffect, useId, useState } from "react";
+import { useCallback, useId, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { cn } from "@/lib/cn";
 import { MAX_PHOTOS, PHOTO_ACCEPT, addPhotos, megabytes, type PhotoSelection } from "../lib/photo-files";
@@ -12,26 +12,29 @@ interface PhotoPickerProps {
   hint?: string;
 }
 
-/** Object URLs for previews, made in an effect (so StrictMode's second run makes fresh ones) and released after. */
-function usePreviews(files: readonly File[]): Map<File, string> {
-  const [previews, setPreviews] = useState<Map<File, string>>(() => new Map());
-  useEffect(() => {
-    if (typeof URL.createObjectURL !== "function") return;
-    const map = new Map<File, string>();
-    for (const file of files) map.set(file, URL.createObjectURL(file));
-    setPreviews(map);
-    return () => {
-      for (const url of map.values()) URL.revokeObjectURL(url);
-    };
-  }, [files]);
-  return previews;
+const canPreview = () => typeof URL.createObjectURL === "function";
+
+/**
+ * A preview of a chosen file. Its object URL is made when the image is attached and released when
+ * it is detached (a ref callback's cleanup), so StrictMode's second attach makes a fresh one.
+ */
+function FilePreview({ file, alt }: { file: File; alt: string }) {
+  const attach = useCallback(
+    (img: HTMLImageElement | null) => {
+      if (!img) return;
+      const url = URL.createObjectURL(file);
+      img.src = url;
+      return () => URL.revokeObjectURL(url);
+    },
+    [file],
+  );
+  return <img ref={attach} alt={alt} className="aspect-square w-full rounded-sm bg-paper object-cover" />;
 }
 
 /** Chooses up to ten photos, checks them in the browser, and shows what will be sent. */
 export function PhotoPicker({ value, onChange, serverError, disabled, hint }: PhotoPickerProps) {
   const id = useId();
   const [problems, setProblems] = useState<PhotoSelection["problems"]>([]);
-  const previews = usePreviews(value);
   const full = value.length >= MAX_PHOTOS;
   const hintText = hint ?? `JPEG, PNG, WebP or AVIF, up to 15 MB each. You can add up to ${MAX_PHOTOS}.`;
 
@@ -90,11 +93,10 @@ export function PhotoPicker({ value, onChange, serverError, disabled, hint }: Ph
       {value.length ? (
         <ul aria-label="Photos you have chosen" className="grid grid-cols-2 gap-3 sm:grid-cols-3">
           {value.map((file, i) => {
-            const url = previews.get(file);
             return (
               <li key={`${file.name}-${file.size}-${file.lastModified}`} className="flex flex-col gap-1 rounded-md border border-line bg-surface p-2">
-                {url ? (
-                  <img src={url} alt={`Photo ${i + 1} you have chosen`} className="aspect-square w-full rounded-sm bg-paper object-cover" />
+                {canPreview() ? (
+                  <FilePreview file={file} alt={`Chosen file ${i + 1}, ${file.name}`} />
                 ) : (
                   <div className="flex aspect-square w-full items-center justify-center rounded-sm bg-paper text-sm text-ink-soft">Photo {i + 1}</div>
                 )}

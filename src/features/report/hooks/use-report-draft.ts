@@ -71,6 +71,10 @@ export function useReportDraft(userId: number, rooms: readonly RoomOption[]) {
   }, [saveNow]);
 
   useEffect(() => {
+    // watch() with a callback is react-hook-form's change subscription, made and ended in this effect
+    // and never read during render; useWatch would re-render the whole form on every keystroke and
+    // does not say which field changed, and subscribe() also calls back on updates without values.
+    // eslint-disable-next-line react-hooks/incompatible-library -- a subscription in an effect, not a value memoized in render
     const sub = watch((_values, { name }) => {
       scheduleSave();
       // A field that failed its step's check is checked again as it changes, so the message goes once fixed.

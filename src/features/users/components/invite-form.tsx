@@ -1,6 +1,6 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useState, type ComponentType } from "react";
-import { Controller, useForm } from "react-hook-form";
+import { Controller, useForm, useWatch } from "react-hook-form";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input, Select, Textarea } from "@/components/ui/field";
@@ -32,7 +32,6 @@ export function InviteForm({ roles, HomePicker }: InviteFormProps) {
     register,
     handleSubmit,
     control,
-    watch,
     reset,
     setError,
     formState: { errors },
@@ -40,7 +39,7 @@ export function InviteForm({ roles, HomePicker }: InviteFormProps) {
     resolver: zodResolver(invitationFormSchema),
     defaultValues: { name: "", email: "", role: roles[0], propertyId: undefined, householdNotes: "" },
   });
-  const role = watch("role");
+  const role = useWatch({ control, name: "role" });
 
   const onSubmit = handleSubmit((values) => {
     setSent(null);

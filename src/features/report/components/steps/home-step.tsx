@@ -1,5 +1,4 @@
-import { VULNERABILITIES } from "@/lib/schemas/case-report";
-import { EQUIPMENT_ANSWERS } from "@/lib/schemas/case-report";
+import { EQUIPMENT_ANSWERS, VULNERABILITIES } from "@/lib/schemas/case-report";
 import type { ReportDraftState } from "../../hooks/use-report-draft";
 import { EQUIPMENT_QUESTIONS, choices, equipmentQuestions, householdNoneLabel, householdPreferNotLabel, vulnerabilityLabels } from "../../labels";
 import { ExclusiveCheckbox } from "../choice-fields";
