@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { AREAS, CASE_STATUSES, CHANNELS, DURATIONS, EQUIPMENT_ANSWERS, LOCATIONS, OBSERVATIONS, VULNERABILITIES } from "../schemas/case-report.js";
 import { ROOM_KINDS } from "../homes.js";
-import { id, idName, instant } from "./common.js";
+import { id, instant } from "./common.js";
 
 /** Kept here, not imported from src/lib/domain/deadlines.ts (that would pull the holiday data into the browser). */
 export const HAZARD_CLASSES = ["emergency", "significant", "not-significant"] as const;
@@ -79,4 +79,3 @@ export const relatedCase = z.object({ id, reference: z.string().nullable(), stat
 export type RelatedCase = z.infer<typeof relatedCase>;
 export const relatedCasesResponse = z.object({ cases: z.array(relatedCase) });
 
-export { idName };

@@ -1,7 +1,7 @@
 // Every route of the API with its success reply: the list the OpenAPI document is built from
 // (server/api-registry.ts adds the server's request schemas) and the client's test mocks are checked by.
 // A server test walks the Express app and fails when a mounted route is missing here, or the reverse.
-import { z } from "zod";
+import { type z } from "zod";
 import type { Role } from "../roles.js";
 import { assessmentListResponse, assessmentResponse } from "./assessments.js";
 import { csrfResponse, invitationCreatedResponse, invitationDescriptionResponse, loginResponse, meResponse, passwordResetRequestedResponse } from "./auth.js";

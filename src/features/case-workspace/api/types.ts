@@ -2,7 +2,12 @@
 // and the requests it sends.
 import type {
   AssessmentResponse,
+  CAUSES,
   CaseDeadline as ContractDeadline,
+  DEADLINE_STAGES,
+  DEADLINE_STATES,
+  HAZARD_CLASSES,
+  MOULD_EXTENTS,
   CaseResponse,
   InspectionResponse,
   PolicyResponse,
@@ -10,7 +15,6 @@ import type {
   SummarySent,
   TriageResponse,
 } from "@/lib/contracts";
-import type { CAUSES, DEADLINE_STAGES, DEADLINE_STATES, HAZARD_CLASSES, MOULD_EXTENTS } from "@/lib/contracts";
 
 export type HazardClass = (typeof HAZARD_CLASSES)[number];
 export type DeadlineStage = (typeof DEADLINE_STAGES)[number];
