@@ -23,7 +23,8 @@ const clientZones = [
     target: `./src/features/${feature}`,
     from: "./src/features",
     except: [`./${feature}`],
-    message: "A feature imports no other feature: compose them in a page under src/app, or move the shared piece to src/components or src/lib.",
+    message:
+      "A feature imports no other feature: compose them in a page under src/app, or move the shared piece to src/components or src/lib.",
   })),
   {
     target: ["./src/components", "./src/lib"],
@@ -94,7 +95,9 @@ export default tseslint.config(
     linterOptions: { reportUnusedDisableDirectives: "error" },
     languageOptions: { ecmaVersion: 2023, sourceType: "module", globals: { ...globals.node } },
     settings: {
-      "import-x/resolver-next": [createTypeScriptImportResolver({ project: ["src/tsconfig.json", "server/tsconfig.json", "tests/tsconfig.json"] })],
+      "import-x/resolver-next": [
+        createTypeScriptImportResolver({ project: ["src/tsconfig.json", "server/tsconfig.json", "tests/tsconfig.json"] }),
+      ],
     },
     rules: {
       "import-x/no-cycle": ["error", { ignoreExternal: true }],
@@ -102,7 +105,10 @@ export default tseslint.config(
       "import-x/default": "off",
       "import-x/namespace": "off",
       "import-x/no-named-as-default-member": "off",
-      "@typescript-eslint/no-unused-vars": ["error", { argsIgnorePattern: "^_", varsIgnorePattern: "^_", caughtErrorsIgnorePattern: "^_" }],
+      "@typescript-eslint/no-unused-vars": [
+        "error",
+        { argsIgnorePattern: "^_", varsIgnorePattern: "^_", caughtErrorsIgnorePattern: "^_" },
+      ],
       "@typescript-eslint/consistent-type-imports": ["error", { fixStyle: "inline-type-imports" }],
     },
   },

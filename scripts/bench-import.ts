@@ -76,7 +76,14 @@ function writeFiles(dir: string, caseId: number, roomId: number): { csv: string;
 async function makeCase(ds: DataSource): Promise<{ caseId: number; roomId: number; actorId: number }> {
   const org = await ds.getRepository(Organisation).save({ name: "Bench Homes" });
   const user = await ds.getRepository(User).save(
-    ds.getRepository(User).create({ organisationId: org.id, email: "officer@bench.example", name: "Bench officer", role: "officer", status: "active", passwordHash: null }),
+    ds.getRepository(User).create({
+      organisationId: org.id,
+      email: "officer@bench.example",
+      name: "Bench officer",
+      role: "officer",
+      status: "active",
+      passwordHash: null,
+    }),
   );
   const home = await ds.getRepository(Property).save({
     organisationId: org.id,
@@ -142,7 +149,9 @@ async function benchPhoto(dir: string): Promise<{ ms: number[]; width: number; h
   // Loaded only now, so the import's memory figure is not inflated by libvips.
   const { default: sharp } = await import("sharp");
   const { processPhoto } = await import("../server/modules/photos/photo-processing.js");
-  await sharp(raw, { raw: { width, height, channels: 3 } }).jpeg({ quality: 90 }).toFile(source);
+  await sharp(raw, { raw: { width, height, channels: 3 } })
+    .jpeg({ quality: 90 })
+    .toFile(source);
   const out = path.join(dir, "photos");
   await processPhoto(source, out); // warm-up: loads libvips' codecs
   const ms: number[] = [];
@@ -170,9 +179,18 @@ async function main(): Promise<void> {
 
     const t0 = performance.now();
     const files = writeFiles(dir, ids.caseId, ids.roomId);
-    console.log(`Readings import benchmark — ${ROWS.toLocaleString("en-GB")} rows, ${(files.bytes / MB).toFixed(1)} MB of CSV (written in ${((performance.now() - t0) / 1000).toFixed(1)} s)`);
+    console.log(
+      `Readings import benchmark — ${ROWS.toLocaleString("en-GB")} rows, ${(files.bytes / MB).toFixed(1)} MB of CSV (written in ${((performance.now() - t0) / 1000).toFixed(1)} s)`,
+    );
 
-    loader = await mysql.createConnection({ host: db.host, port: db.port, user: db.user, password: db.password, database: db.name, infileStreamFactory: (p: string) => createReadStream(p) });
+    loader = await mysql.createConnection({
+      host: db.host,
+      port: db.port,
+      user: db.user,
+      password: db.password,
+      database: db.name,
+      infileStreamFactory: (p: string) => createReadStream(p),
+    });
     await loader.query("CREATE TABLE readings_load_data LIKE readings");
     const loadData = async () => {
       await loader!.query("TRUNCATE TABLE readings_load_data");
@@ -212,7 +230,9 @@ async function main(): Promise<void> {
       `  LOAD DATA LOCAL INFILE        ${(load.ms / 1000).toFixed(2).padStart(6)} s   ${fmt(loadRate).padStart(9)} rows/s   ` +
         `(the statement alone, pre-converted UTC file; faster of ${(loadBefore.ms / 1000).toFixed(2)} s before and ${(loadAfter.ms / 1000).toFixed(2)} s after ours; ${fmt(load.rows)} rows)`,
     );
-    console.log(`  ratio ours / LOAD DATA        ${(ratio * 100).toFixed(0)} %   (target ≥ 60 %) ${ratio >= 0.6 ? "PASS" : "FAIL"}`);
+    console.log(
+      `  ratio ours / LOAD DATA        ${(ratio * 100).toFixed(0)} %   (target ≥ 60 %) ${ratio >= 0.6 ? "PASS" : "FAIL"}`,
+    );
     const rssOk = ours.maxRssMb < 300;
     console.log(
       `  peak RSS of this process      ${ours.maxRssMb.toFixed(0)} MB (process maximum up to the end of the import; sampled during it ${ours.sampledPeakMb.toFixed(0)} MB, ${rssBefore.toFixed(0)} MB just before it)   (target < 300 MB) ${rssOk ? "PASS" : "FAIL"}`,
@@ -224,7 +244,9 @@ async function main(): Promise<void> {
     console.log(
       `Photo: processPhoto (server/modules/photos/photo-processing.ts) on a ${photo.width}×${photo.height} JPEG — decode, rotate, 2048 px display JPEG, 320 px thumbnail, sha256, write both`,
     );
-    console.log(`  median ${median.toFixed(0)} ms of 5 (after a warm-up; min ${sorted[0].toFixed(0)}, max ${sorted.at(-1)!.toFixed(0)})   (target < 400 ms) ${median < 400 ? "PASS" : "FAIL"}`);
+    console.log(
+      `  median ${median.toFixed(0)} ms of 5 (after a warm-up; min ${sorted[0].toFixed(0)}, max ${sorted.at(-1)!.toFixed(0)})   (target < 400 ms) ${median < 400 ? "PASS" : "FAIL"}`,
+    );
     if (ratio < 0.6 || !rssOk || median >= 400) process.exitCode = 1;
   } finally {
     await loader?.end().catch(() => undefined);

@@ -20,7 +20,17 @@
 // Options: --duration <seconds> (default 30) for quick runs; --cases <n> scales the data down
 // (readings 50 a case, homes one per 5 cases) for trying the script out.
 import { spawn, type ChildProcess } from "node:child_process";
-import { closeSync, createReadStream, existsSync, mkdtempSync, openSync, readdirSync, rmSync, statSync, writeSync } from "node:fs";
+import {
+  closeSync,
+  createReadStream,
+  existsSync,
+  mkdtempSync,
+  openSync,
+  readdirSync,
+  rmSync,
+  statSync,
+  writeSync,
+} from "node:fs";
 import type { AddressInfo } from "node:net";
 import { createRequire } from "node:module";
 import { cpus, loadavg, tmpdir } from "node:os";
@@ -63,7 +73,8 @@ function option(name: string, fallback: number): number {
   const i = argv.indexOf(`--${name}`);
   if (i === -1) return fallback;
   const value = Number(argv[i + 1]);
-  if (!Number.isInteger(value) || value <= 0) throw new Error(`--${name} needs a whole number above 0, got ${argv[i + 1] ?? "nothing"}.`);
+  if (!Number.isInteger(value) || value <= 0)
+    throw new Error(`--${name} needs a whole number above 0, got ${argv[i + 1] ?? "nothing"}.`);
   return value;
 }
 const DURATION_S = option("duration", 30);
@@ -94,25 +105,118 @@ const SCENARIOS = [
 // A fictional landlord of our own: estates, streets and blocks are invented for this benchmark.
 
 const ESTATES = [
-  { estate: "Alderbrook", town: "Corrowby", outward: "ZQ1", streets: ["Larkspur Walk", "Tansy Close", "Wherry Lane", "Oriel Road"], blocks: ["Pennant House"] },
-  { estate: "Brackenfold", town: "Corrowby", outward: "ZQ2", streets: ["Sedge Row", "Bittern Way", "Fallow Street"], blocks: ["Marram Court", "Teasel House"] },
-  { estate: "Cinder Hill", town: "Corrowby", outward: "ZQ3", streets: ["Kiln Street", "Flint Terrace", "Smithy Lane", "Forge Road"], blocks: [] },
-  { estate: "Dunmere Park", town: "Halvering", outward: "ZQ4", streets: ["Plover Avenue", "Reedling Close", "Mere Road"], blocks: ["Coot House"] },
+  {
+    estate: "Alderbrook",
+    town: "Corrowby",
+    outward: "ZQ1",
+    streets: ["Larkspur Walk", "Tansy Close", "Wherry Lane", "Oriel Road"],
+    blocks: ["Pennant House"],
+  },
+  {
+    estate: "Brackenfold",
+    town: "Corrowby",
+    outward: "ZQ2",
+    streets: ["Sedge Row", "Bittern Way", "Fallow Street"],
+    blocks: ["Marram Court", "Teasel House"],
+  },
+  {
+    estate: "Cinder Hill",
+    town: "Corrowby",
+    outward: "ZQ3",
+    streets: ["Kiln Street", "Flint Terrace", "Smithy Lane", "Forge Road"],
+    blocks: [],
+  },
+  {
+    estate: "Dunmere Park",
+    town: "Halvering",
+    outward: "ZQ4",
+    streets: ["Plover Avenue", "Reedling Close", "Mere Road"],
+    blocks: ["Coot House"],
+  },
   { estate: "Eastwold", town: "Halvering", outward: "ZQ5", streets: ["Quarry Lane", "Barrow Street", "Chalk Walk"], blocks: [] },
-  { estate: "Fernhollow", town: "Halvering", outward: "ZQ6", streets: ["Bracken Rise", "Hart Close", "Glade Road", "Spinney Way"], blocks: ["Oakmoss Court"] },
-  { estate: "Gannet Quay", town: "Saltmarsh", outward: "ZQ7", streets: ["Harbour Row", "Netloft Lane"], blocks: ["Slipway House", "Capstan House", "Tideway Court"] },
-  { estate: "Highcombe", town: "Saltmarsh", outward: "ZQ8", streets: ["Combe Road", "Heather Street", "Lookout Lane"], blocks: [] },
-  { estate: "Ironbridge Row", town: "Saltmarsh", outward: "ZQ9", streets: ["Rivet Street", "Girder Way", "Canal Side"], blocks: ["Lockkeeper House"] },
-  { estate: "Juniper Fields", town: "Wrenstead", outward: "ZR1", streets: ["Juniper Walk", "Yarrow Close", "Meadow Lane", "Thistle Road"], blocks: [] },
-  { estate: "Kettleby", town: "Wrenstead", outward: "ZR2", streets: ["Copper Street", "Ewer Lane", "Hob Terrace"], blocks: ["Trivet House"] },
+  {
+    estate: "Fernhollow",
+    town: "Halvering",
+    outward: "ZQ6",
+    streets: ["Bracken Rise", "Hart Close", "Glade Road", "Spinney Way"],
+    blocks: ["Oakmoss Court"],
+  },
+  {
+    estate: "Gannet Quay",
+    town: "Saltmarsh",
+    outward: "ZQ7",
+    streets: ["Harbour Row", "Netloft Lane"],
+    blocks: ["Slipway House", "Capstan House", "Tideway Court"],
+  },
+  {
+    estate: "Highcombe",
+    town: "Saltmarsh",
+    outward: "ZQ8",
+    streets: ["Combe Road", "Heather Street", "Lookout Lane"],
+    blocks: [],
+  },
+  {
+    estate: "Ironbridge Row",
+    town: "Saltmarsh",
+    outward: "ZQ9",
+    streets: ["Rivet Street", "Girder Way", "Canal Side"],
+    blocks: ["Lockkeeper House"],
+  },
+  {
+    estate: "Juniper Fields",
+    town: "Wrenstead",
+    outward: "ZR1",
+    streets: ["Juniper Walk", "Yarrow Close", "Meadow Lane", "Thistle Road"],
+    blocks: [],
+  },
+  {
+    estate: "Kettleby",
+    town: "Wrenstead",
+    outward: "ZR2",
+    streets: ["Copper Street", "Ewer Lane", "Hob Terrace"],
+    blocks: ["Trivet House"],
+  },
   { estate: "Lowfield", town: "Wrenstead", outward: "ZR3", streets: ["Drain Lane", "Osier Road", "Willow Terrace"], blocks: [] },
-  { estate: "Mossgate", town: "Pellwick", outward: "ZR4", streets: ["Lichen Way", "Stonecrop Close", "Gate Street"], blocks: ["Sphagnum House", "Bryony Court"] },
+  {
+    estate: "Mossgate",
+    town: "Pellwick",
+    outward: "ZR4",
+    streets: ["Lichen Way", "Stonecrop Close", "Gate Street"],
+    blocks: ["Sphagnum House", "Bryony Court"],
+  },
   { estate: "Northbeck", town: "Pellwick", outward: "ZR5", streets: ["Beck Side", "Ghyll Road", "Fellgate"], blocks: [] },
 ] as const;
 
-const WALLS = ["solid-brick", "solid-brick", "solid-stone", "unfilled-cavity", "filled-cavity", "filled-cavity", "system-built", "timber-frame", "insulated"] as const;
-const GLAZING = ["single", "old-double", "old-double", "modern-double", "modern-double", "modern-double", "triple", "mixed"] as const;
-const HEATING = ["gas-boiler", "gas-boiler", "gas-boiler", "electric-storage", "electric-direct", "heat-pump", "district"] as const;
+const WALLS = [
+  "solid-brick",
+  "solid-brick",
+  "solid-stone",
+  "unfilled-cavity",
+  "filled-cavity",
+  "filled-cavity",
+  "system-built",
+  "timber-frame",
+  "insulated",
+] as const;
+const GLAZING = [
+  "single",
+  "old-double",
+  "old-double",
+  "modern-double",
+  "modern-double",
+  "modern-double",
+  "triple",
+  "mixed",
+] as const;
+const HEATING = [
+  "gas-boiler",
+  "gas-boiler",
+  "gas-boiler",
+  "electric-storage",
+  "electric-direct",
+  "heat-pump",
+  "district",
+] as const;
 const ROOMS = [
   { name: "Living room", kind: "living" },
   { name: "Bedroom", kind: "bedroom" },
@@ -129,7 +233,16 @@ const STAFF = [
   { name: "Gus Tranter", role: "maintenance" },
   { name: "Hana Sole", role: "maintenance" },
 ] as const;
-const LOCATIONS = ["window", "external-wall", "ceiling", "corner", "behind-furniture", "floor", "bath-or-shower", "other"] as const;
+const LOCATIONS = [
+  "window",
+  "external-wall",
+  "ceiling",
+  "corner",
+  "behind-furniture",
+  "floor",
+  "bath-or-shower",
+  "other",
+] as const;
 const OBSERVATIONS = ["condensation", "mould-spots", "musty-smell", "peeling-paint", "wet-patches", "leak"] as const;
 const DURATIONS = ["days", "weeks", "months", "over-a-year", "not-sure"] as const;
 const AREAS = ["hand", "a4", "a4", "door", "larger"] as const;
@@ -169,7 +282,15 @@ const sqlSeconds = (d: Date) => d.toISOString().slice(0, 19).replace("T", " ");
 /** One LOAD DATA line: tab-separated, \N for NULL, backslash, tab and newline escaped. */
 const line = (values: (string | number | boolean | null)[]) =>
   values
-    .map((v) => (v === null ? "\\N" : typeof v === "boolean" ? (v ? "1" : "0") : String(v).replace(/[\\\t\n]/g, (c) => (c === "\t" ? "\\t" : c === "\n" ? "\\n" : "\\\\"))))
+    .map((v) =>
+      v === null
+        ? "\\N"
+        : typeof v === "boolean"
+          ? v
+            ? "1"
+            : "0"
+          : String(v).replace(/[\\\t\n]/g, (c) => (c === "\t" ? "\\t" : c === "\n" ? "\\n" : "\\\\")),
+    )
     .join("\t") + "\n";
 
 /** A file written in chunks, never held whole in memory. */
@@ -209,7 +330,13 @@ interface Latencies {
 }
 function summarise(values: number[], seconds: number): Latencies {
   const sorted = [...values].sort((a, b) => a - b);
-  return { count: sorted.length, p50: percentile(sorted, 0.5), p95: percentile(sorted, 0.95), p99: percentile(sorted, 0.99), perSecond: sorted.length / seconds };
+  return {
+    count: sorted.length,
+    p50: percentile(sorted, 0.5),
+    p95: percentile(sorted, 0.95),
+    p99: percentile(sorted, 0.99),
+    perSecond: sorted.length / seconds,
+  };
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -238,7 +365,16 @@ interface SeedCase {
 interface Seeded {
   officer: Actor;
   caseIds: { open: number[]; closed: number[] };
-  counts: { homes: number; rooms: number; cases: number; open: number; readings: number; inspections: number; summaries: number; assessments: number };
+  counts: {
+    homes: number;
+    rooms: number;
+    cases: number;
+    open: number;
+    readings: number;
+    inspections: number;
+    summaries: number;
+    assessments: number;
+  };
   generateMs: number;
   loadTimes: string[];
 }
@@ -272,7 +408,12 @@ function assessment() {
  * rooms, in the order seriesFor returns them. The values are rounded to the column's two decimals
  * here, so the figures are worked out from exactly what MariaDB will hold.
  */
-function readingsFor(c: { awareAt: Date; rooms: { id: number; name: string }[] }, count: number, now: Date, damp: number): Map<number, SeriesPoint[]> {
+function readingsFor(
+  c: { awareAt: Date; rooms: { id: number; name: string }[] },
+  count: number,
+  now: Date,
+  damp: number,
+): Map<number, SeriesPoint[]> {
   const out = new Map<number, SeriesPoint[]>();
   const perRoom = c.rooms.map((_, i) => Math.floor(count / c.rooms.length) + (i < count % c.rooms.length ? 1 : 0));
   const span = Math.max(...perRoom) * 65 * 60_000;
@@ -295,7 +436,8 @@ function readingsFor(c: { awareAt: Date; rooms: { id: number; name: string }[] }
       const air = Number((airBase + 1.5 * Math.sin(2 * Math.PI * day) + between(-0.3, 0.3)).toFixed(2));
       const rh = Number(Math.min(99, Math.max(20, rhBase + 8 * Math.sin(2 * Math.PI * (day + 0.3)) + between(-2, 2))).toFixed(2));
       const point: SeriesPoint = { at: new Date(t), airTemperatureC: air, relativeHumidityPct: rh };
-      if (hasOutdoor) point.outdoorTemperatureC = Number((outdoorBase + 3 * Math.sin(2 * Math.PI * day) + between(-0.5, 0.5)).toFixed(2));
+      if (hasOutdoor)
+        point.outdoorTemperatureC = Number((outdoorBase + 3 * Math.sin(2 * Math.PI * day) + between(-0.5, 0.5)).toFixed(2));
       if (measuredSurface) {
         const outdoor = point.outdoorTemperatureC ?? outdoorBase;
         point.surfaceTemperatureC = Number((outdoor + fRsi * (air - outdoor)).toFixed(2));
@@ -307,14 +449,30 @@ function readingsFor(c: { awareAt: Date; rooms: { id: number; name: string }[] }
   return out;
 }
 
-async function seed(ds: DataSource, db: { host: string; port: number; user: string; password: string; name: string }, dir: string, now: Date): Promise<Seeded> {
+async function seed(
+  ds: DataSource,
+  db: { host: string; port: number; user: string; password: string; name: string },
+  dir: string,
+  now: Date,
+): Promise<Seeded> {
   const started = performance.now();
   const org = await ds.getRepository(Organisation).save({ name: "Corrowby and Pellwick Homes (benchmark)" });
   const passwordHash = await hashPassword(PASSWORD);
   const staff: User[] = [];
   for (const [i, s] of STAFF.entries()) {
     const email = `${s.name.split(" ")[0]!.toLowerCase()}@bench.example`;
-    staff.push(await ds.getRepository(User).save(ds.getRepository(User).create({ organisationId: org.id, email, name: s.name, role: s.role, status: "active", passwordHash: i === 0 ? passwordHash : null })));
+    staff.push(
+      await ds.getRepository(User).save(
+        ds.getRepository(User).create({
+          organisationId: org.id,
+          email,
+          name: s.name,
+          role: s.role,
+          status: "active",
+          passwordHash: i === 0 ? passwordHash : null,
+        }),
+      ),
+    );
   }
   const officers = staff.filter((u) => u.role === "officer");
 
@@ -331,10 +489,26 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
     const street = flat ? block! : pick(plan.streets);
     const number = (numbers.get(street) ?? 0) + 1;
     numbers.set(street, number);
-    const builtForm = flat ? "flat" : pick(["mid-terrace", "mid-terrace", "end-terrace", "semi-detached", "bungalow", "maisonette"] as const);
+    const builtForm = flat
+      ? "flat"
+      : pick(["mid-terrace", "mid-terrace", "end-terrace", "semi-detached", "bungalow", "maisonette"] as const);
     const home: SeedHome = { id, glazingType: pick(GLAZING), wallType: pick(WALLS), rooms: [] };
     const postcode = `${plan.outward} ${(id % 9) + 1}${"ABDEFGHJLNPQRSTUWXYZ"[id % 20]}${"ABDEFGHJLNPQRSTUWXYZ"[Math.floor(id / 20) % 20]}`;
-    homesFile.add([id, org.id, flat ? `Flat ${number}, ${block}` : `${number} ${street}`, null, plan.town, postcode, String(991000000000 + id), plan.estate, block, builtForm, home.wallType, home.glazingType, pick(HEATING)]);
+    homesFile.add([
+      id,
+      org.id,
+      flat ? `Flat ${number}, ${block}` : `${number} ${street}`,
+      null,
+      plan.town,
+      postcode,
+      String(991000000000 + id),
+      plan.estate,
+      block,
+      builtForm,
+      home.wallType,
+      home.glazingType,
+      pick(HEATING),
+    ]);
     const roomCount = 2 + Math.floor(random() * 3);
     for (const r of ROOMS.slice(0, roomCount)) {
       roomId++;
@@ -353,14 +527,30 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
   for (let id = 1; id <= CASES; id++) {
     const open = chance(0.12);
     // Open cases are mostly recent, with a tail of old ones still running; closed ones spread over three years.
-    const ageDays = open ? (chance(0.55) ? between(0.02, 14) : chance(0.55) ? between(14, 90) : between(90, 3 * 365)) : between(7, 3 * 365);
+    const ageDays = open
+      ? chance(0.55)
+        ? between(0.02, 14)
+        : chance(0.55)
+          ? between(14, 90)
+          : between(90, 3 * 365)
+      : between(7, 3 * 365);
     const ageMs = ageDays * DAY_MS;
     const awareAt = new Date(Math.round(now.getTime() - ageMs));
     const status: CaseStatus = open ? openStatus() : chance(0.88) ? "closed" : "cancelled";
-    const hazardClass: HazardClass | null = status === "new" && chance(0.7) ? null : status === "cancelled" && chance(0.6) ? null : pick(["emergency", "significant", "significant", "significant", "not-significant", "not-significant"] as const);
+    const hazardClass: HazardClass | null =
+      status === "new" && chance(0.7)
+        ? null
+        : status === "cancelled" && chance(0.6)
+          ? null
+          : pick(["emergency", "significant", "significant", "significant", "not-significant", "not-significant"] as const);
     let inspectedAt: Date | null = null;
     if (AFTER_INSPECTION.has(status) && (status !== "closed" || chance(0.9))) {
-      inspectedAt = new Date(Math.min(awareAt.getTime() + between(0.3, 18) * DAY_MS, awareAt.getTime() + (now.getTime() - awareAt.getTime()) * between(0.2, 0.9)));
+      inspectedAt = new Date(
+        Math.min(
+          awareAt.getTime() + between(0.3, 18) * DAY_MS,
+          awareAt.getTime() + (now.getTime() - awareAt.getTime()) * between(0.2, 0.9),
+        ),
+      );
     }
     const summarySentAt = inspectedAt && chance(0.85) ? new Date(inspectedAt.getTime() + between(0.2, 6) * DAY_MS) : null;
     cases.push({
@@ -384,7 +574,9 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
     list.forEach((c, i) => {
       const before = list[i - 1];
       const after = list[i + 1];
-      c.recurrence = (before !== undefined && c.awareAt.getTime() - before.awareAt.getTime() <= YEAR_MS) || (after !== undefined && after.awareAt.getTime() - c.awareAt.getTime() <= YEAR_MS);
+      c.recurrence =
+        (before !== undefined && c.awareAt.getTime() - before.awareAt.getTime() <= YEAR_MS) ||
+        (after !== undefined && after.awareAt.getTime() - c.awareAt.getTime() <= YEAR_MS);
     });
   }
 
@@ -392,12 +584,19 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
   // real risk engine over a case's rooms; here it reads the readings just generated instead of
   // the table they are about to be loaded into.
   let pending = new Map<number, SeriesPoint[]>();
-  const readingSource = { seriesFor: async (_caseId: number, roomId?: number) => pending.get(roomId!) ?? [] } as unknown as ReadingService;
+  const readingSource = {
+    seriesFor: async (_caseId: number, roomId?: number) => pending.get(roomId!) ?? [],
+  } as unknown as ReadingService;
   const config = loadConfig({ ...process.env, NODE_ENV: "test" });
-  const evaluation = new EvaluationService(createServices(config, ds, createMailer(config), createLogger("silent")).cases, readingSource);
+  const evaluation = new EvaluationService(
+    createServices(config, ds, createMailer(config), createLogger("silent")).cases,
+    readingSource,
+  );
 
   const withReadings = cases.filter(() => chance(0.92));
-  const readingsOf = new Map<number, number>(withReadings.map((c, i) => [c.id, Math.floor(READINGS / withReadings.length) + (i < READINGS % withReadings.length ? 1 : 0)]));
+  const readingsOf = new Map<number, number>(
+    withReadings.map((c, i) => [c.id, Math.floor(READINGS / withReadings.length) + (i < READINGS % withReadings.length ? 1 : 0)]),
+  );
 
   const casesFile = new TsvFile(path.join(dir, "cases.tsv"));
   const caseRoomsFile = new TsvFile(path.join(dir, "case_rooms.tsv"));
@@ -415,27 +614,68 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
     const area = chance(0.1) ? null : pick(AREAS);
     const rooms = some(c.home.rooms, 1, Math.min(2, c.home.rooms.length)).sort((a, b) => a.id - b.id);
     const assignee = isOpen ? (chance(0.7) ? pick(officers).id : null) : chance(0.95) ? pick(officers).id : null;
-    const channel = pick(["tenant-online", "tenant-online", "tenant-online", "tenant-online", "phone", "phone", "email", "letter", "visit"] as const);
+    const channel = pick([
+      "tenant-online",
+      "tenant-online",
+      "tenant-online",
+      "tenant-online",
+      "phone",
+      "phone",
+      "email",
+      "letter",
+      "visit",
+    ] as const);
 
     for (const r of rooms) caseRoomsFile.add([c.id, r.id]);
     if (c.inspectedAt) {
-      inspectionsFile.add([c.id, sqlTime(c.inspectedAt), pick(officers).id, pick(["condensation", "condensation", "penetrating-damp", "plumbing-leak", "roof-gutter", "other-unknown"]), pick(["none", "under-1-m2", "1-to-5-m2", "over-5-m2"]), "Seeded inspection for the benchmark.", "[]", sqlTime(c.inspectedAt)]);
+      inspectionsFile.add([
+        c.id,
+        sqlTime(c.inspectedAt),
+        pick(officers).id,
+        pick(["condensation", "condensation", "penetrating-damp", "plumbing-leak", "roof-gutter", "other-unknown"]),
+        pick(["none", "under-1-m2", "1-to-5-m2", "over-5-m2"]),
+        "Seeded inspection for the benchmark.",
+        "[]",
+        sqlTime(c.inspectedAt),
+      ]);
       if (chance(0.75)) {
         const versions = chance(0.1) ? 2 : 1;
         for (let v = 1; v <= versions; v++) {
           const a = assessment();
-          assessmentsFile.add([c.id, v, pick(officers).id, a.likelihood, JSON.stringify(a.spread), "Seeded assessment for the benchmark.", a.score, a.band, a.category, sqlTime(new Date(c.inspectedAt.getTime() + v * HOUR_MS))]);
+          assessmentsFile.add([
+            c.id,
+            v,
+            pick(officers).id,
+            a.likelihood,
+            JSON.stringify(a.spread),
+            "Seeded assessment for the benchmark.",
+            a.score,
+            a.band,
+            a.category,
+            sqlTime(new Date(c.inspectedAt.getTime() + v * HOUR_MS)),
+          ]);
           c.band = a.band;
           c.category = a.category;
         }
       }
     }
-    if (c.summarySentAt) summariesFile.add([c.id, pick(officers).id, "Seeded written summary for the benchmark.", null, sqlTime(c.summarySentAt)]);
+    if (c.summarySentAt)
+      summariesFile.add([c.id, pick(officers).id, "Seeded written summary for the benchmark.", null, sqlTime(c.summarySentAt)]);
 
     const count = readingsOf.get(c.id) ?? 0;
     pending = count ? readingsFor({ awareAt: c.awareAt, rooms }, count, now, random()) : new Map();
     for (const [rid, series] of pending) {
-      for (const p of series) readingsFile.add([c.id, rid, sqlSeconds(p.at as Date), p.airTemperatureC.toFixed(2), p.relativeHumidityPct.toFixed(2), p.surfaceTemperatureC?.toFixed(2) ?? null, p.outdoorTemperatureC?.toFixed(2) ?? null, "import"]);
+      for (const p of series)
+        readingsFile.add([
+          c.id,
+          rid,
+          sqlSeconds(p.at as Date),
+          p.airTemperatureC.toFixed(2),
+          p.relativeHumidityPct.toFixed(2),
+          p.surfaceTemperatureC?.toFixed(2) ?? null,
+          p.outdoorTemperatureC?.toFixed(2) ?? null,
+          "import",
+        ]);
     }
 
     // What TriageService.refresh stores (server/modules/triage/triage.service.ts, factsFor and
@@ -445,7 +685,14 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
     // triage_due_at at the next step of the deadline factor (1 ms past it) or NULL when none
     // comes. verifyFigures() below checks this against the real refresh on a sample.
     const risk = await evaluation.riskOf({ id: c.id, locations, observations, property: c.home } as unknown as Case);
-    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, investigationEndedAt: c.inspectedAt, summarySentAt: c.summarySentAt, now, policy: ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY });
+    const deadlines = computeDeadlines({
+      hazardClass: c.hazardClass,
+      awareAt: c.awareAt,
+      investigationEndedAt: c.inspectedAt,
+      summarySentAt: c.summarySentAt,
+      now,
+      policy: ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY,
+    });
     const next = nextDeadline(c.status, deadlines);
     const hoursUntilDeadline = next ? (next.dueAt!.getTime() - now.getTime()) / HOUR_MS : null;
     const priority = triagePriority({
@@ -476,7 +723,12 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
       area,
       vulnerability === null ? null : JSON.stringify(vulnerability),
       (vulnerability?.length ?? 0) > 0,
-      chance(0.5) ? JSON.stringify({ heatingUsable: pick(["yes", "sometimes", "no"]), extractorFanWorks: pick(["yes", "no", "none-fitted", "not-sure"]) }) : null,
+      chance(0.5)
+        ? JSON.stringify({
+            heatingUsable: pick(["yes", "sometimes", "no"]),
+            extractorFanWorks: pick(["yes", "no", "none-fitted", "not-sure"]),
+          })
+        : null,
       c.status,
       assignee,
       c.hazardClass,
@@ -498,12 +750,22 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
   for (const f of [casesFile, caseRoomsFile, readingsFile, inspectionsFile, summariesFile, assessmentsFile]) f.close();
   const generateMs = performance.now() - started;
 
-  const loader = await mysql.createConnection({ host: db.host, port: db.port, user: db.user, password: db.password, database: db.name, infileStreamFactory: (p: string) => createReadStream(p) });
+  const loader = await mysql.createConnection({
+    host: db.host,
+    port: db.port,
+    user: db.user,
+    password: db.password,
+    database: db.name,
+    infileStreamFactory: (p: string) => createReadStream(p),
+  });
   const loadTimes: string[] = [];
   try {
     const load = async (f: TsvFile, table: string, columns: string) => {
       const start = performance.now();
-      const [result] = await loader.query({ sql: `LOAD DATA LOCAL INFILE ? INTO TABLE ${table} CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' (${columns})`, values: [f.file] });
+      const [result] = await loader.query({
+        sql: `LOAD DATA LOCAL INFILE ? INTO TABLE ${table} CHARACTER SET utf8mb4 FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' (${columns})`,
+        values: [f.file],
+      });
       const { affectedRows, warningStatus } = result as { affectedRows: number; warningStatus: number };
       if (warningStatus > 0) {
         const [warnings] = await loader.query("SHOW WARNINGS LIMIT 5");
@@ -512,7 +774,11 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
       if (affectedRows !== f.rows) throw new Error(`LOAD DATA into ${table} loaded ${affectedRows} of ${f.rows} rows.`);
       loadTimes.push(`${table} ${((performance.now() - start) / 1000).toFixed(1)} s`);
     };
-    await load(homesFile, "properties", "id, organisation_id, address_line1, address_line2, town, postcode, uprn, estate, block, built_form, wall_type, glazing_type, heating_type");
+    await load(
+      homesFile,
+      "properties",
+      "id, organisation_id, address_line1, address_line2, town, postcode, uprn, estate, block, built_form, wall_type, glazing_type, heating_type",
+    );
     await load(roomsFile, "rooms", "id, property_id, name, kind");
     await load(
       casesFile,
@@ -521,15 +787,30 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
         "assignee_user_id, hazard_class, hazard_class_reason, officers_alerted_at, risk_state, mould_index, hhsrs_band, hhsrs_category, recurrence, priority, next_stage, next_due_at, triage_due_at, created_at, updated_at",
     );
     await load(caseRoomsFile, "case_rooms", "case_id, room_id");
-    await load(inspectionsFile, "inspections", "case_id, inspected_at, inspector_user_id, cause, mould_extent, findings, room_readings, created_at");
+    await load(
+      inspectionsFile,
+      "inspections",
+      "case_id, inspected_at, inspector_user_id, cause, mould_extent, findings, room_readings, created_at",
+    );
     await load(summariesFile, "written_summaries", "case_id, sender_user_id, body, outbox_id, sent_at");
-    await load(assessmentsFile, "hhsrs_assessments", "case_id, version, assessor_user_id, likelihood, spread, justification, score, band, category, created_at");
-    await load(readingsFile, "readings", "case_id, room_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c, source");
-    await loader.query("ANALYZE TABLE properties, rooms, cases, case_rooms, inspections, written_summaries, hhsrs_assessments, readings");
+    await load(
+      assessmentsFile,
+      "hhsrs_assessments",
+      "case_id, version, assessor_user_id, likelihood, spread, justification, score, band, category, created_at",
+    );
+    await load(
+      readingsFile,
+      "readings",
+      "case_id, room_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c, source",
+    );
+    await loader.query(
+      "ANALYZE TABLE properties, rooms, cases, case_rooms, inspections, written_summaries, hhsrs_assessments, readings",
+    );
   } finally {
     await loader.end();
   }
-  for (const f of [homesFile, roomsFile, casesFile, caseRoomsFile, readingsFile, inspectionsFile, summariesFile, assessmentsFile]) rmSync(f.file, { force: true });
+  for (const f of [homesFile, roomsFile, casesFile, caseRoomsFile, readingsFile, inspectionsFile, summariesFile, assessmentsFile])
+    rmSync(f.file, { force: true });
 
   const officer = staff[0]!;
   return {
@@ -553,14 +834,25 @@ async function seed(ds: DataSource, db: { host: string; port: number; user: stri
 // ---------------------------------------------------------------------------------------------
 // Checking the seeded figures against the real TriageService.refresh
 
-const FIGURES = ["risk_state", "mould_index", "hhsrs_band", "hhsrs_category", "recurrence", "priority", "next_stage", "next_due_at", "triage_due_at"] as const;
+const FIGURES = [
+  "risk_state",
+  "mould_index",
+  "hhsrs_band",
+  "hhsrs_category",
+  "recurrence",
+  "priority",
+  "next_stage",
+  "next_due_at",
+  "triage_due_at",
+] as const;
 type Figures = Record<(typeof FIGURES)[number], unknown>;
 
 async function verifyFigures(ds: DataSource, seeded: Seeded): Promise<{ checked: number; open: number; moved: number }> {
   const config = loadConfig({ ...process.env, NODE_ENV: "test" });
   const triage = createServices(config, ds, createMailer(config), createLogger("silent")).triage;
   const sample = mulberry32(7);
-  const choose = (ids: number[], n: number) => Array.from({ length: Math.min(n, ids.length) }, () => ids[Math.floor(sample() * ids.length)]!);
+  const choose = (ids: number[], n: number) =>
+    Array.from({ length: Math.min(n, ids.length) }, () => ids[Math.floor(sample() * ids.length)]!);
   const ids = [...new Set([...choose(seeded.caseIds.open, 14), ...choose(seeded.caseIds.closed, 6)])];
   const read = async (id: number): Promise<Figures> => {
     const [row] = await ds.query(`SELECT ${FIGURES.join(", ")} FROM cases WHERE id = ?`, [id]);
@@ -581,11 +873,13 @@ async function verifyFigures(ds: DataSource, seeded: Seeded): Promise<{ checked:
       const a = before[f] instanceof Date ? (before[f] as Date).getTime() : before[f];
       const b = after[f] instanceof Date ? (after[f] as Date).getTime() : after[f];
       // triage_due_at is (due time − step) + 1 ms from either clock; floating point may move the last millisecond.
-      const same = f === "triage_due_at" && typeof a === "number" && typeof b === "number" ? Math.abs(a - b) <= 2 : String(a) === String(b);
+      const same =
+        f === "triage_due_at" && typeof a === "number" && typeof b === "number" ? Math.abs(a - b) <= 2 : String(a) === String(b);
       if (!same && !due) problems.push(`case ${id}: ${f} seeded ${String(before[f])}, refresh stored ${String(after[f])}`);
     }
   }
-  if (problems.length) throw new Error(`The seeded triage figures differ from TriageService.refresh:\n  ${problems.join("\n  ")}`);
+  if (problems.length)
+    throw new Error(`The seeded triage figures differ from TriageService.refresh:\n  ${problems.join("\n  ")}`);
   return { checked: ids.length - moved, open: ids.filter((id) => seeded.caseIds.open.includes(id)).length, moved };
 }
 
@@ -614,7 +908,12 @@ async function serveApp(): Promise<void> {
   process.send!({ port: (server.address() as AddressInfo).port });
 }
 
-async function startApp(db: { port: number; name: string; user: string; password: string }): Promise<{ child: ChildProcess; url: string; errors: string[] }> {
+async function startApp(db: {
+  port: number;
+  name: string;
+  user: string;
+  password: string;
+}): Promise<{ child: ChildProcess; url: string; errors: string[] }> {
   const child = spawn(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), SERVE_FLAG], {
     env: {
       ...process.env,
@@ -648,7 +947,11 @@ async function startApp(db: { port: number; name: string; user: string; password
 async function signIn(url: string, email: string): Promise<string> {
   const first = await fetch(`${url}/api/auth/csrf`);
   const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const cookieOf = (res: Response) => res.headers.getSetCookie().map((c) => c.split(";")[0]!).find((c) => c.startsWith("dewline.sid="));
+  const cookieOf = (res: Response) =>
+    res.headers
+      .getSetCookie()
+      .map((c) => c.split(";")[0]!)
+      .find((c) => c.startsWith("dewline.sid="));
   const res = await fetch(`${url}/api/auth/login`, {
     method: "POST",
     headers: { "content-type": "application/json", "x-csrf-token": csrfToken, cookie: cookieOf(first) ?? "" },
@@ -672,11 +975,18 @@ interface AutocannonResult {
 interface AutocannonInstance {
   on(event: "response", listener: (client: unknown, statusCode: number, bytes: number, responseTime: number) => void): void;
 }
-type Autocannon = (options: Record<string, unknown>, done: (error: Error | null, result: AutocannonResult) => void) => AutocannonInstance;
+type Autocannon = (
+  options: Record<string, unknown>,
+  done: (error: Error | null, result: AutocannonResult) => void,
+) => AutocannonInstance;
 // autocannon ships no type declarations; this is the part of its API used here.
 const autocannon = createRequire(import.meta.url)("autocannon") as Autocannon;
 
-async function loadApi(url: string, cookie: string, seconds: number): Promise<{ all: number[]; per: number[][]; result: AutocannonResult; firstFailure: string | null }> {
+async function loadApi(
+  url: string,
+  cookie: string,
+  seconds: number,
+): Promise<{ all: number[]; per: number[][]; result: AutocannonResult; firstFailure: string | null }> {
   const per: number[][] = SCENARIOS.map(() => []);
   const all: number[] = [];
   let last = -1;
@@ -731,7 +1041,11 @@ class CaptureLogger implements TypeOrmLogger {
 }
 
 /** The SELECT and the COUNT QueueService.list issues for each scenario, as TypeORM writes them. */
-async function captureQueueSql(ds: DataSource, capture: CaptureLogger, actor: Actor): Promise<{ list: CapturedQuery; count: CapturedQuery }[]> {
+async function captureQueueSql(
+  ds: DataSource,
+  capture: CaptureLogger,
+  actor: Actor,
+): Promise<{ list: CapturedQuery; count: CapturedQuery }[]> {
   const config = loadConfig({ ...process.env, NODE_ENV: "test" });
   const queue = createServices(config, ds, createMailer(config), createLogger("silent")).queue;
   const out: { list: CapturedQuery; count: CapturedQuery }[] = [];
@@ -740,16 +1054,23 @@ async function captureQueueSql(ds: DataSource, capture: CaptureLogger, actor: Ac
     capture.capturing = true;
     await queue.list(actor, queueQuerySchema.parse(Object.fromEntries(new URLSearchParams(s.query))));
     capture.capturing = false;
-    const list = capture.queries.find((q) => /^SELECT/.test(q.sql) && /\bLIMIT\b/.test(q.sql) && q.sql.includes("`p`.`address_line1`"));
+    const list = capture.queries.find(
+      (q) => /^SELECT/.test(q.sql) && /\bLIMIT\b/.test(q.sql) && q.sql.includes("`p`.`address_line1`"),
+    );
     const count = capture.queries.find((q) => /^SELECT COUNT\(\*\)/.test(q.sql));
-    if (!list || !count) throw new Error(`Could not find the queue queries for ${s.name} among:\n${capture.queries.map((q) => q.sql).join("\n")}`);
+    if (!list || !count)
+      throw new Error(`Could not find the queue queries for ${s.name} among:\n${capture.queries.map((q) => q.sql).join("\n")}`);
     out.push({ list, count });
   }
   return out;
 }
 
 /** 20 loops over a pool the size of the app's (poolSize 10), each running its scenario's SELECT and COUNT together, as QueueService does. */
-async function loadRaw(pool: mysql.Pool, queries: { list: CapturedQuery; count: CapturedQuery }[], seconds: number): Promise<{ all: number[]; per: number[][] }> {
+async function loadRaw(
+  pool: mysql.Pool,
+  queries: { list: CapturedQuery; count: CapturedQuery }[],
+  seconds: number,
+): Promise<{ all: number[]; per: number[][] }> {
   const per: number[][] = SCENARIOS.map(() => []);
   const all: number[] = [];
   const end = performance.now() + seconds * 1000;
@@ -771,7 +1092,12 @@ async function loadRaw(pool: mysql.Pool, queries: { list: CapturedQuery; count: 
 const SINGLE_RUNS = 30;
 
 /** Each scenario once in turn, SINGLE_RUNS times, through the API and as raw SQL: latency without queueing. */
-async function oneAtATime(url: string, cookie: string, pool: mysql.Pool, queries: { list: CapturedQuery; count: CapturedQuery }[]): Promise<{ api: number[][]; raw: number[][] }> {
+async function oneAtATime(
+  url: string,
+  cookie: string,
+  pool: mysql.Pool,
+  queries: { list: CapturedQuery; count: CapturedQuery }[],
+): Promise<{ api: number[][]; raw: number[][] }> {
   const api: number[][] = SCENARIOS.map(() => []);
   const raw: number[][] = SCENARIOS.map(() => []);
   for (let n = 0; n < SINGLE_RUNS; n++) {
@@ -793,7 +1119,8 @@ async function oneAtATime(url: string, cookie: string, pool: mysql.Pool, queries
 async function explain(pool: mysql.Pool, q: CapturedQuery): Promise<string[]> {
   const [rows] = await pool.query(`EXPLAIN ${q.sql}`, q.params);
   return (rows as Record<string, unknown>[]).map(
-    (r) => `${String(r.select_type).padEnd(18)} ${String(r.table).padEnd(6)} ${String(r.type).padEnd(7)} key=${String(r.key ?? "-")} rows≈${fmt(Number(r.rows ?? 0))} ${r.filtered !== undefined ? `filtered=${r.filtered}% ` : ""}${String(r.Extra ?? "")}`,
+    (r) =>
+      `${String(r.select_type).padEnd(18)} ${String(r.table).padEnd(6)} ${String(r.type).padEnd(7)} key=${String(r.key ?? "-")} rows≈${fmt(Number(r.rows ?? 0))} ${r.filtered !== undefined ? `filtered=${r.filtered}% ` : ""}${String(r.Extra ?? "")}`,
   );
 }
 
@@ -808,7 +1135,8 @@ function newestSource(): number {
     if (s.isDirectory()) for (const e of readdirSync(p)) walk(path.join(p, e));
     else newest = Math.max(newest, s.mtimeMs);
   };
-  for (const p of ["src", "index.html", "vite.config.ts", "package.json", "public"]) if (existsSync(path.join(projectRoot, p))) walk(path.join(projectRoot, p));
+  for (const p of ["src", "index.html", "vite.config.ts", "package.json", "public"])
+    if (existsSync(path.join(projectRoot, p))) walk(path.join(projectRoot, p));
   return newest;
 }
 
@@ -848,7 +1176,16 @@ async function renderTimes(url: string, cookie: string): Promise<{ cold: RenderT
   const browser = await chromium.launch({
     executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
     headless: true,
-    args: ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"],
+    args: [
+      "--headless",
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
   });
   const [name, ...rest] = cookie.split("=");
   const session = { name: name!, value: rest.join("="), url };
@@ -861,10 +1198,15 @@ async function renderTimes(url: string, cookie: string): Promise<{ cold: RenderT
         return await page.evaluate(() => {
           const ms = (globalThis as { __firstRowAt?: number }).__firstRowAt ?? Number.NaN;
           const entries = performance.getEntries();
-          const nav = entries.find((e) => (e.entryType as string) === "navigation") as unknown as { domContentLoadedEventEnd: number } | undefined;
+          const nav = entries.find((e) => (e.entryType as string) === "navigation") as unknown as
+            { domContentLoadedEventEnd: number } | undefined;
           const api = entries
             .filter((e) => (e.entryType as string) === "resource" && e.name.includes("/api/"))
-            .map((e) => ({ path: new URL(e.name).pathname + new URL(e.name).search, start: e.startTime, end: e.startTime + e.duration }));
+            .map((e) => ({
+              path: new URL(e.name).pathname + new URL(e.name).search,
+              start: e.startTime,
+              end: e.startTime + e.duration,
+            }));
           return { ms, domContentLoaded: nav?.domContentLoadedEventEnd ?? Number.NaN, api };
         });
       } finally {
@@ -924,7 +1266,8 @@ async function main(): Promise<void> {
       rmSync(dir, { recursive: true, force: true });
     })());
   // Ctrl-C stops what this run started, too.
-  for (const signal of ["SIGINT", "SIGTERM"] as const) process.once(signal, () => void cleanUp().finally(() => process.exit(130)));
+  for (const signal of ["SIGINT", "SIGTERM"] as const)
+    process.once(signal, () => void cleanUp().finally(() => process.exit(130)));
   try {
     await startMariaDb(instance);
     await ensureAppDatabase(instance, db);
@@ -932,7 +1275,9 @@ async function main(): Promise<void> {
     await ds.initialize();
     await ds.runMigrations({ transaction: "each" });
 
-    console.log(`Queue benchmark — ${fmt(CASES)} cases, ${fmt(READINGS)} readings, ${fmt(HOMES)} homes; ${CONNECTIONS} connections for ${DURATION_S} s; ${machine()}`);
+    console.log(
+      `Queue benchmark — ${fmt(CASES)} cases, ${fmt(READINGS)} readings, ${fmt(HOMES)} homes; ${CONNECTIONS} connections for ${DURATION_S} s; ${machine()}`,
+    );
     const seedStart = performance.now();
     const seeded = await seed(ds, db, dir, new Date());
     const seedMs = performance.now() - seedStart;
@@ -954,28 +1299,46 @@ async function main(): Promise<void> {
     for (const s of SCENARIOS) {
       const res = await fetch(`${app.url}/api/cases?${s.query}`, { headers: { cookie } });
       const body = (await res.json()) as { items: unknown[]; total: number };
-      if (res.status !== 200 || body.items.length === 0) throw new Error(`${s.name} answered ${res.status} with ${body.items?.length ?? 0} items.`);
-      console.log(`  ${s.name.padEnd(14)} GET /api/cases?${s.query.padEnd(42)} ${String(body.items.length).padStart(3)} items of ${fmt(body.total)}`);
+      if (res.status !== 200 || body.items.length === 0)
+        throw new Error(`${s.name} answered ${res.status} with ${body.items?.length ?? 0} items.`);
+      console.log(
+        `  ${s.name.padEnd(14)} GET /api/cases?${s.query.padEnd(42)} ${String(body.items.length).padStart(3)} items of ${fmt(body.total)}`,
+      );
     }
 
     // A short warm-up of each side (JIT, buffer pool, connection pools), then one request at a
     // time for a baseline, then the measured runs under load.
-    pool = mysql.createPool({ host: db.host, port: db.port, user: db.user, password: db.password, database: db.name, timezone: "Z", connectionLimit: 10, charset: "utf8mb4_unicode_ci" });
+    pool = mysql.createPool({
+      host: db.host,
+      port: db.port,
+      user: db.user,
+      password: db.password,
+      database: db.name,
+      timezone: "Z",
+      connectionLimit: 10,
+      charset: "utf8mb4_unicode_ci",
+    });
     await loadApi(app.url, cookie, WARM_UP_S);
     await loadRaw(pool, queries, WARM_UP_S);
     const single = await oneAtATime(app.url, cookie, pool, queries);
     const loadBefore = machine();
     const api = await loadApi(app.url, cookie, DURATION_S);
     const raw = await loadRaw(pool, queries, DURATION_S);
-    console.log(`Load runs: ${loadBefore} before, ${machine()} after (everything here shares these CPUs: app, MariaDB, autocannon and anything else running)`);
+    console.log(
+      `Load runs: ${loadBefore} before, ${machine()} after (everything here shares these CPUs: app, MariaDB, autocannon and anything else running)`,
+    );
 
     const r = api.result;
     console.log(
       `API: autocannon, ${CONNECTIONS} connections, ${DURATION_S} s after a ${WARM_UP_S} s warm-up, requests cycling through the four scenarios; ` +
         `${fmt(r.requests.total)} requests, ${fmt(r.requests.average)} requests/s, ${r.errors} errors, ${r.timeouts} timeouts, ${r.non2xx} non-2xx`,
     );
-    console.log(`Raw SQL: the SELECT and COUNT QueueService issues (captured from TypeORM), run together, ${CONNECTIONS} loops over a mysql2 pool of 10 (the app's poolSize), ${DURATION_S} s after a ${WARM_UP_S} s warm-up`);
-    console.log(`  ${"".padEnd(14)} ${"API p50".padStart(8)} ${"p95".padStart(7)} ${"p99".padStart(7)} ${"req/s".padStart(7)}   ${"raw p50".padStart(8)} ${"p95".padStart(7)} ${"p99".padStart(7)} ${"q/s".padStart(7)}   target: API p95 < 50 ms and ≤ 2 × raw p95 + 5 ms`);
+    console.log(
+      `Raw SQL: the SELECT and COUNT QueueService issues (captured from TypeORM), run together, ${CONNECTIONS} loops over a mysql2 pool of 10 (the app's poolSize), ${DURATION_S} s after a ${WARM_UP_S} s warm-up`,
+    );
+    console.log(
+      `  ${"".padEnd(14)} ${"API p50".padStart(8)} ${"p95".padStart(7)} ${"p99".padStart(7)} ${"req/s".padStart(7)}   ${"raw p50".padStart(8)} ${"p95".padStart(7)} ${"p99".padStart(7)} ${"q/s".padStart(7)}   target: API p95 < 50 ms and ≤ 2 × raw p95 + 5 ms`,
+    );
     const row = (name: string, a: Latencies, b: Latencies) => {
       const limit = Math.min(50, 2 * b.p95 + 5);
       const pass = a.p95 < 50 && a.p95 <= 2 * b.p95 + 5;
@@ -993,8 +1356,12 @@ async function main(): Promise<void> {
     }
     if (app.errors.length) console.log(`  the app logged errors; the first ones:\n    ${app.errors.join("\n    ")}`);
 
-    console.log(`One request at a time (${SINGLE_RUNS} of each in turn, after the warm-up): median API ms / raw SELECT ∥ COUNT ms`);
-    console.log(`  ${SCENARIOS.map((s, i) => `${s.name} ${ms1(median(single.api[i]!))} / ${ms1(median(single.raw[i]!))}`).join(";  ")}`);
+    console.log(
+      `One request at a time (${SINGLE_RUNS} of each in turn, after the warm-up): median API ms / raw SELECT ∥ COUNT ms`,
+    );
+    console.log(
+      `  ${SCENARIOS.map((s, i) => `${s.name} ${ms1(median(single.api[i]!))} / ${ms1(median(single.raw[i]!))}`).join(";  ")}`,
+    );
 
     console.log("EXPLAIN of each scenario's queries:");
     for (const [i, s] of SCENARIOS.entries()) {
@@ -1005,12 +1372,16 @@ async function main(): Promise<void> {
     }
 
     const render = await renderTimes(app.url, cookie);
-    console.log(`Queue page in headless Chromium (/queue, navigation start → first case row visible), ${RENDER_LOADS} loads each (${client}):`);
+    console.log(
+      `Queue page in headless Chromium (/queue, navigation start → first case row visible), ${RENDER_LOADS} loads each (${client}):`,
+    );
     const describe = (label: string, loads: RenderTiming[]) => {
       const sorted = [...loads].sort((a, b) => a.ms - b.ms);
       const mid = sorted[sorted.length >> 1]!;
       const calls = mid.api.map((a) => `${a.path.replace(/\?.*/, "")} ${a.start.toFixed(0)}–${a.end.toFixed(0)}`).join(", ");
-      console.log(`  ${label} median ${mid.ms.toFixed(0)} ms (${loads.map((l) => l.ms.toFixed(0)).join(", ")}); that load: DOMContentLoaded at ${mid.domContentLoaded.toFixed(0)} ms, API calls (ms) ${calls}`);
+      console.log(
+        `  ${label} median ${mid.ms.toFixed(0)} ms (${loads.map((l) => l.ms.toFixed(0)).join(", ")}); that load: DOMContentLoaded at ${mid.domContentLoaded.toFixed(0)} ms, API calls (ms) ${calls}`,
+      );
       return mid.ms;
     };
     const cold = describe("empty cache:", render.cold);

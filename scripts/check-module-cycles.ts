@@ -43,7 +43,11 @@ function visit(node: string): void {
       const circle = path.slice(path.indexOf(next));
       const start = circle.indexOf([...circle].sort()[0]);
       const ordered = [...circle.slice(start), ...circle.slice(0, start)];
-      cycles.add([...ordered, ordered[0]].map((m, i, all) => (i < all.length - 1 ? `${m} (${edges.get(m)!.get(all[i + 1])})` : m)).join(" → "));
+      cycles.add(
+        [...ordered, ordered[0]]
+          .map((m, i, all) => (i < all.length - 1 ? `${m} (${edges.get(m)!.get(all[i + 1])})` : m))
+          .join(" → "),
+      );
     } else if (!state.has(next)) visit(next);
   }
   path.pop();

@@ -12,7 +12,9 @@ if (command === "start") {
   await ensureSystemPackages([MARIADB]);
   const { pid, started } = await startMariaDb(instance);
   await ensureAppDatabase(instance, config.db);
-  console.log(`MariaDB ${started ? "started" : "already running"} (pid ${pid}) on 127.0.0.1:${instance.port}, data in ${projectDbDir}`);
+  console.log(
+    `MariaDB ${started ? "started" : "already running"} (pid ${pid}) on 127.0.0.1:${instance.port}, data in ${projectDbDir}`,
+  );
 } else if (command === "stop") {
   const stopped = await stopMariaDb(projectDbDir);
   console.log(stopped ? "MariaDB stopped." : "MariaDB was not running.");

@@ -17,8 +17,20 @@ const { started } = await startMariaDb(db);
 await ensureAppDatabase(db, config.db);
 console.log(await runSeed(config));
 
-const node = (args: string[]) => children.push(spawn(process.execPath, args, { cwd: projectRoot, stdio: "inherit", env: process.env }));
-node(["node_modules/maildev/bin/maildev", "--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "-s", String(config.smtp.port), "-w", String(config.smtp.webPort), "--silent"]);
+const node = (args: string[]) =>
+  children.push(spawn(process.execPath, args, { cwd: projectRoot, stdio: "inherit", env: process.env }));
+node([
+  "node_modules/maildev/bin/maildev",
+  "--ip",
+  "127.0.0.1",
+  "--web-ip",
+  "127.0.0.1",
+  "-s",
+  String(config.smtp.port),
+  "-w",
+  String(config.smtp.webPort),
+  "--silent",
+]);
 node(["--import", "tsx", "--watch", "server/server.ts"]);
 node(["node_modules/vite/bin/vite.js", "--port", "5173"]);
 console.log(`Dev client on http://127.0.0.1:5173 (API on ${config.appUrl}, mail on http://127.0.0.1:${config.smtp.webPort})`);

@@ -50,11 +50,23 @@ try {
   step(`Starting the mail catcher (SMTP 127.0.0.1:${config.smtp.port}, inbox on port ${config.smtp.webPort})…`);
   mailCatcher = spawn(
     process.execPath,
-    ["node_modules/maildev/bin/maildev", "--ip", "127.0.0.1", "--web-ip", "127.0.0.1", "-s", String(config.smtp.port), "-w", String(config.smtp.webPort), "--silent"],
+    [
+      "node_modules/maildev/bin/maildev",
+      "--ip",
+      "127.0.0.1",
+      "--web-ip",
+      "127.0.0.1",
+      "-s",
+      String(config.smtp.port),
+      "-w",
+      String(config.smtp.webPort),
+      "--silent",
+    ],
     { cwd: projectRoot, stdio: ["ignore", "ignore", "inherit"] },
   );
   mailCatcher.once("exit", (code) => {
-    if (code !== null && code !== 0) console.warn(`The mail catcher stopped (exit ${code}); is another one already using port ${config.smtp.port}?`);
+    if (code !== null && code !== 0)
+      console.warn(`The mail catcher stopped (exit ${code}); is another one already using port ${config.smtp.port}?`);
   });
 
   step("Migrating the database (npm run db:migrate)…");
@@ -74,7 +86,10 @@ try {
     await shutdown(1);
   });
   const local = config.host === "0.0.0.0" || config.host === "::" ? "127.0.0.1" : config.host;
-  await Promise.race([waitUntilReady(`http://${local.includes(":") ? `[${local}]` : local}:${config.port}/api/health/ready`), serverExit]);
+  await Promise.race([
+    waitUntilReady(`http://${local.includes(":") ? `[${local}]` : local}:${config.port}/api/health/ready`),
+    serverExit,
+  ]);
 
   const width = Math.max(...DEMO_ACCOUNTS.map((a) => a.email.length));
   console.log(`

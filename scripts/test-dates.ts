@@ -16,26 +16,53 @@ interface Moment {
   premise: () => string | null;
 }
 
-const london = (iso: string, options: Intl.DateTimeFormatOptions) => new Date(iso).toLocaleString("en-GB", { timeZone: "Europe/London", ...options });
+const london = (iso: string, options: Intl.DateTimeFormatOptions) =>
+  new Date(iso).toLocaleString("en-GB", { timeZone: "Europe/London", ...options });
 const weekday = (iso: string) => london(iso, { weekday: "long" });
 const zone = (iso: string) => london(iso, { timeZoneName: "short" }).split(" ").at(-1);
 const expect = (ok: boolean, message: string) => (ok ? null : message);
 
 const MOMENTS: Moment[] = [
-  { at: "2026-12-10T10:00:00Z", why: "a Thursday (16 and 17 days ahead are the same Monday)", premise: () => expect(weekday("2026-12-10T10:00:00Z") === "Thursday", "10 Dec 2026 is not a Thursday") },
+  {
+    at: "2026-12-10T10:00:00Z",
+    why: "a Thursday (16 and 17 days ahead are the same Monday)",
+    premise: () => expect(weekday("2026-12-10T10:00:00Z") === "Thursday", "10 Dec 2026 is not a Thursday"),
+  },
   {
     at: "2027-05-28T15:00:00+01:00",
     why: "a Friday before the Spring bank holiday (Mon 31 May 2027)",
     // date-holidays (through working-days.ts) says 31 May 2027 is a bank holiday in England and Wales.
-    premise: () => expect(weekday("2027-05-28T14:00:00Z") === "Friday" && bankHolidayDates(2027).includes("2027-05-31") && !isWorkingDay("2027-05-31"), "31 May 2027 is not a bank holiday after a Friday"),
+    premise: () =>
+      expect(
+        weekday("2027-05-28T14:00:00Z") === "Friday" &&
+          bankHolidayDates(2027).includes("2027-05-31") &&
+          !isWorkingDay("2027-05-31"),
+        "31 May 2027 is not a bank holiday after a Friday",
+      ),
   },
-  { at: "2026-12-24T16:00:00Z", why: "Christmas Eve (bank holidays 25, 28 Dec)", premise: () => expect(bankHolidayDates(2026).includes("2026-12-25") && !isWorkingDay("2026-12-28"), "no bank holidays after 24 Dec 2026") },
+  {
+    at: "2026-12-24T16:00:00Z",
+    why: "Christmas Eve (bank holidays 25, 28 Dec)",
+    premise: () =>
+      expect(bankHolidayDates(2026).includes("2026-12-25") && !isWorkingDay("2026-12-28"), "no bank holidays after 24 Dec 2026"),
+  },
   {
     at: "2027-10-30T22:30:00+01:00",
     why: "the Saturday night before the clocks go back (Sun 31 Oct 2027)",
-    premise: () => expect(weekday("2027-10-30T21:30:00Z") === "Saturday" && zone("2027-10-30T21:30:00Z") === "BST" && zone("2027-10-31T01:30:00Z") === "GMT" && localDate(new Date("2027-10-31T01:30:00Z")) === "2027-10-31", "London does not leave BST on 31 Oct 2027"),
+    premise: () =>
+      expect(
+        weekday("2027-10-30T21:30:00Z") === "Saturday" &&
+          zone("2027-10-30T21:30:00Z") === "BST" &&
+          zone("2027-10-31T01:30:00Z") === "GMT" &&
+          localDate(new Date("2027-10-31T01:30:00Z")) === "2027-10-31",
+        "London does not leave BST on 31 Oct 2027",
+      ),
   },
-  { at: "2028-02-29T09:00:00Z", why: "29 February of a leap year", premise: () => expect(localDate(new Date("2028-02-29T09:00:00Z")) === "2028-02-29", "2028-02-29 is not a date") },
+  {
+    at: "2028-02-29T09:00:00Z",
+    why: "29 February of a leap year",
+    premise: () => expect(localDate(new Date("2028-02-29T09:00:00Z")) === "2028-02-29", "2028-02-29 is not a date"),
+  },
 ];
 
 /** The suites whose results depend on "now": deadlines, working days, bookings, the queue's figures, tokens, readings. */
@@ -79,7 +106,19 @@ try {
     const started = performance.now();
     const code = await runForExitCode(
       process.execPath,
-      ["node_modules/vitest/vitest.mjs", "run", "--project", "domain", "--project", "server", "--reporter=dot", "--reporter=json", `--outputFile.json=${report}`, ...DATE_SENSITIVE, ...process.argv.slice(2)],
+      [
+        "node_modules/vitest/vitest.mjs",
+        "run",
+        "--project",
+        "domain",
+        "--project",
+        "server",
+        "--reporter=dot",
+        "--reporter=json",
+        `--outputFile.json=${report}`,
+        ...DATE_SENSITIVE,
+        ...process.argv.slice(2),
+      ],
       { cwd: projectRoot, env: { ...process.env, NODE_ENV: "test", TEST_NOW: m.at } },
     );
     const seconds = Math.round((performance.now() - started) / 1000);
@@ -91,7 +130,9 @@ try {
       // vitest failed before writing its report; the exit code says so.
     }
     if (code !== 0) failed += 1;
-    lines.push(`${code === 0 ? "PASS" : "FAIL"}  TEST_NOW=${m.at.padEnd(25)} ${counts.padEnd(28)} ${String(seconds).padStart(4)} s  ${m.why}`);
+    lines.push(
+      `${code === 0 ? "PASS" : "FAIL"}  TEST_NOW=${m.at.padEnd(25)} ${counts.padEnd(28)} ${String(seconds).padStart(4)} s  ${m.why}`,
+    );
   }
 } finally {
   rmSync(scratch, { recursive: true, force: true });

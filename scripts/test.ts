@@ -20,7 +20,15 @@ rmSync(path.join(projectRoot, "dist-server"), { recursive: true, force: true });
 await runStep(process.execPath, ["node_modules/typescript/bin/tsc", "-p", "server/tsconfig.build.json"], { cwd: projectRoot });
 // Production runs this output without tsx: loading every module (no connection, no listening) catches
 // what only the compiled code can get wrong, such as entity classes read before they are defined.
-await runStep(process.execPath, ["--input-type=module", "-e", "await import('./dist-server/server/app.js'); await import('./dist-server/server/app-context.js');"], { cwd: projectRoot });
+await runStep(
+  process.execPath,
+  [
+    "--input-type=module",
+    "-e",
+    "await import('./dist-server/server/app.js'); await import('./dist-server/server/app-context.js');",
+  ],
+  { cwd: projectRoot },
+);
 step("Building the client for the browser tests…");
 await runStep(process.execPath, ["node_modules/vite/bin/vite.js", "build", "--logLevel", "warn"], { cwd: projectRoot });
 step("Running the tests…");

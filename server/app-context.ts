@@ -60,7 +60,13 @@ export interface AppContext {
   close(): Promise<void>;
 }
 
-export function createServices(config: Config, dataSource: DataSource, mailer: Mailer, logger: Logger, clock: Clock = systemClock): Services {
+export function createServices(
+  config: Config,
+  dataSource: DataSource,
+  mailer: Mailer,
+  logger: Logger,
+  clock: Clock = systemClock,
+): Services {
   const mail = new MailService(dataSource, mailer, logger, clock);
   const properties = new PropertyService(dataSource);
   const tenancies = new TenancyService(dataSource, properties, clock);
@@ -80,7 +86,26 @@ export function createServices(config: Config, dataSource: DataSource, mailer: M
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
-  return { assessments, inspections, policy, auth, cases, evaluation, imports, mail, photos, properties, queue, readings, tenancies, triage, users, digest, works, verification };
+  return {
+    assessments,
+    inspections,
+    policy,
+    auth,
+    cases,
+    evaluation,
+    imports,
+    mail,
+    photos,
+    properties,
+    queue,
+    readings,
+    tenancies,
+    triage,
+    users,
+    digest,
+    works,
+    verification,
+  };
 }
 
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */

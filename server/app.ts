@@ -91,15 +91,38 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/auth", createAuthRouter({ config, auth: services.auth, passport, csrfToken: generateToken }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
-  api.use("/cases", requireAuth, createTriageRouter({ cases: services.cases, queue: services.queue, triage: services.triage, clock }));
+  api.use(
+    "/cases",
+    requireAuth,
+    createTriageRouter({ cases: services.cases, queue: services.queue, triage: services.triage, clock }),
+  );
   api.use("/cases", createCasesRouter({ cases: services.cases }));
   api.use("/cases", createCasePhotosRouter({ cases: services.cases, photos: services.photos }));
-  api.use("/cases", createReadingsRouter({ cases: services.cases, readings: services.readings, imports: services.imports, evaluation: services.evaluation }));
+  api.use(
+    "/cases",
+    createReadingsRouter({
+      cases: services.cases,
+      readings: services.readings,
+      imports: services.imports,
+      evaluation: services.evaluation,
+    }),
+  );
   api.use("/cases", createEvaluationRouter({ evaluation: services.evaluation }));
   api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
-  api.use("/cases", createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy, clock }));
-  api.use("/cases", requireAuth, createCaseWorksRouter({ works: services.works, verification: services.verification, photos: services.photos }));
-  api.use("/work-orders", requireAuth, createWorkOrdersRouter({ works: services.works, verification: services.verification, photos: services.photos }));
+  api.use(
+    "/cases",
+    createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy, clock }),
+  );
+  api.use(
+    "/cases",
+    requireAuth,
+    createCaseWorksRouter({ works: services.works, verification: services.verification, photos: services.photos }),
+  );
+  api.use(
+    "/work-orders",
+    requireAuth,
+    createWorkOrdersRouter({ works: services.works, verification: services.verification, photos: services.photos }),
+  );
   api.use("/contractors", requireAuth, createContractorsRouter({ works: services.works }));
   api.use("/policy", createPolicyRouter({ policy: services.policy }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
@@ -118,7 +141,10 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     app.get("/{*splat}", (_req, res) => res.sendFile(indexHtml));
   } else {
     app.get("/{*splat}", (_req, res) => {
-      res.status(503).type("text").send("The Dewline client has not been built yet: run `npm run build` (npm start does this for you).");
+      res
+        .status(503)
+        .type("text")
+        .send("The Dewline client has not been built yet: run `npm run build` (npm start does this for you).");
     });
   }
 

@@ -11,7 +11,10 @@ const dataSource = createDataSource(config.db);
 try {
   await dataSource.initialize();
   const ran = await migrateToLatest(dataSource);
-  logger.info({ migrations: ran }, ran.length ? `ran ${ran.length} migration(s)` : "the database was already at the latest migration");
+  logger.info(
+    { migrations: ran },
+    ran.length ? `ran ${ran.length} migration(s)` : "the database was already at the latest migration",
+  );
 } catch (error) {
   logger.fatal({ err: error }, "migration failed");
   process.exitCode = 1;

@@ -95,21 +95,13 @@ export async function startMariaDb(instance: MariaDbInstance, timeoutMs = 30_000
     rmSync(p.data, { recursive: true, force: true });
     await run(
       "mariadb-install-db",
-      [
-        "--no-defaults",
-        `--datadir=${p.data}`,
-        "--user=root",
-        "--auth-root-authentication-method=socket",
-        "--skip-test-db",
-      ],
+      ["--no-defaults", `--datadir=${p.data}`, "--user=root", "--auth-root-authentication-method=socket", "--skip-test-db"],
       { maxBuffer: 16 * 1024 * 1024 },
     );
   }
   if (existing === null) {
     if (!(await portIsFree(instance.port))) {
-      throw new Error(
-        `Port ${instance.port} on 127.0.0.1 is already in use by another program; set DB_PORT to a free port.`,
-      );
+      throw new Error(`Port ${instance.port} on 127.0.0.1 is already in use by another program; set DB_PORT to a free port.`);
     }
     const logFd = openSync(p.log, "a");
     const child = spawn(

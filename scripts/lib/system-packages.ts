@@ -10,7 +10,10 @@ export interface SystemNeed {
   packages: string[];
 }
 
-export const MARIADB: SystemNeed = { commands: ["mariadbd", "mariadb-install-db", "mariadb-admin", "mariadb"], packages: ["mariadb-server", "mariadb-client"] };
+export const MARIADB: SystemNeed = {
+  commands: ["mariadbd", "mariadb-install-db", "mariadb-admin", "mariadb"],
+  packages: ["mariadb-server", "mariadb-client"],
+};
 export const CHROMIUM: SystemNeed = { commands: ["chromium"], packages: ["chromium", "fonts-dejavu-core"] };
 
 async function onPath(command: string): Promise<boolean> {

@@ -23,8 +23,14 @@ const schema = z
     APP_URL: z.url().optional(),
     DB_HOST: z.string().default("127.0.0.1"),
     DB_PORT: port.default(13306),
-    DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/).default("dewline"),
-    DB_USER: z.string().regex(/^[A-Za-z0-9_]+$/).default("dewline"),
+    DB_NAME: z
+      .string()
+      .regex(/^[A-Za-z0-9_]+$/)
+      .default("dewline"),
+    DB_USER: z
+      .string()
+      .regex(/^[A-Za-z0-9_]+$/)
+      .default("dewline"),
     DB_PASSWORD: z.string().min(1).optional(),
     SESSION_SECRET: z.string().min(32).optional(),
     SMTP_HOST: z.string().default("127.0.0.1"),

@@ -20,4 +20,26 @@ import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
 
-export const entities = [Organisation, User, UserToken, Property, Room, Tenancy, OutboxEmail, Case, CaseEvent, Photo, Reading, ReadingImport, HhsrsAssessmentRecord, Inspection, WrittenSummary, DeadlinePolicyRecord, DeadlineDigest, WorkOrder, WorkOrderBooking, OperativeSlot, Contractor];
+export const entities = [
+  Organisation,
+  User,
+  UserToken,
+  Property,
+  Room,
+  Tenancy,
+  OutboxEmail,
+  Case,
+  CaseEvent,
+  Photo,
+  Reading,
+  ReadingImport,
+  HhsrsAssessmentRecord,
+  Inspection,
+  WrittenSummary,
+  DeadlinePolicyRecord,
+  DeadlineDigest,
+  WorkOrder,
+  WorkOrderBooking,
+  OperativeSlot,
+  Contractor,
+];

@@ -11,4 +11,15 @@ import { DeadlineDigests1796189021283 } from "./migrations/1796189021283-Deadlin
 import { WorkOrders1796191882151 } from "./migrations/1796191882151-WorkOrders.js";
 import { QueueFilterIndex1796192104532 } from "./migrations/1796192104532-QueueFilterIndex.js";
 
-export const migrations = [Foundation1796180785107, CasesPhotosReadings1796181981716, CaseAssigneeAndHazardClass1796184941727, HhsrsAssessments1796185629417, InspectionsAndSummaries1796185801114, DeadlinePolicies1796186425570, TriageFigures1796188877489, DeadlineDigests1796189021283, WorkOrders1796191882151, QueueFilterIndex1796192104532];
+export const migrations = [
+  Foundation1796180785107,
+  CasesPhotosReadings1796181981716,
+  CaseAssigneeAndHazardClass1796184941727,
+  HhsrsAssessments1796185629417,
+  InspectionsAndSummaries1796185801114,
+  DeadlinePolicies1796186425570,
+  TriageFigures1796188877489,
+  DeadlineDigests1796189021283,
+  WorkOrders1796191882151,
+  QueueFilterIndex1796192104532,
+];

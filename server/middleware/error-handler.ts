@@ -13,15 +13,24 @@ interface HttpLikeError {
 /** Errors from libraries (body parser, CSRF, multer) that carry their own HTTP meaning. */
 function fromLibrary(err: HttpLikeError & { name?: string; field?: string }): AppError | null {
   if (err.name === "MulterError") {
-    if (err.code === "LIMIT_FILE_SIZE") return new AppError(413, "payload_too_large", "A file is too large: each photo can be at most 15 MB.");
+    if (err.code === "LIMIT_FILE_SIZE")
+      return new AppError(413, "payload_too_large", "A file is too large: each photo can be at most 15 MB.");
     if (err.code === "LIMIT_FILE_COUNT") return new AppError(400, "too_many_files", "Send at most 10 photos at a time.");
     if (err.code === "LIMIT_UNEXPECTED_FILE") {
-      return new AppError(400, "too_many_files", `Unexpected file field "${err.field ?? ""}", or too many files: send at most 10 photos at a time in the "photos" field.`);
+      return new AppError(
+        400,
+        "too_many_files",
+        `Unexpected file field "${err.field ?? ""}", or too many files: send at most 10 photos at a time in the "photos" field.`,
+      );
     }
     return new AppError(400, "bad_upload", "The upload could not be read. Please try again.");
   }
   if (err.code === "EBADCSRFTOKEN" || err.code === "csrf_invalid") {
-    return new AppError(403, "csrf_invalid", "The security token of this request is missing or out of date. Reload the page and try again.");
+    return new AppError(
+      403,
+      "csrf_invalid",
+      "The security token of this request is missing or out of date. Reload the page and try again.",
+    );
   }
   if (err.type === "entity.parse.failed") return new AppError(400, "invalid_json", "The request body is not valid JSON.");
   if (err.type === "entity.too.large") return new AppError(413, "payload_too_large", "The request body is too large.");
@@ -43,7 +52,8 @@ export function errorHandler(showInternals: boolean): ErrorRequestHandler {
       res.status(500).json({
         error: {
           code: "internal",
-          message: "Something went wrong on our side. Please try again; if it keeps happening, tell your landlord's support team.",
+          message:
+            "Something went wrong on our side. Please try again; if it keeps happening, tell your landlord's support team.",
           // The same id is in the X-Request-Id header and the log line of the error.
           requestId: req.id === undefined ? undefined : String(req.id),
           ...(showInternals ? { details: { message: String(err?.message ?? err), stack: err?.stack } } : {}),

@@ -24,10 +24,14 @@ export function limiter(o: LimitOptions): RequestHandler {
       const reset = (req as AugmentedRequest).rateLimit?.resetTime?.getTime() ?? Date.now() + o.windowMs;
       const retryAfterSeconds = Math.max(1, Math.ceil((reset - Date.now()) / 1000));
       const minutes = Math.ceil(retryAfterSeconds / 60);
-      next(new TooManyRequestsError(`${o.message} Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.`, retryAfterSeconds));
+      next(
+        new TooManyRequestsError(`${o.message} Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.`, retryAfterSeconds),
+      );
     },
   });
 }
 
 export const accountKey = (req: Request) =>
-  `account:${String((req.body as { email?: unknown } | undefined)?.email ?? "").trim().toLowerCase()}`;
+  `account:${String((req.body as { email?: unknown } | undefined)?.email ?? "")
+    .trim()
+    .toLowerCase()}`;

@@ -93,7 +93,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             gate(["officer"], [page("queue", () => import("./routes/staff/queue"))]),
             gate(["maintenance"], [page("works", () => import("./routes/staff/works"))]),
             gate(STAFF, [page("homes", () => import("./routes/staff/homes"))]),
-            gate(["admin"], [page("admin", () => import("./routes/admin/users")), page("admin/policy", () => import("./routes/admin/policy"))]),
+            gate(
+              ["admin"],
+              [page("admin", () => import("./routes/admin/users")), page("admin/policy", () => import("./routes/admin/policy"))],
+            ),
           ],
         },
       ],

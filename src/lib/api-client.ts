@@ -26,7 +26,8 @@ export class ApiError extends Error {
   get fieldErrors(): ApiErrorDetail[] {
     if (!Array.isArray(this.details)) return [];
     return this.details.filter(
-      (d): d is ApiErrorDetail => typeof d === "object" && d !== null && typeof d.field === "string" && typeof d.message === "string",
+      (d): d is ApiErrorDetail =>
+        typeof d === "object" && d !== null && typeof d.field === "string" && typeof d.message === "string",
     );
   }
 }
@@ -153,9 +154,12 @@ async function request<T>(method: string, path: string, options: RequestOptions)
 
 export const api = {
   get: <T>(path: string, options: Omit<RequestOptions, "body"> = {}) => request<T>("GET", path, options),
-  post: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) => request<T>("POST", path, { ...options, body }),
-  put: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) => request<T>("PUT", path, { ...options, body }),
-  patch: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) => request<T>("PATCH", path, { ...options, body }),
+  post: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) =>
+    request<T>("POST", path, { ...options, body }),
+  put: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) =>
+    request<T>("PUT", path, { ...options, body }),
+  patch: <T>(path: string, body?: unknown, options: Omit<RequestOptions, "body"> = {}) =>
+    request<T>("PATCH", path, { ...options, body }),
   delete: <T>(path: string, options: Omit<RequestOptions, "body"> = {}) => request<T>("DELETE", path, options),
 };
 

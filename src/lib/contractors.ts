@@ -7,7 +7,6 @@ import { contractorKeys } from "@/lib/query-keys";
 
 export type Contractor = ContractorResponse;
 
-
 export const getContractors = async (signal?: AbortSignal): Promise<Contractor[]> =>
   (await api.get<{ contractors: Contractor[] }>("/contractors", { signal })).contractors;
 

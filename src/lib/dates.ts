@@ -40,7 +40,14 @@ const calendarDayMonthYear = calendar({ day: "numeric", month: "long", year: "nu
 const dayMonthYear = london({ day: "numeric", month: "long", year: "numeric" });
 const dayMonthYearShort = london({ day: "numeric", month: "short", year: "numeric" });
 const dateTime = london({ day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" });
-const dateTimeZone = london({ day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", timeZoneName: "short" });
+const dateTimeZone = london({
+  day: "numeric",
+  month: "short",
+  year: "numeric",
+  hour: "2-digit",
+  minute: "2-digit",
+  timeZoneName: "short",
+});
 const weekdayDateTimeZone = london({
   weekday: "short",
   day: "numeric",

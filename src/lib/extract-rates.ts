@@ -25,8 +25,20 @@ const CONTINUOUS_SOURCE = "Approved Document F (England, 2021), Vol. 1, continuo
 
 /** Intermittent extract: the fan runs while the room is in use (and a while after). */
 export const INTERMITTENT_EXTRACT_RATES: readonly ExtractRate[] = [
-  { room: "kitchen", label: "Kitchen", litresPerSecond: 30, condition: "with a cooker hood extracting outside", source: INTERMITTENT_SOURCE },
-  { room: "kitchen", label: "Kitchen", litresPerSecond: 60, condition: "without such a cooker hood", source: INTERMITTENT_SOURCE },
+  {
+    room: "kitchen",
+    label: "Kitchen",
+    litresPerSecond: 30,
+    condition: "with a cooker hood extracting outside",
+    source: INTERMITTENT_SOURCE,
+  },
+  {
+    room: "kitchen",
+    label: "Kitchen",
+    litresPerSecond: 60,
+    condition: "without such a cooker hood",
+    source: INTERMITTENT_SOURCE,
+  },
   { room: "utility", label: "Utility room", litresPerSecond: 30, source: INTERMITTENT_SOURCE },
   { room: "bathroom", label: "Bathroom", litresPerSecond: 15, source: INTERMITTENT_SOURCE },
   { room: "wc", label: "WC", litresPerSecond: 6, source: INTERMITTENT_SOURCE },

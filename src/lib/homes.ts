@@ -2,9 +2,25 @@
 import type { PropertyResponse, PropertySummaryResponse, RoomResponse } from "./contracts/properties.js";
 
 export const BUILT_FORMS = ["detached", "semi-detached", "end-terrace", "mid-terrace", "flat", "maisonette", "bungalow"] as const;
-export const WALL_TYPES = ["solid-brick", "solid-stone", "unfilled-cavity", "filled-cavity", "system-built", "timber-frame", "insulated"] as const;
+export const WALL_TYPES = [
+  "solid-brick",
+  "solid-stone",
+  "unfilled-cavity",
+  "filled-cavity",
+  "system-built",
+  "timber-frame",
+  "insulated",
+] as const;
 export const GLAZING_TYPES = ["single", "old-double", "modern-double", "triple", "mixed"] as const;
-export const HEATING_TYPES = ["gas-boiler", "electric-storage", "electric-direct", "heat-pump", "district", "other", "none"] as const;
+export const HEATING_TYPES = [
+  "gas-boiler",
+  "electric-storage",
+  "electric-direct",
+  "heat-pump",
+  "district",
+  "other",
+  "none",
+] as const;
 export const ROOM_KINDS = ["bedroom", "living", "kitchen", "bathroom", "other"] as const;
 
 export type BuiltForm = (typeof BUILT_FORMS)[number];

@@ -39,7 +39,8 @@ export function usePatchSearchParams(defaults: SearchPatch = noDefaults) {
         (prev) => {
           const next = new URLSearchParams(pending.current ?? prev);
           for (const [key, value] of Object.entries(patch)) {
-            if (value === undefined || value === null || value === "" || String(value) === String(defaults[key] ?? "")) next.delete(key);
+            if (value === undefined || value === null || value === "" || String(value) === String(defaults[key] ?? ""))
+              next.delete(key);
             else next.set(key, String(value));
           }
           pending.current = next;

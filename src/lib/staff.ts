@@ -7,8 +7,8 @@ import { staffKeys } from "@/lib/query-keys";
 
 export type { StaffMember };
 
-
-export const getStaff = async (signal?: AbortSignal): Promise<StaffMember[]> => (await api.get<{ users: StaffMember[] }>("/staff", { signal })).users;
+export const getStaff = async (signal?: AbortSignal): Promise<StaffMember[]> =>
+  (await api.get<{ users: StaffMember[] }>("/staff", { signal })).users;
 
 export const staffQueryOptions = () =>
   queryOptions({

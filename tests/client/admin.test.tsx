@@ -6,9 +6,33 @@ import { apiError, makeProperty, mockApi, users } from "./support/api-mock";
 import { renderApp } from "./support/render-app";
 
 const people = [
-  { id: 1, email: "admin@example.org", name: "Morgan Castell", role: "admin", status: "active", lastSignInAt: "2025-12-02T09:15:00.000Z", createdAt: "2025-01-01T00:00:00.000Z" },
-  { id: 2, email: "officer@example.org", name: "Priya Venn", role: "officer", status: "active", lastSignInAt: null, createdAt: "2025-01-01T00:00:00.000Z" },
-  { id: 5, email: "new@example.org", name: "Sam Newell", role: "tenant", status: "invited", lastSignInAt: null, createdAt: "2025-11-30T00:00:00.000Z" },
+  {
+    id: 1,
+    email: "admin@example.org",
+    name: "Morgan Castell",
+    role: "admin",
+    status: "active",
+    lastSignInAt: "2025-12-02T09:15:00.000Z",
+    createdAt: "2025-01-01T00:00:00.000Z",
+  },
+  {
+    id: 2,
+    email: "officer@example.org",
+    name: "Priya Venn",
+    role: "officer",
+    status: "active",
+    lastSignInAt: null,
+    createdAt: "2025-01-01T00:00:00.000Z",
+  },
+  {
+    id: 5,
+    email: "new@example.org",
+    name: "Sam Newell",
+    role: "tenant",
+    status: "invited",
+    lastSignInAt: null,
+    createdAt: "2025-11-30T00:00:00.000Z",
+  },
 ];
 
 function setup() {
@@ -25,7 +49,9 @@ function setup() {
     },
     "GET /api/properties": (call) => ({
       body: {
-        items: call.search.get("q") ? [makeProperty(7, { addressLine1: "7 Heron Walk", addressLine2: null })] : [makeProperty(1), makeProperty(2)],
+        items: call.search.get("q")
+          ? [makeProperty(7, { addressLine1: "7 Heron Walk", addressLine2: null })]
+          : [makeProperty(1), makeProperty(2)],
         total: call.search.get("q") ? 1 : 2,
         page: 1,
         pageSize: 20,
@@ -81,7 +107,9 @@ describe("Users and invitations", () => {
 
     await user.click(inForm.getByRole("button", { name: "Send invitation" }));
     expect(inForm.getByLabelText("Name")).toHaveAccessibleDescription("Enter the person's name.");
-    expect(inForm.getByRole("combobox", { name: "Choose the home" })).toHaveAccessibleDescription(/Choose the home this tenant lives in\./);
+    expect(inForm.getByRole("combobox", { name: "Choose the home" })).toHaveAccessibleDescription(
+      /Choose the home this tenant lives in\./,
+    );
 
     await user.type(inForm.getByLabelText("Name"), "Alex Heron");
     await user.type(inForm.getByLabelText("E-mail address"), "alex@example.org");
@@ -108,6 +136,10 @@ describe("Users and invitations", () => {
     await user.click(inForm.getByRole("button", { name: "Send invitation" }));
 
     expect(await inForm.findByRole("alert")).toHaveTextContent("Someone with that e-mail address already has an account.");
-    expect(callsTo("POST", "/api/auth/invitations")[1]!.body).toEqual({ name: "Priya Again", email: "officer@example.org", role: "officer" });
+    expect(callsTo("POST", "/api/auth/invitations")[1]!.body).toEqual({
+      name: "Priya Again",
+      email: "officer@example.org",
+      role: "officer",
+    });
   });
 });

@@ -8,7 +8,17 @@ describe("api client", () => {
   it("fetches the CSRF token once and sends it on every state-changing request", async () => {
     const { callsTo } = mockApi({
       "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },
-      "PATCH /api/users/7": { body: { id: 7, email: "dale@example.org", name: "Dale Whitcombe", role: "maintenance", status: "disabled", lastSignInAt: null, createdAt: "2026-01-04T10:00:00.000Z" } },
+      "PATCH /api/users/7": {
+        body: {
+          id: 7,
+          email: "dale@example.org",
+          name: "Dale Whitcombe",
+          role: "maintenance",
+          status: "disabled",
+          lastSignInAt: null,
+          createdAt: "2026-01-04T10:00:00.000Z",
+        },
+      },
       "GET /api/users": { body: { items: [], total: 0, page: 1, pageSize: 25 } },
     });
 
@@ -32,7 +42,11 @@ describe("api client", () => {
       "POST /api/auth/invitations": (call) =>
         call.headers.get("X-CSRF-Token") === "token-2"
           ? { status: 201, body: { userId: 9, expiresAt: "2026-01-04T10:00:00.000Z" } }
-          : apiError(403, "csrf_invalid", "The security token of this request is missing or out of date. Reload the page and try again."),
+          : apiError(
+              403,
+              "csrf_invalid",
+              "The security token of this request is missing or out of date. Reload the page and try again.",
+            ),
     });
 
     const result = await api.post("/auth/invitations", { email: "a@example.org", name: "A", role: "officer" });
@@ -82,7 +96,12 @@ describe("api client", () => {
     const details = [{ field: "email", message: "Enter a valid e-mail address, like name@example.org." }];
     mockApi({
       "GET /api/auth/csrf": { body: { csrfToken: "t" } },
-      "POST /api/auth/password-reset": apiError(400, "validation_failed", "email: Enter a valid e-mail address, like name@example.org.", details),
+      "POST /api/auth/password-reset": apiError(
+        400,
+        "validation_failed",
+        "email: Enter a valid e-mail address, like name@example.org.",
+        details,
+      ),
     });
 
     const error = (await api.post("/auth/password-reset", { email: "nope" }).catch((e: unknown) => e)) as ApiError;

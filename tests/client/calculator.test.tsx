@@ -118,11 +118,20 @@ describe("dew point calculator", () => {
 
 describe("risk panel on its own", () => {
   it("names the state in words, with a heading when given a title, and folds the reasons away when compact", () => {
-    const result = evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 60, surfaceTemperatureC: 16, outdoorTemperatureC: 0 });
+    const result = evaluatePoint({
+      airTemperatureC: 20,
+      relativeHumidityPct: 60,
+      surfaceTemperatureC: 16,
+      outdoorTemperatureC: 0,
+    });
     render(<RiskPanel result={result} title="Bedroom window" headingLevel={3} compact />);
     const panel = screen.getByRole("region", { name: "Bedroom window" });
     expect(within(panel).getByRole("heading", { level: 3, name: "Bedroom window" })).toBeInTheDocument();
-    expect(within(panel).getByText(/Surface state:/).closest("p")).toHaveTextContent("Surface state: Borderline");
+    expect(
+      within(panel)
+        .getByText(/Surface state:/)
+        .closest("p"),
+    ).toHaveTextContent("Surface state: Borderline");
     // Measured factor (16 − 0)/(20 − 0) = 0.80, at or above BRE IP 1/06's 0.75 (TRADE.md §2), yet the surface is at 77 % RH:
     // borderline, consistent with the ISO 13788 worked example (20 °C / 60 % / 0 °C needs fRsi ≥ 0.77).
     const factorTerm = within(panel).getByText("Temperature factor", { selector: "dt" });

@@ -28,7 +28,14 @@ const aCase = (id: number, status: string, createdAt: string, rooms: typeof home
   area: null,
   vulnerability: null,
   equipment: null,
-  property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX3 1AA", estate: "Millbeck Terraces" },
+  property: {
+    id: 5,
+    addressLine1: "1 Tanner Row",
+    addressLine2: null,
+    town: "Easterby",
+    postcode: "ZX3 1AA",
+    estate: "Millbeck Terraces",
+  },
   rooms,
   homeRooms,
   photoCount: 0,
@@ -75,7 +82,11 @@ describe("my reports", () => {
   });
 
   it("puts the report button and the newest reports on My home", async () => {
-    mockApi({ "GET /api/auth/me": { body: users.tenant }, "GET /api/me/home": { body: myHome }, "GET /api/me/cases": { body: { items: cases } } });
+    mockApi({
+      "GET /api/auth/me": { body: users.tenant },
+      "GET /api/me/home": { body: myHome },
+      "GET /api/me/cases": { body: { items: cases } },
+    });
     renderApp("/home");
     expect(await screen.findByRole("heading", { level: 1, name: "My home" })).toBeInTheDocument();
     expect(await screen.findByRole("link", { name: "Report damp or mould" })).toHaveAttribute("href", "/report");

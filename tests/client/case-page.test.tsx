@@ -30,7 +30,14 @@ const theCase = {
   area: "a4",
   vulnerability: ["children-under-15"],
   equipment: { heatingUsable: "yes", extractorFanWorks: "none-fitted" },
-  property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX3 1AA", estate: "Millbeck Terraces" },
+  property: {
+    id: 5,
+    addressLine1: "1 Tanner Row",
+    addressLine2: null,
+    town: "Easterby",
+    postcode: "ZX3 1AA",
+    estate: "Millbeck Terraces",
+  },
   rooms: [{ id: 2, name: "Bedroom 1", kind: "bedroom" }],
   homeRooms,
 };
@@ -39,7 +46,14 @@ const tenantActor = { name: users.tenant.name, role: "tenant" };
 const officer = { name: "Priya Venn", role: "officer" };
 const events = [
   { id: 1, type: "case-created", at: "2026-01-10T08:00:00.000Z", actor: tenantActor, before: null, after: null },
-  { id: 2, type: "email-queued", at: "2026-01-10T08:00:01.000Z", actor: null, before: null, after: { outboxId: 9, to: "officers@example.org", template: "case-new" } },
+  {
+    id: 2,
+    type: "email-queued",
+    at: "2026-01-10T08:00:01.000Z",
+    actor: null,
+    before: null,
+    after: { outboxId: 9, to: "officers@example.org", template: "case-new" },
+  },
   { id: 3, type: "photos-added", at: "2026-01-10T08:01:00.000Z", actor: tenantActor, before: null, after: { photoIds: [7, 8] } },
   {
     id: 4,
@@ -49,8 +63,22 @@ const events = [
     before: null,
     after: { importId: 3, imported: 48, duplicates: 0, rejected: 2, roomId: 2 },
   },
-  { id: 5, type: "status-changed", at: "2026-01-12T10:00:00.000Z", actor: officer, before: { status: "new" }, after: { status: "triaged" } },
-  { id: 6, type: "message-to-tenant", at: "2026-01-12T10:05:00.000Z", actor: officer, before: null, after: { body: "We will visit on Tuesday morning." } },
+  {
+    id: 5,
+    type: "status-changed",
+    at: "2026-01-12T10:00:00.000Z",
+    actor: officer,
+    before: { status: "new" },
+    after: { status: "triaged" },
+  },
+  {
+    id: 6,
+    type: "message-to-tenant",
+    at: "2026-01-12T10:05:00.000Z",
+    actor: officer,
+    before: null,
+    after: { body: "We will visit on Tuesday morning." },
+  },
   { id: 7, type: "survey-scheduled", at: "2026-01-12T11:00:00.000Z", actor: officer, before: null, after: {} },
 ].map((e) => ({ ...e, email: null }));
 
@@ -98,11 +126,23 @@ const evaluation = {
         {
           element: "corner-thermal-bridge",
           label: "External corner of a solid wall (thermal bridge) (measured surface)",
-          result: evaluatePoint({ airTemperatureC: 18, relativeHumidityPct: 72, surfaceTemperatureC: 12.5, outdoorTemperatureC: 4, element: "corner-thermal-bridge" }),
+          result: evaluatePoint({
+            airTemperatureC: 18,
+            relativeHumidityPct: 72,
+            surfaceTemperatureC: 12.5,
+            outdoorTemperatureC: 4,
+            element: "corner-thermal-bridge",
+          }),
         },
       ],
       series: evaluateSeries({
-        readings: readings.map((r) => ({ at: r.takenAt, airTemperatureC: r.airTemperatureC, relativeHumidityPct: r.relativeHumidityPct, surfaceTemperatureC: r.surfaceTemperatureC, outdoorTemperatureC: r.outdoorTemperatureC })),
+        readings: readings.map((r) => ({
+          at: r.takenAt,
+          airTemperatureC: r.airTemperatureC,
+          relativeHumidityPct: r.relativeHumidityPct,
+          surfaceTemperatureC: r.surfaceTemperatureC,
+          outdoorTemperatureC: r.outdoorTemperatureC,
+        })),
         element: "corner-thermal-bridge",
       }),
     },
@@ -176,10 +216,13 @@ describe("case page", () => {
     expect(within(panel).getByText("Condensing")).toBeInTheDocument();
     expect(within(panel).getByText(`${result.dewPointC.toFixed(1)} °C`)).toBeInTheDocument();
     expect(within(panel).getByText(evaluation.statement)).toBeInTheDocument();
-    expect(within(panel).getByText(/Whatever these numbers say, if you see damp or mould, tell your landlord/)).toBeInTheDocument();
+    expect(
+      within(panel).getByText(/Whatever these numbers say, if you see damp or mould, tell your landlord/),
+    ).toBeInTheDocument();
     expect(within(panel).getByRole("heading", { name: "Keeping safe" })).toBeInTheDocument();
     // The readings over time, in words.
-    for (const reason of evaluation.rooms[0]!.series.diagnosis.reasons) expect(within(panel).getByText(reason)).toBeInTheDocument();
+    for (const reason of evaluation.rooms[0]!.series.diagnosis.reasons)
+      expect(within(panel).getByText(reason)).toBeInTheDocument();
   });
 
   it("shows the photos and opens one full size in a dialog that Escape closes", async () => {
@@ -236,7 +279,9 @@ describe("case page", () => {
   });
 
   it("adds a reading by hand from the case page and works out the readings again", async () => {
-    const { callsTo } = caseApi({ "POST /api/cases/42/readings": { status: 201, body: { imported: 1, duplicates: 0, rejected: 0 } } });
+    const { callsTo } = caseApi({
+      "POST /api/cases/42/readings": { status: 201, body: { imported: 1, duplicates: 0, rejected: 0 } },
+    });
     await openCase();
     const user = userEvent.setup();
     await user.click(screen.getByRole("button", { name: "Add readings" }));
@@ -262,13 +307,19 @@ describe("case page", () => {
   it("adds photos from the case page, with the server's message when one is refused", async () => {
     const tooBig = "This photo is larger than 15 MB.";
     const { callsTo } = caseApi({
-      "POST /api/cases/42/photos": (_call, nth) => (nth === 0 ? { status: 413, body: { error: { code: "payload_too_large", message: tooBig } } } : { status: 201, body: { photos: [photo(9)] } }),
+      "POST /api/cases/42/photos": (_call, nth) =>
+        nth === 0
+          ? { status: 413, body: { error: { code: "payload_too_large", message: tooBig } } }
+          : { status: 201, body: { photos: [photo(9)] } },
     });
     await openCase();
     const user = userEvent.setup();
     await user.click(screen.getByRole("button", { name: "Add photos" }));
     const panel = screen.getByRole("region", { name: "Add more photos" });
-    await user.upload(within(panel).getByLabelText("Add photos"), new File([new Uint8Array([0xff, 0xd8, 0xff])], "mould.jpg", { type: "image/jpeg" }));
+    await user.upload(
+      within(panel).getByLabelText("Add photos"),
+      new File([new Uint8Array([0xff, 0xd8, 0xff])], "mould.jpg", { type: "image/jpeg" }),
+    );
     await user.click(within(panel).getByRole("button", { name: "Send photo" }));
     expect(await within(panel).findByText(tooBig)).toBeInTheDocument();
     await user.click(within(panel).getByRole("button", { name: "Send photo" }));

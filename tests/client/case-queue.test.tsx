@@ -19,7 +19,14 @@ function makeItem(id: number, overrides: Record<string, unknown> = {}) {
     channel: "tenant-online",
     awareAt: "2026-03-02T09:30:00.000Z",
     createdAt: "2026-03-02T09:30:00.000Z",
-    property: { id: 100 + id, addressLine1: `${id} Heron Walk`, town: "Easterby", postcode: `ZX5 ${id}AB`, estate: "Kestrel Rise", block: null },
+    property: {
+      id: 100 + id,
+      addressLine1: `${id} Heron Walk`,
+      town: "Easterby",
+      postcode: `ZX5 ${id}AB`,
+      estate: "Kestrel Rise",
+      block: null,
+    },
     rooms: [{ id: 1, name: "Bedroom 1" }],
     riskState: "mould-risk",
     mouldIndex: 1.4,
@@ -141,7 +148,9 @@ describe("Case queue", () => {
     expect(last.has("dueWithin")).toBe(false);
 
     await user.click(screen.getByRole("button", { name: "Clear filters" }));
-    await waitFor(() => expect(Object.fromEntries(search(router))).toEqual({ sort: "due", order: "desc", pageSize: "10", hide: "rooms,channel" }));
+    await waitFor(() =>
+      expect(Object.fromEntries(search(router))).toEqual({ sort: "due", order: "desc", pageSize: "10", hide: "rooms,channel" }),
+    );
   });
 
   it("sorts on the server when a column heading is pressed, and says so with aria-sort", async () => {
@@ -152,14 +161,18 @@ describe("Case queue", () => {
 
     await user.click(within(table).getByRole("button", { name: "Reference" }));
     await waitFor(() => expect(router.state.location.search).toBe("?sort=reference"));
-    await waitFor(() => expect(within(table).getByRole("columnheader", { name: "Reference" })).toHaveAttribute("aria-sort", "ascending"));
+    await waitFor(() =>
+      expect(within(table).getByRole("columnheader", { name: "Reference" })).toHaveAttribute("aria-sort", "ascending"),
+    );
     expect(within(table).getByRole("columnheader", { name: "Priority" })).toHaveAttribute("aria-sort", "none");
     let sent = callsTo("GET", "/api/cases").at(-1)!.search;
     expect([sent.get("sort"), sent.get("order"), sent.get("page")]).toEqual(["reference", "asc", "1"]);
 
     await user.click(within(table).getByRole("button", { name: "Reference" }));
     await waitFor(() => expect(search(router).get("order")).toBe("desc"));
-    await waitFor(() => expect(within(table).getByRole("columnheader", { name: "Reference" })).toHaveAttribute("aria-sort", "descending"));
+    await waitFor(() =>
+      expect(within(table).getByRole("columnheader", { name: "Reference" })).toHaveAttribute("aria-sort", "descending"),
+    );
     sent = callsTo("GET", "/api/cases").at(-1)!.search;
     expect([sent.get("sort"), sent.get("order")]).toEqual(["reference", "desc"]);
 
@@ -202,7 +215,10 @@ describe("Case queue", () => {
     setup("/queue", {
       "GET /api/cases": (call) =>
         page(call, [
-          makeItem(1, { overdue: true, nextDeadline: { stage: "investigate", dueAt: new Date(Date.now() - 50 * HOUR).toISOString() } }),
+          makeItem(1, {
+            overdue: true,
+            nextDeadline: { stage: "investigate", dueAt: new Date(Date.now() - 50 * HOUR).toISOString() },
+          }),
           makeItem(2, { nextDeadline: { stage: "make-safe", dueAt: new Date(Date.now() + 5.5 * HOUR).toISOString() } }),
           makeItem(3, { nextDeadline: null }),
         ]),
@@ -288,7 +304,11 @@ describe("Case queue", () => {
     await user.type(within(dialog).getByRole("textbox", { name: "Reason" }), "Reported twice by the same household");
     await user.click(within(dialog).getByRole("button", { name: "Move to Cancelled" }));
     expect(await screen.findByText("3 cases updated")).toBeInTheDocument();
-    expect(callsTo("POST", "/api/cases/bulk")[0]!.body).toEqual({ ids: [1, 2, 3], status: "cancelled", reason: "Reported twice by the same household" });
+    expect(callsTo("POST", "/api/cases/bulk")[0]!.body).toEqual({
+      ids: [1, 2, 3],
+      status: "cancelled",
+      reason: "Reported twice by the same household",
+    });
   });
 
   it("says when no case matches the filters, and clears them", async () => {
@@ -311,7 +331,8 @@ describe("Case queue", () => {
 
     setup("/queue", {
       // Nothing open, but closed cases exist (asked for without a status filter).
-      "GET /api/cases": (call) => (call.search.has("status") ? page(call, [], 0) : page(call, [makeItem(9, { status: "closed" })], 4)),
+      "GET /api/cases": (call) =>
+        call.search.has("status") ? page(call, [], 0) : page(call, [makeItem(9, { status: "closed" })], 4),
     });
     expect(await screen.findByText("No open cases")).toBeInTheDocument();
     expect(screen.queryByText("No cases yet")).not.toBeInTheDocument();
@@ -320,7 +341,10 @@ describe("Case queue", () => {
 
   it("shows a readable error when the queue cannot be loaded", async () => {
     setup("/queue", {
-      "GET /api/cases": { status: 400, body: { error: { code: "bad_request", message: "sort must be one of reference, address…" } } },
+      "GET /api/cases": {
+        status: 400,
+        body: { error: { code: "bad_request", message: "sort must be one of reference, address…" } },
+      },
     });
     expect(await screen.findByText("We could not load the case queue")).toBeInTheDocument();
     expect(screen.getByText("sort must be one of reference, address…")).toBeInTheDocument();

@@ -43,10 +43,34 @@ const fanOrder = {
   rooms: [{ id: 3, name: "Bathroom" }],
   assignee: { id: 3, name: "Dale Whitcombe" },
   slot: { date: "2026-12-08", window: "am", startsAt: "2026-12-08T08:00:00.000Z", endsAt: "2026-12-08T12:00:00.000Z" },
-  booking: { response: "change-requested", reason: "Mornings are school runs; any afternoon works.", respondedAt: "2026-12-01T18:00:00.000Z" },
+  booking: {
+    response: "change-requested",
+    reason: "Mornings are school runs; any afternoon works.",
+    respondedAt: "2026-12-01T18:00:00.000Z",
+  },
   bookings: [
-    { id: 1, date: "2026-12-03", window: "pm", assignee: { id: 8, name: "Nell Okoro" }, contractor: null, state: "replaced", response: null, reason: null, createdAt: "2026-11-30T10:00:00.000Z" },
-    { id: 2, date: "2026-12-08", window: "am", assignee: { id: 3, name: "Dale Whitcombe" }, contractor: null, state: "active", response: "change-requested", reason: "Mornings are school runs; any afternoon works.", createdAt: "2026-12-01T09:00:00.000Z" },
+    {
+      id: 1,
+      date: "2026-12-03",
+      window: "pm",
+      assignee: { id: 8, name: "Nell Okoro" },
+      contractor: null,
+      state: "replaced",
+      response: null,
+      reason: null,
+      createdAt: "2026-11-30T10:00:00.000Z",
+    },
+    {
+      id: 2,
+      date: "2026-12-08",
+      window: "am",
+      assignee: { id: 3, name: "Dale Whitcombe" },
+      contractor: null,
+      state: "active",
+      response: "change-requested",
+      reason: "Mornings are school runs; any afternoon works.",
+      createdAt: "2026-12-01T09:00:00.000Z",
+    },
   ],
   accessNotes: "Children under 15 live here. Ring twice; the bell is quiet.",
 };
@@ -64,7 +88,14 @@ const washOrder = {
   booking: { response: "confirmed", reason: null, respondedAt: "2026-11-30T12:00:00.000Z" },
   bookings: [],
   accessNotes: null,
-  completion: { at: "2026-12-02T15:30:00.000Z", by: "Nell Okoro", note: "Washed and treated 2 m² of mould behind the wardrobe.", materials: "Fungicidal wash", minutesOnSite: 150, followOn: null },
+  completion: {
+    at: "2026-12-02T15:30:00.000Z",
+    by: "Nell Okoro",
+    note: "Washed and treated 2 m² of mould behind the wardrobe.",
+    materials: "Fungicidal wash",
+    minutesOnSite: 150,
+    followOn: null,
+  },
 };
 
 const photoOf = (id: number, workOrderId: number | null) => ({
@@ -78,7 +109,18 @@ const photoOf = (id: number, workOrderId: number | null) => ({
   workOrderId,
 });
 
-const emptySummary = { count: 0, from: null, to: null, coveredHours: 0, meanSurfaceRhPct: null, maxSurfaceRhPct: null, hoursSurfaceRhAtLeast80: 0, hoursAtLeast80PerDay: null, mouldIndexFinal: null, mouldIndexMax: null };
+const emptySummary = {
+  count: 0,
+  from: null,
+  to: null,
+  coveredHours: 0,
+  meanSurfaceRhPct: null,
+  maxSurfaceRhPct: null,
+  hoursSurfaceRhAtLeast80: 0,
+  hoursAtLeast80PerDay: null,
+  mouldIndexFinal: null,
+  mouldIndexMax: null,
+};
 
 const noWorks = { state: "no-works", worksDoneAt: null, monitoringEndsAt: null, monitoringDays: 21, rooms: [], outcome: null };
 
@@ -112,7 +154,17 @@ function staffApi(user: (typeof users)[keyof typeof users], status: CaseStatus, 
     "GET /api/cases/42/verification": { body: noWorks },
     "GET /api/staff": { body: { users: staff } },
     "GET /api/contractors": { body: { contractors: [] } },
-    "GET /api/policy": { body: { emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, monitoringDays: 21, source: "default" } },
+    "GET /api/policy": {
+      body: {
+        emergencyMakeSafeHours: 24,
+        investigateWorkingDays: 10,
+        summaryWorkingDays: 3,
+        safetyWorkWorkingDays: 5,
+        supplementaryWorkWeeks: 12,
+        monitoringDays: 21,
+        source: "default",
+      },
+    },
     ...overrides,
   });
 }
@@ -124,7 +176,8 @@ async function openWorkspace() {
 }
 
 const region = (name: string) => screen.getByRole("region", { name });
-const orderItem = async (name: string) => (await within(region("Works")).findByRole("heading", { level: 4, name })).closest("li")!;
+const orderItem = async (name: string) =>
+  (await within(region("Works")).findByRole("heading", { level: 4, name })).closest("li")!;
 
 describe("the works of a case, for staff", () => {
   beforeEach(() => clearCsrfToken());
@@ -147,11 +200,15 @@ describe("the works of a case, for staff", () => {
     expect(within(fan).getByText("Children under 15 live here. Ring twice; the bell is quiet.")).toBeInTheDocument();
     // The replaced booking is in the history, not the current one.
     expect(within(fan).getByText("Earlier bookings (1)")).toBeInTheDocument();
-    expect(within(fan).getByText(/Thursday 3 December 2026, afternoon 12–5pm, Nell Okoro · Replaced by a later booking/)).toBeInTheDocument();
+    expect(
+      within(fan).getByText(/Thursday 3 December 2026, afternoon 12–5pm, Nell Okoro · Replaced by a later booking/),
+    ).toBeInTheDocument();
     expect(within(fan).getByRole("button", { name: /^Reschedule…/ })).toBeInTheDocument();
 
     // The open order needing a new time comes first.
-    const headings = within(region("Works")).getAllByRole("heading", { level: 4 }).map((h) => h.textContent);
+    const headings = within(region("Works"))
+      .getAllByRole("heading", { level: 4 })
+      .map((h) => h.textContent);
     expect(headings).toEqual(["Extractor fan: fit or repair", "Mould wash and treatment"]);
 
     const wash = await orderItem("Mould wash and treatment");
@@ -169,7 +226,16 @@ describe("the works of a case, for staff", () => {
 
   it("sends a new work order with the right body, showing the fan guidance for an extractor fan", async () => {
     const user = userEvent.setup();
-    const created = { ...fanOrder, id: 9, status: "unscheduled", slot: null, booking: null, bookings: [], assignee: null, targetDate: "2099-12-11" };
+    const created = {
+      ...fanOrder,
+      id: 9,
+      status: "unscheduled",
+      slot: null,
+      booking: null,
+      bookings: [],
+      assignee: null,
+      targetDate: "2099-12-11",
+    };
     const api = staffApi(users.officer, "investigated", {
       "POST /api/cases/42/work-orders": { status: 201, body: created },
     });
@@ -208,7 +274,9 @@ describe("the works of a case, for staff", () => {
       roomIds: [3],
       priority: "urgent",
     });
-    expect(await within(works).findByText(/Work order added: Extractor fan: fit or repair, to be done by Friday 11 December 2099/)).toBeInTheDocument();
+    expect(
+      await within(works).findByText(/Work order added: Extractor fan: fit or repair, to be done by Friday 11 December 2099/),
+    ).toBeInTheDocument();
     // The list, the /works page's lists and the case are fetched again.
     await waitFor(() => expect(api.callsTo("GET", "/api/cases/42/work-orders").length).toBeGreaterThan(1));
     expect(api.callsTo("GET", "/api/cases/42").length).toBeGreaterThan(1);
@@ -234,7 +302,21 @@ describe("the works of a case, for staff", () => {
     const api = staffApi(users.maintenance, "investigated", {
       "GET /api/cases/42/work-orders": { body: { workOrders: [unbooked] } },
       "PATCH /api/work-orders/7": (call, nth) =>
-        nth === 0 ? apiError(409, "double_booked", message) : { body: { ...unbooked, status: "scheduled", assignee: { id: 3, name: "Dale Whitcombe" }, slot: { date: "2099-12-08", window: "pm", startsAt: "2099-12-08T12:00:00.000Z", endsAt: "2099-12-08T17:00:00.000Z" } } },
+        nth === 0
+          ? apiError(409, "double_booked", message)
+          : {
+              body: {
+                ...unbooked,
+                status: "scheduled",
+                assignee: { id: 3, name: "Dale Whitcombe" },
+                slot: {
+                  date: "2099-12-08",
+                  window: "pm",
+                  startsAt: "2099-12-08T12:00:00.000Z",
+                  endsAt: "2099-12-08T17:00:00.000Z",
+                },
+              },
+            },
     });
     await openWorkspace();
     const fan = await orderItem("Extractor fan: fit or repair");
@@ -243,7 +325,11 @@ describe("the works of a case, for staff", () => {
 
     // Only maintenance staff are operatives.
     const operative = within(dialog).getByLabelText("Operative");
-    expect(within(operative).getAllByRole("option").map((o) => o.textContent)).toEqual(["Choose an operative", "Dale Whitcombe", "Nell Okoro"]);
+    expect(
+      within(operative)
+        .getAllByRole("option")
+        .map((o) => o.textContent),
+    ).toEqual(["Choose an operative", "Dale Whitcombe", "Nell Okoro"]);
 
     // A day in the past is refused before anything is sent.
     await user.selectOptions(operative, "3");
@@ -259,7 +345,10 @@ describe("the works of a case, for staff", () => {
     const alert = await within(dialog).findByRole("alert");
     expect(alert).toHaveTextContent("That slot is already taken");
     expect(alert).toHaveTextContent(message);
-    expect(api.callsTo("PATCH", "/api/work-orders/7")[0]!.body).toEqual({ assigneeId: 3, slot: { date: "2099-12-08", window: "am" } });
+    expect(api.callsTo("PATCH", "/api/work-orders/7")[0]!.body).toEqual({
+      assigneeId: 3,
+      slot: { date: "2099-12-08", window: "am" },
+    });
     expect(screen.getByRole("dialog", { name: "Schedule DW-2026-00042" })).toBeInTheDocument();
 
     // Another half-day goes through: the dialog closes, the case and its works are fetched again, not its readings.
@@ -269,8 +358,15 @@ describe("the works of a case, for staff", () => {
     await user.click(within(dialog).getByRole("radio", { name: /^Afternoon/ }));
     await user.click(within(dialog).getByRole("button", { name: "Book the visit" }));
     await waitFor(() => expect(screen.queryByRole("dialog")).not.toBeInTheDocument());
-    expect(api.callsTo("PATCH", "/api/work-orders/7")[1]!.body).toEqual({ assigneeId: 3, slot: { date: "2099-12-08", window: "pm" } });
-    expect(await within(fan).findByText("Booked Dale Whitcombe for Tuesday 8 December 2099, afternoon 12–5pm. The tenant has been asked to confirm.")).toBeInTheDocument();
+    expect(api.callsTo("PATCH", "/api/work-orders/7")[1]!.body).toEqual({
+      assigneeId: 3,
+      slot: { date: "2099-12-08", window: "pm" },
+    });
+    expect(
+      await within(fan).findByText(
+        "Booked Dale Whitcombe for Tuesday 8 December 2099, afternoon 12–5pm. The tenant has been asked to confirm.",
+      ),
+    ).toBeInTheDocument();
     expect(api.callsTo("GET", "/api/cases/42").length).toBeGreaterThan(caseCalls);
     expect(api.callsTo("GET", "/api/cases/42/work-orders").length).toBeGreaterThan(orderCalls);
     expect(readingCalls).toBeGreaterThan(0);
@@ -279,7 +375,11 @@ describe("the works of a case, for staff", () => {
 
   it("requires a note of what was done before recording completion", async () => {
     const user = userEvent.setup();
-    const booked = { ...fanOrder, status: "confirmed", booking: { response: "confirmed", reason: null, respondedAt: "2026-12-01T18:00:00.000Z" } };
+    const booked = {
+      ...fanOrder,
+      status: "confirmed",
+      booking: { response: "confirmed", reason: null, respondedAt: "2026-12-01T18:00:00.000Z" },
+    };
     const api = staffApi(users.maintenance, "works-planned", {
       "GET /api/cases/42/work-orders": { body: { workOrders: [booked] } },
       "PATCH /api/work-orders/7": { body: { ...booked, status: "done" } },
@@ -305,7 +405,9 @@ describe("the works of a case, for staff", () => {
     await user.type(within(dialog).getByLabelText(/^Time on site/), "90");
     await user.click(within(dialog).getByRole("button", { name: "Record completion" }));
     await waitFor(() => expect(api.callsTo("PATCH", "/api/work-orders/7")).toHaveLength(1));
-    expect(api.callsTo("PATCH", "/api/work-orders/7")[0]!.body).toEqual({ complete: { note: "Done: fitted a 15 l/s humidistat fan.", minutesOnSite: 90 } });
+    expect(api.callsTo("PATCH", "/api/work-orders/7")[0]!.body).toEqual({
+      complete: { note: "Done: fitted a 15 l/s humidistat fan.", minutesOnSite: 90 },
+    });
     expect(await within(fan).findByText(/Completion recorded/)).toBeInTheDocument();
   });
 
@@ -326,7 +428,9 @@ describe("the works of a case, for staff", () => {
     await user.type(within(dialog).getByLabelText("Reason for cancelling"), "Fan was replaced under warranty.");
     await user.click(within(dialog).getByRole("button", { name: "Cancel the order" }));
     await waitFor(() => expect(api.callsTo("PATCH", "/api/work-orders/7")).toHaveLength(1));
-    expect(api.callsTo("PATCH", "/api/work-orders/7")[0]!.body).toEqual({ cancel: { reason: "Fan was replaced under warranty." } });
+    expect(api.callsTo("PATCH", "/api/work-orders/7")[0]!.body).toEqual({
+      cancel: { reason: "Fan was replaced under warranty." },
+    });
   });
 
   it("compares the readings before and after the works, room by room, and records the outcome after a confirmation", async () => {
@@ -343,8 +447,30 @@ describe("the works of a case, for staff", () => {
           roomName: "Bedroom 1",
           comparison: {
             worksDoneAt: "2026-12-02T15:30:00.000Z",
-            before: { count: 336, from: "2026-11-18T00:00:00.000Z", to: "2026-12-01T23:00:00.000Z", coveredHours: 335, meanSurfaceRhPct: 86.4, maxSurfaceRhPct: 97.2, hoursSurfaceRhAtLeast80: 250.5, hoursAtLeast80PerDay: 17.95, mouldIndexFinal: 1.84, mouldIndexMax: 1.84 },
-            after: { count: 120, from: "2026-12-02T16:00:00.000Z", to: "2026-12-07T15:00:00.000Z", coveredHours: 119, meanSurfaceRhPct: 71.2, maxSurfaceRhPct: 82.6, hoursSurfaceRhAtLeast80: 6, hoursAtLeast80PerDay: 1.21, mouldIndexFinal: 0.03, mouldIndexMax: 0.03 },
+            before: {
+              count: 336,
+              from: "2026-11-18T00:00:00.000Z",
+              to: "2026-12-01T23:00:00.000Z",
+              coveredHours: 335,
+              meanSurfaceRhPct: 86.4,
+              maxSurfaceRhPct: 97.2,
+              hoursSurfaceRhAtLeast80: 250.5,
+              hoursAtLeast80PerDay: 17.95,
+              mouldIndexFinal: 1.84,
+              mouldIndexMax: 1.84,
+            },
+            after: {
+              count: 120,
+              from: "2026-12-02T16:00:00.000Z",
+              to: "2026-12-07T15:00:00.000Z",
+              coveredHours: 119,
+              meanSurfaceRhPct: 71.2,
+              maxSurfaceRhPct: 82.6,
+              hoursSurfaceRhAtLeast80: 6,
+              hoursAtLeast80PerDay: 1.21,
+              mouldIndexFinal: 0.03,
+              mouldIndexMax: 0.03,
+            },
             improved: true,
             points: [
               { at: "2026-12-01T23:00:00.000Z", surfaceRhPct: 88, phase: "before" },
@@ -355,7 +481,25 @@ describe("the works of a case, for staff", () => {
         {
           roomId: 3,
           roomName: "Bathroom",
-          comparison: { worksDoneAt: "2026-12-02T15:30:00.000Z", before: { ...emptySummary, count: 10, meanSurfaceRhPct: 90, maxSurfaceRhPct: 95, hoursSurfaceRhAtLeast80: 9, hoursAtLeast80PerDay: 21.6, from: "2026-12-01T10:00:00.000Z", to: "2026-12-01T19:00:00.000Z", coveredHours: 9, mouldIndexFinal: 0.4, mouldIndexMax: 0.4 }, after: emptySummary, improved: null, points: [] },
+          comparison: {
+            worksDoneAt: "2026-12-02T15:30:00.000Z",
+            before: {
+              ...emptySummary,
+              count: 10,
+              meanSurfaceRhPct: 90,
+              maxSurfaceRhPct: 95,
+              hoursSurfaceRhAtLeast80: 9,
+              hoursAtLeast80PerDay: 21.6,
+              from: "2026-12-01T10:00:00.000Z",
+              to: "2026-12-01T19:00:00.000Z",
+              coveredHours: 9,
+              mouldIndexFinal: 0.4,
+              mouldIndexMax: 0.4,
+            },
+            after: emptySummary,
+            improved: null,
+            points: [],
+          },
         },
       ],
     };
@@ -371,15 +515,47 @@ describe("the works of a case, for staff", () => {
     expect(within(bedroom).getByText("Improved")).toBeInTheDocument();
     const table = within(bedroom).getByRole("table");
     const row = (name: string) => within(table).getByRole("row", { name: new RegExp(`^${name}`) });
-    expect(within(row("Mean surface humidity")).getAllByRole("cell").map((c) => c.textContent)).toEqual(["86 %", "71 %"]);
-    expect(within(row("Highest surface humidity")).getAllByRole("cell").map((c) => c.textContent)).toEqual(["97 %", "83 %"]);
-    expect(within(row("Hours at or above 80 %")).getAllByRole("cell").map((c) => c.textContent)).toEqual(["250.5 h", "6.0 h"]);
-    expect(within(row("… per day")).getAllByRole("cell").map((c) => c.textContent)).toEqual(["18.0 h", "1.2 h"]);
-    expect(within(row("Mould index at the end")).getAllByRole("cell").map((c) => c.textContent)).toEqual(["1.84", "0.03"]);
-    expect(within(row("Number of readings")).getAllByRole("cell").map((c) => c.textContent)).toEqual(["336", "120"]);
-    expect(within(row("Period")).getAllByRole("cell").map((c) => c.textContent)).toEqual(["18 Nov 2026 to 1 Dec 2026", "2 Dec 2026 to 7 Dec 2026"]);
+    expect(
+      within(row("Mean surface humidity"))
+        .getAllByRole("cell")
+        .map((c) => c.textContent),
+    ).toEqual(["86 %", "71 %"]);
+    expect(
+      within(row("Highest surface humidity"))
+        .getAllByRole("cell")
+        .map((c) => c.textContent),
+    ).toEqual(["97 %", "83 %"]);
+    expect(
+      within(row("Hours at or above 80 %"))
+        .getAllByRole("cell")
+        .map((c) => c.textContent),
+    ).toEqual(["250.5 h", "6.0 h"]);
+    expect(
+      within(row("… per day"))
+        .getAllByRole("cell")
+        .map((c) => c.textContent),
+    ).toEqual(["18.0 h", "1.2 h"]);
+    expect(
+      within(row("Mould index at the end"))
+        .getAllByRole("cell")
+        .map((c) => c.textContent),
+    ).toEqual(["1.84", "0.03"]);
+    expect(
+      within(row("Number of readings"))
+        .getAllByRole("cell")
+        .map((c) => c.textContent),
+    ).toEqual(["336", "120"]);
+    expect(
+      within(row("Period"))
+        .getAllByRole("cell")
+        .map((c) => c.textContent),
+    ).toEqual(["18 Nov 2026 to 1 Dec 2026", "2 Dec 2026 to 7 Dec 2026"]);
     // The chart has a text alternative.
-    expect(within(bedroom).getByText(/^Surface humidity in Bedroom 1 over time, with the works on 2 Dec 2026 marked\. Before the works: 336 readings, mean 86 %/)).toBeInTheDocument();
+    expect(
+      within(bedroom).getByText(
+        /^Surface humidity in Bedroom 1 over time, with the works on 2 Dec 2026 marked\. Before the works: 336 readings, mean 86 %/,
+      ),
+    ).toBeInTheDocument();
 
     const bathroom = within(panel).getByRole("region", { name: "Bathroom" });
     expect(within(bathroom).getByText("Not enough readings yet")).toBeInTheDocument();
@@ -390,19 +566,32 @@ describe("the works of a case, for staff", () => {
     expect(within(panel).getByText("Say what the readings and the visit showed.")).toBeInTheDocument();
     expect(within(panel).getByText("Choose the work to try next.")).toBeInTheDocument();
     await user.click(within(panel).getByRole("button", { name: "Fix effective" }));
-    await user.type(within(panel).getByLabelText("What the readings and the visit showed"), "Surface humidity down from 86 % to 71 %; no new mould.");
+    await user.type(
+      within(panel).getByLabelText("What the readings and the visit showed"),
+      "Surface humidity down from 86 % to 71 %; no new mould.",
+    );
     await user.click(within(panel).getByRole("button", { name: "Record: fix effective…" }));
     const confirm = await screen.findByRole("dialog", { name: "Close the case as fixed?" });
     expect(api.callsTo("POST", "/api/cases/42/verification")).toHaveLength(0);
     await user.click(within(confirm).getByRole("button", { name: "Yes, the fix worked" }));
     await waitFor(() => expect(api.callsTo("POST", "/api/cases/42/verification")).toHaveLength(1));
-    expect(api.callsTo("POST", "/api/cases/42/verification")[0]!.body).toEqual({ effective: true, note: "Surface humidity down from 86 % to 71 %; no new mould." });
+    expect(api.callsTo("POST", "/api/cases/42/verification")[0]!.body).toEqual({
+      effective: true,
+      note: "Surface humidity down from 86 % to 71 %; no new mould.",
+    });
   });
 
   it("shows the recorded outcome, and offers no decision to an officer", async () => {
     staffApi(users.officer, "closed", {
       "GET /api/cases/42/verification": {
-        body: { state: "decided", worksDoneAt: "2026-12-02T15:30:00.000Z", monitoringEndsAt: "2026-12-23T15:30:00.000Z", monitoringDays: 21, rooms: [], outcome: { effective: true, note: "Dry corner, no mould.", at: "2026-12-23T16:00:00.000Z", by: "Dale Whitcombe" } },
+        body: {
+          state: "decided",
+          worksDoneAt: "2026-12-02T15:30:00.000Z",
+          monitoringEndsAt: "2026-12-23T15:30:00.000Z",
+          monitoringDays: 21,
+          rooms: [],
+          outcome: { effective: true, note: "Dry corner, no mould.", at: "2026-12-23T16:00:00.000Z", by: "Dale Whitcombe" },
+        },
       },
     });
     await openWorkspace();
@@ -421,7 +610,9 @@ function tenantApi(status: CaseStatus, workOrders: unknown[], overrides: Routes 
     "GET /api/cases/42/events": { body: { events: [] } },
     "GET /api/cases/42/photos": { body: { photos: [] } },
     "GET /api/cases/42/readings": { body: { readings: [] } },
-    "GET /api/cases/42/evaluation": { body: { statement: "Your landlord will look into this report whatever the readings show.", rooms: [] } },
+    "GET /api/cases/42/evaluation": {
+      body: { statement: "Your landlord will look into this report whatever the readings show.", rooms: [] },
+    },
     "GET /api/cases/42/work-orders": { body: { workOrders } },
     "GET /api/cases/42/verification": { body: noWorks },
     ...overrides,
@@ -447,8 +638,16 @@ describe("the repairs on the tenant's case page", () => {
 
   it("lets the tenant confirm the offered appointment, then says what they said", async () => {
     const user = userEvent.setup();
-    const offered = { ...tenantOrder(fanOrder), status: "scheduled", booking: { response: null, reason: null, respondedAt: null } };
-    const confirmed = { ...offered, status: "confirmed", booking: { response: "confirmed", reason: null, respondedAt: "2026-12-01T18:00:00.000Z" } };
+    const offered = {
+      ...tenantOrder(fanOrder),
+      status: "scheduled",
+      booking: { response: null, reason: null, respondedAt: null },
+    };
+    const confirmed = {
+      ...offered,
+      status: "confirmed",
+      booking: { response: "confirmed", reason: null, respondedAt: "2026-12-01T18:00:00.000Z" },
+    };
     const api = tenantApi("works-planned", [offered], {
       "GET /api/cases/42/work-orders": (_call, nth) => ({ body: { workOrders: [nth === 0 ? offered : confirmed] } }),
       "POST /api/work-orders/7/booking-response": { body: confirmed },
@@ -457,7 +656,9 @@ describe("the repairs on the tenant's case page", () => {
     const repairs = await screen.findByRole("region", { name: "Repairs" });
     expect(within(repairs).getByRole("heading", { name: "Fit or repair an extractor fan" })).toBeInTheDocument();
     expect(within(repairs).getByText("Where: Bathroom")).toBeInTheDocument();
-    expect(within(repairs).getByText(/^We would like to come on Tuesday 8 December( 2026)?, in the morning \(8am to 12 noon\)\.$/)).toBeInTheDocument();
+    expect(
+      within(repairs).getByText(/^We would like to come on Tuesday 8 December( 2026)?, in the morning \(8am to 12 noon\)\.$/),
+    ).toBeInTheDocument();
     expect(within(repairs).getByText(/will show you their ID/)).toBeInTheDocument();
     expect(within(repairs).getByText(/keep children and pets away from the work area/)).toBeInTheDocument();
     // The staff-only notes never reach the tenant's page.
@@ -473,8 +674,16 @@ describe("the repairs on the tenant's case page", () => {
 
   it("lets the tenant ask for another time, with the days and times that suit them", async () => {
     const user = userEvent.setup();
-    const offered = { ...tenantOrder(fanOrder), status: "scheduled", booking: { response: null, reason: null, respondedAt: null } };
-    const answered = { ...offered, status: "change-requested", booking: { response: "change-requested", reason: "Any weekday afternoon.", respondedAt: "2026-12-01T18:00:00.000Z" } };
+    const offered = {
+      ...tenantOrder(fanOrder),
+      status: "scheduled",
+      booking: { response: null, reason: null, respondedAt: null },
+    };
+    const answered = {
+      ...offered,
+      status: "change-requested",
+      booking: { response: "change-requested", reason: "Any weekday afternoon.", respondedAt: "2026-12-01T18:00:00.000Z" },
+    };
     const api = tenantApi("works-planned", [offered], {
       "GET /api/cases/42/work-orders": (_call, nth) => ({ body: { workOrders: [nth === 0 ? offered : answered] } }),
       "POST /api/work-orders/7/booking-response": { body: answered },
@@ -489,7 +698,10 @@ describe("the repairs on the tenant's case page", () => {
     await user.type(within(repairs).getByLabelText("Which days and times suit you better?"), "Any weekday afternoon.");
     await user.click(within(repairs).getByRole("button", { name: "Send" }));
     await waitFor(() => expect(api.callsTo("POST", "/api/work-orders/7/booking-response")).toHaveLength(1));
-    expect(api.callsTo("POST", "/api/work-orders/7/booking-response")[0]!.body).toEqual({ response: "another-slot", reason: "Any weekday afternoon." });
+    expect(api.callsTo("POST", "/api/work-orders/7/booking-response")[0]!.body).toEqual({
+      response: "another-slot",
+      reason: "Any weekday afternoon.",
+    });
     expect(await within(repairs).findByText("You asked for another time")).toBeInTheDocument();
     expect(within(repairs).getByText("You said: “Any weekday afternoon.”")).toBeInTheDocument();
     expect(within(repairs).getByText(/Your landlord has been told and will offer you a new appointment/)).toBeInTheDocument();
@@ -497,7 +709,14 @@ describe("the repairs on the tenant's case page", () => {
 
   it("says what was done, and asks for readings while the repair is being checked", async () => {
     tenantApi("monitoring", [tenantOrder(washOrder)], {
-      "GET /api/cases/42/verification": { body: { ...noWorks, state: "monitoring", worksDoneAt: "2026-12-02T15:30:00.000Z", monitoringEndsAt: "2026-12-23T15:30:00.000Z" } },
+      "GET /api/cases/42/verification": {
+        body: {
+          ...noWorks,
+          state: "monitoring",
+          worksDoneAt: "2026-12-02T15:30:00.000Z",
+          monitoringEndsAt: "2026-12-23T15:30:00.000Z",
+        },
+      },
     });
     renderApp("/cases/42");
     const repairs = await screen.findByRole("region", { name: "Repairs" });
@@ -505,7 +724,9 @@ describe("the repairs on the tenant's case page", () => {
     expect(within(repairs).getByText("Done on Wednesday 2 December 2026")).toBeInTheDocument();
     expect(within(repairs).getByText("Washed and treated 2 m² of mould behind the wardrobe.")).toBeInTheDocument();
     expect(within(repairs).queryByText(/Fungicidal wash/)).not.toBeInTheDocument();
-    expect(await within(repairs).findByText("We are checking the repair worked until Wednesday 23 December 2026")).toBeInTheDocument();
+    expect(
+      await within(repairs).findByText("We are checking the repair worked until Wednesday 23 December 2026"),
+    ).toBeInTheDocument();
     expect(within(repairs).getByRole("link", { name: "add readings" })).toHaveAttribute("href", "#case-next");
     expect(within(repairs).getByText(/tell us if mould comes back/)).toBeInTheDocument();
   });

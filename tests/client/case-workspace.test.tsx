@@ -20,7 +20,15 @@ const staff = [
 
 const officer = { name: "Priya Venn", role: "officer" };
 const events = [
-  { id: 1, type: "case-created", at: "2026-01-10T08:00:00.000Z", actor: { name: "Robin Ashdown", role: "tenant" }, before: null, after: null, email: null },
+  {
+    id: 1,
+    type: "case-created",
+    at: "2026-01-10T08:00:00.000Z",
+    actor: { name: "Robin Ashdown", role: "tenant" },
+    before: null,
+    after: null,
+    email: null,
+  },
   {
     id: 2,
     type: "email-queued",
@@ -28,9 +36,23 @@ const events = [
     actor: null,
     before: null,
     after: { outboxId: 9, to: "robin@example.org", template: "caseAcknowledgement" },
-    email: { status: "sent", to: "robin@example.org", template: "caseAcknowledgement", sentAt: "2026-01-10T08:00:03.000Z", error: null },
+    email: {
+      status: "sent",
+      to: "robin@example.org",
+      template: "caseAcknowledgement",
+      sentAt: "2026-01-10T08:00:03.000Z",
+      error: null,
+    },
   },
-  { id: 3, type: "internal-note", at: "2026-01-11T09:00:00.000Z", actor: officer, before: null, after: { body: "Key safe code is with the caretaker." }, email: null },
+  {
+    id: 3,
+    type: "internal-note",
+    at: "2026-01-11T09:00:00.000Z",
+    actor: officer,
+    before: null,
+    after: { body: "Key safe code is with the caretaker." },
+    email: null,
+  },
   {
     id: 4,
     type: "message-to-tenant",
@@ -78,13 +100,32 @@ const inspection = {
   cause: "condensation",
   mouldExtent: "1-to-5-m2",
   findings: "Mould behind the wardrobe on the external wall; extractor fan in the bathroom not working.",
-  roomReadings: [{ roomId: 2, airTemperatureC: 17.5, relativeHumidityPct: 74, surfaceTemperaturesC: [11.2, 12], moisture: { value: 18, unit: "wme" } }],
+  roomReadings: [
+    {
+      roomId: 2,
+      airTemperatureC: 17.5,
+      relativeHumidityPct: 74,
+      surfaceTemperaturesC: [11.2, 12],
+      moisture: { value: 18, unit: "wme" },
+    },
+  ],
   createdAt: "2026-01-14T11:00:00.000Z",
 };
 
 const assessmentOf = (id: number, version: number, likelihood: number, spread: [number, number, number, number], at: string) => {
   const r = hhsrsScore({ likelihood, spread });
-  return { id, version, likelihood, spread, justification: `Judgement number ${version} from the visit.`, score: r.displayScore, band: r.band, category: r.category, assessorId: 2, createdAt: at };
+  return {
+    id,
+    version,
+    likelihood,
+    spread,
+    justification: `Judgement number ${version} from the visit.`,
+    score: r.displayScore,
+    band: r.band,
+    category: r.category,
+    assessorId: 2,
+    createdAt: at,
+  };
 };
 const assessments = [
   assessmentOf(1, 1, 320, [0, 1, 10, 89], "2026-01-14T12:00:00.000Z"),
@@ -92,7 +133,16 @@ const assessments = [
 ];
 
 const related = {
-  cases: [{ id: 17, reference: "DW-2025-00017", status: "closed", awareAt: "2025-03-02T09:00:00.000Z", hazardClass: "not-significant", description: "Condensation on the windows" }],
+  cases: [
+    {
+      id: 17,
+      reference: "DW-2025-00017",
+      status: "closed",
+      awareAt: "2025-03-02T09:00:00.000Z",
+      hazardClass: "not-significant",
+      description: "Condensation on the windows",
+    },
+  ],
 };
 
 // Two days of hourly readings in the bedroom: humid air against a cold corner.
@@ -108,7 +158,13 @@ const readings = Array.from({ length: 48 }, (_, i) => ({
   importId: 3,
 }));
 const series = evaluateSeries({
-  readings: readings.map((r) => ({ at: r.takenAt, airTemperatureC: r.airTemperatureC, relativeHumidityPct: r.relativeHumidityPct, surfaceTemperatureC: r.surfaceTemperatureC, outdoorTemperatureC: r.outdoorTemperatureC })),
+  readings: readings.map((r) => ({
+    at: r.takenAt,
+    airTemperatureC: r.airTemperatureC,
+    relativeHumidityPct: r.relativeHumidityPct,
+    surfaceTemperatureC: r.surfaceTemperatureC,
+    outdoorTemperatureC: r.outdoorTemperatureC,
+  })),
   element: "corner-thermal-bridge",
 });
 const evaluation = {
@@ -133,7 +189,17 @@ function workspaceApi(user: (typeof users)[keyof typeof users] = users.officer, 
     "GET /api/cases/42/assessments": { body: { assessments: [] } },
     "GET /api/cases/42/related": { body: related },
     "GET /api/staff": { body: { users: staff } },
-    "GET /api/policy": { body: { emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, monitoringDays: 21, source: "default" } },
+    "GET /api/policy": {
+      body: {
+        emergencyMakeSafeHours: 24,
+        investigateWorkingDays: 10,
+        summaryWorkingDays: 3,
+        safetyWorkWorkingDays: 5,
+        supplementaryWorkWeeks: 12,
+        monitoringDays: 21,
+        source: "default",
+      },
+    },
     ...overrides,
   });
 }
@@ -150,9 +216,15 @@ describe("case workspace", () => {
   beforeEach(() => clearCsrfToken());
 
   it("keys every query about a case under the case's own key, so refreshing a case refreshes the workspace", () => {
-    const parts = Object.entries(caseKeys).filter(([name]) => !["all", "lists", "mine", "queues", "queue", "details", "detail"].includes(name));
+    const parts = Object.entries(caseKeys).filter(
+      ([name]) => !["all", "lists", "mine", "queues", "queue", "details", "detail"].includes(name),
+    );
     expect(parts.length).toBeGreaterThan(5);
-    for (const [name, key] of parts) expect({ name, prefix: (key as (id: number) => readonly unknown[])(42).slice(0, 3) }).toEqual({ name, prefix: caseKeys.detail(42) });
+    for (const [name, key] of parts)
+      expect({ name, prefix: (key as (id: number) => readonly unknown[])(42).slice(0, 3) }).toEqual({
+        name,
+        prefix: caseKeys.detail(42),
+      });
   });
 
   it("shows a member of staff the workspace at the tenant's address, with every section from the API", async () => {
@@ -185,13 +257,13 @@ describe("case workspace", () => {
     // Deadlines: plain stage names, London time, the state in words.
     const deadlines = region("Deadlines");
     const stages = await within(deadlines).findAllByRole("listitem");
-    expect(stages.map((li) => within(li).getByText(/^(Make safe|Investigate|Written summary|Safety work begun|Supplementary work begun)$/).textContent)).toEqual([
-      "Make safe",
-      "Investigate",
-      "Written summary",
-      "Safety work begun",
-      "Supplementary work begun",
-    ]);
+    expect(
+      stages.map(
+        (li) =>
+          within(li).getByText(/^(Make safe|Investigate|Written summary|Safety work begun|Supplementary work begun)$/)
+            .textContent,
+      ),
+    ).toEqual(["Make safe", "Investigate", "Written summary", "Safety work begun", "Supplementary work begun"]);
     expect(stages[0]).toHaveTextContent("Not applicable");
     expect(stages[1]).toHaveTextContent("Pending");
     expect(stages[1]).toHaveTextContent("Fri, 23 Jan 2099, 23:59 GMT");
@@ -232,8 +304,11 @@ describe("case workspace", () => {
   });
 
   it("offers only the status moves the workflow allows, asks for a reason to cancel, and shows the server's refusal", async () => {
-    const refusal = "A case that is triaged cannot move to cancelled. From triaged it can move to: inspection-booked, investigated.";
-    const { callsTo } = workspaceApi(users.officer, { "PATCH /api/cases/42": apiError(409, "conflict", refusal, { from: "triaged", to: "cancelled", allowed: [] }) });
+    const refusal =
+      "A case that is triaged cannot move to cancelled. From triaged it can move to: inspection-booked, investigated.";
+    const { callsTo } = workspaceApi(users.officer, {
+      "PATCH /api/cases/42": apiError(409, "conflict", refusal, { from: "triaged", to: "cancelled", allowed: [] }),
+    });
     await openWorkspace();
     const actions = region("Actions");
     const select = within(actions).getByLabelText(/^Move to/);
@@ -252,7 +327,10 @@ describe("case workspace", () => {
     const dialog = await screen.findByRole("dialog", { name: "Cancel this case?" });
     await user.click(within(dialog).getByRole("button", { name: "Cancel the case" }));
     expect(await within(actions).findByText(refusal)).toBeInTheDocument();
-    expect(callsTo("PATCH", "/api/cases/42")[0]!.body).toEqual({ status: "cancelled", reason: "Tenant moved out before the visit." });
+    expect(callsTo("PATCH", "/api/cases/42")[0]!.body).toEqual({
+      status: "cancelled",
+      reason: "Tenant moved out before the visit.",
+    });
   });
 
   it("changes the status and refreshes the case, its deadlines and triage", async () => {
@@ -275,19 +353,28 @@ describe("case workspace", () => {
     });
     // From the new status the workflow offers other moves.
     await waitFor(() =>
-      expect(within(within(actions).getByLabelText(/^Move to/)).getAllByRole("option").slice(1).map((o) => (o as HTMLOptionElement).value)).toEqual([
-        ...CASE_TRANSITIONS["inspection-booked"],
-      ]),
+      expect(
+        within(within(actions).getByLabelText(/^Move to/))
+          .getAllByRole("option")
+          .slice(1)
+          .map((o) => (o as HTMLOptionElement).value),
+      ).toEqual([...CASE_TRANSITIONS["inspection-booked"]]),
     );
   });
 
   it("assigns from the staff list and classifies the hazard only with a reason", async () => {
-    const { callsTo } = workspaceApi(users.officer, { "PATCH /api/cases/42": (call) => ({ body: { ...theCase, ...(call.body as object) } }) });
+    const { callsTo } = workspaceApi(users.officer, {
+      "PATCH /api/cases/42": (call) => ({ body: { ...theCase, ...(call.body as object) } }),
+    });
     await openWorkspace();
     const actions = region("Actions");
     const user = userEvent.setup();
     const assignee = await within(actions).findByLabelText("Assigned to");
-    expect(within(assignee).getAllByRole("option").map((o) => o.textContent)).toEqual([
+    expect(
+      within(assignee)
+        .getAllByRole("option")
+        .map((o) => o.textContent),
+    ).toEqual([
       "Nobody (unassigned)",
       "Priya Venn, Housing officer",
       "Dale Whitcombe, Maintenance lead",
@@ -307,7 +394,10 @@ describe("case workspace", () => {
     await user.type(within(actions).getByLabelText("Reason for this classification"), "Black mould over a baby's cot.");
     await user.click(within(actions).getByRole("button", { name: "Save classification" }));
     await waitFor(() => expect(callsTo("PATCH", "/api/cases/42")).toHaveLength(2));
-    expect(callsTo("PATCH", "/api/cases/42")[1]!.body).toEqual({ hazardClass: "emergency", reason: "Black mould over a baby's cot." });
+    expect(callsTo("PATCH", "/api/cases/42")[1]!.body).toEqual({
+      hazardClass: "emergency",
+      reason: "Black mould over a baby's cot.",
+    });
   });
 
   it("keeps a running total of the spread of harm and checks the assessment before sending it", async () => {
@@ -315,7 +405,19 @@ describe("case workspace", () => {
       "POST /api/cases/42/assessments": (call) => {
         const body = call.body as { likelihood: number; spread: [number, number, number, number]; justification: string };
         const r = hhsrsScore(body);
-        return { status: 201, body: { id: 9, version: 1, ...body, score: r.displayScore, band: r.band, category: r.category, assessorId: 2, createdAt: new Date().toISOString() } };
+        return {
+          status: 201,
+          body: {
+            id: 9,
+            version: 1,
+            ...body,
+            score: r.displayScore,
+            band: r.band,
+            category: r.category,
+            assessorId: 2,
+            createdAt: new Date().toISOString(),
+          },
+        };
       },
     });
     await openWorkspace();
@@ -406,7 +508,10 @@ describe("case workspace", () => {
 
   it("records an inspection with readings room by room", async () => {
     const { callsTo } = workspaceApi(users.officer, {
-      "POST /api/cases/42/inspections": { status: 201, body: { id: 6, inspectedAt: "2026-01-14T10:00:00.000Z", cause: "condensation", mouldExtent: "under-1-m2" } },
+      "POST /api/cases/42/inspections": {
+        status: 201,
+        body: { id: 6, inspectedAt: "2026-01-14T10:00:00.000Z", cause: "condensation", mouldExtent: "under-1-m2" },
+      },
     });
     await openWorkspace();
     const panel = region("Inspections");
@@ -452,7 +557,15 @@ describe("case workspace", () => {
       cause: "condensation",
       mouldExtent: "under-1-m2",
       findings: "Mould on the window reveal in the bedroom.",
-      roomReadings: [{ roomId: 2, airTemperatureC: 17.5, relativeHumidityPct: 74, surfaceTemperaturesC: [11.2, 12], moisture: { value: 18, unit: "wme" } }],
+      roomReadings: [
+        {
+          roomId: 2,
+          airTemperatureC: 17.5,
+          relativeHumidityPct: 74,
+          surfaceTemperaturesC: [11.2, 12],
+          moisture: { value: 18, unit: "wme" },
+        },
+      ],
     });
     await waitFor(() => {
       expect(callsTo("GET", "/api/cases/42/inspections").length).toBeGreaterThanOrEqual(2);
@@ -480,7 +593,9 @@ describe("case workspace", () => {
   it("lets a maintenance lead read the case without the officer's actions", async () => {
     workspaceApi(users.maintenance, { "GET /api/cases/42/inspections": { body: { inspections: [inspection] } } });
     await openWorkspace();
-    expect(screen.getByText("Only housing officers and administrators can change the status, the assignee or the hazard class.")).toBeInTheDocument();
+    expect(
+      screen.getByText("Only housing officers and administrators can change the status, the assignee or the hazard class."),
+    ).toBeInTheDocument();
     expect(screen.queryByRole("button", { name: "Change status" })).not.toBeInTheDocument();
     expect(screen.queryByRole("button", { name: "Record inspection" })).not.toBeInTheDocument();
     expect(screen.queryByRole("button", { name: "Save assessment" })).not.toBeInTheDocument();
@@ -490,7 +605,9 @@ describe("case workspace", () => {
   });
 
   it("says when a section could not be loaded, and still shows the rest", async () => {
-    workspaceApi(users.officer, { "GET /api/cases/42/triage": apiError(404, "not_found", "The priority could not be worked out.") });
+    workspaceApi(users.officer, {
+      "GET /api/cases/42/triage": apiError(404, "not_found", "The priority could not be worked out."),
+    });
     await openWorkspace();
     const triagePanel = region("Triage priority");
     expect(await within(triagePanel).findByText("We couldn't load the triage priority")).toBeInTheDocument();

@@ -15,7 +15,9 @@ describe("invitation and password reset links", () => {
     const { callsTo } = mockApi({
       "GET /api/auth/me": unauthenticated,
       "GET /api/auth/csrf": { body: { csrfToken: "t" } },
-      [`GET /api/auth/invitations/${token}`]: { body: { email: "sam@example.org", name: "Sam Newell", organisationName: "Northfold Homes" } },
+      [`GET /api/auth/invitations/${token}`]: {
+        body: { email: "sam@example.org", name: "Sam Newell", organisationName: "Northfold Homes" },
+      },
       "POST /api/auth/invitations/accept": { status: 204 },
     });
     renderApp(`/invitation/${token}`);
@@ -28,7 +30,9 @@ describe("invitation and password reset links", () => {
     await user.type(screen.getByLabelText("Type the new password again"), "different");
     await user.click(screen.getByRole("button", { name: "Set my password" }));
     expect(screen.getByLabelText("New password")).toHaveAccessibleDescription(/Use at least 10 characters\./);
-    expect(screen.getByLabelText("Type the new password again")).toHaveAccessibleDescription("The two passwords are not the same.");
+    expect(screen.getByLabelText("Type the new password again")).toHaveAccessibleDescription(
+      "The two passwords are not the same.",
+    );
     expect(callsTo("POST", "/api/auth/invitations/accept")).toHaveLength(0);
 
     await user.clear(screen.getByLabelText("New password"));
@@ -50,7 +54,9 @@ describe("invitation and password reset links", () => {
   it("shows the field message for a malformed link", async () => {
     mockApi({
       "GET /api/auth/me": unauthenticated,
-      "GET /api/auth/invitations/bad": apiError(400, "validation_failed", "token: This link is not valid.", [{ field: "token", message: "This link is not valid." }]),
+      "GET /api/auth/invitations/bad": apiError(400, "validation_failed", "token: This link is not valid.", [
+        { field: "token", message: "This link is not valid." },
+      ]),
     });
     renderApp("/invitation/bad");
     expect(await screen.findByText("This link is not valid.")).toBeInTheDocument();

@@ -56,10 +56,14 @@ describe("the deadline policy page", () => {
     expect(field(/Safety work begun within/)).toHaveValue("5");
     expect(field(/Further work begun within/)).toHaveValue("12");
     expect(field(/Check the fix for/)).toHaveValue("21");
-    expect(field(/Make the home safe within/)).toHaveAccessibleDescription(/emergency hazard.*England default: 24 hours\. From 1 to 72 hours\./);
+    expect(field(/Make the home safe within/)).toHaveAccessibleDescription(
+      /emergency hazard.*England default: 24 hours\. From 1 to 72 hours\./,
+    );
     expect(field(/Further work begun within/)).toHaveAccessibleDescription(/England default: 12 weeks/);
     expect(screen.getByText(/deadlines of every open case follow this policy/)).toBeInTheDocument();
-    expect(screen.getByText(/Working days leave out Saturdays, Sundays and bank holidays in England and Wales/)).toBeInTheDocument();
+    expect(
+      screen.getByText(/Working days leave out Saturdays, Sundays and bank holidays in England and Wales/),
+    ).toBeInTheDocument();
     // Nothing to go back to while the default is in force.
     expect(screen.queryByRole("button", { name: "Go back to the England default" })).not.toBeInTheDocument();
 
@@ -92,7 +96,11 @@ describe("the deadline policy page", () => {
     expect(await screen.findByText(/^Saved\. Your own timeframes are in force/)).toBeInTheDocument();
     expect(screen.getByText("Your own timeframes are in force")).toBeInTheDocument();
     expect(callsTo("PUT", "/api/policy")).toHaveLength(2);
-    expect(callsTo("PUT", "/api/policy").at(-1)!.body).toEqual({ ...DEFAULT, emergencyMakeSafeHours: 12, investigateWorkingDays: 7 });
+    expect(callsTo("PUT", "/api/policy").at(-1)!.body).toEqual({
+      ...DEFAULT,
+      emergencyMakeSafeHours: 12,
+      investigateWorkingDays: 7,
+    });
     expect(field(/Make the home safe within/)).toHaveValue("12");
     expect(field(/Make the home safe within/)).not.toHaveAttribute("aria-invalid");
   });

@@ -28,7 +28,14 @@ const theCase = {
   area: null,
   vulnerability: null,
   equipment: null,
-  property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX3 1AA", estate: "Millbeck Terraces" },
+  property: {
+    id: 5,
+    addressLine1: "1 Tanner Row",
+    addressLine2: null,
+    town: "Easterby",
+    postcode: "ZX3 1AA",
+    estate: "Millbeck Terraces",
+  },
   rooms: [],
   homeRooms,
 };
@@ -57,20 +64,30 @@ const preview = {
   problems: ["Day and month could be either way round in these dates; we read them day first."],
 };
 
-const importResult = { importId: 3, imported: 1000, duplicates: 4, rejected: 3, rejectedReportUrl: "/api/cases/42/readings/imports/3/rejected.csv" };
+const importResult = {
+  importId: 3,
+  imported: 1000,
+  duplicates: 4,
+  rejected: 3,
+  rejectedReportUrl: "/api/cases/42/readings/imports/3/rejected.csv",
+};
 
 function caseApi(overrides: Record<string, MockReply | ((call: RecordedCall, nth: number) => MockReply)> = {}) {
   return mockApi({
     "GET /api/auth/me": { body: users.tenant },
     "GET /api/auth/csrf": { body: { csrfToken: "csrf-1" } },
-    "GET /api/me/home": { body: { tenancy: { id: 4, startDate: "2021-04-12", endDate: null }, property: { ...makeProperty(5), rooms: homeRooms } } },
+    "GET /api/me/home": {
+      body: { tenancy: { id: 4, startDate: "2021-04-12", endDate: null }, property: { ...makeProperty(5), rooms: homeRooms } },
+    },
     "GET /api/me/cases": { body: { items: [] } },
     "POST /api/cases": { status: 201, body: theCase },
     "GET /api/cases/42": { body: theCase },
     "GET /api/cases/42/events": { body: { events: [] } },
     "GET /api/cases/42/photos": { body: { photos: [] } },
     "GET /api/cases/42/readings": { body: { readings: [] } },
-    "GET /api/cases/42/evaluation": { body: { statement: "Your landlord will look into this report whatever the readings show.", rooms: [] } },
+    "GET /api/cases/42/evaluation": {
+      body: { statement: "Your landlord will look into this report whatever the readings show.", rooms: [] },
+    },
     "POST /api/cases/42/readings/import/preview": { body: preview },
     "POST /api/cases/42/readings/import": { status: 201, body: importResult },
     ...overrides,
@@ -107,7 +124,11 @@ describe("logger CSV import", () => {
     expect(await within(panel).findByRole("heading", { name: "Check the columns of bedroom-logger.csv" })).toHaveFocus();
     expect(formDataOf(fetchMock, "/api/cases/42/readings/import/preview")?.get("file")).toBeInstanceOf(File);
     const sample = within(panel).getByRole("table", { name: "The first rows of your file" });
-    expect(within(sample).getAllByRole("columnheader").map((th) => th.textContent)).toEqual(["Time", "Temp", "RH", "Probe"]);
+    expect(
+      within(sample)
+        .getAllByRole("columnheader")
+        .map((th) => th.textContent),
+    ).toEqual(["Time", "Temp", "RH", "Probe"]);
     expect(within(panel).getByText(preview.problems[0]!)).toBeInTheDocument();
 
     const humidity = within(panel).getByLabelText("Humidity column");
@@ -122,7 +143,10 @@ describe("logger CSV import", () => {
     await user.click(within(panel).getByRole("button", { name: "Import readings" }));
     expect(await within(panel).findByText("1,000 readings added")).toBeInTheDocument();
     expect(within(panel).getByText(/4 readings were already in your report/)).toBeInTheDocument();
-    expect(within(panel).getByRole("link", { name: "Download the rows we couldn't read (CSV)" })).toHaveAttribute("href", importResult.rejectedReportUrl);
+    expect(within(panel).getByRole("link", { name: "Download the rows we couldn't read (CSV)" })).toHaveAttribute(
+      "href",
+      importResult.rejectedReportUrl,
+    );
 
     const sent = formDataOf(fetchMock, "/api/cases/42/readings/import")!;
     expect(sent.get("roomId")).toBe("2");

@@ -35,7 +35,14 @@ const created = {
   area: null,
   vulnerability: [],
   equipment: { heatingUsable: "yes" },
-  property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX5 5AB", estate: "Millbeck Terraces" },
+  property: {
+    id: 5,
+    addressLine1: "1 Tanner Row",
+    addressLine2: null,
+    town: "Easterby",
+    postcode: "ZX5 5AB",
+    estate: "Millbeck Terraces",
+  },
   rooms: [{ id: 2, name: "Bedroom 1", kind: "bedroom" }],
   homeRooms: myHome.property.rooms,
 };
@@ -65,7 +72,9 @@ function tenantApi(overrides: Record<string, MockReply | ((call: RecordedCall, n
     "GET /api/cases/42/events": { body: { events: [] } },
     "GET /api/cases/42/photos": { body: { photos: [] } },
     "GET /api/cases/42/readings": { body: { readings: [] } },
-    "GET /api/cases/42/evaluation": { body: { statement: "Your landlord will look into this report whatever the readings show.", rooms: [] } },
+    "GET /api/cases/42/evaluation": {
+      body: { statement: "Your landlord will look into this report whatever the readings show.", rooms: [] },
+    },
     ...overrides,
   });
 }
@@ -132,7 +141,12 @@ describe("report form", () => {
         version: 1,
         savedAt: "2026-01-14T18:30:00.000Z",
         step: 1,
-        values: { description: "Mould behind the wardrobe", locations: ["behind-furniture", "nonsense"], observations: ["musty-smell"], roomIds: [2, 99] },
+        values: {
+          description: "Mould behind the wardrobe",
+          locations: ["behind-furniture", "nonsense"],
+          observations: ["musty-smell"],
+          roomIds: [2, 99],
+        },
         household: "none",
         readings: [{ roomId: 2, takenAt: "2026-01-14T18:00:00.000Z", airTemperatureC: 17.5, relativeHumidityPct: 71 }],
         photoCount: 2,
@@ -172,7 +186,9 @@ describe("report form", () => {
     const heating = screen.getByRole("group", { name: "Can the heating be used in this room?" });
     await user.click(within(heating).getByRole("radio", { name: "Yes" }));
     expect(screen.getByRole("group", { name: "Is there an extractor fan, and does it work?" })).toBeInTheDocument();
-    expect(screen.getByRole("group", { name: "Are there trickle vents on the windows, and can they be opened?" })).toBeInTheDocument();
+    expect(
+      screen.getByRole("group", { name: "Are there trickle vents on the windows, and can they be opened?" }),
+    ).toBeInTheDocument();
     expect(screen.getByText(/We ask so your landlord can prioritise/)).toBeInTheDocument();
     const household = screen.getByRole("group", { name: /Does anyone living in your home/ });
     await user.click(within(household).getByRole("checkbox", { name: "Children under 15" }));
@@ -182,7 +198,9 @@ describe("report form", () => {
     // 4 Photos: a HEIC file is turned away in the browser with advice, a JPEG is kept
     await screen.findByRole("heading", { level: 2, name: /Step 4 of 6/ });
     const input = screen.getByLabelText("Add photos");
-    await userEvent.setup({ applyAccept: false }).upload(input, [jpeg(), new File(["x"], "IMG_0001.HEIC", { type: "image/heic" })]);
+    await userEvent
+      .setup({ applyAccept: false })
+      .upload(input, [jpeg(), new File(["x"], "IMG_0001.HEIC", { type: "image/heic" })]);
     expect(await screen.findByText(/This photo is in HEIC format/)).toBeInTheDocument();
     expect(within(screen.getByRole("list", { name: "Photos you have chosen" })).getAllByRole("listitem")).toHaveLength(1);
     await user.click(screen.getByRole("button", { name: "Next" }));
@@ -239,7 +257,8 @@ describe("report form", () => {
   it("keeps the report when photos fail afterwards, and offers a retry on the case page", async () => {
     const heic = "This photo is in HEIC format, which we cannot read yet.";
     const { callsTo } = tenantApi({
-      "POST /api/cases/42/photos": (_call, nth) => (nth === 0 ? apiError(415, "unsupported_media_type", heic) : { status: 201, body: { photos: [photo(8)] } }),
+      "POST /api/cases/42/photos": (_call, nth) =>
+        nth === 0 ? apiError(415, "unsupported_media_type", heic) : { status: 201, body: { photos: [photo(8)] } },
     });
     const user = userEvent.setup();
     await openReport();
@@ -268,7 +287,9 @@ describe("report form", () => {
   });
 
   it("says so and keeps every answer when the case itself could not be sent", async () => {
-    tenantApi({ "POST /api/cases": { status: 503, body: { error: { code: "unavailable", message: "Dewline is busy. Please try again." } } } });
+    tenantApi({
+      "POST /api/cases": { status: 503, body: { error: { code: "unavailable", message: "Dewline is busy. Please try again." } } },
+    });
     const user = userEvent.setup();
     const { router } = await openReport();
     await user.type(screen.getByLabelText(/What can you see/), "Wet patch on the ceiling");

@@ -8,7 +8,13 @@ import { renderApp } from "./support/render-app";
 const myHome = {
   tenancy: { id: 4, startDate: "2021-04-12", endDate: null },
   property: {
-    ...makeProperty(5, { addressLine1: "1 Tanner Row", addressLine2: null, postcode: "ZX3 1AA", estate: "Millbeck Terraces", block: null }),
+    ...makeProperty(5, {
+      addressLine1: "1 Tanner Row",
+      addressLine2: null,
+      postcode: "ZX3 1AA",
+      estate: "Millbeck Terraces",
+      block: null,
+    }),
     rooms: [
       { id: 1, name: "Living room", kind: "living" },
       { id: 2, name: "Box room", kind: "bedroom" },
@@ -75,7 +81,9 @@ describe("route guards", () => {
   it("lets anyone open the calculator", async () => {
     mockApi({ "GET /api/auth/me": unauthenticated });
     renderApp("/calculator");
-    expect(await screen.findByRole("heading", { level: 1, name: "Dew point and surface humidity calculator" })).toBeInTheDocument();
+    expect(
+      await screen.findByRole("heading", { level: 1, name: "Dew point and surface humidity calculator" }),
+    ).toBeInTheDocument();
   });
 
   it("has a skip link and the landmarks", async () => {

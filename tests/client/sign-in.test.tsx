@@ -53,9 +53,14 @@ describe("sign-in page", () => {
     mockApi({
       "GET /api/auth/me": unauthenticated,
       "GET /api/auth/csrf": { body: { csrfToken: "t" } },
-      "POST /api/auth/login": apiError(429, "too_many_requests", "Too many unsuccessful sign-in attempts. Try again in 15 minutes.", {
-        retryAfterSeconds: 900,
-      }),
+      "POST /api/auth/login": apiError(
+        429,
+        "too_many_requests",
+        "Too many unsuccessful sign-in attempts. Try again in 15 minutes.",
+        {
+          retryAfterSeconds: 900,
+        },
+      ),
     });
     renderApp("/sign-in");
     const user = userEvent.setup();

@@ -18,7 +18,9 @@ const staff = [
   { id: 3, name: "Dale Whitcombe", role: "maintenance" },
   { id: 4, name: "Sam Okafor", role: "maintenance" },
 ];
-const contractors = [{ id: 7, name: "Brightvent Ltd", email: "jobs@brightvent.example", phone: "01234 567890", trade: "ventilation" }];
+const contractors = [
+  { id: 7, name: "Brightvent Ltd", email: "jobs@brightvent.example", phone: "01234 567890", trade: "ventilation" },
+];
 
 function makeOrder(id: number, overrides: Record<string, unknown> = {}) {
   return {
@@ -31,7 +33,13 @@ function makeOrder(id: number, overrides: Record<string, unknown> = {}) {
     priority: "urgent",
     targetDate: plus(today, 10),
     rooms: [{ id: 1, name: "Bedroom 1" }],
-    property: { id: 100 + id, addressLine1: `${id} Heron Walk`, town: "Easterby", postcode: `ZX5 ${id}AB`, estate: "Kestrel Rise" },
+    property: {
+      id: 100 + id,
+      addressLine1: `${id} Heron Walk`,
+      town: "Easterby",
+      postcode: `ZX5 ${id}AB`,
+      estate: "Kestrel Rise",
+    },
     assignee: null,
     contractor: null,
     slot: null,
@@ -43,7 +51,12 @@ function makeOrder(id: number, overrides: Record<string, unknown> = {}) {
   };
 }
 
-const slot = (date: string, window: "am" | "pm" | "all-day") => ({ date, window, startsAt: `${date}T08:00:00.000Z`, endsAt: `${date}T17:00:00.000Z` });
+const slot = (date: string, window: "am" | "pm" | "all-day") => ({
+  date,
+  window,
+  startsAt: `${date}T08:00:00.000Z`,
+  endsAt: `${date}T17:00:00.000Z`,
+});
 const dale = { id: 3, name: "Dale Whitcombe" };
 const sam = { id: 4, name: "Sam Okafor" };
 /** The order as PATCH /api/work-orders/:id answers a booking: the slot the request asked for, with its times. */
@@ -55,8 +68,19 @@ const bookedAs = <O extends object>(order: O, body: unknown) => {
 /** The week board's bookings for the week starting `monday`. */
 function weekOrders(monday: string) {
   return [
-    makeOrder(1, { status: "confirmed", assignee: dale, slot: slot(monday, "am"), booking: { response: "confirmed", reason: null, respondedAt: "2026-12-01T10:00:00.000Z" } }),
-    makeOrder(2, { status: "scheduled", type: "extractor-fan", assignee: sam, slot: slot(plus(monday, 2), "pm"), booking: { response: null, reason: null, respondedAt: null } }),
+    makeOrder(1, {
+      status: "confirmed",
+      assignee: dale,
+      slot: slot(monday, "am"),
+      booking: { response: "confirmed", reason: null, respondedAt: "2026-12-01T10:00:00.000Z" },
+    }),
+    makeOrder(2, {
+      status: "scheduled",
+      type: "extractor-fan",
+      assignee: sam,
+      slot: slot(plus(monday, 2), "pm"),
+      booking: { response: null, reason: null, respondedAt: null },
+    }),
     makeOrder(3, {
       status: "change-requested",
       type: "insulation",
@@ -64,13 +88,24 @@ function weekOrders(monday: string) {
       slot: slot(plus(monday, 3), "all-day"),
       booking: { response: "change-requested", reason: "I work on Thursdays.", respondedAt: "2026-12-01T10:00:00.000Z" },
     }),
-    makeOrder(4, { status: "scheduled", type: "roof-gutter", contractor: { id: 7, name: "Brightvent Ltd" }, slot: slot(plus(monday, 4), "am"), booking: { response: null, reason: null, respondedAt: null } }),
+    makeOrder(4, {
+      status: "scheduled",
+      type: "roof-gutter",
+      contractor: { id: 7, name: "Brightvent Ltd" },
+      slot: slot(plus(monday, 4), "am"),
+      booking: { response: null, reason: null, respondedAt: null },
+    }),
   ];
 }
 
 const tableOrders = [
   makeOrder(11, { type: "extractor-fan", targetDate: plus(today, -3) }),
-  makeOrder(12, { status: "scheduled", assignee: dale, slot: slot(plus(today, 5), "am"), booking: { response: null, reason: null, respondedAt: null } }),
+  makeOrder(12, {
+    status: "scheduled",
+    assignee: dale,
+    slot: slot(plus(today, 5), "am"),
+    booking: { response: null, reason: null, respondedAt: null },
+  }),
 ];
 
 type Routes = Record<string, MockReply | ((call: RecordedCall, nth: number) => MockReply)>;
@@ -83,7 +118,14 @@ function setup(url: string, routes: Routes = {}) {
     "GET /api/contractors": { body: { contractors } },
     "GET /api/work-orders": (call) => {
       const items = call.search.has("from") ? weekOrders(call.search.get("from")!) : tableOrders;
-      return { body: { items, total: items.length, page: Number(call.search.get("page") ?? 1), pageSize: Number(call.search.get("pageSize") ?? 25) } };
+      return {
+        body: {
+          items,
+          total: items.length,
+          page: Number(call.search.get("page") ?? 1),
+          pageSize: Number(call.search.get("pageSize") ?? 25),
+        },
+      };
     },
     ...routes,
   });
@@ -126,11 +168,17 @@ describe("Works page", () => {
     expect(sent.get("status")).toBe("scheduled,change-requested,confirmed,done");
 
     // Column headers are the working days; row headers the operatives, then the contractors.
-    const headers = within(table).getAllByRole("columnheader").map((h) => h.textContent);
+    const headers = within(table)
+      .getAllByRole("columnheader")
+      .map((h) => h.textContent);
     expect(headers).toHaveLength(6);
     expect(headers[1]).toMatch(/^Monday \d+ \w+/);
     expect(headers[5]).toMatch(/^Friday/);
-    expect(within(table).getAllByRole("rowheader").map((h) => h.textContent)).toEqual(["Dale Whitcombe", "Sam Okafor", "Contractors"]);
+    expect(
+      within(table)
+        .getAllByRole("rowheader")
+        .map((h) => h.textContent),
+    ).toEqual(["Dale Whitcombe", "Sam Okafor", "Contractors"]);
 
     // Dale, Monday morning: order 1, confirmed; his Monday afternoon is free.
     const daleDays = dayCells(table, "Dale Whitcombe");
@@ -173,13 +221,17 @@ describe("Works page", () => {
     const user = userEvent.setup();
     await user.click(screen.getByRole("button", { name: /Next week/ }));
     await waitFor(() => expect(search(router).get("week")).toBe(nextMonday));
-    await waitFor(() => expect(boardCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search.get("to")).toBe(plus(nextMonday, 4)));
+    await waitFor(() =>
+      expect(boardCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search.get("to")).toBe(plus(nextMonday, 4)),
+    );
     expect(boardCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search.get("from")).toBe(nextMonday);
 
     await user.click(screen.getByRole("button", { name: /Previous week/ }));
     await user.click(screen.getByRole("button", { name: /Previous week/ }));
     await waitFor(() => expect(search(router).get("week")).toBe(plus(thisMonday, -7)));
-    await waitFor(() => expect(boardCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search.get("from")).toBe(plus(thisMonday, -7)));
+    await waitFor(() =>
+      expect(boardCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search.get("from")).toBe(plus(thisMonday, -7)),
+    );
 
     await waitFor(() => expect(screen.getByRole("button", { name: "This week" })).toBeEnabled());
     await user.click(screen.getByRole("button", { name: "This week" }));
@@ -190,7 +242,14 @@ describe("Works page", () => {
 
   it("says so when no work is booked in the week", async () => {
     setup(`/works?week=${nextMonday}`, {
-      "GET /api/work-orders": (call) => ({ body: { items: call.search.has("from") ? [] : tableOrders, total: call.search.has("from") ? 0 : 2, page: 1, pageSize: 25 } }),
+      "GET /api/work-orders": (call) => ({
+        body: {
+          items: call.search.has("from") ? [] : tableOrders,
+          total: call.search.has("from") ? 0 : 2,
+          page: 1,
+          pageSize: 25,
+        },
+      }),
     });
     expect(await screen.findByText("No work booked this week")).toBeInTheDocument();
     // The empty grid is still there to plan with.
@@ -200,7 +259,9 @@ describe("Works page", () => {
   it("books an operative from the table with the right PATCH body, then closes and refreshes", async () => {
     const date = plus(today, 7);
     const { callsTo } = setup("/works", {
-      "PATCH /api/work-orders/11": (call) => ({ body: bookedAs({ ...tableOrders[0], status: "scheduled", assignee: sam }, call.body) }),
+      "PATCH /api/work-orders/11": (call) => ({
+        body: bookedAs({ ...tableOrders[0], status: "scheduled", assignee: sam }, call.body),
+      }),
     });
     const table = await ordersTable();
     const user = userEvent.setup();
@@ -254,7 +315,9 @@ describe("Works page", () => {
     fireEvent.change(within(dialog).getByLabelText("Day of the visit"), { target: { value: date } });
     await user.click(within(dialog).getByRole("radio", { name: /^All day/ }));
     await user.click(within(dialog).getByRole("button", { name: "Book the visit" }));
-    await waitFor(() => expect(callsTo("PATCH", "/api/work-orders/11")[0]?.body).toEqual({ contractorId: 7, slot: { date, window: "all-day" } }));
+    await waitFor(() =>
+      expect(callsTo("PATCH", "/api/work-orders/11")[0]?.body).toEqual({ contractorId: 7, slot: { date, window: "all-day" } }),
+    );
   });
 
   it("shows the server's double-booking message and keeps the dialog open for another slot", async () => {
@@ -287,61 +350,74 @@ describe("Works page", () => {
     expect(within(dialog).queryByRole("alert")).not.toBeInTheDocument();
     await user.click(within(dialog).getByRole("button", { name: "Book the visit" }));
     await waitFor(() => expect(callsTo("PATCH", "/api/work-orders/12")).toHaveLength(2));
-    expect(callsTo("PATCH", "/api/work-orders/12")[1]!.body).toEqual({ assigneeId: 3, slot: { date: plus(today, 5), window: "pm" } });
+    expect(callsTo("PATCH", "/api/work-orders/12")[1]!.body).toEqual({
+      assigneeId: 3,
+      slot: { date: plus(today, 5), window: "pm" },
+    });
     await waitFor(() => expect(screen.queryByRole("dialog")).not.toBeInTheDocument());
   });
 
-  it("opens on the open orders by target date, and puts every filter, sort and page in the URL and the request", { timeout: 30_000 }, async () => {
-    const { callsTo, router } = setup("/works");
-    const table = await ordersTable();
-    expect(Object.fromEntries(tableCalls(callsTo("GET", "/api/work-orders"))[0]!.search)).toEqual({
-      status: "unscheduled,scheduled,change-requested,confirmed",
-      sort: "target",
-      order: "asc",
-      page: "1",
-      pageSize: "25",
-    });
-    expect(within(table).getByRole("columnheader", { name: "Target date" })).toHaveAttribute("aria-sort", "ascending");
-    // Past its target date: said in words, not only in colour.
-    const lateRow = within(table).getByRole("link", { name: "DW-2026-00051" }).closest("tr")!;
-    expect(within(lateRow).getByText("Late")).toBeInTheDocument();
-
-    const user = userEvent.setup();
-    await user.selectOptions(screen.getByRole("combobox", { name: "Type of work" }), "Extractor fan");
-    await waitFor(() => expect(search(router).get("type")).toBe("extractor-fan"));
-    // Each next step waits until the page shows the last one, as a person would.
-    await waitFor(() => expect(screen.getByRole("combobox", { name: "Type of work" })).toHaveValue("extractor-fan"));
-    await user.selectOptions(screen.getByRole("combobox", { name: "Booked with" }), "Sam Okafor");
-    await waitFor(() => expect(search(router).get("assignee")).toBe("4"));
-    await waitFor(() => expect(screen.getByRole("combobox", { name: "Booked with" })).toHaveValue("4"));
-    await user.click(screen.getByRole("checkbox", { name: "Done" }));
-    await waitFor(() => expect(search(router).get("status")).toBe("unscheduled,scheduled,change-requested,confirmed,done"));
-    await waitFor(() => expect(screen.getByRole("checkbox", { name: "Done" })).toBeChecked());
-    await user.click(within(table).getByRole("button", { name: "Slot" }));
-    await waitFor(() => expect(search(router).get("sort")).toBe("slot"));
-
-    await waitFor(() =>
-      expect(Object.fromEntries(tableCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search)).toEqual({
-        status: "unscheduled,scheduled,change-requested,confirmed,done",
-        type: "extractor-fan",
-        assignee: "4",
-        sort: "slot",
+  it(
+    "opens on the open orders by target date, and puts every filter, sort and page in the URL and the request",
+    { timeout: 30_000 },
+    async () => {
+      const { callsTo, router } = setup("/works");
+      const table = await ordersTable();
+      expect(Object.fromEntries(tableCalls(callsTo("GET", "/api/work-orders"))[0]!.search)).toEqual({
+        status: "unscheduled,scheduled,change-requested,confirmed",
+        sort: "target",
         order: "asc",
         page: "1",
         pageSize: "25",
-      }),
-      // Four navigations, each with its loader and refetch: generous when the machine is busy.
-      { timeout: 15_000 },
-    );
+      });
+      expect(within(table).getByRole("columnheader", { name: "Target date" })).toHaveAttribute("aria-sort", "ascending");
+      // Past its target date: said in words, not only in colour.
+      const lateRow = within(table).getByRole("link", { name: "DW-2026-00051" }).closest("tr")!;
+      expect(within(lateRow).getByText("Late")).toBeInTheDocument();
 
-    await user.click(screen.getByRole("button", { name: "Clear filters" }));
-    await waitFor(() => expect(Object.fromEntries(search(router))).toEqual({ sort: "slot" }));
-  });
+      const user = userEvent.setup();
+      await user.selectOptions(screen.getByRole("combobox", { name: "Type of work" }), "Extractor fan");
+      await waitFor(() => expect(search(router).get("type")).toBe("extractor-fan"));
+      // Each next step waits until the page shows the last one, as a person would.
+      await waitFor(() => expect(screen.getByRole("combobox", { name: "Type of work" })).toHaveValue("extractor-fan"));
+      await user.selectOptions(screen.getByRole("combobox", { name: "Booked with" }), "Sam Okafor");
+      await waitFor(() => expect(search(router).get("assignee")).toBe("4"));
+      await waitFor(() => expect(screen.getByRole("combobox", { name: "Booked with" })).toHaveValue("4"));
+      await user.click(screen.getByRole("checkbox", { name: "Done" }));
+      await waitFor(() => expect(search(router).get("status")).toBe("unscheduled,scheduled,change-requested,confirmed,done"));
+      await waitFor(() => expect(screen.getByRole("checkbox", { name: "Done" })).toBeChecked());
+      await user.click(within(table).getByRole("button", { name: "Slot" }));
+      await waitFor(() => expect(search(router).get("sort")).toBe("slot"));
+
+      await waitFor(
+        () =>
+          expect(Object.fromEntries(tableCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search)).toEqual({
+            status: "unscheduled,scheduled,change-requested,confirmed,done",
+            type: "extractor-fan",
+            assignee: "4",
+            sort: "slot",
+            order: "asc",
+            page: "1",
+            pageSize: "25",
+          }),
+        // Four navigations, each with its loader and refetch: generous when the machine is busy.
+        { timeout: 15_000 },
+      );
+
+      await user.click(screen.getByRole("button", { name: "Clear filters" }));
+      await waitFor(() => expect(Object.fromEntries(search(router))).toEqual({ sort: "slot" }));
+    },
+  );
 
   it("reads the table's view from a shared link", async () => {
-    const { callsTo } = setup("/works?status=done,cancelled&type=heating&assignee=me&sort=priority&order=desc&page=2&pageSize=10", {
-      "GET /api/work-orders": (call) => ({ body: { items: call.search.has("from") ? [] : tableOrders, total: 12, page: 2, pageSize: 10 } }),
-    });
+    const { callsTo } = setup(
+      "/works?status=done,cancelled&type=heating&assignee=me&sort=priority&order=desc&page=2&pageSize=10",
+      {
+        "GET /api/work-orders": (call) => ({
+          body: { items: call.search.has("from") ? [] : tableOrders, total: 12, page: 2, pageSize: 10 },
+        }),
+      },
+    );
     await ordersTable();
     expect(Object.fromEntries(tableCalls(callsTo("GET", "/api/work-orders"))[0]!.search)).toEqual({
       status: "done,cancelled",
@@ -395,7 +471,11 @@ describe("Works page", () => {
     await user.type(within(panel).getByRole("textbox", { name: /^Trade/ }), "roofing");
     await user.click(within(panel).getByRole("button", { name: "Add contractor" }));
     await waitFor(() => expect(callsTo("POST", "/api/contractors")).toHaveLength(1));
-    expect(callsTo("POST", "/api/contractors")[0]!.body).toEqual({ name: "Ridgeline Roofing", email: "office@ridgeline.example", trade: "roofing" });
+    expect(callsTo("POST", "/api/contractors")[0]!.body).toEqual({
+      name: "Ridgeline Roofing",
+      email: "office@ridgeline.example",
+      trade: "roofing",
+    });
     expect(await within(panel).findByText(/Ridgeline Roofing was added/)).toBeInTheDocument();
   });
 });

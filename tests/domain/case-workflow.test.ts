@@ -51,7 +51,16 @@ describe("case status moves (our own workflow)", () => {
   });
 
   it("reaches closed from new along the main path", () => {
-    const path: CaseStatus[] = ["new", "triaged", "inspection-booked", "investigated", "works-planned", "works-done", "monitoring", "closed"];
+    const path: CaseStatus[] = [
+      "new",
+      "triaged",
+      "inspection-booked",
+      "investigated",
+      "works-planned",
+      "works-done",
+      "monitoring",
+      "closed",
+    ];
     for (let i = 1; i < path.length; i++) expect(canTransition(path[i - 1]!, path[i]!)).toBe(true);
   });
 });

@@ -93,25 +93,41 @@ describe("a significant hazard (TRADE.md §5)", () => {
   it("summary: pending → met, pending → missed, missed by a late summary", () => {
     const base = { awareAt: AWARE, investigationEndedAt: ENDED };
     expect(run({ ...base, now: at("2026-04-16T09:00:00Z") }).state("summary")).toBe("pending");
-    expect(run({ ...base, now: at("2026-04-20T09:00:00Z"), summarySentAt: at("2026-04-17T16:00:00Z") }).state("summary")).toBe("met");
+    expect(run({ ...base, now: at("2026-04-20T09:00:00Z"), summarySentAt: at("2026-04-17T16:00:00Z") }).state("summary")).toBe(
+      "met",
+    );
     expect(run({ ...base, now: at("2026-04-17T23:00:00Z") }).state("summary")).toBe("missed"); // 00:00 BST Saturday
-    expect(run({ ...base, now: at("2026-04-20T09:00:00Z"), summarySentAt: at("2026-04-20T08:00:00Z") }).state("summary")).toBe("missed");
+    expect(run({ ...base, now: at("2026-04-20T09:00:00Z"), summarySentAt: at("2026-04-20T08:00:00Z") }).state("summary")).toBe(
+      "missed",
+    );
   });
 
   it("safety work: pending → met, pending → missed, missed by a late start", () => {
     const base = { awareAt: AWARE, investigationEndedAt: ENDED };
     expect(run({ ...base, now: at("2026-04-21T12:00:00Z") }).state("safety-work")).toBe("pending");
-    expect(run({ ...base, now: at("2026-04-23T12:00:00Z"), safetyWorkStartedAt: at("2026-04-21T22:30:00Z") }).state("safety-work")).toBe("met"); // 23:30 BST
+    expect(
+      run({ ...base, now: at("2026-04-23T12:00:00Z"), safetyWorkStartedAt: at("2026-04-21T22:30:00Z") }).state("safety-work"),
+    ).toBe("met"); // 23:30 BST
     expect(run({ ...base, now: at("2026-04-21T23:00:00Z") }).state("safety-work")).toBe("missed");
-    expect(run({ ...base, now: at("2026-04-23T12:00:00Z"), safetyWorkStartedAt: at("2026-04-22T07:00:00Z") }).state("safety-work")).toBe("missed");
+    expect(
+      run({ ...base, now: at("2026-04-23T12:00:00Z"), safetyWorkStartedAt: at("2026-04-22T07:00:00Z") }).state("safety-work"),
+    ).toBe("missed");
   });
 
   it("supplementary work: pending → met, pending → missed, missed by a late start (TRADE.md §5: 12 weeks)", () => {
     const base = { awareAt: AWARE, investigationEndedAt: ENDED };
     expect(run({ ...base, now: at("2026-07-07T12:00:00Z") }).state("supplementary-work")).toBe("pending");
-    expect(run({ ...base, now: at("2026-07-10T12:00:00Z"), supplementaryWorkStartedAt: at("2026-07-07T08:00:00Z") }).state("supplementary-work")).toBe("met");
+    expect(
+      run({ ...base, now: at("2026-07-10T12:00:00Z"), supplementaryWorkStartedAt: at("2026-07-07T08:00:00Z") }).state(
+        "supplementary-work",
+      ),
+    ).toBe("met");
     expect(run({ ...base, now: at("2026-07-08T12:00:00Z") }).state("supplementary-work")).toBe("missed");
-    expect(run({ ...base, now: at("2026-07-10T12:00:00Z"), supplementaryWorkStartedAt: at("2026-07-08T08:00:00Z") }).state("supplementary-work")).toBe("missed");
+    expect(
+      run({ ...base, now: at("2026-07-10T12:00:00Z"), supplementaryWorkStartedAt: at("2026-07-08T08:00:00Z") }).state(
+        "supplementary-work",
+      ),
+    ).toBe("missed");
   });
 
   it("the clocks going back: aware Friday 23 October 2026 (the calendar)", () => {
@@ -156,11 +172,18 @@ describe("an emergency hazard", () => {
     expect(run({ ...base, now: at(due) }).state("make-safe")).toBe("pending");
     expect(run({ ...base, now: at("2026-03-29T12:00:00.001Z") }).state("make-safe")).toBe("missed");
     expect(run({ ...base, now: at("2026-03-30T09:00:00Z"), madeSafeAt: at(due) }).state("make-safe")).toBe("met");
-    expect(run({ ...base, now: at("2026-03-30T09:00:00Z"), madeSafeAt: at("2026-03-29T14:00:00Z") }).state("make-safe")).toBe("missed");
+    expect(run({ ...base, now: at("2026-03-30T09:00:00Z"), madeSafeAt: at("2026-03-29T14:00:00Z") }).state("make-safe")).toBe(
+      "missed",
+    );
   });
 
   it("summary and supplementary work apply, safety work is the make-safe stage (our own choice)", () => {
-    const r = run({ awareAt: aware, hazardClass: "emergency", now: at("2026-03-29T09:00:00Z"), investigationEndedAt: at("2026-03-28T18:00:00Z") });
+    const r = run({
+      awareAt: aware,
+      hazardClass: "emergency",
+      now: at("2026-03-29T09:00:00Z"),
+      investigationEndedAt: at("2026-03-28T18:00:00Z"),
+    });
     expect(r.state("investigate")).toBe("met");
     expect(r.due("summary")).toBe("2026-04-01T22:59:59.999Z"); // 3 working days: Mon 30, Tue 31, Wed 1 (TRADE.md §5)
     expect(r.get("safety-work")).toMatchObject({ dueAt: null, state: "not-applicable" });
@@ -169,7 +192,9 @@ describe("an emergency hazard", () => {
 
   it("24 hours across the clocks going back are elapsed hours too (our own choice)", () => {
     // Saturday 24 October 2026 12:00 UTC (13:00 BST) → Sunday 25 October 12:00 UTC (12:00 GMT).
-    expect(run({ awareAt: at("2026-10-24T12:00:00Z"), hazardClass: "emergency" }).due("make-safe")).toBe("2026-10-25T12:00:00.000Z");
+    expect(run({ awareAt: at("2026-10-24T12:00:00Z"), hazardClass: "emergency" }).due("make-safe")).toBe(
+      "2026-10-25T12:00:00.000Z",
+    );
   });
 });
 
@@ -184,7 +209,12 @@ describe("a hazard classified not significant (our own choice)", () => {
   });
 
   it("investigate is met once recorded; other recorded times are kept as doneAt", () => {
-    const r = run({ awareAt: AWARE, hazardClass: "not-significant", investigationEndedAt: ENDED, summarySentAt: at("2026-04-15T10:00:00Z") });
+    const r = run({
+      awareAt: AWARE,
+      hazardClass: "not-significant",
+      investigationEndedAt: ENDED,
+      summarySentAt: at("2026-04-15T10:00:00Z"),
+    });
     expect(r.state("investigate")).toBe("met");
     expect(r.get("summary")).toMatchObject({ state: "not-applicable", dueAt: null });
     expect(r.get("summary").doneAt?.toISOString()).toBe("2026-04-15T10:00:00.000Z");
@@ -229,7 +259,12 @@ describe("nextDeadline (our own choice: the pending stage due soonest; ties in s
   it("follows the case through its stages", () => {
     expect(next({}, AWARE)?.stage).toBe("investigate");
     expect(next({ investigationEndedAt: ENDED }, ENDED)?.stage).toBe("summary");
-    expect(next({ investigationEndedAt: ENDED, summarySentAt: at("2026-04-16T09:00:00Z") }, at("2026-04-16T10:00:00Z"))?.dueAt?.toISOString()).toBe(SAFETY_DUE);
+    expect(
+      next(
+        { investigationEndedAt: ENDED, summarySentAt: at("2026-04-16T09:00:00Z") },
+        at("2026-04-16T10:00:00Z"),
+      )?.dueAt?.toISOString(),
+    ).toBe(SAFETY_DUE);
   });
 
   it("skips a missed stage, and returns null when nothing is pending", () => {

@@ -105,7 +105,9 @@ describe("diagnosis from a series", () => {
     for (let i = 0; i < 10; i++) delete readings[i]!.surfaceTemperatureC;
     const d = run({ readings });
     expect(d.reasons.join(" ")).toMatch(/averaged 15\.0 °C; a cooler room has cooler walls and windows/);
-    expect(d.reasons.join(" ")).toMatch(/Of 73 readings, the surface temperature was measured for 63, taken at the air temperature for 10/);
+    expect(d.reasons.join(" ")).toMatch(
+      /Of 73 readings, the surface temperature was measured for 63, taken at the air temperature for 10/,
+    );
   });
 
   it("says when the surface was taken at air temperature", () => {
@@ -132,8 +134,12 @@ describe("diagnose() on its own", () => {
     // Same rules as above (TRADE.md §2 and §6); 24 h minimum and 60 % air RH are ours, no source.
     expect(kinds({ observedHours: 12 })).toBe("insufficient-data");
     expect(kinds({ worstRolling30DayMeanSurfaceRhPct: null })).toBe("insufficient-data");
-    expect(kinds({ worstRolling30DayMeanSurfaceRhPct: 60, hoursCondensing: 0, hoursSurfaceRhAtLeast80: 0 })).toBe("no-risk-found");
-    expect(kinds({ worstRolling30DayMeanSurfaceRhPct: 60, hoursCondensing: 0, surfaceWet: true })).toBe("likely-not-condensation");
+    expect(kinds({ worstRolling30DayMeanSurfaceRhPct: 60, hoursCondensing: 0, hoursSurfaceRhAtLeast80: 0 })).toBe(
+      "no-risk-found",
+    );
+    expect(kinds({ worstRolling30DayMeanSurfaceRhPct: 60, hoursCondensing: 0, surfaceWet: true })).toBe(
+      "likely-not-condensation",
+    );
     const excess = { meanGPerM3: 7, loadClass: 4, meanOutdoorTemperatureC: 3, readings: 720, assumedOutdoorRhReadings: 0 };
     expect(kinds({ moistureExcess: excess })).toBe("ventilation-or-moisture-load");
     expect(kinds({ moistureExcess: { ...excess, meanGPerM3: 3, loadClass: 2 } })).toBe("cold-surface");

@@ -109,7 +109,25 @@ describe("bands: our rounding rule (half-open [lower edge, next edge up), decide
   it("the published whole-number ranges agree with ours on every whole score up to 6000", () => {
     // TRADE.md §4 bands as written (from memory [M]): A ≥ 5000; B 2000–4999; … ; I 10–19; J ≤ 9.
     const published = (s: number): Band =>
-      s >= 5000 ? "A" : s >= 2000 ? "B" : s >= 1000 ? "C" : s >= 500 ? "D" : s >= 200 ? "E" : s >= 100 ? "F" : s >= 50 ? "G" : s >= 20 ? "H" : s >= 10 ? "I" : "J";
+      s >= 5000
+        ? "A"
+        : s >= 2000
+          ? "B"
+          : s >= 1000
+            ? "C"
+            : s >= 500
+              ? "D"
+              : s >= 200
+                ? "E"
+                : s >= 100
+                  ? "F"
+                  : s >= 50
+                    ? "G"
+                    : s >= 20
+                      ? "H"
+                      : s >= 10
+                        ? "I"
+                        : "J";
     for (let s = 0; s <= 6000; s++) expect(bandFor(s)).toBe(published(s));
   });
 
@@ -206,16 +224,24 @@ describe("validateAssessment", () => {
   it("refuses a spread that is not four numbers", () => {
     // TRADE.md §4 [S]: one percentage for each of classes I–IV.
     expect(validateAssessment({ likelihood: 3, spread: [0, 0, 100] as unknown as Spread })).toMatchObject([{ field: "spread" }]);
-    expect(validateAssessment({ likelihood: 3, spread: [0, 0, 0, 0, 100] as unknown as Spread })).toMatchObject([{ field: "spread" }]);
+    expect(validateAssessment({ likelihood: 3, spread: [0, 0, 0, 0, 100] as unknown as Spread })).toMatchObject([
+      { field: "spread" },
+    ]);
     expect(validateAssessment({ likelihood: 3, spread: [0, Number.NaN, 0, 100] })).toMatchObject([{ field: "spread", index: 1 }]);
   });
 
   it("refuses a value outside 0–100 or finer than one decimal place", () => {
     // 0–100: they are percentages (TRADE.md §4 [S]); one decimal place: the precision of the
     // representative points, our own documented rule.
-    expect(validateAssessment({ likelihood: 3, spread: [0, -1, 1, 100] })).toContainEqual(expect.objectContaining({ field: "spread", index: 1 }));
-    expect(validateAssessment({ likelihood: 3, spread: [0, 0, 0, 100.1] })).toContainEqual(expect.objectContaining({ field: "spread", index: 3 }));
-    expect(validateAssessment({ likelihood: 3, spread: [0, 1.0, 10.0, 89.05] })).toContainEqual(expect.objectContaining({ field: "spread", index: 3 }));
+    expect(validateAssessment({ likelihood: 3, spread: [0, -1, 1, 100] })).toContainEqual(
+      expect.objectContaining({ field: "spread", index: 1 }),
+    );
+    expect(validateAssessment({ likelihood: 3, spread: [0, 0, 0, 100.1] })).toContainEqual(
+      expect.objectContaining({ field: "spread", index: 3 }),
+    );
+    expect(validateAssessment({ likelihood: 3, spread: [0, 1.0, 10.0, 89.05] })).toContainEqual(
+      expect.objectContaining({ field: "spread", index: 3 }),
+    );
   });
 
   it("takes 0.1 + 0.2 style binary noise as the decimal it stands for", () => {

@@ -24,7 +24,14 @@ describe("material classes", () => {
     // TRADE.md §3 [S]: Ojanen et al. (2010) / Viitanen et al. (2010) sensitivity classes.
     expect(MATERIAL_CLASSES["very-sensitive"]).toMatchObject({ k1BelowOne: 1, k1FromOne: 2, a: 1, b: 7, c: 2, rhMinPct: 80 });
     expect(MATERIAL_CLASSES.sensitive).toMatchObject({ k1BelowOne: 0.578, k1FromOne: 0.386, a: 0.3, b: 6, c: 1, rhMinPct: 80 });
-    expect(MATERIAL_CLASSES["medium-resistant"]).toMatchObject({ k1BelowOne: 0.072, k1FromOne: 0.097, a: 0, b: 5, c: 1.5, rhMinPct: 85 });
+    expect(MATERIAL_CLASSES["medium-resistant"]).toMatchObject({
+      k1BelowOne: 0.072,
+      k1FromOne: 0.097,
+      a: 0,
+      b: 5,
+      c: 1.5,
+      rhMinPct: 85,
+    });
     expect(MATERIAL_CLASSES.resistant).toMatchObject({ k1BelowOne: 0.033, k1FromOne: 0.014, a: 0, b: 3, c: 1, rhMinPct: 85 });
   });
 

@@ -40,7 +40,9 @@ describe("evaluatePoint", () => {
     expect(r.surface.state).toBe("condensing");
     expect(r.surface.source).toBe("measured");
     expect(r.surface.relativeHumidityPct).toBeCloseTo(149.3, 1);
-    expect(r.reasons).toContain("The window surface is about 9.0 °C, below the air's dew point of 15.1 °C, so water condenses on it.");
+    expect(r.reasons).toContain(
+      "The window surface is about 9.0 °C, below the air's dew point of 15.1 °C, so water condenses on it.",
+    );
   });
 
   it("air properties at 20 °C / 60 % match the psychrometrics module", () => {
@@ -48,7 +50,7 @@ describe("evaluatePoint", () => {
     // pv = 0.6 × 2338.80 = 1403.28 Pa; dew point 12.01 °C (TRADE.md §1 [D]);
     // ρv = 1403.28/(461.523 × 293.15) = 10.372 g/m³; W = 0.621945 × 1403.28/(101325 − 1403.28) = 0.0087345.
     const r = evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 60 });
-    expect(r.saturationVapourPressurePa).toBeCloseTo(2338.80, 2);
+    expect(r.saturationVapourPressurePa).toBeCloseTo(2338.8, 2);
     expect(r.vapourPressurePa).toBeCloseTo(1403.28, 2);
     expect(Math.abs(r.dewPointC - 12.01)).toBeLessThan(0.02);
     expect(r.absoluteHumidityGPerM3).toBeCloseTo(10.372, 3);
@@ -110,7 +112,12 @@ describe("evaluatePoint", () => {
     expect(ok.surface.temperatureFactor).toBeCloseTo(0.85, 12);
     expect(ok.reasons.some((s) => s.includes("0.75"))).toBe(false);
     // 20 − 17 = 3 K < 5 K (our own cut-off): no factor.
-    const mild = evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 40, surfaceTemperatureC: 18, outdoorTemperatureC: 17 });
+    const mild = evaluatePoint({
+      airTemperatureC: 20,
+      relativeHumidityPct: 40,
+      surfaceTemperatureC: 18,
+      outdoorTemperatureC: 17,
+    });
     expect(mild.surface.temperatureFactor).toBeUndefined();
     expect(mild.reasons.some((s) => s.includes("no temperature factor is given"))).toBe(true);
   });
@@ -120,7 +127,8 @@ describe("evaluatePoint", () => {
     //   θs 18 °C: 1169.40/2064.29 = 56.6 % → dry
     //   θs 12 °C: psat 1402.59 → 83.4 % → mould-risk (≥ 80, ISO 13788)
     //   θs 14 °C: psat 1598.67 → 73.1 % → borderline (70–80, our own margin)
-    const at = (s: number) => evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 50, surfaceTemperatureC: s }).surface.state;
+    const at = (s: number) =>
+      evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 50, surfaceTemperatureC: s }).surface.state;
     expect(at(18)).toBe("dry");
     expect(at(14)).toBe("borderline");
     expect(at(12)).toBe("mould-risk");
@@ -131,7 +139,11 @@ describe("evaluatePoint", () => {
     // Issue 3 brief: the module throws RangeError on NaN inputs.
     expect(() => evaluatePoint({ airTemperatureC: Number.NaN, relativeHumidityPct: 50 })).toThrow(RangeError);
     expect(() => evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: Number.NaN })).toThrow(RangeError);
-    expect(() => evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 50, surfaceTemperatureC: Number.NaN })).toThrow(RangeError);
-    expect(() => evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 50, outdoorTemperatureC: Number.NaN })).toThrow(RangeError);
+    expect(() => evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 50, surfaceTemperatureC: Number.NaN })).toThrow(
+      RangeError,
+    );
+    expect(() => evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 50, outdoorTemperatureC: Number.NaN })).toThrow(
+      RangeError,
+    );
   });
 });

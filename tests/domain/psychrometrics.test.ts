@@ -182,7 +182,11 @@ describe("absolute humidity and humidity ratio", () => {
     // mass per unit volume is the water share W/(1+W) of it. psychrolib's density uses 1.607858
     // where 1/0.621945 = 1.6078592; the mismatch grows with W (about 2e−8 relative at 30 °C/70 %),
     // hence the 1e−7 tolerance.
-    for (const [t, rh] of [[5, 90], [20, 50], [30, 70]] as const) {
+    for (const [t, rh] of [
+      [5, 90],
+      [20, 50],
+      [30, 70],
+    ] as const) {
       const w = psychrolib.GetHumRatioFromRelHum(t, rh / 100, 101_325);
       const density = psychrolib.GetMoistAirDensity(t, w, 101_325);
       expect(relativeError(absoluteHumidityGPerM3(t, rh), (1000 * w * density) / (1 + w))).toBeLessThan(1e-7);

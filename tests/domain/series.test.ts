@@ -26,7 +26,17 @@ const air = (t: number, rh: number): Conditions => ({ airTemperatureC: t, relati
 describe("evaluateSeries shape and ordering", () => {
   it("returns exactly the agreed keys; moistureExcess only with outdoor readings", () => {
     // Issue 3 brief: the public API returns this shape verbatim.
-    const base = ["count", "from", "to", "hoursSurfaceRhAtLeast80", "hoursCondensing", "worstRolling30DayMeanSurfaceRhPct", "mouldIndex", "gaps", "diagnosis"];
+    const base = [
+      "count",
+      "from",
+      "to",
+      "hoursSurfaceRhAtLeast80",
+      "hoursCondensing",
+      "worstRolling30DayMeanSurfaceRhPct",
+      "mouldIndex",
+      "gaps",
+      "diagnosis",
+    ];
     const without = evaluateSeries({ readings: at(range(48), () => air(20, 50)) });
     expect(Object.keys(without)).toEqual(base);
     const withOutdoor = evaluateSeries({ readings: at(range(48), () => ({ ...air(20, 50), outdoorTemperatureC: 5 })) });
@@ -59,14 +69,22 @@ describe("evaluateSeries shape and ordering", () => {
   it("handles an empty series", () => {
     // Our convention (series.ts): no readings → nulls and insufficient-data.
     const r = evaluateSeries({ readings: [] });
-    expect(r).toMatchObject({ count: 0, from: null, to: null, hoursSurfaceRhAtLeast80: 0, worstRolling30DayMeanSurfaceRhPct: null });
+    expect(r).toMatchObject({
+      count: 0,
+      from: null,
+      to: null,
+      hoursSurfaceRhAtLeast80: 0,
+      worstRolling30DayMeanSurfaceRhPct: null,
+    });
     expect(r.diagnosis.kind).toBe("insufficient-data");
   });
 
   it("throws RangeError on NaN readings and bad times", () => {
     // Issue 3 brief: the module throws RangeError on NaN inputs.
     expect(() => evaluateSeries({ readings: at([0, 1], () => air(Number.NaN, 50)) })).toThrow(RangeError);
-    expect(() => evaluateSeries({ readings: at([0, 1], () => ({ ...air(20, 50), surfaceTemperatureC: Number.NaN })) })).toThrow(RangeError);
+    expect(() => evaluateSeries({ readings: at([0, 1], () => ({ ...air(20, 50), surfaceTemperatureC: Number.NaN })) })).toThrow(
+      RangeError,
+    );
     expect(() => evaluateSeries({ readings: [{ at: "not a time", ...air(20, 50) }] })).toThrow(RangeError);
   });
 });

@@ -3,7 +3,13 @@
 // (UTC+0) in winter and BST (UTC+1) from the last Sunday in March to the last Sunday in October,
 // Summer Time Act 1972 as amended (from memory).
 import { describe, expect, it } from "vitest";
-import { buildSummaryTemplate, hasPlaceholder, latestAssessment, latestInspection, type SummaryTemplateInput } from "@/features/case-workspace/lib/summary-template";
+import {
+  buildSummaryTemplate,
+  hasPlaceholder,
+  latestAssessment,
+  latestInspection,
+  type SummaryTemplateInput,
+} from "@/features/case-workspace/lib/summary-template";
 
 const base: SummaryTemplateInput = {
   reference: "DW-2026-00042",
@@ -14,8 +20,18 @@ const base: SummaryTemplateInput = {
   sender: { name: "Priya Venn", role: "Housing officer" },
 };
 
-const earlier = { inspectedAt: "2026-01-12T09:00:00.000Z", cause: "plumbing-leak", mouldExtent: "none", findings: "Dripping waste pipe under the sink." };
-const later = { inspectedAt: "2026-01-14T10:30:00.000Z", cause: "condensation", mouldExtent: "1-to-5-m2", findings: "Mould behind the wardrobe on the external wall." };
+const earlier = {
+  inspectedAt: "2026-01-12T09:00:00.000Z",
+  cause: "plumbing-leak",
+  mouldExtent: "none",
+  findings: "Dripping waste pipe under the sink.",
+};
+const later = {
+  inspectedAt: "2026-01-14T10:30:00.000Z",
+  cause: "condensation",
+  mouldExtent: "1-to-5-m2",
+  findings: "Mould behind the wardrobe on the external wall.",
+};
 
 const deadlines = [
   { stage: "make-safe", dueAt: null, doneAt: null, state: "not-applicable" },
@@ -43,11 +59,15 @@ describe("written summary template", () => {
     expect(text).toContain(later.findings);
     expect(text).not.toContain(earlier.findings);
     expect(text).toContain("We saw mould over between 1 and 5 square metres.");
-    expect(text).toContain("Condensation: moisture in the air indoors is settling on surfaces in your home that are colder than they should be.");
+    expect(text).toContain(
+      "Condensation: moisture in the air indoors is settling on surfaces in your home that are colder than they should be.",
+    );
     expect(text).toContain("It is a Category 1 hazard (band B)");
     expect(text).not.toContain("band E");
     expect(text).toContain("- We will begin the work to remove the risk to your health by Monday, 19 January 2026 at 23:59 GMT.");
-    expect(text).toContain("- We will begin the further work to stop the damp and mould coming back by Wednesday, 1 July 2026 at 23:59 BST.");
+    expect(text).toContain(
+      "- We will begin the further work to stop the damp and mould coming back by Wednesday, 1 July 2026 at 23:59 BST.",
+    );
     // The summary itself and stages that are done or do not apply are not promised again.
     expect(text).not.toMatch(/15 January 2026/);
     expect(text).not.toMatch(/make your home safe/);
@@ -63,13 +83,17 @@ describe("written summary template", () => {
       inspections: [later],
       deadlines: [{ stage: "safety-work", dueAt: "2026-01-19T23:59:59.999Z", doneAt: null, state: "missed" }],
     });
-    expect(text).toContain("We will begin the work to remove the risk to your health as soon as possible: we should have done so by Monday, 19 January 2026 at 23:59 GMT");
+    expect(text).toContain(
+      "We will begin the work to remove the risk to your health as soon as possible: we should have done so by Monday, 19 January 2026 at 23:59 GMT",
+    );
   });
 
   it("leaves clearly marked gaps where the case cannot say", () => {
     const text = buildSummaryTemplate({ ...base, reference: null, inspections: [{ ...later, cause: "other-unknown" }] });
     expect(text).toContain("We have not found the cause yet. [Fill in: what we will do next to find it]");
-    expect(text).toContain("We will tell you the result of our Housing Health and Safety Rating System (HHSRS) assessment when it is complete.");
+    expect(text).toContain(
+      "We will tell you the result of our Housing Health and Safety Rating System (HHSRS) assessment when it is complete.",
+    );
     expect(text).toContain("[Fill in: when we will start and finish the work]");
     expect(text).not.toContain("reference");
 
@@ -81,14 +105,21 @@ describe("written summary template", () => {
   it("never describes the household, only the building", () => {
     for (const cause of ["condensation", "penetrating-damp", "rising-damp", "plumbing-leak", "roof-gutter", "other-unknown"]) {
       const text = buildSummaryTemplate({ ...base, inspections: [{ ...later, cause, findings: "Findings." }] }).toLowerCase();
-      for (const word of ["lifestyle", "drying clothes", "your heating habits", "you should ventilate"]) expect(text).not.toContain(word);
+      for (const word of ["lifestyle", "drying clothes", "your heating habits", "you should ventilate"])
+        expect(text).not.toContain(word);
     }
   });
 
   it("picks the latest inspection by date and the latest assessment by version", () => {
     expect(latestInspection([later, earlier])).toBe(later);
     expect(latestInspection([])).toBeNull();
-    expect(latestAssessment([{ version: 1, band: "E", category: 2 }, { version: 3, band: "C", category: 1 }, { version: 2, band: "D", category: 2 }])?.version).toBe(3);
+    expect(
+      latestAssessment([
+        { version: 1, band: "E", category: 2 },
+        { version: 3, band: "C", category: 1 },
+        { version: 2, band: "D", category: 2 },
+      ])?.version,
+    ).toBe(3);
   });
 
   it("finds a placeholder wherever it is left", () => {

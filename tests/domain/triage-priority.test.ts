@@ -29,14 +29,19 @@ const input: fc.Arbitrary<TriageInput> = fc.record({
   surfaceState: fc.constantFrom(...STATES, "unknown" as const),
   mouldIndex: fc.option(fc.double({ min: 0, max: 6, noNaN: true }), { nil: null }),
   affectedArea: fc.constantFrom(...TRIAGE_AREAS, "unknown" as const),
-  vulnerabilities: fc.oneof(fc.constant("skipped" as const), fc.constant("unknown" as const), fc.subarray([...TRIAGE_VULNERABILITIES])),
+  vulnerabilities: fc.oneof(
+    fc.constant("skipped" as const),
+    fc.constant("unknown" as const),
+    fc.subarray([...TRIAGE_VULNERABILITIES]),
+  ),
   hhsrsCategory: fc.constantFrom(1 as const, 2 as const, null),
   recurrence: fc.boolean(),
   hoursUntilDeadline: fc.option(fc.double({ min: -2000, max: 2000, noNaN: true }), { nil: null }),
 });
 
 const score = (i: TriageInput) => triagePriority(i).score;
-const points = (i: TriageInput, factor: (typeof TRIAGE_FACTORS)[number]) => triagePriority(i).parts.find((p) => p.factor === factor)!.points;
+const points = (i: TriageInput, factor: (typeof TRIAGE_FACTORS)[number]) =>
+  triagePriority(i).parts.find((p) => p.factor === factor)!.points;
 
 describe("the weights table (our own choice)", () => {
   it("factor maxima total exactly 100, so the cap never cuts and the parts always add up", () => {
@@ -105,7 +110,9 @@ describe("the parts", () => {
     fc.assert(
       fc.property(input, (i) => {
         for (const p of triagePriority(i).parts) {
-          expect(p.explanation).not.toMatch(/lifestyle|habit|blame|fault|careless|drying (clothes|washing)|should (open|heat|ventilate)/i);
+          expect(p.explanation).not.toMatch(
+            /lifestyle|habit|blame|fault|careless|drying (clothes|washing)|should (open|heat|ventilate)/i,
+          );
         }
       }),
     );
@@ -145,7 +152,12 @@ describe("ordering principles (from the brief; weights our own choice)", () => {
     // Principle from the brief; children under 15 are the HHSRS vulnerable group (TRADE.md §4 [S]).
     fc.assert(
       fc.property(input, (i) => {
-        const urgent = score({ ...i, vulnerabilities: ["children-under-15"], surfaceState: "condensing", affectedArea: "larger" });
+        const urgent = score({
+          ...i,
+          vulnerabilities: ["children-under-15"],
+          surfaceState: "condensing",
+          affectedArea: "larger",
+        });
         const calm = score({ ...i, vulnerabilities: [], surfaceState: "dry" });
         expect(urgent).toBeGreaterThan(calm);
       }),
@@ -166,9 +178,14 @@ describe("ordering principles (from the brief; weights our own choice)", () => {
   it("an overdue deadline adds more than one due within a week", () => {
     // Principle from the brief; 14 and 4 from our own weights.
     fc.assert(
-      fc.property(input, fc.double({ min: -2000, max: -0.001, noNaN: true }), fc.double({ min: 72.001, max: 168, noNaN: true }), (i, overdue, inAWeek) => {
-        expect(score({ ...i, hoursUntilDeadline: overdue })).toBeGreaterThan(score({ ...i, hoursUntilDeadline: inAWeek }));
-      }),
+      fc.property(
+        input,
+        fc.double({ min: -2000, max: -0.001, noNaN: true }),
+        fc.double({ min: 72.001, max: 168, noNaN: true }),
+        (i, overdue, inAWeek) => {
+          expect(score({ ...i, hoursUntilDeadline: overdue })).toBeGreaterThan(score({ ...i, hoursUntilDeadline: inAWeek }));
+        },
+      ),
     );
   });
 
@@ -193,7 +210,10 @@ describe("ordering principles (from the brief; weights our own choice)", () => {
 });
 
 describe("monotone in each factor, all else equal (our own documented principle)", () => {
-  const orderOf = <T>(order: readonly T[]) => fc.tuple(fc.integer({ min: 0, max: order.length - 1 }), fc.integer({ min: 0, max: order.length - 1 })).map(([a, b]) => [order[Math.min(a, b)], order[Math.max(a, b)]] as const);
+  const orderOf = <T>(order: readonly T[]) =>
+    fc
+      .tuple(fc.integer({ min: 0, max: order.length - 1 }), fc.integer({ min: 0, max: order.length - 1 }))
+      .map(([a, b]) => [order[Math.min(a, b)], order[Math.max(a, b)]] as const);
 
   it("a wetter surface state never lowers the score", () => {
     fc.assert(
@@ -220,7 +240,9 @@ describe("monotone in each factor, all else equal (our own documented principle)
         expect(score({ ...i, mouldIndex: Math.max(a, b) })).toBeGreaterThanOrEqual(score({ ...i, mouldIndex: Math.min(a, b) }));
       }),
     );
-    expect([0, 0.99, 1, 2.5, 3, 4, 5.99, 6].map((m) => points({ ...base, mouldIndex: m }, "mould-index"))).toEqual([0, 0, 1, 2, 3, 4, 5, 6]);
+    expect([0, 0.99, 1, 2.5, 3, 4, 5.99, 6].map((m) => points({ ...base, mouldIndex: m }, "mould-index"))).toEqual([
+      0, 0, 1, 2, 3, 4, 5, 6,
+    ]);
   });
 
   it("a larger area never lowers the score; an unknown area counts as A4", () => {
@@ -229,21 +251,28 @@ describe("monotone in each factor, all else equal (our own documented principle)
         expect(score({ ...i, affectedArea: larger })).toBeGreaterThanOrEqual(score({ ...i, affectedArea: smaller }));
       }),
     );
-    expect(points({ ...base, affectedArea: "unknown" }, "affected-area")).toBe(points({ ...base, affectedArea: "a4" }, "affected-area"));
+    expect(points({ ...base, affectedArea: "unknown" }, "affected-area")).toBe(
+      points({ ...base, affectedArea: "a4" }, "affected-area"),
+    );
     expect(TRIAGE_AREAS.map((a) => points({ ...base, affectedArea: a }, "affected-area"))).toEqual([2, 5, 8, 12]);
   });
 
   it("another vulnerable group never lowers the score; a skipped question sits above none and below any group", () => {
     fc.assert(
-      fc.property(input, fc.subarray([...TRIAGE_VULNERABILITIES]), fc.constantFrom(...TRIAGE_VULNERABILITIES), (i, groups, extra) => {
-        const before = score({ ...i, vulnerabilities: groups });
-        expect(score({ ...i, vulnerabilities: [...groups, extra] })).toBeGreaterThanOrEqual(before);
-        for (const missing of ["skipped", "unknown"] as const) {
-          const m = score({ ...i, vulnerabilities: missing });
-          expect(m).toBeGreaterThan(score({ ...i, vulnerabilities: [] }));
-          expect(m).toBeLessThan(score({ ...i, vulnerabilities: [extra] }));
-        }
-      }),
+      fc.property(
+        input,
+        fc.subarray([...TRIAGE_VULNERABILITIES]),
+        fc.constantFrom(...TRIAGE_VULNERABILITIES),
+        (i, groups, extra) => {
+          const before = score({ ...i, vulnerabilities: groups });
+          expect(score({ ...i, vulnerabilities: [...groups, extra] })).toBeGreaterThanOrEqual(before);
+          for (const missing of ["skipped", "unknown"] as const) {
+            const m = score({ ...i, vulnerabilities: missing });
+            expect(m).toBeGreaterThan(score({ ...i, vulnerabilities: [] }));
+            expect(m).toBeLessThan(score({ ...i, vulnerabilities: [extra] }));
+          }
+        },
+      ),
     );
   });
 
@@ -251,7 +280,8 @@ describe("monotone in each factor, all else equal (our own documented principle)
     // Children under 15: the HHSRS vulnerable group for damp and mould growth (TRADE.md §4 [S]);
     // 16 of 20 is our own weight, the most any single group gets.
     const children = points({ ...base, vulnerabilities: ["children-under-15"] }, "vulnerability");
-    for (const g of TRIAGE_VULNERABILITIES) expect(children).toBeGreaterThanOrEqual(points({ ...base, vulnerabilities: [g] }, "vulnerability"));
+    for (const g of TRIAGE_VULNERABILITIES)
+      expect(children).toBeGreaterThanOrEqual(points({ ...base, vulnerabilities: [g] }, "vulnerability"));
     expect(points({ ...base, vulnerabilities: ["children-under-15", "children-under-15"] }, "vulnerability")).toBe(children);
   });
 
@@ -274,10 +304,17 @@ describe("monotone in each factor, all else equal (our own documented principle)
 
   it("a nearer deadline never lowers the score, and having one never scores below having none", () => {
     fc.assert(
-      fc.property(input, fc.double({ min: -2000, max: 2000, noNaN: true }), fc.double({ min: -2000, max: 2000, noNaN: true }), (i, a, b) => {
-        expect(score({ ...i, hoursUntilDeadline: Math.min(a, b) })).toBeGreaterThanOrEqual(score({ ...i, hoursUntilDeadline: Math.max(a, b) }));
-        expect(score({ ...i, hoursUntilDeadline: a })).toBeGreaterThanOrEqual(score({ ...i, hoursUntilDeadline: null }));
-      }),
+      fc.property(
+        input,
+        fc.double({ min: -2000, max: 2000, noNaN: true }),
+        fc.double({ min: -2000, max: 2000, noNaN: true }),
+        (i, a, b) => {
+          expect(score({ ...i, hoursUntilDeadline: Math.min(a, b) })).toBeGreaterThanOrEqual(
+            score({ ...i, hoursUntilDeadline: Math.max(a, b) }),
+          );
+          expect(score({ ...i, hoursUntilDeadline: a })).toBeGreaterThanOrEqual(score({ ...i, hoursUntilDeadline: null }));
+        },
+      ),
     );
   });
 });

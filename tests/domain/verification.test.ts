@@ -8,7 +8,11 @@ const WORKS = Date.UTC(2026, 0, 12, 12); // Mon 12 January 2026, 12:00 UTC
 /** Saturation vapour pressure over water, hPa: the Magnus form with Alduchov & Eskridge (1996) constants (from memory). */
 const magnus = (t: number) => 6.1094 * Math.exp((17.625 * t) / (t + 243.04));
 
-function hourly(fromMs: number, n: number, reading: { airTemperatureC: number; relativeHumidityPct: number; surfaceTemperatureC: number }) {
+function hourly(
+  fromMs: number,
+  n: number,
+  reading: { airTemperatureC: number; relativeHumidityPct: number; surfaceTemperatureC: number },
+) {
   return Array.from({ length: n }, (_, i) => ({ at: new Date(fromMs + i * HOUR).toISOString(), ...reading }));
 }
 
@@ -54,10 +58,16 @@ describe("compareBeforeAfter", () => {
   });
 
   it("does not judge with less than a day of readings after the works, and says no when it is no better", () => {
-    const tooShort = compareBeforeAfter({ readings: [...before, ...hourly(WORKS, 10, { airTemperatureC: 20, relativeHumidityPct: 50, surfaceTemperatureC: 17 })], worksDoneAt: new Date(WORKS) });
+    const tooShort = compareBeforeAfter({
+      readings: [...before, ...hourly(WORKS, 10, { airTemperatureC: 20, relativeHumidityPct: 50, surfaceTemperatureC: 17 })],
+      worksDoneAt: new Date(WORKS),
+    });
     expect(tooShort.after.coveredHours).toBeLessThan(MIN_AFTER_HOURS);
     expect(tooShort.improved).toBeNull();
-    const same = compareBeforeAfter({ readings: [...before, ...hourly(WORKS, 48, { airTemperatureC: 20, relativeHumidityPct: 72, surfaceTemperatureC: 15 })], worksDoneAt: new Date(WORKS) });
+    const same = compareBeforeAfter({
+      readings: [...before, ...hourly(WORKS, 48, { airTemperatureC: 20, relativeHumidityPct: 72, surfaceTemperatureC: 15 })],
+      worksDoneAt: new Date(WORKS),
+    });
     expect(same.improved).toBe(false);
     const none = compareBeforeAfter({ readings: before, worksDoneAt: new Date(WORKS) });
     expect(none.after).toMatchObject({ count: 0, meanSurfaceRhPct: null });

@@ -32,17 +32,22 @@ function packageBankHolidays(h: Holidays, year: number) {
 describe("bank holidays", () => {
   it("England's and Wales's bank holidays are the same dates, 2000–2050 (the holiday package's data)", () => {
     for (let year = 2000; year <= 2050; year++) {
-      expect(packageBankHolidays(wales, year).map((h) => h.date)).toEqual(
-        packageBankHolidays(england, year).map((h) => h.date),
-      );
+      expect(packageBankHolidays(wales, year).map((h) => h.date)).toEqual(packageBankHolidays(england, year).map((h) => h.date));
     }
   });
 
   it("are the package's public holidays, without its observances (the holiday package's data)", () => {
-    const observances = england.getHolidays(2026).filter((h) => h.type === "observance").map((h) => h.date.slice(0, 10));
+    const observances = england
+      .getHolidays(2026)
+      .filter((h) => h.type === "observance")
+      .map((h) => h.date.slice(0, 10));
     expect(observances.length).toBeGreaterThan(0); // Mother's Day, Easter Sunday, Father's Day
     for (const year of [2022, 2026, 2027]) {
-      expect(bankHolidayDates(year)).toEqual(packageBankHolidays(england, year).map((h) => h.date).sort());
+      expect(bankHolidayDates(year)).toEqual(
+        packageBankHolidays(england, year)
+          .map((h) => h.date)
+          .sort(),
+      );
     }
     for (const date of observances) expect(bankHolidayDates(2026)).not.toContain(date);
   });

@@ -21,7 +21,9 @@ describe("dew point calculator", () => {
     const page = await browser.context.newPage();
     try {
       await page.goto(`${served.url}/calculator`);
-      await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Dew point and surface humidity calculator");
+      await expect
+        .poll(() => page.getByRole("heading", { level: 1 }).textContent())
+        .toBe("Dew point and surface humidity calculator");
       const results = page.getByRole("region", { name: "Result" });
       await expect.poll(() => results.getByText("Results appear here as you type").isVisible()).toBe(true);
 
@@ -49,7 +51,9 @@ describe("dew point calculator", () => {
     const page = await browser.context.newPage();
     try {
       await page.goto(`${served.url}/calculator`);
-      await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("Dew point and surface humidity calculator");
+      await expect
+        .poll(() => page.getByRole("heading", { level: 1 }).textContent())
+        .toBe("Dew point and surface humidity calculator");
       const serious = async () => {
         const { violations } = await new AxeBuilder({ page }).analyze();
         return violations
@@ -61,7 +65,9 @@ describe("dew point calculator", () => {
       await page.getByRole("button", { name: "Try an example" }).click();
       await page.getByLabel(/^Outdoor temperature/).fill("0");
       await page.getByLabel(/^Building element/).selectOption({ label: "Older double glazing" });
-      await expect.poll(() => page.getByRole("region", { name: "Result" }).getByText("Condensing", { exact: true }).isVisible()).toBe(true);
+      await expect
+        .poll(() => page.getByRole("region", { name: "Result" }).getByText("Condensing", { exact: true }).isVisible())
+        .toBe(true);
       expect(await serious()).toEqual([]);
 
       // An invalid value: the field message and the out-of-date result must pass too.

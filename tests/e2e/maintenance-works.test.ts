@@ -33,17 +33,45 @@ beforeAll(async () => {
   bathroomId = home.rooms.find((r: { kind: string }) => r.kind === "bathroom").id;
   caseId = (
     await sam
-      .post("/api/cases", { description: "Black mould on the bathroom ceiling; the fan makes no noise any more.", locations: ["ceiling"], observations: ["mould-spots", "condensation"], area: "a4", vulnerability: [], roomIds: [bathroomId] })
+      .post("/api/cases", {
+        description: "Black mould on the bathroom ceiling; the fan makes no noise any more.",
+        locations: ["ceiling"],
+        observations: ["mould-spots", "condensation"],
+        area: "a4",
+        vulnerability: [],
+        roomIds: [bathroomId],
+      })
       .expect(201)
   ).body.id;
   // Before the works: 20 °C, 75 % with the ceiling at 15 °C (surface RH ≈ 103 % → condensing), days 6 to 4 ago.
   await sam
-    .post(`/api/cases/${caseId}/readings`, Array.from({ length: 48 }, (_, h) => ({ roomId: bathroomId, takenAt: msAgo((6 * 24 - h) * HOUR).toISOString(), airTemperatureC: 20, relativeHumidityPct: 75, surfaceTemperatureC: 15 })))
+    .post(
+      `/api/cases/${caseId}/readings`,
+      Array.from({ length: 48 }, (_, h) => ({
+        roomId: bathroomId,
+        takenAt: msAgo((6 * 24 - h) * HOUR).toISOString(),
+        airTemperatureC: 20,
+        relativeHumidityPct: 75,
+        surfaceTemperatureC: 15,
+      })),
+    )
     .expect(201);
   const officer = await signedInClient(served.app, "officer@example.org", DEMO_PASSWORD);
-  await officer.patch(`/api/cases/${caseId}`, { status: "triaged", hazardClass: "significant", reason: "Mould over the bath; the extract fan has failed." }).expect(200);
   await officer
-    .post(`/api/cases/${caseId}/inspections`, { inspectedAt: msAgo(2 * HOUR).toISOString(), cause: "condensation", mouldExtent: "under-1-m2", findings: "The bathroom extract fan has failed; condensation mould on the ceiling above the bath.", roomReadings: [] })
+    .patch(`/api/cases/${caseId}`, {
+      status: "triaged",
+      hazardClass: "significant",
+      reason: "Mould over the bath; the extract fan has failed.",
+    })
+    .expect(200);
+  await officer
+    .post(`/api/cases/${caseId}/inspections`, {
+      inspectedAt: msAgo(2 * HOUR).toISOString(),
+      cause: "condensation",
+      mouldExtent: "under-1-m2",
+      findings: "The bathroom extract fan has failed; condensation mould on the ceiling above the bath.",
+      roomReadings: [],
+    })
     .expect(201);
 });
 afterAll(async () => {
@@ -83,7 +111,9 @@ it("books, confirms, completes and verifies an extractor-fan fix", async () => {
   await page.goto(`${served.url}/cases/${caseId}`);
   const works = page.locator("#case-works");
   await works.getByLabel("Type of work").selectOption("extractor-fan");
-  await works.getByRole("textbox", { name: "Description" }).fill("Replace the failed bathroom extract fan with a continuous-running one with humidity boost.");
+  await works
+    .getByRole("textbox", { name: "Description" })
+    .fill("Replace the failed bathroom extract fan with a continuous-running one with humidity boost.");
   await works.getByRole("button", { name: "Add work order" }).click();
   const order = works.getByRole("listitem").filter({ has: page.getByRole("heading", { name: "Extractor fan: fit or repair" }) });
   await order.getByRole("button", { name: /^Schedule…/ }).click();
@@ -107,24 +137,43 @@ it("books, confirms, completes and verifies an extractor-fan fix", async () => {
   // Dale (the operative) records the work with an after-photo.
   await signIn(page, "maintenance@example.org", "Works");
   await page.goto(`${served.url}/cases/${caseId}`);
-  const done = page.locator("#case-works").getByRole("listitem").filter({ has: page.getByRole("heading", { name: "Extractor fan: fit or repair" }) });
+  const done = page
+    .locator("#case-works")
+    .getByRole("listitem")
+    .filter({ has: page.getByRole("heading", { name: "Extractor fan: fit or repair" }) });
   await expect.poll(async () => (await done.innerText()).toLowerCase().includes("confirmed")).toBe(true);
   await done.getByRole("button", { name: /^Record completion…/ }).click();
-  await page.getByRole("dialog").getByRole("textbox", { name: /What was done/ }).fill("Fitted a continuous extract fan with humidity boost; tested the run-on and the boost.");
+  await page
+    .getByRole("dialog")
+    .getByRole("textbox", { name: /What was done/ })
+    .fill("Fitted a continuous extract fan with humidity boost; tested the run-on and the boost.");
   await page.getByRole("dialog").getByRole("button", { name: "Record completion" }).click();
   const photo = path.join(scratch, "fan.jpg");
   writeFileSync(photo, await jpegWithGps(1600, 1200));
   await done.getByLabel("Add photos").setInputFiles(photo);
   await done.getByRole("button", { name: "Send after-photo" }).click();
   await done.getByText("1 after-photo added").waitFor();
-  await expect.poll(async () => (await served.ctx.dataSource.getRepository(Case).findOneByOrFail({ id: caseId })).status).toBe("monitoring");
+  await expect
+    .poll(async () => (await served.ctx.dataSource.getRepository(Case).findOneByOrFail({ id: caseId })).status)
+    .toBe("monitoring");
 
   // Readings after the works: move the works three days back (as if they were done then), and Sam's
   // hygrometer shows 20 °C and 55 % with the ceiling at 18 °C since.
   const worksDoneAt = msAgo(3 * 24 * HOUR);
-  await served.ctx.dataSource.getRepository(Case).update(caseId, { worksDoneAt, monitoringEndsAt: new Date(worksDoneAt.getTime() + 21 * 24 * HOUR) });
+  await served.ctx.dataSource
+    .getRepository(Case)
+    .update(caseId, { worksDoneAt, monitoringEndsAt: new Date(worksDoneAt.getTime() + 21 * 24 * HOUR) });
   await sam
-    .post(`/api/cases/${caseId}/readings`, Array.from({ length: 48 }, (_, h) => ({ roomId: bathroomId, takenAt: new Date(worksDoneAt.getTime() + (h + 1) * HOUR).toISOString(), airTemperatureC: 20, relativeHumidityPct: 55, surfaceTemperatureC: 18 })))
+    .post(
+      `/api/cases/${caseId}/readings`,
+      Array.from({ length: 48 }, (_, h) => ({
+        roomId: bathroomId,
+        takenAt: new Date(worksDoneAt.getTime() + (h + 1) * HOUR).toISOString(),
+        airTemperatureC: 20,
+        relativeHumidityPct: 55,
+        surfaceTemperatureC: 18,
+      })),
+    )
     .expect(201);
 
   // The lead sees the improvement and records the fix as effective.
@@ -132,7 +181,9 @@ it("books, confirms, completes and verifies an extractor-fan fix", async () => {
   const verification = page.locator("#case-verification");
   await verification.getByText("Improved", { exact: true }).first().waitFor();
   await verification.getByRole("button", { name: "Fix effective" }).click();
-  await verification.getByRole("textbox", { name: "What the readings and the visit showed" }).fill("Ceiling surface humidity down from over 100 % to about 62 %; no new mould.");
+  await verification
+    .getByRole("textbox", { name: "What the readings and the visit showed" })
+    .fill("Ceiling surface humidity down from over 100 % to about 62 %; no new mould.");
   await verification.getByRole("button", { name: "Record: fix effective…" }).click();
   await page.getByRole("button", { name: "Yes, the fix worked" }).click();
   await verification.getByText("Recorded: the fix was effective").waitFor();

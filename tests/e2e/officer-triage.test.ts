@@ -48,7 +48,9 @@ beforeAll(async () => {
   await sam.post(`/api/cases/${caseId}/readings`, readings).expect(201);
   // Backdate the awareness by three weeks, as if the report had been sitting there (and mark the
   // figures stale, as any change does).
-  await served.ctx.dataSource.getRepository(Case).update(caseId, { awareAt: msAgo(21 * 86_400_000), triageDueAt: testClock.now() });
+  await served.ctx.dataSource
+    .getRepository(Case)
+    .update(caseId, { awareAt: msAgo(21 * 86_400_000), triageDueAt: testClock.now() });
 });
 afterAll(async () => {
   await browser?.close();
@@ -81,7 +83,9 @@ it("triages from the queue to the written summary, and the tenant reads it", asy
   await expect.poll(() => new URL(page.url()).searchParams.get("overdue")).toBe("true");
   await expect.poll(() => new URL(page.url()).searchParams.get("vulnerable")).toBe("true");
   // Every row now says it is overdue, in words.
-  await expect.poll(async () => (await table.locator("tbody tr").allInnerTexts()).every((row) => /overdue/i.test(row))).toBe(true);
+  await expect
+    .poll(async () => (await table.locator("tbody tr").allInnerTexts()).every((row) => /overdue/i.test(row)))
+    .toBe(true);
 
   // The top case is Sam's.
   const top = table.getByRole("link", { name: /^DW-/ }).first();
@@ -92,7 +96,11 @@ it("triages from the queue to the written summary, and the tenant reads it", asy
   // Record the inspection: condensation, 1–5 m² of mould, a reading in the bedroom.
   await page.getByRole("radio", { name: /^Condensation/ }).check();
   await page.getByRole("radio", { name: /^1 to 5 m²/ }).check();
-  await page.getByRole("textbox", { name: "Findings" }).fill("Mould over the cold outside wall and window reveal; the bathroom extract fan does not run and the trickle vents are painted shut.");
+  await page
+    .getByRole("textbox", { name: "Findings" })
+    .fill(
+      "Mould over the cold outside wall and window reveal; the bathroom extract fan does not run and the trickle vents are painted shut.",
+    );
   await page.getByRole("button", { name: "Record inspection" }).click();
   await expect.poll(async () => (await page.getByText("The deadlines and the timeline now include it.").count()) > 0).toBe(true);
 
@@ -101,8 +109,13 @@ it("triages from the queue to the written summary, and the tenant reads it", asy
   await page.getByLabel(/^Class II \(/).fill("21.5");
   await page.getByLabel(/^Class III \(/).fill("46.4");
   await page.getByLabel(/^Class IV \(/).fill("32.1");
-  await page.getByRole("textbox", { name: "Justification" }).fill("Extensive mould in a child's bedroom with a household member who has asthma.");
-  await page.getByRole("button", { name: /assessment/i }).first().click();
+  await page
+    .getByRole("textbox", { name: "Justification" })
+    .fill("Extensive mould in a child's bedroom with a household member who has asthma.");
+  await page
+    .getByRole("button", { name: /assessment/i })
+    .first()
+    .click();
   await expect.poll(async () => (await page.getByText(/Assessment version 1 saved/).count()) > 0).toBe(true);
 
   // The written summary: the draft is prefilled from the inspection; the officer writes the work.
@@ -111,7 +124,10 @@ it("triages from the queue to the written summary, and the tenant reads it", asy
   const draft = await summary.inputValue();
   await summary.fill(
     draft
-      .replace(/\[Fill in: the work we will do, room by room\]/, "We will fit a continuous extract fan in the bathroom, free the trickle vents and treat the mould in the bedroom.")
+      .replace(
+        /\[Fill in: the work we will do, room by room\]/,
+        "We will fit a continuous extract fan in the bathroom, free the trickle vents and treat the mould in the bedroom.",
+      )
       .replace(/\[Fill in: [^\]]*\]/g, "We will book the work with you this week."),
   );
   await page.getByRole("button", { name: "Send the written summary" }).click();
@@ -120,7 +136,9 @@ it("triages from the queue to the written summary, and the tenant reads it", asy
 
   // The summary went to Sam by e-mail as well.
   await expect
-    .poll(() => served.mail.mails.some((m) => m.to.includes("tenant2@example.org") && /continuous extract fan in the bathroom/.test(m.raw)))
+    .poll(() =>
+      served.mail.mails.some((m) => m.to.includes("tenant2@example.org") && /continuous extract fan in the bathroom/.test(m.raw)),
+    )
     .toBe(true);
 
   // Sam signs in and reads the summary on the case page.

@@ -63,8 +63,22 @@ it("reports a steamed-up bedroom window with a photo and 19 °C / 78 % with the 
   const reference = (await page.getByRole("heading", { level: 1 }).textContent())!;
   await expect.poll(() => page.getByText("Condensing", { exact: true }).first().isVisible()).toBe(true);
   // The advice and the cautions are there, and the promise that the landlord will look into it.
-  await expect.poll(() => page.getByText(/whatever the readings show/i).first().isVisible()).toBe(true);
-  await expect.poll(() => page.getByText(/oven|gas hob/i).first().isVisible()).toBe(true);
+  await expect
+    .poll(() =>
+      page
+        .getByText(/whatever the readings show/i)
+        .first()
+        .isVisible(),
+    )
+    .toBe(true);
+  await expect
+    .poll(() =>
+      page
+        .getByText(/oven|gas hob/i)
+        .first()
+        .isVisible(),
+    )
+    .toBe(true);
 
   await page.goto(`${served.url}/cases`);
   await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe("My reports");

@@ -51,7 +51,8 @@ function reaches(chain: Layer[], method: string, url: string): boolean {
   return false;
 }
 const concrete = (path: string) => path.replace(/:[A-Za-z]+/g, "1");
-const label = (chain: Layer[]) => `${Object.keys(chain.at(-1)!.route!.methods).join(",").toUpperCase()} …${chain.at(-1)!.route!.path}`;
+const label = (chain: Layer[]) =>
+  `${Object.keys(chain.at(-1)!.route!.methods).join(",").toUpperCase()} …${chain.at(-1)!.route!.path}`;
 
 describe("the API's OpenAPI document", () => {
   it("lists every route the app mounts, and no route it does not", () => {
@@ -67,12 +68,15 @@ describe("the API's OpenAPI document", () => {
   it("gives staff the whole API, with request and response schemas from the zod schemas", async () => {
     const doc = (await officer.get("/api/openapi.json").expect(200)).body;
     expect(doc.openapi).toBe("3.1.0");
-    for (const e of ENDPOINTS) expect(doc.paths[e.path.replace(/:([A-Za-z]+)/g, "{$1}")], `${e.method} ${e.path}`).toHaveProperty(e.method.toLowerCase());
+    for (const e of ENDPOINTS)
+      expect(doc.paths[e.path.replace(/:([A-Za-z]+)/g, "{$1}")], `${e.method} ${e.path}`).toHaveProperty(e.method.toLowerCase());
     const getCase = doc.paths["/api/cases/{id}"].get;
     expect(getCase.responses["200"].content["application/json"].schema.properties.status.enum).toContain("works-planned");
     const inspection = doc.paths["/api/cases/{id}/inspections"].post.requestBody.content["application/json"].schema;
     expect(inspection.required).toEqual(expect.arrayContaining(["inspectedAt", "cause", "findings"]));
-    expect(doc.paths["/api/work-orders"].get.parameters.map((p: { name: string }) => p.name)).toEqual(expect.arrayContaining(["status", "page", "pageSize"]));
+    expect(doc.paths["/api/work-orders"].get.parameters.map((p: { name: string }) => p.name)).toEqual(
+      expect.arrayContaining(["status", "page", "pageSize"]),
+    );
     expect(doc.paths["/api/policy"].put.description).toBe("Roles: admin.");
   });
 

@@ -15,7 +15,9 @@ afterAll(() => t.close());
 describe("sign-in", () => {
   it("signs in, returns the user without secrets, and /me answers with the same user", async () => {
     const client = await anonymousClient(t.app);
-    const res = await client.post("/api/auth/login", { email: landlord.officer.email.toUpperCase(), password: PASSWORD }).expect(200);
+    const res = await client
+      .post("/api/auth/login", { email: landlord.officer.email.toUpperCase(), password: PASSWORD })
+      .expect(200);
     expect(res.body.user).toEqual({
       id: landlord.officer.id,
       email: landlord.officer.email,
@@ -121,7 +123,12 @@ describe("sign-in", () => {
 
   it("answers 400 for a body that is not JSON", async () => {
     const client = await anonymousClient(t.app);
-    const res = await client.agent.post("/api/auth/login").set("X-CSRF-Token", client.csrf).set("Content-Type", "application/json").send("{nope").expect(400);
+    const res = await client.agent
+      .post("/api/auth/login")
+      .set("X-CSRF-Token", client.csrf)
+      .set("Content-Type", "application/json")
+      .send("{nope")
+      .expect(400);
     expect(res.body.error.code).toBe("invalid_json");
   });
 });
@@ -138,7 +145,11 @@ describe("CSRF", () => {
   it("refuses a wrong token", async () => {
     const agent = request.agent(t.app);
     await agent.get("/api/auth/csrf").expect(200);
-    await agent.post("/api/auth/login").set("X-CSRF-Token", "forged").send({ email: landlord.officer.email, password: PASSWORD }).expect(403);
+    await agent
+      .post("/api/auth/login")
+      .set("X-CSRF-Token", "forged")
+      .send({ email: landlord.officer.email, password: PASSWORD })
+      .expect(403);
   });
 });
 

@@ -23,13 +23,31 @@ afterAll(() => t.close());
 describe("status changes", () => {
   it("moves along the workflow, recording each move with before and after", async () => {
     const c = await newCase();
-    for (const status of ["triaged", "inspection-booked", "investigated", "works-planned", "works-done", "monitoring", "closed"]) {
+    for (const status of [
+      "triaged",
+      "inspection-booked",
+      "investigated",
+      "works-planned",
+      "works-done",
+      "monitoring",
+      "closed",
+    ]) {
       const res = await officer.patch(`/api/cases/${c.id}`, { status }).expect(200);
       expect(res.body.status).toBe(status);
     }
-    const events = (await tenant.get(`/api/cases/${c.id}/events`)).body.events.filter((e: { type: string }) => e.type === "status-changed");
-    expect(events.map((e: { before: { status: string }; after: { status: string } }) => `${e.before.status}→${e.after.status}`)).toEqual([
-      "new→triaged", "triaged→inspection-booked", "inspection-booked→investigated", "investigated→works-planned", "works-planned→works-done", "works-done→monitoring", "monitoring→closed",
+    const events = (await tenant.get(`/api/cases/${c.id}/events`)).body.events.filter(
+      (e: { type: string }) => e.type === "status-changed",
+    );
+    expect(
+      events.map((e: { before: { status: string }; after: { status: string } }) => `${e.before.status}→${e.after.status}`),
+    ).toEqual([
+      "new→triaged",
+      "triaged→inspection-booked",
+      "inspection-booked→investigated",
+      "investigated→works-planned",
+      "works-planned→works-done",
+      "works-done→monitoring",
+      "monitoring→closed",
     ]);
     // Reopening needs a reason.
     await officer.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(400);
@@ -69,7 +87,9 @@ describe("assignee and hazard class", () => {
   it("classifies the hazard with a reason, recorded on the timeline", async () => {
     const c = await newCase();
     await officer.patch(`/api/cases/${c.id}`, { hazardClass: "significant" }).expect(400);
-    const res = await officer.patch(`/api/cases/${c.id}`, { hazardClass: "significant", reason: "Spreading mould in a child's bedroom." }).expect(200);
+    const res = await officer
+      .patch(`/api/cases/${c.id}`, { hazardClass: "significant", reason: "Spreading mould in a child's bedroom." })
+      .expect(200);
     expect(res.body.hazardClass).toBe("significant");
     const events = (await officer.get(`/api/cases/${c.id}/events`)).body.events;
     expect(events.at(-1)).toMatchObject({ type: "hazard-classified", after: { hazardClass: "significant" } });
@@ -101,9 +121,17 @@ describe("deadlines", () => {
     const res = await officer
       .post("/api/cases", { ...report, propertyId: landlord.home.id, channel: "phone", awareAt: "2025-12-19T10:00:00Z" })
       .expect(201);
-    await officer.patch(`/api/cases/${res.body.id}`, { hazardClass: "significant", reason: "Mould over a large area of the bedroom." }).expect(200);
+    await officer
+      .patch(`/api/cases/${res.body.id}`, { hazardClass: "significant", reason: "Mould over a large area of the bedroom." })
+      .expect(200);
     const { body } = await officer.get(`/api/cases/${res.body.id}/deadlines`).expect(200);
-    expect(body.deadlines.map((d: { stage: string }) => d.stage)).toEqual(["make-safe", "investigate", "summary", "safety-work", "supplementary-work"]);
+    expect(body.deadlines.map((d: { stage: string }) => d.stage)).toEqual([
+      "make-safe",
+      "investigate",
+      "summary",
+      "safety-work",
+      "supplementary-work",
+    ]);
     expect(body.deadlines[0].state).toBe("not-applicable");
     expect(body.deadlines[1]).toEqual({ stage: "investigate", dueAt: "2026-01-07T23:59:59.999Z", doneAt: null, state: "missed" });
     await tenant.get(`/api/cases/${res.body.id}/deadlines`).expect(403);
@@ -111,7 +139,9 @@ describe("deadlines", () => {
 
   it("gives an emergency 24 hours to make safe", async () => {
     const c = await newCase();
-    await officer.patch(`/api/cases/${c.id}`, { hazardClass: "emergency", reason: "Water through the ceiling light fitting." }).expect(200);
+    await officer
+      .patch(`/api/cases/${c.id}`, { hazardClass: "emergency", reason: "Water through the ceiling light fitting." })
+      .expect(200);
     const { body } = await officer.get(`/api/cases/${c.id}/deadlines`).expect(200);
     const awareAt = (await officer.get(`/api/cases/${c.id}`)).body.awareAt;
     expect(body.deadlines[0].dueAt).toBe(new Date(new Date(awareAt).getTime() + 24 * 3_600_000).toISOString());

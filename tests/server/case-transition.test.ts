@@ -10,7 +10,11 @@ import { createTestApp, signedInClient, type Client, type TestApp } from "../sup
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
 let tenant: Client;
-const report = { description: "Black mould behind the bedroom wardrobe.", locations: ["behind-furniture"], observations: ["mould-spots"] };
+const report = {
+  description: "Black mould behind the bedroom wardrobe.",
+  locations: ["behind-furniture"],
+  observations: ["mould-spots"],
+};
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -48,20 +52,32 @@ describe("CaseService.transition", () => {
     expect(await stateOf(id)).toEqual(before);
 
     // Committed: all three.
-    const result = await t.ctx.dataSource.transaction((m) => t.ctx.services.cases.transition(m, id, "triaged", "Looked at the photos.", { id: landlord.officer.id }));
+    const result = await t.ctx.dataSource.transaction((m) =>
+      t.ctx.services.cases.transition(m, id, "triaged", "Looked at the photos.", { id: landlord.officer.id }),
+    );
     expect(result).toEqual({ from: "new", status: "triaged", moved: true });
     const after = await stateOf(id);
     expect(after.status).toBe("triaged");
     expect(after.stale).toBe(true);
     const added = after.events.slice(before.events.length);
     expect(added).toHaveLength(1);
-    expect(added[0]).toMatchObject({ type: "status-changed", actorUserId: landlord.officer.id, before: { status: "new" }, after: { status: "triaged", reason: "Looked at the photos." } });
+    expect(added[0]).toMatchObject({
+      type: "status-changed",
+      actorUserId: landlord.officer.id,
+      before: { status: "new" },
+      after: { status: "triaged", reason: "Looked at the photos." },
+    });
   });
 
   it("refuses a move the workflow does not allow (409) and changes nothing, even when the caller commits", async () => {
     const id = await freshCase();
     const before = await stateOf(id);
-    const error = await t.ctx.dataSource.transaction(async (m) => t.ctx.services.cases.transition(m, id, "closed", "Straight to closed.", { id: landlord.officer.id }).then(() => null, (e: unknown) => e));
+    const error = await t.ctx.dataSource.transaction(async (m) =>
+      t.ctx.services.cases.transition(m, id, "closed", "Straight to closed.", { id: landlord.officer.id }).then(
+        () => null,
+        (e: unknown) => e,
+      ),
+    );
     expect(error).toBeInstanceOf(ConflictError);
     expect((error as ConflictError).message).toContain("cannot move to closed");
     expect(await stateOf(id)).toEqual(before);
@@ -70,7 +86,9 @@ describe("CaseService.transition", () => {
   it("skips a refused move when asked to follow the work only where the workflow allows", async () => {
     const id = await freshCase();
     const before = await stateOf(id);
-    const result = await t.ctx.dataSource.transaction((m) => t.ctx.services.cases.transition(m, id, "monitoring", "Works recorded.", null, { ifAllowed: true }));
+    const result = await t.ctx.dataSource.transaction((m) =>
+      t.ctx.services.cases.transition(m, id, "monitoring", "Works recorded.", null, { ifAllowed: true }),
+    );
     expect(result).toEqual({ from: "new", status: "new", moved: false });
     expect(await stateOf(id)).toEqual(before);
   });
@@ -78,7 +96,9 @@ describe("CaseService.transition", () => {
   it("needs a reason to cancel, and then changes nothing", async () => {
     const id = await freshCase();
     const before = await stateOf(id);
-    await expect(t.ctx.dataSource.transaction((m) => t.ctx.services.cases.transition(m, id, "cancelled", null, { id: landlord.officer.id }))).rejects.toThrow("reason");
+    await expect(
+      t.ctx.dataSource.transaction((m) => t.ctx.services.cases.transition(m, id, "cancelled", null, { id: landlord.officer.id })),
+    ).rejects.toThrow("reason");
     expect(await stateOf(id)).toEqual(before);
   });
 });

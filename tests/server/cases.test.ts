@@ -12,7 +12,11 @@ let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
 let other: Awaited<ReturnType<typeof makeLandlord>>;
 let tenant: Client;
-const smallest = { description: "Water runs down the bedroom window every morning.", locations: ["window"], observations: ["condensation"] };
+const smallest = {
+  description: "Water runs down the bedroom window every morning.",
+  locations: ["window"],
+  observations: ["condensation"],
+};
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -25,7 +29,14 @@ afterAll(() => t.close());
 describe("a tenant reports", () => {
   it("accepts the smallest valid report for their own home with a reference and status new", async () => {
     const res = await tenant.post("/api/cases", smallest).expect(201);
-    expect(res.body).toMatchObject({ status: "new", channel: "tenant-online", property: { id: landlord.home.id }, locations: ["window"], observations: ["condensation"], vulnerability: null });
+    expect(res.body).toMatchObject({
+      status: "new",
+      channel: "tenant-online",
+      property: { id: landlord.home.id },
+      locations: ["window"],
+      observations: ["condensation"],
+      vulnerability: null,
+    });
     // Aware now (by the app's clock), and the reference carries that year.
     const awareAt = new Date(res.body.awareAt);
     expect(Math.abs(awareAt.getTime() - testClock.now().getTime())).toBeLessThan(60_000);
@@ -40,7 +51,9 @@ describe("a tenant reports", () => {
     const mail = await t.mail.lastTo(landlord.tenant.email);
     expect(mail.subject).toContain(res.body.reference);
     expect(mail.raw).toMatch(/whatever any readings show/);
-    const outbox = await t.ctx.dataSource.getRepository(OutboxEmail).findOneByOrFail({ relatedType: "case", relatedId: res.body.id, template: "caseAcknowledgement" });
+    const outbox = await t.ctx.dataSource
+      .getRepository(OutboxEmail)
+      .findOneByOrFail({ relatedType: "case", relatedId: res.body.id, template: "caseAcknowledgement" });
     expect(outbox.status).toBe("sent");
     const events = (await tenant.get(`/api/cases/${res.body.id}/events`)).body.events;
     expect(events.map((e: { type: string }) => e.type)).toContain("email-queued");
@@ -48,13 +61,17 @@ describe("a tenant reports", () => {
 
   it("tells the organisation's officers at once when the household is vulnerable, and only once", async () => {
     const before = t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length;
-    const res = await tenant.post("/api/cases", { ...smallest, vulnerability: ["children-under-15", "breathing-or-immune"] }).expect(201);
+    const res = await tenant
+      .post("/api/cases", { ...smallest, vulnerability: ["children-under-15", "breathing-or-immune"] })
+      .expect(201);
     const alert = await t.mail.lastTo(landlord.officer.email);
     expect(alert.subject).toContain(res.body.reference);
     expect(alert.raw).toMatch(/children under 15/);
     await tenant.post(`/api/cases/${res.body.id}/worse`, { note: "Spreading behind the cot." }).expect(204);
     // Once: the outbox (written in the request's transaction) holds one alert to this officer about this case.
-    expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "caseAlert", caseId: res.body.id })).toBe(1);
+    expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "caseAlert", caseId: res.body.id })).toBe(
+      1,
+    );
     expect(t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length).toBe(before + 1);
     const row = await t.ctx.dataSource.getRepository(Case).findOneByOrFail({ id: res.body.id });
     expect(row.vulnerableHousehold).toBe(true);
@@ -117,7 +134,9 @@ describe("who sees a case", () => {
   it("lets staff log a phone report with the date the landlord became aware", async () => {
     const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
     const awareAt = "2026-11-20T09:30:00.000Z";
-    const res = await officer.post("/api/cases", { ...smallest, propertyId: landlord.home.id, channel: "phone", awareAt }).expect(201);
+    const res = await officer
+      .post("/api/cases", { ...smallest, propertyId: landlord.home.id, channel: "phone", awareAt })
+      .expect(201);
     expect(res.body).toMatchObject({ channel: "phone", awareAt, reference: expect.stringMatching(/^DW-2026-/) });
     const mine = await tenant.get("/api/me/cases").expect(200);
     expect(mine.body.items.map((c: { id: number }) => c.id)).toContain(res.body.id);

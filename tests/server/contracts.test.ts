@@ -76,19 +76,42 @@ describe("the server's replies fit the API contract", () => {
     });
     caseId = created.id;
     await get(tenant, `/api/cases/${caseId}`);
-    const upload = tenant.agent.post(`/api/cases/${caseId}/photos`).set("X-CSRF-Token", tenant.csrf).attach("photos", await jpegWithGps(), "wall.jpg");
+    const upload = tenant.agent
+      .post(`/api/cases/${caseId}/photos`)
+      .set("X-CSRF-Token", tenant.csrf)
+      .attach("photos", await jpegWithGps(), "wall.jpg");
     await conforms("POST", `/api/cases/${caseId}/photos`, upload);
     await get(tenant, `/api/cases/${caseId}/photos`);
     await post(tenant, `/api/cases/${caseId}/readings`, [
-      { roomId, takenAt: "2026-11-30T07:00:00Z", airTemperatureC: 17.5, relativeHumidityPct: 78, surfaceTemperatureC: 12.1, outdoorTemperatureC: 4 },
+      {
+        roomId,
+        takenAt: "2026-11-30T07:00:00Z",
+        airTemperatureC: 17.5,
+        relativeHumidityPct: 78,
+        surfaceTemperatureC: 12.1,
+        outdoorTemperatureC: 4,
+      },
       { roomId, takenAt: "2026-11-30T08:00:00Z", airTemperatureC: 18, relativeHumidityPct: 75 },
     ]);
-    const csv = Buffer.from("Time,Temperature,RH\n2026-11-01 08:00,19.5,72\n2026-11-01 09:00,19.8,70\n2026-11-01 10:00,20.1,69\n");
-    await conforms("POST", `/api/cases/${caseId}/readings/import/preview`, tenant.agent.post(`/api/cases/${caseId}/readings/import/preview`).set("X-CSRF-Token", tenant.csrf).attach("file", csv, "logger.csv"));
+    const csv = Buffer.from(
+      "Time,Temperature,RH\n2026-11-01 08:00,19.5,72\n2026-11-01 09:00,19.8,70\n2026-11-01 10:00,20.1,69\n",
+    );
+    await conforms(
+      "POST",
+      `/api/cases/${caseId}/readings/import/preview`,
+      tenant.agent
+        .post(`/api/cases/${caseId}/readings/import/preview`)
+        .set("X-CSRF-Token", tenant.csrf)
+        .attach("file", csv, "logger.csv"),
+    );
     await conforms(
       "POST",
       `/api/cases/${caseId}/readings/import`,
-      tenant.agent.post(`/api/cases/${caseId}/readings/import`).set("X-CSRF-Token", tenant.csrf).field("roomId", String(roomId)).attach("file", csv, "logger.csv"),
+      tenant.agent
+        .post(`/api/cases/${caseId}/readings/import`)
+        .set("X-CSRF-Token", tenant.csrf)
+        .field("roomId", String(roomId))
+        .attach("file", csv, "logger.csv"),
     );
     const readings = await get(tenant, `/api/cases/${caseId}/readings`);
     expect(readings.readings.length).toBe(5);
@@ -102,7 +125,11 @@ describe("the server's replies fit the API contract", () => {
   it("the officer's queue, case changes, triage, related cases, inspections, assessments and deadlines", async () => {
     await get(officer, "/api/cases?page=1&pageSize=10");
     await get(officer, "/api/staff");
-    await patch(officer, `/api/cases/${caseId}`, { status: "triaged", hazardClass: "significant", reason: "Mould where a child sleeps." });
+    await patch(officer, `/api/cases/${caseId}`, {
+      status: "triaged",
+      hazardClass: "significant",
+      reason: "Mould where a child sleeps.",
+    });
     await post(officer, "/api/cases/bulk", { ids: [caseId], assigneeId: landlord.officer.id });
     await get(officer, `/api/cases/${caseId}/triage`);
     await get(officer, `/api/cases/${caseId}/related`);
@@ -111,28 +138,60 @@ describe("the server's replies fit the API contract", () => {
       cause: "condensation",
       mouldExtent: "under-1-m2",
       findings: "Cold corner behind the wardrobe; extract fan in the bathroom not working.",
-      roomReadings: [{ roomId, airTemperatureC: 18, relativeHumidityPct: 74, surfaceTemperaturesC: [12.5], moisture: { value: 18, unit: "wme" }, note: "Behind the wardrobe." }],
+      roomReadings: [
+        {
+          roomId,
+          airTemperatureC: 18,
+          relativeHumidityPct: 74,
+          surfaceTemperaturesC: [12.5],
+          moisture: { value: 18, unit: "wme" },
+          note: "Behind the wardrobe.",
+        },
+      ],
     });
     await get(officer, `/api/cases/${caseId}/inspections`);
-    await post(officer, `/api/cases/${caseId}/assessments`, { likelihood: 180, spread: [0, 0.2, 10, 89.8], justification: "Young child in the home; mould in the bedroom." });
+    await post(officer, `/api/cases/${caseId}/assessments`, {
+      likelihood: 180,
+      spread: [0, 0.2, 10, 89.8],
+      justification: "Young child in the home; mould in the bedroom.",
+    });
     await get(officer, `/api/cases/${caseId}/assessments`);
-    await post(officer, `/api/cases/${caseId}/summary`, { body: "We found condensation mould in the bedroom and will fit a new extract fan." });
+    await post(officer, `/api/cases/${caseId}/summary`, {
+      body: "We found condensation mould in the bedroom and will fit a new extract fan.",
+    });
     await post(officer, `/api/cases/${caseId}/messages`, { body: "Internal: ask the lead about the fan.", internal: true });
     await get(officer, `/api/cases/${caseId}/deadlines`);
   });
 
   it("work orders, contractors and the verification, for staff and for the tenant", async () => {
-    const order = await post(officer, `/api/cases/${caseId}/work-orders`, { type: "extractor-fan", description: "Replace the bathroom extract fan.", roomIds: [roomId], priority: "urgent" });
+    const order = await post(officer, `/api/cases/${caseId}/work-orders`, {
+      type: "extractor-fan",
+      description: "Replace the bathroom extract fan.",
+      roomIds: [roomId],
+      priority: "urgent",
+    });
     workOrderId = order.id;
-    await patch(lead, `/api/work-orders/${workOrderId}`, { assigneeId: landlord.maintenance.id, slot: { date: weekdayAhead(14), window: "am" } });
+    await patch(lead, `/api/work-orders/${workOrderId}`, {
+      assigneeId: landlord.maintenance.id,
+      slot: { date: weekdayAhead(14), window: "am" },
+    });
     await post(tenant, `/api/work-orders/${workOrderId}/booking-response`, { response: "confirm" });
     await get(lead, "/api/work-orders?page=1&pageSize=10");
     await get(lead, `/api/cases/${caseId}/work-orders`);
     await get(tenant, `/api/cases/${caseId}/work-orders`);
-    await post(lead, "/api/contractors", { name: "Fenwick Ventilation", email: "jobs@fenwick.example.org", trade: "ventilation" });
+    await post(lead, "/api/contractors", {
+      name: "Fenwick Ventilation",
+      email: "jobs@fenwick.example.org",
+      trade: "ventilation",
+    });
     await get(lead, "/api/contractors");
-    await patch(lead, `/api/work-orders/${workOrderId}`, { complete: { note: "New fan fitted and tested.", materials: "Humidistat fan", minutesOnSite: 90 } });
-    const photos = lead.agent.post(`/api/work-orders/${workOrderId}/photos`).set("X-CSRF-Token", lead.csrf).attach("photos", await jpegWithGps(800, 600, 7), "after.jpg");
+    await patch(lead, `/api/work-orders/${workOrderId}`, {
+      complete: { note: "New fan fitted and tested.", materials: "Humidistat fan", minutesOnSite: 90 },
+    });
+    const photos = lead.agent
+      .post(`/api/work-orders/${workOrderId}/photos`)
+      .set("X-CSRF-Token", lead.csrf)
+      .attach("photos", await jpegWithGps(800, 600, 7), "after.jpg");
     await conforms("POST", `/api/work-orders/${workOrderId}/photos`, photos);
     await get(lead, `/api/cases/${caseId}/work-orders`);
     await get(tenant, `/api/cases/${caseId}/work-orders`);
@@ -142,7 +201,18 @@ describe("the server's replies fit the API contract", () => {
 
   it("policy, homes and accounts", async () => {
     await get(officer, "/api/policy");
-    await conforms("PUT", "/api/policy", admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send({ emergencyMakeSafeHours: 24, investigateWorkingDays: 8, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, monitoringDays: 21 }));
+    await conforms(
+      "PUT",
+      "/api/policy",
+      admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send({
+        emergencyMakeSafeHours: 24,
+        investigateWorkingDays: 8,
+        summaryWorkingDays: 3,
+        safetyWorkWorkingDays: 5,
+        supplementaryWorkWeeks: 12,
+        monitoringDays: 21,
+      }),
+    );
     await conforms("DELETE", "/api/policy", admin.agent.delete("/api/policy").set("X-CSRF-Token", admin.csrf));
     await get(officer, "/api/properties?page=1&pageSize=10");
     await get(officer, "/api/properties/estates");
@@ -154,7 +224,17 @@ describe("the server's replies fit the API contract", () => {
   });
 
   it("covered the main endpoints", () => {
-    for (const route of ["GET /api/cases/:id", "GET /api/cases", "GET /api/work-orders", "GET /api/policy", "GET /api/auth/me", "GET /api/cases/:id/photos", "GET /api/cases/:id/readings", "GET /api/cases/:id/evaluation", "GET /api/cases/:id/verification"]) {
+    for (const route of [
+      "GET /api/cases/:id",
+      "GET /api/cases",
+      "GET /api/work-orders",
+      "GET /api/policy",
+      "GET /api/auth/me",
+      "GET /api/cases/:id/photos",
+      "GET /api/cases/:id/readings",
+      "GET /api/cases/:id/evaluation",
+      "GET /api/cases/:id/verification",
+    ]) {
       expect(checked).toContain(route);
     }
   });

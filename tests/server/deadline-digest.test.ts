@@ -28,7 +28,11 @@ afterAll(() => t.close());
 type Landlord = Awaited<ReturnType<typeof makeLandlord>>;
 
 /** A case at `home` whose next deadline is `stage` at `dueAt` (set directly, see the top of the file). */
-async function makeCase(home: Property, o: { assignee?: User | null; stage?: DeadlineStage | null; dueAt: string | null; status?: CaseStatus }, reporter: User) {
+async function makeCase(
+  home: Property,
+  o: { assignee?: User | null; stage?: DeadlineStage | null; dueAt: string | null; status?: CaseStatus },
+  reporter: User,
+) {
   const repo = t.ctx.dataSource.getRepository(Case);
   const saved = await repo.save(
     repo.create({
@@ -80,9 +84,21 @@ describe("the deadline digest", () => {
     c.noDeadline = await makeCase(a.home, { assignee: me, dueAt: null }, me);
     c.closed = await makeCase(a.home, { assignee: me, dueAt: "2024-12-01T23:59:59.999Z", status: "closed" }, me);
     c.cancelled = await makeCase(a.home, { assignee: null, dueAt: "2024-12-01T23:59:59.999Z", status: "cancelled" }, me);
-    c.othersCase = await makeCase(a.home, { assignee: otherOfficer, stage: "investigate", dueAt: "2024-12-04T23:59:59.999Z" }, me);
-    c.maintenanceCase = await makeCase(a.home, { assignee: a.maintenance, stage: "safety-work", dueAt: "2024-12-04T23:59:59.999Z" }, me);
-    c.otherLandlord = await makeCase(b.home, { assignee: null, stage: "investigate", dueAt: "2024-12-04T23:59:59.999Z" }, b.officer);
+    c.othersCase = await makeCase(
+      a.home,
+      { assignee: otherOfficer, stage: "investigate", dueAt: "2024-12-04T23:59:59.999Z" },
+      me,
+    );
+    c.maintenanceCase = await makeCase(
+      a.home,
+      { assignee: a.maintenance, stage: "safety-work", dueAt: "2024-12-04T23:59:59.999Z" },
+      me,
+    );
+    c.otherLandlord = await makeCase(
+      b.home,
+      { assignee: null, stage: "investigate", dueAt: "2024-12-04T23:59:59.999Z" },
+      b.officer,
+    );
   });
 
   it("e-mails each officer their own and the unassigned cases due within two working days, overdue first", async () => {
@@ -96,7 +112,16 @@ describe("the deadline digest", () => {
     const order = [c.overdue, c.laterToday, c.tomorrow, c.lastDay].map((x) => text.indexOf(`${x.reference},`));
     expect(order.every((i) => i > 0)).toBe(true);
     expect([...order].sort((x, y) => x - y)).toEqual(order);
-    for (const x of [c.dayAfter, c.nextWeek, c.noDeadline, c.closed, c.cancelled, c.othersCase, c.maintenanceCase, c.otherLandlord]) {
+    for (const x of [
+      c.dayAfter,
+      c.nextWeek,
+      c.noDeadline,
+      c.closed,
+      c.cancelled,
+      c.othersCase,
+      c.maintenanceCase,
+      c.otherLandlord,
+    ]) {
       expect(text).not.toContain(`${x.reference},`);
     }
 
@@ -104,7 +129,9 @@ describe("the deadline digest", () => {
     expect(text).toContain(`OVERDUE: ${c.overdue.reference}, ${a.home.addressLine1}, Testford ZX1 1AA`);
     expect(text).toContain("Investigate the hazard: was due by the end of Monday 2 December 2024 (23:59), and is now overdue");
     expect(text).toContain("Make the home safe (emergency hazard): due Tuesday 3 December 2024 at 14:30");
-    expect(text).toContain("Send the tenant the written summary of the investigation: due by the end of Wednesday 4 December 2024 (23:59)");
+    expect(text).toContain(
+      "Send the tenant the written summary of the investigation: due by the end of Wednesday 4 December 2024 (23:59)",
+    );
     expect(text).toContain("by the end of Thursday 5 December 2024");
     expect(text).toContain("Not assigned to anyone yet");
     expect(text).toContain("Assigned to you");
@@ -124,9 +151,16 @@ describe("the deadline digest", () => {
     for (const u of [disabledOfficer, a.maintenance, a.admin, a.tenant]) expect(mailsTo(u)).toHaveLength(0);
 
     // The day is recorded with the outbox e-mail it sent.
-    const digest = await t.ctx.dataSource.getRepository(DeadlineDigest).findOneByOrFail({ userId: a.officer.id, digestDate: "2024-12-03" });
+    const digest = await t.ctx.dataSource
+      .getRepository(DeadlineDigest)
+      .findOneByOrFail({ userId: a.officer.id, digestDate: "2024-12-03" });
     const outbox = await t.ctx.dataSource.getRepository(OutboxEmail).findOneByOrFail({ id: digest.outboxEmailId });
-    expect(outbox).toMatchObject({ toAddress: a.officer.email, template: "deadlineDigest", status: "sent", organisationId: a.org.id });
+    expect(outbox).toMatchObject({
+      toAddress: a.officer.email,
+      template: "deadlineDigest",
+      status: "sent",
+      organisationId: a.org.id,
+    });
   });
 
   it("sends nothing more the same day, even when two runs race", async () => {
@@ -139,7 +173,9 @@ describe("the deadline digest", () => {
     expect(runs.every((r) => r.failed === 0)).toBe(true);
     expect(mailsTo(a.officer)).toHaveLength(2);
     expect(mailsTo(otherOfficer)).toHaveLength(2);
-    const outbox = await t.ctx.dataSource.getRepository(OutboxEmail).findBy({ toAddress: a.officer.email, template: "deadlineDigest" });
+    const outbox = await t.ctx.dataSource
+      .getRepository(OutboxEmail)
+      .findBy({ toAddress: a.officer.email, template: "deadlineDigest" });
     expect(outbox.map((o) => o.status)).toEqual(["sent", "sent"]);
     // Wednesday's window ends with Friday 6 December: that case joins, next week's still does not.
     const wednesday = mailsTo(a.officer)[1]!.raw;
@@ -191,7 +227,10 @@ describe("the deadline digest", () => {
     let now = new Date("2024-12-10T06:55:00Z"); // 06:55 in London (GMT)
     const scheduler = startDigestScheduler(
       // Stale triage figures are worked out for this test's landlord only, so other files' cases are left alone.
-      { digest: t.ctx.services.digest, triage: { refreshStale: (_org, limit) => t.ctx.services.triage.refreshStale(landlord.org.id, limit) } },
+      {
+        digest: t.ctx.services.digest,
+        triage: { refreshStale: (_org, limit) => t.ctx.services.triage.refreshStale(landlord.org.id, limit) },
+      },
       t.ctx.logger,
       { clock: () => now, intervalMs: 3_600_000, firstCheckMs: 3_600_000 },
     );

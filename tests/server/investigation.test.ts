@@ -9,7 +9,11 @@ let landlord: Awaited<ReturnType<typeof makeLandlord>>;
 let tenant: Client;
 let officer: Client;
 let bedroomId: number;
-const report = { description: "Black mould across the bedroom wall.", locations: ["external-wall"], observations: ["mould-spots"] };
+const report = {
+  description: "Black mould across the bedroom wall.",
+  locations: ["external-wall"],
+  observations: ["mould-spots"],
+};
 
 beforeAll(async () => {
   t = await createTestApp();
@@ -25,20 +29,42 @@ const inspection = (inspectedAt: string) => ({
   cause: "condensation",
   mouldExtent: "1-to-5-m2",
   findings: "Mould on the external wall behind the bed; the wall surface is cold and the extractor fan does not run.",
-  roomReadings: [{ roomId: bedroomId, airTemperatureC: 16.5, relativeHumidityPct: 74, surfaceTemperaturesC: [10.2, 9.1], moisture: { value: 14, unit: "wme" } }],
+  roomReadings: [
+    {
+      roomId: bedroomId,
+      airTemperatureC: 16.5,
+      relativeHumidityPct: 74,
+      surfaceTemperaturesC: [10.2, 9.1],
+      moisture: { value: 14, unit: "wme" },
+    },
+  ],
 });
 
 describe("the investigation", () => {
   it("records the inspection, moves the case to investigated and starts the summary and works clocks", async () => {
-    const c = (await officer.post("/api/cases", { ...report, propertyId: landlord.home.id, channel: "phone", awareAt: "2025-12-19T10:00:00Z" }).expect(201)).body;
-    await officer.patch(`/api/cases/${c.id}`, { status: "triaged", hazardClass: "significant", reason: "Spreading mould, child in the home." }).expect(200);
+    const c = (
+      await officer
+        .post("/api/cases", { ...report, propertyId: landlord.home.id, channel: "phone", awareAt: "2025-12-19T10:00:00Z" })
+        .expect(201)
+    ).body;
+    await officer
+      .patch(`/api/cases/${c.id}`, {
+        status: "triaged",
+        hazardClass: "significant",
+        reason: "Spreading mould, child in the home.",
+      })
+      .expect(200);
     // The investigation ended on Mon 5 January 2026, 11:00 UTC (GMT).
     await officer.post(`/api/cases/${c.id}/inspections`, inspection("2026-01-05T11:00:00Z")).expect(201);
     expect((await officer.get(`/api/cases/${c.id}`)).body.status).toBe("investigated");
     const { deadlines } = (await officer.get(`/api/cases/${c.id}/deadlines`).expect(200)).body;
     const byStage = Object.fromEntries(deadlines.map((d: { stage: string }) => [d.stage, d]));
     // Investigate: due end of Wed 7 Jan 2026 (10 working days after Fri 19 Dec 2025, see case-status.test.ts); done 5 Jan → met.
-    expect(byStage.investigate).toMatchObject({ dueAt: "2026-01-07T23:59:59.999Z", doneAt: "2026-01-05T11:00:00.000Z", state: "met" });
+    expect(byStage.investigate).toMatchObject({
+      dueAt: "2026-01-07T23:59:59.999Z",
+      doneAt: "2026-01-05T11:00:00.000Z",
+      state: "met",
+    });
     // Summary: 3 working days after Mon 5 Jan → end of Thu 8 Jan 2026; never sent, so missed.
     expect(byStage.summary).toMatchObject({ dueAt: "2026-01-08T23:59:59.999Z", state: "missed" });
     // Safety work: 5 working days after Mon 5 Jan → end of Mon 12 Jan 2026.
@@ -49,7 +75,9 @@ describe("the investigation", () => {
 
   it("sends the written summary to the tenant only after an inspection, and records when", async () => {
     const c = (await tenant.post("/api/cases", report).expect(201)).body;
-    const body = { body: "We found condensation mould on the bedroom's external wall. This is a significant hazard. We will fit a continuous extractor fan and wash the mould within 5 working days." };
+    const body = {
+      body: "We found condensation mould on the bedroom's external wall. This is a significant hazard. We will fit a continuous extractor fan and wash the mould within 5 working days.",
+    };
     const early = await officer.post(`/api/cases/${c.id}/summary`, body).expect(409);
     expect(early.body.error.message).toMatch(/inspection/);
     await officer.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(200);
@@ -58,7 +86,9 @@ describe("the investigation", () => {
     const mail = await t.mail.lastTo(landlord.tenant.email);
     expect(mail.subject).toContain(c.reference);
     expect(mail.raw).toMatch(/continuous extractor fan/);
-    const summary = (await officer.get(`/api/cases/${c.id}/deadlines`)).body.deadlines.find((d: { stage: string }) => d.stage === "summary");
+    const summary = (await officer.get(`/api/cases/${c.id}/deadlines`)).body.deadlines.find(
+      (d: { stage: string }) => d.stage === "summary",
+    );
     expect(summary.state).toBe("met");
     const events = (await tenant.get(`/api/cases/${c.id}/events`)).body.events.map((e: { type: string }) => e.type);
     expect(events).toEqual(expect.arrayContaining(["inspection-recorded", "summary-sent"]));
@@ -66,7 +96,9 @@ describe("the investigation", () => {
 
   it("e-mails messages to the tenant and keeps internal notes from them", async () => {
     const c = (await tenant.post("/api/cases", report).expect(201)).body;
-    await officer.post(`/api/cases/${c.id}/messages`, { body: "A surveyor will call on Tuesday morning.", internal: false }).expect(201);
+    await officer
+      .post(`/api/cases/${c.id}/messages`, { body: "A surveyor will call on Tuesday morning.", internal: false })
+      .expect(201);
     expect((await t.mail.lastTo(landlord.tenant.email)).raw).toMatch(/Tuesday morning/);
     await officer.post(`/api/cases/${c.id}/messages`, { body: "Check the loft insulation too.", internal: true }).expect(201);
     const tenantTypes = (await tenant.get(`/api/cases/${c.id}/events`)).body.events.map((e: { type: string }) => e.type);
@@ -78,9 +110,13 @@ describe("the investigation", () => {
 
   it("validates inspections and keeps these routes to staff of the landlord", async () => {
     const c = (await tenant.post("/api/cases", report).expect(201)).body;
-    const bad = await officer.post(`/api/cases/${c.id}/inspections`, { ...inspection("2026-01-05T11:00:00Z"), cause: "gremlins" }).expect(400);
+    const bad = await officer
+      .post(`/api/cases/${c.id}/inspections`, { ...inspection("2026-01-05T11:00:00Z"), cause: "gremlins" })
+      .expect(400);
     expect(bad.body.error.details[0].field).toBe("cause");
-    await officer.post(`/api/cases/${c.id}/inspections`, { ...inspection("2026-01-05T11:00:00Z"), roomReadings: [{ roomId: 999999 }] }).expect(400);
+    await officer
+      .post(`/api/cases/${c.id}/inspections`, { ...inspection("2026-01-05T11:00:00Z"), roomReadings: [{ roomId: 999999 }] })
+      .expect(400);
     await tenant.post(`/api/cases/${c.id}/inspections`, inspection("2026-01-05T11:00:00Z")).expect(403);
     await tenant.post(`/api/cases/${c.id}/messages`, { body: "hi", internal: true }).expect(403);
     await tenant.get(`/api/cases/${c.id}/deadlines`).expect(403);
@@ -98,19 +134,45 @@ describe("the landlord's deadline policy", () => {
     const staff = await signedInClient(t.app, fresh.officer.email, PASSWORD);
     // TRADE.md §5: 24 hours, 10, 3 and 5 working days, 12 weeks; and our 21-day monitoring period.
     expect((await staff.get("/api/policy").expect(200)).body).toEqual({
-      emergencyMakeSafeHours: 24, investigateWorkingDays: 10, summaryWorkingDays: 3, safetyWorkWorkingDays: 5, supplementaryWorkWeeks: 12, monitoringDays: 21, source: "default",
+      emergencyMakeSafeHours: 24,
+      investigateWorkingDays: 10,
+      summaryWorkingDays: 3,
+      safetyWorkWorkingDays: 5,
+      supplementaryWorkWeeks: 12,
+      monitoringDays: 21,
+      source: "default",
     });
-    const c = (await staff.post("/api/cases", { ...report, propertyId: fresh.home.id, channel: "phone", awareAt: "2025-12-19T10:00:00Z" }).expect(201)).body;
-    const due = async () => (await staff.get(`/api/cases/${c.id}/deadlines`)).body.deadlines.find((d: { stage: string }) => d.stage === "investigate").dueAt;
+    const c = (
+      await staff
+        .post("/api/cases", { ...report, propertyId: fresh.home.id, channel: "phone", awareAt: "2025-12-19T10:00:00Z" })
+        .expect(201)
+    ).body;
+    const due = async () =>
+      (await staff.get(`/api/cases/${c.id}/deadlines`)).body.deadlines.find((d: { stage: string }) => d.stage === "investigate")
+        .dueAt;
     expect(await due()).toBe("2026-01-07T23:59:59.999Z");
-    const own = { emergencyMakeSafeHours: 12, investigateWorkingDays: 5, summaryWorkingDays: 2, safetyWorkWorkingDays: 3, supplementaryWorkWeeks: 8 };
+    const own = {
+      emergencyMakeSafeHours: 12,
+      investigateWorkingDays: 5,
+      summaryWorkingDays: 2,
+      safetyWorkWorkingDays: 3,
+      supplementaryWorkWeeks: 8,
+    };
     await staff.agent.put("/api/policy").set("X-CSRF-Token", staff.csrf).send(own).expect(403);
-    expect((await admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send(own).expect(200)).body).toEqual({ ...own, monitoringDays: 21, source: "landlord" });
+    expect((await admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send(own).expect(200)).body).toEqual({
+      ...own,
+      monitoringDays: 21,
+      source: "landlord",
+    });
     // 5 working days after Fri 19 Dec 2025, skipping 25 and 26 Dec (the holiday package's data): 22, 23, 24, 29, 30 Dec.
     expect(await due()).toBe("2025-12-30T23:59:59.999Z");
     // Another landlord still has the default.
     expect((await officer.get("/api/policy").expect(200)).body.source).toBe("default");
-    const bad = await admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send({ ...own, investigateWorkingDays: 0 }).expect(400);
+    const bad = await admin.agent
+      .put("/api/policy")
+      .set("X-CSRF-Token", admin.csrf)
+      .send({ ...own, investigateWorkingDays: 0 })
+      .expect(400);
     expect(bad.body.error.details[0].field).toBe("investigateWorkingDays");
     expect((await admin.agent.delete("/api/policy").set("X-CSRF-Token", admin.csrf).expect(200)).body.source).toBe("default");
     await tenant.get("/api/policy").expect(403);

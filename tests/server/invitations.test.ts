@@ -35,7 +35,9 @@ describe("invitations", () => {
     expect(mail.subject).toContain("invited");
     const token = linkIn(mail.raw, "invitation");
 
-    const outbox = await t.ctx.dataSource.getRepository(OutboxEmail).findOneByOrFail({ relatedType: "user", relatedId: res.body.userId });
+    const outbox = await t.ctx.dataSource
+      .getRepository(OutboxEmail)
+      .findOneByOrFail({ relatedType: "user", relatedId: res.body.userId });
     expect(outbox).toMatchObject({ toAddress: email, template: "invitation", status: "sent", organisationId: landlord.org.id });
     // Only the hash is stored.
     const stored = await t.ctx.dataSource.getRepository(UserToken).findOneByOrFail({ userId: res.body.userId });
@@ -68,7 +70,13 @@ describe("invitations", () => {
     const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
     const email = `new.tenant.${Date.now()}@test.example`;
     const res = await officer
-      .post("/api/auth/invitations", { email, name: "Ari Brook", role: "tenant", propertyId: landlord.home.id, householdNotes: "Baby due in spring." })
+      .post("/api/auth/invitations", {
+        email,
+        name: "Ari Brook",
+        role: "tenant",
+        propertyId: landlord.home.id,
+        householdNotes: "Baby due in spring.",
+      })
       .expect(201);
     const tenancy = await t.ctx.dataSource.getRepository(Tenancy).findOneByOrFail({ tenantUserId: res.body.userId });
     expect(tenancy).toMatchObject({ propertyId: landlord.home.id, endDate: null, householdNotes: "Baby due in spring." });
@@ -81,11 +89,15 @@ describe("invitations", () => {
     await officer.post("/api/auth/invitations", { email: "x1@test.example", name: "X", role: "admin" }).expect(403);
     const noHome = await admin.post("/api/auth/invitations", { email: "x2@test.example", name: "X", role: "tenant" }).expect(400);
     expect(noHome.body.error.details[0].field).toBe("propertyId");
-    await admin.post("/api/auth/invitations", { email: "x3@test.example", name: "X", role: "tenant", propertyId: other.home.id }).expect(404);
+    await admin
+      .post("/api/auth/invitations", { email: "x3@test.example", name: "X", role: "tenant", propertyId: other.home.id })
+      .expect(404);
     await admin.post("/api/auth/invitations", { email: landlord.officer.email, name: "X", role: "officer" }).expect(409);
     await admin.post("/api/auth/invitations", { email: "x4@test.example", name: "X", role: "superuser" }).expect(400);
     const tenant = await signedInClient(t.app, landlord.tenant.email, PASSWORD);
-    await tenant.post("/api/auth/invitations", { email: "x5@test.example", name: "X", role: "tenant", propertyId: landlord.home.id }).expect(403);
+    await tenant
+      .post("/api/auth/invitations", { email: "x5@test.example", name: "X", role: "tenant", propertyId: landlord.home.id })
+      .expect(403);
     expect(await users.count()).toBe(before);
   });
 
@@ -95,7 +107,9 @@ describe("invitations", () => {
       const client = await signedInClient(broken.app, landlord.admin.email, PASSWORD);
       const email = `unsent.${Date.now()}@test.example`;
       const res = await client.post("/api/auth/invitations", { email, name: "Un Sent", role: "officer" }).expect(201);
-      const row = await broken.ctx.dataSource.getRepository(OutboxEmail).findOneByOrFail({ relatedType: "user", relatedId: res.body.userId });
+      const row = await broken.ctx.dataSource
+        .getRepository(OutboxEmail)
+        .findOneByOrFail({ relatedType: "user", relatedId: res.body.userId });
       expect(row.status).toBe("failed");
       expect(row.error).toBeTruthy();
     } finally {

@@ -20,7 +20,15 @@ beforeAll(async () => {
   t = await createTestApp({ UPLOADS_DIR: uploads });
   landlord = await makeLandlord(t.ctx.dataSource);
   tenant = await signedInClient(t.app, landlord.tenant.email, PASSWORD);
-  caseId = (await tenant.post("/api/cases", { description: "Black spots behind the wardrobe.", locations: ["behind-furniture"], observations: ["mould-spots"] }).expect(201)).body.id;
+  caseId = (
+    await tenant
+      .post("/api/cases", {
+        description: "Black spots behind the wardrobe.",
+        locations: ["behind-furniture"],
+        observations: ["mould-spots"],
+      })
+      .expect(201)
+  ).body.id;
 });
 afterAll(async () => {
   await t.close();
@@ -39,24 +47,37 @@ describe("uploading photos", () => {
     expect((await sharp(original).metadata()).exif).toBeDefined();
     const res = await upload(tenant, caseId, [[original, "IMG_0001.jpg"]]).expect(201);
     const [photo] = res.body.photos;
-    expect(photo).toMatchObject({ width: 2048, height: 1365, url: `/api/photos/${photo.id}`, thumbnailUrl: `/api/photos/${photo.id}/thumbnail` });
+    expect(photo).toMatchObject({
+      width: 2048,
+      height: 1365,
+      url: `/api/photos/${photo.id}`,
+      thumbnailUrl: `/api/photos/${photo.id}/thumbnail`,
+    });
     expect(photo.sha256).toMatch(/^[0-9a-f]{64}$/);
 
-    const display = await tenant.agent.get(photo.url).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on("data", (c: Buffer) => chunks.push(c));
-      r.on("end", () => cb(null, Buffer.concat(chunks)));
-    }).expect(200);
+    const display = await tenant.agent
+      .get(photo.url)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on("data", (c: Buffer) => chunks.push(c));
+        r.on("end", () => cb(null, Buffer.concat(chunks)));
+      })
+      .expect(200);
     const meta = await sharp(display.body as Buffer).metadata();
     expect(meta.format).toBe("jpeg");
     expect(meta.exif).toBeUndefined();
     expect(meta.xmp).toBeUndefined();
     expect((display.body as Buffer).includes(Buffer.from("Dewline Test Phone"))).toBe(false);
-    const thumb = await tenant.agent.get(photo.thumbnailUrl).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on("data", (c: Buffer) => chunks.push(c));
-      r.on("end", () => cb(null, Buffer.concat(chunks)));
-    }).expect(200);
+    const thumb = await tenant.agent
+      .get(photo.thumbnailUrl)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on("data", (c: Buffer) => chunks.push(c));
+        r.on("end", () => cb(null, Buffer.concat(chunks)));
+      })
+      .expect(200);
     const thumbMeta = await sharp(thumb.body as Buffer).metadata();
     expect(Math.max(thumbMeta.width!, thumbMeta.height!)).toBe(320);
     expect(thumbMeta.exif).toBeUndefined();
@@ -67,7 +88,9 @@ describe("uploading photos", () => {
     expect(files.some((f) => f.includes("IMG_0001"))).toBe(false);
     expect(files.every((f) => /^[0-9a-f]{32}(\.thumb)?\.jpg$/.test(f))).toBe(true);
     // Not a public static file.
-    await request(t.app).get(`/uploads/${landlord.org.id}/${caseId}/${files[0]}`).expect((r) => expect(r.headers["content-type"]).not.toMatch(/image/));
+    await request(t.app)
+      .get(`/uploads/${landlord.org.id}/${caseId}/${files[0]}`)
+      .expect((r) => expect(r.headers["content-type"]).not.toMatch(/image/));
     await request(t.app).get(photo.url).expect(401);
   });
 
@@ -79,14 +102,20 @@ describe("uploading photos", () => {
   it("stores the same photo twice in one case only once", async () => {
     const image = await png(500, 400);
     const first = await upload(tenant, caseId, [[image, "a.png"]]).expect(201);
-    const second = await upload(tenant, caseId, [[image, "b.png"], [image, "c.png"]]).expect(201);
+    const second = await upload(tenant, caseId, [
+      [image, "b.png"],
+      [image, "c.png"],
+    ]).expect(201);
     expect(second.body.photos.map((p: { id: number }) => p.id)).toEqual([first.body.photos[0].id]);
     expect(await t.ctx.dataSource.getRepository(Photo).countBy({ caseId, sha256: first.body.photos[0].sha256 })).toBe(1);
   });
 
   it("refuses a text file named .jpg with 415, storing nothing", async () => {
     const before = await t.ctx.dataSource.getRepository(Photo).countBy({ caseId });
-    const res = await upload(tenant, caseId, [[await jpegWithGps(200, 200, 7), "good.jpg"], [Buffer.from("just some text, not an image"), "evil.jpg"]]).expect(415);
+    const res = await upload(tenant, caseId, [
+      [await jpegWithGps(200, 200, 7), "good.jpg"],
+      [Buffer.from("just some text, not an image"), "evil.jpg"],
+    ]).expect(415);
     expect(res.body.error.message).toMatch(/JPEG, PNG, WebP or AVIF/);
     expect(await t.ctx.dataSource.getRepository(Photo).countBy({ caseId })).toBe(before);
   });
@@ -98,7 +127,9 @@ describe("uploading photos", () => {
   });
 
   it("refuses other image formats (GIF) with 415", async () => {
-    const gif = await sharp({ create: { width: 20, height: 20, channels: 3, background: "#fff" } }).gif().toBuffer();
+    const gif = await sharp({ create: { width: 20, height: 20, channels: 3, background: "#fff" } })
+      .gif()
+      .toBuffer();
     await upload(tenant, caseId, [[gif, "a.gif"]]).expect(415);
   });
 

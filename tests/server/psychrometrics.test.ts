@@ -9,15 +9,29 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
-const evaluate = (body: unknown) => request(t.app).post("/api/psychrometrics/evaluate").send(body as object);
-const series = (body: unknown) => request(t.app).post("/api/psychrometrics/series").send(body as object);
+const evaluate = (body: unknown) =>
+  request(t.app)
+    .post("/api/psychrometrics/evaluate")
+    .send(body as object);
+const series = (body: unknown) =>
+  request(t.app)
+    .post("/api/psychrometrics/series")
+    .send(body as object);
 const ok = { airTemperatureC: 20, relativeHumidityPct: 60 };
 
 describe("POST /api/psychrometrics/evaluate", () => {
   it("answers without sign-in or CSRF token, with the documented shape", async () => {
     const res = await evaluate({ airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 }).expect(200);
     expect(Object.keys(res.body).sort()).toEqual(
-      ["absoluteHumidityGPerM3", "dewPointC", "humidityRatio", "reasons", "saturationVapourPressurePa", "surface", "vapourPressurePa"].sort(),
+      [
+        "absoluteHumidityGPerM3",
+        "dewPointC",
+        "humidityRatio",
+        "reasons",
+        "saturationVapourPressurePa",
+        "surface",
+        "vapourPressurePa",
+      ].sort(),
     );
     // 19 °C / 78 % → dew point 15.077 °C by the Magnus form of Alduchov & Eskridge (1996), derived:
     // γ = ln 0.78 + 17.625·19/(243.04+19) = 1.02949; Td = 243.04·γ/(17.625−γ) = 15.077 °C.
@@ -64,24 +78,43 @@ describe("POST /api/psychrometrics/evaluate", () => {
   }
 
   it("accepts the edges of each range", async () => {
-    await evaluate({ airTemperatureC: -20, relativeHumidityPct: 100, surfaceTemperatureC: -30, outdoorTemperatureC: -30 }).expect(200);
-    await evaluate({ airTemperatureC: 50, relativeHumidityPct: 0.1, surfaceTemperatureC: 50, outdoorTemperatureC: 40 }).expect(200);
+    await evaluate({ airTemperatureC: -20, relativeHumidityPct: 100, surfaceTemperatureC: -30, outdoorTemperatureC: -30 }).expect(
+      200,
+    );
+    await evaluate({ airTemperatureC: 50, relativeHumidityPct: 0.1, surfaceTemperatureC: 50, outdoorTemperatureC: 40 }).expect(
+      200,
+    );
   });
 
   it("refuses a literal NaN (not JSON) with 400", async () => {
-    const res = await request(t.app).post("/api/psychrometrics/evaluate").set("Content-Type", "application/json").send('{"airTemperatureC": NaN, "relativeHumidityPct": 50}').expect(400);
+    const res = await request(t.app)
+      .post("/api/psychrometrics/evaluate")
+      .set("Content-Type", "application/json")
+      .send('{"airTemperatureC": NaN, "relativeHumidityPct": 50}')
+      .expect(400);
     expect(res.body.error.code).toBe("invalid_json");
   });
 });
 
 const hourly = (n: number, at0 = Date.UTC(2026, 0, 1)) =>
-  Array.from({ length: n }, (_, i) => ({ at: new Date(at0 + i * 3_600_000).toISOString(), airTemperatureC: 18, relativeHumidityPct: 70, surfaceTemperatureC: 12 }));
+  Array.from({ length: n }, (_, i) => ({
+    at: new Date(at0 + i * 3_600_000).toISOString(),
+    airTemperatureC: 18,
+    relativeHumidityPct: 70,
+    surfaceTemperatureC: 12,
+  }));
 
 describe("POST /api/psychrometrics/series", () => {
   it("evaluates a series with the documented shape", async () => {
     const readings = hourly(48);
     const res = await series({ readings, material: "sensitive" }).expect(200);
-    expect(res.body).toMatchObject({ count: 48, from: readings[0]!.at, to: readings[47]!.at, gaps: [], mouldIndex: { material: "sensitive" } });
+    expect(res.body).toMatchObject({
+      count: 48,
+      from: readings[0]!.at,
+      to: readings[47]!.at,
+      gaps: [],
+      mouldIndex: { material: "sensitive" },
+    });
     expect(res.body.hoursSurfaceRhAtLeast80).toBeGreaterThan(40);
     expect(typeof res.body.diagnosis.kind).toBe("string");
     expect(res.body).not.toHaveProperty("moistureExcess");
@@ -104,9 +137,21 @@ describe("POST /api/psychrometrics/series", () => {
     ["an empty list", { readings: [] }, "readings"],
     ["readings not a list", { readings: "lots" }, "readings"],
     ["a reading without a time", { readings: [{ airTemperatureC: 20, relativeHumidityPct: 50 }] }, "readings.0.at"],
-    ["a time without a zone", { readings: [{ at: "2026-01-01T00:00:00", airTemperatureC: 20, relativeHumidityPct: 50 }] }, "readings.0.at"],
-    ["a string temperature", { readings: [{ at: "2026-01-01T00:00:00Z", airTemperatureC: "warm", relativeHumidityPct: 50 }] }, "readings.0.airTemperatureC"],
-    ["RH 101 in the second reading", { readings: [hourly(1)[0], { at: "2026-01-01T01:00:00Z", airTemperatureC: 20, relativeHumidityPct: 101 }] }, "readings.1.relativeHumidityPct"],
+    [
+      "a time without a zone",
+      { readings: [{ at: "2026-01-01T00:00:00", airTemperatureC: 20, relativeHumidityPct: 50 }] },
+      "readings.0.at",
+    ],
+    [
+      "a string temperature",
+      { readings: [{ at: "2026-01-01T00:00:00Z", airTemperatureC: "warm", relativeHumidityPct: 50 }] },
+      "readings.0.airTemperatureC",
+    ],
+    [
+      "RH 101 in the second reading",
+      { readings: [hourly(1)[0], { at: "2026-01-01T01:00:00Z", airTemperatureC: 20, relativeHumidityPct: 101 }] },
+      "readings.1.relativeHumidityPct",
+    ],
     ["an unknown material", { readings: hourly(1), material: "steel" }, "material"],
   ];
   for (const [name, body, field] of bad) {

@@ -57,32 +57,89 @@ beforeAll(async () => {
   officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
   tenant = await signedInClient(t.app, landlord.tenant.email, PASSWORD);
   secondOfficerId = (await makeUser(ds, landlord.org, "officer", { name: "Aaron Second" })).id;
-  const north = await makeProperty(ds, landlord.org, { estate: "North Fields", block: "Block B", addressLine1: "2 Heron Walk", postcode: "ZX2 9QQ" });
-  const south = await makeProperty(ds, landlord.org, { estate: "South Fields", addressLine1: "10 Heron Walk", postcode: "ZX3 1AB" });
+  const north = await makeProperty(ds, landlord.org, {
+    estate: "North Fields",
+    block: "Block B",
+    addressLine1: "2 Heron Walk",
+    postcode: "ZX2 9QQ",
+  });
+  const south = await makeProperty(ds, landlord.org, {
+    estate: "South Fields",
+    addressLine1: "10 Heron Walk",
+    postcode: "ZX3 1AB",
+  });
   await makeTenant(ds, landlord.org, north);
-  const roomOf = async (propertyId: number, kind: string) => (await officer.get(`/api/properties/${propertyId}`).expect(200)).body.rooms.find((r: { kind: string }) => r.kind === kind).id;
+  const roomOf = async (propertyId: number, kind: string) =>
+    (await officer.get(`/api/properties/${propertyId}`).expect(200)).body.rooms.find((r: { kind: string }) => r.kind === kind).id;
   const log = async (key: string, body: object) => {
     ids[key] = (await officer.post("/api/cases", { channel: "phone", ...body }).expect(201)).body.id;
   };
 
   // A: large area, children, condensing readings, overdue (aware 30 days ago, never investigated).
-  await log("A", report({ propertyId: landlord.home.id, awareAt: daysAgo(30), area: "larger", vulnerability: ["children-under-15"], roomIds: [await roomOf(landlord.home.id, "bedroom")] }));
+  await log(
+    "A",
+    report({
+      propertyId: landlord.home.id,
+      awareAt: daysAgo(30),
+      area: "larger",
+      vulnerability: ["children-under-15"],
+      roomIds: [await roomOf(landlord.home.id, "bedroom")],
+    }),
+  );
   // B: at the same home (a recurrence), small area, no vulnerability, assessed Category 1 later.
-  await log("B", report({ propertyId: landlord.home.id, awareAt: daysAgo(2), area: "hand", vulnerability: [], channel: "letter", roomIds: [await roomOf(landlord.home.id, "kitchen")] }));
+  await log(
+    "B",
+    report({
+      propertyId: landlord.home.id,
+      awareAt: daysAgo(2),
+      area: "hand",
+      vulnerability: [],
+      channel: "letter",
+      roomIds: [await roomOf(landlord.home.id, "kitchen")],
+    }),
+  );
   // C: another estate, dry readings, vulnerability skipped, assigned to the second officer.
-  await log("C", report({ propertyId: north.id, awareAt: daysAgo(1), area: "a4", channel: "email", roomIds: [await roomOf(north.id, "kitchen")] }));
+  await log(
+    "C",
+    report({
+      propertyId: north.id,
+      awareAt: daysAgo(1),
+      area: "a4",
+      channel: "email",
+      roomIds: [await roomOf(north.id, "kitchen")],
+    }),
+  );
   // D: a third home, door-sized, over-65, closed later.
-  await log("D", report({ propertyId: south.id, awareAt: daysAgo(5), area: "door", vulnerability: ["over-65"], channel: "visit" }));
+  await log(
+    "D",
+    report({ propertyId: south.id, awareAt: daysAgo(5), area: "door", vulnerability: ["over-65"], channel: "visit" }),
+  );
 
   const bedroomA = await roomOf(landlord.home.id, "bedroom");
-  await officer.post(`/api/cases/${ids.A}/readings`, [{ roomId: bedroomA, takenAt: daysAgo(1), airTemperatureC: 18, relativeHumidityPct: 85, surfaceTemperatureC: 12 }]).expect(201);
+  await officer
+    .post(`/api/cases/${ids.A}/readings`, [
+      { roomId: bedroomA, takenAt: daysAgo(1), airTemperatureC: 18, relativeHumidityPct: 85, surfaceTemperatureC: 12 },
+    ])
+    .expect(201);
   const kitchenC = await roomOf(north.id, "kitchen");
-  await officer.post(`/api/cases/${ids.C}/readings`, [{ roomId: kitchenC, takenAt: daysAgo(0.5), airTemperatureC: 21, relativeHumidityPct: 40, surfaceTemperatureC: 19.5 }]).expect(201);
+  await officer
+    .post(`/api/cases/${ids.C}/readings`, [
+      { roomId: kitchenC, takenAt: daysAgo(0.5), airTemperatureC: 21, relativeHumidityPct: 40, surfaceTemperatureC: 19.5 },
+    ])
+    .expect(201);
   // Likelihood 1 in 10 with all harm in class II: 10000... the exact score is checked in assessments.test.ts; this is band A–C.
-  await officer.post(`/api/cases/${ids.B}/assessments`, { likelihood: 10, spread: [0, 100, 0, 0], justification: "Severe mould over a child's bed; Category 1 expected." }).expect(201);
+  await officer
+    .post(`/api/cases/${ids.B}/assessments`, {
+      likelihood: 10,
+      spread: [0, 100, 0, 0],
+      justification: "Severe mould over a child's bed; Category 1 expected.",
+    })
+    .expect(201);
   await officer.patch(`/api/cases/${ids.C}`, { assigneeId: secondOfficerId }).expect(200);
   await officer.patch(`/api/cases/${ids.A}`, { assigneeId: landlord.officer.id }).expect(200);
-  await officer.patch(`/api/cases/${ids.D}`, { status: "cancelled", reason: "Reported twice; the other report is being dealt with." }).expect(200);
+  await officer
+    .patch(`/api/cases/${ids.D}`, { status: "cancelled", reason: "Reported twice; the other report is being dealt with." })
+    .expect(200);
 });
 afterAll(() => t.close());
 
@@ -119,7 +176,11 @@ describe("the stored triage figures", () => {
   it("follow a change at once: new readings raise the risk state and the priority", async () => {
     const before = byKey((await all()).items).C;
     const kitchen = before.rooms[0]!.id;
-    await officer.post(`/api/cases/${ids.C}/readings`, [{ roomId: kitchen, takenAt: daysAgo(0.1), airTemperatureC: 17, relativeHumidityPct: 90, surfaceTemperatureC: 11 }]).expect(201);
+    await officer
+      .post(`/api/cases/${ids.C}/readings`, [
+        { roomId: kitchen, takenAt: daysAgo(0.1), airTemperatureC: 17, relativeHumidityPct: 90, surfaceTemperatureC: 11 },
+      ])
+      .expect(201);
     const after = byKey((await all()).items).C;
     expect(after.riskState).toBe("condensing");
     expect(after.priority).toBeGreaterThan(before.priority);
@@ -138,7 +199,11 @@ describe("the stored triage figures", () => {
     await t.ctx.dataSource.getRepository(Case).update({ organisationId: landlord.org.id }, { triageDueAt: msAgo(1000) });
     const counts = await Promise.all(Array.from({ length: 20 }, () => t.ctx.services.triage.refreshStale(landlord.org.id, 50)));
     expect(counts.every((n) => n >= 0)).toBe(true);
-    const stale = await t.ctx.dataSource.getRepository(Case).createQueryBuilder("c").where("c.organisation_id = :o AND c.triage_due_at <= :before", { o: landlord.org.id, before: msAgo(1000) }).getCount();
+    const stale = await t.ctx.dataSource
+      .getRepository(Case)
+      .createQueryBuilder("c")
+      .where("c.organisation_id = :o AND c.triage_due_at <= :before", { o: landlord.org.id, before: msAgo(1000) })
+      .getCount();
     expect(stale).toBe(0);
   });
 
@@ -174,7 +239,10 @@ describe("filters", () => {
   ];
   it.each(cases)("%s keeps exactly the matching cases", async (query, matches) => {
     const everything = (await all()).items;
-    const expected = everything.filter(matches).map((i) => i.id).sort();
+    const expected = everything
+      .filter(matches)
+      .map((i) => i.id)
+      .sort();
     const { items, total } = await all(query);
     expect(items.map((i) => i.id).sort()).toEqual(expected);
     expect(total).toBe(expected.length);
@@ -222,7 +290,15 @@ describe("sorting", () => {
     return typeof a === "number" && typeof b === "number" ? a - b : natural.compare(String(a), String(b));
   };
 
-  it.each(QUEUE_SORTS.flatMap((s) => [[s, "asc"], [s, "desc"]] as const))("sort=%s order=%s", async (sort, order) => {
+  it.each(
+    QUEUE_SORTS.flatMap(
+      (s) =>
+        [
+          [s, "asc"],
+          [s, "desc"],
+        ] as const,
+    ),
+  )("sort=%s order=%s", async (sort, order) => {
     const { items } = await all(`sort=${sort}&order=${order}`);
     expect(items).toHaveLength(4);
     const values = items.map(keys[sort]);
@@ -299,7 +375,9 @@ describe("bulk changes", () => {
     const res = (await officer.post("/api/cases/bulk", { ids: [ids.B, ids.D], status: "triaged" }).expect(200)).body;
     expect(res.updated).toEqual([ids.B]);
     // Reopening a cancelled case needs a reason.
-    expect(res.failed).toEqual([{ id: ids.D, reference: expect.stringMatching(/^DW-/), message: expect.stringMatching(/reason/) }]);
+    expect(res.failed).toEqual([
+      { id: ids.D, reference: expect.stringMatching(/^DW-/), message: expect.stringMatching(/reason/) },
+    ]);
     const refused = (await officer.post("/api/cases/bulk", { ids: [ids.C], status: "closed" }).expect(200)).body;
     expect(refused.failed[0].message).toMatch(/new cannot move to closed/);
     const items = byKey((await all()).items);

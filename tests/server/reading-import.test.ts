@@ -116,7 +116,15 @@ describe("import", () => {
         "901,time '31/02/2026 10:00' is not a date\n",
     );
     const saved = await t.ctx.dataSource.getRepository(ReadingImport).findOneByOrFail({ id: first.importId });
-    expect(saved).toMatchObject({ caseId: c.caseId, roomId: c.roomId, uploadedById: c.actorId, fileName: "bedroom-logger.csv", imported: 997, duplicates: 0, rejected: 3 });
+    expect(saved).toMatchObject({
+      caseId: c.caseId,
+      roomId: c.roomId,
+      uploadedById: c.actorId,
+      fileName: "bedroom-logger.csv",
+      imported: 997,
+      duplicates: 0,
+      rejected: 3,
+    });
 
     const list = await readings.list(c.caseId, { limit: 3 });
     expect(list.map((r) => [r.takenAt.toISOString(), r.airTemperatureC, r.relativeHumidityPct, r.source, r.importId])).toEqual([
@@ -137,7 +145,12 @@ describe("import", () => {
   it("counts a time repeated within the file as a duplicate", async () => {
     const c = await makeCase();
     const p = file("Time,Temp,RH\n2025-01-15 10:00,20,60\n2025-01-15 10:00,21,61\n2025-01-15 10:01,20,60\n");
-    expect(await imports.import({ ...c, filePath: p, fileName: "x.csv" })).toEqual({ importId: expect.any(Number), imported: 2, duplicates: 1, rejected: 0 });
+    expect(await imports.import({ ...c, filePath: p, fileName: "x.csv" })).toEqual({
+      importId: expect.any(Number),
+      imported: 2,
+      duplicates: 1,
+      rejected: 0,
+    });
   });
 
   it("converts °F to °C (68 °F is 20 °C)", async () => {
@@ -182,7 +195,12 @@ describe("import", () => {
         "2025-01-15 12:00:00,20,60\n", // GMT: 12:00 UTC
     );
     await imports.import({ ...c, filePath: p, fileName: "tz.csv" });
-    expect(await storedTimes(c.caseId)).toEqual(["2025-01-15T12:00:00.000Z", "2025-07-01T11:00:00.000Z", "2025-07-01T13:00:00.000Z", "2025-07-01T14:00:00.000Z"]);
+    expect(await storedTimes(c.caseId)).toEqual([
+      "2025-01-15T12:00:00.000Z",
+      "2025-07-01T11:00:00.000Z",
+      "2025-07-01T13:00:00.000Z",
+      "2025-07-01T14:00:00.000Z",
+    ]);
 
     const ny = await makeCase();
     await imports.import({ ...ny, filePath: p, fileName: "tz.csv", mapping: { timeZone: "America/New_York" } });
@@ -192,18 +210,31 @@ describe("import", () => {
   it("rejects a local time in the spring-forward gap and takes the first of two in the autumn fold", async () => {
     // UK clocks went forward at 01:00 UTC on 30 March 2025 and back at 01:00 UTC on 26 October 2025.
     const c = await makeCase();
-    const p = file("Time,Temp,RH\n2025-03-30 00:59,20,60\n2025-03-30 01:30,20,60\n2025-03-30 02:00,20,60\n2025-10-26 01:30,20,60\n");
+    const p = file(
+      "Time,Temp,RH\n2025-03-30 00:59,20,60\n2025-03-30 01:30,20,60\n2025-03-30 02:00,20,60\n2025-10-26 01:30,20,60\n",
+    );
     const result = await imports.import({ ...c, filePath: p, fileName: "dst.csv" });
     expect(result).toMatchObject({ imported: 3, rejected: 1 });
-    expect(await imports.rejectedReport(c.caseId, result.importId)).toContain("3,time '2025-03-30 01:30' does not exist in Europe/London");
-    expect(await storedTimes(c.caseId)).toEqual(["2025-03-30T00:59:00.000Z", "2025-03-30T01:00:00.000Z", "2025-10-26T00:30:00.000Z"]);
+    expect(await imports.rejectedReport(c.caseId, result.importId)).toContain(
+      "3,time '2025-03-30 01:30' does not exist in Europe/London",
+    );
+    expect(await storedTimes(c.caseId)).toEqual([
+      "2025-03-30T00:59:00.000Z",
+      "2025-03-30T01:00:00.000Z",
+      "2025-10-26T00:30:00.000Z",
+    ]);
   });
 
   it("reads semicolons with decimal commas and DD.MM.YYYY dates", async () => {
     const c = await makeCase();
     const p = file("Date/Time;Temperature °C;RH %;Surface temp\n15.01.2025 10:00;20,5;60,1;14,25\n15.01.2025 10:01;−2,5;61;\n");
     const preview = await imports.preview(p);
-    expect(preview).toMatchObject({ delimiter: ";", decimalComma: true, hasHeader: true, mapping: { dateFormat: "DD.MM.YYYY", timestamp: 0, temperature: 1, humidity: 2, surfaceTemperature: 3 } });
+    expect(preview).toMatchObject({
+      delimiter: ";",
+      decimalComma: true,
+      hasHeader: true,
+      mapping: { dateFormat: "DD.MM.YYYY", timestamp: 0, temperature: 1, humidity: 2, surfaceTemperature: 3 },
+    });
     const result = await imports.import({ ...c, filePath: p, fileName: "semi.csv" });
     expect(result).toMatchObject({ imported: 2, rejected: 0 });
     const list = await readings.list(c.caseId);
@@ -215,7 +246,9 @@ describe("import", () => {
 
   it("stores surface and outdoor temperatures when the file has them", async () => {
     const c = await makeCase();
-    const p = file("Time,Temp,RH,Surface temp,Outdoor temp\n2025-01-15 10:00,20,60,13.5,-3\n2025-01-15 10:01,20,60,,4.25\n2025-01-15 10:02,20,60,12,\n");
+    const p = file(
+      "Time,Temp,RH,Surface temp,Outdoor temp\n2025-01-15 10:00,20,60,13.5,-3\n2025-01-15 10:01,20,60,,4.25\n2025-01-15 10:02,20,60,12,\n",
+    );
     expect(await imports.import({ ...c, filePath: p, fileName: "so.csv" })).toMatchObject({ imported: 3, rejected: 0 });
     expect((await readings.list(c.caseId)).map((r) => [r.surfaceTemperatureC, r.outdoorTemperatureC])).toEqual([
       [13.5, -3],
@@ -225,7 +258,9 @@ describe("import", () => {
     // Out of range: outdoor −30…40 °C.
     const bad = file("Time,Temp,RH,Outdoor temp\n2025-01-15 10:00,20,60,41\n2025-01-15 10:01,20,60,5\n");
     const r = await imports.import({ ...c, roomId: c.otherRoomId, filePath: bad, fileName: "o.csv" });
-    expect(await imports.rejectedReport(c.caseId, r.importId)).toBe("row,reason\n2,outdoor temperature 41 °C is outside −30…40 °C\n");
+    expect(await imports.rejectedReport(c.caseId, r.importId)).toBe(
+      "row,reason\n2,outdoor temperature 41 °C is outside −30…40 °C\n",
+    );
   });
 
   it("strips a UTF-8 byte-order mark", async () => {
@@ -324,7 +359,13 @@ describe("import", () => {
     const result = await imports.import({ ...c, filePath: p, fileName: "../../etc/passwd.csv" });
     const saved = await t.ctx.dataSource.getRepository(ReadingImport).findOneByOrFail({ id: result.importId });
     expect(saved.fileName).toBe("passwd.csv");
-    expect((await t.ctx.dataSource.getRepository(ReadingImport).findOneByOrFail({ id: (await imports.import({ ...c, filePath: p, fileName: "C:\\Users\\x\\Desktop\\log.csv" })).importId })).fileName).toBe("log.csv");
+    expect(
+      (
+        await t.ctx.dataSource.getRepository(ReadingImport).findOneByOrFail({
+          id: (await imports.import({ ...c, filePath: p, fileName: "C:\\Users\\x\\Desktop\\log.csv" })).importId,
+        })
+      ).fileName,
+    ).toBe("log.csv");
   });
 
   it("skips logger notes above the header, keeps file line numbers, and reads a file without a header", async () => {
@@ -339,7 +380,11 @@ describe("import", () => {
     const d = await makeCase();
     const bare = file("2025-01-15 10:00,20.5,60\n2025-01-15 10:01,20.5,61\n2025-01-15 10:02,20.5,62\n");
     const bp = await imports.preview(bare);
-    expect(bp).toMatchObject({ hasHeader: false, headers: ["Column 1", "Column 2", "Column 3"], mapping: { timestamp: 0, temperature: 1, humidity: 2 } });
+    expect(bp).toMatchObject({
+      hasHeader: false,
+      headers: ["Column 1", "Column 2", "Column 3"],
+      mapping: { timestamp: 0, temperature: 1, humidity: 2 },
+    });
     expect(await imports.import({ ...d, filePath: bare, fileName: "bare.csv" })).toMatchObject({ imported: 3, rejected: 0 });
   });
 
@@ -353,7 +398,14 @@ describe("import", () => {
       [20, 60],
       [21, 61],
     ]);
-    const bad = [{ temperature: 9 }, { temperature: 2 }, { timestamp: -1 }, { timeZone: "Mars/Olympus" }, { dateFormat: "YYYYMMDD" }, { colour: 1 }];
+    const bad = [
+      { temperature: 9 },
+      { temperature: 2 },
+      { timestamp: -1 },
+      { timeZone: "Mars/Olympus" },
+      { dateFormat: "YYYYMMDD" },
+      { colour: 1 },
+    ];
     for (const mapping of bad) {
       const e = await failure(imports.import({ ...c, filePath: p, fileName: "o.csv", mapping: mapping as never }));
       expect(e.status, JSON.stringify(mapping)).toBe(400);
@@ -386,24 +438,63 @@ describe("readings", () => {
   it("adds manual readings in one go, skips duplicates, lists them by time and gives the series", async () => {
     const c = await makeCase();
     const at = (iso: string) => new Date(iso);
-    const first = await readings.addManual(c.caseId, [
-      { roomId: c.roomId, takenAt: at("2025-01-15T10:00:00.400Z"), airTemperatureC: 19.456, relativeHumidityPct: 70, surfaceTemperatureC: 12.5 },
-      { roomId: c.roomId, takenAt: at("2025-01-15T09:00:00Z"), airTemperatureC: 18, relativeHumidityPct: 72, outdoorTemperatureC: -2 },
-      { roomId: c.otherRoomId, takenAt: at("2025-01-15T09:30:00Z"), airTemperatureC: 17, relativeHumidityPct: 80 },
-    ], { actorId: c.actorId });
+    const first = await readings.addManual(
+      c.caseId,
+      [
+        {
+          roomId: c.roomId,
+          takenAt: at("2025-01-15T10:00:00.400Z"),
+          airTemperatureC: 19.456,
+          relativeHumidityPct: 70,
+          surfaceTemperatureC: 12.5,
+        },
+        {
+          roomId: c.roomId,
+          takenAt: at("2025-01-15T09:00:00Z"),
+          airTemperatureC: 18,
+          relativeHumidityPct: 72,
+          outdoorTemperatureC: -2,
+        },
+        { roomId: c.otherRoomId, takenAt: at("2025-01-15T09:30:00Z"), airTemperatureC: 17, relativeHumidityPct: 80 },
+      ],
+      { actorId: c.actorId },
+    );
     expect(first).toEqual({ imported: 3, duplicates: 0 });
     // The same second in the same room is a duplicate.
-    expect(await readings.addManual(c.caseId, [{ roomId: c.roomId, takenAt: at("2025-01-15T10:00:00Z"), airTemperatureC: 25, relativeHumidityPct: 50 }], { actorId: c.actorId })).toEqual({ imported: 0, duplicates: 1 });
+    expect(
+      await readings.addManual(
+        c.caseId,
+        [{ roomId: c.roomId, takenAt: at("2025-01-15T10:00:00Z"), airTemperatureC: 25, relativeHumidityPct: 50 }],
+        { actorId: c.actorId },
+      ),
+    ).toEqual({ imported: 0, duplicates: 1 });
 
     const list = await readings.list(c.caseId);
-    expect(list.map((r) => [r.roomId, r.takenAt.toISOString(), r.airTemperatureC, r.relativeHumidityPct, r.surfaceTemperatureC, r.outdoorTemperatureC, r.source, r.importId])).toEqual([
+    expect(
+      list.map((r) => [
+        r.roomId,
+        r.takenAt.toISOString(),
+        r.airTemperatureC,
+        r.relativeHumidityPct,
+        r.surfaceTemperatureC,
+        r.outdoorTemperatureC,
+        r.source,
+        r.importId,
+      ]),
+    ).toEqual([
       [c.roomId, "2025-01-15T09:00:00.000Z", 18, 72, null, -2, "manual", null],
       [c.otherRoomId, "2025-01-15T09:30:00.000Z", 17, 80, null, null, "manual", null],
       [c.roomId, "2025-01-15T10:00:00.000Z", 19.46, 70, 12.5, null, "manual", null],
     ]);
     expect((await readings.list(c.caseId, { roomId: c.otherRoomId })).length).toBe(1);
-    expect((await readings.list(c.caseId, { limit: 2 })).map((r) => r.takenAt.toISOString())).toEqual(["2025-01-15T09:00:00.000Z", "2025-01-15T09:30:00.000Z"]);
-    expect((await readings.list(c.caseId, { limit: 2, newest: true })).map((r) => r.takenAt.toISOString())).toEqual(["2025-01-15T09:30:00.000Z", "2025-01-15T10:00:00.000Z"]);
+    expect((await readings.list(c.caseId, { limit: 2 })).map((r) => r.takenAt.toISOString())).toEqual([
+      "2025-01-15T09:00:00.000Z",
+      "2025-01-15T09:30:00.000Z",
+    ]);
+    expect((await readings.list(c.caseId, { limit: 2, newest: true })).map((r) => r.takenAt.toISOString())).toEqual([
+      "2025-01-15T09:30:00.000Z",
+      "2025-01-15T10:00:00.000Z",
+    ]);
 
     expect(await readings.seriesFor(c.caseId, c.roomId)).toEqual([
       { at: at("2025-01-15T09:00:00Z"), airTemperatureC: 18, relativeHumidityPct: 72, outdoorTemperatureC: -2 },
@@ -415,10 +506,14 @@ describe("readings", () => {
   it("refuses readings outside the physical ranges, writing none of them", async () => {
     const c = await makeCase();
     const e = await failure(
-      readings.addManual(c.caseId, [
-        { roomId: c.roomId, takenAt: new Date("2025-01-15T09:00:00Z"), airTemperatureC: 18, relativeHumidityPct: 72 },
-        { roomId: c.roomId, takenAt: new Date("2025-01-15T10:00:00Z"), airTemperatureC: 60, relativeHumidityPct: 0 },
-      ], { actorId: c.actorId }),
+      readings.addManual(
+        c.caseId,
+        [
+          { roomId: c.roomId, takenAt: new Date("2025-01-15T09:00:00Z"), airTemperatureC: 18, relativeHumidityPct: 72 },
+          { roomId: c.roomId, takenAt: new Date("2025-01-15T10:00:00Z"), airTemperatureC: 60, relativeHumidityPct: 0 },
+        ],
+        { actorId: c.actorId },
+      ),
     );
     expect(e.status).toBe(400);
     expect((e.details as { field: string }[]).map((d) => d.field)).toEqual(["1.airTemperatureC", "1.relativeHumidityPct"]);

@@ -52,7 +52,10 @@ describe("dates", () => {
     expect(parseDateTime("2025-01-15 07:00:00", "ISO 8601")).toEqual({ wallMs: wall(2025, 1, 15, 7, 0), offsetMinutes: null });
     expect(parseDateTime("2025-01-15 07:00", "ISO 8601")?.wallMs).toBe(wall(2025, 1, 15, 7, 0));
     expect(parseDateTime("2025-07-01T12:00:00+01:00", "ISO 8601")?.offsetMinutes).toBe(60);
-    expect(parseDateTime("2025-07-01T12:00:00.250-0530", "ISO 8601")).toEqual({ wallMs: wall(2025, 7, 1, 12, 0), offsetMinutes: -330 });
+    expect(parseDateTime("2025-07-01T12:00:00.250-0530", "ISO 8601")).toEqual({
+      wallMs: wall(2025, 7, 1, 12, 0),
+      offsetMinutes: -330,
+    });
     expect(parseDateTime("15/01/2025 07:00", "DD/MM/YYYY")?.wallMs).toBe(wall(2025, 1, 15, 7, 0));
     expect(parseDateTime("15-01-25 07:00:30", "DD/MM/YYYY")?.wallMs).toBe(wall(2025, 1, 15, 7, 0, 30));
     expect(parseDateTime("01/15/2025 07:00:00 PM", "MM/DD/YYYY")?.wallMs).toBe(wall(2025, 1, 15, 19, 0));
@@ -60,7 +63,10 @@ describe("dates", () => {
     expect(parseDateTime("01/15/2025 12:05 pm", "MM/DD/YYYY")?.wallMs).toBe(wall(2025, 1, 15, 12, 5));
     expect(parseDateTime("2025/01/15 07:00:00", "YYYY/MM/DD")?.wallMs).toBe(wall(2025, 1, 15, 7, 0));
     expect(parseDateTime("15.01.2025 07:00", "DD.MM.YYYY")?.wallMs).toBe(wall(2025, 1, 15, 7, 0));
-    expect(parseDateTime("1736924400", "epoch seconds")).toEqual({ wallMs: Date.parse("2025-01-15T07:00:00Z"), offsetMinutes: 0 });
+    expect(parseDateTime("1736924400", "epoch seconds")).toEqual({
+      wallMs: Date.parse("2025-01-15T07:00:00Z"),
+      offsetMinutes: 0,
+    });
     expect(parseDateTime("1736924400000", "epoch milliseconds")?.wallMs).toBe(Date.parse("2025-01-15T07:00:00Z"));
   });
   it("refuses dates that do not exist and malformed times", () => {
@@ -74,9 +80,18 @@ describe("dates", () => {
     expect(parseDateTime("yesterday", "ISO 8601")).toBeNull();
   });
   it("tells day-first from month-first by a field over 12, and says when it cannot", () => {
-    expect(detectDateFormat(["12/01/2025 10:00", "13/01/2025 10:00"])).toMatchObject({ format: "DD/MM/YYYY", ambiguousDayMonth: false });
-    expect(detectDateFormat(["01/12/2025 10:00", "01/13/2025 10:00"])).toMatchObject({ format: "MM/DD/YYYY", ambiguousDayMonth: false });
-    expect(detectDateFormat(["01/02/2025 10:00", "03/04/2025 10:00"])).toMatchObject({ format: "DD/MM/YYYY", ambiguousDayMonth: true });
+    expect(detectDateFormat(["12/01/2025 10:00", "13/01/2025 10:00"])).toMatchObject({
+      format: "DD/MM/YYYY",
+      ambiguousDayMonth: false,
+    });
+    expect(detectDateFormat(["01/12/2025 10:00", "01/13/2025 10:00"])).toMatchObject({
+      format: "MM/DD/YYYY",
+      ambiguousDayMonth: false,
+    });
+    expect(detectDateFormat(["01/02/2025 10:00", "03/04/2025 10:00"])).toMatchObject({
+      format: "DD/MM/YYYY",
+      ambiguousDayMonth: true,
+    });
     expect(detectDateFormat(["2025-01-15 07:00", "2025-01-15 07:01"])?.format).toBe("ISO 8601");
     expect(detectDateFormat(["1736924400", "1736924460"])?.format).toBe("epoch seconds");
     expect(detectDateFormat(["1", "2", "3"])).toBeNull();
@@ -112,9 +127,18 @@ describe("encoding", () => {
   it("accepts UTF-8 and a BOM, refuses UTF-16, workbooks and Latin-1", () => {
     expect(checkHead(Buffer.from("Time,°C\n"), true)).toEqual({ ok: true, bomLength: 0 });
     expect(checkHead(Buffer.from("\uFEFFTime,°C\n"), true)).toEqual({ ok: true, bomLength: 3 });
-    expect(checkHead(Buffer.from([0xff, 0xfe, 0x54, 0x00]), true)).toMatchObject({ ok: false, message: expect.stringContaining("UTF-16") });
-    expect(checkHead(Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14]), true)).toMatchObject({ ok: false, message: expect.stringContaining("workbook") });
-    expect(checkHead(Buffer.from("Time,Temp\n1,2\nTemp \xb0C\n", "latin1"), true)).toMatchObject({ ok: false, message: expect.stringMatching(/not UTF-8 text: line 3/) });
+    expect(checkHead(Buffer.from([0xff, 0xfe, 0x54, 0x00]), true)).toMatchObject({
+      ok: false,
+      message: expect.stringContaining("UTF-16"),
+    });
+    expect(checkHead(Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x14]), true)).toMatchObject({
+      ok: false,
+      message: expect.stringContaining("workbook"),
+    });
+    expect(checkHead(Buffer.from("Time,Temp\n1,2\nTemp \xb0C\n", "latin1"), true)).toMatchObject({
+      ok: false,
+      message: expect.stringMatching(/not UTF-8 text: line 3/),
+    });
   });
   it("allows a character cut by the end of a sample but not of a file", () => {
     const cut = Buffer.from("ab°").subarray(0, 3);
@@ -164,14 +188,25 @@ describe("header names", () => {
 
 describe("layout and mapping", () => {
   it("skips notes above the header and maps by name", () => {
-    const text = "Logger export\nSerial number,XY-123\n\nNo.,Time,Temperature (°C),Humidity (%rh),Dew Point (°C)\n" +
-      Array.from({ length: 20 }, (_, i) => `${i + 1},2025-01-15 07:${String(i).padStart(2, "0")}:00,20.${i % 10},6${i % 10},12.1`).join("\n");
+    const text =
+      "Logger export\nSerial number,XY-123\n\nNo.,Time,Temperature (°C),Humidity (%rh),Dew Point (°C)\n" +
+      Array.from(
+        { length: 20 },
+        (_, i) => `${i + 1},2025-01-15 07:${String(i).padStart(2, "0")}:00,20.${i % 10},6${i % 10},12.1`,
+      ).join("\n");
     const layout = detectLayout(text, true);
     expect(layout).toMatchObject({ delimiter: ",", hasHeader: true, skipRecords: 4, noteRecords: 2 });
     expect(layout.headers[1]).toBe("Time");
     const p = proposeMapping(layout.headers, layout.dataRows, layout.decimalComma);
     expect(p.missing).toEqual([]);
-    expect(p.mapping).toMatchObject({ timestamp: 1, temperature: 2, humidity: 3, temperatureUnit: "C", dateFormat: "ISO 8601", timeZone: "Europe/London" });
+    expect(p.mapping).toMatchObject({
+      timestamp: 1,
+      temperature: 2,
+      humidity: 3,
+      temperatureUnit: "C",
+      dateFormat: "ISO 8601",
+      timeZone: "Europe/London",
+    });
   });
   it("guesses from the values when there is no header, and says so", () => {
     const text = Array.from({ length: 20 }, (_, i) => `2025-01-15 07:${String(i).padStart(2, "0")},19.5,${55 + i}`).join("\n");
@@ -193,22 +228,46 @@ describe("layout and mapping", () => {
     expect(p.missing.map((m) => m.field)).toEqual(["timestamp", "temperature", "humidity"]);
   });
   it("takes temperatures over 45 without a unit for °F and says so", () => {
-    const p = proposeMapping(["Time", "Temperature", "RH"], [["2025-01-15 07:00", "68", "50"], ["2025-01-15 07:01", "69", "51"]], false);
+    const p = proposeMapping(
+      ["Time", "Temperature", "RH"],
+      [
+        ["2025-01-15 07:00", "68", "50"],
+        ["2025-01-15 07:01", "69", "51"],
+      ],
+      false,
+    );
     expect(p.mapping.temperatureUnit).toBe("F");
     expect(p.problems.join(" ")).toMatch(/°F/);
   });
 });
 
 describe("rows", () => {
-  const mapping: Mapping = { timestamp: 0, temperature: 1, humidity: 2, surfaceTemperature: 3, temperatureUnit: "C", dateFormat: "ISO 8601", timeZone: "Europe/London" };
+  const mapping: Mapping = {
+    timestamp: 0,
+    temperature: 1,
+    humidity: 2,
+    surfaceTemperature: 3,
+    temperatureUnit: "C",
+    dateFormat: "ISO 8601",
+    timeZone: "Europe/London",
+  };
   const convert = createRowConverter(mapping, { decimalComma: false, nowMs: Date.parse("2026-01-01T00:00:00Z") });
   const run = (record: string[]) => {
     const row = emptyRow();
     const reason = convert(record, row);
-    return { reason, out: reason === null ? [row.takenAt, row.airTemperatureC, row.relativeHumidityPct, row.surfaceTemperatureC, row.outdoorTemperatureC] : [] };
+    return {
+      reason,
+      out:
+        reason === null
+          ? [row.takenAt, row.airTemperatureC, row.relativeHumidityPct, row.surfaceTemperatureC, row.outdoorTemperatureC]
+          : [],
+    };
   };
   it("converts a good row", () => {
-    expect(run(["2025-07-01 12:00:00", "20.456", "55", ""])).toEqual({ reason: null, out: ["2025-07-01 11:00:00", 20.46, 55, null, null] });
+    expect(run(["2025-07-01 12:00:00", "20.456", "55", ""])).toEqual({
+      reason: null,
+      out: ["2025-07-01 11:00:00", 20.46, 55, null, null],
+    });
     expect(run(["2025-07-01T12:00:00Z", "68 °F", "55", "15"]).out).toEqual(["2025-07-01 12:00:00", 20, 55, 15, null]);
   });
   it("gives every reason a row is rejected", () => {
@@ -221,7 +280,9 @@ describe("rows", () => {
     expect(run(["2025-03-30 01:30", "20", "50", ""]).reason).toMatch(/does not exist in Europe\/London/);
     expect(run(["2027-01-01 00:00", "20", "50", ""]).reason).toMatch(/in the future/);
     expect(run(["", "", "", ""]).reason).toBe("time is missing; air temperature is missing; humidity is missing");
-    expect(run(["2025-01-15 07:00", "abc", "130", ""]).reason).toBe("air temperature 'abc' is not a number; humidity 130 is over 100 %");
+    expect(run(["2025-01-15 07:00", "abc", "130", ""]).reason).toBe(
+      "air temperature 'abc' is not a number; humidity 130 is over 100 %",
+    );
   });
 });
 
@@ -233,7 +294,9 @@ describe("rejected report", () => {
     r.add(9, "x");
     r.add(12, "y");
     expect(r.count).toBe(4);
-    expect(r.toCsv()).toBe("row,reason\n3,\"air temperature 'a,b' is not a number\"\n5,humidity 130 is over 100 %\n,\"…and 2 more rejected rows, not listed\"\n");
+    expect(r.toCsv()).toBe(
+      'row,reason\n3,"air temperature \'a,b\' is not a number"\n5,humidity 130 is over 100 %\n,"…and 2 more rejected rows, not listed"\n',
+    );
     expect(new RejectedReport().toCsv()).toBeNull();
   });
 });

@@ -21,7 +21,16 @@ beforeAll(async () => {
   tenant = await signedInClient(t.app, landlord.tenant.email, PASSWORD);
   const home = (await tenant.get("/api/me/home")).body.property;
   bedroomId = home.rooms.find((r: { kind: string }) => r.kind === "bedroom").id;
-  caseId = (await tenant.post("/api/cases", { description: "The bedroom window is streaming every morning.", locations: ["window"], observations: ["condensation"], roomIds: [bedroomId] }).expect(201)).body.id;
+  caseId = (
+    await tenant
+      .post("/api/cases", {
+        description: "The bedroom window is streaming every morning.",
+        locations: ["window"],
+        observations: ["condensation"],
+        roomIds: [bedroomId],
+      })
+      .expect(201)
+  ).body.id;
 });
 afterAll(() => t.close());
 
@@ -30,10 +39,22 @@ describe("readings by hand", () => {
     const reading = { roomId: bedroomId, takenAt: at(24), airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 };
     const first = await tenant.post(`/api/cases/${caseId}/readings`, [reading]).expect(201);
     expect(first.body).toEqual({ imported: 1, duplicates: 0, rejected: 0 });
-    const again = await tenant.post(`/api/cases/${caseId}/readings`, [reading, { roomId: bedroomId, takenAt: at(25), airTemperatureC: 19, relativeHumidityPct: 70 }]).expect(201);
+    const again = await tenant
+      .post(`/api/cases/${caseId}/readings`, [
+        reading,
+        { roomId: bedroomId, takenAt: at(25), airTemperatureC: 19, relativeHumidityPct: 70 },
+      ])
+      .expect(201);
     expect(again.body).toEqual({ imported: 1, duplicates: 1, rejected: 0 });
-    const events = (await tenant.get(`/api/cases/${caseId}/events`)).body.events.filter((e: { type: string }) => e.type === "readings-added");
-    expect(events.map((e: { after: { imported: number; duplicates: number } }) => [e.after.imported, e.after.duplicates])).toEqual([[1, 0], [1, 1]]);
+    const events = (await tenant.get(`/api/cases/${caseId}/events`)).body.events.filter(
+      (e: { type: string }) => e.type === "readings-added",
+    );
+    expect(
+      events.map((e: { after: { imported: number; duplicates: number } }) => [e.after.imported, e.after.duplicates]),
+    ).toEqual([
+      [1, 0],
+      [1, 1],
+    ]);
 
     const list = await tenant.get(`/api/cases/${caseId}/readings`).expect(200);
     expect(list.body.readings.map((r: { relativeHumidityPct: number }) => r.relativeHumidityPct)).toEqual([78, 70]);
@@ -50,15 +71,36 @@ describe("readings by hand", () => {
   });
 
   it("evaluates a measured window surface at 9 °C with air at 19 °C / 78 % as condensing and alerts the officers once", async () => {
-    const c = (await tenant.post("/api/cases", { description: "Window streaming.", locations: ["window"], observations: ["condensation"], roomIds: [bedroomId] }).expect(201)).body;
+    const c = (
+      await tenant
+        .post("/api/cases", {
+          description: "Window streaming.",
+          locations: ["window"],
+          observations: ["condensation"],
+          roomIds: [bedroomId],
+        })
+        .expect(201)
+    ).body;
     const before = t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length;
-    await tenant.post(`/api/cases/${c.id}/readings`, [{ roomId: bedroomId, takenAt: at(48), airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 }]).expect(201);
+    await tenant
+      .post(`/api/cases/${c.id}/readings`, [
+        { roomId: bedroomId, takenAt: at(48), airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 },
+      ])
+      .expect(201);
     const evaluation = await tenant.get(`/api/cases/${c.id}/evaluation`).expect(200);
-    expect(evaluation.body.rooms[0].surfaces[0].result.surface).toMatchObject({ source: "measured", temperatureC: 9, state: "condensing" });
+    expect(evaluation.body.rooms[0].surfaces[0].result.surface).toMatchObject({
+      source: "measured",
+      temperatureC: 9,
+      state: "condensing",
+    });
     const alert = await t.mail.lastTo(landlord.officer.email);
     expect(alert.subject).toContain(c.reference);
     expect(alert.raw).toMatch(/condensing/);
-    await tenant.post(`/api/cases/${c.id}/readings`, [{ roomId: bedroomId, takenAt: at(49), airTemperatureC: 19, relativeHumidityPct: 80, surfaceTemperatureC: 8 }]).expect(201);
+    await tenant
+      .post(`/api/cases/${c.id}/readings`, [
+        { roomId: bedroomId, takenAt: at(49), airTemperatureC: 19, relativeHumidityPct: 80, surfaceTemperatureC: 8 },
+      ])
+      .expect(201);
     // Once: one alert to this officer about this case in the outbox, written before the second reply.
     expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "caseAlert", caseId: c.id })).toBe(1);
     expect(t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length).toBe(before + 1);
@@ -67,13 +109,17 @@ describe("readings by hand", () => {
   it("validates every reading and changes nothing when one is bad", async () => {
     const good = { roomId: bedroomId, takenAt: at(0), airTemperatureC: 18, relativeHumidityPct: 60 };
     const count = (await tenant.get(`/api/cases/${caseId}/readings`)).body.readings.length;
-    const bad = await tenant.post(`/api/cases/${caseId}/readings`, [good, { ...good, takenAt: at(1), relativeHumidityPct: 101 }]).expect(400);
+    const bad = await tenant
+      .post(`/api/cases/${caseId}/readings`, [good, { ...good, takenAt: at(1), relativeHumidityPct: 101 }])
+      .expect(400);
     expect(bad.body.error.details[0].field).toBe("1.relativeHumidityPct");
     await tenant.post(`/api/cases/${caseId}/readings`, [{ ...good, airTemperatureC: "warm" }]).expect(400);
     await tenant.post(`/api/cases/${caseId}/readings`, [{ ...good, takenAt: "yesterday" }]).expect(400);
     await tenant.post(`/api/cases/${caseId}/readings`, []).expect(400);
     const other = await makeLandlord(t.ctx.dataSource);
-    const foreignRoom = (await (await signedInClient(t.app, other.officer.email, PASSWORD)).get(`/api/properties/${other.home.id}`)).body.rooms[0].id;
+    const foreignRoom = (
+      await (await signedInClient(t.app, other.officer.email, PASSWORD)).get(`/api/properties/${other.home.id}`)
+    ).body.rooms[0].id;
     const wrongRoom = await tenant.post(`/api/cases/${caseId}/readings`, [{ ...good, roomId: foreignRoom }]).expect(400);
     expect(wrongRoom.body.error.details[0].field).toBe("roomId");
     expect((await tenant.get(`/api/cases/${caseId}/readings`)).body.readings.length).toBe(count);
@@ -84,7 +130,11 @@ describe("readings by hand", () => {
     const client = await signedInClient(t.app, neighbour.email, PASSWORD);
     await client.get(`/api/cases/${caseId}/readings`).expect(404);
     await client.get(`/api/cases/${caseId}/evaluation`).expect(404);
-    await client.post(`/api/cases/${caseId}/readings`, [{ roomId: bedroomId, takenAt: at(0), airTemperatureC: 18, relativeHumidityPct: 60 }]).expect(404);
+    await client
+      .post(`/api/cases/${caseId}/readings`, [
+        { roomId: bedroomId, takenAt: at(0), airTemperatureC: 18, relativeHumidityPct: 60 },
+      ])
+      .expect(404);
     const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
     await officer.get(`/api/cases/${caseId}/evaluation`).expect(200);
   });
@@ -124,14 +174,21 @@ describe("logger CSV import through the API", () => {
 
     const again = await post(tenant, `/api/cases/${caseId}/readings/import`, file, { roomId: String(bedroomId) }).expect(201);
     expect(again.body).toMatchObject({ imported: 0, duplicates: 997, rejected: 3 });
-    const events = (await tenant.get(`/api/cases/${caseId}/events`)).body.events.filter((e: { type: string }) => e.type === "readings-imported");
+    const events = (await tenant.get(`/api/cases/${caseId}/events`)).body.events.filter(
+      (e: { type: string }) => e.type === "readings-imported",
+    );
     expect(events.at(-2).after).toMatchObject({ imported: 997, rejected: 3, fileName: "logger export.csv" });
   });
 
   it("answers 422 for a file that is not UTF-8 text or has no columns we can use, and 400 without a room", async () => {
-    const latin1 = Buffer.concat([Buffer.from("Zeit,Temperatur,Feuchte\n2026-11-01 10:00,18,70\n"), Buffer.from([0xe9, 0xff, 0xfe, 0x0a])]);
+    const latin1 = Buffer.concat([
+      Buffer.from("Zeit,Temperatur,Feuchte\n2026-11-01 10:00,18,70\n"),
+      Buffer.from([0xe9, 0xff, 0xfe, 0x0a]),
+    ]);
     await post(tenant, `/api/cases/${caseId}/readings/import`, latin1, { roomId: String(bedroomId) }).expect(422);
-    const noColumns = await post(tenant, `/api/cases/${caseId}/readings/import`, Buffer.from("name,colour\nsofa,green\n"), { roomId: String(bedroomId) }).expect(422);
+    const noColumns = await post(tenant, `/api/cases/${caseId}/readings/import`, Buffer.from("name,colour\nsofa,green\n"), {
+      roomId: String(bedroomId),
+    }).expect(422);
     expect(noColumns.body.error.message).toBeTruthy();
     await post(tenant, `/api/cases/${caseId}/readings/import`, thousandRows()).expect(400);
   });

@@ -34,7 +34,9 @@ it("gives each response a new id when the request brings none, and logs the requ
   expect(id).toMatch(UUID);
   expect(b.headers["x-request-id"]).toMatch(UUID);
   expect(b.headers["x-request-id"]).not.toBe(id);
-  expect(loggedFor(id)).toEqual([expect.objectContaining({ msg: "request completed", res: expect.objectContaining({ statusCode: 200 }) })]);
+  expect(loggedFor(id)).toEqual([
+    expect.objectContaining({ msg: "request completed", res: expect.objectContaining({ statusCode: 200 }) }),
+  ]);
   // Not found and client errors carry it too.
   expect((await request(app).get("/api/nowhere").expect(404)).headers["x-request-id"]).toMatch(UUID);
 });

@@ -53,15 +53,23 @@ it("gives the officer a live queue: open and overdue cases, risk states from rea
   const open = items.filter((i: { status: string }) => !["closed", "cancelled"].includes(i.status));
   expect(open.length).toBeGreaterThan(15);
   expect(items.some((i: { overdue: boolean; vulnerableHousehold: boolean }) => i.overdue && i.vulnerableHousehold)).toBe(true);
-  expect(new Set(items.map((i: { riskState: string | null }) => i.riskState))).toEqual(new Set(["condensing", "mould-risk", "dry", null].filter((s) => items.some((i: { riskState: string | null }) => i.riskState === s))));
-  expect(items.some((i: { riskState: string | null }) => i.riskState === "condensing" || i.riskState === "mould-risk")).toBe(true);
+  expect(new Set(items.map((i: { riskState: string | null }) => i.riskState))).toEqual(
+    new Set(
+      ["condensing", "mould-risk", "dry", null].filter((s) => items.some((i: { riskState: string | null }) => i.riskState === s)),
+    ),
+  );
+  expect(items.some((i: { riskState: string | null }) => i.riskState === "condensing" || i.riskState === "mould-risk")).toBe(
+    true,
+  );
   expect(items.some((i: { hhsrs: unknown }) => i.hhsrs !== null)).toBe(true);
   // The maintenance lead has booked work this week and a case being monitored with readings either side of the works.
   const lead = await signedInClient(t.app, "maintenance@example.org", "demo-password-2");
   const booked = (await lead.get("/api/work-orders?status=scheduled").expect(200)).body;
   expect(booked.total).toBeGreaterThan(0);
   expect(booked.items[0].assignee.name).toBe("Dale Whitcombe");
-  const monitoring = items.find((i: { status: string; riskState: string | null }) => i.status === "monitoring" && i.riskState !== null);
+  const monitoring = items.find(
+    (i: { status: string; riskState: string | null }) => i.status === "monitoring" && i.riskState !== null,
+  );
   const verification = (await lead.get(`/api/cases/${monitoring.id}/verification`).expect(200)).body;
   expect(["monitoring", "ended"]).toContain(verification.state);
   expect(verification.rooms[0].comparison.before.count).toBeGreaterThan(0);

@@ -57,7 +57,9 @@ export async function makeProperty(ds: DataSource, org: Organisation, over: Part
 
 export async function makeTenant(ds: DataSource, org: Organisation, property: Property, over: Partial<User> = {}) {
   const tenant = await makeUser(ds, org, "tenant", over);
-  await ds.getRepository(Tenancy).save({ propertyId: property.id, tenantUserId: tenant.id, startDate: "2024-01-01", endDate: null, householdNotes: null });
+  await ds
+    .getRepository(Tenancy)
+    .save({ propertyId: property.id, tenantUserId: tenant.id, startDate: "2024-01-01", endDate: null, householdNotes: null });
   return tenant;
 }
 

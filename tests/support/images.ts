@@ -13,12 +13,17 @@ export function jpegWithGps(width = 1200, height = 900, seed = 0): Promise<Buffe
 }
 
 export function png(width = 640, height = 480): Promise<Buffer> {
-  return sharp({ create: { width, height, channels: 4, background: { r: 10, g: 20, b: 200, alpha: 1 } } }).png().toBuffer();
+  return sharp({ create: { width, height, channels: 4, background: { r: 10, g: 20, b: 200, alpha: 1 } } })
+    .png()
+    .toBuffer();
 }
 
 /** A JPEG stored sideways with EXIF Orientation 6 (rotate 90° clockwise to display). */
 export function sidewaysJpeg(): Promise<Buffer> {
-  return sharp({ create: { width: 400, height: 200, channels: 3, background: "#808080" } }).jpeg().withMetadata({ orientation: 6 }).toBuffer();
+  return sharp({ create: { width: 400, height: 200, channels: 3, background: "#808080" } })
+    .jpeg()
+    .withMetadata({ orientation: 6 })
+    .toBuffer();
 }
 
 /** The first bytes of an HEIC file (ftyp box with the heic brand). */

@@ -31,7 +31,10 @@ export async function startMailCatcher(): Promise<MailCatcher> {
         const decoded = raw
           .replace(/=\r?\n/g, "")
           .replace(/=3D/g, "=")
-          .replace(/(Content-Transfer-Encoding: base64\r?\n(?:[^\r\n]+\r?\n)*\r?\n)([A-Za-z0-9+/=\r\n]+)/g, (_, head: string, body: string) => head + Buffer.from(body.replace(/\s+/g, ""), "base64").toString("utf8") + "\r\n");
+          .replace(
+            /(Content-Transfer-Encoding: base64\r?\n(?:[^\r\n]+\r?\n)*\r?\n)([A-Za-z0-9+/=\r\n]+)/g,
+            (_, head: string, body: string) => head + Buffer.from(body.replace(/\s+/g, ""), "base64").toString("utf8") + "\r\n",
+          );
         const subject = /^Subject: (.*)$/m.exec(raw)?.[1]?.trim() ?? "";
         mails.push({ to: session.envelope.rcptTo.map((r) => r.address), subject, raw: decoded });
         callback();

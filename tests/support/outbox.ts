@@ -13,7 +13,11 @@ export interface OutboxFilter {
 /** The outbox rows to one address (optionally of one template, about one case), oldest first. */
 export function outboxRows(ds: DataSource, f: OutboxFilter): Promise<OutboxEmail[]> {
   return ds.getRepository(OutboxEmail).find({
-    where: { toAddress: f.to, ...(f.template === undefined ? {} : { template: f.template }), ...(f.caseId === undefined ? {} : { relatedType: "case", relatedId: f.caseId }) },
+    where: {
+      toAddress: f.to,
+      ...(f.template === undefined ? {} : { template: f.template }),
+      ...(f.caseId === undefined ? {} : { relatedType: "case", relatedId: f.caseId }),
+    },
     order: { id: "ASC" },
   });
 }

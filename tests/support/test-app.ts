@@ -47,8 +47,16 @@ export async function anonymousClient(app: Express): Promise<Client> {
     agent,
     csrf: res.body.csrfToken as string,
     get: (url) => agent.get(url),
-    post: (url, body) => agent.post(url).set("X-CSRF-Token", client.csrf).send(body ?? {}),
-    patch: (url, body) => agent.patch(url).set("X-CSRF-Token", client.csrf).send(body ?? {}),
+    post: (url, body) =>
+      agent
+        .post(url)
+        .set("X-CSRF-Token", client.csrf)
+        .send(body ?? {}),
+    patch: (url, body) =>
+      agent
+        .patch(url)
+        .set("X-CSRF-Token", client.csrf)
+        .send(body ?? {}),
   };
   return client;
 }

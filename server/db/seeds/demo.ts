@@ -30,7 +30,13 @@ interface EstatePlan {
   outward: string;
   streets: string[];
   homes: number;
-  pick(i: number): { builtForm: BuiltForm; wallType: WallType; glazingType: GlazingType; heatingType: HeatingType; block: string | null };
+  pick(i: number): {
+    builtForm: BuiltForm;
+    wallType: WallType;
+    glazingType: GlazingType;
+    heatingType: HeatingType;
+    block: string | null;
+  };
 }
 
 const rand = mulberry32(20261202);
@@ -95,7 +101,8 @@ function roomsFor(builtForm: BuiltForm, bedrooms: number): { name: string; kind:
   return rooms;
 }
 
-const postcode = (outward: string, n: number) => `${outward} ${(n % 9) + 1}${"ABDEFGHJLNPQRSTUWXYZ"[n % 20]}${"ABDEFGHJLNPQRSTUWXYZ"[(n * 7) % 20]}`;
+const postcode = (outward: string, n: number) =>
+  `${outward} ${(n % 9) + 1}${"ABDEFGHJLNPQRSTUWXYZ"[n % 20]}${"ABDEFGHJLNPQRSTUWXYZ"[(n * 7) % 20]}`;
 
 async function createOrganisationWithHomes(m: EntityManager, passwordHash: string) {
   const org = await m.getRepository(Organisation).save({ name: DEMO_ORGANISATION });
@@ -132,8 +139,20 @@ async function createOrganisationWithHomes(m: EntityManager, passwordHash: strin
   const tenancies = m.getRepository(Tenancy);
   const firstKestrel = homes.find((h) => h.estate === "Kestrel Rise" && h.builtForm === "flat")!;
   await tenancies.save([
-    { propertyId: homes[0]!.id, tenantUserId: accounts.get("tenant@example.org")!.id, startDate: "2021-04-12", endDate: null, householdNotes: "Two adults and a child under five." },
-    { propertyId: firstKestrel.id, tenantUserId: accounts.get("tenant2@example.org")!.id, startDate: "2023-09-01", endDate: null, householdNotes: null },
+    {
+      propertyId: homes[0]!.id,
+      tenantUserId: accounts.get("tenant@example.org")!.id,
+      startDate: "2021-04-12",
+      endDate: null,
+      householdNotes: "Two adults and a child under five.",
+    },
+    {
+      propertyId: firstKestrel.id,
+      tenantUserId: accounts.get("tenant2@example.org")!.id,
+      startDate: "2023-09-01",
+      endDate: null,
+      householdNotes: null,
+    },
   ]);
   // Tenant accounts for about half of the other homes.
   let t = 0;
@@ -141,9 +160,22 @@ async function createOrganisationWithHomes(m: EntityManager, passwordHash: strin
     if (home.id === homes[0]!.id || home.id === firstKestrel.id || rand() < 0.45) continue;
     t++;
     const user = await users.save(
-      users.create({ email: `tenant.${String(t).padStart(3, "0")}@example.org`, name: `Demo Tenant ${t}`, role: "tenant", organisationId: org.id, passwordHash, status: "active" }),
+      users.create({
+        email: `tenant.${String(t).padStart(3, "0")}@example.org`,
+        name: `Demo Tenant ${t}`,
+        role: "tenant",
+        organisationId: org.id,
+        passwordHash,
+        status: "active",
+      }),
     );
-    await tenancies.save({ propertyId: home.id, tenantUserId: user.id, startDate: `20${15 + (t % 10)}-0${1 + (t % 9)}-15`, endDate: null, householdNotes: null });
+    await tenancies.save({
+      propertyId: home.id,
+      tenantUserId: user.id,
+      startDate: `20${15 + (t % 10)}-0${1 + (t % 9)}-15`,
+      endDate: null,
+      householdNotes: null,
+    });
   }
   return { homes: homes.length, tenants: t + 2 };
 }
@@ -153,8 +185,18 @@ async function createOtherOrganisation(m: EntityManager, passwordHash: string) {
   await m.getRepository(User).save({ ...OTHER_ADMIN, organisationId: org.id, passwordHash, status: "active" });
   for (let i = 1; i <= 3; i++) {
     const p = await m.getRepository(Property).save({
-      organisationId: org.id, addressLine1: `${i * 4} Lantern Yard`, addressLine2: null, town: "Wensford", postcode: `ZX9 ${i}QT`,
-      uprn: null, estate: "Lantern Yard", block: null, builtForm: "mid-terrace", wallType: "solid-brick", glazingType: "old-double", heatingType: "gas-boiler",
+      organisationId: org.id,
+      addressLine1: `${i * 4} Lantern Yard`,
+      addressLine2: null,
+      town: "Wensford",
+      postcode: `ZX9 ${i}QT`,
+      uprn: null,
+      estate: "Lantern Yard",
+      block: null,
+      builtForm: "mid-terrace",
+      wallType: "solid-brick",
+      glazingType: "old-double",
+      heatingType: "gas-boiler",
     });
     await m.getRepository(Room).save(roomsFor("mid-terrace", 2).map((r) => ({ ...r, propertyId: p.id })));
   }
@@ -165,7 +207,11 @@ async function createOtherOrganisation(m: EntityManager, passwordHash: string) {
  * Everything is written in one transaction, so an interrupted seed leaves nothing behind. The demo
  * cases are dated back from `now` (tests pass their clock's).
  */
-export async function seedDemo(dataSource: DataSource, password: string, now: Date = new Date()): Promise<{ created: boolean; homes?: number; tenants?: number; cases: number }> {
+export async function seedDemo(
+  dataSource: DataSource,
+  password: string,
+  now: Date = new Date(),
+): Promise<{ created: boolean; homes?: number; tenants?: number; cases: number }> {
   const passwordHash = await hashPassword(password);
   return dataSource.transaction(async (m) => {
     const existing = await m.getRepository(Organisation).findOneBy({ name: DEMO_ORGANISATION });

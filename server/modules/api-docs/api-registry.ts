@@ -6,7 +6,13 @@ import { ENDPOINTS, type Endpoint } from "../../../src/lib/contracts/endpoints.j
 import { caseReportSchema, staffCaseSchema } from "../../../src/lib/schemas/case-report.js";
 import { evaluatePointSchema, evaluateSeriesSchema } from "../../../src/lib/schemas/psychrometrics.js";
 import { assessmentSchema } from "../assessments/assessments.schemas.js";
-import { acceptInvitationSchema, invitationSchema, loginSchema, passwordResetRequestSchema, passwordResetSchema } from "../auth/auth.schemas.js";
+import {
+  acceptInvitationSchema,
+  invitationSchema,
+  loginSchema,
+  passwordResetRequestSchema,
+  passwordResetSchema,
+} from "../auth/auth.schemas.js";
 import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
 import { inspectionSchema, messageSchema, summarySchema } from "../inspections/inspections.schemas.js";
 import { deadlinePolicySchema } from "../policy/policy.schemas.js";
@@ -14,7 +20,14 @@ import { propertyListQuerySchema } from "../properties/properties.schemas.js";
 import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
 import { bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
-import { bookingResponseSchema, contractorSchema, verificationOutcomeSchema, workOrderCreateSchema, workOrderListQuerySchema, workOrderPatchSchema } from "../works/works.schemas.js";
+import {
+  bookingResponseSchema,
+  contractorSchema,
+  verificationOutcomeSchema,
+  workOrderCreateSchema,
+  workOrderListQuerySchema,
+  workOrderPatchSchema,
+} from "../works/works.schemas.js";
 
 export interface RequestSchemas {
   body?: z.ZodType | readonly z.ZodType[];

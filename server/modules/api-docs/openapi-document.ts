@@ -4,17 +4,40 @@ import { z } from "zod";
 import { errorResponse, isJsonSchema } from "../../../src/lib/contracts/index.js";
 import { ROUTES } from "./api-registry.js";
 
-const json = (schema: z.ZodType, io: "input" | "output") => z.toJSONSchema(schema, { target: "draft-2020-12", io, unrepresentable: "any" });
+const json = (schema: z.ZodType, io: "input" | "output") =>
+  z.toJSONSchema(schema, { target: "draft-2020-12", io, unrepresentable: "any" });
 const oapiPath = (path: string) => path.replace(/:([A-Za-z]+)/g, "{$1}");
-const who = (access: (typeof ROUTES)[number]["access"]) => (access === "public" ? "Anyone, no sign-in." : access === "signed-in" ? "Anyone signed in (tenants see only their home's data)." : `Roles: ${access.join(", ")}.`);
+const who = (access: (typeof ROUTES)[number]["access"]) =>
+  access === "public"
+    ? "Anyone, no sign-in."
+    : access === "signed-in"
+      ? "Anyone signed in (tenants see only their home's data)."
+      : `Roles: ${access.join(", ")}.`;
 
 export function fullOpenApiDocument(serverUrl: string) {
   const paths: Record<string, Record<string, unknown>> = {};
   for (const r of ROUTES) {
-    const params = [...r.path.matchAll(/:([A-Za-z]+)/g)].map((m) => ({ name: m[1], in: "path", required: true, schema: { type: "string" } }));
-    const query = r.query ? Object.entries((json(r.query, "input").properties ?? {}) as Record<string, unknown>).map(([name, schema]) => ({ name, in: "query", required: false, schema })) : [];
+    const params = [...r.path.matchAll(/:([A-Za-z]+)/g)].map((m) => ({
+      name: m[1],
+      in: "path",
+      required: true,
+      schema: { type: "string" },
+    }));
+    const query = r.query
+      ? Object.entries((json(r.query, "input").properties ?? {}) as Record<string, unknown>).map(([name, schema]) => ({
+          name,
+          in: "query",
+          required: false,
+          schema,
+        }))
+      : [];
     const bodies = r.body === undefined ? [] : Array.isArray(r.body) ? (r.body as z.ZodType[]) : [r.body as z.ZodType];
-    const bodySchema = bodies.length === 0 ? undefined : bodies.length === 1 ? json(bodies[0]!, "input") : { oneOf: bodies.map((b) => json(b, "input")) };
+    const bodySchema =
+      bodies.length === 0
+        ? undefined
+        : bodies.length === 1
+          ? json(bodies[0]!, "input")
+          : { oneOf: bodies.map((b) => json(b, "input")) };
     const mediaType = r.multipart ? "multipart/form-data" : "application/json";
     const success =
       r.response === null
@@ -28,10 +51,16 @@ export function fullOpenApiDocument(serverUrl: string) {
       description: who(r.access),
       "x-dewline-access": r.access,
       ...(params.length + query.length > 0 ? { parameters: [...params, ...query] } : {}),
-      ...(bodySchema || r.multipart ? { requestBody: { required: true, content: { [mediaType]: { schema: bodySchema ?? { type: "object" } } } } } : {}),
+      ...(bodySchema || r.multipart
+        ? { requestBody: { required: true, content: { [mediaType]: { schema: bodySchema ?? { type: "object" } } } } }
+        : {}),
       responses: {
         [String(r.status)]: success,
-        default: { description: "An error: 400 names the field, 401 not signed in, 403 not allowed or bad CSRF token, 404 not found or not yours.", content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } },
+        default: {
+          description:
+            "An error: 400 names the field, 401 not signed in, 403 not allowed or bad CSRF token, 404 not found or not yours.",
+          content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } },
+        },
       },
     };
   }
@@ -40,7 +69,8 @@ export function fullOpenApiDocument(serverUrl: string) {
     info: {
       title: "Dewline API",
       version: "1.0.0",
-      description: "Every route of the Dewline API. State-changing requests carry the session's CSRF token in X-CSRF-Token (GET /api/auth/csrf). Staff only.",
+      description:
+        "Every route of the Dewline API. State-changing requests carry the session's CSRF token in X-CSRF-Token (GET /api/auth/csrf). Staff only.",
     },
     servers: [{ url: serverUrl }],
     paths,

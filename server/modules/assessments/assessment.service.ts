@@ -12,10 +12,17 @@ export class AssessmentService {
   ) {}
 
   /** Scores by the published formula, stores a new version and records it on the case, in one transaction. */
-  async assess(actor: Actor, caseId: number, input: { likelihood: number; spread: [number, number, number, number]; justification: string }) {
+  async assess(
+    actor: Actor,
+    caseId: number,
+    input: { likelihood: number; spread: [number, number, number, number]; justification: string },
+  ) {
     const problems = validateAssessment(input);
     if (problems.length) {
-      throw new ValidationError(problems[0]!.message, problems.map((p) => ({ field: p.index === undefined ? p.field : `${p.field}.${p.index}`, message: p.message })));
+      throw new ValidationError(
+        problems[0]!.message,
+        problems.map((p) => ({ field: p.index === undefined ? p.field : `${p.field}.${p.index}`, message: p.message })),
+      );
     }
     const result = hhsrsScore(input);
     return this.dataSource.transaction(async (m) => {

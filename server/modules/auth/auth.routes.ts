@@ -1,5 +1,11 @@
 import { Router, type Request } from "express";
-import { csrfResponse, invitationCreatedResponse, invitationDescriptionResponse, loginResponse, passwordResetRequestedResponse } from "../../../src/lib/contracts/auth.js";
+import {
+  csrfResponse,
+  invitationCreatedResponse,
+  invitationDescriptionResponse,
+  loginResponse,
+  passwordResetRequestedResponse,
+} from "../../../src/lib/contracts/auth.js";
 import { shaped } from "../../lib/contract.js";
 import type { Authenticator } from "./passport.js";
 import type { Config } from "../../config/env.js";
@@ -34,14 +40,26 @@ function authenticate(passport: Authenticator, req: Request): Promise<Actor | fa
   });
 }
 
-const logIn = (req: Request, actor: Actor) => new Promise<void>((resolve, reject) => req.logIn(actor, (err) => (err ? reject(err) : resolve())));
+const logIn = (req: Request, actor: Actor) =>
+  new Promise<void>((resolve, reject) => req.logIn(actor, (err) => (err ? reject(err) : resolve())));
 const logOut = (req: Request) => new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
 
 export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): Router {
   const router = Router();
   const tooMany = "Too many unsuccessful sign-in attempts.";
-  const perIp = limiter({ windowMs: config.login.windowMs, limit: config.login.maxFailures, failuresOnly: true, message: tooMany });
-  const perAccount = limiter({ windowMs: config.login.windowMs, limit: config.login.maxFailures, failuresOnly: true, key: accountKey, message: tooMany });
+  const perIp = limiter({
+    windowMs: config.login.windowMs,
+    limit: config.login.maxFailures,
+    failuresOnly: true,
+    message: tooMany,
+  });
+  const perAccount = limiter({
+    windowMs: config.login.windowMs,
+    limit: config.login.maxFailures,
+    failuresOnly: true,
+    key: accountKey,
+    message: tooMany,
+  });
   const resetLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many password reset requests." });
 
   router.get("/csrf", (req, res) => {
@@ -51,7 +69,8 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
   router.post("/login", perIp, perAccount, async (req, res) => {
     req.body = parse(loginSchema, req.body);
     const actor = await authenticate(passport, req);
-    if (!actor) throw new AppError(401, "invalid_credentials", "That e-mail address and password do not match an active account.");
+    if (!actor)
+      throw new AppError(401, "invalid_credentials", "That e-mail address and password do not match an active account.");
     // passport ≥ 0.6 regenerates the session here, so a pre-sign-in session id is never reused.
     await logIn(req, actor);
     res.json(shaped(loginResponse, { user: toMeDto(actor), csrfToken: csrfToken(req, true) }));
@@ -86,7 +105,11 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
   router.post("/password-reset", resetLimit, async (req, res) => {
     const { email } = parse(passwordResetRequestSchema, req.body);
     await auth.requestPasswordReset(email);
-    res.status(202).json(shaped(passwordResetRequestedResponse, { message: "If an active account uses that address, we have sent it a link to choose a new password." }));
+    res.status(202).json(
+      shaped(passwordResetRequestedResponse, {
+        message: "If an active account uses that address, we have sent it a link to choose a new password.",
+      }),
+    );
   });
 
   router.post("/password-reset/confirm", async (req, res) => {

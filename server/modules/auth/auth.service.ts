@@ -17,7 +17,13 @@ const INVITATION_HOURS = 72;
 const RESET_MINUTES = 60;
 const INVALID_LINK = "This link is not valid any more: it may have been used already or have expired. Ask for a new one.";
 
-export const toActor = (u: Person): Actor => ({ id: u.id, email: u.email, name: u.name, role: u.role, organisationId: u.organisationId });
+export const toActor = (u: Person): Actor => ({
+  id: u.id,
+  email: u.email,
+  name: u.name,
+  role: u.role,
+  organisationId: u.organisationId,
+});
 
 export class AuthService {
   constructor(
@@ -61,9 +67,18 @@ export class AuthService {
       if (await this.users.emailTaken(input.email, m)) {
         throw new ConflictError("Someone with that e-mail address already has an account.");
       }
-      const user = await this.users.createInvited(m, { organisationId: actor.organisationId, email: input.email, name: input.name, role: input.role });
+      const user = await this.users.createInvited(m, {
+        organisationId: actor.organisationId,
+        email: input.email,
+        name: input.name,
+        role: input.role,
+      });
       if (input.role === "tenant") {
-        await this.tenancies.start(m, { propertyId: input.propertyId!, tenantUserId: user.id, householdNotes: input.householdNotes ?? null });
+        await this.tenancies.start(m, {
+          propertyId: input.propertyId!,
+          tenantUserId: user.id,
+          householdNotes: input.householdNotes ?? null,
+        });
       }
       await this.saveToken(m, user.id, "invitation", hash, expiresAt, actor.id);
       const organisationName = await this.organisations.nameOf(actor.organisationId, m);
@@ -107,7 +122,14 @@ export class AuthService {
     if (!user || user.status !== "active") return;
     const { token, hash } = newToken();
     const deliver = await this.dataSource.transaction(async (m) => {
-      await this.saveToken(m, user.id, "password-reset", hash, new Date(this.clock.now().getTime() + RESET_MINUTES * 60_000), null);
+      await this.saveToken(
+        m,
+        user.id,
+        "password-reset",
+        hash,
+        new Date(this.clock.now().getTime() + RESET_MINUTES * 60_000),
+        null,
+      );
       return this.mail.enqueue(m, {
         to: user.email,
         template: "passwordReset",
@@ -127,11 +149,20 @@ export class AuthService {
       if (!user || user.status !== "active") throw new NotFoundError(INVALID_LINK);
       await this.users.setPasswordHash(m, user.id, passwordHash);
       // Any other reset link still outstanding stops working too.
-      await m.getRepository(UserToken).update({ userId: user.id, purpose: "password-reset", usedAt: IsNull() }, { usedAt: this.clock.now() });
+      await m
+        .getRepository(UserToken)
+        .update({ userId: user.id, purpose: "password-reset", usedAt: IsNull() }, { usedAt: this.clock.now() });
     });
   }
 
-  private async saveToken(m: EntityManager, userId: number, purpose: TokenPurpose, tokenHash: string, expiresAt: Date, createdById: number | null) {
+  private async saveToken(
+    m: EntityManager,
+    userId: number,
+    purpose: TokenPurpose,
+    tokenHash: string,
+    expiresAt: Date,
+    createdById: number | null,
+  ) {
     // A new link replaces any earlier one of the same kind.
     await m.getRepository(UserToken).update({ userId, purpose, usedAt: IsNull() }, { usedAt: this.clock.now() });
     await m.getRepository(UserToken).insert({ userId, purpose, tokenHash, expiresAt, createdById, usedAt: null });

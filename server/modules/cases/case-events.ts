@@ -25,24 +25,48 @@ export type CaseEventPayload =
     }
   | { type: "status-changed"; before: { status: CaseStatus }; after: { status: CaseStatus; reason: string | null } }
   | { type: "assignee-changed"; before: { assigneeId: number | null }; after: { assigneeId: number | null } }
-  | { type: "hazard-classified"; before: { hazardClass: HazardClass | null; reason: string | null }; after: { hazardClass: HazardClass | null; reason: string | undefined } }
+  | {
+      type: "hazard-classified";
+      before: { hazardClass: HazardClass | null; reason: string | null };
+      after: { hazardClass: HazardClass | null; reason: string | undefined };
+    }
   | { type: "email-queued"; after: { outboxId: number; to: string; template: string } }
   | { type: "tenant-got-worse"; after: { note: string } }
   | { type: "photos-added"; after: { photoIds: number[]; workOrderId: number | null } }
   | { type: "readings-added"; after: { imported: number; duplicates: number; roomIds: number[]; roomId: number | undefined } }
-  | { type: "readings-imported"; after: { importId: number; fileName: string; roomId: number; imported: number; duplicates: number; rejected: number } }
-  | { type: "hhsrs-assessed"; before: { version: number; band: string; category: number } | null; after: { version: number; score: number; band: string; category: number } }
+  | {
+      type: "readings-imported";
+      after: { importId: number; fileName: string; roomId: number; imported: number; duplicates: number; rejected: number };
+    }
+  | {
+      type: "hhsrs-assessed";
+      before: { version: number; band: string; category: number } | null;
+      after: { version: number; score: number; band: string; category: number };
+    }
   | { type: "inspection-recorded"; after: { inspectionId: number; inspectedAt: string; cause: string; mouldExtent: string } }
   | { type: "summary-sent"; after: { summaryId: number; body: string; outboxId: number } }
   | { type: "internal-note"; after: { body: string } }
   | { type: "message-to-tenant"; after: { body: string; outboxId?: number } }
-  | { type: "work-order-created"; after: { workOrderId: number; type: string; description: string; targetDate: string; priority: string } }
+  | {
+      type: "work-order-created";
+      after: { workOrderId: number; type: string; description: string; targetDate: string; priority: string };
+    }
   | {
       type: "work-order-scheduled";
       before: { date: string; window: SlotWindow } | null;
-      after: { workOrderId: number; date: string; window: SlotWindow; assignee: string | null; contractor: string | null; rescheduled: boolean };
+      after: {
+        workOrderId: number;
+        date: string;
+        window: SlotWindow;
+        assignee: string | null;
+        contractor: string | null;
+        rescheduled: boolean;
+      };
     }
-  | { type: "booking-confirmed" | "booking-change-requested"; after: { workOrderId: number; date: string; window: SlotWindow; reason: string | null } }
+  | {
+      type: "booking-confirmed" | "booking-change-requested";
+      after: { workOrderId: number; date: string; window: SlotWindow; reason: string | null };
+    }
   | { type: "work-order-completed"; after: { workOrderId: number; note: string; followOn: string | null } }
   | { type: "work-order-cancelled"; after: { workOrderId: number; reason: string } }
   | { type: "monitoring-started"; after: { worksDoneAt: string; endsAt: string; days: number } }
@@ -57,6 +81,9 @@ export type CaseEventOf<T extends CaseEventType> = Extract<CaseEventPayload, { t
 export type NewCaseEvent = { caseId: number; actorId: number | null } & CaseEventPayload;
 
 /** A stored row read back as its kind (the row's JSON is what was written through NewCaseEvent). */
-export function asCaseEvent<T extends CaseEventType>(row: { type: string; before: unknown; after: unknown }, type: T): CaseEventOf<T> | null {
+export function asCaseEvent<T extends CaseEventType>(
+  row: { type: string; before: unknown; after: unknown },
+  type: T,
+): CaseEventOf<T> | null {
   return row.type === type ? ({ type, before: row.before, after: row.after } as unknown as CaseEventOf<T>) : null;
 }

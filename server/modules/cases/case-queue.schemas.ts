@@ -2,7 +2,23 @@ import { z } from "zod";
 import { CASE_STATUSES, OPEN_CASE_STATUSES, type CaseStatus } from "../../../src/lib/domain/case-workflow.js";
 import { BANDS } from "../../../src/lib/domain/hhsrs.js";
 
-export const QUEUE_SORTS = ["reference", "address", "estate", "rooms", "awareAt", "channel", "risk", "mouldIndex", "area", "vulnerable", "band", "priority", "due", "status", "assignee"] as const;
+export const QUEUE_SORTS = [
+  "reference",
+  "address",
+  "estate",
+  "rooms",
+  "awareAt",
+  "channel",
+  "risk",
+  "mouldIndex",
+  "area",
+  "vulnerable",
+  "band",
+  "priority",
+  "due",
+  "status",
+  "assignee",
+] as const;
 export type QueueSort = (typeof QUEUE_SORTS)[number];
 
 export const OPEN_STATUSES: readonly CaseStatus[] = OPEN_CASE_STATUSES;
@@ -16,7 +32,14 @@ const commaList = <T extends string>(field: string, allowed: readonly T[]) =>
     .string()
     .trim()
     .transform((raw, ctx) => {
-      const values = [...new Set(raw.split(",").map((v) => v.trim()).filter(Boolean))];
+      const values = [
+        ...new Set(
+          raw
+            .split(",")
+            .map((v) => v.trim())
+            .filter(Boolean),
+        ),
+      ];
       const strange = values.filter((v) => !allowed.includes(v as T));
       if (strange.length) {
         ctx.addIssue({ code: "custom", message: `${field}: ${strange.join(", ")} is not one of ${allowed.join(", ")}.` });
@@ -34,10 +57,20 @@ export const queueQuerySchema = z.object({
     .trim()
     .transform((raw, ctx) => {
       if (raw === "open") return [...OPEN_STATUSES];
-      const values = [...new Set(raw.split(",").map((v) => v.trim()).filter(Boolean))];
+      const values = [
+        ...new Set(
+          raw
+            .split(",")
+            .map((v) => v.trim())
+            .filter(Boolean),
+        ),
+      ];
       const strange = values.filter((v) => !(CASE_STATUSES as readonly string[]).includes(v));
       if (strange.length) {
-        ctx.addIssue({ code: "custom", message: `status: ${strange.join(", ")} is not one of open, ${CASE_STATUSES.join(", ")}.` });
+        ctx.addIssue({
+          code: "custom",
+          message: `status: ${strange.join(", ")} is not one of open, ${CASE_STATUSES.join(", ")}.`,
+        });
         return z.NEVER;
       }
       return values as CaseStatus[];
@@ -49,7 +82,12 @@ export const queueQuerySchema = z.object({
   estate: z.string().trim().max(100).optional(),
   vulnerable: trueFalse("vulnerable").optional(),
   overdue: trueFalse("overdue").optional(),
-  dueWithin: z.coerce.number({ error: "dueWithin must be a number of days." }).int("dueWithin must be a whole number of days.").min(1, "dueWithin must be at least 1 day.").max(365, "dueWithin can be at most 365 days.").optional(),
+  dueWithin: z.coerce
+    .number({ error: "dueWithin must be a number of days." })
+    .int("dueWithin must be a whole number of days.")
+    .min(1, "dueWithin must be at least 1 day.")
+    .max(365, "dueWithin can be at most 365 days.")
+    .optional(),
   assignee: z
     .string()
     .trim()
@@ -59,13 +97,21 @@ export const queueQuerySchema = z.object({
   sort: z.enum(QUEUE_SORTS, { error: `sort must be one of ${QUEUE_SORTS.join(", ")}.` }).default("priority"),
   order: z.enum(["asc", "desc"], { error: "order must be asc or desc." }).optional(),
   page: z.coerce.number({ error: "page must be a number." }).int().min(1, "page starts at 1.").max(100_000).default(1),
-  pageSize: z.coerce.number({ error: "pageSize must be a number." }).int().min(1, "pageSize must be at least 1.").max(200, "pageSize can be at most 200.").default(25),
+  pageSize: z.coerce
+    .number({ error: "pageSize must be a number." })
+    .int()
+    .min(1, "pageSize must be at least 1.")
+    .max(200, "pageSize can be at most 200.")
+    .default(25),
 });
 export type QueueQuery = z.infer<typeof queueQuerySchema>;
 
 export const bulkUpdateSchema = z
   .object({
-    ids: z.array(z.number().int().positive(), { error: "ids must be a list of case ids." }).min(1, "Choose at least one case.").max(200, "Change at most 200 cases at once."),
+    ids: z
+      .array(z.number().int().positive(), { error: "ids must be a list of case ids." })
+      .min(1, "Choose at least one case.")
+      .max(200, "Change at most 200 cases at once."),
     status: z.enum(CASE_STATUSES, { error: `status must be one of ${CASE_STATUSES.join(", ")}.` }).optional(),
     assigneeId: z.number({ error: "assigneeId must be a user id, or null to unassign." }).int().positive().nullable().optional(),
     reason: z.string().trim().min(3, "Give a short reason.").max(2000).optional(),

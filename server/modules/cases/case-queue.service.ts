@@ -53,7 +53,10 @@ const SORTS: Record<Exclude<QueueSort, "priority">, { expr: string; nullable: bo
   reference: { expr: "c.reference", nullable: false },
   address: { expr: "NATURAL_SORT_KEY(p.address_line1)", nullable: false },
   estate: { expr: "p.estate", nullable: false },
-  rooms: { expr: "(SELECT MIN(r.name) FROM case_rooms cr JOIN rooms r ON r.id = cr.room_id WHERE cr.case_id = c.id)", nullable: true },
+  rooms: {
+    expr: "(SELECT MIN(r.name) FROM case_rooms cr JOIN rooms r ON r.id = cr.room_id WHERE cr.case_id = c.id)",
+    nullable: true,
+  },
   awareAt: { expr: "c.aware_at", nullable: false },
   channel: { expr: "c.channel", nullable: false },
   // FIELD() gives 0 for NULL: no readings sorts below dry.
@@ -82,11 +85,18 @@ export class QueueService {
     private readonly clock: Clock,
   ) {}
 
-  async list(actor: Actor, query: QueueQuery, now = this.clock.now()): Promise<{ rows: QueueRow[]; rooms: Map<number, { id: number; name: string }[]>; total: number }> {
+  async list(
+    actor: Actor,
+    query: QueueQuery,
+    now = this.clock.now(),
+  ): Promise<{ rows: QueueRow[]; rooms: Map<number, { id: number; name: string }[]>; total: number }> {
     // Figures marked stale by a change (or by the clock) are worked out before anyone reads them.
     await this.refreshStale(actor.organisationId);
 
-    const base = this.dataSource.getRepository(Case).createQueryBuilder("c").where("c.organisation_id = :org", { org: actor.organisationId });
+    const base = this.dataSource
+      .getRepository(Case)
+      .createQueryBuilder("c")
+      .where("c.organisation_id = :org", { org: actor.organisationId });
     const needsProperty = this.applyFilters(base, actor, query, now);
 
     const counter = base.clone().select("COUNT(*)", "n");
@@ -149,7 +159,11 @@ export class QueueService {
    */
   private refreshStale(organisationId: number): Promise<void> {
     const current = this.refreshes.get(organisationId);
-    if (current) return (current.next ??= current.running.then(() => this.startRefresh(organisationId), () => this.startRefresh(organisationId)));
+    if (current)
+      return (current.next ??= current.running.then(
+        () => this.startRefresh(organisationId),
+        () => this.startRefresh(organisationId),
+      ));
     return this.startRefresh(organisationId);
   }
 
@@ -198,7 +212,8 @@ export class QueueService {
     if (query.vulnerable !== undefined) qb.andWhere("c.vulnerable_household = :vulnerable", { vulnerable: query.vulnerable });
     if (query.overdue === true) qb.andWhere("c.next_due_at < :now", { now });
     if (query.overdue === false) qb.andWhere("(c.next_due_at IS NULL OR c.next_due_at >= :now)", { now });
-    if (query.dueWithin !== undefined) qb.andWhere("c.next_due_at <= :dueBy", { dueBy: new Date(now.getTime() + query.dueWithin * 86_400_000) });
+    if (query.dueWithin !== undefined)
+      qb.andWhere("c.next_due_at <= :dueBy", { dueBy: new Date(now.getTime() + query.dueWithin * 86_400_000) });
     if (query.assignee === "me") qb.andWhere("c.assignee_user_id = :me", { me: actor.id });
     else if (query.assignee === "unassigned") qb.andWhere("c.assignee_user_id IS NULL");
     else if (query.assignee) qb.andWhere("c.assignee_user_id = :assignee", { assignee: Number(query.assignee) });
@@ -227,7 +242,9 @@ export class QueueService {
     if (query.sort === "priority") {
       // The default order, served by idx_cases_queue: priority, then the nearest deadline.
       const dir = query.order === "asc" ? "ASC" : "DESC";
-      qb.orderBy("c.priority", dir).addOrderBy("c.next_due_at", dir === "DESC" ? "ASC" : "DESC").addOrderBy("c.id", "ASC");
+      qb.orderBy("c.priority", dir)
+        .addOrderBy("c.next_due_at", dir === "DESC" ? "ASC" : "DESC")
+        .addOrderBy("c.id", "ASC");
       return;
     }
     const { expr, nullable } = SORTS[query.sort];
@@ -247,5 +264,4 @@ export class QueueService {
     for (const r of rows) out.set(r.caseId, [...(out.get(r.caseId) ?? []), { id: r.id, name: r.name }]);
     return out;
   }
-
 }

@@ -1,7 +1,27 @@
-import { Column, CreateDateColumn, Entity, Index, JoinColumn, JoinTable, ManyToMany, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from "typeorm";
+import {
+  Column,
+  CreateDateColumn,
+  Entity,
+  Index,
+  JoinColumn,
+  JoinTable,
+  ManyToMany,
+  ManyToOne,
+  PrimaryGeneratedColumn,
+  UpdateDateColumn,
+} from "typeorm";
 import type { DeadlineStage, HazardClass } from "../../../src/lib/domain/deadlines.js";
 import type { SurfaceState } from "../../../src/lib/domain/surface.js";
-import type { Area, CaseStatus, Channel, Duration, EquipmentAnswer, Location, Observation, Vulnerability } from "../../../src/lib/schemas/case-report.js";
+import type {
+  Area,
+  CaseStatus,
+  Channel,
+  Duration,
+  EquipmentAnswer,
+  Location,
+  Observation,
+  Vulnerability,
+} from "../../../src/lib/schemas/case-report.js";
 import { Property } from "../properties/property.entity.js";
 import { Room } from "../properties/room.entity.js";
 
@@ -128,7 +148,14 @@ export class Case {
   riskState: SurfaceState | null;
 
   /** The VTT mould index at the latest reading (the highest over the case's rooms), 0–6; null while there are no readings. */
-  @Column({ name: "mould_index", type: "decimal", precision: 4, scale: 2, nullable: true, transformer: { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) } })
+  @Column({
+    name: "mould_index",
+    type: "decimal",
+    precision: 4,
+    scale: 2,
+    nullable: true,
+    transformer: { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) },
+  })
   mouldIndex: number | null;
 
   /** From the latest HHSRS assessment; null until assessed. */
@@ -160,6 +187,12 @@ export class Case {
   @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })
   createdAt: Date;
 
-  @UpdateDateColumn({ name: "updated_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)", onUpdate: "CURRENT_TIMESTAMP(3)" })
+  @UpdateDateColumn({
+    name: "updated_at",
+    type: "datetime",
+    precision: 3,
+    default: () => "CURRENT_TIMESTAMP(3)",
+    onUpdate: "CURRENT_TIMESTAMP(3)",
+  })
   updatedAt: Date;
 }

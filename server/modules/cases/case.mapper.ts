@@ -22,7 +22,14 @@ export const toCaseDto = (c: Case): z.input<typeof caseResponse> => ({
   vulnerability: c.vulnerability,
   equipment: c.equipment,
   property: c.property
-    ? { id: c.property.id, addressLine1: c.property.addressLine1, addressLine2: c.property.addressLine2, town: c.property.town, postcode: c.property.postcode, estate: c.property.estate }
+    ? {
+        id: c.property.id,
+        addressLine1: c.property.addressLine1,
+        addressLine2: c.property.addressLine2,
+        town: c.property.town,
+        postcode: c.property.postcode,
+        estate: c.property.estate,
+      }
     : { id: c.propertyId },
   rooms: (c.rooms ?? []).map((r) => ({ id: r.id, name: r.name, kind: r.kind })),
   homeRooms: (c.property?.rooms ?? []).map((r) => ({ id: r.id, name: r.name, kind: r.kind })),
@@ -31,7 +38,15 @@ export type CaseDto = z.input<typeof caseResponse>;
 
 export type CaseEventEmail = z.input<typeof caseEventEmail>;
 
-export const toCaseEventDto = ({ event, actor, email }: { event: CaseEvent; actor: { name: string; role: string } | null; email: CaseEventEmail | null }): z.input<typeof caseEventResponse> => ({
+export const toCaseEventDto = ({
+  event,
+  actor,
+  email,
+}: {
+  event: CaseEvent;
+  actor: { name: string; role: string } | null;
+  email: CaseEventEmail | null;
+}): z.input<typeof caseEventResponse> => ({
   id: Number(event.id),
   type: event.type,
   at: event.createdAt.toISOString(),

@@ -1,7 +1,13 @@
 import { In, LessThanOrEqual, type DataSource, type EntityManager } from "typeorm";
 import type { CaseReport, StaffCaseReport } from "../../../src/lib/schemas/case-report.js";
 import type { Config } from "../../config/env.js";
-import { CASE_TRANSITIONS, OPEN_CASE_STATUSES, canTransition, transitionNeedsReason, type CaseStatus } from "../../../src/lib/domain/case-workflow.js";
+import {
+  CASE_TRANSITIONS,
+  OPEN_CASE_STATUSES,
+  canTransition,
+  transitionNeedsReason,
+  type CaseStatus,
+} from "../../../src/lib/domain/case-workflow.js";
 import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
 import type { MailTemplateName } from "../mail/mail-templates.js";
@@ -27,7 +33,8 @@ export type { Case } from "./case.entity.js";
 const STALE_MARK = "CURRENT_TIMESTAMP(3) - INTERVAL 100 YEAR";
 
 export const formatReference = (awareAt: Date, id: number) => `DW-${awareAt.getUTCFullYear()}-${String(id).padStart(5, "0")}`;
-export const addressOf = (p: Pick<Property, "addressLine1" | "town" | "postcode">) => `${p.addressLine1}, ${p.town} ${p.postcode}`;
+export const addressOf = (p: Pick<Property, "addressLine1" | "town" | "postcode">) =>
+  `${p.addressLine1}, ${p.town} ${p.postcode}`;
 
 const VULNERABILITY_WORDS: Record<string, string> = {
   "children-under-15": "children under 15",
@@ -38,10 +45,22 @@ const VULNERABILITY_WORDS: Record<string, string> = {
 };
 
 /** "The household includes children under 15, someone over 65." for officers' and operatives' eyes. */
-export const householdIncludes = (vulnerability: readonly string[]) => `The household includes ${vulnerability.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`;
+export const householdIncludes = (vulnerability: readonly string[]) =>
+  `The household includes ${vulnerability.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`;
 
 /** The triage figures stored on a case for the queue, worked out by TriageService. */
-export type TriageFigures = Pick<Case, "riskState" | "mouldIndex" | "hhsrsBand" | "hhsrsCategory" | "recurrence" | "priority" | "nextStage" | "nextDueAt" | "triageDueAt">;
+export type TriageFigures = Pick<
+  Case,
+  | "riskState"
+  | "mouldIndex"
+  | "hhsrsBand"
+  | "hhsrsCategory"
+  | "recurrence"
+  | "priority"
+  | "nextStage"
+  | "nextDueAt"
+  | "triageDueAt"
+>;
 
 /**
  * Case lifecycle start, access and history. The cases table's one owner: its rows, its status and
@@ -67,7 +86,14 @@ export class CaseService {
     const before = "before" in e ? (e.before as Record<string, unknown> | null) : null;
     await m.getRepository(CaseEvent).save(
       // created_at from the clock, not the column default: rules compare it with times the clock set (e.g. works done).
-      m.getRepository(CaseEvent).create({ caseId: e.caseId, actorUserId: e.actorId, type: e.type, before, after: e.after as Record<string, unknown>, createdAt: this.clock.now() }),
+      m.getRepository(CaseEvent).create({
+        caseId: e.caseId,
+        actorUserId: e.actorId,
+        type: e.type,
+        before,
+        after: e.after as Record<string, unknown>,
+        createdAt: this.clock.now(),
+      }),
     );
     await this.markStale(m, { caseIds: [e.caseId] });
   }
@@ -77,8 +103,14 @@ export class CaseService {
    * TriageService works them out again: a case changed, another case at its home (recurrence), or
    * every open case of a landlord whose deadline policy changed.
    */
-  async markStale(m: EntityManager, where: { caseIds: number[] } | { propertyId: number } | { organisationId: number }): Promise<void> {
-    const qb = m.createQueryBuilder().update(Case).set({ triageDueAt: () => STALE_MARK });
+  async markStale(
+    m: EntityManager,
+    where: { caseIds: number[] } | { propertyId: number } | { organisationId: number },
+  ): Promise<void> {
+    const qb = m
+      .createQueryBuilder()
+      .update(Case)
+      .set({ triageDueAt: () => STALE_MARK });
     if ("caseIds" in where) qb.where("id IN (:...ids)", { ids: where.caseIds.length ? where.caseIds : [0] });
     else if ("propertyId" in where) qb.where("property_id = :p", { p: where.propertyId });
     else qb.where("organisation_id = :o AND status IN (:...open)", { o: where.organisationId, open: OPEN_CASE_STATUSES });
@@ -95,22 +127,40 @@ export class CaseService {
    * works done) a refused move is skipped instead. A move to where the case already is changes
    * nothing. Returns the status the case is in afterwards.
    */
-  async transition(m: EntityManager, caseId: number, to: CaseStatus, reason: string | null, actor: Pick<Actor, "id"> | null, options: { ifAllowed?: boolean } = {}): Promise<{ from: CaseStatus; status: CaseStatus; moved: boolean }> {
+  async transition(
+    m: EntityManager,
+    caseId: number,
+    to: CaseStatus,
+    reason: string | null,
+    actor: Pick<Actor, "id"> | null,
+    options: { ifAllowed?: boolean } = {},
+  ): Promise<{ from: CaseStatus; status: CaseStatus; moved: boolean }> {
     const c = await this.lockRow(m, caseId);
     const from = c.status;
     if (from === to) return { from, status: from, moved: false };
     if (!canTransition(from, to)) {
       if (options.ifAllowed) return { from, status: from, moved: false };
-      throw new ConflictError(`A case that is ${from} cannot move to ${to}. From ${from} it can move to: ${CASE_TRANSITIONS[from].join(", ")}.`, {
-        from,
-        to,
-        allowed: CASE_TRANSITIONS[from],
-      });
+      throw new ConflictError(
+        `A case that is ${from} cannot move to ${to}. From ${from} it can move to: ${CASE_TRANSITIONS[from].join(", ")}.`,
+        {
+          from,
+          to,
+          allowed: CASE_TRANSITIONS[from],
+        },
+      );
     }
     if (transitionNeedsReason(from, to) && !reason) {
-      throw new ValidationError("reason: say why the case is being cancelled or reopened.", [{ field: "reason", message: "Say why the case is being cancelled or reopened." }]);
+      throw new ValidationError("reason: say why the case is being cancelled or reopened.", [
+        { field: "reason", message: "Say why the case is being cancelled or reopened." },
+      ]);
     }
-    await this.recordEvent(m, { caseId, actorId: actor?.id ?? null, type: "status-changed", before: { status: from }, after: { status: to, reason } });
+    await this.recordEvent(m, {
+      caseId,
+      actorId: actor?.id ?? null,
+      type: "status-changed",
+      before: { status: from },
+      after: { status: to, reason },
+    });
     await m.getRepository(Case).update(caseId, { status: to });
     return { from, status: to, moved: true };
   }
@@ -146,7 +196,15 @@ export class CaseService {
    */
   async openDueBy(by: Date): Promise<Case[]> {
     return this.dataSource.getRepository(Case).find({
-      select: { id: true, organisationId: true, reference: true, assigneeUserId: true, nextStage: true, nextDueAt: true, property: { id: true, addressLine1: true, town: true, postcode: true } },
+      select: {
+        id: true,
+        organisationId: true,
+        reference: true,
+        assigneeUserId: true,
+        nextStage: true,
+        nextDueAt: true,
+        property: { id: true, addressLine1: true, town: true, postcode: true },
+      },
       where: { status: In([...OPEN_CASE_STATUSES]), nextDueAt: LessThanOrEqual(by) },
       relations: { property: true },
       order: { nextDueAt: "ASC", id: "ASC" },
@@ -161,12 +219,16 @@ export class CaseService {
   /** Cases by id with their homes and the homes' rooms, without an access check (callers have checked the orders they came from). */
   async findByIds(ids: readonly number[]): Promise<Case[]> {
     if (!ids.length) return [];
-    return this.dataSource.getRepository(Case).find({ where: { id: In([...new Set(ids)]) }, relations: { property: { rooms: true } } });
+    return this.dataSource
+      .getRepository(Case)
+      .find({ where: { id: In([...new Set(ids)]) }, relations: { property: { rooms: true } } });
   }
 
   /** Other cases of the same landlord at the same home, newest first (at most 49). */
   async relatedTo(c: Case): Promise<Case[]> {
-    const all = await this.dataSource.getRepository(Case).find({ where: { propertyId: c.propertyId, organisationId: c.organisationId }, order: { awareAt: "DESC" }, take: 50 });
+    const all = await this.dataSource
+      .getRepository(Case)
+      .find({ where: { propertyId: c.propertyId, organisationId: c.organisationId }, order: { awareAt: "DESC" }, take: 50 });
     return all.filter((o) => o.id !== c.id);
   }
 
@@ -186,7 +248,11 @@ export class CaseService {
 
   /** Ids of cases whose triage figures are stale (of one landlord, or all), the longest-stale first. */
   async staleIds(organisationId: number | undefined, limit: number): Promise<number[]> {
-    const qb = this.dataSource.getRepository(Case).createQueryBuilder("c").select("c.id", "id").where("c.triage_due_at <= :now", { now: this.clock.now() });
+    const qb = this.dataSource
+      .getRepository(Case)
+      .createQueryBuilder("c")
+      .select("c.id", "id")
+      .where("c.triage_due_at <= :now", { now: this.clock.now() });
     if (organisationId !== undefined) qb.andWhere("c.organisation_id = :org", { org: organisationId });
     const rows: { id: number }[] = await qb.orderBy("c.triage_due_at", "ASC").limit(limit).getRawMany();
     return rows.map((r) => r.id);
@@ -199,9 +265,16 @@ export class CaseService {
    * works the figures out again. Returns whether they were written. updated_at is left alone: it
    * stands for real changes to the case, not for its derived figures.
    */
-  async storeTriageFigures(caseId: number, seen: { triageDueAt: Date | null; updatedAt: Date }, figures: TriageFigures): Promise<boolean> {
+  async storeTriageFigures(
+    caseId: number,
+    seen: { triageDueAt: Date | null; updatedAt: Date },
+    figures: TriageFigures,
+  ): Promise<boolean> {
     return this.dataSource.transaction(async (m) => {
-      const [row] = (await m.query("SELECT triage_due_at, updated_at FROM cases WHERE id = ? FOR UPDATE", [caseId])) as { triage_due_at: Date | null; updated_at: Date }[];
+      const [row] = (await m.query("SELECT triage_due_at, updated_at FROM cases WHERE id = ? FOR UPDATE", [caseId])) as {
+        triage_due_at: Date | null;
+        updated_at: Date;
+      }[];
       if (!row) return false;
       const time = (d: Date | null) => (d === null ? null : new Date(d).getTime());
       if (time(row.triage_due_at) !== time(seen.triageDueAt) || time(row.updated_at) !== seen.updatedAt.getTime()) return false;
@@ -221,12 +294,16 @@ export class CaseService {
       property = await this.properties.getForStaff(actor, staff.propertyId);
       tenantUserId = staff.tenantUserId ?? (await this.tenancies.currentTenantOf(property.id));
       if (staff.tenantUserId !== undefined && !(await this.livesAt(staff.tenantUserId, property.id))) {
-        throw new ValidationError("tenantUserId: that tenant does not live at this home.", [{ field: "tenantUserId", message: "That tenant does not live at this home." }]);
+        throw new ValidationError("tenantUserId: that tenant does not live at this home.", [
+          { field: "tenantUserId", message: "That tenant does not live at this home." },
+        ]);
       }
       channel = staff.channel;
       awareAt = new Date(staff.awareAt);
       if (awareAt.getTime() > this.clock.now().getTime() + 60_000) {
-        throw new ValidationError("awareAt: the date the landlord became aware cannot be in the future.", [{ field: "awareAt", message: "Cannot be in the future." }]);
+        throw new ValidationError("awareAt: the date the landlord became aware cannot be in the future.", [
+          { field: "awareAt", message: "Cannot be in the future." },
+        ]);
       }
     } else {
       const home = await this.tenancies.homeOf(actor);
@@ -241,7 +318,9 @@ export class CaseService {
     const propertyRooms = new Set((property.rooms ?? []).map((r) => r.id));
     const strange = roomIds.filter((id) => !propertyRooms.has(id));
     if (strange.length) {
-      throw new ValidationError("roomIds: choose rooms of this home.", [{ field: "roomIds", message: `Room ${strange.join(", ")} is not part of this home.` }]);
+      throw new ValidationError("roomIds: choose rooms of this home.", [
+        { field: "roomIds", message: `Room ${strange.join(", ")} is not part of this home.` },
+      ]);
     }
 
     const { saved, deliveries } = await this.dataSource.transaction(async (m) => {
@@ -302,7 +381,13 @@ export class CaseService {
           await this.queueMail(m, saved, {
             to: tenant.email,
             template: "caseAcknowledgement",
-            data: { name: tenant.name, reference: saved.reference, address: addressOf(property), link: `${this.config.appUrl}/cases/${saved.id}`, organisationName },
+            data: {
+              name: tenant.name,
+              reference: saved.reference,
+              address: addressOf(property),
+              link: `${this.config.appUrl}/cases/${saved.id}`,
+              organisationName,
+            },
           }),
         );
       }
@@ -350,13 +435,25 @@ export class CaseService {
 
   /** Queues an e-mail about the case in the caller's transaction and records it on the timeline; returns the sender to run after commit. */
   async queueMail<T extends MailTemplateName>(m: EntityManager, c: Case, mail: Pick<SendMail<T>, "to" | "template" | "data">) {
-    const { deliver, outboxId } = await this.mail.enqueueWithId(m, { ...mail, organisationId: c.organisationId, related: { type: "case", id: c.id } });
-    await this.recordEvent(m, { caseId: c.id, actorId: null, type: "email-queued", after: { outboxId, to: mail.to, template: mail.template } });
+    const { deliver, outboxId } = await this.mail.enqueueWithId(m, {
+      ...mail,
+      organisationId: c.organisationId,
+      related: { type: "case", id: c.id },
+    });
+    await this.recordEvent(m, {
+      caseId: c.id,
+      actorId: null,
+      type: "email-queued",
+      after: { outboxId, to: mail.to, template: mail.template },
+    });
     return deliver;
   }
 
   private async livesAt(tenantUserId: number, propertyId: number): Promise<boolean> {
-    return (await this.tenancies.currentTenantOf(propertyId)) === tenantUserId || (await this.tenancies.hasLivedAt(tenantUserId, propertyId));
+    return (
+      (await this.tenancies.currentTenantOf(propertyId)) === tenantUserId ||
+      (await this.tenancies.hasLivedAt(tenantUserId, propertyId))
+    );
   }
 
   /**
@@ -384,11 +481,15 @@ export class CaseService {
     const all = await this.dataSource.getRepository(CaseEvent).find({ where: { caseId: c.id }, order: { id: "ASC" } });
     const staff = isStaff(actor);
     // Internal notes are for staff only, and so are e-mails to anyone but the tenant themselves.
-    const events = staff ? all : all.filter((e) => e.type !== "internal-note" && !(e.type === "email-queued" && e.after?.to !== actor.email));
+    const events = staff
+      ? all
+      : all.filter((e) => e.type !== "internal-note" && !(e.type === "email-queued" && e.after?.to !== actor.email));
     const actorIds = [...new Set(events.map((e) => e.actorUserId).filter((v): v is number => v !== null))];
     const names = new Map([...(await this.users.people(actorIds)).values()].map((u) => [u.id, { name: u.name, role: u.role }]));
     // Staff see each e-mail's delivery as the outbox records it now.
-    const outboxIds = staff ? [...new Set(events.map((e) => e.after?.outboxId).filter((v): v is number => typeof v === "number"))] : [];
+    const outboxIds = staff
+      ? [...new Set(events.map((e) => e.after?.outboxId).filter((v): v is number => typeof v === "number"))]
+      : [];
     const emails = await this.mail.deliveries(outboxIds);
     return events.map((e) => ({
       event: e,
@@ -398,7 +499,10 @@ export class CaseService {
   }
 
   /** The case's latest event of one kind, with its typed payload, or null. */
-  async latestEvent<T extends CaseEventType>(caseId: number, type: T): Promise<(CaseEventOf<T> & { actorUserId: number | null; createdAt: Date }) | null> {
+  async latestEvent<T extends CaseEventType>(
+    caseId: number,
+    type: T,
+  ): Promise<(CaseEventOf<T> & { actorUserId: number | null; createdAt: Date }) | null> {
     const row = await this.dataSource.getRepository(CaseEvent).findOne({ where: { caseId, type }, order: { id: "DESC" } });
     const event = row && asCaseEvent(row, type);
     return row && event ? { ...event, actorUserId: row.actorUserId, createdAt: row.createdAt } : null;
@@ -428,10 +532,18 @@ export class CaseService {
         if (patch.assigneeId !== null) {
           const assignee = await this.users.findStaff(c.organisationId, patch.assigneeId, undefined, m);
           if (!assignee) {
-            throw new ValidationError("assigneeId: choose an active staff member of this landlord.", [{ field: "assigneeId", message: "Choose an active staff member of this landlord." }]);
+            throw new ValidationError("assigneeId: choose an active staff member of this landlord.", [
+              { field: "assigneeId", message: "Choose an active staff member of this landlord." },
+            ]);
           }
         }
-        await this.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "assignee-changed", before: { assigneeId: c.assigneeUserId }, after: { assigneeId: patch.assigneeId } });
+        await this.recordEvent(m, {
+          caseId: c.id,
+          actorId: actor.id,
+          type: "assignee-changed",
+          before: { assigneeId: c.assigneeUserId },
+          after: { assigneeId: patch.assigneeId },
+        });
         changes.assigneeUserId = patch.assigneeId;
       }
       if (patch.hazardClass !== undefined) {

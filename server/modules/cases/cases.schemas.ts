@@ -18,5 +18,8 @@ export const casePatchSchema = z
   .refine((p) => p.status !== undefined || p.assigneeId !== undefined || p.hazardClass !== undefined, {
     message: "Send at least one of status, assigneeId or hazardClass.",
   })
-  .refine((p) => p.hazardClass === undefined || p.reason !== undefined, { path: ["reason"], message: "Say why the hazard is classified this way." });
+  .refine((p) => p.hazardClass === undefined || p.reason !== undefined, {
+    path: ["reason"],
+    message: "Say why the hazard is classified this way.",
+  });
 export type CasePatch = z.infer<typeof casePatchSchema>;

@@ -70,7 +70,10 @@ export function startDigestScheduler(
       if (result.failed === 0) doneFor = date;
       if (result.sent || result.failed) logger.info({ digest: result }, "deadline digests sent");
     } catch (error) {
-      logger.error({ err: error instanceof Error ? error.message : String(error) }, "deadline digests failed; trying again at the next check");
+      logger.error(
+        { err: error instanceof Error ? error.message : String(error) },
+        "deadline digests failed; trying again at the next check",
+      );
     }
   };
 

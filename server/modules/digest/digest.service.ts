@@ -14,7 +14,13 @@
 //   send worked). Two runs at once: the second insert hits the unique key and rolls its e-mail back.
 import { In, type DataSource } from "typeorm";
 import type { DeadlineStage } from "../../../src/lib/domain/deadlines.js";
-import { addWorkingDays, endOfLocalDay, isWorkingDay, localDate, LONDON_TIME_ZONE } from "../../../src/lib/domain/working-days.js";
+import {
+  addWorkingDays,
+  endOfLocalDay,
+  isWorkingDay,
+  localDate,
+  LONDON_TIME_ZONE,
+} from "../../../src/lib/domain/working-days.js";
 import type { Config } from "../../config/env.js";
 import type { Logger } from "../../lib/logger.js";
 import type { Case, CaseService } from "../cases/case.service.js";
@@ -48,9 +54,21 @@ export interface DigestRun {
   failed: number;
 }
 
-const dayParts = new Intl.DateTimeFormat("en-GB", { timeZone: LONDON_TIME_ZONE, weekday: "long", day: "numeric", month: "long", year: "numeric" });
-const timeParts = new Intl.DateTimeFormat("en-GB", { timeZone: LONDON_TIME_ZONE, hour: "2-digit", minute: "2-digit", hourCycle: "h23" });
-const part = (parts: Intl.DateTimeFormatPart[], type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? "";
+const dayParts = new Intl.DateTimeFormat("en-GB", {
+  timeZone: LONDON_TIME_ZONE,
+  weekday: "long",
+  day: "numeric",
+  month: "long",
+  year: "numeric",
+});
+const timeParts = new Intl.DateTimeFormat("en-GB", {
+  timeZone: LONDON_TIME_ZONE,
+  hour: "2-digit",
+  minute: "2-digit",
+  hourCycle: "h23",
+});
+const part = (parts: Intl.DateTimeFormatPart[], type: Intl.DateTimeFormatPartTypes) =>
+  parts.find((p) => p.type === type)?.value ?? "";
 
 /** "Tuesday 3 December 2024": the London day of `instant` (built from parts, whatever the ICU version's punctuation). */
 export function londonDayInWords(instant: Date): string {
@@ -73,7 +91,9 @@ export function dueInWords(due: Date): string {
 
 const isDuplicateKey = (error: unknown): boolean => {
   const e = error as { code?: unknown; errno?: unknown; driverError?: { code?: unknown; errno?: unknown } } | null;
-  return e?.code === "ER_DUP_ENTRY" || e?.errno === 1062 || e?.driverError?.code === "ER_DUP_ENTRY" || e?.driverError?.errno === 1062;
+  return (
+    e?.code === "ER_DUP_ENTRY" || e?.errno === 1062 || e?.driverError?.code === "ER_DUP_ENTRY" || e?.driverError?.errno === 1062
+  );
 };
 
 export class DigestService {
@@ -106,11 +126,17 @@ export class DigestService {
     const officers = await this.users.activeOfficersOf([...byOrganisation.keys()]);
     if (officers.length === 0) return run;
     const done = new Set(
-      (await this.dataSource.getRepository(DeadlineDigest).find({ select: { userId: true }, where: { digestDate: date, userId: In(officers.map((o) => o.id)) } })).map((d) => d.userId),
+      (
+        await this.dataSource
+          .getRepository(DeadlineDigest)
+          .find({ select: { userId: true }, where: { digestDate: date, userId: In(officers.map((o) => o.id)) } })
+      ).map((d) => d.userId),
     );
 
     for (const officer of officers) {
-      const cases = (byOrganisation.get(officer.organisationId) ?? []).filter((c) => c.assigneeUserId === null || c.assigneeUserId === officer.id);
+      const cases = (byOrganisation.get(officer.organisationId) ?? []).filter(
+        (c) => c.assigneeUserId === null || c.assigneeUserId === officer.id,
+      );
       if (cases.length === 0) continue;
       if (done.has(officer.id)) {
         run.alreadySent += 1;
@@ -122,21 +148,30 @@ export class DigestService {
         else run.alreadySent += 1;
       } catch (error) {
         run.failed += 1;
-        this.logger.error({ err: error instanceof Error ? error.message : String(error), userId: officer.id, date }, "deadline digest could not be recorded");
+        this.logger.error(
+          { err: error instanceof Error ? error.message : String(error), userId: officer.id, date },
+          "deadline digest could not be recorded",
+        );
       }
     }
     return run;
   }
 
-  private async sendOne(officer: Person, cases: Case[], at: { now: Date; date: string; windowEnd: Date }): Promise<"sent" | "already-sent"> {
+  private async sendOne(
+    officer: Person,
+    cases: Case[],
+    at: { now: Date; date: string; windowEnd: Date },
+  ): Promise<"sent" | "already-sent"> {
     const nowMs = at.now.getTime();
     const items = cases
       .map((c) => ({ c, overdue: c.nextDueAt!.getTime() < nowMs }))
-      .sort((a, b) => Number(b.overdue) - Number(a.overdue) || a.c.nextDueAt!.getTime() - b.c.nextDueAt!.getTime() || a.c.id - b.c.id)
+      .sort(
+        (a, b) => Number(b.overdue) - Number(a.overdue) || a.c.nextDueAt!.getTime() - b.c.nextDueAt!.getTime() || a.c.id - b.c.id,
+      )
       .map(({ c, overdue }) => ({
         reference: c.reference ?? `Case ${c.id}`,
         address: addressOf(c.property!),
-        stage: c.nextStage ? STAGE_WORDS[c.nextStage] ?? c.nextStage : "Next deadline",
+        stage: c.nextStage ? (STAGE_WORDS[c.nextStage] ?? c.nextStage) : "Next deadline",
         due: dueInWords(c.nextDueAt!),
         overdue,
         assignedToYou: c.assigneeUserId === officer.id,

@@ -26,7 +26,13 @@ export interface RoomEvaluation {
   roomId: number;
   roomName: string;
   readingsCount: number;
-  latest: { takenAt: string; airTemperatureC: number; relativeHumidityPct: number; surfaceTemperatureC: number | null; outdoorTemperatureC: number | null } | null;
+  latest: {
+    takenAt: string;
+    airTemperatureC: number;
+    relativeHumidityPct: number;
+    surfaceTemperatureC: number | null;
+    outdoorTemperatureC: number | null;
+  } | null;
   surfaces: SurfaceEvaluation[];
   series: SeriesResult | null;
 }
@@ -53,7 +59,8 @@ export class EvaluationService {
     let mouldIndex: number | null = null;
     for (const room of rooms) {
       for (const s of room.surfaces) {
-        if (state === null || SURFACE_STATES.indexOf(s.result.surface.state) > SURFACE_STATES.indexOf(state)) state = s.result.surface.state;
+        if (state === null || SURFACE_STATES.indexOf(s.result.surface.state) > SURFACE_STATES.indexOf(state))
+          state = s.result.surface.state;
       }
       if (room.series) mouldIndex = Math.max(mouldIndex ?? 0, room.series.mouldIndex.final);
     }
@@ -105,7 +112,12 @@ export class EvaluationService {
     if (c.officersAlertedAt) return;
     const rooms = await this.evaluate(c);
     const reasons = rooms.flatMap((r) =>
-      r.surfaces.filter((s) => RISKY.has(s.result.surface.state)).map((s) => `${r.roomName}, ${s.label.toLowerCase()}: ${s.result.surface.state === "condensing" ? "water condensing" : "at mould-growth risk"} (surface humidity ${Math.round(s.result.surface.relativeHumidityPct)} %).`),
+      r.surfaces
+        .filter((s) => RISKY.has(s.result.surface.state))
+        .map(
+          (s) =>
+            `${r.roomName}, ${s.label.toLowerCase()}: ${s.result.surface.state === "condensing" ? "water condensing" : "at mould-growth risk"} (surface humidity ${Math.round(s.result.surface.relativeHumidityPct)} %).`,
+        ),
     );
     if (reasons.length) await this.cases.alertOfficersNow(c, reasons);
   }

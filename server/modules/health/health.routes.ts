@@ -21,7 +21,11 @@ async function withinTimeout<T>(work: Promise<T>, fallback: T): Promise<T> {
   }
 }
 
-const databaseAnswers = (dataSource: DataSource) => withinTimeout(dataSource.query("SELECT 1").then(() => true), false);
+const databaseAnswers = (dataSource: DataSource) =>
+  withinTimeout(
+    dataSource.query("SELECT 1").then(() => true),
+    false,
+  );
 
 export type Readiness =
   | { ready: true }
@@ -29,11 +33,17 @@ export type Readiness =
 
 /** Whether this process should be sent traffic: not shutting down, the database answers, no migration pending. */
 export async function checkReadiness(dataSource: DataSource, isDraining: () => boolean): Promise<Readiness> {
-  if (isDraining()) return { ready: false, reason: "shutting_down", message: "The server is shutting down and finishing its requests." };
+  if (isDraining())
+    return { ready: false, reason: "shutting_down", message: "The server is shutting down and finishing its requests." };
   const pending = await withinTimeout(pendingMigrations(dataSource), null);
   if (pending === null) return { ready: false, reason: "database_down", message: "The database does not answer." };
   if (pending.length > 0) {
-    return { ready: false, reason: "migrations_pending", message: `${pending.length} migration(s) have not run: run npm run db:migrate.`, pending };
+    return {
+      ready: false,
+      reason: "migrations_pending",
+      message: `${pending.length} migration(s) have not run: run npm run db:migrate.`,
+      pending,
+    };
   }
   return { ready: true };
 }

@@ -1,6 +1,13 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from "typeorm";
 
-export const CAUSES = ["condensation", "penetrating-damp", "rising-damp", "plumbing-leak", "roof-gutter", "other-unknown"] as const;
+export const CAUSES = [
+  "condensation",
+  "penetrating-damp",
+  "rising-damp",
+  "plumbing-leak",
+  "roof-gutter",
+  "other-unknown",
+] as const;
 export type Cause = (typeof CAUSES)[number];
 export const MOULD_EXTENTS = ["none", "under-1-m2", "1-to-5-m2", "over-5-m2"] as const;
 export type MouldExtent = (typeof MOULD_EXTENTS)[number];

@@ -27,12 +27,28 @@ export class InspectionService {
       const c = await this.cases.getForActor(actor, caseId, m);
       const rooms = new Set(this.cases.roomsOf(c).map((r) => r.id));
       const strange = input.roomReadings.filter((r) => !rooms.has(r.roomId)).map((r) => r.roomId);
-      if (strange.length) throw new ValidationError("roomReadings: choose rooms of this home.", [{ field: "roomReadings", message: `Room ${strange.join(", ")} is not part of this home.` }]);
+      if (strange.length)
+        throw new ValidationError("roomReadings: choose rooms of this home.", [
+          { field: "roomReadings", message: `Room ${strange.join(", ")} is not part of this home.` },
+        ]);
       const inspectedAt = new Date(input.inspectedAt);
-      if (inspectedAt.getTime() > this.clock.now().getTime() + 60_000) throw new ValidationError("inspectedAt: an inspection cannot be recorded in the future.", [{ field: "inspectedAt", message: "Cannot be in the future." }]);
+      if (inspectedAt.getTime() > this.clock.now().getTime() + 60_000)
+        throw new ValidationError("inspectedAt: an inspection cannot be recorded in the future.", [
+          { field: "inspectedAt", message: "Cannot be in the future." },
+        ]);
       const repo = m.getRepository(Inspection);
       const saved = await repo.save(repo.create({ ...input, caseId: c.id, inspectedAt, inspectorUserId: actor.id }));
-      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "inspection-recorded", after: { inspectionId: saved.id, inspectedAt: inspectedAt.toISOString(), cause: input.cause, mouldExtent: input.mouldExtent } });
+      await this.cases.recordEvent(m, {
+        caseId: c.id,
+        actorId: actor.id,
+        type: "inspection-recorded",
+        after: {
+          inspectionId: saved.id,
+          inspectedAt: inspectedAt.toISOString(),
+          cause: input.cause,
+          mouldExtent: input.mouldExtent,
+        },
+      });
       await this.cases.transition(m, c.id, "investigated", "Inspection recorded.", actor, { ifAllowed: true });
       return saved;
     });
@@ -50,12 +66,25 @@ export class InspectionService {
    * moment stops both the safety-work and the supplementary-work clocks, as we do not yet tell the
    * two kinds of work apart.
    */
-  async milestones(caseId: number): Promise<{ investigationEndedAt: Date | null; summarySentAt: Date | null; safetyWorkStartedAt: Date | null; supplementaryWorkStartedAt: Date | null }> {
+  async milestones(caseId: number): Promise<{
+    investigationEndedAt: Date | null;
+    summarySentAt: Date | null;
+    safetyWorkStartedAt: Date | null;
+    supplementaryWorkStartedAt: Date | null;
+  }> {
     const first = await this.dataSource.getRepository(Inspection).findOne({ where: { caseId }, order: { inspectedAt: "ASC" } });
     const summary = await this.dataSource.getRepository(WrittenSummary).findOne({ where: { caseId }, order: { sentAt: "ASC" } });
-    const [work] = (await this.dataSource.query("SELECT MIN(completed_at) AS at FROM work_orders WHERE case_id = ? AND status = 'done'", [caseId])) as { at: Date | null }[];
+    const [work] = (await this.dataSource.query(
+      "SELECT MIN(completed_at) AS at FROM work_orders WHERE case_id = ? AND status = 'done'",
+      [caseId],
+    )) as { at: Date | null }[];
     const workBegan = work?.at ? new Date(work.at) : null;
-    return { investigationEndedAt: first?.inspectedAt ?? null, summarySentAt: summary?.sentAt ?? null, safetyWorkStartedAt: workBegan, supplementaryWorkStartedAt: workBegan };
+    return {
+      investigationEndedAt: first?.inspectedAt ?? null,
+      summarySentAt: summary?.sentAt ?? null,
+      safetyWorkStartedAt: workBegan,
+      supplementaryWorkStartedAt: workBegan,
+    };
   }
 
   /** Sends the written summary to the tenant (after an inspection), recorded with its time. */
@@ -75,8 +104,15 @@ export class InspectionService {
         data: { name: tenant.name, reference: c.reference!, body, link: `${this.config.appUrl}/cases/${c.id}` },
       });
       const repo = m.getRepository(WrittenSummary);
-      const saved = await repo.save(repo.create({ caseId: c.id, senderUserId: actor.id, body, outboxId, sentAt: this.clock.now() }));
-      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "summary-sent", after: { summaryId: saved.id, body, outboxId } });
+      const saved = await repo.save(
+        repo.create({ caseId: c.id, senderUserId: actor.id, body, outboxId, sentAt: this.clock.now() }),
+      );
+      await this.cases.recordEvent(m, {
+        caseId: c.id,
+        actorId: actor.id,
+        type: "summary-sent",
+        after: { summaryId: saved.id, body, outboxId },
+      });
       return { saved, deliver };
     });
     await deliver();
@@ -101,7 +137,13 @@ export class InspectionService {
         template: "caseMessage",
         organisationId: c.organisationId,
         related: { type: "case", id: c.id },
-        data: { name: tenant.name, reference: c.reference!, senderName: actor.name, body, link: `${this.config.appUrl}/cases/${c.id}` },
+        data: {
+          name: tenant.name,
+          reference: c.reference!,
+          senderName: actor.name,
+          body,
+          link: `${this.config.appUrl}/cases/${c.id}`,
+        },
       });
       await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "message-to-tenant", after: { body, outboxId } });
       return deliver;

@@ -1,6 +1,11 @@
 import { Router } from "express";
 import { okResponse } from "../../../src/lib/contracts/common.js";
-import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "../../../src/lib/contracts/inspections.js";
+import {
+  deadlinesResponse,
+  inspectionListResponse,
+  inspectionRecordedResponse,
+  summarySentResponse,
+} from "../../../src/lib/contracts/inspections.js";
 import { shaped } from "../../lib/contract.js";
 import { toInspectionDto } from "./inspection.mapper.js";
 import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
@@ -14,7 +19,17 @@ import type { InspectionService } from "./inspection.service.js";
 import { inspectionSchema, messageSchema, summarySchema } from "./inspections.schemas.js";
 
 /** Mounted at /api/cases: inspections, the written summary, messages and the deadline clocks. */
-export function createInspectionsRouter({ cases, inspections, policy, clock }: { cases: CaseService; inspections: InspectionService; policy: PolicyService; clock: Clock }): Router {
+export function createInspectionsRouter({
+  cases,
+  inspections,
+  policy,
+  clock,
+}: {
+  cases: CaseService;
+  inspections: InspectionService;
+  policy: PolicyService;
+  clock: Clock;
+}): Router {
   const router = Router();
   const staff = requireRole("officer", "maintenance", "admin");
   const officers = requireRole("officer", "admin");
@@ -22,7 +37,14 @@ export function createInspectionsRouter({ cases, inspections, policy, clock }: {
   router.post("/:id/inspections", officers, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const saved = await inspections.record(actorOf(req), id, parse(inspectionSchema, req.body));
-    res.status(201).json(shaped(inspectionRecordedResponse, { id: saved.id, inspectedAt: saved.inspectedAt.toISOString(), cause: saved.cause, mouldExtent: saved.mouldExtent }));
+    res.status(201).json(
+      shaped(inspectionRecordedResponse, {
+        id: saved.id,
+        inspectedAt: saved.inspectedAt.toISOString(),
+        cause: saved.cause,
+        mouldExtent: saved.mouldExtent,
+      }),
+    );
   });
 
   router.get("/:id/inspections", staff, async (req, res) => {
@@ -49,8 +71,23 @@ export function createInspectionsRouter({ cases, inspections, policy, clock }: {
     const c = await cases.getForActor(actorOf(req), id);
     const milestones = await inspections.milestones(c.id);
     const { source: _source, ...timeframes } = await policy.forOrganisation(c.organisationId);
-    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now: clock.now(), policy: timeframes });
-    res.json(shaped(deadlinesResponse, { deadlines: deadlines.map((d) => ({ stage: d.stage, dueAt: d.dueAt?.toISOString() ?? null, doneAt: d.doneAt?.toISOString() ?? null, state: d.state })) }));
+    const deadlines = computeDeadlines({
+      hazardClass: c.hazardClass,
+      awareAt: c.awareAt,
+      ...milestones,
+      now: clock.now(),
+      policy: timeframes,
+    });
+    res.json(
+      shaped(deadlinesResponse, {
+        deadlines: deadlines.map((d) => ({
+          stage: d.stage,
+          dueAt: d.dueAt?.toISOString() ?? null,
+          doneAt: d.doneAt?.toISOString() ?? null,
+          state: d.state,
+        })),
+      }),
+    );
   });
 
   return router;

@@ -6,7 +6,11 @@ export const inspectionSchema = z.object({
   inspectedAt: z.iso.datetime({ offset: true, error: "inspectedAt must be an ISO 8601 date-time with a time zone." }),
   cause: z.enum(CAUSES, { error: `cause must be one of ${CAUSES.join(", ")}.` }),
   mouldExtent: z.enum(MOULD_EXTENTS, { error: `mouldExtent must be one of ${MOULD_EXTENTS.join(", ")}.` }),
-  findings: z.string({ error: "Describe what was found." }).trim().min(10, "Describe what was found in a sentence or two.").max(8000),
+  findings: z
+    .string({ error: "Describe what was found." })
+    .trim()
+    .min(10, "Describe what was found in a sentence or two.")
+    .max(8000),
   roomReadings: z
     .array(
       z.object({
@@ -24,7 +28,11 @@ export const inspectionSchema = z.object({
 export type InspectionInput = z.infer<typeof inspectionSchema>;
 
 export const summarySchema = z.object({
-  body: z.string({ error: "Write the summary for the tenant." }).trim().min(20, "Write the summary for the tenant: findings, what will be done and by when.").max(10000),
+  body: z
+    .string({ error: "Write the summary for the tenant." })
+    .trim()
+    .min(20, "Write the summary for the tenant: findings, what will be done and by when.")
+    .max(10000),
 });
 
 export const messageSchema = z.object({

@@ -11,10 +11,18 @@ export interface RenderedMail {
   attachments?: MailAttachment[];
 }
 
-const calendarFile = (ics: string): MailAttachment[] => [{ filename: "appointment.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=REQUEST" }];
+const calendarFile = (ics: string): MailAttachment[] => [
+  { filename: "appointment.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=REQUEST" },
+];
 
 export const mailTemplates = {
-  invitation(d: { name: string; organisationName: string; inviterName: string; link: string; expiresHours: number }): RenderedMail {
+  invitation(d: {
+    name: string;
+    organisationName: string;
+    inviterName: string;
+    link: string;
+    expiresHours: number;
+  }): RenderedMail {
     return {
       subject: `You are invited to Dewline by ${d.organisationName}`,
       text: [
@@ -42,7 +50,13 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
-  caseAcknowledgement(d: { name: string; reference: string; address: string; link: string; organisationName: string }): RenderedMail {
+  caseAcknowledgement(d: {
+    name: string;
+    reference: string;
+    address: string;
+    link: string;
+    organisationName: string;
+  }): RenderedMail {
     return {
       subject: `We have your report ${d.reference}`,
       text: [
@@ -72,7 +86,16 @@ export const mailTemplates = {
   caseMessage(d: { name: string; reference: string; senderName: string; body: string; link: string }): RenderedMail {
     return {
       subject: `A message about your report ${d.reference}`,
-      text: [`Hello ${d.name},`, "", `${d.senderName} wrote about your report ${d.reference}:`, "", d.body, "", "You can reply and follow the case at:", d.link].join("\n"),
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `${d.senderName} wrote about your report ${d.reference}:`,
+        "",
+        d.body,
+        "",
+        "You can reply and follow the case at:",
+        d.link,
+      ].join("\n"),
     };
   },
   writtenSummary(d: { name: string; reference: string; body: string; link: string }): RenderedMail {
@@ -88,7 +111,15 @@ export const mailTemplates = {
     /** The end of the window, in words ("the end of Thursday 5 December 2024"). */
     windowEnd: string;
     /** Overdue first, then by due time. */
-    items: { reference: string; address: string; stage: string; due: string; overdue: boolean; assignedToYou: boolean; link: string }[];
+    items: {
+      reference: string;
+      address: string;
+      stage: string;
+      due: string;
+      overdue: boolean;
+      assignedToYou: boolean;
+      link: string;
+    }[];
     queueLink: string;
   }): RenderedMail {
     const overdue = d.items.filter((i) => i.overdue).length;
@@ -114,7 +145,17 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
-  appointmentProposed(d: { name: string; reference: string; workWords: string; slotWords: string; address: string; link: string; ics: string; forOperative: boolean; accessNotes: string | null }): RenderedMail {
+  appointmentProposed(d: {
+    name: string;
+    reference: string;
+    workWords: string;
+    slotWords: string;
+    address: string;
+    link: string;
+    ics: string;
+    forOperative: boolean;
+    accessNotes: string | null;
+  }): RenderedMail {
     return {
       subject: `${d.forOperative ? "Booked" : "Proposed appointment"}: ${d.workWords}, ${d.slotWords} (${d.reference})`,
       text: [
@@ -131,23 +172,71 @@ export const mailTemplates = {
       attachments: calendarFile(d.ics),
     };
   },
-  appointmentConfirmed(d: { name: string; reference: string; workWords: string; slotWords: string; address: string; link: string; ics: string }): RenderedMail {
+  appointmentConfirmed(d: {
+    name: string;
+    reference: string;
+    workWords: string;
+    slotWords: string;
+    address: string;
+    link: string;
+    ics: string;
+  }): RenderedMail {
     return {
       subject: `Confirmed: ${d.workWords}, ${d.slotWords} (${d.reference})`,
-      text: [`Hello ${d.name},`, "", `The appointment for ${d.workWords} at ${d.address} is confirmed for ${d.slotWords}.`, d.link, "", "The appointment is attached as a calendar file."].join("\n"),
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `The appointment for ${d.workWords} at ${d.address} is confirmed for ${d.slotWords}.`,
+        d.link,
+        "",
+        "The appointment is attached as a calendar file.",
+      ].join("\n"),
       attachments: calendarFile(d.ics),
     };
   },
-  appointmentChangeRequested(d: { name: string; reference: string; workWords: string; slotWords: string; address: string; reason: string; link: string }): RenderedMail {
+  appointmentChangeRequested(d: {
+    name: string;
+    reference: string;
+    workWords: string;
+    slotWords: string;
+    address: string;
+    reason: string;
+    link: string;
+  }): RenderedMail {
     return {
       subject: `Another slot wanted: ${d.workWords} at ${d.address} (${d.reference})`,
-      text: [`Hello ${d.name},`, "", `The tenant at ${d.address} cannot make ${d.slotWords} for ${d.workWords} and asks for another slot:`, `"${d.reason}"`, "", "Please book another slot:", d.link].join("\n"),
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `The tenant at ${d.address} cannot make ${d.slotWords} for ${d.workWords} and asks for another slot:`,
+        `"${d.reason}"`,
+        "",
+        "Please book another slot:",
+        d.link,
+      ].join("\n"),
     };
   },
-  appointmentCancelled(d: { name: string; reference: string; workWords: string; slotWords: string; address: string; reason: string; link: string; ics: string }): RenderedMail {
+  appointmentCancelled(d: {
+    name: string;
+    reference: string;
+    workWords: string;
+    slotWords: string;
+    address: string;
+    reason: string;
+    link: string;
+    ics: string;
+  }): RenderedMail {
     return {
       subject: `Cancelled: ${d.workWords}, ${d.slotWords} (${d.reference})`,
-      text: [`Hello ${d.name},`, "", `The visit for ${d.workWords} at ${d.address} on ${d.slotWords} is cancelled.`, `Reason: ${d.reason}`, d.link, "", "The attached calendar file removes it from your calendar."].join("\n"),
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `The visit for ${d.workWords} at ${d.address} on ${d.slotWords} is cancelled.`,
+        `Reason: ${d.reason}`,
+        d.link,
+        "",
+        "The attached calendar file removes it from your calendar.",
+      ].join("\n"),
       attachments: [{ filename: "appointment.ics", content: d.ics, contentType: "text/calendar; charset=utf-8; method=CANCEL" }],
     };
   },
@@ -167,8 +256,18 @@ export const mailTemplates = {
     return {
       subject: d.forLead ? `Monitoring ended, decide if the fix worked: ${d.reference}` : `Please add readings: ${d.reference}`,
       text: d.forLead
-        ? [`Hello ${d.name},`, "", `The monitoring period for ${d.reference} has ended with ${d.readingsAfter} readings after the works. Compare before and after and record whether the fix worked:`, d.link].join("\n")
-        : [`Hello ${d.name},`, "", `The monitoring period after the work on ${d.reference} has ended. If you have readings from the last few weeks, please add them now so we can see whether the damp has stopped, and tell us if the mould has come back:`, d.link].join("\n"),
+        ? [
+            `Hello ${d.name},`,
+            "",
+            `The monitoring period for ${d.reference} has ended with ${d.readingsAfter} readings after the works. Compare before and after and record whether the fix worked:`,
+            d.link,
+          ].join("\n")
+        : [
+            `Hello ${d.name},`,
+            "",
+            `The monitoring period after the work on ${d.reference} has ended. If you have readings from the last few weeks, please add them now so we can see whether the damp has stopped, and tell us if the mould has come back:`,
+            d.link,
+          ].join("\n"),
     };
   },
 } as const;

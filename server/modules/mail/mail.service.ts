@@ -31,7 +31,10 @@ export class MailService {
   }
 
   /** As enqueue, also telling the outbox row's id (case timelines link to it). */
-  async enqueueWithId<T extends MailTemplateName>(manager: EntityManager, mail: SendMail<T>): Promise<{ outboxId: number; deliver: () => Promise<OutboxEmail> }> {
+  async enqueueWithId<T extends MailTemplateName>(
+    manager: EntityManager,
+    mail: SendMail<T>,
+  ): Promise<{ outboxId: number; deliver: () => Promise<OutboxEmail> }> {
     const render = mailTemplates[mail.template] as (d: typeof mail.data) => RenderedMail;
     const rendered = render(mail.data);
     const row = await manager.getRepository(OutboxEmail).save(
@@ -49,10 +52,17 @@ export class MailService {
   }
 
   /** How each outbox row stands now (case timelines show staff each e-mail's delivery). */
-  async deliveries(ids: readonly number[]): Promise<Map<number, { status: OutboxStatus; to: string; template: string; sentAt: string | null; error: string | null }>> {
+  async deliveries(
+    ids: readonly number[],
+  ): Promise<Map<number, { status: OutboxStatus; to: string; template: string; sentAt: string | null; error: string | null }>> {
     if (!ids.length) return new Map();
     const rows = await this.dataSource.getRepository(OutboxEmail).findBy({ id: In([...new Set(ids)]) });
-    return new Map(rows.map((o) => [o.id, { status: o.status, to: o.toAddress, template: o.template, sentAt: o.sentAt?.toISOString() ?? null, error: o.error }]));
+    return new Map(
+      rows.map((o) => [
+        o.id,
+        { status: o.status, to: o.toAddress, template: o.template, sentAt: o.sentAt?.toISOString() ?? null, error: o.error },
+      ]),
+    );
   }
 
   async send<T extends MailTemplateName>(mail: SendMail<T>): Promise<OutboxEmail> {

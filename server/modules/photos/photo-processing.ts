@@ -72,7 +72,9 @@ export async function processPhoto(source: string, destDir: string): Promise<Pro
       .jpeg({ quality: 76, mozjpeg: true })
       .toBuffer();
   } catch {
-    throw new UnsupportedMediaTypeError("This photo could not be read: it may be damaged or only partly uploaded. Please try again.");
+    throw new UnsupportedMediaTypeError(
+      "This photo could not be read: it may be damaged or only partly uploaded. Please try again.",
+    );
   }
 
   await mkdir(destDir, { recursive: true });

@@ -30,7 +30,10 @@ export class PhotoService {
   async addToCase(actor: Actor, caseId: number, files: UploadedFile[], options: { workOrderId?: number } = {}): Promise<Photo[]> {
     const written: ProcessedPhoto[] = [];
     try {
-      if (files.length === 0) throw new ValidationError("photos: choose at least one photo.", [{ field: "photos", message: "Choose at least one photo." }]);
+      if (files.length === 0)
+        throw new ValidationError("photos: choose at least one photo.", [
+          { field: "photos", message: "Choose at least one photo." },
+        ]);
       const c = await this.cases.getForActor(actor, caseId);
       // Folder names are our ids; file names are random. Nothing the browser sent becomes a path.
       const dir = path.join(this.config.uploadsDir, String(c.organisationId), String(c.id));
@@ -63,7 +66,13 @@ export class PhotoService {
           out.push(saved);
           added.push(saved.id);
         }
-        if (added.length) await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "photos-added", after: { photoIds: added, workOrderId: options.workOrderId ?? null } });
+        if (added.length)
+          await this.cases.recordEvent(m, {
+            caseId: c.id,
+            actorId: actor.id,
+            type: "photos-added",
+            after: { photoIds: added, workOrderId: options.workOrderId ?? null },
+          });
         return out;
       });
       return result;

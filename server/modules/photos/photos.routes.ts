@@ -14,7 +14,10 @@ import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_UPLOAD, type PhotoService } from "./pho
 export function createCasePhotosRouter({ cases, photos }: { cases: CaseService; photos: PhotoService }): Router {
   const router = Router();
   router.use(requireAuth);
-  const photoUpload = multer({ dest: uploadTmpDir, limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 } }).array("photos", MAX_PHOTOS_PER_UPLOAD);
+  const photoUpload = multer({
+    dest: uploadTmpDir,
+    limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 },
+  }).array("photos", MAX_PHOTOS_PER_UPLOAD);
 
   router.get("/:id/photos", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");

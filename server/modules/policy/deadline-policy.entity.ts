@@ -28,6 +28,12 @@ export class DeadlinePolicyRecord {
   @Column({ name: "updated_by_id", type: "int", unsigned: true })
   updatedById: number;
 
-  @UpdateDateColumn({ name: "updated_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)", onUpdate: "CURRENT_TIMESTAMP(3)" })
+  @UpdateDateColumn({
+    name: "updated_at",
+    type: "datetime",
+    precision: 3,
+    default: () => "CURRENT_TIMESTAMP(3)",
+    onUpdate: "CURRENT_TIMESTAMP(3)",
+  })
   updatedAt: Date;
 }

@@ -23,13 +23,30 @@ export class PolicyService {
   async forOrganisation(organisationId: number): Promise<PolicyView> {
     const row = await this.dataSource.getRepository(DeadlinePolicyRecord).findOneBy({ organisationId });
     if (!row) return { ...ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, monitoringDays: DEFAULT_MONITORING_DAYS, source: "default" };
-    const { emergencyMakeSafeHours, investigateWorkingDays, summaryWorkingDays, safetyWorkWorkingDays, supplementaryWorkWeeks, monitoringDays } = row;
-    return { emergencyMakeSafeHours, investigateWorkingDays, summaryWorkingDays, safetyWorkWorkingDays, supplementaryWorkWeeks, monitoringDays, source: "landlord" };
+    const {
+      emergencyMakeSafeHours,
+      investigateWorkingDays,
+      summaryWorkingDays,
+      safetyWorkWorkingDays,
+      supplementaryWorkWeeks,
+      monitoringDays,
+    } = row;
+    return {
+      emergencyMakeSafeHours,
+      investigateWorkingDays,
+      summaryWorkingDays,
+      safetyWorkWorkingDays,
+      supplementaryWorkWeeks,
+      monitoringDays,
+      source: "landlord",
+    };
   }
 
   async update(actor: Actor, policy: DeadlinePolicy & { monitoringDays: number }): Promise<PolicyView> {
     await this.dataSource.transaction(async (m) => {
-      await m.getRepository(DeadlinePolicyRecord).save({ organisationId: actor.organisationId, ...policy, updatedById: actor.id });
+      await m
+        .getRepository(DeadlinePolicyRecord)
+        .save({ organisationId: actor.organisationId, ...policy, updatedById: actor.id });
       // Every open case's deadlines follow the policy.
       await this.cases.markStale(m, { organisationId: actor.organisationId });
     });

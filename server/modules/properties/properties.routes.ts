@@ -14,7 +14,9 @@ export function createPropertiesRouter({ properties }: { properties: PropertySer
   router.get("/", async (req, res) => {
     const query = parse(propertyListQuerySchema, req.query, "query");
     const { items, total } = await properties.list(actorOf(req), query);
-    res.json(shaped(propertyPageResponse, { items: items.map(toPropertySummaryDto), total, page: query.page, pageSize: query.pageSize }));
+    res.json(
+      shaped(propertyPageResponse, { items: items.map(toPropertySummaryDto), total, page: query.page, pageSize: query.pageSize }),
+    );
   });
 
   router.get("/estates", async (req, res) => {

@@ -4,7 +4,12 @@ export const propertyListQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),
   estate: z.string().trim().max(100).optional(),
   page: z.coerce.number({ error: "page must be a number." }).int().min(1, "page starts at 1.").default(1),
-  pageSize: z.coerce.number({ error: "pageSize must be a number." }).int().min(1).max(200, "pageSize can be at most 200.").default(25),
+  pageSize: z.coerce
+    .number({ error: "pageSize must be a number." })
+    .int()
+    .min(1)
+    .max(200, "pageSize can be at most 200.")
+    .default(25),
 });
 export type PropertyListQuery = z.infer<typeof propertyListQuerySchema>;
 

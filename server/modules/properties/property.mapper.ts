@@ -22,7 +22,10 @@ export const toPropertySummaryDto = (p: Property): z.input<typeof propertySummar
 
 export const toPropertyDto = (p: Property): z.input<typeof propertyResponse> => ({
   ...toPropertySummaryDto(p),
-  rooms: (p.rooms ?? []).slice().sort((a, b) => a.id - b.id).map(toRoomDto),
+  rooms: (p.rooms ?? [])
+    .slice()
+    .sort((a, b) => a.id - b.id)
+    .map(toRoomDto),
 });
 
 export type PropertySummaryDto = z.input<typeof propertySummaryResponse>;

@@ -16,15 +16,28 @@ const error = {
     },
   },
 };
-const errorResponse = (description: string) => ({ description, content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } });
+const errorResponse = (description: string) => ({
+  description,
+  content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } },
+});
 
 const pointResult = {
   type: "object",
-  required: ["dewPointC", "vapourPressurePa", "saturationVapourPressurePa", "absoluteHumidityGPerM3", "humidityRatio", "surface", "reasons"],
+  required: [
+    "dewPointC",
+    "vapourPressurePa",
+    "saturationVapourPressurePa",
+    "absoluteHumidityGPerM3",
+    "humidityRatio",
+    "surface",
+    "reasons",
+  ],
   properties: {
     dewPointC: num("Dew point of the room air, °C."),
     vapourPressurePa: num("Water vapour partial pressure of the room air, Pa."),
-    saturationVapourPressurePa: num("Saturation vapour pressure at the air temperature, Pa (Hyland–Wexler, ASHRAE Handbook—Fundamentals 2017)."),
+    saturationVapourPressurePa: num(
+      "Saturation vapour pressure at the air temperature, Pa (Hyland–Wexler, ASHRAE Handbook—Fundamentals 2017).",
+    ),
     absoluteHumidityGPerM3: num("Water vapour per cubic metre of room air, g/m³."),
     humidityRatio: num("kg of water vapour per kg of dry air."),
     surface: {
@@ -32,7 +45,11 @@ const pointResult = {
       required: ["temperatureC", "source", "relativeHumidityPct", "state"],
       properties: {
         temperatureC: num("Surface temperature used, °C."),
-        source: { type: "string", enum: ["measured", "estimated", "air"], description: "measured; estimated from the element and outdoor temperature; or taken at air temperature." },
+        source: {
+          type: "string",
+          enum: ["measured", "estimated", "air"],
+          description: "measured; estimated from the element and outdoor temperature; or taken at air temperature.",
+        },
         relativeHumidityPct: num("Relative humidity at the surface, %; above 100 the surface is below the dew point."),
         temperatureFactor: num("fRsi = (θsi − θe)/(θi − θe): measured, or the element's typical value when estimated."),
         state: { type: "string", enum: SURFACE_STATES },
@@ -44,35 +61,62 @@ const pointResult = {
 
 const seriesResult = {
   type: "object",
-  required: ["count", "from", "to", "hoursSurfaceRhAtLeast80", "hoursCondensing", "worstRolling30DayMeanSurfaceRhPct", "mouldIndex", "gaps", "diagnosis"],
+  required: [
+    "count",
+    "from",
+    "to",
+    "hoursSurfaceRhAtLeast80",
+    "hoursCondensing",
+    "worstRolling30DayMeanSurfaceRhPct",
+    "mouldIndex",
+    "gaps",
+    "diagnosis",
+  ],
   properties: {
     count: { type: "integer" },
     from: { type: ["string", "null"], format: "date-time" },
     to: { type: ["string", "null"], format: "date-time" },
     hoursSurfaceRhAtLeast80: num("Hours with surface RH ≥ 80 % (ISO 13788 mould criterion)."),
     hoursCondensing: num("Hours with surface RH ≥ 100 %."),
-    worstRolling30DayMeanSurfaceRhPct: { type: ["number", "null"], description: "Worst 30-day rolling mean surface RH, % (ISO 13788 monthly criterion)." },
+    worstRolling30DayMeanSurfaceRhPct: {
+      type: ["number", "null"],
+      description: "Worst 30-day rolling mean surface RH, % (ISO 13788 monthly criterion).",
+    },
     mouldIndex: {
       type: "object",
       required: ["final", "max", "material"],
-      properties: { final: num("VTT mould index at the last reading (0–6)."), max: num("Highest VTT mould index reached."), material: { type: "string", enum: MATERIAL_SENSITIVITIES } },
+      properties: {
+        final: num("VTT mould index at the last reading (0–6)."),
+        max: num("Highest VTT mould index reached."),
+        material: { type: "string", enum: MATERIAL_SENSITIVITIES },
+      },
     },
     gaps: {
       type: "array",
       description: "Intervals longer than 3 hours between readings, not integrated across.",
-      items: { type: "object", required: ["from", "to"], properties: { from: { type: "string", format: "date-time" }, to: { type: "string", format: "date-time" } } },
+      items: {
+        type: "object",
+        required: ["from", "to"],
+        properties: { from: { type: "string", format: "date-time" }, to: { type: "string", format: "date-time" } },
+      },
     },
     moistureExcess: {
       type: "object",
       description: "Present when readings carry an outdoor temperature.",
       required: ["meanGPerM3", "loadClass"],
-      properties: { meanGPerM3: num("Mean internal moisture excess, g/m³."), loadClass: { type: "integer", minimum: 1, maximum: 5, description: "ISO 13788 internal moisture load class." } },
+      properties: {
+        meanGPerM3: num("Mean internal moisture excess, g/m³."),
+        loadClass: { type: "integer", minimum: 1, maximum: 5, description: "ISO 13788 internal moisture load class." },
+      },
     },
     diagnosis: {
       type: "object",
       required: ["kind", "reasons"],
       properties: {
-        kind: { type: "string", enum: ["ventilation-or-moisture-load", "cold-surface", "likely-not-condensation", "no-risk-found", "insufficient-data"] },
+        kind: {
+          type: "string",
+          enum: ["ventilation-or-moisture-load", "cold-surface", "likely-not-condensation", "no-risk-found", "insufficient-data"],
+        },
         reasons: { type: "array", items: { type: "string" } },
       },
     },

@@ -23,7 +23,9 @@ export function createPsychrometricsRouter(): Router {
   router.post("/series", (req, res) => {
     const readings = (req.body as { readings?: unknown } | undefined)?.readings;
     if (Array.isArray(readings) && readings.length > MAX_SERIES_READINGS) {
-      throw new PayloadTooLargeError(`readings can hold at most ${MAX_SERIES_READINGS.toLocaleString("en-GB")} readings per request; this one has ${readings.length.toLocaleString("en-GB")}.`);
+      throw new PayloadTooLargeError(
+        `readings can hold at most ${MAX_SERIES_READINGS.toLocaleString("en-GB")} readings per request; this one has ${readings.length.toLocaleString("en-GB")}.`,
+      );
     }
     const input = parse(evaluateSeriesSchema, req.body);
     res.json(evaluateSeries({ ...input, material: input.material as MaterialSensitivity | undefined }));

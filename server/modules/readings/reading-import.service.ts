@@ -23,7 +23,14 @@ import { DATE_FORMATS, detectDateFormat } from "./csv/dates.js";
 import type { Delimiter } from "./csv/delimiter.js";
 import { Utf8StreamCheck, checkHead, notUtf8Message } from "./csv/encoding.js";
 import { csvOptions, detectLayout, type Layout } from "./csv/layout.js";
-import { COLUMN_ROLES, proposeMapping, temperatureUnitOf, type Mapping, type MappingOverride, type MappingProposal } from "./csv/mapping.js";
+import {
+  COLUMN_ROLES,
+  proposeMapping,
+  temperatureUnitOf,
+  type Mapping,
+  type MappingOverride,
+  type MappingProposal,
+} from "./csv/mapping.js";
 import { RejectedReport } from "./csv/report.js";
 import { createRowConverter, emptyRow, isBlankRecord, type ConvertedRow } from "./csv/rows.js";
 import { isTimeZone } from "../../../src/lib/domain/time-zone.js";
@@ -85,7 +92,10 @@ interface Inspection {
   problems: string[];
 }
 
-const columnIndex = z.number({ error: "must be a column number (0 is the first column)." }).int("must be a whole number.").min(0, "must be 0 or more.");
+const columnIndex = z
+  .number({ error: "must be a column number (0 is the first column)." })
+  .int("must be a whole number.")
+  .min(0, "must be 0 or more.");
 const overrideSchema = z.object({
   mapping: z
     .object({
@@ -208,12 +218,23 @@ export class ReadingImportService {
     return this.dataSource.transaction(async (m) => {
       const repo = m.getRepository(ReadingImport);
       const record = await repo.save(
-        repo.create({ caseId: input.caseId, roomId: input.roomId, uploadedById: input.actorId, fileName, imported: 0, duplicates: 0, rejected: 0, rejectedReport: null }),
+        repo.create({
+          caseId: input.caseId,
+          roomId: input.roomId,
+          uploadedById: input.actorId,
+          fileName,
+          imported: 0,
+          duplicates: 0,
+          rejected: 0,
+          rejectedReport: null,
+        }),
       );
       const report = new RejectedReport();
       const counts = await this.streamRows(m, input, record.id, layout, mapping, convert, report);
       if (counts.dataRows === 0) {
-        throw new UnprocessableError("The file has no rows of readings under its header. Check you chose the file the logger exported.");
+        throw new UnprocessableError(
+          "The file has no rows of readings under its header. Check you chose the file the logger exported.",
+        );
       }
       if (counts.imported + counts.duplicates === 0) {
         throw new UnprocessableError(
@@ -221,14 +242,31 @@ export class ReadingImportService {
           report.firstRejections,
         );
       }
-      await repo.update(record.id, { imported: counts.imported, duplicates: counts.duplicates, rejected: report.count, rejectedReport: report.toCsv() });
+      await repo.update(record.id, {
+        imported: counts.imported,
+        duplicates: counts.duplicates,
+        rejected: report.count,
+        rejectedReport: report.toCsv(),
+      });
       await this.events.recordEvent(m, {
         caseId: input.caseId,
         actorId: input.actorId,
         type: "readings-imported",
-        after: { importId: record.id, fileName, roomId: input.roomId, imported: counts.imported, duplicates: counts.duplicates, rejected: report.count },
+        after: {
+          importId: record.id,
+          fileName,
+          roomId: input.roomId,
+          imported: counts.imported,
+          duplicates: counts.duplicates,
+          rejected: report.count,
+        },
       });
-      const result: ImportResult = { importId: record.id, imported: counts.imported, duplicates: counts.duplicates, rejected: report.count };
+      const result: ImportResult = {
+        importId: record.id,
+        imported: counts.imported,
+        duplicates: counts.duplicates,
+        rejected: report.count,
+      };
       if (report.count > 0) result.rejectedReportUrl = `/api/cases/${input.caseId}/readings/imports/${record.id}/rejected.csv`;
       return result;
     });
@@ -236,7 +274,9 @@ export class ReadingImportService {
 
   /** The rejected-rows CSV of an import of this case ("row,reason" and nothing else when none were rejected). */
   async rejectedReport(caseId: number, importId: number): Promise<string> {
-    const found = await this.dataSource.getRepository(ReadingImport).findOne({ where: { id: importId, caseId }, select: { id: true, rejectedReport: true } });
+    const found = await this.dataSource
+      .getRepository(ReadingImport)
+      .findOne({ where: { id: importId, caseId }, select: { id: true, rejectedReport: true } });
     if (!found) throw new NotFoundError("That import was not found for this case.");
     return found.rejectedReport ?? "row,reason\n";
   }
@@ -267,12 +307,20 @@ export class ReadingImportService {
       throw e;
     }
     if (layout.dataRows.length === 0) {
-      throw new UnprocessableError("We found no rows of readings in the file. Check you chose the CSV file your logger exported.");
+      throw new UnprocessableError(
+        "We found no rows of readings in the file. Check you chose the CSV file your logger exported.",
+      );
     }
-    const proposal = proposeMapping(layout.hasHeader ? layout.headers : null, layout.dataRows.slice(0, 1000), layout.decimalComma);
+    const proposal = proposeMapping(
+      layout.hasHeader ? layout.headers : null,
+      layout.dataRows.slice(0, 1000),
+      layout.decimalComma,
+    );
     const problems: string[] = [];
     if (layout.noteRecords > 0) {
-      problems.push(`The first ${layout.noteRecords === 1 ? "line looks" : `${layout.noteRecords} lines look`} like notes from the logger, not readings, and will be skipped.`);
+      problems.push(
+        `The first ${layout.noteRecords === 1 ? "line looks" : `${layout.noteRecords} lines look`} like notes from the logger, not readings, and will be skipped.`,
+      );
     }
     problems.push(...proposal.problems);
     return { layout, proposal, problems };
@@ -293,7 +341,11 @@ export class ReadingImportService {
     for (const role of COLUMN_ROLES) {
       const col = merged[role];
       if (col === undefined) continue;
-      if (col >= width) details.push({ field: `mapping.${role}`, message: `Column ${col} is not in the file: it has ${width} columns, numbered from 0.` });
+      if (col >= width)
+        details.push({
+          field: `mapping.${role}`,
+          message: `Column ${col} is not in the file: it has ${width} columns, numbered from 0.`,
+        });
       const other = used.get(col);
       if (other !== undefined) details.push({ field: `mapping.${role}`, message: `Column ${col} is already used for ${other}.` });
       used.set(col, role);
@@ -302,19 +354,31 @@ export class ReadingImportService {
 
     const movedTime = given.timestamp !== undefined || given.timeOfDay !== undefined;
     if (movedTime && given.dateFormat === undefined && merged.timestamp !== undefined) {
-      const values = layout.dataRows.slice(0, 1000).map((r) => `${r[merged.timestamp!] ?? ""} ${merged.timeOfDay === undefined ? "" : (r[merged.timeOfDay] ?? "")}`.trim());
+      const values = layout.dataRows
+        .slice(0, 1000)
+        .map((r) => `${r[merged.timestamp!] ?? ""} ${merged.timeOfDay === undefined ? "" : (r[merged.timeOfDay] ?? "")}`.trim());
       const guess = detectDateFormat(values);
       if (guess) merged.dateFormat = guess.format;
       else delete merged.dateFormat;
     }
     if (given.temperature !== undefined && given.temperatureUnit === undefined) {
       const header = layout.hasHeader ? (layout.headers[given.temperature] ?? "") : null;
-      merged.temperatureUnit = temperatureUnitOf(header, layout.dataRows.slice(0, 1000), given.temperature, layout.decimalComma).unit;
+      merged.temperatureUnit = temperatureUnitOf(
+        header,
+        layout.dataRows.slice(0, 1000),
+        given.temperature,
+        layout.decimalComma,
+      ).unit;
     }
 
-    const missing = proposal.missing.filter((m) => (m.field === "timestamp" ? merged.timestamp === undefined || merged.dateFormat === undefined : merged[m.field] === undefined));
+    const missing = proposal.missing.filter((m) =>
+      m.field === "timestamp" ? merged.timestamp === undefined || merged.dateFormat === undefined : merged[m.field] === undefined,
+    );
     if (merged.timestamp !== undefined && merged.dateFormat === undefined && !missing.some((m) => m.field === "timestamp")) {
-      missing.unshift({ field: "timestamp", message: `We could not read the dates in column ${merged.timestamp}. Choose the date format.` });
+      missing.unshift({
+        field: "timestamp",
+        message: `We could not read the dates in column ${merged.timestamp}. Choose the date format.`,
+      });
     }
     if (missing.length > 0) throw new UnprocessableError(notFoundMessage(missing), missing);
     return merged as Mapping;
@@ -446,7 +510,10 @@ export class ReadingImportService {
       });
       return { dataRows, imported, duplicates };
     } catch (e) {
-      if (e instanceof CsvError) throw new UnprocessableError(`Line ${line} could not be read as CSV (${e.message}). Check the file is a CSV export and has not been edited by hand.`);
+      if (e instanceof CsvError)
+        throw new UnprocessableError(
+          `Line ${line} could not be read as CSV (${e.message}). Check the file is a CSV export and has not been edited by hand.`,
+        );
       throw e;
     } finally {
       parser.destroy();

@@ -20,16 +20,42 @@ export class Reading {
   @Column({ name: "taken_at", type: "datetime", precision: 0 })
   takenAt: Date;
 
-  @Column({ name: "air_temperature_c", type: "decimal", precision: 5, scale: 2, transformer: { to: (v: number) => v, from: (v: string) => Number(v) } })
+  @Column({
+    name: "air_temperature_c",
+    type: "decimal",
+    precision: 5,
+    scale: 2,
+    transformer: { to: (v: number) => v, from: (v: string) => Number(v) },
+  })
   airTemperatureC: number;
 
-  @Column({ name: "relative_humidity_pct", type: "decimal", precision: 5, scale: 2, transformer: { to: (v: number) => v, from: (v: string) => Number(v) } })
+  @Column({
+    name: "relative_humidity_pct",
+    type: "decimal",
+    precision: 5,
+    scale: 2,
+    transformer: { to: (v: number) => v, from: (v: string) => Number(v) },
+  })
   relativeHumidityPct: number;
 
-  @Column({ name: "surface_temperature_c", type: "decimal", precision: 5, scale: 2, nullable: true, transformer: { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) } })
+  @Column({
+    name: "surface_temperature_c",
+    type: "decimal",
+    precision: 5,
+    scale: 2,
+    nullable: true,
+    transformer: { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) },
+  })
   surfaceTemperatureC: number | null;
 
-  @Column({ name: "outdoor_temperature_c", type: "decimal", precision: 5, scale: 2, nullable: true, transformer: { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) } })
+  @Column({
+    name: "outdoor_temperature_c",
+    type: "decimal",
+    precision: 5,
+    scale: 2,
+    nullable: true,
+    transformer: { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) },
+  })
   outdoorTemperatureC: number | null;
 
   @Column({ type: "varchar", length: 10 })

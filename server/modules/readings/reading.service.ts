@@ -61,8 +61,10 @@ function checkManual(readings: readonly ManualReading[]): void {
     }
   };
   readings.forEach((r, i) => {
-    if (!Number.isInteger(r.roomId) || r.roomId <= 0) details.push({ field: `${i}.roomId`, message: "roomId must be a room of this home." });
-    if (!(r.takenAt instanceof Date) || Number.isNaN(r.takenAt.getTime())) details.push({ field: `${i}.takenAt`, message: "takenAt must be a date and time." });
+    if (!Number.isInteger(r.roomId) || r.roomId <= 0)
+      details.push({ field: `${i}.roomId`, message: "roomId must be a room of this home." });
+    if (!(r.takenAt instanceof Date) || Number.isNaN(r.takenAt.getTime()))
+      details.push({ field: `${i}.takenAt`, message: "takenAt must be a date and time." });
     range(i, "airTemperatureC", r.airTemperatureC, AIR_TEMPERATURE_C, true);
     range(i, "surfaceTemperatureC", r.surfaceTemperatureC, SURFACE_TEMPERATURE_C, false);
     range(i, "outdoorTemperatureC", r.outdoorTemperatureC, OUTDOOR_TEMPERATURE_C, false);
@@ -90,7 +92,11 @@ export class ReadingService {
    * (to the second) is skipped and counted as a duplicate, as with imports.
    * The case's timeline records who added them, in the same transaction.
    */
-  async addManual(caseId: number, readings: readonly ManualReading[], options: { actorId: number }): Promise<{ imported: number; duplicates: number }> {
+  async addManual(
+    caseId: number,
+    readings: readonly ManualReading[],
+    options: { actorId: number },
+  ): Promise<{ imported: number; duplicates: number }> {
     checkManual(readings);
     if (readings.length === 0) return { imported: 0, duplicates: 0 };
     return this.dataSource.transaction(async (m) => {
@@ -119,14 +125,21 @@ export class ReadingService {
       }
       const duplicates = readings.length - imported;
       const roomIds = [...new Set(readings.map((r) => r.roomId))];
-      await this.events.recordEvent(m, { caseId, actorId: options.actorId, type: "readings-added", after: { imported, duplicates, roomIds, roomId: roomIds[0] } });
+      await this.events.recordEvent(m, {
+        caseId,
+        actorId: options.actorId,
+        type: "readings-added",
+        after: { imported, duplicates, roomIds, roomId: roomIds[0] },
+      });
       return { imported, duplicates };
     });
   }
 
   /** How many readings the case has taken at or after `since` (inside the caller's transaction when given one). */
   async countSince(caseId: number, since: Date, m: EntityManager = this.dataSource.manager): Promise<number> {
-    return Number((await m.query("SELECT COUNT(*) AS n FROM readings WHERE case_id = ? AND taken_at >= ?", [caseId, since]))[0]?.n ?? 0);
+    return Number(
+      (await m.query("SELECT COUNT(*) AS n FROM readings WHERE case_id = ? AND taken_at >= ?", [caseId, since]))[0]?.n ?? 0,
+    );
   }
 
   /** Readings of a case (one room, or all), oldest first; at most `limit` (the oldest ones, or with `newest` the latest). */
@@ -139,7 +152,10 @@ export class ReadingService {
     const sql = opts.newest
       ? `SELECT * FROM (${select} ORDER BY taken_at DESC, room_id DESC, id DESC LIMIT ?) latest ORDER BY taken_at, room_id, id`
       : `${select} ORDER BY taken_at, room_id, id LIMIT ?`;
-    const rows: ReadingRow[] = await this.dataSource.query(sql, opts.roomId === undefined ? [caseId, limit] : [caseId, opts.roomId, limit]);
+    const rows: ReadingRow[] = await this.dataSource.query(
+      sql,
+      opts.roomId === undefined ? [caseId, limit] : [caseId, opts.roomId, limit],
+    );
     return rows.map((r) => ({
       id: Number(r.id),
       roomId: r.room_id,
@@ -155,12 +171,14 @@ export class ReadingService {
 
   /** A case's readings (one room, or all) oldest first, shaped for the risk engine's evaluateSeries. */
   async seriesFor(caseId: number, roomId?: number): Promise<SeriesPoint[]> {
-    const rows: Pick<ReadingRow, "taken_at" | "air_temperature_c" | "relative_humidity_pct" | "surface_temperature_c" | "outdoor_temperature_c">[] =
-      await this.dataSource.query(
-        "SELECT taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c " +
-          `FROM readings WHERE case_id = ?${roomId === undefined ? "" : " AND room_id = ?"} ORDER BY taken_at, room_id, id`,
-        roomId === undefined ? [caseId] : [caseId, roomId],
-      );
+    const rows: Pick<
+      ReadingRow,
+      "taken_at" | "air_temperature_c" | "relative_humidity_pct" | "surface_temperature_c" | "outdoor_temperature_c"
+    >[] = await this.dataSource.query(
+      "SELECT taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c " +
+        `FROM readings WHERE case_id = ?${roomId === undefined ? "" : " AND room_id = ?"} ORDER BY taken_at, room_id, id`,
+      roomId === undefined ? [caseId] : [caseId, roomId],
+    );
     return rows.map((r) => {
       const reading: SeriesPoint = {
         at: r.taken_at,

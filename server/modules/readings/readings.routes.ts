@@ -1,5 +1,10 @@
 import { rm } from "node:fs/promises";
-import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "../../../src/lib/contracts/readings.js";
+import {
+  importPreviewResponse,
+  importResultResponse,
+  readingsAddedResponse,
+  readingsResponse,
+} from "../../../src/lib/contracts/readings.js";
 import { shaped } from "../../lib/contract.js";
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
@@ -39,7 +44,10 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
   const requireRoomOfCase = (roomIds: number[], caseRooms: { id: number }[]) => {
     const ok = new Set(caseRooms.map((r) => r.id));
     const bad = roomIds.filter((r) => !ok.has(r));
-    if (bad.length) throw new ValidationError("roomId: choose a room of this home.", [{ field: "roomId", message: `Room ${bad.join(", ")} is not part of this home.` }]);
+    if (bad.length)
+      throw new ValidationError("roomId: choose a room of this home.", [
+        { field: "roomId", message: `Room ${bad.join(", ")} is not part of this home.` },
+      ]);
   };
 
   router.get("/:id/readings", caseAccess, async (req, res) => {
@@ -51,7 +59,10 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
   router.post("/:id/readings", caseAccess, async (req, res) => {
     const input = parse(manualReadingsSchema, req.body);
     const c = res.locals.case;
-    requireRoomOfCase(input.map((r) => r.roomId), cases.roomsOf(c));
+    requireRoomOfCase(
+      input.map((r) => r.roomId),
+      cases.roomsOf(c),
+    );
     const result = await readings.addManual(
       c.id,
       input.map((r) => ({ ...r, takenAt: new Date(r.takenAt) })),

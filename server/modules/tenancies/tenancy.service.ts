@@ -18,10 +18,13 @@ export class TenancyService {
   }
 
   /** Starts a tenancy today (inside the caller's transaction). */
-  async start(m: EntityManager, t: { propertyId: number; tenantUserId: number; householdNotes: string | null; startDate?: string }) {
-    return m.getRepository(Tenancy).save(
-      m.getRepository(Tenancy).create({ ...t, startDate: t.startDate ?? this.today(), endDate: null }),
-    );
+  async start(
+    m: EntityManager,
+    t: { propertyId: number; tenantUserId: number; householdNotes: string | null; startDate?: string },
+  ) {
+    return m
+      .getRepository(Tenancy)
+      .save(m.getRepository(Tenancy).create({ ...t, startDate: t.startDate ?? this.today(), endDate: null }));
   }
 
   /** The tenant's current tenancy (started, not ended), or null. The one place a tenant's home is decided. */
@@ -43,7 +46,10 @@ export class TenancyService {
     const row = await m
       .getRepository(Tenancy)
       .createQueryBuilder("t")
-      .where("t.property_id = :propertyId AND t.start_date <= :today AND (t.end_date IS NULL OR t.end_date >= :today)", { propertyId, today: d })
+      .where("t.property_id = :propertyId AND t.start_date <= :today AND (t.end_date IS NULL OR t.end_date >= :today)", {
+        propertyId,
+        today: d,
+      })
       .orderBy("t.start_date", "DESC")
       .getOne();
     return row?.tenantUserId ?? null;
@@ -55,7 +61,11 @@ export class TenancyService {
   }
 
   /** The household notes of the tenant's latest tenancy of the home, or null. */
-  async householdNotes(propertyId: number, tenantUserId: number, m: EntityManager = this.dataSource.manager): Promise<string | null> {
+  async householdNotes(
+    propertyId: number,
+    tenantUserId: number,
+    m: EntityManager = this.dataSource.manager,
+  ): Promise<string | null> {
     const t = await m.getRepository(Tenancy).findOne({ where: { propertyId, tenantUserId }, order: { startDate: "DESC" } });
     return t?.householdNotes ?? null;
   }

@@ -14,7 +14,17 @@ import type { QueueService } from "../cases/case-queue.service.js";
 import type { TriageService } from "./triage.service.js";
 
 /** Mounted at /api/cases before the cases router: the queue, bulk changes, priority breakdown and related cases. */
-export function createTriageRouter({ cases, queue, triage, clock }: { cases: CaseService; queue: QueueService; triage: TriageService; clock: Clock }): Router {
+export function createTriageRouter({
+  cases,
+  queue,
+  triage,
+  clock,
+}: {
+  cases: CaseService;
+  queue: QueueService;
+  triage: TriageService;
+  clock: Clock;
+}): Router {
   const router = Router();
   const staff = requireRole("officer", "maintenance", "admin");
   const officers = requireRole("officer", "admin");
@@ -23,7 +33,14 @@ export function createTriageRouter({ cases, queue, triage, clock }: { cases: Cas
     const query = parse(queueQuerySchema, req.query, "query");
     const now = clock.now();
     const { rows, rooms, total } = await queue.list(actorOf(req), query, now);
-    res.json(shaped(queuePageResponse, { items: rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now)), total, page: query.page, pageSize: query.pageSize }));
+    res.json(
+      shaped(queuePageResponse, {
+        items: rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now)),
+        total,
+        page: query.page,
+        pageSize: query.pageSize,
+      }),
+    );
   });
 
   router.post("/bulk", officers, async (req, res) => {
@@ -38,7 +55,10 @@ export function createTriageRouter({ cases, queue, triage, clock }: { cases: Cas
         updated.push(id);
       } catch (error) {
         if (!(error instanceof AppError)) throw error;
-        const reference = await cases.getForActor(actor, id).then((c) => c.reference, () => null);
+        const reference = await cases.getForActor(actor, id).then(
+          (c) => c.reference,
+          () => null,
+        );
         failed.push({ id, reference, message: error.message });
       }
     }
@@ -57,7 +77,14 @@ export function createTriageRouter({ cases, queue, triage, clock }: { cases: Cas
     const others = await cases.relatedTo(c);
     res.json(
       shaped(relatedCasesResponse, {
-        cases: others.map((o) => ({ id: o.id, reference: o.reference, status: o.status, awareAt: o.awareAt.toISOString(), hazardClass: o.hazardClass, description: o.description.slice(0, 200) })),
+        cases: others.map((o) => ({
+          id: o.id,
+          reference: o.reference,
+          status: o.status,
+          awareAt: o.awareAt.toISOString(),
+          hazardClass: o.hazardClass,
+          description: o.description.slice(0, 200),
+        })),
       }),
     );
   });

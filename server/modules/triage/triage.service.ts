@@ -1,5 +1,10 @@
 import { computeDeadlines, type Deadline } from "../../../src/lib/domain/deadlines.js";
-import { hoursUntilDeadlinePartChanges, triagePriority, type TriagePriority, type TriageVulnerability } from "../../../src/lib/domain/triage-priority.js";
+import {
+  hoursUntilDeadlinePartChanges,
+  triagePriority,
+  type TriagePriority,
+  type TriageVulnerability,
+} from "../../../src/lib/domain/triage-priority.js";
 import type { Actor } from "../auth/actor.js";
 import type { AssessmentService } from "../assessments/assessment.service.js";
 import type { Case, CaseService } from "../cases/case.service.js";
@@ -15,7 +20,9 @@ const YEAR_MS = 365 * 24 * HOUR_MS;
 /** The earliest deadline not yet done, passed or not; none for a closed or cancelled case. */
 export function nextDeadline(status: Case["status"], deadlines: Deadline[]): Deadline | null {
   if (!OPEN_STATUSES.includes(status)) return null;
-  const running = deadlines.filter((d) => d.doneAt === null && d.dueAt !== null && (d.state === "pending" || d.state === "missed"));
+  const running = deadlines.filter(
+    (d) => d.doneAt === null && d.dueAt !== null && (d.state === "pending" || d.state === "missed"),
+  );
   running.sort((a, b) => a.dueAt!.getTime() - b.dueAt!.getTime());
   return running[0] ?? null;
 }
@@ -94,7 +101,13 @@ export class TriageService {
       this.cases.hasOtherCaseNear(c, YEAR_MS),
     ]);
     const { source: _source, ...timeframes } = policy;
-    const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now, policy: timeframes });
+    const deadlines = computeDeadlines({
+      hazardClass: c.hazardClass,
+      awareAt: c.awareAt,
+      ...milestones,
+      now,
+      policy: timeframes,
+    });
     const next = nextDeadline(c.status, deadlines);
     return {
       risk,

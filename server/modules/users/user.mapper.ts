@@ -4,7 +4,13 @@ import type { staffMember, userResponse } from "../../../src/lib/contracts/users
 import type { Actor } from "../../lib/actor.js";
 import type { User } from "./user.entity.js";
 
-export const toMeDto = (a: Actor): z.input<typeof meResponse> => ({ id: a.id, email: a.email, name: a.name, role: a.role, organisationId: a.organisationId });
+export const toMeDto = (a: Actor): z.input<typeof meResponse> => ({
+  id: a.id,
+  email: a.email,
+  name: a.name,
+  role: a.role,
+  organisationId: a.organisationId,
+});
 
 export const toUserDto = (u: User): z.input<typeof userResponse> => ({
   id: u.id,

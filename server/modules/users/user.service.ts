@@ -14,7 +14,13 @@ export interface Person {
   organisationId: number;
 }
 
-const personOf = (u: User): Person => ({ id: u.id, name: u.name, email: u.email, role: u.role, organisationId: u.organisationId });
+const personOf = (u: User): Person => ({
+  id: u.id,
+  name: u.name,
+  email: u.email,
+  role: u.role,
+  organisationId: u.organisationId,
+});
 
 export class UserService {
   constructor(private readonly dataSource: DataSource) {}
@@ -35,7 +41,12 @@ export class UserService {
    * An active member of the landlord's staff with one of `roles` (any staff role when not given), or
    * null: a tenant, someone disabled or another landlord's staff is not found.
    */
-  async findStaff(organisationId: number, id: number, roles: readonly Role[] = ["officer", "maintenance", "admin"], m: EntityManager = this.dataSource.manager): Promise<Person | null> {
+  async findStaff(
+    organisationId: number,
+    id: number,
+    roles: readonly Role[] = ["officer", "maintenance", "admin"],
+    m: EntityManager = this.dataSource.manager,
+  ): Promise<Person | null> {
     const u = await m.getRepository(User).findOneBy({ id, organisationId, status: "active", role: In([...roles]) });
     return u ? personOf(u) : null;
   }
@@ -43,7 +54,10 @@ export class UserService {
   // Accounts, for AuthService: sign-in, invitations and password resets.
 
   /** The account with this e-mail address or id, with its status and password hash (for AuthService only), or null. */
-  async account(where: { email: string } | { id: number }, m: EntityManager = this.dataSource.manager): Promise<(Person & Pick<User, "status" | "passwordHash">) | null> {
+  async account(
+    where: { email: string } | { id: number },
+    m: EntityManager = this.dataSource.manager,
+  ): Promise<(Person & Pick<User, "status" | "passwordHash">) | null> {
     const u = await m.getRepository(User).findOneBy(where);
     return u ? { ...personOf(u), status: u.status, passwordHash: u.passwordHash } : null;
   }
@@ -53,7 +67,10 @@ export class UserService {
   }
 
   /** A new account waiting for its invitation to be accepted (no password yet), in the caller's transaction. */
-  async createInvited(m: EntityManager, input: { organisationId: number; email: string; name: string; role: Role }): Promise<Person> {
+  async createInvited(
+    m: EntityManager,
+    input: { organisationId: number; email: string; name: string; role: Role },
+  ): Promise<Person> {
     const repo = m.getRepository(User);
     return personOf(await repo.save(repo.create({ ...input, status: "invited", passwordHash: null })));
   }
@@ -70,14 +87,23 @@ export class UserService {
   /** Active officers of any of these landlords, by id. */
   async activeOfficersOf(organisationIds: readonly number[]): Promise<Person[]> {
     if (!organisationIds.length) return [];
-    const rows = await this.dataSource.getRepository(User).find({ where: { organisationId: In([...organisationIds]), role: "officer", status: "active" }, order: { id: "ASC" } });
+    const rows = await this.dataSource
+      .getRepository(User)
+      .find({ where: { organisationId: In([...organisationIds]), role: "officer", status: "active" }, order: { id: "ASC" } });
     return rows.map(personOf);
   }
 
   /** Active staff of the landlord with one of `roles`, optionally only among `ids`. */
-  async activeStaffOf(organisationId: number, roles: readonly Role[], m: EntityManager = this.dataSource.manager, ids?: readonly number[]): Promise<Person[]> {
+  async activeStaffOf(
+    organisationId: number,
+    roles: readonly Role[],
+    m: EntityManager = this.dataSource.manager,
+    ids?: readonly number[],
+  ): Promise<Person[]> {
     if (ids && !ids.length) return [];
-    const rows = await m.getRepository(User).findBy({ organisationId, status: "active", role: In([...roles]), ...(ids ? { id: In([...ids]) } : {}) });
+    const rows = await m
+      .getRepository(User)
+      .findBy({ organisationId, status: "active", role: In([...roles]), ...(ids ? { id: In([...ids]) } : {}) });
     return rows.map(personOf);
   }
 
@@ -90,7 +116,10 @@ export class UserService {
   }
 
   async list(actor: Actor, query: UserListQuery): Promise<{ items: User[]; total: number }> {
-    const qb = this.dataSource.getRepository(User).createQueryBuilder("u").where("u.organisation_id = :org", { org: actor.organisationId });
+    const qb = this.dataSource
+      .getRepository(User)
+      .createQueryBuilder("u")
+      .where("u.organisation_id = :org", { org: actor.organisationId });
     if (query.role) qb.andWhere("u.role = :role", { role: query.role });
     if (query.q) {
       const like = `%${escapeLike(query.q)}%`;

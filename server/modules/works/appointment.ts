@@ -24,11 +24,23 @@ export function slotInstants(date: string, window: SlotWindow): { start: Date; e
 }
 
 export function describeSlot(date: string, window: SlotWindow): string {
-  const day = new Date(`${date}T12:00:00Z`).toLocaleDateString("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "UTC" });
+  const day = new Date(`${date}T12:00:00Z`).toLocaleDateString("en-GB", {
+    weekday: "long",
+    day: "numeric",
+    month: "long",
+    year: "numeric",
+    timeZone: "UTC",
+  });
   return `${day}, ${WINDOW_HOURS[window].label}`;
 }
 
-const parts = (d: Date): [number, number, number, number, number] => [d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate(), d.getUTCHours(), d.getUTCMinutes()];
+const parts = (d: Date): [number, number, number, number, number] => [
+  d.getUTCFullYear(),
+  d.getUTCMonth() + 1,
+  d.getUTCDate(),
+  d.getUTCHours(),
+  d.getUTCMinutes(),
+];
 
 /**
  * A calendar invitation for the appointment. The UID stays the same for a work order, and the

@@ -43,28 +43,70 @@ export class VerificationService {
     const decided = await this.cases.latestEvent(c.id, "fix-verified");
     // A decision counts for the current works only (a later round of works starts afresh).
     const outcomeEvent = decided && c.worksDoneAt && decided.createdAt >= c.worksDoneAt ? decided : null;
-    const by = outcomeEvent?.actorUserId ? ((await this.users.people([outcomeEvent.actorUserId])).get(outcomeEvent.actorUserId)?.name ?? null) : null;
-    const outcome = outcomeEvent ? { effective: Boolean(outcomeEvent.after.effective), note: String(outcomeEvent.after.note ?? ""), at: outcomeEvent.createdAt.toISOString(), by } : null;
-    if (!c.worksDoneAt) return { state: "no-works", worksDoneAt: null, monitoringEndsAt: null, monitoringDays, rooms: [], outcome: null };
+    const by = outcomeEvent?.actorUserId
+      ? ((await this.users.people([outcomeEvent.actorUserId])).get(outcomeEvent.actorUserId)?.name ?? null)
+      : null;
+    const outcome = outcomeEvent
+      ? {
+          effective: Boolean(outcomeEvent.after.effective),
+          note: String(outcomeEvent.after.note ?? ""),
+          at: outcomeEvent.createdAt.toISOString(),
+          by,
+        }
+      : null;
+    if (!c.worksDoneAt)
+      return { state: "no-works", worksDoneAt: null, monitoringEndsAt: null, monitoringDays, rooms: [], outcome: null };
     const property = c.property!;
     const element = elementsForReport(property, c.locations)[0];
     const rooms: VerificationView["rooms"] = [];
     for (const room of this.cases.roomsOf(c)) {
       const series = await this.readings.seriesFor(c.id, room.id);
       if (series.length === 0) continue;
-      rooms.push({ roomId: room.id, roomName: room.name, comparison: compareBeforeAfter({ readings: series, worksDoneAt: c.worksDoneAt, element, surfaceWet: c.observations.includes("wet-patches") || c.observations.includes("leak") }) });
+      rooms.push({
+        roomId: room.id,
+        roomName: room.name,
+        comparison: compareBeforeAfter({
+          readings: series,
+          worksDoneAt: c.worksDoneAt,
+          element,
+          surfaceWet: c.observations.includes("wet-patches") || c.observations.includes("leak"),
+        }),
+      });
     }
-    const state = outcome ? "decided" : c.monitoringEndsAt && c.monitoringEndsAt.getTime() <= this.clock.now().getTime() ? "ended" : "monitoring";
-    return { state, worksDoneAt: c.worksDoneAt.toISOString(), monitoringEndsAt: c.monitoringEndsAt?.toISOString() ?? null, monitoringDays, rooms, outcome };
+    const state = outcome
+      ? "decided"
+      : c.monitoringEndsAt && c.monitoringEndsAt.getTime() <= this.clock.now().getTime()
+        ? "ended"
+        : "monitoring";
+    return {
+      state,
+      worksDoneAt: c.worksDoneAt.toISOString(),
+      monitoringEndsAt: c.monitoringEndsAt?.toISOString() ?? null,
+      monitoringDays,
+      rooms,
+      outcome,
+    };
   }
 
   /** "Fix effective" closes the case; "not effective" sends it back to investigated with a new work order. */
-  async decide(actor: Actor, caseId: number, input: { effective: true; note: string } | { effective: false; note: string; workOrder: WorkOrderCreate }): Promise<void> {
+  async decide(
+    actor: Actor,
+    caseId: number,
+    input: { effective: true; note: string } | { effective: false; note: string; workOrder: WorkOrderCreate },
+  ): Promise<void> {
     await this.dataSource.transaction(async (m) => {
       const c = await this.cases.getForActor(actor, caseId, m);
       const fresh = await this.cases.lockRow(m, c.id);
-      if (fresh.status !== "monitoring") throw new ConflictError(`The fix is judged while the case is being monitored after the works; this case is ${fresh.status}.`);
-      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "fix-verified", after: { effective: input.effective, note: input.note } });
+      if (fresh.status !== "monitoring")
+        throw new ConflictError(
+          `The fix is judged while the case is being monitored after the works; this case is ${fresh.status}.`,
+        );
+      await this.cases.recordEvent(m, {
+        caseId: c.id,
+        actorId: actor.id,
+        type: "fix-verified",
+        after: { effective: input.effective, note: input.note },
+      });
       if (input.effective) {
         await this.works.moveCase(m, actor, c, "closed", `Fix effective: ${input.note}`);
       } else {
@@ -89,13 +131,27 @@ export class VerificationService {
           const out: (() => Promise<unknown>)[] = [];
           if (fresh.tenantUserId) {
             const tenant = await this.users.person(fresh.tenantUserId, m);
-            out.push(await this.cases.queueMail(m, fresh, { to: tenant.email, template: "monitoringEnded", data: { name: tenant.name, reference: fresh.reference!, link, forLead: false, readingsAfter } }));
+            out.push(
+              await this.cases.queueMail(m, fresh, {
+                to: tenant.email,
+                template: "monitoringEnded",
+                data: { name: tenant.name, reference: fresh.reference!, link, forLead: false, readingsAfter },
+              }),
+            );
           }
           // The leads: whoever completed or booked the works.
           const orders = await m.getRepository(WorkOrder).findBy({ caseId: c.id });
-          const leadIds = [...new Set(orders.flatMap((o) => [o.completedById, o.createdById]).filter((v): v is number => v !== null))];
+          const leadIds = [
+            ...new Set(orders.flatMap((o) => [o.completedById, o.createdById]).filter((v): v is number => v !== null)),
+          ];
           for (const lead of await this.users.activeStaffOf(fresh.organisationId, ["maintenance", "admin"], m, leadIds)) {
-            out.push(await this.cases.queueMail(m, fresh, { to: lead.email, template: "monitoringEnded", data: { name: lead.name, reference: fresh.reference!, link, forLead: true, readingsAfter } }));
+            out.push(
+              await this.cases.queueMail(m, fresh, {
+                to: lead.email,
+                template: "monitoringEnded",
+                data: { name: lead.name, reference: fresh.reference!, link, forLead: true, readingsAfter },
+              }),
+            );
           }
           return out;
         });

@@ -1,6 +1,11 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, UpdateDateColumn } from "typeorm";
 
-export { SLOT_WINDOWS, WORK_ORDER_PRIORITIES, WORK_ORDER_STATUSES, WORK_ORDER_TYPES } from "../../../src/lib/schemas/work-orders.js";
+export {
+  SLOT_WINDOWS,
+  WORK_ORDER_PRIORITIES,
+  WORK_ORDER_STATUSES,
+  WORK_ORDER_TYPES,
+} from "../../../src/lib/schemas/work-orders.js";
 export type { SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "../../../src/lib/schemas/work-orders.js";
 import type { SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } from "../../../src/lib/schemas/work-orders.js";
 
@@ -80,6 +85,12 @@ export class WorkOrder {
   @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })
   createdAt: Date;
 
-  @UpdateDateColumn({ name: "updated_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)", onUpdate: "CURRENT_TIMESTAMP(3)" })
+  @UpdateDateColumn({
+    name: "updated_at",
+    type: "datetime",
+    precision: 3,
+    default: () => "CURRENT_TIMESTAMP(3)",
+    onUpdate: "CURRENT_TIMESTAMP(3)",
+  })
   updatedAt: Date;
 }

@@ -19,7 +19,15 @@ export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor): z.inpu
   const staff = isStaff(actor);
   const bookings = ctx.bookings.get(w.id) ?? [];
   const active = bookings.find((b) => b.state === "active");
-  const slot = w.slotDate && w.slotWindow ? { date: w.slotDate, window: w.slotWindow, startsAt: slotInstants(w.slotDate, w.slotWindow).start.toISOString(), endsAt: slotInstants(w.slotDate, w.slotWindow).end.toISOString() } : null;
+  const slot =
+    w.slotDate && w.slotWindow
+      ? {
+          date: w.slotDate,
+          window: w.slotWindow,
+          startsAt: slotInstants(w.slotDate, w.slotWindow).start.toISOString(),
+          endsAt: slotInstants(w.slotDate, w.slotWindow).end.toISOString(),
+        }
+      : null;
   const completedBy = w.completedById ? ctx.users.get(w.completedById) : undefined;
   return {
     id: w.id,
@@ -35,7 +43,9 @@ export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor): z.inpu
     assignee: assignee ? { id: assignee.id, name: assignee.name } : null,
     contractor: contractor ? { id: contractor.id, name: contractor.name, ...(staff ? { email: contractor.email } : {}) } : null,
     slot,
-    booking: active ? { response: active.tenantResponse, reason: active.tenantReason, respondedAt: active.respondedAt?.toISOString() ?? null } : null,
+    booking: active
+      ? { response: active.tenantResponse, reason: active.tenantReason, respondedAt: active.respondedAt?.toISOString() ?? null }
+      : null,
     ...(staff
       ? {
           bookings: bookings.map((b) => ({
@@ -53,10 +63,23 @@ export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor): z.inpu
         }
       : {}),
     completion: w.completedAt
-      ? { at: w.completedAt.toISOString(), by: completedBy?.name ?? null, note: w.completionNote, materials: staff ? w.materials : null, minutesOnSite: staff ? w.minutesOnSite : null, followOn: staff ? w.followOn : null }
+      ? {
+          at: w.completedAt.toISOString(),
+          by: completedBy?.name ?? null,
+          note: w.completionNote,
+          materials: staff ? w.materials : null,
+          minutesOnSite: staff ? w.minutesOnSite : null,
+          followOn: staff ? w.followOn : null,
+        }
       : null,
     createdAt: w.createdAt.toISOString(),
   };
 }
 
-export const toContractorDto = (k: Contractor): z.input<typeof contractorResponse> => ({ id: k.id, name: k.name, email: k.email, phone: k.phone, trade: k.trade });
+export const toContractorDto = (k: Contractor): z.input<typeof contractorResponse> => ({
+  id: k.id,
+  name: k.name,
+  email: k.email,
+  phone: k.phone,
+  trade: k.trade,
+});

@@ -42,7 +42,9 @@ const OPEN_ORDER: readonly WorkOrder["status"][] = ["unscheduled", "scheduled", 
 const DAY_MS = 86_400_000;
 
 const isDuplicate = (error: unknown) =>
-  error instanceof QueryFailedError && ((error.driverError as { code?: string; errno?: number } | undefined)?.code === "ER_DUP_ENTRY" || (error.driverError as { errno?: number })?.errno === 1062);
+  error instanceof QueryFailedError &&
+  ((error.driverError as { code?: string; errno?: number } | undefined)?.code === "ER_DUP_ENTRY" ||
+    (error.driverError as { errno?: number })?.errno === 1062);
 
 type Deliveries = (() => Promise<unknown>)[];
 
@@ -66,7 +68,9 @@ export class WorkOrderService {
 
   /** A work order the actor may see (staff of its landlord, or the tenant of its case); 404 otherwise. */
   async getForActor(actor: Actor, id: number, m: EntityManager = this.dataSource.manager, lock = false): Promise<WorkOrder> {
-    const wo = await m.getRepository(WorkOrder).findOne({ where: { id }, ...(lock ? { lock: { mode: "pessimistic_write" as const } } : {}) });
+    const wo = await m
+      .getRepository(WorkOrder)
+      .findOne({ where: { id }, ...(lock ? { lock: { mode: "pessimistic_write" as const } } : {}) });
     if (!wo) throw new NotFoundError("No such work order.");
     await this.cases.getForActor(actor, wo.caseId, m).catch(() => {
       throw new NotFoundError("No such work order.");
@@ -87,7 +91,10 @@ export class WorkOrderService {
       const rooms = new Set(this.cases.roomsOf(c).map((r) => r.id));
       const roomIds = [...new Set(input.roomIds ?? c.rooms?.map((r) => r.id) ?? [])];
       const strange = roomIds.filter((r) => !rooms.has(r));
-      if (strange.length) throw new ValidationError("roomIds: choose rooms of this home.", [{ field: "roomIds", message: `Room ${strange.join(", ")} is not part of this home.` }]);
+      if (strange.length)
+        throw new ValidationError("roomIds: choose rooms of this home.", [
+          { field: "roomIds", message: `Room ${strange.join(", ")} is not part of this home.` },
+        ]);
       const targetDate = input.targetDate ?? (await this.defaultTargetDate(c));
       const repo = m.getRepository(WorkOrder);
       const saved = await repo.save(
@@ -103,7 +110,12 @@ export class WorkOrderService {
           createdById: actor.id,
         }),
       );
-      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "work-order-created", after: { workOrderId: saved.id, type: saved.type, description: saved.description, targetDate, priority: saved.priority } });
+      await this.cases.recordEvent(m, {
+        caseId: c.id,
+        actorId: actor.id,
+        type: "work-order-created",
+        after: { workOrderId: saved.id, type: saved.type, description: saved.description, targetDate, priority: saved.priority },
+      });
       return saved;
     };
     return outer ? run(outer) : this.dataSource.transaction(run);
@@ -115,8 +127,13 @@ export class WorkOrderService {
     const milestones = await this.inspections.milestones(c.id);
     const now = this.clock.now();
     const deadlines = computeDeadlines({ hazardClass: c.hazardClass, awareAt: c.awareAt, ...milestones, now, policy });
-    const running = (stage: string) => deadlines.find((d) => d.stage === stage && d.dueAt && !d.doneAt && d.state !== "not-applicable");
-    const due = running("safety-work")?.dueAt ?? running("make-safe")?.dueAt ?? running("supplementary-work")?.dueAt ?? addWorkingDays(now, policy.safetyWorkWorkingDays);
+    const running = (stage: string) =>
+      deadlines.find((d) => d.stage === stage && d.dueAt && !d.doneAt && d.state !== "not-applicable");
+    const due =
+      running("safety-work")?.dueAt ??
+      running("make-safe")?.dueAt ??
+      running("supplementary-work")?.dueAt ??
+      addWorkingDays(now, policy.safetyWorkWorkingDays);
     // A deadline already passed: as soon as possible, which is today.
     return localDate(due.getTime() < now.getTime() ? now : due);
   }
@@ -127,7 +144,10 @@ export class WorkOrderService {
   }
 
   async list(actor: Actor, q: WorkOrderListQuery): Promise<{ items: WorkOrder[]; total: number }> {
-    const qb = this.dataSource.getRepository(WorkOrder).createQueryBuilder("w").where("w.organisation_id = :org", { org: actor.organisationId });
+    const qb = this.dataSource
+      .getRepository(WorkOrder)
+      .createQueryBuilder("w")
+      .where("w.organisation_id = :org", { org: actor.organisationId });
     if (q.status?.length) qb.andWhere("w.status IN (:...statuses)", { statuses: q.status });
     if (q.type) qb.andWhere("w.type = :type", { type: q.type });
     if (q.assignee === "me") qb.andWhere("w.assignee_user_id = :me", { me: actor.id });
@@ -137,31 +157,57 @@ export class WorkOrderService {
     if (q.to) qb.andWhere("w.slot_date <= :to", { to: q.to });
     if (q.caseId) qb.andWhere("w.case_id = :caseId", { caseId: q.caseId });
     const dir = q.order === "desc" ? "DESC" : "ASC";
-    const column = { target: "w.target_date", slot: "w.slot_date", created: "w.created_at", priority: "FIELD(w.priority, 'emergency', 'urgent', 'routine')", type: "w.type", status: "FIELD(w.status, 'unscheduled', 'change-requested', 'scheduled', 'confirmed', 'done', 'cancelled')" }[q.sort];
-    if (q.sort === "slot") qb.orderBy("w.slot_date IS NULL", "ASC").addOrderBy("w.slot_date", dir).addOrderBy("FIELD(w.slot_window, 'am', 'all-day', 'pm')", "ASC");
+    const column = {
+      target: "w.target_date",
+      slot: "w.slot_date",
+      created: "w.created_at",
+      priority: "FIELD(w.priority, 'emergency', 'urgent', 'routine')",
+      type: "w.type",
+      status: "FIELD(w.status, 'unscheduled', 'change-requested', 'scheduled', 'confirmed', 'done', 'cancelled')",
+    }[q.sort];
+    if (q.sort === "slot")
+      qb.orderBy("w.slot_date IS NULL", "ASC")
+        .addOrderBy("w.slot_date", dir)
+        .addOrderBy("FIELD(w.slot_window, 'am', 'all-day', 'pm')", "ASC");
     else qb.orderBy(column, dir);
-    qb.addOrderBy("w.id", "ASC").skip((q.page - 1) * q.pageSize).take(q.pageSize);
+    qb.addOrderBy("w.id", "ASC")
+      .skip((q.page - 1) * q.pageSize)
+      .take(q.pageSize);
     const [items, total] = await qb.getManyAndCount();
     return { items, total };
   }
 
   /** Books (or re-books) the order into a slot for an operative or a contractor. */
-  async schedule(actor: Actor, id: number, input: { assigneeId?: number | null; contractorId?: number | null; slot: { date: string; window: SlotWindow } }): Promise<WorkOrder> {
+  async schedule(
+    actor: Actor,
+    id: number,
+    input: { assigneeId?: number | null; contractorId?: number | null; slot: { date: string; window: SlotWindow } },
+  ): Promise<WorkOrder> {
     const today = localDate(this.clock.now());
-    if (input.slot.date < today) throw new ValidationError("slot.date: choose today or a later day.", [{ field: "slot.date", message: "Choose today or a later day." }]);
+    if (input.slot.date < today)
+      throw new ValidationError("slot.date: choose today or a later day.", [
+        { field: "slot.date", message: "Choose today or a later day." },
+      ]);
     const deliveries: Deliveries = [];
     await this.dataSource.transaction(async (m) => {
       const wo = await this.getForActor(actor, id, m, true);
-      if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is ${wo.status}; it cannot be booked.`);
+      if (wo.status === "done" || wo.status === "cancelled")
+        throw new ConflictError(`This work order is ${wo.status}; it cannot be booked.`);
       const c = await this.cases.getForActor(actor, wo.caseId, m);
       let operative: Person | null = null;
       let contractor: Contractor | null = null;
       if (input.assigneeId) {
         operative = await this.users.findStaff(wo.organisationId, input.assigneeId, ["maintenance"], m);
-        if (!operative) throw new ValidationError("assigneeId: choose an active operative (a maintenance member of staff) of this landlord.", [{ field: "assigneeId", message: "Choose an active operative of this landlord." }]);
+        if (!operative)
+          throw new ValidationError("assigneeId: choose an active operative (a maintenance member of staff) of this landlord.", [
+            { field: "assigneeId", message: "Choose an active operative of this landlord." },
+          ]);
       } else if (input.contractorId) {
         contractor = await m.getRepository(Contractor).findOneBy({ id: input.contractorId, organisationId: wo.organisationId });
-        if (!contractor) throw new ValidationError("contractorId: choose one of this landlord's contractors.", [{ field: "contractorId", message: "Choose one of this landlord's contractors." }]);
+        if (!contractor)
+          throw new ValidationError("contractorId: choose one of this landlord's contractors.", [
+            { field: "contractorId", message: "Choose one of this landlord's contractors." },
+          ]);
       }
       // The old appointment is kept on record and frees its half-days.
       const bookings = m.getRepository(WorkOrderBooking);
@@ -171,14 +217,33 @@ export class WorkOrderService {
         await bookings.update(previous.id, { state: "replaced" });
       }
       const booking = await bookings.save(
-        bookings.create({ workOrderId: wo.id, assigneeUserId: operative?.id ?? null, contractorId: contractor?.id ?? null, slotDate: input.slot.date, slotWindow: input.slot.window, state: "active", createdById: actor.id }),
+        bookings.create({
+          workOrderId: wo.id,
+          assigneeUserId: operative?.id ?? null,
+          contractorId: contractor?.id ?? null,
+          slotDate: input.slot.date,
+          slotWindow: input.slot.window,
+          state: "active",
+          createdById: actor.id,
+        }),
       );
       if (operative) {
         try {
-          await m.getRepository(OperativeSlot).insert(halvesOf(input.slot.window).map((half) => ({ userId: operative!.id, slotDate: input.slot.date, half, bookingId: booking.id })));
+          await m.getRepository(OperativeSlot).insert(
+            halvesOf(input.slot.window).map((half) => ({
+              userId: operative!.id,
+              slotDate: input.slot.date,
+              half,
+              bookingId: booking.id,
+            })),
+          );
         } catch (error) {
           if (!isDuplicate(error)) throw error;
-          throw new AppError(409, "double_booked", `${operative.name} is already booked on ${describeSlot(input.slot.date, input.slot.window).replace(/, (morning|afternoon|all day).*$/, "")}, ${input.slot.window === "all-day" ? "for part of that day" : input.slot.window === "am" ? "morning" : "afternoon"}. Choose another slot or operative.`);
+          throw new AppError(
+            409,
+            "double_booked",
+            `${operative.name} is already booked on ${describeSlot(input.slot.date, input.slot.window).replace(/, (morning|afternoon|all day).*$/, "")}, ${input.slot.window === "all-day" ? "for part of that day" : input.slot.window === "am" ? "morning" : "afternoon"}. Choose another slot or operative.`,
+          );
         }
       }
       const sequence = wo.scheduleCount;
@@ -195,7 +260,14 @@ export class WorkOrderService {
         actorId: actor.id,
         type: "work-order-scheduled",
         before: previous ? { date: previous.slotDate, window: previous.slotWindow } : null,
-        after: { workOrderId: wo.id, date: input.slot.date, window: input.slot.window, assignee: operative?.name ?? null, contractor: contractor?.name ?? null, rescheduled: Boolean(previous) },
+        after: {
+          workOrderId: wo.id,
+          date: input.slot.date,
+          window: input.slot.window,
+          assignee: operative?.name ?? null,
+          contractor: contractor?.name ?? null,
+          rescheduled: Boolean(previous),
+        },
       });
       await this.moveCase(m, actor, c, "works-planned", "The works are booked.");
       const property = c.property!;
@@ -209,15 +281,43 @@ export class WorkOrderService {
         location: addressOf(property),
         organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
       });
-      const common = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords: describeSlot(input.slot.date, input.slot.window), address: addressOf(property), ics };
+      const common = {
+        reference: c.reference!,
+        workWords: WORK_WORDS[wo.type],
+        slotWords: describeSlot(input.slot.date, input.slot.window),
+        address: addressOf(property),
+        ics,
+      };
       if (c.tenantUserId !== null) {
         const tenant = await this.users.person(c.tenantUserId, m);
-        deliveries.push(await this.cases.queueMail(m, c, { to: tenant.email, template: "appointmentProposed", data: { ...common, name: tenant.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: false, accessNotes: null } }));
+        deliveries.push(
+          await this.cases.queueMail(m, c, {
+            to: tenant.email,
+            template: "appointmentProposed",
+            data: {
+              ...common,
+              name: tenant.name,
+              link: `${this.config.appUrl}/cases/${c.id}`,
+              forOperative: false,
+              accessNotes: null,
+            },
+          }),
+        );
       }
       const worker = operative ?? contractor;
       if (worker) {
         deliveries.push(
-          await this.cases.queueMail(m, c, { to: worker.email, template: "appointmentProposed", data: { ...common, name: worker.name, link: `${this.config.appUrl}/cases/${c.id}`, forOperative: true, accessNotes: await this.accessNotes(m, c) } }),
+          await this.cases.queueMail(m, c, {
+            to: worker.email,
+            template: "appointmentProposed",
+            data: {
+              ...common,
+              name: worker.name,
+              link: `${this.config.appUrl}/cases/${c.id}`,
+              forOperative: true,
+              accessNotes: await this.accessNotes(m, c),
+            },
+          }),
         );
       }
     });
@@ -237,9 +337,14 @@ export class WorkOrderService {
         throw new ConflictError("There is no appointment waiting for your answer on this work.");
       }
       const booking = await m.getRepository(WorkOrderBooking).findOneByOrFail({ workOrderId: wo.id, state: "active" });
-      if (input.response === "confirm" && wo.status === "change-requested") throw new ConflictError("You have asked for another time; your landlord will offer a new slot.");
+      if (input.response === "confirm" && wo.status === "change-requested")
+        throw new ConflictError("You have asked for another time; your landlord will offer a new slot.");
       const confirmed = input.response === "confirm";
-      await m.getRepository(WorkOrderBooking).update(booking.id, { tenantResponse: confirmed ? "confirmed" : "change-requested", tenantReason: input.reason ?? null, respondedAt: this.clock.now() });
+      await m.getRepository(WorkOrderBooking).update(booking.id, {
+        tenantResponse: confirmed ? "confirmed" : "change-requested",
+        tenantReason: input.reason ?? null,
+        respondedAt: this.clock.now(),
+      });
       await m.getRepository(WorkOrder).update(wo.id, { status: confirmed ? "confirmed" : "change-requested" });
       await this.cases.recordEvent(m, {
         caseId: c.id,
@@ -249,20 +354,67 @@ export class WorkOrderService {
       });
       const property = c.property!;
       const slotWords = describeSlot(wo.slotDate, wo.slotWindow);
-      const worker = wo.assigneeUserId ? await this.users.person(wo.assigneeUserId, m) : wo.contractorId ? await m.getRepository(Contractor).findOneByOrFail({ id: wo.contractorId }) : null;
+      const worker = wo.assigneeUserId
+        ? await this.users.person(wo.assigneeUserId, m)
+        : wo.contractorId
+          ? await m.getRepository(Contractor).findOneByOrFail({ id: wo.contractorId })
+          : null;
       const link = `${this.config.appUrl}/cases/${c.id}`;
       if (confirmed) {
-        const ics = appointmentIcs({ workOrderId: wo.id, sequence: Math.max(0, wo.scheduleCount - 1), date: wo.slotDate, window: wo.slotWindow, title: `${WORK_WORDS[wo.type]} (${c.reference})`, description: wo.description, location: addressOf(property), organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, "") });
-        const data = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords, address: addressOf(property), link, ics };
-        deliveries.push(await this.cases.queueMail(m, c, { to: actor.email, template: "appointmentConfirmed", data: { ...data, name: actor.name } }));
-        if (worker) deliveries.push(await this.cases.queueMail(m, c, { to: worker.email, template: "appointmentConfirmed", data: { ...data, name: worker.name } }));
+        const ics = appointmentIcs({
+          workOrderId: wo.id,
+          sequence: Math.max(0, wo.scheduleCount - 1),
+          date: wo.slotDate,
+          window: wo.slotWindow,
+          title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+          description: wo.description,
+          location: addressOf(property),
+          organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
+        });
+        const data = {
+          reference: c.reference!,
+          workWords: WORK_WORDS[wo.type],
+          slotWords,
+          address: addressOf(property),
+          link,
+          ics,
+        };
+        deliveries.push(
+          await this.cases.queueMail(m, c, {
+            to: actor.email,
+            template: "appointmentConfirmed",
+            data: { ...data, name: actor.name },
+          }),
+        );
+        if (worker)
+          deliveries.push(
+            await this.cases.queueMail(m, c, {
+              to: worker.email,
+              template: "appointmentConfirmed",
+              data: { ...data, name: worker.name },
+            }),
+          );
       } else {
         const lead = (await this.users.people([booking.createdById], m)).get(booking.createdById) ?? null;
         const to = new Map<string, string>();
         if (worker) to.set(worker.email, worker.name);
         if (lead) to.set(lead.email, lead.name);
         for (const [email, name] of to) {
-          deliveries.push(await this.cases.queueMail(m, c, { to: email, template: "appointmentChangeRequested", data: { name, reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords, address: addressOf(property), reason: input.reason!, link } }));
+          deliveries.push(
+            await this.cases.queueMail(m, c, {
+              to: email,
+              template: "appointmentChangeRequested",
+              data: {
+                name,
+                reference: c.reference!,
+                workWords: WORK_WORDS[wo.type],
+                slotWords,
+                address: addressOf(property),
+                reason: input.reason!,
+                link,
+              },
+            }),
+          );
         }
       }
     });
@@ -271,7 +423,11 @@ export class WorkOrderService {
   }
 
   /** Records what was done. The last open order of a case moves it to works-done and into monitoring. */
-  async complete(actor: Actor, id: number, input: { note: string; materials?: string; minutesOnSite?: number; followOn?: string }): Promise<WorkOrder> {
+  async complete(
+    actor: Actor,
+    id: number,
+    input: { note: string; materials?: string; minutesOnSite?: number; followOn?: string },
+  ): Promise<WorkOrder> {
     const deliveries: Deliveries = [];
     await this.dataSource.transaction(async (m) => {
       const wo = await this.getForActor(actor, id, m, true);
@@ -287,7 +443,12 @@ export class WorkOrderService {
         minutesOnSite: input.minutesOnSite ?? null,
         followOn: input.followOn ?? null,
       });
-      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "work-order-completed", after: { workOrderId: wo.id, note: input.note, followOn: input.followOn ?? null } });
+      await this.cases.recordEvent(m, {
+        caseId: c.id,
+        actorId: actor.id,
+        type: "work-order-completed",
+        after: { workOrderId: wo.id, note: input.note, followOn: input.followOn ?? null },
+      });
       const stillOpen = await m.getRepository(WorkOrder).countBy({ caseId: c.id, status: In([...OPEN_ORDER]) });
       if (stillOpen === 0) deliveries.push(...(await this.startMonitoring(m, actor, c, now)));
     });
@@ -307,17 +468,43 @@ export class WorkOrderService {
         await m.getRepository(WorkOrderBooking).update(booking.id, { state: "cancelled" });
       }
       await m.getRepository(WorkOrder).update(wo.id, { status: "cancelled" });
-      await this.cases.recordEvent(m, { caseId: wo.caseId, actorId: actor.id, type: "work-order-cancelled", after: { workOrderId: wo.id, reason } });
+      await this.cases.recordEvent(m, {
+        caseId: wo.caseId,
+        actorId: actor.id,
+        type: "work-order-cancelled",
+        after: { workOrderId: wo.id, reason },
+      });
       if (!booking) return;
       const c = await this.cases.getForActor(actor, wo.caseId, m);
       const property = c.property!;
-      const ics = appointmentIcs({ workOrderId: wo.id, sequence: wo.scheduleCount, date: booking.slotDate, window: booking.slotWindow, title: `${WORK_WORDS[wo.type]} (${c.reference})`, description: wo.description, location: addressOf(property), organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""), cancelled: true });
-      const data = { reference: c.reference!, workWords: WORK_WORDS[wo.type], slotWords: describeSlot(booking.slotDate, booking.slotWindow), address: addressOf(property), reason, link: `${this.config.appUrl}/cases/${c.id}`, ics };
+      const ics = appointmentIcs({
+        workOrderId: wo.id,
+        sequence: wo.scheduleCount,
+        date: booking.slotDate,
+        window: booking.slotWindow,
+        title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+        description: wo.description,
+        location: addressOf(property),
+        organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
+        cancelled: true,
+      });
+      const data = {
+        reference: c.reference!,
+        workWords: WORK_WORDS[wo.type],
+        slotWords: describeSlot(booking.slotDate, booking.slotWindow),
+        address: addressOf(property),
+        reason,
+        link: `${this.config.appUrl}/cases/${c.id}`,
+        ics,
+      };
       const people: { email: string; name: string }[] = [];
       if (c.tenantUserId !== null) people.push(await this.users.person(c.tenantUserId, m));
       if (booking.assigneeUserId) people.push(await this.users.person(booking.assigneeUserId, m));
       else if (booking.contractorId) people.push(await m.getRepository(Contractor).findOneByOrFail({ id: booking.contractorId }));
-      for (const p of people) deliveries.push(await this.cases.queueMail(m, c, { to: p.email, template: "appointmentCancelled", data: { ...data, name: p.name } }));
+      for (const p of people)
+        deliveries.push(
+          await this.cases.queueMail(m, c, { to: p.email, template: "appointmentCancelled", data: { ...data, name: p.name } }),
+        );
     });
     for (const d of deliveries) await d();
     return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
@@ -332,11 +519,34 @@ export class WorkOrderService {
     const endsAt = new Date(now.getTime() + monitoringDays * DAY_MS);
     await this.cases.startMonitoringPeriod(m, c.id, now, endsAt);
     await this.moveCase(m, actor, c, "monitoring", `Checking the fix with readings for ${monitoringDays} days.`);
-    await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "monitoring-started", after: { worksDoneAt: now.toISOString(), endsAt: endsAt.toISOString(), days: monitoringDays } });
+    await this.cases.recordEvent(m, {
+      caseId: c.id,
+      actorId: actor.id,
+      type: "monitoring-started",
+      after: { worksDoneAt: now.toISOString(), endsAt: endsAt.toISOString(), days: monitoringDays },
+    });
     if (c.tenantUserId === null) return [];
     const tenant = await this.users.person(c.tenantUserId, m);
-    const endsOn = endsAt.toLocaleDateString("en-GB", { weekday: "long", day: "numeric", month: "long", year: "numeric", timeZone: "Europe/London" });
-    return [await this.cases.queueMail(m, c, { to: tenant.email, template: "monitoringStarted", data: { name: tenant.name, reference: c.reference!, days: monitoringDays, endsOn, link: `${this.config.appUrl}/cases/${c.id}` } })];
+    const endsOn = endsAt.toLocaleDateString("en-GB", {
+      weekday: "long",
+      day: "numeric",
+      month: "long",
+      year: "numeric",
+      timeZone: "Europe/London",
+    });
+    return [
+      await this.cases.queueMail(m, c, {
+        to: tenant.email,
+        template: "monitoringStarted",
+        data: {
+          name: tenant.name,
+          reference: c.reference!,
+          days: monitoringDays,
+          endsOn,
+          link: `${this.config.appUrl}/cases/${c.id}`,
+        },
+      }),
+    ];
   }
 
   /** Moves the case along the workflow when it can and is not there yet (c.status is kept current). */
@@ -356,7 +566,9 @@ export class WorkOrderService {
   async bookingsOf(ids: number[]): Promise<Map<number, WorkOrderBooking[]>> {
     const out = new Map<number, WorkOrderBooking[]>();
     if (!ids.length) return out;
-    for (const b of await this.dataSource.getRepository(WorkOrderBooking).find({ where: { workOrderId: In(ids) }, order: { id: "ASC" } })) {
+    for (const b of await this.dataSource
+      .getRepository(WorkOrderBooking)
+      .find({ where: { workOrderId: In(ids) }, order: { id: "ASC" } })) {
       out.set(b.workOrderId, [...(out.get(b.workOrderId) ?? []), b]);
     }
     return out;
@@ -368,10 +580,22 @@ export class WorkOrderService {
     const cases = await this.cases.findByIds(caseIds);
     const bookings = await this.bookingsOf(orders.map((o) => o.id));
     const allBookings = [...bookings.values()].flat();
-    const userIds = [...new Set([...orders.flatMap((o) => [o.assigneeUserId, o.completedById]), ...allBookings.map((b) => b.assigneeUserId)].filter((v): v is number => v !== null))];
+    const userIds = [
+      ...new Set(
+        [...orders.flatMap((o) => [o.assigneeUserId, o.completedById]), ...allBookings.map((b) => b.assigneeUserId)].filter(
+          (v): v is number => v !== null,
+        ),
+      ),
+    ];
     const users = await this.users.people(userIds);
-    const contractorIds = [...new Set([...orders.map((o) => o.contractorId), ...allBookings.map((b) => b.contractorId)].filter((v): v is number => v !== null))];
-    const contractors = contractorIds.length ? await this.dataSource.getRepository(Contractor).findBy({ id: In(contractorIds) }) : [];
+    const contractorIds = [
+      ...new Set(
+        [...orders.map((o) => o.contractorId), ...allBookings.map((b) => b.contractorId)].filter((v): v is number => v !== null),
+      ),
+    ];
+    const contractors = contractorIds.length
+      ? await this.dataSource.getRepository(Contractor).findBy({ id: In(contractorIds) })
+      : [];
     const accessNotes = new Map<number, string | null>();
     for (const c of cases) accessNotes.set(c.id, await this.accessNotes(this.dataSource.manager, c));
     return {
@@ -384,12 +608,22 @@ export class WorkOrderService {
   }
 
   async contractors(actor: Actor): Promise<Contractor[]> {
-    return this.dataSource.getRepository(Contractor).find({ where: { organisationId: actor.organisationId }, order: { name: "ASC" } });
+    return this.dataSource
+      .getRepository(Contractor)
+      .find({ where: { organisationId: actor.organisationId }, order: { name: "ASC" } });
   }
 
   async addContractor(actor: Actor, input: { name: string; email: string; phone?: string; trade?: string }): Promise<Contractor> {
     const repo = this.dataSource.getRepository(Contractor);
-    return repo.save(repo.create({ organisationId: actor.organisationId, name: input.name, email: input.email, phone: input.phone ?? null, trade: input.trade ?? null }));
+    return repo.save(
+      repo.create({
+        organisationId: actor.organisationId,
+        name: input.name,
+        email: input.email,
+        phone: input.phone ?? null,
+        trade: input.trade ?? null,
+      }),
+    );
   }
 
   propertyOf(c: Case): Property {

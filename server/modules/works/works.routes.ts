@@ -1,6 +1,11 @@
 import { Router } from "express";
 import { photoListResponse } from "../../../src/lib/contracts/photos.js";
-import { caseWorkOrdersResponse, contractorListResponse, verificationResponse, workOrderPageResponse } from "../../../src/lib/contracts/works.js";
+import {
+  caseWorkOrdersResponse,
+  contractorListResponse,
+  verificationResponse,
+  workOrderPageResponse,
+} from "../../../src/lib/contracts/works.js";
 import { shaped } from "../../lib/contract.js";
 import multer from "multer";
 import { parse } from "../../lib/validation.js";
@@ -14,7 +19,14 @@ import type { VerificationService } from "./verification.service.js";
 import type { WorkOrder } from "./work-order.entity.js";
 import { toContractorDto, toWorkOrderDto } from "./work-order.mapper.js";
 import type { WorkOrderService } from "./work-order.service.js";
-import { bookingResponseSchema, contractorSchema, verificationOutcomeSchema, workOrderCreateSchema, workOrderListQuerySchema, workOrderPatchSchema } from "./works.schemas.js";
+import {
+  bookingResponseSchema,
+  contractorSchema,
+  verificationOutcomeSchema,
+  workOrderCreateSchema,
+  workOrderListQuerySchema,
+  workOrderPatchSchema,
+} from "./works.schemas.js";
 
 interface Deps {
   works: WorkOrderService;
@@ -39,7 +51,9 @@ export function createCaseWorksRouter({ works, verification }: Deps): Router {
   });
   router.get("/:id/work-orders", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json(shaped(caseWorkOrdersResponse, { workOrders: await dtos(works, await works.listForCase(actorOf(req), id), actorOf(req)) }));
+    res.json(
+      shaped(caseWorkOrdersResponse, { workOrders: await dtos(works, await works.listForCase(actorOf(req), id), actorOf(req)) }),
+    );
   });
   router.get("/:id/verification", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
@@ -56,19 +70,34 @@ export function createCaseWorksRouter({ works, verification }: Deps): Router {
 /** `/api/work-orders`: the maintenance lead's list, scheduling, completion, photos and the tenant's answer. */
 export function createWorkOrdersRouter({ works, photos }: Deps): Router {
   const router = Router();
-  const photoUpload = multer({ dest: uploadTmpDir, limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 } }).array("photos", MAX_PHOTOS_PER_UPLOAD);
+  const photoUpload = multer({
+    dest: uploadTmpDir,
+    limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 },
+  }).array("photos", MAX_PHOTOS_PER_UPLOAD);
 
   router.get("/", requireStaff, async (req, res) => {
     const query = parse(workOrderListQuerySchema, req.query, "query");
     const { items, total } = await works.list(actorOf(req), query);
-    res.json(shaped(workOrderPageResponse, { items: await dtos(works, items, actorOf(req)), total, page: query.page, pageSize: query.pageSize }));
+    res.json(
+      shaped(workOrderPageResponse, {
+        items: await dtos(works, items, actorOf(req)),
+        total,
+        page: query.page,
+        pageSize: query.pageSize,
+      }),
+    );
   });
 
   router.patch("/:id", leads, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const patch = parse(workOrderPatchSchema, req.body);
     const actor = actorOf(req);
-    const updated = "complete" in patch ? await works.complete(actor, id, patch.complete) : "cancel" in patch ? await works.cancel(actor, id, patch.cancel.reason) : await works.schedule(actor, id, patch);
+    const updated =
+      "complete" in patch
+        ? await works.complete(actor, id, patch.complete)
+        : "cancel" in patch
+          ? await works.cancel(actor, id, patch.cancel.reason)
+          : await works.schedule(actor, id, patch);
     res.json((await dtos(works, [updated], actor))[0]);
   });
 

@@ -5,7 +5,10 @@ const isoDate = (field: string) =>
   z
     .string({ error: `${field} must be a date, YYYY-MM-DD.` })
     .regex(/^\d{4}-\d{2}-\d{2}$/, `${field} must be a date, YYYY-MM-DD.`)
-    .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), `${field} is not a real date.`);
+    .refine(
+      (s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s),
+      `${field} is not a real date.`,
+    );
 
 export const workOrderCreateSchema = z
   .object({
@@ -31,14 +34,21 @@ export const workOrderPatchSchema = z.union([
       slot: slotSchema,
     })
     .strict()
-    .refine((p) => (p.assigneeId ?? null) !== null || (p.contractorId ?? null) !== null, { message: "Choose an operative (assigneeId) or a contractor (contractorId)." }),
+    .refine((p) => (p.assigneeId ?? null) !== null || (p.contractorId ?? null) !== null, {
+      message: "Choose an operative (assigneeId) or a contractor (contractorId).",
+    }),
   z
     .object({
       complete: z
         .object({
           note: z.string({ error: "Say what was done." }).trim().min(5, "Say what was done, in a sentence.").max(8000),
           materials: z.string().trim().max(4000).optional(),
-          minutesOnSite: z.number({ error: "minutesOnSite must be a number of minutes." }).int().min(1).max(24 * 60 * 5).optional(),
+          minutesOnSite: z
+            .number({ error: "minutesOnSite must be a number of minutes." })
+            .int()
+            .min(1)
+            .max(24 * 60 * 5)
+            .optional(),
           followOn: z.string().trim().max(4000).optional(),
         })
         .strict(),
@@ -54,7 +64,10 @@ export const bookingResponseSchema = z
     reason: z.string().trim().min(3, "Tell us which days or times suit you better.").max(2000).optional(),
   })
   .strict()
-  .refine((b) => b.response === "confirm" || b.reason !== undefined, { path: ["reason"], message: "Tell us which days or times suit you better." });
+  .refine((b) => b.response === "confirm" || b.reason !== undefined, {
+    path: ["reason"],
+    message: "Tell us which days or times suit you better.",
+  });
 
 export const WORK_ORDER_SORTS = ["target", "slot", "created", "priority", "type", "status"] as const;
 export const workOrderListQuerySchema = z.object({
@@ -62,17 +75,31 @@ export const workOrderListQuerySchema = z.object({
     .string()
     .trim()
     .transform((raw, ctx) => {
-      const values = [...new Set(raw.split(",").map((v) => v.trim()).filter(Boolean))];
+      const values = [
+        ...new Set(
+          raw
+            .split(",")
+            .map((v) => v.trim())
+            .filter(Boolean),
+        ),
+      ];
       const strange = values.filter((v) => !(WORK_ORDER_STATUSES as readonly string[]).includes(v));
       if (strange.length) {
-        ctx.addIssue({ code: "custom", message: `status: ${strange.join(", ")} is not one of ${WORK_ORDER_STATUSES.join(", ")}.` });
+        ctx.addIssue({
+          code: "custom",
+          message: `status: ${strange.join(", ")} is not one of ${WORK_ORDER_STATUSES.join(", ")}.`,
+        });
         return z.NEVER;
       }
       return values as (typeof WORK_ORDER_STATUSES)[number][];
     })
     .optional(),
   type: z.enum(WORK_ORDER_TYPES, { error: `type must be one of ${WORK_ORDER_TYPES.join(", ")}.` }).optional(),
-  assignee: z.string().trim().regex(/^(me|unassigned|[1-9]\d*)$/, "assignee must be me, unassigned or a user id.").optional(),
+  assignee: z
+    .string()
+    .trim()
+    .regex(/^(me|unassigned|[1-9]\d*)$/, "assignee must be me, unassigned or a user id.")
+    .optional(),
   from: isoDate("from").optional(),
   to: isoDate("to").optional(),
   caseId: z.coerce.number().int().positive().optional(),

@@ -7,7 +7,8 @@ import { ApiError, errorMessage } from "@/lib/api-client";
 import { NotFound } from "./not-found";
 
 /** A failed chunk download after a new release reads like this in the main browsers. */
-const isStaleChunk = (e: unknown) => e instanceof Error && /dynamically imported module|Importing a module script failed|error loading dynamically/i.test(e.message);
+const isStaleChunk = (e: unknown) =>
+  e instanceof Error && /dynamically imported module|Importing a module script failed|error loading dynamically/i.test(e.message);
 
 /**
  * The errorElement of every route: a readable message instead of a blank screen, a way to try
@@ -21,7 +22,8 @@ export function RouteError() {
   let message = "Something went wrong while showing this page. Please try again.";
   if (error instanceof ApiError) message = errorMessage(error);
   else if (isStaleChunk(error)) message = "Dewline has been updated since you opened it. Reload the page to get the new version.";
-  else if (isRouteErrorResponse(error)) message = typeof error.data === "string" && error.data ? error.data : error.statusText || message;
+  else if (isRouteErrorResponse(error))
+    message = typeof error.data === "string" && error.data ? error.data : error.statusText || message;
 
   if (import.meta.env.DEV && error instanceof Error) console.error(error);
 

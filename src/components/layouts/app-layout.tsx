@@ -74,7 +74,11 @@ export function AppLayout({ variant, userName, roleLabel, homePath, nav, onSignO
           </div>
         </div>
       </header>
-      <main id="main" tabIndex={-1} className={cn("mx-auto w-full flex-1 px-4 focus:outline-none", width, staff ? "py-5" : "py-6 sm:py-8")}>
+      <main
+        id="main"
+        tabIndex={-1}
+        className={cn("mx-auto w-full flex-1 px-4 focus:outline-none", width, staff ? "py-5" : "py-6 sm:py-8")}
+      >
         {children}
       </main>
       <footer className="border-t border-line">

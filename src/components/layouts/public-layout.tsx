@@ -24,7 +24,9 @@ export function PublicLayout({ headerAction, wide = false, children }: PublicLay
           <Link to="/" className="rounded-md text-paper no-underline" aria-label="Dewline, go to the start page">
             <Wordmark markClassName="text-dew-300 [--logo-glint:var(--color-ink)]" />
           </Link>
-          {headerAction ? <div className="[&_a]:font-semibold [&_a]:text-mist [&_a]:underline [&_a:hover]:text-paper">{headerAction}</div> : null}
+          {headerAction ? (
+            <div className="[&_a]:font-semibold [&_a]:text-mist [&_a]:underline [&_a:hover]:text-paper">{headerAction}</div>
+          ) : null}
         </div>
       </header>
       <main id="main" tabIndex={-1} className={cn("mx-auto w-full flex-1 px-4 py-8 focus:outline-none", width)}>

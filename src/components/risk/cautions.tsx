@@ -23,27 +23,28 @@ export function SafetyCautions({ headingLevel = 2, className }: SafetyCautionsPr
         </Heading>
         <ul className="mt-2 list-disc space-y-2 pl-5">
           <li>
-            <strong>Do not heat a room with an oven or a gas hob</strong>, or with a gas or paraffin heater that has no flue. They can
-            give off carbon monoxide, a poisonous gas you cannot see or smell, and they can start a fire.
+            <strong>Do not heat a room with an oven or a gas hob</strong>, or with a gas or paraffin heater that has no flue. They
+            can give off carbon monoxide, a poisonous gas you cannot see or smell, and they can start a fire.
           </li>
           <li>
-            <strong>If you clean mould</strong>, wear rubber gloves, a mask and eye protection, and keep a window open while you work and
-            for a while after.
+            <strong>If you clean mould</strong>, wear rubber gloves, a mask and eye protection, and keep a window open while you
+            work and for a while after.
           </li>
           <li>
-            <strong>Some people should not clean mould at all:</strong> anyone with asthma, allergies or a weakened immune system, anyone
-            who is pregnant, and children. Ask someone else to do it, or ask your landlord.
+            <strong>Some people should not clean mould at all:</strong> anyone with asthma, allergies or a weakened immune system,
+            anyone who is pregnant, and children. Ask someone else to do it, or ask your landlord.
           </li>
           <li>
-            <strong>Bleach is not a fix.</strong> It can fade the marks for a while, but the damp that feeds mould is still there, and
-            the mould comes back.
+            <strong>Bleach is not a fix.</strong> It can fade the marks for a while, but the damp that feeds mould is still there,
+            and the mould comes back.
           </li>
           <li>
             <strong>Keep vents clear.</strong> Blocking vents or air bricks to stop draughts traps moist air indoors.
           </li>
           <li>
-            <strong>Fans, heaters and boilers are jobs for qualified trades.</strong> Fitting or repairing them is electrical or gas
-            work: it needs a qualified electrician or a registered gas engineer, and must follow your local building and safety rules.
+            <strong>Fans, heaters and boilers are jobs for qualified trades.</strong> Fitting or repairing them is electrical or
+            gas work: it needs a qualified electrician or a registered gas engineer, and must follow your local building and
+            safety rules.
           </li>
         </ul>
       </section>
@@ -52,15 +53,17 @@ export function SafetyCautions({ headingLevel = 2, className }: SafetyCautionsPr
         <Heading id={helpsId} className={headingClass}>
           Things that often help a home stay drier
         </Heading>
-        <p className="mt-1 text-ink-soft">Common practice, not a cure: if damp or mould keeps coming back, the cause needs finding.</p>
+        <p className="mt-1 text-ink-soft">
+          Common practice, not a cure: if damp or mould keeps coming back, the cause needs finding.
+        </p>
         <ul className="mt-2 list-disc space-y-2 pl-5">
           <li>Trickle vents in window frames and air bricks in walls work best left open.</li>
           <li>Extractor fans do most good running while cooking or bathing, and for a while afterwards.</li>
           <li>A home kept at a steady, low warmth tends to stay drier than one left unheated.</li>
           <li>Condensation wiped off windows and sills in the morning has less time to soak in.</li>
           <li>
-            Mould on a surface that is not cold, or that is damp without condensation, can mean a leak, or damp coming through a wall
-            or up from the ground. Finding that is a job for a surveyor.
+            Mould on a surface that is not cold, or that is damp without condensation, can mean a leak, or damp coming through a
+            wall or up from the ground. Finding that is a job for a surveyor.
           </li>
         </ul>
       </section>
@@ -77,8 +80,8 @@ export function ReportStillMatters({ className }: { className?: string }) {
         <path d="M8 9h8M8 12h5" stroke="currentColor" strokeWidth="2" strokeLinecap="round" />
       </svg>
       <p>
-        <strong>Whatever these numbers say, if you see damp or mould, tell your landlord.</strong> They must look into it and find the
-        cause.
+        <strong>Whatever these numbers say, if you see damp or mould, tell your landlord.</strong> They must look into it and find
+        the cause.
       </p>
     </div>
   );

@@ -34,7 +34,11 @@ export function RiskPanel({ result, title, headingLevel = 2, compact = false, cl
   return (
     <Tag
       aria-labelledby={title ? headingId : undefined}
-      className={cn("flex flex-col rounded-lg border border-line bg-surface shadow-card", compact ? "gap-3 p-3" : "gap-4 p-4 sm:p-5", className)}
+      className={cn(
+        "flex flex-col rounded-lg border border-line bg-surface shadow-card",
+        compact ? "gap-3 p-3" : "gap-4 p-4 sm:p-5",
+        className,
+      )}
     >
       {title ? (
         <Heading id={headingId} className={cn("font-bold text-ink", headingLevel === 2 ? "text-xl" : "text-lg")}>
@@ -42,7 +46,13 @@ export function RiskPanel({ result, title, headingLevel = 2, compact = false, cl
         </Heading>
       ) : null}
 
-      <div className={cn("flex items-start gap-3 rounded-md border-2", compact ? "px-3 py-2" : "px-4 py-3", badgeTones[surface.state])}>
+      <div
+        className={cn(
+          "flex items-start gap-3 rounded-md border-2",
+          compact ? "px-3 py-2" : "px-4 py-3",
+          badgeTones[surface.state],
+        )}
+      >
         <StateIcon state={surface.state} className={cn("shrink-0", compact ? "size-6" : "size-8")} />
         <div className="flex flex-col gap-0.5">
           <p className={cn("font-bold", compact ? "text-base" : "text-lg")}>
@@ -54,12 +64,18 @@ export function RiskPanel({ result, title, headingLevel = 2, compact = false, cl
       </div>
       {compact ? null : <p className="text-ink-soft">{state.explanation}</p>}
 
-      <dl className={cn("grid gap-x-4", compact ? "grid-cols-1 gap-y-1 text-sm sm:grid-cols-2" : "grid-cols-1 gap-y-3 sm:grid-cols-2")}>
+      <dl
+        className={cn(
+          "grid gap-x-4",
+          compact ? "grid-cols-1 gap-y-1 text-sm sm:grid-cols-2" : "grid-cols-1 gap-y-3 sm:grid-cols-2",
+        )}
+      >
         <Figure term="Dew point" value={celsius(result.dewPointC)}>
           {compact ? null : "Any surface colder than this gets wet."}
         </Figure>
         <Figure term="Surface temperature" value={celsius(surface.temperatureC)}>
-          {capitalise(SURFACE_SOURCE_LABELS[surface.source])}. {compact ? null : dewPointGap(surface.temperatureC, result.dewPointC)}
+          {capitalise(SURFACE_SOURCE_LABELS[surface.source])}.{" "}
+          {compact ? null : dewPointGap(surface.temperatureC, result.dewPointC)}
         </Figure>
         <Figure term="Relative humidity at the surface" value={surfaceHumidity(surface)}>
           {surface.relativeHumidityPct >= 100 ? "Saturated: the air at the surface can hold no more water." : null}
@@ -176,7 +192,14 @@ function StateIcon({ state, className }: { state: SurfaceState; className?: stri
       return (
         <svg {...common}>
           <circle cx="16" cy="16" r="12" fill="none" stroke="currentColor" strokeWidth="2.5" />
-          <path d="m10 16.5 4 4 8-9" fill="none" stroke="currentColor" strokeWidth="3" strokeLinecap="round" strokeLinejoin="round" />
+          <path
+            d="m10 16.5 4 4 8-9"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth="3"
+            strokeLinecap="round"
+            strokeLinejoin="round"
+          />
         </svg>
       );
   }

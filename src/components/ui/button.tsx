@@ -34,7 +34,16 @@ export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   ref?: Ref<HTMLButtonElement>;
 }
 
-export function Button({ variant = "primary", size = "md", busy = false, className, children, disabled, type = "button", ...props }: ButtonProps) {
+export function Button({
+  variant = "primary",
+  size = "md",
+  busy = false,
+  className,
+  children,
+  disabled,
+  type = "button",
+  ...props
+}: ButtonProps) {
   return (
     <button
       type={type}

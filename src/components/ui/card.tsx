@@ -15,7 +15,12 @@ export function Panel({ title, headingLevel = 2, actions, as: Tag = "section", c
   const headingId = title && id ? `${id}-heading` : undefined;
   const Heading = headingLevel === 2 ? "h2" : "h3";
   return (
-    <Tag id={id} aria-labelledby={headingId} className={cn("rounded-lg border border-line bg-surface p-4 shadow-card sm:p-5", className)} {...props}>
+    <Tag
+      id={id}
+      aria-labelledby={headingId}
+      className={cn("rounded-lg border border-line bg-surface p-4 shadow-card sm:p-5", className)}
+      {...props}
+    >
       {title || actions ? (
         <div className="mb-3 flex flex-wrap items-start justify-between gap-2">
           {title ? (

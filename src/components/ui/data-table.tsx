@@ -27,7 +27,12 @@ import { Spinner } from "./spinner";
  * Sorting (on the server too), column hiding and row selection are there for the tables that ask
  * for them in useServerTable; a table that does not gets none of them.
  */
-export const dataTableFeatures = tableFeatures({ rowPaginationFeature, rowSortingFeature, columnVisibilityFeature, rowSelectionFeature });
+export const dataTableFeatures = tableFeatures({
+  rowPaginationFeature,
+  rowSortingFeature,
+  columnVisibilityFeature,
+  rowSelectionFeature,
+});
 export type DataTableFeatures = typeof dataTableFeatures;
 export type DataTableInstance<Row extends RowData> = ReactTable<DataTableFeatures, Row>;
 
@@ -56,7 +61,8 @@ interface UseServerTableOptions<Row extends RowData> {
   onRowSelectionChange?: (next: RowSelectionState) => void;
 }
 
-const resolve = <T,>(updater: Updater<T>, current: T): T => (typeof updater === "function" ? (updater as (old: T) => T)(current) : updater);
+const resolve = <T,>(updater: Updater<T>, current: T): T =>
+  typeof updater === "function" ? (updater as (old: T) => T)(current) : updater;
 
 /** A v9 table with manual (server-side) pagination whose page state is owned by the caller (the URL). */
 export function useServerTable<Row extends RowData>({
@@ -95,9 +101,14 @@ export function useServerTable<Row extends RowData>({
     onPaginationChange: (updater: Updater<PaginationState>) => {
       onPaginationChange(resolve(updater, pagination));
     },
-    ...(sorting && onSortingChange ? { onSortingChange: (updater: Updater<SortingState>) => onSortingChange(resolve(updater, sorting)) } : {}),
+    ...(sorting && onSortingChange
+      ? { onSortingChange: (updater: Updater<SortingState>) => onSortingChange(resolve(updater, sorting)) }
+      : {}),
     ...(columnVisibility && onColumnVisibilityChange
-      ? { onColumnVisibilityChange: (updater: Updater<ColumnVisibilityState>) => onColumnVisibilityChange(resolve(updater, columnVisibility)) }
+      ? {
+          onColumnVisibilityChange: (updater: Updater<ColumnVisibilityState>) =>
+            onColumnVisibilityChange(resolve(updater, columnVisibility)),
+        }
       : {}),
     ...(rowSelection && onRowSelectionChange
       ? { onRowSelectionChange: (updater: Updater<RowSelectionState>) => onRowSelectionChange(resolve(updater, rowSelection)) }
@@ -147,8 +158,20 @@ export function SortButton({ column, children }: { column: SortableColumn; child
     >
       {children}
       <svg viewBox="0 0 12 16" className={cn("size-3.5 shrink-0", sorted ? "text-ink" : "text-ink-soft")} aria-hidden="true">
-        <path d="M6 2 10 6.5H2z" fill={sorted === "asc" ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.2" strokeLinejoin="round" />
-        <path d="M6 14 2 9.5h8z" fill={sorted === "desc" ? "currentColor" : "none"} stroke="currentColor" strokeWidth="1.2" strokeLinejoin="round" />
+        <path
+          d="M6 2 10 6.5H2z"
+          fill={sorted === "asc" ? "currentColor" : "none"}
+          stroke="currentColor"
+          strokeWidth="1.2"
+          strokeLinejoin="round"
+        />
+        <path
+          d="M6 14 2 9.5h8z"
+          fill={sorted === "desc" ? "currentColor" : "none"}
+          stroke="currentColor"
+          strokeWidth="1.2"
+          strokeLinejoin="round"
+        />
       </svg>
     </button>
   );
@@ -215,7 +238,12 @@ export function DataTable<Row extends RowData>({
       const detail = renderDetail?.(row.original);
       return (
         <Fragment key={row.id}>
-          <tr className={cn("border-t border-line even:bg-paper/60 hover:bg-dew-50", row.getIsSelected() && "bg-dew-50 even:bg-dew-50")}>
+          <tr
+            className={cn(
+              "border-t border-line even:bg-paper/60 hover:bg-dew-50",
+              row.getIsSelected() && "bg-dew-50 even:bg-dew-50",
+            )}
+          >
             {row.getVisibleCells().map((cell) => (
               <td key={cell.id} className="px-3 py-2 align-top">
                 <table.FlexRender cell={cell} />
@@ -314,7 +342,12 @@ function Pagination<Row extends RowData>({ table, noun, pageSizeOptions, fetchin
             </option>
           ))}
         </select>
-        <Button size="sm" variant="secondary" onClick={() => table.previousPage()} disabled={disabled || !table.getCanPreviousPage()}>
+        <Button
+          size="sm"
+          variant="secondary"
+          onClick={() => table.previousPage()}
+          disabled={disabled || !table.getCanPreviousPage()}
+        >
           <span aria-hidden="true">‹</span> Previous page
         </Button>
         <span className="px-1 whitespace-nowrap">

@@ -1,4 +1,11 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from "react";
+import {
+  useId,
+  type InputHTMLAttributes,
+  type ReactNode,
+  type Ref,
+  type SelectHTMLAttributes,
+  type TextareaHTMLAttributes,
+} from "react";
 import { cn } from "@/lib/cn";
 
 /** Classes shared by every text-like control, so inputs, selects and text areas line up. */
@@ -64,7 +71,15 @@ export function Input({ label, hint, error, hideLabel, optional, className, cont
   const autoId = useId();
   const inputId = id ?? autoId;
   return (
-    <FieldShell id={inputId} label={label} hint={hint} error={error} hideLabel={hideLabel} optional={optional} className={className}>
+    <FieldShell
+      id={inputId}
+      label={label}
+      hint={hint}
+      error={error}
+      hideLabel={hideLabel}
+      optional={optional}
+      className={className}
+    >
       <input
         ref={ref}
         id={inputId}
@@ -81,11 +96,31 @@ export interface SelectProps extends CommonFieldProps, Omit<SelectHTMLAttributes
   ref?: Ref<HTMLSelectElement>;
 }
 
-export function Select({ label, hint, error, hideLabel, optional, className, controlClassName, id, ref, children, ...props }: SelectProps) {
+export function Select({
+  label,
+  hint,
+  error,
+  hideLabel,
+  optional,
+  className,
+  controlClassName,
+  id,
+  ref,
+  children,
+  ...props
+}: SelectProps) {
   const autoId = useId();
   const selectId = id ?? autoId;
   return (
-    <FieldShell id={selectId} label={label} hint={hint} error={error} hideLabel={hideLabel} optional={optional} className={className}>
+    <FieldShell
+      id={selectId}
+      label={label}
+      hint={hint}
+      error={error}
+      hideLabel={hideLabel}
+      optional={optional}
+      className={className}
+    >
       <select
         ref={ref}
         id={selectId}
@@ -104,11 +139,31 @@ export interface TextareaProps extends CommonFieldProps, Omit<TextareaHTMLAttrib
   ref?: Ref<HTMLTextAreaElement>;
 }
 
-export function Textarea({ label, hint, error, hideLabel, optional, className, controlClassName, id, ref, rows = 3, ...props }: TextareaProps) {
+export function Textarea({
+  label,
+  hint,
+  error,
+  hideLabel,
+  optional,
+  className,
+  controlClassName,
+  id,
+  ref,
+  rows = 3,
+  ...props
+}: TextareaProps) {
   const autoId = useId();
   const textareaId = id ?? autoId;
   return (
-    <FieldShell id={textareaId} label={label} hint={hint} error={error} hideLabel={hideLabel} optional={optional} className={className}>
+    <FieldShell
+      id={textareaId}
+      label={label}
+      hint={hint}
+      error={error}
+      hideLabel={hideLabel}
+      optional={optional}
+      className={className}
+    >
       <textarea
         ref={ref}
         id={textareaId}

@@ -27,7 +27,18 @@ const optionRow =
   "hover:bg-dew-50 has-[:checked]:border-2 has-[:checked]:border-dew-700 has-[:checked]:bg-dew-50";
 
 /** A fieldset of radio buttons whose legend names the group; hint and error are read with it. */
-export function RadioGroup<V extends string>({ legend, hint, error, options, value, onChange, inputRef, disabled, columns = 1, className }: RadioGroupProps<V>) {
+export function RadioGroup<V extends string>({
+  legend,
+  hint,
+  error,
+  options,
+  value,
+  onChange,
+  inputRef,
+  disabled,
+  columns = 1,
+  className,
+}: RadioGroupProps<V>) {
   const cols = columns === true ? 2 : columns === false ? 1 : columns;
   const id = useId();
   const describedBy = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean).join(" ") || undefined;

@@ -37,7 +37,12 @@ export const EMPTY_FORM: CalculatorFormValues = {
 };
 
 /** 19 °C, 78 % and a window pane at 9 °C: a bedroom on a cold morning. */
-export const EXAMPLE_FORM: CalculatorFormValues = { ...EMPTY_FORM, airTemperatureC: "19", relativeHumidityPct: "78", surfaceTemperatureC: "9" };
+export const EXAMPLE_FORM: CalculatorFormValues = {
+  ...EMPTY_FORM,
+  airTemperatureC: "19",
+  relativeHumidityPct: "78",
+  surfaceTemperatureC: "9",
+};
 
 export const FIELD_LABELS: Record<CalculatorField, string> = {
   airTemperatureC: "Room temperature",

@@ -30,7 +30,9 @@ export const staffStatusLabels: Record<CaseStatus, string> = {
 export type Audience = "tenant" | "staff";
 
 export function statusLabelFor(audience: Audience): (status: string) => string {
-  return audience === "staff" ? (status) => (staffStatusLabels as Record<string, string>)[status] ?? humanise(status) : statusLabel;
+  return audience === "staff"
+    ? (status) => (staffStatusLabels as Record<string, string>)[status] ?? humanise(status)
+    : statusLabel;
 }
 
 export function statusLabel(status: string): string {

@@ -55,7 +55,10 @@ export const vulnerabilityLabels: Record<Vulnerability, string> = {
 export const EQUIPMENT_QUESTIONS = ["heatingUsable", "extractorFanWorks", "trickleVentsOpen"] as const;
 export type EquipmentQuestion = (typeof EQUIPMENT_QUESTIONS)[number];
 
-export const equipmentQuestions: Record<EquipmentQuestion, { question: string; hint: string; answers: Record<EquipmentAnswer, string> }> = {
+export const equipmentQuestions: Record<
+  EquipmentQuestion,
+  { question: string; hint: string; answers: Record<EquipmentAnswer, string> }
+> = {
   heatingUsable: {
     question: "Can the heating be used in this room?",
     hint: "For example, is there a radiator or heater here, and does it come on when it should?",

@@ -1,5 +1,14 @@
 import { z } from "zod";
-import { AREAS, CASE_STATUSES, CHANNELS, DURATIONS, EQUIPMENT_ANSWERS, LOCATIONS, OBSERVATIONS, VULNERABILITIES } from "../schemas/case-report.js";
+import {
+  AREAS,
+  CASE_STATUSES,
+  CHANNELS,
+  DURATIONS,
+  EQUIPMENT_ANSWERS,
+  LOCATIONS,
+  OBSERVATIONS,
+  VULNERABILITIES,
+} from "../schemas/case-report.js";
 import { ROOM_KINDS } from "../homes.js";
 import { id, instant } from "./common.js";
 
@@ -30,7 +39,11 @@ export const caseResponse = z.object({
   area: z.enum(AREAS).nullable(),
   vulnerability: z.array(z.enum(VULNERABILITIES)).nullable(),
   equipment: z
-    .object({ heatingUsable: equipmentAnswer.optional(), extractorFanWorks: equipmentAnswer.optional(), trickleVentsOpen: equipmentAnswer.optional() })
+    .object({
+      heatingUsable: equipmentAnswer.optional(),
+      extractorFanWorks: equipmentAnswer.optional(),
+      trickleVentsOpen: equipmentAnswer.optional(),
+    })
     .nullable(),
   /** The whole address, or only the id when the home was not loaded with the case. */
   property: z.object({
@@ -75,7 +88,13 @@ export type CaseEventResponse = z.infer<typeof caseEventResponse>;
 export const caseEventsResponse = z.object({ events: z.array(caseEventResponse) });
 
 /** GET /api/cases/:id/related: other cases of the same home. */
-export const relatedCase = z.object({ id, reference: z.string().nullable(), status: z.enum(CASE_STATUSES), awareAt: instant, hazardClass: hazardClass.nullable(), description: z.string() });
+export const relatedCase = z.object({
+  id,
+  reference: z.string().nullable(),
+  status: z.enum(CASE_STATUSES),
+  awareAt: instant,
+  hazardClass: hazardClass.nullable(),
+  description: z.string(),
+});
 export type RelatedCase = z.infer<typeof relatedCase>;
 export const relatedCasesResponse = z.object({ cases: z.array(relatedCase) });
-

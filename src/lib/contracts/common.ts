@@ -10,10 +10,18 @@ export const id = z.number().int().positive();
 export const idName = z.object({ id, name: z.string() });
 
 /** A page of a server-side table (`?page=&pageSize=`). */
-export const pageOf = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int().min(0), page: z.number().int().min(1), pageSize: z.number().int().min(1) });
+export const pageOf = <T extends z.ZodType>(item: T) =>
+  z.object({
+    items: z.array(item),
+    total: z.number().int().min(0),
+    page: z.number().int().min(1),
+    pageSize: z.number().int().min(1),
+  });
 
 /** The one error shape every failing route answers with (server/middleware/error-handler.ts). */
-export const errorResponse = z.object({ error: z.object({ code: z.string(), message: z.string(), details: z.unknown().optional() }) });
+export const errorResponse = z.object({
+  error: z.object({ code: z.string(), message: z.string(), details: z.unknown().optional() }),
+});
 export type ErrorResponse = z.infer<typeof errorResponse>;
 
 /** A reply with no body (204) or a plain acknowledgement. */

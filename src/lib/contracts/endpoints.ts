@@ -4,7 +4,14 @@
 import { type z } from "zod";
 import type { Role } from "../roles.js";
 import { assessmentListResponse, assessmentResponse } from "./assessments.js";
-import { csrfResponse, invitationCreatedResponse, invitationDescriptionResponse, loginResponse, meResponse, passwordResetRequestedResponse } from "./auth.js";
+import {
+  csrfResponse,
+  invitationCreatedResponse,
+  invitationDescriptionResponse,
+  loginResponse,
+  meResponse,
+  passwordResetRequestedResponse,
+} from "./auth.js";
 import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse } from "./cases.js";
 import { okResponse } from "./common.js";
 import { evaluationResponse } from "./evaluation.js";
@@ -17,7 +24,14 @@ import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
 import { bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
 import { staffListResponse, userPageResponse, userResponse } from "./users.js";
-import { caseWorkOrdersResponse, contractorListResponse, contractorResponse, verificationResponse, workOrderPageResponse, workOrderResponse } from "./works.js";
+import {
+  caseWorkOrdersResponse,
+  contractorListResponse,
+  contractorResponse,
+  verificationResponse,
+  workOrderPageResponse,
+  workOrderResponse,
+} from "./works.js";
 
 export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
 /** Who may call a route: anyone, anyone signed in, or the roles listed. */
@@ -40,7 +54,15 @@ const STAFF = ["officer", "maintenance", "admin"] as const;
 const OFFICERS = ["officer", "admin"] as const;
 const LEADS = ["maintenance", "admin"] as const;
 
-const e = (method: HttpMethod, path: string, access: Access, summary: string, response: Endpoint["response"], status: Endpoint["status"] = 200, extra: Partial<Endpoint> = {}): Endpoint => ({
+const e = (
+  method: HttpMethod,
+  path: string,
+  access: Access,
+  summary: string,
+  response: Endpoint["response"],
+  status: Endpoint["status"] = 200,
+  extra: Partial<Endpoint> = {},
+): Endpoint => ({
   method,
   path,
   access,
@@ -53,13 +75,23 @@ const e = (method: HttpMethod, path: string, access: Access, summary: string, re
 export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/health", "public", "Is the service and its database up", healthResponse),
   e("GET", "/api/health/live", "public", "Is the process up and serving (liveness)", livenessResponse),
-  e("GET", "/api/health/ready", "public", "May traffic be sent here: database answers, migrations current, not shutting down (readiness; 503 with the reason otherwise)", readinessResponse),
+  e(
+    "GET",
+    "/api/health/ready",
+    "public",
+    "May traffic be sent here: database answers, migrations current, not shutting down (readiness; 503 with the reason otherwise)",
+    readinessResponse,
+  ),
   e("POST", "/api/psychrometrics/evaluate", "public", "Evaluate one reading (risk engine)", pointResult),
   e("POST", "/api/psychrometrics/series", "public", "Evaluate a time series of readings (risk engine)", seriesResult),
-  e("GET", "/api/psychrometrics/openapi.json", "public", "The OpenAPI document of the public risk-engine API", { mediaType: "application/json" }),
+  e("GET", "/api/psychrometrics/openapi.json", "public", "The OpenAPI document of the public risk-engine API", {
+    mediaType: "application/json",
+  }),
   e("GET", "/api/openapi.json", STAFF, "This document", { mediaType: "application/json" }),
   e("GET", "/api/docs", STAFF, "The interactive API reference", { mediaType: "text/html" }),
-  e("GET", "/api/docs/start.js", STAFF, "The reference page's start script (its other files are static)", { mediaType: "text/javascript" }),
+  e("GET", "/api/docs/start.js", STAFF, "The reference page's start script (its other files are static)", {
+    mediaType: "text/javascript",
+  }),
 
   e("GET", "/api/auth/csrf", "public", "A CSRF token for the session", csrfResponse),
   e("POST", "/api/auth/login", "public", "Sign in", loginResponse),
@@ -78,7 +110,14 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/cases/bulk", OFFICERS, "Assign or move many cases", bulkUpdateResponse),
   e("GET", "/api/cases/:id/triage", STAFF, "A case's priority and how it was worked out", triageResponse),
   e("GET", "/api/cases/:id/related", STAFF, "Other cases of the same home", relatedCasesResponse),
-  e("POST", "/api/cases", ["tenant", "officer", "admin"], "Report damp or mould (a tenant), or record a report (staff)", caseResponse, 201),
+  e(
+    "POST",
+    "/api/cases",
+    ["tenant", "officer", "admin"],
+    "Report damp or mould (a tenant), or record a report (staff)",
+    caseResponse,
+    201,
+  ),
   e("GET", "/api/cases/:id", "signed-in", "A case", caseResponse),
   e("PATCH", "/api/cases/:id", OFFICERS, "Change a case's status, assignee or hazard class", caseResponse),
   e("GET", "/api/cases/:id/events", "signed-in", "A case's timeline", caseEventsResponse),
@@ -87,9 +126,25 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/cases/:id/photos", "signed-in", "Add photos to a case", photoListResponse, 201, { multipart: true }),
   e("GET", "/api/cases/:id/readings", "signed-in", "A case's readings, newest first", readingsResponse),
   e("POST", "/api/cases/:id/readings", "signed-in", "Add readings by hand", readingsAddedResponse, 201),
-  e("POST", "/api/cases/:id/readings/import/preview", "signed-in", "Propose how to read a logger's CSV file", importPreviewResponse, 200, { multipart: true }),
-  e("POST", "/api/cases/:id/readings/import", "signed-in", "Import a logger's CSV file", importResultResponse, 201, { multipart: true }),
-  e("GET", "/api/cases/:id/readings/imports/:importId/rejected.csv", "signed-in", "The rows an import rejected, with the reasons", { mediaType: "text/csv" }),
+  e(
+    "POST",
+    "/api/cases/:id/readings/import/preview",
+    "signed-in",
+    "Propose how to read a logger's CSV file",
+    importPreviewResponse,
+    200,
+    { multipart: true },
+  ),
+  e("POST", "/api/cases/:id/readings/import", "signed-in", "Import a logger's CSV file", importResultResponse, 201, {
+    multipart: true,
+  }),
+  e(
+    "GET",
+    "/api/cases/:id/readings/imports/:importId/rejected.csv",
+    "signed-in",
+    "The rows an import rejected, with the reasons",
+    { mediaType: "text/csv" },
+  ),
   e("GET", "/api/cases/:id/evaluation", "signed-in", "The risk engine over a case's readings", evaluationResponse),
   e("POST", "/api/cases/:id/assessments", OFFICERS, "Record an HHSRS assessment", assessmentResponse, 201),
   e("GET", "/api/cases/:id/assessments", STAFF, "Every version of a case's HHSRS assessment", assessmentListResponse),
@@ -105,7 +160,9 @@ export const ENDPOINTS: readonly Endpoint[] = [
 
   e("GET", "/api/work-orders", STAFF, "Work orders, filtered and sorted", workOrderPageResponse),
   e("PATCH", "/api/work-orders/:id", LEADS, "Schedule, complete or cancel a work order", workOrderResponse),
-  e("POST", "/api/work-orders/:id/photos", LEADS, "Add photos taken after the works", photoListResponse, 201, { multipart: true }),
+  e("POST", "/api/work-orders/:id/photos", LEADS, "Add photos taken after the works", photoListResponse, 201, {
+    multipart: true,
+  }),
   e("POST", "/api/work-orders/:id/booking-response", ["tenant"], "Confirm a visit or ask for another time", workOrderResponse),
   e("GET", "/api/contractors", STAFF, "The landlord's contractors", contractorListResponse),
   e("POST", "/api/contractors", LEADS, "Add a contractor", contractorResponse, 201),

@@ -9,7 +9,13 @@ export const roomEvaluation = z.object({
   roomName: z.string(),
   readingsCount: z.number().int(),
   latest: z
-    .object({ takenAt: instant, airTemperatureC: z.number(), relativeHumidityPct: z.number(), surfaceTemperatureC: z.number().nullable(), outdoorTemperatureC: z.number().nullable() })
+    .object({
+      takenAt: instant,
+      airTemperatureC: z.number(),
+      relativeHumidityPct: z.number(),
+      surfaceTemperatureC: z.number().nullable(),
+      outdoorTemperatureC: z.number().nullable(),
+    })
     .nullable(),
   surfaces: z.array(surfaceEvaluation),
   series: seriesResult.nullable(),

@@ -1,7 +1,14 @@
 import { z } from "zod";
 import { id, instant } from "./common.js";
 
-export const CAUSES = ["condensation", "penetrating-damp", "rising-damp", "plumbing-leak", "roof-gutter", "other-unknown"] as const;
+export const CAUSES = [
+  "condensation",
+  "penetrating-damp",
+  "rising-damp",
+  "plumbing-leak",
+  "roof-gutter",
+  "other-unknown",
+] as const;
 export const MOULD_EXTENTS = ["none", "under-1-m2", "1-to-5-m2", "over-5-m2"] as const;
 export const DEADLINE_STAGES = ["make-safe", "investigate", "summary", "safety-work", "supplementary-work"] as const;
 export const DEADLINE_STATES = ["pending", "met", "missed", "not-applicable"] as const;
@@ -31,7 +38,12 @@ export type InspectionResponse = z.infer<typeof inspectionResponse>;
 export const inspectionListResponse = z.object({ inspections: z.array(inspectionResponse) });
 
 /** POST /api/cases/:id/inspections. */
-export const inspectionRecordedResponse = z.object({ id, inspectedAt: instant, cause: z.enum(CAUSES), mouldExtent: z.enum(MOULD_EXTENTS) });
+export const inspectionRecordedResponse = z.object({
+  id,
+  inspectedAt: instant,
+  cause: z.enum(CAUSES),
+  mouldExtent: z.enum(MOULD_EXTENTS),
+});
 export type InspectionRecorded = z.infer<typeof inspectionRecordedResponse>;
 
 /** POST /api/cases/:id/summary. */
@@ -39,6 +51,11 @@ export const summarySentResponse = z.object({ id, sentAt: instant });
 export type SummarySent = z.infer<typeof summarySentResponse>;
 
 /** GET /api/cases/:id/deadlines: the statutory clocks. */
-export const caseDeadline = z.object({ stage: z.enum(DEADLINE_STAGES), dueAt: instant.nullable(), doneAt: instant.nullable(), state: z.enum(DEADLINE_STATES) });
+export const caseDeadline = z.object({
+  stage: z.enum(DEADLINE_STAGES),
+  dueAt: instant.nullable(),
+  doneAt: instant.nullable(),
+  state: z.enum(DEADLINE_STATES),
+});
 export type CaseDeadline = z.infer<typeof caseDeadline>;
 export const deadlinesResponse = z.object({ deadlines: z.array(caseDeadline) });

@@ -6,7 +6,13 @@ import type { BeforeAfter } from "../domain/verification.js";
 export const SURFACE_STATES = ["dry", "borderline", "mould-risk", "condensing"] as const;
 export const surfaceState = z.enum(SURFACE_STATES);
 export const MATERIALS = ["very-sensitive", "sensitive", "medium-resistant", "resistant"] as const;
-export const DIAGNOSIS_KINDS = ["ventilation-or-moisture-load", "cold-surface", "likely-not-condensation", "no-risk-found", "insufficient-data"] as const;
+export const DIAGNOSIS_KINDS = [
+  "ventilation-or-moisture-load",
+  "cold-surface",
+  "likely-not-condensation",
+  "no-risk-found",
+  "insufficient-data",
+] as const;
 
 /** POST /api/psychrometrics/evaluate, and each surface of a case's evaluation. */
 export const pointResult = z.object({

@@ -19,7 +19,11 @@ export type ReadingResponse = z.infer<typeof readingResponse>;
 export const readingsResponse = z.object({ readings: z.array(readingResponse) });
 
 /** POST /api/cases/:id/readings: readings typed in by hand. */
-export const readingsAddedResponse = z.object({ imported: z.number().int(), duplicates: z.number().int(), rejected: z.number().int() });
+export const readingsAddedResponse = z.object({
+  imported: z.number().int(),
+  duplicates: z.number().int(),
+  rejected: z.number().int(),
+});
 export type ReadingsAdded = z.infer<typeof readingsAddedResponse>;
 
 /** The columns the server proposes for a logger file: each is a column index from 0. */

@@ -13,7 +13,14 @@ export const queueItem = z.object({
   channel: z.enum(CHANNELS),
   awareAt: instant,
   createdAt: instant,
-  property: z.object({ id, addressLine1: z.string(), town: z.string(), postcode: z.string(), estate: z.string(), block: z.string().nullable() }),
+  property: z.object({
+    id,
+    addressLine1: z.string(),
+    town: z.string(),
+    postcode: z.string(),
+    estate: z.string(),
+    block: z.string().nullable(),
+  }),
   rooms: z.array(idName),
   /** The worst surface's state; null while the case has no readings. */
   riskState: surfaceState.nullable(),

@@ -56,7 +56,9 @@ export const workOrderResponse = z.object({
   contractor: z.object({ id, name: z.string(), email: z.string().optional() }).nullable(),
   slot: workOrderSlot.nullable(),
   /** The tenant's answer to the current booking. */
-  booking: z.object({ response: z.enum(BOOKING_RESPONSES).nullable(), reason: z.string().nullable(), respondedAt: instant.nullable() }).nullable(),
+  booking: z
+    .object({ response: z.enum(BOOKING_RESPONSES).nullable(), reason: z.string().nullable(), respondedAt: instant.nullable() })
+    .nullable(),
   /** Staff only: every booking, the replaced ones too. */
   bookings: z.array(bookingHistoryItem).optional(),
   /** Staff only: household notes and vulnerability in words, for the operative. */
@@ -70,7 +72,13 @@ export type WorkOrderPageResponse = z.infer<typeof workOrderPageResponse>;
 export const caseWorkOrdersResponse = z.object({ workOrders: z.array(workOrderResponse) });
 
 /** A contractor (GET/POST /api/contractors). */
-export const contractorResponse = z.object({ id, name: z.string(), email: z.string(), phone: z.string().nullable(), trade: z.string().nullable() });
+export const contractorResponse = z.object({
+  id,
+  name: z.string(),
+  email: z.string(),
+  phone: z.string().nullable(),
+  trade: z.string().nullable(),
+});
 export type ContractorResponse = z.infer<typeof contractorResponse>;
 export const contractorListResponse = z.object({ contractors: z.array(contractorResponse) });
 

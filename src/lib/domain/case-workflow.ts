@@ -1,7 +1,17 @@
 // Which status a case may move to from where it is. The order of the main path is the work itself:
 // a report is triaged, inspected, its works planned and done, the home monitored, then the case closed.
 // The side moves (back a step, cancel, reopen) are our own choice of what real work needs.
-export const CASE_STATUSES = ["new", "triaged", "inspection-booked", "investigated", "works-planned", "works-done", "monitoring", "closed", "cancelled"] as const;
+export const CASE_STATUSES = [
+  "new",
+  "triaged",
+  "inspection-booked",
+  "investigated",
+  "works-planned",
+  "works-done",
+  "monitoring",
+  "closed",
+  "cancelled",
+] as const;
 export type CaseStatus = (typeof CASE_STATUSES)[number];
 /** Every status but the two ends (closed, cancelled). */
 export const OPEN_CASE_STATUSES: readonly CaseStatus[] = CASE_STATUSES.filter((s) => s !== "closed" && s !== "cancelled");

@@ -121,7 +121,11 @@ export function computeDeadlines(facts: DeadlineFacts): Deadline[] {
       emergency ? emergencyDueAt : addWorkingDays(awareAt, policy.investigateWorkingDays),
       investigationEndedAt,
     ),
-    stage("summary", afterInvestigation((t) => addWorkingDays(t, policy.summaryWorkingDays)), summarySentAt),
+    stage(
+      "summary",
+      afterInvestigation((t) => addWorkingDays(t, policy.summaryWorkingDays)),
+      summarySentAt,
+    ),
     emergency
       ? notApplicable("safety-work", safetyWorkStartedAt)
       : stage(
@@ -163,7 +167,12 @@ function requirePolicy(policy: DeadlinePolicy): DeadlinePolicy {
   if (typeof hours !== "number" || !Number.isFinite(hours) || hours < 0) {
     throw new RangeError(`policy.emergencyMakeSafeHours must be a finite number ≥ 0, got ${String(hours)}`);
   }
-  for (const key of ["investigateWorkingDays", "summaryWorkingDays", "safetyWorkWorkingDays", "supplementaryWorkWeeks"] as const) {
+  for (const key of [
+    "investigateWorkingDays",
+    "summaryWorkingDays",
+    "safetyWorkWorkingDays",
+    "supplementaryWorkWeeks",
+  ] as const) {
     const value = policy[key];
     if (!Number.isInteger(value) || value < 0) {
       throw new RangeError(`policy.${key} must be a whole number ≥ 0, got ${String(value)}`);

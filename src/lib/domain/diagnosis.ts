@@ -6,11 +6,7 @@ import { CRITICAL_TEMPERATURE_FACTOR, MOULD_SURFACE_RH_PCT, BORDERLINE_SURFACE_R
 import { celsius, factor, fixed, hours, percent } from "./wording.js";
 
 export type DiagnosisKind =
-  | "ventilation-or-moisture-load"
-  | "cold-surface"
-  | "likely-not-condensation"
-  | "no-risk-found"
-  | "insufficient-data";
+  "ventilation-or-moisture-load" | "cold-surface" | "likely-not-condensation" | "no-risk-found" | "insufficient-data";
 
 export interface Diagnosis {
   kind: DiagnosisKind;

@@ -111,7 +111,7 @@ export function validateAssessment(assessment: HhsrsAssessment): AssessmentProbl
   const { likelihood, spread } = assessment;
 
   if (typeof likelihood !== "number" || !Number.isFinite(likelihood)) {
-    problems.push({ field: "likelihood", message: "The likelihood must be a number: the L in \"1 in L\"." });
+    problems.push({ field: "likelihood", message: 'The likelihood must be a number: the L in "1 in L".' });
   } else if (!LIKELIHOOD_SET.has(likelihood)) {
     problems.push({
       field: "likelihood",
@@ -120,7 +120,10 @@ export function validateAssessment(assessment: HhsrsAssessment): AssessmentProbl
   }
 
   if (!Array.isArray(spread) || spread.length !== 4) {
-    problems.push({ field: "spread", message: "The spread of harm needs four percentages, one for each class of harm, I to IV." });
+    problems.push({
+      field: "spread",
+      message: "The spread of harm needs four percentages, one for each class of harm, I to IV.",
+    });
     return problems;
   }
 

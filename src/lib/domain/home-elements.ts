@@ -3,7 +3,8 @@
 import type { ElementId } from "./surface.js";
 
 export type GlazingKind = "single" | "old-double" | "modern-double" | "triple" | "mixed";
-export type WallKind = "solid-brick" | "solid-stone" | "unfilled-cavity" | "filled-cavity" | "system-built" | "timber-frame" | "insulated";
+export type WallKind =
+  "solid-brick" | "solid-stone" | "unfilled-cavity" | "filled-cavity" | "system-built" | "timber-frame" | "insulated";
 
 export function glazingElement(glazing: GlazingKind): ElementId {
   if (glazing === "single") return "single-glazing";
@@ -28,10 +29,23 @@ export function wallElement(wall: WallKind): ElementId {
 }
 
 /** The distinct elements behind the places a report names, in the order window, wall, corner. */
-export function elementsForReport(home: { glazingType: GlazingKind; wallType: WallKind }, locations: readonly string[]): ElementId[] {
+export function elementsForReport(
+  home: { glazingType: GlazingKind; wallType: WallKind },
+  locations: readonly string[],
+): ElementId[] {
   const out = new Set<ElementId>();
   if (locations.includes("window")) out.add(glazingElement(home.glazingType));
-  if (locations.some((l) => l === "external-wall" || l === "behind-furniture" || l === "ceiling" || l === "floor" || l === "other" || l === "bath-or-shower")) {
+  if (
+    locations.some(
+      (l) =>
+        l === "external-wall" ||
+        l === "behind-furniture" ||
+        l === "ceiling" ||
+        l === "floor" ||
+        l === "other" ||
+        l === "bath-or-shower",
+    )
+  ) {
     out.add(wallElement(home.wallType));
   }
   if (locations.includes("corner")) out.add("corner-thermal-bridge");

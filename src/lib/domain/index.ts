@@ -103,4 +103,11 @@ export {
   triagePriority,
   hoursUntilDeadlinePartChanges,
 } from "./triage-priority.js";
-export type { TriageArea, TriageFactor, TriageInput, TriagePart, TriagePriority, TriageVulnerability } from "./triage-priority.js";
+export type {
+  TriageArea,
+  TriageFactor,
+  TriageInput,
+  TriagePart,
+  TriagePriority,
+  TriageVulnerability,
+} from "./triage-priority.js";

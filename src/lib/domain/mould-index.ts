@@ -110,11 +110,7 @@ export function criticalRelativeHumidityPct(temperatureC: number, material: Mate
 
 /** Growth is possible only between 0 and 50 °C and at or above the critical RH. */
 export function isFavourableForGrowth(temperatureC: number, relativeHumidityPct: number, material: MaterialSensitivity): boolean {
-  return (
-    temperatureC > 0 &&
-    temperatureC < 50 &&
-    relativeHumidityPct >= criticalRelativeHumidityPct(temperatureC, material)
-  );
+  return temperatureC > 0 && temperatureC < 50 && relativeHumidityPct >= criticalRelativeHumidityPct(temperatureC, material);
 }
 
 /** Mmax = A + B·x − C·x² with x = (RHcrit − RH)/(RHcrit − 100). */

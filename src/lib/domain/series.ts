@@ -203,8 +203,7 @@ function scan(input: SeriesInput, withTrace: boolean): Scan {
         requireRelativeHumidityPct(outdoorRh, "outdoor relative humidity");
       }
       const pvOutdoor = (outdoorRh * psychrolib.GetSatVapPres(outdoor)) / 100;
-      excessSum +=
-        (1000 * (pv / (airT + ZERO_CELSIUS_K) - pvOutdoor / (outdoor + ZERO_CELSIUS_K))) / GAS_CONSTANT_WATER_VAPOUR;
+      excessSum += (1000 * (pv / (airT + ZERO_CELSIUS_K) - pvOutdoor / (outdoor + ZERO_CELSIUS_K))) / GAS_CONSTANT_WATER_VAPOUR;
       outdoorTSum += outdoor;
       outdoorCount++;
     }

@@ -26,7 +26,15 @@ export type TriageArea = (typeof TRIAGE_AREAS)[number];
 export const TRIAGE_VULNERABILITIES = ["children-under-15", "over-65", "breathing-or-immune", "pregnancy", "disability"] as const;
 export type TriageVulnerability = (typeof TRIAGE_VULNERABILITIES)[number];
 
-export const TRIAGE_FACTORS = ["surface-state", "mould-index", "affected-area", "vulnerability", "hhsrs", "recurrence", "deadline"] as const;
+export const TRIAGE_FACTORS = [
+  "surface-state",
+  "mould-index",
+  "affected-area",
+  "vulnerability",
+  "hhsrs",
+  "recurrence",
+  "deadline",
+] as const;
 export type TriageFactor = (typeof TRIAGE_FACTORS)[number];
 
 export interface TriageInput {
@@ -114,7 +122,12 @@ function surfaceStatePart(state: TriageInput["surfaceState"]): TriagePart {
 function mouldIndexPart(mouldIndex: number | null): TriagePart {
   const w = TRIAGE_WEIGHTS.mouldIndex;
   if (isAbsent(mouldIndex)) {
-    return { factor: "mould-index", points: w.unknown, max: w.max, explanation: "No mould index has been worked out from readings yet." };
+    return {
+      factor: "mould-index",
+      points: w.unknown,
+      max: w.max,
+      explanation: "No mould index has been worked out from readings yet.",
+    };
   }
   requireFinite(mouldIndex, "mould index");
   if (mouldIndex < 0 || mouldIndex > MAX_MOULD_INDEX) {
@@ -153,7 +166,10 @@ function affectedAreaPart(area: TriageInput["affectedArea"]): TriagePart {
 function vulnerabilityPart(vulnerabilities: TriageInput["vulnerabilities"]): TriagePart {
   const w = TRIAGE_WEIGHTS.vulnerability;
   if (vulnerabilities === "skipped" || vulnerabilities === "unknown") {
-    const said = vulnerabilities === "skipped" ? "The question about who lives in the home was not answered" : "It is not recorded who lives in the home";
+    const said =
+      vulnerabilities === "skipped"
+        ? "The question about who lives in the home was not answered"
+        : "It is not recorded who lives in the home";
     return {
       factor: "vulnerability",
       points: w.skippedOrUnknown,
@@ -163,10 +179,17 @@ function vulnerabilityPart(vulnerabilities: TriageInput["vulnerabilities"]): Tri
   }
   const groups = [...new Set(vulnerabilities)].sort((a, b) => w.groups[b] - w.groups[a]);
   if (groups.length === 0) {
-    return { factor: "vulnerability", points: w.none, max: w.max, explanation: "The household said none of the listed groups lives in the home." };
+    return {
+      factor: "vulnerability",
+      points: w.none,
+      max: w.max,
+      explanation: "The household said none of the listed groups lives in the home.",
+    };
   }
   const points = Math.min(w.max, w.groups[groups[0]] + w.eachFurtherGroup * (groups.length - 1));
-  const children = groups.includes("children-under-15") ? " Children under 15 are the group most at risk from damp and mould in the housing health and safety rating system." : "";
+  const children = groups.includes("children-under-15")
+    ? " Children under 15 are the group most at risk from damp and mould in the housing health and safety rating system."
+    : "";
   return {
     factor: "vulnerability",
     points,
@@ -178,7 +201,12 @@ function vulnerabilityPart(vulnerabilities: TriageInput["vulnerabilities"]): Tri
 function hhsrsPart(category: 1 | 2 | null): TriagePart {
   const w = TRIAGE_WEIGHTS.hhsrs;
   if (category === 1) {
-    return { factor: "hhsrs", points: w.category1, max: w.max, explanation: "An HHSRS assessment found a Category 1 hazard, which must be dealt with." };
+    return {
+      factor: "hhsrs",
+      points: w.category1,
+      max: w.max,
+      explanation: "An HHSRS assessment found a Category 1 hazard, which must be dealt with.",
+    };
   }
   if (category === 2) {
     return { factor: "hhsrs", points: w.category2, max: w.max, explanation: "An HHSRS assessment found a Category 2 hazard." };
@@ -194,8 +222,18 @@ function hhsrsPart(category: 1 | 2 | null): TriagePart {
 function recurrencePart(recurrence: boolean): TriagePart {
   const w = TRIAGE_WEIGHTS.recurrence;
   return recurrence
-    ? { factor: "recurrence", points: w.yes, max: w.max, explanation: "There has been another case at this home in the last 12 months, so the cause may not have been fixed." }
-    : { factor: "recurrence", points: w.no, max: w.max, explanation: "There has been no other case at this home in the last 12 months." };
+    ? {
+        factor: "recurrence",
+        points: w.yes,
+        max: w.max,
+        explanation: "There has been another case at this home in the last 12 months, so the cause may not have been fixed.",
+      }
+    : {
+        factor: "recurrence",
+        points: w.no,
+        max: w.max,
+        explanation: "There has been no other case at this home in the last 12 months.",
+      };
 }
 
 function deadlinePart(hours: number | null): TriagePart {
@@ -209,10 +247,20 @@ function deadlinePart(hours: number | null): TriagePart {
   }
   const step = w.steps.find((s) => hours <= s.withinHours);
   if (step) {
-    return { factor: "deadline", points: step.points, max: w.max, explanation: `The next deadline is ${dueWithin(step.withinHours)}.` };
+    return {
+      factor: "deadline",
+      points: step.points,
+      max: w.max,
+      explanation: `The next deadline is ${dueWithin(step.withinHours)}.`,
+    };
   }
   const last = w.steps[w.steps.length - 1].withinHours;
-  return { factor: "deadline", points: w.later, max: w.max, explanation: `The next deadline is more than ${dueWithinWords(last)} away.` };
+  return {
+    factor: "deadline",
+    points: w.later,
+    max: w.max,
+    explanation: `The next deadline is more than ${dueWithinWords(last)} away.`,
+  };
 }
 
 function dueWithin(withinHours: number): string {

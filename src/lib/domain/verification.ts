@@ -41,14 +41,40 @@ export interface BeforeAfter {
   points: { at: string; surfaceRhPct: number; phase: "before" | "after" }[];
 }
 
-function summarise(readings: readonly SeriesReading[], element: ElementId | undefined, surfaceWet: boolean): { summary: PeriodSummary; rh: number[] } {
+function summarise(
+  readings: readonly SeriesReading[],
+  element: ElementId | undefined,
+  surfaceWet: boolean,
+): { summary: PeriodSummary; rh: number[] } {
   if (readings.length === 0) {
     return {
-      summary: { count: 0, from: null, to: null, coveredHours: 0, meanSurfaceRhPct: null, maxSurfaceRhPct: null, hoursSurfaceRhAtLeast80: 0, hoursAtLeast80PerDay: null, mouldIndexFinal: null, mouldIndexMax: null },
+      summary: {
+        count: 0,
+        from: null,
+        to: null,
+        coveredHours: 0,
+        meanSurfaceRhPct: null,
+        maxSurfaceRhPct: null,
+        hoursSurfaceRhAtLeast80: 0,
+        hoursAtLeast80PerDay: null,
+        mouldIndexFinal: null,
+        mouldIndexMax: null,
+      },
       rh: [],
     };
   }
-  const rh = readings.map((r) => Math.min(100, evaluatePoint({ airTemperatureC: r.airTemperatureC, relativeHumidityPct: r.relativeHumidityPct, surfaceTemperatureC: r.surfaceTemperatureC, outdoorTemperatureC: r.outdoorTemperatureC, element }).surface.relativeHumidityPct));
+  const rh = readings.map((r) =>
+    Math.min(
+      100,
+      evaluatePoint({
+        airTemperatureC: r.airTemperatureC,
+        relativeHumidityPct: r.relativeHumidityPct,
+        surfaceTemperatureC: r.surfaceTemperatureC,
+        outdoorTemperatureC: r.outdoorTemperatureC,
+        element,
+      }).surface.relativeHumidityPct,
+    ),
+  );
   const series = evaluateSeries({ readings, element, surfaceWet });
   const times = readings.map((r) => new Date(r.at).getTime());
   const gapsMs = series.gaps.reduce((s, g) => s + (Date.parse(g.to) - Date.parse(g.from)), 0);
@@ -70,7 +96,12 @@ function summarise(readings: readonly SeriesReading[], element: ElementId | unde
   };
 }
 
-export function compareBeforeAfter(input: { readings: readonly SeriesReading[]; worksDoneAt: Date; element?: ElementId; surfaceWet?: boolean }): BeforeAfter {
+export function compareBeforeAfter(input: {
+  readings: readonly SeriesReading[];
+  worksDoneAt: Date;
+  element?: ElementId;
+  surfaceWet?: boolean;
+}): BeforeAfter {
   const cut = input.worksDoneAt.getTime();
   const sorted = [...input.readings].sort((a, b) => new Date(a.at).getTime() - new Date(b.at).getTime());
   const beforeReadings = sorted.filter((r) => new Date(r.at).getTime() < cut);
@@ -79,7 +110,11 @@ export function compareBeforeAfter(input: { readings: readonly SeriesReading[]; 
   // After the works the surface is cleaned and dry: not "wet" whatever the report said.
   const after = summarise(afterReadings, input.element, false);
   let improved: boolean | null = null;
-  if (after.summary.coveredHours >= MIN_AFTER_HOURS && before.summary.meanSurfaceRhPct !== null && after.summary.meanSurfaceRhPct !== null) {
+  if (
+    after.summary.coveredHours >= MIN_AFTER_HOURS &&
+    before.summary.meanSurfaceRhPct !== null &&
+    after.summary.meanSurfaceRhPct !== null
+  ) {
     const rateBefore = before.summary.hoursAtLeast80PerDay ?? 0;
     const rateAfter = after.summary.hoursAtLeast80PerDay ?? 0;
     improved = after.summary.meanSurfaceRhPct < before.summary.meanSurfaceRhPct && rateAfter <= rateBefore;

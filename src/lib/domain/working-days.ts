@@ -62,7 +62,7 @@ export function endOfLocalDay(date: IsoDate, timeZone: string = LONDON_TIME_ZONE
 export function addWorkingDays(fromInstant: Date, n: number, timeZone: string = LONDON_TIME_ZONE): Date {
   requireCount(n, "n");
   let day = localDayNumber(fromInstant, timeZone);
-  for (let counted = 0; counted < n; ) {
+  for (let counted = 0; counted < n;) {
     day += 1;
     if (isWorkingDayNumber(day)) counted += 1;
   }
@@ -148,9 +148,7 @@ function startOfDayNumber(day: number, timeZone: string): number {
   // Local midnight is `wall` minus the offset in force then; the offsets a day either side cover
   // one clock change. Keep the candidate that really starts the day.
   const candidates = new Set([wall - DAY_MS, wall, wall + DAY_MS].map((t) => wall - zoneOffsetMs(t, timeZone)));
-  const starts = [...candidates].filter(
-    (t) => localDayAt(t, timeZone) === day && localDayAt(t - 1, timeZone) === day - 1,
-  );
+  const starts = [...candidates].filter((t) => localDayAt(t, timeZone) === day && localDayAt(t - 1, timeZone) === day - 1);
   if (starts.length === 0) {
     throw new RangeError(`cannot find the start of ${formatDate(...ymd(wall))} in ${timeZone}`);
   }

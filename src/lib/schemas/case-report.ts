@@ -8,7 +8,16 @@ export type { CaseStatus };
 
 export const CHANNELS = ["tenant-online", "phone", "letter", "email", "visit"] as const;
 export const STAFF_CHANNELS = ["phone", "letter", "email", "visit"] as const;
-export const LOCATIONS = ["window", "external-wall", "ceiling", "corner", "behind-furniture", "floor", "bath-or-shower", "other"] as const;
+export const LOCATIONS = [
+  "window",
+  "external-wall",
+  "ceiling",
+  "corner",
+  "behind-furniture",
+  "floor",
+  "bath-or-shower",
+  "other",
+] as const;
 export const OBSERVATIONS = ["condensation", "mould-spots", "musty-smell", "peeling-paint", "wet-patches", "leak"] as const;
 export const DURATIONS = ["days", "weeks", "months", "over-a-year", "not-sure"] as const;
 export const AREAS = ["hand", "a4", "door", "larger"] as const;
@@ -53,7 +62,10 @@ export const caseReportSchema = z.object({
   since: z.enum(DURATIONS, { error: `since must be one of ${DURATIONS.join(", ")}.` }).optional(),
   area: z.enum(AREAS, { error: `area must be one of ${AREAS.join(", ")}.` }).optional(),
   /** Skipped (undefined) is different from "none of these" (an empty list). */
-  vulnerability: z.array(z.enum(VULNERABILITIES, { error: `vulnerability can only hold ${VULNERABILITIES.join(", ")}.` })).max(VULNERABILITIES.length).optional(),
+  vulnerability: z
+    .array(z.enum(VULNERABILITIES, { error: `vulnerability can only hold ${VULNERABILITIES.join(", ")}.` }))
+    .max(VULNERABILITIES.length)
+    .optional(),
   equipment: equipmentSchema.optional(),
 });
 export type CaseReport = z.infer<typeof caseReportSchema>;

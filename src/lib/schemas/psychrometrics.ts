@@ -14,7 +14,10 @@ const celsius = (field: string, min: number, max: number) =>
     .max(max, `${field} must be at most ${max} °C.`);
 
 const relativeHumidity = z
-  .number({ error: (issue) => (issue.input === undefined ? "relativeHumidityPct is required." : "relativeHumidityPct must be a number in %.") })
+  .number({
+    error: (issue) =>
+      issue.input === undefined ? "relativeHumidityPct is required." : "relativeHumidityPct must be a number in %.",
+  })
   .gt(0, "relativeHumidityPct must be more than 0 %.")
   .max(100, "relativeHumidityPct must be at most 100 %.");
 
@@ -57,7 +60,9 @@ export const seriesReadingSchema = z.object({
 });
 
 export const evaluateSeriesSchema = z.object({
-  readings: z.array(seriesReadingSchema, { error: "readings must be an array of readings." }).min(1, "readings needs at least one reading."),
+  readings: z
+    .array(seriesReadingSchema, { error: "readings must be an array of readings." })
+    .min(1, "readings needs at least one reading."),
   element: element.optional(),
   material: material.optional(),
 });

@@ -47,7 +47,8 @@ export function mockReply<S extends z.ZodType>(schema: S, value: z.input<S>): z.
 export function checkReply(method: string, path: string, reply: MockReply): void {
   const status = reply.status ?? 200;
   const endpoint = endpointFor(method, path);
-  if (!endpoint) throw new Error(`Mocked reply for ${method} ${path}: the API contract has no such route (src/lib/contracts/endpoints.ts).`);
+  if (!endpoint)
+    throw new Error(`Mocked reply for ${method} ${path}: the API contract has no such route (src/lib/contracts/endpoints.ts).`);
   if (status >= 400) {
     const why = misfit(errorResponse, reply.body);
     if (why) throw new Error(`Mocked error for ${method} ${path} is not in the server's error shape:\n${why}`);

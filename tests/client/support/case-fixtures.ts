@@ -27,7 +27,14 @@ export function workspaceCase(over: { status?: CaseStatus; homeRooms?: RoomRespo
     area: "a4",
     vulnerability: ["children-under-15"],
     equipment: { heatingUsable: "yes" },
-    property: { id: 5, addressLine1: "1 Tanner Row", addressLine2: null, town: "Easterby", postcode: "ZX3 1AA", estate: "Millbeck Terraces" },
+    property: {
+      id: 5,
+      addressLine1: "1 Tanner Row",
+      addressLine2: null,
+      town: "Easterby",
+      postcode: "ZX3 1AA",
+      estate: "Millbeck Terraces",
+    },
     rooms: [{ id: 2, name: "Bedroom 1", kind: "bedroom" }],
     homeRooms: over.homeRooms ?? DEFAULT_ROOMS,
   });

@@ -6,7 +6,15 @@
 // database keeps whole seconds), an optional AM/PM, then optionally Z, UTC, GMT or ±hh[:mm].
 // The date and time are separated by a space, a comma and space, or (ISO) a T.
 
-export const DATE_FORMATS = ["ISO 8601", "DD/MM/YYYY", "MM/DD/YYYY", "YYYY/MM/DD", "DD.MM.YYYY", "epoch seconds", "epoch milliseconds"] as const;
+export const DATE_FORMATS = [
+  "ISO 8601",
+  "DD/MM/YYYY",
+  "MM/DD/YYYY",
+  "YYYY/MM/DD",
+  "DD.MM.YYYY",
+  "epoch seconds",
+  "epoch milliseconds",
+] as const;
 export type DateFormat = (typeof DATE_FORMATS)[number];
 
 /** Examples for each format, for help text. */
@@ -32,7 +40,10 @@ const ZONE = String.raw`(?:\s*(Z|(?:UTC|GMT)(?:\s*[+-]\d{1,2}(?::?\d{2})?)?|[+-]
 const SEP = String.raw`(?:[Tt]|,?\s+)`;
 
 // Groups: 1–3 date fields in the order written, 4 hour, 5 minute, 6 second, 7 a/p, 8 zone.
-const PATTERNS: Record<Exclude<DateFormat, "epoch seconds" | "epoch milliseconds">, { re: RegExp; order: "ymd" | "dmy" | "mdy" }> = {
+const PATTERNS: Record<
+  Exclude<DateFormat, "epoch seconds" | "epoch milliseconds">,
+  { re: RegExp; order: "ymd" | "dmy" | "mdy" }
+> = {
   "ISO 8601": { re: new RegExp(String.raw`^(\d{4})-(\d{1,2})-(\d{1,2})${SEP}${TIME}${ZONE}$`), order: "ymd" },
   "DD/MM/YYYY": { re: new RegExp(String.raw`^(\d{1,2})[/-](\d{1,2})[/-](\d{4}|\d{2})${SEP}${TIME}${ZONE}$`), order: "dmy" },
   "MM/DD/YYYY": { re: new RegExp(String.raw`^(\d{1,2})[/-](\d{1,2})[/-](\d{4}|\d{2})${SEP}${TIME}${ZONE}$`), order: "mdy" },
@@ -87,7 +98,8 @@ function fastFixed(raw: string, format: DateFormat): WallTime | null {
     day = digit2(raw, 8);
   } else if (format === "DD/MM/YYYY" || format === "MM/DD/YYYY" || format === "DD.MM.YYYY") {
     const c2 = raw.charCodeAt(2);
-    if (format === "DD.MM.YYYY" ? c2 !== 46 || raw.charCodeAt(5) !== 46 : (c2 !== 47 && c2 !== 45) || raw.charCodeAt(5) !== c2) return null;
+    if (format === "DD.MM.YYYY" ? c2 !== 46 || raw.charCodeAt(5) !== 46 : (c2 !== 47 && c2 !== 45) || raw.charCodeAt(5) !== c2)
+      return null;
     if (sep !== 32 || zulu) return null;
     const hi = digit2(raw, 6);
     const lo = digit2(raw, 8);
@@ -105,7 +117,8 @@ function fastFixed(raw: string, format: DateFormat): WallTime | null {
     if (raw.charCodeAt(16) !== 58) return null;
     second = digit2(raw, 17);
   }
-  if (month < 1 || month > 12 || day < 1 || hour < 0 || hour > 23 || minute < 0 || minute > 59 || second < 0 || second > 59) return null;
+  if (month < 1 || month > 12 || day < 1 || hour < 0 || hour > 23 || minute < 0 || minute > 59 || second < 0 || second > 59)
+    return null;
   if (day > (month === 2 && leap(year) ? 29 : DAYS[month - 1])) return null;
   const key = (year * 100 + month) * 100 + day;
   if (key !== cachedDayKey) {
@@ -180,14 +193,17 @@ export function detectDateFormat(values: readonly string[]): DateFormatGuess | n
       // Both read every value: no field over 12 anywhere.
       return { format: "DD/MM/YYYY", ambiguousDayMonth: true, share: dmy };
     }
-    return dmy > mdy ? { format: "DD/MM/YYYY", ambiguousDayMonth: false, share: dmy } : { format: "MM/DD/YYYY", ambiguousDayMonth: false, share: mdy };
+    return dmy > mdy
+      ? { format: "DD/MM/YYYY", ambiguousDayMonth: false, share: dmy }
+      : { format: "MM/DD/YYYY", ambiguousDayMonth: false, share: mdy };
   }
   for (const format of ["epoch seconds", "epoch milliseconds"] as const) {
     const s = share(format);
     if (s >= 0.8) {
       // Epoch values must land in a plausible span, so a column of counters is not taken for times.
       const times = present.map((v) => parseDateTime(v, format)?.wallMs ?? Number.NaN).filter((t) => !Number.isNaN(t));
-      if (times.every((t) => t >= Date.UTC(2000, 0, 1) && t < Date.UTC(2100, 0, 1))) return { format, ambiguousDayMonth: false, share: s };
+      if (times.every((t) => t >= Date.UTC(2000, 0, 1) && t < Date.UTC(2100, 0, 1)))
+        return { format, ambiguousDayMonth: false, share: s };
     }
   }
   return null;

@@ -60,7 +60,10 @@ export function checkHead(head: Uint8Array, wholeFile: boolean): HeadCheck {
     return { ok: false, message: `The file is saved as UTF-16 text, which we can't read. ${SAVE_AS_UTF8_ADVICE}` };
   }
   if (head.length >= 4 && head[0] === 0x50 && head[1] === 0x4b && head[2] === 0x03 && head[3] === 0x04) {
-    return { ok: false, message: `This looks like a spreadsheet workbook (.xlsx) or a zip file, not CSV text. ${SAVE_AS_UTF8_ADVICE}` };
+    return {
+      ok: false,
+      message: `This looks like a spreadsheet workbook (.xlsx) or a zip file, not CSV text. ${SAVE_AS_UTF8_ADVICE}`,
+    };
   }
   if (head.length >= 4 && head[0] === 0xd0 && head[1] === 0xcf && head[2] === 0x11 && head[3] === 0xe0) {
     return { ok: false, message: `This looks like an older spreadsheet workbook (.xls), not CSV text. ${SAVE_AS_UTF8_ADVICE}` };
@@ -68,7 +71,10 @@ export function checkHead(head: Uint8Array, wholeFile: boolean): HeadCheck {
   const probe = head.subarray(0, Math.min(head.length, 4096));
   if (probe.includes(0)) {
     // UTF-16 without a byte-order mark has a zero byte beside every ASCII character.
-    return { ok: false, message: `The file contains zero bytes: it may be UTF-16 text or not text at all. ${SAVE_AS_UTF8_ADVICE}` };
+    return {
+      ok: false,
+      message: `The file contains zero bytes: it may be UTF-16 text or not text at all. ${SAVE_AS_UTF8_ADVICE}`,
+    };
   }
   const bomLength = head.length >= 3 && head[0] === 0xef && head[1] === 0xbb && head[2] === 0xbf ? 3 : 0;
   const bad = firstInvalidUtf8(head, !wholeFile);

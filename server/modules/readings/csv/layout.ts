@@ -91,7 +91,11 @@ export function detectLayout(text: string, complete: boolean): Layout {
   }
 
   const hasHeader = headerAt !== -1;
-  const width = Math.max(0, ...records.slice(dataFrom, dataFrom + 200).map((r) => r.length), hasHeader ? records[headerAt].length : 0);
+  const width = Math.max(
+    0,
+    ...records.slice(dataFrom, dataFrom + 200).map((r) => r.length),
+    hasHeader ? records[headerAt].length : 0,
+  );
   const headers = hasHeader
     ? Array.from({ length: width }, (_, i) => (records[headerAt][i] ?? "").trim())
     : Array.from({ length: width }, (_, i) => `Column ${i + 1}`);

@@ -28,7 +28,14 @@ export type MappingOverride = {
 
 export const REQUIRED_ROLES = ["timestamp", "temperature", "humidity"] as const;
 export type RequiredRole = (typeof REQUIRED_ROLES)[number];
-export const COLUMN_ROLES = ["timestamp", "timeOfDay", "temperature", "humidity", "surfaceTemperature", "outdoorTemperature"] as const;
+export const COLUMN_ROLES = [
+  "timestamp",
+  "timeOfDay",
+  "temperature",
+  "humidity",
+  "surfaceTemperature",
+  "outdoorTemperature",
+] as const;
 export type ColumnRole = (typeof COLUMN_ROLES)[number];
 
 export interface MappingProposal {
@@ -40,7 +47,8 @@ export interface MappingProposal {
 
 const normalise = (h: string) => h.toLowerCase().replace(/º/g, "°").replace(/\s+/g, " ").trim();
 
-const IGNORED = /dew\s*-?\s*p(oin)?t|(^|[^a-z])(dp|td)([^a-z]|$)|heat\s*index|abs(olute|\.)?\s*hum|g\/m|vpd|vapou?r|wet\s*bulb|batt|volt|serial|^#$|^no\.?$|^nr\.?$|^index$|^record|^sample|^id$|^n$|^seq/;
+const IGNORED =
+  /dew\s*-?\s*p(oin)?t|(^|[^a-z])(dp|td)([^a-z]|$)|heat\s*index|abs(olute|\.)?\s*hum|g\/m|vpd|vapou?r|wet\s*bulb|batt|volt|serial|^#$|^no\.?$|^nr\.?$|^index$|^record|^sample|^id$|^n$|^seq/;
 const SURFACE = /surface|wall/;
 const OUTDOOR = /outdoor|outside|external|exterior|(^|[^a-z])out([^a-z]|$)|weather/;
 const HUMIDITY = /humid|(^|[^a-z])rh([^a-z]|$)|r\.h\.|^rh/;
@@ -98,7 +106,10 @@ function columnFacts(rows: readonly string[][], index: number, decimalComma: boo
     else if (n.unit === "F") cellUnits.F++;
     else if (n.unit === "%") cellUnits.pct++;
   }
-  const counter = numbers.length >= 3 && numbers[0] <= 1 && numbers.every((n, i) => Number.isInteger(n) && (i === 0 || n === numbers[i - 1] + 1));
+  const counter =
+    numbers.length >= 3 &&
+    numbers[0] <= 1 &&
+    numbers.every((n, i) => Number.isInteger(n) && (i === 0 || n === numbers[i - 1] + 1));
   return { index, values, present, numbers, cellUnits, counter };
 }
 
@@ -108,7 +119,8 @@ const median = (xs: number[]) => {
 };
 const isNumeric = (c: ColumnFacts) => c.present > 0 && c.numbers.length / c.present >= 0.8 && !c.counter;
 const fitsHumidity = (c: ColumnFacts) => c.numbers.every((n) => n > 0 && n <= 100);
-const label = (headers: readonly string[] | null, i: number) => (headers && headers[i]?.trim() ? `“${headers[i].trim()}”` : `column ${i + 1}`);
+const label = (headers: readonly string[] | null, i: number) =>
+  headers && headers[i]?.trim() ? `“${headers[i].trim()}”` : `column ${i + 1}`;
 
 /**
  * The unit of a temperature column: the header's, then the units written in the cells, then the
@@ -133,7 +145,11 @@ export function temperatureUnitOf(
  * A mapping for `rows` (data rows only, a sample is enough) given the header cells, or null when
  * the file has no header row.
  */
-export function proposeMapping(headers: readonly string[] | null, rows: readonly string[][], decimalComma: boolean): MappingProposal {
+export function proposeMapping(
+  headers: readonly string[] | null,
+  rows: readonly string[][],
+  decimalComma: boolean,
+): MappingProposal {
   const width = Math.max(headers?.length ?? 0, ...rows.map((r) => r.length));
   const facts = Array.from({ length: width }, (_, i) => columnFacts(rows, i, decimalComma));
   const taken = new Set<number>();
@@ -242,7 +258,9 @@ export function proposeMapping(headers: readonly string[] | null, rows: readonly
     const unit = temperatureUnitOf(headers?.[found.temperature] ?? null, rows, found.temperature, decimalComma);
     temperatureUnit = unit.unit;
     if (unit.fromValues) {
-      problems.push(`The temperatures in ${label(headers, found.temperature)} look like °F, so we read them as °F. Change the unit if they are °C.`);
+      problems.push(
+        `The temperatures in ${label(headers, found.temperature)} look like °F, so we read them as °F. Change the unit if they are °C.`,
+      );
     }
   }
 
@@ -257,10 +275,18 @@ export function proposeMapping(headers: readonly string[] | null, rows: readonly
     });
   }
   if (found.temperature === undefined) {
-    missing.push({ field: "temperature", message: "We could not find a temperature column (a header such as “Temperature (°C)”, “Temp °F” or “Celsius”, with numbers)." });
+    missing.push({
+      field: "temperature",
+      message:
+        "We could not find a temperature column (a header such as “Temperature (°C)”, “Temp °F” or “Celsius”, with numbers).",
+    });
   }
   if (found.humidity === undefined) {
-    missing.push({ field: "humidity", message: "We could not find a humidity column (a header such as “Humidity (%rh)”, “RH” or “Relative humidity”, with numbers from 0 to 100)." });
+    missing.push({
+      field: "humidity",
+      message:
+        "We could not find a humidity column (a header such as “Humidity (%rh)”, “RH” or “Relative humidity”, with numbers from 0 to 100).",
+    });
   }
 
   const mapping: MappingProposal["mapping"] = { temperatureUnit, timeZone: DEFAULT_TIME_ZONE };

@@ -30,7 +30,13 @@ export interface ConvertedRow {
   outdoorTemperatureC: number | null;
 }
 
-export const emptyRow = (): ConvertedRow => ({ takenAt: "", airTemperatureC: 0, relativeHumidityPct: 0, surfaceTemperatureC: null, outdoorTemperatureC: null });
+export const emptyRow = (): ConvertedRow => ({
+  takenAt: "",
+  airTemperatureC: 0,
+  relativeHumidityPct: 0,
+  surfaceTemperatureC: null,
+  outdoorTemperatureC: null,
+});
 
 /** Fills `out` and returns null, or returns the reasons (joined by "; ") and leaves `out` in an unknown state. */
 export type RowConverter = (record: readonly string[], out: ConvertedRow) => string | null;
@@ -60,10 +66,16 @@ export function createRowConverter(mapping: Mapping, options: RowConverterOption
   const zone = new ZoneConverter(mapping.timeZone);
   const { decimalComma } = options;
   const latestMs = options.nowMs + FUTURE_TOLERANCE_MS;
-  const { timestamp, timeOfDay, temperature, humidity, surfaceTemperature, outdoorTemperature, temperatureUnit, dateFormat } = mapping;
+  const { timestamp, timeOfDay, temperature, humidity, surfaceTemperature, outdoorTemperature, temperatureUnit, dateFormat } =
+    mapping;
 
   /** °C rounded to 2 dp, or a reason. `optional`: an empty cell is null. */
-  const celsius = (raw: string | undefined, name: string, range: { min: number; max: number }, optional: boolean): number | null | string => {
+  const celsius = (
+    raw: string | undefined,
+    name: string,
+    range: { min: number; max: number },
+    optional: boolean,
+  ): number | null | string => {
     const text = raw === undefined ? "" : raw.trim();
     if (text === "") return optional ? null : `${name} is missing`;
     const n = parseNumber(text, decimalComma);
@@ -114,9 +126,15 @@ export function createRowConverter(mapping: Mapping, options: RowConverterOption
       }
     }
 
-    const surface = surfaceTemperature === undefined ? null : celsius(record[surfaceTemperature], "surface temperature", SURFACE_TEMPERATURE_C, true);
+    const surface =
+      surfaceTemperature === undefined
+        ? null
+        : celsius(record[surfaceTemperature], "surface temperature", SURFACE_TEMPERATURE_C, true);
     if (typeof surface === "string") reasons = join(reasons, surface);
-    const outdoor = outdoorTemperature === undefined ? null : celsius(record[outdoorTemperature], "outdoor temperature", OUTDOOR_TEMPERATURE_C, true);
+    const outdoor =
+      outdoorTemperature === undefined
+        ? null
+        : celsius(record[outdoorTemperature], "outdoor temperature", OUTDOOR_TEMPERATURE_C, true);
     if (typeof outdoor === "string") reasons = join(reasons, outdoor);
 
     if (reasons !== null) return reasons;

@@ -11,7 +11,10 @@ export default function UsersAndInvitationsPage() {
   return (
     <>
       <title>Users and invitations · Dewline</title>
-      <PageHeader title="Users and invitations" description="Who can use Dewline in your organisation, and inviting new people." />
+      <PageHeader
+        title="Users and invitations"
+        description="Who can use Dewline in your organisation, and inviting new people."
+      />
       <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_22rem]">
         <Panel title="People" id="people">
           <UsersTable currentUserId={user.id} />

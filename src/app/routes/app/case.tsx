@@ -11,19 +11,19 @@ const loadStaffPage = () => import("../staff/case");
 const TenantCasePage = lazy(loadTenantPage);
 const StaffCasePage = lazy(loadStaffPage);
 
-export const clientLoader =
-  (queryClient: QueryClient) =>
-  async (args: LoaderFunctionArgs) => {
-    const user = await queryClient.ensureQueryData(meQueryOptions());
-    if (!user) return null;
-    // Loading the right page here means it is ready by the time the route renders.
-    const page = user.role === "tenant" ? await loadTenantPage() : await loadStaffPage();
-    return page.clientLoader(queryClient)(args);
-  };
+export const clientLoader = (queryClient: QueryClient) => async (args: LoaderFunctionArgs) => {
+  const user = await queryClient.ensureQueryData(meQueryOptions());
+  if (!user) return null;
+  // Loading the right page here means it is ready by the time the route renders.
+  const page = user.role === "tenant" ? await loadTenantPage() : await loadStaffPage();
+  return page.clientLoader(queryClient)(args);
+};
 
 export default function CaseRoute() {
   const user = useUser();
   return (
-    <Suspense fallback={<LoadingState>Opening the case…</LoadingState>}>{user.role === "tenant" ? <TenantCasePage /> : <StaffCasePage />}</Suspense>
+    <Suspense fallback={<LoadingState>Opening the case…</LoadingState>}>
+      {user.role === "tenant" ? <TenantCasePage /> : <StaffCasePage />}
+    </Suspense>
   );
 }

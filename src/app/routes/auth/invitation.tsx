@@ -53,8 +53,8 @@ export default function InvitationPage() {
         title={`Welcome, ${name}`}
         description={
           <>
-            {organisationName} has invited you to Dewline. Choose a password for <strong className="text-ink">{email}</strong> to finish
-            setting up your account.
+            {organisationName} has invited you to Dewline. Choose a password for <strong className="text-ink">{email}</strong> to
+            finish setting up your account.
           </>
         }
       />

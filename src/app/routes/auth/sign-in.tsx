@@ -24,7 +24,11 @@ export default function SignInPage() {
       <PageHeader title="Sign in" description="Use the e-mail address and password of your Dewline account." />
       <div className="flex flex-col gap-4">
         {signedOut ? <Alert tone="success">You have signed out.</Alert> : null}
-        {next ? <Alert tone="info" live="none">Please sign in to open that page.</Alert> : null}
+        {next ? (
+          <Alert tone="info" live="none">
+            Please sign in to open that page.
+          </Alert>
+        ) : null}
         <Panel as="div">
           <SignInForm onSignedIn={(user) => navigate(next ?? roleHome(user.role).path, { replace: true })} />
         </Panel>

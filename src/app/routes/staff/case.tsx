@@ -120,7 +120,10 @@ function Workspace({ id }: { id: number }) {
   const kase = useCase(id);
   const staff = useStaff();
   const policy = usePolicy();
-  const nameOf = useMemo(() => (userId: number) => (userId === user.id ? `${user.name} (you)` : staffName(staff.data, userId)), [staff.data, user]);
+  const nameOf = useMemo(
+    () => (userId: number) => (userId === user.id ? `${user.name} (you)` : staffName(staff.data, userId)),
+    [staff.data, user],
+  );
   const sender = useMemo(() => ({ name: user.name, role: roleLabels[user.role] }), [user.name, user.role]);
 
   if (kase.isPending) return <LoadingState>Loading the case…</LoadingState>;
@@ -204,7 +207,9 @@ function Workspace({ id }: { id: number }) {
         </Panel>
         <Panel title="HHSRS assessment" id="case-hhsrs">
           <div className="flex flex-col gap-5">
-            <p className="text-sm text-ink-soft">Hazard 1, damp and mould growth. The server works out the score, band and Category.</p>
+            <p className="text-sm text-ink-soft">
+              Hazard 1, damp and mould growth. The server works out the score, band and Category.
+            </p>
             {officer ? (
               <section aria-labelledby="case-hhsrs-form-heading" className="flex flex-col gap-3">
                 <h3 id="case-hhsrs-form-heading" className="text-lg font-bold">
@@ -285,7 +290,13 @@ function WorksPanel({ c, role }: { c: CaseDto; role: Role }) {
           <h3 id="case-works-list-heading" className="text-lg font-bold">
             Work orders
           </h3>
-          <WorkOrderList caseId={c.id} canManage={canManageWorks(role)} photos={photos.data} Gallery={PhotoGallery} PhotoUpload={WorkOrderPhotos} />
+          <WorkOrderList
+            caseId={c.id}
+            canManage={canManageWorks(role)}
+            photos={photos.data}
+            Gallery={PhotoGallery}
+            PhotoUpload={WorkOrderPhotos}
+          />
         </section>
       </div>
     </Panel>
@@ -322,12 +333,20 @@ function EvaluationPanels({ id }: { id: number }) {
   return (
     <>
       <Panel title="Diagnosis hints" id="case-diagnosis">
-        <QueryState query={evaluation} loading="Working out what the readings point to…" failed="We couldn't work out the readings just now">
+        <QueryState
+          query={evaluation}
+          loading="Working out what the readings point to…"
+          failed="We couldn't work out the readings just now"
+        >
           {(e) => <DiagnosisHints rooms={e.rooms} />}
         </QueryState>
       </Panel>
       <Panel title="What the readings show" id="case-evaluation">
-        <QueryState query={evaluation} loading="Working out what the readings show…" failed="We couldn't work out the readings just now">
+        <QueryState
+          query={evaluation}
+          loading="Working out what the readings show…"
+          failed="We couldn't work out the readings just now"
+        >
           {(e) => <CaseEvaluationView evaluation={e} audience="staff" />}
         </QueryState>
       </Panel>
@@ -340,7 +359,9 @@ function TimelinePanel({ c, staffNames }: { c: CaseDto; staffNames: readonly { i
   const names = useMemo(() => new Map((staffNames ?? []).map((s) => [s.id, s.name])), [staffNames]);
   return (
     <Panel title="Timeline" id="case-timeline">
-      <p className="mb-3 text-sm text-ink-soft">Everything that has happened, newest first, with internal notes and where each e-mail went.</p>
+      <p className="mb-3 text-sm text-ink-soft">
+        Everything that has happened, newest first, with internal notes and where each e-mail went.
+      </p>
       <QueryState query={events} loading="Loading the timeline…" failed="We couldn't load the timeline">
         {(list) => <CaseTimeline events={list} rooms={c.homeRooms} audience="staff" staffNames={names} />}
       </QueryState>

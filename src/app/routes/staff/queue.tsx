@@ -26,7 +26,10 @@ export default function CaseQueuePage() {
   return (
     <>
       <title>Case queue · Dewline</title>
-      <PageHeader title="Case queue" description="Reports from tenants, most urgent first. Filter, sort and share the view: it is all in the link." />
+      <PageHeader
+        title="Case queue"
+        description="Reports from tenants, most urgent first. Filter, sort and share the view: it is all in the link."
+      />
       <Panel as="div">
         <CaseQueueTable statusLabel={statusLabelFor("staff")} renderStatus={renderStatus} estates={estates.data} />
       </Panel>

@@ -177,10 +177,22 @@ function NextSteps({ c, onChanged }: { c: CaseDto; onChanged: () => void }) {
         {meaning ? <p>{meaning}</p> : null}
         <p className="mt-2">You can add to your report at any time.</p>
         <div className="mt-3 flex flex-wrap gap-2">
-          <Button ref={photosButton} variant="secondary" aria-expanded={open === "photos"} aria-controls="case-add-photos" onClick={() => toggle("photos")}>
+          <Button
+            ref={photosButton}
+            variant="secondary"
+            aria-expanded={open === "photos"}
+            aria-controls="case-add-photos"
+            onClick={() => toggle("photos")}
+          >
             Add photos
           </Button>
-          <Button ref={readingsButton} variant="secondary" aria-expanded={open === "readings"} aria-controls="case-add-readings" onClick={() => toggle("readings")}>
+          <Button
+            ref={readingsButton}
+            variant="secondary"
+            aria-expanded={open === "readings"}
+            aria-controls="case-add-readings"
+            onClick={() => toggle("readings")}
+          >
             Add readings
           </Button>
           <WorseButton caseId={c.id} onReported={onChanged} />
@@ -210,7 +222,11 @@ interface ActionPanelProps {
 
 function ActionPanel({ id, title, headingRef, onClose, children }: ActionPanelProps) {
   return (
-    <section id={id} aria-labelledby={`${id}-heading`} className="flex flex-col gap-4 rounded-lg border-2 border-dew-600 bg-surface p-4 shadow-card sm:p-5">
+    <section
+      id={id}
+      aria-labelledby={`${id}-heading`}
+      className="flex flex-col gap-4 rounded-lg border-2 border-dew-600 bg-surface p-4 shadow-card sm:p-5"
+    >
       <div className="flex flex-wrap items-center justify-between gap-2">
         <h2 id={`${id}-heading`} ref={headingRef} tabIndex={-1} className="text-xl font-bold focus:outline-none">
           {title}

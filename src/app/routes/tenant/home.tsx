@@ -28,14 +28,20 @@ export default function MyHomePage() {
       <title>My home · Dewline</title>
       <PageHeader
         title="My home"
-        description={home.data ? `${streetAddress(home.data.property)}, ${home.data.property.town} ${home.data.property.postcode}` : undefined}
+        description={
+          home.data
+            ? `${streetAddress(home.data.property)}, ${home.data.property.town} ${home.data.property.postcode}`
+            : undefined
+        }
       />
       {home.isPending ? (
         <LoadingState>Loading your home…</LoadingState>
       ) : home.isError ? (
         <Alert
           tone={home.error instanceof ApiError && home.error.status === 404 ? "info" : "danger"}
-          title={home.error instanceof ApiError && home.error.status === 404 ? "No home to show yet" : "We could not load your home"}
+          title={
+            home.error instanceof ApiError && home.error.status === 404 ? "No home to show yet" : "We could not load your home"
+          }
         >
           {errorMessage(home.error)}
         </Alert>

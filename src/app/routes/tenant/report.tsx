@@ -35,7 +35,11 @@ export default function ReportPage() {
       ) : home.isError ? (
         <Alert
           tone={home.error instanceof ApiError && home.error.status === 404 ? "info" : "danger"}
-          title={home.error instanceof ApiError && home.error.status === 404 ? "We can't find a home to report for" : "We couldn't load your home's details"}
+          title={
+            home.error instanceof ApiError && home.error.status === 404
+              ? "We can't find a home to report for"
+              : "We couldn't load your home's details"
+          }
         >
           {errorMessage(home.error)}
         </Alert>

@@ -6,7 +6,11 @@ import type { User } from "../roles";
 import { authKeys } from "@/lib/query-keys";
 
 export const signInSchema = z.object({
-  email: z.string().trim().min(1, "Enter your e-mail address.").pipe(z.email("Enter a valid e-mail address, like name@example.org.")),
+  email: z
+    .string()
+    .trim()
+    .min(1, "Enter your e-mail address.")
+    .pipe(z.email("Enter a valid e-mail address, like name@example.org.")),
   password: z.string().min(1, "Enter your password."),
 });
 export type SignInInput = z.infer<typeof signInSchema>;

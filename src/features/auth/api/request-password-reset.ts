@@ -3,7 +3,11 @@ import { z } from "zod";
 import { api } from "@/lib/api-client";
 
 export const forgotPasswordSchema = z.object({
-  email: z.string().trim().min(1, "Enter your e-mail address.").pipe(z.email("Enter a valid e-mail address, like name@example.org.")),
+  email: z
+    .string()
+    .trim()
+    .min(1, "Enter your e-mail address.")
+    .pipe(z.email("Enter a valid e-mail address, like name@example.org.")),
 });
 export type ForgotPasswordInput = z.infer<typeof forgotPasswordSchema>;
 

@@ -18,7 +18,9 @@ export function ForgotPasswordForm() {
     return (
       <Alert tone="success" title="Check your e-mail">
         <p>{request.data.message}</p>
-        <p className="mt-2">The link works for one hour. If nothing arrives, check your junk folder or ask your landlord's team for help.</p>
+        <p className="mt-2">
+          The link works for one hour. If nothing arrives, check your junk folder or ask your landlord's team for help.
+        </p>
       </Alert>
     );
   }

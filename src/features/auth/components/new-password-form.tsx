@@ -28,11 +28,18 @@ export function NewPasswordForm({ submitLabel, pending, error, onSubmit }: NewPa
     register,
     handleSubmit,
     formState: { errors },
-  } = useForm<NewPasswordFormInput>({ resolver: zodResolver(newPasswordFormSchema), defaultValues: { password: "", confirm: "" } });
+  } = useForm<NewPasswordFormInput>({
+    resolver: zodResolver(newPasswordFormSchema),
+    defaultValues: { password: "", confirm: "" },
+  });
 
   return (
     <form onSubmit={handleSubmit((v) => onSubmit(v.password))} noValidate className="flex flex-col gap-4">
-      {error ? <Alert tone="danger" title="That did not work">{errorMessage(error)}</Alert> : null}
+      {error ? (
+        <Alert tone="danger" title="That did not work">
+          {errorMessage(error)}
+        </Alert>
+      ) : null}
       <Input
         label="New password"
         type="password"
@@ -41,7 +48,13 @@ export function NewPasswordForm({ submitLabel, pending, error, onSubmit }: NewPa
         error={errors.password?.message}
         {...register("password")}
       />
-      <Input label="Type the new password again" type="password" autoComplete="new-password" error={errors.confirm?.message} {...register("confirm")} />
+      <Input
+        label="Type the new password again"
+        type="password"
+        autoComplete="new-password"
+        error={errors.confirm?.message}
+        {...register("confirm")}
+      />
       <div>
         <Button type="submit" size="lg" busy={pending}>
           {submitLabel}

@@ -29,12 +29,20 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void })
     });
   });
 
-  const serverError = login.error && !(login.error instanceof ApiError && login.error.status === 400 && login.error.fieldErrors.length) ? login.error : null;
+  const serverError =
+    login.error && !(login.error instanceof ApiError && login.error.status === 400 && login.error.fieldErrors.length)
+      ? login.error
+      : null;
 
   return (
     <form onSubmit={onSubmit} noValidate className="flex flex-col gap-4">
       {serverError ? (
-        <Alert tone="danger" title={serverError instanceof ApiError && serverError.status === 429 ? "Please wait a little" : "We could not sign you in"}>
+        <Alert
+          tone="danger"
+          title={
+            serverError instanceof ApiError && serverError.status === 429 ? "Please wait a little" : "We could not sign you in"
+          }
+        >
           {errorMessage(serverError)}
         </Alert>
       ) : null}
@@ -47,7 +55,13 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void })
         error={errors.email?.message}
         {...register("email")}
       />
-      <Input label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...register("password")} />
+      <Input
+        label="Password"
+        type="password"
+        autoComplete="current-password"
+        error={errors.password?.message}
+        {...register("password")}
+      />
       <div className="flex flex-wrap items-center justify-between gap-3">
         <Button type="submit" size="lg" busy={login.isPending}>
           Sign in

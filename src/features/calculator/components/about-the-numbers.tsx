@@ -13,26 +13,26 @@ export function AboutTheNumbers() {
         <div>
           <dt className="font-bold">Dew point</dt>
           <dd>
-            Air carries water as an invisible vapour, and warm air can carry more than cold air. Cool the room's air down and, at some
-            temperature, it cannot carry all of its water any more: that temperature is its dew point. A window or wall colder than the
-            dew point takes the extra water out of the air, and it gathers as condensation.
+            Air carries water as an invisible vapour, and warm air can carry more than cold air. Cool the room's air down and, at
+            some temperature, it cannot carry all of its water any more: that temperature is its dew point. A window or wall
+            colder than the dew point takes the extra water out of the air, and it gathers as condensation.
           </dd>
         </div>
         <div>
           <dt className="font-bold">Relative humidity at the surface</dt>
           <dd>
-            A cold surface cools the thin layer of air touching it, so that air is damper, relative to what it could hold, than the air
-            in the middle of the room. Mould can grow where this surface humidity stays at {MOULD_SURFACE_RH_PCT} % or more for weeks
-            (ISO 13788 judges it on a monthly average); at 100 % water condenses. Dewline marks {BORDERLINE_SURFACE_RH_PCT}–
-            {MOULD_SURFACE_RH_PCT} % as borderline: that early warning is our own, not a standard's.
+            A cold surface cools the thin layer of air touching it, so that air is damper, relative to what it could hold, than
+            the air in the middle of the room. Mould can grow where this surface humidity stays at {MOULD_SURFACE_RH_PCT} % or
+            more for weeks (ISO 13788 judges it on a monthly average); at 100 % water condenses. Dewline marks{" "}
+            {BORDERLINE_SURFACE_RH_PCT}–{MOULD_SURFACE_RH_PCT} % as borderline: that early warning is our own, not a standard's.
           </dd>
         </div>
         <div>
           <dt className="font-bold">Temperature factor</dt>
           <dd>
             How well a surface keeps the room's warmth: 0 means as cold as outdoors, 1 as warm as the room. It needs the outdoor
-            temperature. BRE Information Paper IP 1/06 looks for at least {CRITICAL_TEMPERATURE_FACTOR} on the inside surfaces of homes;
-            lower than that, a surface runs cold enough in winter for mould.
+            temperature. BRE Information Paper IP 1/06 looks for at least {CRITICAL_TEMPERATURE_FACTOR} on the inside surfaces of
+            homes; lower than that, a surface runs cold enough in winter for mould.
           </dd>
         </div>
         <div>

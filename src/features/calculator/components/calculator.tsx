@@ -25,9 +25,7 @@ import {
 import { useDebouncedValue } from "../hooks/use-debounced-value";
 
 type Outcome =
-  | { status: "ok"; result: PointResult }
-  | { status: "incomplete"; missing: CalculatorField[] }
-  | { status: "invalid" };
+  { status: "ok"; result: PointResult } | { status: "incomplete"; missing: CalculatorField[] } | { status: "invalid" };
 
 const isBlank = (value: unknown) => value === undefined || value === null || (typeof value === "string" && value.trim() === "");
 
@@ -125,8 +123,8 @@ export function Calculator() {
         <fieldset className="flex flex-col gap-4 rounded-lg border border-line bg-surface p-4">
           <legend className="px-1 text-lg font-bold">The cold surface</legend>
           <p className="text-sm text-ink-soft">
-            A window, wall or corner you are worried about. Give its temperature if you can measure it, or choose what it is and give the
-            outdoor temperature to estimate it.
+            A window, wall or corner you are worried about. Give its temperature if you can measure it, or choose what it is and
+            give the outdoor temperature to estimate it.
           </p>
           <Input
             label={`${FIELD_LABELS.surfaceTemperatureC} (°C)`}
@@ -206,7 +204,10 @@ function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointR
   return (
     <EmptyState title="Results appear here as you type">
       {missing.length ? (
-        <p>Enter the {joinAnd(missing.map((field) => FIELD_LABELS[field].toLowerCase()))} to see the dew point and how damp the surface is.</p>
+        <p>
+          Enter the {joinAnd(missing.map((field) => FIELD_LABELS[field].toLowerCase()))} to see the dew point and how damp the
+          surface is.
+        </p>
       ) : (
         <p>Correct the value with a message beside it to see the result.</p>
       )}
@@ -214,4 +215,5 @@ function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointR
   );
 }
 
-const joinAnd = (items: string[]) => (items.length <= 1 ? (items[0] ?? "") : `${items.slice(0, -1).join(", ")} and ${items.at(-1)}`);
+const joinAnd = (items: string[]) =>
+  items.length <= 1 ? (items[0] ?? "") : `${items.slice(0, -1).join(", ")} and ${items.at(-1)}`;

@@ -4,7 +4,8 @@ import type { Assessment } from "./types";
 import { caseKeys } from "@/lib/query-keys";
 
 /** Every HHSRS assessment version, oldest first. */
-export const getAssessments = (id: number, signal?: AbortSignal) => api.get<{ assessments: Assessment[] }>(`/cases/${id}/assessments`, { signal });
+export const getAssessments = (id: number, signal?: AbortSignal) =>
+  api.get<{ assessments: Assessment[] }>(`/cases/${id}/assessments`, { signal });
 
 export const assessmentsQueryOptions = (id: number) =>
   queryOptions({

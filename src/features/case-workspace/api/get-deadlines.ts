@@ -4,7 +4,8 @@ import type { CaseDeadline } from "./types";
 import { caseKeys } from "@/lib/query-keys";
 
 /** The five statutory stages, always in the same order. */
-export const getDeadlines = (id: number, signal?: AbortSignal) => api.get<{ deadlines: CaseDeadline[] }>(`/cases/${id}/deadlines`, { signal });
+export const getDeadlines = (id: number, signal?: AbortSignal) =>
+  api.get<{ deadlines: CaseDeadline[] }>(`/cases/${id}/deadlines`, { signal });
 
 export const deadlinesQueryOptions = (id: number) =>
   queryOptions({

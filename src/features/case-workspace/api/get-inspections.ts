@@ -4,7 +4,8 @@ import type { Inspection } from "./types";
 import { caseKeys } from "@/lib/query-keys";
 
 /** Inspections of the case, oldest first. */
-export const getInspections = (id: number, signal?: AbortSignal) => api.get<{ inspections: Inspection[] }>(`/cases/${id}/inspections`, { signal });
+export const getInspections = (id: number, signal?: AbortSignal) =>
+  api.get<{ inspections: Inspection[] }>(`/cases/${id}/inspections`, { signal });
 
 export const inspectionsQueryOptions = (id: number) =>
   queryOptions({

@@ -4,7 +4,8 @@ import type { RelatedCase } from "./types";
 import { caseKeys } from "@/lib/query-keys";
 
 /** Other cases at the same home, newest first. */
-export const getRelatedCases = (id: number, signal?: AbortSignal) => api.get<{ cases: RelatedCase[] }>(`/cases/${id}/related`, { signal });
+export const getRelatedCases = (id: number, signal?: AbortSignal) =>
+  api.get<{ cases: RelatedCase[] }>(`/cases/${id}/related`, { signal });
 
 export const relatedCasesQueryOptions = (id: number) =>
   queryOptions({

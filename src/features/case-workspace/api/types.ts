@@ -26,7 +26,20 @@ export type MoistureUnit = "pct" | "wme";
 export type WorkspaceRoom = Pick<CaseResponse["rooms"][number], "id" | "name">;
 
 /** The parts of GET /api/cases/:id the workspace reads (the page passes the whole case). */
-export type WorkspaceCase = Pick<CaseResponse, "id" | "reference" | "status" | "awareAt" | "createdAt" | "assigneeId" | "hazardClass" | "hazardClassReason" | "property" | "rooms" | "homeRooms">;
+export type WorkspaceCase = Pick<
+  CaseResponse,
+  | "id"
+  | "reference"
+  | "status"
+  | "awareAt"
+  | "createdAt"
+  | "assigneeId"
+  | "hazardClass"
+  | "hazardClassReason"
+  | "property"
+  | "rooms"
+  | "homeRooms"
+>;
 
 /** PATCH /api/cases/:id: one change at a time from the workspace (server/modules/cases/cases.schemas.ts). */
 export interface CasePatch {

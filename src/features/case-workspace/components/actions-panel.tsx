@@ -39,7 +39,9 @@ export function ActionsPanel({ c, statusLabel, me, canAct }: ActionsPanelProps) 
             {c.hazardClassReason ? <span className="block text-ink-soft">Reason: {c.hazardClassReason}</span> : null}
           </dd>
         </dl>
-        <p className="mt-3 text-ink-soft">Only housing officers and administrators can change the status, the assignee or the hazard class.</p>
+        <p className="mt-3 text-ink-soft">
+          Only housing officers and administrators can change the status, the assignee or the hazard class.
+        </p>
       </Panel>
     );
   }
@@ -90,7 +92,8 @@ function StatusForm({ c, statusLabel }: { c: WorkspaceCase; statusLabel: (s: str
     setDone(null);
     const found: typeof errors = {};
     if (!to) found.to = "Choose the status to move the case to.";
-    if (needsReason && reason.trim().length < 3) found.reason = to === "cancelled" ? "Say why the case is being cancelled." : "Say why the case is being reopened.";
+    if (needsReason && reason.trim().length < 3)
+      found.reason = to === "cancelled" ? "Say why the case is being cancelled." : "Say why the case is being reopened.";
     else if (reason.trim().length > 0 && reason.trim().length < 3) found.reason = "Give a short reason of a few words.";
     setErrors(found);
     if (found.to) return toRef.current?.focus();
@@ -135,7 +138,13 @@ function StatusForm({ c, statusLabel }: { c: WorkspaceCase; statusLabel: (s: str
             ref={reasonRef}
             label="Reason"
             optional={!needsReason}
-            hint={needsReason ? (to === "cancelled" ? "Needed when cancelling a case. Staff see it in the timeline." : "Needed when reopening a case. Staff see it in the timeline.") : "Staff see it in the timeline."}
+            hint={
+              needsReason
+                ? to === "cancelled"
+                  ? "Needed when cancelling a case. Staff see it in the timeline."
+                  : "Needed when reopening a case. Staff see it in the timeline."
+                : "Staff see it in the timeline."
+            }
             rows={2}
             maxLength={2000}
             value={reason}

@@ -83,11 +83,14 @@ export function AssessmentForm({ caseId }: { caseId: number }) {
         ))}
       </Select>
 
-      <fieldset aria-describedby={`${id}-spread-hint ${id}-total${errors.spreadTotal ? ` ${id}-total-error` : ""}`} className="flex flex-col gap-3">
+      <fieldset
+        aria-describedby={`${id}-spread-hint ${id}-total${errors.spreadTotal ? ` ${id}-total-error` : ""}`}
+        className="flex flex-col gap-3"
+      >
         <legend className="mb-1 font-bold">Spread of harm (%)</legend>
         <p id={`${id}-spread-hint`} className="-mt-1 text-sm text-ink-soft">
-          Each class takes a representative point ({SPREAD_POINTS.map((p) => tenthsText(p)).join(", ")}), except one class that may hold the
-          remainder. The four must total 100. An empty box counts as 0.
+          Each class takes a representative point ({SPREAD_POINTS.map((p) => tenthsText(p)).join(", ")}), except one class that
+          may hold the remainder. The four must total 100. An empty box counts as 0.
         </p>
         <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
           {HARM_CLASSES.map((name, i) => (
@@ -110,7 +113,11 @@ export function AssessmentForm({ caseId }: { caseId: number }) {
         <p id={`${id}-total`} aria-live="polite" className="font-semibold">
           Total: {tenthsText(total)} % of 100 %
           <span className="font-normal text-ink-soft">
-            {remaining === 0 ? " — complete" : remaining > 0 ? ` — ${tenthsText(remaining)} % still to place` : ` — ${tenthsText(-remaining)} % too much`}
+            {remaining === 0
+              ? " — complete"
+              : remaining > 0
+                ? ` — ${tenthsText(remaining)} % still to place`
+                : ` — ${tenthsText(-remaining)} % too much`}
           </span>
         </p>
         {errors.spreadTotal ? <FieldError id={`${id}-total-error`}>{errors.spreadTotal}</FieldError> : null}
@@ -165,7 +172,9 @@ export function AssessmentVersions({ caseId, staffName }: { caseId: number; staf
           <EmptyState title="No HHSRS assessment yet" />
         ) : (
           <div className="flex flex-col gap-2">
-            <p className="text-sm text-ink-soft">Each assessment is kept as its own version; earlier versions are never changed.</p>
+            <p className="text-sm text-ink-soft">
+              Each assessment is kept as its own version; earlier versions are never changed.
+            </p>
             <ol className="flex flex-col gap-3">
               {[...list]
                 .sort((a, b) => b.version - a.version)

@@ -48,7 +48,11 @@ export function DeadlinesPanel({ caseId, policySource }: { caseId: number; polic
       </QueryState>
       <p className="mt-3 text-xs text-ink-soft">
         Times are UK time (Europe/London).{" "}
-        {policySource ? (policySource === "landlord" ? "Timeframes: your organisation's own policy." : "Timeframes: the England social-housing default.") : null}
+        {policySource
+          ? policySource === "landlord"
+            ? "Timeframes: your organisation's own policy."
+            : "Timeframes: the England social-housing default."
+          : null}
       </p>
     </Panel>
   );
@@ -64,7 +68,9 @@ const tagTone: Record<string, string> = {
 /** The state in words with its own shape of icon, so colour is never the only signal. */
 export function StateTag({ state }: { state: string }) {
   return (
-    <span className={`inline-flex items-center gap-1 rounded-pill border px-2 py-0.5 text-sm font-semibold ${tagTone[state] ?? tagTone["not-applicable"]}`}>
+    <span
+      className={`inline-flex items-center gap-1 rounded-pill border px-2 py-0.5 text-sm font-semibold ${tagTone[state] ?? tagTone["not-applicable"]}`}
+    >
       <StateIcon state={state} />
       {stateLabel(state)}
     </span>
@@ -72,7 +78,13 @@ export function StateTag({ state }: { state: string }) {
 }
 
 function StateIcon({ state }: { state: string }) {
-  const common = { fill: "none", stroke: "currentColor", strokeWidth: 2, strokeLinecap: "round" as const, strokeLinejoin: "round" as const };
+  const common = {
+    fill: "none",
+    stroke: "currentColor",
+    strokeWidth: 2,
+    strokeLinecap: "round" as const,
+    strokeLinejoin: "round" as const,
+  };
   return (
     <svg viewBox="0 0 16 16" className="size-4 shrink-0" aria-hidden="true" focusable="false">
       {state === "met" ? (

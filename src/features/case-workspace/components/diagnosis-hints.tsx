@@ -10,10 +10,13 @@ export interface DiagnosisRoom {
 /** The engine's diagnosis for each room with readings: a hint for the inspection, not a finding. */
 export function DiagnosisHints({ rooms }: { rooms: readonly DiagnosisRoom[] }) {
   const withDiagnosis = rooms.filter((r) => r.series?.diagnosis);
-  if (withDiagnosis.length === 0) return <EmptyState title="No diagnosis yet">The engine needs readings over time to suggest a cause.</EmptyState>;
+  if (withDiagnosis.length === 0)
+    return <EmptyState title="No diagnosis yet">The engine needs readings over time to suggest a cause.</EmptyState>;
   return (
     <div className="flex flex-col gap-3">
-      <p className="text-sm text-ink-soft">Hints from the readings to check on site. They never decide whether the report is investigated.</p>
+      <p className="text-sm text-ink-soft">
+        Hints from the readings to check on site. They never decide whether the report is investigated.
+      </p>
       <ul className="flex flex-col gap-3">
         {withDiagnosis.map((r) => {
           const d = r.series!.diagnosis!;

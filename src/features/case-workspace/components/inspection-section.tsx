@@ -8,7 +8,14 @@ import { fixed } from "@/lib/domain/wording";
 import { useInspections } from "../api/get-inspections";
 import { useRecordInspection } from "../api/record-inspection";
 import type { Inspection, MoistureUnit, WorkspaceRoom } from "../api/types";
-import { checkInspection, hasErrors, MAX_ROOM_ROWS, type InspectionErrors, type InspectionFields, type RoomRowFields } from "../lib/inspection-form";
+import {
+  checkInspection,
+  hasErrors,
+  MAX_ROOM_ROWS,
+  type InspectionErrors,
+  type InspectionFields,
+  type RoomRowFields,
+} from "../lib/inspection-form";
 import { CAUSE_CHOICES, MOISTURE_UNITS, MOULD_EXTENT_CHOICES, labelOf } from "../lib/labels";
 import { formatWeekdayDateTimeZoned, londonLocalInput } from "@/lib/dates";
 import { QueryState } from "./query-state";
@@ -26,7 +33,13 @@ const blankRow = (roomId = ""): RoomRowFields => ({
   note: "",
 });
 
-const blankForm = (): InspectionFields => ({ inspectedAt: londonLocalInput(), cause: "", mouldExtent: "", findings: "", rooms: [] });
+const blankForm = (): InspectionFields => ({
+  inspectedAt: londonLocalInput(),
+  cause: "",
+  mouldExtent: "",
+  findings: "",
+  rooms: [],
+});
 
 interface InspectionFormProps {
   caseId: number;
@@ -59,7 +72,8 @@ export function InspectionForm({ caseId, rooms, photoUpload }: InspectionFormPro
     setSaved(null);
     record.reset();
     setFields((f) => ({ ...f, [key]: value }));
-    if (key !== "rooms" && errors[key as Exclude<keyof InspectionErrors, "rooms">]) setErrors((e) => ({ ...e, [key]: undefined }));
+    if (key !== "rooms" && errors[key as Exclude<keyof InspectionErrors, "rooms">])
+      setErrors((e) => ({ ...e, [key]: undefined }));
   };
 
   const setRow = (key: string, patch: Partial<RoomRowFields>) => {
@@ -109,7 +123,14 @@ export function InspectionForm({ caseId, rooms, photoUpload }: InspectionFormPro
           onChange={(e) => set("inspectedAt", e.target.value)}
           controlClassName="sm:max-w-xs"
         />
-        <RadioGroup legend="Cause found" options={CAUSE_CHOICES} value={fields.cause} onChange={(v) => set("cause", v)} error={errors.cause} columns />
+        <RadioGroup
+          legend="Cause found"
+          options={CAUSE_CHOICES}
+          value={fields.cause}
+          onChange={(v) => set("cause", v)}
+          error={errors.cause}
+          columns
+        />
         <RadioGroup
           legend="How much mould was seen"
           hint="The total area across the home."
@@ -145,7 +166,12 @@ export function InspectionForm({ caseId, rooms, photoUpload }: InspectionFormPro
             />
           ))}
           <div>
-            <Button ref={addRef} variant="secondary" onClick={addRow} disabled={fields.rooms.length >= MAX_ROOM_ROWS || rooms.length === 0}>
+            <Button
+              ref={addRef}
+              variant="secondary"
+              onClick={addRow}
+              disabled={fields.rooms.length >= MAX_ROOM_ROWS || rooms.length === 0}
+            >
               Add a room
             </Button>
             {rooms.length === 0 ? <p className="mt-1 text-sm text-ink-soft">This home has no rooms on record.</p> : null}
@@ -162,7 +188,11 @@ export function InspectionForm({ caseId, rooms, photoUpload }: InspectionFormPro
             {errorMessage(record.error)}
           </Alert>
         ) : null}
-        {saved ? <Alert tone="success" title={saved}>The deadlines and the timeline now include it.</Alert> : null}
+        {saved ? (
+          <Alert tone="success" title={saved}>
+            The deadlines and the timeline now include it.
+          </Alert>
+        ) : null}
         <div>
           <Button type="submit" busy={record.isPending}>
             Record inspection
@@ -214,8 +244,22 @@ function RoomRow({ index, row, rooms, errors, onChange, onRemove }: RoomRowProps
             </option>
           ))}
         </Select>
-        <Input label="Air temperature (°C)" optional inputMode="decimal" value={row.airTemperatureC} error={errors.airTemperatureC} onChange={(e) => onChange({ airTemperatureC: e.target.value })} />
-        <Input label="Relative humidity (%)" optional inputMode="decimal" value={row.relativeHumidityPct} error={errors.relativeHumidityPct} onChange={(e) => onChange({ relativeHumidityPct: e.target.value })} />
+        <Input
+          label="Air temperature (°C)"
+          optional
+          inputMode="decimal"
+          value={row.airTemperatureC}
+          error={errors.airTemperatureC}
+          onChange={(e) => onChange({ airTemperatureC: e.target.value })}
+        />
+        <Input
+          label="Relative humidity (%)"
+          optional
+          inputMode="decimal"
+          value={row.relativeHumidityPct}
+          error={errors.relativeHumidityPct}
+          onChange={(e) => onChange({ relativeHumidityPct: e.target.value })}
+        />
         <Input
           label="Surface temperatures (°C)"
           optional
@@ -234,7 +278,12 @@ function RoomRow({ index, row, rooms, errors, onChange, onRemove }: RoomRowProps
             onChange={(e) => onChange({ moistureValue: e.target.value })}
             className="flex-1"
           />
-          <Select label="Unit" value={row.moistureUnit} onChange={(e) => onChange({ moistureUnit: e.target.value as MoistureUnit })} className="w-24">
+          <Select
+            label="Unit"
+            value={row.moistureUnit}
+            onChange={(e) => onChange({ moistureUnit: e.target.value as MoistureUnit })}
+            className="w-24"
+          >
             {MOISTURE_UNITS.map((u) => (
               <option key={u.value} value={u.value}>
                 {u.label}
@@ -242,7 +291,14 @@ function RoomRow({ index, row, rooms, errors, onChange, onRemove }: RoomRowProps
             ))}
           </Select>
         </div>
-        <Input label="Note" optional maxLength={1000} value={row.note} error={errors.note} onChange={(e) => onChange({ note: e.target.value })} />
+        <Input
+          label="Note"
+          optional
+          maxLength={1000}
+          value={row.note}
+          error={errors.note}
+          onChange={(e) => onChange({ note: e.target.value })}
+        />
       </div>
     </fieldset>
   );
@@ -261,7 +317,9 @@ export function InspectionList({ caseId, rooms, staffName }: InspectionListProps
     <QueryState query={inspections} loading="Loading inspections…" failed="We couldn't load the inspections">
       {(list) =>
         list.length === 0 ? (
-          <EmptyState title="No inspection recorded yet">The written summary can be sent once the first inspection is recorded.</EmptyState>
+          <EmptyState title="No inspection recorded yet">
+            The written summary can be sent once the first inspection is recorded.
+          </EmptyState>
         ) : (
           <ol className="flex flex-col gap-3">
             {[...list]
@@ -278,7 +336,15 @@ export function InspectionList({ caseId, rooms, staffName }: InspectionListProps
 
 const num = (v: number | undefined, digits: number, unit: string) => (v === undefined ? null : `${fixed(v, digits)} ${unit}`);
 
-function InspectionItem({ inspection: i, rooms, staffName }: { inspection: Inspection; rooms: readonly WorkspaceRoom[]; staffName: (id: number) => string }) {
+function InspectionItem({
+  inspection: i,
+  rooms,
+  staffName,
+}: {
+  inspection: Inspection;
+  rooms: readonly WorkspaceRoom[];
+  staffName: (id: number) => string;
+}) {
   const headingId = useId();
   return (
     <li className="flex flex-col gap-2 rounded-md border border-line bg-paper p-3">
@@ -305,12 +371,15 @@ function InspectionItem({ inspection: i, rooms, staffName }: { inspection: Inspe
             const parts = [
               num(r.airTemperatureC, 1, "°C air"),
               num(r.relativeHumidityPct, 0, "% RH"),
-              r.surfaceTemperaturesC?.length ? `surfaces ${r.surfaceTemperaturesC.map((s) => `${fixed(s, 1)} °C`).join(", ")}` : null,
+              r.surfaceTemperaturesC?.length
+                ? `surfaces ${r.surfaceTemperaturesC.map((s) => `${fixed(s, 1)} °C`).join(", ")}`
+                : null,
               r.moisture ? `moisture ${fixed(r.moisture.value, 1)} ${r.moisture.unit === "wme" ? "WME" : "%"}` : null,
             ].filter(Boolean);
             return (
               <li key={`${r.roomId}-${n}`}>
-                <span className="font-semibold">{rooms.find((room) => room.id === r.roomId)?.name ?? `Room ${r.roomId}`}:</span> {parts.join(", ") || "no readings"}
+                <span className="font-semibold">{rooms.find((room) => room.id === r.roomId)?.name ?? `Room ${r.roomId}`}:</span>{" "}
+                {parts.join(", ") || "no readings"}
                 {r.note ? <span className="text-ink-soft"> · {r.note}</span> : null}
               </li>
             );

@@ -38,7 +38,11 @@ export function MessageForm({ caseId }: { caseId: number }) {
       { body: body.trim(), internal },
       {
         onSuccess: () => {
-          setDone(internal ? "Internal note added. Only staff can see it." : "Message sent to the tenant. It is on their case page, and an e-mail is on its way.");
+          setDone(
+            internal
+              ? "Internal note added. Only staff can see it."
+              : "Message sent to the tenant. It is on their case page, and an e-mail is on its way.",
+          );
           setBody("");
           setAudience("");
         },

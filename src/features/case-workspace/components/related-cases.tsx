@@ -16,7 +16,11 @@ interface RelatedCasesProps {
 export function RelatedCases({ caseId, Status }: RelatedCasesProps) {
   const related = useRelatedCases(caseId);
   return (
-    <QueryState query={related} loading="Looking for other cases at this home…" failed="We couldn't load other cases at this home">
+    <QueryState
+      query={related}
+      loading="Looking for other cases at this home…"
+      failed="We couldn't load other cases at this home"
+    >
       {(cases) =>
         cases.length === 0 ? (
           <EmptyState title="No other cases at this home" />

@@ -49,7 +49,8 @@ export function SummarySection({ c, sender, canSend }: SummarySectionProps) {
 
   const firstSentAt = deadlines.data?.find((d) => d.stage === "summary")?.doneAt ?? null;
 
-  if (inspections.isPending || assessments.isPending || deadlines.isPending) return <LoadingState className="py-4">Preparing the written summary…</LoadingState>;
+  if (inspections.isPending || assessments.isPending || deadlines.isPending)
+    return <LoadingState className="py-4">Preparing the written summary…</LoadingState>;
   if (inspections.isError) {
     return (
       <Alert tone="warning" title="We couldn't check for an inspection">
@@ -94,13 +95,14 @@ export function SummarySection({ c, sender, canSend }: SummarySectionProps) {
       ) : null}
       {firstSentAt ? (
         <p>
-          A written summary was first sent <time dateTime={firstSentAt}>{formatWeekdayDateTimeZoned(firstSentAt)}</time>. Another one can be sent as a
-          correction; both stay in the timeline.
+          A written summary was first sent <time dateTime={firstSentAt}>{formatWeekdayDateTimeZoned(firstSentAt)}</time>. Another
+          one can be sent as a correction; both stay in the timeline.
         </p>
       ) : null}
       {assessments.isError || deadlines.isError ? (
         <Alert tone="warning" title="Part of the draft is missing">
-          We couldn't load the {assessments.isError ? "assessments" : "deadlines"}, so the draft leaves them out. Add them by hand.
+          We couldn't load the {assessments.isError ? "assessments" : "deadlines"}, so the draft leaves them out. Add them by
+          hand.
         </Alert>
       ) : null}
       <form onSubmit={submit} noValidate className="flex flex-col gap-3">

@@ -10,8 +10,8 @@ export function TriagePanel({ caseId }: { caseId: number }) {
   return (
     <Panel title="Triage priority" id="case-triage">
       <p className="mb-3 text-ink-soft">
-        This score only puts work in order. It does not decide whether a report is investigated: every report is, and the deadlines run
-        whatever the score.
+        This score only puts work in order. It does not decide whether a report is investigated: every report is, and the
+        deadlines run whatever the score.
       </p>
       <QueryState query={triage} loading="Working out the priority…" failed="We couldn't load the triage priority">
         {(t) => (

@@ -34,7 +34,8 @@ export function spreadTotal(spread: readonly string[]): number {
   return tenths / 10;
 }
 
-export const errorsFound = (e: AssessmentErrors): boolean => Boolean(e.likelihood || e.spreadTotal || e.justification || e.spread.some(Boolean));
+export const errorsFound = (e: AssessmentErrors): boolean =>
+  Boolean(e.likelihood || e.spreadTotal || e.justification || e.spread.some(Boolean));
 
 export function checkAssessment(fields: AssessmentFields): { input?: AssessmentInput; errors: AssessmentErrors } {
   const errors: AssessmentErrors = { spread: [] };
@@ -47,7 +48,10 @@ export function checkAssessment(fields: AssessmentFields): { input?: AssessmentI
   if (!fields.likelihood) errors.likelihood = "Choose the likelihood of a harmful occurrence.";
   // With no likelihood chosen yet the spread is still checked, so both problems show at once.
   const spread = values.map((v) => v ?? Number.NaN) as [number, number, number, number];
-  const problems: AssessmentProblem[] = validateAssessment({ likelihood: fields.likelihood ? likelihood : LIKELIHOOD_POINTS[0], spread });
+  const problems: AssessmentProblem[] = validateAssessment({
+    likelihood: fields.likelihood ? likelihood : LIKELIHOOD_POINTS[0],
+    spread,
+  });
   for (const p of problems) {
     if (p.field === "likelihood") errors.likelihood ??= p.message;
     else if (p.index !== undefined) errors.spread[p.index] ??= p.message;

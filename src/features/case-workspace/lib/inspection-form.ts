@@ -41,7 +41,8 @@ export const MAX_SURFACES_PER_ROOM = 20;
 export const MAX_ROOM_ROWS = 30;
 
 export const hasErrors = (e: InspectionErrors): boolean =>
-  Boolean(e.inspectedAt || e.cause || e.mouldExtent || e.findings) || Object.values(e.rooms).some((r) => Object.values(r).some(Boolean));
+  Boolean(e.inspectedAt || e.cause || e.mouldExtent || e.findings) ||
+  Object.values(e.rooms).some((r) => Object.values(r).some(Boolean));
 
 const inRange = (label: string, value: number | undefined, min: number, max: number, unit: string): string | undefined => {
   if (value === undefined) return undefined;
@@ -62,17 +63,24 @@ function checkRow(row: RoomRowFields, seen: Set<string>): { reading?: Inspection
   if (airError) errors.airTemperatureC = airError;
 
   const rh = parseDecimal(row.relativeHumidityPct);
-  if (rh !== undefined && Number.isNaN(rh)) errors.relativeHumidityPct = "Enter the relative humidity as a number, for example 65.";
-  else if (rh !== undefined && !(rh > 0 && rh <= 100)) errors.relativeHumidityPct = "Relative humidity should be more than 0 and at most 100 %.";
+  if (rh !== undefined && Number.isNaN(rh))
+    errors.relativeHumidityPct = "Enter the relative humidity as a number, for example 65.";
+  else if (rh !== undefined && !(rh > 0 && rh <= 100))
+    errors.relativeHumidityPct = "Relative humidity should be more than 0 and at most 100 %.";
 
   const surfaces = parseDecimalList(row.surfaceTemperaturesC);
-  if (surfaces.some((s) => Number.isNaN(s))) errors.surfaceTemperaturesC = "Enter surface temperatures as numbers separated by spaces, for example 12.5 13.1.";
-  else if (surfaces.some((s) => s < -30 || s > 50)) errors.surfaceTemperaturesC = "Surface temperatures should be between −30 and 50 °C. Please check the numbers.";
-  else if (surfaces.length > MAX_SURFACES_PER_ROOM) errors.surfaceTemperaturesC = `At most ${MAX_SURFACES_PER_ROOM} surface temperatures per room.`;
+  if (surfaces.some((s) => Number.isNaN(s)))
+    errors.surfaceTemperaturesC = "Enter surface temperatures as numbers separated by spaces, for example 12.5 13.1.";
+  else if (surfaces.some((s) => s < -30 || s > 50))
+    errors.surfaceTemperaturesC = "Surface temperatures should be between −30 and 50 °C. Please check the numbers.";
+  else if (surfaces.length > MAX_SURFACES_PER_ROOM)
+    errors.surfaceTemperaturesC = `At most ${MAX_SURFACES_PER_ROOM} surface temperatures per room.`;
 
   const moisture = parseDecimal(row.moistureValue);
-  if (moisture !== undefined && Number.isNaN(moisture)) errors.moistureValue = "Enter the moisture meter reading as a number, for example 22.";
-  else if (moisture !== undefined && (moisture < 0 || moisture > 100)) errors.moistureValue = "The moisture meter reading should be between 0 and 100.";
+  if (moisture !== undefined && Number.isNaN(moisture))
+    errors.moistureValue = "Enter the moisture meter reading as a number, for example 22.";
+  else if (moisture !== undefined && (moisture < 0 || moisture > 100))
+    errors.moistureValue = "The moisture meter reading should be between 0 and 100.";
 
   const note = row.note.trim();
   if (note.length > 1000) errors.note = "Keep the note under 1,000 characters.";
@@ -92,12 +100,17 @@ function checkRow(row: RoomRowFields, seen: Set<string>): { reading?: Inspection
 }
 
 /** The request body, or the errors to show (nothing is sent while there are any). */
-export function checkInspection(fields: InspectionFields, now = Date.now()): { input?: InspectionInput; errors: InspectionErrors } {
+export function checkInspection(
+  fields: InspectionFields,
+  now = Date.now(),
+): { input?: InspectionInput; errors: InspectionErrors } {
   const errors: InspectionErrors = { rooms: {} };
   const at = londonLocalToIso(fields.inspectedAt);
   if (!fields.inspectedAt.trim()) errors.inspectedAt = "Enter the date and time of the inspection.";
-  else if (at === null) errors.inspectedAt = "Enter a date and time that exists in UK time (the clocks may have gone forward at that hour).";
-  else if (Date.parse(at) > now + 60_000) errors.inspectedAt = "An inspection cannot be recorded in the future. Please check the date and time.";
+  else if (at === null)
+    errors.inspectedAt = "Enter a date and time that exists in UK time (the clocks may have gone forward at that hour).";
+  else if (Date.parse(at) > now + 60_000)
+    errors.inspectedAt = "An inspection cannot be recorded in the future. Please check the date and time.";
   else if (new Date(at).getUTCFullYear() < 2000) errors.inspectedAt = "Please check the year of the inspection.";
 
   if (!fields.cause) errors.cause = "Choose the cause you found, or “Other or not yet known”.";
@@ -116,7 +129,13 @@ export function checkInspection(fields: InspectionFields, now = Date.now()): { i
 
   if (hasErrors(errors)) return { errors };
   return {
-    input: { inspectedAt: at!, cause: fields.cause as Cause, mouldExtent: fields.mouldExtent as MouldExtent, findings, roomReadings: readings },
+    input: {
+      inspectedAt: at!,
+      cause: fields.cause as Cause,
+      mouldExtent: fields.mouldExtent as MouldExtent,
+      findings,
+      roomReadings: readings,
+    },
     errors,
   };
 }

@@ -10,9 +10,21 @@ export interface Choice<V extends string> {
 }
 
 export const HAZARD_CLASS_CHOICES: readonly Choice<HazardClass>[] = [
-  { value: "emergency", label: "Emergency hazard", hint: "An immediate risk to health or safety: make safe and investigate within the emergency timeframe." },
-  { value: "significant", label: "Significant hazard", hint: "A real risk to health: investigate, send the written summary and start the work within the timeframes." },
-  { value: "not-significant", label: "Not a significant hazard", hint: "No statutory timeframe applies. The report is still looked into and answered." },
+  {
+    value: "emergency",
+    label: "Emergency hazard",
+    hint: "An immediate risk to health or safety: make safe and investigate within the emergency timeframe.",
+  },
+  {
+    value: "significant",
+    label: "Significant hazard",
+    hint: "A real risk to health: investigate, send the written summary and start the work within the timeframes.",
+  },
+  {
+    value: "not-significant",
+    label: "Not a significant hazard",
+    hint: "No statutory timeframe applies. The report is still looked into and answered.",
+  },
 ];
 
 export function hazardClassLabel(value: string | null | undefined): string {
@@ -21,7 +33,11 @@ export function hazardClassLabel(value: string | null | undefined): string {
 }
 
 export const CAUSE_CHOICES: readonly Choice<Cause>[] = [
-  { value: "condensation", label: "Condensation", hint: "Moisture in the indoor air settling on surfaces colder than its dew point." },
+  {
+    value: "condensation",
+    label: "Condensation",
+    hint: "Moisture in the indoor air settling on surfaces colder than its dew point.",
+  },
   { value: "penetrating-damp", label: "Penetrating damp", hint: "Water coming through a wall, window or door from outside." },
   { value: "rising-damp", label: "Rising damp", hint: "Ground moisture rising through a wall or floor." },
   { value: "plumbing-leak", label: "Plumbing leak", hint: "Water escaping from pipes, fittings, appliances or waste." },

@@ -42,7 +42,8 @@ const fillIn = (what: string) => `${PLACEHOLDER}: ${what}]`;
 export const hasPlaceholder = (text: string): boolean => text.includes(PLACEHOLDER);
 
 const CAUSE_SENTENCES: Record<string, string> = {
-  condensation: "Condensation: moisture in the air indoors is settling on surfaces in your home that are colder than they should be.",
+  condensation:
+    "Condensation: moisture in the air indoors is settling on surfaces in your home that are colder than they should be.",
   "penetrating-damp": "Penetrating damp: water is getting in through the outside of the building.",
   "rising-damp": "Rising damp: moisture from the ground is rising into the walls or floor.",
   "plumbing-leak": "A plumbing leak: water is escaping from pipes, fittings or an appliance.",
@@ -77,7 +78,8 @@ export function latestAssessment<T extends SummaryAssessment>(assessments: reado
 }
 
 function assessmentParagraph(a: SummaryAssessment | null): string {
-  if (!a) return "We will tell you the result of our Housing Health and Safety Rating System (HHSRS) assessment when it is complete.";
+  if (!a)
+    return "We will tell you the result of our Housing Health and Safety Rating System (HHSRS) assessment when it is complete.";
   const intro = "We assessed the damp and mould using the Housing Health and Safety Rating System (HHSRS).";
   return a.category === 1
     ? `${intro} It is a Category 1 hazard (band ${a.band}): the most serious kind, which we must put right.`
@@ -90,7 +92,10 @@ function workLines(deadlines: readonly SummaryDeadline[]): string[] {
     const work = STAGE_WORK[d.stage];
     if (!work || d.doneAt || !d.dueAt) continue;
     if (d.state === "pending") lines.push(`- We will ${work} by ${formatLongDateTime(d.dueAt)}.`);
-    else if (d.state === "missed") lines.push(`- We will ${work} as soon as possible: we should have done so by ${formatLongDateTime(d.dueAt)}, and we are sorry for the delay.`);
+    else if (d.state === "missed")
+      lines.push(
+        `- We will ${work} as soon as possible: we should have done so by ${formatLongDateTime(d.dueAt)}, and we are sorry for the delay.`,
+      );
   }
   return lines;
 }

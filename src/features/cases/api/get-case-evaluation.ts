@@ -3,7 +3,8 @@ import { api } from "@/lib/api-client";
 import { caseKeys } from "@/lib/query-keys";
 import type { CaseEvaluation } from "./types";
 
-export const getCaseEvaluation = (id: number, signal?: AbortSignal) => api.get<CaseEvaluation>(`/cases/${id}/evaluation`, { signal });
+export const getCaseEvaluation = (id: number, signal?: AbortSignal) =>
+  api.get<CaseEvaluation>(`/cases/${id}/evaluation`, { signal });
 
 export const caseEvaluationQueryOptions = (id: number) =>
   queryOptions({

@@ -3,7 +3,8 @@ import { api } from "@/lib/api-client";
 import { caseKeys } from "@/lib/query-keys";
 import type { CaseEvent } from "./types";
 
-export const getCaseEvents = (id: number, signal?: AbortSignal) => api.get<{ events: CaseEvent[] }>(`/cases/${id}/events`, { signal });
+export const getCaseEvents = (id: number, signal?: AbortSignal) =>
+  api.get<{ events: CaseEvent[] }>(`/cases/${id}/events`, { signal });
 
 export const caseEventsQueryOptions = (id: number) =>
   queryOptions({

@@ -3,7 +3,8 @@ import { api } from "@/lib/api-client";
 import { caseKeys } from "@/lib/query-keys";
 import type { CasePhoto } from "./types";
 
-export const getCasePhotos = (id: number, signal?: AbortSignal) => api.get<{ photos: CasePhoto[] }>(`/cases/${id}/photos`, { signal });
+export const getCasePhotos = (id: number, signal?: AbortSignal) =>
+  api.get<{ photos: CasePhoto[] }>(`/cases/${id}/photos`, { signal });
 
 export const casePhotosQueryOptions = (id: number) =>
   queryOptions({

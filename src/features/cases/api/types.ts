@@ -1,5 +1,14 @@
 // The case shapes the server answers with: inferred from the API contract (src/lib/contracts), never copied.
-import type { CaseEventEmail, CaseEventResponse, CaseResponse, EvaluationResponse, MyCaseResponse, PhotoResponse, ReadingResponse, RoomEvaluationResponse } from "@/lib/contracts";
+import type {
+  CaseEventEmail,
+  CaseEventResponse,
+  CaseResponse,
+  EvaluationResponse,
+  MyCaseResponse,
+  PhotoResponse,
+  ReadingResponse,
+  RoomEvaluationResponse,
+} from "@/lib/contracts";
 
 export type CaseRoom = CaseResponse["rooms"][number];
 /** A case; the tenant's list (`GET /api/me/cases`) adds its photo count and first thumbnail. */

@@ -27,9 +27,7 @@ export function CaseEvaluationView({ evaluation, emptyHint, audience = "tenant" 
       {audience === "tenant" ? <ReportStillMatters /> : null}
       {evaluation.statement ? <p className="font-semibold">{evaluation.statement}</p> : null}
       {evaluation.rooms.length === 0 ? (
-        <p className="text-ink-soft">
-          No readings yet. Readings are optional{emptyHint ? `: ${emptyHint}` : "."}
-        </p>
+        <p className="text-ink-soft">No readings yet. Readings are optional{emptyHint ? `: ${emptyHint}` : "."}</p>
       ) : (
         evaluation.rooms.map((room) => <RoomResult key={room.roomId} room={room} />)
       )}
@@ -73,9 +71,9 @@ function RoomResult({ room }: { room: RoomEvaluation }) {
           <p className="font-semibold">{kind.title}</p>
           {series && series.count > 1 ? (
             <p className="text-sm text-ink-soft">
-              From {series.from ? formatDateTime(series.from) : "the first reading"} to {series.to ? formatDateTime(series.to) : "the last"}: the surface
-              was at 80 % relative humidity or more for {hoursText(series.hoursSurfaceRhAtLeast80)}, and wet with condensation for{" "}
-              {hoursText(series.hoursCondensing)}.
+              From {series.from ? formatDateTime(series.from) : "the first reading"} to{" "}
+              {series.to ? formatDateTime(series.to) : "the last"}: the surface was at 80 % relative humidity or more for{" "}
+              {hoursText(series.hoursSurfaceRhAtLeast80)}, and wet with condensation for {hoursText(series.hoursCondensing)}.
             </p>
           ) : null}
           <ul className="list-disc space-y-1 pl-5">

@@ -23,11 +23,17 @@ export function CaseList({ cases, headingLevel = 2 }: CaseListProps) {
       {cases.map((c) => {
         const rooms = c.rooms.map((r) => r.name);
         return (
-          <li key={c.id} className="relative flex flex-col gap-2 rounded-lg border border-line bg-surface p-4 shadow-card hover:border-dew-700">
+          <li
+            key={c.id}
+            className="relative flex flex-col gap-2 rounded-lg border border-line bg-surface p-4 shadow-card hover:border-dew-700"
+          >
             <div className="flex flex-wrap items-center justify-between gap-2">
               <Heading className="text-lg font-bold">
                 {/* The whole card is the link's target area; the link text is the reference. */}
-                <Link to={`/cases/${c.id}`} className="text-dew-700 underline decoration-2 after:absolute after:inset-0 hover:text-dew-900">
+                <Link
+                  to={`/cases/${c.id}`}
+                  className="text-dew-700 underline decoration-2 after:absolute after:inset-0 hover:text-dew-900"
+                >
                   {caseTitle(c)}
                 </Link>
               </Heading>
@@ -54,7 +60,9 @@ export function CaseList({ cases, headingLevel = 2 }: CaseListProps) {
               ) : null}
               <div className="flex flex-col gap-1">
                 {c.description ? <p className="line-clamp-2 text-ink-soft">{c.description}</p> : null}
-                {c.photoCount ? <p className="text-sm text-ink-soft">{c.photoCount === 1 ? "1 photo" : `${c.photoCount} photos`}</p> : null}
+                {c.photoCount ? (
+                  <p className="text-sm text-ink-soft">{c.photoCount === 1 ? "1 photo" : `${c.photoCount} photos`}</p>
+                ) : null}
               </div>
             </div>
           </li>

@@ -2,9 +2,22 @@ import { cn } from "@/lib/cn";
 import { statusLabelFor, type Audience } from "../labels";
 
 /** The status in words, in a quiet outline: words carry the meaning, not colour. */
-export function StatusBadge({ status, className, audience = "tenant" }: { status: string; className?: string; audience?: Audience }) {
+export function StatusBadge({
+  status,
+  className,
+  audience = "tenant",
+}: {
+  status: string;
+  className?: string;
+  audience?: Audience;
+}) {
   return (
-    <span className={cn("inline-flex w-fit items-center gap-1.5 rounded-pill border border-dew-700 bg-dew-50 px-3 py-0.5 text-sm font-semibold text-dew-800", className)}>
+    <span
+      className={cn(
+        "inline-flex w-fit items-center gap-1.5 rounded-pill border border-dew-700 bg-dew-50 px-3 py-0.5 text-sm font-semibold text-dew-800",
+        className,
+      )}
+    >
       <span className="sr-only">Status: </span>
       {statusLabelFor(audience)(status)}
     </span>

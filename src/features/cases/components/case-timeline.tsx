@@ -32,7 +32,12 @@ function byWhom(event: CaseEvent, audience: Audience): string {
 }
 
 /** One plain sentence (and sometimes a detail) for each kind of event; unknown kinds still show. */
-export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audience: Audience = "tenant", staffNames?: ReadonlyMap<number, string>): Entry {
+export function describeEvent(
+  event: CaseEvent,
+  rooms: readonly CaseRoom[],
+  audience: Audience = "tenant",
+  staffNames?: ReadonlyMap<number, string>,
+): Entry {
   const after = event.after ?? {};
   const before = event.before ?? {};
   const roomName = (id: unknown) => rooms.find((r) => r.id === id)?.name;
@@ -47,7 +52,10 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
       const to = str(after.to);
       // Staff see below whether it has actually left the outbox.
       if (audience === "staff" && event.email) return { title: "An e-mail about this report was queued." };
-      return { title: audience === "staff" && to ? `An e-mail about this report was sent to ${to}.` : "An e-mail about this report was sent." };
+      return {
+        title:
+          audience === "staff" && to ? `An e-mail about this report was sent to ${to}.` : "An e-mail about this report was sent.",
+      };
     }
     case "photos-added": {
       const ids = Array.isArray(after.photoIds) ? after.photoIds.length : 0;
@@ -58,7 +66,9 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
       const duplicates = num(after.duplicates);
       return {
         title: `${count(num(after.imported), "reading was", "readings were")} added by hand${inRoom(after.roomId)}.`,
-        detail: duplicates ? `${count(duplicates, "reading was", "readings were")} already there, so ${duplicates === 1 ? "it was" : "they were"} skipped.` : undefined,
+        detail: duplicates
+          ? `${count(duplicates, "reading was", "readings were")} already there, so ${duplicates === 1 ? "it was" : "they were"} skipped.`
+          : undefined,
       };
     }
     case "readings-imported": {
@@ -77,7 +87,9 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
       const note = str(after.note);
       return {
         title: you ? "You told your landlord it has got worse." : `${who || "The tenant"} said it has got worse.`,
-        detail: note ? <blockquote className="border-l-4 border-line-strong pl-3 whitespace-pre-line">{note}</blockquote> : undefined,
+        detail: note ? (
+          <blockquote className="border-l-4 border-line-strong pl-3 whitespace-pre-line">{note}</blockquote>
+        ) : undefined,
       };
     }
     case "status-changed": {
@@ -86,27 +98,45 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
       const reason = audience === "staff" ? str(after.reason) : undefined;
       const statusLabel = statusLabelFor(audience);
       return {
-        title: to ? `The status changed to “${statusLabel(to)}”${audience === "staff" && who ? `, by ${who}` : ""}.` : "The status changed.",
+        title: to
+          ? `The status changed to “${statusLabel(to)}”${audience === "staff" && who ? `, by ${who}` : ""}.`
+          : "The status changed.",
         detail:
-          [from ? `It was “${statusLabel(from)}”.` : "", to && audience === "tenant" ? (statusMeaning(to) ?? "") : "", reason ? `Reason: ${reason}` : ""].filter(Boolean).join(" ") || undefined,
+          [
+            from ? `It was “${statusLabel(from)}”.` : "",
+            to && audience === "tenant" ? (statusMeaning(to) ?? "") : "",
+            reason ? `Reason: ${reason}` : "",
+          ]
+            .filter(Boolean)
+            .join(" ") || undefined,
       };
     }
     case "message-to-tenant": {
       const body = str(after.body);
       return {
-        title: audience === "tenant" ? (who ? `${who} sent you a message.` : "Your landlord sent you a message.") : `${who || "Staff"} sent the tenant a message.`,
+        title:
+          audience === "tenant"
+            ? who
+              ? `${who} sent you a message.`
+              : "Your landlord sent you a message."
+            : `${who || "Staff"} sent the tenant a message.`,
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
     case "summary-sent": {
       const body = str(after.body);
       return {
-        title: audience === "tenant" ? "Your landlord sent you a written summary of what they found and what happens next." : `${who || "Staff"} sent the tenant the written summary.`,
+        title:
+          audience === "tenant"
+            ? "Your landlord sent you a written summary of what they found and what happens next."
+            : `${who || "Staff"} sent the tenant the written summary.`,
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
     case "inspection-recorded":
-      return { title: audience === "tenant" ? "The inspection of your home was recorded." : `${who || "Staff"} recorded the inspection.` };
+      return {
+        title: audience === "tenant" ? "The inspection of your home was recorded." : `${who || "Staff"} recorded the inspection.`,
+      };
     case "hazard-classified": {
       if (audience === "tenant") return { title: "Your landlord assessed how serious the hazard is." };
       const to = str(after.hazardClass);
@@ -117,7 +147,12 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
       };
     }
     case "hhsrs-assessed":
-      return { title: audience === "tenant" ? "Your landlord recorded a health and safety (HHSRS) assessment." : `${who || "Staff"} recorded an HHSRS assessment: band ${String(after.band ?? "?")}, Category ${String(after.category ?? "?")}.` };
+      return {
+        title:
+          audience === "tenant"
+            ? "Your landlord recorded a health and safety (HHSRS) assessment."
+            : `${who || "Staff"} recorded an HHSRS assessment: band ${String(after.band ?? "?")}, Category ${String(after.category ?? "?")}.`,
+      };
     case "assignee-changed": {
       if (audience === "tenant") return { title: "A member of staff was given this report to look after." };
       const id = after.assigneeId;
@@ -127,7 +162,10 @@ export function describeEvent(event: CaseEvent, rooms: readonly CaseRoom[], audi
     }
     case "internal-note": {
       const body = str(after.body);
-      return { title: `${who || "Staff"} added an internal note.`, detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined };
+      return {
+        title: `${who || "Staff"} added an internal note.`,
+        detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
+      };
     }
     default:
       return { title: `${humanise(event.type)}${who ? `, by ${who}` : ""}.` };
@@ -144,7 +182,10 @@ export function CaseTimeline({ events, rooms, audience = "tenant", staffNames }:
         const entry = describeEvent(event, rooms, audience, staffNames);
         return (
           <li key={event.id} className="relative">
-            <span aria-hidden="true" className="absolute top-1.5 -left-[1.6rem] size-3 rounded-pill border-2 border-dew-700 bg-surface" />
+            <span
+              aria-hidden="true"
+              className="absolute top-1.5 -left-[1.6rem] size-3 rounded-pill border-2 border-dew-700 bg-surface"
+            />
             <p className="text-sm text-ink-soft">
               <time dateTime={event.at}>{formatDateTime(event.at)}</time>
             </p>
@@ -185,7 +226,15 @@ function EmailDelivery({ email }: { email: CaseEventEmail }) {
       <p className="flex items-start gap-1.5">
         <DeliveryIcon status={email.status} />
         {email.status === "sent" ? (
-          <span>Sent{email.sentAt ? <> at <time dateTime={email.sentAt}>{formatDateTime(email.sentAt)}</time></> : null}</span>
+          <span>
+            Sent
+            {email.sentAt ? (
+              <>
+                {" "}
+                at <time dateTime={email.sentAt}>{formatDateTime(email.sentAt)}</time>
+              </>
+            ) : null}
+          </span>
         ) : email.status === "failed" ? (
           <span className="font-semibold text-rust-700">Failed to send{email.error ? `: ${email.error}` : ""}</span>
         ) : email.status === "pending" ? (

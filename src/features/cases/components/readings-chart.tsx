@@ -49,16 +49,48 @@ export function ReadingsChart({ readings, title }: ReadingsChartProps) {
     const limit = new Array<number>(data.t.length).fill(MOULD_SURFACE_RH_PCT);
     const series: uPlot.Series[] = [
       {},
-      { label: "Air temperature (°C)", scale: "C", stroke: COLOURS.air, width: 2, value: (_u, v) => (v == null ? "–" : `${v.toFixed(1)} °C`) },
-      { label: "Dew point (°C)", scale: "C", stroke: COLOURS.dewPoint, width: 1.5, dash: [2, 3], value: (_u, v) => (v == null ? "–" : `${v.toFixed(1)} °C`) },
-      { label: "Relative humidity (%)", scale: "%", stroke: COLOURS.rh, width: 1.5, value: (_u, v) => (v == null ? "–" : `${v.toFixed(0)} %`) },
+      {
+        label: "Air temperature (°C)",
+        scale: "C",
+        stroke: COLOURS.air,
+        width: 2,
+        value: (_u, v) => (v == null ? "–" : `${v.toFixed(1)} °C`),
+      },
+      {
+        label: "Dew point (°C)",
+        scale: "C",
+        stroke: COLOURS.dewPoint,
+        width: 1.5,
+        dash: [2, 3],
+        value: (_u, v) => (v == null ? "–" : `${v.toFixed(1)} °C`),
+      },
+      {
+        label: "Relative humidity (%)",
+        scale: "%",
+        stroke: COLOURS.rh,
+        width: 1.5,
+        value: (_u, v) => (v == null ? "–" : `${v.toFixed(0)} %`),
+      },
     ];
     const values: uPlot.AlignedData[number][] = [data.t, data.air, data.dewPoint, data.rh];
     if (data.hasSurface) {
-      series.push({ label: "Surface humidity (%)", scale: "%", stroke: COLOURS.surfaceRh, width: 2.5, value: (_u, v) => (v == null ? "–" : `${v.toFixed(0)} %`) });
+      series.push({
+        label: "Surface humidity (%)",
+        scale: "%",
+        stroke: COLOURS.surfaceRh,
+        width: 2.5,
+        value: (_u, v) => (v == null ? "–" : `${v.toFixed(0)} %`),
+      });
       values.push(data.surfaceRh);
     }
-    series.push({ label: `Mould-growth level (${MOULD_SURFACE_RH_PCT} %)`, scale: "%", stroke: COLOURS.limit, width: 1.5, dash: [8, 6], points: { show: false } });
+    series.push({
+      label: `Mould-growth level (${MOULD_SURFACE_RH_PCT} %)`,
+      scale: "%",
+      stroke: COLOURS.limit,
+      width: 1.5,
+      dash: [8, 6],
+      points: { show: false },
+    });
     values.push(limit);
 
     const opts: uPlot.Options = {
@@ -94,15 +126,17 @@ export function ReadingsChart({ readings, title }: ReadingsChartProps) {
   return (
     <figure className="flex flex-col gap-2">
       <figcaption className="text-sm text-ink-soft">
-        {title}: {data.t.length.toLocaleString("en-GB")} {data.t.length === 1 ? "reading" : "readings"}. Drag across the chart to zoom in,
-        double-click to zoom out. The table below lists the same readings.
+        {title}: {data.t.length.toLocaleString("en-GB")} {data.t.length === 1 ? "reading" : "readings"}. Drag across the chart to
+        zoom in, double-click to zoom out. The table below lists the same readings.
       </figcaption>
       {drawable ? (
         <div aria-hidden="true" className="rounded-md border border-line bg-surface p-2">
           <div ref={ref} className="w-full overflow-hidden" />
         </div>
       ) : (
-        <p className="rounded-md border border-dashed border-line-strong px-3 py-4 text-ink-soft">This browser can't draw the chart; the table below has the same readings.</p>
+        <p className="rounded-md border border-dashed border-line-strong px-3 py-4 text-ink-soft">
+          This browser can't draw the chart; the table below has the same readings.
+        </p>
       )}
     </figure>
   );

@@ -16,7 +16,8 @@ export function ReadingsSection({ readings, rooms }: ReadingsSectionProps) {
     const ids = new Set(readings.map((r) => r.roomId));
     const known = rooms.filter((r) => ids.has(r.id));
     // Readings for a room this view has no name for still show.
-    for (const roomId of ids) if (!known.some((r) => r.id === roomId)) known.push({ id: roomId, name: `Room ${roomId}`, kind: "other" });
+    for (const roomId of ids)
+      if (!known.some((r) => r.id === roomId)) known.push({ id: roomId, name: `Room ${roomId}`, kind: "other" });
     return known;
   }, [readings, rooms]);
   const [chosen, setChosen] = useState<number | null>(null);
@@ -29,7 +30,13 @@ export function ReadingsSection({ readings, rooms }: ReadingsSectionProps) {
   return (
     <div className="flex flex-col gap-4">
       {withReadings.length > 1 ? (
-        <Select id={`${id}-room`} label="Show readings for" value={String(roomId)} onChange={(e) => setChosen(Number(e.target.value))} controlClassName="sm:max-w-xs">
+        <Select
+          id={`${id}-room`}
+          label="Show readings for"
+          value={String(roomId)}
+          onChange={(e) => setChosen(Number(e.target.value))}
+          controlClassName="sm:max-w-xs"
+        >
           {withReadings.map((r) => (
             <option key={r.id} value={r.id}>
               {r.name}

@@ -14,16 +14,40 @@ const dash = "—";
 const celsius = (v: number | null) => (v === null ? dash : `${fixed(v, 1)} °C`);
 const pct = (v: number | null) => (v === null ? dash : v >= 100 ? "100 %" : `${fixed(v, 0)} %`);
 
-const roomColumn = column.accessor("roomName", { header: "Room", cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> });
+const roomColumn = column.accessor("roomName", {
+  header: "Room",
+  cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
+});
 
 const columns = column.columns([
-  column.accessor("takenAt", { header: "Taken", cell: (info) => <span className="whitespace-nowrap">{formatDateTime(info.getValue())}</span> }),
-  column.accessor("airTemperatureC", { header: "Air", cell: (info) => <span className="whitespace-nowrap tabular-nums">{celsius(info.getValue())}</span> }),
-  column.accessor("relativeHumidityPct", { header: "Humidity", cell: (info) => <span className="whitespace-nowrap tabular-nums">{pct(info.getValue())}</span> }),
-  column.accessor("dewPointC", { header: "Dew point", cell: (info) => <span className="whitespace-nowrap tabular-nums">{celsius(info.getValue())}</span> }),
-  column.accessor("surfaceTemperatureC", { header: "Surface", cell: (info) => <span className="whitespace-nowrap tabular-nums">{celsius(info.getValue())}</span> }),
-  column.accessor("surfaceRhPct", { header: "Surface humidity", cell: (info) => <span className="whitespace-nowrap tabular-nums">{pct(info.getValue())}</span> }),
-  column.accessor("outdoorTemperatureC", { header: "Outdoors", cell: (info) => <span className="whitespace-nowrap tabular-nums">{celsius(info.getValue())}</span> }),
+  column.accessor("takenAt", {
+    header: "Taken",
+    cell: (info) => <span className="whitespace-nowrap">{formatDateTime(info.getValue())}</span>,
+  }),
+  column.accessor("airTemperatureC", {
+    header: "Air",
+    cell: (info) => <span className="whitespace-nowrap tabular-nums">{celsius(info.getValue())}</span>,
+  }),
+  column.accessor("relativeHumidityPct", {
+    header: "Humidity",
+    cell: (info) => <span className="whitespace-nowrap tabular-nums">{pct(info.getValue())}</span>,
+  }),
+  column.accessor("dewPointC", {
+    header: "Dew point",
+    cell: (info) => <span className="whitespace-nowrap tabular-nums">{celsius(info.getValue())}</span>,
+  }),
+  column.accessor("surfaceTemperatureC", {
+    header: "Surface",
+    cell: (info) => <span className="whitespace-nowrap tabular-nums">{celsius(info.getValue())}</span>,
+  }),
+  column.accessor("surfaceRhPct", {
+    header: "Surface humidity",
+    cell: (info) => <span className="whitespace-nowrap tabular-nums">{pct(info.getValue())}</span>,
+  }),
+  column.accessor("outdoorTemperatureC", {
+    header: "Outdoors",
+    cell: (info) => <span className="whitespace-nowrap tabular-nums">{celsius(info.getValue())}</span>,
+  }),
   column.accessor("source", { header: "From", cell: (info) => sourceLabels[info.getValue()] ?? info.getValue() }),
 ]);
 

@@ -59,7 +59,13 @@ export function WorseButton({ caseId, onReported }: WorseButtonProps) {
           What you wrote is now part of your report.
         </Alert>
       ) : null}
-      <Modal open={open} onClose={close} title="Tell your landlord it has got worse" initialFocusRef={noteRef} busy={worse.isPending}>
+      <Modal
+        open={open}
+        onClose={close}
+        title="Tell your landlord it has got worse"
+        initialFocusRef={noteRef}
+        busy={worse.isPending}
+      >
         <form onSubmit={submit} noValidate className="flex flex-col gap-4">
           <Textarea
             ref={noteRef}
@@ -74,7 +80,11 @@ export function WorseButton({ caseId, onReported }: WorseButtonProps) {
             }}
             error={error}
           />
-          {worse.isError ? <Alert tone="danger" title="This wasn't sent">{errorMessage(worse.error)}</Alert> : null}
+          {worse.isError ? (
+            <Alert tone="danger" title="This wasn't sent">
+              {errorMessage(worse.error)}
+            </Alert>
+          ) : null}
           <div className="flex flex-wrap justify-end gap-2">
             <Button variant="secondary" onClick={close} disabled={worse.isPending}>
               Cancel

@@ -37,7 +37,14 @@ export interface ChartSeries {
 export function chartSeries(readings: readonly CaseReading[]): ChartSeries {
   const sorted = isSorted(readings) ? readings : [...readings].sort((a, b) => Date.parse(a.takenAt) - Date.parse(b.takenAt));
   const n = sorted.length;
-  const out: ChartSeries = { t: new Float64Array(n), air: new Array(n), rh: new Array(n), dewPoint: new Array(n), surfaceRh: new Array(n), hasSurface: false };
+  const out: ChartSeries = {
+    t: new Float64Array(n),
+    air: new Array(n),
+    rh: new Array(n),
+    dewPoint: new Array(n),
+    surfaceRh: new Array(n),
+    hasSurface: false,
+  };
   for (let i = 0; i < n; i++) {
     const r = sorted[i]!;
     const d = derive(r);

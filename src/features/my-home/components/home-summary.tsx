@@ -1,6 +1,15 @@
 import { Panel } from "@/components/ui/card";
 import { formatDate } from "@/lib/dates";
-import { builtFormLabels, glazingTypeLabels, heatingTypeLabels, labelOf, roomKindLabels, wallTypeLabels, type Property, type RoomKind } from "@/lib/homes";
+import {
+  builtFormLabels,
+  glazingTypeLabels,
+  heatingTypeLabels,
+  labelOf,
+  roomKindLabels,
+  wallTypeLabels,
+  type Property,
+  type RoomKind,
+} from "@/lib/homes";
 import type { MyHome } from "../api/get-my-home";
 
 export function HomeAddress({ property }: { property: Property }) {
@@ -40,9 +49,14 @@ export function HomeSummary({ home }: { home: MyHome }) {
         ) : (
           <ul className="grid grid-cols-1 gap-2 sm:grid-cols-2">
             {property.rooms.map((room) => (
-              <li key={room.id} className="flex items-center justify-between gap-3 rounded-md border border-line bg-paper px-3 py-3">
+              <li
+                key={room.id}
+                className="flex items-center justify-between gap-3 rounded-md border border-line bg-paper px-3 py-3"
+              >
                 <span className="font-semibold">{room.name}</span>
-                {showKind(room.name, room.kind) ? <span className="text-sm text-ink-soft">{labelOf(roomKindLabels, room.kind)}</span> : null}
+                {showKind(room.name, room.kind) ? (
+                  <span className="text-sm text-ink-soft">{labelOf(roomKindLabels, room.kind)}</span>
+                ) : null}
               </li>
             ))}
           </ul>
@@ -56,7 +70,9 @@ export function HomeSummary({ home }: { home: MyHome }) {
           <Detail term="Windows" value={labelOf(glazingTypeLabels, property.glazingType)} />
           <Detail term="Heating" value={labelOf(heatingTypeLabels, property.heatingType)} />
         </dl>
-        <p className="mt-3 text-sm text-ink-soft">If any of this looks wrong, tell your housing officer: it helps them understand damp in your home.</p>
+        <p className="mt-3 text-sm text-ink-soft">
+          If any of this looks wrong, tell your housing officer: it helps them understand damp in your home.
+        </p>
       </Panel>
     </div>
   );

@@ -7,14 +7,13 @@ import { POLICY_FIELDS, type LandlordPolicy, type PolicyView } from "./types";
 // The form checks only that each box holds a whole number; the limits are the server's, and its
 // messages are shown beside the fields.
 const wholeNumber = (unit: string) =>
-  z
-    .string()
-    .trim()
-    .min(1, `Enter a number of ${unit}.`)
-    .regex(/^\d+$/, `Enter a whole number of ${unit}, using digits only.`);
+  z.string().trim().min(1, `Enter a number of ${unit}.`).regex(/^\d+$/, `Enter a whole number of ${unit}, using digits only.`);
 
 export const policyFormSchema = z.object(
-  Object.fromEntries(POLICY_FIELDS.map((f) => [f.name, wholeNumber(f.unit.many)])) as Record<keyof LandlordPolicy, ReturnType<typeof wholeNumber>>,
+  Object.fromEntries(POLICY_FIELDS.map((f) => [f.name, wholeNumber(f.unit.many)])) as Record<
+    keyof LandlordPolicy,
+    ReturnType<typeof wholeNumber>
+  >,
 );
 export type PolicyFormValues = z.infer<typeof policyFormSchema>;
 

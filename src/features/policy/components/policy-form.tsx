@@ -44,7 +44,15 @@ function fieldMessage(field: string, message: string): string {
   return rest.charAt(0).toUpperCase() + rest.slice(1);
 }
 
-function PolicyEditor({ policy, notice, onNotice }: { policy: PolicyView; notice: Notice | null; onNotice: (n: Notice | null) => void }) {
+function PolicyEditor({
+  policy,
+  notice,
+  onNotice,
+}: {
+  policy: PolicyView;
+  notice: Notice | null;
+  onNotice: (n: Notice | null) => void;
+}) {
   const update = useUpdatePolicy();
   const reset = useResetPolicy();
   const [confirming, setConfirming] = useState(false);
@@ -60,7 +68,11 @@ function PolicyEditor({ policy, notice, onNotice }: { policy: PolicyView; notice
   const onSubmit = handleSubmit((values) => {
     onNotice(null);
     update.mutate(fromFormValues(values), {
-      onSuccess: () => onNotice({ tone: "success", text: "Saved. Your own timeframes are in force, and the deadlines of open cases are being worked out again." }),
+      onSuccess: () =>
+        onNotice({
+          tone: "success",
+          text: "Saved. Your own timeframes are in force, and the deadlines of open cases are being worked out again.",
+        }),
       onError: (error) => {
         if (error instanceof ApiError && error.status === 400) {
           for (const { field, message } of error.fieldErrors) {
@@ -76,12 +88,16 @@ function PolicyEditor({ policy, notice, onNotice }: { policy: PolicyView; notice
     reset.mutate(undefined, {
       onSuccess: () => {
         setConfirming(false);
-        onNotice({ tone: "success", text: "The England default is in force again. The deadlines of open cases are being worked out again." });
+        onNotice({
+          tone: "success",
+          text: "The England default is in force again. The deadlines of open cases are being worked out again.",
+        });
       },
     });
   };
 
-  const fieldErrorsFromServer = update.error instanceof ApiError && update.error.status === 400 && update.error.fieldErrors.length > 0;
+  const fieldErrorsFromServer =
+    update.error instanceof ApiError && update.error.status === 400 && update.error.fieldErrors.length > 0;
 
   return (
     <div className="flex flex-col gap-5">
@@ -108,7 +124,8 @@ function PolicyEditor({ policy, notice, onNotice }: { policy: PolicyView; notice
               label={f.label}
               hint={
                 <>
-                  {f.explanation} <span className="whitespace-nowrap">England default: {amount(ENGLAND_DEFAULT[f.name], f.unit)}.</span>{" "}
+                  {f.explanation}{" "}
+                  <span className="whitespace-nowrap">England default: {amount(ENGLAND_DEFAULT[f.name], f.unit)}.</span>{" "}
                   <span className="whitespace-nowrap">
                     From {f.min} to {f.max} {f.unit.many}.
                   </span>
@@ -125,11 +142,15 @@ function PolicyEditor({ policy, notice, onNotice }: { policy: PolicyView; notice
 
         <div id={noteId} className="flex flex-col gap-2 rounded-md border border-line bg-paper px-4 py-3 text-sm text-ink">
           <p>
-            The deadlines of every open case follow this policy: when you save, or go back to the England default, their due dates are
-            worked out again.
+            The deadlines of every open case follow this policy: when you save, or go back to the England default, their due dates
+            are worked out again.
           </p>
-          <p>Working days leave out Saturdays, Sundays and bank holidays in England and Wales. The day something happens is day 0.</p>
-          <p>If you set a timeframe longer than the England default, check that it still meets the law that applies to your homes.</p>
+          <p>
+            Working days leave out Saturdays, Sundays and bank holidays in England and Wales. The day something happens is day 0.
+          </p>
+          <p>
+            If you set a timeframe longer than the England default, check that it still meets the law that applies to your homes.
+          </p>
         </div>
 
         <div className="flex flex-wrap gap-3">

@@ -2,7 +2,8 @@ import { queryOptions, useQuery } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { propertyKeys } from "@/lib/query-keys";
 
-export const getEstates = async (signal?: AbortSignal) => (await api.get<{ estates: string[] }>("/properties/estates", { signal })).estates;
+export const getEstates = async (signal?: AbortSignal) =>
+  (await api.get<{ estates: string[] }>("/properties/estates", { signal })).estates;
 
 export const estatesQueryOptions = () =>
   queryOptions({

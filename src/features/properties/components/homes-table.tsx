@@ -24,7 +24,10 @@ const columns = column.columns([
       </span>
     ),
   }),
-  column.accessor("postcode", { header: "Postcode", cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
+  column.accessor("postcode", {
+    header: "Postcode",
+    cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
+  }),
   column.accessor("estate", {
     header: "Estate",
     cell: ({ row }) => (
@@ -102,10 +105,18 @@ export function HomesTable({ caption = "Homes" }: { caption?: string }) {
         noun={{ one: "home", many: "homes" }}
         loading={homes.isPending}
         fetching={homes.isFetching && !homes.isPending}
-        error={homes.isError ? <Alert tone="danger" title="We could not load the homes">{errorMessage(homes.error)}</Alert> : undefined}
+        error={
+          homes.isError ? (
+            <Alert tone="danger" title="We could not load the homes">
+              {errorMessage(homes.error)}
+            </Alert>
+          ) : undefined
+        }
         empty={
           <EmptyState title={filtered ? "No homes match" : "No homes yet"}>
-            {filtered ? "Try a shorter search, or choose All estates." : "Homes will appear here once they are added for your organisation."}
+            {filtered
+              ? "Try a shorter search, or choose All estates."
+              : "Homes will appear here once they are added for your organisation."}
           </EmptyState>
         }
       />

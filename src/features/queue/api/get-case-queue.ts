@@ -4,7 +4,8 @@ import { queueQuery, type QueueListParams } from "../lib/queue-view";
 import { caseKeys } from "@/lib/query-keys";
 import type { QueuePage } from "./types";
 
-export const getCaseQueue = (params: QueueListParams, signal?: AbortSignal) => api.get<QueuePage>("/cases", { query: queueQuery(params), signal });
+export const getCaseQueue = (params: QueueListParams, signal?: AbortSignal) =>
+  api.get<QueuePage>("/cases", { query: queueQuery(params), signal });
 
 export const caseQueueQueryOptions = (params: QueueListParams) =>
   queryOptions({

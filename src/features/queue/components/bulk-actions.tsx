@@ -13,11 +13,25 @@ const referenceOf = (item: { id: number; reference: string | null }) => item.ref
 const isStatus = (value: string): value is CaseStatus => (CASE_STATUSES as readonly string[]).includes(value);
 
 /** The bar over the table while cases are ticked. */
-export function BulkBar({ count, onAssign, onStatus, onClear }: { count: number; onAssign: () => void; onStatus: () => void; onClear: () => void }) {
+export function BulkBar({
+  count,
+  onAssign,
+  onStatus,
+  onClear,
+}: {
+  count: number;
+  onAssign: () => void;
+  onStatus: () => void;
+  onClear: () => void;
+}) {
   return (
     <div aria-live="polite">
       {count > 0 ? (
-        <div role="group" aria-label="Change the selected cases" className="flex flex-wrap items-center gap-2 rounded-md border border-dew-600 bg-dew-50 px-3 py-2">
+        <div
+          role="group"
+          aria-label="Change the selected cases"
+          className="flex flex-wrap items-center gap-2 rounded-md border border-dew-600 bg-dew-50 px-3 py-2"
+        >
           <p className="mr-2 font-bold">{count} selected</p>
           <Button size="sm" onClick={onAssign}>
             Assign to…
@@ -169,7 +183,12 @@ export function BulkStatusDialog({ open, items, statusLabel, busy, serverError, 
       }}
     >
       <div className="flex flex-col gap-3">
-        <Select label="New status" value={target} error={tried ? statusError : undefined} onChange={(e) => setTarget(e.target.value)}>
+        <Select
+          label="New status"
+          value={target}
+          error={tried ? statusError : undefined}
+          onChange={(e) => setTarget(e.target.value)}
+        >
           <option value="">Choose a status…</option>
           {CASE_STATUSES.map((s) => (
             <option key={s} value={s}>
@@ -184,8 +203,8 @@ export function BulkStatusDialog({ open, items, statusLabel, busy, serverError, 
             </p>
             {stuck > 0 ? (
               <Alert tone="warning" live="none">
-                {stuck === n ? "None of these cases" : casesCount(stuck)} can move to {statusLabel(to)} from the status they are in now.{" "}
-                {stuck === 1 ? "It will be left as it is" : "They will be left as they are"} and listed after the change.
+                {stuck === n ? "None of these cases" : casesCount(stuck)} can move to {statusLabel(to)} from the status they are
+                in now. {stuck === 1 ? "It will be left as it is" : "They will be left as they are"} and listed after the change.
               </Alert>
             ) : null}
           </>
@@ -225,7 +244,11 @@ export function BulkResult({ outcome, onDismiss }: { outcome: BulkOutcome; onDis
         live={failed.length === 0 ? "status" : "alert"}
         title={`${casesCount(updated.length)} updated`}
       >
-        {updated.length > 0 ? <p>{updated.length === 1 ? "It was" : "They were"} {outcome.change}.</p> : null}
+        {updated.length > 0 ? (
+          <p>
+            {updated.length === 1 ? "It was" : "They were"} {outcome.change}.
+          </p>
+        ) : null}
         {failed.length > 0 ? (
           <>
             <p className="mt-1 font-semibold">{casesCount(failed.length)} could not be changed:</p>

@@ -10,7 +10,14 @@ import { useStaff } from "@/lib/staff";
 import type { BulkUpdate, QueueItem } from "../api/types";
 import { useNow } from "../hooks/use-now";
 import { useQueueTableParams } from "../hooks/use-queue-table-params";
-import { DEFAULT_QUEUE_FILTERS, HIDEABLE_COLUMNS, QUEUE_SORTS, showsEverything, type HideableColumn, type QueueSort } from "../lib/queue-view";
+import {
+  DEFAULT_QUEUE_FILTERS,
+  HIDEABLE_COLUMNS,
+  QUEUE_SORTS,
+  showsEverything,
+  type HideableColumn,
+  type QueueSort,
+} from "../lib/queue-view";
 import { BulkAssignDialog, BulkBar, BulkResult, BulkStatusDialog, type BulkOutcome } from "./bulk-actions";
 import { ColumnMenu } from "./column-menu";
 import { QueueFilters } from "./queue-filters";
@@ -47,7 +54,10 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
 
   // Only an empty default view asks whether there are any cases at all, to say the right thing.
   const emptyDefault = !view.filtered && queue.isSuccess && queue.data.total === 0 && !queue.isPlaceholderData;
-  const anyCase = useCaseQueue({ ...DEFAULT_QUEUE_FILTERS, status: "all", sort: "priority", order: "desc", page: 1, pageSize: 1 }, { enabled: emptyDefault });
+  const anyCase = useCaseQueue(
+    { ...DEFAULT_QUEUE_FILTERS, status: "all", sort: "priority", order: "desc", page: 1, pageSize: 1 },
+    { enabled: emptyDefault },
+  );
 
   // The selection belongs to the rows on screen: a new filter, sort or page starts it afresh.
   const viewKey = JSON.stringify(params);
@@ -61,7 +71,10 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
   const [dialog, setDialog] = useState<"assign" | "status" | null>(null);
   const [outcome, setOutcome] = useState<BulkOutcome | null>(null);
 
-  const columns = useMemo(() => queueColumns({ renderStatus: renderStatus ?? statusLabel, now }), [renderStatus, statusLabel, now]);
+  const columns = useMemo(
+    () => queueColumns({ renderStatus: renderStatus ?? statusLabel, now }),
+    [renderStatus, statusLabel, now],
+  );
   const sorting: SortingState = useMemo(() => [{ id: params.sort, desc: params.order === "desc" }], [params.sort, params.order]);
   const columnVisibility: ColumnVisibilityState = useMemo(() => Object.fromEntries(hidden.map((id) => [id, false])), [hidden]);
 
@@ -75,7 +88,8 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
     sorting,
     onSortingChange: (next) => {
       const first = next[0];
-      if (first && (QUEUE_SORTS as readonly string[]).includes(first.id)) view.setSort(first.id as QueueSort, first.desc ? "desc" : "asc");
+      if (first && (QUEUE_SORTS as readonly string[]).includes(first.id))
+        view.setSort(first.id as QueueSort, first.desc ? "desc" : "asc");
     },
     columnVisibility,
     onColumnVisibilityChange: (next) => view.setHidden(HIDEABLE_COLUMNS.filter((id) => next[id] === false) as HideableColumn[]),
@@ -116,13 +130,27 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
     );
   } else if (!view.filtered) {
     empty = (
-      <EmptyState title="No open cases" action={<Button variant="secondary" onClick={() => view.setStatus("all")}>Show all statuses</Button>}>
+      <EmptyState
+        title="No open cases"
+        action={
+          <Button variant="secondary" onClick={() => view.setStatus("all")}>
+            Show all statuses
+          </Button>
+        }
+      >
         Every case is closed or withdrawn. New reports will appear here.
       </EmptyState>
     );
   } else {
     empty = (
-      <EmptyState title="No cases match these filters" action={<Button variant="secondary" onClick={view.clearFilters}>Clear filters</Button>}>
+      <EmptyState
+        title="No cases match these filters"
+        action={
+          <Button variant="secondary" onClick={view.clearFilters}>
+            Clear filters
+          </Button>
+        }
+      >
         Try fewer filters or a shorter search.
       </EmptyState>
     );
@@ -133,7 +161,12 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
       <QueueFilters view={view} statusLabel={statusLabel} estates={estates} staff={staff.data} />
 
       <div className="flex flex-wrap items-end justify-between gap-3">
-        <BulkBar count={selected.length} onAssign={() => openDialog("assign")} onStatus={() => openDialog("status")} onClear={() => setRowSelection({})} />
+        <BulkBar
+          count={selected.length}
+          onAssign={() => openDialog("assign")}
+          onStatus={() => openDialog("status")}
+          onClear={() => setRowSelection({})}
+        />
         <ColumnMenu table={table} onShowAll={() => view.setHidden([])} />
       </div>
 
@@ -146,7 +179,15 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
         noun={{ one: "case", many: "cases" }}
         loading={queue.isPending}
         fetching={queue.isFetching && !queue.isPending}
-        error={queue.isError ? <TableLoadError title="We could not load the case queue" message={errorMessage(queue.error)} onRetry={() => void queue.refetch()} /> : undefined}
+        error={
+          queue.isError ? (
+            <TableLoadError
+              title="We could not load the case queue"
+              message={errorMessage(queue.error)}
+              onRetry={() => void queue.refetch()}
+            />
+          ) : undefined
+        }
         empty={empty}
       />
 

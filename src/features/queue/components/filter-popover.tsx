@@ -67,7 +67,14 @@ export function FilterPopover({ label, summary, children, align = "start", class
           {summary}
         </span>
         <svg viewBox="0 0 16 16" className={cn("size-4 shrink-0 transition-transform", open && "rotate-180")} aria-hidden="true">
-          <path d="M4 6l4 4 4-4" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
+          <path
+            d="M4 6l4 4 4-4"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth="1.8"
+            strokeLinecap="round"
+            strokeLinejoin="round"
+          />
         </svg>
       </button>
       {/* A non-modal <dialog>: shown with `open`, never showModal(), so the page stays usable. */}
@@ -103,7 +110,14 @@ interface CheckboxListProps<T extends string> {
 }
 
 /** A group of checkboxes with a legend; the choice comes back in the options' order. */
-export function CheckboxList<T extends string>({ legend, hideLegend, options, selected, onChange, columns = 1 }: CheckboxListProps<T>) {
+export function CheckboxList<T extends string>({
+  legend,
+  hideLegend,
+  options,
+  selected,
+  onChange,
+  columns = 1,
+}: CheckboxListProps<T>) {
   const chosen = new Set(selected);
   return (
     <fieldset className="flex flex-col gap-1">

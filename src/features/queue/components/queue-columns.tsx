@@ -29,8 +29,17 @@ export const COLUMN_LABELS: Record<QueueSort, string> = {
 
 export const caseReference = (item: Pick<QueueItem, "id" | "reference">) => item.reference ?? `Case ${item.id}`;
 
-
-function Checkbox({ checked, indeterminate = false, label, onChange }: { checked: boolean; indeterminate?: boolean; label: string; onChange: (checked: boolean) => void }) {
+function Checkbox({
+  checked,
+  indeterminate = false,
+  label,
+  onChange,
+}: {
+  checked: boolean;
+  indeterminate?: boolean;
+  label: string;
+  onChange: (checked: boolean) => void;
+}) {
   const ref = useRef<HTMLInputElement>(null);
   useEffect(() => {
     if (ref.current) ref.current.indeterminate = indeterminate;
@@ -78,7 +87,11 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
         />
       ),
       cell: ({ row }) => (
-        <Checkbox label={`Select ${caseReference(row.original)}`} checked={row.getIsSelected()} onChange={(checked) => row.toggleSelected(checked)} />
+        <Checkbox
+          label={`Select ${caseReference(row.original)}`}
+          checked={row.getIsSelected()}
+          onChange={(checked) => row.toggleSelected(checked)}
+        />
       ),
     }),
     column.accessor((r) => r.reference ?? "", {
@@ -224,7 +237,12 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
     }),
     column.accessor((r) => r.assignee?.name ?? "", {
       ...sortable("assignee"),
-      cell: ({ row }) => (row.original.assignee ? <span className="whitespace-nowrap">{row.original.assignee.name}</span> : <Missing>Unassigned</Missing>),
+      cell: ({ row }) =>
+        row.original.assignee ? (
+          <span className="whitespace-nowrap">{row.original.assignee.name}</span>
+        ) : (
+          <Missing>Unassigned</Missing>
+        ),
     }),
   ]);
 }

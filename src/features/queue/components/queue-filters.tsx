@@ -12,7 +12,17 @@ import { CheckboxList, FilterPopover, PresetButton } from "./filter-popover";
 
 const selectClasses = cn(controlClasses, "min-h-9 w-auto py-1.5 pr-8 text-sm");
 
-function SelectFilter({ label, value, onChange, children }: { label: string; value: string; onChange: (value: string) => void; children: ReactNode }) {
+function SelectFilter({
+  label,
+  value,
+  onChange,
+  children,
+}: {
+  label: string;
+  value: string;
+  onChange: (value: string) => void;
+  children: ReactNode;
+}) {
   const id = useId();
   return (
     <div className="flex flex-col gap-1">
@@ -40,9 +50,11 @@ interface QueueFiltersProps {
 export function QueueFilters({ view, statusLabel, estates, staff }: QueueFiltersProps) {
   const { params, filtered } = view;
   const status = normaliseStatus(params.status);
-  const statusSummary =
-    status === "open" ? "Open cases" : status === "all" ? "All statuses" : summarise(status, statusLabel);
-  const hhsrsChosen = [...params.category.map((c) => categoryLabels[c]), ...(params.band.length ? [`Band ${params.band.join(", ")}`] : [])];
+  const statusSummary = status === "open" ? "Open cases" : status === "all" ? "All statuses" : summarise(status, statusLabel);
+  const hhsrsChosen = [
+    ...params.category.map((c) => categoryLabels[c]),
+    ...(params.band.length ? [`Band ${params.band.join(", ")}`] : []),
+  ];
   const deadlineValue = String(view.deadline);
   const dueOptions: number[] = [...DUE_WITHIN_CHOICES];
   if (params.dueWithin !== null && !dueOptions.includes(params.dueWithin)) dueOptions.push(params.dueWithin);
@@ -109,10 +121,16 @@ export function QueueFilters({ view, statusLabel, estates, staff }: QueueFilters
               {estate}
             </option>
           ))}
-          {params.estate && !(estates ?? []).includes(params.estate) ? <option value={params.estate}>{params.estate}</option> : null}
+          {params.estate && !(estates ?? []).includes(params.estate) ? (
+            <option value={params.estate}>{params.estate}</option>
+          ) : null}
         </SelectFilter>
 
-        <SelectFilter label="Vulnerable household" value={params.vulnerable} onChange={(v) => view.setVulnerable(v as "" | "true" | "false")}>
+        <SelectFilter
+          label="Vulnerable household"
+          value={params.vulnerable}
+          onChange={(v) => view.setVulnerable(v as "" | "true" | "false")}
+        >
           <option value="">Any</option>
           <option value="true">Yes</option>
           <option value="false">No</option>

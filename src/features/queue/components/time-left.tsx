@@ -19,7 +19,12 @@ export function TimeLeftText({ dueAt, overdue, now }: { dueAt: string; overdue: 
     );
   }
   return (
-    <span className={cn("inline-flex items-center gap-1 whitespace-nowrap", left.soon ? "font-semibold text-ember-800" : "text-ink-soft")}>
+    <span
+      className={cn(
+        "inline-flex items-center gap-1 whitespace-nowrap",
+        left.soon ? "font-semibold text-ember-800" : "text-ink-soft",
+      )}
+    >
       {left.soon ? (
         <svg viewBox="0 0 16 16" className="size-4 shrink-0" aria-hidden="true">
           <circle cx="8" cy="8" r="6.3" fill="none" stroke="currentColor" strokeWidth="1.6" />

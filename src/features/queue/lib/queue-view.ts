@@ -90,12 +90,29 @@ export const DEFAULT_QUEUE_FILTERS: Readonly<QueueFilters> = Object.freeze({
 });
 
 /** The URL keys of the filters (the same names the API uses), for "Clear filters". */
-export const FILTER_KEYS = ["status", "risk", "category", "band", "estate", "vulnerable", "overdue", "dueWithin", "assignee", "q"] as const;
+export const FILTER_KEYS = [
+  "status",
+  "risk",
+  "category",
+  "band",
+  "estate",
+  "vulnerable",
+  "overdue",
+  "dueWithin",
+  "assignee",
+  "q",
+] as const;
 
-const oneOf = <T extends string>(values: readonly T[], value: string): value is T => (values as readonly string[]).includes(value);
+const oneOf = <T extends string>(values: readonly T[], value: string): value is T =>
+  (values as readonly string[]).includes(value);
 
 /** A comma list from the URL, keeping known values only, once each, in the canonical order. */
-function readList<T extends string>(params: URLSearchParams, key: string, values: readonly T[], normalise = (v: string) => v): T[] {
+function readList<T extends string>(
+  params: URLSearchParams,
+  key: string,
+  values: readonly T[],
+  normalise = (v: string) => v,
+): T[] {
   const raw = params.get(key);
   if (!raw) return [];
   const given = new Set(raw.split(",").map((v) => normalise(v.trim())));

@@ -3,8 +3,12 @@ import { api } from "@/lib/api-client";
 import { reportKeys } from "@/lib/query-keys";
 import type { HandReading, ReadingsAdded } from "./types";
 
-export const addReadings = (caseId: number, readings: readonly HandReading[]) => api.post<ReadingsAdded>(`/cases/${caseId}/readings`, readings);
+export const addReadings = (caseId: number, readings: readonly HandReading[]) =>
+  api.post<ReadingsAdded>(`/cases/${caseId}/readings`, readings);
 
 export function useAddReadings(caseId: number) {
-  return useMutation({ mutationKey: reportKeys.readings(caseId), mutationFn: (readings: readonly HandReading[]) => addReadings(caseId, readings) });
+  return useMutation({
+    mutationKey: reportKeys.readings(caseId),
+    mutationFn: (readings: readonly HandReading[]) => addReadings(caseId, readings),
+  });
 }

@@ -19,5 +19,8 @@ export function importReadings(caseId: number, { file, roomId, mapping }: Import
 }
 
 export function useImportReadings(caseId: number) {
-  return useMutation({ mutationKey: reportKeys.import(caseId), mutationFn: (input: ImportReadingsInput) => importReadings(caseId, input) });
+  return useMutation({
+    mutationKey: reportKeys.import(caseId),
+    mutationFn: (input: ImportReadingsInput) => importReadings(caseId, input),
+  });
 }

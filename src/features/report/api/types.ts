@@ -1,6 +1,12 @@
 // The server's answers the report feature reads (inferred from the API contract, src/lib/contracts)
 // and the requests it sends.
-import type { CaseResponse, ImportPreviewResponse, ImportResultResponse, PhotoResponse, ReadingsAdded as ContractReadingsAdded } from "@/lib/contracts";
+import type {
+  CaseResponse,
+  ImportPreviewResponse,
+  ImportResultResponse,
+  PhotoResponse,
+  ReadingsAdded as ContractReadingsAdded,
+} from "@/lib/contracts";
 
 /** What POST /api/cases answers (the whole case; the form needs only these). */
 export type CreatedCase = Pick<CaseResponse, "id" | "reference" | "status" | "createdAt">;

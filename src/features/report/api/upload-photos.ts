@@ -11,5 +11,8 @@ export function uploadPhotos(caseId: number, files: readonly File[]) {
 }
 
 export function useUploadPhotos(caseId: number) {
-  return useMutation({ mutationKey: reportKeys.photos(caseId), mutationFn: (files: readonly File[]) => uploadPhotos(caseId, files) });
+  return useMutation({
+    mutationKey: reportKeys.photos(caseId),
+    mutationFn: (files: readonly File[]) => uploadPhotos(caseId, files),
+  });
 }

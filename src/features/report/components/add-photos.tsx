@@ -27,7 +27,15 @@ interface PhotoUploadFormProps {
 }
 
 /** Choose photos with the report form's picker and send them with the given upload: one form for every place that adds photos. */
-export function PhotoUploadForm({ upload, sendLabel, addedTitle, addedText, hint, buttonVariant, onAdded }: PhotoUploadFormProps) {
+export function PhotoUploadForm({
+  upload,
+  sendLabel,
+  addedTitle,
+  addedText,
+  hint,
+  buttonVariant,
+  onAdded,
+}: PhotoUploadFormProps) {
   const [files, setFiles] = useState<File[]>([]);
   const [added, setAdded] = useState<number | null>(null);
   return (
@@ -43,7 +51,11 @@ export function PhotoUploadForm({ upload, sendLabel, addedTitle, addedText, hint
         disabled={upload.isPending}
         hint={hint}
       />
-      {added !== null ? <Alert tone="success" title={addedTitle(added)}>{addedText}</Alert> : null}
+      {added !== null ? (
+        <Alert tone="success" title={addedTitle(added)}>
+          {addedText}
+        </Alert>
+      ) : null}
       <div>
         <Button
           variant={buttonVariant}

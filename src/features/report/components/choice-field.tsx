@@ -27,7 +27,19 @@ interface ChoiceFieldProps {
   after?: ReactNode;
 }
 
-export function ChoiceField({ control, name, kind, legend, hint, options, columns, clearLabel, value, onChange, after }: ChoiceFieldProps) {
+export function ChoiceField({
+  control,
+  name,
+  kind,
+  legend,
+  hint,
+  options,
+  columns,
+  clearLabel,
+  value,
+  onChange,
+  after,
+}: ChoiceFieldProps) {
   return (
     <Controller
       control={control}

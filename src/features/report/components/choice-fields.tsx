@@ -20,7 +20,11 @@ function GroupShell({ legend, hint, error, large, className, children }: GroupSh
   const errorId = `${id}-error`;
   const describedBy = [hint ? hintId : null, error ? errorId : null].filter(Boolean).join(" ") || undefined;
   return (
-    <fieldset aria-describedby={describedBy} aria-invalid={error ? true : undefined} className={cn("flex min-w-0 flex-col gap-2", className)}>
+    <fieldset
+      aria-describedby={describedBy}
+      aria-invalid={error ? true : undefined}
+      className={cn("flex min-w-0 flex-col gap-2", className)}
+    >
       <legend className={cn("mb-1 font-bold text-ink", large ? "text-lg" : "text-base")}>{legend}</legend>
       {hint ? (
         <p id={hintId} className="-mt-1 text-sm text-ink-soft">
@@ -105,7 +109,15 @@ export function CheckboxGroup<V extends string | number>({
 }
 
 /** One more box in a checkbox group that stands for an answer instead of a value ("None of these"). */
-export function ExclusiveCheckbox({ label, checked, onChange }: { label: ReactNode; checked: boolean; onChange: (checked: boolean) => void }) {
+export function ExclusiveCheckbox({
+  label,
+  checked,
+  onChange,
+}: {
+  label: ReactNode;
+  checked: boolean;
+  onChange: (checked: boolean) => void;
+}) {
   return (
     <label className={optionRow}>
       <input type="checkbox" checked={checked} onChange={(e) => onChange(e.target.checked)} className={controlClass} />
@@ -129,7 +141,19 @@ interface RadioGroupProps<V extends string> {
   className?: string;
 }
 
-export function RadioGroup<V extends string>({ legend, hint, error, large, options, value, onChange, onBlur, inputRef, clearLabel, className }: RadioGroupProps<V>) {
+export function RadioGroup<V extends string>({
+  legend,
+  hint,
+  error,
+  large,
+  options,
+  value,
+  onChange,
+  onBlur,
+  inputRef,
+  clearLabel,
+  className,
+}: RadioGroupProps<V>) {
   const name = useId();
   return (
     <GroupShell legend={legend} hint={hint} error={error} large={large} className={className}>

@@ -37,7 +37,16 @@ interface LoggerFileFieldsProps {
 }
 
 /** The logger file and the room it was in. Shared by the report form and the import below. */
-export function LoggerFileFields({ rooms, file, roomId, onFileChange, onRoomChange, fileError, roomError, disabled }: LoggerFileFieldsProps) {
+export function LoggerFileFields({
+  rooms,
+  file,
+  roomId,
+  onFileChange,
+  onRoomChange,
+  fileError,
+  roomError,
+  disabled,
+}: LoggerFileFieldsProps) {
   const id = useId();
   const describedBy = [`${id}-hint`, fileError ? `${id}-error` : null].filter(Boolean).join(" ");
   return (
@@ -67,7 +76,11 @@ export function LoggerFileFields({ rooms, file, roomId, onFileChange, onRoomChan
             "file:bg-surface file:px-4 file:font-semibold file:text-dew-800 hover:file:bg-dew-50 disabled:opacity-60",
           )}
         />
-        {file ? <p className="text-sm">Chosen: <span className="font-semibold break-all">{file.name}</span></p> : null}
+        {file ? (
+          <p className="text-sm">
+            Chosen: <span className="font-semibold break-all">{file.name}</span>
+          </p>
+        ) : null}
       </div>
       <Select
         label="Where was the logger?"
@@ -102,7 +115,14 @@ interface CsvImportProps {
 type Phase = "choose" | "check" | "done";
 
 /** Upload a logger CSV: the server proposes which column is which, the person checks it, then it is imported. */
-export function CsvImport({ caseId, rooms, initialFile = null, initialRoomId = null, onImported, headingLevel = 3 }: CsvImportProps) {
+export function CsvImport({
+  caseId,
+  rooms,
+  initialFile = null,
+  initialRoomId = null,
+  onImported,
+  headingLevel = 3,
+}: CsvImportProps) {
   const [file, setFile] = useState<File | null>(initialFile);
   const [roomId, setRoomId] = useState<number | null>(initialRoomId ?? (rooms.length === 1 ? rooms[0]!.id : null));
   const [phase, setPhase] = useState<Phase>("choose");
@@ -266,7 +286,11 @@ export function CsvImport({ caseId, rooms, initialFile = null, initialRoomId = n
           onChange={(v) => setField("temperatureUnit", v ?? "C")}
         />
         <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
-          <Select label="How dates are written" value={fields.dateFormat} onChange={(e) => setField("dateFormat", e.target.value)}>
+          <Select
+            label="How dates are written"
+            value={fields.dateFormat}
+            onChange={(e) => setField("dateFormat", e.target.value)}
+          >
             {dateFormats.map((f) => (
               <option key={f} value={f}>
                 {DATE_FORMAT_LABELS[f] ?? f}
@@ -348,7 +372,12 @@ function SampleTable({ preview }: { preview: ImportPreview }) {
   const rows = preview.sampleRows.slice(0, 5);
   if (rows.length === 0) return null;
   return (
-    <div role="region" aria-label="The first rows of your file (scrolls sideways)" tabIndex={0} className="overflow-x-auto rounded-md border border-line bg-surface">
+    <div
+      role="region"
+      aria-label="The first rows of your file (scrolls sideways)"
+      tabIndex={0}
+      className="overflow-x-auto rounded-md border border-line bg-surface"
+    >
       <table className="w-full border-collapse text-left text-sm">
         <caption className="px-3 pt-3 pb-1 text-left font-bold">The first rows of your file</caption>
         <thead className="bg-dew-50">
@@ -379,7 +408,10 @@ function SampleTable({ preview }: { preview: ImportPreview }) {
 export function ImportSummary({ result }: { result: ImportResult }) {
   const plural = (n: number, one: string, many: string) => `${n.toLocaleString("en-GB")} ${n === 1 ? one : many}`;
   return (
-    <Alert tone={result.imported > 0 ? "success" : "warning"} title={result.imported > 0 ? `${plural(result.imported, "reading", "readings")} added` : "No new readings were added"}>
+    <Alert
+      tone={result.imported > 0 ? "success" : "warning"}
+      title={result.imported > 0 ? `${plural(result.imported, "reading", "readings")} added` : "No new readings were added"}
+    >
       <ul className="list-disc space-y-1 pl-5">
         {result.duplicates > 0 ? (
           <li>{plural(result.duplicates, "reading was", "readings were")} already in your report, so we skipped them.</li>

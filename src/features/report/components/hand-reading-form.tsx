@@ -21,7 +21,14 @@ interface HandReadingFormProps {
   headingLevel?: 2 | 3 | 4;
 }
 
-const ORDER: (keyof HandReadingFields)[] = ["roomId", "airTemperatureC", "relativeHumidityPct", "surfaceTemperatureC", "outdoorTemperatureC", "takenAt"];
+const ORDER: (keyof HandReadingFields)[] = [
+  "roomId",
+  "airTemperatureC",
+  "relativeHumidityPct",
+  "surfaceTemperatureC",
+  "outdoorTemperatureC",
+  "takenAt",
+];
 
 const blank = (roomId: string): HandReadingFields => ({
   roomId,
@@ -36,7 +43,15 @@ const blank = (roomId: string): HandReadingFields => ({
  * One reading from a thermometer and hygrometer (and a surface thermometer, if there is one),
  * with the engine's answer shown as it is typed. Not a <form>: it also sits inside the report form.
  */
-export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defaultRoomId, headingLevel = 3 }: HandReadingFormProps) {
+export function HandReadingForm({
+  rooms,
+  onAdd,
+  busy,
+  error,
+  onDirtyChange,
+  defaultRoomId,
+  headingLevel = 3,
+}: HandReadingFormProps) {
   const initialRoom = defaultRoomId ?? (rooms.length === 1 ? rooms[0]!.id : undefined);
   const [fields, setFields] = useState<HandReadingFields>(() => blank(initialRoom ? String(initialRoom) : ""));
   const [errors, setErrors] = useState<HandReadingErrors>({});
@@ -49,7 +64,9 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
   const outdoorRef = useRef<HTMLInputElement>(null);
   const takenAtRef = useRef<HTMLInputElement>(null);
 
-  const dirty = Boolean(fields.airTemperatureC || fields.relativeHumidityPct || fields.surfaceTemperatureC || fields.outdoorTemperatureC);
+  const dirty = Boolean(
+    fields.airTemperatureC || fields.relativeHumidityPct || fields.surfaceTemperatureC || fields.outdoorTemperatureC,
+  );
   // Told only when `dirty` changes, with the parent's latest callback.
   const tellDirty = useEffectEvent((next: boolean) => onDirtyChange?.(next));
   useEffect(() => tellDirty(dirty), [dirty]);
@@ -114,7 +131,14 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
 
   return (
     <div className="flex flex-col gap-4">
-      <Select label="Room" ref={roomRef} value={fields.roomId} onChange={set("roomId")} error={errors.roomId} controlClassName="sm:max-w-xs">
+      <Select
+        label="Room"
+        ref={roomRef}
+        value={fields.roomId}
+        onChange={set("roomId")}
+        error={errors.roomId}
+        controlClassName="sm:max-w-xs"
+      >
         <option value="">Choose a room</option>
         {rooms.map((room) => (
           <option key={room.id} value={room.id}>
@@ -179,7 +203,11 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
         error={errors.takenAt}
         controlClassName="sm:max-w-xs"
       />
-      {error ? <Alert tone="danger" title="The reading was not added">{error}</Alert> : null}
+      {error ? (
+        <Alert tone="danger" title="The reading was not added">
+          {error}
+        </Alert>
+      ) : null}
       <div className="flex flex-wrap items-center gap-3">
         <Button variant="secondary" onClick={() => void add()} busy={busy}>
           Add this reading
@@ -208,7 +236,9 @@ export function HandReadingForm({ rooms, onAdd, busy, error, onDirtyChange, defa
         {preview ? (
           <RiskPanel result={preview} compact />
         ) : (
-          <p className="text-ink-soft">Type the air temperature and relative humidity to see the dew point and how damp the surface is.</p>
+          <p className="text-ink-soft">
+            Type the air temperature and relative humidity to see the dew point and how damp the surface is.
+          </p>
         )}
         <ReportStillMatters />
       </section>

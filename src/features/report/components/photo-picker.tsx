@@ -68,12 +68,18 @@ export function PhotoPicker({ value, onChange, serverError, disabled, hint }: Ph
             "file:bg-surface file:px-4 file:font-semibold file:text-dew-800 hover:file:bg-dew-50 disabled:opacity-60",
           )}
         />
-        {full ? <p className="text-sm text-ink-soft">You have chosen {MAX_PHOTOS} photos, the most we can take at once.</p> : null}
+        {full ? (
+          <p className="text-sm text-ink-soft">You have chosen {MAX_PHOTOS} photos, the most we can take at once.</p>
+        ) : null}
       </div>
 
       {problems.length ? (
         <div id={`${id}-problems`}>
-          <Alert tone="warning" title={problems.length === 1 ? "One file could not be added" : `${problems.length} files could not be added`} live="alert">
+          <Alert
+            tone="warning"
+            title={problems.length === 1 ? "One file could not be added" : `${problems.length} files could not be added`}
+            live="alert"
+          >
             <ul className="list-disc space-y-1 pl-5">
               {problems.map((p, i) => (
                 <li key={`${p.name}-${i}`}>
@@ -94,11 +100,16 @@ export function PhotoPicker({ value, onChange, serverError, disabled, hint }: Ph
         <ul aria-label="Photos you have chosen" className="grid grid-cols-2 gap-3 sm:grid-cols-3">
           {value.map((file, i) => {
             return (
-              <li key={`${file.name}-${file.size}-${file.lastModified}`} className="flex flex-col gap-1 rounded-md border border-line bg-surface p-2">
+              <li
+                key={`${file.name}-${file.size}-${file.lastModified}`}
+                className="flex flex-col gap-1 rounded-md border border-line bg-surface p-2"
+              >
                 {canPreview() ? (
                   <FilePreview file={file} alt={`Chosen file ${i + 1}, ${file.name}`} />
                 ) : (
-                  <div className="flex aspect-square w-full items-center justify-center rounded-sm bg-paper text-sm text-ink-soft">Photo {i + 1}</div>
+                  <div className="flex aspect-square w-full items-center justify-center rounded-sm bg-paper text-sm text-ink-soft">
+                    Photo {i + 1}
+                  </div>
                 )}
                 <span className="truncate text-sm" title={file.name}>
                   {file.name}
@@ -113,7 +124,11 @@ export function PhotoPicker({ value, onChange, serverError, disabled, hint }: Ph
                   }}
                   className="min-h-9 rounded-md border border-line-strong px-2 text-sm font-semibold text-ink hover:bg-rust-50 disabled:opacity-60"
                 >
-                  Remove<span className="sr-only"> photo {i + 1}, {file.name}</span>
+                  Remove
+                  <span className="sr-only">
+                    {" "}
+                    photo {i + 1}, {file.name}
+                  </span>
                 </button>
               </li>
             );

@@ -34,11 +34,17 @@ export function ReportFollowUp({ caseId, rooms, onChanged }: ReportFollowUpProps
   return (
     <div className="flex flex-col gap-4">
       {photos && photos.status !== "done" ? (
-        <Alert tone={photos.status === "failed" ? "danger" : "info"} title={photos.status === "failed" ? "Your report is sent, but the photos didn't upload" : "Adding your photos…"}>
+        <Alert
+          tone={photos.status === "failed" ? "danger" : "info"}
+          title={photos.status === "failed" ? "Your report is sent, but the photos didn't upload" : "Adding your photos…"}
+        >
           {photos.status === "failed" ? (
             <div className="flex flex-col items-start gap-2">
               <p>{photos.error}</p>
-              <p>Your report is safe. You can try the {photos.files.length === 1 ? "photo" : `${photos.files.length} photos`} again now, or add photos later.</p>
+              <p>
+                Your report is safe. You can try the {photos.files.length === 1 ? "photo" : `${photos.files.length} photos`} again
+                now, or add photos later.
+              </p>
               <Button size="sm" onClick={() => void retryPhotos()}>
                 Try the photos again
               </Button>
@@ -48,11 +54,17 @@ export function ReportFollowUp({ caseId, rooms, onChanged }: ReportFollowUpProps
       ) : null}
 
       {readings && readings.status !== "done" ? (
-        <Alert tone={readings.status === "failed" ? "danger" : "info"} title={readings.status === "failed" ? "Your report is sent, but the readings weren't added" : "Adding your readings…"}>
+        <Alert
+          tone={readings.status === "failed" ? "danger" : "info"}
+          title={readings.status === "failed" ? "Your report is sent, but the readings weren't added" : "Adding your readings…"}
+        >
           {readings.status === "failed" ? (
             <div className="flex flex-col items-start gap-2">
               <p>{readings.error}</p>
-              <p>Your report is safe. You can try the {readings.items.length === 1 ? "reading" : `${readings.items.length} readings`} again now.</p>
+              <p>
+                Your report is safe. You can try the{" "}
+                {readings.items.length === 1 ? "reading" : `${readings.items.length} readings`} again now.
+              </p>
               <Button size="sm" onClick={() => void retryReadings()}>
                 Try the readings again
               </Button>
@@ -63,7 +75,9 @@ export function ReportFollowUp({ caseId, rooms, onChanged }: ReportFollowUpProps
 
       {loggerFile && (loggerFile.status === "waiting" || importedHere) ? (
         <Panel title="Check your logger file" id="logger-file-check">
-          <p className="mb-3">Your report is sent. Before the readings from {loggerFile.file.name} are added, please check which column is which.</p>
+          <p className="mb-3">
+            Your report is sent. Before the readings from {loggerFile.file.name} are added, please check which column is which.
+          </p>
           <CsvImport
             caseId={caseId}
             rooms={rooms}

@@ -83,7 +83,10 @@ export function ReportForm({ userId, rooms, onSent }: ReportFormProps) {
   const send = async (report: CaseReport) => {
     setSendError(null);
     try {
-      const outcome = await sendReport({ report, photos, readings, loggerFile: logger.file ? { file: logger.file, roomId: logger.roomId } : null }, setProgress);
+      const outcome = await sendReport(
+        { report, photos, readings, loggerFile: logger.file ? { file: logger.file, roomId: logger.roomId } : null },
+        setProgress,
+      );
       draft.markSent();
       onSent(outcome.created, outcome.complete);
     } catch (error) {
@@ -136,7 +139,11 @@ export function ReportForm({ userId, rooms, onSent }: ReportFormProps) {
           {restoredNote.photoCount > 0 || restoredNote.hadLoggerFile ? (
             <p className="mt-1">
               Photos and files can't be kept on this device, so please add{" "}
-              {restoredNote.photoCount > 0 ? (restoredNote.photoCount === 1 ? "your photo" : `your ${restoredNote.photoCount} photos`) : "your logger file"}{" "}
+              {restoredNote.photoCount > 0
+                ? restoredNote.photoCount === 1
+                  ? "your photo"
+                  : `your ${restoredNote.photoCount} photos`
+                : "your logger file"}{" "}
               again when you get to {restoredNote.photoCount > 0 ? "the photos step" : "the readings step"}.
             </p>
           ) : null}

@@ -52,7 +52,12 @@ export function ReportSummary({ answers, onChange, sentAt, extra }: ReportSummar
     <dl className="flex flex-col divide-y divide-line">
       {sentAt ? <Row term="Sent on" value={formatDate(sentAt)} /> : null}
       <Row term="What you can see" value={answers.description || notSaid} step={0} onChange={onChange} preserveLines />
-      <Row term="Where" value={answers.locations.length ? answers.locations.map((l) => labelFor(locationLabels, l)) : notSaid} step={0} onChange={onChange} />
+      <Row
+        term="Where"
+        value={answers.locations.length ? answers.locations.map((l) => labelFor(locationLabels, l)) : notSaid}
+        step={0}
+        onChange={onChange}
+      />
       <Row
         term="What you've noticed"
         value={answers.observations.length ? answers.observations.map((o) => labelFor(observationLabels, o)) : notSaid}
@@ -60,7 +65,12 @@ export function ReportSummary({ answers, onChange, sentAt, extra }: ReportSummar
         onChange={onChange}
       />
       <Row term="Rooms" value={answers.roomNames.length ? [...answers.roomNames] : notSaid} step={0} onChange={onChange} />
-      <Row term="How long" value={answers.since ? labelFor(durationLabels, answers.since) : notSaid} step={1} onChange={onChange} />
+      <Row
+        term="How long"
+        value={answers.since ? labelFor(durationLabels, answers.since) : notSaid}
+        step={1}
+        onChange={onChange}
+      />
       <Row term="How big" value={answers.area ? labelFor(areaLabels, answers.area) : notSaid} step={1} onChange={onChange} />
       {EQUIPMENT_QUESTIONS.map((q) => {
         const answer = answers.equipment?.[q];

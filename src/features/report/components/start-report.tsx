@@ -15,8 +15,8 @@ export function StartReport() {
             Seen damp, condensation or mould?
           </h2>
           <p>
-            Tell your landlord here. It takes a few minutes, photos help, and readings are optional. Your landlord will look into every
-            report.
+            Tell your landlord here. It takes a few minutes, photos help, and readings are optional. Your landlord will look into
+            every report.
           </p>
           <Link to={REPORT_PATH} className={buttonClasses("primary", "lg")}>
             Report damp or mould

@@ -6,7 +6,16 @@ import { useCallback, useEffect, useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import { caseReportSchema, type CaseReport, type Vulnerability } from "@/lib/schemas/case-report";
 import type { HandReading, RoomOption } from "../api/types";
-import { clearDraft, emptyReport, isBlank, loadDraft, saveDraft, type HouseholdAnswer, type ReportDraft, type ReportFormValues } from "../lib/draft";
+import {
+  clearDraft,
+  emptyReport,
+  isBlank,
+  loadDraft,
+  saveDraft,
+  type HouseholdAnswer,
+  type ReportDraft,
+  type ReportFormValues,
+} from "../lib/draft";
 import type { FieldName } from "../lib/steps";
 
 const SAVE_DELAY_MS = 600;

@@ -1,7 +1,15 @@
 // A report in progress, kept in this browser's localStorage so a dropped connection or a closed
 // tab loses nothing. Photos and files cannot be stored there; only how many there were.
 import type { z } from "zod";
-import { AREAS, DURATIONS, EQUIPMENT_ANSWERS, LOCATIONS, OBSERVATIONS, VULNERABILITIES, type caseReportSchema } from "@/lib/schemas/case-report";
+import {
+  AREAS,
+  DURATIONS,
+  EQUIPMENT_ANSWERS,
+  LOCATIONS,
+  OBSERVATIONS,
+  VULNERABILITIES,
+  type caseReportSchema,
+} from "@/lib/schemas/case-report";
 import type { HandReading } from "../api/types";
 
 export type ReportFormValues = z.input<typeof caseReportSchema>;
@@ -43,8 +51,14 @@ const finite = (v: unknown): v is number => typeof v === "number" && Number.isFi
 function readingFrom(v: unknown): HandReading | null {
   if (typeof v !== "object" || v === null) return null;
   const r = v as Record<string, unknown>;
-  if (!finite(r.roomId) || typeof r.takenAt !== "string" || !finite(r.airTemperatureC) || !finite(r.relativeHumidityPct)) return null;
-  const out: HandReading = { roomId: r.roomId, takenAt: r.takenAt, airTemperatureC: r.airTemperatureC, relativeHumidityPct: r.relativeHumidityPct };
+  if (!finite(r.roomId) || typeof r.takenAt !== "string" || !finite(r.airTemperatureC) || !finite(r.relativeHumidityPct))
+    return null;
+  const out: HandReading = {
+    roomId: r.roomId,
+    takenAt: r.takenAt,
+    airTemperatureC: r.airTemperatureC,
+    relativeHumidityPct: r.relativeHumidityPct,
+  };
   if (finite(r.surfaceTemperatureC)) out.surfaceTemperatureC = r.surfaceTemperatureC;
   if (finite(r.outdoorTemperatureC)) out.outdoorTemperatureC = r.outdoorTemperatureC;
   return out;

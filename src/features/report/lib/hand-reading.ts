@@ -49,7 +49,10 @@ export function previewInput(fields: HandReadingFields): PointInput | null {
   return input;
 }
 
-export function checkHandReading(fields: HandReadingFields, now = Date.now()): { reading?: HandReading; errors: HandReadingErrors } {
+export function checkHandReading(
+  fields: HandReadingFields,
+  now = Date.now(),
+): { reading?: HandReading; errors: HandReadingErrors } {
   const errors: HandReadingErrors = {};
   const roomId = Number(fields.roomId);
   if (!fields.roomId || !Number.isInteger(roomId) || roomId <= 0) errors.roomId = "Choose the room the reading was taken in.";
@@ -61,7 +64,8 @@ export function checkHandReading(fields: HandReadingFields, now = Date.now()): {
   const rh = parseDecimal(fields.relativeHumidityPct);
   if (rh === undefined) errors.relativeHumidityPct = "Enter the relative humidity.";
   else if (Number.isNaN(rh)) errors.relativeHumidityPct = "Enter the relative humidity as a number, for example 65.";
-  else if (!(rh > 0 && rh <= 100)) errors.relativeHumidityPct = "Relative humidity should be more than 0 and at most 100 %. Please check the number.";
+  else if (!(rh > 0 && rh <= 100))
+    errors.relativeHumidityPct = "Relative humidity should be more than 0 and at most 100 %. Please check the number.";
 
   const surface = parseDecimal(fields.surfaceTemperatureC);
   const surfaceError = inRange("surface temperature", surface, -30, 50, false);

@@ -26,7 +26,8 @@ export function photoProblem(file: File): string | null {
   if (HEIC_TYPES.includes(type) || HEIC_EXTENSIONS.includes(ext)) return HEIC_ADVICE;
   const known = type ? (ACCEPTED_PHOTO_TYPES as readonly string[]).includes(type) : ACCEPTED_EXTENSIONS.includes(ext);
   if (!known) return "This file isn't a kind of picture we can use. Please choose a JPEG, PNG, WebP or AVIF photo.";
-  if (file.size > MAX_PHOTO_BYTES) return `This photo is ${megabytes(file.size)}, more than the 15 MB we can take. Please choose a smaller photo.`;
+  if (file.size > MAX_PHOTO_BYTES)
+    return `This photo is ${megabytes(file.size)}, more than the 15 MB we can take. Please choose a smaller photo.`;
   if (file.size === 0) return "This file is empty. Please choose the photo again.";
   return null;
 }

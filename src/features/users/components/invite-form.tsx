@@ -66,11 +66,22 @@ export function InviteForm({ roles, HomePicker }: InviteFormProps) {
           {sent.name} will get an e-mail with a link to set a password. The link works until {formatDateTime(sent.expiresAt)}.
         </Alert>
       ) : null}
-      {invite.isError ? <Alert tone="danger" title="The invitation was not sent">{errorMessage(invite.error)}</Alert> : null}
+      {invite.isError ? (
+        <Alert tone="danger" title="The invitation was not sent">
+          {errorMessage(invite.error)}
+        </Alert>
+      ) : null}
 
       <div className="grid grid-cols-1 gap-4 @lg:grid-cols-2">
         <Input label="Name" autoComplete="off" error={errors.name?.message} {...register("name")} />
-        <Input label="E-mail address" type="email" autoComplete="off" spellCheck={false} error={errors.email?.message} {...register("email")} />
+        <Input
+          label="E-mail address"
+          type="email"
+          autoComplete="off"
+          spellCheck={false}
+          error={errors.email?.message}
+          {...register("email")}
+        />
       </div>
       <Select label="Role" error={errors.role?.message} {...register("role")} className="@lg:max-w-xs">
         {roles.map((r) => (

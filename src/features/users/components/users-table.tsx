@@ -23,7 +23,12 @@ const statusClasses: Record<UserStatus, string> = {
 
 function StatusBadge({ status }: { status: UserStatus }) {
   return (
-    <span className={cn("inline-flex items-center rounded-pill border px-2 py-0.5 text-xs font-semibold whitespace-nowrap", statusClasses[status])}>
+    <span
+      className={cn(
+        "inline-flex items-center rounded-pill border px-2 py-0.5 text-xs font-semibold whitespace-nowrap",
+        statusClasses[status],
+      )}
+    >
       {userStatusLabels[status]}
     </span>
   );
@@ -51,35 +56,42 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
       setPending({ user, status });
     };
     return column.columns([
-    column.accessor("name", { header: "Name", cell: (info) => <span className="font-semibold">{info.getValue()}</span> }),
-    column.accessor("email", { header: "E-mail", cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
-    column.accessor("role", { header: "Role", cell: (info) => roleLabels[info.getValue()] ?? info.getValue() }),
-    column.accessor("status", { header: "Status", cell: (info) => <StatusBadge status={info.getValue()} /> }),
-    column.accessor("lastSignInAt", {
-      header: "Last sign-in",
-      cell: (info) => {
-        const v = info.getValue();
-        return v ? <span className="whitespace-nowrap">{formatDateTime(v)}</span> : <span className="text-ink-soft">Never</span>;
-      },
-    }),
-    column.display({
-      id: "actions",
-      header: () => <span className="sr-only">Actions</span>,
-      cell: ({ row }) => {
-        const user = row.original;
-        if (user.id === currentUserId) return <span className="text-xs text-ink-soft">This is you</span>;
-        if (user.status === "invited") return <span className="text-xs text-ink-soft">Waiting for them to accept</span>;
-        return user.status === "active" ? (
-          <Button size="sm" variant="secondary" onClick={() => ask(user, "disabled")} aria-label={`Disable ${user.name}`}>
-            Disable
-          </Button>
-        ) : (
-          <Button size="sm" variant="secondary" onClick={() => ask(user, "active")} aria-label={`Enable ${user.name}`}>
-            Enable
-          </Button>
-        );
-      },
-    }),
+      column.accessor("name", { header: "Name", cell: (info) => <span className="font-semibold">{info.getValue()}</span> }),
+      column.accessor("email", {
+        header: "E-mail",
+        cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
+      }),
+      column.accessor("role", { header: "Role", cell: (info) => roleLabels[info.getValue()] ?? info.getValue() }),
+      column.accessor("status", { header: "Status", cell: (info) => <StatusBadge status={info.getValue()} /> }),
+      column.accessor("lastSignInAt", {
+        header: "Last sign-in",
+        cell: (info) => {
+          const v = info.getValue();
+          return v ? (
+            <span className="whitespace-nowrap">{formatDateTime(v)}</span>
+          ) : (
+            <span className="text-ink-soft">Never</span>
+          );
+        },
+      }),
+      column.display({
+        id: "actions",
+        header: () => <span className="sr-only">Actions</span>,
+        cell: ({ row }) => {
+          const user = row.original;
+          if (user.id === currentUserId) return <span className="text-xs text-ink-soft">This is you</span>;
+          if (user.status === "invited") return <span className="text-xs text-ink-soft">Waiting for them to accept</span>;
+          return user.status === "active" ? (
+            <Button size="sm" variant="secondary" onClick={() => ask(user, "disabled")} aria-label={`Disable ${user.name}`}>
+              Disable
+            </Button>
+          ) : (
+            <Button size="sm" variant="secondary" onClick={() => ask(user, "active")} aria-label={`Enable ${user.name}`}>
+              Enable
+            </Button>
+          );
+        },
+      }),
     ]);
   }, [currentUserId]);
 
@@ -110,7 +122,13 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end gap-3">
-        <SearchField label="Search people" hint="Name or e-mail address" value={filters.q} onSearch={setSearch} className="min-w-64 flex-1" />
+        <SearchField
+          label="Search people"
+          hint="Name or e-mail address"
+          value={filters.q}
+          onSearch={setSearch}
+          className="min-w-64 flex-1"
+        />
         <div className="flex flex-col gap-1">
           <label htmlFor={roleId} className="text-sm font-semibold">
             Filter by role
@@ -140,7 +158,13 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
         noun={{ one: "person", many: "people" }}
         loading={users.isPending}
         fetching={users.isFetching && !users.isPending}
-        error={users.isError ? <Alert tone="danger" title="We could not load the list of people">{errorMessage(users.error)}</Alert> : undefined}
+        error={
+          users.isError ? (
+            <Alert tone="danger" title="We could not load the list of people">
+              {errorMessage(users.error)}
+            </Alert>
+          ) : undefined
+        }
         empty={
           <EmptyState title={filtered ? "Nobody matches" : "Nobody here yet"}>
             {filtered ? "Try a different search or choose All roles." : "Invite someone with the form on this page."}
@@ -150,7 +174,11 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
 
       <ConfirmDialog
         open={pending !== null}
-        title={pending?.status === "disabled" ? `Disable ${pending.user.name}'s account?` : `Enable ${pending?.user.name ?? ""}'s account?`}
+        title={
+          pending?.status === "disabled"
+            ? `Disable ${pending.user.name}'s account?`
+            : `Enable ${pending?.user.name ?? ""}'s account?`
+        }
         confirmLabel={pending?.status === "disabled" ? "Disable account" : "Enable account"}
         tone={pending?.status === "disabled" ? "danger" : "primary"}
         busy={update.isPending}
@@ -163,8 +191,8 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
       >
         {pending?.status === "disabled" ? (
           <p>
-            {pending.user.name} ({pending.user.email}) will be signed out and will not be able to sign in until you enable the account
-            again. Nothing they have recorded is deleted.
+            {pending.user.name} ({pending.user.email}) will be signed out and will not be able to sign in until you enable the
+            account again. Nothing they have recorded is deleted.
           </p>
         ) : pending ? (
           <p>

@@ -31,10 +31,7 @@ export interface WorkOrderInput {
 }
 
 /** PATCH /api/work-orders/:id, one of three changes. */
-export type WorkOrderPatch =
-  | ScheduleBody
-  | { complete: CompletionInput }
-  | { cancel: { reason: string } };
+export type WorkOrderPatch = ScheduleBody | { complete: CompletionInput } | { cancel: { reason: string } };
 
 export interface CompletionInput {
   note: string;
@@ -51,8 +48,6 @@ export type RoomComparison = Verification["rooms"][number];
 export type VerificationOutcome = NonNullable<Verification["outcome"]>;
 
 /** POST /api/cases/:id/verification. */
-export type VerificationInput =
-  | { effective: true; note: string }
-  | { effective: false; note: string; workOrder: WorkOrderInput };
+export type VerificationInput = { effective: true; note: string } | { effective: false; note: string; workOrder: WorkOrderInput };
 
 export type { BeforeAfter, PeriodSummary } from "@/lib/domain/verification";

@@ -5,7 +5,8 @@ import type { WorkOrder, WorkOrderInput } from "./case-types";
 import { caseKeys } from "@/lib/query-keys";
 
 /** 409 unless the case is investigated or has works planned; the server's message says why. */
-export const createWorkOrder = (caseId: number, input: WorkOrderInput) => api.post<WorkOrder>(`/cases/${caseId}/work-orders`, input);
+export const createWorkOrder = (caseId: number, input: WorkOrderInput) =>
+  api.post<WorkOrder>(`/cases/${caseId}/work-orders`, input);
 
 export function useCreateWorkOrder(caseId: number) {
   const queryClient = useQueryClient();

@@ -4,7 +4,8 @@ import type { Verification } from "./case-types";
 import { caseKeys } from "@/lib/query-keys";
 
 /** Did the fix work? Readings before and after the works, room by room, and the outcome once recorded. */
-export const getVerification = (caseId: number, signal?: AbortSignal) => api.get<Verification>(`/cases/${caseId}/verification`, { signal });
+export const getVerification = (caseId: number, signal?: AbortSignal) =>
+  api.get<Verification>(`/cases/${caseId}/verification`, { signal });
 
 export const verificationQueryOptions = (caseId: number) =>
   queryOptions({

@@ -5,7 +5,8 @@ import type { Verification, VerificationInput } from "./case-types";
 import { caseKeys } from "@/lib/query-keys";
 
 /** Effective closes the case; not effective sends it back to investigated with a new work order. 409 unless monitoring. */
-export const recordVerification = (caseId: number, input: VerificationInput) => api.post<Verification>(`/cases/${caseId}/verification`, input);
+export const recordVerification = (caseId: number, input: VerificationInput) =>
+  api.post<Verification>(`/cases/${caseId}/verification`, input);
 
 export function useRecordVerification(caseId: number) {
   const queryClient = useQueryClient();

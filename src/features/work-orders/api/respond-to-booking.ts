@@ -7,7 +7,8 @@ import { caseKeys } from "@/lib/query-keys";
 export type BookingResponseInput = { response: "confirm" } | { response: "another-slot"; reason: string };
 
 /** The tenant's answer to the proposed appointment. */
-export const respondToBooking = (workOrderId: number, input: BookingResponseInput) => api.post<WorkOrder>(`/work-orders/${workOrderId}/booking-response`, input);
+export const respondToBooking = (workOrderId: number, input: BookingResponseInput) =>
+  api.post<WorkOrder>(`/work-orders/${workOrderId}/booking-response`, input);
 
 export function useRespondToBooking(caseId: number, workOrderId: number) {
   const queryClient = useQueryClient();

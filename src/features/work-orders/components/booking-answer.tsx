@@ -43,8 +43,14 @@ export function BookingAnswerView({ order }: { order: Pick<WorkOrder, "booking" 
     <span className="flex items-start gap-2">
       <AnswerIcon answer={answer} />
       <span>
-        {answer === "confirmed" ? `Confirmed${at}` : answer === "change-requested" ? `Asked for another time${at}` : "Awaiting the tenant's answer"}
-        {answer === "change-requested" && order.booking?.reason ? <span className="block text-ink-soft">Their reason: “{order.booking.reason}”</span> : null}
+        {answer === "confirmed"
+          ? `Confirmed${at}`
+          : answer === "change-requested"
+            ? `Asked for another time${at}`
+            : "Awaiting the tenant's answer"}
+        {answer === "change-requested" && order.booking?.reason ? (
+          <span className="block text-ink-soft">Their reason: “{order.booking.reason}”</span>
+        ) : null}
       </span>
     </span>
   );

@@ -43,8 +43,8 @@ function CancelForm({ order, onClose, onDone }: Omit<CancelDialogProps, "open">)
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       <p>
-        {order.slot ? "The booked visit is called off and the tenant is told. " : ""}A cancelled order cannot be reopened: add a new one if the work is
-        needed after all.
+        {order.slot ? "The booked visit is called off and the tenant is told. " : ""}A cancelled order cannot be reopened: add a
+        new one if the work is needed after all.
       </p>
       <Textarea
         ref={ref}

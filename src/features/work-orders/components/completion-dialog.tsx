@@ -60,7 +60,14 @@ function CompletionForm({ order, onClose, onDone }: Omit<CompletionDialogProps, 
         error={errors.note}
         onChange={(e) => set("note", e.target.value)}
       />
-      <Textarea label="Materials used" optional rows={2} maxLength={4000} value={fields.materials} onChange={(e) => set("materials", e.target.value)} />
+      <Textarea
+        label="Materials used"
+        optional
+        rows={2}
+        maxLength={4000}
+        value={fields.materials}
+        onChange={(e) => set("materials", e.target.value)}
+      />
       <Input
         ref={minutesRef}
         label="Time on site (minutes)"

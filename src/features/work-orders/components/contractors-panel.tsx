@@ -56,7 +56,15 @@ function ContractorList() {
                   {c.email}
                 </a>
               </td>
-              <td className="px-3 py-2">{c.phone ? <a href={`tel:${c.phone.replace(/\s+/g, "")}`} className="text-dew-700 underline">{c.phone}</a> : <span className="text-ink-soft">Not given</span>}</td>
+              <td className="px-3 py-2">
+                {c.phone ? (
+                  <a href={`tel:${c.phone.replace(/\s+/g, "")}`} className="text-dew-700 underline">
+                    {c.phone}
+                  </a>
+                ) : (
+                  <span className="text-ink-soft">Not given</span>
+                )}
+              </td>
             </tr>
           ))}
         </tbody>
@@ -100,12 +108,30 @@ function AddContractorForm() {
         Add a contractor
       </h3>
       {added ? <Alert tone="success">{added} was added. They can now be booked for work.</Alert> : null}
-      {create.isError ? <Alert tone="danger" title="The contractor was not added">{errorMessage(create.error)}</Alert> : null}
+      {create.isError ? (
+        <Alert tone="danger" title="The contractor was not added">
+          {errorMessage(create.error)}
+        </Alert>
+      ) : null}
       <div className="grid grid-cols-1 gap-3 @lg:grid-cols-2">
         <Input label="Name" autoComplete="organization" error={errors.name?.message} {...register("name")} />
-        <Input label="E-mail address" type="email" autoComplete="off" spellCheck={false} hint="Bookings are sent here." error={errors.email?.message} {...register("email")} />
+        <Input
+          label="E-mail address"
+          type="email"
+          autoComplete="off"
+          spellCheck={false}
+          hint="Bookings are sent here."
+          error={errors.email?.message}
+          {...register("email")}
+        />
         <Input label="Phone" type="tel" optional autoComplete="off" error={errors.phone?.message} {...register("phone")} />
-        <Input label="Trade" optional hint="For example ventilation, roofing or plastering." error={errors.trade?.message} {...register("trade")} />
+        <Input
+          label="Trade"
+          optional
+          hint="For example ventilation, roofing or plastering."
+          error={errors.trade?.message}
+          {...register("trade")}
+        />
       </div>
       <div>
         <Button type="submit" busy={create.isPending}>

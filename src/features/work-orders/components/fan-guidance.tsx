@@ -1,5 +1,11 @@
 import { cn } from "@/lib/cn";
-import { CONTINUOUS_EXTRACT_RATES, ELECTRICAL_CAUTION, EXTRACT_RATES_DOCUMENT, INTERMITTENT_EXTRACT_RATES, type ExtractRate } from "@/lib/extract-rates";
+import {
+  CONTINUOUS_EXTRACT_RATES,
+  ELECTRICAL_CAUTION,
+  EXTRACT_RATES_DOCUMENT,
+  INTERMITTENT_EXTRACT_RATES,
+  type ExtractRate,
+} from "@/lib/extract-rates";
 
 function RateTable({ caption, rates }: { caption: string; rates: readonly ExtractRate[] }) {
   return (
@@ -43,7 +49,10 @@ interface FanGuidanceProps {
 export function FanGuidance({ className, headingLevel = 3 }: FanGuidanceProps) {
   const Heading = headingLevel === 3 ? "h3" : "h4";
   return (
-    <aside aria-label="Extract rates for fan work" className={cn("flex flex-col gap-2 rounded-md border-l-4 border-dew-600 bg-dew-50 px-4 py-3 text-sm text-ink", className)}>
+    <aside
+      aria-label="Extract rates for fan work"
+      className={cn("flex flex-col gap-2 rounded-md border-l-4 border-dew-600 bg-dew-50 px-4 py-3 text-sm text-ink", className)}
+    >
       <Heading className="font-bold text-dew-800">Extract rates for fan work</Heading>
       <p>
         Minimum rates from <cite>{EXTRACT_RATES_DOCUMENT}</cite>. Choose a fan that reaches at least the rate for the room.

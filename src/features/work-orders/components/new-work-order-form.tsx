@@ -38,7 +38,8 @@ export function NewWorkOrderForm({ caseId, rooms, safetyWorkDueAt }: NewWorkOrde
     if (key in errors) setErrors((e) => ({ ...e, [key]: undefined }));
   };
 
-  const toggleRoom = (id: number, on: boolean) => set("roomIds", on ? [...fields.roomIds, id] : fields.roomIds.filter((r) => r !== id));
+  const toggleRoom = (id: number, on: boolean) =>
+    set("roomIds", on ? [...fields.roomIds, id] : fields.roomIds.filter((r) => r !== id));
 
   const submit = (e: FormEvent) => {
     e.preventDefault();
@@ -51,7 +52,9 @@ export function NewWorkOrderForm({ caseId, rooms, safetyWorkDueAt }: NewWorkOrde
     if (!input) return;
     create.mutate(input, {
       onSuccess: (order) => {
-        setSaved(`Work order added: ${workTypeLabel(order.type)}${order.targetDate ? `, to be done by ${longDate(order.targetDate)}` : ""}.`);
+        setSaved(
+          `Work order added: ${workTypeLabel(order.type)}${order.targetDate ? `, to be done by ${longDate(order.targetDate)}` : ""}.`,
+        );
         setFields(blankNewOrder());
       },
     });
@@ -61,7 +64,14 @@ export function NewWorkOrderForm({ caseId, rooms, safetyWorkDueAt }: NewWorkOrde
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
-      <Select ref={typeRef} label="Type of work" value={fields.type} error={errors.type} onChange={(e) => set("type", e.target.value as WorkOrderType | "")} controlClassName="sm:max-w-md">
+      <Select
+        ref={typeRef}
+        label="Type of work"
+        value={fields.type}
+        error={errors.type}
+        onChange={(e) => set("type", e.target.value as WorkOrderType | "")}
+        controlClassName="sm:max-w-md"
+      >
         <option value="">Choose the type of work</option>
         {WORK_ORDER_TYPES.map((t) => (
           <option key={t} value={t}>
@@ -90,14 +100,26 @@ export function NewWorkOrderForm({ caseId, rooms, safetyWorkDueAt }: NewWorkOrde
           <div id={roomsId} className="grid grid-cols-1 gap-2 sm:grid-cols-3">
             {rooms.map((r) => (
               <label key={r.id} className="flex cursor-pointer items-center gap-2">
-                <input type="checkbox" className="size-5 accent-dew-700" checked={fields.roomIds.includes(r.id)} onChange={(e) => toggleRoom(r.id, e.target.checked)} />
+                <input
+                  type="checkbox"
+                  className="size-5 accent-dew-700"
+                  checked={fields.roomIds.includes(r.id)}
+                  onChange={(e) => toggleRoom(r.id, e.target.checked)}
+                />
                 {r.name}
               </label>
             ))}
           </div>
         )}
       </fieldset>
-      <RadioGroup<WorkOrderPriority> legend="Priority" options={PRIORITY_CHOICES} value={fields.priority} onChange={(v) => set("priority", v)} error={errors.priority} columns={3} />
+      <RadioGroup<WorkOrderPriority>
+        legend="Priority"
+        options={PRIORITY_CHOICES}
+        value={fields.priority}
+        onChange={(v) => set("priority", v)}
+        error={errors.priority}
+        columns={3}
+      />
       <Input
         ref={dateRef}
         type="date"
@@ -123,7 +145,11 @@ export function NewWorkOrderForm({ caseId, rooms, safetyWorkDueAt }: NewWorkOrde
           {errorMessage(create.error)}
         </Alert>
       ) : null}
-      {saved ? <Alert tone="success" title={saved}>It is in the list below, ready to be scheduled.</Alert> : null}
+      {saved ? (
+        <Alert tone="success" title={saved}>
+          It is in the list below, ready to be scheduled.
+        </Alert>
+      ) : null}
       <div>
         <Button type="submit" busy={create.isPending}>
           Add work order

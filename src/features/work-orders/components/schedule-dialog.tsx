@@ -15,7 +15,17 @@ import { caseKeys, workOrderKeys } from "@/lib/query-keys";
 import { useContractors } from "@/lib/contractors";
 import { isFanWork } from "@/lib/extract-rates";
 import { useStaff } from "@/lib/staff";
-import { SLOT_WINDOWS, isIsoDate, patchWorkOrder, todayInLondon, windowHours, windowNames, workTypeNames, type ScheduleBody, type SlotWindow } from "../lib/work-orders";
+import {
+  SLOT_WINDOWS,
+  isIsoDate,
+  patchWorkOrder,
+  todayInLondon,
+  windowHours,
+  windowNames,
+  workTypeNames,
+  type ScheduleBody,
+  type SlotWindow,
+} from "../lib/work-orders";
 import { FanGuidance } from "./fan-guidance";
 
 /** What the dialog reads of an order: both the /works page's and the case's order shapes fit. */
@@ -50,7 +60,11 @@ const WHO_CHOICES: readonly RadioChoice<Who>[] = [
   { value: "contractor", label: "A contractor" },
 ];
 
-const WINDOW_CHOICES: readonly RadioChoice<SlotWindow>[] = SLOT_WINDOWS.map((w) => ({ value: w, label: windowNames[w], hint: windowHours[w] }));
+const WINDOW_CHOICES: readonly RadioChoice<SlotWindow>[] = SLOT_WINDOWS.map((w) => ({
+  value: w,
+  label: windowNames[w],
+  hint: windowHours[w],
+}));
 
 const isWindow = (w: string): w is SlotWindow => (SLOT_WINDOWS as readonly string[]).includes(w);
 
@@ -59,7 +73,8 @@ const formatDate = (date: string) => formatCalendarLong(date);
 
 const typeName = (type: string) => workTypeNames[type as keyof typeof workTypeNames] ?? type;
 
-export const orderReference = (order: Pick<SchedulableOrder, "caseReference" | "caseId">) => order.caseReference ?? `Case ${order.caseId}`;
+export const orderReference = (order: Pick<SchedulableOrder, "caseReference" | "caseId">) =>
+  order.caseReference ?? `Case ${order.caseId}`;
 
 interface Fields {
   who: Who;
@@ -119,7 +134,11 @@ export function refreshAfterBooking(queryClient: QueryClient, caseId: number): P
  */
 export function ScheduleDialog<O extends SchedulableOrder>({ order, onClose, onScheduled }: ScheduleDialogProps<O>) {
   return (
-    <Modal open={order !== null} onClose={onClose} title={order ? `${order.slot ? "Reschedule" : "Schedule"} ${orderReference(order)}` : ""}>
+    <Modal
+      open={order !== null}
+      onClose={onClose}
+      title={order ? `${order.slot ? "Reschedule" : "Schedule"} ${orderReference(order)}` : ""}
+    >
       {order ? <ScheduleForm key={order.id} order={order} onClose={onClose} onScheduled={onScheduled} /> : null}
     </Modal>
   );
@@ -156,7 +175,10 @@ function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled 
     if (found.date) return dateRef.current?.focus();
     if (found.window) return windowRef.current?.focus();
     const slot = { date: fields.date, window: fields.window as SlotWindow };
-    const body: ScheduleBody = fields.who === "operative" ? { assigneeId: Number(fields.assigneeId), slot } : { contractorId: Number(fields.contractorId), slot };
+    const body: ScheduleBody =
+      fields.who === "operative"
+        ? { assigneeId: Number(fields.assigneeId), slot }
+        : { contractorId: Number(fields.contractorId), slot };
     schedule.mutate(body, {
       // A 409 (already booked) keeps the dialog open with the server's message.
       onSuccess: (updated) => {
@@ -168,7 +190,9 @@ function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled 
 
   const current = order.slot;
   const currentWho = order.assignee?.name ?? (order.contractor ? `${order.contractor.name} (contractor)` : null);
-  const address = order.property?.addressLine1 ? [order.property.addressLine1, order.property.town, order.property.postcode].filter(Boolean).join(", ") : null;
+  const address = order.property?.addressLine1
+    ? [order.property.addressLine1, order.property.town, order.property.postcode].filter(Boolean).join(", ")
+    : null;
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
@@ -188,7 +212,10 @@ function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled 
       {current ? (
         <Alert tone="info" live="none" title="Booked now">
           <p>
-            {formatDate(current.date)}, {isWindow(current.window) ? `${windowNames[current.window].toLowerCase()}, ${windowHours[current.window]}` : current.window}
+            {formatDate(current.date)},{" "}
+            {isWindow(current.window)
+              ? `${windowNames[current.window].toLowerCase()}, ${windowHours[current.window]}`
+              : current.window}
             {currentWho ? `, ${currentWho}` : ""}.
           </p>
           {order.booking?.response === "change-requested" || order.status === "change-requested" ? (
@@ -202,7 +229,13 @@ function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled 
 
       {isFanWork(order.type) ? <FanGuidance /> : null}
 
-      <RadioGroup legend="Who will do the work" options={WHO_CHOICES} value={fields.who} onChange={(v) => set("who", v)} columns={2} />
+      <RadioGroup
+        legend="Who will do the work"
+        options={WHO_CHOICES}
+        value={fields.who}
+        onChange={(v) => set("who", v)}
+        columns={2}
+      />
       {fields.who === "operative" ? (
         staff.isPending ? (
           <LoadingState className="py-2">Loading operatives…</LoadingState>
@@ -211,7 +244,14 @@ function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled 
             {errorMessage(staff.error)}
           </Alert>
         ) : (
-          <Select ref={whoRef} label="Operative" value={fields.assigneeId} error={errors.who} onChange={(e) => set("assigneeId", e.target.value)} controlClassName="sm:max-w-md">
+          <Select
+            ref={whoRef}
+            label="Operative"
+            value={fields.assigneeId}
+            error={errors.who}
+            onChange={(e) => set("assigneeId", e.target.value)}
+            controlClassName="sm:max-w-md"
+          >
             <option value="">Choose an operative</option>
             {operatives.map((s) => (
               <option key={s.id} value={s.id}>
@@ -227,9 +267,18 @@ function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled 
           {errorMessage(contractors.error)}
         </Alert>
       ) : contractors.data.length === 0 ? (
-        <p className="text-ink-soft">No contractors on record yet. A maintenance lead or administrator can add them on the Works page.</p>
+        <p className="text-ink-soft">
+          No contractors on record yet. A maintenance lead or administrator can add them on the Works page.
+        </p>
       ) : (
-        <Select ref={whoRef} label="Contractor" value={fields.contractorId} error={errors.who} onChange={(e) => set("contractorId", e.target.value)} controlClassName="sm:max-w-md">
+        <Select
+          ref={whoRef}
+          label="Contractor"
+          value={fields.contractorId}
+          error={errors.who}
+          onChange={(e) => set("contractorId", e.target.value)}
+          controlClassName="sm:max-w-md"
+        >
           <option value="">Choose a contractor</option>
           {contractors.data.map((c) => (
             <option key={c.id} value={c.id}>
@@ -240,8 +289,26 @@ function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled 
         </Select>
       )}
 
-      <Input ref={dateRef} type="date" label="Day of the visit" min={today} value={fields.date} error={errors.date} onChange={(e) => set("date", e.target.value)} controlClassName="sm:max-w-xs" />
-      <RadioGroup<SlotWindow> legend="Time of day" hint="UK time." options={WINDOW_CHOICES} value={fields.window} onChange={(v) => set("window", v)} error={errors.window} inputRef={windowRef} columns={3} />
+      <Input
+        ref={dateRef}
+        type="date"
+        label="Day of the visit"
+        min={today}
+        value={fields.date}
+        error={errors.date}
+        onChange={(e) => set("date", e.target.value)}
+        controlClassName="sm:max-w-xs"
+      />
+      <RadioGroup<SlotWindow>
+        legend="Time of day"
+        hint="UK time."
+        options={WINDOW_CHOICES}
+        value={fields.window}
+        onChange={(v) => set("window", v)}
+        error={errors.window}
+        inputRef={windowRef}
+        columns={3}
+      />
 
       {schedule.isError ? (
         <Alert tone="danger" title={clash ? "That slot is already taken" : "The visit was not booked"}>

@@ -26,7 +26,14 @@ function AnswerIcon({ answer }: { answer: TenantAnswer | "done" }) {
       return (
         <svg {...common}>
           <circle cx="8" cy="8" r="7" fill="currentColor" />
-          <path d="m4.5 8.2 2.3 2.3 4.7-4.8" fill="none" stroke="#fff" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
+          <path
+            d="m4.5 8.2 2.3 2.3 4.7-4.8"
+            fill="none"
+            stroke="#fff"
+            strokeWidth="1.8"
+            strokeLinecap="round"
+            strokeLinejoin="round"
+          />
         </svg>
       );
     case "change-requested":
@@ -47,7 +54,15 @@ function AnswerIcon({ answer }: { answer: TenantAnswer | "done" }) {
 }
 
 /** The tenant's answer in words with an icon of its own, so it never rests on colour alone. */
-export function TenantAnswerText({ order, className, withPrefix = false }: { order: Pick<WorkOrder, "status" | "slot" | "booking">; className?: string; withPrefix?: boolean }) {
+export function TenantAnswerText({
+  order,
+  className,
+  withPrefix = false,
+}: {
+  order: Pick<WorkOrder, "status" | "slot" | "booking">;
+  className?: string;
+  withPrefix?: boolean;
+}) {
   const answer = tenantAnswerOf(order);
   if (!answer) return null;
   const text = answer === "done" ? "Work done" : answerLabels[answer];

@@ -44,10 +44,16 @@ export function TenantRepairs({ caseId, caseStatus, readingsHref }: TenantRepair
     <Panel title="Repairs" id="case-repairs">
       <div className="flex flex-col gap-4">
         {monitoring ? (
-          <Alert tone="info" title={endsAt ? `We are checking the repair worked until ${formatLongDay(endsAt)}` : "We are checking the repair worked"} live="none">
+          <Alert
+            tone="info"
+            title={
+              endsAt ? `We are checking the repair worked until ${formatLongDay(endsAt)}` : "We are checking the repair worked"
+            }
+            live="none"
+          >
             <p>
-              Please <a href={readingsHref}>add readings</a> (with “Add readings” above) while we check, and tell us if mould comes back (with
-              “It's got worse”).
+              Please <a href={readingsHref}>add readings</a> (with “Add readings” above) while we check, and tell us if mould
+              comes back (with “It's got worse”).
             </p>
           </Alert>
         ) : null}
@@ -71,7 +77,9 @@ function RepairItem({ order: o }: { order: WorkOrder }) {
       </h3>
       {o.rooms.length ? <p>Where: {o.rooms.map((r) => r.name).join(", ")}</p> : null}
       {o.status === "unscheduled" ? <p>We will offer you an appointment soon.</p> : null}
-      {o.status === "cancelled" ? <p>This repair is no longer planned. Your landlord will tell you if anything else is needed.</p> : null}
+      {o.status === "cancelled" ? (
+        <p>This repair is no longer planned. Your landlord will tell you if anything else is needed.</p>
+      ) : null}
       {o.status === "done" && o.completion ? (
         <div>
           <p className="font-semibold">Done on {formatLongDay(o.completion.at)}</p>
@@ -199,7 +207,9 @@ function VisitNotes({ order: o }: { order: WorkOrder }) {
       <ul className="mt-1 list-disc space-y-1 pl-5">
         <li>Whoever comes will show you their ID. You can ask to see it before you let them in.</li>
         <li>Please keep children and pets away from the work area while the work is going on.</li>
-        {touchesServices(o.type) ? <li>The electricity or heating may be switched off for a short time while they work.</li> : null}
+        {touchesServices(o.type) ? (
+          <li>The electricity or heating may be switched off for a short time while they work.</li>
+        ) : null}
         {o.type === "mould-wash" ? <li>The room may need a window open for a while after the treatment.</li> : null}
       </ul>
     </div>

@@ -37,7 +37,14 @@ export function VerificationChart({ roomName, comparison }: { roomName: string; 
         {},
         { label: "Before the works", scale: "%", stroke: COLOURS.before, width: 1.5, dash: [4, 3], value: fmt },
         { label: "After the works", scale: "%", stroke: COLOURS.after, width: 2.5, value: fmt },
-        { label: `Mould-growth level (${MOULD_SURFACE_RH_PCT} %)`, scale: "%", stroke: COLOURS.limit, width: 1.5, dash: [8, 6], points: { show: false } },
+        {
+          label: `Mould-growth level (${MOULD_SURFACE_RH_PCT} %)`,
+          scale: "%",
+          stroke: COLOURS.limit,
+          width: 1.5,
+          dash: [8, 6],
+          points: { show: false },
+        },
       ],
       // The time axis in London time, as every date on screen (uPlot would use the browser's zone).
       tzDate: (ts) => uPlot.tzDate(new Date(ts * 1000), LONDON),
@@ -84,16 +91,23 @@ export function VerificationChart({ roomName, comparison }: { roomName: string; 
     };
   }, [data, drawable]);
 
-  if (data.t.length === 0) return <p className="text-ink-soft">No readings with a surface temperature in {roomName} yet, so there is nothing to chart.</p>;
+  if (data.t.length === 0)
+    return (
+      <p className="text-ink-soft">No readings with a surface temperature in {roomName} yet, so there is nothing to chart.</p>
+    );
   return (
     <figure className="flex flex-col gap-2">
-      <figcaption className="text-sm text-ink-soft">{chartSummary(roomName, comparison)} The table above has the same figures.</figcaption>
+      <figcaption className="text-sm text-ink-soft">
+        {chartSummary(roomName, comparison)} The table above has the same figures.
+      </figcaption>
       {drawable ? (
         <div aria-hidden="true" className="rounded-md border border-line bg-surface p-2">
           <div ref={ref} className="w-full overflow-hidden" />
         </div>
       ) : (
-        <p className="rounded-md border border-dashed border-line-strong px-3 py-4 text-ink-soft">This browser can't draw the chart; the table above has the same figures.</p>
+        <p className="rounded-md border border-dashed border-line-strong px-3 py-4 text-ink-soft">
+          This browser can't draw the chart; the table above has the same figures.
+        </p>
       )}
     </figure>
   );

@@ -8,7 +8,13 @@ import { LoadingState } from "@/components/ui/spinner";
 import { errorMessage } from "@/lib/api-client";
 import { useVerification } from "../api/get-verification";
 import { useRecordVerification } from "../api/record-verification";
-import { WORK_ORDER_TYPES, type RoomComparison, type Verification, type VerificationInput, type WorkOrderType } from "../api/case-types";
+import {
+  WORK_ORDER_TYPES,
+  type RoomComparison,
+  type Verification,
+  type VerificationInput,
+  type WorkOrderType,
+} from "../api/case-types";
 import { WORK_TYPE_WORDS, workTypeLabel } from "../lib/words";
 import { VERDICT_WORDS, comparisonRows, verdictOf } from "../lib/verification-view";
 import { formatDateTimeZoned, formatLongDay } from "@/lib/dates";
@@ -25,7 +31,8 @@ interface VerificationSectionProps {
 /** Did the fix work? The readings before and after the works, room by room, and the decision. */
 export function VerificationSection({ caseId, caseStatus, canDecide }: VerificationSectionProps) {
   const verification = useVerification(caseId);
-  if (verification.isPending) return <LoadingState className="py-4">Comparing the readings before and after the works…</LoadingState>;
+  if (verification.isPending)
+    return <LoadingState className="py-4">Comparing the readings before and after the works…</LoadingState>;
   if (verification.isError)
     return (
       <Alert tone="warning" title="We couldn't compare the readings just now">
@@ -34,21 +41,27 @@ export function VerificationSection({ caseId, caseStatus, canDecide }: Verificat
     );
   const v = verification.data;
   if (v.state === "no-works" || !v.worksDoneAt)
-    return <EmptyState title="No works done yet">Once the last work order is done, the readings before and after the works are compared here.</EmptyState>;
+    return (
+      <EmptyState title="No works done yet">
+        Once the last work order is done, the readings before and after the works are compared here.
+      </EmptyState>
+    );
   return (
     <div className="flex flex-col gap-5">
       <MonitoringLine v={v} />
       {v.outcome ? <OutcomeView outcome={v.outcome} /> : null}
       {v.rooms.length === 0 ? (
-        <p className="text-ink-soft">No readings with a room on record yet. Ask the tenant to add readings, or put a logger in.</p>
+        <p className="text-ink-soft">
+          No readings with a room on record yet. Ask the tenant to add readings, or put a logger in.
+        </p>
       ) : (
         v.rooms.map((r) => <RoomComparisonView key={r.roomId} room={r} />)
       )}
       <p className="text-sm text-ink-soft">
-        How to read this: surface humidity is worked out from each reading by the same engine as the rest of the case; mould can grow on a
-        surface at 80 % or more (ISO 13788). The mould index is the VTT model&apos;s, started again from 0 after the works. “Improved” means the
-        mean surface humidity is lower after the works and the hours at or above 80 % per day are not higher, with at least a day of readings
-        after (our rule). It is evidence for the person who decides, not the decision.
+        How to read this: surface humidity is worked out from each reading by the same engine as the rest of the case; mould can
+        grow on a surface at 80 % or more (ISO 13788). The mould index is the VTT model&apos;s, started again from 0 after the
+        works. “Improved” means the mean surface humidity is lower after the works and the hours at or above 80 % per day are not
+        higher, with at least a day of readings after (our rule). It is evidence for the person who decides, not the decision.
       </p>
       {canDecide && caseStatus === "monitoring" && !v.outcome ? <OutcomeForm caseId={caseId} /> : null}
     </div>
@@ -64,8 +77,8 @@ function MonitoringLine({ v }: { v: Verification }) {
         <>
           <dt className="font-semibold">Monitoring</dt>
           <dd>
-            {v.state === "monitoring" ? "Monitoring until" : "Monitoring ended on"} {formatLongDay(v.monitoringEndsAt)} ({v.monitoringDays}{" "}
-            {v.monitoringDays === 1 ? "day" : "days"})
+            {v.state === "monitoring" ? "Monitoring until" : "Monitoring ended on"} {formatLongDay(v.monitoringEndsAt)} (
+            {v.monitoringDays} {v.monitoringDays === 1 ? "day" : "days"})
           </dd>
         </>
       ) : null}
@@ -75,7 +88,11 @@ function MonitoringLine({ v }: { v: Verification }) {
 
 function OutcomeView({ outcome }: { outcome: NonNullable<Verification["outcome"]> }) {
   return (
-    <Alert tone={outcome.effective ? "success" : "warning"} title={outcome.effective ? "Recorded: the fix was effective" : "Recorded: the fix was not effective"} live="none">
+    <Alert
+      tone={outcome.effective ? "success" : "warning"}
+      title={outcome.effective ? "Recorded: the fix was effective" : "Recorded: the fix was not effective"}
+      live="none"
+    >
       <p className="whitespace-pre-line">{outcome.note}</p>
       <p className="mt-1 text-sm text-ink-soft">
         By {outcome.by}, {formatDateTimeZoned(outcome.at)}
@@ -184,10 +201,18 @@ function OutcomeForm({ caseId }: { caseId: number }) {
         Record the outcome
       </h4>
       <div className="flex flex-wrap gap-2">
-        <Button variant={choice === "effective" ? "primary" : "secondary"} aria-pressed={choice === "effective"} onClick={() => pick("effective")}>
+        <Button
+          variant={choice === "effective" ? "primary" : "secondary"}
+          aria-pressed={choice === "effective"}
+          onClick={() => pick("effective")}
+        >
           Fix effective
         </Button>
-        <Button variant={choice === "not-effective" ? "primary" : "secondary"} aria-pressed={choice === "not-effective"} onClick={() => pick("not-effective")}>
+        <Button
+          variant={choice === "not-effective" ? "primary" : "secondary"}
+          aria-pressed={choice === "not-effective"}
+          onClick={() => pick("not-effective")}
+        >
           Not effective
         </Button>
       </div>

@@ -25,7 +25,8 @@ interface BoardRow {
 export function boardRows(staff: readonly StaffMember[] | undefined, orders: readonly WorkOrder[]): BoardRow[] {
   const people = new Map<number, string>();
   for (const person of staff ?? []) if (person.role === "maintenance") people.set(person.id, person.name);
-  for (const order of orders) if (order.assignee && !people.has(order.assignee.id)) people.set(order.assignee.id, order.assignee.name);
+  for (const order of orders)
+    if (order.assignee && !people.has(order.assignee.id)) people.set(order.assignee.id, order.assignee.name);
   const rows: BoardRow[] = [...people.entries()]
     .sort((a, b) => a[1].localeCompare(b[1], "en-GB"))
     .map(([id, name]) => ({ key: `operative-${id}`, name }));
@@ -33,7 +34,8 @@ export function boardRows(staff: readonly StaffMember[] | undefined, orders: rea
   return rows;
 }
 
-const rowKeyOf = (order: WorkOrder) => (order.assignee ? `operative-${order.assignee.id}` : order.contractor ? CONTRACTORS_ROW : null);
+const rowKeyOf = (order: WorkOrder) =>
+  order.assignee ? `operative-${order.assignee.id}` : order.contractor ? CONTRACTORS_ROW : null;
 
 function Booking({ order, showContractor }: { order: WorkOrder; showContractor: boolean }) {
   return (
@@ -49,10 +51,24 @@ function Booking({ order, showContractor }: { order: WorkOrder; showContractor: 
   );
 }
 
-function Half({ window, orders, showContractor, spanning = false }: { window: SlotWindow; orders: WorkOrder[]; showContractor: boolean; spanning?: boolean }) {
+function Half({
+  window,
+  orders,
+  showContractor,
+  spanning = false,
+}: {
+  window: SlotWindow;
+  orders: WorkOrder[];
+  showContractor: boolean;
+  spanning?: boolean;
+}) {
   const labelId = useId();
   return (
-    <div role="group" aria-labelledby={labelId} className={cn("flex flex-col gap-1 rounded-md px-1.5 py-1", spanning ? "min-h-40 bg-dew-100" : "min-h-20 bg-dew-50")}>
+    <div
+      role="group"
+      aria-labelledby={labelId}
+      className={cn("flex flex-col gap-1 rounded-md px-1.5 py-1", spanning ? "min-h-40 bg-dew-100" : "min-h-20 bg-dew-50")}
+    >
       <p id={labelId} className="text-xs font-bold tracking-wide text-ink uppercase">
         {windowShortLabels[window]}
       </p>
@@ -137,8 +153,15 @@ export function WeekBoard() {
             Only the first {items.length} of {orders.data.total} bookings this week are shown.
           </Alert>
         ) : null}
-        {staff.isError ? <Alert tone="warning">We could not load the list of operatives; only those booked this week are shown.</Alert> : null}
-        <div role="region" aria-label={`${caption} (scrolls sideways)`} tabIndex={0} className="overflow-x-auto rounded-md border border-line bg-surface">
+        {staff.isError ? (
+          <Alert tone="warning">We could not load the list of operatives; only those booked this week are shown.</Alert>
+        ) : null}
+        <div
+          role="region"
+          aria-label={`${caption} (scrolls sideways)`}
+          tabIndex={0}
+          className="overflow-x-auto rounded-md border border-line bg-surface"
+        >
           <table className="w-full border-collapse text-left text-sm" aria-busy={orders.isFetching || undefined}>
             <caption className="px-3 pt-3 pb-2 text-left font-bold">{caption}</caption>
             <thead className="bg-dew-50">
@@ -161,7 +184,11 @@ export function WeekBoard() {
                     {row.name}
                   </th>
                   {days.map((day) => (
-                    <DayCell key={day} orders={byCell.get(`${row.key}|${day}`) ?? []} showContractor={row.key === CONTRACTORS_ROW} />
+                    <DayCell
+                      key={day}
+                      orders={byCell.get(`${row.key}|${day}`) ?? []}
+                      showContractor={row.key === CONTRACTORS_ROW}
+                    />
                   ))}
                 </tr>
               ))}

@@ -20,7 +20,6 @@ export const SORT_LABELS: Record<OrderSort, string> = {
   created: "Ordered",
 };
 
-
 const Missing = ({ children }: { children: ReactNode }) => <span className="text-ink-soft">{children}</span>;
 
 const OPEN = ["unscheduled", "scheduled", "change-requested", "confirmed"];
@@ -77,8 +76,19 @@ function DetailsToggle({ order }: { order: WorkOrder }) {
       onClick={() => toggle(order.id)}
       className="inline-flex size-8 items-center justify-center rounded-md border border-line-strong bg-surface hover:bg-dew-50"
     >
-      <svg viewBox="0 0 16 16" className={cn("size-4 transition-transform motion-reduce:transition-none", open && "rotate-90")} aria-hidden="true">
-        <path d="m6 3.5 4.5 4.5L6 12.5" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />
+      <svg
+        viewBox="0 0 16 16"
+        className={cn("size-4 transition-transform motion-reduce:transition-none", open && "rotate-90")}
+        aria-hidden="true"
+      >
+        <path
+          d="m6 3.5 4.5 4.5L6 12.5"
+          fill="none"
+          stroke="currentColor"
+          strokeWidth="1.8"
+          strokeLinecap="round"
+          strokeLinejoin="round"
+        />
       </svg>
       <span className="sr-only">Details of {orderReference(order)}</span>
     </button>
@@ -130,7 +140,9 @@ export function workOrderColumns({ today, onSchedule }: ColumnOptions) {
     column.accessor((r) => String(r.priority), {
       ...sortable("priority"),
       cell: (info) => (
-        <span className={cn("whitespace-nowrap", info.getValue() !== "routine" && "font-bold")}>{labelFor(priorityLabels, info.getValue())}</span>
+        <span className={cn("whitespace-nowrap", info.getValue() !== "routine" && "font-bold")}>
+          {labelFor(priorityLabels, info.getValue())}
+        </span>
       ),
     }),
     column.accessor((r) => r.targetDate, {
@@ -186,7 +198,14 @@ export function workOrderColumns({ today, onSchedule }: ColumnOptions) {
       header: () => <span className="sr-only">Actions</span>,
       cell: ({ row }) =>
         canSchedule(row.original) ? (
-          <Button size="sm" variant={row.original.status === "unscheduled" || row.original.status === "change-requested" ? "primary" : "secondary"} onClick={() => onSchedule(row.original)} className="whitespace-nowrap">
+          <Button
+            size="sm"
+            variant={
+              row.original.status === "unscheduled" || row.original.status === "change-requested" ? "primary" : "secondary"
+            }
+            onClick={() => onSchedule(row.original)}
+            className="whitespace-nowrap"
+          >
             {isReschedule(row.original) ? "Reschedule…" : "Schedule…"}
             <span className="sr-only"> {orderReference(row.original)}</span>
           </Button>

@@ -29,7 +29,9 @@ const RANK: Record<string, number> = { "change-requested": 0, unscheduled: 1, sc
 
 /** Open orders first (those that need a new appointment at the top), then done, then cancelled. */
 const ordered = (list: readonly WorkOrder[]) =>
-  [...list].sort((a, b) => (RANK[a.status] ?? 9) - (RANK[b.status] ?? 9) || Date.parse(b.createdAt) - Date.parse(a.createdAt) || b.id - a.id);
+  [...list].sort(
+    (a, b) => (RANK[a.status] ?? 9) - (RANK[b.status] ?? 9) || Date.parse(b.createdAt) - Date.parse(a.createdAt) || b.id - a.id,
+  );
 
 /** The photos of one work order, oldest first. */
 const photosOfOrder = (photos: readonly WorkPhoto[], workOrderId: number) => photos.filter((p) => p.workOrderId === workOrderId);
@@ -44,11 +46,19 @@ export function WorkOrderList({ caseId, canManage, photos, Gallery, PhotoUpload 
         {errorMessage(orders.error)}
       </Alert>
     );
-  if (orders.data.length === 0) return <EmptyState title="No work orders yet">Once the case is investigated, add the work it needs.</EmptyState>;
+  if (orders.data.length === 0)
+    return <EmptyState title="No work orders yet">Once the case is investigated, add the work it needs.</EmptyState>;
   return (
     <ol className="flex flex-col gap-4">
       {ordered(orders.data).map((o) => (
-        <WorkOrderItem key={o.id} order={o} canManage={canManage} photos={photos ? photosOfOrder(photos, o.id) : null} Gallery={Gallery} PhotoUpload={PhotoUpload} />
+        <WorkOrderItem
+          key={o.id}
+          order={o}
+          canManage={canManage}
+          photos={photos ? photosOfOrder(photos, o.id) : null}
+          Gallery={Gallery}
+          PhotoUpload={PhotoUpload}
+        />
       ))}
     </ol>
   );
@@ -57,7 +67,9 @@ export function WorkOrderList({ caseId, canManage, photos, Gallery, PhotoUpload 
 /** What staff read once a visit is booked: who, when, and that the tenant is asked. */
 const bookedMessage = (o: WorkOrder) => {
   const who = o.assignee?.name ?? o.contractor?.name ?? "the visit";
-  return o.slot ? `Booked ${who} for ${slotForStaff(o.slot)}. The tenant has been asked to confirm.` : "The visit is booked. The tenant has been asked to confirm.";
+  return o.slot
+    ? `Booked ${who} for ${slotForStaff(o.slot)}. The tenant has been asked to confirm.`
+    : "The visit is booked. The tenant has been asked to confirm.";
 };
 
 type Open = "schedule" | "complete" | "cancel" | null;
@@ -146,7 +158,11 @@ function WorkOrderItem({ order: o, canManage, photos, Gallery, PhotoUpload }: It
       {o.status === "done" ? (
         <section aria-label="Photos after the works" className="flex flex-col gap-2">
           <p className="font-semibold">Photos after the works</p>
-          {photos === null ? <LoadingState className="py-2">Loading photos…</LoadingState> : <Gallery photos={photos} emptyText="No after-photos yet" />}
+          {photos === null ? (
+            <LoadingState className="py-2">Loading photos…</LoadingState>
+          ) : (
+            <Gallery photos={photos} emptyText="No after-photos yet" />
+          )}
           {canManage && PhotoUpload ? <PhotoUpload caseId={o.caseId} workOrderId={o.id} /> : null}
         </section>
       ) : null}
@@ -185,14 +201,22 @@ function WorkOrderItem({ order: o, canManage, photos, Gallery, PhotoUpload }: It
           </Button>
         </div>
       ) : null}
-      <ScheduleDialog order={open === "schedule" ? o : null} onClose={() => setOpen(null)} onScheduled={(booked) => finish(bookedMessage(booked))} />
+      <ScheduleDialog
+        order={open === "schedule" ? o : null}
+        onClose={() => setOpen(null)}
+        onScheduled={(booked) => finish(bookedMessage(booked))}
+      />
       <CompletionDialog order={o} open={open === "complete"} onClose={() => setOpen(null)} onDone={finish} />
       <CancelDialog order={o} open={open === "cancel"} onClose={() => setOpen(null)} onDone={finish} />
     </li>
   );
 }
 
-const BOOKING_STATE: Record<string, string> = { replaced: "Replaced by a later booking", cancelled: "Cancelled", active: "Current" };
+const BOOKING_STATE: Record<string, string> = {
+  replaced: "Replaced by a later booking",
+  cancelled: "Cancelled",
+  active: "Current",
+};
 
 function BookingHistory({ items }: { items: BookingHistoryItem[] }) {
   return (
@@ -204,8 +228,11 @@ function BookingHistory({ items }: { items: BookingHistoryItem[] }) {
           .map((b) => (
             <li key={b.id}>
               {slotForStaff(b)}
-              {b.assignee ? `, ${b.assignee.name}` : b.contractor ? `, ${b.contractor.name} (contractor)` : ""} · {BOOKING_STATE[b.state] ?? b.state}
-              {b.response === "change-requested" ? <span className="text-ink-soft"> · tenant asked for another time{b.reason ? `: “${b.reason}”` : ""}</span> : null}
+              {b.assignee ? `, ${b.assignee.name}` : b.contractor ? `, ${b.contractor.name} (contractor)` : ""} ·{" "}
+              {BOOKING_STATE[b.state] ?? b.state}
+              {b.response === "change-requested" ? (
+                <span className="text-ink-soft"> · tenant asked for another time{b.reason ? `: “${b.reason}”` : ""}</span>
+              ) : null}
               {b.response === "confirmed" ? <span className="text-ink-soft"> · tenant had confirmed</span> : null}
               <span className="text-ink-soft"> · booked {formatDateTimeZoned(b.createdAt)}</span>
             </li>

@@ -9,7 +9,17 @@ import { statusLabels, typeLabels } from "../lib/labels";
 
 const selectClasses = cn(controlClasses, "min-h-9 w-auto py-1.5 pr-8 text-sm");
 
-function SelectFilter({ label, value, onChange, children }: { label: string; value: string; onChange: (value: string) => void; children: ReactNode }) {
+function SelectFilter({
+  label,
+  value,
+  onChange,
+  children,
+}: {
+  label: string;
+  value: string;
+  onChange: (value: string) => void;
+  children: ReactNode;
+}) {
   const id = useId();
   return (
     <div className="flex flex-col gap-1">

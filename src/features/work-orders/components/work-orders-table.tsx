@@ -98,14 +98,22 @@ export function WorkOrdersTable() {
     sorting,
     onSortingChange: (next) => {
       const first = next[0];
-      if (first && (ORDER_SORTS as readonly string[]).includes(first.id)) view.setSort(first.id as OrderSort, first.desc ? "desc" : "asc");
+      if (first && (ORDER_SORTS as readonly string[]).includes(first.id))
+        view.setSort(first.id as OrderSort, first.desc ? "desc" : "asc");
     },
   });
 
   let empty: ReactNode;
   if (view.filtered) {
     empty = (
-      <EmptyState title="No orders match these filters" action={<Button variant="secondary" onClick={view.clearFilters}>Clear filters</Button>}>
+      <EmptyState
+        title="No orders match these filters"
+        action={
+          <Button variant="secondary" onClick={view.clearFilters}>
+            Clear filters
+          </Button>
+        }
+      >
         Try another status, type or person.
       </EmptyState>
     );
@@ -133,7 +141,15 @@ export function WorkOrdersTable() {
           noun={{ one: "order", many: "orders" }}
           loading={orders.isPending}
           fetching={orders.isFetching && !orders.isPending}
-          error={orders.isError ? <TableLoadError title="We could not load the work orders" message={errorMessage(orders.error)} onRetry={() => void orders.refetch()} /> : undefined}
+          error={
+            orders.isError ? (
+              <TableLoadError
+                title="We could not load the work orders"
+                message={errorMessage(orders.error)}
+                onRetry={() => void orders.refetch()}
+              />
+            ) : undefined
+          }
           empty={empty}
           renderDetail={(order) => (expanded.has(order.id) ? <OrderDetails order={order} /> : null)}
         />

@@ -38,4 +38,5 @@ export const answerLabels: Record<TenantAnswer, string> = {
 export const labelFor = (labels: Record<string, string>, value: string | null | undefined, missing = "—"): string =>
   value ? (labels[value] ?? value) : missing;
 
-export const orderReference = (order: { caseReference: string | null; caseId: number }) => order.caseReference ?? `Case ${order.caseId}`;
+export const orderReference = (order: { caseReference: string | null; caseId: number }) =>
+  order.caseReference ?? `Case ${order.caseId}`;

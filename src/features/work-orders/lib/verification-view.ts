@@ -19,7 +19,8 @@ export function period(p: PeriodSummary): string {
 
 export type Verdict = "improved" | "not-improved" | "too-few";
 
-export const verdictOf = (c: BeforeAfter): Verdict => (c.improved === null ? "too-few" : c.improved ? "improved" : "not-improved");
+export const verdictOf = (c: BeforeAfter): Verdict =>
+  c.improved === null ? "too-few" : c.improved ? "improved" : "not-improved";
 
 export const VERDICT_WORDS: Record<Verdict, string> = {
   improved: "Improved",
@@ -33,7 +34,11 @@ export function comparisonRows(c: BeforeAfter): [string, string, string][] {
   return [
     ["Mean surface humidity", pct(b.meanSurfaceRhPct), pct(a.meanSurfaceRhPct)],
     ["Highest surface humidity", pct(b.maxSurfaceRhPct), pct(a.maxSurfaceRhPct)],
-    ["Hours at or above 80 % surface humidity", hours(b.count ? b.hoursSurfaceRhAtLeast80 : null), hours(a.count ? a.hoursSurfaceRhAtLeast80 : null)],
+    [
+      "Hours at or above 80 % surface humidity",
+      hours(b.count ? b.hoursSurfaceRhAtLeast80 : null),
+      hours(a.count ? a.hoursSurfaceRhAtLeast80 : null),
+    ],
     ["… per day of readings", hours(b.hoursAtLeast80PerDay), hours(a.hoursAtLeast80PerDay)],
     ["Mould index at the end", index(b.mouldIndexFinal), index(a.mouldIndexFinal)],
     ["Number of readings", b.count.toLocaleString("en-GB"), a.count.toLocaleString("en-GB")],

@@ -19,11 +19,23 @@ interface TypeWords {
 export const WORK_TYPE_WORDS: Record<WorkOrderType, TypeWords> = {
   "extractor-fan": { label: "Extractor fan: fit or repair", tenant: "fit or repair an extractor fan" },
   "fan-upgrade": { label: "Extractor fan: replace with a stronger one", tenant: "replace the extractor fan with a stronger one" },
-  "trickle-vents": { label: "Trickle vents in the windows", tenant: "fit or repair the small vents in the window frames (trickle vents)" },
-  "door-undercut": { label: "Door undercut (a gap under the door for air)", tenant: "trim the bottom of a door so air can move between rooms" },
-  "piv-unit": { label: "Positive input ventilation unit", tenant: "fit a unit that gently blows fresh, filtered air into the home" },
+  "trickle-vents": {
+    label: "Trickle vents in the windows",
+    tenant: "fit or repair the small vents in the window frames (trickle vents)",
+  },
+  "door-undercut": {
+    label: "Door undercut (a gap under the door for air)",
+    tenant: "trim the bottom of a door so air can move between rooms",
+  },
+  "piv-unit": {
+    label: "Positive input ventilation unit",
+    tenant: "fit a unit that gently blows fresh, filtered air into the home",
+  },
   "mould-wash": { label: "Mould wash and treatment", tenant: "clean and treat the mould" },
-  "mould-resistant-decoration": { label: "Redecorate with mould-resistant paint", tenant: "redecorate with mould-resistant paint" },
+  "mould-resistant-decoration": {
+    label: "Redecorate with mould-resistant paint",
+    tenant: "redecorate with mould-resistant paint",
+  },
   insulation: { label: "Insulation", tenant: "add or repair insulation" },
   "draught-proofing": { label: "Draught-proofing", tenant: "seal draughts around windows and doors" },
   heating: { label: "Heating repair or improvement", tenant: "repair or improve the heating" },
@@ -36,7 +48,8 @@ export const WORK_TYPE_WORDS: Record<WorkOrderType, TypeWords> = {
 const isType = (t: string): t is WorkOrderType => Object.hasOwn(WORK_TYPE_WORDS, t);
 
 export const workTypeLabel = (type: string): string => (isType(type) ? WORK_TYPE_WORDS[type].label : type);
-export const workTypeForTenant = (type: string): string => (isType(type) ? WORK_TYPE_WORDS[type].tenant : "carry out repair work");
+export const workTypeForTenant = (type: string): string =>
+  isType(type) ? WORK_TYPE_WORDS[type].tenant : "carry out repair work";
 
 /** Work that involves the home's electrics or gas: the tenant is told the power may go off for a while. */
 const SERVICE_TYPES: readonly string[] = ["extractor-fan", "fan-upgrade", "piv-unit", "heating"];
@@ -70,7 +83,8 @@ const TENANT_WINDOW: Record<string, string> = {
 export const longDate = (date: string) => formatCalendarLong(date);
 
 /** "Tuesday 8 December 2026, morning 8am–12". */
-export const slotForStaff = (slot: { date: string; window: string }) => `${longDate(slot.date)}, ${STAFF_WINDOW[slot.window] ?? slot.window}`;
+export const slotForStaff = (slot: { date: string; window: string }) =>
+  `${longDate(slot.date)}, ${STAFF_WINDOW[slot.window] ?? slot.window}`;
 
 /** "Tuesday 8 December, in the morning (8am to 12 noon)". The year is said only when it is not this year. */
 export function slotForTenant(slot: { date: string; window: string }, now: Date = new Date()): string {

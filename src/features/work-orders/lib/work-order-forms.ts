@@ -14,7 +14,13 @@ export interface NewOrderFields {
 
 export type NewOrderErrors = Partial<Record<"type" | "description" | "priority" | "targetDate", string>>;
 
-export const blankNewOrder = (): NewOrderFields => ({ type: "", description: "", roomIds: [], priority: "routine", targetDate: "" });
+export const blankNewOrder = (): NewOrderFields => ({
+  type: "",
+  description: "",
+  roomIds: [],
+  priority: "routine",
+  targetDate: "",
+});
 
 export function checkNewOrder(f: NewOrderFields): { input: WorkOrderInput | null; errors: NewOrderErrors } {
   const errors: NewOrderErrors = {};
@@ -64,7 +70,12 @@ export function checkCompletion(f: CompletionFields): { input: CompletionInput |
   const materials = f.materials.trim();
   const followOn = f.followOn.trim();
   return {
-    input: { note, ...(materials ? { materials } : {}), ...(minutes !== undefined ? { minutesOnSite: minutes } : {}), ...(followOn ? { followOn } : {}) },
+    input: {
+      note,
+      ...(materials ? { materials } : {}),
+      ...(minutes !== undefined ? { minutesOnSite: minutes } : {}),
+      ...(followOn ? { followOn } : {}),
+    },
     errors,
   };
 }

@@ -33,10 +33,12 @@ export interface OrderListParams {
 /** The URL keys of the table's filters, for "Clear filters". */
 export const ORDER_FILTER_KEYS = ["status", "type", "assignee"] as const;
 
-const oneOf = <T extends string>(values: readonly T[], value: string): value is T => (values as readonly string[]).includes(value);
+const oneOf = <T extends string>(values: readonly T[], value: string): value is T =>
+  (values as readonly string[]).includes(value);
 
 /** The chosen statuses in canonical order. */
-export const canonicalStatuses = (chosen: readonly string[]): WorkOrderStatus[] => WORK_ORDER_STATUSES.filter((s) => chosen.includes(s));
+export const canonicalStatuses = (chosen: readonly string[]): WorkOrderStatus[] =>
+  WORK_ORDER_STATUSES.filter((s) => chosen.includes(s));
 
 const sameSet = (a: readonly string[], b: readonly string[]) => a.length === b.length && a.every((v) => b.includes(v));
 export const isDefaultStatus = (status: readonly string[]) => sameSet(status, OPEN_ORDER_STATUSES);
@@ -53,7 +55,12 @@ function readAssignee(params: URLSearchParams): string {
 }
 
 export function orderViewFrom(params: URLSearchParams): OrderListParams {
-  const statusList = canonicalStatuses(readString(params, "status").toLowerCase().split(",").map((s) => s.trim()));
+  const statusList = canonicalStatuses(
+    readString(params, "status")
+      .toLowerCase()
+      .split(",")
+      .map((s) => s.trim()),
+  );
   const typeRaw = readString(params, "type");
   const sortRaw = readString(params, "sort");
   const orderRaw = readString(params, "order").toLowerCase();
@@ -99,5 +106,13 @@ export const weekRange = (monday: string): WeekParams => ({ from: monday, to: ad
 
 /** The board's request: every booked order in the week, in slot order, in one page. */
 export function weekQuery(week: WeekParams): Record<string, string | number> {
-  return { status: BOOKED_STATUSES.join(","), from: week.from, to: week.to, sort: "slot", order: "asc", page: 1, pageSize: ORDERS_MAX_PAGE_SIZE };
+  return {
+    status: BOOKED_STATUSES.join(","),
+    from: week.from,
+    to: week.to,
+    sort: "slot",
+    order: "asc",
+    page: 1,
+    pageSize: ORDERS_MAX_PAGE_SIZE,
+  };
 }

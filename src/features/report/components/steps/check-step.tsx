@@ -34,7 +34,12 @@ export function CheckStep({ form, household, photos, readings, logger, rooms, go
         }}
         extra={
           <>
-            <Row term="Photos" value={photos.length ? count(photos.length, "photo", "photos") : "None"} step={PHOTOS_STEP} onChange={goTo} />
+            <Row
+              term="Photos"
+              value={photos.length ? count(photos.length, "photo", "photos") : "None"}
+              step={PHOTOS_STEP}
+              onChange={goTo}
+            />
             <Row
               term="Readings"
               value={[

@@ -7,7 +7,13 @@ import type { ReportFormValues } from "../../lib/draft";
 import { ChoiceField } from "../choice-field";
 
 /** Step 1: what the tenant can see, where, and in which rooms. */
-export function DescribeStep({ form, rooms }: { form: UseFormReturn<ReportFormValues, unknown, CaseReport>; rooms: readonly RoomOption[] }) {
+export function DescribeStep({
+  form,
+  rooms,
+}: {
+  form: UseFormReturn<ReportFormValues, unknown, CaseReport>;
+  rooms: readonly RoomOption[];
+}) {
   const { control, register, formState } = form;
   return (
     <div className="flex flex-col gap-6">
@@ -18,7 +24,15 @@ export function DescribeStep({ form, rooms }: { form: UseFormReturn<ReportFormVa
         error={formState.errors.description?.message}
         {...register("description")}
       />
-      <ChoiceField control={control} name="locations" kind="checkbox" legend="Where is it?" hint="Choose all that apply." columns options={choices(locationLabels, LOCATIONS)} />
+      <ChoiceField
+        control={control}
+        name="locations"
+        kind="checkbox"
+        legend="Where is it?"
+        hint="Choose all that apply."
+        columns
+        options={choices(locationLabels, LOCATIONS)}
+      />
       <ChoiceField
         control={control}
         name="observations"

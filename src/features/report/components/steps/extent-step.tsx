@@ -15,7 +15,11 @@ export function ExtentStep({ control }: { control: Control<ReportFormValues, unk
         kind="radio"
         legend="How long has this been happening?"
         options={choices(durationLabels, DURATIONS)}
-        clearLabel={<>Clear my answer<span className="sr-only">: how long</span></>}
+        clearLabel={
+          <>
+            Clear my answer<span className="sr-only">: how long</span>
+          </>
+        }
       />
       <ChoiceField
         control={control}
@@ -24,7 +28,11 @@ export function ExtentStep({ control }: { control: Control<ReportFormValues, unk
         legend="How big is the biggest patch?"
         hint="If there is no patch, only water on the windows, you can skip this."
         options={choices(areaLabels, AREAS)}
-        clearLabel={<>Clear my answer<span className="sr-only">: how big</span></>}
+        clearLabel={
+          <>
+            Clear my answer<span className="sr-only">: how big</span>
+          </>
+        }
       />
     </div>
   );

@@ -1,10 +1,19 @@
 import { EQUIPMENT_ANSWERS, VULNERABILITIES } from "@/lib/schemas/case-report";
 import type { ReportDraftState } from "../../hooks/use-report-draft";
-import { EQUIPMENT_QUESTIONS, choices, equipmentQuestions, householdNoneLabel, householdPreferNotLabel, vulnerabilityLabels } from "../../labels";
+import {
+  EQUIPMENT_QUESTIONS,
+  choices,
+  equipmentQuestions,
+  householdNoneLabel,
+  householdPreferNotLabel,
+  vulnerabilityLabels,
+} from "../../labels";
 import { ExclusiveCheckbox } from "../choice-fields";
 import { ChoiceField } from "../choice-field";
 
-type HomeStepProps = Pick<ReportDraftState, "form" | "household" | "setHouseholdList" | "setHouseholdExclusive"> & { headingId: string };
+type HomeStepProps = Pick<ReportDraftState, "form" | "household" | "setHouseholdList" | "setHouseholdExclusive"> & {
+  headingId: string;
+};
 
 /** Step 3: what is fitted in the home and whether it works, and who lives there (all optional). */
 export function HomeStep({ form, household, setHouseholdList, setHouseholdExclusive, headingId }: HomeStepProps) {
@@ -17,8 +26,8 @@ export function HomeStep({ form, household, setHouseholdList, setHouseholdExclus
           About your home
         </h3>
         <p className="-mt-3">
-          These questions are about what is fitted in your home and whether it works. The answers help your landlord find the cause. You
-          can skip any of them.
+          These questions are about what is fitted in your home and whether it works. The answers help your landlord find the
+          cause. You can skip any of them.
         </p>
         {EQUIPMENT_QUESTIONS.map((q) => (
           <ChoiceField
@@ -42,8 +51,8 @@ export function HomeStep({ form, household, setHouseholdList, setHouseholdExclus
           About your household
         </h3>
         <p>
-          Damp and mould are a bigger risk to some people's health. We ask so your landlord can prioritise, and visit sooner where it
-          matters most. You don't have to answer.
+          Damp and mould are a bigger risk to some people's health. We ask so your landlord can prioritise, and visit sooner where
+          it matters most. You don't have to answer.
         </p>
         <ChoiceField
           control={control}
@@ -59,8 +68,16 @@ export function HomeStep({ form, household, setHouseholdList, setHouseholdExclus
               <p className="text-sm font-semibold text-ink-soft" aria-hidden="true">
                 or
               </p>
-              <ExclusiveCheckbox label={householdNoneLabel} checked={household === "none"} onChange={(c) => setHouseholdExclusive("none", c)} />
-              <ExclusiveCheckbox label={householdPreferNotLabel} checked={household === "prefer-not"} onChange={(c) => setHouseholdExclusive("prefer-not", c)} />
+              <ExclusiveCheckbox
+                label={householdNoneLabel}
+                checked={household === "none"}
+                onChange={(c) => setHouseholdExclusive("none", c)}
+              />
+              <ExclusiveCheckbox
+                label={householdPreferNotLabel}
+                checked={household === "prefer-not"}
+                onChange={(c) => setHouseholdExclusive("prefer-not", c)}
+              />
             </div>
           }
         />

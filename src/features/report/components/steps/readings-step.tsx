@@ -6,7 +6,10 @@ import type { ReportDraftState } from "../../hooks/use-report-draft";
 import { LoggerFileFields } from "../csv-import";
 import { HandReadingForm } from "../hand-reading-form";
 
-type ReadingsStepProps = Pick<ReportDraftState, "readings" | "addReading" | "removeReading" | "logger" | "setLoggerFile" | "setLoggerRoom"> & {
+type ReadingsStepProps = Pick<
+  ReportDraftState,
+  "readings" | "addReading" | "removeReading" | "logger" | "setLoggerFile" | "setLoggerRoom"
+> & {
   rooms: readonly RoomOption[];
   headingId: string;
   /** A reading is typed but not added yet. */
@@ -24,8 +27,8 @@ export function ReadingsStep(p: ReadingsStepProps) {
   return (
     <div className="flex flex-col gap-6">
       <p>
-        If you have a thermometer and a humidity meter, or a logger that records them, readings can help find the cause. They are optional:
-        your landlord will look into your report whatever the readings say.
+        If you have a thermometer and a humidity meter, or a logger that records them, readings can help find the cause. They are
+        optional: your landlord will look into your report whatever the readings say.
       </p>
       <section aria-labelledby={`${p.headingId}-hand`} className="flex flex-col gap-3">
         <h3 id={`${p.headingId}-hand`} className="text-lg font-bold">
@@ -36,10 +39,14 @@ export function ReadingsStep(p: ReadingsStepProps) {
             <h4 className="font-bold">Readings you've added ({p.readings.length})</h4>
             <ul className="flex flex-col gap-2">
               {p.readings.map((r, i) => (
-                <li key={`${r.roomId}-${r.takenAt}-${i}`} className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-line bg-paper px-3 py-2">
+                <li
+                  key={`${r.roomId}-${r.takenAt}-${i}`}
+                  className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-line bg-paper px-3 py-2"
+                >
                   <span>
-                    <span className="font-semibold">{roomName(r.roomId)}</span>, {formatDateTime(r.takenAt)}: {r.airTemperatureC} °C,{" "}
-                    {r.relativeHumidityPct} %{r.surfaceTemperatureC !== undefined ? `, surface ${r.surfaceTemperatureC} °C` : ""}
+                    <span className="font-semibold">{roomName(r.roomId)}</span>, {formatDateTime(r.takenAt)}: {r.airTemperatureC}{" "}
+                    °C, {r.relativeHumidityPct} %
+                    {r.surfaceTemperatureC !== undefined ? `, surface ${r.surfaceTemperatureC} °C` : ""}
                     {r.outdoorTemperatureC !== undefined ? `, outdoors ${r.outdoorTemperatureC} °C` : ""}
                   </span>
                   <Button variant="ghost" size="sm" onClick={() => p.removeReading(i)}>
@@ -83,8 +90,8 @@ export function ReadingsStep(p: ReadingsStepProps) {
         {p.logger.file ? (
           <div className="flex flex-col items-start gap-2">
             <p className="text-sm">
-              After you send your report, we'll show you the first rows of this file so you can check which column is which before the
-              readings are added.
+              After you send your report, we'll show you the first rows of this file so you can check which column is which before
+              the readings are added.
             </p>
             <Button variant="ghost" size="sm" onClick={() => p.setLoggerFile(null)}>
               Remove the file
