@@ -96,7 +96,10 @@ export default tseslint.config(
     languageOptions: { ecmaVersion: 2023, sourceType: "module", globals: { ...globals.node } },
     settings: {
       "import-x/resolver-next": [
-        createTypeScriptImportResolver({ project: ["src/tsconfig.json", "server/tsconfig.json", "tests/tsconfig.json"] }),
+        createTypeScriptImportResolver({
+          project: ["src/tsconfig.json", "server/tsconfig.json", "tests/tsconfig.json"],
+          noWarnOnMultipleProjects: true,
+        }),
       ],
     },
     rules: {
