@@ -4,10 +4,9 @@
  * everything that fails.
  */
 
-export interface ApiErrorDetail {
-  field: string;
-  message: string;
-}
+import type { FieldErrorDetail } from "@/lib/contracts";
+
+export type ApiErrorDetail = FieldErrorDetail;
 
 export class ApiError extends Error {
   readonly status: number;

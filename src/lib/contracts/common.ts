@@ -18,6 +18,10 @@ export const pageOf = <T extends z.ZodType>(item: T) =>
     pageSize: z.number().int().min(1),
   });
 
+/** One field's problem, as a 400 `validation_failed` lists them in `details` (server/lib/validation.ts). */
+export const fieldErrorDetail = z.object({ field: z.string(), message: z.string() });
+export type FieldErrorDetail = z.infer<typeof fieldErrorDetail>;
+
 /** The one error shape every failing route answers with (server/middleware/error-handler.ts). */
 export const errorResponse = z.object({
   error: z.object({ code: z.string(), message: z.string(), details: z.unknown().optional() }),
