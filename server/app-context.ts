@@ -70,7 +70,7 @@ export function createServices(
   const mail = new MailService(dataSource, mailer, logger, clock);
   const properties = new PropertyService(dataSource);
   const tenancies = new TenancyService(dataSource, properties, clock);
-  const users = new UserService(dataSource);
+  const users = new UserService(dataSource, clock);
   const organisations = new OrganisationService(dataSource);
   const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);

@@ -13,6 +13,7 @@ import { WrittenSummary } from "../modules/inspections/written-summary.entity.js
 import { DeadlinePolicyRecord } from "../modules/policy/deadline-policy.entity.js";
 import { DeadlineDigest } from "../modules/digest/deadline-digest.entity.js";
 import { UserToken } from "../modules/auth/user-token.entity.js";
+import { UserAuditEntry } from "../modules/users/user-audit.entity.js";
 import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
 import { Organisation } from "../modules/organisations/organisation.entity.js";
 import { Property } from "../modules/properties/property.entity.js";
@@ -24,6 +25,7 @@ export const entities = [
   Organisation,
   User,
   UserToken,
+  UserAuditEntry,
   Property,
   Room,
   Tenancy,

@@ -86,6 +86,7 @@ export const userKeys = {
   all: ["users"] as const,
   lists: () => [...userKeys.all, "list"] as const,
   list: <F extends object>(filters: F) => [...userKeys.lists(), filters] as const,
+  history: (id: number) => [...userKeys.all, "history", id] as const,
 };
 
 /** Mutation keys of the tenant's report (its reads are the case's, under `caseKeys`). */

@@ -47,6 +47,7 @@ function setup() {
       officerStatus = (call.body as { status: string }).status;
       return { body: { ...people[1], status: officerStatus } };
     },
+    "GET /api/users/2/history": { body: { entries: [] } },
     "GET /api/properties": (call) => ({
       body: {
         items: call.search.get("q")
@@ -74,20 +75,23 @@ describe("Users and invitations", () => {
     const table = await screen.findByRole("table", { name: "People in your organisation" });
     await within(table).findByText("Priya Venn");
     expect(within(table).getByText("This is you")).toBeInTheDocument();
-    expect(within(table).getByText("Waiting for them to accept")).toBeInTheDocument();
+    expect(within(table).getByText("Invited")).toBeInTheDocument();
 
     const user = userEvent.setup();
-    await user.click(within(table).getByRole("button", { name: "Disable Priya Venn" }));
+    await user.click(within(table).getByRole("button", { name: "Manage Priya Venn" }));
+    const panel = await screen.findByRole("region", { name: "Priya Venn" });
+    await user.click(within(panel).getByRole("button", { name: "Disable account" }));
     const dialog = await screen.findByRole("dialog", { name: "Disable Priya Venn's account?" });
     await user.click(within(dialog).getByRole("button", { name: "Cancel" }));
     expect(callsTo("PATCH", "/api/users/2")).toHaveLength(0);
 
-    await user.click(within(table).getByRole("button", { name: "Disable Priya Venn" }));
+    await user.click(within(panel).getByRole("button", { name: "Disable account" }));
     await user.click(within(await screen.findByRole("dialog")).getByRole("button", { name: "Disable account" }));
 
     expect(await screen.findByText("Priya Venn's account is now disabled.")).toBeInTheDocument();
     expect(callsTo("PATCH", "/api/users/2")[0]!.body).toEqual({ status: "disabled" });
-    expect(await within(table).findByRole("button", { name: "Enable Priya Venn" })).toBeInTheDocument();
+    expect(await within(panel).findByRole("button", { name: "Enable account" })).toBeInTheDocument();
+    await waitFor(() => expect(within(table).getByText("Disabled")).toBeInTheDocument());
   });
 
   it("filters by role through the URL", async () => {

@@ -105,6 +105,26 @@ describe("the deadline policy page", () => {
     expect(field(/Make the home safe within/)).not.toHaveAttribute("aria-invalid");
   });
 
+  it("says the unit in the singular for a limit of one: 'at least 1 hour', never '1 hours'", async () => {
+    setup();
+    const user = userEvent.setup();
+    const hours = await screen.findByRole("textbox", { name: /Make the home safe within/ });
+    await user.clear(hours);
+    await user.type(hours, "0");
+    const supplementary = field(/Further work begun within/);
+    await user.clear(supplementary);
+    await user.type(supplementary, "0");
+    await user.click(screen.getByRole("button", { name: "Save" }));
+    await waitFor(() => expect(hours).toHaveAccessibleDescription(/Must be at least 1 hour\./));
+    expect(hours).not.toHaveAccessibleDescription(/1 hours/);
+    expect(supplementary).toHaveAccessibleDescription(/Must be at least 1 week\./);
+    // The plural stays where it belongs.
+    await user.clear(hours);
+    await user.type(hours, "73");
+    await user.click(screen.getByRole("button", { name: "Save" }));
+    await waitFor(() => expect(hours).toHaveAccessibleDescription(/Must be at most 72 hours\./));
+  });
+
   it("asks for a whole number before sending anything", async () => {
     const { callsTo } = setup();
     const user = userEvent.setup();

@@ -22,6 +22,7 @@ import {
   passwordResetRequestSchema,
   passwordResetSchema,
   tokenParamsSchema,
+  userIdParamsSchema,
 } from "./auth.schemas.js";
 import type { AuthService } from "./auth.service.js";
 
@@ -89,6 +90,18 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
     const input = parse(invitationSchema, req.body);
     const result = await auth.invite(actorOf(req), input);
     res.status(201).json(shaped(invitationCreatedResponse, { userId: result.userId, expiresAt: result.expiresAt.toISOString() }));
+  });
+
+  router.post("/invitations/:userId/resend", requireRole("admin"), async (req, res) => {
+    const { userId } = parse(userIdParamsSchema, req.params, "params");
+    const result = await auth.resendInvitation(actorOf(req), userId);
+    res.status(201).json(shaped(invitationCreatedResponse, { userId: result.userId, expiresAt: result.expiresAt.toISOString() }));
+  });
+
+  router.post("/invitations/:userId/cancel", requireRole("admin"), async (req, res) => {
+    const { userId } = parse(userIdParamsSchema, req.params, "params");
+    await auth.cancelInvitation(actorOf(req), userId);
+    res.status(204).end();
   });
 
   router.get("/invitations/:token", async (req, res) => {

@@ -22,6 +22,10 @@ const tokenSchema = z.string({ error: "The link is missing its token." }).regex(
 
 export const tokenParamsSchema = z.object({ token: tokenSchema });
 
+export const userIdParamsSchema = z.object({
+  userId: z.coerce.number({ error: "userId must be a number." }).int().positive("userId must be a positive whole number."),
+});
+
 export const acceptInvitationSchema = z.object({ token: tokenSchema, password: newPasswordSchema });
 
 export const passwordResetRequestSchema = z.object({ email: emailSchema });

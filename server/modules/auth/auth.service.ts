@@ -12,10 +12,16 @@ import { hashPassword, verifyPassword } from "./passwords.js";
 import { hashToken, newToken } from "./tokens.js";
 import { UserToken, type TokenPurpose } from "./user-token.entity.js";
 import type { Clock } from "../../lib/clock.js";
+import { roleLabels } from "../../../src/lib/roles.js";
 
 const INVITATION_HOURS = 72;
 const RESET_MINUTES = 60;
 const INVALID_LINK = "This link is not valid any more: it may have been used already or have expired. Ask for a new one.";
+
+const notWaiting = (status: string) =>
+  status === "cancelled"
+    ? "This invitation was cancelled. Invite the person again with the form instead."
+    : "This person has already accepted their invitation, so there is nothing to send or cancel.";
 
 export const toActor = (u: Person): Actor => ({
   id: u.id,
@@ -54,7 +60,8 @@ export class AuthService {
 
   /**
    * Admins invite anyone into their organisation; officers invite tenants to a home of theirs.
-   * The user, the tenancy, the token and the outbox row are written together.
+   * The user, the tenancy, the token, the audit entry and the outbox row are written together. A
+   * cancelled invitation's account (same landlord, same address) is invited again rather than refused.
    */
   async invite(actor: Actor, input: InvitationInput): Promise<{ userId: number; expiresAt: Date }> {
     if (actor.role !== "admin" && !(actor.role === "officer" && input.role === "tenant")) {
@@ -64,15 +71,14 @@ export class AuthService {
     const { token, hash } = newToken();
     const expiresAt = new Date(this.clock.now().getTime() + INVITATION_HOURS * 3_600_000);
     const { user, deliver } = await this.dataSource.transaction(async (m) => {
-      if (await this.users.emailTaken(input.email, m)) {
-        throw new ConflictError("Someone with that e-mail address already has an account.");
+      const details = { organisationId: actor.organisationId, email: input.email, name: input.name, role: input.role };
+      let user = await this.users.reviveCancelled(m, details);
+      if (!user) {
+        if (await this.users.emailTaken(input.email, m)) {
+          throw new ConflictError("Someone with that e-mail address already has an account.");
+        }
+        user = await this.users.createInvited(m, details);
       }
-      const user = await this.users.createInvited(m, {
-        organisationId: actor.organisationId,
-        email: input.email,
-        name: input.name,
-        role: input.role,
-      });
       if (input.role === "tenant") {
         await this.tenancies.start(m, {
           propertyId: input.propertyId!,
@@ -80,25 +86,86 @@ export class AuthService {
           householdNotes: input.householdNotes ?? null,
         });
       }
-      await this.saveToken(m, user.id, "invitation", hash, expiresAt, actor.id);
-      const organisationName = await this.organisations.nameOf(actor.organisationId, m);
-      const deliver = await this.mail.enqueue(m, {
-        to: user.email,
-        template: "invitation",
+      await this.users.recordAudit(m, {
         organisationId: actor.organisationId,
-        related: { type: "user", id: user.id },
-        data: {
-          name: user.name,
-          organisationName,
-          inviterName: actor.name,
-          link: `${this.config.appUrl}/invitation/${token}`,
-          expiresHours: INVITATION_HOURS,
-        },
+        actorId: actor.id,
+        targetId: user.id,
+        action: "invited",
+        to: user.role,
       });
+      const deliver = await this.sendInvitation(m, actor, user, hash, token, expiresAt);
       return { user, deliver };
     });
     await deliver();
     return { userId: user.id, expiresAt };
+  }
+
+  /**
+   * Sends a pending invitation again with a new link (the earlier link stops working). Admins only
+   * (the router checks); another landlord's account is not found; an account that is not waiting
+   * for its invitation to be accepted is a 409.
+   */
+  async resendInvitation(actor: Actor, userId: number): Promise<{ userId: number; expiresAt: Date }> {
+    const { token, hash } = newToken();
+    const expiresAt = new Date(this.clock.now().getTime() + INVITATION_HOURS * 3_600_000);
+    const deliver = await this.dataSource.transaction(async (m) => {
+      const user = await this.users.lockAccountOf(m, actor.organisationId, userId);
+      if (user.status !== "invited") throw new ConflictError(notWaiting(user.status));
+      await this.users.recordAudit(m, {
+        organisationId: actor.organisationId,
+        actorId: actor.id,
+        targetId: user.id,
+        action: "invitation-resent",
+      });
+      return this.sendInvitation(m, actor, user, hash, token, expiresAt);
+    });
+    await deliver();
+    return { userId, expiresAt };
+  }
+
+  /**
+   * Withdraws a pending invitation: its link stops working, the account is marked cancelled (kept, so
+   * anything that names it still can), and a tenant's tenancy that the invitation started is removed.
+   */
+  async cancelInvitation(actor: Actor, userId: number): Promise<void> {
+    await this.dataSource.transaction(async (m) => {
+      const user = await this.users.lockAccountOf(m, actor.organisationId, userId);
+      if (user.status !== "invited") throw new ConflictError(notWaiting(user.status));
+      await m
+        .getRepository(UserToken)
+        .update({ userId: user.id, purpose: "invitation", usedAt: IsNull() }, { usedAt: this.clock.now() });
+      await this.users.markCancelled(m, user.id);
+      if (user.role === "tenant") await this.tenancies.withdrawUnaccepted(m, user.id);
+      await this.users.recordAudit(m, {
+        organisationId: actor.organisationId,
+        actorId: actor.id,
+        targetId: user.id,
+        action: "invitation-cancelled",
+      });
+    });
+  }
+
+  /** Stores the new link (replacing any earlier one) and queues the e-mail: staff and tenants get their own wording. */
+  private async sendInvitation(m: EntityManager, actor: Actor, user: Person, hash: string, token: string, expiresAt: Date) {
+    await this.saveToken(m, user.id, "invitation", hash, expiresAt, actor.id);
+    const organisationName = await this.organisations.nameOf(actor.organisationId, m);
+    const data = {
+      name: user.name,
+      organisationName,
+      inviterName: actor.name,
+      link: `${this.config.appUrl}/invitation/${token}`,
+      expiresHours: INVITATION_HOURS,
+    };
+    const related = { type: "user", id: user.id } as const;
+    return user.role === "tenant"
+      ? this.mail.enqueue(m, { to: user.email, template: "invitation", organisationId: actor.organisationId, related, data })
+      : this.mail.enqueue(m, {
+          to: user.email,
+          template: "staffInvitation",
+          organisationId: actor.organisationId,
+          related,
+          data: { ...data, roleLabel: roleLabels[user.role] },
+        });
   }
 
   /** Who an invitation link is for, so the page can greet them. */
@@ -113,6 +180,13 @@ export class AuthService {
     await this.dataSource.transaction(async (m) => {
       const row = await this.consumeToken(m, token, "invitation");
       await this.users.setPasswordHash(m, row.userId, passwordHash, true);
+      const user = await this.users.person(row.userId, m);
+      await this.users.recordAudit(m, {
+        organisationId: user.organisationId,
+        actorId: user.id,
+        targetId: user.id,
+        action: "invitation-accepted",
+      });
     });
   }
 

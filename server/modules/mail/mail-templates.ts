@@ -37,6 +37,30 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
+  /** For officers, maintenance leads and administrators: about the landlord's homes, never "your home". */
+  staffInvitation(d: {
+    name: string;
+    organisationName: string;
+    inviterName: string;
+    roleLabel: string;
+    link: string;
+    expiresHours: number;
+  }): RenderedMail {
+    return {
+      subject: `Join ${d.organisationName}'s team on Dewline`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `${d.inviterName} has added you to ${d.organisationName}'s team on Dewline, as ${/^[AEIOU]/.test(d.roleLabel) ? "an" : "a"} ${d.roleLabel.toLowerCase()}.`,
+        "Dewline is where the team receives tenants' reports of damp, condensation and mould in the homes the organisation manages, and follows each one through inspection, repairs and checks afterwards.",
+        "",
+        "Choose your password here:",
+        d.link,
+        "",
+        `The link works once and expires in ${d.expiresHours} hours. If you were not expecting this e-mail, you can ignore it and no account will be opened.`,
+      ].join("\n"),
+    };
+  },
   passwordReset(d: { name: string; link: string; expiresMinutes: number }): RenderedMail {
     return {
       subject: "Reset your Dewline password",

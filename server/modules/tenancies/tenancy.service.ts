@@ -27,6 +27,14 @@ export class TenancyService {
       .save(m.getRepository(Tenancy).create({ ...t, startDate: t.startDate ?? this.today(), endDate: null }));
   }
 
+  /**
+   * Removes the tenancies an invitation started for someone who never accepted it (their invitation
+   * was cancelled), inside the caller's transaction, so the home has no phantom tenant.
+   */
+  async withdrawUnaccepted(m: EntityManager, tenantUserId: number): Promise<void> {
+    await m.getRepository(Tenancy).delete({ tenantUserId });
+  }
+
   /** The tenant's current tenancy (started, not ended), or null. The one place a tenant's home is decided. */
   async currentFor(actor: Actor): Promise<Tenancy | null> {
     const repo = this.dataSource.getRepository(Tenancy);

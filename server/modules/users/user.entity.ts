@@ -14,8 +14,11 @@ export const ROLES = ["tenant", "officer", "maintenance", "admin"] as const;
 export type Role = (typeof ROLES)[number];
 export const STAFF_ROLES = ["officer", "maintenance", "admin"] as const satisfies readonly Role[];
 
-/** invited: has a pending invitation and no password yet; disabled: may not sign in. */
-export const USER_STATUSES = ["invited", "active", "disabled"] as const;
+/**
+ * invited: has a pending invitation and no password yet; disabled: may not sign in; cancelled: the
+ * invitation was withdrawn before it was accepted (kept, so what refers to the account still can).
+ */
+export const USER_STATUSES = ["invited", "active", "disabled", "cancelled"] as const;
 export type UserStatus = (typeof USER_STATUSES)[number];
 
 @Entity({ name: "users" })

@@ -1,8 +1,9 @@
 import type { z } from "zod";
 import type { meResponse } from "../../../src/lib/contracts/auth.js";
-import type { staffMember, userResponse } from "../../../src/lib/contracts/users.js";
+import type { staffMember, userAuditEntry, userResponse } from "../../../src/lib/contracts/users.js";
 import type { Actor } from "../../lib/actor.js";
 import type { User } from "./user.entity.js";
+import type { UserAuditRecord } from "./user.service.js";
 
 export const toMeDto = (a: Actor): z.input<typeof meResponse> => ({
   id: a.id,
@@ -23,3 +24,12 @@ export const toUserDto = (u: User): z.input<typeof userResponse> => ({
 });
 
 export const toStaffMemberDto = (u: User): z.input<typeof staffMember> => ({ id: u.id, name: u.name, role: u.role });
+
+export const toUserAuditDto = (e: UserAuditRecord): z.input<typeof userAuditEntry> => ({
+  id: e.id,
+  action: e.action,
+  actor: e.actor,
+  from: e.from,
+  to: e.to,
+  at: e.at.toISOString(),
+});

@@ -1,9 +1,13 @@
 import { Brackets, In, type DataSource, type EntityManager } from "typeorm";
+import type { Clock } from "../../lib/clock.js";
+import { systemClock } from "../../lib/clock.js";
 import { ConflictError, NotFoundError } from "../../lib/errors.js";
 import { escapeLike } from "../../lib/sql.js";
 import type { Actor } from "../../lib/actor.js";
-import { User, type Role } from "./user.entity.js";
-import type { UserListQuery } from "./users.schemas.js";
+import type { UserAuditAction } from "../../../src/lib/contracts/users.js";
+import { UserAuditEntry } from "./user-audit.entity.js";
+import { STAFF_ROLES, User, type Role } from "./user.entity.js";
+import type { UserListQuery, UserUpdateInput } from "./users.schemas.js";
 
 /** What other modules need to know of a person: enough to name them and write to them. */
 export interface Person {
@@ -22,8 +26,23 @@ const personOf = (u: User): Person => ({
   organisationId: u.organisationId,
 });
 
+/** One line of an account's history, with the name of who did it. */
+export interface UserAuditRecord {
+  id: number;
+  action: UserAuditAction;
+  actor: { id: number; name: string } | null;
+  from: string | null;
+  to: string | null;
+  at: Date;
+}
+
+const isStaffRole = (role: Role) => (STAFF_ROLES as readonly Role[]).includes(role);
+
 export class UserService {
-  constructor(private readonly dataSource: DataSource) {}
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly clock: Clock = systemClock,
+  ) {}
 
   /** One person by id, any status (inside the caller's transaction when given one); fails if there is none. */
   async person(id: number, m: EntityManager = this.dataSource.manager): Promise<Person> {
@@ -135,13 +154,145 @@ export class UserService {
     return { items, total };
   }
 
-  async setStatus(actor: Actor, id: number, status: "active" | "disabled"): Promise<User> {
-    const repo = this.dataSource.getRepository(User);
-    const user = await repo.findOneBy({ id, organisationId: actor.organisationId });
-    if (!user) throw new NotFoundError("No such user.");
-    if (user.id === actor.id) throw new ConflictError("You cannot change your own account's status.");
-    if (user.status === "invited") throw new ConflictError("This person has not accepted their invitation yet.");
-    user.status = status;
-    return repo.save(user);
+  /**
+   * An admin changes a person's name, role or status (active or disabled), in one transaction with
+   * an audit entry per change. An admin cannot change their own role or status, and the landlord
+   * always keeps at least one active admin. A tenant's account stays a tenant's and staff stay staff.
+   * Disabling ends the person's sessions at once.
+   */
+  async update(actor: Actor, id: number, input: UserUpdateInput): Promise<User> {
+    return this.dataSource.transaction(async (m) => {
+      const repo = m.getRepository(User);
+      const user = await repo.findOne({ where: { id, organisationId: actor.organisationId }, lock: { mode: "pessimistic_write" } });
+      if (!user) throw new NotFoundError("No such user.");
+      if (user.status === "cancelled") {
+        throw new ConflictError("This person's invitation was cancelled. Invite them again to give them an account.");
+      }
+      const name = input.name !== undefined && input.name !== user.name ? input.name : undefined;
+      const role = input.role !== undefined && input.role !== user.role ? input.role : undefined;
+      const status = input.status !== undefined && input.status !== user.status ? input.status : undefined;
+
+      if (role !== undefined) {
+        if (user.id === actor.id) throw new ConflictError("You cannot change your own role. Another administrator can do it for you.");
+        if (isStaffRole(role) !== isStaffRole(user.role)) {
+          throw new ConflictError(
+            user.role === "tenant"
+              ? "A tenant's account cannot be given a staff role. Invite the person as staff with another e-mail address."
+              : "A staff account cannot be made a tenant's. Invite the tenant with their own e-mail address.",
+          );
+        }
+      }
+      if (status !== undefined) {
+        if (user.id === actor.id) throw new ConflictError("You cannot disable or enable your own account.");
+        if (user.status === "invited") {
+          throw new ConflictError("This person has not accepted their invitation yet: send it again or cancel it instead.");
+        }
+      }
+      const stopsBeingAdmin =
+        user.role === "admin" && user.status === "active" && (role !== undefined || status === "disabled");
+      if (stopsBeingAdmin) {
+        const admins = await repo.find({
+          where: { organisationId: actor.organisationId, role: "admin", status: "active" },
+          lock: { mode: "pessimistic_write" },
+        });
+        if (admins.filter((a) => a.id !== user.id).length === 0) {
+          throw new ConflictError(
+            "This is the only active administrator. Make someone else an administrator first, so the organisation is never left without one.",
+          );
+        }
+      }
+
+      const audit = (action: UserAuditAction, from: string | null, to: string | null) =>
+        this.recordAudit(m, { organisationId: actor.organisationId, actorId: actor.id, targetId: user.id, action, from, to });
+      if (name !== undefined) {
+        await audit("name-changed", user.name, name);
+        user.name = name;
+      }
+      if (role !== undefined) {
+        await audit("role-changed", user.role, role);
+        user.role = role;
+      }
+      if (status !== undefined) {
+        await audit(status === "disabled" ? "disabled" : "enabled", null, null);
+        user.status = status;
+        if (status === "disabled") await this.endSessions(m, user.id);
+      }
+      return name === undefined && role === undefined && status === undefined ? user : repo.save(user);
+    });
+  }
+
+  /** Signs the person out everywhere: their stored sessions are deleted (passport keeps the user id in `passport.user`). */
+  async endSessions(m: EntityManager, userId: number): Promise<void> {
+    await m.query("DELETE FROM `sessions` WHERE JSON_VALUE(`data`, '$.passport.user') = ?", [String(userId)]);
+  }
+
+  /** Writes one line of an account's history, in the caller's transaction. */
+  async recordAudit(
+    m: EntityManager,
+    e: { organisationId: number; actorId: number; targetId: number; action: UserAuditAction; from?: string | null; to?: string | null },
+  ): Promise<void> {
+    await m.getRepository(UserAuditEntry).insert({
+      organisationId: e.organisationId,
+      actorUserId: e.actorId,
+      targetUserId: e.targetId,
+      action: e.action,
+      fromValue: e.from ?? null,
+      toValue: e.to ?? null,
+      createdAt: this.clock.now(),
+    });
+  }
+
+  /** An account's history, newest first; another landlord's account is not found. */
+  async history(actor: Actor, id: number): Promise<UserAuditRecord[]> {
+    if (!(await this.dataSource.getRepository(User).existsBy({ id, organisationId: actor.organisationId }))) {
+      throw new NotFoundError("No such user.");
+    }
+    const rows = await this.dataSource
+      .getRepository(UserAuditEntry)
+      .find({ where: { targetUserId: id, organisationId: actor.organisationId }, order: { id: "DESC" }, take: 200 });
+    const actors = await this.people(rows.map((r) => r.actorUserId));
+    return rows.map((r) => {
+      const who = actors.get(r.actorUserId);
+      return {
+        id: r.id,
+        action: r.action,
+        actor: who && who.organisationId === actor.organisationId ? { id: who.id, name: who.name } : null,
+        from: r.fromValue,
+        to: r.toValue,
+        at: r.createdAt,
+      };
+    });
+  }
+
+  // Invitations, for AuthService (which owns the tokens and the e-mail).
+
+  /** The landlord's account with this id, locked for the caller's transaction; another landlord's is not found. */
+  async lockAccountOf(m: EntityManager, organisationId: number, id: number): Promise<Person & { status: User["status"] }> {
+    const u = await m.getRepository(User).findOne({ where: { id, organisationId }, lock: { mode: "pessimistic_write" } });
+    if (!u) throw new NotFoundError("No such user.");
+    return { ...personOf(u), status: u.status };
+  }
+
+  /** Marks an invited account's invitation as withdrawn. */
+  async markCancelled(m: EntityManager, id: number): Promise<void> {
+    await m.getRepository(User).update({ id, status: "invited" }, { status: "cancelled" });
+  }
+
+  /**
+   * The cancelled account of this landlord with this e-mail address, made an invited account again with
+   * the new name and role (so the same address can be invited again), or null when there is none.
+   */
+  async reviveCancelled(
+    m: EntityManager,
+    input: { organisationId: number; email: string; name: string; role: Role },
+  ): Promise<Person | null> {
+    const repo = m.getRepository(User);
+    const u = await repo.findOne({
+      where: { organisationId: input.organisationId, email: input.email, status: "cancelled" },
+      lock: { mode: "pessimistic_write" },
+    });
+    if (!u) return null;
+    Object.assign(u, { name: input.name, role: input.role, status: "invited", passwordHash: null });
+    return personOf(await repo.save(u));
   }
 }

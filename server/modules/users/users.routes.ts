@@ -1,10 +1,10 @@
 import { Router } from "express";
-import { staffListResponse, userPageResponse } from "../../../src/lib/contracts/users.js";
+import { staffListResponse, userHistoryResponse, userPageResponse } from "../../../src/lib/contracts/users.js";
 import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
-import { toStaffMemberDto, toUserDto } from "./user.mapper.js";
+import { toStaffMemberDto, toUserAuditDto, toUserDto } from "./user.mapper.js";
 import type { UserService } from "./user.service.js";
 import { userListQuerySchema, userUpdateSchema } from "./users.schemas.js";
 
@@ -20,8 +20,14 @@ export function createUsersRouter({ users }: { users: UserService }): Router {
 
   router.patch("/:id", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    const { status } = parse(userUpdateSchema, req.body);
-    res.json(toUserDto(await users.setStatus(actorOf(req), id, status)));
+    const input = parse(userUpdateSchema, req.body);
+    res.json(toUserDto(await users.update(actorOf(req), id, input)));
+  });
+
+  router.get("/:id/history", async (req, res) => {
+    const { id } = parse(idParamsSchema, req.params, "params");
+    const entries = await users.history(actorOf(req), id);
+    res.json(shaped(userHistoryResponse, { entries: entries.map(toUserAuditDto) }));
   });
 
   return router;

@@ -9,6 +9,4 @@ export const userListQuerySchema = z.object({
 });
 export type UserListQuery = z.infer<typeof userListQuerySchema>;
 
-export const userUpdateSchema = z
-  .object({ status: z.enum(["active", "disabled"], { error: "status must be active or disabled." }) })
-  .strict();
+export { userUpdateSchema, type UserUpdateInput } from "../../../src/lib/schemas/users.js";

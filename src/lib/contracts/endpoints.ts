@@ -23,7 +23,7 @@ import { estatesResponse, myHomeResponse, propertyPageResponse, propertyResponse
 import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
 import { bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
-import { staffListResponse, userPageResponse, userResponse } from "./users.js";
+import { staffListResponse, userHistoryResponse, userPageResponse, userResponse } from "./users.js";
 import {
   caseWorkOrdersResponse,
   contractorListResponse,
@@ -99,6 +99,15 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/auth/me", "signed-in", "The signed-in user", meResponse),
   e("POST", "/api/auth/invitations", ["admin", "officer"], "Invite a person", invitationCreatedResponse, 201),
   e("GET", "/api/auth/invitations/:token", "public", "Who an invitation is for", invitationDescriptionResponse),
+  e(
+    "POST",
+    "/api/auth/invitations/:userId/resend",
+    ["admin"],
+    "Send a pending invitation again with a new link (the old link stops working)",
+    invitationCreatedResponse,
+    201,
+  ),
+  e("POST", "/api/auth/invitations/:userId/cancel", ["admin"], "Cancel a pending invitation", null, 204),
   e("POST", "/api/auth/invitations/accept", "public", "Accept an invitation and choose a password", null, 204),
   e("POST", "/api/auth/password-reset", "public", "Ask for a password reset link", passwordResetRequestedResponse, 202),
   e("POST", "/api/auth/password-reset/confirm", "public", "Choose a new password with a reset link", null, 204),
@@ -178,7 +187,8 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/properties/estates", STAFF, "The estates' names", estatesResponse),
   e("GET", "/api/properties/:id", STAFF, "A home and its rooms", propertyResponse),
   e("GET", "/api/users", ["admin"], "The landlord's accounts", userPageResponse),
-  e("PATCH", "/api/users/:id", ["admin"], "Disable or re-enable an account", userResponse),
+  e("PATCH", "/api/users/:id", ["admin"], "Change a person's name or role, or disable or re-enable their account", userResponse),
+  e("GET", "/api/users/:id/history", ["admin"], "Who changed a person's account, and when", userHistoryResponse),
   e("GET", "/api/staff", STAFF, "Who a case can be assigned to", staffListResponse),
 ];
 

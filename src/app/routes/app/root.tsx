@@ -25,6 +25,8 @@ const navByRole: Record<Role, NavItem[]> = {
   admin: [
     { to: "/admin", label: "Users and invitations", end: true },
     { to: "/admin/policy", label: "Deadline policy" },
+    { to: "/queue", label: "Case queue" },
+    { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
     { to: "/calculator", label: "Calculator" },
   ],

@@ -15,7 +15,7 @@ export function RoleGate({ roles, children }: { roles: readonly Role[]; children
   if (!user) return <Navigate to={signInPath(location.pathname + location.search)} replace />;
   if (!roles.includes(user.role)) {
     const home = roleHome(user.role);
-    return <NotAllowed homePath={home.path} homeLabel={home.label} />;
+    return <NotAllowed homePath={home.path} homeLabel={home.label} askAdministrator={user.role !== "admin"} />;
   }
   return children ?? <Outlet />;
 }

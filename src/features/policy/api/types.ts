@@ -91,4 +91,5 @@ export const POLICY_FIELDS: readonly PolicyFieldInfo[] = [
   },
 ];
 
-export const amount = (n: number, unit: { one: string; many: string }) => `${n} ${n === 1 ? unit.one : unit.many}`;
+/** "1 hour", "24 hours" (the same helper as the server's validation messages). */
+export { quantity as amount } from "@/lib/schemas/quantity";

@@ -7,4 +7,5 @@ export const userStatusLabels: Record<UserStatus, string> = {
   invited: "Invited",
   active: "Active",
   disabled: "Disabled",
+  cancelled: "Invitation cancelled",
 };

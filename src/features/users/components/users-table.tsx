@@ -2,7 +2,6 @@ import { useId, useMemo, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { DataTable, dataTableColumnHelper, useServerTable } from "@/components/ui/data-table";
-import { ConfirmDialog } from "@/components/ui/dialog";
 import { EmptyState } from "@/components/ui/empty-state";
 import { controlClasses } from "@/components/ui/field";
 import { SearchField } from "@/components/ui/search-field";
@@ -11,33 +10,10 @@ import { cn } from "@/lib/cn";
 import { formatDateTime } from "@/lib/dates";
 import { ROLES, roleLabels } from "@/lib/roles";
 import { useUsers } from "../api/get-users";
-import { userStatusLabels, type ManagedUser, type UserStatus } from "../api/types";
-import { useUpdateUserStatus } from "../api/update-user-status";
+import type { ManagedUser } from "../api/types";
 import { useUsersTableParams } from "../hooks/use-users-table-params";
-
-const statusClasses: Record<UserStatus, string> = {
-  active: "bg-moss-50 text-moss-700 border-moss-600",
-  invited: "bg-dew-50 text-dew-800 border-dew-500",
-  disabled: "bg-paper text-ink-soft border-line-strong border-dashed",
-};
-
-function StatusBadge({ status }: { status: UserStatus }) {
-  return (
-    <span
-      className={cn(
-        "inline-flex items-center rounded-pill border px-2 py-0.5 text-xs font-semibold whitespace-nowrap",
-        statusClasses[status],
-      )}
-    >
-      {userStatusLabels[status]}
-    </span>
-  );
-}
-
-interface PendingChange {
-  user: ManagedUser;
-  status: "active" | "disabled";
-}
+import { StatusBadge } from "./status-badge";
+import { UserDetail } from "./user-detail";
 
 const noRows: ManagedUser[] = [];
 const column = dataTableColumnHelper<ManagedUser>();
@@ -46,54 +22,47 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
   const roleId = useId();
   const { filters, setSearch, setRole, setPage } = useUsersTableParams();
   const users = useUsers(filters);
-  const update = useUpdateUserStatus();
-  const [pending, setPending] = useState<PendingChange | null>(null);
-  const [done, setDone] = useState<string | null>(null);
+  const [selected, setSelected] = useState<ManagedUser | null>(null);
 
-  const columns = useMemo(() => {
-    const ask = (user: ManagedUser, status: "active" | "disabled") => {
-      setDone(null);
-      setPending({ user, status });
-    };
-    return column.columns([
-      column.accessor("name", { header: "Name", cell: (info) => <span className="font-semibold">{info.getValue()}</span> }),
-      column.accessor("email", {
-        header: "E-mail",
-        cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
-      }),
-      column.accessor("role", { header: "Role", cell: (info) => roleLabels[info.getValue()] ?? info.getValue() }),
-      column.accessor("status", { header: "Status", cell: (info) => <StatusBadge status={info.getValue()} /> }),
-      column.accessor("lastSignInAt", {
-        header: "Last sign-in",
-        cell: (info) => {
-          const v = info.getValue();
-          return v ? (
-            <span className="whitespace-nowrap">{formatDateTime(v)}</span>
-          ) : (
-            <span className="text-ink-soft">Never</span>
-          );
-        },
-      }),
-      column.display({
-        id: "actions",
-        header: () => <span className="sr-only">Actions</span>,
-        cell: ({ row }) => {
-          const user = row.original;
-          if (user.id === currentUserId) return <span className="text-xs text-ink-soft">This is you</span>;
-          if (user.status === "invited") return <span className="text-xs text-ink-soft">Waiting for them to accept</span>;
-          return user.status === "active" ? (
-            <Button size="sm" variant="secondary" onClick={() => ask(user, "disabled")} aria-label={`Disable ${user.name}`}>
-              Disable
-            </Button>
-          ) : (
-            <Button size="sm" variant="secondary" onClick={() => ask(user, "active")} aria-label={`Enable ${user.name}`}>
-              Enable
-            </Button>
-          );
-        },
-      }),
-    ]);
-  }, [currentUserId]);
+  const columns = useMemo(
+    () =>
+      column.columns([
+        column.accessor("name", { header: "Name", cell: (info) => <span className="font-semibold">{info.getValue()}</span> }),
+        column.accessor("email", {
+          header: "E-mail",
+          cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span>,
+        }),
+        column.accessor("role", { header: "Role", cell: (info) => roleLabels[info.getValue()] ?? info.getValue() }),
+        column.accessor("status", { header: "Status", cell: (info) => <StatusBadge status={info.getValue()} /> }),
+        column.accessor("lastSignInAt", {
+          header: "Last sign-in",
+          cell: (info) => {
+            const v = info.getValue();
+            return v ? (
+              <span className="whitespace-nowrap">{formatDateTime(v)}</span>
+            ) : (
+              <span className="text-ink-soft">Never</span>
+            );
+          },
+        }),
+        column.display({
+          id: "actions",
+          header: () => <span className="sr-only">Actions</span>,
+          cell: ({ row }) => {
+            const user = row.original;
+            return (
+              <span className="flex items-center gap-2 whitespace-nowrap">
+                <Button size="sm" variant="secondary" onClick={() => setSelected(user)} aria-label={`Manage ${user.name}`}>
+                  Manage
+                </Button>
+                {user.id === currentUserId ? <span className="text-xs text-ink-soft">This is you</span> : null}
+              </span>
+            );
+          },
+        }),
+      ]),
+    [currentUserId],
+  );
 
   const table = useServerTable({
     columns,
@@ -103,19 +72,6 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
     onPaginationChange: ({ pageIndex, pageSize }) => setPage(pageIndex + 1, pageSize),
     getRowId: (row) => String(row.id),
   });
-
-  const confirm = () => {
-    if (!pending) return;
-    update.mutate(
-      { id: pending.user.id, status: pending.status },
-      {
-        onSuccess: (user) => {
-          setPending(null);
-          setDone(`${user.name}'s account is now ${user.status === "active" ? "enabled" : "disabled"}.`);
-        },
-      },
-    );
-  };
 
   const filtered = Boolean(filters.q || filters.role);
 
@@ -149,8 +105,6 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
         </div>
       </div>
 
-      {done ? <Alert tone="success">{done}</Alert> : null}
-
       <DataTable
         table={table}
         caption="People in your organisation"
@@ -172,34 +126,15 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
         }
       />
 
-      <ConfirmDialog
-        open={pending !== null}
-        title={
-          pending?.status === "disabled"
-            ? `Disable ${pending.user.name}'s account?`
-            : `Enable ${pending?.user.name ?? ""}'s account?`
-        }
-        confirmLabel={pending?.status === "disabled" ? "Disable account" : "Enable account"}
-        tone={pending?.status === "disabled" ? "danger" : "primary"}
-        busy={update.isPending}
-        error={update.isError ? errorMessage(update.error) : null}
-        onConfirm={confirm}
-        onCancel={() => {
-          update.reset();
-          setPending(null);
-        }}
-      >
-        {pending?.status === "disabled" ? (
-          <p>
-            {pending.user.name} ({pending.user.email}) will be signed out and will not be able to sign in until you enable the
-            account again. Nothing they have recorded is deleted.
-          </p>
-        ) : pending ? (
-          <p>
-            {pending.user.name} ({pending.user.email}) will be able to sign in again with their existing password.
-          </p>
-        ) : null}
-      </ConfirmDialog>
+      {selected ? (
+        <UserDetail
+          key={selected.id}
+          user={selected}
+          currentUserId={currentUserId}
+          onClose={() => setSelected(null)}
+          onChanged={setSelected}
+        />
+      ) : null}
     </div>
   );
 }
