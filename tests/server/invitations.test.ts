@@ -38,7 +38,13 @@ describe("invitations", () => {
     const outbox = await t.ctx.dataSource
       .getRepository(OutboxEmail)
       .findOneByOrFail({ relatedType: "user", relatedId: res.body.userId });
-    expect(outbox).toMatchObject({ toAddress: email, template: "invitation", status: "sent", organisationId: landlord.org.id });
+    // Staff get the staff wording (tests/server/users-admin.test.ts reads it).
+    expect(outbox).toMatchObject({
+      toAddress: email,
+      template: "staffInvitation",
+      status: "sent",
+      organisationId: landlord.org.id,
+    });
     // Only the hash is stored.
     const stored = await t.ctx.dataSource.getRepository(UserToken).findOneByOrFail({ userId: res.body.userId });
     expect(stored.tokenHash).not.toContain(token);

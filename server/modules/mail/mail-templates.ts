@@ -47,7 +47,7 @@ export const mailTemplates = {
     expiresHours: number;
   }): RenderedMail {
     return {
-      subject: `Join ${d.organisationName}'s team on Dewline`,
+      subject: `You are invited to join ${d.organisationName}'s team on Dewline`,
       text: [
         `Hello ${d.name},`,
         "",
