@@ -163,7 +163,10 @@ export class UserService {
   async update(actor: Actor, id: number, input: UserUpdateInput): Promise<User> {
     return this.dataSource.transaction(async (m) => {
       const repo = m.getRepository(User);
-      const user = await repo.findOne({ where: { id, organisationId: actor.organisationId }, lock: { mode: "pessimistic_write" } });
+      const user = await repo.findOne({
+        where: { id, organisationId: actor.organisationId },
+        lock: { mode: "pessimistic_write" },
+      });
       if (!user) throw new NotFoundError("No such user.");
       if (user.status === "cancelled") {
         throw new ConflictError("This person's invitation was cancelled. Invite them again to give them an account.");
@@ -173,7 +176,8 @@ export class UserService {
       const status = input.status !== undefined && input.status !== user.status ? input.status : undefined;
 
       if (role !== undefined) {
-        if (user.id === actor.id) throw new ConflictError("You cannot change your own role. Another administrator can do it for you.");
+        if (user.id === actor.id)
+          throw new ConflictError("You cannot change your own role. Another administrator can do it for you.");
         if (isStaffRole(role) !== isStaffRole(user.role)) {
           throw new ConflictError(
             user.role === "tenant"
@@ -188,8 +192,7 @@ export class UserService {
           throw new ConflictError("This person has not accepted their invitation yet: send it again or cancel it instead.");
         }
       }
-      const stopsBeingAdmin =
-        user.role === "admin" && user.status === "active" && (role !== undefined || status === "disabled");
+      const stopsBeingAdmin = user.role === "admin" && user.status === "active" && (role !== undefined || status === "disabled");
       if (stopsBeingAdmin) {
         const admins = await repo.find({
           where: { organisationId: actor.organisationId, role: "admin", status: "active" },
@@ -229,7 +232,14 @@ export class UserService {
   /** Writes one line of an account's history, in the caller's transaction. */
   async recordAudit(
     m: EntityManager,
-    e: { organisationId: number; actorId: number; targetId: number; action: UserAuditAction; from?: string | null; to?: string | null },
+    e: {
+      organisationId: number;
+      actorId: number;
+      targetId: number;
+      action: UserAuditAction;
+      from?: string | null;
+      to?: string | null;
+    },
   ): Promise<void> {
     await m.getRepository(UserAuditEntry).insert({
       organisationId: e.organisationId,

@@ -176,8 +176,8 @@ export function UserDetail({ user, currentUserId, onClose, onChanged }: UserDeta
               ) : null}
               {pending.role !== user.role ? (
                 <li>
-                  Role: {roleLabels[user.role]} → {roleLabels[pending.role]}. What they can see and do changes the next time
-                  they open a page.
+                  Role: {roleLabels[user.role]} → {roleLabels[pending.role]}. What they can see and do changes the next time they
+                  open a page.
                 </li>
               ) : null}
             </ul>
@@ -188,11 +188,7 @@ export function UserDetail({ user, currentUserId, onClose, onChanged }: UserDeta
           title: `Send ${user.name}'s invitation again?`,
           confirmLabel: "Send it again",
           tone: "primary" as const,
-          body: (
-            <p>
-              A new e-mail goes to {user.email} with a new link. The link in the earlier e-mail stops working.
-            </p>
-          ),
+          body: <p>A new e-mail goes to {user.email} with a new link. The link in the earlier e-mail stops working.</p>,
         };
       case "cancel":
         return {
@@ -202,8 +198,8 @@ export function UserDetail({ user, currentUserId, onClose, onChanged }: UserDeta
           tone: "danger" as const,
           body: (
             <p>
-              The link in their e-mail stops working and no account is opened for {user.email}. You can invite them again
-              later with the form on this page.
+              The link in their e-mail stops working and no account is opened for {user.email}. You can invite them again later
+              with the form on this page.
             </p>
           ),
         };
@@ -215,8 +211,8 @@ export function UserDetail({ user, currentUserId, onClose, onChanged }: UserDeta
               tone: "danger" as const,
               body: (
                 <p>
-                  {user.name} ({user.email}) is signed out at once and cannot sign in until you enable the account again.
-                  Nothing they have recorded is deleted.
+                  {user.name} ({user.email}) is signed out at once and cannot sign in until you enable the account again. Nothing
+                  they have recorded is deleted.
                 </p>
               ),
             }
@@ -257,13 +253,7 @@ export function UserDetail({ user, currentUserId, onClose, onChanged }: UserDeta
         <p>This invitation was cancelled. To give them an account, invite them again with the form on this page.</p>
       ) : (
         <Section title="Name and role">
-          <Input
-            label="Name"
-            autoComplete="off"
-            value={name}
-            error={nameError}
-            onChange={(e) => setName(e.target.value)}
-          />
+          <Input label="Name" autoComplete="off" value={name} error={nameError} onChange={(e) => setName(e.target.value)} />
           {staff ? (
             <Select
               label="Role"
