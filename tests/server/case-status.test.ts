@@ -32,7 +32,9 @@ describe("status changes", () => {
       "monitoring",
       "closed",
     ]) {
-      const res = await officer.patch(`/api/cases/${c.id}`, { status, reason: `Moved by hand to ${status} for this test.` }).expect(200);
+      const res = await officer
+        .patch(`/api/cases/${c.id}`, { status, reason: `Moved by hand to ${status} for this test.` })
+        .expect(200);
       expect(res.body.status).toBe(status);
     }
     const events = (await tenant.get(`/api/cases/${c.id}/events`)).body.events.filter(

@@ -84,7 +84,14 @@ export const mailTemplates = {
     };
   },
   /** To the case's assignee (or the officers when nobody is assigned): the tenant says it has got worse. */
-  caseWorse(d: { name: string; reference: string; address: string; note: string; reopened: boolean; link: string }): RenderedMail {
+  caseWorse(d: {
+    name: string;
+    reference: string;
+    address: string;
+    note: string;
+    reopened: boolean;
+    link: string;
+  }): RenderedMail {
     return {
       subject: `Got worse: ${d.reference}, ${d.address}`,
       text: [

@@ -59,7 +59,12 @@ export function createTriageRouter({
     res.json(
       shaped(bulkPreviewResponse, {
         common: movesValidForAll(found.map((c) => c.status)),
-        cases: found.map((c) => ({ id: c.id, reference: c.reference, status: c.status, allowed: [...CASE_TRANSITIONS[c.status]] })),
+        cases: found.map((c) => ({
+          id: c.id,
+          reference: c.reference,
+          status: c.status,
+          allowed: [...CASE_TRANSITIONS[c.status]],
+        })),
         skipped: status
           ? found
               .filter((c) => !canTransition(c.status, status))

@@ -341,7 +341,8 @@ export function triagePriority(input: TriageInput): TriagePriority {
       factor: "emergency-overdue",
       points: lift,
       max: lift,
-      explanation: "This is an emergency hazard and its deadline has passed, so it goes to the top of the queue whatever else it scores.",
+      explanation:
+        "This is an emergency hazard and its deadline has passed, so it goes to the top of the queue whatever else it scores.",
     });
     return { score: MAX_TRIAGE_SCORE, parts };
   }
