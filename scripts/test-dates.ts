@@ -82,6 +82,8 @@ const DATE_SENSITIVE = [
   "tests/server/reading-import.test.ts",
   "tests/server/invitations.test.ts",
   "tests/server/seed.test.ts",
+  "tests/server/escalation.test.ts",
+  "tests/server/status-follows-work.test.ts",
 ];
 
 interface JsonReport {

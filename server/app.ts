@@ -96,7 +96,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     requireAuth,
     createTriageRouter({ cases: services.cases, queue: services.queue, triage: services.triage, clock }),
   );
-  api.use("/cases", createCasesRouter({ cases: services.cases }));
+  api.use("/cases", createCasesRouter({ cases: services.cases, figures: services.triage }));
   api.use("/cases", createCasePhotosRouter({ cases: services.cases, photos: services.photos }));
   api.use(
     "/cases",

@@ -3,7 +3,8 @@ import userEvent from "@testing-library/user-event";
 import { beforeEach, describe, expect, it } from "vitest";
 import { evaluatePoint, evaluateSeries } from "@/lib/domain";
 import { clearCsrfToken } from "@/lib/api-client";
-import { mockApi, users, type MockReply, type RecordedCall } from "./support/api-mock";
+import { worseResponse } from "@/lib/contracts";
+import { mockApi, mockReply, users, type MockReply, type RecordedCall } from "./support/api-mock";
 import { renderApp } from "./support/render-app";
 
 const homeRooms = [
@@ -258,7 +259,9 @@ describe("case page", () => {
   });
 
   it("sends “It's got worse” with a note and refreshes the timeline", async () => {
-    const { callsTo } = caseApi({ "POST /api/cases/42/worse": { status: 204 } });
+    const { callsTo } = caseApi({
+      "POST /api/cases/42/worse": { body: mockReply(worseResponse, { status: "triaged", reopened: true, told: "officers" }) },
+    });
     await openCase();
     await screen.findAllByText("You sent this report.");
     const user = userEvent.setup();
@@ -273,9 +276,50 @@ describe("case page", () => {
     await user.click(within(dialog).getByRole("button", { name: "Send to my landlord" }));
 
     expect(await screen.findByText("Thank you, your landlord has been told")).toBeInTheDocument();
+    expect(screen.getByText(/Your report has been reopened/)).toBeInTheDocument();
     expect(callsTo("POST", "/api/cases/42/worse")[0]!.body).toEqual({ note: "The mould has spread to the wardrobe." });
     await waitFor(() => expect(callsTo("GET", "/api/cases/42/events").length).toBeGreaterThanOrEqual(2));
     expect(open).toHaveFocus();
+  });
+
+  it("says “Inspected” once the home has been looked at, not “Sent”", async () => {
+    caseApi({ "GET /api/cases/42": { body: { ...theCase, status: "investigated" } } });
+    await openCase();
+    expect(await screen.findByText("Inspected")).toBeInTheDocument();
+    expect(screen.queryByText("Sent")).not.toBeInTheDocument();
+  });
+
+  it("says the findings have been sent once the written summary has gone", async () => {
+    const summary = {
+      id: 8,
+      type: "summary-sent",
+      at: "2026-01-14T10:00:00.000Z",
+      actor: officer,
+      before: null,
+      after: { summaryId: 1, body: "We found condensation mould." },
+      email: null,
+    };
+    caseApi({
+      "GET /api/cases/42": { body: { ...theCase, status: "investigated" } },
+      "GET /api/cases/42/events": { body: { events: [...events, summary] } },
+    });
+    await openCase();
+    expect(await screen.findByText("Findings sent to you")).toBeInTheDocument();
+    expect(screen.getByText(/has written to you about what was found/)).toBeInTheDocument();
+  });
+
+  it("does not say the landlord was told when nobody could be e-mailed", async () => {
+    caseApi({
+      "POST /api/cases/42/worse": { body: mockReply(worseResponse, { status: "triaged", reopened: false, told: "nobody" }) },
+    });
+    await openCase();
+    const user = userEvent.setup();
+    await user.click(await screen.findByRole("button", { name: "It's got worse" }));
+    const dialog = await screen.findByRole("dialog", { name: "Tell your landlord it has got worse" });
+    await user.type(within(dialog).getByLabelText("What has changed?"), "Now on the ceiling too.");
+    await user.click(within(dialog).getByRole("button", { name: "Send to my landlord" }));
+    expect(await screen.findByText("Thank you, this is now part of your report")).toBeInTheDocument();
+    expect(screen.queryByText("Thank you, your landlord has been told")).not.toBeInTheDocument();
   });
 
   it("adds a reading by hand from the case page and works out the readings again", async () => {

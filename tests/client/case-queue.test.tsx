@@ -297,17 +297,51 @@ describe("Case queue", () => {
     const dialog = await screen.findByRole("dialog", { name: "Change the status of 3 cases?" });
     await user.selectOptions(within(dialog).getByRole("combobox", { name: "New status" }), "Cancelled");
     expect(dialog).toHaveTextContent("3 cases will move to Cancelled.");
-    await user.click(within(dialog).getByRole("button", { name: "Move to Cancelled" }));
+    await user.click(within(dialog).getByRole("button", { name: "Move 3 cases to Cancelled" }));
     expect(within(dialog).getByText("Give a short reason (at least 3 characters).")).toBeInTheDocument();
     expect(callsTo("POST", "/api/cases/bulk")).toHaveLength(0);
 
     await user.type(within(dialog).getByRole("textbox", { name: "Reason" }), "Reported twice by the same household");
-    await user.click(within(dialog).getByRole("button", { name: "Move to Cancelled" }));
+    await user.click(within(dialog).getByRole("button", { name: "Move 3 cases to Cancelled" }));
     expect(await screen.findByText("3 cases updated")).toBeInTheDocument();
     expect(callsTo("POST", "/api/cases/bulk")[0]!.body).toEqual({
       ids: [1, 2, 3],
       status: "cancelled",
       reason: "Reported twice by the same household",
+    });
+  });
+
+  it("offers moves valid for every selected case apart, and names the cases a move would skip before confirming", async () => {
+    const { callsTo } = setup("/queue", {
+      "GET /api/cases": (call) =>
+        page(call, [makeItem(1), makeItem(2, { status: "triaged" }), makeItem(3, { status: "closed" })]),
+      "POST /api/cases/bulk": (call) => ({ body: { updated: (call.body as { ids: number[] }).ids.slice(0, 2), failed: [] } }),
+    });
+    const table = await screen.findByRole("table", { name: "Case queue" });
+    await waitFor(() => expect(rowsOf(table)).toHaveLength(3));
+    const user = userEvent.setup();
+    await user.click(within(table).getByRole("checkbox", { name: "Select every case on this page" }));
+    await user.click(screen.getByRole("button", { name: "Change status…" }));
+    const dialog = await screen.findByRole("dialog", { name: "Change the status of 3 cases?" });
+    const select = within(dialog).getByRole("combobox", { name: "New status" });
+    // No move is valid for new, triaged and closed at once: each is offered with how many can make it.
+    expect(within(select).queryByRole("group", { name: "Every selected case can move to" })).not.toBeInTheDocument();
+    const some = within(select).getByRole("group", { name: "Only some can (the others are skipped)" });
+    expect(
+      within(some)
+        .getAllByRole("option")
+        .map((o) => o.textContent),
+    ).toEqual(["Triaged (2 of 3)", "Inspection booked (1 of 3)", "Investigated (1 of 3)", "Cancelled (2 of 3)"]);
+    await user.selectOptions(select, "Triaged (2 of 3)");
+    expect(dialog).toHaveTextContent("2 cases will move to Triaged.");
+    expect(within(dialog).getByText("1 case will be skipped")).toBeInTheDocument();
+    expect(dialog).toHaveTextContent("DW-2026-00002 (Triaged)");
+    await user.type(within(dialog).getByRole("textbox", { name: "Reason" }), "Checked with each tenant by phone");
+    await user.click(within(dialog).getByRole("button", { name: "Move 2 cases to Triaged" }));
+    expect(await screen.findByText("2 cases updated")).toBeInTheDocument();
+    expect(callsTo("POST", "/api/cases/bulk")[0]!.body).toMatchObject({
+      status: "triaged",
+      reason: "Checked with each tenant by phone",
     });
   });
 

@@ -343,9 +343,17 @@ describe("case workspace", () => {
     const actions = region("Actions");
     const user = userEvent.setup();
     await user.selectOptions(within(actions).getByLabelText(/^Move to/), "inspection-booked");
+    // A move by hand is an exception: it needs a reason.
+    await user.click(within(actions).getByRole("button", { name: "Change status" }));
+    expect(within(actions).getByText("Say why you are changing the status by hand.")).toBeInTheDocument();
+    expect(callsTo("PATCH", "/api/cases/42")).toHaveLength(0);
+    await user.type(within(actions).getByLabelText("Reason"), "Visit arranged by phone with the tenant.");
     await user.click(within(actions).getByRole("button", { name: "Change status" }));
     expect(await within(actions).findByText("The status is now “Inspection booked”.")).toBeInTheDocument();
-    expect(callsTo("PATCH", "/api/cases/42")[0]!.body).toEqual({ status: "inspection-booked" });
+    expect(callsTo("PATCH", "/api/cases/42")[0]!.body).toEqual({
+      status: "inspection-booked",
+      reason: "Visit arranged by phone with the tenant.",
+    });
     await waitFor(() => {
       expect(callsTo("GET", "/api/cases/42/deadlines").length).toBeGreaterThanOrEqual(2);
       expect(callsTo("GET", "/api/cases/42/triage").length).toBeGreaterThanOrEqual(2);

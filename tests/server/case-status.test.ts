@@ -32,7 +32,9 @@ describe("status changes", () => {
       "monitoring",
       "closed",
     ]) {
-      const res = await officer.patch(`/api/cases/${c.id}`, { status }).expect(200);
+      const res = await officer
+        .patch(`/api/cases/${c.id}`, { status, reason: `Moved by hand to ${status} for this test.` })
+        .expect(200);
       expect(res.body.status).toBe(status);
     }
     const events = (await tenant.get(`/api/cases/${c.id}/events`)).body.events.filter(
@@ -49,7 +51,7 @@ describe("status changes", () => {
       "works-done→monitoring",
       "monitoring→closed",
     ]);
-    // Reopening needs a reason.
+    // Reopening needs a reason (as does every move made by hand).
     await officer.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(400);
     await officer.patch(`/api/cases/${c.id}`, { status: "triaged", reason: "The tenant reports the mould is back." }).expect(200);
   });
@@ -95,19 +97,19 @@ describe("assignee and hazard class", () => {
     expect(events.at(-1)).toMatchObject({ type: "hazard-classified", after: { hazardClass: "significant" } });
     await officer.patch(`/api/cases/${c.id}`, { hazardClass: "urgent", reason: "x x x" }).expect(400);
     await officer.patch(`/api/cases/${c.id}`, {}).expect(400);
-    await officer.patch(`/api/cases/${c.id}`, { status: "triaged", colour: "red" }).expect(400);
+    await officer.patch(`/api/cases/${c.id}`, { status: "triaged", reason: "x x x", colour: "red" }).expect(400);
   });
 });
 
 describe("who may change a case", () => {
   it("refuses tenants and maintenance with 403 and other landlords with 404", async () => {
     const c = await newCase();
-    await tenant.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(403);
+    await tenant.patch(`/api/cases/${c.id}`, { status: "triaged", reason: "Not allowed." }).expect(403);
     const maintenance = await signedInClient(t.app, landlord.maintenance.email, PASSWORD);
-    await maintenance.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(403);
+    await maintenance.patch(`/api/cases/${c.id}`, { status: "triaged", reason: "Not allowed." }).expect(403);
     const other = await makeLandlord(t.ctx.dataSource);
     const outsider = await signedInClient(t.app, other.officer.email, PASSWORD);
-    await outsider.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(404);
+    await outsider.patch(`/api/cases/${c.id}`, { status: "triaged", reason: "Not allowed." }).expect(404);
     expect((await t.ctx.dataSource.getRepository(Case).findOneByOrFail({ id: c.id })).status).toBe("new");
   });
 });

@@ -67,12 +67,16 @@ describe("a tenant reports", () => {
     const alert = await t.mail.lastTo(landlord.officer.email);
     expect(alert.subject).toContain(res.body.reference);
     expect(alert.raw).toMatch(/children under 15/);
-    await tenant.post(`/api/cases/${res.body.id}/worse`, { note: "Spreading behind the cot." }).expect(204);
-    // Once: the outbox (written in the request's transaction) holds one alert to this officer about this case.
+    await tenant.post(`/api/cases/${res.body.id}/worse`, { note: "Spreading behind the cot." }).expect(200);
+    // Once: the outbox (written in the request's transaction) holds one alert to this officer about this case;
+    // "it's got worse" is an e-mail of its own (tests/server/escalation.test.ts).
     expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "caseAlert", caseId: res.body.id })).toBe(
       1,
     );
-    expect(t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length).toBe(before + 1);
+    expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "caseWorse", caseId: res.body.id })).toBe(
+      1,
+    );
+    expect(t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length).toBe(before + 2);
     const row = await t.ctx.dataSource.getRepository(Case).findOneByOrFail({ id: res.body.id });
     expect(row.vulnerableHousehold).toBe(true);
     // An empty list means "none of these", which is different from skipping the question.

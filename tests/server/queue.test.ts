@@ -372,14 +372,16 @@ describe("bulk changes", () => {
   });
 
   it("changes status where the workflow allows and reports the cases it refused, with the reason", async () => {
-    const res = (await officer.post("/api/cases/bulk", { ids: [ids.B, ids.D], status: "triaged" }).expect(200)).body;
-    expect(res.updated).toEqual([ids.B]);
-    // Reopening a cancelled case needs a reason.
-    expect(res.failed).toEqual([
-      { id: ids.D, reference: expect.stringMatching(/^DW-/), message: expect.stringMatching(/reason/) },
+    // A status changed by hand says why: without a reason the whole request is refused.
+    const unexplained = (await officer.post("/api/cases/bulk", { ids: [ids.B, ids.D], status: "triaged" }).expect(400)).body;
+    expect(unexplained.error.details[0].field).toBe("reason");
+    const reason = "Read on the morning round.";
+    const res = (await officer.post("/api/cases/bulk", { ids: [ids.B], status: "triaged", reason }).expect(200)).body;
+    expect(res).toEqual({ updated: [ids.B], failed: [] });
+    const refused = (await officer.post("/api/cases/bulk", { ids: [ids.C], status: "closed", reason }).expect(200)).body;
+    expect(refused.failed).toEqual([
+      { id: ids.C, reference: expect.stringMatching(/^DW-/), message: expect.stringMatching(/new cannot move to closed/) },
     ]);
-    const refused = (await officer.post("/api/cases/bulk", { ids: [ids.C], status: "closed" }).expect(200)).body;
-    expect(refused.failed[0].message).toMatch(/new cannot move to closed/);
     const items = byKey((await all()).items);
     expect(items.B.status).toBe("triaged");
     expect(items.C.status).toBe("new");

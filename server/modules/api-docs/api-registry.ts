@@ -18,7 +18,7 @@ import { inspectionSchema, messageSchema, summarySchema } from "../inspections/i
 import { deadlinePolicySchema } from "../policy/policy.schemas.js";
 import { propertyListQuerySchema } from "../properties/properties.schemas.js";
 import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
-import { bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
+import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
 import {
   bookingResponseSchema,
@@ -45,6 +45,7 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "POST /api/auth/password-reset/confirm": { body: passwordResetSchema },
   "GET /api/cases": { query: queueQuerySchema },
   "POST /api/cases/bulk": { body: bulkUpdateSchema },
+  "POST /api/cases/bulk/preview": { body: bulkPreviewSchema },
   "POST /api/cases": { body: [caseReportSchema, staffCaseSchema] },
   "PATCH /api/cases/:id": { body: casePatchSchema },
   "POST /api/cases/:id/worse": { body: worseSchema },

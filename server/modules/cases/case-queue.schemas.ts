@@ -117,5 +117,21 @@ export const bulkUpdateSchema = z
     reason: z.string().trim().min(3, "Give a short reason.").max(2000).optional(),
   })
   .strict()
-  .refine((b) => b.status !== undefined || b.assigneeId !== undefined, { message: "Send status or assigneeId (or both)." });
+  .refine((b) => b.status !== undefined || b.assigneeId !== undefined, { message: "Send status or assigneeId (or both)." })
+  // A status changed by hand is an exception and says why (as PATCH /api/cases/:id).
+  .refine((b) => b.status === undefined || b.reason !== undefined, {
+    path: ["reason"],
+    message: "Say why the status is being changed by hand.",
+  });
 export type BulkUpdate = z.infer<typeof bulkUpdateSchema>;
+
+/** POST /api/cases/bulk/preview: the chosen cases, and optionally the status a change would move them to. */
+export const bulkPreviewSchema = z
+  .object({
+    ids: z
+      .array(z.number().int().positive(), { error: "ids must be a list of case ids." })
+      .min(1, "Choose at least one case.")
+      .max(200, "Change at most 200 cases at once."),
+    status: z.enum(CASE_STATUSES, { error: `status must be one of ${CASE_STATUSES.join(", ")}.` }).optional(),
+  })
+  .strict();

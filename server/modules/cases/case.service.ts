@@ -5,6 +5,7 @@ import {
   CASE_TRANSITIONS,
   OPEN_CASE_STATUSES,
   canTransition,
+  stepsForward,
   transitionNeedsReason,
   type CaseStatus,
 } from "../../../src/lib/domain/case-workflow.js";
@@ -47,6 +48,16 @@ const VULNERABILITY_WORDS: Record<string, string> = {
 /** "The household includes children under 15, someone over 65." for officers' and operatives' eyes. */
 export const householdIncludes = (vulnerability: readonly string[]) =>
   `The household includes ${vulnerability.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`;
+
+/** Statuses a tenant's "it's got worse" reopens (back to triage). */
+export const REOPENED_WHEN_WORSE: readonly CaseStatus[] = ["closed", "cancelled", "monitoring"];
+
+/** What "it's got worse" did: where the case is now, whether it was reopened, and who was e-mailed. */
+export interface WorseOutcome {
+  status: CaseStatus;
+  reopened: boolean;
+  told: "assignee" | "officers" | "nobody";
+}
 
 /** The triage figures stored on a case for the queue, worked out by TriageService. */
 export type TriageFigures = Pick<
@@ -165,6 +176,31 @@ export class CaseService {
     return { from, status: to, moved: true };
   }
 
+  /**
+   * The case follows its work: walks forward along the main path to `to`, one allowed move at a
+   * time, each written as its own status change with `reason` (an inspection recorded on a new case
+   * ends investigated, via triaged). With `orBack`, a move that is not forward (back to
+   * investigated after a failed fix) is made directly when the workflow allows it; otherwise, and
+   * always without `orBack`, the case stays where it is.
+   */
+  async follow(
+    m: EntityManager,
+    caseId: number,
+    to: CaseStatus,
+    reason: string,
+    actor: Pick<Actor, "id"> | null,
+    options: { orBack?: boolean } = {},
+  ): Promise<{ from: CaseStatus; status: CaseStatus; moved: boolean }> {
+    const from = (await this.lockRow(m, caseId)).status;
+    const steps = stepsForward(from, to);
+    if (!steps) {
+      if (options.orBack) return this.transition(m, caseId, to, reason, actor, { ifAllowed: true });
+      return { from, status: from, moved: false };
+    }
+    for (const step of steps) await this.transition(m, caseId, step, reason, actor, { ifAllowed: true });
+    return { from, status: steps.length ? to : from, moved: steps.length > 0 };
+  }
+
   /** The case row, locked for the rest of the caller's transaction. */
   async lockRow(m: EntityManager, caseId: number): Promise<Case> {
     return m.getRepository(Case).findOneOrFail({ where: { id: caseId }, lock: { mode: "pessimistic_write" } });
@@ -201,6 +237,7 @@ export class CaseService {
         organisationId: true,
         reference: true,
         assigneeUserId: true,
+        hazardClass: true,
         nextStage: true,
         nextDueAt: true,
         property: { id: true, addressLine1: true, town: true, postcode: true },
@@ -508,14 +545,51 @@ export class CaseService {
     return row && event ? { ...event, actorUserId: row.actorUserId, createdAt: row.createdAt } : null;
   }
 
-  /** "It's got worse": recorded on the timeline, and officers are told if they have not been yet. */
-  async reportWorse(actor: Actor, id: number, note: string): Promise<void> {
-    const deliveries = await this.dataSource.transaction(async (m) => {
-      const c = await this.getForActor(actor, id, m);
+  /**
+   * "It's got worse", in the tenant's own words (`note`, required):
+   * - recorded on the timeline (which marks the triage figures stale; the route re-scores at once,
+   *   and the recent worsening itself adds to the priority, src/lib/domain/triage-priority.ts);
+   * - a closed, cancelled or monitored case is reopened (back to triage) with the tenant's words as
+   *   the reason, so it is back in the officers' queue;
+   * - the assignee is e-mailed, or every active officer when nobody is assigned (or the assignee
+   *   can no longer sign in).
+   * Returns what happened, so the tenant is told only what is true.
+   */
+  async reportWorse(actor: Actor, id: number, note: string): Promise<WorseOutcome> {
+    const { outcome, deliveries } = await this.dataSource.transaction(async (m) => {
+      const property = (await this.getForActor(actor, id, m)).property!;
+      const c = await this.lockRow(m, id);
       await this.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "tenant-got-worse", after: { note } });
-      return this.alertOfficers(m, c, c.property!, [`The tenant says it has got worse: "${note}"`]);
+      const reason = `The tenant says it has got worse: "${note}"`;
+      const reopened = REOPENED_WHEN_WORSE.includes(c.status)
+        ? (await this.transition(m, c.id, "triaged", reason, actor, { ifAllowed: true })).moved
+        : false;
+      const assignee =
+        c.assigneeUserId === null ? null : await this.users.findStaff(c.organisationId, c.assigneeUserId, undefined, m);
+      const recipients = assignee ? [assignee] : await this.users.activeStaffOf(c.organisationId, ["officer"], m);
+      const deliveries: (() => Promise<unknown>)[] = [];
+      for (const person of recipients) {
+        deliveries.push(
+          await this.queueMail(m, c, {
+            to: person.email,
+            template: "caseWorse",
+            data: {
+              name: person.name,
+              reference: c.reference!,
+              address: addressOf(property),
+              note,
+              reopened,
+              link: `${this.config.appUrl}/cases/${c.id}`,
+            },
+          }),
+        );
+      }
+      const status = (await this.lockRow(m, c.id)).status;
+      const told: WorseOutcome["told"] = assignee ? "assignee" : recipients.length ? "officers" : "nobody";
+      return { outcome: { status, reopened, told }, deliveries };
     });
     for (const d of deliveries) await d();
+    return outcome;
   }
 
   /**

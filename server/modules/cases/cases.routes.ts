@@ -1,5 +1,5 @@
 import { Router } from "express";
-import { caseEventsResponse, myCasesResponse } from "../../../src/lib/contracts/cases.js";
+import { caseEventsResponse, myCasesResponse, worseResponse } from "../../../src/lib/contracts/cases.js";
 import { shaped } from "../../lib/contract.js";
 import { caseReportSchema, staffCaseSchema } from "../../../src/lib/schemas/case-report.js";
 import { parse } from "../../lib/validation.js";
@@ -15,8 +15,13 @@ export interface CasePhotoSummaries {
   summaries(caseIds: number[]): Promise<Map<number, { count: number; firstId: number }>>;
 }
 
+/** Works a case's triage figures out again at once (the triage module provides it; cases depend on no triage code). */
+export interface CaseFiguresRefresher {
+  refresh(caseId: number): Promise<unknown>;
+}
+
 /** The case itself; its photos' routes are in photos.routes.ts (createCasePhotosRouter). */
-export function createCasesRouter({ cases }: { cases: CaseService }): Router {
+export function createCasesRouter({ cases, figures }: { cases: CaseService; figures: CaseFiguresRefresher }): Router {
   const router = Router();
   router.use(requireAuth);
 
@@ -46,8 +51,10 @@ export function createCasesRouter({ cases }: { cases: CaseService }): Router {
   router.post("/:id/worse", requireRole("tenant"), async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
     const { note } = parse(worseSchema, req.body);
-    await cases.reportWorse(actorOf(req), id, note);
-    res.status(204).end();
+    const outcome = await cases.reportWorse(actorOf(req), id, note);
+    // Re-scored now, not at the next sweep: the queue shows the raised priority straight away.
+    await figures.refresh(id);
+    res.json(shaped(worseResponse, outcome));
   });
 
   return router;

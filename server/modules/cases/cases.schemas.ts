@@ -1,5 +1,10 @@
 import { z } from "zod";
 
+/**
+ * "It's got worse": the tenant's own words are required (`note`). They are the reason the case is
+ * reopened and what the assignee or the officers read in their e-mail; without them it is a 400
+ * naming `note`.
+ */
 export const worseSchema = z.object({
   note: z.string({ error: "Tell us briefly what has changed." }).trim().min(3, "Tell us briefly what has changed.").max(2000),
 });
@@ -21,5 +26,10 @@ export const casePatchSchema = z
   .refine((p) => p.hazardClass === undefined || p.reason !== undefined, {
     path: ["reason"],
     message: "Say why the hazard is classified this way.",
+  })
+  // The case follows its work by itself; a status changed by hand is an exception and says why.
+  .refine((p) => p.status === undefined || p.reason !== undefined, {
+    path: ["reason"],
+    message: "Say why the status is being changed by hand.",
   });
 export type CasePatch = z.infer<typeof casePatchSchema>;

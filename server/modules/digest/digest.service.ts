@@ -6,7 +6,9 @@
 //   the landlord's unassigned ones (nobody else will chase those). Officers with nothing due get
 //   no e-mail.
 // - Window: next_due_at at or before the end of the second working day after today (today is
-//   day 0, as in working-days.ts), overdue cases included. Overdue first, then by due time.
+//   day 0, as in working-days.ts), overdue cases included. An emergency hazard past its deadline
+//   first (as in the queue, src/lib/domain/triage-priority.ts), then the other overdue cases, then
+//   by due time.
 // - When: on working days only. At most one digest per officer per London calendar day: the
 //   `deadline_digests` row, unique on (user, day), is written in the same transaction as the outbox
 //   e-mail, and the e-mail is sent after the commit. A crash before the commit leaves nothing (the
@@ -165,8 +167,13 @@ export class DigestService {
     const nowMs = at.now.getTime();
     const items = cases
       .map((c) => ({ c, overdue: c.nextDueAt!.getTime() < nowMs }))
+      .map((item) => ({ ...item, emergency: item.overdue && item.c.hazardClass === "emergency" }))
       .sort(
-        (a, b) => Number(b.overdue) - Number(a.overdue) || a.c.nextDueAt!.getTime() - b.c.nextDueAt!.getTime() || a.c.id - b.c.id,
+        (a, b) =>
+          Number(b.emergency) - Number(a.emergency) ||
+          Number(b.overdue) - Number(a.overdue) ||
+          a.c.nextDueAt!.getTime() - b.c.nextDueAt!.getTime() ||
+          a.c.id - b.c.id,
       )
       .map(({ c, overdue }) => ({
         reference: c.reference ?? `Case ${c.id}`,

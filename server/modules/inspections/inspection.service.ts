@@ -21,7 +21,7 @@ export class InspectionService {
     private readonly clock: Clock,
   ) {}
 
-  /** Records an inspection; the case moves to `investigated` when the workflow allows it from where it is. */
+  /** Records an inspection; the case follows it forward to `investigated` (a new case via triaged), each step on its timeline. */
   async record(actor: Actor, caseId: number, input: InspectionInput): Promise<Inspection> {
     return this.dataSource.transaction(async (m) => {
       const c = await this.cases.getForActor(actor, caseId, m);
@@ -49,7 +49,7 @@ export class InspectionService {
           mouldExtent: input.mouldExtent,
         },
       });
-      await this.cases.transition(m, c.id, "investigated", "Inspection recorded.", actor, { ifAllowed: true });
+      await this.cases.follow(m, c.id, "investigated", "Inspection recorded.", actor, { orBack: true });
       return saved;
     });
   }
@@ -113,6 +113,8 @@ export class InspectionService {
         type: "summary-sent",
         after: { summaryId: saved.id, body, outboxId },
       });
+      // The summary closes the investigation: a case not yet investigated follows it there.
+      await this.cases.follow(m, c.id, "investigated", "Written summary sent to the tenant.", actor);
       return { saved, deliver };
     });
     await deliver();

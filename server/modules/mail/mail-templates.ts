@@ -107,6 +107,33 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
+  /** To the case's assignee (or the officers when nobody is assigned): the tenant says it has got worse. */
+  caseWorse(d: {
+    name: string;
+    reference: string;
+    address: string;
+    note: string;
+    reopened: boolean;
+    link: string;
+  }): RenderedMail {
+    return {
+      subject: `Got worse: ${d.reference}, ${d.address}`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `The tenant of ${d.address} says the damp or mould reported in ${d.reference} has got worse. In their words:`,
+        "",
+        d.note,
+        "",
+        d.reopened
+          ? "The case had been closed or was being monitored; it has been reopened and is back in the queue for triage."
+          : "The case's priority has been worked out again with this in mind.",
+        "",
+        "Open the case:",
+        d.link,
+      ].join("\n"),
+    };
+  },
   caseMessage(d: { name: string; reference: string; senderName: string; body: string; link: string }): RenderedMail {
     return {
       subject: `A message about your report ${d.reference}`,

@@ -1,7 +1,8 @@
 import { Router } from "express";
 import type { Clock } from "../../lib/clock.js";
 import { relatedCasesResponse } from "../../../src/lib/contracts/cases.js";
-import { bulkUpdateResponse, queuePageResponse, triageResponse } from "../../../src/lib/contracts/triage.js";
+import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageResponse } from "../../../src/lib/contracts/triage.js";
+import { CASE_TRANSITIONS, canTransition, movesValidForAll } from "../../../src/lib/domain/case-workflow.js";
 import { shaped } from "../../lib/contract.js";
 import { AppError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
@@ -9,7 +10,7 @@ import { actorOf, requireRole } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import { toQueueItemDto } from "./queue.mapper.js";
-import { bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
+import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import type { QueueService } from "../cases/case-queue.service.js";
 import type { TriageService } from "./triage.service.js";
 
@@ -39,6 +40,36 @@ export function createTriageRouter({
         total,
         page: query.page,
         pageSize: query.pageSize,
+      }),
+    );
+  });
+
+  // Before a bulk status change: the moves valid for every chosen case, and the cases a move would skip.
+  router.post("/bulk/preview", officers, async (req, res) => {
+    const { ids, status } = parse(bulkPreviewSchema, req.body);
+    const actor = actorOf(req);
+    const found = [];
+    for (const id of [...new Set(ids)]) {
+      const c = await cases.getForActor(actor, id).catch((error: unknown) => {
+        if (error instanceof AppError) return null;
+        throw error;
+      });
+      if (c) found.push(c);
+    }
+    res.json(
+      shaped(bulkPreviewResponse, {
+        common: movesValidForAll(found.map((c) => c.status)),
+        cases: found.map((c) => ({
+          id: c.id,
+          reference: c.reference,
+          status: c.status,
+          allowed: [...CASE_TRANSITIONS[c.status]],
+        })),
+        skipped: status
+          ? found
+              .filter((c) => !canTransition(c.status, status))
+              .map((c) => ({ id: c.id, reference: c.reference, status: c.status }))
+          : [],
       }),
     );
   });

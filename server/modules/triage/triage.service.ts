@@ -1,6 +1,7 @@
 import { computeDeadlines, type Deadline } from "../../../src/lib/domain/deadlines.js";
 import {
   hoursUntilDeadlinePartChanges,
+  TRIAGE_WEIGHTS,
   triagePriority,
   type TriagePriority,
   type TriageVulnerability,
@@ -61,7 +62,15 @@ export class TriageService {
     const seen = { triageDueAt: c.triageDueAt, updatedAt: c.updatedAt };
     const facts = await this.factsFor(c, now);
     const priority = triagePriority(facts.input);
-    const changesInHours = hoursUntilDeadlinePartChanges(facts.input.hoursUntilDeadline);
+    // The figures change with the clock alone when the deadline part steps, or when a tenant's
+    // "it's got worse" stops counting (TRIAGE_WEIGHTS.reportedWorse.withinHours after it).
+    const worseAge = facts.input.hoursSinceReportedWorse;
+    const worseWithin = TRIAGE_WEIGHTS.reportedWorse.withinHours;
+    const moments = [
+      hoursUntilDeadlinePartChanges(facts.input.hoursUntilDeadline),
+      worseAge !== null && worseAge <= worseWithin ? worseWithin - worseAge : null,
+    ].filter((h): h is number => h !== null);
+    const changesInHours = moments.length ? Math.min(...moments) : null;
     await this.cases.storeTriageFigures(c.id, seen, {
       riskState: facts.risk.state,
       mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
@@ -93,12 +102,13 @@ export class TriageService {
   }
 
   private async factsFor(c: Case, now: Date) {
-    const [policy, milestones, risk, latestAssessment, recurrence] = await Promise.all([
+    const [policy, milestones, risk, latestAssessment, recurrence, worse] = await Promise.all([
       this.policy.forOrganisation(c.organisationId),
       this.inspections.milestones(c.id),
       this.evaluation.riskOf(c),
       this.assessments.latest(c.id),
       this.cases.hasOtherCaseNear(c, YEAR_MS),
+      this.cases.latestEvent(c.id, "tenant-got-worse"),
     ]);
     const { source: _source, ...timeframes } = policy;
     const deadlines = computeDeadlines({
@@ -121,6 +131,8 @@ export class TriageService {
         hhsrsCategory: (latestAssessment?.category as 1 | 2 | undefined) ?? null,
         recurrence,
         hoursUntilDeadline: next ? (next.dueAt!.getTime() - now.getTime()) / HOUR_MS : null,
+        emergency: c.hazardClass === "emergency",
+        hoursSinceReportedWorse: worse ? Math.max(0, (now.getTime() - worse.createdAt.getTime()) / HOUR_MS) : null,
       },
     };
   }

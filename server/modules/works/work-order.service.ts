@@ -551,7 +551,7 @@ export class WorkOrderService {
 
   /** Moves the case along the workflow when it can and is not there yet (c.status is kept current). */
   async moveCase(m: EntityManager, actor: Actor, c: Case, to: Case["status"], reason: string): Promise<void> {
-    c.status = (await this.cases.transition(m, c.id, to, reason, actor, { ifAllowed: true })).status;
+    c.status = (await this.cases.follow(m, c.id, to, reason, actor, { orBack: true })).status;
   }
 
   /** Household notes and vulnerability in words, for the operative going to the home. */

@@ -6,7 +6,10 @@ export const statusLabels: Record<CaseStatus, { label: string; meaning: string }
   new: { label: "Sent", meaning: "Your landlord has your report and will look at it soon." },
   triaged: { label: "Being looked into", meaning: "Your landlord has read your report and is deciding what to do first." },
   "inspection-booked": { label: "Visit booked", meaning: "Someone is coming to look at the damp or mould in your home." },
-  investigated: { label: "Visited", meaning: "Your home has been looked at, and the cause is being worked out." },
+  investigated: {
+    label: "Inspected",
+    meaning: "Your home has been looked at. Your landlord will write to you about what was found and what happens next.",
+  },
   "works-planned": { label: "Repair planned", meaning: "Repair work has been planned." },
   "works-done": { label: "Repair done", meaning: "The repair work has been done." },
   monitoring: { label: "Checking it lasts", meaning: "Your landlord is checking that the problem stays fixed." },
@@ -26,6 +29,26 @@ export const staffStatusLabels: Record<CaseStatus, string> = {
   closed: "Closed",
   cancelled: "Cancelled",
 };
+
+/** Facts beyond the status that change what the tenant is told. */
+export interface TenantStageFacts {
+  /** The written summary of the inspection has been sent to the tenant. */
+  summarySent?: boolean;
+}
+
+/**
+ * The tenant's plain-words stage: the status, with the written summary told apart, so the words
+ * move with the work (inspected, then findings sent, then a repair planned).
+ */
+export function tenantStage(status: string, facts: TenantStageFacts = {}): { label: string; meaning?: string } {
+  if (status === "investigated" && facts.summarySent) {
+    return {
+      label: "Findings sent to you",
+      meaning: "Your landlord has written to you about what was found and what happens next. The letter is on this page too.",
+    };
+  }
+  return { label: statusLabel(status), meaning: statusMeaning(status) };
+}
 
 export type Audience = "tenant" | "staff";
 

@@ -98,3 +98,15 @@ export const relatedCase = z.object({
 });
 export type RelatedCase = z.infer<typeof relatedCase>;
 export const relatedCasesResponse = z.object({ cases: z.array(relatedCase) });
+
+/**
+ * POST /api/cases/:id/worse: what the tenant's "it's got worse" did. `told` says who was e-mailed
+ * (the assignee, else the landlord's officers; "nobody" when the landlord has no active officer),
+ * so the tenant is told only what is true.
+ */
+export const worseResponse = z.object({
+  status: z.enum(CASE_STATUSES),
+  reopened: z.boolean(),
+  told: z.enum(["assignee", "officers", "nobody"]),
+});
+export type WorseResponse = z.infer<typeof worseResponse>;

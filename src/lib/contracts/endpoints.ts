@@ -12,7 +12,7 @@ import {
   meResponse,
   passwordResetRequestedResponse,
 } from "./auth.js";
-import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse } from "./cases.js";
+import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse, worseResponse } from "./cases.js";
 import { okResponse } from "./common.js";
 import { evaluationResponse } from "./evaluation.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
@@ -22,7 +22,7 @@ import { policyResponse } from "./policy.js";
 import { estatesResponse, myHomeResponse, propertyPageResponse, propertyResponse } from "./properties.js";
 import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
-import { bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
+import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
 import { staffListResponse, userHistoryResponse, userPageResponse, userResponse } from "./users.js";
 import {
   caseWorkOrdersResponse,
@@ -117,6 +117,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
 
   e("GET", "/api/cases", STAFF, "The officers' queue", queuePageResponse),
   e("POST", "/api/cases/bulk", OFFICERS, "Assign or move many cases", bulkUpdateResponse),
+  e("POST", "/api/cases/bulk/preview", OFFICERS, "Which status moves are valid for the chosen cases", bulkPreviewResponse),
   e("GET", "/api/cases/:id/triage", STAFF, "A case's priority and how it was worked out", triageResponse),
   e("GET", "/api/cases/:id/related", STAFF, "Other cases of the same home", relatedCasesResponse),
   e(
@@ -130,7 +131,13 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/cases/:id", "signed-in", "A case", caseResponse),
   e("PATCH", "/api/cases/:id", OFFICERS, "Change a case's status, assignee or hazard class", caseResponse),
   e("GET", "/api/cases/:id/events", "signed-in", "A case's timeline", caseEventsResponse),
-  e("POST", "/api/cases/:id/worse", ["tenant"], "Tell the landlord it got worse", null, 204),
+  e(
+    "POST",
+    "/api/cases/:id/worse",
+    ["tenant"],
+    "Tell the landlord it got worse (body { note }, required): re-scores the case, e-mails the assignee or the officers, reopens a closed, cancelled or monitored case",
+    worseResponse,
+  ),
   e("GET", "/api/cases/:id/photos", "signed-in", "A case's photos", photoListResponse),
   e("POST", "/api/cases/:id/photos", "signed-in", "Add photos to a case", photoListResponse, 201, { multipart: true }),
   e("GET", "/api/cases/:id/readings", "signed-in", "A case's readings, newest first", readingsResponse),

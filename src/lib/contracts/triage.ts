@@ -48,6 +48,26 @@ export const bulkUpdateResponse = z.object({
 });
 export type BulkUpdateResponse = z.infer<typeof bulkUpdateResponse>;
 
+/**
+ * POST /api/cases/bulk/preview: for the chosen cases, the moves every one of them can make
+ * (`common`), and per case where it is and where it could go, so a bulk change offers only valid
+ * moves or names the cases it would skip before it is confirmed.
+ */
+export const bulkPreviewResponse = z.object({
+  common: z.array(z.enum(CASE_STATUSES)),
+  cases: z.array(
+    z.object({
+      id,
+      reference: z.string().nullable(),
+      status: z.enum(CASE_STATUSES),
+      allowed: z.array(z.enum(CASE_STATUSES)),
+    }),
+  ),
+  /** With `status` asked for: the cases that cannot make that move and would be skipped. */
+  skipped: z.array(z.object({ id, reference: z.string().nullable(), status: z.enum(CASE_STATUSES) })),
+});
+export type BulkPreviewResponse = z.infer<typeof bulkPreviewResponse>;
+
 /** GET /api/cases/:id/triage: the priority and how it was worked out. */
 export const triageResponse = z.object({
   score: z.number(),

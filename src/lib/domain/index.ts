@@ -77,7 +77,16 @@ export { HIGH_AIR_RH_PCT, MIN_OBSERVED_HOURS, diagnose } from "./diagnosis.js";
 export type { Diagnosis, DiagnosisFacts, DiagnosisKind } from "./diagnosis.js";
 export { elementsForReport, glazingElement, wallElement } from "./home-elements.js";
 export type { GlazingKind, WallKind } from "./home-elements.js";
-export { CASE_STATUSES, CASE_TRANSITIONS, canTransition, transitionNeedsReason } from "./case-workflow.js";
+export {
+  CASE_STATUSES,
+  CASE_TRANSITIONS,
+  MAIN_PATH,
+  MANUAL_MOVES_NEED_A_REASON,
+  canTransition,
+  movesValidForAll,
+  stepsForward,
+  transitionNeedsReason,
+} from "./case-workflow.js";
 export type { CaseStatus } from "./case-workflow.js";
 // working-days.ts and deadlines.ts are deliberately not re-exported here: they load the bank-holiday
 // data package (about 0.8 MB, not tree-shaken), which the browser does not need. Import them directly.
@@ -95,6 +104,7 @@ export {
 } from "./hhsrs.js";
 export type { AssessmentProblem, Band, BandRange, HarmClass, HhsrsAssessment, HhsrsResult } from "./hhsrs.js";
 export {
+  MAX_ORDINARY_TRIAGE_SCORE,
   MAX_TRIAGE_SCORE,
   TRIAGE_AREAS,
   TRIAGE_FACTORS,
@@ -102,6 +112,7 @@ export {
   TRIAGE_WEIGHTS,
   triagePriority,
   hoursUntilDeadlinePartChanges,
+  isOverdueEmergency,
 } from "./triage-priority.js";
 export type {
   TriageArea,

@@ -3,8 +3,14 @@
 // its score, and the statutory deadlines run whatever its score.
 //
 // The weights are our own choice (no standard sets them), all in TRIAGE_WEIGHTS. Principles:
-// - The factor maxima total exactly 100, so the parts always add up to the score and the cap at
-//   100 never has to cut anything.
+// - An emergency hazard past a deadline comes first (make-safe, or any later stage of an
+//   emergency case): it scores 100 whatever else is true, and nothing else can. The ordinary
+//   factor maxima total 99, so every other case scores at most 99; for an overdue emergency a
+//   last part, "emergency-overdue", makes up the difference to 100 (listed only when it applies).
+//   The parts always add up to the score, and the cap at 100 never has to cut anything. Before
+//   this rule an emergency 8 hours past its make-safe scored 46 and sat below a case due in 4 days.
+// - The tenant saying it has got worse raises the score at once, for 14 days (TRIAGE_WEIGHTS
+//   .reportedWorse): a worsening the readings or an inspection have not caught up with yet.
 // - An HHSRS Category 1 finding is the largest single factor: it is a legal finding that the
 //   hazard must be dealt with. Children under 15 are the HHSRS vulnerable group for damp and mould
 //   growth (TRADE.md §4), so they count among the most.
@@ -13,7 +19,8 @@
 //   "none of these", and a case not yet assessed like a Category 2 hazard, so an assessment can
 //   raise a case (Category 1) but never lower it.
 // - Every factor is monotone: a wetter state, a higher mould index, a larger area, another
-//   vulnerable group, Category 1, a recurrence or a nearer deadline never lowers the score.
+//   vulnerable group, Category 1, a recurrence, a nearer deadline or a recent "it's got worse"
+//   never lowers the score.
 import type { SurfaceState } from "./surface.js";
 import { isAbsent, requireFinite } from "./guards.js";
 import { MAX_MOULD_INDEX } from "./mould-index.js";
@@ -34,6 +41,8 @@ export const TRIAGE_FACTORS = [
   "hhsrs",
   "recurrence",
   "deadline",
+  "reported-worse",
+  "emergency-overdue",
 ] as const;
 export type TriageFactor = (typeof TRIAGE_FACTORS)[number];
 
@@ -52,6 +61,10 @@ export interface TriageInput {
   recurrence: boolean;
   /** Hours until the case's next deadline, negative when overdue; null when none is running. */
   hoursUntilDeadline: number | null;
+  /** The case is classified an emergency hazard (absent: not known to be one). */
+  emergency?: boolean;
+  /** Hours since the tenant last said it has got worse; null or absent when they have not. */
+  hoursSinceReportedWorse?: number | null;
 }
 
 export interface TriagePart {
@@ -71,7 +84,7 @@ export const TRIAGE_WEIGHTS = {
   surfaceState: { max: 18, condensing: 18, "mould-risk": 13, borderline: 6, unknown: 6, dry: 0 },
   /** One point per whole step of the mould index, up to 6. */
   mouldIndex: { max: 6, perWholeStep: 1, unknown: 0 },
-  affectedArea: { max: 12, larger: 12, door: 8, a4: 5, unknown: 5, hand: 2 },
+  affectedArea: { max: 10, larger: 10, door: 8, a4: 5, unknown: 5, hand: 2 },
   /** The highest group counts in full, each further group adds a little, up to the maximum. */
   vulnerability: {
     max: 20,
@@ -81,11 +94,11 @@ export const TRIAGE_WEIGHTS = {
     none: 0,
   },
   hhsrs: { max: 24, category1: 24, category2: 4, notAssessed: 4 },
-  recurrence: { max: 6, yes: 6, no: 0 },
+  recurrence: { max: 4, yes: 4, no: 0 },
   /** Steps by hours until the next deadline; a step applies up to and including its hours. */
   deadline: {
-    max: 14,
-    overdue: 14,
+    max: 12,
+    overdue: 12,
     steps: [
       { withinHours: 24, points: 11 },
       { withinHours: 72, points: 8 },
@@ -95,9 +108,13 @@ export const TRIAGE_WEIGHTS = {
     later: 0,
     none: 0,
   },
+  /** The tenant said it has got worse within the last `withinHours` (14 days). */
+  reportedWorse: { max: 5, recent: 5, withinHours: 336, none: 0 },
 } as const;
 
 export const MAX_TRIAGE_SCORE = 100;
+/** The highest score any case but an overdue emergency can reach (the TRIAGE_WEIGHTS maxima total). */
+export const MAX_ORDINARY_TRIAGE_SCORE = 99;
 
 const VULNERABILITY_WORDS: Record<TriageVulnerability, string> = {
   "children-under-15": "children under 15",
@@ -279,6 +296,33 @@ function listWords(words: string[]): string {
   return `${words.slice(0, -1).join(", ")} and ${words[words.length - 1]}`;
 }
 
+function reportedWorsePart(hours: number | null | undefined): TriagePart {
+  const w = TRIAGE_WEIGHTS.reportedWorse;
+  if (isAbsent(hours)) {
+    return { factor: "reported-worse", points: w.none, max: w.max, explanation: "The tenant has not said it has got worse." };
+  }
+  requireFinite(hours, "hours since the tenant said it got worse");
+  if (hours <= w.withinHours) {
+    return {
+      factor: "reported-worse",
+      points: w.recent,
+      max: w.max,
+      explanation: `The tenant said it has got worse ${hours < 24 ? "today or yesterday" : `${Math.floor(hours / 24)} days ago`}, which the readings may not show yet.`,
+    };
+  }
+  return {
+    factor: "reported-worse",
+    points: w.none,
+    max: w.max,
+    explanation: `The tenant last said it has got worse more than ${dueWithinWords(w.withinHours)} ago.`,
+  };
+}
+
+/** An emergency hazard whose next deadline has passed (make-safe, or a later stage). */
+export function isOverdueEmergency(input: Pick<TriageInput, "emergency" | "hoursUntilDeadline">): boolean {
+  return input.emergency === true && !isAbsent(input.hoursUntilDeadline) && input.hoursUntilDeadline < 0;
+}
+
 export function triagePriority(input: TriageInput): TriagePriority {
   const parts = [
     surfaceStatePart(input.surfaceState),
@@ -288,10 +332,22 @@ export function triagePriority(input: TriageInput): TriagePriority {
     hhsrsPart(input.hhsrsCategory),
     recurrencePart(input.recurrence),
     deadlinePart(input.hoursUntilDeadline),
+    reportedWorsePart(input.hoursSinceReportedWorse),
   ];
-  const total = parts.reduce((sum, part) => sum + part.points, 0);
-  // The maxima total 100, so this clamp is a guard that never cuts: parts always add up to the score.
-  return { score: Math.max(0, Math.min(MAX_TRIAGE_SCORE, total)), parts };
+  const ordinary = parts.reduce((sum, part) => sum + part.points, 0);
+  if (isOverdueEmergency(input)) {
+    const lift = MAX_TRIAGE_SCORE - ordinary;
+    parts.push({
+      factor: "emergency-overdue",
+      points: lift,
+      max: lift,
+      explanation:
+        "This is an emergency hazard and its deadline has passed, so it goes to the top of the queue whatever else it scores.",
+    });
+    return { score: MAX_TRIAGE_SCORE, parts };
+  }
+  // The ordinary maxima total 99, so this clamp is a guard that never cuts: parts always add up to the score.
+  return { score: Math.max(0, Math.min(MAX_ORDINARY_TRIAGE_SCORE, ordinary)), parts };
 }
 
 /**

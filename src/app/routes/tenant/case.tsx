@@ -21,7 +21,7 @@ import { LandlordMessages } from "@/features/cases/components/landlord-messages"
 import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
-import { statusMeaning } from "@/features/cases/labels";
+import { tenantStage } from "@/features/cases/labels";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
 import { AddPhotos } from "@/features/report/components/add-photos";
 import { AddReadings } from "@/features/report/components/add-readings";
@@ -83,6 +83,8 @@ function CaseView({ id }: { id: number }) {
     if (justSentFrom(location.state)) navigate(location.pathname, { replace: true, state: null });
   }, [location.state, location.pathname, navigate]);
   const kase = useCase(id);
+  // The tenant's stage moves with the work: the written summary shows once it has been sent.
+  const summarySent = useCaseEvents(id).data?.some((e) => e.type === "summary-sent") ?? false;
   const refresh = () => void queryClient.invalidateQueries({ queryKey: caseKeys.detail(id) });
 
   if (kase.isPending) return <LoadingState>Loading your report…</LoadingState>;
@@ -108,7 +110,7 @@ function CaseView({ id }: { id: number }) {
         title={title}
         description={
           <span className="flex flex-col gap-1">
-            <StatusBadge status={c.status} />
+            <StatusBadge status={c.status} facts={{ summarySent }} />
             <span>
               Sent on {formatDate(c.createdAt)}
               {c.property.addressLine1 ? ` · ${c.property.addressLine1}` : ""}
@@ -126,7 +128,7 @@ function CaseView({ id }: { id: number }) {
           </Alert>
         ) : null}
         <ReportFollowUp caseId={id} rooms={c.homeRooms} onChanged={refresh} />
-        <NextSteps c={c} onChanged={refresh} />
+        <NextSteps c={c} summarySent={summarySent} onChanged={refresh} />
         <TenantRepairs caseId={id} caseStatus={c.status} readingsHref="#case-next" />
         <EvaluationPanel id={id} />
         <MessagesPanel id={id} />
@@ -155,7 +157,7 @@ function CaseView({ id }: { id: number }) {
 
 type Action = "photos" | "readings" | null;
 
-function NextSteps({ c, onChanged }: { c: CaseDto; onChanged: () => void }) {
+function NextSteps({ c, summarySent, onChanged }: { c: CaseDto; summarySent: boolean; onChanged: () => void }) {
   const [open, setOpen] = useState<Action>(null);
   const actionRef = useRef<HTMLHeadingElement>(null);
   const photosButton = useRef<HTMLButtonElement>(null);
@@ -169,7 +171,7 @@ function NextSteps({ c, onChanged }: { c: CaseDto; onChanged: () => void }) {
     if (open) actionRef.current?.focus();
   }, [open]);
   const toggle = (action: Exclude<Action, null>) => setOpen((current) => (current === action ? null : action));
-  const meaning = statusMeaning(c.status);
+  const meaning = tenantStage(c.status, { summarySent }).meaning;
 
   return (
     <>

@@ -69,7 +69,9 @@ function StatusForm({ c, statusLabel }: { c: WorkspaceCase; statusLabel: (s: str
 
   const from = c.status;
   const allowed = isCaseStatus(from) ? CASE_TRANSITIONS[from] : [];
-  const needsReason = isCaseStatus(from) && isCaseStatus(to) && transitionNeedsReason(from, to);
+  // Cancelling and reopening always say why; so does every other move made by hand (the case
+  // follows its work by itself, so a hand move is an exception).
+  const reopensOrCancels = isCaseStatus(from) && isCaseStatus(to) && transitionNeedsReason(from, to);
 
   const send = () => {
     const trimmed = reason.trim();
@@ -92,9 +94,12 @@ function StatusForm({ c, statusLabel }: { c: WorkspaceCase; statusLabel: (s: str
     setDone(null);
     const found: typeof errors = {};
     if (!to) found.to = "Choose the status to move the case to.";
-    if (needsReason && reason.trim().length < 3)
-      found.reason = to === "cancelled" ? "Say why the case is being cancelled." : "Say why the case is being reopened.";
-    else if (reason.trim().length > 0 && reason.trim().length < 3) found.reason = "Give a short reason of a few words.";
+    if (reason.trim().length < 3)
+      found.reason = !reopensOrCancels
+        ? "Say why you are changing the status by hand."
+        : to === "cancelled"
+          ? "Say why the case is being cancelled."
+          : "Say why the case is being reopened.";
     setErrors(found);
     if (found.to) return toRef.current?.focus();
     if (found.reason) return reasonRef.current?.focus();
@@ -117,7 +122,7 @@ function StatusForm({ c, statusLabel }: { c: WorkspaceCase; statusLabel: (s: str
           <Select
             ref={toRef}
             label="Move to"
-            hint="Only the steps the workflow allows from the current status."
+            hint="The status moves by itself when an inspection, the written summary, booked or finished works, or the verdict on the fix is recorded. Change it here only for an exception."
             value={to}
             error={errors.to}
             onChange={(e) => {
@@ -137,13 +142,12 @@ function StatusForm({ c, statusLabel }: { c: WorkspaceCase; statusLabel: (s: str
           <Textarea
             ref={reasonRef}
             label="Reason"
-            optional={!needsReason}
             hint={
-              needsReason
-                ? to === "cancelled"
-                  ? "Needed when cancelling a case. Staff see it in the timeline."
-                  : "Needed when reopening a case. Staff see it in the timeline."
-                : "Staff see it in the timeline."
+              reopensOrCancels && to === "cancelled"
+                ? "Needed when cancelling a case. Staff see it in the timeline."
+                : reopensOrCancels
+                  ? "Needed when reopening a case. Staff see it in the timeline."
+                  : "Needed for every change made by hand. Staff see it in the timeline."
             }
             rows={2}
             maxLength={2000}

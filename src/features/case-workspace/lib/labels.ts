@@ -84,6 +84,8 @@ export const TRIAGE_FACTOR_LABELS: Record<string, string> = {
   hhsrs: "HHSRS assessment",
   recurrence: "Earlier report at this home",
   deadline: "Time to the next deadline",
+  "reported-worse": "Tenant says it got worse",
+  "emergency-overdue": "Emergency past its deadline",
 };
 
 export const triageFactorLabel = (factor: string): string => TRIAGE_FACTOR_LABELS[factor] ?? factor;

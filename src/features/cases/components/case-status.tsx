@@ -1,15 +1,18 @@
 import { cn } from "@/lib/cn";
-import { statusLabelFor, type Audience } from "../labels";
+import { statusLabelFor, tenantStage, type Audience, type TenantStageFacts } from "../labels";
 
 /** The status in words, in a quiet outline: words carry the meaning, not colour. */
 export function StatusBadge({
   status,
   className,
   audience = "tenant",
+  facts,
 }: {
   status: string;
   className?: string;
   audience?: Audience;
+  /** For the tenant: what else has happened (the written summary sent). */
+  facts?: TenantStageFacts;
 }) {
   return (
     <span
@@ -19,7 +22,7 @@ export function StatusBadge({
       )}
     >
       <span className="sr-only">Status: </span>
-      {statusLabelFor(audience)(status)}
+      {audience === "tenant" ? tenantStage(status, facts).label : statusLabelFor(audience)(status)}
     </span>
   );
 }

@@ -3,6 +3,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Textarea } from "@/components/ui/field";
 import { errorMessage } from "@/lib/api-client";
+import type { WorseResponse } from "@/lib/contracts";
 import { useReportWorse } from "../api/report-worse";
 import { Modal } from "./modal";
 
@@ -11,12 +12,30 @@ interface WorseButtonProps {
   onReported?: () => void;
 }
 
+/**
+ * What the tenant is told afterwards: only what happened. "Told" only when someone was e-mailed;
+ * "reopened" only when a finished or monitored report was reopened.
+ */
+function outcomeWords(outcome: WorseResponse): { title: string; body: string } {
+  const reopened = outcome.reopened ? " Your report has been reopened, so your landlord will look at it again." : "";
+  if (outcome.told === "nobody") {
+    return {
+      title: "Thank you, this is now part of your report",
+      body: `What you wrote is on your report for your landlord's team to see.${reopened}`,
+    };
+  }
+  return {
+    title: "Thank you, your landlord has been told",
+    body: `We have e-mailed ${outcome.told === "assignee" ? "the person looking after your report" : "your landlord's housing team"} with what you wrote.${reopened}`,
+  };
+}
+
 /** "It's got worse": a short note to the landlord, added to the timeline. */
 export function WorseButton({ caseId, onReported }: WorseButtonProps) {
   const [open, setOpen] = useState(false);
   const [note, setNote] = useState("");
   const [error, setError] = useState<string | undefined>();
-  const [done, setDone] = useState(false);
+  const [done, setDone] = useState<WorseResponse | null>(null);
   const noteRef = useRef<HTMLTextAreaElement>(null);
   const worse = useReportWorse(caseId);
 
@@ -34,9 +53,9 @@ export function WorseButton({ caseId, onReported }: WorseButtonProps) {
       return;
     }
     worse.mutate(note.trim(), {
-      onSuccess: () => {
+      onSuccess: (outcome) => {
         setNote("");
-        setDone(true);
+        setDone(outcome);
         setOpen(false);
         onReported?.();
       },
@@ -48,15 +67,15 @@ export function WorseButton({ caseId, onReported }: WorseButtonProps) {
       <Button
         variant="secondary"
         onClick={() => {
-          setDone(false);
+          setDone(null);
           setOpen(true);
         }}
       >
         It's got worse
       </Button>
       {done ? (
-        <Alert tone="success" title="Thank you, your landlord has been told" className="basis-full">
-          What you wrote is now part of your report.
+        <Alert tone="success" title={outcomeWords(done).title} className="basis-full">
+          {outcomeWords(done).body}
         </Alert>
       ) : null}
       <Modal

@@ -4,7 +4,7 @@ import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/dialog";
 import { Select, Textarea } from "@/components/ui/field";
 import { roleLabels, type Role } from "@/lib/roles";
-import { canTransition, transitionNeedsReason } from "@/lib/domain/case-workflow";
+import { canTransition, movesValidForAll } from "@/lib/domain/case-workflow";
 import { CASE_STATUSES, type CaseStatus } from "@/lib/schemas/case-report";
 import type { BulkUpdateResult, QueueItem, StaffMember } from "../api/types";
 import { casesCount } from "../lib/labels";
@@ -161,58 +161,95 @@ export function BulkStatusDialog({ open, items, statusLabel, busy, serverError, 
   const to = isStatus(target) ? target : null;
   const n = items.length;
   const from = (item: QueueItem) => (isStatus(item.status) ? item.status : null);
+  const froms = items.map(from).filter((s): s is CaseStatus => s !== null);
+  // Moves every selected case can make come first; a move only some can make is offered apart,
+  // and the cases it would skip are named before anything is confirmed.
+  const common = froms.length === n ? movesValidForAll(froms) : [];
+  const partial = CASE_STATUSES.filter((s) => !common.includes(s) && froms.some((f) => canTransition(f, s)));
   const movable = to ? items.filter((i) => from(i) !== null && canTransition(from(i)!, to)) : [];
-  const stuck = n - movable.length;
-  const needsReason = to !== null && movable.some((i) => transitionNeedsReason(from(i)!, to));
-  const reasonError = needsReason && reason.trim().length < 3 ? "Give a short reason (at least 3 characters)." : undefined;
+  const skipped = to ? items.filter((i) => !movable.includes(i)) : [];
+  // A status changed by hand always says why (the case follows its work by itself otherwise).
+  const reasonError = reason.trim().length < 3 ? "Give a short reason (at least 3 characters)." : undefined;
   const statusError = to === null ? "Choose the new status." : undefined;
+  const canMove = (s: CaseStatus) => items.filter((i) => from(i) !== null && canTransition(from(i)!, s)).length;
 
   return (
     <ConfirmDialog
       open={open}
       title={`Change the status of ${casesCount(n)}?`}
-      confirmLabel={to ? `Move to ${statusLabel(to)}` : "Change status"}
+      confirmLabel={to ? `Move ${casesCount(movable.length)} to ${statusLabel(to)}` : "Change status"}
       tone={to === "cancelled" ? "danger" : "primary"}
       busy={busy}
       error={serverError}
       onCancel={onCancel}
       onConfirm={() => {
         setTried(true);
-        if (!to || reasonError) return;
-        onConfirm(to, needsReason ? reason.trim() : undefined);
+        if (!to || reasonError || movable.length === 0) return;
+        onConfirm(to, reason.trim());
       }}
     >
       <div className="flex flex-col gap-3">
-        <Select
-          label="New status"
-          value={target}
-          error={tried ? statusError : undefined}
-          onChange={(e) => setTarget(e.target.value)}
-        >
-          <option value="">Choose a status…</option>
-          {CASE_STATUSES.map((s) => (
-            <option key={s} value={s}>
-              {statusLabel(s)}
-            </option>
-          ))}
-        </Select>
+        {common.length === 0 && partial.length === 0 ? (
+          <Alert tone="warning" live="none">
+            None of these cases can move to another status from where it is now.
+          </Alert>
+        ) : (
+          <Select
+            label="New status"
+            hint="The status moves by itself as the work is recorded. Change it here only for an exception."
+            value={target}
+            error={tried ? statusError : undefined}
+            onChange={(e) => setTarget(e.target.value)}
+          >
+            <option value="">Choose a status…</option>
+            {common.length ? (
+              <optgroup label="Every selected case can move to">
+                {common.map((s) => (
+                  <option key={s} value={s}>
+                    {statusLabel(s)}
+                  </option>
+                ))}
+              </optgroup>
+            ) : null}
+            {partial.length ? (
+              <optgroup label="Only some can (the others are skipped)">
+                {partial.map((s) => (
+                  <option key={s} value={s}>
+                    {statusLabel(s)} ({canMove(s)} of {n})
+                  </option>
+                ))}
+              </optgroup>
+            ) : null}
+          </Select>
+        )}
         {to ? (
           <>
             <p>
               <strong>{casesCount(movable.length)}</strong> will move to <strong>{statusLabel(to)}</strong>.
             </p>
-            {stuck > 0 ? (
-              <Alert tone="warning" live="none">
-                {stuck === n ? "None of these cases" : casesCount(stuck)} can move to {statusLabel(to)} from the status they are
-                in now. {stuck === 1 ? "It will be left as it is" : "They will be left as they are"} and listed after the change.
+            {skipped.length > 0 ? (
+              <Alert tone="warning" live="none" title={`${casesCount(skipped.length)} will be skipped`}>
+                <p>
+                  {skipped.length === 1 ? "This case" : "These cases"} cannot move to {statusLabel(to)} from the status{" "}
+                  {skipped.length === 1 ? "it is" : "they are"} in now and will be left as{" "}
+                  {skipped.length === 1 ? "it is" : "they are"}:
+                </p>
+                <ul className="mt-1 list-disc pl-5">
+                  {skipped.slice(0, 20).map((i) => (
+                    <li key={i.id}>
+                      {referenceOf(i)} ({statusLabel(i.status)})
+                    </li>
+                  ))}
+                </ul>
+                {skipped.length > 20 ? <p>and {skipped.length - 20} more.</p> : null}
               </Alert>
             ) : null}
           </>
         ) : null}
-        {needsReason ? (
+        {to ? (
           <Textarea
             label="Reason"
-            hint="Cancelling or reopening a case needs a reason. It is kept in each case's history."
+            hint="Needed for every change made by hand. It is kept in each case's history."
             value={reason}
             maxLength={2000}
             error={tried ? reasonError : undefined}
