@@ -92,7 +92,12 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             gate(["tenant", ...STAFF], [page("cases/:id", () => import("./routes/app/case"))]),
             gate(["officer"], [page("queue", () => import("./routes/staff/queue"))]),
             gate(["maintenance"], [page("works", () => import("./routes/staff/works"))]),
-            gate(STAFF, [page("homes", () => import("./routes/staff/homes"))]),
+            gate(STAFF, [
+              page("homes", () => import("./routes/staff/homes")),
+              page("homes/:id", () => import("./routes/staff/home")),
+            ]),
+            gate(["officer", "admin"], [page("log-report", () => import("./routes/staff/log-report"))]),
+            gate(["admin"], [page("homes/new", () => import("./routes/admin/new-home"))]),
             gate(
               ["admin"],
               [page("admin", () => import("./routes/admin/users")), page("admin/policy", () => import("./routes/admin/policy"))],
