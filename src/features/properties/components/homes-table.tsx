@@ -22,8 +22,8 @@ const columns = column.columns([
       <span>
         <TextLink to={`/homes/${row.original.id}`} data-row-link="">
           {row.original.addressLine1}
-          {row.original.addressLine2 ? `, ${row.original.addressLine2}` : null}
         </TextLink>
+        {row.original.addressLine2 ? <span>, {row.original.addressLine2}</span> : null}
         <span className="block text-ink-soft">{row.original.town}</span>
       </span>
     ),
