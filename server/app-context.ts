@@ -14,6 +14,7 @@ import { AuthService } from "./modules/auth/auth.service.js";
 import { CaseService } from "./modules/cases/case.service.js";
 import { DigestService } from "./modules/digest/digest.service.js";
 import { EvaluationService } from "./modules/evaluation/evaluation.service.js";
+import { HomeRecordService } from "./modules/homes/home-record.service.js";
 import { PhotoService } from "./modules/photos/photo.service.js";
 import { ReadingImportService } from "./modules/readings/reading-import.service.js";
 import { ReadingService } from "./modules/readings/reading.service.js";
@@ -35,6 +36,7 @@ export interface Services {
   cases: CaseService;
   digest: DigestService;
   evaluation: EvaluationService;
+  homes: HomeRecordService;
   imports: ReadingImportService;
   photos: PhotoService;
   readings: ReadingService;
@@ -68,7 +70,7 @@ export function createServices(
   clock: Clock = systemClock,
 ): Services {
   const mail = new MailService(dataSource, mailer, logger, clock);
-  const properties = new PropertyService(dataSource);
+  const properties = new PropertyService(dataSource, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock);
   const organisations = new OrganisationService(dataSource);
@@ -86,6 +88,7 @@ export function createServices(
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
+  const homes = new HomeRecordService(properties, tenancies, cases, readings, users);
   return {
     assessments,
     inspections,
@@ -93,6 +96,7 @@ export function createServices(
     auth,
     cases,
     evaluation,
+    homes,
     imports,
     mail,
     photos,

@@ -19,6 +19,7 @@ import { createCasePhotosRouter, createPhotosRouter } from "./modules/photos/pho
 import { createReadingsRouter } from "./modules/readings/readings.routes.js";
 import { createEvaluationRouter } from "./modules/evaluation/evaluation.routes.js";
 import { createHealthRouter } from "./modules/health/health.routes.js";
+import { createHomeRecordRouter } from "./modules/homes/homes.routes.js";
 import { createPropertiesRouter } from "./modules/properties/properties.routes.js";
 import { openApiDocument } from "./modules/psychrometrics/openapi.js";
 import { createPsychrometricsRouter } from "./modules/psychrometrics/psychrometrics.routes.js";
@@ -126,7 +127,8 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/contractors", requireAuth, createContractorsRouter({ works: services.works }));
   api.use("/policy", createPolicyRouter({ policy: services.policy }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
-  api.use("/properties", createPropertiesRouter({ properties: services.properties }));
+  api.use("/properties", createPropertiesRouter({ properties: services.properties, roomReadings: services.readings }));
+  api.use("/properties", createHomeRecordRouter({ homes: services.homes }));
   api.use("/users", createUsersRouter({ users: services.users }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use(createApiDocsRouter({ appUrl: config.appUrl }));

@@ -93,7 +93,12 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             // Admins open every staff screen, the queue and the works board included.
             gate(["officer", "admin"], [page("queue", () => import("./routes/staff/queue"))]),
             gate(["maintenance", "admin"], [page("works", () => import("./routes/staff/works"))]),
-            gate(STAFF, [page("homes", () => import("./routes/staff/homes"))]),
+            gate(STAFF, [
+              page("homes", () => import("./routes/staff/homes")),
+              page("homes/:id", () => import("./routes/staff/home")),
+            ]),
+            gate(["officer", "admin"], [page("log-report", () => import("./routes/staff/log-report"))]),
+            gate(["admin"], [page("homes/new", () => import("./routes/admin/new-home"))]),
             gate(
               ["admin"],
               [page("admin", () => import("./routes/admin/users")), page("admin/policy", () => import("./routes/admin/policy"))],

@@ -22,12 +22,23 @@ export const HEATING_TYPES = [
   "none",
 ] as const;
 export const ROOM_KINDS = ["bedroom", "living", "kitchen", "bathroom", "other"] as const;
+export const VENTILATION_TYPES = [
+  "not-recorded",
+  "windows-only",
+  "trickle-vents",
+  "extract-fans",
+  "trickle-vents-and-fans",
+  "continuous-extract",
+  "piv",
+  "mvhr",
+] as const;
 
 export type BuiltForm = (typeof BUILT_FORMS)[number];
 export type WallType = (typeof WALL_TYPES)[number];
 export type GlazingType = (typeof GLAZING_TYPES)[number];
 export type HeatingType = (typeof HEATING_TYPES)[number];
 export type RoomKind = (typeof ROOM_KINDS)[number];
+export type VentilationType = (typeof VENTILATION_TYPES)[number];
 
 // The response shapes come from the API contract (src/lib/contracts/properties.ts), which takes its value lists from here.
 export type Room = RoomResponse;
@@ -70,6 +81,17 @@ export const heatingTypeLabels: Record<HeatingType, string> = {
   district: "Shared (district) heating",
   other: "Other heating",
   none: "No fixed heating",
+};
+
+export const ventilationLabels: Record<VentilationType, string> = {
+  "not-recorded": "Not recorded",
+  "windows-only": "Opening windows only",
+  "trickle-vents": "Trickle vents, no extract fans",
+  "extract-fans": "Extract fans, no trickle vents",
+  "trickle-vents-and-fans": "Trickle vents and extract fans",
+  "continuous-extract": "Continuous mechanical extract",
+  piv: "Positive input ventilation (PIV)",
+  mvhr: "Heat-recovery ventilation (MVHR)",
 };
 
 export const roomKindLabels: Record<RoomKind, string> = {

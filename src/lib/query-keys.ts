@@ -74,6 +74,9 @@ export const propertyKeys = {
   estates: () => [...propertyKeys.all, "estates"] as const,
   details: () => [...propertyKeys.all, "detail"] as const,
   detail: (id: number) => [...propertyKeys.details(), id] as const,
+  tenants: (id: number) => [...propertyKeys.detail(id), "tenants"] as const,
+  cases: (id: number) => [...propertyKeys.detail(id), "cases"] as const,
+  readings: (id: number) => [...propertyKeys.detail(id), "readings"] as const,
 };
 
 /** The tenant's own home. */

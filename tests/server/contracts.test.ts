@@ -223,6 +223,29 @@ describe("the server's replies fit the API contract", () => {
     await post(await anonymousClient(t.app), "/api/auth/password-reset", { email: "nobody@example.org" });
   });
 
+  it("a home's page and an admin's changes to homes and rooms", async () => {
+    const id = landlord.home.id;
+    await get(officer, `/api/properties/${id}/tenants`);
+    await get(officer, `/api/properties/${id}/cases`);
+    await get(officer, `/api/properties/${id}/readings`);
+    const home = await post(admin, "/api/properties", {
+      addressLine1: "Flat 4, Contract House",
+      town: "Testford",
+      postcode: "ZX1 4CC",
+      estate: "Contract Estate",
+      builtForm: "flat",
+      wallType: "system-built",
+      glazingType: "single",
+      heatingType: "district",
+      rooms: [{ name: "Kitchen", kind: "kitchen" }],
+    });
+    await patch(admin, `/api/properties/${home.id}`, { ventilation: "piv" });
+    const room = await post(admin, `/api/properties/${home.id}/rooms`, { name: "Loft", kind: "other" });
+    await patch(admin, `/api/properties/${home.id}/rooms/${room.id}`, { name: "Loft room" });
+    const removed = await admin.agent.delete(`/api/properties/${home.id}/rooms/${room.id}`).set("X-CSRF-Token", admin.csrf);
+    expect(removed.status).toBe(204);
+  });
+
   it("covered the main endpoints", () => {
     for (const route of [
       "GET /api/cases/:id",

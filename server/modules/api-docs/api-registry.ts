@@ -4,6 +4,7 @@
 import type { z } from "zod";
 import { ENDPOINTS, type Endpoint } from "../../../src/lib/contracts/endpoints.js";
 import { caseReportSchema, staffCaseSchema } from "../../../src/lib/schemas/case-report.js";
+import { homePatchSchema, homeSchema, roomPatchSchema, roomSchema } from "../../../src/lib/schemas/homes.js";
 import { evaluatePointSchema, evaluateSeriesSchema } from "../../../src/lib/schemas/psychrometrics.js";
 import { assessmentSchema } from "../assessments/assessments.schemas.js";
 import {
@@ -64,6 +65,10 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "POST /api/contractors": { body: contractorSchema },
   "PUT /api/policy": { body: deadlinePolicySchema },
   "GET /api/properties": { query: propertyListQuerySchema },
+  "POST /api/properties": { body: homeSchema },
+  "PATCH /api/properties/:id": { body: homePatchSchema },
+  "POST /api/properties/:id/rooms": { body: roomSchema },
+  "PATCH /api/properties/:id/rooms/:roomId": { body: roomPatchSchema },
   "GET /api/users": { query: userListQuerySchema },
   "PATCH /api/users/:id": { body: userUpdateSchema },
 };

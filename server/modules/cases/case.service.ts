@@ -269,6 +269,13 @@ export class CaseService {
     return all.filter((o) => o.id !== c.id);
   }
 
+  /** Every case of a home of the landlord, open and closed, newest first (the home's page; at most 200). */
+  async forHome(organisationId: number, propertyId: number): Promise<Case[]> {
+    return this.dataSource
+      .getRepository(Case)
+      .find({ where: { propertyId, organisationId }, order: { awareAt: "DESC", id: "DESC" }, take: 200 });
+  }
+
   /** Whether another case at the same home became known within `withinMs` of this one (recurrence). */
   async hasOtherCaseNear(c: Pick<Case, "id" | "propertyId" | "awareAt">, withinMs: number): Promise<boolean> {
     return this.dataSource

@@ -16,3 +16,10 @@ export type PropertyListQuery = z.infer<typeof propertyListQuerySchema>;
 export const idParamsSchema = z.object({
   id: z.coerce.number({ error: "The id must be a number." }).int().positive("The id must be a positive whole number."),
 });
+
+export const roomParamsSchema = idParamsSchema.extend({
+  roomId: z.coerce
+    .number({ error: "The room id must be a number." })
+    .int()
+    .positive("The room id must be a positive whole number."),
+});

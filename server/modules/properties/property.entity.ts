@@ -23,14 +23,27 @@ export const HEATING_TYPES = [
   "other",
   "none",
 ] as const;
+/** How the home is ventilated, as far as the landlord has recorded it (the trade's own terms). */
+export const VENTILATION_TYPES = [
+  "not-recorded",
+  "windows-only",
+  "trickle-vents",
+  "extract-fans",
+  "trickle-vents-and-fans",
+  "continuous-extract",
+  "piv",
+  "mvhr",
+] as const;
 export type BuiltForm = (typeof BUILT_FORMS)[number];
 export type WallType = (typeof WALL_TYPES)[number];
 export type GlazingType = (typeof GLAZING_TYPES)[number];
 export type HeatingType = (typeof HEATING_TYPES)[number];
+export type VentilationType = (typeof VENTILATION_TYPES)[number];
 
 @Entity({ name: "properties" })
 @Index("idx_properties_org_estate", ["organisationId", "estate"])
 @Index("idx_properties_org_postcode", ["organisationId", "postcode"])
+@Index("idx_properties_org_sort", ["organisationId", "estate", "sortKey"])
 @Index("uq_properties_org_uprn", ["organisationId", "uprn"], { unique: true })
 export class Property {
   @PrimaryGeneratedColumn({ type: "int", unsigned: true })
@@ -77,6 +90,17 @@ export class Property {
 
   @Column({ name: "heating_type", type: "varchar", length: 20 })
   heatingType: HeatingType;
+
+  @Column({ type: "varchar", length: 30, default: "not-recorded" })
+  ventilation: VentilationType;
+
+  /**
+   * The natural sort key of block and address, set by MariaDB's triggers on every insert and update
+   * (migration HomesSortKeyAndVentilation): NATURAL_SORT_KEY puts each run of digits behind its length,
+   * so "Flat 2" sorts before "Flat 10". Read-only here.
+   */
+  @Column({ name: "sort_key", type: "varchar", length: 400, default: "", insert: false, update: false, select: false })
+  sortKey?: string;
 
   @OneToMany("Room", (room: Room) => room.property)
   rooms?: Room[];

@@ -18,6 +18,7 @@ export const toPropertySummaryDto = (p: Property): z.input<typeof propertySummar
   wallType: p.wallType,
   glazingType: p.glazingType,
   heatingType: p.heatingType,
+  ventilation: p.ventilation,
 });
 
 export const toPropertyDto = (p: Property): z.input<typeof propertyResponse> => ({

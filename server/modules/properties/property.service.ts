@@ -1,16 +1,61 @@
-import { Brackets, type DataSource } from "typeorm";
-import { NotFoundError } from "../../lib/errors.js";
+import { Brackets, QueryFailedError, type DataSource, type EntityManager } from "typeorm";
+import type { HomeInput, HomePatch, RoomInput, RoomPatch } from "../../../src/lib/schemas/homes.js";
+import { ConflictError, NotFoundError } from "../../lib/errors.js";
+import type { Logger } from "../../lib/logger.js";
 import { escapeLike } from "../../lib/sql.js";
 import type { Actor } from "../../lib/actor.js";
 import type { PropertyListQuery } from "./properties.schemas.js";
 import { Property } from "./property.entity.js";
+import { Room } from "./room.entity.js";
 
 /** The records other modules receive from this service (they never query the entities themselves). */
 export type { Property } from "./property.entity.js";
 export type { Room } from "./room.entity.js";
 
+/**
+ * Whether anything was measured in a room (the readings module answers; properties import no reading
+ * code). Asked inside the transaction that deletes the room.
+ */
+export interface RoomReadingsCounter {
+  readingsInRoom(propertyId: number, roomId: number, m: EntityManager): Promise<number>;
+}
+
+const isDuplicate = (error: unknown) =>
+  error instanceof QueryFailedError &&
+  ((error.driverError as { code?: string; errno?: number } | undefined)?.code === "ER_DUP_ENTRY" ||
+    (error.driverError as { errno?: number } | undefined)?.errno === 1062);
+
+const uprnTaken = (uprn: string | null | undefined) =>
+  new ConflictError(`Another home already has the UPRN ${uprn ?? ""}.`, [
+    { field: "uprn", message: "Another of your homes already has this UPRN." },
+  ]);
+
+/** The fields an admin may set, as they are stored. */
+const HOME_FIELDS = [
+  "addressLine1",
+  "addressLine2",
+  "town",
+  "postcode",
+  "uprn",
+  "estate",
+  "block",
+  "builtForm",
+  "wallType",
+  "glazingType",
+  "heatingType",
+  "ventilation",
+] as const;
+
 export class PropertyService {
-  constructor(private readonly dataSource: DataSource) {}
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly logger?: Logger,
+  ) {}
+
+  /** There is no audit table yet: each change by an admin is one structured log line, with who, what and the fields. */
+  private audit(actor: Actor, action: string, details: Record<string, unknown>) {
+    this.logger?.info({ audit: action, actorId: actor.id, organisationId: actor.organisationId, ...details }, `audit: ${action}`);
+  }
 
   /** Staff only (the route checks the role): homes of the actor's organisation. */
   async list(actor: Actor, query: PropertyListQuery): Promise<{ items: Property[]; total: number }> {
@@ -28,14 +73,17 @@ export class PropertyService {
             .where("p.address_line1 LIKE :like", { like })
             .orWhere("p.address_line2 LIKE :like", { like })
             .orWhere("p.town LIKE :like", { like })
+            .orWhere("p.estate LIKE :like", { like })
+            .orWhere("p.block LIKE :like", { like })
             .orWhere("REPLACE(p.postcode, ' ', '') LIKE :pc", { pc: compactPostcode })
             .orWhere("p.uprn = :exact", { exact: query.q }),
         ),
       );
     }
     const [items, total] = await qb
+      // sort_key is the natural order of block and address (Flat 2 before Flat 10), kept by MariaDB.
       .orderBy("p.estate", "ASC")
-      .addOrderBy("p.address_line1", "ASC")
+      .addOrderBy("p.sort_key", "ASC")
       .addOrderBy("p.id", "ASC")
       .skip((query.page - 1) * query.pageSize)
       .take(query.pageSize)
@@ -66,5 +114,105 @@ export class PropertyService {
       .orderBy("estate", "ASC")
       .getRawMany();
     return rows.map((r) => r.estate);
+  }
+
+  /** Admin: a new home of the actor's organisation, with its rooms, in one transaction. */
+  async create(actor: Actor, input: HomeInput): Promise<Property> {
+    const id = await this.dataSource
+      .transaction(async (m) => {
+        const saved = await m.getRepository(Property).save(
+          m.getRepository(Property).create({
+            organisationId: actor.organisationId,
+            ...Object.fromEntries(HOME_FIELDS.map((f) => [f, input[f]])),
+          }),
+        );
+        if (input.rooms.length) {
+          await m.getRepository(Room).save(input.rooms.map((r) => ({ propertyId: saved.id, name: r.name, kind: r.kind })));
+        }
+        return saved.id;
+      })
+      .catch((error: unknown) => {
+        throw isDuplicate(error) ? uprnTaken(input.uprn) : error;
+      });
+    this.audit(actor, "home-created", { propertyId: id, rooms: input.rooms.length });
+    return this.getForStaff(actor, id);
+  }
+
+  /** Admin: changes the fields sent; 404 for a home of another organisation. */
+  async update(actor: Actor, id: number, patch: HomePatch): Promise<Property> {
+    const changed = await this.dataSource
+      .transaction(async (m) => {
+        const home = await m
+          .getRepository(Property)
+          .findOne({ where: { id, organisationId: actor.organisationId }, lock: { mode: "pessimistic_write" } });
+        if (!home) throw new NotFoundError("No such home.");
+        const changes: Record<string, { from: unknown; to: unknown }> = {};
+        for (const f of HOME_FIELDS) {
+          const to = patch[f];
+          if (to === undefined || to === home[f]) continue;
+          changes[f] = { from: home[f], to };
+        }
+        if (Object.keys(changes).length) {
+          await m.getRepository(Property).update({ id }, Object.fromEntries(Object.entries(changes).map(([f, c]) => [f, c.to])));
+        }
+        return changes;
+      })
+      .catch((error: unknown) => {
+        throw isDuplicate(error) ? uprnTaken(patch.uprn) : error;
+      });
+    if (Object.keys(changed).length) this.audit(actor, "home-updated", { propertyId: id, changes: changed });
+    return this.getForStaff(actor, id);
+  }
+
+  /** Admin: a new room in a home of the actor's organisation. */
+  async addRoom(actor: Actor, propertyId: number, input: RoomInput): Promise<Room> {
+    await this.getForStaff(actor, propertyId);
+    const room = await this.dataSource
+      .getRepository(Room)
+      .save(this.dataSource.getRepository(Room).create({ propertyId, name: input.name, kind: input.kind }));
+    this.audit(actor, "room-added", { propertyId, roomId: room.id, name: room.name, kind: room.kind });
+    return room;
+  }
+
+  private async roomOf(m: EntityManager, actor: Actor, propertyId: number, roomId: number): Promise<Room> {
+    await this.getForStaff(actor, propertyId);
+    const room = await m.getRepository(Room).findOne({ where: { id: roomId, propertyId }, lock: { mode: "pessimistic_write" } });
+    if (!room) throw new NotFoundError("No such room in this home.");
+    return room;
+  }
+
+  /** Admin: renames a room or changes its kind. */
+  async updateRoom(actor: Actor, propertyId: number, roomId: number, patch: RoomPatch): Promise<Room> {
+    const { room, before } = await this.dataSource.transaction(async (m) => {
+      const room = await this.roomOf(m, actor, propertyId, roomId);
+      const before = { name: room.name, kind: room.kind };
+      if (patch.name !== undefined) room.name = patch.name;
+      if (patch.kind !== undefined) room.kind = patch.kind;
+      await m.getRepository(Room).save(room);
+      return { room, before };
+    });
+    this.audit(actor, "room-updated", { propertyId, roomId, from: before, to: { name: room.name, kind: room.kind } });
+    return room;
+  }
+
+  /**
+   * Admin: removes a room. A room with readings stays (409 naming how many): the readings belong to
+   * cases and the risk figures were worked out from them. Its row is locked while the readings are
+   * counted, in one transaction.
+   */
+  async deleteRoom(actor: Actor, propertyId: number, roomId: number, readings: RoomReadingsCounter): Promise<void> {
+    const name = await this.dataSource.transaction(async (m) => {
+      const room = await this.roomOf(m, actor, propertyId, roomId);
+      const n = await readings.readingsInRoom(propertyId, roomId, m);
+      if (n > 0) {
+        throw new ConflictError(
+          `"${room.name}" has ${n} ${n === 1 ? "reading" : "readings"}, so it cannot be removed: the readings belong to cases of this home. Rename it instead if its name is wrong.`,
+          { code: "room_has_readings", readings: n },
+        );
+      }
+      await m.getRepository(Room).delete({ id: roomId });
+      return room.name;
+    });
+    this.audit(actor, "room-removed", { propertyId, roomId, name });
   }
 }

@@ -190,4 +190,69 @@ export class ReadingService {
       return reading;
     });
   }
+
+  /** How many readings were taken in a room of a home, over all its cases (inside the caller's transaction). */
+  async readingsInRoom(propertyId: number, roomId: number, m: EntityManager = this.dataSource.manager): Promise<number> {
+    const rows: { n: string | number }[] = await m.query(
+      "SELECT COUNT(*) AS n FROM readings WHERE room_id = ? AND case_id IN (SELECT id FROM cases WHERE property_id = ?)",
+      [roomId, propertyId],
+    );
+    return Number(rows[0]?.n ?? 0);
+  }
+
+  /** Each room's reading count and its latest `perRoom` readings over all the cases of a home, newest first. */
+  async latestByRoom(
+    propertyId: number,
+    perRoom: number,
+  ): Promise<
+    {
+      roomId: number;
+      count: number;
+      latest: (Pick<ReadingView, "takenAt" | "airTemperatureC" | "relativeHumidityPct" | "surfaceTemperatureC"> & {
+        caseId: number;
+      })[];
+    }[]
+  > {
+    const rows: {
+      case_id: number;
+      room_id: number;
+      taken_at: Date;
+      air_temperature_c: string;
+      relative_humidity_pct: string;
+      surface_temperature_c: string | null;
+      n: string | number;
+    }[] = await this.dataSource.query(
+      "SELECT case_id, room_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, n FROM (" +
+        "SELECT r.case_id, r.room_id, r.taken_at, r.air_temperature_c, r.relative_humidity_pct, r.surface_temperature_c, " +
+        "ROW_NUMBER() OVER (PARTITION BY r.room_id ORDER BY r.taken_at DESC, r.id DESC) AS rn, COUNT(*) OVER (PARTITION BY r.room_id) AS n " +
+        "FROM readings r WHERE r.case_id IN (SELECT id FROM cases WHERE property_id = ?)) x WHERE rn <= ? ORDER BY room_id, taken_at DESC",
+      [propertyId, perRoom],
+    );
+    const byRoom = new Map<
+      number,
+      {
+        roomId: number;
+        count: number;
+        latest: {
+          caseId: number;
+          takenAt: Date;
+          airTemperatureC: number;
+          relativeHumidityPct: number;
+          surfaceTemperatureC: number | null;
+        }[];
+      }
+    >();
+    for (const r of rows) {
+      let room = byRoom.get(r.room_id);
+      if (!room) byRoom.set(r.room_id, (room = { roomId: r.room_id, count: Number(r.n), latest: [] }));
+      room.latest.push({
+        caseId: r.case_id,
+        takenAt: r.taken_at,
+        airTemperatureC: Number(r.air_temperature_c),
+        relativeHumidityPct: Number(r.relative_humidity_pct),
+        surfaceTemperatureC: num(r.surface_temperature_c),
+      });
+    }
+    return [...byRoom.values()];
+  }
 }

@@ -85,4 +85,15 @@ export class TenancyService {
     const property = await this.properties.homeWithRooms(tenancy.propertyId);
     return { tenancy, property };
   }
+
+  /** Every tenancy of a home, with whether it runs today: current ones first, then the latest to start. */
+  async ofHome(propertyId: number): Promise<(Tenancy & { current: boolean })[]> {
+    const d = this.today();
+    const rows = await this.dataSource
+      .getRepository(Tenancy)
+      .find({ where: { propertyId }, order: { startDate: "DESC", id: "DESC" }, take: 100 });
+    return rows
+      .map((t) => Object.assign(t, { current: t.startDate <= d && (t.endDate === null || t.endDate >= d) }))
+      .sort((a, b) => Number(b.current) - Number(a.current));
+  }
 }

@@ -19,7 +19,16 @@ import { healthResponse, livenessResponse, readinessResponse } from "./health.js
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse } from "./photos.js";
 import { policyResponse } from "./policy.js";
-import { estatesResponse, myHomeResponse, propertyPageResponse, propertyResponse } from "./properties.js";
+import {
+  estatesResponse,
+  homeCasesResponse,
+  homeReadingsResponse,
+  homeTenantsResponse,
+  myHomeResponse,
+  propertyPageResponse,
+  propertyResponse,
+  roomResponse,
+} from "./properties.js";
 import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
 import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
@@ -193,6 +202,14 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/properties", STAFF, "The landlord's homes", propertyPageResponse),
   e("GET", "/api/properties/estates", STAFF, "The estates' names", estatesResponse),
   e("GET", "/api/properties/:id", STAFF, "A home and its rooms", propertyResponse),
+  e("POST", "/api/properties", ["admin"], "Add a home (with its rooms)", propertyResponse, 201),
+  e("PATCH", "/api/properties/:id", ["admin"], "Change a home's details", propertyResponse),
+  e("POST", "/api/properties/:id/rooms", ["admin"], "Add a room to a home", roomResponse, 201),
+  e("PATCH", "/api/properties/:id/rooms/:roomId", ["admin"], "Rename a room or change its kind", roomResponse),
+  e("DELETE", "/api/properties/:id/rooms/:roomId", ["admin"], "Remove a room that has no readings", null, 204),
+  e("GET", "/api/properties/:id/tenants", STAFF, "The home's tenants, current and past", homeTenantsResponse),
+  e("GET", "/api/properties/:id/cases", STAFF, "The home's cases, open and closed", homeCasesResponse),
+  e("GET", "/api/properties/:id/readings", STAFF, "Each room's latest readings", homeReadingsResponse),
   e("GET", "/api/users", ["admin"], "The landlord's accounts", userPageResponse),
   e("PATCH", "/api/users/:id", ["admin"], "Change a person's name or role, or disable or re-enable their account", userResponse),
   e("GET", "/api/users/:id/history", ["admin"], "Who changed a person's account, and when", userHistoryResponse),

@@ -1,6 +1,7 @@
 import { z } from "zod";
-import { BUILT_FORMS, GLAZING_TYPES, HEATING_TYPES, ROOM_KINDS, WALL_TYPES } from "../homes.js";
-import { calendarDate, id, pageOf } from "./common.js";
+import { BUILT_FORMS, GLAZING_TYPES, HEATING_TYPES, ROOM_KINDS, VENTILATION_TYPES, WALL_TYPES } from "../homes.js";
+import { CASE_STATUSES, CHANNELS } from "../schemas/case-report.js";
+import { calendarDate, id, instant, pageOf } from "./common.js";
 
 export const roomResponse = z.object({ id, name: z.string(), kind: z.enum(ROOM_KINDS) });
 export type RoomResponse = z.infer<typeof roomResponse>;
@@ -19,6 +20,7 @@ export const propertySummaryResponse = z.object({
   wallType: z.enum(WALL_TYPES),
   glazingType: z.enum(GLAZING_TYPES),
   heatingType: z.enum(HEATING_TYPES),
+  ventilation: z.enum(VENTILATION_TYPES),
 });
 export type PropertySummaryResponse = z.infer<typeof propertySummaryResponse>;
 
@@ -35,3 +37,47 @@ export const myHomeResponse = z.object({
   property: propertyResponse,
 });
 export type MyHomeResponse = z.infer<typeof myHomeResponse>;
+
+/** GET /api/properties/:id/tenants: the people with a tenancy of the home, current ones first. */
+export const homeTenantResponse = z.object({
+  tenancyId: id,
+  userId: id,
+  name: z.string(),
+  email: z.string(),
+  startDate: calendarDate,
+  endDate: calendarDate.nullable(),
+  current: z.boolean(),
+});
+export type HomeTenantResponse = z.infer<typeof homeTenantResponse>;
+export const homeTenantsResponse = z.object({ tenants: z.array(homeTenantResponse) });
+
+/** GET /api/properties/:id/cases: the home's cases, open and closed, newest first. */
+export const homeCaseResponse = z.object({
+  id,
+  reference: z.string().nullable(),
+  status: z.enum(CASE_STATUSES),
+  channel: z.enum(CHANNELS),
+  awareAt: instant,
+  description: z.string(),
+  tenantName: z.string().nullable(),
+});
+export type HomeCaseResponse = z.infer<typeof homeCaseResponse>;
+export const homeCasesResponse = z.object({ cases: z.array(homeCaseResponse) });
+
+/** GET /api/properties/:id/readings: each room's latest readings across the home's cases. */
+export const homeRoomReadingsResponse = z.object({
+  room: roomResponse,
+  /** Readings in all, over every case of the home. */
+  count: z.number().int().min(0),
+  latest: z.array(
+    z.object({
+      caseId: id,
+      takenAt: instant,
+      airTemperatureC: z.number(),
+      relativeHumidityPct: z.number(),
+      surfaceTemperatureC: z.number().nullable(),
+    }),
+  ),
+});
+export type HomeRoomReadingsResponse = z.infer<typeof homeRoomReadingsResponse>;
+export const homeReadingsResponse = z.object({ rooms: z.array(homeRoomReadingsResponse) });

@@ -144,6 +144,7 @@ export function makeProperty(id: number, overrides: Record<string, unknown> = {}
     wallType: "system-built",
     glazingType: "old-double",
     heatingType: "gas-boiler",
+    ventilation: "not-recorded",
     ...overrides,
   };
 }

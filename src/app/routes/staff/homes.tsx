@@ -1,5 +1,7 @@
 import type { QueryClient } from "@tanstack/react-query";
-import type { LoaderFunctionArgs } from "react-router-dom";
+import { Link, type LoaderFunctionArgs } from "react-router-dom";
+import { buttonClasses } from "@/components/ui/button";
+import { useUser } from "@/features/auth/api/get-me";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
@@ -14,10 +16,21 @@ export const clientLoader =
   };
 
 export default function HomesPage() {
+  const user = useUser();
   return (
     <>
       <title>Homes · Dewline</title>
-      <PageHeader title="Homes" description="Every home your organisation looks after." />
+      <PageHeader
+        title="Homes"
+        description="Every home your organisation looks after. Open one to see its tenants, cases and readings."
+        actions={
+          user.role === "admin" ? (
+            <Link to="/homes/new" className={buttonClasses("primary")}>
+              Add a home
+            </Link>
+          ) : null
+        }
+      />
       <Panel as="div">
         <HomesTable />
       </Panel>

@@ -1,5 +1,6 @@
 import type { QueryClient } from "@tanstack/react-query";
-import type { LoaderFunctionArgs } from "react-router-dom";
+import { Link, type LoaderFunctionArgs } from "react-router-dom";
+import { buttonClasses } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
@@ -29,6 +30,11 @@ export default function CaseQueuePage() {
       <PageHeader
         title="Case queue"
         description="Reports from tenants, most urgent first. Filter, sort and share the view: it is all in the link."
+        actions={
+          <Link to="/log-report" className={buttonClasses("primary")}>
+            Log a report
+          </Link>
+        }
       />
       <Panel as="div">
         <CaseQueueTable statusLabel={statusLabelFor("staff")} renderStatus={renderStatus} estates={estates.data} />

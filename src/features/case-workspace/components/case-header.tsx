@@ -1,5 +1,6 @@
 import type { ReactNode } from "react";
 import { PageHeader } from "@/components/ui/page-header";
+import { TextLink } from "@/components/ui/text-link";
 import { Spinner } from "@/components/ui/spinner";
 import { useDeadlines } from "../api/get-deadlines";
 import { useStaff } from "@/lib/staff";
@@ -28,7 +29,7 @@ export function CaseHeader({ c, status }: CaseHeaderProps) {
         title={workspaceTitle(c)}
         description={
           <span>
-            {address || `Home ${c.property.id}`}
+            <TextLink to={`/homes/${c.property.id}`}>{address || `Home ${c.property.id}`}</TextLink>
             {c.property.estate ? <span className="text-ink-soft"> · {c.property.estate}</span> : null}
           </span>
         }

@@ -1,4 +1,6 @@
-import { useId } from "react";
+import { useEffect, useId, useRef } from "react";
+import { useNavigate } from "react-router-dom";
+import { TextLink } from "@/components/ui/text-link";
 import { Alert } from "@/components/ui/alert";
 import { DataTable, dataTableColumnHelper, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -18,7 +20,9 @@ const columns = column.columns([
     header: "Address",
     cell: ({ row }) => (
       <span>
-        <span className="font-semibold">{row.original.addressLine1}</span>
+        <TextLink to={`/homes/${row.original.id}`} data-row-link="">
+          {row.original.addressLine1}
+        </TextLink>
         {row.original.addressLine2 ? <span>, {row.original.addressLine2}</span> : null}
         <span className="block text-ink-soft">{row.original.town}</span>
       </span>
@@ -65,13 +69,29 @@ export function HomesTable({ caption = "Homes" }: { caption?: string }) {
   });
 
   const filtered = Boolean(filters.q || filters.estate);
+  const navigate = useNavigate();
+
+  // A click anywhere on a row opens the home, like its address link (the keyboard's way in).
+  const rowsRef = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const box = rowsRef.current;
+    if (!box) return;
+    const openRow = (event: MouseEvent) => {
+      const target = event.target as HTMLElement;
+      if (target.closest("a, button, input, select, label")) return;
+      const href = target.closest("tbody tr")?.querySelector("a[data-row-link]")?.getAttribute("href");
+      if (href) void navigate(href);
+    };
+    box.addEventListener("click", openRow);
+    return () => box.removeEventListener("click", openRow);
+  }, [navigate]);
 
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end gap-3">
         <SearchField
           label="Search homes"
-          hint="Street, town, postcode or UPRN"
+          hint="Street, town, postcode, UPRN or estate"
           value={filters.q}
           onSearch={setSearch}
           className="min-w-64 flex-1"
@@ -98,28 +118,30 @@ export function HomesTable({ caption = "Homes" }: { caption?: string }) {
           </select>
         </div>
       </div>
-      <DataTable
-        table={table}
-        caption={caption}
-        hideCaption
-        noun={{ one: "home", many: "homes" }}
-        loading={homes.isPending}
-        fetching={homes.isFetching && !homes.isPending}
-        error={
-          homes.isError ? (
-            <Alert tone="danger" title="We could not load the homes">
-              {errorMessage(homes.error)}
-            </Alert>
-          ) : undefined
-        }
-        empty={
-          <EmptyState title={filtered ? "No homes match" : "No homes yet"}>
-            {filtered
-              ? "Try a shorter search, or choose All estates."
-              : "Homes will appear here once they are added for your organisation."}
-          </EmptyState>
-        }
-      />
+      <div ref={rowsRef} className="[&_tbody_tr:has(a[data-row-link])]:cursor-pointer">
+        <DataTable
+          table={table}
+          caption={caption}
+          hideCaption
+          noun={{ one: "home", many: "homes" }}
+          loading={homes.isPending}
+          fetching={homes.isFetching && !homes.isPending}
+          error={
+            homes.isError ? (
+              <Alert tone="danger" title="We could not load the homes">
+                {errorMessage(homes.error)}
+              </Alert>
+            ) : undefined
+          }
+          empty={
+            <EmptyState title={filtered ? "No homes match" : "No homes yet"}>
+              {filtered
+                ? "Try a shorter search, or choose All estates."
+                : "Homes will appear here once they are added for your organisation."}
+            </EmptyState>
+          }
+        />
+      </div>
     </div>
   );
 }

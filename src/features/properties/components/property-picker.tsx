@@ -47,7 +47,7 @@ export function PropertyPicker({ value, onChange, error, label = "Home" }: Prope
           type="search"
           value={draft}
           onChange={(e) => setDraft(e.target.value)}
-          placeholder="e.g. Elm Road or AB1 2CD"
+          placeholder="Street, postcode, UPRN or estate"
           className={cn(controlClasses, "min-h-9 py-1.5 text-sm")}
         />
       </div>

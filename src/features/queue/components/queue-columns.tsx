@@ -107,7 +107,7 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
       ...sortable("address"),
       cell: ({ row }) => (
         <span className="block min-w-40">
-          <span className="font-semibold">{row.original.property.addressLine1}</span>
+          <TextLink to={`/homes/${row.original.property.id}`}>{row.original.property.addressLine1}</TextLink>
           <span className="block text-ink-soft">
             {row.original.property.town}, <span className="whitespace-nowrap">{row.original.property.postcode}</span>
           </span>

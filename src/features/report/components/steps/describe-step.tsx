@@ -6,20 +6,26 @@ import { choices, locationLabels, observationLabels } from "../../labels";
 import type { ReportFormValues } from "../../lib/draft";
 import { ChoiceField } from "../choice-field";
 
+const DESCRIBE_HINT =
+  "In your own words. For example: black spots on the bedroom ceiling, and water on the windows every morning.";
+
 /** Step 1: what the tenant can see, where, and in which rooms. */
 export function DescribeStep({
   form,
   rooms,
+  describe = { label: "What can you see?", hint: DESCRIBE_HINT },
 }: {
   form: UseFormReturn<ReportFormValues, unknown, CaseReport>;
   rooms: readonly RoomOption[];
+  /** Staff logging a report word the first question for themselves; the choices stay the same. */
+  describe?: { label: string; hint: string };
 }) {
   const { control, register, formState } = form;
   return (
     <div className="flex flex-col gap-6">
       <Textarea
-        label="What can you see?"
-        hint="In your own words. For example: black spots on the bedroom ceiling, and water on the windows every morning."
+        label={describe.label}
+        hint={describe.hint}
         rows={4}
         error={formState.errors.description?.message}
         {...register("description")}
