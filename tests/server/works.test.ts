@@ -7,8 +7,10 @@ import { OperativeSlot } from "../../server/modules/works/operative-slot.entity.
 import { appointmentIcs } from "../../server/modules/works/appointment.js";
 import { makeLandlord, makeProperty, makeTenant, makeUser, PASSWORD } from "../support/factories.js";
 import { jpegWithGps } from "../support/images.js";
+import { outboxCount } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
-import { hoursAgo, msAgo, workingDayAhead, workingDaysAhead } from "../support/test-clock.js";
+import { localDate } from "../../src/lib/domain/working-days.js";
+import { hoursAgo, msAgo, testClock, workingDayAhead, workingDaysAhead } from "../support/test-clock.js";
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -29,6 +31,9 @@ const inspection = {
   findings: "Extract fan not working; condensation mould on the ceiling above the bath.",
   roomReadings: [],
 };
+
+/** Today's London date on the test clock: the day the work is recorded as done. */
+const today = () => localDate(testClock.now());
 
 /** A London working day at least `days` days ahead of the test clock. */
 const futureDate = (days: number) => workingDayAhead(days);
@@ -300,6 +305,8 @@ describe("the case follows its orders", () => {
           note: "Fitted a continuous extract fan with humidistat boost; tested.",
           materials: "Fan, 100 mm duct, fused spur",
           minutesOnSite: 150,
+          doneOn: today(),
+          earlyReason: "A cancellation freed the operative today and the tenant was at home.",
         },
       })
       .expect(200);
@@ -314,7 +321,7 @@ describe("the case follows its orders", () => {
       .patch(`/api/work-orders/${wash.id}`, {
         complete: {
           note: "Washed the ceiling with fungicide and let it dry.",
-          followOn: "Repaint with mould-resistant paint in a week.",
+          doneOn: today(),
         },
       })
       .expect(200);
@@ -337,13 +344,38 @@ describe("the case follows its orders", () => {
     expect(Date.parse(view.monitoringEndsAt) - Date.parse(view.worksDoneAt)).toBe(21 * 86_400_000);
 
     await tenant.post(`/api/cases/${caseId}/verification`, { effective: true, note: "Dry" }).expect(403);
+    // Day 0 of monitoring: no readings after the works, so "fix effective" needs an override with a reason.
+    expect(view.enoughReadings).toBe(false);
+    const early = await lead
+      .post(`/api/cases/${caseId}/verification`, { effective: true, note: "Looks dry to me." })
+      .expect(409);
+    expect(early.body.error.code).toBe("not_enough_readings");
+    expect(early.body.error.details).toEqual([expect.objectContaining({ field: "override.reason" })]);
+    expect(await status(caseId)).toBe("monitoring");
+    await lead
+      .post(`/api/cases/${caseId}/verification`, { effective: true, note: "Dry.", override: { reason: "short" } })
+      .expect(400);
+    const told = { to: landlord.tenant.email, template: "fixConfirmed", caseId };
+    expect(await outboxCount(t.ctx.dataSource, told)).toBe(0);
     await lead
       .post(`/api/cases/${caseId}/verification`, {
         effective: true,
         note: "Surface humidity down from the mid-90s to about 60 %.",
+        override: { reason: "The tenant's own logger showed dry readings; they cannot add them to Dewline." },
       })
       .expect(200);
     expect(await status(caseId)).toBe("closed");
+    // The override's reason is on the staff timeline and in the verdict, never the tenant's.
+    const verdict = (await officer.get(`/api/cases/${caseId}/events`)).body.events.find(
+      (e: { type: string }) => e.type === "fix-verified",
+    );
+    expect(verdict.after.override).toMatch(/own logger/);
+    expect((await lead.get(`/api/cases/${caseId}/verification`)).body.outcome.override).toMatch(/own logger/);
+    expect(JSON.stringify((await tenant.get(`/api/cases/${caseId}/events`)).body)).not.toMatch(/own logger/);
+    expect((await tenant.get(`/api/cases/${caseId}/verification`)).body.outcome.override).toBeNull();
+    // The lead's screen says the tenant is told: they are, by e-mail.
+    expect(await outboxCount(t.ctx.dataSource, told)).toBe(1);
+    expect((await t.mail.lastTo(landlord.tenant.email)).subject).toMatch(/The repair worked/);
     await lead.post(`/api/cases/${caseId}/verification`, { effective: true, note: "Again" }).expect(409);
   });
 
@@ -354,7 +386,9 @@ describe("the case follows its orders", () => {
         .post(`/api/cases/${caseId}/work-orders`, { type: "trickle-vents", description: "Open the trickle vents." })
         .expect(201)
     ).body;
-    await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Trickle vents freed and opened." } }).expect(200);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, { complete: { note: "Trickle vents freed and opened.", doneOn: today() } })
+      .expect(200);
     expect(await status(caseId)).toBe("monitoring");
     await lead
       .post(`/api/cases/${caseId}/verification`, {
@@ -388,7 +422,7 @@ describe("the end of the monitoring period", () => {
     const wo = (
       await officer.post(`/api/cases/${caseId}/work-orders`, { type: "mould-wash", description: "Wash the mould." }).expect(201)
     ).body;
-    await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Washed with fungicide." } }).expect(200);
+    await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Washed with fungicide.", doneOn: today() } }).expect(200);
     await t.ctx.dataSource.getRepository(Case).update(caseId, { monitoringEndsAt: msAgo(60_000) });
     const before = t.mail.mails.length;
     expect(await t.ctx.services.verification.sendDueReminders()).toBeGreaterThanOrEqual(1);

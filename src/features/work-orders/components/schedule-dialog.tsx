@@ -35,7 +35,8 @@ export interface SchedulableOrder {
   caseReference: string | null;
   status: string;
   type: string;
-  description: string;
+  /** Staff only (the tenant never receives it). */
+  description?: string;
   /** YYYY-MM-DD, when there is one. */
   targetDate: string | null;
   property?: { addressLine1?: string; town?: string; postcode?: string };
