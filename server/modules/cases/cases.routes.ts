@@ -68,7 +68,11 @@ export function createMyCasesRouter({ cases, photos }: { cases: CaseService; pho
       shaped(myCasesResponse, {
         items: items.map((c) => {
           const s = summaries.get(c.id);
-          return { ...toCaseDto(c, "tenant"), photoCount: s?.count ?? 0, thumbnailUrl: s ? `/api/photos/${s.firstId}/thumbnail` : null };
+          return {
+            ...toCaseDto(c, "tenant"),
+            photoCount: s?.count ?? 0,
+            thumbnailUrl: s ? `/api/photos/${s.firstId}/thumbnail` : null,
+          };
         }),
       }),
     );

@@ -146,7 +146,9 @@ export class VerificationService {
           actor,
           c,
           "closed",
-          override ? `Fix effective, recorded without enough readings (${override}): ${input.note}` : `Fix effective: ${input.note}`,
+          override
+            ? `Fix effective, recorded without enough readings (${override}): ${input.note}`
+            : `Fix effective: ${input.note}`,
         );
         // The lead's screen says the tenant is told: an e-mail, queued with the decision.
         if (c.status === "closed" && fresh.tenantUserId) {

@@ -197,12 +197,15 @@ export class WorkOrderService {
       ]);
     // The landlord's operatives work Monday to Friday outside bank holidays (the week board shows those days).
     if (!isWorkingDay(input.slot.date))
-      throw new ValidationError(`slot.date: ${describeDay(input.slot.date)} is not a working day. Choose a weekday that is not a bank holiday.`, [
-        {
-          field: "slot.date",
-          message: `${describeDay(input.slot.date)} is a weekend or a bank holiday in England and Wales. Choose a working day.`,
-        },
-      ]);
+      throw new ValidationError(
+        `slot.date: ${describeDay(input.slot.date)} is not a working day. Choose a weekday that is not a bank holiday.`,
+        [
+          {
+            field: "slot.date",
+            message: `${describeDay(input.slot.date)} is a weekend or a bank holiday in England and Wales. Choose a working day.`,
+          },
+        ],
+      );
     const deliveries: Deliveries = [];
     await this.dataSource.transaction(async (m) => {
       const wo = await this.getForActor(actor, id, m, true);

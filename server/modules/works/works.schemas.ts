@@ -27,24 +27,24 @@ export const slotSchema = z.object({
 });
 
 const completionSchema = z
-        .object({
-          note: z.string({ error: "Say what was done." }).trim().min(5, "Say what was done, in a sentence.").max(8000),
-          materials: z.string().trim().max(4000).optional(),
-          minutesOnSite: z
-            .number({ error: "minutesOnSite must be a number of minutes." })
-            .int()
-            .min(1)
-            .max(24 * 60 * 5)
-            .optional(),
-          followOn: z.string().trim().max(4000).optional(),
-          /** The London date the work was actually done: today or earlier, never assumed. */
-          doneOn: isoDate("complete.doneOn"),
-          /** Required when doneOn is before the booked day: why the work was done early. */
-          earlyReason: z.string().trim().min(5, "Say why the work was done before the booked day.").max(2000).optional(),
-          /** The type of the follow-on order raised when followOn is given (default: other). */
-          followOnType: z.enum(WORK_ORDER_TYPES, { error: `followOnType must be one of ${WORK_ORDER_TYPES.join(", ")}.` }).optional(),
-        })
-        .strict();
+  .object({
+    note: z.string({ error: "Say what was done." }).trim().min(5, "Say what was done, in a sentence.").max(8000),
+    materials: z.string().trim().max(4000).optional(),
+    minutesOnSite: z
+      .number({ error: "minutesOnSite must be a number of minutes." })
+      .int()
+      .min(1)
+      .max(24 * 60 * 5)
+      .optional(),
+    followOn: z.string().trim().max(4000).optional(),
+    /** The London date the work was actually done: today or earlier, never assumed. */
+    doneOn: isoDate("complete.doneOn"),
+    /** Required when doneOn is before the booked day: why the work was done early. */
+    earlyReason: z.string().trim().min(5, "Say why the work was done before the booked day.").max(2000).optional(),
+    /** The type of the follow-on order raised when followOn is given (default: other). */
+    followOnType: z.enum(WORK_ORDER_TYPES, { error: `followOnType must be one of ${WORK_ORDER_TYPES.join(", ")}.` }).optional(),
+  })
+  .strict();
 
 export const workOrderPatchSchema = z.union([
   z
