@@ -10,6 +10,7 @@ import { TriageFigures1796188877489 } from "./migrations/1796188877489-TriageFig
 import { DeadlineDigests1796189021283 } from "./migrations/1796189021283-DeadlineDigests.js";
 import { WorkOrders1796191882151 } from "./migrations/1796191882151-WorkOrders.js";
 import { QueueFilterIndex1796192104532 } from "./migrations/1796192104532-QueueFilterIndex.js";
+import { WorkCompletionDate1796400714992 } from "./migrations/1796400714992-WorkCompletionDate.js";
 import { HomesSortKeyAndVentilation1796400866674 } from "./migrations/1796400866674-HomesSortKeyAndVentilation.js";
 import { UserAuditEntries1796401046829 } from "./migrations/1796401046829-UserAuditEntries.js";
 
@@ -24,6 +25,7 @@ export const migrations = [
   DeadlineDigests1796189021283,
   WorkOrders1796191882151,
   QueueFilterIndex1796192104532,
+  WorkCompletionDate1796400714992,
   HomesSortKeyAndVentilation1796400866674,
   UserAuditEntries1796401046829,
 ];

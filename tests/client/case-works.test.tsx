@@ -2,6 +2,7 @@ import { fireEvent, screen, waitFor, within } from "@testing-library/react";
 import userEvent from "@testing-library/user-event";
 import { beforeEach, describe, expect, it } from "vitest";
 import { clearCsrfToken } from "@/lib/api-client";
+import { todayInLondon } from "@/lib/dates";
 import { apiError, mockApi, users, type MockReply, type RecordedCall } from "./support/api-mock";
 import { workspaceCase } from "./support/case-fixtures";
 import type { RoomResponse } from "@/lib/contracts";
@@ -90,6 +91,8 @@ const washOrder = {
   accessNotes: null,
   completion: {
     at: "2026-12-02T15:30:00.000Z",
+    doneOn: "2026-12-02",
+    earlyReason: null,
     by: "Nell Okoro",
     note: "Washed and treated 2 m² of mould behind the wardrobe.",
     materials: "Fungicidal wash",
@@ -122,7 +125,15 @@ const emptySummary = {
   mouldIndexMax: null,
 };
 
-const noWorks = { state: "no-works", worksDoneAt: null, monitoringEndsAt: null, monitoringDays: 21, rooms: [], outcome: null };
+const noWorks = {
+  state: "no-works",
+  worksDoneAt: null,
+  monitoringEndsAt: null,
+  monitoringDays: 21,
+  rooms: [],
+  enoughReadings: false,
+  outcome: null,
+};
 
 type Routes = Record<string, MockReply | ((call: RecordedCall, nth: number) => MockReply)>;
 
@@ -375,9 +386,11 @@ describe("the works of a case, for staff", () => {
 
   it("requires a note of what was done before recording completion", async () => {
     const user = userEvent.setup();
+    // Booked far ahead: recorded today, the work is early and needs a reason.
     const booked = {
       ...fanOrder,
       status: "confirmed",
+      slot: { date: "2099-12-08", window: "am", startsAt: "2099-12-08T08:00:00.000Z", endsAt: "2099-12-08T12:00:00.000Z" },
       booking: { response: "confirmed", reason: null, respondedAt: "2026-12-01T18:00:00.000Z" },
     };
     const api = staffApi(users.maintenance, "works-planned", {
@@ -391,6 +404,21 @@ describe("the works of a case, for staff", () => {
 
     await user.click(within(dialog).getByRole("button", { name: "Record completion" }));
     expect(within(dialog).getByText(/Say what was done/)).toBeInTheDocument();
+    expect(within(dialog).getByText("Enter the day the work was done.")).toBeInTheDocument();
+    expect(within(dialog).getByLabelText("Day the work was done")).toHaveFocus();
+    // A day still to come is refused; today, before the booked day, asks why.
+    fireEvent.change(within(dialog).getByLabelText("Day the work was done"), { target: { value: "2099-12-09" } });
+    await user.click(within(dialog).getByRole("button", { name: "Record completion" }));
+    expect(within(dialog).getByText(/cannot be recorded as done on a day still to come/)).toBeInTheDocument();
+    fireEvent.change(within(dialog).getByLabelText("Day the work was done"), { target: { value: todayInLondon() } });
+    await user.click(within(dialog).getByRole("button", { name: "Record completion" }));
+    expect(within(dialog).getByText(/done before the booked day: say why/)).toBeInTheDocument();
+    expect(within(dialog).getByLabelText("Why was it done before the booked day?")).toHaveFocus();
+    await user.type(
+      within(dialog).getByLabelText("Why was it done before the booked day?"),
+      "The tenant asked for an earlier visit.",
+    );
+    await user.click(within(dialog).getByRole("button", { name: "Record completion" }));
     expect(within(dialog).getByLabelText("What was done")).toHaveFocus();
     await user.type(within(dialog).getByLabelText("What was done"), "Done");
     await user.click(within(dialog).getByRole("button", { name: "Record completion" }));
@@ -406,7 +434,12 @@ describe("the works of a case, for staff", () => {
     await user.click(within(dialog).getByRole("button", { name: "Record completion" }));
     await waitFor(() => expect(api.callsTo("PATCH", "/api/work-orders/7")).toHaveLength(1));
     expect(api.callsTo("PATCH", "/api/work-orders/7")[0]!.body).toEqual({
-      complete: { note: "Done: fitted a 15 l/s humidistat fan.", minutesOnSite: 90 },
+      complete: {
+        note: "Done: fitted a 15 l/s humidistat fan.",
+        minutesOnSite: 90,
+        doneOn: todayInLondon(),
+        earlyReason: "The tenant asked for an earlier visit.",
+      },
     });
     expect(await within(fan).findByText(/Completion recorded/)).toBeInTheDocument();
   });
@@ -440,6 +473,7 @@ describe("the works of a case, for staff", () => {
       worksDoneAt: "2026-12-02T15:30:00.000Z",
       monitoringEndsAt: "2026-12-23T15:30:00.000Z",
       monitoringDays: 21,
+      enoughReadings: true,
       outcome: null,
       rooms: [
         {
@@ -581,6 +615,45 @@ describe("the works of a case, for staff", () => {
     });
   });
 
+  it("asks for a reason before recording fix effective without the readings after the works", async () => {
+    const user = userEvent.setup();
+    const monitoring = {
+      ...noWorks,
+      state: "monitoring",
+      worksDoneAt: "2026-12-02T15:30:00.000Z",
+      monitoringEndsAt: "2026-12-23T15:30:00.000Z",
+    };
+    const api = staffApi(users.maintenance, "monitoring", {
+      "GET /api/cases/42/verification": { body: monitoring },
+      "POST /api/cases/42/verification": { body: { ...monitoring, state: "decided" } },
+    });
+    await openWorkspace();
+    const panel = region("Did the fix work?");
+    await user.click(await within(panel).findByRole("button", { name: "Fix effective" }));
+    expect(within(panel).getByText("Not enough readings after the works yet")).toBeInTheDocument();
+    await user.type(within(panel).getByLabelText("What the readings and the visit showed"), "No mould seen on the visit.");
+    await user.click(within(panel).getByRole("button", { name: "Record: fix effective…" }));
+    expect(within(panel).getByText(/Say why the fix can be judged without the readings/)).toBeInTheDocument();
+    expect(within(panel).getByLabelText("Why decide without the readings")).toHaveFocus();
+    expect(api.callsTo("POST", "/api/cases/42/verification")).toHaveLength(0);
+    await user.type(
+      within(panel).getByLabelText("Why decide without the readings"),
+      "The tenant has no hygrometer; visit showed dry walls.",
+    );
+    await user.click(within(panel).getByRole("button", { name: "Record: fix effective…" }));
+    await user.click(
+      within(await screen.findByRole("dialog", { name: "Close the case as fixed?" })).getByRole("button", {
+        name: "Yes, the fix worked",
+      }),
+    );
+    await waitFor(() => expect(api.callsTo("POST", "/api/cases/42/verification")).toHaveLength(1));
+    expect(api.callsTo("POST", "/api/cases/42/verification")[0]!.body).toEqual({
+      effective: true,
+      note: "No mould seen on the visit.",
+      override: { reason: "The tenant has no hygrometer; visit showed dry walls." },
+    });
+  });
+
   it("shows the recorded outcome, and offers no decision to an officer", async () => {
     staffApi(users.officer, "closed", {
       "GET /api/cases/42/verification": {
@@ -590,7 +663,14 @@ describe("the works of a case, for staff", () => {
           monitoringEndsAt: "2026-12-23T15:30:00.000Z",
           monitoringDays: 21,
           rooms: [],
-          outcome: { effective: true, note: "Dry corner, no mould.", at: "2026-12-23T16:00:00.000Z", by: "Dale Whitcombe" },
+          enoughReadings: true,
+          outcome: {
+            effective: true,
+            note: "Dry corner, no mould.",
+            at: "2026-12-23T16:00:00.000Z",
+            by: "Dale Whitcombe",
+            override: null,
+          },
         },
       },
     });
@@ -621,7 +701,8 @@ function tenantApi(status: CaseStatus, workOrders: unknown[], overrides: Routes 
 
 /** What the tenant's API gives: no staff-only fields. */
 const tenantOrder = (o: typeof fanOrder | typeof washOrder) => {
-  const { accessNotes: _a, bookings: _b, ...rest } = o;
+  // The operative's description, the bookings and the access notes are staff only.
+  const { accessNotes: _a, bookings: _b, description: _d, ...rest } = o;
   return rest;
 };
 

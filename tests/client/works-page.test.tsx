@@ -164,7 +164,7 @@ describe("Works page", () => {
     // The week in the URL is the one asked for, Monday to Friday.
     const sent = boardCalls(callsTo("GET", "/api/work-orders"))[0]!.search;
     expect(sent.get("from")).toBe(nextMonday);
-    expect(sent.get("to")).toBe(plus(nextMonday, 4));
+    expect(sent.get("to")).toBe(plus(nextMonday, 6));
     expect(sent.get("status")).toBe("scheduled,change-requested,confirmed,done");
 
     // Column headers are the working days; row headers the operatives, then the contractors.
@@ -222,7 +222,7 @@ describe("Works page", () => {
     await user.click(screen.getByRole("button", { name: /Next week/ }));
     await waitFor(() => expect(search(router).get("week")).toBe(nextMonday));
     await waitFor(() =>
-      expect(boardCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search.get("to")).toBe(plus(nextMonday, 4)),
+      expect(boardCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search.get("to")).toBe(plus(nextMonday, 6)),
     );
     expect(boardCalls(callsTo("GET", "/api/work-orders")).at(-1)!.search.get("from")).toBe(nextMonday);
 

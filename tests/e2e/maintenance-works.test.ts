@@ -1,6 +1,7 @@
 // The maintenance journey in Chromium: the lead orders and books an extractor-fan fix for an
 // investigated case, the tenant confirms the slot, the operative completes it with a photo,
 // readings after the works show the improvement, and the lead records the fix as effective.
+// The work is recorded as done today, before the booked day, so with a reason.
 // An axe-core scan of the week board.
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -13,7 +14,8 @@ import { launchBrowser, type Browser } from "../support/browser.js";
 import { jpegWithGps } from "../support/images.js";
 import { DEMO_PASSWORD, serveDemoApp, type ServedApp } from "../support/served-app.js";
 import { signedInClient, type Client } from "../support/test-app.js";
-import { msAgo, workingDayAhead } from "../support/test-clock.js";
+import { localDate } from "../../src/lib/domain/working-days.js";
+import { msAgo, testClock, workingDayAhead } from "../support/test-clock.js";
 
 let served: ServedApp;
 let browser: Browser;
@@ -143,10 +145,17 @@ it("books, confirms, completes and verifies an extractor-fan fix", async () => {
     .filter({ has: page.getByRole("heading", { name: "Extractor fan: fit or repair" }) });
   await expect.poll(async () => (await done.innerText()).toLowerCase().includes("confirmed")).toBe(true);
   await done.getByRole("button", { name: /^Record completion…/ }).click();
+  // Done today, ahead of the booked day: the day and the reason are asked for.
+  await page.getByRole("dialog").getByLabel("Day the work was done").fill(localDate(testClock.now()));
   await page
     .getByRole("dialog")
     .getByRole("textbox", { name: /What was done/ })
     .fill("Fitted a continuous extract fan with humidity boost; tested the run-on and the boost.");
+  await page.getByRole("dialog").getByRole("button", { name: "Record completion" }).click();
+  await page
+    .getByRole("dialog")
+    .getByRole("textbox", { name: "Why was it done before the booked day?" })
+    .fill("Dale had a cancellation and Sam was at home.");
   await page.getByRole("dialog").getByRole("button", { name: "Record completion" }).click();
   const photo = path.join(scratch, "fan.jpg");
   writeFileSync(photo, await jpegWithGps(1600, 1200));

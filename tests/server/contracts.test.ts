@@ -6,6 +6,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { endpointFor, isJsonSchema } from "../../src/lib/contracts/index.js";
 import { makeLandlord, PASSWORD } from "../support/factories.js";
 import { jpegWithGps } from "../support/images.js";
+import { testClock } from "../support/test-clock.js";
+import { localDate } from "../../src/lib/domain/working-days.js";
 import { anonymousClient, createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
 
 let t: TestApp;
@@ -186,7 +188,13 @@ describe("the server's replies fit the API contract", () => {
     });
     await get(lead, "/api/contractors");
     await patch(lead, `/api/work-orders/${workOrderId}`, {
-      complete: { note: "New fan fitted and tested.", materials: "Humidistat fan", minutesOnSite: 90 },
+      complete: {
+        note: "New fan fitted and tested.",
+        materials: "Humidistat fan",
+        minutesOnSite: 90,
+        doneOn: localDate(testClock.now()),
+        earlyReason: "The tenant asked us to come in earlier, on a cancelled slot.",
+      },
     });
     const photos = lead.agent
       .post(`/api/work-orders/${workOrderId}/photos`)

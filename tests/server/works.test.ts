@@ -7,8 +7,10 @@ import { OperativeSlot } from "../../server/modules/works/operative-slot.entity.
 import { appointmentIcs } from "../../server/modules/works/appointment.js";
 import { makeLandlord, makeProperty, makeTenant, makeUser, PASSWORD } from "../support/factories.js";
 import { jpegWithGps } from "../support/images.js";
+import { outboxCount, outboxRows } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
-import { hoursAgo, msAgo, workingDayAhead, workingDaysAhead } from "../support/test-clock.js";
+import { bankHolidayDates, localDate } from "../../src/lib/domain/working-days.js";
+import { daysAgo, daysAhead, hoursAgo, msAgo, testClock, workingDayAhead, workingDaysAhead } from "../support/test-clock.js";
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -29,6 +31,9 @@ const inspection = {
   findings: "Extract fan not working; condensation mould on the ceiling above the bath.",
   roomReadings: [],
 };
+
+/** Today's London date on the test clock: the day the work is recorded as done. */
+const today = () => localDate(testClock.now());
 
 /** A London working day at least `days` days ahead of the test clock. */
 const futureDate = (days: number) => workingDayAhead(days);
@@ -300,6 +305,8 @@ describe("the case follows its orders", () => {
           note: "Fitted a continuous extract fan with humidistat boost; tested.",
           materials: "Fan, 100 mm duct, fused spur",
           minutesOnSite: 150,
+          doneOn: today(),
+          earlyReason: "A cancellation freed the operative today and the tenant was at home.",
         },
       })
       .expect(200);
@@ -314,7 +321,7 @@ describe("the case follows its orders", () => {
       .patch(`/api/work-orders/${wash.id}`, {
         complete: {
           note: "Washed the ceiling with fungicide and let it dry.",
-          followOn: "Repaint with mould-resistant paint in a week.",
+          doneOn: today(),
         },
       })
       .expect(200);
@@ -337,13 +344,36 @@ describe("the case follows its orders", () => {
     expect(Date.parse(view.monitoringEndsAt) - Date.parse(view.worksDoneAt)).toBe(21 * 86_400_000);
 
     await tenant.post(`/api/cases/${caseId}/verification`, { effective: true, note: "Dry" }).expect(403);
+    // Day 0 of monitoring: no readings after the works, so "fix effective" needs an override with a reason.
+    expect(view.enoughReadings).toBe(false);
+    const early = await lead.post(`/api/cases/${caseId}/verification`, { effective: true, note: "Looks dry to me." }).expect(409);
+    expect(early.body.error.code).toBe("not_enough_readings");
+    expect(early.body.error.details).toEqual([expect.objectContaining({ field: "override.reason" })]);
+    expect(await status(caseId)).toBe("monitoring");
+    await lead
+      .post(`/api/cases/${caseId}/verification`, { effective: true, note: "Dry.", override: { reason: "short" } })
+      .expect(400);
+    const told = { to: landlord.tenant.email, template: "fixConfirmed", caseId };
+    expect(await outboxCount(t.ctx.dataSource, told)).toBe(0);
     await lead
       .post(`/api/cases/${caseId}/verification`, {
         effective: true,
         note: "Surface humidity down from the mid-90s to about 60 %.",
+        override: { reason: "The tenant's own logger showed dry readings; they cannot add them to Dewline." },
       })
       .expect(200);
     expect(await status(caseId)).toBe("closed");
+    // The override's reason is on the staff timeline and in the verdict, never the tenant's.
+    const verdict = (await officer.get(`/api/cases/${caseId}/events`)).body.events.find(
+      (e: { type: string }) => e.type === "fix-verified",
+    );
+    expect(verdict.after.override).toMatch(/own logger/);
+    expect((await lead.get(`/api/cases/${caseId}/verification`)).body.outcome.override).toMatch(/own logger/);
+    expect(JSON.stringify((await tenant.get(`/api/cases/${caseId}/events`)).body)).not.toMatch(/own logger/);
+    expect((await tenant.get(`/api/cases/${caseId}/verification`)).body.outcome.override).toBeNull();
+    // The lead's screen says the tenant is told: they are, by e-mail.
+    expect(await outboxCount(t.ctx.dataSource, told)).toBe(1);
+    expect((await t.mail.lastTo(landlord.tenant.email)).subject).toMatch(/The repair worked/);
     await lead.post(`/api/cases/${caseId}/verification`, { effective: true, note: "Again" }).expect(409);
   });
 
@@ -354,7 +384,9 @@ describe("the case follows its orders", () => {
         .post(`/api/cases/${caseId}/work-orders`, { type: "trickle-vents", description: "Open the trickle vents." })
         .expect(201)
     ).body;
-    await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Trickle vents freed and opened." } }).expect(200);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, { complete: { note: "Trickle vents freed and opened.", doneOn: today() } })
+      .expect(200);
     expect(await status(caseId)).toBe("monitoring");
     await lead
       .post(`/api/cases/${caseId}/verification`, {
@@ -388,7 +420,7 @@ describe("the end of the monitoring period", () => {
     const wo = (
       await officer.post(`/api/cases/${caseId}/work-orders`, { type: "mould-wash", description: "Wash the mould." }).expect(201)
     ).body;
-    await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Washed with fungicide." } }).expect(200);
+    await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Washed with fungicide.", doneOn: today() } }).expect(200);
     await t.ctx.dataSource.getRepository(Case).update(caseId, { monitoringEndsAt: msAgo(60_000) });
     const before = t.mail.mails.length;
     expect(await t.ctx.services.verification.sendDueReminders()).toBeGreaterThanOrEqual(1);
@@ -399,5 +431,176 @@ describe("the end of the monitoring period", () => {
     const again = t.mail.mails.length;
     await t.ctx.services.verification.sendDueReminders();
     expect(t.mail.mails.slice(again).filter((m) => m.raw.includes(`/cases/${caseId}`))).toEqual([]);
+  });
+});
+
+describe("booking days, completion dates and follow-on work", () => {
+  /** The first Saturday at least `min` days ahead, and the first England-and-Wales bank holiday on a weekday ahead. */
+  const saturdayAhead = (min: number) => {
+    for (let d = min; ; d++) {
+      const date = localDate(daysAhead(d));
+      if (new Date(`${date}T12:00:00Z`).getUTCDay() === 6) return date;
+    }
+  };
+  const bankHolidayAhead = () => {
+    const from = today();
+    const year = Number(from.slice(0, 4));
+    return [...bankHolidayDates(year), ...bankHolidayDates(year + 1)].find(
+      (d) => d > from && ![0, 6].includes(new Date(`${d}T12:00:00Z`).getUTCDay()),
+    )!;
+  };
+
+  async function order(caseId: number, type = "mould-wash", description = "Fungicidal wash of the bathroom ceiling.") {
+    return (await officer.post(`/api/cases/${caseId}/work-orders`, { type, description }).expect(201)).body as {
+      id: number;
+    };
+  }
+
+  it("refuses a Saturday, a Sunday and a bank holiday, naming slot.date, and books nothing", async () => {
+    const caseId = await investigatedCase();
+    const wo = await order(caseId);
+    const saturday = saturdayAhead(3);
+    const sunday = localDate(new Date(Date.parse(`${saturday}T12:00:00Z`) + 86_400_000));
+    for (const date of [saturday, sunday, bankHolidayAhead()]) {
+      const res = await lead
+        .patch(`/api/work-orders/${wo.id}`, { assigneeId: landlord.maintenance.id, slot: { date, window: "am" } })
+        .expect(400);
+      expect(res.body.error.details).toEqual([expect.objectContaining({ field: "slot.date" })]);
+      expect(res.body.error.message).toMatch(/not a working day/);
+    }
+    const orders = (await lead.get(`/api/cases/${caseId}/work-orders`)).body.workOrders;
+    expect(orders[0]).toMatchObject({ status: "unscheduled", slot: null });
+    expect(await status(caseId)).toBe("investigated");
+  });
+
+  it("asks for the actual date of the work, never a day to come, and a reason when it is before the booked day", async () => {
+    const caseId = await investigatedCase();
+    const wo = await order(caseId);
+    const booked = futureDate(8);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, { assigneeId: landlord.maintenance.id, slot: { date: booked, window: "pm" } })
+      .expect(200);
+    const note = "Washed the ceiling with fungicide.";
+    const missing = await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note } }).expect(400);
+    expect(missing.body.error.details).toEqual([expect.objectContaining({ field: "complete.doneOn" })]);
+    const future = await lead
+      .patch(`/api/work-orders/${wo.id}`, { complete: { note, doneOn: localDate(daysAhead(1)) } })
+      .expect(400);
+    expect(future.body.error.details).toEqual([expect.objectContaining({ field: "complete.doneOn" })]);
+    const early = await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note, doneOn: today() } }).expect(400);
+    expect(early.body.error.details).toEqual([expect.objectContaining({ field: "complete.earlyReason" })]);
+    expect(early.body.error.message).toMatch(/booked for/);
+    // Nothing changed: the order is still booked and the case still planned.
+    const still = (await lead.get(`/api/cases/${caseId}/work-orders`)).body.workOrders[0];
+    expect(still).toMatchObject({ status: "scheduled", completion: null });
+
+    // The work was done yesterday (the tenant rang: the operative had a gap), recorded today.
+    await t.ctx.dataSource.getRepository(Case).update(caseId, { awareAt: daysAgo(10) });
+    const yesterday = localDate(daysAgo(1));
+    const done = (
+      await lead
+        .patch(`/api/work-orders/${wo.id}`, {
+          complete: { note, doneOn: yesterday, earlyReason: "The operative had a gap and the tenant asked for it sooner." },
+        })
+        .expect(200)
+    ).body;
+    expect(done.completion).toMatchObject({ doneOn: yesterday, earlyReason: expect.stringMatching(/had a gap/) });
+    // The work is dated on that day (London), not on the moment it was typed in.
+    expect(localDate(new Date(done.completion.at))).toBe(yesterday);
+    const view = (await lead.get(`/api/cases/${caseId}/verification`)).body;
+    expect(localDate(new Date(view.worksDoneAt))).toBe(yesterday);
+    // The tenant sees the date but not the staff's reason.
+    const mine = (await tenant.get(`/api/cases/${caseId}/work-orders`)).body.workOrders[0];
+    expect(mine.completion).toMatchObject({ doneOn: yesterday, earlyReason: null });
+  });
+
+  it("raises follow-on work found as a new order, so the case stays open for it", async () => {
+    const caseId = await investigatedCase();
+    const wo = await order(caseId);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, {
+        complete: {
+          note: "Washed the ceiling with fungicide.",
+          doneOn: today(),
+          followOn: "The bathroom needs repainting with mould-resistant paint once dry.",
+          followOnType: "mould-resistant-decoration",
+        },
+      })
+      .expect(200);
+    const orders = (await lead.get(`/api/cases/${caseId}/work-orders`)).body.workOrders;
+    expect(orders.map((o: { type: string; status: string }) => [o.type, o.status])).toEqual([
+      ["mould-wash", "done"],
+      ["mould-resistant-decoration", "unscheduled"],
+    ]);
+    expect(orders[1].description).toMatch(/repainting/);
+    // Not into monitoring while the follow-on work is open; it cannot be judged "fixed" yet.
+    expect(await status(caseId)).not.toBe("monitoring");
+    await lead
+      .post(`/api/cases/${caseId}/verification`, { effective: true, note: "Dry", override: { reason: "x".repeat(12) } })
+      .expect(409);
+    const completed = (await lead.get(`/api/cases/${caseId}/events`)).body.events.find(
+      (e: { type: string }) => e.type === "work-order-completed",
+    );
+    expect(completed.after.followOnWorkOrderId).toBe(orders[1].id);
+  });
+
+  it("records fix effective without an override once the readings after the works cover a day", async () => {
+    const caseId = await investigatedCase();
+    await t.ctx.dataSource.getRepository(Case).update(caseId, { awareAt: daysAgo(10) });
+    const wo = await order(caseId);
+    const doneOn = localDate(daysAgo(4));
+    await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Washed the ceiling.", doneOn } }).expect(200);
+    const c = (await tenant.get(`/api/cases/${caseId}`)).body;
+    const roomId = c.homeRooms[0].id;
+    const worksAt = Date.parse((await lead.get(`/api/cases/${caseId}/verification`)).body.worksDoneAt);
+    const at = (ms: number) => new Date(ms).toISOString();
+    const hour = 3_600_000;
+    // Before: 20 °C, 80 % (damp); after: 20 °C, 50 %, for 30 hours.
+    await tenant
+      .post(`/api/cases/${caseId}/readings`, [
+        ...Array.from({ length: 24 }, (_, h) => ({
+          roomId,
+          takenAt: at(worksAt - (30 - h) * hour),
+          airTemperatureC: 20,
+          relativeHumidityPct: 80,
+        })),
+        ...Array.from({ length: 31 }, (_, h) => ({
+          roomId,
+          takenAt: at(worksAt + (h + 1) * hour),
+          airTemperatureC: 20,
+          relativeHumidityPct: 50,
+        })),
+      ])
+      .expect(201);
+    const view = (await lead.get(`/api/cases/${caseId}/verification`)).body;
+    if (!view.enoughReadings) throw new Error(`expected enough readings: ${JSON.stringify(view.rooms)}`);
+    await lead
+      .post(`/api/cases/${caseId}/verification`, { effective: true, note: "Surface humidity down to about 60 %." })
+      .expect(200);
+    expect(await status(caseId)).toBe("closed");
+  });
+
+  it("e-mails the tenant when a visit is booked and again when it moves, with no operative description in either", async () => {
+    const caseId = await investigatedCase();
+    const secret = "Operative only: bring the long ladder, loft hatch is stiff.";
+    const wo = await order(caseId, "extractor-fan", secret);
+    const [first, second] = workingDaysAhead(18, 2);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, { assigneeId: landlord.maintenance.id, slot: { date: first, window: "am" } })
+      .expect(200);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, { assigneeId: landlord.maintenance.id, slot: { date: second, window: "pm" } })
+      .expect(200);
+    const rows = await outboxRows(t.ctx.dataSource, { to: landlord.tenant.email, template: "appointmentProposed", caseId });
+    expect(rows.map((r) => r.subject)).toEqual([
+      expect.stringMatching(/^Proposed appointment/),
+      expect.stringMatching(/^New time proposed/),
+    ]);
+    const mail = await t.mail.lastTo(landlord.tenant.email);
+    expect(mail.subject).toMatch(/^New time proposed/);
+    expect(mail.raw).not.toContain("long ladder");
+    // The operative's copy carries the description in the calendar file.
+    const toOperative = await t.mail.lastTo(landlord.maintenance.email);
+    expect(toOperative.raw.replace(/\r?\n[ \t]/g, "")).toContain("long ladder");
   });
 });

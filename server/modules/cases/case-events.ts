@@ -67,10 +67,27 @@ export type CaseEventPayload =
       type: "booking-confirmed" | "booking-change-requested";
       after: { workOrderId: number; date: string; window: SlotWindow; reason: string | null };
     }
-  | { type: "work-order-completed"; after: { workOrderId: number; note: string; followOn: string | null } }
+  | {
+      type: "work-order-completed";
+      after: {
+        workOrderId: number;
+        note: string;
+        followOn: string | null;
+        /** The London date the work was done, as entered (older events have none). */
+        doneOn?: string;
+        /** Why it was done before the booked day, when it was. */
+        earlyReason?: string | null;
+        /** The order raised for the follow-on work found. */
+        followOnWorkOrderId?: number | null;
+      };
+    }
   | { type: "work-order-cancelled"; after: { workOrderId: number; reason: string } }
   | { type: "monitoring-started"; after: { worksDoneAt: string; endsAt: string; days: number } }
-  | { type: "fix-verified"; after: { effective: boolean; note: string } };
+  | {
+      type: "fix-verified";
+      /** override: why "fix effective" was recorded without enough readings after the works (staff only). */
+      after: { effective: boolean; note: string; override?: string | null };
+    };
 
 export type CaseEventType = CaseEventPayload["type"];
 

@@ -1,16 +1,21 @@
 import type { z } from "zod";
 import type { caseEventEmail, caseEventResponse, caseResponse } from "../../../src/lib/contracts/cases.js";
 import type { CaseEvent } from "./case-event.entity.js";
+import type { CaseEventType } from "./case-events.js";
 import type { Case } from "./case.entity.js";
 
-export const toCaseDto = (c: Case): z.input<typeof caseResponse> => ({
+/** Who reads the reply: staff see everything; the tenant never sees staff-only text. */
+export type Audience = "staff" | "tenant";
+
+export const toCaseDto = (c: Case, audience: Audience = "staff"): z.input<typeof caseResponse> => ({
   id: c.id,
   reference: c.reference,
   status: c.status,
   assigneeId: c.assigneeUserId,
   tenantUserId: c.tenantUserId,
   hazardClass: c.hazardClass,
-  hazardClassReason: c.hazardClassReason,
+  // The officer's reason for the classification is staff-only.
+  hazardClassReason: audience === "staff" ? c.hazardClassReason : null,
   channel: c.channel,
   awareAt: c.awareAt.toISOString(),
   createdAt: c.createdAt.toISOString(),
@@ -38,20 +43,41 @@ export type CaseDto = z.input<typeof caseResponse>;
 
 export type CaseEventEmail = z.input<typeof caseEventEmail>;
 
-export const toCaseEventDto = ({
-  event,
-  actor,
-  email,
-}: {
-  event: CaseEvent;
-  actor: { name: string; role: string } | null;
-  email: CaseEventEmail | null;
-}): z.input<typeof caseEventResponse> => ({
-  id: Number(event.id),
-  type: event.type,
-  at: event.createdAt.toISOString(),
-  actor,
-  before: event.before,
-  after: event.after,
-  email,
-});
+/**
+ * Payload fields of the timeline that hold staff-only text (the operative's description, officers'
+ * reasons, follow-on notes, an override's reason): left out of the tenant's timeline.
+ */
+const STAFF_ONLY_FIELDS: Partial<Record<CaseEventType, readonly string[]>> = {
+  "status-changed": ["reason"],
+  "hazard-classified": ["reason"],
+  "work-order-created": ["description"],
+  "work-order-completed": ["followOn", "earlyReason"],
+  "fix-verified": ["override"],
+};
+
+const withoutFields = (payload: Record<string, unknown> | null, fields: readonly string[] | undefined) =>
+  payload && fields ? Object.fromEntries(Object.entries(payload).filter(([k]) => !fields.includes(k))) : payload;
+
+export const toCaseEventDto = (
+  {
+    event,
+    actor,
+    email,
+  }: {
+    event: CaseEvent;
+    actor: { name: string; role: string } | null;
+    email: CaseEventEmail | null;
+  },
+  audience: Audience = "staff",
+): z.input<typeof caseEventResponse> => {
+  const hidden = audience === "tenant" ? STAFF_ONLY_FIELDS[event.type as CaseEventType] : undefined;
+  return {
+    id: Number(event.id),
+    type: event.type,
+    at: event.createdAt.toISOString(),
+    actor,
+    before: withoutFields(event.before, hidden),
+    after: withoutFields(event.after, hidden),
+    email,
+  };
+};

@@ -4,11 +4,13 @@ import { shaped } from "../../lib/contract.js";
 import { caseReportSchema, staffCaseSchema } from "../../../src/lib/schemas/case-report.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth, requireRole } from "../../middleware/auth.js";
-import { isStaff } from "../auth/actor.js";
+import { isStaff, type Actor } from "../auth/actor.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { CaseService } from "./case.service.js";
-import { toCaseDto, toCaseEventDto } from "./case.mapper.js";
+import { toCaseDto, toCaseEventDto, type Audience } from "./case.mapper.js";
 import { casePatchSchema, worseSchema } from "./cases.schemas.js";
+
+const audienceOf = (actor: Actor): Audience => (isStaff(actor) ? "staff" : "tenant");
 
 /** Each case's photo count and first photo (PhotoService gives it; cases depend on no photo code). */
 export interface CasePhotoSummaries {
@@ -29,12 +31,12 @@ export function createCasesRouter({ cases, figures }: { cases: CaseService; figu
     const actor = actorOf(req);
     const input = isStaff(actor) ? parse(staffCaseSchema, req.body) : parse(caseReportSchema, req.body);
     const created = await cases.create(actor, input);
-    res.status(201).json(toCaseDto(await cases.getForActor(actor, created.id)));
+    res.status(201).json(toCaseDto(await cases.getForActor(actor, created.id), audienceOf(actor)));
   });
 
   router.get("/:id", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json(toCaseDto(await cases.getForActor(actorOf(req), id)));
+    res.json(toCaseDto(await cases.getForActor(actorOf(req), id), audienceOf(actorOf(req))));
   });
 
   router.patch("/:id", requireRole("officer", "admin"), async (req, res) => {
@@ -45,7 +47,10 @@ export function createCasesRouter({ cases, figures }: { cases: CaseService; figu
 
   router.get("/:id/events", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    res.json(shaped(caseEventsResponse, { events: (await cases.events(actorOf(req), id)).map(toCaseEventDto) }));
+    const audience = audienceOf(actorOf(req));
+    res.json(
+      shaped(caseEventsResponse, { events: (await cases.events(actorOf(req), id)).map((e) => toCaseEventDto(e, audience)) }),
+    );
   });
 
   router.post("/:id/worse", requireRole("tenant"), async (req, res) => {
@@ -70,7 +75,11 @@ export function createMyCasesRouter({ cases, photos }: { cases: CaseService; pho
       shaped(myCasesResponse, {
         items: items.map((c) => {
           const s = summaries.get(c.id);
-          return { ...toCaseDto(c), photoCount: s?.count ?? 0, thumbnailUrl: s ? `/api/photos/${s.firstId}/thumbnail` : null };
+          return {
+            ...toCaseDto(c, "tenant"),
+            photoCount: s?.count ?? 0,
+            thumbnailUrl: s ? `/api/photos/${s.firstId}/thumbnail` : null,
+          };
         }),
       }),
     );

@@ -206,15 +206,19 @@ export const mailTemplates = {
     ics: string;
     forOperative: boolean;
     accessNotes: string | null;
+    /** The visit moved from an earlier booking. */
+    rescheduled?: boolean;
   }): RenderedMail {
     return {
-      subject: `${d.forOperative ? "Booked" : "Proposed appointment"}: ${d.workWords}, ${d.slotWords} (${d.reference})`,
+      subject: `${d.forOperative ? "Booked" : d.rescheduled ? "New time proposed" : "Proposed appointment"}: ${d.workWords}, ${d.slotWords} (${d.reference})`,
       text: [
         `Hello ${d.name},`,
         "",
         d.forOperative
           ? `You are booked for ${d.workWords} at ${d.address}, ${d.slotWords}. The tenant has been asked to confirm.`
-          : `We would like to come to ${d.address} for ${d.workWords} on ${d.slotWords}. Please confirm on your case page, or ask for another time if this one does not suit you:`,
+          : d.rescheduled
+            ? `The visit to ${d.address} for ${d.workWords} has moved. The new time is ${d.slotWords}. Please confirm it on your case page, or ask for another time if it does not suit you:`
+            : `We would like to come to ${d.address} for ${d.workWords} on ${d.slotWords}. Please confirm on your case page, or ask for another time if this one does not suit you:`,
         ...(d.forOperative ? [] : [d.link]),
         ...(d.forOperative && d.accessNotes ? ["", `Access and household notes: ${d.accessNotes}`] : []),
         "",
@@ -299,6 +303,18 @@ export const mailTemplates = {
         "",
         `The work on your report ${d.reference} is done. Over the next ${d.days} days, until ${d.endsOn}, we will check that the damp and mould have really stopped.`,
         "If you have a thermometer and humidity meter (hygrometer) or a data logger, please add readings on your case page now and then, in the rooms that were affected. Tell us at once if anything comes back:",
+        d.link,
+      ].join("\n"),
+    };
+  },
+  fixConfirmed(d: { name: string; reference: string; link: string }): RenderedMail {
+    return {
+      subject: `The repair worked: ${d.reference} is closed`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `We have checked the work on your report ${d.reference} and the damp and mould problem looks fixed, so we have closed the report.`,
+        "If damp or mould comes back, open your case page and tell us it has got worse, or make a new report:",
         d.link,
       ].join("\n"),
     };

@@ -23,15 +23,18 @@ export function slotInstants(date: string, window: SlotWindow): { start: Date; e
   return { start: wall(hours.from), end: wall(hours.to) };
 }
 
-export function describeSlot(date: string, window: SlotWindow): string {
-  const day = new Date(`${date}T12:00:00Z`).toLocaleDateString("en-GB", {
+/** "Saturday 12 December 2026" from "2026-12-12" (a calendar date, never shifted a day). */
+export const describeDay = (date: string): string =>
+  new Date(`${date}T12:00:00Z`).toLocaleDateString("en-GB", {
     weekday: "long",
     day: "numeric",
     month: "long",
     year: "numeric",
     timeZone: "UTC",
   });
-  return `${day}, ${WINDOW_HOURS[window].label}`;
+
+export function describeSlot(date: string, window: SlotWindow): string {
+  return `${describeDay(date)}, ${WINDOW_HOURS[window].label}`;
 }
 
 const parts = (d: Date): [number, number, number, number, number] => [

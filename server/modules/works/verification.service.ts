@@ -1,11 +1,11 @@
 import type { DataSource } from "typeorm";
 import { elementsForReport } from "../../../src/lib/domain/home-elements.js";
-import { compareBeforeAfter, type BeforeAfter } from "../../../src/lib/domain/verification.js";
+import { compareBeforeAfter, MIN_AFTER_HOURS, type BeforeAfter } from "../../../src/lib/domain/verification.js";
 import type { Config } from "../../config/env.js";
-import { ConflictError } from "../../lib/errors.js";
+import { AppError, ConflictError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
-import type { Actor } from "../auth/actor.js";
-import type { CaseService } from "../cases/case.service.js";
+import { isStaff, type Actor } from "../auth/actor.js";
+import type { Case, CaseService } from "../cases/case.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
 import type { ReadingService } from "../readings/reading.service.js";
 import type { UserService } from "../users/user.service.js";
@@ -20,8 +20,14 @@ export interface VerificationView {
   monitoringEndsAt: string | null;
   monitoringDays: number;
   rooms: { roomId: number; roomName: string; comparison: BeforeAfter }[];
-  outcome: { effective: boolean; note: string; at: string; by: string | null } | null;
+  /** At least one affected room has enough readings after the works to compare (MIN_AFTER_HOURS): "fix effective" needs this or an override. */
+  enoughReadings: boolean;
+  /** override: why "fix effective" was recorded without enough readings (staff only; null for the tenant). */
+  outcome: { effective: boolean; note: string; at: string; by: string | null; override: string | null } | null;
 }
+
+/** Enough readings after the works in at least one affected room to compare (the page's "Not enough readings yet" otherwise). */
+const hasEnoughReadings = (rooms: VerificationView["rooms"]) => rooms.some((r) => r.comparison.improved !== null);
 
 /** After the works: readings before against after, the lead's decision, and the end-of-period reminders. */
 export class VerificationService {
@@ -52,27 +58,20 @@ export class VerificationService {
           note: String(outcomeEvent.after.note ?? ""),
           at: outcomeEvent.createdAt.toISOString(),
           by,
+          override: isStaff(actor) ? (outcomeEvent.after.override ?? null) : null,
         }
       : null;
     if (!c.worksDoneAt)
-      return { state: "no-works", worksDoneAt: null, monitoringEndsAt: null, monitoringDays, rooms: [], outcome: null };
-    const property = c.property!;
-    const element = elementsForReport(property, c.locations)[0];
-    const rooms: VerificationView["rooms"] = [];
-    for (const room of this.cases.roomsOf(c)) {
-      const series = await this.readings.seriesFor(c.id, room.id);
-      if (series.length === 0) continue;
-      rooms.push({
-        roomId: room.id,
-        roomName: room.name,
-        comparison: compareBeforeAfter({
-          readings: series,
-          worksDoneAt: c.worksDoneAt,
-          element,
-          surfaceWet: c.observations.includes("wet-patches") || c.observations.includes("leak"),
-        }),
-      });
-    }
+      return {
+        state: "no-works",
+        worksDoneAt: null,
+        monitoringEndsAt: null,
+        monitoringDays,
+        rooms: [],
+        enoughReadings: false,
+        outcome: null,
+      };
+    const rooms = await this.comparisons(c, c.worksDoneAt);
     const state = outcome
       ? "decided"
       : c.monitoringEndsAt && c.monitoringEndsAt.getTime() <= this.clock.now().getTime()
@@ -84,36 +83,92 @@ export class VerificationService {
       monitoringEndsAt: c.monitoringEndsAt?.toISOString() ?? null,
       monitoringDays,
       rooms,
+      enoughReadings: hasEnoughReadings(rooms),
       outcome,
     };
+  }
+
+  /** Before against after for each affected room with readings. */
+  private async comparisons(c: Case, worksDoneAt: Date): Promise<VerificationView["rooms"]> {
+    const element = elementsForReport(c.property!, c.locations)[0];
+    const rooms: VerificationView["rooms"] = [];
+    for (const room of this.cases.roomsOf(c)) {
+      const series = await this.readings.seriesFor(c.id, room.id);
+      if (series.length === 0) continue;
+      rooms.push({
+        roomId: room.id,
+        roomName: room.name,
+        comparison: compareBeforeAfter({
+          readings: series,
+          worksDoneAt,
+          element,
+          surfaceWet: c.observations.includes("wet-patches") || c.observations.includes("leak"),
+        }),
+      });
+    }
+    return rooms;
   }
 
   /** "Fix effective" closes the case; "not effective" sends it back to investigated with a new work order. */
   async decide(
     actor: Actor,
     caseId: number,
-    input: { effective: true; note: string } | { effective: false; note: string; workOrder: WorkOrderCreate },
+    input:
+      | { effective: true; note: string; override?: { reason: string } }
+      | { effective: false; note: string; workOrder: WorkOrderCreate },
   ): Promise<void> {
-    await this.dataSource.transaction(async (m) => {
+    const deliveries = await this.dataSource.transaction(async (m) => {
       const c = await this.cases.getForActor(actor, caseId, m);
       const fresh = await this.cases.lockRow(m, c.id);
       if (fresh.status !== "monitoring")
         throw new ConflictError(
           `The fix is judged while the case is being monitored after the works; this case is ${fresh.status}.`,
         );
+      // "Fix effective" needs the readings after the works, or an override whose reason is kept on the timeline.
+      const override = input.effective ? (input.override?.reason ?? null) : null;
+      if (input.effective && !override && !hasEnoughReadings(await this.comparisons(c, fresh.worksDoneAt ?? c.worksDoneAt!))) {
+        throw new AppError(
+          409,
+          "not_enough_readings",
+          `There are not enough readings after the works to judge the fix (at least ${MIN_AFTER_HOURS} hours in an affected room). Wait for the readings, or record the decision with a reason for going without them (override.reason).`,
+          [{ field: "override.reason", message: "Say why the fix can be judged without the readings." }],
+        );
+      }
       await this.cases.recordEvent(m, {
         caseId: c.id,
         actorId: actor.id,
         type: "fix-verified",
-        after: { effective: input.effective, note: input.note },
+        after: { effective: input.effective, note: input.note, ...(override ? { override } : {}) },
       });
       if (input.effective) {
-        await this.works.moveCase(m, actor, c, "closed", `Fix effective: ${input.note}`);
+        await this.works.moveCase(
+          m,
+          actor,
+          c,
+          "closed",
+          override
+            ? `Fix effective, recorded without enough readings (${override}): ${input.note}`
+            : `Fix effective: ${input.note}`,
+        );
+        // The lead's screen says the tenant is told: an e-mail, queued with the decision.
+        if (c.status === "closed" && fresh.tenantUserId) {
+          const tenant = await this.users.person(fresh.tenantUserId, m);
+          return [
+            await this.cases.queueMail(m, fresh, {
+              to: tenant.email,
+              template: "fixConfirmed",
+              data: { name: tenant.name, reference: fresh.reference!, link: `${this.config.appUrl}/cases/${c.id}` },
+            }),
+          ];
+        }
+        return [];
       } else {
         await this.works.moveCase(m, actor, c, "investigated", `Fix not effective: ${input.note}`);
         await this.works.create(actor, c.id, input.workOrder, m);
+        return [];
       }
     });
+    for (const d of deliveries) await d();
   }
 
   /** When a monitoring period has ended: remind the tenant to add readings and tell the lead to decide. Once per period. */

@@ -61,8 +61,17 @@ export class WorkOrder {
   @Column({ name: "schedule_count", type: "int", unsigned: true, default: 0 })
   scheduleCount: number;
 
+  /** When the work was done (from the London date the lead entered); the completion event says when it was recorded. */
   @Column({ name: "completed_at", type: "datetime", precision: 3, nullable: true })
   completedAt: Date | null;
+
+  /** The London calendar date the work was actually done, as entered. */
+  @Column({ name: "done_on", type: "date", nullable: true })
+  doneOn: string | null;
+
+  /** Why the work was done before the booked day (confirmed by the lead); null when it was not early. */
+  @Column({ name: "early_reason", type: "text", nullable: true })
+  earlyReason: string | null;
 
   @Column({ name: "completed_by_id", type: "int", unsigned: true, nullable: true })
   completedById: number | null;

@@ -35,7 +35,8 @@ export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor): z.inpu
     caseReference: c.reference,
     status: w.status,
     type: w.type,
-    description: w.description,
+    // The operative's description is staff only: the tenant sees the type of work and the rooms.
+    ...(staff ? { description: w.description } : {}),
     priority: w.priority,
     targetDate: w.targetDate,
     rooms,
@@ -65,6 +66,8 @@ export function toWorkOrderDto(w: WorkOrder, ctx: Context, actor: Actor): z.inpu
     completion: w.completedAt
       ? {
           at: w.completedAt.toISOString(),
+          doneOn: w.doneOn,
+          earlyReason: staff ? w.earlyReason : null,
           by: completedBy?.name ?? null,
           note: w.completionNote,
           materials: staff ? w.materials : null,

@@ -1,6 +1,6 @@
 import { In, QueryFailedError, type DataSource, type EntityManager } from "typeorm";
 import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
-import { addWorkingDays, localDate } from "../../../src/lib/domain/working-days.js";
+import { addWorkingDays, isWorkingDay, localDate } from "../../../src/lib/domain/working-days.js";
 import type { Config } from "../../config/env.js";
 import { AppError, ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { isStaff, type Actor } from "../auth/actor.js";
@@ -11,12 +11,12 @@ import type { PolicyService } from "../policy/policy.service.js";
 import type { Property } from "../properties/property.service.js";
 import type { TenancyService } from "../tenancies/tenancy.service.js";
 import type { Person, UserService } from "../users/user.service.js";
-import { appointmentIcs, describeSlot, halvesOf } from "./appointment.js";
+import { appointmentIcs, describeDay, describeSlot, halvesOf, slotInstants } from "./appointment.js";
 import { WorkOrderBooking } from "./booking.entity.js";
 import { Contractor } from "./contractor.entity.js";
 import { OperativeSlot } from "./operative-slot.entity.js";
 import { WorkOrder, type SlotWindow } from "./work-order.entity.js";
-import type { WorkOrderCreate, WorkOrderListQuery } from "./works.schemas.js";
+import type { WorkOrderCompletion, WorkOrderCreate, WorkOrderListQuery } from "./works.schemas.js";
 import type { Clock } from "../../lib/clock.js";
 
 export const WORK_WORDS: Record<WorkOrder["type"], string> = {
@@ -35,6 +35,13 @@ export const WORK_WORDS: Record<WorkOrder["type"], string> = {
   "damp-proofing": "damp-proof course or render repair",
   other: "repair work",
 };
+
+/**
+ * What the tenant's calendar entry says about the work: the kind of work and the case, never the
+ * operative's description (that is for the operative only).
+ */
+export const tenantIcsDescription = (type: WorkOrder["type"], reference: string | null) =>
+  `A visit for ${WORK_WORDS[type]}${reference ? ` (report ${reference})` : ""}. You can confirm it or ask for another time on your case page.`;
 
 /** The statuses a case may take a new work order in. */
 const ORDERABLE: readonly Case["status"][] = ["investigated", "works-planned"];
@@ -188,6 +195,17 @@ export class WorkOrderService {
       throw new ValidationError("slot.date: choose today or a later day.", [
         { field: "slot.date", message: "Choose today or a later day." },
       ]);
+    // The landlord's operatives work Monday to Friday outside bank holidays (the week board shows those days).
+    if (!isWorkingDay(input.slot.date))
+      throw new ValidationError(
+        `slot.date: ${describeDay(input.slot.date)} is not a working day. Choose a weekday that is not a bank holiday.`,
+        [
+          {
+            field: "slot.date",
+            message: `${describeDay(input.slot.date)} is a weekend or a bank holiday in England and Wales. Choose a working day.`,
+          },
+        ],
+      );
     const deliveries: Deliveries = [];
     await this.dataSource.transaction(async (m) => {
       const wo = await this.getForActor(actor, id, m, true);
@@ -271,22 +289,23 @@ export class WorkOrderService {
       });
       await this.moveCase(m, actor, c, "works-planned", "The works are booked.");
       const property = c.property!;
-      const ics = appointmentIcs({
-        workOrderId: wo.id,
-        sequence,
-        date: input.slot.date,
-        window: input.slot.window,
-        title: `${WORK_WORDS[wo.type]} (${c.reference})`,
-        description: wo.description,
-        location: addressOf(property),
-        organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
-      });
+      const icsFor = (description: string) =>
+        appointmentIcs({
+          workOrderId: wo.id,
+          sequence,
+          date: input.slot.date,
+          window: input.slot.window,
+          title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+          description,
+          location: addressOf(property),
+          organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
+        });
       const common = {
         reference: c.reference!,
         workWords: WORK_WORDS[wo.type],
         slotWords: describeSlot(input.slot.date, input.slot.window),
         address: addressOf(property),
-        ics,
+        rescheduled: Boolean(previous),
       };
       if (c.tenantUserId !== null) {
         const tenant = await this.users.person(c.tenantUserId, m);
@@ -296,6 +315,7 @@ export class WorkOrderService {
             template: "appointmentProposed",
             data: {
               ...common,
+              ics: icsFor(tenantIcsDescription(wo.type, c.reference)),
               name: tenant.name,
               link: `${this.config.appUrl}/cases/${c.id}`,
               forOperative: false,
@@ -312,6 +332,7 @@ export class WorkOrderService {
             template: "appointmentProposed",
             data: {
               ...common,
+              ics: icsFor(wo.description),
               name: worker.name,
               link: `${this.config.appUrl}/cases/${c.id}`,
               forOperative: true,
@@ -361,29 +382,30 @@ export class WorkOrderService {
           : null;
       const link = `${this.config.appUrl}/cases/${c.id}`;
       if (confirmed) {
-        const ics = appointmentIcs({
-          workOrderId: wo.id,
-          sequence: Math.max(0, wo.scheduleCount - 1),
-          date: wo.slotDate,
-          window: wo.slotWindow,
-          title: `${WORK_WORDS[wo.type]} (${c.reference})`,
-          description: wo.description,
-          location: addressOf(property),
-          organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
-        });
+        const [slotDate, slotWindow] = [wo.slotDate, wo.slotWindow];
+        const icsFor = (description: string) =>
+          appointmentIcs({
+            workOrderId: wo.id,
+            sequence: Math.max(0, wo.scheduleCount - 1),
+            date: slotDate,
+            window: slotWindow,
+            title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+            description,
+            location: addressOf(property),
+            organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
+          });
         const data = {
           reference: c.reference!,
           workWords: WORK_WORDS[wo.type],
           slotWords,
           address: addressOf(property),
           link,
-          ics,
         };
         deliveries.push(
           await this.cases.queueMail(m, c, {
             to: actor.email,
             template: "appointmentConfirmed",
-            data: { ...data, name: actor.name },
+            data: { ...data, ics: icsFor(tenantIcsDescription(wo.type, c.reference)), name: actor.name },
           }),
         );
         if (worker)
@@ -391,7 +413,7 @@ export class WorkOrderService {
             await this.cases.queueMail(m, c, {
               to: worker.email,
               template: "appointmentConfirmed",
-              data: { ...data, name: worker.name },
+              data: { ...data, ics: icsFor(wo.description), name: worker.name },
             }),
           );
       } else {
@@ -422,35 +444,79 @@ export class WorkOrderService {
     return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
   }
 
-  /** Records what was done. The last open order of a case moves it to works-done and into monitoring. */
-  async complete(
-    actor: Actor,
-    id: number,
-    input: { note: string; materials?: string; minutesOnSite?: number; followOn?: string },
-  ): Promise<WorkOrder> {
+  /**
+   * Records what was done, on the London date the work was actually done (today or earlier; before
+   * the booked day only with a confirmed reason). Follow-on work found raises a new, unscheduled
+   * order of the same case in the same transaction, so the case stays open for it. The last open
+   * order of a case moves it to works-done and into monitoring.
+   */
+  async complete(actor: Actor, id: number, input: WorkOrderCompletion): Promise<WorkOrder> {
+    const now = this.clock.now();
+    const today = localDate(now);
+    if (input.doneOn > today)
+      throw new ValidationError("complete.doneOn: the work cannot be recorded as done on a day still to come.", [
+        { field: "complete.doneOn", message: "Enter the day the work was done: today or an earlier day." },
+      ]);
     const deliveries: Deliveries = [];
     await this.dataSource.transaction(async (m) => {
       const wo = await this.getForActor(actor, id, m, true);
       if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is already ${wo.status}.`);
       const c = await this.cases.getForActor(actor, wo.caseId, m);
-      const now = this.clock.now();
+      if (input.doneOn < localDate(c.awareAt))
+        throw new ValidationError("complete.doneOn: that day is before the problem was reported.", [
+          {
+            field: "complete.doneOn",
+            message: `Enter the day the work was done: on or after ${describeDay(localDate(c.awareAt))}, when the problem was reported.`,
+          },
+        ]);
+      const early = wo.slotDate !== null && input.doneOn < wo.slotDate;
+      if (early && !input.earlyReason)
+        throw new ValidationError(
+          `complete.earlyReason: the visit is booked for ${describeDay(wo.slotDate!)}; say why the work was done before the booked day.`,
+          [
+            {
+              field: "complete.earlyReason",
+              message: `The visit is booked for ${describeDay(wo.slotDate!)}. Confirm why the work was done before the booked day.`,
+            },
+          ],
+        );
+      // Today: the moment it is recorded; an earlier day: the end of that day's working hours (London).
+      const doneAt = input.doneOn === today ? now : slotInstants(input.doneOn, "all-day").end;
       await m.getRepository(WorkOrder).update(wo.id, {
         status: "done",
-        completedAt: now,
+        completedAt: doneAt,
         completedById: actor.id,
         completionNote: input.note,
         materials: input.materials ?? null,
         minutesOnSite: input.minutesOnSite ?? null,
-        followOn: input.followOn ?? null,
+        followOn: input.followOn || null,
+        doneOn: input.doneOn,
+        earlyReason: early ? input.earlyReason! : null,
       });
+      // Follow-on work found is never dropped: it becomes an order of its own, to book or to cancel with a reason.
+      const followOnOrder = input.followOn
+        ? await this.create(
+            actor,
+            c.id,
+            { type: input.followOnType ?? "other", description: input.followOn, roomIds: wo.roomIds, priority: wo.priority },
+            m,
+          )
+        : null;
       await this.cases.recordEvent(m, {
         caseId: c.id,
         actorId: actor.id,
         type: "work-order-completed",
-        after: { workOrderId: wo.id, note: input.note, followOn: input.followOn ?? null },
+        after: {
+          workOrderId: wo.id,
+          note: input.note,
+          followOn: input.followOn || null,
+          doneOn: input.doneOn,
+          earlyReason: early ? input.earlyReason! : null,
+          followOnWorkOrderId: followOnOrder?.id ?? null,
+        },
       });
       const stillOpen = await m.getRepository(WorkOrder).countBy({ caseId: c.id, status: In([...OPEN_ORDER]) });
-      if (stillOpen === 0) deliveries.push(...(await this.startMonitoring(m, actor, c, now)));
+      if (stillOpen === 0) deliveries.push(...(await this.startMonitoring(m, actor, c, doneAt)));
     });
     for (const d of deliveries) await d();
     return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
@@ -477,17 +543,18 @@ export class WorkOrderService {
       if (!booking) return;
       const c = await this.cases.getForActor(actor, wo.caseId, m);
       const property = c.property!;
-      const ics = appointmentIcs({
-        workOrderId: wo.id,
-        sequence: wo.scheduleCount,
-        date: booking.slotDate,
-        window: booking.slotWindow,
-        title: `${WORK_WORDS[wo.type]} (${c.reference})`,
-        description: wo.description,
-        location: addressOf(property),
-        organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
-        cancelled: true,
-      });
+      const icsFor = (description: string) =>
+        appointmentIcs({
+          workOrderId: wo.id,
+          sequence: wo.scheduleCount,
+          date: booking.slotDate,
+          window: booking.slotWindow,
+          title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+          description,
+          location: addressOf(property),
+          organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
+          cancelled: true,
+        });
       const data = {
         reference: c.reference!,
         workWords: WORK_WORDS[wo.type],
@@ -495,15 +562,25 @@ export class WorkOrderService {
         address: addressOf(property),
         reason,
         link: `${this.config.appUrl}/cases/${c.id}`,
-        ics,
       };
-      const people: { email: string; name: string }[] = [];
-      if (c.tenantUserId !== null) people.push(await this.users.person(c.tenantUserId, m));
-      if (booking.assigneeUserId) people.push(await this.users.person(booking.assigneeUserId, m));
-      else if (booking.contractorId) people.push(await m.getRepository(Contractor).findOneByOrFail({ id: booking.contractorId }));
+      // The tenant's calendar entry never carries the operative's description.
+      const people: { email: string; name: string; description: string }[] = [];
+      if (c.tenantUserId !== null)
+        people.push({ ...(await this.users.person(c.tenantUserId, m)), description: tenantIcsDescription(wo.type, c.reference) });
+      if (booking.assigneeUserId)
+        people.push({ ...(await this.users.person(booking.assigneeUserId, m)), description: wo.description });
+      else if (booking.contractorId)
+        people.push({
+          ...(await m.getRepository(Contractor).findOneByOrFail({ id: booking.contractorId })),
+          description: wo.description,
+        });
       for (const p of people)
         deliveries.push(
-          await this.cases.queueMail(m, c, { to: p.email, template: "appointmentCancelled", data: { ...data, name: p.name } }),
+          await this.cases.queueMail(m, c, {
+            to: p.email,
+            template: "appointmentCancelled",
+            data: { ...data, ics: icsFor(p.description), name: p.name },
+          }),
         );
     });
     for (const d of deliveries) await d();

@@ -23,6 +23,7 @@ import {
   bookingResponseSchema,
   contractorSchema,
   verificationOutcomeSchema,
+  workOrderCompleteSchema,
   workOrderCreateSchema,
   workOrderListQuerySchema,
   workOrderPatchSchema,
@@ -90,7 +91,12 @@ export function createWorkOrdersRouter({ works, photos }: Deps): Router {
 
   router.patch("/:id", leads, async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
-    const patch = parse(workOrderPatchSchema, req.body);
+    // A completion is parsed on its own so that a missing or wrong field is named (complete.doneOn…).
+    const body: unknown = req.body;
+    const patch =
+      body && typeof body === "object" && "complete" in body
+        ? parse(workOrderCompleteSchema, body)
+        : parse(workOrderPatchSchema, body);
     const actor = actorOf(req);
     const updated =
       "complete" in patch

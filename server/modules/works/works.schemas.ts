@@ -26,6 +26,26 @@ export const slotSchema = z.object({
   window: z.enum(SLOT_WINDOWS, { error: `slot.window must be one of ${SLOT_WINDOWS.join(", ")}.` }),
 });
 
+const completionSchema = z
+  .object({
+    note: z.string({ error: "Say what was done." }).trim().min(5, "Say what was done, in a sentence.").max(8000),
+    materials: z.string().trim().max(4000).optional(),
+    minutesOnSite: z
+      .number({ error: "minutesOnSite must be a number of minutes." })
+      .int()
+      .min(1)
+      .max(24 * 60 * 5)
+      .optional(),
+    followOn: z.string().trim().max(4000).optional(),
+    /** The London date the work was actually done: today or earlier, never assumed. */
+    doneOn: isoDate("complete.doneOn"),
+    /** Required when doneOn is before the booked day: why the work was done early. */
+    earlyReason: z.string().trim().min(5, "Say why the work was done before the booked day.").max(2000).optional(),
+    /** The type of the follow-on order raised when followOn is given (default: other). */
+    followOnType: z.enum(WORK_ORDER_TYPES, { error: `followOnType must be one of ${WORK_ORDER_TYPES.join(", ")}.` }).optional(),
+  })
+  .strict();
+
 export const workOrderPatchSchema = z.union([
   z
     .object({
@@ -39,24 +59,15 @@ export const workOrderPatchSchema = z.union([
     }),
   z
     .object({
-      complete: z
-        .object({
-          note: z.string({ error: "Say what was done." }).trim().min(5, "Say what was done, in a sentence.").max(8000),
-          materials: z.string().trim().max(4000).optional(),
-          minutesOnSite: z
-            .number({ error: "minutesOnSite must be a number of minutes." })
-            .int()
-            .min(1)
-            .max(24 * 60 * 5)
-            .optional(),
-          followOn: z.string().trim().max(4000).optional(),
-        })
-        .strict(),
+      complete: completionSchema,
     })
     .strict(),
   z.object({ cancel: z.object({ reason: z.string().trim().min(3, "Give a short reason.").max(2000) }).strict() }).strict(),
 ]);
 export type WorkOrderPatch = z.infer<typeof workOrderPatchSchema>;
+/** PATCH bodies with `complete`: parsed on their own so a missing field is named (complete.doneOn…). */
+export const workOrderCompleteSchema = z.object({ complete: completionSchema }).strict();
+export type WorkOrderCompletion = z.infer<typeof completionSchema>;
 
 export const bookingResponseSchema = z
   .object({
@@ -120,7 +131,23 @@ export const contractorSchema = z
   .strict();
 
 export const verificationOutcomeSchema = z.discriminatedUnion("effective", [
-  z.object({ effective: z.literal(true), note: z.string().trim().min(3, "Say what the readings showed.").max(4000) }).strict(),
+  z
+    .object({
+      effective: z.literal(true),
+      note: z.string().trim().min(3, "Say what the readings showed.").max(4000),
+      /** Recording "fix effective" without enough readings after the works: the reason, kept on the timeline. */
+      override: z
+        .object({
+          reason: z
+            .string({ error: "Say why the fix can be judged without the readings." })
+            .trim()
+            .min(10, "Say why the fix can be judged without the readings (at least 10 characters).")
+            .max(2000),
+        })
+        .strict()
+        .optional(),
+    })
+    .strict(),
   z
     .object({
       effective: z.literal(false),

@@ -30,7 +30,12 @@ export const bookingHistoryItem = z.object({
 });
 
 export const completion = z.object({
+  /** When the work was done (the end of the working day for an earlier date). */
   at: instant,
+  /** The London date the work was done, as entered (null on orders completed before it was asked). */
+  doneOn: calendarDate.nullable(),
+  /** Staff only (null for the tenant): why the work was done before the booked day. */
+  earlyReason: z.string().nullable(),
   by: z.string().nullable(),
   note: z.string().nullable(),
   /** Staff only (null for the tenant). */
@@ -46,7 +51,8 @@ export const workOrderResponse = z.object({
   caseReference: z.string().nullable(),
   status: z.enum(WORK_ORDER_STATUSES),
   type: z.enum(WORK_ORDER_TYPES),
-  description: z.string(),
+  /** Staff only: what needs doing, for the operative. Never sent to the tenant. */
+  description: z.string().optional(),
   priority: z.enum(WORK_ORDER_PRIORITIES),
   targetDate: calendarDate,
   rooms: z.array(idName),
@@ -91,6 +97,17 @@ export const verificationResponse = z.object({
   monitoringEndsAt: instant.nullable(),
   monitoringDays: z.number().int(),
   rooms: z.array(z.object({ roomId: id, roomName: z.string(), comparison: beforeAfter })),
-  outcome: z.object({ effective: z.boolean(), note: z.string(), at: instant, by: z.string().nullable() }).nullable(),
+  /** An affected room has enough readings after the works to compare: "fix effective" needs this or an override. */
+  enoughReadings: z.boolean(),
+  outcome: z
+    .object({
+      effective: z.boolean(),
+      note: z.string(),
+      at: instant,
+      by: z.string().nullable(),
+      /** Staff only (null for the tenant): why "fix effective" was recorded without enough readings. */
+      override: z.string().nullable(),
+    })
+    .nullable(),
 });
 export type VerificationResponse = z.infer<typeof verificationResponse>;

@@ -160,6 +160,19 @@ export function describeEvent(
       const name = typeof id === "number" ? staffNames?.get(id) : undefined;
       return { title: name ? `${who || "Staff"} assigned the case to ${name}.` : "The assignee changed." };
     }
+    case "fix-verified": {
+      const effective = after.effective === true;
+      const override = audience === "staff" ? str(after.override) : undefined;
+      return {
+        title: effective
+          ? `${audience === "staff" && who ? `${who} recorded that` : "Your landlord recorded that"} the repair worked.`
+          : `${audience === "staff" && who ? `${who} recorded that` : "Your landlord recorded that"} the repair did not work yet.`,
+        detail:
+          [str(after.note) ?? "", override ? `Recorded without enough readings after the works. Reason: ${override}` : ""]
+            .filter(Boolean)
+            .join(" ") || undefined,
+      };
+    }
     case "internal-note": {
       const body = str(after.body);
       return {

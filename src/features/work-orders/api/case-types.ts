@@ -38,6 +38,12 @@ export interface CompletionInput {
   materials?: string;
   minutesOnSite?: number;
   followOn?: string;
+  /** The London date the work was done (YYYY-MM-DD): today or earlier. */
+  doneOn: string;
+  /** Why the work was done before the booked day; required when it was. */
+  earlyReason?: string;
+  /** The type of the order raised for the follow-on work (other by default). */
+  followOnType?: WorkOrderType;
 }
 
 export type WorkPhoto = PhotoResponse;
@@ -48,6 +54,8 @@ export type RoomComparison = Verification["rooms"][number];
 export type VerificationOutcome = NonNullable<Verification["outcome"]>;
 
 /** POST /api/cases/:id/verification. */
-export type VerificationInput = { effective: true; note: string } | { effective: false; note: string; workOrder: WorkOrderInput };
+export type VerificationInput =
+  | { effective: true; note: string; override?: { reason: string } }
+  | { effective: false; note: string; workOrder: WorkOrderInput };
 
 export type { BeforeAfter, PeriodSummary } from "@/lib/domain/verification";

@@ -35,7 +35,8 @@ export interface SchedulableOrder {
   caseReference: string | null;
   status: string;
   type: string;
-  description: string;
+  /** Staff only (the tenant never receives it). */
+  description?: string;
   /** YYYY-MM-DD, when there is one. */
   targetDate: string | null;
   property?: { addressLine1?: string; town?: string; postcode?: string };
@@ -51,6 +52,16 @@ interface ScheduleDialogProps<O extends SchedulableOrder> {
   onClose: () => void;
   /** Called with the order as the server returns it, once booked (the dialog then closes). */
   onScheduled?: (order: O) => void;
+  /** A free slot chosen on the week board: who, which day and which part of it, filled in. */
+  preset?: SlotPreset;
+}
+
+/** A free slot of the week board, to start the booking from. */
+export interface SlotPreset {
+  /** An operative's user id, or null for the contractors' row. */
+  assigneeId: number | null;
+  date: string;
+  window: SlotWindow;
 }
 
 type Who = "operative" | "contractor";
@@ -67,6 +78,9 @@ const WINDOW_CHOICES: readonly RadioChoice<SlotWindow>[] = SLOT_WINDOWS.map((w) 
 }));
 
 const isWindow = (w: string): w is SlotWindow => (SLOT_WINDOWS as readonly string[]).includes(w);
+
+/** A Saturday or a Sunday (a calendar date, read as UTC so no time zone shifts it). */
+const isWeekend = (date: string) => [0, 6].includes(new Date(`${date}T12:00:00Z`).getUTCDay());
 
 /** "Tuesday 8 December 2026" from "2026-12-08" (never shifted a day). */
 const formatDate = (date: string) => formatCalendarLong(date);
@@ -94,18 +108,29 @@ export function checkSchedule(f: Fields, today: string = todayInLondon()): Error
   if (!f.date) errors.date = "Choose the day of the visit.";
   else if (!isIsoDate(f.date)) errors.date = "Enter a real date.";
   else if (f.date < today) errors.date = "Choose today or a later day: a visit cannot be booked in the past.";
+  // Bank holidays are refused by the server with their name (the holiday data stays out of the browser).
+  else if (isWeekend(f.date)) errors.date = "Choose a weekday: visits are not booked at weekends.";
   if (!f.window) errors.window = "Choose the morning, the afternoon or all day.";
   return errors;
 }
 
-const initialFields = (o: SchedulableOrder, today: string): Fields => ({
-  who: o.contractor ? "contractor" : "operative",
-  assigneeId: o.assignee ? String(o.assignee.id) : "",
-  contractorId: o.contractor ? String(o.contractor.id) : "",
-  // Rebooking starts from the current slot, unless it has passed.
-  date: o.slot && o.slot.date >= today ? o.slot.date : "",
-  window: o.slot && isWindow(o.slot.window) ? o.slot.window : "",
-});
+const initialFields = (o: SchedulableOrder, today: string, preset?: SlotPreset): Fields =>
+  preset
+    ? {
+        who: preset.assigneeId === null ? "contractor" : "operative",
+        assigneeId: preset.assigneeId === null ? "" : String(preset.assigneeId),
+        contractorId: o.contractor ? String(o.contractor.id) : "",
+        date: preset.date,
+        window: preset.window,
+      }
+    : {
+        who: o.contractor ? "contractor" : "operative",
+        assigneeId: o.assignee ? String(o.assignee.id) : "",
+        contractorId: o.contractor ? String(o.contractor.id) : "",
+        // Rebooking starts from the current slot, unless it has passed.
+        date: o.slot && o.slot.date >= today ? o.slot.date : "",
+        window: o.slot && isWindow(o.slot.window) ? o.slot.window : "",
+      };
 
 /** A case's queries that describe the case itself, not its readings, evaluation or photos. */
 const CASE_PARTS_UNCHANGED = new Set(["readings", "evaluation", "photos"]);
@@ -132,22 +157,27 @@ export function refreshAfterBooking(queryClient: QueryClient, caseId: number): P
  * part of it. Rebooking shows the current slot. A clash with another booking (409) is shown here,
  * and the dialog stays open so another slot or person can be chosen.
  */
-export function ScheduleDialog<O extends SchedulableOrder>({ order, onClose, onScheduled }: ScheduleDialogProps<O>) {
+export function ScheduleDialog<O extends SchedulableOrder>({ order, onClose, onScheduled, preset }: ScheduleDialogProps<O>) {
   return (
     <Modal
       open={order !== null}
       onClose={onClose}
       title={order ? `${order.slot ? "Reschedule" : "Schedule"} ${orderReference(order)}` : ""}
     >
-      {order ? <ScheduleForm key={order.id} order={order} onClose={onClose} onScheduled={onScheduled} /> : null}
+      {order ? <ScheduleForm key={order.id} order={order} onClose={onClose} onScheduled={onScheduled} preset={preset} /> : null}
     </Modal>
   );
 }
 
-function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled }: ScheduleDialogProps<O> & { order: O }) {
+function ScheduleForm<O extends SchedulableOrder>({
+  order,
+  onClose,
+  onScheduled,
+  preset,
+}: ScheduleDialogProps<O> & { order: O }) {
   const queryClient = useQueryClient();
   const today = todayInLondon();
-  const [fields, setFields] = useState<Fields>(() => initialFields(order, today));
+  const [fields, setFields] = useState<Fields>(() => initialFields(order, today, preset));
   const [errors, setErrors] = useState<Errors>({});
   const staff = useStaff();
   const contractors = useContractors({ enabled: fields.who === "contractor" });
@@ -316,7 +346,10 @@ function ScheduleForm<O extends SchedulableOrder>({ order, onClose, onScheduled 
         </Alert>
       ) : null}
 
-      <p className="text-sm text-ink-soft">The tenant is asked to confirm the visit or to ask for another time.</p>
+      <p className="text-sm text-ink-soft">
+        The tenant gets an e-mail with the day and time (never the description above) and is asked to confirm the visit or to ask
+        for another time.
+      </p>
 
       <div className="flex flex-wrap justify-end gap-2">
         <Button variant="secondary" onClick={onClose} disabled={schedule.isPending}>

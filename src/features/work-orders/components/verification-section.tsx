@@ -63,7 +63,9 @@ export function VerificationSection({ caseId, caseStatus, canDecide }: Verificat
         works. “Improved” means the mean surface humidity is lower after the works and the hours at or above 80 % per day are not
         higher, with at least a day of readings after (our rule). It is evidence for the person who decides, not the decision.
       </p>
-      {canDecide && caseStatus === "monitoring" && !v.outcome ? <OutcomeForm caseId={caseId} /> : null}
+      {canDecide && caseStatus === "monitoring" && !v.outcome ? (
+        <OutcomeForm caseId={caseId} enoughReadings={v.enoughReadings} />
+      ) : null}
     </div>
   );
 }
@@ -94,6 +96,11 @@ function OutcomeView({ outcome }: { outcome: NonNullable<Verification["outcome"]
       live="none"
     >
       <p className="whitespace-pre-line">{outcome.note}</p>
+      {outcome.override ? (
+        <p className="mt-1">
+          <strong>Recorded without enough readings after the works.</strong> Reason: {outcome.override}
+        </p>
+      ) : null}
       <p className="mt-1 text-sm text-ink-soft">
         By {outcome.by}, {formatDateTimeZoned(outcome.at)}
       </p>
@@ -152,14 +159,18 @@ function RoomComparisonView({ room }: { room: RoomComparison }) {
 
 type Choice = "effective" | "not-effective" | null;
 
-function OutcomeForm({ caseId }: { caseId: number }) {
+function OutcomeForm({ caseId, enoughReadings }: { caseId: number; enoughReadings: boolean }) {
   const headingId = useId();
   const record = useRecordVerification(caseId);
   const [choice, setChoice] = useState<Choice>(null);
   const [note, setNote] = useState("");
   const [type, setType] = useState<WorkOrderType | "">("");
   const [description, setDescription] = useState("");
-  const [errors, setErrors] = useState<{ note?: string; type?: string; description?: string }>({});
+  const [override, setOverride] = useState("");
+  const [errors, setErrors] = useState<{ note?: string; type?: string; description?: string; override?: string }>({});
+  const overrideRef = useRef<HTMLTextAreaElement>(null);
+  // "Fix effective" needs the readings after the works, or a reason for going without them (kept on the timeline).
+  const needsOverride = choice === "effective" && !enoughReadings;
   const [confirming, setConfirming] = useState<VerificationInput | null>(null);
   const noteRef = useRef<HTMLTextAreaElement>(null);
   const typeRef = useRef<HTMLSelectElement>(null);
@@ -175,17 +186,20 @@ function OutcomeForm({ caseId }: { caseId: number }) {
     e.preventDefault();
     const found: typeof errors = {};
     if (note.trim().length < 3) found.note = "Say what the readings and the visit showed.";
+    if (needsOverride && override.trim().length < 10)
+      found.override = "Say why the fix can be judged without the readings (at least 10 characters).";
     if (choice === "not-effective") {
       if (!type) found.type = "Choose the work to try next.";
       if (description.trim().length < 5) found.description = "Describe the next work in a few words (at least 5 characters).";
     }
     setErrors(found);
     if (found.note) return noteRef.current?.focus();
+    if (found.override) return overrideRef.current?.focus();
     if (found.type) return typeRef.current?.focus();
     if (found.description) return descriptionRef.current?.focus();
     setConfirming(
       choice === "effective"
-        ? { effective: true, note: note.trim() }
+        ? { effective: true, note: note.trim(), ...(needsOverride ? { override: { reason: override.trim() } } : {}) }
         : { effective: false, note: note.trim(), workOrder: { type: type as WorkOrderType, description: description.trim() } },
     );
   };
@@ -230,6 +244,28 @@ function OutcomeForm({ caseId }: { caseId: number }) {
               setErrors((x) => ({ ...x, note: undefined }));
             }}
           />
+          {needsOverride ? (
+            <>
+              <Alert tone="warning" live="none" title="Not enough readings after the works yet">
+                <p>
+                  No affected room has a day of readings since the works, so the readings cannot show the fix worked. Wait for
+                  them, or record the decision anyway with your reason: it is kept on the case&apos;s timeline for staff.
+                </p>
+              </Alert>
+              <Textarea
+                ref={overrideRef}
+                label="Why decide without the readings"
+                rows={2}
+                maxLength={2000}
+                value={override}
+                error={errors.override}
+                onChange={(e) => {
+                  setOverride(e.target.value);
+                  setErrors((x) => ({ ...x, override: undefined }));
+                }}
+              />
+            </>
+          ) : null}
           {choice === "not-effective" ? (
             <>
               <Select
@@ -284,7 +320,7 @@ function OutcomeForm({ caseId }: { caseId: number }) {
         onCancel={() => setConfirming(null)}
       >
         {confirming?.effective ? (
-          <p>The case is closed and the tenant is told. It can be reopened later if the problem comes back.</p>
+          <p>The case is closed and the tenant gets an e-mail saying so. It can be reopened later if the problem comes back.</p>
         ) : (
           <p>
             The case goes back to investigated with a new work order

@@ -1,4 +1,4 @@
-import { useId, type ReactNode } from "react";
+import { createContext, use, useId, useState, type ReactNode } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -11,15 +11,25 @@ import { useWeekOrders } from "../api/get-work-orders";
 import type { SlotWindow, WorkOrder } from "../api/types";
 import { useWeekParam } from "../hooks/use-works-params";
 import { labelFor, orderReference, typeLabels, windowShortLabels } from "../lib/labels";
-import { formatLongDate, formatWeekday, todayInLondon, workingDays } from "../lib/week";
+import { addDays, formatLongDate, formatWeekday, todayInLondon, workingDays } from "../lib/week";
+import { ScheduleDialog, type SlotPreset } from "./schedule-dialog";
+import { SlotOrderPicker } from "./slot-order-picker";
 import { TenantAnswerText } from "./tenant-answer";
 
 const CONTRACTORS_ROW = "contractors";
 
 interface BoardRow {
   key: string;
-  name: ReactNode;
+  name: string;
+  /** The operative's user id; null for the contractors' row. */
+  operativeId: number | null;
 }
+
+/** A free half-day chosen on the board, with the row's name for the dialog. */
+type FreeSlot = SlotPreset & { who: string };
+
+/** How a free half-day offers itself for booking: null where nothing can be booked (past days, weekends). */
+const BookSlotContext = createContext<((slot: FreeSlot) => void) | null>(null);
 
 /** One row per operative (maintenance staff, and anyone else booked this week), then the contractors. */
 export function boardRows(staff: readonly StaffMember[] | undefined, orders: readonly WorkOrder[]): BoardRow[] {
@@ -29,8 +39,8 @@ export function boardRows(staff: readonly StaffMember[] | undefined, orders: rea
     if (order.assignee && !people.has(order.assignee.id)) people.set(order.assignee.id, order.assignee.name);
   const rows: BoardRow[] = [...people.entries()]
     .sort((a, b) => a[1].localeCompare(b[1], "en-GB"))
-    .map(([id, name]) => ({ key: `operative-${id}`, name }));
-  rows.push({ key: CONTRACTORS_ROW, name: "Contractors" });
+    .map(([id, name]) => ({ key: `operative-${id}`, name, operativeId: id }));
+  rows.push({ key: CONTRACTORS_ROW, name: "Contractors", operativeId: null });
   return rows;
 }
 
@@ -56,13 +66,17 @@ function Half({
   orders,
   showContractor,
   spanning = false,
+  free,
 }: {
   window: SlotWindow;
   orders: WorkOrder[];
   showContractor: boolean;
   spanning?: boolean;
+  /** This half-day, when it can be booked. */
+  free?: FreeSlot;
 }) {
   const labelId = useId();
+  const book = use(BookSlotContext);
   return (
     <div
       role="group"
@@ -78,6 +92,18 @@ function Half({
             <Booking key={order.id} order={order} showContractor={showContractor} />
           ))}
         </ul>
+      ) : free && book ? (
+        <button
+          type="button"
+          onClick={() => book(free)}
+          className="rounded-md border border-dashed border-line-strong bg-surface px-2 py-1.5 text-left text-sm font-semibold text-dew-800 hover:bg-dew-100 focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-dew-700"
+        >
+          Free<span className="font-normal">: book</span>
+          <span className="sr-only">
+            {" "}
+            {free.who}, {formatWeekday(free.date)}, {windowShortLabels[window]}
+          </span>
+        </button>
       ) : (
         <p className="text-sm text-ink-soft">Free</p>
       )}
@@ -86,7 +112,16 @@ function Half({
 }
 
 /** A day for one row: the morning and the afternoon; an all-day booking spans both. */
-function DayCell({ orders, showContractor }: { orders: WorkOrder[]; showContractor: boolean }) {
+function DayCell({
+  orders,
+  showContractor,
+  slotOf,
+}: {
+  orders: WorkOrder[];
+  showContractor: boolean;
+  /** The free half-day to offer, when this day can be booked. */
+  slotOf?: (window: SlotWindow) => FreeSlot;
+}) {
   const allDay = orders.filter((o) => o.slot?.window === "all-day");
   const am = orders.filter((o) => o.slot?.window === "am");
   const pm = orders.filter((o) => o.slot?.window === "pm");
@@ -97,8 +132,8 @@ function DayCell({ orders, showContractor }: { orders: WorkOrder[]; showContract
         {allDay.length ? <Half window="all-day" orders={allDay} showContractor={showContractor} spanning={onlyAllDay} /> : null}
         {onlyAllDay ? null : (
           <>
-            <Half window="am" orders={am} showContractor={showContractor} />
-            <Half window="pm" orders={pm} showContractor={showContractor} />
+            <Half window="am" orders={am} showContractor={showContractor} free={allDay.length ? undefined : slotOf?.("am")} />
+            <Half window="pm" orders={pm} showContractor={showContractor} free={allDay.length ? undefined : slotOf?.("pm")} />
           </>
         )}
       </div>
@@ -108,15 +143,22 @@ function DayCell({ orders, showContractor }: { orders: WorkOrder[]; showContract
 
 /**
  * The maintenance lead's week: one row per operative (and one for contractors), one column per
- * working day, each day split into morning and afternoon. The week is in the URL (?week=).
+ * working day, each day split into morning and afternoon. The week is in the URL (?week=). A free
+ * half-day from today on is a button: it books that slot (choose the order, then the schedule
+ * dialog opens with who, the day and the time filled in).
  */
 export function WeekBoard() {
   const week = useWeekParam();
   const orders = useWeekOrders(week.range);
   const staff = useStaff();
-  const days = workingDays(week.monday);
   const today = todayInLondon();
   const items = orders.data?.items ?? [];
+  // Monday to Friday; a Saturday or Sunday too when it holds work (booked before weekends were refused).
+  const weekend = [addDays(week.monday, 5), addDays(week.monday, 6)];
+  const days = [...workingDays(week.monday), ...weekend.filter((d) => items.some((o) => o.slot?.date === d))];
+  const [freeSlot, setFreeSlot] = useState<FreeSlot | null>(null);
+  const [booking, setBooking] = useState<{ order: WorkOrder; preset: SlotPreset } | null>(null);
+  const [booked, setBooked] = useState<WorkOrder | null>(null);
   const rows = boardRows(staff.data, items);
   const caption = `Bookings for the week of ${formatLongDate(week.monday)}`;
 
@@ -145,7 +187,7 @@ export function WeekBoard() {
       <>
         {items.length === 0 ? (
           <EmptyState title="No work booked this week" className="py-5">
-            Book an order from the table below, or look at another week.
+            Choose a free slot below to book an order into it, book one from the table, or look at another week.
           </EmptyState>
         ) : null}
         {orders.data.total > items.length ? (
@@ -188,6 +230,11 @@ export function WeekBoard() {
                       key={day}
                       orders={byCell.get(`${row.key}|${day}`) ?? []}
                       showContractor={row.key === CONTRACTORS_ROW}
+                      slotOf={
+                        day >= today && !weekend.includes(day)
+                          ? (window) => ({ assigneeId: row.operativeId, date: day, window, who: row.name })
+                          : undefined
+                      }
                     />
                   ))}
                 </tr>
@@ -200,22 +247,49 @@ export function WeekBoard() {
   }
 
   return (
-    <div className="flex flex-col gap-3">
-      <nav aria-label="Choose the week" className="flex flex-wrap items-center gap-2">
-        <Button size="sm" variant="secondary" onClick={week.previous}>
-          <span aria-hidden="true">‹</span> Previous week
-        </Button>
-        <Button size="sm" variant="secondary" onClick={week.thisWeek} disabled={week.isThisWeek}>
-          This week
-        </Button>
-        <Button size="sm" variant="secondary" onClick={week.next}>
-          Next week <span aria-hidden="true">›</span>
-        </Button>
-        <p aria-live="polite" className="ml-1 font-semibold">
-          Week of {formatLongDate(week.monday)}
-        </p>
-      </nav>
-      {body}
-    </div>
+    <BookSlotContext
+      value={(slot) => {
+        setBooked(null);
+        setFreeSlot(slot);
+      }}
+    >
+      <div className="flex flex-col gap-3">
+        <nav aria-label="Choose the week" className="flex flex-wrap items-center gap-2">
+          <Button size="sm" variant="secondary" onClick={week.previous}>
+            <span aria-hidden="true">‹</span> Previous week
+          </Button>
+          <Button size="sm" variant="secondary" onClick={week.thisWeek} disabled={week.isThisWeek}>
+            This week
+          </Button>
+          <Button size="sm" variant="secondary" onClick={week.next}>
+            Next week <span aria-hidden="true">›</span>
+          </Button>
+          <p aria-live="polite" className="ml-1 font-semibold">
+            Week of {formatLongDate(week.monday)}
+          </p>
+        </nav>
+        {booked ? (
+          <Alert tone="success" title={`${orderReference(booked)} is booked`}>
+            The tenant gets an e-mail with the day and time and is asked to confirm it.
+          </Alert>
+        ) : null}
+        {body}
+        <SlotOrderPicker
+          slot={freeSlot}
+          onClose={() => setFreeSlot(null)}
+          onPick={(order) => {
+            const preset = freeSlot;
+            setFreeSlot(null);
+            if (preset) setBooking({ order, preset });
+          }}
+        />
+        <ScheduleDialog
+          order={booking?.order ?? null}
+          preset={booking?.preset}
+          onClose={() => setBooking(null)}
+          onScheduled={setBooked}
+        />
+      </div>
+    </BookSlotContext>
   );
 }

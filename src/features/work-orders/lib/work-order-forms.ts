@@ -48,17 +48,49 @@ export interface CompletionFields {
   materials: string;
   minutesOnSite: string;
   followOn: string;
+  /** The type of the order raised for the follow-on work ("" = other). */
+  followOnType: WorkOrderType | "";
+  /** The day the work was done, YYYY-MM-DD. */
+  doneOn: string;
+  earlyReason: string;
 }
 
 export type CompletionErrors = Partial<Record<keyof CompletionFields, string>>;
 
-export const blankCompletion = (): CompletionFields => ({ note: "", materials: "", minutesOnSite: "", followOn: "" });
+export const blankCompletion = (): CompletionFields => ({
+  note: "",
+  materials: "",
+  minutesOnSite: "",
+  followOn: "",
+  followOnType: "",
+  doneOn: "",
+  earlyReason: "",
+});
 
-export function checkCompletion(f: CompletionFields): { input: CompletionInput | null; errors: CompletionErrors } {
+/** The work was done before the booked day: a reason is needed. */
+export const doneEarly = (f: Pick<CompletionFields, "doneOn">, bookedOn: string | null) =>
+  Boolean(bookedOn && isIsoDate(f.doneOn) && f.doneOn < bookedOn);
+
+/**
+ * The server's rules (server/modules/works/works.schemas.ts and WorkOrderService.complete) in words
+ * that say what to do: the day the work was done (today or earlier), and why, when before the booked day.
+ */
+export function checkCompletion(
+  f: CompletionFields,
+  { today, bookedOn }: { today: string; bookedOn: string | null },
+): { input: CompletionInput | null; errors: CompletionErrors } {
   const errors: CompletionErrors = {};
   const note = f.note.trim();
   if (note.length === 0) errors.note = "Say what was done: the tenant and the officer read it.";
   else if (note.length < 5) errors.note = "Say what was done in a sentence (at least 5 characters).";
+  if (!f.doneOn) errors.doneOn = "Enter the day the work was done.";
+  else if (!isIsoDate(f.doneOn)) errors.doneOn = "Enter a real date.";
+  else if (f.doneOn > today)
+    errors.doneOn = "The work cannot be recorded as done on a day still to come: enter today or an earlier day.";
+  const early = doneEarly(f, bookedOn);
+  const earlyReason = f.earlyReason.trim();
+  if (early && earlyReason.length < 5)
+    errors.earlyReason = "The work was done before the booked day: say why (at least 5 characters).";
   const minutesRaw = f.minutesOnSite.trim();
   let minutes: number | undefined;
   if (minutesRaw) {
@@ -72,9 +104,11 @@ export function checkCompletion(f: CompletionFields): { input: CompletionInput |
   return {
     input: {
       note,
+      doneOn: f.doneOn,
+      ...(early ? { earlyReason } : {}),
       ...(materials ? { materials } : {}),
       ...(minutes !== undefined ? { minutesOnSite: minutes } : {}),
-      ...(followOn ? { followOn } : {}),
+      ...(followOn ? { followOn, ...(f.followOnType ? { followOnType: f.followOnType } : {}) } : {}),
     },
     errors,
   };

@@ -101,8 +101,8 @@ export interface WeekParams {
   to: string;
 }
 
-/** Monday to Friday of a week, for GET /api/work-orders?from&to. */
-export const weekRange = (monday: string): WeekParams => ({ from: monday, to: addDays(monday, 4) });
+/** Monday to Sunday of a week, for GET /api/work-orders?from&to (the board shows a weekend day that holds work). */
+export const weekRange = (monday: string): WeekParams => ({ from: monday, to: addDays(monday, 6) });
 
 /** The board's request: every booked order in the week, in slot order, in one page. */
 export function weekQuery(week: WeekParams): Record<string, string | number> {
