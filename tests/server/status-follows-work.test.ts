@@ -5,7 +5,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { makeLandlord, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
-import { hoursAgo, workingDayAhead } from "../support/test-clock.js";
+import { localDate } from "../../src/lib/domain/working-days.js";
+import { hoursAgo, testClock, workingDayAhead } from "../support/test-clock.js";
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -112,14 +113,25 @@ describe("the case follows its work", () => {
     const wo = (
       await officer.post(`/api/cases/${c.id}/work-orders`, { type: "mould-wash", description: "Wash the ceiling." }).expect(201)
     ).body;
-    await lead.patch(`/api/work-orders/${wo.id}`, { complete: { note: "Washed the ceiling with fungicide." } }).expect(200);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, {
+        complete: { note: "Washed the ceiling with fungicide.", doneOn: localDate(testClock.now()) },
+      })
+      .expect(200);
     expect(await status(c.id)).toBe("monitoring");
     expect((await moves(c.id)).slice(-3).map((m) => m.move)).toEqual([
       "investigated→works-planned",
       "works-planned→works-done",
       "works-done→monitoring",
     ]);
-    await lead.post(`/api/cases/${c.id}/verification`, { effective: true, note: "Dry ceiling, no new spots." }).expect(200);
+    await lead
+      .post(`/api/cases/${c.id}/verification`, {
+        effective: true,
+        note: "Dry ceiling, no new spots.",
+        // Day 0 of monitoring: no readings after the works yet, so the verdict needs a recorded override.
+        override: { reason: "Checked on site with the tenant: the ceiling is dry." },
+      })
+      .expect(200);
     expect(await status(c.id)).toBe("closed");
     // Six moves, not one of them made by hand.
     expect((await moves(c.id)).length).toBe(6);
