@@ -27,6 +27,7 @@ import { TriageService } from "./modules/triage/triage.service.js";
 import { UserService } from "./modules/users/user.service.js";
 import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
+import { ConversationService } from "./modules/conversation/conversation.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -48,6 +49,7 @@ export interface Services {
   verification: VerificationService;
   tenancies: TenancyService;
   users: UserService;
+  conversation: ConversationService;
 }
 
 export interface AppContext {
@@ -83,6 +85,7 @@ export function createServices(
   const assessments = new AssessmentService(dataSource, cases);
   const inspections = new InspectionService(dataSource, config, cases, mail, users, clock);
   const policy = new PolicyService(dataSource, cases);
+  const conversation = new ConversationService(dataSource, config, cases, photos, mail, users, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   const queue = new QueueService(dataSource, triage, clock);
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
@@ -109,6 +112,7 @@ export function createServices(
     digest,
     works,
     verification,
+    conversation,
   };
 }
 

@@ -28,6 +28,7 @@ import { createTriageRouter } from "./modules/triage/triage.routes.js";
 import { createStaffRouter, createUsersRouter } from "./modules/users/users.routes.js";
 import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
+import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
@@ -91,6 +92,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
 
   api.use("/auth", createAuthRouter({ config, auth: services.auth, passport, csrfToken: generateToken }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
+  api.use("/me", createMyUnreadRouter({ conversation: services.conversation }));
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
   api.use(
     "/cases",
@@ -114,6 +116,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     "/cases",
     createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy, clock }),
   );
+  api.use("/cases", createConversationRouter({ conversation: services.conversation }));
   api.use(
     "/cases",
     requireAuth,

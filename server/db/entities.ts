@@ -20,6 +20,7 @@ import { Property } from "../modules/properties/property.entity.js";
 import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
+import { CaseReadMark } from "../modules/conversation/case-read-mark.entity.js";
 
 export const entities = [
   Organisation,
@@ -44,4 +45,5 @@ export const entities = [
   WorkOrderBooking,
   OperativeSlot,
   Contractor,
+  CaseReadMark,
 ];

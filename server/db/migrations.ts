@@ -11,6 +11,7 @@ import { DeadlineDigests1796189021283 } from "./migrations/1796189021283-Deadlin
 import { WorkOrders1796191882151 } from "./migrations/1796191882151-WorkOrders.js";
 import { QueueFilterIndex1796192104532 } from "./migrations/1796192104532-QueueFilterIndex.js";
 import { WorkCompletionDate1796400714992 } from "./migrations/1796400714992-WorkCompletionDate.js";
+import { CaseReadMarks1796400825803 } from "./migrations/1796400825803-CaseReadMarks.js";
 import { HomesSortKeyAndVentilation1796400866674 } from "./migrations/1796400866674-HomesSortKeyAndVentilation.js";
 import { UserAuditEntries1796401046829 } from "./migrations/1796401046829-UserAuditEntries.js";
 
@@ -26,6 +27,7 @@ export const migrations = [
   WorkOrders1796191882151,
   QueueFilterIndex1796192104532,
   WorkCompletionDate1796400714992,
+  CaseReadMarks1796400825803,
   HomesSortKeyAndVentilation1796400866674,
   UserAuditEntries1796401046829,
 ];

@@ -101,3 +101,15 @@ export const reportKeys = {
   importPreview: (caseId: number) => [...reportKeys.all, caseId, "import-preview"] as const,
   import: (caseId: number) => [...reportKeys.all, caseId, "import"] as const,
 };
+
+/**
+ * The conversation on a case (features/conversation): the thread sits under the case's detail key, so
+ * refreshing a case refreshes it; the unread list is the signed-in person's own.
+ */
+export const conversationKeys = {
+  all: ["conversation"] as const,
+  thread: (caseId: number) => [...caseKeys.detail(caseId), "messages"] as const,
+  unread: () => [...conversationKeys.all, "unread"] as const,
+  send: (caseId: number) => [...conversationKeys.all, caseId, "send"] as const,
+  read: (caseId: number) => [...conversationKeys.all, caseId, "read"] as const,
+};

@@ -150,6 +150,24 @@ const evaluation = {
   ],
 };
 
+// The conversation as the tenant sees it (GET /api/cases/42/messages): the officer's message, not read yet.
+const conversation = {
+  messages: [
+    {
+      id: 6,
+      kind: "to-tenant",
+      at: "2026-01-12T10:05:00.000Z",
+      author: officer,
+      mine: false,
+      body: "We will visit on Tuesday morning.",
+      photos: [],
+      readBy: [],
+    },
+  ],
+  unread: 1,
+  readUpTo: null,
+};
+
 function caseApi(overrides: Record<string, MockReply | ((call: RecordedCall, nth: number) => MockReply)> = {}) {
   return mockApi({
     "GET /api/auth/me": { body: users.tenant },
@@ -159,6 +177,8 @@ function caseApi(overrides: Record<string, MockReply | ((call: RecordedCall, nth
     "GET /api/cases/42/photos": { body: { photos: [photo(7), photo(8)] } },
     "GET /api/cases/42/readings": { body: { readings } },
     "GET /api/cases/42/evaluation": { body: evaluation },
+    "GET /api/cases/42/messages": { body: conversation },
+    "POST /api/cases/42/messages/read": { body: { unread: 0, readUpTo: 6 } },
     ...overrides,
   });
 }
@@ -190,9 +210,12 @@ describe("case page", () => {
     expect(within(timeline).getByText("2 rows of the file couldn't be read.")).toBeInTheDocument();
     expect(within(timeline).getByText("The status changed to “Being looked into”.")).toBeInTheDocument();
 
-    const messages = screen.getByRole("region", { name: "Messages from your landlord" });
-    expect(within(messages).getByText("We will visit on Tuesday morning.")).toBeInTheDocument();
+    const messages = screen.getByRole("region", { name: "Messages with your landlord" });
+    expect(await within(messages).findByText("We will visit on Tuesday morning.")).toBeInTheDocument();
     expect(within(messages).getByText(/Priya Venn, Housing officer/)).toBeInTheDocument();
+    expect(within(messages).getByText("1 new message from your landlord since you last looked.")).toBeInTheDocument();
+    // Tenants never see read receipts.
+    expect(within(messages).queryByText(/Read by|Not read/)).not.toBeInTheDocument();
 
     const answers = screen.getByRole("region", { name: "What you told us" });
     expect(within(answers).getByText("A corner of the room")).toBeInTheDocument();
@@ -200,10 +223,43 @@ describe("case page", () => {
     expect(within(answers).getByText("There isn't one")).toBeInTheDocument();
   });
 
-  it("says so kindly when there are no messages yet", async () => {
-    caseApi({ "GET /api/cases/42/events": { body: { events: events.slice(0, 2) } } });
+  it("lets the tenant write to the landlord, checking the message and each photo first", async () => {
+    const { callsTo } = caseApi({
+      "POST /api/cases/42/photos": { status: 201, body: { photos: [photo(9)] } },
+      "POST /api/cases/42/messages": { status: 201, body: { ok: true, id: 20 } },
+    });
     await openCase();
-    const messages = screen.getByRole("region", { name: "Messages from your landlord" });
+    const panel = screen.getByRole("region", { name: "Messages with your landlord" });
+    const user = userEvent.setup({ applyAccept: false });
+    await user.click(within(panel).getByRole("button", { name: "Send to your landlord" }));
+    expect(within(panel).getByText("Write the message.")).toBeInTheDocument();
+    expect(within(panel).getByLabelText("Write to your landlord")).toHaveFocus();
+    expect(callsTo("POST", "/api/cases/42/messages")).toHaveLength(0);
+
+    await user.upload(within(panel).getByLabelText(/^Photos/), [
+      new File(["plain text"], "notes.txt", { type: "text/plain" }),
+      new File(["jpeg bytes"], "wall.jpg", { type: "image/jpeg" }),
+    ]);
+    expect(within(panel).getByText("1 file was left out")).toBeInTheDocument();
+    expect(
+      within(panel)
+        .getByText(/notes\.txt/)
+        .closest("li"),
+    ).toHaveTextContent("Choose a JPEG, PNG, WebP or AVIF photo.");
+    expect(within(panel).getByRole("list", { name: "Photos to send with the message" })).toHaveTextContent("wall.jpg");
+
+    await user.type(within(panel).getByLabelText("Write to your landlord"), "The patch came back overnight.");
+    await user.click(within(panel).getByRole("button", { name: "Send to your landlord" }));
+    expect(await within(panel).findByText(/Message sent with 1 photo\. Your landlord has been e-mailed/)).toBeInTheDocument();
+    expect(callsTo("POST", "/api/cases/42/photos")).toHaveLength(1);
+    expect(callsTo("POST", "/api/cases/42/messages")[0]!.body).toEqual({ body: "The patch came back overnight.", photoIds: [9] });
+    expect(within(panel).getByLabelText("Write to your landlord")).toHaveValue("");
+  });
+
+  it("says so kindly when there are no messages yet", async () => {
+    caseApi({ "GET /api/cases/42/messages": { body: { messages: [], unread: 0, readUpTo: null } } });
+    await openCase();
+    const messages = screen.getByRole("region", { name: "Messages with your landlord" });
     expect(await within(messages).findByText("No messages yet")).toBeInTheDocument();
   });
 

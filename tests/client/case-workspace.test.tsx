@@ -174,6 +174,34 @@ const evaluation = {
 
 type Routes = Record<string, MockReply | ((call: RecordedCall, nth: number) => MockReply)>;
 
+// The conversation as the officer sees it: the tenant's unread message, and a message the tenant has read.
+const conversation = {
+  messages: [
+    {
+      id: 11,
+      kind: "to-tenant",
+      at: "2026-01-12T10:05:00.000Z",
+      author: { name: "Priya Venn", role: "officer" },
+      mine: false,
+      body: "We will visit on Tuesday morning.",
+      photos: [],
+      readBy: [{ name: "Robin Ashdown", role: "tenant", readAt: "2026-01-12T14:05:00.000Z" }],
+    },
+    {
+      id: 12,
+      kind: "from-tenant",
+      at: "2026-01-12T18:30:00.000Z",
+      author: { name: "Robin Ashdown", role: "tenant" },
+      mine: false,
+      body: "Tuesday is fine, the side gate is open.",
+      photos: [{ id: 7, url: "/api/photos/7", thumbnailUrl: "/api/photos/7/thumbnail" }],
+      readBy: [],
+    },
+  ],
+  unread: 1,
+  readUpTo: 11,
+};
+
 function workspaceApi(user: (typeof users)[keyof typeof users] = users.officer, overrides: Routes = {}) {
   return mockApi({
     "GET /api/auth/me": { body: user },
@@ -188,6 +216,8 @@ function workspaceApi(user: (typeof users)[keyof typeof users] = users.officer, 
     "GET /api/cases/42/inspections": { body: { inspections: [] } },
     "GET /api/cases/42/assessments": { body: { assessments: [] } },
     "GET /api/cases/42/related": { body: related },
+    "GET /api/cases/42/messages": { body: conversation },
+    "POST /api/cases/42/messages/read": { body: { unread: 0, readUpTo: 12 } },
     "GET /api/staff": { body: { users: staff } },
     "GET /api/policy": {
       body: {
@@ -581,8 +611,29 @@ describe("case workspace", () => {
     });
   });
 
+  it("shows the conversation with what is new, marks it read, and says who has read the staff's messages", async () => {
+    const { callsTo } = workspaceApi(users.officer);
+    await openWorkspace();
+    const panel = region("Messages and notes");
+    expect(await within(panel).findByText("1 new message from the tenant since you last looked.")).toBeInTheDocument();
+    const thread = within(panel).getByRole("list", { name: "Messages, oldest first" });
+    const [staffMessage, tenantMessage] = within(thread).getAllByRole("article");
+    expect(staffMessage).toHaveTextContent("Read by the tenant 12 Jan 2026, 14:05");
+    expect(tenantMessage).toHaveTextContent("Robin Ashdown (tenant)");
+    expect(tenantMessage).toHaveTextContent("New");
+    expect(tenantMessage).toHaveTextContent("Not read by staff yet");
+    expect(within(tenantMessage!).getByRole("img", { name: /Attachment 1 of 1/ })).toHaveAttribute(
+      "src",
+      "/api/photos/7/thumbnail",
+    );
+    await waitFor(() => expect(callsTo("POST", "/api/cases/42/messages/read")).toHaveLength(1));
+    expect(callsTo("POST", "/api/cases/42/messages/read")[0]!.body).toEqual({ upTo: 12 });
+  });
+
   it("makes the author choose between a message to the tenant and an internal note", async () => {
-    const { callsTo } = workspaceApi(users.officer, { "POST /api/cases/42/messages": { status: 201, body: { ok: true } } });
+    const { callsTo } = workspaceApi(users.officer, {
+      "POST /api/cases/42/messages": { status: 201, body: { ok: true, id: 13 } },
+    });
     await openWorkspace();
     const panel = region("Messages and notes");
     const user = userEvent.setup();
@@ -591,11 +642,11 @@ describe("case workspace", () => {
     expect(within(panel).getByText("Choose whether this goes to the tenant or stays with staff.")).toBeInTheDocument();
     expect(callsTo("POST", "/api/cases/42/messages")).toHaveLength(0);
 
-    await user.click(within(panel).getByRole("radio", { name: "Internal note (staff only)" }));
+    await user.click(within(panel).getByRole("radio", { name: /^Staff only/ }));
     await user.click(within(panel).getByRole("button", { name: "Add internal note" }));
     expect(await within(panel).findByText("Internal note added. Only staff can see it.")).toBeInTheDocument();
     expect(callsTo("POST", "/api/cases/42/messages")[0]!.body).toEqual({ body: "Caretaker has the key.", internal: true });
-    expect(within(panel).getByRole("radio", { name: /^Message to the tenant/ })).not.toBeChecked();
+    expect(within(panel).getByRole("radio", { name: /^The tenant/ })).not.toBeChecked();
   });
 
   it("lets a maintenance lead read the case without the officer's actions", async () => {

@@ -162,6 +162,12 @@ describe("the server's replies fit the API contract", () => {
       body: "We found condensation mould in the bedroom and will fit a new extract fan.",
     });
     await post(officer, `/api/cases/${caseId}/messages`, { body: "Internal: ask the lead about the fan.", internal: true });
+    await post(tenant, `/api/cases/${caseId}/messages`, { body: "The fan still does not run." });
+    await get(officer, `/api/cases/${caseId}/messages`);
+    await get(officer, "/api/me/unread-messages");
+    await post(officer, `/api/cases/${caseId}/messages/read`, {});
+    await get(tenant, `/api/cases/${caseId}/messages`);
+    await get(tenant, "/api/me/unread-messages");
     await get(officer, `/api/cases/${caseId}/deadlines`);
   });
 

@@ -15,7 +15,8 @@ import {
   passwordResetSchema,
 } from "../auth/auth.schemas.js";
 import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
-import { inspectionSchema, messageSchema, summarySchema } from "../inspections/inspections.schemas.js";
+import { inspectionSchema, summarySchema } from "../inspections/inspections.schemas.js";
+import { markReadSchema, staffMessageSchema, tenantMessageSchema } from "../../../src/lib/schemas/messages.js";
 import { deadlinePolicySchema } from "../policy/policy.schemas.js";
 import { propertyListQuerySchema } from "../properties/properties.schemas.js";
 import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
@@ -56,7 +57,8 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "POST /api/cases/:id/assessments": { body: assessmentSchema },
   "POST /api/cases/:id/inspections": { body: inspectionSchema },
   "POST /api/cases/:id/summary": { body: summarySchema },
-  "POST /api/cases/:id/messages": { body: messageSchema },
+  "POST /api/cases/:id/messages": { body: [staffMessageSchema, tenantMessageSchema] },
+  "POST /api/cases/:id/messages/read": { body: markReadSchema },
   "POST /api/cases/:id/work-orders": { body: workOrderCreateSchema },
   "POST /api/cases/:id/verification": { body: verificationOutcomeSchema },
   "GET /api/work-orders": { query: workOrderListQuerySchema },

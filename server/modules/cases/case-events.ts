@@ -47,6 +47,8 @@ export type CaseEventPayload =
   | { type: "summary-sent"; after: { summaryId: number; body: string; outboxId: number } }
   | { type: "internal-note"; after: { body: string } }
   | { type: "message-to-tenant"; after: { body: string; outboxId?: number } }
+  /** The tenant wrote to the landlord (conversation module), with photos already on the case. */
+  | { type: "message-from-tenant"; after: { body: string; photoIds: number[] } }
   | {
       type: "work-order-created";
       after: { workOrderId: number; type: string; description: string; targetDate: string; priority: string };

@@ -93,9 +93,14 @@ export class CaseService {
    * Writes a CaseEvent in the caller's transaction. Every change to a case goes through here, so
    * this is also where the case's triage figures are marked stale (see TriageService).
    */
-  async recordEvent(m: EntityManager, e: NewCaseEvent) {
+  async recordEvent(m: EntityManager, e: NewCaseEvent): Promise<void> {
+    await this.recordEventWithId(m, e);
+  }
+
+  /** recordEvent, answering the new event's id (a message that read marks and replies refer to). */
+  async recordEventWithId(m: EntityManager, e: NewCaseEvent): Promise<number> {
     const before = "before" in e ? (e.before as Record<string, unknown> | null) : null;
-    await m.getRepository(CaseEvent).save(
+    const saved = await m.getRepository(CaseEvent).save(
       // created_at from the clock, not the column default: rules compare it with times the clock set (e.g. works done).
       m.getRepository(CaseEvent).create({
         caseId: e.caseId,
@@ -107,6 +112,7 @@ export class CaseService {
       }),
     );
     await this.markStale(m, { caseIds: [e.caseId] });
+    return Number(saved.id);
   }
 
   /**

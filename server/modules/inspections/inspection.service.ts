@@ -10,7 +10,7 @@ import type { InspectionInput } from "./inspections.schemas.js";
 import { WrittenSummary } from "./written-summary.entity.js";
 import type { Clock } from "../../lib/clock.js";
 
-/** The investigation of a case: inspections, the written summary to the tenant, and messages. */
+/** The investigation of a case: inspections and the written summary to the tenant. */
 export class InspectionService {
   constructor(
     private readonly dataSource: DataSource,
@@ -119,37 +119,5 @@ export class InspectionService {
     });
     await deliver();
     return saved;
-  }
-
-  /** A message to the tenant (shown on their case page and e-mailed) or an internal note staff only see. */
-  async message(actor: Actor, caseId: number, body: string, internal: boolean): Promise<void> {
-    const deliver = await this.dataSource.transaction(async (m) => {
-      const c = await this.cases.getForActor(actor, caseId, m);
-      if (internal) {
-        await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "internal-note", after: { body } });
-        return null;
-      }
-      if (c.tenantUserId === null) {
-        await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "message-to-tenant", after: { body } });
-        return null;
-      }
-      const tenant = await this.users.person(c.tenantUserId, m);
-      const { outboxId, deliver } = await this.mail.enqueueWithId(m, {
-        to: tenant.email,
-        template: "caseMessage",
-        organisationId: c.organisationId,
-        related: { type: "case", id: c.id },
-        data: {
-          name: tenant.name,
-          reference: c.reference!,
-          senderName: actor.name,
-          body,
-          link: `${this.config.appUrl}/cases/${c.id}`,
-        },
-      });
-      await this.cases.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "message-to-tenant", after: { body, outboxId } });
-      return deliver;
-    });
-    if (deliver) await deliver();
   }
 }

@@ -1,5 +1,4 @@
 import { Router } from "express";
-import { okResponse } from "../../../src/lib/contracts/common.js";
 import {
   deadlinesResponse,
   inspectionListResponse,
@@ -16,9 +15,9 @@ import type { CaseService } from "../cases/case.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { InspectionService } from "./inspection.service.js";
-import { inspectionSchema, messageSchema, summarySchema } from "./inspections.schemas.js";
+import { inspectionSchema, summarySchema } from "./inspections.schemas.js";
 
-/** Mounted at /api/cases: inspections, the written summary, messages and the deadline clocks. */
+/** Mounted at /api/cases: inspections, the written summary and the deadline clocks (messages: the conversation module). */
 export function createInspectionsRouter({
   cases,
   inspections,
@@ -57,13 +56,6 @@ export function createInspectionsRouter({
     const { body } = parse(summarySchema, req.body);
     const saved = await inspections.sendSummary(actorOf(req), id, body);
     res.status(201).json(shaped(summarySentResponse, { id: saved.id, sentAt: saved.sentAt.toISOString() }));
-  });
-
-  router.post("/:id/messages", staff, async (req, res) => {
-    const { id } = parse(idParamsSchema, req.params, "params");
-    const { body, internal } = parse(messageSchema, req.body);
-    await inspections.message(actorOf(req), id, body, internal);
-    res.status(201).json(shaped(okResponse, { ok: true }));
   });
 
   router.get("/:id/deadlines", staff, async (req, res) => {

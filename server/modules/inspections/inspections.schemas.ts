@@ -34,9 +34,3 @@ export const summarySchema = z.object({
     .min(20, "Write the summary for the tenant: findings, what will be done and by when.")
     .max(10000),
 });
-
-export const messageSchema = z.object({
-  body: z.string({ error: "Write the message." }).trim().min(1, "Write the message.").max(5000),
-  /** true: an internal note staff see; false: a message to the tenant, shown on their case page and e-mailed. */
-  internal: z.boolean({ error: "internal must be true or false." }),
-});

@@ -337,6 +337,36 @@ export const mailTemplates = {
           ].join("\n"),
     };
   },
+  /** To the assignee, or to each officer while nobody is assigned: the tenant wrote on their case. */
+  tenantMessage(d: {
+    name: string;
+    reference: string;
+    address: string;
+    tenantName: string;
+    body: string;
+    photoCount: number;
+    assignedToYou: boolean;
+    link: string;
+  }): RenderedMail {
+    const photos =
+      d.photoCount === 0 ? [] : ["", d.photoCount === 1 ? "1 photo came with it." : `${d.photoCount} photos came with it.`];
+    return {
+      subject: `New message from the tenant on ${d.reference}`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `${d.tenantName}, the tenant at ${d.address}, wrote on case ${d.reference}:`,
+        "",
+        d.body,
+        ...photos,
+        "",
+        d.assignedToYou
+          ? "You are the case's assignee. Read and reply on the case page:"
+          : "Nobody is assigned to the case yet, so every officer gets this e-mail. Read and reply on the case page:",
+        d.link,
+      ].join("\n"),
+    };
+  },
 } as const;
 
 export type MailTemplateName = keyof typeof mailTemplates;

@@ -13,7 +13,7 @@ import {
   passwordResetRequestedResponse,
 } from "./auth.js";
 import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse, worseResponse } from "./cases.js";
-import { okResponse } from "./common.js";
+import { conversationResponse, messageSentResponse, readMarkResponse, unreadMessagesResponse } from "./conversation.js";
 import { evaluationResponse } from "./evaluation.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
@@ -123,6 +123,13 @@ export const ENDPOINTS: readonly Endpoint[] = [
 
   e("GET", "/api/me/home", ["tenant"], "The tenant's home", myHomeResponse),
   e("GET", "/api/me/cases", ["tenant"], "The tenant's cases", myCasesResponse),
+  e(
+    "GET",
+    "/api/me/unread-messages",
+    "signed-in",
+    "Cases with messages from the other side not read yet",
+    unreadMessagesResponse,
+  ),
 
   e("GET", "/api/cases", STAFF, "The officers' queue", queuePageResponse),
   e("POST", "/api/cases/bulk", OFFICERS, "Assign or move many cases", bulkUpdateResponse),
@@ -176,7 +183,22 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/cases/:id/inspections", OFFICERS, "Record an inspection", inspectionRecordedResponse, 201),
   e("GET", "/api/cases/:id/inspections", STAFF, "A case's inspections", inspectionListResponse),
   e("POST", "/api/cases/:id/summary", OFFICERS, "Send the tenant the written summary", summarySentResponse, 201),
-  e("POST", "/api/cases/:id/messages", STAFF, "Message the tenant, or add an internal note", okResponse, 201),
+  e(
+    "POST",
+    "/api/cases/:id/messages",
+    "signed-in",
+    "Write on the case: the tenant to the landlord (with photos of the case), staff to the tenant or an internal note",
+    messageSentResponse,
+    201,
+  ),
+  e(
+    "GET",
+    "/api/cases/:id/messages",
+    "signed-in",
+    "The case's conversation, with unread count and (staff) read receipts",
+    conversationResponse,
+  ),
+  e("POST", "/api/cases/:id/messages/read", "signed-in", "Mark the case's conversation read up to a message", readMarkResponse),
   e("GET", "/api/cases/:id/deadlines", STAFF, "A case's statutory clocks", deadlinesResponse),
   e("POST", "/api/cases/:id/work-orders", STAFF, "Raise a work order", workOrderResponse, 201),
   e("GET", "/api/cases/:id/work-orders", "signed-in", "A case's work orders", caseWorkOrdersResponse),

@@ -15,4 +15,5 @@ export * from "./assessments.js";
 export * from "./policy.js";
 export * from "./triage.js";
 export * from "./works.js";
+export * from "./conversation.js";
 export * from "./endpoints.js";

@@ -36,7 +36,7 @@ import { DeadlinesPanel } from "@/features/case-workspace/components/deadlines-p
 import { usePolicy } from "@/features/policy/api/get-policy";
 import { DiagnosisHints } from "@/features/case-workspace/components/diagnosis-hints";
 import { InspectionForm, InspectionList } from "@/features/case-workspace/components/inspection-section";
-import { MessageForm } from "@/features/case-workspace/components/message-form";
+import { CaseConversation } from "@/features/conversation/components/case-conversation";
 import { QueryState } from "@/features/case-workspace/components/query-state";
 import { RelatedCases } from "@/features/case-workspace/components/related-cases";
 import { SummarySection } from "@/features/case-workspace/components/summary-section";
@@ -234,7 +234,7 @@ function Workspace({ id }: { id: number }) {
           <VerificationSection caseId={id} caseStatus={c.status} canDecide={canManageWorks(user.role)} />
         </Panel>
         <Panel title="Messages and notes" id="case-messages">
-          <MessageForm caseId={id} />
+          <CaseConversation caseId={id} viewer="staff" />
         </Panel>
         <TimelinePanel c={c} staffNames={staff.data} />
       </div>

@@ -17,12 +17,12 @@ import { caseTitle, type CaseDto } from "@/features/cases/api/types";
 import { CaseEvaluationView } from "@/features/cases/components/case-evaluation";
 import { StatusBadge } from "@/features/cases/components/case-status";
 import { CaseTimeline } from "@/features/cases/components/case-timeline";
-import { LandlordMessages } from "@/features/cases/components/landlord-messages";
 import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
 import { tenantStage } from "@/features/cases/labels";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
+import { CaseConversation } from "@/features/conversation/components/case-conversation";
 import { AddPhotos } from "@/features/report/components/add-photos";
 import { AddReadings } from "@/features/report/components/add-readings";
 import { ReportFollowUp } from "@/features/report/components/report-follow-up";
@@ -260,16 +260,9 @@ function EvaluationPanel({ id }: { id: number }) {
 }
 
 function MessagesPanel({ id }: { id: number }) {
-  const events = useCaseEvents(id);
   return (
-    <Panel title="Messages from your landlord" id="case-messages">
-      {events.isPending ? (
-        <LoadingState>Loading messages…</LoadingState>
-      ) : events.isError ? (
-        <Alert tone="warning">{errorMessage(events.error)}</Alert>
-      ) : (
-        <LandlordMessages events={events.data} />
-      )}
+    <Panel title="Messages with your landlord" id="case-messages">
+      <CaseConversation caseId={id} viewer="tenant" />
     </Panel>
   );
 }

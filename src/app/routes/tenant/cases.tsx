@@ -5,6 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
 import { myCasesQueryOptions } from "@/features/cases/api/get-my-cases";
 import { MyCases } from "@/features/cases/components/case-list";
+import { UnreadMessages } from "@/features/conversation/components/unread-messages";
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
   if (await signedInAs(queryClient, ["tenant"])) void queryClient.prefetchQuery(myCasesQueryOptions());
@@ -24,6 +25,7 @@ export default function MyReportsPage() {
           </Link>
         }
       />
+      <UnreadMessages viewer="tenant" />
       <MyCases />
     </>
   );

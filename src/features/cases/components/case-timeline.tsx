@@ -123,6 +123,14 @@ export function describeEvent(
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
+    case "message-from-tenant": {
+      const body = str(after.body);
+      const photos = Array.isArray(after.photoIds) ? after.photoIds.length : 0;
+      return {
+        title: `${you ? "You" : who || "The tenant"} wrote to ${audience === "tenant" ? "your landlord" : "the landlord"}${photos ? `, with ${count(photos, "photo", "photos")}` : ""}.`,
+        detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
+      };
+    }
     case "summary-sent": {
       const body = str(after.body);
       return {
@@ -223,6 +231,7 @@ const emailTemplateLabels: Record<string, string> = {
   caseAcknowledgement: "Acknowledgement of the report",
   caseAlert: "Alert to officers",
   caseMessage: "Message to the tenant",
+  tenantMessage: "The tenant's message, to staff",
   writtenSummary: "Written summary",
   invitation: "Invitation",
   passwordReset: "Password reset",
