@@ -174,6 +174,13 @@ beforeAll(async () => {
 
   const worse = await tenant.post(`/api/cases/${caseId}/worse`, { note: "A small spot is back by the window." });
   record("POST", "/api/cases/:id/worse", worse.text);
+  // The tenant writes to the landlord and marks the conversation read.
+  const message = await tenant
+    .post(`/api/cases/${caseId}/messages`, { body: "Thank you, the fan is much quieter than the old one." })
+    .expect(201);
+  record("POST", "/api/cases/:id/messages", message.text);
+  const read = await tenant.post(`/api/cases/${caseId}/messages/read`, {}).expect(200);
+  record("POST", "/api/cases/:id/messages/read", read.text);
 });
 afterAll(() => t.close());
 
