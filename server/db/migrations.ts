@@ -10,6 +10,7 @@ import { TriageFigures1796188877489 } from "./migrations/1796188877489-TriageFig
 import { DeadlineDigests1796189021283 } from "./migrations/1796189021283-DeadlineDigests.js";
 import { WorkOrders1796191882151 } from "./migrations/1796191882151-WorkOrders.js";
 import { QueueFilterIndex1796192104532 } from "./migrations/1796192104532-QueueFilterIndex.js";
+import { PolicyEmergencyPhone1796401387060 } from "./migrations/1796401387060-PolicyEmergencyPhone.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -22,4 +23,5 @@ export const migrations = [
   DeadlineDigests1796189021283,
   WorkOrders1796191882151,
   QueueFilterIndex1796192104532,
+  PolicyEmergencyPhone1796401387060,
 ];

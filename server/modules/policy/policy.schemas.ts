@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { emergencyPhoneSchema } from "../../../src/lib/schemas/policy.js";
 
 const whole = (field: string, min: number, max: number, unit: string) =>
   z
@@ -17,5 +18,7 @@ export const deadlinePolicySchema = z
     supplementaryWorkWeeks: whole("supplementaryWorkWeeks", 1, 52, "weeks"),
     /** Optional so older clients keep working; 21 days when not sent. */
     monitoringDays: whole("monitoringDays", 7, 90, "days").default(21),
+    /** The landlord's emergency line, told to tenants in the acknowledgement and the written summary; null for none. */
+    emergencyPhone: emergencyPhoneSchema.default(null),
   })
   .strict();
