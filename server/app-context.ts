@@ -79,12 +79,13 @@ export function createServices(
   const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const photos = new PhotoService(dataSource, config, cases);
-  const readings = new ReadingService(dataSource, cases);
+  const readings = new ReadingService(dataSource, cases, clock);
   const imports = new ReadingImportService(dataSource, cases, clock);
   const evaluation = new EvaluationService(cases, readings);
   const assessments = new AssessmentService(dataSource, cases);
-  const inspections = new InspectionService(dataSource, config, cases, mail, users, clock);
   const policy = new PolicyService(dataSource, cases);
+  cases.useEmergencyPhones(policy);
+  const inspections = new InspectionService(dataSource, config, cases, mail, users, clock, policy);
   const conversation = new ConversationService(dataSource, config, cases, photos, mail, users, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   const queue = new QueueService(dataSource, triage, clock);

@@ -49,7 +49,14 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     if (isDraining()) res.setHeader("Connection", "close");
     next();
   });
-  app.use(helmet({ crossOriginEmbedderPolicy: false }));
+  app.use(
+    helmet({
+      crossOriginEmbedderPolicy: false,
+      // helmet's defaults, with `blob:` added to img-src only: the photo picker previews the chosen
+      // files through object URLs before they are sent. Nothing else is loosened.
+      contentSecurityPolicy: { directives: { "img-src": ["'self'", "data:", "blob:"] } },
+    }),
+  );
   app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => req.url?.startsWith("/api/health") ?? false } }));
 
   const api = express.Router();

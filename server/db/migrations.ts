@@ -14,6 +14,7 @@ import { WorkCompletionDate1796400714992 } from "./migrations/1796400714992-Work
 import { CaseReadMarks1796400825803 } from "./migrations/1796400825803-CaseReadMarks.js";
 import { HomesSortKeyAndVentilation1796400866674 } from "./migrations/1796400866674-HomesSortKeyAndVentilation.js";
 import { UserAuditEntries1796401046829 } from "./migrations/1796401046829-UserAuditEntries.js";
+import { PolicyEmergencyPhone1796401387060 } from "./migrations/1796401387060-PolicyEmergencyPhone.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -30,4 +31,5 @@ export const migrations = [
   CaseReadMarks1796400825803,
   HomesSortKeyAndVentilation1796400866674,
   UserAuditEntries1796401046829,
+  PolicyEmergencyPhone1796401387060,
 ];

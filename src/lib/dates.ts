@@ -92,6 +92,30 @@ export function formatLongDateTime(iso: string | null | undefined): string {
   return d ? `${longWeekdayDate.format(d)} at ${clockZone.format(d)}` : (iso ?? "");
 }
 
+const clock12 = london({ hour: "numeric", minute: "2-digit", hourCycle: "h12" });
+
+/** "2 pm", "10:30 am", "midday", "midnight": a London time of day in plain words, with no zone. */
+function plainTime(d: Date): string {
+  const parts = Object.fromEntries(clock12.formatToParts(d).map((p) => [p.type, p.value]));
+  const hour = Number(parts.hour);
+  const minute = parts.minute ?? "00";
+  const period = (parts.dayPeriod ?? "").toLowerCase().replace(/\./g, "").trim();
+  if (minute === "00" && hour === 12) return period === "am" ? "midnight" : "midday";
+  return `${hour}${minute === "00" ? "" : `:${minute}`} ${period}`;
+}
+
+/**
+ * For letters and e-mails to tenants: "Wednesday 14 January 2026 at 10:30 am", in London time with
+ * no zone jargon (no "GMT" or "BST"). A deadline at 23:59 reads "the end of Monday 19 January 2026".
+ */
+export function formatForTenant(iso: string | null | undefined): string {
+  const d = instant(iso);
+  if (!d) return iso ?? "";
+  const day = longWeekdayDate.format(d).replace(",", "");
+  const time = plainTime(d);
+  return time === "11:59 pm" ? `the end of ${day}` : `${day} at ${time}`;
+}
+
 /** "Thursday 24 December 2026", the London day of an instant. */
 export function formatLongDay(iso: string | null | undefined): string {
   const d = instant(iso);

@@ -306,9 +306,11 @@ describe("case page", () => {
     const table = await screen.findByRole("table", { name: /Readings in Bedroom 1, newest first/ });
     const rows = within(table).getAllByRole("row");
     expect(rows).toHaveLength(1 + 25);
-    // 18 °C at 72 % has a dew point of about 12.9 °C; at a 12.5 °C surface the humidity is 100 %.
+    // 18 °C at 72 % has a dew point of about 12.9 °C; a 12.5 °C surface is below it (about 102 %),
+    // which is said as condensing, never as a percentage over 100.
     expect(within(rows[1]!).getByText("12.9 °C")).toBeInTheDocument();
-    expect(within(rows[1]!).getByText("100 %")).toBeInTheDocument();
+    expect(within(rows[1]!).getByText("condensing (the surface is below the dew point)")).toBeInTheDocument();
+    expect(table.textContent).not.toMatch(/\b(1\d\d|[2-9]\d\d) %/);
     expect(screen.getByText("Showing 1–25 of 48 readings")).toBeInTheDocument();
     await userEvent.setup().click(screen.getByRole("button", { name: /Next page/ }));
     expect(screen.getByText("Showing 26–48 of 48 readings")).toBeInTheDocument();
@@ -410,7 +412,7 @@ describe("case page", () => {
       "POST /api/cases/42/photos": (_call, nth) =>
         nth === 0
           ? { status: 413, body: { error: { code: "payload_too_large", message: tooBig } } }
-          : { status: 201, body: { photos: [photo(9)] } },
+          : { status: 201, body: { photos: [photo(9)], refused: [] } },
     });
     await openCase();
     const user = userEvent.setup();
@@ -426,6 +428,28 @@ describe("case page", () => {
     expect(await within(panel).findByText("1 photo added")).toBeInTheDocument();
     expect(callsTo("POST", "/api/cases/42/photos")).toHaveLength(2);
     await waitFor(() => expect(callsTo("GET", "/api/cases/42/photos").length).toBeGreaterThanOrEqual(2));
+  });
+
+  it("keeps the photos the server took and names each file it refused, with its reason", async () => {
+    const unreadable = "This photo could not be read: it may be damaged or only partly uploaded. Please try again.";
+    const { callsTo } = caseApi({
+      "POST /api/cases/42/photos": {
+        status: 201,
+        body: { photos: [photo(9)], refused: [{ name: "broken.jpg", reason: unreadable }] },
+      },
+    });
+    await openCase();
+    const user = userEvent.setup();
+    await user.click(screen.getByRole("button", { name: "Add photos" }));
+    const panel = screen.getByRole("region", { name: "Add more photos" });
+    const jpeg = (name: string) => new File([new Uint8Array([0xff, 0xd8, 0xff])], name, { type: "image/jpeg" });
+    await user.upload(within(panel).getByLabelText("Add photos"), [jpeg("wall.jpg"), jpeg("broken.jpg")]);
+    await user.click(within(panel).getByRole("button", { name: "Send 2 photos" }));
+    expect(await within(panel).findByText("1 photo added")).toBeInTheDocument();
+    expect(within(panel).getByText("One file could not be added")).toBeInTheDocument();
+    expect(within(panel).getByText("broken.jpg")).toBeInTheDocument();
+    expect(within(panel).getByText(unreadable, { exact: false })).toBeInTheDocument();
+    expect(callsTo("POST", "/api/cases/42/photos")).toHaveLength(1);
   });
 
   it("says a report is not found rather than showing someone else's", async () => {

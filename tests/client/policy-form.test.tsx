@@ -18,8 +18,10 @@ const DEFAULT = { ...ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, monitoringDays: DEFA
  * body with the server's own schema and parser, so the 400 replies carry the server's real messages.
  */
 function setup(start: DeadlinePolicy | null = null, role: keyof typeof users = "admin") {
-  let own: DeadlinePolicy | null = start;
-  const view = (): MockReply => ({ body: own ? { ...own, source: "landlord" } : { ...DEFAULT, source: "default" } });
+  let own: (DeadlinePolicy & { emergencyPhone?: string | null }) | null = start;
+  const view = (): MockReply => ({
+    body: own ? { emergencyPhone: null, ...own, source: "landlord" } : { ...DEFAULT, emergencyPhone: null, source: "default" },
+  });
   const api = mockApi({
     "GET /api/auth/me": { body: users[role] },
     "GET /api/auth/csrf": { body: { csrfToken: "t" } },
@@ -100,6 +102,7 @@ describe("the deadline policy page", () => {
       ...DEFAULT,
       emergencyMakeSafeHours: 12,
       investigateWorkingDays: 7,
+      emergencyPhone: null,
     });
     expect(field(/Make the home safe within/)).toHaveValue("12");
     expect(field(/Make the home safe within/)).not.toHaveAttribute("aria-invalid");
@@ -123,6 +126,24 @@ describe("the deadline policy page", () => {
     await user.type(hours, "73");
     await user.click(screen.getByRole("button", { name: "Save" }));
     await waitFor(() => expect(hours).toHaveAccessibleDescription(/Must be at most 72 hours\./));
+  });
+
+  it("takes the landlord's emergency number, refusing one that is not a UK telephone number", async () => {
+    const { callsTo } = setup();
+    const user = userEvent.setup();
+    const phone = await screen.findByRole("textbox", { name: "Emergency telephone number" });
+    await user.type(phone, "call us");
+    await user.click(screen.getByRole("button", { name: "Save" }));
+    await waitFor(() => expect(phone).toHaveAccessibleDescription(/Enter a UK telephone number/));
+    expect(phone).toHaveAttribute("aria-invalid", "true");
+    expect(callsTo("PUT", "/api/policy")).toHaveLength(0);
+
+    await user.clear(phone);
+    await user.type(phone, "0300 123 4567");
+    await user.click(screen.getByRole("button", { name: "Save" }));
+    expect(await screen.findByText(/^Saved\. Your own timeframes are in force/)).toBeInTheDocument();
+    expect(callsTo("PUT", "/api/policy").at(-1)!.body).toMatchObject({ emergencyPhone: "0300 123 4567" });
+    expect(screen.getByRole("textbox", { name: "Emergency telephone number" })).toHaveValue("0300 123 4567");
   });
 
   it("asks for a whole number before sending anything", async () => {

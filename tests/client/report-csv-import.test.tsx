@@ -216,7 +216,10 @@ describe("logger CSV import", () => {
     await user.selectOptions(screen.getByLabelText("Where was the logger?"), "Bedroom 1");
     await user.click(screen.getByRole("button", { name: "Next" }));
     await screen.findByRole("heading", { level: 2, name: /Step 6 of 6/ });
-    expect(screen.getByText("Logger file: bedroom-logger.csv")).toBeInTheDocument();
+    // The check-and-send card for readings names the logger file under its own question.
+    const readingsCard = screen.getByRole("region", { name: "Readings" });
+    expect(within(readingsCard).getByText("Logger file")).toBeInTheDocument();
+    expect(within(readingsCard).getByText("bedroom-logger.csv")).toBeInTheDocument();
     await user.click(screen.getByRole("button", { name: "Send report" }));
 
     expect(await screen.findByRole("heading", { level: 1, name: "DW-2026-00042" })).toBeInTheDocument();

@@ -66,7 +66,7 @@ function tenantApi(overrides: Record<string, MockReply | ((call: RecordedCall, n
     "GET /api/me/home": { body: myHome },
     "GET /api/me/cases": { body: { items: [] } },
     "POST /api/cases": { status: 201, body: created },
-    "POST /api/cases/42/photos": { status: 201, body: { photos: [photo(7)] } },
+    "POST /api/cases/42/photos": { status: 201, body: { photos: [photo(7)], refused: [] } },
     "POST /api/cases/42/readings": { status: 201, body: { imported: 1, duplicates: 0, rejected: 0 } },
     "GET /api/cases/42": { body: created },
     "GET /api/cases/42/events": { body: { events: [] } },
@@ -258,7 +258,7 @@ describe("report form", () => {
     const heic = "This photo is in HEIC format, which we cannot read yet.";
     const { callsTo } = tenantApi({
       "POST /api/cases/42/photos": (_call, nth) =>
-        nth === 0 ? apiError(415, "unsupported_media_type", heic) : { status: 201, body: { photos: [photo(8)] } },
+        nth === 0 ? apiError(415, "unsupported_media_type", heic) : { status: 201, body: { photos: [photo(8)], refused: [] } },
     });
     const user = userEvent.setup();
     await openReport();

@@ -102,6 +102,26 @@ describe("evaluatePoint", () => {
     expect(elementOnly.reasons[0]).toMatch(/An outdoor temperature is needed/);
   });
 
+  it("never claims condensing without a surface temperature, measured or estimated from the construction", () => {
+    // Saturated air with no surface temperature and no element to estimate one: the surface is only
+    // assumed at air temperature, so the state is mould risk (≥ 80 %, ISO 13788), not condensing.
+    const saturated = evaluatePoint({ airTemperatureC: 18, relativeHumidityPct: 100 });
+    expect(saturated.surface.source).toBe("air");
+    expect(saturated.surface.relativeHumidityPct).toBe(100);
+    expect(saturated.surface.state).toBe("mould-risk");
+    expect(saturated.reasons.join(" ")).toMatch(/cannot say whether water condenses/);
+    // Estimated from the element (single glazing, typical fRsi) with an outdoor temperature: condensing
+    // stays, and the source says it is an estimate (the panel labels it so).
+    const estimated = evaluatePoint({
+      airTemperatureC: 19,
+      relativeHumidityPct: 78,
+      outdoorTemperatureC: 0,
+      element: "single-glazing",
+    });
+    expect(estimated.surface.source).toBe("estimated");
+    expect(estimated.surface.state).toBe("condensing");
+  });
+
   it("measured temperature factor: given at ≥ 5 K difference, flagged under 0.75, withheld under 5 K", () => {
     // fRsi = (θsi − θe)/(θi − θe) (ISO 13788): (12 − 0)/(20 − 0) = 0.60 < 0.75 (BRE IP 1/06).
     const low = evaluatePoint({ airTemperatureC: 20, relativeHumidityPct: 40, surfaceTemperatureC: 12, outdoorTemperatureC: 0 });

@@ -55,18 +55,24 @@ describe("written summary template", () => {
       deadlines,
     });
     expect(text).toContain("(reference DW-2026-00042) at 1 Tanner Row, Easterby, ZX3 1AA.");
-    expect(text).toContain("We inspected your home on Wednesday, 14 January 2026 at 10:30 GMT.");
-    expect(text).toContain(later.findings);
+    expect(text).toContain("We inspected your home on Wednesday 14 January 2026.");
+    // The officer's own notes are never copied into the tenant's letter: the officer writes that part.
+    expect(text).not.toContain(later.findings);
     expect(text).not.toContain(earlier.findings);
+    expect(text).toContain("[Fill in: what we found, in plain words for the tenant]");
     expect(text).toContain("We saw mould over between 1 and 5 square metres.");
     expect(text).toContain(
       "Condensation: moisture in the air indoors is settling on surfaces in your home that are colder than they should be.",
     );
-    expect(text).toContain("It is a Category 1 hazard (band B)");
-    expect(text).not.toContain("band E");
-    expect(text).toContain("- We will begin the work to remove the risk to your health by Monday, 19 January 2026 at 23:59 GMT.");
+    expect(text).toContain("It is a Category 1 hazard: the most serious kind");
+    // No band letters, zone names or greeting: the tenant reads plain words, and the e-mail greets them by name.
+    expect(text).not.toMatch(/\bband\b/i);
+    expect(text).not.toMatch(/\b(GMT|BST)\b/);
+    expect(text).not.toMatch(/^\s*(hello|dear)\b/i);
+    // A deadline at 23:59 London time is "the end of" that day: 19 January is GMT, 1 July is BST (22:59 UTC).
+    expect(text).toContain("- We will begin the work to remove the risk to your health by the end of Monday 19 January 2026.");
     expect(text).toContain(
-      "- We will begin the further work to stop the damp and mould coming back by Wednesday, 1 July 2026 at 23:59 BST.",
+      "- We will begin the further work to stop the damp and mould coming back by the end of Wednesday 1 July 2026.",
     );
     // The summary itself and stages that are done or do not apply are not promised again.
     expect(text).not.toMatch(/15 January 2026/);
@@ -84,7 +90,7 @@ describe("written summary template", () => {
       deadlines: [{ stage: "safety-work", dueAt: "2026-01-19T23:59:59.999Z", doneAt: null, state: "missed" }],
     });
     expect(text).toContain(
-      "We will begin the work to remove the risk to your health as soon as possible: we should have done so by Monday, 19 January 2026 at 23:59 GMT",
+      "We will begin the work to remove the risk to your health as soon as possible: we should have done so by the end of Monday 19 January 2026",
     );
   });
 
@@ -100,6 +106,20 @@ describe("written summary template", () => {
     const none = buildSummaryTemplate(base);
     expect(none).toContain("[Fill in: what we found when we inspected your home]");
     expect(none).toContain("[Fill in: the cause we found]");
+  });
+
+  it("says a Category 2 hazard in plain words and never pastes the officer's notes or their markup", () => {
+    const marked = {
+      ...later,
+      findings: "<b>RAW-NOTE</b> ext wall N/E, tenant v. upset",
+      roomReadings: [{ roomId: 4 }, { roomId: 5 }],
+    };
+    const text = buildSummaryTemplate({ ...base, inspections: [marked], assessments: [{ version: 1, band: "E", category: 2 }] });
+    expect(text).toContain("It is a Category 2 hazard: a risk to health that is less serious than Category 1.");
+    expect(text).toContain("We took measurements in 2 rooms.");
+    expect(text).not.toContain("RAW-NOTE");
+    expect(text).not.toMatch(/<[a-z/]/i);
+    expect(text).not.toMatch(/\bband\b/i);
   });
 
   it("never describes the household, only the building", () => {

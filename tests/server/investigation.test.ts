@@ -140,6 +140,7 @@ describe("the landlord's deadline policy", () => {
       safetyWorkWorkingDays: 5,
       supplementaryWorkWeeks: 12,
       monitoringDays: 21,
+      emergencyPhone: null,
       source: "default",
     });
     const c = (
@@ -162,6 +163,7 @@ describe("the landlord's deadline policy", () => {
     expect((await admin.agent.put("/api/policy").set("X-CSRF-Token", admin.csrf).send(own).expect(200)).body).toEqual({
       ...own,
       monitoringDays: 21,
+      emergencyPhone: null,
       source: "landlord",
     });
     // 5 working days after Fri 19 Dec 2025, skipping 25 and 26 Dec (the holiday package's data): 22, 23, 24, 29, 30 Dec.

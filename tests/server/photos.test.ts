@@ -110,14 +110,19 @@ describe("uploading photos", () => {
     expect(await t.ctx.dataSource.getRepository(Photo).countBy({ caseId, sha256: first.body.photos[0].sha256 })).toBe(1);
   });
 
-  it("refuses a text file named .jpg with 415, storing nothing", async () => {
+  it("refuses a text file named .jpg with 415, storing nothing, and takes the good photos sent with one", async () => {
     const before = await t.ctx.dataSource.getRepository(Photo).countBy({ caseId });
-    const res = await upload(tenant, caseId, [
+    const alone = await upload(tenant, caseId, [[Buffer.from("just some text, not an image"), "evil.jpg"]]).expect(415);
+    expect(alone.body.error.message).toMatch(/JPEG, PNG, WebP or AVIF/);
+    expect(await t.ctx.dataSource.getRepository(Photo).countBy({ caseId })).toBe(before);
+    // Each file on its own: the good one is kept, the bad one refused with its reason.
+    const mixed = await upload(tenant, caseId, [
       [await jpegWithGps(200, 200, 7), "good.jpg"],
       [Buffer.from("just some text, not an image"), "evil.jpg"],
-    ]).expect(415);
-    expect(res.body.error.message).toMatch(/JPEG, PNG, WebP or AVIF/);
-    expect(await t.ctx.dataSource.getRepository(Photo).countBy({ caseId })).toBe(before);
+    ]).expect(201);
+    expect(mixed.body.photos).toHaveLength(1);
+    expect(mixed.body.refused).toEqual([{ name: "evil.jpg", reason: expect.stringMatching(/JPEG, PNG, WebP or AVIF/) }]);
+    expect(await t.ctx.dataSource.getRepository(Photo).countBy({ caseId })).toBe(before + 1);
   });
 
   it("gives HEIC its own message telling how to send JPEG", async () => {

@@ -22,6 +22,7 @@ import { asCaseEvent, type CaseEventOf, type CaseEventType, type NewCaseEvent } 
 import { Case } from "./case.entity.js";
 import type { CasePatch } from "./cases.schemas.js";
 import type { Clock } from "../../lib/clock.js";
+import type { EmergencyPhoneSource } from "../../lib/emergency-phone.js";
 
 /** The case record other modules receive from this service (they never query the entity themselves). */
 export type { Case } from "./case.entity.js";
@@ -88,6 +89,12 @@ export class CaseService {
     private readonly organisations: OrganisationService,
     private readonly clock: Clock,
   ) {}
+
+  /** Where the landlord's emergency line comes from (PolicyService, wired in createServices: policy depends on cases). */
+  private emergencyPhones: EmergencyPhoneSource | null = null;
+  useEmergencyPhones(source: EmergencyPhoneSource): void {
+    this.emergencyPhones = source;
+  }
 
   /**
    * Writes a CaseEvent in the caller's transaction. Every change to a case goes through here, so
@@ -437,6 +444,7 @@ export class CaseService {
               address: addressOf(property),
               link: `${this.config.appUrl}/cases/${saved.id}`,
               organisationName,
+              emergencyPhone: (await this.emergencyPhones?.emergencyPhoneOf(property.organisationId, m)) ?? null,
             },
           }),
         );

@@ -9,6 +9,7 @@ import {
   type SurfaceState,
   SURFACE_STATES,
 } from "../../../src/lib/domain/index.js";
+import { surfaceHumidity } from "../../../src/lib/domain/wording.js";
 import type { Actor } from "../auth/actor.js";
 import type { Case, CaseService } from "../cases/case.service.js";
 import type { ReadingService } from "../readings/reading.service.js";
@@ -116,7 +117,7 @@ export class EvaluationService {
         .filter((s) => RISKY.has(s.result.surface.state))
         .map(
           (s) =>
-            `${r.roomName}, ${s.label.toLowerCase()}: ${s.result.surface.state === "condensing" ? "water condensing" : "at mould-growth risk"} (surface humidity ${Math.round(s.result.surface.relativeHumidityPct)} %).`,
+            `${r.roomName}, ${s.label.toLowerCase()}: ${s.result.surface.state === "condensing" ? "water condensing" : "at mould-growth risk"} (surface humidity ${surfaceHumidity(s.result.surface.relativeHumidityPct)}).`,
         ),
     );
     if (reasons.length) await this.cases.alertOfficersNow(c, reasons);

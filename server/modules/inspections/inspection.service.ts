@@ -9,6 +9,7 @@ import { Inspection } from "./inspection.entity.js";
 import type { InspectionInput } from "./inspections.schemas.js";
 import { WrittenSummary } from "./written-summary.entity.js";
 import type { Clock } from "../../lib/clock.js";
+import type { EmergencyPhoneSource } from "../../lib/emergency-phone.js";
 
 /** The investigation of a case: inspections and the written summary to the tenant. */
 export class InspectionService {
@@ -19,6 +20,8 @@ export class InspectionService {
     private readonly mail: MailService,
     private readonly users: UserService,
     private readonly clock: Clock,
+    /** The landlord's emergency line for the written summary's e-mail (PolicyService). */
+    private readonly emergencyPhones?: EmergencyPhoneSource,
   ) {}
 
   /** Records an inspection; the case follows it forward to `investigated` (a new case via triaged), each step on its timeline. */
@@ -101,7 +104,13 @@ export class InspectionService {
         template: "writtenSummary",
         organisationId: c.organisationId,
         related: { type: "case", id: c.id },
-        data: { name: tenant.name, reference: c.reference!, body, link: `${this.config.appUrl}/cases/${c.id}` },
+        data: {
+          name: tenant.name,
+          reference: c.reference!,
+          body,
+          link: `${this.config.appUrl}/cases/${c.id}`,
+          emergencyPhone: (await this.emergencyPhones?.emergencyPhoneOf(c.organisationId, m)) ?? null,
+        },
       });
       const repo = m.getRepository(WrittenSummary);
       const saved = await repo.save(

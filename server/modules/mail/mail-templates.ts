@@ -11,6 +11,21 @@ export interface RenderedMail {
   attachments?: MailAttachment[];
 }
 
+/** The sentence giving the landlord's emergency line, with its number when the landlord has set one in its policy. */
+const emergencyLine = (organisationName: string | undefined, phone: string | null | undefined): string => {
+  const whose = organisationName ? `the ${organisationName}` : "your landlord's";
+  return phone
+    ? `call ${whose} emergency line straight away on ${phone}.`
+    : `call ${whose} emergency line straight away (the number is on your tenancy agreement).`;
+};
+
+/**
+ * A letter's text without a greeting of its own: the e-mail greets the tenant once, by name, so a
+ * "Hello…," or "Dear…," first line in the body is left out.
+ */
+const withoutGreeting = (body: string): string =>
+  body.replace(/^\s*(?:hello|hi|dear)\b[^\n]{0,80},[ \t]*(?:\r?\n)+/i, "").trimStart();
+
 const calendarFile = (ics: string): MailAttachment[] => [
   { filename: "appointment.ics", content: ics, contentType: "text/calendar; charset=utf-8; method=REQUEST" },
 ];
@@ -80,6 +95,8 @@ export const mailTemplates = {
     address: string;
     link: string;
     organisationName: string;
+    /** The landlord's emergency line from its policy; null when not set. */
+    emergencyPhone?: string | null;
   }): RenderedMail {
     return {
       subject: `We have your report ${d.reference}`,
@@ -91,7 +108,7 @@ export const mailTemplates = {
         `What happens next: ${d.organisationName} will look into every report, whatever any readings show. An officer will review it and contact you about an inspection. You can follow the case, add photos or readings, and tell us if it gets worse at:`,
         d.link,
         "",
-        "If water is coming through a ceiling near lights or sockets, or you smell gas, call your landlord's emergency line straight away.",
+        `If water is coming through a ceiling near lights or sockets, or you smell gas, ${emergencyLine(d.organisationName, d.emergencyPhone)}`,
       ].join("\n"),
     };
   },
@@ -149,10 +166,27 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
-  writtenSummary(d: { name: string; reference: string; body: string; link: string }): RenderedMail {
+  writtenSummary(d: {
+    name: string;
+    reference: string;
+    body: string;
+    link: string;
+    organisationName?: string;
+    /** The landlord's emergency line from its policy; null when not set. */
+    emergencyPhone?: string | null;
+  }): RenderedMail {
     return {
       subject: `What we found and what happens next: ${d.reference}`,
-      text: [`Hello ${d.name},`, "", d.body, "", "The summary is also on your case page:", d.link].join("\n"),
+      text: [
+        `Hello ${d.name},`,
+        "",
+        withoutGreeting(d.body),
+        "",
+        `In an emergency, such as water coming through a ceiling near lights or sockets, ${emergencyLine(d.organisationName, d.emergencyPhone)}`,
+        "",
+        "The summary is also on your case page:",
+        d.link,
+      ].join("\n"),
     };
   },
   deadlineDigest(d: {

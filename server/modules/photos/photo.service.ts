@@ -2,7 +2,7 @@ import { rm } from "node:fs/promises";
 import path from "node:path";
 import type { DataSource } from "typeorm";
 import type { Config } from "../../config/env.js";
-import { NotFoundError, ValidationError } from "../../lib/errors.js";
+import { AppError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import type { Actor } from "../auth/actor.js";
 import type { CaseService } from "../cases/case.service.js";
 import { Photo } from "./photo.entity.js";
@@ -14,7 +14,27 @@ export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
 export interface UploadedFile {
   /** multer's temporary file; removed here whatever happens. */
   path: string;
+  /** The name the browser sent: only ever echoed back in a refusal, never used as a path. */
+  originalname?: string;
 }
+
+/** A file of the batch that was not stored, and why (in words for the person who chose it). */
+export interface RefusedFile {
+  name: string;
+  reason: string;
+}
+
+export interface PhotoBatchResult {
+  /** Stored now, or already on the case (the same photo sent again). */
+  photos: Photo[];
+  refused: RefusedFile[];
+}
+
+/** The browser's file name as shown back to its sender: the last path part, at most 120 characters. */
+const shownName = (file: UploadedFile, index: number): string => {
+  const base = (file.originalname ?? "").split(/[\\/]/).pop()?.trim() ?? "";
+  return base ? base.slice(0, 120) : `File ${index + 1}`;
+};
 
 export class PhotoService {
   constructor(
@@ -24,11 +44,19 @@ export class PhotoService {
   ) {}
 
   /**
-   * Adds photos to a case: all of them or, if any is refused, none. A photo already on the case
-   * (same stored bytes) is not stored twice; its existing record is returned.
+   * Adds photos to a case, each on its own: a file that cannot be read is refused with its reason
+   * and the others are stored. When none can be stored, the first refusal is thrown (415 or 422)
+   * with every file's reason in `details.refused`. A photo already on the case (same stored bytes)
+   * is not stored twice; its existing record is returned.
    */
-  async addToCase(actor: Actor, caseId: number, files: UploadedFile[], options: { workOrderId?: number } = {}): Promise<Photo[]> {
+  async addToCase(
+    actor: Actor,
+    caseId: number,
+    files: UploadedFile[],
+    options: { workOrderId?: number } = {},
+  ): Promise<PhotoBatchResult> {
     const written: ProcessedPhoto[] = [];
+    const refused: RefusedFile[] = [];
     try {
       if (files.length === 0)
         throw new ValidationError("photos: choose at least one photo.", [
@@ -37,7 +65,23 @@ export class PhotoService {
       const c = await this.cases.getForActor(actor, caseId);
       // Folder names are our ids; file names are random. Nothing the browser sent becomes a path.
       const dir = path.join(this.config.uploadsDir, String(c.organisationId), String(c.id));
-      for (const file of files) written.push(await processPhoto(file.path, dir));
+      let firstRefusal: AppError | null = null;
+      for (const [index, file] of files.entries()) {
+        try {
+          written.push(await processPhoto(file.path, dir));
+        } catch (error) {
+          if (!(error instanceof AppError) || error.status >= 500) throw error;
+          firstRefusal ??= error;
+          refused.push({ name: shownName(file, index), reason: error.message });
+        }
+      }
+      if (written.length === 0 && firstRefusal) {
+        const message =
+          refused.length === 1
+            ? firstRefusal.message
+            : `None of the ${refused.length} files could be added. ${refused.map((r) => `${r.name}: ${r.reason}`).join(" ")}`;
+        throw new AppError(firstRefusal.status, firstRefusal.code, message, { refused });
+      }
       const result = await this.dataSource.transaction(async (m) => {
         const repo = m.getRepository(Photo);
         const out: Photo[] = [];
@@ -75,7 +119,7 @@ export class PhotoService {
           });
         return out;
       });
-      return result;
+      return { photos: result, refused };
     } catch (error) {
       await Promise.all(written.map(removeProcessed));
       throw error;

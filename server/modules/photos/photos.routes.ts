@@ -1,6 +1,6 @@
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
-import { photoListResponse } from "../../../src/lib/contracts/photos.js";
+import { photoListResponse, photoUploadResponse } from "../../../src/lib/contracts/photos.js";
 import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth } from "../../middleware/auth.js";
@@ -37,7 +37,7 @@ export function createCasePhotosRouter({ cases, photos }: { cases: CaseService; 
       const { id } = parse(idParamsSchema, req.params, "params");
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       const added = await photos.addToCase(actorOf(req), id, files);
-      res.status(201).json(shaped(photoListResponse, { photos: added.map(toPhotoDto) }));
+      res.status(201).json(shaped(photoUploadResponse, { photos: added.photos.map(toPhotoDto), refused: added.refused }));
     },
   );
 

@@ -25,6 +25,10 @@ export class DeadlinePolicyRecord {
   @Column({ name: "monitoring_days", type: "smallint", unsigned: true, default: 21 })
   monitoringDays: number;
 
+  /** The landlord's emergency telephone line, as the admin wrote it (a UK number); null when not set. */
+  @Column({ name: "emergency_phone", type: "varchar", length: 32, nullable: true })
+  emergencyPhone: string | null;
+
   @Column({ name: "updated_by_id", type: "int", unsigned: true })
   updatedById: number;
 

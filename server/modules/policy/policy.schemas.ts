@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { wholeNumberOf } from "../../../src/lib/schemas/quantity.js";
+import { emergencyPhoneSchema } from "../../../src/lib/schemas/policy.js";
 
 const hours = { one: "hour", many: "hours" };
 const workingDays = { one: "working day", many: "working days" };
@@ -16,5 +17,7 @@ export const deadlinePolicySchema = z
     supplementaryWorkWeeks: wholeNumberOf("supplementaryWorkWeeks", 1, 52, weeks),
     /** Optional so older clients keep working; 21 days when not sent. */
     monitoringDays: wholeNumberOf("monitoringDays", 7, 90, days).default(21),
+    /** The landlord's emergency line, told to tenants in the acknowledgement and the written summary; null for none. */
+    emergencyPhone: emergencyPhoneSchema.default(null),
   })
   .strict();

@@ -1,6 +1,8 @@
 // Readings of a case: typed in by hand, listed, and handed to the risk engine as a series.
 import type { DataSource, EntityManager } from "typeorm";
 import type { SeriesReading } from "../../../src/lib/domain/series.js";
+import { FUTURE_READING_MESSAGE, isFutureReading } from "../../../src/lib/schemas/readings.js";
+import { systemClock, type Clock } from "../../lib/clock.js";
 import { ValidationError } from "../../lib/errors.js";
 import type { NewCaseEvent } from "../cases/case-events.js";
 import { AIR_TEMPERATURE_C, OUTDOOR_TEMPERATURE_C, RELATIVE_HUMIDITY_PCT, SURFACE_TEMPERATURE_C } from "./csv/limits.js";
@@ -51,7 +53,7 @@ interface ReadingRow {
 
 const num = (v: string | null): number | null => (v === null ? null : Number(v));
 
-function checkManual(readings: readonly ManualReading[]): void {
+function checkManual(readings: readonly ManualReading[], nowMs: number): void {
   const details: { field: string; message: string }[] = [];
   const range = (i: number, field: string, v: number | undefined, r: { min: number; max: number }, required: boolean) => {
     if (v === undefined || v === null) {
@@ -65,6 +67,8 @@ function checkManual(readings: readonly ManualReading[]): void {
       details.push({ field: `${i}.roomId`, message: "roomId must be a room of this home." });
     if (!(r.takenAt instanceof Date) || Number.isNaN(r.takenAt.getTime()))
       details.push({ field: `${i}.takenAt`, message: "takenAt must be a date and time." });
+    else if (isFutureReading(r.takenAt.getTime(), nowMs))
+      details.push({ field: `${i}.takenAt`, message: `takenAt: ${FUTURE_READING_MESSAGE}` });
     range(i, "airTemperatureC", r.airTemperatureC, AIR_TEMPERATURE_C, true);
     range(i, "surfaceTemperatureC", r.surfaceTemperatureC, SURFACE_TEMPERATURE_C, false);
     range(i, "outdoorTemperatureC", r.outdoorTemperatureC, OUTDOOR_TEMPERATURE_C, false);
@@ -85,6 +89,7 @@ export class ReadingService {
   constructor(
     private readonly dataSource: DataSource,
     private readonly events: CaseEventRecorder,
+    private readonly clock: Clock = systemClock,
   ) {}
 
   /**
@@ -97,7 +102,7 @@ export class ReadingService {
     readings: readonly ManualReading[],
     options: { actorId: number },
   ): Promise<{ imported: number; duplicates: number }> {
-    checkManual(readings);
+    checkManual(readings, this.clock.now().getTime());
     if (readings.length === 0) return { imported: 0, duplicates: 0 };
     return this.dataSource.transaction(async (m) => {
       let imported = 0;

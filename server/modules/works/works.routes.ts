@@ -1,5 +1,5 @@
 import { Router } from "express";
-import { photoListResponse } from "../../../src/lib/contracts/photos.js";
+import { photoUploadResponse } from "../../../src/lib/contracts/photos.js";
 import {
   caseWorkOrdersResponse,
   contractorListResponse,
@@ -120,7 +120,7 @@ export function createWorkOrdersRouter({ works, photos }: Deps): Router {
       const wo = res.locals.workOrder as WorkOrder;
       const files = (req.files as Express.Multer.File[] | undefined) ?? [];
       const added = await photos.addToCase(actorOf(req), wo.caseId, files, { workOrderId: wo.id });
-      res.status(201).json(shaped(photoListResponse, { photos: added.map(toPhotoDto) }));
+      res.status(201).json(shaped(photoUploadResponse, { photos: added.photos.map(toPhotoDto), refused: added.refused }));
     },
   );
 

@@ -2,7 +2,7 @@
 // calculator, the tenant's report and the officer's case view each pass it a result.
 import { useId, type ReactNode } from "react";
 import { CRITICAL_TEMPERATURE_FACTOR, type PointResult, type SurfaceResult, type SurfaceState } from "@/lib/domain";
-import { celsius, factor, fixed, percent } from "@/lib/domain/wording";
+import { celsius, factor, fixed, surfaceHumidity as surfaceHumidityWords } from "@/lib/domain/wording";
 import { cn } from "@/lib/cn";
 import { STATE_LABELS, SURFACE_SOURCE_LABELS } from "./state-labels";
 
@@ -57,9 +57,14 @@ export function RiskPanel({ result, title, headingLevel = 2, compact = false, cl
         <div className="flex flex-col gap-0.5">
           <p className={cn("font-bold", compact ? "text-base" : "text-lg")}>
             <span className="sr-only">Surface state: </span>
-            <span>{state.label}</span>
+            <span>{surface.source === "estimated" ? `${state.label} (estimate)` : state.label}</span>
           </p>
           <p className={compact ? "text-sm" : undefined}>{state.summary}</p>
+          {surface.source === "estimated" ? (
+            <p className={compact ? "text-sm" : undefined}>
+              An estimate from the home&apos;s construction and the outdoor temperature: no surface temperature was measured.
+            </p>
+          ) : null}
         </div>
       </div>
       {compact ? null : <p className="text-ink-soft">{state.explanation}</p>}
@@ -78,7 +83,7 @@ export function RiskPanel({ result, title, headingLevel = 2, compact = false, cl
           {compact ? null : dewPointGap(surface.temperatureC, result.dewPointC)}
         </Figure>
         <Figure term="Relative humidity at the surface" value={surfaceHumidity(surface)}>
-          {surface.relativeHumidityPct >= 100 ? "Saturated: the air at the surface can hold no more water." : null}
+          {surface.relativeHumidityPct >= 100 ? "The air at the surface can hold no more water." : null}
         </Figure>
         {surface.temperatureFactor !== undefined ? (
           <Figure term="Temperature factor" value={factor(surface.temperatureFactor)}>
@@ -129,9 +134,9 @@ function Reasons({ reasons }: { reasons: readonly string[] }) {
   );
 }
 
-/** The engine keeps the raw ratio (above 100 below the dew point); air cannot be wetter than saturated. */
+/** The engine keeps the raw ratio (above 100 below the dew point); the shared helper says that as condensing. */
 function surfaceHumidity(surface: SurfaceResult): string {
-  return surface.relativeHumidityPct >= 100 ? "100 %" : percent(surface.relativeHumidityPct);
+  return surfaceHumidityWords(surface.relativeHumidityPct);
 }
 
 function dewPointGap(surfaceC: number, dewPointC: number): string {

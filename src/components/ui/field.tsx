@@ -11,7 +11,9 @@ import { cn } from "@/lib/cn";
 /** Classes shared by every text-like control, so inputs, selects and text areas line up. */
 export const controlClasses =
   "block w-full rounded-md border border-line-strong bg-surface px-3 text-base text-ink placeholder:text-ink-soft " +
-  "aria-invalid:border-rust-700 aria-invalid:border-2 disabled:bg-paper disabled:text-ink-soft";
+  // Dewline's error treatment: a dashed rust edge and a faint rust wash inside the control, with the
+  // message as a tag above it (FieldError): never colour alone, the tag has words and an icon.
+  "aria-invalid:border-dashed aria-invalid:border-rust-700 aria-invalid:bg-rust-50 disabled:bg-paper disabled:text-ink-soft";
 
 interface FieldShellProps {
   id: string;
@@ -177,13 +179,19 @@ export function Textarea({
   );
 }
 
-/** A field's error message, with an icon so it does not rely on colour alone. */
+/**
+ * A field's error message as a tag: a rounded rust-tinted label with a droplet-and-mark icon, so it
+ * does not rely on colour alone (rust-700 on rust-50 6.0:1).
+ */
 export function FieldError({ id, children }: { id: string; children: ReactNode }) {
   return (
-    <p id={id} className="flex items-start gap-1 text-sm font-semibold text-rust-700">
-      <svg viewBox="0 0 16 16" className="mt-0.5 size-4 shrink-0" aria-hidden="true">
-        <circle cx="8" cy="8" r="7" fill="currentColor" />
-        <path d="M8 4v5M8 11.2v.1" stroke="#fff" strokeWidth="1.8" strokeLinecap="round" />
+    <p
+      id={id}
+      className="flex items-start gap-1.5 self-start rounded-md bg-rust-50 px-2.5 py-1 text-sm font-semibold text-rust-700 ring-1 ring-rust-600/40"
+    >
+      <svg viewBox="0 0 16 16" className="mt-0.5 size-4 shrink-0" aria-hidden="true" focusable="false">
+        <path d="M8 1.2C5.4 5 3.4 7.4 3.4 10a4.6 4.6 0 0 0 9.2 0C12.6 7.4 10.6 5 8 1.2z" fill="currentColor" />
+        <path d="M8 6.2v3.6M8 11.9v.1" stroke="#fff" strokeWidth="1.7" strokeLinecap="round" />
       </svg>
       <span>{children}</span>
     </p>

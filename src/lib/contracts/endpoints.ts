@@ -17,7 +17,7 @@ import { conversationResponse, messageSentResponse, readMarkResponse, unreadMess
 import { evaluationResponse } from "./evaluation.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
-import { photoListResponse } from "./photos.js";
+import { photoListResponse, photoUploadResponse } from "./photos.js";
 import { policyResponse } from "./policy.js";
 import {
   estatesResponse,
@@ -155,7 +155,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
     worseResponse,
   ),
   e("GET", "/api/cases/:id/photos", "signed-in", "A case's photos", photoListResponse),
-  e("POST", "/api/cases/:id/photos", "signed-in", "Add photos to a case", photoListResponse, 201, { multipart: true }),
+  e("POST", "/api/cases/:id/photos", "signed-in", "Add photos to a case", photoUploadResponse, 201, { multipart: true }),
   e("GET", "/api/cases/:id/readings", "signed-in", "A case's readings, newest first", readingsResponse),
   e("POST", "/api/cases/:id/readings", "signed-in", "Add readings by hand", readingsAddedResponse, 201),
   e(
@@ -207,7 +207,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
 
   e("GET", "/api/work-orders", STAFF, "Work orders, filtered and sorted", workOrderPageResponse),
   e("PATCH", "/api/work-orders/:id", LEADS, "Schedule, complete or cancel a work order", workOrderResponse),
-  e("POST", "/api/work-orders/:id/photos", LEADS, "Add photos taken after the works", photoListResponse, 201, {
+  e("POST", "/api/work-orders/:id/photos", LEADS, "Add photos taken after the works", photoUploadResponse, 201, {
     multipart: true,
   }),
   e("POST", "/api/work-orders/:id/booking-response", ["tenant"], "Confirm a visit or ask for another time", workOrderResponse),

@@ -8,6 +8,8 @@ export const policyResponse = z.object({
   safetyWorkWorkingDays: z.number().int(),
   supplementaryWorkWeeks: z.number().int(),
   monitoringDays: z.number().int(),
+  /** The landlord's emergency telephone line, told to tenants; null when not set (the server always sends it). */
+  emergencyPhone: z.string().nullable().default(null),
   /** "landlord": the organisation's own timeframes; "default": the England social-housing default. */
   source: z.enum(["default", "landlord"]),
 });

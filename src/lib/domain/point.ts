@@ -93,8 +93,18 @@ export function evaluatePoint(input: PointInput): PointResult {
   }
 
   const surfaceRh = source === "air" ? rh : (100 * pv) / psychrolib.GetSatVapPres(surfaceT);
-  const state = surfaceState(surfaceRh);
-  reasons.push(stateReason(state, noun, surfaceT, surfaceRh, dewPoint));
+  let state = surfaceState(surfaceRh);
+  if (source === "air" && state === "condensing") {
+    // Without a surface temperature (measured or estimated from the construction) the surface is only
+    // assumed to be at the air temperature: saturated air says mould risk, not that water condenses there.
+    state = "mould-risk";
+    reasons.push(
+      `The air is saturated (${percent(rh)} relative humidity). Without a surface temperature we cannot say whether water ` +
+        `condenses on the surface, but any surface colder than the air would be wet.`,
+    );
+  } else {
+    reasons.push(stateReason(state, noun, surfaceT, surfaceRh, dewPoint));
+  }
 
   if (fRsi !== undefined && fRsi < CRITICAL_TEMPERATURE_FACTOR) {
     reasons.push(

@@ -12,3 +12,13 @@ export const celsius = (value: number): string => `${fixed(value, 1)} °C`;
 export const percent = (value: number): string => `${fixed(value, 0)} %`;
 export const factor = (value: number): string => fixed(value, 2);
 export const hours = (value: number): string => fixed(value, value < 10 ? 1 : 0);
+
+/** How a surface above saturation is said: the ratio means the surface is colder than the air's dew point. */
+export const CONDENSING_WORDS = "condensing (the surface is below the dew point)";
+
+/**
+ * Relative humidity at a surface as people read it, on every screen and in every e-mail. The
+ * engine keeps the raw ratio (above 100 % when the surface is below the dew point); air cannot
+ * hold more than saturated, so anything above 100 % is said as condensing, never as a percentage.
+ */
+export const surfaceHumidity = (value: number): string => (value > 100 ? CONDENSING_WORDS : percent(value));

@@ -9,8 +9,8 @@ export const RELATIVE_HUMIDITY_PCT = { above: 0, max: 100 } as const;
 
 /** Earliest reading time we accept (ours: loggers of this kind did not exist much earlier). */
 export const EARLIEST_READING_MS = Date.UTC(2000, 0, 1);
-/** A reading may be at most this far ahead of the server clock (loggers' clocks drift; ours). */
-export const FUTURE_TOLERANCE_MS = 24 * 3_600_000;
+/** A reading may be at most this far ahead of the server clock (the same allowance as hand-typed readings). */
+export { READING_CLOCK_SKEW_MS as FUTURE_TOLERANCE_MS } from "../../../../src/lib/schemas/readings.js";
 
 /** Formats a number for a message: at most two decimals, a real minus sign. */
 export function formatNumber(value: number): string {

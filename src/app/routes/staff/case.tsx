@@ -171,6 +171,7 @@ function Workspace({ id }: { id: number }) {
         <Panel title="The tenant's report" id="case-report">
           <p className="mb-2 text-sm text-ink-soft">The questions as the tenant saw them, with their answers.</p>
           <ReportSummary
+            audience="staff"
             sentAt={c.createdAt}
             answers={{
               description: c.description,

@@ -10,7 +10,7 @@ import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Input, Select } from "@/components/ui/field";
 import { BUILDING_ELEMENTS, evaluatePoint, getBuildingElement, type PointResult } from "@/lib/domain";
-import { celsius, factor, percent } from "@/lib/domain/wording";
+import { celsius, factor, surfaceHumidity } from "@/lib/domain/wording";
 import {
   calculatorFormSchema,
   EMPTY_FORM,
@@ -50,7 +50,7 @@ function announcement(outcome: Outcome): string {
   if (outcome.status === "incomplete") return "";
   const { result } = outcome;
   const state = STATE_LABELS[result.surface.state];
-  const humidity = result.surface.relativeHumidityPct >= 100 ? "100 %" : percent(result.surface.relativeHumidityPct);
+  const humidity = surfaceHumidity(result.surface.relativeHumidityPct);
   return `Result: ${state.label}. ${state.summary} Dew point ${celsius(result.dewPointC)}; relative humidity at the surface ${humidity}.`;
 }
 

@@ -1,15 +1,21 @@
-// The written summary's first draft, built from the case: what the latest inspection found and its
-// cause, the Category of the latest HHSRS assessment, and what will be done by when (the deadline
-// clocks). The officer edits it before sending; the parts only they can write are left as
-// "[Fill in: …]" and sending waits until none is left. It judges the building, never the people
-// living there.
-import { formatLongDateTime } from "@/lib/dates";
+// The written summary's first draft, built from the case's structured facts: when the latest
+// inspection was, the cause and the mould it recorded, the rooms measured, the Category of the
+// latest HHSRS assessment in plain words, and what will be done by when (the deadline clocks).
+// The officer's own inspection notes are never copied in: they are written for staff and may hold
+// markup or shorthand; what the tenant should read about them is left as "[Fill in: …]" for the
+// officer, and sending waits until none is left. No greeting: the e-mail greets the tenant by name.
+// Times are London time in plain words ("at 2 pm"), never "GMT" or "BST". It judges the building,
+// never the people living there.
+import { formatForTenant, formatLongDay } from "@/lib/dates";
 
 export interface SummaryInspection {
   inspectedAt: string;
   cause: string;
   mouldExtent: string;
-  findings: string;
+  /** The officer's own notes: never copied into the tenant's letter (kept here so callers can pass a whole inspection). */
+  findings?: string;
+  /** Rooms measured at the inspection (by id): only how many is said. */
+  roomReadings?: readonly { roomId: number }[];
 }
 
 export interface SummaryAssessment {
@@ -77,13 +83,15 @@ export function latestAssessment<T extends SummaryAssessment>(assessments: reado
   return latest;
 }
 
+/** The HHSRS result in plain words: the Category (the standard's own term), never the band letter. */
 function assessmentParagraph(a: SummaryAssessment | null): string {
   if (!a)
     return "We will tell you the result of our Housing Health and Safety Rating System (HHSRS) assessment when it is complete.";
-  const intro = "We assessed the damp and mould using the Housing Health and Safety Rating System (HHSRS).";
+  const intro =
+    "We assessed the damp and mould using the Housing Health and Safety Rating System (HHSRS), the way landlords must judge risks to health in a home.";
   return a.category === 1
-    ? `${intro} It is a Category 1 hazard (band ${a.band}): the most serious kind, which we must put right.`
-    : `${intro} It is a Category 2 hazard (band ${a.band}).`;
+    ? `${intro} It is a Category 1 hazard: the most serious kind, which we must put right.`
+    : `${intro} It is a Category 2 hazard: a risk to health that is less serious than Category 1. We will still deal with it as set out below.`;
 }
 
 function workLines(deadlines: readonly SummaryDeadline[]): string[] {
@@ -91,10 +99,10 @@ function workLines(deadlines: readonly SummaryDeadline[]): string[] {
   for (const d of deadlines) {
     const work = STAGE_WORK[d.stage];
     if (!work || d.doneAt || !d.dueAt) continue;
-    if (d.state === "pending") lines.push(`- We will ${work} by ${formatLongDateTime(d.dueAt)}.`);
+    if (d.state === "pending") lines.push(`- We will ${work} by ${formatForTenant(d.dueAt)}.`);
     else if (d.state === "missed")
       lines.push(
-        `- We will ${work} as soon as possible: we should have done so by ${formatLongDateTime(d.dueAt)}, and we are sorry for the delay.`,
+        `- We will ${work} as soon as possible: we should have done so by ${formatForTenant(d.dueAt)}, and we are sorry for the delay.`,
       );
   }
   return lines;
@@ -106,18 +114,19 @@ export function buildSummaryTemplate(input: SummaryTemplateInput): string {
   const reference = input.reference ? ` (reference ${input.reference})` : "";
   const at = input.address ? ` at ${input.address}` : "";
 
+  const rooms = new Set((inspection?.roomReadings ?? []).map((r) => r.roomId)).size;
   const found = inspection
     ? [
-        `We inspected your home on ${formatLongDateTime(inspection.inspectedAt)}.`,
-        inspection.findings.trim(),
+        `We inspected your home on ${formatLongDay(inspection.inspectedAt)}.`,
         MOULD_SENTENCES[inspection.mouldExtent] ?? "",
+        rooms > 0 ? `We took measurements in ${rooms === 1 ? "one room" : `${rooms} rooms`}.` : "",
+        fillIn("what we found, in plain words for the tenant"),
       ].filter(Boolean)
     : [fillIn("what we found when we inspected your home")];
   const cause = inspection ? (CAUSE_SENTENCES[inspection.cause] ?? fillIn("the cause we found")) : fillIn("the cause we found");
   const lines = workLines(input.deadlines);
 
   return [
-    "Hello,",
     `This is the written summary of our investigation into the damp and mould you reported${reference}${at}.`,
     ["What we found", ...found].join("\n"),
     ["What is causing it", cause].join("\n"),

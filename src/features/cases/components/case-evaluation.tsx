@@ -41,7 +41,21 @@ function RoomResult({ room }: { room: RoomEvaluation }) {
   const latest = room.latest;
   const series = room.series;
   const diagnosis = series?.diagnosis;
-  const kind = diagnosis ? (diagnosisLabels[diagnosis.kind] ?? { title: humanise(diagnosis.kind) }) : null;
+  const baseKind = diagnosis ? (diagnosisLabels[diagnosis.kind] ?? { title: humanise(diagnosis.kind) }) : null;
+  // The latest reading is one moment and the diagnosis judges the time between readings (for the
+  // report's main surface): when they disagree, say both plainly rather than contradict the badge above.
+  const latestRisky = room.surfaces.some(
+    (s) => s.result.surface.state === "condensing" || s.result.surface.state === "mould-risk",
+  );
+  const kind =
+    diagnosis?.kind === "no-risk-found" && latestRisky && baseKind
+      ? {
+          title: `Over time, these readings didn't show lasting condensation or mould-growth conditions${
+            room.surfaces[0] ? ` on the ${room.surfaces[0].label.toLowerCase()}` : ""
+          }`,
+          note: "The latest reading, shown above, is one moment and does point to a risk; more readings over time will show whether it lasts.",
+        }
+      : baseKind;
 
   return (
     <section aria-labelledby={`${id}-room`} className="flex flex-col gap-4 rounded-lg border border-line bg-paper p-4">

@@ -2,7 +2,7 @@ import { useMemo, useState } from "react";
 import { DataTable, dataTableColumnHelper, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
 import { formatDateTime } from "@/lib/dates";
-import { fixed } from "@/lib/domain/wording";
+import { fixed, surfaceHumidity } from "@/lib/domain/wording";
 import type { CaseReading, CaseRoom } from "../api/types";
 import { sourceLabels } from "../labels";
 import { derive, type Derived } from "../lib/derived";
@@ -12,7 +12,8 @@ type Row = CaseReading & Derived & { roomName: string };
 const column = dataTableColumnHelper<Row>();
 const dash = "—";
 const celsius = (v: number | null) => (v === null ? dash : `${fixed(v, 1)} °C`);
-const pct = (v: number | null) => (v === null ? dash : v >= 100 ? "100 %" : `${fixed(v, 0)} %`);
+const pct = (v: number | null) => (v === null ? dash : `${fixed(v, 0)} %`);
+const surfacePct = (v: number | null) => (v === null ? dash : surfaceHumidity(v));
 
 const roomColumn = column.accessor("roomName", {
   header: "Room",
@@ -42,7 +43,7 @@ const columns = column.columns([
   }),
   column.accessor("surfaceRhPct", {
     header: "Surface humidity",
-    cell: (info) => <span className="whitespace-nowrap tabular-nums">{pct(info.getValue())}</span>,
+    cell: (info) => <span className="tabular-nums">{surfacePct(info.getValue())}</span>,
   }),
   column.accessor("outdoorTemperatureC", {
     header: "Outdoors",

@@ -4,7 +4,9 @@ import type { PolicyResponse } from "@/lib/contracts";
 import type { DeadlinePolicy } from "@/lib/domain/deadlines";
 
 /** The timeframes plus the monitoring period after works (not a statutory deadline). */
-export type LandlordPolicy = Omit<PolicyResponse, "source">;
+export type LandlordPolicy = Omit<PolicyResponse, "source" | "emergencyPhone">;
+/** What PUT /api/policy takes: the timeframes and the landlord's emergency line (null for none). */
+export type PolicyUpdate = LandlordPolicy & { emergencyPhone: string | null };
 export type { DeadlinePolicy };
 export type PolicyField = keyof LandlordPolicy;
 

@@ -34,7 +34,7 @@ export function PolicyForm() {
     );
   }
   // A new answer from the server (saved, or back to the default) starts the form afresh from it.
-  const key = POLICY_FIELDS.map((f) => policy.data[f.name]).join("-") + policy.data.source;
+  const key = POLICY_FIELDS.map((f) => policy.data[f.name]).join("-") + policy.data.source + (policy.data.emergencyPhone ?? "");
   return <PolicyEditor key={key} policy={policy.data} notice={notice} onNotice={setNotice} />;
 }
 
@@ -78,6 +78,7 @@ function PolicyEditor({
           for (const { field, message } of error.fieldErrors) {
             const f = POLICY_FIELDS.find((p) => p.name === field);
             if (f) setError(f.name, { message: fieldMessage(field, message) });
+            else if (field === "emergencyPhone") setError("emergencyPhone", { message: fieldMessage(`${field}:`, message) });
           }
         }
       },
@@ -140,6 +141,17 @@ function PolicyEditor({
           ))}
         </fieldset>
 
+        <Input
+          label="Emergency telephone number"
+          hint="The number tenants call out of hours when something is dangerous, such as water coming through a ceiling near lights or sockets. It is given in the e-mail that confirms a report and in the written summary. A UK number, for example 0300 123 4567."
+          error={errors.emergencyPhone?.message}
+          type="tel"
+          inputMode="tel"
+          autoComplete="off"
+          controlClassName="max-w-72"
+          {...register("emergencyPhone")}
+        />
+
         <div id={noteId} className="flex flex-col gap-2 rounded-md border border-line bg-paper px-4 py-3 text-sm text-ink">
           <p>
             The deadlines of every open case follow this policy: when you save, or go back to the England default, their due dates
@@ -181,7 +193,10 @@ function PolicyEditor({
         onConfirm={goBack}
         onCancel={() => setConfirming(false)}
       >
-        <p>Your own timeframes will be removed, and these will apply to every case:</p>
+        <p>
+          Your own timeframes{policy.emergencyPhone ? " and your emergency telephone number" : ""} will be removed, and these will
+          apply to every case:
+        </p>
         <ul className="mt-2 list-disc pl-5">
           {POLICY_FIELDS.map((f) => (
             <li key={f.name}>

@@ -1,13 +1,13 @@
 import { useMutation } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import { reportKeys } from "@/lib/query-keys";
-import type { UploadedPhoto } from "./types";
+import type { PhotoUploadResponse } from "@/lib/contracts";
 
-/** Multipart, field `photos`: 1–10 files of up to 15 MB each. */
+/** Multipart, field `photos`: 1–10 files of up to 15 MB each; each is taken or refused on its own (`refused`). */
 export function uploadPhotos(caseId: number, files: readonly File[]) {
   const body = new FormData();
   for (const file of files) body.append("photos", file, file.name);
-  return api.post<{ photos: UploadedPhoto[] }>(`/cases/${caseId}/photos`, body);
+  return api.post<PhotoUploadResponse>(`/cases/${caseId}/photos`, body);
 }
 
 export function useUploadPhotos(caseId: number) {

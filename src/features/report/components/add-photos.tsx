@@ -3,11 +3,15 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { errorMessage } from "@/lib/api-client";
 import { useUploadPhotos } from "../api/upload-photos";
-import { PhotoPicker } from "./photo-picker";
+import { refusedFromError } from "../lib/photo-files";
+import { PhotoPicker, RefusedList } from "./photo-picker";
 
 /** What PhotoUploadForm needs of an upload mutation (TanStack Query's useMutation result fits). */
 export interface PhotoUploadMutation {
-  mutate(files: File[], options: { onSuccess: (result: { photos: unknown[] }) => void }): void;
+  mutate(
+    files: File[],
+    options: { onSuccess: (result: { photos: unknown[]; refused?: readonly { name: string; reason: string }[] }) => void },
+  ): void;
   reset(): void;
   isPending: boolean;
   isError: boolean;
@@ -38,6 +42,8 @@ export function PhotoUploadForm({
 }: PhotoUploadFormProps) {
   const [files, setFiles] = useState<File[]>([]);
   const [added, setAdded] = useState<number | null>(null);
+  const [refused, setRefused] = useState<{ name: string; message: string }[]>([]);
+  const refusedByServer = upload.isError ? refusedFromError(upload.error) : [];
   return (
     <div className="flex flex-col gap-3">
       <PhotoPicker
@@ -45,13 +51,28 @@ export function PhotoUploadForm({
         onChange={(next) => {
           setFiles(next);
           setAdded(null);
+          setRefused([]);
           upload.reset();
         }}
-        serverError={upload.isError ? errorMessage(upload.error) : null}
+        serverError={upload.isError && refusedByServer.length === 0 ? errorMessage(upload.error) : null}
         disabled={upload.isPending}
         hint={hint}
       />
-      {added !== null ? (
+      {refusedByServer.length || refused.length ? (
+        <Alert
+          tone="warning"
+          title={
+            refusedByServer.length
+              ? "None of these files could be added"
+              : refused.length === 1
+                ? "One file could not be added"
+                : `${refused.length} files could not be added`
+          }
+        >
+          <RefusedList files={refusedByServer.length ? refusedByServer : refused} />
+        </Alert>
+      ) : null}
+      {added !== null && added > 0 ? (
         <Alert tone="success" title={addedTitle(added)}>
           {addedText}
         </Alert>
@@ -66,6 +87,7 @@ export function PhotoUploadForm({
               onSuccess: (result) => {
                 setFiles([]);
                 setAdded(result.photos.length);
+                setRefused((result.refused ?? []).map((r) => ({ name: r.name, message: r.reason })));
                 onAdded?.(result.photos.length);
               },
             })

@@ -23,7 +23,12 @@ function GroupShell({ legend, hint, error, large, className, children }: GroupSh
     <fieldset
       aria-describedby={describedBy}
       aria-invalid={error ? true : undefined}
-      className={cn("flex min-w-0 flex-col gap-2", className)}
+      className={cn(
+        "flex min-w-0 flex-col gap-2",
+        // A group with a problem sits on a faint rust wash with a dashed rim (Dewline's own error look).
+        error && "rounded-lg border border-dashed border-rust-600 bg-rust-50/60 p-3",
+        className,
+      )}
     >
       <legend className={cn("mb-1 font-bold text-ink", large ? "text-lg" : "text-base")}>{legend}</legend>
       {hint ? (

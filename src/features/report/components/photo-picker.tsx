@@ -31,6 +31,19 @@ function FilePreview({ file, alt }: { file: File; alt: string }) {
   return <img ref={attach} alt={alt} className="aspect-square w-full rounded-sm bg-paper object-cover" />;
 }
 
+/** Files that could not be added, each by its name with the reason. */
+export function RefusedList({ files }: { files: readonly { name: string; message: string }[] }) {
+  return (
+    <ul className="flex flex-col gap-1">
+      {files.map((p, i) => (
+        <li key={`${p.name}-${i}`}>
+          <span className="font-semibold break-all">{p.name}</span>: {p.message}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
 /** Chooses up to ten photos, checks them in the browser, and shows what will be sent. */
 export function PhotoPicker({ value, onChange, serverError, disabled, hint }: PhotoPickerProps) {
   const id = useId();
@@ -80,13 +93,7 @@ export function PhotoPicker({ value, onChange, serverError, disabled, hint }: Ph
             title={problems.length === 1 ? "One file could not be added" : `${problems.length} files could not be added`}
             live="alert"
           >
-            <ul className="list-disc space-y-1 pl-5">
-              {problems.map((p, i) => (
-                <li key={`${p.name}-${i}`}>
-                  <span className="font-semibold break-all">{p.name}</span>: {p.message}
-                </li>
-              ))}
-            </ul>
+            <RefusedList files={problems} />
           </Alert>
         </div>
       ) : null}

@@ -4,6 +4,7 @@ import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
 import type { RoomOption } from "../api/types";
 import { markLoggerFileDone, sendPhotos, sendReadings, useFollowUp } from "../lib/follow-up";
+import { RefusedList } from "./photo-picker";
 import { CsvImport } from "./csv-import";
 
 interface ReportFollowUpProps {
@@ -50,6 +51,20 @@ export function ReportFollowUp({ caseId, rooms, onChanged }: ReportFollowUpProps
               </Button>
             </div>
           ) : null}
+        </Alert>
+      ) : null}
+
+      {photos && photos.status === "done" && photos.refused?.length ? (
+        <Alert
+          tone="warning"
+          title={
+            photos.added
+              ? `Your report is sent with ${photos.added === 1 ? "1 photo" : `${photos.added} photos`}, but ${photos.refused.length === 1 ? "one file" : `${photos.refused.length} files`} could not be added`
+              : `Your report is sent, but the ${photos.refused.length === 1 ? "photo" : "photos"} could not be added`
+          }
+        >
+          <RefusedList files={photos.refused} />
+          <p className="mt-2">You can add other photos from this page at any time.</p>
         </Alert>
       ) : null}
 

@@ -6,12 +6,20 @@ import { errorMessage } from "@/lib/api-client";
 import { addReadings } from "../api/add-readings";
 import type { HandReading, ReadingsAdded } from "../api/types";
 import { uploadPhotos } from "../api/upload-photos";
+import { refusedFromError } from "./photo-files";
 
 export type PartStatus = "sending" | "done" | "failed";
 
 export interface FollowUp {
   caseId: number;
-  photos?: { files: File[]; status: PartStatus; error?: string; added?: number };
+  photos?: {
+    files: File[];
+    status: PartStatus;
+    error?: string;
+    added?: number;
+    /** Files the server could not take, each with its reason (the others were added). */
+    refused?: { name: string; message: string }[];
+  };
   readings?: { items: HandReading[]; status: PartStatus; error?: string; result?: ReadingsAdded };
   loggerFile?: { file: File; roomId: number | null; status: "waiting" | "done" };
 }
@@ -50,11 +58,26 @@ export async function sendPhotos(caseId: number): Promise<boolean> {
   if (!part || part.files.length === 0) return true;
   patch(caseId, (f) => ({ ...f, photos: { ...part, status: "sending", error: undefined } }));
   try {
-    const { photos } = await uploadPhotos(caseId, part.files);
-    patch(caseId, (f) => ({ ...f, photos: { files: [], status: "done", added: photos.length } }));
+    const { photos, refused } = await uploadPhotos(caseId, part.files);
+    patch(caseId, (f) => ({
+      ...f,
+      photos: {
+        files: [],
+        status: "done",
+        added: photos.length,
+        refused: refused.map((r) => ({ name: r.name, message: r.reason })),
+      },
+    }));
     return true;
   } catch (error) {
-    patch(caseId, (f) => ({ ...f, photos: { ...part, status: "failed", error: errorMessage(error) } }));
+    const refused = refusedFromError(error);
+    patch(caseId, (f) => ({
+      ...f,
+      photos: refused.length
+        ? // None could be read: trying the same files again would not help, so they are dropped and their reasons shown.
+          { files: [], status: "done", added: 0, refused }
+        : { ...part, status: "failed", error: errorMessage(error) },
+    }));
     return false;
   }
 }

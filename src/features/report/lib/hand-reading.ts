@@ -3,6 +3,7 @@
 // 0 < RH ≤ 100 %), with messages for people rather than field names.
 import { londonLocalInput, londonLocalToIso } from "@/lib/dates";
 import type { PointInput } from "@/lib/domain";
+import { FUTURE_READING_MESSAGE, isFutureReading } from "@/lib/schemas/readings";
 import type { HandReading } from "../api/types";
 
 export interface HandReadingFields {
@@ -79,8 +80,8 @@ export function checkHandReading(
   const iso = fields.takenAt ? londonLocalToIso(fields.takenAt) : null;
   const at = iso ? new Date(iso) : new Date(Number.NaN);
   if (Number.isNaN(at.getTime())) errors.takenAt = "Enter the date and time the reading was taken.";
-  // A few minutes' grace for a phone clock that runs ahead.
-  else if (at.getTime() > now + 5 * 60_000) errors.takenAt = "The time is in the future. Please check the date and time.";
+  // A few minutes' grace for a phone clock that runs ahead (the server allows the same).
+  else if (isFutureReading(at.getTime(), now)) errors.takenAt = FUTURE_READING_MESSAGE;
   else if (at.getUTCFullYear() < 2000) errors.takenAt = "Please check the year of the reading.";
 
   if (Object.keys(errors).length > 0) return { errors };

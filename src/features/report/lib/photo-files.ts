@@ -37,6 +37,16 @@ export function megabytes(bytes: number): string {
   return mb >= 10 ? `${Math.round(mb)} MB` : `${mb.toFixed(1)} MB`;
 }
 
+/** The files the server refused, from a 4xx whose `details.refused` lists them (none of the batch was taken). */
+export function refusedFromError(error: unknown): { name: string; message: string }[] {
+  const details = (error as { details?: { refused?: unknown } } | null)?.details;
+  const refused = details && typeof details === "object" ? details.refused : undefined;
+  if (!Array.isArray(refused)) return [];
+  return refused
+    .filter((r): r is { name: string; reason: string } => typeof r?.name === "string" && typeof r?.reason === "string")
+    .map((r) => ({ name: r.name, message: r.reason }));
+}
+
 export interface PhotoSelection {
   accepted: File[];
   problems: { name: string; message: string }[];

@@ -8,7 +8,10 @@ import { caseKeys } from "@/lib/query-keys";
 export function uploadWorkOrderPhotos(workOrderId: number, files: readonly File[]) {
   const body = new FormData();
   for (const file of files) body.append("photos", file, file.name);
-  return api.post<{ photos: WorkPhoto[] }>(`/work-orders/${workOrderId}/photos`, body);
+  return api.post<{ photos: WorkPhoto[]; refused: { name: string; reason: string }[] }>(
+    `/work-orders/${workOrderId}/photos`,
+    body,
+  );
 }
 
 export function useUploadWorkOrderPhotos(caseId: number, workOrderId: number) {

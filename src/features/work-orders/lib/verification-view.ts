@@ -1,9 +1,10 @@
 // Numbers of the before/after comparison as people read them, and the chart's series.
 import { formatDay } from "@/lib/dates";
-import { fixed } from "@/lib/domain/wording";
+import { fixed, surfaceHumidity } from "@/lib/domain/wording";
 import type { BeforeAfter, PeriodSummary } from "../api/case-types";
 
-export const pct = (v: number | null) => (v === null ? "–" : `${fixed(v, 0)} %`);
+/** Surface humidity: above 100 % is said as condensing (src/lib/domain/wording.ts). */
+export const pct = (v: number | null) => (v === null ? "–" : surfaceHumidity(v));
 export const hours = (v: number | null) => (v === null ? "–" : `${fixed(v, 1)} h`);
 export const index = (v: number | null) => (v === null ? "–" : fixed(v, 2));
 

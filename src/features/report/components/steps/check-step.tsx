@@ -2,7 +2,7 @@ import { Alert } from "@/components/ui/alert";
 import type { RoomOption } from "../../api/types";
 import type { ReportDraftState } from "../../hooks/use-report-draft";
 import { PHOTOS_STEP, READINGS_STEP } from "../../lib/steps";
-import { ReportSummary, Row } from "../report-summary";
+import { ReportSummary, Row, SummaryCard } from "../report-summary";
 
 type CheckStepProps = Pick<ReportDraftState, "form" | "household" | "photos" | "readings" | "logger"> & {
   rooms: readonly RoomOption[];
@@ -34,21 +34,13 @@ export function CheckStep({ form, household, photos, readings, logger, rooms, go
         }}
         extra={
           <>
-            <Row
-              term="Photos"
-              value={photos.length ? count(photos.length, "photo", "photos") : "None"}
-              step={PHOTOS_STEP}
-              onChange={goTo}
-            />
-            <Row
-              term="Readings"
-              value={[
-                readings.length ? `${count(readings.length, "reading", "readings")} by hand` : "No readings by hand",
-                logger.file ? `Logger file: ${logger.file.name}` : "No logger file",
-              ]}
-              step={READINGS_STEP}
-              onChange={goTo}
-            />
+            <SummaryCard title="Photos" step={PHOTOS_STEP} onChange={goTo}>
+              <Row term="Photos to send" value={photos.length ? count(photos.length, "photo", "photos") : "None"} />
+            </SummaryCard>
+            <SummaryCard title="Readings" step={READINGS_STEP} onChange={goTo}>
+              <Row term="Readings by hand" value={readings.length ? count(readings.length, "reading", "readings") : "None"} />
+              <Row term="Logger file" value={logger.file ? logger.file.name : "None"} />
+            </SummaryCard>
           </>
         }
       />
