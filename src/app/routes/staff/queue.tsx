@@ -19,7 +19,7 @@ export const clientLoader =
     return null;
   };
 
-const renderStatus = (status: string) => <StatusBadge status={status} audience="staff" className="whitespace-nowrap" />;
+const renderStatus = (status: string) => <StatusBadge status={status} audience="staff" className="py-0 whitespace-nowrap" />;
 
 export default function CaseQueuePage() {
   const estates = useEstates();
@@ -28,7 +28,8 @@ export default function CaseQueuePage() {
       <title>Case queue · Dewline</title>
       <PageHeader
         title="Case queue"
-        description="Reports from tenants, most urgent first. Filter, sort and share the view: it is all in the link."
+        description="Reports of damp and mould, most urgent first. Filters, sort and columns are kept in the link."
+        className="mb-3"
       />
       <Panel as="div">
         <CaseQueueTable statusLabel={statusLabelFor("staff")} renderStatus={renderStatus} estates={estates.data} />
