@@ -4,6 +4,7 @@ import { Link, useLocation, useNavigate, useParams, type LoaderFunctionArgs } fr
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
+import { CollapsibleSection } from "@/components/ui/collapsible-section";
 import { LoadingState } from "@/components/ui/spinner";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
@@ -84,6 +85,7 @@ function CaseView({ id }: { id: number }) {
   }, [location.state, location.pathname, navigate]);
   const kase = useCase(id);
   const refresh = () => void queryClient.invalidateQueries({ queryKey: caseKeys.detail(id) });
+  const hash = location.hash;
 
   if (kase.isPending) return <LoadingState>Loading your report…</LoadingState>;
   if (kase.isError) {
@@ -128,12 +130,15 @@ function CaseView({ id }: { id: number }) {
         <ReportFollowUp caseId={id} rooms={c.homeRooms} onChanged={refresh} />
         <NextSteps c={c} onChanged={refresh} />
         <TenantRepairs caseId={id} caseStatus={c.status} readingsHref="#case-next" />
-        <EvaluationPanel id={id} />
+        {/* Messages: the two-way conversation with the landlord goes here
+            (<CaseConversation caseId={id} viewer="tenant" /> from features/conversation). */}
         <MessagesPanel id={id} />
-        <TimelinePanel c={c} />
-        <PhotosPanel id={id} />
-        <ReadingsPanel c={c} />
-        <Panel title="What you told us" id="case-answers">
+        {/* The rest, one press away under plain headings; a link to a section (#case-readings) opens it. */}
+        <EvaluationPanel id={id} open={Boolean(justSent) || hash === "#case-evaluation"} />
+        <ReadingsPanel c={c} open={hash === "#case-readings"} />
+        <PhotosPanel id={id} open={hash === "#case-photos"} />
+        <TimelinePanel c={c} open={hash === "#case-timeline"} />
+        <CollapsibleSection id="case-answers" title="What you told us" defaultOpen={hash === "#case-answers"}>
           <ReportSummary
             sentAt={c.createdAt}
             answers={{
@@ -147,7 +152,7 @@ function CaseView({ id }: { id: number }) {
               equipment: c.equipment,
             }}
           />
-        </Panel>
+        </CollapsibleSection>
       </div>
     </>
   );
@@ -240,10 +245,15 @@ function ActionPanel({ id, title, headingRef, onClose, children }: ActionPanelPr
   );
 }
 
-function EvaluationPanel({ id }: { id: number }) {
+function EvaluationPanel({ id, open }: { id: number; open: boolean }) {
   const evaluation = useCaseEvaluation(id);
   return (
-    <Panel title="What your readings show" id="case-evaluation">
+    <CollapsibleSection
+      id="case-evaluation"
+      title="What your readings show"
+      summary="What the readings say about condensation and mould, with advice on staying safe."
+      defaultOpen={open}
+    >
       {evaluation.isPending ? (
         <LoadingState>Working out what the readings show…</LoadingState>
       ) : evaluation.isError ? (
@@ -253,29 +263,35 @@ function EvaluationPanel({ id }: { id: number }) {
       ) : (
         <CaseEvaluationView evaluation={evaluation.data} emptyHint="you can add some with “Add readings” above." />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }
 
+/** The latest message or letter (the written summary) from the landlord first; earlier ones on request. */
 function MessagesPanel({ id }: { id: number }) {
   const events = useCaseEvents(id);
   return (
-    <Panel title="Messages from your landlord" id="case-messages">
+    <Panel title="Latest from your landlord" id="case-messages">
       {events.isPending ? (
         <LoadingState>Loading messages…</LoadingState>
       ) : events.isError ? (
         <Alert tone="warning">{errorMessage(events.error)}</Alert>
       ) : (
-        <LandlordMessages events={events.data} />
+        <LandlordMessages events={events.data} showFirst={1} />
       )}
     </Panel>
   );
 }
 
-function TimelinePanel({ c }: { c: CaseDto }) {
+function TimelinePanel({ c, open }: { c: CaseDto; open: boolean }) {
   const events = useCaseEvents(c.id);
   return (
-    <Panel title="What has happened so far" id="case-timeline">
+    <CollapsibleSection
+      id="case-timeline"
+      title="What has happened so far"
+      summary="Every step of your report, newest first."
+      defaultOpen={open}
+    >
       {events.isPending ? (
         <LoadingState>Loading what has happened…</LoadingState>
       ) : events.isError ? (
@@ -283,14 +299,20 @@ function TimelinePanel({ c }: { c: CaseDto }) {
       ) : (
         <CaseTimeline events={events.data} rooms={c.homeRooms} />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }
 
-function PhotosPanel({ id }: { id: number }) {
+function PhotosPanel({ id, open }: { id: number; open: boolean }) {
   const photos = useCasePhotos(id);
+  const count = photos.data?.length;
   return (
-    <Panel title="Photos" id="case-photos">
+    <CollapsibleSection
+      id="case-photos"
+      title="Photos"
+      summary={count === undefined ? undefined : count === 0 ? "No photos yet." : count === 1 ? "1 photo." : `${count} photos.`}
+      defaultOpen={open}
+    >
       {photos.isPending ? (
         <LoadingState>Loading photos…</LoadingState>
       ) : photos.isError ? (
@@ -298,14 +320,26 @@ function PhotosPanel({ id }: { id: number }) {
       ) : (
         <PhotoGallery photos={photos.data} emptyText="No photos yet" />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }
 
-function ReadingsPanel({ c }: { c: CaseDto }) {
+function ReadingsPanel({ c, open }: { c: CaseDto; open: boolean }) {
   const readings = useCaseReadings(c.id);
+  const count = readings.data?.length;
   return (
-    <Panel title="Readings" id="case-readings">
+    <CollapsibleSection
+      id="case-readings"
+      title="Readings"
+      summary={
+        count === undefined
+          ? undefined
+          : count === 0
+            ? "No readings yet."
+            : `${count.toLocaleString("en-GB")} ${count === 1 ? "reading" : "readings"}, with a chart.`
+      }
+      defaultOpen={open}
+    >
       {readings.isPending ? (
         <LoadingState>Loading readings…</LoadingState>
       ) : readings.isError ? (
@@ -313,6 +347,6 @@ function ReadingsPanel({ c }: { c: CaseDto }) {
       ) : (
         <ReadingsSection readings={readings.data} rooms={c.homeRooms} />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }
