@@ -53,7 +53,7 @@ export function CaseHeader({ c, status, risk }: CaseHeaderProps) {
           <Fact term="Assigned to">
             <AssigneeName id={c.assigneeId ?? null} />
           </Fact>
-          <Fact term="Risk">{risk ?? <span className="font-normal text-ink-soft">No readings yet</span>}</Fact>
+          <Fact term="Risk">{risk ?? <span className="font-normal text-ink-soft">Not known yet</span>}</Fact>
           <Fact term="Hazard class">{hazardClassLabel(c.hazardClass)}</Fact>
         </dl>
       </section>
