@@ -98,6 +98,7 @@ export function ReadingsChart({ readings, title }: ReadingsChartProps) {
     const limitIndex = series.length - 1;
 
     const width = Math.max(280, el.clientWidth);
+    const wide = width >= 560;
     const opts: uPlot.Options = {
       width,
       height: heightFor(width),
@@ -114,8 +115,22 @@ export function ReadingsChart({ readings, title }: ReadingsChartProps) {
           size: 52,
           space: 70,
         },
-        { scale: "C", label: "°C", stroke: COLOURS.axis, grid: { stroke: COLOURS.grid } },
-        { scale: "%", label: "%", side: 1, stroke: COLOURS.axis, grid: { show: false } },
+        // On a phone the axes are narrow and unlabelled (the legend names each line with its unit), so the plot keeps its width.
+        {
+          scale: "C",
+          label: wide ? "°C" : undefined,
+          size: wide ? 50 : 40,
+          stroke: COLOURS.axis,
+          grid: { stroke: COLOURS.grid },
+        },
+        {
+          scale: "%",
+          label: wide ? "%" : undefined,
+          size: wide ? 50 : 40,
+          side: 1,
+          stroke: COLOURS.axis,
+          grid: { show: false },
+        },
       ],
       cursor: { drag: { x: true, y: false } },
       hooks: {
@@ -131,7 +146,9 @@ export function ReadingsChart({ readings, title }: ReadingsChartProps) {
             ctx.fillStyle = COLOURS.limit;
             ctx.textAlign = "right";
             ctx.textBaseline = "bottom";
-            ctx.fillText(LIMIT_LABEL, u.bbox.left + u.bbox.width - 4 * pr, y - 3 * pr);
+            // The whole label where it fits, else just the level.
+            const text = ctx.measureText(LIMIT_LABEL).width < u.bbox.width - 8 * pr ? LIMIT_LABEL : `${MOULD_SURFACE_RH_PCT} %`;
+            ctx.fillText(text, u.bbox.left + u.bbox.width - 4 * pr, y - 3 * pr);
             ctx.restore();
           },
         ],
