@@ -83,6 +83,18 @@ export const formatDateTimeZoned = showInstant(dateTimeZone);
 /** "Tue, 13 Jan 2026, 17:00 GMT": deadlines and records in the case workspace. */
 export const formatWeekdayDateTimeZoned = showInstant(weekdayDateTimeZone);
 
+const chartDay = london({ day: "numeric", month: "short" });
+const chartClock = london({ hour: "2-digit", minute: "2-digit", hourCycle: "h23" });
+
+/**
+ * "26 Nov 14:00", London time, from Unix seconds: a chart's time axis and its cursor. An axis
+ * passes "\n" as the separator to put the time under the day.
+ */
+export function formatChartTime(unixSeconds: number, separator = " "): string {
+  const d = new Date(unixSeconds * 1000);
+  return Number.isNaN(d.getTime()) ? "" : `${chartDay.format(d)}${separator}${chartClock.format(d)}`;
+}
+
 /** "3 Mar, 23:59 BST": a deadline in a table, where the year is plain from the context. */
 export const formatDayTimeZoned = showInstant(dayTimeZone);
 

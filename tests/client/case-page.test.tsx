@@ -189,6 +189,14 @@ async function openCase() {
   return view;
 }
 
+/** The parts below the latest message are behind their headings: pressing one opens it. */
+async function openSection(user: ReturnType<typeof userEvent.setup>, name: string) {
+  const button = screen.getByRole("button", { name });
+  await user.click(button);
+  expect(button).toHaveAttribute("aria-expanded", "true");
+  return screen.getByRole("region", { name });
+}
+
 describe("case page", () => {
   beforeEach(() => clearCsrfToken());
 
@@ -196,8 +204,9 @@ describe("case page", () => {
     caseApi();
     await openCase();
     expect(screen.getAllByText("Being looked into").length).toBeGreaterThan(0);
+    const user = userEvent.setup();
 
-    const timeline = screen.getByRole("region", { name: "What has happened so far" });
+    const timeline = await openSection(user, "What has happened so far");
     const entries = await within(timeline).findAllByRole("listitem");
     expect(entries).toHaveLength(events.length);
     // Newest first.
@@ -217,7 +226,7 @@ describe("case page", () => {
     // Tenants never see read receipts.
     expect(within(messages).queryByText(/Read by|Not read/)).not.toBeInTheDocument();
 
-    const answers = screen.getByRole("region", { name: "What you told us" });
+    const answers = await openSection(user, "What you told us");
     expect(within(answers).getByText("A corner of the room")).toBeInTheDocument();
     expect(within(answers).getByText("Children under 15")).toBeInTheDocument();
     expect(within(answers).getByText("There isn't one")).toBeInTheDocument();
@@ -263,10 +272,43 @@ describe("case page", () => {
     expect(await within(messages).findByText("No messages yet")).toBeInTheDocument();
   });
 
+  it("leads with what happens next and the latest letter, with the rest closed under plain headings", async () => {
+    const summary = {
+      id: 20,
+      type: "summary-sent",
+      at: "2026-01-14T09:00:00.000Z",
+      actor: { name: "Priya Venn", role: "officer" },
+      before: null,
+      after: { body: "We found condensation on the cold wall. We will fit a fan by 21 January." },
+      email: null,
+    };
+    caseApi({ "GET /api/cases/42/events": { body: { events: [...events, summary] } } });
+    await openCase();
+    const messages = screen.getByRole("region", { name: "Latest from your landlord" });
+    // The written summary is the newest: it shows in full; the older message waits behind a button.
+    expect(await within(messages).findByText(/We will fit a fan by 21 January/)).toBeInTheDocument();
+    expect(within(messages).getByText("Written summary of the investigation")).toBeInTheDocument();
+    expect(within(messages).queryByText("We will visit on Tuesday morning.")).not.toBeInTheDocument();
+    await userEvent.setup().click(within(messages).getByRole("button", { name: "Show the earlier message" }));
+    expect(within(messages).getByText("We will visit on Tuesday morning.")).toBeInTheDocument();
+
+    // The order of the page: what happens next, the latest from the landlord, then the rest, closed.
+    const headings = screen.getAllByRole("heading", { level: 2 }).map((h) => h.textContent);
+    expect(headings.indexOf("What happens next")).toBeLessThan(headings.indexOf("Latest from your landlord"));
+    const rest = ["What your readings show", "Readings", "Photos", "What has happened so far", "What you told us"];
+    // Then the conversation, open to write in.
+    expect(headings[headings.indexOf("Latest from your landlord") + 1]).toBe("Messages with your landlord");
+    expect(headings.slice(headings.indexOf("Messages with your landlord") + 1)).toEqual(rest);
+    for (const name of rest) expect(screen.getByRole("button", { name })).toHaveAttribute("aria-expanded", "false");
+    // Closed, they still say what is inside.
+    expect(await screen.findByText("48 readings, with a chart.")).toBeInTheDocument();
+    expect(screen.getByText("2 photos.")).toBeInTheDocument();
+  });
+
   it("shows the engine's result per room and surface, with the cautions and the promise to investigate", async () => {
     caseApi();
     await openCase();
-    const panel = screen.getByRole("region", { name: "What your readings show" });
+    const panel = await openSection(userEvent.setup(), "What your readings show");
     expect(await within(panel).findByRole("heading", { level: 3, name: "Bedroom 1" })).toBeInTheDocument();
     const result = evaluation.rooms[0]!.surfaces[0]!.result;
     expect(result.surface.state).toBe("condensing");
@@ -285,11 +327,11 @@ describe("case page", () => {
   it("shows the photos and opens one full size in a dialog that Escape closes", async () => {
     caseApi();
     await openCase();
-    const photos = screen.getByRole("region", { name: "Photos" });
+    const user = userEvent.setup();
+    const photos = await openSection(user, "Photos");
     const first = await within(photos).findByRole("button", { name: /Open photo 1 of 2/ });
     expect(within(first).getByRole("presentation", { hidden: true })).toHaveAttribute("src", "/api/photos/7/thumbnail");
 
-    const user = userEvent.setup();
     await user.click(first);
     const dialog = await screen.findByRole("dialog", { name: "Photo 1 of 2" });
     expect(within(dialog).getByRole("img", { name: /^1 of 2, added/ })).toHaveAttribute("src", "/api/photos/7");
@@ -303,6 +345,8 @@ describe("case page", () => {
   it("lists the readings with dew point and surface humidity worked out in the browser", async () => {
     caseApi();
     await openCase();
+    await screen.findByText("48 readings, with a chart.");
+    await openSection(userEvent.setup(), "Readings");
     const table = await screen.findByRole("table", { name: /Readings in Bedroom 1, newest first/ });
     const rows = within(table).getAllByRole("row");
     expect(rows).toHaveLength(1 + 25);
@@ -321,7 +365,7 @@ describe("case page", () => {
       "POST /api/cases/42/worse": { body: mockReply(worseResponse, { status: "triaged", reopened: true, told: "officers" }) },
     });
     await openCase();
-    await screen.findAllByText("You sent this report.");
+    await screen.findByText("We will visit on Tuesday morning.");
     const user = userEvent.setup();
     const open = screen.getByRole("button", { name: "It's got worse" });
     await user.click(open);

@@ -62,7 +62,10 @@ const rowsOf = (table: HTMLElement) => within(table).getAllByRole("row").slice(1
 const search = (router: { state: { location: { search: string } } }) => new URLSearchParams(router.state.location.search);
 
 describe("Case queue", () => {
-  beforeEach(() => clearCsrfToken());
+  beforeEach(() => {
+    clearCsrfToken();
+    window.localStorage.clear();
+  });
 
   it("opens on open cases, most urgent first, 25 a page", async () => {
     const { callsTo } = setup("/queue");
@@ -83,10 +86,10 @@ describe("Case queue", () => {
     expect(screen.queryByRole("table", { name: "Homes" })).not.toBeInTheDocument();
   });
 
-  it("reads every filter, the sort, the page and the hidden columns from the URL and asks the API for them", async () => {
+  it("reads every filter, the sort, the page and the shown columns from the URL and asks the API for them", async () => {
     const url =
       "/queue?status=triaged,new&risk=condensing,unknown&category=1&band=B,A&estate=Millbeck%20Terraces&vulnerable=true" +
-      "&dueWithin=5&assignee=unassigned&q=ZX5&sort=due&order=desc&page=2&pageSize=10&hide=rooms,channel";
+      "&dueWithin=5&assignee=unassigned&q=ZX5&sort=due&order=desc&page=2&pageSize=10&cols=rooms,priority,address,due,status";
     const { callsTo, router } = setup(url, {
       "GET /api/cases": (call) => page(call, [makeItem(11)], 12),
     });
@@ -120,7 +123,8 @@ describe("Case queue", () => {
     expect(screen.getByRole("button", { name: "HHSRS Category 1; Band A, B" })).toBeInTheDocument();
     expect(screen.getByText("Page 2 of 2")).toBeInTheDocument();
     expect(within(table).getByRole("columnheader", { name: "Next deadline" })).toHaveAttribute("aria-sort", "descending");
-    expect(within(table).queryByRole("columnheader", { name: "Rooms" })).not.toBeInTheDocument();
+    expect(within(table).getByRole("columnheader", { name: "Rooms" })).toBeInTheDocument();
+    expect(within(table).queryByRole("columnheader", { name: "Risk state" })).not.toBeInTheDocument();
     expect(within(table).queryByRole("columnheader", { name: "Channel" })).not.toBeInTheDocument();
 
     const user = userEvent.setup();
@@ -149,7 +153,12 @@ describe("Case queue", () => {
 
     await user.click(screen.getByRole("button", { name: "Clear filters" }));
     await waitFor(() =>
-      expect(Object.fromEntries(search(router))).toEqual({ sort: "due", order: "desc", pageSize: "10", hide: "rooms,channel" }),
+      expect(Object.fromEntries(search(router))).toEqual({
+        sort: "due",
+        order: "desc",
+        pageSize: "10",
+        cols: "rooms,priority,address,due,status",
+      }),
     );
   });
 
@@ -183,32 +192,52 @@ describe("Case queue", () => {
     expect([sent.get("sort"), sent.get("order")]).toEqual(["priority", "desc"]);
   });
 
-  it("hides a column from the Columns menu and keeps that in the URL", async () => {
+  it("opens with the six usual columns, shows another from the Columns menu, and remembers the choice", async () => {
     const { router, unmount } = setup("/queue");
     const table = await screen.findByRole("table", { name: "Case queue" });
     await waitFor(() => expect(rowsOf(table)).toHaveLength(3));
-    expect(within(table).getByRole("columnheader", { name: "Channel" })).toBeInTheDocument();
-    expect(within(rowsOf(table)[0]!).getByText("Online (tenant)")).toBeInTheDocument();
+    const headings = () =>
+      within(table)
+        .getAllByRole("columnheader")
+        .map((th) => th.textContent);
+    // The tick box, then what an officer picks the next case by; the rest wait behind the menu.
+    expect(headings()).toEqual(["", "Reference", "Priority", "Home", "Risk state", "Next deadline", "Status"]);
+    expect(within(rowsOf(table)[0]!).queryByText("Online (tenant)")).not.toBeInTheDocument();
 
     const user = userEvent.setup();
-    await user.click(screen.getByRole("button", { name: "Columns All shown" }));
+    await user.click(screen.getByRole("button", { name: "Columns 9 hidden" }));
+    expect(screen.getByRole("checkbox", { name: "Priority" })).toBeChecked();
     const channel = screen.getByRole("checkbox", { name: "Channel" });
-    expect(channel).toBeChecked();
+    expect(channel).not.toBeChecked();
+    expect(screen.getByRole("button", { name: "Usual columns" })).toBeDisabled();
     await user.click(channel);
 
-    await waitFor(() => expect(search(router).get("hide")).toBe("channel"));
-    await waitFor(() => expect(within(table).queryByRole("columnheader", { name: "Channel" })).not.toBeInTheDocument());
-    expect(within(rowsOf(table)[0]!).queryByText("Online (tenant)")).not.toBeInTheDocument();
-    expect(screen.getByRole("button", { name: "Columns 1 hidden" })).toBeInTheDocument();
+    await waitFor(() => expect(search(router).get("cols")).not.toBeNull());
+    expect(search(router).get("cols")?.split(",").sort()).toEqual(["address", "channel", "due", "priority", "risk", "status"]);
+    await waitFor(() => expect(within(table).getByRole("columnheader", { name: "Channel" })).toBeInTheDocument());
+    expect(within(rowsOf(table)[0]!).getByText("Online (tenant)")).toBeInTheDocument();
+    expect(screen.getByRole("button", { name: "Columns 8 hidden" })).toBeInTheDocument();
     const link = router.state.location.pathname + router.state.location.search;
     unmount();
 
-    // Opening the same link again shows the same columns.
-    setup(link);
-    const again = await screen.findByRole("table", { name: "Case queue" });
-    await waitFor(() => expect(rowsOf(again)).toHaveLength(3));
-    expect(within(again).queryByRole("columnheader", { name: "Channel" })).not.toBeInTheDocument();
-    expect(within(again).getByRole("columnheader", { name: "Address" })).toBeInTheDocument();
+    // The same link shows the same columns; so does a plain /queue in this browser.
+    for (const url of [link, "/queue"]) {
+      const view = setup(url);
+      const again = await screen.findByRole("table", { name: "Case queue" });
+      await waitFor(() => expect(rowsOf(again)).toHaveLength(3));
+      expect(within(again).getByRole("columnheader", { name: "Channel" })).toBeInTheDocument();
+      expect(within(again).getByRole("columnheader", { name: "Home" })).toBeInTheDocument();
+      view.unmount();
+    }
+
+    // "Usual columns" goes back to the six, and the link drops its cols.
+    const last = setup("/queue");
+    const table3 = await screen.findByRole("table", { name: "Case queue" });
+    await waitFor(() => expect(rowsOf(table3)).toHaveLength(3));
+    await user.click(screen.getByRole("button", { name: "Columns 8 hidden" }));
+    await user.click(screen.getByRole("button", { name: "Usual columns" }));
+    await waitFor(() => expect(within(table3).queryByRole("columnheader", { name: "Channel" })).not.toBeInTheDocument());
+    expect(search(last.router).get("cols")).toBeNull();
   });
 
   it("says in words how far past its deadline a case is, and how long others have left", async () => {

@@ -180,8 +180,9 @@ function staffApi(user: (typeof users)[keyof typeof users], status: CaseStatus, 
   });
 }
 
+/** The workspace on its Works tab (the work orders and "Did the fix work?"). */
 async function openWorkspace() {
-  const view = renderApp("/cases/42");
+  const view = renderApp("/cases/42?tab=works");
   expect(await screen.findByRole("heading", { level: 1, name: "DW-2026-00042" })).toBeInTheDocument();
   return view;
 }
@@ -252,6 +253,7 @@ describe("the works of a case, for staff", () => {
     });
     await openWorkspace();
     const works = region("Works");
+    await user.click(within(works).getByRole("button", { name: "New work order" }));
 
     // Nothing is sent without a type and a description.
     await user.click(within(works).getByRole("button", { name: "Add work order" }));
@@ -300,6 +302,7 @@ describe("the works of a case, for staff", () => {
     });
     await openWorkspace();
     const works = region("Works");
+    await user.click(within(works).getByRole("button", { name: "New work order" }));
     await user.selectOptions(within(works).getByLabelText("Type of work"), "mould-wash");
     await user.type(within(works).getByLabelText("Description"), "Treat the bedroom mould.");
     await user.click(within(works).getByRole("button", { name: "Add work order" }));
@@ -330,6 +333,12 @@ describe("the works of a case, for staff", () => {
             },
     });
     await openWorkspace();
+    // A look at the readings first, so they are on the page (their tab kept, hidden) while booking.
+    await user.click(screen.getByRole("tab", { name: "Readings" }));
+    await screen.findByRole("tabpanel", { name: "Readings" });
+    await waitFor(() => expect(api.callsTo("GET", "/api/cases/42/readings").length).toBeGreaterThan(0));
+    await user.click(screen.getByRole("tab", { name: "Works" }));
+    await screen.findByRole("tabpanel", { name: "Works" });
     const fan = await orderItem("Extractor fan: fit or repair");
     await user.click(within(fan).getByRole("button", { name: /^Schedule…/ }));
     const dialog = await screen.findByRole("dialog", { name: "Schedule DW-2026-00042" });

@@ -234,13 +234,25 @@ function workspaceApi(user: (typeof users)[keyof typeof users] = users.officer, 
   });
 }
 
-async function openWorkspace() {
-  const view = renderApp("/cases/42");
+/** Opens the workspace, on one of its tabs when given (?tab=…, as a link would). */
+async function openWorkspace(tab?: string) {
+  const view = renderApp(tab ? `/cases/42?tab=${tab}` : "/cases/42");
   expect(await screen.findByRole("heading", { level: 1, name: "DW-2026-00042" })).toBeInTheDocument();
   return view;
 }
 
 const region = (name: string) => screen.getByRole("region", { name });
+
+/** Chooses a tab and waits for its panel (the tab is in the link, so choosing one is a navigation). */
+async function openTab(user: ReturnType<typeof userEvent.setup>, name: string) {
+  await user.click(screen.getByRole("tab", { name }));
+  return screen.findByRole("tabpanel", { name });
+}
+
+/** Forms open on demand: the button in the section opens its form. */
+async function openForm(user: ReturnType<typeof userEvent.setup>, section: HTMLElement, button: string) {
+  await user.click(within(section).getByRole("button", { name: button }));
+}
 
 describe("case workspace", () => {
   beforeEach(() => clearCsrfToken());
@@ -264,10 +276,12 @@ describe("case workspace", () => {
     });
     await openWorkspace();
 
-    // Header: address, status, assignee, hazard class, next deadline.
+    // Header, above every tab: address, status, priority, next deadline, assignee, risk, hazard class.
     expect(screen.getByText("1 Tanner Row, Easterby, ZX3 1AA")).toBeInTheDocument();
-    const facts = screen.getByText("Assigned to").closest("dl")!;
+    const facts = within(region("Case summary")).getByText("Assigned to").closest("dl")!;
     expect(within(facts).getByText("Triaged")).toBeInTheDocument();
+    expect(await within(facts).findByText(/^47/)).toHaveTextContent("47 out of 100");
+    expect(within(facts).getByText("Risk").nextElementSibling).toHaveTextContent("Not known yet");
     expect(await within(facts).findByText("Priya Venn")).toBeInTheDocument();
     expect(within(facts).getByText("Significant hazard")).toBeInTheDocument();
     expect(await within(facts).findByText("Investigate")).toBeInTheDocument();
@@ -300,14 +314,19 @@ describe("case workspace", () => {
     expect(stages[2]).toHaveTextContent("Starts when the inspection is recorded");
     expect(within(deadlines).getByText(/England social-housing default/)).toBeInTheDocument();
 
-    // The tenant's report, the diagnosis hint and the engine's evaluation.
+    // The tenant's report on the overview; the diagnosis hint and the engine's evaluation on Readings.
     expect(within(region("The tenant's report")).getByText("Black mould in the bedroom corner")).toBeInTheDocument();
+    const user = userEvent.setup();
+    await openTab(user, "Readings");
     const hints = region("Diagnosis hints");
     expect(await within(hints).findByText(/^Bedroom 1:/)).toBeInTheDocument();
     for (const reason of series.diagnosis.reasons) expect(within(hints).getByText(reason)).toBeInTheDocument();
-    expect(within(region("What the readings show")).getByText(evaluation.statement)).toBeInTheDocument();
+    // The promise written for the tenant ("your landlord will look into…") is not repeated to staff.
+    expect(within(region("What the readings show")).queryByText(evaluation.statement)).not.toBeInTheDocument();
+    expect(within(region("What the readings show")).queryByText(/your landlord/i)).not.toBeInTheDocument();
 
     // Inspections and every HHSRS version, newest first.
+    await openTab(user, "Inspection and assessment");
     const inspections = region("Recorded inspections");
     expect(await within(inspections).findByText(inspection.findings)).toBeInTheDocument();
     expect(within(inspections).getByText("Condensation")).toBeInTheDocument();
@@ -319,6 +338,7 @@ describe("case workspace", () => {
     ]);
 
     // Timeline for staff: internal notes, and where each e-mail went and how it fared.
+    await openTab(user, "Timeline");
     const timeline = region("Timeline");
     expect(await within(timeline).findByText("Key safe code is with the caretaker.")).toBeInTheDocument();
     expect(within(timeline).getByText("Priya Venn (Housing officer) added an internal note.")).toBeInTheDocument();
@@ -328,6 +348,7 @@ describe("case workspace", () => {
     expect(within(timeline).getByText(/^Sent at/)).toBeInTheDocument();
 
     // Other cases at this home link to their own page.
+    await openTab(user, "Overview");
     const relatedPanel = region("Other cases at this home");
     expect(await within(relatedPanel).findByRole("link", { name: "DW-2025-00017" })).toHaveAttribute("href", "/cases/17");
     expect(within(relatedPanel).getByText("Closed")).toBeInTheDocument();
@@ -341,12 +362,13 @@ describe("case workspace", () => {
     });
     await openWorkspace();
     const actions = region("Actions");
+    const user = userEvent.setup();
+    await openForm(user, actions, "Change the status");
     const select = within(actions).getByLabelText(/^Move to/);
     const options = within(select).getAllByRole("option").slice(1);
     expect(options.map((o) => (o as HTMLOptionElement).value)).toEqual([...CASE_TRANSITIONS.triaged]);
     expect(options.map((o) => o.textContent)).toEqual(["Inspection booked", "Investigated", "Cancelled"]);
 
-    const user = userEvent.setup();
     await user.selectOptions(select, "cancelled");
     await user.click(within(actions).getByRole("button", { name: "Change status" }));
     expect(within(actions).getByText("Say why the case is being cancelled.")).toBeInTheDocument();
@@ -369,9 +391,10 @@ describe("case workspace", () => {
       "GET /api/cases/42": (_c, nth) => ({ body: nth === 0 ? theCase : { ...theCase, status: "inspection-booked" } }),
     });
     await openWorkspace();
-    await screen.findByText("47");
+    await within(region("Triage priority")).findByText("47");
     const actions = region("Actions");
     const user = userEvent.setup();
+    await openForm(user, actions, "Change the status");
     await user.selectOptions(within(actions).getByLabelText(/^Move to/), "inspection-booked");
     // A move by hand is an exception: it needs a reason.
     await user.click(within(actions).getByRole("button", { name: "Change status" }));
@@ -387,8 +410,11 @@ describe("case workspace", () => {
     await waitFor(() => {
       expect(callsTo("GET", "/api/cases/42/deadlines").length).toBeGreaterThanOrEqual(2);
       expect(callsTo("GET", "/api/cases/42/triage").length).toBeGreaterThanOrEqual(2);
-      expect(callsTo("GET", "/api/cases/42/events").length).toBeGreaterThanOrEqual(2);
     });
+    // The timeline, marked stale, is fetched again when its tab is opened.
+    await openTab(user, "Timeline");
+    await waitFor(() => expect(callsTo("GET", "/api/cases/42/events").length).toBeGreaterThanOrEqual(2));
+    await openTab(user, "Overview");
     // From the new status the workflow offers other moves.
     await waitFor(() =>
       expect(
@@ -407,6 +433,8 @@ describe("case workspace", () => {
     await openWorkspace();
     const actions = region("Actions");
     const user = userEvent.setup();
+    await openForm(user, actions, "Assign the case");
+    await openForm(user, actions, "Classify the hazard");
     const assignee = await within(actions).findByLabelText("Assigned to");
     expect(
       within(assignee)
@@ -458,9 +486,10 @@ describe("case workspace", () => {
         };
       },
     });
-    await openWorkspace();
+    await openWorkspace("inspection");
     const panel = region("HHSRS assessment");
     const user = userEvent.setup();
+    await openForm(user, panel, "New assessment");
     const classBox = (n: string) => within(panel).getByLabelText(new RegExp(`^Class ${n} \\(`));
 
     expect(within(panel).getByText(/Total: 0 % of 100 %/)).toBeInTheDocument();
@@ -503,8 +532,9 @@ describe("case workspace", () => {
 
   it("keeps the written summary disabled, with the reason, until an inspection exists", async () => {
     const { callsTo } = workspaceApi();
-    await openWorkspace();
+    await openWorkspace("letters");
     const panel = region("Written summary");
+    await openForm(userEvent.setup(), panel, "Write the written summary");
     expect(await within(panel).findByText("Record the inspection first")).toBeInTheDocument();
     expect(within(panel).getByLabelText(/^Summary for the tenant/)).toBeDisabled();
     expect(within(panel).getByRole("button", { name: "Send the written summary" })).toBeDisabled();
@@ -519,8 +549,10 @@ describe("case workspace", () => {
       "GET /api/cases/42/deadlines": { body: { deadlines: deadlinesAfter } },
       "POST /api/cases/42/summary": { status: 201, body: { id: 3, sentAt } },
     });
-    await openWorkspace();
+    await openWorkspace("letters");
     const panel = region("Written summary");
+    const user = userEvent.setup();
+    await openForm(user, panel, "Write the written summary");
     const text = (await within(panel).findByLabelText(/^Summary for the tenant/)) as HTMLTextAreaElement;
     expect(text).toBeEnabled();
     // The officer's own notes stay out of the tenant's letter; the band letter and the zone name too.
@@ -531,7 +563,6 @@ describe("case workspace", () => {
     expect(text.value).not.toMatch(/\bband\b|\bGMT\b|\bBST\b/);
     expect(text.value).toContain("begin the work to remove the risk to your health by the end of Wednesday 21 January 2099");
 
-    const user = userEvent.setup();
     await user.click(within(panel).getByRole("button", { name: "Send the written summary" }));
     expect(within(panel).getByText(/Fill in or remove every part marked/)).toBeInTheDocument();
     expect(text).toHaveFocus();
@@ -554,10 +585,11 @@ describe("case workspace", () => {
         body: { id: 6, inspectedAt: "2026-01-14T10:00:00.000Z", cause: "condensation", mouldExtent: "under-1-m2" },
       },
     });
-    await openWorkspace();
+    await openWorkspace("inspection");
     const panel = region("Inspections");
     const user = userEvent.setup();
     expect(await within(panel).findByText("No inspection recorded yet")).toBeInTheDocument();
+    await openForm(user, panel, "Record an inspection");
 
     await user.click(within(panel).getByRole("button", { name: "Record inspection" }));
     expect(within(panel).getByText("Choose the cause you found, or “Other or not yet known”.")).toBeInTheDocument();
@@ -616,7 +648,7 @@ describe("case workspace", () => {
 
   it("shows the conversation with what is new, marks it read, and says who has read the staff's messages", async () => {
     const { callsTo } = workspaceApi(users.officer);
-    await openWorkspace();
+    await openWorkspace("letters");
     const panel = region("Messages and notes");
     expect(await within(panel).findByText("1 new message from the tenant since you last looked.")).toBeInTheDocument();
     const thread = within(panel).getByRole("list", { name: "Messages, oldest first" });
@@ -637,7 +669,7 @@ describe("case workspace", () => {
     const { callsTo } = workspaceApi(users.officer, {
       "POST /api/cases/42/messages": { status: 201, body: { ok: true, id: 13 } },
     });
-    await openWorkspace();
+    await openWorkspace("letters");
     const panel = region("Messages and notes");
     const user = userEvent.setup();
     await user.type(within(panel).getByLabelText("Message"), "Caretaker has the key.");
@@ -658,12 +690,64 @@ describe("case workspace", () => {
     expect(
       screen.getByText("Only housing officers and administrators can change the status, the assignee or the hazard class."),
     ).toBeInTheDocument();
-    expect(screen.queryByRole("button", { name: "Change status" })).not.toBeInTheDocument();
-    expect(screen.queryByRole("button", { name: "Record inspection" })).not.toBeInTheDocument();
-    expect(screen.queryByRole("button", { name: "Save assessment" })).not.toBeInTheDocument();
+    expect(screen.queryByRole("button", { name: "Change the status" })).not.toBeInTheDocument();
+    const user = userEvent.setup();
+    await openTab(user, "Inspection and assessment");
+    expect(screen.queryByRole("button", { name: "Record an inspection" })).not.toBeInTheDocument();
+    expect(screen.queryByRole("button", { name: "New assessment" })).not.toBeInTheDocument();
     expect(await within(region("Inspections")).findByText(inspection.findings)).toBeInTheDocument();
-    expect(within(region("Written summary")).getByRole("button", { name: "Send the written summary" })).toBeDisabled();
+    await openTab(user, "Letters and messages");
+    await openForm(user, region("Written summary"), "Read the draft of the written summary");
+    expect(await within(region("Written summary")).findByRole("button", { name: "Send the written summary" })).toBeDisabled();
     expect(within(region("Messages and notes")).getByRole("button", { name: "Send" })).toBeEnabled();
+  });
+
+  it("moves between tabs with the arrow keys, keeps the tab in the link, and opens a form on demand", async () => {
+    workspaceApi();
+    const { router } = await openWorkspace();
+    const user = userEvent.setup();
+    const tabs = screen.getByRole("tablist", { name: "Parts of the case" });
+    expect(
+      within(tabs)
+        .getAllByRole("tab")
+        .map((t) => t.textContent),
+    ).toEqual(["Overview", "Readings", "Inspection and assessment", "Letters and messages", "Works", "Timeline"]);
+    const overview = within(tabs).getByRole("tab", { name: "Overview" });
+    expect(overview).toHaveAttribute("aria-selected", "true");
+    // One tab stop: the chosen tab; the others are reached with the arrow keys.
+    expect(
+      within(tabs)
+        .getAllByRole("tab")
+        .filter((t) => t.tabIndex === 0),
+    ).toEqual([overview]);
+    expect(screen.getByRole("tabpanel", { name: "Overview" })).toContainElement(region("Deadlines"));
+
+    overview.focus();
+    await user.keyboard("{ArrowRight}");
+    const readings = within(tabs).getByRole("tab", { name: "Readings" });
+    expect(readings).toHaveFocus();
+    await waitFor(() => expect(readings).toHaveAttribute("aria-selected", "true"));
+    expect(await screen.findByRole("tabpanel", { name: "Readings" })).toBeInTheDocument();
+    expect(screen.queryByRole("region", { name: "Deadlines" })).not.toBeInTheDocument();
+    await waitFor(() => expect(new URLSearchParams(router.state.location.search).get("tab")).toBe("readings"));
+    await user.keyboard("{End}");
+    expect(within(tabs).getByRole("tab", { name: "Timeline" })).toHaveFocus();
+    await user.keyboard("{ArrowRight}");
+    expect(overview).toHaveFocus();
+    await waitFor(() => expect(router.state.location.search).toBe(""));
+    await user.keyboard("{ArrowLeft}");
+    await waitFor(() => expect(within(tabs).getByRole("tab", { name: "Timeline" })).toHaveAttribute("aria-selected", "true"));
+
+    // Inspection: the form is closed until asked for; Cancel closes it and focus goes back to its button.
+    await user.click(within(tabs).getByRole("tab", { name: "Inspection and assessment" }));
+    const panel = await screen.findByRole("region", { name: "Inspections" });
+    expect(within(panel).queryByLabelText(/^Findings/)).not.toBeInTheDocument();
+    await openForm(user, panel, "Record an inspection");
+    expect(within(panel).getByLabelText(/^Findings/)).toBeInTheDocument();
+    expect(within(panel).queryByRole("button", { name: "Record an inspection" })).not.toBeInTheDocument();
+    await user.click(within(panel).getByRole("button", { name: /^Cancel/ }));
+    expect(within(panel).queryByLabelText(/^Findings/)).not.toBeInTheDocument();
+    expect(within(panel).getByRole("button", { name: "Record an inspection" })).toHaveFocus();
   });
 
   it("says when a section could not be loaded, and still shows the rest", async () => {

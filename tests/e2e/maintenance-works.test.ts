@@ -111,7 +111,9 @@ it("books, confirms, completes and verifies an extractor-fan fix", async () => {
 
   // The lead orders the fan on the investigated case and books Dale for a morning.
   await page.goto(`${served.url}/cases/${caseId}`);
+  await page.getByRole("tab", { name: "Works" }).click();
   const works = page.locator("#case-works");
+  await works.getByRole("button", { name: "New work order" }).click();
   await works.getByLabel("Type of work").selectOption("extractor-fan");
   await works
     .getByRole("textbox", { name: "Description" })
@@ -138,7 +140,7 @@ it("books, confirms, completes and verifies an extractor-fan fix", async () => {
 
   // Dale (the operative) records the work with an after-photo.
   await signIn(page, "maintenance@example.org", "Works");
-  await page.goto(`${served.url}/cases/${caseId}`);
+  await page.goto(`${served.url}/cases/${caseId}?tab=works`);
   const done = page
     .locator("#case-works")
     .getByRole("listitem")

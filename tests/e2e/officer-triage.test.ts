@@ -99,6 +99,8 @@ it("triages from the queue to the written summary, and the tenant reads it", asy
   await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toContain(reference);
 
   // Record the inspection: condensation, 1–5 m² of mould, a reading in the bedroom.
+  await page.getByRole("tab", { name: "Inspection and assessment" }).click();
+  await page.getByRole("button", { name: "Record an inspection" }).click();
   await page.getByRole("radio", { name: /^Condensation/ }).check();
   await page.getByRole("radio", { name: /^1 to 5 m²/ }).check();
   await page
@@ -110,6 +112,7 @@ it("triages from the queue to the written summary, and the tenant reads it", asy
   await expect.poll(async () => (await page.getByText("The deadlines and the timeline now include it.").count()) > 0).toBe(true);
 
   // The HHSRS assessment: likelihood 1 in 32; harm spread over classes II–IV.
+  await page.getByRole("button", { name: "New assessment" }).click();
   await page.getByLabel("Likelihood of a harmful occurrence in the next 12 months").selectOption("32");
   await page.getByLabel(/^Class II \(/).fill("21.5");
   await page.getByLabel(/^Class III \(/).fill("46.4");
@@ -124,6 +127,8 @@ it("triages from the queue to the written summary, and the tenant reads it", asy
   await expect.poll(async () => (await page.getByText(/Assessment version 1 saved/).count()) > 0).toBe(true);
 
   // The written summary: the draft is prefilled from the inspection; the officer writes the work.
+  await page.getByRole("tab", { name: "Letters and messages" }).click();
+  await page.getByRole("button", { name: "Write the written summary" }).click();
   const summary = page.getByLabel("Summary for the tenant");
   await expect.poll(() => summary.inputValue()).toContain("We inspected your home");
   const draft = await summary.inputValue();

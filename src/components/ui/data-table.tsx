@@ -140,7 +140,19 @@ interface DataTableProps<Row extends RowData> {
   className?: string;
   /** Content shown under a row across every column (an expanded row); null or undefined for none. */
   renderDetail?: (row: Row) => ReactNode;
+  /** "compact": one tight line a row, for long work lists (the case queue). */
+  density?: "comfortable" | "compact";
+  /**
+   * Keeps the leading columns in view when the table scrolls sideways (a tick box, the row's name):
+   * one class list per column giving its left offset and, but for the last, its fixed width
+   * (["left-0 w-8 min-w-8", "left-8"]).
+   */
+  stickyColumns?: readonly string[];
 }
+
+// A sticky cell needs a solid background of its own, the same as its row's, or the cells that
+// scroll under it would show through.
+const stickyCell = "sticky z-[1] bg-surface group-even:bg-paper group-hover:bg-dew-50 group-data-selected:bg-dew-50";
 
 export interface SortableColumn {
   getIsSorted: () => false | "asc" | "desc";
@@ -201,7 +213,13 @@ export function DataTable<Row extends RowData>({
   pageSizeOptions = PAGE_SIZE_OPTIONS,
   className,
   renderDetail,
+  density = "comfortable",
+  stickyColumns = [],
 }: DataTableProps<Row>) {
+  const compact = density === "compact";
+  const cellPad = compact ? "px-2 py-1" : "px-3 py-2";
+  const striped = stickyColumns.length > 0 ? "even:bg-paper" : "even:bg-paper/60";
+  const sticky = (index: number) => (index < stickyColumns.length ? cn(stickyCell, stickyColumns[index]) : undefined);
   const headerGroups = table.getHeaderGroups();
   const rows = table.getRowModel().rows;
   const columnCount = table.getVisibleLeafColumns().length;
@@ -239,13 +257,15 @@ export function DataTable<Row extends RowData>({
       return (
         <Fragment key={row.id}>
           <tr
+            data-selected={row.getIsSelected() || undefined}
             className={cn(
-              "border-t border-line even:bg-paper/60 hover:bg-dew-50",
+              "group border-t border-line hover:bg-dew-50",
+              striped,
               row.getIsSelected() && "bg-dew-50 even:bg-dew-50",
             )}
           >
-            {row.getVisibleCells().map((cell) => (
-              <td key={cell.id} className="px-3 py-2 align-top">
+            {row.getVisibleCells().map((cell, index) => (
+              <td key={cell.id} className={cn(cellPad, compact ? "align-middle" : "align-top", sticky(index))}>
                 <table.FlexRender cell={cell} />
               </td>
             ))}
@@ -276,13 +296,17 @@ export function DataTable<Row extends RowData>({
           <thead className="bg-dew-50 text-ink">
             {headerGroups.map((group) => (
               <tr key={group.id}>
-                {group.headers.map((header) => (
+                {group.headers.map((header, index) => (
                   <th
                     key={header.id}
                     scope="col"
                     colSpan={header.colSpan}
                     aria-sort={header.isPlaceholder ? undefined : ariaSort(header.column)}
-                    className="border-b border-line-strong px-3 py-2 font-bold whitespace-nowrap"
+                    className={cn(
+                      "border-b border-line-strong font-bold whitespace-nowrap",
+                      cellPad,
+                      index < stickyColumns.length && cn("sticky z-[1] bg-dew-50", stickyColumns[index]),
+                    )}
                   >
                     {header.isPlaceholder ? null : <table.FlexRender header={header} />}
                   </th>

@@ -77,8 +77,11 @@ export const sourceLabels: Record<string, string> = {
   import: "Logger file",
 };
 
-/** What the readings over time point to (the engine's diagnosis kinds), said about the home. */
-export const diagnosisLabels: Record<string, { title: string; note?: string }> = {
+/**
+ * What the readings over time point to (the engine's diagnosis kinds), said about the home.
+ * `staffNote` replaces `note` on staff screens, where the tenant-facing promise reads wrongly.
+ */
+export const diagnosisLabels: Record<string, { title: string; note?: string; staffNote?: string }> = {
   "ventilation-or-moisture-load": { title: "The air indoors holds a lot of moisture for the ventilation the room has" },
   "cold-surface": { title: "A surface in this room runs colder than it should" },
   "likely-not-condensation": {
@@ -88,6 +91,8 @@ export const diagnosisLabels: Record<string, { title: string; note?: string }> =
   "no-risk-found": {
     title: "These readings didn't show condensation or mould-growth conditions",
     note: "Damp comes and goes with the weather, and some causes don't show in readings. Your landlord will still look into your report.",
+    staffNote:
+      "Damp comes and goes with the weather, and some causes don't show in readings: investigate the report whatever they show.",
   },
   "insufficient-data": {
     title: "Not enough readings yet to see a pattern",

@@ -1,6 +1,7 @@
 import { useQueryClient, type QueryClient } from "@tanstack/react-query";
-import { useMemo } from "react";
-import { Link, useParams, type LoaderFunctionArgs } from "react-router-dom";
+import { useMemo, type ReactNode } from "react";
+import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from "react-router-dom";
+import { STATE_LABELS } from "@/components/risk/state-labels";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
@@ -37,6 +38,9 @@ import { usePolicy } from "@/features/policy/api/get-policy";
 import { DiagnosisHints } from "@/features/case-workspace/components/diagnosis-hints";
 import { InspectionForm, InspectionList } from "@/features/case-workspace/components/inspection-section";
 import { CaseConversation } from "@/features/conversation/components/case-conversation";
+import { OnDemand } from "@/features/case-workspace/components/on-demand";
+import { WorkspaceTabs } from "@/features/case-workspace/components/workspace-tabs";
+import { worstSurfaceState } from "@/features/case-workspace/lib/risk";
 import { QueryState } from "@/features/case-workspace/components/query-state";
 import { RelatedCases } from "@/features/case-workspace/components/related-cases";
 import { SummarySection } from "@/features/case-workspace/components/summary-section";
@@ -98,28 +102,27 @@ function CaseNotFound({ message }: { message?: string }) {
   );
 }
 
-const SECTIONS = [
-  ["case-actions", "Actions"],
-  ["case-deadlines", "Deadlines"],
-  ["case-triage", "Triage priority"],
-  ["case-related", "Other cases"],
-  ["case-report", "Report"],
-  ["case-photos", "Photos"],
-  ["case-readings", "Readings"],
-  ["case-inspections", "Inspections"],
-  ["case-hhsrs", "HHSRS"],
-  ["case-summary", "Written summary"],
-  ["case-works", "Works"],
-  ["case-verification", "Did the fix work?"],
-  ["case-messages", "Messages"],
-  ["case-timeline", "Timeline"],
+/** The workspace's tabs, in the order the work usually goes; the chosen one is in the link (?tab=…). */
+const TABS = [
+  ["overview", "Overview"],
+  ["readings", "Readings"],
+  ["inspection", "Inspection and assessment"],
+  ["letters", "Letters and messages"],
+  ["works", "Works"],
+  ["timeline", "Timeline"],
 ] as const;
+type TabId = (typeof TABS)[number][0];
+const isTab = (value: string | null): value is TabId => TABS.some(([id]) => id === value);
 
 function Workspace({ id }: { id: number }) {
   const user = useUser();
   const kase = useCase(id);
   const staff = useStaff();
   const policy = usePolicy();
+  const evaluation = useCaseEvaluation(id);
+  const [searchParams, setSearchParams] = useSearchParams();
+  const requested = searchParams.get("tab");
+  const tab: TabId = isTab(requested) ? requested : "overview";
   const nameOf = useMemo(
     () => (userId: number) => (userId === user.id ? `${user.name} (you)` : staffName(staff.data, userId)),
     [staff.data, user],
@@ -141,27 +144,27 @@ function Workspace({ id }: { id: number }) {
   }
   const c = kase.data;
   const officer = canAct(user.role);
+  const worst = evaluation.data ? worstSurfaceState(evaluation.data) : null;
+  const chooseTab = (next: TabId) =>
+    setSearchParams(
+      (prev) => {
+        const params = new URLSearchParams(prev);
+        if (next === "overview") params.delete("tab");
+        else params.set("tab", next);
+        return params;
+      },
+      { replace: true },
+    );
 
-  return (
-    <>
-      <title>{`${workspaceTitle(c)} · Dewline`}</title>
-      <CaseHeader c={c} status={<StatusBadge status={c.status} audience="staff" />} />
-      <nav aria-label="On this page" className="mb-5">
-        <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm">
-          {SECTIONS.map(([anchor, label]) => (
-            <li key={anchor}>
-              <a href={`#${anchor}`} className="font-semibold text-dew-700 underline underline-offset-2 hover:text-dew-900">
-                {label}
-              </a>
-            </li>
-          ))}
-        </ul>
-      </nav>
-      <div className="flex flex-col gap-5">
+  const content: Record<TabId, ReactNode> = {
+    overview: (
+      <>
         <div className="grid grid-cols-1 items-start gap-5 xl:grid-cols-2">
-          <ActionsPanel c={c} statusLabel={statusLabelFor("staff")} me={user} canAct={officer} />
           <div className="flex min-w-0 flex-col gap-5">
+            <ActionsPanel c={c} statusLabel={statusLabelFor("staff")} me={user} canAct={officer} />
             <DeadlinesPanel caseId={id} policySource={policy.data?.source} />
+          </div>
+          <div className="flex min-w-0 flex-col gap-5">
             <TriagePanel caseId={id} />
             <Panel title="Other cases at this home" id="case-related">
               <RelatedCases caseId={id} Status={StaffStatusBadge} />
@@ -186,17 +189,27 @@ function Workspace({ id }: { id: number }) {
           />
         </Panel>
         <PhotosPanel id={id} />
+      </>
+    ),
+    readings: (
+      <>
         <ReadingsPanel c={c} />
         <EvaluationPanels id={id} />
+      </>
+    ),
+    inspection: (
+      <>
         <Panel title="Inspections" id="case-inspections">
           <div className="flex flex-col gap-5">
             {officer ? (
-              <section aria-labelledby="case-inspection-form-heading" className="flex flex-col gap-3">
-                <h3 id="case-inspection-form-heading" className="text-lg font-bold">
-                  Record an inspection
-                </h3>
-                <InspectionForm caseId={id} rooms={c.homeRooms} photoUpload={<InspectionPhotos caseId={id} />} />
-              </section>
+              <OnDemand openLabel="Record an inspection">
+                <section aria-labelledby="case-inspection-form-heading" className="flex flex-col gap-3">
+                  <h3 id="case-inspection-form-heading" className="text-lg font-bold">
+                    Record an inspection
+                  </h3>
+                  <InspectionForm caseId={id} rooms={c.homeRooms} photoUpload={<InspectionPhotos caseId={id} />} />
+                </section>
+              </OnDemand>
             ) : null}
             <section aria-labelledby="case-inspection-list-heading" className="flex flex-col gap-3">
               <h3 id="case-inspection-list-heading" className="text-lg font-bold">
@@ -212,12 +225,14 @@ function Workspace({ id }: { id: number }) {
               Hazard 1, damp and mould growth. The server works out the score, band and Category.
             </p>
             {officer ? (
-              <section aria-labelledby="case-hhsrs-form-heading" className="flex flex-col gap-3">
-                <h3 id="case-hhsrs-form-heading" className="text-lg font-bold">
-                  New assessment
-                </h3>
-                <AssessmentForm caseId={id} />
-              </section>
+              <OnDemand openLabel="New assessment">
+                <section aria-labelledby="case-hhsrs-form-heading" className="flex flex-col gap-3">
+                  <h3 id="case-hhsrs-form-heading" className="text-lg font-bold">
+                    New assessment
+                  </h3>
+                  <AssessmentForm caseId={id} />
+                </section>
+              </OnDemand>
             ) : null}
             <section aria-labelledby="case-hhsrs-versions-heading" className="flex flex-col gap-3">
               <h3 id="case-hhsrs-versions-heading" className="text-lg font-bold">
@@ -227,18 +242,48 @@ function Workspace({ id }: { id: number }) {
             </section>
           </div>
         </Panel>
+      </>
+    ),
+    letters: (
+      <>
         <Panel title="Written summary" id="case-summary">
-          <SummarySection c={c} sender={sender} canSend={officer} />
-        </Panel>
-        <WorksPanel c={c} role={user.role} />
-        <Panel title="Did the fix work?" id="case-verification">
-          <VerificationSection caseId={id} caseStatus={c.status} canDecide={canManageWorks(user.role)} />
+          <OnDemand
+            openLabel={officer ? "Write the written summary" : "Read the draft of the written summary"}
+            description="The letter to the tenant after the inspection: what was found, what will be done and by when."
+          >
+            <SummarySection c={c} sender={sender} canSend={officer} />
+          </OnDemand>
         </Panel>
         <Panel title="Messages and notes" id="case-messages">
           <CaseConversation caseId={id} viewer="staff" />
         </Panel>
-        <TimelinePanel c={c} staffNames={staff.data} />
-      </div>
+      </>
+    ),
+    works: (
+      <>
+        <WorksPanel c={c} role={user.role} />
+        <Panel title="Did the fix work?" id="case-verification">
+          <VerificationSection caseId={id} caseStatus={c.status} canDecide={canManageWorks(user.role)} />
+        </Panel>
+      </>
+    ),
+    timeline: <TimelinePanel c={c} staffNames={staff.data} />,
+  };
+
+  return (
+    <>
+      <title>{`${workspaceTitle(c)} · Dewline`}</title>
+      <CaseHeader
+        c={c}
+        status={<StatusBadge status={c.status} audience="staff" />}
+        risk={worst ? STATE_LABELS[worst].label : undefined}
+      />
+      <WorkspaceTabs
+        label="Parts of the case"
+        tabs={TABS.map(([tabId, label]) => ({ id: tabId, label, content: content[tabId] }))}
+        active={tab}
+        onChange={chooseTab}
+      />
     </>
   );
 }
@@ -280,12 +325,14 @@ function WorksPanel({ c, role }: { c: CaseDto; role: Role }) {
     <Panel title="Works" id="case-works">
       <div className="flex flex-col gap-5">
         {canOrderWorks(role) ? (
-          <section aria-labelledby="case-works-form-heading" className="flex flex-col gap-3">
-            <h3 id="case-works-form-heading" className="text-lg font-bold">
-              New work order
-            </h3>
-            <NewWorkOrderForm caseId={c.id} rooms={c.homeRooms} safetyWorkDueAt={safetyWork} />
-          </section>
+          <OnDemand openLabel="New work order">
+            <section aria-labelledby="case-works-form-heading" className="flex flex-col gap-3">
+              <h3 id="case-works-form-heading" className="text-lg font-bold">
+                New work order
+              </h3>
+              <NewWorkOrderForm caseId={c.id} rooms={c.homeRooms} safetyWorkDueAt={safetyWork} />
+            </section>
+          </OnDemand>
         ) : null}
         <section aria-labelledby="case-works-list-heading" className="flex flex-col gap-3">
           <h3 id="case-works-list-heading" className="text-lg font-bold">

@@ -13,14 +13,14 @@ import { CaseQueueTable } from "@/features/queue/components/case-queue-table";
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
-    if (await signedInAs(queryClient, ["officer"])) {
+    if (await signedInAs(queryClient, ["officer", "admin"])) {
       prefetchCaseQueue(queryClient, request.url);
       void queryClient.prefetchQuery(estatesQueryOptions());
     }
     return null;
   };
 
-const renderStatus = (status: string) => <StatusBadge status={status} audience="staff" className="whitespace-nowrap" />;
+const renderStatus = (status: string) => <StatusBadge status={status} audience="staff" className="py-0 whitespace-nowrap" />;
 
 export default function CaseQueuePage() {
   const estates = useEstates();
@@ -29,7 +29,8 @@ export default function CaseQueuePage() {
       <title>Case queue · Dewline</title>
       <PageHeader
         title="Case queue"
-        description="Reports from tenants, most urgent first. Filter, sort and share the view: it is all in the link."
+        description="Reports of damp and mould, most urgent first. Filters, sort and columns are kept in the link."
+        className="mb-3"
         actions={
           <Link to="/log-report" className={buttonClasses("primary")}>
             Log a report

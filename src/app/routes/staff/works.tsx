@@ -11,7 +11,7 @@ import { WorkOrdersTable } from "@/features/work-orders/components/work-orders-t
 export const clientLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
-    if (await signedInAs(queryClient, ["maintenance"])) prefetchWorks(queryClient, request.url);
+    if (await signedInAs(queryClient, ["maintenance", "admin"])) prefetchWorks(queryClient, request.url);
     return null;
   };
 

@@ -4,6 +4,7 @@ import { Link, useLocation, useNavigate, useParams, type LoaderFunctionArgs } fr
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
+import { CollapsibleSection } from "@/components/ui/collapsible-section";
 import { LoadingState } from "@/components/ui/spinner";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
@@ -22,6 +23,7 @@ import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
 import { tenantStage } from "@/features/cases/labels";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
+import { LandlordMessages } from "@/features/cases/components/landlord-messages";
 import { CaseConversation } from "@/features/conversation/components/case-conversation";
 import { AddPhotos } from "@/features/report/components/add-photos";
 import { AddReadings } from "@/features/report/components/add-readings";
@@ -86,6 +88,7 @@ function CaseView({ id }: { id: number }) {
   // The tenant's stage moves with the work: the written summary shows once it has been sent.
   const summarySent = useCaseEvents(id).data?.some((e) => e.type === "summary-sent") ?? false;
   const refresh = () => void queryClient.invalidateQueries({ queryKey: caseKeys.detail(id) });
+  const hash = location.hash;
 
   if (kase.isPending) return <LoadingState>Loading your report…</LoadingState>;
   if (kase.isError) {
@@ -130,12 +133,13 @@ function CaseView({ id }: { id: number }) {
         <ReportFollowUp caseId={id} rooms={c.homeRooms} onChanged={refresh} />
         <NextSteps c={c} summarySent={summarySent} onChanged={refresh} />
         <TenantRepairs caseId={id} caseStatus={c.status} readingsHref="#case-next" />
-        <EvaluationPanel id={id} />
         <MessagesPanel id={id} />
-        <TimelinePanel c={c} />
-        <PhotosPanel id={id} />
-        <ReadingsPanel c={c} />
-        <Panel title="What you told us" id="case-answers">
+        {/* The rest, one press away under plain headings; a link to a section (#case-readings) opens it. */}
+        <EvaluationPanel id={id} open={Boolean(justSent) || hash === "#case-evaluation"} />
+        <ReadingsPanel c={c} open={hash === "#case-readings"} />
+        <PhotosPanel id={id} open={hash === "#case-photos"} />
+        <TimelinePanel c={c} open={hash === "#case-timeline"} />
+        <CollapsibleSection id="case-answers" title="What you told us" defaultOpen={hash === "#case-answers"}>
           <ReportSummary
             sentAt={c.createdAt}
             answers={{
@@ -149,7 +153,7 @@ function CaseView({ id }: { id: number }) {
               equipment: c.equipment,
             }}
           />
-        </Panel>
+        </CollapsibleSection>
       </div>
     </>
   );
@@ -242,10 +246,15 @@ function ActionPanel({ id, title, headingRef, onClose, children }: ActionPanelPr
   );
 }
 
-function EvaluationPanel({ id }: { id: number }) {
+function EvaluationPanel({ id, open }: { id: number; open: boolean }) {
   const evaluation = useCaseEvaluation(id);
   return (
-    <Panel title="What your readings show" id="case-evaluation">
+    <CollapsibleSection
+      id="case-evaluation"
+      title="What your readings show"
+      summary="What the readings say about condensation and mould, with advice on staying safe."
+      defaultOpen={open}
+    >
       {evaluation.isPending ? (
         <LoadingState>Working out what the readings show…</LoadingState>
       ) : evaluation.isError ? (
@@ -255,22 +264,43 @@ function EvaluationPanel({ id }: { id: number }) {
       ) : (
         <CaseEvaluationView evaluation={evaluation.data} emptyHint="you can add some with “Add readings” above." />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }
 
+/**
+ * The latest message or letter (the written summary) from the landlord first, earlier ones on request;
+ * then the conversation, where the tenant writes back.
+ */
 function MessagesPanel({ id }: { id: number }) {
+  const events = useCaseEvents(id);
   return (
-    <Panel title="Messages with your landlord" id="case-messages">
-      <CaseConversation caseId={id} viewer="tenant" />
-    </Panel>
+    <>
+      <Panel title="Latest from your landlord" id="case-latest">
+        {events.isPending ? (
+          <LoadingState>Loading messages…</LoadingState>
+        ) : events.isError ? (
+          <Alert tone="warning">{errorMessage(events.error)}</Alert>
+        ) : (
+          <LandlordMessages events={events.data} showFirst={1} />
+        )}
+      </Panel>
+      <Panel title="Messages with your landlord" id="case-messages">
+        <CaseConversation caseId={id} viewer="tenant" />
+      </Panel>
+    </>
   );
 }
 
-function TimelinePanel({ c }: { c: CaseDto }) {
+function TimelinePanel({ c, open }: { c: CaseDto; open: boolean }) {
   const events = useCaseEvents(c.id);
   return (
-    <Panel title="What has happened so far" id="case-timeline">
+    <CollapsibleSection
+      id="case-timeline"
+      title="What has happened so far"
+      summary="Every step of your report, newest first."
+      defaultOpen={open}
+    >
       {events.isPending ? (
         <LoadingState>Loading what has happened…</LoadingState>
       ) : events.isError ? (
@@ -278,14 +308,20 @@ function TimelinePanel({ c }: { c: CaseDto }) {
       ) : (
         <CaseTimeline events={events.data} rooms={c.homeRooms} />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }
 
-function PhotosPanel({ id }: { id: number }) {
+function PhotosPanel({ id, open }: { id: number; open: boolean }) {
   const photos = useCasePhotos(id);
+  const count = photos.data?.length;
   return (
-    <Panel title="Photos" id="case-photos">
+    <CollapsibleSection
+      id="case-photos"
+      title="Photos"
+      summary={count === undefined ? undefined : count === 0 ? "No photos yet." : count === 1 ? "1 photo." : `${count} photos.`}
+      defaultOpen={open}
+    >
       {photos.isPending ? (
         <LoadingState>Loading photos…</LoadingState>
       ) : photos.isError ? (
@@ -293,14 +329,26 @@ function PhotosPanel({ id }: { id: number }) {
       ) : (
         <PhotoGallery photos={photos.data} emptyText="No photos yet" />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }
 
-function ReadingsPanel({ c }: { c: CaseDto }) {
+function ReadingsPanel({ c, open }: { c: CaseDto; open: boolean }) {
   const readings = useCaseReadings(c.id);
+  const count = readings.data?.length;
   return (
-    <Panel title="Readings" id="case-readings">
+    <CollapsibleSection
+      id="case-readings"
+      title="Readings"
+      summary={
+        count === undefined
+          ? undefined
+          : count === 0
+            ? "No readings yet."
+            : `${count.toLocaleString("en-GB")} ${count === 1 ? "reading" : "readings"}, with a chart.`
+      }
+      defaultOpen={open}
+    >
       {readings.isPending ? (
         <LoadingState>Loading readings…</LoadingState>
       ) : readings.isError ? (
@@ -308,6 +356,6 @@ function ReadingsPanel({ c }: { c: CaseDto }) {
       ) : (
         <ReadingsSection readings={readings.data} rooms={c.homeRooms} />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }

@@ -13,6 +13,7 @@ import type { HazardClass, WorkspaceCase } from "../api/types";
 import { useUpdateCase } from "../api/update-case";
 import { HAZARD_CLASS_CHOICES, hazardClassLabel } from "../lib/labels";
 import { RadioGroup } from "@/components/ui/option-radio-group";
+import { OnDemand } from "./on-demand";
 
 const isCaseStatus = (s: string): s is CaseStatus => (CASE_STATUSES as readonly string[]).includes(s);
 
@@ -47,10 +48,16 @@ export function ActionsPanel({ c, statusLabel, me, canAct }: ActionsPanelProps) 
   }
   return (
     <Panel title="Actions" id="case-actions">
-      <div className="flex flex-col gap-6">
-        <StatusForm c={c} statusLabel={statusLabel} />
-        <AssignForm c={c} me={me} />
-        <HazardForm c={c} />
+      <div className="flex flex-col gap-3">
+        <OnDemand openLabel="Change the status">
+          <StatusForm c={c} statusLabel={statusLabel} />
+        </OnDemand>
+        <OnDemand openLabel="Assign the case">
+          <AssignForm c={c} me={me} />
+        </OnDemand>
+        <OnDemand openLabel="Classify the hazard">
+          <HazardForm c={c} />
+        </OnDemand>
       </div>
     </Panel>
   );

@@ -25,18 +25,24 @@ export function CaseEvaluationView({ evaluation, emptyHint, audience = "tenant" 
   return (
     <div className="flex flex-col gap-5">
       {audience === "tenant" ? <ReportStillMatters /> : null}
-      {evaluation.statement ? <p className="font-semibold">{evaluation.statement}</p> : null}
+      {audience === "tenant" && evaluation.statement ? <p className="font-semibold">{evaluation.statement}</p> : null}
       {evaluation.rooms.length === 0 ? (
         <p className="text-ink-soft">No readings yet. Readings are optional{emptyHint ? `: ${emptyHint}` : "."}</p>
       ) : (
-        evaluation.rooms.map((room) => <RoomResult key={room.roomId} room={room} />)
+        evaluation.rooms.map((room) => <RoomResult key={room.roomId} room={room} audience={audience} />)
       )}
-      <SafetyCautions headingLevel={3} />
+      {audience === "tenant" ? (
+        <SafetyCautions headingLevel={3} />
+      ) : (
+        <p className="text-sm text-ink-soft">
+          The tenant sees these results on their case page with the safety cautions about cleaning mould, heating and ventilation.
+        </p>
+      )}
     </div>
   );
 }
 
-function RoomResult({ room }: { room: RoomEvaluation }) {
+function RoomResult({ room, audience }: { room: RoomEvaluation; audience: "tenant" | "staff" }) {
   const id = useId();
   const latest = room.latest;
   const series = room.series;
@@ -95,7 +101,7 @@ function RoomResult({ room }: { room: RoomEvaluation }) {
               <li key={reason}>{reason}</li>
             ))}
           </ul>
-          {kind.note ? <p>{kind.note}</p> : null}
+          {audience === "staff" && kind.staffNote ? <p>{kind.staffNote}</p> : kind.note ? <p>{kind.note}</p> : null}
         </div>
       ) : null}
     </section>

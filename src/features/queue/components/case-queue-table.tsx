@@ -24,6 +24,8 @@ import { QueueFilters } from "./queue-filters";
 import { queueColumns } from "./queue-columns";
 
 const noRows: QueueItem[] = [];
+/** The tick box (a fixed 2 rem) and the reference stay in view when the table scrolls sideways. */
+const STICKY_COLUMNS = ["left-0 w-8 min-w-8", "left-8"] as const;
 
 /** "works-planned" → "Works planned", for a page that does not pass its own words. */
 const plainStatus = (status: string) => {
@@ -157,18 +159,21 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
   }
 
   return (
-    <div className="flex flex-col gap-4">
-      <QueueFilters view={view} statusLabel={statusLabel} estates={estates} staff={staff.data} />
+    <div className="flex flex-col gap-3">
+      <QueueFilters
+        view={view}
+        statusLabel={statusLabel}
+        estates={estates}
+        staff={staff.data}
+        aside={<ColumnMenu table={table} onShowAll={() => view.setHidden([])} onReset={view.resetColumns} />}
+      />
 
-      <div className="flex flex-wrap items-end justify-between gap-3">
-        <BulkBar
-          count={selected.length}
-          onAssign={() => openDialog("assign")}
-          onStatus={() => openDialog("status")}
-          onClear={() => setRowSelection({})}
-        />
-        <ColumnMenu table={table} onShowAll={() => view.setHidden([])} />
-      </div>
+      <BulkBar
+        count={selected.length}
+        onAssign={() => openDialog("assign")}
+        onStatus={() => openDialog("status")}
+        onClear={() => setRowSelection({})}
+      />
 
       {outcome ? <BulkResult outcome={outcome} onDismiss={() => setOutcome(null)} /> : null}
 
@@ -177,6 +182,8 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
         caption="Case queue"
         hideCaption
         noun={{ one: "case", many: "cases" }}
+        density="compact"
+        stickyColumns={STICKY_COLUMNS}
         loading={queue.isPending}
         fetching={queue.isFetching && !queue.isPending}
         error={

@@ -1,14 +1,25 @@
 import { Button } from "@/components/ui/button";
 import type { DataTableInstance } from "@/components/ui/data-table";
 import type { QueueItem } from "../api/types";
-import type { QueueSort } from "../lib/queue-view";
+import { DEFAULT_SHOWN_COLUMNS, type QueueSort } from "../lib/queue-view";
 import { FilterPopover } from "./filter-popover";
 import { COLUMN_LABELS } from "./queue-columns";
 
-/** Show or hide columns; the choice is kept in the URL (hide=…) by the table's visibility state. */
-export function ColumnMenu({ table, onShowAll }: { table: DataTableInstance<QueueItem>; onShowAll: () => void }) {
+interface ColumnMenuProps {
+  table: DataTableInstance<QueueItem>;
+  onShowAll: () => void;
+  /** Back to the usual columns. */
+  onReset: () => void;
+}
+
+/**
+ * Show or hide columns. The usual ones fit a laptop screen; the choice is kept in the link (cols=…)
+ * and in this browser for the next visit.
+ */
+export function ColumnMenu({ table, onShowAll, onReset }: ColumnMenuProps) {
   const hideable = table.getAllLeafColumns().filter((c) => c.getCanHide());
   const hiddenCount = hideable.filter((c) => !c.getIsVisible()).length;
+  const usual = hideable.every((c) => c.getIsVisible() === (DEFAULT_SHOWN_COLUMNS as readonly string[]).includes(c.id));
   return (
     <FilterPopover label="Columns" summary={hiddenCount === 0 ? "All shown" : `${hiddenCount} hidden`} align="end">
       <fieldset className="flex flex-col gap-1">
@@ -25,9 +36,15 @@ export function ColumnMenu({ table, onShowAll }: { table: DataTableInstance<Queu
           </label>
         ))}
       </fieldset>
-      <Button size="sm" variant="secondary" onClick={onShowAll} disabled={hiddenCount === 0}>
-        Show all columns
-      </Button>
+      <div className="flex flex-wrap gap-2">
+        <Button size="sm" variant="secondary" onClick={onReset} disabled={usual}>
+          Usual columns
+        </Button>
+        <Button size="sm" variant="secondary" onClick={onShowAll} disabled={hiddenCount === 0}>
+          Show all columns
+        </Button>
+      </div>
+      <p className="text-xs text-ink-soft">More columns may make the table scroll sideways.</p>
     </FilterPopover>
   );
 }

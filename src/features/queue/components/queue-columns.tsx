@@ -11,7 +11,7 @@ import { TimeLeftText } from "./time-left";
 /** The heading of each data column; the column ids are the API's sort keys. */
 export const COLUMN_LABELS: Record<QueueSort, string> = {
   reference: "Reference",
-  address: "Address",
+  address: "Home",
   estate: "Estate and block",
   rooms: "Rooms",
   awareAt: "Reported",
@@ -51,7 +51,7 @@ function Checkbox({
       aria-label={label}
       checked={checked}
       onChange={(e) => onChange(e.target.checked)}
-      className="size-4 accent-dew-700"
+      className="block size-4 accent-dew-700"
     />
   );
 }
@@ -74,6 +74,7 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
   });
 
   return column.columns([
+    // The tick box and the reference stay in view when the table scrolls sideways (DataTable's stickyColumns).
     column.display({
       id: "select",
       enableSorting: false,
@@ -103,23 +104,64 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
         </TextLink>
       ),
     }),
-    column.accessor((r) => r.property.addressLine1, {
-      ...sortable("address"),
-      cell: ({ row }) => (
-        <span className="block min-w-40">
-          <TextLink to={`/homes/${row.original.property.id}`}>{row.original.property.addressLine1}</TextLink>
-          <span className="block text-ink-soft">
-            {row.original.property.town}, <span className="whitespace-nowrap">{row.original.property.postcode}</span>
-          </span>
+    column.accessor((r) => r.priority, {
+      ...sortable("priority"),
+      cell: (info) => (
+        <span className="font-semibold whitespace-nowrap tabular-nums">
+          {info.getValue()}
+          <span className="font-normal text-ink-soft"> / 100</span>
         </span>
       ),
+    }),
+    column.accessor((r) => r.property.addressLine1, {
+      ...sortable("address"),
+      // One line, cut short with an ellipsis when the column is narrow; the whole address is its title.
+      cell: ({ row }) => {
+        const p = row.original.property;
+        return (
+          <span className="block max-w-80 min-w-32 truncate" title={`${p.addressLine1}, ${p.town}, ${p.postcode}`}>
+            <TextLink to={`/homes/${p.id}`} className="font-semibold">
+              {p.addressLine1}
+            </TextLink>
+            <span className="text-ink-soft">, {p.postcode}</span>
+          </span>
+        );
+      },
+    }),
+    column.accessor((r) => r.riskState ?? "unknown", {
+      ...sortable("risk"),
+      cell: ({ row }) =>
+        row.original.riskState ? (
+          <span className="font-semibold whitespace-nowrap">{riskLabels[row.original.riskState]}</span>
+        ) : (
+          <Missing>{riskLabels.unknown}</Missing>
+        ),
+    }),
+    column.accessor((r) => r.nextDeadline?.dueAt ?? "", {
+      ...sortable("due"),
+      cell: ({ row }) => {
+        const next = row.original.nextDeadline;
+        if (!next) return <Missing>No deadline running</Missing>;
+        return (
+          <span className="flex items-center gap-x-2 whitespace-nowrap">
+            <TimeLeftText dueAt={next.dueAt} overdue={row.original.overdue} now={now} />
+            <span className="text-ink-soft">
+              {labelFor(deadlineStageLabels, next.stage)}, <time dateTime={next.dueAt}>{formatDayTimeZoned(next.dueAt)}</time>
+            </span>
+          </span>
+        );
+      },
+    }),
+    column.accessor((r) => String(r.status), {
+      ...sortable("status"),
+      cell: (info) => renderStatus(info.getValue()),
     }),
     column.accessor((r) => r.property.estate, {
       ...sortable("estate"),
       cell: ({ row }) => (
-        <span>
+        <span className="whitespace-nowrap">
           {row.original.property.estate}
-          {row.original.property.block ? <span className="block text-ink-soft">{row.original.property.block}</span> : null}
+          {row.original.property.block ? <span className="text-ink-soft">, {row.original.property.block}</span> : null}
         </span>
       ),
     }),
@@ -127,13 +169,7 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
       ...sortable("rooms"),
       cell: ({ row }) =>
         row.original.rooms.length ? (
-          <span className="flex flex-col">
-            {row.original.rooms.map((room) => (
-              <span key={room.id} className="whitespace-nowrap">
-                {room.name}
-              </span>
-            ))}
-          </span>
+          <span className="whitespace-nowrap">{row.original.rooms.map((room) => room.name).join(", ")}</span>
         ) : (
           <Missing>Not given</Missing>
         ),
@@ -149,15 +185,6 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
     column.accessor((r) => r.channel, {
       ...sortable("channel"),
       cell: (info) => <span className="whitespace-nowrap">{labelFor(channelLabels, info.getValue())}</span>,
-    }),
-    column.accessor((r) => r.riskState ?? "unknown", {
-      ...sortable("risk"),
-      cell: ({ row }) =>
-        row.original.riskState ? (
-          <span className="font-semibold whitespace-nowrap">{riskLabels[row.original.riskState]}</span>
-        ) : (
-          <Missing>{riskLabels.unknown}</Missing>
-        ),
     }),
     column.accessor((r) => r.mouldIndex ?? -1, {
       ...sortable("mouldIndex"),
@@ -176,7 +203,12 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
     }),
     column.accessor((r) => r.area ?? "", {
       ...sortable("area"),
-      cell: (info) => (info.getValue() ? labelFor(areaLabels, info.getValue()) : <Missing>Not given</Missing>),
+      cell: (info) =>
+        info.getValue() ? (
+          <span className="whitespace-nowrap">{labelFor(areaLabels, info.getValue())}</span>
+        ) : (
+          <Missing>Not given</Missing>
+        ),
     }),
     column.accessor((r) => (r.vulnerableHousehold ? 1 : 0), {
       ...sortable("vulnerable"),
@@ -198,42 +230,14 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
       cell: ({ row }) =>
         row.original.hhsrs ? (
           <span className="whitespace-nowrap">
-            Band {row.original.hhsrs.band}
-            <span className={cn("block", row.original.hhsrs.category === 1 ? "font-bold" : "text-ink-soft")}>
+            Band {row.original.hhsrs.band},{" "}
+            <span className={cn(row.original.hhsrs.category === 1 ? "font-bold" : "text-ink-soft")}>
               Category {row.original.hhsrs.category}
             </span>
           </span>
         ) : (
           <Missing>Not assessed</Missing>
         ),
-    }),
-    column.accessor((r) => r.priority, {
-      ...sortable("priority"),
-      cell: (info) => (
-        <span className="font-semibold whitespace-nowrap tabular-nums">
-          {info.getValue()}
-          <span className="font-normal text-ink-soft"> / 100</span>
-        </span>
-      ),
-    }),
-    column.accessor((r) => r.nextDeadline?.dueAt ?? "", {
-      ...sortable("due"),
-      cell: ({ row }) => {
-        const next = row.original.nextDeadline;
-        if (!next) return <Missing>No deadline running</Missing>;
-        return (
-          <span className="flex flex-col">
-            <span className="whitespace-nowrap">
-              {labelFor(deadlineStageLabels, next.stage)}, <time dateTime={next.dueAt}>{formatDayTimeZoned(next.dueAt)}</time>
-            </span>
-            <TimeLeftText dueAt={next.dueAt} overdue={row.original.overdue} now={now} />
-          </span>
-        );
-      },
-    }),
-    column.accessor((r) => String(r.status), {
-      ...sortable("status"),
-      cell: (info) => renderStatus(info.getValue()),
     }),
     column.accessor((r) => r.assignee?.name ?? "", {
       ...sortable("assignee"),

@@ -44,10 +44,12 @@ interface QueueFiltersProps {
   statusLabel: (status: string) => string;
   estates: readonly string[] | undefined;
   staff: readonly StaffMember[] | undefined;
+  /** Shown at the end of the search row (the column menu), so the table starts higher up. */
+  aside?: ReactNode;
 }
 
 /** Every filter of the queue, each with a visible label; every change goes to the URL. */
-export function QueueFilters({ view, statusLabel, estates, staff }: QueueFiltersProps) {
+export function QueueFilters({ view, statusLabel, estates, staff, aside }: QueueFiltersProps) {
   const { params, filtered } = view;
   const status = normaliseStatus(params.status);
   const statusSummary = status === "open" ? "Open cases" : status === "all" ? "All statuses" : summarise(status, statusLabel);
@@ -70,6 +72,7 @@ export function QueueFilters({ view, statusLabel, estates, staff }: QueueFilters
           onSearch={view.setSearch}
           className="min-w-64 flex-1"
         />
+        {aside}
       </div>
       <div className="flex flex-wrap items-end gap-3">
         <FilterPopover label="Status" summary={statusSummary}>

@@ -1,4 +1,4 @@
-// The queue's whole view (filters, sort, page, hidden columns) as it is written in the URL, read
+// The queue's whole view (filters, sort, page, shown columns) as it is written in the URL, read
 // back from it and sent to GET /api/cases. Pure functions, so a link always opens the same view.
 import { CASE_STATUSES, type CaseStatus } from "@/lib/schemas/case-report";
 import { readPositiveInt, readString } from "@/lib/search-params";
@@ -33,6 +33,28 @@ export const defaultOrder = (sort: QueueSort): SortOrder => (sort === "priority"
 /** Every column that can be hidden; the selection box and the reference always show. */
 export const HIDEABLE_COLUMNS = QUEUE_SORTS.filter((id) => id !== "reference");
 export type HideableColumn = Exclude<QueueSort, "reference">;
+
+/**
+ * The columns shown until someone chooses others: what an officer needs to pick the next case, and
+ * narrow enough to fit a 1 280 px screen. The rest are one tick away in the column menu.
+ */
+export const DEFAULT_SHOWN_COLUMNS: readonly HideableColumn[] = ["priority", "address", "risk", "due", "status"];
+/** The URL's value for "no optional column at all" (an empty value would mean "not chosen"). */
+export const NO_COLUMNS = "none";
+
+/** Shown columns in their canonical order, for the URL: null when they are the default ones. */
+export function columnsParam(shown: readonly HideableColumn[]): string | null {
+  const list = listParam(HIDEABLE_COLUMNS, shown);
+  if (list === listParam(HIDEABLE_COLUMNS, DEFAULT_SHOWN_COLUMNS)) return null;
+  return list ?? NO_COLUMNS;
+}
+
+/** A list of shown columns as written in the URL or kept in the browser; null when there is none. */
+export function readColumns(raw: string | null): HideableColumn[] | null {
+  if (raw === null) return null;
+  const given = new Set(raw.split(",").map((v) => v.trim()));
+  return HIDEABLE_COLUMNS.filter((c) => given.has(c));
+}
 
 export const QUEUE_RISKS = ["condensing", "mould-risk", "borderline", "dry", "unknown"] as const;
 export type QueueRisk = (typeof QUEUE_RISKS)[number];
@@ -73,7 +95,8 @@ export interface QueueListParams extends QueueFilters {
 
 export interface QueueView {
   params: QueueListParams;
-  hidden: HideableColumn[];
+  /** The optional columns the link shows (cols=…), or null when the link does not say. */
+  shown: HideableColumn[] | null;
 }
 
 export const DEFAULT_QUEUE_FILTERS: Readonly<QueueFilters> = Object.freeze({
@@ -183,7 +206,7 @@ export function queueViewFrom(params: URLSearchParams): QueueView {
       page: readPositiveInt(params, "page", 1),
       pageSize: readPositiveInt(params, "pageSize", QUEUE_DEFAULT_PAGE_SIZE, QUEUE_MAX_PAGE_SIZE),
     },
-    hidden: readList(params, "hide", HIDEABLE_COLUMNS),
+    shown: readColumns(params.get("cols")),
   };
 }
 
