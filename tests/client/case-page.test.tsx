@@ -234,7 +234,7 @@ describe("case page", () => {
 
   it("lets the tenant write to the landlord, checking the message and each photo first", async () => {
     const { callsTo } = caseApi({
-      "POST /api/cases/42/photos": { status: 201, body: { photos: [photo(9)] } },
+      "POST /api/cases/42/photos": { status: 201, body: { photos: [photo(9)], refused: [] } },
       "POST /api/cases/42/messages": { status: 201, body: { ok: true, id: 20 } },
     });
     await openCase();
