@@ -219,7 +219,8 @@ describe("case page", () => {
     expect(within(timeline).getByText("2 rows of the file couldn't be read.")).toBeInTheDocument();
     expect(within(timeline).getByText("The status changed to “Being looked into”.")).toBeInTheDocument();
 
-    const messages = screen.getByRole("region", { name: "Messages with your landlord" });
+    // The conversation waits under its heading, one press away.
+    const messages = await openSection(user, "Messages with your landlord");
     expect(await within(messages).findByText("We will visit on Tuesday morning.")).toBeInTheDocument();
     expect(within(messages).getByText(/Priya Venn, Housing officer/)).toBeInTheDocument();
     expect(within(messages).getByText("1 new message from your landlord since you last looked.")).toBeInTheDocument();
@@ -238,8 +239,8 @@ describe("case page", () => {
       "POST /api/cases/42/messages": { status: 201, body: { ok: true, id: 20 } },
     });
     await openCase();
-    const panel = screen.getByRole("region", { name: "Messages with your landlord" });
     const user = userEvent.setup({ applyAccept: false });
+    const panel = await openSection(user, "Messages with your landlord");
     await user.click(within(panel).getByRole("button", { name: "Send to your landlord" }));
     expect(within(panel).getByText("Write the message.")).toBeInTheDocument();
     expect(within(panel).getByLabelText("Write to your landlord")).toHaveFocus();
@@ -268,7 +269,7 @@ describe("case page", () => {
   it("says so kindly when there are no messages yet", async () => {
     caseApi({ "GET /api/cases/42/messages": { body: { messages: [], unread: 0, readUpTo: null } } });
     await openCase();
-    const messages = screen.getByRole("region", { name: "Messages with your landlord" });
+    const messages = await openSection(userEvent.setup(), "Messages with your landlord");
     expect(await within(messages).findByText("No messages yet")).toBeInTheDocument();
   });
 

@@ -142,7 +142,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])("at the %s size", (size)
 
     // The work was done today, ahead of the booking (a cancellation freed Dale): the day and the reason are recorded.
     await signIn(page, served.url, "maintenance@example.org");
-    await page.goto(`${served.url}/cases/${caseId}`);
+    await page.goto(`${served.url}/cases/${caseId}?tab=works`);
     const works = page.locator("#case-works");
     const item = works.getByRole("listitem").filter({ has: page.getByRole("heading", { name: "Extractor fan: fit or repair" }) });
     await item.getByRole("button", { name: /^Record completion…/ }).click();

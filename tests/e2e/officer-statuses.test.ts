@@ -106,11 +106,13 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])("at %s size", (viewport)
     const c = await newReport();
     const { page, errors } = await openPage(viewport);
     await signIn(page, served.url, "officer@example.org");
-    await page.goto(`${served.url}/cases/${c.id}`);
+    await page.goto(`${served.url}/cases/${c.id}?tab=inspection`);
     await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toContain(c.reference);
-    const actions = page.locator("#case-actions");
-    await expect.poll(() => actions.innerText()).toMatch(/Now:\s*New/);
+    const summary = page.getByRole("region", { name: "Case summary" });
+    await expect.poll(() => summary.innerText()).toMatch(/Status:\s*New/);
     await expectAccessible(page);
+
+    await page.getByRole("button", { name: "Record an inspection" }).click();
 
     await page.getByRole("radio", { name: /^Condensation/ }).check();
     await page.getByRole("radio", { name: /^1 to 5 m²/ }).check();
@@ -123,7 +125,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])("at %s size", (viewport)
       .toBe(true);
 
     // No status was changed by hand: the case followed the inspection.
-    await expect.poll(() => actions.innerText()).toMatch(/Now:\s*Investigated/);
+    await expect.poll(() => summary.innerText()).toMatch(/Status:\s*Investigated/);
     const res = await officerApi.get(`/api/cases/${c.id}/events`).expect(200);
     const moves = (res.body.events as { type: string; before: { status: string }; after: { status: string } }[])
       .filter((e) => e.type === "status-changed")

@@ -70,7 +70,7 @@ describe.each(Object.entries(VIEWPORTS))("at the %s size", (size, viewport) => {
 
     // The tenant writes to the landlord, with a photo.
     await switchTo(page, errors, TENANT);
-    await page.goto(`${served.url}/cases/${id}`);
+    await page.goto(`${served.url}/cases/${id}#case-messages`);
     await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe(reference);
     const tenantPanel = messagesRegion(page, "Messages with your landlord");
     await tenantPanel.getByText("No messages yet").waitFor();
@@ -98,7 +98,7 @@ describe.each(Object.entries(VIEWPORTS))("at the %s size", (size, viewport) => {
 
     // The officer sees it as new on the case, and replies to the tenant.
     await switchTo(page, errors, OFFICER);
-    await page.goto(`${served.url}/cases/${id}`);
+    await page.goto(`${served.url}/cases/${id}?tab=letters`);
     await expect.poll(() => page.getByRole("heading", { level: 1 }).textContent()).toBe(reference);
     const staffPanel = messagesRegion(page, "Messages and notes");
     await staffPanel.getByText("1 new message from the tenant since you last looked.").waitFor();
@@ -138,7 +138,7 @@ describe.each(Object.entries(VIEWPORTS))("at the %s size", (size, viewport) => {
 
     // The officer sees that the tenant has read the reply.
     await switchTo(page, errors, OFFICER);
-    await page.goto(`${served.url}/cases/${id}`);
+    await page.goto(`${served.url}/cases/${id}?tab=letters`);
     await messagesRegion(page, "Messages and notes")
       .getByRole("article")
       .filter({ hasText: officerWords })

@@ -90,7 +90,8 @@ describe.each(Object.entries(VIEWPORTS))("the tenant's report at %s size", (name
     await expect.poll(() => page.getByText("condensing (the surface is below the dew point)").first().isVisible()).toBe(true);
     expect(await page.locator("main").innerText()).not.toMatch(OVER_100);
     expect(photoPosts).toHaveLength(1);
-    // The photo that went up shows on the case page.
+    // The photo that went up shows on the case page, under its heading.
+    await page.getByRole("button", { name: "Photos", exact: true }).click();
     const thumbs = page.locator("main img[src^='/api/photos/']");
     await expect.poll(() => thumbs.count()).toBeGreaterThanOrEqual(1);
     await thumbs.first().scrollIntoViewIfNeeded();

@@ -174,7 +174,6 @@ describe("the tenant's letters", () => {
     const ack = bodyOf(t.mail.mails.find((m) => m.subject === `We have your report ${c.reference}`)!.raw);
     expect(ack).toContain("emergency line straight away on 0800 555 0199.");
 
-    await officer.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(200);
     const marker = "<b>RAW-NOTE-7731</b> ext wall N/E cold; tenant v. upset";
     await officer
       .post(`/api/cases/${c.id}/inspections`, {
@@ -231,7 +230,6 @@ describe("the tenant's letters", () => {
 
   it("keeps one greeting when the officer writes their own", async () => {
     const c = (await tenant.post("/api/cases", report).expect(201)).body;
-    await officer.patch(`/api/cases/${c.id}`, { status: "triaged" }).expect(200);
     await officer
       .post(`/api/cases/${c.id}/inspections`, {
         inspectedAt: hoursAgo(1).toISOString(),

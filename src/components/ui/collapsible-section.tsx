@@ -30,6 +30,12 @@ export function CollapsibleSection({
 }: CollapsibleSectionProps) {
   const [open, setOpen] = useState(defaultOpen);
   const [drawn, setDrawn] = useState(defaultOpen);
+  // A link to the section (#id) while the page is open asks for it open again.
+  const [askedOpen, setAskedOpen] = useState(defaultOpen);
+  if (defaultOpen !== askedOpen) {
+    setAskedOpen(defaultOpen);
+    if (defaultOpen) setOpen(true);
+  }
   if (open && !drawn) setDrawn(true);
   const Heading = headingLevel === 2 ? "h2" : "h3";
   return (

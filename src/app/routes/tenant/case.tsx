@@ -23,6 +23,7 @@ import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
 import { tenantStage } from "@/features/cases/labels";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
+import { TextLink } from "@/components/ui/text-link";
 import { LandlordMessages } from "@/features/cases/components/landlord-messages";
 import { CaseConversation } from "@/features/conversation/components/case-conversation";
 import { AddPhotos } from "@/features/report/components/add-photos";
@@ -133,7 +134,7 @@ function CaseView({ id }: { id: number }) {
         <ReportFollowUp caseId={id} rooms={c.homeRooms} onChanged={refresh} />
         <NextSteps c={c} summarySent={summarySent} onChanged={refresh} />
         <TenantRepairs caseId={id} caseStatus={c.status} readingsHref="#case-next" />
-        <MessagesPanel id={id} />
+        <MessagesPanel id={id} open={hash === "#case-messages"} />
         {/* The rest, one press away under plain headings; a link to a section (#case-readings) opens it. */}
         <EvaluationPanel id={id} open={Boolean(justSent) || hash === "#case-evaluation"} />
         <ReadingsPanel c={c} open={hash === "#case-readings"} />
@@ -272,7 +273,7 @@ function EvaluationPanel({ id, open }: { id: number; open: boolean }) {
  * The latest message or letter (the written summary) from the landlord first, earlier ones on request;
  * then the conversation, where the tenant writes back.
  */
-function MessagesPanel({ id }: { id: number }) {
+function MessagesPanel({ id, open }: { id: number; open: boolean }) {
   const events = useCaseEvents(id);
   return (
     <>
@@ -284,10 +285,18 @@ function MessagesPanel({ id }: { id: number }) {
         ) : (
           <LandlordMessages events={events.data} showFirst={1} />
         )}
+        <p className="mt-3">
+          <TextLink to={{ hash: "case-messages" }}>Write to your landlord</TextLink>
+        </p>
       </Panel>
-      <Panel title="Messages with your landlord" id="case-messages">
+      <CollapsibleSection
+        id="case-messages"
+        title="Messages with your landlord"
+        summary="Write to your landlord, with photos if you like, and read every message."
+        defaultOpen={open}
+      >
         <CaseConversation caseId={id} viewer="tenant" />
-      </Panel>
+      </CollapsibleSection>
     </>
   );
 }
