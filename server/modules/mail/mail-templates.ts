@@ -108,7 +108,9 @@ export const mailTemplates = {
         `What happens next: ${d.organisationName} will look into every report, whatever any readings show. An officer will review it and contact you about an inspection. You can follow the case, add photos or readings, and tell us if it gets worse at:`,
         d.link,
         "",
-        `If water is coming through a ceiling near lights or sockets, or you smell gas, ${emergencyLine(d.organisationName, d.emergencyPhone)}`,
+        `If water is coming through a ceiling near lights or sockets, ${emergencyLine(d.organisationName, d.emergencyPhone)}`,
+        // The national gas emergency line for Great Britain (from memory), not the landlord's.
+        "If you smell gas, open the windows, do not use switches or flames, leave the home and call the gas emergency line on 0800 111 999.",
       ].join("\n"),
     };
   },
