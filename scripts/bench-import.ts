@@ -7,11 +7,11 @@
 //     statement is timed; it runs before and after ours and the faster run is kept;
 //  3. one 12-megapixel JPEG through the photo pipeline's processPhoto.
 // Targets: ours ≥ 60 % of LOAD DATA's rows/s; our peak RSS < 300 MB; the photo < 400 ms.
-import { closeSync, createReadStream, mkdtempSync, openSync, rmSync, writeSync } from "node:fs";
+import { closeSync, mkdtempSync, openSync, rmSync, writeSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { performance } from "node:perf_hooks";
-import mysql from "mysql2/promise";
+import type mysql from "mysql2/promise";
 import type { DataSource } from "typeorm";
 import { createDataSource } from "../server/db/create-data-source.js";
 import { Case } from "../server/modules/cases/case.entity.js";
@@ -24,7 +24,7 @@ import { createLogger } from "../server/lib/logger.js";
 import { createMailer } from "../server/lib/mailer.js";
 import { User } from "../server/modules/users/user.entity.js";
 import { ZoneConverter } from "../src/lib/domain/time-zone.js";
-import { ensureAppDatabase, freePort, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
+import { ensureAppDatabase, freePort, loadDataConnection, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { mulberry32 } from "../server/lib/random.js";
 
 const ROWS = 1_000_000;
@@ -183,14 +183,7 @@ async function main(): Promise<void> {
       `Readings import benchmark — ${ROWS.toLocaleString("en-GB")} rows, ${(files.bytes / MB).toFixed(1)} MB of CSV (written in ${((performance.now() - t0) / 1000).toFixed(1)} s)`,
     );
 
-    loader = await mysql.createConnection({
-      host: db.host,
-      port: db.port,
-      user: db.user,
-      password: db.password,
-      database: db.name,
-      infileStreamFactory: (p: string) => createReadStream(p),
-    });
+    loader = await loadDataConnection(db);
     await loader.query("CREATE TABLE readings_load_data LIKE readings");
     const loadData = async () => {
       await loader!.query("TRUNCATE TABLE readings_load_data");

@@ -20,17 +20,7 @@
 // Options: --duration <seconds> (default 30) for quick runs; --cases <n> scales the data down
 // (readings 50 a case, homes one per 5 cases) for trying the script out.
 import { spawn, type ChildProcess } from "node:child_process";
-import {
-  closeSync,
-  createReadStream,
-  existsSync,
-  mkdtempSync,
-  openSync,
-  readdirSync,
-  rmSync,
-  statSync,
-  writeSync,
-} from "node:fs";
+import { closeSync, existsSync, mkdtempSync, openSync, readdirSync, rmSync, statSync, writeSync } from "node:fs";
 import type { AddressInfo } from "node:net";
 import { createRequire } from "node:module";
 import { cpus, loadavg, tmpdir } from "node:os";
@@ -61,7 +51,7 @@ import { Organisation } from "../server/modules/organisations/organisation.entit
 import { queueQuerySchema } from "../server/modules/cases/case-queue.schemas.js";
 import { nextDeadline } from "../server/modules/triage/triage.service.js";
 import { User } from "../server/modules/users/user.entity.js";
-import { ensureAppDatabase, freePort, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
+import { ensureAppDatabase, freePort, loadDataConnection, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { projectRoot } from "./lib/paths.js";
 import { runStep, stopChild } from "./lib/processes.js";
 
@@ -750,14 +740,7 @@ async function seed(
   for (const f of [casesFile, caseRoomsFile, readingsFile, inspectionsFile, summariesFile, assessmentsFile]) f.close();
   const generateMs = performance.now() - started;
 
-  const loader = await mysql.createConnection({
-    host: db.host,
-    port: db.port,
-    user: db.user,
-    password: db.password,
-    database: db.name,
-    infileStreamFactory: (p: string) => createReadStream(p),
-  });
+  const loader = await loadDataConnection(db);
   const loadTimes: string[] = [];
   try {
     const load = async (f: TsvFile, table: string, columns: string) => {

@@ -1,10 +1,11 @@
 // A private MariaDB instance on 127.0.0.1 with its data directory where we say: used by `npm start`
 // (inside the project, .data/mariadb) and by the tests (a throwaway temporary directory).
 import { execFile, spawn } from "node:child_process";
-import { existsSync, mkdirSync, readFileSync, rmSync, openSync, closeSync } from "node:fs";
+import { createReadStream, existsSync, mkdirSync, readFileSync, rmSync, openSync, closeSync } from "node:fs";
 import { createServer } from "node:net";
 import path from "node:path";
 import { promisify } from "node:util";
+import mysql from "mysql2/promise";
 
 const run = promisify(execFile);
 
@@ -189,4 +190,16 @@ export async function stopMariaDb(dir: string, timeoutMs = 30_000): Promise<bool
   rmSync(p.pid, { force: true });
   rmSync(p.socket, { force: true });
   return true;
+}
+
+/** A connection to the app's database that may `LOAD DATA LOCAL INFILE` from files on this machine (the benchmarks' bulk loads). */
+export function loadDataConnection(db: AppDatabase & { host: string; port: number }): Promise<mysql.Connection> {
+  return mysql.createConnection({
+    host: db.host,
+    port: db.port,
+    user: db.user,
+    password: db.password,
+    database: db.name,
+    infileStreamFactory: (p: string) => createReadStream(p),
+  });
 }
