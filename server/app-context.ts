@@ -28,6 +28,7 @@ import { UserService } from "./modules/users/user.service.js";
 import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
 import { ConversationService } from "./modules/conversation/conversation.service.js";
+import { WorkerPool } from "./workers/pool.js";
 
 export interface Services {
   policy: PolicyService;
@@ -59,6 +60,8 @@ export interface AppContext {
   logger: Logger;
   dataSource: DataSource;
   mailer: Mailer;
+  /** Worker threads for CPU-heavy work, so it never holds up other requests. */
+  workers: WorkerPool;
   sessionStore: session.Store;
   services: Services;
   close(): Promise<void>;
@@ -70,7 +73,10 @@ export function createServices(
   mailer: Mailer,
   logger: Logger,
   clock: Clock = systemClock,
+  // The pool for CPU-heavy work; services that need it take it from here (bench scripts get their own).
+  workers: WorkerPool = new WorkerPool(config.workers),
 ): Services {
+  void workers;
   const mail = new MailService(dataSource, mailer, logger, clock);
   const properties = new PropertyService(dataSource, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
@@ -125,6 +131,7 @@ export async function createAppContext(config: Config, options: { migrate?: bool
   await dataSource.initialize();
   if (options.migrate) await dataSource.runMigrations({ transaction: "each" });
   const mailer = createMailer(config);
+  const workers = new WorkerPool(config.workers);
   const MySQLStore = MySQLStoreFactory(session);
   const store = new MySQLStore({
     host: config.db.host,
@@ -144,10 +151,12 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     logger,
     dataSource,
     mailer,
+    workers,
     sessionStore: store,
-    services: createServices(config, dataSource, mailer, logger, clock),
+    services: createServices(config, dataSource, mailer, logger, clock, workers),
     async close() {
       mailer.close();
+      await workers.close();
       await store.close().catch(() => undefined);
       if (dataSource.isInitialized) await dataSource.destroy();
     },

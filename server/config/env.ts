@@ -1,5 +1,6 @@
 // The only reader of process.env. Everything else imports the checked Config.
 import { existsSync } from "node:fs";
+import { availableParallelism } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { z } from "zod";
@@ -46,6 +47,9 @@ const schema = z
     TRUST_PROXY: z.stringbool().default(false),
     SHUTDOWN_DELAY_MS: z.coerce.number().int().min(0).default(0),
     SHUTDOWN_TIMEOUT_MS: z.coerce.number().int().min(0).default(10_000),
+    WORKER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
+    WORKER_QUEUE: z.coerce.number().int().min(1).default(64),
+    WORKER_MEMORY_MB: z.coerce.number().int().min(32).default(512),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === "production") {
@@ -74,6 +78,8 @@ export interface Config {
    * stops sending traffic), then wait at most `timeoutMs` for requests and background jobs to finish.
    */
   shutdown: { delayMs: number; timeoutMs: number };
+  /** The worker pool for CPU-heavy work (server/workers): threads, queue length, heap cap per thread. */
+  workers: { threads: number; maxQueue: number; memoryMb: number };
 }
 
 // Development-only defaults, so a fresh clone runs without a .env file. Production must set its own.
@@ -102,5 +108,11 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     login: { maxFailures: e.LOGIN_MAX_FAILURES, windowMs: e.LOGIN_WINDOW_MINUTES * 60_000 },
     trustProxy: e.TRUST_PROXY,
     shutdown: { delayMs: e.SHUTDOWN_DELAY_MS, timeoutMs: e.SHUTDOWN_TIMEOUT_MS },
+    workers: {
+      // One thread per core, leaving one for the request thread; at least one.
+      threads: e.WORKER_THREADS ?? Math.max(1, Math.min(4, availableParallelism() - 1)),
+      maxQueue: e.WORKER_QUEUE,
+      memoryMb: e.WORKER_MEMORY_MB,
+    },
   };
 }

@@ -59,7 +59,7 @@ export class TooManyRequestsError extends AppError {
   }
 }
 export class ServiceUnavailableError extends AppError {
-  constructor(message: string) {
-    super(503, "service_unavailable", message);
+  constructor(message: string, retryAfterSeconds = 5) {
+    super(503, "service_unavailable", message, { retryAfterSeconds }, { "Retry-After": String(retryAfterSeconds) });
   }
 }
