@@ -40,6 +40,7 @@ const schema = z
     MAIL_WEB_PORT: port.default(1080),
     DEMO_PASSWORD: z.string().min(8, "DEMO_PASSWORD needs at least 8 characters").default("dewline-demo"),
     UPLOADS_DIR: z.string().default(path.join(projectRoot, "uploads")),
+    BACKUP_DIR: z.string().default(path.join(projectRoot, "backups")),
     CLIENT_DIST_DIR: z.string().default(path.join(projectRoot, "dist")),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).optional(),
     LOGIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
@@ -69,6 +70,8 @@ export interface Config {
   smtp: { host: string; port: number; from: string; webPort: number };
   demoPassword: string;
   uploadsDir: string;
+  /** Where `npm run backup` writes its timestamped folders. */
+  backupsDir: string;
   clientDistDir: string;
   logLevel: string;
   login: { maxFailures: number; windowMs: number };
@@ -103,6 +106,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, from: e.MAIL_FROM, webPort: e.MAIL_WEB_PORT },
     demoPassword: e.DEMO_PASSWORD,
     uploadsDir: e.UPLOADS_DIR,
+    backupsDir: e.BACKUP_DIR,
     clientDistDir: e.CLIENT_DIST_DIR,
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === "test" ? "silent" : "info"),
     login: { maxFailures: e.LOGIN_MAX_FAILURES, windowMs: e.LOGIN_WINDOW_MINUTES * 60_000 },
