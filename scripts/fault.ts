@@ -1,0 +1,612 @@
+// Load and fault checks (`npm run fault`). Starts its own MariaDB (temporary directory, free port),
+// an in-process SMTP catcher and the built server (`node dist-server/server/server.js`, built first
+// when missing), seeds one landlord with staff and homes, then runs the phases and prints a table each:
+//  a. load: autocannon, tenants writing (reports, messages) and reading, officers reading the queue
+//     and cases → requests, error rate, p50/p99;
+//  b. MariaDB SIGSTOPped for 5 s during writes, then SIGCONT;
+//  c. MariaDB SIGKILLed during writes, then started again;
+//     for b and c: writes acknowledged vs rows in the database, lost (acknowledged, no row),
+//     duplicated, answered 5xx or not at all yet committed, 503s, time to the first good write after;
+//  d. the mail server stopped while e-mails are queued, then started → queued vs delivered, duplicates;
+//  e. kill -9 of the server in the middle of a large reading import, then a restart → rows the
+//     killed import left behind (should be 0) and whether the server came back;
+//  f. ratios measured side by side: /api/auth/me throughput over /api/health; /api/auth/me p99
+//     while an anonymous client posts maximal /api/psychrometrics/series requests, over idle p99.
+// Ends with a one-line verdict. It only prints: the figures depend on the machine. Uses real time
+// for load and outages, never the calendar. Option: --seconds <n> per load run (default 10).
+import { spawn, type ChildProcess } from "node:child_process";
+import { createWriteStream, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { cpus, loadavg, tmpdir } from "node:os";
+import path from "node:path";
+import { setTimeout as sleep } from "node:timers/promises";
+import mysql from "mysql2/promise";
+import { SMTPServer } from "smtp-server";
+import { createDataSource } from "../server/db/create-data-source.js";
+import { hashPassword } from "../server/modules/auth/passwords.js";
+import { Organisation } from "../server/modules/organisations/organisation.entity.js";
+import { Property } from "../server/modules/properties/property.entity.js";
+import { Room } from "../server/modules/properties/room.entity.js";
+import { Tenancy } from "../server/modules/tenancies/tenancy.entity.js";
+import { User, type Role } from "../server/modules/users/user.entity.js";
+import { load, printTable, quantile, Session, type LoadResult } from "./lib/http-load.js";
+import { ensureAppDatabase, freePort, rootSql, runningPid, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
+import { projectRoot } from "./lib/paths.js";
+import { runStep, stopChild, waitUntilReady } from "./lib/processes.js";
+
+const argv = process.argv.slice(2);
+const secondsArg = argv.indexOf("--seconds");
+const SECONDS = secondsArg === -1 ? 10 : Number(argv[secondsArg + 1]);
+if (!Number.isInteger(SECONDS) || SECONDS <= 0) throw new Error("--seconds needs a whole number above 0.");
+const HOMES = 12;
+const PASSWORD = "fault-script-only-password";
+const WRITERS = 6;
+const IMPORT_ROWS = 600_000;
+const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
+
+// ---------------------------------------------------------------------------------------------
+// The pieces: database, mail catcher, server
+
+const work = mkdtempSync(path.join(tmpdir(), "dewline-fault-"));
+mkdirSync(path.join(work, "tmp"));
+const dbDir = path.join(work, "mariadb");
+const db = { name: "dewline_fault", user: "dewline_fault", password: "fault-only-password" };
+let dbPort = 0;
+let appPort = 0;
+let smtpPort = 0;
+let base = "";
+let server: ChildProcess | undefined;
+let pool: mysql.Pool | undefined;
+
+/** The in-process SMTP catcher: every message's raw text, kept across stops and starts. */
+const caught: string[] = [];
+let smtp: SMTPServer | undefined;
+async function startSmtp() {
+  smtp = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ["STARTTLS", "AUTH"],
+    logger: false,
+    onData(stream, _session, callback) {
+      const chunks: Buffer[] = [];
+      stream.on("data", (c: Buffer) => chunks.push(c));
+      stream.on("end", () => {
+        caught.push(Buffer.concat(chunks).toString("utf8"));
+        callback();
+      });
+    },
+  });
+  await new Promise<void>((resolve) => smtp!.listen(smtpPort, "127.0.0.1", () => resolve()));
+}
+async function stopSmtp() {
+  const s = smtp;
+  smtp = undefined;
+  if (s) await new Promise<void>((resolve) => s.close(() => resolve()));
+}
+
+const serverEnv = () => ({
+  ...process.env,
+  NODE_ENV: "development",
+  HOST: "127.0.0.1",
+  PORT: String(appPort),
+  APP_URL: base,
+  DB_PORT: String(dbPort),
+  DB_NAME: db.name,
+  DB_USER: db.user,
+  DB_PASSWORD: db.password,
+  SMTP_PORT: String(smtpPort),
+  UPLOADS_DIR: path.join(work, "uploads"),
+  // The server's upload temp folder is under the OS temp dir: give it its own, so phase e counts only its files.
+  TMPDIR: path.join(work, "tmp"),
+  LOG_LEVEL: "warn",
+});
+
+async function startServer() {
+  const log = createWriteStream(path.join(work, "server.log"), { flags: "a" });
+  server = spawn(process.execPath, ["dist-server/server/server.js"], { cwd: projectRoot, env: serverEnv(), stdio: "pipe" });
+  server.stdout?.pipe(log);
+  server.stderr?.pipe(log);
+  await waitUntilReady(`${base}/api/health/ready`, 60_000);
+}
+
+const sql = async <T = Record<string, unknown>>(query: string, params: unknown[] = []) =>
+  (await pool!.query(query, params))[0] as T[];
+const mariaDbPid = () => {
+  const pid = runningPid(dbDir);
+  if (pid === null) throw new Error("MariaDB is not running");
+  return pid;
+};
+
+async function shutdown() {
+  if (server) await stopChild(server, 15_000);
+  await stopSmtp();
+  await pool?.end().catch(() => undefined);
+  const pid = runningPid(dbDir);
+  if (pid !== null) process.kill(pid, "SIGCONT");
+  await stopMariaDb(dbDir);
+  rmSync(work, { recursive: true, force: true });
+}
+
+// ---------------------------------------------------------------------------------------------
+// Seeding: one landlord, its staff and homes, each with a tenant
+
+interface Seeded {
+  officer: string;
+  tenants: { email: string; roomId: number }[];
+}
+
+async function seed(): Promise<Seeded> {
+  const ds = createDataSource({ host: "127.0.0.1", port: dbPort, ...db });
+  await ds.initialize();
+  try {
+    const passwordHash = await hashPassword(PASSWORD);
+    const org = await ds.getRepository(Organisation).save({ name: "Fernlea Homes (fault script)" });
+    const user = (role: Role, n: number) =>
+      ds.getRepository(User).save(
+        ds.getRepository(User).create({
+          organisationId: org.id,
+          email: `${role}.${n}@fault.example`,
+          name: `Fault ${role} ${n}`,
+          role,
+          status: "active",
+          passwordHash,
+        }),
+      );
+    const officer = await user("officer", 1);
+    await user("admin", 1);
+    await user("maintenance", 1);
+    const tenants: Seeded["tenants"] = [];
+    for (let i = 1; i <= HOMES; i++) {
+      const home = await ds.getRepository(Property).save({
+        organisationId: org.id,
+        addressLine1: `${i} Quillon Street`,
+        addressLine2: null,
+        town: "Fernlea",
+        postcode: "ZX9 9AA",
+        uprn: null,
+        estate: "Quillon",
+        block: null,
+        builtForm: "mid-terrace",
+        wallType: "solid-brick",
+        glazingType: "modern-double",
+        heatingType: "gas-boiler",
+      });
+      const [room] = await ds.getRepository(Room).save([
+        { propertyId: home.id, name: "Bedroom", kind: "bedroom" },
+        { propertyId: home.id, name: "Kitchen", kind: "kitchen" },
+      ]);
+      const tenant = await user("tenant", i);
+      await ds
+        .getRepository(Tenancy)
+        .save({ propertyId: home.id, tenantUserId: tenant.id, startDate: "2024-01-01", endDate: null, householdNotes: null });
+      tenants.push({ email: tenant.email, roomId: room!.id });
+    }
+    return { officer: officer.email, tenants };
+  } finally {
+    await ds.destroy();
+  }
+}
+
+const report = (token: string, roomId: number) => ({
+  description: `${token} Black mould on the bedroom wall by the window.`,
+  locations: ["external-wall"],
+  observations: ["mould-spots"],
+  roomIds: [roomId],
+});
+
+// ---------------------------------------------------------------------------------------------
+// b and c: writes through a fault
+
+interface Attempt {
+  token: string;
+  sentAt: number;
+  status: number | "no answer";
+}
+
+/** WRITERS tenants each posting reports one after another until stopped; each report carries a unique token. */
+function writers(sessions: { s: Session; roomId: number }[], prefix: string) {
+  const attempts: Attempt[] = [];
+  let running = true;
+  let n = 0;
+  const loops = sessions.map(async ({ s, roomId }) => {
+    while (running) {
+      const token = `${prefix}-${String(++n).padStart(5, "0")}`;
+      const attempt: Attempt = { token, sentAt: performance.now(), status: "no answer" };
+      attempts.push(attempt);
+      try {
+        attempt.status = (await s.request("POST", "/api/cases", report(token, roomId))).status;
+      } catch {
+        await sleep(100);
+      }
+    }
+  });
+  return {
+    attempts,
+    async stop() {
+      running = false;
+      await Promise.all(loops);
+    },
+  };
+}
+
+async function faultFigures(name: string, attempts: Attempt[], prefix: string, resumedAt: number) {
+  const rows = await sql<{ description: string }>("SELECT description FROM cases WHERE description LIKE ?", [`${prefix}-%`]);
+  const count = new Map<string, number>();
+  for (const r of rows) {
+    const token = r.description.split(" ")[0]!;
+    count.set(token, (count.get(token) ?? 0) + 1);
+  }
+  const ok = (a: Attempt) => typeof a.status === "number" && a.status >= 200 && a.status < 300;
+  const acked = attempts.filter(ok);
+  const firstGood = attempts.filter((a) => a.sentAt >= resumedAt && ok(a)).sort((a, b) => a.sentAt - b.sentAt)[0];
+  const failedButCommitted = attempts.filter((a) => !ok(a) && (count.get(a.token) ?? 0) > 0);
+  return {
+    phase: name,
+    attempts: attempts.length,
+    acked: acked.length,
+    rows: rows.length,
+    lost: acked.filter((a) => !count.get(a.token)).length,
+    duplicated: [...count.values()].filter((c) => c > 1).length,
+    "5xx/none but committed": failedButCommitted.length,
+    "500s": attempts.filter((a) => a.status === 500).length,
+    "503s": attempts.filter((a) => a.status === 503).length,
+    "no answer": attempts.filter((a) => a.status === "no answer").length,
+    "recovered in s": firstGood ? ((firstGood.sentAt - resumedAt) / 1000).toFixed(1) : "never",
+  };
+}
+
+async function throughFault(
+  name: string,
+  prefix: string,
+  sessions: { s: Session; roomId: number }[],
+  fault: () => Promise<void>,
+) {
+  const w = writers(sessions, prefix);
+  await sleep(2000);
+  await fault();
+  const resumedAt = performance.now();
+  // Keep writing until a write sent after the fault succeeds (or 30 s), then a little more.
+  const deadline = resumedAt + 30_000;
+  while (performance.now() < deadline && !w.attempts.some((a) => a.sentAt >= resumedAt && a.status === 201)) await sleep(200);
+  await sleep(2000);
+  await w.stop();
+  return faultFigures(name, w.attempts, prefix, resumedAt);
+}
+
+// ---------------------------------------------------------------------------------------------
+
+try {
+  console.log(
+    `Machine: ${cpus().length} cores, load average ${loadavg()
+      .map((l) => l.toFixed(2))
+      .join(" ")}`,
+  );
+  if (!existsSync(path.join(projectRoot, "dist-server/server/server.js"))) {
+    step("Building the server (tsc → dist-server)…");
+    await runStep(process.execPath, ["node_modules/typescript/bin/tsc", "-p", "server/tsconfig.build.json"], {
+      cwd: projectRoot,
+    });
+  }
+  [dbPort, appPort, smtpPort] = [await freePort(), await freePort(), await freePort()];
+  base = `http://127.0.0.1:${appPort}`;
+  step(`MariaDB on 127.0.0.1:${dbPort} (data in ${dbDir})…`);
+  await startMariaDb({ dir: dbDir, port: dbPort });
+  await ensureAppDatabase({ dir: dbDir, port: dbPort }, db);
+  await startSmtp();
+  step("Migrating and seeding…");
+  await runStep(process.execPath, ["dist-server/server/migrate.js"], { cwd: projectRoot, env: serverEnv(), stdio: "ignore" });
+  const seeded = await seed();
+  pool = mysql.createPool({
+    host: "127.0.0.1",
+    port: dbPort,
+    user: db.user,
+    password: db.password,
+    database: db.name,
+    connectionLimit: 2,
+  });
+  step(`Starting the server on ${base}…`);
+  await startServer();
+
+  const officer = await Session.signIn(base, seeded.officer, PASSWORD);
+  // One after another: the per-address sign-in limit counts requests still running as failures.
+  const tenants: { s: Session; roomId: number }[] = [];
+  for (const t of seeded.tenants) tenants.push({ s: await Session.signIn(base, t.email, PASSWORD), roomId: t.roomId });
+  // Each tenant's first report, so there are cases to write to and read.
+  const caseIds: number[] = [];
+  for (const [i, t] of tenants.entries())
+    caseIds.push(((await (await t.s.request("POST", "/api/cases", report(`SEED-${i}`, t.roomId))).json()) as { id: number }).id);
+
+  // a. Load -------------------------------------------------------------------------------------
+  step(`a. Load: ${SECONDS} s of reads and writes…`);
+  const [t0, t1] = tenants;
+  const at = (h: number) => `2026-01-01T${String(h).padStart(2, "0")}:00:00Z`;
+  const mix: [string, Promise<LoadResult>][] = [
+    [
+      "tenant: report + message + my cases",
+      load(
+        base,
+        [
+          { method: "POST", path: "/api/cases", body: JSON.stringify(report("LOAD", t0!.roomId)) },
+          { method: "POST", path: `/api/cases/${caseIds[0]}/messages`, body: JSON.stringify({ body: "Any news on the mould?" }) },
+          { method: "GET", path: "/api/me/cases" },
+        ],
+        { seconds: SECONDS, connections: 2, headers: t0!.s.headers },
+      ),
+    ],
+    [
+      "tenant: readings + case",
+      load(
+        base,
+        [
+          {
+            method: "POST",
+            path: `/api/cases/${caseIds[1]}/readings`,
+            body: JSON.stringify([{ roomId: t1!.roomId, takenAt: at(8), airTemperatureC: 18, relativeHumidityPct: 75 }]),
+          },
+          { method: "GET", path: `/api/cases/${caseIds[1]}` },
+        ],
+        { seconds: SECONDS, connections: 2, headers: t1!.s.headers },
+      ),
+    ],
+    [
+      "officer: queue + case + events",
+      load(
+        base,
+        [
+          { method: "GET", path: "/api/cases?status=open" },
+          { method: "GET", path: `/api/cases/${caseIds[2]}` },
+          { method: "GET", path: `/api/cases/${caseIds[2]}/events` },
+        ],
+        { seconds: SECONDS, connections: 4, headers: officer.headers },
+      ),
+    ],
+  ];
+  const loadRows = [];
+  for (const [who, running] of mix) {
+    const r = await running;
+    loadRows.push({
+      who,
+      requests: r.requests,
+      "req/s": r.rps,
+      "error %": (100 * r.errors) / Math.max(1, r.requests),
+      p50: r.p50,
+      p99: r.p99,
+    });
+  }
+  printTable("a. Load (latency in ms)", loadRows);
+
+  // b, c. Database stalled, then killed -----------------------------------------------------------
+  const writing = tenants.slice(0, WRITERS);
+  step("b. MariaDB stopped (SIGSTOP) for 5 s during writes…");
+  const stall = await throughFault("b. SIGSTOP 5 s", "STALL", writing, async () => {
+    const pid = mariaDbPid();
+    process.kill(pid, "SIGSTOP");
+    await sleep(5000);
+    process.kill(pid, "SIGCONT");
+  });
+  step("c. MariaDB killed (SIGKILL) during writes, then started again…");
+  const crash = await throughFault("c. SIGKILL + restart", "CRASH", writing, async () => {
+    process.kill(mariaDbPid(), "SIGKILL");
+    await sleep(1000);
+    await startMariaDb({ dir: dbDir, port: dbPort });
+  });
+  printTable("b, c. Writes through a database fault", [stall, crash]);
+  // Our own connections died with the database: open new ones.
+  await pool.end().catch(() => undefined);
+  pool = mysql.createPool({
+    host: "127.0.0.1",
+    port: dbPort,
+    user: db.user,
+    password: db.password,
+    database: db.name,
+    connectionLimit: 2,
+  });
+
+  // d. Mail server down -------------------------------------------------------------------------
+  step("d. Mail server stopped while e-mails are queued…");
+  caught.length = 0;
+  const sent: string[] = [];
+  const message = async (k: number) => {
+    const token = `MAIL${String(k).padStart(4, "0")}X`;
+    const res = await officer
+      .request("POST", `/api/cases/${caseIds[k % caseIds.length]}/messages`, {
+        body: `Update ${token}: we will call to book the work.`,
+        internal: false,
+      })
+      .catch(() => null);
+    if (res?.status === 201) sent.push(token);
+  };
+  let k = 0;
+  for (; k < 10; k++) await message(k);
+  await stopSmtp();
+  for (; k < 25; k++) await message(k);
+  await sleep(2000);
+  await startSmtp();
+  for (; k < 35; k++) await message(k);
+  // Give a relay time to catch up: wait until nothing new arrives for 10 s (at most 60 s).
+  let seen = -1;
+  for (let waited = 0; waited < 60_000 && seen !== caught.length; waited += 10_000) {
+    seen = caught.length;
+    await sleep(10_000);
+  }
+  const bodies = caught.map((raw) => raw.replace(/=\r?\n/g, ""));
+  const delivered = new Map<string, number>();
+  for (const raw of bodies) {
+    const token = /MAIL\d{4}X/.exec(raw)?.[0];
+    if (token) delivered.set(token, (delivered.get(token) ?? 0) + 1);
+  }
+  const messageIds = bodies.map((raw) => /^Message-ID:\s*(.+)$/im.exec(raw)?.[1]?.trim()).filter(Boolean);
+  const outbox = await sql<{ status: string; n: number }>(
+    "SELECT status, COUNT(*) AS n FROM outbox_emails WHERE template = 'caseMessage' GROUP BY status",
+  );
+  const mailFigures = {
+    "queued (201s)": sent.length,
+    delivered: sent.filter((t) => delivered.has(t)).length,
+    "never delivered": sent.filter((t) => !delivered.has(t)).length,
+    "duplicated (token)": [...delivered.values()].filter((c) => c > 1).length,
+    "duplicated (Message-ID)": messageIds.length - new Set(messageIds).size,
+    "outbox rows": outbox.map((o) => `${o.status} ${o.n}`).join(", "),
+  };
+  printTable("d. E-mails across a mail-server outage (15 of 35 written while it was down)", [mailFigures]);
+
+  // e. Server killed mid-import -----------------------------------------------------------------
+  step(`e. kill -9 of the server in the middle of a ${IMPORT_ROWS.toLocaleString("en-GB")}-row import…`);
+  const csvPath = path.join(work, "logger.csv");
+  const lines = ["Time,Temperature,RH"];
+  const start = Date.UTC(2025, 0, 1);
+  for (let i = 0; i < IMPORT_ROWS; i++)
+    lines.push(
+      `${new Date(start + i * 60_000).toISOString().slice(0, 19).replace("T", " ")}Z,${(18 + (i % 40) / 10).toFixed(1)},${60 + (i % 30)}`,
+    );
+  writeFileSync(csvPath, lines.join("\n"));
+  const importCase = caseIds[3]!;
+  const form = new FormData();
+  form.set("roomId", String(tenants[3]!.roomId));
+  form.set("file", new Blob([readFileSync(csvPath)]), "logger.csv");
+  const importing = tenants[3]!.s.request("POST", `/api/cases/${importCase}/readings/import`, form, 300_000).then(
+    (r) => r.status,
+    () => "no answer",
+  );
+  // Wait until the import's transaction has written rows (seen from MariaDB's side), then kill.
+  let modified = 0;
+  const importDeadline = performance.now() + 120_000;
+  while (modified < 50_000 && performance.now() < importDeadline) {
+    modified = Number(
+      (
+        await rootSql(
+          { dir: dbDir, port: dbPort },
+          "SELECT COALESCE(MAX(trx_rows_modified),0) FROM information_schema.innodb_trx",
+        )
+      ).trim(),
+    );
+    await sleep(50);
+  }
+  const killedAt = performance.now();
+  server!.kill("SIGKILL");
+  const answer = await importing;
+  await new Promise<void>((resolve) =>
+    server!.exitCode !== null || server!.signalCode !== null ? resolve() : server!.once("exit", () => resolve()),
+  );
+  await startServer();
+  const backIn = (performance.now() - killedAt) / 1000;
+  // The rolled-back transaction is undone by MariaDB; wait for it to finish before counting.
+  while (Number((await rootSql({ dir: dbDir, port: dbPort }, "SELECT COUNT(*) FROM information_schema.innodb_trx")).trim()) > 0)
+    await sleep(200);
+  const [left] = await sql<{ readings: number; imports: number }>(
+    "SELECT (SELECT COUNT(*) FROM readings WHERE case_id = ? AND import_id IS NOT NULL) AS readings, (SELECT COUNT(*) FROM reading_imports WHERE case_id = ?) AS imports",
+    [importCase, importCase],
+  );
+  const tmpLeft = existsSync(path.join(tmpdir(), "dewline-uploads"))
+    ? readdirSync(path.join(tmpdir(), "dewline-uploads")).length
+    : 0;
+  const meAfter = await Session.signIn(base, seeded.tenants[3]!.email, PASSWORD).then(
+    (s) => s.request("GET", "/api/auth/me").then((r) => r.status),
+    () => "sign-in failed",
+  );
+  printTable("e. Server killed mid-import", [
+    {
+      "rows written when killed": modified,
+      "import answer": String(answer),
+      "readings left": Number(left!.readings),
+      "import rows left": Number(left!.imports),
+      "upload temp files left": tmpLeft,
+      "back in s": backIn,
+      "/api/auth/me after": String(meAfter),
+    },
+  ]);
+
+  // f. Ratios ----------------------------------------------------------------------------------
+  step(`f. Ratios: health vs me, me idle vs under a series flood (${SECONDS} s runs)…`);
+  const me = await Session.signIn(base, seeded.tenants[4]!.email, PASSWORD);
+  const half = Math.max(1, Math.round(SECONDS / 2));
+  const health: LoadResult[] = [];
+  const mine: LoadResult[] = [];
+  for (let round = 0; round < 2; round++) {
+    health.push(await load(base, [{ method: "GET", path: "/api/health" }], { seconds: half, connections: 10 }));
+    mine.push(
+      await load(base, [{ method: "GET", path: "/api/auth/me" }], { seconds: half, connections: 10, headers: me.headers }),
+    );
+  }
+  const rps = (rs: LoadResult[]) => rs.reduce((sum, r) => sum + r.rps, 0) / rs.length;
+  const idle = await load(base, [{ method: "GET", path: "/api/auth/me" }], {
+    seconds: SECONDS,
+    connections: 2,
+    headers: me.headers,
+  });
+  const series = JSON.stringify({
+    readings: Array.from({ length: 100_000 }, (_, i) => ({
+      at: new Date(start + i * 300_000).toISOString(),
+      airTemperatureC: 18 + (i % 50) / 10,
+      relativeHumidityPct: 55 + (i % 40),
+      surfaceTemperatureC: 12 + (i % 30) / 10,
+    })),
+  });
+  let flooding = true;
+  const floodAnswers = new Map<number | string, number>();
+  const flood = Array.from({ length: 4 }, async () => {
+    while (flooding) {
+      const status = await fetch(`${base}/api/psychrometrics/series`, {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: series,
+        signal: AbortSignal.timeout(60_000),
+      }).then(
+        async (r) => (await r.arrayBuffer(), r.status),
+        () => "no answer",
+      );
+      floodAnswers.set(status, (floodAnswers.get(status) ?? 0) + 1);
+    }
+  });
+  await sleep(1000);
+  const busy = await load(base, [{ method: "GET", path: "/api/auth/me" }], {
+    seconds: SECONDS,
+    connections: 2,
+    headers: me.headers,
+  });
+  flooding = false;
+  await Promise.all(flood);
+  printTable("f. Side by side (latency in ms)", [
+    {
+      run: "/api/health (2 rounds)",
+      "req/s": rps(health),
+      p50: health[0]!.p50,
+      p99: quantile(
+        health.map((h) => h.p99),
+        1,
+      ),
+    },
+    {
+      run: "/api/auth/me (2 rounds)",
+      "req/s": rps(mine),
+      p50: mine[0]!.p50,
+      p99: quantile(
+        mine.map((h) => h.p99),
+        1,
+      ),
+    },
+    { run: "/api/auth/me idle, 2 conns", "req/s": idle.rps, p50: idle.p50, p99: idle.p99 },
+    { run: "/api/auth/me under series flood", "req/s": busy.rps, p50: busy.p50, p99: busy.p99 },
+  ]);
+  console.log(`  series flood answers: ${[...floodAnswers].map(([s, n]) => `${s}×${n}`).join(", ")}`);
+  console.log(`  me/health throughput: ${(rps(mine) / rps(health)).toFixed(2)}× (target ≥ 0.8×)`);
+  console.log(`  me p99 under flood / idle: ×${(busy.p99 / Math.max(idle.p99, 1)).toFixed(1)} (target ≤ ×3)`);
+
+  // Verdict ------------------------------------------------------------------------------------
+  const lost = stall.lost + crash.lost;
+  const duplicated = stall.duplicated + crash.duplicated + mailFigures["duplicated (token)"];
+  const committed5xx = stall["5xx/none but committed"] + crash["5xx/none but committed"];
+  console.log(
+    `\nVerdict: ${lost} lost, ${duplicated} duplicated, ${committed5xx} failed-but-committed writes, ` +
+      `${mailFigures.delivered}/${mailFigures["queued (201s)"]} mails delivered, ` +
+      `${Number(left!.readings)} rows left by the killed import.`,
+  );
+  await shutdown();
+} catch (error) {
+  console.error(`\nnpm run fault failed: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
+  console.error(`(server log: ${path.join(work, "server.log")}, kept)`);
+  if (server) await stopChild(server, 5000);
+  await stopSmtp();
+  await pool?.end().catch(() => undefined);
+  const pid = runningPid(dbDir);
+  if (pid !== null) process.kill(pid, "SIGCONT");
+  await stopMariaDb(dbDir);
+  process.exitCode = 1;
+}
