@@ -16,6 +16,7 @@ import { DigestService } from "./modules/digest/digest.service.js";
 import { EvaluationService } from "./modules/evaluation/evaluation.service.js";
 import { HomeRecordService } from "./modules/homes/home-record.service.js";
 import { PhotoService } from "./modules/photos/photo.service.js";
+import { removeStaleIncoming } from "./modules/cases/upload-dir.js";
 import { ReadingImportService } from "./modules/readings/reading-import.service.js";
 import { ReadingService } from "./modules/readings/reading.service.js";
 import { MailService } from "./modules/mail/mail.service.js";
@@ -76,7 +77,6 @@ export function createServices(
   // The pool for CPU-heavy work; services that need it take it from here (bench scripts get their own).
   workers: WorkerPool = new WorkerPool(config.workers),
 ): Services {
-  void workers;
   const mail = new MailService(dataSource, mailer, logger, clock);
   const properties = new PropertyService(dataSource, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
@@ -84,7 +84,7 @@ export function createServices(
   const organisations = new OrganisationService(dataSource);
   const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
-  const photos = new PhotoService(dataSource, config, cases);
+  const photos = new PhotoService(dataSource, config, cases, workers, logger, clock);
   const readings = new ReadingService(dataSource, cases, clock);
   const imports = new ReadingImportService(dataSource, cases, clock);
   const evaluation = new EvaluationService(cases, readings);
@@ -132,6 +132,8 @@ export async function createAppContext(config: Config, options: { migrate?: bool
   if (options.migrate) await dataSource.runMigrations({ transaction: "each" });
   const mailer = createMailer(config);
   const workers = new WorkerPool(config.workers);
+  // Uploads a crash left half-received (in this app's own incoming folder) go at start-up.
+  await removeStaleIncoming(config.uploadsDir);
   const MySQLStore = MySQLStoreFactory(session);
   const store = new MySQLStore({
     host: config.db.host,

@@ -51,6 +51,9 @@ const schema = z
     WORKER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
     WORKER_QUEUE: z.coerce.number().int().min(1).default(64),
     WORKER_MEMORY_MB: z.coerce.number().int().min(32).default(512),
+    UPLOAD_MEGAPIXELS_PER_HOUR: z.coerce.number().positive().default(2000),
+    UPLOAD_MB_PER_HOUR: z.coerce.number().positive().default(600),
+    UPLOAD_MEGAPIXELS_PER_REQUEST: z.coerce.number().positive().default(300),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === "production") {
@@ -83,6 +86,8 @@ export interface Config {
   shutdown: { delayMs: number; timeoutMs: number };
   /** The worker pool for CPU-heavy work (server/workers): threads, queue length, heap cap per thread. */
   workers: { threads: number; maxQueue: number; memoryMb: number };
+  /** Photo uploads: each user's budget over the last hour, and the most pixels one request may ask to decode. */
+  uploads: { pixelsPerHour: number; bytesPerHour: number; pixelsPerRequest: number };
 }
 
 // Development-only defaults, so a fresh clone runs without a .env file. Production must set its own.
@@ -117,6 +122,11 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       threads: e.WORKER_THREADS ?? Math.max(1, Math.min(4, availableParallelism() - 1)),
       maxQueue: e.WORKER_QUEUE,
       memoryMb: e.WORKER_MEMORY_MB,
+    },
+    uploads: {
+      pixelsPerHour: Math.round(e.UPLOAD_MEGAPIXELS_PER_HOUR * 1_000_000),
+      bytesPerHour: Math.round(e.UPLOAD_MB_PER_HOUR * 1024 * 1024),
+      pixelsPerRequest: Math.round(e.UPLOAD_MEGAPIXELS_PER_REQUEST * 1_000_000),
     },
   };
 }

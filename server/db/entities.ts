@@ -5,6 +5,7 @@ import { Contractor } from "../modules/works/contractor.entity.js";
 import { OperativeSlot } from "../modules/works/operative-slot.entity.js";
 import { WorkOrder } from "../modules/works/work-order.entity.js";
 import { Photo } from "../modules/photos/photo.entity.js";
+import { PhotoUploadUsage } from "../modules/photos/photo-upload-usage.entity.js";
 import { ReadingImport } from "../modules/readings/reading-import.entity.js";
 import { Reading } from "../modules/readings/reading.entity.js";
 import { HhsrsAssessmentRecord } from "../modules/assessments/assessment.entity.js";
@@ -46,4 +47,5 @@ export const entities = [
   OperativeSlot,
   Contractor,
   CaseReadMark,
+  PhotoUploadUsage,
 ];

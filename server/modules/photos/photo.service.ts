@@ -1,12 +1,33 @@
-import { rm } from "node:fs/promises";
+import { rm, stat } from "node:fs/promises";
 import path from "node:path";
-import type { DataSource } from "typeorm";
+import { LessThan, MoreThan, type DataSource } from "typeorm";
 import type { Config } from "../../config/env.js";
-import { AppError, NotFoundError, ValidationError } from "../../lib/errors.js";
+import type { Clock } from "../../lib/clock.js";
+import {
+  AppError,
+  NotFoundError,
+  PayloadTooLargeError,
+  ServiceUnavailableError,
+  TooManyRequestsError,
+  ValidationError,
+} from "../../lib/errors.js";
+import type { Logger } from "../../lib/logger.js";
+import type { WorkerPool } from "../../workers/pool.js";
 import type { Actor } from "../auth/actor.js";
 import type { CaseService } from "../cases/case.service.js";
+import { incomingDir } from "../cases/upload-dir.js";
 import { Photo } from "./photo.entity.js";
-import { processPhoto, removeProcessed, type ProcessedPhoto } from "./photo-processing.js";
+import { PhotoUploadUsage } from "./photo-upload-usage.entity.js";
+import {
+  claimedPixels,
+  MAX_INPUT_PIXELS,
+  PhotoStorageError,
+  refusalError,
+  removeProcessed,
+  storeDecoded,
+  type DecodedPhoto,
+  type ProcessedPhoto,
+} from "./photo-processing.js";
 
 export const MAX_PHOTOS_PER_UPLOAD = 10;
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
@@ -16,6 +37,8 @@ export interface UploadedFile {
   path: string;
   /** The name the browser sent: only ever echoed back in a refusal, never used as a path. */
   originalname?: string;
+  /** Bytes received (multer knows; read from the file when not given). */
+  size?: number;
 }
 
 /** A file of the batch that was not stored, and why (in words for the person who chose it). */
@@ -36,12 +59,103 @@ const shownName = (file: UploadedFile, index: number): string => {
   return base ? base.slice(0, 120) : `File ${index + 1}`;
 };
 
+const HOUR_MS = 3_600_000;
+const sum = (values: number[]) => values.reduce((a, b) => a + b, 0);
+
+/** Lets at most `limit` decodes run at once and `maxWaiting` wait; more are refused with 503. */
+class DecodeGate {
+  running = 0;
+  private readonly waiting: (() => void)[] = [];
+  constructor(
+    private readonly limit: number,
+    private readonly maxWaiting: number,
+  ) {}
+
+  async run<T>(work: () => Promise<T>): Promise<T> {
+    if (this.running >= this.limit) {
+      if (this.waiting.length >= this.maxWaiting)
+        throw new ServiceUnavailableError("Many photos are being processed just now. Please try again in a moment.", 10);
+      await new Promise<void>((resolve) => this.waiting.push(resolve));
+    }
+    this.running++;
+    try {
+      return await work();
+    } finally {
+      this.running--;
+      this.waiting.shift()?.();
+    }
+  }
+}
+
 export class PhotoService {
+  /** Photos decode on the worker pool, and on at most half its threads, so other heavy work still gets one. */
+  private readonly decodes: DecodeGate;
+
   constructor(
     private readonly dataSource: DataSource,
     private readonly config: Config,
     private readonly cases: CaseService,
-  ) {}
+    private readonly workers: WorkerPool,
+    private readonly logger: Logger,
+    private readonly clock: Clock,
+  ) {
+    const limit = Math.max(1, Math.ceil(config.workers.threads / 2));
+    this.decodes = new DecodeGate(limit, limit * 8);
+  }
+
+  /** Where multer puts uploads until they are processed: inside the uploads folder. */
+  get incomingDir(): string {
+    return incomingDir(this.config.uploadsDir);
+  }
+
+  /** Photos being decoded on a worker thread right now. */
+  get decodesInFlight(): number {
+    return this.decodes.running;
+  }
+
+  private decode(source: string): Promise<DecodedPhoto> {
+    return this.decodes.run(() => this.workers.run("decodePhoto", { source }));
+  }
+
+  /**
+   * Books what a request asks to decode against its sender's budget for the last hour, or refuses
+   * it with 429 and Retry-After. The booking is written first and the window summed after, so two
+   * requests at once on different instances cannot both slip under the budget. Answers the booking's id.
+   */
+  private async book(userId: number, want: { pixels: number; bytes: number }): Promise<number> {
+    const repo = this.dataSource.getRepository(PhotoUploadUsage);
+    const now = this.clock.now();
+    const since = new Date(now.getTime() - HOUR_MS);
+    await repo.delete({ userId, createdAt: LessThan(since) });
+    const mine = await repo.save(repo.create({ userId, pixels: want.pixels, bytes: want.bytes, createdAt: now }));
+    const rows = await repo.find({ where: { userId, createdAt: MoreThan(since) }, order: { createdAt: "ASC", id: "ASC" } });
+    const budget = this.config.uploads;
+    const fits = (pixels: number, bytes: number) => pixels <= budget.pixelsPerHour && bytes <= budget.bytesPerHour;
+    if (fits(sum(rows.map((r) => r.pixels)), sum(rows.map((r) => r.bytes)))) return mine.id;
+
+    await repo.delete({ id: mine.id });
+    // The request fits once enough of the earlier uploads have left the hour.
+    let pixels = want.pixels;
+    let bytes = want.bytes;
+    const earlier = rows.filter((r) => r.id !== mine.id);
+    for (const r of earlier) {
+      pixels += r.pixels;
+      bytes += r.bytes;
+    }
+    let fitsAt = now.getTime() + HOUR_MS;
+    for (const r of earlier) {
+      if (fits(pixels, bytes)) break;
+      pixels -= r.pixels;
+      bytes -= r.bytes;
+      fitsAt = r.createdAt.getTime() + HOUR_MS;
+    }
+    const seconds = Math.min(3600, Math.max(1, Math.ceil((fitsAt - now.getTime()) / 1000)));
+    const minutes = Math.max(1, Math.ceil(seconds / 60));
+    throw new TooManyRequestsError(
+      `You have reached the photo upload limit for one hour. Please try again in ${minutes === 1 ? "a minute" : `about ${minutes} minutes`}.`,
+      seconds,
+    );
+  }
 
   /**
    * Adds photos to a case, each on its own: a file that cannot be read is refused with its reason
@@ -57,6 +171,7 @@ export class PhotoService {
   ): Promise<PhotoBatchResult> {
     const written: ProcessedPhoto[] = [];
     const refused: RefusedFile[] = [];
+    let booking: number | null = null;
     try {
       if (files.length === 0)
         throw new ValidationError("photos: choose at least one photo.", [
@@ -65,15 +180,26 @@ export class PhotoService {
       const c = await this.cases.getForActor(actor, caseId);
       // Folder names are our ids; file names are random. Nothing the browser sent becomes a path.
       const dir = path.join(this.config.uploadsDir, String(c.organisationId), String(c.id));
+      // What the request asks to decode, from the images' headers only (too large ones are refused unread).
+      const pixels = (await Promise.all(files.map((f) => claimedPixels(f.path)))).filter((p) => p <= MAX_INPUT_PIXELS);
+      const bytes = await Promise.all(files.map(async (f) => f.size ?? (await stat(f.path)).size));
+      if (sum(pixels) > this.config.uploads.pixelsPerRequest) {
+        const most = Math.floor(this.config.uploads.pixelsPerRequest / 1_000_000);
+        throw new PayloadTooLargeError(
+          `These photos together have too many pixels to process at once (at most ${most} megapixels in one upload). Please send fewer at a time.`,
+        );
+      }
+      booking = await this.book(actor.id, { pixels: sum(pixels), bytes: sum(bytes) });
       let firstRefusal: AppError | null = null;
       for (const [index, file] of files.entries()) {
-        try {
-          written.push(await processPhoto(file.path, dir));
-        } catch (error) {
-          if (!(error instanceof AppError) || error.status >= 500) throw error;
-          firstRefusal ??= error;
-          refused.push({ name: shownName(file, index), reason: error.message });
+        const decoded = await this.decode(file.path);
+        if (decoded.ok) {
+          written.push(await storeDecoded(decoded, dir, this.incomingDir));
+          continue;
         }
+        const error = refusalError(decoded.refusal);
+        firstRefusal ??= error;
+        refused.push({ name: shownName(file, index), reason: error.message });
       }
       if (written.length === 0 && firstRefusal) {
         const message =
@@ -122,6 +248,13 @@ export class PhotoService {
       return { photos: result, refused };
     } catch (error) {
       await Promise.all(written.map(removeProcessed));
+      // A failure of ours (storage, database, a busy pool) does not spend the sender's budget.
+      if (booking !== null && !(error instanceof AppError && error.status < 500))
+        await this.dataSource
+          .getRepository(PhotoUploadUsage)
+          .delete({ id: booking })
+          .catch(() => undefined);
+      if (error instanceof PhotoStorageError) this.logger.error({ err: error.fault, caseId }, "a photo could not be stored");
       throw error;
     } finally {
       await Promise.all(files.map((f) => rm(f.path, { force: true })));
@@ -148,13 +281,22 @@ export class PhotoService {
     return this.dataSource.getRepository(Photo).find({ where: { caseId: c.id }, order: { id: "ASC" } });
   }
 
-  /** The file of a photo the actor may see (through its case), as an absolute path. */
+  /** The file of a photo the actor may see (through its case), as an absolute path; 404 when it has gone from disk. */
   async fileFor(actor: Actor, photoId: number, variant: "display" | "thumbnail"): Promise<string> {
     const photo = await this.dataSource.getRepository(Photo).findOneBy({ id: photoId });
     if (!photo) throw new NotFoundError("No such photo.");
     await this.cases.getForActor(actor, photo.caseId).catch(() => {
       throw new NotFoundError("No such photo.");
     });
-    return path.join(this.config.uploadsDir, variant === "display" ? photo.displayPath : photo.thumbnailPath);
+    const file = path.join(this.config.uploadsDir, variant === "display" ? photo.displayPath : photo.thumbnailPath);
+    if (
+      !(await stat(file)
+        .then((s) => s.isFile())
+        .catch(() => false))
+    ) {
+      this.logger.warn({ photoId, file }, "a photo's file is missing from the photo store");
+      throw new NotFoundError("This photo's file is missing. Please tell your landlord's support team.");
+    }
+    return file;
   }
 }

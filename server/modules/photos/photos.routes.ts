@@ -1,23 +1,20 @@
 import { Router, type RequestHandler } from "express";
-import multer from "multer";
 import { photoListResponse, photoUploadResponse } from "../../../src/lib/contracts/photos.js";
 import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
-import { uploadTmpDir } from "../cases/upload-dir.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import { toPhotoDto } from "./photo.mapper.js";
-import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_UPLOAD, type PhotoService } from "./photo.service.js";
+import { NotFoundError } from "../../lib/errors.js";
+import { photoUpload as receivePhotos } from "./photo-upload.js";
+import type { PhotoService } from "./photo.service.js";
 
 /** Mounted at /api/cases: a case's photos, `GET` and `POST /:id/photos`. */
 export function createCasePhotosRouter({ cases, photos }: { cases: CaseService; photos: PhotoService }): Router {
   const router = Router();
   router.use(requireAuth);
-  const photoUpload = multer({
-    dest: uploadTmpDir,
-    limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 },
-  }).array("photos", MAX_PHOTOS_PER_UPLOAD);
+  const photoUpload = receivePhotos(photos.incomingDir);
 
   router.get("/:id/photos", async (req, res) => {
     const { id } = parse(idParamsSchema, req.params, "params");
@@ -50,11 +47,17 @@ export function createPhotosRouter({ photos }: { photos: PhotoService }): Router
   router.use(requireAuth);
   const send =
     (variant: "display" | "thumbnail"): RequestHandler =>
-    async (req, res) => {
+    async (req, res, next) => {
       const { id } = parse(idParamsSchema, req.params, "params");
       const file = await photos.fileFor(actorOf(req), id, variant);
       res.set("Cache-Control", "private, max-age=3600");
-      res.type("image/jpeg").sendFile(file);
+      res.type("image/jpeg").sendFile(file, (err?: Error & { code?: string }) => {
+        if (!err || res.headersSent) return;
+        // The error is answered in JSON: not as a JPEG, and not cached.
+        res.removeHeader("Content-Type");
+        res.removeHeader("Cache-Control");
+        next(err.code === "ENOENT" ? new NotFoundError("This photo's file is missing.") : err);
+      });
     };
   router.get("/:id", send("display"));
   router.get("/:id/thumbnail", send("thumbnail"));

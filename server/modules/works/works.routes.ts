@@ -7,13 +7,12 @@ import {
   workOrderPageResponse,
 } from "../../../src/lib/contracts/works.js";
 import { shaped } from "../../lib/contract.js";
-import multer from "multer";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import type { Actor } from "../auth/actor.js";
-import { uploadTmpDir } from "../cases/upload-dir.js";
 import { toPhotoDto } from "../photos/photo.mapper.js";
-import { MAX_PHOTO_BYTES, MAX_PHOTOS_PER_UPLOAD, type PhotoService } from "../photos/photo.service.js";
+import { photoUpload as receivePhotos } from "../photos/photo-upload.js";
+import type { PhotoService } from "../photos/photo.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { VerificationService } from "./verification.service.js";
 import type { WorkOrder } from "./work-order.entity.js";
@@ -71,10 +70,7 @@ export function createCaseWorksRouter({ works, verification }: Deps): Router {
 /** `/api/work-orders`: the maintenance lead's list, scheduling, completion, photos and the tenant's answer. */
 export function createWorkOrdersRouter({ works, photos }: Deps): Router {
   const router = Router();
-  const photoUpload = multer({
-    dest: uploadTmpDir,
-    limits: { fileSize: MAX_PHOTO_BYTES, files: MAX_PHOTOS_PER_UPLOAD, fields: 20 },
-  }).array("photos", MAX_PHOTOS_PER_UPLOAD);
+  const photoUpload = receivePhotos(photos.incomingDir);
 
   router.get("/", requireStaff, async (req, res) => {
     const query = parse(workOrderListQuerySchema, req.query, "query");
