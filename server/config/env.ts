@@ -50,6 +50,8 @@ const schema = z
     WORKER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
     WORKER_QUEUE: z.coerce.number().int().min(1).default(64),
     WORKER_MEMORY_MB: z.coerce.number().int().min(32).default(512),
+    CALCULATOR_READINGS_PER_MINUTE: z.coerce.number().int().min(1).default(200_000),
+    CALCULATOR_MAX_ANONYMOUS_READINGS: z.coerce.number().int().min(1).default(10_000),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === "production") {
@@ -80,6 +82,8 @@ export interface Config {
   shutdown: { delayMs: number; timeoutMs: number };
   /** The worker pool for CPU-heavy work (server/workers): threads, queue length, heap cap per thread. */
   workers: { threads: number; maxQueue: number; memoryMb: number };
+  /** The public series calculator: readings each address may have evaluated a minute; most readings per anonymous request. */
+  calculator: { readingsPerMinute: number; maxAnonymousReadings: number };
 }
 
 // Development-only defaults, so a fresh clone runs without a .env file. Production must set its own.
@@ -113,6 +117,10 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       threads: e.WORKER_THREADS ?? Math.max(1, Math.min(4, availableParallelism() - 1)),
       maxQueue: e.WORKER_QUEUE,
       memoryMb: e.WORKER_MEMORY_MB,
+    },
+    calculator: {
+      readingsPerMinute: e.CALCULATOR_READINGS_PER_MINUTE,
+      maxAnonymousReadings: e.CALCULATOR_MAX_ANONYMOUS_READINGS,
     },
   };
 }
