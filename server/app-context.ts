@@ -76,7 +76,6 @@ export function createServices(
   // The pool for CPU-heavy work; services that need it take it from here (bench scripts get their own).
   workers: WorkerPool = new WorkerPool(config.workers),
 ): Services {
-  void workers;
   const mail = new MailService(dataSource, mailer, logger, clock);
   const properties = new PropertyService(dataSource, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
@@ -85,8 +84,8 @@ export function createServices(
   const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const photos = new PhotoService(dataSource, config, cases);
-  const readings = new ReadingService(dataSource, cases, clock);
-  const imports = new ReadingImportService(dataSource, cases, clock);
+  const readings = new ReadingService(dataSource, cases, clock, (input) => workers.run("evaluateRoomFromDb", input));
+  const imports = new ReadingImportService(dataSource, cases, clock, readings);
   const evaluation = new EvaluationService(cases, readings);
   const assessments = new AssessmentService(dataSource, cases);
   const policy = new PolicyService(dataSource, cases);

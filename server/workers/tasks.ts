@@ -1,4 +1,5 @@
 import { evaluateSeriesRequest } from "../modules/psychrometrics/series.task.js";
+import { evaluateRoomFromDb } from "../modules/readings/room-evaluation.task.js";
 
 // Everything the worker pool can run, by name. Each task is a plain function of structured-clonable
 // input to structured-clonable output: CPU-heavy work (engine series, big evaluations, image decoding)
@@ -8,6 +9,8 @@ export const tasks = {
   echo: (input: { value: number }): { value: number } => ({ value: input.value }),
   /** The public calculator's series: JSON in, the engine's evaluation (or the 400's details) out. */
   evaluateSeriesRequest,
+  /** One room of a case: its readings read from the database and evaluated (ReadingService.roomEvaluations). */
+  evaluateRoomFromDb,
 };
 
 export type Tasks = typeof tasks;
