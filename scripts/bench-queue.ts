@@ -33,7 +33,8 @@ import { DataSource, type Logger as TypeOrmLogger } from "typeorm";
 import { computeDeadlines, ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, type HazardClass } from "../src/lib/domain/deadlines.js";
 import { hhsrsScore, LIKELIHOOD_POINTS } from "../src/lib/domain/hhsrs.js";
 import { hoursUntilDeadlinePartChanges, triagePriority, type TriageVulnerability } from "../src/lib/domain/triage-priority.js";
-import type { SeriesPoint, ReadingService } from "../server/modules/readings/reading.service.js";
+import type { EvaluationParams, SeriesPoint, ReadingService } from "../server/modules/readings/reading.service.js";
+import { evaluateSeries } from "../src/lib/domain/series.js";
 import type { CaseStatus } from "../src/lib/domain/case-workflow.js";
 import { createApp } from "../server/app.js";
 import { createAppContext, createServices } from "../server/app-context.js";
@@ -574,8 +575,31 @@ async function seed(
   // real risk engine over a case's rooms; here it reads the readings just generated instead of
   // the table they are about to be loaded into.
   let pending = new Map<number, SeriesPoint[]>();
+  // The evaluation reads stored per-room results; here each room's is worked out from the pending readings.
   const readingSource = {
-    seriesFor: async (_caseId: number, roomId?: number) => pending.get(roomId!) ?? [],
+    roomEvaluations: async (_caseId: number, roomIds: readonly number[], params: EvaluationParams) =>
+      new Map(
+        roomIds.map((roomId) => {
+          const series = pending.get(roomId) ?? [];
+          const last = series.at(-1);
+          return [
+            roomId,
+            {
+              readingsCount: series.length,
+              latest: last
+                ? {
+                    takenAt: last.at.toISOString(),
+                    airTemperatureC: last.airTemperatureC,
+                    relativeHumidityPct: last.relativeHumidityPct,
+                    surfaceTemperatureC: last.surfaceTemperatureC ?? null,
+                    outdoorTemperatureC: last.outdoorTemperatureC ?? null,
+                  }
+                : null,
+              series: series.length ? evaluateSeries({ readings: series, ...params }) : null,
+            },
+          ];
+        }),
+      ),
   } as unknown as ReadingService;
   const config = loadConfig({ ...process.env, NODE_ENV: "test" });
   const evaluation = new EvaluationService(

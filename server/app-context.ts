@@ -85,8 +85,8 @@ export function createServices(
   const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const photos = new PhotoService(dataSource, config, cases, workers, logger, clock);
-  const readings = new ReadingService(dataSource, cases, clock);
-  const imports = new ReadingImportService(dataSource, cases, clock);
+  const readings = new ReadingService(dataSource, cases, clock, (input) => workers.run("evaluateRoomFromDb", input));
+  const imports = new ReadingImportService(dataSource, cases, clock, readings);
   const evaluation = new EvaluationService(cases, readings);
   const assessments = new AssessmentService(dataSource, cases);
   const policy = new PolicyService(dataSource, cases);

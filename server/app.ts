@@ -63,7 +63,15 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   // Health and the public calculator API come before sessions: they must answer even when the
   // session store (MariaDB) does not, and they change nothing, so they need no CSRF token.
   api.use("/health", createHealthRouter({ dataSource: ctx.dataSource, isDraining }));
-  api.use("/psychrometrics", createPsychrometricsRouter());
+  api.use(
+    "/psychrometrics",
+    createPsychrometricsRouter({
+      workers: ctx.workers,
+      clock,
+      limits: config.calculator,
+      session: { store: ctx.sessionStore, secret: config.sessionSecret, cookieName: "dewline.sid" },
+    }),
+  );
   // The public risk-engine API's own document stays public; the whole API's is for staff (below).
   api.get("/psychrometrics/openapi.json", (_req, res) => {
     res.json(openApiDocument(config.appUrl));

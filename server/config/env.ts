@@ -54,6 +54,8 @@ const schema = z
     UPLOAD_MEGAPIXELS_PER_HOUR: z.coerce.number().positive().default(2000),
     UPLOAD_MB_PER_HOUR: z.coerce.number().positive().default(600),
     UPLOAD_MEGAPIXELS_PER_REQUEST: z.coerce.number().positive().default(300),
+    CALCULATOR_READINGS_PER_MINUTE: z.coerce.number().int().min(1).default(200_000),
+    CALCULATOR_MAX_ANONYMOUS_READINGS: z.coerce.number().int().min(1).default(10_000),
   })
   .superRefine((env, ctx) => {
     if (env.NODE_ENV === "production") {
@@ -88,6 +90,8 @@ export interface Config {
   workers: { threads: number; maxQueue: number; memoryMb: number };
   /** Photo uploads: each user's budget over the last hour, and the most pixels one request may ask to decode. */
   uploads: { pixelsPerHour: number; bytesPerHour: number; pixelsPerRequest: number };
+  /** The public series calculator: readings each address may have evaluated a minute; most readings per anonymous request. */
+  calculator: { readingsPerMinute: number; maxAnonymousReadings: number };
 }
 
 // Development-only defaults, so a fresh clone runs without a .env file. Production must set its own.
@@ -127,6 +131,10 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       pixelsPerHour: Math.round(e.UPLOAD_MEGAPIXELS_PER_HOUR * 1_000_000),
       bytesPerHour: Math.round(e.UPLOAD_MB_PER_HOUR * 1024 * 1024),
       pixelsPerRequest: Math.round(e.UPLOAD_MEGAPIXELS_PER_REQUEST * 1_000_000),
+    },
+    calculator: {
+      readingsPerMinute: e.CALCULATOR_READINGS_PER_MINUTE,
+      maxAnonymousReadings: e.CALCULATOR_MAX_ANONYMOUS_READINGS,
     },
   };
 }

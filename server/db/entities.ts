@@ -8,6 +8,7 @@ import { Photo } from "../modules/photos/photo.entity.js";
 import { PhotoUploadUsage } from "../modules/photos/photo-upload-usage.entity.js";
 import { ReadingImport } from "../modules/readings/reading-import.entity.js";
 import { Reading } from "../modules/readings/reading.entity.js";
+import { RoomEvaluation } from "../modules/readings/room-evaluation.entity.js";
 import { HhsrsAssessmentRecord } from "../modules/assessments/assessment.entity.js";
 import { Inspection } from "../modules/inspections/inspection.entity.js";
 import { WrittenSummary } from "../modules/inspections/written-summary.entity.js";
@@ -37,6 +38,7 @@ export const entities = [
   Photo,
   Reading,
   ReadingImport,
+  RoomEvaluation,
   HhsrsAssessmentRecord,
   Inspection,
   WrittenSummary,

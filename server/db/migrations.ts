@@ -15,6 +15,7 @@ import { CaseReadMarks1796400825803 } from "./migrations/1796400825803-CaseReadM
 import { HomesSortKeyAndVentilation1796400866674 } from "./migrations/1796400866674-HomesSortKeyAndVentilation.js";
 import { UserAuditEntries1796401046829 } from "./migrations/1796401046829-UserAuditEntries.js";
 import { PolicyEmergencyPhone1796401387060 } from "./migrations/1796401387060-PolicyEmergencyPhone.js";
+import { RoomEvaluations1796412626434 } from "./migrations/1796412626434-RoomEvaluations.js";
 import { PhotoUploadUsage1796412986381 } from "./migrations/1796412986381-PhotoUploadUsage.js";
 
 export const migrations = [
@@ -33,5 +34,6 @@ export const migrations = [
   HomesSortKeyAndVentilation1796400866674,
   UserAuditEntries1796401046829,
   PolicyEmergencyPhone1796401387060,
+  RoomEvaluations1796412626434,
   PhotoUploadUsage1796412986381,
 ];

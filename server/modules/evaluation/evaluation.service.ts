@@ -2,7 +2,6 @@ import {
   BUILDING_ELEMENTS,
   elementsForReport,
   evaluatePoint,
-  evaluateSeries,
   type ElementId,
   type PointResult,
   type SeriesResult,
@@ -12,7 +11,7 @@ import {
 import { surfaceHumidity } from "../../../src/lib/domain/wording.js";
 import type { Actor } from "../auth/actor.js";
 import type { Case, CaseService } from "../cases/case.service.js";
-import type { ReadingService } from "../readings/reading.service.js";
+import type { EvaluationParams, ReadingService, StoredRoomEvaluation } from "../readings/reading.service.js";
 
 export const INVESTIGATION_STATEMENT =
   "Your landlord will look into this report whatever the readings show: readings help us understand the cause, they never decide whether damp or mould is taken seriously.";
@@ -68,40 +67,52 @@ export class EvaluationService {
     return { state, mouldIndex };
   }
 
-  private async evaluate(c: Case): Promise<RoomEvaluation[]> {
-    const property = c.property!;
-    const elements = elementsForReport(property, c.locations);
+  /** The element and wetness a case's rooms are evaluated for. */
+  private paramsOf(c: Case): { elements: ElementId[]; params: EvaluationParams } {
+    const elements = elementsForReport(c.property!, c.locations);
     const surfaceWet = c.observations.includes("wet-patches") || c.observations.includes("leak");
-    const out: RoomEvaluation[] = [];
-    for (const room of this.cases.roomsOf(c)) {
-      const series = await this.readings.seriesFor(c.id, room.id);
-      if (series.length === 0) continue;
-      const last = series[series.length - 1]!;
-      const surfaces = elements.map((element, i) => ({
+    return { elements, params: { element: elements[0], surfaceWet } };
+  }
+
+  /** The surfaces of a room judged at its latest reading (cheap: one reading, no series). */
+  private surfacesAt(elements: ElementId[], last: StoredRoomEvaluation["latest"] & object): SurfaceEvaluation[] {
+    return elements.map((element, i) => ({
+      element,
+      label: i === 0 && last.surfaceTemperatureC !== null ? `${labelOf(element)} (measured surface)` : labelOf(element),
+      result: evaluatePoint({
+        airTemperatureC: last.airTemperatureC,
+        relativeHumidityPct: last.relativeHumidityPct,
+        // A surface thermometer reading belongs to the surface the report is mainly about.
+        surfaceTemperatureC: i === 0 ? (last.surfaceTemperatureC ?? undefined) : undefined,
+        outdoorTemperatureC: last.outdoorTemperatureC ?? undefined,
         element,
-        label: i === 0 && last.surfaceTemperatureC !== undefined ? `${labelOf(element)} (measured surface)` : labelOf(element),
-        result: evaluatePoint({
-          airTemperatureC: last.airTemperatureC,
-          relativeHumidityPct: last.relativeHumidityPct,
-          // A surface thermometer reading belongs to the surface the report is mainly about.
-          surfaceTemperatureC: i === 0 ? last.surfaceTemperatureC : undefined,
-          outdoorTemperatureC: last.outdoorTemperatureC,
-          element,
-        }),
-      }));
+      }),
+    }));
+  }
+
+  /**
+   * Each room from its stored evaluation (ReadingService.roomEvaluations): worked out again, on the
+   * worker pool, only for rooms whose readings changed since, so a big case is not read on every view.
+   */
+  private async evaluate(c: Case): Promise<RoomEvaluation[]> {
+    const { elements, params } = this.paramsOf(c);
+    const rooms = this.cases.roomsOf(c);
+    const stored = await this.readings.roomEvaluations(
+      c.id,
+      rooms.map((r) => r.id),
+      params,
+    );
+    const out: RoomEvaluation[] = [];
+    for (const room of rooms) {
+      const e = stored.get(room.id);
+      if (!e?.latest || e.readingsCount === 0) continue;
       out.push({
         roomId: room.id,
         roomName: room.name,
-        readingsCount: series.length,
-        latest: {
-          takenAt: new Date(last.at).toISOString(),
-          airTemperatureC: last.airTemperatureC,
-          relativeHumidityPct: last.relativeHumidityPct,
-          surfaceTemperatureC: last.surfaceTemperatureC ?? null,
-          outdoorTemperatureC: last.outdoorTemperatureC ?? null,
-        },
-        surfaces,
-        series: evaluateSeries({ readings: series, element: elements[0], surfaceWet }),
+        readingsCount: e.readingsCount,
+        latest: e.latest,
+        surfaces: this.surfacesAt(elements, e.latest),
+        series: e.series,
       });
     }
     return out;
@@ -110,9 +121,32 @@ export class EvaluationService {
   /** After new readings: tell the officers (once per case) when a surface is condensing or at mould risk. */
   async alertIfRisky(actor: Actor, caseId: number): Promise<void> {
     const c = await this.cases.getForActor(actor, caseId);
+    const { elements, params } = this.paramsOf(c);
+    const rooms = this.cases.roomsOf(c);
+    // The stored series are brought up to date off the request thread; the alert needs only the latest readings.
+    this.readings.refreshInBackground(
+      c.id,
+      rooms.map((r) => r.id),
+      params,
+    );
     if (c.officersAlertedAt) return;
-    const rooms = await this.evaluate(c);
-    const reasons = rooms.flatMap((r) =>
+    const latest = await this.readings.latestPerRoom(
+      c.id,
+      rooms.map((r) => r.id),
+    );
+    const judged = rooms.flatMap((room) => {
+      const last = latest.get(room.id);
+      if (!last) return [];
+      const view = {
+        takenAt: last.at.toISOString(),
+        airTemperatureC: last.airTemperatureC,
+        relativeHumidityPct: last.relativeHumidityPct,
+        surfaceTemperatureC: last.surfaceTemperatureC ?? null,
+        outdoorTemperatureC: last.outdoorTemperatureC ?? null,
+      };
+      return [{ roomName: room.name, surfaces: this.surfacesAt(elements, view) }];
+    });
+    const reasons = judged.flatMap((r) =>
       r.surfaces
         .filter((s) => RISKY.has(s.result.surface.state))
         .map(

@@ -130,7 +130,7 @@ export function openApiDocument(serverUrl: string) {
       title: "Dewline risk engine",
       version: "1.0.0",
       description:
-        "Dew point, surface humidity, condensation and mould-growth risk from room readings. Public: no sign-in, no CSRF token, limited to 120 requests a minute per address. Elements: " +
+        "Dew point, surface humidity, condensation and mould-growth risk from room readings. Public: no sign-in, no CSRF token. /evaluate is limited to 120 requests a minute per address; /series to a budget of readings a minute per address (200 000 by default), with at most 10 000 readings per request without signing in. Elements: " +
         ELEMENT_IDS.join(", ") +
         ".",
     },
@@ -150,13 +150,13 @@ export function openApiDocument(serverUrl: string) {
       "/api/psychrometrics/series": {
         post: {
           summary: "Evaluate a time series of readings",
-          description: `Up to ${MAX_SERIES_READINGS} readings per request.`,
+          description: `Up to ${MAX_SERIES_READINGS} readings per request when signed in (the session cookie of the app), 10 000 by default otherwise. Each reading counts against the address's budget of readings a minute.`,
           requestBody: { required: true, content: { "application/json": { schema: z.toJSONSchema(evaluateSeriesSchema) } } },
           responses: {
             "200": { description: "The series evaluation.", content: { "application/json": { schema: seriesResult } } },
             "400": errorResponse("Invalid readings; the message names the field, e.g. readings.3.relativeHumidityPct."),
-            "413": errorResponse(`More than ${MAX_SERIES_READINGS} readings.`),
-            "429": errorResponse("Too many requests from this address."),
+            "413": errorResponse(`More readings than the caller's limit (${MAX_SERIES_READINGS} signed in).`),
+            "429": errorResponse("This address has used its budget of readings for the minute; see Retry-After."),
           },
         },
       },

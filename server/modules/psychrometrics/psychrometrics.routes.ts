@@ -1,35 +1,86 @@
-import express, { Router } from "express";
-import { evaluatePoint, evaluateSeries, type MaterialSensitivity } from "../../../src/lib/domain/index.js";
-import { evaluatePointSchema, evaluateSeriesSchema, MAX_SERIES_READINGS } from "../../../src/lib/schemas/psychrometrics.js";
-import { PayloadTooLargeError } from "../../lib/errors.js";
+import express, { Router, type Request, type RequestHandler } from "express";
+import type session from "express-session";
+import { ipKeyGenerator } from "express-rate-limit";
+import { evaluatePoint } from "../../../src/lib/domain/index.js";
+import { evaluatePointSchema, MAX_SERIES_READINGS } from "../../../src/lib/schemas/psychrometrics.js";
+import type { Clock } from "../../lib/clock.js";
+import { PayloadTooLargeError, TooManyRequestsError, ValidationError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
 import { limiter } from "../../middleware/rate-limit.js";
+import type { WorkerPool } from "../../workers/pool.js";
+import { ReadingBudget } from "./reading-budget.js";
+import { recogniseSignedIn } from "./signed-in.js";
+
+export interface PsychrometricsDeps {
+  workers: WorkerPool;
+  clock: Clock;
+  /** Readings each address may have evaluated a minute; most readings in one anonymous request. */
+  limits: { readingsPerMinute: number; maxAnonymousReadings: number };
+  /** Only read, to give signed-in callers the larger size limit (see signed-in.ts). */
+  session: { store: session.Store; secret: string; cookieName: string };
+}
+
+/** Bytes of JSON one reading may take (all fields, long numbers), for the body limit. */
+const BYTES_PER_READING = 250;
 
 /**
- * The public risk-engine API: no sign-in, no session and no CSRF token (it computes and stores
- * nothing), limited per IP.
+ * The public risk-engine API: no sign-in, no CSRF token (it computes and stores nothing).
+ * A point is cheap and limited to 120 requests a minute per address. A series is charged by its
+ * readings against a per-address budget, runs on the worker pool, and is capped at
+ * maxAnonymousReadings for anonymous callers and MAX_SERIES_READINGS for signed-in ones.
  */
-export function createPsychrometricsRouter(): Router {
+export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
   const router = Router();
-  router.use(limiter({ windowMs: 60_000, limit: 120, message: "Too many calculations from this address." }));
+  const budget = new ReadingBudget(deps.limits.readingsPerMinute, deps.clock);
+  const anonymousMax = Math.min(deps.limits.maxAnonymousReadings, MAX_SERIES_READINGS);
+  const keep = (req: Request, _res: unknown, buf: Buffer) => {
+    (req as Request & { rawBody?: Buffer }).rawBody = buf;
+  };
+  const anonymousJson = express.json({ limit: Math.max(64 * 1024, anonymousMax * BYTES_PER_READING), verify: keep });
   // A year of readings at 5-minute intervals is about 10 MB of JSON; the reading count is checked below.
-  router.use(express.json({ limit: "20mb" }));
+  const signedInJson = express.json({ limit: MAX_SERIES_READINGS * BYTES_PER_READING, verify: keep });
+  const json: RequestHandler = (req, res, next) => (res.locals.signedIn ? signedInJson : anonymousJson)(req, res, next);
 
-  router.post("/evaluate", (req, res) => {
-    const input = parse(evaluatePointSchema, req.body);
-    res.json(evaluatePoint(input));
-  });
+  router.post(
+    "/evaluate",
+    limiter({ windowMs: 60_000, limit: 120, message: "Too many calculations from this address." }),
+    express.json({ limit: "100kb" }),
+    (req, res) => {
+      const input = parse(evaluatePointSchema, req.body);
+      res.json(evaluatePoint(input));
+    },
+  );
 
-  router.post("/series", (req, res) => {
-    const readings = (req.body as { readings?: unknown } | undefined)?.readings;
-    if (Array.isArray(readings) && readings.length > MAX_SERIES_READINGS) {
-      throw new PayloadTooLargeError(
-        `readings can hold at most ${MAX_SERIES_READINGS.toLocaleString("en-GB")} readings per request; this one has ${readings.length.toLocaleString("en-GB")}.`,
-      );
-    }
-    const input = parse(evaluateSeriesSchema, req.body);
-    res.json(evaluateSeries({ ...input, material: input.material as MaterialSensitivity | undefined }));
-  });
+  router.post(
+    "/series",
+    // A ceiling on requests too, far above what the reading budget lets through for real series.
+    limiter({ windowMs: 60_000, limit: 1_000, message: "Too many calculations from this address." }),
+    recogniseSignedIn(deps.session),
+    json,
+    async (req, res) => {
+      const signedIn = res.locals.signedIn === true;
+      const readings = (req.body as { readings?: unknown } | undefined)?.readings;
+      const count = Array.isArray(readings) ? readings.length : 1;
+      const max = signedIn ? MAX_SERIES_READINGS : anonymousMax;
+      if (count > max) {
+        throw new PayloadTooLargeError(
+          `readings can hold at most ${max.toLocaleString("en-GB")} readings per request${signedIn ? "" : " without signing in (sign in for up to " + MAX_SERIES_READINGS.toLocaleString("en-GB") + ")"}; this one has ${count.toLocaleString("en-GB")}.`,
+        );
+      }
+      const spent = budget.take(ipKeyGenerator(req.ip ?? "unknown"), Math.max(1, count));
+      if (!spent.ok) {
+        const minutes = Math.ceil(spent.retryAfterSeconds / 60);
+        throw new TooManyRequestsError(
+          `This address has had its ${deps.limits.readingsPerMinute.toLocaleString("en-GB")} readings a minute evaluated. Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.`,
+          spent.retryAfterSeconds,
+        );
+      }
+      const raw = (req as Request & { rawBody?: Buffer }).rawBody;
+      const out = await deps.workers.run("evaluateSeriesRequest", { json: raw ?? Buffer.from(JSON.stringify(req.body ?? {})) });
+      if (!out.ok) throw new ValidationError(out.message, out.details);
+      res.json(out.result);
+    },
+  );
 
   return router;
 }

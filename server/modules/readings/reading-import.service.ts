@@ -191,6 +191,8 @@ export class ReadingImportService {
     private readonly dataSource: DataSource,
     private readonly events: CaseEventRecorder,
     private readonly clock: Clock,
+    /** ReadingService: marks the room's stored evaluation out of date in the import's transaction. */
+    private readonly changes: { markChanged(m: EntityManager, caseId: number, roomIds: readonly number[]): Promise<void> },
   ) {}
 
   /** How we would read the file, from its first 64 KB. 422 when it is not UTF-8 CSV or lacks the columns we need. */
@@ -242,6 +244,7 @@ export class ReadingImportService {
           report.firstRejections,
         );
       }
+      if (counts.imported > 0) await this.changes.markChanged(m, input.caseId, [input.roomId]);
       await repo.update(record.id, {
         imported: counts.imported,
         duplicates: counts.duplicates,

@@ -9,6 +9,18 @@ import { AIR_TEMPERATURE_C, OUTDOOR_TEMPERATURE_C, RELATIVE_HUMIDITY_PCT, SURFAC
 import { round2 } from "./csv/numbers.js";
 import { toSqlUtc } from "./csv/rows.js";
 import type { ReadingSource } from "./reading.entity.js";
+import { evaluateRoomFromDb, type RoomEvaluationInput, type StoredRoomEvaluation } from "./room-evaluation.task.js";
+
+export type { StoredRoomEvaluation } from "./room-evaluation.task.js";
+
+/** Works one room's evaluation out from the database: on the worker pool in the app (createServices). */
+export type RoomEvaluator = (input: RoomEvaluationInput) => Promise<{ version: number; evaluation: StoredRoomEvaluation }>;
+
+/** What a room's stored evaluation was worked out for (the case's main element and whether a surface is wet). */
+export interface EvaluationParams {
+  element?: RoomEvaluationInput["element"];
+  surfaceWet: boolean;
+}
 
 export interface ManualReading {
   roomId: number;
@@ -86,11 +98,135 @@ export interface CaseEventRecorder {
 }
 
 export class ReadingService {
+  /** Recomputations running now, by case, room, version and params, so concurrent readers share one. */
+  private readonly running = new Map<string, Promise<StoredRoomEvaluation>>();
+
   constructor(
     private readonly dataSource: DataSource,
     private readonly events: CaseEventRecorder,
     private readonly clock: Clock = systemClock,
+    private readonly evaluator: RoomEvaluator = evaluateRoomFromDb,
   ) {}
+
+  /**
+   * Marks the stored evaluations of these rooms out of date, inside the transaction that changed
+   * their readings (every writer of readings calls it, last, so the row lock is held briefly).
+   */
+  async markChanged(m: EntityManager, caseId: number, roomIds: readonly number[]): Promise<void> {
+    const rooms = [...new Set(roomIds)].sort((a, b) => a - b);
+    if (rooms.length === 0) return;
+    await m.query(
+      "INSERT INTO room_evaluations (case_id, room_id, readings_version) VALUES " +
+        rooms.map(() => "(?, ?, 1)").join(", ") +
+        " ON DUPLICATE KEY UPDATE readings_version = readings_version + 1",
+      rooms.flatMap((roomId) => [caseId, roomId]),
+    );
+  }
+
+  /**
+   * The evaluation of each of these rooms: the stored one while it is current, otherwise worked out
+   * again from the database (on the worker pool) and stored, unless the readings changed meanwhile.
+   */
+  async roomEvaluations(
+    caseId: number,
+    roomIds: readonly number[],
+    params: EvaluationParams,
+  ): Promise<Map<number, StoredRoomEvaluation>> {
+    const out = new Map<number, StoredRoomEvaluation>();
+    if (roomIds.length === 0) return out;
+    const key = `${params.element ?? ""}|${params.surfaceWet ? "wet" : "dry"}`;
+    const rows: {
+      room_id: number;
+      readings_version: number;
+      computed_version: number | null;
+      params: string | null;
+      result: string | null;
+    }[] = await this.dataSource.query(
+      `SELECT room_id, readings_version, computed_version, params, result FROM room_evaluations WHERE case_id = ? AND room_id IN (${roomIds.map(() => "?").join(",")})`,
+      [caseId, ...roomIds],
+    );
+    const byRoom = new Map(rows.map((r) => [r.room_id, r]));
+    await Promise.all(
+      roomIds.map(async (roomId) => {
+        const row = byRoom.get(roomId);
+        if (row && row.result !== null && row.computed_version === row.readings_version && row.params === key) {
+          out.set(roomId, JSON.parse(row.result) as StoredRoomEvaluation);
+          return;
+        }
+        out.set(roomId, await this.recompute(caseId, roomId, params, key, row !== undefined));
+      }),
+    );
+    return out;
+  }
+
+  /** Starts bringing these rooms' stored evaluations up to date without waiting (after readings were added). */
+  refreshInBackground(caseId: number, roomIds: readonly number[], params: EvaluationParams): void {
+    this.roomEvaluations(caseId, roomIds, params).catch(() => undefined);
+  }
+
+  private recompute(
+    caseId: number,
+    roomId: number,
+    params: EvaluationParams,
+    key: string,
+    rowExists: boolean,
+  ): Promise<StoredRoomEvaluation> {
+    const id = `${caseId}:${roomId}:${key}`;
+    const running = this.running.get(id);
+    if (running) return running;
+    const work = (async () => {
+      const db = dbOf(this.dataSource);
+      const { version, evaluation } = await this.evaluator({
+        db,
+        caseId,
+        roomId,
+        element: params.element,
+        surfaceWet: params.surfaceWet,
+      });
+      const json = JSON.stringify(evaluation);
+      const now = this.clock.now();
+      // Stored only if the readings did not change while it was worked out (the version still matches).
+      if (rowExists || version > 0) {
+        await this.dataSource.query(
+          "UPDATE room_evaluations SET result = ?, computed_version = ?, params = ?, computed_at = ? WHERE case_id = ? AND room_id = ? AND readings_version = ?",
+          [json, version, key, now, caseId, roomId, version],
+        );
+      } else {
+        await this.dataSource.query(
+          "INSERT IGNORE INTO room_evaluations (case_id, room_id, readings_version, computed_version, params, result, computed_at) VALUES (?, ?, 0, 0, ?, ?, ?)",
+          [caseId, roomId, key, json, now],
+        );
+      }
+      return evaluation;
+    })().finally(() => this.running.delete(id));
+    this.running.set(id, work);
+    return work;
+  }
+
+  /** The latest reading of each of these rooms (the unique index's last entry per room; no series is read). */
+  async latestPerRoom(caseId: number, roomIds: readonly number[]): Promise<Map<number, SeriesPoint>> {
+    const out = new Map<number, SeriesPoint>();
+    for (const roomId of roomIds) {
+      const rows: Pick<
+        ReadingRow,
+        "taken_at" | "air_temperature_c" | "relative_humidity_pct" | "surface_temperature_c" | "outdoor_temperature_c"
+      >[] = await this.dataSource.query(
+        "SELECT taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c FROM readings WHERE case_id = ? AND room_id = ? ORDER BY taken_at DESC LIMIT 1",
+        [caseId, roomId],
+      );
+      const r = rows[0];
+      if (!r) continue;
+      const reading: SeriesPoint = {
+        at: r.taken_at,
+        airTemperatureC: Number(r.air_temperature_c),
+        relativeHumidityPct: Number(r.relative_humidity_pct),
+      };
+      if (r.surface_temperature_c !== null) reading.surfaceTemperatureC = Number(r.surface_temperature_c);
+      if (r.outdoor_temperature_c !== null) reading.outdoorTemperatureC = Number(r.outdoor_temperature_c);
+      out.set(roomId, reading);
+    }
+    return out;
+  }
 
   /**
    * Adds readings typed in by hand, in one transaction. A reading at a time the room already has
@@ -130,6 +266,7 @@ export class ReadingService {
       }
       const duplicates = readings.length - imported;
       const roomIds = [...new Set(readings.map((r) => r.roomId))];
+      if (imported > 0) await this.markChanged(m, caseId, roomIds);
       await this.events.recordEvent(m, {
         caseId,
         actorId: options.actorId,
@@ -260,4 +397,16 @@ export class ReadingService {
     }
     return [...byRoom.values()];
   }
+}
+
+/** The connection settings of the app's data source, for a worker's own connection. */
+function dbOf(dataSource: DataSource): RoomEvaluationInput["db"] {
+  const o = dataSource.options as { host?: string; port?: number; username?: string; password?: string; database?: string };
+  return {
+    host: o.host ?? "127.0.0.1",
+    port: o.port ?? 3306,
+    user: o.username ?? "",
+    password: o.password ?? "",
+    name: o.database ?? "",
+  };
 }
