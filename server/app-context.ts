@@ -10,6 +10,7 @@ import { createMailer, type Mailer } from "./lib/mailer.js";
 import { AssessmentService } from "./modules/assessments/assessment.service.js";
 import { InspectionService } from "./modules/inspections/inspection.service.js";
 import { PolicyService } from "./modules/policy/policy.service.js";
+import { AfterReply } from "./modules/auth/after-reply.js";
 import { AuthService } from "./modules/auth/auth.service.js";
 import { CaseService } from "./modules/cases/case.service.js";
 import { DigestService } from "./modules/digest/digest.service.js";
@@ -82,7 +83,17 @@ export function createServices(
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock);
   const organisations = new OrganisationService(dataSource);
-  const auth = new AuthService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
+  const auth = new AuthService(
+    dataSource,
+    config,
+    mail,
+    properties,
+    tenancies,
+    users,
+    organisations,
+    clock,
+    new AfterReply(logger),
+  );
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   const photos = new PhotoService(dataSource, config, cases, workers, logger, clock);
   const readings = new ReadingService(dataSource, cases, clock, (input) => workers.run("evaluateRoomFromDb", input));
@@ -144,9 +155,12 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     // The table comes from our migrations.
     createDatabaseTable: false,
     clearExpired: true,
+    // No UPDATE per request: a signed-in session is saved when it changes, at most once a minute otherwise.
+    disableTouch: true,
     checkExpirationInterval: 15 * 60_000,
     expiration: 12 * 3_600_000,
   });
+  const services = createServices(config, dataSource, mailer, logger, clock, workers);
   return {
     config,
     clock,
@@ -155,8 +169,10 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     mailer,
     workers,
     sessionStore: store,
-    services: createServices(config, dataSource, mailer, logger, clock, workers),
+    services,
     async close() {
+      // Links being e-mailed after a reply finish before the database closes.
+      await services.auth.settled();
       mailer.close();
       await workers.close();
       await store.close().catch(() => undefined);

@@ -11,6 +11,7 @@ import { requestId } from "./middleware/request-id.js";
 import { createApiDocsRouter } from "./modules/api-docs/api-docs.routes.js";
 import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
+import { touchSessionsAtMostEveryMinute } from "./modules/auth/session.js";
 import { createAssessmentsRouter } from "./modules/assessments/assessments.routes.js";
 import { createInspectionsRouter } from "./modules/inspections/inspections.routes.js";
 import { createPolicyRouter } from "./modules/policy/policy.routes.js";
@@ -86,11 +87,12 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
       store: ctx.sessionStore,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      // Saved only when it changes; a signed-in session is extended at most once a minute (below).
+      rolling: false,
       cookie: {
         httpOnly: true,
         sameSite: "lax",
-        // Secure whenever the request came over HTTPS (behind a proxy, set TRUST_PROXY=true).
+        // Secure whenever the request came over HTTPS (behind a proxy, set TRUST_PROXY to its hop count).
         secure: "auto",
         maxAge: 12 * 3_600_000,
       },
@@ -98,6 +100,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   );
   const passport = createPassport(services.auth);
   api.use(passport.session());
+  api.use(touchSessionsAtMostEveryMinute(clock));
 
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req) => req.get("x-csrf-token"),
@@ -105,7 +108,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   });
   api.use(csrfSynchronisedProtection);
 
-  api.use("/auth", createAuthRouter({ config, auth: services.auth, passport, csrfToken: generateToken }));
+  api.use("/auth", createAuthRouter({ config, auth: services.auth, clock, csrfToken: generateToken }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
   api.use("/me", createMyUnreadRouter({ conversation: services.conversation }));
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));

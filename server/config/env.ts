@@ -1,5 +1,6 @@
 // The only reader of process.env. Everything else imports the checked Config.
 import { existsSync } from "node:fs";
+import { isIP } from "node:net";
 import { availableParallelism } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
@@ -15,6 +16,38 @@ function findProjectRoot(from: string): string {
 const projectRoot = findProjectRoot(path.dirname(fileURLToPath(import.meta.url)));
 
 const port = z.coerce.number().int().min(1).max(65535);
+
+/**
+ * TRUST_PROXY in Express's "trust proxy" forms that name what to trust: a hop count, or proxy
+ * addresses/CIDR ranges (and Express's names loopback, linklocal, uniquelocal), comma-separated.
+ * Never `true` (trust every hop): then anyone picks their own address with X-Forwarded-For.
+ */
+function parseTrustProxy(text: string | undefined): { value: false | number | string[] } | { error: string } {
+  const t = (text ?? "").trim();
+  if (t === "" || t === "false" || t === "0") return { value: false };
+  if (t === "true") {
+    return {
+      error:
+        "TRUST_PROXY=true would trust every hop, so any client could choose its own address with X-Forwarded-For. Set the hop count instead (1 behind one proxy) or the proxies' addresses or CIDR ranges, comma-separated.",
+    };
+  }
+  if (/^\d+$/.test(t)) return { value: Number(t) };
+  const items = t.split(",").map((i) => i.trim());
+  const valid = (item: string) => {
+    if (["loopback", "linklocal", "uniquelocal"].includes(item)) return true;
+    const [address = "", prefix, extra] = item.split("/");
+    const family = isIP(address);
+    if (!family || extra !== undefined) return false;
+    return prefix === undefined || (/^\d{1,3}$/.test(prefix) && Number(prefix) <= (family === 4 ? 32 : 128));
+  };
+  const bad = items.filter((i) => !valid(i));
+  if (bad.length) {
+    return {
+      error: `TRUST_PROXY must be a hop count or proxy addresses/CIDR ranges, comma-separated; not understood: ${bad.join(", ")}`,
+    };
+  }
+  return { value: items };
+}
 
 const schema = z
   .object({
@@ -45,7 +78,7 @@ const schema = z
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).optional(),
     LOGIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
     LOGIN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
-    TRUST_PROXY: z.stringbool().default(false),
+    TRUST_PROXY: z.string().optional(),
     SHUTDOWN_DELAY_MS: z.coerce.number().int().min(0).default(0),
     SHUTDOWN_TIMEOUT_MS: z.coerce.number().int().min(0).default(10_000),
     WORKER_THREADS: z.coerce.number().int().min(1).max(64).optional(),
@@ -58,6 +91,8 @@ const schema = z
     CALCULATOR_MAX_ANONYMOUS_READINGS: z.coerce.number().int().min(1).default(10_000),
   })
   .superRefine((env, ctx) => {
+    const trust = parseTrustProxy(env.TRUST_PROXY);
+    if ("error" in trust) ctx.addIssue({ code: "custom", path: ["TRUST_PROXY"], message: trust.error });
     if (env.NODE_ENV === "production") {
       for (const key of ["DB_PASSWORD", "SESSION_SECRET", "APP_URL"] as const) {
         if (!env[key]) ctx.addIssue({ code: "custom", path: [key], message: `${key} must be set in production` });
@@ -80,7 +115,8 @@ export interface Config {
   clientDistDir: string;
   logLevel: string;
   login: { maxFailures: number; windowMs: number };
-  trustProxy: boolean;
+  /** Express's "trust proxy": false, a hop count or proxy addresses/CIDR ranges; never true. */
+  trustProxy: false | number | string[];
   /**
    * On SIGTERM/SIGINT: keep accepting for `delayMs` while readiness already fails (so a load balancer
    * stops sending traffic), then wait at most `timeoutMs` for requests and background jobs to finish.
@@ -119,7 +155,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     clientDistDir: e.CLIENT_DIST_DIR,
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === "test" ? "silent" : "info"),
     login: { maxFailures: e.LOGIN_MAX_FAILURES, windowMs: e.LOGIN_WINDOW_MINUTES * 60_000 },
-    trustProxy: e.TRUST_PROXY,
+    trustProxy: (parseTrustProxy(e.TRUST_PROXY) as { value: false | number | string[] }).value,
     shutdown: { delayMs: e.SHUTDOWN_DELAY_MS, timeoutMs: e.SHUTDOWN_TIMEOUT_MS },
     workers: {
       // One thread per core, leaving one for the request thread; at least one.

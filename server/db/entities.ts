@@ -15,6 +15,7 @@ import { WrittenSummary } from "../modules/inspections/written-summary.entity.js
 import { DeadlinePolicyRecord } from "../modules/policy/deadline-policy.entity.js";
 import { DeadlineDigest } from "../modules/digest/deadline-digest.entity.js";
 import { UserToken } from "../modules/auth/user-token.entity.js";
+import { SignInThrottle } from "../modules/auth/sign-in-throttle.entity.js";
 import { UserAuditEntry } from "../modules/users/user-audit.entity.js";
 import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
 import { Organisation } from "../modules/organisations/organisation.entity.js";
@@ -28,6 +29,7 @@ export const entities = [
   Organisation,
   User,
   UserToken,
+  SignInThrottle,
   UserAuditEntry,
   Property,
   Room,

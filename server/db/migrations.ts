@@ -16,6 +16,7 @@ import { HomesSortKeyAndVentilation1796400866674 } from "./migrations/1796400866
 import { UserAuditEntries1796401046829 } from "./migrations/1796401046829-UserAuditEntries.js";
 import { PolicyEmergencyPhone1796401387060 } from "./migrations/1796401387060-PolicyEmergencyPhone.js";
 import { RoomEvaluations1796412626434 } from "./migrations/1796412626434-RoomEvaluations.js";
+import { SignInWaitsAndSessionStamps1796412951142 } from "./migrations/1796412951142-SignInWaitsAndSessionStamps.js";
 import { PhotoUploadUsage1796412986381 } from "./migrations/1796412986381-PhotoUploadUsage.js";
 
 export const migrations = [
@@ -35,5 +36,6 @@ export const migrations = [
   UserAuditEntries1796401046829,
   PolicyEmergencyPhone1796401387060,
   RoomEvaluations1796412626434,
+  SignInWaitsAndSessionStamps1796412951142,
   PhotoUploadUsage1796412986381,
 ];

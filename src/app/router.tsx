@@ -68,6 +68,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             page("sign-in", () => import("./routes/auth/sign-in")),
             page("forgot-password", () => import("./routes/auth/forgot-password")),
             page("reset-password/:token", () => import("./routes/auth/reset-password")),
+            page("unlock-sign-in/:token", () => import("./routes/auth/unlock-sign-in")),
             page("invitation/:token", () => import("./routes/auth/invitation")),
             page("calculator", () => import("./routes/public/calculator")),
             page("*", () => import("./routes/not-found")),

@@ -61,7 +61,7 @@ function setup() {
     "POST /api/auth/invitations": (call) =>
       (call.body as { email: string }).email === "officer@example.org"
         ? apiError(409, "conflict", "Someone with that e-mail address already has an account.")
-        : { status: 201, body: { userId: 12, expiresAt: "2025-12-05T10:00:00.000Z" } },
+        : { status: 201, body: { expiresAt: "2025-12-05T10:00:00.000Z" } },
   });
   return { ...api, ...renderApp("/admin") };
 }

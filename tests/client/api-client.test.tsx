@@ -41,7 +41,7 @@ describe("api client", () => {
       "GET /api/auth/csrf": () => ({ body: { csrfToken: `token-${++issued}` } }),
       "POST /api/auth/invitations": (call) =>
         call.headers.get("X-CSRF-Token") === "token-2"
-          ? { status: 201, body: { userId: 9, expiresAt: "2026-01-04T10:00:00.000Z" } }
+          ? { status: 201, body: { expiresAt: "2026-01-04T10:00:00.000Z" } }
           : apiError(
               403,
               "csrf_invalid",
@@ -51,7 +51,7 @@ describe("api client", () => {
 
     const result = await api.post("/auth/invitations", { email: "a@example.org", name: "A", role: "officer" });
 
-    expect(result).toEqual({ userId: 9, expiresAt: "2026-01-04T10:00:00.000Z" });
+    expect(result).toEqual({ expiresAt: "2026-01-04T10:00:00.000Z" });
     expect(callsTo("GET", "/api/auth/csrf")).toHaveLength(2);
     expect(callsTo("POST", "/api/auth/invitations").map((c) => c.headers.get("X-CSRF-Token"))).toEqual(["token-1", "token-2"]);
   });

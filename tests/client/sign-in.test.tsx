@@ -49,18 +49,15 @@ describe("sign-in page", () => {
     expect(screen.getByRole("heading", { level: 1, name: "Sign in" })).toBeInTheDocument();
   });
 
-  it("shows when to try again after too many attempts", async () => {
-    mockApi({
+  it("asks for a short wait after too many attempts and offers a sign-in link by e-mail", async () => {
+    const wait =
+      "There have been several unsuccessful attempts to sign in to this account, so we ask for a short wait between tries. Please wait 30 seconds and try again.";
+    const sent = "If an active account uses that address, we have sent it a link. Open it in this browser, then sign in.";
+    const { callsTo } = mockApi({
       "GET /api/auth/me": unauthenticated,
       "GET /api/auth/csrf": { body: { csrfToken: "t" } },
-      "POST /api/auth/login": apiError(
-        429,
-        "too_many_requests",
-        "Too many unsuccessful sign-in attempts. Try again in 15 minutes.",
-        {
-          retryAfterSeconds: 900,
-        },
-      ),
+      "POST /api/auth/login": apiError(429, "too_many_requests", wait, { retryAfterSeconds: 30 }),
+      "POST /api/auth/sign-in-unlock/request": { status: 202, body: { message: sent } },
     });
     renderApp("/sign-in");
     const user = userEvent.setup();
@@ -69,7 +66,28 @@ describe("sign-in page", () => {
     await user.type(screen.getByLabelText("Password"), "guess");
     await user.click(screen.getByRole("button", { name: "Sign in" }));
 
-    expect(await screen.findByRole("alert")).toHaveTextContent("Try again in 15 minutes.");
+    const alert = await screen.findByRole("alert");
+    expect(alert).toHaveTextContent("Please wait 30 seconds and try again.");
+    await user.click(within(alert).getByRole("button", { name: "E-mail me a sign-in link" }));
+    expect(await within(alert).findByRole("status")).toHaveTextContent(sent);
+    expect(callsTo("POST", "/api/auth/sign-in-unlock/request")[0]!.body).toEqual({ email: "officer@example.org" });
+  });
+
+  it("opens an e-mailed sign-in link only when asked, then points to sign-in", async () => {
+    const { callsTo } = mockApi({
+      "GET /api/auth/me": unauthenticated,
+      "GET /api/auth/csrf": { body: { csrfToken: "t" } },
+      "POST /api/auth/sign-in-unlock": { status: 204 },
+    });
+    const token = "a".repeat(43);
+    renderApp(`/unlock-sign-in/${token}`);
+    const user = userEvent.setup();
+
+    await user.click(await screen.findByRole("button", { name: "Let me sign in in this browser" }));
+    const done = await screen.findByRole("status");
+    expect(done).toHaveTextContent("You can sign in now");
+    expect(callsTo("POST", "/api/auth/sign-in-unlock")[0]!.body).toEqual({ token });
+    expect(within(done).getByRole("link", { name: "Sign in" })).toHaveAttribute("href", "/sign-in");
   });
 
   it("signs in, keeps the new CSRF token and returns to the page that asked for it", async () => {

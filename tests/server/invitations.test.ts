@@ -27,17 +27,19 @@ beforeAll(async () => {
 });
 afterAll(() => t.close());
 
+/** The invited account's id (the invitation's answer does not tell it: see "another landlord" below). */
+const idOf = async (email: string, ds = t.ctx.dataSource) => (await ds.getRepository(User).findOneByOrFail({ email })).id;
+
 describe("invitations", () => {
   it("invites staff by e-mail; the single-use link sets a password and the person can sign in", async () => {
     const email = `new.officer.${Date.now()}@test.example`;
-    const res = await admin.post("/api/auth/invitations", { email, name: "Nia Quell", role: "officer" }).expect(201);
+    await admin.post("/api/auth/invitations", { email, name: "Nia Quell", role: "officer" }).expect(201);
+    const userId = await idOf(email);
     const mail = await t.mail.lastTo(email);
     expect(mail.subject).toContain("invited");
     const token = linkIn(mail.raw, "invitation");
 
-    const outbox = await t.ctx.dataSource
-      .getRepository(OutboxEmail)
-      .findOneByOrFail({ relatedType: "user", relatedId: res.body.userId });
+    const outbox = await t.ctx.dataSource.getRepository(OutboxEmail).findOneByOrFail({ relatedType: "user", relatedId: userId });
     // Staff get the staff wording (tests/server/users-admin.test.ts reads it).
     expect(outbox).toMatchObject({
       toAddress: email,
@@ -46,7 +48,7 @@ describe("invitations", () => {
       organisationId: landlord.org.id,
     });
     // Only the hash is stored.
-    const stored = await t.ctx.dataSource.getRepository(UserToken).findOneByOrFail({ userId: res.body.userId });
+    const stored = await t.ctx.dataSource.getRepository(UserToken).findOneByOrFail({ userId });
     expect(stored.tokenHash).not.toContain(token);
 
     const anon = await anonymousClient(t.app);
@@ -65,9 +67,9 @@ describe("invitations", () => {
 
   it("refuses an expired invitation link", async () => {
     const email = `late.${Date.now()}@test.example`;
-    const res = await admin.post("/api/auth/invitations", { email, name: "Late Comer", role: "maintenance" }).expect(201);
+    await admin.post("/api/auth/invitations", { email, name: "Late Comer", role: "maintenance" }).expect(201);
     const token = linkIn((await t.mail.lastTo(email)).raw, "invitation");
-    await t.ctx.dataSource.getRepository(UserToken).update({ userId: res.body.userId }, { expiresAt: msAgo(1000) });
+    await t.ctx.dataSource.getRepository(UserToken).update({ userId: await idOf(email) }, { expiresAt: msAgo(1000) });
     const anon = await anonymousClient(t.app);
     await anon.post("/api/auth/invitations/accept", { token, password: "a new long password" }).expect(404);
   });
@@ -75,7 +77,7 @@ describe("invitations", () => {
   it("lets an officer invite a tenant to one of their homes, creating the tenancy", async () => {
     const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
     const email = `new.tenant.${Date.now()}@test.example`;
-    const res = await officer
+    await officer
       .post("/api/auth/invitations", {
         email,
         name: "Ari Brook",
@@ -84,7 +86,7 @@ describe("invitations", () => {
         householdNotes: "Baby due in spring.",
       })
       .expect(201);
-    const tenancy = await t.ctx.dataSource.getRepository(Tenancy).findOneByOrFail({ tenantUserId: res.body.userId });
+    const tenancy = await t.ctx.dataSource.getRepository(Tenancy).findOneByOrFail({ tenantUserId: await idOf(email) });
     expect(tenancy).toMatchObject({ propertyId: landlord.home.id, endDate: null, householdNotes: "Baby due in spring." });
   });
 
@@ -98,7 +100,9 @@ describe("invitations", () => {
     await admin
       .post("/api/auth/invitations", { email: "x3@test.example", name: "X", role: "tenant", propertyId: other.home.id })
       .expect(404);
-    await admin.post("/api/auth/invitations", { email: landlord.officer.email, name: "X", role: "officer" }).expect(409);
+    const ours = await admin.post("/api/auth/invitations", { email: landlord.officer.email, name: "X", role: "officer" });
+    expect(ours.status).toBe(409);
+    expect(ours.body.error.message).toMatch(/already uses that address at your organisation/);
     await admin.post("/api/auth/invitations", { email: "x4@test.example", name: "X", role: "superuser" }).expect(400);
     const tenant = await signedInClient(t.app, landlord.tenant.email, PASSWORD);
     await tenant
@@ -112,10 +116,10 @@ describe("invitations", () => {
     try {
       const client = await signedInClient(broken.app, landlord.admin.email, PASSWORD);
       const email = `unsent.${Date.now()}@test.example`;
-      const res = await client.post("/api/auth/invitations", { email, name: "Un Sent", role: "officer" }).expect(201);
+      await client.post("/api/auth/invitations", { email, name: "Un Sent", role: "officer" }).expect(201);
       const row = await broken.ctx.dataSource
         .getRepository(OutboxEmail)
-        .findOneByOrFail({ relatedType: "user", relatedId: res.body.userId });
+        .findOneByOrFail({ relatedType: "user", relatedId: await idOf(email, broken.ctx.dataSource) });
       expect(row.status).toBe("failed");
       expect(row.error).toBeTruthy();
     } finally {
@@ -124,11 +128,60 @@ describe("invitations", () => {
   });
 });
 
+describe("inviting an address that already has an account with another landlord", () => {
+  it("answers exactly as for a new address, changes nothing, and tells the address's owner instead", async () => {
+    const fresh = `fresh.${Date.now()}@test.example`;
+    const created = await admin.post("/api/auth/invitations", { email: fresh, name: "Pat Fresh", role: "officer" }).expect(201);
+    const taken = await admin
+      .post("/api/auth/invitations", { email: other.maintenance.email, name: "Pat Taken", role: "officer" })
+      .expect(201);
+    expect(Object.keys(taken.body).sort()).toEqual(Object.keys(created.body).sort());
+    expect(taken.body.userId).toBeUndefined();
+    expect(taken.headers["content-length"]).toBe(created.headers["content-length"]);
+
+    const row = await t.ctx.dataSource.getRepository(User).findOneByOrFail({ email: other.maintenance.email });
+    expect(row).toMatchObject({
+      organisationId: other.org.id,
+      name: other.maintenance.name,
+      role: "maintenance",
+      status: "active",
+    });
+    const mail = await t.mail.lastTo(other.maintenance.email);
+    expect(mail.raw).toContain(landlord.org.name);
+    expect(mail.raw).toMatch(/already has a Dewline account/);
+    expect(mail.raw).not.toContain(other.org.name);
+    expect(mail.raw).not.toMatch(/invitation\/[A-Za-z0-9_-]{43}/);
+    // The other landlord's person still signs in as before.
+    await signedInClient(t.app, other.maintenance.email, PASSWORD);
+  });
+});
+
 describe("password reset", () => {
+  it("answers before doing any work for the account, so its timing says nothing about whether the account exists", async () => {
+    // Hold the account's row: any work for it (the link, the e-mail) would wait behind this lock.
+    const runner = t.ctx.dataSource.createQueryRunner();
+    await runner.startTransaction();
+    try {
+      await runner.query("SELECT id FROM users WHERE id = ? FOR UPDATE", [landlord.officer.id]);
+      const anon = await anonymousClient(t.app);
+      const known = await anon.post("/api/auth/password-reset", { email: landlord.officer.email }).timeout(8000).expect(202);
+      const unknown = await anon.post("/api/auth/password-reset", { email: "nobody.else@test.example" }).expect(202);
+      expect(known.body).toEqual(unknown.body);
+      expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "passwordReset" })).toBe(0);
+    } finally {
+      await runner.commitTransaction();
+      await runner.release();
+    }
+    await t.ctx.services.auth.settled();
+    expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "passwordReset" })).toBe(1);
+    expect(await outboxCount(t.ctx.dataSource, { to: "nobody.else@test.example" })).toBe(0);
+  });
+
   it("e-mails a single-use link that sets a new password; the old one stops working", async () => {
     const anon = await anonymousClient(t.app);
     const res = await anon.post("/api/auth/password-reset", { email: landlord.maintenance.email }).expect(202);
     expect(res.body.message).toMatch(/If an active account/);
+    await t.ctx.services.auth.settled();
     const token = linkIn((await t.mail.lastTo(landlord.maintenance.email)).raw, "reset-password");
     await anon.post("/api/auth/password-reset/confirm", { token, password: "brand new password 1" }).expect(204);
     await anon.post("/api/auth/password-reset/confirm", { token, password: "brand new password 2" }).expect(404);
@@ -140,7 +193,8 @@ describe("password reset", () => {
     const anon = await anonymousClient(t.app);
     const res = await anon.post("/api/auth/password-reset", { email: "nobody.here@test.example" }).expect(202);
     expect(res.body.message).toMatch(/If an active account/);
-    // The reply came after the outbox row would have been written: there is none.
+    // Once the work behind the reply has finished, there is no outbox row.
+    await t.ctx.services.auth.settled();
     expect(await outboxCount(t.ctx.dataSource, { to: "nobody.here@test.example" })).toBe(0);
   });
 });

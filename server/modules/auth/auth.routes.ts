@@ -3,78 +3,89 @@ import {
   csrfResponse,
   invitationCreatedResponse,
   invitationDescriptionResponse,
+  invitationSentResponse,
   loginResponse,
   passwordResetRequestedResponse,
+  signInUnlockRequestedResponse,
 } from "../../../src/lib/contracts/auth.js";
 import { shaped } from "../../lib/contract.js";
-import type { Authenticator } from "./passport.js";
+import { restamp } from "./passport.js";
 import type { Config } from "../../config/env.js";
-import { AppError } from "../../lib/errors.js";
+import type { Clock } from "../../lib/clock.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth, requireRole } from "../../middleware/auth.js";
-import { accountKey, limiter } from "../../middleware/rate-limit.js";
+import { bodyEmail, limiter } from "../../middleware/rate-limit.js";
 import { toMeDto } from "../users/user.mapper.js";
-import type { Actor } from "./actor.js";
+import { grantUnlock, markTouched, unlockedFor } from "./session.js";
+import { emailHash } from "./sign-in-throttle.service.js";
 import {
   acceptInvitationSchema,
   invitationSchema,
   loginSchema,
   passwordResetRequestSchema,
   passwordResetSchema,
+  signInUnlockRequestSchema,
+  signInUnlockSchema,
   tokenParamsSchema,
   userIdParamsSchema,
 } from "./auth.schemas.js";
-import type { AuthService } from "./auth.service.js";
+import type { AuthService, SessionActor } from "./auth.service.js";
 
 interface Deps {
   config: Config;
   auth: AuthService;
-  passport: Authenticator;
+  clock: Clock;
   csrfToken: (req: Request, overwrite?: boolean) => string;
 }
 
-function authenticate(passport: Authenticator, req: Request): Promise<Actor | false> {
-  return new Promise((resolve, reject) => {
-    passport.authenticate("local", { session: false }, (err: unknown, user: Actor | false) =>
-      err ? reject(err) : resolve(user),
-    )(req, undefined as never, reject);
-  });
-}
-
-const logIn = (req: Request, actor: Actor) =>
+const logIn = (req: Request, actor: SessionActor) =>
   new Promise<void>((resolve, reject) => req.logIn(actor, (err) => (err ? reject(err) : resolve())));
 const logOut = (req: Request) => new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
 
-export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): Router {
+export function createAuthRouter({ config, auth, clock, csrfToken }: Deps): Router {
   const router = Router();
-  const tooMany = "Too many unsuccessful sign-in attempts.";
-  const perIp = limiter({
+  // Per address: six times the per-account number of failures, so one person's mistakes (or a few
+  // people's) behind a shared address never block the others; guessing across many accounts is
+  // slowed. The owner of an account skips it with their e-mailed unlock link.
+  const perAddress = limiter({
     windowMs: config.login.windowMs,
-    limit: config.login.maxFailures,
+    limit: config.login.maxFailures * 6,
     failuresOnly: true,
-    message: tooMany,
-  });
-  const perAccount = limiter({
-    windowMs: config.login.windowMs,
-    limit: config.login.maxFailures,
-    failuresOnly: true,
-    key: accountKey,
-    message: tooMany,
+    skip: (req) => unlockedFor(req, emailHash(bodyEmail(req))),
+    message: "There have been many unsuccessful sign-ins from your network.",
+    hint: 'If you need to sign in sooner, choose "E-mail me a sign-in link" and open the link in this browser.',
   });
   const resetLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many password reset requests." });
+  const unlockLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many requests for a sign-in link." });
 
   router.get("/csrf", (req, res) => {
     res.json(shaped(csrfResponse, { csrfToken: csrfToken(req) }));
   });
 
-  router.post("/login", perIp, perAccount, async (req, res) => {
-    req.body = parse(loginSchema, req.body);
-    const actor = await authenticate(passport, req);
-    if (!actor)
-      throw new AppError(401, "invalid_credentials", "That e-mail address and password do not match an active account.");
+  router.post("/login", perAddress, async (req, res) => {
+    const { email, password } = parse(loginSchema, req.body);
+    const actor = await auth.signIn(email, password, unlockedFor(req, emailHash(email), true));
     // passport ≥ 0.6 regenerates the session here, so a pre-sign-in session id is never reused.
     await logIn(req, actor);
+    markTouched(req, clock);
     res.json(shaped(loginResponse, { user: toMeDto(actor), csrfToken: csrfToken(req, true) }));
+  });
+
+  /** Asks for a link that lets the account's owner skip the sign-in wait; the same answer for any address. */
+  router.post("/sign-in-unlock/request", unlockLimit, (req, res) => {
+    const { email } = parse(signInUnlockRequestSchema, req.body);
+    auth.requestUnlockLink(email);
+    res.status(202).json(
+      shaped(signInUnlockRequestedResponse, {
+        message: "If an active account uses that address, we have sent it a link. Open it in this browser, then sign in.",
+      }),
+    );
+  });
+
+  router.post("/sign-in-unlock", async (req, res) => {
+    const { token } = parse(signInUnlockSchema, req.body);
+    grantUnlock(req, await auth.useUnlockLink(token), config.login.maxFailures);
+    res.status(204).end();
   });
 
   router.post("/logout", async (req, res) => {
@@ -89,7 +100,8 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
   router.post("/invitations", requireRole("admin", "officer"), async (req, res) => {
     const input = parse(invitationSchema, req.body);
     const result = await auth.invite(actorOf(req), input);
-    res.status(201).json(shaped(invitationCreatedResponse, { userId: result.userId, expiresAt: result.expiresAt.toISOString() }));
+    // The same answer whether or not the address already has an account with another landlord.
+    res.status(201).json(shaped(invitationSentResponse, { expiresAt: result.expiresAt.toISOString() }));
   });
 
   router.post("/invitations/:userId/resend", requireRole("admin"), async (req, res) => {
@@ -115,9 +127,10 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
     res.status(204).end();
   });
 
-  router.post("/password-reset", resetLimit, async (req, res) => {
+  router.post("/password-reset", resetLimit, (req, res) => {
     const { email } = parse(passwordResetRequestSchema, req.body);
-    await auth.requestPasswordReset(email);
+    // Nothing is looked up before the reply: its timing is the same for any address.
+    auth.requestPasswordReset(email);
     res.status(202).json(
       shaped(passwordResetRequestedResponse, {
         message: "If an active account uses that address, we have sent it a link to choose a new password.",
@@ -127,7 +140,9 @@ export function createAuthRouter({ config, auth, passport, csrfToken }: Deps): R
 
   router.post("/password-reset/confirm", async (req, res) => {
     const { token, password } = parse(passwordResetSchema, req.body);
-    await auth.resetPassword(token, password);
+    const { userId, sessionEpoch } = await auth.resetPassword(token, password, req.sessionID);
+    // Every other session of the account has ended; this browser, if signed in as them, stays signed in.
+    if (req.user?.id === userId) restamp(req, { ...req.user, sessionEpoch });
     res.status(204).end();
   });
 

@@ -30,6 +30,10 @@ export const acceptInvitationSchema = z.object({ token: tokenSchema, password: n
 
 export const passwordResetRequestSchema = z.object({ email: emailSchema });
 
+export const signInUnlockSchema = z.object({ token: tokenSchema });
+
+export const signInUnlockRequestSchema = z.object({ email: emailSchema });
+
 export const passwordResetSchema = z.object({ token: tokenSchema, password: newPasswordSchema });
 
 export const invitationSchema = z

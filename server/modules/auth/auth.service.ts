@@ -1,6 +1,6 @@
 import { IsNull, MoreThan, type DataSource, type EntityManager } from "typeorm";
 import type { Config } from "../../config/env.js";
-import { ConflictError, ForbiddenError, NotFoundError } from "../../lib/errors.js";
+import { AppError, ConflictError, ForbiddenError, NotFoundError, TooManyRequestsError } from "../../lib/errors.js";
 import type { MailService } from "../mail/mail.service.js";
 import type { OrganisationService } from "../organisations/organisation.service.js";
 import type { PropertyService } from "../properties/property.service.js";
@@ -13,15 +13,26 @@ import { hashToken, newToken } from "./tokens.js";
 import { UserToken, type TokenPurpose } from "./user-token.entity.js";
 import type { Clock } from "../../lib/clock.js";
 import { roleLabels } from "../../../src/lib/roles.js";
+import type { AfterReply } from "./after-reply.js";
+import { emailHash, SignInThrottleService } from "./sign-in-throttle.service.js";
 
 const INVITATION_HOURS = 72;
 const RESET_MINUTES = 60;
+const UNLOCK_MINUTES = 60;
 const INVALID_LINK = "This link is not valid any more: it may have been used already or have expired. Ask for a new one.";
 
 const notWaiting = (status: string) =>
   status === "cancelled"
     ? "This invitation was cancelled. Invite the person again with the form instead."
     : "This person has already accepted their invitation, so there is nothing to send or cancel.";
+
+/** The signed-in actor with the session stamp their session is issued with (users.session_epoch). */
+export type SessionActor = Actor & { sessionEpoch: number };
+
+const waitMessage = (seconds: number) => {
+  const wait = seconds < 90 ? `${seconds} seconds` : `${Math.ceil(seconds / 60)} minutes`;
+  return `There have been several unsuccessful attempts to sign in to this account, so we ask for a short wait between tries. Please wait ${wait} and try again. If this is your account, we have e-mailed you a link that lets you sign in straight away.`;
+};
 
 export const toActor = (u: Person): Actor => ({
   id: u.id,
@@ -41,21 +52,90 @@ export class AuthService {
     private readonly users: UserService,
     private readonly organisations: OrganisationService,
     private readonly clock: Clock,
-  ) {}
-
-  /** The active user with these credentials, or null. Never says which half was wrong. */
-  async verifyCredentials(email: string, password: string): Promise<Actor | null> {
-    const user = await this.users.account({ email: email.trim().toLowerCase() });
-    const ok = await verifyPassword(user?.status === "active" ? user.passwordHash : null, password);
-    if (!user || !ok) return null;
-    await this.users.recordSignIn(user.id, this.clock.now());
-    return toActor(user);
+    private readonly later: AfterReply,
+  ) {
+    this.throttle = new SignInThrottleService(dataSource, clock, config.login.maxFailures);
   }
 
-  /** Loads the actor behind a session; null when the user is gone or no longer active. */
-  async actorById(id: number): Promise<Actor | null> {
+  private readonly throttle: SignInThrottleService;
+
+  /** Resolves once the work started after earlier replies (reset links, unlock links) has finished. */
+  settled(): Promise<void> {
+    return this.later.settled();
+  }
+
+  /**
+   * Signs in with an e-mail address and password. After repeated failures for an address (whether
+   * or not an account uses it) each try must wait a growing while (429 with Retry-After), checked
+   * before the password; `unlocked` (the owner's e-mailed link, opened in this browser) skips the wait.
+   * The same work is done whether or not the account exists; e-mail goes out after the reply.
+   */
+  async signIn(email: string, password: string, unlocked = false): Promise<SessionActor> {
+    email = email.trim().toLowerCase();
+    if (!unlocked) {
+      const wait = await this.throttle.claim(email);
+      if (wait !== null) throw new TooManyRequestsError(waitMessage(wait), wait);
+    }
+    const user = await this.users.account({ email });
+    const ok = await verifyPassword(user?.status === "active" ? user.passwordHash : null, password);
+    if (!user || !ok) {
+      const { notifyOwner } = await this.throttle.failed(email);
+      if (notifyOwner) this.later.run("sign-in unlock link", () => this.sendUnlockLink(email));
+      throw new AppError(401, "invalid_credentials", "That e-mail address and password do not match an active account.");
+    }
+    await this.throttle.succeeded(email);
+    await this.users.recordSignIn(user.id, this.clock.now());
+    return { ...toActor(user), sessionEpoch: user.sessionEpoch };
+  }
+
+  /** Loads the actor behind a session; null when the user is gone, no longer active or their sessions were ended since. */
+  async actorForSession(id: number, sessionEpoch: number): Promise<SessionActor | null> {
     const user = await this.users.account({ id });
-    return user && user.status === "active" ? toActor(user) : null;
+    return user && user.status === "active" && user.sessionEpoch === sessionEpoch
+      ? { ...toActor(user), sessionEpoch: user.sessionEpoch }
+      : null;
+  }
+
+  /** Asks for an unlock link by e-mail; the reply never depends on the address (the work happens after it). */
+  requestUnlockLink(email: string): void {
+    const normalised = email.trim().toLowerCase();
+    this.later.run("sign-in unlock link", async () => {
+      if (await this.throttle.claimUnlockMail(normalised)) await this.sendUnlockLink(normalised);
+    });
+  }
+
+  /** Uses an unlock link: the address whose wait this browser may now skip (its hash, as the session keeps it). */
+  async useUnlockLink(token: string): Promise<string> {
+    return this.dataSource.transaction(async (m) => {
+      const row = await this.consumeToken(m, token, "sign-in-unlock");
+      const user = await this.users.account({ id: row.userId }, m);
+      if (!user || user.status !== "active") throw new NotFoundError(INVALID_LINK);
+      return emailHash(user.email);
+    });
+  }
+
+  private async sendUnlockLink(email: string): Promise<void> {
+    const user = await this.users.account({ email });
+    if (!user || user.status !== "active") return;
+    const { token, hash } = newToken();
+    const deliver = await this.dataSource.transaction(async (m) => {
+      await this.saveToken(
+        m,
+        user.id,
+        "sign-in-unlock",
+        hash,
+        new Date(this.clock.now().getTime() + UNLOCK_MINUTES * 60_000),
+        null,
+      );
+      return this.mail.enqueue(m, {
+        to: user.email,
+        template: "signInUnlock",
+        organisationId: user.organisationId,
+        related: { type: "user", id: user.id },
+        data: { name: user.name, link: `${this.config.appUrl}/unlock-sign-in/${token}`, expiresMinutes: UNLOCK_MINUTES },
+      });
+    });
+    await deliver();
   }
 
   /**
@@ -63,20 +143,24 @@ export class AuthService {
    * The user, the tenancy, the token, the audit entry and the outbox row are written together. A
    * cancelled invitation's account (same landlord, same address) is invited again rather than refused.
    */
-  async invite(actor: Actor, input: InvitationInput): Promise<{ userId: number; expiresAt: Date }> {
+  async invite(actor: Actor, input: InvitationInput): Promise<{ expiresAt: Date }> {
     if (actor.role !== "admin" && !(actor.role === "officer" && input.role === "tenant")) {
       throw new ForbiddenError("Only an administrator can invite staff; officers can invite tenants.");
     }
     if (input.role === "tenant") await this.properties.getForStaff(actor, input.propertyId!);
     const { token, hash } = newToken();
     const expiresAt = new Date(this.clock.now().getTime() + INVITATION_HOURS * 3_600_000);
-    const { user, deliver } = await this.dataSource.transaction(async (m) => {
+    const deliver = await this.dataSource.transaction(async (m) => {
       const details = { organisationId: actor.organisationId, email: input.email, name: input.name, role: input.role };
       let user = await this.users.reviveCancelled(m, details);
       if (!user) {
-        if (await this.users.emailTaken(input.email, m)) {
-          throw new ConflictError("Someone with that e-mail address already has an account.");
+        const holder = await this.users.organisationOfEmail(input.email, m);
+        if (holder === actor.organisationId) {
+          throw new ConflictError("Someone already uses that address at your organisation: find them under People.");
         }
+        // Another landlord's account: the answer must not say so. The address's owner hears of the
+        // attempt instead (nothing about the other landlord), and nothing else changes.
+        if (holder !== null) return this.tellAddressInUse(m, actor, input.email);
         user = await this.users.createInvited(m, details);
       }
       if (input.role === "tenant") {
@@ -93,11 +177,20 @@ export class AuthService {
         action: "invited",
         to: user.role,
       });
-      const deliver = await this.sendInvitation(m, actor, user, hash, token, expiresAt);
-      return { user, deliver };
+      return this.sendInvitation(m, actor, user, hash, token, expiresAt);
     });
     await deliver();
-    return { userId: user.id, expiresAt };
+    return { expiresAt };
+  }
+
+  private async tellAddressInUse(m: EntityManager, actor: Actor, email: string) {
+    const organisationName = await this.organisations.nameOf(actor.organisationId, m);
+    return this.mail.enqueue(m, {
+      to: email,
+      template: "invitationAddressInUse",
+      organisationId: actor.organisationId,
+      data: { organisationName, inviterName: actor.name },
+    });
   }
 
   /**
@@ -190,8 +283,15 @@ export class AuthService {
     });
   }
 
-  /** Always succeeds from the caller's point of view, so it cannot be used to find accounts. */
-  async requestPasswordReset(email: string): Promise<void> {
+  /**
+   * Always succeeds from the caller's point of view, so it cannot be used to find accounts: the
+   * reply goes out before anything is looked up, and the link is made and e-mailed after it.
+   */
+  requestPasswordReset(email: string): void {
+    this.later.run("password reset link", () => this.sendResetLink(email));
+  }
+
+  private async sendResetLink(email: string): Promise<void> {
     const user = await this.users.account({ email });
     if (!user || user.status !== "active") return;
     const { token, hash } = newToken();
@@ -215,9 +315,17 @@ export class AuthService {
     await deliver();
   }
 
-  async resetPassword(token: string, password: string): Promise<void> {
+  /**
+   * Sets the new password and ends every session of the account except `keepSessionId` (the
+   * browser making the reset); returns the new session stamp, so that browser can carry it.
+   */
+  async resetPassword(
+    token: string,
+    password: string,
+    keepSessionId?: string,
+  ): Promise<{ userId: number; sessionEpoch: number }> {
     const passwordHash = await hashPassword(password);
-    await this.dataSource.transaction(async (m) => {
+    return this.dataSource.transaction(async (m) => {
       const row = await this.consumeToken(m, token, "password-reset");
       const user = await this.users.account({ id: row.userId }, m);
       if (!user || user.status !== "active") throw new NotFoundError(INVALID_LINK);
@@ -226,6 +334,8 @@ export class AuthService {
       await m
         .getRepository(UserToken)
         .update({ userId: user.id, purpose: "password-reset", usedAt: IsNull() }, { usedAt: this.clock.now() });
+      const sessionEpoch = await this.users.endSessions(m, user.id, keepSessionId);
+      return { userId: user.id, sessionEpoch };
     });
   }
 

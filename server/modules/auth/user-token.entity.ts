@@ -1,7 +1,7 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from "typeorm";
 import { User } from "../users/user.entity.js";
 
-export const TOKEN_PURPOSES = ["invitation", "password-reset"] as const;
+export const TOKEN_PURPOSES = ["invitation", "password-reset", "sign-in-unlock"] as const;
 export type TokenPurpose = (typeof TOKEN_PURPOSES)[number];
 
 /** A single-use, expiring link token. Only its SHA-256 is stored; the token itself is only ever in the e-mail. */

@@ -89,6 +89,33 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
+  signInUnlock(d: { name: string; link: string; expiresMinutes: number }): RenderedMail {
+    return {
+      subject: "Signing in to Dewline",
+      text: [
+        `Hello ${d.name},`,
+        "",
+        "There have been several unsuccessful attempts to sign in to your Dewline account, or someone asked us for this link. It may have been you; someone may have been trying to guess your password. Your account is safe and has not been locked.",
+        "",
+        "While the attempts go on, Dewline asks for a short wait between tries. To skip the wait in your own browser, open this link there, then sign in as usual:",
+        d.link,
+        "",
+        `The link works once and expires in ${d.expiresMinutes} minutes. If you do not know your password any more, use "Forgot your password?" on the sign-in page.`,
+      ].join("\n"),
+    };
+  },
+  invitationAddressInUse(d: { organisationName: string; inviterName: string }): RenderedMail {
+    return {
+      subject: `${d.organisationName} tried to invite you to Dewline`,
+      text: [
+        "Hello,",
+        "",
+        `${d.inviterName} at ${d.organisationName} tried to invite this e-mail address to Dewline. This address already has a Dewline account, and one address can only belong to one account, so nothing has been changed and no new account was opened.`,
+        "",
+        `If you expected this invitation, please tell ${d.organisationName} which other e-mail address they can invite you at. If you did not expect it, you can ignore this e-mail.`,
+      ].join("\n"),
+    };
+  },
   caseAcknowledgement(d: {
     name: string;
     reference: string;

@@ -51,6 +51,13 @@ export class User {
   @Column({ type: "varchar", length: 20, default: "active" })
   status: UserStatus;
 
+  /**
+   * Stamped into each session at sign-in; raised to end every session of the account (a password
+   * reset, a role change, the account disabled). A session with an older stamp is signed out.
+   */
+  @Column({ name: "session_epoch", type: "int", unsigned: true, default: 0 })
+  sessionEpoch: number;
+
   @Column({ name: "last_sign_in_at", type: "datetime", precision: 3, nullable: true })
   lastSignInAt: Date | null;
 

@@ -76,13 +76,15 @@ export class UserService {
   async account(
     where: { email: string } | { id: number },
     m: EntityManager = this.dataSource.manager,
-  ): Promise<(Person & Pick<User, "status" | "passwordHash">) | null> {
+  ): Promise<(Person & Pick<User, "status" | "passwordHash" | "sessionEpoch">) | null> {
     const u = await m.getRepository(User).findOneBy(where);
-    return u ? { ...personOf(u), status: u.status, passwordHash: u.passwordHash } : null;
+    return u ? { ...personOf(u), status: u.status, passwordHash: u.passwordHash, sessionEpoch: u.sessionEpoch } : null;
   }
 
-  async emailTaken(email: string, m: EntityManager = this.dataSource.manager): Promise<boolean> {
-    return m.getRepository(User).existsBy({ email });
+  /** The landlord whose account uses this address, or null when none does. */
+  async organisationOfEmail(email: string, m: EntityManager = this.dataSource.manager): Promise<number | null> {
+    const u = await m.getRepository(User).findOne({ where: { email }, select: { id: true, organisationId: true } });
+    return u?.organisationId ?? null;
   }
 
   /** A new account waiting for its invitation to be accepted (no password yet), in the caller's transaction. */
@@ -158,7 +160,7 @@ export class UserService {
    * An admin changes a person's name, role or status (active or disabled), in one transaction with
    * an audit entry per change. An admin cannot change their own role or status, and the landlord
    * always keeps at least one active admin. A tenant's account stays a tenant's and staff stay staff.
-   * Disabling ends the person's sessions at once.
+   * A role change and disabling end the person's sessions at once.
    */
   async update(actor: Actor, id: number, input: UserUpdateInput): Promise<User> {
     return this.dataSource.transaction(async (m) => {
@@ -218,15 +220,29 @@ export class UserService {
       if (status !== undefined) {
         await audit(status === "disabled" ? "disabled" : "enabled", null, null);
         user.status = status;
-        if (status === "disabled") await this.endSessions(m, user.id);
       }
-      return name === undefined && role === undefined && status === undefined ? user : repo.save(user);
+      if (name === undefined && role === undefined && status === undefined) return user;
+      const saved = await repo.save(user);
+      if (role !== undefined || status === "disabled") saved.sessionEpoch = await this.endSessions(m, user.id);
+      return saved;
     });
   }
 
-  /** Signs the person out everywhere: their stored sessions are deleted (passport keeps the user id in `passport.user`). */
-  async endSessions(m: EntityManager, userId: number): Promise<void> {
-    await m.query("DELETE FROM `sessions` WHERE JSON_VALUE(`data`, '$.passport.user') = ?", [String(userId)]);
+  /**
+   * Signs the person out everywhere (but `keepSessionId`, when given): their session stamp is raised,
+   * so any session issued before (on any app instance, even one whose row is written back later) is
+   * refused, and their stored sessions are deleted. Returns the new stamp.
+   */
+  async endSessions(m: EntityManager, userId: number, keepSessionId?: string): Promise<number> {
+    await m.getRepository(User).increment({ id: userId }, "sessionEpoch", 1);
+    await m.query("DELETE FROM `sessions` WHERE JSON_VALUE(`data`, '$.passport.user.id') = ? AND `session_id` <> ?", [
+      String(userId),
+      keepSessionId ?? "",
+    ]);
+    const { sessionEpoch } = await m
+      .getRepository(User)
+      .findOneOrFail({ where: { id: userId }, select: { id: true, sessionEpoch: true } });
+    return sessionEpoch;
   }
 
   /** Writes one line of an account's history, in the caller's transaction. */

@@ -10,7 +10,14 @@ export const csrfResponse = z.object({ csrfToken: z.string() });
 export const loginResponse = z.object({ user: meResponse, csrfToken: z.string() });
 export type LoginResponse = z.infer<typeof loginResponse>;
 
-/** POST /api/auth/invitations. */
+/**
+ * POST /api/auth/invitations: the same whether or not the address already has an account with another
+ * landlord (that must not be told), so it names no account.
+ */
+export const invitationSentResponse = z.object({ expiresAt: instant });
+export type InvitationSent = z.infer<typeof invitationSentResponse>;
+
+/** POST /api/auth/invitations/:userId/resend. */
 export const invitationCreatedResponse = z.object({ userId: id, expiresAt: instant });
 export type InvitationCreated = z.infer<typeof invitationCreatedResponse>;
 
@@ -20,3 +27,6 @@ export type InvitationDescription = z.infer<typeof invitationDescriptionResponse
 
 /** POST /api/auth/password-reset (202, the same whatever the address). */
 export const passwordResetRequestedResponse = messageResponse;
+
+/** POST /api/auth/sign-in-unlock/request (202, the same whatever the address). */
+export const signInUnlockRequestedResponse = messageResponse;

@@ -7,10 +7,12 @@ import { assessmentListResponse, assessmentResponse } from "./assessments.js";
 import {
   csrfResponse,
   invitationCreatedResponse,
+  invitationSentResponse,
   invitationDescriptionResponse,
   loginResponse,
   meResponse,
   passwordResetRequestedResponse,
+  signInUnlockRequestedResponse,
 } from "./auth.js";
 import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse, worseResponse } from "./cases.js";
 import { conversationResponse, messageSentResponse, readMarkResponse, unreadMessagesResponse } from "./conversation.js";
@@ -106,7 +108,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/auth/login", "public", "Sign in", loginResponse),
   e("POST", "/api/auth/logout", "public", "Sign out", null, 204),
   e("GET", "/api/auth/me", "signed-in", "The signed-in user", meResponse),
-  e("POST", "/api/auth/invitations", ["admin", "officer"], "Invite a person", invitationCreatedResponse, 201),
+  e("POST", "/api/auth/invitations", ["admin", "officer"], "Invite a person", invitationSentResponse, 201),
   e("GET", "/api/auth/invitations/:token", "public", "Who an invitation is for", invitationDescriptionResponse),
   e(
     "POST",
@@ -120,6 +122,15 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/auth/invitations/accept", "public", "Accept an invitation and choose a password", null, 204),
   e("POST", "/api/auth/password-reset", "public", "Ask for a password reset link", passwordResetRequestedResponse, 202),
   e("POST", "/api/auth/password-reset/confirm", "public", "Choose a new password with a reset link", null, 204),
+  e(
+    "POST",
+    "/api/auth/sign-in-unlock/request",
+    "public",
+    "Ask for a link that skips the sign-in wait",
+    signInUnlockRequestedResponse,
+    202,
+  ),
+  e("POST", "/api/auth/sign-in-unlock", "public", "Skip the sign-in wait in this browser with an e-mailed link", null, 204),
 
   e("GET", "/api/me/home", ["tenant"], "The tenant's home", myHomeResponse),
   e("GET", "/api/me/cases", ["tenant"], "The tenant's cases", myCasesResponse),

@@ -1,21 +1,25 @@
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
 import { TextLink } from "@/components/ui/text-link";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { signInSchema, useLogin, type SignInInput } from "../api/login";
+import { useRequestSignInLink } from "../api/sign-in-unlock";
 import type { User } from "../roles";
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void }) {
   const login = useLogin({ onSuccess: onSignedIn });
+  const signInLink = useRequestSignInLink();
   const {
     register,
     handleSubmit,
     setError,
+    control,
     formState: { errors },
   } = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: "", password: "" } });
+  const email = useWatch({ control, name: "email" });
 
   const onSubmit = handleSubmit((values) => {
     login.mutate(values, {
@@ -44,6 +48,22 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void })
           }
         >
           {errorMessage(serverError)}
+          {serverError instanceof ApiError && serverError.status === 429 ? (
+            <div className="mt-3">
+              {signInLink.isSuccess ? (
+                <p role="status">{signInLink.data.message}</p>
+              ) : (
+                <Button
+                  type="button"
+                  variant="secondary"
+                  disabled={signInLink.isPending || !email}
+                  onClick={() => signInLink.mutate(email)}
+                >
+                  E-mail me a sign-in link
+                </Button>
+              )}
+            </div>
+          ) : null}
         </Alert>
       ) : null}
       <Input

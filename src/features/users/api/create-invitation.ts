@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { z } from "zod";
 import { api } from "@/lib/api-client";
-import type { InvitationCreated } from "@/lib/contracts";
+import type { InvitationSent } from "@/lib/contracts";
 import { ROLES } from "@/lib/roles";
 import { userKeys } from "@/lib/query-keys";
 
@@ -24,11 +24,11 @@ export const invitationFormSchema = z
   });
 export type InvitationFormInput = z.infer<typeof invitationFormSchema>;
 
-export type { InvitationCreated };
+export type { InvitationSent };
 
-export function createInvitation(input: InvitationFormInput): Promise<InvitationCreated> {
+export function createInvitation(input: InvitationFormInput): Promise<InvitationSent> {
   const tenant = input.role === "tenant";
-  return api.post<InvitationCreated>("/auth/invitations", {
+  return api.post<InvitationSent>("/auth/invitations", {
     name: input.name,
     email: input.email,
     role: input.role,
