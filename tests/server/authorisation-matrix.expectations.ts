@@ -43,6 +43,8 @@ const ROWS: Record<string, Row> = {
   "POST /api/auth/invitations/accept":                          ["ok", "ok", "ok", "ok", "ok", "ok", "ok", "ok"],
   "POST /api/auth/password-reset":                              ["ok", "ok", "ok", "ok", "ok", "ok", "ok", "ok"],
   "POST /api/auth/password-reset/confirm":                      ["ok", "ok", "ok", "ok", "ok", "ok", "ok", "ok"],
+  "POST /api/auth/sign-in-unlock/request":                      ["ok", "ok", "ok", "ok", "ok", "ok", "ok", "ok"],
+  "POST /api/auth/sign-in-unlock":                              ["ok", "ok", "ok", "ok", "ok", "ok", "ok", "ok"],
   "GET /api/me/home":                                           [ 401, "ok", "ok",  403,  403,  403,  403,  403],
   "GET /api/me/cases":                                          [ 401, "ok", "ok",  403,  403,  403,  403,  403],
   "GET /api/me/unread-messages":                                [ 401, "ok", "ok", "ok", "ok", "ok", "ok", "ok"],
