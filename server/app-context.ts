@@ -77,7 +77,12 @@ export function createServices(
   workers: WorkerPool = new WorkerPool(config.workers),
 ): Services {
   void workers;
-  const mail = new MailService(dataSource, mailer, logger, clock);
+  const { connectionMs, greetingMs, socketMs } = config.smtpTimeouts;
+  const mail = new MailService(dataSource, mailer, logger, clock, {
+    maxAttempts: config.mailRelay.maxAttempts,
+    // A claim outlasts any one send with its SMTP timeouts, with room to spare.
+    leaseMs: Math.max(5 * 60_000, 3 * (connectionMs + greetingMs + socketMs)),
+  });
   const properties = new PropertyService(dataSource, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock);
@@ -145,6 +150,7 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     checkExpirationInterval: 15 * 60_000,
     expiration: 12 * 3_600_000,
   });
+  const services = createServices(config, dataSource, mailer, logger, clock, workers);
   return {
     config,
     clock,
@@ -153,8 +159,10 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     mailer,
     workers,
     sessionStore: store,
-    services: createServices(config, dataSource, mailer, logger, clock, workers),
+    services,
     async close() {
+      // Let a send already running finish (its SMTP timeouts bound it) before the database closes.
+      await services.mail.relay.stop();
       mailer.close();
       await workers.close();
       await store.close().catch(() => undefined);

@@ -15,6 +15,7 @@ import { CaseReadMarks1796400825803 } from "./migrations/1796400825803-CaseReadM
 import { HomesSortKeyAndVentilation1796400866674 } from "./migrations/1796400866674-HomesSortKeyAndVentilation.js";
 import { UserAuditEntries1796401046829 } from "./migrations/1796401046829-UserAuditEntries.js";
 import { PolicyEmergencyPhone1796401387060 } from "./migrations/1796401387060-PolicyEmergencyPhone.js";
+import { OutboxRelay1796412321162 } from "./migrations/1796412321162-OutboxRelay.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -32,4 +33,5 @@ export const migrations = [
   HomesSortKeyAndVentilation1796400866674,
   UserAuditEntries1796401046829,
   PolicyEmergencyPhone1796401387060,
+  OutboxRelay1796412321162,
 ];
