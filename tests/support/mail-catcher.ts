@@ -9,14 +9,35 @@ export interface CaughtMail {
   subject: string;
   /** The Message-ID header as sent (the outbox row's delivery key). */
   messageId: string;
+  /** The whole message, headers unfolded and parts decoded. */
   raw: string;
+  /** The decoded text/plain part alone (every e-mail also has an HTML part, which repeats the words). */
+  text: string;
+  /** The decoded text/html part, or "" when there is none. */
+  html: string;
+}
+
+/** One decoded part of the message by its content type: from after its headers to the next MIME boundary. */
+function partOf(decoded: string, type: string): string {
+  const at = decoded.search(new RegExp(`^Content-Type: ${type}`, "mi"));
+  if (at < 0) return "";
+  const rest = decoded.slice(at);
+  const start = rest.search(/\r?\n\r?\n/);
+  const body = rest.slice(start).replace(/^\r?\n\r?\n/, "");
+  const end = body.search(/\r?\n--[^\r\n]+/);
+  return end < 0 ? body : body.slice(0, end);
 }
 
 export interface MailCatcher {
   port: number;
   mails: CaughtMail[];
-  /** The newest e-mail to this address, waiting briefly for it to arrive. */
+  /**
+   * The newest e-mail to this address, once the app's relay has sent everything due (see `settle`),
+   * waiting briefly for it to arrive.
+   */
   lastTo(address: string, timeoutMs?: number): Promise<CaughtMail>;
+  /** Resolves when the app sending here has nothing in flight (createTestApp sets it to its relay's idle()). */
+  settle: () => Promise<void>;
   /** Stops listening (connections are refused, as from a mail server that is down); `start` listens again on the same port. */
   stop(): Promise<void>;
   start(): Promise<void>;
@@ -49,7 +70,15 @@ export async function startMailCatcher(options: { port?: number } = {}): Promise
           const raw = Buffer.concat(chunks).toString("utf8");
           const subject = /^Subject: (.*)$/m.exec(raw)?.[1]?.trim() ?? "";
           const messageId = /^Message-ID: *(.*)$/im.exec(raw.replace(/\r?\n[ \t]+/g, " "))?.[1]?.trim() ?? "";
-          mails.push({ to: session.envelope.rcptTo.map((r) => r.address), subject, messageId, raw: decode(raw) });
+          const decoded = decode(raw);
+          mails.push({
+            to: session.envelope.rcptTo.map((r) => r.address),
+            subject,
+            messageId,
+            raw: decoded,
+            text: partOf(decoded, "text/plain"),
+            html: partOf(decoded, "text/html"),
+          });
           callback();
         });
       },
@@ -72,12 +101,14 @@ export async function startMailCatcher(options: { port?: number } = {}): Promise
     if (s) await new Promise<void>((resolve) => s.close(() => resolve()));
   };
   await listen();
-  return {
+  const catcher: MailCatcher = {
     get port() {
       return port;
     },
     mails,
+    settle: async () => undefined,
     async lastTo(to, timeoutMs = 20_000) {
+      await catcher.settle();
       const deadline = Date.now() + timeoutMs;
       for (;;) {
         const found = mails.filter((m) => m.to.includes(to)).at(-1);
@@ -90,6 +121,7 @@ export async function startMailCatcher(options: { port?: number } = {}): Promise
     start: listen,
     close: stop,
   };
+  return catcher;
 }
 
 /** A mail server that accepts connections and never says a word. */
