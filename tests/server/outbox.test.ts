@@ -14,7 +14,11 @@ import { createTestApp, signedInClient, type Client, type TestApp } from "../sup
 import { testClock } from "../support/test-clock.js";
 
 const logger = pino({ level: "silent" });
-const report = { description: "Water runs down the bedroom window every morning.", locations: ["window"], observations: ["condensation"] };
+const report = {
+  description: "Water runs down the bedroom window every morning.",
+  locations: ["window"],
+  observations: ["condensation"],
+};
 /** A clock `ms` ahead of the tests' clock: the relay's backoff has passed by then. */
 const later = (ms: number) => ({ now: () => new Date(testClock.now().getTime() + ms) });
 const HOUR = 3_600_000;
@@ -36,7 +40,9 @@ afterAll(async () => {
 
 const rowOf = (id: number) => t.ctx.dataSource.getRepository(OutboxEmail).findOneByOrFail({ id });
 const ackOf = async (caseId: number) =>
-  t.ctx.dataSource.getRepository(OutboxEmail).findOneByOrFail({ relatedType: "case", relatedId: caseId, template: "caseAcknowledgement" });
+  t.ctx.dataSource
+    .getRepository(OutboxEmail)
+    .findOneByOrFail({ relatedType: "case", relatedId: caseId, template: "caseAcknowledgement" });
 const copiesOf = (catcher: { mails: { messageId: string }[] }, messageId: string | null) =>
   catcher.mails.filter((m) => m.messageId === messageId).length;
 
@@ -145,14 +151,26 @@ describe("after a crash", () => {
     const leased = await queuedOnly(to);
     const repo = t.ctx.dataSource.getRepository(OutboxEmail);
     // One relay died holding two rows: one lease has run out, the other (another instance's, still alive) has not.
-    await repo.update(stuck, { status: "sending", attempts: 1, leaseToken: "dead", leaseExpiresAt: new Date(testClock.now().getTime() - 1000) });
-    await repo.update(leased, { status: "sending", attempts: 1, leaseToken: "alive", leaseExpiresAt: new Date(testClock.now().getTime() + HOUR) });
+    await repo.update(stuck, {
+      status: "sending",
+      attempts: 1,
+      leaseToken: "dead",
+      leaseExpiresAt: new Date(testClock.now().getTime() - 1000),
+    });
+    await repo.update(leased, {
+      status: "sending",
+      attempts: 1,
+      leaseToken: "alive",
+      leaseExpiresAt: new Date(testClock.now().getTime() + HOUR),
+    });
     const stuckRow = await rowOf(stuck);
 
     // A new instance starting up, as after the crash.
     const stop = new MailRelay(t.ctx.dataSource, t.ctx.mailer, logger, testClock).start({ everyMs: HOUR });
     try {
-      await expect.poll(async () => (await outboxRows(t.ctx.dataSource, { to })).filter((r) => r.status === "sent").length).toBe(2);
+      await expect
+        .poll(async () => (await outboxRows(t.ctx.dataSource, { to })).filter((r) => r.status === "sent").length)
+        .toBe(2);
     } finally {
       await stop();
     }
@@ -279,7 +297,9 @@ describe("staff see each e-mail's state and can resend it", () => {
   it("resends a failed e-mail; one still queued is refused", async () => {
     const to = `failed.${Date.now()}@test.example`;
     const id = await queuedOnly(to);
-    await t.ctx.dataSource.getRepository(OutboxEmail).update(id, { status: "failed", attempts: 20, error: "550 no such mailbox" });
+    await t.ctx.dataSource
+      .getRepository(OutboxEmail)
+      .update(id, { status: "failed", attempts: 20, error: "550 no such mailbox" });
     await admin.post(`/api/outbox/${id}/resend`).expect(202);
     await mailSettled(t);
     expect(await rowOf(id)).toMatchObject({ status: "sent", error: null });

@@ -434,4 +434,8 @@ export type MailTemplateName = keyof typeof mailTemplates;
  * hash is stored elsewhere), and staff cannot resend them: a new invitation or reset is the way.
  * A new template with such a link must be listed here.
  */
-export const SECRET_TEMPLATES: ReadonlySet<string> = new Set<MailTemplateName>(["invitation", "staffInvitation", "passwordReset"]);
+export const SECRET_TEMPLATES: ReadonlySet<string> = new Set<MailTemplateName>([
+  "invitation",
+  "staffInvitation",
+  "passwordReset",
+]);

@@ -16,7 +16,9 @@ export function createOutboxRouter({ mail }: { mail: MailService }): Router {
   router.get("/", async (req, res) => {
     const query = parse(outboxListQuerySchema, req.query, "query");
     const { items, total } = await mail.list(actorOf(req), query);
-    res.json(shaped(outboxPageResponse, { items: items.map(toOutboxItemDto), total, page: query.page, pageSize: query.pageSize }));
+    res.json(
+      shaped(outboxPageResponse, { items: items.map(toOutboxItemDto), total, page: query.page, pageSize: query.pageSize }),
+    );
   });
 
   router.post("/:id/resend", async (req, res) => {

@@ -88,7 +88,9 @@ export class MailService {
   }
 
   /** How each outbox row stands now (case timelines show staff each e-mail's delivery). */
-  async deliveries(ids: readonly number[]): Promise<
+  async deliveries(
+    ids: readonly number[],
+  ): Promise<
     Map<
       number,
       { status: OutboxStatus; to: string; template: string; sentAt: string | null; error: string | null; attempts: number }
