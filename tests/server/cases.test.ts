@@ -60,6 +60,7 @@ describe("a tenant reports", () => {
   });
 
   it("tells the organisation's officers at once when the household is vulnerable, and only once", async () => {
+    await mailSettled(t);
     const before = t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length;
     const res = await tenant
       .post("/api/cases", { ...smallest, vulnerability: ["children-under-15", "breathing-or-immune"] })
