@@ -78,7 +78,12 @@ export function createServices(
   // The pool for CPU-heavy work; services that need it take it from here (bench scripts get their own).
   workers: WorkerPool = new WorkerPool(config.workers),
 ): Services {
-  const mail = new MailService(dataSource, mailer, logger, clock);
+  const { connectionMs, greetingMs, socketMs } = config.smtpTimeouts;
+  const mail = new MailService(dataSource, mailer, logger, clock, {
+    maxAttempts: config.mailRelay.maxAttempts,
+    // A claim outlasts any one send with its SMTP timeouts, with room to spare.
+    leaseMs: Math.max(5 * 60_000, 3 * (connectionMs + greetingMs + socketMs)),
+  });
   const properties = new PropertyService(dataSource, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock);
@@ -173,6 +178,8 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     async close() {
       // Links being e-mailed after a reply finish before the database closes.
       await services.auth.settled();
+      // Let a send already running finish (its SMTP timeouts bound it) before the database closes.
+      await services.mail.relay.stop();
       mailer.close();
       await workers.close();
       await store.close().catch(() => undefined);

@@ -30,6 +30,7 @@ import { createStaffRouter, createUsersRouter } from "./modules/users/users.rout
 import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
 import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
+import { createOutboxRouter } from "./modules/mail/mail.routes.js";
 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
@@ -152,6 +153,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/properties", createHomeRecordRouter({ homes: services.homes }));
   api.use("/users", createUsersRouter({ users: services.users }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
+  api.use("/outbox", createOutboxRouter({ mail: services.mail }));
   api.use(createApiDocsRouter({ appUrl: config.appUrl }));
   api.use(apiNotFound);
 

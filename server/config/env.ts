@@ -71,6 +71,11 @@ const schema = z
     SMTP_PORT: port.default(1025),
     MAIL_FROM: z.string().default("Dewline <no-reply@dewline.example>"),
     MAIL_WEB_PORT: port.default(1080),
+    SMTP_CONNECTION_TIMEOUT_MS: z.coerce.number().int().min(1).default(10_000),
+    SMTP_GREETING_TIMEOUT_MS: z.coerce.number().int().min(1).default(10_000),
+    SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().min(1).default(30_000),
+    MAIL_RELAY_INTERVAL_MS: z.coerce.number().int().min(100).default(15_000),
+    MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(20),
     DEMO_PASSWORD: z.string().min(8, "DEMO_PASSWORD needs at least 8 characters").default("dewline-demo"),
     UPLOADS_DIR: z.string().default(path.join(projectRoot, "uploads")),
     BACKUP_DIR: z.string().default(path.join(projectRoot, "backups")),
@@ -108,6 +113,10 @@ export interface Config {
   db: { host: string; port: number; name: string; user: string; password: string };
   sessionSecret: string;
   smtp: { host: string; port: number; from: string; webPort: number };
+  /** Limits on each SMTP call, so a silent mail server never holds a send (and the relay) for long. */
+  smtpTimeouts: { connectionMs: number; greetingMs: number; socketMs: number };
+  /** The outbox relay: how often it looks for due e-mails, and how many attempts before it gives up. */
+  mailRelay: { intervalMs: number; maxAttempts: number };
   demoPassword: string;
   uploadsDir: string;
   /** Where `npm run backup` writes its timestamped folders. */
@@ -149,6 +158,12 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     db: { host: e.DB_HOST, port: e.DB_PORT, name: e.DB_NAME, user: e.DB_USER, password: e.DB_PASSWORD ?? DEV_DB_PASSWORD },
     sessionSecret: e.SESSION_SECRET ?? DEV_SESSION_SECRET,
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, from: e.MAIL_FROM, webPort: e.MAIL_WEB_PORT },
+    smtpTimeouts: {
+      connectionMs: e.SMTP_CONNECTION_TIMEOUT_MS,
+      greetingMs: e.SMTP_GREETING_TIMEOUT_MS,
+      socketMs: e.SMTP_SOCKET_TIMEOUT_MS,
+    },
+    mailRelay: { intervalMs: e.MAIL_RELAY_INTERVAL_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS },
     demoPassword: e.DEMO_PASSWORD,
     uploadsDir: e.UPLOADS_DIR,
     backupsDir: e.BACKUP_DIR,

@@ -15,6 +15,7 @@ import { CaseReadMarks1796400825803 } from "./migrations/1796400825803-CaseReadM
 import { HomesSortKeyAndVentilation1796400866674 } from "./migrations/1796400866674-HomesSortKeyAndVentilation.js";
 import { UserAuditEntries1796401046829 } from "./migrations/1796401046829-UserAuditEntries.js";
 import { PolicyEmergencyPhone1796401387060 } from "./migrations/1796401387060-PolicyEmergencyPhone.js";
+import { OutboxRelay1796412321162 } from "./migrations/1796412321162-OutboxRelay.js";
 import { RoomEvaluations1796412626434 } from "./migrations/1796412626434-RoomEvaluations.js";
 import { SignInWaitsAndSessionStamps1796412951142 } from "./migrations/1796412951142-SignInWaitsAndSessionStamps.js";
 import { PhotoUploadUsage1796412986381 } from "./migrations/1796412986381-PhotoUploadUsage.js";
@@ -35,6 +36,7 @@ export const migrations = [
   HomesSortKeyAndVentilation1796400866674,
   UserAuditEntries1796401046829,
   PolicyEmergencyPhone1796401387060,
+  OutboxRelay1796412321162,
   RoomEvaluations1796412626434,
   SignInWaitsAndSessionStamps1796412951142,
   PhotoUploadUsage1796412986381,

@@ -7,6 +7,8 @@ export interface MailMessage {
   text: string;
   html?: string;
   attachments?: { filename: string; content: string; contentType: string }[];
+  /** The Message-ID header to send (the outbox row's delivery key); nodemailer makes one up when absent. */
+  messageId?: string;
 }
 
 export interface Mailer {
@@ -14,17 +16,20 @@ export interface Mailer {
   close(): void;
 }
 
-/** SMTP through nodemailer. Locally this reaches the mail catcher; in production, the landlord's relay. */
-export function createMailer(config: Config): Mailer {
+/**
+ * SMTP through nodemailer. Locally this reaches the mail catcher; in production, the landlord's relay.
+ * Every call is bounded by the configured timeouts (connect, greeting, silence on the socket).
+ */
+export function createMailer(config: Pick<Config, "env" | "smtp" | "smtpTimeouts">): Mailer {
   const transport = nodemailer.createTransport({
     host: config.smtp.host,
     port: config.smtp.port,
     secure: false,
     // The local catcher speaks plain SMTP on loopback only.
     ignoreTLS: config.env !== "production",
-    connectionTimeout: 5000,
-    greetingTimeout: 5000,
-    socketTimeout: 10000,
+    connectionTimeout: config.smtpTimeouts.connectionMs,
+    greetingTimeout: config.smtpTimeouts.greetingMs,
+    socketTimeout: config.smtpTimeouts.socketMs,
   });
   return {
     async send(message) {

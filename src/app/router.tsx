@@ -102,7 +102,11 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             gate(["admin"], [page("homes/new", () => import("./routes/admin/new-home"))]),
             gate(
               ["admin"],
-              [page("admin", () => import("./routes/admin/users")), page("admin/policy", () => import("./routes/admin/policy"))],
+              [
+                page("admin", () => import("./routes/admin/users")),
+                page("admin/policy", () => import("./routes/admin/policy")),
+                page("admin/emails", () => import("./routes/admin/emails")),
+              ],
             ),
           ],
         },

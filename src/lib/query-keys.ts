@@ -85,6 +85,13 @@ export const myHomeKeys = {
   current: () => [...myHomeKeys.all, "current"] as const,
 };
 
+/** The landlord's outbox (GET /api/outbox): e-mails and how each one's sending stands. */
+export const outboxKeys = {
+  all: ["outbox"] as const,
+  lists: () => [...outboxKeys.all, "list"] as const,
+  list: <F extends object>(filters: F) => [...outboxKeys.lists(), filters] as const,
+};
+
 export const userKeys = {
   all: ["users"] as const,
   lists: () => [...userKeys.all, "list"] as const,

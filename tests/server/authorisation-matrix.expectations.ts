@@ -101,6 +101,8 @@ const ROWS: Record<string, Row> = {
   "GET /api/properties/:id/tenants":                            [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
   "GET /api/properties/:id/cases":                              [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
   "GET /api/properties/:id/readings":                           [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
+  "GET /api/outbox":                                            [ 401,  403,  403, "ok",  403, "ok", "ok", "ok"],
+  "POST /api/outbox/:id/resend":                                [ 401,  403,  403, "ok",  403, "ok",  404,  404],
   "GET /api/users":                                             [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   "PATCH /api/users/:id":                                       [ 401,  403,  403,  403,  403, "ok",  404,  403],
   "GET /api/users/:id/history":                                 [ 401,  403,  403,  403,  403, "ok",  404,  403],

@@ -130,6 +130,12 @@ beforeAll(async () => {
     "/api/properties/:id": landlord.home.id,
     "/api/work-orders/:id": order.body.id,
     "/api/photos/:id": photo.body.photos[0].id,
+    "/api/outbox/:id": (
+      (await t.ctx.dataSource.query(
+        "SELECT id FROM outbox_emails WHERE related_type = 'case' AND related_id = ? ORDER BY id LIMIT 1",
+        [caseId],
+      )) as { id: number }[]
+    )[0]!.id,
     "/api/users/:id": landlord.maintenance.id,
     ":importId": imported.body.importId,
     ":roomId": spare.body.id,

@@ -4,7 +4,7 @@ import { CaseEvent } from "../../server/modules/cases/case-event.entity.js";
 import { OutboxEmail } from "../../server/modules/mail/outbox-email.entity.js";
 import { Case } from "../../server/modules/cases/case.entity.js";
 import { makeLandlord, makeTenant, makeProperty, PASSWORD } from "../support/factories.js";
-import { outboxCount } from "../support/outbox.js";
+import { mailSettled, outboxCount } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
 import { testClock } from "../support/test-clock.js";
 
@@ -60,6 +60,7 @@ describe("a tenant reports", () => {
   });
 
   it("tells the organisation's officers at once when the household is vulnerable, and only once", async () => {
+    await mailSettled(t);
     const before = t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length;
     const res = await tenant
       .post("/api/cases", { ...smallest, vulnerability: ["children-under-15", "breathing-or-immune"] })
@@ -76,6 +77,7 @@ describe("a tenant reports", () => {
     expect(await outboxCount(t.ctx.dataSource, { to: landlord.officer.email, template: "caseWorse", caseId: res.body.id })).toBe(
       1,
     );
+    await mailSettled(t);
     expect(t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length).toBe(before + 2);
     const row = await t.ctx.dataSource.getRepository(Case).findOneByOrFail({ id: res.body.id });
     expect(row.vulnerableHousehold).toBe(true);

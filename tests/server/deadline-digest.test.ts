@@ -17,6 +17,7 @@ import { OutboxEmail } from "../../server/modules/mail/outbox-email.entity.js";
 import type { Property } from "../../server/modules/properties/property.entity.js";
 import type { User } from "../../server/modules/users/user.entity.js";
 import { makeLandlord, makeUser } from "../support/factories.js";
+import { mailSettled } from "../support/outbox.js";
 import { createTestApp, type TestApp } from "../support/test-app.js";
 
 let t: TestApp;
@@ -59,7 +60,12 @@ async function makeCase(
 }
 
 const mailsTo = (user: User) => t.mail.mails.filter((m) => m.to.includes(user.email));
-const sendDue = (at: string) => t.ctx.services.digest.sendDue(new Date(at));
+const sendDue = async (at: string) => {
+  const run = await t.ctx.services.digest.sendDue(new Date(at));
+  // The relay sends the digests after they are recorded.
+  await mailSettled(t);
+  return run;
+};
 
 describe("the deadline digest", () => {
   let a: Landlord;
@@ -239,9 +245,11 @@ describe("the deadline digest", () => {
       expect(mailsTo(landlord.officer)).toHaveLength(0);
       now = new Date("2024-12-10T07:00:00Z");
       await scheduler.check();
+      await mailSettled(t);
       expect(mailsTo(landlord.officer)).toHaveLength(1);
       now = new Date("2024-12-10T07:10:00Z");
       await scheduler.check();
+      await mailSettled(t);
       expect(mailsTo(landlord.officer)).toHaveLength(1);
     } finally {
       scheduler.stop();

@@ -10,7 +10,7 @@ import { ENDPOINTS, type Endpoint } from "../../src/lib/contracts/endpoints.js";
 import { localDate } from "../../src/lib/domain/working-days.js";
 import { makeLandlord, PASSWORD } from "../support/factories.js";
 import { jpegWithGps } from "../support/images.js";
-import { outboxRows } from "../support/outbox.js";
+import { mailSettled, outboxRows } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
 import { hoursAgo, testClock, workingDaysAhead } from "../support/test-clock.js";
 
@@ -201,6 +201,7 @@ it("puts the marker where staff can read it (so its absence below means somethin
     "Follow-on work",
   ])
     expect(staffSees).toContain(`${what} ${MARKER}`);
+  await mailSettled(t);
   const operative = t.mail.mails
     .filter((m) => m.to.includes(landlord.maintenance.email))
     .map((m) => m.raw.replace(/\r?\n[ \t]/g, ""));

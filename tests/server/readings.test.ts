@@ -1,7 +1,7 @@
 // Readings by hand, the evaluation of a case and the officers' alert when a surface is at risk.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { makeLandlord, makeProperty, makeTenant, PASSWORD } from "../support/factories.js";
-import { outboxCount } from "../support/outbox.js";
+import { mailSettled, outboxCount } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
 import { daysAgo } from "../support/test-clock.js";
 
@@ -81,6 +81,7 @@ describe("readings by hand", () => {
         })
         .expect(201)
     ).body;
+    await mailSettled(t);
     const before = t.mail.mails.filter((m) => m.to.includes(landlord.officer.email)).length;
     await tenant
       .post(`/api/cases/${c.id}/readings`, [

@@ -7,7 +7,7 @@ import { OperativeSlot } from "../../server/modules/works/operative-slot.entity.
 import { appointmentIcs } from "../../server/modules/works/appointment.js";
 import { makeLandlord, makeProperty, makeTenant, makeUser, PASSWORD } from "../support/factories.js";
 import { jpegWithGps } from "../support/images.js";
-import { outboxCount, outboxRows } from "../support/outbox.js";
+import { mailSettled, outboxCount, outboxRows } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
 import { bankHolidayDates, localDate } from "../../src/lib/domain/working-days.js";
 import { daysAgo, daysAhead, hoursAgo, msAgo, testClock, workingDayAhead, workingDaysAhead } from "../support/test-clock.js";
@@ -424,12 +424,14 @@ describe("the end of the monitoring period", () => {
     await t.ctx.dataSource.getRepository(Case).update(caseId, { monitoringEndsAt: msAgo(60_000) });
     const before = t.mail.mails.length;
     expect(await t.ctx.services.verification.sendDueReminders()).toBeGreaterThanOrEqual(1);
+    await mailSettled(t);
     const sent = t.mail.mails.slice(before);
     expect(sent.some((m) => m.to.includes(landlord.tenant.email) && /Please add readings/.test(m.subject))).toBe(true);
     expect(sent.some((m) => m.to.includes(landlord.maintenance.email) && /decide if the fix worked/.test(m.subject))).toBe(true);
     expect((await tenant.get(`/api/cases/${caseId}/verification`)).body.state).toBe("ended");
     const again = t.mail.mails.length;
     await t.ctx.services.verification.sendDueReminders();
+    await mailSettled(t);
     expect(t.mail.mails.slice(again).filter((m) => m.raw.includes(`/cases/${caseId}`))).toEqual([]);
   });
 });

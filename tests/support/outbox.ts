@@ -1,7 +1,10 @@
 // "Was an e-mail sent?" asked of the outbox: every e-mail is written to outbox_emails in the
-// request's own transaction, so once the response has arrived the rows are final. Asserting that
+// request's own transaction, so once the response has arrived the rows exist. Asserting that
 // nothing was sent is counting rows here after the request, never waiting and watching the catcher.
+// Sending is the relay's job and happens after the response: `mailSettled` waits until the relay
+// has sent (or failed to send) everything due, before a test reads the catcher or a row's status.
 import type { DataSource } from "typeorm";
+import type { AppContext } from "../../server/app-context.js";
 import { OutboxEmail } from "../../server/modules/mail/outbox-email.entity.js";
 
 export interface OutboxFilter {
@@ -24,4 +27,9 @@ export function outboxRows(ds: DataSource, f: OutboxFilter): Promise<OutboxEmail
 
 export async function outboxCount(ds: DataSource, f: OutboxFilter): Promise<number> {
   return (await outboxRows(ds, f)).length;
+}
+
+/** Resolves once the app's relay has no send in flight and nothing due is left (its state, not a time). */
+export function mailSettled(t: { ctx: Pick<AppContext, "services"> }): Promise<void> {
+  return t.ctx.services.mail.relay.idle();
 }

@@ -20,6 +20,8 @@ export async function createTestApp(env: Record<string, string> = {}, adjust?: (
   if (adjust) config = adjust(config);
   const ctx = await createAppContext(config, { clock: testClock });
   const app = createApp(ctx);
+  // E-mails go out after the response (the outbox relay): lastTo() first waits for the relay to settle.
+  mail.settle = () => ctx.services.mail.relay.idle();
   return {
     ctx,
     app,

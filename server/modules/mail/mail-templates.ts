@@ -8,7 +8,28 @@ export interface MailAttachment {
 export interface RenderedMail {
   subject: string;
   text: string;
+  /** An HTML version; when a template gives none, one is made from the text (htmlFromText). */
+  html?: string;
   attachments?: MailAttachment[];
+}
+
+const escapeHtml = (s: string): string =>
+  s.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;").replace(/'/g, "&#39;");
+
+/**
+ * The text as simple HTML: paragraphs at blank lines, line breaks kept, links clickable. Everything
+ * is escaped first, so words a tenant or officer typed can never become markup in someone's mail client.
+ */
+export function htmlFromText(text: string): string {
+  const paragraphs = text
+    .split(/\n{2,}/)
+    .map((p) =>
+      escapeHtml(p)
+        .replace(/https?:\/\/[^\s<]+/g, (url) => `<a href="${url}">${url}</a>`)
+        .replace(/\n/g, "<br>\n"),
+    )
+    .map((p) => `<p>${p}</p>`);
+  return `<!doctype html>\n<html><body style="font-family: sans-serif; line-height: 1.5">\n${paragraphs.join("\n")}\n</body></html>`;
 }
 
 /** The sentence giving the landlord's emergency line, with its number when the landlord has set one in its policy. */
@@ -433,3 +454,16 @@ export const mailTemplates = {
 } as const;
 
 export type MailTemplateName = keyof typeof mailTemplates;
+
+/**
+ * Templates whose e-mail carries a single-use secret (a sign-in, invitation or reset link). The
+ * outbox forgets their text and HTML once sent, so the database never keeps a usable link (only its
+ * hash is stored elsewhere), and staff cannot resend them: a new invitation or reset is the way.
+ * A new template with such a link must be listed here.
+ */
+export const SECRET_TEMPLATES: ReadonlySet<string> = new Set<MailTemplateName>([
+  "invitation",
+  "staffInvitation",
+  "passwordReset",
+  "signInUnlock",
+]);

@@ -1,9 +1,13 @@
-import { In, type DataSource, type EntityManager } from "typeorm";
+import { randomBytes } from "node:crypto";
+import { In, type DataSource, type EntityManager, type FindOptionsWhere } from "typeorm";
+import type { Actor } from "../../lib/actor.js";
+import type { Clock } from "../../lib/clock.js";
+import { ConflictError, ForbiddenError, NotFoundError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
 import type { Mailer } from "../../lib/mailer.js";
-import { mailTemplates, type MailTemplateName, type RenderedMail } from "./mail-templates.js";
+import { htmlFromText, mailTemplates, SECRET_TEMPLATES, type MailTemplateName, type RenderedMail } from "./mail-templates.js";
+import { MailRelay, type MailRelayOptions } from "./mail.relay.js";
 import { OutboxEmail, type OutboxStatus } from "./outbox-email.entity.js";
-import type { Clock } from "../../lib/clock.js";
 
 export interface SendMail<T extends MailTemplateName> {
   to: string;
@@ -13,18 +17,36 @@ export interface SendMail<T extends MailTemplateName> {
   related?: { type: string; id: number };
 }
 
-/** Renders, records in the outbox, then sends. A failed send is recorded, never thrown at the caller. */
+export interface OutboxQuery {
+  status?: OutboxStatus;
+  page: number;
+  pageSize: number;
+}
+
+/** The delivery key: fixed once per row, carried by every attempt (see mail.relay.ts). */
+const newMessageId = (outboxId: number) => `<outbox-${outboxId}-${randomBytes(9).toString("base64url")}@dewline>`;
+
+/**
+ * Renders each e-mail and stores it whole in the outbox, in the caller's transaction; the relay
+ * (mail.relay.ts) sends it after the commit. Nothing here talks to the mail server.
+ */
 export class MailService {
+  readonly relay: MailRelay;
+
   constructor(
     private readonly dataSource: DataSource,
-    private readonly mailer: Mailer,
-    private readonly logger: Logger,
+    mailer: Mailer,
+    logger: Logger,
     private readonly clock: Clock,
-  ) {}
+    relayOptions: Partial<MailRelayOptions> = {},
+  ) {
+    this.relay = new MailRelay(dataSource, mailer, logger, clock, relayOptions);
+  }
 
   /**
-   * Records the e-mail as pending inside the caller's transaction (so it exists exactly when the
-   * record it is about exists), returning a function that sends it once the transaction has committed.
+   * Records the e-mail, rendered, inside the caller's transaction (so it exists exactly when the
+   * record it is about exists), returning a function to call once the transaction has committed: it
+   * wakes the relay to send promptly and returns at once (never waiting on the mail server).
    */
   async enqueue<T extends MailTemplateName>(manager: EntityManager, mail: SendMail<T>): Promise<() => Promise<OutboxEmail>> {
     return (await this.enqueueWithId(manager, mail)).deliver;
@@ -37,50 +59,123 @@ export class MailService {
   ): Promise<{ outboxId: number; deliver: () => Promise<OutboxEmail> }> {
     const render = mailTemplates[mail.template] as (d: typeof mail.data) => RenderedMail;
     const rendered = render(mail.data);
-    const row = await manager.getRepository(OutboxEmail).save(
-      manager.getRepository(OutboxEmail).create({
+    const repo = manager.getRepository(OutboxEmail);
+    const row = await repo.save(
+      repo.create({
         organisationId: mail.organisationId ?? null,
         toAddress: mail.to,
         subject: rendered.subject,
         template: mail.template,
+        textBody: rendered.text,
+        htmlBody: rendered.html ?? htmlFromText(rendered.text),
+        attachments: rendered.attachments?.length ? rendered.attachments : null,
         relatedType: mail.related?.type ?? null,
         relatedId: mail.related?.id ?? null,
         status: "pending",
+        attempts: 0,
+        nextAttemptAt: this.clock.now(),
       }),
     );
-    return { outboxId: row.id, deliver: () => this.deliver(row, rendered) };
+    row.messageId = newMessageId(row.id);
+    await repo.update(row.id, { messageId: row.messageId });
+    return {
+      outboxId: row.id,
+      deliver: async () => {
+        this.relay.wake();
+        return row;
+      },
+    };
   }
 
   /** How each outbox row stands now (case timelines show staff each e-mail's delivery). */
   async deliveries(
     ids: readonly number[],
-  ): Promise<Map<number, { status: OutboxStatus; to: string; template: string; sentAt: string | null; error: string | null }>> {
+  ): Promise<
+    Map<
+      number,
+      { status: OutboxStatus; to: string; template: string; sentAt: string | null; error: string | null; attempts: number }
+    >
+  > {
     if (!ids.length) return new Map();
     const rows = await this.dataSource.getRepository(OutboxEmail).findBy({ id: In([...new Set(ids)]) });
     return new Map(
       rows.map((o) => [
         o.id,
-        { status: o.status, to: o.toAddress, template: o.template, sentAt: o.sentAt?.toISOString() ?? null, error: o.error },
+        {
+          status: o.status,
+          to: o.toAddress,
+          template: o.template,
+          sentAt: o.sentAt?.toISOString() ?? null,
+          error: o.error,
+          attempts: o.attempts,
+        },
       ]),
     );
   }
 
+  /** Queues and wakes the relay in one go (no transaction of the caller's to wait for). */
   async send<T extends MailTemplateName>(mail: SendMail<T>): Promise<OutboxEmail> {
     const deliver = await this.enqueue(this.dataSource.manager, mail);
     return deliver();
   }
 
-  private async deliver(row: OutboxEmail, { text, attachments }: RenderedMail): Promise<OutboxEmail> {
+  /**
+   * Which outbox rows a staff member may see: an admin, every e-mail of their landlord; an officer,
+   * those about their landlord's cases (which officers can all open). Nobody else.
+   */
+  private visibleTo(actor: Actor): FindOptionsWhere<OutboxEmail> {
+    if (actor.role === "admin") return { organisationId: actor.organisationId };
+    if (actor.role === "officer") return { organisationId: actor.organisationId, relatedType: "case" };
+    throw new ForbiddenError();
+  }
+
+  /** The landlord's e-mails, newest first, optionally in one state. */
+  async list(actor: Actor, q: OutboxQuery): Promise<{ items: OutboxEmail[]; total: number }> {
+    const where = { ...this.visibleTo(actor), ...(q.status ? { status: q.status } : {}) };
+    const [items, total] = await this.dataSource.getRepository(OutboxEmail).findAndCount({
+      where,
+      order: { id: "DESC" },
+      skip: (q.page - 1) * q.pageSize,
+      take: q.pageSize,
+    });
+    return { items, total };
+  }
+
+  /**
+   * Sends a sent or failed e-mail again: back to pending with a fresh count of attempts and a new
+   * Message-ID (it is a deliberate second copy, not a retry a receiver should drop). One still
+   * queued or being sent is refused, and so is one whose single-use link has been forgotten.
+   */
+  async resend(actor: Actor, id: number): Promise<OutboxEmail> {
     const repo = this.dataSource.getRepository(OutboxEmail);
-    try {
-      const { messageId } = await this.mailer.send({ to: row.toAddress, subject: row.subject, text, attachments });
-      Object.assign(row, { status: "sent", messageId, sentAt: this.clock.now(), error: null });
-    } catch (error) {
-      const message = error instanceof Error ? error.message : String(error);
-      this.logger.warn({ outboxId: row.id, err: message }, "e-mail could not be sent");
-      Object.assign(row, { status: "failed", error: message.slice(0, 2000) });
+    const row = await repo.findOneBy({ ...this.visibleTo(actor), id });
+    if (!row) throw new NotFoundError("No such e-mail.");
+    if (row.status === "pending" || row.status === "sending") {
+      throw new ConflictError("This e-mail is still queued: it will be sent without being asked again.");
     }
-    await repo.update(row.id, { status: row.status, messageId: row.messageId, sentAt: row.sentAt, error: row.error });
-    return row;
+    if (row.textBody === null) {
+      throw new ConflictError(
+        SECRET_TEMPLATES.has(row.template)
+          ? "This e-mail held a single-use link, which is not kept once sent: send a new invitation or reset instead."
+          : "This e-mail's message was not kept, so it cannot be sent again.",
+      );
+    }
+    const now = this.clock.now();
+    const result = await repo.update(
+      { id, status: In(["sent", "failed"]) },
+      {
+        status: "pending",
+        attempts: 0,
+        nextAttemptAt: now,
+        leaseToken: null,
+        leaseExpiresAt: null,
+        messageId: newMessageId(id),
+        resentAt: now,
+        resentByUserId: actor.id,
+      },
+    );
+    if (result.affected !== 1) throw new ConflictError("This e-mail is being sent already.");
+    this.relay.wake();
+    return repo.findOneByOrFail({ id });
   }
 }

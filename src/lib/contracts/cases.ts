@@ -65,11 +65,13 @@ export type MyCaseResponse = z.infer<typeof myCaseResponse>;
 export const myCasesResponse = z.object({ items: z.array(myCaseResponse) });
 
 export const caseEventEmail = z.object({
-  status: z.enum(["pending", "sent", "failed"]),
+  status: z.enum(["pending", "sending", "sent", "failed"]),
   to: z.string(),
   template: z.string(),
   sentAt: instant.nullable(),
   error: z.string().nullable(),
+  /** Attempts so far (a failed attempt is retried later, until the relay gives up). */
+  attempts: z.number().int().min(0).optional(),
 });
 export type CaseEventEmail = z.infer<typeof caseEventEmail>;
 

@@ -17,6 +17,7 @@ import {
 import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse, worseResponse } from "./cases.js";
 import { conversationResponse, messageSentResponse, readMarkResponse, unreadMessagesResponse } from "./conversation.js";
 import { evaluationResponse } from "./evaluation.js";
+import { outboxItem, outboxPageResponse } from "./mail.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse, photoUploadResponse } from "./photos.js";
@@ -247,6 +248,15 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("PATCH", "/api/users/:id", ["admin"], "Change a person's name or role, or disable or re-enable their account", userResponse),
   e("GET", "/api/users/:id/history", ["admin"], "Who changed a person's account, and when", userHistoryResponse),
   e("GET", "/api/staff", STAFF, "Who a case can be assigned to", staffListResponse),
+
+  e(
+    "GET",
+    "/api/outbox",
+    OFFICERS,
+    "The landlord's e-mails and how each one's sending stands, newest first (?status=; officers see those about cases)",
+    outboxPageResponse,
+  ),
+  e("POST", "/api/outbox/:id/resend", OFFICERS, "Send a sent or failed e-mail again", outboxItem, 202),
 ];
 
 const patternOf = (path: string) => new RegExp(`^${path.replace(/[.]/g, "\\.").replace(/:[A-Za-z]+/g, "[^/]+")}$`);

@@ -16,4 +16,5 @@ export * from "./policy.js";
 export * from "./triage.js";
 export * from "./works.js";
 export * from "./conversation.js";
+export * from "./mail.js";
 export * from "./endpoints.js";

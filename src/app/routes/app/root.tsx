@@ -25,6 +25,7 @@ const navByRole: Record<Role, NavItem[]> = {
   admin: [
     { to: "/admin", label: "Users and invitations", end: true },
     { to: "/admin/policy", label: "Deadline policy" },
+    { to: "/admin/emails", label: "E-mails" },
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },

@@ -25,6 +25,7 @@ import { statusLabelFor } from "@/features/cases/labels";
 import { deadlinesQueryOptions, useDeadlines } from "@/features/case-workspace/api/get-deadlines";
 import { caseWorkOrdersQueryOptions } from "@/features/work-orders/api/get-case-work-orders";
 import { useUploadWorkOrderPhotos } from "@/features/work-orders/api/upload-work-order-photos";
+import { ResendEmailButton } from "@/features/outbox/components/resend-email-button";
 import { NewWorkOrderForm } from "@/features/work-orders/components/new-work-order-form";
 import { VerificationSection } from "@/features/work-orders/components/verification-section";
 import { WorkOrderList } from "@/features/work-orders/components/work-order-list";
@@ -404,6 +405,8 @@ function EvaluationPanels({ id }: { id: number }) {
 
 function TimelinePanel({ c, staffNames }: { c: CaseDto; staffNames: readonly { id: number; name: string }[] | undefined }) {
   const events = useCaseEvents(c.id);
+  // Admins and officers can send an e-mail about the case again (GET/POST /api/outbox).
+  const canResend = ["admin", "officer"].includes(useUser().role);
   const names = useMemo(() => new Map((staffNames ?? []).map((s) => [s.id, s.name])), [staffNames]);
   return (
     <Panel title="Timeline" id="case-timeline">
@@ -411,7 +414,15 @@ function TimelinePanel({ c, staffNames }: { c: CaseDto; staffNames: readonly { i
         Everything that has happened, newest first, with internal notes and where each e-mail went.
       </p>
       <QueryState query={events} loading="Loading the timeline…" failed="We couldn't load the timeline">
-        {(list) => <CaseTimeline events={list} rooms={c.homeRooms} audience="staff" staffNames={names} />}
+        {(list) => (
+          <CaseTimeline
+            events={list}
+            rooms={c.homeRooms}
+            audience="staff"
+            staffNames={names}
+            EmailAction={canResend ? ResendEmailButton : undefined}
+          />
+        )}
       </QueryState>
     </Panel>
   );

@@ -1,4 +1,4 @@
-import type { ReactNode } from "react";
+import type { ComponentType, ReactNode } from "react";
 import { formatDateTime } from "@/lib/dates";
 import { isRole, roleLabels } from "@/lib/roles";
 import type { CaseEvent, CaseEventEmail, CaseRoom } from "../api/types";
@@ -13,6 +13,14 @@ interface CaseTimelineProps {
   audience?: Audience;
   /** Staff views: names for user ids an event mentions (the assignee). */
   staffNames?: ReadonlyMap<number, string>;
+  /** Staff views: shown beside an e-mail's delivery state (the page passes the outbox's "Send again" button). */
+  EmailAction?: ComponentType<EmailActionProps>;
+}
+
+export interface EmailActionProps {
+  outboxId: number;
+  status: CaseEventEmail["status"];
+  to: string;
 }
 
 interface Entry {
@@ -194,7 +202,7 @@ export function describeEvent(
 }
 
 /** What has happened to a case, newest first. */
-export function CaseTimeline({ events, rooms, audience = "tenant", staffNames }: CaseTimelineProps) {
+export function CaseTimeline({ events, rooms, audience = "tenant", staffNames, EmailAction }: CaseTimelineProps) {
   if (events.length === 0) return <p className="text-ink-soft">Nothing has happened yet.</p>;
   const newestFirst = [...events].sort((a, b) => Date.parse(b.at) - Date.parse(a.at) || b.id - a.id);
   return (
@@ -212,7 +220,16 @@ export function CaseTimeline({ events, rooms, audience = "tenant", staffNames }:
             </p>
             <p className="font-semibold">{entry.title}</p>
             {entry.detail ? <div className="mt-1 text-ink">{entry.detail}</div> : null}
-            {audience === "staff" && event.email ? <EmailDelivery email={event.email} /> : null}
+            {audience === "staff" && event.email ? (
+              <EmailDelivery
+                email={event.email}
+                action={
+                  EmailAction && typeof event.after?.outboxId === "number" ? (
+                    <EmailAction outboxId={event.after.outboxId} status={event.email.status} to={event.email.to} />
+                  ) : null
+                }
+              />
+            ) : null}
           </li>
         );
       })}
@@ -238,7 +255,7 @@ const emailTemplateLabels: Record<string, string> = {
 };
 
 /** Staff only: who an event's e-mail went to, which e-mail it was, and whether it left the outbox. */
-function EmailDelivery({ email }: { email: CaseEventEmail }) {
+function EmailDelivery({ email, action }: { email: CaseEventEmail; action: ReactNode }) {
   const what = emailTemplateLabels[email.template] ?? humanise(email.template);
   return (
     <div className="mt-1 flex flex-col gap-0.5 rounded-md border border-line bg-paper px-3 py-2 text-sm">
@@ -260,11 +277,19 @@ function EmailDelivery({ email }: { email: CaseEventEmail }) {
         ) : email.status === "failed" ? (
           <span className="font-semibold text-rust-700">Failed to send{email.error ? `: ${email.error}` : ""}</span>
         ) : email.status === "pending" ? (
-          <span>Waiting to be sent</span>
+          <span>
+            Waiting to be sent
+            {email.error ? (
+              <span className="text-rust-700">: the last try failed ({email.error}); it will be tried again</span>
+            ) : null}
+          </span>
+        ) : email.status === "sending" ? (
+          <span>Being sent</span>
         ) : (
           <span>{humanise(email.status)}</span>
         )}
       </p>
+      {action}
     </div>
   );
 }
