@@ -30,6 +30,8 @@ export async function outboxCount(ds: DataSource, f: OutboxFilter): Promise<numb
 }
 
 /** Resolves once the app's relay has no send in flight and nothing due is left (its state, not a time). */
-export function mailSettled(t: { ctx: Pick<AppContext, "services"> }): Promise<void> {
+export async function mailSettled(t: { ctx: Pick<AppContext, "services"> }): Promise<void> {
+  // Reset and unlock links are queued after the reply (so its timing tells nothing): wait for that first.
+  await t.ctx.services.auth.settled();
   return t.ctx.services.mail.relay.idle();
 }

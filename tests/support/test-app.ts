@@ -21,7 +21,11 @@ export async function createTestApp(env: Record<string, string> = {}, adjust?: (
   const ctx = await createAppContext(config, { clock: testClock });
   const app = createApp(ctx);
   // E-mails go out after the response (the outbox relay): lastTo() first waits for the relay to settle.
-  mail.settle = () => ctx.services.mail.relay.idle();
+  // Reset and unlock links are queued after the reply, so wait for that work first.
+  mail.settle = async () => {
+    await ctx.services.auth.settled();
+    await ctx.services.mail.relay.idle();
+  };
   return {
     ctx,
     app,
