@@ -47,7 +47,7 @@ const UNAVAILABLE_ERRNOS = new Set([1040, 1053, 1077, 1079, 1969, 2002, 2003, 20
 
 /** The database cannot be reached, stalls, or is shutting down: a 503, not a 500. */
 export function isDatabaseUnavailable(err: unknown): boolean {
-  if (err instanceof DatabaseUnavailableError) return true;
+  if (ownUnavailable(err)) return true;
   const { code, errno, message } = codeOf(err);
   if ((code && UNAVAILABLE_CODES.has(code)) || (errno !== undefined && UNAVAILABLE_ERRNOS.has(errno))) return true;
   // mysql2 and TypeORM say so in words only.
@@ -68,9 +68,17 @@ export class DatabaseUnavailableError extends ServiceUnavailableError {
   }
 }
 
+/** Ours, thrown by the guarded pool, as is or wrapped by TypeORM in a QueryFailedError. */
+function ownUnavailable(err: unknown): DatabaseUnavailableError | null {
+  if (err instanceof DatabaseUnavailableError) return err;
+  const inner = (err as { driverError?: unknown } | null)?.driverError;
+  return inner instanceof DatabaseUnavailableError ? inner : null;
+}
+
 /** The 503 for a database error that means "unavailable", or null for any other error. */
 export function asUnavailable(err: unknown): DatabaseUnavailableError | null {
-  if (err instanceof DatabaseUnavailableError) return err;
+  const own = ownUnavailable(err);
+  if (own) return own;
   if (isDatabaseUnavailable(err)) return new DatabaseUnavailableError();
   if (isRetryableTransactionError(err)) {
     // Still deadlocking after the retries (tx helper): busy, not broken.
