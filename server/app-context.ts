@@ -4,7 +4,7 @@ import MySQLStoreFactory from "express-mysql-session";
 import type { DataSource } from "typeorm";
 import type { Config } from "./config/env.js";
 import { systemClock, type Clock } from "./lib/clock.js";
-import { createDataSource } from "./db/create-data-source.js";
+import { createDataSource, sessionStoreConnection } from "./db/create-data-source.js";
 import { createLogger, type Logger } from "./lib/logger.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
 import { AssessmentService } from "./modules/assessments/assessment.service.js";
@@ -151,20 +151,24 @@ export async function createAppContext(config: Config, options: { migrate?: bool
   // Uploads a crash left half-received (in this app's own incoming folder) go at start-up.
   await removeStaleIncoming(config.uploadsDir);
   const MySQLStore = MySQLStoreFactory(session);
-  const store = new MySQLStore({
-    host: config.db.host,
-    port: config.db.port,
-    user: config.db.user,
-    password: config.db.password,
-    database: config.db.name,
-    // The table comes from our migrations.
-    createDatabaseTable: false,
-    clearExpired: true,
-    // No UPDATE per request: a signed-in session is saved when it changes, at most once a minute otherwise.
-    disableTouch: true,
-    checkExpirationInterval: 15 * 60_000,
-    expiration: 12 * 3_600_000,
-  });
+  const store = new MySQLStore(
+    {
+      host: config.db.host,
+      port: config.db.port,
+      user: config.db.user,
+      password: config.db.password,
+      database: config.db.name,
+      // The table comes from our migrations.
+      createDatabaseTable: false,
+      clearExpired: true,
+      // No UPDATE per request: a signed-in session is saved when it changes, at most once a minute otherwise.
+      disableTouch: true,
+      checkExpirationInterval: 15 * 60_000,
+      expiration: 12 * 3_600_000,
+      // Through the app's own pool: the same timeouts, and a 503 while the database is down.
+    },
+    sessionStoreConnection(dataSource),
+  );
   const services = createServices(config, dataSource, mailer, logger, clock, workers);
   return {
     config,

@@ -94,6 +94,10 @@ const schema = z
     UPLOAD_MEGAPIXELS_PER_REQUEST: z.coerce.number().positive().default(300),
     CALCULATOR_READINGS_PER_MINUTE: z.coerce.number().int().min(1).default(200_000),
     CALCULATOR_MAX_ANONYMOUS_READINGS: z.coerce.number().int().min(1).default(10_000),
+    DB_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(100).default(1000),
+    DB_STALL_CHECK_MS: z.coerce.number().int().min(50).default(400),
+    DB_QUERY_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),
+    DB_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(100).default(10_000),
   })
   .superRefine((env, ctx) => {
     const trust = parseTrustProxy(env.TRUST_PROXY);
@@ -110,7 +114,7 @@ export interface Config {
   host: string;
   port: number;
   appUrl: string;
-  db: { host: string; port: number; name: string; user: string; password: string };
+  db: { host: string; port: number; name: string; user: string; password: string; timeouts?: DbTimeouts };
   sessionSecret: string;
   smtp: { host: string; port: number; from: string; webPort: number };
   /** Limits on each SMTP call, so a silent mail server never holds a send (and the relay) for long. */
@@ -139,6 +143,19 @@ export interface Config {
   calculator: { readingsPerMinute: number; maxAnonymousReadings: number };
 }
 
+/**
+ * How long to wait on the database (server/db/create-data-source.ts). A query still unanswered after
+ * `stallCheckMs` makes a probe ask whether the server answers at all: if not, the query fails at once
+ * (503); if so, it is only slow and may run to `queryMs`. `connectMs` bounds a new connection and the
+ * probe; `acquireMs` bounds the wait for a free pooled connection.
+ */
+export interface DbTimeouts {
+  connectMs: number;
+  stallCheckMs: number;
+  queryMs: number;
+  acquireMs: number;
+}
+
 // Development-only defaults, so a fresh clone runs without a .env file. Production must set its own.
 const DEV_DB_PASSWORD = "dewline-local-only";
 const DEV_SESSION_SECRET = "dewline-development-session-secret-not-for-production";
@@ -155,7 +172,19 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     host: e.HOST,
     port: e.PORT,
     appUrl: (e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ""),
-    db: { host: e.DB_HOST, port: e.DB_PORT, name: e.DB_NAME, user: e.DB_USER, password: e.DB_PASSWORD ?? DEV_DB_PASSWORD },
+    db: {
+      host: e.DB_HOST,
+      port: e.DB_PORT,
+      name: e.DB_NAME,
+      user: e.DB_USER,
+      password: e.DB_PASSWORD ?? DEV_DB_PASSWORD,
+      timeouts: {
+        connectMs: e.DB_CONNECT_TIMEOUT_MS,
+        stallCheckMs: e.DB_STALL_CHECK_MS,
+        queryMs: e.DB_QUERY_TIMEOUT_MS,
+        acquireMs: e.DB_ACQUIRE_TIMEOUT_MS,
+      },
+    },
     sessionSecret: e.SESSION_SECRET ?? DEV_SESSION_SECRET,
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, from: e.MAIL_FROM, webPort: e.MAIL_WEB_PORT },
     smtpTimeouts: {

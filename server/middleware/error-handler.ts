@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
+import { asUnavailable } from "../lib/db-errors.js";
 import { AppError, NotFoundError } from "../lib/errors.js";
 
 interface HttpLikeError {
@@ -45,8 +46,19 @@ function fromLibrary(err: HttpLikeError & { name?: string; field?: string }): Ap
 }
 
 export function errorHandler(showInternals: boolean): ErrorRequestHandler {
-  return (err, req, res, _next) => {
-    const known = err instanceof AppError ? err : fromLibrary(err as HttpLikeError);
+  return (err, req, res, next) => {
+    if (res.headersSent) {
+      // The session store failing to touch or save after the reply was begun (the database went
+      // down): express-session finishes the reply itself, so the answer already given stands.
+      if (asUnavailable(err)) {
+        req.log?.warn({ err }, "database unavailable after the response was begun");
+        return;
+      }
+      next(err);
+      return;
+    }
+    // A database that is down, stalled or still deadlocking after retries is a 503 with Retry-After.
+    const known = err instanceof AppError ? err : (asUnavailable(err) ?? fromLibrary(err as HttpLikeError));
     if (!known) {
       req.log?.error({ err }, "unhandled error");
       res.status(500).json({

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { ROLES } from "../../../src/lib/roles.js";
+import { idParam } from "../../lib/validation.js";
 
 export const emailSchema = z
   .string({ error: "Enter an e-mail address." })
@@ -23,7 +24,7 @@ const tokenSchema = z.string({ error: "The link is missing its token." }).regex(
 export const tokenParamsSchema = z.object({ token: tokenSchema });
 
 export const userIdParamsSchema = z.object({
-  userId: z.coerce.number({ error: "userId must be a number." }).int().positive("userId must be a positive whole number."),
+  userId: idParam("userId"),
 });
 
 export const acceptInvitationSchema = z.object({ token: tokenSchema, password: newPasswordSchema });

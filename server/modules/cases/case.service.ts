@@ -10,6 +10,7 @@ import {
   type CaseStatus,
 } from "../../../src/lib/domain/case-workflow.js";
 import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
+import { inTransaction } from "../../lib/transaction.js";
 import { isStaff, type Actor } from "../auth/actor.js";
 import type { MailTemplateName } from "../mail/mail-templates.js";
 import type { MailService, SendMail } from "../mail/mail.service.js";
@@ -107,6 +108,9 @@ export class CaseService {
   /** recordEvent, answering the new event's id (a message that read marks and replies refer to). */
   async recordEventWithId(m: EntityManager, e: NewCaseEvent): Promise<number> {
     const before = "before" in e ? (e.before as Record<string, unknown> | null) : null;
+    // The case row first, then its event: the same lock order everywhere (an event's foreign key
+    // check takes a shared lock on the case row; taking the exclusive lock second would deadlock).
+    await this.markStale(m, { caseIds: [e.caseId] });
     const saved = await m.getRepository(CaseEvent).save(
       // created_at from the clock, not the column default: rules compare it with times the clock set (e.g. works done).
       m.getRepository(CaseEvent).create({
@@ -118,7 +122,6 @@ export class CaseService {
         createdAt: this.clock.now(),
       }),
     );
-    await this.markStale(m, { caseIds: [e.caseId] });
     return Number(saved.id);
   }
 
@@ -131,14 +134,27 @@ export class CaseService {
     m: EntityManager,
     where: { caseIds: number[] } | { propertyId: number } | { organisationId: number },
   ): Promise<void> {
-    const qb = m
-      .createQueryBuilder()
-      .update(Case)
-      .set({ triageDueAt: () => STALE_MARK });
-    if ("caseIds" in where) qb.where("id IN (:...ids)", { ids: where.caseIds.length ? where.caseIds : [0] });
-    else if ("propertyId" in where) qb.where("property_id = :p", { p: where.propertyId });
-    else qb.where("organisation_id = :o AND status IN (:...open)", { o: where.organisationId, open: OPEN_CASE_STATUSES });
-    await qb.execute();
+    let ids: number[];
+    if ("caseIds" in where) ids = where.caseIds;
+    else {
+      // Found by a plain (non-locking) read, then updated by primary key in id order. An UPDATE
+      // by property or landlord would take next-key locks on that index, and a report being made
+      // at the same time (at this home or the next one in the index) deadlocks against them.
+      // A case added meanwhile needs no mark: a new case is stale from the start.
+      const qb = m.createQueryBuilder(Case, "c").select("c.id", "id");
+      if ("propertyId" in where) qb.where("c.property_id = :p", { p: where.propertyId });
+      else qb.where("c.organisation_id = :o AND c.status IN (:...open)", { o: where.organisationId, open: OPEN_CASE_STATUSES });
+      ids = ((await qb.getRawMany()) as { id: number | string }[]).map((r) => Number(r.id));
+    }
+    ids = [...new Set(ids)].sort((a, b) => a - b);
+    for (let i = 0; i < ids.length; i += 1000) {
+      await m
+        .createQueryBuilder()
+        .update(Case)
+        .set({ triageDueAt: () => STALE_MARK })
+        .where("id IN (:...ids)", { ids: ids.slice(i, i + 1000) })
+        .execute();
+    }
   }
 
   /**
@@ -327,7 +343,7 @@ export class CaseService {
     seen: { triageDueAt: Date | null; updatedAt: Date },
     figures: TriageFigures,
   ): Promise<boolean> {
-    return this.dataSource.transaction(async (m) => {
+    return inTransaction(this.dataSource, async (m) => {
       const [row] = (await m.query("SELECT triage_due_at, updated_at FROM cases WHERE id = ? FOR UPDATE", [caseId])) as {
         triage_due_at: Date | null;
         updated_at: Date;
@@ -340,7 +356,13 @@ export class CaseService {
     });
   }
 
-  /** A tenant reports for their own home; staff log a report on a tenant's behalf with its channel and awareness date. */
+  /**
+   * A tenant reports for their own home; staff log a report on a tenant's behalf with its channel and
+   * awareness date. Answers the new case with its rooms and home, as the actor may see it. Reports made
+   * at the same moment (even at one home) each become a case of their own: the reference comes from
+   * the case's own auto-increment id, and the transaction is retried if MariaDB picks it as a
+   * deadlock victim.
+   */
   async create(actor: Actor, input: CaseReport | StaffCaseReport): Promise<Case> {
     let property: Property;
     let tenantUserId: number | null;
@@ -380,7 +402,7 @@ export class CaseService {
       ]);
     }
 
-    const { saved, deliveries } = await this.dataSource.transaction(async (m) => {
+    const { saved, deliveries } = await inTransaction(this.dataSource, async (m) => {
       const repo = m.getRepository(Case);
       const vulnerability = input.vulnerability === undefined ? null : [...new Set(input.vulnerability)];
       const row = repo.create({
@@ -453,9 +475,12 @@ export class CaseService {
         const reasons = [householdIncludes(vulnerability!)];
         deliveries.push(...(await this.alertOfficers(m, saved, property, reasons)));
       }
-      return { saved, deliveries };
+      // Read back before commit: once committed, the report is answered 201 whatever happens next.
+      return { saved: await this.getForActor(actor, saved.id, m), deliveries };
     });
-    for (const deliver of deliveries) await deliver();
+    // The outbox rows are committed with the case; a failed send here is retried from the outbox,
+    // and must not turn the committed report into an error.
+    for (const deliver of deliveries) await deliver().catch(() => undefined);
     return saved;
   }
 
@@ -483,7 +508,7 @@ export class CaseService {
 
   /** Alerts officers in a transaction of its own (used after readings are added). */
   async alertOfficersNow(c: Case, reasons: string[]): Promise<void> {
-    const deliveries = await this.dataSource.transaction(async (m) => {
+    const deliveries = await inTransaction(this.dataSource, async (m) => {
       const fresh = await this.lockRow(m, c.id).catch(() => null);
       if (!fresh || fresh.officersAlertedAt) return [];
       return this.alertOfficers(m, fresh, c.property!, reasons);
@@ -577,7 +602,7 @@ export class CaseService {
    * Returns what happened, so the tenant is told only what is true.
    */
   async reportWorse(actor: Actor, id: number, note: string): Promise<WorseOutcome> {
-    const { outcome, deliveries } = await this.dataSource.transaction(async (m) => {
+    const { outcome, deliveries } = await inTransaction(this.dataSource, async (m) => {
       const property = (await this.getForActor(actor, id, m)).property!;
       const c = await this.lockRow(m, id);
       await this.recordEvent(m, { caseId: c.id, actorId: actor.id, type: "tenant-got-worse", after: { note } });
@@ -618,7 +643,7 @@ export class CaseService {
    * classification. Each change is its own CaseEvent, written with the change in one transaction.
    */
   async update(actor: Actor, id: number, patch: CasePatch): Promise<Case> {
-    await this.dataSource.transaction(async (m) => {
+    await inTransaction(this.dataSource, async (m) => {
       await this.getForActor(actor, id, m);
       const c = await this.lockRow(m, id);
       const changes: Partial<Case> = {};

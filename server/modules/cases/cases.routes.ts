@@ -31,7 +31,7 @@ export function createCasesRouter({ cases, figures }: { cases: CaseService; figu
     const actor = actorOf(req);
     const input = isStaff(actor) ? parse(staffCaseSchema, req.body) : parse(caseReportSchema, req.body);
     const created = await cases.create(actor, input);
-    res.status(201).json(toCaseDto(await cases.getForActor(actor, created.id), audienceOf(actor)));
+    res.status(201).json(toCaseDto(created, audienceOf(actor)));
   });
 
   router.get("/:id", async (req, res) => {

@@ -3,6 +3,7 @@ import { healthResponse, livenessResponse, readinessResponse } from "../../../sr
 import { shaped } from "../../lib/contract.js";
 import type { DataSource } from "typeorm";
 import { pendingMigrations } from "../../db/migrate.js";
+import { databaseWatchOf } from "../../lib/database-watch.js";
 
 const DB_TIMEOUT_MS = 2000;
 
@@ -21,7 +22,8 @@ async function withinTimeout<T>(work: Promise<T>, fallback: T): Promise<T> {
   }
 }
 
-const databaseAnswers = (dataSource: DataSource) =>
+const databaseAnswers = async (dataSource: DataSource) =>
+  !databaseWatchOf(dataSource)?.isDown &&
   withinTimeout(
     dataSource.query("SELECT 1").then(() => true),
     false,
@@ -35,7 +37,8 @@ export type Readiness =
 export async function checkReadiness(dataSource: DataSource, isDraining: () => boolean): Promise<Readiness> {
   if (isDraining())
     return { ready: false, reason: "shutting_down", message: "The server is shutting down and finishing its requests." };
-  const pending = await withinTimeout(pendingMigrations(dataSource), null);
+  // Known down (server/lib/database-watch.ts): say so at once, without waiting on it.
+  const pending = databaseWatchOf(dataSource)?.isDown ? null : await withinTimeout(pendingMigrations(dataSource), null);
   if (pending === null) return { ready: false, reason: "database_down", message: "The database does not answer." };
   if (pending.length > 0) {
     return {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idParam } from "../../lib/validation.js";
 
 export const propertyListQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),
@@ -14,12 +15,9 @@ export const propertyListQuerySchema = z.object({
 export type PropertyListQuery = z.infer<typeof propertyListQuerySchema>;
 
 export const idParamsSchema = z.object({
-  id: z.coerce.number({ error: "The id must be a number." }).int().positive("The id must be a positive whole number."),
+  id: idParam("The id"),
 });
 
 export const roomParamsSchema = idParamsSchema.extend({
-  roomId: z.coerce
-    .number({ error: "The room id must be a number." })
-    .int()
-    .positive("The room id must be a positive whole number."),
+  roomId: idParam("The room id"),
 });

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { airTemperatureC, outdoorTemperatureC, surfaceTemperatureC } from "../../../src/lib/schemas/psychrometrics.js";
+import { idParam } from "../../lib/validation.js";
 
 const rh = z
   .number({ error: "relativeHumidityPct must be a number in %." })
@@ -24,7 +25,7 @@ export const manualReadingsSchema = z
   .max(MAX_MANUAL_READINGS, `Send at most ${MAX_MANUAL_READINGS} readings at once; use a CSV import for more.`);
 
 export const readingsQuerySchema = z.object({
-  roomId: z.coerce.number().int().positive().optional(),
+  roomId: idParam("roomId").optional(),
 });
 
 export const importFieldsSchema = z.object({
@@ -44,6 +45,6 @@ export const importFieldsSchema = z.object({
 });
 
 export const importParamsSchema = z.object({
-  id: z.coerce.number().int().positive(),
-  importId: z.coerce.number().int().positive(),
+  id: idParam("The id"),
+  importId: idParam("The import id"),
 });

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { SLOT_WINDOWS, WORK_ORDER_PRIORITIES, WORK_ORDER_STATUSES, WORK_ORDER_TYPES } from "./work-order.entity.js";
+import { idParam } from "../../lib/validation.js";
 
 const isoDate = (field: string) =>
   z
@@ -113,7 +114,7 @@ export const workOrderListQuerySchema = z.object({
     .optional(),
   from: isoDate("from").optional(),
   to: isoDate("to").optional(),
-  caseId: z.coerce.number().int().positive().optional(),
+  caseId: idParam("caseId").optional(),
   sort: z.enum(WORK_ORDER_SORTS, { error: `sort must be one of ${WORK_ORDER_SORTS.join(", ")}.` }).default("target"),
   order: z.enum(["asc", "desc"]).default("asc"),
   page: z.coerce.number().int().min(1).default(1),
