@@ -494,9 +494,9 @@ try {
     "SELECT (SELECT COUNT(*) FROM readings WHERE case_id = ? AND import_id IS NOT NULL) AS readings, (SELECT COUNT(*) FROM reading_imports WHERE case_id = ?) AS imports",
     [importCase, importCase],
   );
-  const tmpLeft = existsSync(path.join(tmpdir(), "dewline-uploads"))
-    ? readdirSync(path.join(tmpdir(), "dewline-uploads")).length
-    : 0;
+  // The upload is received into the app's own incoming folder (crash leftovers are swept once stale).
+  const incoming = path.join(work, "uploads", ".incoming");
+  const tmpLeft = existsSync(incoming) ? readdirSync(incoming).length : 0;
   const meAfter = await Session.signIn(base, seeded.tenants[3]!.email, PASSWORD).then(
     (s) => s.request("GET", "/api/auth/me").then((r) => r.status),
     () => "sign-in failed",

@@ -18,6 +18,7 @@ import { createPolicyRouter } from "./modules/policy/policy.routes.js";
 import { createCasesRouter, createMyCasesRouter } from "./modules/cases/cases.routes.js";
 import { createCasePhotosRouter, createPhotosRouter } from "./modules/photos/photos.routes.js";
 import { createReadingsRouter } from "./modules/readings/readings.routes.js";
+import { incomingDir } from "./modules/cases/upload-dir.js";
 import { createEvaluationRouter } from "./modules/evaluation/evaluation.routes.js";
 import { createHealthRouter } from "./modules/health/health.routes.js";
 import { createHomeRecordRouter } from "./modules/homes/homes.routes.js";
@@ -127,6 +128,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
       readings: services.readings,
       imports: services.imports,
       evaluation: services.evaluation,
+      incomingDir: incomingDir(config.uploadsDir),
     }),
   );
   api.use("/cases", createEvaluationRouter({ evaluation: services.evaluation }));

@@ -59,6 +59,8 @@ describe("readings by hand", () => {
     const list = await tenant.get(`/api/cases/${caseId}/readings`).expect(200);
     expect(list.body.readings.map((r: { relativeHumidityPct: number }) => r.relativeHumidityPct)).toEqual([78, 70]);
 
+    // The evaluation is brought up to date in the background after readings are added.
+    await t.ctx.services.readings.whenIdle();
     const evaluation = await tenant.get(`/api/cases/${caseId}/evaluation`).expect(200);
     expect(evaluation.body.statement).toMatch(/whatever the readings show/);
     const room = evaluation.body.rooms[0];
@@ -88,6 +90,7 @@ describe("readings by hand", () => {
         { roomId: bedroomId, takenAt: at(48), airTemperatureC: 19, relativeHumidityPct: 78, surfaceTemperatureC: 9 },
       ])
       .expect(201);
+    await t.ctx.services.readings.whenIdle();
     const evaluation = await tenant.get(`/api/cases/${c.id}/evaluation`).expect(200);
     expect(evaluation.body.rooms[0].surfaces[0].result.surface).toMatchObject({
       source: "measured",

@@ -52,6 +52,8 @@ async function fullRecomputation(caseId: number) {
 }
 
 async function served(caseId: number) {
+  // Adding readings starts the recomputation in the background: wait for it to settle.
+  await t.ctx.services.readings.whenIdle();
   const body = (await tenant.get(`/api/cases/${caseId}/evaluation`).expect(200)).body as {
     rooms: { roomId: number; readingsCount: number; series: unknown }[];
   };
@@ -138,8 +140,35 @@ describe("the stored evaluation of a case", () => {
     // A reading added through the app is taken in (with the ten written behind its back), and the
     // numbers are those of a full recomputation.
     await tenant.post(`/api/cases/${caseId}/readings`, [hand(bedroomId, 200_010 * 2, 97, 7)]).expect(201);
+    await t.ctx.services.readings.whenIdle();
     const updated = await tenant.get(`/api/cases/${caseId}/evaluation`).expect(200);
     expect(updated.body.rooms[0].readingsCount).toBe(200_011);
     expect(updated.body.rooms[0].series).toEqual((await fullRecomputation(caseId))[bedroomId]);
+  }, 120_000);
+
+  it("answers at once from the last stored result while newer readings are taken in, then with the new figures", async () => {
+    const caseId = await newCase([bedroomId]);
+    await insertDirectly(caseId, bedroomId, 0, 20_000, 2);
+    const first = await tenant.get(`/api/cases/${caseId}/evaluation`).expect(200);
+    expect(first.body.rooms[0].readingsCount).toBe(20_000);
+
+    // A hundred readings arrive through a writer that marks the room changed but starts no
+    // recomputation here (as another instance of the app would).
+    await insertDirectly(caseId, bedroomId, 20_000 * 2, 100, 2);
+    await t.ctx.dataSource.transaction((m) => t.ctx.services.readings.markChanged(m, caseId, [bedroomId]));
+
+    // The next view does not wait for the recomputation: the stored figures, marked as being updated.
+    const during = await tenant.get(`/api/cases/${caseId}/evaluation`).expect(200);
+    expect(during.body.rooms[0]).toMatchObject({ readingsCount: 20_000, series: first.body.rooms[0].series });
+    expect(during.body.updating).toBe(true);
+    expect(during.body.rooms[0].updating).toBe(true);
+    expect(typeof during.body.rooms[0].evaluatedAt).toBe("string");
+
+    // Once the recomputation that view started has settled: the new figures, equal to a full recomputation.
+    await t.ctx.services.readings.whenIdle();
+    const after = await tenant.get(`/api/cases/${caseId}/evaluation`).expect(200);
+    expect(after.body.updating).toBe(false);
+    expect(after.body.rooms[0]).toMatchObject({ readingsCount: 20_100, updating: false });
+    expect(after.body.rooms[0].series).toEqual((await fullRecomputation(caseId))[bedroomId]);
   }, 120_000);
 });

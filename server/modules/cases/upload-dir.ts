@@ -1,16 +1,10 @@
 import { readdir, rm, stat } from "node:fs/promises";
-import os from "node:os";
 import path from "node:path";
 
 /**
- * Where the readings CSV upload is written by multer, under its own random names; files are
- * removed once processed. (Photos use incomingDir, inside the app's own uploads folder.)
- */
-export const uploadTmpDir = path.join(os.tmpdir(), "dewline-uploads");
-
-/**
- * Where multer writes photo uploads before they are processed: inside the app's own uploads folder
- * (so not shared with every other instance on the machine, and on the same disk as the photos).
+ * Where multer writes uploads (photos and readings CSVs) before they are processed: inside the app's
+ * own uploads folder (so not shared with every other instance on the machine, and on the same disk
+ * as the photos). Files are removed once processed; a crash's leftovers by removeStaleIncoming.
  */
 export const incomingDir = (uploadsDir: string): string => path.join(uploadsDir, ".incoming");
 

@@ -35,6 +35,10 @@ export interface RoomEvaluation {
   } | null;
   surfaces: SurfaceEvaluation[];
   series: SeriesResult | null;
+  /** True while newer readings are being taken in: the figures are the last stored ones. */
+  updating: boolean;
+  /** When these figures were worked out. */
+  evaluatedAt: string | null;
 }
 
 const RISKY = new Set(["condensing", "mould-risk"]);
@@ -47,14 +51,16 @@ export class EvaluationService {
     private readonly readings: ReadingService,
   ) {}
 
-  async forCase(actor: Actor, caseId: number): Promise<{ statement: string; rooms: RoomEvaluation[] }> {
+  async forCase(actor: Actor, caseId: number): Promise<{ statement: string; updating: boolean; rooms: RoomEvaluation[] }> {
     const c = await this.cases.getForActor(actor, caseId);
-    return { statement: INVESTIGATION_STATEMENT, rooms: await this.evaluate(c) };
+    const { rooms, updating } = await this.evaluate(c);
+    return { statement: INVESTIGATION_STATEMENT, updating, rooms };
   }
 
   /** The worst surface state and the highest current mould index over the case's rooms; nulls while there are no readings. */
   async riskOf(c: Case): Promise<{ state: SurfaceState | null; mouldIndex: number | null }> {
-    const rooms = await this.evaluate(c);
+    // The triage queue stores these figures, so they wait for readings still being taken in.
+    const { rooms } = await this.evaluate(c, { waitForCurrent: true });
     let state: SurfaceState | null = null;
     let mouldIndex: number | null = null;
     for (const room of rooms) {
@@ -91,21 +97,27 @@ export class EvaluationService {
   }
 
   /**
-   * Each room from its stored evaluation (ReadingService.roomEvaluations): worked out again, on the
-   * worker pool, only for rooms whose readings changed since, so a big case is not read on every view.
+   * Each room from its stored evaluation (ReadingService.roomEvaluations): a room whose readings
+   * changed since is answered from its last stored result, marked `updating`, while it is worked out
+   * again on the worker pool in the background, so a big case never holds the request up.
    */
-  private async evaluate(c: Case): Promise<RoomEvaluation[]> {
+  private async evaluate(
+    c: Case,
+    options: { waitForCurrent?: boolean } = {},
+  ): Promise<{ rooms: RoomEvaluation[]; updating: boolean }> {
     const { elements, params } = this.paramsOf(c);
     const rooms = this.cases.roomsOf(c);
     const stored = await this.readings.roomEvaluations(
       c.id,
       rooms.map((r) => r.id),
       params,
+      options,
     );
     const out: RoomEvaluation[] = [];
     for (const room of rooms) {
-      const e = stored.get(room.id);
-      if (!e?.latest || e.readingsCount === 0) continue;
+      const state = stored.get(room.id);
+      const e = state?.evaluation;
+      if (!state || !e?.latest || e.readingsCount === 0) continue;
       out.push({
         roomId: room.id,
         roomName: room.name,
@@ -113,9 +125,11 @@ export class EvaluationService {
         latest: e.latest,
         surfaces: this.surfacesAt(elements, e.latest),
         series: e.series,
+        updating: state.updating,
+        evaluatedAt: state.evaluatedAt?.toISOString() ?? null,
       });
     }
-    return out;
+    return { rooms: out, updating: [...stored.values()].some((s) => s.updating) };
   }
 
   /** After new readings: tell the officers (once per case) when a surface is condensing or at mould risk. */

@@ -16,6 +16,26 @@ export type { StoredRoomEvaluation } from "./room-evaluation.task.js";
 /** Works one room's evaluation out from the database: on the worker pool in the app (createServices). */
 export type RoomEvaluator = (input: RoomEvaluationInput) => Promise<{ version: number; evaluation: StoredRoomEvaluation }>;
 
+/** A room's evaluation as answered: the stored one, and whether it is being brought up to date with newer readings. */
+export interface RoomEvaluationState {
+  evaluation: StoredRoomEvaluation;
+  /** True while newer readings are being taken in: `evaluation` is the last stored one. */
+  updating: boolean;
+  /** When `evaluation` was worked out (the app's clock). */
+  evaluatedAt: Date | null;
+}
+
+interface StoredRow {
+  room_id: number;
+  readings_version: number;
+  computed_version: number | null;
+  params: string | null;
+  result: string | null;
+  computed_at: Date | null;
+}
+
+const paramsKey = (params: EvaluationParams): string => `${params.element ?? ""}|${params.surfaceWet ? "wet" : "dry"}`;
+
 /** What a room's stored evaluation was worked out for (the case's main element and whether a surface is wet). */
 export interface EvaluationParams {
   element?: RoomEvaluationInput["element"];
@@ -98,8 +118,10 @@ export interface CaseEventRecorder {
 }
 
 export class ReadingService {
-  /** Recomputations running now, by case, room, version and params, so concurrent readers share one. */
+  /** Recomputations running now, by case, room and params: one per room at a time, joined by later callers. */
   private readonly running = new Map<string, Promise<StoredRoomEvaluation>>();
+  /** refreshInBackground calls still finding out which rooms to work out again. */
+  private readonly starting = new Set<Promise<void>>();
 
   constructor(
     private readonly dataSource: DataSource,
@@ -124,36 +146,45 @@ export class ReadingService {
   }
 
   /**
-   * The evaluation of each of these rooms: the stored one while it is current, otherwise worked out
-   * again from the database (on the worker pool) and stored, unless the readings changed meanwhile.
+   * The evaluation of each of these rooms: the stored one while it is current. When readings changed
+   * since, the last stored result is answered at once, marked `updating`, and the room is worked out
+   * again in the background (on the worker pool); only a room with no stored result yet is waited for.
+   * With `waitForCurrent`, an out-of-date room is waited for instead (for figures that are stored
+   * elsewhere, such as the triage queue's, and would otherwise keep the old result).
    */
   async roomEvaluations(
     caseId: number,
     roomIds: readonly number[],
     params: EvaluationParams,
-  ): Promise<Map<number, StoredRoomEvaluation>> {
-    const out = new Map<number, StoredRoomEvaluation>();
+    options: { waitForCurrent?: boolean } = {},
+  ): Promise<Map<number, RoomEvaluationState>> {
+    const out = new Map<number, RoomEvaluationState>();
     if (roomIds.length === 0) return out;
-    const key = `${params.element ?? ""}|${params.surfaceWet ? "wet" : "dry"}`;
-    const rows: {
-      room_id: number;
-      readings_version: number;
-      computed_version: number | null;
-      params: string | null;
-      result: string | null;
-    }[] = await this.dataSource.query(
-      `SELECT room_id, readings_version, computed_version, params, result FROM room_evaluations WHERE case_id = ? AND room_id IN (${roomIds.map(() => "?").join(",")})`,
-      [caseId, ...roomIds],
-    );
-    const byRoom = new Map(rows.map((r) => [r.room_id, r]));
+    const key = paramsKey(params);
+    const rows = await this.storedRows(caseId, roomIds);
     await Promise.all(
       roomIds.map(async (roomId) => {
-        const row = byRoom.get(roomId);
-        if (row && row.result !== null && row.computed_version === row.readings_version && row.params === key) {
-          out.set(roomId, JSON.parse(row.result) as StoredRoomEvaluation);
+        const row = rows.get(roomId);
+        if (row && row.result !== null && !options.waitForCurrent) {
+          const current = row.computed_version === row.readings_version && row.params === key;
+          if (!current) this.refresh(caseId, roomId, params);
+          out.set(roomId, {
+            evaluation: JSON.parse(row.result) as StoredRoomEvaluation,
+            updating: !current,
+            evaluatedAt: row.computed_at,
+          });
           return;
         }
-        out.set(roomId, await this.recompute(caseId, roomId, params, key, row !== undefined));
+        if (row && row.result !== null && row.computed_version === row.readings_version && row.params === paramsKey(params)) {
+          out.set(roomId, {
+            evaluation: JSON.parse(row.result) as StoredRoomEvaluation,
+            updating: false,
+            evaluatedAt: row.computed_at,
+          });
+          return;
+        }
+        const evaluation = await this.refresh(caseId, roomId, params);
+        out.set(roomId, { evaluation, updating: false, evaluatedAt: this.clock.now() });
       }),
     );
     return out;
@@ -161,46 +192,87 @@ export class ReadingService {
 
   /** Starts bringing these rooms' stored evaluations up to date without waiting (after readings were added). */
   refreshInBackground(caseId: number, roomIds: readonly number[], params: EvaluationParams): void {
-    this.roomEvaluations(caseId, roomIds, params).catch(() => undefined);
+    const key = paramsKey(params);
+    const started = this.storedRows(caseId, roomIds)
+      .then((rows) => {
+        for (const roomId of roomIds) {
+          const row = rows.get(roomId);
+          if (row && row.result !== null && row.computed_version === row.readings_version && row.params === key) continue;
+          this.refresh(caseId, roomId, params).catch(() => undefined);
+        }
+      })
+      .catch(() => undefined)
+      .finally(() => this.starting.delete(started));
+    this.starting.add(started);
   }
 
-  private recompute(
-    caseId: number,
-    roomId: number,
-    params: EvaluationParams,
-    key: string,
-    rowExists: boolean,
-  ): Promise<StoredRoomEvaluation> {
+  /** Resolves once no recomputation is starting or running (each one has finished, stored or not). */
+  async whenIdle(): Promise<void> {
+    while (this.starting.size > 0 || this.running.size > 0)
+      await Promise.allSettled([...this.starting, ...this.running.values()]);
+  }
+
+  private async storedRows(caseId: number, roomIds: readonly number[]): Promise<Map<number, StoredRow>> {
+    if (roomIds.length === 0) return new Map();
+    const rows: StoredRow[] = await this.dataSource.query(
+      `SELECT room_id, readings_version, computed_version, params, result, computed_at FROM room_evaluations WHERE case_id = ? AND room_id IN (${roomIds.map(() => "?").join(",")})`,
+      [caseId, ...roomIds],
+    );
+    return new Map(rows.map((r) => [r.room_id, r]));
+  }
+
+  /**
+   * Works a room out again and stores it, one recomputation per room at a time: a caller while one
+   * runs joins it. When the readings changed while it ran (its save is refused by the version
+   * guard), it runs again, so the stored result catches up with the newest readings.
+   */
+  private refresh(caseId: number, roomId: number, params: EvaluationParams): Promise<StoredRoomEvaluation> {
+    const key = paramsKey(params);
     const id = `${caseId}:${roomId}:${key}`;
     const running = this.running.get(id);
     if (running) return running;
     const work = (async () => {
-      const db = dbOf(this.dataSource);
-      const { version, evaluation } = await this.evaluator({
-        db,
-        caseId,
-        roomId,
-        element: params.element,
-        surfaceWet: params.surfaceWet,
-      });
-      const json = JSON.stringify(evaluation);
-      const now = this.clock.now();
-      // Stored only if the readings did not change while it was worked out (the version still matches).
-      if (rowExists || version > 0) {
-        await this.dataSource.query(
-          "UPDATE room_evaluations SET result = ?, computed_version = ?, params = ?, computed_at = ? WHERE case_id = ? AND room_id = ? AND readings_version = ?",
-          [json, version, key, now, caseId, roomId, version],
-        );
-      } else {
-        await this.dataSource.query(
-          "INSERT IGNORE INTO room_evaluations (case_id, room_id, readings_version, computed_version, params, result, computed_at) VALUES (?, ?, 0, 0, ?, ?, ?)",
-          [caseId, roomId, key, json, now],
-        );
+      let evaluation: StoredRoomEvaluation;
+      for (;;) {
+        const computed = await this.recomputeOnce(caseId, roomId, params, key);
+        evaluation = computed.evaluation;
+        const [row] = (await this.dataSource.query(
+          "SELECT readings_version FROM room_evaluations WHERE case_id = ? AND room_id = ?",
+          [caseId, roomId],
+        )) as { readings_version: number }[];
+        if (Number(row?.readings_version ?? 0) === computed.version) return evaluation;
       }
-      return evaluation;
     })().finally(() => this.running.delete(id));
     this.running.set(id, work);
     return work;
+  }
+
+  private async recomputeOnce(
+    caseId: number,
+    roomId: number,
+    params: EvaluationParams,
+    key: string,
+  ): Promise<{ version: number; evaluation: StoredRoomEvaluation }> {
+    const { version, evaluation } = await this.evaluator({
+      db: dbOf(this.dataSource),
+      caseId,
+      roomId,
+      element: params.element,
+      surfaceWet: params.surfaceWet,
+    });
+    const json = JSON.stringify(evaluation);
+    const now = this.clock.now();
+    // Stored only if the readings did not change while it was worked out (the version still matches).
+    await this.dataSource.query(
+      "INSERT INTO room_evaluations (case_id, room_id, readings_version, computed_version, params, result, computed_at) VALUES (?, ?, ?, ?, ?, ?, ?) " +
+        "ON DUPLICATE KEY UPDATE " +
+        "result = IF(readings_version = VALUES(computed_version), VALUES(result), result), " +
+        "params = IF(readings_version = VALUES(computed_version), VALUES(params), params), " +
+        "computed_at = IF(readings_version = VALUES(computed_version), VALUES(computed_at), computed_at), " +
+        "computed_version = IF(readings_version = VALUES(computed_version), VALUES(computed_version), computed_version)",
+      [caseId, roomId, version, version, key, json, now],
+    );
+    return { version, evaluation };
   }
 
   /** The latest reading of each of these rooms (the unique index's last entry per room; no series is read). */

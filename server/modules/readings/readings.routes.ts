@@ -6,13 +6,13 @@ import {
   readingsResponse,
 } from "../../../src/lib/contracts/readings.js";
 import { shaped } from "../../lib/contract.js";
+import { mkdirSync } from "node:fs";
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
 import { parse } from "../../lib/validation.js";
-import { ValidationError } from "../../lib/errors.js";
+import { ServiceUnavailableError, ValidationError } from "../../lib/errors.js";
 import { actorOf } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
-import { uploadTmpDir } from "../cases/upload-dir.js";
 import type { Actor } from "../auth/actor.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { ReadingImportService } from "./reading-import.service.js";
@@ -28,12 +28,34 @@ interface Deps {
   imports: ReadingImportService;
   /** Tells officers when the new readings make the case risky (EvaluationService; readings depend on no evaluation code). */
   evaluation: { alertIfRisky(actor: Actor, caseId: number): Promise<void> };
+  /** Where multer writes the CSV while it is received: the app's own `<UPLOADS_DIR>/.incoming` (swept at start-up). */
+  incomingDir: string;
+}
+
+/** File-system failures that mean "cannot store now", not "your upload is bad". */
+const STORAGE_CODES = new Set(["ENOSPC", "EDQUOT", "EACCES", "EPERM", "EROFS", "ENOTDIR", "ENOENT", "EMFILE", "EIO"]);
+
+/** multer for one "file" field into `incomingDir`; a failed write is 503 (multer removes a failed request's file). */
+function csvUploadInto(incomingDir: string): RequestHandler {
+  mkdirSync(incomingDir, { recursive: true });
+  const receive = multer({ dest: incomingDir, limits: { fileSize: MAX_CSV_BYTES, files: 1, fields: 10 } }).single("file");
+  return (req, res, next) => {
+    receive(req, res, (err?: unknown) => {
+      if (!err) return next();
+      const code = (err as { code?: unknown }).code;
+      if (typeof code === "string" && STORAGE_CODES.has(code)) {
+        req.log?.error({ err }, "a readings upload could not be written to the incoming folder");
+        return next(new ServiceUnavailableError("The file could not be stored just now. Please try again in a minute."));
+      }
+      next(err);
+    });
+  };
 }
 
 /** Mounted at /api/cases: `/:id/readings…` (the evaluation is in evaluation.routes.ts). */
-export function createReadingsRouter({ cases, readings, imports, evaluation }: Deps): Router {
+export function createReadingsRouter({ cases, readings, imports, evaluation, incomingDir }: Deps): Router {
   const router = Router();
-  const csvUpload = multer({ dest: uploadTmpDir, limits: { fileSize: MAX_CSV_BYTES, files: 1, fields: 10 } }).single("file");
+  const csvUpload = csvUploadInto(incomingDir);
 
   /** Checks the case and the room before anything is uploaded; puts the case on res.locals. */
   const caseAccess: RequestHandler = async (req, res, next) => {
@@ -75,21 +97,25 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
   router.post("/:id/readings/import/preview", caseAccess, csvUpload, async (req, res) => {
     const file = req.file;
     if (!file) throw new ValidationError("file: choose a CSV file.", [{ field: "file", message: "Choose a CSV file." }]);
+    let preview;
     try {
-      res.json(shaped(importPreviewResponse, await imports.preview(file.path)));
+      preview = await imports.preview(file.path);
     } finally {
+      // Removed before the answer, whatever happened.
       await rm(file.path, { force: true });
     }
+    res.json(shaped(importPreviewResponse, preview));
   });
 
   router.post("/:id/readings/import", caseAccess, csvUpload, async (req, res) => {
     const file = req.file;
+    let result;
     try {
       if (!file) throw new ValidationError("file: choose a CSV file.", [{ field: "file", message: "Choose a CSV file." }]);
       const fields = parse(importFieldsSchema, req.body);
       const c = res.locals.case;
       requireRoomOfCase([fields.roomId], cases.roomsOf(c));
-      const result = await imports.import({
+      result = await imports.import({
         caseId: c.id,
         roomId: fields.roomId,
         actorId: actorOf(req).id,
@@ -97,11 +123,12 @@ export function createReadingsRouter({ cases, readings, imports, evaluation }: D
         fileName: file.originalname,
         mapping: fields.mapping as never,
       });
-      await evaluation.alertIfRisky(actorOf(req), c.id);
-      res.status(201).json(shaped(importResultResponse, result));
     } finally {
+      // Removed before the answer, whatever happened.
       if (file) await rm(file.path, { force: true });
     }
+    await evaluation.alertIfRisky(actorOf(req), res.locals.case.id);
+    res.status(201).json(shaped(importResultResponse, result));
   });
 
   router.get("/:id/readings/imports/:importId/rejected.csv", async (req, res) => {

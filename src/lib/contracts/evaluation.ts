@@ -19,6 +19,10 @@ export const roomEvaluation = z.object({
     .nullable(),
   surfaces: z.array(surfaceEvaluation),
   series: seriesResult.nullable(),
+  /** True while newer readings are being taken in: the figures are the last stored ones, soon replaced. */
+  updating: z.boolean().optional(),
+  /** When these figures were worked out. */
+  evaluatedAt: instant.nullable().optional(),
 });
 export type RoomEvaluationResponse = z.infer<typeof roomEvaluation>;
 
@@ -26,6 +30,8 @@ export type RoomEvaluationResponse = z.infer<typeof roomEvaluation>;
 export const evaluationResponse = z.object({
   /** The server's sentence that the landlord investigates whatever the readings say. */
   statement: z.string(),
+  /** True when any room's figures are being brought up to date with the newest readings. */
+  updating: z.boolean().optional(),
   rooms: z.array(roomEvaluation),
 });
 export type EvaluationResponse = z.infer<typeof evaluationResponse>;

@@ -26,6 +26,11 @@ export function CaseEvaluationView({ evaluation, emptyHint, audience = "tenant" 
     <div className="flex flex-col gap-5">
       {audience === "tenant" ? <ReportStillMatters /> : null}
       {audience === "tenant" && evaluation.statement ? <p className="font-semibold">{evaluation.statement}</p> : null}
+      {evaluation.updating ? (
+        <p role="status" className="text-sm text-ink-soft">
+          Being updated with the newest readings.
+        </p>
+      ) : null}
       {evaluation.rooms.length === 0 ? (
         <p className="text-ink-soft">No readings yet. Readings are optional{emptyHint ? `: ${emptyHint}` : "."}</p>
       ) : (
