@@ -34,6 +34,8 @@ const NOT_ABOUT_A_CASE: Record<string, string> = {
   "GET /api/auth/invitations/:token": "the invitation's own name, e-mail and organisation",
   "POST /api/auth/password-reset": "the same answer whoever asks",
   "POST /api/auth/password-reset/confirm": "no body",
+  "POST /api/auth/sign-in-unlock/request": "the same answer whoever asks",
+  "POST /api/auth/sign-in-unlock": "no body",
   "POST /api/psychrometrics/evaluate": "the risk engine on the numbers sent; reads nothing stored",
   "POST /api/psychrometrics/series": "the risk engine on the numbers sent; reads nothing stored",
 };
