@@ -1,5 +1,7 @@
 // The public series calculator under load: it runs on the worker pool, each address has a budget of
 // readings a minute (not of requests), and anonymous callers get a smaller size limit than signed-in ones.
+import type { AddressInfo } from "node:net";
+import { connect } from "node:net";
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApp } from "../../server/app.js";
@@ -75,6 +77,44 @@ describe("the series calculator's budget", () => {
       .send({ readings: hourly(100_001) })
       .expect(413);
     expect(tooMany.body.error.message).toMatch(/at most 100,000/);
+  }, 60_000);
+
+  it("refuses an oversized or over-budget series from its length alone, without waiting for the body", async () => {
+    const server = createApp(t.ctx).listen(0, "127.0.0.1");
+    await new Promise((resolve) => server.once("listening", resolve));
+    const { port } = server.address() as AddressInfo;
+    // Announces a body of `length` bytes, sends only its first bytes, and reads whatever comes back.
+    const announce = (length: number) =>
+      new Promise<string>((resolve, reject) => {
+        const socket = connect(port, "127.0.0.1");
+        let reply = "";
+        socket.on("data", (chunk: Buffer) => (reply += chunk.toString("latin1")));
+        socket.on("close", () => resolve(reply));
+        socket.on("error", reject);
+        socket.write(
+          `POST /api/psychrometrics/series HTTP/1.1\r\nHost: x\r\nContent-Type: application/json\r\nContent-Length: ${length}\r\n\r\n{"readings":[`,
+        );
+      });
+    try {
+      // 11 MB announced by an anonymous caller: refused at once, the connection closed (the body never read).
+      const tooLarge = await announce(11_000_000);
+      expect(tooLarge).toMatch(/^HTTP\/1\.1 413/);
+      expect(tooLarge).toMatch(/connection: close/i);
+      expect(tooLarge).toMatch(/sign in/i);
+
+      // Spend this app's budget (30 000 a minute) with three full anonymous requests…
+      for (let i = 0; i < 3; i++)
+        await request(server)
+          .post("/api/psychrometrics/series")
+          .send({ readings: hourly(10_000) })
+          .expect(200);
+      // …then a body that must hold at least 4 000 readings is refused before it is read.
+      const overBudget = await announce(1_000_000);
+      expect(overBudget).toMatch(/^HTTP\/1\.1 429/);
+      expect(overBudget).toMatch(/retry-after: \d+/i);
+    } finally {
+      await new Promise((resolve) => server.close(resolve));
+    }
   }, 60_000);
 
   it("evaluates on the worker pool with the same numbers as the engine", async () => {

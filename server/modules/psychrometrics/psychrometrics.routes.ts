@@ -36,9 +36,47 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
   const keep = (req: Request, _res: unknown, buf: Buffer) => {
     (req as Request & { rawBody?: Buffer }).rawBody = buf;
   };
-  const anonymousJson = express.json({ limit: Math.max(64 * 1024, anonymousMax * BYTES_PER_READING), verify: keep });
   // A year of readings at 5-minute intervals is about 10 MB of JSON; the reading count is checked below.
-  const signedInJson = express.json({ limit: MAX_SERIES_READINGS * BYTES_PER_READING, verify: keep });
+  const anonymousLimit = Math.max(64 * 1024, anonymousMax * BYTES_PER_READING);
+  const signedInLimit = MAX_SERIES_READINGS * BYTES_PER_READING;
+  const anonymousJson = express.json({ limit: anonymousLimit, verify: keep });
+  const signedInJson = express.json({ limit: signedInLimit, verify: keep });
+  const tooManyReadings = (limit: number) =>
+    `The series is too large to evaluate: at most ${limit.toLocaleString("en-GB")} readings per request${limit < MAX_SERIES_READINGS ? " without signing in (sign in for up to " + MAX_SERIES_READINGS.toLocaleString("en-GB") + ")" : ""}.`;
+  const outOfBudget = (retryAfterSeconds: number) => {
+    const minutes = Math.ceil(retryAfterSeconds / 60);
+    return new TooManyRequestsError(
+      `This address has had its ${deps.limits.readingsPerMinute.toLocaleString("en-GB")} readings a minute evaluated. Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.`,
+      retryAfterSeconds,
+    );
+  };
+  /**
+   * Refuses from the Content-Length alone, before a byte of the body is read: a body over the caller's
+   * limit, or one whose fewest possible readings (at BYTES_PER_READING each) the address's budget cannot
+   * cover (anonymous callers). Reading and discarding megabytes per refused request would itself hold up the request thread.
+   * The connection is closed after the answer, so the unread body is never drained.
+   */
+  const refuseEarly: RequestHandler = (req, res, next) => {
+    const length = Number(req.get("content-length"));
+    if (!Number.isFinite(length)) return next();
+    const signedIn = res.locals.signedIn === true;
+    const refuse = (error: Error) => {
+      res.setHeader("Connection", "close");
+      next(error);
+    };
+    if (length > (signedIn ? signedInLimit : anonymousLimit))
+      return refuse(new PayloadTooLargeError(tooManyReadings(signedIn ? MAX_SERIES_READINGS : anonymousMax)));
+    const fewest = Math.max(1, Math.floor(length / BYTES_PER_READING));
+    const max = signedIn ? MAX_SERIES_READINGS : anonymousMax;
+    if (fewest > max) return refuse(new PayloadTooLargeError(tooManyReadings(max)));
+    // Anonymous callers only: a signed-in caller's body is read, so a series over the size limit is
+    // told so (413) rather than that the budget is spent.
+    if (!signedIn) {
+      const there = budget.has(ipKeyGenerator(req.ip ?? "unknown"), fewest);
+      if (!there.ok) return refuse(outOfBudget(there.retryAfterSeconds));
+    }
+    next();
+  };
   const json: RequestHandler = (req, res, next) => (res.locals.signedIn ? signedInJson : anonymousJson)(req, res, next);
 
   router.post(
@@ -56,6 +94,7 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
     // A ceiling on requests too, far above what the reading budget lets through for real series.
     limiter({ windowMs: 60_000, limit: 1_000, message: "Too many calculations from this address." }),
     recogniseSignedIn(deps.session),
+    refuseEarly,
     json,
     async (req, res) => {
       const signedIn = res.locals.signedIn === true;
@@ -68,13 +107,7 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
         );
       }
       const spent = budget.take(ipKeyGenerator(req.ip ?? "unknown"), Math.max(1, count));
-      if (!spent.ok) {
-        const minutes = Math.ceil(spent.retryAfterSeconds / 60);
-        throw new TooManyRequestsError(
-          `This address has had its ${deps.limits.readingsPerMinute.toLocaleString("en-GB")} readings a minute evaluated. Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.`,
-          spent.retryAfterSeconds,
-        );
-      }
+      if (!spent.ok) throw outOfBudget(spent.retryAfterSeconds);
       const raw = (req as Request & { rawBody?: Buffer }).rawBody;
       const out = await deps.workers.run("evaluateSeriesRequest", { json: raw ?? Buffer.from(JSON.stringify(req.body ?? {})) });
       if (!out.ok) throw new ValidationError(out.message, out.details);

@@ -38,6 +38,15 @@ export class ReadingBudget {
     return { ok: false, retryAfterSeconds: Math.max(1, Math.ceil(waitMs / 1000)) };
   }
 
+  /** Whether `cost` readings are there now, spending nothing (to refuse a request before reading its body). */
+  has(key: string, cost: number): { ok: true } | { ok: false; retryAfterSeconds: number } {
+    const bucket = this.refilled(this.buckets.get(key), this.clock.now().getTime());
+    const needed = Math.min(cost, this.perMinute);
+    if (bucket.tokens >= needed) return { ok: true };
+    const waitMs = ((needed - bucket.tokens) * MINUTE_MS) / this.perMinute;
+    return { ok: false, retryAfterSeconds: Math.max(1, Math.ceil(waitMs / 1000)) };
+  }
+
   private refilled(bucket: Bucket | undefined, now: number): Bucket {
     if (!bucket) return { tokens: this.perMinute, atMs: now };
     const elapsed = Math.max(0, now - bucket.atMs);
