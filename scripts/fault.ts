@@ -122,7 +122,8 @@ async function shutdown() {
   const pid = runningPid(dbDir);
   if (pid !== null) process.kill(pid, "SIGCONT");
   await stopMariaDb(dbDir);
-  rmSync(work, { recursive: true, force: true });
+  if (argv.includes("--keep")) console.log(`(work folder kept: ${work})`);
+  else rmSync(work, { recursive: true, force: true });
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -421,12 +422,12 @@ try {
   await sleep(2000);
   await startSmtp();
   for (; k < 35; k++) await message(k);
-  // Give a relay time to catch up: wait until nothing new arrives for 10 s (at most 60 s).
-  let seen = -1;
-  for (let waited = 0; waited < 60_000 && seen !== caught.length; waited += 10_000) {
-    seen = caught.length;
-    await sleep(10_000);
-  }
+  // Give the relay time to catch up: failed attempts are retried after 30 s, then 60 s…, so wait
+  // until every acknowledged message has arrived, at most 150 s.
+  const arrived = () => sent.every((tk) => caught.some((raw) => raw.replace(/=\r?\n/g, "").includes(tk)));
+  const waitStart = Date.now();
+  while (!arrived() && Date.now() - waitStart < 150_000) await sleep(1_000);
+  console.log(`  (all delivered ${arrived() ? "" : "NOT "}after ${((Date.now() - waitStart) / 1000).toFixed(0)} s of waiting)`);
   const bodies = caught.map((raw) => raw.replace(/=\r?\n/g, ""));
   const delivered = new Map<string, number>();
   for (const raw of bodies) {
@@ -446,6 +447,13 @@ try {
     "outbox rows": outbox.map((o) => `${o.status} ${o.n}`).join(", "),
   };
   printTable("d. E-mails across a mail-server outage (15 of 35 written while it was down)", [mailFigures]);
+  if (mailFigures["never delivered"] > 0) {
+    const stuck = await sql<{ status: string; attempts: number; error: string | null }>(
+      "SELECT status, attempts, LEFT(error, 120) AS error FROM outbox_emails WHERE template = 'caseMessage' AND status <> 'sent' ORDER BY id LIMIT 3",
+    );
+    for (const r of stuck)
+      console.log(`  not delivered: ${r.status}, ${r.attempts} attempt(s), ${r.error ?? "no error recorded"}`);
+  }
 
   // e. Server killed mid-import -----------------------------------------------------------------
   step(`e. kill -9 of the server in the middle of a ${IMPORT_ROWS.toLocaleString("en-GB")}-row import…`);

@@ -33,8 +33,24 @@ export function createMailer(config: Pick<Config, "env" | "smtp" | "smtpTimeouts
   });
   return {
     async send(message) {
-      const info = await transport.sendMail({ from: config.smtp.from, ...message });
-      return { messageId: info.messageId };
+      // The timeouts above bound each wait for the server, not the whole exchange: a server that keeps
+      // the connection alive without finishing could still hold a send (and the relay behind it)
+      // indefinitely. So the whole send has a deadline too; a late success is sent again later under
+      // the same Message-ID (see mail.relay.ts).
+      const deadlineMs = config.smtpTimeouts.connectionMs + config.smtpTimeouts.greetingMs + config.smtpTimeouts.socketMs;
+      let timer: NodeJS.Timeout | undefined;
+      const deadline = new Promise<never>((_, reject) => {
+        timer = setTimeout(
+          () => reject(new Error(`The mail server did not finish within ${Math.round(deadlineMs / 1000)} s.`)),
+          deadlineMs,
+        );
+      });
+      try {
+        const info = await Promise.race([transport.sendMail({ from: config.smtp.from, ...message }), deadline]);
+        return { messageId: info.messageId };
+      } finally {
+        clearTimeout(timer);
+      }
     },
     close() {
       transport.close();
