@@ -19,6 +19,11 @@ import { emailHash, SignInThrottleService } from "./sign-in-throttle.service.js"
 const INVITATION_HOURS = 72;
 const RESET_MINUTES = 60;
 const UNLOCK_MINUTES = 60;
+/** The e-mailed one-time links: the token's kind, its template, the client page it opens, how long it lasts. */
+const LINKS = {
+  "password-reset": { template: "passwordReset", path: "reset-password", minutes: RESET_MINUTES },
+  "sign-in-unlock": { template: "signInUnlock", path: "unlock-sign-in", minutes: UNLOCK_MINUTES },
+} as const;
 const INVALID_LINK = "This link is not valid any more: it may have been used already or have expired. Ask for a new one.";
 
 const notWaiting = (status: string) =>
@@ -114,28 +119,8 @@ export class AuthService {
     });
   }
 
-  private async sendUnlockLink(email: string): Promise<void> {
-    const user = await this.users.account({ email });
-    if (!user || user.status !== "active") return;
-    const { token, hash } = newToken();
-    const deliver = await this.dataSource.transaction(async (m) => {
-      await this.saveToken(
-        m,
-        user.id,
-        "sign-in-unlock",
-        hash,
-        new Date(this.clock.now().getTime() + UNLOCK_MINUTES * 60_000),
-        null,
-      );
-      return this.mail.enqueue(m, {
-        to: user.email,
-        template: "signInUnlock",
-        organisationId: user.organisationId,
-        related: { type: "user", id: user.id },
-        data: { name: user.name, link: `${this.config.appUrl}/unlock-sign-in/${token}`, expiresMinutes: UNLOCK_MINUTES },
-      });
-    });
-    await deliver();
+  private sendUnlockLink(email: string): Promise<void> {
+    return this.sendLink(email, "sign-in-unlock");
   }
 
   /**
@@ -291,25 +276,24 @@ export class AuthService {
     this.later.run("password reset link", () => this.sendResetLink(email));
   }
 
-  private async sendResetLink(email: string): Promise<void> {
+  private sendResetLink(email: string): Promise<void> {
+    return this.sendLink(email, "password-reset");
+  }
+
+  /** Makes a one-time link of this kind for an active account and queues its e-mail; nothing for anyone else. */
+  private async sendLink(email: string, kind: keyof typeof LINKS): Promise<void> {
     const user = await this.users.account({ email });
     if (!user || user.status !== "active") return;
+    const { template, path, minutes } = LINKS[kind];
     const { token, hash } = newToken();
     const deliver = await this.dataSource.transaction(async (m) => {
-      await this.saveToken(
-        m,
-        user.id,
-        "password-reset",
-        hash,
-        new Date(this.clock.now().getTime() + RESET_MINUTES * 60_000),
-        null,
-      );
+      await this.saveToken(m, user.id, kind, hash, new Date(this.clock.now().getTime() + minutes * 60_000), null);
       return this.mail.enqueue(m, {
         to: user.email,
-        template: "passwordReset",
+        template,
         organisationId: user.organisationId,
         related: { type: "user", id: user.id },
-        data: { name: user.name, link: `${this.config.appUrl}/reset-password/${token}`, expiresMinutes: RESET_MINUTES },
+        data: { name: user.name, link: `${this.config.appUrl}/${path}/${token}`, expiresMinutes: minutes },
       });
     });
     await deliver();

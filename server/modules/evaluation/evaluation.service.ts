@@ -26,13 +26,7 @@ export interface RoomEvaluation {
   roomId: number;
   roomName: string;
   readingsCount: number;
-  latest: {
-    takenAt: string;
-    airTemperatureC: number;
-    relativeHumidityPct: number;
-    surfaceTemperatureC: number | null;
-    outdoorTemperatureC: number | null;
-  } | null;
+  latest: StoredRoomEvaluation["latest"];
   surfaces: SurfaceEvaluation[];
   series: SeriesResult | null;
   /** True while newer readings are being taken in: the figures are the last stored ones. */
