@@ -13,10 +13,12 @@
 //  f. ratios measured side by side: /api/auth/me throughput over /api/health; /api/auth/me p99
 //     while an anonymous client posts maximal /api/psychrometrics/series requests, over idle p99.
 // Ends with a one-line verdict. It only prints: the figures depend on the machine. Uses real time
-// for load and outages, never the calendar. Option: --seconds <n> per load run (default 10).
+// for load and outages, never the calendar. Options: --seconds <n> per load run (default 10);
+// --only <letters> runs only those phases (e.g. --only f); --keep keeps the work folder;
+// --profile <folder> has the server write a CPU profile there when it stops.
 import { spawn, type ChildProcess } from "node:child_process";
 import { createWriteStream, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { cpus, loadavg, tmpdir } from "node:os";
+import { cpus, loadavg, setPriority, tmpdir } from "node:os";
 import path from "node:path";
 import { setTimeout as sleep } from "node:timers/promises";
 import mysql from "mysql2/promise";
@@ -37,6 +39,13 @@ const argv = process.argv.slice(2);
 const secondsArg = argv.indexOf("--seconds");
 const SECONDS = secondsArg === -1 ? 10 : Number(argv[secondsArg + 1]);
 if (!Number.isInteger(SECONDS) || SECONDS <= 0) throw new Error("--seconds needs a whole number above 0.");
+const onlyArg = argv.indexOf("--only");
+const ONLY = onlyArg === -1 ? "abcdef" : (argv[onlyArg + 1] ?? "");
+if (!/^[a-f]+$/.test(ONLY)) throw new Error("--only needs phase letters from a to f, e.g. --only f.");
+const runs = (phase: string) => ONLY.includes(phase);
+const profileArg = argv.indexOf("--profile");
+/** --profile <folder>: the server writes a V8 CPU profile there when it stops (open it in Chrome's DevTools). */
+const serverNodeArgs = profileArg === -1 ? [] : ["--cpu-prof", "--cpu-prof-dir", path.resolve(argv[profileArg + 1] ?? "profiles")];
 const HOMES = 12;
 const PASSWORD = "fault-script-only-password";
 const WRITERS = 6;
@@ -101,7 +110,7 @@ const serverEnv = () => ({
 
 async function startServer() {
   const log = createWriteStream(path.join(work, "server.log"), { flags: "a" });
-  server = spawn(process.execPath, ["dist-server/server/server.js"], { cwd: projectRoot, env: serverEnv(), stdio: "pipe" });
+  server = spawn(process.execPath, [...serverNodeArgs, "dist-server/server/server.js"], { cwd: projectRoot, env: serverEnv(), stdio: "pipe" });
   server.stdout?.pipe(log);
   server.stderr?.pipe(log);
   await waitUntilReady(`${base}/api/health/ready`, 60_000);
@@ -273,6 +282,56 @@ async function throughFault(
 }
 
 // ---------------------------------------------------------------------------------------------
+// f: the server's CPU time, and the anonymous flood in a process of its own
+
+/** The calculator's largest series for an anonymous caller (the server's default, CALCULATOR_MAX_ANONYMOUS_READINGS). */
+const MAX_ANONYMOUS_READINGS = 10_000;
+const CLOCK_TICKS = 100; // USER_HZ on Linux: /proc/<pid>/stat counts CPU time in these
+
+/** CPU seconds (user + system, every thread) the server process has used so far. */
+function serverCpuSeconds(): number {
+  const stat = readFileSync(`/proc/${server!.pid}/stat`, "utf8");
+  const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+  return (Number(fields[11]) + Number(fields[12])) / CLOCK_TICKS;
+}
+
+/** Runs `work` and hands `seconds` the server CPU time it took. */
+async function measured<T>(work: () => Promise<T>, seconds: (s: number) => void): Promise<T> {
+  const before = serverCpuSeconds();
+  const result = await work();
+  seconds(serverCpuSeconds() - before);
+  return result;
+}
+
+/**
+ * Starts scripts/lib/series-flood.ts: 4 connections posting `readings`-reading series from one address.
+ * It runs at the lowest CPU priority, standing in for a client on another machine (its own CPU time
+ * is not the server's); stop() ends it and returns the answers it got.
+ */
+async function startFlood(readings: number) {
+  const child = spawn(process.execPath, ["--import", "tsx", "scripts/lib/series-flood.ts", base, String(readings), "4"], {
+    cwd: projectRoot,
+    stdio: ["ignore", "pipe", "inherit"],
+  });
+  setPriority(child.pid!, 19);
+  let out = "";
+  child.stdout!.on("data", (chunk: Buffer) => (out += chunk.toString()));
+  while (!out.includes("flooding")) {
+    if (child.exitCode !== null) throw new Error("the series flood stopped before it started");
+    await sleep(100);
+  }
+  await sleep(1000);
+  return {
+    async stop(): Promise<Record<string, number>> {
+      const exited = new Promise<void>((resolve) => child.once("exit", () => resolve()));
+      child.kill("SIGTERM");
+      await exited;
+      return JSON.parse(out.trim().split("\n").at(-1)!) as Record<string, number>;
+    },
+  };
+}
+
+// ---------------------------------------------------------------------------------------------
 
 try {
   console.log(
@@ -315,297 +374,337 @@ try {
   for (const [i, t] of tenants.entries())
     caseIds.push(((await (await t.s.request("POST", "/api/cases", report(`SEED-${i}`, t.roomId))).json()) as { id: number }).id);
 
-  // a. Load -------------------------------------------------------------------------------------
-  step(`a. Load: ${SECONDS} s of reads and writes…`);
-  const [t0, t1] = tenants;
-  const at = (h: number) => `2026-01-01T${String(h).padStart(2, "0")}:00:00Z`;
-  const mix: [string, Promise<LoadResult>][] = [
-    [
-      "tenant: report + message + my cases",
-      load(
-        base,
-        [
-          { method: "POST", path: "/api/cases", body: JSON.stringify(report("LOAD", t0!.roomId)) },
-          { method: "POST", path: `/api/cases/${caseIds[0]}/messages`, body: JSON.stringify({ body: "Any news on the mould?" }) },
-          { method: "GET", path: "/api/me/cases" },
-        ],
-        { seconds: SECONDS, connections: 2, headers: t0!.s.headers },
-      ),
-    ],
-    [
-      "tenant: readings + case",
-      load(
-        base,
-        [
-          {
-            method: "POST",
-            path: `/api/cases/${caseIds[1]}/readings`,
-            body: JSON.stringify([{ roomId: t1!.roomId, takenAt: at(8), airTemperatureC: 18, relativeHumidityPct: 75 }]),
-          },
-          { method: "GET", path: `/api/cases/${caseIds[1]}` },
-        ],
-        { seconds: SECONDS, connections: 2, headers: t1!.s.headers },
-      ),
-    ],
-    [
-      "officer: queue + case + events",
-      load(
-        base,
-        [
-          { method: "GET", path: "/api/cases?status=open" },
-          { method: "GET", path: `/api/cases/${caseIds[2]}` },
-          { method: "GET", path: `/api/cases/${caseIds[2]}/events` },
-        ],
-        { seconds: SECONDS, connections: 4, headers: officer.headers },
-      ),
-    ],
-  ];
-  const loadRows = [];
-  for (const [who, running] of mix) {
-    const r = await running;
-    loadRows.push({
-      who,
-      requests: r.requests,
-      "req/s": r.rps,
-      "error %": (100 * r.errors) / Math.max(1, r.requests),
-      p50: r.p50,
-      p99: r.p99,
-    });
+  type FaultRow = Awaited<ReturnType<typeof faultFigures>>;
+  let stall: FaultRow | null = null;
+  let crash: FaultRow | null = null;
+  let mailFigures: { "queued (201s)": number; delivered: number; "duplicated (token)": number } | null = null;
+  let importLeft: number | null = null;
+  const start = Date.UTC(2025, 0, 1);
+  if (runs("a")) {
+    // a. Load -------------------------------------------------------------------------------------
+    step(`a. Load: ${SECONDS} s of reads and writes…`);
+    const [t0, t1] = tenants;
+    const at = (h: number) => `2026-01-01T${String(h).padStart(2, "0")}:00:00Z`;
+    const mix: [string, Promise<LoadResult>][] = [
+      [
+        "tenant: report + message + my cases",
+        load(
+          base,
+          [
+            { method: "POST", path: "/api/cases", body: JSON.stringify(report("LOAD", t0!.roomId)) },
+            {
+              method: "POST",
+              path: `/api/cases/${caseIds[0]}/messages`,
+              body: JSON.stringify({ body: "Any news on the mould?" }),
+            },
+            { method: "GET", path: "/api/me/cases" },
+          ],
+          { seconds: SECONDS, connections: 2, headers: t0!.s.headers },
+        ),
+      ],
+      [
+        "tenant: readings + case",
+        load(
+          base,
+          [
+            {
+              method: "POST",
+              path: `/api/cases/${caseIds[1]}/readings`,
+              body: JSON.stringify([{ roomId: t1!.roomId, takenAt: at(8), airTemperatureC: 18, relativeHumidityPct: 75 }]),
+            },
+            { method: "GET", path: `/api/cases/${caseIds[1]}` },
+          ],
+          { seconds: SECONDS, connections: 2, headers: t1!.s.headers },
+        ),
+      ],
+      [
+        "officer: queue + case + events",
+        load(
+          base,
+          [
+            { method: "GET", path: "/api/cases?status=open" },
+            { method: "GET", path: `/api/cases/${caseIds[2]}` },
+            { method: "GET", path: `/api/cases/${caseIds[2]}/events` },
+          ],
+          { seconds: SECONDS, connections: 4, headers: officer.headers },
+        ),
+      ],
+    ];
+    const loadRows = [];
+    for (const [who, running] of mix) {
+      const r = await running;
+      loadRows.push({
+        who,
+        requests: r.requests,
+        "req/s": r.rps,
+        "error %": (100 * r.errors) / Math.max(1, r.requests),
+        p50: r.p50,
+        p99: r.p99,
+      });
+    }
+    printTable("a. Load (latency in ms)", loadRows);
   }
-  printTable("a. Load (latency in ms)", loadRows);
-
   // b, c. Database stalled, then killed -----------------------------------------------------------
   const writing = tenants.slice(0, WRITERS);
-  step("b. MariaDB stopped (SIGSTOP) for 5 s during writes…");
-  const stall = await throughFault("b. SIGSTOP 5 s", "STALL", writing, async () => {
-    const pid = mariaDbPid();
-    process.kill(pid, "SIGSTOP");
-    await sleep(5000);
-    process.kill(pid, "SIGCONT");
-  });
-  step("c. MariaDB killed (SIGKILL) during writes, then started again…");
-  const crash = await throughFault("c. SIGKILL + restart", "CRASH", writing, async () => {
-    process.kill(mariaDbPid(), "SIGKILL");
-    await sleep(1000);
-    await startMariaDb({ dir: dbDir, port: dbPort });
-  });
-  printTable("b, c. Writes through a database fault", [stall, crash]);
-  // Our own connections died with the database: open new ones.
-  await pool.end().catch(() => undefined);
-  pool = mysql.createPool({
-    host: "127.0.0.1",
-    port: dbPort,
-    user: db.user,
-    password: db.password,
-    database: db.name,
-    connectionLimit: 2,
-  });
+  if (runs("b")) {
+    step("b. MariaDB stopped (SIGSTOP) for 5 s during writes…");
+    stall = await throughFault("b. SIGSTOP 5 s", "STALL", writing, async () => {
+      const pid = mariaDbPid();
+      process.kill(pid, "SIGSTOP");
+      await sleep(5000);
+      process.kill(pid, "SIGCONT");
+    });
+  }
+  if (runs("c")) {
+    step("c. MariaDB killed (SIGKILL) during writes, then started again…");
+    crash = await throughFault("c. SIGKILL + restart", "CRASH", writing, async () => {
+      process.kill(mariaDbPid(), "SIGKILL");
+      await sleep(1000);
+      await startMariaDb({ dir: dbDir, port: dbPort });
+    });
+    // Our own connections died with the database: open new ones.
+    await pool.end().catch(() => undefined);
+    pool = mysql.createPool({
+      host: "127.0.0.1",
+      port: dbPort,
+      user: db.user,
+      password: db.password,
+      database: db.name,
+      connectionLimit: 2,
+    });
+  }
+  if (stall || crash)
+    printTable(
+      "b, c. Writes through a database fault",
+      [stall, crash].filter((r) => r !== null),
+    );
 
-  // d. Mail server down -------------------------------------------------------------------------
-  step("d. Mail server stopped while e-mails are queued…");
-  caught.length = 0;
-  const sent: string[] = [];
-  const message = async (k: number) => {
-    const token = `MAIL${String(k).padStart(4, "0")}X`;
-    const res = await officer
-      .request("POST", `/api/cases/${caseIds[k % caseIds.length]}/messages`, {
-        body: `Update ${token}: we will call to book the work.`,
-        internal: false,
-      })
-      .catch(() => null);
-    if (res?.status === 201) sent.push(token);
-  };
-  let k = 0;
-  for (; k < 10; k++) await message(k);
-  await stopSmtp();
-  for (; k < 25; k++) await message(k);
-  await sleep(2000);
-  await startSmtp();
-  for (; k < 35; k++) await message(k);
-  // Give the relay time to catch up: failed attempts are retried after 30 s, then 60 s…, so wait
-  // until every acknowledged message has arrived, at most 150 s.
-  const arrived = () => sent.every((tk) => caught.some((raw) => raw.replace(/=\r?\n/g, "").includes(tk)));
-  const waitStart = Date.now();
-  while (!arrived() && Date.now() - waitStart < 150_000) await sleep(1_000);
-  console.log(`  (all delivered ${arrived() ? "" : "NOT "}after ${((Date.now() - waitStart) / 1000).toFixed(0)} s of waiting)`);
-  const bodies = caught.map((raw) => raw.replace(/=\r?\n/g, ""));
-  const delivered = new Map<string, number>();
-  for (const raw of bodies) {
-    const token = /MAIL\d{4}X/.exec(raw)?.[0];
-    if (token) delivered.set(token, (delivered.get(token) ?? 0) + 1);
-  }
-  const messageIds = bodies.map((raw) => /^Message-ID:\s*(.+)$/im.exec(raw)?.[1]?.trim()).filter(Boolean);
-  const outbox = await sql<{ status: string; n: number }>(
-    "SELECT status, COUNT(*) AS n FROM outbox_emails WHERE template = 'caseMessage' GROUP BY status",
-  );
-  const mailFigures = {
-    "queued (201s)": sent.length,
-    delivered: sent.filter((t) => delivered.has(t)).length,
-    "never delivered": sent.filter((t) => !delivered.has(t)).length,
-    "duplicated (token)": [...delivered.values()].filter((c) => c > 1).length,
-    "duplicated (Message-ID)": messageIds.length - new Set(messageIds).size,
-    "outbox rows": outbox.map((o) => `${o.status} ${o.n}`).join(", "),
-  };
-  printTable("d. E-mails across a mail-server outage (15 of 35 written while it was down)", [mailFigures]);
-  if (mailFigures["never delivered"] > 0) {
-    const stuck = await sql<{ status: string; attempts: number; error: string | null }>(
-      "SELECT status, attempts, LEFT(error, 120) AS error FROM outbox_emails WHERE template = 'caseMessage' AND status <> 'sent' ORDER BY id LIMIT 3",
-    );
-    for (const r of stuck)
-      console.log(`  not delivered: ${r.status}, ${r.attempts} attempt(s), ${r.error ?? "no error recorded"}`);
-  }
-
-  // e. Server killed mid-import -----------------------------------------------------------------
-  step(`e. kill -9 of the server in the middle of a ${IMPORT_ROWS.toLocaleString("en-GB")}-row import…`);
-  const csvPath = path.join(work, "logger.csv");
-  const lines = ["Time,Temperature,RH"];
-  const start = Date.UTC(2025, 0, 1);
-  for (let i = 0; i < IMPORT_ROWS; i++)
-    lines.push(
-      `${new Date(start + i * 60_000).toISOString().slice(0, 19).replace("T", " ")}Z,${(18 + (i % 40) / 10).toFixed(1)},${60 + (i % 30)}`,
-    );
-  writeFileSync(csvPath, lines.join("\n"));
-  const importCase = caseIds[3]!;
-  const form = new FormData();
-  form.set("roomId", String(tenants[3]!.roomId));
-  form.set("file", new Blob([readFileSync(csvPath)]), "logger.csv");
-  const importing = tenants[3]!.s.request("POST", `/api/cases/${importCase}/readings/import`, form, 300_000).then(
-    (r) => r.status,
-    () => "no answer",
-  );
-  // Wait until the import's transaction has written rows (seen from MariaDB's side), then kill.
-  let modified = 0;
-  const importDeadline = performance.now() + 120_000;
-  while (modified < 50_000 && performance.now() < importDeadline) {
-    modified = Number(
-      (
-        await rootSql(
-          { dir: dbDir, port: dbPort },
-          "SELECT COALESCE(MAX(trx_rows_modified),0) FROM information_schema.innodb_trx",
-        )
-      ).trim(),
-    );
-    await sleep(50);
-  }
-  const killedAt = performance.now();
-  server!.kill("SIGKILL");
-  const answer = await importing;
-  await new Promise<void>((resolve) =>
-    server!.exitCode !== null || server!.signalCode !== null ? resolve() : server!.once("exit", () => resolve()),
-  );
-  await startServer();
-  const backIn = (performance.now() - killedAt) / 1000;
-  // The rolled-back transaction is undone by MariaDB; wait for it to finish before counting.
-  while (Number((await rootSql({ dir: dbDir, port: dbPort }, "SELECT COUNT(*) FROM information_schema.innodb_trx")).trim()) > 0)
-    await sleep(200);
-  const [left] = await sql<{ readings: number; imports: number }>(
-    "SELECT (SELECT COUNT(*) FROM readings WHERE case_id = ? AND import_id IS NOT NULL) AS readings, (SELECT COUNT(*) FROM reading_imports WHERE case_id = ?) AS imports",
-    [importCase, importCase],
-  );
-  // The upload is received into the app's own incoming folder (crash leftovers are swept once stale).
-  const incoming = path.join(work, "uploads", ".incoming");
-  const tmpLeft = existsSync(incoming) ? readdirSync(incoming).length : 0;
-  const meAfter = await Session.signIn(base, seeded.tenants[3]!.email, PASSWORD).then(
-    (s) => s.request("GET", "/api/auth/me").then((r) => r.status),
-    () => "sign-in failed",
-  );
-  printTable("e. Server killed mid-import", [
-    {
-      "rows written when killed": modified,
-      "import answer": String(answer),
-      "readings left": Number(left!.readings),
-      "import rows left": Number(left!.imports),
-      "upload temp files left": tmpLeft,
-      "back in s": backIn,
-      "/api/auth/me after": String(meAfter),
-    },
-  ]);
-
-  // f. Ratios ----------------------------------------------------------------------------------
-  step(`f. Ratios: health vs me, me idle vs under a series flood (${SECONDS} s runs)…`);
-  const me = await Session.signIn(base, seeded.tenants[4]!.email, PASSWORD);
-  const half = Math.max(1, Math.round(SECONDS / 2));
-  const health: LoadResult[] = [];
-  const mine: LoadResult[] = [];
-  for (let round = 0; round < 2; round++) {
-    health.push(await load(base, [{ method: "GET", path: "/api/health" }], { seconds: half, connections: 10 }));
-    mine.push(
-      await load(base, [{ method: "GET", path: "/api/auth/me" }], { seconds: half, connections: 10, headers: me.headers }),
-    );
-  }
-  const rps = (rs: LoadResult[]) => rs.reduce((sum, r) => sum + r.rps, 0) / rs.length;
-  const idle = await load(base, [{ method: "GET", path: "/api/auth/me" }], {
-    seconds: SECONDS,
-    connections: 2,
-    headers: me.headers,
-  });
-  const series = JSON.stringify({
-    readings: Array.from({ length: 100_000 }, (_, i) => ({
-      at: new Date(start + i * 300_000).toISOString(),
-      airTemperatureC: 18 + (i % 50) / 10,
-      relativeHumidityPct: 55 + (i % 40),
-      surfaceTemperatureC: 12 + (i % 30) / 10,
-    })),
-  });
-  let flooding = true;
-  const floodAnswers = new Map<number | string, number>();
-  const flood = Array.from({ length: 4 }, async () => {
-    while (flooding) {
-      const status = await fetch(`${base}/api/psychrometrics/series`, {
-        method: "POST",
-        headers: { "content-type": "application/json" },
-        body: series,
-        signal: AbortSignal.timeout(60_000),
-      }).then(
-        async (r) => (await r.arrayBuffer(), r.status),
-        () => "no answer",
-      );
-      floodAnswers.set(status, (floodAnswers.get(status) ?? 0) + 1);
+  if (runs("d")) {
+    // d. Mail server down -------------------------------------------------------------------------
+    step("d. Mail server stopped while e-mails are queued…");
+    caught.length = 0;
+    const sent: string[] = [];
+    const message = async (k: number) => {
+      const token = `MAIL${String(k).padStart(4, "0")}X`;
+      const res = await officer
+        .request("POST", `/api/cases/${caseIds[k % caseIds.length]}/messages`, {
+          body: `Update ${token}: we will call to book the work.`,
+          internal: false,
+        })
+        .catch(() => null);
+      if (res?.status === 201) sent.push(token);
+    };
+    let k = 0;
+    for (; k < 10; k++) await message(k);
+    await stopSmtp();
+    for (; k < 25; k++) await message(k);
+    await sleep(2000);
+    await startSmtp();
+    for (; k < 35; k++) await message(k);
+    // Give the relay time to catch up: failed attempts are retried after 30 s, then 60 s…, so wait
+    // until every acknowledged message has arrived, at most 150 s.
+    const arrived = () => sent.every((tk) => caught.some((raw) => raw.replace(/=\r?\n/g, "").includes(tk)));
+    const waitStart = Date.now();
+    while (!arrived() && Date.now() - waitStart < 150_000) await sleep(1_000);
+    console.log(`  (all delivered ${arrived() ? "" : "NOT "}after ${((Date.now() - waitStart) / 1000).toFixed(0)} s of waiting)`);
+    const bodies = caught.map((raw) => raw.replace(/=\r?\n/g, ""));
+    const delivered = new Map<string, number>();
+    for (const raw of bodies) {
+      const token = /MAIL\d{4}X/.exec(raw)?.[0];
+      if (token) delivered.set(token, (delivered.get(token) ?? 0) + 1);
     }
-  });
-  await sleep(1000);
-  const busy = await load(base, [{ method: "GET", path: "/api/auth/me" }], {
-    seconds: SECONDS,
-    connections: 2,
-    headers: me.headers,
-  });
-  flooding = false;
-  await Promise.all(flood);
-  printTable("f. Side by side (latency in ms)", [
-    {
-      run: "/api/health (2 rounds)",
-      "req/s": rps(health),
-      p50: health[0]!.p50,
-      p99: quantile(
-        health.map((h) => h.p99),
-        1,
-      ),
-    },
-    {
-      run: "/api/auth/me (2 rounds)",
-      "req/s": rps(mine),
-      p50: mine[0]!.p50,
-      p99: quantile(
-        mine.map((h) => h.p99),
-        1,
-      ),
-    },
-    { run: "/api/auth/me idle, 2 conns", "req/s": idle.rps, p50: idle.p50, p99: idle.p99 },
-    { run: "/api/auth/me under series flood", "req/s": busy.rps, p50: busy.p50, p99: busy.p99 },
-  ]);
-  console.log(`  series flood answers: ${[...floodAnswers].map(([s, n]) => `${s}×${n}`).join(", ")}`);
-  console.log(`  me/health throughput: ${(rps(mine) / rps(health)).toFixed(2)}× (target ≥ 0.8×)`);
-  console.log(`  me p99 under flood / idle: ×${(busy.p99 / Math.max(idle.p99, 1)).toFixed(1)} (target ≤ ×3)`);
+    const messageIds = bodies.map((raw) => /^Message-ID:\s*(.+)$/im.exec(raw)?.[1]?.trim()).filter(Boolean);
+    const outbox = await sql<{ status: string; n: number }>(
+      "SELECT status, COUNT(*) AS n FROM outbox_emails WHERE template = 'caseMessage' GROUP BY status",
+    );
+    const mailRow = {
+      "queued (201s)": sent.length,
+      delivered: sent.filter((t) => delivered.has(t)).length,
+      "never delivered": sent.filter((t) => !delivered.has(t)).length,
+      "duplicated (token)": [...delivered.values()].filter((c) => c > 1).length,
+      "duplicated (Message-ID)": messageIds.length - new Set(messageIds).size,
+      "outbox rows": outbox.map((o) => `${o.status} ${o.n}`).join(", "),
+    };
+    printTable("d. E-mails across a mail-server outage (15 of 35 written while it was down)", [mailRow]);
+    mailFigures = mailRow;
+    if (mailRow["never delivered"] > 0) {
+      const stuck = await sql<{ status: string; attempts: number; error: string | null }>(
+        "SELECT status, attempts, LEFT(error, 120) AS error FROM outbox_emails WHERE template = 'caseMessage' AND status <> 'sent' ORDER BY id LIMIT 3",
+      );
+      for (const r of stuck)
+        console.log(`  not delivered: ${r.status}, ${r.attempts} attempt(s), ${r.error ?? "no error recorded"}`);
+    }
+  }
+  if (runs("e")) {
+    // e. Server killed mid-import -----------------------------------------------------------------
+    step(`e. kill -9 of the server in the middle of a ${IMPORT_ROWS.toLocaleString("en-GB")}-row import…`);
+    const csvPath = path.join(work, "logger.csv");
+    const lines = ["Time,Temperature,RH"];
+    for (let i = 0; i < IMPORT_ROWS; i++)
+      lines.push(
+        `${new Date(start + i * 60_000).toISOString().slice(0, 19).replace("T", " ")}Z,${(18 + (i % 40) / 10).toFixed(1)},${60 + (i % 30)}`,
+      );
+    writeFileSync(csvPath, lines.join("\n"));
+    const importCase = caseIds[3]!;
+    const form = new FormData();
+    form.set("roomId", String(tenants[3]!.roomId));
+    form.set("file", new Blob([readFileSync(csvPath)]), "logger.csv");
+    const importing = tenants[3]!.s.request("POST", `/api/cases/${importCase}/readings/import`, form, 300_000).then(
+      (r) => r.status,
+      () => "no answer",
+    );
+    // Wait until the import's transaction has written rows (seen from MariaDB's side), then kill.
+    let modified = 0;
+    const importDeadline = performance.now() + 120_000;
+    while (modified < 50_000 && performance.now() < importDeadline) {
+      modified = Number(
+        (
+          await rootSql(
+            { dir: dbDir, port: dbPort },
+            "SELECT COALESCE(MAX(trx_rows_modified),0) FROM information_schema.innodb_trx",
+          )
+        ).trim(),
+      );
+      await sleep(50);
+    }
+    const killedAt = performance.now();
+    server!.kill("SIGKILL");
+    const answer = await importing;
+    await new Promise<void>((resolve) =>
+      server!.exitCode !== null || server!.signalCode !== null ? resolve() : server!.once("exit", () => resolve()),
+    );
+    await startServer();
+    const backIn = (performance.now() - killedAt) / 1000;
+    // The rolled-back transaction is undone by MariaDB; wait for it to finish before counting.
+    while (Number((await rootSql({ dir: dbDir, port: dbPort }, "SELECT COUNT(*) FROM information_schema.innodb_trx")).trim()) > 0)
+      await sleep(200);
+    const [left] = await sql<{ readings: number; imports: number }>(
+      "SELECT (SELECT COUNT(*) FROM readings WHERE case_id = ? AND import_id IS NOT NULL) AS readings, (SELECT COUNT(*) FROM reading_imports WHERE case_id = ?) AS imports",
+      [importCase, importCase],
+    );
+    // The upload is received into the app's own incoming folder (crash leftovers are swept once stale).
+    const incoming = path.join(work, "uploads", ".incoming");
+    const tmpLeft = existsSync(incoming) ? readdirSync(incoming).length : 0;
+    const meAfter = await Session.signIn(base, seeded.tenants[3]!.email, PASSWORD).then(
+      (s) => s.request("GET", "/api/auth/me").then((r) => r.status),
+      () => "sign-in failed",
+    );
+    importLeft = Number(left!.readings);
+    printTable("e. Server killed mid-import", [
+      {
+        "rows written when killed": modified,
+        "import answer": String(answer),
+        "readings left": Number(left!.readings),
+        "import rows left": Number(left!.imports),
+        "upload temp files left": tmpLeft,
+        "back in s": backIn,
+        "/api/auth/me after": String(meAfter),
+      },
+    ]);
+  }
+  if (runs("f")) {
+    // f. Ratios ----------------------------------------------------------------------------------
+    step(`f. Ratios: health vs me, me idle vs under a series flood (${SECONDS} s runs)…`);
+    const me = await Session.signIn(base, seeded.tenants[4]!.email, PASSWORD);
+    const half = Math.max(1, Math.round(SECONDS / 2));
+    const health: LoadResult[] = [];
+    const mine: LoadResult[] = [];
+    const cpu = { health: 0, me: 0 };
+    for (let round = 0; round < 2; round++) {
+      health.push(
+        await measured(
+          () => load(base, [{ method: "GET", path: "/api/health" }], { seconds: half, connections: 10 }),
+          (s) => (cpu.health += s),
+        ),
+      );
+      mine.push(
+        await measured(
+          () => load(base, [{ method: "GET", path: "/api/auth/me" }], { seconds: half, connections: 10, headers: me.headers }),
+          (s) => (cpu.me += s),
+        ),
+      );
+    }
+    const rps = (rs: LoadResult[]) => rs.reduce((sum, r) => sum + r.rps, 0) / rs.length;
+    const total = (rs: LoadResult[]) => rs.reduce((sum, r) => sum + r.requests, 0);
+    const meUnder = (headers: Record<string, string>) =>
+      load(base, [{ method: "GET", path: "/api/auth/me" }], { seconds: SECONDS, connections: 2, headers });
+    let idleCpu = 0;
+    const idle = await measured(
+      () => meUnder(me.headers),
+      (s) => (idleCpu = s),
+    );
+    // Two floods from one address, 4 connections each: the largest series an anonymous caller may send
+    // (evaluated until the address's budget runs out), and a 100 000-reading one (refused from its header).
+    const floods = [];
+    for (const readings of [MAX_ANONYMOUS_READINGS, 100_000]) {
+      const flood = await startFlood(readings);
+      let floodCpu = 0;
+      const busy = await measured(
+        () => meUnder(me.headers),
+        (s) => (floodCpu = s),
+      );
+      floods.push({ readings, busy, floodCpu, answers: await flood.stop() });
+    }
+    printTable("f. Side by side (latency in ms; server CPU in seconds, all its threads)", [
+      {
+        run: "/api/health (2 rounds)",
+        "req/s": rps(health),
+        p50: health[0]!.p50,
+        p99: quantile(
+          health.map((h) => h.p99),
+          1,
+        ),
+        "CPU ms/request": (1000 * cpu.health) / Math.max(1, total(health)),
+      },
+      {
+        run: "/api/auth/me (2 rounds)",
+        "req/s": rps(mine),
+        p50: mine[0]!.p50,
+        p99: quantile(
+          mine.map((h) => h.p99),
+          1,
+        ),
+        "CPU ms/request": (1000 * cpu.me) / Math.max(1, total(mine)),
+      },
+      {
+        run: "/api/auth/me idle, 2 conns",
+        "req/s": idle.rps,
+        p50: idle.p50,
+        p99: idle.p99,
+        "CPU ms/request": (1000 * idleCpu) / Math.max(1, idle.requests),
+      },
+      ...floods.map((f) => ({
+        run: `/api/auth/me, ${f.readings.toLocaleString("en-GB")}-reading flood`,
+        "req/s": f.busy.rps,
+        p50: f.busy.p50,
+        p99: f.busy.p99,
+        "CPU ms/request": (1000 * f.floodCpu) / Math.max(1, f.busy.requests),
+      })),
+    ]);
+    console.log(`  me/health throughput: ${(rps(mine) / rps(health)).toFixed(2)}× (target ≥ 0.8×)`);
+    for (const f of floods) {
+      console.log(
+        `  me p99 under the ${f.readings.toLocaleString("en-GB")}-reading flood / idle: ×${(f.busy.p99 / Math.max(idle.p99, 1)).toFixed(1)} (target ≤ ×3); ` +
+          `flood answers ${Object.entries(f.answers)
+            .map(([status, n]) => `${status}×${n}`)
+            .join(", ")}; ` +
+          `server CPU ${f.floodCpu.toFixed(1)} s in ${SECONDS} s`,
+      );
+    }
+  }
 
   // Verdict ------------------------------------------------------------------------------------
-  const lost = stall.lost + crash.lost;
-  const duplicated = stall.duplicated + crash.duplicated + mailFigures["duplicated (token)"];
-  const committed5xx = stall["5xx/none but committed"] + crash["5xx/none but committed"];
-  console.log(
-    `\nVerdict: ${lost} lost, ${duplicated} duplicated, ${committed5xx} failed-but-committed writes, ` +
-      `${mailFigures.delivered}/${mailFigures["queued (201s)"]} mails delivered, ` +
-      `${Number(left!.readings)} rows left by the killed import.`,
-  );
+  const faults = [stall, crash].filter((r) => r !== null);
+  const verdict = [
+    faults.length ? `${faults.reduce((n, r) => n + r.lost, 0)} lost` : null,
+    faults.length || mailFigures
+      ? `${faults.reduce((n, r) => n + r.duplicated, 0) + (mailFigures?.["duplicated (token)"] ?? 0)} duplicated`
+      : null,
+    faults.length ? `${faults.reduce((n, r) => n + r["5xx/none but committed"], 0)} failed-but-committed writes` : null,
+    mailFigures ? `${mailFigures.delivered}/${mailFigures["queued (201s)"]} mails delivered` : null,
+    importLeft !== null ? `${importLeft} rows left by the killed import` : null,
+  ].filter((part) => part !== null);
+  if (verdict.length) console.log(`\nVerdict: ${verdict.join(", ")}.`);
   await shutdown();
 } catch (error) {
   console.error(`\nnpm run fault failed: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
