@@ -105,6 +105,15 @@ const hourly = (n: number, at0 = Date.UTC(2026, 0, 1)) =>
   }));
 
 describe("POST /api/psychrometrics/series", () => {
+  it("refuses a body that is not JSON with 400 (it is read on the worker pool, not the request thread)", async () => {
+    const res = await request(t.app)
+      .post("/api/psychrometrics/series")
+      .set("Content-Type", "application/json")
+      .send('{"readings": [{"at": "2026-01-01T00:00:00Z", "airTemperatureC": NaN}]}')
+      .expect(400);
+    expect(res.body.error.code).toBe("invalid_json");
+  });
+
   it("evaluates a series with the documented shape", async () => {
     const readings = hourly(48);
     const res = await series({ readings, material: "sensitive" }).expect(200);

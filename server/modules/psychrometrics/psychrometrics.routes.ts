@@ -1,10 +1,10 @@
-import express, { Router, type Request, type RequestHandler } from "express";
+import express, { Router, type RequestHandler } from "express";
 import type session from "express-session";
 import { ipKeyGenerator } from "express-rate-limit";
 import { evaluatePoint } from "../../../src/lib/domain/index.js";
 import { evaluatePointSchema, MAX_SERIES_READINGS } from "../../../src/lib/schemas/psychrometrics.js";
 import type { Clock } from "../../lib/clock.js";
-import { PayloadTooLargeError, TooManyRequestsError, ValidationError } from "../../lib/errors.js";
+import { AppError, PayloadTooLargeError, TooManyRequestsError, ValidationError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
 import { limiter } from "../../middleware/rate-limit.js";
 import type { WorkerPool } from "../../workers/pool.js";
@@ -33,14 +33,12 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
   const router = Router();
   const budget = new ReadingBudget(deps.limits.readingsPerMinute, deps.clock);
   const anonymousMax = Math.min(deps.limits.maxAnonymousReadings, MAX_SERIES_READINGS);
-  const keep = (req: Request, _res: unknown, buf: Buffer) => {
-    (req as Request & { rawBody?: Buffer }).rawBody = buf;
-  };
   // A year of readings at 5-minute intervals is about 10 MB of JSON; the reading count is checked below.
+  // The body is taken as bytes and parsed on the worker pool, never on the request thread.
   const anonymousLimit = Math.max(64 * 1024, anonymousMax * BYTES_PER_READING);
   const signedInLimit = MAX_SERIES_READINGS * BYTES_PER_READING;
-  const anonymousJson = express.json({ limit: anonymousLimit, verify: keep });
-  const signedInJson = express.json({ limit: signedInLimit, verify: keep });
+  const anonymousBody = express.raw({ type: "application/json", limit: anonymousLimit });
+  const signedInBody = express.raw({ type: "application/json", limit: signedInLimit });
   const tooManyReadings = (limit: number) =>
     `The series is too large to evaluate: at most ${limit.toLocaleString("en-GB")} readings per request${limit < MAX_SERIES_READINGS ? " without signing in (sign in for up to " + MAX_SERIES_READINGS.toLocaleString("en-GB") + ")" : ""}.`;
   const outOfBudget = (retryAfterSeconds: number) => {
@@ -67,6 +65,7 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
     if (length > (signedIn ? signedInLimit : anonymousLimit))
       return refuse(new PayloadTooLargeError(tooManyReadings(signedIn ? MAX_SERIES_READINGS : anonymousMax)));
     const fewest = Math.max(1, Math.floor(length / BYTES_PER_READING));
+    res.locals.fewestReadings = fewest;
     const max = signedIn ? MAX_SERIES_READINGS : anonymousMax;
     if (fewest > max) return refuse(new PayloadTooLargeError(tooManyReadings(max)));
     // Anonymous callers only: a signed-in caller's body is read, so a series over the size limit is
@@ -77,7 +76,7 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
     }
     next();
   };
-  const json: RequestHandler = (req, res, next) => (res.locals.signedIn ? signedInJson : anonymousJson)(req, res, next);
+  const body: RequestHandler = (req, res, next) => (res.locals.signedIn ? signedInBody : anonymousBody)(req, res, next);
 
   router.post(
     "/evaluate",
@@ -95,23 +94,38 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
     limiter({ windowMs: 60_000, limit: 1_000, message: "Too many calculations from this address." }),
     recogniseSignedIn(deps.session),
     refuseEarly,
-    json,
+    body,
     async (req, res) => {
       const signedIn = res.locals.signedIn === true;
-      const readings = (req.body as { readings?: unknown } | undefined)?.readings;
-      const count = Array.isArray(readings) ? readings.length : 1;
       const max = signedIn ? MAX_SERIES_READINGS : anonymousMax;
-      if (count > max) {
+      const key = ipKeyGenerator(req.ip ?? "unknown");
+      // An anonymous caller's fewest readings the body can hold (from its length) are spent before the
+      // work starts, the rest once the worker has counted them. A signed-in caller's are all spent after
+      // (so a body over the size limit is told so, not that the budget is spent).
+      const fewest = signedIn ? 0 : ((res.locals.fewestReadings as number | undefined) ?? 1);
+      const reserved = budget.take(key, fewest);
+      if (!reserved.ok) throw outOfBudget(reserved.retryAfterSeconds);
+      const json = Buffer.isBuffer(req.body) ? req.body : Buffer.from("{}");
+      const out = await deps.workers.run("evaluateSeriesRequest", {
+        json,
+        maxReadings: max,
+        allowance: fewest + budget.available(key),
+      });
+      if (out.ok) {
+        budget.charge(key, out.count - fewest);
+        res.json(out.result);
+        return;
+      }
+      if (out.refused === "invalid-json") throw new AppError(400, "invalid_json", "The request body is not valid JSON.");
+      if (out.refused === "invalid") throw new ValidationError(out.message, out.details);
+      budget.charge(key, -fewest);
+      if (out.refused === "too-many") {
         throw new PayloadTooLargeError(
-          `readings can hold at most ${max.toLocaleString("en-GB")} readings per request${signedIn ? "" : " without signing in (sign in for up to " + MAX_SERIES_READINGS.toLocaleString("en-GB") + ")"}; this one has ${count.toLocaleString("en-GB")}.`,
+          `readings can hold at most ${max.toLocaleString("en-GB")} readings per request${signedIn ? "" : " without signing in (sign in for up to " + MAX_SERIES_READINGS.toLocaleString("en-GB") + ")"}; this one has ${out.count.toLocaleString("en-GB")}.`,
         );
       }
-      const spent = budget.take(ipKeyGenerator(req.ip ?? "unknown"), Math.max(1, count));
-      if (!spent.ok) throw outOfBudget(spent.retryAfterSeconds);
-      const raw = (req as Request & { rawBody?: Buffer }).rawBody;
-      const out = await deps.workers.run("evaluateSeriesRequest", { json: raw ?? Buffer.from(JSON.stringify(req.body ?? {})) });
-      if (!out.ok) throw new ValidationError(out.message, out.details);
-      res.json(out.result);
+      const wait = budget.has(key, out.count);
+      throw outOfBudget(wait.ok ? 1 : wait.retryAfterSeconds);
     },
   );
 

@@ -38,6 +38,23 @@ export class ReadingBudget {
     return { ok: false, retryAfterSeconds: Math.max(1, Math.ceil(waitMs / 1000)) };
   }
 
+  /**
+   * Spends `cost` readings whether or not they are there (a negative cost gives readings back): the
+   * bucket may go below zero, and the key then waits until it has refilled past zero. For the part of a
+   * request found only once it was let in.
+   */
+  charge(key: string, cost: number): void {
+    if (cost === 0) return;
+    const bucket = this.refilled(this.buckets.get(key), this.clock.now().getTime());
+    bucket.tokens = Math.min(this.perMinute, bucket.tokens - cost);
+    this.buckets.set(key, bucket);
+  }
+
+  /** How many readings `key` may have evaluated now (never below zero). */
+  available(key: string): number {
+    return Math.max(0, Math.floor(this.refilled(this.buckets.get(key), this.clock.now().getTime()).tokens));
+  }
+
   /** Whether `cost` readings are there now, spending nothing (to refuse a request before reading its body). */
   has(key: string, cost: number): { ok: true } | { ok: false; retryAfterSeconds: number } {
     const bucket = this.refilled(this.buckets.get(key), this.clock.now().getTime());
@@ -54,6 +71,8 @@ export class ReadingBudget {
   }
 
   private sweep(now: number): void {
-    for (const [key, bucket] of this.buckets) if (now - bucket.atMs >= MINUTE_MS) this.buckets.delete(key);
+    // Only a bucket that has certainly refilled is dropped (one in debt takes longer).
+    for (const [key, bucket] of this.buckets)
+      if (now - bucket.atMs >= MINUTE_MS * (1 + Math.max(0, -bucket.tokens) / this.perMinute)) this.buckets.delete(key);
   }
 }
