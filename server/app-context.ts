@@ -5,6 +5,7 @@ import type { DataSource } from "typeorm";
 import type { Config } from "./config/env.js";
 import { systemClock, type Clock } from "./lib/clock.js";
 import { createDataSource, sessionStoreConnection } from "./db/create-data-source.js";
+import { CachedSessionStore } from "./modules/auth/cached-session-store.js";
 import { createLogger, type Logger } from "./lib/logger.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
 import { AssessmentService } from "./modules/assessments/assessment.service.js";
@@ -77,6 +78,8 @@ export function createServices(
   clock: Clock = systemClock,
   // The pool for CPU-heavy work; services that need it take it from here (bench scripts get their own).
   workers: WorkerPool = new WorkerPool(config.workers),
+  // The app's session store, when sessions are served (its cached copies go when a user's sessions end).
+  sessionStore?: CachedSessionStore,
 ): Services {
   const { connectionMs, greetingMs, socketMs } = config.smtpTimeouts;
   const mail = new MailService(dataSource, mailer, logger, clock, {
@@ -86,7 +89,7 @@ export function createServices(
   });
   const properties = new PropertyService(dataSource, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
-  const users = new UserService(dataSource, clock);
+  const users = new UserService(dataSource, clock, config.sessionCacheMs, sessionStore);
   const organisations = new OrganisationService(dataSource);
   const auth = new AuthService(
     dataSource,
@@ -169,7 +172,9 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     },
     sessionStoreConnection(dataSource),
   );
-  const services = createServices(config, dataSource, mailer, logger, clock, workers);
+  // Each session is read once per burst of requests (SESSION_CACHE_MS), not once per request.
+  const sessionStore = new CachedSessionStore(store, config.sessionCacheMs);
+  const services = createServices(config, dataSource, mailer, logger, clock, workers, sessionStore);
   return {
     config,
     clock,
@@ -177,7 +182,7 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     dataSource,
     mailer,
     workers,
-    sessionStore: store,
+    sessionStore,
     services,
     async close() {
       // Links being e-mailed after a reply finish before the database closes.

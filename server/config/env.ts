@@ -81,6 +81,7 @@ const schema = z
     BACKUP_DIR: z.string().default(path.join(projectRoot, "backups")),
     CLIENT_DIST_DIR: z.string().default(path.join(projectRoot, "dist")),
     LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).optional(),
+    SESSION_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(1000),
     LOGIN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
     LOGIN_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
     TRUST_PROXY: z.string().optional(),
@@ -116,6 +117,8 @@ export interface Config {
   appUrl: string;
   db: { host: string; port: number; name: string; user: string; password: string; timeouts?: DbTimeouts };
   sessionSecret: string;
+  /** How long a session and its account, once read, are reused by this process (0: read on every request). */
+  sessionCacheMs: number;
   smtp: { host: string; port: number; from: string; webPort: number };
   /** Limits on each SMTP call, so a silent mail server never holds a send (and the relay) for long. */
   smtpTimeouts: { connectionMs: number; greetingMs: number; socketMs: number };
@@ -186,6 +189,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       },
     },
     sessionSecret: e.SESSION_SECRET ?? DEV_SESSION_SECRET,
+    sessionCacheMs: e.SESSION_CACHE_MS,
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, from: e.MAIL_FROM, webPort: e.MAIL_WEB_PORT },
     smtpTimeouts: {
       connectionMs: e.SMTP_CONNECTION_TIMEOUT_MS,

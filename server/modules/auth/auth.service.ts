@@ -95,7 +95,7 @@ export class AuthService {
 
   /** Loads the actor behind a session; null when the user is gone, no longer active or their sessions were ended since. */
   async actorForSession(id: number, sessionEpoch: number): Promise<SessionActor | null> {
-    const user = await this.users.account({ id });
+    const user = await this.users.sessionAccount(id);
     return user && user.status === "active" && user.sessionEpoch === sessionEpoch
       ? { ...toActor(user), sessionEpoch: user.sessionEpoch }
       : null;

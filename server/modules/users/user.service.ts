@@ -2,6 +2,7 @@ import { Brackets, In, type DataSource, type EntityManager } from "typeorm";
 import type { Clock } from "../../lib/clock.js";
 import { systemClock } from "../../lib/clock.js";
 import { ConflictError, NotFoundError } from "../../lib/errors.js";
+import { RecentCache } from "../../lib/recent-cache.js";
 import { escapeLike } from "../../lib/sql.js";
 import type { Actor } from "../../lib/actor.js";
 import type { UserAuditAction } from "../../../src/lib/contracts/users.js";
@@ -38,11 +39,48 @@ export interface UserAuditRecord {
 
 const isStaffRole = (role: Role) => (STAFF_ROLES as readonly Role[]).includes(role);
 
+/** What a signed-in request needs of its account, read on every request (and briefly cached). */
+export type SessionAccount = Readonly<Person & Pick<User, "status" | "sessionEpoch">>;
+
+/**
+ * After this process changes an account inside a transaction, its cached copy is not refilled for this
+ * long, so a request reading it before the transaction commits cannot put the old account back.
+ */
+const CHANGED_ACCOUNT_HOLD_OFF_MS = 60_000;
+
 export class UserService {
+  /** Accounts behind sessions, for `sessionCacheMs` (server/lib/recent-cache.ts); every change here forgets one. */
+  private readonly sessionAccounts: RecentCache<number, SessionAccount>;
+
   constructor(
     private readonly dataSource: DataSource,
     private readonly clock: Clock = systemClock,
-  ) {}
+    sessionCacheMs = 0,
+    /** Cached copies of sessions (the session store's), forgotten when a user's sessions are ended. */
+    private readonly cachedSessions?: { forgetSessionsOf(userId: number, holdOffMs: number): void },
+  ) {
+    this.sessionAccounts = new RecentCache(sessionCacheMs);
+  }
+
+  /**
+   * The account behind a signed-in session (any status: the caller checks), or null. Read on every
+   * request, so it is cached briefly: this process's own changes are seen at once, another instance's
+   * within the cache's lifetime, and a raised session stamp is always exact here.
+   */
+  async sessionAccount(id: number): Promise<SessionAccount | null> {
+    return this.sessionAccounts.get(id, async () => {
+      const u = await this.dataSource.getRepository(User).findOne({
+        where: { id },
+        select: { id: true, name: true, email: true, role: true, organisationId: true, status: true, sessionEpoch: true },
+      });
+      return u ? Object.freeze({ ...personOf(u), status: u.status, sessionEpoch: u.sessionEpoch }) : null;
+    });
+  }
+
+  /** Every change to an account goes through here first, so no cached copy outlives it. */
+  private changing(id: number): void {
+    this.sessionAccounts.forget(id, CHANGED_ACCOUNT_HOLD_OFF_MS);
+  }
 
   /** One person by id, any status (inside the caller's transaction when given one); fails if there is none. */
   async person(id: number, m: EntityManager = this.dataSource.manager): Promise<Person> {
@@ -98,6 +136,7 @@ export class UserService {
 
   /** Sets the password hash; `activate` also makes an invited account active. */
   async setPasswordHash(m: EntityManager, id: number, passwordHash: string, activate = false): Promise<void> {
+    this.changing(id);
     await m.getRepository(User).update(id, activate ? { passwordHash, status: "active" } : { passwordHash });
   }
 
@@ -222,6 +261,7 @@ export class UserService {
         user.status = status;
       }
       if (name === undefined && role === undefined && status === undefined) return user;
+      this.changing(user.id);
       const saved = await repo.save(user);
       if (role !== undefined || status === "disabled") saved.sessionEpoch = await this.endSessions(m, user.id);
       return saved;
@@ -234,6 +274,8 @@ export class UserService {
    * refused, and their stored sessions are deleted. Returns the new stamp.
    */
   async endSessions(m: EntityManager, userId: number, keepSessionId?: string): Promise<number> {
+    this.changing(userId);
+    this.cachedSessions?.forgetSessionsOf(userId, CHANGED_ACCOUNT_HOLD_OFF_MS);
     await m.getRepository(User).increment({ id: userId }, "sessionEpoch", 1);
     await m.query("DELETE FROM `sessions` WHERE JSON_VALUE(`data`, '$.passport.user.id') = ? AND `session_id` <> ?", [
       String(userId),
@@ -301,6 +343,7 @@ export class UserService {
 
   /** Marks an invited account's invitation as withdrawn. */
   async markCancelled(m: EntityManager, id: number): Promise<void> {
+    this.changing(id);
     await m.getRepository(User).update({ id, status: "invited" }, { status: "cancelled" });
   }
 
@@ -318,6 +361,7 @@ export class UserService {
       lock: { mode: "pessimistic_write" },
     });
     if (!u) return null;
+    this.changing(u.id);
     Object.assign(u, { name: input.name, role: input.role, status: "invited", passwordHash: null });
     return personOf(await repo.save(u));
   }
