@@ -53,7 +53,7 @@ export function createAuthRouter({ config, auth, clock, csrfToken }: Deps): Rout
     failuresOnly: true,
     skip: (req) => unlockedFor(req, emailHash(bodyEmail(req))),
     message: "There have been many unsuccessful sign-ins from your network.",
-    hint: 'If you need to sign in sooner, choose "E-mail me a sign-in link" and open the link in this browser.',
+    hint: 'If you need to sign in sooner, choose "E-mail me a link to skip the wait" and open the link in this browser.',
   });
   const resetLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many password reset requests." });
   const unlockLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many requests for a sign-in link." });
