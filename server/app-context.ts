@@ -103,6 +103,7 @@ export function createServices(
     new AfterReply(logger),
   );
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
+  mail.useCaseTimeline(cases);
   const photos = new PhotoService(dataSource, config, cases, workers, logger, clock);
   const readings = new ReadingService(dataSource, cases, clock, (input) => workers.run("evaluateRoomFromDb", input));
   const imports = new ReadingImportService(dataSource, cases, clock, readings);

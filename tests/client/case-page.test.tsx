@@ -80,6 +80,14 @@ const events = [
     before: null,
     after: { body: "We will visit on Tuesday morning." },
   },
+  {
+    id: 8,
+    type: "email-resent",
+    at: "2026-01-11T12:00:00.000Z",
+    actor: officer,
+    before: null,
+    after: { outboxId: 9, to: users.tenant.email, template: "caseAcknowledgement", subject: "We have your report" },
+  },
   { id: 7, type: "survey-scheduled", at: "2026-01-12T11:00:00.000Z", actor: officer, before: null, after: {} },
 ].map((e) => ({ ...e, email: null }));
 
@@ -213,6 +221,7 @@ describe("case page", () => {
     expect(entries[0]).toHaveTextContent("Survey scheduled, by Priya Venn (Housing officer).");
     expect(within(timeline).getByText("You sent this report.")).toBeInTheDocument();
     expect(within(timeline).getByText("An e-mail about this report was sent.")).toBeInTheDocument();
+    expect(within(timeline).getByText("An e-mail about this report was sent to you again.")).toBeInTheDocument();
     expect(within(timeline).queryByText(/officers@example\.org/)).not.toBeInTheDocument();
     expect(within(timeline).getByText("2 photos were added by you.")).toBeInTheDocument();
     expect(within(timeline).getByText("48 readings were added from a logger file for Bedroom 1.")).toBeInTheDocument();

@@ -45,6 +45,26 @@ const events = [
     },
   },
   {
+    id: 5,
+    type: "email-resent",
+    at: "2026-01-10T12:00:00.000Z",
+    actor: officer,
+    before: null,
+    after: {
+      outboxId: 9,
+      to: "robin@example.org",
+      template: "caseAcknowledgement",
+      subject: "We have your report DW-2026-00042",
+    },
+    email: {
+      status: "sent",
+      to: "robin@example.org",
+      template: "caseAcknowledgement",
+      sentAt: "2026-01-10T12:00:02.000Z",
+      error: null,
+    },
+  },
+  {
     id: 3,
     type: "internal-note",
     at: "2026-01-11T09:00:00.000Z",
@@ -342,10 +362,17 @@ describe("case workspace", () => {
     const timeline = region("Timeline");
     expect(await within(timeline).findByText("Key safe code is with the caretaker.")).toBeInTheDocument();
     expect(within(timeline).getByText("Priya Venn (Housing officer) added an internal note.")).toBeInTheDocument();
-    expect(within(timeline).getAllByText("robin@example.org")).toHaveLength(2);
-    expect(within(timeline).getByText(/Acknowledgement of the report/)).toBeInTheDocument();
+    expect(within(timeline).getAllByText("robin@example.org")).toHaveLength(3);
+    expect(within(timeline).getAllByText(/Acknowledgement of the report/)).toHaveLength(2);
     expect(within(timeline).getByText("Failed to send: Mailbox unavailable")).toBeInTheDocument();
-    expect(within(timeline).getByText(/^Sent at/)).toBeInTheDocument();
+    expect(within(timeline).getAllByText(/^Sent at/)).toHaveLength(2);
+    // An e-mail sent again says so, and its "Send again" stays with the e-mail's first entry.
+    expect(
+      within(timeline).getByText(
+        "E-mail sent again by Priya Venn (Housing officer): “We have your report DW-2026-00042”, to robin@example.org.",
+      ),
+    ).toBeInTheDocument();
+    expect(within(timeline).getAllByRole("button", { name: "Send the e-mail to robin@example.org again" })).toHaveLength(1);
 
     // Other cases at this home link to their own page.
     await openTab(user, "Overview");

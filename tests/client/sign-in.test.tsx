@@ -49,7 +49,7 @@ describe("sign-in page", () => {
     expect(screen.getByRole("heading", { level: 1, name: "Sign in" })).toBeInTheDocument();
   });
 
-  it("asks for a short wait after too many attempts and offers a sign-in link by e-mail", async () => {
+  it("asks for a short wait after too many attempts and offers an e-mailed link to skip the wait", async () => {
     const wait =
       "There have been several unsuccessful attempts to sign in to this account, so we ask for a short wait between tries. Please wait 30 seconds and try again.";
     const sent = "If an active account uses that address, we have sent it a link. Open it in this browser, then sign in.";
@@ -68,7 +68,7 @@ describe("sign-in page", () => {
 
     const alert = await screen.findByRole("alert");
     expect(alert).toHaveTextContent("Please wait 30 seconds and try again.");
-    await user.click(within(alert).getByRole("button", { name: "E-mail me a sign-in link" }));
+    await user.click(within(alert).getByRole("button", { name: "E-mail me a link to skip the wait" }));
     expect(await within(alert).findByRole("status")).toHaveTextContent(sent);
     expect(callsTo("POST", "/api/auth/sign-in-unlock/request")[0]!.body).toEqual({ email: "officer@example.org" });
   });

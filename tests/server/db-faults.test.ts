@@ -84,6 +84,8 @@ async function duringOutage() {
     tenant.post("/api/cases", report("during the outage")).timeout(HANG_GUARD),
   ]);
   for (const res of responses) expectUnavailable(res);
+  // A browser without a session yet: a token whose session cannot be stored would only make its next write a 403.
+  expectUnavailable(await request(server).get("/api/auth/csrf").timeout(HANG_GUARD));
   // The calculator needs no database.
   await request(server)
     .post("/api/psychrometrics/evaluate")
@@ -121,6 +123,15 @@ describe("the database goes away", () => {
     }
     await waitForRecovery();
     await tenant.post("/api/cases", report("after the restart")).expect(201);
+    // A new browser's token works again: its session was stored before the token was handed out.
+    const anon = request.agent(server);
+    const { csrfToken } = (await anon.get("/api/auth/csrf").timeout(HANG_GUARD).expect(200)).body;
+    await anon
+      .post("/api/auth/password-reset")
+      .set("X-CSRF-Token", csrfToken)
+      .send({ email: landlord.tenant.email })
+      .timeout(HANG_GUARD)
+      .expect(202);
   }, 120_000);
 
   it("no write is answered 500, and every committed report was answered 201, across a restart", async () => {

@@ -294,6 +294,65 @@ describe("staff see each e-mail's state and can resend it", () => {
     expect(copiesOf(t.mail, before.messageId)).toBe(1);
   });
 
+  it("puts each e-mail sent again on its case's timeline, for the tenant only when it was their own e-mail", async () => {
+    const tenant = await signedInClient(t.app, landlord.tenant.email, PASSWORD);
+    const ownCase = (await tenant.post("/api/cases", report).expect(201)).body.id as number;
+    // An e-mail about the case to the officer, which the tenant never sees on the timeline.
+    const { outboxId: alertId } = await t.ctx.dataSource.transaction((m) =>
+      t.ctx.services.mail.enqueueWithId(m, {
+        to: landlord.officer.email,
+        template: "caseAlert",
+        data: { reference: "DW-2026-00003", address: "3 Test Street", reasons: ["A vulnerable household."], link: "x" },
+        organisationId: landlord.org.id,
+        related: { type: "case", id: ownCase },
+      }),
+    );
+    t.ctx.services.mail.relay.wake();
+    await mailSettled(t);
+    const ack = await ackOf(ownCase);
+    const resent = (events: { type: string }[]) => events.filter((e) => e.type === "email-resent");
+
+    await officer.post(`/api/outbox/${ack.id}/resend`).expect(202);
+    await admin.post(`/api/outbox/${alertId}/resend`).expect(202);
+    await mailSettled(t);
+
+    const staffView = resent((await officer.get(`/api/cases/${ownCase}/events`).expect(200)).body.events);
+    expect(staffView).toEqual([
+      expect.objectContaining({
+        actor: { name: "Test officer", role: "officer" },
+        after: { outboxId: ack.id, to: landlord.tenant.email, template: "caseAcknowledgement", subject: ack.subject },
+        email: expect.objectContaining({ status: "sent", to: landlord.tenant.email }),
+      }),
+      expect.objectContaining({
+        actor: { name: "Test admin", role: "admin" },
+        after: expect.objectContaining({
+          outboxId: alertId,
+          to: landlord.officer.email,
+          subject: expect.stringContaining("DW-2026-00003"),
+        }),
+      }),
+    ]);
+    const tenantView = resent((await tenant.get(`/api/cases/${ownCase}/events`).expect(200)).body.events);
+    expect(tenantView).toEqual([
+      expect.objectContaining({ after: expect.objectContaining({ outboxId: ack.id, to: landlord.tenant.email }), email: null }),
+    ]);
+
+    // A resend that is refused puts nothing on the timeline.
+    const { outboxId: queued } = await t.ctx.dataSource.transaction((m) =>
+      t.ctx.services.mail.enqueueWithId(m, {
+        to: landlord.officer.email,
+        template: "caseAlert",
+        data: { reference: "DW-2026-00004", address: "4 Test Street", reasons: ["Mould risk."], link: "x" },
+        organisationId: landlord.org.id,
+        related: { type: "case", id: ownCase },
+      }),
+    );
+    await officer.post(`/api/outbox/${queued}/resend`).expect(409);
+    expect(resent((await officer.get(`/api/cases/${ownCase}/events`).expect(200)).body.events)).toHaveLength(2);
+    t.ctx.services.mail.relay.wake();
+    await mailSettled(t);
+  });
+
   it("resends a failed e-mail; one still queued is refused", async () => {
     const to = `failed.${Date.now()}@test.example`;
     const id = await queuedOnly(to);

@@ -40,6 +40,8 @@ interface Deps {
 
 const logIn = (req: Request, actor: SessionActor) =>
   new Promise<void>((resolve, reject) => req.logIn(actor, (err) => (err ? reject(err) : resolve())));
+const saveSession = (req: Request) =>
+  new Promise<void>((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
 const logOut = (req: Request) => new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
 
 export function createAuthRouter({ config, auth, clock, csrfToken }: Deps): Router {
@@ -53,13 +55,18 @@ export function createAuthRouter({ config, auth, clock, csrfToken }: Deps): Rout
     failuresOnly: true,
     skip: (req) => unlockedFor(req, emailHash(bodyEmail(req))),
     message: "There have been many unsuccessful sign-ins from your network.",
-    hint: 'If you need to sign in sooner, choose "E-mail me a sign-in link" and open the link in this browser.',
+    hint: 'If you need to sign in sooner, choose "E-mail me a link to skip the wait" and open the link in this browser.',
   });
   const resetLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many password reset requests." });
   const unlockLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many requests for a sign-in link." });
 
-  router.get("/csrf", (req, res) => {
-    res.json(shaped(csrfResponse, { csrfToken: csrfToken(req) }));
+  router.get("/csrf", async (req, res) => {
+    const before = req.session.csrfToken;
+    const token = csrfToken(req);
+    // A new token is good only once its session is stored: stored before answering, so a database
+    // that is down is the usual 503 with Retry-After, not a token the next write is refused with.
+    if (token !== before) await saveSession(req);
+    res.json(shaped(csrfResponse, { csrfToken: token }));
   });
 
   router.post("/login", perAddress, async (req, res) => {

@@ -31,6 +31,8 @@ export type CaseEventPayload =
       after: { hazardClass: HazardClass | null; reason: string | undefined };
     }
   | { type: "email-queued"; after: { outboxId: number; to: string; template: string } }
+  /** Staff sent an e-mail about the case again from the outbox (the actor is who asked). */
+  | { type: "email-resent"; after: { outboxId: number; to: string; template: string; subject: string } }
   | { type: "tenant-got-worse"; after: { note: string } }
   | { type: "photos-added"; after: { photoIds: number[]; workOrderId: number | null } }
   | { type: "readings-added"; after: { imported: number; duplicates: number; roomIds: number[]; roomId: number | undefined } }

@@ -13,7 +13,7 @@ import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.
 import { inTransaction } from "../../lib/transaction.js";
 import { isStaff, type Actor } from "../auth/actor.js";
 import type { MailTemplateName } from "../mail/mail-templates.js";
-import type { MailService, SendMail } from "../mail/mail.service.js";
+import type { CaseEmailTimeline, MailService, ResentCaseEmail, SendMail } from "../mail/mail.service.js";
 import type { OrganisationService } from "../organisations/organisation.service.js";
 import type { Property, PropertyService, Room } from "../properties/property.service.js";
 import type { TenancyService } from "../tenancies/tenancy.service.js";
@@ -51,6 +51,9 @@ const VULNERABILITY_WORDS: Record<string, string> = {
 export const householdIncludes = (vulnerability: readonly string[]) =>
   `The household includes ${vulnerability.map((v) => VULNERABILITY_WORDS[v] ?? v).join(", ")}.`;
 
+/** Timeline entries about one e-mail: a tenant sees them only for e-mails to themselves. */
+const EMAIL_EVENTS: ReadonlySet<string> = new Set<CaseEventType>(["email-queued", "email-resent"]);
+
 /** Statuses a tenant's "it's got worse" reopens (back to triage). */
 export const REOPENED_WHEN_WORSE: readonly CaseStatus[] = ["closed", "cancelled", "monitoring"];
 
@@ -79,7 +82,7 @@ export type TriageFigures = Pick<
  * Case lifecycle start, access and history. The cases table's one owner: its rows, its status and
  * its stored figures change only here, each change with its CaseEvent in one transaction.
  */
-export class CaseService {
+export class CaseService implements CaseEmailTimeline {
   constructor(
     private readonly dataSource: DataSource,
     private readonly config: Config,
@@ -532,6 +535,16 @@ export class CaseService {
     return deliver;
   }
 
+  /** Staff sent an e-mail about the case again (MailService.resend calls this in its transaction). */
+  async recordEmailResent(m: EntityManager, r: ResentCaseEmail): Promise<void> {
+    await this.recordEvent(m, {
+      caseId: r.caseId,
+      actorId: r.actorId,
+      type: "email-resent",
+      after: { outboxId: r.outboxId, to: r.to, template: r.template, subject: r.subject },
+    });
+  }
+
   private async livesAt(tenantUserId: number, propertyId: number): Promise<boolean> {
     return (
       (await this.tenancies.currentTenantOf(propertyId)) === tenantUserId ||
@@ -566,7 +579,7 @@ export class CaseService {
     // Internal notes are for staff only, and so are e-mails to anyone but the tenant themselves.
     const events = staff
       ? all
-      : all.filter((e) => e.type !== "internal-note" && !(e.type === "email-queued" && e.after?.to !== actor.email));
+      : all.filter((e) => e.type !== "internal-note" && !(EMAIL_EVENTS.has(e.type) && e.after?.to !== actor.email));
     const actorIds = [...new Set(events.map((e) => e.actorUserId).filter((v): v is number => v !== null))];
     const names = new Map([...(await this.users.people(actorIds)).values()].map((u) => [u.id, { name: u.name, role: u.role }]));
     // Staff see each e-mail's delivery as the outbox records it now.

@@ -5,6 +5,7 @@ import type { Clock } from "../../lib/clock.js";
 import { ConflictError, ForbiddenError, NotFoundError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
 import type { Mailer } from "../../lib/mailer.js";
+import { inTransaction } from "../../lib/transaction.js";
 import { htmlFromText, mailTemplates, SECRET_TEMPLATES, type MailTemplateName, type RenderedMail } from "./mail-templates.js";
 import { MailRelay, type MailRelayOptions } from "./mail.relay.js";
 import { OutboxEmail, type OutboxStatus } from "./outbox-email.entity.js";
@@ -23,6 +24,25 @@ export interface OutboxQuery {
   pageSize: number;
 }
 
+/** An e-mail about a case that staff sent again from the outbox. */
+export interface ResentCaseEmail {
+  caseId: number;
+  outboxId: number;
+  to: string;
+  template: string;
+  subject: string;
+  /** The staff member who asked. */
+  actorId: number;
+}
+
+/**
+ * Puts an e-mail sent again on its case's timeline, in the resend's transaction (CaseService, the
+ * owner of case events; wired in createServices, as cases depends on mail and not the other way).
+ */
+export interface CaseEmailTimeline {
+  recordEmailResent(m: EntityManager, resent: ResentCaseEmail): Promise<void>;
+}
+
 /** The delivery key: fixed once per row, carried by every attempt (see mail.relay.ts). */
 const newMessageId = (outboxId: number) => `<outbox-${outboxId}-${randomBytes(9).toString("base64url")}@dewline>`;
 
@@ -32,6 +52,7 @@ const newMessageId = (outboxId: number) => `<outbox-${outboxId}-${randomBytes(9)
  */
 export class MailService {
   readonly relay: MailRelay;
+  private caseTimeline: CaseEmailTimeline | null = null;
 
   constructor(
     private readonly dataSource: DataSource,
@@ -41,6 +62,11 @@ export class MailService {
     relayOptions: Partial<MailRelayOptions> = {},
   ) {
     this.relay = new MailRelay(dataSource, mailer, logger, clock, relayOptions);
+  }
+
+  /** Where an e-mail about a case sent again is recorded (CaseService). */
+  useCaseTimeline(timeline: CaseEmailTimeline): void {
+    this.caseTimeline = timeline;
   }
 
   /**
@@ -144,7 +170,8 @@ export class MailService {
   /**
    * Sends a sent or failed e-mail again: back to pending with a fresh count of attempts and a new
    * Message-ID (it is a deliberate second copy, not a retry a receiver should drop). One still
-   * queued or being sent is refused, and so is one whose single-use link has been forgotten.
+   * queued or being sent is refused, and so is one whose single-use link has been forgotten. One
+   * about a case goes on the case's timeline in the same transaction.
    */
   async resend(actor: Actor, id: number): Promise<OutboxEmail> {
     const repo = this.dataSource.getRepository(OutboxEmail);
@@ -160,21 +187,36 @@ export class MailService {
           : "This e-mail's message was not kept, so it cannot be sent again.",
       );
     }
+    const caseId = row.relatedType === "case" ? row.relatedId : null;
+    const timeline = this.caseTimeline;
+    if (caseId !== null && !timeline) throw new Error("MailService: no case timeline to record a resend on (useCaseTimeline).");
     const now = this.clock.now();
-    const result = await repo.update(
-      { id, status: In(["sent", "failed"]) },
-      {
-        status: "pending",
-        attempts: 0,
-        nextAttemptAt: now,
-        leaseToken: null,
-        leaseExpiresAt: null,
-        messageId: newMessageId(id),
-        resentAt: now,
-        resentByUserId: actor.id,
-      },
-    );
-    if (result.affected !== 1) throw new ConflictError("This e-mail is being sent already.");
+    await inTransaction(this.dataSource, async (m) => {
+      const result = await m.getRepository(OutboxEmail).update(
+        { id, status: In(["sent", "failed"]) },
+        {
+          status: "pending",
+          attempts: 0,
+          nextAttemptAt: now,
+          leaseToken: null,
+          leaseExpiresAt: null,
+          messageId: newMessageId(id),
+          resentAt: now,
+          resentByUserId: actor.id,
+        },
+      );
+      if (result.affected !== 1) throw new ConflictError("This e-mail is being sent already.");
+      if (caseId !== null) {
+        await timeline!.recordEmailResent(m, {
+          caseId,
+          outboxId: id,
+          to: row.toAddress,
+          template: row.template,
+          subject: row.subject,
+          actorId: actor.id,
+        });
+      }
+    });
     this.relay.wake();
     return repo.findOneByOrFail({ id });
   }

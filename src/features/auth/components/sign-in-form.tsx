@@ -59,7 +59,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void })
                   disabled={signInLink.isPending || !email}
                   onClick={() => signInLink.mutate(email)}
                 >
-                  E-mail me a sign-in link
+                  E-mail me a link to skip the wait
                 </Button>
               )}
             </div>

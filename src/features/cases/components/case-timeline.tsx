@@ -65,6 +65,15 @@ export function describeEvent(
           audience === "staff" && to ? `An e-mail about this report was sent to ${to}.` : "An e-mail about this report was sent.",
       };
     }
+    case "email-resent": {
+      // The tenant's timeline holds only e-mails to the tenant (the server leaves the others out).
+      if (audience === "tenant") return { title: "An e-mail about this report was sent to you again." };
+      const subject = str(after.subject);
+      const to = str(after.to);
+      return {
+        title: `E-mail sent again${who ? ` by ${who}` : ""}${subject ? `: “${subject}”` : ""}${to ? `, to ${to}` : ""}.`,
+      };
+    }
     case "photos-added": {
       const ids = Array.isArray(after.photoIds) ? after.photoIds.length : 0;
       const what = ids ? count(ids, "photo was", "photos were") : "Photos were";
@@ -224,7 +233,8 @@ export function CaseTimeline({ events, rooms, audience = "tenant", staffNames, E
               <EmailDelivery
                 email={event.email}
                 action={
-                  EmailAction && typeof event.after?.outboxId === "number" ? (
+                  // One "Send again" per e-mail: on the entry that first queued it, not on each resend.
+                  EmailAction && event.type !== "email-resent" && typeof event.after?.outboxId === "number" ? (
                     <EmailAction outboxId={event.after.outboxId} status={event.email.status} to={event.email.to} />
                   ) : null
                 }
