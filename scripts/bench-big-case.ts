@@ -31,9 +31,10 @@ csrf = (await agent.post("/api/auth/login").set("X-CSRF-Token", csrf).send({ ema
 const rooms = (await agent.get("/api/me/home")).body.property.rooms as { id: number }[];
 // The triage breakdown is for staff: an officer of the same landlord.
 const officer = request.agent(url);
+const officerCsrf = (await officer.get("/api/auth/csrf")).body.csrfToken as string;
 await officer
   .post("/api/auth/login")
-  .set("X-CSRF-Token", (await officer.get("/api/auth/csrf")).body.csrfToken as string)
+  .set("X-CSRF-Token", officerCsrf)
   .send({ email: landlord.officer.email, password: PASSWORD })
   .expect(200);
 const roomId = rooms[0]!.id;
