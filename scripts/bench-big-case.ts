@@ -2,7 +2,10 @@
 // environment (e.g. `DB_PORT=13415 npm run db:start` first; the run adds its own landlord and cases):
 //  1. GET /api/cases/:id/evaluation of a case with 1 000 000 readings vs a case with 100, median of
 //     20 each after the stored result exists, and the first (cold) answer of the big one;
-//  2. p99 of a signed-in GET /api/auth/me, idle vs while 4 anonymous connections post maximal series
+//  2. an officer's GET /api/cases/:id/triage of the big case right after one hand reading is added
+//     (its room being worked out again in the background) vs the small case's median, and the big
+//     case's priority before and once the newer evaluation is stored;
+//  3. p99 of a signed-in GET /api/auth/me, idle vs while 4 anonymous connections post maximal series
 //     requests (the anonymous size limit) from one address.
 // Everything is measured side by side in one run; the figures are ratios.
 import type { AddressInfo } from "node:net";
@@ -26,6 +29,14 @@ let csrf = (await agent.get("/api/auth/csrf")).body.csrfToken as string;
 csrf = (await agent.post("/api/auth/login").set("X-CSRF-Token", csrf).send({ email: landlord.tenant.email, password: PASSWORD }))
   .body.csrfToken;
 const rooms = (await agent.get("/api/me/home")).body.property.rooms as { id: number }[];
+// The triage breakdown is for staff: an officer of the same landlord.
+const officer = request.agent(url);
+const officerCsrf = (await officer.get("/api/auth/csrf")).body.csrfToken as string;
+await officer
+  .post("/api/auth/login")
+  .set("X-CSRF-Token", officerCsrf)
+  .send({ email: landlord.officer.email, password: PASSWORD })
+  .expect(200);
 const roomId = rooms[0]!.id;
 const newCase = async () =>
   (
@@ -80,6 +91,12 @@ for (let i = 0; i < 20; i++) {
   bigTimes.push(await timed(() => evaluation(big)));
   smallTimes.push(await timed(() => evaluation(small)));
 }
+const triage = (id: number) => officer.get(`/api/cases/${id}/triage`).expect(200);
+await triage(small);
+const triageBefore = (await triage(big)).body.score as number;
+const smallTriageTimes: number[] = [];
+for (let i = 0; i < 20; i++) smallTriageTimes.push(await timed(() => triage(small)));
+
 const addOne = await timed(() =>
   agent
     .post(`/api/cases/${big}/readings`)
@@ -88,14 +105,20 @@ const addOne = await timed(() =>
     .expect(201),
 );
 
-// The add starts working the big room out again on the pool in the background: the next view is
-// answered at once from the stored figures (marked updating); then wait for the pool before "idle".
+// The add starts working the big room out again on the pool in the background: the triage breakdown
+// and the next view are answered at once from the stored figures (the view marked updating); then
+// wait for the pool before "idle".
+const triageAfterAdd = await timed(() => triage(big));
 let afterAddUpdating: unknown;
 const afterAdd = await timed(async () => {
   afterAddUpdating = (await evaluation(big)).body.updating;
 });
 const settle = await timed(() => ctx.services.readings.whenIdle());
 const settled = await timed(() => evaluation(big));
+let triageAfter = 0;
+const triageSettled = await timed(async () => {
+  triageAfter = (await triage(big)).body.score as number;
+});
 
 const me = async (n: number) => {
   const xs: number[] = [];
@@ -138,6 +161,12 @@ console.log(
   `adding one hand reading to the big case: ${f(addOne)}; next evaluation ${f(afterAdd)} (updating: ${String(afterAddUpdating)})`,
 );
 console.log(`  background recomputation settled after a further ${f(settle)}; evaluation then ${f(settled)}`);
+console.log(
+  `triage, big case right after the add: ${f(triageAfterAdd)}; 100-reading case: median ${f(pct(smallTriageTimes, 50))}`,
+);
+console.log(
+  `  ratio big-after-add/small: ×${(triageAfterAdd / pct(smallTriageTimes, 50)).toFixed(2)}; once settled ${f(triageSettled)} (priority ${triageBefore} → ${triageAfter})`,
+);
 console.log(`/api/auth/me p99 idle ${f(pct(idle, 99))}, under anonymous series load ${f(pct(loaded, 99))}`);
 console.log(
   `  ratio loaded/idle: ×${(pct(loaded, 99) / pct(idle, 99)).toFixed(2)}  (series answers: ${JSON.stringify(Object.fromEntries(statuses))})`,

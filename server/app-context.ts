@@ -105,7 +105,12 @@ export function createServices(
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   mail.useCaseTimeline(cases);
   const photos = new PhotoService(dataSource, config, cases, workers, logger, clock);
-  const readings = new ReadingService(dataSource, cases, clock, (input) => workers.run("evaluateRoomFromDb", input));
+  const readings = new ReadingService(dataSource, cases, clock, {
+    evaluator: (input) => workers.run("evaluateRoomFromDb", input),
+    logger,
+    // The case's stored triage figures came from the older evaluation: they are due again.
+    onReplaced: (m, caseId) => cases.markStale(m, { caseIds: [caseId] }),
+  });
   const imports = new ReadingImportService(dataSource, cases, clock, readings);
   const evaluation = new EvaluationService(cases, readings);
   const assessments = new AssessmentService(dataSource, cases);

@@ -51,10 +51,13 @@ export class EvaluationService {
     return { statement: INVESTIGATION_STATEMENT, updating, rooms };
   }
 
-  /** The worst surface state and the highest current mould index over the case's rooms; nulls while there are no readings. */
+  /**
+   * The worst surface state and the highest current mould index over the case's rooms; nulls while
+   * there are no readings. From the stored evaluations, as forCase: a room being worked out again is
+   * not waited for (its case's triage figures are marked due again once its newer result is stored).
+   */
   async riskOf(c: Case): Promise<{ state: SurfaceState | null; mouldIndex: number | null }> {
-    // The triage queue stores these figures, so they wait for readings still being taken in.
-    const { rooms } = await this.evaluate(c, { waitForCurrent: true });
+    const { rooms } = await this.evaluate(c);
     let state: SurfaceState | null = null;
     let mouldIndex: number | null = null;
     for (const room of rooms) {
@@ -95,17 +98,13 @@ export class EvaluationService {
    * changed since is answered from its last stored result, marked `updating`, while it is worked out
    * again on the worker pool in the background, so a big case never holds the request up.
    */
-  private async evaluate(
-    c: Case,
-    options: { waitForCurrent?: boolean } = {},
-  ): Promise<{ rooms: RoomEvaluation[]; updating: boolean }> {
+  private async evaluate(c: Case): Promise<{ rooms: RoomEvaluation[]; updating: boolean }> {
     const { elements, params } = this.paramsOf(c);
     const rooms = this.cases.roomsOf(c);
     const stored = await this.readings.roomEvaluations(
       c.id,
       rooms.map((r) => r.id),
       params,
-      options,
     );
     const out: RoomEvaluation[] = [];
     for (const room of rooms) {

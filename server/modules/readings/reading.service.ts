@@ -2,19 +2,34 @@
 import type { DataSource, EntityManager } from "typeorm";
 import type { SeriesReading } from "../../../src/lib/domain/series.js";
 import { FUTURE_READING_MESSAGE, isFutureReading } from "../../../src/lib/schemas/readings.js";
-import { systemClock, type Clock } from "../../lib/clock.js";
+import type { Clock } from "../../lib/clock.js";
 import { ValidationError } from "../../lib/errors.js";
+import type { Logger } from "../../lib/logger.js";
+import { inTransaction } from "../../lib/transaction.js";
 import type { NewCaseEvent } from "../cases/case-events.js";
 import { AIR_TEMPERATURE_C, OUTDOOR_TEMPERATURE_C, RELATIVE_HUMIDITY_PCT, SURFACE_TEMPERATURE_C } from "./csv/limits.js";
 import { round2 } from "./csv/numbers.js";
 import { toSqlUtc } from "./csv/rows.js";
 import type { ReadingSource } from "./reading.entity.js";
-import { evaluateRoomFromDb, type RoomEvaluationInput, type StoredRoomEvaluation } from "./room-evaluation.task.js";
+import type { RoomEvaluationInput, StoredRoomEvaluation } from "./room-evaluation.task.js";
 
 export type { StoredRoomEvaluation } from "./room-evaluation.task.js";
 
 /** Works one room's evaluation out from the database: on the worker pool in the app (createServices). */
 export type RoomEvaluator = (input: RoomEvaluationInput) => Promise<{ version: number; evaluation: StoredRoomEvaluation }>;
+
+/** How rooms are worked out again off the request thread, and who hears of it (wired in createServices). */
+export interface RoomEvaluationWork {
+  /** Works one room out from the database (the worker pool in the app). */
+  evaluator: RoomEvaluator;
+  /** Where a recomputation that failed with nobody waiting for it is reported. */
+  logger: Pick<Logger, "error">;
+  /**
+   * Called inside the transaction that stores a room's newer evaluation over an older one: figures
+   * stored elsewhere from the older one (the case's triage figures) are due to be worked out again.
+   */
+  onReplaced(m: EntityManager, caseId: number): Promise<void>;
+}
 
 /** A room's evaluation as answered: the stored one, and whether it is being brought up to date with newer readings. */
 export interface RoomEvaluationState {
@@ -126,8 +141,8 @@ export class ReadingService {
   constructor(
     private readonly dataSource: DataSource,
     private readonly events: CaseEventRecorder,
-    private readonly clock: Clock = systemClock,
-    private readonly evaluator: RoomEvaluator = evaluateRoomFromDb,
+    private readonly clock: Clock,
+    private readonly work: RoomEvaluationWork,
   ) {}
 
   /**
@@ -149,14 +164,11 @@ export class ReadingService {
    * The evaluation of each of these rooms: the stored one while it is current. When readings changed
    * since, the last stored result is answered at once, marked `updating`, and the room is worked out
    * again in the background (on the worker pool); only a room with no stored result yet is waited for.
-   * With `waitForCurrent`, an out-of-date room is waited for instead (for figures that are stored
-   * elsewhere, such as the triage queue's, and would otherwise keep the old result).
    */
   async roomEvaluations(
     caseId: number,
     roomIds: readonly number[],
     params: EvaluationParams,
-    options: { waitForCurrent?: boolean } = {},
   ): Promise<Map<number, RoomEvaluationState>> {
     const out = new Map<number, RoomEvaluationState>();
     if (roomIds.length === 0) return out;
@@ -165,20 +177,12 @@ export class ReadingService {
     await Promise.all(
       roomIds.map(async (roomId) => {
         const row = rows.get(roomId);
-        if (row && row.result !== null && !options.waitForCurrent) {
+        if (row && row.result !== null) {
           const current = row.computed_version === row.readings_version && row.params === key;
-          if (!current) this.refresh(caseId, roomId, params);
+          if (!current) this.refresh(caseId, roomId, params).catch((err: unknown) => this.logFailure(err, caseId, roomId));
           out.set(roomId, {
             evaluation: JSON.parse(row.result) as StoredRoomEvaluation,
             updating: !current,
-            evaluatedAt: row.computed_at,
-          });
-          return;
-        }
-        if (row && row.result !== null && row.computed_version === row.readings_version && row.params === paramsKey(params)) {
-          out.set(roomId, {
-            evaluation: JSON.parse(row.result) as StoredRoomEvaluation,
-            updating: false,
             evaluatedAt: row.computed_at,
           });
           return;
@@ -198,12 +202,17 @@ export class ReadingService {
         for (const roomId of roomIds) {
           const row = rows.get(roomId);
           if (row && row.result !== null && row.computed_version === row.readings_version && row.params === key) continue;
-          this.refresh(caseId, roomId, params).catch(() => undefined);
+          this.refresh(caseId, roomId, params).catch((err: unknown) => this.logFailure(err, caseId, roomId));
         }
       })
-      .catch(() => undefined)
+      .catch((err: unknown) => this.logFailure(err, caseId))
       .finally(() => this.starting.delete(started));
     this.starting.add(started);
+  }
+
+  /** A recomputation nobody waits for failed: the last stored result stays (marked updating) until the next view tries again. */
+  private logFailure(err: unknown, caseId: number, roomId?: number): void {
+    this.work.logger.error({ err, caseId, roomId }, "a room's evaluation could not be worked out again");
   }
 
   /** Resolves once no recomputation is starting or running (each one has finished, stored or not). */
@@ -232,15 +241,9 @@ export class ReadingService {
     const running = this.running.get(id);
     if (running) return running;
     const work = (async () => {
-      let evaluation: StoredRoomEvaluation;
       for (;;) {
-        const computed = await this.recomputeOnce(caseId, roomId, params, key);
-        evaluation = computed.evaluation;
-        const [row] = (await this.dataSource.query(
-          "SELECT readings_version FROM room_evaluations WHERE case_id = ? AND room_id = ?",
-          [caseId, roomId],
-        )) as { readings_version: number }[];
-        if (Number(row?.readings_version ?? 0) === computed.version) return evaluation;
+        const { evaluation, stored } = await this.recomputeOnce(caseId, roomId, params, key);
+        if (stored) return evaluation;
       }
     })().finally(() => this.running.delete(id));
     this.running.set(id, work);
@@ -252,8 +255,8 @@ export class ReadingService {
     roomId: number,
     params: EvaluationParams,
     key: string,
-  ): Promise<{ version: number; evaluation: StoredRoomEvaluation }> {
-    const { version, evaluation } = await this.evaluator({
+  ): Promise<{ evaluation: StoredRoomEvaluation; stored: boolean }> {
+    const { version, evaluation } = await this.work.evaluator({
       db: dbOf(this.dataSource),
       caseId,
       roomId,
@@ -263,16 +266,23 @@ export class ReadingService {
     const json = JSON.stringify(evaluation);
     const now = this.clock.now();
     // Stored only if the readings did not change while it was worked out (the version still matches).
-    await this.dataSource.query(
-      "INSERT INTO room_evaluations (case_id, room_id, readings_version, computed_version, params, result, computed_at) VALUES (?, ?, ?, ?, ?, ?, ?) " +
-        "ON DUPLICATE KEY UPDATE " +
-        "result = IF(readings_version = VALUES(computed_version), VALUES(result), result), " +
-        "params = IF(readings_version = VALUES(computed_version), VALUES(params), params), " +
-        "computed_at = IF(readings_version = VALUES(computed_version), VALUES(computed_at), computed_at), " +
-        "computed_version = IF(readings_version = VALUES(computed_version), VALUES(computed_version), computed_version)",
-      [caseId, roomId, version, version, key, json, now],
-    );
-    return { version, evaluation };
+    // The room's row is locked before the case's (as when readings are added), and a result that
+    // replaces an older one tells the listener in the same transaction.
+    const stored = await inTransaction(this.dataSource, async (m) => {
+      const [row] = (await m.query(
+        "SELECT readings_version, result IS NOT NULL AS replaces FROM room_evaluations WHERE case_id = ? AND room_id = ? FOR UPDATE",
+        [caseId, roomId],
+      )) as { readings_version: number; replaces: number | string }[];
+      if (row && Number(row.readings_version) !== version) return false;
+      await m.query(
+        "INSERT INTO room_evaluations (case_id, room_id, readings_version, computed_version, params, result, computed_at) VALUES (?, ?, ?, ?, ?, ?, ?) " +
+          "ON DUPLICATE KEY UPDATE computed_version = VALUES(computed_version), params = VALUES(params), result = VALUES(result), computed_at = VALUES(computed_at)",
+        [caseId, roomId, version, version, key, json, now],
+      );
+      if (row && Number(row.replaces) === 1) await this.work.onReplaced(m, caseId);
+      return true;
+    });
+    return { evaluation, stored };
   }
 
   /** The latest reading of each of these rooms (the unique index's last entry per room; no series is read). */

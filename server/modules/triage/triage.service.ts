@@ -34,7 +34,9 @@ export function nextDeadline(status: Case["status"], deadlines: Deadline[]): Dea
  *
  * How they stay true: every change to a case writes a CaseEvent, and writing one marks the case's
  * figures stale (CaseService.recordEvent, CaseService.markStale: `triage_due_at` in the past) in the change's own transaction. Readers (the queue, the
- * case page) and a background sweep work stale cases out again. A figure that changes with the
+ * case page) and a background sweep work stale cases out again. The risk figures come from the rooms'
+ * stored evaluations and never wait for a room being worked out again after new readings; storing its
+ * newer result marks the case stale again (ReadingService's onReplaced, wired in createServices). A figure that changes with the
  * clock alone (the deadline factor) sets `triage_due_at` to the moment it changes. A refresh writes
  * only if the case is unchanged since it read the facts, so a change made meanwhile is not lost; a
  * process that dies halfway leaves the mark in place for the next reader.
