@@ -42,7 +42,15 @@ beforeAll(async () => {
   await ds.initialize();
   await ds.runMigrations();
   await ds.destroy();
-  t = await createTestApp({ DB_PORT: String(port), DB_NAME: db.name, DB_USER: db.user, DB_PASSWORD: db.password });
+  // Every request here reaches the database: no session is answered from the session cache
+  // (tests/server/session-cache.test.ts covers that), so each one shows the outage.
+  t = await createTestApp({
+    DB_PORT: String(port),
+    DB_NAME: db.name,
+    DB_USER: db.user,
+    DB_PASSWORD: db.password,
+    SESSION_CACHE_MS: "0",
+  });
   server = await new Promise<Server>((resolve) => {
     const s = t.app.listen(0, "127.0.0.1", () => resolve(s));
   });
