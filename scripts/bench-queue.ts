@@ -33,7 +33,12 @@ import { DataSource, type Logger as TypeOrmLogger } from "typeorm";
 import { computeDeadlines, ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, type HazardClass } from "../src/lib/domain/deadlines.js";
 import { hhsrsScore, LIKELIHOOD_POINTS } from "../src/lib/domain/hhsrs.js";
 import { hoursUntilDeadlinePartChanges, triagePriority, type TriageVulnerability } from "../src/lib/domain/triage-priority.js";
-import type { EvaluationParams, SeriesPoint, ReadingService } from "../server/modules/readings/reading.service.js";
+import type {
+  EvaluationParams,
+  ReadingService,
+  RoomEvaluationState,
+  SeriesPoint,
+} from "../server/modules/readings/reading.service.js";
 import { evaluateSeries } from "../src/lib/domain/series.js";
 import type { CaseStatus } from "../src/lib/domain/case-workflow.js";
 import { createApp } from "../server/app.js";
@@ -582,9 +587,10 @@ async function seed(
         roomIds.map((roomId) => {
           const series = pending.get(roomId) ?? [];
           const last = series.at(-1);
-          return [
-            roomId,
-            {
+          const state: RoomEvaluationState = {
+            updating: false,
+            evaluatedAt: null,
+            evaluation: {
               readingsCount: series.length,
               latest: last
                 ? {
@@ -597,7 +603,8 @@ async function seed(
                 : null,
               series: series.length ? evaluateSeries({ readings: series, ...params }) : null,
             },
-          ];
+          };
+          return [roomId, state];
         }),
       ),
   } as unknown as ReadingService;
@@ -717,6 +724,9 @@ async function seed(
       hhsrsCategory: c.category,
       recurrence: c.recurrence,
       hoursUntilDeadline,
+      emergency: c.hazardClass === "emergency",
+      // The benchmark seeds no "it got worse" reports.
+      hoursSinceReportedWorse: null,
     });
     const changesInHours = hoursUntilDeadlinePartChanges(hoursUntilDeadline);
     const triageDueAt = changesInHours === null ? null : new Date(now.getTime() + changesInHours * HOUR_MS + 1);
