@@ -45,7 +45,8 @@ if (!/^[a-f]+$/.test(ONLY)) throw new Error("--only needs phase letters from a t
 const runs = (phase: string) => ONLY.includes(phase);
 const profileArg = argv.indexOf("--profile");
 /** --profile <folder>: the server writes a V8 CPU profile there when it stops (open it in Chrome's DevTools). */
-const serverNodeArgs = profileArg === -1 ? [] : ["--cpu-prof", "--cpu-prof-dir", path.resolve(argv[profileArg + 1] ?? "profiles")];
+const serverNodeArgs =
+  profileArg === -1 ? [] : ["--cpu-prof", "--cpu-prof-dir", path.resolve(argv[profileArg + 1] ?? "profiles")];
 const HOMES = 12;
 const PASSWORD = "fault-script-only-password";
 const WRITERS = 6;
@@ -110,7 +111,11 @@ const serverEnv = () => ({
 
 async function startServer() {
   const log = createWriteStream(path.join(work, "server.log"), { flags: "a" });
-  server = spawn(process.execPath, [...serverNodeArgs, "dist-server/server/server.js"], { cwd: projectRoot, env: serverEnv(), stdio: "pipe" });
+  server = spawn(process.execPath, [...serverNodeArgs, "dist-server/server/server.js"], {
+    cwd: projectRoot,
+    env: serverEnv(),
+    stdio: "pipe",
+  });
   server.stdout?.pipe(log);
   server.stderr?.pipe(log);
   await waitUntilReady(`${base}/api/health/ready`, 60_000);
