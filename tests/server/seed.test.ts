@@ -6,6 +6,7 @@ import { Organisation } from "../../server/modules/organisations/organisation.en
 import { Property } from "../../server/modules/properties/property.entity.js";
 import { Tenancy } from "../../server/modules/tenancies/tenancy.entity.js";
 import { runSeed } from "../../scripts/seed.js";
+import { SURFACE_STATES } from "../../src/lib/domain/index.js";
 import { createTestApp, signedInClient, type TestApp } from "../support/test-app.js";
 
 let t: TestApp;
@@ -53,11 +54,8 @@ it("gives the officer a live queue: open and overdue cases, risk states from rea
   const open = items.filter((i: { status: string }) => !["closed", "cancelled"].includes(i.status));
   expect(open.length).toBeGreaterThan(15);
   expect(items.some((i: { overdue: boolean; vulnerableHousehold: boolean }) => i.overdue && i.vulnerableHousehold)).toBe(true);
-  expect(new Set(items.map((i: { riskState: string | null }) => i.riskState))).toEqual(
-    new Set(
-      ["condensing", "mould-risk", "dry", null].filter((s) => items.some((i: { riskState: string | null }) => i.riskState === s)),
-    ),
-  );
+  // Every risk state is one the engine knows (which ones depends on the hour the demo was made: its readings follow "now").
+  for (const i of items as { riskState: string | null }[]) expect([...SURFACE_STATES, null]).toContain(i.riskState);
   expect(items.some((i: { riskState: string | null }) => i.riskState === "condensing" || i.riskState === "mould-risk")).toBe(
     true,
   );
