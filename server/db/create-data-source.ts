@@ -32,7 +32,8 @@ export function createDataSource(db: Config["db"]): DataSource {
     poolSize: 10,
     extra: { connectTimeout: timeouts.connectMs },
   });
-  const watch = new DatabaseWatch(() => probe(db, timeouts.connectMs), {
+  const prober = createProbe(db, timeouts.connectMs);
+  const watch = new DatabaseWatch(prober.probe, {
     recheckMs: 250,
     freshMs: 250,
   });
@@ -45,32 +46,61 @@ export function createDataSource(db: Config["db"]): DataSource {
   const destroy = dataSource.destroy.bind(dataSource);
   dataSource.destroy = async () => {
     watch.close();
+    prober.close();
     await destroy();
   };
   return dataSource;
 }
 
-/** Whether the server answers a fresh connection's `SELECT 1` within `timeoutMs` (rejects if not). */
-function probe(db: Config["db"], timeoutMs: number): Promise<void> {
-  return new Promise<void>((resolve, reject) => {
-    const connection = mysql.createConnection({
-      host: db.host,
-      port: db.port,
-      user: db.user,
-      password: db.password,
-      database: db.name,
-      connectTimeout: timeoutMs,
+/**
+ * Whether the server answers `SELECT 1` within `timeoutMs` (rejects if not), on a connection of the
+ * probe's own kept open between probes: on a busy machine it is a fresh connection's handshake that is
+ * slow, not the question, and a busy database is not a down one. After any failure the connection is
+ * dropped; a kept connection that fails at once (the server closed it while idle) is replaced and asked
+ * again within the same time.
+ */
+function createProbe(db: Config["db"], timeoutMs: number): { probe: () => Promise<void>; close: () => void } {
+  let kept: mysql.Connection | null = null;
+  const drop = (connection: mysql.Connection) => {
+    if (kept === connection) kept = null;
+    connection.destroy();
+  };
+  const ask = (deadline: number): Promise<void> =>
+    new Promise<void>((resolve, reject) => {
+      const reused = kept !== null;
+      const connection =
+        kept ??
+        mysql.createConnection({
+          host: db.host,
+          port: db.port,
+          user: db.user,
+          password: db.password,
+          database: db.name,
+          connectTimeout: timeoutMs,
+        });
+      if (!reused) {
+        connection.on("error", () => drop(connection));
+        kept = connection;
+      }
+      const left = Math.max(1, deadline - Date.now());
+      const timer = setTimeout(() => {
+        drop(connection);
+        reject(new DatabaseUnavailableError());
+      }, left);
+      connection.query({ sql: "SELECT 1", timeout: left }, (err) => {
+        clearTimeout(timer);
+        if (!err) return resolve();
+        drop(connection);
+        if (reused && Date.now() < deadline) ask(deadline).then(resolve, reject);
+        else reject(err instanceof Error ? err : new Error(String(err)));
+      });
     });
-    connection.on("error", () => undefined);
-    const timer = setTimeout(() => finish(new DatabaseUnavailableError()), timeoutMs);
-    const finish = (err: unknown) => {
-      clearTimeout(timer);
-      connection.destroy();
-      if (err) reject(err instanceof Error ? err : new Error(String(err)));
-      else resolve();
-    };
-    connection.query({ sql: "SELECT 1", timeout: timeoutMs }, (err) => finish(err));
-  });
+  return {
+    probe: () => ask(Date.now() + timeoutMs),
+    close: () => {
+      if (kept) drop(kept);
+    },
+  };
 }
 
 const GUARDED = Symbol("dewline.guarded");
