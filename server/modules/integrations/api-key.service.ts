@@ -66,7 +66,10 @@ export class ApiKeyService {
         revokedByUserId: null,
       }),
     );
-    this.logger?.info({ audit: "api-key-created", actorId: actor.id, organisationId: actor.organisationId, apiKeyId: key.id, scopes: key.scopes }, "audit: api-key-created");
+    this.logger?.info(
+      { audit: "api-key-created", actorId: actor.id, organisationId: actor.organisationId, apiKeyId: key.id, scopes: key.scopes },
+      "audit: api-key-created",
+    );
     return { key, secret: `dwk_${key.id}_${random}` };
   }
 
@@ -87,7 +90,10 @@ export class ApiKeyService {
       key.revokedAt = this.clock.now();
       key.revokedByUserId = actor.id;
       await repo.update({ id }, { revokedAt: key.revokedAt, revokedByUserId: actor.id });
-      this.logger?.info({ audit: "api-key-revoked", actorId: actor.id, organisationId: actor.organisationId, apiKeyId: id }, "audit: api-key-revoked");
+      this.logger?.info(
+        { audit: "api-key-revoked", actorId: actor.id, organisationId: actor.organisationId, apiKeyId: id },
+        "audit: api-key-revoked",
+      );
     }
     return { key, people: await this.people.people([key.createdByUserId]) };
   }

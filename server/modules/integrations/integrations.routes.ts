@@ -1,5 +1,10 @@
 import { Router } from "express";
-import { apiKeyAuditResponse, apiKeyCreatedResponse, apiKeyListResponse, apiKeyResponse } from "../../../src/lib/contracts/integrations.js";
+import {
+  apiKeyAuditResponse,
+  apiKeyCreatedResponse,
+  apiKeyListResponse,
+  apiKeyResponse,
+} from "../../../src/lib/contracts/integrations.js";
 import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
 import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";

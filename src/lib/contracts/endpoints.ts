@@ -19,13 +19,7 @@ import { conversationResponse, messageSentResponse, readMarkResponse, unreadMess
 import { evaluationResponse } from "./evaluation.js";
 import { outboxItem, outboxPageResponse } from "./mail.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
-import {
-  apiKeyAuditResponse,
-  apiKeyCreatedResponse,
-  apiKeyListResponse,
-  apiKeyResponse,
-  type ApiScope,
-} from "./integrations.js";
+import { apiKeyAuditResponse, apiKeyCreatedResponse, apiKeyListResponse, apiKeyResponse, type ApiScope } from "./integrations.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse, photoUploadResponse } from "./photos.js";
 import { policyResponse } from "./policy.js";
@@ -269,9 +263,22 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/outbox/:id/resend", OFFICERS, "Send a sent or failed e-mail again", outboxItem, 202),
 
   e("GET", "/api/integrations/api-keys", ["admin"], "The landlord's API keys (never their secrets)", apiKeyListResponse),
-  e("POST", "/api/integrations/api-keys", ["admin"], "Create an API key: its secret is in this reply only", apiKeyCreatedResponse, 201),
+  e(
+    "POST",
+    "/api/integrations/api-keys",
+    ["admin"],
+    "Create an API key: its secret is in this reply only",
+    apiKeyCreatedResponse,
+    201,
+  ),
   e("POST", "/api/integrations/api-keys/:keyId/revoke", ["admin"], "Revoke an API key, at once", apiKeyResponse),
-  e("GET", "/api/integrations/api-keys/audit", ["admin"], "The latest writes made with the landlord's API keys", apiKeyAuditResponse),
+  e(
+    "GET",
+    "/api/integrations/api-keys/audit",
+    ["admin"],
+    "The latest writes made with the landlord's API keys",
+    apiKeyAuditResponse,
+  ),
 
   // The integration API: `Authorization: Bearer <API key>`, no session, no CSRF token.
   e("GET", "/api/v1/homes", { apiKey: "homes:read" }, "The landlord's homes", propertyPageResponse),
