@@ -331,3 +331,15 @@ describe("API keys: rate limit per key", () => {
     await call(b.secret).expect(200);
   });
 });
+
+describe("API keys in the OpenAPI document", () => {
+  it("describes the bearer key and gives each key route its scope", async () => {
+    const doc = (await admin.get("/api/openapi.json").expect(200)).body;
+    expect(doc.components.securitySchemes.apiKey).toMatchObject({ type: "http", scheme: "bearer" });
+    for (const e of KEY_ROUTES) {
+      const op = doc.paths[e.path.replace(/:([A-Za-z]+)/g, "{$1}")][e.method.toLowerCase()];
+      expect(op.security, label(e)).toEqual([{ apiKey: [scopeOf(e)] }]);
+    }
+    expect(doc.paths["/api/properties"].get.security).toEqual([{ session: [] }]);
+  });
+});
