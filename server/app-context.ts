@@ -32,6 +32,7 @@ import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
 import { ConversationService } from "./modules/conversation/conversation.service.js";
 import { WorkerPool } from "./workers/pool.js";
+import { ApiKeyService } from "./modules/integrations/api-key.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -54,6 +55,7 @@ export interface Services {
   tenancies: TenancyService;
   users: UserService;
   conversation: ConversationService;
+  apiKeys: ApiKeyService;
 }
 
 export interface AppContext {
@@ -124,6 +126,7 @@ export function createServices(
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
   const homes = new HomeRecordService(properties, tenancies, cases, readings, users);
+  const apiKeys = new ApiKeyService(dataSource, users, clock, logger);
   return {
     assessments,
     inspections,
@@ -145,6 +148,7 @@ export function createServices(
     works,
     verification,
     conversation,
+    apiKeys,
   };
 }
 

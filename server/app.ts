@@ -32,6 +32,8 @@ import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
 import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
 import { createOutboxRouter } from "./modules/mail/mail.routes.js";
+import { createIntegrationApiRouter } from "./modules/integrations/integration-api.routes.js";
+import { createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
@@ -79,6 +81,24 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.get("/psychrometrics/openapi.json", (_req, res) => {
     res.json(openApiDocument(config.appUrl));
   });
+
+  // The integration API: API keys only, before the session middleware, so a session cookie is never
+  // read there and no CSRF token is asked for; session routes, in turn, never read an API key.
+  api.use(
+    "/v1",
+    createIntegrationApiRouter({
+      keys: services.apiKeys,
+      properties: services.properties,
+      cases: services.cases,
+      queue: services.queue,
+      readings: services.readings,
+      works: services.works,
+      evaluation: services.evaluation,
+      clock,
+      logger: ctx.logger,
+      requestsPerMinute: config.apiKeys.requestsPerMinute,
+    }),
+  );
 
   api.use(express.json({ limit: "2mb" }));
 
@@ -156,6 +176,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/users", createUsersRouter({ users: services.users }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use("/outbox", createOutboxRouter({ mail: services.mail }));
+  api.use("/integrations/api-keys", createApiKeysRouter({ keys: services.apiKeys }));
   api.use(createApiDocsRouter({ appUrl: config.appUrl }));
   api.use(apiNotFound);
 

@@ -95,6 +95,7 @@ const schema = z
     UPLOAD_MEGAPIXELS_PER_REQUEST: z.coerce.number().positive().default(300),
     CALCULATOR_READINGS_PER_MINUTE: z.coerce.number().int().min(1).default(200_000),
     CALCULATOR_MAX_ANONYMOUS_READINGS: z.coerce.number().int().min(1).default(10_000),
+    API_KEY_REQUESTS_PER_MINUTE: z.coerce.number().int().min(1).default(600),
     DB_CONNECT_TIMEOUT_MS: z.coerce.number().int().min(100).default(1000),
     DB_STALL_CHECK_MS: z.coerce.number().int().min(50).default(400),
     DB_QUERY_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),
@@ -144,6 +145,8 @@ export interface Config {
   uploads: { pixelsPerHour: number; bytesPerHour: number; pixelsPerRequest: number };
   /** The public series calculator: readings each address may have evaluated a minute; most readings per anonymous request. */
   calculator: { readingsPerMinute: number; maxAnonymousReadings: number };
+  /** The integration API (/api/v1): requests each API key may make a minute. */
+  apiKeys: { requestsPerMinute: number };
 }
 
 /**
@@ -220,5 +223,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       readingsPerMinute: e.CALCULATOR_READINGS_PER_MINUTE,
       maxAnonymousReadings: e.CALCULATOR_MAX_ANONYMOUS_READINGS,
     },
+    apiKeys: { requestsPerMinute: e.API_KEY_REQUESTS_PER_MINUTE },
   };
 }

@@ -6,6 +6,8 @@ import { OperativeSlot } from "../modules/works/operative-slot.entity.js";
 import { WorkOrder } from "../modules/works/work-order.entity.js";
 import { Photo } from "../modules/photos/photo.entity.js";
 import { PhotoUploadUsage } from "../modules/photos/photo-upload-usage.entity.js";
+import { ApiKey } from "../modules/integrations/api-key.entity.js";
+import { ApiKeyAuditEntry } from "../modules/integrations/api-key-audit.entity.js";
 import { ReadingImport } from "../modules/readings/reading-import.entity.js";
 import { Reading } from "../modules/readings/reading.entity.js";
 import { RoomEvaluation } from "../modules/readings/room-evaluation.entity.js";
@@ -52,4 +54,6 @@ export const entities = [
   Contractor,
   CaseReadMark,
   PhotoUploadUsage,
+  ApiKey,
+  ApiKeyAuditEntry,
 ];

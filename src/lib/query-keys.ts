@@ -120,3 +120,10 @@ export const conversationKeys = {
   send: (caseId: number) => [...conversationKeys.all, caseId, "send"] as const,
   read: (caseId: number) => [...conversationKeys.all, caseId, "read"] as const,
 };
+
+/** The landlord's API keys and the writes made with them (features/integrations). */
+export const apiKeyKeys = {
+  all: ["api-keys"] as const,
+  list: () => [...apiKeyKeys.all, "list"] as const,
+  audit: () => [...apiKeyKeys.all, "audit"] as const,
+};

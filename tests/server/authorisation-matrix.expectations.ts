@@ -107,6 +107,19 @@ const ROWS: Record<string, Row> = {
   "PATCH /api/users/:id":                                       [ 401,  403,  403,  403,  403, "ok",  404,  403],
   "GET /api/users/:id/history":                                 [ 401,  403,  403,  403,  403, "ok",  404,  403],
   "GET /api/staff":                                             [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
+  "GET /api/integrations/api-keys":                             [ 401,  403,  403,  403,  403, "ok", "ok",  403],
+  "POST /api/integrations/api-keys":                            [ 401,  403,  403,  403,  403, "ok", "ok",  403],
+  "POST /api/integrations/api-keys/:keyId/revoke":              [ 401,  403,  403,  403,  403, "ok",  404,  403],
+  "GET /api/integrations/api-keys/audit":                       [ 401,  403,  403,  403,  403, "ok", "ok",  403],
+  // The integration API takes API keys only: a session, anyone's, is not signed in there.
+  "GET /api/v1/homes":                                          [ 401,  401,  401,  401,  401,  401,  401,  401],
+  "GET /api/v1/homes/:id":                                      [ 401,  401,  401,  401,  401,  401,  401,  401],
+  "PUT /api/v1/homes/by-uprn/:uprn":                            [ 401,  401,  401,  401,  401,  401,  401,  401],
+  "GET /api/v1/cases":                                          [ 401,  401,  401,  401,  401,  401,  401,  401],
+  "GET /api/v1/cases/:id":                                      [ 401,  401,  401,  401,  401,  401,  401,  401],
+  "POST /api/v1/cases":                                         [ 401,  401,  401,  401,  401,  401,  401,  401],
+  "POST /api/v1/cases/:id/readings":                            [ 401,  401,  401,  401,  401,  401,  401,  401],
+  "GET /api/v1/work-orders":                                    [ 401,  401,  401,  401,  401,  401,  401,  401],
 };
 
 /** "METHOD /path" → the expected answer per actor. */

@@ -122,6 +122,7 @@ beforeAll(async () => {
   const spare = await admin.post(`/api/properties/${landlord.home.id}/rooms`, { name: "Box room", kind: "bedroom" }).expect(201);
   const invitee = `invitee.${caseId}@test.example`;
   await admin.post("/api/auth/invitations", { email: invitee, name: "Ina Vitee", role: "officer" }).expect(201);
+  const apiKey = await admin.post("/api/integrations/api-keys", { name: "Matrix key", scopes: ["homes:read"] }).expect(201);
   const token = /\/invitation\/([A-Za-z0-9_-]{43})/.exec((await t.mail.lastTo(invitee)).raw)?.[1];
   if (!token) throw new Error("no invitation link in the e-mail");
 
@@ -142,6 +143,7 @@ beforeAll(async () => {
     // The invitation's reply names no user (it must read the same for an address another landlord holds).
     ":userId": ((await t.ctx.dataSource.query("SELECT id FROM users WHERE email = ?", [invitee])) as { id: number }[])[0]!.id,
     ":token": token,
+    ":keyId": apiKey.body.id,
     officerId: landlord.officer.id,
     maintenanceId: landlord.maintenance.id,
     slotDate: workingDaysAhead(12)[0]!,

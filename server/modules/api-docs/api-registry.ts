@@ -22,6 +22,8 @@ import { propertyListQuerySchema } from "../properties/properties.schemas.js";
 import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
 import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
+import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
+import { homeUpsertSchema } from "../integrations/integrations.schemas.js";
 import {
   bookingResponseSchema,
   contractorSchema,
@@ -73,6 +75,13 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "PATCH /api/properties/:id/rooms/:roomId": { body: roomPatchSchema },
   "GET /api/users": { query: userListQuerySchema },
   "PATCH /api/users/:id": { body: userUpdateSchema },
+  "POST /api/integrations/api-keys": { body: apiKeyCreateSchema },
+  "GET /api/v1/homes": { query: propertyListQuerySchema },
+  "PUT /api/v1/homes/by-uprn/:uprn": { body: homeUpsertSchema },
+  "GET /api/v1/cases": { query: queueQuerySchema },
+  "POST /api/v1/cases": { body: staffCaseSchema },
+  "POST /api/v1/cases/:id/readings": { body: manualReadingsSchema },
+  "GET /api/v1/work-orders": { query: workOrderListQuerySchema },
 };
 
 export const keyOf = (e: Pick<Endpoint, "method" | "path">) => `${e.method} ${e.path}`;

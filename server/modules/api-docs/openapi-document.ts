@@ -1,7 +1,7 @@
 // The OpenAPI 3.1 document of the whole API, built from the contract's response schemas and the
 // routes' request schemas (api-registry.ts) with zod 4's own z.toJSONSchema.
 import { z } from "zod";
-import { errorResponse, isJsonSchema } from "../../../src/lib/contracts/index.js";
+import { API_SCOPES, errorResponse, isJsonSchema, scopeOf } from "../../../src/lib/contracts/index.js";
 import { ROUTES } from "./api-registry.js";
 
 const json = (schema: z.ZodType, io: "input" | "output") =>
@@ -12,7 +12,9 @@ const who = (access: (typeof ROUTES)[number]["access"]) =>
     ? "Anyone, no sign-in."
     : access === "signed-in"
       ? "Anyone signed in (tenants see only their home's data)."
-      : `Roles: ${access.join(", ")}.`;
+      : "apiKey" in access
+        ? `An API key with the scope ${access.apiKey} (Authorization: Bearer dwk_…); no session, no CSRF token.`
+        : `Roles: ${access.join(", ")}.`;
 
 export function fullOpenApiDocument(serverUrl: string) {
   const paths: Record<string, Record<string, unknown>> = {};
@@ -45,11 +47,14 @@ export function fullOpenApiDocument(serverUrl: string) {
         : isJsonSchema(r.response)
           ? { description: "Success.", content: { "application/json": { schema: json(r.response, "output") } } }
           : { description: "Success.", content: { [r.response.mediaType]: {} } };
+    const scope = scopeOf(r);
     paths[oapiPath(r.path)] ??= {};
     paths[oapiPath(r.path)]![r.method.toLowerCase()] = {
       summary: r.summary,
       description: who(r.access),
       "x-dewline-access": r.access,
+      // Session routes use the session cookie; the integration API a key with the route's scope.
+      security: scope ? [{ apiKey: [scope] }] : [{ session: [] }],
       ...(params.length + query.length > 0 ? { parameters: [...params, ...query] } : {}),
       ...(bodySchema || r.multipart
         ? { requestBody: { required: true, content: { [mediaType]: { schema: bodySchema ?? { type: "object" } } } } }
@@ -57,8 +62,9 @@ export function fullOpenApiDocument(serverUrl: string) {
       responses: {
         [String(r.status)]: success,
         default: {
-          description:
-            "An error: 400 names the field, 401 not signed in, 403 not allowed or bad CSRF token, 404 not found or not yours.",
+          description: scope
+            ? "An error: 400 names the field, 401 unknown or revoked key, 403 the key lacks the scope (named), 404 not found or not yours, 429 over the key's rate limit (Retry-After)."
+            : "An error: 400 names the field, 401 not signed in, 403 not allowed or bad CSRF token, 404 not found or not yours.",
           content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } },
         },
       },
@@ -70,10 +76,21 @@ export function fullOpenApiDocument(serverUrl: string) {
       title: "Dewline API",
       version: "1.0.0",
       description:
-        "Every route of the Dewline API. State-changing requests carry the session's CSRF token in X-CSRF-Token (GET /api/auth/csrf). Staff only.",
+        "Every route of the Dewline API. Session routes: state-changing requests carry the session's CSRF token in X-CSRF-Token (GET /api/auth/csrf). The integration API (/api/v1) takes an API key an admin created, as `Authorization: Bearer dwk_…`, and each route needs the scope it names. Staff only.",
     },
     servers: [{ url: serverUrl }],
     paths,
-    components: { schemas: { Error: json(errorResponse, "output") } },
+    components: {
+      schemas: { Error: json(errorResponse, "output") },
+      securitySchemes: {
+        session: { type: "apiKey", in: "cookie", name: "dewline.sid" },
+        apiKey: {
+          type: "http",
+          scheme: "bearer",
+          bearerFormat: "dwk_<id>_<secret>",
+          description: `An API key from Integrations → API keys. Scopes: ${API_SCOPES.join(", ")}.`,
+        },
+      },
+    },
   };
 }

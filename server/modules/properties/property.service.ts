@@ -100,6 +100,14 @@ export class PropertyService {
     return property;
   }
 
+  /** The id of the actor's organisation's home with this UPRN, or null (UPRNs are unique per organisation). */
+  async idByUprn(actor: Actor, uprn: string): Promise<number | null> {
+    const home = await this.dataSource
+      .getRepository(Property)
+      .findOne({ where: { organisationId: actor.organisationId, uprn }, select: { id: true } });
+    return home?.id ?? null;
+  }
+
   /** The tenant's home with its rooms (TenancyService has decided it is theirs). */
   async homeWithRooms(id: number): Promise<Property> {
     return this.dataSource.getRepository(Property).findOneOrFail({ where: { id }, relations: { rooms: true } });

@@ -17,6 +17,7 @@ import type { Actor } from "../auth/actor.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { ReadingImportService } from "./reading-import.service.js";
 import type { ReadingService } from "./reading.service.js";
+import { requireRoomOfCase } from "./room-of-case.js";
 import { importFieldsSchema, importParamsSchema, manualReadingsSchema, readingsQuerySchema } from "./readings.schemas.js";
 
 /** A logger export of a year at one-minute intervals is ~30 MB; allow generous headroom. */
@@ -62,14 +63,6 @@ export function createReadingsRouter({ cases, readings, imports, evaluation, inc
     const { id } = parse(idParamsSchema, req.params, "params");
     res.locals.case = await cases.getForActor(actorOf(req), id);
     next();
-  };
-  const requireRoomOfCase = (roomIds: number[], caseRooms: { id: number }[]) => {
-    const ok = new Set(caseRooms.map((r) => r.id));
-    const bad = roomIds.filter((r) => !ok.has(r));
-    if (bad.length)
-      throw new ValidationError("roomId: choose a room of this home.", [
-        { field: "roomId", message: `Room ${bad.join(", ")} is not part of this home.` },
-      ]);
   };
 
   router.get("/:id/readings", caseAccess, async (req, res) => {

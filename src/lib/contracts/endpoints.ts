@@ -19,6 +19,7 @@ import { conversationResponse, messageSentResponse, readMarkResponse, unreadMess
 import { evaluationResponse } from "./evaluation.js";
 import { outboxItem, outboxPageResponse } from "./mail.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
+import { apiKeyAuditResponse, apiKeyCreatedResponse, apiKeyListResponse, apiKeyResponse, type ApiScope } from "./integrations.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse, photoUploadResponse } from "./photos.js";
 import { policyResponse } from "./policy.js";
@@ -46,8 +47,11 @@ import {
 } from "./works.js";
 
 export type HttpMethod = "GET" | "POST" | "PUT" | "PATCH" | "DELETE";
-/** Who may call a route: anyone, anyone signed in, or the roles listed. */
-export type Access = "public" | "signed-in" | readonly Role[];
+/**
+ * Who may call a route: anyone, anyone signed in, the roles listed, or (the integration API under
+ * /api/v1) an API key holding the scope, with no session.
+ */
+export type Access = "public" | "signed-in" | readonly Role[] | { apiKey: ApiScope };
 
 export interface Endpoint {
   method: HttpMethod;
@@ -257,7 +261,45 @@ export const ENDPOINTS: readonly Endpoint[] = [
     outboxPageResponse,
   ),
   e("POST", "/api/outbox/:id/resend", OFFICERS, "Send a sent or failed e-mail again", outboxItem, 202),
+
+  e("GET", "/api/integrations/api-keys", ["admin"], "The landlord's API keys (never their secrets)", apiKeyListResponse),
+  e(
+    "POST",
+    "/api/integrations/api-keys",
+    ["admin"],
+    "Create an API key: its secret is in this reply only",
+    apiKeyCreatedResponse,
+    201,
+  ),
+  e("POST", "/api/integrations/api-keys/:keyId/revoke", ["admin"], "Revoke an API key, at once", apiKeyResponse),
+  e(
+    "GET",
+    "/api/integrations/api-keys/audit",
+    ["admin"],
+    "The latest writes made with the landlord's API keys",
+    apiKeyAuditResponse,
+  ),
+
+  // The integration API: `Authorization: Bearer <API key>`, no session, no CSRF token.
+  e("GET", "/api/v1/homes", { apiKey: "homes:read" }, "The landlord's homes", propertyPageResponse),
+  e("GET", "/api/v1/homes/:id", { apiKey: "homes:read" }, "A home and its rooms", propertyResponse),
+  e(
+    "PUT",
+    "/api/v1/homes/by-uprn/:uprn",
+    { apiKey: "homes:write" },
+    "Add or update the home with this UPRN (201 when added, 200 when updated; rooms only when added)",
+    propertyResponse,
+  ),
+  e("GET", "/api/v1/cases", { apiKey: "cases:read" }, "The landlord's cases (the queue's filters and sorts)", queuePageResponse),
+  e("GET", "/api/v1/cases/:id", { apiKey: "cases:read" }, "A case", caseResponse),
+  e("POST", "/api/v1/cases", { apiKey: "cases:write" }, "Log a report for a home, from another system", caseResponse, 201),
+  e("POST", "/api/v1/cases/:id/readings", { apiKey: "cases:write" }, "Add readings to a case", readingsAddedResponse, 201),
+  e("GET", "/api/v1/work-orders", { apiKey: "works:read" }, "Work orders, filtered and sorted", workOrderPageResponse),
 ];
+
+/** The scope a route of the integration API needs (undefined for session routes). */
+export const scopeOf = (e: Pick<Endpoint, "access">): ApiScope | undefined =>
+  typeof e.access === "object" && "apiKey" in e.access ? e.access.apiKey : undefined;
 
 const patternOf = (path: string) => new RegExp(`^${path.replace(/[.]/g, "\\.").replace(/:[A-Za-z]+/g, "[^/]+")}$`);
 const compiled = ENDPOINTS.map((endpoint) => ({ endpoint, pattern: patternOf(endpoint.path) }));

@@ -1,0 +1,48 @@
+import { Router } from "express";
+import {
+  apiKeyAuditResponse,
+  apiKeyCreatedResponse,
+  apiKeyListResponse,
+  apiKeyResponse,
+} from "../../../src/lib/contracts/integrations.js";
+import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
+import { shaped } from "../../lib/contract.js";
+import { parse } from "../../lib/validation.js";
+import { actorOf, requireRole } from "../../middleware/auth.js";
+import { toApiKeyAuditDto, toApiKeyCreatedDto, toApiKeyDto } from "./api-key.mapper.js";
+import type { ApiKeyService } from "./api-key.service.js";
+import { keyParamsSchema } from "./integrations.schemas.js";
+
+/** `/api/integrations/api-keys`: an admin's keys for their landlord, and the writes made with them. */
+export function createApiKeysRouter({ keys }: { keys: ApiKeyService }): Router {
+  const router = Router();
+  router.use(requireRole("admin"));
+
+  router.get("/", async (req, res) => {
+    const { keys: items, people } = await keys.list(actorOf(req));
+    res.json(shaped(apiKeyListResponse, { keys: items.map((k) => toApiKeyDto(k, people)) }));
+  });
+
+  router.post("/", async (req, res) => {
+    const input = parse(apiKeyCreateSchema, req.body);
+    const actor = actorOf(req);
+    const { key, secret } = await keys.create(actor, input);
+    res
+      .status(201)
+      .set("Cache-Control", "no-store")
+      .json(shaped(apiKeyCreatedResponse, toApiKeyCreatedDto(key, actor, secret)));
+  });
+
+  router.get("/audit", async (req, res) => {
+    const { entries, names } = await keys.audit(actorOf(req));
+    res.json(shaped(apiKeyAuditResponse, { entries: entries.map((e) => toApiKeyAuditDto(e, names)) }));
+  });
+
+  router.post("/:keyId/revoke", async (req, res) => {
+    const { keyId } = parse(keyParamsSchema, req.params, "params");
+    const { key, people } = await keys.revoke(actorOf(req), keyId);
+    res.json(shaped(apiKeyResponse, toApiKeyDto(key, people)));
+  });
+
+  return router;
+}
