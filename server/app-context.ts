@@ -32,6 +32,7 @@ import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
 import { ConversationService } from "./modules/conversation/conversation.service.js";
 import { WorkerPool } from "./workers/pool.js";
+import { WebhookService } from "./modules/webhooks/webhook.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -54,6 +55,7 @@ export interface Services {
   tenancies: TenancyService;
   users: UserService;
   conversation: ConversationService;
+  webhooks: WebhookService;
 }
 
 export interface AppContext {
@@ -104,6 +106,13 @@ export function createServices(
   );
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   mail.useCaseTimeline(cases);
+  // Case events reach webhooks in their own transaction (the cases module knows only the listener interface).
+  const webhooks = new WebhookService(dataSource, config, logger, clock, {
+    maxAttempts: config.webhooks.maxAttempts,
+    timeoutMs: config.webhooks.timeoutMs,
+    leaseMs: Math.max(60_000, 3 * config.webhooks.timeoutMs),
+  });
+  cases.useEventListener(webhooks);
   const photos = new PhotoService(dataSource, config, cases, workers, logger, clock);
   const readings = new ReadingService(dataSource, cases, clock, {
     evaluator: (input) => workers.run("evaluateRoomFromDb", input),
@@ -145,6 +154,7 @@ export function createServices(
     works,
     verification,
     conversation,
+    webhooks,
   };
 }
 
@@ -195,6 +205,7 @@ export async function createAppContext(config: Config, options: { migrate?: bool
       await services.auth.settled();
       // Let a send already running finish (its SMTP timeouts bound it) before the database closes.
       await services.mail.relay.stop();
+      await services.webhooks.relay.stop();
       mailer.close();
       await workers.close();
       await store.close().catch(() => undefined);

@@ -32,6 +32,7 @@ import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
 import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
 import { createOutboxRouter } from "./modules/mail/mail.routes.js";
+import { createWebhooksRouter } from "./modules/webhooks/webhooks.routes.js";
 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
@@ -156,6 +157,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/users", createUsersRouter({ users: services.users }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use("/outbox", createOutboxRouter({ mail: services.mail }));
+  api.use("/webhooks", createWebhooksRouter({ webhooks: services.webhooks }));
   api.use(createApiDocsRouter({ appUrl: config.appUrl }));
   api.use(apiNotFound);
 

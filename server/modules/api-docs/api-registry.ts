@@ -30,6 +30,8 @@ import {
   workOrderListQuerySchema,
   workOrderPatchSchema,
 } from "../works/works.schemas.js";
+import { webhookEndpointPatchSchema, webhookEndpointSchema } from "../../../src/lib/schemas/webhooks.js";
+import { webhookDeliveryListQuerySchema } from "../webhooks/webhooks.schemas.js";
 
 export interface RequestSchemas {
   body?: z.ZodType | readonly z.ZodType[];
@@ -73,6 +75,9 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "PATCH /api/properties/:id/rooms/:roomId": { body: roomPatchSchema },
   "GET /api/users": { query: userListQuerySchema },
   "PATCH /api/users/:id": { body: userUpdateSchema },
+  "POST /api/webhooks": { body: webhookEndpointSchema },
+  "PATCH /api/webhooks/:id": { body: webhookEndpointPatchSchema },
+  "GET /api/webhooks/:id/deliveries": { query: webhookDeliveryListQuerySchema },
 };
 
 export const keyOf = (e: Pick<Endpoint, "method" | "path">) => `${e.method} ${e.path}`;

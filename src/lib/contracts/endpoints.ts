@@ -18,6 +18,13 @@ import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse
 import { conversationResponse, messageSentResponse, readMarkResponse, unreadMessagesResponse } from "./conversation.js";
 import { evaluationResponse } from "./evaluation.js";
 import { outboxItem, outboxPageResponse } from "./mail.js";
+import {
+  webhookDeliveryPageResponse,
+  webhookDeliveryResponse,
+  webhookEndpointListResponse,
+  webhookEndpointResponse,
+  webhookSecretResponse,
+} from "./webhooks.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse, photoUploadResponse } from "./photos.js";
@@ -257,6 +264,40 @@ export const ENDPOINTS: readonly Endpoint[] = [
     outboxPageResponse,
   ),
   e("POST", "/api/outbox/:id/resend", OFFICERS, "Send a sent or failed e-mail again", outboxItem, 202),
+
+  e("GET", "/api/webhooks", ["admin"], "The landlord's webhook endpoints (never their secrets)", webhookEndpointListResponse),
+  e(
+    "POST",
+    "/api/webhooks",
+    ["admin"],
+    "Register an endpoint for case events; its signing secret is answered this once",
+    webhookSecretResponse,
+    201,
+  ),
+  e(
+    "PATCH",
+    "/api/webhooks/:id",
+    ["admin"],
+    "Change an endpoint's address, events or description, or switch it off or on",
+    webhookEndpointResponse,
+  ),
+  e("DELETE", "/api/webhooks/:id", ["admin"], "Remove an endpoint with its deliveries", null, 204),
+  e(
+    "POST",
+    "/api/webhooks/:id/secret",
+    ["admin"],
+    "Replace the signing secret (the old one also signs for 24 hours); answered this once",
+    webhookSecretResponse,
+  ),
+  e("POST", "/api/webhooks/:id/test", ["admin"], "Send a test event to this endpoint", webhookDeliveryResponse, 202),
+  e(
+    "GET",
+    "/api/webhooks/:id/deliveries",
+    ["admin"],
+    "The endpoint's deliveries, newest first, each with every attempt",
+    webhookDeliveryPageResponse,
+  ),
+  e("POST", "/api/webhooks/:id/deliveries/:deliveryId/resend", ["admin"], "Send a delivery again", webhookDeliveryResponse, 202),
 ];
 
 const patternOf = (path: string) => new RegExp(`^${path.replace(/[.]/g, "\\.").replace(/:[A-Za-z]+/g, "[^/]+")}$`);

@@ -17,4 +17,5 @@ export * from "./triage.js";
 export * from "./works.js";
 export * from "./conversation.js";
 export * from "./mail.js";
+export * from "./webhooks.js";
 export * from "./endpoints.js";
