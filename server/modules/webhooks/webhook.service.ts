@@ -280,8 +280,9 @@ export class WebhookService implements CaseEventListener {
       if (!exists) throw new NotFoundError("No such delivery.");
       throw new ConflictError("This delivery is being sent right now.");
     }
+    const answer = await this.deliveryWithHistory(deliveryId);
     this.relay.wake();
-    return this.deliveryWithHistory(deliveryId);
+    return answer;
   }
 
   /** A test event to this one endpoint (whatever it subscribed to), so an admin can check the receiving side. */
@@ -311,7 +312,8 @@ export class WebhookService implements CaseEventListener {
       const row = await m.getRepository(WebhookDelivery).findOneByOrFail({ eventId: eventId!, endpointId: endpoint.id });
       return row.id;
     });
+    const answer = await this.deliveryWithHistory(deliveryId);
     this.relay.wake();
-    return this.deliveryWithHistory(deliveryId);
+    return answer;
   }
 }
