@@ -6,6 +6,12 @@
 import { createHmac, timingSafeEqual } from "node:crypto";
 import { pino } from "pino";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
+import {
+  webhookDeliveryPageResponse,
+  webhookDeliveryResponse,
+  webhookEndpointListResponse,
+  webhookSecretResponse,
+} from "../../src/lib/contracts/webhooks.js";
 import { WebhookDelivery } from "../../server/modules/webhooks/webhook-delivery.entity.js";
 import { WebhookEndpoint } from "../../server/modules/webhooks/webhook-endpoint.entity.js";
 import { WebhookEvent } from "../../server/modules/webhooks/webhook-event.entity.js";
@@ -97,6 +103,7 @@ let registered = 0;
 async function register(client: Client, eventTypes: string[]) {
   const url = `${receiver.url}/${++registered}`;
   const res = await client.post("/api/webhooks", { url, description: "Housing system", eventTypes }).expect(201);
+  webhookSecretResponse.parse(res.body);
   const path = new URL(url).pathname;
   return {
     id: res.body.endpoint.id as number,
@@ -124,6 +131,7 @@ describe("registering an endpoint", () => {
     const { id, secret } = await register(admin, ["case.created"]);
     expect(secret).toMatch(/^whsec_[A-Za-z0-9_-]{43}$/);
     const list = await admin.get("/api/webhooks").expect(200);
+    webhookEndpointListResponse.parse(list.body);
     expect(list.body.items.find((e: { id: number }) => e.id === id)).toMatchObject({ eventTypes: ["case.created"] });
     expect(JSON.stringify(list.body)).not.toContain(secret);
 
@@ -206,13 +214,14 @@ describe("a case event", () => {
     expect(await drainAndCollect(new WebhookRelay(t.ctx.dataSource, logger, later(3_600_000)), url)).toEqual([]);
 
     const page = await admin.get(`/api/webhooks/${endpointId}/deliveries`).expect(200);
+    webhookDeliveryPageResponse.parse(page.body);
     expect(page.body.items).toHaveLength(1);
     expect(page.body.items[0]).toMatchObject({ status: "delivered", attempts: 2, eventType: "case.created" });
     expect(page.body.items[0].history.map((a: { statusCode: number }) => a.statusCode)).toEqual([200, 500]);
 
     // "Send again": the same event, the same id, once more.
     const resent = await admin.post(`/api/webhooks/${endpointId}/deliveries/${row!.id}/resend`).expect(202);
-    expect(resent.body).toMatchObject({ status: "pending", attempts: 0 });
+    expect(webhookDeliveryResponse.parse(resent.body)).toMatchObject({ status: "pending", attempts: 0 });
     await t.ctx.services.webhooks.relay.idle();
     expect(received()).toHaveLength(3);
     const again = received().at(-1)!;
