@@ -19,7 +19,7 @@ function ResendButton({ endpointId, delivery }: { endpointId: number; delivery: 
         variant="secondary"
         busy={resend.isPending}
         onClick={() => resend.mutate({ endpointId, deliveryId: delivery.id })}
-        aria-label={`Send the ${webhookEventLabels[delivery.eventType].toLowerCase()} event of ${formatDateTime(delivery.occurredAt)} again`}
+        aria-label={`Send again: ${webhookEventLabels[delivery.eventType]}, ${formatDateTime(delivery.occurredAt)}`}
       >
         Send again
       </Button>
