@@ -19,7 +19,8 @@ import { endpointUrlProblem } from "../../server/modules/webhooks/webhook-url.js
 import { WebhookRelay } from "../../server/modules/webhooks/webhook.relay.js";
 import { makeLandlord, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
-import { daysAgo, testClock } from "../support/test-clock.js";
+import { localDate } from "../../src/lib/domain/working-days.js";
+import { daysAgo, testClock, workingDayAhead } from "../support/test-clock.js";
 import { startWebhookReceiver, type ReceivedHook, type WebhookReceiver } from "../support/webhook-receiver.js";
 
 const logger = pino({ level: "silent" });
@@ -301,6 +302,47 @@ describe("a missed deadline", () => {
     expect(sent).toHaveLength(1);
     expect(bodyOf(sent[0]!)).toMatchObject({ type: "case.deadline-missed", data: { stage: "investigate" } });
     await admin.agent.delete(`/api/webhooks/${endpointId}`).set("X-CSRF-Token", admin.csrf).expect(204);
+  });
+});
+
+describe("work orders", () => {
+  it("are sent when booked and when completed, without the operative's notes", async () => {
+    const { url } = await register(admin, ["work-order.booked", "work-order.completed"]);
+    const lead = await signedInClient(t.app, landlord.maintenance.email, PASSWORD);
+    const c = (await tenant.post("/api/cases", report).expect(201)).body;
+    await officer
+      .patch(`/api/cases/${c.id}`, { status: "triaged", hazardClass: "significant", reason: "Mould over a bed." })
+      .expect(200);
+    await officer
+      .post(`/api/cases/${c.id}/inspections`, {
+        inspectedAt: daysAgo(0).toISOString(),
+        cause: "condensation",
+        mouldExtent: "under-1-m2",
+        findings: "Condensation mould behind the wardrobe.",
+        roomReadings: [],
+      })
+      .expect(201);
+    const wo = (
+      await officer.post(`/api/cases/${c.id}/work-orders`, { type: "mould-wash", description: "Wash the wall." }).expect(201)
+    ).body;
+    const date = workingDayAhead(10);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, { assigneeId: landlord.maintenance.id, slot: { date, window: "am" } })
+      .expect(200);
+    await lead
+      .patch(`/api/work-orders/${wo.id}`, {
+        complete: {
+          note: "Washed the wall behind the wardrobe with fungicide.",
+          doneOn: localDate(testClock.now()),
+          earlyReason: "The tenant asked for an earlier visit.",
+        },
+      })
+      .expect(200);
+    const sent = await drainAndCollect(undefined, url);
+    expect(sent.map((h) => bodyOf(h).type)).toEqual(["work-order.booked", "work-order.completed"]);
+    expect(bodyOf(sent[0]!)).toMatchObject({ case: { id: c.id }, data: { workOrderId: wo.id, date, window: "am" } });
+    expect(bodyOf(sent[1]!)).toMatchObject({ data: { workOrderId: wo.id, doneOn: localDate(testClock.now()) } });
+    expect(sent[1]!.body).not.toContain("fungicide");
   });
 });
 
