@@ -33,6 +33,7 @@ import { WorkOrderService } from "./modules/works/work-order.service.js";
 import { ConversationService } from "./modules/conversation/conversation.service.js";
 import { WorkerPool } from "./workers/pool.js";
 import { ApiKeyService } from "./modules/integrations/api-key.service.js";
+import { WebhookService } from "./modules/webhooks/webhook.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -56,6 +57,7 @@ export interface Services {
   users: UserService;
   conversation: ConversationService;
   apiKeys: ApiKeyService;
+  webhooks: WebhookService;
 }
 
 export interface AppContext {
@@ -106,6 +108,13 @@ export function createServices(
   );
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   mail.useCaseTimeline(cases);
+  // Case events reach webhooks in their own transaction (the cases module knows only the listener interface).
+  const webhooks = new WebhookService(dataSource, config, logger, clock, {
+    maxAttempts: config.webhooks.maxAttempts,
+    timeoutMs: config.webhooks.timeoutMs,
+    leaseMs: Math.max(60_000, 3 * config.webhooks.timeoutMs),
+  });
+  cases.useEventListener(webhooks);
   const photos = new PhotoService(dataSource, config, cases, workers, logger, clock);
   const readings = new ReadingService(dataSource, cases, clock, {
     evaluator: (input) => workers.run("evaluateRoomFromDb", input),
@@ -149,6 +158,7 @@ export function createServices(
     verification,
     conversation,
     apiKeys,
+    webhooks,
   };
 }
 
@@ -199,6 +209,7 @@ export async function createAppContext(config: Config, options: { migrate?: bool
       await services.auth.settled();
       // Let a send already running finish (its SMTP timeouts bound it) before the database closes.
       await services.mail.relay.stop();
+      await services.webhooks.relay.stop();
       mailer.close();
       await workers.close();
       await store.close().catch(() => undefined);

@@ -34,6 +34,7 @@ import { createConversationRouter, createMyUnreadRouter } from "./modules/conver
 import { createOutboxRouter } from "./modules/mail/mail.routes.js";
 import { createIntegrationApiRouter } from "./modules/integrations/integration-api.routes.js";
 import { createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
+import { createWebhooksRouter } from "./modules/webhooks/webhooks.routes.js";
 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
@@ -177,6 +178,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use("/outbox", createOutboxRouter({ mail: services.mail }));
   api.use("/integrations/api-keys", createApiKeysRouter({ keys: services.apiKeys }));
+  api.use("/webhooks", createWebhooksRouter({ webhooks: services.webhooks }));
   api.use(createApiDocsRouter({ appUrl: config.appUrl }));
   api.use(apiNotFound);
 

@@ -6,17 +6,19 @@ import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
 import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
 
 /**
- * Starts the outbox relay, the triage sweep, the deadline digest and the end-of-monitoring reminders;
+ * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest and the end-of-monitoring reminders;
  * returns a function that stops them and resolves once any job already running has finished (so
  * shutdown can close the database after it, not under it).
  */
 export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" | "clock" | "config">): () => Promise<void> {
   // The outbox relay: sends at once what a crash left queued, then looks for due e-mails (retries) on a timer.
   const stopMailRelay = ctx.services.mail.relay.start({ everyMs: ctx.config.mailRelay.intervalMs });
+  // The webhook relay: sends at once what a crash or a restart left queued, then looks for due deliveries.
+  const stopWebhookRelay = ctx.services.webhooks.relay.start({ everyMs: ctx.config.webhooks.intervalMs });
   const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger);
   const digestScheduler = startDigestScheduler(ctx.services, ctx.logger, { clock: () => ctx.clock.now() });
   const stopReminders = startMonitoringReminders(ctx.services.verification, ctx.logger);
   return async () => {
-    await Promise.all([stopReminders(), stopTriageSweeper(), digestScheduler.stop(), stopMailRelay()]);
+    await Promise.all([stopReminders(), stopTriageSweeper(), digestScheduler.stop(), stopMailRelay(), stopWebhookRelay()]);
   };
 }

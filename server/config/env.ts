@@ -76,6 +76,9 @@ const schema = z
     SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().min(1).default(10_000),
     MAIL_RELAY_INTERVAL_MS: z.coerce.number().int().min(100).default(15_000),
     MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(20),
+    WEBHOOK_RELAY_INTERVAL_MS: z.coerce.number().int().min(100).default(5_000),
+    WEBHOOK_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(10_000),
+    WEBHOOK_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(12),
     DEMO_PASSWORD: z.string().min(8, "DEMO_PASSWORD needs at least 8 characters").default("dewline-demo"),
     UPLOADS_DIR: z.string().default(path.join(projectRoot, "uploads")),
     BACKUP_DIR: z.string().default(path.join(projectRoot, "backups")),
@@ -125,6 +128,8 @@ export interface Config {
   smtpTimeouts: { connectionMs: number; greetingMs: number; socketMs: number };
   /** The outbox relay: how often it looks for due e-mails, and how many attempts before it gives up. */
   mailRelay: { intervalMs: number; maxAttempts: number };
+  /** Webhook deliveries: how often the relay looks for due ones, each HTTP call's timeout, tries before "failed". */
+  webhooks: { intervalMs: number; timeoutMs: number; maxAttempts: number };
   demoPassword: string;
   uploadsDir: string;
   /** Where `npm run backup` writes its timestamped folders. */
@@ -200,6 +205,11 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       socketMs: e.SMTP_SOCKET_TIMEOUT_MS,
     },
     mailRelay: { intervalMs: e.MAIL_RELAY_INTERVAL_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS },
+    webhooks: {
+      intervalMs: e.WEBHOOK_RELAY_INTERVAL_MS,
+      timeoutMs: e.WEBHOOK_TIMEOUT_MS,
+      maxAttempts: e.WEBHOOK_MAX_ATTEMPTS,
+    },
     demoPassword: e.DEMO_PASSWORD,
     uploadsDir: e.UPLOADS_DIR,
     backupsDir: e.BACKUP_DIR,

@@ -26,6 +26,10 @@ import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
 import { CaseReadMark } from "../modules/conversation/case-read-mark.entity.js";
+import { WebhookAttempt } from "../modules/webhooks/webhook-attempt.entity.js";
+import { WebhookDelivery } from "../modules/webhooks/webhook-delivery.entity.js";
+import { WebhookEndpoint } from "../modules/webhooks/webhook-endpoint.entity.js";
+import { WebhookEvent } from "../modules/webhooks/webhook-event.entity.js";
 
 export const entities = [
   Organisation,
@@ -56,4 +60,8 @@ export const entities = [
   PhotoUploadUsage,
   ApiKey,
   ApiKeyAuditEntry,
+  WebhookEndpoint,
+  WebhookEvent,
+  WebhookDelivery,
+  WebhookAttempt,
 ];

@@ -20,6 +20,7 @@ import { RoomEvaluations1796412626434 } from "./migrations/1796412626434-RoomEva
 import { SignInWaitsAndSessionStamps1796412951142 } from "./migrations/1796412951142-SignInWaitsAndSessionStamps.js";
 import { PhotoUploadUsage1796412986381 } from "./migrations/1796412986381-PhotoUploadUsage.js";
 import { ApiKeys1796424839722 } from "./migrations/1796424839722-ApiKeys.js";
+import { Webhooks1796425164411 } from "./migrations/1796425164411-Webhooks.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -42,4 +43,5 @@ export const migrations = [
   SignInWaitsAndSessionStamps1796412951142,
   PhotoUploadUsage1796412986381,
   ApiKeys1796424839722,
+  Webhooks1796425164411,
 ];

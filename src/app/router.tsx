@@ -107,6 +107,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 page("admin/policy", () => import("./routes/admin/policy")),
                 page("admin/emails", () => import("./routes/admin/emails")),
                 page("admin/integrations", () => import("./routes/admin/integrations")),
+                page("admin/webhooks", () => import("./routes/admin/webhooks")),
               ],
             ),
           ],

@@ -92,6 +92,13 @@ export const outboxKeys = {
   list: <F extends object>(filters: F) => [...outboxKeys.lists(), filters] as const,
 };
 
+/** The landlord's webhook endpoints (GET /api/webhooks) and each one's deliveries. */
+export const webhookKeys = {
+  all: ["webhooks"] as const,
+  lists: () => [...webhookKeys.all, "list"] as const,
+  deliveries: (endpointId: number, page: number) => [...webhookKeys.all, "deliveries", endpointId, page] as const,
+};
+
 export const userKeys = {
   all: ["users"] as const,
   lists: () => [...userKeys.all, "list"] as const,

@@ -120,6 +120,14 @@ const ROWS: Record<string, Row> = {
   "POST /api/v1/cases":                                         [ 401,  401,  401,  401,  401,  401,  401,  401],
   "POST /api/v1/cases/:id/readings":                            [ 401,  401,  401,  401,  401,  401,  401,  401],
   "GET /api/v1/work-orders":                                    [ 401,  401,  401,  401,  401,  401,  401,  401],
+  "GET /api/webhooks":                                          [ 401,  403,  403,  403,  403, "ok", "ok",  403],
+  "POST /api/webhooks":                                         [ 401,  403,  403,  403,  403, "ok", "ok",  403],
+  "PATCH /api/webhooks/:id":                                    [ 401,  403,  403,  403,  403, "ok",  404,  403],
+  "DELETE /api/webhooks/:id":                                   [ 401,  403,  403,  403,  403, "ok",  404,  403],
+  "POST /api/webhooks/:id/secret":                              [ 401,  403,  403,  403,  403, "ok",  404,  403],
+  "POST /api/webhooks/:id/test":                                [ 401,  403,  403,  403,  403, "ok",  404,  403],
+  "GET /api/webhooks/:id/deliveries":                           [ 401,  403,  403,  403,  403, "ok",  404,  403],
+  "POST /api/webhooks/:id/deliveries/:deliveryId/resend":       [ 401,  403,  403,  403,  403, "ok",  404,  403],
 };
 
 /** "METHOD /path" → the expected answer per actor. */

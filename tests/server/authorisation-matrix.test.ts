@@ -20,6 +20,7 @@ const LAST = [
   "POST /api/auth/invitations/:userId/resend",
   "POST /api/auth/invitations/:userId/cancel",
   "DELETE /api/properties/:id/rooms/:roomId",
+  "DELETE /api/webhooks/:id",
   "POST /api/auth/logout",
 ];
 
@@ -51,6 +52,7 @@ const BODIES: Record<string, (actor: Actor) => object> = {
   "POST /api/properties/:id/rooms": () => ({ name: "Landing", kind: "other" }),
   "PATCH /api/properties/:id/rooms/:roomId": () => ({ name: "Box room" }),
   "PATCH /api/users/:id": () => ({ name: "Test maintenance" }),
+  "PATCH /api/webhooks/:id": () => ({ description: "Housing system" }),
 };
 
 let t: TestApp;
@@ -125,6 +127,11 @@ beforeAll(async () => {
   const apiKey = await admin.post("/api/integrations/api-keys", { name: "Matrix key", scopes: ["homes:read"] }).expect(201);
   const token = /\/invitation\/([A-Za-z0-9_-]{43})/.exec((await t.mail.lastTo(invitee)).raw)?.[1];
   if (!token) throw new Error("no invitation link in the e-mail");
+  // A webhook endpoint (nothing listens at its address: deliveries to it just fail) with one delivery.
+  const hook = await admin
+    .post("/api/webhooks", { url: "http://127.0.0.1:9/dewline-events", eventTypes: ["case.created"] })
+    .expect(201);
+  const hookDelivery = await admin.post(`/api/webhooks/${hook.body.endpoint.id}/test`).expect(202);
 
   Object.assign(ids, {
     "/api/cases/:id": caseId,
@@ -144,6 +151,8 @@ beforeAll(async () => {
     ":userId": ((await t.ctx.dataSource.query("SELECT id FROM users WHERE email = ?", [invitee])) as { id: number }[])[0]!.id,
     ":token": token,
     ":keyId": apiKey.body.id,
+    "/api/webhooks/:id": hook.body.endpoint.id,
+    ":deliveryId": hookDelivery.body.id,
     officerId: landlord.officer.id,
     maintenanceId: landlord.maintenance.id,
     slotDate: workingDaysAhead(12)[0]!,

@@ -32,6 +32,8 @@ import {
   workOrderListQuerySchema,
   workOrderPatchSchema,
 } from "../works/works.schemas.js";
+import { webhookEndpointPatchSchema, webhookEndpointSchema } from "../../../src/lib/schemas/webhooks.js";
+import { webhookDeliveryListQuerySchema } from "../webhooks/webhooks.schemas.js";
 
 export interface RequestSchemas {
   body?: z.ZodType | readonly z.ZodType[];
@@ -82,6 +84,9 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "POST /api/v1/cases": { body: staffCaseSchema },
   "POST /api/v1/cases/:id/readings": { body: manualReadingsSchema },
   "GET /api/v1/work-orders": { query: workOrderListQuerySchema },
+  "POST /api/webhooks": { body: webhookEndpointSchema },
+  "PATCH /api/webhooks/:id": { body: webhookEndpointPatchSchema },
+  "GET /api/webhooks/:id/deliveries": { query: webhookDeliveryListQuerySchema },
 };
 
 export const keyOf = (e: Pick<Endpoint, "method" | "path">) => `${e.method} ${e.path}`;

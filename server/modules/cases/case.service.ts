@@ -20,6 +20,7 @@ import type { TenancyService } from "../tenancies/tenancy.service.js";
 import type { UserService } from "../users/user.service.js";
 import { CaseEvent } from "./case-event.entity.js";
 import { asCaseEvent, type CaseEventOf, type CaseEventType, type NewCaseEvent } from "./case-events.js";
+import type { CaseEventListener, NoticedCaseEvent } from "./case-event-listener.js";
 import { Case } from "./case.entity.js";
 import type { CasePatch } from "./cases.schemas.js";
 import type { Clock } from "../../lib/clock.js";
@@ -100,6 +101,33 @@ export class CaseService implements CaseEmailTimeline {
     this.emergencyPhones = source;
   }
 
+  /** Who is told about case events in their own transaction (webhooks, wired in createServices). */
+  private eventListener: CaseEventListener | null = null;
+  useEventListener(listener: CaseEventListener): void {
+    this.eventListener = listener;
+  }
+
+  /** Tells the listener, if it wants this kind, in the caller's transaction (after the case row's lock, so the same lock order). */
+  private async notify(m: EntityManager, caseId: number, event: NoticedCaseEvent, occurredAt: Date): Promise<void> {
+    if (!this.eventListener?.wants(event.type)) return;
+    const c = await m.getRepository(Case).findOne({ where: { id: caseId }, relations: { property: true } });
+    if (!c) return;
+    await this.eventListener.caseEventRecorded(m, {
+      event,
+      occurredAt,
+      case: {
+        id: c.id,
+        organisationId: c.organisationId,
+        reference: c.reference,
+        // A status change's event is written before the row's status is stored.
+        status: event.type === "status-changed" ? event.after.status : c.status,
+        hazardClass: c.hazardClass,
+        propertyId: c.propertyId,
+        uprn: c.property?.uprn ?? null,
+      },
+    });
+  }
+
   /**
    * Writes a CaseEvent in the caller's transaction. Every change to a case goes through here, so
    * this is also where the case's triage figures are marked stale (see TriageService).
@@ -114,6 +142,7 @@ export class CaseService implements CaseEmailTimeline {
     // The case row first, then its event: the same lock order everywhere (an event's foreign key
     // check takes a shared lock on the case row; taking the exclusive lock second would deadlock).
     await this.markStale(m, { caseIds: [e.caseId] });
+    const createdAt = this.clock.now();
     const saved = await m.getRepository(CaseEvent).save(
       // created_at from the clock, not the column default: rules compare it with times the clock set (e.g. works done).
       m.getRepository(CaseEvent).create({
@@ -122,9 +151,10 @@ export class CaseService implements CaseEmailTimeline {
         type: e.type,
         before,
         after: e.after as Record<string, unknown>,
-        createdAt: this.clock.now(),
+        createdAt,
       }),
     );
+    await this.notify(m, e.caseId, e, createdAt);
     return Number(saved.id);
   }
 
@@ -355,6 +385,16 @@ export class CaseService implements CaseEmailTimeline {
       const time = (d: Date | null) => (d === null ? null : new Date(d).getTime());
       if (time(row.triage_due_at) !== time(seen.triageDueAt) || time(row.updated_at) !== seen.updatedAt.getTime()) return false;
       await m.getRepository(Case).update(caseId, { ...figures, updatedAt: () => "updated_at" } as unknown as Partial<Case>);
+      // The next deadline has passed undone: the listener hears of it (it keeps it to once per case and stage).
+      const now = this.clock.now();
+      if (figures.nextStage && figures.nextDueAt && figures.nextDueAt.getTime() < now.getTime()) {
+        await this.notify(
+          m,
+          caseId,
+          { type: "deadline-missed", after: { stage: figures.nextStage, dueAt: figures.nextDueAt.toISOString() } },
+          now,
+        );
+      }
       return true;
     });
   }

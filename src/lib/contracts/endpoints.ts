@@ -18,6 +18,13 @@ import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse
 import { conversationResponse, messageSentResponse, readMarkResponse, unreadMessagesResponse } from "./conversation.js";
 import { evaluationResponse } from "./evaluation.js";
 import { outboxItem, outboxPageResponse } from "./mail.js";
+import {
+  webhookDeliveryPageResponse,
+  webhookDeliveryResponse,
+  webhookEndpointListResponse,
+  webhookEndpointResponse,
+  webhookSecretResponse,
+} from "./webhooks.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
 import { apiKeyAuditResponse, apiKeyCreatedResponse, apiKeyListResponse, apiKeyResponse, type ApiScope } from "./integrations.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
@@ -295,6 +302,39 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/v1/cases", { apiKey: "cases:write" }, "Log a report for a home, from another system", caseResponse, 201),
   e("POST", "/api/v1/cases/:id/readings", { apiKey: "cases:write" }, "Add readings to a case", readingsAddedResponse, 201),
   e("GET", "/api/v1/work-orders", { apiKey: "works:read" }, "Work orders, filtered and sorted", workOrderPageResponse),
+  e("GET", "/api/webhooks", ["admin"], "The landlord's webhook endpoints (never their secrets)", webhookEndpointListResponse),
+  e(
+    "POST",
+    "/api/webhooks",
+    ["admin"],
+    "Register an endpoint for case events; its signing secret is answered this once",
+    webhookSecretResponse,
+    201,
+  ),
+  e(
+    "PATCH",
+    "/api/webhooks/:id",
+    ["admin"],
+    "Change an endpoint's address, events or description, or switch it off or on",
+    webhookEndpointResponse,
+  ),
+  e("DELETE", "/api/webhooks/:id", ["admin"], "Remove an endpoint with its deliveries", null, 204),
+  e(
+    "POST",
+    "/api/webhooks/:id/secret",
+    ["admin"],
+    "Replace the signing secret (the old one also signs for 24 hours); answered this once",
+    webhookSecretResponse,
+  ),
+  e("POST", "/api/webhooks/:id/test", ["admin"], "Send a test event to this endpoint", webhookDeliveryResponse, 202),
+  e(
+    "GET",
+    "/api/webhooks/:id/deliveries",
+    ["admin"],
+    "The endpoint's deliveries, newest first, each with every attempt",
+    webhookDeliveryPageResponse,
+  ),
+  e("POST", "/api/webhooks/:id/deliveries/:deliveryId/resend", ["admin"], "Send a delivery again", webhookDeliveryResponse, 202),
 ];
 
 /** The scope a route of the integration API needs (undefined for session routes). */

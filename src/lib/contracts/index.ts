@@ -18,4 +18,5 @@ export * from "./works.js";
 export * from "./conversation.js";
 export * from "./mail.js";
 export * from "./integrations.js";
+export * from "./webhooks.js";
 export * from "./endpoints.js";

@@ -27,6 +27,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/admin/policy", label: "Deadline policy" },
     { to: "/admin/emails", label: "E-mails" },
     { to: "/admin/integrations", label: "Integrations" },
+    { to: "/admin/webhooks", label: "Webhooks" },
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },

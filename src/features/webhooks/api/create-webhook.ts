@@ -1,0 +1,16 @@
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { api } from "@/lib/api-client";
+import type { WebhookSecretDto } from "@/lib/contracts";
+import { webhookKeys } from "@/lib/query-keys";
+import type { WebhookEndpointInput } from "@/lib/schemas/webhooks";
+
+/** POST /api/webhooks: the new endpoint and its signing secret, answered this once. */
+export const createWebhook = (input: WebhookEndpointInput) => api.post<WebhookSecretDto>("/webhooks", input);
+
+export function useCreateWebhook() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: createWebhook,
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: webhookKeys.lists() }),
+  });
+}
