@@ -23,6 +23,8 @@ import { Property } from "../modules/properties/property.entity.js";
 import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
+import { InvitationBatch, PendingInvitation } from "../modules/auth/invitation-batch.entity.js";
+import { TenancyImport } from "../modules/tenancy-import/tenancy-import.entity.js";
 import { CaseReadMark } from "../modules/conversation/case-read-mark.entity.js";
 
 export const entities = [
@@ -52,4 +54,7 @@ export const entities = [
   Contractor,
   CaseReadMark,
   PhotoUploadUsage,
+  InvitationBatch,
+  PendingInvitation,
+  TenancyImport,
 ];
