@@ -32,6 +32,8 @@ import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
 import { ConversationService } from "./modules/conversation/conversation.service.js";
 import { WorkerPool } from "./workers/pool.js";
+import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
+import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -54,6 +56,8 @@ export interface Services {
   tenancies: TenancyService;
   users: UserService;
   conversation: ConversationService;
+  invitationBatches: InvitationBatchService;
+  tenancyImports: TenancyImportService;
 }
 
 export interface AppContext {
@@ -124,6 +128,8 @@ export function createServices(
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
   const homes = new HomeRecordService(properties, tenancies, cases, readings, users);
+  const invitationBatches = new InvitationBatchService(dataSource, auth, users, clock, config.invitationBatches);
+  const tenancyImports = new TenancyImportService(dataSource, properties, tenancies, users, invitationBatches, clock);
   return {
     assessments,
     inspections,
@@ -145,6 +151,8 @@ export function createServices(
     works,
     verification,
     conversation,
+    invitationBatches,
+    tenancyImports,
   };
 }
 

@@ -76,6 +76,8 @@ const schema = z
     SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().min(1).default(10_000),
     MAIL_RELAY_INTERVAL_MS: z.coerce.number().int().min(100).default(15_000),
     MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(20),
+    INVITATIONS_PER_BATCH: z.coerce.number().int().min(1).max(10_000).default(200),
+    INVITATION_BATCH_INTERVAL_MS: z.coerce.number().int().min(1_000).default(60_000),
     DEMO_PASSWORD: z.string().min(8, "DEMO_PASSWORD needs at least 8 characters").default("dewline-demo"),
     UPLOADS_DIR: z.string().default(path.join(projectRoot, "uploads")),
     BACKUP_DIR: z.string().default(path.join(projectRoot, "backups")),
@@ -124,6 +126,8 @@ export interface Config {
   smtpTimeouts: { connectionMs: number; greetingMs: number; socketMs: number };
   /** The outbox relay: how often it looks for due e-mails, and how many attempts before it gives up. */
   mailRelay: { intervalMs: number; maxAttempts: number };
+  /** Queued invitations (tenancy imports): at most `perBatch` released every `intervalMs`. */
+  invitationBatches: { perBatch: number; intervalMs: number };
   demoPassword: string;
   uploadsDir: string;
   /** Where `npm run backup` writes its timestamped folders. */
@@ -197,6 +201,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       socketMs: e.SMTP_SOCKET_TIMEOUT_MS,
     },
     mailRelay: { intervalMs: e.MAIL_RELAY_INTERVAL_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS },
+    invitationBatches: { perBatch: e.INVITATIONS_PER_BATCH, intervalMs: e.INVITATION_BATCH_INTERVAL_MS },
     demoPassword: e.DEMO_PASSWORD,
     uploadsDir: e.UPLOADS_DIR,
     backupsDir: e.BACKUP_DIR,

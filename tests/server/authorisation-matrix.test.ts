@@ -20,6 +20,7 @@ const LAST = [
   "POST /api/auth/invitations/:userId/resend",
   "POST /api/auth/invitations/:userId/cancel",
   "DELETE /api/properties/:id/rooms/:roomId",
+  "POST /api/tenancy-imports/:id/invitations/cancel",
   "POST /api/auth/logout",
 ];
 
@@ -125,6 +126,18 @@ beforeAll(async () => {
   const token = /\/invitation\/([A-Za-z0-9_-]{43})/.exec((await t.mail.lastTo(invitee)).raw)?.[1];
   if (!token) throw new Error("no invitation link in the e-mail");
 
+  // A tenancy import that queued one invitation (its batch is paused, resumed and cancelled last).
+  const uprn = String(100_000_000_000 + caseId);
+  await makeProperty(ds, landlord.org, { uprn });
+  const tenancyFile = Buffer.from(
+    `Tenancy ref,UPRN,Name,Email,Start date\nT-${caseId},${uprn},Ten Ant,ten.${caseId}@test.example,2025-01-01\n`,
+  );
+  const tenancyImport = await admin.agent
+    .post("/api/tenancy-imports")
+    .set("X-CSRF-Token", admin.csrf)
+    .attach("file", tenancyFile, "tenancies.csv")
+    .expect(201);
+
   Object.assign(ids, {
     "/api/cases/:id": caseId,
     "/api/properties/:id": landlord.home.id,
@@ -137,6 +150,7 @@ beforeAll(async () => {
       )) as { id: number }[]
     )[0]!.id,
     "/api/users/:id": landlord.maintenance.id,
+    "/api/tenancy-imports/:id": tenancyImport.body.id,
     ":importId": imported.body.importId,
     ":roomId": spare.body.id,
     // The invitation's reply names no user (it must read the same for an address another landlord holds).

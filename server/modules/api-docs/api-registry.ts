@@ -22,6 +22,7 @@ import { propertyListQuerySchema } from "../properties/properties.schemas.js";
 import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
 import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
+import { tenancyImportFieldsSchema } from "../tenancy-import/tenancy-import.schemas.js";
 import {
   bookingResponseSchema,
   contractorSchema,
@@ -73,6 +74,7 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "PATCH /api/properties/:id/rooms/:roomId": { body: roomPatchSchema },
   "GET /api/users": { query: userListQuerySchema },
   "PATCH /api/users/:id": { body: userUpdateSchema },
+  "POST /api/tenancy-imports": { body: tenancyImportFieldsSchema },
 };
 
 export const keyOf = (e: Pick<Endpoint, "method" | "path">) => `${e.method} ${e.path}`;

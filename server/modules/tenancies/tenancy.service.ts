@@ -20,7 +20,7 @@ export class TenancyService {
    * Today's date in London, against which tenancies' start and end dates (calendar dates, inclusive)
    * are read: a tenancy ending on the 31st runs until midnight London time, whatever the UTC date.
    */
-  private today(): string {
+  today(): string {
     return localDate(this.clock.now());
   }
 

@@ -18,3 +18,4 @@ export * from "./works.js";
 export * from "./conversation.js";
 export * from "./mail.js";
 export * from "./endpoints.js";
+export * from "./tenancy-import.js";
