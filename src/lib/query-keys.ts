@@ -92,6 +92,14 @@ export const outboxKeys = {
   list: <F extends object>(filters: F) => [...outboxKeys.lists(), filters] as const,
 };
 
+/** The landlord's tenancy imports and their queued invitations (GET /api/tenancy-imports). */
+export const tenancyImportKeys = {
+  all: ["tenancy-imports"] as const,
+  lists: () => [...tenancyImportKeys.all, "list"] as const,
+  preview: () => [...tenancyImportKeys.all, "preview"] as const,
+  create: () => [...tenancyImportKeys.all, "create"] as const,
+};
+
 export const userKeys = {
   all: ["users"] as const,
   lists: () => [...userKeys.all, "list"] as const,
