@@ -305,6 +305,28 @@ describe("queued invitations", () => {
     expect(await ds.getRepository(PendingInvitation).countBy({ organisationId: theirs.org.id })).toBe(0);
   });
 
+  it("are picked up by a new server process after a restart, none lost and none sent twice", async () => {
+    const ds = t.ctx.dataSource;
+    const lines = ["Ref,UPRN,Name,Email,Start"];
+    for (let i = 1; i <= 3; i++) lines.push(`R-${i},${uprn(3)},Re ${i},${mail(`restart${i}`)},2024-01-01`);
+    const res = await upload(admin, "/api/tenancy-imports", Buffer.from(lines.join("\n")), "restart.csv").expect(201);
+    expect(res.body.invitations).toMatchObject({ total: 3, pending: 3 });
+    // Another process on the same database, as after a restart: the queue is in MariaDB, not in memory.
+    const again = await createTestApp({ INVITATIONS_PER_BATCH: String(PER_BATCH) });
+    try {
+      for (let tick = 0; tick < 5 && (await batchOf(res.body.id)).pending > 0; tick++) {
+        await again.ctx.services.invitationBatches.releaseDue();
+      }
+      await again.mail.settle();
+    } finally {
+      await again.close();
+    }
+    expect(await batchOf(res.body.id)).toMatchObject({ sent: 3, pending: 0, state: "done" });
+    for (let i = 1; i <= 3; i++) {
+      expect(await ds.getRepository(OutboxEmail).countBy({ toAddress: mail(`restart${i}`), template: "invitation" })).toBe(1);
+    }
+  });
+
   it("shows another landlord none of it", async () => {
     const list = await otherAdmin.get("/api/tenancy-imports").expect(200);
     expect(list.body.items).toEqual([]);
