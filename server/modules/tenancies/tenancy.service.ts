@@ -95,12 +95,14 @@ export class TenancyService {
     return out;
   }
 
-  /** A tenancy from the landlord's file, with its reference (inside the caller's transaction). */
+  /** Tenancies from the landlord's file, with their references (inside the caller's transaction), 1 000 rows a statement. */
   async createImported(
     m: EntityManager,
-    t: ImportedTenancy & { organisationId: number; reference: string; tenantUserId: number },
+    rows: readonly (ImportedTenancy & { organisationId: number; reference: string; tenantUserId: number })[],
   ) {
-    await m.getRepository(Tenancy).insert({ ...t, householdNotes: null });
+    for (let i = 0; i < rows.length; i += 1000) {
+      await m.getRepository(Tenancy).insert(rows.slice(i, i + 1000).map((t) => ({ ...t, householdNotes: null })));
+    }
   }
 
   /** Changes a referenced tenancy's dates or consented details (inside the caller's transaction). */

@@ -38,6 +38,8 @@ interface ImportState {
   /** Addresses invited before this import (queued or sent). */
   queuedBefore: Set<string>;
   toInvite: QueuedInvitation[];
+  /** New tenancies, inserted together once every row is read. */
+  newTenancies: (ImportedTenancy & { organisationId: number; reference: string; tenantUserId: number })[];
 }
 
 /**
@@ -139,8 +141,10 @@ export class TenancyImportService {
         contacts: await this.users.contactsByEmail(m, emails),
         queuedBefore: await this.invitations.alreadyQueued(m, organisationId, emails),
         toInvite: [],
+        newTenancies: [],
       };
       for (const v of valid) report.push(await this.applyRow(m, state, v));
+      await this.tenancies.createImported(m, state.newTenancies);
       report.sort((a, b) => a.row - b.row);
       const batchId = await this.invitations.queue(m, actor, state.toInvite);
       const count = (o: TenancyRowReport["outcome"]) => report.filter((r) => r.outcome === o).length;
@@ -250,7 +254,7 @@ export class TenancyImportService {
       householdVulnerability: v.vulnerability,
     };
     if (!current) {
-      await this.tenancies.createImported(m, { ...fields, organisationId, reference: v.reference, tenantUserId: account.id });
+      s.newTenancies.push({ ...fields, organisationId, reference: v.reference, tenantUserId: account.id });
     } else {
       const patch: Partial<typeof fields> = {};
       const labels = {
