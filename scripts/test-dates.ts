@@ -84,6 +84,7 @@ const DATE_SENSITIVE = [
   "tests/server/seed.test.ts",
   "tests/server/escalation.test.ts",
   "tests/server/status-follows-work.test.ts",
+  "tests/server/tenancy-end.test.ts",
 ];
 
 interface JsonReport {

@@ -34,6 +34,8 @@ import { ConversationService } from "./modules/conversation/conversation.service
 import { WorkerPool } from "./workers/pool.js";
 import { ApiKeyService } from "./modules/integrations/api-key.service.js";
 import { WebhookService } from "./modules/webhooks/webhook.service.js";
+import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
+import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -58,6 +60,8 @@ export interface Services {
   conversation: ConversationService;
   apiKeys: ApiKeyService;
   webhooks: WebhookService;
+  invitationBatches: InvitationBatchService;
+  tenancyImports: TenancyImportService;
 }
 
 export interface AppContext {
@@ -136,6 +140,8 @@ export function createServices(
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
   const homes = new HomeRecordService(properties, tenancies, cases, readings, users);
   const apiKeys = new ApiKeyService(dataSource, users, clock, logger);
+  const invitationBatches = new InvitationBatchService(dataSource, auth, users, clock, config.invitationBatches);
+  const tenancyImports = new TenancyImportService(dataSource, properties, tenancies, users, invitationBatches, clock);
   return {
     assessments,
     inspections,
@@ -159,6 +165,8 @@ export function createServices(
     conversation,
     apiKeys,
     webhooks,
+    invitationBatches,
+    tenancyImports,
   };
 }
 

@@ -28,6 +28,7 @@ import { createPsychrometricsRouter } from "./modules/psychrometrics/psychrometr
 import { createMyHomeRouter } from "./modules/tenancies/tenancies.routes.js";
 import { createTriageRouter } from "./modules/triage/triage.routes.js";
 import { createStaffRouter, createUsersRouter } from "./modules/users/users.routes.js";
+import { createTenancyImportRouter } from "./modules/tenancy-import/tenancy-import.routes.js";
 import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
 import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
@@ -179,6 +180,14 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/outbox", createOutboxRouter({ mail: services.mail }));
   api.use("/integrations/api-keys", createApiKeysRouter({ keys: services.apiKeys }));
   api.use("/webhooks", createWebhooksRouter({ webhooks: services.webhooks }));
+  api.use(
+    "/tenancy-imports",
+    createTenancyImportRouter({
+      imports: services.tenancyImports,
+      batches: services.invitationBatches,
+      incomingDir: incomingDir(config.uploadsDir),
+    }),
+  );
   api.use(createApiDocsRouter({ appUrl: config.appUrl }));
   api.use(apiNotFound);
 

@@ -4,9 +4,11 @@ import type { AppContext } from "./app-context.js";
 import { startDigestScheduler } from "./modules/digest/digest.scheduler.js";
 import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
 import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
+import { startInvitationBatches } from "./modules/auth/invitation-batch.ticker.js";
 
 /**
- * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest and the end-of-monitoring reminders;
+ * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
+ * reminders and the release of queued invitations (tenancy imports);
  * returns a function that stops them and resolves once any job already running has finished (so
  * shutdown can close the database after it, not under it).
  */
@@ -18,7 +20,17 @@ export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" 
   const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger);
   const digestScheduler = startDigestScheduler(ctx.services, ctx.logger, { clock: () => ctx.clock.now() });
   const stopReminders = startMonitoringReminders(ctx.services.verification, ctx.logger);
+  const stopInvitations = startInvitationBatches(ctx.services.invitationBatches, ctx.logger, {
+    everyMs: ctx.config.invitationBatches.intervalMs,
+  });
   return async () => {
-    await Promise.all([stopReminders(), stopTriageSweeper(), digestScheduler.stop(), stopMailRelay(), stopWebhookRelay()]);
+    await Promise.all([
+      stopInvitations(),
+      stopReminders(),
+      stopTriageSweeper(),
+      digestScheduler.stop(),
+      stopMailRelay(),
+      stopWebhookRelay(),
+    ]);
   };
 }

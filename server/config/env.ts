@@ -79,6 +79,8 @@ const schema = z
     WEBHOOK_RELAY_INTERVAL_MS: z.coerce.number().int().min(100).default(5_000),
     WEBHOOK_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(10_000),
     WEBHOOK_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(12),
+    INVITATIONS_PER_BATCH: z.coerce.number().int().min(1).max(10_000).default(200),
+    INVITATION_BATCH_INTERVAL_MS: z.coerce.number().int().min(1_000).default(60_000),
     DEMO_PASSWORD: z.string().min(8, "DEMO_PASSWORD needs at least 8 characters").default("dewline-demo"),
     UPLOADS_DIR: z.string().default(path.join(projectRoot, "uploads")),
     BACKUP_DIR: z.string().default(path.join(projectRoot, "backups")),
@@ -130,6 +132,8 @@ export interface Config {
   mailRelay: { intervalMs: number; maxAttempts: number };
   /** Webhook deliveries: how often the relay looks for due ones, each HTTP call's timeout, tries before "failed". */
   webhooks: { intervalMs: number; timeoutMs: number; maxAttempts: number };
+  /** Queued invitations (tenancy imports): at most `perBatch` released every `intervalMs`. */
+  invitationBatches: { perBatch: number; intervalMs: number };
   demoPassword: string;
   uploadsDir: string;
   /** Where `npm run backup` writes its timestamped folders. */
@@ -210,6 +214,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       timeoutMs: e.WEBHOOK_TIMEOUT_MS,
       maxAttempts: e.WEBHOOK_MAX_ATTEMPTS,
     },
+    invitationBatches: { perBatch: e.INVITATIONS_PER_BATCH, intervalMs: e.INVITATION_BATCH_INTERVAL_MS },
     demoPassword: e.DEMO_PASSWORD,
     uploadsDir: e.UPLOADS_DIR,
     backupsDir: e.BACKUP_DIR,

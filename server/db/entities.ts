@@ -25,6 +25,8 @@ import { Property } from "../modules/properties/property.entity.js";
 import { Room } from "../modules/properties/room.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
+import { InvitationBatch, PendingInvitation } from "../modules/auth/invitation-batch.entity.js";
+import { TenancyImport } from "../modules/tenancy-import/tenancy-import.entity.js";
 import { CaseReadMark } from "../modules/conversation/case-read-mark.entity.js";
 import { WebhookAttempt } from "../modules/webhooks/webhook-attempt.entity.js";
 import { WebhookDelivery } from "../modules/webhooks/webhook-delivery.entity.js";
@@ -64,4 +66,7 @@ export const entities = [
   WebhookEvent,
   WebhookDelivery,
   WebhookAttempt,
+  InvitationBatch,
+  PendingInvitation,
+  TenancyImport,
 ];

@@ -19,6 +19,7 @@ import { OutboxRelay1796412321162 } from "./migrations/1796412321162-OutboxRelay
 import { RoomEvaluations1796412626434 } from "./migrations/1796412626434-RoomEvaluations.js";
 import { SignInWaitsAndSessionStamps1796412951142 } from "./migrations/1796412951142-SignInWaitsAndSessionStamps.js";
 import { PhotoUploadUsage1796412986381 } from "./migrations/1796412986381-PhotoUploadUsage.js";
+import { TenancyImport1796424829707 } from "./migrations/1796424829707-TenancyImport.js";
 import { ApiKeys1796424839722 } from "./migrations/1796424839722-ApiKeys.js";
 import { Webhooks1796425164411 } from "./migrations/1796425164411-Webhooks.js";
 
@@ -42,6 +43,7 @@ export const migrations = [
   RoomEvaluations1796412626434,
   SignInWaitsAndSessionStamps1796412951142,
   PhotoUploadUsage1796412986381,
+  TenancyImport1796424829707,
   ApiKeys1796424839722,
   Webhooks1796425164411,
 ];

@@ -108,6 +108,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 page("admin/emails", () => import("./routes/admin/emails")),
                 page("admin/integrations", () => import("./routes/admin/integrations")),
                 page("admin/webhooks", () => import("./routes/admin/webhooks")),
+                page("admin/tenancy-import", () => import("./routes/admin/tenancy-import")),
               ],
             ),
           ],

@@ -99,6 +99,14 @@ export const webhookKeys = {
   deliveries: (endpointId: number, page: number) => [...webhookKeys.all, "deliveries", endpointId, page] as const,
 };
 
+/** The landlord's tenancy imports and their queued invitations (GET /api/tenancy-imports). */
+export const tenancyImportKeys = {
+  all: ["tenancy-imports"] as const,
+  lists: () => [...tenancyImportKeys.all, "list"] as const,
+  preview: () => [...tenancyImportKeys.all, "preview"] as const,
+  create: () => [...tenancyImportKeys.all, "create"] as const,
+};
+
 export const userKeys = {
   all: ["users"] as const,
   lists: () => [...userKeys.all, "list"] as const,

@@ -21,6 +21,7 @@ const LAST = [
   "POST /api/auth/invitations/:userId/cancel",
   "DELETE /api/properties/:id/rooms/:roomId",
   "DELETE /api/webhooks/:id",
+  "POST /api/tenancy-imports/:id/invitations/cancel",
   "POST /api/auth/logout",
 ];
 
@@ -133,6 +134,18 @@ beforeAll(async () => {
     .expect(201);
   const hookDelivery = await admin.post(`/api/webhooks/${hook.body.endpoint.id}/test`).expect(202);
 
+  // A tenancy import that queued one invitation (its batch is paused, resumed and cancelled last).
+  const uprn = String(100_000_000_000 + caseId);
+  await makeProperty(ds, landlord.org, { uprn });
+  const tenancyFile = Buffer.from(
+    `Tenancy ref,UPRN,Name,Email,Start date\nT-${caseId},${uprn},Ten Ant,ten.${caseId}@test.example,2025-01-01\n`,
+  );
+  const tenancyImport = await admin.agent
+    .post("/api/tenancy-imports")
+    .set("X-CSRF-Token", admin.csrf)
+    .attach("file", tenancyFile, "tenancies.csv")
+    .expect(201);
+
   Object.assign(ids, {
     "/api/cases/:id": caseId,
     "/api/properties/:id": landlord.home.id,
@@ -145,6 +158,7 @@ beforeAll(async () => {
       )) as { id: number }[]
     )[0]!.id,
     "/api/users/:id": landlord.maintenance.id,
+    "/api/tenancy-imports/:id": tenancyImport.body.id,
     ":importId": imported.body.importId,
     ":roomId": spare.body.id,
     // The invitation's reply names no user (it must read the same for an address another landlord holds).

@@ -6,6 +6,7 @@ import { createAppContext, type AppContext } from "../../server/app-context.js";
 import { loadConfig, type Config } from "../../server/config/env.js";
 import { startMailCatcher, type MailCatcher } from "./mail-catcher.js";
 import { testClock } from "./test-clock.js";
+import type { Clock } from "../../server/lib/clock.js";
 
 export interface TestApp {
   ctx: AppContext;
@@ -14,11 +15,16 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-export async function createTestApp(env: Record<string, string> = {}, adjust?: (c: Config) => Config): Promise<TestApp> {
+/** `clock`: the app's "now" (a test that moves time hands in its own, built on the test clock). */
+export async function createTestApp(
+  env: Record<string, string> = {},
+  adjust?: (c: Config) => Config,
+  clock: Clock = testClock,
+): Promise<TestApp> {
   const mail = await startMailCatcher();
   let config = loadConfig({ ...process.env, SMTP_PORT: String(mail.port), APP_URL: "http://dewline.test", ...env });
   if (adjust) config = adjust(config);
-  const ctx = await createAppContext(config, { clock: testClock });
+  const ctx = await createAppContext(config, { clock });
   const app = createApp(ctx);
   // E-mails go out after the response (the outbox relay): lastTo() first waits for the relay to settle.
   // Reset and unlock links are queued after the reply, so wait for that work first.

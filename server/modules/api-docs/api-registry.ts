@@ -24,6 +24,7 @@ import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/
 import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
 import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
 import { homeUpsertSchema } from "../integrations/integrations.schemas.js";
+import { tenancyImportFieldsSchema } from "../tenancy-import/tenancy-import.schemas.js";
 import {
   bookingResponseSchema,
   contractorSchema,
@@ -87,6 +88,7 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "POST /api/webhooks": { body: webhookEndpointSchema },
   "PATCH /api/webhooks/:id": { body: webhookEndpointPatchSchema },
   "GET /api/webhooks/:id/deliveries": { query: webhookDeliveryListQuerySchema },
+  "POST /api/tenancy-imports": { body: tenancyImportFieldsSchema },
 };
 
 export const keyOf = (e: Pick<Endpoint, "method" | "path">) => `${e.method} ${e.path}`;

@@ -223,6 +223,26 @@ export class AuthService {
     });
   }
 
+  /**
+   * A queued invitation's turn (InvitationBatchService): a new link for the invited account, or for an
+   * address another landlord's account uses, the same "already in use" e-mail a single invitation
+   * sends. In the caller's transaction; returns the sender to run after commit.
+   */
+  async releaseQueuedInvitation(m: EntityManager, inviter: Actor, userId: number | null, email: string) {
+    if (userId === null) return this.tellAddressInUse(m, inviter, email);
+    const { token, hash } = newToken();
+    const expiresAt = new Date(this.clock.now().getTime() + INVITATION_HOURS * 3_600_000);
+    const user = await this.users.person(userId, m);
+    await this.users.recordAudit(m, {
+      organisationId: inviter.organisationId,
+      actorId: inviter.id,
+      targetId: user.id,
+      action: "invited",
+      to: user.role,
+    });
+    return this.sendInvitation(m, inviter, user, hash, token, expiresAt);
+  }
+
   /** Stores the new link (replacing any earlier one) and queues the e-mail: staff and tenants get their own wording. */
   private async sendInvitation(m: EntityManager, actor: Actor, user: Person, hash: string, token: string, expiresAt: Date) {
     await this.saveToken(m, user.id, "invitation", hash, expiresAt, actor.id);

@@ -593,19 +593,27 @@ export class CaseService implements CaseEmailTimeline {
   }
 
   /**
-   * The case if the actor may see it: staff of its landlord, or the tenant it is about.
-   * Anything else is a 404, so a case's existence is never revealed.
+   * The case if the actor may see it: staff of its landlord, or the tenant it is about while their
+   * tenancy of its home runs (TenancyService decides, by the clock). Anything else is a 404, so a
+   * case's existence is never revealed.
    */
   async getForActor(actor: Actor, id: number, m: EntityManager = this.dataSource.manager): Promise<Case> {
     const c = await m.getRepository(Case).findOne({ where: { id }, relations: { rooms: true, property: { rooms: true } } });
-    const allowed = c && (isStaff(actor) ? c.organisationId === actor.organisationId : c.tenantUserId === actor.id);
+    const allowed =
+      c &&
+      (isStaff(actor)
+        ? c.organisationId === actor.organisationId
+        : c.tenantUserId === actor.id && (await this.tenancies.livesThereNow(actor.id, c.propertyId, m)));
     if (!c || !allowed) throw new NotFoundError("No such case.");
     return c;
   }
 
+  /** The tenant's own cases at the homes they have a tenancy of today. */
   async listForTenant(actor: Actor): Promise<Case[]> {
+    const homes = await this.tenancies.currentHomesOf(actor.id);
+    if (homes.length === 0) return [];
     return this.dataSource.getRepository(Case).find({
-      where: { tenantUserId: actor.id },
+      where: { tenantUserId: actor.id, propertyId: In(homes) },
       relations: { property: true, rooms: true },
       order: { createdAt: "DESC" },
       take: 200,

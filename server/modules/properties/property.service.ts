@@ -108,6 +108,23 @@ export class PropertyService {
     return home?.id ?? null;
   }
 
+  /** The landlord's homes with these UPRNs: UPRN → home id (a tenancy import matches its rows by them). */
+  async idsByUprn(organisationId: number, uprns: readonly string[], m: EntityManager = this.dataSource.manager) {
+    const out = new Map<string, number>();
+    for (let i = 0; i < uprns.length; i += 1000) {
+      const chunk = uprns.slice(i, i + 1000);
+      if (chunk.length === 0) continue;
+      const rows = await m
+        .getRepository(Property)
+        .createQueryBuilder("p")
+        .select(["p.id", "p.uprn"])
+        .where("p.organisation_id = :organisationId AND p.uprn IN (:...chunk)", { organisationId, chunk })
+        .getMany();
+      for (const p of rows) out.set(p.uprn!, p.id);
+    }
+    return out;
+  }
+
   /** The tenant's home with its rooms (TenancyService has decided it is theirs). */
   async homeWithRooms(id: number): Promise<Property> {
     return this.dataSource.getRepository(Property).findOneOrFail({ where: { id }, relations: { rooms: true } });

@@ -6,6 +6,7 @@ import { User } from "../users/user.entity.js";
 @Entity({ name: "tenancies" })
 @Index("idx_tenancies_tenant", ["tenantUserId", "endDate"])
 @Index("idx_tenancies_property", ["propertyId", "endDate"])
+@Index("uq_tenancies_org_reference", ["organisationId", "reference"], { unique: true })
 export class Tenancy {
   @PrimaryGeneratedColumn({ type: "int", unsigned: true })
   id: number;
@@ -33,6 +34,23 @@ export class Tenancy {
 
   @Column({ name: "household_notes", type: "text", nullable: true })
   householdNotes: string | null;
+
+  /**
+   * The landlord's own tenancy reference (from its housing management system), unique per landlord;
+   * `organisation_id` is set with it (tenancies started by an invitation have neither).
+   */
+  @Column({ name: "organisation_id", type: "int", unsigned: true, nullable: true })
+  organisationId: number | null;
+
+  @Column({ type: "varchar", length: 64, nullable: true })
+  reference: string | null;
+
+  /** Kept only where the landlord holds the household's consent (the import checks it). Staff only. */
+  @Column({ name: "access_needs", type: "text", nullable: true })
+  accessNeeds: string | null;
+
+  @Column({ name: "household_vulnerability", type: "text", nullable: true })
+  householdVulnerability: string | null;
 
   @CreateDateColumn({ name: "created_at", type: "datetime", precision: 3, default: () => "CURRENT_TIMESTAMP(3)" })
   createdAt: Date;

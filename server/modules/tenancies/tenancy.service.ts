@@ -1,9 +1,13 @@
-import { IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
+import { In, IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
+import { localDate } from "../../../src/lib/domain/working-days.js";
 import type { Clock } from "../../lib/clock.js";
 import { NotFoundError } from "../../lib/errors.js";
 import type { Actor } from "../../lib/actor.js";
 import type { Property, PropertyService } from "../properties/property.service.js";
 import { Tenancy } from "./tenancy.entity.js";
+
+/** What a landlord's tenancy file says of a tenancy. */
+export type ImportedTenancy = Pick<Tenancy, "propertyId" | "startDate" | "endDate" | "accessNeeds" | "householdVulnerability">;
 
 export class TenancyService {
   constructor(
@@ -12,9 +16,12 @@ export class TenancyService {
     private readonly clock: Clock,
   ) {}
 
-  /** Today's date (UTC), against which tenancies' start and end dates are read. */
-  private today(): string {
-    return this.clock.now().toISOString().slice(0, 10);
+  /**
+   * Today's date in London, against which tenancies' start and end dates (calendar dates, inclusive)
+   * are read: a tenancy ending on the 31st runs until midnight London time, whatever the UTC date.
+   */
+  today(): string {
+    return localDate(this.clock.now());
   }
 
   /** Starts a tenancy today (inside the caller's transaction). */
@@ -46,6 +53,61 @@ export class TenancyService {
       ],
       order: { startDate: "DESC" },
     });
+  }
+
+  /**
+   * Whether the tenant has a tenancy of the home running today. A tenant sees a home's cases only
+   * while this holds: from the day after their tenancy's end date, that home's cases are closed to them.
+   */
+  async livesThereNow(tenantUserId: number, propertyId: number, m: EntityManager = this.dataSource.manager): Promise<boolean> {
+    const d = this.today();
+    return m
+      .getRepository(Tenancy)
+      .createQueryBuilder("t")
+      .where("t.tenant_user_id = :tenantUserId AND t.property_id = :propertyId", { tenantUserId, propertyId })
+      .andWhere("t.start_date <= :today AND (t.end_date IS NULL OR t.end_date >= :today)", { today: d })
+      .getExists();
+  }
+
+  /** The homes the tenant has a tenancy of today. */
+  async currentHomesOf(tenantUserId: number): Promise<number[]> {
+    const d = this.today();
+    const rows = await this.dataSource
+      .getRepository(Tenancy)
+      .createQueryBuilder("t")
+      .select("DISTINCT t.property_id", "propertyId")
+      .where("t.tenant_user_id = :tenantUserId", { tenantUserId })
+      .andWhere("t.start_date <= :today AND (t.end_date IS NULL OR t.end_date >= :today)", { today: d })
+      .getRawMany<{ propertyId: number }>();
+    return rows.map((r) => Number(r.propertyId));
+  }
+
+  /** The landlord's tenancies with these references, locked for the caller's transaction. */
+  async byReferences(m: EntityManager, organisationId: number, references: readonly string[]): Promise<Map<string, Tenancy>> {
+    const out = new Map<string, Tenancy>();
+    for (let i = 0; i < references.length; i += 1000) {
+      const rows = await m.getRepository(Tenancy).find({
+        where: { organisationId, reference: In(references.slice(i, i + 1000)) },
+        lock: { mode: "pessimistic_write" },
+      });
+      for (const t of rows) out.set(t.reference!, t);
+    }
+    return out;
+  }
+
+  /** Tenancies from the landlord's file, with their references (inside the caller's transaction), 1 000 rows a statement. */
+  async createImported(
+    m: EntityManager,
+    rows: readonly (ImportedTenancy & { organisationId: number; reference: string; tenantUserId: number })[],
+  ) {
+    for (let i = 0; i < rows.length; i += 1000) {
+      await m.getRepository(Tenancy).insert(rows.slice(i, i + 1000).map((t) => ({ ...t, householdNotes: null })));
+    }
+  }
+
+  /** Changes a referenced tenancy's dates or consented details (inside the caller's transaction). */
+  async updateImported(m: EntityManager, id: number, patch: Partial<ImportedTenancy>): Promise<void> {
+    if (Object.keys(patch).length > 0) await m.getRepository(Tenancy).update(id, patch);
   }
 
   /** The tenant living at the home now (the latest current tenancy), or null. */

@@ -48,6 +48,13 @@ export class User {
   @Column({ type: "varchar", length: 20 })
   role: Role;
 
+  @Column({ type: "varchar", length: 40, nullable: true })
+  phone: string | null;
+
+  /** A BCP 47 language tag ("en", "cy", "pl"), lower-case primary subtag; null when not known. */
+  @Column({ name: "preferred_language", type: "varchar", length: 35, nullable: true })
+  preferredLanguage: string | null;
+
   @Column({ type: "varchar", length: 20, default: "active" })
   status: UserStatus;
 

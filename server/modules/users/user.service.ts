@@ -27,6 +27,9 @@ const personOf = (u: User): Person => ({
   organisationId: u.organisationId,
 });
 
+/** An account as a tenancy import compares it with a file's row. */
+export type ImportedContact = Person & Pick<User, "status" | "phone" | "preferredLanguage">;
+
 /** One line of an account's history, with the name of who did it. */
 export interface UserAuditRecord {
   id: number;
@@ -132,6 +135,39 @@ export class UserService {
   ): Promise<Person> {
     const repo = m.getRepository(User);
     return personOf(await repo.save(repo.create({ ...input, status: "invited", passwordHash: null })));
+  }
+
+  /** The accounts using these addresses (lower-cased), with their contact details, in the caller's transaction. */
+  async contactsByEmail(m: EntityManager, emails: readonly string[]): Promise<Map<string, ImportedContact>> {
+    const out = new Map<string, ImportedContact>();
+    for (let i = 0; i < emails.length; i += 1000) {
+      const rows = await m.getRepository(User).find({ where: { email: In(emails.slice(i, i + 1000)) } });
+      for (const u of rows)
+        out.set(u.email, { ...personOf(u), status: u.status, phone: u.phone, preferredLanguage: u.preferredLanguage });
+    }
+    return out;
+  }
+
+  /** A tenant account from a landlord's tenancy file: invited, no password, with its phone and language. */
+  async createImportedTenant(
+    m: EntityManager,
+    input: { organisationId: number; email: string; name: string; phone: string | null; preferredLanguage: string | null },
+  ): Promise<Person> {
+    // insert, not save: no read-back of the row, which a file of thousands of tenants would pay per row.
+    const result = await m.getRepository(User).insert({ ...input, role: "tenant", status: "invited", passwordHash: null });
+    const id = Number((result.identifiers[0] as { id: number }).id);
+    return { id, name: input.name, email: input.email, role: "tenant", organisationId: input.organisationId };
+  }
+
+  /** Brings an account's name, phone and language in line with the landlord's tenancy file. */
+  async updateContact(
+    m: EntityManager,
+    id: number,
+    patch: Partial<Pick<User, "name" | "phone" | "preferredLanguage">>,
+  ): Promise<void> {
+    if (Object.keys(patch).length === 0) return;
+    this.changing(id);
+    await m.getRepository(User).update(id, patch);
   }
 
   /** Sets the password hash; `activate` also makes an invited account active. */

@@ -44,6 +44,7 @@ import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
 import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
 import { staffListResponse, userHistoryResponse, userPageResponse, userResponse } from "./users.js";
+import { tenancyImportListResponse, tenancyImportPreviewResponse, tenancyImportResultResponse } from "./tenancy-import.js";
 import {
   caseWorkOrdersResponse,
   contractorListResponse,
@@ -255,6 +256,37 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/properties/:id/tenants", STAFF, "The home's tenants, current and past", homeTenantsResponse),
   e("GET", "/api/properties/:id/cases", STAFF, "The home's cases, open and closed", homeCasesResponse),
   e("GET", "/api/properties/:id/readings", STAFF, "Each room's latest readings", homeReadingsResponse),
+  e(
+    "GET",
+    "/api/tenancy-imports",
+    ["admin"],
+    "The latest tenancy imports, with their invitations' progress",
+    tenancyImportListResponse,
+  ),
+  e(
+    "POST",
+    "/api/tenancy-imports/preview",
+    ["admin"],
+    "Propose how to read a tenancy file (CSV or .xlsx)",
+    tenancyImportPreviewResponse,
+    200,
+    { multipart: true },
+  ),
+  e(
+    "POST",
+    "/api/tenancy-imports",
+    ["admin"],
+    "Import a tenancy file: tenant accounts and tenancies, upserted by tenancy reference; invitations queued",
+    tenancyImportResultResponse,
+    201,
+    { multipart: true },
+  ),
+  e("GET", "/api/tenancy-imports/:id/report.csv", ["admin"], "A tenancy import's outcome for every row", {
+    mediaType: "text/csv",
+  }),
+  e("POST", "/api/tenancy-imports/:id/invitations/pause", ["admin"], "Hold an import's queued invitations", null, 204),
+  e("POST", "/api/tenancy-imports/:id/invitations/resume", ["admin"], "Release an import's held invitations again", null, 204),
+  e("POST", "/api/tenancy-imports/:id/invitations/cancel", ["admin"], "Withdraw an import's invitations not sent yet", null, 204),
   e("GET", "/api/users", ["admin"], "The landlord's accounts", userPageResponse),
   e("PATCH", "/api/users/:id", ["admin"], "Change a person's name or role, or disable or re-enable their account", userResponse),
   e("GET", "/api/users/:id/history", ["admin"], "Who changed a person's account, and when", userHistoryResponse),

@@ -20,3 +20,4 @@ export * from "./mail.js";
 export * from "./integrations.js";
 export * from "./webhooks.js";
 export * from "./endpoints.js";
+export * from "./tenancy-import.js";

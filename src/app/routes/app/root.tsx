@@ -28,6 +28,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/admin/emails", label: "E-mails" },
     { to: "/admin/integrations", label: "Integrations" },
     { to: "/admin/webhooks", label: "Webhooks" },
+    { to: "/admin/tenancy-import", label: "Tenancy import" },
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
