@@ -19,6 +19,7 @@ import { OutboxRelay1796412321162 } from "./migrations/1796412321162-OutboxRelay
 import { RoomEvaluations1796412626434 } from "./migrations/1796412626434-RoomEvaluations.js";
 import { SignInWaitsAndSessionStamps1796412951142 } from "./migrations/1796412951142-SignInWaitsAndSessionStamps.js";
 import { PhotoUploadUsage1796412986381 } from "./migrations/1796412986381-PhotoUploadUsage.js";
+import { StockRegisterFields1796424932669 } from "./migrations/1796424932669-StockRegisterFields.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -40,4 +41,5 @@ export const migrations = [
   RoomEvaluations1796412626434,
   SignInWaitsAndSessionStamps1796412951142,
   PhotoUploadUsage1796412986381,
+  StockRegisterFields1796424932669,
 ];
