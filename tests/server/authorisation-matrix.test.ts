@@ -126,7 +126,9 @@ beforeAll(async () => {
   if (!token) throw new Error("no invitation link in the e-mail");
 
   // A stock import of one home, for the routes that read an import.
-  const register = Buffer.from("UPRN,Address 1,Town,Postcode,Built form,Walls,Glazing,Heating\n990000000321,1 Test Row,Testford,ZX1 1AA,Flat,Cavity filled,Double glazed 2010,Gas combi boiler\n");
+  const register = Buffer.from(
+    "UPRN,Address 1,Town,Postcode,Built form,Walls,Glazing,Heating\n990000000321,1 Test Row,Testford,ZX1 1AA,Flat,Cavity filled,Double glazed 2010,Gas combi boiler\n",
+  );
   const stockImport = await admin.agent
     .post("/api/stock-imports")
     .set("X-CSRF-Token", admin.csrf)

@@ -64,10 +64,9 @@ async function reportOf(client: Client, url: string): Promise<string[][]> {
 
 const homesOf = async (orgId: number) =>
   // The landlord factory's own home has no UPRN: only the imported ones count.
-  (await t.ctx.dataSource.query("SELECT * FROM properties WHERE organisation_id = ? AND uprn IS NOT NULL ORDER BY uprn", [orgId])) as Record<
-    string,
-    unknown
-  >[];
+  (await t.ctx.dataSource.query("SELECT * FROM properties WHERE organisation_id = ? AND uprn IS NOT NULL ORDER BY uprn", [
+    orgId,
+  ])) as Record<string, unknown>[];
 
 describe("the stock import", () => {
   it("previews a messy CSV: separator, BOM and the proposed mapping", async () => {
@@ -165,7 +164,11 @@ describe("the stock import", () => {
       age_band: "before 1919",
       ventilation: "not-recorded",
     });
-    expect(homes.find((h) => h.uprn === "100023336959")).toMatchObject({ wall_type: "filled-cavity", ventilation: "piv", age_band: "1945-1964" });
+    expect(homes.find((h) => h.uprn === "100023336959")).toMatchObject({
+      wall_type: "filled-cavity",
+      ventilation: "piv",
+      age_band: "1945-1964",
+    });
 
     // The same file again: nothing new, nothing changed, the same refusals.
     const again = await upload(admin, "/api/stock-imports", messyRegister(), "register.csv").expect(201);
@@ -189,19 +192,75 @@ describe("the stock import", () => {
     const { landlord, admin } = await adminOfNewLandlord();
     const wb = new ExcelJS.Workbook();
     const ws = wb.addWorksheet("Stock");
-    ws.addRow(["Unique Property Reference Number", "Address 1", "Address 2", "Town", "Post Code", "Built Form", "Walls", "Glazing", "Heating", "Floor area (m²)", "EPC"]);
-    ws.addRow([100099990001, "3 Larch Grove", null, "York", "yo1 7hh", "Bungalow", "Timber frame", "Triple glazed", "Air source heat pump", 72.5, "B"]);
-    ws.addRow([100099990002, "4 Larch Grove", "Annexe", "York", "YO1 7HH", "Detached", "Solid stone", "Mixed", "Oil boiler", 140, "E"]);
+    ws.addRow([
+      "Unique Property Reference Number",
+      "Address 1",
+      "Address 2",
+      "Town",
+      "Post Code",
+      "Built Form",
+      "Walls",
+      "Glazing",
+      "Heating",
+      "Floor area (m²)",
+      "EPC",
+    ]);
+    ws.addRow([
+      100099990001,
+      "3 Larch Grove",
+      null,
+      "York",
+      "yo1 7hh",
+      "Bungalow",
+      "Timber frame",
+      "Triple glazed",
+      "Air source heat pump",
+      72.5,
+      "B",
+    ]);
+    ws.addRow([
+      100099990002,
+      "4 Larch Grove",
+      "Annexe",
+      "York",
+      "YO1 7HH",
+      "Detached",
+      "Solid stone",
+      "Mixed",
+      "Oil boiler",
+      140,
+      "E",
+    ]);
     const file = Buffer.from(await wb.xlsx.writeBuffer());
 
     const preview = await upload(admin, "/api/stock-imports/preview", file, "stock.xlsx").expect(200);
     expect(preview.body).toMatchObject({ format: "xlsx", delimiter: null });
-    expect(preview.body.mapping).toMatchObject({ uprn: 0, addressLine1: 1, addressLine2: 2, town: 3, postcode: 4, floorArea: 9, epcBand: 10 });
+    expect(preview.body.mapping).toMatchObject({
+      uprn: 0,
+      addressLine1: 1,
+      addressLine2: 2,
+      town: 3,
+      postcode: 4,
+      floorArea: 9,
+      epcBand: 10,
+    });
 
     const res = await upload(admin, "/api/stock-imports", file, "stock.xlsx").expect(201);
     expect(res.body).toMatchObject({ created: 2, refused: 0 });
     const homes = await homesOf(landlord.org.id);
-    expect(homes.map((h) => [h.uprn, h.postcode, h.built_form, h.wall_type, h.glazing_type, h.heating_type, h.heating_fuel, h.floor_area_m2, h.epc_band])).toEqual([
+    expect(
+      homes.map((h) => [
+        h.uprn,
+        h.postcode,
+        h.built_form,
+        h.wall_type,
+        h.glazing_type,
+        h.heating_type,
+        h.heating_fuel,
+        h.floor_area_m2,
+        h.epc_band,
+      ]),
+    ).toEqual([
       ["100099990001", "YO1 7HH", "bungalow", "timber-frame", "triple", "heat-pump", "electricity", "72.5", "B"],
       ["100099990002", "YO1 7HH", "detached", "solid-stone", "mixed", "other", "oil", "140.0", "E"],
     ]);
@@ -212,7 +271,10 @@ describe("the stock import", () => {
 
   it("takes the admin's corrections to the mapping", async () => {
     const { landlord, admin } = await adminOfNewLandlord();
-    const res = await upload(admin, "/api/stock-imports", messyRegister(), "register.csv", { epcBand: null, estate: null }).expect(201);
+    const res = await upload(admin, "/api/stock-imports", messyRegister(), "register.csv", {
+      epcBand: null,
+      estate: null,
+    }).expect(201);
     expect(res.body.created).toBe(3);
     const elm = (await homesOf(landlord.org.id)).find((h) => h.uprn === "100023336956")!;
     expect(elm).toMatchObject({ epc_band: null, estate: "Elm Road" });
@@ -223,8 +285,17 @@ describe("the stock import", () => {
 
   it("leaves nothing of an import that fails half-way", async () => {
     const { landlord } = await adminOfNewLandlord();
-    const admin = { id: landlord.admin.id, email: landlord.admin.email, name: landlord.admin.name, role: "admin" as const, organisationId: landlord.org.id };
-    const rows = Array.from({ length: 9 }, (_, i) => `1000777000${i + 10},${i + 1} Pine Road,Hull,HU1 1AA,Flat,Solid brick,Single,Gas boiler`);
+    const admin = {
+      id: landlord.admin.id,
+      email: landlord.admin.email,
+      name: landlord.admin.name,
+      role: "admin" as const,
+      organisationId: landlord.org.id,
+    };
+    const rows = Array.from(
+      { length: 9 },
+      (_, i) => `1000777000${i + 10},${i + 1} Pine Road,Hull,HU1 1AA,Flat,Solid brick,Single,Gas boiler`,
+    );
     const file = path.join(dir, "half.csv");
     writeFileSync(file, ["UPRN,Address 1,Town,Postcode,Property type,Walls,Glazing,Heating", ...rows].join("\n"));
     // Batches of 2: the failure comes after four homes have been stored in the transaction.
@@ -243,7 +314,9 @@ describe("the stock import", () => {
     ).rejects.toThrow("the disk is full");
     expect(stored).toBe(0);
     expect(await homesOf(landlord.org.id)).toEqual([]);
-    expect((await t.ctx.dataSource.query("SELECT COUNT(*) AS n FROM stock_imports WHERE organisation_id = ?", [landlord.org.id]))[0].n).toBe("0");
+    expect(
+      (await t.ctx.dataSource.query("SELECT COUNT(*) AS n FROM stock_imports WHERE organisation_id = ?", [landlord.org.id]))[0].n,
+    ).toBe("0");
 
     // The same file with nothing failing imports all nine.
     const ok = await service.import(admin, { filePath: file, fileName: "half.csv" });
@@ -275,4 +348,3 @@ describe("the stock import", () => {
     await upload(admin, "/api/stock-imports", Buffer.from("UPRN,Address 1\n"), "header-only.csv").expect(422);
   });
 });
-

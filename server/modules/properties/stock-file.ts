@@ -123,7 +123,11 @@ async function* xlsxRecords(filePath: string): AsyncGenerator<StockRecord> {
 }
 
 /** Every row of the file, the header included, blank rows left out. */
-export async function* stockRecords(filePath: string, format: StockFileFormat, delimiter: Separator | null): AsyncGenerator<StockRecord> {
+export async function* stockRecords(
+  filePath: string,
+  format: StockFileFormat,
+  delimiter: Separator | null,
+): AsyncGenerator<StockRecord> {
   const source = format === "xlsx" ? xlsxRecords(filePath) : csvRecords(filePath, delimiter ?? ",");
   for await (const r of source) if (!isBlank(r.cells)) yield r;
 }
@@ -131,7 +135,8 @@ export async function* stockRecords(filePath: string, format: StockFileFormat, d
 /** The format, separator, header and first rows of the file; 422 for what we cannot read. */
 export async function readStockHead(filePath: string): Promise<StockFileHead> {
   const head = await readHeadBytes(filePath);
-  if (head.length === 0) throw new UnprocessableError("The file is empty. Choose the CSV or Excel export of your asset register.");
+  if (head.length === 0)
+    throw new UnprocessableError("The file is empty. Choose the CSV or Excel export of your asset register.");
   let format: StockFileFormat = "csv";
   let delimiter: Separator | null = null;
   if (head[0] === 0x50 && head[1] === 0x4b && head[2] === 0x03 && head[3] === 0x04) format = "xlsx";

@@ -68,7 +68,11 @@ export function createStockImportsRouter({ stock, incomingDir }: { stock: StockI
     try {
       if (!file) throw noFile();
       const fields = parse(stockImportFieldsSchema, req.body);
-      const saved = await stock.import(actorOf(req), { filePath: file.path, fileName: file.originalname, mapping: fields.mapping });
+      const saved = await stock.import(actorOf(req), {
+        filePath: file.path,
+        fileName: file.originalname,
+        mapping: fields.mapping,
+      });
       res.status(201).json(shaped(stockImportResponse, toStockImportDto(saved)));
     } finally {
       if (file) await rm(file.path, { force: true });

@@ -60,9 +60,10 @@ const COLUMNS = [
 type Stored = Record<keyof StockHome, string | number | boolean | null>;
 
 const jsonColumns = (withId: boolean) =>
-  [...(withId ? ["id INT UNSIGNED PATH '$[0]'"] : []), ...COLUMNS.map(([, col, type], i) => `${col} ${type} PATH '$[${i + (withId ? 1 : 0)}]'`)].join(
-    ", ",
-  );
+  [
+    ...(withId ? ["id INT UNSIGNED PATH '$[0]'"] : []),
+    ...COLUMNS.map(([, col, type], i) => `${col} ${type} PATH '$[${i + (withId ? 1 : 0)}]'`),
+  ].join(", ");
 
 const INSERT_SQL =
   `INSERT INTO properties (organisation_id, ${COLUMNS.map(([, c]) => c).join(", ")}) ` +
@@ -154,7 +155,7 @@ export class StockImportService {
         try {
           value = JSON.parse(value);
         } catch {
-          throw new ValidationError("mapping: must be JSON, e.g. {\"uprn\": 0}.", [{ field: "mapping", message: "Must be JSON." }]);
+          throw new ValidationError('mapping: must be JSON, e.g. {"uprn": 0}.', [{ field: "mapping", message: "Must be JSON." }]);
         }
       }
       const given = parse(z.object({ mapping: mappingSchema }), { mapping: value }).mapping;
@@ -169,7 +170,10 @@ export class StockImportService {
     const used = new Map<number, string>();
     for (const [field, col] of Object.entries(mapping) as [string, number][]) {
       if (col >= head.headers.length)
-        details.push({ field: `mapping.${field}`, message: `Column ${col} is not in the file: it has ${head.headers.length} columns, numbered from 0.` });
+        details.push({
+          field: `mapping.${field}`,
+          message: `Column ${col} is not in the file: it has ${head.headers.length} columns, numbered from 0.`,
+        });
       const other = used.get(col);
       if (other !== undefined) details.push({ field: `mapping.${field}`, message: `Column ${col} already feeds ${other}.` });
       used.set(col, field);

@@ -65,7 +65,16 @@ const SYNONYMS: Record<StockField, readonly string[]> = {
   estate: ["estate", "estatename", "scheme", "schemename"],
   block: ["block", "blockname", "building", "buildingname"],
   builtForm: ["builtform", "propertytype", "dwellingtype", "archetype", "propertyform"],
-  yearBuilt: ["yearbuilt", "builtyear", "constructionyear", "ageband", "constructionageband", "propertyage", "dateofconstruction", "yearorageband"],
+  yearBuilt: [
+    "yearbuilt",
+    "builtyear",
+    "constructionyear",
+    "ageband",
+    "constructionageband",
+    "propertyage",
+    "dateofconstruction",
+    "yearorageband",
+  ],
   wallConstruction: ["wallconstruction", "walltype", "walls", "wall", "externalwalls", "externalwallconstruction"],
   wallInsulation: ["wallinsulation", "wallinsulationtype", "externalwallinsulation"],
   glazing: ["glazing", "glazingtype", "windows", "windowtype", "windowglazing"],
@@ -173,6 +182,7 @@ export function glazingFrom(text: string): GlazingKind | null {
   if (/mixed|partial|part /.test(t)) return "mixed";
   if (/single/.test(t)) return "single";
   if (/double|dg\b|upvc|secondary/.test(t)) {
+    if (/pre.?2002|before 2002|old/.test(t)) return "old-double";
     if (/post.?2002|after 2002|2002 or later|modern|a.?rated|low.?e|new|20[0-2]\d/.test(t)) return "modern-double";
     return "old-double";
   }
@@ -452,9 +462,7 @@ export function convertStockRow(
   };
   const builtForm = engine("Built form", builtFormFrom(cell("builtForm")), cell("builtForm"));
   const wallText = cell("wallConstruction");
-  const wallType = wallText
-    ? engine("Wall construction", wallFrom(wallText, cell("wallInsulation")), wallText)
-    : null;
+  const wallType = wallText ? engine("Wall construction", wallFrom(wallText, cell("wallInsulation")), wallText) : null;
   const glazingType = engine("Glazing", glazingFrom(cell("glazing")), cell("glazing"));
   const fuelText = cell("heatingFuel");
   let heatingFuel = fuelText ? heatingFuelFrom(fuelText) : null;
