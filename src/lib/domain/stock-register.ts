@@ -370,6 +370,44 @@ export function streetOf(line1: string): string {
   return street || line1;
 }
 
+/**
+ * A register repeats the same few words in every row ("Cavity – filled", "Gas combi boiler"): each
+ * reading is worked out once per distinct text. The caches are bounded, so a file of all-different
+ * values costs memory for no more than MEMO_LIMIT of them.
+ */
+const MEMO_LIMIT = 5_000;
+function memo<R>(fn: (key: string) => R): (key: string) => R {
+  const cache = new Map<string, R>();
+  return (key) => {
+    const hit = cache.get(key);
+    if (hit !== undefined || cache.has(key)) return hit as R;
+    const value = fn(key);
+    if (cache.size >= MEMO_LIMIT) cache.clear();
+    cache.set(key, value);
+    return value;
+  };
+}
+const SEP = "\u0000";
+const cached = {
+  builtForm: memo(builtFormFrom),
+  glazing: memo(glazingFrom),
+  fuel: memo(heatingFuelFrom),
+  roof: memo(roofInsulationMmFrom),
+  presence: memo(presenceFrom),
+  epc: memo(epcBandFrom),
+  wall: memo((k) => wallFrom(...(k.split(SEP) as [string, string]))),
+  wallInsulation: memo((k) => wallInsulationFrom(...(k.split(SEP) as [string, string]))),
+  heating: memo((k) => {
+    const [text, fuel] = k.split(SEP);
+    return heatingFrom(text, (fuel || null) as HeatingFuel | null);
+  }),
+  yearOrBand: memo((k) => {
+    const [text, year] = k.split(SEP);
+    return yearOrBandFrom(text, Number(year));
+  }),
+  floorArea: memo((k) => floorAreaFrom(...(k.split(SEP) as [string, string]))),
+};
+
 /** A home as a register row describes it; null is "the register does not say" (an update keeps what we hold). */
 export interface StockHome {
   uprn: string;
@@ -460,15 +498,15 @@ export function convertStockRow(
     if (text && value === null) reasons.push(`${label} "${text}" is not one we recognise.`);
     return value;
   };
-  const builtForm = engine("Built form", builtFormFrom(cell("builtForm")), cell("builtForm"));
+  const builtForm = engine("Built form", cached.builtForm(cell("builtForm")), cell("builtForm"));
   const wallText = cell("wallConstruction");
-  const wallType = wallText ? engine("Wall construction", wallFrom(wallText, cell("wallInsulation")), wallText) : null;
-  const glazingType = engine("Glazing", glazingFrom(cell("glazing")), cell("glazing"));
+  const wallType = wallText ? engine("Wall construction", cached.wall(wallText + SEP + cell("wallInsulation")), wallText) : null;
+  const glazingType = engine("Glazing", cached.glazing(cell("glazing")), cell("glazing"));
   const fuelText = cell("heatingFuel");
-  let heatingFuel = fuelText ? heatingFuelFrom(fuelText) : null;
+  let heatingFuel = fuelText ? cached.fuel(fuelText) : null;
   if (fuelText && heatingFuel === null) notes.push(`Heating fuel "${fuelText}" not recognised: left empty.`);
-  const heatingType = engine("Heating", heatingFrom(cell("heating"), heatingFuel), cell("heating"));
-  if (heatingFuel === null && !fuelText && cell("heating")) heatingFuel = heatingFuelFrom(cell("heating"));
+  const heatingType = engine("Heating", cached.heating(cell("heating") + SEP + (heatingFuel ?? "")), cell("heating"));
+  if (heatingFuel === null && !fuelText && cell("heating")) heatingFuel = cached.fuel(cell("heating"));
 
   const optional = <T>(field: StockField, label: string, read: (t: string) => T | null): T | null => {
     const text = cell(field);
@@ -477,17 +515,17 @@ export function convertStockRow(
     if (value === null) notes.push(`${label} "${text}" not recognised: left empty.`);
     return value;
   };
-  const yearOrBand = optional("yearBuilt", "Year built", (t) => yearOrBandFrom(t, thisYear));
+  const yearOrBand = optional("yearBuilt", "Year built", (t) => cached.yearOrBand(t + SEP + thisYear));
   const wallInsulation = cell("wallInsulation")
-    ? optional("wallInsulation", "Wall insulation", (t) => wallInsulationFrom(wallText, t))
+    ? optional("wallInsulation", "Wall insulation", (t) => cached.wallInsulation(wallText + SEP + t))
     : wallType === "filled-cavity"
       ? "cavity-fill"
       : wallType === "unfilled-cavity" && /fill|insulat/.test(lower(wallText))
         ? "none"
         : null;
-  const roofInsulationMm = optional("roofInsulation", "Roof insulation", roofInsulationMmFrom);
-  const hasExtractFans = optional("extractFans", "Extract fans", presenceFrom);
-  const hasTrickleVents = optional("trickleVents", "Trickle vents", presenceFrom);
+  const roofInsulationMm = optional("roofInsulation", "Roof insulation", cached.roof);
+  const hasExtractFans = optional("extractFans", "Extract fans", cached.presence);
+  const hasTrickleVents = optional("trickleVents", "Trickle vents", cached.presence);
   const ventText = cell("ventilation");
   let ventilation = ventilationFrom(ventText, hasExtractFans, hasTrickleVents);
   if (ventText && ventilation === null) {
@@ -495,9 +533,9 @@ export function convertStockRow(
     ventilation = null;
   }
   const floorAreaM2 = optional("floorArea", "Floor area", (t) =>
-    floorAreaFrom(t, mapping.floorArea === undefined ? "" : (headers[mapping.floorArea] ?? "")),
+    cached.floorArea(t + SEP + (mapping.floorArea === undefined ? "" : (headers[mapping.floorArea] ?? ""))),
   );
-  const epcBand = optional("epcBand", "EPC band", epcBandFrom);
+  const epcBand = optional("epcBand", "EPC band", cached.epc);
   const roomsText = cell("rooms");
   const rooms = roomsText ? roomsFrom(roomsText) : [];
 
