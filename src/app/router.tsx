@@ -106,6 +106,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 page("admin", () => import("./routes/admin/users")),
                 page("admin/policy", () => import("./routes/admin/policy")),
                 page("admin/emails", () => import("./routes/admin/emails")),
+                page("admin/stock-import", () => import("./routes/admin/stock-import")),
               ],
             ),
           ],

@@ -120,3 +120,11 @@ export const conversationKeys = {
   send: (caseId: number) => [...conversationKeys.all, caseId, "send"] as const,
   read: (caseId: number) => [...conversationKeys.all, caseId, "read"] as const,
 };
+
+/** The stock import (features/stock-import): the landlord's imports, and the two uploads. */
+export const stockImportKeys = {
+  all: ["stock-imports"] as const,
+  lists: () => [...stockImportKeys.all, "list"] as const,
+  preview: () => [...stockImportKeys.all, "preview"] as const,
+  run: () => [...stockImportKeys.all, "run"] as const,
+};

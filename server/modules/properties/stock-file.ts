@@ -164,7 +164,11 @@ export async function* stockRecordChunks(
 }
 
 /** Every row of the file, one at a time. */
-export async function* stockRecords(filePath: string, format: StockFileFormat, delimiter: Separator | null): AsyncGenerator<StockRecord> {
+export async function* stockRecords(
+  filePath: string,
+  format: StockFileFormat,
+  delimiter: Separator | null,
+): AsyncGenerator<StockRecord> {
   for await (const chunk of stockRecordChunks(filePath, format, delimiter)) yield* chunk;
 }
 

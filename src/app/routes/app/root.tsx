@@ -26,6 +26,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/admin", label: "Users and invitations", end: true },
     { to: "/admin/policy", label: "Deadline policy" },
     { to: "/admin/emails", label: "E-mails" },
+    { to: "/admin/stock-import", label: "Import homes" },
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
