@@ -24,6 +24,7 @@ import { ReadingService } from "./modules/readings/reading.service.js";
 import { MailService } from "./modules/mail/mail.service.js";
 import { OrganisationService } from "./modules/organisations/organisation.service.js";
 import { PropertyService } from "./modules/properties/property.service.js";
+import { StockImportService } from "./modules/properties/stock-import.service.js";
 import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { QueueService } from "./modules/cases/case-queue.service.js";
 import { TriageService } from "./modules/triage/triage.service.js";
@@ -51,6 +52,7 @@ export interface Services {
   readings: ReadingService;
   mail: MailService;
   properties: PropertyService;
+  stock: StockImportService;
   queue: QueueService;
   triage: TriageService;
   works: WorkOrderService;
@@ -96,6 +98,7 @@ export function createServices(
     leaseMs: Math.max(5 * 60_000, 3 * (connectionMs + greetingMs + socketMs)),
   });
   const properties = new PropertyService(dataSource, logger);
+  const stock = new StockImportService(dataSource, clock, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock, config.sessionCacheMs, sessionStore);
   const organisations = new OrganisationService(dataSource);
@@ -154,6 +157,7 @@ export function createServices(
     mail,
     photos,
     properties,
+    stock,
     queue,
     readings,
     tenancies,

@@ -23,6 +23,7 @@ import { createEvaluationRouter } from "./modules/evaluation/evaluation.routes.j
 import { createHealthRouter } from "./modules/health/health.routes.js";
 import { createHomeRecordRouter } from "./modules/homes/homes.routes.js";
 import { createPropertiesRouter } from "./modules/properties/properties.routes.js";
+import { createStockImportsRouter } from "./modules/properties/stock-import.routes.js";
 import { openApiDocument } from "./modules/psychrometrics/openapi.js";
 import { createPsychrometricsRouter } from "./modules/psychrometrics/psychrometrics.routes.js";
 import { createMyHomeRouter } from "./modules/tenancies/tenancies.routes.js";
@@ -175,6 +176,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties, roomReadings: services.readings }));
   api.use("/properties", createHomeRecordRouter({ homes: services.homes }));
+  api.use("/stock-imports", createStockImportsRouter({ stock: services.stock, incomingDir: incomingDir(config.uploadsDir) }));
   api.use("/users", createUsersRouter({ users: services.users }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use("/outbox", createOutboxRouter({ mail: services.mail }));

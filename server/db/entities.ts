@@ -23,6 +23,7 @@ import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
 import { Organisation } from "../modules/organisations/organisation.entity.js";
 import { Property } from "../modules/properties/property.entity.js";
 import { Room } from "../modules/properties/room.entity.js";
+import { StockImport } from "../modules/properties/stock-import.entity.js";
 import { Tenancy } from "../modules/tenancies/tenancy.entity.js";
 import { User } from "../modules/users/user.entity.js";
 import { InvitationBatch, PendingInvitation } from "../modules/auth/invitation-batch.entity.js";
@@ -41,6 +42,7 @@ export const entities = [
   UserAuditEntry,
   Property,
   Room,
+  StockImport,
   Tenancy,
   OutboxEmail,
   Case,

@@ -21,6 +21,7 @@ import { SignInWaitsAndSessionStamps1796412951142 } from "./migrations/179641295
 import { PhotoUploadUsage1796412986381 } from "./migrations/1796412986381-PhotoUploadUsage.js";
 import { TenancyImport1796424829707 } from "./migrations/1796424829707-TenancyImport.js";
 import { ApiKeys1796424839722 } from "./migrations/1796424839722-ApiKeys.js";
+import { StockRegisterFields1796424932669 } from "./migrations/1796424932669-StockRegisterFields.js";
 import { Webhooks1796425164411 } from "./migrations/1796425164411-Webhooks.js";
 
 export const migrations = [
@@ -45,5 +46,6 @@ export const migrations = [
   PhotoUploadUsage1796412986381,
   TenancyImport1796424829707,
   ApiKeys1796424839722,
+  StockRegisterFields1796424932669,
   Webhooks1796425164411,
 ];

@@ -109,6 +109,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
                 page("admin/integrations", () => import("./routes/admin/integrations")),
                 page("admin/webhooks", () => import("./routes/admin/webhooks")),
                 page("admin/tenancy-import", () => import("./routes/admin/tenancy-import")),
+                page("admin/stock-import", () => import("./routes/admin/stock-import")),
               ],
             ),
           ],

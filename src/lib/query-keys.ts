@@ -142,3 +142,11 @@ export const apiKeyKeys = {
   list: () => [...apiKeyKeys.all, "list"] as const,
   audit: () => [...apiKeyKeys.all, "audit"] as const,
 };
+
+/** The stock import (features/stock-import): the landlord's imports, and the two uploads. */
+export const stockImportKeys = {
+  all: ["stock-imports"] as const,
+  lists: () => [...stockImportKeys.all, "list"] as const,
+  preview: () => [...stockImportKeys.all, "preview"] as const,
+  run: () => [...stockImportKeys.all, "run"] as const,
+};

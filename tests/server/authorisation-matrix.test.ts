@@ -146,8 +146,19 @@ beforeAll(async () => {
     .attach("file", tenancyFile, "tenancies.csv")
     .expect(201);
 
+  // A stock import of one home, for the routes that read an import.
+  const register = Buffer.from(
+    "UPRN,Address 1,Town,Postcode,Built form,Walls,Glazing,Heating\n990000000321,1 Test Row,Testford,ZX1 1AA,Flat,Cavity filled,Double glazed 2010,Gas combi boiler\n",
+  );
+  const stockImport = await admin.agent
+    .post("/api/stock-imports")
+    .set("X-CSRF-Token", admin.csrf)
+    .attach("file", register, "register.csv")
+    .expect(201);
+
   Object.assign(ids, {
     "/api/cases/:id": caseId,
+    "/api/stock-imports/:id": stockImport.body.id,
     "/api/properties/:id": landlord.home.id,
     "/api/work-orders/:id": order.body.id,
     "/api/photos/:id": photo.body.photos[0].id,

@@ -18,7 +18,7 @@ import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
 import { inspectionSchema, summarySchema } from "../inspections/inspections.schemas.js";
 import { markReadSchema, staffMessageSchema, tenantMessageSchema } from "../../../src/lib/schemas/messages.js";
 import { deadlinePolicySchema } from "../policy/policy.schemas.js";
-import { propertyListQuerySchema } from "../properties/properties.schemas.js";
+import { propertyListQuerySchema, stockImportFieldsSchema } from "../properties/properties.schemas.js";
 import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
 import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
@@ -76,6 +76,7 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "PATCH /api/properties/:id": { body: homePatchSchema },
   "POST /api/properties/:id/rooms": { body: roomSchema },
   "PATCH /api/properties/:id/rooms/:roomId": { body: roomPatchSchema },
+  "POST /api/stock-imports": { body: stockImportFieldsSchema },
   "GET /api/users": { query: userListQuerySchema },
   "PATCH /api/users/:id": { body: userUpdateSchema },
   "POST /api/integrations/api-keys": { body: apiKeyCreateSchema },

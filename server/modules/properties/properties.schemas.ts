@@ -21,3 +21,8 @@ export const idParamsSchema = z.object({
 export const roomParamsSchema = idParamsSchema.extend({
   roomId: idParam("The room id"),
 });
+
+/** POST /api/stock-imports (multipart): the mapping's corrections, as JSON text, e.g. {"uprn": 0, "rooms": null}. */
+export const stockImportFieldsSchema = z.object({
+  mapping: z.string().max(10_000, "mapping is too long.").optional(),
+});

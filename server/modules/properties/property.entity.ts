@@ -2,6 +2,7 @@ import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMa
 import { Organisation } from "../organisations/organisation.entity.js";
 // Named, not imported as a value: Room refers back to Property, and ES modules must not load in a circle.
 import type { Room } from "./room.entity.js";
+import type { EpcBand, HeatingFuel, WallInsulation } from "../../../src/lib/domain/stock-register.js";
 
 export const BUILT_FORMS = ["detached", "semi-detached", "end-terrace", "mid-terrace", "flat", "maisonette", "bungalow"] as const;
 export const WALL_TYPES = [
@@ -93,6 +94,43 @@ export class Property {
 
   @Column({ type: "varchar", length: 30, default: "not-recorded" })
   ventilation: VentilationType;
+
+  /** The year the home was built, when the register knows it to the year. */
+  @Column({ name: "built_year", type: "smallint", unsigned: true, nullable: true })
+  builtYear: number | null;
+
+  /** Otherwise its age band as the register gives it, e.g. "1945-1964", "before 1919", "2012 onwards". */
+  @Column({ name: "age_band", type: "varchar", length: 20, nullable: true })
+  ageBand: string | null;
+
+  @Column({ name: "wall_insulation", type: "varchar", length: 20, nullable: true })
+  wallInsulation: WallInsulation | null;
+
+  /** Roof or loft insulation in millimetres (0: none). */
+  @Column({ name: "roof_insulation_mm", type: "smallint", unsigned: true, nullable: true })
+  roofInsulationMm: number | null;
+
+  @Column({ name: "heating_fuel", type: "varchar", length: 20, nullable: true })
+  heatingFuel: HeatingFuel | null;
+
+  @Column({ name: "has_extract_fans", type: "boolean", nullable: true })
+  hasExtractFans: boolean | null;
+
+  @Column({ name: "has_trickle_vents", type: "boolean", nullable: true })
+  hasTrickleVents: boolean | null;
+
+  @Column({
+    name: "floor_area_m2",
+    type: "decimal",
+    precision: 6,
+    scale: 1,
+    nullable: true,
+    transformer: { to: (v: number | null) => v, from: (v: string | null) => (v === null ? null : Number(v)) },
+  })
+  floorAreaM2: number | null;
+
+  @Column({ name: "epc_band", type: "char", length: 1, nullable: true })
+  epcBand: EpcBand | null;
 
   /**
    * The natural sort key of block and address, set by MariaDB's triggers on every insert and update

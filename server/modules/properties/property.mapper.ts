@@ -19,6 +19,15 @@ export const toPropertySummaryDto = (p: Property): z.input<typeof propertySummar
   glazingType: p.glazingType,
   heatingType: p.heatingType,
   ventilation: p.ventilation,
+  builtYear: p.builtYear ?? null,
+  ageBand: p.ageBand ?? null,
+  wallInsulation: p.wallInsulation ?? null,
+  roofInsulationMm: p.roofInsulationMm ?? null,
+  heatingFuel: p.heatingFuel ?? null,
+  hasExtractFans: p.hasExtractFans === null || p.hasExtractFans === undefined ? null : Boolean(p.hasExtractFans),
+  hasTrickleVents: p.hasTrickleVents === null || p.hasTrickleVents === undefined ? null : Boolean(p.hasTrickleVents),
+  floorAreaM2: p.floorAreaM2 ?? null,
+  epcBand: p.epcBand ?? null,
 });
 
 export const toPropertyDto = (p: Property): z.input<typeof propertyResponse> => ({

@@ -43,6 +43,7 @@ import {
 import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
 import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
+import { stockImportListResponse, stockImportPreviewResponse, stockImportResponse } from "./stock-imports.js";
 import { staffListResponse, userHistoryResponse, userPageResponse, userResponse } from "./users.js";
 import { tenancyImportListResponse, tenancyImportPreviewResponse, tenancyImportResultResponse } from "./tenancy-import.js";
 import {
@@ -287,6 +288,23 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/tenancy-imports/:id/invitations/pause", ["admin"], "Hold an import's queued invitations", null, 204),
   e("POST", "/api/tenancy-imports/:id/invitations/resume", ["admin"], "Release an import's held invitations again", null, 204),
   e("POST", "/api/tenancy-imports/:id/invitations/cancel", ["admin"], "Withdraw an import's invitations not sent yet", null, 204),
+  e("GET", "/api/stock-imports", ["admin"], "The landlord's stock imports, newest first", stockImportListResponse),
+  e(
+    "POST",
+    "/api/stock-imports/preview",
+    ["admin"],
+    "Propose which column of an asset register (CSV or .xlsx) feeds which field of a home",
+    stockImportPreviewResponse,
+    200,
+    { multipart: true },
+  ),
+  e("POST", "/api/stock-imports", ["admin"], "Import an asset register: homes upserted by UPRN", stockImportResponse, 201, {
+    multipart: true,
+  }),
+  e("GET", "/api/stock-imports/:id", ["admin"], "One stock import's counts", stockImportResponse),
+  e("GET", "/api/stock-imports/:id/report.csv", ["admin"], "Every row's outcome of a stock import, with reasons", {
+    mediaType: "text/csv",
+  }),
   e("GET", "/api/users", ["admin"], "The landlord's accounts", userPageResponse),
   e("PATCH", "/api/users/:id", ["admin"], "Change a person's name or role, or disable or re-enable their account", userResponse),
   e("GET", "/api/users/:id/history", ["admin"], "Who changed a person's account, and when", userHistoryResponse),

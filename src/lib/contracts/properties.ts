@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { BUILT_FORMS, GLAZING_TYPES, HEATING_TYPES, ROOM_KINDS, VENTILATION_TYPES, WALL_TYPES } from "../homes.js";
 import { CASE_STATUSES, CHANNELS } from "../schemas/case-report.js";
+import { EPC_BANDS, HEATING_FUELS, WALL_INSULATIONS } from "../domain/stock-register.js";
 import { calendarDate, id, instant, pageOf } from "./common.js";
 
 export const roomResponse = z.object({ id, name: z.string(), kind: z.enum(ROOM_KINDS) });
@@ -21,6 +22,15 @@ export const propertySummaryResponse = z.object({
   glazingType: z.enum(GLAZING_TYPES),
   heatingType: z.enum(HEATING_TYPES),
   ventilation: z.enum(VENTILATION_TYPES),
+  builtYear: z.number().int().nullable(),
+  ageBand: z.string().nullable(),
+  wallInsulation: z.enum(WALL_INSULATIONS).nullable(),
+  roofInsulationMm: z.number().int().min(0).nullable(),
+  heatingFuel: z.enum(HEATING_FUELS).nullable(),
+  hasExtractFans: z.boolean().nullable(),
+  hasTrickleVents: z.boolean().nullable(),
+  floorAreaM2: z.number().nullable(),
+  epcBand: z.enum(EPC_BANDS).nullable(),
 });
 export type PropertySummaryResponse = z.infer<typeof propertySummaryResponse>;
 

@@ -1,27 +1,16 @@
 // A home and its rooms as an admin adds or edits them: the schema the server validates with and the
 // admin's forms check with. Labels for people live in src/lib/homes.ts.
 import { z } from "zod";
+import { isUkPostcode, normalisePostcode } from "../domain/postcode.js";
 import { BUILT_FORMS, GLAZING_TYPES, HEATING_TYPES, ROOM_KINDS, VENTILATION_TYPES, WALL_TYPES } from "../homes.js";
 
-/**
- * A UK postcode: an outward code (area letters, district digit, maybe a letter or digit) and an inward
- * code (a digit and two letters), e.g. "A9 9AA", "AA9A 9AA". The shapes are Royal Mail's published
- * postcode formats (from memory); "GIR 0AA" is the one historical exception kept.
- */
-const POSTCODE = /^(?:GIR0AA|[A-Z]{1,2}\d[A-Z\d]?\d[A-Z]{2})$/;
-
-/** "ab12cd", "AB1  2CD" → "AB1 2CD"; anything that is not a postcode is returned as typed. */
-export function normalisePostcode(value: string): string {
-  const compact = value.replace(/\s+/g, "").toUpperCase();
-  if (!POSTCODE.test(compact)) return value.trim();
-  return `${compact.slice(0, -3)} ${compact.slice(-3)}`;
-}
+export { normalisePostcode } from "../domain/postcode.js";
 
 export const postcodeSchema = z
   .string({ error: "Enter the postcode." })
   .trim()
   .min(1, "Enter the postcode.")
-  .refine((v) => POSTCODE.test(v.replace(/\s+/g, "").toUpperCase()), "Enter a UK postcode, like AB1 2CD.")
+  .refine(isUkPostcode, "Enter a UK postcode, like AB1 2CD.")
   .transform(normalisePostcode);
 
 /** Empty text is no answer (null). */

@@ -145,6 +145,15 @@ export function makeProperty(id: number, overrides: Record<string, unknown> = {}
     glazingType: "old-double",
     heatingType: "gas-boiler",
     ventilation: "not-recorded",
+    builtYear: null,
+    ageBand: null,
+    wallInsulation: null,
+    roofInsulationMm: null,
+    heatingFuel: null,
+    hasExtractFans: null,
+    hasTrickleVents: null,
+    floorAreaM2: null,
+    epcBand: null,
     ...overrides,
   };
 }

@@ -29,6 +29,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/admin/integrations", label: "Integrations" },
     { to: "/admin/webhooks", label: "Webhooks" },
     { to: "/admin/tenancy-import", label: "Tenancy import" },
+    { to: "/admin/stock-import", label: "Import homes" },
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
