@@ -18,15 +18,21 @@ import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
 import { inspectionSchema, summarySchema } from "../inspections/inspections.schemas.js";
 import { markReadSchema, staffMessageSchema, tenantMessageSchema } from "../../../src/lib/schemas/messages.js";
 import { deadlinePolicySchema } from "../policy/policy.schemas.js";
-import { propertyListQuerySchema } from "../properties/properties.schemas.js";
-import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
-import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
-import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
+import { propertyExportQuerySchema, propertyListQuerySchema } from "../properties/properties.schemas.js";
+import {
+  importFieldsSchema,
+  manualReadingsSchema,
+  readingsExportQuerySchema,
+  readingsQuerySchema,
+} from "../readings/readings.schemas.js";
+import { bulkPreviewSchema, bulkUpdateSchema, queueExportQuerySchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
+import { userExportQuerySchema, userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
 import {
   bookingResponseSchema,
   contractorSchema,
   verificationOutcomeSchema,
   workOrderCreateSchema,
+  workOrderExportQuerySchema,
   workOrderListQuerySchema,
   workOrderPatchSchema,
 } from "../works/works.schemas.js";
@@ -73,6 +79,11 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "PATCH /api/properties/:id/rooms/:roomId": { body: roomPatchSchema },
   "GET /api/users": { query: userListQuerySchema },
   "PATCH /api/users/:id": { body: userUpdateSchema },
+  "GET /api/cases/export": { query: queueExportQuerySchema },
+  "GET /api/cases/:id/readings/export": { query: readingsExportQuerySchema },
+  "GET /api/work-orders/export": { query: workOrderExportQuerySchema },
+  "GET /api/properties/export": { query: propertyExportQuerySchema },
+  "GET /api/users/export": { query: userExportQuerySchema },
 };
 
 export const keyOf = (e: Pick<Endpoint, "method" | "path">) => `${e.method} ${e.path}`;
