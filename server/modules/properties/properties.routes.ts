@@ -4,12 +4,12 @@ import { homePatchSchema, homeSchema, roomPatchSchema, roomSchema } from "../../
 import { HOME_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
 import type { Clock } from "../../lib/clock.js";
-import { paged, sendTableExport } from "../../lib/table-export.js";
+import { EXPORT_PAGE_SIZE, sendTableExport } from "../../lib/table-export.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import { idParamsSchema, propertyExportQuerySchema, propertyListQuerySchema, roomParamsSchema } from "./properties.schemas.js";
 import { toPropertyDto, toPropertySummaryDto, toRoomDto } from "./property.mapper.js";
-import type { PropertyService, RoomReadingsCounter } from "./property.service.js";
+import type { HomeCursor, PropertyService, RoomReadingsCounter } from "./property.service.js";
 
 export function createPropertiesRouter({
   properties,
@@ -40,9 +40,14 @@ export function createPropertiesRouter({
       view: "homes",
       now: clock.now(),
       columns: HOME_EXPORT_COLUMNS,
-      pages: paged(async (page, pageSize) =>
-        (await properties.list(actor, { ...query, page, pageSize })).items.map(toPropertySummaryDto),
-      ),
+      pages: (async function* () {
+        let after: HomeCursor | null = null;
+        do {
+          const { items, last } = await properties.listAfter(actor, query, after, EXPORT_PAGE_SIZE);
+          if (items.length) yield items.map(toPropertySummaryDto);
+          after = items.length < EXPORT_PAGE_SIZE ? null : last;
+        } while (after);
+      })(),
     });
   });
 
