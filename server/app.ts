@@ -152,6 +152,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
       imports: services.imports,
       evaluation: services.evaluation,
       incomingDir: incomingDir(config.uploadsDir),
+      clock,
     }),
   );
   api.use("/cases", createEvaluationRouter({ evaluation: services.evaluation }));
@@ -169,15 +170,15 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use(
     "/work-orders",
     requireAuth,
-    createWorkOrdersRouter({ works: services.works, verification: services.verification, photos: services.photos }),
+    createWorkOrdersRouter({ works: services.works, verification: services.verification, photos: services.photos, clock }),
   );
   api.use("/contractors", requireAuth, createContractorsRouter({ works: services.works }));
   api.use("/policy", createPolicyRouter({ policy: services.policy }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
-  api.use("/properties", createPropertiesRouter({ properties: services.properties, roomReadings: services.readings }));
+  api.use("/properties", createPropertiesRouter({ properties: services.properties, roomReadings: services.readings, clock }));
   api.use("/properties", createHomeRecordRouter({ homes: services.homes }));
   api.use("/stock-imports", createStockImportsRouter({ stock: services.stock, incomingDir: incomingDir(config.uploadsDir) }));
-  api.use("/users", createUsersRouter({ users: services.users }));
+  api.use("/users", createUsersRouter({ users: services.users, clock }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use("/outbox", createOutboxRouter({ mail: services.mail }));
   api.use("/integrations/api-keys", createApiKeysRouter({ keys: services.apiKeys }));

@@ -82,7 +82,8 @@ export interface RequestOptions {
   signal?: AbortSignal;
 }
 
-function buildUrl(path: string, query?: Record<string, QueryValue>): string {
+/** The address of an API path with its query (empty values left out): for requests, and for download links. */
+export function apiUrl(path: string, query?: Record<string, QueryValue>): string {
   const url = `/api${path.startsWith("/") ? path : `/${path}`}`;
   if (!query) return url;
   const params = new URLSearchParams();
@@ -115,7 +116,7 @@ async function send(method: string, path: string, options: RequestOptions, token
   if (options.body !== undefined && !multipart) headers["Content-Type"] = "application/json";
   if (token) headers["X-CSRF-Token"] = token;
   try {
-    return await fetch(buildUrl(path, options.query), {
+    return await fetch(apiUrl(path, options.query), {
       method,
       headers,
       credentials: "same-origin",

@@ -374,6 +374,22 @@ describe("Case queue", () => {
     });
   });
 
+  it("exports the view with its filters, sort and shown columns, not just the page", async () => {
+    setup("/queue?status=triaged&estate=Kestrel%20Rise&sort=due&order=asc&page=2&cols=risk,estate");
+    const group = await screen.findByRole("group", { name: "Export cases in this view" });
+    const href = within(group).getByRole("link", { name: /Excel/ }).getAttribute("href")!;
+    const url = new URL(href, "http://x");
+    expect(url.pathname).toBe("/api/cases/export");
+    expect(Object.fromEntries(url.searchParams)).toEqual({
+      status: "triaged",
+      estate: "Kestrel Rise",
+      sort: "due",
+      order: "asc",
+      columns: "estate,risk",
+      format: "xlsx",
+    });
+  });
+
   it("says when no case matches the filters, and clears them", async () => {
     const { router } = setup("/queue?risk=condensing&q=nowhere", {
       "GET /api/cases": (call) => page(call, call.search.get("q") ? [] : [makeItem(1)]),

@@ -71,6 +71,17 @@ describe("Homes table (server-side pages)", () => {
     await waitFor(() => expect(callsTo("GET", "/api/properties").at(-1)!.search.get("pageSize")).toBe("50"));
   });
 
+  it("offers the filtered list as CSV and Excel downloads, every page of it", async () => {
+    setup("/homes?estate=Kestrel%20Rise&q=Flat&page=2&pageSize=10", 60);
+    const group = await screen.findByRole("group", { name: "Export homes in this list" });
+    const csv = new URL(within(group).getByRole("link", { name: /CSV/ }).getAttribute("href")!, "http://x");
+    expect(csv.pathname).toBe("/api/properties/export");
+    expect(Object.fromEntries(csv.searchParams)).toEqual({ q: "Flat", estate: "Kestrel Rise", format: "csv" });
+    const xlsx = new URL(within(group).getByRole("link", { name: /Excel/ }).getAttribute("href")!, "http://x");
+    expect(xlsx.searchParams.get("format")).toBe("xlsx");
+    expect(within(group).getByRole("link", { name: /Excel/ })).toHaveAttribute("download");
+  });
+
   it("says when nothing matches", async () => {
     setup("/homes?q=nowhere", 0);
     expect(await screen.findByText("No homes match")).toBeInTheDocument();

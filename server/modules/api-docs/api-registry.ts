@@ -18,10 +18,15 @@ import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
 import { inspectionSchema, summarySchema } from "../inspections/inspections.schemas.js";
 import { markReadSchema, staffMessageSchema, tenantMessageSchema } from "../../../src/lib/schemas/messages.js";
 import { deadlinePolicySchema } from "../policy/policy.schemas.js";
-import { propertyListQuerySchema, stockImportFieldsSchema } from "../properties/properties.schemas.js";
-import { importFieldsSchema, manualReadingsSchema, readingsQuerySchema } from "../readings/readings.schemas.js";
-import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
-import { userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
+import { propertyExportQuerySchema, propertyListQuerySchema, stockImportFieldsSchema } from "../properties/properties.schemas.js";
+import {
+  importFieldsSchema,
+  manualReadingsSchema,
+  readingsExportQuerySchema,
+  readingsQuerySchema,
+} from "../readings/readings.schemas.js";
+import { bulkPreviewSchema, bulkUpdateSchema, queueExportQuerySchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
+import { userExportQuerySchema, userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
 import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
 import { homeUpsertSchema } from "../integrations/integrations.schemas.js";
 import { tenancyImportFieldsSchema } from "../tenancy-import/tenancy-import.schemas.js";
@@ -30,6 +35,7 @@ import {
   contractorSchema,
   verificationOutcomeSchema,
   workOrderCreateSchema,
+  workOrderExportQuerySchema,
   workOrderListQuerySchema,
   workOrderPatchSchema,
 } from "../works/works.schemas.js";
@@ -90,6 +96,11 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "PATCH /api/webhooks/:id": { body: webhookEndpointPatchSchema },
   "GET /api/webhooks/:id/deliveries": { query: webhookDeliveryListQuerySchema },
   "POST /api/tenancy-imports": { body: tenancyImportFieldsSchema },
+  "GET /api/cases/export": { query: queueExportQuerySchema },
+  "GET /api/cases/:id/readings/export": { query: readingsExportQuerySchema },
+  "GET /api/work-orders/export": { query: workOrderExportQuerySchema },
+  "GET /api/properties/export": { query: propertyExportQuerySchema },
+  "GET /api/users/export": { query: userExportQuerySchema },
 };
 
 export const keyOf = (e: Pick<Endpoint, "method" | "path">) => `${e.method} ${e.path}`;

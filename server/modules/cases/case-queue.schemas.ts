@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { CASE_STATUSES, OPEN_CASE_STATUSES, type CaseStatus } from "../../../src/lib/domain/case-workflow.js";
 import { BANDS } from "../../../src/lib/domain/hhsrs.js";
+import { exportFormatSchema, queueColumnsSchema } from "../../../src/lib/contracts/exports.js";
 
 export const QUEUE_SORTS = [
   "reference",
@@ -105,6 +106,11 @@ export const queueQuerySchema = z.object({
     .default(25),
 });
 export type QueueQuery = z.infer<typeof queueQuerySchema>;
+
+/** GET /api/cases/export: the queue's filters and sort (every page), the format and the shown columns. */
+export const queueExportQuerySchema = queueQuerySchema
+  .omit({ page: true, pageSize: true })
+  .extend({ format: exportFormatSchema, columns: queueColumnsSchema.optional() });
 
 export const bulkUpdateSchema = z
   .object({

@@ -1,19 +1,24 @@
 import { Router } from "express";
 import { estatesResponse, propertyPageResponse } from "../../../src/lib/contracts/properties.js";
 import { homePatchSchema, homeSchema, roomPatchSchema, roomSchema } from "../../../src/lib/schemas/homes.js";
+import { HOME_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
+import type { Clock } from "../../lib/clock.js";
+import { EXPORT_PAGE_SIZE, sendTableExport } from "../../lib/table-export.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
-import { idParamsSchema, propertyListQuerySchema, roomParamsSchema } from "./properties.schemas.js";
+import { idParamsSchema, propertyExportQuerySchema, propertyListQuerySchema, roomParamsSchema } from "./properties.schemas.js";
 import { toPropertyDto, toPropertySummaryDto, toRoomDto } from "./property.mapper.js";
-import type { PropertyService, RoomReadingsCounter } from "./property.service.js";
+import type { HomeCursor, PropertyService, RoomReadingsCounter } from "./property.service.js";
 
 export function createPropertiesRouter({
   properties,
   roomReadings,
+  clock,
 }: {
   properties: PropertyService;
   roomReadings: RoomReadingsCounter;
+  clock: Clock;
 }): Router {
   const router = Router();
   router.use(requireStaff);
@@ -24,6 +29,26 @@ export function createPropertiesRouter({
     res.json(
       shaped(propertyPageResponse, { items: items.map(toPropertySummaryDto), total, page: query.page, pageSize: query.pageSize }),
     );
+  });
+
+  // The homes list with its filters, every page of it, as CSV or .xlsx.
+  router.get("/export", async (req, res) => {
+    const { format, ...query } = parse(propertyExportQuerySchema, req.query, "query");
+    const actor = actorOf(req);
+    await sendTableExport(res, {
+      format,
+      view: "homes",
+      now: clock.now(),
+      columns: HOME_EXPORT_COLUMNS,
+      pages: (async function* () {
+        let after: HomeCursor | null = null;
+        do {
+          const { items, last } = await properties.listAfter(actor, query, after, EXPORT_PAGE_SIZE);
+          if (items.length) yield items.map(toPropertySummaryDto);
+          after = items.length < EXPORT_PAGE_SIZE ? null : last;
+        } while (after);
+      })(),
+    });
   });
 
   router.get("/estates", async (req, res) => {

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { idParam } from "../../lib/validation.js";
+import { exportFormatSchema } from "../../../src/lib/contracts/exports.js";
 
 export const propertyListQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),
@@ -13,6 +14,11 @@ export const propertyListQuerySchema = z.object({
     .default(25),
 });
 export type PropertyListQuery = z.infer<typeof propertyListQuerySchema>;
+
+/** GET /api/properties/export: the list's filters (every page) and the format. */
+export const propertyExportQuerySchema = propertyListQuerySchema
+  .omit({ page: true, pageSize: true })
+  .extend({ format: exportFormatSchema });
 
 export const idParamsSchema = z.object({
   id: idParam("The id"),

@@ -100,6 +100,18 @@ interface ReadingRow {
 
 const num = (v: string | null): number | null => (v === null ? null : Number(v));
 
+const toReadingView = (r: ReadingRow): ReadingView => ({
+  id: Number(r.id),
+  roomId: r.room_id,
+  takenAt: r.taken_at,
+  airTemperatureC: Number(r.air_temperature_c),
+  relativeHumidityPct: Number(r.relative_humidity_pct),
+  surfaceTemperatureC: num(r.surface_temperature_c),
+  outdoorTemperatureC: num(r.outdoor_temperature_c),
+  source: r.source,
+  importId: r.import_id,
+});
+
 function checkManual(readings: readonly ManualReading[], nowMs: number): void {
   const details: { field: string; message: string }[] = [];
   const range = (i: number, field: string, v: number | undefined, r: { min: number; max: number }, required: boolean) => {
@@ -380,17 +392,34 @@ export class ReadingService {
       sql,
       opts.roomId === undefined ? [caseId, limit] : [caseId, opts.roomId, limit],
     );
-    return rows.map((r) => ({
-      id: Number(r.id),
-      roomId: r.room_id,
-      takenAt: r.taken_at,
-      airTemperatureC: Number(r.air_temperature_c),
-      relativeHumidityPct: Number(r.relative_humidity_pct),
-      surfaceTemperatureC: num(r.surface_temperature_c),
-      outdoorTemperatureC: num(r.outdoor_temperature_c),
-      source: r.source,
-      importId: r.import_id,
-    }));
+    return rows.map(toReadingView);
+  }
+
+  /**
+   * The next `limit` readings of a case (one room, or all) after `after`, oldest first in the order
+   * of list(): by time, then room (a room has one reading per second, so time and room are a key).
+   * For exports, which read a case's readings a page at a time.
+   */
+  async listAfter(
+    caseId: number,
+    opts: { roomId?: number; after?: Pick<ReadingView, "takenAt" | "roomId">; limit: number },
+  ): Promise<ReadingView[]> {
+    const where = ["case_id = ?"];
+    const params: unknown[] = [caseId];
+    if (opts.roomId !== undefined) {
+      where.push("room_id = ?");
+      params.push(opts.roomId);
+    }
+    if (opts.after) {
+      where.push("(taken_at > ? OR (taken_at = ? AND room_id > ?))");
+      params.push(opts.after.takenAt, opts.after.takenAt, opts.after.roomId);
+    }
+    const rows: ReadingRow[] = await this.dataSource.query(
+      "SELECT id, room_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c, source, import_id " +
+        `FROM readings WHERE ${where.join(" AND ")} ORDER BY taken_at, room_id LIMIT ?`,
+      [...params, opts.limit],
+    );
+    return rows.map(toReadingView);
   }
 
   /** A case's readings (one room, or all) oldest first, shaped for the risk engine's evaluateSeries. */

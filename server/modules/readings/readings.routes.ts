@@ -5,20 +5,29 @@ import {
   readingsAddedResponse,
   readingsResponse,
 } from "../../../src/lib/contracts/readings.js";
+import { READING_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
+import type { Clock } from "../../lib/clock.js";
+import { EXPORT_PAGE_SIZE, sendTableExport } from "../../lib/table-export.js";
 import { mkdirSync } from "node:fs";
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
 import { parse } from "../../lib/validation.js";
 import { ServiceUnavailableError, ValidationError } from "../../lib/errors.js";
-import { actorOf } from "../../middleware/auth.js";
+import { actorOf, requireStaff } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
 import type { Actor } from "../auth/actor.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { ReadingImportService } from "./reading-import.service.js";
 import type { ReadingService } from "./reading.service.js";
 import { requireRoomOfCase } from "./room-of-case.js";
-import { importFieldsSchema, importParamsSchema, manualReadingsSchema, readingsQuerySchema } from "./readings.schemas.js";
+import {
+  importFieldsSchema,
+  importParamsSchema,
+  manualReadingsSchema,
+  readingsExportQuerySchema,
+  readingsQuerySchema,
+} from "./readings.schemas.js";
 
 /** A logger export of a year at one-minute intervals is ~30 MB; allow generous headroom. */
 const MAX_CSV_BYTES = 200 * 1024 * 1024;
@@ -31,6 +40,7 @@ interface Deps {
   evaluation: { alertIfRisky(actor: Actor, caseId: number): Promise<void> };
   /** Where multer writes the CSV while it is received: the app's own `<UPLOADS_DIR>/.incoming` (swept at start-up). */
   incomingDir: string;
+  clock: Clock;
 }
 
 /** File-system failures that mean "cannot store now", not "your upload is bad". */
@@ -54,7 +64,7 @@ function csvUploadInto(incomingDir: string): RequestHandler {
 }
 
 /** Mounted at /api/cases: `/:id/readings…` (the evaluation is in evaluation.routes.ts). */
-export function createReadingsRouter({ cases, readings, imports, evaluation, incomingDir }: Deps): Router {
+export function createReadingsRouter({ cases, readings, imports, evaluation, incomingDir, clock }: Deps): Router {
   const router = Router();
   const csvUpload = csvUploadInto(incomingDir);
 
@@ -69,6 +79,35 @@ export function createReadingsRouter({ cases, readings, imports, evaluation, inc
     const { roomId } = parse(readingsQuerySchema, req.query, "query");
     const rows = await readings.list(res.locals.case.id, { roomId, limit: 50_000, newest: true });
     res.json(shaped(readingsResponse, { readings: rows.map((r) => ({ ...r, takenAt: r.takenAt.toISOString() })) }));
+  });
+
+  // Staff: every reading of the case (or of one room), oldest first, as CSV or .xlsx.
+  router.get("/:id/readings/export", requireStaff, caseAccess, async (req, res) => {
+    const { roomId, format } = parse(readingsExportQuerySchema, req.query, "query");
+    const c = res.locals.case;
+    const roomNames = new Map(cases.roomsOf(c).map((r) => [r.id, r.name]));
+    async function* pages() {
+      let after: { takenAt: Date; roomId: number } | undefined;
+      for (;;) {
+        const rows = await readings.listAfter(c.id, { roomId, after, limit: EXPORT_PAGE_SIZE });
+        if (rows.length) {
+          yield rows.map((r) => ({
+            ...r,
+            takenAt: r.takenAt.toISOString(),
+            roomName: roomNames.get(r.roomId) ?? `Room ${r.roomId}`,
+          }));
+          after = rows[rows.length - 1];
+        }
+        if (rows.length < EXPORT_PAGE_SIZE) return;
+      }
+    }
+    await sendTableExport(res, {
+      format,
+      view: `readings-${c.reference ?? c.id}`,
+      now: clock.now(),
+      columns: READING_EXPORT_COLUMNS,
+      pages: pages(),
+    });
   });
 
   router.post("/:id/readings", caseAccess, async (req, res) => {

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { airTemperatureC, outdoorTemperatureC, surfaceTemperatureC } from "../../../src/lib/schemas/psychrometrics.js";
 import { idParam } from "../../lib/validation.js";
+import { exportFormatSchema } from "../../../src/lib/contracts/exports.js";
 
 const rh = z
   .number({ error: "relativeHumidityPct must be a number in %." })
@@ -27,6 +28,9 @@ export const manualReadingsSchema = z
 export const readingsQuerySchema = z.object({
   roomId: idParam("roomId").optional(),
 });
+
+/** GET /api/cases/:id/readings/export: one room or all, and the format. */
+export const readingsExportQuerySchema = readingsQuerySchema.extend({ format: exportFormatSchema });
 
 export const importFieldsSchema = z.object({
   roomId: z.coerce.number({ error: "roomId is required: which room was the logger in?" }).int().positive(),

@@ -3,14 +3,16 @@ import type { Clock } from "../../lib/clock.js";
 import { relatedCasesResponse } from "../../../src/lib/contracts/cases.js";
 import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageResponse } from "../../../src/lib/contracts/triage.js";
 import { CASE_TRANSITIONS, canTransition, movesValidForAll } from "../../../src/lib/domain/case-workflow.js";
+import { queueExportColumns } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
+import { paged, sendTableExport } from "../../lib/table-export.js";
 import { AppError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import { toQueueItemDto } from "./queue.mapper.js";
-import { bulkPreviewSchema, bulkUpdateSchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
+import { bulkPreviewSchema, bulkUpdateSchema, queueExportQuerySchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import type { QueueService } from "../cases/case-queue.service.js";
 import type { TriageService } from "./triage.service.js";
 
@@ -42,6 +44,23 @@ export function createTriageRouter({
         pageSize: query.pageSize,
       }),
     );
+  });
+
+  // The queue as on screen (filters, sort, shown columns), every page of it, as CSV or .xlsx.
+  router.get("/export", staff, async (req, res) => {
+    const { format, columns, ...query } = parse(queueExportQuerySchema, req.query, "query");
+    const actor = actorOf(req);
+    const now = clock.now();
+    await sendTableExport(res, {
+      format,
+      view: "queue",
+      now,
+      columns: queueExportColumns(columns),
+      pages: paged(async (page, pageSize) => {
+        const { rows, rooms } = await queue.list(actor, { ...query, page, pageSize }, now);
+        return rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now));
+      }),
+    });
   });
 
   // Before a bulk status change: the moves valid for every chosen case, and the cases a move would skip.

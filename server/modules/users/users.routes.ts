@@ -1,14 +1,17 @@
 import { Router } from "express";
 import { staffListResponse, userHistoryResponse, userPageResponse } from "../../../src/lib/contracts/users.js";
+import { USER_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
+import type { Clock } from "../../lib/clock.js";
+import { paged, sendTableExport } from "../../lib/table-export.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import { toStaffMemberDto, toUserAuditDto, toUserDto } from "./user.mapper.js";
 import type { UserService } from "./user.service.js";
-import { userListQuerySchema, userUpdateSchema } from "./users.schemas.js";
+import { userExportQuerySchema, userListQuerySchema, userUpdateSchema } from "./users.schemas.js";
 
-export function createUsersRouter({ users }: { users: UserService }): Router {
+export function createUsersRouter({ users, clock }: { users: UserService; clock: Clock }): Router {
   const router = Router();
   router.use(requireRole("admin"));
 
@@ -16,6 +19,19 @@ export function createUsersRouter({ users }: { users: UserService }): Router {
     const query = parse(userListQuerySchema, req.query, "query");
     const { items, total } = await users.list(actorOf(req), query);
     res.json(shaped(userPageResponse, { items: items.map(toUserDto), total, page: query.page, pageSize: query.pageSize }));
+  });
+
+  // The accounts list with its filters, every page of it, as CSV or .xlsx.
+  router.get("/export", async (req, res) => {
+    const { format, ...query } = parse(userExportQuerySchema, req.query, "query");
+    const actor = actorOf(req);
+    await sendTableExport(res, {
+      format,
+      view: "accounts",
+      now: clock.now(),
+      columns: USER_EXPORT_COLUMNS,
+      pages: paged(async (page, pageSize) => (await users.list(actor, { ...query, page, pageSize })).items.map(toUserDto)),
+    });
   });
 
   router.patch("/:id", async (req, res) => {

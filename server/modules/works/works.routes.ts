@@ -6,7 +6,10 @@ import {
   verificationResponse,
   workOrderPageResponse,
 } from "../../../src/lib/contracts/works.js";
+import { WORK_ORDER_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
+import type { Clock } from "../../lib/clock.js";
+import { paged, sendTableExport } from "../../lib/table-export.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import type { Actor } from "../auth/actor.js";
@@ -24,6 +27,7 @@ import {
   verificationOutcomeSchema,
   workOrderCompleteSchema,
   workOrderCreateSchema,
+  workOrderExportQuerySchema,
   workOrderListQuerySchema,
   workOrderPatchSchema,
 } from "./works.schemas.js";
@@ -68,7 +72,7 @@ export function createCaseWorksRouter({ works, verification }: Deps): Router {
 }
 
 /** `/api/work-orders`: the maintenance lead's list, scheduling, completion, photos and the tenant's answer. */
-export function createWorkOrdersRouter({ works, photos }: Deps): Router {
+export function createWorkOrdersRouter({ works, photos, clock }: Deps & { clock: Clock }): Router {
   const router = Router();
   const photoUpload = receivePhotos(photos.incomingDir);
 
@@ -83,6 +87,19 @@ export function createWorkOrdersRouter({ works, photos }: Deps): Router {
         pageSize: query.pageSize,
       }),
     );
+  });
+
+  // The work orders list with its filters and sort, every page of it, as CSV or .xlsx.
+  router.get("/export", requireStaff, async (req, res) => {
+    const { format, ...query } = parse(workOrderExportQuerySchema, req.query, "query");
+    const actor = actorOf(req);
+    await sendTableExport(res, {
+      format,
+      view: "work-orders",
+      now: clock.now(),
+      columns: WORK_ORDER_EXPORT_COLUMNS,
+      pages: paged(async (page, pageSize) => dtos(works, (await works.list(actor, { ...query, page, pageSize })).items, actor)),
+    });
   });
 
   router.patch("/:id", leads, async (req, res) => {

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { SLOT_WINDOWS, WORK_ORDER_PRIORITIES, WORK_ORDER_STATUSES, WORK_ORDER_TYPES } from "./work-order.entity.js";
 import { idParam } from "../../lib/validation.js";
+import { exportFormatSchema } from "../../../src/lib/contracts/exports.js";
 
 const isoDate = (field: string) =>
   z
@@ -121,6 +122,11 @@ export const workOrderListQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(200, "pageSize can be at most 200.").default(25),
 });
 export type WorkOrderListQuery = z.infer<typeof workOrderListQuerySchema>;
+
+/** GET /api/work-orders/export: the list's filters and sort (every page) and the format. */
+export const workOrderExportQuerySchema = workOrderListQuerySchema
+  .omit({ page: true, pageSize: true })
+  .extend({ format: exportFormatSchema });
 
 export const contractorSchema = z
   .object({

@@ -76,6 +76,8 @@ export interface Endpoint {
 }
 
 const STAFF = ["officer", "maintenance", "admin"] as const;
+/** A table export: CSV by default, .xlsx with format=xlsx (OpenAPI names one media type per reply here). */
+const EXPORT_FILE = { mediaType: "text/csv" };
 const OFFICERS = ["officer", "admin"] as const;
 const LEADS = ["maintenance", "admin"] as const;
 
@@ -157,6 +159,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   ),
 
   e("GET", "/api/cases", STAFF, "The officers' queue", queuePageResponse),
+  e("GET", "/api/cases/export", STAFF, "The queue as on screen, every page, as CSV or .xlsx (format=xlsx)", EXPORT_FILE),
   e("POST", "/api/cases/bulk", OFFICERS, "Assign or move many cases", bulkUpdateResponse),
   e("POST", "/api/cases/bulk/preview", OFFICERS, "Which status moves are valid for the chosen cases", bulkPreviewResponse),
   e("GET", "/api/cases/:id/triage", STAFF, "A case's priority and how it was worked out", triageResponse),
@@ -202,6 +205,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
     "The rows an import rejected, with the reasons",
     { mediaType: "text/csv" },
   ),
+  e("GET", "/api/cases/:id/readings/export", STAFF, "A case's readings as CSV or .xlsx (format=xlsx)", EXPORT_FILE),
   e("GET", "/api/cases/:id/evaluation", "signed-in", "The risk engine over a case's readings", evaluationResponse),
   e("POST", "/api/cases/:id/assessments", OFFICERS, "Record an HHSRS assessment", assessmentResponse, 201),
   e("GET", "/api/cases/:id/assessments", STAFF, "Every version of a case's HHSRS assessment", assessmentListResponse),
@@ -231,6 +235,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/cases/:id/verification", LEADS, "Decide whether the works fixed the damp", verificationResponse),
 
   e("GET", "/api/work-orders", STAFF, "Work orders, filtered and sorted", workOrderPageResponse),
+  e("GET", "/api/work-orders/export", STAFF, "The work orders as filtered, as CSV or .xlsx (format=xlsx)", EXPORT_FILE),
   e("PATCH", "/api/work-orders/:id", LEADS, "Schedule, complete or cancel a work order", workOrderResponse),
   e("POST", "/api/work-orders/:id/photos", LEADS, "Add photos taken after the works", photoUploadResponse, 201, {
     multipart: true,
@@ -247,6 +252,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/photos/:id/thumbnail", "signed-in", "A photo's thumbnail", { mediaType: "image/jpeg" }),
 
   e("GET", "/api/properties", STAFF, "The landlord's homes", propertyPageResponse),
+  e("GET", "/api/properties/export", STAFF, "The homes as filtered, as CSV or .xlsx (format=xlsx)", EXPORT_FILE),
   e("GET", "/api/properties/estates", STAFF, "The estates' names", estatesResponse),
   e("GET", "/api/properties/:id", STAFF, "A home and its rooms", propertyResponse),
   e("POST", "/api/properties", ["admin"], "Add a home (with its rooms)", propertyResponse, 201),
@@ -306,6 +312,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
     mediaType: "text/csv",
   }),
   e("GET", "/api/users", ["admin"], "The landlord's accounts", userPageResponse),
+  e("GET", "/api/users/export", ["admin"], "The accounts as filtered, as CSV or .xlsx (format=xlsx)", EXPORT_FILE),
   e("PATCH", "/api/users/:id", ["admin"], "Change a person's name or role, or disable or re-enable their account", userResponse),
   e("GET", "/api/users/:id/history", ["admin"], "Who changed a person's account, and when", userHistoryResponse),
   e("GET", "/api/staff", STAFF, "Who a case can be assigned to", staffListResponse),

@@ -13,11 +13,16 @@ export interface PropertyListFilters {
 
 export type PropertyPage = z.infer<typeof propertyPageResponse>;
 
+/** The query string of GET /api/properties (and of its export, which leaves the page out). */
+export const propertiesQuery = (filters: PropertyListFilters) => ({
+  q: filters.q || undefined,
+  estate: filters.estate || undefined,
+  page: filters.page,
+  pageSize: filters.pageSize,
+});
+
 export const getProperties = (filters: PropertyListFilters, signal?: AbortSignal) =>
-  api.get<PropertyPage>("/properties", {
-    query: { q: filters.q || undefined, estate: filters.estate || undefined, page: filters.page, pageSize: filters.pageSize },
-    signal,
-  });
+  api.get<PropertyPage>("/properties", { query: propertiesQuery(filters), signal });
 
 export const propertiesQueryOptions = (filters: PropertyListFilters) =>
   queryOptions({

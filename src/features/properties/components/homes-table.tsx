@@ -4,13 +4,14 @@ import { TextLink } from "@/components/ui/text-link";
 import { Alert } from "@/components/ui/alert";
 import { DataTable, dataTableColumnHelper, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
+import { ExportLinks } from "@/components/ui/export-links";
 import { controlClasses } from "@/components/ui/field";
 import { SearchField } from "@/components/ui/search-field";
 import { errorMessage } from "@/lib/api-client";
 import { cn } from "@/lib/cn";
 import { builtFormLabels, heatingTypeLabels, labelOf, wallTypeLabels, type PropertySummary } from "@/lib/homes";
 import { useEstates } from "../api/get-estates";
-import { useProperties } from "../api/get-properties";
+import { propertiesQuery, useProperties } from "../api/get-properties";
 import { useHomesTableParams } from "../hooks/use-homes-table-params";
 
 const column = dataTableColumnHelper<PropertySummary>();
@@ -117,6 +118,7 @@ export function HomesTable({ caption = "Homes" }: { caption?: string }) {
             ) : null}
           </select>
         </div>
+        <ExportLinks path="/properties/export" query={propertiesQuery(filters)} what="homes in this list" />
       </div>
       <div ref={rowsRef} className="[&_tbody_tr:has(a[data-row-link])]:cursor-pointer">
         <DataTable

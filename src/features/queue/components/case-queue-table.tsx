@@ -3,6 +3,7 @@ import type { ColumnVisibilityState, RowSelectionState, SortingState } from "@ta
 import { Button } from "@/components/ui/button";
 import { DataTable, TableLoadError, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
+import { ExportLinks } from "@/components/ui/export-links";
 import { errorMessage } from "@/lib/api-client";
 import { useBulkUpdateCases } from "../api/bulk-update-cases";
 import { useCaseQueue } from "../api/get-case-queue";
@@ -14,6 +15,7 @@ import {
   DEFAULT_QUEUE_FILTERS,
   HIDEABLE_COLUMNS,
   QUEUE_SORTS,
+  queueQuery,
   showsEverything,
   type HideableColumn,
   type QueueSort,
@@ -165,7 +167,17 @@ export function CaseQueueTable({ statusLabel = plainStatus, renderStatus, estate
         statusLabel={statusLabel}
         estates={estates}
         staff={staff.data}
-        aside={<ColumnMenu table={table} onShowAll={() => view.setHidden([])} onReset={view.resetColumns} />}
+        aside={
+          <>
+            <ColumnMenu table={table} onShowAll={() => view.setHidden([])} onReset={view.resetColumns} />
+            <ExportLinks
+              path="/cases/export"
+              // The shown columns, in any order (the export keeps the screen's), or "none" for the reference alone.
+              query={{ ...queueQuery(params), columns: HIDEABLE_COLUMNS.filter((c) => !hidden.includes(c)).join(",") || "none" }}
+              what="cases in this view"
+            />
+          </>
+        }
       />
 
       <BulkBar

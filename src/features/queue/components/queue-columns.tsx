@@ -2,30 +2,15 @@ import { useEffect, useRef, type ReactNode } from "react";
 import { dataTableColumnHelper, SortButton, type SortableColumn } from "@/components/ui/data-table";
 import { TextLink } from "@/components/ui/text-link";
 import { cn } from "@/lib/cn";
+import { QUEUE_COLUMN_LABELS } from "@/lib/contracts/exports";
 import type { QueueItem } from "../api/types";
 import { formatDay, formatDayTimeZoned } from "@/lib/dates";
 import { areaLabels, channelLabels, deadlineStageLabels, labelFor, riskLabels } from "../lib/labels";
 import type { QueueSort } from "../lib/queue-view";
 import { TimeLeftText } from "./time-left";
 
-/** The heading of each data column; the column ids are the API's sort keys. */
-export const COLUMN_LABELS: Record<QueueSort, string> = {
-  reference: "Reference",
-  address: "Home",
-  estate: "Estate and block",
-  rooms: "Rooms",
-  awareAt: "Reported",
-  channel: "Channel",
-  risk: "Risk state",
-  mouldIndex: "Mould index",
-  area: "Affected area",
-  vulnerable: "Vulnerable household",
-  band: "HHSRS",
-  priority: "Priority",
-  due: "Next deadline",
-  status: "Status",
-  assignee: "Assigned to",
-};
+/** The heading of each data column (shared with the export); the column ids are the API's sort keys. */
+export const COLUMN_LABELS: Record<QueueSort, string> = QUEUE_COLUMN_LABELS;
 
 export const caseReference = (item: Pick<QueueItem, "id" | "reference">) => item.reference ?? `Case ${item.id}`;
 

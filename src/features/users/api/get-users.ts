@@ -12,11 +12,16 @@ export interface UserListFilters {
 
 export type UserPage = UserPageResponse;
 
+/** The query string of GET /api/users (and of its export, which leaves the page out). */
+export const usersQuery = (filters: UserListFilters) => ({
+  role: filters.role || undefined,
+  q: filters.q || undefined,
+  page: filters.page,
+  pageSize: filters.pageSize,
+});
+
 export const getUsers = (filters: UserListFilters, signal?: AbortSignal) =>
-  api.get<UserPage>("/users", {
-    query: { role: filters.role || undefined, q: filters.q || undefined, page: filters.page, pageSize: filters.pageSize },
-    signal,
-  });
+  api.get<UserPage>("/users", { query: usersQuery(filters), signal });
 
 export const usersQueryOptions = (filters: UserListFilters) =>
   queryOptions({

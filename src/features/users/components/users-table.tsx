@@ -3,13 +3,14 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { DataTable, dataTableColumnHelper, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
+import { ExportLinks } from "@/components/ui/export-links";
 import { controlClasses } from "@/components/ui/field";
 import { SearchField } from "@/components/ui/search-field";
 import { errorMessage } from "@/lib/api-client";
 import { cn } from "@/lib/cn";
 import { formatDateTime } from "@/lib/dates";
 import { ROLES, roleLabels } from "@/lib/roles";
-import { useUsers } from "../api/get-users";
+import { useUsers, usersQuery } from "../api/get-users";
 import type { ManagedUser } from "../api/types";
 import { useUsersTableParams } from "../hooks/use-users-table-params";
 import { StatusBadge } from "./status-badge";
@@ -103,6 +104,7 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
             ))}
           </select>
         </div>
+        <ExportLinks path="/users/export" query={usersQuery(filters)} what="people in this list" />
       </div>
 
       <DataTable

@@ -4,6 +4,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { DataTable, TableLoadError, useServerTable } from "@/components/ui/data-table";
 import { EmptyState } from "@/components/ui/empty-state";
+import { ExportLinks } from "@/components/ui/export-links";
 import { FanGuidance } from "./fan-guidance";
 import { ScheduleDialog } from "./schedule-dialog";
 import { errorMessage } from "@/lib/api-client";
@@ -14,7 +15,7 @@ import { useOrdersTableParams } from "../hooks/use-works-params";
 import { isFanWork } from "@/lib/extract-rates";
 import { orderReference } from "../lib/labels";
 import { todayInLondon } from "../lib/week";
-import { ORDER_SORTS, type OrderSort } from "../lib/works-view";
+import { ORDER_SORTS, orderQuery, type OrderSort } from "../lib/works-view";
 import { detailId, ExpandedRowsContext, workOrderColumns } from "./work-order-columns";
 import { WorkOrdersFilters } from "./work-orders-filters";
 
@@ -128,6 +129,7 @@ export function WorkOrdersTable() {
   return (
     <div className="flex flex-col gap-4">
       <WorkOrdersFilters view={view} staff={staff.data} />
+      <ExportLinks path="/work-orders/export" query={orderQuery(params)} what="work orders in this list" />
       {booked ? (
         <Alert tone="success" title={`${orderReference(booked)} is booked`}>
           The tenant is asked to confirm the slot.

@@ -1,0 +1,164 @@
+// The columns of each table view that can be exported (CSV or .xlsx), in the order the screen shows
+// them, with the same headings: one list per view, read by the server's export and by the tables.
+// Values come from the same response shapes the tables show, so an export holds what the screen holds.
+import { z } from "zod";
+import type { PropertySummaryResponse } from "./properties.js";
+import type { ReadingResponse } from "./readings.js";
+import type { QueueItemResponse } from "./triage.js";
+import type { UserResponse } from "./users.js";
+import type { WorkOrderResponse } from "./works.js";
+
+export const EXPORT_FORMATS = ["csv", "xlsx"] as const;
+export type ExportFormat = (typeof EXPORT_FORMATS)[number];
+
+/** Text, a real number (kept a number in .xlsx), yes/no, or empty. Times are ISO 8601 UTC text. */
+export type ExportCell = string | number | boolean | null;
+
+export interface ExportColumn<T> {
+  id: string;
+  header: string;
+  value: (row: T) => ExportCell;
+}
+
+/** `format=csv|xlsx` (csv when left out), shared by every export route. */
+export const exportFormatSchema = z.enum(EXPORT_FORMATS, { error: "format must be csv or xlsx." }).default("csv");
+
+// ── The officers' queue ────────────────────────────────────────────────────────────────────────────
+
+/** The queue's data columns; the ids are GET /api/cases's sort keys and the column chooser's (cols=…). */
+export const QUEUE_COLUMN_IDS = [
+  "reference",
+  "priority",
+  "address",
+  "risk",
+  "due",
+  "status",
+  "estate",
+  "rooms",
+  "awareAt",
+  "channel",
+  "mouldIndex",
+  "area",
+  "vulnerable",
+  "band",
+  "assignee",
+] as const;
+export type QueueColumnId = (typeof QUEUE_COLUMN_IDS)[number];
+
+/** The heading of each queue column, on screen and in an export. */
+export const QUEUE_COLUMN_LABELS: Record<QueueColumnId, string> = {
+  reference: "Reference",
+  address: "Home",
+  estate: "Estate and block",
+  rooms: "Rooms",
+  awareAt: "Reported",
+  channel: "Channel",
+  risk: "Risk state",
+  mouldIndex: "Mould index",
+  area: "Affected area",
+  vulnerable: "Vulnerable household",
+  band: "HHSRS",
+  priority: "Priority",
+  due: "Next deadline",
+  status: "Status",
+  assignee: "Assigned to",
+};
+
+/** The optional columns shown until someone chooses others (the reference always shows). */
+export const QUEUE_DEFAULT_COLUMNS: readonly QueueColumnId[] = ["priority", "address", "risk", "due", "status"];
+
+const queueValues: Record<QueueColumnId, (r: QueueItemResponse) => ExportCell> = {
+  reference: (r) => r.reference ?? `Case ${r.id}`,
+  priority: (r) => r.priority,
+  address: (r) => `${r.property.addressLine1}, ${r.property.town}, ${r.property.postcode}`,
+  risk: (r) => r.riskState ?? "unknown",
+  due: (r) => r.nextDeadline?.dueAt ?? null,
+  status: (r) => r.status,
+  estate: (r) => (r.property.block ? `${r.property.estate}, ${r.property.block}` : r.property.estate),
+  rooms: (r) => r.rooms.map((room) => room.name).join(", "),
+  awareAt: (r) => r.awareAt,
+  channel: (r) => r.channel,
+  mouldIndex: (r) => r.mouldIndex,
+  area: (r) => r.area,
+  vulnerable: (r) => r.vulnerableHousehold,
+  band: (r) => (r.hhsrs ? `${r.hhsrs.band} (Category ${r.hhsrs.category})` : null),
+  assignee: (r) => r.assignee?.name ?? null,
+};
+
+/** The queue's export columns: the reference, then the shown ones in the screen's order. */
+export function queueExportColumns(shown: readonly QueueColumnId[] = QUEUE_DEFAULT_COLUMNS): ExportColumn<QueueItemResponse>[] {
+  const wanted = new Set<QueueColumnId>(["reference", ...shown]);
+  return QUEUE_COLUMN_IDS.filter((id) => wanted.has(id)).map((id) => ({
+    id,
+    header: QUEUE_COLUMN_LABELS[id],
+    value: queueValues[id],
+  }));
+}
+
+/** `columns=` of the queue's export: a comma list of column ids (unknown ids are refused). */
+export const queueColumnsSchema = z
+  .string()
+  .trim()
+  .transform((raw, ctx) => {
+    if (raw === "none") return [];
+    const given = raw
+      .split(",")
+      .map((v) => v.trim())
+      .filter(Boolean);
+    const strange = given.filter((v) => !(QUEUE_COLUMN_IDS as readonly string[]).includes(v));
+    if (strange.length) {
+      ctx.addIssue({ code: "custom", message: `columns: ${strange.join(", ")} is not one of ${QUEUE_COLUMN_IDS.join(", ")}.` });
+      return z.NEVER;
+    }
+    return given as QueueColumnId[];
+  });
+
+// ── Homes, work orders, accounts, a case's readings ─────────────────────────────────────────────────
+
+export const HOME_EXPORT_COLUMNS: readonly ExportColumn<PropertySummaryResponse>[] = [
+  { id: "address", header: "Address", value: (h) => [h.addressLine1, h.addressLine2].filter(Boolean).join(", ") },
+  { id: "town", header: "Town", value: (h) => h.town },
+  { id: "postcode", header: "Postcode", value: (h) => h.postcode },
+  { id: "estate", header: "Estate", value: (h) => h.estate },
+  { id: "block", header: "Block", value: (h) => h.block },
+  { id: "builtForm", header: "Type", value: (h) => h.builtForm },
+  { id: "wallType", header: "Walls", value: (h) => h.wallType },
+  { id: "glazingType", header: "Glazing", value: (h) => h.glazingType },
+  { id: "heatingType", header: "Heating", value: (h) => h.heatingType },
+  { id: "ventilation", header: "Ventilation", value: (h) => h.ventilation },
+  // Text, not a number: a UPRN's leading digits and its length matter.
+  { id: "uprn", header: "UPRN", value: (h) => h.uprn },
+];
+
+export const WORK_ORDER_EXPORT_COLUMNS: readonly ExportColumn<WorkOrderResponse>[] = [
+  { id: "reference", header: "Reference", value: (w) => w.caseReference ?? `Case ${w.caseId}` },
+  { id: "address", header: "Address", value: (w) => `${w.property.addressLine1}, ${w.property.town}, ${w.property.postcode}` },
+  { id: "type", header: "Type", value: (w) => w.type },
+  { id: "priority", header: "Priority", value: (w) => w.priority },
+  { id: "target", header: "Target date", value: (w) => w.targetDate },
+  { id: "status", header: "Status", value: (w) => w.status },
+  { id: "who", header: "Operative or contractor", value: (w) => w.assignee?.name ?? w.contractor?.name ?? null },
+  { id: "slot", header: "Visit", value: (w) => (w.slot ? `${w.slot.date} ${w.slot.window}` : null) },
+  { id: "created", header: "Raised", value: (w) => w.createdAt },
+];
+
+export const USER_EXPORT_COLUMNS: readonly ExportColumn<UserResponse>[] = [
+  { id: "name", header: "Name", value: (u) => u.name },
+  { id: "email", header: "E-mail", value: (u) => u.email },
+  { id: "role", header: "Role", value: (u) => u.role },
+  { id: "status", header: "Status", value: (u) => u.status },
+  { id: "lastSignInAt", header: "Last sign-in", value: (u) => u.lastSignInAt },
+];
+
+/** A reading with its room's name, as the case's readings table shows it. */
+export type ReadingExportRow = ReadingResponse & { roomName: string };
+
+export const READING_EXPORT_COLUMNS: readonly ExportColumn<ReadingExportRow>[] = [
+  { id: "takenAt", header: "Taken at (UTC)", value: (r) => r.takenAt },
+  { id: "room", header: "Room", value: (r) => r.roomName },
+  { id: "airTemperatureC", header: "Air temperature (°C)", value: (r) => r.airTemperatureC },
+  { id: "relativeHumidityPct", header: "Relative humidity (%)", value: (r) => r.relativeHumidityPct },
+  { id: "surfaceTemperatureC", header: "Surface temperature (°C)", value: (r) => r.surfaceTemperatureC },
+  { id: "outdoorTemperatureC", header: "Outdoor temperature (°C)", value: (r) => r.outdoorTemperatureC },
+  { id: "source", header: "Source", value: (r) => r.source },
+];
