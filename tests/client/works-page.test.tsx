@@ -9,6 +9,12 @@ import { renderApp } from "./support/render-app";
 const DAY = 86_400_000;
 const today = new Intl.DateTimeFormat("en-CA", { timeZone: "Europe/London" }).format(new Date());
 const plus = (date: string, days: number) => new Date(Date.parse(`${date}T00:00:00Z`) + days * DAY).toISOString().slice(0, 10);
+/** `days` after today, moved on to the Monday when that falls at a weekend (visits are not booked then). */
+const weekdayAhead = (days: number) => {
+  const date = plus(today, days);
+  const weekday = new Date(`${date}T00:00:00Z`).getUTCDay();
+  return weekday === 6 ? plus(date, 2) : weekday === 0 ? plus(date, 1) : date;
+};
 const mondayOf = (date: string) => plus(date, -((new Date(`${date}T00:00:00Z`).getUTCDay() + 6) % 7));
 const thisMonday = mondayOf(today);
 const nextMonday = plus(thisMonday, 7);
@@ -257,7 +263,7 @@ describe("Works page", () => {
   });
 
   it("books an operative from the table with the right PATCH body, then closes and refreshes", async () => {
-    const date = plus(today, 7);
+    const date = weekdayAhead(7);
     const { callsTo } = setup("/works", {
       "PATCH /api/work-orders/11": (call) => ({
         body: bookedAs({ ...tableOrders[0], status: "scheduled", assignee: sam }, call.body),
@@ -303,7 +309,7 @@ describe("Works page", () => {
   });
 
   it("books a contractor when one is chosen", async () => {
-    const date = plus(today, 3);
+    const date = weekdayAhead(3);
     const { callsTo } = setup("/works", { "PATCH /api/work-orders/11": { body: tableOrders[0] } });
     const table = await ordersTable();
     const user = userEvent.setup();
