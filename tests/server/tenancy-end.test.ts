@@ -46,6 +46,10 @@ describe("a tenancy's end date", () => {
     await tenant.get(`/api/cases/${caseId}`).expect(200);
     const mine = await tenant.get("/api/me/cases").expect(200);
     expect(JSON.stringify(mine.body)).toContain(`"id":${caseId}`);
+    const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
+    await officer.post(`/api/cases/${caseId}/messages`, { body: "We will call on Tuesday.", internal: false }).expect(201);
+    const unread = (await tenant.get("/api/me/unread-messages").expect(200)).body;
+    expect(unread.items.map((i: { caseId: number }) => i.caseId)).toContain(caseId);
   });
 
   it("closes them from the day after: the case, its timeline, the list and the home are gone", async () => {
@@ -56,6 +60,9 @@ describe("a tenancy's end date", () => {
     expect(JSON.stringify(mine.body)).not.toContain(`"id":${caseId}`);
     const home = await tenant.get("/api/me/home").expect(404);
     expect(home.body.error.message).toMatch(/current tenancy/);
+    // Nor does the unread count still point at the old home's messages.
+    const unread = (await tenant.get("/api/me/unread-messages").expect(200)).body;
+    expect(unread).toMatchObject({ items: [], total: 0 });
     // Staff still see the case.
     const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
     await officer.get(`/api/cases/${caseId}`).expect(200);

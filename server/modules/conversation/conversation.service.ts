@@ -235,18 +235,21 @@ export class ConversationService {
 
   /**
    * The cases with messages from the other side the actor has not read, newest first: a tenant's own
-   * cases; for staff, the cases assigned to them and those nobody is assigned to (whose tenants'
+   * cases at the homes they live in today (as CaseService.listForTenant); for staff, the cases assigned to them and those nobody is assigned to (whose tenants'
    * messages are e-mailed to every officer).
    */
   async unreadCases(actor: Actor, limit = 100): Promise<UnreadCase[]> {
     const staff = isStaff(actor);
     const types = incomingTypes(staff);
+    // A tenant counts only the cases they can open: their own, at the homes they live in today.
+    const own = staff ? [] : (await this.cases.listForTenant(actor)).map((c) => c.id);
+    if (!staff && own.length === 0) return [];
     const scope = staff
       ? {
           sql: "c.organisation_id = ? AND (c.assignee_user_id = ? OR c.assignee_user_id IS NULL)",
           params: [actor.organisationId, actor.id],
         }
-      : { sql: "c.tenant_user_id = ?", params: [actor.id] };
+      : { sql: `c.id IN (${placeholders(own.length)})`, params: own };
     // cases and case_events belong to the cases module; this only reads them, joined by table name in one query.
     const rows = (await this.dataSource.query(
       `SELECT e.case_id AS caseId, c.reference AS reference, COUNT(*) AS unread, MAX(e.created_at) AS latestAt
