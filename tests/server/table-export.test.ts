@@ -222,8 +222,8 @@ describe("exporting a case's readings", () => {
       "Source",
     ]);
     expect(sheet.slice(1).map((r) => r.slice(1))).toEqual([
-      ["Bedroom", 17.5, 81, null, -3.5, "manual"],
-      ["Bedroom", 18, 75.5, 11.2, null, "manual"],
+      ["Bedroom", 17.5, 81, null, -3.5, "By hand"],
+      ["Bedroom", 18, 75.5, 11.2, null, "By hand"],
     ]);
     const csv = await csvRows(officer, `/api/cases/${caseId}/readings/export?roomId=${bedroomId}`);
     expect(csv.slice(1).map((r) => r[5])).toEqual(["-3.5", ""]);
@@ -265,7 +265,7 @@ describe("exporting work orders and accounts", () => {
       "Visit",
       "Raised",
     ]);
-    expect(rows.slice(1).map((r) => r[2])).toEqual(["extractor-fan"]);
+    expect(rows.slice(1).map((r) => r[2])).toEqual(["Extractor fan"]);
     const theirs = await csvRows(otherAdmin, `/api/work-orders/export?caseId=${caseId}`);
     expect(theirs).toHaveLength(1);
   });

@@ -6,6 +6,7 @@ import { CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
 import { SURFACE_STATES } from "../../../src/lib/domain/surface.js";
 import { TRIAGE_AREAS } from "../../../src/lib/domain/triage-priority.js";
 import { escapeLike } from "../../lib/sql.js";
+import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-export.js";
 import type { Actor } from "../auth/actor.js";
 import type { QueueQuery, QueueSort } from "./case-queue.schemas.js";
 import { Case } from "./case.entity.js";
@@ -71,8 +72,48 @@ const SORTS: Record<Exclude<QueueSort, "priority">, { expr: string; nullable: bo
   assignee: { expr: "u.name", nullable: true },
 };
 
+/** The columns of a queue row (`c` the case, `p` its home, `u` the assignee). */
+const ROW_COLUMNS = [
+  "c.id AS id",
+  "c.reference AS reference",
+  "c.status AS status",
+  "c.channel AS channel",
+  "c.aware_at AS awareAt",
+  "c.created_at AS createdAt",
+  "p.id AS propertyId",
+  "p.address_line1 AS addressLine1",
+  "p.town AS town",
+  "p.postcode AS postcode",
+  "p.estate AS estate",
+  "p.block AS block",
+  "c.risk_state AS riskState",
+  "c.mould_index AS mouldIndex",
+  "c.area AS area",
+  "c.vulnerable_household AS vulnerableHousehold",
+  "c.hazard_class AS hazardClass",
+  "c.hhsrs_band AS hhsrsBand",
+  "c.hhsrs_category AS hhsrsCategory",
+  "c.priority AS priority",
+  "c.next_stage AS nextStage",
+  "c.next_due_at AS nextDueAt",
+  "u.id AS assigneeId",
+  "u.name AS assigneeName",
+];
+
 /** Sorts whose expression reads the home (`p`). */
 const SORTS_ON_PROPERTY = new Set<QueueSort>(["address", "estate"]);
+
+/** The queue's ORDER BY, term by term; the last term (the id) makes it total, so a keyset can follow it. */
+function sortTerms(query: Pick<QueueQuery, "sort" | "order">): KeyTerm[] {
+  if (query.sort === "priority") {
+    // The default order, served by idx_cases_queue: priority, then the nearest deadline.
+    const desc = query.order !== "asc";
+    return [{ expr: "c.priority", desc }, { expr: "c.next_due_at", desc: !desc, nullable: true }, { expr: "c.id" }];
+  }
+  const { expr, nullable } = SORTS[query.sort];
+  const desc = query.order === "desc";
+  return [...(nullable ? [{ expr: `(${expr}) IS NULL` }] : []), { expr, desc, nullable }, { expr: "c.id" }];
+}
 
 /** The officers' queue: one landlord's cases filtered, sorted and paged on the stored triage figures. */
 export class QueueService {
@@ -118,37 +159,62 @@ export class QueueService {
       .innerJoin(Case, "c", "c.id = page.id")
       .innerJoin("c.property", "p")
       .leftJoin("users", "u", "u.id = c.assignee_user_id")
-      .select([
-        "c.id AS id",
-        "c.reference AS reference",
-        "c.status AS status",
-        "c.channel AS channel",
-        "c.aware_at AS awareAt",
-        "c.created_at AS createdAt",
-        "p.id AS propertyId",
-        "p.address_line1 AS addressLine1",
-        "p.town AS town",
-        "p.postcode AS postcode",
-        "p.estate AS estate",
-        "p.block AS block",
-        "c.risk_state AS riskState",
-        "c.mould_index AS mouldIndex",
-        "c.area AS area",
-        "c.vulnerable_household AS vulnerableHousehold",
-        "c.hazard_class AS hazardClass",
-        "c.hhsrs_band AS hhsrsBand",
-        "c.hhsrs_category AS hhsrsCategory",
-        "c.priority AS priority",
-        "c.next_stage AS nextStage",
-        "c.next_due_at AS nextDueAt",
-        "u.id AS assigneeId",
-        "u.name AS assigneeName",
-      ])
+      .select(ROW_COLUMNS)
       .setParameters(page.getParameters());
     this.applySort(list, query);
 
     const [rows, count] = await Promise.all([list.getRawMany<QueueRow>(), counter.getRawOne<{ n: string | number }>()]);
     return { rows, rooms: await this.roomsOf(rows.map((r) => r.id)), total: Number(count?.n ?? 0) };
+  }
+
+  /**
+   * For exports: the next `limit` rows of the queue in its order, after the row whose sort values are
+   * `after` (null: from the top), with this page's last sort values. A keyset, not an offset: the
+   * 100th page costs what the first does. Stale figures are worked out once, before the first page.
+   */
+  async listAfter(
+    actor: Actor,
+    query: Omit<QueueQuery, "page" | "pageSize">,
+    after: readonly unknown[] | null,
+    limit: number,
+    now = this.clock.now(),
+  ): Promise<KeysetPage<QueueRow> & { rooms: Map<number, { id: number; name: string }[]> }> {
+    if (!after) await this.refreshStale(actor.organisationId);
+    const full = { ...query, page: 1, pageSize: limit };
+    const terms = sortTerms(full);
+    const page = this.dataSource
+      .getRepository(Case)
+      .createQueryBuilder("c")
+      .where("c.organisation_id = :org", { org: actor.organisationId });
+    const needsProperty = this.applyFilters(page, actor, full, now);
+    if (needsProperty || SORTS_ON_PROPERTY.has(query.sort)) page.innerJoin("c.property", "p");
+    if (query.sort === "assignee") page.leftJoin("users", "u", "u.id = c.assignee_user_id");
+    page.select("c.id", "id");
+    terms.forEach((term, i) => page.addSelect(term.expr, `k${i}`));
+    if (after) {
+      const { sql, params } = keysetAfter(terms, after);
+      page.andWhere(sql, params);
+    }
+    this.applySort(page, full);
+    page.limit(limit);
+    const keys = await page.getRawMany<Record<string, unknown>>();
+    if (!keys.length) return { rows: [], last: null, rooms: new Map() };
+
+    const ids = keys.map((k) => Number(k.id));
+    const list = this.rowsQuery().where("c.id IN (:...ids)", { ids });
+    this.applySort(list, full);
+    const rows = await list.getRawMany<QueueRow>();
+    const tail = keys.at(-1)!;
+    return { rows, last: terms.map((_, i) => tail[`k${i}`] ?? null), rooms: await this.roomsOf(ids) };
+  }
+
+  private rowsQuery() {
+    return this.dataSource
+      .getRepository(Case)
+      .createQueryBuilder("c")
+      .innerJoin("c.property", "p")
+      .leftJoin("users", "u", "u.id = c.assignee_user_id")
+      .select(ROW_COLUMNS);
   }
 
   /**
@@ -239,19 +305,8 @@ export class QueueService {
   }
 
   private applySort(qb: SelectQueryBuilder<ObjectLiteral>, query: QueueQuery) {
-    if (query.sort === "priority") {
-      // The default order, served by idx_cases_queue: priority, then the nearest deadline.
-      const dir = query.order === "asc" ? "ASC" : "DESC";
-      qb.orderBy("c.priority", dir)
-        .addOrderBy("c.next_due_at", dir === "DESC" ? "ASC" : "DESC")
-        .addOrderBy("c.id", "ASC");
-      return;
-    }
-    const { expr, nullable } = SORTS[query.sort];
-    const dir = query.order === "desc" ? "DESC" : "ASC";
     qb.orderBy();
-    if (nullable) qb.addOrderBy(`(${expr}) IS NULL`, "ASC");
-    qb.addOrderBy(expr, dir).addOrderBy("c.id", "ASC");
+    for (const term of sortTerms(query)) qb.addOrderBy(term.expr, term.desc ? "DESC" : "ASC");
   }
 
   private async roomsOf(caseIds: number[]): Promise<Map<number, { id: number; name: string }[]>> {

@@ -4,12 +4,12 @@ import { homePatchSchema, homeSchema, roomPatchSchema, roomSchema } from "../../
 import { HOME_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
 import type { Clock } from "../../lib/clock.js";
-import { EXPORT_PAGE_SIZE, sendTableExport } from "../../lib/table-export.js";
+import { EXPORT_PAGE_SIZE, keysetPages, newPageTimes, sendTableExport } from "../../lib/table-export.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import { idParamsSchema, propertyExportQuerySchema, propertyListQuerySchema, roomParamsSchema } from "./properties.schemas.js";
 import { toPropertyDto, toPropertySummaryDto, toRoomDto } from "./property.mapper.js";
-import type { HomeCursor, PropertyService, RoomReadingsCounter } from "./property.service.js";
+import type { PropertyService, RoomReadingsCounter } from "./property.service.js";
 
 export function createPropertiesRouter({
   properties,
@@ -35,19 +35,21 @@ export function createPropertiesRouter({
   router.get("/export", async (req, res) => {
     const { format, ...query } = parse(propertyExportQuerySchema, req.query, "query");
     const actor = actorOf(req);
+    const times = newPageTimes();
     await sendTableExport(res, {
       format,
       view: "homes",
       now: clock.now(),
       columns: HOME_EXPORT_COLUMNS,
-      pages: (async function* () {
-        let after: HomeCursor | null = null;
-        do {
-          const { items, last } = await properties.listAfter(actor, query, after, EXPORT_PAGE_SIZE);
-          if (items.length) yield items.map(toPropertySummaryDto);
-          after = items.length < EXPORT_PAGE_SIZE ? null : last;
-        } while (after);
-      })(),
+      times,
+      pages: keysetPages(
+        async (after, limit) => {
+          const { rows, last } = await properties.listAfter(actor, query, after, limit);
+          return { rows: rows.map(toPropertySummaryDto), last };
+        },
+        EXPORT_PAGE_SIZE,
+        times,
+      ),
     });
   });
 

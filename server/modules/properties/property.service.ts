@@ -1,4 +1,5 @@
 import { Brackets, QueryFailedError, type DataSource, type EntityManager } from "typeorm";
+import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-export.js";
 import type { HomeInput, HomePatch, RoomInput, RoomPatch } from "../../../src/lib/schemas/homes.js";
 import { ConflictError, NotFoundError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
@@ -26,11 +27,8 @@ const isDuplicate = (error: unknown) =>
     (error.driverError as { errno?: number } | undefined)?.errno === 1062);
 
 /** Where a keyset page of the homes list ends. */
-export interface HomeCursor {
-  estate: string;
-  sortKey: string;
-  id: number;
-}
+/** The homes list's order: estate, then the natural order of block and address (sort_key, kept by MariaDB), then the id. */
+const HOME_SORT: readonly KeyTerm[] = [{ expr: "p.estate" }, { expr: "p.sort_key" }, { expr: "p.id" }];
 
 const uprnTaken = (uprn: string | null | undefined) =>
   new ConflictError(`Another home already has the UPRN ${uprn ?? ""}.`, [
@@ -88,7 +86,9 @@ export class PropertyService {
       );
     }
     // sort_key is the natural order of block and address (Flat 2 before Flat 10), kept by MariaDB.
-    return qb.orderBy("p.estate", "ASC").addOrderBy("p.sort_key", "ASC").addOrderBy("p.id", "ASC");
+    qb.orderBy();
+    for (const term of HOME_SORT) qb.addOrderBy(term.expr, "ASC");
+    return qb;
   }
 
   /** Staff only (the route checks the role): homes of the actor's organisation. */
@@ -107,19 +107,17 @@ export class PropertyService {
   async listAfter(
     actor: Actor,
     query: Pick<PropertyListQuery, "q" | "estate">,
-    after: HomeCursor | null,
+    after: readonly unknown[] | null,
     limit: number,
-  ): Promise<{ items: Property[]; last: HomeCursor | null }> {
+  ): Promise<KeysetPage<Property>> {
     const qb = this.filtered(actor, query).addSelect("p.sortKey").take(limit);
-    if (after)
-      qb.andWhere("(p.estate > :ae OR (p.estate = :ae AND (p.sort_key > :ak OR (p.sort_key = :ak AND p.id > :ai))))", {
-        ae: after.estate,
-        ak: after.sortKey,
-        ai: after.id,
-      });
-    const items = await qb.getMany();
-    const tail = items.at(-1);
-    return { items, last: tail ? { estate: tail.estate, sortKey: tail.sortKey ?? "", id: tail.id } : null };
+    if (after) {
+      const { sql, params } = keysetAfter(HOME_SORT, after);
+      qb.andWhere(sql, params);
+    }
+    const rows = await qb.getMany();
+    const tail = rows.at(-1);
+    return { rows, last: tail ? [tail.estate, tail.sortKey, tail.id] : null };
   }
 
   /** A home of the actor's organisation with its rooms; 404 for anything else, so other landlords' homes stay invisible. */

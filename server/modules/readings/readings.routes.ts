@@ -8,7 +8,7 @@ import {
 import { READING_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
 import type { Clock } from "../../lib/clock.js";
-import { EXPORT_PAGE_SIZE, sendTableExport } from "../../lib/table-export.js";
+import { EXPORT_PAGE_SIZE, keysetPages, newPageTimes, sendTableExport } from "../../lib/table-export.js";
 import { mkdirSync } from "node:fs";
 import { Router, type RequestHandler } from "express";
 import multer from "multer";
@@ -86,27 +86,34 @@ export function createReadingsRouter({ cases, readings, imports, evaluation, inc
     const { roomId, format } = parse(readingsExportQuerySchema, req.query, "query");
     const c = res.locals.case;
     const roomNames = new Map(cases.roomsOf(c).map((r) => [r.id, r.name]));
-    async function* pages() {
-      let after: { takenAt: Date; roomId: number } | undefined;
-      for (;;) {
-        const rows = await readings.listAfter(c.id, { roomId, after, limit: EXPORT_PAGE_SIZE });
-        if (rows.length) {
-          yield rows.map((r) => ({
-            ...r,
-            takenAt: r.takenAt.toISOString(),
-            roomName: roomNames.get(r.roomId) ?? `Room ${r.roomId}`,
-          }));
-          after = rows[rows.length - 1];
-        }
-        if (rows.length < EXPORT_PAGE_SIZE) return;
-      }
-    }
+    const times = newPageTimes();
     await sendTableExport(res, {
       format,
       view: `readings-${c.reference ?? c.id}`,
       now: clock.now(),
       columns: READING_EXPORT_COLUMNS,
-      pages: pages(),
+      times,
+      // Keyset on (taken_at, room_id): one reading per room and moment, so the pair is the row's key.
+      pages: keysetPages(
+        async (after, limit) => {
+          const rows = await readings.listAfter(c.id, {
+            roomId,
+            after: after ? { takenAt: after[0] as Date, roomId: after[1] as number } : undefined,
+            limit,
+          });
+          const tail = rows.at(-1);
+          return {
+            rows: rows.map((r) => ({
+              ...r,
+              takenAt: r.takenAt.toISOString(),
+              roomName: roomNames.get(r.roomId) ?? `Room ${r.roomId}`,
+            })),
+            last: tail ? [tail.takenAt, tail.roomId] : null,
+          };
+        },
+        EXPORT_PAGE_SIZE,
+        times,
+      ),
     });
   });
 

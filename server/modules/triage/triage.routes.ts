@@ -5,7 +5,7 @@ import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageRespo
 import { CASE_TRANSITIONS, canTransition, movesValidForAll } from "../../../src/lib/domain/case-workflow.js";
 import { queueExportColumns } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
-import { paged, sendTableExport } from "../../lib/table-export.js";
+import { EXPORT_PAGE_SIZE, keysetPages, newPageTimes, sendTableExport } from "../../lib/table-export.js";
 import { AppError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
@@ -51,15 +51,21 @@ export function createTriageRouter({
     const { format, columns, ...query } = parse(queueExportQuerySchema, req.query, "query");
     const actor = actorOf(req);
     const now = clock.now();
+    const times = newPageTimes();
     await sendTableExport(res, {
       format,
       view: "queue",
       now,
       columns: queueExportColumns(columns),
-      pages: paged(async (page, pageSize) => {
-        const { rows, rooms } = await queue.list(actor, { ...query, page, pageSize }, now);
-        return rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now));
-      }),
+      times,
+      pages: keysetPages(
+        async (after, limit) => {
+          const { rows, rooms, last } = await queue.listAfter(actor, query, after, limit, now);
+          return { rows: rows.map((r) => toQueueItemDto(r, rooms.get(r.id) ?? [], now)), last };
+        },
+        EXPORT_PAGE_SIZE,
+        times,
+      ),
     });
   });
 

@@ -1,4 +1,5 @@
 import { Brackets, In, type DataSource, type EntityManager } from "typeorm";
+import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-export.js";
 import type { Clock } from "../../lib/clock.js";
 import { systemClock } from "../../lib/clock.js";
 import { ConflictError, NotFoundError } from "../../lib/errors.js";
@@ -50,6 +51,9 @@ export type SessionAccount = Readonly<Person & Pick<User, "status" | "sessionEpo
  * long, so a request reading it before the transaction commits cannot put the old account back.
  */
 const CHANGED_ACCOUNT_HOLD_OFF_MS = 60_000;
+
+/** The accounts list's order: role, name, then the id to make it total (for keyset pages). */
+const USER_SORT: readonly KeyTerm[] = [{ expr: "u.role" }, { expr: "u.name" }, { expr: "u.id" }];
 
 export class UserService {
   /** Accounts behind sessions, for `sessionCacheMs` (server/lib/recent-cache.ts); every change here forgets one. */
@@ -211,7 +215,8 @@ export class UserService {
     });
   }
 
-  async list(actor: Actor, query: UserListQuery): Promise<{ items: User[]; total: number }> {
+  /** The accounts list's filters and order on `u`: one definition for the screen's pages and the export's. */
+  private filtered(actor: Actor, query: Pick<UserListQuery, "role" | "q">) {
     const qb = this.dataSource
       .getRepository(User)
       .createQueryBuilder("u")
@@ -221,14 +226,34 @@ export class UserService {
       const like = `%${escapeLike(query.q)}%`;
       qb.andWhere(new Brackets((w) => w.where("u.name LIKE :like", { like }).orWhere("u.email LIKE :like", { like })));
     }
-    const [items, total] = await qb
-      .orderBy("u.role", "ASC")
-      .addOrderBy("u.name", "ASC")
-      .addOrderBy("u.id", "ASC")
+    qb.orderBy();
+    for (const term of USER_SORT) qb.addOrderBy(term.expr, "ASC");
+    return qb;
+  }
+
+  async list(actor: Actor, query: UserListQuery): Promise<{ items: User[]; total: number }> {
+    const [items, total] = await this.filtered(actor, query)
       .skip((query.page - 1) * query.pageSize)
       .take(query.pageSize)
       .getManyAndCount();
     return { items, total };
+  }
+
+  /** For exports: the next `limit` accounts after the one whose sort values are `after` (a keyset, not an offset). */
+  async listAfter(
+    actor: Actor,
+    query: Pick<UserListQuery, "role" | "q">,
+    after: readonly unknown[] | null,
+    limit: number,
+  ): Promise<KeysetPage<User>> {
+    const qb = this.filtered(actor, query).take(limit);
+    if (after) {
+      const { sql, params } = keysetAfter(USER_SORT, after);
+      qb.andWhere(sql, params);
+    }
+    const rows = await qb.getMany();
+    const tail = rows.at(-1);
+    return { rows, last: tail ? [tail.role, tail.name, tail.id] : null };
   }
 
   /**

@@ -3,7 +3,7 @@ import { staffListResponse, userHistoryResponse, userPageResponse } from "../../
 import { USER_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
 import type { Clock } from "../../lib/clock.js";
-import { paged, sendTableExport } from "../../lib/table-export.js";
+import { EXPORT_PAGE_SIZE, keysetPages, newPageTimes, sendTableExport } from "../../lib/table-export.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
@@ -25,12 +25,21 @@ export function createUsersRouter({ users, clock }: { users: UserService; clock:
   router.get("/export", async (req, res) => {
     const { format, ...query } = parse(userExportQuerySchema, req.query, "query");
     const actor = actorOf(req);
+    const times = newPageTimes();
     await sendTableExport(res, {
       format,
       view: "accounts",
       now: clock.now(),
       columns: USER_EXPORT_COLUMNS,
-      pages: paged(async (page, pageSize) => (await users.list(actor, { ...query, page, pageSize })).items.map(toUserDto)),
+      times,
+      pages: keysetPages(
+        async (after, limit) => {
+          const { rows, last } = await users.listAfter(actor, query, after, limit);
+          return { rows: rows.map(toUserDto), last };
+        },
+        EXPORT_PAGE_SIZE,
+        times,
+      ),
     });
   });
 

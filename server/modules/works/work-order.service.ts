@@ -18,6 +18,7 @@ import { OperativeSlot } from "./operative-slot.entity.js";
 import { WorkOrder, type SlotWindow } from "./work-order.entity.js";
 import type { WorkOrderCompletion, WorkOrderCreate, WorkOrderListQuery } from "./works.schemas.js";
 import type { Clock } from "../../lib/clock.js";
+import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-export.js";
 
 export const WORK_WORDS: Record<WorkOrder["type"], string> = {
   "extractor-fan": "extractor fan fitting or repair",
@@ -61,6 +62,34 @@ type Deliveries = (() => Promise<unknown>)[];
  * The case's status follows its orders. Every change writes its CaseEvent in the same transaction,
  * and e-mails are queued there and sent after commit.
  */
+/** The list's ORDER BY, term by term (fixed SQL, never user text); the id last makes it total, for keyset pages. */
+function workOrderSortTerms(q: Pick<WorkOrderListQuery, "sort" | "order">): KeyTerm[] {
+  const desc = q.order === "desc";
+  const id = { expr: "w.id" };
+  switch (q.sort) {
+    case "slot":
+      return [
+        { expr: "w.slot_date IS NULL" },
+        { expr: "w.slot_date", desc, nullable: true },
+        { expr: "FIELD(w.slot_window, 'am', 'all-day', 'pm')" },
+        id,
+      ];
+    case "target":
+      return [{ expr: "w.target_date", desc }, id];
+    case "created":
+      return [{ expr: "w.created_at", desc }, id];
+    case "priority":
+      return [{ expr: "FIELD(w.priority, 'emergency', 'urgent', 'routine')", desc }, id];
+    case "type":
+      return [{ expr: "w.type", desc }, id];
+    case "status":
+      return [
+        { expr: "FIELD(w.status, 'unscheduled', 'change-requested', 'scheduled', 'confirmed', 'done', 'cancelled')", desc },
+        id,
+      ];
+  }
+}
+
 export class WorkOrderService {
   constructor(
     private readonly dataSource: DataSource,
@@ -150,7 +179,8 @@ export class WorkOrderService {
     return this.dataSource.getRepository(WorkOrder).find({ where: { caseId: c.id }, order: { id: "ASC" } });
   }
 
-  async list(actor: Actor, q: WorkOrderListQuery): Promise<{ items: WorkOrder[]; total: number }> {
+  /** The list's filters on `w`: one definition for the screen's pages and the export's. */
+  private filtered(actor: Actor, q: Omit<WorkOrderListQuery, "page" | "pageSize">) {
     const qb = this.dataSource
       .getRepository(WorkOrder)
       .createQueryBuilder("w")
@@ -163,25 +193,47 @@ export class WorkOrderService {
     if (q.from) qb.andWhere("w.slot_date >= :from", { from: q.from });
     if (q.to) qb.andWhere("w.slot_date <= :to", { to: q.to });
     if (q.caseId) qb.andWhere("w.case_id = :caseId", { caseId: q.caseId });
-    const dir = q.order === "desc" ? "DESC" : "ASC";
-    const column = {
-      target: "w.target_date",
-      slot: "w.slot_date",
-      created: "w.created_at",
-      priority: "FIELD(w.priority, 'emergency', 'urgent', 'routine')",
-      type: "w.type",
-      status: "FIELD(w.status, 'unscheduled', 'change-requested', 'scheduled', 'confirmed', 'done', 'cancelled')",
-    }[q.sort];
-    if (q.sort === "slot")
-      qb.orderBy("w.slot_date IS NULL", "ASC")
-        .addOrderBy("w.slot_date", dir)
-        .addOrderBy("FIELD(w.slot_window, 'am', 'all-day', 'pm')", "ASC");
-    else qb.orderBy(column, dir);
-    qb.addOrderBy("w.id", "ASC")
+    qb.orderBy();
+    for (const term of workOrderSortTerms(q)) qb.addOrderBy(term.expr, term.desc ? "DESC" : "ASC");
+    return qb;
+  }
+
+  async list(actor: Actor, q: WorkOrderListQuery): Promise<{ items: WorkOrder[]; total: number }> {
+    const [items, total] = await this.filtered(actor, q)
       .skip((q.page - 1) * q.pageSize)
-      .take(q.pageSize);
-    const [items, total] = await qb.getManyAndCount();
+      .take(q.pageSize)
+      .getManyAndCount();
     return { items, total };
+  }
+
+  /**
+   * For exports: the next `limit` orders of the list in its order after the one whose sort values are
+   * `after` (null: from the top), and this page's last sort values. A keyset page costs the same deep
+   * in the list as at its top, where an offset reads every order before it.
+   */
+  async listAfter(
+    actor: Actor,
+    q: Omit<WorkOrderListQuery, "page" | "pageSize">,
+    after: readonly unknown[] | null,
+    limit: number,
+  ): Promise<KeysetPage<WorkOrder>> {
+    const terms = workOrderSortTerms(q);
+    const keys = this.filtered(actor, q).select("w.id", "id").limit(limit);
+    terms.forEach((term, i) => keys.addSelect(term.expr, `k${i}`));
+    if (after) {
+      const { sql, params } = keysetAfter(terms, after);
+      keys.andWhere(sql, params);
+    }
+    const page = await keys.getRawMany<Record<string, unknown>>();
+    if (!page.length) return { rows: [], last: null };
+    const byId = new Map(
+      (await this.dataSource.getRepository(WorkOrder).findBy({ id: In(page.map((k) => Number(k.id))) })).map((w) => [w.id, w]),
+    );
+    const tail = page.at(-1)!;
+    return {
+      rows: page.map((k) => byId.get(Number(k.id))).filter((w): w is WorkOrder => w !== undefined),
+      last: terms.map((_, i) => tail[`k${i}`] ?? null),
+    };
   }
 
   /** Books (or re-books) the order into a slot for an operative or a contractor. */

@@ -9,7 +9,7 @@ import {
 import { WORK_ORDER_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
 import type { Clock } from "../../lib/clock.js";
-import { paged, sendTableExport } from "../../lib/table-export.js";
+import { EXPORT_PAGE_SIZE, keysetPages, newPageTimes, sendTableExport } from "../../lib/table-export.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import type { Actor } from "../auth/actor.js";
@@ -93,12 +93,21 @@ export function createWorkOrdersRouter({ works, photos, clock }: Deps & { clock:
   router.get("/export", requireStaff, async (req, res) => {
     const { format, ...query } = parse(workOrderExportQuerySchema, req.query, "query");
     const actor = actorOf(req);
+    const times = newPageTimes();
     await sendTableExport(res, {
       format,
       view: "work-orders",
       now: clock.now(),
       columns: WORK_ORDER_EXPORT_COLUMNS,
-      pages: paged(async (page, pageSize) => dtos(works, (await works.list(actor, { ...query, page, pageSize })).items, actor)),
+      times,
+      pages: keysetPages(
+        async (after, limit) => {
+          const { rows, last } = await works.listAfter(actor, query, after, limit);
+          return { rows: await dtos(works, [...rows], actor), last };
+        },
+        EXPORT_PAGE_SIZE,
+        times,
+      ),
     });
   });
 

@@ -4,7 +4,7 @@ import { useId, type ReactNode } from "react";
 import { CRITICAL_TEMPERATURE_FACTOR, type PointResult, type SurfaceResult, type SurfaceState } from "@/lib/domain";
 import { celsius, factor, fixed, surfaceHumidity as surfaceHumidityWords } from "@/lib/domain/wording";
 import { cn } from "@/lib/cn";
-import { STATE_LABELS, SURFACE_SOURCE_LABELS } from "./state-labels";
+import { STATE_LABELS, SURFACE_SOURCE_LABELS } from "@/lib/surface-state-labels";
 
 export interface RiskPanelProps {
   result: PointResult;

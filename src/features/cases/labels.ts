@@ -1,6 +1,10 @@
 // Plain words for a case's status and for what has happened to it. Written for the person who
 // reported; staff views can pass their own audience later.
 import type { CaseStatus } from "@/lib/schemas/case-report";
+import { humanise, staffStatusLabel } from "@/lib/labels";
+
+// Staff's words for a status, a reading's source and the fallback for unknown values are shared with the server's exports.
+export { humanise, sourceLabels, staffStatusLabels } from "@/lib/labels";
 
 export const statusLabels: Record<CaseStatus, { label: string; meaning: string }> = {
   new: { label: "Sent", meaning: "Your landlord has your report and will look at it soon." },
@@ -15,19 +19,6 @@ export const statusLabels: Record<CaseStatus, { label: string; meaning: string }
   monitoring: { label: "Checking it lasts", meaning: "Your landlord is checking that the problem stays fixed." },
   closed: { label: "Finished", meaning: "This report is finished. If the damp or mould comes back, please report it again." },
   cancelled: { label: "Withdrawn", meaning: "This report was withdrawn." },
-};
-
-/** The workflow's own names, for staff: the stages they move a case through. */
-export const staffStatusLabels: Record<CaseStatus, string> = {
-  new: "New",
-  triaged: "Triaged",
-  "inspection-booked": "Inspection booked",
-  investigated: "Investigated",
-  "works-planned": "Works planned",
-  "works-done": "Works done",
-  monitoring: "Monitoring",
-  closed: "Closed",
-  cancelled: "Cancelled",
 };
 
 /** Facts beyond the status that change what the tenant is told. */
@@ -53,9 +44,7 @@ export function tenantStage(status: string, facts: TenantStageFacts = {}): { lab
 export type Audience = "tenant" | "staff";
 
 export function statusLabelFor(audience: Audience): (status: string) => string {
-  return audience === "staff"
-    ? (status) => (staffStatusLabels as Record<string, string>)[status] ?? humanise(status)
-    : statusLabel;
+  return audience === "staff" ? staffStatusLabel : statusLabel;
 }
 
 export function statusLabel(status: string): string {
@@ -65,17 +54,6 @@ export function statusLabel(status: string): string {
 export function statusMeaning(status: string): string | undefined {
   return (statusLabels as Record<string, { meaning: string }>)[status]?.meaning;
 }
-
-/** "works-planned" → "Works planned": something readable for a value we have no words for yet. */
-export function humanise(value: string): string {
-  const words = value.replace(/[-_]+/g, " ").trim();
-  return words ? words.charAt(0).toUpperCase() + words.slice(1) : value;
-}
-
-export const sourceLabels: Record<string, string> = {
-  manual: "By hand",
-  import: "Logger file",
-};
 
 /**
  * What the readings over time point to (the engine's diagnosis kinds), said about the home.

@@ -1,7 +1,23 @@
 // The columns of each table view that can be exported (CSV or .xlsx), in the order the screen shows
 // them, with the same headings: one list per view, read by the server's export and by the tables.
-// Values come from the same response shapes the tables show, so an export holds what the screen holds.
+// Values come from the same response shapes the tables show, and stored codes are written in the
+// words the screen shows (the one map of each, in src/lib), so an export holds what the screen holds.
 import { z } from "zod";
+import {
+  areaLabels,
+  channelLabels,
+  labelFor,
+  priorityLabels,
+  riskLabels,
+  sourceLabels,
+  staffStatusLabel,
+  userStatusLabels,
+  windowShortLabels,
+  workOrderStatusLabels,
+  workTypeNames,
+} from "../labels.js";
+import { builtFormLabels, glazingTypeLabels, heatingTypeLabels, labelOf, ventilationLabels, wallTypeLabels } from "../homes.js";
+import { roleLabels } from "../roles.js";
 import type { PropertySummaryResponse } from "./properties.js";
 import type { ReadingResponse } from "./readings.js";
 import type { QueueItemResponse } from "./triage.js";
@@ -71,17 +87,17 @@ const queueValues: Record<QueueColumnId, (r: QueueItemResponse) => ExportCell> =
   reference: (r) => r.reference ?? `Case ${r.id}`,
   priority: (r) => r.priority,
   address: (r) => `${r.property.addressLine1}, ${r.property.town}, ${r.property.postcode}`,
-  risk: (r) => r.riskState ?? "unknown",
+  risk: (r) => riskLabels[r.riskState ?? "unknown"],
   due: (r) => r.nextDeadline?.dueAt ?? null,
-  status: (r) => r.status,
+  status: (r) => staffStatusLabel(r.status),
   estate: (r) => (r.property.block ? `${r.property.estate}, ${r.property.block}` : r.property.estate),
   rooms: (r) => r.rooms.map((room) => room.name).join(", "),
   awareAt: (r) => r.awareAt,
-  channel: (r) => r.channel,
+  channel: (r) => labelFor(channelLabels, r.channel),
   mouldIndex: (r) => r.mouldIndex,
-  area: (r) => r.area,
+  area: (r) => (r.area ? labelFor(areaLabels, r.area) : null),
   vulnerable: (r) => r.vulnerableHousehold,
-  band: (r) => (r.hhsrs ? `${r.hhsrs.band} (Category ${r.hhsrs.category})` : null),
+  band: (r) => (r.hhsrs ? `Band ${r.hhsrs.band}, Category ${r.hhsrs.category}` : null),
   assignee: (r) => r.assignee?.name ?? null,
 };
 
@@ -121,11 +137,11 @@ export const HOME_EXPORT_COLUMNS: readonly ExportColumn<PropertySummaryResponse>
   { id: "postcode", header: "Postcode", value: (h) => h.postcode },
   { id: "estate", header: "Estate", value: (h) => h.estate },
   { id: "block", header: "Block", value: (h) => h.block },
-  { id: "builtForm", header: "Type", value: (h) => h.builtForm },
-  { id: "wallType", header: "Walls", value: (h) => h.wallType },
-  { id: "glazingType", header: "Glazing", value: (h) => h.glazingType },
-  { id: "heatingType", header: "Heating", value: (h) => h.heatingType },
-  { id: "ventilation", header: "Ventilation", value: (h) => h.ventilation },
+  { id: "builtForm", header: "Type", value: (h) => labelOf(builtFormLabels, h.builtForm) },
+  { id: "wallType", header: "Walls", value: (h) => labelOf(wallTypeLabels, h.wallType) },
+  { id: "glazingType", header: "Glazing", value: (h) => labelOf(glazingTypeLabels, h.glazingType) },
+  { id: "heatingType", header: "Heating", value: (h) => labelOf(heatingTypeLabels, h.heatingType) },
+  { id: "ventilation", header: "Ventilation", value: (h) => labelOf(ventilationLabels, h.ventilation) },
   // Text, not a number: a UPRN's leading digits and its length matter.
   { id: "uprn", header: "UPRN", value: (h) => h.uprn },
 ];
@@ -133,20 +149,20 @@ export const HOME_EXPORT_COLUMNS: readonly ExportColumn<PropertySummaryResponse>
 export const WORK_ORDER_EXPORT_COLUMNS: readonly ExportColumn<WorkOrderResponse>[] = [
   { id: "reference", header: "Reference", value: (w) => w.caseReference ?? `Case ${w.caseId}` },
   { id: "address", header: "Address", value: (w) => `${w.property.addressLine1}, ${w.property.town}, ${w.property.postcode}` },
-  { id: "type", header: "Type", value: (w) => w.type },
-  { id: "priority", header: "Priority", value: (w) => w.priority },
+  { id: "type", header: "Type", value: (w) => labelFor(workTypeNames, w.type) },
+  { id: "priority", header: "Priority", value: (w) => labelFor(priorityLabels, w.priority) },
   { id: "target", header: "Target date", value: (w) => w.targetDate },
-  { id: "status", header: "Status", value: (w) => w.status },
+  { id: "status", header: "Status", value: (w) => labelFor(workOrderStatusLabels, w.status) },
   { id: "who", header: "Operative or contractor", value: (w) => w.assignee?.name ?? w.contractor?.name ?? null },
-  { id: "slot", header: "Visit", value: (w) => (w.slot ? `${w.slot.date} ${w.slot.window}` : null) },
+  { id: "slot", header: "Visit", value: (w) => (w.slot ? `${w.slot.date} ${labelFor(windowShortLabels, w.slot.window)}` : null) },
   { id: "created", header: "Raised", value: (w) => w.createdAt },
 ];
 
 export const USER_EXPORT_COLUMNS: readonly ExportColumn<UserResponse>[] = [
   { id: "name", header: "Name", value: (u) => u.name },
   { id: "email", header: "E-mail", value: (u) => u.email },
-  { id: "role", header: "Role", value: (u) => u.role },
-  { id: "status", header: "Status", value: (u) => u.status },
+  { id: "role", header: "Role", value: (u) => labelFor(roleLabels, u.role) },
+  { id: "status", header: "Status", value: (u) => labelFor(userStatusLabels, u.status) },
   { id: "lastSignInAt", header: "Last sign-in", value: (u) => u.lastSignInAt },
 ];
 
@@ -160,5 +176,5 @@ export const READING_EXPORT_COLUMNS: readonly ExportColumn<ReadingExportRow>[] =
   { id: "relativeHumidityPct", header: "Relative humidity (%)", value: (r) => r.relativeHumidityPct },
   { id: "surfaceTemperatureC", header: "Surface temperature (°C)", value: (r) => r.surfaceTemperatureC },
   { id: "outdoorTemperatureC", header: "Outdoor temperature (°C)", value: (r) => r.outdoorTemperatureC },
-  { id: "source", header: "Source", value: (r) => r.source },
+  { id: "source", header: "Source", value: (r) => labelFor(sourceLabels, r.source) },
 ];

@@ -1,7 +1,7 @@
 import { useQueryClient, type QueryClient } from "@tanstack/react-query";
 import { useMemo, type ReactNode } from "react";
 import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from "react-router-dom";
-import { STATE_LABELS } from "@/components/risk/state-labels";
+import { STATE_LABELS } from "@/lib/surface-state-labels";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
@@ -371,7 +371,7 @@ function ReadingsPanel({ c }: { c: CaseDto }) {
   return (
     <Panel title="Readings" id="case-readings">
       <QueryState query={readings} loading="Loading readings…" failed="We couldn't load the readings">
-        {(list) => <ReadingsSection readings={list} rooms={c.homeRooms} />}
+        {(list) => <ReadingsSection readings={list} rooms={c.homeRooms} exportPath={`/cases/${c.id}/readings/export`} />}
       </QueryState>
     </Panel>
   );

@@ -5,7 +5,7 @@ import { useId, useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { ReportStillMatters } from "@/components/risk/cautions";
 import { RiskPanel } from "@/components/risk/risk-panel";
-import { STATE_LABELS } from "@/components/risk/state-labels";
+import { STATE_LABELS } from "@/lib/surface-state-labels";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Input, Select } from "@/components/ui/field";

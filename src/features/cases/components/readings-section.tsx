@@ -1,4 +1,5 @@
 import { useId, useMemo, useState } from "react";
+import { ExportLinks } from "@/components/ui/export-links";
 import { Select } from "@/components/ui/field";
 import type { CaseReading, CaseRoom } from "../api/types";
 import { ReadingsChart } from "./readings-chart";
@@ -7,10 +8,12 @@ import { ReadingsTable } from "./readings-table";
 interface ReadingsSectionProps {
   readings: readonly CaseReading[];
   rooms: readonly CaseRoom[];
+  /** Staff: the case's readings export under /api (e.g. "/cases/12/readings/export"), offered for the room shown. */
+  exportPath?: string;
 }
 
 /** One room at a time: its chart, then its readings in a table. */
-export function ReadingsSection({ readings, rooms }: ReadingsSectionProps) {
+export function ReadingsSection({ readings, rooms, exportPath }: ReadingsSectionProps) {
   const id = useId();
   const withReadings = useMemo(() => {
     const ids = new Set(readings.map((r) => r.roomId));
@@ -46,6 +49,9 @@ export function ReadingsSection({ readings, rooms }: ReadingsSectionProps) {
       ) : null}
       <ReadingsChart readings={shown} title={`Readings in ${room?.name ?? "this room"}`} />
       <ReadingsTable readings={shown} rooms={rooms} caption={`Readings in ${room?.name ?? "this room"}, newest first`} />
+      {exportPath && roomId !== null ? (
+        <ExportLinks path={exportPath} query={{ roomId }} what={`readings in ${room?.name ?? "this room"}`} />
+      ) : null}
     </div>
   );
 }

@@ -3,9 +3,4 @@ import type { UserResponse, UserStatus } from "@/lib/contracts";
 export type { UserStatus };
 export type ManagedUser = UserResponse;
 
-export const userStatusLabels: Record<UserStatus, string> = {
-  invited: "Invited",
-  active: "Active",
-  disabled: "Disabled",
-  cancelled: "Invitation cancelled",
-};
+export { userStatusLabels } from "@/lib/labels";

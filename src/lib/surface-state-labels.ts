@@ -1,5 +1,6 @@
 // Plain words for the four surface states of the risk engine, shared by every view that shows one.
-import { BORDERLINE_SURFACE_RH_PCT, MOULD_SURFACE_RH_PCT, type SurfaceSource, type SurfaceState } from "@/lib/domain";
+import type { SurfaceSource } from "./domain/point.js";
+import { BORDERLINE_SURFACE_RH_PCT, MOULD_SURFACE_RH_PCT, type SurfaceState } from "./domain/surface.js";
 
 export interface StateLabel {
   /** The badge text. */
