@@ -1,8 +1,15 @@
 // Admins' changes to the landlord's integrations — API keys created and revoked, webhook endpoints
 // added, changed, removed and given a new secret — are recorded with who, what and when, in the same
 // transaction as the change, and shown to the landlord's admins only. Against the real MariaDB.
+import { pino } from "pino";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { adminActionListResponse, type AdminActionEntryDto } from "../../src/lib/contracts/integrations.js";
+import type { Actor } from "../../server/lib/actor.js";
+import type { AdminActionService } from "../../server/modules/integrations/admin-action.service.js";
+import { ApiKey } from "../../server/modules/integrations/api-key.entity.js";
+import { ApiKeyService } from "../../server/modules/integrations/api-key.service.js";
+import { WebhookEndpoint } from "../../server/modules/webhooks/webhook-endpoint.entity.js";
+import { WebhookService } from "../../server/modules/webhooks/webhook.service.js";
 import { makeLandlord, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
 import { testClock } from "../support/test-clock.js";
@@ -86,5 +93,30 @@ describe("admins' changes to keys and webhooks", () => {
     expect((await actions(admin)).length).toBe(before + 1);
     expect(await actions(otherAdmin)).toEqual([]);
     await officer.get("/api/integrations/admin-actions").expect(403);
+  });
+
+  it("leave no change without its record: when the record cannot be written, the change is undone", async () => {
+    // The record is written in the change's transaction; a recorder that fails takes the change down with it.
+    const refusing = {
+      record: () => Promise.reject(new Error("the record could not be written")),
+    } as unknown as AdminActionService;
+    const actor: Actor = {
+      id: landlord.admin.id,
+      email: landlord.admin.email,
+      name: landlord.admin.name,
+      role: "admin",
+      organisationId: landlord.org.id,
+    };
+    const webhooks = new WebhookService(t.ctx.dataSource, t.ctx.config, pino({ level: "silent" }), testClock, refusing);
+    const url = "http://127.0.0.1:9/never-recorded";
+    await expect(webhooks.create(actor, { url, description: "", eventTypes: ["case.created"] })).rejects.toThrow(/record/);
+    expect(await t.ctx.dataSource.getRepository(WebhookEndpoint).countBy({ url })).toBe(0);
+
+    const keys = new ApiKeyService(t.ctx.dataSource, t.ctx.services.users, testClock, refusing);
+    await expect(keys.create(actor, { name: "Never recorded", scopes: ["homes:read"] })).rejects.toThrow(/record/);
+    expect(await t.ctx.dataSource.getRepository(ApiKey).countBy({ name: "Never recorded" })).toBe(0);
+    const kept = await admin.post("/api/integrations/api-keys", { name: "Kept", scopes: ["homes:read"] }).expect(201);
+    await expect(keys.revoke(actor, kept.body.id)).rejects.toThrow(/record/);
+    expect(await t.ctx.dataSource.getRepository(ApiKey).findOneByOrFail({ id: kept.body.id })).toMatchObject({ revokedAt: null });
   });
 });
