@@ -33,6 +33,7 @@ import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
 import { ConversationService } from "./modules/conversation/conversation.service.js";
 import { WorkerPool } from "./workers/pool.js";
+import { AdminActionService } from "./modules/integrations/admin-action.service.js";
 import { ApiKeyService } from "./modules/integrations/api-key.service.js";
 import { WebhookService } from "./modules/webhooks/webhook.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
@@ -61,6 +62,7 @@ export interface Services {
   users: UserService;
   conversation: ConversationService;
   apiKeys: ApiKeyService;
+  adminActions: AdminActionService;
   webhooks: WebhookService;
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
@@ -116,7 +118,9 @@ export function createServices(
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   mail.useCaseTimeline(cases);
   // Case events reach webhooks in their own transaction (the cases module knows only the listener interface).
-  const webhooks = new WebhookService(dataSource, config, logger, clock, {
+  // Admins' changes to keys and endpoints are recorded by the integrations module, in each change's transaction.
+  const adminActions = new AdminActionService(dataSource, users, clock);
+  const webhooks = new WebhookService(dataSource, config, logger, clock, adminActions, {
     maxAttempts: config.webhooks.maxAttempts,
     timeoutMs: config.webhooks.timeoutMs,
     leaseMs: Math.max(60_000, 3 * config.webhooks.timeoutMs),
@@ -142,7 +146,7 @@ export function createServices(
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
   const homes = new HomeRecordService(properties, tenancies, cases, readings, users);
-  const apiKeys = new ApiKeyService(dataSource, users, clock, logger);
+  const apiKeys = new ApiKeyService(dataSource, users, clock, adminActions, logger);
   const invitationBatches = new InvitationBatchService(dataSource, auth, users, clock, config.invitationBatches);
   const tenancyImports = new TenancyImportService(dataSource, properties, tenancies, users, invitationBatches, clock);
   return {
@@ -168,6 +172,7 @@ export function createServices(
     verification,
     conversation,
     apiKeys,
+    adminActions,
     webhooks,
     invitationBatches,
     tenancyImports,

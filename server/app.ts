@@ -35,7 +35,7 @@ import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter 
 import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
 import { createOutboxRouter } from "./modules/mail/mail.routes.js";
 import { createIntegrationApiRouter } from "./modules/integrations/integration-api.routes.js";
-import { createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
+import { createAdminActionsRouter, createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
 import { createWebhooksRouter } from "./modules/webhooks/webhooks.routes.js";
 
 export interface AppOptions {
@@ -182,6 +182,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use("/outbox", createOutboxRouter({ mail: services.mail }));
   api.use("/integrations/api-keys", createApiKeysRouter({ keys: services.apiKeys }));
+  api.use("/integrations/admin-actions", createAdminActionsRouter({ adminActions: services.adminActions }));
   api.use("/webhooks", createWebhooksRouter({ webhooks: services.webhooks }));
   api.use(
     "/tenancy-imports",

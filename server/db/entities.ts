@@ -8,6 +8,7 @@ import { Photo } from "../modules/photos/photo.entity.js";
 import { PhotoUploadUsage } from "../modules/photos/photo-upload-usage.entity.js";
 import { ApiKey } from "../modules/integrations/api-key.entity.js";
 import { ApiKeyAuditEntry } from "../modules/integrations/api-key-audit.entity.js";
+import { AdminActionEntry } from "../modules/integrations/admin-action.entity.js";
 import { ReadingImport } from "../modules/readings/reading-import.entity.js";
 import { Reading } from "../modules/readings/reading.entity.js";
 import { RoomEvaluation } from "../modules/readings/room-evaluation.entity.js";
@@ -64,6 +65,7 @@ export const entities = [
   PhotoUploadUsage,
   ApiKey,
   ApiKeyAuditEntry,
+  AdminActionEntry,
   WebhookEndpoint,
   WebhookEvent,
   WebhookDelivery,

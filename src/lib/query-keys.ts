@@ -143,6 +143,12 @@ export const apiKeyKeys = {
   audit: () => [...apiKeyKeys.all, "audit"] as const,
 };
 
+/** What admins changed in API keys and webhook endpoints (features/integrations): all, or about one kind of subject. */
+export const adminActionKeys = {
+  all: ["admin-actions"] as const,
+  list: (subject: "api-key" | "webhook" | "all") => [...adminActionKeys.all, "list", subject] as const,
+};
+
 /** The stock import (features/stock-import): the landlord's imports, and the two uploads. */
 export const stockImportKeys = {
   all: ["stock-imports"] as const,

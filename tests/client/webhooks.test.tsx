@@ -1,6 +1,6 @@
 // The admin's Webhooks page: endpoints with their events, the signing secret shown once, each
 // delivery with every attempt's answer and "Send again", and a confirmation before removing one.
-import { screen, within } from "@testing-library/react";
+import { screen, waitFor, within } from "@testing-library/react";
 import userEvent from "@testing-library/user-event";
 import { beforeEach, describe, expect, it } from "vitest";
 import { clearCsrfToken } from "@/lib/api-client";
@@ -33,6 +33,15 @@ const delivery = {
   history: [{ at: "2026-01-10T09:00:01.000Z", statusCode: 500, error: "The receiver answered 500.", durationMs: 42 }],
 } as const;
 
+const adminAction = {
+  id: 3,
+  action: "webhook-secret-replaced",
+  subject: { kind: "webhook", id: 7 },
+  detail: "https://housing.example.org/dewline-events (the old secret signs too for 24 hours)",
+  by: { id: 5, name: "Asha Okafor" },
+  at: "2026-01-11T10:00:00.000Z",
+} as const;
+
 function setup(items: object[] = [endpoint]) {
   const api = mockApi({
     "GET /api/auth/me": { body: users.admin },
@@ -48,6 +57,7 @@ function setup(items: object[] = [endpoint]) {
     "DELETE /api/webhooks/7": { status: 204 },
     "GET /api/webhooks/7/deliveries": { body: { items: [delivery], total: 1, page: 1, pageSize: 20 } },
     "POST /api/webhooks/7/deliveries/31/resend": { status: 202, body: { ...delivery, attempts: 0 } },
+    "GET /api/integrations/admin-actions": { body: { entries: [adminAction] } },
   });
   return { ...api, ...renderApp("/admin/webhooks") };
 }
@@ -100,5 +110,17 @@ describe("the admin's webhooks", () => {
     await user.click(screen.getByRole("button", { name: "Remove" }));
     await user.click(within(await screen.findByRole("dialog")).getByRole("button", { name: "Remove the endpoint" }));
     expect(callsTo("DELETE", "/api/webhooks/7")).toHaveLength(1);
+  });
+
+  it("lists who changed the endpoints and when, asking for webhook changes only, and again after a change", async () => {
+    const { callsTo } = setup();
+    const user = userEvent.setup();
+    const table = await screen.findByRole("table", { name: "Changes made by admins, newest first" });
+    expect(within(table).getByText("Webhook signing secret replaced")).toBeInTheDocument();
+    expect(within(table).getByText("Asha Okafor")).toBeInTheDocument();
+    expect(callsTo("GET", "/api/integrations/admin-actions")[0]!.search.get("subject")).toBe("webhook");
+    await user.click(screen.getByRole("button", { name: "Remove" }));
+    await user.click(within(await screen.findByRole("dialog")).getByRole("button", { name: "Remove the endpoint" }));
+    await waitFor(() => expect(callsTo("GET", "/api/integrations/admin-actions").length).toBe(2));
   });
 });

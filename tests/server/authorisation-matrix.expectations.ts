@@ -128,6 +128,7 @@ const ROWS: Record<string, Row> = {
   "POST /api/integrations/api-keys":                            [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   "POST /api/integrations/api-keys/:keyId/revoke":              [ 401,  403,  403,  403,  403, "ok",  404,  403],
   "GET /api/integrations/api-keys/audit":                       [ 401,  403,  403,  403,  403, "ok", "ok",  403],
+  "GET /api/integrations/admin-actions":                        [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   // The integration API takes API keys only: a session, anyone's, is not signed in there.
   "GET /api/v1/homes":                                          [ 401,  401,  401,  401,  401,  401,  401,  401],
   "GET /api/v1/homes/:id":                                      [ 401,  401,  401,  401,  401,  401,  401,  401],

@@ -28,7 +28,7 @@ import {
 import { bulkPreviewSchema, bulkUpdateSchema, queueExportQuerySchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import { userExportQuerySchema, userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
 import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
-import { homeUpsertSchema } from "../integrations/integrations.schemas.js";
+import { adminActionListQuerySchema, homeUpsertSchema } from "../integrations/integrations.schemas.js";
 import { tenancyImportFieldsSchema } from "../tenancy-import/tenancy-import.schemas.js";
 import {
   bookingResponseSchema,
@@ -86,6 +86,7 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "GET /api/users": { query: userListQuerySchema },
   "PATCH /api/users/:id": { body: userUpdateSchema },
   "POST /api/integrations/api-keys": { body: apiKeyCreateSchema },
+  "GET /api/integrations/admin-actions": { query: adminActionListQuerySchema },
   "GET /api/v1/homes": { query: propertyListQuerySchema },
   "PUT /api/v1/homes/by-uprn/:uprn": { body: homeUpsertSchema },
   "GET /api/v1/cases": { query: queueQuerySchema },

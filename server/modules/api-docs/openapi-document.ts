@@ -2,6 +2,13 @@
 // routes' request schemas (api-registry.ts) with zod 4's own z.toJSONSchema.
 import { z } from "zod";
 import { API_SCOPES, errorResponse, isJsonSchema, scopeOf } from "../../../src/lib/contracts/index.js";
+import {
+  WEBHOOK_EVENT_TYPES,
+  WEBHOOK_PAYLOADS,
+  WEBHOOK_TEST_EVENT,
+  webhookTestPayload,
+} from "../../../src/lib/contracts/webhooks.js";
+import { ATTEMPT_HEADER, EVENT_ID_HEADER, EVENT_TYPE_HEADER, SIGNATURE_HEADER } from "../webhooks/webhook-signature.js";
 import { ROUTES } from "./api-registry.js";
 
 const json = (schema: z.ZodType, io: "input" | "output") =>
@@ -15,6 +22,61 @@ const who = (access: (typeof ROUTES)[number]["access"]) =>
       : "apiKey" in access
         ? `An API key with the scope ${access.apiKey} (Authorization: Bearer dwk_…); no session, no CSRF token.`
         : `Roles: ${access.join(", ")}.`;
+
+const WEBHOOK_HEADERS = [
+  {
+    name: SIGNATURE_HEADER,
+    in: "header",
+    required: true,
+    description:
+      "`t=<unix seconds>,v1=<hex>`: v1 is the HMAC-SHA256 of `<t>.<raw body>` keyed with the endpoint's signing secret. " +
+      "For 24 hours after the secret is replaced a second v1= carries the old secret's signature; accept the request if any matches. " +
+      "Refuse a t more than 5 minutes from your clock (a replay), compare in constant time, and compute over the raw bytes, not re-serialised JSON.",
+    schema: { type: "string", pattern: "^t=[0-9]+(,v1=[0-9a-f]{64})+$" },
+  },
+  {
+    name: EVENT_ID_HEADER,
+    in: "header",
+    required: true,
+    description: "The event's id (the body's `id`), the same on every attempt and every \"send again\": de-duplicate by it.",
+    schema: { type: "string", format: "uuid" },
+  },
+  { name: EVENT_TYPE_HEADER, in: "header", required: true, description: "The body's `type`.", schema: { type: "string" } },
+  {
+    name: ATTEMPT_HEADER,
+    in: "header",
+    required: true,
+    description: '1, 2, … (counted again from 1 after "send again").',
+    schema: { type: "integer", minimum: 1 },
+  },
+];
+
+/** One webhook operation (OpenAPI 3.1 `webhooks`): what Dewline POSTs to an endpoint for this event type. */
+function webhookOperation(type: string, schema: z.ZodType) {
+  return {
+    post: {
+      summary: type,
+      description: schema.description ?? type,
+      operationId: `webhook:${type}`,
+      parameters: WEBHOOK_HEADERS,
+      requestBody: { required: true, content: { "application/json": { schema: json(schema, "output") } } },
+      responses: {
+        "2XX": {
+          description:
+            "Received. Answer within 10 seconds; anything else (no answer, a redirect, 4xx, 5xx) is retried with backoff.",
+        },
+      },
+    },
+  };
+}
+
+/** Every event type the code can send, from the contract's own list: a new type without a payload does not compile. */
+export function webhookOperations() {
+  return {
+    ...Object.fromEntries(WEBHOOK_EVENT_TYPES.map((type) => [type, webhookOperation(type, WEBHOOK_PAYLOADS[type])])),
+    [WEBHOOK_TEST_EVENT]: webhookOperation(WEBHOOK_TEST_EVENT, webhookTestPayload),
+  };
+}
 
 export function fullOpenApiDocument(serverUrl: string) {
   const paths: Record<string, Record<string, unknown>> = {};
@@ -76,10 +138,12 @@ export function fullOpenApiDocument(serverUrl: string) {
       title: "Dewline API",
       version: "1.0.0",
       description:
-        "Every route of the Dewline API. Session routes: state-changing requests carry the session's CSRF token in X-CSRF-Token (GET /api/auth/csrf). The integration API (/api/v1) takes an API key an admin created, as `Authorization: Bearer dwk_…`, and each route needs the scope it names. Staff only.",
+        "Every route of the Dewline API. Session routes: state-changing requests carry the session's CSRF token in X-CSRF-Token (GET /api/auth/csrf). The integration API (/api/v1) takes an API key an admin created, as `Authorization: Bearer dwk_…`, and each route needs the scope it names. Staff only.\n\n" +
+        "Webhooks: an admin registers an endpoint (POST /api/webhooks) for the event types it wants; each event is POSTed to it as JSON with the headers below, signed with the endpoint's own secret, retried with backoff until it answers 2xx (at least once: de-duplicate by Dewline-Event-Id). To verify a delivery, take the raw body, refuse a timestamp more than 5 minutes off, and compare HMAC-SHA256 of `<t>.<raw body>` with each v1 in constant time.",
     },
     servers: [{ url: serverUrl }],
     paths,
+    webhooks: webhookOperations(),
     components: {
       schemas: { Error: json(errorResponse, "output") },
       securitySchemes: {

@@ -1,6 +1,13 @@
 import type { z } from "zod";
-import type { apiKeyAuditEntry, apiKeyCreatedResponse, apiKeyResponse } from "../../../src/lib/contracts/integrations.js";
+import {
+  adminActionSubjectOf,
+  type adminActionEntry,
+  type apiKeyAuditEntry,
+  type apiKeyCreatedResponse,
+  type apiKeyResponse,
+} from "../../../src/lib/contracts/integrations.js";
 import type { Person } from "../users/user.service.js";
+import type { AdminActionEntry } from "./admin-action.service.js";
 import { keyHint, type ApiKey, type ApiKeyAuditEntry } from "./api-key.service.js";
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
@@ -32,3 +39,15 @@ export const toApiKeyAuditDto = (e: ApiKeyAuditEntry, names: Map<number, string>
   status: e.status,
   at: e.createdAt.toISOString(),
 });
+
+export const toAdminActionDto = (e: AdminActionEntry, people: Map<number, Person>): z.input<typeof adminActionEntry> => {
+  const by = people.get(e.actorUserId);
+  return {
+    id: Number(e.id),
+    action: e.action,
+    subject: { kind: adminActionSubjectOf(e.action), id: e.subjectId },
+    detail: e.detail,
+    by: by ? { id: by.id, name: by.name } : null,
+    at: e.createdAt.toISOString(),
+  };
+};

@@ -7,6 +7,8 @@ import type { Clock } from "../../lib/clock.js";
 import { NotFoundError, UnauthorizedError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
 import type { Person } from "../users/user.service.js";
+import { inTransaction } from "../../lib/transaction.js";
+import type { AdminActionService } from "./admin-action.service.js";
 import { ApiKeyAuditEntry } from "./api-key-audit.entity.js";
 import { ApiKey } from "./api-key.entity.js";
 
@@ -46,26 +48,35 @@ export class ApiKeyService {
     private readonly dataSource: DataSource,
     private readonly people: KeyPeople,
     private readonly clock: Clock,
+    private readonly adminActions: AdminActionService,
     private readonly logger?: Logger,
   ) {}
 
-  /** Admin: a new key for the actor's landlord. The secret is in the answer and nowhere else. */
+  /** Admin: a new key for the actor's landlord, recorded with who made it. The secret is in the answer and nowhere else. */
   async create(actor: Actor, input: ApiKeyCreateInput): Promise<{ key: ApiKey; secret: string }> {
     const random = randomBytes(32).toString("base64url");
-    const repo = this.dataSource.getRepository(ApiKey);
-    const key = await repo.save(
-      repo.create({
-        organisationId: actor.organisationId,
-        name: input.name,
-        scopes: input.scopes,
-        secretHash: hashSecret(random),
-        createdByUserId: actor.id,
-        createdAt: this.clock.now(),
-        lastUsedAt: null,
-        revokedAt: null,
-        revokedByUserId: null,
-      }),
-    );
+    const key = await inTransaction(this.dataSource, async (m) => {
+      const repo = m.getRepository(ApiKey);
+      const saved = await repo.save(
+        repo.create({
+          organisationId: actor.organisationId,
+          name: input.name,
+          scopes: input.scopes,
+          secretHash: hashSecret(random),
+          createdByUserId: actor.id,
+          createdAt: this.clock.now(),
+          lastUsedAt: null,
+          revokedAt: null,
+          revokedByUserId: null,
+        }),
+      );
+      await this.adminActions.record(m, actor, {
+        action: "api-key-created",
+        subjectId: saved.id,
+        detail: `"${saved.name}" (${keyHint(saved)}), scopes: ${saved.scopes.join(", ")}`,
+      });
+      return saved;
+    });
     this.logger?.info(
       { audit: "api-key-created", actorId: actor.id, organisationId: actor.organisationId, apiKeyId: key.id, scopes: key.scopes },
       "audit: api-key-created",
@@ -81,15 +92,27 @@ export class ApiKeyService {
     return { keys, people: await this.people.people(keys.map((k) => k.createdByUserId)) };
   }
 
-  /** Admin: refuses the key from now on (again is harmless); 404 for another landlord's key. */
+  /** Admin: refuses the key from now on (again is harmless and not recorded again); 404 for another landlord's key. */
   async revoke(actor: Actor, id: number): Promise<{ key: ApiKey; people: Map<number, Person> }> {
-    const repo = this.dataSource.getRepository(ApiKey);
-    const key = await repo.findOneBy({ id, organisationId: actor.organisationId });
-    if (!key) throw new NotFoundError("No such API key.");
-    if (!key.revokedAt) {
+    const { key, revoked } = await inTransaction(this.dataSource, async (m) => {
+      const repo = m.getRepository(ApiKey);
+      const key = await repo.findOne({
+        where: { id, organisationId: actor.organisationId },
+        lock: { mode: "pessimistic_write" },
+      });
+      if (!key) throw new NotFoundError("No such API key.");
+      if (key.revokedAt) return { key, revoked: false };
       key.revokedAt = this.clock.now();
       key.revokedByUserId = actor.id;
       await repo.update({ id }, { revokedAt: key.revokedAt, revokedByUserId: actor.id });
+      await this.adminActions.record(m, actor, {
+        action: "api-key-revoked",
+        subjectId: id,
+        detail: `"${key.name}" (${keyHint(key)})`,
+      });
+      return { key, revoked: true };
+    });
+    if (revoked) {
       this.logger?.info(
         { audit: "api-key-revoked", actorId: actor.id, organisationId: actor.organisationId, apiKeyId: id },
         "audit: api-key-revoked",

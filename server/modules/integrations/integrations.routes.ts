@@ -1,5 +1,6 @@
 import { Router } from "express";
 import {
+  adminActionListResponse,
   apiKeyAuditResponse,
   apiKeyCreatedResponse,
   apiKeyListResponse,
@@ -9,9 +10,10 @@ import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
 import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
-import { toApiKeyAuditDto, toApiKeyCreatedDto, toApiKeyDto } from "./api-key.mapper.js";
+import type { AdminActionService } from "./admin-action.service.js";
+import { toAdminActionDto, toApiKeyAuditDto, toApiKeyCreatedDto, toApiKeyDto } from "./api-key.mapper.js";
 import type { ApiKeyService } from "./api-key.service.js";
-import { keyParamsSchema } from "./integrations.schemas.js";
+import { adminActionListQuerySchema, keyParamsSchema } from "./integrations.schemas.js";
 
 /** `/api/integrations/api-keys`: an admin's keys for their landlord, and the writes made with them. */
 export function createApiKeysRouter({ keys }: { keys: ApiKeyService }): Router {
@@ -42,6 +44,20 @@ export function createApiKeysRouter({ keys }: { keys: ApiKeyService }): Router {
     const { keyId } = parse(keyParamsSchema, req.params, "params");
     const { key, people } = await keys.revoke(actorOf(req), keyId);
     res.json(shaped(apiKeyResponse, toApiKeyDto(key, people)));
+  });
+
+  return router;
+}
+
+/** `/api/integrations/admin-actions`: what the landlord's admins changed in its keys and webhook endpoints. */
+export function createAdminActionsRouter({ adminActions }: { adminActions: AdminActionService }): Router {
+  const router = Router();
+  router.use(requireRole("admin"));
+
+  router.get("/", async (req, res) => {
+    const { subject } = parse(adminActionListQuerySchema, req.query, "query");
+    const { entries, people } = await adminActions.list(actorOf(req), subject);
+    res.json(shaped(adminActionListResponse, { entries: entries.map((e) => toAdminActionDto(e, people)) }));
   });
 
   return router;

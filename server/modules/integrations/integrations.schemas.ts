@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { ADMIN_ACTION_SUBJECTS } from "../../../src/lib/contracts/integrations.js";
 import { homeSchema, uprnSchema } from "../../../src/lib/schemas/homes.js";
 import { idParam } from "../../lib/validation.js";
 
@@ -10,4 +11,9 @@ export type HomeUpsertInput = z.infer<typeof homeUpsertSchema>;
 
 export const uprnParamsSchema = z.object({
   uprn: uprnSchema.refine((v) => v !== null, "Give the home's UPRN in the path."),
+});
+
+/** GET /api/integrations/admin-actions: all of them, or those about keys or about webhook endpoints. */
+export const adminActionListQuerySchema = z.object({
+  subject: z.enum(ADMIN_ACTION_SUBJECTS, { error: `subject must be one of ${ADMIN_ACTION_SUBJECTS.join(", ")}.` }).optional(),
 });

@@ -1,16 +1,16 @@
 // The webhook relay: sends what webhook_deliveries holds, after the change that queued it has committed.
-// The same shape as the e-mail outbox relay (server/modules/mail/mail.relay.ts):
-// - a row is claimed with a lease by a conditional UPDATE, so two relays never send it at once, and a
-//   relay that dies holding one leaves it to whoever finds the lease expired (nothing is lost on restart);
-// - a failed attempt (no answer, a timeout, anything but 2xx) puts it back to "pending" with a later
-//   `next_attempt_at` (doubling backoff); after the last attempt it is "failed" and an admin can send it again;
+// The claim with a lease, the doubling backoff, the take-over of an expired lease and the background
+// loop are the leased queue's (server/lib/leased-queue.ts), shared with the e-mail outbox relay; so
+// two relays never send a row at once and a restart or a crash loses nothing. This is one attempt:
+// - anything but a 2xx (no answer, a timeout, a redirect) is a failed attempt; after the last one the
+//   delivery is "failed" and an admin can send it again;
 // - every attempt is stored (time, status code or error, duration) for the admin to see.
 // At-least-once: a crash between the receiver's 2xx and our UPDATE sends it again, with the same
 // Dewline-Event-Id, which is what receivers de-duplicate by.
-import { randomBytes } from "node:crypto";
 import { performance } from "node:perf_hooks";
-import { Brackets, type DataSource } from "typeorm";
+import type { DataSource } from "typeorm";
 import type { Clock } from "../../lib/clock.js";
+import { LeasedQueueRelay, type LeasedQueueOptions } from "../../lib/leased-queue.js";
 import type { Logger } from "../../lib/logger.js";
 import { WebhookAttempt } from "./webhook-attempt.entity.js";
 import { WebhookDelivery } from "./webhook-delivery.entity.js";
@@ -18,16 +18,9 @@ import { type WebhookEndpoint } from "./webhook-endpoint.entity.js";
 import { type WebhookEvent } from "./webhook-event.entity.js";
 import { ATTEMPT_HEADER, EVENT_ID_HEADER, EVENT_TYPE_HEADER, SIGNATURE_HEADER, signatureHeader } from "./webhook-signature.js";
 
-export interface WebhookRelayOptions {
-  maxAttempts: number;
-  /** The first retry waits this long; each further one twice as long, up to `maxDelayMs`. */
-  baseDelayMs: number;
-  maxDelayMs: number;
+export interface WebhookRelayOptions extends LeasedQueueOptions {
   /** Each HTTP call's limit (connect, send, answer), through AbortSignal.timeout. */
   timeoutMs: number;
-  /** How long a claim lasts: longer than any one call with its timeout. */
-  leaseMs: number;
-  batchSize: number;
 }
 
 export const DEFAULT_WEBHOOK_RELAY_OPTIONS: WebhookRelayOptions = {
@@ -39,124 +32,25 @@ export const DEFAULT_WEBHOOK_RELAY_OPTIONS: WebhookRelayOptions = {
   batchSize: 10,
 };
 
-/** The wait before the next attempt, after `attempts` attempts have failed. */
-export const webhookBackoffMs = (attempts: number, o: Pick<WebhookRelayOptions, "baseDelayMs" | "maxDelayMs">): number =>
-  Math.min(o.maxDelayMs, o.baseDelayMs * 2 ** Math.max(0, Math.min(attempts - 1, 30)));
-
-const token = () => randomBytes(12).toString("base64url");
 const short = (text: string) => text.slice(0, 500);
 
-export class WebhookRelay {
-  private readonly options: WebhookRelayOptions;
-  private running: Promise<void> | null = null;
-  private again = false;
-  private stopped = false;
+export class WebhookRelay extends LeasedQueueRelay<WebhookDelivery> {
+  private readonly timeoutMs: number;
 
-  constructor(
-    private readonly dataSource: DataSource,
-    private readonly logger: Logger,
-    private readonly clock: Clock,
-    options: Partial<WebhookRelayOptions> = {},
-  ) {
-    this.options = { ...DEFAULT_WEBHOOK_RELAY_OPTIONS, ...options };
+  constructor(dataSource: DataSource, logger: Logger, clock: Clock, options: Partial<WebhookRelayOptions> = {}) {
+    const { timeoutMs, ...queue } = { ...DEFAULT_WEBHOOK_RELAY_OPTIONS, ...options };
+    super(dataSource, logger, clock, queue, WebhookDelivery, "the webhook relay");
+    this.timeoutMs = timeoutMs;
   }
 
-  /** Starts sending what is due, in the background. Never throws, never waits. */
-  wake(): void {
-    if (this.stopped) return;
-    if (this.running) {
-      this.again = true;
-      return;
-    }
-    this.running = (async () => {
-      try {
-        do {
-          this.again = false;
-          await this.drain();
-        } while (this.again && !this.stopped);
-      } catch (error) {
-        this.logger.warn({ err: error instanceof Error ? error.message : String(error) }, "the webhook relay could not run");
-      } finally {
-        this.running = null;
-      }
-    })();
-  }
-
-  /** Resolves when no drain started by wake() is running. */
-  async idle(): Promise<void> {
-    while (this.running) await this.running;
-  }
-
-  /** Claims and sends due deliveries until none is left; returns how many were delivered. Tests call it directly. */
-  async drain(): Promise<number> {
-    let delivered = 0;
-    for (;;) {
-      if (this.stopped) return delivered;
-      const claimed = await this.claim();
-      if (!claimed.length) return delivered;
-      for (const row of claimed) if (await this.sendOne(row)) delivered += 1;
-    }
-  }
-
-  /** Wakes now (what a crash or a stop left queued) and every `everyMs`; the returned function stops it and waits for a send in progress. */
-  start({ everyMs }: { everyMs: number }): () => Promise<void> {
-    this.stopped = false;
-    this.wake();
-    const timer = setInterval(() => this.wake(), everyMs);
-    timer.unref();
-    return async () => {
-      clearInterval(timer);
-      await this.stop();
-    };
-  }
-
-  async stop(): Promise<void> {
-    this.stopped = true;
-    await this.idle();
-  }
-
-  private async claim(): Promise<WebhookDelivery[]> {
-    const now = this.clock.now();
-    const repo = this.dataSource.getRepository(WebhookDelivery);
-    const due = new Brackets((w) =>
-      w
-        .where("status = 'pending' AND next_attempt_at <= :now", { now })
-        .orWhere("status = 'sending' AND lease_expires_at <= :now", { now }),
-    );
-    const candidates = await repo
-      .createQueryBuilder()
-      .select("id", "id")
-      .where(due)
-      .orderBy("next_attempt_at", "ASC")
-      .limit(this.options.batchSize)
-      .getRawMany<{ id: number }>();
-    const claimed: WebhookDelivery[] = [];
-    for (const { id } of candidates) {
-      const lease = token();
-      const result = await repo
-        .createQueryBuilder()
-        .update(WebhookDelivery)
-        .set({
-          status: "sending",
-          leaseToken: lease,
-          leaseExpiresAt: new Date(now.getTime() + this.options.leaseMs),
-          attempts: () => "attempts + 1",
-        })
-        .where("id = :id", { id })
-        .andWhere(due)
-        .execute();
-      if (result.affected === 1) {
-        const row = await repo.findOne({ where: { id, leaseToken: lease }, relations: { event: true, endpoint: true } });
-        if (row) claimed.push(row);
-      }
-    }
-    return claimed;
+  protected override loadClaimed(id: number, lease: string): Promise<WebhookDelivery | null> {
+    return this.repo().findOne({ where: { id, leaseToken: lease }, relations: { event: true, endpoint: true } });
   }
 
   /** One attempt at one claimed delivery; true when the receiver answered 2xx. */
-  private async sendOne(row: WebhookDelivery): Promise<boolean> {
-    const repo = this.dataSource.getRepository(WebhookDelivery);
-    const mine = { id: row.id, leaseToken: row.leaseToken! };
+  protected async sendOne(row: WebhookDelivery): Promise<boolean> {
+    const repo = this.repo();
+    const mine = this.mine(row);
     const endpoint = row.endpoint as WebhookEndpoint;
     const event = row.event as WebhookEvent;
     const at = this.clock.now();
@@ -186,7 +80,7 @@ export class WebhookRelay {
         body: event.body,
         // A redirect is not followed (it could lead anywhere): it counts as a failed attempt.
         redirect: "manual",
-        signal: AbortSignal.timeout(this.options.timeoutMs),
+        signal: AbortSignal.timeout(this.timeoutMs),
       });
       statusCode = res.status;
       // The answer's body is not needed; drop it rather than read an unbounded stream.
@@ -196,7 +90,7 @@ export class WebhookRelay {
       const err = e as Error & { cause?: { code?: string; message?: string } };
       error =
         err.name === "TimeoutError"
-          ? `No answer within ${this.options.timeoutMs} ms.`
+          ? `No answer within ${this.timeoutMs} ms.`
           : short(err.cause?.code ?? err.cause?.message ?? err.message ?? String(e));
     }
     const durationMs = Math.max(0, Math.round(performance.now() - started));
@@ -212,14 +106,8 @@ export class WebhookRelay {
       });
       return true;
     }
-    const last = row.attempts >= this.options.maxAttempts;
     this.logger.warn({ webhookDeliveryId: row.id, attempts: row.attempts, statusCode, err: error }, "webhook not delivered");
-    await repo.update(mine, {
-      status: last ? "failed" : "pending",
-      leaseToken: null,
-      leaseExpiresAt: null,
-      nextAttemptAt: last ? null : new Date(this.clock.now().getTime() + webhookBackoffMs(row.attempts, this.options)),
-    });
+    await repo.update(mine, this.afterFailure(row));
     return false;
   }
 

@@ -1,6 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { In, type DataSource, type EntityManager } from "typeorm";
-import { WEBHOOK_TEST_EVENT, type WebhookEventType } from "../../../src/lib/contracts/webhooks.js";
+import type { AdminActionKind } from "../../../src/lib/contracts/integrations.js";
+import { WEBHOOK_TEST_EVENT, type WebhookEventType, type WebhookPayload } from "../../../src/lib/contracts/webhooks.js";
 import type { WebhookEndpointPatch } from "../../../src/lib/schemas/webhooks.js";
 import type { Config } from "../../config/env.js";
 import type { Clock } from "../../lib/clock.js";
@@ -13,7 +14,7 @@ import { WebhookAttempt } from "./webhook-attempt.entity.js";
 import { WebhookDelivery } from "./webhook-delivery.entity.js";
 import { WebhookEndpoint } from "./webhook-endpoint.entity.js";
 import { type WebhookEvent } from "./webhook-event.entity.js";
-import { caseEventBody, webhookTypeOf, type WebhookBody } from "./webhook-payload.js";
+import { caseEventBody, webhookTypeOf } from "./webhook-payload.js";
 import { newSigningSecret } from "./webhook-signature.js";
 import { endpointUrlProblem } from "./webhook-url.js";
 import { WebhookRelay, type WebhookRelayOptions } from "./webhook.relay.js";
@@ -21,6 +22,18 @@ import type { WebhookEndpointCreate } from "./webhooks.schemas.js";
 
 /** After a rotation the old secret still signs (as a second v1=) for this long, so receivers can switch over. */
 export const PREVIOUS_SECRET_GRACE_MS = 24 * 3_600_000;
+
+/**
+ * Where an admin's change to an endpoint is recorded, inside the change's transaction (wired to the
+ * integrations module's record of admin actions; this module imports nothing of it).
+ */
+export interface AdminActionRecorder {
+  record(
+    m: EntityManager,
+    actor: Actor,
+    note: { action: Extract<AdminActionKind, `webhook-${string}`>; subjectId: number; detail: string },
+  ): Promise<void>;
+}
 
 export interface EndpointCounts {
   pending: number;
@@ -46,6 +59,7 @@ export class WebhookService implements CaseEventListener {
     private readonly config: Pick<Config, "env" | "appUrl">,
     logger: Logger,
     private readonly clock: Clock,
+    private readonly adminActions: AdminActionRecorder,
     relayOptions: Partial<WebhookRelayOptions> = {},
   ) {
     this.relay = new WebhookRelay(dataSource, logger, clock, relayOptions);
@@ -73,6 +87,8 @@ export class WebhookService implements CaseEventListener {
       notice.event.type === "deadline-missed" ? `deadline-missed:${notice.case.id}:${notice.event.after.stage}` : null;
     if (!endpoints.length && dedupeKey === null) return;
     const uid = randomUUID();
+    const body = caseEventBody(uid, notice, this.config.appUrl);
+    if (!body) return;
     const eventId = await this.insertEvent(m, {
       uid,
       organisationId,
@@ -80,7 +96,7 @@ export class WebhookService implements CaseEventListener {
       caseId: notice.case.id,
       caseReference: notice.case.reference,
       dedupeKey,
-      body: caseEventBody(uid, type, notice, this.config.appUrl),
+      body,
       occurredAt: notice.occurredAt,
     });
     if (eventId === null) return;
@@ -96,7 +112,7 @@ export class WebhookService implements CaseEventListener {
   /** INSERT IGNORE: null when an event with the same dedupe key is already there. */
   private async insertEvent(
     m: EntityManager,
-    e: Omit<WebhookEvent, "id" | "body"> & { body: WebhookBody },
+    e: Omit<WebhookEvent, "id" | "body"> & { body: WebhookPayload },
   ): Promise<number | null> {
     const result = (await m.query(
       "INSERT IGNORE INTO webhook_events (uid, organisation_id, type, case_id, case_reference, dedupe_key, body, occurred_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)",
@@ -161,42 +177,78 @@ export class WebhookService implements CaseEventListener {
     return { endpoint, counts: (await this.countsOf([id])).get(id) ?? { pending: 0, failed: 0 } };
   }
 
-  /** A new endpoint with its own signing secret, answered this once. */
+  /** A new endpoint with its own signing secret, answered this once; recorded with who added it. */
   async create(actor: Actor, input: WebhookEndpointCreate): Promise<{ endpoint: WebhookEndpoint; secret: string }> {
     this.checkUrl(input.url);
     const secret = newSigningSecret();
-    const repo = this.dataSource.getRepository(WebhookEndpoint);
-    const saved = await repo.save(
-      repo.create({
-        organisationId: actor.organisationId,
-        url: input.url,
-        description: input.description,
-        eventTypes: input.eventTypes,
-        secret,
-        active: true,
-        createdByUserId: actor.id,
-        createdAt: this.clock.now(),
-      }),
-    );
-    return { endpoint: await this.endpointOf(actor, saved.id), secret };
+    const id = await inTransaction(this.dataSource, async (m) => {
+      const repo = m.getRepository(WebhookEndpoint);
+      const saved = await repo.save(
+        repo.create({
+          organisationId: actor.organisationId,
+          url: input.url,
+          description: input.description,
+          eventTypes: input.eventTypes,
+          secret,
+          active: true,
+          createdByUserId: actor.id,
+          createdAt: this.clock.now(),
+        }),
+      );
+      await this.adminActions.record(m, actor, {
+        action: "webhook-created",
+        subjectId: saved.id,
+        detail: `${saved.url}, events: ${saved.eventTypes.join(", ")}`,
+      });
+      return saved.id;
+    });
+    return { endpoint: await this.endpointOf(actor, id), secret };
   }
 
+  /** Changes what the patch names; a change is recorded with the fields it changed (nothing when nothing changed). */
   async update(actor: Actor, id: number, patch: WebhookEndpointPatch): Promise<WebhookEndpoint> {
-    const endpoint = await this.endpointOf(actor, id);
     if (patch.url !== undefined) this.checkUrl(patch.url);
-    const changes: Partial<WebhookEndpoint> = {};
-    if (patch.url !== undefined) changes.url = patch.url;
-    if (patch.description !== undefined) changes.description = patch.description;
-    if (patch.eventTypes !== undefined) changes.eventTypes = patch.eventTypes as WebhookEventType[];
-    if (patch.active !== undefined) changes.active = patch.active;
-    await this.dataSource.getRepository(WebhookEndpoint).update(endpoint.id, changes);
+    await inTransaction(this.dataSource, async (m) => {
+      const endpoint = await m
+        .getRepository(WebhookEndpoint)
+        .findOne({ where: { id, organisationId: actor.organisationId }, lock: { mode: "pessimistic_write" } });
+      if (!endpoint) throw new NotFoundError("No such webhook endpoint.");
+      const changes: Partial<WebhookEndpoint> = {};
+      const said: string[] = [];
+      if (patch.url !== undefined && patch.url !== endpoint.url) {
+        changes.url = patch.url;
+        said.push(`address ${endpoint.url} → ${patch.url}`);
+      }
+      if (patch.description !== undefined && patch.description !== endpoint.description) {
+        changes.description = patch.description;
+        said.push("description");
+      }
+      if (patch.eventTypes !== undefined && patch.eventTypes.join() !== endpoint.eventTypes.join()) {
+        changes.eventTypes = patch.eventTypes as WebhookEventType[];
+        said.push(`events: ${patch.eventTypes.join(", ")}`);
+      }
+      if (patch.active !== undefined && patch.active !== endpoint.active) {
+        changes.active = patch.active;
+        said.push(patch.active ? "switched on" : "switched off");
+      }
+      if (!said.length) return;
+      await m.getRepository(WebhookEndpoint).update(endpoint.id, changes);
+      await this.adminActions.record(m, actor, {
+        action: "webhook-changed",
+        subjectId: endpoint.id,
+        detail: `${endpoint.url}: ${said.join("; ")}`,
+      });
+    });
     return this.endpointOf(actor, id);
   }
 
-  /** Removes the endpoint with its deliveries and their attempts. */
+  /** Removes the endpoint with its deliveries and their attempts; the record of it stays. */
   async remove(actor: Actor, id: number): Promise<void> {
-    const endpoint = await this.endpointOf(actor, id);
-    await this.dataSource.getRepository(WebhookEndpoint).delete(endpoint.id);
+    await inTransaction(this.dataSource, async (m) => {
+      const endpoint = await this.endpointOf(actor, id, m);
+      await m.getRepository(WebhookEndpoint).delete(endpoint.id);
+      await this.adminActions.record(m, actor, { action: "webhook-removed", subjectId: endpoint.id, detail: endpoint.url });
+    });
   }
 
   /** A new secret; the old one still signs for PREVIOUS_SECRET_GRACE_MS (a second v1=), then no more. */
@@ -213,6 +265,11 @@ export class WebhookService implements CaseEventListener {
         previousSecret: endpoint.secret,
         previousSecretUntil: new Date(now.getTime() + PREVIOUS_SECRET_GRACE_MS),
         secretRotatedAt: now,
+      });
+      await this.adminActions.record(m, actor, {
+        action: "webhook-secret-replaced",
+        subjectId: id,
+        detail: `${endpoint.url} (the old secret signs too for 24 hours)`,
       });
     });
     return { endpoint: await this.endpointOf(actor, id), secret };

@@ -26,7 +26,14 @@ import {
   webhookSecretResponse,
 } from "./webhooks.js";
 import { healthResponse, livenessResponse, readinessResponse } from "./health.js";
-import { apiKeyAuditResponse, apiKeyCreatedResponse, apiKeyListResponse, apiKeyResponse, type ApiScope } from "./integrations.js";
+import {
+  adminActionListResponse,
+  apiKeyAuditResponse,
+  apiKeyCreatedResponse,
+  apiKeyListResponse,
+  apiKeyResponse,
+  type ApiScope,
+} from "./integrations.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse, photoUploadResponse } from "./photos.js";
 import { policyResponse } from "./policy.js";
@@ -342,6 +349,13 @@ export const ENDPOINTS: readonly Endpoint[] = [
     ["admin"],
     "The latest writes made with the landlord's API keys",
     apiKeyAuditResponse,
+  ),
+  e(
+    "GET",
+    "/api/integrations/admin-actions",
+    ["admin"],
+    "The latest changes admins made to API keys and webhook endpoints: who, what, when (?subject=api-key|webhook)",
+    adminActionListResponse,
   ),
 
   // The integration API: `Authorization: Bearer <API key>`, no session, no CSRF token.

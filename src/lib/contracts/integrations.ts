@@ -48,3 +48,42 @@ export const apiKeyAuditEntry = z.object({
 export type ApiKeyAuditEntry = z.infer<typeof apiKeyAuditEntry>;
 export const apiKeyAuditResponse = z.object({ entries: z.array(apiKeyAuditEntry) });
 export type ApiKeyAuditResponse = z.infer<typeof apiKeyAuditResponse>;
+
+/** Changes an admin makes to the landlord's integrations, each recorded with who and when. */
+export const ADMIN_ACTION_KINDS = [
+  "api-key-created",
+  "api-key-revoked",
+  "webhook-created",
+  "webhook-changed",
+  "webhook-removed",
+  "webhook-secret-replaced",
+] as const;
+export type AdminActionKind = (typeof ADMIN_ACTION_KINDS)[number];
+/** What the change was made to: an API key or a webhook endpoint. */
+export const ADMIN_ACTION_SUBJECTS = ["api-key", "webhook"] as const;
+export type AdminActionSubject = (typeof ADMIN_ACTION_SUBJECTS)[number];
+export const adminActionSubjectOf = (kind: AdminActionKind): AdminActionSubject =>
+  kind.startsWith("api-key-") ? "api-key" : "webhook";
+
+export const adminActionLabels: Record<AdminActionKind, string> = {
+  "api-key-created": "API key created",
+  "api-key-revoked": "API key revoked",
+  "webhook-created": "Webhook endpoint added",
+  "webhook-changed": "Webhook endpoint changed",
+  "webhook-removed": "Webhook endpoint removed",
+  "webhook-secret-replaced": "Webhook signing secret replaced",
+};
+
+/** One change an admin made (never a secret): who, what, to which key or endpoint, when. */
+export const adminActionEntry = z.object({
+  id,
+  action: z.enum(ADMIN_ACTION_KINDS),
+  subject: z.object({ kind: z.enum(ADMIN_ACTION_SUBJECTS), id }),
+  /** The key's name and scopes, the endpoint's address, or the fields changed, as they were then. */
+  detail: z.string(),
+  by: idName.nullable(),
+  at: instant,
+});
+export type AdminActionEntryDto = z.infer<typeof adminActionEntry>;
+export const adminActionListResponse = z.object({ entries: z.array(adminActionEntry) });
+export type AdminActionListResponse = z.infer<typeof adminActionListResponse>;

@@ -2,8 +2,10 @@ import type { QueryClient } from "@tanstack/react-query";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
+import { adminActionsQueryOptions } from "@/features/integrations/api/get-admin-actions";
 import { apiKeyAuditQueryOptions } from "@/features/integrations/api/get-api-key-audit";
 import { apiKeysQueryOptions } from "@/features/integrations/api/get-api-keys";
+import { AdminActionsTable } from "@/features/integrations/components/admin-actions-table";
 import { ApiKeyAuditTable } from "@/features/integrations/components/api-key-audit-table";
 import { ApiKeysTable } from "@/features/integrations/components/api-keys-table";
 import { CreateApiKeyForm } from "@/features/integrations/components/create-api-key-form";
@@ -12,6 +14,7 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
   if (await signedInAs(queryClient, ["admin"])) {
     void queryClient.prefetchQuery(apiKeysQueryOptions());
     void queryClient.prefetchQuery(apiKeyAuditQueryOptions());
+    void queryClient.prefetchQuery(adminActionsQueryOptions());
   }
   return null;
 };
@@ -32,6 +35,9 @@ export default function IntegrationsPage() {
       </Panel>
       <Panel title="Changes made with API keys" id="api-key-audit">
         <ApiKeyAuditTable />
+      </Panel>
+      <Panel title="Changes made by admins (keys and webhooks)" id="admin-actions">
+        <AdminActionsTable />
       </Panel>
     </>
   );

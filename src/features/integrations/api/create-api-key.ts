@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { ApiKeyCreatedResponse } from "@/lib/contracts";
-import { apiKeyKeys } from "@/lib/query-keys";
+import { adminActionKeys, apiKeyKeys } from "@/lib/query-keys";
 import type { ApiKeyCreateInput } from "@/lib/schemas/api-keys";
 
 export { apiKeyCreateSchema, type ApiKeyCreateInput } from "@/lib/schemas/api-keys";
@@ -13,6 +13,11 @@ export function useCreateApiKey() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createApiKey,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: apiKeyKeys.list() }),
+    // The change is on the admins' record of changes too.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: apiKeyKeys.list() }),
+        queryClient.invalidateQueries({ queryKey: adminActionKeys.all }),
+      ]),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { ApiKeyResponse } from "@/lib/contracts";
-import { apiKeyKeys } from "@/lib/query-keys";
+import { adminActionKeys, apiKeyKeys } from "@/lib/query-keys";
 
 /** POST /api/integrations/api-keys/:keyId/revoke: refused from now on. */
 export const revokeApiKey = (keyId: number) => api.post<ApiKeyResponse>(`/integrations/api-keys/${keyId}/revoke`);
@@ -10,6 +10,11 @@ export function useRevokeApiKey() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: revokeApiKey,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: apiKeyKeys.list() }),
+    // The change is on the admins' record of changes too.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: apiKeyKeys.list() }),
+        queryClient.invalidateQueries({ queryKey: adminActionKeys.all }),
+      ]),
   });
 }

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { WebhookSecretDto } from "@/lib/contracts";
-import { webhookKeys } from "@/lib/query-keys";
+import { adminActionKeys, webhookKeys } from "@/lib/query-keys";
 import type { WebhookEndpointInput } from "@/lib/schemas/webhooks";
 
 /** POST /api/webhooks: the new endpoint and its signing secret, answered this once. */
@@ -11,6 +11,11 @@ export function useCreateWebhook() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: createWebhook,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: webhookKeys.lists() }),
+    // The change is on the admins' record of changes too.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: webhookKeys.lists() }),
+        queryClient.invalidateQueries({ queryKey: adminActionKeys.all }),
+      ]),
   });
 }

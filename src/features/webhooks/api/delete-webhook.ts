@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
-import { webhookKeys } from "@/lib/query-keys";
+import { adminActionKeys, webhookKeys } from "@/lib/query-keys";
 
 /** DELETE /api/webhooks/:id: the endpoint goes, with its deliveries. */
 export const deleteWebhook = (id: number) => api.delete<null>(`/webhooks/${id}`);
@@ -9,6 +9,11 @@ export function useDeleteWebhook() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: deleteWebhook,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: webhookKeys.all }),
+    // The change is on the admins' record of changes too.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: webhookKeys.all }),
+        queryClient.invalidateQueries({ queryKey: adminActionKeys.all }),
+      ]),
   });
 }

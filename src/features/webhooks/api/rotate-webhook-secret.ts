@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { WebhookSecretDto } from "@/lib/contracts";
-import { webhookKeys } from "@/lib/query-keys";
+import { adminActionKeys, webhookKeys } from "@/lib/query-keys";
 
 /** POST /api/webhooks/:id/secret: a new signing secret, answered this once (the old one signs too for 24 hours). */
 export const rotateWebhookSecret = (id: number) => api.post<WebhookSecretDto>(`/webhooks/${id}/secret`);
@@ -10,6 +10,11 @@ export function useRotateWebhookSecret() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: rotateWebhookSecret,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: webhookKeys.lists() }),
+    // The change is on the admins' record of changes too.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: webhookKeys.lists() }),
+        queryClient.invalidateQueries({ queryKey: adminActionKeys.all }),
+      ]),
   });
 }

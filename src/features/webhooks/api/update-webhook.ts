@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { api } from "@/lib/api-client";
 import type { WebhookEndpointDto } from "@/lib/contracts";
-import { webhookKeys } from "@/lib/query-keys";
+import { adminActionKeys, webhookKeys } from "@/lib/query-keys";
 import type { WebhookEndpointPatch } from "@/lib/schemas/webhooks";
 
 /** PATCH /api/webhooks/:id: switch an endpoint off or on, or change what it receives. */
@@ -12,6 +12,11 @@ export function useUpdateWebhook() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: updateWebhook,
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: webhookKeys.lists() }),
+    // The change is on the admins' record of changes too.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: webhookKeys.lists() }),
+        queryClient.invalidateQueries({ queryKey: adminActionKeys.all }),
+      ]),
   });
 }
