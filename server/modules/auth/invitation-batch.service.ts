@@ -42,9 +42,8 @@ export class InvitationBatchService {
     private readonly settings: { perBatch: number; intervalMs: number },
   ) {}
 
-  /** Queues the invitations as one batch in the caller's transaction; null when there are none. */
-  async queue(m: EntityManager, actor: Actor, items: readonly QueuedInvitation[]): Promise<number | null> {
-    if (items.length === 0) return null;
+  /** Opens a batch for an import's invitations, in the caller's transaction (`enqueue` fills it). */
+  async openBatch(m: EntityManager, actor: Actor): Promise<number> {
     const batch = await m.getRepository(InvitationBatch).save({
       organisationId: actor.organisationId,
       createdById: actor.id,
@@ -53,16 +52,19 @@ export class InvitationBatchService {
       pausedAt: null,
       cancelledAt: null,
     });
-    const rows = items.map((i) => ({
-      batchId: batch.id,
-      organisationId: actor.organisationId,
-      userId: i.userId,
-      email: i.email,
-      status: "pending" as const,
-      releasedAt: null,
-    }));
-    for (let i = 0; i < rows.length; i += 2000) await m.getRepository(PendingInvitation).insert(rows.slice(i, i + 2000));
     return batch.id;
+  }
+
+  /** Queues invitations in the batch, in the order given (the order they go out), in the caller's transaction. */
+  async enqueue(m: EntityManager, batchId: number, organisationId: number, items: readonly QueuedInvitation[]): Promise<void> {
+    for (let i = 0; i < items.length; i += 5000) {
+      await m.query(
+        "INSERT INTO pending_invitations (batch_id, organisation_id, user_id, email, status, released_at) " +
+          "SELECT ?, ?, j.user_id, j.email, 'pending', NULL FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (" +
+          "ord FOR ORDINALITY, user_id INT UNSIGNED PATH '$[0]', email VARCHAR(190) PATH '$[1]')) AS j ORDER BY j.ord",
+        [batchId, organisationId, JSON.stringify(items.slice(i, i + 5000).map((x) => [x.userId, x.email]))],
+      );
+    }
   }
 
   /** Whether an invitation to this address is already queued or sent by this landlord (so a re-import asks nothing new). */
