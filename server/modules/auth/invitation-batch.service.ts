@@ -70,11 +70,12 @@ export class InvitationBatchService {
   /** Whether an invitation to this address is already queued or sent by this landlord (so a re-import asks nothing new). */
   async alreadyQueued(m: EntityManager, organisationId: number, emails: readonly string[]): Promise<Set<string>> {
     const out = new Set<string>();
-    for (let i = 0; i < emails.length; i += 1000) {
-      const rows = await m.getRepository(PendingInvitation).find({
-        select: { email: true },
-        where: { organisationId, email: In(emails.slice(i, i + 1000)), status: In(["pending", "sent"]) },
-      });
+    for (let i = 0; i < emails.length; i += 5000) {
+      const rows = (await m.query(
+        "SELECT DISTINCT p.email FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (email VARCHAR(190) PATH '$')) AS j " +
+          "JOIN pending_invitations p ON p.organisation_id = ? AND p.email = j.email WHERE p.status IN ('pending', 'sent')",
+        [JSON.stringify(emails.slice(i, i + 5000)), organisationId],
+      )) as { email: string }[];
       for (const r of rows) out.add(r.email);
     }
     return out;

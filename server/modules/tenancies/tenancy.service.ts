@@ -1,4 +1,4 @@
-import { In, IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
+import { IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
 import { localDate } from "../../../src/lib/domain/working-days.js";
 import type { Clock } from "../../lib/clock.js";
 import { NotFoundError } from "../../lib/errors.js";
@@ -103,14 +103,31 @@ export class TenancyService {
   }
 
   /** The landlord's tenancies with these references, locked for the caller's transaction. */
-  async byReferences(m: EntityManager, organisationId: number, references: readonly string[]): Promise<Map<string, Tenancy>> {
-    const out = new Map<string, Tenancy>();
-    for (let i = 0; i < references.length; i += 1000) {
-      const rows = await m.getRepository(Tenancy).find({
-        where: { organisationId, reference: In(references.slice(i, i + 1000)) },
-        lock: { mode: "pessimistic_write" },
-      });
-      for (const t of rows) out.set(t.reference!, t);
+  async byReferences(
+    m: EntityManager,
+    organisationId: number,
+    references: readonly string[],
+  ): Promise<Map<string, ImportedTenancy & { id: number; tenantUserId: number }>> {
+    const out = new Map<string, ImportedTenancy & { id: number; tenantUserId: number }>();
+    for (let i = 0; i < references.length; i += IMPORT_ROWS_PER_STATEMENT) {
+      const rows = (await m.query(
+        "SELECT t.id, t.reference, t.property_id, t.tenant_user_id, DATE_FORMAT(t.start_date, '%Y-%m-%d') AS start_date, " +
+          "DATE_FORMAT(t.end_date, '%Y-%m-%d') AS end_date, t.access_needs, t.household_vulnerability " +
+          "FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (reference VARCHAR(64) PATH '$')) AS j " +
+          "JOIN tenancies t ON t.organisation_id = ? AND t.reference = j.reference FOR UPDATE",
+        [JSON.stringify(references.slice(i, i + IMPORT_ROWS_PER_STATEMENT)), organisationId],
+      )) as Record<string, string | number | null>[];
+      for (const r of rows) {
+        out.set(String(r.reference), {
+          id: Number(r.id),
+          propertyId: Number(r.property_id),
+          tenantUserId: Number(r.tenant_user_id),
+          startDate: String(r.start_date),
+          endDate: r.end_date === null ? null : String(r.end_date),
+          accessNeeds: r.access_needs === null ? null : String(r.access_needs),
+          householdVulnerability: r.household_vulnerability === null ? null : String(r.household_vulnerability),
+        });
+      }
     }
     return out;
   }
@@ -135,7 +152,11 @@ export class TenancyService {
   }
 
   /** Sets referenced tenancies' dates and consented details as the file has them (inside the caller's transaction). */
-  async updateImported(m: EntityManager, organisationId: number, rows: readonly (ImportedTenancy & { id: number })[]): Promise<void> {
+  async updateImported(
+    m: EntityManager,
+    organisationId: number,
+    rows: readonly (ImportedTenancy & { id: number })[],
+  ): Promise<void> {
     for (let i = 0; i < rows.length; i += IMPORT_ROWS_PER_STATEMENT) {
       const chunk = rows.slice(i, i + IMPORT_ROWS_PER_STATEMENT);
       await m.query(

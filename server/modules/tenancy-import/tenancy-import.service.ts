@@ -29,7 +29,9 @@ export const BATCH_ROWS = 5_000;
 const fileError = (message: string) => new ValidationError(`file: ${message}`, [{ field: "file", message }]);
 const fmt = (n: number) => n.toLocaleString("en-GB").replace(/,/g, " ");
 const tooManyRows = () =>
-  fileError(`The file has more than ${fmt(MAX_TENANCY_ROWS)} rows: split it into files of at most ${fmt(MAX_TENANCY_ROWS)} rows.`);
+  fileError(
+    `The file has more than ${fmt(MAX_TENANCY_ROWS)} rows: split it into files of at most ${fmt(MAX_TENANCY_ROWS)} rows.`,
+  );
 
 const isBlank = (cells: readonly string[]) => cells.every((c) => c === "");
 const unique = <T>(xs: readonly T[]) => [...new Set(xs)];
