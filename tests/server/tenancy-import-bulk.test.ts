@@ -243,4 +243,16 @@ describe("a 2 000-row tenancy file stored in batches", () => {
     const phone = await ds.getRepository(User).findOneByOrFail({ email: mail(101) });
     expect(phone.phone).toBe("07700950101");
   });
+
+  it("reads every row's report back, and an import's report stored before compression alike", async () => {
+    const ds = t.ctx.dataSource;
+    const latest = await ds
+      .getRepository(TenancyImport)
+      .findOneOrFail({ where: { organisationId: ours.org.id }, order: { id: "DESC" } });
+    expect((await service.report(actor, latest.id)).rows).toHaveLength(ROWS);
+    const plain = [{ row: 2, reference: "OLD-1", outcome: "created", changes: [], reasons: [QUEUED] }];
+    const { id: _latestId, ...copy } = latest;
+    const older = await ds.getRepository(TenancyImport).save({ ...copy, fileName: "older.csv", report: JSON.stringify(plain) });
+    expect(await service.report(actor, older.id)).toEqual({ fileName: "older.csv", rows: plain });
+  });
 });
