@@ -44,6 +44,8 @@ interface ChildJob {
 interface ChildResult {
   ms: number;
   maxRssMb: number;
+  /** The child's RSS just before the import (Node, tsx, TypeORM and the app's modules loaded). */
+  rssBeforeMb: number;
   created: number;
   updated: number;
   unchanged: number;
@@ -83,12 +85,14 @@ async function child(job: ChildJob): Promise<void> {
   try {
     const config = loadConfig({ ...process.env, NODE_ENV: "test" });
     const service = createServices(config, ds, createMailer(config), createLogger("silent")).tenancyImports;
+    const rssBeforeMb = process.memoryUsage().rss / MB;
     const start = performance.now();
     const r = await service.import(job.actor, { path: job.file, fileName: path.basename(job.file) });
     const ms = performance.now() - start;
     const result: ChildResult = {
       ms,
       maxRssMb: process.resourceUsage().maxRSS / 1024,
+      rssBeforeMb,
       created: r.created,
       updated: r.updated,
       unchanged: r.unchanged,
@@ -157,14 +161,16 @@ async function main(): Promise<void> {
     const actor = { id: admin.id, email: admin.email, name: admin.name, role: "admin" as const, organisationId: org.id };
     const line = (label: string, r: ChildResult) =>
       console.log(
-        `  ${label.padEnd(28)} ${(r.ms / 1000).toFixed(2).padStart(7)} s ${fmt((ROWS / r.ms) * 1000).padStart(8)} rows/s   peak RSS ${r.maxRssMb.toFixed(0)} MB   ` +
+        `  ${label.padEnd(28)} ${(r.ms / 1000).toFixed(2).padStart(7)} s ${fmt((ROWS / r.ms) * 1000).padStart(8)} rows/s   peak RSS ${r.maxRssMb.toFixed(0)} MB (${r.rssBeforeMb.toFixed(0)} MB before it)   ` +
           `(created ${fmt(r.created)}, updated ${fmt(r.updated)}, unchanged ${fmt(r.unchanged)}, rejected ${r.rejected}, invitations ${fmt(r.invitations)})`,
       );
     const first = await runChild({ db, actor, file });
     line("new tenancies", first);
     const again = await runChild({ db, actor, file: changed });
     line("re-import, 1 % changed", again);
-    const [{ n }] = (await ds.query("SELECT COUNT(*) AS n FROM tenancies WHERE organisation_id = ?", [org.id])) as { n: string }[];
+    const [{ n }] = (await ds.query("SELECT COUNT(*) AS n FROM tenancies WHERE organisation_id = ?", [org.id])) as {
+      n: string;
+    }[];
     console.log(`  tenancies of the landlord after both imports: ${fmt(Number(n))}`);
     const invited = ROWS - Math.floor(ROWS / 20);
     if (
