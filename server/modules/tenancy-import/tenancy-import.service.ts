@@ -116,6 +116,8 @@ interface BatchState {
  * A landlord's tenancy file (CSV or .xlsx) brought in by an admin: tenant accounts without passwords
  * and their tenancies, upserted by the landlord's tenancy reference, in one transaction per file, with
  * each row's outcome; the invitations are queued as a batch (InvitationBatchService), never sent at once.
+ * Rows are consumed a chunk at a time and stored BATCH_ROWS valid rows at a time (`storeBatch`): set-based
+ * reads and writes, each row decided in memory by the same rules, in file order.
  */
 export class TenancyImportService {
   constructor(
