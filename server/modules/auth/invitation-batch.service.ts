@@ -42,9 +42,8 @@ export class InvitationBatchService {
     private readonly settings: { perBatch: number; intervalMs: number },
   ) {}
 
-  /** Queues the invitations as one batch in the caller's transaction; null when there are none. */
-  async queue(m: EntityManager, actor: Actor, items: readonly QueuedInvitation[]): Promise<number | null> {
-    if (items.length === 0) return null;
+  /** Opens a batch for an import's invitations, in the caller's transaction (`enqueue` fills it). */
+  async openBatch(m: EntityManager, actor: Actor): Promise<number> {
     const batch = await m.getRepository(InvitationBatch).save({
       organisationId: actor.organisationId,
       createdById: actor.id,
@@ -53,26 +52,30 @@ export class InvitationBatchService {
       pausedAt: null,
       cancelledAt: null,
     });
-    const rows = items.map((i) => ({
-      batchId: batch.id,
-      organisationId: actor.organisationId,
-      userId: i.userId,
-      email: i.email,
-      status: "pending" as const,
-      releasedAt: null,
-    }));
-    for (let i = 0; i < rows.length; i += 2000) await m.getRepository(PendingInvitation).insert(rows.slice(i, i + 2000));
     return batch.id;
+  }
+
+  /** Queues invitations in the batch, in the order given (the order they go out), in the caller's transaction. */
+  async enqueue(m: EntityManager, batchId: number, organisationId: number, items: readonly QueuedInvitation[]): Promise<void> {
+    for (let i = 0; i < items.length; i += 5000) {
+      await m.query(
+        "INSERT INTO pending_invitations (batch_id, organisation_id, user_id, email, status, released_at) " +
+          "SELECT ?, ?, j.user_id, j.email, 'pending', NULL FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (" +
+          "ord FOR ORDINALITY, user_id INT UNSIGNED PATH '$[0]', email VARCHAR(190) PATH '$[1]')) AS j ORDER BY j.ord",
+        [batchId, organisationId, JSON.stringify(items.slice(i, i + 5000).map((x) => [x.userId, x.email]))],
+      );
+    }
   }
 
   /** Whether an invitation to this address is already queued or sent by this landlord (so a re-import asks nothing new). */
   async alreadyQueued(m: EntityManager, organisationId: number, emails: readonly string[]): Promise<Set<string>> {
     const out = new Set<string>();
-    for (let i = 0; i < emails.length; i += 1000) {
-      const rows = await m.getRepository(PendingInvitation).find({
-        select: { email: true },
-        where: { organisationId, email: In(emails.slice(i, i + 1000)), status: In(["pending", "sent"]) },
-      });
+    for (let i = 0; i < emails.length; i += 5000) {
+      const rows = (await m.query(
+        "SELECT DISTINCT p.email FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (email VARCHAR(190) PATH '$')) AS j " +
+          "JOIN pending_invitations p ON p.organisation_id = ? AND p.email = j.email WHERE p.status IN ('pending', 'sent')",
+        [JSON.stringify(emails.slice(i, i + 5000)), organisationId],
+      )) as { email: string }[];
       for (const r of rows) out.add(r.email);
     }
     return out;

@@ -1,4 +1,4 @@
-import { In, IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
+import { IsNull, LessThanOrEqual, MoreThanOrEqual, type DataSource, type EntityManager } from "typeorm";
 import { localDate } from "../../../src/lib/domain/working-days.js";
 import type { Clock } from "../../lib/clock.js";
 import { NotFoundError } from "../../lib/errors.js";
@@ -8,6 +8,26 @@ import { Tenancy } from "./tenancy.entity.js";
 
 /** What a landlord's tenancy file says of a tenancy. */
 export type ImportedTenancy = Pick<Tenancy, "propertyId" | "startDate" | "endDate" | "accessNeeds" | "householdVulnerability">;
+
+/** Rows of a tenancy file in one statement: a JSON parameter of a megabyte or two at most. */
+const IMPORT_ROWS_PER_STATEMENT = 5000;
+
+/** A tenancy of the file as JSON_TABLE reads it (`IMPORTED_ROWS`). */
+const importedRow = (reference: string | null, tenantUserId: number | null, t: ImportedTenancy, id: number | null = null) => [
+  id,
+  reference,
+  t.propertyId,
+  tenantUserId,
+  t.startDate,
+  t.endDate,
+  t.accessNeeds,
+  t.householdVulnerability,
+];
+
+const IMPORTED_ROWS =
+  "JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (ord FOR ORDINALITY, id INT UNSIGNED PATH '$[0]', reference VARCHAR(64) PATH '$[1]', " +
+  "property_id INT UNSIGNED PATH '$[2]', tenant_user_id INT UNSIGNED PATH '$[3]', start_date DATE PATH '$[4]', end_date DATE PATH '$[5]', " +
+  "access_needs TEXT PATH '$[6]', household_vulnerability TEXT PATH '$[7]')) AS j";
 
 export class TenancyService {
   constructor(
@@ -83,31 +103,69 @@ export class TenancyService {
   }
 
   /** The landlord's tenancies with these references, locked for the caller's transaction. */
-  async byReferences(m: EntityManager, organisationId: number, references: readonly string[]): Promise<Map<string, Tenancy>> {
-    const out = new Map<string, Tenancy>();
-    for (let i = 0; i < references.length; i += 1000) {
-      const rows = await m.getRepository(Tenancy).find({
-        where: { organisationId, reference: In(references.slice(i, i + 1000)) },
-        lock: { mode: "pessimistic_write" },
-      });
-      for (const t of rows) out.set(t.reference!, t);
+  async byReferences(
+    m: EntityManager,
+    organisationId: number,
+    references: readonly string[],
+  ): Promise<Map<string, ImportedTenancy & { id: number; tenantUserId: number }>> {
+    const out = new Map<string, ImportedTenancy & { id: number; tenantUserId: number }>();
+    for (let i = 0; i < references.length; i += IMPORT_ROWS_PER_STATEMENT) {
+      const rows = (await m.query(
+        "SELECT t.id, t.reference, t.property_id, t.tenant_user_id, DATE_FORMAT(t.start_date, '%Y-%m-%d') AS start_date, " +
+          "DATE_FORMAT(t.end_date, '%Y-%m-%d') AS end_date, t.access_needs, t.household_vulnerability " +
+          "FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (reference VARCHAR(64) PATH '$')) AS j " +
+          "JOIN tenancies t ON t.organisation_id = ? AND t.reference = j.reference FOR UPDATE",
+        [JSON.stringify(references.slice(i, i + IMPORT_ROWS_PER_STATEMENT)), organisationId],
+      )) as Record<string, string | number | null>[];
+      for (const r of rows) {
+        out.set(String(r.reference), {
+          id: Number(r.id),
+          propertyId: Number(r.property_id),
+          tenantUserId: Number(r.tenant_user_id),
+          startDate: String(r.start_date),
+          endDate: r.end_date === null ? null : String(r.end_date),
+          accessNeeds: r.access_needs === null ? null : String(r.access_needs),
+          householdVulnerability: r.household_vulnerability === null ? null : String(r.household_vulnerability),
+        });
+      }
     }
     return out;
   }
 
-  /** Tenancies from the landlord's file, with their references (inside the caller's transaction), 1 000 rows a statement. */
+  /**
+   * Tenancies from the landlord's file, with their references, in the caller's transaction: a few
+   * thousand a statement, each batch one JSON parameter (as the readings import does).
+   */
   async createImported(
     m: EntityManager,
-    rows: readonly (ImportedTenancy & { organisationId: number; reference: string; tenantUserId: number })[],
-  ) {
-    for (let i = 0; i < rows.length; i += 1000) {
-      await m.getRepository(Tenancy).insert(rows.slice(i, i + 1000).map((t) => ({ ...t, householdNotes: null })));
+    organisationId: number,
+    rows: readonly (ImportedTenancy & { reference: string; tenantUserId: number })[],
+  ): Promise<void> {
+    for (let i = 0; i < rows.length; i += IMPORT_ROWS_PER_STATEMENT) {
+      const chunk = rows.slice(i, i + IMPORT_ROWS_PER_STATEMENT);
+      await m.query(
+        "INSERT INTO tenancies (organisation_id, reference, property_id, tenant_user_id, start_date, end_date, access_needs, household_vulnerability, household_notes) " +
+          `SELECT ?, j.reference, j.property_id, j.tenant_user_id, j.start_date, j.end_date, j.access_needs, j.household_vulnerability, NULL FROM ${IMPORTED_ROWS} ORDER BY j.ord`,
+        [organisationId, JSON.stringify(chunk.map((t) => importedRow(t.reference, t.tenantUserId, t)))],
+      );
     }
   }
 
-  /** Changes a referenced tenancy's dates or consented details (inside the caller's transaction). */
-  async updateImported(m: EntityManager, id: number, patch: Partial<ImportedTenancy>): Promise<void> {
-    if (Object.keys(patch).length > 0) await m.getRepository(Tenancy).update(id, patch);
+  /** Sets referenced tenancies' dates and consented details as the file has them (inside the caller's transaction). */
+  async updateImported(
+    m: EntityManager,
+    organisationId: number,
+    rows: readonly (ImportedTenancy & { id: number })[],
+  ): Promise<void> {
+    for (let i = 0; i < rows.length; i += IMPORT_ROWS_PER_STATEMENT) {
+      const chunk = rows.slice(i, i + IMPORT_ROWS_PER_STATEMENT);
+      await m.query(
+        `UPDATE tenancies t JOIN ${IMPORTED_ROWS} ON t.id = j.id ` +
+          "SET t.start_date = j.start_date, t.end_date = j.end_date, t.access_needs = j.access_needs, t.household_vulnerability = j.household_vulnerability " +
+          "WHERE t.organisation_id = ? AND t.property_id = j.property_id",
+        [JSON.stringify(chunk.map((t) => importedRow(null, null, t, t.id))), organisationId],
+      );
+    }
   }
 
   /** The tenant living at the home now (the latest current tenancy), or null. */

@@ -48,7 +48,11 @@ export class TenancyImport {
   @Column({ name: "invitation_batch_id", type: "int", unsigned: true, nullable: true })
   invitationBatchId: number | null;
 
-  /** Each row's outcome (JSON array), for the downloadable report. */
+  /**
+   * Each row's outcome (a JSON array), for the downloadable report: stored gzip-compressed in base64
+   * behind "gzip:" (a 100 000-row report is some 13 MB of JSON), or, for older imports, the plain JSON.
+   * Read it through TenancyImportService.report.
+   */
   @Column({ type: "longtext" })
   report: string;
 }

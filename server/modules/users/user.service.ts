@@ -41,6 +41,9 @@ export interface UserAuditRecord {
   at: Date;
 }
 
+/** Rows of a tenancy file in one statement: a JSON parameter of well under a megabyte. */
+const IMPORT_ROWS_PER_STATEMENT = 5000;
+
 const isStaffRole = (role: Role) => (STAFF_ROLES as readonly Role[]).includes(role);
 
 /** What a signed-in request needs of its account, read on every request (and briefly cached). */
@@ -144,34 +147,91 @@ export class UserService {
   /** The accounts using these addresses (lower-cased), with their contact details, in the caller's transaction. */
   async contactsByEmail(m: EntityManager, emails: readonly string[]): Promise<Map<string, ImportedContact>> {
     const out = new Map<string, ImportedContact>();
-    for (let i = 0; i < emails.length; i += 1000) {
-      const rows = await m.getRepository(User).find({ where: { email: In(emails.slice(i, i + 1000)) } });
+    for (let i = 0; i < emails.length; i += IMPORT_ROWS_PER_STATEMENT) {
+      const rows = (await m.query(
+        "SELECT u.id, u.name, u.email, u.role, u.organisation_id, u.status, u.phone, u.preferred_language " +
+          "FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (email VARCHAR(190) PATH '$')) AS j JOIN users u ON u.email = j.email",
+        [JSON.stringify(emails.slice(i, i + IMPORT_ROWS_PER_STATEMENT))],
+      )) as {
+        id: number;
+        name: string;
+        email: string;
+        role: Role;
+        organisation_id: number;
+        status: User["status"];
+        phone: string | null;
+        preferred_language: string | null;
+      }[];
       for (const u of rows)
-        out.set(u.email, { ...personOf(u), status: u.status, phone: u.phone, preferredLanguage: u.preferredLanguage });
+        out.set(u.email, {
+          id: Number(u.id),
+          name: u.name,
+          email: u.email,
+          role: u.role,
+          organisationId: Number(u.organisation_id),
+          status: u.status,
+          phone: u.phone,
+          preferredLanguage: u.preferred_language,
+        });
     }
     return out;
   }
 
-  /** A tenant account from a landlord's tenancy file: invited, no password, with its phone and language. */
-  async createImportedTenant(
+  /**
+   * Tenant accounts from a landlord's tenancy file: invited, no password, with their phone and
+   * language, in the caller's transaction, a few thousand a statement (one JSON parameter, as the
+   * readings import does). Their ids are read back by (landlord, e-mail): insert id ranges are not
+   * contiguous under Galera's auto_increment_increment.
+   */
+  async createImportedTenants(
     m: EntityManager,
-    input: { organisationId: number; email: string; name: string; phone: string | null; preferredLanguage: string | null },
-  ): Promise<Person> {
-    // insert, not save: no read-back of the row, which a file of thousands of tenants would pay per row.
-    const result = await m.getRepository(User).insert({ ...input, role: "tenant", status: "invited", passwordHash: null });
-    const id = Number((result.identifiers[0] as { id: number }).id);
-    return { id, name: input.name, email: input.email, role: "tenant", organisationId: input.organisationId };
+    organisationId: number,
+    rows: readonly { email: string; name: string; phone: string | null; preferredLanguage: string | null }[],
+  ): Promise<Map<string, number>> {
+    const out = new Map<string, number>();
+    for (let i = 0; i < rows.length; i += IMPORT_ROWS_PER_STATEMENT) {
+      const chunk = rows.slice(i, i + IMPORT_ROWS_PER_STATEMENT);
+      await m.query(
+        "INSERT INTO users (organisation_id, email, name, password_hash, role, status, phone, preferred_language) " +
+          "SELECT ?, j.email, j.name, NULL, 'tenant', 'invited', j.phone, j.lang FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (" +
+          "ord FOR ORDINALITY, email VARCHAR(190) PATH '$[0]', name VARCHAR(190) PATH '$[1]', phone VARCHAR(40) PATH '$[2]', lang VARCHAR(35) PATH '$[3]'" +
+          ")) AS j ORDER BY j.ord",
+        [organisationId, JSON.stringify(chunk.map((r) => [r.email, r.name, r.phone, r.preferredLanguage]))],
+      );
+      const found = (await m.query(
+        "SELECT u.id, u.email FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (email VARCHAR(190) PATH '$')) AS j " +
+          "JOIN users u ON u.email = j.email WHERE u.organisation_id = ?",
+        [JSON.stringify(chunk.map((r) => r.email)), organisationId],
+      )) as { id: number | string; email: string }[];
+      for (const r of found) out.set(r.email, Number(r.id));
+    }
+    return out;
   }
 
-  /** Brings an account's name, phone and language in line with the landlord's tenancy file. */
-  async updateContact(
+  /**
+   * Brings accounts of the landlord in line with its tenancy file (each row the account's whole name,
+   * phone and language), in the caller's transaction; `revive` also makes a cancelled account invited
+   * again, without a password.
+   */
+  async updateImportedContacts(
     m: EntityManager,
-    id: number,
-    patch: Partial<Pick<User, "name" | "phone" | "preferredLanguage">>,
+    organisationId: number,
+    rows: readonly { id: number; name: string; phone: string | null; preferredLanguage: string | null; revive: boolean }[],
   ): Promise<void> {
-    if (Object.keys(patch).length === 0) return;
-    this.changing(id);
-    await m.getRepository(User).update(id, patch);
+    for (let i = 0; i < rows.length; i += IMPORT_ROWS_PER_STATEMENT) {
+      const chunk = rows.slice(i, i + IMPORT_ROWS_PER_STATEMENT);
+      for (const r of chunk) this.changing(r.id);
+      await m.query(
+        "UPDATE users u JOIN JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (" +
+          "id INT UNSIGNED PATH '$[0]', name VARCHAR(190) PATH '$[1]', phone VARCHAR(40) PATH '$[2]', lang VARCHAR(35) PATH '$[3]', revive TINYINT PATH '$[4]'" +
+          ")) AS j ON u.id = j.id " +
+          "SET u.name = j.name, u.phone = j.phone, u.preferred_language = j.lang, " +
+          "u.password_hash = IF(j.revive = 1 AND u.status = 'cancelled', NULL, u.password_hash), " +
+          "u.status = IF(j.revive = 1 AND u.status = 'cancelled', 'invited', u.status) " +
+          "WHERE u.organisation_id = ?",
+        [JSON.stringify(chunk.map((r) => [r.id, r.name, r.phone, r.preferredLanguage, r.revive ? 1 : 0])), organisationId],
+      );
+    }
   }
 
   /** Sets the password hash; `activate` also makes an invited account active. */
