@@ -129,7 +129,9 @@ async function* csvRecords(filePath: string, delimiter: Separator): AsyncGenerat
         p.abort();
       } else {
         queue.push(results.data);
+        // Pausing papaparse stops its parsing, not its reading: the file stream is paused too.
         p.pause();
+        input.pause();
       }
       signal();
     },
@@ -170,6 +172,7 @@ async function* csvRecords(filePath: string, delimiter: Separator): AsyncGenerat
       await new Promise<void>((resolve) => {
         wake = resolve;
         (parser as Papa.Parser | null)?.resume();
+        input.resume();
       });
     }
   } finally {

@@ -285,10 +285,12 @@ export class StockImportService {
   private async heldHomes(raw: PoolConnection, org: number): Promise<Map<string, string>> {
     const held = new Map<string, string>();
     const rows = raw.query({ sql: HELD_SQL, values: [org], rowsAsArray: true }).stream({ highWaterMark: 1_000 });
+    const fields = new Array<string>(COLUMNS.length + 1);
     for await (const r of rows as AsyncIterable<unknown[]>) {
-      let s = String(r[0]);
-      for (let i = 0; i < COLUMNS.length; i++) s += FS + canonical(normalise(COLUMNS[i][0], r[i + 1]));
-      held.set(String(r[1]), s);
+      fields[0] = String(r[0]);
+      for (let i = 0; i < COLUMNS.length; i++) fields[i + 1] = canonical(normalise(COLUMNS[i][0], r[i + 1]));
+      // join() makes one flat string: built with +=, each would be a tree of 40-odd pieces.
+      held.set(String(r[1]), fields.join(FS));
     }
     return held;
   }
