@@ -259,7 +259,8 @@ export class StockImportService {
           throw e;
         }
       } finally {
-        await db.query("DO RELEASE_LOCK(?)", [lockName]);
+        // A connection that broke has lost its lock with it: nothing to release, and the first error stands.
+        await db.query("DO RELEASE_LOCK(?)", [lockName]).catch(() => undefined);
       }
     } finally {
       await runner.release();
