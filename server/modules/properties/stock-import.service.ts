@@ -9,7 +9,7 @@
 // - The landlord's homes are read once, streamed, into a compact map (UPRN → id and the stored fields
 //   as one string) to say what each row changes. New homes go to MariaDB through LOAD DATA LOCAL
 //   INFILE fed by a stream written as the file is parsed, so parsing (Node) and inserting (MariaDB)
-//   overlap; only that stream can be sent, never a file the server names. LOAD DATA LOCAL turns a
+//   overlap (one statement per LOAD_SEGMENT_ROWS homes); only that stream can be sent, never a file the server names. LOAD DATA LOCAL turns a
 //   duplicate key or a bad value into a warning: unless every row sent was stored without one, the
 //   import fails and leaves nothing. Changed homes (UPDATE … JOIN JSON_TABLE, only the changed
 //   fields) and rooms follow in batches.
@@ -105,6 +105,55 @@ const TSV_CHUNK_CHARS = 64 * 1024;
 /** Bytes the connection may hold unsent before the parser waits for MariaDB. */
 const SOCKET_HIGH_WATER = 4 * 1024 * 1024;
 
+/** New homes per LOAD DATA statement. */
+const LOAD_SEGMENT_ROWS = 100_000;
+
+/** One LOAD DATA LOCAL statement and the stream it reads (its own stream: the statement's factory ignores the name). */
+class LoadSegment {
+  private readonly tsv = new PassThrough();
+  private settled = false;
+  private readonly result: Promise<ResultSetHeader>;
+  private readonly ended: Promise<void>;
+  /** Rows written to the stream. */
+  sent = 0;
+
+  constructor(db: ReturnType<PoolConnection["promise"]>, org: number) {
+    this.result = db
+      .query<ResultSetHeader>({ sql: LOAD_SQL, values: [org], infileStreamFactory: () => this.tsv })
+      .then(([r]) => r)
+      .finally(() => {
+        this.settled = true;
+      });
+    this.ended = this.result.then(
+      () => undefined,
+      () => undefined,
+    );
+  }
+
+  /** Writes rows of TSV; waits while the connection holds more than SOCKET_HIGH_WATER bytes unsent. */
+  async write(text: string, rows: number, socket: Writable): Promise<void> {
+    this.tsv.write(text);
+    this.sent += rows;
+    if (socket.writableLength > SOCKET_HIGH_WATER && !this.settled) await Promise.race([once(socket, "drain"), this.ended]);
+    if (this.settled) {
+      await this.result; // the statement failed: its error
+      throw new Error("LOAD DATA ended before its stream did.");
+    }
+  }
+
+  /** Ends the stream; the statement's result. */
+  finish(): Promise<ResultSetHeader> {
+    this.tsv.end();
+    return this.result;
+  }
+
+  /** Ends the stream after a failure and waits for the statement, whatever its outcome. */
+  async abandon(): Promise<void> {
+    this.tsv.end();
+    await this.ended;
+  }
+}
+
 /** A value as a LOAD DATA field: \N for NULL, flags as 1/0, the escape character and line breaks escaped. */
 function tsvField(value: unknown): string {
   if (value === null || value === undefined) return "\\N";
@@ -170,6 +219,7 @@ export class StockImportService {
     private readonly clock: Clock,
     private readonly logger?: Logger,
     private readonly batchRows = BATCH_ROWS,
+    private readonly loadSegmentRows = LOAD_SEGMENT_ROWS,
   ) {}
 
   async preview(filePath: string): Promise<StockImportPreview> {
@@ -325,24 +375,26 @@ export class StockImportService {
     const newRooms: [string, string, string][] = [];
     const updates: unknown[][] = [];
 
-    // New homes: LOAD DATA reads this stream while the file is parsed.
-    const tsv = new PassThrough();
+    // New homes: a LOAD DATA statement reads what is written while the file is parsed; one statement per
+    // LOAD_SEGMENT_ROWS homes, so none runs long enough for the database watch to call it stalled.
     const socket = (raw as unknown as { stream: Writable }).stream;
-    let loadSettled = false;
-    const loading = db.query<ResultSetHeader>({ sql: LOAD_SQL, values: [org], infileStreamFactory: () => tsv }).finally(() => {
-      loadSettled = true;
-    });
-    const loadDone = loading.then(
-      () => undefined,
-      () => undefined,
-    );
+    let segment: LoadSegment | null = null;
     let pending = "";
-    let sent = 0;
+    let pendingRows = 0;
+    const finish = async (done: LoadSegment) => {
+      const loaded = await done.finish();
+      if (loaded.affectedRows !== done.sent || loaded.warningStatus !== 0) await this.loadFailed(db, done.sent, loaded);
+    };
+    const sentInSegment = () => segment?.sent ?? 0;
     const send = async () => {
-      tsv.write(pending);
+      segment ??= new LoadSegment(db, org);
+      await segment.write(pending, pendingRows, socket);
       pending = "";
-      if (socket.writableLength > SOCKET_HIGH_WATER && !loadSettled) {
-        await Promise.race([once(socket, "drain"), loadDone]);
+      pendingRows = 0;
+      if (segment.sent >= this.loadSegmentRows) {
+        const done = segment;
+        segment = null;
+        await finish(done);
       }
     };
 
@@ -375,7 +427,7 @@ export class StockImportService {
                     l += (i ? "\t" : "") + tsvField(f === "ventilation" ? (home.ventilation ?? "not-recorded") : home[f]);
                   }
                   pending += l + "\n";
-                  sent++;
+                  pendingRows++;
                   counts.created++;
                   report.push(`${record.line},${home.uprn},created,,${notes}`);
                   for (const r of rooms) newRooms.push([home.uprn, r.name, r.kind]);
@@ -410,17 +462,19 @@ export class StockImportService {
             sinceBatch = 0;
             await input.onBatch?.(rows);
           }
-          if (pending.length >= TSV_CHUNK_CHARS) await send();
+          if (pending.length >= TSV_CHUNK_CHARS || sentInSegment() + pendingRows >= this.loadSegmentRows) await send();
         }
       }
       if (pending) await send();
+      if (segment) {
+        const done = segment;
+        segment = null;
+        await finish(done);
+      }
     } finally {
-      // LOAD DATA ends with what was sent; on a failure the rollback takes it back.
-      tsv.end();
-      await loadDone;
+      // On a failure the statement still ends with what it was sent, and the rollback takes that back.
+      if (segment) await (segment as LoadSegment).abandon();
     }
-    const [loaded] = await loading;
-    if (loaded.affectedRows !== sent || loaded.warningStatus !== 0) await this.loadFailed(db, sent, loaded);
     if (rows === 0) throw new UnprocessableError("The file has a header but no homes under it.");
 
     for (let i = 0; i < updates.length; i += BATCH_ROWS) {
