@@ -5,9 +5,9 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { parse as parseCsv } from "csv-parse/sync";
 import ExcelJS from "exceljs";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { StockImportService } from "../../server/modules/properties/stock-import.service.js";
-import { makeLandlord, PASSWORD } from "../support/factories.js";
+import { makeLandlord, makeProperty, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
 import { testClock } from "../support/test-clock.js";
 
@@ -298,7 +298,7 @@ describe("the stock import", () => {
     );
     const file = path.join(dir, "half.csv");
     writeFileSync(file, ["UPRN,Address 1,Town,Postcode,Property type,Walls,Glazing,Heating", ...rows].join("\n"));
-    // Batches of 2: the failure comes after four homes have been stored in the transaction.
+    // Batches of 2: the failure comes after four homes have been read and sent to MariaDB.
     const service = new StockImportService(t.ctx.dataSource, testClock, undefined, 2);
     let stored = 0;
     let fails = 0;
@@ -318,9 +318,89 @@ describe("the stock import", () => {
       (await t.ctx.dataSource.query("SELECT COUNT(*) AS n FROM stock_imports WHERE organisation_id = ?", [landlord.org.id]))[0].n,
     ).toBe("0");
 
-    // The same file with nothing failing imports all nine.
-    const ok = await service.import(admin, { filePath: file, fileName: "half.csv" });
+    // The same file with nothing failing imports all nine, here through five LOAD DATA statements of two.
+    const ok = await new StockImportService(t.ctx.dataSource, testClock, undefined, 2, 2).import(admin, {
+      filePath: file,
+      fileName: "half.csv",
+    });
     expect(ok.created).toBe(9);
+    expect((await homesOf(landlord.org.id)).map((h) => h.address_line1)).toEqual(rows.map((r) => r.split(",")[1]));
+  });
+
+  it("fails cleanly, leaving nothing of itself, when a home with a UPRN of the file is added while it runs", async () => {
+    const { landlord } = await adminOfNewLandlord();
+    const admin = {
+      id: landlord.admin.id,
+      email: landlord.admin.email,
+      name: landlord.admin.name,
+      role: "admin" as const,
+      organisationId: landlord.org.id,
+    };
+    const rows = [1, 2, 3].map((i) => `10007770010${i},${i} Larch Road,Hull,HU1 1AA,Flat,Solid brick,Single,Gas boiler`);
+    const file = path.join(dir, "raced.csv");
+    writeFileSync(file, ["UPRN,Address 1,Town,Postcode,Property type,Walls,Glazing,Heating", ...rows].join("\n"));
+    const service = new StockImportService(t.ctx.dataSource, testClock);
+    // Another session adds the second home after the import has read what the landlord holds.
+    const raced = service.import(admin, {
+      filePath: file,
+      fileName: "raced.csv",
+      afterSnapshot: async () => {
+        await makeProperty(t.ctx.dataSource, landlord.org, { uprn: "100077700102", addressLine1: "Added meanwhile" });
+      },
+    });
+    await expect(raced).rejects.toThrow("Homes with UPRNs in this file were added while the import ran");
+    const homes = await homesOf(landlord.org.id);
+    expect(homes.map((h) => [h.uprn, h.address_line1])).toEqual([["100077700102", "Added meanwhile"]]);
+    expect(
+      (await t.ctx.dataSource.query("SELECT COUNT(*) AS n FROM stock_imports WHERE organisation_id = ?", [landlord.org.id]))[0].n,
+    ).toBe("0");
+
+    // Imported again, the file updates the home added meanwhile and creates the other two.
+    const again = await service.import(admin, { filePath: file, fileName: "raced.csv" });
+    expect(again).toMatchObject({ created: 2, updated: 1, refused: 0 });
+  });
+
+  it("runs two imports of one landlord one after the other", async () => {
+    const { landlord } = await adminOfNewLandlord();
+    const admin = {
+      id: landlord.admin.id,
+      email: landlord.admin.email,
+      name: landlord.admin.name,
+      role: "admin" as const,
+      organisationId: landlord.org.id,
+    };
+    const rows = [1, 2, 3, 4].map((i) => `10007770020${i},${i} Yew Road,Hull,HU1 1AA,Flat,Solid brick,Single,Gas boiler`);
+    const file = path.join(dir, "twice.csv");
+    writeFileSync(file, ["UPRN,Address 1,Town,Postcode,Property type,Walls,Glazing,Heating", ...rows].join("\n"));
+    const service = new StockImportService(t.ctx.dataSource, testClock, undefined, 1);
+    let release!: () => void;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    let firstReading = false;
+    const first = service.import(admin, {
+      filePath: file,
+      fileName: "twice.csv",
+      onBatch: async () => {
+        firstReading = true;
+        await held;
+      },
+    });
+    await vi.waitFor(() => expect(firstReading).toBe(true));
+    const second = service.import(admin, { filePath: file, fileName: "twice.csv" });
+    const waiting = async () =>
+      Number(
+        (
+          await t.ctx.dataSource.query(
+            "SELECT COUNT(*) AS n FROM information_schema.PROCESSLIST WHERE STATE = 'User lock' AND INFO LIKE 'SELECT GET_LOCK%'",
+          )
+        )[0].n,
+      );
+    await vi.waitFor(async () => expect(await waiting()).toBe(1), { timeout: 10_000 });
+    release();
+    const [a, b] = await Promise.all([first, second]);
+    // Whichever ran second found every home there: none is created twice, neither import fails.
+    expect([a.created, b.created].sort()).toEqual([0, 4]);
+    expect([a.unchanged, b.unchanged].sort()).toEqual([0, 4]);
+    expect(await homesOf(landlord.org.id)).toHaveLength(4);
   });
 
   it("keeps each landlord's imports and homes to itself", async () => {

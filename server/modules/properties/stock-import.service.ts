@@ -1,15 +1,22 @@
 // An admin's asset register into the landlord's homes: a preview that proposes which column feeds
 // which field, and an import that upserts by (landlord, UPRN).
 //
-// - The file is streamed (CSV or .xlsx) and converted row by row (src/lib/domain/stock-register.ts).
-// - Rows go to MariaDB in batches of BATCH_ROWS: one SELECT … FOR UPDATE of the homes already held
-//   with those UPRNs (to say what changed), one INSERT … SELECT … FROM JSON_TABLE(?) for the new homes,
-//   one UPDATE … JOIN JSON_TABLE(?) for the changed ones, and one INSERT for rooms not yet there.
-//   Each batch travels as a single JSON parameter of a prepared statement (the readings import's way).
-// - One transaction: the homes, the rooms and the import's record with its report commit together or
-//   not at all, so a failure half-way, or the process dying, leaves nothing of the import.
+// - The file is streamed (CSV or .xlsx, server/lib/table-file.ts) and converted row by row
+//   (src/lib/domain/stock-register.ts).
+// - One import of a landlord at a time (a named lock), one transaction: the homes, the rooms and the
+//   import's record with its report commit together or not at all, so a failure half-way, or the
+//   process dying, leaves nothing of the import.
+// - The landlord's homes are read once, streamed, into a compact map (UPRN → id and the stored fields
+//   as one string) to say what each row changes. New homes go to MariaDB through LOAD DATA LOCAL
+//   INFILE fed by a stream written as the file is parsed, so parsing (Node) and inserting (MariaDB)
+//   overlap (one statement per LOAD_SEGMENT_ROWS homes); only that stream can be sent, never a file the server names. LOAD DATA LOCAL turns a
+//   duplicate key or a bad value into a warning: unless every row sent was stored without one, the
+//   import fails and leaves nothing. Changed homes (UPDATE … JOIN JSON_TABLE, only the changed
+//   fields) and rooms follow in batches.
 // - A later row with a UPRN already seen in the file is refused, naming the first line; an empty cell
 //   leaves what we hold (the register does not say), so a repeat import changes nothing.
+import { once } from "node:events";
+import { PassThrough, type Writable } from "node:stream";
 import type { PoolConnection, ResultSetHeader, RowDataPacket } from "mysql2";
 import type { DataSource } from "typeorm";
 import { z } from "zod";
@@ -24,13 +31,16 @@ import {
 } from "../../../src/lib/domain/stock-register.js";
 import type { Actor } from "../../lib/actor.js";
 import type { Clock } from "../../lib/clock.js";
-import { NotFoundError, UnprocessableError, ValidationError } from "../../lib/errors.js";
+import { ConflictError, NotFoundError, UnprocessableError, ValidationError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
+import { readTableHead, tableRowChunks, type TableHead } from "../../lib/table-file.js";
 import { parse } from "../../lib/validation.js";
-import { readStockHead, stockRecordChunks, type StockFileHead } from "./stock-file.js";
 import { StockImport } from "./stock-import.entity.js";
 
 export const BATCH_ROWS = 5_000;
+/** How long an import waits for another import of the same landlord to finish. */
+const LOCK_WAIT_SECONDS = 30;
+const ER_DUP_ENTRY = 1062;
 
 /** The home's fields as stored: the JSON_TABLE column type of each, in the order of the JSON rows. */
 const COLUMNS = [
@@ -57,7 +67,7 @@ const COLUMNS = [
   ["epcBand", "epc_band", "CHAR(1)"],
 ] as const satisfies readonly (readonly [keyof StockHome, string, string])[];
 
-type Stored = Record<keyof StockHome, string | number | boolean | null>;
+type Room = { name: string; kind: string };
 
 const jsonColumns = (withId: boolean) =>
   [
@@ -65,24 +75,100 @@ const jsonColumns = (withId: boolean) =>
     ...COLUMNS.map(([, col, type], i) => `${col} ${type} PATH '$[${i + (withId ? 1 : 0)}]'`),
   ].join(", ");
 
-const INSERT_SQL =
-  `INSERT INTO properties (organisation_id, ${COLUMNS.map(([, c]) => c).join(", ")}) ` +
-  `SELECT ?, ${COLUMNS.map(([, c]) => `j.${c}`).join(", ")} FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (${jsonColumns(false)})) AS j`;
+/** LOAD DATA's file name: never opened, the statement's per-query stream factory ignores it. */
+const LOAD_SQL =
+  "LOAD DATA LOCAL INFILE 'stock-register-stream' INTO TABLE properties CHARACTER SET utf8mb4 " +
+  "FIELDS TERMINATED BY '\\t' ESCAPED BY '\\\\' LINES TERMINATED BY '\\n' " +
+  `(${COLUMNS.map(([, c]) => c).join(", ")}) SET organisation_id = ?`;
 
+/** Only the changed fields are sent (the others null), so an edit made meanwhile to another field stays. */
 const UPDATE_SQL =
   `UPDATE properties p JOIN JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (${jsonColumns(true)})) AS j ON p.id = j.id ` +
   `SET ${COLUMNS.filter(([f]) => f !== "uprn")
-    .map(([, c]) => `p.${c} = j.${c}`)
+    .map(([, c]) => `p.${c} = COALESCE(j.${c}, p.${c})`)
     .join(", ")} WHERE p.organisation_id = ?`;
 
-const EXISTING_SQL =
-  `SELECT p.id, ${COLUMNS.map(([f, c]) => `p.${c} AS ${f}`).join(", ")} FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (u VARCHAR(12) PATH '$')) AS j ` +
-  "JOIN properties p ON p.organisation_id = ? AND p.uprn = j.u FOR UPDATE";
+const HELD_SQL = `SELECT id, ${COLUMNS.map(([, c]) => c).join(", ")} FROM properties WHERE organisation_id = ? AND uprn IS NOT NULL`;
 
 const ROOMS_SQL =
   "INSERT INTO rooms (property_id, name, kind) SELECT p.id, j.name, j.kind " +
   "FROM JSON_TABLE(CONVERT(? USING utf8mb4), '$[*]' COLUMNS (u VARCHAR(12) PATH '$[0]', name VARCHAR(100) PATH '$[1]', kind VARCHAR(20) PATH '$[2]')) AS j " +
   "JOIN properties p ON p.organisation_id = ? AND p.uprn = j.u";
+
+/** Separates the fields of a held home in the map; a value holding it is compared with it replaced. */
+const FS = "\x1f";
+const NULL_MARK = "\x00";
+const TSV_SPECIAL = /[\\\t\n\r\0]/;
+const TSV_ESCAPES: Record<string, string> = { "\\": "\\\\", "\t": "\\t", "\n": "\\n", "\r": "\\r", "\0": "\\0" };
+/** Bytes of TSV gathered before they are handed to the connection. */
+const TSV_CHUNK_CHARS = 64 * 1024;
+/** Bytes the connection may hold unsent before the parser waits for MariaDB. */
+const SOCKET_HIGH_WATER = 4 * 1024 * 1024;
+
+/** New homes per LOAD DATA statement. */
+const LOAD_SEGMENT_ROWS = 100_000;
+
+/** One LOAD DATA LOCAL statement and the stream it reads (its own stream: the statement's factory ignores the name). */
+class LoadSegment {
+  private readonly tsv = new PassThrough();
+  private settled = false;
+  private readonly result: Promise<ResultSetHeader>;
+  private readonly ended: Promise<void>;
+  /** Rows written to the stream. */
+  sent = 0;
+
+  constructor(db: ReturnType<PoolConnection["promise"]>, org: number) {
+    this.result = db
+      .query<ResultSetHeader>({ sql: LOAD_SQL, values: [org], infileStreamFactory: () => this.tsv })
+      .then(([r]) => r)
+      .finally(() => {
+        this.settled = true;
+      });
+    this.ended = this.result.then(
+      () => undefined,
+      () => undefined,
+    );
+  }
+
+  /** Writes rows of TSV; waits while the connection holds more than SOCKET_HIGH_WATER bytes unsent. */
+  async write(text: string, rows: number, socket: Writable): Promise<void> {
+    this.tsv.write(text);
+    this.sent += rows;
+    if (socket.writableLength > SOCKET_HIGH_WATER && !this.settled) await Promise.race([once(socket, "drain"), this.ended]);
+    if (this.settled) {
+      await this.result; // the statement failed: its error
+      throw new Error("LOAD DATA ended before its stream did.");
+    }
+  }
+
+  /** Ends the stream; the statement's result. */
+  finish(): Promise<ResultSetHeader> {
+    this.tsv.end();
+    return this.result;
+  }
+
+  /** Ends the stream after a failure and waits for the statement, whatever its outcome. */
+  async abandon(): Promise<void> {
+    this.tsv.end();
+    await this.ended;
+  }
+}
+
+/** A value as a LOAD DATA field: \N for NULL, flags as 1/0, the escape character and line breaks escaped. */
+function tsvField(value: unknown): string {
+  if (value === null || value === undefined) return "\\N";
+  if (value === true) return "1";
+  if (value === false) return "0";
+  const s = String(value);
+  return TSV_SPECIAL.test(s) ? s.replace(/[\\\t\n\r\0]/g, (c) => TSV_ESCAPES[c]!) : s;
+}
+
+/** A normalised value as one field of the held homes' map. */
+function canonical(value: string | number | boolean | null): string {
+  if (value === null) return NULL_MARK;
+  const s = String(value);
+  return s.includes(FS) ? s.replaceAll(FS, "\ufffd") : s;
+}
 
 /** A stored value in the shape the import compares: numbers as numbers, flags as booleans. */
 function normalise(field: keyof StockHome, value: unknown): string | number | boolean | null {
@@ -108,11 +194,13 @@ export interface StockImportInput {
   fileName: string;
   /** Corrections to the proposed mapping: a column number, or null to leave a field out. */
   mapping?: unknown;
-  /** Test hook: called inside the transaction after each batch is stored; throwing aborts the import. */
+  /** Test hook: called inside the transaction after each `batchRows` rows are read; throwing aborts the import. */
   onBatch?: (rowsSoFar: number) => void | Promise<void>;
+  /** Test hook: called inside the transaction once the landlord's homes are read, before any is written. */
+  afterSnapshot?: () => void | Promise<void>;
 }
 
-export interface StockImportPreview extends Omit<StockFileHead, "headerLine"> {
+export interface StockImportPreview extends Omit<TableHead, "headerLine"> {
   mapping: StockMapping;
   fields: (typeof STOCK_FIELDS)[number][];
   missing: string[];
@@ -131,10 +219,11 @@ export class StockImportService {
     private readonly clock: Clock,
     private readonly logger?: Logger,
     private readonly batchRows = BATCH_ROWS,
+    private readonly loadSegmentRows = LOAD_SEGMENT_ROWS,
   ) {}
 
   async preview(filePath: string): Promise<StockImportPreview> {
-    const head = await readStockHead(filePath);
+    const head = await readTableHead(filePath);
     const mapping = proposeStockMapping(head.headers);
     return {
       format: head.format,
@@ -147,7 +236,7 @@ export class StockImportService {
     };
   }
 
-  private resolveMapping(head: StockFileHead, override: unknown): StockMapping {
+  private resolveMapping(head: TableHead, override: unknown): StockMapping {
     const mapping: StockMapping = proposeStockMapping(head.headers);
     if (override !== undefined && override !== null && override !== "") {
       let value = override;
@@ -186,143 +275,46 @@ export class StockImportService {
 
   /** Imports the register for the actor's landlord; see the top of this file for the rules. */
   async import(actor: Actor, input: StockImportInput): Promise<StockImport> {
-    const head = await readStockHead(input.filePath);
+    const head = await readTableHead(input.filePath);
     const mapping = this.resolveMapping(head, input.mapping);
-    const thisYear = this.clock.now().getUTCFullYear();
     const org = actor.organisationId;
     const started = Date.now();
 
-    const saved = await this.dataSource.transaction(async (m) => {
-      if (!m.queryRunner) throw new Error("the stock import must run in a transaction");
-      const raw = (await m.queryRunner.connect()) as PoolConnection;
-      const db = raw.promise();
-
-      const report: string[] = ["line,uprn,outcome,changed,details"];
-      const counts = { created: 0, updated: 0, unchanged: 0, refused: 0 };
-      const firstLineOf = new Map<string, number>();
-      type Pending = { line: number; home: StockHome; rooms: { name: string; kind: string }[]; notes: string[] };
-      let batch: Pending[] = [];
-      let rows = 0;
-      const refuse = (line: number, uprn: string, reasons: string[]) => {
-        counts.refused++;
-        report.push(`${line},${csvCell(uprn)},refused,,${csvCell(reasons.join(" "))}`);
-      };
-
-      /** Stores one batch; at most one is in flight while the next is read and converted. */
-      const store = async (pending: Pending[]) => {
-        const [found] = await db.execute<RowDataPacket[]>(EXISTING_SQL, [JSON.stringify(pending.map((p) => p.home.uprn)), org]);
-        const existing = new Map<string, { id: number; stored: Stored }>();
-        for (const r of found) {
-          const stored = {} as Stored;
-          for (const [f] of COLUMNS) stored[f] = normalise(f, r[f]);
-          existing.set(String(r.uprn), { id: Number(r.id), stored });
-        }
-        let roomsHeld = new Map<number, Set<string>>();
-        const ids = [...existing.values()].map((e) => e.id);
-        if (ids.length && pending.some((p) => p.rooms.length)) roomsHeld = await this.roomNames(db, ids);
-
-        const inserts: unknown[][] = [];
-        const updates: unknown[][] = [];
-        const newRooms: [string, string, string][] = [];
-        for (const p of pending) {
-          const held = existing.get(p.home.uprn);
-          const names = held ? (roomsHeld.get(held.id) ?? new Set<string>()) : new Set<string>();
-          const addRooms = p.rooms.filter((r) => !names.has(r.name.toLowerCase()));
-          const notes = p.notes.length ? csvCell(p.notes.join(" ")) : "";
-          if (!held) {
-            const lacking = missingEngineFields(p.home);
-            if (lacking.length) {
-              refuse(p.line, p.home.uprn, [`A new home needs its ${lacking.join(", ")}: the risk engine reads them.`]);
-              continue;
-            }
-            inserts.push(COLUMNS.map(([f]) => (f === "ventilation" ? (p.home.ventilation ?? "not-recorded") : json(p.home[f]))));
-            counts.created++;
-            report.push(`${p.line},${p.home.uprn},created,,${notes}`);
-          } else {
-            const changed: string[] = [];
-            const merged = { ...held.stored };
-            for (const [f] of COLUMNS) {
-              const to = normalise(f, p.home[f]);
-              if (to === null || to === held.stored[f]) continue;
-              changed.push(f);
-              merged[f] = to;
-            }
-            if (changed.length) updates.push([held.id, ...COLUMNS.map(([f]) => json(merged[f]))]);
-            if (addRooms.length) changed.push("rooms");
-            if (changed.length) {
-              counts.updated++;
-              report.push(`${p.line},${p.home.uprn},updated,${changed.join(" ")},${notes}`);
-            } else {
-              counts.unchanged++;
-              report.push(`${p.line},${p.home.uprn},unchanged,,${notes}`);
-            }
-          }
-          for (const r of addRooms) newRooms.push([p.home.uprn, r.name, r.kind]);
-        }
-        if (inserts.length) await db.execute<ResultSetHeader>(INSERT_SQL, [org, JSON.stringify(inserts)]);
-        if (updates.length) await db.execute<ResultSetHeader>(UPDATE_SQL, [JSON.stringify(updates), org]);
-        if (newRooms.length) await db.execute<ResultSetHeader>(ROOMS_SQL, [JSON.stringify(newRooms), org]);
-        await input.onBatch?.(rows);
-      };
-      let inFlight: Promise<void> | null = null;
-      let failure: unknown = null;
-      const flush = async () => {
-        if (inFlight) await inFlight;
-        if (failure) throw failure;
-        if (batch.length === 0) return;
-        const pending = batch;
-        batch = [];
-        inFlight = store(pending).catch((e: unknown) => {
-          failure ??= e;
-        });
-      };
-
-      let header = true;
+    const runner = this.dataSource.createQueryRunner();
+    const raw = (await runner.connect()) as PoolConnection;
+    const db = raw.promise();
+    const lockName = `dewline.stock-import.${org}`;
+    let saved: StockImport;
+    try {
+      const [[lock]] = await db.query<RowDataPacket[]>("SELECT GET_LOCK(?, ?) AS got", [lockName, LOCK_WAIT_SECONDS]);
+      if (Number(lock?.got) !== 1)
+        throw new ConflictError("Another import of your homes is still running: try again when it has finished.");
       try {
-        for await (const chunk of stockRecordChunks(input.filePath, head.format, head.delimiter)) {
-          for (const record of chunk) {
-            if (header) {
-              header = false;
-              continue;
-            }
-            rows++;
-            const row = convertStockRow(record.cells, mapping, head.headers, thisYear);
-            if (!row.ok) {
-              refuse(record.line, row.uprn, row.reasons);
-              continue;
-            }
-            const first = firstLineOf.get(row.home.uprn);
-            if (first !== undefined) {
-              refuse(record.line, row.home.uprn, [`UPRN ${row.home.uprn} is already on line ${first} of this file.`]);
-              continue;
-            }
-            firstLineOf.set(row.home.uprn, record.line);
-            batch.push({ line: record.line, home: row.home, rooms: row.rooms, notes: row.notes });
-            if (batch.length >= this.batchRows) await flush();
-          }
+        await runner.startTransaction();
+        try {
+          const counts = await this.importRows(raw, head, mapping, org, input);
+          const repo = runner.manager.getRepository(StockImport);
+          saved = await repo.save(
+            repo.create({
+              organisationId: org,
+              uploadedById: actor.id,
+              fileName: displayFileName(input.fileName),
+              ...counts,
+              createdAt: this.clock.now(),
+            }),
+          );
+          await runner.commitTransaction();
+        } catch (e) {
+          await runner.rollbackTransaction();
+          throw e;
         }
-        await flush();
-        await flush(); // waits for the last batch
       } finally {
-        // A batch in flight finishes before the transaction rolls back.
-        if (inFlight) await inFlight;
+        // A connection that broke has lost its lock with it: nothing to release, and the first error stands.
+        await db.query("DO RELEASE_LOCK(?)", [lockName]).catch(() => undefined);
       }
-      if (rows === 0) throw new UnprocessableError("The file has a header but no homes under it.");
-
-      // The report is in file order: batches are flushed in order, but refusals are written as they come.
-      const body = report.slice(1).sort((a, b) => parseInt(a, 10) - parseInt(b, 10));
-      const repo = m.getRepository(StockImport);
-      return repo.save(
-        repo.create({
-          organisationId: org,
-          uploadedById: actor.id,
-          fileName: displayFileName(input.fileName),
-          ...counts,
-          report: `${report[0]}\n${body.join("\n")}\n`,
-          createdAt: this.clock.now(),
-        }),
-      );
-    });
+    } finally {
+      await runner.release();
+    }
     this.logger?.info(
       {
         audit: "stock-imported",
@@ -338,6 +330,193 @@ export class StockImportService {
       "audit: stock-imported",
     );
     return saved;
+  }
+
+  /** The landlord's homes with a UPRN, read as a stream: UPRN → "id FS field FS field …" (normalised). */
+  private async heldHomes(raw: PoolConnection, org: number): Promise<Map<string, string>> {
+    const held = new Map<string, string>();
+    const rows = raw.query({ sql: HELD_SQL, values: [org], rowsAsArray: true }).stream({ highWaterMark: 1_000 });
+    const fields = new Array<string>(COLUMNS.length + 1);
+    for await (const r of rows as AsyncIterable<unknown[]>) {
+      fields[0] = String(r[0]);
+      for (let i = 0; i < COLUMNS.length; i++) fields[i + 1] = canonical(normalise(COLUMNS[i][0], r[i + 1]));
+      // join() makes one flat string: built with +=, each would be a tree of 40-odd pieces.
+      held.set(String(r[1]), fields.join(FS));
+    }
+    return held;
+  }
+
+  /**
+   * Reads, converts and stores every row inside the caller's transaction (on `raw`); the counts and
+   * the report of the import.
+   */
+  private async importRows(
+    raw: PoolConnection,
+    head: TableHead,
+    mapping: StockMapping,
+    org: number,
+    input: StockImportInput,
+  ): Promise<{ created: number; updated: number; unchanged: number; refused: number; report: string }> {
+    const db = raw.promise();
+    const thisYear = this.clock.now().getUTCFullYear();
+    const held = await this.heldHomes(raw, org);
+    await input.afterSnapshot?.();
+
+    const report: string[] = [];
+    const counts = { created: 0, updated: 0, unchanged: 0, refused: 0 };
+    const firstLineOf = new Map<string, number>();
+    const refuse = (line: number, uprn: string, reasons: string[]) => {
+      counts.refused++;
+      report.push(`${line},${csvCell(uprn)},refused,,${csvCell(reasons.join(" "))}`);
+    };
+    // Held homes whose rows name rooms: their report line waits for the rooms we hold.
+    type Waiting = { at: number; line: number; uprn: string; id: number; changed: string[]; rooms: Room[]; notes: string };
+    const waiting: Waiting[] = [];
+    const newRooms: [string, string, string][] = [];
+    const updates: unknown[][] = [];
+
+    // New homes: a LOAD DATA statement reads what is written while the file is parsed; one statement per
+    // LOAD_SEGMENT_ROWS homes, so none runs long enough for the database watch to call it stalled.
+    const socket = (raw as unknown as { stream: Writable }).stream;
+    let segment: LoadSegment | null = null;
+    let pending = "";
+    let pendingRows = 0;
+    const finish = async (done: LoadSegment) => {
+      const loaded = await done.finish();
+      if (loaded.affectedRows !== done.sent || loaded.warningStatus !== 0) await this.loadFailed(db, done.sent, loaded);
+    };
+    const sentInSegment = () => segment?.sent ?? 0;
+    const send = async () => {
+      segment ??= new LoadSegment(db, org);
+      await segment.write(pending, pendingRows, socket);
+      pending = "";
+      pendingRows = 0;
+      if (segment.sent >= this.loadSegmentRows) {
+        const done = segment;
+        segment = null;
+        await finish(done);
+      }
+    };
+
+    let rows = 0;
+    let sinceBatch = 0;
+    try {
+      for await (const chunk of tableRowChunks(input.filePath, head)) {
+        for (const record of chunk) {
+          rows++;
+          const row = convertStockRow(record.cells, mapping, head.headers, thisYear);
+          if (!row.ok) {
+            refuse(record.line, row.uprn, row.reasons);
+          } else {
+            const { home, rooms } = row;
+            const first = firstLineOf.get(home.uprn);
+            if (first !== undefined) {
+              refuse(record.line, home.uprn, [`UPRN ${home.uprn} is already on line ${first} of this file.`]);
+            } else {
+              firstLineOf.set(home.uprn, record.line);
+              const notes = row.notes.length ? csvCell(row.notes.join(" ")) : "";
+              const stored = held.get(home.uprn);
+              if (stored === undefined) {
+                const lacking = missingEngineFields(home);
+                if (lacking.length) {
+                  refuse(record.line, home.uprn, [`A new home needs its ${lacking.join(", ")}: the risk engine reads them.`]);
+                } else {
+                  let l = "";
+                  for (let i = 0; i < COLUMNS.length; i++) {
+                    const f = COLUMNS[i][0];
+                    l += (i ? "\t" : "") + tsvField(f === "ventilation" ? (home.ventilation ?? "not-recorded") : home[f]);
+                  }
+                  pending += l + "\n";
+                  pendingRows++;
+                  counts.created++;
+                  report.push(`${record.line},${home.uprn},created,,${notes}`);
+                  for (const r of rooms) newRooms.push([home.uprn, r.name, r.kind]);
+                }
+              } else {
+                const fields = stored.split(FS);
+                const id = Number(fields[0]);
+                const changed: string[] = [];
+                let update: unknown[] | null = null;
+                for (let i = 0; i < COLUMNS.length; i++) {
+                  const f = COLUMNS[i][0];
+                  const to = normalise(f, home[f]);
+                  if (to === null || canonical(to) === fields[i + 1]) continue;
+                  changed.push(f);
+                  update ??= [id, ...COLUMNS.map(() => null)];
+                  update[i + 1] = json(to);
+                }
+                if (update) updates.push(update);
+                if (rooms.length) {
+                  waiting.push({ at: report.push("") - 1, line: record.line, uprn: home.uprn, id, changed, rooms, notes });
+                } else if (changed.length) {
+                  counts.updated++;
+                  report.push(`${record.line},${home.uprn},updated,${changed.join(" ")},${notes}`);
+                } else {
+                  counts.unchanged++;
+                  report.push(`${record.line},${home.uprn},unchanged,,${notes}`);
+                }
+              }
+            }
+          }
+          if (++sinceBatch >= this.batchRows) {
+            sinceBatch = 0;
+            await input.onBatch?.(rows);
+          }
+          if (pending.length >= TSV_CHUNK_CHARS || sentInSegment() + pendingRows >= this.loadSegmentRows) await send();
+        }
+      }
+      if (pending) await send();
+      if (segment) {
+        const done = segment;
+        segment = null;
+        await finish(done);
+      }
+    } finally {
+      // On a failure the statement still ends with what it was sent, and the rollback takes that back.
+      if (segment) await (segment as LoadSegment).abandon();
+    }
+    if (rows === 0) throw new UnprocessableError("The file has a header but no homes under it.");
+
+    for (let i = 0; i < updates.length; i += BATCH_ROWS) {
+      await db.execute<ResultSetHeader>(UPDATE_SQL, [JSON.stringify(updates.slice(i, i + BATCH_ROWS)), org]);
+    }
+    for (let i = 0; i < waiting.length; i += BATCH_ROWS) {
+      const part = waiting.slice(i, i + BATCH_ROWS);
+      const roomsHeld = await this.roomNames(
+        db,
+        part.map((w) => w.id),
+      );
+      for (const w of part) {
+        const names = roomsHeld.get(w.id) ?? new Set<string>();
+        const add = w.rooms.filter((r) => !names.has(r.name.toLowerCase()));
+        if (add.length) w.changed.push("rooms");
+        for (const r of add) newRooms.push([w.uprn, r.name, r.kind]);
+        if (w.changed.length) {
+          counts.updated++;
+          report[w.at] = `${w.line},${w.uprn},updated,${w.changed.join(" ")},${w.notes}`;
+        } else {
+          counts.unchanged++;
+          report[w.at] = `${w.line},${w.uprn},unchanged,,${w.notes}`;
+        }
+      }
+    }
+    for (let i = 0; i < newRooms.length; i += BATCH_ROWS) {
+      await db.execute<ResultSetHeader>(ROOMS_SQL, [JSON.stringify(newRooms.slice(i, i + BATCH_ROWS)), org]);
+    }
+    return { ...counts, report: `line,uprn,outcome,changed,details\n${report.join("\n")}\n` };
+  }
+  /** LOAD DATA LOCAL skipped or altered rows (a duplicate UPRN, a value a column refused): fail the import. */
+  private async loadFailed(db: ReturnType<PoolConnection["promise"]>, sent: number, loaded: ResultSetHeader): Promise<never> {
+    const [warnings] = await db.query<RowDataPacket[]>("SHOW WARNINGS LIMIT 3");
+    if (warnings.some((w) => Number(w.Code) === ER_DUP_ENTRY)) {
+      throw new ConflictError(
+        "Homes with UPRNs in this file were added while the import ran, so nothing was imported. Import the file again.",
+      );
+    }
+    const text = warnings.map((w) => String(w.Message)).join("; ");
+    throw new Error(
+      `LOAD DATA stored ${loaded.affectedRows} of ${sent} new homes with ${loaded.warningStatus} warnings: ${text}`,
+    );
   }
 
   private async roomNames(db: ReturnType<PoolConnection["promise"]>, ids: number[]): Promise<Map<number, Set<string>>> {

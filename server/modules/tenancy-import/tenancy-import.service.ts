@@ -11,11 +11,11 @@ import type {
 import type { Actor } from "../../lib/actor.js";
 import type { Clock } from "../../lib/clock.js";
 import { NotFoundError, ValidationError } from "../../lib/errors.js";
+import { readTableHead, tableRowChunks } from "../../lib/table-file.js";
 import type { BatchProgress, InvitationBatchService } from "../auth/invitation-batch.service.js";
 import type { PropertyService } from "../properties/property.service.js";
 import type { ImportedTenancy, TenancyService } from "../tenancies/tenancy.service.js";
 import type { ImportedContact, UserService } from "../users/user.service.js";
-import { readTableFile } from "./table-file.js";
 import { TenancyImport } from "./tenancy-import.entity.js";
 import { detectMapping, missingFields, readTenancyRow, type TenancyRow } from "./tenancy-rows.js";
 
@@ -38,7 +38,6 @@ const tooManyRows = () =>
     `The file has more than ${fmt(MAX_TENANCY_ROWS)} rows: split it into files of at most ${fmt(MAX_TENANCY_ROWS)} rows.`,
   );
 
-const isBlank = (cells: readonly string[]) => cells.every((c) => c === "");
 const unique = <T>(xs: readonly T[]) => [...new Set(xs)];
 
 export const INVITATION_QUEUED = "Invitation queued: it goes out with the next batches.";
@@ -130,15 +129,20 @@ export class TenancyImportService {
     private readonly options: { batchRows: number } = { batchRows: BATCH_ROWS },
   ) {}
 
+  /** The file's header and its non-blank rows, each with its line (CSV) or row (workbook) number. */
   private async table(path: string) {
-    const file = await readTableFile(path);
-    const [headers = [], ...data] = file.rows;
-    if (headers.every((h) => h === "")) throw fileError("The file is empty: the first row should name the columns.");
-    const rows = data.map((cells, i) => ({ cells, row: i + 2 })).filter((r) => !isBlank(r.cells));
-    if (rows.length > MAX_TENANCY_ROWS) {
-      throw fileError(`The file has ${rows.length} rows; import at most ${MAX_TENANCY_ROWS} at a time.`);
+    const head = await readTableHead(path, 0);
+    const rows: { cells: string[]; row: number }[] = [];
+    let count = 0;
+    for await (const chunk of tableRowChunks(path, head)) {
+      count += chunk.length;
+      // Past the limit only the count is kept, for the message.
+      if (count <= MAX_TENANCY_ROWS) for (const r of chunk) rows.push({ cells: r.cells.map((c) => c.trim()), row: r.line });
     }
-    return { kind: file.kind, headers, rows };
+    if (count > MAX_TENANCY_ROWS) {
+      throw fileError(`The file has ${count} rows; import at most ${MAX_TENANCY_ROWS} at a time.`);
+    }
+    return { kind: head.format, headers: head.headers, rows };
   }
 
   /** How the file would be read: its columns, the proposed mapping and its first rows. */
