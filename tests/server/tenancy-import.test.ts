@@ -175,6 +175,27 @@ describe("importing a tenancy file", () => {
     );
   });
 
+  it("reads tenancy references as the database compares them: t-2 is T-2, and N-1 then n-1 is a repeat", async () => {
+    const lines = [
+      "Tenancy Ref;Property UPRN;Tenant Name;E-mail Address;Mobile;Tenancy Start;Tenancy End;Preferred Language;Access Needs;Vulnerability;Consent",
+      `t-2;${uprn(2)};Ben Vent;${mail("ben")};;01/05/2024;;cy;Deaf: text first;Child under five;no`,
+      `N-1;${uprn(3)};Nia New;${mail("nia")};;2024-06-01;;;;;`,
+      `n-1;${uprn(3)};Ned New;${mail("ned")};;2024-06-01;;;;;`,
+    ];
+    const res = await upload(admin, "/api/tenancy-imports", Buffer.from(lines.join("\n")), "tenancies.csv").expect(201);
+    expect(brief(res.body.report)).toEqual([
+      [2, "t-2", "unchanged", ""],
+      [3, "N-1", "created", ""],
+      [4, "n-1", "rejected", ""],
+    ]);
+    expect((res.body.report as Row[])[2]!.reasons).toEqual([
+      "The tenancy reference n-1 is also on row 3; only that row was used.",
+    ]);
+    const ds = t.ctx.dataSource;
+    expect(await ds.getRepository(Tenancy).countBy({ organisationId: ours.org.id, reference: "T-2" })).toBe(1);
+    expect(await ds.getRepository(User).countBy({ email: mail("ned") })).toBe(0);
+  });
+
   it("offers the report as CSV with formula-like cells neutralised (read back with csv-parse)", async () => {
     const res = await admin.get(`/api/tenancy-imports/${firstImportId}/report.csv`).expect(200);
     expect(res.headers["content-type"]).toMatch(/text\/csv/);

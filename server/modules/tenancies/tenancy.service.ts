@@ -5,6 +5,7 @@ import { NotFoundError } from "../../lib/errors.js";
 import type { Actor } from "../../lib/actor.js";
 import type { Property, PropertyService } from "../properties/property.service.js";
 import { Tenancy } from "./tenancy.entity.js";
+import { referenceKey } from "../../../src/lib/domain/tenancy-reference.js";
 
 /** What a landlord's tenancy file says of a tenancy. */
 export type ImportedTenancy = Pick<Tenancy, "propertyId" | "startDate" | "endDate" | "accessNeeds" | "householdVulnerability">;
@@ -108,6 +109,7 @@ export class TenancyService {
     organisationId: number,
     references: readonly string[],
   ): Promise<Map<string, ImportedTenancy & { id: number; tenantUserId: number }>> {
+    // Keyed as the database compares references (see referenceKey), whatever case the file uses.
     const out = new Map<string, ImportedTenancy & { id: number; tenantUserId: number }>();
     for (let i = 0; i < references.length; i += IMPORT_ROWS_PER_STATEMENT) {
       const rows = (await m.query(
@@ -118,7 +120,7 @@ export class TenancyService {
         [JSON.stringify(references.slice(i, i + IMPORT_ROWS_PER_STATEMENT)), organisationId],
       )) as Record<string, string | number | null>[];
       for (const r of rows) {
-        out.set(String(r.reference), {
+        out.set(referenceKey(String(r.reference)), {
           id: Number(r.id),
           propertyId: Number(r.property_id),
           tenantUserId: Number(r.tenant_user_id),

@@ -18,6 +18,7 @@ import type { ImportedTenancy, TenancyService } from "../tenancies/tenancy.servi
 import type { ImportedContact, UserService } from "../users/user.service.js";
 import { TenancyImport } from "./tenancy-import.entity.js";
 import { detectMapping, missingFields, readTenancyRow, type TenancyRow } from "./tenancy-rows.js";
+import { referenceKey } from "../../../src/lib/domain/tenancy-reference.js";
 
 /**
  * The most rows one file may hold: every row's outcome is kept for the report (and returned with the
@@ -76,20 +77,12 @@ async function decodeReport(stored: string): Promise<TenancyRowReport[]> {
   return JSON.parse(json) as TenancyRowReport[];
 }
 
-/** A run of the file's rows as the file reader yields them, each with its spreadsheet row number. */
-type RowChunk = readonly { line: number; cells: readonly string[] }[];
-
-/** The rows already read into memory, handed on a chunk at a time (as a streaming reader would). */
-async function* inChunks(rows: readonly { row: number; cells: string[] }[], size: number): AsyncGenerator<RowChunk> {
-  for (let i = 0; i < rows.length; i += size) yield rows.slice(i, i + size).map((r) => ({ line: r.row, cells: r.cells }));
-}
-
 /** What one import knows across its batches. */
 interface ImportRun {
   actor: Actor;
   today: string;
   report: TenancyRowReport[];
-  /** Each reference's first row, to refuse a repeat. */
+  /** Each reference's first row (by referenceKey), to refuse a repeat. */
   firstRowOf: Map<string, number>;
   /** Addresses this import has queued an invitation for. */
   invited: Set<string>;
@@ -129,33 +122,19 @@ export class TenancyImportService {
     private readonly options: { batchRows: number } = { batchRows: BATCH_ROWS },
   ) {}
 
-  /** The file's header and its non-blank rows, each with its line (CSV) or row (workbook) number. */
-  private async table(path: string) {
-    const head = await readTableHead(path, 0);
-    const rows: { cells: string[]; row: number }[] = [];
-    let count = 0;
-    for await (const chunk of tableRowChunks(path, head)) {
-      count += chunk.length;
-      // Past the limit only the count is kept, for the message.
-      if (count <= MAX_TENANCY_ROWS) for (const r of chunk) rows.push({ cells: r.cells.map((c) => c.trim()), row: r.line });
-    }
-    if (count > MAX_TENANCY_ROWS) {
-      throw fileError(`The file has ${count} rows; import at most ${MAX_TENANCY_ROWS} at a time.`);
-    }
-    return { kind: head.format, headers: head.headers, rows };
-  }
-
-  /** How the file would be read: its columns, the proposed mapping and its first rows. */
+  /** How the file would be read: its columns, the proposed mapping, its first rows and how many there are. */
   async preview(path: string): Promise<TenancyImportPreview> {
-    const { kind, headers, rows } = await this.table(path);
-    const mapping = detectMapping(headers);
+    const head = await readTableHead(path, 0);
+    const mapping = detectMapping(head.headers);
+    let count = 0;
+    for await (const chunk of tableRowChunks(path, head)) count += chunk.length;
     return {
-      fileKind: kind,
-      headers,
+      fileKind: head.format,
+      headers: head.headers,
       mapping,
       missing: missingFields(mapping),
-      sampleRows: rows.slice(0, 5).map((r) => r.cells),
-      rows: rows.length,
+      sampleRows: head.sampleRows.slice(0, 5).map((cells) => cells.map((c) => c.trim())),
+      rows: count,
     };
   }
 
@@ -163,7 +142,8 @@ export class TenancyImportService {
     actor: Actor,
     input: { path: string; fileName: string; mapping?: TenancyMapping },
   ): Promise<TenancyImportSummary & { report: TenancyRowReport[] }> {
-    const { headers, rows } = await this.table(input.path);
+    const head = await readTableHead(input.path, 0);
+    const headers = head.headers;
     const mapping = input.mapping ?? detectMapping(headers);
     const outside = Object.entries(mapping).filter(([, i]) => i !== null && i >= headers.length);
     if (outside.length) {
@@ -179,7 +159,8 @@ export class TenancyImportService {
       ]);
     }
 
-    const chunks = inChunks(rows, this.options.batchRows);
+    // The file is read as the rows are stored, never whole: the reader leaves blank rows out.
+    const chunks = tableRowChunks(input.path, head);
 
     const saved = await this.dataSource.transaction(async (m) => {
       const organisationId = actor.organisationId;
@@ -195,14 +176,17 @@ export class TenancyImportService {
       let valid: TenancyRow[] = [];
       for await (const chunk of chunks) {
         for (const { line, cells } of chunk) {
-          if (isBlank(cells)) continue;
           if (++rowsRead > MAX_TENANCY_ROWS) throw tooManyRows();
-          const read = readTenancyRow(cells, mapping, line);
+          const read = readTenancyRow(
+            cells.map((c) => c.trim()),
+            mapping,
+            line,
+          );
           if (!read.ok) {
             run.report.push({ row: line, reference: read.reference, outcome: "rejected", changes: [], reasons: read.reasons });
             continue;
           }
-          const first = run.firstRowOf.get(read.value.reference);
+          const first = run.firstRowOf.get(referenceKey(read.value.reference));
           if (first !== undefined) {
             run.report.push({
               row: line,
@@ -213,7 +197,7 @@ export class TenancyImportService {
             });
             continue;
           }
-          run.firstRowOf.set(read.value.reference, line);
+          run.firstRowOf.set(referenceKey(read.value.reference), line);
           valid.push(read.value);
           if (valid.length >= this.options.batchRows) {
             await this.storeBatch(m, run, valid);
@@ -319,7 +303,7 @@ export class TenancyImportService {
     });
     const home = s.homes.get(v.uprn);
     if (home === undefined) return rejected([`None of your homes has the UPRN ${v.uprn}: add the home first.`]);
-    const current = s.existing.get(v.reference);
+    const current = s.existing.get(referenceKey(v.reference));
     const contact = s.contacts.get(v.email);
     const ours = contact && contact.organisationId === organisationId ? contact : undefined;
     const ended = v.endDate !== null && v.endDate < run.today;
