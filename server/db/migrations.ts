@@ -23,6 +23,7 @@ import { TenancyImport1796424829707 } from "./migrations/1796424829707-TenancyIm
 import { ApiKeys1796424839722 } from "./migrations/1796424839722-ApiKeys.js";
 import { StockRegisterFields1796424932669 } from "./migrations/1796424932669-StockRegisterFields.js";
 import { Webhooks1796425164411 } from "./migrations/1796425164411-Webhooks.js";
+import { ExportSortIndexes1796436010598 } from "./migrations/1796436010598-ExportSortIndexes.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -48,4 +49,5 @@ export const migrations = [
   ApiKeys1796424839722,
   StockRegisterFields1796424932669,
   Webhooks1796425164411,
+  ExportSortIndexes1796436010598,
 ];
