@@ -101,7 +101,11 @@ describe("an export's page query in the default order reads its index in order, 
   it("work orders by target date (first page, and after an order deep in the list)", async () => {
     const works = t.ctx.services.works;
     const first = { sort: "target", order: "asc" } as const;
-    expectIndexInOrder(await planOf(() => works.listAfter(actor, first, null, 1000), /ORDER BY/), "w", "idx_work_orders_org_target");
+    expectIndexInOrder(
+      await planOf(() => works.listAfter(actor, first, null, 1000), /ORDER BY/),
+      "w",
+      "idx_work_orders_org_target",
+    );
     expectIndexInOrder(
       await planOf(() => works.listAfter(actor, first, ["2026-12-20", 1], 1000), /ORDER BY/),
       "w",
