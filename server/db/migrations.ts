@@ -24,6 +24,7 @@ import { ApiKeys1796424839722 } from "./migrations/1796424839722-ApiKeys.js";
 import { StockRegisterFields1796424932669 } from "./migrations/1796424932669-StockRegisterFields.js";
 import { Webhooks1796425164411 } from "./migrations/1796425164411-Webhooks.js";
 import { IntegrationAdminActions1796434337752 } from "./migrations/1796434337752-IntegrationAdminActions.js";
+import { ExportSortIndexes1796436010598 } from "./migrations/1796436010598-ExportSortIndexes.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -50,4 +51,5 @@ export const migrations = [
   StockRegisterFields1796424932669,
   Webhooks1796425164411,
   IntegrationAdminActions1796434337752,
+  ExportSortIndexes1796436010598,
 ];

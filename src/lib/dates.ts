@@ -3,7 +3,7 @@
 // (deadlines, appointments, anything someone acts on) the zone is said beside it, "23:59 BST" or
 // "23:59 GMT", so nobody has to guess. Calendar dates (YYYY-MM-DD, already London days) are shown as
 // they are, never shifted a day.
-import { DEFAULT_TIME_ZONE, ZoneConverter } from "@/lib/domain/time-zone";
+import { DEFAULT_TIME_ZONE, ZoneConverter } from "./domain/time-zone.js";
 
 /** The zone every date and time is shown in. */
 export const LONDON = DEFAULT_TIME_ZONE;

@@ -11,6 +11,9 @@ import { STATE_LABELS } from "./surface-state-labels.js";
 export const labelFor = (labels: Record<string, string>, value: string | null | undefined, missing = "—"): string =>
   value ? (labels[value] ?? value) : missing;
 
+/** "1 day", "3 days". */
+export const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
 /** "works-planned" → "Works planned": something readable for a value we have no words for yet. */
 export function humanise(value: string): string {
   const words = value.replace(/[-_]+/g, " ").trim();

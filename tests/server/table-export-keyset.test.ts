@@ -8,6 +8,10 @@ import ExcelJS from "exceljs";
 import type request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { keysetPages, type KeysetPage } from "../../server/lib/table-export.js";
+import { WORK_ORDER_EXPORT_COLUMNS } from "../../src/lib/contracts/exports.js";
+import type { QueueItemResponse } from "../../src/lib/contracts/triage.js";
+import type { WorkOrderResponse } from "../../src/lib/contracts/works.js";
+import { deadlineStageLabels } from "../../src/lib/labels.js";
 import type { Actor } from "../../server/lib/actor.js";
 import { makeLandlord, makeProperty, makeUser, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
@@ -216,6 +220,46 @@ describe("an exported file says what the screen says", () => {
     expect(sheet.slice(1).map((r) => [r[2], r[3], r[5]])).toEqual([["Mould wash", "Routine", "To schedule"]]);
     const csv = await csvRows(officer, `/api/work-orders/export?caseId=${inspectedCase}&sort=type&order=desc`);
     expect(csv.slice(1).map((r) => r[2])).toEqual(["Mould wash", ...Array(5).fill("Extractor fan")]);
+  });
+
+  it("the queue: the next deadline as the screen says it, time left, stage and London day and time", async () => {
+    const screen = (await officer.get("/api/cases?pageSize=200").expect(200)).body.items as QueueItemResponse[];
+    const csv = await csvRows(officer, "/api/cases/export?columns=due");
+    expect(csv[0]).toEqual(["Reference", "Next deadline"]);
+    const byReference = new Map(csv.slice(1).map((r) => [r[0], r[1]]));
+    const londonDay = new Intl.DateTimeFormat("en-GB", {
+      timeZone: "Europe/London",
+      day: "numeric",
+      month: "short",
+      hour: "2-digit",
+      minute: "2-digit",
+      timeZoneName: "short",
+    });
+    const running = screen.filter((i) => i.nextDeadline);
+    expect(running.length).toBeGreaterThan(0);
+    for (const item of screen) {
+      const cell = byReference.get(item.reference ?? `Case ${item.id}`);
+      if (!item.nextDeadline) {
+        expect(cell).toBe("No deadline running");
+        continue;
+      }
+      const day = londonDay.format(new Date(item.nextDeadline.dueAt));
+      const stage = deadlineStageLabels[item.nextDeadline.stage];
+      expect(cell).toMatch(/^(Due in|Overdue by) \d+ (days?|hours?|minutes?): /);
+      expect(cell).toMatch(new RegExp(`: ${stage}, ${day}$`));
+    }
+    const sheet = await sheetRows(officer, "/api/cases/export?columns=due&format=xlsx");
+    expect(sheet.slice(1).map((r) => r[1])).toEqual(csv.slice(1).map((r) => r[1]));
+  });
+
+  it("work orders: every column as the works page shows the order (address, who, visit, raised)", async () => {
+    const screen = (await officer.get(`/api/work-orders?pageSize=200&caseId=${inspectedCase}`).expect(200)).body
+      .items as WorkOrderResponse[];
+    const csv = await csvRows(officer, `/api/work-orders/export?caseId=${inspectedCase}`);
+    expect(csv.slice(1)).toEqual(
+      screen.map((w) => WORK_ORDER_EXPORT_COLUMNS.map((c) => (c.value(w) === null ? "" : String(c.value(w))))),
+    );
+    expect(csv[1]![1]).toBe(`${landlord.home.addressLine1}, ${landlord.home.town}, ${landlord.home.postcode}`);
   });
 
   it("accounts: role and status in words, only the role asked for", async () => {

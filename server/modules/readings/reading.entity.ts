@@ -6,6 +6,8 @@ export type ReadingSource = (typeof READING_SOURCES)[number];
 /** One temperature/humidity reading in a room of a case's home. Unique per (case, room, time). */
 @Entity({ name: "readings" })
 @Index("uq_readings_case_room_time", ["caseId", "roomId", "takenAt"], { unique: true })
+// A case's readings across all rooms in time order (list, export pages).
+@Index("idx_readings_case_time_room", ["caseId", "takenAt", "roomId", "id"])
 export class Reading {
   @PrimaryGeneratedColumn({ type: "bigint", unsigned: true })
   id: string;

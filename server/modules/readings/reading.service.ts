@@ -411,8 +411,9 @@ export class ReadingService {
       params.push(opts.roomId);
     }
     if (opts.after) {
-      where.push("(taken_at > ? OR (taken_at = ? AND room_id > ?))");
-      params.push(opts.after.takenAt, opts.after.takenAt, opts.after.roomId);
+      // The redundant taken_at >= ? lets MariaDB start its index range there rather than at the case's first reading.
+      where.push("taken_at >= ? AND (taken_at > ? OR (taken_at = ? AND room_id > ?))");
+      params.push(opts.after.takenAt, opts.after.takenAt, opts.after.takenAt, opts.after.roomId);
     }
     const rows: ReadingRow[] = await this.dataSource.query(
       "SELECT id, room_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, outdoor_temperature_c, source, import_id " +

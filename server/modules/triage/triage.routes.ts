@@ -56,7 +56,7 @@ export function createTriageRouter({
       format,
       view: "queue",
       now,
-      columns: queueExportColumns(columns),
+      columns: queueExportColumns(now, columns),
       times,
       pages: keysetPages(
         async (after, limit) => {

@@ -23,6 +23,8 @@ export type UserStatus = (typeof USER_STATUSES)[number];
 
 @Entity({ name: "users" })
 @Index("idx_users_organisation_role", ["organisationId", "role"])
+// The accounts list's order (role, name), for the export's keyset pages.
+@Index("idx_users_org_role_name", ["organisationId", "role", "name", "id"])
 export class User {
   @PrimaryGeneratedColumn({ type: "int", unsigned: true })
   id: number;

@@ -14,6 +14,8 @@ import type { SlotWindow, WorkOrderPriority, WorkOrderStatus, WorkOrderType } fr
 @Index("idx_work_orders_case", ["caseId"])
 @Index("idx_work_orders_org_status", ["organisationId", "status", "slotDate"])
 @Index("idx_work_orders_org_assignee", ["organisationId", "assigneeUserId", "slotDate"])
+// The list's default order (target date), for the export's keyset pages.
+@Index("idx_work_orders_org_target", ["organisationId", "targetDate", "id"])
 export class WorkOrder {
   @PrimaryGeneratedColumn({ type: "int", unsigned: true })
   id: number;

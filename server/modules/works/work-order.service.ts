@@ -19,6 +19,7 @@ import { WorkOrder, type SlotWindow } from "./work-order.entity.js";
 import type { WorkOrderCompletion, WorkOrderCreate, WorkOrderListQuery } from "./works.schemas.js";
 import type { Clock } from "../../lib/clock.js";
 import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-export.js";
+import type { WorkOrderExportRow } from "../../../src/lib/contracts/exports.js";
 
 export const WORK_WORDS: Record<WorkOrder["type"], string> = {
   "extractor-fan": "extractor fan fitting or repair",
@@ -89,6 +90,40 @@ function workOrderSortTerms(q: Pick<WorkOrderListQuery, "sort" | "order">): KeyT
       ];
   }
 }
+
+/** A row of listAfter's page query. */
+interface ExportRowSql {
+  id: number;
+  case_id: number;
+  reference: string | null;
+  type: WorkOrder["type"];
+  priority: WorkOrder["priority"];
+  target_date: string;
+  status: WorkOrder["status"];
+  created_at: Date;
+  slot_date: string | null;
+  slot_window: SlotWindow | null;
+  address_line1: string;
+  town: string;
+  postcode: string;
+  assignee_name: string | null;
+  contractor_name: string | null;
+}
+
+const toExportRow = (r: ExportRowSql): WorkOrderExportRow => ({
+  id: Number(r.id),
+  caseId: Number(r.case_id),
+  caseReference: r.reference,
+  type: r.type,
+  priority: r.priority,
+  targetDate: r.target_date,
+  status: r.status,
+  createdAt: r.created_at.toISOString(),
+  property: { addressLine1: r.address_line1, town: r.town, postcode: r.postcode },
+  assignee: r.assignee_name === null ? null : { name: r.assignee_name },
+  contractor: r.contractor_name === null ? null : { name: r.contractor_name },
+  slot: r.slot_date && r.slot_window ? { date: r.slot_date, window: r.slot_window } : null,
+});
 
 export class WorkOrderService {
   constructor(
@@ -209,14 +244,16 @@ export class WorkOrderService {
   /**
    * For exports: the next `limit` orders of the list in its order after the one whose sort values are
    * `after` (null: from the top), and this page's last sort values. A keyset page costs the same deep
-   * in the list as at its top, where an offset reads every order before it.
+   * in the list as at its top, where an offset reads every order before it. Only the exported fields
+   * are read, in one query by the page's ids (its case's reference, its home's address, the names of
+   * its operative or contractor): no case, home or booking entities per order.
    */
   async listAfter(
     actor: Actor,
     q: Omit<WorkOrderListQuery, "page" | "pageSize">,
     after: readonly unknown[] | null,
     limit: number,
-  ): Promise<KeysetPage<WorkOrder>> {
+  ): Promise<KeysetPage<WorkOrderExportRow>> {
     const terms = workOrderSortTerms(q);
     const keys = this.filtered(actor, q).select("w.id", "id").limit(limit);
     terms.forEach((term, i) => keys.addSelect(term.expr, `k${i}`));
@@ -226,12 +263,22 @@ export class WorkOrderService {
     }
     const page = await keys.getRawMany<Record<string, unknown>>();
     if (!page.length) return { rows: [], last: null };
-    const byId = new Map(
-      (await this.dataSource.getRepository(WorkOrder).findBy({ id: In(page.map((k) => Number(k.id))) })).map((w) => [w.id, w]),
+    const found: ExportRowSql[] = await this.dataSource.query(
+      `SELECT w.id, w.case_id, c.reference, w.type, w.priority, DATE_FORMAT(w.target_date, '%Y-%m-%d') AS target_date,
+              w.status, w.created_at, DATE_FORMAT(w.slot_date, '%Y-%m-%d') AS slot_date, w.slot_window,
+              p.address_line1, p.town, p.postcode, a.name AS assignee_name, k.name AS contractor_name
+       FROM work_orders w
+       JOIN cases c ON c.id = w.case_id
+       JOIN properties p ON p.id = c.property_id
+       LEFT JOIN users a ON a.id = w.assignee_user_id
+       LEFT JOIN contractors k ON k.id = w.contractor_id
+       WHERE w.id IN (?) AND w.organisation_id = ?`,
+      [page.map((k) => Number(k.id)), actor.organisationId],
     );
+    const byId = new Map(found.map((r) => [Number(r.id), toExportRow(r)]));
     const tail = page.at(-1)!;
     return {
-      rows: page.map((k) => byId.get(Number(k.id))).filter((w): w is WorkOrder => w !== undefined),
+      rows: page.map((k) => byId.get(Number(k.id))).filter((w): w is WorkOrderExportRow => w !== undefined),
       last: terms.map((_, i) => tail[`k${i}`] ?? null),
     };
   }

@@ -100,14 +100,7 @@ export function createWorkOrdersRouter({ works, photos, clock }: Deps & { clock:
       now: clock.now(),
       columns: WORK_ORDER_EXPORT_COLUMNS,
       times,
-      pages: keysetPages(
-        async (after, limit) => {
-          const { rows, last } = await works.listAfter(actor, query, after, limit);
-          return { rows: await dtos(works, [...rows], actor), last };
-        },
-        EXPORT_PAGE_SIZE,
-        times,
-      ),
+      pages: keysetPages(async (after, limit) => works.listAfter(actor, query, after, limit), EXPORT_PAGE_SIZE, times),
     });
   });
 

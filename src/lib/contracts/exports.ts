@@ -17,6 +17,7 @@ import {
   workTypeNames,
 } from "../labels.js";
 import { builtFormLabels, glazingTypeLabels, heatingTypeLabels, labelOf, ventilationLabels, wallTypeLabels } from "../homes.js";
+import { nextDeadlineText } from "../deadline-words.js";
 import { roleLabels } from "../roles.js";
 import type { PropertySummaryResponse } from "./properties.js";
 import type { ReadingResponse } from "./readings.js";
@@ -83,12 +84,13 @@ export const QUEUE_COLUMN_LABELS: Record<QueueColumnId, string> = {
 /** The optional columns shown until someone chooses others (the reference always shows). */
 export const QUEUE_DEFAULT_COLUMNS: readonly QueueColumnId[] = ["priority", "address", "risk", "due", "status"];
 
-const queueValues: Record<QueueColumnId, (r: QueueItemResponse) => ExportCell> = {
+/** `now`: the export's moment, for the time left to each deadline (as the screen shows it then). */
+const queueValues = (now: number): Record<QueueColumnId, (r: QueueItemResponse) => ExportCell> => ({
   reference: (r) => r.reference ?? `Case ${r.id}`,
   priority: (r) => r.priority,
   address: (r) => `${r.property.addressLine1}, ${r.property.town}, ${r.property.postcode}`,
   risk: (r) => riskLabels[r.riskState ?? "unknown"],
-  due: (r) => r.nextDeadline?.dueAt ?? null,
+  due: (r) => nextDeadlineText(r.nextDeadline, r.overdue, now),
   status: (r) => staffStatusLabel(r.status),
   estate: (r) => (r.property.block ? `${r.property.estate}, ${r.property.block}` : r.property.estate),
   rooms: (r) => r.rooms.map((room) => room.name).join(", "),
@@ -99,15 +101,22 @@ const queueValues: Record<QueueColumnId, (r: QueueItemResponse) => ExportCell> =
   vulnerable: (r) => r.vulnerableHousehold,
   band: (r) => (r.hhsrs ? `Band ${r.hhsrs.band}, Category ${r.hhsrs.category}` : null),
   assignee: (r) => r.assignee?.name ?? null,
-};
+});
 
-/** The queue's export columns: the reference, then the shown ones in the screen's order. */
-export function queueExportColumns(shown: readonly QueueColumnId[] = QUEUE_DEFAULT_COLUMNS): ExportColumn<QueueItemResponse>[] {
+/**
+ * The queue's export columns: the reference, then the shown ones in the screen's order. `now` (the
+ * injectable clock's) is when the file is made: the next deadline says the time left as of then.
+ */
+export function queueExportColumns(
+  now: Date,
+  shown: readonly QueueColumnId[] = QUEUE_DEFAULT_COLUMNS,
+): ExportColumn<QueueItemResponse>[] {
   const wanted = new Set<QueueColumnId>(["reference", ...shown]);
+  const values = queueValues(now.getTime());
   return QUEUE_COLUMN_IDS.filter((id) => wanted.has(id)).map((id) => ({
     id,
     header: QUEUE_COLUMN_LABELS[id],
-    value: queueValues[id],
+    value: values[id],
   }));
 }
 
@@ -146,7 +155,21 @@ export const HOME_EXPORT_COLUMNS: readonly ExportColumn<PropertySummaryResponse>
   { id: "uprn", header: "UPRN", value: (h) => h.uprn },
 ];
 
-export const WORK_ORDER_EXPORT_COLUMNS: readonly ExportColumn<WorkOrderResponse>[] = [
+/**
+ * What the work orders' export reads of an order: only its exported columns, so an export page is
+ * one query for these fields rather than each order's case, home, rooms and bookings.
+ */
+export type WorkOrderExportRow = Pick<
+  WorkOrderResponse,
+  "id" | "caseId" | "caseReference" | "type" | "priority" | "targetDate" | "status" | "createdAt"
+> & {
+  property: Pick<WorkOrderResponse["property"], "addressLine1" | "town" | "postcode">;
+  assignee: { name: string } | null;
+  contractor: { name: string } | null;
+  slot: Pick<NonNullable<WorkOrderResponse["slot"]>, "date" | "window"> | null;
+};
+
+export const WORK_ORDER_EXPORT_COLUMNS: readonly ExportColumn<WorkOrderExportRow>[] = [
   { id: "reference", header: "Reference", value: (w) => w.caseReference ?? `Case ${w.caseId}` },
   { id: "address", header: "Address", value: (w) => `${w.property.addressLine1}, ${w.property.town}, ${w.property.postcode}` },
   { id: "type", header: "Type", value: (w) => labelFor(workTypeNames, w.type) },

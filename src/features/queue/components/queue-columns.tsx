@@ -4,10 +4,11 @@ import { TextLink } from "@/components/ui/text-link";
 import { cn } from "@/lib/cn";
 import { QUEUE_COLUMN_LABELS } from "@/lib/contracts/exports";
 import type { QueueItem } from "../api/types";
-import { formatDay, formatDayTimeZoned } from "@/lib/dates";
-import { areaLabels, channelLabels, deadlineStageLabels, labelFor, riskLabels } from "../lib/labels";
+import { formatDay } from "@/lib/dates";
+import { areaLabels, channelLabels, labelFor, riskLabels } from "../lib/labels";
 import type { QueueSort } from "../lib/queue-view";
 import { TimeLeftText } from "./time-left";
+import { NO_DEADLINE_RUNNING, nextDeadlineWords } from "@/lib/deadline-words";
 
 /** The heading of each data column (shared with the export); the column ids are the API's sort keys. */
 export const COLUMN_LABELS: Record<QueueSort, string> = QUEUE_COLUMN_LABELS;
@@ -126,12 +127,13 @@ export function queueColumns({ renderStatus, now }: ColumnOptions) {
       ...sortable("due"),
       cell: ({ row }) => {
         const next = row.original.nextDeadline;
-        if (!next) return <Missing>No deadline running</Missing>;
+        if (!next) return <Missing>{NO_DEADLINE_RUNNING}</Missing>;
+        const words = nextDeadlineWords(next, row.original.overdue, now);
         return (
           <span className="flex items-center gap-x-2 whitespace-nowrap">
-            <TimeLeftText dueAt={next.dueAt} overdue={row.original.overdue} now={now} />
+            <TimeLeftText left={words.left} />
             <span className="text-ink-soft">
-              {labelFor(deadlineStageLabels, next.stage)}, <time dateTime={next.dueAt}>{formatDayTimeZoned(next.dueAt)}</time>
+              {words.stage}, <time dateTime={next.dueAt}>{words.due}</time>
             </span>
           </span>
         );

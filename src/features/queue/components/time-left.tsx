@@ -1,12 +1,11 @@
 import { cn } from "@/lib/cn";
-import { timeLeft } from "../lib/time-left";
+import type { TimeLeft } from "@/lib/deadline-words";
 
 /**
  * Time to the next deadline. Overdue reads "Overdue by 2 days" with a warning icon and bold
  * text, and less than a day to go has a clock icon, so neither depends on colour alone.
  */
-export function TimeLeftText({ dueAt, overdue, now }: { dueAt: string; overdue: boolean; now: number }) {
-  const left = timeLeft(dueAt, now, overdue);
+export function TimeLeftText({ left }: { left: TimeLeft }) {
   if (left.overdue) {
     return (
       <span className="inline-flex items-center gap-1 font-bold whitespace-nowrap text-rust-700">

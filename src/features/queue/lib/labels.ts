@@ -1,8 +1,9 @@
 // Plain words for the values in the queue. Short forms: a table cell is narrow.
+import { plural } from "@/lib/labels";
 import type { QueueCategory } from "./queue-view";
 
 // The words for the queue's values are shared with the server's export.
-export { areaLabels, channelLabels, deadlineStageLabels, labelFor, riskLabels } from "@/lib/labels";
+export { areaLabels, channelLabels, deadlineStageLabels, labelFor, plural, riskLabels } from "@/lib/labels";
 
 export const categoryLabels: Record<QueueCategory, string> = {
   "1": "Category 1",
@@ -10,5 +11,4 @@ export const categoryLabels: Record<QueueCategory, string> = {
   none: "Not assessed",
 };
 
-export const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
 export const casesCount = (n: number) => plural(n, "case", "cases");
