@@ -37,7 +37,7 @@ export async function addLandlord(argv: string[]): Promise<number> {
     console.log(
       `Landlord "${added.name}" added (id ${added.organisationId}), on the default deadline timeframes.\n` +
         `${added.admin.name} <${added.admin.email}> is its administrator: an invitation e-mail to choose a password ` +
-        "has gone out (the link lasts 72 hours).",
+        "is in the outbox (the running server sends it if it has not gone yet; the link lasts 72 hours).",
     );
     if (config.env !== "production") console.log(`Mail inbox: http://127.0.0.1:${config.smtp.webPort}`);
     return 0;

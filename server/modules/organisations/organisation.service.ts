@@ -47,7 +47,8 @@ export class OrganisationService {
    * landlord, the account (no password), the invitation link and its outbox e-mail are written in one
    * transaction, so a refusal or a failure leaves nothing. No deadline policy row is written: a landlord
    * without one works to the default timeframes until an admin sets its own (as the demo landlords do).
-   * The e-mail is sent after the commit (the outbox relay retries it if the mail server is away).
+   * After the commit this process's outbox relay is woken; the e-mail goes out oldest first with the rest
+   * of the outbox, from here or from the running server's relay (which retries if the mail server is away).
    */
   async addLandlord(input: LandlordInput, onboarding: LandlordOnboarding): Promise<AddedLandlord> {
     const { name, adminEmail, adminName } = parse(landlordInputSchema, input);
