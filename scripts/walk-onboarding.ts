@@ -354,7 +354,8 @@ try {
       });
     };
     const first = await progress();
-    // The background tick releases the first batch within INVITATION_BATCH_INTERVAL_MS: wait for it.
+    // The background tick releases INVITATIONS_PER_BATCH every INVITATION_BATCH_INTERVAL_MS, oldest first across
+    // landlords: wait a while for the first of these, and say so if other landlords' queued ones still go first.
     const later = await until(
       "the first invitations to be sent",
       async () => {
@@ -363,10 +364,13 @@ try {
       },
       Number(values["invitation-wait"]) * 1000,
       1000,
-    );
+    ).catch(() => undefined);
     return [
       undefined,
-      `${n(first.total)} queued, ${n(first.sent)} sent at first; then ${n(later.sent)} of ${n(later.total)} sent, ${n(later.pending)} pending`,
+      `${n(first.total)} queued, ${n(first.sent)} sent at first; ` +
+        (later
+          ? `then ${n(later.sent)} of ${n(later.total)} sent, ${n(later.pending)} pending`
+          : `none sent within ${values["invitation-wait"]} s (invitations queued earlier, by any landlord, go first)`),
     ];
   });
 
