@@ -18,13 +18,8 @@ import { waitUntilReady } from "../../scripts/lib/processes.js";
 import { uprnOf, writeRegister } from "../../scripts/lib/stock-register.js";
 import { makeOrganisation, makeUser, PASSWORD } from "../support/factories.js";
 
-/** Enough homes that the import is still writing when the test sees it under way (a few seconds here). */
+/** A register of this many homes is imported, killed just before its commit, and imported again. */
 const HOMES = 40_000;
-/**
- * Rows the import's transaction must have written before the kill: more than one batch of any size an
- * import is likely to write at a time, so a kill after an early commit would leave homes behind.
- */
-const WRITTEN_BEFORE_KILL = HOMES / 4;
 /** The server's own database account, so its transactions are told apart from other test files'. */
 const SERVER_DB_USER = "dewline_kill_test";
 
@@ -77,7 +72,7 @@ async function serverTransactions() {
   const rows = await rootSql(
     { dir: db.dir, port: db.port },
     `SELECT t.trx_mysql_thread_id, t.trx_state, t.trx_rows_modified, t.trx_rows_locked, t.trx_tables_locked,
-            COALESCE(p.info LIKE 'LOAD DATA%', 0)
+            COALESCE(p.info LIKE 'INSERT INTO \`stock_imports\`%', 0)
        FROM information_schema.innodb_trx t JOIN information_schema.processlist p ON p.id = t.trx_mysql_thread_id
       WHERE p.user = '${SERVER_DB_USER}'`,
   );
@@ -86,14 +81,15 @@ async function serverTransactions() {
     .split("\n")
     .filter(Boolean)
     .map((line) => {
-      const [thread, state, modified, rowsLocked, tablesLocked, loading] = line.split("\t");
+      const [thread, state, modified, rowsLocked, tablesLocked, recording] = line.split("\t");
       return {
         thread: Number(thread),
         state: state!,
         rowsModified: Number(modified),
         rowsLocked: Number(rowsLocked),
         tablesLocked: Number(tablesLocked),
-        loadingData: loading === "1",
+        /** Storing the import's own record: its last write, after every home. */
+        recordingImport: recording === "1",
       };
     });
 }
@@ -132,28 +128,46 @@ it(
     const { mapping, missing } = (await preview.json()) as { mapping: Record<string, number>; missing: string[] };
     expect(missing).toEqual([]);
 
+    // A state, not a time: the test holds a locking read of this landlord's (empty) range of import
+    // records, so the import, having written every home in its transaction, waits to store its own
+    // record, its last write before the commit. Seen waiting there, the server process dies on the spot.
+    const hold = ds.createQueryRunner();
+    const peek = ds.createQueryRunner();
+    await hold.connect();
+    await hold.startTransaction();
+    await hold.query("SELECT id FROM stock_imports WHERE organisation_id = ? FOR UPDATE", [org.id]);
     let answered = false;
     const answer = upload(session, "/api/stock-imports", mapping).then(
       (r) => `answered ${r.status}`,
       (error: Error) => `no answer (${error.message})`,
     );
     void answer.then(() => (answered = true));
-    // A state, not a time: the import's transaction has written a quarter of the file's rows. (A LOAD DATA
-    // reports no modified rows while it runs, e.g. into an empty table or a staging table: a running LOAD DATA
-    // with tables locked counts too.) Merely holding locks is not enough: the first batch's SELECT … FOR UPDATE
-    // locks rows before any write. Then the process dies on the spot.
     let seen: Awaited<ReturnType<typeof serverTransactions>>[number] | undefined;
-    while (!seen && !answered) {
-      seen = (await serverTransactions()).find(
-        (t) => t.rowsModified >= WRITTEN_BEFORE_KILL || (t.loadingData && t.state === "RUNNING" && t.tablesLocked > 0),
-      );
+    try {
+      while (!seen && !answered) {
+        seen = (await serverTransactions()).find((t) => t.recordingImport);
+        // Each look starts a client process: a pause between looks keeps the machine free for the import.
+        if (!seen) await new Promise((r) => setTimeout(r, 100));
+      }
+      expect(seen, `the import never reached its record (${answered ? await answer : "no answer"})\n${output}`).toBeDefined();
+      // Every home is written, not yet committed: a read of uncommitted rows sees them all.
+      await peek.query("SET SESSION TRANSACTION ISOLATION LEVEL READ UNCOMMITTED");
+      const [dirty] = (await peek.query("SELECT COUNT(*) AS n FROM properties WHERE organisation_id = ?", [org.id])) as {
+        n: string;
+      }[];
+      expect(Number(dirty!.n)).toBe(HOMES);
+    } catch (error) {
+      await hold.rollbackTransaction();
+      await Promise.all([hold.release(), peek.release()]);
+      throw error;
     }
-    expect(seen, `the import's transaction was never seen under way\nserver output:\n${output}`).toBeDefined();
     const exited = new Promise<void>((resolve) => server!.once("exit", () => resolve()));
     server.kill("SIGKILL");
     await exited;
     console.log(`killed with the import's transaction under way: ${JSON.stringify(seen)}; the upload: ${await answer}`);
     expect(await answer).toMatch(/^no answer/);
+    await hold.rollbackTransaction();
+    await Promise.all([hold.release(), peek.release()]);
 
     // MariaDB rolls the dead connection's transaction back; wait for that to finish (a state), then count.
     for (let i = 0; i < 3_000 && (await serverTransactions()).some((t) => t.thread === seen!.thread); i++)
