@@ -11,21 +11,18 @@
 // The queue's stored triage figures are written here directly and left fresh (triage_due_at NULL):
 // they are plausible values for sorting, not worked out from facts (bench:queue checks those).
 import { spawn, type ChildProcess } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync } from "node:fs";
+import { readFileSync } from "node:fs";
 import type { AddressInfo } from "node:net";
-import { tmpdir } from "node:os";
-import path from "node:path";
 import { performance } from "node:perf_hooks";
 import { fileURLToPath } from "node:url";
 import type { DataSource } from "typeorm";
 import { createApp } from "../server/app.js";
 import { createAppContext } from "../server/app-context.js";
 import { loadConfig } from "../server/config/env.js";
-import { createDataSource } from "../server/db/create-data-source.js";
+import { startBenchDatabase } from "./lib/bench-database.js";
 import { hashPassword } from "../server/modules/auth/passwords.js";
 import { Organisation } from "../server/modules/organisations/organisation.entity.js";
 import { User } from "../server/modules/users/user.entity.js";
-import { ensureAppDatabase, freePort, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 
 const ROWS = 100_000;
 const MB = 1024 * 1024;
@@ -232,21 +229,13 @@ async function download(url: string, cookie: string, pid: number) {
 }
 
 async function main(): Promise<void> {
-  const dir = mkdtempSync(path.join(tmpdir(), "dewline-bench-export-"));
-  const instance = { dir: path.join(dir, "mariadb"), port: await freePort() };
-  const db = { host: "127.0.0.1", port: instance.port, name: "dewline_bench", user: "dewline_bench", password: "bench-only" };
-  let ds: DataSource | undefined;
+  const bench = await startBenchDatabase("export");
+  const { db, ds } = bench;
   let app: Awaited<ReturnType<typeof startApp>> | undefined;
   try {
-    await startMariaDb(instance);
-    await ensureAppDatabase(instance, db);
-    ds = createDataSource(db);
-    await ds.initialize();
-    await ds.runMigrations({ transaction: "each" });
     const t0 = performance.now();
     const { email, caseId, roomId } = await seed(ds);
     await ds.destroy();
-    ds = undefined;
     console.log(
       `Export benchmark — ${ROWS.toLocaleString("en-GB")} rows a table (inserted in ${((performance.now() - t0) / 1000).toFixed(1)} s); ` +
         "the app in a child process, its RSS read from /proc",
@@ -300,9 +289,7 @@ async function main(): Promise<void> {
     }
   } finally {
     if (app) await stopApp(app);
-    await ds?.destroy().catch(() => undefined);
-    await stopMariaDb(instance.dir).catch(() => undefined);
-    rmSync(dir, { recursive: true, force: true });
+    await bench.stop();
   }
 }
 

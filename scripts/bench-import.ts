@@ -7,13 +7,12 @@
 //     statement is timed; it runs before and after ours and the faster run is kept;
 //  3. one 12-megapixel JPEG through the photo pipeline's processPhoto.
 // Targets: ours ≥ 60 % of LOAD DATA's rows/s; our peak RSS < 300 MB; the photo < 400 ms.
-import { closeSync, mkdtempSync, openSync, rmSync, writeSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { closeSync, openSync, writeSync } from "node:fs";
 import path from "node:path";
 import { performance } from "node:perf_hooks";
 import type mysql from "mysql2/promise";
 import type { DataSource } from "typeorm";
-import { createDataSource } from "../server/db/create-data-source.js";
+import { startBenchDatabase } from "./lib/bench-database.js";
 import { Case } from "../server/modules/cases/case.entity.js";
 import { Organisation } from "../server/modules/organisations/organisation.entity.js";
 import { Property } from "../server/modules/properties/property.entity.js";
@@ -24,7 +23,7 @@ import { createLogger } from "../server/lib/logger.js";
 import { createMailer } from "../server/lib/mailer.js";
 import { User } from "../server/modules/users/user.entity.js";
 import { ZoneConverter } from "../src/lib/domain/time-zone.js";
-import { ensureAppDatabase, freePort, loadDataConnection, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
+import { loadDataConnection } from "./lib/mariadb.js";
 import { mulberry32 } from "../server/lib/random.js";
 
 const ROWS = 1_000_000;
@@ -164,17 +163,10 @@ async function benchPhoto(dir: string): Promise<{ ms: number[]; width: number; h
 }
 
 async function main(): Promise<void> {
-  const dir = mkdtempSync(path.join(tmpdir(), "dewline-bench-import-"));
-  const instance = { dir: path.join(dir, "mariadb"), port: await freePort() };
-  const db = { host: "127.0.0.1", port: instance.port, name: "dewline_bench", user: "dewline_bench", password: "bench-only" };
-  let ds: DataSource | undefined;
+  const bench = await startBenchDatabase("import");
+  const { dir, db, ds } = bench;
   let loader: mysql.Connection | undefined;
   try {
-    await startMariaDb(instance);
-    await ensureAppDatabase(instance, db);
-    ds = createDataSource(db);
-    await ds.initialize();
-    await ds.runMigrations({ transaction: "each" });
     const ids = await makeCase(ds);
 
     const t0 = performance.now();
@@ -243,9 +235,7 @@ async function main(): Promise<void> {
     if (ratio < 0.6 || !rssOk || median >= 400) process.exitCode = 1;
   } finally {
     await loader?.end().catch(() => undefined);
-    if (ds?.isInitialized) await ds.destroy().catch(() => undefined);
-    await stopMariaDb(instance.dir).catch(() => undefined);
-    rmSync(dir, { recursive: true, force: true });
+    await bench.stop();
   }
 }
 

@@ -12,22 +12,21 @@
 // Targets: ours ≥ 80 % of LOAD DATA's rows/s; peak RSS < 300 MB. Rooms are left out of the register,
 // since LOAD DATA of one table could not be compared with them.
 import { spawn } from "node:child_process";
-import { closeSync, mkdtempSync, openSync, rmSync, writeSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { closeSync, openSync, writeSync } from "node:fs";
 import path from "node:path";
 import { performance } from "node:perf_hooks";
 import { fileURLToPath } from "node:url";
 import type mysql from "mysql2/promise";
-import type { DataSource } from "typeorm";
 import { createServices } from "../server/app-context.js";
 import { loadConfig, type Config } from "../server/config/env.js";
 import { createDataSource } from "../server/db/create-data-source.js";
+import { startBenchDatabase } from "./lib/bench-database.js";
 import { createLogger } from "../server/lib/logger.js";
 import { createMailer } from "../server/lib/mailer.js";
 import { Organisation } from "../server/modules/organisations/organisation.entity.js";
 import { User } from "../server/modules/users/user.entity.js";
 import { convertStockRow, proposeStockMapping } from "../src/lib/domain/stock-register.js";
-import { ensureAppDatabase, freePort, loadDataConnection, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
+import { loadDataConnection } from "./lib/mariadb.js";
 import { REGISTER_HEADER, writeRegister } from "./lib/stock-register.js";
 
 const ROWS = Number(process.env.STOCK_ROWS ?? 100_000);
@@ -136,17 +135,10 @@ const LOAD_COLUMNS = [
 ];
 
 async function main(): Promise<void> {
-  const dir = mkdtempSync(path.join(tmpdir(), "dewline-bench-stock-"));
-  const instance = { dir: path.join(dir, "mariadb"), port: await freePort() };
-  const db = { host: "127.0.0.1", port: instance.port, name: "dewline_bench", user: "dewline_bench", password: "bench-only" };
-  let ds: DataSource | undefined;
+  const bench = await startBenchDatabase("stock");
+  const { dir, db, ds } = bench;
   let loader: mysql.Connection | undefined;
   try {
-    await startMariaDb(instance);
-    await ensureAppDatabase(instance, db);
-    ds = createDataSource(db);
-    await ds.initialize();
-    await ds.runMigrations({ transaction: "each" });
     const ours = await ds.getRepository(Organisation).save({ name: "Bench Homes" });
     const theirs = await ds.getRepository(Organisation).save({ name: "Load Data Homes" });
     const admin = await ds.getRepository(User).save(
@@ -230,9 +222,7 @@ async function main(): Promise<void> {
     if (ratio < 0.8 || !rssOk || again.updated !== ROWS / 100 || Number(n) !== ROWS) process.exitCode = 1;
   } finally {
     await loader?.end().catch(() => undefined);
-    if (ds?.isInitialized) await ds.destroy().catch(() => undefined);
-    await stopMariaDb(instance.dir).catch(() => undefined);
-    rmSync(dir, { recursive: true, force: true });
+    await bench.stop();
   }
 }
 

@@ -9,20 +9,18 @@
 //  4. the re-import of the changed file, in another child.
 // Prints rows/s of each and the peak RSS; exits 1 when an import's counts are not what the file says.
 import { spawn } from "node:child_process";
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { writeFileSync } from "node:fs";
 import path from "node:path";
 import { performance } from "node:perf_hooks";
 import { fileURLToPath } from "node:url";
-import type { DataSource } from "typeorm";
 import { createServices } from "../server/app-context.js";
 import { loadConfig } from "../server/config/env.js";
 import { createDataSource } from "../server/db/create-data-source.js";
+import { startBenchDatabase } from "./lib/bench-database.js";
 import { createLogger } from "../server/lib/logger.js";
 import { createMailer } from "../server/lib/mailer.js";
 import { Organisation } from "../server/modules/organisations/organisation.entity.js";
 import { User } from "../server/modules/users/user.entity.js";
-import { ensureAppDatabase, freePort, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 
 const ROWS = Number(process.env.TENANCY_ROWS ?? 100_000);
 const MB = 1024 * 1024;
@@ -122,16 +120,9 @@ function runChild(job: ChildJob): Promise<ChildResult> {
 }
 
 async function main(): Promise<void> {
-  const dir = mkdtempSync(path.join(tmpdir(), "dewline-bench-tenancy-"));
-  const instance = { dir: path.join(dir, "mariadb"), port: await freePort() };
-  const db: Db = { host: "127.0.0.1", port: instance.port, name: "dewline_bench", user: "dewline_bench", password: "bench-only" };
-  let ds: DataSource | undefined;
+  const bench = await startBenchDatabase("tenancy");
+  const { dir, db, ds } = bench;
   try {
-    await startMariaDb(instance);
-    await ensureAppDatabase(instance, db);
-    ds = createDataSource(db);
-    await ds.initialize();
-    await ds.runMigrations({ transaction: "each" });
     const org = await ds.getRepository(Organisation).save({ name: "Bench Lettings" });
     const admin = await ds.getRepository(User).save(
       ds.getRepository(User).create({
@@ -183,9 +174,7 @@ async function main(): Promise<void> {
     )
       process.exitCode = 1;
   } finally {
-    if (ds?.isInitialized) await ds.destroy().catch(() => undefined);
-    await stopMariaDb(instance.dir).catch(() => undefined);
-    rmSync(dir, { recursive: true, force: true });
+    await bench.stop();
   }
 }
 
