@@ -6,11 +6,11 @@ import { rmSync } from "node:fs";
 import path from "node:path";
 import { projectRoot } from "./lib/paths.js";
 import { runForExitCode, runStep } from "./lib/processes.js";
-import { CHROMIUM, ensureSystemPackages, MARIADB } from "./lib/system-packages.js";
+import { CHROMIUM, ensureSystemPackages, MARIADB, POPPLER } from "./lib/system-packages.js";
 
 const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
 
-await ensureSystemPackages([MARIADB, CHROMIUM], step);
+await ensureSystemPackages([MARIADB, CHROMIUM, POPPLER], step);
 step("Type-checking (tsc -b)…");
 await runStep(process.execPath, ["node_modules/typescript/bin/tsc", "-b"], { cwd: projectRoot });
 step("Linting (ESLint, Prettier, server module circles)…");

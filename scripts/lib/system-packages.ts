@@ -15,6 +15,8 @@ export const MARIADB: SystemNeed = {
   packages: ["mariadb-server", "mariadb-client"],
 };
 export const CHROMIUM: SystemNeed = { commands: ["chromium"], packages: ["chromium", "fonts-dejavu-core"] };
+/** pdftotext, pdfinfo: the tests read generated PDFs back with them. */
+export const POPPLER: SystemNeed = { commands: ["pdftotext", "pdfinfo"], packages: ["poppler-utils"] };
 
 async function onPath(command: string): Promise<boolean> {
   try {
