@@ -32,7 +32,7 @@ export interface TableHead {
 }
 
 const HEAD_BYTES = 64 * 1024;
-const CSV_CHUNK_BYTES = 512 * 1024;
+const CSV_CHUNK_BYTES = 32 * 1024;
 
 const SAVE_AS =
   "Open it in your spreadsheet program, save it as “CSV UTF-8” or as an Excel workbook (.xlsx), and upload it again.";
@@ -181,7 +181,7 @@ async function* csvRecords(filePath: string, delimiter: Separator): AsyncGenerat
   }
 }
 
-const XLSX_CHUNK_ROWS = 2_000;
+const XLSX_CHUNK_ROWS = 200;
 
 async function* xlsxRecords(filePath: string): AsyncGenerator<TableRecord[]> {
   const reader = new ExcelJS.stream.xlsx.WorkbookReader(filePath, {

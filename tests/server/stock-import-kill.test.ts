@@ -72,7 +72,7 @@ async function serverTransactions() {
   const rows = await rootSql(
     { dir: db.dir, port: db.port },
     `SELECT t.trx_mysql_thread_id, t.trx_state, t.trx_rows_modified, t.trx_rows_locked, t.trx_tables_locked,
-            COALESCE(p.info LIKE 'INSERT INTO \`stock_imports\`%', 0)
+            COALESCE(p.info LIKE 'INSERT INTO %stock_imports%', 0)
        FROM information_schema.innodb_trx t JOIN information_schema.processlist p ON p.id = t.trx_mysql_thread_id
       WHERE p.user = '${SERVER_DB_USER}'`,
   );

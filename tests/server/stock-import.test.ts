@@ -188,6 +188,28 @@ describe("the stock import", () => {
     expect(list.body.imports.map((i: { id: number }) => i.id)).toEqual([changed.body.id, again.body.id, first.body.id]);
   });
 
+  it("stores free text exactly as written: a backslash, a tab, a line break and letters beyond ASCII", async () => {
+    const { landlord, admin } = await adminOfNewLandlord();
+    const file = Buffer.from(
+      [
+        "UPRN,Address 1,Address 2,Town,Postcode,Estate,Block,Built form,Walls,Glazing,Heating",
+        '100088880001,"Flat 2\\B, Tŷ Glas","Rear\tdoor",Caerdydd,CF10 1AA,"Parc\nUchaf",Bloc – Ä,Flat,Solid brick,Double,Gas boiler',
+      ].join("\n") + "\n",
+      "utf8",
+    );
+    const res = await upload(admin, "/api/stock-imports", file, "register.csv").expect(201);
+    expect(res.body.created).toBe(1);
+    const [home] = await homesOf(landlord.org.id);
+    expect(home).toMatchObject({
+      address_line1: "Flat 2\\B, Tŷ Glas",
+      address_line2: "Rear\tdoor",
+      town: "Caerdydd",
+      estate: "Parc\nUchaf",
+      block: "Bloc – Ä",
+      postcode: "CF10 1AA",
+    });
+  });
+
   it("imports an Excel workbook, with numbers as numbers and separate address columns", async () => {
     const { landlord, admin } = await adminOfNewLandlord();
     const wb = new ExcelJS.Workbook();

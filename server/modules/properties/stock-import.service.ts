@@ -21,11 +21,11 @@ import type { PoolConnection, ResultSetHeader, RowDataPacket } from "mysql2";
 import type { DataSource } from "typeorm";
 import { z } from "zod";
 import {
-  convertStockRow,
   missingEngineFields,
   missingStockFields,
   proposeStockMapping,
   STOCK_FIELDS,
+  stockRowConverter,
   type StockHome,
   type StockMapping,
 } from "../../../src/lib/domain/stock-register.js";
@@ -101,7 +101,15 @@ const NULL_MARK = "\x00";
 const TSV_SPECIAL = /[\\\t\n\r\0]/;
 const TSV_ESCAPES: Record<string, string> = { "\\": "\\\\", "\t": "\\t", "\n": "\\n", "\r": "\\r", "\0": "\\0" };
 /** Bytes of TSV gathered before they are handed to the connection. */
-const TSV_CHUNK_CHARS = 64 * 1024;
+const TSV_CHUNK_BYTES = 64 * 1024;
+/**
+ * Room kept for one more row: the free-text fields are at most 680 characters (the lengths the
+ * conversion checks), at most 3 bytes each in UTF-8 (an escaped character is 2 ASCII bytes), and the
+ * other fields are short words and numbers.
+ */
+const TSV_ROW_ROOM = 8 * 1024;
+/** The fields that hold a person's free text, so may need escaping; the others are words of ours, numbers or checked codes. */
+const FREE_TEXT = new Set<keyof StockHome>(["addressLine1", "addressLine2", "town", "estate", "block"]);
 /** Bytes the connection may hold unsent before the parser waits for MariaDB. */
 const SOCKET_HIGH_WATER = 4 * 1024 * 1024;
 
@@ -131,8 +139,8 @@ class LoadSegment {
   }
 
   /** Writes rows of TSV; waits while the connection holds more than SOCKET_HIGH_WATER bytes unsent. */
-  async write(text: string, rows: number, socket: Writable): Promise<void> {
-    this.tsv.write(text);
+  async write(bytes: Buffer, rows: number, socket: Writable): Promise<void> {
+    this.tsv.write(bytes);
     this.sent += rows;
     if (socket.writableLength > SOCKET_HIGH_WATER && !this.settled) await Promise.race([once(socket, "drain"), this.ended]);
     if (this.settled) {
@@ -154,13 +162,54 @@ class LoadSegment {
   }
 }
 
-/** A value as a LOAD DATA field: \N for NULL, flags as 1/0, the escape character and line breaks escaped. */
-function tsvField(value: unknown): string {
-  if (value === null || value === undefined) return "\\N";
-  if (value === true) return "1";
-  if (value === false) return "0";
-  const s = String(value);
-  return TSV_SPECIAL.test(s) ? s.replace(/[\\\t\n\r\0]/g, (c) => TSV_ESCAPES[c]!) : s;
+/**
+ * New homes as LOAD DATA rows, written straight into a buffer (no string is built per row): \N for NULL,
+ * flags as 1/0, and in free text the escape character, tabs and line breaks escaped.
+ */
+class TsvRows {
+  private buf = Buffer.allocUnsafe(TSV_CHUNK_BYTES + TSV_ROW_ROOM);
+  private at = 0;
+  rows = 0;
+
+  get full(): boolean {
+    return this.at >= TSV_CHUNK_BYTES;
+  }
+
+  /** One home as a row; call only while not `full` (the room for a row is then there). */
+  add(home: StockHome): void {
+    if (this.full) throw new Error("TsvRows.add on a full buffer: take() it first.");
+    const buf = this.buf;
+    let at = this.at;
+    for (let i = 0; i < COLUMNS.length; i++) {
+      if (i) buf[at++] = 0x09; // tab
+      const f = COLUMNS[i][0];
+      const value = f === "ventilation" ? (home.ventilation ?? "not-recorded") : home[f];
+      if (value === null || value === undefined) {
+        buf[at++] = 0x5c; // \
+        buf[at++] = 0x4e; // N
+      } else if (value === true) buf[at++] = 0x31;
+      else if (value === false) buf[at++] = 0x30;
+      else {
+        const text = typeof value === "string" ? value : String(value);
+        at += buf.write(
+          FREE_TEXT.has(f) && TSV_SPECIAL.test(text) ? text.replace(/[\\\t\n\r\0]/g, (c) => TSV_ESCAPES[c]!) : text,
+          at,
+        );
+      }
+    }
+    buf[at++] = 0x0a; // newline
+    this.at = at;
+    this.rows++;
+  }
+
+  /** The rows written so far; the next rows go to a new buffer. */
+  take(): Buffer {
+    const out = this.buf.subarray(0, this.at);
+    this.buf = Buffer.allocUnsafe(TSV_CHUNK_BYTES + TSV_ROW_ROOM);
+    this.at = 0;
+    this.rows = 0;
+    return out;
+  }
 }
 
 /** A normalised value as one field of the held homes' map. */
@@ -293,16 +342,32 @@ export class StockImportService {
         await runner.startTransaction();
         try {
           const counts = await this.importRows(raw, head, mapping, org, input);
-          const repo = runner.manager.getRepository(StockImport);
-          saved = await repo.save(
-            repo.create({
-              organisationId: org,
-              uploadedById: actor.id,
-              fileName: displayFileName(input.fileName),
-              ...counts,
-              createdAt: this.clock.now(),
-            }),
+          const record = runner.manager.getRepository(StockImport).create({
+            organisationId: org,
+            uploadedById: actor.id,
+            fileName: displayFileName(input.fileName),
+            ...counts,
+            createdAt: this.clock.now(),
+          });
+          // A prepared statement sends the report (megabytes at 100 000 rows) as it is, where the
+          // repository's save escaped it into the SQL text first.
+          const [inserted] = await db.execute<ResultSetHeader>(
+            "INSERT INTO stock_imports (organisation_id, uploaded_by_id, file_name, created, updated, unchanged, refused, report, created_at) " +
+              "VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)",
+            [
+              org,
+              actor.id,
+              record.fileName,
+              counts.created,
+              counts.updated,
+              counts.unchanged,
+              counts.refused,
+              counts.report,
+              record.createdAt,
+            ],
           );
+          record.id = inserted.insertId;
+          saved = record;
           await runner.commitTransaction();
         } catch (e) {
           await runner.rollbackTransaction();
@@ -358,7 +423,7 @@ export class StockImportService {
     input: StockImportInput,
   ): Promise<{ created: number; updated: number; unchanged: number; refused: number; report: string }> {
     const db = raw.promise();
-    const thisYear = this.clock.now().getUTCFullYear();
+    const convert = stockRowConverter(mapping, head.headers, this.clock.now().getUTCFullYear());
     const held = await this.heldHomes(raw, org);
     await input.afterSnapshot?.();
 
@@ -379,8 +444,7 @@ export class StockImportService {
     // LOAD_SEGMENT_ROWS homes, so none runs long enough for the database watch to call it stalled.
     const socket = (raw as unknown as { stream: Writable }).stream;
     let segment: LoadSegment | null = null;
-    let pending = "";
-    let pendingRows = 0;
+    const pending = new TsvRows();
     const finish = async (done: LoadSegment) => {
       const loaded = await done.finish();
       if (loaded.affectedRows !== done.sent || loaded.warningStatus !== 0) await this.loadFailed(db, done.sent, loaded);
@@ -388,9 +452,8 @@ export class StockImportService {
     const sentInSegment = () => segment?.sent ?? 0;
     const send = async () => {
       segment ??= new LoadSegment(db, org);
-      await segment.write(pending, pendingRows, socket);
-      pending = "";
-      pendingRows = 0;
+      const rowsSent = pending.rows;
+      await segment.write(pending.take(), rowsSent, socket);
       if (segment.sent >= this.loadSegmentRows) {
         const done = segment;
         segment = null;
@@ -404,7 +467,7 @@ export class StockImportService {
       for await (const chunk of tableRowChunks(input.filePath, head)) {
         for (const record of chunk) {
           rows++;
-          const row = convertStockRow(record.cells, mapping, head.headers, thisYear);
+          const row = convert(record.cells);
           if (!row.ok) {
             refuse(record.line, row.uprn, row.reasons);
           } else {
@@ -421,13 +484,7 @@ export class StockImportService {
                 if (lacking.length) {
                   refuse(record.line, home.uprn, [`A new home needs its ${lacking.join(", ")}: the risk engine reads them.`]);
                 } else {
-                  let l = "";
-                  for (let i = 0; i < COLUMNS.length; i++) {
-                    const f = COLUMNS[i][0];
-                    l += (i ? "\t" : "") + tsvField(f === "ventilation" ? (home.ventilation ?? "not-recorded") : home[f]);
-                  }
-                  pending += l + "\n";
-                  pendingRows++;
+                  pending.add(home);
                   counts.created++;
                   report.push(`${record.line},${home.uprn},created,,${notes}`);
                   for (const r of rooms) newRooms.push([home.uprn, r.name, r.kind]);
@@ -462,10 +519,10 @@ export class StockImportService {
             sinceBatch = 0;
             await input.onBatch?.(rows);
           }
-          if (pending.length >= TSV_CHUNK_CHARS || sentInSegment() + pendingRows >= this.loadSegmentRows) await send();
+          if (pending.full || sentInSegment() + pending.rows >= this.loadSegmentRows) await send();
         }
       }
-      if (pending) await send();
+      if (pending.rows) await send();
       if (segment) {
         const done = segment;
         segment = null;

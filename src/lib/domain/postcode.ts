@@ -20,5 +20,12 @@ export function normalisePostcode(value: string): string {
   return `${compact.slice(0, -3)} ${compact.slice(-3)}`;
 }
 
+/** The postcode normalised ("ab12cd" → "AB1 2CD"), or null when the text is not a UK postcode. */
+export function readPostcode(value: string): string | null {
+  const compact = value.replace(/\s+/g, "").toUpperCase();
+  if (!POSTCODE.test(compact)) return null;
+  return `${compact.slice(0, -3)} ${compact.slice(-3)}`;
+}
+
 /** A Unique Property Reference Number: up to 12 digits (OS AddressBase; from memory). */
 export const UPRN = /^\d{1,12}$/;

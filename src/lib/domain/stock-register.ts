@@ -3,7 +3,7 @@
 // (`wallElement`/`glazingElement` in home-elements.ts), a merged address split into its parts, and
 // each row's verdict with reasons a person can act on. Pure: the server streams the file through it.
 import type { GlazingKind, WallKind } from "./home-elements.js";
-import { isUkPostcode, normalisePostcode, UPRN } from "./postcode.js";
+import { isUkPostcode, normalisePostcode, readPostcode, UPRN } from "./postcode.js";
 
 export type BuiltFormKind = "detached" | "semi-detached" | "end-terrace" | "mid-terrace" | "flat" | "maisonette" | "bungalow";
 export type HeatingKind = "gas-boiler" | "electric-storage" | "electric-direct" | "heat-pump" | "district" | "other" | "none";
@@ -372,8 +372,8 @@ export function streetOf(line1: string): string {
 
 /**
  * A register repeats the same few words in every row ("Cavity – filled", "Gas combi boiler"): each
- * reading is worked out once per distinct text. The caches are bounded, so a file of all-different
- * values costs memory for no more than MEMO_LIMIT of them.
+ * reading is worked out once per distinct text (or pair of texts). The caches are bounded, so a file of
+ * all-different values costs memory for no more than MEMO_LIMIT of them.
  */
 const MEMO_LIMIT = 5_000;
 function memo<R>(fn: (key: string) => R): (key: string) => R {
@@ -387,7 +387,19 @@ function memo<R>(fn: (key: string) => R): (key: string) => R {
     return value;
   };
 }
-const SEP = "\u0000";
+/** memo() for a reading of two texts, without joining them into a key on every call. */
+function memo2<R>(fn: (a: string, b: string) => R): (a: string, b: string) => R {
+  const outer = new Map<string, (b: string) => R>();
+  return (a, b) => {
+    let inner = outer.get(a);
+    if (inner === undefined) {
+      if (outer.size >= MEMO_LIMIT) outer.clear();
+      inner = memo((bb) => fn(a, bb));
+      outer.set(a, inner);
+    }
+    return inner(b);
+  };
+}
 const cached = {
   builtForm: memo(builtFormFrom),
   glazing: memo(glazingFrom),
@@ -395,17 +407,9 @@ const cached = {
   roof: memo(roofInsulationMmFrom),
   presence: memo(presenceFrom),
   epc: memo(epcBandFrom),
-  wall: memo((k) => wallFrom(...(k.split(SEP) as [string, string]))),
-  wallInsulation: memo((k) => wallInsulationFrom(...(k.split(SEP) as [string, string]))),
-  heating: memo((k) => {
-    const [text, fuel] = k.split(SEP);
-    return heatingFrom(text, (fuel || null) as HeatingFuel | null);
-  }),
-  yearOrBand: memo((k) => {
-    const [text, year] = k.split(SEP);
-    return yearOrBandFrom(text, Number(year));
-  }),
-  floorArea: memo((k) => floorAreaFrom(...(k.split(SEP) as [string, string]))),
+  wall: memo2(wallFrom),
+  wallInsulation: memo2(wallInsulationFrom),
+  heating: memo2((text, fuel) => heatingFrom(text, (fuel || null) as HeatingFuel | null)),
 };
 
 /** A home as a register row describes it; null is "the register does not say" (an update keeps what we hold). */
@@ -442,10 +446,20 @@ export type ConvertedStockRow =
 
 const MAX = { addressLine1: 190, addressLine2: 190, town: 100, estate: 100, block: 100 } as const;
 
+/** The fields whose length the database limits, with the words a reason uses. */
+const LENGTHS = [
+  ["addressLine1", "first line of address"],
+  ["addressLine2", "second line"],
+  ["town", "town"],
+  ["estate", "estate"],
+  ["block", "block"],
+] as const;
+
 /**
  * One register row (cells as text) into a home or the reasons it cannot be one. Values the risk engine
  * needs and that we cannot read refuse the row (the admin fixes the file or the mapping); other details
- * we cannot read are left empty and noted.
+ * we cannot read are left empty and noted. For many rows of one file, stockRowConverter does the
+ * per-file work once.
  */
 export function convertStockRow(
   cells: readonly string[],
@@ -453,127 +467,172 @@ export function convertStockRow(
   headers: readonly string[],
   thisYear: number,
 ): ConvertedStockRow {
-  const cell = (f: StockField) => {
-    const i = mapping[f];
-    return i === undefined ? "" : (cells[i] ?? "").trim();
-  };
-  const reasons: string[] = [];
-  const notes: string[] = [];
-
-  let uprn = cell("uprn").replace(/\s+/g, "").replace(/\.0+$/, "");
-  if (!uprn) reasons.push("No UPRN: homes are matched by their UPRN.");
-  else if (!UPRN.test(uprn)) reasons.push(`UPRN "${cell("uprn")}" is not a number of up to 12 digits.`);
-  else uprn = uprn.replace(/^0+(?=\d)/, "");
-
-  let line1 = cell("addressLine1");
-  let line2: string | null = cell("addressLine2") || null;
-  let town = cell("town");
-  let postcodeText = cell("postcode");
-  if (mapping.addressLine1 === undefined && mapping.address !== undefined) {
-    const merged = cell("address");
-    const parts = merged ? splitAddress(merged) : null;
-    if (merged && !parts) reasons.push(`The address "${merged}" could not be split into a first line and a town.`);
-    if (parts) {
-      line1 = parts.addressLine1;
-      line2 = parts.addressLine2;
-      town = town || parts.town;
-      postcodeText = postcodeText || (parts.postcode ?? "");
-    }
-  }
-  if (!line1 && !reasons.some((r) => r.startsWith("The address"))) reasons.push("No first line of address.");
-  if (!town && line1) reasons.push("No town.");
-  let postcode = "";
-  if (!postcodeText) reasons.push("No postcode.");
-  else if (!isUkPostcode(postcodeText)) reasons.push(`Postcode "${postcodeText}" is not a UK postcode.`);
-  else postcode = normalisePostcode(postcodeText);
-
-  const block = cell("block") || null;
-  const estate = cell("estate") || (line1 ? streetOf(line1) : "");
-  const lengths = { addressLine1: line1, addressLine2: line2 ?? "", town, estate, block: block ?? "" };
-  for (const [field, value] of Object.entries(lengths) as [keyof typeof MAX, string][]) {
-    if (value.length > MAX[field]) reasons.push(`The ${labelOf(field)} is longer than ${MAX[field]} characters.`);
-  }
-
-  const engine = <T>(label: string, value: T | null, text: string): T | null => {
-    if (text && value === null) reasons.push(`${label} "${text}" is not one we recognise.`);
-    return value;
-  };
-  const builtForm = engine("Built form", cached.builtForm(cell("builtForm")), cell("builtForm"));
-  const wallText = cell("wallConstruction");
-  const wallType = wallText ? engine("Wall construction", cached.wall(wallText + SEP + cell("wallInsulation")), wallText) : null;
-  const glazingType = engine("Glazing", cached.glazing(cell("glazing")), cell("glazing"));
-  const fuelText = cell("heatingFuel");
-  let heatingFuel = fuelText ? cached.fuel(fuelText) : null;
-  if (fuelText && heatingFuel === null) notes.push(`Heating fuel "${fuelText}" not recognised: left empty.`);
-  const heatingType = engine("Heating", cached.heating(cell("heating") + SEP + (heatingFuel ?? "")), cell("heating"));
-  if (heatingFuel === null && !fuelText && cell("heating")) heatingFuel = cached.fuel(cell("heating"));
-
-  const optional = <T>(field: StockField, label: string, read: (t: string) => T | null): T | null => {
-    const text = cell(field);
-    if (!text) return null;
-    const value = read(text);
-    if (value === null) notes.push(`${label} "${text}" not recognised: left empty.`);
-    return value;
-  };
-  const yearOrBand = optional("yearBuilt", "Year built", (t) => cached.yearOrBand(t + SEP + thisYear));
-  const wallInsulation = cell("wallInsulation")
-    ? optional("wallInsulation", "Wall insulation", (t) => cached.wallInsulation(wallText + SEP + t))
-    : wallType === "filled-cavity"
-      ? "cavity-fill"
-      : wallType === "unfilled-cavity" && /fill|insulat/.test(lower(wallText))
-        ? "none"
-        : null;
-  const roofInsulationMm = optional("roofInsulation", "Roof insulation", cached.roof);
-  const hasExtractFans = optional("extractFans", "Extract fans", cached.presence);
-  const hasTrickleVents = optional("trickleVents", "Trickle vents", cached.presence);
-  const ventText = cell("ventilation");
-  let ventilation = ventilationFrom(ventText, hasExtractFans, hasTrickleVents);
-  if (ventText && ventilation === null) {
-    notes.push(`Ventilation "${ventText}" not recognised: left as it was.`);
-    ventilation = null;
-  }
-  const floorAreaM2 = optional("floorArea", "Floor area", (t) =>
-    cached.floorArea(t + SEP + (mapping.floorArea === undefined ? "" : (headers[mapping.floorArea] ?? ""))),
-  );
-  const epcBand = optional("epcBand", "EPC band", cached.epc);
-  const roomsText = cell("rooms");
-  const rooms = roomsText ? roomsFrom(roomsText) : [];
-
-  if (reasons.length > 0) return { ok: false, uprn: cell("uprn"), reasons };
-  return {
-    ok: true,
-    home: {
-      uprn,
-      addressLine1: line1,
-      addressLine2: line2,
-      town,
-      postcode,
-      estate,
-      block,
-      builtForm,
-      wallType,
-      glazingType,
-      heatingType,
-      ventilation,
-      builtYear: yearOrBand?.year ?? null,
-      ageBand: yearOrBand?.band ?? null,
-      wallInsulation,
-      roofInsulationMm,
-      heatingFuel,
-      hasExtractFans,
-      hasTrickleVents,
-      floorAreaM2,
-      epcBand,
-    },
-    rooms,
-    notes,
-  };
+  return stockRowConverter(mapping, headers, thisYear)(cells);
 }
 
-function labelOf(field: keyof typeof MAX): string {
-  return { addressLine1: "first line of address", addressLine2: "second line", town: "town", estate: "estate", block: "block" }[
-    field
-  ];
+/** convertStockRow for the rows of one file: the mapping, the floor area's unit and this year are read once. */
+export function stockRowConverter(
+  mapping: StockMapping,
+  headers: readonly string[],
+  thisYear: number,
+): (cells: readonly string[]) => ConvertedStockRow {
+  const col = (f: StockField) => mapping[f] ?? -1;
+  const c = {
+    uprn: col("uprn"),
+    address: mapping.addressLine1 === undefined ? col("address") : -1,
+    addressLine1: col("addressLine1"),
+    addressLine2: col("addressLine2"),
+    town: col("town"),
+    postcode: col("postcode"),
+    estate: col("estate"),
+    block: col("block"),
+    builtForm: col("builtForm"),
+    yearBuilt: col("yearBuilt"),
+    wallConstruction: col("wallConstruction"),
+    wallInsulation: col("wallInsulation"),
+    glazing: col("glazing"),
+    roofInsulation: col("roofInsulation"),
+    heating: col("heating"),
+    heatingFuel: col("heatingFuel"),
+    extractFans: col("extractFans"),
+    trickleVents: col("trickleVents"),
+    ventilation: col("ventilation"),
+    floorArea: col("floorArea"),
+    epcBand: col("epcBand"),
+    rooms: col("rooms"),
+  };
+  const floorHeader = mapping.floorArea === undefined ? "" : (headers[mapping.floorArea] ?? "");
+  const yearOrBand = memo((t) => yearOrBandFrom(t, thisYear));
+  const floorArea = memo((t) => floorAreaFrom(t, floorHeader));
+
+  return (cells) => {
+    const cell = (i: number) => (i < 0 ? "" : (cells[i] ?? "").trim());
+    let reasons: string[] | null = null;
+    const refuse = (reason: string) => (reasons ??= []).push(reason);
+    const notes: string[] = [];
+
+    const uprnText = cell(c.uprn);
+    let uprn = UPRN.test(uprnText) ? uprnText : uprnText.replace(/\s+/g, "").replace(/\.0+$/, "");
+    if (!uprn) refuse("No UPRN: homes are matched by their UPRN.");
+    else if (!UPRN.test(uprn)) refuse(`UPRN "${uprnText}" is not a number of up to 12 digits.`);
+    else if (uprn.charCodeAt(0) === 48 /* 0 */) uprn = uprn.replace(/^0+(?=\d)/, "");
+
+    let line1 = cell(c.addressLine1);
+    let line2: string | null = cell(c.addressLine2) || null;
+    let town = cell(c.town);
+    let postcodeText = cell(c.postcode);
+    let addressUnsplit = false;
+    if (c.address >= 0) {
+      const merged = cell(c.address);
+      const parts = merged ? splitAddress(merged) : null;
+      if (merged && !parts) {
+        refuse(`The address "${merged}" could not be split into a first line and a town.`);
+        addressUnsplit = true;
+      }
+      if (parts) {
+        line1 = parts.addressLine1;
+        line2 = parts.addressLine2;
+        town = town || parts.town;
+        postcodeText = postcodeText || (parts.postcode ?? "");
+      }
+    }
+    if (!line1 && !addressUnsplit) refuse("No first line of address.");
+    if (!town && line1) refuse("No town.");
+    let postcode = "";
+    if (!postcodeText) refuse("No postcode.");
+    else {
+      const read = readPostcode(postcodeText);
+      if (read === null) refuse(`Postcode "${postcodeText}" is not a UK postcode.`);
+      else postcode = read;
+    }
+
+    const block = cell(c.block) || null;
+    const estate = cell(c.estate) || (line1 ? streetOf(line1) : "");
+    const values = { addressLine1: line1, addressLine2: line2 ?? "", town, estate, block: block ?? "" };
+    for (const [field, label] of LENGTHS) {
+      if (values[field].length > MAX[field]) refuse(`The ${label} is longer than ${MAX[field]} characters.`);
+    }
+
+    const builtFormText = cell(c.builtForm);
+    const builtForm = builtFormText ? cached.builtForm(builtFormText) : null;
+    if (builtFormText && builtForm === null) refuse(`Built form "${builtFormText}" is not one we recognise.`);
+    const wallText = cell(c.wallConstruction);
+    const wallInsulationText = cell(c.wallInsulation);
+    const wallType = wallText ? cached.wall(wallText, wallInsulationText) : null;
+    if (wallText && wallType === null) refuse(`Wall construction "${wallText}" is not one we recognise.`);
+    const glazingText = cell(c.glazing);
+    const glazingType = glazingText ? cached.glazing(glazingText) : null;
+    if (glazingText && glazingType === null) refuse(`Glazing "${glazingText}" is not one we recognise.`);
+    const fuelText = cell(c.heatingFuel);
+    let heatingFuel = fuelText ? cached.fuel(fuelText) : null;
+    if (fuelText && heatingFuel === null) notes.push(`Heating fuel "${fuelText}" not recognised: left empty.`);
+    const heatingText = cell(c.heating);
+    const heatingType = heatingText ? cached.heating(heatingText, heatingFuel ?? "") : null;
+    if (heatingText && heatingType === null) refuse(`Heating "${heatingText}" is not one we recognise.`);
+    if (heatingFuel === null && !fuelText && heatingText) heatingFuel = cached.fuel(heatingText);
+
+    const optional = <T>(text: string, label: string, value: T | null): T | null => {
+      if (text && value === null) notes.push(`${label} "${text}" not recognised: left empty.`);
+      return value;
+    };
+    const yearText = cell(c.yearBuilt);
+    const built = optional(yearText, "Year built", yearText ? yearOrBand(yearText) : null);
+    const wallInsulation = wallInsulationText
+      ? optional(wallInsulationText, "Wall insulation", cached.wallInsulation(wallText, wallInsulationText))
+      : wallType === "filled-cavity"
+        ? "cavity-fill"
+        : wallType === "unfilled-cavity" && /fill|insulat/.test(lower(wallText))
+          ? "none"
+          : null;
+    const roofText = cell(c.roofInsulation);
+    const roofInsulationMm = optional(roofText, "Roof insulation", roofText ? cached.roof(roofText) : null);
+    const fansText = cell(c.extractFans);
+    const hasExtractFans = optional(fansText, "Extract fans", fansText ? cached.presence(fansText) : null);
+    const trickleText = cell(c.trickleVents);
+    const hasTrickleVents = optional(trickleText, "Trickle vents", trickleText ? cached.presence(trickleText) : null);
+    const ventText = cell(c.ventilation);
+    let ventilation = ventilationFrom(ventText, hasExtractFans, hasTrickleVents);
+    if (ventText && ventilation === null) {
+      notes.push(`Ventilation "${ventText}" not recognised: left as it was.`);
+      ventilation = null;
+    }
+    const areaText = cell(c.floorArea);
+    const floorAreaM2 = optional(areaText, "Floor area", areaText ? floorArea(areaText) : null);
+    const epcText = cell(c.epcBand);
+    const epcBand = optional(epcText, "EPC band", epcText ? cached.epc(epcText) : null);
+    const roomsText = cell(c.rooms);
+    const rooms = roomsText ? roomsFrom(roomsText) : [];
+
+    if (reasons !== null) return { ok: false, uprn: uprnText, reasons };
+    return {
+      ok: true,
+      home: {
+        uprn,
+        addressLine1: line1,
+        addressLine2: line2,
+        town,
+        postcode,
+        estate,
+        block,
+        builtForm,
+        wallType,
+        glazingType,
+        heatingType,
+        ventilation,
+        builtYear: built?.year ?? null,
+        ageBand: built?.band ?? null,
+        wallInsulation,
+        roofInsulationMm,
+        heatingFuel,
+        hasExtractFans,
+        hasTrickleVents,
+        floorAreaM2,
+        epcBand,
+      },
+      rooms,
+      notes,
+    };
+  };
 }
 
 /** What a new home still lacks for the risk engine, in words ("built form", "walls"…). */
