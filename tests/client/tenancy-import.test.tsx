@@ -58,7 +58,8 @@ const result = {
   created: 1,
   rejected: 1,
   invitations: { ...summary.invitations, batchId: 4, total: 1, sent: 0, pending: 1 },
-  report: [
+  notableTotal: 2,
+  notable: [
     {
       row: 2,
       reference: "T-1",

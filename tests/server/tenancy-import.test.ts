@@ -86,7 +86,7 @@ describe("importing a tenancy file", () => {
   it("reports each row's outcome exactly, and stores only what the rules allow", async () => {
     const res = await upload(admin, "/api/tenancy-imports", messyFile(), "tenancies.csv").expect(201);
     firstImportId = res.body.id;
-    expect(brief(res.body.report)).toEqual([
+    expect(brief(res.body.notable)).toEqual([
       [2, "T-1", "created", ""],
       [3, "T-2", "created", ""],
       [4, "T-3", "rejected", ""],
@@ -100,7 +100,7 @@ describe("importing a tenancy file", () => {
       [13, "T-10", "created", ""],
       [14, '=HYPERLINK("x")', "rejected", ""],
     ]);
-    const reasons = Object.fromEntries((res.body.report as Row[]).map((r) => [r.row, r.reasons]));
+    const reasons = Object.fromEntries((res.body.notable as Row[]).map((r) => [r.row, r.reasons]));
     expect(reasons[2]).toEqual([QUEUED]);
     expect(reasons[3]).toEqual([
       "Access needs and household vulnerability not stored: the file does not record the household's consent.",
@@ -166,8 +166,13 @@ describe("importing a tenancy file", () => {
       messyFile({ t1End: "2026-12-31", t1Name: "Ada Mould-Jones" }),
       "tenancies.csv",
     ).expect(201);
-    const t1 = (res.body.report as Row[]).find((r) => r.row === 2)!;
+    const t1 = (res.body.notable as Row[]).find((r) => r.row === 2)!;
     expect(t1).toMatchObject({ outcome: "updated", changes: ["name", "end date"] });
+    // The answer holds the rows worth a look, not every row: unchanged rows without a note are only in the CSV.
+    const notable = res.body.notable as Row[];
+    expect(notable.every((r) => r.outcome !== "unchanged" || r.reasons.length > 0)).toBe(true);
+    expect(res.body.notableTotal).toBe(notable.length);
+    expect(notable.length).toBeLessThan(res.body.rows);
     expect(res.body).toMatchObject({ created: 0, updated: 1, unchanged: 4 });
     const ds = t.ctx.dataSource;
     expect((await ds.getRepository(Tenancy).findOneByOrFail({ organisationId: ours.org.id, reference: "T-1" })).endDate).toBe(
@@ -183,17 +188,27 @@ describe("importing a tenancy file", () => {
       `n-1;${uprn(3)};Ned New;${mail("ned")};;2024-06-01;;;;;`,
     ];
     const res = await upload(admin, "/api/tenancy-imports", Buffer.from(lines.join("\n")), "tenancies.csv").expect(201);
-    expect(brief(res.body.report)).toEqual([
+    expect(brief(res.body.notable)).toEqual([
       [2, "t-2", "unchanged", ""],
       [3, "N-1", "created", ""],
       [4, "n-1", "rejected", ""],
     ]);
-    expect((res.body.report as Row[])[2]!.reasons).toEqual([
+    expect((res.body.notable as Row[])[2]!.reasons).toEqual([
       "The tenancy reference n-1 is also on row 3; only that row was used.",
     ]);
     const ds = t.ctx.dataSource;
     expect(await ds.getRepository(Tenancy).countBy({ organisationId: ours.org.id, reference: "T-2" })).toBe(1);
     expect(await ds.getRepository(User).countBy({ email: mail("ned") })).toBe(0);
+  });
+
+  it("answers with the first 200 rows worth a look and how many there are; the CSV has every row", async () => {
+    const lines = ["Tenancy Ref;Property UPRN;Tenant Name;E-mail Address;Tenancy Start"];
+    for (let i = 1; i <= 250; i++) lines.push(`R-${i};not-a-uprn;Ann ${i};ann${i}@example.org;2024-01-01`);
+    const res = await upload(admin, "/api/tenancy-imports", Buffer.from(lines.join("\n")), "many.csv").expect(201);
+    expect(res.body).toMatchObject({ rows: 250, rejected: 250, notableTotal: 250 });
+    expect((res.body.notable as Row[]).map((r) => r.row)).toEqual(Array.from({ length: 200 }, (_, i) => i + 2));
+    const csv = await admin.get(`/api/tenancy-imports/${res.body.id}/report.csv`).expect(200);
+    expect(csv.text.trim().split("\n")).toHaveLength(251);
   });
 
   it("offers the report as CSV with formula-like cells neutralised (read back with csv-parse)", async () => {
@@ -220,7 +235,7 @@ describe("importing a tenancy file", () => {
     ]);
     const file = Buffer.from(await wb.xlsx.writeBuffer());
     const res = await upload(admin, "/api/tenancy-imports", file, "tenancies.xlsx").expect(201);
-    expect(brief(res.body.report)).toEqual([[2, "X-1", "created", ""]]);
+    expect(brief(res.body.notable)).toEqual([[2, "X-1", "created", ""]]);
     const lou = await t.ctx.dataSource.getRepository(User).findOneByOrFail({ email: mail("lou") });
     expect(lou.name).toBe("Lou Sheet");
     const tenancy = await t.ctx.dataSource.getRepository(Tenancy).findOneByOrFail({ tenantUserId: lou.id });

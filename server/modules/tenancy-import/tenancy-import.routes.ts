@@ -4,6 +4,8 @@ import { Router, type RequestHandler } from "express";
 import multer from "multer";
 import { stringify } from "csv-stringify/sync";
 import {
+  TENANCY_IMPORT_MAX_MB,
+  TENANCY_IMPORT_NOTABLE_ROWS,
   tenancyImportListResponse,
   tenancyImportPreviewResponse,
   tenancyImportResultResponse,
@@ -15,10 +17,10 @@ import { actorOf, requireRole } from "../../middleware/auth.js";
 import type { InvitationBatchService } from "../auth/invitation-batch.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import { tenancyImportFieldsSchema } from "./tenancy-import.schemas.js";
-import type { TenancyImportService } from "./tenancy-import.service.js";
+import { notableRows, type TenancyImportService } from "./tenancy-import.service.js";
 
 /** A tenancy file of 50 000 rows is a few MB; an .xlsx with styling more. */
-const MAX_FILE_BYTES = 50 * 1024 * 1024;
+const MAX_FILE_BYTES = TENANCY_IMPORT_MAX_MB * 1024 * 1024;
 
 /** A cell a spreadsheet would run as a formula (=, +, -, @, or a tab/CR before one) is written as text. */
 const safeCell = (v: string) => (/^[=+\-@\t\r]/.test(v) ? `'${v}` : v);
@@ -62,8 +64,19 @@ export function createTenancyImportRouter({ imports, batches, incomingDir }: Dep
     try {
       if (!file) throw noFile();
       const { mapping } = parse(tenancyImportFieldsSchema, req.body);
-      const result = await imports.import(actorOf(req), { path: file.path, fileName: file.originalname, mapping });
-      res.status(201).json(shaped(tenancyImportResultResponse, result));
+      const { report, ...summary } = await imports.import(actorOf(req), {
+        path: file.path,
+        fileName: file.originalname,
+        mapping,
+      });
+      const notable = notableRows(report);
+      res.status(201).json(
+        shaped(tenancyImportResultResponse, {
+          ...summary,
+          notable: notable.slice(0, TENANCY_IMPORT_NOTABLE_ROWS),
+          notableTotal: notable.length,
+        }),
+      );
     } finally {
       if (file) await rm(file.path, { force: true });
     }

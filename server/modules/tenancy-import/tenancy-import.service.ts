@@ -11,6 +11,7 @@ import type {
 import type { Actor } from "../../lib/actor.js";
 import type { Clock } from "../../lib/clock.js";
 import { NotFoundError, ValidationError } from "../../lib/errors.js";
+import { TENANCY_IMPORT_MAX_ROWS } from "../../../src/lib/contracts/tenancy-import.js";
 import { readTableHead, tableRowChunks } from "../../lib/table-file.js";
 import type { BatchProgress, InvitationBatchService } from "../auth/invitation-batch.service.js";
 import type { PropertyService } from "../properties/property.service.js";
@@ -24,7 +25,7 @@ import { referenceKey } from "../../../src/lib/domain/tenancy-reference.js";
  * The most rows one file may hold: every row's outcome is kept for the report (and returned with the
  * import), so a larger file is split. 100 000 tenancies import in about 30 s (npm run bench:tenancy).
  */
-export const MAX_TENANCY_ROWS = 150_000;
+export const MAX_TENANCY_ROWS = TENANCY_IMPORT_MAX_ROWS;
 
 /** Valid rows decided and stored together: one set of reads and one set of writes for each batch. */
 export const BATCH_ROWS = 5_000;
@@ -43,6 +44,11 @@ const unique = <T>(xs: readonly T[]) => [...new Set(xs)];
 
 export const INVITATION_QUEUED = "Invitation queued: it goes out with the next batches.";
 const ENDED = "The tenancy has ended: no invitation.";
+
+/** The rows worth a look: added, updated, not imported, or unchanged with a note. */
+export function notableRows(report: readonly TenancyRowReport[]): TenancyRowReport[] {
+  return report.filter((r) => r.outcome !== "unchanged" || r.reasons.length > 0);
+}
 
 /** Every column of an import but its report (which may be megabytes). */
 const SUMMARY_COLUMNS = {

@@ -83,8 +83,22 @@ export const tenancyImportSummary = z.object({
 });
 export type TenancyImportSummary = z.infer<typeof tenancyImportSummary>;
 
-/** POST /api/tenancy-imports: the import, with every row's outcome. */
-export const tenancyImportResultResponse = tenancyImportSummary.extend({ report: z.array(tenancyRowReport) });
+/** The most rows one tenancy file may hold, and its largest size: shown beside the upload, enforced by the server. */
+export const TENANCY_IMPORT_MAX_ROWS = 150_000;
+export const TENANCY_IMPORT_MAX_MB = 50;
+
+/** The most rows worth a look that POST /api/tenancy-imports answers with; the CSV report has every row. */
+export const TENANCY_IMPORT_NOTABLE_ROWS = 200;
+
+/**
+ * POST /api/tenancy-imports: the import, and its rows worth a look (added, updated, not imported, or with a
+ * note), the first TENANCY_IMPORT_NOTABLE_ROWS of them in row order, with how many there are in all. The
+ * report of every row (up to 150 000) is the CSV download, not this answer.
+ */
+export const tenancyImportResultResponse = tenancyImportSummary.extend({
+  notable: z.array(tenancyRowReport),
+  notableTotal: z.number().int().min(0),
+});
 export type TenancyImportResult = z.infer<typeof tenancyImportResultResponse>;
 
 /** GET /api/tenancy-imports: the landlord's latest imports. */

@@ -5,7 +5,7 @@ const OUTCOME_LABELS = { created: "Added", updated: "Updated", unchanged: "No ch
 
 /** The counts, a link to the full report, and the rows worth a look (rejected, changed or with a note). */
 export function ImportResult({ result }: { result: TenancyImportResult }) {
-  const worthALook = result.report.filter((r) => r.outcome !== "unchanged" || r.reasons.length > 0).slice(0, 200);
+  const worthALook = result.notable;
   return (
     <div className="space-y-3">
       <Alert tone={result.rejected ? "warning" : "success"} title="Import finished">
@@ -51,6 +51,11 @@ export function ImportResult({ result }: { result: TenancyImportResult }) {
               ))}
             </tbody>
           </table>
+          {result.notableTotal > worthALook.length ? (
+            <p className="mt-2 text-sm text-ink-muted">
+              The first {worthALook.length} of {result.notableTotal} rows worth a look are shown: the report (CSV) has every row.
+            </p>
+          ) : null}
         </div>
       ) : null}
     </div>

@@ -3,7 +3,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/dialog";
 import { errorMessage } from "@/lib/api-client";
-import type { TenancyMapping } from "@/lib/contracts";
+import { TENANCY_IMPORT_MAX_MB, TENANCY_IMPORT_MAX_ROWS, type TenancyMapping } from "@/lib/contracts";
 import { useImportTenancies } from "../api/import-tenancies";
 import { usePreviewTenancyImport } from "../api/preview-tenancy-import";
 import { ColumnMapping } from "./column-mapping";
@@ -38,7 +38,8 @@ export function TenancyImportForm() {
         </label>
         <p id="tenancy-file-hint" className="mb-2 text-sm text-ink-muted">
           One row per tenancy: its reference, the home&rsquo;s UPRN, the tenant&rsquo;s name and e-mail address, and the start
-          date. Access needs and household vulnerability are kept only where a consent column says yes.
+          date. Access needs and household vulnerability are kept only where a consent column says yes. At most{" "}
+          {TENANCY_IMPORT_MAX_ROWS.toLocaleString("en-GB")} rows and {TENANCY_IMPORT_MAX_MB} MB per file: split a larger list.
         </p>
         <input
           id="tenancy-file"
