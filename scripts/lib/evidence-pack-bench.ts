@@ -4,6 +4,7 @@
 // and reports the time, the PDF's size and pages, and that process's peak RSS (before the packs and
 // after), so the figure is the pack's and not the seeding's or the caller's. Called by bench:insight.
 import { spawn } from "node:child_process";
+import { createWriteStream } from "node:fs";
 import { writeFile, mkdir } from "node:fs/promises";
 import path from "node:path";
 import { performance } from "node:perf_hooks";
@@ -204,10 +205,20 @@ async function child(job: ChildJob) {
     let pages = 0;
     for (let i = 0; i < job.runs; i++) {
       bytes = 0;
+      // EVIDENCE_PACK_BENCH_SAVE=<file> keeps the last pack, to look at.
+      const keep =
+        i === job.runs - 1 && process.env.EVIDENCE_PACK_BENCH_SAVE
+          ? createWriteStream(process.env.EVIDENCE_PACK_BENCH_SAVE)
+          : null;
       const sink = new Writable({
         write(chunk: Buffer, _enc, done) {
           bytes += chunk.length;
-          done();
+          if (keep) keep.write(chunk, done);
+          else done();
+        },
+        final(done) {
+          if (keep) keep.end(done);
+          else done();
         },
       });
       const finished = new Promise<void>((resolve, reject) => sink.on("finish", resolve).on("error", reject));

@@ -250,6 +250,12 @@ describe("a case's evidence pack", () => {
     await run("mkdir", ["-p", images]);
     const list = (await run("pdfimages", ["-list", file])).stdout.trim().split("\n").slice(2);
     expect(list).toHaveLength(PHOTOS);
+    // Each photo whole: as many pixels per inch across as down (no crop, no stretch), one per photo page.
+    for (const [i, line] of list.entries()) {
+      const cols = line.trim().split(/\s+/);
+      expect(Number(cols[0]), "page").toBe(2 + i);
+      expect(cols[12]).toBe(cols[13]);
+    }
     await run("pdfimages", ["-all", file, path.join(images, "img")]);
     const extracted = (await readdir(images)).sort();
     expect(extracted).toHaveLength(PHOTOS);
@@ -287,8 +293,9 @@ describe("who may have it", () => {
 });
 
 /**
- * 1 (cover, home, report) + 3 (a photo each) + 4 from the readings chart to "About this pack" (this
- * case's evaluation, two assessment versions, the long internal note, six e-mails, the works and a
- * timeline of some thirty entries). Counted from this case's layout: a change that moves it shows here.
+ * 1 (cover, home, report) + 3 (a photo each) + 5 from the readings chart to "About this pack": the
+ * chart and this case's evaluation with its sources; the assessments to the first e-mails; the other
+ * e-mails to the verification; complaints, the timeline (some thirty entries) and most of "About this
+ * pack"; its last lines. Counted from this case's layout: a change that moves it shows here.
  */
-const PAGES_EXPECTED = 1 + PHOTOS + 4;
+const PAGES_EXPECTED = 1 + PHOTOS + 5;

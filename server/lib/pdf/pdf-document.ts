@@ -164,18 +164,25 @@ export class PdfWriter {
     const doc = this.doc;
     const widths = columns.map((c) => c.width * this.contentWidth);
     const pad = 2;
-    const heightOf = (cells: readonly string[], font: string) => {
-      doc.font(font).fontSize(9);
-      return Math.max(...cells.map((cell, i) => doc.heightOfString(cell || " ", { width: widths[i]! - 2 * pad }))) + 2 * pad;
-    };
-    const drawRow = (cells: readonly string[], font: string, shade: boolean) => {
-      const h = heightOf(cells, font);
+    // Each cell's face: the header row bold; in a label–value table, the first column bold too.
+    const labelFirst = opts.headerRow === false;
+    const fontOf = (header: boolean, i: number) => (header || (labelFirst && i === 0) ? "Bold" : "Body");
+    const heightOf = (cells: readonly string[], header: boolean) =>
+      Math.max(
+        ...cells.map((cell, i) => {
+          doc.font(fontOf(header, i)).fontSize(9);
+          return doc.heightOfString(cell || " ", { width: widths[i]! - 2 * pad });
+        }),
+      ) +
+      2 * pad;
+    const drawRow = (cells: readonly string[], header: boolean) => {
+      const h = heightOf(cells, header);
       const top = doc.y;
-      if (shade) doc.rect(MARGIN.left, top, this.contentWidth, h).fillColor("#f0f4f8").fill();
+      if (header) doc.rect(MARGIN.left, top, this.contentWidth, h).fillColor("#f0f4f8").fill();
       let x = MARGIN.left;
       cells.forEach((cell, i) => {
         doc
-          .font(font)
+          .font(fontOf(header, i))
           .fontSize(9)
           .fillColor(INK)
           .text(cell, x + pad, top + pad, { width: widths[i]! - 2 * pad });
@@ -190,32 +197,30 @@ export class PdfWriter {
       doc.x = MARGIN.left;
       doc.y = top + h;
     };
-    const header = opts.headerRow === false ? null : columns.map((c) => c.header);
-    const labelFirst = opts.headerRow === false;
+    const header = labelFirst ? null : columns.map((c) => c.header);
     if (header) {
-      this.keepTogether(heightOf(header, "Bold") + (rows[0] ? heightOf(rows[0], "Body") : 0));
-      drawRow(header, "Bold", true);
+      this.keepTogether(heightOf(header, true) + (rows[0] ? heightOf(rows[0], false) : 0));
+      drawRow(header, true);
     }
     for (const row of rows) {
-      const h = heightOf(row, "Body");
+      const h = heightOf(row, false);
+      if (h > this.bottom - MARGIN.top - 40) {
+        // Longer than a page: each cell as wrapped text that flows on to the next pages.
+        row.forEach((cell, i) => {
+          doc
+            .font(fontOf(false, i))
+            .fontSize(9)
+            .fillColor(INK)
+            .text(cell, MARGIN.left + pad, doc.y + pad, { width: this.contentWidth - 2 * pad });
+        });
+        doc.x = MARGIN.left;
+        continue;
+      }
       if (h > this.roomLeft) {
         doc.addPage();
-        if (header) drawRow(header, "Bold", true);
+        if (header) drawRow(header, true);
       }
-      if (labelFirst) {
-        // A label column in bold, the value in the body face.
-        const top = doc.y;
-        drawRow(["", row[1] ?? ""], "Body", false);
-        const end = doc.y;
-        doc
-          .font("Bold")
-          .fontSize(9)
-          .text(row[0] ?? "", MARGIN.left + pad, top + pad, { width: widths[0]! - 2 * pad });
-        doc.x = MARGIN.left;
-        doc.y = end;
-      } else {
-        drawRow(row, "Body", false);
-      }
+      drawRow(row, false);
     }
     doc.font("Body").fontSize(10).moveDown(0.6);
   }
