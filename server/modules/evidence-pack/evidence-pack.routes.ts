@@ -3,7 +3,7 @@ import { EVIDENCE_PACK_MEDIA_TYPE } from "../../../src/lib/contracts/evidence-pa
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole } from "../../middleware/auth.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
-import type { EvidencePackService } from "./evidence-pack.service.js";
+import { ReaderGoneError, type EvidencePackService } from "./evidence-pack.service.js";
 
 /** Mounted at /api/cases: `GET /:id/evidence-pack`, the case's evidence pack as a PDF (officers, leads, admins). */
 export function createEvidencePackRouter({ packs }: { packs: EvidencePackService }): Router {
@@ -20,7 +20,8 @@ export function createEvidencePackRouter({ packs }: { packs: EvidencePackService
       await pack.write(res);
     } catch (err) {
       // Part of the file may have gone: end the connection so the download is seen to be incomplete.
-      req.log?.error({ err, caseId: id }, "the evidence pack failed while it was being written");
+      if (!(err instanceof ReaderGoneError))
+        req.log?.error({ err, caseId: id }, "the evidence pack failed while it was being written");
       res.destroy(err instanceof Error ? err : new Error(String(err)));
     }
   });

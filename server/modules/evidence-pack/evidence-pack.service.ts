@@ -335,6 +335,7 @@ export class EvidencePackService {
           throw new ConflictError("A photo changed while the evidence pack was being made. Please try again.");
         }
         await drained(pdf.stream, out);
+        if (out.destroyed) throw new ReaderGoneError();
         return data;
       };
       await renderEvidencePack(pdf, gathered.facts, { sha256, madeAt, madeBy: author, photoBytes });
@@ -344,6 +345,8 @@ export class EvidencePackService {
         "The facts this pack states, as hashed: its SHA-256 is the hash printed on every page.",
         "application/json",
       );
+      // A download given up on is not recorded as a pack made.
+      if (out.destroyed) throw new ReaderGoneError();
       const made = { sha256, pages: pdf.pageCount, fileName };
       await inTransaction(this.dataSource, (m) =>
         this.deps.cases.recordEvent(m, { caseId, actorId: actor.id, type: "evidence-pack-made", after: made }),
@@ -353,6 +356,13 @@ export class EvidencePackService {
       return made;
     };
     return { fileName, sha256, write };
+  }
+}
+
+/** The response closed before the pack was finished: stop making it. */
+export class ReaderGoneError extends Error {
+  constructor() {
+    super("The reader of the evidence pack went away before it was finished.");
   }
 }
 
