@@ -20,4 +20,5 @@ export * from "./mail.js";
 export * from "./integrations.js";
 export * from "./webhooks.js";
 export * from "./endpoints.js";
+export * from "./evidence-pack.js";
 export * from "./tenancy-import.js";
