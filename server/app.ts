@@ -33,6 +33,7 @@ import { createTenancyImportRouter } from "./modules/tenancy-import/tenancy-impo
 import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
 import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
+import { createCaseComplaintsRouter, createComplaintsRouter } from "./modules/complaints/complaints.routes.js";
 import { createOutboxRouter } from "./modules/mail/mail.routes.js";
 import { createIntegrationApiRouter } from "./modules/integrations/integration-api.routes.js";
 import { createAdminActionsRouter, createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
@@ -162,6 +163,8 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy, clock }),
   );
   api.use("/cases", createConversationRouter({ conversation: services.conversation }));
+  api.use("/cases", createCaseComplaintsRouter({ complaints: services.complaints }));
+  api.use("/complaints", createComplaintsRouter({ complaints: services.complaints }));
   api.use(
     "/cases",
     requireAuth,

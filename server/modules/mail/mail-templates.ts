@@ -201,6 +201,10 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
+  /** A complaint letter, its subject and body already filled in from the landlord's wording (complaints module). */
+  complaintLetter(d: { name: string; subject: string; body: string }): RenderedMail {
+    return { subject: d.subject, text: [`Hello ${d.name},`, "", withoutGreeting(d.body)].join("\n") };
+  },
   caseMessage(d: { name: string; reference: string; senderName: string; body: string; link: string }): RenderedMail {
     return {
       subject: `A message about your report ${d.reference}`,
