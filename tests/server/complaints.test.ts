@@ -6,6 +6,7 @@
 // of the London day).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Clock } from "../../server/lib/clock.js";
+import { complaintListResponse, complaintPolicyResponse } from "../../src/lib/contracts/complaints.js";
 import { makeLandlord, makeProperty, makeTenant, PASSWORD } from "../support/factories.js";
 import { outboxRows } from "../support/outbox.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
@@ -239,6 +240,23 @@ describe("a complaint through both stages", () => {
     expect(figures.compensation).toEqual({ offeredCount: 1, offeredPence: 15_050, acceptedCount: 0, paidCount: 0, paidPence: 0 });
     const history = await t.ctx.services.complaints.historyOfCase(caseId);
     expect(history.map((h) => h.complaint.status)).toEqual(["stage-1-received", "closed"]);
+  });
+});
+
+describe("the replies", () => {
+  it("fit the API contract exactly, for staff and for the tenant", async () => {
+    for (const client of [officer, tenant]) {
+      const body = (await client.get(`/api/cases/${caseId}/complaints`).expect(200)).body;
+      expect(complaintListResponse.parse(body)).toEqual(body);
+    }
+    const policy = (await officer.get("/api/policy/complaints").expect(200)).body;
+    expect(complaintPolicyResponse.parse(policy)).toEqual(policy);
+    expect(policy.letters.map((l: { kind: string }) => l.kind)).toEqual([
+      "acknowledgement",
+      "extension",
+      "stage-response",
+      "final-response",
+    ]);
   });
 });
 
