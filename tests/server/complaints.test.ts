@@ -88,6 +88,11 @@ describe("a complaint through both stages", () => {
     expect(stage(res.body, 1).respondDueAt).toBe("2027-01-14T23:59:59.999Z");
     expect(stage(res.body, 2)).toMatchObject({ acknowledge: "not-started", acknowledgeDueAt: null });
     expect((await tenantEvents("complaint-raised"))[0]?.after).toMatchObject({ complaintId, onBehalf: false });
+    // Nobody is assigned, so every officer is told, with the day the acknowledgement is due.
+    const told = await outboxRows(t.ctx.dataSource, { to: landlord.officer.email, template: "complaintRaised", caseId });
+    expect(told.map((m) => m.subject)).toEqual([
+      expect.stringMatching(/^Formal complaint about DW-\d{4}-\d{5}: acknowledge by Wednesday 30 December 2026$/),
+    ]);
   });
 
   it("allows one open complaint per case", async () => {

@@ -13,7 +13,7 @@ import type { Clock } from "../../lib/clock.js";
 import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { inTransaction } from "../../lib/transaction.js";
 import { isStaff, type Actor } from "../auth/actor.js";
-import type { Case, CaseService } from "../cases/case.service.js";
+import { addressOf, type Case, type CaseService } from "../cases/case.service.js";
 import type { MailService } from "../mail/mail.service.js";
 import type { OrganisationService } from "../organisations/organisation.service.js";
 import type { ComplaintPolicyView, PolicyService } from "../policy/policy.service.js";
@@ -147,7 +147,7 @@ export class ComplaintService {
 
   /** A complaint about a case: the tenant for their own case, or staff writing it down for them. */
   async raise(actor: Actor, caseId: number, description: string): Promise<ComplaintWithClocks> {
-    const id = await inTransaction(this.dataSource, async (m) => {
+    const { id, deliveries } = await inTransaction(this.dataSource, async (m) => {
       const c = await this.cases.getForActor(actor, caseId, m);
       const open = await m.getRepository(Complaint).findOneBy({ openCaseId: c.id });
       if (open) throw this.alreadyOpen();
@@ -185,8 +185,32 @@ export class ComplaintService {
           acknowledgeDueAt: stage1.acknowledgeDueAt!.toISOString(),
         },
       });
-      return saved.id;
+      // A tenant's own complaint: the assignee is told, or every active officer while nobody is assigned.
+      const deliveries: Deliver[] = [];
+      if (!isStaff(actor)) {
+        const assignee =
+          c.assigneeUserId === null ? null : await this.users.findStaff(c.organisationId, c.assigneeUserId, undefined, m);
+        const recipients = assignee ? [assignee] : await this.users.activeStaffOf(c.organisationId, ["officer"], m);
+        for (const to of recipients)
+          deliveries.push(
+            await this.cases.queueMail(m, c, {
+              to: to.email,
+              template: "complaintRaised",
+              data: {
+                name: to.name,
+                reference: c.reference ?? `case ${c.id}`,
+                address: c.property ? addressOf(c.property) : "",
+                tenantName: actor.name,
+                description,
+                acknowledgeBy: letterDay(stage1.acknowledgeDueAt!),
+                link: `${this.config.appUrl}/cases/${c.id}`,
+              },
+            }),
+          );
+      }
+      return { id: saved.id, deliveries };
     });
+    for (const deliver of deliveries) await deliver();
     return this.read(id);
   }
 
