@@ -32,6 +32,7 @@ import { UserService } from "./modules/users/user.service.js";
 import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
 import { ConversationService } from "./modules/conversation/conversation.service.js";
+import { ComplaintService } from "./modules/complaints/complaint.service.js";
 import { WorkerPool } from "./workers/pool.js";
 import { AdminActionService } from "./modules/integrations/admin-action.service.js";
 import { ApiKeyService } from "./modules/integrations/api-key.service.js";
@@ -62,6 +63,7 @@ export interface Services {
   tenancies: TenancyService;
   users: UserService;
   conversation: ConversationService;
+  complaints: ComplaintService;
   apiKeys: ApiKeyService;
   adminActions: AdminActionService;
   webhooks: WebhookService;
@@ -142,6 +144,7 @@ export function createServices(
   cases.useEmergencyPhones(policy);
   const inspections = new InspectionService(dataSource, config, cases, mail, users, clock, policy);
   const conversation = new ConversationService(dataSource, config, cases, photos, mail, users, clock);
+  const complaints = new ComplaintService(dataSource, config, cases, policy, mail, users, organisations, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   const queue = new QueueService(dataSource, triage, clock);
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
@@ -192,6 +195,7 @@ export function createServices(
     works,
     verification,
     conversation,
+    complaints,
     apiKeys,
     adminActions,
     webhooks,

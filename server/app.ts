@@ -33,6 +33,7 @@ import { createTenancyImportRouter } from "./modules/tenancy-import/tenancy-impo
 import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
 import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
+import { createCaseComplaintsRouter, createComplaintsRouter } from "./modules/complaints/complaints.routes.js";
 import { createOutboxRouter } from "./modules/mail/mail.routes.js";
 import { createIntegrationApiRouter } from "./modules/integrations/integration-api.routes.js";
 import { createAdminActionsRouter, createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
@@ -164,6 +165,8 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   );
   api.use("/cases", createConversationRouter({ conversation: services.conversation }));
   api.use("/cases", requireAuth, createEvidencePackRouter({ packs: services.evidencePacks }));
+  api.use("/cases", createCaseComplaintsRouter({ complaints: services.complaints }));
+  api.use("/complaints", createComplaintsRouter({ complaints: services.complaints }));
   api.use(
     "/cases",
     requireAuth,

@@ -16,6 +16,8 @@ import { HhsrsAssessmentRecord } from "../modules/assessments/assessment.entity.
 import { Inspection } from "../modules/inspections/inspection.entity.js";
 import { WrittenSummary } from "../modules/inspections/written-summary.entity.js";
 import { DeadlinePolicyRecord } from "../modules/policy/deadline-policy.entity.js";
+import { ComplaintLetterTemplateRecord, ComplaintPolicyRecord } from "../modules/policy/complaint-policy.entity.js";
+import { Complaint } from "../modules/complaints/complaint.entity.js";
 import { DeadlineDigest } from "../modules/digest/deadline-digest.entity.js";
 import { UserToken } from "../modules/auth/user-token.entity.js";
 import { SignInThrottle } from "../modules/auth/sign-in-throttle.entity.js";
@@ -56,6 +58,9 @@ export const entities = [
   Inspection,
   WrittenSummary,
   DeadlinePolicyRecord,
+  ComplaintPolicyRecord,
+  ComplaintLetterTemplateRecord,
+  Complaint,
   DeadlineDigest,
   WorkOrder,
   WorkOrderBooking,

@@ -37,6 +37,7 @@ export const caseKeys = {
   related: (id: number) => [...caseKeys.detail(id), "related"] as const,
   workOrders: (id: number) => [...caseKeys.detail(id), "work-orders"] as const,
   verification: (id: number) => [...caseKeys.detail(id), "verification"] as const,
+  complaints: (id: number) => [...caseKeys.detail(id), "complaints"] as const,
 };
 
 /** Work orders across cases (the /works table and week board); a case's own orders are `caseKeys.workOrders(id)`. */
@@ -52,6 +53,8 @@ export const workOrderKeys = {
 export const policyKeys = {
   all: ["policy"] as const,
   current: () => [...policyKeys.all, "current"] as const,
+  /** The complaint timeframes, escalation route and letters (GET /api/policy/complaints). */
+  complaints: () => [...policyKeys.all, "complaints"] as const,
 };
 
 /** The landlord's active staff (GET /api/staff). */

@@ -305,7 +305,7 @@ describe("case page", () => {
     // The order of the page: what happens next, the latest from the landlord, then the rest, closed.
     const headings = screen.getAllByRole("heading", { level: 2 }).map((h) => h.textContent);
     expect(headings.indexOf("What happens next")).toBeLessThan(headings.indexOf("Latest from your landlord"));
-    const rest = ["What your readings show", "Readings", "Photos", "What has happened so far", "What you told us"];
+    const rest = ["What your readings show", "Readings", "Photos", "What has happened so far", "Complaint", "What you told us"];
     // Then the conversation, open to write in.
     expect(headings[headings.indexOf("Latest from your landlord") + 1]).toBe("Messages with your landlord");
     expect(headings.slice(headings.indexOf("Messages with your landlord") + 1)).toEqual(rest);

@@ -9,6 +9,22 @@ import { DEFAULT_MONITORING_DAYS } from "../../server/modules/policy/policy.serv
 import { parse } from "../../server/lib/validation";
 import { ValidationError } from "../../server/lib/errors";
 import { apiError, mockApi, users, type MockReply } from "./support/api-mock";
+import { COMPLAINT_HANDLING_DEFAULT_POLICY } from "@/lib/domain/complaint-clocks";
+import {
+  COMPLAINT_LETTER_KINDS,
+  COMPLAINT_LETTER_PLACEHOLDERS,
+  DEFAULT_COMPLAINT_LETTERS,
+  DEFAULT_ESCALATION_ROUTE,
+} from "@/lib/domain/complaint-letters";
+
+/** The complaint policy section below the timeframes: the default in force. */
+const COMPLAINT_POLICY = {
+  ...COMPLAINT_HANDLING_DEFAULT_POLICY,
+  escalationRoute: DEFAULT_ESCALATION_ROUTE,
+  letters: COMPLAINT_LETTER_KINDS.map((kind) => ({ kind, ...DEFAULT_COMPLAINT_LETTERS[kind], source: "default" })),
+  placeholders: Object.entries(COMPLAINT_LETTER_PLACEHOLDERS).map(([name, meaning]) => ({ name, meaning })),
+  source: "default",
+};
 import { renderApp } from "./support/render-app";
 
 const DEFAULT = { ...ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, monitoringDays: DEFAULT_MONITORING_DAYS };
@@ -26,6 +42,7 @@ function setup(start: DeadlinePolicy | null = null, role: keyof typeof users = "
     "GET /api/auth/me": { body: users[role] },
     "GET /api/auth/csrf": { body: { csrfToken: "t" } },
     "GET /api/policy": () => view(),
+    "GET /api/policy/complaints": { body: COMPLAINT_POLICY },
     "PUT /api/policy": (call) => {
       try {
         own = parse(deadlinePolicySchema, call.body);

@@ -54,6 +54,15 @@ const BODIES: Record<string, (actor: Actor) => object> = {
   "PATCH /api/properties/:id/rooms/:roomId": () => ({ name: "Box room" }),
   "PATCH /api/users/:id": () => ({ name: "Test maintenance" }),
   "PATCH /api/webhooks/:id": () => ({ description: "Housing system" }),
+  // Complaints check the case before the body, but their bodies are parsed first: each names a stale
+  // version or an open complaint already there, so an allowed caller gets 409 and nothing changes.
+  "POST /api/cases/:id/complaints": () => ({ description: "Nobody has come to look at the mould." }),
+  "POST /api/complaints/:id/acknowledge": () => ({ version: 99 }),
+  "POST /api/complaints/:id/extend": () => ({ version: 99, workingDays: 2, reason: "Waiting for the roofer." }),
+  "POST /api/complaints/:id/respond": () => ({ version: 99, response: "We are sorry for the wait." }),
+  "POST /api/complaints/:id/escalate": () => ({ version: 99, reason: "Still unhappy." }),
+  "POST /api/complaints/:id/close": () => ({ version: 99 }),
+  "PUT /api/complaints/:id/remedy": () => ({ version: 99, apology: false }),
 };
 
 let t: TestApp;
@@ -118,6 +127,9 @@ beforeAll(async () => {
       roomReadings: [{ roomId, airTemperatureC: 18, relativeHumidityPct: 70 }],
     })
     .expect(201);
+  const complaint = await tenant
+    .post(`/api/cases/${caseId}/complaints`, { description: "Nobody came for three weeks." })
+    .expect(201);
   const order = await officer
     .post(`/api/cases/${caseId}/work-orders`, { type: "mould-wash", description: "Wash the ceiling with fungicide." })
     .expect(201);
@@ -161,6 +173,7 @@ beforeAll(async () => {
     "/api/stock-imports/:id": stockImport.body.id,
     "/api/properties/:id": landlord.home.id,
     "/api/work-orders/:id": order.body.id,
+    "/api/complaints/:id": complaint.body.id,
     "/api/photos/:id": photo.body.photos[0].id,
     "/api/outbox/:id": (
       (await t.ctx.dataSource.query(

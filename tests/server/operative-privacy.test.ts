@@ -183,6 +183,42 @@ beforeAll(async () => {
   record("POST", "/api/cases/:id/messages", message.text);
   const read = await tenant.post(`/api/cases/${caseId}/messages/read`, {}).expect(200);
   record("POST", "/api/cases/:id/messages/read", read.text);
+
+  // A formal complaint, with a staff-only note on every move staff make; the tenant escalates it.
+  const raised = await tenant
+    .post(`/api/cases/${caseId}/complaints`, { description: "It took three weeks for anyone to come." })
+    .expect(201);
+  record("POST", "/api/cases/:id/complaints", raised.text);
+  const complaintId: number = raised.body.id;
+  const put = (url: string, body: object) => officer.agent.put(url).set("X-CSRF-Token", officer.csrf).send(body);
+  await officer
+    .post(`/api/complaints/${complaintId}/acknowledge`, { version: 1, note: staffText("Complaint note, ack") })
+    .expect(200);
+  await officer
+    .post(`/api/complaints/${complaintId}/extend`, {
+      version: 2,
+      workingDays: 5,
+      reason: "We are waiting for the roofer's report.",
+      note: staffText("Complaint note, extension"),
+    })
+    .expect(200);
+  await put(`/api/complaints/${complaintId}/remedy`, {
+    version: 3,
+    apology: true,
+    putRight: "We will treat the wall again.",
+    note: staffText("Complaint note, remedy"),
+  }).expect(200);
+  await officer
+    .post(`/api/complaints/${complaintId}/respond`, {
+      version: 4,
+      response: "We should have come sooner.",
+      note: staffText("Complaint note, response"),
+    })
+    .expect(200);
+  const escalated = await tenant
+    .post(`/api/complaints/${complaintId}/escalate`, { version: 5, reason: "The wall is still damp." })
+    .expect(200);
+  record("POST", "/api/complaints/:id/escalate", escalated.text);
 });
 afterAll(() => t.close());
 
@@ -201,6 +237,8 @@ it("puts the marker where staff can read it (so its absence below means somethin
     "Internal note",
     "Operative description, fan",
     "Follow-on work",
+    "Complaint note, ack",
+    "Complaint note, remedy",
   ])
     expect(staffSees).toContain(`${what} ${MARKER}`);
   await mailSettled(t);
@@ -243,6 +281,8 @@ it("is absent from every route a tenant may call", async () => {
       "GET /api/me/cases",
       "GET /api/me/home",
       "POST /api/work-orders/:id/booking-response",
+      "GET /api/cases/:id/complaints",
+      "POST /api/complaints/:id/escalate",
     ]),
   );
 });
@@ -256,6 +296,7 @@ it("is absent from every e-mail and calendar file the tenant received", async ()
     "appointmentCancelled",
     "monitoringStarted",
     "fixConfirmed",
+    "complaintLetter",
   ])
     expect([...templates]).toContain(expected);
   const toTenant = () => t.mail.mails.filter((m) => m.to.includes(landlord.tenant.email));

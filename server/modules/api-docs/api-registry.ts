@@ -17,7 +17,17 @@ import {
 import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
 import { inspectionSchema, summarySchema } from "../inspections/inspections.schemas.js";
 import { markReadSchema, staffMessageSchema, tenantMessageSchema } from "../../../src/lib/schemas/messages.js";
-import { deadlinePolicySchema } from "../policy/policy.schemas.js";
+import { complaintPolicySchema, deadlinePolicySchema } from "../policy/policy.schemas.js";
+import {
+  acknowledgeComplaintSchema,
+  closeComplaintSchema,
+  complaintRemedySchema,
+  escalateComplaintSchema,
+  extendComplaintSchema,
+  raiseComplaintSchema,
+  respondComplaintSchema,
+  staffEscalateComplaintSchema,
+} from "../complaints/complaints.schemas.js";
 import { propertyExportQuerySchema, propertyListQuerySchema, stockImportFieldsSchema } from "../properties/properties.schemas.js";
 import {
   importFieldsSchema,
@@ -77,6 +87,14 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "POST /api/work-orders/:id/booking-response": { body: bookingResponseSchema },
   "POST /api/contractors": { body: contractorSchema },
   "PUT /api/policy": { body: deadlinePolicySchema },
+  "PUT /api/policy/complaints": { body: complaintPolicySchema },
+  "POST /api/cases/:id/complaints": { body: raiseComplaintSchema },
+  "POST /api/complaints/:id/acknowledge": { body: acknowledgeComplaintSchema },
+  "POST /api/complaints/:id/extend": { body: extendComplaintSchema },
+  "POST /api/complaints/:id/respond": { body: respondComplaintSchema },
+  "POST /api/complaints/:id/escalate": { body: [escalateComplaintSchema, staffEscalateComplaintSchema] },
+  "POST /api/complaints/:id/close": { body: closeComplaintSchema },
+  "PUT /api/complaints/:id/remedy": { body: complaintRemedySchema },
   "GET /api/properties": { query: propertyListQuerySchema },
   "POST /api/properties": { body: homeSchema },
   "PATCH /api/properties/:id": { body: homePatchSchema },

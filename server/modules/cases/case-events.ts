@@ -2,6 +2,30 @@ import type { CaseStatus } from "../../../src/lib/domain/case-workflow.js";
 import type { HazardClass } from "../../../src/lib/domain/deadlines.js";
 import type { SlotWindow } from "../../../src/lib/schemas/work-orders.js";
 
+interface ComplaintEventBase {
+  complaintId: number;
+  stage: 1 | 2;
+  /** Staff only. */
+  note: string | null;
+}
+
+/** The letter as the tenant was sent it (its outbox row is the event's `outboxId`). */
+interface ComplaintLetterSent {
+  subject: string;
+  body: string;
+}
+
+interface ComplaintRemedy {
+  apology: boolean;
+  apologyText: string | null;
+  putRight: string | null;
+  compensationOfferedPence: number | null;
+  compensationOfferedOn: string | null;
+  compensationAcceptedOn: string | null;
+  compensationPaidPence: number | null;
+  compensationPaidOn: string | null;
+}
+
 /**
  * Every kind of entry on a case's timeline, with its payload. `case_events` stores `type`, `before`
  * and `after` as they are here (JSON); the union is what the code may write.
@@ -89,6 +113,36 @@ export type CaseEventPayload =
   | { type: "monitoring-started"; after: { worksDoneAt: string; endsAt: string; days: number } }
   /** Staff made the case's evidence pack: its content hash (EVIDENCE_PACK_DEFINITION), pages and file name. */
   | { type: "evidence-pack-made"; after: { sha256: string; pages: number; fileName: string } }
+  /** Complaints (complaints module). `note` is staff-only in every complaint event; `letter` is what the tenant was sent. */
+  | {
+      type: "complaint-raised";
+      after: { complaintId: number; description: string; onBehalf: boolean; acknowledgeDueAt: string };
+    }
+  | {
+      type: "complaint-acknowledged";
+      after: ComplaintEventBase & { respondDueAt: string; letter: ComplaintLetterSent | null; outboxId?: number };
+    }
+  | {
+      type: "complaint-extended";
+      after: ComplaintEventBase & {
+        workingDays: number;
+        reason: string;
+        respondDueAt: string;
+        letter: ComplaintLetterSent | null;
+        outboxId?: number;
+      };
+    }
+  | {
+      type: "complaint-responded";
+      after: ComplaintEventBase & { final: boolean; response: string; letter: ComplaintLetterSent | null; outboxId?: number };
+    }
+  | { type: "complaint-escalated"; after: ComplaintEventBase & { reason: string; acknowledgeDueAt: string } }
+  | { type: "complaint-closed"; after: ComplaintEventBase }
+  | {
+      type: "complaint-remedy-changed";
+      before: ComplaintRemedy;
+      after: ComplaintRemedy & { complaintId: number; note: string | null };
+    }
   | {
       type: "fix-verified";
       /** override: why "fix effective" was recorded without enough readings after the works (staff only). */

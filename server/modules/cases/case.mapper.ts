@@ -53,6 +53,12 @@ const STAFF_ONLY_FIELDS: Partial<Record<CaseEventType, readonly string[]>> = {
   "work-order-created": ["description"],
   "work-order-completed": ["followOn", "earlyReason"],
   "fix-verified": ["override"],
+  "complaint-acknowledged": ["note"],
+  "complaint-extended": ["note"],
+  "complaint-responded": ["note"],
+  "complaint-escalated": ["note"],
+  "complaint-closed": ["note"],
+  "complaint-remedy-changed": ["note"],
 };
 
 const withoutFields = (payload: Record<string, unknown> | null, fields: readonly string[] | undefined) =>

@@ -201,6 +201,35 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
+  /** A complaint letter, its subject and body already filled in from the landlord's wording (complaints module). */
+  complaintLetter(d: { name: string; subject: string; body: string }): RenderedMail {
+    return { subject: d.subject, text: [`Hello ${d.name},`, "", withoutGreeting(d.body)].join("\n") };
+  },
+  /** For the assignee, or every officer while nobody is assigned: a tenant made a formal complaint about a case. */
+  complaintRaised(d: {
+    name: string;
+    reference: string;
+    address: string;
+    tenantName: string;
+    description: string;
+    /** The acknowledgement's due day, in words. */
+    acknowledgeBy: string;
+    link: string;
+  }): RenderedMail {
+    return {
+      subject: `Formal complaint about ${d.reference}: acknowledge by ${d.acknowledgeBy}`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `${d.tenantName}, the tenant at ${d.address}, made a formal complaint about case ${d.reference}:`,
+        "",
+        d.description,
+        "",
+        `Stage 1 is to be acknowledged by the end of ${d.acknowledgeBy}. The complaint and its clocks are on the case page:`,
+        d.link,
+      ].join("\n"),
+    };
+  },
   caseMessage(d: { name: string; reference: string; senderName: string; body: string; link: string }): RenderedMail {
     return {
       subject: `A message about your report ${d.reference}`,

@@ -3,8 +3,17 @@ import { policyResponse } from "../../../src/lib/contracts/policy.js";
 import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
-import { deadlinePolicySchema } from "./policy.schemas.js";
-import type { PolicyService } from "./policy.service.js";
+import { complaintPolicySchema, deadlinePolicySchema } from "./policy.schemas.js";
+import type { ComplaintPolicyView, PolicyService } from "./policy.service.js";
+import { complaintPolicyResponse } from "../../../src/lib/contracts/complaints.js";
+import { COMPLAINT_LETTER_KINDS, COMPLAINT_LETTER_PLACEHOLDERS } from "../../../src/lib/domain/complaint-letters.js";
+
+const toComplaintPolicyDto = ({ letters, ...view }: ComplaintPolicyView) =>
+  shaped(complaintPolicyResponse, {
+    ...view,
+    letters: COMPLAINT_LETTER_KINDS.map((kind) => ({ kind, ...letters[kind] })),
+    placeholders: Object.entries(COMPLAINT_LETTER_PLACEHOLDERS).map(([name, meaning]) => ({ name, meaning })),
+  });
 
 /** `/api/policy`: staff read their landlord's deadline policy; admins change or reset it. */
 export function createPolicyRouter({ policy }: { policy: PolicyService }): Router {
@@ -17,6 +26,16 @@ export function createPolicyRouter({ policy }: { policy: PolicyService }): Route
   });
   router.delete("/", requireRole("admin"), async (req, res) => {
     res.json(shaped(policyResponse, await policy.reset(actorOf(req))));
+  });
+  // Complaints: the timeframes, the escalation route told in the final response, and the letters' wording.
+  router.get("/complaints", requireRole("officer", "admin"), async (req, res) => {
+    res.json(toComplaintPolicyDto(await policy.complaintPolicyFor(actorOf(req).organisationId)));
+  });
+  router.put("/complaints", requireRole("admin"), async (req, res) => {
+    res.json(toComplaintPolicyDto(await policy.updateComplaintPolicy(actorOf(req), parse(complaintPolicySchema, req.body))));
+  });
+  router.delete("/complaints", requireRole("admin"), async (req, res) => {
+    res.json(toComplaintPolicyDto(await policy.resetComplaintPolicy(actorOf(req))));
   });
   return router;
 }

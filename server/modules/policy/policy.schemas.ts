@@ -1,6 +1,12 @@
 import { z } from "zod";
 import { wholeNumberOf } from "../../../src/lib/schemas/quantity.js";
 import { emergencyPhoneSchema } from "../../../src/lib/schemas/policy.js";
+import {
+  COMPLAINT_LETTER_KINDS,
+  missingPlaceholders,
+  unknownPlaceholders,
+  type ComplaintLetterKind,
+} from "../../../src/lib/domain/complaint-letters.js";
 
 const hours = { one: "hour", many: "hours" };
 const workingDays = { one: "working day", many: "working days" };
@@ -21,3 +27,55 @@ export const deadlinePolicySchema = z
     emergencyPhone: emergencyPhoneSchema.default(null),
   })
   .strict();
+
+const text = (field: string, max: number) =>
+  z
+    .string({ error: `${field} must be text.` })
+    .trim()
+    .min(1, `${field} must not be empty.`)
+    .max(max, `${field} must be at most ${max.toLocaleString("en-GB")} characters.`);
+
+const letterSchema = (kind: ComplaintLetterKind) =>
+  z
+    .object({ subject: text(`letters.${kind}.subject`, 200), body: text(`letters.${kind}.body`, 10_000) })
+    .strict()
+    .superRefine((letter, ctx) => {
+      const unknown = [...new Set([...unknownPlaceholders(letter.subject), ...unknownPlaceholders(letter.body)])];
+      if (unknown.length)
+        ctx.addIssue({
+          code: "custom",
+          path: ["body"],
+          message: `Unknown placeholder${unknown.length > 1 ? "s" : ""}: ${unknown.map((p) => `{{${p}}}`).join(", ")}.`,
+        });
+      const missing = missingPlaceholders(kind, letter.body);
+      if (missing.length)
+        ctx.addIssue({
+          code: "custom",
+          path: ["body"],
+          message: `This letter must keep ${missing.map((p) => `{{${p}}}`).join(" and ")}.`,
+        });
+    })
+    .nullable();
+
+// Our own sanity bounds, as for the deadline policy; the default is TRADE.md §5 [M, from memory].
+export const complaintPolicySchema = z
+  .object({
+    stage1AcknowledgeWorkingDays: wholeNumberOf("stage1AcknowledgeWorkingDays", 1, 30, workingDays),
+    stage1RespondWorkingDays: wholeNumberOf("stage1RespondWorkingDays", 1, 60, workingDays),
+    stage2AcknowledgeWorkingDays: wholeNumberOf("stage2AcknowledgeWorkingDays", 1, 30, workingDays),
+    stage2RespondWorkingDays: wholeNumberOf("stage2RespondWorkingDays", 1, 60, workingDays),
+    extensionMaxWorkingDays: wholeNumberOf("extensionMaxWorkingDays", 1, 30, workingDays),
+    /** null: our default wording. */
+    escalationRoute: text("escalationRoute", 2000).nullable().default(null),
+    /** Each letter's own wording; null puts our default back; a kind left out keeps what is stored. */
+    letters: z
+      .object(
+        Object.fromEntries(COMPLAINT_LETTER_KINDS.map((k) => [k, letterSchema(k).optional()])) as {
+          [K in ComplaintLetterKind]: z.ZodOptional<ReturnType<typeof letterSchema>>;
+        },
+      )
+      .strict()
+      .default({}),
+  })
+  .strict();
+export type ComplaintPolicyInput = z.infer<typeof complaintPolicySchema>;

@@ -4,6 +4,16 @@ import type { EmergencyPhoneSource } from "../../lib/emergency-phone.js";
 import type { Actor } from "../auth/actor.js";
 import type { CaseService } from "../cases/case.service.js";
 import { DeadlinePolicyRecord } from "./deadline-policy.entity.js";
+import { ComplaintLetterTemplateRecord, ComplaintPolicyRecord } from "./complaint-policy.entity.js";
+import type { ComplaintPolicyInput } from "./policy.schemas.js";
+import { COMPLAINT_HANDLING_DEFAULT_POLICY, type ComplaintPolicy } from "../../../src/lib/domain/complaint-clocks.js";
+import {
+  COMPLAINT_LETTER_KINDS,
+  DEFAULT_COMPLAINT_LETTERS,
+  DEFAULT_ESCALATION_ROUTE,
+  type ComplaintLetterKind,
+  type ComplaintLetterTemplate,
+} from "../../../src/lib/domain/complaint-letters.js";
 
 /** Days of readings after the works before the fix is judged: our default (common practice, no source). */
 export const DEFAULT_MONITORING_DAYS = 21;
@@ -13,6 +23,14 @@ export interface PolicyView extends DeadlinePolicy {
   monitoringDays: number;
   /** The landlord's emergency line (told to tenants), or null when not set. */
   emergencyPhone: string | null;
+  source: "default" | "landlord";
+}
+
+/** A landlord's complaint timeframes, escalation route and letters, each with our default where not set. */
+export interface ComplaintPolicyView extends ComplaintPolicy {
+  escalationRoute: string;
+  letters: Record<ComplaintLetterKind, ComplaintLetterTemplate & { source: "default" | "landlord" }>;
+  /** "landlord" when the timeframes or escalation route are the landlord's own. */
   source: "default" | "landlord";
 }
 
@@ -79,5 +97,65 @@ export class PolicyService implements EmergencyPhoneSource {
       await this.cases.markStale(m, { organisationId: actor.organisationId });
     });
     return this.forOrganisation(actor.organisationId);
+  }
+
+  /**
+   * The landlord's complaint timeframes (the TRADE.md §5 default [M, from memory] when none are set),
+   * escalation route and letters (our default wording for each kind not set).
+   */
+  async complaintPolicyFor(organisationId: number, m?: EntityManager): Promise<ComplaintPolicyView> {
+    const manager = m ?? this.dataSource.manager;
+    const row = await manager.getRepository(ComplaintPolicyRecord).findOneBy({ organisationId });
+    const own = await manager.getRepository(ComplaintLetterTemplateRecord).findBy({ organisationId });
+    const letters = Object.fromEntries(
+      COMPLAINT_LETTER_KINDS.map((kind) => {
+        const mine = own.find((t) => t.kind === kind);
+        return [
+          kind,
+          mine
+            ? { subject: mine.subject, body: mine.body, source: "landlord" as const }
+            : { ...DEFAULT_COMPLAINT_LETTERS[kind], source: "default" as const },
+        ];
+      }),
+    ) as ComplaintPolicyView["letters"];
+    if (!row)
+      return { ...COMPLAINT_HANDLING_DEFAULT_POLICY, escalationRoute: DEFAULT_ESCALATION_ROUTE, letters, source: "default" };
+    return {
+      stage1AcknowledgeWorkingDays: row.stage1AcknowledgeWorkingDays,
+      stage1RespondWorkingDays: row.stage1RespondWorkingDays,
+      stage2AcknowledgeWorkingDays: row.stage2AcknowledgeWorkingDays,
+      stage2RespondWorkingDays: row.stage2RespondWorkingDays,
+      extensionMaxWorkingDays: row.extensionMaxWorkingDays,
+      escalationRoute: row.escalationRoute ?? DEFAULT_ESCALATION_ROUTE,
+      letters,
+      source: "landlord",
+    };
+  }
+
+  /** Sets the landlord's complaint timeframes and escalation route, and the letters sent (null: back to ours). */
+  async updateComplaintPolicy(actor: Actor, input: ComplaintPolicyInput): Promise<ComplaintPolicyView> {
+    const { letters, ...timeframes } = input;
+    await this.dataSource.transaction(async (m) => {
+      await m
+        .getRepository(ComplaintPolicyRecord)
+        .save({ organisationId: actor.organisationId, ...timeframes, updatedById: actor.id });
+      for (const kind of COMPLAINT_LETTER_KINDS) {
+        const letter = letters[kind];
+        if (letter === undefined) continue;
+        const repo = m.getRepository(ComplaintLetterTemplateRecord);
+        if (letter === null) await repo.delete({ organisationId: actor.organisationId, kind });
+        else await repo.save({ organisationId: actor.organisationId, kind, ...letter, updatedById: actor.id });
+      }
+    });
+    return this.complaintPolicyFor(actor.organisationId);
+  }
+
+  /** Back to the default timeframes, escalation route and letters. */
+  async resetComplaintPolicy(actor: Actor): Promise<ComplaintPolicyView> {
+    await this.dataSource.transaction(async (m) => {
+      await m.getRepository(ComplaintPolicyRecord).delete({ organisationId: actor.organisationId });
+      await m.getRepository(ComplaintLetterTemplateRecord).delete({ organisationId: actor.organisationId });
+    });
+    return this.complaintPolicyFor(actor.organisationId);
   }
 }

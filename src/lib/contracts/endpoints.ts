@@ -16,6 +16,7 @@ import {
 } from "./auth.js";
 import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse, worseResponse } from "./cases.js";
 import { conversationResponse, messageSentResponse, readMarkResponse, unreadMessagesResponse } from "./conversation.js";
+import { complaintListResponse, complaintPolicyResponse, complaintResponse } from "./complaints.js";
 import { evaluationResponse } from "./evaluation.js";
 import { EVIDENCE_PACK_MEDIA_TYPE } from "./evidence-pack.js";
 import { outboxItem, outboxPageResponse } from "./mail.js";
@@ -88,6 +89,7 @@ const STAFF = ["officer", "maintenance", "admin"] as const;
 const EXPORT_FILE = { mediaType: "text/csv" };
 const OFFICERS = ["officer", "admin"] as const;
 const LEADS = ["maintenance", "admin"] as const;
+const TENANT_OR_OFFICERS = ["tenant", "officer", "admin"] as const;
 
 const e = (
   method: HttpMethod,
@@ -240,6 +242,38 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/cases/:id/evidence-pack", STAFF, "The case's evidence pack (PDF), recorded on its timeline with its hash", {
     mediaType: EVIDENCE_PACK_MEDIA_TYPE,
   }),
+  e(
+    "GET",
+    "/api/cases/:id/complaints",
+    TENANT_OR_OFFICERS,
+    "A case's formal complaints with their clocks",
+    complaintListResponse,
+  ),
+  e("POST", "/api/cases/:id/complaints", TENANT_OR_OFFICERS, "Raise a formal complaint about the case", complaintResponse, 201),
+  e(
+    "POST",
+    "/api/complaints/:id/acknowledge",
+    OFFICERS,
+    "Acknowledge the complaint's stage (sends the letter)",
+    complaintResponse,
+  ),
+  e(
+    "POST",
+    "/api/complaints/:id/extend",
+    OFFICERS,
+    "Extend the stage's response once, with a reason the tenant is told",
+    complaintResponse,
+  ),
+  e(
+    "POST",
+    "/api/complaints/:id/respond",
+    OFFICERS,
+    "Send the stage's response (at stage 2, the final response)",
+    complaintResponse,
+  ),
+  e("POST", "/api/complaints/:id/escalate", TENANT_OR_OFFICERS, "Take the complaint to stage 2", complaintResponse),
+  e("POST", "/api/complaints/:id/close", OFFICERS, "Close the complaint after its stage 1 response", complaintResponse),
+  e("PUT", "/api/complaints/:id/remedy", OFFICERS, "Record the remedy: apology, putting right, compensation", complaintResponse),
   e("POST", "/api/cases/:id/work-orders", STAFF, "Raise a work order", workOrderResponse, 201),
   e("GET", "/api/cases/:id/work-orders", "signed-in", "A case's work orders", caseWorkOrdersResponse),
   e("GET", "/api/cases/:id/verification", "signed-in", "Readings before and after the works", verificationResponse),
@@ -258,6 +292,27 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/policy", STAFF, "The landlord's deadline timeframes", policyResponse),
   e("PUT", "/api/policy", ["admin"], "Set the landlord's deadline timeframes", policyResponse),
   e("DELETE", "/api/policy", ["admin"], "Go back to the default timeframes", policyResponse),
+  e(
+    "GET",
+    "/api/policy/complaints",
+    OFFICERS,
+    "The landlord's complaint timeframes, escalation route and letters",
+    complaintPolicyResponse,
+  ),
+  e(
+    "PUT",
+    "/api/policy/complaints",
+    ["admin"],
+    "Set the complaint timeframes, escalation route and letters",
+    complaintPolicyResponse,
+  ),
+  e(
+    "DELETE",
+    "/api/policy/complaints",
+    ["admin"],
+    "Go back to the default complaint timeframes and letters",
+    complaintPolicyResponse,
+  ),
 
   e("GET", "/api/photos/:id", "signed-in", "A photo (display size)", { mediaType: "image/jpeg" }),
   e("GET", "/api/photos/:id/thumbnail", "signed-in", "A photo's thumbnail", { mediaType: "image/jpeg" }),

@@ -16,6 +16,7 @@ export * from "./policy.js";
 export * from "./triage.js";
 export * from "./works.js";
 export * from "./conversation.js";
+export * from "./complaints.js";
 export * from "./mail.js";
 export * from "./integrations.js";
 export * from "./webhooks.js";

@@ -4,9 +4,14 @@ import { PageHeader } from "@/components/ui/page-header";
 import { signedInAs } from "@/features/auth/api/require-role";
 import { policyQueryOptions } from "@/features/policy/api/get-policy";
 import { PolicyForm } from "@/features/policy/components/policy-form";
+import { ComplaintPolicyForm } from "@/features/policy/components/complaint-policy-form";
+import { complaintPolicyQueryOptions } from "@/features/policy/api/get-complaint-policy";
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
-  if (await signedInAs(queryClient, ["admin"])) void queryClient.prefetchQuery(policyQueryOptions());
+  if (await signedInAs(queryClient, ["admin"])) {
+    void queryClient.prefetchQuery(policyQueryOptions());
+    void queryClient.prefetchQuery(complaintPolicyQueryOptions());
+  }
   return null;
 };
 
@@ -20,6 +25,9 @@ export default function DeadlinePolicyPage() {
       />
       <Panel title="Timeframes" id="timeframes" className="max-w-reading">
         <PolicyForm />
+      </Panel>
+      <Panel title="Complaints" id="complaints" className="mt-5 max-w-reading">
+        <ComplaintPolicyForm />
       </Panel>
     </>
   );

@@ -35,6 +35,7 @@ import { ActionsPanel } from "@/features/case-workspace/components/actions-panel
 import { AssessmentForm, AssessmentVersions } from "@/features/case-workspace/components/assessment-section";
 import { CaseHeader, staffName, workspaceTitle } from "@/features/case-workspace/components/case-header";
 import { DeadlinesPanel } from "@/features/case-workspace/components/deadlines-panel";
+import { StaffComplaintPanel } from "@/features/complaints/components/staff-complaint-panel";
 import { usePolicy } from "@/features/policy/api/get-policy";
 import { DiagnosisHints } from "@/features/case-workspace/components/diagnosis-hints";
 import { InspectionForm, InspectionList } from "@/features/case-workspace/components/inspection-section";
@@ -165,6 +166,8 @@ function Workspace({ id }: { id: number }) {
           <div className="flex min-w-0 flex-col gap-5">
             <ActionsPanel c={c} statusLabel={statusLabelFor("staff")} me={user} canAct={officer} />
             <DeadlinesPanel caseId={id} policySource={policy.data?.source} />
+            {/* Complaints are for officers and admins; maintenance staff have no part in them. */}
+            {officer ? <StaffComplaintPanel caseId={id} canAct={officer} /> : null}
           </div>
           <div className="flex min-w-0 flex-col gap-5">
             <TriagePanel caseId={id} />

@@ -26,6 +26,7 @@ import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs"
 import { TextLink } from "@/components/ui/text-link";
 import { LandlordMessages } from "@/features/cases/components/landlord-messages";
 import { CaseConversation } from "@/features/conversation/components/case-conversation";
+import { TenantComplaintSection } from "@/features/complaints/components/tenant-complaint-section";
 import { AddPhotos } from "@/features/report/components/add-photos";
 import { AddReadings } from "@/features/report/components/add-readings";
 import { ReportFollowUp } from "@/features/report/components/report-follow-up";
@@ -140,6 +141,9 @@ function CaseView({ id }: { id: number }) {
         <ReadingsPanel c={c} open={hash === "#case-readings"} />
         <PhotosPanel id={id} open={hash === "#case-photos"} />
         <TimelinePanel c={c} open={hash === "#case-timeline"} />
+        <CollapsibleSection id="case-complaint" title="Complaint" defaultOpen={hash === "#case-complaint"}>
+          <TenantComplaintSection caseId={id} />
+        </CollapsibleSection>
         <CollapsibleSection id="case-answers" title="What you told us" defaultOpen={hash === "#case-answers"}>
           <ReportSummary
             sentAt={c.createdAt}

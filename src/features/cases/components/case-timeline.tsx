@@ -213,6 +213,55 @@ export function describeEvent(
         detail: str(after.sha256) ? <p className="break-all">Content SHA-256 {str(after.sha256)}</p> : undefined,
       };
     }
+    case "complaint-raised":
+      return {
+        title: you
+          ? "You made a formal complaint."
+          : `${who || "Staff"} recorded a formal complaint${after.onBehalf ? " for the tenant" : ""}.`,
+        detail: str(after.description) ? <p className="whitespace-pre-line">{str(after.description)}</p> : undefined,
+      };
+    case "complaint-acknowledged":
+    case "complaint-extended":
+    case "complaint-responded": {
+      const stage = num(after.stage);
+      const letter = after.letter as { subject?: unknown; body?: unknown } | null | undefined;
+      const what =
+        event.type === "complaint-acknowledged"
+          ? `acknowledged the complaint at stage ${stage}`
+          : event.type === "complaint-extended"
+            ? `extended stage ${stage} of the complaint by ${count(num(after.workingDays), "working day", "working days")}`
+            : after.final
+              ? "sent the final response to the complaint"
+              : `sent the stage ${stage} response to the complaint`;
+      const note = audience === "staff" ? str(after.note) : undefined;
+      return {
+        title: `${audience === "tenant" ? "Your landlord" : who || "Staff"} ${what}.`,
+        detail:
+          letter && typeof letter.body === "string" ? (
+            <>
+              <p className="font-semibold">{String(letter.subject ?? "")}</p>
+              <p className="whitespace-pre-line">{letter.body}</p>
+              {note ? <p className="mt-1 text-ink-soft">Staff note: {note}</p> : null}
+            </>
+          ) : note ? (
+            `Staff note: ${note}`
+          ) : undefined,
+      };
+    }
+    case "complaint-escalated":
+      return {
+        title: you ? "You took your complaint to stage 2." : `${who || "Staff"} took the complaint to stage 2.`,
+        detail: str(after.reason),
+      };
+    case "complaint-closed":
+      return { title: audience === "tenant" ? "Your complaint was closed." : `${who || "Staff"} closed the complaint.` };
+    case "complaint-remedy-changed":
+      return {
+        title:
+          audience === "tenant"
+            ? "Your landlord recorded how it will put things right."
+            : `${who || "Staff"} recorded the complaint's remedy.`,
+      };
     default:
       return { title: `${humanise(event.type)}${who ? `, by ${who}` : ""}.` };
   }
