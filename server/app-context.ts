@@ -169,6 +169,7 @@ export function createServices(
       verification,
       users,
       organisations,
+      complaints,
     },
     clock,
     logger,

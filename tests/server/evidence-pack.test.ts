@@ -115,6 +115,10 @@ beforeAll(async () => {
     })
     .expect(201);
   await tenant.post(`/api/cases/${caseId}/messages`, { body: "Thank you. Mornings suit us best." }).expect(201);
+  // A formal complaint (stage 1, not yet acknowledged): in the pack with its clocks.
+  await tenant
+    .post(`/api/cases/${caseId}/complaints`, { description: "Three weeks and nobody has looked at the bedroom wall." })
+    .expect(201);
   const fan = (
     await officer
       .post(`/api/cases/${caseId}/work-orders`, { type: "extractor-fan", description: "Fit a continuous fan." })
@@ -179,7 +183,9 @@ describe("a case's evidence pack", () => {
       expect(all, heading).toContain(heading);
     }
     expect(all).toContain("the baby's cot is in this room");
-    expect(all).toContain("No complaint has been raised about this case.");
+    expect(all.replace(/\s+/g, " ")).toContain("Three weeks and nobody has looked at the bedroom wall.");
+    expect(all).toContain("Acknowledge by");
+    expect(all).not.toContain("No complaint has been raised about this case.");
     expect(all).toContain("BS EN ISO 13788");
     expect(all).toContain("Hukka & Viitanen");
     expect(all).toContain("Version 1");

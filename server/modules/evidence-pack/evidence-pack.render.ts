@@ -362,7 +362,7 @@ const sections: Record<Heading, Section> = {
       );
     }
   },
-  Complaints: (pdf) => complaintsSection(pdf),
+  Complaints: (pdf, f) => complaintsSection(pdf, f.complaints),
   Timeline: (pdf, f) => {
     pdf.table(
       [
@@ -380,12 +380,64 @@ const sections: Record<Heading, Section> = {
   },
 };
 
-/**
- * Complaints about the case. Complaints are not recorded yet: this is the one place that will ask
- * the complaints service for them when it exists.
- */
-export function complaintsSection(pdf: PdfWriter): void {
-  pdf.paragraph("No complaint has been raised about this case.");
+const CLOCK_WORDS: Record<string, string> = {
+  open: "Open",
+  met: "Met",
+  missed: "Missed",
+  "not-started": "Not started",
+  pending: "Pending",
+};
+const pounds = (pence: number | null) => (pence === null ? "—" : `£${(pence / 100).toFixed(2)}`);
+
+/** Every formal complaint about the case: its two stages' clocks, the responses, the remedy. */
+export function complaintsSection(pdf: PdfWriter, complaints: PackFacts["complaints"]): void {
+  if (complaints.length === 0) {
+    pdf.paragraph("No complaint has been raised about this case.");
+    return;
+  }
+  for (const c of [...complaints].reverse()) {
+    pdf.subheading(`Complaint raised ${when(c.raisedAt)} (${words(c.status)})`);
+    pdf.facts([
+      ["Raised by", `${orDash(c.raisedBy)}${c.onBehalf ? " (for the household)" : ""}`],
+      ["In their words", c.description],
+      ["Escalated to stage 2", c.escalatedAt ? `${when(c.escalatedAt)}: ${orDash(c.escalationReason)}` : "—"],
+      ["Closed", when(c.closedAt)],
+    ]);
+    pdf.table(
+      [
+        { header: "Stage", width: 0.1 },
+        { header: "Acknowledge by", width: 0.2 },
+        { header: "Acknowledged", width: 0.2 },
+        { header: "Respond by", width: 0.2 },
+        { header: "Responded", width: 0.2 },
+        { header: "Extended", width: 0.1 },
+      ],
+      c.stages.map((k) => [
+        String(k.stage),
+        `${when(k.acknowledgeDueAt)}`,
+        `${when(k.acknowledgedAt)} (${CLOCK_WORDS[k.acknowledge] ?? words(k.acknowledge)})`,
+        `${when(k.respondDueAt)}`,
+        `${when(k.respondedAt)} (${CLOCK_WORDS[k.respond] ?? words(k.respond)})`,
+        k.extensionWorkingDays ? `${k.extensionWorkingDays} working days` : "—",
+      ]),
+    );
+    for (const k of c.stages) {
+      if (k.extensionReason) pdf.paragraph(k.extensionReason, { label: `Stage ${k.stage} extension, as told to the household` });
+      if (k.response) pdf.paragraph(k.response, { label: `Stage ${k.stage} response` });
+    }
+    const r = c.remedy;
+    pdf.facts([
+      ["Apology", r.apology ? orDash(r.apologyText) || "Yes" : "No"],
+      ["Put right", orDash(r.putRight)],
+      [
+        "Compensation offered",
+        r.compensationOfferedPence === null ? "—" : `${pounds(r.compensationOfferedPence)} on ${day(r.compensationOfferedOn)}`,
+      ],
+      ["Accepted", day(r.compensationAcceptedOn)],
+      ["Paid", r.compensationPaidPence === null ? "—" : `${pounds(r.compensationPaidPence)} on ${day(r.compensationPaidOn)}`],
+    ]);
+    if (c.staffNote) pdf.paragraph(c.staffNote, { label: INTERNAL });
+  }
 }
 
 /** Sections that start on a new page: the photos (one a page), and what follows them. */

@@ -11,6 +11,7 @@ import { PdfWriter } from "../../lib/pdf/pdf-document.js";
 import { inTransaction } from "../../lib/transaction.js";
 import type { DataSource } from "typeorm";
 import type { AssessmentService } from "../assessments/assessment.service.js";
+import type { ComplaintService } from "../complaints/complaint.service.js";
 import type { Actor } from "../auth/actor.js";
 import { addressOf, type CaseService } from "../cases/case.service.js";
 import type { ConversationService } from "../conversation/conversation.service.js";
@@ -65,6 +66,7 @@ export class EvidencePackService {
       verification: VerificationService;
       users: UserService;
       organisations: OrganisationService;
+      complaints: Pick<ComplaintService, "historyOfCase">;
     },
     private readonly clock: Clock,
     private readonly logger: Logger,
@@ -91,6 +93,7 @@ export class EvidencePackService {
     const evaluation = await d.evaluation.forCase(actor, c.id);
     const readings = await d.readings.list(c.id, { limit: 1_000_000 });
     const milestones = await d.inspections.milestones(c.id);
+    const complaints = await d.complaints.historyOfCase(c.id, c.organisationId);
     const { source: _source, ...timeframes } = await d.policy.forOrganisation(c.organisationId);
     const deadlines = computeDeadlines({
       hazardClass: c.hazardClass,
@@ -109,6 +112,7 @@ export class EvidencePackService {
         ...assessments.map((a) => a.assessorUserId),
         ...inspections.map((i) => i.inspectorUserId),
         ...orders.map((o) => o.createdById),
+        ...complaints.map((x) => x.complaint.raisedByUserId),
       ].filter((v): v is number => typeof v === "number"),
     );
     const nameOf = (id: number | null | undefined) => (id === null || id === undefined ? null : (people.get(id)?.name ?? null));
@@ -260,6 +264,40 @@ export class EvidencePackService {
           error: email?.error ?? null,
         })),
       deadlines: deadlines.map((x) => ({ stage: x.stage, dueAt: iso(x.dueAt), doneAt: iso(x.doneAt), state: x.state })),
+      complaints: complaints.map(({ complaint: x, clocks }) => ({
+        id: x.id,
+        status: x.status,
+        raisedAt: iso(x.raisedAt),
+        raisedBy: nameOf(x.raisedByUserId),
+        onBehalf: x.onBehalf,
+        description: x.description,
+        stages: clocks.map((k, i) => ({
+          stage: k.stage,
+          acknowledgeDueAt: iso(k.acknowledgeDueAt),
+          acknowledgedAt: iso(k.acknowledgedAt),
+          acknowledge: k.acknowledge,
+          respondDueAt: iso(k.respondDueAt),
+          respondedAt: iso(k.respondedAt),
+          respond: k.respond,
+          extensionWorkingDays: k.extensionWorkingDays,
+          extensionReason: i === 0 ? x.stage1ExtensionReason : x.stage2ExtensionReason,
+          response: i === 0 ? x.stage1Response : x.stage2Response,
+        })),
+        escalatedAt: iso(x.escalatedAt),
+        escalationReason: x.escalationReason,
+        closedAt: iso(x.closedAt),
+        remedy: {
+          apology: x.apology,
+          apologyText: x.apologyText,
+          putRight: x.putRight,
+          compensationOfferedPence: x.compensationOfferedPence,
+          compensationOfferedOn: x.compensationOfferedOn,
+          compensationAcceptedOn: x.compensationAcceptedOn,
+          compensationPaidPence: x.compensationPaidPence,
+          compensationPaidOn: x.compensationPaidOn,
+        },
+        staffNote: x.staffNote,
+      })),
       deadlinesAsOf: iso(now),
       works: orders.map((o) => ({
         id: o.id,
