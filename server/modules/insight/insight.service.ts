@@ -199,7 +199,7 @@ export class InsightService {
               GROUP_CONCAT(v.hours_change SEPARATOR ',') AS changes
          FROM (
            SELECT pr.built_form, pr.wall_type, pr.glazing_type,
-                  JSON_VALUE(e.after, '$.effective') = 'true' AS effective,
+                  JSON_VALUE(e.after, '$.effective') IN ('true', '1') AS effective,
                   CAST(NULLIF(JSON_VALUE(e.after, '$.hoursAt80PerDayChange'), 'null') AS DOUBLE) AS hours_change,
                   COALESCE((SELECT GROUP_CONCAT(DISTINCT w.type ORDER BY w.type SEPARATOR ',')
                               FROM work_orders w
