@@ -85,7 +85,9 @@ beforeAll(async () => {
   // Works begun Tuesday S+2 10:00: further work due 84 days after → MET. Safety work: not applicable.
   // Working days from awareness (Saturday, day 0): investigation Sunday → 0; summary Monday → 1; works Tuesday → 2.
   const E = await log(officer, alder[0]!.id, at(-1, 11));
-  await officer.patch(`/api/cases/${E}`, { hazardClass: "emergency", reason: "Child with asthma; mould spreading fast." }).expect(200);
+  await officer
+    .patch(`/api/cases/${E}`, { hazardClass: "emergency", reason: "Child with asthma; mould spreading fast." })
+    .expect(200);
   await officer.post(`/api/cases/${E}/inspections`, inspection(at(0, 11, 1))).expect(201);
   await summaryAt(E, at(1, 10));
   await workDone(a.org.id, E, "extractor-fan", at(2, 10), a.maintenance.id);
@@ -167,7 +169,9 @@ describe("the compliance dashboard", () => {
     expect(stage("supplementary-work")).toMatchObject({ met: 2, missed: 0, open: 1, metPct: 66.7 });
     // By month: every case of the period was reported in October (S−10 … S−1 all fall in October).
     const october = localDate(S).slice(0, 7);
-    expect(d.stagesByMonth.find((r: { month: string; stage: string }) => r.month === october && r.stage === "investigate")).toMatchObject({
+    expect(
+      d.stagesByMonth.find((r: { month: string; stage: string }) => r.month === october && r.stage === "investigate"),
+    ).toMatchObject({
       met: 2,
       missed: 2,
     });
@@ -246,7 +250,10 @@ describe("the compliance dashboard", () => {
   it("exports a table as CSV and .xlsx with the screen's headings", async () => {
     const csv = await officer.get(`/api/insight/export?table=stages&${range}`).expect(200);
     expect(csv.headers["content-type"]).toContain("text/csv");
-    const lines = csv.text.replace(/^\uFEFF/, "").trim().split("\r\n");
+    const lines = csv.text
+      .replace(/^\uFEFF/, "")
+      .trim()
+      .split("\r\n");
     expect(lines[0]).toBe("Stage,Met,Missed,Open,Met %,Missed %");
     expect(lines).toContain("Investigate,2,2,0,50,50");
     const xlsx = await officer.get(`/api/insight/export?table=hotspots&format=xlsx&${range}`).buffer(true).expect(200);
@@ -273,7 +280,9 @@ describe("what works", () => {
     // The insulation + mould wash group (4) is not sent, only that a group was left out.
     expect(w.groupsNotShown).toBe(1);
     expect(JSON.stringify(w)).not.toContain("mould-wash");
-    const csv = await otherOfficer.get(`/api/insight/export?table=what-works&from=${localDate(at(-60))}&to=${localDate(S)}`).expect(200);
+    const csv = await otherOfficer
+      .get(`/api/insight/export?table=what-works&from=${localDate(at(-60))}&to=${localDate(S)}`)
+      .expect(200);
     expect(csv.text).not.toContain("Mould wash");
     // Landlord A has no verdicts.
     expect((await officer.get(`/api/insight/what-works?${range}`).expect(200)).body.groups).toEqual([]);

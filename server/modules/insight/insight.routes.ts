@@ -44,7 +44,12 @@ export function createInsightRouter({ insight, clock }: { insight: InsightServic
   return router;
 }
 
-async function tableRows(insight: InsightService, actor: Actor, query: InsightQuery, table: InsightTable): Promise<readonly unknown[]> {
+async function tableRows(
+  insight: InsightService,
+  actor: Actor,
+  query: InsightQuery,
+  table: InsightTable,
+): Promise<readonly unknown[]> {
   if (table === "what-works") return (await insight.whatWorks(actor, query)).groups;
   const d = await insight.dashboard(actor, query);
   const byTable: Record<Exclude<InsightTable, "what-works">, readonly unknown[]> = {

@@ -1,7 +1,11 @@
 import type { DataSource } from "typeorm";
 import type { z } from "zod";
-import type { dashboardResponse, whatWorksResponse } from "../../../src/lib/contracts/insight.js";
-import { HOTSPOT_DIMENSIONS, INSIGHT_DURATIONS, INSIGHT_STAGES, type HotspotDimension } from "../../../src/lib/contracts/insight.js";
+import {
+  HOTSPOT_DIMENSIONS,
+  INSIGHT_DURATIONS,
+  INSIGHT_STAGES,
+  type HotspotDimension,
+} from "../../../src/lib/contracts/insight.js";
 import { OPEN_CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
 import {
   londonDayStart,
@@ -108,18 +112,17 @@ export class InsightService {
     const p = this.period(query, now);
     const org = actor.organisationId;
     const months = londonMonths(p.start, p.end);
-    const [open, stageRows, durationRows, repeats, hotspotRows, seasonalRows, officers, operatives, estates] =
-      await Promise.all([
-        this.openCases(org, p),
-        this.stageCounts(org, p, now, months),
-        this.durationCounts(org, p),
-        this.repeatCounts(org, p),
-        this.hotspotCounts(org, p),
-        this.seasonalCounts(org, p, months),
-        this.officerWorkload(org, p, now),
-        this.operativeWorkload(org, p, now),
-        this.estates(org),
-      ]);
+    const [open, stageRows, durationRows, repeats, hotspotRows, seasonalRows, officers, operatives, estates] = await Promise.all([
+      this.openCases(org, p),
+      this.stageCounts(org, p, now, months),
+      this.durationCounts(org, p),
+      this.repeatCounts(org, p),
+      this.hotspotCounts(org, p),
+      this.seasonalCounts(org, p, months),
+      this.officerWorkload(org, p, now),
+      this.operativeWorkload(org, p, now),
+      this.estates(org),
+    ]);
 
     const stageTotals = new Map<string, { met: number; missed: number; open: number }>();
     const byMonth = new Map<string, { met: number; missed: number; open: number }>();
@@ -131,7 +134,11 @@ export class InsightService {
       stageTotals.set(r.stage, t);
       byMonth.set(`${r.month}|${r.stage}`, { met: Number(r.met), missed: Number(r.missed), open: Number(r.open) });
     }
-    const stageRow = <T extends object>(stage: (typeof INSIGHT_STAGES)[number], c: { met: number; missed: number; open: number }, extra: T) => {
+    const stageRow = <T extends object>(
+      stage: (typeof INSIGHT_STAGES)[number],
+      c: { met: number; missed: number; open: number },
+      extra: T,
+    ) => {
       const all = c.met + c.missed + c.open;
       return { ...extra, stage, ...c, metPct: percentOf(c.met, all), missedPct: percentOf(c.missed, all) };
     };
@@ -154,7 +161,9 @@ export class InsightService {
           cases: Number(r.cases),
           perHundredHomes: perHundredHomes(Number(r.cases), Number(r.homes)),
         }))
-        .sort((a, b) => (b.perHundredHomes ?? -1) - (a.perHundredHomes ?? -1) || b.cases - a.cases || a.value.localeCompare(b.value)),
+        .sort(
+          (a, b) => (b.perHundredHomes ?? -1) - (a.perHundredHomes ?? -1) || b.cases - a.cases || a.value.localeCompare(b.value),
+        ),
     );
     const seasonal = new Map(seasonalRows.map((r) => [r.month, Number(r.n)]));
 
@@ -215,7 +224,15 @@ export class InsightService {
          ) v
         GROUP BY v.types, v.built_form, v.wall_type, v.glazing_type`,
       [actor.organisationId, p.start, p.end, ...(p.estate === null ? [] : [p.estate])],
-    )) as { types: string; built_form: string; wall_type: string; glazing_type: string; n: number; eff: number; changes: string | null }[];
+    )) as {
+      types: string;
+      built_form: string;
+      wall_type: string;
+      glazing_type: string;
+      n: number;
+      eff: number;
+      changes: string | null;
+    }[];
     const shown = rows.filter((r) => showable(Number(r.n)));
     return {
       from: p.from,

@@ -38,7 +38,8 @@ export function milestoneFigures(c: Pick<Case, "awareAt" | "worksDoneAt">, deadl
   const out: MilestoneFigure[] = deadlines
     .filter((d) => d.state !== "not-applicable")
     .map((d) => ({ milestone: d.stage, dueAt: d.dueAt, doneAt: d.doneAt, workingDays: days(d.doneAt) }));
-  if (c.worksDoneAt) out.push({ milestone: "works-completed", dueAt: null, doneAt: c.worksDoneAt, workingDays: days(c.worksDoneAt) });
+  if (c.worksDoneAt)
+    out.push({ milestone: "works-completed", dueAt: null, doneAt: c.worksDoneAt, workingDays: days(c.worksDoneAt) });
   return out;
 }
 
@@ -87,18 +88,23 @@ export class TriageService {
       worseAge !== null && worseAge <= worseWithin ? worseWithin - worseAge : null,
     ].filter((h): h is number => h !== null);
     const changesInHours = moments.length ? Math.min(...moments) : null;
-    await this.cases.storeTriageFigures(c.id, seen, {
-      riskState: facts.risk.state,
-      mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
-      hhsrsBand: facts.latestAssessment?.band ?? null,
-      hhsrsCategory: (facts.latestAssessment?.category as 1 | 2 | undefined) ?? null,
-      recurrence: facts.input.recurrence,
-      priority: priority.score,
-      nextStage: facts.next?.stage ?? null,
-      nextDueAt: facts.next?.dueAt ?? null,
-      // 1 ms past the boundary, so the step has certainly been crossed when it is worked out again.
-      triageDueAt: changesInHours === null ? null : new Date(now.getTime() + changesInHours * HOUR_MS + 1),
-    }, milestoneFigures(c, facts.deadlines));
+    await this.cases.storeTriageFigures(
+      c.id,
+      seen,
+      {
+        riskState: facts.risk.state,
+        mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
+        hhsrsBand: facts.latestAssessment?.band ?? null,
+        hhsrsCategory: (facts.latestAssessment?.category as 1 | 2 | undefined) ?? null,
+        recurrence: facts.input.recurrence,
+        priority: priority.score,
+        nextStage: facts.next?.stage ?? null,
+        nextDueAt: facts.next?.dueAt ?? null,
+        // 1 ms past the boundary, so the step has certainly been crossed when it is worked out again.
+        triageDueAt: changesInHours === null ? null : new Date(now.getTime() + changesInHours * HOUR_MS + 1),
+      },
+      milestoneFigures(c, facts.deadlines),
+    );
     return priority;
   }
 

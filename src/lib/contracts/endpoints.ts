@@ -243,7 +243,13 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/cases/:id/verification", LEADS, "Decide whether the works fixed the damp", verificationResponse),
 
   e("GET", "/api/insight/dashboard", STAFF, "The compliance dashboard's figures for a period and estate", dashboardResponse),
-  e("GET", "/api/insight/what-works", STAFF, "Fixes judged effective by work and home type (groups of five or more)", whatWorksResponse),
+  e(
+    "GET",
+    "/api/insight/what-works",
+    STAFF,
+    "Fixes judged effective by work and home type (groups of five or more)",
+    whatWorksResponse,
+  ),
   e("GET", "/api/insight/export", STAFF, "One dashboard table as CSV or .xlsx (table=…, format=xlsx)", EXPORT_FILE),
 
   e("GET", "/api/work-orders", STAFF, "Work orders, filtered and sorted", workOrderPageResponse),
