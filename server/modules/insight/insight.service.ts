@@ -4,7 +4,9 @@ import {
   HOTSPOT_DIMENSIONS,
   INSIGHT_DURATIONS,
   INSIGHT_STAGES,
+  type dashboardResponse,
   type HotspotDimension,
+  type whatWorksResponse,
 } from "../../../src/lib/contracts/insight.js";
 import { OPEN_CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
 import {
