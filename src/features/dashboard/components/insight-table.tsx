@@ -26,7 +26,7 @@ export function InsightTable<T>({ table, rows, caption, filters, empty }: Insigh
       {rows.length === 0 ? (
         <p className="text-ink-soft">{empty}</p>
       ) : (
-        <div className="overflow-x-auto">
+        <div role="region" aria-label={`${caption} (scrolls sideways)`} tabIndex={0} className="overflow-x-auto">
           <table className="w-full border-collapse text-sm">
             <caption className="mb-1 text-left font-semibold text-ink">{caption}</caption>
             <thead>
