@@ -358,7 +358,7 @@ interface SeedCase {
   recurrence: boolean;
 }
 
-interface Seeded {
+export interface Seeded {
   officer: Actor;
   caseIds: { open: number[]; closed: number[] };
   counts: {
@@ -445,7 +445,8 @@ function readingsFor(
   return out;
 }
 
-async function seed(
+/** Seeds the benchmark landlord (also used by bench:insight). */
+export async function seed(
   ds: DataSource,
   db: { host: string; port: number; user: string; password: string; name: string },
   dir: string,
@@ -1415,5 +1416,7 @@ async function main(): Promise<void> {
   }
 }
 
-if (argv.includes(SERVE_FLAG)) await serveApp();
-else await main();
+// Run, unless imported for its seeding (bench:insight).
+const runDirectly = process.argv[1] !== undefined && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
+if (runDirectly && argv.includes(SERVE_FLAG)) await serveApp();
+else if (runDirectly) await main();

@@ -25,6 +25,7 @@ import { StockRegisterFields1796424932669 } from "./migrations/1796424932669-Sto
 import { Webhooks1796425164411 } from "./migrations/1796425164411-Webhooks.js";
 import { IntegrationAdminActions1796434337752 } from "./migrations/1796434337752-IntegrationAdminActions.js";
 import { ExportSortIndexes1796436010598 } from "./migrations/1796436010598-ExportSortIndexes.js";
+import { CaseMilestones1796443743318 } from "./migrations/1796443743318-CaseMilestones.js";
 import { Complaints1796444351206 } from "./migrations/1796444351206-Complaints.js";
 
 export const migrations = [
@@ -53,5 +54,6 @@ export const migrations = [
   Webhooks1796425164411,
   IntegrationAdminActions1796434337752,
   ExportSortIndexes1796436010598,
+  CaseMilestones1796443743318,
   Complaints1796444351206,
 ];
