@@ -28,6 +28,7 @@ import { StockImportService } from "./modules/properties/stock-import.service.js
 import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { QueueService } from "./modules/cases/case-queue.service.js";
 import { TriageService } from "./modules/triage/triage.service.js";
+import { InsightService } from "./modules/insight/insight.service.js";
 import { UserService } from "./modules/users/user.service.js";
 import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
@@ -56,6 +57,7 @@ export interface Services {
   stock: StockImportService;
   queue: QueueService;
   triage: TriageService;
+  insight: InsightService;
   works: WorkOrderService;
   verification: VerificationService;
   tenancies: TenancyService;
@@ -142,6 +144,7 @@ export function createServices(
   const conversation = new ConversationService(dataSource, config, cases, photos, mail, users, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   const queue = new QueueService(dataSource, triage, clock);
+  const insight = new InsightService(dataSource, triage, clock);
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
@@ -163,6 +166,7 @@ export function createServices(
     properties,
     stock,
     queue,
+    insight,
     readings,
     tenancies,
     triage,

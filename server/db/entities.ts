@@ -1,4 +1,5 @@
 import { CaseEvent } from "../modules/cases/case-event.entity.js";
+import { CaseMilestone } from "../modules/cases/case-milestone.entity.js";
 import { Case } from "../modules/cases/case.entity.js";
 import { WorkOrderBooking } from "../modules/works/booking.entity.js";
 import { Contractor } from "../modules/works/contractor.entity.js";
@@ -48,6 +49,7 @@ export const entities = [
   OutboxEmail,
   Case,
   CaseEvent,
+  CaseMilestone,
   Photo,
   Reading,
   ReadingImport,

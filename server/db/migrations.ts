@@ -25,6 +25,7 @@ import { StockRegisterFields1796424932669 } from "./migrations/1796424932669-Sto
 import { Webhooks1796425164411 } from "./migrations/1796425164411-Webhooks.js";
 import { IntegrationAdminActions1796434337752 } from "./migrations/1796434337752-IntegrationAdminActions.js";
 import { ExportSortIndexes1796436010598 } from "./migrations/1796436010598-ExportSortIndexes.js";
+import { CaseMilestones1796443743318 } from "./migrations/1796443743318-CaseMilestones.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -52,4 +53,5 @@ export const migrations = [
   Webhooks1796425164411,
   IntegrationAdminActions1796434337752,
   ExportSortIndexes1796436010598,
+  CaseMilestones1796443743318,
 ];

@@ -97,6 +97,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             gate(STAFF, [
               page("homes", () => import("./routes/staff/homes")),
               page("homes/:id", () => import("./routes/staff/home")),
+              page("dashboard", () => import("./routes/staff/dashboard")),
             ]),
             gate(["officer", "admin"], [page("log-report", () => import("./routes/staff/log-report"))]),
             gate(["admin"], [page("homes/new", () => import("./routes/admin/new-home"))]),

@@ -156,3 +156,10 @@ export const stockImportKeys = {
   preview: () => [...stockImportKeys.all, "preview"] as const,
   run: () => [...stockImportKeys.all, "run"] as const,
 };
+
+/** The compliance dashboard and "what works": period and estate as the URL has them. */
+export const insightKeys = {
+  all: ["insight"] as const,
+  dashboard: <P extends object>(filters: P) => [...insightKeys.all, "dashboard", filters] as const,
+  whatWorks: <P extends object>(filters: P) => [...insightKeys.all, "what-works", filters] as const,
+};

@@ -30,6 +30,7 @@ import { userExportQuerySchema, userListQuerySchema, userUpdateSchema } from "..
 import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
 import { adminActionListQuerySchema, homeUpsertSchema } from "../integrations/integrations.schemas.js";
 import { tenancyImportFieldsSchema } from "../tenancy-import/tenancy-import.schemas.js";
+import { insightExportQuerySchema, insightQuerySchema } from "../insight/insight.schemas.js";
 import {
   bookingResponseSchema,
   contractorSchema,
@@ -98,6 +99,9 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "GET /api/webhooks/:id/deliveries": { query: webhookDeliveryListQuerySchema },
   "POST /api/tenancy-imports": { body: tenancyImportFieldsSchema },
   "GET /api/cases/export": { query: queueExportQuerySchema },
+  "GET /api/insight/dashboard": { query: insightQuerySchema },
+  "GET /api/insight/what-works": { query: insightQuerySchema },
+  "GET /api/insight/export": { query: insightExportQuerySchema },
   "GET /api/cases/:id/readings/export": { query: readingsExportQuerySchema },
   "GET /api/work-orders/export": { query: workOrderExportQuerySchema },
   "GET /api/properties/export": { query: propertyExportQuerySchema },

@@ -90,7 +90,8 @@ export type CaseEventPayload =
   | {
       type: "fix-verified";
       /** override: why "fix effective" was recorded without enough readings after the works (staff only). */
-      after: { effective: boolean; note: string; override?: string | null };
+      /** hoursAt80PerDayChange: the readings' change in hours a day at ≥ 80 % surface RH, after less before (mean over rooms with both), for the dashboard's "what works"; null without readings. */
+      after: { effective: boolean; note: string; override?: string | null; hoursAt80PerDayChange?: number | null };
     };
 
 export type CaseEventType = CaseEventPayload["type"];

@@ -41,6 +41,9 @@ export interface Equipment {
 // The queue's counts of open cases by vulnerability and deadline read this index alone.
 @Index("idx_cases_org_status_vulnerable_due", ["organisationId", "status", "vulnerableHousehold", "nextDueAt"])
 @Index("idx_cases_triage_due", ["triageDueAt"])
+// The dashboard: cases known in a period, and a home's earlier cases (repeats).
+@Index("idx_cases_org_aware", ["organisationId", "awareAt"])
+@Index("idx_cases_property_aware", ["propertyId", "awareAt"])
 // Descending priority then ascending due time: the queue's default order. TypeORM cannot declare a
 // descending index, so the migration creates it and TypeORM leaves it alone.
 // (organisation_id, priority DESC, next_due_at)

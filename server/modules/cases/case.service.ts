@@ -22,6 +22,7 @@ import { CaseEvent } from "./case-event.entity.js";
 import { asCaseEvent, type CaseEventOf, type CaseEventType, type NewCaseEvent } from "./case-events.js";
 import type { CaseEventListener, NoticedCaseEvent } from "./case-event-listener.js";
 import { Case } from "./case.entity.js";
+import { CaseMilestone, type CaseMilestoneName } from "./case-milestone.entity.js";
 import type { CasePatch } from "./cases.schemas.js";
 import type { Clock } from "../../lib/clock.js";
 import type { EmergencyPhoneSource } from "../../lib/emergency-phone.js";
@@ -66,6 +67,14 @@ export interface WorseOutcome {
 }
 
 /** The triage figures stored on a case for the queue, worked out by TriageService. */
+/** One row of the dashboard's clock projection (case_milestones), as TriageService works it out. */
+export interface MilestoneFigure {
+  milestone: CaseMilestoneName;
+  dueAt: Date | null;
+  doneAt: Date | null;
+  workingDays: number | null;
+}
+
 export type TriageFigures = Pick<
   Case,
   | "riskState"
@@ -375,6 +384,7 @@ export class CaseService implements CaseEmailTimeline {
     caseId: number,
     seen: { triageDueAt: Date | null; updatedAt: Date },
     figures: TriageFigures,
+    milestones: readonly MilestoneFigure[] = [],
   ): Promise<boolean> {
     return inTransaction(this.dataSource, async (m) => {
       const [row] = (await m.query("SELECT triage_due_at, updated_at FROM cases WHERE id = ? FOR UPDATE", [caseId])) as {
@@ -385,6 +395,7 @@ export class CaseService implements CaseEmailTimeline {
       const time = (d: Date | null) => (d === null ? null : new Date(d).getTime());
       if (time(row.triage_due_at) !== time(seen.triageDueAt) || time(row.updated_at) !== seen.updatedAt.getTime()) return false;
       await m.getRepository(Case).update(caseId, { ...figures, updatedAt: () => "updated_at" } as unknown as Partial<Case>);
+      await this.storeMilestones(m, caseId, milestones);
       // The next deadline has passed undone: the listener hears of it (it keeps it to once per case and stage).
       const now = this.clock.now();
       if (figures.nextStage && figures.nextDueAt && figures.nextDueAt.getTime() < now.getTime()) {
@@ -397,6 +408,18 @@ export class CaseService implements CaseEmailTimeline {
       }
       return true;
     });
+  }
+
+  /**
+   * The dashboard's projection of the case's clocks (case_milestones), replaced whole in the
+   * transaction that stores next_stage/next_due_at from the same deadlines, so the two never disagree.
+   */
+  private async storeMilestones(m: EntityManager, caseId: number, milestones: readonly MilestoneFigure[]): Promise<void> {
+    const repo = m.getRepository(CaseMilestone);
+    await repo.delete({ caseId });
+    if (milestones.length === 0) return;
+    const [row] = (await m.query("SELECT organisation_id FROM cases WHERE id = ?", [caseId])) as { organisation_id: number }[];
+    await repo.insert(milestones.map((x) => ({ ...x, caseId, organisationId: row!.organisation_id })));
   }
 
   /**

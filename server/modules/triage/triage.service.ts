@@ -1,4 +1,5 @@
 import { computeDeadlines, type Deadline } from "../../../src/lib/domain/deadlines.js";
+import { workingDaysBetween } from "../../../src/lib/domain/working-days.js";
 import {
   hoursUntilDeadlinePartChanges,
   TRIAGE_WEIGHTS,
@@ -8,7 +9,7 @@ import {
 } from "../../../src/lib/domain/triage-priority.js";
 import type { Actor } from "../auth/actor.js";
 import type { AssessmentService } from "../assessments/assessment.service.js";
-import type { Case, CaseService } from "../cases/case.service.js";
+import type { Case, CaseService, MilestoneFigure } from "../cases/case.service.js";
 import type { EvaluationService } from "../evaluation/evaluation.service.js";
 import type { InspectionService } from "../inspections/inspection.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
@@ -26,6 +27,20 @@ export function nextDeadline(status: Case["status"], deadlines: Deadline[]): Dea
   );
   running.sort((a, b) => a.dueAt!.getTime() - b.dueAt!.getTime());
   return running[0] ?? null;
+}
+
+/**
+ * The dashboard's clock projection (case_milestones) from the same deadlines as next_stage: each stage
+ * that applies, and the works completed, with the working days from awareness to done.
+ */
+export function milestoneFigures(c: Pick<Case, "awareAt" | "worksDoneAt">, deadlines: readonly Deadline[]): MilestoneFigure[] {
+  const days = (doneAt: Date | null) => (doneAt === null ? null : Math.max(0, workingDaysBetween(c.awareAt, doneAt)));
+  const out: MilestoneFigure[] = deadlines
+    .filter((d) => d.state !== "not-applicable")
+    .map((d) => ({ milestone: d.stage, dueAt: d.dueAt, doneAt: d.doneAt, workingDays: days(d.doneAt) }));
+  if (c.worksDoneAt)
+    out.push({ milestone: "works-completed", dueAt: null, doneAt: c.worksDoneAt, workingDays: days(c.worksDoneAt) });
+  return out;
 }
 
 /**
@@ -73,18 +88,23 @@ export class TriageService {
       worseAge !== null && worseAge <= worseWithin ? worseWithin - worseAge : null,
     ].filter((h): h is number => h !== null);
     const changesInHours = moments.length ? Math.min(...moments) : null;
-    await this.cases.storeTriageFigures(c.id, seen, {
-      riskState: facts.risk.state,
-      mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
-      hhsrsBand: facts.latestAssessment?.band ?? null,
-      hhsrsCategory: (facts.latestAssessment?.category as 1 | 2 | undefined) ?? null,
-      recurrence: facts.input.recurrence,
-      priority: priority.score,
-      nextStage: facts.next?.stage ?? null,
-      nextDueAt: facts.next?.dueAt ?? null,
-      // 1 ms past the boundary, so the step has certainly been crossed when it is worked out again.
-      triageDueAt: changesInHours === null ? null : new Date(now.getTime() + changesInHours * HOUR_MS + 1),
-    });
+    await this.cases.storeTriageFigures(
+      c.id,
+      seen,
+      {
+        riskState: facts.risk.state,
+        mouldIndex: facts.risk.mouldIndex === null ? null : Math.round(facts.risk.mouldIndex * 100) / 100,
+        hhsrsBand: facts.latestAssessment?.band ?? null,
+        hhsrsCategory: (facts.latestAssessment?.category as 1 | 2 | undefined) ?? null,
+        recurrence: facts.input.recurrence,
+        priority: priority.score,
+        nextStage: facts.next?.stage ?? null,
+        nextDueAt: facts.next?.dueAt ?? null,
+        // 1 ms past the boundary, so the step has certainly been crossed when it is worked out again.
+        triageDueAt: changesInHours === null ? null : new Date(now.getTime() + changesInHours * HOUR_MS + 1),
+      },
+      milestoneFigures(c, facts.deadlines),
+    );
     return priority;
   }
 
@@ -124,6 +144,7 @@ export class TriageService {
     return {
       risk,
       latestAssessment,
+      deadlines,
       next,
       input: {
         surfaceState: risk.state ?? ("unknown" as const),

@@ -29,6 +29,19 @@ export interface VerificationView {
 /** Enough readings after the works in at least one affected room to compare (the page's "Not enough readings yet" otherwise). */
 const hasEnoughReadings = (rooms: VerificationView["rooms"]) => rooms.some((r) => r.comparison.improved !== null);
 
+/**
+ * For the dashboard's "what works": the change in hours a day at ≥ 80 % surface RH (after less before),
+ * the mean over the rooms with both rates, to one decimal; null when no room has both.
+ */
+export function hoursAt80PerDayChange(rooms: VerificationView["rooms"]): number | null {
+  const changes = rooms
+    .map((r) => [r.comparison.before.hoursAtLeast80PerDay, r.comparison.after.hoursAtLeast80PerDay] as const)
+    .filter((pair): pair is readonly [number, number] => pair[0] !== null && pair[1] !== null)
+    .map(([before, after]) => after - before);
+  if (changes.length === 0) return null;
+  return Math.round((changes.reduce((s, v) => s + v, 0) / changes.length) * 10) / 10;
+}
+
 /** After the works: readings before against after, the lead's decision, and the end-of-period reminders. */
 export class VerificationService {
   constructor(
@@ -126,7 +139,8 @@ export class VerificationService {
         );
       // "Fix effective" needs the readings after the works, or an override whose reason is kept on the timeline.
       const override = input.effective ? (input.override?.reason ?? null) : null;
-      if (input.effective && !override && !hasEnoughReadings(await this.comparisons(c, fresh.worksDoneAt ?? c.worksDoneAt!))) {
+      const rooms = await this.comparisons(c, fresh.worksDoneAt ?? c.worksDoneAt!);
+      if (input.effective && !override && !hasEnoughReadings(rooms)) {
         throw new AppError(
           409,
           "not_enough_readings",
@@ -138,7 +152,12 @@ export class VerificationService {
         caseId: c.id,
         actorId: actor.id,
         type: "fix-verified",
-        after: { effective: input.effective, note: input.note, ...(override ? { override } : {}) },
+        after: {
+          effective: input.effective,
+          note: input.note,
+          ...(override ? { override } : {}),
+          hoursAt80PerDayChange: hoursAt80PerDayChange(rooms),
+        },
       });
       if (input.effective) {
         await this.works.moveCase(

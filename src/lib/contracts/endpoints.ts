@@ -49,6 +49,7 @@ import {
 } from "./properties.js";
 import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
+import { dashboardResponse, whatWorksResponse } from "./insight.js";
 import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
 import { stockImportListResponse, stockImportPreviewResponse, stockImportResponse } from "./stock-imports.js";
 import { staffListResponse, userHistoryResponse, userPageResponse, userResponse } from "./users.js";
@@ -240,6 +241,16 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/cases/:id/work-orders", "signed-in", "A case's work orders", caseWorkOrdersResponse),
   e("GET", "/api/cases/:id/verification", "signed-in", "Readings before and after the works", verificationResponse),
   e("POST", "/api/cases/:id/verification", LEADS, "Decide whether the works fixed the damp", verificationResponse),
+
+  e("GET", "/api/insight/dashboard", STAFF, "The compliance dashboard's figures for a period and estate", dashboardResponse),
+  e(
+    "GET",
+    "/api/insight/what-works",
+    STAFF,
+    "Fixes judged effective by work and home type (groups of five or more)",
+    whatWorksResponse,
+  ),
+  e("GET", "/api/insight/export", STAFF, "One dashboard table as CSV or .xlsx (table=…, format=xlsx)", EXPORT_FILE),
 
   e("GET", "/api/work-orders", STAFF, "Work orders, filtered and sorted", workOrderPageResponse),
   e("GET", "/api/work-orders/export", STAFF, "The work orders as filtered, as CSV or .xlsx (format=xlsx)", EXPORT_FILE),

@@ -19,5 +19,6 @@ export * from "./conversation.js";
 export * from "./mail.js";
 export * from "./integrations.js";
 export * from "./webhooks.js";
+export * from "./insight.js";
 export * from "./endpoints.js";
 export * from "./tenancy-import.js";

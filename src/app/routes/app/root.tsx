@@ -15,11 +15,13 @@ const navByRole: Record<Role, NavItem[]> = {
   officer: [
     { to: "/queue", label: "Case queue" },
     { to: "/homes", label: "Homes" },
+    { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
   maintenance: [
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
+    { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
   admin: [
@@ -33,6 +35,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
+    { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
 };

@@ -1,0 +1,28 @@
+import type { QueryClient } from "@tanstack/react-query";
+import type { LoaderFunctionArgs } from "react-router-dom";
+import { PageHeader } from "@/components/ui/page-header";
+import { signedInAs } from "@/features/auth/api/require-role";
+import { dashboardQueryOptions } from "@/features/dashboard/api/get-dashboard";
+import { DashboardView } from "@/features/dashboard/components/dashboard-view";
+import { filtersFrom } from "@/features/dashboard/lib/insight-filters";
+
+export const clientLoader =
+  (queryClient: QueryClient) =>
+  async ({ request }: LoaderFunctionArgs) => {
+    if (await signedInAs(queryClient, ["officer", "maintenance", "admin"]))
+      void queryClient.prefetchQuery(dashboardQueryOptions(filtersFrom(new URL(request.url).searchParams)));
+    return null;
+  };
+
+export default function DashboardPage() {
+  return (
+    <>
+      <title>Dashboard · Dewline</title>
+      <PageHeader
+        title="Dashboard"
+        description="How the landlord is doing on its deadlines, where damp and mould cluster, who is carrying the work, and which fixes work."
+      />
+      <DashboardView />
+    </>
+  );
+}
