@@ -39,6 +39,7 @@ import { ApiKeyService } from "./modules/integrations/api-key.service.js";
 import { WebhookService } from "./modules/webhooks/webhook.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
+import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -68,6 +69,7 @@ export interface Services {
   webhooks: WebhookService;
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
+  evidencePacks: EvidencePackService;
 }
 
 export interface AppContext {
@@ -152,6 +154,25 @@ export function createServices(
   const apiKeys = new ApiKeyService(dataSource, users, clock, adminActions, logger);
   const invitationBatches = new InvitationBatchService(dataSource, auth, users, clock, config.invitationBatches);
   const tenancyImports = new TenancyImportService(dataSource, properties, tenancies, users, invitationBatches, clock);
+  const evidencePacks = new EvidencePackService(
+    dataSource,
+    {
+      cases,
+      photos,
+      readings,
+      evaluation,
+      assessments,
+      inspections,
+      policy,
+      conversation,
+      works,
+      verification,
+      users,
+      organisations,
+    },
+    clock,
+    logger,
+  );
   return {
     assessments,
     inspections,
@@ -180,6 +201,7 @@ export function createServices(
     webhooks,
     invitationBatches,
     tenancyImports,
+    evidencePacks,
   };
 }
 

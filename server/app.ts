@@ -38,6 +38,7 @@ import { createOutboxRouter } from "./modules/mail/mail.routes.js";
 import { createIntegrationApiRouter } from "./modules/integrations/integration-api.routes.js";
 import { createAdminActionsRouter, createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
 import { createWebhooksRouter } from "./modules/webhooks/webhooks.routes.js";
+import { createEvidencePackRouter } from "./modules/evidence-pack/evidence-pack.routes.js";
 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
@@ -163,6 +164,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy, clock }),
   );
   api.use("/cases", createConversationRouter({ conversation: services.conversation }));
+  api.use("/cases", requireAuth, createEvidencePackRouter({ packs: services.evidencePacks }));
   api.use(
     "/cases",
     requireAuth,

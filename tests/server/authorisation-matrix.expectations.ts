@@ -75,6 +75,7 @@ const ROWS: Record<string, Row> = {
   "GET /api/cases/:id/messages":                                [ 401, "ok",  404, "ok", "ok", "ok",  404,  404],
   "POST /api/cases/:id/messages/read":                          [ 401, "ok",  404, "ok", "ok", "ok",  404,  404],
   "GET /api/cases/:id/deadlines":                               [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
+  "GET /api/cases/:id/evidence-pack":                           [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
   "POST /api/cases/:id/work-orders":                            [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
   "GET /api/cases/:id/work-orders":                             [ 401, "ok",  404, "ok", "ok", "ok",  404,  404],
   "GET /api/cases/:id/verification":                            [ 401, "ok",  404, "ok", "ok", "ok",  404,  404],

@@ -87,6 +87,8 @@ export type CaseEventPayload =
     }
   | { type: "work-order-cancelled"; after: { workOrderId: number; reason: string } }
   | { type: "monitoring-started"; after: { worksDoneAt: string; endsAt: string; days: number } }
+  /** Staff made the case's evidence pack: its content hash (EVIDENCE_PACK_DEFINITION), pages and file name. */
+  | { type: "evidence-pack-made"; after: { sha256: string; pages: number; fileName: string } }
   | {
       type: "fix-verified";
       /** override: why "fix effective" was recorded without enough readings after the works (staff only). */

@@ -56,6 +56,9 @@ export const householdIncludes = (vulnerability: readonly string[]) =>
 /** Timeline entries about one e-mail: a tenant sees them only for e-mails to themselves. */
 const EMAIL_EVENTS: ReadonlySet<string> = new Set<CaseEventType>(["email-queued", "email-resent"]);
 
+/** Timeline entries for staff only: internal notes, and the evidence packs staff made. */
+const STAFF_ONLY_EVENTS: ReadonlySet<string> = new Set<CaseEventType>(["internal-note", "evidence-pack-made"]);
+
 /** Statuses a tenant's "it's got worse" reopens (back to triage). */
 export const REOPENED_WHEN_WORSE: readonly CaseStatus[] = ["closed", "cancelled", "monitoring"];
 
@@ -647,10 +650,10 @@ export class CaseService implements CaseEmailTimeline {
     const c = await this.getForActor(actor, id);
     const all = await this.dataSource.getRepository(CaseEvent).find({ where: { caseId: c.id }, order: { id: "ASC" } });
     const staff = isStaff(actor);
-    // Internal notes are for staff only, and so are e-mails to anyone but the tenant themselves.
+    // Internal notes and evidence packs are for staff only, and so are e-mails to anyone but the tenant themselves.
     const events = staff
       ? all
-      : all.filter((e) => e.type !== "internal-note" && !(EMAIL_EVENTS.has(e.type) && e.after?.to !== actor.email));
+      : all.filter((e) => !STAFF_ONLY_EVENTS.has(e.type) && !(EMAIL_EVENTS.has(e.type) && e.after?.to !== actor.email));
     const actorIds = [...new Set(events.map((e) => e.actorUserId).filter((v): v is number => v !== null))];
     const names = new Map([...(await this.users.people(actorIds)).values()].map((u) => [u.id, { name: u.name, role: u.role }]));
     // Staff see each e-mail's delivery as the outbox records it now.

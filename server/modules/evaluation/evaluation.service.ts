@@ -16,6 +16,14 @@ import type { EvaluationParams, ReadingService, StoredRoomEvaluation } from "../
 export const INVESTIGATION_STATEMENT =
   "Your landlord will look into this report whatever the readings show: readings help us understand the cause, they never decide whether damp or mould is taken seriously.";
 
+/** The published methods the engine's figures come from (src/lib/domain), named wherever its results are reported. */
+export const ENGINE_SOURCES: readonly string[] = [
+  "Moist-air properties (dew point, vapour pressure, humidity): ASHRAE Handbook, Fundamentals 2017, chapter 1, through psychrolib.",
+  "Surface humidity, the 80 % limit for mould and the temperature factor fRsi: BS EN ISO 13788.",
+  "Mould growth index: the VTT model, Hukka & Viitanen (1999), with the sensitivity classes of Ojanen et al. (2010).",
+  "Internal moisture excess and load classes: BS EN ISO 13788.",
+];
+
 export interface SurfaceEvaluation {
   element: ElementId;
   label: string;

@@ -17,6 +17,7 @@ import {
 import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse, worseResponse } from "./cases.js";
 import { conversationResponse, messageSentResponse, readMarkResponse, unreadMessagesResponse } from "./conversation.js";
 import { evaluationResponse } from "./evaluation.js";
+import { EVIDENCE_PACK_MEDIA_TYPE } from "./evidence-pack.js";
 import { outboxItem, outboxPageResponse } from "./mail.js";
 import {
   webhookDeliveryPageResponse,
@@ -237,6 +238,9 @@ export const ENDPOINTS: readonly Endpoint[] = [
   ),
   e("POST", "/api/cases/:id/messages/read", "signed-in", "Mark the case's conversation read up to a message", readMarkResponse),
   e("GET", "/api/cases/:id/deadlines", STAFF, "A case's statutory clocks", deadlinesResponse),
+  e("GET", "/api/cases/:id/evidence-pack", STAFF, "The case's evidence pack (PDF), recorded on its timeline with its hash", {
+    mediaType: EVIDENCE_PACK_MEDIA_TYPE,
+  }),
   e("POST", "/api/cases/:id/work-orders", STAFF, "Raise a work order", workOrderResponse, 201),
   e("GET", "/api/cases/:id/work-orders", "signed-in", "A case's work orders", caseWorkOrdersResponse),
   e("GET", "/api/cases/:id/verification", "signed-in", "Readings before and after the works", verificationResponse),

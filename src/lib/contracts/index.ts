@@ -21,4 +21,5 @@ export * from "./integrations.js";
 export * from "./webhooks.js";
 export * from "./insight.js";
 export * from "./endpoints.js";
+export * from "./evidence-pack.js";
 export * from "./tenancy-import.js";

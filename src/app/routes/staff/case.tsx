@@ -39,6 +39,7 @@ import { usePolicy } from "@/features/policy/api/get-policy";
 import { DiagnosisHints } from "@/features/case-workspace/components/diagnosis-hints";
 import { InspectionForm, InspectionList } from "@/features/case-workspace/components/inspection-section";
 import { CaseConversation } from "@/features/conversation/components/case-conversation";
+import { DownloadEvidencePack } from "@/features/evidence-pack/components/download-evidence-pack";
 import { OnDemand } from "@/features/case-workspace/components/on-demand";
 import { WorkspaceTabs } from "@/features/case-workspace/components/workspace-tabs";
 import { worstSurfaceState } from "@/features/case-workspace/lib/risk";
@@ -279,6 +280,7 @@ function Workspace({ id }: { id: number }) {
         status={<StatusBadge status={c.status} audience="staff" />}
         risk={worst ? STATE_LABELS[worst].label : undefined}
       />
+      <DownloadEvidencePack caseId={c.id} reference={workspaceTitle(c)} />
       <WorkspaceTabs
         label="Parts of the case"
         tabs={TABS.map(([tabId, label]) => ({ id: tabId, label, content: content[tabId] }))}

@@ -205,6 +205,14 @@ export function describeEvent(
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
+    case "evidence-pack-made": {
+      // Staff only: the tenant's timeline never carries it (the server leaves it out).
+      const pages = typeof after.pages === "number" ? after.pages : undefined;
+      return {
+        title: `${who || "Staff"} made the evidence pack${pages ? ` (${pages} pages)` : ""}.`,
+        detail: str(after.sha256) ? <p className="break-all">Content SHA-256 {str(after.sha256)}</p> : undefined,
+      };
+    }
     default:
       return { title: `${humanise(event.type)}${who ? `, by ${who}` : ""}.` };
   }
