@@ -26,6 +26,7 @@ import { Webhooks1796425164411 } from "./migrations/1796425164411-Webhooks.js";
 import { IntegrationAdminActions1796434337752 } from "./migrations/1796434337752-IntegrationAdminActions.js";
 import { ExportSortIndexes1796436010598 } from "./migrations/1796436010598-ExportSortIndexes.js";
 import { CaseMilestones1796443743318 } from "./migrations/1796443743318-CaseMilestones.js";
+import { BoardReports1796445784777 } from "./migrations/1796445784777-BoardReports.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -54,4 +55,5 @@ export const migrations = [
   IntegrationAdminActions1796434337752,
   ExportSortIndexes1796436010598,
   CaseMilestones1796443743318,
+  BoardReports1796445784777,
 ];
