@@ -29,6 +29,7 @@ import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { QueueService } from "./modules/cases/case-queue.service.js";
 import { TriageService } from "./modules/triage/triage.service.js";
 import { InsightService } from "./modules/insight/insight.service.js";
+import { BoardReportService } from "./modules/board-report/board-report.service.js";
 import { UserService } from "./modules/users/user.service.js";
 import { VerificationService } from "./modules/works/verification.service.js";
 import { WorkOrderService } from "./modules/works/work-order.service.js";
@@ -60,6 +61,7 @@ export interface Services {
   queue: QueueService;
   triage: TriageService;
   insight: InsightService;
+  boardReports: BoardReportService;
   works: WorkOrderService;
   verification: VerificationService;
   tenancies: TenancyService;
@@ -150,6 +152,7 @@ export function createServices(
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   const queue = new QueueService(dataSource, triage, clock);
   const insight = new InsightService(dataSource, triage, clock);
+  const boardReports = new BoardReportService(dataSource, insight, organisations, mail, clock, logger);
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
@@ -192,6 +195,7 @@ export function createServices(
     stock,
     queue,
     insight,
+    boardReports,
     readings,
     tenancies,
     triage,

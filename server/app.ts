@@ -29,6 +29,7 @@ import { createPsychrometricsRouter } from "./modules/psychrometrics/psychrometr
 import { createMyHomeRouter } from "./modules/tenancies/tenancies.routes.js";
 import { createTriageRouter } from "./modules/triage/triage.routes.js";
 import { createInsightRouter } from "./modules/insight/insight.routes.js";
+import { createBoardReportRouter } from "./modules/board-report/board-report.routes.js";
 import { createStaffRouter, createUsersRouter } from "./modules/users/users.routes.js";
 import { createTenancyImportRouter } from "./modules/tenancy-import/tenancy-import.routes.js";
 import { requireAuth } from "./middleware/auth.js";
@@ -179,6 +180,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     createWorkOrdersRouter({ works: services.works, verification: services.verification, photos: services.photos, clock }),
   );
   api.use("/insight", requireAuth, createInsightRouter({ insight: services.insight, clock }));
+  api.use("/board-report", requireAuth, createBoardReportRouter({ reports: services.boardReports }));
   api.use("/contractors", requireAuth, createContractorsRouter({ works: services.works }));
   api.use("/policy", createPolicyRouter({ policy: services.policy }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));

@@ -5,10 +5,11 @@ import { startDigestScheduler } from "./modules/digest/digest.scheduler.js";
 import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
 import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
 import { startInvitationBatches } from "./modules/auth/invitation-batch.ticker.js";
+import { startBoardReports } from "./modules/board-report/board-report.scheduler.js";
 
 /**
  * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
- * reminders and the release of queued invitations (tenancy imports);
+ * reminders, the release of queued invitations (tenancy imports) and the monthly board reports;
  * returns a function that stops them and resolves once any job already running has finished (so
  * shutdown can close the database after it, not under it).
  */
@@ -23,8 +24,10 @@ export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" 
   const stopInvitations = startInvitationBatches(ctx.services.invitationBatches, ctx.logger, {
     everyMs: ctx.config.invitationBatches.intervalMs,
   });
+  const stopBoardReports = startBoardReports(ctx.services.boardReports, ctx.logger);
   return async () => {
     await Promise.all([
+      stopBoardReports(),
       stopInvitations(),
       stopReminders(),
       stopTriageSweeper(),

@@ -1,5 +1,6 @@
 import { CaseEvent } from "../modules/cases/case-event.entity.js";
 import { CaseMilestone } from "../modules/cases/case-milestone.entity.js";
+import { BoardReportSend, BoardReportSettings } from "../modules/board-report/board-report.entity.js";
 import { Case } from "../modules/cases/case.entity.js";
 import { WorkOrderBooking } from "../modules/works/booking.entity.js";
 import { Contractor } from "../modules/works/contractor.entity.js";
@@ -52,6 +53,8 @@ export const entities = [
   Case,
   CaseEvent,
   CaseMilestone,
+  BoardReportSettings,
+  BoardReportSend,
   Photo,
   Reading,
   ReadingImport,

@@ -27,6 +27,7 @@ import { IntegrationAdminActions1796434337752 } from "./migrations/1796434337752
 import { ExportSortIndexes1796436010598 } from "./migrations/1796436010598-ExportSortIndexes.js";
 import { CaseMilestones1796443743318 } from "./migrations/1796443743318-CaseMilestones.js";
 import { Complaints1796444351206 } from "./migrations/1796444351206-Complaints.js";
+import { BoardReports1796445784777 } from "./migrations/1796445784777-BoardReports.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -56,4 +57,5 @@ export const migrations = [
   ExportSortIndexes1796436010598,
   CaseMilestones1796443743318,
   Complaints1796444351206,
+  BoardReports1796445784777,
 ];

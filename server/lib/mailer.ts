@@ -6,7 +6,8 @@ export interface MailMessage {
   subject: string;
   text: string;
   html?: string;
-  attachments?: { filename: string; content: string; contentType: string }[];
+  /** `encoding: "base64"`: `content` is the file in base64 (a PDF); otherwise it is the text itself. */
+  attachments?: { filename: string; content: string; contentType: string; encoding?: "base64" }[];
   /** The Message-ID header to send (the outbox row's delivery key); nodemailer makes one up when absent. */
   messageId?: string;
 }

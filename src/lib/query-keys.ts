@@ -160,6 +160,12 @@ export const stockImportKeys = {
   run: () => [...stockImportKeys.all, "run"] as const,
 };
 
+/** The monthly board report's list of addresses (admins). */
+export const boardReportKeys = {
+  all: ["board-report"] as const,
+  settings: () => [...boardReportKeys.all, "settings"] as const,
+};
+
 /** The compliance dashboard and "what works": period and estate as the URL has them. */
 export const insightKeys = {
   all: ["insight"] as const,

@@ -35,6 +35,28 @@ export interface StaleFigures {
 export type Dashboard = z.input<typeof dashboardResponse>;
 export type WhatWorks = z.input<typeof whatWorksResponse>;
 
+/** A case open now with a Category 1 hazard (its latest assessment), for the board report. */
+export interface OpenCategoryOne {
+  caseId: number;
+  reference: string;
+  address: string;
+  awareAt: Date;
+  status: string;
+  band: string | null;
+  nextStage: string | null;
+  nextDueAt: Date | null;
+}
+
+/** A deadline stage that was missed (done late, or not done and past due). */
+export interface MissedDeadline {
+  caseId: number;
+  reference: string;
+  address: string;
+  stage: (typeof INSIGHT_STAGES)[number];
+  dueAt: Date;
+  doneAt: Date | null;
+}
+
 /** The period and estate a request asks about, resolved to instants. */
 export interface Period {
   from: string;
@@ -433,6 +455,55 @@ export class InsightService {
       [localDate(now), org, ...e.params],
     )) as { id: number; name: string; open: number; overdue: number }[];
     return workload(rows);
+  }
+
+  /** Cases open now whose latest HHSRS assessment puts them in Category 1, the oldest first. */
+  async openCategoryOne(organisationId: number): Promise<OpenCategoryOne[]> {
+    const rows = (await this.dataSource.query(
+      `SELECT c.id, c.reference, c.aware_at, c.status, c.next_stage, c.next_due_at, c.hhsrs_band,
+              pr.address_line1, pr.postcode
+         FROM cases c JOIN properties pr ON pr.id = c.property_id
+        WHERE c.organisation_id = ? AND c.hhsrs_category = 1 AND c.status IN (${OPEN_LIST})
+        ORDER BY c.aware_at, c.id`,
+      [organisationId],
+    )) as Record<string, unknown>[];
+    return rows.map((r) => ({
+      caseId: Number(r.id),
+      reference: (r.reference as string | null) ?? `#${Number(r.id)}`,
+      address: [r.address_line1, r.postcode].filter(Boolean).join(", "),
+      awareAt: new Date(r.aware_at as Date),
+      status: r.status as string,
+      band: (r.hhsrs_band as string | null) ?? null,
+      nextStage: (r.next_stage as string | null) ?? null,
+      nextDueAt: r.next_due_at ? new Date(r.next_due_at as Date) : null,
+    }));
+  }
+
+  /**
+   * Deadline stages due in [start, end) that were missed: done after their due time, or not done and
+   * past it at `now`; the earliest due first.
+   */
+  async missedDeadlines(organisationId: number, start: Date, end: Date): Promise<MissedDeadline[]> {
+    const now = this.clock.now();
+    const rows = (await this.dataSource.query(
+      `SELECT m.case_id, m.milestone, m.due_at, m.done_at, c.reference, pr.address_line1, pr.postcode
+         FROM case_milestones m
+         JOIN cases c ON c.id = m.case_id
+         JOIN properties pr ON pr.id = c.property_id
+        WHERE m.organisation_id = ? AND m.milestone IN (${STAGE_LIST})
+          AND m.due_at >= ? AND m.due_at < ?
+          AND ((m.done_at IS NOT NULL AND m.done_at > m.due_at) OR (m.done_at IS NULL AND m.due_at < ?))
+        ORDER BY m.due_at, m.case_id`,
+      [organisationId, sqlTime(start), sqlTime(end), sqlTime(now)],
+    )) as Record<string, unknown>[];
+    return rows.map((r) => ({
+      caseId: Number(r.case_id),
+      reference: (r.reference as string | null) ?? `#${Number(r.case_id)}`,
+      address: [r.address_line1, r.postcode].filter(Boolean).join(", "),
+      stage: r.milestone as (typeof INSIGHT_STAGES)[number],
+      dueAt: new Date(r.due_at as Date),
+      doneAt: r.done_at ? new Date(r.done_at as Date) : null,
+    }));
   }
 
   private async estates(org: number): Promise<string[]> {

@@ -1,8 +1,10 @@
 // Plain-text-first e-mails. Each template takes only what it shows.
 export interface MailAttachment {
   filename: string;
+  /** The text, or with `encoding: "base64"` the file's bytes in base64. */
   content: string;
   contentType: string;
+  encoding?: "base64";
 }
 
 export interface RenderedMail {
@@ -478,6 +480,19 @@ export const mailTemplates = {
           : "Nobody is assigned to the case yet, so every officer gets this e-mail. Read and reply on the case page:",
         d.link,
       ].join("\n"),
+    };
+  },
+  boardReport(d: { organisationName: string; monthWords: string; fileName: string; pdfBase64: string }): RenderedMail {
+    return {
+      subject: `${d.organisationName}: damp and mould board report, ${d.monthWords}`,
+      text: [
+        "Hello,",
+        "",
+        `The damp and mould board report of ${d.organisationName} for ${d.monthWords} is attached (PDF): the deadlines met and missed, the time taken to act, the Category 1 hazards open, and where cases cluster.`,
+        "",
+        "You get it because an administrator of the landlord put this address on the report's list. Ask them to take it off if it should not come to you.",
+      ].join("\n"),
+      attachments: [{ filename: d.fileName, content: d.pdfBase64, contentType: "application/pdf", encoding: "base64" }],
     };
   },
 } as const;

@@ -12,6 +12,7 @@ export interface StoredAttachment {
   filename: string;
   content: string;
   contentType: string;
+  encoding?: "base64";
 }
 
 /** Every e-mail the app sends, stored whole with the change it is about, and how its sending stands; case timelines show these. */

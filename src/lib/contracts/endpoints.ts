@@ -52,6 +52,7 @@ import {
 import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
 import { dashboardResponse, whatWorksResponse } from "./insight.js";
+import { boardReportSentResponse, boardReportSettingsResponse } from "./board-report.js";
 import { bulkPreviewResponse, bulkUpdateResponse, queuePageResponse, triageResponse } from "./triage.js";
 import { stockImportListResponse, stockImportPreviewResponse, stockImportResponse } from "./stock-imports.js";
 import { staffListResponse, userHistoryResponse, userPageResponse, userResponse } from "./users.js";
@@ -289,6 +290,16 @@ export const ENDPOINTS: readonly Endpoint[] = [
     whatWorksResponse,
   ),
   e("GET", "/api/insight/export", STAFF, "One dashboard table as CSV or .xlsx (table=…, format=xlsx)", EXPORT_FILE),
+  e("GET", "/api/board-report", STAFF, "The month's board report as a PDF (month=YYYY-MM)", { mediaType: "application/pdf" }),
+  e("GET", "/api/board-report/settings", ["admin"], "Who the monthly board report is e-mailed to", boardReportSettingsResponse),
+  e(
+    "PUT",
+    "/api/board-report/settings",
+    ["admin"],
+    "Set who the monthly board report is e-mailed to",
+    boardReportSettingsResponse,
+  ),
+  e("POST", "/api/board-report/send", ["admin"], "E-mail a month's board report to the list now", boardReportSentResponse),
 
   e("GET", "/api/work-orders", STAFF, "Work orders, filtered and sorted", workOrderPageResponse),
   e("GET", "/api/work-orders/export", STAFF, "The work orders as filtered, as CSV or .xlsx (format=xlsx)", EXPORT_FILE),

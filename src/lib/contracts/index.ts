@@ -21,6 +21,7 @@ export * from "./mail.js";
 export * from "./integrations.js";
 export * from "./webhooks.js";
 export * from "./insight.js";
+export * from "./board-report.js";
 export * from "./endpoints.js";
 export * from "./evidence-pack.js";
 export * from "./tenancy-import.js";

@@ -1,8 +1,10 @@
 import type { QueryClient } from "@tanstack/react-query";
 import type { LoaderFunctionArgs } from "react-router-dom";
 import { PageHeader } from "@/components/ui/page-header";
+import { useUser } from "@/features/auth/api/get-me";
 import { signedInAs } from "@/features/auth/api/require-role";
 import { dashboardQueryOptions } from "@/features/dashboard/api/get-dashboard";
+import { BoardReportPanel } from "@/features/board-report/components/board-report-panel";
 import { DashboardView } from "@/features/dashboard/components/dashboard-view";
 import { filtersFrom } from "@/features/dashboard/lib/insight-filters";
 
@@ -15,6 +17,7 @@ export const clientLoader =
   };
 
 export default function DashboardPage() {
+  const user = useUser();
   return (
     <>
       <title>Dashboard · Dewline</title>
@@ -23,6 +26,9 @@ export default function DashboardPage() {
         description="How the landlord is doing on its deadlines, where damp and mould cluster, who is carrying the work, and which fixes work."
       />
       <DashboardView />
+      <div className="mt-6">
+        <BoardReportPanel isAdmin={user.role === "admin"} />
+      </div>
     </>
   );
 }
