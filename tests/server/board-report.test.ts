@@ -127,13 +127,14 @@ describe("the board report", () => {
       "Time to act",
       "Category 1 hazards open",
       `Deadlines missed in ${monthWords}`,
+      `Complaints raised in ${monthWords}`,
       "Where cases cluster",
       "Workload now",
     ])
       expect(all).toContain(heading);
     const categoryOne = section(all, "Category 1 hazards open", `Deadlines missed in ${monthWords}`);
     expect(categoryOne).toContain(ours);
-    const missed = section(all, `Deadlines missed in ${monthWords}`, "Where cases cluster (last 12 months, cases per 100 homes)");
+    const missed = section(all, `Deadlines missed in ${monthWords}`, `Complaints raised in ${monthWords}`);
     expect(missed).toContain(ours);
     expect(missed).toMatch(/Investigate/);
     expect(missed).toContain("Not yet done");

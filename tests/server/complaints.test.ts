@@ -243,6 +243,22 @@ describe("a complaint through both stages", () => {
     expect(figures.stage1).toMatchObject({ reached: 2, acknowledgedOnTime: 1, respondedOnTime: 1, extensions: 1 });
     expect(figures.stage2).toMatchObject({ reached: 1, acknowledgedOnTime: 1, respondedOnTime: 1, extensions: 0 });
     expect(figures.compensation).toEqual({ offeredCount: 1, offeredPence: 15_050, acceptedCount: 0, paidCount: 0, paidPence: 0 });
+    // The dashboard shows the same figures, by stage, and exports them.
+    const dashboard = (await officer.get("/api/insight/dashboard?from=2026-12-01&to=2027-04-30").expect(200)).body;
+    expect(dashboard.complaints).toMatchObject({
+      raised: 2,
+      open: 1,
+      closed: 1,
+      escalated: 1,
+      apologies: 1,
+      compensationOfferedPence: 15_050,
+    });
+    expect(dashboard.complaints.stages).toMatchObject([
+      { stage: 1, reached: 2, acknowledgedOnTime: 1, respondedOnTime: 1, extensions: 1 },
+      { stage: 2, reached: 1, acknowledgedOnTime: 1, respondedOnTime: 1, extensions: 0 },
+    ]);
+    const csv = (await officer.get("/api/insight/export?table=complaints&from=2026-12-01&to=2027-04-30").expect(200)).text;
+    expect(csv).toContain("Acknowledged on time");
     const history = await t.ctx.services.complaints.historyOfCase(caseId);
     expect(history.map((h) => h.complaint.status)).toEqual(["stage-1-received", "closed"]);
   });

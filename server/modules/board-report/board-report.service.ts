@@ -45,6 +45,7 @@ export function previousMonth(now: Date): string {
   return new Date(Date.UTC(y, m - 2, 1)).toISOString().slice(0, 7);
 }
 const pct = (v: number | null) => (v === null ? "–" : `${v.toFixed(0)} %`);
+const pounds = (pence: number) => `£${(pence / 100).toFixed(2)}`;
 const days = (v: number | null) => (v === null ? "–" : v.toFixed(1).replace(/\.0$/, ""));
 
 export interface PreparedBoardReport {
@@ -203,6 +204,32 @@ export class BoardReportService {
               d.doneAt ? formatDay(d.doneAt.toISOString()) : "Not yet done",
             ]),
           );
+
+        pdf.heading(`Complaints raised in ${monthWords(month)}`);
+        const cf = dashboard.complaints;
+        if (cf.raised === 0) pdf.paragraph("No formal complaint was raised this month.");
+        else {
+          pdf.paragraph(
+            `${cf.raised} raised: ${cf.open} open, ${cf.closed} closed, ${cf.escalated} taken to stage 2; ${cf.apologies} apologies; ` +
+              `compensation offered ${pounds(cf.compensationOfferedPence)}, paid ${pounds(cf.compensationPaidPence)}.`,
+          );
+          pdf.table(
+            [
+              { header: "Stage", width: 0.1 },
+              { header: "Complaints", width: 0.14 },
+              { header: "Acknowledged on time / late / overdue", width: 0.3 },
+              { header: "Responded on time / late / overdue", width: 0.3 },
+              { header: "Extended", width: 0.16 },
+            ],
+            cf.stages.map((k) => [
+              String(k.stage),
+              String(k.reached),
+              `${k.acknowledgedOnTime} / ${k.acknowledgedLate} / ${k.acknowledgeOverdue}`,
+              `${k.respondedOnTime} / ${k.respondedLate} / ${k.respondOverdue}`,
+              String(k.extensions),
+            ]),
+          );
+        }
 
         pdf.heading("Where cases cluster (last 12 months, cases per 100 homes)");
         const top = rolling.hotspots.filter((h) => h.dimension === "estate" || h.dimension === "wallType").slice(0, 40);

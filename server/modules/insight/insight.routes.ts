@@ -63,6 +63,7 @@ async function tableRows(
     seasonal: d.seasonal,
     officers: d.officers,
     operatives: d.operatives,
+    complaints: d.complaints.stages,
   };
   return byTable[table];
 }

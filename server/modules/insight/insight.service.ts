@@ -25,6 +25,7 @@ import {
 import { localDate } from "../../../src/lib/domain/working-days.js";
 import type { Clock } from "../../lib/clock.js";
 import type { Actor } from "../auth/actor.js";
+import type { ComplaintFigures } from "../complaints/complaint.service.js";
 import type { InsightQuery } from "./insight.schemas.js";
 
 /** Works out the stored figures (and the case_milestones projection) a change or the clock marked stale. */
@@ -55,6 +56,11 @@ export interface MissedDeadline {
   stage: (typeof INSIGHT_STAGES)[number];
   dueAt: Date;
   doneAt: Date | null;
+}
+
+/** The complaints raised in a period, with their clocks (ComplaintService.figures). */
+export interface ComplaintFigureSource {
+  figures(organisationId: number, from: Date, to: Date): Promise<ComplaintFigures>;
 }
 
 /** The period and estate a request asks about, resolved to instants. */
@@ -110,6 +116,7 @@ export class InsightService {
     private readonly dataSource: DataSource,
     private readonly figures: StaleFigures,
     private readonly clock: Clock,
+    private readonly complaints: ComplaintFigureSource,
   ) {}
 
   period(query: InsightQuery, now = this.clock.now()): Period {
@@ -125,7 +132,7 @@ export class InsightService {
     const p = this.period(query, now);
     const org = actor.organisationId;
     const months = londonMonths(p.start, p.end);
-    const [open, stageRows, durationRows, repeats, hotspotRows, seasonalRows, officers, operatives, estates] = await Promise.all([
+    const [open, stageRows, durationRows, repeats, hotspotRows, seasonalRows, officers, operatives, estates, complaints] = await Promise.all([
       this.openCases(org, p),
       this.stageCounts(org, p, now, months),
       this.durationCounts(org, p),
@@ -135,6 +142,7 @@ export class InsightService {
       this.officerWorkload(org, p, now),
       this.operativeWorkload(org, p, now),
       this.estates(org),
+      this.complaints.figures(org, p.start, p.end),
     ]);
 
     const stageTotals = new Map<string, { met: number; missed: number; open: number }>();
@@ -211,6 +219,16 @@ export class InsightService {
       seasonal: months.map((mo) => ({ month: mo.month, cases: seasonal.get(mo.month) ?? 0 })),
       officers,
       operatives,
+      complaints: {
+        raised: complaints.raised,
+        open: complaints.open,
+        closed: complaints.closed,
+        escalated: complaints.escalated,
+        apologies: complaints.apologies,
+        compensationOfferedPence: complaints.compensation.offeredPence,
+        compensationPaidPence: complaints.compensation.paidPence,
+        stages: ([1, 2] as const).map((stage) => ({ stage, ...(stage === 1 ? complaints.stage1 : complaints.stage2) })),
+      },
     };
   }
 

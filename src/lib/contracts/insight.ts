@@ -40,6 +40,28 @@ export const hotspotRow = z.object({
 });
 export const workloadRow = z.object({ id: z.number().int().positive(), name: z.string(), open: count, overdue: count });
 export const monthCount = z.object({ month: z.string(), cases: count });
+/** One complaint stage's clocks over the complaints raised in the period (complaints module). */
+export const complaintStageRow = z.object({
+  stage: z.union([z.literal(1), z.literal(2)]),
+  reached: count,
+  acknowledgedOnTime: count,
+  acknowledgedLate: count,
+  acknowledgeOverdue: count,
+  respondedOnTime: count,
+  respondedLate: count,
+  respondOverdue: count,
+  extensions: count,
+});
+export const complaintFigures = z.object({
+  raised: count,
+  open: count,
+  closed: count,
+  escalated: count,
+  apologies: count,
+  compensationOfferedPence: count,
+  compensationPaidPence: count,
+  stages: z.array(complaintStageRow),
+});
 
 export const dashboardResponse = z.object({
   from: calendarDate,
@@ -62,6 +84,8 @@ export const dashboardResponse = z.object({
   seasonal: z.array(monthCount),
   officers: z.array(workloadRow),
   operatives: z.array(workloadRow),
+  /** Formal complaints raised in the period (the whole landlord: complaints are not filtered by estate). */
+  complaints: complaintFigures,
 });
 export type DashboardResponse = z.infer<typeof dashboardResponse>;
 
@@ -101,6 +125,7 @@ export const INSIGHT_TABLES = [
   "seasonal",
   "officers",
   "operatives",
+  "complaints",
   "what-works",
 ] as const;
 export type InsightTable = (typeof INSIGHT_TABLES)[number];
@@ -143,6 +168,7 @@ type DurationRow = z.infer<typeof durationRow>;
 type HotspotRow = z.infer<typeof hotspotRow>;
 type WorkloadRow = z.infer<typeof workloadRow>;
 type MonthCount = z.infer<typeof monthCount>;
+type ComplaintStageRow = z.infer<typeof complaintStageRow>;
 type WhatWorksRow = z.infer<typeof whatWorksRow>;
 
 const stageColumns = <T extends StageRow>(): ExportColumn<T>[] => [
@@ -197,6 +223,17 @@ export const INSIGHT_COLUMNS = {
   ] as ExportColumn<MonthCount>[],
   officers: workloadColumns("Officer"),
   operatives: workloadColumns("Operative"),
+  complaints: [
+    { id: "stage", header: "Complaint stage", value: (r) => r.stage },
+    { id: "reached", header: "Complaints", value: (r) => r.reached },
+    { id: "ackOnTime", header: "Acknowledged on time", value: (r) => r.acknowledgedOnTime },
+    { id: "ackLate", header: "Acknowledged late", value: (r) => r.acknowledgedLate },
+    { id: "ackOverdue", header: "Acknowledgement overdue", value: (r) => r.acknowledgeOverdue },
+    { id: "respOnTime", header: "Responded on time", value: (r) => r.respondedOnTime },
+    { id: "respLate", header: "Responded late", value: (r) => r.respondedLate },
+    { id: "respOverdue", header: "Response overdue", value: (r) => r.respondOverdue },
+    { id: "extensions", header: "Extended", value: (r) => r.extensions },
+  ] as ExportColumn<ComplaintStageRow>[],
   "what-works": [
     { id: "workTypes", header: "Work done", value: (r) => workTypesLabel(r.workTypes) },
     { id: "builtForm", header: "Built form", value: (r) => labelOf(builtFormLabels, r.builtForm) },

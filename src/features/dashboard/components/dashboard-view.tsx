@@ -171,6 +171,22 @@ function Figures({ d, filters }: { d: DashboardResponse; filters: InsightFilters
         <InsightTable table="hotspots" rows={d.hotspots} caption="Cases per 100 homes" filters={filters} empty="No homes." />
       </Panel>
 
+      <Panel title="Complaints" id="complaints">
+        <p className="mb-2 text-sm text-ink-soft">
+          Formal complaints raised in the period (the whole landlord, whatever the estate): {d.complaints.raised} raised,{" "}
+          {d.complaints.open} open, {d.complaints.closed} closed, {d.complaints.escalated} taken to stage 2;{" "}
+          {d.complaints.apologies} apologies; compensation offered {pounds(d.complaints.compensationOfferedPence)}, paid{" "}
+          {pounds(d.complaints.compensationPaidPence)}.
+        </p>
+        <InsightTable
+          table="complaints"
+          rows={d.complaints.raised ? d.complaints.stages : []}
+          caption="Complaint clocks by stage"
+          filters={filters}
+          empty="No formal complaint was raised in this period."
+        />
+      </Panel>
+
       <Panel title="Workload" id="workload">
         <div className="grid gap-4 lg:grid-cols-2">
           <InsightTable
@@ -192,3 +208,6 @@ function Figures({ d, filters }: { d: DashboardResponse; filters: InsightFilters
     </>
   );
 }
+
+const pounds = (pence: number) =>
+  `£${(pence / 100).toLocaleString("en-GB", { minimumFractionDigits: 2, maximumFractionDigits: 2 })}`;
