@@ -132,18 +132,19 @@ export class InsightService {
     const p = this.period(query, now);
     const org = actor.organisationId;
     const months = londonMonths(p.start, p.end);
-    const [open, stageRows, durationRows, repeats, hotspotRows, seasonalRows, officers, operatives, estates, complaints] = await Promise.all([
-      this.openCases(org, p),
-      this.stageCounts(org, p, now, months),
-      this.durationCounts(org, p),
-      this.repeatCounts(org, p),
-      this.hotspotCounts(org, p),
-      this.seasonalCounts(org, p, months),
-      this.officerWorkload(org, p, now),
-      this.operativeWorkload(org, p, now),
-      this.estates(org),
-      this.complaints.figures(org, p.start, p.end),
-    ]);
+    const [open, stageRows, durationRows, repeats, hotspotRows, seasonalRows, officers, operatives, estates, complaints] =
+      await Promise.all([
+        this.openCases(org, p),
+        this.stageCounts(org, p, now, months),
+        this.durationCounts(org, p),
+        this.repeatCounts(org, p),
+        this.hotspotCounts(org, p),
+        this.seasonalCounts(org, p, months),
+        this.officerWorkload(org, p, now),
+        this.operativeWorkload(org, p, now),
+        this.estates(org),
+        this.complaints.figures(org, p.start, p.end),
+      ]);
 
     const stageTotals = new Map<string, { met: number; missed: number; open: number }>();
     const byMonth = new Map<string, { met: number; missed: number; open: number }>();
