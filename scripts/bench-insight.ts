@@ -7,7 +7,8 @@
 //     (the default period, the last 12 months, and one estate, taking turns), and the same aggregates
 //     (the statements InsightService issues, captured, not retyped) through a mysql2 pool, the same way;
 //  4. prints median and p95 of both and the target: API ≤ 1.5 × raw + 5 ms (median and p95).
-// An evidence-pack timing is to be added at the marked call below.
+//  5. the case evidence pack of a case with 20 photos and 10 000 readings, made in a child process: each
+//     pack's time, pages and size, and the child's RSS (scripts/lib/evidence-pack-bench.ts).
 // Options: --requests <n> (default 40) per side; --cases <n> scales the data down (readings 50 a case,
 // homes one per 5 cases), as bench:queue.
 import type { AddressInfo } from "node:net";
@@ -25,6 +26,7 @@ import type { Actor } from "../server/modules/auth/actor.js";
 import { InsightService } from "../server/modules/insight/insight.service.js";
 import { milestoneFigures } from "../server/modules/triage/triage.service.js";
 import { startBenchDatabase } from "./lib/bench-database.js";
+import { benchEvidencePack } from "./lib/evidence-pack-bench.js";
 import { loadDataConnection } from "./lib/mariadb.js";
 import { seed } from "./bench-queue.js";
 
@@ -131,12 +133,14 @@ async function signIn(url: string, email: string): Promise<string> {
   return cookie;
 }
 
-/**
- * Placeholder: the case evidence pack's timing (a case with 20 photos and 10 000 readings: time and
- * peak RSS) is added here by the evidence-pack work. It gets the running app and the session cookie.
- */
-async function evidencePackTiming(_context: { url: string; cookie: string; ds: DataSource }): Promise<void> {
-  console.log("Evidence pack: not measured yet (to be added here).");
+/** The case evidence pack of a case with 20 photos and 10 000 readings: time and memory (scripts/lib/evidence-pack-bench.ts). */
+async function evidencePackTiming(context: { dir: string; ds: DataSource }): Promise<void> {
+  const r = await benchEvidencePack(context.ds, { uploadsDir: path.join(context.dir, "uploads") });
+  console.log(
+    `Evidence pack — a case with ${r.photos} photos and ${fmt(r.readings)} readings: ${r.pages} pages, ${(r.bytes / 1024 / 1024).toFixed(1)} MB; ` +
+      `${r.ms.map((ms) => `${(ms / 1000).toFixed(2)} s`).join(", ")} (first pack first); RSS ${r.rssBeforeMb.toFixed(0)} MB before, ` +
+      `at most ${r.rssPeakDuringMb.toFixed(0)} MB while making them (process peak ${r.maxRssMb.toFixed(0)} MB, start-up included)`,
+  );
 }
 
 async function main() {
@@ -294,8 +298,7 @@ async function main() {
       console.log(`    ${ms1(quantile(times, 0.5)).padStart(8)} ms  ${s.sql.replace(/\s+/g, " ").slice(0, 110)}`);
     }
 
-    // ── Evidence pack timing: added here later ──
-    await evidencePackTiming({ url, cookie, ds: bench.ds });
+    await evidencePackTiming({ dir: bench.dir, ds: bench.ds });
   } finally {
     await pool?.end().catch(() => undefined);
     server?.closeAllConnections();
