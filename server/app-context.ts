@@ -152,7 +152,7 @@ export function createServices(
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   const queue = new QueueService(dataSource, triage, clock);
   const insight = new InsightService(dataSource, triage, clock, complaints);
-  const boardReports = new BoardReportService(dataSource, insight, organisations, mail, clock, logger);
+  const boardReports = new BoardReportService(dataSource, insight, organisations, mail, inspections, clock, logger);
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);

@@ -163,7 +163,13 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
   api.use(
     "/cases",
-    createInspectionsRouter({ cases: services.cases, inspections: services.inspections, policy: services.policy, clock }),
+    createInspectionsRouter({
+      cases: services.cases,
+      inspections: services.inspections,
+      policy: services.policy,
+      users: services.users,
+      clock,
+    }),
   );
   api.use("/cases", createConversationRouter({ conversation: services.conversation }));
   api.use("/cases", requireAuth, createEvidencePackRouter({ packs: services.evidencePacks }));

@@ -1,6 +1,7 @@
 import { CaseEvent } from "../modules/cases/case-event.entity.js";
 import { CaseMilestone } from "../modules/cases/case-milestone.entity.js";
 import { BoardReportSend, BoardReportSettings } from "../modules/board-report/board-report.entity.js";
+import { MissedDeadlineReason } from "../modules/inspections/missed-deadline-reason.entity.js";
 import { Case } from "../modules/cases/case.entity.js";
 import { WorkOrderBooking } from "../modules/works/booking.entity.js";
 import { Contractor } from "../modules/works/contractor.entity.js";
@@ -55,6 +56,7 @@ export const entities = [
   CaseMilestone,
   BoardReportSettings,
   BoardReportSend,
+  MissedDeadlineReason,
   Photo,
   Reading,
   ReadingImport,

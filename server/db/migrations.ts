@@ -28,6 +28,7 @@ import { ExportSortIndexes1796436010598 } from "./migrations/1796436010598-Expor
 import { CaseMilestones1796443743318 } from "./migrations/1796443743318-CaseMilestones.js";
 import { Complaints1796444351206 } from "./migrations/1796444351206-Complaints.js";
 import { BoardReports1796445784777 } from "./migrations/1796445784777-BoardReports.js";
+import { MissedDeadlineReasons1796448909533 } from "./migrations/1796448909533-MissedDeadlineReasons.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -58,4 +59,5 @@ export const migrations = [
   CaseMilestones1796443743318,
   Complaints1796444351206,
   BoardReports1796445784777,
+  MissedDeadlineReasons1796448909533,
 ];

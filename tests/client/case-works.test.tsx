@@ -150,11 +150,23 @@ function staffApi(user: (typeof users)[keyof typeof users], status: CaseStatus, 
     "GET /api/cases/42/deadlines": {
       body: {
         deadlines: [
-          { stage: "make-safe", dueAt: null, doneAt: null, state: "not-applicable" },
-          { stage: "investigate", dueAt: "2026-11-20T23:59:59.999Z", doneAt: "2026-11-18T10:00:00.000Z", state: "met" },
-          { stage: "summary", dueAt: "2026-11-23T23:59:59.999Z", doneAt: "2026-11-19T10:00:00.000Z", state: "met" },
-          { stage: "safety-work", dueAt: "2099-12-11T23:59:59.999Z", doneAt: null, state: "pending" },
-          { stage: "supplementary-work", dueAt: null, doneAt: null, state: "pending" },
+          { stage: "make-safe", dueAt: null, doneAt: null, state: "not-applicable", missedReason: null },
+          {
+            stage: "investigate",
+            dueAt: "2026-11-20T23:59:59.999Z",
+            doneAt: "2026-11-18T10:00:00.000Z",
+            state: "met",
+            missedReason: null,
+          },
+          {
+            stage: "summary",
+            dueAt: "2026-11-23T23:59:59.999Z",
+            doneAt: "2026-11-19T10:00:00.000Z",
+            state: "met",
+            missedReason: null,
+          },
+          { stage: "safety-work", dueAt: "2099-12-11T23:59:59.999Z", doneAt: null, state: "pending", missedReason: null },
+          { stage: "supplementary-work", dueAt: null, doneAt: null, state: "pending", missedReason: null },
         ],
       },
     },

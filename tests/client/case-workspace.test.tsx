@@ -97,19 +97,25 @@ const triage = {
 
 // Due dates far ahead, so the states stay as they are whenever the test runs.
 const deadlinesBefore = [
-  { stage: "make-safe", dueAt: null, doneAt: null, state: "not-applicable" },
-  { stage: "investigate", dueAt: "2099-01-23T23:59:59.999Z", doneAt: null, state: "pending" },
-  { stage: "summary", dueAt: null, doneAt: null, state: "pending" },
-  { stage: "safety-work", dueAt: null, doneAt: null, state: "pending" },
-  { stage: "supplementary-work", dueAt: null, doneAt: null, state: "pending" },
+  { stage: "make-safe", dueAt: null, doneAt: null, state: "not-applicable", missedReason: null },
+  { stage: "investigate", dueAt: "2099-01-23T23:59:59.999Z", doneAt: null, state: "pending", missedReason: null },
+  { stage: "summary", dueAt: null, doneAt: null, state: "pending", missedReason: null },
+  { stage: "safety-work", dueAt: null, doneAt: null, state: "pending", missedReason: null },
+  { stage: "supplementary-work", dueAt: null, doneAt: null, state: "pending", missedReason: null },
 ];
 
 const deadlinesAfter = [
-  { stage: "make-safe", dueAt: null, doneAt: null, state: "not-applicable" },
-  { stage: "investigate", dueAt: "2026-01-23T23:59:59.999Z", doneAt: "2026-01-14T10:00:00.000Z", state: "met" },
-  { stage: "summary", dueAt: "2099-01-16T23:59:59.999Z", doneAt: null, state: "pending" },
-  { stage: "safety-work", dueAt: "2099-01-21T23:59:59.999Z", doneAt: null, state: "pending" },
-  { stage: "supplementary-work", dueAt: "2099-04-08T23:59:59.999Z", doneAt: null, state: "pending" },
+  { stage: "make-safe", dueAt: null, doneAt: null, state: "not-applicable", missedReason: null },
+  {
+    stage: "investigate",
+    dueAt: "2026-01-23T23:59:59.999Z",
+    doneAt: "2026-01-14T10:00:00.000Z",
+    state: "met",
+    missedReason: null,
+  },
+  { stage: "summary", dueAt: "2099-01-16T23:59:59.999Z", doneAt: null, state: "pending", missedReason: null },
+  { stage: "safety-work", dueAt: "2099-01-21T23:59:59.999Z", doneAt: null, state: "pending", missedReason: null },
+  { stage: "supplementary-work", dueAt: "2099-04-08T23:59:59.999Z", doneAt: null, state: "pending", missedReason: null },
 ];
 
 const inspection = {

@@ -84,6 +84,7 @@ const ROWS: Record<string, Row> = {
   "POST /api/complaints/:id/close":                             [ 401,  403,  403, "ok",  403, "ok",  404,  404],
   "PUT /api/complaints/:id/remedy":                             [ 401,  403,  403, "ok",  403, "ok",  404,  404],
   "GET /api/cases/:id/deadlines":                               [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
+  "PUT /api/cases/:id/deadlines/:stage/missed-reason":          [ 401,  403,  403, "ok",  403, "ok",  404,  404],
   "GET /api/cases/:id/evidence-pack":                           [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
   "POST /api/cases/:id/work-orders":                            [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
   "GET /api/cases/:id/work-orders":                             [ 401, "ok",  404, "ok", "ok", "ok",  404,  404],

@@ -52,6 +52,7 @@ const BODIES: Record<string, (actor: Actor) => object> = {
   "PATCH /api/properties/:id": () => ({ town: "Testford" }),
   "POST /api/properties/:id/rooms": () => ({ name: "Landing", kind: "other" }),
   "PATCH /api/properties/:id/rooms/:roomId": () => ({ name: "Box room" }),
+  "PUT /api/cases/:id/deadlines/:stage/missed-reason": () => ({ reason: "The inspector was taken ill that week." }),
   "PATCH /api/users/:id": () => ({ name: "Test maintenance" }),
   "PATCH /api/webhooks/:id": () => ({ description: "Housing system" }),
   // Complaints check the case before the body, but their bodies are parsed first: each names a stale
@@ -185,6 +186,7 @@ beforeAll(async () => {
     "/api/tenancy-imports/:id": tenancyImport.body.id,
     ":importId": imported.body.importId,
     ":roomId": spare.body.id,
+    ":stage": "investigate",
     // The invitation's reply names no user (it must read the same for an address another landlord holds).
     ":userId": ((await t.ctx.dataSource.query("SELECT id FROM users WHERE email = ?", [invitee])) as { id: number }[])[0]!.id,
     ":token": token,

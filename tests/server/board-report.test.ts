@@ -27,6 +27,7 @@ let orgId: number;
 let month: string; // three months before the test clock's (London) month: every deadline in it has passed
 let monthWords: string;
 let ours: string; // the reference of our Category 1 case, its investigation never recorded
+let oursId: number;
 let theirs: string; // another landlord's case in the same month
 
 /** A PDF answer as bytes (supertest's parser). */
@@ -44,6 +45,13 @@ function section(all: string, heading: string, next: string): string {
   expect(start, `the heading "${heading}"`).toBeGreaterThanOrEqual(0);
   expect(end, `the heading "${next}"`).toBeGreaterThan(start);
   return all.slice(start, end);
+}
+
+/** The PDF's text in reading order (no layout), so a table cell's wrapped lines stay together. */
+async function readPdfFlow(bytes: Buffer): Promise<string> {
+  const file = path.join(dir, `flow-${Math.random().toString(36).slice(2)}.pdf`);
+  writeFileSync(file, bytes);
+  return (await run("pdftotext", [file, "-"])).stdout.replace(/\s+/g, " ");
 }
 
 async function readPdf(bytes: Buffer): Promise<{ pages: number; text: string[] }> {
@@ -91,6 +99,7 @@ beforeAll(async () => {
   });
   const created = (await officer.post("/api/cases", report(home.id)).expect(201)).body as { id: number; reference: string };
   ours = created.reference;
+  oursId = created.id;
   // TRADE.md §4 check vector: L = 3, O = (0, 1.0, 10.0, 89.0) → score 1630, band C, Category 1.
   await officer
     .post(`/api/cases/${created.id}/assessments`, {
@@ -109,6 +118,26 @@ afterAll(async () => {
 });
 
 describe("the board report", () => {
+  it("lists the reason an officer gave for a missed stage; a stage not missed has nothing to explain", async () => {
+    const put = (client: Client, stage: string, reason: string) =>
+      client.agent.put(`/api/cases/${oursId}/deadlines/${stage}/missed-reason`).set("X-CSRF-Token", client.csrf).send({ reason });
+    await put(officer, "summary", "Not missed at all.").expect(409);
+    await put(officer, "investigate", "x").expect(400);
+    await put(tenant, "investigate", "I would like to explain.").expect(403);
+    await put(officer, "investigate", "The inspector was off sick; nobody covered the visit.").expect(204);
+    const deadlines = (await officer.get(`/api/cases/${oursId}/deadlines`).expect(200)).body.deadlines as {
+      stage: string;
+      missedReason: { reason: string } | null;
+    }[];
+    expect(deadlines.find((d) => d.stage === "investigate")!.missedReason!.reason).toBe(
+      "The inspector was off sick; nobody covered the visit.",
+    );
+    const res = await officer.agent.get(`/api/board-report?month=${month}`).buffer(true).parse(binary).expect(200);
+    expect(await readPdfFlow(res.body as Buffer)).toContain("The inspector was off sick; nobody covered the visit.");
+    const events = (await officer.get(`/api/cases/${oursId}/events`).expect(200)).body.events as { type: string }[];
+    expect(events.some((e) => e.type === "missed-deadline-explained")).toBe(true);
+  });
+
   it("is a PDF of the month with page numbers, the landlord's name, its Category 1 hazard and its missed deadline", async () => {
     const res = await officer.agent.get(`/api/board-report?month=${month}`).buffer(true).parse(binary).expect(200);
     expect(res.headers["content-type"]).toMatch(/application\/pdf/);

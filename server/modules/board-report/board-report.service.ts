@@ -18,6 +18,7 @@ import { PdfWriter } from "../../lib/pdf/pdf-document.js";
 import type { MailService } from "../mail/mail.service.js";
 import type { OrganisationService } from "../organisations/organisation.service.js";
 import type { InsightService } from "../insight/insight.service.js";
+import type { InspectionService } from "../inspections/inspection.service.js";
 import { BoardReportSend, BoardReportSettings } from "./board-report.entity.js";
 
 /** A calendar month, written YYYY-MM. */
@@ -60,6 +61,7 @@ export class BoardReportService {
     private readonly insight: InsightService,
     private readonly organisations: OrganisationService,
     private readonly mail: MailService,
+    private readonly inspections: Pick<InspectionService, "missedReasons">,
     private readonly clock: Clock,
     private readonly logger?: Logger,
   ) {}
@@ -91,6 +93,9 @@ export class BoardReportService {
       ),
     ]);
     const inMonth = missed.filter((d) => localDate(d.dueAt).startsWith(month));
+    const reasons = await this.inspections.missedReasons([...new Set(inMonth.map((d) => d.caseId))]);
+    const reasonOf = (d: (typeof inMonth)[number]) =>
+      reasons.find((r) => r.caseId === d.caseId && r.stage === d.stage)?.reason ?? "No reason recorded";
     const title = `Damp and mould: board report, ${monthWords(month)}`;
     const made = formatDayTimeZoned(now.toISOString());
     return {
@@ -190,11 +195,12 @@ export class BoardReportService {
         else
           pdf.table(
             [
-              { header: "Case", width: 0.18 },
-              { header: "Home", width: 0.3 },
-              { header: "Stage", width: 0.18 },
-              { header: "Due", width: 0.17 },
-              { header: "Done", width: 0.17 },
+              { header: "Case", width: 0.16 },
+              { header: "Home", width: 0.2 },
+              { header: "Stage", width: 0.13 },
+              { header: "Due", width: 0.12 },
+              { header: "Done", width: 0.12 },
+              { header: "Reason", width: 0.27 },
             ],
             inMonth.map((d) => [
               d.reference,
@@ -202,6 +208,7 @@ export class BoardReportService {
               stageLabel(d.stage),
               formatDay(d.dueAt.toISOString()),
               d.doneAt ? formatDay(d.doneAt.toISOString()) : "Not yet done",
+              reasonOf(d),
             ]),
           );
 

@@ -1,5 +1,5 @@
 import type { CaseStatus } from "../../../src/lib/domain/case-workflow.js";
-import type { HazardClass } from "../../../src/lib/domain/deadlines.js";
+import type { DeadlineStage, HazardClass } from "../../../src/lib/domain/deadlines.js";
 import type { SlotWindow } from "../../../src/lib/schemas/work-orders.js";
 
 interface ComplaintEventBase {
@@ -113,6 +113,8 @@ export type CaseEventPayload =
   | { type: "monitoring-started"; after: { worksDoneAt: string; endsAt: string; days: number } }
   /** Staff made the case's evidence pack: its content hash (EVIDENCE_PACK_DEFINITION), pages and file name. */
   | { type: "evidence-pack-made"; after: { sha256: string; pages: number; fileName: string } }
+  /** Staff said why a deadline stage was missed (staff only). */
+  | { type: "missed-deadline-explained"; before: { reason: string | null }; after: { stage: DeadlineStage; reason: string } }
   /** Complaints (complaints module). `note` is staff-only in every complaint event; `letter` is what the tenant was sent. */
   | {
       type: "complaint-raised";

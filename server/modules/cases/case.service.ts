@@ -57,7 +57,11 @@ export const householdIncludes = (vulnerability: readonly string[]) =>
 const EMAIL_EVENTS: ReadonlySet<string> = new Set<CaseEventType>(["email-queued", "email-resent"]);
 
 /** Timeline entries for staff only: internal notes, and the evidence packs staff made. */
-const STAFF_ONLY_EVENTS: ReadonlySet<string> = new Set<CaseEventType>(["internal-note", "evidence-pack-made"]);
+const STAFF_ONLY_EVENTS: ReadonlySet<string> = new Set<CaseEventType>([
+  "internal-note",
+  "evidence-pack-made",
+  "missed-deadline-explained",
+]);
 
 /** Statuses a tenant's "it's got worse" reopens (back to triage). */
 export const REOPENED_WHEN_WORSE: readonly CaseStatus[] = ["closed", "cancelled", "monitoring"];

@@ -1,11 +1,13 @@
-import type { DataSource } from "typeorm";
+import { In, type DataSource } from "typeorm";
+import type { DeadlineStage } from "../../../src/lib/domain/deadlines.js";
 import type { Config } from "../../config/env.js";
 import { ConflictError, ValidationError } from "../../lib/errors.js";
 import type { Actor } from "../auth/actor.js";
-import type { CaseService } from "../cases/case.service.js";
+import type { Case, CaseService } from "../cases/case.service.js";
 import type { MailService } from "../mail/mail.service.js";
 import type { UserService } from "../users/user.service.js";
 import { Inspection } from "./inspection.entity.js";
+import { MissedDeadlineReason } from "./missed-deadline-reason.entity.js";
 import type { InspectionInput } from "./inspections.schemas.js";
 import { WrittenSummary } from "./written-summary.entity.js";
 import type { Clock } from "../../lib/clock.js";
@@ -60,6 +62,41 @@ export class InspectionService {
   async list(actor: Actor, caseId: number): Promise<Inspection[]> {
     const c = await this.cases.getForActor(actor, caseId);
     return this.dataSource.getRepository(Inspection).find({ where: { caseId: c.id }, order: { inspectedAt: "ASC", id: "ASC" } });
+  }
+
+  /**
+   * Staff's reason for a stage the case missed (`missed` is the state the caller worked out from the
+   * case's deadlines now: a stage not missed is a 409). The latest reason replaces the one before; both
+   * are on the staff timeline.
+   */
+  async explainMissedDeadline(
+    actor: Actor,
+    caseId: number,
+    stage: DeadlineStage,
+    reason: string,
+    missed: (c: Case) => Promise<boolean>,
+  ): Promise<MissedDeadlineReason> {
+    return this.dataSource.transaction(async (m) => {
+      const c = await this.cases.getForActor(actor, caseId, m);
+      if (!(await missed(c))) throw new ConflictError("That deadline has not been missed: there is nothing to explain.");
+      const repo = m.getRepository(MissedDeadlineReason);
+      const before = await repo.findOneBy({ caseId: c.id, stage });
+      const saved = await repo.save({ caseId: c.id, stage, reason, recordedById: actor.id, recordedAt: this.clock.now() });
+      await this.cases.recordEvent(m, {
+        caseId: c.id,
+        actorId: actor.id,
+        type: "missed-deadline-explained",
+        before: { reason: before?.reason ?? null },
+        after: { stage, reason },
+      });
+      return saved;
+    });
+  }
+
+  /** The reasons staff gave for a case's missed stages, with who gave them. */
+  async missedReasons(caseIds: readonly number[]): Promise<MissedDeadlineReason[]> {
+    if (caseIds.length === 0) return [];
+    return this.dataSource.getRepository(MissedDeadlineReason).findBy({ caseId: In([...caseIds]) });
   }
 
   /**

@@ -241,6 +241,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   ),
   e("POST", "/api/cases/:id/messages/read", "signed-in", "Mark the case's conversation read up to a message", readMarkResponse),
   e("GET", "/api/cases/:id/deadlines", STAFF, "A case's statutory clocks", deadlinesResponse),
+  e("PUT", "/api/cases/:id/deadlines/:stage/missed-reason", OFFICERS, "Say why a missed deadline stage was missed", null, 204),
   e("GET", "/api/cases/:id/evidence-pack", STAFF, "The case's evidence pack (PDF), recorded on its timeline with its hash", {
     mediaType: EVIDENCE_PACK_MEDIA_TYPE,
   }),

@@ -56,6 +56,13 @@ export const caseDeadline = z.object({
   dueAt: instant.nullable(),
   doneAt: instant.nullable(),
   state: z.enum(DEADLINE_STATES),
+  /** Staff's reason the stage was missed, who gave it and when (staff only, like the whole route). */
+  missedReason: z.object({ reason: z.string(), by: z.string().nullable(), at: instant }).nullable(),
 });
 export type CaseDeadline = z.infer<typeof caseDeadline>;
 export const deadlinesResponse = z.object({ deadlines: z.array(caseDeadline) });
+
+/** PUT /api/cases/:id/deadlines/:stage/missed-reason: why the stage was missed. */
+export const missedReasonSchema = z.object({
+  reason: z.string().trim().min(3, "Say in a few words why the deadline was missed.").max(2000, "At most 2 000 characters."),
+});

@@ -165,7 +165,7 @@ function Workspace({ id }: { id: number }) {
         <div className="grid grid-cols-1 items-start gap-5 xl:grid-cols-2">
           <div className="flex min-w-0 flex-col gap-5">
             <ActionsPanel c={c} statusLabel={statusLabelFor("staff")} me={user} canAct={officer} />
-            <DeadlinesPanel caseId={id} policySource={policy.data?.source} />
+            <DeadlinesPanel caseId={id} policySource={policy.data?.source} canExplain={officer} />
             {/* Complaints are for officers and admins; maintenance staff have no part in them. */}
             {officer ? <StaffComplaintPanel caseId={id} canAct={officer} /> : null}
           </div>

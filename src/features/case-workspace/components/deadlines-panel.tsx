@@ -1,4 +1,9 @@
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
+import { Textarea } from "@/components/ui/field";
+import { errorMessage } from "@/lib/api-client";
+import { useExplainMissedDeadline } from "../api/explain-missed-deadline";
 import { useDeadlines } from "../api/get-deadlines";
 import type { CaseDeadline } from "../api/types";
 import { stageLabel, stateLabel } from "../lib/labels";
@@ -18,7 +23,16 @@ function dueText(d: CaseDeadline): string {
  * Every statutory stage: when it is due and was done (UK time), and its state in words and an icon.
  * `policySource` says whose timeframes they are (the page reads the policy from the policy feature).
  */
-export function DeadlinesPanel({ caseId, policySource }: { caseId: number; policySource?: "default" | "landlord" | undefined }) {
+export function DeadlinesPanel({
+  caseId,
+  policySource,
+  canExplain = false,
+}: {
+  caseId: number;
+  policySource?: "default" | "landlord" | undefined;
+  /** Officers and admins may say why a missed stage was missed. */
+  canExplain?: boolean;
+}) {
   const deadlines = useDeadlines(caseId);
   return (
     <Panel title="Deadlines" id="case-deadlines">
@@ -39,7 +53,18 @@ export function DeadlinesPanel({ caseId, policySource }: { caseId: number; polic
                     <dd>{d.dueAt ? <time dateTime={d.dueAt}>{dueText(d)}</time> : dueText(d)}</dd>
                     <dt className="text-ink-soft">Done</dt>
                     <dd>{d.doneAt ? <time dateTime={d.doneAt}>{formatWeekdayDateTimeZoned(d.doneAt)}</time> : "Not yet"}</dd>
+                    {d.state === "missed" ? (
+                      <>
+                        <dt className="text-ink-soft">Why missed</dt>
+                        <dd>
+                          {d.missedReason
+                            ? `${d.missedReason.reason} (${d.missedReason.by ?? "staff"}, ${formatWeekdayDateTimeZoned(d.missedReason.at)})`
+                            : "Not recorded"}
+                        </dd>
+                      </>
+                    ) : null}
                   </dl>
+                  {d.state === "missed" && canExplain ? <ExplainMissed caseId={caseId} stage={d.stage} /> : null}
                 </li>
               ))}
             </ul>
@@ -103,5 +128,52 @@ function StateIcon({ state }: { state: string }) {
         <path d="M4 8h8" {...common} />
       )}
     </svg>
+  );
+}
+
+/** A small form under a missed stage: why it was missed, in a few words (the board report lists it). */
+function ExplainMissed({ caseId, stage }: { caseId: number; stage: string }) {
+  const [open, setOpen] = useState(false);
+  const [reason, setReason] = useState("");
+  const explain = useExplainMissedDeadline(caseId);
+  if (!open)
+    return (
+      <Button type="button" variant="secondary" size="sm" className="self-start" onClick={() => setOpen(true)}>
+        Say why it was missed
+      </Button>
+    );
+  return (
+    <form
+      className="flex flex-col gap-2"
+      onSubmit={(e) => {
+        e.preventDefault();
+        explain.mutate(
+          { stage, reason },
+          {
+            onSuccess: () => {
+              setOpen(false);
+              setReason("");
+            },
+          },
+        );
+      }}
+    >
+      <Textarea
+        label={`Why was "${stageLabel(stage)}" missed?`}
+        hint="Staff only. It is listed in the monthly board report."
+        rows={2}
+        value={reason}
+        onChange={(e) => setReason(e.target.value)}
+        error={explain.isError ? errorMessage(explain.error) : undefined}
+      />
+      <div className="flex gap-2">
+        <Button type="submit" size="sm" disabled={explain.isPending || reason.trim().length < 3}>
+          {explain.isPending ? "Saving…" : "Save the reason"}
+        </Button>
+        <Button type="button" size="sm" variant="secondary" onClick={() => setOpen(false)}>
+          Cancel
+        </Button>
+      </div>
+    </form>
   );
 }

@@ -1,3 +1,4 @@
+import { deadlineStageLabels } from "@/lib/labels";
 import type { ComponentType, ReactNode } from "react";
 import { formatDateTime } from "@/lib/dates";
 import { isRole, roleLabels } from "@/lib/roles";
@@ -261,6 +262,12 @@ export function describeEvent(
           audience === "tenant"
             ? "Your landlord recorded how it will put things right."
             : `${who || "Staff"} recorded the complaint's remedy.`,
+      };
+    case "missed-deadline-explained":
+      // Staff only: the tenant's timeline never carries it (the server leaves it out).
+      return {
+        title: `${who || "Staff"} said why "${deadlineStageLabels[str(after.stage) ?? ""] ?? str(after.stage) ?? "a stage"}" was missed.`,
+        detail: str(after.reason),
       };
     default:
       return { title: `${humanise(event.type)}${who ? `, by ${who}` : ""}.` };
