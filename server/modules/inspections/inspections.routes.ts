@@ -20,11 +20,11 @@ import { idParamsSchema } from "../properties/properties.schemas.js";
 import type { InspectionService } from "./inspection.service.js";
 import { inspectionSchema, summarySchema } from "./inspections.schemas.js";
 
-/** Mounted at /api/cases: inspections, the written summary and the deadline clocks (messages: the conversation module). */
 const stageParamsSchema = idParamsSchema.extend({
   stage: z.enum(DEADLINE_STAGES, { error: `stage must be one of ${DEADLINE_STAGES.join(", ")}.` }),
 });
 
+/** Mounted at /api/cases: inspections, the written summary and the deadline clocks (messages: the conversation module). */
 export function createInspectionsRouter({
   cases,
   inspections,

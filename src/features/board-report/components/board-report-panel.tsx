@@ -23,7 +23,8 @@ const monthWords = (month: string) =>
  */
 export function BoardReportPanel({ isAdmin }: { isAdmin: boolean }) {
   const [month, setMonth] = useState(lastMonth);
-  const valid = /^\d{4}-(0[1-9]|1[0-2])$/.test(month);
+  // A month that has begun (this one included): the server refuses a later one.
+  const valid = /^\d{4}-(0[1-9]|1[0-2])$/.test(month) && month <= todayInLondon().slice(0, 7);
   return (
     <Panel title="Board report" id="board-report">
       <p className="mb-3 text-ink-soft">
@@ -35,9 +36,9 @@ export function BoardReportPanel({ isAdmin }: { isAdmin: boolean }) {
           label="Month"
           type="month"
           value={month}
-          max={lastMonth().slice(0, 4) + "-12"}
+          max={todayInLondon().slice(0, 7)}
           onChange={(e) => setMonth(e.target.value)}
-          error={valid ? undefined : "Choose a month."}
+          error={valid ? undefined : "Choose a month that has begun."}
           className="w-48"
         />
         {valid ? (
