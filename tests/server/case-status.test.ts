@@ -135,7 +135,13 @@ describe("deadlines", () => {
       "supplementary-work",
     ]);
     expect(body.deadlines[0].state).toBe("not-applicable");
-    expect(body.deadlines[1]).toEqual({ stage: "investigate", dueAt: "2026-01-07T23:59:59.999Z", doneAt: null, state: "missed" });
+    expect(body.deadlines[1]).toEqual({
+      stage: "investigate",
+      dueAt: "2026-01-07T23:59:59.999Z",
+      doneAt: null,
+      state: "missed",
+      missedReason: null,
+    });
     await tenant.get(`/api/cases/${res.body.id}/deadlines`).expect(403);
   });
 
