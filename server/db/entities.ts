@@ -39,6 +39,8 @@ import { WebhookAttempt } from "../modules/webhooks/webhook-attempt.entity.js";
 import { WebhookDelivery } from "../modules/webhooks/webhook-delivery.entity.js";
 import { WebhookEndpoint } from "../modules/webhooks/webhook-endpoint.entity.js";
 import { WebhookEvent } from "../modules/webhooks/webhook-event.entity.js";
+import { Sensor } from "../modules/sensors/sensor.entity.js";
+import { SensorReading } from "../modules/sensors/sensor-reading.entity.js";
 
 export const entities = [
   Organisation,
@@ -78,6 +80,8 @@ export const entities = [
   ApiKey,
   ApiKeyAuditEntry,
   AdminActionEntry,
+  Sensor,
+  SensorReading,
   WebhookEndpoint,
   WebhookEvent,
   WebhookDelivery,

@@ -29,6 +29,7 @@ import { CaseMilestones1796443743318 } from "./migrations/1796443743318-CaseMile
 import { Complaints1796444351206 } from "./migrations/1796444351206-Complaints.js";
 import { BoardReports1796445784777 } from "./migrations/1796445784777-BoardReports.js";
 import { MissedDeadlineReasons1796448909533 } from "./migrations/1796448909533-MissedDeadlineReasons.js";
+import { Sensors1796460000000 } from "./migrations/1796460000000-Sensors.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -60,4 +61,5 @@ export const migrations = [
   Complaints1796444351206,
   BoardReports1796445784777,
   MissedDeadlineReasons1796448909533,
+  Sensors1796460000000,
 ];
