@@ -9,6 +9,7 @@ describe("evaluatePoint", () => {
       [
         "absoluteHumidityGPerM3",
         "dewPointC",
+        "frostPointC",
         "humidityRatio",
         "reasons",
         "saturationVapourPressurePa",

@@ -5,6 +5,7 @@ import {
   absoluteHumidityGPerM3,
   dewPointC,
   dewPointFromVapourPressureC,
+  frostPointC,
   humidityRatio,
   relativeHumidityPctFromVapourPressure,
   saturationVapourPressurePa,
@@ -21,14 +22,14 @@ describe("saturation vapour pressure", () => {
     [5, 872.6, "ASHRAE Handbook—Fundamentals (2017) ch.1 Table 3, via psychrolib test suite"],
     [25, 3169.7, "ASHRAE Handbook—Fundamentals (2017) ch.1 Table 3, via psychrolib test suite"],
     [50, 12351.3, "ASHRAE Handbook—Fundamentals (2017) ch.1 Table 3, via psychrolib test suite"],
-    [-5, 401.74, "ASHRAE Handbook—Fundamentals (2017) ch.1 Table 3 (over ice), via psychrolib test suite"],
-    [-20, 103.24, "ASHRAE Handbook—Fundamentals (2017) ch.1 Table 3 (over ice), via psychrolib test suite"],
     [0, 611.2, "ASHRAE 2017 Table 3 value from memory (TRADE.md §1 [M])"],
     [10, 1228.2, "ASHRAE 2017 Table 3 value from memory (TRADE.md §1 [M])"],
     [15, 1705.7, "ASHRAE 2017 Table 3 value from memory (TRADE.md §1 [M])"],
     [20, 2339.2, "ASHRAE 2017 Table 3 value from memory (TRADE.md §1 [M])"],
     [30, 4246.7, "ASHRAE 2017 Table 3 value from memory (TRADE.md §1 [M])"],
   ];
+  // Below 0 °C this function is over (supercooled) water; the table's over-ice values (−5 °C 401.74 Pa,
+  // −20 °C 103.24 Pa) are checked against saturationVapourPressureOverIcePa in psychrometrics-below-zero.test.ts.
   it.each(table)("at %d °C matches %d Pa within 3e-4 (%s)", (t, pa) => {
     // Tolerance: relative 3e-4, as in psychrolib's test suite (TRADE.md §1).
     expect(relativeError(saturationVapourPressurePa(t), pa)).toBeLessThan(3e-4);
@@ -57,39 +58,40 @@ describe("dew point", () => {
   it("is within 0.05 K of both Magnus forms on a 1 °C × 5 %RH grid over 0–35 °C, 30–95 % (water branch)", () => {
     // Alduchov & Eskridge (1996): a = 17.625, b = 243.04 °C; WMO-No. 8 (2008) Annex 4.B:
     // a = 17.62, b = 243.12 °C. psychrolib solves ASHRAE eq. 6 (Hyland–Wexler) over water.
-    // Measured on this grid: worst differences 0.024 K (A&E) and 0.034 K (WMO), at 18 °C/30 %.
+    // Measured on this grid (dew points below 0 °C included, over water): worst 0.026 K (A&E) and 0.036 K (WMO).
     let checked = 0;
     for (let t = 0; t <= 35; t++) {
       for (let rh = 30; rh <= 95; rh += 5) {
         const td = dewPointC(t, rh);
-        if (td < 0.01) continue; // frost point: checked in the next test
         expect(Math.abs(td - magnusDewPoint(t, rh, 17.625, 243.04))).toBeLessThan(0.05);
         expect(Math.abs(td - magnusDewPoint(t, rh, 17.62, 243.12))).toBeLessThan(0.05);
         checked++;
       }
     }
-    expect(checked).toBe(36 * 14 - 115);
+    expect(checked).toBe(36 * 14); // over water everywhere, below 0 °C too
   });
 
-  it("below 0.01 °C is the frost point: within 0.05 K of the over-ice Magnus forms on the rest of the grid", () => {
-    // psychrolib switches to ASHRAE eq. 5 (over ice) at and below the triple point, so for the
-    // 115 grid points whose dew point is below 0.01 °C it returns the frost point; the over-water
-    // Magnus dew point there is up to 1.7 K lower (0 °C / 30 %: −15.54 against −13.87 °C).
-    // Over-ice forms, from memory (not in TRADE.md): Alduchov & Eskridge (1996)
-    // 6.1121·exp(22.587·t/(273.86+t)) hPa; WMO-No. 8 6.112·exp(22.46·t/(272.62+t)) hPa. The vapour
-    // pressure comes from the matching over-water form. Measured worst: 0.026 K and 0.030 K.
+  it("below 0 °C the dew point stays over water; the frost point is within 0.05 K of the over-ice Magnus forms", () => {
+    // The dew point is over water at any temperature (WMO-No. 8 convention; it was the frost point
+    // before, from psychrolib's ice branch). For the 115 grid points whose dew point is below 0 °C,
+    // frostPointC (ASHRAE eq. 5) is checked against the over-ice forms, from memory (not in TRADE.md):
+    // Alduchov & Eskridge (1996) 6.1121·exp(22.587·t/(273.86+t)) hPa; WMO-No. 8
+    // 6.112·exp(22.46·t/(272.62+t)) hPa. The vapour pressure comes from the matching over-water form.
+    // Measured worst: 0.026 K and 0.030 K.
     let checked = 0;
     for (let t = 0; t <= 35; t++) {
       for (let rh = 30; rh <= 95; rh += 5) {
-        const td = dewPointC(t, rh);
-        if (td >= 0.01) continue;
+        const frost = frostPointC(t, rh);
+        if (frost === null) continue;
+        const td = frost;
         const pvAe = (rh / 100) * 6.1094 * Math.exp((17.625 * t) / (243.04 + t));
         const gAe = Math.log(pvAe / 6.1121);
         const pvWmo = (rh / 100) * 6.112 * Math.exp((17.62 * t) / (243.12 + t));
         const gWmo = Math.log(pvWmo / 6.112);
         expect(Math.abs(td - (273.86 * gAe) / (22.587 - gAe))).toBeLessThan(0.05);
         expect(Math.abs(td - (272.62 * gWmo) / (22.46 - gWmo))).toBeLessThan(0.05);
-        expect(td).toBeGreaterThan(magnusDewPoint(t, rh, 17.625, 243.04)); // frost point above dew point
+        expect(td).toBeGreaterThan(dewPointC(t, rh)); // frost point above dew point
+        expect(dewPointC(t, rh)).toBeLessThan(0);
         checked++;
       }
     }

@@ -296,21 +296,23 @@ describe("moisture excess and load class", () => {
   });
 
   it("20 °C / 60 % inside, 0 °C outside with outdoor RH assumed 85 % → 6.25 g/m³, class 4", () => {
-    // By hand (ideal gas, psat from ASHRAE eq. 6 via psychrolib, Rv = 461.523):
+    // By hand (ideal gas, psat from ASHRAE eq. 6, Rv = 461.523):
     //   inside: 0.6 × 2338.80 / (461.523 × 293.15) = 10.3720 g/m³
-    //   outside: 0.85 × 611.154 / (461.523 × 273.15) = 4.1207 g/m³ (85 %: common practice, no source)
-    //   excess 6.2512 g/m³; at 0 °C the class boundaries are 2, 4, 6, 8 (from memory) → class 4.
+    //   outside: 0.85 × 611.213 / (461.523 × 273.15) = 4.1211 g/m³ (85 %: common practice, no source;
+    //   outdoor RH is over water at 0 °C too, WMO-No. 8 convention: e_w(0 °C) = 611.213 Pa, not e_i = 611.154)
+    //   excess 6.2508 g/m³; at 0 °C the class boundaries are 2, 4, 6, 8 (from memory) → class 4.
     const r = evaluateSeries({ readings: at(range(48), () => ({ ...air(20, 60), outdoorTemperatureC: 0 })) });
-    expect(r.moistureExcess!.meanGPerM3).toBeCloseTo(6.2512, 4);
+    expect(r.moistureExcess!.meanGPerM3).toBeCloseTo(6.2508, 4);
     expect(r.moistureExcess!.loadClass).toBe(4);
   });
 
   it("uses the measured outdoor RH when given", () => {
-    // Outside at 0 °C / 100 %: 611.154 / (461.523 × 273.15) = 4.8479 g/m³; excess 10.3720 − 4.8479 = 5.5241 → class 3.
+    // Outside at 0 °C / 100 % over water (WMO-No. 8): 611.213 / (461.523 × 273.15) = 4.8484 g/m³;
+    // excess 10.3720 − 4.8484 = 5.5236 → class 3.
     const r = evaluateSeries({
       readings: at(range(48), () => ({ ...air(20, 60), outdoorTemperatureC: 0, outdoorRelativeHumidityPct: 100 })),
     });
-    expect(r.moistureExcess!.meanGPerM3).toBeCloseTo(5.5241, 4);
+    expect(r.moistureExcess!.meanGPerM3).toBeCloseTo(5.5236, 4);
     expect(r.moistureExcess!.loadClass).toBe(3);
     expect(r.diagnosis.reasons.some((s) => s.includes("taken as 85 %"))).toBe(false);
   });

@@ -16,7 +16,10 @@ export const DIAGNOSIS_KINDS = [
 
 /** POST /api/psychrometrics/evaluate, and each surface of a case's evaluation. */
 export const pointResult = z.object({
+  /** Over liquid water at any air temperature (WMO-No. 8 convention). */
   dewPointC: z.number(),
+  /** Over ice, whenever the dew point is below 0 °C; null otherwise. */
+  frostPointC: z.number().nullable(),
   vapourPressurePa: z.number(),
   saturationVapourPressurePa: z.number(),
   absoluteHumidityGPerM3: z.number(),

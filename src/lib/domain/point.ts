@@ -1,6 +1,16 @@
 // One spot reading: air properties, the surface's temperature and humidity, and plain reasons.
 import { isAbsent, requireRelativeHumidityPct, requireTemperatureC } from "./guards.js";
-import { GAS_CONSTANT_WATER_VAPOUR, STANDARD_PRESSURE_PA, psychrolib, requirePressure } from "./psychrometrics.js";
+import {
+  GAS_CONSTANT_WATER_VAPOUR,
+  STANDARD_PRESSURE_PA,
+  TRIPLE_POINT_C,
+  dewPointFromVapourPressureC,
+  frostPointOf,
+  psatSurfacePa,
+  psatWaterPa,
+  psychrolib,
+  requirePressure,
+} from "./psychrometrics.js";
 import {
   BORDERLINE_SURFACE_RH_PCT,
   CRITICAL_TEMPERATURE_FACTOR,
@@ -35,7 +45,10 @@ export interface SurfaceResult {
 }
 
 export interface PointResult {
+  /** Over liquid water, at any air temperature (WMO-No. 8 convention). */
   dewPointC: number;
+  /** Over ice, when the dew point is below 0 °C: a surface at or below it gathers frost. Null otherwise. */
+  frostPointC: number | null;
   vapourPressurePa: number;
   saturationVapourPressurePa: number;
   absoluteHumidityGPerM3: number;
@@ -54,9 +67,11 @@ export function evaluatePoint(input: PointInput): PointResult {
     : requireTemperatureC(input.outdoorTemperatureC, "outdoor temperature");
   const element = isAbsent(input.element) ? undefined : getBuildingElement(input.element);
 
-  const psatAir = psychrolib.GetSatVapPres(airT);
+  // RH is relative to water at any temperature (WMO-No. 8); see psychrometrics.ts for the conventions.
+  const psatAir = psatWaterPa(airT);
   const pv = (rh / 100) * psatAir;
-  const dewPoint = psychrolib.GetTDewPointFromVapPres(airT, pv);
+  const dewPoint = Math.min(dewPointFromVapourPressureC(pv), airT);
+  const frostPoint = frostPointOf(pv);
   const reasons: string[] = [];
   const noun = element ? `The ${element.surfaceNoun} surface` : "The surface";
 
@@ -92,18 +107,20 @@ export function evaluatePoint(input: PointInput): PointResult {
     );
   }
 
-  const surfaceRh = source === "air" ? rh : (100 * pv) / psychrolib.GetSatVapPres(surfaceT);
+  // A surface at or below 0.01 °C is judged over ice (ISO 13788); above, the air's own RH where it is at the air temperature.
+  const iced = surfaceT <= TRIPLE_POINT_C;
+  const surfaceRh = source === "air" && !iced ? rh : (100 * pv) / psatSurfacePa(surfaceT);
   let state = surfaceState(surfaceRh);
   if (source === "air" && state === "condensing") {
     // Without a surface temperature (measured or estimated from the construction) the surface is only
     // assumed to be at the air temperature: saturated air says mould risk, not that water condenses there.
     state = "mould-risk";
     reasons.push(
-      `The air is saturated (${percent(rh)} relative humidity). Without a surface temperature we cannot say whether water ` +
+      `The air is saturated${iced ? " relative to ice" : ""} (${percent(rh)} relative humidity). Without a surface temperature we cannot say whether water ` +
         `condenses on the surface, but any surface colder than the air would be wet.`,
     );
   } else {
-    reasons.push(stateReason(state, noun, surfaceT, surfaceRh, dewPoint));
+    reasons.push(stateReason(state, noun, surfaceT, surfaceRh, dewPoint, iced ? frostPoint : null));
   }
 
   if (fRsi !== undefined && fRsi < CRITICAL_TEMPERATURE_FACTOR) {
@@ -123,6 +140,7 @@ export function evaluatePoint(input: PointInput): PointResult {
 
   return {
     dewPointC: dewPoint,
+    frostPointC: frostPoint,
     vapourPressurePa: pv,
     saturationVapourPressurePa: psatAir,
     absoluteHumidityGPerM3: (1000 * pv) / (GAS_CONSTANT_WATER_VAPOUR * (airT + 273.15)),
@@ -142,30 +160,43 @@ function estimatedReason(element: BuildingElement, surfaceT: number, outdoorT: n
     : base;
 }
 
-function stateReason(state: SurfaceState, noun: string, surfaceT: number, surfaceRh: number, dewPoint: number): string {
+const ICE_NOTE = "below 0 °C a surface is judged against saturation over ice, as ISO 13788 does";
+
+/** frostPoint is given only for a surface at or below 0.01 °C whose air has one: it is then the mark. */
+function stateReason(
+  state: SurfaceState,
+  noun: string,
+  surfaceT: number,
+  surfaceRh: number,
+  dewPoint: number,
+  frostPoint: number | null,
+): string {
+  const iced = surfaceT <= TRIPLE_POINT_C;
   switch (state) {
     case "condensing": {
+      if (frostPoint !== null) {
+        const relation = surfaceT > frostPoint - 0.05 ? "at" : "below";
+        return `${noun} is about ${celsius(surfaceT)}, ${relation} the air's frost point of ${celsius(frostPoint)}, so frost forms on it (${ICE_NOTE}).`;
+      }
       const relation = surfaceT > dewPoint - 0.05 ? "at" : "below";
-      return `${noun} is about ${celsius(surfaceT)}, ${relation} the air's dew point of ${celsius(dewPoint)}, so water condenses on it.`;
+      return `${noun} is about ${celsius(surfaceT)}, ${relation} the air's dew point of ${celsius(dewPoint)}, so water condenses on it${iced ? " and freezes" : ""}.`;
     }
     case "mould-risk":
       return (
-        `${noun} is about ${celsius(surfaceT)}; the moisture in the air gives it a relative humidity of ${percent(surfaceRh)}, ` +
+        `${noun} is about ${celsius(surfaceT)}; the moisture in the air gives it a relative humidity of ${percent(surfaceRh)}${iced ? ` (relative to ice: ${ICE_NOTE})` : ""}, ` +
         `at or above the ${MOULD_SURFACE_RH_PCT} % at which mould can grow if it lasts (ISO 13788 judges this on a monthly mean).`
       );
     case "borderline":
       return (
-        `${noun} is about ${celsius(surfaceT)}, with a relative humidity of ${percent(surfaceRh)}: close to the ` +
+        `${noun} is about ${celsius(surfaceT)}, with a relative humidity of ${percent(surfaceRh)}${iced ? ` (relative to ice: ${ICE_NOTE})` : ""}: close to the ` +
         `${MOULD_SURFACE_RH_PCT} % at which mould can grow (the ${BORDERLINE_SURFACE_RH_PCT} % warning level is our own).`
       );
-    case "dry":
+    case "dry": {
+      const mark = frostPoint ?? dewPoint;
       return (
-        `${noun} is about ${celsius(surfaceT)}, with a relative humidity of ${percent(surfaceRh)}, ` +
-        `${fixed(dewPointMargin(surfaceT, dewPoint), 1)} K above the dew point: below the levels at which mould grows or water condenses.`
+        `${noun} is about ${celsius(surfaceT)}, with a relative humidity of ${percent(surfaceRh)}${iced ? " (relative to ice)" : ""}, ` +
+        `${fixed(surfaceT - mark, 1)} K above the ${frostPoint === null ? "dew" : "frost"} point: below the levels at which mould grows or water condenses.`
       );
+    }
   }
-}
-
-function dewPointMargin(surfaceT: number, dewPoint: number): number {
-  return surfaceT - dewPoint;
 }

@@ -14,6 +14,8 @@
 //   readings with a measured surface and indoors at least 5 K warmer. Mean air RH and temperature
 //   for the diagnosis are plain means over readings too.
 // - No readings: count 0, from/to and the worst mean null, diagnosis insufficient-data.
+// - Below 0 °C (psychrometrics.ts): air and outdoor RH are relative to water (WMO), a surface at or
+//   below 0.01 °C is judged over ice (ISO 13788), so a frosting surface counts as condensing.
 // - Hot path: saturation pressures only. The dew-point solve is never called per reading.
 import { diagnose } from "./diagnosis.js";
 import type { Diagnosis, DiagnosisFacts } from "./diagnosis.js";
@@ -21,7 +23,7 @@ import { isAbsent, requireRelativeHumidityPct, requireTemperatureC } from "./gua
 import { ASSUMED_OUTDOOR_RH_PCT, moistureLoadClass } from "./moisture-load.js";
 import { createMouldIndexState, materialClass, stepMouldIndex } from "./mould-index.js";
 import type { MaterialSensitivity } from "./mould-index.js";
-import { GAS_CONSTANT_WATER_VAPOUR, psychrolib } from "./psychrometrics.js";
+import { GAS_CONSTANT_WATER_VAPOUR, TRIPLE_POINT_C, psatSurfacePa, psatWaterPa } from "./psychrometrics.js";
 import { MIN_TEMPERATURE_DIFFERENCE_FOR_FACTOR_K, getBuildingElement } from "./surface.js";
 import type { ElementId } from "./surface.js";
 
@@ -166,7 +168,7 @@ function scan(input: SeriesInput, withTrace: boolean): Scan {
     const r = readings[index];
     const airT = requireTemperatureC(r.airTemperatureC, "air temperature");
     const rh = requireRelativeHumidityPct(r.relativeHumidityPct, "relative humidity");
-    const psatAir = psychrolib.GetSatVapPres(airT);
+    const psatAir = psatWaterPa(airT);
     const pv = (rh * psatAir) / 100;
     const measured = r.surfaceTemperatureC;
     const outdoor = r.outdoorTemperatureC;
@@ -177,7 +179,7 @@ function scan(input: SeriesInput, withTrace: boolean): Scan {
     let sRh: number;
     if (!isAbsent(measured)) {
       surfaceT = requireTemperatureC(measured, "surface temperature");
-      sRh = (100 * pv) / psychrolib.GetSatVapPres(surfaceT);
+      sRh = (100 * pv) / psatSurfacePa(surfaceT);
       sources.measured++;
       if (hasOutdoor && airT - outdoor >= MIN_TEMPERATURE_DIFFERENCE_FOR_FACTOR_K) {
         factorNumerator += surfaceT - outdoor;
@@ -185,11 +187,11 @@ function scan(input: SeriesInput, withTrace: boolean): Scan {
       }
     } else if (elementFactor !== undefined && hasOutdoor) {
       surfaceT = outdoor + elementFactor * (airT - outdoor);
-      sRh = (100 * pv) / psychrolib.GetSatVapPres(surfaceT);
+      sRh = (100 * pv) / psatSurfacePa(surfaceT);
       sources.estimated++;
     } else {
       surfaceT = airT;
-      sRh = rh;
+      sRh = airT > TRIPLE_POINT_C ? rh : (100 * pv) / psatSurfacePa(airT);
       sources.air++;
     }
     if (sRh > 100) sRh = 100;
@@ -202,7 +204,7 @@ function scan(input: SeriesInput, withTrace: boolean): Scan {
       } else {
         requireRelativeHumidityPct(outdoorRh, "outdoor relative humidity");
       }
-      const pvOutdoor = (outdoorRh * psychrolib.GetSatVapPres(outdoor)) / 100;
+      const pvOutdoor = (outdoorRh * psatWaterPa(outdoor)) / 100;
       excessSum += (1000 * (pv / (airT + ZERO_CELSIUS_K) - pvOutdoor / (outdoor + ZERO_CELSIUS_K))) / GAS_CONSTANT_WATER_VAPOUR;
       outdoorTSum += outdoor;
       outdoorCount++;

@@ -1,7 +1,7 @@
 // Conditions at an internal surface: its temperature (measured or estimated from a building
 // element), its relative humidity, its temperature factor and the resulting state.
 import { requireFinite, requireRelativeHumidityPct, requireTemperatureC } from "./guards.js";
-import { dewPointFromVapourPressureC, saturationVapourPressurePa, vapourPressurePa } from "./psychrometrics.js";
+import { surfaceSaturationTemperatureC, surfaceSaturationVapourPressurePa, vapourPressurePa } from "./psychrometrics.js";
 
 /** Internal surface resistance for condensation and mould assessment, m²K/W (ISO 13788; from memory). */
 export const RSI_OPAQUE_M2K_PER_W = 0.25;
@@ -155,11 +155,12 @@ export function temperatureFactor(
 
 /**
  * Relative humidity at a surface, %: the room's vapour pressure over the saturation pressure at
- * the surface temperature. Left as the raw ratio: above 100 the surface is below the dew point.
+ * the surface temperature — over ice at or below 0.01 °C, over water above (ISO 13788, from memory).
+ * Left as the raw ratio: above 100 the surface is below the dew point (frost point below 0 °C).
  */
 export function surfaceRelativeHumidityPct(vapourPressure: number, surfaceTemperatureC: number): number {
   requireFinite(vapourPressure, "vapour pressure");
-  return (100 * vapourPressure) / saturationVapourPressurePa(surfaceTemperatureC);
+  return (100 * vapourPressure) / surfaceSaturationVapourPressurePa(surfaceTemperatureC);
 }
 
 export type SurfaceState = "condensing" | "mould-risk" | "borderline" | "dry";
@@ -192,7 +193,8 @@ export interface MinimumTemperatureFactor {
 
 /**
  * ISO 13788 monthly method for one month: pi from the indoor conditions, psat,min = pi/φcrit,
- * θsi,min where the saturation pressure equals psat,min, fRsi,min = (θsi,min − θe)/(θi − θe).
+ * θsi,min where the saturation pressure equals psat,min (over ice below 0 °C, as ISO 13788's own
+ * formula does), fRsi,min = (θsi,min − θe)/(θi − θe).
  * The caller supplies pi through the indoor RH (the design route pi = pe + 1.10·Δp is the
  * caller's to apply before converting to RH).
  */
@@ -207,7 +209,7 @@ export function minimumTemperatureFactor(input: MinimumTemperatureFactorInput): 
   }
   const internalVapourPressurePa = vapourPressurePa(indoorTemperatureC, indoorRelativeHumidityPct);
   const minimumSaturationPressurePa = internalVapourPressurePa / (critical / 100);
-  const minimumSurfaceTemperatureC = dewPointFromVapourPressureC(minimumSaturationPressurePa);
+  const minimumSurfaceTemperatureC = surfaceSaturationTemperatureC(minimumSaturationPressurePa);
   return {
     internalVapourPressurePa,
     minimumSaturationPressurePa,
