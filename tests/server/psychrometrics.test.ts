@@ -26,6 +26,7 @@ describe("POST /api/psychrometrics/evaluate", () => {
       [
         "absoluteHumidityGPerM3",
         "dewPointC",
+        "frostPointC",
         "humidityRatio",
         "reasons",
         "saturationVapourPressurePa",
@@ -37,7 +38,22 @@ describe("POST /api/psychrometrics/evaluate", () => {
     // γ = ln 0.78 + 17.625·19/(243.04+19) = 1.02949; Td = 243.04·γ/(17.625−γ) = 15.077 °C.
     expect(Math.abs(res.body.dewPointC - 15.077)).toBeLessThan(0.05);
     expect(res.body.surface).toMatchObject({ temperatureC: 9, source: "measured", state: "condensing" });
+    expect(res.body.frostPointC).toBeNull(); // dew point above 0 °C: no frost point
     expect(res.body.reasons.length).toBeGreaterThan(0);
+  });
+
+  it("below 0 °C answers the dew point over water and the frost point over ice, and judges the surface over ice", async () => {
+    // Conventions: RH over water at any temperature (WMO-No. 8 Annex 4.B); a surface below 0 °C against
+    // saturation over ice (ISO 13788). Worked by hand from WMO-No. 8's formulas, tolerance 0.02 K:
+    // pv = 0.8 × 6.112·exp(17.62·−5/238.12) hPa = 337.75 Pa; g = ln(337.75/611.2) = −0.59311;
+    // dew point 243.12·g/(17.62 − g) = −7.917 °C; frost point 272.62·g/(22.46 − g) = −7.014 °C.
+    const res = await evaluate({ airTemperatureC: -5, relativeHumidityPct: 80, surfaceTemperatureC: -7.3 }).expect(200);
+    expect(Math.abs(res.body.dewPointC - -7.917)).toBeLessThan(0.02);
+    expect(Math.abs(res.body.frostPointC - -7.014)).toBeLessThan(0.02);
+    // −7.3 °C is above the dew point but below the frost point: frost forms (102.4 % over ice, ASHRAE eq. 5).
+    expect(res.body.surface.state).toBe("condensing");
+    expect(res.body.surface.relativeHumidityPct).toBeCloseTo(102.4, 1);
+    expect(res.body.reasons.join(" ")).toMatch(/frost point of -7\.0 °C, so frost forms/);
   });
 
   it("estimates the surface from an element and outdoor temperature, else takes air temperature and says so", async () => {
@@ -190,5 +206,10 @@ describe("limits and documentation", () => {
     expect(evaluateBody.required).toEqual(expect.arrayContaining(["airTemperatureC", "relativeHumidityPct"]));
     expect(evaluateBody.properties.airTemperatureC).toMatchObject({ minimum: -20, maximum: 50 });
     expect(res.body.paths["/api/psychrometrics/series"].post.responses).toHaveProperty("413");
+    // The reply's dew point and frost point are documented with their conventions.
+    const point = res.body.paths["/api/psychrometrics/evaluate"].post.responses["200"].content["application/json"].schema;
+    expect(point.required).toEqual(expect.arrayContaining(["dewPointC", "frostPointC"]));
+    expect(point.properties.dewPointC.description).toMatch(/over liquid water/);
+    expect(point.properties.frostPointC).toMatchObject({ type: ["number", "null"] });
   });
 });

@@ -25,6 +25,7 @@ const pointResult = {
   type: "object",
   required: [
     "dewPointC",
+    "frostPointC",
     "vapourPressurePa",
     "saturationVapourPressurePa",
     "absoluteHumidityGPerM3",
@@ -33,10 +34,17 @@ const pointResult = {
     "reasons",
   ],
   properties: {
-    dewPointC: num("Dew point of the room air, °C."),
-    vapourPressurePa: num("Water vapour partial pressure of the room air, Pa."),
+    dewPointC: num(
+      "Dew point of the room air, °C, over liquid water at any temperature: relative humidity is read as relative to water below 0 °C too (WMO-No. 8 convention).",
+    ),
+    frostPointC: {
+      type: ["number", "null"],
+      description:
+        "Frost point of the room air, °C (saturation over ice): given whenever the dew point is below 0 °C, null otherwise. A surface at or below it gathers frost.",
+    },
+    vapourPressurePa: num("Water vapour partial pressure of the room air, Pa: relative humidity × saturation over water."),
     saturationVapourPressurePa: num(
-      "Saturation vapour pressure at the air temperature, Pa (Hyland–Wexler, ASHRAE Handbook—Fundamentals 2017).",
+      "Saturation vapour pressure over liquid water at the air temperature, Pa (Hyland–Wexler, ASHRAE Handbook—Fundamentals 2017 eq. 6), below 0 °C too.",
     ),
     absoluteHumidityGPerM3: num("Water vapour per cubic metre of room air, g/m³."),
     humidityRatio: num("kg of water vapour per kg of dry air."),
@@ -50,7 +58,9 @@ const pointResult = {
           enum: ["measured", "estimated", "air"],
           description: "measured; estimated from the element and outdoor temperature; or taken at air temperature.",
         },
-        relativeHumidityPct: num("Relative humidity at the surface, %; above 100 the surface is below the dew point."),
+        relativeHumidityPct: num(
+          "Relative humidity at the surface, %: over ice when the surface is at or below 0.01 °C (ISO 13788), over water above; above 100 the surface is below the dew point (the frost point below 0 °C).",
+        ),
         temperatureFactor: num("fRsi = (θsi − θe)/(θi − θe): measured, or the element's typical value when estimated."),
         state: { type: "string", enum: SURFACE_STATES },
       },
@@ -77,7 +87,7 @@ const seriesResult = {
     from: { type: ["string", "null"], format: "date-time" },
     to: { type: ["string", "null"], format: "date-time" },
     hoursSurfaceRhAtLeast80: num("Hours with surface RH ≥ 80 % (ISO 13788 mould criterion)."),
-    hoursCondensing: num("Hours with surface RH ≥ 100 %."),
+    hoursCondensing: num("Hours with surface RH ≥ 100 % (over ice for a surface below 0 °C, ISO 13788: frost)."),
     worstRolling30DayMeanSurfaceRhPct: {
       type: ["number", "null"],
       description: "Worst 30-day rolling mean surface RH, % (ISO 13788 monthly criterion).",
