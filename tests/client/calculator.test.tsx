@@ -116,6 +116,35 @@ describe("dew point calculator", () => {
   });
 });
 
+describe("dew point calculator below 0 °C", () => {
+  it("shows the frost point in plain words when the dew point is below 0 °C, and not otherwise", async () => {
+    const { user } = await openCalculator();
+    await user.type(screen.getByLabelText(/^Room temperature/), "-5");
+    await user.type(screen.getByLabelText(/^Relative humidity/), "80");
+    await user.type(screen.getByLabelText(/^Surface temperature/), "-7.3");
+    // RH over water (WMO-No. 8 Annex 4.B), worked by hand from its formulas: pv = 0.8 × 422.19 = 337.75 Pa,
+    // g = ln(337.75/611.2) = −0.59311; dew point 243.12·g/(17.62 − g) = −7.92 °C, frost point
+    // 272.62·g/(22.46 − g) = −7.01 °C. A surface at −7.3 °C is judged over ice (ISO 13788): frost forms.
+    expect(await within(results()).findByText("Condensing")).toBeInTheDocument();
+    expect(figure("Dew point")).toHaveTextContent("-7.9 °C");
+    expect(figure("Frost point")).toHaveTextContent("-7.0 °C");
+    expect(figure("Frost point")).toHaveTextContent("Frost would form on a surface at -7.0 °C or colder.");
+    expect(within(results()).getByText(/frost point of -7\.0 °C, so frost forms on it/)).toBeInTheDocument();
+    const status = within(results()).getByRole("status");
+    await expect.poll(() => status.textContent, { timeout: 2000 }).toMatch(/Dew point -7\.9 °C; frost point -7\.0 °C/);
+
+    // Warm enough that the dew point is above 0 °C: no frost point at all.
+    await user.clear(screen.getByLabelText(/^Room temperature/));
+    await user.type(screen.getByLabelText(/^Room temperature/), "19");
+    await user.clear(screen.getByLabelText(/^Surface temperature/));
+    await user.type(screen.getByLabelText(/^Surface temperature/), "9");
+    // 19 °C / 80 %: Magnus (Alduchov & Eskridge 1996) by hand, γ = ln 0.8 + 17.625·19/262.04 = 1.05481,
+    // Td = 243.04·γ/(17.625 − γ) = 15.47 °C.
+    expect(await within(results()).findByText(/below the air's dew point of 15\.5 °C/)).toBeInTheDocument();
+    expect(within(results()).queryByText("Frost point", { selector: "dt" })).toBeNull();
+  });
+});
+
 describe("risk panel on its own", () => {
   it("names the state in words, with a heading when given a title, and folds the reasons away when compact", () => {
     const result = evaluatePoint({

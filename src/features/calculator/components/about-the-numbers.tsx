@@ -19,6 +19,14 @@ export function AboutTheNumbers() {
           </dd>
         </div>
         <div>
+          <dt className="font-bold">Frost point</dt>
+          <dd>
+            Below freezing, the water in the air settles on a cold surface as frost instead. It starts a little above the dew
+            point, at the frost point, which the calculator shows whenever the dew point is below 0 °C. Humidity readings are
+            taken as relative to water even below 0 °C, as weather services and most hygrometers give them.
+          </dd>
+        </div>
+        <div>
           <dt className="font-bold">Relative humidity at the surface</dt>
           <dd>
             A cold surface cools the thin layer of air touching it, so that air is damper, relative to what it could hold, than

@@ -51,7 +51,8 @@ function announcement(outcome: Outcome): string {
   const { result } = outcome;
   const state = STATE_LABELS[result.surface.state];
   const humidity = surfaceHumidity(result.surface.relativeHumidityPct);
-  return `Result: ${state.label}. ${state.summary} Dew point ${celsius(result.dewPointC)}; relative humidity at the surface ${humidity}.`;
+  const frost = result.frostPointC === null ? "" : `; frost point ${celsius(result.frostPointC)}`;
+  return `Result: ${state.label}. ${state.summary} Dew point ${celsius(result.dewPointC)}${frost}; relative humidity at the surface ${humidity}.`;
 }
 
 const ANNOUNCE_AFTER_MS = 700;
@@ -187,7 +188,14 @@ export function Calculator() {
 }
 
 function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointResult | null }) {
-  if (outcome.status === "ok") return <RiskPanel result={outcome.result} />;
+  if (outcome.status === "ok") {
+    return (
+      <>
+        <RiskPanel result={outcome.result} />
+        <FrostPoint result={outcome.result} />
+      </>
+    );
+  }
   if (outcome.status === "invalid" && lastResult) {
     return (
       <div className="flex flex-col gap-2">
@@ -196,6 +204,7 @@ function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointR
         </p>
         <div className="grayscale" data-stale="true">
           <RiskPanel result={lastResult} className="border-dashed bg-paper" />
+          <FrostPoint result={lastResult} />
         </div>
       </div>
     );
@@ -212,6 +221,27 @@ function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointR
         <p>Correct the value with a message beside it to see the result.</p>
       )}
     </EmptyState>
+  );
+}
+
+/**
+ * Below 0 °C a cold surface gathers frost before it reaches the dew point (which the engine gives over
+ * water, as humidity readings are): the frost point, over ice, is the mark there.
+ */
+function FrostPoint({ result }: { result: PointResult }) {
+  if (result.frostPointC === null) return null;
+  const frost = celsius(result.frostPointC);
+  return (
+    <dl className="rounded-lg border border-line bg-surface p-4">
+      <dt className="text-sm font-semibold text-ink-soft">Frost point</dt>
+      <dd className="flex flex-col">
+        <span className="text-lg font-bold text-ink tabular-nums">{frost}</span>
+        <span className="text-sm text-ink-soft">
+          Frost would form on a surface at {frost} or colder. Below freezing, the water in the air settles as ice, and it starts a
+          little above the dew point.
+        </span>
+      </dd>
+    </dl>
   );
 }
 
