@@ -42,6 +42,7 @@ import { WebhookService } from "./modules/webhooks/webhook.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
+import { SensorHealthService } from "./modules/sensors/sensor-health.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -74,6 +75,7 @@ export interface Services {
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
+  sensorHealth: SensorHealthService;
 }
 
 export interface AppContext {
@@ -211,6 +213,7 @@ export function createServices(
     invitationBatches,
     tenancyImports,
     evidencePacks,
+    sensorHealth: new SensorHealthService(dataSource, clock),
   };
 }
 

@@ -15,6 +15,7 @@ import { touchSessionsAtMostEveryMinute } from "./modules/auth/session.js";
 import { createAssessmentsRouter } from "./modules/assessments/assessments.routes.js";
 import { createInspectionsRouter } from "./modules/inspections/inspections.routes.js";
 import { createPolicyRouter } from "./modules/policy/policy.routes.js";
+import { createSensorHealthRouter } from "./modules/sensors/sensor-health.routes.js";
 import { createCasesRouter, createMyCasesRouter } from "./modules/cases/cases.routes.js";
 import { createCasePhotosRouter, createPhotosRouter } from "./modules/photos/photos.routes.js";
 import { createReadingsRouter } from "./modules/readings/readings.routes.js";
@@ -207,6 +208,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
       incomingDir: incomingDir(config.uploadsDir),
     }),
   );
+  api.use("/sensor-health", createSensorHealthRouter({ sensorHealth: services.sensorHealth }));
   api.use(createApiDocsRouter({ appUrl: config.appUrl }));
   api.use(apiNotFound);
 

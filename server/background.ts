@@ -6,6 +6,7 @@ import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
 import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
 import { startInvitationBatches } from "./modules/auth/invitation-batch.ticker.js";
 import { startBoardReports } from "./modules/board-report/board-report.scheduler.js";
+import { startSensorHealthSweeper } from "./modules/sensors/sensor-health.sweeper.js";
 
 /**
  * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
@@ -25,9 +26,12 @@ export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" 
     everyMs: ctx.config.invitationBatches.intervalMs,
   });
   const stopBoardReports = startBoardReports(ctx.services.boardReports, ctx.logger);
+  // Sensor health: each sensor with new readings is checked for low battery, flat-lining and jumps.
+  const stopSensorHealth = startSensorHealthSweeper(ctx.services.sensorHealth, ctx.logger);
   return async () => {
     await Promise.all([
       stopBoardReports(),
+      stopSensorHealth(),
       stopInvitations(),
       stopReminders(),
       stopTriageSweeper(),

@@ -41,6 +41,7 @@ import { WebhookEndpoint } from "../modules/webhooks/webhook-endpoint.entity.js"
 import { WebhookEvent } from "../modules/webhooks/webhook-event.entity.js";
 import { Sensor } from "../modules/sensors/sensor.entity.js";
 import { SensorReading } from "../modules/sensors/sensor-reading.entity.js";
+import { SensorHealthRecord } from "../modules/sensors/sensor-health.entity.js";
 
 export const entities = [
   Organisation,
@@ -82,6 +83,7 @@ export const entities = [
   AdminActionEntry,
   Sensor,
   SensorReading,
+  SensorHealthRecord,
   WebhookEndpoint,
   WebhookEvent,
   WebhookDelivery,

@@ -98,6 +98,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
               page("homes", () => import("./routes/staff/homes")),
               page("homes/:id", () => import("./routes/staff/home")),
               page("dashboard", () => import("./routes/staff/dashboard")),
+              page("sensors/health", () => import("./routes/staff/sensor-health")),
             ]),
             gate(["officer", "admin"], [page("log-report", () => import("./routes/staff/log-report"))]),
             gate(["admin"], [page("homes/new", () => import("./routes/admin/new-home"))]),

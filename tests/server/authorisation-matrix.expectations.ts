@@ -96,6 +96,10 @@ const ROWS: Record<string, Row> = {
   "POST /api/work-orders/:id/booking-response":                 [ 401, "ok",  404,  403,  403,  403,  403,  403],
   "GET /api/contractors":                                       [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
   "POST /api/contractors":                                      [ 401,  403,  403,  403, "ok", "ok", "ok",  403],
+  // Sensor health: the maintenance lead and admins, officers read; tenants never.
+  "GET /api/sensor-health/summary":                             [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
+  "GET /api/sensor-health/devices":                             [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
+  "GET /api/sensor-health/:id":                                 [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
   "GET /api/policy":                                            [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
   "PUT /api/policy":                                            [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   "DELETE /api/policy":                                         [ 401,  403,  403,  403,  403, "ok", "ok",  403],

@@ -35,6 +35,7 @@ import {
   readingsExportQuerySchema,
   readingsQuerySchema,
 } from "../readings/readings.schemas.js";
+import { sensorAttentionQuerySchema } from "../sensors/sensor-health.schemas.js";
 import { bulkPreviewSchema, bulkUpdateSchema, queueExportQuerySchema, queueQuerySchema } from "../cases/case-queue.schemas.js";
 import { userExportQuerySchema, userListQuerySchema, userUpdateSchema } from "../users/users.schemas.js";
 import { apiKeyCreateSchema } from "../../../src/lib/schemas/api-keys.js";
@@ -122,6 +123,7 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "GET /api/insight/export": { query: insightExportQuerySchema },
   "GET /api/cases/:id/readings/export": { query: readingsExportQuerySchema },
   "GET /api/work-orders/export": { query: workOrderExportQuerySchema },
+  "GET /api/sensor-health/devices": { query: sensorAttentionQuerySchema },
   "GET /api/properties/export": { query: propertyExportQuerySchema },
   "GET /api/users/export": { query: userExportQuerySchema },
 };

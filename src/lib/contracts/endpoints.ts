@@ -39,6 +39,7 @@ import {
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse, photoUploadResponse } from "./photos.js";
 import { policyResponse } from "./policy.js";
+import { sensorAttentionPageResponse, sensorHealthResponse, sensorHealthSummaryResponse } from "./sensor-health.js";
 import {
   estatesResponse,
   homeCasesResponse,
@@ -488,6 +489,17 @@ export const ENDPOINTS: readonly Endpoint[] = [
     webhookDeliveryPageResponse,
   ),
   e("POST", "/api/webhooks/:id/deliveries/:deliveryId/resend", ["admin"], "Send a delivery again", webhookDeliveryResponse, 202),
+
+  // Sensor health: the maintenance lead and admins; officers may read.
+  e("GET", "/api/sensor-health/summary", STAFF, "The landlord's sensors in use, counted by problem", sensorHealthSummaryResponse),
+  e(
+    "GET",
+    "/api/sensor-health/devices",
+    STAFF,
+    "The sensors needing attention, by home (problem=…, page, pageSize)",
+    sensorAttentionPageResponse,
+  ),
+  e("GET", "/api/sensor-health/:id", STAFF, "One sensor's health, from its readings now", sensorHealthResponse),
 ];
 
 /** The scope a route of the integration API needs (undefined for session routes). */

@@ -21,6 +21,7 @@ const navByRole: Record<Role, NavItem[]> = {
   maintenance: [
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
+    { to: "/sensors/health", label: "Sensor health" },
     { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
@@ -35,6 +36,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
+    { to: "/sensors/health", label: "Sensor health" },
     { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
