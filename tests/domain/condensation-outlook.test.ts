@@ -7,6 +7,7 @@ import {
   levelFor,
   outlookDates,
   outlookTips,
+  outlookWindow,
   roomOutlook,
   type IndoorConditions,
   type OutdoorForecastHour,
@@ -136,6 +137,9 @@ describe("room outlook", () => {
       ["2026-06-03", 1], // 22:00 Z on the 3rd = 23:00 London; 23:00 Z is already the 4th
     ]);
     expect(outlookDates(new Date("2026-06-01T23:30:00Z"))).toEqual(["2026-06-02", "2026-06-03", "2026-06-04"]);
+    // from 23:00 Z (the current hour) to London midnight ending the 4th = 23:00 Z on the 4th
+    const w = outlookWindow(new Date("2026-06-01T23:30:00Z"));
+    expect([w.from.toISOString(), w.to.toISOString()]).toEqual(["2026-06-01T23:00:00.000Z", "2026-06-04T23:00:00.000Z"]);
   });
 });
 

@@ -119,6 +119,14 @@ export function outlookDates(now: Date, timeZone: string = DEFAULT_TIME_ZONE): s
   return Array.from({ length: OUTLOOK_DAYS }, (_, i) => new Date(base + i * 86_400_000).toISOString().slice(0, 10));
 }
 
+/** The instants the outlook needs forecast hours for: from the current hour to the London midnight ending its last day. */
+export function outlookWindow(now: Date, timeZone: string = DEFAULT_TIME_ZONE): { from: Date; to: Date } {
+  const zone = new ZoneConverter(timeZone);
+  const last = outlookDates(now, timeZone).at(-1)!;
+  const end = zone.toUtc(Date.parse(`${last}T00:00:00Z`) + 86_400_000);
+  return { from: new Date(Math.floor(now.getTime() / 3_600_000) * 3_600_000), to: new Date(end) };
+}
+
 export function levelFor(day: { hours: number; hoursAtOrAbove80: number; condensingHours: number }): OutlookLevel | null {
   if (day.hours === 0) return null;
   if (day.condensingHours >= LIKELY_CONDENSING_HOURS) return "likely";
