@@ -42,6 +42,7 @@ import { WebhookService } from "./modules/webhooks/webhook.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
+import { WeatherService } from "./modules/weather/weather.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -74,6 +75,7 @@ export interface Services {
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
+  weather: WeatherService;
 }
 
 export interface AppContext {
@@ -108,6 +110,7 @@ export function createServices(
     leaseMs: Math.max(5 * 60_000, 3 * (connectionMs + greetingMs + socketMs)),
   });
   const properties = new PropertyService(dataSource, logger);
+  const weather = new WeatherService(dataSource, properties, config.weather, clock, logger);
   const stock = new StockImportService(dataSource, clock, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock, config.sessionCacheMs, sessionStore);
@@ -211,6 +214,7 @@ export function createServices(
     invitationBatches,
     tenancyImports,
     evidencePacks,
+    weather,
   };
 }
 

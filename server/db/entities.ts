@@ -41,6 +41,8 @@ import { WebhookEndpoint } from "../modules/webhooks/webhook-endpoint.entity.js"
 import { WebhookEvent } from "../modules/webhooks/webhook-event.entity.js";
 import { Sensor } from "../modules/sensors/sensor.entity.js";
 import { SensorReading } from "../modules/sensors/sensor-reading.entity.js";
+import { EstateLocation } from "../modules/weather/estate-location.entity.js";
+import { WeatherHour } from "../modules/weather/weather-hour.entity.js";
 
 export const entities = [
   Organisation,
@@ -89,4 +91,6 @@ export const entities = [
   InvitationBatch,
   PendingInvitation,
   TenancyImport,
+  EstateLocation,
+  WeatherHour,
 ];
