@@ -43,6 +43,7 @@ import { InvitationBatchService } from "./modules/auth/invitation-batch.service.
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
 import { WeatherService } from "./modules/weather/weather.service.js";
+import { OutlookService } from "./modules/outlook/outlook.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -76,6 +77,7 @@ export interface Services {
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
   weather: WeatherService;
+  outlook: OutlookService;
 }
 
 export interface AppContext {
@@ -160,6 +162,7 @@ export function createServices(
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
   const homes = new HomeRecordService(properties, tenancies, cases, readings, users);
+  const outlook = new OutlookService(properties, tenancies, readings, weather, clock, logger);
   const apiKeys = new ApiKeyService(dataSource, users, clock, adminActions, logger);
   const invitationBatches = new InvitationBatchService(dataSource, auth, users, clock, config.invitationBatches);
   const tenancyImports = new TenancyImportService(dataSource, properties, tenancies, users, invitationBatches, clock);
@@ -215,6 +218,7 @@ export function createServices(
     tenancyImports,
     evidencePacks,
     weather,
+    outlook,
   };
 }
 
