@@ -43,6 +43,8 @@ import { InvitationBatchService } from "./modules/auth/invitation-batch.service.
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
 import { SensorHealthService } from "./modules/sensors/sensor-health.service.js";
+import { WeatherService } from "./modules/weather/weather.service.js";
+import { OutlookService } from "./modules/outlook/outlook.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -76,6 +78,8 @@ export interface Services {
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
   sensorHealth: SensorHealthService;
+  weather: WeatherService;
+  outlook: OutlookService;
 }
 
 export interface AppContext {
@@ -110,6 +114,7 @@ export function createServices(
     leaseMs: Math.max(5 * 60_000, 3 * (connectionMs + greetingMs + socketMs)),
   });
   const properties = new PropertyService(dataSource, logger);
+  const weather = new WeatherService(dataSource, properties, config.weather, clock, logger);
   const stock = new StockImportService(dataSource, clock, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock, config.sessionCacheMs, sessionStore);
@@ -159,6 +164,7 @@ export function createServices(
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
   const homes = new HomeRecordService(properties, tenancies, cases, readings, users);
+  const outlook = new OutlookService(properties, tenancies, readings, weather, clock, logger);
   const apiKeys = new ApiKeyService(dataSource, users, clock, adminActions, logger);
   const invitationBatches = new InvitationBatchService(dataSource, auth, users, clock, config.invitationBatches);
   const tenancyImports = new TenancyImportService(dataSource, properties, tenancies, users, invitationBatches, clock);
@@ -214,6 +220,8 @@ export function createServices(
     tenancyImports,
     evidencePacks,
     sensorHealth: new SensorHealthService(dataSource, clock),
+    weather,
+    outlook,
   };
 }
 

@@ -28,6 +28,7 @@ import { createStockImportsRouter } from "./modules/properties/stock-import.rout
 import { openApiDocument } from "./modules/psychrometrics/openapi.js";
 import { createPsychrometricsRouter } from "./modules/psychrometrics/psychrometrics.routes.js";
 import { createMyHomeRouter } from "./modules/tenancies/tenancies.routes.js";
+import { createHomeOutlookRouter, createMyOutlookRouter } from "./modules/outlook/outlook.routes.js";
 import { createTriageRouter } from "./modules/triage/triage.routes.js";
 import { createInsightRouter } from "./modules/insight/insight.routes.js";
 import { createBoardReportRouter } from "./modules/board-report/board-report.routes.js";
@@ -140,6 +141,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
 
   api.use("/auth", createAuthRouter({ config, auth: services.auth, clock, csrfToken: generateToken }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
+  api.use("/me", createMyOutlookRouter({ outlook: services.outlook }));
   api.use("/me", createMyUnreadRouter({ conversation: services.conversation }));
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
   api.use(
@@ -193,6 +195,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties, roomReadings: services.readings, clock }));
   api.use("/properties", createHomeRecordRouter({ homes: services.homes }));
+  api.use("/properties", createHomeOutlookRouter({ outlook: services.outlook }));
   api.use("/stock-imports", createStockImportsRouter({ stock: services.stock, incomingDir: incomingDir(config.uploadsDir) }));
   api.use("/users", createUsersRouter({ users: services.users, clock }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));

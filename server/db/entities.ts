@@ -42,6 +42,8 @@ import { WebhookEvent } from "../modules/webhooks/webhook-event.entity.js";
 import { Sensor } from "../modules/sensors/sensor.entity.js";
 import { SensorReading } from "../modules/sensors/sensor-reading.entity.js";
 import { SensorHealthRecord } from "../modules/sensors/sensor-health.entity.js";
+import { EstateLocation } from "../modules/weather/estate-location.entity.js";
+import { WeatherHour } from "../modules/weather/weather-hour.entity.js";
 
 export const entities = [
   Organisation,
@@ -91,4 +93,6 @@ export const entities = [
   InvitationBatch,
   PendingInvitation,
   TenancyImport,
+  EstateLocation,
+  WeatherHour,
 ];

@@ -86,6 +86,7 @@ export const propertyKeys = {
 export const myHomeKeys = {
   all: ["my-home"] as const,
   current: () => [...myHomeKeys.all, "current"] as const,
+  outlook: () => [...myHomeKeys.all, "outlook"] as const,
 };
 
 /** The landlord's outbox (GET /api/outbox): e-mails and how each one's sending stands. */

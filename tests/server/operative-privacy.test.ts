@@ -280,6 +280,7 @@ it("is absent from every route a tenant may call", async () => {
       "GET /api/cases/:id/verification",
       "GET /api/me/cases",
       "GET /api/me/home",
+      "GET /api/me/outlook",
       "POST /api/work-orders/:id/booking-response",
       "GET /api/cases/:id/complaints",
       "POST /api/complaints/:id/escalate",

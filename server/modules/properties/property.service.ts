@@ -159,6 +159,17 @@ export class PropertyService {
     return this.dataSource.getRepository(Property).findOneOrFail({ where: { id }, relations: { rooms: true } });
   }
 
+  /** Where a home is, as far as this module knows: its own coordinates (or nulls), its landlord and estate. */
+  async placeOf(
+    id: number,
+  ): Promise<{ organisationId: number; estate: string; latitude: number | null; longitude: number | null } | null> {
+    const p = await this.dataSource.getRepository(Property).findOne({
+      where: { id },
+      select: { id: true, organisationId: true, estate: true, latitude: true, longitude: true },
+    });
+    return p ? { organisationId: p.organisationId, estate: p.estate, latitude: p.latitude, longitude: p.longitude } : null;
+  }
+
   async estates(actor: Actor): Promise<string[]> {
     const rows: { estate: string }[] = await this.dataSource
       .getRepository(Property)

@@ -50,6 +50,7 @@ import {
   propertyResponse,
   roomResponse,
 } from "./properties.js";
+import { outlookResponse } from "./outlook.js";
 import { pointResult, seriesResult } from "./psychrometrics.js";
 import { importPreviewResponse, importResultResponse, readingsAddedResponse, readingsResponse } from "./readings.js";
 import { dashboardResponse, whatWorksResponse } from "./insight.js";
@@ -162,6 +163,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("POST", "/api/auth/sign-in-unlock", "public", "Skip the sign-in wait in this browser with an e-mailed link", null, 204),
 
   e("GET", "/api/me/home", ["tenant"], "The tenant's home", myHomeResponse),
+  e("GET", "/api/me/outlook", ["tenant"], "The three-day condensation outlook of the tenant's home", outlookResponse),
   e("GET", "/api/me/cases", ["tenant"], "The tenant's cases", myCasesResponse),
   e(
     "GET",
@@ -353,6 +355,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/properties/:id/tenants", STAFF, "The home's tenants, current and past", homeTenantsResponse),
   e("GET", "/api/properties/:id/cases", STAFF, "The home's cases, open and closed", homeCasesResponse),
   e("GET", "/api/properties/:id/readings", STAFF, "Each room's latest readings", homeReadingsResponse),
+  e("GET", "/api/properties/:id/outlook", STAFF, "The home's three-day condensation outlook", outlookResponse),
   e(
     "GET",
     "/api/tenancy-imports",

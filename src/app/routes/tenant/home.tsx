@@ -5,6 +5,8 @@ import { PageHeader } from "@/components/ui/page-header";
 import { LoadingState } from "@/components/ui/spinner";
 import { signedInAs } from "@/features/auth/api/require-role";
 import { myHomeQueryOptions, useMyHome } from "@/features/my-home/api/get-my-home";
+import { myOutlookQueryOptions } from "@/features/my-home/api/get-my-outlook";
+import { CondensationOutlookCard } from "@/features/my-home/components/condensation-outlook-card";
 import { HomeSummary } from "@/features/my-home/components/home-summary";
 import { myCasesQueryOptions } from "@/features/cases/api/get-my-cases";
 import { MyCases } from "@/features/cases/components/case-list";
@@ -16,6 +18,7 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
   if (await signedInAs(queryClient, ["tenant"])) {
     void queryClient.prefetchQuery(myHomeQueryOptions());
     void queryClient.prefetchQuery(myCasesQueryOptions());
+    void queryClient.prefetchQuery(myOutlookQueryOptions());
   }
   return null;
 };
@@ -51,6 +54,7 @@ export default function MyHomePage() {
           <Panel title="Your reports" id="home-reports">
             <MyCases limit={3} headingLevel={3} emptyAction={false} />
           </Panel>
+          <CondensationOutlookCard />
           <HomeSummary home={home.data} />
         </div>
       )}
