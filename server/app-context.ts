@@ -147,9 +147,11 @@ export function createServices(
     logger,
     // The case's stored triage figures came from the older evaluation: they are due again.
     onReplaced: (m, caseId) => cases.markStale(m, { caseIds: [caseId] }),
+    // Readings without an outdoor temperature take the weather service's hour.
+    outdoorHours: (place, from, to) => weather.hoursAt(place.latitude, place.longitude, from, to),
   });
   const imports = new ReadingImportService(dataSource, cases, clock, readings);
-  const evaluation = new EvaluationService(cases, readings);
+  const evaluation = new EvaluationService(cases, readings, weather);
   const assessments = new AssessmentService(dataSource, cases);
   const policy = new PolicyService(dataSource, cases);
   cases.useEmergencyPhones(policy);

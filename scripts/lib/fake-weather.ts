@@ -285,3 +285,24 @@ export async function startFakeWeather(options: FakeWeatherOptions = {}): Promis
       }),
   };
 }
+
+/**
+ * For npm start and npm run dev: runs the fake where WEATHER_URL points, when that is this machine's
+ * loopback; null (and the app uses WEATHER_URL as it is) for any other address, or when the port is
+ * taken (then whatever answers there serves the weather).
+ */
+export async function startFakeWeatherAt(
+  weatherUrl: string,
+  warn: (line: string) => void = console.warn,
+): Promise<FakeWeather | null> {
+  const url = new URL(weatherUrl);
+  if (!["127.0.0.1", "localhost", "[::1]"].includes(url.hostname) || url.pathname !== "/v1/forecast") return null;
+  const port = Number(url.port || 80);
+  try {
+    return await startFakeWeather({ port, host: url.hostname === "[::1]" ? "::1" : "127.0.0.1" });
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code !== "EADDRINUSE") throw error;
+    warn(`Port ${port} is taken, so the local weather service was not started; the app asks whatever answers at ${weatherUrl}.`);
+    return null;
+  }
+}

@@ -101,6 +101,8 @@ const ROWS: Record<string, Row> = {
   "GET /api/sensor-health/summary":                             [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
   "GET /api/sensor-health/devices":                             [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
   "GET /api/sensor-health/:id":                                 [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
+  "GET /api/estate-locations":                                  [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
+  "PUT /api/estate-locations":                                  [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   "GET /api/policy":                                            [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
   "PUT /api/policy":                                            [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   "DELETE /api/policy":                                         [ 401,  403,  403,  403,  403, "ok", "ok",  403],

@@ -7,8 +7,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { EstateLocation } from "../../server/modules/weather/estate-location.entity.js";
 import { fakeOutdoorAir, startFakeWeather, type FakeWeather } from "../../scripts/lib/fake-weather.js";
 import { ManualClock, createClockedApp } from "../support/clocked-app.js";
-import { makeOrganisation, makeProperty } from "../support/factories.js";
-import type { TestApp } from "../support/test-app.js";
+import { makeLandlord, makeOrganisation, makeProperty, PASSWORD } from "../support/factories.js";
+import { signedInClient, type Client, type TestApp } from "../support/test-app.js";
 
 const HOUR_MS = 3_600_000;
 const hourly = ["temperature_2m", "relative_humidity_2m"];
@@ -200,5 +200,58 @@ describe("WeatherService.outdoorHourly", () => {
     } finally {
       await down.close();
     }
+  });
+});
+
+describe("where homes and estates are", () => {
+  it("admins set an estate's coordinates (one of their own estates, in the UK); staff read them; others may not", async () => {
+    const landlord = await makeLandlord(t.ctx.dataSource);
+    const admin = await signedInClient(t.app, landlord.admin.email, PASSWORD);
+    const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
+    const put = (c: Client, body: object) => c.agent.put("/api/estate-locations").set("X-CSRF-Token", c.csrf).send(body);
+    const estate = landlord.home.estate;
+
+    expect((await officer.get("/api/estate-locations").expect(200)).body.items).toEqual([
+      { estate, latitude: null, longitude: null, updatedAt: null },
+    ]);
+    await put(officer, { estate, latitude: 53.5, longitude: -2.2 }).expect(403);
+    const unknown = await put(admin, { estate: "Somebody Else's Estate", latitude: 53.5, longitude: -2.2 }).expect(400);
+    expect(unknown.body.error.message).toMatch(/None of your homes/);
+    await put(admin, { estate, latitude: 71, longitude: -2.2 }).expect(400);
+    await put(admin, { estate, latitude: 53.5 }).expect(400);
+    expect((await officer.get("/api/estate-locations").expect(200)).body.items).toEqual([
+      { estate, latitude: null, longitude: null, updatedAt: null },
+    ]);
+
+    await put(admin, { estate, latitude: 53.5, longitude: -2.2 }).expect(200);
+    const changed = await put(admin, { estate, latitude: 53.51234, longitude: -2.21 }).expect(200);
+    expect(changed.body).toEqual({ estate, latitude: 53.51234, longitude: -2.21, updatedAt: clock.now().toISOString() });
+    expect((await officer.get("/api/estate-locations").expect(200)).body.items).toEqual([changed.body]);
+    expect(await t.ctx.services.weather.placeOf(landlord.home.id)).toEqual({
+      source: "estate",
+      latitude: 53.51234,
+      longitude: -2.21,
+    });
+
+    // Another landlord's estate of the same name keeps no location.
+    const other = await makeLandlord(t.ctx.dataSource);
+    const otherOfficer = await signedInClient(t.app, other.officer.email, PASSWORD);
+    expect((await otherOfficer.get("/api/estate-locations").expect(200)).body.items[0].latitude).toBeNull();
+  });
+
+  it("admins give a home its own coordinates, which come before its estate's", async () => {
+    const landlord = await makeLandlord(t.ctx.dataSource);
+    const admin = await signedInClient(t.app, landlord.admin.email, PASSWORD);
+    await admin.patch(`/api/properties/${landlord.home.id}`, { latitude: 95, longitude: 0 }).expect(400);
+    const home = await admin.patch(`/api/properties/${landlord.home.id}`, { latitude: 52.2052, longitude: 0.1218 }).expect(200);
+    expect(home.body).toMatchObject({ latitude: 52.2052, longitude: 0.1218 });
+    expect(await t.ctx.services.weather.placeOf(landlord.home.id)).toEqual({
+      source: "home",
+      latitude: 52.2052,
+      longitude: 0.1218,
+    });
+    // Cleared: the estate's location again (none here).
+    await admin.patch(`/api/properties/${landlord.home.id}`, { latitude: null, longitude: null }).expect(200);
+    expect(await t.ctx.services.weather.placeOf(landlord.home.id)).toBeNull();
   });
 });

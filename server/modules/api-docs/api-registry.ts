@@ -18,6 +18,7 @@ import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
 import { inspectionSchema, summarySchema } from "../inspections/inspections.schemas.js";
 import { markReadSchema, staffMessageSchema, tenantMessageSchema } from "../../../src/lib/schemas/messages.js";
 import { complaintPolicySchema, deadlinePolicySchema } from "../policy/policy.schemas.js";
+import { estateLocationSchema } from "../../../src/lib/schemas/locations.js";
 import {
   acknowledgeComplaintSchema,
   closeComplaintSchema,
@@ -88,6 +89,7 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "PATCH /api/work-orders/:id": { body: workOrderPatchSchema },
   "POST /api/work-orders/:id/booking-response": { body: bookingResponseSchema },
   "POST /api/contractors": { body: contractorSchema },
+  "PUT /api/estate-locations": { body: estateLocationSchema },
   "PUT /api/policy": { body: deadlinePolicySchema },
   "PUT /api/policy/complaints": { body: complaintPolicySchema },
   "POST /api/cases/:id/complaints": { body: raiseComplaintSchema },

@@ -49,6 +49,8 @@ const HOME_FIELDS = [
   "glazingType",
   "heatingType",
   "ventilation",
+  "latitude",
+  "longitude",
 ] as const;
 
 export class PropertyService {

@@ -27,3 +27,4 @@ export * from "./evidence-pack.js";
 export * from "./tenancy-import.js";
 export * from "./sensor-health.js";
 export * from "./outlook.js";
+export * from "./weather.js";
