@@ -42,6 +42,7 @@ import { WebhookService } from "./modules/webhooks/webhook.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
+import { MosquittoBrokerFiles } from "./modules/sensors/mqtt/broker-files.js";
 
 export interface Services {
   policy: PolicyService;
@@ -74,6 +75,8 @@ export interface Services {
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
+  /** Keeps mosquitto's password file and ACL in step with the sensor registry (the sensors' BrokerCredentials). */
+  mqttBroker: MosquittoBrokerFiles;
 }
 
 export interface AppContext {
@@ -180,7 +183,15 @@ export function createServices(
     clock,
     logger,
   );
+  const { brokerDir, username, password } = config.mqtt;
+  const mqttBroker = new MosquittoBrokerFiles(
+    dataSource,
+    brokerDir && password ? { dir: brokerDir, username, password } : null,
+    logger,
+    clock,
+  );
   return {
+    mqttBroker,
     assessments,
     inspections,
     policy,
