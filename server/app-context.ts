@@ -43,6 +43,8 @@ import { InvitationBatchService } from "./modules/auth/invitation-batch.service.
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
 import { MosquittoBrokerFiles } from "./modules/sensors/mqtt/broker-files.js";
+import { SensorService } from "./modules/sensors/sensor.service.js";
+import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -75,6 +77,8 @@ export interface Services {
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
+  sensors: SensorService;
+  sensorIngest: SensorIngestService;
   /** Keeps mosquitto's password file and ACL in step with the sensor registry (the sensors' BrokerCredentials). */
   mqttBroker: MosquittoBrokerFiles;
 }
@@ -183,6 +187,9 @@ export function createServices(
     clock,
     logger,
   );
+  // Sensors: the registry tells the broker (useBroker) and the ingest tells the room watch (addListener).
+  const sensors = new SensorService(dataSource, properties, clock, logger);
+  const sensorIngest = new SensorIngestService(dataSource, clock, logger);
   const { brokerDir, username, password } = config.mqtt;
   const mqttBroker = new MosquittoBrokerFiles(
     dataSource,
@@ -190,6 +197,7 @@ export function createServices(
     logger,
     clock,
   );
+  sensors.useBroker(mqttBroker);
   return {
     mqttBroker,
     assessments,
@@ -222,6 +230,8 @@ export function createServices(
     invitationBatches,
     tenancyImports,
     evidencePacks,
+    sensors,
+    sensorIngest,
   };
 }
 
