@@ -1,5 +1,5 @@
 // `npm start`: everything a person needs to try Dewline on this machine — Debian packages, the client
-// and server builds, MariaDB and a mail catcher on loopback, migrations, the demo data, then the
+// and server builds, MariaDB, a mail catcher and the MQTT broker (mosquitto) on loopback, migrations, the demo data, then the
 // compiled server (`node dist-server/server/server.js`, as in production). Ctrl-C stops everything
 // this script started; the server drains its requests first.
 import { spawn, type ChildProcess } from "node:child_process";
@@ -8,14 +8,16 @@ import path from "node:path";
 import { loadConfig } from "../server/config/env.js";
 import { DEMO_ACCOUNTS } from "../server/db/seeds/demo.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
-import { projectDbDir, projectRoot } from "./lib/paths.js";
+import { startMosquitto, stopMosquitto } from "./lib/mosquitto.js";
+import { projectBrokerDir, projectDbDir, projectRoot } from "./lib/paths.js";
 import { runStep, stopChild, waitUntilReady } from "./lib/processes.js";
-import { ensureSystemPackages, MARIADB } from "./lib/system-packages.js";
+import { ensureSystemPackages, MARIADB, MOSQUITTO } from "./lib/system-packages.js";
 import { runSeed } from "./seed.js";
 
 const config = loadConfig();
 const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
 let mariaDbStartedHere = false;
+let brokerStartedHere = false;
 let mailCatcher: ChildProcess | undefined;
 let server: ChildProcess | undefined;
 let stopping = false;
@@ -27,6 +29,7 @@ async function shutdown(code: number) {
   // The server drains for at most SHUTDOWN_DELAY_MS + SHUTDOWN_TIMEOUT_MS; give it that and a little more.
   if (server) await stopChild(server, config.shutdown.delayMs + config.shutdown.timeoutMs + 5000);
   if (mailCatcher) await stopChild(mailCatcher);
+  if (brokerStartedHere) await stopMosquitto(projectBrokerDir);
   if (mariaDbStartedHere) await stopMariaDb(projectDbDir);
   process.exit(code);
 }
@@ -34,7 +37,7 @@ process.on("SIGINT", () => void shutdown(0));
 process.on("SIGTERM", () => void shutdown(0));
 
 try {
-  await ensureSystemPackages([MARIADB], step);
+  await ensureSystemPackages([MARIADB, MOSQUITTO], step);
 
   step("Building the server (tsc → dist-server) and the client (vite build)…");
   rmSync(path.join(projectRoot, "dist-server"), { recursive: true, force: true });
@@ -69,13 +72,25 @@ try {
       console.warn(`The mail catcher stopped (exit ${code}); is another one already using port ${config.smtp.port}?`);
   });
 
+  step(`Starting the MQTT broker (mosquitto on 127.0.0.1:${config.mqtt.port}, files in .data/mosquitto)…`);
+  const broker = await startMosquitto({ dir: projectBrokerDir, port: config.mqtt.port, appUsername: config.mqtt.username });
+  brokerStartedHere = broker.started;
+  if (!broker.started) step(`The MQTT broker was already running (pid ${broker.pid}); it will be left running.`);
+  // The app's MQTT password is made once for this data folder (never a constant in the repository).
+  const serverEnv = {
+    ...process.env,
+    MQTT_URL: config.mqtt.url,
+    MQTT_PASSWORD: broker.app.password,
+    MQTT_BROKER_DIR: projectBrokerDir,
+  };
+
   step("Migrating the database (npm run db:migrate)…");
   await runStep(process.execPath, ["dist-server/server/migrate.js"], { cwd: projectRoot });
   step("Seeding the demo…");
   step(await runSeed(config));
 
   step("Starting the server (node dist-server/server/server.js)…");
-  server = spawn(process.execPath, ["dist-server/server/server.js"], { cwd: projectRoot, stdio: "inherit" });
+  server = spawn(process.execPath, ["dist-server/server/server.js"], { cwd: projectRoot, stdio: "inherit", env: serverEnv });
   const serverExit = new Promise<never>((_resolve, reject) => {
     server?.once("exit", (code, signal) => {
       if (!stopping) reject(new Error(`the server stopped (${signal ?? `exit ${code}`})`));
@@ -98,6 +113,7 @@ try {
   App:         ${config.appUrl}
   Calculator:  ${config.appUrl}/calculator
   Mail inbox:  http://127.0.0.1:${config.smtp.webPort}   (invitation and password-reset e-mails land here)
+  MQTT broker: ${config.mqtt.url}   (sensors publish to sensors/<their user name>/readings)
 
   Demo accounts (password: ${config.demoPassword}):
 ${DEMO_ACCOUNTS.map((a) => `    ${a.email.padEnd(width)}  ${a.role}  ${a.name}`).join("\n")}
