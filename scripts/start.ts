@@ -1,5 +1,5 @@
 // `npm start`: everything a person needs to try Dewline on this machine — Debian packages, the client
-// and server builds, MariaDB and a mail catcher on loopback, migrations, the demo data, then the
+// and server builds, MariaDB, a mail catcher and the MQTT broker (mosquitto) on loopback, migrations, the demo data, then the
 // compiled server (`node dist-server/server/server.js`, as in production). Ctrl-C stops everything
 // this script started; the server drains its requests first.
 import { spawn, type ChildProcess } from "node:child_process";
@@ -9,14 +9,16 @@ import { loadConfig } from "../server/config/env.js";
 import { DEMO_ACCOUNTS } from "../server/db/seeds/demo.js";
 import { startFakeWeatherAt, type FakeWeather } from "./lib/fake-weather.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
-import { projectDbDir, projectRoot } from "./lib/paths.js";
+import { startMosquitto, stopMosquitto } from "./lib/mosquitto.js";
+import { projectBrokerDir, projectDbDir, projectRoot } from "./lib/paths.js";
 import { runStep, stopChild, waitUntilReady } from "./lib/processes.js";
-import { ensureSystemPackages, MARIADB } from "./lib/system-packages.js";
+import { ensureSystemPackages, MARIADB, MOSQUITTO } from "./lib/system-packages.js";
 import { runSeed } from "./seed.js";
 
 const config = loadConfig();
 const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
 let mariaDbStartedHere = false;
+let brokerStartedHere = false;
 let mailCatcher: ChildProcess | undefined;
 let server: ChildProcess | undefined;
 let weather: FakeWeather | null = null;
@@ -30,6 +32,7 @@ async function shutdown(code: number) {
   if (server) await stopChild(server, config.shutdown.delayMs + config.shutdown.timeoutMs + 5000);
   if (mailCatcher) await stopChild(mailCatcher);
   await weather?.close();
+  if (brokerStartedHere) await stopMosquitto(projectBrokerDir);
   if (mariaDbStartedHere) await stopMariaDb(projectDbDir);
   process.exit(code);
 }
@@ -37,7 +40,7 @@ process.on("SIGINT", () => void shutdown(0));
 process.on("SIGTERM", () => void shutdown(0));
 
 try {
-  await ensureSystemPackages([MARIADB], step);
+  await ensureSystemPackages([MARIADB, MOSQUITTO], step);
 
   step("Building the server (tsc → dist-server) and the client (vite build)…");
   rmSync(path.join(projectRoot, "dist-server"), { recursive: true, force: true });
@@ -75,6 +78,17 @@ try {
   // A local stand-in for the hosted forecast API, with deterministic history and forecasts.
   weather = await startFakeWeatherAt(config.weather.url, step);
   if (weather) step(`Started the local weather service on ${weather.url}.`);
+  step(`Starting the MQTT broker (mosquitto on 127.0.0.1:${config.mqtt.port}, files in .data/mosquitto)…`);
+  const broker = await startMosquitto({ dir: projectBrokerDir, port: config.mqtt.port, appUsername: config.mqtt.username });
+  brokerStartedHere = broker.started;
+  if (!broker.started) step(`The MQTT broker was already running (pid ${broker.pid}); it will be left running.`);
+  // The app's MQTT password is made once for this data folder (never a constant in the repository).
+  const serverEnv = {
+    ...process.env,
+    MQTT_URL: config.mqtt.url,
+    MQTT_PASSWORD: broker.app.password,
+    MQTT_BROKER_DIR: projectBrokerDir,
+  };
 
   step("Migrating the database (npm run db:migrate)…");
   await runStep(process.execPath, ["dist-server/server/migrate.js"], { cwd: projectRoot });
@@ -82,7 +96,7 @@ try {
   step(await runSeed(config));
 
   step("Starting the server (node dist-server/server/server.js)…");
-  server = spawn(process.execPath, ["dist-server/server/server.js"], { cwd: projectRoot, stdio: "inherit" });
+  server = spawn(process.execPath, ["dist-server/server/server.js"], { cwd: projectRoot, stdio: "inherit", env: serverEnv });
   const serverExit = new Promise<never>((_resolve, reject) => {
     server?.once("exit", (code, signal) => {
       if (!stopping) reject(new Error(`the server stopped (${signal ?? `exit ${code}`})`));
@@ -106,6 +120,7 @@ try {
   Calculator:  ${config.appUrl}/calculator
   Mail inbox:  http://127.0.0.1:${config.smtp.webPort}   (invitation and password-reset e-mails land here)
   Weather:     ${config.weather.url}   (${weather ? "the local fake: deterministic history and forecasts" : "as configured"})
+  MQTT broker: ${config.mqtt.url}   (sensors publish to sensors/<their user name>/readings)
 
   Demo accounts (password: ${config.demoPassword}):
 ${DEMO_ACCOUNTS.map((a) => `    ${a.email.padEnd(width)}  ${a.role}  ${a.name}`).join("\n")}

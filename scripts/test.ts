@@ -1,4 +1,4 @@
-// `npm test`: installs what the tests need (Debian's MariaDB and Chromium), type-checks, builds the
+// `npm test`: installs what the tests need (Debian's MariaDB, Chromium and mosquitto), type-checks, builds the
 // server (and loads it under plain node) and the client for the browser tests, then runs every vitest
 // project. Each database-backed project starts its own throwaway MariaDB and removes it at the end.
 // Extra arguments go to vitest.
@@ -6,11 +6,11 @@ import { rmSync } from "node:fs";
 import path from "node:path";
 import { projectRoot } from "./lib/paths.js";
 import { runForExitCode, runStep } from "./lib/processes.js";
-import { CHROMIUM, ensureSystemPackages, MARIADB, POPPLER } from "./lib/system-packages.js";
+import { CHROMIUM, ensureSystemPackages, MARIADB, MOSQUITTO, POPPLER } from "./lib/system-packages.js";
 
 const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
 
-await ensureSystemPackages([MARIADB, CHROMIUM, POPPLER], step);
+await ensureSystemPackages([MARIADB, CHROMIUM, POPPLER, MOSQUITTO], step);
 step("Type-checking (tsc -b)…");
 await runStep(process.execPath, ["node_modules/typescript/bin/tsc", "-b"], { cwd: projectRoot });
 step("Linting (ESLint, Prettier, server module circles)…");

@@ -45,6 +45,9 @@ import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.servi
 import { SensorHealthService } from "./modules/sensors/sensor-health.service.js";
 import { WeatherService } from "./modules/weather/weather.service.js";
 import { OutlookService } from "./modules/outlook/outlook.service.js";
+import { MosquittoBrokerFiles } from "./modules/sensors/mqtt/broker-files.js";
+import { SensorService } from "./modules/sensors/sensor.service.js";
+import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -80,6 +83,10 @@ export interface Services {
   sensorHealth: SensorHealthService;
   weather: WeatherService;
   outlook: OutlookService;
+  sensors: SensorService;
+  sensorIngest: SensorIngestService;
+  /** Keeps mosquitto's password file and ACL in step with the sensor registry (the sensors' BrokerCredentials). */
+  mqttBroker: MosquittoBrokerFiles;
 }
 
 export interface AppContext {
@@ -190,7 +197,19 @@ export function createServices(
     clock,
     logger,
   );
+  // Sensors: the registry tells the broker (useBroker) and the ingest tells the room watch (addListener).
+  const sensors = new SensorService(dataSource, properties, clock, logger);
+  const sensorIngest = new SensorIngestService(dataSource, clock, logger);
+  const { brokerDir, username, password } = config.mqtt;
+  const mqttBroker = new MosquittoBrokerFiles(
+    dataSource,
+    brokerDir && password ? { dir: brokerDir, username, password } : null,
+    logger,
+    clock,
+  );
+  sensors.useBroker(mqttBroker);
   return {
+    mqttBroker,
     assessments,
     inspections,
     policy,
@@ -224,6 +243,8 @@ export function createServices(
     sensorHealth: new SensorHealthService(dataSource, clock),
     weather,
     outlook,
+    sensors,
+    sensorIngest,
   };
 }
 

@@ -15,6 +15,11 @@ export const MARIADB: SystemNeed = {
   packages: ["mariadb-server", "mariadb-client"],
 };
 export const CHROMIUM: SystemNeed = { commands: ["chromium"], packages: ["chromium", "fonts-dejavu-core"] };
+/** mosquitto (the MQTT broker for sensor readings) and mosquitto_passwd. */
+export const MOSQUITTO: SystemNeed = {
+  commands: ["mosquitto", "mosquitto_passwd"],
+  packages: ["mosquitto", "mosquitto-clients"],
+};
 /** pdftotext, pdfinfo: the tests read generated PDFs back with them. */
 export const POPPLER: SystemNeed = { commands: ["pdftotext", "pdfinfo"], packages: ["poppler-utils"] };
 

@@ -28,3 +28,4 @@ export * from "./tenancy-import.js";
 export * from "./sensor-health.js";
 export * from "./outlook.js";
 export * from "./weather.js";
+export * from "./sensors.js";
