@@ -290,6 +290,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       url: e.WEATHER_URL,
       timeoutMs: e.WEATHER_TIMEOUT_MS,
       forecastMaxAgeMs: e.WEATHER_FORECAST_MAX_AGE_MINUTES * 60_000,
+    },
     mqtt: {
       port: e.MQTT_PORT,
       url: e.MQTT_URL ?? `mqtt://127.0.0.1:${e.MQTT_PORT}`,

@@ -181,16 +181,9 @@ beforeAll(async () => {
     .attach("file", register, "register.csv")
     .expect(201);
 
-  // A sensor in the tenant's home, inserted as the registry would store it, for the sensor-health route.
-  const sensor = (await ds.query(
-    `INSERT INTO sensors (organisation_id, property_id, room_id, serial, model, placement, installed_on, mqtt_username)
-     VALUES (?, ?, ?, 'MATRIX-1', 'TH-1', 'by the window', '2026-01-01', ?)`,
-    [landlord.org.id, landlord.home.id, roomId, `matrix-${caseId}`],
-  )) as { insertId: number | bigint };
-
   Object.assign(ids, {
     "/api/cases/:id": caseId,
-    "/api/sensor-health/:id": Number(sensor.insertId),
+    "/api/sensor-health/:id": sensor.body.sensor.id,
     "/api/stock-imports/:id": stockImport.body.id,
     "/api/properties/:id": landlord.home.id,
     "/api/work-orders/:id": order.body.id,
