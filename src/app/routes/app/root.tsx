@@ -15,12 +15,14 @@ const navByRole: Record<Role, NavItem[]> = {
   officer: [
     { to: "/queue", label: "Case queue" },
     { to: "/homes", label: "Homes" },
+    { to: "/sensors", label: "Sensors" },
     { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
   maintenance: [
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
+    { to: "/sensors", label: "Sensors" },
     { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
@@ -35,6 +37,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
+    { to: "/sensors", label: "Sensors" },
     { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
