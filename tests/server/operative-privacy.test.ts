@@ -38,6 +38,7 @@ const NOT_ABOUT_A_CASE: Record<string, string> = {
   "POST /api/auth/sign-in-unlock": "no body",
   "POST /api/psychrometrics/evaluate": "the risk engine on the numbers sent; reads nothing stored",
   "POST /api/psychrometrics/series": "the risk engine on the numbers sent; reads nothing stored",
+  "POST /api/sensor-ingest/readings": "a sensor's own secret only (no session opens it); answers with counts and reasons",
 };
 
 const tenantMay = (e: Endpoint) =>

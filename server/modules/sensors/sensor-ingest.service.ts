@@ -2,13 +2,14 @@
 // reason and refuses only that reading), the rest stored in one transaction, a re-delivered reading a
 // duplicate (the first value wins), then the listeners told. Built for bulk: a backfill of a million
 // readings goes through here, so the hot loop uses no Date objects and no schema library per reading,
-// and each batch is one multi-row INSERT IGNORE of literals that this file formats itself.
+// and each batch is one LOAD DATA LOCAL … IGNORE of rows this file formats itself.
+import { Readable } from "node:stream";
+import type { PoolConnection, ResultSetHeader } from "mysql2";
 import type { DataSource } from "typeorm";
 import { SENSOR_LATE_LIMIT_DAYS } from "../../../src/lib/schemas/sensor-readings.js";
 import { endOfLocalDay } from "../../../src/lib/domain/working-days.js";
 import type { Clock } from "../../lib/clock.js";
 import type { Logger } from "../../lib/logger.js";
-import { inTransaction } from "../../lib/transaction.js";
 import {
   AIR_TEMPERATURE_C,
   FUTURE_TOLERANCE_MS,
@@ -20,9 +21,12 @@ import { SENSOR_SECRET_PATTERN, sensorKeyHash } from "./credentials.js";
 import type { IngestOutcome, SensorIdentity, SensorReadingsListener } from "./sensor-events.js";
 
 const DAY_MS = 86_400_000;
-/** Rows per INSERT statement: ~80 bytes each, well under max_allowed_packet. */
-const ROWS_PER_STATEMENT = 5000;
 const BATTERY_PCT = { min: 0, max: 100 } as const;
+/** The file name is never opened: the statement's stream factory supplies the rows from memory. */
+const LOAD_SQL =
+  "LOAD DATA LOCAL INFILE 'sensor-readings-stream' IGNORE INTO TABLE sensor_readings CHARACTER SET utf8mb4 " +
+  "FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' " +
+  "(sensor_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, battery_pct, received_at)";
 
 /** `2026-12-05T06:45:00Z`, `…:00.123Z`, `…:00+01:00`: seconds required, a zone required. */
 const TAKEN_AT = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2}):(\d{2})(\.\d{1,9})?(Z|[+-]\d{2}:\d{2})$/;
@@ -176,8 +180,8 @@ export class SensorIngestService {
     const nowMs = receivedAt.getTime();
     const latestMs = nowMs + FUTURE_TOLERANCE_MS;
     const earliestMs = nowMs - SENSOR_LATE_LIMIT_DAYS * DAY_MS;
-    const received = `'${sqlDateTimeMs(receivedAt)}'`;
-    const prefix = `(${sensor.id},'`;
+    const received = sqlDateTimeMs(receivedAt);
+    const prefix = `${sensor.id}\t`;
 
     const values: string[] = [];
     let newestMs = Number.NEGATIVE_INFINITY;
@@ -203,35 +207,16 @@ export class SensorIngestService {
       const surface = r.surfaceTemperatureC;
       const battery = r.batteryPct;
       values.push(
-        `${prefix}${sqlDateTime(reason, text)}',${dec2(air)},${dec2(rh)},${isNum(surface) ? dec2(surface) : "NULL"},${
-          isNum(battery) ? String(Math.round(battery)) : "NULL"
-        },${received})`,
+        `${prefix}${sqlDateTime(reason, text)}\t${dec2(air)}\t${dec2(rh)}\t${isNum(surface) ? dec2(surface) : "\\N"}\t${
+          isNum(battery) ? String(Math.round(battery)) : "\\N"
+        }\t${received}\n`,
       );
     }
 
     let stored = 0;
     if (values.length > 0) {
       const newest = sqlDateTime(newestMs, "");
-      stored = await inTransaction(this.dataSource, async (m) => {
-        let inserted = 0;
-        for (let i = 0; i < values.length; i += ROWS_PER_STATEMENT) {
-          const chunk = i === 0 && values.length <= ROWS_PER_STATEMENT ? values : values.slice(i, i + ROWS_PER_STATEMENT);
-          const result: { affectedRows: number } = await m.query(
-            `INSERT IGNORE INTO sensor_readings
-               (sensor_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, battery_pct, received_at)
-             VALUES ${chunk.join(",")}`,
-          );
-          inserted += result.affectedRows;
-        }
-        if (inserted > 0) {
-          await m.query("UPDATE sensors SET last_reading_at = GREATEST(COALESCE(last_reading_at, ?), ?) WHERE id = ?", [
-            newest,
-            newest,
-            sensor.id,
-          ]);
-        }
-        return inserted;
-      });
+      stored = await this.load(sensor.id, values, newest);
     }
     const outcome: IngestOutcome = { stored, duplicates: values.length - stored, refused };
     if (stored > 0) this.notify(sensor, new Date(newestMs), receivedAt);
@@ -239,6 +224,41 @@ export class SensorIngestService {
       this.logger?.debug({ sensorId: sensor.id, via, refused: refused.length, first: refused[0] }, "sensor readings refused");
     }
     return outcome;
+  }
+
+  /**
+   * One transaction: the rows through LOAD DATA LOCAL from memory (the stream technique of the stock
+   * import; MariaDB takes it several times faster than the same rows as INSERT … VALUES), duplicates
+   * skipped by IGNORE and counted from the affected rows, then last_reading_at moved forward.
+   */
+  private async load(sensorId: number, lines: string[], newest: string): Promise<number> {
+    const runner = this.dataSource.createQueryRunner();
+    const raw = (await runner.connect()) as PoolConnection;
+    const db = raw.promise();
+    try {
+      await runner.startTransaction();
+      try {
+        const [loaded] = await db.query<ResultSetHeader>({
+          sql: LOAD_SQL,
+          infileStreamFactory: () => Readable.from([Buffer.from(lines.join(""), "utf8")]),
+        });
+        const inserted = loaded.affectedRows;
+        if (inserted > 0) {
+          await db.query("UPDATE sensors SET last_reading_at = GREATEST(COALESCE(last_reading_at, ?), ?) WHERE id = ?", [
+            newest,
+            newest,
+            sensorId,
+          ]);
+        }
+        await runner.commitTransaction();
+        return inserted;
+      } catch (err) {
+        await runner.rollbackTransaction();
+        throw err;
+      }
+    } finally {
+      await runner.release();
+    }
   }
 
   /** The reading's time in ms, or why it is refused. */

@@ -15,12 +15,14 @@ const navByRole: Record<Role, NavItem[]> = {
   officer: [
     { to: "/queue", label: "Case queue" },
     { to: "/homes", label: "Homes" },
+    { to: "/sensors", label: "Sensors", end: true },
     { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
   ],
   maintenance: [
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
+    { to: "/sensors", label: "Sensors", end: true },
     { to: "/sensors/health", label: "Sensor health" },
     { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
@@ -36,6 +38,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/queue", label: "Case queue" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
+    { to: "/sensors", label: "Sensors", end: true },
     { to: "/sensors/health", label: "Sensor health" },
     { to: "/dashboard", label: "Dashboard" },
     { to: "/calculator", label: "Calculator" },
