@@ -42,6 +42,7 @@ import { WebhookService } from "./modules/webhooks/webhook.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
+import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -74,6 +75,7 @@ export interface Services {
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
+  sensorWatch: SensorWatchService;
 }
 
 export interface AppContext {
@@ -150,6 +152,12 @@ export function createServices(
   const conversation = new ConversationService(dataSource, config, cases, photos, mail, users, clock);
   const complaints = new ComplaintService(dataSource, config, cases, policy, mail, users, organisations, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
+  // Rooms' live sensor figures and alerts; alerts on a case count in its triage figures.
+  // (Wire the weather's outdoor hours with sensorWatch.useWeather(weather), and register sensorWatch as
+  // the ingest's SensorReadingsListener, where those services are created.)
+  const sensorWatch = new SensorWatchService(dataSource, cases, properties, policy, clock, logger);
+  sensorWatch.useTriage(triage);
+  triage.useSensorEvidence(sensorWatch);
   const queue = new QueueService(dataSource, triage, clock);
   const insight = new InsightService(dataSource, triage, clock, complaints);
   const boardReports = new BoardReportService(dataSource, insight, organisations, mail, inspections, clock, logger);
@@ -211,6 +219,7 @@ export function createServices(
     invitationBatches,
     tenancyImports,
     evidencePacks,
+    sensorWatch,
   };
 }
 

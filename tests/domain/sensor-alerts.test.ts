@@ -38,7 +38,8 @@ describe("watchRoom: the hour each rule first holds", () => {
     expect(w.basis).toBe("measured");
     // Over the last 7 days (all 96 h of data): 96 h, matching the engine's own count.
     expect(w.last7Days.hoursAt80).toBe(96);
-    expect(evaluateSeries({ readings: quarterHours(96).map((ms) => sample(ms, 90)) }).hoursSurfaceRhAtLeast80).toBe(96);
+    const asSeries = quarterHours(96).map((ms) => ({ at: new Date(ms), airTemperatureC: 20, relativeHumidityPct: 90, surfaceTemperatureC: 20 }));
+    expect(evaluateSeries({ readings: asSeries }).hoursSurfaceRhAtLeast80).toBe(96);
     expect(w.days.map((d) => d.hoursAt80).slice(-5)).toEqual([24, 24, 24, 24, 0]);
   });
 
@@ -60,7 +61,9 @@ describe("watchRoom: the hour each rule first holds", () => {
   it("the mould index rule holds from the first whole hour after the engine's index reaches the threshold", () => {
     const samples = quarterHours(24 * 14).map((ms) => sample(ms, 97));
     const w = watchRoom({ samples, settings: only("mould-index") });
-    const trajectory = mouldIndexTrajectory({ readings: samples.map((s) => ({ ...s, surfaceTemperatureC: 20 })) });
+    const trajectory = mouldIndexTrajectory({
+      readings: samples.map((s) => ({ at: s.at, airTemperatureC: 20, relativeHumidityPct: 97, surfaceTemperatureC: 20 })),
+    });
     const crossing = trajectory.find((p) => p.m >= 1)!;
     // The engine crosses 1 at 2026-11-12T09:15Z (10.4 days at 20 °C / 97 %); the next whole hour is 10:00.
     expect(crossing.at).toBe("2026-11-12T09:15:00.000Z");
