@@ -38,7 +38,12 @@ describe("watchRoom: the hour each rule first holds", () => {
     expect(w.basis).toBe("measured");
     // Over the last 7 days (all 96 h of data): 96 h, matching the engine's own count.
     expect(w.last7Days.hoursAt80).toBe(96);
-    const asSeries = quarterHours(96).map((ms) => ({ at: new Date(ms), airTemperatureC: 20, relativeHumidityPct: 90, surfaceTemperatureC: 20 }));
+    const asSeries = quarterHours(96).map((ms) => ({
+      at: new Date(ms),
+      airTemperatureC: 20,
+      relativeHumidityPct: 90,
+      surfaceTemperatureC: 20,
+    }));
     expect(evaluateSeries({ readings: asSeries }).hoursSurfaceRhAtLeast80).toBe(96);
     expect(w.days.map((d) => d.hoursAt80).slice(-5)).toEqual([24, 24, 24, 24, 0]);
   });
