@@ -43,6 +43,8 @@ import { InvitationBatchService } from "./modules/auth/invitation-batch.service.
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
 import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
+import { SensorService } from "./modules/sensors/sensor.service.js";
+import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -76,6 +78,8 @@ export interface Services {
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
   sensorWatch: SensorWatchService;
+  sensors: SensorService;
+  sensorIngest: SensorIngestService;
 }
 
 export interface AppContext {
@@ -153,8 +157,7 @@ export function createServices(
   const complaints = new ComplaintService(dataSource, config, cases, policy, mail, users, organisations, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   // Rooms' live sensor figures and alerts; alerts on a case count in its triage figures.
-  // (Wire the weather's outdoor hours with sensorWatch.useWeather(weather), and register sensorWatch as
-  // the ingest's SensorReadingsListener, where those services are created.)
+  // (Wire the weather's outdoor hours with sensorWatch.useWeather(weather) where the weather service is created.)
   const sensorWatch = new SensorWatchService(dataSource, cases, properties, policy, clock, logger);
   sensorWatch.useTriage(triage);
   triage.useSensorEvidence(sensorWatch);
@@ -188,6 +191,10 @@ export function createServices(
     clock,
     logger,
   );
+  // Sensors: the registry tells the broker (useBroker) and the ingest tells the room watch (addListener).
+  const sensors = new SensorService(dataSource, properties, clock, logger);
+  const sensorIngest = new SensorIngestService(dataSource, clock, logger);
+  sensorIngest.addListener(sensorWatch);
   return {
     assessments,
     inspections,
@@ -220,6 +227,8 @@ export function createServices(
     tenancyImports,
     evidencePacks,
     sensorWatch,
+    sensors,
+    sensorIngest,
   };
 }
 

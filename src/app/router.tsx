@@ -98,6 +98,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             ),
             gate(["maintenance", "admin"], [page("works", () => import("./routes/staff/works"))]),
             gate(STAFF, [
+              page("sensors", () => import("./routes/staff/sensors")),
+              page("sensors/:id", () => import("./routes/staff/sensors-device")),
+            ]),
+            gate(STAFF, [
               page("homes", () => import("./routes/staff/homes")),
               page("homes/:id", () => import("./routes/staff/home")),
               page("dashboard", () => import("./routes/staff/dashboard")),

@@ -19,6 +19,7 @@ import { propertyQueryOptions, useProperty } from "@/features/properties/api/get
 import { HomeForm } from "@/features/properties/components/home-form";
 import { HomeCases, HomeFacts, HomeReadings, HomeRooms, HomeTenants } from "@/features/properties/components/home-record";
 import { RoomsEditor } from "@/features/properties/components/rooms-editor";
+import { HomeSensors } from "@/features/sensors/components/home-sensors";
 import { errorMessage } from "@/lib/api-client";
 import { streetAddress } from "@/lib/homes";
 
@@ -128,6 +129,9 @@ export default function HomePage() {
         </Panel>
         <Panel id="home-readings" title="Recent readings">
           <HomeReadings homeId={h.id} />
+        </Panel>
+        <Panel id="home-sensors" title="Sensors in this home">
+          <HomeSensors propertyId={h.id} />
         </Panel>
       </div>
     </>
