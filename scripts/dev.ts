@@ -2,6 +2,7 @@
 // change (node --watch) and Vite's dev server with hot reload, proxying /api to it.
 import { spawn, type ChildProcess } from "node:child_process";
 import { loadConfig } from "../server/config/env.js";
+import { startFakeWeatherAt } from "./lib/fake-weather.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { projectDbDir, projectRoot } from "./lib/paths.js";
 import { stopChild } from "./lib/processes.js";
@@ -16,6 +17,7 @@ await ensureSystemPackages([MARIADB]);
 const { started } = await startMariaDb(db);
 await ensureAppDatabase(db, config.db);
 console.log(await runSeed(config));
+const weather = await startFakeWeatherAt(config.weather.url);
 
 const node = (args: string[]) =>
   children.push(spawn(process.execPath, args, { cwd: projectRoot, stdio: "inherit", env: process.env }));
@@ -36,7 +38,7 @@ node(["node_modules/vite/bin/vite.js", "--port", "5173"]);
 console.log(`Dev client on http://127.0.0.1:5173 (API on ${config.appUrl}, mail on http://127.0.0.1:${config.smtp.webPort})`);
 
 async function stop() {
-  await Promise.all(children.map((c) => stopChild(c)));
+  await Promise.all([...children.map((c) => stopChild(c)), weather?.close()]);
   if (started) await stopMariaDb(projectDbDir);
   process.exit(0);
 }

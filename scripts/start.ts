@@ -7,6 +7,7 @@ import { rmSync } from "node:fs";
 import path from "node:path";
 import { loadConfig } from "../server/config/env.js";
 import { DEMO_ACCOUNTS } from "../server/db/seeds/demo.js";
+import { startFakeWeatherAt, type FakeWeather } from "./lib/fake-weather.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { projectDbDir, projectRoot } from "./lib/paths.js";
 import { runStep, stopChild, waitUntilReady } from "./lib/processes.js";
@@ -18,6 +19,7 @@ const step = (line: string) => console.log(`\x1b[36m›\x1b[0m ${line}`);
 let mariaDbStartedHere = false;
 let mailCatcher: ChildProcess | undefined;
 let server: ChildProcess | undefined;
+let weather: FakeWeather | null = null;
 let stopping = false;
 
 async function shutdown(code: number) {
@@ -27,6 +29,7 @@ async function shutdown(code: number) {
   // The server drains for at most SHUTDOWN_DELAY_MS + SHUTDOWN_TIMEOUT_MS; give it that and a little more.
   if (server) await stopChild(server, config.shutdown.delayMs + config.shutdown.timeoutMs + 5000);
   if (mailCatcher) await stopChild(mailCatcher);
+  await weather?.close();
   if (mariaDbStartedHere) await stopMariaDb(projectDbDir);
   process.exit(code);
 }
@@ -69,6 +72,10 @@ try {
       console.warn(`The mail catcher stopped (exit ${code}); is another one already using port ${config.smtp.port}?`);
   });
 
+  // A local stand-in for the hosted forecast API, with deterministic history and forecasts.
+  weather = await startFakeWeatherAt(config.weather.url, step);
+  if (weather) step(`Started the local weather service on ${weather.url}.`);
+
   step("Migrating the database (npm run db:migrate)…");
   await runStep(process.execPath, ["dist-server/server/migrate.js"], { cwd: projectRoot });
   step("Seeding the demo…");
@@ -98,6 +105,7 @@ try {
   App:         ${config.appUrl}
   Calculator:  ${config.appUrl}/calculator
   Mail inbox:  http://127.0.0.1:${config.smtp.webPort}   (invitation and password-reset e-mails land here)
+  Weather:     ${config.weather.url}   (${weather ? "the local fake: deterministic history and forecasts" : "as configured"})
 
   Demo accounts (password: ${config.demoPassword}):
 ${DEMO_ACCOUNTS.map((a) => `    ${a.email.padEnd(width)}  ${a.role}  ${a.name}`).join("\n")}

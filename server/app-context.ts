@@ -45,6 +45,7 @@ import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.servi
 import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
 import { SensorService } from "./modules/sensors/sensor.service.js";
 import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
+import { WeatherService } from "./modules/weather/weather.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -80,6 +81,7 @@ export interface Services {
   sensorWatch: SensorWatchService;
   sensors: SensorService;
   sensorIngest: SensorIngestService;
+  weather: WeatherService;
 }
 
 export interface AppContext {
@@ -114,6 +116,7 @@ export function createServices(
     leaseMs: Math.max(5 * 60_000, 3 * (connectionMs + greetingMs + socketMs)),
   });
   const properties = new PropertyService(dataSource, logger);
+  const weather = new WeatherService(dataSource, properties, config.weather, clock, logger);
   const stock = new StockImportService(dataSource, clock, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock, config.sessionCacheMs, sessionStore);
@@ -146,9 +149,11 @@ export function createServices(
     logger,
     // The case's stored triage figures came from the older evaluation: they are due again.
     onReplaced: (m, caseId) => cases.markStale(m, { caseIds: [caseId] }),
+    // Readings without an outdoor temperature take the weather service's hour.
+    outdoorHours: (place, from, to) => weather.hoursAt(place.latitude, place.longitude, from, to),
   });
   const imports = new ReadingImportService(dataSource, cases, clock, readings);
-  const evaluation = new EvaluationService(cases, readings);
+  const evaluation = new EvaluationService(cases, readings, weather);
   const assessments = new AssessmentService(dataSource, cases);
   const policy = new PolicyService(dataSource, cases);
   cases.useEmergencyPhones(policy);
@@ -157,8 +162,9 @@ export function createServices(
   const complaints = new ComplaintService(dataSource, config, cases, policy, mail, users, organisations, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   // Rooms' live sensor figures and alerts; alerts on a case count in its triage figures.
-  // (Wire the weather's outdoor hours with sensorWatch.useWeather(weather) where the weather service is created.)
   const sensorWatch = new SensorWatchService(dataSource, cases, properties, policy, clock, logger);
+  // Where a sensor has no surface probe, its wall or window is estimated from the weather's outdoor hour.
+  sensorWatch.useWeather(weather);
   sensorWatch.useTriage(triage);
   triage.useSensorEvidence(sensorWatch);
   const queue = new QueueService(dataSource, triage, clock);
@@ -229,6 +235,7 @@ export function createServices(
     sensorWatch,
     sensors,
     sensorIngest,
+    weather,
   };
 }
 

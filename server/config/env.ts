@@ -105,6 +105,9 @@ const schema = z
     DB_STALL_CHECK_MS: z.coerce.number().int().min(50).default(400),
     DB_QUERY_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),
     DB_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(100).default(10_000),
+    WEATHER_URL: z.url().default("http://127.0.0.1:18080/v1/forecast"),
+    WEATHER_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(5_000),
+    WEATHER_FORECAST_MAX_AGE_MINUTES: z.coerce.number().int().min(1).default(180),
   })
   .superRefine((env, ctx) => {
     const trust = parseTrustProxy(env.TRUST_PROXY);
@@ -156,6 +159,11 @@ export interface Config {
   calculator: { readingsPerMinute: number; maxAnonymousReadings: number };
   /** The integration API (/api/v1): requests each API key may make a minute. */
   apiKeys: { requestsPerMinute: number };
+  /**
+   * The weather forecast API (hourly outdoor air for homes without an outdoor reading): its endpoint
+   * (npm start runs a local fake there), each call's timeout, and how old a stored forecast may get.
+   */
+  weather: { url: string; timeoutMs: number; forecastMaxAgeMs: number };
 }
 
 /**
@@ -239,5 +247,10 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       maxAnonymousReadings: e.CALCULATOR_MAX_ANONYMOUS_READINGS,
     },
     apiKeys: { requestsPerMinute: e.API_KEY_REQUESTS_PER_MINUTE },
+    weather: {
+      url: e.WEATHER_URL,
+      timeoutMs: e.WEATHER_TIMEOUT_MS,
+      forecastMaxAgeMs: e.WEATHER_FORECAST_MAX_AGE_MINUTES * 60_000,
+    },
   };
 }

@@ -44,6 +44,8 @@ import { SensorReading } from "../modules/sensors/sensor-reading.entity.js";
 import { SensorAlert } from "../modules/sensor-watch/sensor-alert.entity.js";
 import { SensorRoomFigures } from "../modules/sensor-watch/sensor-room-figures.entity.js";
 import { SensorAlertPolicyRecord } from "../modules/policy/sensor-alert-policy.entity.js";
+import { EstateLocation } from "../modules/weather/estate-location.entity.js";
+import { WeatherHour } from "../modules/weather/weather-hour.entity.js";
 
 export const entities = [
   Organisation,
@@ -95,4 +97,6 @@ export const entities = [
   InvitationBatch,
   PendingInvitation,
   TenancyImport,
+  EstateLocation,
+  WeatherHour,
 ];

@@ -96,6 +96,8 @@ const ROWS: Record<string, Row> = {
   "POST /api/work-orders/:id/booking-response":                 [ 401, "ok",  404,  403,  403,  403,  403,  403],
   "GET /api/contractors":                                       [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
   "POST /api/contractors":                                      [ 401,  403,  403,  403, "ok", "ok", "ok",  403],
+  "GET /api/estate-locations":                                  [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
+  "PUT /api/estate-locations":                                  [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   "GET /api/policy":                                            [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
   "PUT /api/policy":                                            [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   "DELETE /api/policy":                                         [ 401,  403,  403,  403,  403, "ok", "ok",  403],

@@ -8,6 +8,7 @@ import type { BuiltForm, GlazingType, HeatingType, WallType } from "../../module
 import { Property } from "../../modules/properties/property.entity.js";
 import { Room, type RoomKind } from "../../modules/properties/room.entity.js";
 import { Tenancy } from "../../modules/tenancies/tenancy.entity.js";
+import { EstateLocation } from "../../modules/weather/estate-location.entity.js";
 import { User, type Role } from "../../modules/users/user.entity.js";
 import { mulberry32 } from "../../lib/random.js";
 import { seedDemoCases } from "./demo-cases.js";
@@ -30,6 +31,11 @@ interface EstatePlan {
   outward: string;
   streets: string[];
   homes: number;
+  /**
+   * Where the estate is, for its weather (made-up points in the north of England): on each home
+   * (spread a little around it) or only on the estate, so the demo shows both.
+   */
+  location: { latitude: number; longitude: number; on: "homes" | "estate" };
   pick(i: number): {
     builtForm: BuiltForm;
     wallType: WallType;
@@ -50,6 +56,7 @@ const ESTATES: EstatePlan[] = [
     outward: "ZX3",
     streets: ["Tanner Row", "Weaver Street", "Coalyard Lane", "Bobbin Walk"],
     homes: 45,
+    location: { latitude: 53.62, longitude: -1.78, on: "homes" },
     pick: (i) => ({
       builtForm: i % 9 === 0 ? "end-terrace" : "mid-terrace",
       wallType: i % 7 === 0 ? "solid-stone" : "solid-brick",
@@ -65,6 +72,7 @@ const ESTATES: EstatePlan[] = [
     outward: "ZX5",
     streets: ["Harrier Court", "Merlin House", "Falcon House"],
     homes: 40,
+    location: { latitude: 53.64, longitude: -1.74, on: "estate" },
     pick: (i) => ({
       builtForm: i % 5 === 0 ? "maisonette" : "flat",
       wallType: "system-built",
@@ -80,6 +88,7 @@ const ESTATES: EstatePlan[] = [
     outward: "ZX8",
     streets: ["Pippin Close", "Russet Way", "Quince Gardens"],
     homes: 35,
+    location: { latitude: 53.41, longitude: -1.48, on: "estate" },
     pick: (i) => ({
       builtForm: i % 6 === 0 ? "bungalow" : i % 4 === 0 ? "end-terrace" : "semi-detached",
       wallType: i % 3 === 0 ? "unfilled-cavity" : "filled-cavity",
@@ -114,6 +123,12 @@ async function createOrganisationWithHomes(m: EntityManager, passwordHash: strin
   let n = 0;
   const homes: Property[] = [];
   for (const plan of ESTATES) {
+    const { latitude, longitude, on } = plan.location;
+    if (on === "estate") {
+      await m
+        .getRepository(EstateLocation)
+        .save({ organisationId: org.id, estate: plan.estate, latitude, longitude, updatedAt: new Date() });
+    }
     for (let i = 0; i < plan.homes; i++, n++) {
       const kind = plan.pick(i);
       const street = plan.streets[i % plan.streets.length]!;
@@ -129,6 +144,7 @@ async function createOrganisationWithHomes(m: EntityManager, passwordHash: strin
         uprn: n % 3 === 2 ? null : String(990000100000 + n),
         estate: plan.estate,
         ...kind,
+        ...(on === "homes" ? { latitude: latitude + ((i % 5) - 2) * 0.004, longitude: longitude + ((i % 7) - 3) * 0.004 } : {}),
       });
       const bedrooms = kind.builtForm === "flat" ? 1 + (i % 2) : kind.builtForm === "bungalow" ? 2 : 2 + (i % 2);
       await m.getRepository(Room).save(roomsFor(kind.builtForm, bedrooms).map((r) => ({ ...r, propertyId: property.id })));

@@ -19,6 +19,7 @@ import { inspectionSchema, summarySchema } from "../inspections/inspections.sche
 import { markReadSchema, staffMessageSchema, tenantMessageSchema } from "../../../src/lib/schemas/messages.js";
 import { complaintPolicySchema, deadlinePolicySchema, sensorAlertPolicySchema } from "../policy/policy.schemas.js";
 import { alertListQuery, dismissAlertSchema } from "../sensor-watch/sensor-watch.schemas.js";
+import { estateLocationSchema } from "../../../src/lib/schemas/locations.js";
 import {
   acknowledgeComplaintSchema,
   closeComplaintSchema,
@@ -88,6 +89,7 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "PATCH /api/work-orders/:id": { body: workOrderPatchSchema },
   "POST /api/work-orders/:id/booking-response": { body: bookingResponseSchema },
   "POST /api/contractors": { body: contractorSchema },
+  "PUT /api/estate-locations": { body: estateLocationSchema },
   "PUT /api/policy": { body: deadlinePolicySchema },
   "PUT /api/policy/complaints": { body: complaintPolicySchema },
   "PUT /api/policy/sensor-alerts": { body: sensorAlertPolicySchema },

@@ -9,9 +9,10 @@ import {
   SURFACE_STATES,
 } from "../../../src/lib/domain/index.js";
 import { surfaceHumidity } from "../../../src/lib/domain/wording.js";
-import type { Actor } from "../auth/actor.js";
+import { isStaff, type Actor } from "../auth/actor.js";
 import type { Case, CaseService } from "../cases/case.service.js";
 import type { EvaluationParams, ReadingService, StoredRoomEvaluation } from "../readings/reading.service.js";
+import type { WeatherPlace, WeatherService } from "../weather/weather.service.js";
 
 export const INVESTIGATION_STATEMENT =
   "Your landlord will look into this report whatever the readings show: readings help us understand the cause, they never decide whether damp or mould is taken seriously.";
@@ -22,7 +23,17 @@ export const ENGINE_SOURCES: readonly string[] = [
   "Surface humidity, the 80 % limit for mould and the temperature factor fRsi: BS EN ISO 13788.",
   "Mould growth index: the VTT model, Hukka & Viitanen (1999), with the sensitivity classes of Ojanen et al. (2010).",
   "Internal moisture excess and load classes: BS EN ISO 13788.",
+  "Outdoor temperature and humidity where a reading has none: the weather service's hourly values at the home's (or its estate's) coordinates.",
 ];
+
+/** Staff only: where the outdoor values behind a room's estimates came from. */
+export interface OutdoorSource {
+  /** Readings that took their outdoor temperature and humidity from the weather service. */
+  fromWeather: number;
+  /** Whose coordinates the weather is for; null when neither the home nor its estate has any. */
+  place: "home" | "estate" | null;
+  note: string;
+}
 
 export interface SurfaceEvaluation {
   element: ElementId;
@@ -41,7 +52,11 @@ export interface RoomEvaluation {
   updating: boolean;
   /** When these figures were worked out. */
   evaluatedAt: string | null;
+  /** Staff only (absent for tenants). */
+  outdoor?: OutdoorSource | null;
 }
+
+const withoutWeatherMark = ({ outdoorFromWeather: _, ...latest }: NonNullable<StoredRoomEvaluation["latest"]>) => latest;
 
 const RISKY = new Set(["condensing", "mould-risk"]);
 const labelOf = (id: ElementId) => BUILDING_ELEMENTS.find((e) => e.id === id)?.label ?? id;
@@ -51,11 +66,14 @@ export class EvaluationService {
   constructor(
     private readonly cases: CaseService,
     private readonly readings: ReadingService,
+    private readonly weather?: Pick<WeatherService, "placeOf">,
   ) {}
 
   async forCase(actor: Actor, caseId: number): Promise<{ statement: string; updating: boolean; rooms: RoomEvaluation[] }> {
     const c = await this.cases.getForActor(actor, caseId);
     const { rooms, updating } = await this.evaluate(c);
+    // Where the outdoor values came from is for staff; a tenant's reply has no such field.
+    if (!isStaff(actor)) for (const room of rooms) delete room.outdoor;
     return { statement: INVESTIGATION_STATEMENT, updating, rooms };
   }
 
@@ -78,11 +96,38 @@ export class EvaluationService {
     return { state, mouldIndex };
   }
 
-  /** The element and wetness a case's rooms are evaluated for. */
-  private paramsOf(c: Case): { elements: ElementId[]; params: EvaluationParams } {
+  /** The element, wetness and weather place a case's rooms are evaluated for. */
+  private async paramsOf(c: Case): Promise<{ elements: ElementId[]; params: EvaluationParams; place: WeatherPlace | null }> {
     const elements = elementsForReport(c.property!, c.locations);
     const surfaceWet = c.observations.includes("wet-patches") || c.observations.includes("leak");
-    return { elements, params: { element: elements[0], surfaceWet } };
+    const place = (await this.weather?.placeOf(c.propertyId)) ?? null;
+    // The weather is asked for at the centre of the place's 0.1° cell, as it is stored.
+    const weather = place
+      ? { latitude: Math.round(place.latitude * 10) / 10, longitude: Math.round(place.longitude * 10) / 10 }
+      : undefined;
+    return { elements, params: { element: elements[0], surfaceWet, weather }, place };
+  }
+
+  private outdoorSource(e: StoredRoomEvaluation, place: WeatherPlace | null): OutdoorSource | null {
+    const fromWeather = e.outdoorFromWeather ?? 0;
+    if (fromWeather > 0 && place) {
+      const whose = place.source === "home" ? "the home's" : "its estate's";
+      return {
+        fromWeather,
+        place: place.source,
+        note:
+          `Outdoor temperature and humidity for ${fromWeather} of ${e.readingsCount} readings come from the weather service ` +
+          `(hourly values at ${whose} coordinates), as they carry no outdoor reading.`,
+      };
+    }
+    if (!place && e.latest?.outdoorTemperatureC === null) {
+      return {
+        fromWeather: 0,
+        place: null,
+        note: "No outdoor readings, and no coordinates for this home or its estate: add them to estimate surface temperatures and the moisture excess from the weather.",
+      };
+    }
+    return null;
   }
 
   /** The surfaces of a room judged at its latest reading (cheap: one reading, no series). */
@@ -107,7 +152,7 @@ export class EvaluationService {
    * again on the worker pool in the background, so a big case never holds the request up.
    */
   private async evaluate(c: Case): Promise<{ rooms: RoomEvaluation[]; updating: boolean }> {
-    const { elements, params } = this.paramsOf(c);
+    const { elements, params, place } = await this.paramsOf(c);
     const rooms = this.cases.roomsOf(c);
     const stored = await this.readings.roomEvaluations(
       c.id,
@@ -123,11 +168,13 @@ export class EvaluationService {
         roomId: room.id,
         roomName: room.name,
         readingsCount: e.readingsCount,
-        latest: e.latest,
+        // Where the outdoor values came from is told by `outdoor` (staff only), not inside the reading.
+        latest: withoutWeatherMark(e.latest),
         surfaces: this.surfacesAt(elements, e.latest),
         series: e.series,
         updating: state.updating,
         evaluatedAt: state.evaluatedAt?.toISOString() ?? null,
+        outdoor: this.outdoorSource(e, place),
       });
     }
     return { rooms: out, updating: [...stored.values()].some((s) => s.updating) };
@@ -136,7 +183,7 @@ export class EvaluationService {
   /** After new readings: tell the officers (once per case) when a surface is condensing or at mould risk. */
   async alertIfRisky(actor: Actor, caseId: number): Promise<void> {
     const c = await this.cases.getForActor(actor, caseId);
-    const { elements, params } = this.paramsOf(c);
+    const { elements, params } = await this.paramsOf(c);
     const rooms = this.cases.roomsOf(c);
     // The stored series are brought up to date off the request thread; the alert needs only the latest readings.
     this.readings.refreshInBackground(

@@ -41,6 +41,11 @@ export type GlazingType = (typeof GLAZING_TYPES)[number];
 export type HeatingType = (typeof HEATING_TYPES)[number];
 export type VentilationType = (typeof VENTILATION_TYPES)[number];
 
+const nullableDecimal = {
+  to: (v: number | null | undefined) => v,
+  from: (v: string | null) => (v === null ? null : Number(v)),
+};
+
 @Entity({ name: "properties" })
 @Index("idx_properties_org_estate", ["organisationId", "estate"])
 @Index("idx_properties_org_postcode", ["organisationId", "postcode"])
@@ -131,6 +136,13 @@ export class Property {
 
   @Column({ name: "epc_band", type: "char", length: 1, nullable: true })
   epcBand: EpcBand | null;
+
+  /** Where the home is (WGS84 degrees), for its outdoor weather; else its estate's location is used. */
+  @Column({ type: "decimal", precision: 8, scale: 5, nullable: true, transformer: nullableDecimal })
+  latitude: number | null;
+
+  @Column({ type: "decimal", precision: 8, scale: 5, nullable: true, transformer: nullableDecimal })
+  longitude: number | null;
 
   /**
    * The natural sort key of block and address, set by MariaDB's triggers on every insert and update

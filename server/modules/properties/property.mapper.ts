@@ -28,6 +28,8 @@ export const toPropertySummaryDto = (p: Property): z.input<typeof propertySummar
   hasTrickleVents: p.hasTrickleVents === null || p.hasTrickleVents === undefined ? null : Boolean(p.hasTrickleVents),
   floorAreaM2: p.floorAreaM2 ?? null,
   epcBand: p.epcBand ?? null,
+  latitude: p.latitude ?? null,
+  longitude: p.longitude ?? null,
 });
 
 export const toPropertyDto = (p: Property): z.input<typeof propertyResponse> => ({

@@ -49,6 +49,8 @@ const HOME_FIELDS = [
   "glazingType",
   "heatingType",
   "ventilation",
+  "latitude",
+  "longitude",
 ] as const;
 
 export class PropertyService {
@@ -157,6 +159,17 @@ export class PropertyService {
   /** The tenant's home with its rooms (TenancyService has decided it is theirs). */
   async homeWithRooms(id: number): Promise<Property> {
     return this.dataSource.getRepository(Property).findOneOrFail({ where: { id }, relations: { rooms: true } });
+  }
+
+  /** Where a home is, as far as this module knows: its own coordinates (or nulls), its landlord and estate. */
+  async placeOf(
+    id: number,
+  ): Promise<{ organisationId: number; estate: string; latitude: number | null; longitude: number | null } | null> {
+    const p = await this.dataSource.getRepository(Property).findOne({
+      where: { id },
+      select: { id: true, organisationId: true, estate: true, latitude: true, longitude: true },
+    });
+    return p ? { organisationId: p.organisationId, estate: p.estate, latitude: p.latitude, longitude: p.longitude } : null;
   }
 
   async estates(actor: Actor): Promise<string[]> {

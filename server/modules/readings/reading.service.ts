@@ -15,6 +15,8 @@ import type { RoomEvaluationInput, StoredRoomEvaluation } from "./room-evaluatio
 
 export type { StoredRoomEvaluation } from "./room-evaluation.task.js";
 
+const HOUR_MS = 3_600_000;
+
 /** Works one room's evaluation out from the database: on the worker pool in the app (createServices). */
 export type RoomEvaluator = (input: RoomEvaluationInput) => Promise<{ version: number; evaluation: StoredRoomEvaluation }>;
 
@@ -29,6 +31,15 @@ export interface RoomEvaluationWork {
    * stored elsewhere from the older one (the case's triage figures) are due to be worked out again.
    */
   onReplaced(m: EntityManager, caseId: number): Promise<void>;
+  /**
+   * Outdoor air by the hour at a place (the weather module's WeatherService.hoursAt), for readings that
+   * carry no outdoor temperature; missing hours are left out. Without it, such readings stay without.
+   */
+  outdoorHours?(
+    place: { latitude: number; longitude: number },
+    from: Date,
+    to: Date,
+  ): Promise<{ at: Date; temperatureC: number; relativeHumidityPct: number }[]>;
 }
 
 /** A room's evaluation as answered: the stored one, and whether it is being brought up to date with newer readings. */
@@ -49,12 +60,20 @@ interface StoredRow {
   computed_at: Date | null;
 }
 
-const paramsKey = (params: EvaluationParams): string => `${params.element ?? ""}|${params.surfaceWet ? "wet" : "dry"}`;
+/** A new weather place (a home given coordinates) makes the stored result out of date, as a new element does. */
+const paramsKey = (params: EvaluationParams): string =>
+  `${params.element ?? ""}|${params.surfaceWet ? "wet" : "dry"}` +
+  (params.weather ? `|wx:${params.weather.latitude.toFixed(1)},${params.weather.longitude.toFixed(1)}` : "");
 
-/** What a room's stored evaluation was worked out for (the case's main element and whether a surface is wet). */
+/**
+ * What a room's stored evaluation was worked out for: the case's main element, whether a surface is
+ * wet, and where the outdoor weather comes from for readings without an outdoor temperature (none:
+ * such readings have no outdoor values).
+ */
 export interface EvaluationParams {
   element?: RoomEvaluationInput["element"];
   surfaceWet: boolean;
+  weather?: { latitude: number; longitude: number };
 }
 
 export interface ManualReading {
@@ -274,6 +293,7 @@ export class ReadingService {
       roomId,
       element: params.element,
       surfaceWet: params.surfaceWet,
+      outdoorHours: params.weather ? await this.outdoorHoursFor(caseId, roomId, params.weather) : undefined,
     });
     const json = JSON.stringify(evaluation);
     const now = this.clock.now();
@@ -295,6 +315,35 @@ export class ReadingService {
       return true;
     });
     return { evaluation, stored };
+  }
+
+  /**
+   * The weather's hours over the room's readings that have no outdoor temperature, for the worker (as
+   * arrays by hour from the first, so the message stays small). Null when every reading has one.
+   */
+  private async outdoorHoursFor(
+    caseId: number,
+    roomId: number,
+    place: { latitude: number; longitude: number },
+  ): Promise<RoomEvaluationInput["outdoorHours"]> {
+    if (!this.work.outdoorHours) return undefined;
+    const [span] = (await this.dataSource.query(
+      "SELECT MIN(taken_at) AS first, MAX(taken_at) AS last FROM readings WHERE case_id = ? AND room_id = ? AND outdoor_temperature_c IS NULL",
+      [caseId, roomId],
+    )) as { first: Date | null; last: Date | null }[];
+    if (!span?.first || !span.last) return undefined;
+    const hours = await this.work.outdoorHours(place, span.first, span.last);
+    if (hours.length === 0) return undefined;
+    const startMs = hours[0]!.at.getTime();
+    const length = Math.round((hours.at(-1)!.at.getTime() - startMs) / HOUR_MS) + 1;
+    const temperatureC: (number | null)[] = new Array<number | null>(length).fill(null);
+    const relativeHumidityPct: (number | null)[] = new Array<number | null>(length).fill(null);
+    for (const h of hours) {
+      const i = Math.round((h.at.getTime() - startMs) / HOUR_MS);
+      temperatureC[i] = h.temperatureC;
+      relativeHumidityPct[i] = h.relativeHumidityPct;
+    }
+    return { startMs, temperatureC, relativeHumidityPct };
   }
 
   /** The latest reading of each of these rooms (the unique index's last entry per room; no series is read). */

@@ -12,6 +12,11 @@ export interface RoomEvaluationInput {
   roomId: number;
   element?: ElementId;
   surfaceWet: boolean;
+  /**
+   * Outdoor air from the weather service, hour by hour from `startMs` (null: no value that hour), for
+   * readings that carry no outdoor temperature: each takes the hour it falls in.
+   */
+  outdoorHours?: { startMs: number; temperatureC: (number | null)[]; relativeHumidityPct: (number | null)[] };
 }
 
 export interface StoredRoomEvaluation {
@@ -22,8 +27,12 @@ export interface StoredRoomEvaluation {
     relativeHumidityPct: number;
     surfaceTemperatureC: number | null;
     outdoorTemperatureC: number | null;
+    /** True when outdoorTemperatureC came from the weather service, not from the reading. */
+    outdoorFromWeather?: boolean;
   } | null;
   series: SeriesResult | null;
+  /** How many readings took their outdoor temperature and humidity from the weather service. */
+  outdoorFromWeather?: number;
 }
 
 const PAGE = 100_000;
@@ -76,6 +85,7 @@ export async function evaluateRoomFromDb(
     await connection.end();
   }
   if (readings.length === 0) return { version, evaluation: { readingsCount: 0, latest: null, series: null } };
+  const fromWeather = input.outdoorHours ? fillOutdoorFromWeather(readings, input.outdoorHours) : new Set<SeriesPoint>();
   const last = readings[readings.length - 1]!;
   return {
     version,
@@ -87,8 +97,29 @@ export async function evaluateRoomFromDb(
         relativeHumidityPct: last.relativeHumidityPct,
         surfaceTemperatureC: last.surfaceTemperatureC ?? null,
         outdoorTemperatureC: last.outdoorTemperatureC ?? null,
+        ...(fromWeather.has(last) ? { outdoorFromWeather: true } : {}),
       },
       series: evaluateSeries({ readings, element: input.element, surfaceWet: input.surfaceWet }),
+      ...(fromWeather.size > 0 ? { outdoorFromWeather: fromWeather.size } : {}),
     },
   };
+}
+
+/** Gives each reading without an outdoor temperature the weather of the hour it falls in; returns those filled. */
+function fillOutdoorFromWeather(
+  readings: SeriesPoint[],
+  hours: NonNullable<RoomEvaluationInput["outdoorHours"]>,
+): Set<SeriesPoint> {
+  const filled = new Set<SeriesPoint>();
+  for (const r of readings) {
+    if (r.outdoorTemperatureC !== undefined) continue;
+    const i = Math.floor((r.at.getTime() - hours.startMs) / 3_600_000);
+    const t = hours.temperatureC[i];
+    const rh = hours.relativeHumidityPct[i];
+    if (t === undefined || t === null || rh === undefined || rh === null) continue;
+    r.outdoorTemperatureC = t;
+    r.outdoorRelativeHumidityPct = rh;
+    filled.add(r);
+  }
+  return filled;
 }

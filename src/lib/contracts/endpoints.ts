@@ -18,6 +18,7 @@ import { caseEventsResponse, caseResponse, myCasesResponse, relatedCasesResponse
 import { conversationResponse, messageSentResponse, readMarkResponse, unreadMessagesResponse } from "./conversation.js";
 import { complaintListResponse, complaintPolicyResponse, complaintResponse } from "./complaints.js";
 import { evaluationResponse } from "./evaluation.js";
+import { estateLocationListResponse, estateLocationResponse } from "./weather.js";
 import { EVIDENCE_PACK_MEDIA_TYPE } from "./evidence-pack.js";
 import { outboxItem, outboxPageResponse } from "./mail.js";
 import {
@@ -321,6 +322,14 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/contractors", STAFF, "The landlord's contractors", contractorListResponse),
   e("POST", "/api/contractors", LEADS, "Add a contractor", contractorResponse, 201),
 
+  e(
+    "GET",
+    "/api/estate-locations",
+    STAFF,
+    "The landlord's estates and where each is (for outdoor weather)",
+    estateLocationListResponse,
+  ),
+  e("PUT", "/api/estate-locations", ["admin"], "Set where one of the landlord's estates is", estateLocationResponse),
   e("GET", "/api/policy", STAFF, "The landlord's deadline timeframes", policyResponse),
   e("PUT", "/api/policy", ["admin"], "Set the landlord's deadline timeframes", policyResponse),
   e("DELETE", "/api/policy", ["admin"], "Go back to the default timeframes", policyResponse),

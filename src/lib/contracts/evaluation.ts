@@ -23,6 +23,15 @@ export const roomEvaluation = z.object({
   updating: z.boolean().optional(),
   /** When these figures were worked out. */
   evaluatedAt: instant.nullable().optional(),
+  /** Staff only: where the outdoor values behind the estimates came from (the weather service, for readings without). */
+  outdoor: z
+    .object({
+      fromWeather: z.number().int(),
+      place: z.enum(["home", "estate"]).nullable(),
+      note: z.string(),
+    })
+    .nullable()
+    .optional(),
 });
 export type RoomEvaluationResponse = z.infer<typeof roomEvaluation>;
 

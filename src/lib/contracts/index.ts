@@ -27,3 +27,4 @@ export * from "./evidence-pack.js";
 export * from "./tenancy-import.js";
 export * from "./sensor-watch.js";
 export * from "./sensors.js";
+export * from "./weather.js";

@@ -31,6 +31,9 @@ export const propertySummaryResponse = z.object({
   hasTrickleVents: z.boolean().nullable(),
   floorAreaM2: z.number().nullable(),
   epcBand: z.enum(EPC_BANDS).nullable(),
+  /** Where the home is (WGS84 degrees), for its outdoor weather; null: its estate's location is used. */
+  latitude: z.number().nullable().optional(),
+  longitude: z.number().nullable().optional(),
 });
 export type PropertySummaryResponse = z.infer<typeof propertySummaryResponse>;
 

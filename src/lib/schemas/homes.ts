@@ -2,6 +2,7 @@
 // admin's forms check with. Labels for people live in src/lib/homes.ts.
 import { z } from "zod";
 import { isUkPostcode, normalisePostcode } from "../domain/postcode.js";
+import { latitudeSchema, longitudeSchema } from "./locations.js";
 import { BUILT_FORMS, GLAZING_TYPES, HEATING_TYPES, ROOM_KINDS, VENTILATION_TYPES, WALL_TYPES } from "../homes.js";
 
 export { normalisePostcode } from "../domain/postcode.js";
@@ -56,6 +57,9 @@ const homeFields = {
   glazingType: z.enum(GLAZING_TYPES, { error: "Choose the glazing." }),
   heatingType: z.enum(HEATING_TYPES, { error: "Choose the heating." }),
   ventilation: z.enum(VENTILATION_TYPES, { error: "Choose the ventilation." }),
+  // Where the home is, for its outdoor weather (null or absent: its estate's location is used).
+  latitude: latitudeSchema.nullish().transform((v) => v ?? null),
+  longitude: longitudeSchema.nullish().transform((v) => v ?? null),
 };
 
 /** POST /api/properties: a new home, with its rooms if known. */
