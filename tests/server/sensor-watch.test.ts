@@ -171,6 +171,39 @@ describe("rules fire at the right hour", () => {
   });
 });
 
+describe("through the real ingest", () => {
+  it("readings stored by SensorIngestService reach the watch, which raises the alert at its hour", async () => {
+    const home = await makeProperty(ds, landlord.org);
+    const s = await fitSensor(home);
+    // Issued a key, as the registry does (the ingest takes readings only from an active sensor).
+    await ds.query("UPDATE sensors SET key_hash = SHA2(CONCAT('test-key-', id), 256) WHERE id = ?", [s.id]);
+    // Readings every 15 min for 80 h at surface RH 90 %: the 72-hour rule holds first at T0 + 72 h.
+    const readings = Array.from({ length: 80 * 4 + 1 }, (_, i) => ({
+      takenAt: new Date(T0 + i * 0.25 * H).toISOString(),
+      airTemperatureC: 20,
+      relativeHumidityPct: 90,
+      surfaceTemperatureC: 20,
+    }));
+    const identity = {
+      id: s.id,
+      organisationId: home.organisationId,
+      propertyId: home.id,
+      roomId: s.roomId,
+      serial: "via-ingest",
+      mqttUsername: "via-ingest",
+      intervalS: 900,
+      measuresSurface: true,
+    };
+    const outcome = await t.ctx.services.sensorIngest.ingest(identity, readings, "http");
+    expect(outcome.refused.slice(0, 1)).toEqual([]);
+    expect(outcome.stored).toBe(readings.length);
+    await t.ctx.services.sensorWatch.drain();
+    expect((await alertsOf(s.roomId)).filter((a) => a.rule === "hours-at-80").map((a) => a.raisedAt.toISOString())).toEqual([
+      "2026-11-05T00:00:00.000Z",
+    ]);
+  });
+});
+
 describe("the Alerts view and the proactive case", () => {
   let home: Property;
   let sensor: { id: number; roomId: number };
