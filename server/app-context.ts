@@ -48,6 +48,7 @@ import { OutlookService } from "./modules/outlook/outlook.service.js";
 import { MosquittoBrokerFiles } from "./modules/sensors/mqtt/broker-files.js";
 import { SensorService } from "./modules/sensors/sensor.service.js";
 import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
+import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -87,6 +88,7 @@ export interface Services {
   sensorIngest: SensorIngestService;
   /** Keeps mosquitto's password file and ACL in step with the sensor registry (the sensors' BrokerCredentials). */
   mqttBroker: MosquittoBrokerFiles;
+  sensorWatch: SensorWatchService;
 }
 
 export interface AppContext {
@@ -166,6 +168,12 @@ export function createServices(
   const conversation = new ConversationService(dataSource, config, cases, photos, mail, users, clock);
   const complaints = new ComplaintService(dataSource, config, cases, policy, mail, users, organisations, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
+  // Rooms' live sensor figures and alerts; alerts on a case count in its triage figures.
+  const sensorWatch = new SensorWatchService(dataSource, cases, properties, policy, clock, logger);
+  // Where a sensor has no surface probe, its wall or window is estimated from the weather's outdoor hour.
+  sensorWatch.useWeather(weather);
+  sensorWatch.useTriage(triage);
+  triage.useSensorEvidence(sensorWatch);
   const queue = new QueueService(dataSource, triage, clock);
   const insight = new InsightService(dataSource, triage, clock, complaints);
   const boardReports = new BoardReportService(dataSource, insight, organisations, mail, inspections, clock, logger);
@@ -208,6 +216,7 @@ export function createServices(
     clock,
   );
   sensors.useBroker(mqttBroker);
+  sensorIngest.addListener(sensorWatch);
   return {
     mqttBroker,
     assessments,
@@ -245,6 +254,7 @@ export function createServices(
     outlook,
     sensors,
     sensorIngest,
+    sensorWatch,
   };
 }
 

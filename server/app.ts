@@ -16,6 +16,7 @@ import { createAssessmentsRouter } from "./modules/assessments/assessments.route
 import { createInspectionsRouter } from "./modules/inspections/inspections.routes.js";
 import { createPolicyRouter } from "./modules/policy/policy.routes.js";
 import { createSensorHealthRouter } from "./modules/sensors/sensor-health.routes.js";
+import { createSensorWatchRouter } from "./modules/sensor-watch/sensor-watch.routes.js";
 import { createEstateLocationsRouter } from "./modules/weather/weather.routes.js";
 import { createCasesRouter, createMyCasesRouter } from "./modules/cases/cases.routes.js";
 import { createCasePhotosRouter, createPhotosRouter } from "./modules/photos/photos.routes.js";
@@ -197,6 +198,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/board-report", requireAuth, createBoardReportRouter({ reports: services.boardReports }));
   api.use("/contractors", requireAuth, createContractorsRouter({ works: services.works }));
   api.use("/policy", createPolicyRouter({ policy: services.policy }));
+  api.use("/sensor-alerts", requireAuth, createSensorWatchRouter({ sensorWatch: services.sensorWatch }));
   api.use("/estate-locations", createEstateLocationsRouter({ weather: services.weather }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties, roomReadings: services.readings, clock }));

@@ -8,6 +8,7 @@ import { startInvitationBatches } from "./modules/auth/invitation-batch.ticker.j
 import { startBoardReports } from "./modules/board-report/board-report.scheduler.js";
 import { startSensorHealthSweeper } from "./modules/sensors/sensor-health.sweeper.js";
 import { startMqttIngest } from "./modules/sensors/mqtt/mqtt-ingest.js";
+import { startSensorWatchSweep } from "./modules/sensor-watch/sensor-watch.sweeper.js";
 
 /**
  * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
@@ -31,11 +32,14 @@ export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" 
   // Sensor health: each sensor with new readings is checked for low battery, flat-lining and jumps.
   const stopSensorHealth = startSensorHealthSweeper(ctx.services.sensorHealth, ctx.logger);
   const stopMqtt = startMqttIngest(ctx.services.sensorIngest, ctx.services.mqttBroker, ctx.config.mqtt, ctx.logger);
+  // Rooms whose sensor figures are behind their readings (a crash or restart mid-evaluation) are worked out again.
+  const stopSensorWatch = startSensorWatchSweep(ctx.services.sensorWatch, ctx.logger);
   return async () => {
     await Promise.all([
       stopMqtt(),
       stopBoardReports(),
       stopSensorHealth(),
+      stopSensorWatch(),
       stopInvitations(),
       stopReminders(),
       stopTriageSweeper(),

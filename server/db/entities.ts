@@ -42,6 +42,9 @@ import { WebhookEvent } from "../modules/webhooks/webhook-event.entity.js";
 import { Sensor } from "../modules/sensors/sensor.entity.js";
 import { SensorReading } from "../modules/sensors/sensor-reading.entity.js";
 import { SensorHealthRecord } from "../modules/sensors/sensor-health.entity.js";
+import { SensorAlert } from "../modules/sensor-watch/sensor-alert.entity.js";
+import { SensorRoomFigures } from "../modules/sensor-watch/sensor-room-figures.entity.js";
+import { SensorAlertPolicyRecord } from "../modules/policy/sensor-alert-policy.entity.js";
 import { EstateLocation } from "../modules/weather/estate-location.entity.js";
 import { WeatherHour } from "../modules/weather/weather-hour.entity.js";
 
@@ -86,6 +89,9 @@ export const entities = [
   Sensor,
   SensorReading,
   SensorHealthRecord,
+  SensorRoomFigures,
+  SensorAlert,
+  SensorAlertPolicyRecord,
   WebhookEndpoint,
   WebhookEvent,
   WebhookDelivery,

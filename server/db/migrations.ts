@@ -31,6 +31,7 @@ import { BoardReports1796445784777 } from "./migrations/1796445784777-BoardRepor
 import { MissedDeadlineReasons1796448909533 } from "./migrations/1796448909533-MissedDeadlineReasons.js";
 import { Sensors1796460000000 } from "./migrations/1796460000000-Sensors.js";
 import { SensorHealth1796460054896 } from "./migrations/1796460054896-SensorHealth.js";
+import { SensorWatch1796461027791 } from "./migrations/1796461027791-SensorWatch.js";
 import { WeatherLocations1796461205317 } from "./migrations/1796461205317-WeatherLocations.js";
 
 export const migrations = [
@@ -65,5 +66,6 @@ export const migrations = [
   MissedDeadlineReasons1796448909533,
   Sensors1796460000000,
   SensorHealth1796460054896,
+  SensorWatch1796461027791,
   WeatherLocations1796461205317,
 ];

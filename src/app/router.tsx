@@ -92,7 +92,10 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             // The same address for a tenant's page and the staff workspace: the module picks by role.
             gate(["tenant", ...STAFF], [page("cases/:id", () => import("./routes/app/case"))]),
             // Admins open every staff screen, the queue and the works board included.
-            gate(["officer", "admin"], [page("queue", () => import("./routes/staff/queue"))]),
+            gate(
+              ["officer", "admin"],
+              [page("queue", () => import("./routes/staff/queue")), page("alerts", () => import("./routes/staff/alerts"))],
+            ),
             gate(["maintenance", "admin"], [page("works", () => import("./routes/staff/works"))]),
             gate(STAFF, [
               page("sensors", () => import("./routes/staff/sensors")),

@@ -55,6 +55,15 @@ export const policyKeys = {
   current: () => [...policyKeys.all, "current"] as const,
   /** The complaint timeframes, escalation route and letters (GET /api/policy/complaints). */
   complaints: () => [...policyKeys.all, "complaints"] as const,
+  /** The sensor alert rules (GET /api/policy/sensor-alerts). */
+  sensorAlerts: () => [...policyKeys.all, "sensor-alerts"] as const,
+};
+
+/** Homes at risk from their sensors (GET /api/sensor-alerts). */
+export const sensorAlertKeys = {
+  all: ["sensor-alerts"] as const,
+  lists: () => [...sensorAlertKeys.all, "list"] as const,
+  list: (sort: string, dir: string) => [...sensorAlertKeys.lists(), { sort, dir }] as const,
 };
 
 /** The landlord's active staff (GET /api/staff). */

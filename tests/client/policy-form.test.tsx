@@ -26,6 +26,7 @@ const COMPLAINT_POLICY = {
   source: "default",
 };
 import { renderApp } from "./support/render-app";
+import { DEFAULT_SENSOR_ALERT_SETTINGS } from "@/lib/domain/sensor-alerts";
 
 const DEFAULT = { ...ENGLAND_SOCIAL_HOUSING_DEFAULT_POLICY, monitoringDays: DEFAULT_MONITORING_DAYS };
 
@@ -43,6 +44,7 @@ function setup(start: DeadlinePolicy | null = null, role: keyof typeof users = "
     "GET /api/auth/csrf": { body: { csrfToken: "t" } },
     "GET /api/policy": () => view(),
     "GET /api/policy/complaints": { body: COMPLAINT_POLICY },
+    "GET /api/policy/sensor-alerts": { body: { ...DEFAULT_SENSOR_ALERT_SETTINGS, source: "default" } },
     "PUT /api/policy": (call) => {
       try {
         own = parse(deadlinePolicySchema, call.body);

@@ -29,3 +29,4 @@ export * from "./sensor-health.js";
 export * from "./outlook.js";
 export * from "./weather.js";
 export * from "./sensors.js";
+export * from "./sensor-watch.js";

@@ -6,11 +6,14 @@ import { policyQueryOptions } from "@/features/policy/api/get-policy";
 import { PolicyForm } from "@/features/policy/components/policy-form";
 import { ComplaintPolicyForm } from "@/features/policy/components/complaint-policy-form";
 import { complaintPolicyQueryOptions } from "@/features/policy/api/get-complaint-policy";
+import { sensorAlertPolicyQueryOptions } from "@/features/policy/api/sensor-alert-policy";
+import { SensorAlertPolicyForm } from "@/features/policy/components/sensor-alert-policy-form";
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
   if (await signedInAs(queryClient, ["admin"])) {
     void queryClient.prefetchQuery(policyQueryOptions());
     void queryClient.prefetchQuery(complaintPolicyQueryOptions());
+    void queryClient.prefetchQuery(sensorAlertPolicyQueryOptions());
   }
   return null;
 };
@@ -28,6 +31,9 @@ export default function DeadlinePolicyPage() {
       </Panel>
       <Panel title="Complaints" id="complaints" className="mt-5 max-w-reading">
         <ComplaintPolicyForm />
+      </Panel>
+      <Panel title="Sensor alerts" id="sensor-alerts" className="mt-5 max-w-reading">
+        <SensorAlertPolicyForm />
       </Panel>
     </>
   );

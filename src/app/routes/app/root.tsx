@@ -14,6 +14,7 @@ const navByRole: Record<Role, NavItem[]> = {
   ],
   officer: [
     { to: "/queue", label: "Case queue" },
+    { to: "/alerts", label: "Alerts" },
     { to: "/homes", label: "Homes" },
     { to: "/sensors", label: "Sensors", end: true },
     { to: "/dashboard", label: "Dashboard" },
@@ -36,6 +37,7 @@ const navByRole: Record<Role, NavItem[]> = {
     { to: "/admin/tenancy-import", label: "Tenancy import" },
     { to: "/admin/stock-import", label: "Import homes" },
     { to: "/queue", label: "Case queue" },
+    { to: "/alerts", label: "Alerts" },
     { to: "/works", label: "Works" },
     { to: "/homes", label: "Homes" },
     { to: "/sensors", label: "Sensors", end: true },
