@@ -1,0 +1,194 @@
+// Keeps mosquitto's password file and ACL in step with the sensor registry. The broker reads both
+// only at start and on SIGHUP, so after every change that issues, revokes or removes a sensor's
+// credentials the files are rewritten from the `sensors` table (each to a temporary file, then
+// renamed over the old one, so the broker never reads half a file) and the broker is told to reload.
+import { once } from "node:events";
+import { createWriteStream } from "node:fs";
+import { readFile, rename, rm } from "node:fs/promises";
+import path from "node:path";
+import type { DataSource } from "typeorm";
+import type { Clock } from "../../../lib/clock.js";
+import type { Logger } from "../../../lib/logger.js";
+import { mosquittoPasswordHash } from "../credentials.js";
+import type { BrokerCredentials } from "../sensor-events.js";
+
+/** The files of one broker, all in one folder (`.data/mosquitto` for npm start, a temporary folder in tests). */
+export function brokerPaths(dir: string) {
+  return {
+    dir,
+    config: path.join(dir, "mosquitto.conf"),
+    passwords: path.join(dir, "passwd"),
+    acl: path.join(dir, "acl"),
+    pid: path.join(dir, "mosquitto.pid"),
+    log: path.join(dir, "mosquitto.log"),
+    /** The app's own MQTT password, made by the start script; never read by the broker. */
+    appPassword: path.join(dir, "app-password"),
+  };
+}
+
+/** The topic a device publishes its readings to (its user name is "s" and its id). */
+export const sensorReadingsTopic = (mqttUsername: string) => `sensors/${mqttUsername}/readings`;
+/** Every device's readings topic: what the app may read. */
+export const SENSOR_READINGS_FILTER = "sensors/+/readings";
+
+/** The app's own ACL block: it reads every device's readings and writes nothing. */
+export function appAclBlock(username: string): string {
+  return `user ${username}\ntopic read ${SENSOR_READINGS_FILTER}\n\n`;
+}
+
+/** Group-readable: the broker drops to the `mosquitto` user, which owns the folder's group (see scripts/lib/mosquitto.ts). */
+export const BROKER_FILE_MODE = 0o640;
+
+export interface BrokerFileSettings {
+  /** The broker's folder (its password file, ACL and pid file). */
+  dir: string;
+  /** The app's MQTT user name and password: the app's line is written first in every rewrite. */
+  username: string;
+  password: string;
+}
+
+export interface BrokerRewrite {
+  sensors: number;
+  ms: number;
+  /** False when no broker was running to be told (the files are written all the same). */
+  reloaded: boolean;
+}
+
+/** Rows read per query while rewriting: keeps memory flat for 50 000 sensors. */
+const PAGE = 5000;
+
+let tempCounter = 0;
+
+export class MosquittoBrokerFiles implements BrokerCredentials {
+  private current: Promise<void> = Promise.resolve();
+  private queued: Promise<void> | null = null;
+  private appLine: string | null = null;
+  private readonly changeListeners: (() => void)[] = [];
+  /** The last rewrite's size and time (the bench and the logs report them). */
+  lastRewrite: BrokerRewrite | null = null;
+
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly settings: BrokerFileSettings | null,
+    private readonly logger: Logger,
+    private readonly clock: Clock,
+  ) {}
+
+  /** Told after every change to the registry's credentials (the subscriber forgets the identities it knows). */
+  onChange(listener: () => void): void {
+    this.changeListeners.push(listener);
+  }
+
+  /**
+   * Rewrites both files and reloads the broker. Calls made while a rewrite runs are served together by
+   * the one rewrite that starts after it (it reads the registry after their commits). Never rejects.
+   */
+  credentialsChanged(): Promise<void> {
+    for (const listener of this.changeListeners) listener();
+    if (!this.settings) return Promise.resolve();
+    if (this.queued) return this.queued;
+    const settings = this.settings;
+    const next = this.current.then(async () => {
+      this.queued = null;
+      try {
+        this.lastRewrite = await this.rewrite(settings);
+        this.logger.info(this.lastRewrite, "mosquitto password file and ACL rewritten");
+      } catch (error) {
+        this.logger.error({ err: error }, "could not rewrite mosquitto's password file and ACL");
+      }
+    });
+    this.queued = next;
+    this.current = next;
+    return next;
+  }
+
+  private async rewrite(settings: BrokerFileSettings): Promise<BrokerRewrite> {
+    const started = performance.now();
+    const files = brokerPaths(settings.dir);
+    this.appLine ??= `${settings.username}:${mosquittoPasswordHash(settings.password)}\n`;
+    const suffix = `.${process.pid}.${++tempCounter}.tmp`;
+    const passwordsTemp = files.passwords + suffix;
+    const aclTemp = files.acl + suffix;
+    const passwords = createWriteStream(passwordsTemp, { mode: BROKER_FILE_MODE });
+    const acl = createWriteStream(aclTemp, { mode: BROKER_FILE_MODE });
+    let sensors = 0;
+    try {
+      await write(passwords, this.appLine);
+      await write(acl, appAclBlock(settings.username));
+      const today = londonDate(this.clock.now());
+      let afterId = 0;
+      for (;;) {
+        const rows: { id: number; username: string; hash: string }[] = await this.dataSource.query(
+          `SELECT id, mqtt_username AS username, mqtt_password_hash AS hash FROM sensors
+            WHERE id > ? AND mqtt_password_hash IS NOT NULL AND revoked_at IS NULL
+              AND (removed_on IS NULL OR removed_on > ?)
+            ORDER BY id LIMIT ${PAGE}`,
+          [afterId, today],
+        );
+        if (rows.length === 0) break;
+        let passwordText = "";
+        let aclText = "";
+        for (const row of rows) {
+          passwordText += `${row.username}:${row.hash}\n`;
+          aclText += `user ${row.username}\ntopic write ${sensorReadingsTopic(row.username)}\n\n`;
+        }
+        await write(passwords, passwordText);
+        await write(acl, aclText);
+        sensors += rows.length;
+        afterId = Number(rows[rows.length - 1]!.id);
+        if (rows.length < PAGE) break;
+      }
+      await Promise.all([close(passwords), close(acl)]);
+      // ACL first: a new device's rights are in place by the time its password is.
+      await rename(aclTemp, files.acl);
+      await rename(passwordsTemp, files.passwords);
+    } catch (error) {
+      passwords.destroy();
+      acl.destroy();
+      await Promise.all([rm(passwordsTemp, { force: true }), rm(aclTemp, { force: true })]);
+      throw error;
+    }
+    const reloaded = await this.reloadBroker(files.pid);
+    return { sensors, ms: Math.round(performance.now() - started), reloaded };
+  }
+
+  /** SIGHUP to the broker named in the pid file, when that process is a running mosquitto. */
+  private async reloadBroker(pidFile: string): Promise<boolean> {
+    const pid = await brokerPid(pidFile);
+    if (pid === null) {
+      this.logger.warn({ pidFile }, "no running mosquitto to reload; it will read the new files when it starts");
+      return false;
+    }
+    process.kill(pid, "SIGHUP");
+    return true;
+  }
+}
+
+/** The pid in the file when that process is alive and is a mosquitto; otherwise null. */
+export async function brokerPid(pidFile: string): Promise<number | null> {
+  const text = await readFile(pidFile, "utf8").catch(() => "");
+  const pid = Number.parseInt(text.trim(), 10);
+  if (!Number.isInteger(pid) || pid <= 0) return null;
+  const cmdline = await readFile(`/proc/${pid}/cmdline`, "utf8").catch(() => "");
+  return cmdline.includes("mosquitto") ? pid : null;
+}
+
+function londonDate(at: Date): string {
+  return new Intl.DateTimeFormat("en-CA", {
+    timeZone: "Europe/London",
+    year: "numeric",
+    month: "2-digit",
+    day: "2-digit",
+  }).format(at);
+}
+
+async function write(stream: NodeJS.WritableStream, text: string): Promise<void> {
+  if (!stream.write(text)) await once(stream, "drain");
+}
+
+function close(stream: ReturnType<typeof createWriteStream>): Promise<void> {
+  return new Promise((resolve, reject) => {
+    stream.once("error", reject);
+    stream.end(() => resolve());
+  });
+}
