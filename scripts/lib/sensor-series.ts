@@ -62,6 +62,14 @@ export interface OutdoorConditions {
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;
 
+/** "15m", "7d", "90s", "2h" or a number of seconds → ms. */
+export function parseDuration(text: string): number {
+  const match = /^(\d+(?:\.\d+)?)\s*(s|m|h|d)?$/.exec(text.trim());
+  if (!match) throw new Error(`"${text}" is not a duration (e.g. 90s, 15m, 6h, 7d)`);
+  const unit = { s: 1000, m: 60_000, h: HOUR, d: DAY }[match[2] ?? "s"]!;
+  return Number(match[1]) * unit;
+}
+
 // ---------------------------------------------------------------- hashing
 /** FNV-1a of a string, 32 bits. */
 function hashString(text: string): number {
