@@ -42,6 +42,8 @@ import { WebhookService } from "./modules/webhooks/webhook.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
+import { SensorService } from "./modules/sensors/sensor.service.js";
+import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -74,6 +76,8 @@ export interface Services {
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
+  sensors: SensorService;
+  sensorIngest: SensorIngestService;
 }
 
 export interface AppContext {
@@ -180,6 +184,9 @@ export function createServices(
     clock,
     logger,
   );
+  // Sensors: the registry tells the broker (useBroker) and the ingest tells the room watch (addListener).
+  const sensors = new SensorService(dataSource, properties, clock, logger);
+  const sensorIngest = new SensorIngestService(dataSource, clock, logger);
   return {
     assessments,
     inspections,
@@ -211,6 +218,8 @@ export function createServices(
     invitationBatches,
     tenancyImports,
     evidencePacks,
+    sensors,
+    sensorIngest,
   };
 }
 

@@ -41,6 +41,7 @@ import { createIntegrationApiRouter } from "./modules/integrations/integration-a
 import { createAdminActionsRouter, createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
 import { createWebhooksRouter } from "./modules/webhooks/webhooks.routes.js";
 import { createEvidencePackRouter } from "./modules/evidence-pack/evidence-pack.routes.js";
+import { createHomeSensorsRouter, createSensorIngestRouter, createSensorsRouter } from "./modules/sensors/sensors.routes.js";
 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
@@ -106,6 +107,9 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
       requestsPerMinute: config.apiKeys.requestsPerMinute,
     }),
   );
+
+  // Sensors post readings with their own key: like /v1, before sessions and CSRF (and with its own body limit).
+  api.use("/sensor-ingest", createSensorIngestRouter({ ingest: services.sensorIngest }));
 
   api.use(express.json({ limit: "2mb" }));
 
@@ -192,6 +196,8 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties, roomReadings: services.readings, clock }));
   api.use("/properties", createHomeRecordRouter({ homes: services.homes }));
+  api.use("/properties", createHomeSensorsRouter({ sensors: services.sensors }));
+  api.use("/sensors", createSensorsRouter({ sensors: services.sensors, clock }));
   api.use("/stock-imports", createStockImportsRouter({ stock: services.stock, incomingDir: incomingDir(config.uploadsDir) }));
   api.use("/users", createUsersRouter({ users: services.users, clock }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));

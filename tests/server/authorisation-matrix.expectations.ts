@@ -167,6 +167,17 @@ const ROWS: Record<string, Row> = {
   "POST /api/webhooks/:id/test":                                [ 401,  403,  403,  403,  403, "ok",  404,  403],
   "GET /api/webhooks/:id/deliveries":                           [ 401,  403,  403,  403,  403, "ok",  404,  403],
   "POST /api/webhooks/:id/deliveries/:deliveryId/resend":       [ 401,  403,  403,  403,  403, "ok",  404,  403],
+  "GET /api/sensors":                                           [ 401,  403,  403, "ok", "ok", "ok", "ok", "ok"],
+  "POST /api/sensors":                                          [ 401,  403,  403,  403, "ok", "ok", "ok",  403],
+  "GET /api/sensors/:id":                                       [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
+  "PATCH /api/sensors/:id":                                     [ 401,  403,  403,  403, "ok", "ok",  404,  403],
+  "POST /api/sensors/:id/credentials":                          [ 401,  403,  403,  403, "ok", "ok",  404,  403],
+  "POST /api/sensors/:id/revoke":                               [ 401,  403,  403,  403, "ok", "ok",  404,  403],
+  "POST /api/sensors/:id/remove":                               [ 401,  403,  403,  403, "ok", "ok",  404,  403],
+  "GET /api/sensors/:id/readings":                              [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
+  "GET /api/properties/:id/sensors":                            [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
+  // A sensor's own secret only: no session opens it.
+  "POST /api/sensor-ingest/readings":                           [ 401,  401,  401,  401,  401,  401,  401,  401],
 };
 
 /** "METHOD /path" → the expected answer per actor. */

@@ -146,6 +146,18 @@ beforeAll(async () => {
     .post("/api/webhooks", { url: "http://127.0.0.1:9/dewline-events", eventTypes: ["case.created"] })
     .expect(201);
   const hookDelivery = await admin.post(`/api/webhooks/${hook.body.endpoint.id}/test`).expect(202);
+  const sensor = await admin
+    .post("/api/sensors", {
+      propertyId: landlord.home.id,
+      roomId,
+      serial: `M-${caseId}`,
+      model: "Matrix T/RH",
+      placement: "external wall corner",
+      measuresSurface: false,
+      intervalS: 900,
+      installedOn: "2025-01-01",
+    })
+    .expect(201);
 
   // A tenancy import that queued one invitation (its batch is paused, resumed and cancelled last).
   const uprn = String(100_000_000_000 + caseId);
@@ -192,6 +204,7 @@ beforeAll(async () => {
     ":token": token,
     ":keyId": apiKey.body.id,
     "/api/webhooks/:id": hook.body.endpoint.id,
+    "/api/sensors/:id": sensor.body.sensor.id,
     ":deliveryId": hookDelivery.body.id,
     officerId: landlord.officer.id,
     maintenanceId: landlord.maintenance.id,

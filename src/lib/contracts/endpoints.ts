@@ -58,6 +58,14 @@ import { stockImportListResponse, stockImportPreviewResponse, stockImportRespons
 import { staffListResponse, userHistoryResponse, userPageResponse, userResponse } from "./users.js";
 import { tenancyImportListResponse, tenancyImportPreviewResponse, tenancyImportResultResponse } from "./tenancy-import.js";
 import {
+  sensorCredentialsResponse,
+  sensorIngestResponse,
+  sensorListResponse,
+  sensorPageResponse,
+  sensorReadingsResponse,
+  sensorResponse,
+} from "./sensors.js";
+import {
   caseWorkOrdersResponse,
   contractorListResponse,
   contractorResponse,
@@ -488,6 +496,49 @@ export const ENDPOINTS: readonly Endpoint[] = [
     webhookDeliveryPageResponse,
   ),
   e("POST", "/api/webhooks/:id/deliveries/:deliveryId/resend", ["admin"], "Send a delivery again", webhookDeliveryResponse, 202),
+
+  // Sensors: the registry (staff read, leads change) and the devices' own ingest.
+  e(
+    "GET",
+    "/api/sensors",
+    STAFF,
+    "The landlord's sensors (?propertyId=&state=active|revoked|removed&page=&pageSize=)",
+    sensorPageResponse,
+  ),
+  e(
+    "POST",
+    "/api/sensors",
+    LEADS,
+    "Register a sensor in a room; its secret is in this reply only",
+    sensorCredentialsResponse,
+    201,
+  ),
+  e("GET", "/api/sensors/:id", STAFF, "A sensor", sensorResponse),
+  e("PATCH", "/api/sensors/:id", LEADS, "Change a sensor (with the version seen: 409 when stale)", sensorResponse),
+  e(
+    "POST",
+    "/api/sensors/:id/credentials",
+    LEADS,
+    "Issue a new secret (the old one stops working at once); in this reply only",
+    sensorCredentialsResponse,
+  ),
+  e("POST", "/api/sensors/:id/revoke", LEADS, "Revoke the sensor's secret over HTTP and MQTT, at once", sensorResponse),
+  e("POST", "/api/sensors/:id/remove", LEADS, "Mark the sensor taken out of the home on a day", sensorResponse),
+  e(
+    "GET",
+    "/api/sensors/:id/readings",
+    STAFF,
+    "The sensor's readings in a window (?from=&to=), averaged when long",
+    sensorReadingsResponse,
+  ),
+  e("GET", "/api/properties/:id/sensors", STAFF, "The sensors fitted in a home", sensorListResponse),
+  e(
+    "POST",
+    "/api/sensor-ingest/readings",
+    "public",
+    "A sensor's readings: `Authorization: Bearer <the sensor's secret>`, no session, no CSRF token",
+    sensorIngestResponse,
+  ),
 ];
 
 /** The scope a route of the integration API needs (undefined for session routes). */

@@ -25,3 +25,4 @@ export * from "./board-report.js";
 export * from "./endpoints.js";
 export * from "./evidence-pack.js";
 export * from "./tenancy-import.js";
+export * from "./sensors.js";

@@ -1,0 +1,304 @@
+// Readings from sensors, over HTTP and MQTT alike: each reading checked on its own (a refusal carries its
+// reason and refuses only that reading), the rest stored in one transaction, a re-delivered reading a
+// duplicate (the first value wins), then the listeners told. Built for bulk: a backfill of a million
+// readings goes through here, so the hot loop uses no Date objects and no schema library per reading,
+// and each batch is one multi-row INSERT IGNORE of literals that this file formats itself.
+import type { DataSource } from "typeorm";
+import { SENSOR_LATE_LIMIT_DAYS } from "../../../src/lib/schemas/sensor-readings.js";
+import { endOfLocalDay } from "../../../src/lib/domain/working-days.js";
+import type { Clock } from "../../lib/clock.js";
+import type { Logger } from "../../lib/logger.js";
+import { inTransaction } from "../../lib/transaction.js";
+import {
+  AIR_TEMPERATURE_C,
+  FUTURE_TOLERANCE_MS,
+  RELATIVE_HUMIDITY_PCT,
+  SURFACE_TEMPERATURE_C,
+  formatNumber,
+} from "../readings/csv/limits.js";
+import { SENSOR_SECRET_PATTERN, sensorKeyHash } from "./credentials.js";
+import type { IngestOutcome, SensorIdentity, SensorReadingsListener } from "./sensor-events.js";
+
+const DAY_MS = 86_400_000;
+/** Rows per INSERT statement: ~80 bytes each, well under max_allowed_packet. */
+const ROWS_PER_STATEMENT = 5000;
+const BATTERY_PCT = { min: 0, max: 100 } as const;
+
+/** `2026-12-05T06:45:00Z`, `…:00.123Z`, `…:00+01:00`: seconds required, a zone required. */
+const TAKEN_AT = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2}):(\d{2})(\.\d{1,9})?(Z|[+-]\d{2}:\d{2})$/;
+const DAYS_IN_MONTH = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
+const pad2 = (n: number) => (n < 10 ? `0${n}` : String(n));
+
+/** The reading time in ms (whole seconds, UTC), or a reason. No Date object on the common path. */
+function parseTakenAt(text: string): number | string {
+  const m = TAKEN_AT.exec(text);
+  if (!m) {
+    return /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?$/.test(text)
+      ? "takenAt has no time zone: end it with Z or an offset such as +01:00."
+      : "takenAt is not an ISO 8601 date and time (e.g. 2026-12-05T06:45:00Z).";
+  }
+  const year = +m[1]!;
+  const month = +m[2]!;
+  const day = +m[3]!;
+  const hour = +m[4]!;
+  const minute = +m[5]!;
+  const second = +m[6]!;
+  const leap = year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
+  if (
+    month < 1 ||
+    month > 12 ||
+    day < 1 ||
+    day > (month === 2 && !leap ? 28 : DAYS_IN_MONTH[month - 1]!) ||
+    hour > 23 ||
+    minute > 59 ||
+    second > 59
+  ) {
+    return "takenAt is not a real date and time.";
+  }
+  let ms = Date.UTC(year, month - 1, day, hour, minute, second);
+  const zone = m[8]!;
+  if (zone !== "Z") {
+    const offsetMin = +zone.slice(1, 3) * 60 + +zone.slice(4, 6);
+    if (+zone.slice(1, 3) > 23 || +zone.slice(4, 6) > 59) return "takenAt has an impossible offset.";
+    ms -= (zone[0] === "-" ? -1 : 1) * offsetMin * 60_000;
+  }
+  return ms;
+}
+
+/** "YYYY-MM-DD HH:MM:SS" in UTC for MariaDB (the connection's zone is UTC). */
+function sqlDateTime(ms: number, text: string): string {
+  // The common case (Z, no fraction) is the text itself with a space.
+  if (text.length === 20 && text.charCodeAt(19) === 90 /* Z */) return `${text.slice(0, 10)} ${text.slice(11, 19)}`;
+  const d = new Date(ms);
+  return `${d.getUTCFullYear()}-${pad2(d.getUTCMonth() + 1)}-${pad2(d.getUTCDate())} ${pad2(d.getUTCHours())}:${pad2(
+    d.getUTCMinutes(),
+  )}:${pad2(d.getUTCSeconds())}`;
+}
+
+const sqlDateTimeMs = (d: Date) => d.toISOString().slice(0, 23).replace("T", " ");
+const isNum = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
+/** Two decimals, as the columns keep them; never exponent notation for the column's range. */
+const dec2 = (v: number) => String(Math.round(v * 100) / 100);
+
+/** The days a sensor may record in: from the start of its installation day to the end of its removal day (London). */
+interface SensorWindow {
+  fromMs: number;
+  toMs: number;
+  active: boolean;
+}
+
+export class SensorIngestService {
+  private readonly listeners: SensorReadingsListener[] = [];
+
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly clock: Clock,
+    private readonly logger?: Logger,
+  ) {}
+
+  /** Told after each commit that stored readings (the room watch, alerts). */
+  addListener(listener: SensorReadingsListener): void {
+    this.listeners.push(listener);
+  }
+
+  private async identify(where: string, value: string): Promise<SensorIdentity | null> {
+    const rows: {
+      id: number;
+      organisation_id: number;
+      property_id: number;
+      room_id: number;
+      serial: string;
+      mqtt_username: string;
+      interval_s: number;
+      measures_surface: number;
+    }[] = await this.dataSource.query(
+      `SELECT id, organisation_id, property_id, room_id, serial, mqtt_username, interval_s, measures_surface
+         FROM sensors WHERE ${where} = ? AND key_hash IS NOT NULL AND revoked_at IS NULL AND removed_on IS NULL`,
+      [value],
+    );
+    const r = rows[0];
+    if (!r) return null;
+    return {
+      id: r.id,
+      organisationId: r.organisation_id,
+      propertyId: r.property_id,
+      roomId: r.room_id,
+      serial: r.serial,
+      mqttUsername: r.mqtt_username,
+      intervalS: r.interval_s,
+      measuresSurface: Boolean(r.measures_surface),
+    };
+  }
+
+  /** The active sensor holding this secret (HTTP ingest), or null: unknown, revoked or removed. */
+  async identifyByKey(secret: string): Promise<SensorIdentity | null> {
+    if (!SENSOR_SECRET_PATTERN.test(secret)) return null;
+    return this.identify("key_hash", sensorKeyHash(secret));
+  }
+
+  /** The active sensor with this MQTT user name (the broker has checked its password), or null. */
+  async identifyByMqttUsername(username: string): Promise<SensorIdentity | null> {
+    return this.identify("mqtt_username", username);
+  }
+
+  private async windowOf(sensorId: number): Promise<SensorWindow | null> {
+    const rows: { installed_on: string | Date; removed_on: string | Date | null; key_hash: string | null }[] =
+      await this.dataSource.query("SELECT installed_on, removed_on, key_hash FROM sensors WHERE id = ?", [sensorId]);
+    const r = rows[0];
+    if (!r) return null;
+    const date = (v: string | Date) => (typeof v === "string" ? v.slice(0, 10) : v.toISOString().slice(0, 10));
+    const installed = date(r.installed_on);
+    const dayBefore = new Date(Date.parse(`${installed}T00:00:00Z`) - DAY_MS).toISOString().slice(0, 10);
+    return {
+      fromMs: endOfLocalDay(dayBefore).getTime() + 1,
+      toMs: r.removed_on === null ? Number.POSITIVE_INFINITY : endOfLocalDay(date(r.removed_on)).getTime(),
+      active: r.key_hash !== null && r.removed_on === null,
+    };
+  }
+
+  /**
+   * Checks and stores a batch for one sensor. Each reading is stored, a duplicate of one stored before
+   * (same sensor and second: the first value stays), or refused with its reason; one transaction for
+   * all of it, then the listeners are told. The sensor is read again here, so one revoked or removed
+   * after it was identified stores nothing.
+   */
+  async ingest(sensor: SensorIdentity, readings: unknown[], via: "http" | "mqtt"): Promise<IngestOutcome> {
+    const refused: IngestOutcome["refused"] = [];
+    const window = await this.windowOf(sensor.id);
+    if (!window?.active) {
+      readings.forEach((r, index) =>
+        refused.push({ index, takenAt: takenAtText(r), reason: "This sensor is no longer active (revoked or removed)." }),
+      );
+      return { stored: 0, duplicates: 0, refused };
+    }
+    const receivedAt = this.clock.now();
+    const nowMs = receivedAt.getTime();
+    const latestMs = nowMs + FUTURE_TOLERANCE_MS;
+    const earliestMs = nowMs - SENSOR_LATE_LIMIT_DAYS * DAY_MS;
+    const received = `'${sqlDateTimeMs(receivedAt)}'`;
+    const prefix = `(${sensor.id},'`;
+
+    const values: string[] = [];
+    let newestMs = Number.NEGATIVE_INFINITY;
+    for (let index = 0; index < readings.length; index++) {
+      const r = readings[index] as Record<string, unknown> | null;
+      if (typeof r !== "object" || r === null || Array.isArray(r)) {
+        refused.push({ index, takenAt: null, reason: "Not a reading: each reading is an object." });
+        continue;
+      }
+      const text = r.takenAt;
+      if (typeof text !== "string") {
+        refused.push({ index, takenAt: null, reason: "takenAt is missing or not text." });
+        continue;
+      }
+      const reason = this.check(r, text, window, earliestMs, latestMs);
+      if (typeof reason === "string") {
+        refused.push({ index, takenAt: text.slice(0, 40), reason });
+        continue;
+      }
+      if (reason > newestMs) newestMs = reason;
+      const air = r.airTemperatureC as number;
+      const rh = r.relativeHumidityPct as number;
+      const surface = r.surfaceTemperatureC;
+      const battery = r.batteryPct;
+      values.push(
+        `${prefix}${sqlDateTime(reason, text)}',${dec2(air)},${dec2(rh)},${isNum(surface) ? dec2(surface) : "NULL"},${
+          isNum(battery) ? String(Math.round(battery)) : "NULL"
+        },${received})`,
+      );
+    }
+
+    let stored = 0;
+    if (values.length > 0) {
+      const newest = sqlDateTime(newestMs, "");
+      stored = await inTransaction(this.dataSource, async (m) => {
+        let inserted = 0;
+        for (let i = 0; i < values.length; i += ROWS_PER_STATEMENT) {
+          const chunk = i === 0 && values.length <= ROWS_PER_STATEMENT ? values : values.slice(i, i + ROWS_PER_STATEMENT);
+          const result: { affectedRows: number } = await m.query(
+            `INSERT IGNORE INTO sensor_readings
+               (sensor_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, battery_pct, received_at)
+             VALUES ${chunk.join(",")}`,
+          );
+          inserted += result.affectedRows;
+        }
+        if (inserted > 0) {
+          await m.query("UPDATE sensors SET last_reading_at = GREATEST(COALESCE(last_reading_at, ?), ?) WHERE id = ?", [
+            newest,
+            newest,
+            sensor.id,
+          ]);
+        }
+        return inserted;
+      });
+    }
+    const outcome: IngestOutcome = { stored, duplicates: values.length - stored, refused };
+    if (stored > 0) this.notify(sensor, new Date(newestMs), receivedAt);
+    if (refused.length > 0) {
+      this.logger?.debug({ sensorId: sensor.id, via, refused: refused.length, first: refused[0] }, "sensor readings refused");
+    }
+    return outcome;
+  }
+
+  /** The reading's time in ms, or why it is refused. */
+  private check(
+    r: Record<string, unknown>,
+    text: string,
+    w: SensorWindow,
+    earliestMs: number,
+    latestMs: number,
+  ): number | string {
+    const ms = parseTakenAt(text);
+    if (typeof ms === "string") return ms;
+    if (ms > latestMs) return "takenAt is in the future (by the server's clock).";
+    if (ms < earliestMs) return `takenAt is more than ${SENSOR_LATE_LIMIT_DAYS} days ago: too late to take in.`;
+    if (ms < w.fromMs) return "takenAt is before the sensor was installed.";
+    if (ms > w.toMs) return "takenAt is after the sensor was removed.";
+    const air = r.airTemperatureC;
+    if (!isNum(air)) return "airTemperatureC is missing or not a number.";
+    if (air < AIR_TEMPERATURE_C.min || air > AIR_TEMPERATURE_C.max) {
+      return `airTemperatureC ${formatNumber(air)} °C is outside ${formatNumber(AIR_TEMPERATURE_C.min)}…${AIR_TEMPERATURE_C.max} °C.`;
+    }
+    const rh = r.relativeHumidityPct;
+    if (!isNum(rh)) return "relativeHumidityPct is missing or not a number.";
+    if (rh <= RELATIVE_HUMIDITY_PCT.above || rh > RELATIVE_HUMIDITY_PCT.max) {
+      return `relativeHumidityPct ${formatNumber(rh)} % is outside the range above 0 and up to 100 %.`;
+    }
+    const surface = r.surfaceTemperatureC;
+    if (surface !== undefined && surface !== null) {
+      if (!isNum(surface)) return "surfaceTemperatureC is not a number.";
+      if (surface < SURFACE_TEMPERATURE_C.min || surface > SURFACE_TEMPERATURE_C.max) {
+        return `surfaceTemperatureC ${formatNumber(surface)} °C is outside ${formatNumber(SURFACE_TEMPERATURE_C.min)}…${SURFACE_TEMPERATURE_C.max} °C.`;
+      }
+    }
+    const battery = r.batteryPct;
+    if (battery !== undefined && battery !== null) {
+      if (!isNum(battery)) return "batteryPct is not a number.";
+      if (battery < BATTERY_PCT.min || battery > BATTERY_PCT.max)
+        return `batteryPct ${formatNumber(battery)} is outside 0…100 %.`;
+    }
+    return ms;
+  }
+
+  /** After the commit; a listener's failure is logged and never reaches the device. */
+  private notify(sensor: SensorIdentity, newestTakenAt: Date, receivedAt: Date): void {
+    const batch = {
+      organisationId: sensor.organisationId,
+      sensors: [{ sensorId: sensor.id, roomId: sensor.roomId, propertyId: sensor.propertyId, newestTakenAt }],
+      receivedAt,
+    };
+    for (const listener of this.listeners) {
+      try {
+        listener.readingsStored(batch);
+      } catch (err) {
+        this.logger?.error({ err, sensorId: sensor.id }, "a sensor readings listener failed");
+      }
+    }
+  }
+}
+
+function takenAtText(r: unknown): string | null {
+  const t = (r as { takenAt?: unknown } | null)?.takenAt;
+  return typeof t === "string" ? t.slice(0, 40) : null;
+}
