@@ -1,0 +1,111 @@
+// The sensor simulator against the real app and MariaDB: it fits its sensors through the registry,
+// sends a day of backfill over the HTTP ingest, and every reading stored is exactly the generator's;
+// a second run finds its sensors again, issues new secrets (the old ones stop working) and keeps its
+// stories' dates, and what it sends again is counted as duplicates.
+import type { Server } from "node:http";
+import request from "supertest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { simulatedReading } from "../../scripts/lib/sensor-series.js";
+import { startSimulation, type SimulationOptions } from "../../scripts/simulate-sensors.js";
+import { makeLandlord, makeProperty } from "../support/factories.js";
+import { testClock } from "../support/test-clock.js";
+import { createTestApp, type TestApp } from "../support/test-app.js";
+
+let t: TestApp;
+let server: Server;
+let options: SimulationOptions;
+const lines: string[] = [];
+
+beforeAll(async () => {
+  t = await createTestApp();
+  const landlord = await makeLandlord(t.ctx.dataSource);
+  await makeProperty(t.ctx.dataSource, landlord.org);
+  await makeProperty(t.ctx.dataSource, landlord.org);
+  server = await new Promise((resolve) => {
+    const s = t.app.listen(0, "127.0.0.1", () => resolve(s));
+  });
+  const address = server.address();
+  const port = typeof address === "object" && address ? address.port : 0;
+  options = {
+    homes: 3,
+    intervalS: 900,
+    speed: 1,
+    transport: "http",
+    backfillMs: 86_400_000,
+    leadMs: 0,
+    seed: 7,
+    landlord: landlord.org.name,
+    appUrl: `http://127.0.0.1:${port}`,
+    mqttUrl: "mqtt://127.0.0.1:1",
+    durationMs: 0,
+    verbose: false,
+    log: (line) => lines.push(line),
+    clock: testClock,
+  };
+});
+
+afterAll(async () => {
+  server?.closeAllConnections();
+  await new Promise((r) => server?.close(r));
+  await t?.close();
+});
+
+const rowsOf = async (sensorId: number) =>
+  (await t.ctx.dataSource.query(
+    "SELECT taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, battery_pct FROM sensor_readings WHERE sensor_id = ? ORDER BY taken_at",
+    [sensorId],
+  )) as {
+    taken_at: Date;
+    air_temperature_c: string;
+    relative_humidity_pct: string;
+    surface_temperature_c: string | null;
+    battery_pct: number;
+  }[];
+
+describe("the sensor simulator", () => {
+  it("fits sensors through the registry and every reading it sends over HTTP is stored as generated", async () => {
+    const first = await startSimulation(t.ctx, options);
+    const tally = await first.done;
+    // Three homes: the first two carry the condensation and leak stories (two sensors each), the third
+    // the dead kitchen sensor (three).
+    expect(first.devices).toHaveLength(7);
+    expect(first.devices[1]!.series.script.kind).toBe("developing-condensation");
+    expect(first.devices[2]!.series.script.kind).toBe("leak");
+    expect(tally).toMatchObject({ refused: 0, rejected: 0, duplicates: 0 });
+
+    let stored = 0;
+    for (const device of first.devices) {
+      const rows = await rowsOf(device.sensorId);
+      // A day at 15 minutes, and perhaps the live second's reading.
+      expect(rows.length).toBeGreaterThanOrEqual(96);
+      expect(rows.length).toBeLessThanOrEqual(97);
+      for (const row of rows) {
+        const expected = simulatedReading(options.seed, device.series, new Date(row.taken_at).getTime())!;
+        expect(Number(row.air_temperature_c)).toBe(expected.airTemperatureC);
+        expect(Number(row.relative_humidity_pct)).toBe(expected.relativeHumidityPct);
+        expect(row.surface_temperature_c === null ? undefined : Number(row.surface_temperature_c)).toBe(
+          expected.surfaceTemperatureC,
+        );
+        expect(row.battery_pct).toBe(expected.batteryPct);
+      }
+      stored += rows.length;
+    }
+    expect(tally.stored).toBe(stored);
+    expect(tally.sent).toBe(stored);
+    expect(lines.some((l) => l.startsWith("Backfill "))).toBe(true);
+
+    // A second run: the same sensors, new secrets, the same stories; the re-sent day is all duplicates.
+    const second = await startSimulation(t.ctx, options);
+    const again = await second.done;
+    expect(second.devices.map((d) => d.sensorId)).toEqual(first.devices.map((d) => d.sensorId));
+    expect(second.devices.map((d) => d.series.script)).toEqual(first.devices.map((d) => d.series.script));
+    expect(again.refused).toBe(0);
+    expect(again.duplicates).toBeGreaterThanOrEqual(7 * 95);
+    const reading = { readings: [{ takenAt: testClock.now().toISOString(), airTemperatureC: 20, relativeHumidityPct: 50 }] };
+    await request(t.app)
+      .post("/api/sensor-ingest/readings")
+      .set("Authorization", `Bearer ${first.devices[0]!.secret}`)
+      .send(reading)
+      .expect(401);
+  });
+});
