@@ -44,6 +44,7 @@ import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.se
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
 import { SensorService } from "./modules/sensors/sensor.service.js";
 import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
+import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
 
 export interface Services {
   policy: PolicyService;
@@ -78,6 +79,7 @@ export interface Services {
   evidencePacks: EvidencePackService;
   sensors: SensorService;
   sensorIngest: SensorIngestService;
+  sensorWatch: SensorWatchService;
 }
 
 export interface AppContext {
@@ -154,6 +156,12 @@ export function createServices(
   const conversation = new ConversationService(dataSource, config, cases, photos, mail, users, clock);
   const complaints = new ComplaintService(dataSource, config, cases, policy, mail, users, organisations, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
+  // Rooms' live sensor figures and alerts; alerts on a case count in its triage figures.
+  // (Wire the weather's outdoor hours with sensorWatch.useWeather(weather), and register sensorWatch as
+  // the ingest's SensorReadingsListener, where those services are created.)
+  const sensorWatch = new SensorWatchService(dataSource, cases, properties, policy, clock, logger);
+  sensorWatch.useTriage(triage);
+  triage.useSensorEvidence(sensorWatch);
   const queue = new QueueService(dataSource, triage, clock);
   const insight = new InsightService(dataSource, triage, clock, complaints);
   const boardReports = new BoardReportService(dataSource, insight, organisations, mail, inspections, clock, logger);
@@ -187,6 +195,7 @@ export function createServices(
   // Sensors: the registry tells the broker (useBroker) and the ingest tells the room watch (addListener).
   const sensors = new SensorService(dataSource, properties, clock, logger);
   const sensorIngest = new SensorIngestService(dataSource, clock, logger);
+  sensorIngest.addListener(sensorWatch);
   return {
     assessments,
     inspections,
@@ -220,6 +229,7 @@ export function createServices(
     evidencePacks,
     sensors,
     sensorIngest,
+    sensorWatch,
   };
 }
 

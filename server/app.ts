@@ -15,6 +15,7 @@ import { touchSessionsAtMostEveryMinute } from "./modules/auth/session.js";
 import { createAssessmentsRouter } from "./modules/assessments/assessments.routes.js";
 import { createInspectionsRouter } from "./modules/inspections/inspections.routes.js";
 import { createPolicyRouter } from "./modules/policy/policy.routes.js";
+import { createSensorWatchRouter } from "./modules/sensor-watch/sensor-watch.routes.js";
 import { createCasesRouter, createMyCasesRouter } from "./modules/cases/cases.routes.js";
 import { createCasePhotosRouter, createPhotosRouter } from "./modules/photos/photos.routes.js";
 import { createReadingsRouter } from "./modules/readings/readings.routes.js";
@@ -193,6 +194,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   api.use("/board-report", requireAuth, createBoardReportRouter({ reports: services.boardReports }));
   api.use("/contractors", requireAuth, createContractorsRouter({ works: services.works }));
   api.use("/policy", createPolicyRouter({ policy: services.policy }));
+  api.use("/sensor-alerts", requireAuth, createSensorWatchRouter({ sensorWatch: services.sensorWatch }));
   api.use("/photos", createPhotosRouter({ photos: services.photos }));
   api.use("/properties", createPropertiesRouter({ properties: services.properties, roomReadings: services.readings, clock }));
   api.use("/properties", createHomeRecordRouter({ homes: services.homes }));

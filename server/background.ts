@@ -6,6 +6,7 @@ import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
 import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
 import { startInvitationBatches } from "./modules/auth/invitation-batch.ticker.js";
 import { startBoardReports } from "./modules/board-report/board-report.scheduler.js";
+import { startSensorWatchSweep } from "./modules/sensor-watch/sensor-watch.sweeper.js";
 
 /**
  * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
@@ -25,9 +26,12 @@ export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" 
     everyMs: ctx.config.invitationBatches.intervalMs,
   });
   const stopBoardReports = startBoardReports(ctx.services.boardReports, ctx.logger);
+  // Rooms whose sensor figures are behind their readings (a crash or restart mid-evaluation) are worked out again.
+  const stopSensorWatch = startSensorWatchSweep(ctx.services.sensorWatch, ctx.logger);
   return async () => {
     await Promise.all([
       stopBoardReports(),
+      stopSensorWatch(),
       stopInvitations(),
       stopReminders(),
       stopTriageSweeper(),

@@ -41,6 +41,9 @@ import { WebhookEndpoint } from "../modules/webhooks/webhook-endpoint.entity.js"
 import { WebhookEvent } from "../modules/webhooks/webhook-event.entity.js";
 import { Sensor } from "../modules/sensors/sensor.entity.js";
 import { SensorReading } from "../modules/sensors/sensor-reading.entity.js";
+import { SensorAlert } from "../modules/sensor-watch/sensor-alert.entity.js";
+import { SensorRoomFigures } from "../modules/sensor-watch/sensor-room-figures.entity.js";
+import { SensorAlertPolicyRecord } from "../modules/policy/sensor-alert-policy.entity.js";
 
 export const entities = [
   Organisation,
@@ -82,6 +85,9 @@ export const entities = [
   AdminActionEntry,
   Sensor,
   SensorReading,
+  SensorRoomFigures,
+  SensorAlert,
+  SensorAlertPolicyRecord,
   WebhookEndpoint,
   WebhookEvent,
   WebhookDelivery,

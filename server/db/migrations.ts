@@ -30,6 +30,7 @@ import { Complaints1796444351206 } from "./migrations/1796444351206-Complaints.j
 import { BoardReports1796445784777 } from "./migrations/1796445784777-BoardReports.js";
 import { MissedDeadlineReasons1796448909533 } from "./migrations/1796448909533-MissedDeadlineReasons.js";
 import { Sensors1796460000000 } from "./migrations/1796460000000-Sensors.js";
+import { SensorWatch1796461027791 } from "./migrations/1796461027791-SensorWatch.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -62,4 +63,5 @@ export const migrations = [
   BoardReports1796445784777,
   MissedDeadlineReasons1796448909533,
   Sensors1796460000000,
+  SensorWatch1796461027791,
 ];

@@ -53,6 +53,7 @@ export const channelLabels: Record<string, string> = {
   letter: "Letter",
   email: "E-mail",
   visit: "Visit",
+  sensor: "Sensor alert",
 };
 
 export const areaLabels: Record<string, string> = {

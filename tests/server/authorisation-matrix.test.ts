@@ -64,6 +64,7 @@ const BODIES: Record<string, (actor: Actor) => object> = {
   "POST /api/complaints/:id/escalate": () => ({ version: 99, reason: "Still unhappy." }),
   "POST /api/complaints/:id/close": () => ({ version: 99 }),
   "PUT /api/complaints/:id/remedy": () => ({ version: 99, apology: false }),
+  "POST /api/sensor-alerts/:id/dismiss": () => ({ reason: "The sensor was next to a drying rack." }),
 };
 
 let t: TestApp;
@@ -181,7 +182,16 @@ beforeAll(async () => {
     .attach("file", register, "register.csv")
     .expect(201);
 
+  // A sensor alert on the tenant's home (which has an open case, so opening another is refused with 409).
+  const [sensorAlert] = (await t.ctx.dataSource.query(
+    `INSERT INTO sensor_alerts (organisation_id, property_id, room_id, sensor_id, rule, raised_at, figures, state, created_at)
+     VALUES (?, ?, ?, 1, 'hours-at-80', '2026-11-05 00:00:00', '{"hoursAt80":72,"hoursCondensing":0,"condensingDays":0,"mouldIndex":0.2,"basis":"measured"}', 'open', NOW(3))
+     RETURNING id`,
+    [landlord.org.id, landlord.home.id, spare.body.id],
+  )) as { id: number }[];
+
   Object.assign(ids, {
+    "/api/sensor-alerts/:id": sensorAlert!.id,
     "/api/cases/:id": caseId,
     "/api/stock-imports/:id": stockImport.body.id,
     "/api/properties/:id": landlord.home.id,

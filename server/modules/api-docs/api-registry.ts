@@ -17,7 +17,8 @@ import {
 import { casePatchSchema, worseSchema } from "../cases/cases.schemas.js";
 import { inspectionSchema, summarySchema } from "../inspections/inspections.schemas.js";
 import { markReadSchema, staffMessageSchema, tenantMessageSchema } from "../../../src/lib/schemas/messages.js";
-import { complaintPolicySchema, deadlinePolicySchema } from "../policy/policy.schemas.js";
+import { complaintPolicySchema, deadlinePolicySchema, sensorAlertPolicySchema } from "../policy/policy.schemas.js";
+import { alertListQuery, dismissAlertSchema } from "../sensor-watch/sensor-watch.schemas.js";
 import {
   acknowledgeComplaintSchema,
   closeComplaintSchema,
@@ -89,6 +90,9 @@ export const REQUESTS: Readonly<Record<string, RequestSchemas>> = {
   "POST /api/contractors": { body: contractorSchema },
   "PUT /api/policy": { body: deadlinePolicySchema },
   "PUT /api/policy/complaints": { body: complaintPolicySchema },
+  "PUT /api/policy/sensor-alerts": { body: sensorAlertPolicySchema },
+  "GET /api/sensor-alerts": { query: alertListQuery },
+  "POST /api/sensor-alerts/:id/dismiss": { body: dismissAlertSchema },
   "POST /api/cases/:id/complaints": { body: raiseComplaintSchema },
   "POST /api/complaints/:id/acknowledge": { body: acknowledgeComplaintSchema },
   "POST /api/complaints/:id/extend": { body: extendComplaintSchema },

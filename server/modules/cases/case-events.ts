@@ -113,6 +113,22 @@ export type CaseEventPayload =
   | { type: "monitoring-started"; after: { worksDoneAt: string; endsAt: string; days: number } }
   /** Staff made the case's evidence pack: its content hash (EVIDENCE_PACK_DEFINITION), pages and file name. */
   | { type: "evidence-pack-made"; after: { sha256: string; pages: number; fileName: string } }
+  /** A sensor alert on one of the case's home's rooms (sensor-watch module; staff only). */
+  | {
+      type: "sensor-alert";
+      after: {
+        alertId: number;
+        rule: string;
+        roomId: number;
+        roomName: string;
+        raisedAt: string;
+        hoursAt80: number;
+        hoursCondensing: number;
+        condensingDays: number;
+        mouldIndex: number;
+        basis: string;
+      };
+    }
   /** Staff said why a deadline stage was missed (staff only). */
   | { type: "missed-deadline-explained"; before: { reason: string | null }; after: { stage: DeadlineStage; reason: string } }
   /** Complaints (complaints module). `note` is staff-only in every complaint event; `letter` is what the tenant was sent. */

@@ -61,6 +61,7 @@ const STAFF_ONLY_EVENTS: ReadonlySet<string> = new Set<CaseEventType>([
   "internal-note",
   "evidence-pack-made",
   "missed-deadline-explained",
+  "sensor-alert",
 ]);
 
 /** Statuses a tenant's "it's got worse" reopens (back to triage). */
@@ -80,6 +81,18 @@ export interface MilestoneFigure {
   dueAt: Date | null;
   doneAt: Date | null;
   workingDays: number | null;
+}
+
+/** What a case opened from a sensor alert holds in place of a tenant's answers. */
+export interface SensorCaseInput {
+  description: string;
+  locations: CaseReport["locations"];
+  observations: CaseReport["observations"];
+  roomIds?: number[];
+  since?: undefined;
+  area?: undefined;
+  vulnerability?: undefined;
+  equipment?: undefined;
 }
 
 export type TriageFigures = Pick<
@@ -475,86 +488,133 @@ export class CaseService implements CaseEmailTimeline {
       ]);
     }
 
-    const { saved, deliveries } = await inTransaction(this.dataSource, async (m) => {
-      const repo = m.getRepository(Case);
-      const vulnerability = input.vulnerability === undefined ? null : [...new Set(input.vulnerability)];
-      const row = repo.create({
-        organisationId: property.organisationId,
-        propertyId: property.id,
-        reporterUserId: actor.id,
-        tenantUserId,
-        channel,
-        awareAt,
-        description: input.description,
-        locations: input.locations,
-        observations: input.observations,
-        since: input.since ?? null,
-        area: input.area ?? null,
-        vulnerability,
-        vulnerableHousehold: (vulnerability?.length ?? 0) > 0,
-        equipment: input.equipment ?? null,
-        status: "new",
-        reference: null,
-        officersAlertedAt: null,
-        // The report's received time is the clock's, like its awareness date, not the column default.
-        createdAt: this.clock.now(),
-      });
-      const saved = await repo.save(row);
-      saved.reference = formatReference(awareAt, saved.id);
-      await repo.update(saved.id, { reference: saved.reference });
-      if (roomIds.length) {
-        await m.createQueryBuilder().relation(Case, "rooms").of(saved.id).add(roomIds);
-      }
-      // Another case at this home changes the others' recurrence.
-      await this.markStale(m, { propertyId: property.id });
-      await this.recordEvent(m, {
-        caseId: saved.id,
-        actorId: actor.id,
-        type: "case-created",
-        after: {
-          reference: saved.reference,
-          status: "new",
-          channel,
-          awareAt: awareAt.toISOString(),
-          description: saved.description,
-          locations: saved.locations,
-          observations: saved.observations,
-          roomIds,
-          since: saved.since,
-          area: saved.area,
-          vulnerability,
-        },
-      });
-      const deliveries: (() => Promise<unknown>)[] = [];
-      const organisationName = await this.organisations.nameOf(property.organisationId, m);
-      if (tenantUserId !== null) {
-        const tenant = await this.users.person(tenantUserId, m);
-        deliveries.push(
-          await this.queueMail(m, saved, {
-            to: tenant.email,
-            template: "caseAcknowledgement",
-            data: {
-              name: tenant.name,
-              reference: saved.reference,
-              address: addressOf(property),
-              link: `${this.config.appUrl}/cases/${saved.id}`,
-              organisationName,
-              emergencyPhone: (await this.emergencyPhones?.emergencyPhoneOf(property.organisationId, m)) ?? null,
-            },
-          }),
-        );
-      }
-      if (saved.vulnerableHousehold) {
-        const reasons = [householdIncludes(vulnerability!)];
-        deliveries.push(...(await this.alertOfficers(m, saved, property, reasons)));
-      }
-      // Read back before commit: once committed, the report is answered 201 whatever happens next.
-      return { saved: await this.getForActor(actor, saved.id, m), deliveries };
-    });
+    const { saved, deliveries } = await inTransaction(this.dataSource, (m) =>
+      this.insertCase(m, actor, { property, tenantUserId, channel, awareAt, input, roomIds }),
+    );
     // The outbox rows are committed with the case; a failed send here is retried from the outbox,
     // and must not turn the committed report into an error.
     for (const deliver of deliveries) await deliver().catch(() => undefined);
     return saved;
+  }
+
+  /** The report's row, rooms, first event and e-mails, in the caller's transaction; the senders run after commit. */
+  private async insertCase(
+    m: EntityManager,
+    actor: Actor,
+    r: {
+      property: Property;
+      tenantUserId: number | null;
+      channel: Case["channel"];
+      awareAt: Date;
+      input: CaseReport | StaffCaseReport | SensorCaseInput;
+      roomIds: number[];
+      /** A sensor case: what the sensor saw, told to the tenant instead of the acknowledgement. */
+      sensorFindings?: string[];
+    },
+  ): Promise<{ saved: Case; deliveries: (() => Promise<unknown>)[] }> {
+    const { property, tenantUserId, channel, awareAt, input, roomIds, sensorFindings } = r;
+    const repo = m.getRepository(Case);
+    const vulnerability = input.vulnerability === undefined ? null : [...new Set(input.vulnerability)];
+    const row = repo.create({
+      organisationId: property.organisationId,
+      propertyId: property.id,
+      reporterUserId: actor.id,
+      tenantUserId,
+      channel,
+      awareAt,
+      description: input.description,
+      locations: input.locations,
+      observations: input.observations,
+      since: input.since ?? null,
+      area: input.area ?? null,
+      vulnerability,
+      vulnerableHousehold: (vulnerability?.length ?? 0) > 0,
+      equipment: input.equipment ?? null,
+      status: "new",
+      reference: null,
+      officersAlertedAt: null,
+      // The report's received time is the clock's, like its awareness date, not the column default.
+      createdAt: this.clock.now(),
+    });
+    const saved = await repo.save(row);
+    saved.reference = formatReference(awareAt, saved.id);
+    await repo.update(saved.id, { reference: saved.reference });
+    if (roomIds.length) {
+      await m.createQueryBuilder().relation(Case, "rooms").of(saved.id).add(roomIds);
+    }
+    // Another case at this home changes the others' recurrence.
+    await this.markStale(m, { propertyId: property.id });
+    await this.recordEvent(m, {
+      caseId: saved.id,
+      actorId: actor.id,
+      type: "case-created",
+      after: {
+        reference: saved.reference,
+        status: "new",
+        channel,
+        awareAt: awareAt.toISOString(),
+        description: saved.description,
+        locations: saved.locations,
+        observations: saved.observations,
+        roomIds,
+        since: saved.since,
+        area: saved.area,
+        vulnerability,
+      },
+    });
+    const deliveries: (() => Promise<unknown>)[] = [];
+    const organisationName = await this.organisations.nameOf(property.organisationId, m);
+    if (tenantUserId !== null) {
+      const tenant = await this.users.person(tenantUserId, m);
+      const data = {
+        name: tenant.name,
+        reference: saved.reference,
+        address: addressOf(property),
+        link: `${this.config.appUrl}/cases/${saved.id}`,
+        organisationName,
+        emergencyPhone: (await this.emergencyPhones?.emergencyPhoneOf(property.organisationId, m)) ?? null,
+      };
+      deliveries.push(
+        await (sensorFindings
+          ? this.queueMail(m, saved, {
+              to: tenant.email,
+              template: "sensorCaseNotice",
+              data: { ...data, findings: sensorFindings },
+            })
+          : this.queueMail(m, saved, { to: tenant.email, template: "caseAcknowledgement", data })),
+      );
+    }
+    if (saved.vulnerableHousehold) {
+      const reasons = [householdIncludes(vulnerability!)];
+      deliveries.push(...(await this.alertOfficers(m, saved, property, reasons)));
+    }
+    // Read back before commit: once committed, the report is answered 201 whatever happens next.
+    return { saved: await this.getForActor(actor, saved.id, m), deliveries };
+  }
+
+  /**
+   * A case the landlord opens itself from a sensor alert (channel "sensor"), in the caller's
+   * transaction (the sensor-watch module links its alerts in the same one). The landlord became aware
+   * when the alert was raised; the tenant living there is told in plain words what the sensor saw.
+   */
+  async openFromSensor(
+    m: EntityManager,
+    actor: Actor,
+    input: SensorCaseInput & { propertyId: number; awareAt: Date; findings: string[] },
+  ): Promise<{ saved: Case; deliveries: (() => Promise<unknown>)[] }> {
+    const property = await this.properties.getForStaff(actor, input.propertyId);
+    const tenantUserId = await this.tenancies.currentTenantOf(property.id);
+    const rooms = new Set((property.rooms ?? []).map((x) => x.id));
+    const roomIds = [...new Set(input.roomIds ?? [])].filter((id) => rooms.has(id));
+    return this.insertCase(m, actor, {
+      property,
+      tenantUserId,
+      channel: "sensor",
+      awareAt: input.awareAt,
+      input,
+      roomIds,
+      sensorFindings: input.findings,
+    });
   }
 
   /**

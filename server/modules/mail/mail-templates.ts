@@ -164,6 +164,38 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
+  /**
+   * To the tenant when the landlord opens a case from its sensors' readings: what the sensor saw, that
+   * the landlord will be in touch, and the usual cautions. It never suggests the household caused it.
+   */
+  sensorCaseNotice(d: {
+    name: string;
+    reference: string;
+    address: string;
+    /** Plain sentences about what the sensor saw, e.g. "The sensor in the Bedroom showed …". */
+    findings: string[];
+    link: string;
+    organisationName: string;
+    emergencyPhone?: string | null;
+  }): RenderedMail {
+    return {
+      subject: `We are looking into damp at your home (${d.reference})`,
+      text: [
+        `Hello ${d.name},`,
+        "",
+        `The sensors ${d.organisationName} fitted at ${d.address} show conditions in which damp and mould can start, so we have opened a case to look into it. You do not need to do anything to start it, and nothing here says you have done anything wrong: damp like this usually comes from how a home is built, heated or ventilated, and it is ours to find the cause and put it right.`,
+        "",
+        "What the sensor saw:",
+        ...d.findings.map((f) => `- ${f}`),
+        "",
+        `What happens next: an officer will contact you to arrange a visit. Your reference is ${d.reference}. You can follow the case, add photos and tell us anything you have noticed at:`,
+        d.link,
+        "",
+        "Until then: if you see mould, do not scrape it dry or brush it, as that spreads spores. Anyone with asthma, allergies or a weak immune system, and babies, should keep away from it, and if anyone's breathing gets worse, speak to your GP or pharmacist.",
+        `If water is coming through a ceiling near lights or sockets, ${emergencyLine(d.organisationName, d.emergencyPhone)}`,
+      ].join("\n"),
+    };
+  },
   caseAlert(d: { reference: string; address: string; reasons: string[]; link: string }): RenderedMail {
     return {
       subject: `Priority damp report ${d.reference}: ${d.address}`,

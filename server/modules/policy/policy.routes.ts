@@ -1,9 +1,9 @@
 import { Router } from "express";
-import { policyResponse } from "../../../src/lib/contracts/policy.js";
+import { policyResponse, sensorAlertPolicyResponse } from "../../../src/lib/contracts/policy.js";
 import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
-import { complaintPolicySchema, deadlinePolicySchema } from "./policy.schemas.js";
+import { complaintPolicySchema, deadlinePolicySchema, sensorAlertPolicySchema } from "./policy.schemas.js";
 import type { ComplaintPolicyView, PolicyService } from "./policy.service.js";
 import { complaintPolicyResponse } from "../../../src/lib/contracts/complaints.js";
 import { COMPLAINT_LETTER_KINDS, COMPLAINT_LETTER_PLACEHOLDERS } from "../../../src/lib/domain/complaint-letters.js";
@@ -36,6 +36,17 @@ export function createPolicyRouter({ policy }: { policy: PolicyService }): Route
   });
   router.delete("/complaints", requireRole("admin"), async (req, res) => {
     res.json(toComplaintPolicyDto(await policy.resetComplaintPolicy(actorOf(req))));
+  });
+  // Sensor alerts: the rules each room's live figures are judged by (our own defaults).
+  router.get("/sensor-alerts", requireRole("officer", "admin"), async (req, res) => {
+    res.json(shaped(sensorAlertPolicyResponse, await policy.sensorAlertPolicyFor(actorOf(req).organisationId)));
+  });
+  router.put("/sensor-alerts", requireRole("admin"), async (req, res) => {
+    const input = parse(sensorAlertPolicySchema, req.body);
+    res.json(shaped(sensorAlertPolicyResponse, await policy.updateSensorAlertPolicy(actorOf(req), input)));
+  });
+  router.delete("/sensor-alerts", requireRole("admin"), async (req, res) => {
+    res.json(shaped(sensorAlertPolicyResponse, await policy.resetSensorAlertPolicy(actorOf(req))));
   });
   return router;
 }

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { wholeNumberOf } from "../../../src/lib/schemas/quantity.js";
 import { emergencyPhoneSchema } from "../../../src/lib/schemas/policy.js";
+import { SENSOR_ALERT_BOUNDS } from "../../../src/lib/domain/sensor-alerts.js";
 import {
   COMPLAINT_LETTER_KINDS,
   missingPlaceholders,
@@ -79,3 +80,19 @@ export const complaintPolicySchema = z
   })
   .strict();
 export type ComplaintPolicyInput = z.infer<typeof complaintPolicySchema>;
+
+const b = SENSOR_ALERT_BOUNDS;
+// Our own sanity bounds (SENSOR_ALERT_BOUNDS); the defaults are our own too (DEFAULT_SENSOR_ALERT_SETTINGS).
+export const sensorAlertPolicySchema = z
+  .object({
+    mouldIndexAtLeast: z
+      .number({ error: "mouldIndexAtLeast must be a number." })
+      .min(b.mouldIndexAtLeast.min, `mouldIndexAtLeast must be at least ${b.mouldIndexAtLeast.min}.`)
+      .max(b.mouldIndexAtLeast.max, `mouldIndexAtLeast must be at most ${b.mouldIndexAtLeast.max}.`)
+      .refine((v) => Number.isInteger(v * 10), "mouldIndexAtLeast takes one decimal place."),
+    hoursAt80In7Days: wholeNumberOf("hoursAt80In7Days", b.hoursAt80In7Days.min, b.hoursAt80In7Days.max, hours),
+    condensingDaysIn7Days: wholeNumberOf("condensingDaysIn7Days", b.condensingDaysIn7Days.min, b.condensingDaysIn7Days.max, days),
+    cooldownDays: wholeNumberOf("cooldownDays", b.cooldownDays.min, b.cooldownDays.max, days),
+  })
+  .strict();
+export type SensorAlertPolicyInput = z.infer<typeof sensorAlertPolicySchema>;

@@ -5,7 +5,9 @@ import type { Actor } from "../auth/actor.js";
 import type { CaseService } from "../cases/case.service.js";
 import { DeadlinePolicyRecord } from "./deadline-policy.entity.js";
 import { ComplaintLetterTemplateRecord, ComplaintPolicyRecord } from "./complaint-policy.entity.js";
-import type { ComplaintPolicyInput } from "./policy.schemas.js";
+import type { ComplaintPolicyInput, SensorAlertPolicyInput } from "./policy.schemas.js";
+import { SensorAlertPolicyRecord } from "./sensor-alert-policy.entity.js";
+import { DEFAULT_SENSOR_ALERT_SETTINGS, type SensorAlertSettings } from "../../../src/lib/domain/sensor-alerts.js";
 import { COMPLAINT_HANDLING_DEFAULT_POLICY, type ComplaintPolicy } from "../../../src/lib/domain/complaint-clocks.js";
 import {
   COMPLAINT_LETTER_KINDS,
@@ -31,6 +33,11 @@ export interface ComplaintPolicyView extends ComplaintPolicy {
   escalationRoute: string;
   letters: Record<ComplaintLetterKind, ComplaintLetterTemplate & { source: "default" | "landlord" }>;
   /** "landlord" when the timeframes or escalation route are the landlord's own. */
+  source: "default" | "landlord";
+}
+
+/** A landlord's sensor alert rules, or our own defaults. */
+export interface SensorAlertPolicyView extends SensorAlertSettings {
   source: "default" | "landlord";
 }
 
@@ -157,5 +164,26 @@ export class PolicyService implements EmergencyPhoneSource {
       await m.getRepository(ComplaintLetterTemplateRecord).delete({ organisationId: actor.organisationId });
     });
     return this.complaintPolicyFor(actor.organisationId);
+  }
+
+  /** The landlord's sensor alert rules, or our own defaults (DEFAULT_SENSOR_ALERT_SETTINGS) when none are set. */
+  async sensorAlertPolicyFor(organisationId: number): Promise<SensorAlertPolicyView> {
+    const row = await this.dataSource.getRepository(SensorAlertPolicyRecord).findOneBy({ organisationId });
+    if (!row) return { ...DEFAULT_SENSOR_ALERT_SETTINGS, source: "default" };
+    const { mouldIndexAtLeast, hoursAt80In7Days, condensingDaysIn7Days, cooldownDays } = row;
+    return { mouldIndexAtLeast, hoursAt80In7Days, condensingDaysIn7Days, cooldownDays, source: "landlord" };
+  }
+
+  /** Sets the landlord's sensor alert rules; they apply to the next evaluation of each room (alerts already raised stay). */
+  async updateSensorAlertPolicy(actor: Actor, input: SensorAlertPolicyInput): Promise<SensorAlertPolicyView> {
+    await this.dataSource
+      .getRepository(SensorAlertPolicyRecord)
+      .save({ organisationId: actor.organisationId, ...input, updatedById: actor.id });
+    return this.sensorAlertPolicyFor(actor.organisationId);
+  }
+
+  async resetSensorAlertPolicy(actor: Actor): Promise<SensorAlertPolicyView> {
+    await this.dataSource.getRepository(SensorAlertPolicyRecord).delete({ organisationId: actor.organisationId });
+    return this.sensorAlertPolicyFor(actor.organisationId);
   }
 }

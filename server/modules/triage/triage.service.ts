@@ -15,6 +15,30 @@ import type { InspectionService } from "../inspections/inspection.service.js";
 import type { PolicyService } from "../policy/policy.service.js";
 import { OPEN_STATUSES } from "../cases/case-queue.schemas.js";
 import type { Clock } from "../../lib/clock.js";
+import { SURFACE_STATES, type SurfaceState } from "../../../src/lib/domain/surface.js";
+
+/** The sensors' evidence on a case (SensorWatchService, wired in createServices): alerts linked to it. */
+export interface SensorEvidence {
+  riskOfCase(caseId: number): Promise<{ state: SurfaceState | null; mouldIndex: number | null }>;
+}
+
+/** The worse of the readings' and the sensors' judgements: the wetter state and the higher mould index. */
+function worseRisk(
+  a: { state: SurfaceState | null; mouldIndex: number | null },
+  b: { state: SurfaceState | null; mouldIndex: number | null },
+): { state: SurfaceState | null; mouldIndex: number | null } {
+  const state =
+    a.state === null
+      ? b.state
+      : b.state === null
+        ? a.state
+        : SURFACE_STATES.indexOf(a.state) >= SURFACE_STATES.indexOf(b.state)
+          ? a.state
+          : b.state;
+  const mouldIndex =
+    a.mouldIndex === null ? b.mouldIndex : b.mouldIndex === null ? a.mouldIndex : Math.max(a.mouldIndex, b.mouldIndex);
+  return { state, mouldIndex };
+}
 
 const HOUR_MS = 3_600_000;
 const YEAR_MS = 365 * 24 * HOUR_MS;
@@ -65,6 +89,12 @@ export class TriageService {
     private readonly assessments: AssessmentService,
     private readonly clock: Clock,
   ) {}
+
+  private sensors: SensorEvidence | null = null;
+  /** Sensor alerts on a case count with its readings (the sensor-watch module; it depends on triage, not the reverse). */
+  useSensorEvidence(sensors: SensorEvidence): void {
+    this.sensors = sensors;
+  }
 
   /**
    * Works one case's figures out now and stores them; returns the priority with its parts.
@@ -124,14 +154,16 @@ export class TriageService {
   }
 
   private async factsFor(c: Case, now: Date) {
-    const [policy, milestones, risk, latestAssessment, recurrence, worse] = await Promise.all([
+    const [policy, milestones, readingsRisk, sensorRisk, latestAssessment, recurrence, worse] = await Promise.all([
       this.policy.forOrganisation(c.organisationId),
       this.inspections.milestones(c.id),
       this.evaluation.riskOf(c),
+      this.sensors ? this.sensors.riskOfCase(c.id) : { state: null, mouldIndex: null },
       this.assessments.latest(c.id),
       this.cases.hasOtherCaseNear(c, YEAR_MS),
       this.cases.latestEvent(c.id, "tenant-got-worse"),
     ]);
+    const risk = worseRisk(readingsRisk, sensorRisk);
     const { source: _source, ...timeframes } = policy;
     const deadlines = computeDeadlines({
       hazardClass: c.hazardClass,

@@ -38,7 +38,8 @@ import {
 } from "./integrations.js";
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse, photoUploadResponse } from "./photos.js";
-import { policyResponse } from "./policy.js";
+import { policyResponse, sensorAlertPolicyResponse } from "./policy.js";
+import { alertsDismissedResponse, homesAtRiskResponse, proactiveCaseResponse } from "./sensor-watch.js";
 import {
   estatesResponse,
   homeCasesResponse,
@@ -344,6 +345,26 @@ export const ENDPOINTS: readonly Endpoint[] = [
     "Go back to the default complaint timeframes and letters",
     complaintPolicyResponse,
   ),
+
+  e(
+    "GET",
+    "/api/policy/sensor-alerts",
+    OFFICERS,
+    "The landlord's sensor alert rules (our defaults where not set)",
+    sensorAlertPolicyResponse,
+  ),
+  e("PUT", "/api/policy/sensor-alerts", ["admin"], "Set the landlord's sensor alert rules", sensorAlertPolicyResponse),
+  e("DELETE", "/api/policy/sensor-alerts", ["admin"], "Go back to our default sensor alert rules", sensorAlertPolicyResponse),
+  e("GET", "/api/sensor-alerts", OFFICERS, "Homes whose sensors raised alerts and that have no open case", homesAtRiskResponse),
+  e(
+    "POST",
+    "/api/sensor-alerts/:id/proactive-case",
+    OFFICERS,
+    "Open a case (channel sensor) from the alert's home and tell the tenant; the same case again on a second click",
+    proactiveCaseResponse,
+    201,
+  ),
+  e("POST", "/api/sensor-alerts/:id/dismiss", OFFICERS, "Dismiss the home's open alerts with a reason", alertsDismissedResponse),
 
   e("GET", "/api/photos/:id", "signed-in", "A photo (display size)", { mediaType: "image/jpeg" }),
   e("GET", "/api/photos/:id/thumbnail", "signed-in", "A photo's thumbnail", { mediaType: "image/jpeg" }),

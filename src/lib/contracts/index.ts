@@ -26,3 +26,4 @@ export * from "./endpoints.js";
 export * from "./evidence-pack.js";
 export * from "./tenancy-import.js";
 export * from "./sensors.js";
+export * from "./sensor-watch.js";

@@ -14,3 +14,14 @@ export const policyResponse = z.object({
   source: z.enum(["default", "landlord"]),
 });
 export type PolicyResponse = z.infer<typeof policyResponse>;
+
+/** GET/PUT/DELETE /api/policy/sensor-alerts: the rules a room's live sensor figures are judged by. */
+export const sensorAlertPolicyResponse = z.object({
+  mouldIndexAtLeast: z.number(),
+  hoursAt80In7Days: z.number().int(),
+  condensingDaysIn7Days: z.number().int(),
+  cooldownDays: z.number().int(),
+  /** "default": our own defaults (no standard sets them); "landlord": the landlord's own. */
+  source: z.enum(["default", "landlord"]),
+});
+export type SensorAlertPolicyResponse = z.infer<typeof sensorAlertPolicyResponse>;

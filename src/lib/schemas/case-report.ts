@@ -6,7 +6,8 @@ import type { CaseStatus } from "../domain/case-workflow.js";
 export { CASE_STATUSES } from "../domain/case-workflow.js";
 export type { CaseStatus };
 
-export const CHANNELS = ["tenant-online", "phone", "letter", "email", "visit"] as const;
+/** "sensor": the landlord opened the case from its own sensors' alert (never chosen by a tenant or in the staff form). */
+export const CHANNELS = ["tenant-online", "phone", "letter", "email", "visit", "sensor"] as const;
 export const STAFF_CHANNELS = ["phone", "letter", "email", "visit"] as const;
 export const LOCATIONS = [
   "window",

@@ -269,6 +269,26 @@ export function describeEvent(
         title: `${who || "Staff"} said why "${deadlineStageLabels[str(after.stage) ?? ""] ?? str(after.stage) ?? "a stage"}" was missed.`,
         detail: str(after.reason),
       };
+    case "sensor-alert": {
+      // Staff only: the tenant's timeline never carries it (the server leaves it out).
+      const room = str(after.roomName) ?? "A room";
+      const what =
+        after.rule === "condensing-days"
+          ? `condensation on ${num(after.condensingDays)} of the last 7 days`
+          : after.rule === "hours-at-80"
+            ? `${num(after.hoursAt80)} hours at 80 % surface humidity or more in 7 days`
+            : `mould growth index ${num(after.mouldIndex)}`;
+      return {
+        title: `Sensor alert in ${room}: ${what}.`,
+        detail: `Mould growth index ${num(after.mouldIndex)}, ${num(after.hoursAt80)} h at ≥ 80 %, ${num(after.hoursCondensing)} h condensing, surface ${
+          after.basis === "measured"
+            ? "measured"
+            : after.basis === "estimated"
+              ? "estimated from the outdoor temperature"
+              : "not known (air humidity only)"
+        }.`,
+      };
+    }
     default:
       return { title: `${humanise(event.type)}${who ? `, by ${who}` : ""}.` };
   }

@@ -124,6 +124,7 @@ const channelWords: Record<string, string> = {
   visit: "Visit",
   letter: "Letter",
   email: "E-mail",
+  sensor: "Opened from a sensor alert",
 };
 
 /** The home's cases, newest first, each opening its workspace. */
