@@ -1,5 +1,6 @@
 // The sensor simulator against the real app and MariaDB: it fits its sensors through the registry,
-// sends a day of backfill over the HTTP ingest, and every reading stored is exactly the generator's;
+// sends a week of backfill over the HTTP ingest, every reading stored is exactly the generator's, and
+// the room whose condensation story unfolds over that week has its alert (as the demo's Alerts need);
 // a second run finds its sensors again, issues new secrets (the old ones stop working) and keeps its
 // stories' dates, and what it sends again is counted as duplicates.
 import type { Server } from "node:http";
@@ -31,7 +32,7 @@ beforeAll(async () => {
     intervalS: 900,
     speed: 1,
     transport: "http",
-    backfillMs: 86_400_000,
+    backfillMs: 7 * 86_400_000,
     leadMs: 0,
     seed: 7,
     landlord: landlord.org.name,
@@ -63,7 +64,7 @@ const rowsOf = async (sensorId: number) =>
   }[];
 
 describe("the sensor simulator", () => {
-  it("fits sensors through the registry and every reading it sends over HTTP is stored as generated", async () => {
+  it("fits sensors through the registry, every reading it sends over HTTP is stored as generated, and the story raises its alert", async () => {
     const first = await startSimulation(t.ctx, options);
     const tally = await first.done;
     // Three homes: the first two carry the condensation and leak stories (two sensors each), the third
@@ -76,9 +77,16 @@ describe("the sensor simulator", () => {
     let stored = 0;
     for (const device of first.devices) {
       const rows = await rowsOf(device.sensorId);
-      // A day at 15 minutes, and perhaps the live second's reading.
-      expect(rows.length).toBeGreaterThanOrEqual(96);
-      expect(rows.length).toBeLessThanOrEqual(97);
+      const script = device.series.script;
+      if (script.kind === "dead") {
+        // Dead on day 5 of its story: readings until then, none after.
+        expect(rows.length).toBeGreaterThan(96);
+        expect(new Date(rows.at(-1)!.taken_at).getTime()).toBeLessThan(script.fromMs);
+      } else {
+        // A week at 15 minutes, and perhaps the live second's reading.
+        expect(rows.length).toBeGreaterThanOrEqual(7 * 96);
+        expect(rows.length).toBeLessThanOrEqual(7 * 96 + 1);
+      }
       for (const row of rows) {
         const expected = simulatedReading(options.seed, device.series, new Date(row.taken_at).getTime())!;
         expect(Number(row.air_temperature_c)).toBe(expected.airTemperatureC);
@@ -94,13 +102,26 @@ describe("the sensor simulator", () => {
     expect(tally.sent).toBe(stored);
     expect(lines.some((l) => l.startsWith("Backfill "))).toBe(true);
 
+    await t.ctx.services.sensorWatch.drain();
+    const alerted = (await t.ctx.dataSource.query("SELECT DISTINCT room_id AS roomId FROM sensor_alerts WHERE sensor_id IN (?)", [
+      first.devices.map((d) => d.sensorId),
+    ])) as { roomId: number }[];
+    const condensing = first.devices.find((d) => d.series.script.kind === "developing-condensation")!;
+    const condensingRoom = (
+      (await t.ctx.dataSource.query("SELECT room_id AS roomId FROM sensors WHERE id = ?", [condensing.sensorId])) as {
+        roomId: number;
+      }[]
+    )[0]!.roomId;
+    // Only that room: the ordinary rooms' series stay clear of the alert rules.
+    expect(alerted.map((a) => Number(a.roomId))).toEqual([Number(condensingRoom)]);
+
     // A second run: the same sensors, new secrets, the same stories; the re-sent day is all duplicates.
     const second = await startSimulation(t.ctx, options);
     const again = await second.done;
     expect(second.devices.map((d) => d.sensorId)).toEqual(first.devices.map((d) => d.sensorId));
     expect(second.devices.map((d) => d.series.script)).toEqual(first.devices.map((d) => d.series.script));
     expect(again.refused).toBe(0);
-    expect(again.duplicates).toBeGreaterThanOrEqual(7 * 95);
+    expect(again.duplicates).toBeGreaterThanOrEqual(stored - 7);
     const reading = { readings: [{ takenAt: testClock.now().toISOString(), airTemperatureC: 20, relativeHumidityPct: 50 }] };
     await request(t.app)
       .post("/api/sensor-ingest/readings")
