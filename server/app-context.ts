@@ -42,6 +42,7 @@ import { WebhookService } from "./modules/webhooks/webhook.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
+import { MosquittoBrokerFiles } from "./modules/sensors/mqtt/broker-files.js";
 import { SensorService } from "./modules/sensors/sensor.service.js";
 import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
 import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
@@ -80,6 +81,8 @@ export interface Services {
   sensors: SensorService;
   sensorIngest: SensorIngestService;
   sensorWatch: SensorWatchService;
+  /** Keeps mosquitto's password file and ACL in step with the sensor registry (the sensors' BrokerCredentials). */
+  mqttBroker: MosquittoBrokerFiles;
 }
 
 export interface AppContext {
@@ -196,7 +199,16 @@ export function createServices(
   const sensors = new SensorService(dataSource, properties, clock, logger);
   const sensorIngest = new SensorIngestService(dataSource, clock, logger);
   sensorIngest.addListener(sensorWatch);
+  const { brokerDir, username, password } = config.mqtt;
+  const mqttBroker = new MosquittoBrokerFiles(
+    dataSource,
+    brokerDir && password ? { dir: brokerDir, username, password } : null,
+    logger,
+    clock,
+  );
+  sensors.useBroker(mqttBroker);
   return {
+    mqttBroker,
     assessments,
     inspections,
     policy,

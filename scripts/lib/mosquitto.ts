@@ -1,13 +1,13 @@
 // A private mosquitto (Debian's, 2.0) on 127.0.0.1 with its files in one folder: used by `npm start`
 // and `npm run dev` (.data/mosquitto), the tests (a temporary folder), the simulator and the bench.
 // Devices and the app sign in with a user name and password (no anonymous access); the ACL lets each
-// device publish only to its own topic. The app rewrites the password file and ACL and sends SIGHUP
+// device publish only to its own topic (one `pattern` rule; see brokerAcl). The app rewrites the password file and ACL and sends SIGHUP
 // (server/modules/sensors/mqtt/broker-files.ts); this file writes the first ones and runs the broker.
 import { spawn } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { chmodSync, chownSync, closeSync, existsSync, mkdirSync, openSync, readFileSync, writeFileSync } from "node:fs";
 import { connect } from "node:net";
-import { appAclBlock, BROKER_FILE_MODE, brokerPaths, brokerPid } from "../../server/modules/sensors/mqtt/broker-files.js";
+import { BROKER_FILE_MODE, brokerAcl, brokerPaths, brokerPid } from "../../server/modules/sensors/mqtt/broker-files.js";
 import { mosquittoPasswordHash } from "../../server/modules/sensors/credentials.js";
 
 export interface MosquittoOptions {
@@ -58,7 +58,7 @@ function prepareFolder(dir: string, appUsername: string): { password: string } {
   const password = readFileSync(files.appPassword, "utf8").trim();
   // Until the app rewrites them: the app alone.
   writeFileSync(files.passwords, `${appUsername}:${mosquittoPasswordHash(password)}\n`, { mode: BROKER_FILE_MODE });
-  writeFileSync(files.acl, appAclBlock(appUsername), { mode: BROKER_FILE_MODE });
+  writeFileSync(files.acl, brokerAcl(appUsername), { mode: BROKER_FILE_MODE });
   return { password };
 }
 

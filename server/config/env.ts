@@ -1,7 +1,7 @@
 // The only reader of process.env. Everything else imports the checked Config.
 import { existsSync } from "node:fs";
 import { isIP } from "node:net";
-import { availableParallelism } from "node:os";
+import { availableParallelism, hostname } from "node:os";
 import path from "node:path";
 import { fileURLToPath } from "node:url";
 import { z } from "zod";
@@ -105,10 +105,29 @@ const schema = z
     DB_STALL_CHECK_MS: z.coerce.number().int().min(50).default(400),
     DB_QUERY_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),
     DB_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(100).default(10_000),
+    MQTT_PORT: port.default(11883),
+    MQTT_URL: z
+      .string()
+      .regex(/^mqtts?:\/\//, "MQTT_URL must start with mqtt:// or mqtts://")
+      .optional(),
+    MQTT_USERNAME: z.string().min(1).default("dewline-app"),
+    MQTT_PASSWORD: z.string().min(1).optional(),
+    MQTT_CLIENT_ID: z.string().min(1).max(64).optional(),
+    MQTT_BROKER_DIR: z.string().min(1).optional(),
+    MQTT_BATCH_MS: z.coerce.number().int().min(0).max(10_000).default(250),
+    MQTT_BATCH_READINGS: z.coerce.number().int().min(1).max(50_000).default(2000),
+    MQTT_IDENTITY_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
   })
   .superRefine((env, ctx) => {
     const trust = parseTrustProxy(env.TRUST_PROXY);
     if ("error" in trust) ctx.addIssue({ code: "custom", path: ["TRUST_PROXY"], message: trust.error });
+    if (env.MQTT_BROKER_DIR && !env.MQTT_PASSWORD) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["MQTT_PASSWORD"],
+        message: "MQTT_PASSWORD must be set with MQTT_BROKER_DIR (the app's own line in the broker's password file)",
+      });
+    }
     if (env.NODE_ENV === "production") {
       for (const key of ["DB_PASSWORD", "SESSION_SECRET", "APP_URL"] as const) {
         if (!env[key]) ctx.addIssue({ code: "custom", path: [key], message: `${key} must be set in production` });
@@ -156,6 +175,26 @@ export interface Config {
   calculator: { readingsPerMinute: number; maxAnonymousReadings: number };
   /** The integration API (/api/v1): requests each API key may make a minute. */
   apiKeys: { requestsPerMinute: number };
+  mqtt: MqttConfig;
+}
+
+/** Sensor readings over MQTT (server/modules/sensors/mqtt/). */
+export interface MqttConfig {
+  /** The port npm start and npm run dev run their mosquitto on (127.0.0.1). */
+  port: number;
+  url: string;
+  username: string;
+  /** The app's MQTT password; without it the app does not subscribe (readings over HTTP still work). */
+  password: string | null;
+  /** The app's client id: its broker session (and the readings queued for it) outlives a restart. */
+  clientId: string;
+  /** The broker's folder (password file, ACL, pid file) this app keeps in step with the registry; null: none. */
+  brokerDir: string | null;
+  /** Readings are gathered per sensor for at most `batchMs` or `batchReadings` before one ingest. */
+  batchMs: number;
+  batchReadings: number;
+  /** How long a topic's sensor, once looked up, is trusted (a revoked sensor is refused after this at most). */
+  identityCacheMs: number;
 }
 
 /**
@@ -239,5 +278,16 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       maxAnonymousReadings: e.CALCULATOR_MAX_ANONYMOUS_READINGS,
     },
     apiKeys: { requestsPerMinute: e.API_KEY_REQUESTS_PER_MINUTE },
+    mqtt: {
+      port: e.MQTT_PORT,
+      url: e.MQTT_URL ?? `mqtt://127.0.0.1:${e.MQTT_PORT}`,
+      username: e.MQTT_USERNAME,
+      password: e.MQTT_PASSWORD ?? null,
+      clientId: e.MQTT_CLIENT_ID ?? `dewline-${hostname()}`.slice(0, 64),
+      brokerDir: e.MQTT_BROKER_DIR ?? null,
+      batchMs: e.MQTT_BATCH_MS,
+      batchReadings: e.MQTT_BATCH_READINGS,
+      identityCacheMs: e.MQTT_IDENTITY_CACHE_MS,
+    },
   };
 }
