@@ -412,8 +412,7 @@ function optionsFromArgs(config: Config, argv: string[]): SimulationOptions {
     seed: Number(values.seed),
     landlord: values.landlord,
     appUrl: values["app-url"] ?? `http://${local}:${config.port}`,
-    // The broker npm start runs (MQTT_URL / MQTT_PORT in the configuration once the MQTT settings are in).
-    mqttUrl: values["mqtt-url"] ?? (config as Partial<Record<"mqtt", { url: string }>>).mqtt?.url ?? "mqtt://127.0.0.1:11883",
+    mqttUrl: values["mqtt-url"] ?? config.mqtt.url,
     ...(values.duration !== undefined ? { durationMs: parseDuration(values.duration) } : {}),
     verbose: values.verbose,
     log: (line) => console.log(line),

@@ -3,11 +3,18 @@
 // the room whose condensation story unfolds over that week has its alert (as the demo's Alerts need);
 // a second run finds its sensors again, issues new secrets (the old ones stop working) and keeps its
 // stories' dates, and what it sends again is counted as duplicates.
+import { mkdtempSync, rmSync } from "node:fs";
 import type { Server } from "node:http";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { pino } from "pino";
 import request from "supertest";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { freePort } from "../../scripts/lib/mariadb.js";
+import { startMosquitto, stopMosquitto, type Mosquitto } from "../../scripts/lib/mosquitto.js";
 import { simulatedReading } from "../../scripts/lib/sensor-series.js";
 import { startSimulation, type SimulationOptions } from "../../scripts/simulate-sensors.js";
+import { SensorSubscriber } from "../../server/modules/sensors/mqtt/subscriber.js";
 import { makeLandlord, makeProperty } from "../support/factories.js";
 import { testClock } from "../support/test-clock.js";
 import { createTestApp, type TestApp } from "../support/test-app.js";
@@ -51,8 +58,8 @@ afterAll(async () => {
   await t?.close();
 });
 
-const rowsOf = async (sensorId: number) =>
-  (await t.ctx.dataSource.query(
+const rowsOf = async (sensorId: number, on: TestApp = t) =>
+  (await on.ctx.dataSource.query(
     "SELECT taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, battery_pct FROM sensor_readings WHERE sensor_id = ? ORDER BY taken_at",
     [sensorId],
   )) as {
@@ -128,5 +135,67 @@ describe("the sensor simulator", () => {
       .set("Authorization", `Bearer ${first.devices[0]!.secret}`)
       .send(reading)
       .expect(401);
+  });
+});
+
+describe("the sensor simulator over MQTT", () => {
+  let dir: string;
+  let broker: Mosquitto;
+  let m: TestApp;
+  let subscriber: SensorSubscriber;
+  let landlordName: string;
+
+  beforeAll(async () => {
+    dir = mkdtempSync(path.join(tmpdir(), "dewline-test-simulator-"));
+    broker = await startMosquitto({ dir, port: await freePort() });
+    // The registry keeps this broker's password file in step, so each new device may sign in.
+    m = await createTestApp({
+      MQTT_URL: broker.url,
+      MQTT_USERNAME: broker.app.username,
+      MQTT_PASSWORD: broker.app.password,
+      MQTT_BROKER_DIR: dir,
+    });
+    const cfg = m.ctx.config.mqtt;
+    subscriber = new SensorSubscriber(
+      m.ctx.services.sensorIngest,
+      { ...cfg, clientId: `simulator-test-${process.pid}`, password: broker.app.password },
+      pino({ level: "silent" }),
+    );
+    subscriber.start();
+    const landlord = await makeLandlord(m.ctx.dataSource);
+    landlordName = landlord.org.name;
+  });
+
+  afterAll(async () => {
+    await subscriber?.stop();
+    await m?.close();
+    if (dir) await stopMosquitto(dir);
+    if (dir) rmSync(dir, { recursive: true, force: true });
+  });
+
+  it("publishes each device's readings with its own MQTT credentials, and the app stores them as generated", async () => {
+    const sim = await startSimulation(m.ctx, {
+      ...options,
+      transport: "mqtt",
+      homes: 1,
+      landlord: landlordName,
+      mqttUrl: broker.url,
+    });
+    const tally = await sim.done;
+    expect(sim.devices).toHaveLength(2);
+    expect(tally).toMatchObject({ rejected: 0 });
+    // Stored by the app's subscriber as the messages arrive: wait for them.
+    for (const device of sim.devices) {
+      await expect
+        .poll(async () => (await rowsOf(device.sensorId, m)).length, { timeout: 30_000 })
+        .toBeGreaterThanOrEqual(7 * 96);
+      const rows = await rowsOf(device.sensorId, m);
+      for (const row of rows) {
+        const expected = simulatedReading(options.seed, device.series, new Date(row.taken_at).getTime())!;
+        expect(Number(row.relative_humidity_pct)).toBe(expected.relativeHumidityPct);
+        expect(Number(row.air_temperature_c)).toBe(expected.airTemperatureC);
+      }
+    }
+    expect(subscriber.counts).toMatchObject({ refused: 0, badPayloads: 0, unknownSensors: 0, failedReadings: 0 });
   });
 });
