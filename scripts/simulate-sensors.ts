@@ -208,23 +208,38 @@ async function postBatch(options: SimulationOptions, device: SimulatedDevice, re
   }
 }
 
-/** One MQTT connection per device, signed in as the device (MQTT 5, so a refused publish is reported). */
+/**
+ * One MQTT connection per device, signed in as the device (MQTT 5, so a refused publish is reported).
+ * A device whose connection is refused, or finds no broker, sends over HTTP instead (said once each).
+ */
 async function connectDevices(options: SimulationOptions, devices: SimulatedDevice[]): Promise<Map<number, MqttClient>> {
   const clients = new Map<number, MqttClient>();
   const mqttDevices = devices.filter((d) => d.transport === "mqtt");
   for (let i = 0; i < mqttDevices.length; i += 50) {
     await Promise.all(
       mqttDevices.slice(i, i + 50).map(async (d) => {
-        const client = await mqtt.connectAsync(options.mqttUrl, {
-          username: d.mqttUsername,
-          password: d.secret,
-          clientId: `sim-${d.mqttUsername}`,
-          protocolVersion: 5,
-          reconnectPeriod: 5000,
-          connectTimeout: 10_000,
-        });
-        client.on("error", (error) => options.log(`${d.serial} mqtt: ${error.message}`));
-        clients.set(d.sensorId, client);
+        try {
+          const client = await mqtt.connectAsync(
+            options.mqttUrl,
+            {
+              username: d.mqttUsername,
+              password: d.secret,
+              clientId: `sim-${d.mqttUsername}`,
+              protocolVersion: 5,
+              reconnectPeriod: 5000,
+              connectTimeout: 10_000,
+            },
+            // Fail at once when there is no broker (rather than retrying forever before the first connection).
+            false,
+          );
+          client.on("error", (error) => options.log(`${d.serial} mqtt: ${error.message}`));
+          clients.set(d.sensorId, client);
+        } catch (error) {
+          d.transport = "http";
+          options.log(
+            `${d.serial} mqtt: could not connect to ${options.mqttUrl} (${error instanceof Error ? error.message : String(error)}); sending over HTTP instead.`,
+          );
+        }
       }),
     );
   }

@@ -138,6 +138,19 @@ describe("the sensor simulator", () => {
   });
 });
 
+describe("the sensor simulator without a broker", () => {
+  it("sends an MQTT device's readings over HTTP instead, and says so", async () => {
+    lines.length = 0;
+    const sim = await startSimulation(t.ctx, { ...options, transport: "mqtt", homes: 1, backfillMs: 3_600_000 });
+    const tally = await sim.done;
+    expect(sim.devices.map((d) => d.transport)).toEqual(["http", "http"]);
+    expect(lines.filter((l) => l.includes("sending over HTTP instead"))).toHaveLength(2);
+    expect(tally.sent).toBeGreaterThan(0);
+    expect(tally).toMatchObject({ refused: 0, rejected: 0 });
+    expect(tally.stored + tally.duplicates).toBe(tally.sent);
+  });
+});
+
 describe("the sensor simulator over MQTT", () => {
   let dir: string;
   let broker: Mosquitto;
