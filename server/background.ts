@@ -7,10 +7,12 @@ import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.j
 import { startInvitationBatches } from "./modules/auth/invitation-batch.ticker.js";
 import { startBoardReports } from "./modules/board-report/board-report.scheduler.js";
 import { startSensorWatchSweep } from "./modules/sensor-watch/sensor-watch.sweeper.js";
+import { startMqttIngest } from "./modules/sensors/mqtt/mqtt-ingest.js";
 
 /**
  * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
- * reminders, the release of queued invitations (tenancy imports) and the monthly board reports;
+ * reminders, the release of queued invitations (tenancy imports), the monthly board reports and readings
+ * over MQTT (the subscriber, and the broker's files brought in step with the registry);
  * returns a function that stops them and resolves once any job already running has finished (so
  * shutdown can close the database after it, not under it).
  */
@@ -28,8 +30,10 @@ export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" 
   const stopBoardReports = startBoardReports(ctx.services.boardReports, ctx.logger);
   // Rooms whose sensor figures are behind their readings (a crash or restart mid-evaluation) are worked out again.
   const stopSensorWatch = startSensorWatchSweep(ctx.services.sensorWatch, ctx.logger);
+  const stopMqtt = startMqttIngest(ctx.services.sensorIngest, ctx.services.mqttBroker, ctx.config.mqtt, ctx.logger);
   return async () => {
     await Promise.all([
+      stopMqtt(),
       stopBoardReports(),
       stopSensorWatch(),
       stopInvitations(),

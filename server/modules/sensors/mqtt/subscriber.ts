@@ -80,9 +80,8 @@ export class SensorSubscriber {
     private readonly logger: Logger,
   ) {}
 
-  get connected(): boolean {
-    return this.client?.connected ?? false;
-  }
+  /** True once the broker has granted the subscription on the current connection. */
+  subscribed = false;
 
   /** Connects (and keeps reconnecting, with backoff); never waits for the broker and never throws. */
   start(): void {
@@ -101,15 +100,20 @@ export class SensorSubscriber {
     this.client = client;
     client.on("connect", (connack) => {
       this.attempt = 0;
+      this.subscribed = false;
       this.logger.info({ url: this.settings.url, sessionPresent: connack.sessionPresent }, "MQTT subscriber connected");
       client.subscribe(SHARED_SUBSCRIPTION, { qos: 1 }, (error, granted) => {
         const refused = granted?.some((g) => g.qos > 2);
         if (error || refused) this.logger.error({ err: error, granted }, "MQTT subscription refused");
+        else this.subscribed = true;
       });
     });
     client.on("message", (topic, payload) => this.receive(topic, payload));
     client.on("error", (error) => this.logger.warn({ err: error, url: this.settings.url }, "MQTT connection problem"));
-    client.on("close", () => this.scheduleReconnect());
+    client.on("close", () => {
+      this.subscribed = false;
+      this.scheduleReconnect();
+    });
   }
 
   /** Stops receiving, stores what has been gathered, then disconnects. */
