@@ -3,7 +3,7 @@
 // compiled server (`node dist-server/server/server.js`, as in production). Ctrl-C stops everything
 // this script started; the server drains its requests first.
 import { spawn, type ChildProcess } from "node:child_process";
-import { rmSync } from "node:fs";
+import { mkdirSync, openSync, rmSync } from "node:fs";
 import path from "node:path";
 import { loadConfig } from "../server/config/env.js";
 import { DEMO_ACCOUNTS } from "../server/db/seeds/demo.js";
@@ -22,12 +22,20 @@ let brokerStartedHere = false;
 let mailCatcher: ChildProcess | undefined;
 let server: ChildProcess | undefined;
 let weather: FakeWeather | null = null;
+let simulation: ChildProcess | undefined;
 let stopping = false;
+
+/**
+ * The demo's live sensors (scripts/simulate-sensors.ts): ten homes, a week of readings sent at once so
+ * the charts and Alerts have something to show, then an hour replayed at 12× and on at real time.
+ */
+const DEMO_SIMULATION = ["--homes", "10", "--interval", "5m", "--backfill", "7d", "--lead", "1h", "--speed", "12"];
 
 async function shutdown(code: number) {
   if (stopping) return;
   stopping = true;
   step("Stopping…");
+  if (simulation) await stopChild(simulation, 15_000);
   // The server drains for at most SHUTDOWN_DELAY_MS + SHUTDOWN_TIMEOUT_MS; give it that and a little more.
   if (server) await stopChild(server, config.shutdown.delayMs + config.shutdown.timeoutMs + 5000);
   if (mailCatcher) await stopChild(mailCatcher);
@@ -111,6 +119,18 @@ try {
     waitUntilReady(`http://${local.includes(":") ? `[${local}]` : local}:${config.port}/api/health/ready`),
     serverExit,
   ]);
+
+  const simulationLog = path.join(projectRoot, ".data", "simulate-sensors.log");
+  step(`Starting the demo's sensor simulation (10 homes; what it sends is logged in .data/simulate-sensors.log)…`);
+  mkdirSync(path.dirname(simulationLog), { recursive: true });
+  const simulationOut = openSync(simulationLog, "a");
+  simulation = spawn(process.execPath, ["--import", "tsx", "scripts/simulate-sensors.ts", ...DEMO_SIMULATION], {
+    cwd: projectRoot,
+    stdio: ["ignore", simulationOut, simulationOut],
+  });
+  simulation.once("exit", (code, signal) => {
+    if (!stopping) console.warn(`The sensor simulation stopped (${signal ?? `exit ${code}`}); see .data/simulate-sensors.log.`);
+  });
 
   const width = Math.max(...DEMO_ACCOUNTS.map((a) => a.email.length));
   console.log(`
