@@ -216,6 +216,8 @@ export function createServices(
     clock,
   );
   sensors.useBroker(mqttBroker);
+  // The tenant's outlook takes each room's last day of sensor readings, where it has sensors.
+  outlook.useSensorConditions(sensors);
   sensorIngest.addListener(sensorWatch);
   return {
     mqttBroker,

@@ -184,4 +184,35 @@ describe("the condensation outlook", () => {
     await officer.get(`/api/properties/999999999/outlook`).expect(404);
     await officer.get(`/api/properties/abc/outlook`).expect(400);
   });
+
+  it("takes a room's indoor figures from its sensors' last day, before any case reading", async () => {
+    const home = (await tenant.get("/api/me/home").expect(200)).body.property;
+    const kitchen = home.rooms.find((r: { name: string }) => r.name === "Kitchen");
+    const ds = t.ctx.dataSource;
+    const { insertId } = (await ds.query(
+      `INSERT INTO sensors (organisation_id, property_id, room_id, serial, model, placement, installed_on, mqtt_username)
+       VALUES (?, ?, ?, 'OUTLOOK-1', 'TH-1', 'kitchen wall', '2025-01-01', 'outlook-1')`,
+      [landlord.org.id, home.id, kitchen.id],
+    )) as { insertId: number };
+    // Two readings within the last day (mean 20 °C, 72 %) and one 30 hours ago that must not count.
+    const newest = new Date(Math.floor(hoursAgo(1).getTime() / 1000) * 1000);
+    for (const [at, air, rh] of [
+      [hoursAgo(30), 10, 95],
+      [hoursAgo(5), 19, 70],
+      [newest, 21, 74],
+    ] as const) {
+      await ds.query(
+        `INSERT INTO sensor_readings (sensor_id, taken_at, air_temperature_c, relative_humidity_pct, received_at) VALUES (?, ?, ?, ?, ?)`,
+        [insertId, new Date(Math.floor(at.getTime() / 1000) * 1000), air, rh, at],
+      );
+    }
+    const outlook = outlookResponse.parse((await tenant.get("/api/me/outlook").expect(200)).body);
+    const room = outlook.rooms.find((r) => r.roomId === kitchen.id)!;
+    expect(room.indoor).toEqual({
+      airTemperatureC: 20,
+      relativeHumidityPct: 72,
+      source: "sensor",
+      takenAt: newest.toISOString(),
+    });
+  });
 });
