@@ -342,6 +342,7 @@ describe("case workspace", () => {
 
     // The tenant's report on the overview; the diagnosis hint and the engine's evaluation on Readings.
     expect(within(region("The tenant's report")).getByText("Black mould in the bedroom corner")).toBeInTheDocument();
+    expect(region("The tenant's report")).toHaveTextContent(/Came in by: \w/);
     const user = userEvent.setup();
     await openTab(user, "Readings");
     const hints = region("Diagnosis hints");

@@ -195,9 +195,13 @@ describe("live sensors", () => {
       .getByText(/Opened by the landlord from its sensors' alerts/)
       .first()
       .waitFor();
+    // Nobody in the home reported it, and the page says so rather than calling it the tenant's report.
+    const began = page.getByRole("region", { name: "How this case began" });
+    await began.getByText(/nobody in the home has reported it/).waitFor();
+    expect(await page.getByRole("region", { name: "The tenant's report" }).count()).toBe(0);
     await expectAccessible(page);
 
-    // The case page has no channel of its own; its home page lists the case "opened from a sensor alert".
+    // Its home page lists the case "opened from a sensor alert".
     await page
       .getByRole("link", { name: new RegExp(`^${home.address}`) })
       .first()

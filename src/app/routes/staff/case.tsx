@@ -1,6 +1,7 @@
 import { useQueryClient, type QueryClient } from "@tanstack/react-query";
 import { useMemo, type ReactNode } from "react";
 import { Link, useParams, useSearchParams, type LoaderFunctionArgs } from "react-router-dom";
+import { channelLabels, labelFor } from "@/lib/labels";
 import { STATE_LABELS } from "@/lib/surface-state-labels";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
@@ -176,8 +177,12 @@ function Workspace({ id }: { id: number }) {
             </Panel>
           </div>
         </div>
-        <Panel title="The tenant's report" id="case-report">
-          <p className="mb-2 text-sm text-ink-soft">The questions as the tenant saw them, with their answers.</p>
+        <Panel title={c.channel === "sensor" ? "How this case began" : "The tenant's report"} id="case-report">
+          <p className="mb-2 text-sm text-ink-soft">
+            {c.channel === "sensor"
+              ? "Opened by the landlord from a sensor alert: nobody in the home has reported it. The answers are the landlord's."
+              : `The questions as the tenant saw them, with their answers. Came in by: ${labelFor(channelLabels, c.channel)}.`}
+          </p>
           <ReportSummary
             audience="staff"
             sentAt={c.createdAt}
