@@ -215,9 +215,9 @@ export class SensorHealthService {
   /**
    * Checks the readings of sensors that have new readings since their last check (or none yet), and of
    * those with a stored problem checked over an hour ago, at most `limit` of them; stores each result.
-   * Returns how many were checked. Safe to run on several instances at once (the result is the same).
+   * Returns the ids of the sensors checked. Safe to run on several instances at once (the result is the same).
    */
-  async sweep(limit = 2000): Promise<number> {
+  async sweep(limit = 2000): Promise<number[]> {
     const now = this.clock.now();
     const due: SensorRow[] = await this.dataSource.query(
       `SELECT s.id, s.interval_s AS intervalS, s.last_reading_at AS lastReadingAt, ${WATCHED_SINCE_SQL} AS watchedSince
@@ -263,7 +263,7 @@ export class SensorHealthService {
         values.flat(),
       );
     }
-    return due.length;
+    return due.map((s) => Number(s.id));
   }
 
   /** The sensors' readings of the 24 hours before now, oldest first, read along the (sensor, time) key. */

@@ -18,8 +18,8 @@ export function startSensorHealthSweeper(
     if (running) return;
     running = sensorHealth
       .sweep()
-      .then((n) => {
-        if (n) logger.debug({ checked: n }, "sensor health checked");
+      .then((checked) => {
+        if (checked.length) logger.debug({ checked: checked.length }, "sensor health checked");
       })
       .catch((error: unknown) => logger.error({ err: error }, "sensor health sweep failed"))
       .finally(() => {
