@@ -22,12 +22,15 @@ import type { IngestOutcome, SensorIdentity, SensorReadingsListener, StoredReadi
 
 const DAY_MS = 86_400_000;
 /**
- * A batch whose newest reading is older than this is a backfill (a device or gateway catching up). Its
- * listeners are told once the ingest has no other request in hand (or after BACKFILL_TELL_WITHIN_MS at
- * the latest), one batch for all the sensors meanwhile, so that a burst of old readings is not slowed by
- * the rooms being worked out again for every request. Live readings are told at once. Our own choice.
+ * A batch whose newest reading is older than this is a backfill (a device or gateway catching up). When
+ * other ingests are in hand its listeners are told later, once the ingest has been idle for
+ * BACKFILL_QUIET_MS (or BACKFILL_TELL_WITHIN_MS after the first was held, at the latest), in one batch
+ * for all the sensors meanwhile: a burst of old readings is then not slowed by the rooms being worked
+ * out again between its requests. Live readings, and a backfill on its own, are told at once. Our own
+ * choice of numbers, no source.
  */
 const BACKFILL_AGE_MS = 3_600_000;
+const BACKFILL_QUIET_MS = 500;
 const BACKFILL_TELL_WITHIN_MS = 30_000;
 const BATTERY_PCT = { min: 0, max: 100 } as const;
 /** The file name is never opened: the statement's stream factory supplies the rows from memory. */
@@ -107,6 +110,7 @@ export class SensorIngestService {
   /** Backfilled sensors not told yet, by organisation then sensor; and since when (monotonic ms). */
   private readonly untold = new Map<number, { batch: StoredReadingsBatch; bySensor: Map<number, number> }>();
   private untoldSince = 0;
+  private quietTimer: NodeJS.Timeout | null = null;
 
   constructor(
     private readonly dataSource: DataSource,
@@ -182,12 +186,23 @@ export class SensorIngestService {
    */
   async ingest(sensor: SensorIdentity, readings: unknown[], via: "http" | "mqtt"): Promise<IngestOutcome> {
     this.inFlight++;
+    if (this.quietTimer) {
+      clearTimeout(this.quietTimer);
+      this.quietTimer = null;
+    }
     try {
       return await this.checkAndStore(sensor, readings, via);
     } finally {
       this.inFlight--;
-      if (this.untold.size > 0 && (this.inFlight === 0 || performance.now() - this.untoldSince > BACKFILL_TELL_WITHIN_MS)) {
-        this.tellUntold();
+      if (this.untold.size > 0) {
+        if (performance.now() - this.untoldSince > BACKFILL_TELL_WITHIN_MS) this.tellUntold();
+        else if (this.inFlight === 0) {
+          // unref: at shutdown the sweep of the room watch finds the rooms left behind.
+          this.quietTimer = setTimeout(() => {
+            this.quietTimer = null;
+            this.tellUntold();
+          }, BACKFILL_QUIET_MS).unref();
+        }
       }
     }
   }
