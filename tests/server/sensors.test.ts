@@ -3,7 +3,7 @@
 // reading refused with its own reason or stored once, whatever order and however often it comes.
 import { createHash, pbkdf2Sync } from "node:crypto";
 import request from "supertest";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import type { StoredReadingsBatch } from "../../server/modules/sensors/sensor-events.js";
 import { localDate } from "../../src/lib/domain/working-days.js";
 import { makeLandlord, makeTenant, PASSWORD } from "../support/factories.js";
@@ -340,6 +340,40 @@ describe("HTTP ingest", () => {
     expect(await storedRows(sensor.id)).toHaveLength(2);
     await post(credentials.secret, { readings: [reading(newest)] }).expect(200);
     expect(batches.length).toBe(before + 1);
+  });
+
+  it("tells about backfills sent side by side once, together, when the ingest is quiet; live readings at once", async () => {
+    const a = await register();
+    const b = await register();
+    const identity = async (secret: string) => (await t.ctx.services.sensorIngest.identifyByKey(secret))!;
+    const [ida, idb] = [await identity(a.credentials.secret), await identity(b.credentials.secret)];
+    const ingest = (id: typeof ida, at: Date[]) =>
+      t.ctx.services.sensorIngest.ingest(
+        id,
+        at.map((d) => reading(d)),
+        "http",
+      );
+
+    let before = batches.length;
+    const oldA = daysAgo(3);
+    const oldB = daysAgo(2);
+    const outcomes = await Promise.all([ingest(ida, [daysAgo(4), oldA]), ingest(idb, [oldB])]);
+    expect(outcomes.map((o) => o.stored)).toEqual([2, 1]);
+    // Stored, and both sensors named in one batch once the ingest is quiet.
+    await vi.waitFor(() => expect(batches.length).toBeGreaterThan(before), { timeout: 10_000 });
+    const told = batches.slice(before);
+    expect(told).toHaveLength(1);
+    expect(told[0]!.organisationId).toBe(landlord.org.id);
+    expect([...told[0]!.sensors].sort((x, y) => x.sensorId - y.sensorId)).toEqual([
+      { sensorId: a.sensor.id, roomId, propertyId: landlord.home.id, newestTakenAt: new Date(iso(oldA)) },
+      { sensorId: b.sensor.id, roomId, propertyId: landlord.home.id, newestTakenAt: new Date(iso(oldB)) },
+    ]);
+
+    before = batches.length;
+    const live = msAgo(60_000);
+    await Promise.all([ingest(ida, [live]), ingest(idb, [live])]);
+    const liveTold = batches.slice(before).map((x) => x.sensors.map((s) => s.sensorId));
+    expect(liveTold.sort((x, y) => x[0]! - y[0]!)).toEqual([[a.sensor.id], [b.sensor.id]]);
   });
 });
 

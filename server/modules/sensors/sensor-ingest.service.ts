@@ -18,9 +18,20 @@ import {
   formatNumber,
 } from "../readings/csv/limits.js";
 import { SENSOR_SECRET_PATTERN, sensorKeyHash } from "./credentials.js";
-import type { IngestOutcome, SensorIdentity, SensorReadingsListener } from "./sensor-events.js";
+import type { IngestOutcome, SensorIdentity, SensorReadingsListener, StoredReadingsBatch } from "./sensor-events.js";
 
 const DAY_MS = 86_400_000;
+/**
+ * A batch whose newest reading is older than this is a backfill (a device or gateway catching up). When
+ * other ingests are in hand its listeners are told later, once the ingest has been idle for
+ * BACKFILL_QUIET_MS (or BACKFILL_TELL_WITHIN_MS after the first was held, at the latest), in one batch
+ * for all the sensors meanwhile: a burst of old readings is then not slowed by the rooms being worked
+ * out again between its requests. Live readings, and a backfill on its own, are told at once. Our own
+ * choice of numbers, no source.
+ */
+const BACKFILL_AGE_MS = 3_600_000;
+const BACKFILL_QUIET_MS = 500;
+const BACKFILL_TELL_WITHIN_MS = 30_000;
 const BATTERY_PCT = { min: 0, max: 100 } as const;
 /** The file name is never opened: the statement's stream factory supplies the rows from memory. */
 const LOAD_SQL =
@@ -94,6 +105,12 @@ interface SensorWindow {
 
 export class SensorIngestService {
   private readonly listeners: SensorReadingsListener[] = [];
+  /** Ingest calls in progress (HTTP and MQTT alike). */
+  private inFlight = 0;
+  /** Backfilled sensors not told yet, by organisation then sensor; and since when (monotonic ms). */
+  private readonly untold = new Map<number, { batch: StoredReadingsBatch; bySensor: Map<number, number> }>();
+  private untoldSince = 0;
+  private quietTimer: NodeJS.Timeout | null = null;
 
   constructor(
     private readonly dataSource: DataSource,
@@ -168,6 +185,29 @@ export class SensorIngestService {
    * after it was identified stores nothing.
    */
   async ingest(sensor: SensorIdentity, readings: unknown[], via: "http" | "mqtt"): Promise<IngestOutcome> {
+    this.inFlight++;
+    if (this.quietTimer) {
+      clearTimeout(this.quietTimer);
+      this.quietTimer = null;
+    }
+    try {
+      return await this.checkAndStore(sensor, readings, via);
+    } finally {
+      this.inFlight--;
+      if (this.untold.size > 0) {
+        if (performance.now() - this.untoldSince > BACKFILL_TELL_WITHIN_MS) this.tellUntold();
+        else if (this.inFlight === 0) {
+          // unref: at shutdown the sweep of the room watch finds the rooms left behind.
+          this.quietTimer = setTimeout(() => {
+            this.quietTimer = null;
+            this.tellUntold();
+          }, BACKFILL_QUIET_MS).unref();
+        }
+      }
+    }
+  }
+
+  private async checkAndStore(sensor: SensorIdentity, readings: unknown[], via: "http" | "mqtt"): Promise<IngestOutcome> {
     const refused: IngestOutcome["refused"] = [];
     const window = await this.windowOf(sensor.id);
     if (!window?.active) {
@@ -219,7 +259,11 @@ export class SensorIngestService {
       stored = await this.load(sensor.id, values, newest);
     }
     const outcome: IngestOutcome = { stored, duplicates: values.length - stored, refused };
-    if (stored > 0) this.notify(sensor, new Date(newestMs), receivedAt);
+    if (stored > 0) {
+      const backfill = nowMs - newestMs > BACKFILL_AGE_MS;
+      if (backfill && (this.inFlight > 1 || this.untold.size > 0)) this.holdBackfill(sensor, newestMs, receivedAt);
+      else this.notify(sensor, new Date(newestMs), receivedAt);
+    }
     if (refused.length > 0) {
       this.logger?.debug({ sensorId: sensor.id, via, refused: refused.length, first: refused[0] }, "sensor readings refused");
     }
@@ -301,18 +345,50 @@ export class SensorIngestService {
     return ms;
   }
 
-  /** After the commit; a listener's failure is logged and never reaches the device. */
+  /** A backfilled sensor to tell about with the others once the ingest is quiet (see BACKFILL_AGE_MS). */
+  private holdBackfill(sensor: SensorIdentity, newestMs: number, receivedAt: Date): void {
+    if (this.untold.size === 0) this.untoldSince = performance.now();
+    let org = this.untold.get(sensor.organisationId);
+    if (!org) {
+      org = { batch: { organisationId: sensor.organisationId, sensors: [], receivedAt }, bySensor: new Map() };
+      this.untold.set(sensor.organisationId, org);
+    }
+    if (receivedAt > org.batch.receivedAt) org.batch.receivedAt = receivedAt;
+    const at = org.bySensor.get(sensor.id);
+    if (at === undefined) {
+      org.bySensor.set(sensor.id, org.batch.sensors.length);
+      org.batch.sensors.push({
+        sensorId: sensor.id,
+        roomId: sensor.roomId,
+        propertyId: sensor.propertyId,
+        newestTakenAt: new Date(newestMs),
+      });
+    } else if (newestMs > org.batch.sensors[at]!.newestTakenAt.getTime()) {
+      org.batch.sensors[at]!.newestTakenAt = new Date(newestMs);
+    }
+  }
+
+  private tellUntold(): void {
+    const batches = [...this.untold.values()].map((o) => o.batch);
+    this.untold.clear();
+    for (const batch of batches) this.tell(batch);
+  }
+
   private notify(sensor: SensorIdentity, newestTakenAt: Date, receivedAt: Date): void {
-    const batch = {
+    this.tell({
       organisationId: sensor.organisationId,
       sensors: [{ sensorId: sensor.id, roomId: sensor.roomId, propertyId: sensor.propertyId, newestTakenAt }],
       receivedAt,
-    };
+    });
+  }
+
+  /** After the commit; a listener's failure is logged and never reaches the device. */
+  private tell(batch: StoredReadingsBatch): void {
     for (const listener of this.listeners) {
       try {
         listener.readingsStored(batch);
       } catch (err) {
-        this.logger?.error({ err, sensorId: sensor.id }, "a sensor readings listener failed");
+        this.logger?.error({ err, sensorIds: batch.sensors.map((s) => s.sensorId) }, "a sensor readings listener failed");
       }
     }
   }
