@@ -20,6 +20,7 @@ import { addressOf, type Case, type CaseService } from "../cases/case.service.js
 import type { PolicyService } from "../policy/policy.service.js";
 import type { Property, PropertyService } from "../properties/property.service.js";
 import type { SensorReadingsListener, StoredReadingsBatch } from "../sensors/sensor-events.js";
+import type { SensorIngestService } from "../sensors/sensor-ingest.service.js";
 import { SensorAlert } from "./sensor-alert.entity.js";
 import { SensorRoomFigures } from "./sensor-room-figures.entity.js";
 
@@ -102,6 +103,7 @@ export class SensorWatchService implements SensorReadingsListener {
     private readonly cases: CaseService,
     private readonly properties: PropertyService,
     private readonly policy: PolicyService,
+    private readonly readings: Pick<SensorIngestService, "sensorsOfRoom" | "recentReadings">,
     private readonly clock: Clock,
     private readonly logger: Logger,
   ) {}
@@ -189,25 +191,6 @@ export class SensorWatchService implements SensorReadingsListener {
     return rows.length;
   }
 
-  /** The readings of a sensor over the mould-history window ending at its newest reading. */
-  private async samplesOf(sensorId: number): Promise<SensorSample[]> {
-    // Read here until the sensors module offers a reader for them (it owns sensor_readings).
-    const rows = (await this.dataSource.query(
-      `SELECT r.taken_at AS at, r.air_temperature_c AS airT, r.relative_humidity_pct AS rh, r.surface_temperature_c AS surfaceT
-         FROM sensor_readings r
-        WHERE r.sensor_id = ?
-          AND r.taken_at >= (SELECT MAX(taken_at) FROM sensor_readings WHERE sensor_id = ?) - INTERVAL ${MOULD_HISTORY_DAYS} DAY
-        ORDER BY r.taken_at`,
-      [sensorId, sensorId],
-    )) as { at: Date; airT: string | number; rh: string | number; surfaceT: string | number | null }[];
-    return rows.map((r) => ({
-      at: new Date(r.at),
-      airTemperatureC: Number(r.airT),
-      relativeHumidityPct: Number(r.rh),
-      surfaceTemperatureC: r.surfaceT === null ? null : Number(r.surfaceT),
-    }));
-  }
-
   /** Adds the weather's outdoor temperature of each reading's hour, where the weather knows it. */
   private async withOutdoor(propertyId: number, samples: SensorSample[]): Promise<SensorSample[]> {
     if (!this.weather || samples.length === 0) return samples;
@@ -228,18 +211,16 @@ export class SensorWatchService implements SensorReadingsListener {
    * transaction. Returns the new alerts.
    */
   async recomputeRoom(roomId: number): Promise<SensorAlert[]> {
-    const sensors = (await this.dataSource.query(
-      `SELECT id, organisation_id AS organisationId, property_id AS propertyId, placement
-         FROM sensors WHERE room_id = ? AND removed_on IS NULL ORDER BY id`,
-      [roomId],
-    )) as { id: number; organisationId: number; propertyId: number; placement: string }[];
+    const sensors = await this.readings.sensorsOfRoom(roomId);
     if (sensors.length === 0) return [];
     const { organisationId, propertyId } = sensors[0];
     // Independent reads side by side: the evaluation mostly waits on round trips to MariaDB.
     const [home, settings, readings] = await Promise.all([
       this.properties.homeWithRooms(propertyId),
       this.policy.sensorAlertPolicyFor(organisationId),
-      Promise.all(sensors.map(async (s) => this.withOutdoor(propertyId, await this.samplesOf(s.id)))),
+      Promise.all(
+        sensors.map(async (s) => this.withOutdoor(propertyId, await this.readings.recentReadings(s.id, MOULD_HISTORY_DAYS))),
+      ),
     ]);
     const roomName = home.rooms?.find((r) => r.id === roomId)?.name ?? "A room";
 
