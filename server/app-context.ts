@@ -169,7 +169,8 @@ export function createServices(
   const complaints = new ComplaintService(dataSource, config, cases, policy, mail, users, organisations, clock);
   const triage = new TriageService(cases, evaluation, policy, inspections, assessments, clock);
   // Rooms' live sensor figures and alerts; alerts on a case count in its triage figures.
-  const sensorWatch = new SensorWatchService(dataSource, cases, properties, policy, clock, logger);
+  const sensorIngest = new SensorIngestService(dataSource, clock, logger);
+  const sensorWatch = new SensorWatchService(dataSource, cases, properties, policy, sensorIngest, clock, logger);
   // Where a sensor has no surface probe, its wall or window is estimated from the weather's outdoor hour.
   sensorWatch.useWeather(weather);
   sensorWatch.useTriage(triage);
@@ -207,7 +208,6 @@ export function createServices(
   );
   // Sensors: the registry tells the broker (useBroker) and the ingest tells the room watch (addListener).
   const sensors = new SensorService(dataSource, properties, clock, logger);
-  const sensorIngest = new SensorIngestService(dataSource, clock, logger);
   const { brokerDir, username, password } = config.mqtt;
   const mqttBroker = new MosquittoBrokerFiles(
     dataSource,

@@ -160,6 +160,39 @@ describe("rules fire at the right hour", () => {
     expect(alerts.map((a) => a.raisedAt.toISOString())).toEqual(["2026-11-04T04:00:00.000Z"]);
   });
 
+  it("rooms told at once, live and backfill, and a room told again mid-evaluation, all end at their latest readings", async () => {
+    const tell = (s: { id: number; roomId: number }, home: Property, newest: Date) =>
+      t.ctx.services.sensorWatch.readingsStored({
+        organisationId: home.organisationId,
+        sensors: [{ sensorId: s.id, roomId: s.roomId, propertyId: home.id, newestTakenAt: newest }],
+        receivedAt: clock.now(),
+      });
+    const homes = [
+      await makeProperty(ds, landlord.org),
+      await makeProperty(ds, landlord.org),
+      await makeProperty(ds, landlord.org),
+    ];
+    const [a, b, c] = [await fitSensor(homes[0]!), await fitSensor(homes[1]!), await fitSensor(homes[2]!)];
+    await storeReadings(b.id, 0, 96, damp);
+    await storeReadings(c.id, 0, 96, damp);
+    await storeReadings(a.id, 0, 40, damp);
+    // Backfill (readings 16 days older than the clock) first, then live rooms; a's second batch lands while
+    // its first may be being worked out, and must not be lost.
+    tell(c, homes[2]!, new Date(T0 + 96 * H));
+    tell(a, homes[0]!, clock.now());
+    tell(b, homes[1]!, clock.now());
+    await storeReadings(a.id, 40, 56, damp);
+    tell(a, homes[0]!, clock.now());
+    await t.ctx.services.sensorWatch.drain();
+    for (const s of [a, b, c]) {
+      const figures = await ds.getRepository(SensorRoomFigures).findOneByOrFail({ roomId: s.roomId });
+      expect(figures.latestReadingAt.toISOString()).toBe("2026-11-06T00:00:00.000Z");
+      expect(figures.hoursAt80).toBe(96);
+      const alerts = (await alertsOf(s.roomId)).filter((x) => x.rule === "hours-at-80");
+      expect(alerts.map((x) => x.raisedAt.toISOString())).toEqual(["2026-11-05T00:00:00.000Z"]);
+    }
+  });
+
   it("a sweep finds a room whose evaluation was lost and works it out", async () => {
     const other = await makeProperty(ds, landlord.org);
     const s = await fitSensor(other);

@@ -20,6 +20,7 @@ import { addressOf, type Case, type CaseService } from "../cases/case.service.js
 import type { PolicyService } from "../policy/policy.service.js";
 import type { Property, PropertyService } from "../properties/property.service.js";
 import type { SensorReadingsListener, StoredReadingsBatch } from "../sensors/sensor-events.js";
+import type { SensorIngestService } from "../sensors/sensor-ingest.service.js";
 import { SensorAlert } from "./sensor-alert.entity.js";
 import { SensorRoomFigures } from "./sensor-room-figures.entity.js";
 
@@ -54,6 +55,11 @@ const RULE_WORDS: Record<SensorAlertRule, string> = {
 
 const round1 = (x: number) => Math.round(x * 10) / 10;
 
+/** A room whose newest reading is this recent (by the app clock) is worked out before backfill: our own choice. */
+const LIVE_WITHIN_MS = 6 * 3_600_000;
+/** Rooms worked out at once: the evaluation mostly waits on MariaDB, so two overlap its round trips. Ours. */
+const WATCH_CONCURRENCY = 2;
+
 /** A room with several sensors shows its worst: highest mould index, then most damp hours, then most condensing. */
 function worseThan(a: RoomWatch, b: RoomWatch): boolean {
   const x = a.last7Days;
@@ -83,8 +89,12 @@ export function findingsFor(alert: Pick<SensorAlert, "rule" | "figures">, roomNa
  * `sensor_readings`, so a crash loses nothing: the next batch or the sweep recomputes the room.
  */
 export class SensorWatchService implements SensorReadingsListener {
-  private readonly pending = new Set<number>();
-  private running: Promise<void> | null = null;
+  /** Rooms waiting: those with a recent reading first, then backfill and the sweep's. Each room waits once. */
+  private readonly live = new Set<number>();
+  private readonly backlog = new Set<number>();
+  /** Rooms being worked out now: never two evaluations of one room at once. */
+  private readonly working = new Set<number>();
+  private readonly workers = new Set<Promise<void>>();
   private weather: OutdoorWeather | null = null;
   private triage: TriageRefresher | null = null;
 
@@ -93,6 +103,7 @@ export class SensorWatchService implements SensorReadingsListener {
     private readonly cases: CaseService,
     private readonly properties: PropertyService,
     private readonly policy: PolicyService,
+    private readonly readings: Pick<SensorIngestService, "sensorsOfRoom" | "recentReadings">,
     private readonly clock: Clock,
     private readonly logger: Logger,
   ) {}
@@ -106,33 +117,60 @@ export class SensorWatchService implements SensorReadingsListener {
     this.triage = triage;
   }
 
-  /** SensorReadingsListener: queues the batch's rooms (each once however many sensors sent) and returns at once. */
+  /**
+   * SensorReadingsListener: queues the batch's rooms (each once however many batches or sensors sent)
+   * and returns at once. A room whose newest reading is recent goes ahead of backfill and the sweep's.
+   */
   readingsStored(batch: StoredReadingsBatch): void {
-    for (const s of batch.sensors) this.pending.add(s.roomId);
+    const recentFrom = this.clock.now().getTime() - LIVE_WITHIN_MS;
+    for (const s of batch.sensors) {
+      if (s.newestTakenAt.getTime() >= recentFrom) {
+        this.backlog.delete(s.roomId);
+        this.live.add(s.roomId);
+      } else if (!this.live.has(s.roomId)) this.backlog.add(s.roomId);
+    }
     this.kick();
+  }
+
+  /** Rooms waiting to be worked out (live and backlog). */
+  get queued(): number {
+    return this.live.size + this.backlog.size;
   }
 
   /** Resolves once every queued room has been worked out (tests, shutdown). */
   async drain(): Promise<void> {
-    while (this.running) await this.running;
+    while (this.workers.size > 0) await Promise.all(this.workers);
+  }
+
+  /** The next room to work out, taken off its queue: live first; a room being worked waits its turn. */
+  private take(): number | undefined {
+    for (const queue of [this.live, this.backlog])
+      for (const roomId of queue)
+        if (!this.working.has(roomId)) {
+          queue.delete(roomId);
+          return roomId;
+        }
+    return undefined;
   }
 
   private kick(): void {
-    if (this.running || this.pending.size === 0) return;
-    this.running = (async () => {
-      // setImmediate: the ingest's reply goes out before any evaluation starts.
-      await new Promise((resolve) => setImmediate(resolve));
-      while (this.pending.size > 0) {
-        const [roomId] = this.pending;
-        this.pending.delete(roomId);
-        await this.recomputeRoom(roomId).catch((err: unknown) =>
-          this.logger.error({ err, roomId }, "sensor room evaluation failed"),
-        );
-      }
-    })().finally(() => {
-      this.running = null;
-      this.kick();
-    });
+    while (this.workers.size < WATCH_CONCURRENCY && this.workers.size < this.queued) {
+      const worker: Promise<void> = (async () => {
+        // setImmediate: the ingest's reply goes out before any evaluation starts.
+        await new Promise((resolve) => setImmediate(resolve));
+        for (let roomId = this.take(); roomId !== undefined; roomId = this.take()) {
+          this.working.add(roomId);
+          await this.recomputeRoom(roomId)
+            .catch((err: unknown) => this.logger.error({ err, roomId }, "sensor room evaluation failed"))
+            .finally(() => this.working.delete(roomId));
+        }
+      })().finally(() => {
+        this.workers.delete(worker);
+        // A room queued again while it was being worked may be left with no worker.
+        if (this.queued > 0) this.kick();
+      });
+      this.workers.add(worker);
+    }
   }
 
   /**
@@ -148,28 +186,9 @@ export class SensorWatchService implements SensorReadingsListener {
         GROUP BY s.room_id LIMIT ?`,
       [limit],
     )) as { roomId: number }[];
-    for (const r of rows) this.pending.add(Number(r.roomId));
+    for (const r of rows) if (!this.live.has(Number(r.roomId))) this.backlog.add(Number(r.roomId));
     this.kick();
     return rows.length;
-  }
-
-  /** The readings of a sensor over the mould-history window ending at its newest reading. */
-  private async samplesOf(sensorId: number): Promise<SensorSample[]> {
-    // Read here until the sensors module offers a reader for them (it owns sensor_readings).
-    const rows = (await this.dataSource.query(
-      `SELECT r.taken_at AS at, r.air_temperature_c AS airT, r.relative_humidity_pct AS rh, r.surface_temperature_c AS surfaceT
-         FROM sensor_readings r
-        WHERE r.sensor_id = ?
-          AND r.taken_at >= (SELECT MAX(taken_at) FROM sensor_readings WHERE sensor_id = ?) - INTERVAL ${MOULD_HISTORY_DAYS} DAY
-        ORDER BY r.taken_at`,
-      [sensorId, sensorId],
-    )) as { at: Date; airT: string | number; rh: string | number; surfaceT: string | number | null }[];
-    return rows.map((r) => ({
-      at: new Date(r.at),
-      airTemperatureC: Number(r.airT),
-      relativeHumidityPct: Number(r.rh),
-      surfaceTemperatureC: r.surfaceT === null ? null : Number(r.surfaceT),
-    }));
   }
 
   /** Adds the weather's outdoor temperature of each reading's hour, where the weather knows it. */
@@ -192,21 +211,23 @@ export class SensorWatchService implements SensorReadingsListener {
    * transaction. Returns the new alerts.
    */
   async recomputeRoom(roomId: number): Promise<SensorAlert[]> {
-    const sensors = (await this.dataSource.query(
-      `SELECT id, organisation_id AS organisationId, property_id AS propertyId, placement
-         FROM sensors WHERE room_id = ? AND removed_on IS NULL ORDER BY id`,
-      [roomId],
-    )) as { id: number; organisationId: number; propertyId: number; placement: string }[];
+    const sensors = await this.readings.sensorsOfRoom(roomId);
     if (sensors.length === 0) return [];
     const { organisationId, propertyId } = sensors[0];
-    const home = await this.properties.homeWithRooms(propertyId);
+    // Independent reads side by side: the evaluation mostly waits on round trips to MariaDB.
+    const [home, settings, readings] = await Promise.all([
+      this.properties.homeWithRooms(propertyId),
+      this.policy.sensorAlertPolicyFor(organisationId),
+      Promise.all(
+        sensors.map(async (s) => this.withOutdoor(propertyId, await this.readings.recentReadings(s.id, MOULD_HISTORY_DAYS))),
+      ),
+    ]);
     const roomName = home.rooms?.find((r) => r.id === roomId)?.name ?? "A room";
-    const settings = await this.policy.sensorAlertPolicyFor(organisationId);
 
     let worst: { sensorId: number; watch: RoomWatch } | null = null;
     const held: (RuleHeld & { sensorId: number; basis: string })[] = [];
-    for (const sensor of sensors) {
-      const samples = await this.withOutdoor(propertyId, await this.samplesOf(sensor.id));
+    for (const [i, sensor] of sensors.entries()) {
+      const samples = readings[i];
       if (samples.length === 0) continue;
       const watch = watchRoom({ samples, element: sensorElement(home, sensor.placement), settings });
       for (const h of watch.held) held.push({ ...h, sensorId: sensor.id, basis: watch.basis });
@@ -217,34 +238,38 @@ export class SensorWatchService implements SensorReadingsListener {
     const now = this.clock.now();
     const { watch } = worst;
 
+    const latest = watch.latest!;
+    const figures = {
+      roomId,
+      organisationId,
+      propertyId,
+      sensorId: worst.sensorId,
+      surfaceBasis: watch.basis,
+      hoursAt80: watch.last7Days.hoursAt80,
+      hoursCondensing: watch.last7Days.hoursCondensing,
+      condensingDays: watch.last7Days.condensingDays,
+      mouldIndex: watch.last7Days.mouldIndex,
+      days: watch.days,
+      latestReadingAt: latest.at,
+      latestAirTemperatureC: latest.airTemperatureC,
+      latestRelativeHumidityPct: latest.relativeHumidityPct,
+      latestSurfaceRelativeHumidityPct: latest.surfaceRelativeHumidityPct,
+      computedAt: now,
+    };
+    // Most evaluations raise nothing: then the figures are one statement, with no transaction or lock.
+    // Alerts are only ever added, so "nothing to raise" read without the lock still holds under it.
+    if (
+      held.length === 0 ||
+      alertsToRaise(held, await this.lastRaisedOf(this.dataSource.manager, roomId, false), settings.cooldownDays).length === 0
+    ) {
+      await this.dataSource.getRepository(SensorRoomFigures).upsert(figures, ["roomId"]);
+      return [];
+    }
+
     const { raised, caseIds } = await inTransaction(this.dataSource, async (m) => {
-      const latest = watch.latest!;
-      await m.getRepository(SensorRoomFigures).upsert(
-        {
-          roomId,
-          organisationId,
-          propertyId,
-          sensorId: worst.sensorId,
-          surfaceBasis: watch.basis,
-          hoursAt80: watch.last7Days.hoursAt80,
-          hoursCondensing: watch.last7Days.hoursCondensing,
-          condensingDays: watch.last7Days.condensingDays,
-          mouldIndex: watch.last7Days.mouldIndex,
-          days: watch.days,
-          latestReadingAt: latest.at,
-          latestAirTemperatureC: latest.airTemperatureC,
-          latestRelativeHumidityPct: latest.relativeHumidityPct,
-          latestSurfaceRelativeHumidityPct: latest.surfaceRelativeHumidityPct,
-          computedAt: now,
-        },
-        ["roomId"],
-      );
-      // The room's last alert per rule, read under lock so two evaluations of one room cannot both raise.
-      const last = (await m.query(
-        "SELECT rule, MAX(raised_at) AS at FROM sensor_alerts WHERE room_id = ? GROUP BY rule FOR UPDATE",
-        [roomId],
-      )) as { rule: SensorAlertRule; at: Date }[];
-      const lastRaised = Object.fromEntries(last.map((r) => [r.rule, new Date(r.at)]));
+      await m.getRepository(SensorRoomFigures).upsert(figures, ["roomId"]);
+      // Read again under lock so two evaluations of one room cannot both raise.
+      const lastRaised = await this.lastRaisedOf(m, roomId, true);
       const toRaise = alertsToRaise(held, lastRaised, settings.cooldownDays) as typeof held;
       if (toRaise.length === 0) return { raised: [] as SensorAlert[], caseIds: [] as number[] };
       const openCase = await this.openCaseOf(organisationId, propertyId);
@@ -281,6 +306,15 @@ export class SensorWatchService implements SensorReadingsListener {
       await this.triage?.refresh(id).catch((err: unknown) => this.logger.warn({ err }, "triage refresh failed"));
     if (raised.length) this.logger.info({ roomId, alerts: raised.map((a) => a.rule) }, "sensor alerts raised");
     return raised;
+  }
+
+  /** The room's latest alert per rule; under lock in the raising transaction. */
+  private async lastRaisedOf(m: EntityManager, roomId: number, lock: boolean): Promise<Partial<Record<SensorAlertRule, Date>>> {
+    const last = (await m.query(
+      `SELECT rule, MAX(raised_at) AS at FROM sensor_alerts WHERE room_id = ? GROUP BY rule${lock ? " FOR UPDATE" : ""}`,
+      [roomId],
+    )) as { rule: SensorAlertRule; at: Date }[];
+    return Object.fromEntries(last.map((r) => [r.rule, new Date(r.at)]));
   }
 
   private async openCaseOf(organisationId: number, propertyId: number): Promise<Case | null> {

@@ -163,6 +163,43 @@ export class SensorIngestService {
     return this.identify("mqtt_username", username);
   }
 
+  /** A room's sensors that are not removed (revoked ones included: their readings still count), oldest first. */
+  async sensorsOfRoom(roomId: number): Promise<{ id: number; organisationId: number; propertyId: number; placement: string }[]> {
+    const rows: { id: number; organisationId: number; propertyId: number; placement: string }[] = await this.dataSource.query(
+      `SELECT id, organisation_id AS organisationId, property_id AS propertyId, placement
+         FROM sensors WHERE room_id = ? AND removed_on IS NULL ORDER BY id`,
+      [roomId],
+    );
+    return rows.map((r) => ({
+      ...r,
+      id: Number(r.id),
+      organisationId: Number(r.organisationId),
+      propertyId: Number(r.propertyId),
+    }));
+  }
+
+  /** A sensor's readings over the `days` ending at its newest reading, oldest first. */
+  async recentReadings(
+    sensorId: number,
+    days: number,
+  ): Promise<{ at: Date; airTemperatureC: number; relativeHumidityPct: number; surfaceTemperatureC: number | null }[]> {
+    const rows: { at: Date; airT: string | number; rh: string | number; surfaceT: string | number | null }[] =
+      await this.dataSource.query(
+        `SELECT r.taken_at AS at, r.air_temperature_c AS airT, r.relative_humidity_pct AS rh, r.surface_temperature_c AS surfaceT
+           FROM sensor_readings r
+          WHERE r.sensor_id = ?
+            AND r.taken_at >= (SELECT MAX(taken_at) FROM sensor_readings WHERE sensor_id = ?) - INTERVAL ? DAY
+          ORDER BY r.taken_at`,
+        [sensorId, sensorId, days],
+      );
+    return rows.map((r) => ({
+      at: new Date(r.at),
+      airTemperatureC: Number(r.airT),
+      relativeHumidityPct: Number(r.rh),
+      surfaceTemperatureC: r.surfaceT === null ? null : Number(r.surfaceT),
+    }));
+  }
+
   private async windowOf(sensorId: number): Promise<SensorWindow | null> {
     const rows: { installed_on: string | Date; removed_on: string | Date | null; key_hash: string | null }[] =
       await this.dataSource.query("SELECT installed_on, removed_on, key_hash FROM sensors WHERE id = ?", [sensorId]);
