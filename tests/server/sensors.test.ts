@@ -377,6 +377,131 @@ describe("HTTP ingest", () => {
   });
 });
 
+describe("HTTP ingest as CSV (the backlog form)", () => {
+  const postCsv = (secret: string, text: string) =>
+    request(t.app)
+      .post("/api/sensor-ingest/readings")
+      .set("Authorization", `Bearer ${secret}`)
+      .set("Content-Type", "text/csv")
+      .send(text);
+  /** An offset form of a time: the same moment written in +01:00. */
+  const plusOne = (d: Date) => `${new Date(d.getTime() + 3_600_000).toISOString().slice(0, 19)}+01:00`;
+
+  it("stores each good line once, in any column order, and refuses each bad line with its own reason", async () => {
+    const { sensor, credentials } = await register();
+    const [h6, h5, h4, h3, h2] = [hoursAgo(6), hoursAgo(5), hoursAgo(4), hoursAgo(3), hoursAgo(2)];
+    const csv = [
+      "\ufeffrelativeHumidityPct,takenAt,airTemperatureC,surfaceTemperatureC,batteryPct",
+      `71.25,${iso(h6)},19.5,12.4,88`,
+      `80,${plusOne(h5)},-2.25,,`, // an offset time; no surface or battery
+      `65.5,${iso(h4)},21.256,13.004,87.6`, // more decimals than the columns keep: rounded
+      "",
+      `70,${iso(msAgo(-10 * 60_000))},19,12,80`, // ten minutes ahead of the server's clock
+      `100.5,${iso(h2)},19,12,80`,
+      `70,${iso(h2)},1e1,12,80`,
+      `70,${iso(h2)},,12,80`,
+      `70,${iso(h2)},19,12`,
+      `70,${iso(h2).slice(0, 19)},19,12,80`,
+      `70,${iso(h2)},19,12,101`,
+      `70,${iso(daysAgo(45))},19,12,80`,
+      `72,${iso(h3)},19.75,12.5,86`,
+    ].join("\r\n");
+    const res = await postCsv(credentials.secret, csv).expect(200);
+    expect(res.body.stored).toBe(4);
+    expect(res.body.duplicates).toBe(0);
+    expect(res.body.refused.map((r: { index: number; reason: string }) => [r.index, r.reason])).toEqual([
+      [3, expect.stringContaining("future")],
+      [4, expect.stringContaining("relativeHumidityPct 100.5")],
+      [5, expect.stringContaining("airTemperatureC is missing or not a number")],
+      [6, expect.stringContaining("airTemperatureC is missing or not a number")],
+      [7, "This line has 4 fields; the header names 5."],
+      [8, expect.stringContaining("no time zone")],
+      [9, expect.stringContaining("batteryPct 101")],
+      [10, expect.stringContaining("30 days")],
+    ]);
+    expect(res.body.refused[1].takenAt).toBe(iso(h2));
+    const rows = await storedRows(sensor.id);
+    expect(
+      rows.map((r) => [
+        r.taken_at.toISOString(),
+        r.air_temperature_c,
+        r.relative_humidity_pct,
+        r.surface_temperature_c,
+        r.battery_pct,
+      ]),
+    ).toEqual([
+      [`${iso(h6).slice(0, 19)}.000Z`, "19.50", "71.25", "12.40", 88],
+      [`${iso(h5).slice(0, 19)}.000Z`, "-2.25", "80.00", null, null],
+      [`${iso(h4).slice(0, 19)}.000Z`, "21.26", "65.50", "13.00", 88],
+      [`${iso(h3).slice(0, 19)}.000Z`, "19.75", "72.00", "12.50", 86],
+    ]);
+    // Sent again, with other values: all duplicates, the first values stay.
+    const again = await postCsv(
+      credentials.secret,
+      `takenAt,airTemperatureC,relativeHumidityPct\n${iso(h6)},30,50\n${iso(h3)},30,50\n`,
+    ).expect(200);
+    expect(again.body).toEqual({ stored: 0, duplicates: 2, refused: [] });
+    expect((await storedRows(sensor.id))[0]!.air_temperature_c).toBe("19.50");
+    const seen = (await officer.get(`/api/sensors/${sensor.id}`).expect(200)).body.lastReadingAt;
+    expect(seen).toBe(`${iso(h3).slice(0, 19)}.000Z`);
+  });
+
+  it("refuses a header it cannot read, no readings, too many, and bodies neither JSON nor CSV; nothing is stored", async () => {
+    const { sensor, credentials } = await register();
+    const line = `${iso(hoursAgo(1))},19,70`;
+    const unknown = await postCsv(credentials.secret, `takenAt,airTemperatureC,relativeHumidityPct,humidity\n${line},1\n`).expect(
+      400,
+    );
+    expect(unknown.body.error.message).toContain('"humidity"');
+    expect(
+      (await postCsv(credentials.secret, `takenAt,airTemperatureC\n${iso(hoursAgo(1))},19\n`).expect(400)).body.error.message,
+    ).toContain("lacks relativeHumidityPct");
+    await postCsv(credentials.secret, `takenAt,takenAt,airTemperatureC,relativeHumidityPct\n`).expect(400);
+    await postCsv(credentials.secret, "takenAt,airTemperatureC,relativeHumidityPct\n\n").expect(400);
+    const start = daysAgo(20).getTime();
+    const many = Array.from({ length: 50_001 }, (_, i) => `${iso(new Date(start + i * 30_000))},19,70`).join("\n");
+    const tooMany = await postCsv(credentials.secret, `takenAt,airTemperatureC,relativeHumidityPct\n${many}\n`).expect(400);
+    expect(tooMany.body.error.message).toContain("50,000");
+    await request(t.app)
+      .post("/api/sensor-ingest/readings")
+      .set("Authorization", `Bearer ${credentials.secret}`)
+      .set("Content-Type", "text/plain")
+      .send(`takenAt,airTemperatureC,relativeHumidityPct\n${line}\n`)
+      .expect(415);
+    expect(await storedRows(sensor.id)).toHaveLength(0);
+    // The key is still checked first: a CSV with an unknown key is a 401.
+    await postCsv("dws_" + "B".repeat(43), `takenAt,airTemperatureC,relativeHumidityPct\n${line}\n`).expect(401);
+  });
+
+  it("stores big backlogs sent side by side for several sensors (one bulk load at a time), each answered with its own counts", async () => {
+    const sensors = await Promise.all([register(), register(), register()]);
+    const start = daysAgo(25).getTime();
+    const backlog = (from: number, count: number, air: number) =>
+      "takenAt,airTemperatureC,relativeHumidityPct\n" +
+      Array.from({ length: count }, (_, i) => `${iso(new Date(start + (from + i) * 120_000))},${air},70`).join("\n");
+    // The third sensor's second batch overlaps its first by 500 readings.
+    const answers = await Promise.all([
+      postCsv(sensors[0]!.credentials.secret, backlog(0, 12_000, 18)),
+      postCsv(sensors[1]!.credentials.secret, backlog(0, 8_000, 19)),
+      postCsv(sensors[2]!.credentials.secret, backlog(0, 3_000, 20)),
+      postCsv(sensors[2]!.credentials.secret, backlog(2_500, 3_000, 21)),
+    ]);
+    expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200]);
+    expect(answers.slice(0, 2).map((a) => a.body)).toEqual([
+      { stored: 12_000, duplicates: 0, refused: [] },
+      { stored: 8_000, duplicates: 0, refused: [] },
+    ]);
+    // Whichever of the overlapping two went first stored all of its own; the other 500 fewer.
+    const third = answers.slice(2).map((a) => [a.body.stored, a.body.duplicates]);
+    expect(third.sort()).toEqual([
+      [2_500, 500],
+      [3_000, 0],
+    ]);
+    const counts = await Promise.all(sensors.map(async (s) => (await storedRows(s.sensor.id)).length));
+    expect(counts).toEqual([12_000, 8_000, 5_500]);
+  });
+});
+
 describe("a sensor's series", () => {
   it("answers a window as stored and a long one averaged into buckets", async () => {
     const { sensor, credentials } = await register(lead, { intervalS: 60 });

@@ -1,23 +1,20 @@
-// Readings from sensors, over HTTP and MQTT alike: each reading checked on its own (a refusal carries its
-// reason and refuses only that reading), the rest stored in one transaction, a re-delivered reading a
-// duplicate (the first value wins), then the listeners told. Built for bulk: a backfill of a million
-// readings goes through here, so the hot loop uses no Date objects and no schema library per reading,
-// and each batch is one LOAD DATA LOCAL … IGNORE of rows this file formats itself.
+// Readings from sensors, over HTTP (JSON or CSV) and MQTT alike: each reading checked on its own (a
+// refusal carries its reason and refuses only that reading; reading-checks.ts, readings-csv.ts), the rest
+// stored in one transaction, a re-delivered reading a duplicate (the first value wins), then the listeners
+// told. Built for bulk: a backfill of a million readings goes through here, so the checks use no Date
+// objects and no schema library per reading, and each batch is one LOAD DATA LOCAL … IGNORE.
 import { Readable } from "node:stream";
 import type { PoolConnection, ResultSetHeader } from "mysql2";
+import pLimit from "p-limit";
 import type { DataSource } from "typeorm";
 import { SENSOR_LATE_LIMIT_DAYS } from "../../../src/lib/schemas/sensor-readings.js";
 import { endOfLocalDay } from "../../../src/lib/domain/working-days.js";
 import type { Clock } from "../../lib/clock.js";
 import type { Logger } from "../../lib/logger.js";
-import {
-  AIR_TEMPERATURE_C,
-  FUTURE_TOLERANCE_MS,
-  RELATIVE_HUMIDITY_PCT,
-  SURFACE_TEMPERATURE_C,
-  formatNumber,
-} from "../readings/csv/limits.js";
+import { FUTURE_TOLERANCE_MS } from "../readings/csv/limits.js";
 import { SENSOR_SECRET_PATTERN, sensorKeyHash } from "./credentials.js";
+import { checkJsonReadings, sqlDateTime, type CheckedBatch, type ReadingLimits, type SensorWindow } from "./reading-checks.js";
+import { checkCsvReadings } from "./readings-csv.js";
 import type { IngestOutcome, SensorIdentity, SensorReadingsListener, StoredReadingsBatch } from "./sensor-events.js";
 
 const DAY_MS = 86_400_000;
@@ -32,76 +29,32 @@ const DAY_MS = 86_400_000;
 const BACKFILL_AGE_MS = 3_600_000;
 const BACKFILL_QUIET_MS = 500;
 const BACKFILL_TELL_WITHIN_MS = 30_000;
-const BATTERY_PCT = { min: 0, max: 100 } as const;
-/** The file name is never opened: the statement's stream factory supplies the rows from memory. */
-const LOAD_SQL =
+/**
+ * Batches of at least this many readings are loaded one at a time (per app instance), while the next
+ * ones are being read and checked; smaller ones (live readings) never wait for them. Two bulk loads side
+ * by side into the one table took MariaDB twice the CPU for no more rows a second (measured on 2 cores,
+ * December 2026: 200 loads of 5 000 rows, 2.4–2.9 CPU-s one at a time, 5.1–5.6 two at a time).
+ */
+const BULK_ROWS = 1000;
+
+/**
+ * The file name is never opened: the statement's stream factory supplies the rows from memory. The
+ * sensor and the arrival time are the statement's own (both made here: an id and the clock's time), not
+ * repeated in every row.
+ */
+const loadSql = (sensorId: number, received: string) =>
   "LOAD DATA LOCAL INFILE 'sensor-readings-stream' IGNORE INTO TABLE sensor_readings CHARACTER SET utf8mb4 " +
   "FIELDS TERMINATED BY '\\t' LINES TERMINATED BY '\\n' " +
-  "(sensor_id, taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, battery_pct, received_at)";
+  "(taken_at, air_temperature_c, relative_humidity_pct, surface_temperature_c, battery_pct) " +
+  `SET sensor_id = ${Math.trunc(sensorId)}, received_at = TIMESTAMP'${received}'`;
+/** Rows go to MariaDB in pieces of at most this size, well under its max_allowed_packet (16 MB by default). */
+const LOAD_CHUNK_BYTES = 1 << 20;
 
-/** `2026-12-05T06:45:00Z`, `…:00.123Z`, `…:00+01:00`: seconds required, a zone required. */
-const TAKEN_AT = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2}):(\d{2})(\.\d{1,9})?(Z|[+-]\d{2}:\d{2})$/;
-const DAYS_IN_MONTH = [31, 29, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
-
-const pad2 = (n: number) => (n < 10 ? `0${n}` : String(n));
-
-/** The reading time in ms (whole seconds, UTC), or a reason. No Date object on the common path. */
-function parseTakenAt(text: string): number | string {
-  const m = TAKEN_AT.exec(text);
-  if (!m) {
-    return /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?$/.test(text)
-      ? "takenAt has no time zone: end it with Z or an offset such as +01:00."
-      : "takenAt is not an ISO 8601 date and time (e.g. 2026-12-05T06:45:00Z).";
-  }
-  const year = +m[1]!;
-  const month = +m[2]!;
-  const day = +m[3]!;
-  const hour = +m[4]!;
-  const minute = +m[5]!;
-  const second = +m[6]!;
-  const leap = year % 4 === 0 && (year % 100 !== 0 || year % 400 === 0);
-  if (
-    month < 1 ||
-    month > 12 ||
-    day < 1 ||
-    day > (month === 2 && !leap ? 28 : DAYS_IN_MONTH[month - 1]!) ||
-    hour > 23 ||
-    minute > 59 ||
-    second > 59
-  ) {
-    return "takenAt is not a real date and time.";
-  }
-  let ms = Date.UTC(year, month - 1, day, hour, minute, second);
-  const zone = m[8]!;
-  if (zone !== "Z") {
-    const offsetMin = +zone.slice(1, 3) * 60 + +zone.slice(4, 6);
-    if (+zone.slice(1, 3) > 23 || +zone.slice(4, 6) > 59) return "takenAt has an impossible offset.";
-    ms -= (zone[0] === "-" ? -1 : 1) * offsetMin * 60_000;
-  }
-  return ms;
-}
-
-/** "YYYY-MM-DD HH:MM:SS" in UTC for MariaDB (the connection's zone is UTC). */
-function sqlDateTime(ms: number, text: string): string {
-  // The common case (Z, no fraction) is the text itself with a space.
-  if (text.length === 20 && text.charCodeAt(19) === 90 /* Z */) return `${text.slice(0, 10)} ${text.slice(11, 19)}`;
-  const d = new Date(ms);
-  return `${d.getUTCFullYear()}-${pad2(d.getUTCMonth() + 1)}-${pad2(d.getUTCDate())} ${pad2(d.getUTCHours())}:${pad2(
-    d.getUTCMinutes(),
-  )}:${pad2(d.getUTCSeconds())}`;
+function* chunks(rows: Buffer): Generator<Buffer> {
+  for (let at = 0; at < rows.length; at += LOAD_CHUNK_BYTES) yield rows.subarray(at, at + LOAD_CHUNK_BYTES);
 }
 
 const sqlDateTimeMs = (d: Date) => d.toISOString().slice(0, 23).replace("T", " ");
-const isNum = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
-/** Two decimals, as the columns keep them; never exponent notation for the column's range. */
-const dec2 = (v: number) => String(Math.round(v * 100) / 100);
-
-/** The days a sensor may record in: from the start of its installation day to the end of its removal day (London). */
-interface SensorWindow {
-  fromMs: number;
-  toMs: number;
-  active: boolean;
-}
 
 export class SensorIngestService {
   private readonly listeners: SensorReadingsListener[] = [];
@@ -111,6 +64,8 @@ export class SensorIngestService {
   private readonly untold = new Map<number, { batch: StoredReadingsBatch; bySensor: Map<number, number> }>();
   private untoldSince = 0;
   private quietTimer: NodeJS.Timeout | null = null;
+  /** Bulk LOAD DATA statements run one at a time (see BULK_ROWS). */
+  private readonly bulkLoads = pLimit(1);
 
   constructor(
     private readonly dataSource: DataSource,
@@ -216,19 +171,33 @@ export class SensorIngestService {
   }
 
   /**
-   * Checks and stores a batch for one sensor. Each reading is stored, a duplicate of one stored before
-   * (same sensor and second: the first value stays), or refused with its reason; one transaction for
-   * all of it, then the listeners are told. The sensor is read again here, so one revoked or removed
-   * after it was identified stores nothing.
+   * Checks and stores a batch of JSON readings (an HTTP body's or an MQTT payload's) for one sensor.
+   * Each reading is stored, a duplicate of one stored before (same sensor and second: the first value
+   * stays), or refused with its reason; one transaction for all of it, then the listeners are told. The
+   * sensor is read again here, so one revoked or removed after it was identified stores nothing.
    */
   async ingest(sensor: SensorIdentity, readings: unknown[], via: "http" | "mqtt"): Promise<IngestOutcome> {
+    return this.run(sensor, readings.length, via, (limits) => checkJsonReadings(readings, limits));
+  }
+
+  /** The same for a CSV body (readings-csv.ts): a header it cannot read is a 400 and stores nothing. */
+  async ingestCsv(sensor: SensorIdentity, body: Buffer): Promise<IngestOutcome> {
+    return this.run(sensor, 0, "http", (limits) => checkCsvReadings(body, limits));
+  }
+
+  private async run(
+    sensor: SensorIdentity,
+    sent: number,
+    via: "http" | "mqtt",
+    check: (limits: ReadingLimits) => CheckedBatch | Promise<CheckedBatch>,
+  ): Promise<IngestOutcome> {
     this.inFlight++;
     if (this.quietTimer) {
       clearTimeout(this.quietTimer);
       this.quietTimer = null;
     }
     try {
-      return await this.checkAndStore(sensor, readings, via);
+      return await this.checkAndStore(sensor, sent, via, check);
     } finally {
       this.inFlight--;
       if (this.untold.size > 0) {
@@ -244,65 +213,48 @@ export class SensorIngestService {
     }
   }
 
-  private async checkAndStore(sensor: SensorIdentity, readings: unknown[], via: "http" | "mqtt"): Promise<IngestOutcome> {
-    const refused: IngestOutcome["refused"] = [];
+  private async checkAndStore(
+    sensor: SensorIdentity,
+    sent: number,
+    via: "http" | "mqtt",
+    check: (limits: ReadingLimits) => CheckedBatch | Promise<CheckedBatch>,
+  ): Promise<IngestOutcome> {
     const window = await this.windowOf(sensor.id);
-    if (!window?.active) {
-      readings.forEach((r, index) =>
-        refused.push({ index, takenAt: takenAtText(r), reason: "This sensor is no longer active (revoked or removed)." }),
-      );
-      return { stored: 0, duplicates: 0, refused };
-    }
     const receivedAt = this.clock.now();
     const nowMs = receivedAt.getTime();
-    const latestMs = nowMs + FUTURE_TOLERANCE_MS;
-    const earliestMs = nowMs - SENSOR_LATE_LIMIT_DAYS * DAY_MS;
-    const received = sqlDateTimeMs(receivedAt);
-    const prefix = `${sensor.id}\t`;
-
-    const values: string[] = [];
-    let newestMs = Number.NEGATIVE_INFINITY;
-    for (let index = 0; index < readings.length; index++) {
-      const r = readings[index] as Record<string, unknown> | null;
-      if (typeof r !== "object" || r === null || Array.isArray(r)) {
-        refused.push({ index, takenAt: null, reason: "Not a reading: each reading is an object." });
-        continue;
-      }
-      const text = r.takenAt;
-      if (typeof text !== "string") {
-        refused.push({ index, takenAt: null, reason: "takenAt is missing or not text." });
-        continue;
-      }
-      const reason = this.check(r, text, window, earliestMs, latestMs);
-      if (typeof reason === "string") {
-        refused.push({ index, takenAt: text.slice(0, 40), reason });
-        continue;
-      }
-      if (reason > newestMs) newestMs = reason;
-      const air = r.airTemperatureC as number;
-      const rh = r.relativeHumidityPct as number;
-      const surface = r.surfaceTemperatureC;
-      const battery = r.batteryPct;
-      values.push(
-        `${prefix}${sqlDateTime(reason, text)}\t${dec2(air)}\t${dec2(rh)}\t${isNum(surface) ? dec2(surface) : "\\N"}\t${
-          isNum(battery) ? String(Math.round(battery)) : "\\N"
-        }\t${received}\n`,
-      );
+    const limits: ReadingLimits = {
+      window: window ?? { fromMs: 0, toMs: 0, active: false },
+      latestMs: nowMs + FUTURE_TOLERANCE_MS,
+      earliestMs: nowMs - SENSOR_LATE_LIMIT_DAYS * DAY_MS,
+    };
+    const batch = await check(limits);
+    if (!window?.active) {
+      // Every reading is refused; the batch was still read, so a CSV's readings are counted and named.
+      const inactive = "This sensor is no longer active (revoked or removed).";
+      const total = Math.max(sent, batch.count + batch.refused.length);
+      const byIndex = new Map(batch.refused.map((r) => [r.index, r.takenAt]));
+      const refused = Array.from({ length: total }, (_, index) => ({
+        index,
+        takenAt: byIndex.get(index) ?? null,
+        reason: inactive,
+      }));
+      return { stored: 0, duplicates: 0, refused };
     }
 
     let stored = 0;
-    if (values.length > 0) {
-      const newest = sqlDateTime(newestMs, "");
-      stored = await this.load(sensor.id, values, newest);
-    }
-    const outcome: IngestOutcome = { stored, duplicates: values.length - stored, refused };
+    if (batch.count > 0)
+      stored = await this.load(sensor.id, batch.rows, batch.count, sqlDateTime(batch.newestMs, ""), sqlDateTimeMs(receivedAt));
+    const outcome: IngestOutcome = { stored, duplicates: batch.count - stored, refused: batch.refused };
     if (stored > 0) {
-      const backfill = nowMs - newestMs > BACKFILL_AGE_MS;
-      if (backfill && (this.inFlight > 1 || this.untold.size > 0)) this.holdBackfill(sensor, newestMs, receivedAt);
-      else this.notify(sensor, new Date(newestMs), receivedAt);
+      const backfill = nowMs - batch.newestMs > BACKFILL_AGE_MS;
+      if (backfill && (this.inFlight > 1 || this.untold.size > 0)) this.holdBackfill(sensor, batch.newestMs, receivedAt);
+      else this.notify(sensor, new Date(batch.newestMs), receivedAt);
     }
-    if (refused.length > 0) {
-      this.logger?.debug({ sensorId: sensor.id, via, refused: refused.length, first: refused[0] }, "sensor readings refused");
+    if (batch.refused.length > 0) {
+      this.logger?.debug(
+        { sensorId: sensor.id, via, refused: batch.refused.length, first: batch.refused[0] },
+        "sensor readings refused",
+      );
     }
     return outcome;
   }
@@ -310,76 +262,44 @@ export class SensorIngestService {
   /**
    * One transaction: the rows through LOAD DATA LOCAL from memory (the stream technique of the stock
    * import; MariaDB takes it several times faster than the same rows as INSERT … VALUES), duplicates
-   * skipped by IGNORE and counted from the affected rows, then last_reading_at moved forward.
+   * skipped by IGNORE and counted from the affected rows, then last_reading_at moved forward. A bulk
+   * batch waits for its turn before it takes a connection (so waiting batches hold none), and gives the
+   * turn up once its rows are in: the next one loads while this one commits.
    */
-  private async load(sensorId: number, lines: string[], newest: string): Promise<number> {
-    const runner = this.dataSource.createQueryRunner();
-    const raw = (await runner.connect()) as PoolConnection;
-    const db = raw.promise();
-    try {
-      await runner.startTransaction();
+  private async load(sensorId: number, rows: Buffer, count: number, newest: string, received: string): Promise<number> {
+    const loadRows = async () => {
+      const runner = this.dataSource.createQueryRunner();
       try {
+        const db = ((await runner.connect()) as PoolConnection).promise();
+        await runner.startTransaction();
         const [loaded] = await db.query<ResultSetHeader>({
-          sql: LOAD_SQL,
-          infileStreamFactory: () => Readable.from([Buffer.from(lines.join(""), "utf8")]),
+          sql: loadSql(sensorId, received),
+          infileStreamFactory: () => Readable.from(chunks(rows)),
         });
-        const inserted = loaded.affectedRows;
-        if (inserted > 0) {
-          await db.query("UPDATE sensors SET last_reading_at = GREATEST(COALESCE(last_reading_at, ?), ?) WHERE id = ?", [
-            newest,
-            newest,
-            sensorId,
-          ]);
-        }
-        await runner.commitTransaction();
-        return inserted;
+        return { runner, db, inserted: loaded.affectedRows };
       } catch (err) {
-        await runner.rollbackTransaction();
+        if (runner.isTransactionActive) await runner.rollbackTransaction().catch(() => undefined);
+        await runner.release();
         throw err;
       }
+    };
+    const { runner, db, inserted } = count < BULK_ROWS ? await loadRows() : await this.bulkLoads(loadRows);
+    try {
+      if (inserted > 0) {
+        await db.query("UPDATE sensors SET last_reading_at = GREATEST(COALESCE(last_reading_at, ?), ?) WHERE id = ?", [
+          newest,
+          newest,
+          sensorId,
+        ]);
+      }
+      await runner.commitTransaction();
+      return inserted;
+    } catch (err) {
+      await runner.rollbackTransaction().catch(() => undefined);
+      throw err;
     } finally {
       await runner.release();
     }
-  }
-
-  /** The reading's time in ms, or why it is refused. */
-  private check(
-    r: Record<string, unknown>,
-    text: string,
-    w: SensorWindow,
-    earliestMs: number,
-    latestMs: number,
-  ): number | string {
-    const ms = parseTakenAt(text);
-    if (typeof ms === "string") return ms;
-    if (ms > latestMs) return "takenAt is in the future (by the server's clock).";
-    if (ms < earliestMs) return `takenAt is more than ${SENSOR_LATE_LIMIT_DAYS} days ago: too late to take in.`;
-    if (ms < w.fromMs) return "takenAt is before the sensor was installed.";
-    if (ms > w.toMs) return "takenAt is after the sensor was removed.";
-    const air = r.airTemperatureC;
-    if (!isNum(air)) return "airTemperatureC is missing or not a number.";
-    if (air < AIR_TEMPERATURE_C.min || air > AIR_TEMPERATURE_C.max) {
-      return `airTemperatureC ${formatNumber(air)} °C is outside ${formatNumber(AIR_TEMPERATURE_C.min)}…${AIR_TEMPERATURE_C.max} °C.`;
-    }
-    const rh = r.relativeHumidityPct;
-    if (!isNum(rh)) return "relativeHumidityPct is missing or not a number.";
-    if (rh <= RELATIVE_HUMIDITY_PCT.above || rh > RELATIVE_HUMIDITY_PCT.max) {
-      return `relativeHumidityPct ${formatNumber(rh)} % is outside the range above 0 and up to 100 %.`;
-    }
-    const surface = r.surfaceTemperatureC;
-    if (surface !== undefined && surface !== null) {
-      if (!isNum(surface)) return "surfaceTemperatureC is not a number.";
-      if (surface < SURFACE_TEMPERATURE_C.min || surface > SURFACE_TEMPERATURE_C.max) {
-        return `surfaceTemperatureC ${formatNumber(surface)} °C is outside ${formatNumber(SURFACE_TEMPERATURE_C.min)}…${SURFACE_TEMPERATURE_C.max} °C.`;
-      }
-    }
-    const battery = r.batteryPct;
-    if (battery !== undefined && battery !== null) {
-      if (!isNum(battery)) return "batteryPct is not a number.";
-      if (battery < BATTERY_PCT.min || battery > BATTERY_PCT.max)
-        return `batteryPct ${formatNumber(battery)} is outside 0…100 %.`;
-    }
-    return ms;
   }
 
   /** A backfilled sensor to tell about with the others once the ingest is quiet (see BACKFILL_AGE_MS). */
@@ -429,9 +349,4 @@ export class SensorIngestService {
       }
     }
   }
-}
-
-function takenAtText(r: unknown): string | null {
-  const t = (r as { takenAt?: unknown } | null)?.takenAt;
-  return typeof t === "string" ? t.slice(0, 40) : null;
 }

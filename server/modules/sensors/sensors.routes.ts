@@ -11,7 +11,7 @@ import { sensorReadingBatch } from "../../../src/lib/schemas/sensor-readings.js"
 import { sensorCreateSchema, sensorPatchSchema, sensorRemoveSchema } from "../../../src/lib/schemas/sensors.js";
 import { shaped } from "../../lib/contract.js";
 import type { Clock } from "../../lib/clock.js";
-import { ForbiddenError, UnauthorizedError } from "../../lib/errors.js";
+import { ForbiddenError, UnauthorizedError, UnsupportedMediaTypeError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import type { SensorIdentity } from "./sensor-events.js";
@@ -23,6 +23,8 @@ import { homeParamsSchema, sensorListQuerySchema, sensorParamsSchema, sensorSeri
 const DAY_MS = 86_400_000;
 /** SENSOR_BATCH_MAX readings of ~200 bytes each, with room for whitespace. */
 export const SENSOR_INGEST_BODY_LIMIT = "4mb";
+/** SENSOR_CSV_BATCH_MAX CSV lines of ~45 bytes each (up to ~80 with offsets and long decimals). */
+const SENSOR_CSV_BODY_LIMIT = "4mb";
 const lead = requireRole("admin", "maintenance");
 
 /**
@@ -41,14 +43,26 @@ export function createSensorIngestRouter({ ingest }: { ingest: SensorIngestServi
     devices.set(req, sensor);
     next();
   };
-  router.post("/readings", authenticate, express.json({ limit: SENSOR_INGEST_BODY_LIMIT }), async (req, res) => {
+  // JSON (`sensorReadingBatch`) or CSV (`SENSOR_CSV_COLUMNS`, the backlog form: read from the raw bytes).
+  const bodies = [
+    express.json({ limit: SENSOR_INGEST_BODY_LIMIT }),
+    express.raw({ type: "text/csv", limit: SENSOR_CSV_BODY_LIMIT }),
+  ];
+  router.post("/readings", authenticate, ...bodies, async (req, res) => {
     const sensor = devices.get(req);
     if (!sensor) throw new UnauthorizedError();
-    const batch = parse(sensorReadingBatch, req.body);
-    if (batch.serial !== undefined && batch.serial !== sensor.serial) {
-      throw new ForbiddenError("This key belongs to another sensor: a sensor can only send its own readings.", "wrong_sensor");
+    let outcome;
+    if (Buffer.isBuffer(req.body)) {
+      outcome = await ingest.ingestCsv(sensor, req.body);
+    } else if (req.is("application/json")) {
+      const batch = parse(sensorReadingBatch, req.body);
+      if (batch.serial !== undefined && batch.serial !== sensor.serial) {
+        throw new ForbiddenError("This key belongs to another sensor: a sensor can only send its own readings.", "wrong_sensor");
+      }
+      outcome = await ingest.ingest(sensor, batch.readings, "http");
+    } else {
+      throw new UnsupportedMediaTypeError("Send the readings as JSON (application/json) or as CSV (text/csv).");
     }
-    const outcome = await ingest.ingest(sensor, batch.readings, "http");
     res.json(shaped(sensorIngestResponse, outcome));
   });
   return router;

@@ -30,3 +30,19 @@ export const sensorReadingBatch = z.object({
   readings: z.array(z.unknown()).min(1).max(SENSOR_BATCH_MAX),
 });
 export type SensorReadingBatch = z.infer<typeof sensorReadingBatch>;
+
+/**
+ * The same readings as CSV (`Content-Type: text/csv`, for a gateway's or logger's backlog): a header
+ * line naming these columns in any order (surface and battery may be left out), then one reading a
+ * line; times as above, numbers plain decimals, an empty surface or battery field "not measured".
+ */
+export const SENSOR_CSV_COLUMNS = [
+  "takenAt",
+  "airTemperatureC",
+  "relativeHumidityPct",
+  "surfaceTemperatureC",
+  "batteryPct",
+] as const satisfies readonly (keyof IncomingSensorReading)[];
+export const SENSOR_CSV_REQUIRED = ["takenAt", "airTemperatureC", "relativeHumidityPct"] as const;
+/** At most this many readings in one CSV body: a logger's month at 1-minute intervals, with room to spare. */
+export const SENSOR_CSV_BATCH_MAX = 50_000;
