@@ -88,6 +88,8 @@ describe("registering a sensor", () => {
     expect(await screen.findByRole("textbox", { name: "Device secret" })).toHaveValue(SECRET);
     expect(screen.getByText("sensors/s5/readings")).toBeInTheDocument();
     expect(screen.getByText("s5")).toBeInTheDocument();
+    // How to send a backlog: the CSV header the ingest reads.
+    expect(screen.getByText("takenAt,airTemperatureC,relativeHumidityPct,surfaceTemperatureC,batteryPct")).toBeInTheDocument();
     const sent = callsTo("POST", "/api/sensors")[0]!.body as Record<string, unknown>;
     expect(sent).toMatchObject({
       propertyId: 7,

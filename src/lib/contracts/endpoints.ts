@@ -580,7 +580,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
     "POST",
     "/api/sensor-ingest/readings",
     "public",
-    "A sensor's readings: `Authorization: Bearer <the sensor's secret>`, no session, no CSRF token",
+    "A sensor's readings as JSON, or as CSV (`text/csv`, a header line then a reading a line: the form for a backlog): `Authorization: Bearer <the sensor's secret>`, no session, no CSRF token",
     sensorIngestResponse,
   ),
 ];

@@ -2,6 +2,7 @@ import { useId, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import type { SensorCredentialsResponse } from "@/lib/contracts";
+import { SENSOR_CSV_COLUMNS } from "@/lib/schemas/sensor-readings";
 
 /** A sensor's secret, shown once: Dewline keeps only hashes of it, so it cannot be shown again. */
 export function SensorCredentials({ result, onDone }: { result: SensorCredentialsResponse; onDone: () => void }) {
@@ -32,6 +33,11 @@ export function SensorCredentials({ result, onDone }: { result: SensorCredential
         <dd className="font-mono">{credentials.mqttTopic}</dd>
         <dt className="font-semibold">Or over HTTP</dt>
         <dd className="font-mono">POST {credentials.httpPath} with Authorization: Bearer &lt;secret&gt;</dd>
+        <dt className="font-semibold">A backlog as CSV</dt>
+        <dd>
+          The same request with <span className="font-mono">Content-Type: text/csv</span>, a header line{" "}
+          <span className="font-mono break-all">{SENSOR_CSV_COLUMNS.join(",")}</span>, then one reading a line.
+        </dd>
       </dl>
       <div className="mt-3 flex flex-wrap gap-2">
         <Button
