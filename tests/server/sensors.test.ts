@@ -458,6 +458,7 @@ describe("HTTP ingest as CSV (the backlog form)", () => {
     ).toContain("lacks relativeHumidityPct");
     await postCsv(credentials.secret, `takenAt,takenAt,airTemperatureC,relativeHumidityPct\n`).expect(400);
     await postCsv(credentials.secret, "takenAt,airTemperatureC,relativeHumidityPct\n\n").expect(400);
+    expect((await postCsv(credentials.secret, "").expect(400)).body.error.message).toContain("The CSV is empty");
     const start = daysAgo(20).getTime();
     const many = Array.from({ length: 50_001 }, (_, i) => `${iso(new Date(start + i * 30_000))},19,70`).join("\n");
     const tooMany = await postCsv(credentials.secret, `takenAt,airTemperatureC,relativeHumidityPct\n${many}\n`).expect(400);

@@ -32,6 +32,7 @@ const MINUS = 45;
 const DOT = 46;
 const ZERO = 48;
 const NONE = Buffer.from("\\N");
+export const EMPTY = "The CSV is empty: send a header line, then a reading a line.";
 /** Lines checked between pauses (about half a millisecond's work on a 2-core machine). */
 const YIELD_EVERY = 1000;
 
@@ -123,6 +124,10 @@ function plainUtc(b: Buffer, s: number, e: number): number {
  */
 export async function checkCsvReadings(body: Buffer, limits: ReadingLimits): Promise<CheckedBatch> {
   let pos = body.length >= 3 && body[0] === 0xef && body[1] === 0xbb && body[2] === 0xbf ? 3 : 0;
+  let first = pos;
+  while (first < body.length && (body[first] === NL || body[first] === CR || body[first] === SPACE || body[first] === TAB))
+    first++;
+  if (first === body.length) throw new ValidationError(EMPTY);
   let headerEnd = body.indexOf(NL, pos);
   if (headerEnd < 0) headerEnd = body.length;
   const columns = readHeader(body.toString("utf8", pos, headerEnd).replace(/\r$/, ""));

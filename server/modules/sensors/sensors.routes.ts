@@ -11,11 +11,12 @@ import { sensorReadingBatch } from "../../../src/lib/schemas/sensor-readings.js"
 import { sensorCreateSchema, sensorPatchSchema, sensorRemoveSchema } from "../../../src/lib/schemas/sensors.js";
 import { shaped } from "../../lib/contract.js";
 import type { Clock } from "../../lib/clock.js";
-import { ForbiddenError, UnauthorizedError, UnsupportedMediaTypeError } from "../../lib/errors.js";
+import { ForbiddenError, UnauthorizedError, UnsupportedMediaTypeError, ValidationError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
 import type { SensorIdentity } from "./sensor-events.js";
 import type { SensorIngestService } from "./sensor-ingest.service.js";
+import { EMPTY as EMPTY_CSV } from "./readings-csv.js";
 import { toSensorCredentialsDto, toSensorDto } from "./sensor.mapper.js";
 import type { SensorService } from "./sensor.service.js";
 import { homeParamsSchema, sensorListQuerySchema, sensorParamsSchema, sensorSeriesQuerySchema } from "./sensors.schemas.js";
@@ -60,6 +61,8 @@ export function createSensorIngestRouter({ ingest }: { ingest: SensorIngestServi
         throw new ForbiddenError("This key belongs to another sensor: a sensor can only send its own readings.", "wrong_sensor");
       }
       outcome = await ingest.ingest(sensor, batch.readings, "http");
+    } else if (req.is("text/csv")) {
+      throw new ValidationError(EMPTY_CSV);
     } else {
       throw new UnsupportedMediaTypeError("Send the readings as JSON (application/json) or as CSV (text/csv).");
     }
