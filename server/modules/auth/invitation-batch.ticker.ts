@@ -1,4 +1,5 @@
 import type { Logger } from "../../lib/logger.js";
+import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { InvitationBatchService } from "./invitation-batch.service.js";
 
 /**
@@ -11,22 +12,13 @@ export function startInvitationBatches(
   logger: Logger,
   { everyMs }: { everyMs: number },
 ): () => Promise<void> {
-  let running: Promise<void> | null = null;
-  const timer = setInterval(() => {
-    if (running) return;
-    running = batches
-      .releaseDue()
-      .then((n) => {
-        if (n) logger.info({ released: n }, "queued invitations released");
-      })
-      .catch((error: unknown) => logger.error({ err: error }, "releasing queued invitations failed"))
-      .finally(() => {
-        running = null;
-      });
-  }, everyMs);
-  timer.unref();
-  return async () => {
-    clearInterval(timer);
-    await running;
-  };
+  return startRepeatingJob({
+    everyMs,
+    logger,
+    failure: "releasing queued invitations failed",
+    run: async () => {
+      const n = await batches.releaseDue();
+      if (n) logger.info({ released: n }, "queued invitations released");
+    },
+  });
 }

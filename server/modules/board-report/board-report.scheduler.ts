@@ -1,4 +1,5 @@
 import type { Logger } from "../../lib/logger.js";
+import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { BoardReportService } from "./board-report.service.js";
 
 const EVERY_MS = 60 * 60_000;
@@ -13,20 +14,5 @@ export function startBoardReports(
   logger: Logger,
   { everyMs = EVERY_MS }: { everyMs?: number } = {},
 ): () => Promise<void> {
-  let running: Promise<void> | null = null;
-  const timer = setInterval(() => {
-    if (running) return;
-    running = reports
-      .sendDue()
-      .then(() => undefined)
-      .catch((error: unknown) => logger.error({ err: error }, "board reports failed"))
-      .finally(() => {
-        running = null;
-      });
-  }, everyMs);
-  timer.unref();
-  return async () => {
-    clearInterval(timer);
-    await running;
-  };
+  return startRepeatingJob({ everyMs, logger, failure: "board reports failed", run: () => reports.sendDue() });
 }

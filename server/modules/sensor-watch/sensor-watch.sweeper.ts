@@ -1,4 +1,5 @@
 import type { Logger } from "../../lib/logger.js";
+import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { SensorWatchService } from "./sensor-watch.service.js";
 
 const SWEEP_EVERY_MS = 60_000;
@@ -12,26 +13,19 @@ export function startSensorWatchSweep(
   logger: Logger,
   { everyMs = SWEEP_EVERY_MS }: { everyMs?: number } = {},
 ): () => Promise<void> {
-  let running: Promise<void> | null = null;
-  const run = () => {
-    if (running) return;
-    running = watch
-      .sweep()
-      .then((n) => {
-        if (n) logger.debug({ rooms: n }, "sensor rooms queued by the sweep");
-      })
-      .catch((error: unknown) => logger.error({ err: error }, "sensor watch sweep failed"))
-      .finally(() => {
-        running = null;
-      });
-  };
-  // At start-up too: what the last process left undone.
-  run();
-  const timer = setInterval(run, everyMs);
-  timer.unref();
+  const stop = startRepeatingJob({
+    everyMs,
+    logger,
+    failure: "sensor watch sweep failed",
+    // At start-up too: what the last process left undone.
+    atStart: true,
+    run: async () => {
+      const n = await watch.sweep();
+      if (n) logger.debug({ rooms: n }, "sensor rooms queued by the sweep");
+    },
+  });
   return async () => {
-    clearInterval(timer);
-    await running;
+    await stop();
     await watch.drain();
   };
 }

@@ -1,4 +1,5 @@
 import type { Logger } from "../../lib/logger.js";
+import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { SensorHealthService } from "./sensor-health.service.js";
 
 const SWEEP_EVERY_MS = 60_000;
@@ -13,22 +14,13 @@ export function startSensorHealthSweeper(
   logger: Logger,
   { everyMs = SWEEP_EVERY_MS }: { everyMs?: number } = {},
 ): () => Promise<void> {
-  let running: Promise<void> | null = null;
-  const timer = setInterval(() => {
-    if (running) return;
-    running = sensorHealth
-      .sweep()
-      .then((checked) => {
-        if (checked.length) logger.debug({ checked: checked.length }, "sensor health checked");
-      })
-      .catch((error: unknown) => logger.error({ err: error }, "sensor health sweep failed"))
-      .finally(() => {
-        running = null;
-      });
-  }, everyMs);
-  timer.unref();
-  return async () => {
-    clearInterval(timer);
-    await running;
-  };
+  return startRepeatingJob({
+    everyMs,
+    logger,
+    failure: "sensor health sweep failed",
+    run: async () => {
+      const checked = await sensorHealth.sweep();
+      if (checked.length) logger.debug({ checked: checked.length }, "sensor health checked");
+    },
+  });
 }

@@ -1,4 +1,5 @@
 import type { Logger } from "../../lib/logger.js";
+import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { TriageService } from "./triage.service.js";
 
 const SWEEP_EVERY_MS = 30_000;
@@ -13,22 +14,13 @@ export function startTriageSweeper(
   logger: Logger,
   { everyMs = SWEEP_EVERY_MS }: { everyMs?: number } = {},
 ): () => Promise<void> {
-  let running: Promise<void> | null = null;
-  const timer = setInterval(() => {
-    if (running) return;
-    running = triage
-      .refreshStale(undefined, 500)
-      .then((n) => {
-        if (n) logger.debug({ refreshed: n }, "triage figures refreshed");
-      })
-      .catch((error: unknown) => logger.error({ err: error }, "triage sweep failed"))
-      .finally(() => {
-        running = null;
-      });
-  }, everyMs);
-  timer.unref();
-  return async () => {
-    clearInterval(timer);
-    await running;
-  };
+  return startRepeatingJob({
+    everyMs,
+    logger,
+    failure: "triage sweep failed",
+    run: async () => {
+      const n = await triage.refreshStale(undefined, 500);
+      if (n) logger.debug({ refreshed: n }, "triage figures refreshed");
+    },
+  });
 }

@@ -1,4 +1,5 @@
 import type { Logger } from "../../lib/logger.js";
+import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { VerificationService } from "./verification.service.js";
 
 const EVERY_MS = 10 * 60_000;
@@ -12,20 +13,10 @@ export function startMonitoringReminders(
   logger: Logger,
   { everyMs = EVERY_MS }: { everyMs?: number } = {},
 ): () => Promise<void> {
-  let running: Promise<void> | null = null;
-  const timer = setInterval(() => {
-    if (running) return;
-    running = verification
-      .sendDueReminders()
-      .then(() => undefined)
-      .catch((error: unknown) => logger.error({ err: error }, "monitoring reminders failed"))
-      .finally(() => {
-        running = null;
-      });
-  }, everyMs);
-  timer.unref();
-  return async () => {
-    clearInterval(timer);
-    await running;
-  };
+  return startRepeatingJob({
+    everyMs,
+    logger,
+    failure: "monitoring reminders failed",
+    run: () => verification.sendDueReminders(),
+  });
 }
