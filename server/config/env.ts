@@ -120,6 +120,19 @@ const schema = z
     MQTT_BATCH_MS: z.coerce.number().int().min(0).max(10_000).default(250),
     MQTT_BATCH_READINGS: z.coerce.number().int().min(1).max(50_000).default(2000),
     MQTT_IDENTITY_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
+    STORAGE_DRIVER: z.enum(["disk", "s3"], "STORAGE_DRIVER must be disk or s3").default("disk"),
+    S3_ENDPOINT: z.url("S3_ENDPOINT must be a URL such as http://127.0.0.1:18900").optional(),
+    S3_REGION: z.string().min(1).default("us-east-1"),
+    S3_BUCKET: z
+      .string()
+      .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, "S3_BUCKET must be 3–63 lower-case letters, digits, dots or hyphens")
+      .optional(),
+    S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+    S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+    S3_FORCE_PATH_STYLE: z
+      .enum(["true", "false", "1", "0"], "S3_FORCE_PATH_STYLE must be true or false")
+      .default("true")
+      .transform((v) => v === "true" || v === "1"),
   })
   .superRefine((env, ctx) => {
     const trust = parseTrustProxy(env.TRUST_PROXY);
@@ -130,6 +143,11 @@ const schema = z
         path: ["MQTT_PASSWORD"],
         message: "MQTT_PASSWORD must be set with MQTT_BROKER_DIR (the app's own line in the broker's password file)",
       });
+    }
+    if (env.STORAGE_DRIVER === "s3") {
+      for (const key of ["S3_BUCKET", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"] as const) {
+        if (!env[key]) ctx.addIssue({ code: "custom", path: [key], message: `${key} must be set with STORAGE_DRIVER=s3` });
+      }
     }
     if (env.NODE_ENV === "production") {
       for (const key of ["DB_PASSWORD", "SESSION_SECRET", "APP_URL"] as const) {
@@ -157,7 +175,10 @@ export interface Config {
   /** Queued invitations (tenancy imports): at most `perBatch` released every `intervalMs`. */
   invitationBatches: { perBatch: number; intervalMs: number };
   demoPassword: string;
+  /** The photo store's folder with the disk driver, and (whatever the driver) the home of .incoming uploads. */
   uploadsDir: string;
+  /** Where photos are kept (server/lib/storage.ts): files under uploadsDir, or an S3-compatible bucket. */
+  storage: StorageConfig;
   /** Where `npm run backup` writes its timestamped folders. */
   backupsDir: string;
   clientDistDir: string;
@@ -185,6 +206,19 @@ export interface Config {
   weather: { url: string; timeoutMs: number; forecastMaxAgeMs: number };
   mqtt: MqttConfig;
 }
+
+export interface S3StoreOptions {
+  /** The service's URL (a local stand-in, or a hosted S3-compatible service); omitted: AWS itself. */
+  endpoint?: string;
+  region: string;
+  bucket: string;
+  accessKeyId: string;
+  secretAccessKey: string;
+  /** Bucket in the path (http://host/bucket/key) rather than the host name: what most S3-compatible servers want. */
+  forcePathStyle: boolean;
+}
+
+export type StorageConfig = { driver: "disk"; root: string } | ({ driver: "s3" } & S3StoreOptions);
 
 /** Sensor readings over MQTT (server/modules/sensors/mqtt/). */
 export interface MqttConfig {
@@ -264,6 +298,19 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     invitationBatches: { perBatch: e.INVITATIONS_PER_BATCH, intervalMs: e.INVITATION_BATCH_INTERVAL_MS },
     demoPassword: e.DEMO_PASSWORD,
     uploadsDir: e.UPLOADS_DIR,
+    storage:
+      e.STORAGE_DRIVER === "s3"
+        ? {
+            driver: "s3",
+            endpoint: e.S3_ENDPOINT,
+            region: e.S3_REGION,
+            // Present: the check above refuses s3 without them.
+            bucket: e.S3_BUCKET!,
+            accessKeyId: e.S3_ACCESS_KEY_ID!,
+            secretAccessKey: e.S3_SECRET_ACCESS_KEY!,
+            forcePathStyle: e.S3_FORCE_PATH_STYLE,
+          }
+        : { driver: "disk", root: e.UPLOADS_DIR },
     backupsDir: e.BACKUP_DIR,
     clientDistDir: e.CLIENT_DIST_DIR,
     logLevel: e.LOG_LEVEL ?? (e.NODE_ENV === "test" ? "silent" : "info"),
