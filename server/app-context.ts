@@ -8,6 +8,7 @@ import { createDataSource, sessionStoreConnection } from "./db/create-data-sourc
 import { CachedSessionStore } from "./modules/auth/cached-session-store.js";
 import { createLogger, type Logger } from "./lib/logger.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
+import { createObjectStore, type ObjectStore } from "./lib/storage.js";
 import { AssessmentService } from "./modules/assessments/assessment.service.js";
 import { InspectionService } from "./modules/inspections/inspection.service.js";
 import { PolicyService } from "./modules/policy/policy.service.js";
@@ -100,6 +101,8 @@ export interface AppContext {
   mailer: Mailer;
   /** Worker threads for CPU-heavy work, so it never holds up other requests. */
   workers: WorkerPool;
+  /** Where photos are kept: files under UPLOADS_DIR, or an S3-compatible bucket (STORAGE_DRIVER). */
+  store: ObjectStore;
   sessionStore: session.Store;
   services: Services;
   close(): Promise<void>;
@@ -115,6 +118,8 @@ export function createServices(
   workers: WorkerPool = new WorkerPool(config.workers),
   // The app's session store, when sessions are served (its cached copies go when a user's sessions end).
   sessionStore?: CachedSessionStore,
+  // The photo store; scripts that build services on their own get the one the config names.
+  store: ObjectStore = createObjectStore(config.storage),
 ): Services {
   const { connectionMs, greetingMs, socketMs } = config.smtpTimeouts;
   const mail = new MailService(dataSource, mailer, logger, clock, {
@@ -150,7 +155,7 @@ export function createServices(
     leaseMs: Math.max(60_000, 3 * config.webhooks.timeoutMs),
   });
   cases.useEventListener(webhooks);
-  const photos = new PhotoService(dataSource, config, cases, workers, logger, clock);
+  const photos = new PhotoService(dataSource, config, cases, workers, logger, clock, store);
   const readings = new ReadingService(dataSource, cases, clock, {
     evaluator: (input) => workers.run("evaluateRoomFromDb", input),
     logger,
@@ -292,7 +297,8 @@ export async function createAppContext(config: Config, options: { migrate?: bool
   );
   // Each session is read once per burst of requests (SESSION_CACHE_MS), not once per request.
   const sessionStore = new CachedSessionStore(store, config.sessionCacheMs);
-  const services = createServices(config, dataSource, mailer, logger, clock, workers, sessionStore);
+  const objects = createObjectStore(config.storage);
+  const services = createServices(config, dataSource, mailer, logger, clock, workers, sessionStore, objects);
   return {
     config,
     clock,
@@ -300,6 +306,7 @@ export async function createAppContext(config: Config, options: { migrate?: bool
     dataSource,
     mailer,
     workers,
+    store: objects,
     sessionStore,
     services,
     async close() {
@@ -311,6 +318,7 @@ export async function createAppContext(config: Config, options: { migrate?: bool
       mailer.close();
       await workers.close();
       await store.close().catch(() => undefined);
+      await objects.close();
       if (dataSource.isInitialized) await dataSource.destroy();
     },
   };

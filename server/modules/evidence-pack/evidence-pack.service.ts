@@ -1,7 +1,5 @@
 import { createHash } from "node:crypto";
-import { createReadStream } from "node:fs";
-import { readFile } from "node:fs/promises";
-import type { Writable } from "node:stream";
+import type { Readable, Writable } from "node:stream";
 import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
 import { EVIDENCE_PACK_DEFINITION } from "../../../src/lib/contracts/evidence-pack.js";
 import type { Clock } from "../../lib/clock.js";
@@ -30,9 +28,9 @@ import { renderEvidencePack, type PhotoBytes } from "./evidence-pack.render.js";
 const iso = (d: Date | string | null | undefined): string | null =>
   d === null || d === undefined ? null : typeof d === "string" ? d : d.toISOString();
 
-async function sha256OfFile(file: string): Promise<string> {
+async function sha256OfStream(body: Readable): Promise<string> {
   const hash = createHash("sha256");
-  for await (const chunk of createReadStream(file)) hash.update(chunk as Buffer);
+  for await (const chunk of body) hash.update(chunk as Buffer);
   return hash.digest("hex");
 }
 
@@ -117,11 +115,10 @@ export class EvidencePackService {
     );
     const nameOf = (id: number | null | undefined) => (id === null || id === undefined ? null : (people.get(id)?.name ?? null));
 
-    const photoFiles: { id: number; file: string }[] = [];
     const photoFacts = [];
     for (const p of photos) {
-      const file = await d.photos.fileFor(actor, p.id, "display");
-      photoFiles.push({ id: p.id, file });
+      // Read from the photo store (disk or S3) now, so a missing photo is refused before the first byte.
+      const stored = await d.photos.open(actor, p.id, "display");
       photoFacts.push({
         id: p.id,
         addedAt: iso(p.createdAt),
@@ -130,7 +127,7 @@ export class EvidencePackService {
         width: p.width,
         height: p.height,
         // Of the bytes read now, the ones the PDF embeds (checked again as they are embedded).
-        sha256: await sha256OfFile(file),
+        sha256: await sha256OfStream(stored.body),
       });
     }
 
@@ -342,7 +339,7 @@ export class EvidencePackService {
       },
       timeline: events.map(({ event, actor: who }) => ({ at: iso(event.createdAt), type: event.type, by: who?.name ?? null })),
     };
-    return { facts, photoFiles, organisationName, address: addressOf(home), reference: c.reference ?? `case-${c.id}` };
+    return { facts, organisationName, address: addressOf(home), reference: c.reference ?? `case-${c.id}` };
   }
 
   /**
@@ -366,8 +363,7 @@ export class EvidencePackService {
       });
       pdf.stream.pipe(out);
       const photoBytes: PhotoBytes = async (photoId) => {
-        const entry = gathered.photoFiles.find((p) => p.id === photoId)!;
-        const data = await readFile(entry.file);
+        const data = await this.deps.photos.bytes(actor, photoId, "display");
         const expected = gathered.facts.photos.find((p) => p.id === photoId)!.sha256;
         if (createHash("sha256").update(data).digest("hex") !== expected) {
           throw new ConflictError("A photo changed while the evidence pack was being made. Please try again.");

@@ -4,12 +4,14 @@
 //
 // Decoding (decodePhoto) runs on a worker thread (the "decodePhoto" task of server/workers) and
 // answers plain data, never throws an AppError (a class does not survive the thread boundary);
-// writing (storeDecoded) runs on the request thread, so a failed write is answered and cleaned up here.
+// writing (storeDecoded) runs on the request thread, into the object store (server/lib/storage.ts),
+// so a failed write is answered and cleaned up here.
 import { createHash, randomBytes } from "node:crypto";
-import { mkdir, open, rename, rm, writeFile } from "node:fs/promises";
-import path from "node:path";
+import { open } from "node:fs/promises";
 import sharp, { type Metadata } from "sharp";
 import { ServiceUnavailableError, UnprocessableError, UnsupportedMediaTypeError } from "../../lib/errors.js";
+// Types only: this file also runs on every worker thread, which has no use for the S3 client.
+import type { ObjectStore } from "../../lib/storage.js";
 
 export const DISPLAY_MAX_PX = 2048;
 export const THUMBNAIL_MAX_PX = 320;
@@ -24,8 +26,9 @@ sharp.cache(false);
 sharp.concurrency(1);
 
 export interface ProcessedPhoto {
-  displayFile: string;
-  thumbnailFile: string;
+  /** Object keys in the photo store: <prefix>/<random>.jpg and <prefix>/<random>.thumb.jpg. */
+  displayKey: string;
+  thumbnailKey: string;
   width: number;
   height: number;
   bytes: number;
@@ -146,37 +149,29 @@ export class PhotoStorageError extends ServiceUnavailableError {
 }
 
 /**
- * Writes a decoded photo into `destDir` (created if needed) under a random name. Each file is
- * written first into `tempDir` (the uploads folder's incoming folder: same disk, swept of a crash's
- * leftovers at start-up) and renamed into place once complete, so a failed write (disk full, folder
- * not writable) leaves neither a partial nor an empty file: whatever was written is removed.
+ * Writes a decoded photo into the store under `prefix` (our ids: "<organisation>/<case>") with a
+ * random name. The store writes each object whole or not at all; if the thumbnail fails after the
+ * display copy was written, the display copy is removed again, so a failed write (disk full, store
+ * unreachable) leaves nothing behind.
  */
 export async function storeDecoded(
   decoded: Extract<DecodedPhoto, { ok: true }>,
-  destDir: string,
-  tempDir: string,
+  store: ObjectStore,
+  prefix: string,
 ): Promise<ProcessedPhoto> {
   const display = Buffer.from(decoded.display.buffer, decoded.display.byteOffset, decoded.display.byteLength);
   const thumbnail = Buffer.from(decoded.thumbnail.buffer, decoded.thumbnail.byteOffset, decoded.thumbnail.byteLength);
-  const name = randomBytes(16).toString("hex");
-  const displayFile = path.join(destDir, `${name}.jpg`);
-  const thumbnailFile = path.join(destDir, `${name}.thumb.jpg`);
-  const parts = [
-    { data: display, temp: path.join(tempDir, `${name}.jpg.part`), final: displayFile },
-    { data: thumbnail, temp: path.join(tempDir, `${name}.thumb.jpg.part`), final: thumbnailFile },
-  ];
+  const name = `${prefix ? `${prefix}/` : ""}${randomBytes(16).toString("hex")}`;
+  const keys = { displayKey: `${name}.jpg`, thumbnailKey: `${name}.thumb.jpg` };
   try {
-    await mkdir(tempDir, { recursive: true });
-    await mkdir(destDir, { recursive: true });
-    for (const p of parts) await writeFile(p.temp, p.data, { flag: "wx" });
-    for (const p of parts) await rename(p.temp, p.final);
+    await store.put(keys.displayKey, display, { contentType: "image/jpeg" });
+    await store.put(keys.thumbnailKey, thumbnail, { contentType: "image/jpeg" });
   } catch (error) {
-    await Promise.all(parts.flatMap((p) => [rm(p.temp, { force: true }), rm(p.final, { force: true })])).catch(() => undefined);
+    await removeProcessed(store, keys).catch(() => undefined);
     throw new PhotoStorageError(error);
   }
   return {
-    displayFile,
-    thumbnailFile,
+    ...keys,
     width: decoded.width,
     height: decoded.height,
     bytes: display.length,
@@ -184,13 +179,14 @@ export async function storeDecoded(
   };
 }
 
-/** Decodes and stores on the calling thread (the benchmark's way in); refusals are thrown as 415/422. */
-export async function processPhoto(source: string, destDir: string, tempDir = destDir): Promise<ProcessedPhoto> {
+/** Decodes and stores under `destDir` on the calling thread (the benchmark's way in); refusals are thrown as 415/422. */
+export async function processPhoto(source: string, destDir: string): Promise<ProcessedPhoto> {
   const decoded = await decodePhoto({ source });
   if (!decoded.ok) throw refusalError(decoded.refusal);
-  return storeDecoded(decoded, destDir, tempDir);
+  const { DiskObjectStore } = await import("../../lib/storage.js");
+  return storeDecoded(decoded, new DiskObjectStore(destDir), "");
 }
 
-export async function removeProcessed(p: Pick<ProcessedPhoto, "displayFile" | "thumbnailFile">): Promise<void> {
-  await Promise.all([rm(p.displayFile, { force: true }), rm(p.thumbnailFile, { force: true })]);
+export async function removeProcessed(store: ObjectStore, p: Pick<ProcessedPhoto, "displayKey" | "thumbnailKey">): Promise<void> {
+  await Promise.all([store.delete(p.displayKey), store.delete(p.thumbnailKey)]);
 }

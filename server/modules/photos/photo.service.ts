@@ -1,5 +1,4 @@
 import { rm, stat } from "node:fs/promises";
-import path from "node:path";
 import { LessThan, MoreThan, type DataSource } from "typeorm";
 import type { Config } from "../../config/env.js";
 import type { Clock } from "../../lib/clock.js";
@@ -12,6 +11,7 @@ import {
   ValidationError,
 } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
+import { ObjectNotFoundError, type ObjectStore, type StoredObject } from "../../lib/storage.js";
 import type { WorkerPool } from "../../workers/pool.js";
 import type { Actor } from "../auth/actor.js";
 import type { CaseService } from "../cases/case.service.js";
@@ -98,12 +98,14 @@ export class PhotoService {
     private readonly workers: WorkerPool,
     private readonly logger: Logger,
     private readonly clock: Clock,
+    /** Where the display copies and thumbnails are kept (disk or S3); uploads wait on local disk first. */
+    private readonly store: ObjectStore,
   ) {
     const limit = Math.max(1, Math.ceil(config.workers.threads / 2));
     this.decodes = new DecodeGate(limit, limit * 8);
   }
 
-  /** Where multer puts uploads until they are processed: inside the uploads folder. */
+  /** Where multer puts uploads until they are processed: inside the uploads folder, on local disk whatever the store. */
   get incomingDir(): string {
     return incomingDir(this.config.uploadsDir);
   }
@@ -178,8 +180,8 @@ export class PhotoService {
           { field: "photos", message: "Choose at least one photo." },
         ]);
       const c = await this.cases.getForActor(actor, caseId);
-      // Folder names are our ids; file names are random. Nothing the browser sent becomes a path.
-      const dir = path.join(this.config.uploadsDir, String(c.organisationId), String(c.id));
+      // Key prefixes are our ids; names are random. Nothing the browser sent becomes a key.
+      const prefix = `${c.organisationId}/${c.id}`;
       // What the request asks to decode, from the images' headers only (too large ones are refused unread).
       const pixels = (await Promise.all(files.map((f) => claimedPixels(f.path)))).filter((p) => p <= MAX_INPUT_PIXELS);
       const bytes = await Promise.all(files.map(async (f) => f.size ?? (await stat(f.path)).size));
@@ -194,7 +196,7 @@ export class PhotoService {
       for (const [index, file] of files.entries()) {
         const decoded = await this.decode(file.path);
         if (decoded.ok) {
-          written.push(await storeDecoded(decoded, dir, this.incomingDir));
+          written.push(await storeDecoded(decoded, this.store, prefix));
           continue;
         }
         const error = refusalError(decoded.refusal);
@@ -215,7 +217,7 @@ export class PhotoService {
         for (const p of written) {
           const existing = await repo.findOneBy({ caseId: c.id, sha256: p.sha256 });
           if (existing) {
-            await removeProcessed(p);
+            await removeProcessed(this.store, p);
             if (!out.some((o) => o.id === existing.id)) out.push(existing);
             continue;
           }
@@ -225,8 +227,8 @@ export class PhotoService {
               caseId: c.id,
               workOrderId: options.workOrderId ?? null,
               uploadedById: actor.id,
-              displayPath: path.relative(this.config.uploadsDir, p.displayFile),
-              thumbnailPath: path.relative(this.config.uploadsDir, p.thumbnailFile),
+              displayPath: p.displayKey,
+              thumbnailPath: p.thumbnailKey,
               width: p.width,
               height: p.height,
               bytes: p.bytes,
@@ -247,7 +249,7 @@ export class PhotoService {
       });
       return { photos: result, refused };
     } catch (error) {
-      await Promise.all(written.map(removeProcessed));
+      await Promise.all(written.map((p) => removeProcessed(this.store, p).catch(() => undefined)));
       // A failure of ours (storage, database, a busy pool) does not spend the sender's budget.
       if (booking !== null && !(error instanceof AppError && error.status < 500))
         await this.dataSource
@@ -281,22 +283,45 @@ export class PhotoService {
     return this.dataSource.getRepository(Photo).find({ where: { caseId: c.id }, order: { id: "ASC" } });
   }
 
-  /** The file of a photo the actor may see (through its case), as an absolute path; 404 when it has gone from disk. */
-  async fileFor(actor: Actor, photoId: number, variant: "display" | "thumbnail"): Promise<string> {
+  /**
+   * A stored copy of a photo the actor may see (through its case), as a stream with its type and
+   * size; 404 when the photo is not theirs or its object has gone from the store.
+   */
+  async open(actor: Actor, photoId: number, variant: "display" | "thumbnail"): Promise<StoredObject> {
+    const key = await this.keyFor(actor, photoId, variant);
+    try {
+      return await this.store.get(key);
+    } catch (error) {
+      throw this.readFault(error, photoId, key);
+    }
+  }
+
+  /** The same as open(), as bytes in memory (one display copy is at most a few hundred kB). */
+  async bytes(actor: Actor, photoId: number, variant: "display" | "thumbnail"): Promise<Buffer> {
+    const key = await this.keyFor(actor, photoId, variant);
+    try {
+      return await this.store.read(key);
+    } catch (error) {
+      throw this.readFault(error, photoId, key);
+    }
+  }
+
+  private async keyFor(actor: Actor, photoId: number, variant: "display" | "thumbnail"): Promise<string> {
     const photo = await this.dataSource.getRepository(Photo).findOneBy({ id: photoId });
     if (!photo) throw new NotFoundError("No such photo.");
     await this.cases.getForActor(actor, photo.caseId).catch(() => {
       throw new NotFoundError("No such photo.");
     });
-    const file = path.join(this.config.uploadsDir, variant === "display" ? photo.displayPath : photo.thumbnailPath);
-    if (
-      !(await stat(file)
-        .then((s) => s.isFile())
-        .catch(() => false))
-    ) {
-      this.logger.warn({ photoId, file }, "a photo's file is missing from the photo store");
-      throw new NotFoundError("This photo's file is missing. Please tell your landlord's support team.");
+    return variant === "display" ? photo.displayPath : photo.thumbnailPath;
+  }
+
+  /** A missing object is the photo's own 404; any other failure of the store (unreachable, refusing) is a 503. */
+  private readFault(error: unknown, photoId: number, key: string): AppError {
+    if (error instanceof ObjectNotFoundError) {
+      this.logger.warn({ photoId, key, store: this.store.driver }, "a photo's file is missing from the photo store");
+      return new NotFoundError("This photo's file is missing. Please tell your landlord's support team.");
     }
-    return file;
+    this.logger.error({ err: error, photoId, key, store: this.store.driver }, "the photo store could not be read");
+    return new ServiceUnavailableError("Photos cannot be shown just now. Please try again in a few minutes.", 30);
   }
 }

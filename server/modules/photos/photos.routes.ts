@@ -1,3 +1,4 @@
+import { pipeline } from "node:stream/promises";
 import { Router, type RequestHandler } from "express";
 import { photoListResponse, photoUploadResponse } from "../../../src/lib/contracts/photos.js";
 import { shaped } from "../../lib/contract.js";
@@ -6,7 +7,6 @@ import { actorOf, requireAuth } from "../../middleware/auth.js";
 import type { CaseService } from "../cases/case.service.js";
 import { idParamsSchema } from "../properties/properties.schemas.js";
 import { toPhotoDto } from "./photo.mapper.js";
-import { NotFoundError } from "../../lib/errors.js";
 import { photoUpload as receivePhotos } from "./photo-upload.js";
 import type { PhotoService } from "./photo.service.js";
 
@@ -47,17 +47,21 @@ export function createPhotosRouter({ photos }: { photos: PhotoService }): Router
   router.use(requireAuth);
   const send =
     (variant: "display" | "thumbnail"): RequestHandler =>
-    async (req, res, next) => {
+    async (req, res) => {
       const { id } = parse(idParamsSchema, req.params, "params");
-      const file = await photos.fileFor(actorOf(req), id, variant);
+      // Access and the object are settled before the first byte: a refusal or a missing file is an ordinary JSON error.
+      const object = await photos.open(actorOf(req), id, variant);
       res.set("Cache-Control", "private, max-age=3600");
-      res.type("image/jpeg").sendFile(file, (err?: Error & { code?: string }) => {
-        if (!err || res.headersSent) return;
-        // The error is answered in JSON: not as a JPEG, and not cached.
-        res.removeHeader("Content-Type");
-        res.removeHeader("Cache-Control");
-        next(err.code === "ENOENT" ? new NotFoundError("This photo's file is missing.") : err);
-      });
+      res.type(object.contentType);
+      res.set("Content-Length", String(object.size));
+      try {
+        await pipeline(object.body, res);
+      } catch (err) {
+        // Headers are gone already: the reply can only be cut short. A reader who left is not worth a log line.
+        if ((err as { code?: string }).code !== "ERR_STREAM_PREMATURE_CLOSE")
+          req.log?.error({ err, photoId: id, variant }, "a photo stopped part way while it was being sent");
+        res.destroy();
+      }
     };
   router.get("/:id", send("display"));
   router.get("/:id/thumbnail", send("thumbnail"));
