@@ -1,9 +1,11 @@
 // `npm run backup [-- --to <folder>]`: the app database (one consistent mariadb-dump) and the photo
-// store into a new timestamped folder under BACKUP_DIR (default <project>/backups). See README.md.
+// store (UPLOADS_DIR, or the bucket with STORAGE_DRIVER=s3) into a new timestamped folder under
+// BACKUP_DIR (default <project>/backups). See README.md.
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { loadConfig } from "../server/config/env.js";
 import { systemClock } from "../server/lib/clock.js";
+import { createObjectStore } from "../server/lib/storage.js";
 import { createBackup, describeManifest } from "./lib/backup.js";
 import { projectRoot } from "./lib/paths.js";
 import { ensureSystemPackages } from "./lib/system-packages.js";
@@ -19,10 +21,13 @@ if (!valid) {
 const config = loadConfig();
 const pkg = JSON.parse(readFileSync(path.join(projectRoot, "package.json"), "utf8")) as { name: string; version: string };
 await ensureSystemPackages([{ commands: ["mariadb-dump", "mariadb"], packages: ["mariadb-client"] }]);
+// With the disk driver the folder is read directly (as always); with s3, every object of the bucket is copied.
+const photoStore = config.storage.driver === "s3" ? createObjectStore(config.storage) : undefined;
 try {
   const { dir, manifest } = await createBackup({
     db: config.db,
     uploadsDir: config.uploadsDir,
+    photoStore,
     backupsDir: toIndex === -1 ? config.backupsDir : path.resolve(args[toIndex + 1]!),
     now: () => systemClock.now(),
     app: { name: pkg.name, version: pkg.version },
@@ -33,4 +38,6 @@ try {
 } catch (error) {
   console.error(`Backup failed, nothing was kept: ${error instanceof Error ? error.message : String(error)}`);
   process.exit(1);
+} finally {
+  await photoStore?.close();
 }

@@ -1,8 +1,10 @@
 // `npm run restore -- [--check] [--force] <backup folder>`: verifies every checksum first, then
-// restores the database and photo store configured by DB_* and UPLOADS_DIR, and checks the result
+// restores the database and photo store configured by DB_* and UPLOADS_DIR (or STORAGE_DRIVER=s3 and
+// its S3_* bucket), and checks the result
 // against the backup's manifest. See README.md.
 import { loadConfig } from "../server/config/env.js";
 import { migrations } from "../server/db/migrations.js";
+import { createObjectStore } from "../server/lib/storage.js";
 import { describeManifest, restoreBackup, verifyBackup } from "./lib/backup.js";
 import { ensureSystemPackages } from "./lib/system-packages.js";
 
@@ -17,6 +19,8 @@ if (folders.length !== 1 || [...flags].some((f) => f !== "--force" && f !== "--c
 }
 const dir = folders[0]!;
 const config = loadConfig();
+const photoStore = config.storage.driver === "s3" ? createObjectStore(config.storage) : undefined;
+const photoPlace = config.storage.driver === "s3" ? `bucket ${config.storage.bucket}` : config.uploadsDir;
 
 try {
   if (flags.has("--check")) {
@@ -25,7 +29,13 @@ try {
     for (const line of describeManifest(manifest)) console.log(`  ${line}`);
   } else {
     await ensureSystemPackages([{ commands: ["mariadb-dump", "mariadb"], packages: ["mariadb-client"] }]);
-    const summary = await restoreBackup({ dir, db: config.db, uploadsDir: config.uploadsDir, force: flags.has("--force") });
+    const summary = await restoreBackup({
+      dir,
+      db: config.db,
+      uploadsDir: config.uploadsDir,
+      photoStore,
+      force: flags.has("--force"),
+    });
     const m = summary.manifest;
     const rows = Object.values(summary.tables).reduce((a, b) => a + b, 0);
     console.log(`Restored ${dir}`);
@@ -35,7 +45,7 @@ try {
     );
     if (summary.replacedTables) console.log(`  (--force: ${summary.replacedTables} existing tables were dropped first.)`);
     console.log(
-      `  Into ${config.uploadsDir}: ${summary.photos.restored} photo files written, ${summary.photos.alreadyPresent} already there; every file matches its checksum.`,
+      `  Into ${photoPlace}: ${summary.photos.restored} photo files written, ${summary.photos.alreadyPresent} already there; every file matches its checksum.`,
     );
     if (summary.extraPhotoFiles)
       console.log(`  ${summary.extraPhotoFiles} files in the photo store are not in the backup and were left in place.`);
@@ -54,4 +64,6 @@ try {
 } catch (error) {
   console.error(error instanceof Error ? error.message : String(error));
   process.exit(1);
+} finally {
+  await photoStore?.close();
 }

@@ -1,5 +1,6 @@
 // Backup and restore of one Dewline installation: the app database (mariadb-dump in one snapshot,
-// gzip) and the photo store (UPLOADS_DIR), with a manifest and checksums. `npm run backup` and
+// gzip) and the photo store (the UPLOADS_DIR folder, or with STORAGE_DRIVER=s3 the bucket, given as
+// `photoStore`), with a manifest and checksums. `npm run backup` and
 // `npm run restore` are thin wrappers; the tests call these functions directly.
 //
 // What a backup guarantees:
@@ -19,6 +20,7 @@ import { Transform, type TransformCallback } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { createGunzip, createGzip } from "node:zlib";
 import mysql from "mysql2/promise";
+import type { ObjectStore } from "../../server/lib/storage.js";
 
 export interface DbTarget {
   host: string;
@@ -304,9 +306,67 @@ async function listPhotoFiles(root: string): Promise<string[]> {
   return out.sort();
 }
 
+/**
+ * The photo store as backup and restore see it: relative names (the object keys), whole files.
+ * Either the UPLOADS_DIR folder itself or, when `photoStore` is given (STORAGE_DRIVER=s3), the store.
+ */
+interface PhotoSide {
+  /** For messages: the folder or "the s3 store". */
+  name: string;
+  list(): Promise<string[]>;
+  read(rel: string): Promise<Buffer>;
+  /** null when there is no such file or object. */
+  sha256(rel: string): Promise<string | null>;
+  /** Puts the backup's copy in place whole: a half-written file never sits under a photo's name. */
+  write(rel: string, source: string): Promise<void>;
+  has(rel: string): Promise<boolean>;
+}
+
+function folderSide(root: string): PhotoSide {
+  return {
+    name: root,
+    list: () => listPhotoFiles(root),
+    read: (rel) => readFile(path.join(root, rel)),
+    sha256: async (rel) => ((await exists(path.join(root, rel))) ? sha256File(path.join(root, rel)) : null),
+    async write(rel, source) {
+      const dest = path.join(root, rel);
+      await mkdir(path.dirname(dest), { recursive: true });
+      const temp = `${dest}.restore.tmp`;
+      await copyFile(source, temp);
+      await rename(temp, dest);
+    },
+    has: (rel) => exists(path.join(root, rel)),
+  };
+}
+
+function storeSide(store: ObjectStore): PhotoSide {
+  const sha256 = async (rel: string) => {
+    try {
+      const hash = createHash("sha256");
+      await pipeline((await store.get(rel)).body, hash);
+      return hash.digest("hex");
+    } catch (error) {
+      if ((error as { code?: unknown }).code === "object_not_found") return null;
+      throw error;
+    }
+  };
+  return {
+    name: `the ${store.driver} photo store`,
+    list: async () => (await store.list("")).map((o) => o.key),
+    read: (rel) => store.read(rel),
+    sha256,
+    // Photos are JPEGs (server/modules/photos); anything else goes back as plain bytes.
+    write: async (rel, source) =>
+      store.put(rel, await readFile(source), { contentType: /\.jpe?g$/i.test(rel) ? "image/jpeg" : "application/octet-stream" }),
+    has: (rel) => store.exists(rel),
+  };
+}
+
 export interface BackupOptions {
   db: DbTarget;
   uploadsDir: string;
+  /** With STORAGE_DRIVER=s3: the store the photos are in (uploadsDir then holds only uploads in progress). */
+  photoStore?: ObjectStore;
   backupsDir: string;
   now: () => Date;
   app: { name: string; version: string };
@@ -377,8 +437,9 @@ export async function createBackup(opts: BackupOptions): Promise<BackupResult> {
     // Photos after the snapshot (see the top of this file). Each file is hashed as it is copied.
     const files: FileEntry[] = [];
     let bytes = 0;
-    for (const rel of await listPhotoFiles(opts.uploadsDir)) {
-      const data = await readFile(path.join(opts.uploadsDir, rel));
+    const photos = opts.photoStore ? storeSide(opts.photoStore) : folderSide(opts.uploadsDir);
+    for (const rel of await photos.list()) {
+      const data = await photos.read(rel);
       const dest = path.join(work, PHOTOS_DIR, rel);
       await mkdir(path.dirname(dest), { recursive: true });
       await writeFile(dest, data, { flag: "wx" });
@@ -526,6 +587,8 @@ export interface RestoreOptions {
   dir: string;
   db: DbTarget;
   uploadsDir: string;
+  /** With STORAGE_DRIVER=s3: the store the photos go into. */
+  photoStore?: ObjectStore;
   /** Replace a database that already has tables and write over existing photo files. */
   force?: boolean;
 }
@@ -559,11 +622,12 @@ export async function restoreBackup(opts: RestoreOptions): Promise<RestoreSummar
     const [objects] = await conn.query<mysql.RowDataPacket[]>(
       "SELECT table_name AS name, table_type AS type FROM information_schema.tables WHERE table_schema = DATABASE()",
     );
-    const photoFiles = await listPhotoFiles(opts.uploadsDir);
+    const photos = opts.photoStore ? storeSide(opts.photoStore) : folderSide(opts.uploadsDir);
+    const photoFiles = await photos.list();
     if (!opts.force && (objects.length > 0 || photoFiles.length > 0)) {
       const what = [
         objects.length ? `the database ${opts.db.name} has ${objects.length} tables` : null,
-        photoFiles.length ? `the photo store ${opts.uploadsDir} has ${photoFiles.length} files` : null,
+        photoFiles.length ? `the photo store ${photos.name} has ${photoFiles.length} files` : null,
       ].filter(Boolean);
       throw new RestoreRefusedError(
         `Refusing to restore: ${what.join(" and ")}. Nothing was changed. ` +
@@ -604,15 +668,11 @@ export async function restoreBackup(opts: RestoreOptions): Promise<RestoreSummar
     let bytes = 0;
     for (const entry of manifest.photos.files) {
       const rel = entry.path.slice(PHOTOS_DIR.length + 1);
-      const dest = path.join(opts.uploadsDir, rel);
-      if ((await exists(dest)) && (await sha256File(dest)) === entry.sha256) {
+      if ((await photos.sha256(rel)) === entry.sha256) {
         alreadyPresent++;
         continue;
       }
-      await mkdir(path.dirname(dest), { recursive: true });
-      const temp = `${dest}.restore.tmp`;
-      await copyFile(path.join(opts.dir, entry.path), temp);
-      await rename(temp, dest);
+      await photos.write(rel, path.join(opts.dir, entry.path));
       restored++;
       bytes += entry.size;
     }
@@ -635,16 +695,14 @@ export async function restoreBackup(opts: RestoreOptions): Promise<RestoreSummar
     for (const name of Object.keys(tables))
       if (!(name in manifest.database.tables)) problems.push(`table ${name} is not in the backup.`);
     for (const entry of manifest.photos.files) {
-      const dest = path.join(opts.uploadsDir, entry.path.slice(PHOTOS_DIR.length + 1));
-      if (!(await exists(dest)) || (await sha256File(dest)) !== entry.sha256)
+      if ((await photos.sha256(entry.path.slice(PHOTOS_DIR.length + 1))) !== entry.sha256)
         problems.push(`photo file ${entry.path} does not match the backup.`);
     }
     if ("photos" in tables) {
       const [rows] = await conn.query<mysql.RowDataPacket[]>("SELECT id, display_path, thumbnail_path FROM photos");
       for (const r of rows) {
         for (const rel of [String(r.display_path), String(r.thumbnail_path)]) {
-          if (!(await exists(path.join(opts.uploadsDir, rel))))
-            problems.push(`photo ${r.id}: its file ${rel} is not in the photo store.`);
+          if (!(await photos.has(rel))) problems.push(`photo ${r.id}: its file ${rel} is not in the photo store.`);
         }
       }
     }
