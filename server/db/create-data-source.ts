@@ -53,20 +53,32 @@ export function createDataSource(db: Config["db"]): DataSource {
 }
 
 /**
- * On a Galera cluster, each new pooled connection's session gets `wsrep_sync_wait` (DB_SYNC_WAIT):
- * with 1, a read waits until this node has applied every write the cluster committed before it, so
- * a GET after a POST that went to another node still sees it. Unset (a single MariaDB): nothing is
- * sent. mysql2 runs a connection's statements in order, so the SET goes before the first query
- * anyone makes on it. If the SET fails, the connection is dropped: a query on it then fails (503)
- * rather than reading stale rows unnoticed.
+ * On a Galera cluster, every pooled connection's session gets `wsrep_sync_wait` (DB_SYNC_WAIT): with
+ * 1, a read waits until this node has applied every write the cluster committed before it, so a GET
+ * after a POST that went to another node still sees it. Unset (a single MariaDB): nothing is sent.
+ * Set the first time each connection is handed out (TypeORM takes one to check the pool before any
+ * "connection" event could be heard); mysql2 runs a connection's statements in order, so the SET goes
+ * before the caller's first query. If the SET fails, the connection is dropped: a query on it then
+ * fails (503) rather than reading stale rows unnoticed.
  */
+const SYNC_WAIT_SET = Symbol("syncWaitSet");
+
 function applySyncWait(pool: mysql.Pool, syncWait: number | undefined): mysql.Pool {
   if (syncWait === undefined) return pool;
-  pool.on("connection", (connection) => {
-    connection.query(`SET SESSION wsrep_sync_wait = ${Number(syncWait)}`, (err) => {
-      if (err) connection.destroy();
+  const sql = `SET SESSION wsrep_sync_wait = ${Number(syncWait)}`;
+  const getConnection = pool.getConnection.bind(pool);
+  pool.getConnection = ((callback: (err: unknown, connection?: mysql.PoolConnection) => void) => {
+    getConnection((err, connection) => {
+      const c = connection as (mysql.PoolConnection & { [SYNC_WAIT_SET]?: true }) | undefined;
+      if (!err && c && !c[SYNC_WAIT_SET]) {
+        c[SYNC_WAIT_SET] = true;
+        c.query(sql, (setErr) => {
+          if (setErr) c.destroy();
+        });
+      }
+      callback(err, connection);
     });
-  });
+  }) as typeof pool.getConnection;
   return pool;
 }
 
