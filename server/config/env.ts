@@ -105,6 +105,8 @@ const schema = z
     DB_STALL_CHECK_MS: z.coerce.number().int().min(50).default(400),
     DB_QUERY_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),
     DB_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(100).default(10_000),
+    // Galera only (wsrep_sync_wait's bitmask, 0–15): unset on a single MariaDB, where nothing is set.
+    DB_SYNC_WAIT: z.coerce.number().int().min(0).max(15).optional(),
     WEATHER_URL: z.url().default("http://127.0.0.1:18080/v1/forecast"),
     WEATHER_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(5_000),
     WEATHER_FORECAST_MAX_AGE_MINUTES: z.coerce.number().int().min(1).default(180),
@@ -161,7 +163,16 @@ export interface Config {
   host: string;
   port: number;
   appUrl: string;
-  db: { host: string; port: number; name: string; user: string; password: string; timeouts?: DbTimeouts };
+  db: {
+    host: string;
+    port: number;
+    name: string;
+    user: string;
+    password: string;
+    timeouts?: DbTimeouts;
+    /** `wsrep_sync_wait` set on every pooled connection (Galera; undefined: left as the server has it). */
+    syncWait?: number;
+  };
   sessionSecret: string;
   /** How long a session and its account, once read, are reused by this process (0: read on every request). */
   sessionCacheMs: number;
@@ -280,6 +291,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
         queryMs: e.DB_QUERY_TIMEOUT_MS,
         acquireMs: e.DB_ACQUIRE_TIMEOUT_MS,
       },
+      syncWait: e.DB_SYNC_WAIT,
     },
     sessionSecret: e.SESSION_SECRET ?? DEV_SESSION_SECRET,
     sessionCacheMs: e.SESSION_CACHE_MS,

@@ -42,7 +42,7 @@ export function createDataSource(db: Config["db"]): DataSource {
   // nor a way to tell a stalled server from a slow query).
   const driver = dataSource.driver as unknown as { createPool(options: unknown): Promise<mysql.Pool> };
   const createPool = driver.createPool.bind(driver);
-  driver.createPool = async (options) => guardPool(await createPool(options), watch, timeouts);
+  driver.createPool = async (options) => applySyncWait(guardPool(await createPool(options), watch, timeouts), db.syncWait);
   const destroy = dataSource.destroy.bind(dataSource);
   dataSource.destroy = async () => {
     watch.close();
@@ -50,6 +50,36 @@ export function createDataSource(db: Config["db"]): DataSource {
     await destroy();
   };
   return dataSource;
+}
+
+/**
+ * On a Galera cluster, every pooled connection's session gets `wsrep_sync_wait` (DB_SYNC_WAIT): with
+ * 1, a read waits until this node has applied every write the cluster committed before it, so a GET
+ * after a POST that went to another node still sees it. Unset (a single MariaDB): nothing is sent.
+ * Set the first time each connection is handed out (TypeORM takes one to check the pool before any
+ * "connection" event could be heard); mysql2 runs a connection's statements in order, so the SET goes
+ * before the caller's first query. If the SET fails, the connection is dropped: a query on it then
+ * fails (503) rather than reading stale rows unnoticed.
+ */
+const SYNC_WAIT_SET = Symbol("syncWaitSet");
+
+function applySyncWait(pool: mysql.Pool, syncWait: number | undefined): mysql.Pool {
+  if (syncWait === undefined) return pool;
+  const sql = `SET SESSION wsrep_sync_wait = ${Number(syncWait)}`;
+  const getConnection = pool.getConnection.bind(pool);
+  pool.getConnection = ((callback: (err: unknown, connection?: mysql.PoolConnection) => void) => {
+    getConnection((err, connection) => {
+      const c = connection as (mysql.PoolConnection & { [SYNC_WAIT_SET]?: true }) | undefined;
+      if (!err && c && !c[SYNC_WAIT_SET]) {
+        c[SYNC_WAIT_SET] = true;
+        c.query(sql, (setErr) => {
+          if (setErr) c.destroy();
+        });
+      }
+      callback(err, connection);
+    });
+  }) as typeof pool.getConnection;
+  return pool;
 }
 
 /**

@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import type { DataSource } from "typeorm";
 import type { Clock } from "../../lib/clock.js";
+import { inTransaction } from "../../lib/transaction.js";
 import { SignInThrottle } from "./sign-in-throttle.entity.js";
 
 const FIRST_WAIT_S = 30;
@@ -37,38 +38,50 @@ export class SignInThrottleService {
   async claim(email: string): Promise<number | null> {
     const hash = emailHash(email);
     const now = this.clock.now();
-    return this.dataSource.transaction(async (m) => {
+    return inTransaction(this.dataSource, async (m) => {
       const repo = m.getRepository(SignInThrottle);
       const row = await repo.findOne({ where: { emailHash: hash }, lock: { mode: "pessimistic_write" } });
       if (!row || this.isQuiet(row, now)) return null;
       if (row.waitUntil && row.waitUntil > now) return Math.max(1, Math.ceil((row.waitUntil.getTime() - now.getTime()) / 1000));
       if (row.failures >= this.threshold) {
-        await repo.update(hash, { waitUntil: new Date(now.getTime() + waitAfter(row.failures + 1, this.threshold) * 1000) });
+        const waitUntil = new Date(now.getTime() + waitAfter(row.failures + 1, this.threshold) * 1000);
+        // Only while no wait is running: of two tries at once, where the row lock does not reach
+        // (another Galera node), the one that sets the wait goes ahead and the other is asked to wait.
+        const set = await repo
+          .createQueryBuilder()
+          .update()
+          .set({ waitUntil })
+          .where("email_hash = :hash AND (wait_until IS NULL OR wait_until <= :now)", { hash, now })
+          .execute();
+        if (!set.affected) return Math.max(1, Math.ceil((waitUntil.getTime() - now.getTime()) / 1000));
       }
       return null;
     });
   }
 
-  /** Counts a failure; true when the account's owner should now be sent an unlock link (at most one an hour). */
+  /**
+   * Counts a failure; true when the account's owner should now be sent an unlock link (at most one an
+   * hour). The count goes up in SQL (`failures + 1`, or 1 once the failures are forgotten), so two
+   * failures at once count two even where a row lock does not reach (another Galera node); the wait
+   * and the unlock link are then decided from the row as this transaction left it.
+   */
   async failed(email: string): Promise<{ notifyOwner: boolean }> {
     const hash = emailHash(email);
     const now = this.clock.now();
-    return this.dataSource.transaction(async (m) => {
-      const repo = m.getRepository(SignInThrottle);
-      const row = await repo.findOne({ where: { emailHash: hash }, lock: { mode: "pessimistic_write" } });
-      const failures = (row && !this.isQuiet(row, now) ? row.failures : 0) + 1;
-      const wait = waitAfter(failures, this.threshold);
-      const notifyOwner = failures >= this.threshold && !this.mailedRecently(row, now);
-      await repo.upsert(
-        {
-          emailHash: hash,
-          failures,
-          lastFailureAt: now,
-          waitUntil: wait ? new Date(now.getTime() + wait * 1000) : null,
-          unlockSentAt: notifyOwner ? now : (row?.unlockSentAt ?? null),
-        },
-        ["emailHash"],
+    const quietSince = new Date(now.getTime() - QUIET_MS);
+    return inTransaction(this.dataSource, async (m) => {
+      await m.query(
+        "INSERT INTO sign_in_throttles (email_hash, failures, last_failure_at, wait_until, unlock_sent_at) VALUES (?, 1, ?, NULL, NULL) " +
+          "ON DUPLICATE KEY UPDATE failures = IF(last_failure_at IS NULL OR last_failure_at < ?, 1, failures + 1), last_failure_at = VALUES(last_failure_at)",
+        [hash, now, quietSince],
       );
+      const row = await m.getRepository(SignInThrottle).findOneByOrFail({ emailHash: hash });
+      const wait = waitAfter(row.failures, this.threshold);
+      const notifyOwner = row.failures >= this.threshold && !this.mailedRecently(row, now);
+      await m.getRepository(SignInThrottle).update(hash, {
+        waitUntil: wait ? new Date(now.getTime() + wait * 1000) : null,
+        ...(notifyOwner ? { unlockSentAt: now } : {}),
+      });
       return { notifyOwner };
     });
   }

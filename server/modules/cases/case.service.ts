@@ -263,7 +263,21 @@ export class CaseService implements CaseEmailTimeline {
       before: { status: from },
       after: { status: to, reason },
     });
-    await m.getRepository(Case).update(caseId, { status: to });
+    // The move names the status it was judged from: under the row lock it always matches on one
+    // server, but a Galera node does not see another node's lock, and there the guard (with the
+    // certification conflict that retries the loser, inTransaction) is what keeps a stale move out.
+    const moved = await m
+      .createQueryBuilder()
+      .update(Case)
+      .set({ status: to })
+      .where("id = :caseId AND status = :from", { caseId, from })
+      .execute();
+    if (!moved.affected) {
+      throw new ConflictError("Someone else changed this case's status a moment ago. Reload the case and try again.", {
+        from,
+        to,
+      });
+    }
     return { from, status: to, moved: true };
   }
 

@@ -1,4 +1,4 @@
-import { In, QueryFailedError, type DataSource, type EntityManager } from "typeorm";
+import { In, QueryFailedError, type DataSource, type EntityManager, type QueryDeepPartialEntity } from "typeorm";
 import { computeDeadlines } from "../../../src/lib/domain/deadlines.js";
 import { addWorkingDays, isWorkingDay, localDate } from "../../../src/lib/domain/working-days.js";
 import type { Config } from "../../config/env.js";
@@ -18,6 +18,7 @@ import { OperativeSlot } from "./operative-slot.entity.js";
 import { WorkOrder, type SlotWindow } from "./work-order.entity.js";
 import type { WorkOrderCompletion, WorkOrderCreate, WorkOrderListQuery } from "./works.schemas.js";
 import type { Clock } from "../../lib/clock.js";
+import { inTransaction } from "../../lib/transaction.js";
 import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-export.js";
 import type { WorkOrderExportRow } from "../../../src/lib/contracts/exports.js";
 
@@ -136,6 +137,22 @@ export class WorkOrderService {
     private readonly tenancies: TenancyService,
     private readonly clock: Clock,
   ) {}
+
+  /**
+   * Writes a move of the order made from `wo` as it was read: only while its status and booking
+   * version (schedule_count) are still those, else a 409 and the caller's transaction rolls back.
+   * On one server the row lock already orders the moves; on Galera another node's lock is not
+   * seen, and this guard (with the certification conflict) is what keeps the later move out.
+   */
+  private async moveOn(m: EntityManager, wo: WorkOrder, changes: QueryDeepPartialEntity<WorkOrder>): Promise<void> {
+    const moved = await m
+      .createQueryBuilder()
+      .update(WorkOrder)
+      .set(changes)
+      .where("id = :id AND status = :status AND schedule_count = :seen", { id: wo.id, status: wo.status, seen: wo.scheduleCount })
+      .execute();
+    if (!moved.affected) throw new ConflictError("Someone else changed this work order a moment ago. Reload it and try again.");
+  }
 
   /** A work order the actor may see (staff of its landlord, or the tenant of its case); 404 otherwise. */
   async getForActor(actor: Actor, id: number, m: EntityManager = this.dataSource.manager, lock = false): Promise<WorkOrder> {
@@ -306,7 +323,10 @@ export class WorkOrderService {
         ],
       );
     const deliveries: Deliveries = [];
-    await this.dataSource.transaction(async (m) => {
+    // Run again as a whole if MariaDB (or Galera's certification) picks it as a deadlock victim;
+    // the senders of an attempt that rolled back are dropped with it.
+    await inTransaction(this.dataSource, async (m) => {
+      deliveries.length = 0;
       const wo = await this.getForActor(actor, id, m, true);
       if (wo.status === "done" || wo.status === "cancelled")
         throw new ConflictError(`This work order is ${wo.status}; it cannot be booked.`);
@@ -364,13 +384,15 @@ export class WorkOrderService {
         }
       }
       const sequence = wo.scheduleCount;
-      await m.getRepository(WorkOrder).update(wo.id, {
+      // schedule_count is the order's booking version (and the calendar invite's SEQUENCE): two
+      // bookings of one order at once cannot both stand (moveOn).
+      await this.moveOn(m, wo, {
         status: "scheduled",
         assigneeUserId: operative?.id ?? null,
         contractorId: contractor?.id ?? null,
         slotDate: input.slot.date,
         slotWindow: input.slot.window,
-        scheduleCount: wo.scheduleCount + 1,
+        scheduleCount: () => "schedule_count + 1",
       });
       await this.cases.recordEvent(m, {
         caseId: c.id,
@@ -449,7 +471,10 @@ export class WorkOrderService {
   async respond(actor: Actor, id: number, input: { response: "confirm" | "another-slot"; reason?: string }): Promise<WorkOrder> {
     if (isStaff(actor)) throw new NotFoundError("No such work order.");
     const deliveries: Deliveries = [];
-    await this.dataSource.transaction(async (m) => {
+    // Run again as a whole if MariaDB (or Galera's certification) picks it as a deadlock victim;
+    // the senders of an attempt that rolled back are dropped with it.
+    await inTransaction(this.dataSource, async (m) => {
+      deliveries.length = 0;
       const wo = await this.getForActor(actor, id, m, true);
       const c = await this.cases.getForActor(actor, wo.caseId, m);
       if (c.tenantUserId !== actor.id) throw new NotFoundError("No such work order.");
@@ -465,7 +490,7 @@ export class WorkOrderService {
         tenantReason: input.reason ?? null,
         respondedAt: this.clock.now(),
       });
-      await m.getRepository(WorkOrder).update(wo.id, { status: confirmed ? "confirmed" : "change-requested" });
+      await this.moveOn(m, wo, { status: confirmed ? "confirmed" : "change-requested" });
       await this.cases.recordEvent(m, {
         caseId: c.id,
         actorId: actor.id,
@@ -557,7 +582,10 @@ export class WorkOrderService {
         { field: "complete.doneOn", message: "Enter the day the work was done: today or an earlier day." },
       ]);
     const deliveries: Deliveries = [];
-    await this.dataSource.transaction(async (m) => {
+    // Run again as a whole if MariaDB (or Galera's certification) picks it as a deadlock victim;
+    // the senders of an attempt that rolled back are dropped with it.
+    await inTransaction(this.dataSource, async (m) => {
+      deliveries.length = 0;
       const wo = await this.getForActor(actor, id, m, true);
       if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is already ${wo.status}.`);
       const c = await this.cases.getForActor(actor, wo.caseId, m);
@@ -581,7 +609,7 @@ export class WorkOrderService {
         );
       // Today: the moment it is recorded; an earlier day: the end of that day's working hours (London).
       const doneAt = input.doneOn === today ? now : slotInstants(input.doneOn, "all-day").end;
-      await m.getRepository(WorkOrder).update(wo.id, {
+      await this.moveOn(m, wo, {
         status: "done",
         completedAt: doneAt,
         completedById: actor.id,
@@ -624,7 +652,10 @@ export class WorkOrderService {
   /** Cancels the order; a booked visit is taken out of the tenant's and the operative's calendars (METHOD:CANCEL). */
   async cancel(actor: Actor, id: number, reason: string): Promise<WorkOrder> {
     const deliveries: Deliveries = [];
-    await this.dataSource.transaction(async (m) => {
+    // Run again as a whole if MariaDB (or Galera's certification) picks it as a deadlock victim;
+    // the senders of an attempt that rolled back are dropped with it.
+    await inTransaction(this.dataSource, async (m) => {
+      deliveries.length = 0;
       const wo = await this.getForActor(actor, id, m, true);
       if (wo.status === "done" || wo.status === "cancelled") throw new ConflictError(`This work order is already ${wo.status}.`);
       const booking = await m.getRepository(WorkOrderBooking).findOneBy({ workOrderId: wo.id, state: "active" });
@@ -632,7 +663,7 @@ export class WorkOrderService {
         await m.getRepository(OperativeSlot).delete({ bookingId: booking.id });
         await m.getRepository(WorkOrderBooking).update(booking.id, { state: "cancelled" });
       }
-      await m.getRepository(WorkOrder).update(wo.id, { status: "cancelled" });
+      await this.moveOn(m, wo, { status: "cancelled" });
       await this.cases.recordEvent(m, {
         caseId: wo.caseId,
         actorId: actor.id,
