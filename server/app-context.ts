@@ -7,6 +7,7 @@ import { systemClock, type Clock } from "./lib/clock.js";
 import { createDataSource, sessionStoreConnection } from "./db/create-data-source.js";
 import { CachedSessionStore } from "./modules/auth/cached-session-store.js";
 import { createLogger, type Logger } from "./lib/logger.js";
+import { JobLeases } from "./lib/job-lease.js";
 import { createMailer, type Mailer } from "./lib/mailer.js";
 import { createObjectStore, type ObjectStore } from "./lib/storage.js";
 import { AssessmentService } from "./modules/assessments/assessment.service.js";
@@ -90,6 +91,8 @@ export interface Services {
   /** Keeps mosquitto's password file and ACL in step with the sensor registry (the sensors' BrokerCredentials). */
   mqttBroker: MosquittoBrokerFiles;
   sensorWatch: SensorWatchService;
+  /** Leases in the database that let one app instance at a time run each background job. */
+  jobLeases: JobLeases;
 }
 
 export interface AppContext {
@@ -214,17 +217,21 @@ export function createServices(
   // Sensors: the registry tells the broker (useBroker) and the ingest tells the room watch (addListener).
   const sensors = new SensorService(dataSource, properties, clock, logger);
   const { brokerDir, username, password } = config.mqtt;
+  const jobLeases = new JobLeases(dataSource, { holder: config.instanceName }, logger);
+  // Instances sharing a broker folder rewrite its files one at a time (under a lease).
   const mqttBroker = new MosquittoBrokerFiles(
     dataSource,
     brokerDir && password ? { dir: brokerDir, username, password } : null,
     logger,
     clock,
+    jobLeases,
   );
   sensors.useBroker(mqttBroker);
   // The tenant's outlook takes each room's last day of sensor readings, where it has sensors.
   outlook.useSensorConditions(sensors);
   sensorIngest.addListener(sensorWatch);
   return {
+    jobLeases,
     mqttBroker,
     assessments,
     inspections,
@@ -268,7 +275,8 @@ export function createServices(
 /** Connects to MariaDB (and, when asked, runs pending migrations) and wires the services. */
 export async function createAppContext(config: Config, options: { migrate?: boolean; clock?: Clock } = {}): Promise<AppContext> {
   const clock = options.clock ?? systemClock;
-  const logger = createLogger(config.logLevel);
+  // Every log line names the instance that wrote it.
+  const logger = createLogger(config.logLevel).child({ instance: config.instanceName });
   const dataSource = createDataSource(config.db);
   await dataSource.initialize();
   if (options.migrate) await dataSource.runMigrations({ transaction: "each" });

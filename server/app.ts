@@ -1,3 +1,4 @@
+import { randomBytes } from "node:crypto";
 import { existsSync } from "node:fs";
 import path from "node:path";
 import express, { type Express } from "express";
@@ -7,6 +8,7 @@ import { pinoHttp } from "pino-http";
 import { csrfSync } from "csrf-sync";
 import type { AppContext } from "./app-context.js";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.js";
+import { RateLimits } from "./middleware/rate-limit.js";
 import { requestId } from "./middleware/request-id.js";
 import { createApiDocsRouter } from "./modules/api-docs/api-docs.routes.js";
 import { createAuthRouter } from "./modules/auth/auth.routes.js";
@@ -50,11 +52,21 @@ import { createHomeSensorsRouter, createSensorIngestRouter, createSensorsRouter 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
   isDraining?: () => boolean;
+  /**
+   * Prefixes this app's rate-limit keys (the counts live in the database). Every instance of a
+   * deployment counts together under "", the default; with NODE_ENV=test each app gets a scope of its
+   * own, so tests sharing the database never share counts, unless a test hands the same scope to two
+   * apps meant to count together.
+   */
+  rateLimitScope?: string;
 }
 
 /** The whole HTTP app, without listening (tests drive it through supertest). */
-export function createApp(ctx: AppContext, { isDraining = () => false }: AppOptions = {}): Express {
+export function createApp(ctx: AppContext, { isDraining = () => false, rateLimitScope }: AppOptions = {}): Express {
   const { config, services, clock } = ctx;
+  // Each createApp() makes its own limiters, counting in the shared table under its scope.
+  const scope = rateLimitScope ?? (config.env === "test" ? `app-${randomBytes(6).toString("hex")}:` : "");
+  const rateLimits = new RateLimits(ctx.dataSource, ctx.logger, scope);
   const app = express();
   app.disable("x-powered-by");
   app.set("trust proxy", config.trustProxy);
@@ -87,6 +99,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
       clock,
       limits: config.calculator,
       session: { store: ctx.sessionStore, secret: config.sessionSecret, cookieName: "dewline.sid" },
+      rateLimits,
     }),
   );
   // The public risk-engine API's own document stays public; the whole API's is for staff (below).
@@ -109,6 +122,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
       clock,
       logger: ctx.logger,
       requestsPerMinute: config.apiKeys.requestsPerMinute,
+      rateLimits,
     }),
   );
 
@@ -145,7 +159,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
   });
   api.use(csrfSynchronisedProtection);
 
-  api.use("/auth", createAuthRouter({ config, auth: services.auth, clock, csrfToken: generateToken }));
+  api.use("/auth", createAuthRouter({ config, auth: services.auth, clock, csrfToken: generateToken, rateLimits }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
   api.use("/me", createMyOutlookRouter({ outlook: services.outlook }));
   api.use("/me", createMyUnreadRouter({ conversation: services.conversation }));

@@ -9,33 +9,52 @@ import { startBoardReports } from "./modules/board-report/board-report.scheduler
 import { startSensorHealthSweeper } from "./modules/sensors/sensor-health.sweeper.js";
 import { startMqttIngest } from "./modules/sensors/mqtt/mqtt-ingest.js";
 import { startSensorWatchSweep } from "./modules/sensor-watch/sensor-watch.sweeper.js";
+import { startRepeatingJob } from "./lib/repeating-job.js";
+import { purgeExpiredRateLimitHits } from "./middleware/rate-limit-store.js";
 
 /**
  * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
- * reminders, the release of queued invitations (tenancy imports), the monthly board reports and readings
- * over MQTT (the subscriber, and the broker's files brought in step with the registry);
+ * reminders, the release of queued invitations (tenancy imports), the monthly board reports, readings
+ * over MQTT (the subscriber, and the broker's files brought in step with the registry) and the purge of
+ * ended rate-limit counts;
  * returns a function that stops them and resolves once any job already running has finished (so
  * shutdown can close the database after it, not under it).
  */
-export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" | "clock" | "config">): () => Promise<void> {
+export function startBackgroundJobs(
+  ctx: Pick<AppContext, "services" | "logger" | "clock" | "config" | "dataSource">,
+): () => Promise<void> {
+  // Every timed job runs on one instance at a time, under its lease in `job_leases`; the two relays
+  // claim their rows one by one instead (server/lib/leased-queue.ts), so every instance helps send.
+  const leases = ctx.services.jobLeases;
+  ctx.logger.info({ leaseMs: leases.leaseMs }, "background jobs starting");
   // The outbox relay: sends at once what a crash left queued, then looks for due e-mails (retries) on a timer.
   const stopMailRelay = ctx.services.mail.relay.start({ everyMs: ctx.config.mailRelay.intervalMs });
   // The webhook relay: sends at once what a crash or a restart left queued, then looks for due deliveries.
   const stopWebhookRelay = ctx.services.webhooks.relay.start({ everyMs: ctx.config.webhooks.intervalMs });
-  const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger);
-  const digestScheduler = startDigestScheduler(ctx.services, ctx.logger, { clock: () => ctx.clock.now() });
-  const stopReminders = startMonitoringReminders(ctx.services.verification, ctx.logger);
+  const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger, { leases });
+  const digestScheduler = startDigestScheduler(ctx.services, ctx.logger, { clock: () => ctx.clock.now(), leases });
+  const stopReminders = startMonitoringReminders(ctx.services.verification, ctx.logger, { leases });
   const stopInvitations = startInvitationBatches(ctx.services.invitationBatches, ctx.logger, {
     everyMs: ctx.config.invitationBatches.intervalMs,
+    leases,
   });
-  const stopBoardReports = startBoardReports(ctx.services.boardReports, ctx.logger);
+  const stopBoardReports = startBoardReports(ctx.services.boardReports, ctx.logger, { leases });
   // Sensor health: each sensor with new readings is checked for low battery, flat-lining and jumps.
-  const stopSensorHealth = startSensorHealthSweeper(ctx.services.sensorHealth, ctx.logger);
+  const stopSensorHealth = startSensorHealthSweeper(ctx.services.sensorHealth, ctx.logger, { leases });
   const stopMqtt = startMqttIngest(ctx.services.sensorIngest, ctx.services.mqttBroker, ctx.config.mqtt, ctx.logger);
   // Rooms whose sensor figures are behind their readings (a crash or restart mid-evaluation) are worked out again.
-  const stopSensorWatch = startSensorWatchSweep(ctx.services.sensorWatch, ctx.logger);
+  const stopSensorWatch = startSensorWatchSweep(ctx.services.sensorWatch, ctx.logger, { leases });
+  // Rate-limit counts whose window has ended.
+  const stopRateLimitPurge = startRepeatingJob({
+    everyMs: 10 * 60_000,
+    logger: ctx.logger,
+    failure: "purging ended rate-limit counts failed",
+    lease: { leases, name: "rate-limit-purge" },
+    run: () => purgeExpiredRateLimitHits(ctx.dataSource),
+  });
   return async () => {
     await Promise.all([
+      stopRateLimitPurge(),
       stopMqtt(),
       stopBoardReports(),
       stopSensorHealth(),

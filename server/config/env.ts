@@ -52,6 +52,10 @@ function parseTrustProxy(text: string | undefined): { value: false | number | st
 const schema = z
   .object({
     NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
+    INSTANCE_NAME: z
+      .string()
+      .regex(/^[A-Za-z0-9._:-]{1,100}$/, "INSTANCE_NAME: 1–100 letters, digits, dots, colons, underscores or hyphens")
+      .optional(),
     HOST: z.string().default("127.0.0.1"),
     PORT: port.default(3000),
     APP_URL: z.url().optional(),
@@ -160,6 +164,12 @@ const schema = z
 
 export interface Config {
   env: "development" | "test" | "production";
+  /**
+   * This app instance's name (INSTANCE_NAME, else host name and process id): the holder of the job
+   * leases it takes, in its log lines, and the default MQTT client id. Set it to something stable
+   * per instance (the container's or host's name) when several instances run.
+   */
+  instanceName: string;
   host: string;
   port: number;
   appUrl: string;
@@ -239,8 +249,15 @@ export interface MqttConfig {
   username: string;
   /** The app's MQTT password; without it the app does not subscribe (readings over HTTP still work). */
   password: string | null;
-  /** The app's client id: its broker session (and the readings queued for it) outlives a restart. */
+  /** The app's client id (MQTT_CLIENT_ID, else "dewline-" and the instance's name): one per instance. */
   clientId: string;
+  /**
+   * Whether the broker keeps this client's session (and the readings queued for it) over a restart:
+   * only when the client id outlives the restart (MQTT_CLIENT_ID or INSTANCE_NAME set). A session
+   * named after a process id would be left behind at each restart, still taking its share of the
+   * shared subscription's readings, which nobody would ever collect.
+   */
+  persistentSession: boolean;
   /** The broker's folder (password file, ACL, pid file) this app keeps in step with the registry; null: none. */
   brokerDir: string | null;
   /** Readings are gathered per sensor for at most `batchMs` or `batchReadings` before one ingest. */
@@ -274,8 +291,10 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     throw new Error(`Invalid configuration:\n${lines.join("\n")}`);
   }
   const e = parsed.data;
+  const instanceName = e.INSTANCE_NAME ?? `${hostname()}-${process.pid}`.replace(/[^A-Za-z0-9._:-]/g, "-").slice(0, 100);
   return {
     env: e.NODE_ENV,
+    instanceName,
     host: e.HOST,
     port: e.PORT,
     appUrl: (e.APP_URL ?? `http://127.0.0.1:${e.PORT}`).replace(/\/$/, ""),
@@ -355,7 +374,9 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       url: e.MQTT_URL ?? `mqtt://127.0.0.1:${e.MQTT_PORT}`,
       username: e.MQTT_USERNAME,
       password: e.MQTT_PASSWORD ?? null,
-      clientId: e.MQTT_CLIENT_ID ?? `dewline-${hostname()}`.slice(0, 64),
+      // The name's end (the process id, by default) is kept when it is too long for a client id.
+      clientId: e.MQTT_CLIENT_ID ?? `dewline-${instanceName.slice(-56)}`,
+      persistentSession: e.MQTT_CLIENT_ID !== undefined || e.INSTANCE_NAME !== undefined,
       brokerDir: e.MQTT_BROKER_DIR ?? null,
       batchMs: e.MQTT_BATCH_MS,
       batchReadings: e.MQTT_BATCH_READINGS,

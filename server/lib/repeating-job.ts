@@ -1,6 +1,8 @@
 // One way to run a background job on a timer: never two runs at a time (a tick during a slow run is
 // skipped), a failure logged and the next tick tried as usual, the timer unref'd so it never keeps the
-// process alive.
+// process alive. With a lease (job-lease.ts) the job runs on one app instance at a time: each tick
+// first takes the job's lease in the database, renews it while the run lasts and gives it back after.
+import type { JobLeases } from "./job-lease.js";
 import type { Logger } from "./logger.js";
 
 export interface RepeatingJob {
@@ -10,27 +12,90 @@ export interface RepeatingJob {
   logger: Logger;
   /** What the log says when a run fails. */
   failure: string;
-  /** Run once at start too (what the last process left undone). */
+  /** Try once at start too (what the last process left undone); with a lease, only if the job is due. */
   atStart?: boolean;
+  /** The first try after this long instead of after `everyMs` (ignored with `atStart`). */
+  firstAfterMs?: number;
+  /**
+   * Runs on one instance at a time: `name` is the job's row in `job_leases`. Without it the job runs
+   * in every process that starts it (tests, scripts).
+   */
+  lease?: { leases: JobLeases; name: string };
+}
+
+export interface RepeatingJobHandle {
+  /** One tick now, as the timer does it; resolves when it is over (never rejects). */
+  tick(): Promise<void>;
+  /** Stops the timer; resolves once a run in progress has finished. */
+  stop(): Promise<void>;
 }
 
 /** Starts the job; the stop function resolves once a run in progress has finished. */
-export function startRepeatingJob({ run, everyMs, logger, failure, atStart = false }: RepeatingJob): () => Promise<void> {
+export function startRepeatingJob(job: RepeatingJob): () => Promise<void> {
+  const handle = repeatingJob(job);
+  return () => handle.stop();
+}
+
+export function repeatingJob({
+  run,
+  everyMs,
+  logger,
+  failure,
+  atStart = false,
+  firstAfterMs,
+  lease,
+}: RepeatingJob): RepeatingJobHandle {
   let running: Promise<void> | null = null;
-  const tick = () => {
-    if (running) return;
-    running = run()
-      .then(() => undefined)
-      .catch((error: unknown) => logger.error({ err: error }, failure))
+  let stopped = false;
+
+  const once = async () => {
+    if (!lease) {
+      await run();
+      return;
+    }
+    const held = await lease.leases.take(lease.name, { everyMs });
+    if (!held || stopped) {
+      await held?.release();
+      return;
+    }
+    // Renewed three times per lease length, so one slow or failed renewal does not lose it.
+    const renewal = setInterval(() => void held.renew(), Math.max(10, Math.floor(lease.leases.leaseMs / 3)));
+    renewal.unref();
+    try {
+      await run();
+      clearInterval(renewal);
+      await held.release();
+    } catch (error) {
+      clearInterval(renewal);
+      await held.release(error);
+      throw error;
+    }
+  };
+
+  const tick = (): Promise<void> => {
+    if (stopped) return Promise.resolve();
+    running ??= once()
+      .catch((error: unknown) =>
+        logger.error({ err: error, ...(lease ? { job: lease.name, holder: lease.leases.holder } : {}) }, failure),
+      )
       .finally(() => {
         running = null;
       });
+    return running;
   };
-  if (atStart) tick();
-  const timer = setInterval(tick, everyMs);
+
+  const first = atStart ? null : firstAfterMs === undefined ? null : setTimeout(() => void tick(), firstAfterMs);
+  first?.unref();
+  if (atStart) void tick();
+  const timer = setInterval(() => void tick(), everyMs);
   timer.unref();
-  return async () => {
-    clearInterval(timer);
-    await running;
+  return {
+    tick,
+    async stop() {
+      stopped = true;
+      if (first) clearTimeout(first);
+      clearInterval(timer);
+      await running;
+    },
   };
 }

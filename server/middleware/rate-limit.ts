@@ -1,8 +1,14 @@
+// Rate limits, counted in MariaDB so that every app instance counts the same hits (rate-limit-store.ts).
 import type { Request, RequestHandler } from "express";
 import { ipKeyGenerator, rateLimit, type AugmentedRequest } from "express-rate-limit";
+import type { DataSource } from "typeorm";
 import { TooManyRequestsError } from "../lib/errors.js";
+import type { Logger } from "../lib/logger.js";
+import { DatabaseRateLimitStore } from "./rate-limit-store.js";
 
-interface LimitOptions {
+export interface LimitOptions {
+  /** The limit's own name (part of its keys): two limits counting the same address keep separate counts. */
+  name: string;
   windowMs: number;
   limit: number;
   /** Count only failed requests (status ≥ 400): successful sign-ins do not use up the allowance. */
@@ -15,9 +21,36 @@ interface LimitOptions {
   hint?: string;
 }
 
-/** One in-memory limiter. Each createApp() makes its own, so separate apps (and tests) do not share counts. */
-export function limiter(o: LimitOptions): RequestHandler {
+/**
+ * Makes the app's limiters. Each createApp() makes its own RateLimits; apps with the same `scope`
+ * (every instance in production: "") share counts, so tests give each app its own scope unless they
+ * mean two apps to count together.
+ */
+export class RateLimits {
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly logger: Logger,
+    private readonly scope = "",
+  ) {}
+
+  limiter(o: LimitOptions): RequestHandler {
+    return limiter(o, new DatabaseRateLimitStore(this.dataSource, `${this.scope}${o.name}:`), this.logger);
+  }
+}
+
+function limiter(o: LimitOptions, store: DatabaseRateLimitStore, logger: Logger): RequestHandler {
   return rateLimit({
+    store,
+    // The database away: the request goes on unlimited (and the log says so) rather than refused.
+    passOnStoreError: true,
+    logger: {
+      error: (error: unknown) =>
+        logger.warn(
+          { err: error instanceof Error ? error.message : String(error), limit: o.name },
+          "rate limit not counted: the database did not answer",
+        ),
+      warn: (message: unknown) => logger.warn({ limit: o.name }, String(message)),
+    },
     windowMs: o.windowMs,
     limit: o.limit,
     skipSuccessfulRequests: o.failuresOnly ?? false,

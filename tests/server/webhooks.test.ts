@@ -368,3 +368,22 @@ describe("rotating the secret", () => {
     await admin.agent.delete(`/api/webhooks/${endpointId}`).set("X-CSRF-Token", admin.csrf).expect(204);
   });
 });
+
+describe("relays on several instances", () => {
+  it("never deliver one event twice when they race for the same deliveries", async () => {
+    const { id: endpointId, url, received } = await register(admin, ["case.created"]);
+    for (let i = 0; i < 6; i++) await tenant.post("/api/cases", report).expect(201);
+    // Two more relays (as on two more instances) and the app's own, all after the same rows.
+    await Promise.all([
+      new WebhookRelay(t.ctx.dataSource, logger, testClock).drain(),
+      new WebhookRelay(t.ctx.dataSource, logger, testClock).drain(),
+      drainAndCollect(undefined, url),
+    ]);
+    await t.ctx.services.webhooks.relay.idle();
+    const ids = received().map((h) => header(h, "Dewline-Event-Id"));
+    expect(ids).toHaveLength(6);
+    expect(new Set(ids).size).toBe(6);
+    expect((await deliveriesOf(endpointId)).map((d) => [d.status, d.attempts])).toEqual(ids.map(() => ["delivered", 1]));
+    await admin.agent.delete(`/api/webhooks/${endpointId}`).set("X-CSRF-Token", admin.csrf).expect(204);
+  });
+});

@@ -1,7 +1,7 @@
 // Builds the real app against the run's throwaway MariaDB and an in-process SMTP catcher, on the test clock.
 import type { Express } from "express";
 import request from "supertest";
-import { createApp } from "../../server/app.js";
+import { createApp, type AppOptions } from "../../server/app.js";
 import { createAppContext, type AppContext } from "../../server/app-context.js";
 import { loadConfig, type Config } from "../../server/config/env.js";
 import { startMailCatcher, type MailCatcher } from "./mail-catcher.js";
@@ -15,17 +15,21 @@ export interface TestApp {
   close(): Promise<void>;
 }
 
-/** `clock`: the app's "now" (a test that moves time hands in its own, built on the test clock). */
+/**
+ * `clock`: the app's "now" (a test that moves time hands in its own, built on the test clock).
+ * `options`: createApp's (two apps handed one `rateLimitScope` count rate limits together).
+ */
 export async function createTestApp(
   env: Record<string, string> = {},
   adjust?: (c: Config) => Config,
   clock: Clock = testClock,
+  options: AppOptions = {},
 ): Promise<TestApp> {
   const mail = await startMailCatcher();
   let config = loadConfig({ ...process.env, SMTP_PORT: String(mail.port), APP_URL: "http://dewline.test", ...env });
   if (adjust) config = adjust(config);
   const ctx = await createAppContext(config, { clock });
-  const app = createApp(ctx);
+  const app = createApp(ctx, options);
   // E-mails go out after the response (the outbox relay): lastTo() first waits for the relay to settle.
   // Reset and unlock links are queued after the reply, so wait for that work first.
   mail.settle = async () => {

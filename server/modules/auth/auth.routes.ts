@@ -14,7 +14,7 @@ import type { Config } from "../../config/env.js";
 import type { Clock } from "../../lib/clock.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireAuth, requireRole } from "../../middleware/auth.js";
-import { bodyEmail, limiter } from "../../middleware/rate-limit.js";
+import { bodyEmail, type RateLimits } from "../../middleware/rate-limit.js";
 import { toMeDto } from "../users/user.mapper.js";
 import { grantUnlock, markTouched, unlockedFor } from "./session.js";
 import { emailHash } from "./sign-in-throttle.service.js";
@@ -36,6 +36,7 @@ interface Deps {
   auth: AuthService;
   clock: Clock;
   csrfToken: (req: Request, overwrite?: boolean) => string;
+  rateLimits: RateLimits;
 }
 
 const logIn = (req: Request, actor: SessionActor) =>
@@ -44,12 +45,13 @@ const saveSession = (req: Request) =>
   new Promise<void>((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
 const logOut = (req: Request) => new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
 
-export function createAuthRouter({ config, auth, clock, csrfToken }: Deps): Router {
+export function createAuthRouter({ config, auth, clock, csrfToken, rateLimits }: Deps): Router {
   const router = Router();
   // Per address: six times the per-account number of failures, so one person's mistakes (or a few
   // people's) behind a shared address never block the others; guessing across many accounts is
   // slowed. The owner of an account skips it with their e-mailed unlock link.
-  const perAddress = limiter({
+  const perAddress = rateLimits.limiter({
+    name: "sign-in-address",
     windowMs: config.login.windowMs,
     limit: config.login.maxFailures * 6,
     failuresOnly: true,
@@ -57,8 +59,18 @@ export function createAuthRouter({ config, auth, clock, csrfToken }: Deps): Rout
     message: "There have been many unsuccessful sign-ins from your network.",
     hint: 'If you need to sign in sooner, choose "E-mail me a link to skip the wait" and open the link in this browser.',
   });
-  const resetLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many password reset requests." });
-  const unlockLimit = limiter({ windowMs: config.login.windowMs, limit: 10, message: "Too many requests for a sign-in link." });
+  const resetLimit = rateLimits.limiter({
+    name: "password-reset",
+    windowMs: config.login.windowMs,
+    limit: 10,
+    message: "Too many password reset requests.",
+  });
+  const unlockLimit = rateLimits.limiter({
+    name: "sign-in-link",
+    windowMs: config.login.windowMs,
+    limit: 10,
+    message: "Too many requests for a sign-in link.",
+  });
 
   router.get("/csrf", async (req, res) => {
     const before = req.session.csrfToken;

@@ -1,6 +1,10 @@
+import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
 import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { InvitationBatchService } from "./invitation-batch.service.js";
+
+/** Its row in `job_leases`: one instance at a time runs it. */
+export const JOB_NAME = "invitation-batches";
 
 /**
  * Every `everyMs` (INVITATION_BATCH_INTERVAL_MS): releases the next batch of queued invitations
@@ -10,9 +14,10 @@ import type { InvitationBatchService } from "./invitation-batch.service.js";
 export function startInvitationBatches(
   batches: Pick<InvitationBatchService, "releaseDue">,
   logger: Logger,
-  { everyMs }: { everyMs: number },
+  { everyMs, leases }: { everyMs: number; leases?: JobLeases },
 ): () => Promise<void> {
   return startRepeatingJob({
+    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
     everyMs,
     logger,
     failure: "releasing queued invitations failed",

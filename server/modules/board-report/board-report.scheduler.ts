@@ -1,6 +1,10 @@
+import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
 import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { BoardReportService } from "./board-report.service.js";
+
+/** Its row in `job_leases`: one instance at a time runs it. */
+export const JOB_NAME = "board-reports";
 
 const EVERY_MS = 60 * 60_000;
 
@@ -12,7 +16,13 @@ const EVERY_MS = 60 * 60_000;
 export function startBoardReports(
   reports: Pick<BoardReportService, "sendDue">,
   logger: Logger,
-  { everyMs = EVERY_MS }: { everyMs?: number } = {},
+  { everyMs = EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
 ): () => Promise<void> {
-  return startRepeatingJob({ everyMs, logger, failure: "board reports failed", run: () => reports.sendDue() });
+  return startRepeatingJob({
+    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
+    everyMs,
+    logger,
+    failure: "board reports failed",
+    run: () => reports.sendDue(),
+  });
 }

@@ -3,11 +3,13 @@
 // stale triage figures (the cases' next deadlines) up to date and asks DigestService for today's
 // digests, which sends each officer's at most once a day. After a run with no failures the day is
 // done here; a failed run is tried again at the next check. Errors are logged, never thrown: the
-// server keeps running. Started by the server entry, never by createApp, so tests' apps start no
-// timers.
+// server keeps running. With job leases (background.ts) the checks run on one instance at a time.
+// Started by the server entry, never by createApp, so tests' apps start no timers.
 import { localDate, LONDON_TIME_ZONE } from "../../../src/lib/domain/working-days.js";
 import { systemClock } from "../../lib/clock.js";
+import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
+import { repeatingJob } from "../../lib/repeating-job.js";
 import type { TriageService } from "../triage/triage.service.js";
 import type { DigestRun, DigestService } from "./digest.service.js";
 
@@ -50,54 +52,36 @@ export function londonHour(instant: Date): number {
   return Number(hourFormat.formatToParts(instant).find((p) => p.type === "hour")?.value ?? 0);
 }
 
+/** Its row in `job_leases`: one instance at a time runs it. */
+export const JOB_NAME = "deadline-digest";
+
 export function startDigestScheduler(
   services: DigestServices,
   logger: Logger,
-  options: { clock?: () => Date; intervalMs?: number; firstCheckMs?: number } = {},
+  options: { clock?: () => Date; intervalMs?: number; firstCheckMs?: number; leases?: JobLeases } = {},
 ): DigestScheduler {
   // Whoever starts the scheduler hands in the AppContext's clock (see background.ts).
   const clock = options.clock ?? (() => systemClock.now());
+  // The day this instance has sent every digest for. Another instance that takes the job over sends
+  // that day's again, which DigestService turns into "already sent".
   let doneFor: string | null = null;
-  let running: Promise<void> | null = null;
-  let stopped = false;
 
   const run = async () => {
     const now = clock();
     const date = localDate(now);
     if (doneFor === date || londonHour(now) < DIGEST_HOUR) return;
-    try {
-      const result = await sendDigestsNow(services, now);
-      if (result.failed === 0) doneFor = date;
-      if (result.sent || result.failed) logger.info({ digest: result }, "deadline digests sent");
-    } catch (error) {
-      logger.error(
-        { err: error instanceof Error ? error.message : String(error) },
-        "deadline digests failed; trying again at the next check",
-      );
-    }
+    const result = await sendDigestsNow(services, now);
+    if (result.failed === 0) doneFor = date;
+    if (result.sent || result.failed) logger.info({ digest: result }, "deadline digests sent");
   };
 
-  const check = (): Promise<void> => {
-    if (stopped) return Promise.resolve();
-    // One run at a time: a check during a slow run waits for it instead of starting another.
-    running ??= run().finally(() => {
-      running = null;
-    });
-    return running;
-  };
-
-  const first = setTimeout(() => void check(), options.firstCheckMs ?? FIRST_CHECK_MS);
-  first.unref();
-  const timer = setInterval(() => void check(), options.intervalMs ?? CHECK_EVERY_MS);
-  timer.unref();
-
-  return {
-    check,
-    async stop() {
-      stopped = true;
-      clearTimeout(first);
-      clearInterval(timer);
-      await running;
-    },
-  };
+  const job = repeatingJob({
+    run,
+    everyMs: options.intervalMs ?? CHECK_EVERY_MS,
+    firstAfterMs: options.firstCheckMs ?? FIRST_CHECK_MS,
+    logger,
+    failure: "deadline digests failed; trying again at the next check",
+    ...(options.leases ? { lease: { leases: options.leases, name: JOB_NAME } } : {}),
+  });
+  return { check: job.tick, stop: job.stop };
 }

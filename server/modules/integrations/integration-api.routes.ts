@@ -32,6 +32,7 @@ import type { WorkOrderService } from "../works/work-order.service.js";
 import { workOrderListQuerySchema } from "../works/works.schemas.js";
 import type { ApiKeyService } from "./api-key.service.js";
 import { homeUpsertSchema, uprnParamsSchema } from "./integrations.schemas.js";
+import type { RateLimits } from "../../middleware/rate-limit.js";
 import { auditKeyWrites, authenticateKey, callerOf, limitPerKey, requireScope } from "./key-auth.js";
 
 interface Deps {
@@ -46,6 +47,7 @@ interface Deps {
   clock: Clock;
   logger: Logger;
   requestsPerMinute: number;
+  rateLimits: RateLimits;
 }
 
 type Handler = (req: Request, res: Response, actor: Actor) => Promise<void>;
@@ -192,7 +194,7 @@ export function createIntegrationApiRouter(deps: Deps): Router {
   const { keys } = deps;
   router.use(authenticateKey(keys));
   router.use(auditKeyWrites(keys, deps.logger));
-  router.use(limitPerKey(deps.requestsPerMinute));
+  router.use(limitPerKey(deps.rateLimits, deps.requestsPerMinute));
   router.use(express.json({ limit: "2mb" }));
   for (const route of keyRoutes(deps)) {
     router[route.method](route.path, requireScope(keys, route.scope), async (req, res) => {

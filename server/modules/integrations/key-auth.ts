@@ -4,7 +4,7 @@ import type { Request, RequestHandler } from "express";
 import type { ApiScope } from "../../../src/lib/contracts/integrations.js";
 import { AppError, UnauthorizedError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
-import { limiter } from "../../middleware/rate-limit.js";
+import type { RateLimits } from "../../middleware/rate-limit.js";
 import type { ApiKeyService, KeyCaller } from "./api-key.service.js";
 
 const callers = new WeakMap<Request, KeyCaller>();
@@ -40,8 +40,9 @@ export function auditKeyWrites(keys: ApiKeyService, logger: Logger): RequestHand
 }
 
 /** Requests per key per minute (API_KEY_REQUESTS_PER_MINUTE); over it, 429 with Retry-After. */
-export function limitPerKey(requestsPerMinute: number): RequestHandler {
-  return limiter({
+export function limitPerKey(rateLimits: RateLimits, requestsPerMinute: number): RequestHandler {
+  return rateLimits.limiter({
+    name: "api-key",
     windowMs: 60_000,
     limit: requestsPerMinute,
     key: (req) => `api-key:${callerOf(req).key.id}`,

@@ -6,7 +6,7 @@ import { evaluatePointSchema, MAX_SERIES_READINGS } from "../../../src/lib/schem
 import type { Clock } from "../../lib/clock.js";
 import { AppError, PayloadTooLargeError, TooManyRequestsError, ValidationError } from "../../lib/errors.js";
 import { parse } from "../../lib/validation.js";
-import { limiter } from "../../middleware/rate-limit.js";
+import type { RateLimits } from "../../middleware/rate-limit.js";
 import type { WorkerPool } from "../../workers/pool.js";
 import { ReadingBudget } from "./reading-budget.js";
 import { recogniseSignedIn } from "./signed-in.js";
@@ -18,6 +18,8 @@ export interface PsychrometricsDeps {
   limits: { readingsPerMinute: number; maxAnonymousReadings: number };
   /** Only read, to give signed-in callers the larger size limit (see signed-in.ts). */
   session: { store: session.Store; secret: string; cookieName: string };
+  /** The app's rate limits (counted in the database, across instances). */
+  rateLimits: RateLimits;
 }
 
 /** Bytes of JSON one reading may take (all fields, long numbers), for the body limit. */
@@ -80,7 +82,12 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
 
   router.post(
     "/evaluate",
-    limiter({ windowMs: 60_000, limit: 120, message: "Too many calculations from this address." }),
+    deps.rateLimits.limiter({
+      name: "calculator-point",
+      windowMs: 60_000,
+      limit: 120,
+      message: "Too many calculations from this address.",
+    }),
     express.json({ limit: "100kb" }),
     (req, res) => {
       const input = parse(evaluatePointSchema, req.body);
@@ -91,7 +98,12 @@ export function createPsychrometricsRouter(deps: PsychrometricsDeps): Router {
   router.post(
     "/series",
     // A ceiling on requests too, far above what the reading budget lets through for real series.
-    limiter({ windowMs: 60_000, limit: 1_000, message: "Too many calculations from this address." }),
+    deps.rateLimits.limiter({
+      name: "calculator-series",
+      windowMs: 60_000,
+      limit: 1_000,
+      message: "Too many calculations from this address.",
+    }),
     recogniseSignedIn(deps.session),
     refuseEarly,
     body,

@@ -1,6 +1,10 @@
+import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
 import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { SensorWatchService } from "./sensor-watch.service.js";
+
+/** Its row in `job_leases`: one instance at a time runs it. */
+export const JOB_NAME = "sensor-watch-sweep";
 
 const SWEEP_EVERY_MS = 60_000;
 
@@ -11,9 +15,10 @@ const SWEEP_EVERY_MS = 60_000;
 export function startSensorWatchSweep(
   watch: Pick<SensorWatchService, "sweep" | "drain">,
   logger: Logger,
-  { everyMs = SWEEP_EVERY_MS }: { everyMs?: number } = {},
+  { everyMs = SWEEP_EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
 ): () => Promise<void> {
   const stop = startRepeatingJob({
+    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
     everyMs,
     logger,
     failure: "sensor watch sweep failed",

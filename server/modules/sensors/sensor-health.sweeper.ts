@@ -1,6 +1,10 @@
+import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
 import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { SensorHealthService } from "./sensor-health.service.js";
+
+/** Its row in `job_leases`: one instance at a time runs it. */
+export const JOB_NAME = "sensor-health-sweep";
 
 const SWEEP_EVERY_MS = 60_000;
 
@@ -12,9 +16,10 @@ const SWEEP_EVERY_MS = 60_000;
 export function startSensorHealthSweeper(
   sensorHealth: Pick<SensorHealthService, "sweep">,
   logger: Logger,
-  { everyMs = SWEEP_EVERY_MS }: { everyMs?: number } = {},
+  { everyMs = SWEEP_EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
 ): () => Promise<void> {
   return startRepeatingJob({
+    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
     everyMs,
     logger,
     failure: "sensor health sweep failed",

@@ -1,6 +1,10 @@
+import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
 import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { TriageService } from "./triage.service.js";
+
+/** Its row in `job_leases`: one instance at a time runs it. */
+export const JOB_NAME = "triage-sweep";
 
 const SWEEP_EVERY_MS = 30_000;
 
@@ -12,9 +16,10 @@ const SWEEP_EVERY_MS = 30_000;
 export function startTriageSweeper(
   triage: Pick<TriageService, "refreshStale">,
   logger: Logger,
-  { everyMs = SWEEP_EVERY_MS }: { everyMs?: number } = {},
+  { everyMs = SWEEP_EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
 ): () => Promise<void> {
   return startRepeatingJob({
+    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
     everyMs,
     logger,
     failure: "triage sweep failed",

@@ -1,6 +1,10 @@
+import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
 import { startRepeatingJob } from "../../lib/repeating-job.js";
 import type { VerificationService } from "./verification.service.js";
+
+/** Its row in `job_leases`: one instance at a time runs it. */
+export const JOB_NAME = "monitoring-reminders";
 
 const EVERY_MS = 10 * 60_000;
 
@@ -11,9 +15,10 @@ const EVERY_MS = 10 * 60_000;
 export function startMonitoringReminders(
   verification: Pick<VerificationService, "sendDueReminders">,
   logger: Logger,
-  { everyMs = EVERY_MS }: { everyMs?: number } = {},
+  { everyMs = EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
 ): () => Promise<void> {
   return startRepeatingJob({
+    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
     everyMs,
     logger,
     failure: "monitoring reminders failed",

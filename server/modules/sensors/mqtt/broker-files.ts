@@ -2,10 +2,14 @@
 // only at start and on SIGHUP, so after every change that issues, revokes or removes a sensor's
 // credentials the files are rewritten from the `sensors` table (each to a temporary file, then
 // renamed over the old one, so the broker never reads half a file) and the broker is told to reload.
+// Several app instances may share the broker's folder: each rewrite then runs under the job lease
+// "mqtt-broker-files", so they write one at a time and the last rewrite read the registry last (two
+// rewrites at once could rename an older reading of the registry over a newer one).
 import { open, readFile, rename, rm, type FileHandle } from "node:fs/promises";
 import path from "node:path";
 import type { DataSource } from "typeorm";
 import type { Clock } from "../../../lib/clock.js";
+import type { JobLeases } from "../../../lib/job-lease.js";
 import type { Logger } from "../../../lib/logger.js";
 import { mosquittoPasswordHash } from "../credentials.js";
 import type { BrokerCredentials } from "../sensor-events.js";
@@ -58,6 +62,9 @@ export interface BrokerRewrite {
   reloaded: boolean;
 }
 
+/** The job lease every rewrite of the broker's files runs under. */
+export const BROKER_FILES_LEASE = "mqtt-broker-files";
+
 /** Rows read per query while rewriting: keeps memory flat for 50 000 sensors. */
 const PAGE = 5000;
 
@@ -78,6 +85,8 @@ export class MosquittoBrokerFiles implements BrokerCredentials {
     private readonly settings: BrokerFileSettings | null,
     private readonly logger: Logger,
     private readonly clock: Clock,
+    /** Without leases (a single process: tests, benches) rewrites are serialised in this process only. */
+    private readonly leases: JobLeases | null = null,
   ) {}
 
   /** Told after every change to the registry's credentials (the subscriber forgets the identities it knows). */
@@ -97,7 +106,7 @@ export class MosquittoBrokerFiles implements BrokerCredentials {
     const next = this.current.then(async () => {
       this.queued = null;
       try {
-        this.lastRewrite = await this.rewrite(settings);
+        this.lastRewrite = await this.underLease(() => this.rewrite(settings));
         this.rewrites += 1;
         this.logger.info(this.lastRewrite, "mosquitto password file and ACL rewritten");
       } catch (error) {
@@ -107,6 +116,27 @@ export class MosquittoBrokerFiles implements BrokerCredentials {
     this.queued = next;
     this.current = next;
     return next;
+  }
+
+  /**
+   * Runs `work` holding the broker files' lease, waiting while another instance rewrites. A holder
+   * that died keeps it at most one lease length, so waiting longer than twice that means the
+   * database cannot be asked (and the registry could not be read either).
+   */
+  private async underLease<T>(work: () => Promise<T>): Promise<T> {
+    const leases = this.leases;
+    if (!leases) return work();
+    const giveUpAt = performance.now() + 2 * leases.leaseMs;
+    const lease = await leases.waitFor(BROKER_FILES_LEASE, { stillWanted: () => performance.now() < giveUpAt });
+    if (!lease) throw new Error("another instance kept the broker files' lease (or the database did not answer)");
+    try {
+      const result = await work();
+      await lease.release();
+      return result;
+    } catch (error) {
+      await lease.release(error);
+      throw error;
+    }
   }
 
   private async rewrite(settings: BrokerFileSettings): Promise<BrokerRewrite> {

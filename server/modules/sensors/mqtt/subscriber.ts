@@ -20,7 +20,11 @@ export interface MqttSensorIngest {
 export type SubscriberSettings = Pick<
   MqttConfig,
   "url" | "username" | "clientId" | "batchMs" | "batchReadings" | "identityCacheMs"
-> & { password: string };
+> & {
+  password: string;
+  /** Keep the broker session over a restart (MqttConfig.persistentSession); true when not said. */
+  persistentSession?: boolean;
+};
 
 /** Every app instance joins the same group; the broker gives each message to one of them. */
 export const SHARED_SUBSCRIPTION = `$share/dewline/${SENSOR_READINGS_FILTER}`;
@@ -86,13 +90,16 @@ export class SensorSubscriber {
   /** Connects (and keeps reconnecting, with backoff); never waits for the broker and never throws. */
   start(): void {
     if (this.client) return;
+    const persistent = this.settings.persistentSession ?? true;
     const client = mqtt.connect(this.settings.url, {
       protocolVersion: 5,
       clientId: this.settings.clientId,
       username: this.settings.username,
       password: this.settings.password,
-      clean: false,
-      properties: { sessionExpiryInterval: SESSION_EXPIRY_S },
+      // Each instance has its own client id, and all join one shared subscription: the broker hands
+      // each message to one of them. A session kept over a restart holds what arrived meanwhile.
+      clean: !persistent,
+      properties: { sessionExpiryInterval: persistent ? SESSION_EXPIRY_S : 0 },
       // Reconnects are ours, with backoff (mqtt.js would retry at a fixed period).
       reconnectPeriod: 0,
       connectTimeout: 5000,
