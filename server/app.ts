@@ -8,6 +8,8 @@ import { csrfSync } from "csrf-sync";
 import type { AppContext } from "./app-context.js";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.js";
 import { requestId } from "./middleware/request-id.js";
+import { DEFAULT_ANSWER_WAIT_MS, idempotency, idempotencyErrors } from "./middleware/idempotency.js";
+import { callerOf } from "./modules/integrations/key-auth.js";
 import { createApiDocsRouter } from "./modules/api-docs/api-docs.routes.js";
 import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
@@ -50,10 +52,15 @@ import { createHomeSensorsRouter, createSensorIngestRouter, createSensorsRouter 
 export interface AppOptions {
   /** True once the serving process has begun shutting down: readiness fails and connections are not kept alive. */
   isDraining?: () => boolean;
+  /** How long a retry waits for the first request with its Idempotency-Key to store its answer. */
+  idempotencyWaitMs?: number;
 }
 
 /** The whole HTTP app, without listening (tests drive it through supertest). */
-export function createApp(ctx: AppContext, { isDraining = () => false }: AppOptions = {}): Express {
+export function createApp(
+  ctx: AppContext,
+  { isDraining = () => false, idempotencyWaitMs = DEFAULT_ANSWER_WAIT_MS }: AppOptions = {},
+): Express {
   const { config, services, clock } = ctx;
   const app = express();
   app.disable("x-powered-by");
@@ -75,6 +82,23 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     }),
   );
   app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => req.url?.startsWith("/api/health") ?? false } }));
+
+  // Idempotency-Key on POSTs: a session's keys are its user's, an API key's are its own.
+  const idempotentForUsers = idempotency({
+    service: services.idempotency,
+    logger: ctx.logger,
+    waitMs: idempotencyWaitMs,
+    scopeOf: (req) => (req.user ? { kind: "user", id: req.user.id, organisationId: req.user.organisationId } : null),
+  });
+  const idempotentForKeys = idempotency({
+    service: services.idempotency,
+    logger: ctx.logger,
+    waitMs: idempotencyWaitMs,
+    scopeOf: (req) => {
+      const { key, actor } = callerOf(req);
+      return { kind: "api_key", id: key.id, organisationId: actor.organisationId };
+    },
+  });
 
   const api = express.Router();
   // Health and the public calculator API come before sessions: they must answer even when the
@@ -109,6 +133,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
       clock,
       logger: ctx.logger,
       requestsPerMinute: config.apiKeys.requestsPerMinute,
+      idempotency: idempotentForKeys,
     }),
   );
 
@@ -144,6 +169,9 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     errorConfig: { statusCode: 403, code: "csrf_invalid", message: "Invalid or missing CSRF token." },
   });
   api.use(csrfSynchronisedProtection);
+  // After sign-in and CSRF (the key is the user's), before every router; sensors' ingest is not
+  // behind it: a reading's key is (sensor, time), so a batch sent twice is stored once anyway.
+  api.use(idempotentForUsers);
 
   api.use("/auth", createAuthRouter({ config, auth: services.auth, clock, csrfToken: generateToken }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
@@ -241,6 +269,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false }: AppOpti
     });
   }
 
+  app.use(idempotencyErrors);
   app.use(errorHandler(config.env === "development"));
   return app;
 }
