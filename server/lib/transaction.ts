@@ -88,3 +88,14 @@ export function hookTransactions(dataSource: DataSource): void {
   };
   manager.transaction = hooked as EntityManager["transaction"];
 }
+
+/**
+ * The same hook for a transaction opened by hand on a QueryRunner (a streaming import): call it right
+ * after `startTransaction()`, inside the try that rolls back, and call the returned function with
+ * whether the transaction committed.
+ */
+export async function beginHookedTransaction(m: EntityManager): Promise<(committed: boolean) => void> {
+  const hook = transactionHooks.getStore();
+  if (!hook || !(await hook.begin(m))) return () => undefined;
+  return (committed) => (committed ? hook.committed() : hook.rolledBack());
+}

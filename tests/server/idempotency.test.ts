@@ -174,6 +174,24 @@ describe("each kind of thing created", () => {
     expect(other.body.error.code).toBe("idempotency_key_reused");
   });
 
+  it("a stock import (its own hand-opened transaction): one import record", async () => {
+    const key = randomUUID();
+    const register = Buffer.from('UPRN;Address;Property Type\r\n100099990001;"3 Larch Row, Leeds, LS2 9ZZ";Flat\r\n', "utf8");
+    const imports = () => count("SELECT COUNT(*) AS n FROM stock_imports WHERE organisation_id = ?", [landlord.org.id]);
+    const before = await imports();
+    const send = () =>
+      admin.agent
+        .post("/api/stock-imports")
+        .set("X-CSRF-Token", admin.csrf)
+        .set("Idempotency-Key", key)
+        .attach("file", register, "register.csv");
+    const first = await send().expect(201);
+    const again = await send().expect(201);
+    expect(again.headers["idempotent-replayed"]).toBe("true");
+    expect(again.body).toEqual(first.body);
+    expect(await imports()).toBe(before + 1);
+  });
+
   it("photos (multipart): the key is recorded with the photos' transaction, and a retry is the first answer", async () => {
     const key = randomUUID();
     const image = await png(320, 240);
