@@ -41,6 +41,7 @@ import { WorkerPool } from "./workers/pool.js";
 import { AdminActionService } from "./modules/integrations/admin-action.service.js";
 import { ApiKeyService } from "./modules/integrations/api-key.service.js";
 import { WebhookService } from "./modules/webhooks/webhook.service.js";
+import { IdempotencyService } from "./modules/idempotency/idempotency.service.js";
 import { InvitationBatchService } from "./modules/auth/invitation-batch.service.js";
 import { TenancyImportService } from "./modules/tenancy-import/tenancy-import.service.js";
 import { EvidencePackService } from "./modules/evidence-pack/evidence-pack.service.js";
@@ -80,6 +81,7 @@ export interface Services {
   apiKeys: ApiKeyService;
   adminActions: AdminActionService;
   webhooks: WebhookService;
+  idempotency: IdempotencyService;
   invitationBatches: InvitationBatchService;
   tenancyImports: TenancyImportService;
   evidencePacks: EvidencePackService;
@@ -269,6 +271,7 @@ export function createServices(
     sensors,
     sensorIngest,
     sensorWatch,
+    idempotency: new IdempotencyService(dataSource, clock, logger),
   };
 }
 

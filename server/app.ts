@@ -10,6 +10,8 @@ import type { AppContext } from "./app-context.js";
 import { apiNotFound, errorHandler } from "./middleware/error-handler.js";
 import { RateLimits } from "./middleware/rate-limit.js";
 import { requestId } from "./middleware/request-id.js";
+import { DEFAULT_ANSWER_WAIT_MS, idempotency, idempotencyErrors } from "./middleware/idempotency.js";
+import { callerOf } from "./modules/integrations/key-auth.js";
 import { createApiDocsRouter } from "./modules/api-docs/api-docs.routes.js";
 import { createAuthRouter } from "./modules/auth/auth.routes.js";
 import { createPassport } from "./modules/auth/passport.js";
@@ -59,10 +61,15 @@ export interface AppOptions {
    * apps meant to count together.
    */
   rateLimitScope?: string;
+  /** How long a retry waits for the first request with its Idempotency-Key to store its answer. */
+  idempotencyWaitMs?: number;
 }
 
 /** The whole HTTP app, without listening (tests drive it through supertest). */
-export function createApp(ctx: AppContext, { isDraining = () => false, rateLimitScope }: AppOptions = {}): Express {
+export function createApp(
+  ctx: AppContext,
+  { isDraining = () => false, rateLimitScope, idempotencyWaitMs = DEFAULT_ANSWER_WAIT_MS }: AppOptions = {},
+): Express {
   const { config, services, clock } = ctx;
   // Each createApp() makes its own limiters, counting in the shared table under its scope.
   const scope = rateLimitScope ?? (config.env === "test" ? `app-${randomBytes(6).toString("hex")}:` : "");
@@ -87,6 +94,23 @@ export function createApp(ctx: AppContext, { isDraining = () => false, rateLimit
     }),
   );
   app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => req.url?.startsWith("/api/health") ?? false } }));
+
+  // Idempotency-Key on POSTs: a session's keys are its user's, an API key's are its own.
+  const idempotentForUsers = idempotency({
+    service: services.idempotency,
+    logger: ctx.logger,
+    waitMs: idempotencyWaitMs,
+    scopeOf: (req) => (req.user ? { kind: "user", id: req.user.id, organisationId: req.user.organisationId } : null),
+  });
+  const idempotentForKeys = idempotency({
+    service: services.idempotency,
+    logger: ctx.logger,
+    waitMs: idempotencyWaitMs,
+    scopeOf: (req) => {
+      const { key, actor } = callerOf(req);
+      return { kind: "api_key", id: key.id, organisationId: actor.organisationId };
+    },
+  });
 
   const api = express.Router();
   // Health and the public calculator API come before sessions: they must answer even when the
@@ -123,6 +147,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false, rateLimit
       logger: ctx.logger,
       requestsPerMinute: config.apiKeys.requestsPerMinute,
       rateLimits,
+      idempotency: idempotentForKeys,
     }),
   );
 
@@ -158,6 +183,9 @@ export function createApp(ctx: AppContext, { isDraining = () => false, rateLimit
     errorConfig: { statusCode: 403, code: "csrf_invalid", message: "Invalid or missing CSRF token." },
   });
   api.use(csrfSynchronisedProtection);
+  // After sign-in and CSRF (the key is the user's), before every router; sensors' ingest is not
+  // behind it: a reading's key is (sensor, time), so a batch sent twice is stored once anyway.
+  api.use(idempotentForUsers);
 
   api.use("/auth", createAuthRouter({ config, auth: services.auth, clock, csrfToken: generateToken, rateLimits }));
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
@@ -255,6 +283,7 @@ export function createApp(ctx: AppContext, { isDraining = () => false, rateLimit
     });
   }
 
+  app.use(idempotencyErrors);
   app.use(errorHandler(config.env === "development"));
   return app;
 }

@@ -5,6 +5,7 @@ import { DataSource } from "typeorm";
 import type { Config, DbTimeouts } from "../config/env.js";
 import { DatabaseUnavailableError, isDatabaseUnavailable } from "../lib/db-errors.js";
 import { attachDatabaseWatch, DatabaseWatch } from "../lib/database-watch.js";
+import { hookTransactions } from "../lib/transaction.js";
 import { entities } from "./entities.js";
 import { migrations } from "./migrations.js";
 
@@ -38,6 +39,8 @@ export function createDataSource(db: Config["db"]): DataSource {
     freshMs: 250,
   });
   attachDatabaseWatch(dataSource, watch);
+  // A request's Idempotency-Key is recorded inside its first transaction (server/middleware/idempotency.ts).
+  hookTransactions(dataSource);
   // The pool TypeORM makes gets our timeouts and the watch (mysql2 has neither an acquire timeout
   // nor a way to tell a stalled server from a slow query).
   const driver = dataSource.driver as unknown as { createPool(options: unknown): Promise<mysql.Pool> };

@@ -47,6 +47,7 @@ import { SensorRoomFigures } from "../modules/sensor-watch/sensor-room-figures.e
 import { SensorAlertPolicyRecord } from "../modules/policy/sensor-alert-policy.entity.js";
 import { EstateLocation } from "../modules/weather/estate-location.entity.js";
 import { WeatherHour } from "../modules/weather/weather-hour.entity.js";
+import { IdempotencyKey } from "../modules/idempotency/idempotency-key.entity.js";
 
 export const entities = [
   Organisation,
@@ -101,4 +102,5 @@ export const entities = [
   TenancyImport,
   EstateLocation,
   WeatherHour,
+  IdempotencyKey,
 ];

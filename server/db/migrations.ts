@@ -33,6 +33,7 @@ import { Sensors1796460000000 } from "./migrations/1796460000000-Sensors.js";
 import { SensorHealth1796460054896 } from "./migrations/1796460054896-SensorHealth.js";
 import { SensorWatch1796461027791 } from "./migrations/1796461027791-SensorWatch.js";
 import { WeatherLocations1796461205317 } from "./migrations/1796461205317-WeatherLocations.js";
+import { IdempotencyKeys1796462000000 } from "./migrations/1796462000000-IdempotencyKeys.js";
 import { JobLeasesAndRateLimits1796462100000 } from "./migrations/1796462100000-JobLeasesAndRateLimits.js";
 
 export const migrations = [
@@ -69,5 +70,6 @@ export const migrations = [
   SensorHealth1796460054896,
   SensorWatch1796461027791,
   WeatherLocations1796461205317,
+  IdempotencyKeys1796462000000,
   JobLeasesAndRateLimits1796462100000,
 ];

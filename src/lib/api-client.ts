@@ -1,6 +1,7 @@
 /**
  * The one way the client talks to the server: JSON under /api (or FormData for uploads), same-origin
- * cookies, a CSRF token on every state-changing request, and one error shape (`ApiError`) for
+ * cookies, a CSRF token on every state-changing request, an `Idempotency-Key` on every POST (retried
+ * with the same key when the connection or a gateway fails), and one error shape (`ApiError`) for
  * everything that fails.
  */
 
@@ -37,6 +38,33 @@ const NETWORK_MESSAGE = "We could not reach Dewline. Check your internet connect
 const UNKNOWN_MESSAGE = "Something went wrong on our side. Please try again in a moment.";
 
 const UNSAFE_METHODS = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+/** Answers from a proxy or a server that may not have seen (or finished) the request: worth a retry. */
+const RETRY_STATUSES = new Set([502, 503, 504]);
+/** Waits before the second and third try of a POST: enough for a load balancer to move to another instance. */
+export const POST_RETRY_DELAYS_MS = [300, 1000];
+
+/**
+ * A fresh key for one POST (one form submission). `crypto.randomUUID` exists only on HTTPS and
+ * localhost; elsewhere the same kind of UUID is made from `getRandomValues`, which exists everywhere.
+ */
+function newIdempotencyKey(): string {
+  if (typeof crypto.randomUUID === "function") return crypto.randomUUID();
+  const b = crypto.getRandomValues(new Uint8Array(16));
+  b[6] = (b[6]! & 0x0f) | 0x40;
+  b[8] = (b[8]! & 0x3f) | 0x80;
+  const hex = Array.from(b, (x) => x.toString(16).padStart(2, "0")).join("");
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-${hex.slice(12, 16)}-${hex.slice(16, 20)}-${hex.slice(20)}`;
+}
+
+const pause = (ms: number, signal?: AbortSignal) =>
+  new Promise<void>((resolve, reject) => {
+    if (signal?.aborted) return reject(signal.reason);
+    const timer = setTimeout(resolve, ms);
+    signal?.addEventListener("abort", () => {
+      clearTimeout(timer);
+      reject(signal.reason);
+    });
+  });
 
 let csrfToken: string | null = null;
 let csrfRequest: Promise<string> | null = null;
@@ -109,8 +137,15 @@ async function toApiError(res: Response): Promise<ApiError> {
   return new ApiError(res.status, res.status === 404 ? "not_found" : "http_error", UNKNOWN_MESSAGE);
 }
 
-async function send(method: string, path: string, options: RequestOptions, token: string | null): Promise<Response> {
+async function send(
+  method: string,
+  path: string,
+  options: RequestOptions,
+  token: string | null,
+  idempotencyKey?: string,
+): Promise<Response> {
   const headers: Record<string, string> = { Accept: "application/json" };
+  if (idempotencyKey) headers["Idempotency-Key"] = idempotencyKey;
   // Multipart bodies go as they are: the browser sets the Content-Type with its boundary.
   const multipart = typeof FormData !== "undefined" && options.body instanceof FormData;
   if (options.body !== undefined && !multipart) headers["Content-Type"] = "application/json";
@@ -129,16 +164,43 @@ async function send(method: string, path: string, options: RequestOptions, token
   }
 }
 
+/**
+ * A POST sent again with the same key after a network failure or a 502/503/504: the server answers a
+ * repeat with the first answer (or says it was already saved), so a failover mid-submit neither
+ * loses the submission nor makes it twice. Other methods are sent once.
+ */
+async function sendWithRetries(
+  method: string,
+  path: string,
+  options: RequestOptions,
+  token: string | null,
+  idempotencyKey?: string,
+): Promise<Response> {
+  for (let attempt = 0; ; attempt++) {
+    const last = !idempotencyKey || attempt >= POST_RETRY_DELAYS_MS.length;
+    try {
+      const res = await send(method, path, options, token, idempotencyKey);
+      if (last || !RETRY_STATUSES.has(res.status)) return res;
+    } catch (error) {
+      if (last || !(error instanceof ApiError)) throw error;
+    }
+    await pause(POST_RETRY_DELAYS_MS[attempt]!, options.signal);
+  }
+}
+
 async function request<T>(method: string, path: string, options: RequestOptions): Promise<T> {
   const unsafe = UNSAFE_METHODS.has(method);
-  let res = await send(method, path, options, unsafe ? await getCsrfToken() : null);
+  // One key per call: a call is one form submission, and every retry of it carries the same key.
+  const idempotencyKey = method === "POST" ? newIdempotencyKey() : undefined;
+  let res = await sendWithRetries(method, path, options, unsafe ? await getCsrfToken() : null, idempotencyKey);
 
   if (!res.ok && unsafe && res.status === 403) {
     const error = await toApiError(res);
     if (error.code !== "csrf_invalid") throw error;
     // The session (and its token) may have changed since we cached it: fetch once more, retry once.
+    // The request was refused, so nothing was done: the same key is still right.
     clearCsrfToken();
-    res = await send(method, path, options, await getCsrfToken());
+    res = await sendWithRetries(method, path, options, await getCsrfToken(), idempotencyKey);
   }
 
   if (!res.ok) throw await toApiError(res);

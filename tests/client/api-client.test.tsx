@@ -120,4 +120,95 @@ describe("api client", () => {
     }) as typeof fetch;
     await expect(api.get("/auth/me")).rejects.toMatchObject({ status: 0, code: "network_error" });
   });
+
+  describe("Idempotency-Key on POSTs", () => {
+    const MESSAGES = "/api/cases/5/messages";
+    const sent = { status: 201, body: { ok: true, id: 41 } };
+    const unavailable = apiError(503, "service_unavailable", "The database is not answering. Please try again.");
+
+    it("sends a fresh key with each POST call, and none with other methods", async () => {
+      const { callsTo } = mockApi({
+        "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },
+        [`POST ${MESSAGES}`]: sent,
+        "PATCH /api/users/7": {
+          body: {
+            id: 7,
+            email: "dale@example.org",
+            name: "Dale Whitcombe",
+            role: "maintenance",
+            status: "disabled",
+            lastSignInAt: null,
+            createdAt: "2026-01-04T10:00:00.000Z",
+          },
+        },
+      });
+      await api.post("/cases/5/messages", { body: "First" });
+      await api.post("/cases/5/messages", { body: "Second" });
+      await api.patch("/users/7", { status: "disabled" });
+
+      const keys = callsTo("POST", MESSAGES).map((c) => c.headers.get("Idempotency-Key"));
+      expect(keys).toHaveLength(2);
+      for (const key of keys) expect(key).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/);
+      expect(keys[0]).not.toBe(keys[1]);
+      expect(callsTo("PATCH", "/api/users/7")[0]!.headers.get("Idempotency-Key")).toBeNull();
+    });
+
+    it("sends the same POST again with the same key after a 503, and gives its answer", async () => {
+      const { callsTo } = mockApi({
+        "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },
+        [`POST ${MESSAGES}`]: (_call, nth) => (nth === 0 ? unavailable : sent),
+      });
+      await expect(api.post("/cases/5/messages", { body: "During a failover" })).resolves.toEqual({ ok: true, id: 41 });
+      const calls = callsTo("POST", MESSAGES);
+      expect(calls).toHaveLength(2);
+      expect(calls[1]!.headers.get("Idempotency-Key")).toBe(calls[0]!.headers.get("Idempotency-Key"));
+      expect(calls[1]!.body).toEqual({ body: "During a failover" });
+    });
+
+    it("sends it again with the same key after a network failure", async () => {
+      const { fetchMock } = mockApi({
+        "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },
+        [`POST ${MESSAGES}`]: sent,
+      });
+      const answer = fetchMock.getMockImplementation()!;
+      const keys: (string | null)[] = [];
+      fetchMock.mockImplementation(async (input, init) => {
+        if (init?.method === "POST") {
+          keys.push(new Headers(init.headers).get("Idempotency-Key"));
+          // The first try never reaches the server (the connection drops).
+          if (keys.length === 1) throw new TypeError("Failed to fetch");
+        }
+        return answer(input, init);
+      });
+      await expect(api.post("/cases/5/messages", { body: "On a train" })).resolves.toEqual({ ok: true, id: 41 });
+      expect(keys).toHaveLength(2);
+      expect(keys[0]).toBeTruthy();
+      expect(keys[1]).toBe(keys[0]);
+    });
+
+    it("tries three times in all, then reports the last failure", async () => {
+      const { callsTo } = mockApi({
+        "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },
+        [`POST ${MESSAGES}`]: unavailable,
+      });
+      await expect(api.post("/cases/5/messages", { body: "Still down" })).rejects.toMatchObject({
+        status: 503,
+        code: "service_unavailable",
+      });
+      expect(new Set(callsTo("POST", MESSAGES).map((c) => c.headers.get("Idempotency-Key"))).size).toBe(1);
+      expect(callsTo("POST", MESSAGES)).toHaveLength(3);
+    });
+
+    it("does not resend after a 500 or a 409: the server has answered", async () => {
+      const { callsTo } = mockApi({
+        "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },
+        [`POST ${MESSAGES}`]: apiError(409, "already_applied", "This was already saved. Refresh to see the result."),
+        "POST /api/cases/6/messages": apiError(500, "internal", "Something went wrong on our side."),
+      });
+      await expect(api.post("/cases/5/messages", { body: "Twice" })).rejects.toMatchObject({ code: "already_applied" });
+      await expect(api.post("/cases/6/messages", { body: "Broken" })).rejects.toMatchObject({ status: 500 });
+      expect(callsTo("POST", MESSAGES)).toHaveLength(1);
+      expect(callsTo("POST", "/api/cases/6/messages")).toHaveLength(1);
+    });
+  });
 });

@@ -110,6 +110,19 @@ export function fullOpenApiDocument(serverUrl: string) {
           ? { description: "Success.", content: { "application/json": { schema: json(r.response, "output") } } }
           : { description: "Success.", content: { [r.response.mediaType]: {} } };
     const scope = scopeOf(r);
+    // Every POST takes an Idempotency-Key (server/middleware/idempotency.ts); sensors' ingest accepts
+    // it but needs none: a reading is stored once per sensor and time whatever is sent again.
+    const headers =
+      r.method === "POST"
+        ? [
+            {
+              $ref: r.path.startsWith("/sensor-ingest")
+                ? "#/components/parameters/IdempotencyKeyIgnored"
+                : "#/components/parameters/IdempotencyKey",
+            },
+          ]
+        : [];
+    const parameters = [...params, ...query, ...headers];
     paths[oapiPath(r.path)] ??= {};
     paths[oapiPath(r.path)]![r.method.toLowerCase()] = {
       summary: r.summary,
@@ -117,7 +130,7 @@ export function fullOpenApiDocument(serverUrl: string) {
       "x-dewline-access": r.access,
       // Session routes use the session cookie; the integration API a key with the route's scope.
       security: scope ? [{ apiKey: [scope] }] : [{ session: [] }],
-      ...(params.length + query.length > 0 ? { parameters: [...params, ...query] } : {}),
+      ...(parameters.length > 0 ? { parameters } : {}),
       ...(bodySchema || r.multipart
         ? { requestBody: { required: true, content: { [mediaType]: { schema: bodySchema ?? { type: "object" } } } } }
         : {}),
@@ -139,6 +152,7 @@ export function fullOpenApiDocument(serverUrl: string) {
       version: "1.0.0",
       description:
         "Every route of the Dewline API. Session routes: state-changing requests carry the session's CSRF token in X-CSRF-Token (GET /api/auth/csrf). The integration API (/api/v1) takes an API key an admin created, as `Authorization: Bearer dwk_…`, and each route needs the scope it names. Staff only.\n\n" +
+        "Idempotency: send `Idempotency-Key: <a new UUID>` with each POST, and the same key when you send that POST again after a timeout, a dropped connection or a 502/503/504. A repeat with a key already used for a write gets the first answer again (same status and body, header `Idempotent-Replayed: true`) and creates nothing; the same key with another method, path or body is a 422 (`idempotency_key_reused`); a 409 `already_applied` means the first attempt was saved but its answer was not kept (it failed after saving, or it carried a secret shown only once): look the result up instead of sending again. Keys are per user (per API key on /api/v1) and kept for 24 hours.\n\n" +
         "Webhooks: an admin registers an endpoint (POST /api/webhooks) for the event types it wants; each event is POSTed to it as JSON with the headers below, signed with the endpoint's own secret, retried with backoff until it answers 2xx (at least once: de-duplicate by Dewline-Event-Id). To verify a delivery, take the raw body, refuse a timestamp more than 5 minutes off, and compare HMAC-SHA256 of `<t>.<raw body>` with each v1 in constant time.",
     },
     servers: [{ url: serverUrl }],
@@ -146,6 +160,24 @@ export function fullOpenApiDocument(serverUrl: string) {
     webhooks: webhookOperations(),
     components: {
       schemas: { Error: json(errorResponse, "output") },
+      parameters: {
+        IdempotencyKey: {
+          name: "Idempotency-Key",
+          in: "header",
+          required: false,
+          description:
+            "A new key (a UUID) for each submission, the same one when sending it again: a repeat creates nothing twice and gets the first answer. 1–100 visible ASCII characters; kept 24 hours.",
+          schema: { type: "string", minLength: 1, maxLength: 100, pattern: "^[\\x21-\\x7E]{1,100}$" },
+        },
+        IdempotencyKeyIgnored: {
+          name: "Idempotency-Key",
+          in: "header",
+          required: false,
+          description:
+            "Accepted and not needed: a reading is stored once per sensor and time, so a batch sent again adds nothing.",
+          schema: { type: "string", maxLength: 100 },
+        },
+      },
       securitySchemes: {
         session: { type: "apiKey", in: "cookie", name: "dewline.sid" },
         apiKey: {

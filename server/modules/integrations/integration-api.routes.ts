@@ -1,7 +1,7 @@
 // The integration API: `/api/v1/…` for a landlord's other systems, authenticated by API key only.
 // Every route is declared with its scope in KEY_ROUTES below and reuses the services the session routes
 // use, as an officer of the key's landlord (ApiKeyService.authenticate says who).
-import express, { Router, type Request, type Response } from "express";
+import express, { Router, type Request, type RequestHandler, type Response } from "express";
 import { caseResponse } from "../../../src/lib/contracts/cases.js";
 import type { ApiScope } from "../../../src/lib/contracts/integrations.js";
 import { propertyPageResponse } from "../../../src/lib/contracts/properties.js";
@@ -48,6 +48,8 @@ interface Deps {
   logger: Logger;
   requestsPerMinute: number;
   rateLimits: RateLimits;
+  /** Idempotency-Key handling (server/middleware/idempotency.ts), scoped to the calling key. */
+  idempotency?: RequestHandler;
 }
 
 type Handler = (req: Request, res: Response, actor: Actor) => Promise<void>;
@@ -196,6 +198,7 @@ export function createIntegrationApiRouter(deps: Deps): Router {
   router.use(auditKeyWrites(keys, deps.logger));
   router.use(limitPerKey(deps.rateLimits, deps.requestsPerMinute));
   router.use(express.json({ limit: "2mb" }));
+  if (deps.idempotency) router.use(deps.idempotency);
   for (const route of keyRoutes(deps)) {
     router[route.method](route.path, requireScope(keys, route.scope), async (req, res) => {
       await route.handle(req, res, callerOf(req).actor);

@@ -36,6 +36,7 @@ import type { Logger } from "../../lib/logger.js";
 import { readTableHead, tableRowChunks, type TableHead } from "../../lib/table-file.js";
 import { parse } from "../../lib/validation.js";
 import { StockImport } from "./stock-import.entity.js";
+import { beginHookedTransaction } from "../../lib/transaction.js";
 
 export const BATCH_ROWS = 5_000;
 /** How long an import waits for another import of the same landlord to finish. */
@@ -340,7 +341,10 @@ export class StockImportService {
         throw new ConflictError("Another import of your homes is still running: try again when it has finished.");
       try {
         await runner.startTransaction();
+        let settle = (_committed: boolean) => undefined as void;
         try {
+          // The request's Idempotency-Key commits with the import, or not at all.
+          settle = await beginHookedTransaction(runner.manager);
           const counts = await this.importRows(raw, head, mapping, org, input);
           const record = runner.manager.getRepository(StockImport).create({
             organisationId: org,
@@ -369,8 +373,10 @@ export class StockImportService {
           record.id = inserted.insertId;
           saved = record;
           await runner.commitTransaction();
+          settle(true);
         } catch (e) {
           await runner.rollbackTransaction();
+          settle(false);
           throw e;
         }
       } finally {
