@@ -13,6 +13,7 @@ import { createDataSource } from "../../server/db/create-data-source.js";
 import { JobLeases } from "../../server/lib/job-lease.js";
 import { createLogger } from "../../server/lib/logger.js";
 import { repeatingJob, type RepeatingJobHandle } from "../../server/lib/repeating-job.js";
+import { purgeExpiredRateLimitHits } from "../../server/middleware/rate-limit-store.js";
 import { anonymousClient, createTestApp, type TestApp } from "../support/test-app.js";
 
 const quiet = createLogger("silent");
@@ -283,5 +284,20 @@ describe("rate limits shared by app instances", () => {
     expect((await ask(onB)).status).toBe(429);
     // Another deployment's (another test's) counts are its own.
     expect((await ask(onOther)).status).not.toBe(429);
+  });
+});
+
+describe("ended rate-limit counts", () => {
+  it("are purged, while a count whose window is still open stays", async () => {
+    const tag = randomBytes(4).toString("hex");
+    await dsA.query(
+      `INSERT INTO rate_limit_hits (hit_key, hits, reset_at) VALUES (?, 3, NOW(3) - INTERVAL 2 MINUTE), (?, 3, NOW(3) + INTERVAL 1 MINUTE)`,
+      [`purge-${tag}:ended`, `purge-${tag}:open`],
+    );
+    await purgeExpiredRateLimitHits(dsA);
+    const left: { hit_key: string }[] = await dsA.query(`SELECT hit_key FROM rate_limit_hits WHERE hit_key LIKE ?`, [
+      `purge-${tag}:%`,
+    ]);
+    expect(left.map((r) => r.hit_key)).toEqual([`purge-${tag}:open`]);
   });
 });
