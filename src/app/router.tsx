@@ -6,6 +6,8 @@ import { LoadingState } from "@/components/ui/spinner";
 import { meQueryOptions } from "@/features/auth/api/get-me";
 import { RoleGate, signInPath } from "@/features/auth/components/role-gate";
 import { roleHome } from "@/features/auth/roles";
+import { estatesQueryOptions } from "@/features/properties/api/get-estates";
+import { prefetchCaseQueue } from "@/features/queue/api/prefetch-queue";
 import type { Role } from "@/lib/roles";
 
 /** What a lazily loaded route module may export: the page (default) and a loader that warms the cache. */
@@ -37,6 +39,19 @@ const startPage =
   async () => {
     const user = await queryClient.ensureQueryData(meQueryOptions());
     throw redirect(user ? roleHome(user.role).path : "/sign-in");
+  };
+
+/**
+ * The queue asks for its cases as the navigation starts, beside the session check and the page's own
+ * code, not after them: waiting for /api/auth/me first put a whole round trip before the first rows
+ * (bench:queue). A visitor who may not see the queue gets a 401 or 403 for it, shown nowhere.
+ */
+const prefetchQueue =
+  (queryClient: QueryClient): LoaderFunction =>
+  ({ request }) => {
+    prefetchCaseQueue(queryClient, request.url);
+    void queryClient.prefetchQuery(estatesQueryOptions());
+    return null;
   };
 
 const STAFF: readonly Role[] = ["officer", "maintenance", "admin"];
@@ -94,7 +109,11 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
             // Admins open every staff screen, the queue and the works board included.
             gate(
               ["officer", "admin"],
-              [page("queue", () => import("./routes/staff/queue")), page("alerts", () => import("./routes/staff/alerts"))],
+              [
+                // A loader defined here runs alongside the lazy module's download; one returned by it would wait for it.
+                { ...page("queue", () => import("./routes/staff/queue")), loader: prefetchQueue(queryClient) },
+                page("alerts", () => import("./routes/staff/alerts")),
+              ],
             ),
             gate(["maintenance", "admin"], [page("works", () => import("./routes/staff/works"))]),
             gate(STAFF, [

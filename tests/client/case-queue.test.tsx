@@ -86,6 +86,31 @@ describe("Case queue", () => {
     expect(screen.queryByRole("table", { name: "Homes" })).not.toBeInTheDocument();
   });
 
+  it("asks for the cases at once, without waiting for the session check to answer", async () => {
+    const { fetchMock, callsTo } = mockApi({
+      "GET /api/auth/me": { body: users.officer },
+      "GET /api/staff": { body: { users: staff } },
+      "GET /api/properties/estates": { body: { estates: ["Kestrel Rise"] } },
+      "GET /api/cases": (call) => page(call, [makeItem(1)], 1),
+    });
+    const answer = fetchMock.getMockImplementation()!;
+    let releaseMe!: () => void;
+    const meHeld = new Promise<void>((resolve) => (releaseMe = resolve));
+    fetchMock.mockImplementation(async (input, init) => {
+      const url = typeof input === "string" ? input : input instanceof URL ? input.href : input.url;
+      if (url.includes("/api/auth/me")) await meHeld;
+      return answer(input, init);
+    });
+    renderApp("/queue");
+    // The session check is still unanswered (so not yet recorded) while the queue has been asked for.
+    await waitFor(() => expect(callsTo("GET", "/api/cases")).toHaveLength(1));
+    expect(callsTo("GET", "/api/auth/me")).toHaveLength(0);
+    releaseMe();
+    const table = await screen.findByRole("table", { name: "Case queue" });
+    await waitFor(() => expect(rowsOf(table)).toHaveLength(1));
+    expect(callsTo("GET", "/api/cases")).toHaveLength(1);
+  });
+
   it("reads every filter, the sort, the page and the shown columns from the URL and asks the API for them", async () => {
     const url =
       "/queue?status=triaged,new&risk=condensing,unknown&category=1&band=B,A&estate=Millbeck%20Terraces&vulnerable=true" +

@@ -41,6 +41,8 @@ export interface Equipment {
 // The queue's counts of open cases by vulnerability and deadline read this index alone.
 @Index("idx_cases_org_status_vulnerable_due", ["organisationId", "status", "vulnerableHousehold", "nextDueAt"])
 @Index("idx_cases_triage_due", ["triageDueAt"])
+// The queue's text search: the cases of the matching homes, in priority order, without reading their rows.
+@Index("idx_cases_org_property_queue", ["organisationId", "propertyId", "priority", "nextDueAt"])
 // The dashboard: cases known in a period, and a home's earlier cases (repeats).
 @Index("idx_cases_org_aware", ["organisationId", "awareAt"])
 @Index("idx_cases_property_aware", ["propertyId", "awareAt"])

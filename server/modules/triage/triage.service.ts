@@ -145,6 +145,11 @@ export class TriageService {
     return ids.length;
   }
 
+  /** Whether any of the landlord's cases has figures due to be worked out again (the queue asks beside its page). */
+  async hasStale(organisationId: number): Promise<boolean> {
+    return (await this.cases.staleIds(organisationId, 1)).length > 0;
+  }
+
   /** The case page's "how the priority was made up", worked out now. */
   async breakdown(actor: Actor, caseId: number): Promise<TriagePriority & { computedAt: Date }> {
     const c = await this.cases.getForActor(actor, caseId);

@@ -1,24 +1,13 @@
-import type { QueryClient } from "@tanstack/react-query";
-import { Link, type LoaderFunctionArgs } from "react-router-dom";
+import { Link } from "react-router-dom";
 import { buttonClasses } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
-import { signedInAs } from "@/features/auth/api/require-role";
 import { StatusBadge } from "@/features/cases/components/case-status";
 import { statusLabelFor } from "@/features/cases/labels";
-import { estatesQueryOptions, useEstates } from "@/features/properties/api/get-estates";
-import { prefetchCaseQueue } from "@/features/queue/api/prefetch-queue";
+import { useEstates } from "@/features/properties/api/get-estates";
 import { CaseQueueTable } from "@/features/queue/components/case-queue-table";
 
-export const clientLoader =
-  (queryClient: QueryClient) =>
-  async ({ request }: LoaderFunctionArgs) => {
-    if (await signedInAs(queryClient, ["officer", "admin"])) {
-      prefetchCaseQueue(queryClient, request.url);
-      void queryClient.prefetchQuery(estatesQueryOptions());
-    }
-    return null;
-  };
+// Its cases and estates are asked for by the route's loader in src/app/router.tsx, as the navigation starts.
 
 const renderStatus = (status: string) => <StatusBadge status={status} audience="staff" className="py-0 whitespace-nowrap" />;
 
