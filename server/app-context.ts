@@ -48,6 +48,7 @@ import { OutlookService } from "./modules/outlook/outlook.service.js";
 import { MosquittoBrokerFiles } from "./modules/sensors/mqtt/broker-files.js";
 import { SensorService } from "./modules/sensors/sensor.service.js";
 import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
+import { ReadingPartitionService } from "./modules/sensors/reading-partitions.service.js";
 import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
 
 export interface Services {
@@ -89,6 +90,8 @@ export interface Services {
   /** Keeps mosquitto's password file and ACL in step with the sensor registry (the sensors' BrokerCredentials). */
   mqttBroker: MosquittoBrokerFiles;
   sensorWatch: SensorWatchService;
+  /** The monthly partitions of sensor_readings: next months' added ahead, old months archived. */
+  readingPartitions: ReadingPartitionService;
 }
 
 export interface AppContext {
@@ -257,6 +260,7 @@ export function createServices(
     sensors,
     sensorIngest,
     sensorWatch,
+    readingPartitions: new ReadingPartitionService(dataSource, clock, logger),
   };
 }
 

@@ -9,11 +9,13 @@ import { startBoardReports } from "./modules/board-report/board-report.scheduler
 import { startSensorHealthSweeper } from "./modules/sensors/sensor-health.sweeper.js";
 import { startMqttIngest } from "./modules/sensors/mqtt/mqtt-ingest.js";
 import { startSensorWatchSweep } from "./modules/sensor-watch/sensor-watch.sweeper.js";
+import { startReadingPartitionUpkeep } from "./modules/sensors/reading-partitions.job.js";
 
 /**
  * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
  * reminders, the release of queued invitations (tenancy imports), the monthly board reports and readings
- * over MQTT (the subscriber, and the broker's files brought in step with the registry);
+ * over MQTT (the subscriber, and the broker's files brought in step with the registry), and next months'
+ * partitions of the sensor readings;
  * returns a function that stops them and resolves once any job already running has finished (so
  * shutdown can close the database after it, not under it).
  */
@@ -34,12 +36,15 @@ export function startBackgroundJobs(ctx: Pick<AppContext, "services" | "logger" 
   const stopMqtt = startMqttIngest(ctx.services.sensorIngest, ctx.services.mqttBroker, ctx.config.mqtt, ctx.logger);
   // Rooms whose sensor figures are behind their readings (a crash or restart mid-evaluation) are worked out again.
   const stopSensorWatch = startSensorWatchSweep(ctx.services.sensorWatch, ctx.logger);
+  // Next months' partitions of sensor_readings, added before readings reach them (at start, then daily).
+  const stopReadingPartitions = startReadingPartitionUpkeep(ctx.services.readingPartitions, ctx.logger);
   return async () => {
     await Promise.all([
       stopMqtt(),
       stopBoardReports(),
       stopSensorHealth(),
       stopSensorWatch(),
+      stopReadingPartitions(),
       stopInvitations(),
       stopReminders(),
       stopTriageSweeper(),

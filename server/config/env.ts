@@ -120,6 +120,7 @@ const schema = z
     MQTT_BATCH_MS: z.coerce.number().int().min(0).max(10_000).default(250),
     MQTT_BATCH_READINGS: z.coerce.number().int().min(1).max(50_000).default(2000),
     MQTT_IDENTITY_CACHE_MS: z.coerce.number().int().min(0).max(60_000).default(5000),
+    SENSOR_READINGS_KEEP_MONTHS: z.coerce.number().int().min(2).max(1200).default(24),
   })
   .superRefine((env, ctx) => {
     const trust = parseTrustProxy(env.TRUST_PROXY);
@@ -184,6 +185,11 @@ export interface Config {
    */
   weather: { url: string; timeoutMs: number; forecastMaxAgeMs: number };
   mqtt: MqttConfig;
+  /**
+   * Sensor readings kept in the database: whole months older than `keepMonths` before the current one go
+   * to archive files (`npm run readings:archive`). 24 by default: common practice, no source.
+   */
+  sensorReadings: { keepMonths: number };
 }
 
 /** Sensor readings over MQTT (server/modules/sensors/mqtt/). */
@@ -302,5 +308,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       batchReadings: e.MQTT_BATCH_READINGS,
       identityCacheMs: e.MQTT_IDENTITY_CACHE_MS,
     },
+    sensorReadings: { keepMonths: e.SENSOR_READINGS_KEEP_MONTHS },
   };
 }

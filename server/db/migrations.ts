@@ -33,6 +33,7 @@ import { Sensors1796460000000 } from "./migrations/1796460000000-Sensors.js";
 import { SensorHealth1796460054896 } from "./migrations/1796460054896-SensorHealth.js";
 import { SensorWatch1796461027791 } from "./migrations/1796461027791-SensorWatch.js";
 import { WeatherLocations1796461205317 } from "./migrations/1796461205317-WeatherLocations.js";
+import { SensorReadingsByMonth1796462200000 } from "./migrations/1796462200000-SensorReadingsByMonth.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -68,4 +69,5 @@ export const migrations = [
   SensorHealth1796460054896,
   SensorWatch1796461027791,
   WeatherLocations1796461205317,
+  SensorReadingsByMonth1796462200000,
 ];
