@@ -118,6 +118,23 @@ export class ReadingPartitionService {
     return names;
   }
 
+  /**
+   * Makes sure `month` and every month after it up to the lowest partition have partitions of their own,
+   * by splitting the lowest partition (which otherwise takes every older row). For a restore, or a seed
+   * of old readings; returns the partitions added.
+   */
+  async ensureFrom(month: MonthIndex): Promise<string[]> {
+    const lowest = (await this.partitions())[0];
+    if (!lowest) throw new ConflictError("sensor_readings is not partitioned by month.");
+    if (lowest.month === null || month >= lowest.month) return [];
+    const adding = monthsBetween(month, lowest.month - 1);
+    await this.dataSource.query(
+      `ALTER TABLE ${TABLE} REORGANIZE PARTITION ${lowest.name} INTO (${adding.map(monthPartitionSql).join(", ")}, ` +
+        `${monthPartitionSql(lowest.month)})`,
+    );
+    return adding.map(partitionName);
+  }
+
   /** Whether a month has ended long enough ago to be archived (ARCHIVE_MIN_AGE_DAYS). */
   archivable(month: MonthIndex): boolean {
     return monthStart(month + 1).getTime() <= this.clock.now().getTime() - ARCHIVE_MIN_AGE_DAYS * DAY_MS;
@@ -246,15 +263,7 @@ export class ReadingPartitionService {
     const month = match ? Number(match[1]) * 12 + Number(match[2]) - 1 : null;
     if (month === null) throw new ValidationError(`Not an archive file name (sensor_readings-YYYY-MM.csv.gz): ${file}`);
     const rows = await countArchiveRows(file);
-    const parts = await this.partitions();
-    const lowest = parts[0];
-    if (!lowest) throw new ConflictError("sensor_readings is not partitioned by month.");
-    if (lowest.month !== null && month < lowest.month) {
-      const adding = monthsBetween(month, lowest.month - 1).map(monthPartitionSql);
-      await this.dataSource.query(
-        `ALTER TABLE ${TABLE} REORGANIZE PARTITION ${lowest.name} INTO (${adding.join(", ")}, ${monthPartitionSql(lowest.month)})`,
-      );
-    }
+    await this.ensureFrom(month);
     const runner = this.dataSource.createQueryRunner();
     try {
       const db = ((await runner.connect()) as PoolConnection).promise();
