@@ -51,6 +51,7 @@ import { OutlookService } from "./modules/outlook/outlook.service.js";
 import { MosquittoBrokerFiles } from "./modules/sensors/mqtt/broker-files.js";
 import { SensorService } from "./modules/sensors/sensor.service.js";
 import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
+import { ReadingPartitionService } from "./modules/sensors/reading-partitions.service.js";
 import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
 
 export interface Services {
@@ -95,6 +96,8 @@ export interface Services {
   sensorWatch: SensorWatchService;
   /** Leases in the database that let one app instance at a time run each background job. */
   jobLeases: JobLeases;
+  /** The monthly partitions of sensor_readings: next months' added ahead, old months archived. */
+  readingPartitions: ReadingPartitionService;
 }
 
 export interface AppContext {
@@ -272,6 +275,7 @@ export function createServices(
     sensorIngest,
     sensorWatch,
     idempotency: new IdempotencyService(dataSource, clock, logger),
+    readingPartitions: new ReadingPartitionService(dataSource, clock, logger),
   };
 }
 

@@ -11,12 +11,13 @@ import { startMqttIngest } from "./modules/sensors/mqtt/mqtt-ingest.js";
 import { startSensorWatchSweep } from "./modules/sensor-watch/sensor-watch.sweeper.js";
 import { startRepeatingJob } from "./lib/repeating-job.js";
 import { purgeExpiredRateLimitHits } from "./middleware/rate-limit-store.js";
+import { startReadingPartitionUpkeep } from "./modules/sensors/reading-partitions.job.js";
 
 /**
  * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
  * reminders, the release of queued invitations (tenancy imports), the monthly board reports, readings
- * over MQTT (the subscriber, and the broker's files brought in step with the registry) and the purge of
- * ended rate-limit counts;
+ * over MQTT (the subscriber, and the broker's files brought in step with the registry), the purge of
+ * ended rate-limit counts and next months' partitions of the sensor readings;
  * returns a function that stops them and resolves once any job already running has finished (so
  * shutdown can close the database after it, not under it).
  */
@@ -52,6 +53,8 @@ export function startBackgroundJobs(
     lease: { leases, name: "rate-limit-purge" },
     run: () => purgeExpiredRateLimitHits(ctx.dataSource),
   });
+  // Next months' partitions of sensor_readings, added before readings reach them (at start, then daily).
+  const stopReadingPartitions = startReadingPartitionUpkeep(ctx.services.readingPartitions, ctx.logger, { leases });
   return async () => {
     await Promise.all([
       stopRateLimitPurge(),
@@ -59,6 +62,7 @@ export function startBackgroundJobs(
       stopBoardReports(),
       stopSensorHealth(),
       stopSensorWatch(),
+      stopReadingPartitions(),
       stopInvitations(),
       stopReminders(),
       stopTriageSweeper(),

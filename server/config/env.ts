@@ -139,6 +139,7 @@ const schema = z
       .enum(["true", "false", "1", "0"], "S3_FORCE_PATH_STYLE must be true or false")
       .default("true")
       .transform((v) => v === "true" || v === "1"),
+    SENSOR_READINGS_KEEP_MONTHS: z.coerce.number().int().min(2).max(1200).default(24),
   })
   .superRefine((env, ctx) => {
     const trust = parseTrustProxy(env.TRUST_PROXY);
@@ -226,6 +227,11 @@ export interface Config {
    */
   weather: { url: string; timeoutMs: number; forecastMaxAgeMs: number };
   mqtt: MqttConfig;
+  /**
+   * Sensor readings kept in the database: whole months older than `keepMonths` before the current one go
+   * to archive files (`npm run readings:archive`). 24 by default: common practice, no source.
+   */
+  sensorReadings: { keepMonths: number };
 }
 
 export interface S3StoreOptions {
@@ -382,5 +388,6 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       batchReadings: e.MQTT_BATCH_READINGS,
       identityCacheMs: e.MQTT_IDENTITY_CACHE_MS,
     },
+    sensorReadings: { keepMonths: e.SENSOR_READINGS_KEEP_MONTHS },
   };
 }

@@ -35,6 +35,7 @@ import { SensorWatch1796461027791 } from "./migrations/1796461027791-SensorWatch
 import { WeatherLocations1796461205317 } from "./migrations/1796461205317-WeatherLocations.js";
 import { IdempotencyKeys1796462000000 } from "./migrations/1796462000000-IdempotencyKeys.js";
 import { JobLeasesAndRateLimits1796462100000 } from "./migrations/1796462100000-JobLeasesAndRateLimits.js";
+import { SensorReadingsByMonth1796462200000 } from "./migrations/1796462200000-SensorReadingsByMonth.js";
 import { CaseStatusCounts1796462300000 } from "./migrations/1796462300000-CaseStatusCounts.js";
 
 export const migrations = [
@@ -73,5 +74,6 @@ export const migrations = [
   WeatherLocations1796461205317,
   IdempotencyKeys1796462000000,
   JobLeasesAndRateLimits1796462100000,
+  SensorReadingsByMonth1796462200000,
   CaseStatusCounts1796462300000,
 ];

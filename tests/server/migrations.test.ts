@@ -54,6 +54,11 @@ async function schemaSnapshot(): Promise<string> {
       "SELECT TRIGGER_NAME, EVENT_OBJECT_TABLE, ACTION_TIMING, EVENT_MANIPULATION FROM information_schema.TRIGGERS WHERE TRIGGER_SCHEMA = ? ORDER BY TRIGGER_NAME",
       [db.name],
     ),
+    // Partitioning is schema too (sensor_readings by month): its down() changes no column or index.
+    ds.query(
+      "SELECT TABLE_NAME, PARTITION_NAME, PARTITION_METHOD, PARTITION_EXPRESSION, PARTITION_DESCRIPTION FROM information_schema.PARTITIONS WHERE TABLE_SCHEMA = ? AND PARTITION_NAME IS NOT NULL ORDER BY TABLE_NAME, PARTITION_ORDINAL_POSITION",
+      [db.name],
+    ),
   ]);
   return JSON.stringify(parts);
 }

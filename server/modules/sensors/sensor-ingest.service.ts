@@ -133,19 +133,27 @@ export class SensorIngestService {
     }));
   }
 
-  /** A sensor's readings over the `days` ending at its newest reading, oldest first. */
+  /**
+   * A sensor's readings over the `days` ending at its newest reading, oldest first. Two statements: the
+   * newest reading's time first, so that the window is constants MariaDB prunes the monthly partitions by
+   * (a subquery's value is known only while the query runs, so every partition would be searched).
+   */
   async recentReadings(
     sensorId: number,
     days: number,
   ): Promise<{ at: Date; airTemperatureC: number; relativeHumidityPct: number; surfaceTemperatureC: number | null }[]> {
+    const [newest] = (await this.dataSource.query("SELECT MAX(taken_at) AS at FROM sensor_readings WHERE sensor_id = ?", [
+      sensorId,
+    ])) as { at: Date | null }[];
+    if (!newest?.at) return [];
+    const to = new Date(newest.at);
     const rows: { at: Date; airT: string | number; rh: string | number; surfaceT: string | number | null }[] =
       await this.dataSource.query(
         `SELECT r.taken_at AS at, r.air_temperature_c AS airT, r.relative_humidity_pct AS rh, r.surface_temperature_c AS surfaceT
            FROM sensor_readings r
-          WHERE r.sensor_id = ?
-            AND r.taken_at >= (SELECT MAX(taken_at) FROM sensor_readings WHERE sensor_id = ?) - INTERVAL ? DAY
+          WHERE r.sensor_id = ? AND r.taken_at >= ? AND r.taken_at <= ?
           ORDER BY r.taken_at`,
-        [sensorId, sensorId, days],
+        [sensorId, new Date(to.getTime() - days * DAY_MS), to],
       );
     return rows.map((r) => ({
       at: new Date(r.at),
