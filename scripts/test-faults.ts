@@ -16,7 +16,7 @@
 // for the load and the outages only; readings carry fixed or relative times, never "today".
 // Options: --keep keeps the work folder (logs of every node, HAProxy and app).
 import { spawn } from "node:child_process";
-import { createReadStream, createWriteStream, mkdtempSync, rmSync } from "node:fs";
+import { chmodSync, createReadStream, createWriteStream, mkdtempSync, rmSync } from "node:fs";
 import { cpus, loadavg, tmpdir } from "node:os";
 import path from "node:path";
 import { pipeline } from "node:stream/promises";
@@ -62,6 +62,8 @@ const elapsed = (from: number) => (performance.now() - from) / 1000;
 const started = performance.now();
 
 const work = mkdtempSync(path.join(tmpdir(), "dewline-faults-"));
+// The Galera nodes run as the mysql user, which must be able to enter the folder (mkdtemp makes it 0700).
+chmodSync(work, 0o711);
 const db = { name: "dewline_faults", user: "dewline_faults", password: "faults-only-password" };
 const clusters: GaleraCluster[] = [];
 let haproxy: Haproxy | undefined;
@@ -251,7 +253,7 @@ function tenantWorker(s: Session, t: Seeded["tenants"][number], n: number, ownCa
     while (running) {
       i++;
       const kind: Kind = (["report", "message", "reading"] as const)[i % 3]!;
-      const key = `FT-${kind[0]!.toUpperCase()}-${n}-${String(i).padStart(5, "0")}`;
+      const key = `FT-${{ report: "C", message: "M", reading: "H", sensor: "S" }[kind]}-${n}-${String(i).padStart(5, "0")}`;
       const entry: Entry = { kind, key, sentAt: performance.now(), answeredAt: 0, status: 0, attempts: 0, acked: false };
       ledger.push(entry);
       let a: Answer;
@@ -270,7 +272,7 @@ function tenantWorker(s: Session, t: Seeded["tenants"][number], n: number, ownCa
           await readBack(s, a.servedBy, `/api/cases/${ownCase}/messages`, (b) => JSON.stringify(b).includes(key), key);
       } else {
         // A fixed calendar far from today: one reading a minute per tenant, unique by (case, room, time).
-        const takenAt = new Date(Date.UTC(2026, 0, 1) + (n * 100_000 + i) * 60_000).toISOString();
+        const takenAt = new Date(Date.UTC(2025, 0, 1) + (n * 20_000 + i) * 60_000).toISOString();
         entry.where = { caseId: ownCase, roomId: t.roomId, takenAt };
         a = await write(
           s,
@@ -384,6 +386,12 @@ async function firstAckAfter(from: number, timeoutMs = 60_000): Promise<number |
 // ---------------------------------------------------------------------------------------------
 
 let failed = false;
+// Ctrl-C: stop what was started (the nodes and HAProxy run in process groups of their own).
+for (const signal of ["SIGINT", "SIGTERM"] as const)
+  process.on(signal, () => {
+    running = false;
+    void shutdown().finally(() => process.exit(130));
+  });
 try {
   console.log(
     `Machine: ${cpus().length} cores, load average ${loadavg()
@@ -442,7 +450,14 @@ try {
   step("Migrating and seeding through the database front…");
   await runStep(process.execPath, ["dist-server/server/migrate.js"], { cwd: projectRoot, env: appEnv, stdio: "ignore" });
   const seeded = await seed(dbPort!);
-  pool = mysql.createPool({ host: "127.0.0.1", port: dbPort, ...db, database: db.name, connectionLimit: 2 });
+  pool = mysql.createPool({
+    host: "127.0.0.1",
+    port: dbPort,
+    user: db.user,
+    password: db.password,
+    database: db.name,
+    connectionLimit: 2,
+  });
   step(`Two app instances behind ${base}…`);
   for (const [i, port] of appPorts.entries())
     apps[i] = await startAppInstance({ name: `app${i + 1}`, port, env: appEnv, logFile: path.join(work, `app${i + 1}.log`) });
@@ -492,6 +507,18 @@ try {
       }
     })(),
   ];
+  // Watches the database front: a moment with connections open to two nodes at once would be two writers.
+  const writers = { most: 0, seen: new Set<string>() };
+  const watcher = (async () => {
+    while (running) {
+      const open = (await haproxy!.status().catch(() => []))
+        .filter((x) => x.proxy === "db" && x.current > 0)
+        .map((x) => x.server);
+      writers.most = Math.max(writers.most, open.length);
+      if (open.length > 1) writers.seen.add(open.join("+"));
+      await sleep(200);
+    }
+  })();
   await sleep(5000);
   const steady = errorRate(loadStart, performance.now());
 
@@ -563,14 +590,14 @@ try {
   await sleep(3000);
   running = false;
   step("Stopping the load (writes in their retries finish first)…");
-  await Promise.all(workers);
+  await Promise.all([...workers, watcher]);
   const loadS = elapsed(loadStart);
 
   // Counting ---------------------------------------------------------------------------------------
   const q = async <T>(sql: string, params: unknown[] = []) => (await pool!.query(sql, params))[0] as T[];
   const rowsPerKey = new Map<string, number>();
   const bump = (k: string) => rowsPerKey.set(k, (rowsPerKey.get(k) ?? 0) + 1);
-  for (const r of await q<{ description: string }>("SELECT description FROM cases WHERE description LIKE 'FT-R-%'"))
+  for (const r of await q<{ description: string }>("SELECT description FROM cases WHERE description LIKE 'FT-C-%'"))
     bump(r.description.split(" ")[0]!);
   const caseIds = tenants.map((x) => x.caseId);
   for (const r of await q<{ after: string }>(
@@ -656,8 +683,7 @@ try {
   const before = await countAll(pool);
   const dumpFile = path.join(work, "dump.sql");
   t = performance.now();
-  await new Promise<void>((resolve, reject) => {
-    const out = createWriteStream(dumpFile);
+  {
     const child = spawn(
       "mariadb-dump",
       [
@@ -672,11 +698,11 @@ try {
       ],
       { env: { ...process.env, MYSQL_PWD: db.password }, stdio: ["ignore", "pipe", "inherit"] },
     );
-    child.stdout.pipe(out);
-    child.once("exit", (code) =>
-      code === 0 ? out.once("finish", resolve) : reject(new Error(`mariadb-dump failed (exit ${code})`)),
-    );
-  });
+    const exited = new Promise<number | null>((resolve) => child.once("exit", (code) => resolve(code)));
+    await pipeline(child.stdout, createWriteStream(dumpFile));
+    const code = await exited;
+    if (code !== 0) throw new Error(`mariadb-dump failed (exit ${code})`);
+  }
   const dumpS = elapsed(t);
   step("A fresh three-node cluster, restored from the dump…");
   await pool.end();
@@ -702,7 +728,14 @@ try {
   const restoreS = elapsed(t);
   // Counted on another node than the one restored into: the rows must have replicated.
   const other = fresh.nodes.find((n) => n !== freshBoot.bootstrapped)!;
-  const otherPool = mysql.createPool({ host: "127.0.0.1", port: other.port, ...db, database: db.name, connectionLimit: 1 });
+  const otherPool = mysql.createPool({
+    host: "127.0.0.1",
+    port: other.port,
+    user: db.user,
+    password: db.password,
+    database: db.name,
+    connectionLimit: 1,
+  });
   const after = await countAll(otherPool);
   await otherPool.end();
   const mismatched = tables.filter((tb) => before.get(tb) !== after.get(tb));
@@ -714,6 +747,9 @@ try {
   ]);
   printTable("Faults under load (error % over the fault's window: from the fault until writes succeed, +1 s)", faults);
   printTable("Acknowledged writes against rows", writeRows);
+  console.log(
+    `  Database front: at most ${writers.most} node(s) with open connections at once${writers.seen.size ? ` (${[...writers.seen].join(", ")})` : ""}.`,
+  );
   printTable("Read-modify-write: officers racing to move the same new case", [raceRow]);
   printTable("Reads after acknowledged writes, through the other instance", [
     { checked: stale.checked, stale: stale.missed, examples: stale.missedKeys.join(", ") || "-" },

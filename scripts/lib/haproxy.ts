@@ -106,7 +106,9 @@ function config(options: HaproxyOptions): string {
       // One entry for the whole front: every connection sticks to the node the last one went to.
       "  stick-table type integer size 1",
       "  stick on int(1)",
-      "  default-server inter 1s fall 2 rise 2 on-marked-down shutdown-sessions",
+      // A check may take a while on a busy machine: three failures in a row (about 3 s) take a node out.
+      "  timeout check 3s",
+      "  default-server inter 1s fall 3 rise 2 on-marked-down shutdown-sessions",
       ...options.db.nodes.map((n, i) => `  server ${n.name} 127.0.0.1:${n.port} check${i === 0 ? "" : " backup"}`),
       "",
     );
@@ -126,7 +128,8 @@ function config(options: HaproxyOptions): string {
       // Imports and exports may take a while; the app bounds its own work.
       "  timeout server 300s",
       "  timeout http-keep-alive 10s",
-      "  default-server inter 1s fall 2 rise 2",
+      "  timeout check 3s",
+      "  default-server inter 1s fall 3 rise 2",
       ...options.http.apps.map((a) => `  server ${a.name} 127.0.0.1:${a.port} check`),
       "",
     );
