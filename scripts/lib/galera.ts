@@ -213,6 +213,11 @@ export interface StartNodeOptions {
   bootstrap?: boolean;
   /** The position recovered after a crash ("uuid:seqno"): the node asks for the writes after it (IST). */
   startPosition?: string;
+  /**
+   * Nodes to ask for the state transfer, in order (any other when none of them can). A donor is
+   * Desynced while it sends, and the database front then takes it out: keep the writer off this list.
+   */
+  donors?: string[];
   timeoutMs?: number;
 }
 
@@ -230,6 +235,8 @@ export async function startNode(cluster: GaleraCluster, node: GaleraNode, option
   const args = baseArgs(cluster, node);
   if (options.bootstrap) args.push("--wsrep-new-cluster");
   if (options.startPosition) args.push(`--wsrep-start-position=${options.startPosition}`);
+  // The trailing comma lets Galera fall back to any node when the ones named cannot donate.
+  if (options.donors?.length) args.push(`--wsrep-sst-donor=${options.donors.join(",")},`);
   const logFd = openSync(p.log, "a");
   const child = spawn("mariadbd", args, { detached: true, stdio: ["ignore", logFd, logFd] });
   closeSync(logFd);
@@ -330,14 +337,18 @@ export async function waitForExit(pid: number, timeoutMs = 10_000): Promise<void
  * Restarts a node that was stopped or killed while the rest of the cluster runs: after a crash its
  * position is recovered first, so it catches up by IST; otherwise it starts as it is.
  */
-export async function rejoinNode(cluster: GaleraCluster, node: GaleraNode): Promise<{ pid: number; recovered: string | null }> {
+export async function rejoinNode(
+  cluster: GaleraCluster,
+  node: GaleraNode,
+  donors?: string[],
+): Promise<{ pid: number; recovered: string | null }> {
   const state = readGraState(node);
   let position: string | undefined;
   if (hasData(node) && (!state || state.seqno < 0)) {
     const recovered = await recoverPosition(cluster, node);
     if (recovered) position = `${recovered.uuid}:${recovered.seqno}`;
   }
-  return { pid: await startNode(cluster, node, { startPosition: position }), recovered: position ?? null };
+  return { pid: await startNode(cluster, node, { startPosition: position, donors }), recovered: position ?? null };
 }
 
 /**
