@@ -439,6 +439,8 @@ try {
     logger: false,
     onData: (s, _x, cb) => s.on("end", cb).resume(),
   });
+  // An app instance killed in the middle of a message resets its connection: not an error of ours.
+  smtp.on("error", () => undefined);
   await new Promise<void>((resolve) => smtp!.listen(smtpPort, "127.0.0.1", () => resolve()));
   const base = `http://127.0.0.1:${httpPort}`;
   const appEnv: NodeJS.ProcessEnv = {
@@ -523,7 +525,7 @@ try {
   const watcher = (async () => {
     while (running) {
       const open = (await haproxy!.status().catch(() => []))
-        .filter((x) => x.proxy === "db" && x.current > 0 && x.status.startsWith("UP"))
+        .filter((x) => x.proxy === "db" && x.current > 0 && x.status === "UP")
         .map((x) => x.server);
       writers.most = Math.max(writers.most, open.length);
       // A node just killed keeps its count until HAProxy marks it down: only live (UP) nodes are counted.
