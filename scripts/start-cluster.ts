@@ -26,7 +26,7 @@ import {
 import { activeDbNode, startHaproxy, type Haproxy } from "./lib/haproxy.js";
 import { ensureAppDatabase } from "./lib/mariadb.js";
 import { startMosquitto, stopMosquitto } from "./lib/mosquitto.js";
-import { startObjectStore, type ObjectStore } from "./lib/object-store.js";
+import { startS3StandIn, type S3StandIn } from "./lib/s3-stand-in.js";
 import { projectRoot } from "./lib/paths.js";
 import { runStep, stopChild, waitUntilReady } from "./lib/processes.js";
 import { ensureSystemPackages, MARIADB, MOSQUITTO } from "./lib/system-packages.js";
@@ -52,7 +52,7 @@ const S3_PORT = 18900;
 let haproxy: Haproxy | undefined;
 let mailCatcher: ChildProcess | undefined;
 let weather: FakeWeather | null = null;
-let objectStore: ObjectStore | null = null;
+let objectStore: S3StandIn | null = null;
 let brokerStartedHere = false;
 let galeraStarted = false;
 const apps: AppInstance[] = [];
@@ -141,12 +141,8 @@ try {
   step(`Starting the MQTT broker (mosquitto on 127.0.0.1:${config.mqtt.port}, files in .data/cluster/mosquitto)…`);
   const broker = await startMosquitto({ dir: brokerDir, port: config.mqtt.port, appUsername: config.mqtt.username });
   brokerStartedHere = broker.started;
-  objectStore = await startObjectStore({ dir: path.join(clusterDir, "objects"), port: S3_PORT, bucket: "dewline-photos" });
-  step(
-    objectStore
-      ? `Object store (S3 stand-in) on ${objectStore.env.S3_ENDPOINT}, files in .data/cluster/objects.`
-      : "No S3 stand-in in this checkout yet: the instances share the photo folder (uploads/), as on one machine.",
-  );
+  objectStore = await startS3StandIn({ dir: path.join(clusterDir, "objects"), port: S3_PORT, bucket: "dewline-photos" });
+  step(`Object store (S3 stand-in) on ${objectStore.endpoint}, files in .data/cluster/objects.`);
 
   step("Migrating the database once, through the database front…");
   await runStep(process.execPath, ["dist-server/server/migrate.js"], { cwd: projectRoot });
@@ -155,7 +151,9 @@ try {
 
   const appEnv: NodeJS.ProcessEnv = {
     ...process.env,
-    ...objectStore?.env,
+    ...objectStore.env,
+    // Reads wait until the node has applied every write committed before them (wsrep_sync_wait=1).
+    DB_SYNC_WAIT: "1",
     APP_URL: config.appUrl,
     DB_HOST: "127.0.0.1",
     DB_PORT: String(frontDbPort),

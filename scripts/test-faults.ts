@@ -31,6 +31,7 @@ import { Room } from "../server/modules/properties/room.entity.js";
 import { Tenancy } from "../server/modules/tenancies/tenancy.entity.js";
 import { User, type Role } from "../server/modules/users/user.entity.js";
 import { startAppInstance, type AppInstance } from "./lib/app-instances.js";
+import { startS3StandIn, type S3StandIn } from "./lib/s3-stand-in.js";
 import {
   GALERA,
   galeraCluster,
@@ -70,6 +71,7 @@ let haproxy: Haproxy | undefined;
 const apps: (AppInstance | undefined)[] = [];
 let pool: mysql.Pool | undefined;
 let smtp: SMTPServer | undefined;
+let objectStore: S3StandIn | undefined;
 
 async function newCluster(name: string): Promise<GaleraCluster> {
   const ports = async () => [await freePort(), await freePort(), await freePort()];
@@ -88,6 +90,7 @@ async function shutdown() {
   await pool?.end().catch(() => undefined);
   await haproxy?.stop();
   if (smtp) await new Promise<void>((resolve) => smtp!.close(() => resolve()));
+  await objectStore?.stop();
   for (const cluster of clusters) await stopCluster(cluster).catch((e: unknown) => console.error(String(e)));
   if (KEEP) console.log(`(work folder kept: ${work})`);
   else rmSync(work, { recursive: true, force: true });
@@ -443,6 +446,8 @@ try {
   smtp.on("error", () => undefined);
   await new Promise<void>((resolve) => smtp!.listen(smtpPort, "127.0.0.1", () => resolve()));
   const base = `http://127.0.0.1:${httpPort}`;
+  // Photos in the object store, as in start:cluster: every instance sees every object.
+  objectStore = await startS3StandIn({ dir: path.join(work, "objects"), port: await freePort(), bucket: "dewline-photos" });
   const appEnv: NodeJS.ProcessEnv = {
     ...process.env,
     NODE_ENV: "development",
@@ -453,8 +458,10 @@ try {
     DB_USER: db.user,
     DB_PASSWORD: db.password,
     SMTP_PORT: String(smtpPort),
+    ...objectStore.env,
     UPLOADS_DIR: path.join(work, "uploads"),
     TRUST_PROXY: "loopback",
+    DB_SYNC_WAIT: "1",
     LOG_LEVEL: "warn",
     // The load signs in eight users from one address; the failure limit only counts failures.
     SESSION_CACHE_MS: "1000",

@@ -33,10 +33,8 @@ export async function startAppInstance(options: AppInstanceOptions, timeoutMs = 
       ...options.env,
       HOST: "127.0.0.1",
       PORT: String(options.port),
+      // The lease holder's name, the MQTT client id (dewline-<name>) and a field on every log line.
       INSTANCE_NAME: options.name,
-      // Until INSTANCE_NAME sets it in the server: each instance needs a broker session of its own, or
-      // the broker would drop one whenever the other connects with the same id.
-      MQTT_CLIENT_ID: `dewline-${options.name}`,
     },
     detached: options.detached ?? false,
     stdio: ["ignore", "pipe", "pipe"],

@@ -8,9 +8,9 @@
 //   when a node dies;
 // - durability follows the Jepsen analysis of Galera (March 2026): every commit is flushed to the log
 //   (innodb_flush_log_at_trx_commit=1; the binary log is off, so sync_binlog does not apply), writes go
-//   to one node at a time (HAProxy, scripts/lib/haproxy.ts), and reads wait for the node to apply
-//   everything committed before them (wsrep_sync_wait=1, set here as the node default until the app
-//   sets it per session);
+//   to one node at a time (HAProxy, scripts/lib/haproxy.ts), and the app's reads wait for the node to
+//   apply everything committed before them (DB_SYNC_WAIT=1: wsrep_sync_wait per session, set by the
+//   scripts that start the instances);
 // - after a SIGKILL a node's saved position is unknown (seqno -1): it is recovered with
 //   --wsrep-recover and passed back with --wsrep-start-position, so the node rejoins by an
 //   incremental transfer (IST) instead of copying everything again.
@@ -151,10 +151,6 @@ function baseArgs(cluster: GaleraCluster, node: GaleraNode): string[] {
     `--wsrep-node-incoming-address=127.0.0.1:${node.port}`,
     `--wsrep-node-name=${node.name}`,
     "--wsrep-sst-method=rsync",
-    // Reads (and the first statement of each transaction) wait until the node has applied every
-    // write the cluster committed before them. Until the app sets it per session (DB_SYNC_WAIT), the
-    // node default holds; with one writer at a time it costs a round of the group per read.
-    "--wsrep-sync-wait=1",
     "--binlog-format=ROW",
     "--default-storage-engine=InnoDB",
     "--innodb-autoinc-lock-mode=2",
