@@ -3,6 +3,7 @@
 import { spawn, type ChildProcess } from "node:child_process";
 import { loadConfig } from "../server/config/env.js";
 import { startFakeWeatherAt } from "./lib/fake-weather.js";
+import { mailCatcherArgs } from "./lib/mail-catcher.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { startMosquitto, stopMosquitto } from "./lib/mosquitto.js";
 import { projectBrokerDir, projectDbDir, projectRoot } from "./lib/paths.js";
@@ -29,18 +30,7 @@ const weather = await startFakeWeatherAt(config.weather.url);
 
 const node = (args: string[], env: NodeJS.ProcessEnv = process.env) =>
   children.push(spawn(process.execPath, args, { cwd: projectRoot, stdio: "inherit", env }));
-node([
-  "node_modules/maildev/bin/maildev",
-  "--ip",
-  "127.0.0.1",
-  "--web-ip",
-  "127.0.0.1",
-  "-s",
-  String(config.smtp.port),
-  "-w",
-  String(config.smtp.webPort),
-  "--silent",
-]);
+node(mailCatcherArgs(config.smtp));
 node(["--import", "tsx", "--watch", "server/server.ts"], serverEnv);
 node(["node_modules/vite/bin/vite.js", "--port", "5173"]);
 console.log(`Dev client on http://127.0.0.1:5173 (API on ${config.appUrl}, mail on http://127.0.0.1:${config.smtp.webPort})`);

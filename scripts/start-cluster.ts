@@ -5,7 +5,7 @@
 // stand-in. Migrations and the demo data run once, through the database front. Ctrl-C stops it all in
 // order: the apps drain, the fronts close, the nodes stop one by one with the writer last, so the next
 // start bootstraps from it without any recovery. `npm start` (one MariaDB, one app) stays the default.
-import { spawn, type ChildProcess } from "node:child_process";
+import type { ChildProcess } from "node:child_process";
 import { existsSync } from "node:fs";
 import path from "node:path";
 import { setTimeout as sleep } from "node:timers/promises";
@@ -24,6 +24,7 @@ import {
   type GaleraCluster,
 } from "./lib/galera.js";
 import { activeDbNode, startHaproxy, type Haproxy } from "./lib/haproxy.js";
+import { startMailCatcher } from "./lib/mail-catcher.js";
 import { ensureAppDatabase } from "./lib/mariadb.js";
 import { startMosquitto, stopMosquitto } from "./lib/mosquitto.js";
 import { startS3StandIn, type S3StandIn } from "./lib/s3-stand-in.js";
@@ -121,22 +122,7 @@ try {
   while ((await activeDbNode(haproxy)) === null) await sleep(200);
 
   step(`Starting the mail catcher (SMTP 127.0.0.1:${config.smtp.port}, inbox on port ${config.smtp.webPort})…`);
-  mailCatcher = spawn(
-    process.execPath,
-    [
-      "node_modules/maildev/bin/maildev",
-      "--ip",
-      "127.0.0.1",
-      "--web-ip",
-      "127.0.0.1",
-      "-s",
-      String(config.smtp.port),
-      "-w",
-      String(config.smtp.webPort),
-      "--silent",
-    ],
-    { cwd: projectRoot, stdio: ["ignore", "ignore", "inherit"] },
-  );
+  mailCatcher = startMailCatcher(config.smtp);
   weather = await startFakeWeatherAt(config.weather.url, step);
   step(`Starting the MQTT broker (mosquitto on 127.0.0.1:${config.mqtt.port}, files in .data/cluster/mosquitto)…`);
   const broker = await startMosquitto({ dir: brokerDir, port: config.mqtt.port, appUsername: config.mqtt.username });

@@ -10,6 +10,7 @@ import { DEMO_ACCOUNTS } from "../server/db/seeds/demo.js";
 import { startFakeWeatherAt, type FakeWeather } from "./lib/fake-weather.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { startMosquitto, stopMosquitto } from "./lib/mosquitto.js";
+import { startMailCatcher } from "./lib/mail-catcher.js";
 import { projectBrokerDir, projectDbDir, projectRoot } from "./lib/paths.js";
 import { runStep, stopChild, waitUntilReady } from "./lib/processes.js";
 import { ensureSystemPackages, MARIADB, MOSQUITTO } from "./lib/system-packages.js";
@@ -62,22 +63,7 @@ try {
   await ensureAppDatabase({ dir: projectDbDir, port: config.db.port }, config.db);
 
   step(`Starting the mail catcher (SMTP 127.0.0.1:${config.smtp.port}, inbox on port ${config.smtp.webPort})…`);
-  mailCatcher = spawn(
-    process.execPath,
-    [
-      "node_modules/maildev/bin/maildev",
-      "--ip",
-      "127.0.0.1",
-      "--web-ip",
-      "127.0.0.1",
-      "-s",
-      String(config.smtp.port),
-      "-w",
-      String(config.smtp.webPort),
-      "--silent",
-    ],
-    { cwd: projectRoot, stdio: ["ignore", "ignore", "inherit"] },
-  );
+  mailCatcher = startMailCatcher(config.smtp);
   mailCatcher.once("exit", (code) => {
     if (code !== null && code !== 0)
       console.warn(`The mail catcher stopped (exit ${code}); is another one already using port ${config.smtp.port}?`);

@@ -14,6 +14,7 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { chmodSync, closeSync, existsSync, mkdirSync, openSync, readFileSync, writeFileSync } from "node:fs";
 import { connect } from "node:net";
 import path from "node:path";
+import { portAccepts } from "./processes.js";
 
 export interface HaproxyBackend {
   name: string;
@@ -148,22 +149,12 @@ function admin(socketPath: string, command: string): Promise<string> {
   });
 }
 
-function accepts(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const socket = connect({ host: "127.0.0.1", port }, () => {
-      socket.destroy();
-      resolve(true);
-    });
-    socket.once("error", () => resolve(false));
-  });
-}
-
 /** Writes the configuration and starts HAProxy in the foreground (its own process group), waiting until its fronts listen. */
 export async function startHaproxy(options: HaproxyOptions, timeoutMs = 15_000): Promise<Haproxy> {
   const f = files(options.dir);
   mkdirSync(options.dir, { recursive: true });
   for (const port of [options.db?.port, options.http?.port].filter((p): p is number => p !== undefined)) {
-    if (await accepts(port)) throw new Error(`Port ${port} on 127.0.0.1 is already in use by another program.`);
+    if (await portAccepts(port)) throw new Error(`Port ${port} on 127.0.0.1 is already in use by another program.`);
   }
   if (options.db) {
     writeFileSync(f.check, checkScript(options.db.nodes));
@@ -184,7 +175,7 @@ export async function startHaproxy(options: HaproxyOptions, timeoutMs = 15_000):
       const tail = existsSync(f.log) ? readFileSync(f.log, "utf8").split("\n").slice(-15).join("\n") : "";
       throw new Error(`HAProxy did not start (${exited ?? "timed out"}). Its log ends:\n${tail}`);
     }
-    if ((await Promise.all(ports.map(accepts))).every(Boolean) && existsSync(f.admin)) break;
+    if ((await Promise.all(ports.map(portAccepts))).every(Boolean) && existsSync(f.admin)) break;
     await new Promise((r) => setTimeout(r, 50));
   }
   return {

@@ -6,9 +6,9 @@
 import { spawn } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { chmodSync, chownSync, closeSync, existsSync, mkdirSync, openSync, readFileSync, writeFileSync } from "node:fs";
-import { connect } from "node:net";
 import { BROKER_FILE_MODE, brokerAcl, brokerPaths, brokerPid } from "../../server/modules/sensors/mqtt/broker-files.js";
 import { mosquittoPasswordHash } from "../../server/modules/sensors/credentials.js";
+import { portAccepts } from "./processes.js";
 
 export interface MosquittoOptions {
   dir: string;
@@ -81,16 +81,6 @@ function brokerConfig(dir: string, port: number): string {
   ].join("\n");
 }
 
-function accepts(port: number): Promise<boolean> {
-  return new Promise((resolve) => {
-    const socket = connect({ host: "127.0.0.1", port }, () => {
-      socket.destroy();
-      resolve(true);
-    });
-    socket.once("error", () => resolve(false));
-  });
-}
-
 function logTail(dir: string): string {
   const { log } = brokerPaths(dir);
   return existsSync(log) ? readFileSync(log, "utf8").split("\n").slice(-15).join("\n") : "";
@@ -110,7 +100,7 @@ export async function startMosquitto(options: MosquittoOptions, timeoutMs = 15_0
     const password = readFileSync(files.appPassword, "utf8").trim();
     return { url, port, dir, pid: running, started: false, app: { username: appUsername, password } };
   }
-  if (await accepts(port)) {
+  if (await portAccepts(port)) {
     throw new Error(`Port ${port} on 127.0.0.1 is already in use by another program; set MQTT_PORT to a free port.`);
   }
   const { password } = prepareFolder(dir, appUsername);
@@ -130,7 +120,8 @@ export async function startMosquitto(options: MosquittoOptions, timeoutMs = 15_0
   let stopped: string | null = null;
   void exited.then((why) => (stopped = why));
   while (Date.now() < deadline && stopped === null) {
-    if (await accepts(port)) return { url, port, dir, pid: child.pid, started: true, app: { username: appUsername, password } };
+    if (await portAccepts(port))
+      return { url, port, dir, pid: child.pid, started: true, app: { username: appUsername, password } };
     await new Promise((r) => setTimeout(r, 50));
   }
   if (stopped === null) process.kill(child.pid, "SIGKILL");

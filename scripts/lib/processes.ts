@@ -1,4 +1,5 @@
 import { spawn, type ChildProcess, type SpawnOptions } from "node:child_process";
+import { connect } from "node:net";
 
 /** Runs a command to completion with its output passed through; rejects on a non-zero exit. */
 export function runStep(command: string, args: string[], options: SpawnOptions = {}): Promise<void> {
@@ -48,4 +49,15 @@ export async function waitUntilReady(url: string, timeoutMs = 60_000): Promise<v
     await new Promise((r) => setTimeout(r, 200));
   }
   throw new Error(`${url} was not ready within ${timeoutMs / 1000} s (last answer: ${last})`);
+}
+
+/** Whether something accepts TCP connections on 127.0.0.1:`port`. */
+export function portAccepts(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const socket = connect({ host: "127.0.0.1", port }, () => {
+      socket.destroy();
+      resolve(true);
+    });
+    socket.once("error", () => resolve(false));
+  });
 }
