@@ -23,13 +23,7 @@ import path from "node:path";
 import { setTimeout as sleep } from "node:timers/promises";
 import mysql from "mysql2/promise";
 import { SMTPServer } from "smtp-server";
-import { createDataSource } from "../server/db/create-data-source.js";
-import { hashPassword } from "../server/modules/auth/passwords.js";
-import { Organisation } from "../server/modules/organisations/organisation.entity.js";
-import { Property } from "../server/modules/properties/property.entity.js";
-import { Room } from "../server/modules/properties/room.entity.js";
-import { Tenancy } from "../server/modules/tenancies/tenancy.entity.js";
-import { User, type Role } from "../server/modules/users/user.entity.js";
+import { seedFaultLandlord } from "./lib/fault-landlord.js";
 import { load, printTable, quantile, Session, type LoadResult } from "./lib/http-load.js";
 import { ensureAppDatabase, freePort, rootSql, runningPid, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { projectRoot } from "./lib/paths.js";
@@ -143,62 +137,33 @@ async function shutdown() {
 // ---------------------------------------------------------------------------------------------
 // Seeding: one landlord, its staff and homes, each with a tenant
 
-interface Seeded {
-  officer: string;
-  tenants: { email: string; roomId: number }[];
-}
-
-async function seed(): Promise<Seeded> {
-  const ds = createDataSource({ host: "127.0.0.1", port: dbPort, ...db });
-  await ds.initialize();
-  try {
-    const passwordHash = await hashPassword(PASSWORD);
-    const org = await ds.getRepository(Organisation).save({ name: "Fernlea Homes (fault script)" });
-    const user = (role: Role, n: number) =>
-      ds.getRepository(User).save(
-        ds.getRepository(User).create({
-          organisationId: org.id,
-          email: `${role}.${n}@fault.example`,
-          name: `Fault ${role} ${n}`,
-          role,
-          status: "active",
-          passwordHash,
-        }),
-      );
-    const officer = await user("officer", 1);
-    await user("admin", 1);
-    await user("maintenance", 1);
-    const tenants: Seeded["tenants"] = [];
-    for (let i = 1; i <= HOMES; i++) {
-      const home = await ds.getRepository(Property).save({
-        organisationId: org.id,
-        addressLine1: `${i} Quillon Street`,
-        addressLine2: null,
+const seed = () =>
+  seedFaultLandlord(
+    { ...db, port: dbPort },
+    {
+      name: "Fernlea Homes (fault script)",
+      emailDomain: "fault.example",
+      namePrefix: "Fault",
+      password: PASSWORD,
+      officers: 1,
+      otherStaff: ["maintenance"],
+      homes: HOMES,
+      street: "Quillon Street",
+      home: {
         town: "Fernlea",
         postcode: "ZX9 9AA",
-        uprn: null,
         estate: "Quillon",
-        block: null,
         builtForm: "mid-terrace",
         wallType: "solid-brick",
         glazingType: "modern-double",
         heatingType: "gas-boiler",
-      });
-      const [room] = await ds.getRepository(Room).save([
-        { propertyId: home.id, name: "Bedroom", kind: "bedroom" },
-        { propertyId: home.id, name: "Kitchen", kind: "kitchen" },
-      ]);
-      const tenant = await user("tenant", i);
-      await ds
-        .getRepository(Tenancy)
-        .save({ propertyId: home.id, tenantUserId: tenant.id, startDate: "2024-01-01", endDate: null, householdNotes: null });
-      tenants.push({ email: tenant.email, roomId: room!.id });
-    }
-    return { officer: officer.email, tenants };
-  } finally {
-    await ds.destroy();
-  }
-}
+      },
+      rooms: [
+        { name: "Bedroom", kind: "bedroom" },
+        { name: "Kitchen", kind: "kitchen" },
+      ],
+    },
+  );
 
 const report = (token: string, roomId: number) => ({
   description: `${token} Black mould on the bedroom wall by the window.`,
@@ -370,7 +335,7 @@ try {
   step(`Starting the server on ${base}…`);
   await startServer();
 
-  const officer = await Session.signIn(base, seeded.officer, PASSWORD);
+  const officer = await Session.signIn(base, seeded.officers[0]!, PASSWORD);
   // One after another: the per-address sign-in limit counts requests still running as failures.
   const tenants: { s: Session; roomId: number }[] = [];
   for (const t of seeded.tenants) tenants.push({ s: await Session.signIn(base, t.email, PASSWORD), roomId: t.roomId });

@@ -23,13 +23,6 @@ import { pipeline } from "node:stream/promises";
 import { setTimeout as sleep } from "node:timers/promises";
 import mysql from "mysql2/promise";
 import { SMTPServer } from "smtp-server";
-import { createDataSource } from "../server/db/create-data-source.js";
-import { hashPassword } from "../server/modules/auth/passwords.js";
-import { Organisation } from "../server/modules/organisations/organisation.entity.js";
-import { Property } from "../server/modules/properties/property.entity.js";
-import { Room } from "../server/modules/properties/room.entity.js";
-import { Tenancy } from "../server/modules/tenancies/tenancy.entity.js";
-import { User, type Role } from "../server/modules/users/user.entity.js";
 import { startAppInstance, type AppInstance } from "./lib/app-instances.js";
 import { startS3StandIn, type S3StandIn } from "./lib/s3-stand-in.js";
 import {
@@ -45,6 +38,7 @@ import {
   waitForExit,
   type GaleraCluster,
 } from "./lib/galera.js";
+import { seedFaultLandlord, type SeededLandlord } from "./lib/fault-landlord.js";
 import { activeDbNode, startHaproxy, type Haproxy } from "./lib/haproxy.js";
 import { printTable, Session } from "./lib/http-load.js";
 import { ensureAppDatabase, freePort } from "./lib/mariadb.js";
@@ -150,63 +144,34 @@ async function write(s: Session, method: string, url: string, body: unknown, key
 // ---------------------------------------------------------------------------------------------
 // Seeding: one landlord, staff, homes each with a tenant, two sensors
 
-interface Seeded {
-  officers: string[];
-  admin: string;
-  tenants: { email: string; propertyId: number; roomId: number }[];
-}
+type Seeded = SeededLandlord;
 
-async function seed(port: number): Promise<Seeded> {
-  const ds = createDataSource({ host: "127.0.0.1", port, ...db });
-  await ds.initialize();
-  try {
-    const passwordHash = await hashPassword(PASSWORD);
-    const org = await ds.getRepository(Organisation).save({ name: "Harrowgate Lettings (fault test)" });
-    const user = (role: Role, n: number) =>
-      ds.getRepository(User).save(
-        ds.getRepository(User).create({
-          organisationId: org.id,
-          email: `${role}.${n}@faults.example`,
-          name: `Faults ${role} ${n}`,
-          role,
-          status: "active",
-          passwordHash,
-        }),
-      );
-    const officers = [];
-    for (let i = 1; i <= OFFICERS; i++) officers.push((await user("officer", i)).email);
-    const admin = (await user("admin", 1)).email;
-    const tenants: Seeded["tenants"] = [];
-    for (let i = 1; i <= TENANTS; i++) {
-      const home = await ds.getRepository(Property).save({
-        organisationId: org.id,
-        addressLine1: `${i} Brackenhythe Row`,
-        addressLine2: null,
+const seed = (port: number) =>
+  seedFaultLandlord(
+    { ...db, port },
+    {
+      name: "Harrowgate Lettings (fault test)",
+      emailDomain: "faults.example",
+      namePrefix: "Faults",
+      password: PASSWORD,
+      officers: OFFICERS,
+      homes: TENANTS,
+      street: "Brackenhythe Row",
+      home: {
         town: "Harrowgate",
         postcode: "ZX9 8AA",
-        uprn: null,
         estate: "Brackenhythe",
-        block: null,
         builtForm: "end-terrace",
         wallType: "filled-cavity",
         glazingType: "modern-double",
         heatingType: "gas-boiler",
-      });
-      const [room] = await ds.getRepository(Room).save([
-        { propertyId: home.id, name: "Bedroom", kind: "bedroom" },
-        { propertyId: home.id, name: "Bathroom", kind: "bathroom" },
-      ]);
-      const tenant = await user("tenant", i);
-      await ds
-        .getRepository(Tenancy)
-        .save({ propertyId: home.id, tenantUserId: tenant.id, startDate: "2024-01-01", endDate: null, householdNotes: null });
-      tenants.push({ email: tenant.email, propertyId: home.id, roomId: room!.id });
-    }
-    return { officers, admin, tenants };
-  } finally {
-    await ds.destroy();
-  }
-}
+      },
+      rooms: [
+        { name: "Bedroom", kind: "bedroom" },
+        { name: "Bathroom", kind: "bathroom" },
+      ],
+    },
+  );
 
 // ---------------------------------------------------------------------------------------------
 // The ledger of writes, and the workers
