@@ -23,9 +23,10 @@
 // overlapping. Exit code 1 if any is missed.
 // Everything shares one machine, so its CPU count and load average are printed with the figures.
 // Options: --duration <seconds> (default 30) for quick runs; --cases <n> scales the data down
-// (readings 50 a case, homes one per 5 cases) for trying the script out.
+// (readings 50 a case, homes one per 5 cases) for trying the script out; --keep leaves the seeded
+// MariaDB running at the end, to look at plans by hand.
 import { spawn, type ChildProcess } from "node:child_process";
-import { closeSync, existsSync, mkdtempSync, openSync, readdirSync, rmSync, statSync, writeSync } from "node:fs";
+import { closeSync, existsSync, mkdtempSync, openSync, readdirSync, readFileSync, rmSync, statSync, writeSync } from "node:fs";
 import type { AddressInfo } from "node:net";
 import { createRequire } from "node:module";
 import { cpus, loadavg, tmpdir } from "node:os";
@@ -79,6 +80,8 @@ function option(name: string, fallback: number): number {
   return value;
 }
 const DURATION_S = option("duration", 30);
+/** --keep: leave the seeded MariaDB running at the end (its socket is printed), to look at plans by hand. */
+const KEEP = argv.includes("--keep");
 const CASES = option("cases", 100_000);
 const READINGS = CASES * 50;
 const HOMES = Math.max(50, Math.round(CASES / 5));
@@ -1067,17 +1070,20 @@ class CaptureLogger implements TypeOrmLogger {
   log() {}
 }
 
-/** What QueueService.list asks MariaDB for one scenario: a search's homes first (if any), then the page and its total together. */
+/**
+ * What QueueService.list asks MariaDB for one scenario: a search's homes first (if any), then the page
+ * (with the stored total for a status-only view) and, for other views, their COUNT(*) beside it.
+ */
 interface ScenarioSql {
   homes?: CapturedQuery;
   list: CapturedQuery;
-  count: CapturedQuery;
+  count?: CapturedQuery;
 }
 
 /** Runs a scenario's SQL as QueueService does: the homes, then the page's SELECT beside its total. */
 async function runScenarioSql(pool: mysql.Pool, q: ScenarioSql): Promise<void> {
   if (q.homes) await pool.query(q.homes.sql, q.homes.params);
-  await Promise.all([pool.query(q.list.sql, q.list.params), pool.query(q.count.sql, q.count.params)]);
+  await Promise.all([pool.query(q.list.sql, q.list.params), q.count && pool.query(q.count.sql, q.count.params)]);
 }
 
 /** The SQL QueueService.list issues for each scenario, as TypeORM writes it. */
@@ -1091,14 +1097,14 @@ async function captureQueueSql(ds: DataSource, capture: CaptureLogger, actor: Ac
     await queue.list(actor, queueQuerySchema.parse(Object.fromEntries(new URLSearchParams(s.query))));
     capture.capturing = false;
     const list = capture.queries.find(
-      (q) => /^SELECT/.test(q.sql) && /\bLIMIT\b/.test(q.sql) && q.sql.includes("`p`.`address_line1`"),
+      (q) => /^SELECT/.test(q.sql) && /\bLIMIT\b/.test(q.sql) && q.sql.includes("AS addressLine1"),
     );
-    // The total: a COUNT(*) of the rows, or the stored counts' sum for a status-only view.
-    const count = capture.queries.find((q) => /^SELECT COUNT\(\*\)/.test(q.sql) || /FROM case_status_counts/.test(q.sql));
+    // The total, when it is not asked for in the page query (the stored counts' sum for a status-only view is).
+    const count = capture.queries.find((q) => /^SELECT COUNT\(\*\)/.test(q.sql));
     const homes = capture.queries.find((q) => /^SELECT p\.id AS id FROM properties p/.test(q.sql));
-    if (!list || !count)
+    if (!list || !(count || list.sql.includes("FROM case_status_counts")))
       throw new Error(`Could not find the queue queries for ${s.name} among:\n${capture.queries.map((q) => q.sql).join("\n")}`);
-    out.push({ ...(homes ? { homes } : {}), list, count });
+    out.push({ ...(homes ? { homes } : {}), list, ...(count ? { count } : {}) });
   }
   return out;
 }
@@ -1176,16 +1182,20 @@ async function loadPath(
  * same length (me, queue, me, queue, …), so both see the same machine: the ratio of their throughputs
  * holds even when other work on the machine changes the absolute figures.
  */
-async function sideBySide(url: string, cookie: string, queuePath: string) {
+async function sideBySide(url: string, cookie: string, queuePath: string, pids: { app: number; mariadb: number }) {
   const round = DURATION_S / SIDE_BY_SIDE_ROUNDS;
-  const me = { ok: 0, failed: 0, latencies: [] as number[], perRound: [] as number[] };
-  const queue = { ok: 0, failed: 0, latencies: [] as number[], perRound: [] as number[] };
+  const newSide = () => ({ ok: 0, failed: 0, latencies: [] as number[], perRound: [] as number[], appCpuMs: 0, dbCpuMs: 0 });
+  const me = newSide();
+  const queue = newSide();
   for (let i = 0; i < SIDE_BY_SIDE_ROUNDS; i++) {
     for (const [side, path] of [
       [me, "/api/auth/me"],
       [queue, queuePath],
     ] as const) {
+      const before = { app: cpuMs(pids.app), db: cpuMs(pids.mariadb) };
       const r = await loadPath(url, cookie, path, round);
+      side.appCpuMs += cpuMs(pids.app) - before.app;
+      side.dbCpuMs += cpuMs(pids.mariadb) - before.db;
       side.ok += r.ok;
       side.failed += r.failed;
       side.latencies.push(...r.latencies);
@@ -1194,6 +1204,19 @@ async function sideBySide(url: string, cookie: string, queuePath: string) {
   }
   return { me, queue, seconds: DURATION_S, ratio: queue.ok / me.ok };
 }
+
+/** CPU time a process has used so far (user + system, from /proc), in ms; NaN when it cannot be read. */
+function cpuMs(pid: number): number {
+  try {
+    // Fields after the command name (which may hold spaces): utime and stime are the 12th and 13th.
+    const fields = readFileSync(`/proc/${pid}/stat`, "utf8").split(") ")[1]!.split(" ");
+    return ((Number(fields[11]) + Number(fields[12])) * 1000) / CLOCK_TICKS;
+  } catch {
+    return Number.NaN;
+  }
+}
+/** Clock ticks per second of /proc's CPU times (USER_HZ, 100 on Linux). */
+const CLOCK_TICKS = 100;
 
 async function explain(pool: mysql.Pool, q: CapturedQuery): Promise<string[]> {
   const [rows] = await pool.query(`EXPLAIN ${q.sql}`, q.params);
@@ -1335,6 +1358,13 @@ async function main(): Promise<void> {
       await pool?.end().catch(() => undefined);
       if (app) await stopChild(app.child, 10_000).catch(() => undefined);
       if (ds?.isInitialized) await ds.destroy().catch(() => undefined);
+      if (KEEP) {
+        console.log(
+          `--keep: MariaDB left running with the data, for EXPLAIN by hand: mariadb --no-defaults --socket=${path.join(instance.dir, "mariadbd.sock")} -uroot ${db.name}` +
+            `\n  stop and remove it with: mariadb-admin --no-defaults --socket=${path.join(instance.dir, "mariadbd.sock")} -uroot shutdown && rm -rf ${dir}`,
+        );
+        return;
+      }
       await stopMariaDb(instance.dir).catch(() => undefined);
       rmSync(dir, { recursive: true, force: true });
     })());
@@ -1407,7 +1437,7 @@ async function main(): Promise<void> {
         `${fmt(r.requests.total)} requests, ${fmt(r.requests.average)} requests/s, ${r.errors} errors, ${r.timeouts} timeouts, ${r.non2xx} non-2xx`,
     );
     console.log(
-      `Raw SQL: the SELECT and COUNT QueueService issues (captured from TypeORM), run together, ${CONNECTIONS} loops over a mysql2 pool of 10 (the app's poolSize), ${DURATION_S} s after a ${WARM_UP_S} s warm-up`,
+      `Raw SQL: the queries QueueService issues (captured from TypeORM), run as it runs them, ${CONNECTIONS} loops over a mysql2 pool of 10 (the app's poolSize), ${DURATION_S} s after a ${WARM_UP_S} s warm-up`,
     );
     console.log(
       `  ${"".padEnd(14)} ${"API p50".padStart(8)} ${"p95".padStart(7)} ${"p99".padStart(7)} ${"req/s".padStart(7)}   ${"raw p50".padStart(8)} ${"p95".padStart(7)} ${"p99".padStart(7)} ${"q/s".padStart(7)}   target: API p95 < 50 ms and ≤ 2 × raw p95 + 5 ms`,
@@ -1446,13 +1476,17 @@ async function main(): Promise<void> {
     });
 
     const sideLoad = machine();
-    const side = await sideBySide(app.url, cookie, `/api/cases?${SCENARIOS[0]!.query}`);
+    const side = await sideBySide(app.url, cookie, `/api/cases?${SCENARIOS[0]!.query}`, {
+      app: app.child.pid!,
+      mariadb: Number(readFileSync(path.join(instance.dir, "mariadbd.pid"), "utf8").trim()),
+    });
     const ratioPass = side.ratio >= THROUGHPUT_RATIO_TARGET && side.me.failed === 0 && side.queue.failed === 0;
     if (!ratioPass) failed = true;
     const sideRow = (name: string, x: typeof side.me) => {
       const l = summarise(x.latencies, side.seconds);
       console.log(
-        `  ${name.padEnd(32)} ${fmt(x.ok / side.seconds).padStart(6)} requests/s (rounds: ${x.perRound.map(fmt).join(", ")}), p50 ${ms1(l.p50)} ms, p95 ${ms1(l.p95)} ms, ${x.failed} failed`,
+        `  ${name.padEnd(32)} ${fmt(x.ok / side.seconds).padStart(6)} requests/s (rounds: ${x.perRound.map(fmt).join(", ")}), p50 ${ms1(l.p50)} ms, p95 ${ms1(l.p95)} ms, ${x.failed} failed; ` +
+          `CPU per request: app ${(x.appCpuMs / x.ok).toFixed(2)} ms, MariaDB ${(x.dbCpuMs / x.ok).toFixed(2)} ms`,
       );
     };
     console.log(
@@ -1474,7 +1508,9 @@ async function main(): Promise<void> {
       console.log(`  ${s.name} — list:`);
       for (const l of await explain(pool, queries[i]!.list)) console.log(`    ${l}`);
       console.log(`  ${s.name} — count:`);
-      for (const l of await explain(pool, queries[i]!.count)) console.log(`    ${l}`);
+      const count = queries[i]!.count;
+      if (count) for (const l of await explain(pool, count)) console.log(`    ${l}`);
+      else console.log("    (in the list's query: the stored counts)");
     }
 
     const render = await renderTimes(app.url, cookie);

@@ -37,6 +37,8 @@ import { IdempotencyKeys1796462000000 } from "./migrations/1796462000000-Idempot
 import { JobLeasesAndRateLimits1796462100000 } from "./migrations/1796462100000-JobLeasesAndRateLimits.js";
 import { SensorReadingsByMonth1796462200000 } from "./migrations/1796462200000-SensorReadingsByMonth.js";
 import { CaseStatusCounts1796462300000 } from "./migrations/1796462300000-CaseStatusCounts.js";
+import { QueueCoveringIndexes1796462400000 } from "./migrations/1796462400000-QueueCoveringIndexes.js";
+import { PropertySearchGrams1796462500000 } from "./migrations/1796462500000-PropertySearchGrams.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -76,4 +78,6 @@ export const migrations = [
   JobLeasesAndRateLimits1796462100000,
   SensorReadingsByMonth1796462200000,
   CaseStatusCounts1796462300000,
+  QueueCoveringIndexes1796462400000,
+  PropertySearchGrams1796462500000,
 ];

@@ -8,9 +8,22 @@ import { DEFAULT_TIME_ZONE, ZoneConverter } from "./domain/time-zone.js";
 /** The zone every date and time is shown in. */
 export const LONDON = DEFAULT_TIME_ZONE;
 
-const london = (options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat("en-GB", { timeZone: LONDON, ...options });
+type Format = Pick<Intl.DateTimeFormat, "format" | "formatToParts">;
+
+/**
+ * A formatter made when it is first used, not when this module loads: each one costs the browser
+ * milliseconds to make (its zone's rules), a page uses a few of the twenty here, and making them all
+ * up front held up the queue's first rows by some 150 ms on a cold load (bench:queue).
+ */
+function lazyFormat(locale: string, options: Intl.DateTimeFormatOptions): Format {
+  let made: Intl.DateTimeFormat | undefined;
+  const get = () => (made ??= new Intl.DateTimeFormat(locale, options));
+  return { format: (d) => get().format(d), formatToParts: (d) => get().formatToParts(d) };
+}
+
+const london = (options: Intl.DateTimeFormatOptions) => lazyFormat("en-GB", { timeZone: LONDON, ...options });
 /** For calendar dates: read at UTC midnight and written in UTC, so the day never moves. */
-const calendar = (options: Intl.DateTimeFormatOptions) => new Intl.DateTimeFormat("en-GB", { timeZone: "UTC", ...options });
+const calendar = (options: Intl.DateTimeFormatOptions) => lazyFormat("en-GB", { timeZone: "UTC", ...options });
 
 const ISO_DATE = /^\d{4}-\d{2}-\d{2}$/;
 
@@ -29,7 +42,7 @@ const instant = (iso: string | null | undefined): Date | null => {
 const calendarDay = (date: string): Date => new Date(`${date.slice(0, 10)}T00:00:00Z`);
 
 /** Formats an instant, or gives back what it was given when it is not one (so nothing vanishes). */
-const showInstant = (format: Intl.DateTimeFormat) => (iso: string | null | undefined) => {
+const showInstant = (format: Format) => (iso: string | null | undefined) => {
   const d = instant(iso);
   return d ? format.format(d) : (iso ?? "");
 };
@@ -134,7 +147,7 @@ export function formatLongDay(iso: string | null | undefined): string {
   return d ? longWeekdayDate.format(d).replace(",", "") : (iso ?? "");
 }
 
-const isoDay = new Intl.DateTimeFormat("en-CA", { timeZone: LONDON, year: "numeric", month: "2-digit", day: "2-digit" });
+const isoDay = lazyFormat("en-CA", { timeZone: LONDON, year: "numeric", month: "2-digit", day: "2-digit" });
 
 /** The London calendar date of an instant, YYYY-MM-DD. */
 export const londonDateOf = (at: Date): string => isoDay.format(at);
@@ -160,7 +173,7 @@ export const formatCalendarShort = (date: string): string => (isIsoDate(date) ? 
 // ---- datetime-local inputs, read and written as London time ----
 
 const pad = (n: number) => String(n).padStart(2, "0");
-const parts = new Intl.DateTimeFormat("en-US", {
+const parts = lazyFormat("en-US", {
   timeZone: LONDON,
   hourCycle: "h23",
   year: "numeric",

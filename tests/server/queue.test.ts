@@ -188,6 +188,20 @@ describe("the stored triage figures", () => {
     expect(after.priority).toBeGreaterThan(before.priority);
   });
 
+  it("are worked out before a view that shows no rows until they are", async () => {
+    const known = (await all()).items.find((i) => i.riskState !== null)!;
+    // Stored as if no case had a risk state yet, and due: the view is empty until the figures are worked out again.
+    await t.ctx.dataSource
+      .getRepository(Case)
+      .createQueryBuilder()
+      .update()
+      .set({ riskState: null, triageDueAt: msAgo(1000) })
+      .where("id IN (:...ids)", { ids: Object.values(ids) })
+      .execute();
+    const { items } = (await officer.get(`/api/cases?risk=${known.riskState}&pageSize=50`).expect(200)).body as { items: Item[] };
+    expect(items.map((i) => i.id)).toContain(known.id);
+  });
+
   it("are worked out again when the clock crosses a deadline step", async () => {
     // Pretend the figures were last worked out long ago and are due now: the queue refreshes before it answers.
     await t.ctx.dataSource.getRepository(Case).update(ids.B, { priority: 0, triageDueAt: msAgo(1000) });
@@ -321,6 +335,15 @@ describe("sorting", () => {
       const [a, b] = [items[k - 1]!, items[k]!];
       expect(a.priority).toBeGreaterThanOrEqual(b.priority);
     }
+  });
+
+  it("gives the total on a page past the last, for the stored counts and for a counted filter", async () => {
+    expect((await officer.get("/api/cases?pageSize=2&page=9").expect(200)).body).toMatchObject({ items: [], total: 4 });
+    const all = (await officer.get("/api/cases?vulnerable=true&pageSize=50").expect(200)).body.total;
+    expect((await officer.get("/api/cases?vulnerable=true&pageSize=2&page=9").expect(200)).body).toMatchObject({
+      items: [],
+      total: all,
+    });
   });
 
   it("pages without overlap", async () => {

@@ -10,6 +10,7 @@ import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-expo
 import type { Actor } from "../auth/actor.js";
 import type { QueueQuery, QueueSort } from "./case-queue.schemas.js";
 import { Case } from "./case.entity.js";
+import { figuresDue } from "./case.service.js";
 
 /** Works out the stored figures a change or the clock marked stale (the triage module provides it). */
 export interface StaleFiguresRefresher {
@@ -110,6 +111,38 @@ function searchPatterns(q: string): { like: string; compact: string } {
   return { like: `%${escapeLike(q)}%`, compact: `%${escapeLike(q.replace(/\s+/g, ""))}%` };
 }
 
+/** At most this many of a search's pieces are looked up: the homes holding them all are few enough to test. */
+const MAX_GRAMS = 4;
+
+/**
+ * A search text's three-character pieces, for property_search_grams: none when the text is shorter
+ * than three characters. Long text gives MAX_GRAMS of them, spread from its start to its end.
+ */
+function gramsOf(text: string): string[] {
+  const chars = [...text];
+  const all = [...new Set(chars.slice(0, Math.max(0, chars.length - 2)).map((_, i) => chars.slice(i, i + 3).join("")))];
+  if (all.length <= MAX_GRAMS) return all;
+  return Array.from({ length: MAX_GRAMS }, (_, k) => all[Math.round((k * (all.length - 1)) / (MAX_GRAMS - 1))]!);
+}
+
+/**
+ * The ids of a landlord's homes holding every one of `grams`: one lookup of a piece, joined to the
+ * others by the table's key (MariaDB starts from the piece fewest homes hold).
+ */
+function holdingAll(grams: string[]): { sql: string; params: (organisationId: number) => unknown[] } {
+  const joins = grams
+    .slice(1)
+    .map(
+      (_, k) =>
+        ` JOIN property_search_grams g${k + 1} ON g${k + 1}.organisation_id = g0.organisation_id AND g${k + 1}.gram = ? AND g${k + 1}.property_id = g0.property_id`,
+    )
+    .join("");
+  return {
+    sql: `SELECT g0.property_id FROM property_search_grams g0${joins} WHERE g0.organisation_id = ? AND g0.gram = ?`,
+    params: (organisationId) => [...grams.slice(1), organisationId, grams[0]],
+  };
+}
+
 /** Whether the query filters by status alone (or not at all), so its total is a sum of stored counts. */
 function onlyStatusFilter(query: QueueQuery): boolean {
   const { risk, category, band, estate, vulnerable, overdue, dueWithin, assignee, q } = query;
@@ -129,6 +162,26 @@ function sortTerms(query: Pick<QueueQuery, "sort" | "order">): KeyTerm[] {
   const { expr, nullable } = SORTS[query.sort];
   const desc = query.order === "desc";
   return [...(nullable ? [{ expr: `(${expr}) IS NULL` }] : []), { expr, desc, nullable }, { expr: "c.id" }];
+}
+
+/** The queue's ORDER BY as SQL (fixed expressions only). */
+const orderBy = (query: Pick<QueueQuery, "sort" | "order">) =>
+  sortTerms(query)
+    .map((t) => `${t.expr} ${t.desc ? "DESC" : "ASC"}`)
+    .join(", ");
+
+/** Each row's rooms, by name as roomsOf gives them, as a JSON array (`c` the case). */
+const ROOMS_JSON =
+  "(SELECT JSON_ARRAYAGG(JSON_OBJECT('id', r.id, 'name', r.name) ORDER BY r.name) FROM case_rooms cr JOIN rooms r ON r.id = cr.room_id WHERE cr.case_id = c.id)";
+
+/** How many of the landlord's cases have one of `statuses` (every status when left out), from the counts kept by triggers. */
+function storedCountSql(organisationId: number, statuses: readonly string[] | undefined): { sql: string; params: unknown[] } {
+  return statuses?.length
+    ? {
+        sql: "SELECT COALESCE(SUM(n), 0) AS n FROM case_status_counts WHERE organisation_id = ? AND status IN (?)",
+        params: [organisationId, statuses],
+      }
+    : { sql: "SELECT COALESCE(SUM(n), 0) AS n FROM case_status_counts WHERE organisation_id = ?", params: [organisationId] };
 }
 
 /** The officers' queue: one landlord's cases filtered, sorted and paged on the stored triage figures. */
@@ -162,16 +215,6 @@ export class QueueService {
       .where("c.organisation_id = :org", { org: actor.organisationId });
     const needsProperty = this.applyFilters(base, actor, query, now, homes);
 
-    // The queue's usual views (the open cases, one status, every case) take their total from the
-    // counts MariaDB keeps per landlord and status (migration CaseStatusCounts): a COUNT(*) of the open
-    // cases read ~12 000 index entries on every page view, of every case ~100 000 (bench:queue).
-    const counter = base.clone().select("COUNT(*)", "n");
-    if (needsProperty) counter.innerJoin("c.property", "p");
-    const count = () =>
-      onlyStatusFilter(query)
-        ? this.storedCount(org, query.status)
-        : counter.getRawOne<{ n: string | number }>().then((r) => Number(r?.n ?? 0));
-
     // The page's ids first, from the cases alone where the filters and the sort allow, then the
     // rows for those ids (a deferred join). For the default order MariaDB walks idx_cases_queue
     // and steps over a deep page's offset inside the index, instead of joining every case to its
@@ -181,36 +224,59 @@ export class QueueService {
     if (query.sort === "assignee") page.leftJoin("users", "u", "u.id = c.assignee_user_id");
     this.applySort(page, query);
     page.offset((query.page - 1) * query.pageSize).limit(query.pageSize);
+    const [pageSql, pageParams] = page.getQueryAndParameters();
 
-    const list = this.dataSource
-      .createQueryBuilder()
-      .from(`(${page.getQuery()})`, "page")
-      .innerJoin(Case, "c", "c.id = page.id")
-      .innerJoin("c.property", "p")
-      .leftJoin("users", "u", "u.id = c.assignee_user_id")
-      .select(ROW_COLUMNS)
-      // Each row's rooms in the same query, by name as roomsOf gives them.
-      .addSelect(
-        "(SELECT JSON_ARRAYAGG(JSON_OBJECT('id', r.id, 'name', r.name) ORDER BY r.name) FROM case_rooms cr JOIN rooms r ON r.id = cr.room_id WHERE cr.case_id = c.id)",
-        "roomsJson",
-      )
-      .setParameters(page.getParameters());
-    this.applySort(list, query);
+    // The same query brings, with each row, the things the page needs once (MariaDB works out a
+    // subquery that does not depend on the row once): whether any of the landlord's cases has figures
+    // due to be worked out again, and, for the queue's usual views (the open cases, one status, every
+    // case), the total from the counts MariaDB keeps per landlord and status (migration
+    // CaseStatusCounts); other views count their cases beside the page. One statement instead of three
+    // per page view (bench:queue). An empty page asks for them on their own.
+    const storedTotal = onlyStatusFilter(query);
+    const once: string[] = [];
+    const onceParams: unknown[] = [];
+    if (!refreshing) {
+      once.push(`EXISTS (SELECT 1 FROM cases s WHERE s.organisation_id = ? AND ${figuresDue("s", "?")}) AS anyStale`);
+      onceParams.push(org, now);
+    }
+    if (storedTotal) {
+      const { sql, params } = storedCountSql(org, query.status);
+      once.push(`(${sql}) AS total`);
+      onceParams.push(...params);
+    }
+    const listSql =
+      `SELECT ${ROW_COLUMNS.join(", ")}, ${ROOMS_JSON} AS roomsJson${once.map((o) => `, ${o}`).join("")} ` +
+      `FROM (${pageSql}) page INNER JOIN cases c ON c.id = page.id INNER JOIN properties p ON p.id = c.property_id ` +
+      `LEFT JOIN users u ON u.id = c.assignee_user_id ORDER BY ${orderBy(query)}`;
+    const counter = base.clone().select("COUNT(*)", "n");
+    if (needsProperty) counter.innerJoin("c.property", "p");
 
-    const stale = refreshing ? Promise.resolve(false) : this.figures.hasStale(org);
-    stale.catch(() => undefined); // awaited below; a failed read must not leave it unhandled
-    const read = () => Promise.all([list.getRawMany<QueueRow & { roomsJson: unknown }>(), count()]);
-    let [rows, total] = await read();
-    if (!refreshing && (await stale)) {
+    type ListRow = QueueRow & { roomsJson: unknown; anyStale?: number | string; total?: number | string };
+    const read = async (askStale: boolean) => {
+      const [rows, counted] = await Promise.all([
+        this.dataSource.query(listSql, [...onceParams, ...pageParams]) as Promise<ListRow[]>,
+        storedTotal ? null : counter.getRawOne<{ n: string | number }>().then((r) => Number(r?.n ?? 0)),
+      ]);
+      const first = rows[0];
+      const [stale, total] = first
+        ? [Number(first.anyStale ?? 0) === 1, counted ?? Number(first.total ?? 0)]
+        : await Promise.all([askStale ? this.figures.hasStale(org) : false, counted ?? this.storedCount(org, query.status)]);
+      return { rows, total, stale };
+    };
+    const first = await read(!refreshing);
+    let { rows, total } = first;
+    if (!refreshing && first.stale) {
       await this.refreshStale(org);
-      [rows, total] = await read();
+      ({ rows, total } = await read(false));
     }
     const rooms = new Map<number, { id: number; name: string }[]>();
     for (const r of rows) {
       // mysql2 hands a JSON result over parsed; text is parsed here.
       const value = typeof r.roomsJson === "string" ? (JSON.parse(r.roomsJson) as unknown) : r.roomsJson;
       rooms.set(r.id, (value ?? []) as { id: number; name: string }[]);
-      delete (r as { roomsJson?: unknown }).roomsJson;
+      delete r.roomsJson;
+      delete r.anyStale;
+      delete r.total;
     }
     return { rows, rooms, total };
   }
@@ -297,28 +363,45 @@ export class QueueService {
 
   /** How many of the landlord's cases have one of `statuses` (every status when left out), from the stored counts. */
   private async storedCount(organisationId: number, statuses: readonly string[] | undefined): Promise<number> {
-    const [row] = (await this.dataSource.query(
-      statuses?.length
-        ? "SELECT COALESCE(SUM(n), 0) AS n FROM case_status_counts WHERE organisation_id = ? AND status IN (?)"
-        : "SELECT COALESCE(SUM(n), 0) AS n FROM case_status_counts WHERE organisation_id = ?",
-      statuses?.length ? [organisationId, statuses] : [organisationId],
-    )) as { n: string | number }[];
+    const { sql, params } = storedCountSql(organisationId, statuses);
+    const [row] = (await this.dataSource.query(sql, params)) as { n: string | number }[];
     return Number(row?.n ?? 0);
   }
 
   /**
    * The landlord's homes whose address, town or postcode hold the search text, found once per request
    * so the page and its total both filter cases by home id: each used to test every home's three
-   * columns with a collation-aware LIKE of its own (bench:queue, 20 000 homes). Null when there is no
-   * search, or when so many homes match that a list of ids would cost more than the join.
+   * columns with a collation-aware LIKE of its own (bench:queue, 20 000 homes). Text of three
+   * characters or more first narrows the homes to those holding some of its three-character pieces
+   * (property_search_grams, kept by triggers: migration PropertySearchGrams), then tests only those
+   * with the same LIKE; shorter text tests every home. Null when there is no search, or when so many
+   * homes match that a list of ids would cost more than the join.
    */
   private async homesMatching(organisationId: number, q: string | undefined): Promise<number[] | null> {
     if (!q) return null;
     const { like, compact } = searchPatterns(q);
-    const rows = (await this.dataSource.query(
-      "SELECT p.id AS id FROM properties p WHERE p.organisation_id = ? AND (p.address_line1 LIKE ? OR p.town LIKE ? OR REPLACE(p.postcode, ' ', '') LIKE ?) LIMIT ?",
-      [organisationId, like, like, compact, MAX_SEARCH_HOMES + 1],
-    )) as { id: number | string }[];
+    const test = "(p.address_line1 LIKE ? OR p.town LIKE ? OR REPLACE(p.postcode, ' ', '') LIKE ?)";
+    const testParams = [like, like, compact];
+    // A home matching the text as typed holds its pieces; one matching on the postcode, the pieces of
+    // the text without spaces (the same pieces when it has none).
+    const typed = gramsOf(q);
+    const spaceless = q.replace(/\s+/g, "") === q ? typed : gramsOf(q.replace(/\s+/g, ""));
+    let rows: { id: number | string }[];
+    if (typed.length && spaceless.length) {
+      const candidates = (spaceless === typed ? [typed] : [typed, spaceless]).map((g) => holdingAll(g));
+      // The candidates as a derived table joined to the homes: MariaDB works them out once (an IN over
+      // a UNION would be asked again for every home).
+      rows = (await this.dataSource.query(
+        `SELECT DISTINCT p.id AS id FROM (${candidates.map((c) => c.sql).join(" UNION ")}) c INNER JOIN properties p ON p.id = c.property_id WHERE p.organisation_id = ? AND ${test} LIMIT ?`,
+        [...candidates.flatMap((c) => c.params(organisationId)), organisationId, ...testParams, MAX_SEARCH_HOMES + 1],
+      )) as { id: number | string }[];
+    } else {
+      rows = (await this.dataSource.query(`SELECT p.id AS id FROM properties p WHERE p.organisation_id = ? AND ${test} LIMIT ?`, [
+        organisationId,
+        ...testParams,
+        MAX_SEARCH_HOMES + 1,
+      ])) as { id: number | string }[];
+    }
     return rows.length > MAX_SEARCH_HOMES ? null : rows.map((r) => Number(r.id));
   }
 

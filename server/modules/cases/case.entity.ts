@@ -37,7 +37,8 @@ export interface Equipment {
 @Index("idx_cases_property", ["propertyId", "createdAt"])
 @Index("idx_cases_tenant", ["tenantUserId", "createdAt"])
 @Index("idx_cases_org_assignee", ["organisationId", "assigneeUserId"])
-@Index("idx_cases_org_due", ["organisationId", "nextDueAt"])
+// Deadlines by date; the queue's "overdue" and "due within" views read this index alone (its filters and sort).
+@Index("idx_cases_org_due", ["organisationId", "nextDueAt", "status", "vulnerableHousehold", "priority"])
 // The queue's counts of open cases by vulnerability and deadline read this index alone.
 @Index("idx_cases_org_status_vulnerable_due", ["organisationId", "status", "vulnerableHousehold", "nextDueAt"])
 @Index("idx_cases_triage_due", ["triageDueAt"])

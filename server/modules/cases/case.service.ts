@@ -109,6 +109,13 @@ export type TriageFigures = Pick<
 >;
 
 /**
+ * Whether the case `alias`'s stored triage figures are due to be worked out again (a change or the
+ * clock set `triage_due_at`), as SQL, with `now` the placeholder for the time: for staleIds here, and
+ * for the queue's page query, which asks it beside the page (QueueService.list).
+ */
+export const figuresDue = (alias: string, now: string) => `${alias}.triage_due_at <= ${now}`;
+
+/**
  * Case lifecycle start, access and history. The cases table's one owner: its rows, its status and
  * its stored figures change only here, each change with its CaseEvent in one transaction.
  */
@@ -401,7 +408,7 @@ export class CaseService implements CaseEmailTimeline {
       .getRepository(Case)
       .createQueryBuilder("c")
       .select("c.id", "id")
-      .where("c.triage_due_at <= :now", { now: this.clock.now() });
+      .where(figuresDue("c", ":now"), { now: this.clock.now() });
     if (organisationId !== undefined) qb.andWhere("c.organisation_id = :org", { org: organisationId });
     const rows: { id: number }[] = await qb.orderBy("c.triage_due_at", "ASC").limit(limit).getRawMany();
     return rows.map((r) => r.id);

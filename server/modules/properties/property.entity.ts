@@ -49,6 +49,8 @@ const nullableDecimal = {
 @Entity({ name: "properties" })
 @Index("idx_properties_org_estate", ["organisationId", "estate"])
 @Index("idx_properties_org_postcode", ["organisationId", "postcode"])
+// The queue's text search tests these columns of every home: from this index alone, not the rows.
+@Index("idx_properties_org_address", ["organisationId", "addressLine1", "town", "postcode"])
 @Index("idx_properties_org_sort", ["organisationId", "estate", "sortKey"])
 @Index("uq_properties_org_uprn", ["organisationId", "uprn"], { unique: true })
 export class Property {
