@@ -248,14 +248,14 @@ export class QueueService {
       `SELECT ${ROW_COLUMNS.join(", ")}, ${ROOMS_JSON} AS roomsJson${once.map((o) => `, ${o}`).join("")} ` +
       `FROM (${pageSql}) page INNER JOIN cases c ON c.id = page.id INNER JOIN properties p ON p.id = c.property_id ` +
       `LEFT JOIN users u ON u.id = c.assignee_user_id ORDER BY ${orderBy(query)}`;
-    const counter = base.clone().select("COUNT(*)", "n");
-    if (needsProperty) counter.innerJoin("c.property", "p");
+    const counter = storedTotal ? null : base.clone().select("COUNT(*)", "n");
+    if (needsProperty) counter?.innerJoin("c.property", "p");
 
     type ListRow = QueueRow & { roomsJson: unknown; anyStale?: number | string; total?: number | string };
     const read = async (askStale: boolean) => {
       const [rows, counted] = await Promise.all([
         this.dataSource.query(listSql, [...onceParams, ...pageParams]) as Promise<ListRow[]>,
-        storedTotal ? null : counter.getRawOne<{ n: string | number }>().then((r) => Number(r?.n ?? 0)),
+        counter?.getRawOne<{ n: string | number }>().then((r) => Number(r?.n ?? 0)) ?? null,
       ]);
       const first = rows[0];
       const [stale, total] = first
