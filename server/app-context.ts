@@ -53,9 +53,11 @@ import { SensorService } from "./modules/sensors/sensor.service.js";
 import { SensorIngestService } from "./modules/sensors/sensor-ingest.service.js";
 import { ReadingPartitionService } from "./modules/sensors/reading-partitions.service.js";
 import { SensorWatchService } from "./modules/sensor-watch/sensor-watch.service.js";
+import { HomeAdviceService } from "./modules/home-advice/home-advice.service.js";
 
 export interface Services {
   policy: PolicyService;
+  homeAdvice: HomeAdviceService;
   inspections: InspectionService;
   assessments: AssessmentService;
   auth: AuthService;
@@ -195,6 +197,7 @@ export function createServices(
   const works = new WorkOrderService(dataSource, config, cases, policy, inspections, users, tenancies, clock);
   const verification = new VerificationService(dataSource, config, cases, readings, works, policy, logger, users, clock);
   const homes = new HomeRecordService(properties, tenancies, cases, readings, users);
+  const homeAdvice = new HomeAdviceService(cases, policy);
   const outlook = new OutlookService(properties, tenancies, readings, weather, clock, logger);
   const apiKeys = new ApiKeyService(dataSource, users, clock, adminActions, logger);
   const invitationBatches = new InvitationBatchService(dataSource, auth, users, clock, config.invitationBatches);
@@ -236,6 +239,7 @@ export function createServices(
   outlook.useSensorConditions(sensors);
   sensorIngest.addListener(sensorWatch);
   return {
+    homeAdvice,
     jobLeases,
     mqttBroker,
     assessments,

@@ -19,6 +19,7 @@ import { touchSessionsAtMostEveryMinute } from "./modules/auth/session.js";
 import { createAssessmentsRouter } from "./modules/assessments/assessments.routes.js";
 import { createInspectionsRouter } from "./modules/inspections/inspections.routes.js";
 import { createPolicyRouter } from "./modules/policy/policy.routes.js";
+import { createHomeAdviceRouter } from "./modules/home-advice/home-advice.routes.js";
 import { createSensorHealthRouter } from "./modules/sensors/sensor-health.routes.js";
 import { createSensorWatchRouter } from "./modules/sensor-watch/sensor-watch.routes.js";
 import { createEstateLocationsRouter } from "./modules/weather/weather.routes.js";
@@ -211,6 +212,7 @@ export function createApp(
     }),
   );
   api.use("/cases", createEvaluationRouter({ evaluation: services.evaluation }));
+  api.use("/cases", createHomeAdviceRouter({ advice: services.homeAdvice }));
   api.use("/cases", createAssessmentsRouter({ assessments: services.assessments }));
   api.use(
     "/cases",

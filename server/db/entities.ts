@@ -45,6 +45,7 @@ import { SensorHealthRecord } from "../modules/sensors/sensor-health.entity.js";
 import { SensorAlert } from "../modules/sensor-watch/sensor-alert.entity.js";
 import { SensorRoomFigures } from "../modules/sensor-watch/sensor-room-figures.entity.js";
 import { SensorAlertPolicyRecord } from "../modules/policy/sensor-alert-policy.entity.js";
+import { HeatingSupportPolicyRecord } from "../modules/policy/heating-support-policy.entity.js";
 import { EstateLocation } from "../modules/weather/estate-location.entity.js";
 import { WeatherHour } from "../modules/weather/weather-hour.entity.js";
 import { IdempotencyKey } from "../modules/idempotency/idempotency-key.entity.js";
@@ -93,6 +94,7 @@ export const entities = [
   SensorRoomFigures,
   SensorAlert,
   SensorAlertPolicyRecord,
+  HeatingSupportPolicyRecord,
   WebhookEndpoint,
   WebhookEvent,
   WebhookDelivery,

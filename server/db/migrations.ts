@@ -39,6 +39,7 @@ import { SensorReadingsByMonth1796462200000 } from "./migrations/1796462200000-S
 import { CaseStatusCounts1796462300000 } from "./migrations/1796462300000-CaseStatusCounts.js";
 import { QueueCoveringIndexes1796462400000 } from "./migrations/1796462400000-QueueCoveringIndexes.js";
 import { PropertySearchGrams1796462500000 } from "./migrations/1796462500000-PropertySearchGrams.js";
+import { HeatingSupportPolicy1796462600000 } from "./migrations/1796462600000-HeatingSupportPolicy.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -80,4 +81,5 @@ export const migrations = [
   CaseStatusCounts1796462300000,
   QueueCoveringIndexes1796462400000,
   PropertySearchGrams1796462500000,
+  HeatingSupportPolicy1796462600000,
 ];

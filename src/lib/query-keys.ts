@@ -57,6 +57,8 @@ export const policyKeys = {
   complaints: () => [...policyKeys.all, "complaints"] as const,
   /** The sensor alert rules (GET /api/policy/sensor-alerts). */
   sensorAlerts: () => [...policyKeys.all, "sensor-alerts"] as const,
+  /** The help offered to tenants who find heating hard to afford (GET /api/policy/heating-support). */
+  heatingSupport: () => [...policyKeys.all, "heating-support"] as const,
 };
 
 /** Homes at risk from their sensors (GET /api/sensor-alerts). */

@@ -45,6 +45,7 @@ function setup(start: DeadlinePolicy | null = null, role: keyof typeof users = "
     "GET /api/policy": () => view(),
     "GET /api/policy/complaints": { body: COMPLAINT_POLICY },
     "GET /api/policy/sensor-alerts": { body: { ...DEFAULT_SENSOR_ALERT_SETTINGS, source: "default" } },
+    "GET /api/policy/heating-support": { body: { supportText: null, supportPhone: null, supportLink: null, source: "default" } },
     "PUT /api/policy": (call) => {
       try {
         own = parse(deadlinePolicySchema, call.body);

@@ -18,6 +18,7 @@ import type {
   Channel,
   Duration,
   EquipmentAnswer,
+  HeatingCostAnswer,
   Location,
   Observation,
   Vulnerability,
@@ -29,6 +30,7 @@ export interface Equipment {
   heatingUsable?: EquipmentAnswer;
   extractorFanWorks?: EquipmentAnswer;
   trickleVentsOpen?: EquipmentAnswer;
+  heatingCost?: HeatingCostAnswer;
 }
 
 /** One report of damp, condensation or mould at a home, from the first moment to closure. */

@@ -1,5 +1,6 @@
 import { Router } from "express";
-import { policyResponse, sensorAlertPolicyResponse } from "../../../src/lib/contracts/policy.js";
+import { heatingSupportPolicyResponse, policyResponse, sensorAlertPolicyResponse } from "../../../src/lib/contracts/policy.js";
+import { heatingSupportSchema } from "../../../src/lib/schemas/policy.js";
 import { shaped } from "../../lib/contract.js";
 import { parse } from "../../lib/validation.js";
 import { actorOf, requireRole, requireStaff } from "../../middleware/auth.js";
@@ -47,6 +48,17 @@ export function createPolicyRouter({ policy }: { policy: PolicyService }): Route
   });
   router.delete("/sensor-alerts", requireRole("admin"), async (req, res) => {
     res.json(shaped(sensorAlertPolicyResponse, await policy.resetSensorAlertPolicy(actorOf(req))));
+  });
+  // Heating support: the landlord's own help for tenants who say heating is hard to afford.
+  router.get("/heating-support", requireRole("officer", "admin"), async (req, res) => {
+    res.json(shaped(heatingSupportPolicyResponse, await policy.heatingSupportFor(actorOf(req).organisationId)));
+  });
+  router.put("/heating-support", requireRole("admin"), async (req, res) => {
+    const input = parse(heatingSupportSchema, req.body);
+    res.json(shaped(heatingSupportPolicyResponse, await policy.updateHeatingSupport(actorOf(req), input)));
+  });
+  router.delete("/heating-support", requireRole("admin"), async (req, res) => {
+    res.json(shaped(heatingSupportPolicyResponse, await policy.resetHeatingSupport(actorOf(req))));
   });
   return router;
 }

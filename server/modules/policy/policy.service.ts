@@ -7,6 +7,8 @@ import { DeadlinePolicyRecord } from "./deadline-policy.entity.js";
 import { ComplaintLetterTemplateRecord, ComplaintPolicyRecord } from "./complaint-policy.entity.js";
 import type { ComplaintPolicyInput, SensorAlertPolicyInput } from "./policy.schemas.js";
 import { SensorAlertPolicyRecord } from "./sensor-alert-policy.entity.js";
+import { HeatingSupportPolicyRecord } from "./heating-support-policy.entity.js";
+import type { HeatingSupportInput } from "../../../src/lib/schemas/policy.js";
 import { DEFAULT_SENSOR_ALERT_SETTINGS, type SensorAlertSettings } from "../../../src/lib/domain/sensor-alerts.js";
 import { COMPLAINT_HANDLING_DEFAULT_POLICY, type ComplaintPolicy } from "../../../src/lib/domain/complaint-clocks.js";
 import {
@@ -33,6 +35,14 @@ export interface ComplaintPolicyView extends ComplaintPolicy {
   escalationRoute: string;
   letters: Record<ComplaintLetterKind, ComplaintLetterTemplate & { source: "default" | "landlord" }>;
   /** "landlord" when the timeframes or escalation route are the landlord's own. */
+  source: "default" | "landlord";
+}
+
+/** The landlord's help for tenants who find heating hard to afford; all null when not set. */
+export interface HeatingSupportView {
+  supportText: string | null;
+  supportPhone: string | null;
+  supportLink: string | null;
   source: "default" | "landlord";
 }
 
@@ -185,5 +195,25 @@ export class PolicyService implements EmergencyPhoneSource {
   async resetSensorAlertPolicy(actor: Actor): Promise<SensorAlertPolicyView> {
     await this.dataSource.getRepository(SensorAlertPolicyRecord).delete({ organisationId: actor.organisationId });
     return this.sensorAlertPolicyFor(actor.organisationId);
+  }
+
+  /** The landlord's heating support route, or nothing set (the tenant then sees neutral general wording). */
+  async heatingSupportFor(organisationId: number): Promise<HeatingSupportView> {
+    const row = await this.dataSource.getRepository(HeatingSupportPolicyRecord).findOneBy({ organisationId });
+    if (!row) return { supportText: null, supportPhone: null, supportLink: null, source: "default" };
+    const { supportText, supportPhone, supportLink } = row;
+    return { supportText, supportPhone, supportLink, source: "landlord" };
+  }
+
+  async updateHeatingSupport(actor: Actor, input: HeatingSupportInput): Promise<HeatingSupportView> {
+    await this.dataSource
+      .getRepository(HeatingSupportPolicyRecord)
+      .save({ organisationId: actor.organisationId, ...input, updatedById: actor.id });
+    return this.heatingSupportFor(actor.organisationId);
+  }
+
+  async resetHeatingSupport(actor: Actor): Promise<HeatingSupportView> {
+    await this.dataSource.getRepository(HeatingSupportPolicyRecord).delete({ organisationId: actor.organisationId });
+    return this.heatingSupportFor(actor.organisationId);
   }
 }

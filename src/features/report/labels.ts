@@ -1,6 +1,14 @@
 // Plain words for every value a damp or mould report stores (src/lib/schemas/case-report.ts).
 // The stored values are for machines; these are what people read.
-import type { Area, Duration, EquipmentAnswer, Location, Observation, Vulnerability } from "@/lib/schemas/case-report";
+import type {
+  Area,
+  Duration,
+  EquipmentAnswer,
+  HeatingCostAnswer,
+  Location,
+  Observation,
+  Vulnerability,
+} from "@/lib/schemas/case-report";
 
 export interface Choice<V extends string> {
   value: V;
@@ -91,6 +99,17 @@ export const equipmentQuestions: Record<
       "not-sure": "I'm not sure",
       "none-fitted": "There aren't any",
     },
+  },
+};
+
+/** About the cost of heating: optional, never a judgement; "hard to afford" brings the landlord's support route. */
+export const heatingCostQuestion: { question: string; hint: string; answers: Record<HeatingCostAnswer, string> } = {
+  question: "Is it hard to pay for heating at the moment?",
+  hint: "Many people find heating costs hard. If you say yes, we will show you where your landlord can help. You don't have to answer.",
+  answers: {
+    manageable: "No, I can manage",
+    "hard-to-afford": "Yes, it is hard to afford",
+    "rather-not-say": "I'd rather not say",
   },
 };
 

@@ -5,6 +5,7 @@ import {
   CHANNELS,
   DURATIONS,
   EQUIPMENT_ANSWERS,
+  HEATING_COST_ANSWERS,
   LOCATIONS,
   OBSERVATIONS,
   VULNERABILITIES,
@@ -43,6 +44,7 @@ export const caseResponse = z.object({
       heatingUsable: equipmentAnswer.optional(),
       extractorFanWorks: equipmentAnswer.optional(),
       trickleVentsOpen: equipmentAnswer.optional(),
+      heatingCost: z.enum(HEATING_COST_ANSWERS).optional(),
     })
     .nullable(),
   /** The whole address, or only the id when the home was not loaded with the case. */

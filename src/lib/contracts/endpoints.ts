@@ -40,7 +40,8 @@ import {
 import { deadlinesResponse, inspectionListResponse, inspectionRecordedResponse, summarySentResponse } from "./inspections.js";
 import { photoListResponse, photoUploadResponse } from "./photos.js";
 import { sensorAttentionPageResponse, sensorHealthResponse, sensorHealthSummaryResponse } from "./sensor-health.js";
-import { policyResponse, sensorAlertPolicyResponse } from "./policy.js";
+import { heatingSupportPolicyResponse, policyResponse, sensorAlertPolicyResponse } from "./policy.js";
+import { homeAdviceResponse } from "./home-advice.js";
 import { alertsDismissedResponse, homesAtRiskResponse, proactiveCaseResponse } from "./sensor-watch.js";
 import {
   estatesResponse,
@@ -200,6 +201,13 @@ export const ENDPOINTS: readonly Endpoint[] = [
   e("GET", "/api/cases/:id", "signed-in", "A case", caseResponse),
   e("PATCH", "/api/cases/:id", OFFICERS, "Change a case's status, assignee or hazard class", caseResponse),
   e("GET", "/api/cases/:id/events", "signed-in", "A case's timeline", caseEventsResponse),
+  e(
+    "GET",
+    "/api/cases/:id/advice",
+    "signed-in",
+    "The few things most likely to help in the case's home, ranked",
+    homeAdviceResponse,
+  ),
   e(
     "POST",
     "/api/cases/:id/worse",
@@ -367,6 +375,21 @@ export const ENDPOINTS: readonly Endpoint[] = [
   ),
   e("PUT", "/api/policy/sensor-alerts", ["admin"], "Set the landlord's sensor alert rules", sensorAlertPolicyResponse),
   e("DELETE", "/api/policy/sensor-alerts", ["admin"], "Go back to our default sensor alert rules", sensorAlertPolicyResponse),
+  e(
+    "GET",
+    "/api/policy/heating-support",
+    OFFICERS,
+    "The landlord's help for tenants who find heating hard to afford",
+    heatingSupportPolicyResponse,
+  ),
+  e("PUT", "/api/policy/heating-support", ["admin"], "Set the landlord's heating support route", heatingSupportPolicyResponse),
+  e(
+    "DELETE",
+    "/api/policy/heating-support",
+    ["admin"],
+    "Clear the landlord's heating support route",
+    heatingSupportPolicyResponse,
+  ),
   e("GET", "/api/sensor-alerts", OFFICERS, "Homes whose sensors raised alerts and that have no open case", homesAtRiskResponse),
   e(
     "POST",

@@ -13,6 +13,7 @@ export * from "./evaluation.js";
 export * from "./inspections.js";
 export * from "./assessments.js";
 export * from "./policy.js";
+export * from "./home-advice.js";
 export * from "./triage.js";
 export * from "./works.js";
 export * from "./conversation.js";

@@ -25,3 +25,13 @@ export const sensorAlertPolicyResponse = z.object({
   source: z.enum(["default", "landlord"]),
 });
 export type SensorAlertPolicyResponse = z.infer<typeof sensorAlertPolicyResponse>;
+
+/** GET/PUT/DELETE /api/policy/heating-support: the landlord's help for tenants who find heating hard to afford. */
+export const heatingSupportPolicyResponse = z.object({
+  /** null: not set; tenants then see neutral general wording. */
+  supportText: z.string().nullable(),
+  supportPhone: z.string().nullable(),
+  supportLink: z.string().nullable(),
+  source: z.enum(["default", "landlord"]),
+});
+export type HeatingSupportPolicyResponse = z.infer<typeof heatingSupportPolicyResponse>;

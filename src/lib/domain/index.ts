@@ -128,3 +128,16 @@ export type {
   TriagePriority,
   TriageVulnerability,
 } from "./triage-priority.js";
+export {
+  ADVICE_IDS,
+  HEATING_COST_ANSWERS,
+  MAX_ADVICE_ITEMS,
+  NO_OVEN_FOR_WARMTH,
+  adviseForHome,
+  type AdviceId,
+  type AdviceItem,
+  type CostBand,
+  type HeatingCostAnswer,
+  type HomeAdvice,
+  type HomeAdviceFacts,
+} from "./home-advice.js";

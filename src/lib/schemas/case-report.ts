@@ -2,6 +2,7 @@
 // server validate with. Labels for people live in the client.
 import { z } from "zod";
 import type { CaseStatus } from "../domain/case-workflow.js";
+import { HEATING_COST_ANSWERS, type HeatingCostAnswer } from "../domain/home-advice.js";
 
 export { CASE_STATUSES } from "../domain/case-workflow.js";
 export type { CaseStatus };
@@ -33,6 +34,7 @@ export type Duration = (typeof DURATIONS)[number];
 export type Area = (typeof AREAS)[number];
 export type Vulnerability = (typeof VULNERABILITIES)[number];
 export type EquipmentAnswer = (typeof EQUIPMENT_ANSWERS)[number];
+export { HEATING_COST_ANSWERS, type HeatingCostAnswer };
 
 const list = <T extends readonly [string, ...string[]]>(values: T, field: string, what: string) =>
   z
@@ -46,6 +48,8 @@ export const equipmentSchema = z
     heatingUsable: z.enum(EQUIPMENT_ANSWERS).optional(),
     extractorFanWorks: z.enum(EQUIPMENT_ANSWERS).optional(),
     trickleVentsOpen: z.enum(EQUIPMENT_ANSWERS).optional(),
+    /** Optional and asked without blame: "hard-to-afford" brings the landlord's support route into the home's advice. */
+    heatingCost: z.enum(HEATING_COST_ANSWERS).optional(),
   })
   .strict();
 

@@ -23,3 +23,34 @@ export const emergencyPhoneSchema = z
   .transform((s) => (s === "" ? null : s))
   .refine((s) => s === null || isUkPhoneNumber(s), `emergencyPhone: ${UK_PHONE_MESSAGE}`)
   .nullable();
+
+/**
+ * PUT /api/policy/heating-support: the landlord's own help for tenants who find heating hard to afford,
+ * shown to those tenants beside their home's advice. Shared by the server and the admin's form.
+ */
+export const heatingSupportSchema = z
+  .object({
+    supportText: z
+      .string({ error: "supportText must be text." })
+      .trim()
+      .min(1, "Write a few words about the help you offer.")
+      .max(1000, "supportText must be at most 1,000 characters."),
+    supportPhone: z
+      .string({ error: "supportPhone must be text." })
+      .trim()
+      .max(32, "supportPhone must be at most 32 characters.")
+      .transform((s) => (s === "" ? null : s))
+      .refine((s) => s === null || isUkPhoneNumber(s), `supportPhone: ${UK_PHONE_MESSAGE}`)
+      .nullable()
+      .default(null),
+    supportLink: z
+      .string({ error: "supportLink must be text." })
+      .trim()
+      .max(500, "supportLink must be at most 500 characters.")
+      .transform((s) => (s === "" ? null : s))
+      .refine((s) => s === null || /^https:\/\/[^\s]+\.[^\s]+$/.test(s), "supportLink must be a web address starting https://.")
+      .nullable()
+      .default(null),
+  })
+  .strict();
+export type HeatingSupportInput = z.infer<typeof heatingSupportSchema>;

@@ -8,6 +8,7 @@ import { ComplaintPolicyForm } from "@/features/policy/components/complaint-poli
 import { complaintPolicyQueryOptions } from "@/features/policy/api/get-complaint-policy";
 import { sensorAlertPolicyQueryOptions } from "@/features/policy/api/sensor-alert-policy";
 import { SensorAlertPolicyForm } from "@/features/policy/components/sensor-alert-policy-form";
+import { HeatingSupportForm } from "@/features/policy/components/heating-support-form";
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
   if (await signedInAs(queryClient, ["admin"])) {
@@ -34,6 +35,9 @@ export default function DeadlinePolicyPage() {
       </Panel>
       <Panel title="Sensor alerts" id="sensor-alerts" className="mt-5 max-w-reading">
         <SensorAlertPolicyForm />
+      </Panel>
+      <Panel title="Help with heating costs" id="heating-support" className="mt-5 max-w-reading">
+        <HeatingSupportForm />
       </Panel>
     </>
   );

@@ -5,6 +5,7 @@ import { channelLabels, labelFor } from "@/lib/labels";
 import { STATE_LABELS } from "@/lib/surface-state-labels";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
+import { HomeAdviceSection } from "@/features/home-advice/components/home-advice-section";
 import { PageHeader } from "@/components/ui/page-header";
 import { LoadingState } from "@/components/ui/spinner";
 import { useUser } from "@/features/auth/api/get-me";
@@ -198,6 +199,7 @@ function Workspace({ id }: { id: number }) {
             }}
           />
         </Panel>
+        <HomeAdviceSection caseId={id} audience="staff" />
         <PhotosPanel id={id} />
       </>
     ),

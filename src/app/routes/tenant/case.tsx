@@ -23,6 +23,8 @@ import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
 import { tenantStage } from "@/features/cases/labels";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
+import { HomeAdviceSection } from "@/features/home-advice/components/home-advice-section";
+import { OPEN_CASE_STATUSES } from "@/lib/domain/case-workflow";
 import { TextLink } from "@/components/ui/text-link";
 import { LandlordMessages } from "@/features/cases/components/landlord-messages";
 import { CaseConversation } from "@/features/conversation/components/case-conversation";
@@ -134,6 +136,7 @@ function CaseView({ id }: { id: number }) {
         ) : null}
         <ReportFollowUp caseId={id} rooms={c.homeRooms} onChanged={refresh} />
         <NextSteps c={c} summarySent={summarySent} onChanged={refresh} />
+        {OPEN_CASE_STATUSES.includes(c.status) ? <HomeAdviceSection caseId={id} /> : null}
         <TenantRepairs caseId={id} caseStatus={c.status} readingsHref="#case-next" />
         <MessagesPanel id={id} open={hash === "#case-messages"} />
         {/* The rest, one press away under plain headings; a link to a section (#case-readings) opens it. */}

@@ -6,6 +6,7 @@ import {
   areaLabels,
   durationLabels,
   equipmentQuestions,
+  heatingCostQuestion,
   householdNoneLabel,
   labelFor,
   locationLabels,
@@ -24,7 +25,9 @@ export interface ReportAnswers {
   vulnerability?: readonly (Vulnerability | string)[] | null;
   /** True when the person chose "I'd rather not say" (only known while the form is open). */
   householdDeclined?: boolean;
-  equipment?: Partial<Record<(typeof EQUIPMENT_QUESTIONS)[number], EquipmentAnswer | string | undefined>> | null;
+  equipment?:
+    | (Partial<Record<(typeof EQUIPMENT_QUESTIONS)[number], EquipmentAnswer | string | undefined>> & { heatingCost?: string })
+    | null;
 }
 
 interface ReportSummaryProps {
@@ -84,6 +87,10 @@ export function ReportSummary({ answers, onChange, sentAt, extra, audience = "te
           );
         })}
         <Row term={staff ? "The household" : "Your household"} value={household} />
+        <Row
+          term={heatingCostQuestion.question}
+          value={answers.equipment?.heatingCost ? labelFor(heatingCostQuestion.answers, answers.equipment.heatingCost) : notSaid}
+        />
       </SummaryCard>
       {extra}
     </div>

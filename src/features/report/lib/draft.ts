@@ -5,6 +5,7 @@ import {
   AREAS,
   DURATIONS,
   EQUIPMENT_ANSWERS,
+  HEATING_COST_ANSWERS,
   LOCATIONS,
   OBSERVATIONS,
   VULNERABILITIES,
@@ -91,6 +92,7 @@ export function parseDraft(raw: string | null): ReportDraft | null {
       heatingUsable: oneOf(EQUIPMENT_ANSWERS, eq.heatingUsable),
       extractorFanWorks: oneOf(EQUIPMENT_ANSWERS, eq.extractorFanWorks),
       trickleVentsOpen: oneOf(EQUIPMENT_ANSWERS, eq.trickleVentsOpen),
+      heatingCost: oneOf(HEATING_COST_ANSWERS, eq.heatingCost),
     },
   };
   return {

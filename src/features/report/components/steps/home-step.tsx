@@ -1,10 +1,11 @@
-import { EQUIPMENT_ANSWERS, VULNERABILITIES } from "@/lib/schemas/case-report";
+import { EQUIPMENT_ANSWERS, HEATING_COST_ANSWERS, VULNERABILITIES } from "@/lib/schemas/case-report";
 import type { ReportDraftState } from "../../hooks/use-report-draft";
 import {
   EQUIPMENT_QUESTIONS,
   choices,
   equipmentQuestions,
   householdNoneLabel,
+  heatingCostQuestion,
   householdPreferNotLabel,
   vulnerabilityLabels,
 } from "../../labels";
@@ -79,6 +80,19 @@ export function HomeStep({ form, household, setHouseholdList, setHouseholdExclus
                 onChange={(c) => setHouseholdExclusive("prefer-not", c)}
               />
             </div>
+          }
+        />
+        <ChoiceField
+          control={control}
+          name="equipment.heatingCost"
+          kind="radio"
+          legend={heatingCostQuestion.question}
+          hint={heatingCostQuestion.hint}
+          options={choices(heatingCostQuestion.answers, HEATING_COST_ANSWERS)}
+          clearLabel={
+            <>
+              Clear my answer<span className="sr-only">: {heatingCostQuestion.question}</span>
+            </>
           }
         />
       </section>
