@@ -96,7 +96,7 @@ const wallWords: Record<WallKind, string> = {
 
 // Approximate surface temperatures at 20 °C inside and 0 °C outside, from TRADE.md §2's typical
 // U-values [M, from memory] with fRsi ≈ 1 − U·Rsi [D].
-const SURFACE_NOTE = "TRADE.md §2: typical U-values (from memory) and ISO 13788 surface factor";
+const SURFACE_NOTE = "ISO 13788 (surface temperature factor); typical U-values from memory";
 
 export const NO_OVEN_FOR_WARMTH: AdviceItem = {
   id: "no-oven-for-warmth",
@@ -110,7 +110,7 @@ export const NO_OVEN_FOR_WARMTH: AdviceItem = {
     "A carbon monoxide alarm is a good idea near any gas appliance.",
     TRADES,
   ],
-  source: "TRADE.md §7 cautions, common practice, no source",
+  source: COMMON_PRACTICE,
 };
 
 interface Candidate {
@@ -182,7 +182,7 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
         cautions: [
           "Keep away from wet electrics. If water is near lights or sockets, switch off at the fuse box if it is safe and call for help.",
         ],
-        source: "TRADE.md §6, common practice, no source",
+        source: COMMON_PRACTICE,
       },
     });
 
@@ -226,7 +226,7 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
         cautions: [
           "If you clean mould, wear gloves, a mask and eye protection and open a window. Do not clean mould if you have asthma, allergies or a weak immune system, are pregnant, or for children. Bleach does not fix it.",
         ],
-        source: "TRADE.md §6 and §7, common practice, no source",
+        source: COMMON_PRACTICE,
       },
     });
 
@@ -274,7 +274,7 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
           "Never block trickle vents, air bricks or extractor fans.",
           "Do not seal rooms with a gas fire or boiler that needs air.",
         ],
-        source: "TRADE.md §6 and §7, common practice, no source",
+        source: COMMON_PRACTICE,
       },
     });
 
