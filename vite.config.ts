@@ -42,6 +42,8 @@ export default defineConfig({
         // Some route chunks (charts, tables) pass workbox's 2 MiB default.
         maximumFileSizeToCacheInBytes: 5 * 1024 * 1024,
         cleanupOutdatedCaches: true,
+        // The first visit is looked after too, not only the next one.
+        clientsClaim: true,
       },
     }),
   ],
