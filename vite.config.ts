@@ -3,11 +3,50 @@ import { fileURLToPath } from "node:url";
 import react from "@vitejs/plugin-react";
 import tailwindcss from "@tailwindcss/vite";
 import { defineConfig } from "vite";
+import { VitePWA } from "vite-plugin-pwa";
 
 const srcDir = fileURLToPath(new URL("./src", import.meta.url));
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  plugins: [
+    react(),
+    tailwindcss(),
+    // Installable, and the app's own files kept by a service worker so it opens without signal.
+    // Only the built shell is precached: nothing under /api/ is ever cached (answers are personal and
+    // change), so an offline page shows what the report queue keeps on the phone, never an old answer.
+    VitePWA({
+      registerType: "autoUpdate",
+      injectRegister: false,
+      includeAssets: ["apple-touch-icon.png"],
+      manifest: {
+        name: "Dewline",
+        short_name: "Dewline",
+        description: "Report damp, condensation and mould in your home, and follow it until it is fixed.",
+        lang: "en-GB",
+        start_url: "/",
+        scope: "/",
+        display: "standalone",
+        theme_color: "#16232e",
+        background_color: "#ffffff",
+        icons: [
+          { src: "icon-192.png", sizes: "192x192", type: "image/png" },
+          { src: "icon-512.png", sizes: "512x512", type: "image/png" },
+          { src: "icon-maskable-512.png", sizes: "512x512", type: "image/png", purpose: "maskable" },
+        ],
+      },
+      workbox: {
+        globPatterns: ["**/*.{js,css,html,svg,png,woff2}"],
+        // Every page address opens the app shell; the client routes from there.
+        navigateFallback: "/index.html",
+        navigateFallbackDenylist: [/^\/api\//],
+        // Some route chunks (charts, tables) pass workbox's 2 MiB default.
+        maximumFileSizeToCacheInBytes: 5 * 1024 * 1024,
+        cleanupOutdatedCaches: true,
+        // The first visit is looked after too, not only the next one.
+        clientsClaim: true,
+      },
+    }),
+  ],
   resolve: { alias: { "@": srcDir } },
   server: {
     host: "127.0.0.1",

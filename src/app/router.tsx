@@ -1,6 +1,7 @@
 import type { QueryClient } from "@tanstack/react-query";
 import { createBrowserRouter, redirect, RouterProvider, type LoaderFunction, type RouteObject } from "react-router-dom";
 import { RootRouteError, RouteError } from "@/components/errors/route-error";
+import { WaitingOnThisDevice } from "@/features/report/components/waiting-reports";
 import { LoadingState } from "@/components/ui/spinner";
 import { meQueryOptions } from "@/features/auth/api/get-me";
 import { RoleGate, signInPath } from "@/features/auth/components/role-gate";
@@ -93,7 +94,13 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           id: "app",
           loader: requireUser(queryClient),
           lazy: async () => ({ Component: (await import("./routes/app/root")).default }),
-          errorElement: <RootRouteError />,
+          // Opened with no signal, the session cannot be checked: a report kept on this phone is still mentioned.
+          errorElement: (
+            <>
+              <RootRouteError />
+              <WaitingOnThisDevice />
+            </>
+          ),
           children: [
             gate(
               ["tenant"],

@@ -47,7 +47,7 @@ export const POST_RETRY_DELAYS_MS = [300, 1000];
  * A fresh key for one POST (one form submission). `crypto.randomUUID` exists only on HTTPS and
  * localhost; elsewhere the same kind of UUID is made from `getRandomValues`, which exists everywhere.
  */
-function newIdempotencyKey(): string {
+export function newIdempotencyKey(): string {
   if (typeof crypto.randomUUID === "function") return crypto.randomUUID();
   const b = crypto.getRandomValues(new Uint8Array(16));
   b[6] = (b[6]! & 0x0f) | 0x40;
@@ -108,6 +108,11 @@ export interface RequestOptions {
   body?: unknown;
   query?: Record<string, QueryValue>;
   signal?: AbortSignal;
+  /**
+   * A POST's key chosen by the caller: a report kept on the phone while offline is sent later with
+   * the key it was first given, so sending it again after a lost answer never makes it twice.
+   */
+  idempotencyKey?: string;
 }
 
 /** The address of an API path with its query (empty values left out): for requests, and for download links. */
@@ -191,7 +196,7 @@ async function sendWithRetries(
 async function request<T>(method: string, path: string, options: RequestOptions): Promise<T> {
   const unsafe = UNSAFE_METHODS.has(method);
   // One key per call: a call is one form submission, and every retry of it carries the same key.
-  const idempotencyKey = method === "POST" ? newIdempotencyKey() : undefined;
+  const idempotencyKey = method === "POST" ? (options.idempotencyKey ?? newIdempotencyKey()) : undefined;
   let res = await sendWithRetries(method, path, options, unsafe ? await getCsrfToken() : null, idempotencyKey);
 
   if (!res.ok && unsafe && res.status === 403) {

@@ -6,6 +6,8 @@ import { signedInAs } from "@/features/auth/api/require-role";
 import { myCasesQueryOptions } from "@/features/cases/api/get-my-cases";
 import { MyCases } from "@/features/cases/components/case-list";
 import { UnreadMessages } from "@/features/conversation/components/unread-messages";
+import { WaitingReports } from "@/features/report/components/waiting-reports";
+import { useUser } from "@/features/auth/api/get-me";
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
   if (await signedInAs(queryClient, ["tenant"])) void queryClient.prefetchQuery(myCasesQueryOptions());
@@ -13,6 +15,7 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
 };
 
 export default function MyReportsPage() {
+  const user = useUser();
   return (
     <>
       <title>My reports · Dewline</title>
@@ -25,6 +28,7 @@ export default function MyReportsPage() {
           </Link>
         }
       />
+      <WaitingReports userId={user.id} />
       <UnreadMessages viewer="tenant" />
       <MyCases />
     </>

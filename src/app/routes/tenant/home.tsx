@@ -11,6 +11,8 @@ import { HomeSummary } from "@/features/my-home/components/home-summary";
 import { myCasesQueryOptions } from "@/features/cases/api/get-my-cases";
 import { MyCases } from "@/features/cases/components/case-list";
 import { StartReport } from "@/features/report/components/start-report";
+import { WaitingReports } from "@/features/report/components/waiting-reports";
+import { useUser } from "@/features/auth/api/get-me";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { streetAddress } from "@/lib/homes";
 
@@ -25,6 +27,7 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
 
 export default function MyHomePage() {
   const home = useMyHome();
+  const user = useUser();
 
   return (
     <>
@@ -37,6 +40,8 @@ export default function MyHomePage() {
             : undefined
         }
       />
+      {/* A report kept on this phone shows even when the home's details cannot load (no signal). */}
+      <WaitingReports userId={user.id} />
       {home.isPending ? (
         <LoadingState>Loading your home…</LoadingState>
       ) : home.isError ? (

@@ -1,4 +1,5 @@
 import { useQueryClient, type QueryClient } from "@tanstack/react-query";
+import { useState } from "react";
 import { useNavigate } from "react-router-dom";
 import { SafetyCautions } from "@/components/risk/cautions";
 import { Alert } from "@/components/ui/alert";
@@ -10,6 +11,9 @@ import { caseKeys } from "@/lib/query-keys";
 import type { CaseDto } from "@/features/cases/api/types";
 import { myHomeQueryOptions, useMyHome } from "@/features/my-home/api/get-my-home";
 import { ReportForm } from "@/features/report/components/report-form";
+import { WaitingReports } from "@/features/report/components/waiting-reports";
+import { useKeptReports } from "@/features/report/hooks/use-report-queue";
+import { Button } from "@/components/ui/button";
 import { ApiError, errorMessage } from "@/lib/api-client";
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
@@ -22,6 +26,19 @@ export default function ReportPage() {
   const home = useMyHome();
   const navigate = useNavigate();
   const queryClient = useQueryClient();
+  const kept = useKeptReports(user.id);
+
+  const openCase = (created: CaseDto | null, complete: boolean) => {
+    void queryClient.invalidateQueries({ queryKey: caseKeys.lists() });
+    if (!created) {
+      navigate("/cases");
+      return;
+    }
+    // POST /api/cases answers with the whole case: the case page can show it at once.
+    queryClient.setQueryData(caseKeys.detail(created.id), created);
+    // The case page thanks them, and says when photos or readings still need a retry.
+    navigate(`/cases/${created.id}`, { state: { justSent: true, complete } });
+  };
 
   return (
     <>
@@ -30,7 +47,7 @@ export default function ReportPage() {
         title="Report damp or mould"
         description="Tell your landlord what you can see, a few questions at a time. Your landlord will look into every report."
       />
-      {home.isPending ? (
+      {home.isPending || !kept.loaded ? (
         <LoadingState>Getting your home's details…</LoadingState>
       ) : home.isError ? (
         <Alert
@@ -45,20 +62,52 @@ export default function ReportPage() {
         </Alert>
       ) : (
         <div className="flex flex-col gap-8">
-          <ReportForm
+          <ReportOrWaiting
             userId={user.id}
-            rooms={home.data.property.rooms}
-            onSent={(created, complete) => {
-              // POST /api/cases answers with the whole case: the case page can show it at once.
-              queryClient.setQueryData(caseKeys.detail(created.id), created as unknown as CaseDto);
-              void queryClient.invalidateQueries({ queryKey: caseKeys.lists() });
-              // The case page thanks them, and says when photos or readings still need a retry.
-              navigate(`/cases/${created.id}`, { state: { justSent: true, complete } });
-            }}
+            hasKept={kept.count > 0}
+            form={(onQueued) => (
+              <ReportForm
+                userId={user.id}
+                rooms={home.data.property.rooms}
+                onSent={(created, complete) => openCase(created as unknown as CaseDto | null, complete)}
+                onQueued={onQueued}
+              />
+            )}
+            onKeptSent={(created) => openCase(created as unknown as CaseDto | null, true)}
           />
           <SafetyCautions />
         </div>
       )}
     </>
+  );
+}
+
+interface ReportOrWaitingProps {
+  userId: number;
+  hasKept: boolean;
+  form: (onQueued: () => void) => React.ReactNode;
+  onKeptSent: (created: unknown) => void;
+}
+
+/**
+ * Reports kept on the phone come first (a tenant who opens the page again sees theirs waiting, not an
+ * empty form); the form is a click away. Decided once when the page opens, so the form stays while
+ * its own report is being kept and tried.
+ */
+function ReportOrWaiting({ userId, hasKept, form, onKeptSent }: ReportOrWaitingProps) {
+  const [writing, setWriting] = useState(!hasKept);
+  return (
+    <div className="flex flex-col gap-5">
+      <WaitingReports userId={userId} showSent={false} onSent={(r) => onKeptSent(r.created)} />
+      {writing ? (
+        form(() => setWriting(false))
+      ) : (
+        <div>
+          <Button variant="secondary" onClick={() => setWriting(true)}>
+            Report something else
+          </Button>
+        </div>
+      )}
+    </div>
   );
 }

@@ -10,6 +10,8 @@ import type { CaseReport } from "@/lib/schemas/case-report";
 import type { CreatedCase, RoomOption } from "../api/types";
 import { useReportDraft } from "../hooks/use-report-draft";
 import type { ReportFormValues } from "../lib/draft";
+import { enqueueReport, removeQueued, sendQueued } from "../lib/report-queue";
+import { startFollowUp } from "../lib/follow-up";
 import { sendReport, type SendProgress } from "../lib/send-report";
 import { LAST_STEP, PHOTOS_STEP, READINGS_STEP, STEPS, isStepField, stepOfField, type FieldName } from "../lib/steps";
 import { CheckStep } from "./steps/check-step";
@@ -29,15 +31,20 @@ interface ReportFormProps {
   /** Drafts are kept per account, so someone else on this device never sees them. */
   userId: number;
   rooms: readonly RoomOption[];
-  /** The case exists: `complete` is false when photos or readings still need a retry. */
-  onSent: (created: CreatedCase, complete: boolean) => void;
+  /**
+   * The case exists: `complete` is false when photos or readings still need a retry; `created` is
+   * null when an earlier try made it and its answer was lost (it is on the tenant's list).
+   */
+  onSent: (created: CreatedCase | null, complete: boolean) => void;
+  /** No signal (or the send failed on the way): the report is kept on this phone and sends later. */
+  onQueued: () => void;
 }
 
 /**
  * The tenant's report, one step at a time. The answers and their copy on this device belong to
  * `useReportDraft`; this component moves between the steps, checks each before going on, and sends.
  */
-export function ReportForm({ userId, rooms, onSent }: ReportFormProps) {
+export function ReportForm({ userId, rooms, onSent, onQueued }: ReportFormProps) {
   const draft = useReportDraft(userId, rooms);
   const { form, step, setStep, photos, readings, logger, restoredNote } = draft;
 
@@ -82,30 +89,72 @@ export function ReportForm({ userId, rooms, onSent }: ReportFormProps) {
 
   const send = async (report: CaseReport) => {
     setSendError(null);
+    const input = { report, photos, readings, loggerFile: logger.file ? { file: logger.file, roomId: logger.roomId } : null };
+    // The report is kept on this phone (photos too) before the first try, so no signal, a dropped
+    // connection or a closed tab loses nothing; it leaves the phone once every part has gone.
+    const queued = await enqueueReport(userId, input).catch(() => null);
+    if (queued) {
+      setProgress("case");
+      const result = await sendQueued(queued.id, setProgress);
+      if (result.kind === "sent") {
+        draft.markSent();
+        const { caseId, refusedPhotos, photosDone } = result.report;
+        const created = result.created;
+        if (!created || caseId === undefined) {
+          // Made by an earlier try whose answer was lost: it is with the landlord, on the list.
+          onSent(null, true);
+          return;
+        }
+        // The case page shows refused photos and asks for the logger file's columns, as before.
+        startFollowUp({
+          caseId,
+          photos: photosDone
+            ? { files: [], status: "done", added: photos.length - (refusedPhotos?.length ?? 0), refused: refusedPhotos }
+            : undefined,
+          loggerFile: input.loggerFile ? { ...input.loggerFile, status: "waiting" } : undefined,
+        });
+        onSent(created, true);
+        return;
+      }
+      // The case could not be made and the form is still here to fix it: the kept copy goes, the
+      // server's reason is shown at the question it is about.
+      const beforeCase = result.kind === "refused" && result.report.caseId === undefined;
+      if (!beforeCase) {
+        draft.markSent();
+        onQueued();
+        return;
+      }
+      await removeQueued(queued.id);
+      setProgress(null);
+      showRefusal(result.error);
+      return;
+    }
+    // This device cannot keep it (no IndexedDB): send it straight away, as one try.
     try {
-      const outcome = await sendReport(
-        { report, photos, readings, loggerFile: logger.file ? { file: logger.file, roomId: logger.roomId } : null },
-        setProgress,
-      );
+      const outcome = await sendReport(input, setProgress);
       draft.markSent();
       onSent(outcome.created, outcome.complete);
     } catch (error) {
       setProgress(null);
-      if (error instanceof ApiError && error.status === 400 && error.fieldErrors.length) {
-        let first = LAST_STEP;
-        for (const { field, message } of error.fieldErrors) {
-          if (isStepField(field)) {
-            form.setError(field as FieldName, { message });
-            first = Math.min(first, stepOfField(field));
-          }
-        }
-        if (first !== LAST_STEP) {
-          goTo(first);
-          return;
+      showRefusal(error);
+    }
+  };
+
+  const showRefusal = (error: unknown) => {
+    if (error instanceof ApiError && error.status === 400 && error.fieldErrors.length) {
+      let first = LAST_STEP;
+      for (const { field, message } of error.fieldErrors) {
+        if (isStepField(field)) {
+          form.setError(field as FieldName, { message });
+          first = Math.min(first, stepOfField(field));
         }
       }
-      setSendError(errorMessage(error));
+      if (first !== LAST_STEP) {
+        goTo(first);
+        return;
+      }
     }
+    setSendError(errorMessage(error));
   };
 
   const onInvalid = (found: FieldErrors<ReportFormValues>) => {
