@@ -22,5 +22,6 @@ createRoot(container).render(
 );
 
 // The service worker keeps the app's own files so it opens with no signal; a new version takes over
-// by itself on the next visit. Only in a built app: the dev server has no worker.
-if (import.meta.env.PROD) registerSW({ immediate: true });
+// by itself on the next visit. Only in a built app: the dev server has no worker. Registered once the
+// page has loaded (registerSW's default), so copying the app's files does not compete with the first page.
+if (import.meta.env.PROD) registerSW();
