@@ -39,6 +39,7 @@ import { SensorReadingsByMonth1796462200000 } from "./migrations/1796462200000-S
 import { CaseStatusCounts1796462300000 } from "./migrations/1796462300000-CaseStatusCounts.js";
 import { QueueCoveringIndexes1796462400000 } from "./migrations/1796462400000-QueueCoveringIndexes.js";
 import { PropertySearchGrams1796462500000 } from "./migrations/1796462500000-PropertySearchGrams.js";
+import { TextMessages1796462700000 } from "./migrations/1796462700000-TextMessages.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -80,4 +81,5 @@ export const migrations = [
   CaseStatusCounts1796462300000,
   QueueCoveringIndexes1796462400000,
   PropertySearchGrams1796462500000,
+  TextMessages1796462700000,
 ];

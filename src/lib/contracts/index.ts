@@ -30,3 +30,4 @@ export * from "./outlook.js";
 export * from "./weather.js";
 export * from "./sensors.js";
 export * from "./sensor-watch.js";
+export * from "./sms.js";
