@@ -166,3 +166,30 @@ ${rows}
       }),
   };
 }
+
+/**
+ * Starts the stand-in where SMS_BASE_URL points, when that is this machine (npm start, npm run dev);
+ * null when it points elsewhere (a real provider) or the port is taken (another copy is running).
+ */
+export async function startSmsStandInAt(
+  config: { baseUrl: string; apiKey: string; templateId: string },
+  warn: (line: string) => void = console.warn,
+): Promise<SmsStandIn | null> {
+  const url = new URL(config.baseUrl);
+  if (!["127.0.0.1", "localhost", "[::1]"].includes(url.hostname)) return null;
+  const port = Number(url.port || 80);
+  try {
+    return await startSmsStandIn({
+      port,
+      host: url.hostname === "[::1]" ? "::1" : "127.0.0.1",
+      apiKey: config.apiKey,
+      templateId: config.templateId,
+    });
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code !== "EADDRINUSE") throw error;
+    warn(
+      `Port ${port} is taken, so the local text-message stand-in was not started; texts go to whatever answers at ${config.baseUrl}.`,
+    );
+    return null;
+  }
+}
