@@ -3,6 +3,7 @@
 import { spawn, type ChildProcess } from "node:child_process";
 import { loadConfig } from "../server/config/env.js";
 import { startFakeWeatherAt } from "./lib/fake-weather.js";
+import { startSmsStandInAt } from "./lib/sms-stand-in.js";
 import { mailCatcherArgs } from "./lib/mail-catcher.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { startMosquitto, stopMosquitto } from "./lib/mosquitto.js";
@@ -27,16 +28,19 @@ const serverEnv = {
 await ensureAppDatabase(db, config.db);
 console.log(await runSeed(config));
 const weather = await startFakeWeatherAt(config.weather.url);
+const texts = await startSmsStandInAt(config.sms);
 
 const node = (args: string[], env: NodeJS.ProcessEnv = process.env) =>
   children.push(spawn(process.execPath, args, { cwd: projectRoot, stdio: "inherit", env }));
 node(mailCatcherArgs(config.smtp));
 node(["--import", "tsx", "--watch", "server/server.ts"], serverEnv);
 node(["node_modules/vite/bin/vite.js", "--port", "5173"]);
-console.log(`Dev client on http://127.0.0.1:5173 (API on ${config.appUrl}, mail on http://127.0.0.1:${config.smtp.webPort})`);
+console.log(
+  `Dev client on http://127.0.0.1:5173 (API on ${config.appUrl}, mail on http://127.0.0.1:${config.smtp.webPort}, texts on ${config.sms.baseUrl})`,
+);
 
 async function stop() {
-  await Promise.all([...children.map((c) => stopChild(c)), weather?.close()]);
+  await Promise.all([...children.map((c) => stopChild(c)), weather?.close(), texts?.close()]);
   if (broker.started) await stopMosquitto(projectBrokerDir);
   if (started) await stopMariaDb(projectDbDir);
   process.exit(0);

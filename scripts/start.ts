@@ -11,6 +11,7 @@ import { startFakeWeatherAt, type FakeWeather } from "./lib/fake-weather.js";
 import { ensureAppDatabase, startMariaDb, stopMariaDb } from "./lib/mariadb.js";
 import { startMosquitto, stopMosquitto } from "./lib/mosquitto.js";
 import { startMailCatcher } from "./lib/mail-catcher.js";
+import { startSmsStandInAt, type SmsStandIn } from "./lib/sms-stand-in.js";
 import { projectBrokerDir, projectDbDir, projectRoot } from "./lib/paths.js";
 import { runStep, stopChild, waitUntilReady } from "./lib/processes.js";
 import { ensureSystemPackages, MARIADB, MOSQUITTO } from "./lib/system-packages.js";
@@ -23,6 +24,7 @@ let brokerStartedHere = false;
 let mailCatcher: ChildProcess | undefined;
 let server: ChildProcess | undefined;
 let weather: FakeWeather | null = null;
+let texts: SmsStandIn | null = null;
 let simulation: ChildProcess | undefined;
 let stopping = false;
 
@@ -41,6 +43,7 @@ async function shutdown(code: number) {
   if (server) await stopChild(server, config.shutdown.delayMs + config.shutdown.timeoutMs + 5000);
   if (mailCatcher) await stopChild(mailCatcher);
   await weather?.close();
+  await texts?.close();
   if (brokerStartedHere) await stopMosquitto(projectBrokerDir);
   if (mariaDbStartedHere) await stopMariaDb(projectDbDir);
   process.exit(code);
@@ -72,6 +75,9 @@ try {
   // A local stand-in for the hosted forecast API, with deterministic history and forecasts.
   weather = await startFakeWeatherAt(config.weather.url, step);
   if (weather) step(`Started the local weather service on ${weather.url}.`);
+  // A local stand-in for the hosted text-message API: the texts it receives are shown on its page.
+  texts = await startSmsStandInAt(config.sms, step);
+  if (texts) step(`Started the local text-message stand-in on ${texts.url}.`);
   step(`Starting the MQTT broker (mosquitto on 127.0.0.1:${config.mqtt.port}, files in .data/mosquitto)…`);
   const broker = await startMosquitto({ dir: projectBrokerDir, port: config.mqtt.port, appUsername: config.mqtt.username });
   brokerStartedHere = broker.started;
@@ -125,6 +131,7 @@ try {
   App:         ${config.appUrl}
   Calculator:  ${config.appUrl}/calculator
   Mail inbox:  http://127.0.0.1:${config.smtp.webPort}   (invitation and password-reset e-mails land here)
+  Texts:       ${config.sms.baseUrl}   (${texts ? "the local stand-in: texts to tenants are listed on this page" : "as configured"})
   Weather:     ${config.weather.url}   (${weather ? "the local fake: deterministic history and forecasts" : "as configured"})
   MQTT broker: ${config.mqtt.url}   (sensors publish to sensors/<their user name>/readings)
 

@@ -24,6 +24,8 @@ import { removeStaleIncoming } from "./modules/cases/upload-dir.js";
 import { ReadingImportService } from "./modules/readings/reading-import.service.js";
 import { ReadingService } from "./modules/readings/reading.service.js";
 import { MailService } from "./modules/mail/mail.service.js";
+import { createSmsProvider, type SmsProvider } from "./modules/sms/sms-provider.js";
+import { SmsService } from "./modules/sms/sms.service.js";
 import { OrganisationService } from "./modules/organisations/organisation.service.js";
 import { PropertyService } from "./modules/properties/property.service.js";
 import { StockImportService } from "./modules/properties/stock-import.service.js";
@@ -69,6 +71,7 @@ export interface Services {
   photos: PhotoService;
   readings: ReadingService;
   mail: MailService;
+  sms: SmsService;
   properties: PropertyService;
   stock: StockImportService;
   queue: QueueService;
@@ -130,6 +133,8 @@ export function createServices(
   sessionStore?: CachedSessionStore,
   // The photo store; scripts that build services on their own get the one the config names.
   store: ObjectStore = createObjectStore(config.storage),
+  // The text-message service (tests hand in their own only to count calls; the SDK otherwise).
+  smsProvider: SmsProvider = createSmsProvider(config.sms),
 ): Services {
   const { connectionMs, greetingMs, socketMs } = config.smtpTimeouts;
   const mail = new MailService(dataSource, mailer, logger, clock, {
@@ -156,6 +161,12 @@ export function createServices(
   );
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   mail.useCaseTimeline(cases);
+  const sms = new SmsService(dataSource, smsProvider, logger, clock, {
+    maxAttempts: config.sms.maxAttempts,
+    // A claim outlasts any one send with its timeout, with room to spare.
+    leaseMs: Math.max(2 * 60_000, 3 * config.sms.timeoutMs),
+  });
+  cases.useTexts(sms);
   // Case events reach webhooks in their own transaction (the cases module knows only the listener interface).
   // Admins' changes to keys and endpoints are recorded by the integrations module, in each change's transaction.
   const adminActions = new AdminActionService(dataSource, users, clock);
@@ -251,6 +262,7 @@ export function createServices(
     homes,
     imports,
     mail,
+    sms,
     photos,
     properties,
     stock,
@@ -333,6 +345,7 @@ export async function createAppContext(config: Config, options: { migrate?: bool
       await services.auth.settled();
       // Let a send already running finish (its SMTP timeouts bound it) before the database closes.
       await services.mail.relay.stop();
+      await services.sms.relay.stop();
       await services.webhooks.relay.stop();
       mailer.close();
       await workers.close();

@@ -46,6 +46,7 @@ import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter 
 import { createConversationRouter, createMyUnreadRouter } from "./modules/conversation/conversation.routes.js";
 import { createCaseComplaintsRouter, createComplaintsRouter } from "./modules/complaints/complaints.routes.js";
 import { createOutboxRouter } from "./modules/mail/mail.routes.js";
+import { createSmsRouter } from "./modules/sms/sms.routes.js";
 import { createIntegrationApiRouter } from "./modules/integrations/integration-api.routes.js";
 import { createAdminActionsRouter, createApiKeysRouter } from "./modules/integrations/integrations.routes.js";
 import { createWebhooksRouter } from "./modules/webhooks/webhooks.routes.js";
@@ -254,6 +255,12 @@ export function createApp(
   api.use("/users", createUsersRouter({ users: services.users, clock }));
   api.use("/staff", requireAuth, createStaffRouter({ users: services.users }));
   api.use("/outbox", createOutboxRouter({ mail: services.mail }));
+  api.use(
+    createSmsRouter({
+      sms: services.sms,
+      caseTenant: async (actor, caseId) => (await services.cases.getForActor(actor, caseId)).tenantUserId,
+    }),
+  );
   api.use("/integrations/api-keys", createApiKeysRouter({ keys: services.apiKeys }));
   api.use("/integrations/admin-actions", createAdminActionsRouter({ adminActions: services.adminActions }));
   api.use("/webhooks", createWebhooksRouter({ webhooks: services.webhooks }));

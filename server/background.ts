@@ -4,6 +4,7 @@ import type { AppContext } from "./app-context.js";
 import { startDigestScheduler } from "./modules/digest/digest.scheduler.js";
 import { startTriageSweeper } from "./modules/triage/triage.sweeper.js";
 import { startMonitoringReminders } from "./modules/works/monitoring.scheduler.js";
+import { startAppointmentTextReminders } from "./modules/works/appointment-texts.scheduler.js";
 import { startInvitationBatches } from "./modules/auth/invitation-batch.ticker.js";
 import { startBoardReports } from "./modules/board-report/board-report.scheduler.js";
 import { startSensorHealthSweeper } from "./modules/sensors/sensor-health.sweeper.js";
@@ -14,7 +15,7 @@ import { purgeExpiredRateLimitHits } from "./middleware/rate-limit-store.js";
 import { startReadingPartitionUpkeep } from "./modules/sensors/reading-partitions.job.js";
 
 /**
- * Starts the outbox relay, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
+ * Starts the outbox relay, the text relay and the appointment text reminders, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
  * reminders, the release of queued invitations (tenancy imports), the monthly board reports, readings
  * over MQTT (the subscriber, and the broker's files brought in step with the registry), the purge of
  * ended rate-limit counts and next months' partitions of the sensor readings;
@@ -30,6 +31,10 @@ export function startBackgroundJobs(
   ctx.logger.info({ leaseMs: leases.leaseMs }, "background jobs starting");
   // The outbox relay: sends at once what a crash left queued, then looks for due e-mails (retries) on a timer.
   const stopMailRelay = ctx.services.mail.relay.start({ everyMs: ctx.config.mailRelay.intervalMs });
+  // The text relay, like the outbox relay, for text messages to tenants.
+  const stopSmsRelay = ctx.services.sms.relay.start({ everyMs: ctx.config.sms.intervalMs });
+  // Texts the day before each appointment (once per booking).
+  const stopAppointmentTexts = startAppointmentTextReminders(ctx.services.works, ctx.logger, { leases });
   // The webhook relay: sends at once what a crash or a restart left queued, then looks for due deliveries.
   const stopWebhookRelay = ctx.services.webhooks.relay.start({ everyMs: ctx.config.webhooks.intervalMs });
   const stopTriageSweeper = startTriageSweeper(ctx.services.triage, ctx.logger, { leases });
@@ -68,6 +73,8 @@ export function startBackgroundJobs(
       stopTriageSweeper(),
       digestScheduler.stop(),
       stopMailRelay(),
+      stopSmsRelay(),
+      stopAppointmentTexts(),
       stopWebhookRelay(),
     ]);
   };

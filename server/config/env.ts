@@ -80,6 +80,18 @@ const schema = z
     SMTP_SOCKET_TIMEOUT_MS: z.coerce.number().int().min(1).default(10_000),
     MAIL_RELAY_INTERVAL_MS: z.coerce.number().int().min(100).default(15_000),
     MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(20),
+    // Text messages: the hosted service's base URL (default: the local stand-in npm start runs), an API
+    // key `name-<service id>-<secret>` (the default is a well-formed development key the stand-in accepts)
+    // and the one template, whose body is ((body)), so the wording lives in server/modules/sms.
+    SMS_BASE_URL: z.url("SMS_BASE_URL must be a URL such as http://127.0.0.1:18970").default("http://127.0.0.1:18970"),
+    SMS_API_KEY: z
+      .string()
+      .regex(/-[0-9a-f-]{36}-[0-9a-f-]{36}$/, "SMS_API_KEY must end with the service id and the secret (two UUIDs)")
+      .default("dewline_local-6f1c2a4e-8d3b-4c5a-9e7f-1a2b3c4d5e6f-0b9a8c7d-6e5f-4a3b-8c2d-1e0f9a8b7c6d"),
+    SMS_TEMPLATE_ID: z.uuid("SMS_TEMPLATE_ID must be a template's UUID").default("5d6a7b8c-9e0f-4a1b-8c2d-3e4f5a6b7c8d"),
+    SMS_RELAY_INTERVAL_MS: z.coerce.number().int().min(100).default(15_000),
+    SMS_MAX_ATTEMPTS: z.coerce.number().int().min(1).default(12),
+    SMS_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(10_000),
     WEBHOOK_RELAY_INTERVAL_MS: z.coerce.number().int().min(100).default(5_000),
     WEBHOOK_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(10_000),
     WEBHOOK_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(12),
@@ -192,6 +204,8 @@ export interface Config {
   smtpTimeouts: { connectionMs: number; greetingMs: number; socketMs: number };
   /** The outbox relay: how often it looks for due e-mails, and how many attempts before it gives up. */
   mailRelay: { intervalMs: number; maxAttempts: number };
+  /** Text messages: where the SDK sends them, with which key and template; the relay's timer and attempts. */
+  sms: { baseUrl: string; apiKey: string; templateId: string; intervalMs: number; maxAttempts: number; timeoutMs: number };
   /** Webhook deliveries: how often the relay looks for due ones, each HTTP call's timeout, tries before "failed". */
   webhooks: { intervalMs: number; timeoutMs: number; maxAttempts: number };
   /** Queued invitations (tenancy imports): at most `perBatch` released every `intervalMs`. */
@@ -327,6 +341,14 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       socketMs: e.SMTP_SOCKET_TIMEOUT_MS,
     },
     mailRelay: { intervalMs: e.MAIL_RELAY_INTERVAL_MS, maxAttempts: e.MAIL_MAX_ATTEMPTS },
+    sms: {
+      baseUrl: e.SMS_BASE_URL.replace(/\/$/, ""),
+      apiKey: e.SMS_API_KEY,
+      templateId: e.SMS_TEMPLATE_ID,
+      intervalMs: e.SMS_RELAY_INTERVAL_MS,
+      maxAttempts: e.SMS_MAX_ATTEMPTS,
+      timeoutMs: e.SMS_TIMEOUT_MS,
+    },
     webhooks: {
       intervalMs: e.WEBHOOK_RELAY_INTERVAL_MS,
       timeoutMs: e.WEBHOOK_TIMEOUT_MS,

@@ -26,6 +26,8 @@ import { UserToken } from "../modules/auth/user-token.entity.js";
 import { SignInThrottle } from "../modules/auth/sign-in-throttle.entity.js";
 import { UserAuditEntry } from "../modules/users/user-audit.entity.js";
 import { OutboxEmail } from "../modules/mail/outbox-email.entity.js";
+import { OutboxSms } from "../modules/sms/outbox-sms.entity.js";
+import { SmsPreference } from "../modules/sms/sms-preference.entity.js";
 import { Organisation } from "../modules/organisations/organisation.entity.js";
 import { Property } from "../modules/properties/property.entity.js";
 import { Room } from "../modules/properties/room.entity.js";
@@ -61,6 +63,8 @@ export const entities = [
   StockImport,
   Tenancy,
   OutboxEmail,
+  OutboxSms,
+  SmsPreference,
   Case,
   CaseEvent,
   CaseMilestone,

@@ -57,6 +57,10 @@ export type CaseEventPayload =
   | { type: "email-queued"; after: { outboxId: number; to: string; template: string } }
   /** Staff sent an e-mail about the case again from the outbox (the actor is who asked). */
   | { type: "email-resent"; after: { outboxId: number; to: string; template: string; subject: string } }
+  /** A text message to the tenant was queued (sms module): its outbox row, what it said, the number's last digits. */
+  | { type: "text-queued"; after: { outboxSmsId: number; kind: string; body: string; numberEnding: string } }
+  /** The tenant has texts off, so this went by e-mail only. */
+  | { type: "text-not-sent"; after: { kind: string; reason: "texts-off" } }
   | { type: "tenant-got-worse"; after: { note: string } }
   | { type: "photos-added"; after: { photoIds: number[]; workOrderId: number | null } }
   | { type: "readings-added"; after: { imported: number; duplicates: number; roomIds: number[]; roomId: number | undefined } }

@@ -1,5 +1,5 @@
 import type { z } from "zod";
-import type { caseEventEmail, caseEventResponse, caseResponse } from "../../../src/lib/contracts/cases.js";
+import type { caseEventEmail, caseEventResponse, caseEventText, caseResponse } from "../../../src/lib/contracts/cases.js";
 import type { CaseEvent } from "./case-event.entity.js";
 import type { CaseEventType } from "./case-events.js";
 import type { Case } from "./case.entity.js";
@@ -42,6 +42,7 @@ export const toCaseDto = (c: Case, audience: Audience = "staff"): z.input<typeof
 export type CaseDto = z.input<typeof caseResponse>;
 
 export type CaseEventEmail = z.input<typeof caseEventEmail>;
+export type CaseEventText = z.input<typeof caseEventText>;
 
 /**
  * Payload fields of the timeline that hold staff-only text (the operative's description, officers'
@@ -69,10 +70,12 @@ export const toCaseEventDto = (
     event,
     actor,
     email,
+    text = null,
   }: {
     event: CaseEvent;
     actor: { name: string; role: string } | null;
     email: CaseEventEmail | null;
+    text?: CaseEventText | null;
   },
   audience: Audience = "staff",
 ): z.input<typeof caseEventResponse> => {
@@ -85,5 +88,6 @@ export const toCaseEventDto = (
     before: withoutFields(event.before, hidden),
     after: withoutFields(event.after, hidden),
     email,
+    text,
   };
 };

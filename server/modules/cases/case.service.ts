@@ -15,6 +15,8 @@ import { isStaff, type Actor } from "../auth/actor.js";
 import type { MailTemplateName } from "../mail/mail-templates.js";
 import type { CaseEmailTimeline, MailService, ResentCaseEmail, SendMail } from "../mail/mail.service.js";
 import type { OrganisationService } from "../organisations/organisation.service.js";
+import type { SmsKind, SmsTexts } from "../sms/sms-texts.js";
+import type { SmsService } from "../sms/sms.service.js";
 import type { Property, PropertyService, Room } from "../properties/property.service.js";
 import type { TenancyService } from "../tenancies/tenancy.service.js";
 import type { UserService } from "../users/user.service.js";
@@ -130,6 +132,13 @@ export class CaseService implements CaseEmailTimeline {
     private readonly organisations: OrganisationService,
     private readonly clock: Clock,
   ) {}
+
+  /** Text messages to tenants (SmsService, wired in createServices); without it, nothing is texted. */
+  private texts: SmsService | null = null;
+
+  useTexts(texts: SmsService): void {
+    this.texts = texts;
+  }
 
   /** Where the landlord's emergency line comes from (PolicyService, wired in createServices: policy depends on cases). */
   private emergencyPhones: EmergencyPhoneSource | null = null;
@@ -686,6 +695,51 @@ export class CaseService implements CaseEmailTimeline {
     return deliver;
   }
 
+  /**
+   * Texts the case's tenant, in the caller's transaction, if they have texts on, and puts it on the
+   * timeline; with texts off the timeline says it went by e-mail only (unless `quietWhenOff`).
+   * `onceKey`: queue it once only (a reminder per booking). Returns the sender to run after commit
+   * (its `queued` says whether a text was queued).
+   */
+  async queueText<K extends SmsKind>(
+    m: EntityManager,
+    caseOrId: Case | number,
+    kind: K,
+    data: Omit<SmsTexts[K], "landlord" | "reference" | "link">,
+    { onceKey, quietWhenOff = false }: { onceKey?: string; quietWhenOff?: boolean } = {},
+  ): Promise<(() => Promise<void>) & { queued: boolean }> {
+    const none = Object.assign(async () => undefined, { queued: false });
+    const c = typeof caseOrId === "number" ? await m.getRepository(Case).findOneByOrFail({ id: caseOrId }) : caseOrId;
+    if (!this.texts || c.tenantUserId === null) return none;
+    const landlord = await this.organisations.nameOf(c.organisationId, m);
+    const queued = await this.texts.enqueue(m, {
+      organisationId: c.organisationId,
+      userId: c.tenantUserId,
+      kind,
+      data: {
+        ...data,
+        landlord,
+        reference: c.reference ?? `#${c.id}`,
+        link: `${this.config.appUrl}/cases/${c.id}`,
+      } as SmsTexts[K],
+      related: { type: "case", id: c.id },
+      onceKey,
+    });
+    if (queued.queued) {
+      await this.recordEvent(m, {
+        caseId: c.id,
+        actorId: null,
+        type: "text-queued",
+        after: { outboxSmsId: queued.outboxSmsId, kind, body: queued.body, numberEnding: queued.numberEnding },
+      });
+      return Object.assign(async () => queued.deliver(), { queued: true });
+    }
+    if (queued.reason === "texts-off" && !quietWhenOff) {
+      await this.recordEvent(m, { caseId: c.id, actorId: null, type: "text-not-sent", after: { kind, reason: "texts-off" } });
+    }
+    return none;
+  }
+
   /** Staff sent an e-mail about the case again (MailService.resend calls this in its transaction). */
   async recordEmailResent(m: EntityManager, r: ResentCaseEmail): Promise<void> {
     await this.recordEvent(m, {
@@ -746,10 +800,16 @@ export class CaseService implements CaseEmailTimeline {
       ? [...new Set(events.map((e) => e.after?.outboxId).filter((v): v is number => typeof v === "number"))]
       : [];
     const emails = await this.mail.deliveries(outboxIds);
+    // …and each text's, as the text outbox records it.
+    const textIds = staff
+      ? [...new Set(events.map((e) => e.after?.outboxSmsId).filter((v): v is number => typeof v === "number"))]
+      : [];
+    const texts = this.texts ? await this.texts.deliveries(textIds) : new Map();
     return events.map((e) => ({
       event: e,
       actor: e.actorUserId === null ? null : (names.get(e.actorUserId) ?? null),
       email: typeof e.after?.outboxId === "number" ? (emails.get(e.after.outboxId) ?? null) : null,
+      text: typeof e.after?.outboxSmsId === "number" ? (texts.get(e.after.outboxSmsId) ?? null) : null,
     }));
   }
 

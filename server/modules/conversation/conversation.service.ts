@@ -74,7 +74,7 @@ export class ConversationService {
 
   /** Staff: a message to the tenant (on their case page and e-mailed) or an internal note. Returns the message's id. */
   async postAsStaff(actor: Actor, caseId: number, { body, internal }: StaffMessageInput): Promise<number> {
-    const { eventId, deliver } = await this.dataSource.transaction(async (m) => {
+    const { eventId, deliver, text } = await this.dataSource.transaction(async (m) => {
       const c = await this.cases.getForActor(actor, caseId, m);
       if (internal) {
         const eventId = await this.cases.recordEventWithId(m, {
@@ -83,7 +83,7 @@ export class ConversationService {
           type: "internal-note",
           after: { body },
         });
-        return { eventId, deliver: null };
+        return { eventId, deliver: null, text: null };
       }
       let outboxId: number | undefined;
       let deliver: (() => Promise<unknown>) | null = null;
@@ -103,11 +103,14 @@ export class ConversationService {
         type: "message-to-tenant",
         after: outboxId === undefined ? { body } : { body, outboxId },
       });
+      // The text only says there is a message: the message itself stays on the case page.
+      const text = await this.cases.queueText(m, c, "landlord-replied", {});
       // Writing a reply means having read what came before it.
       await this.advanceMark(m, c.id, actor.id, eventId);
-      return { eventId, deliver };
+      return { eventId, deliver, text };
     });
     if (deliver) await deliver();
+    if (text) await text();
     return eventId;
   }
 

@@ -129,7 +129,7 @@ export class InspectionService {
 
   /** Sends the written summary to the tenant (after an inspection), recorded with its time. */
   async sendSummary(actor: Actor, caseId: number, body: string): Promise<WrittenSummary> {
-    const { saved, deliver } = await this.dataSource.transaction(async (m) => {
+    const { saved, deliver, text } = await this.dataSource.transaction(async (m) => {
       const c = await this.cases.getForActor(actor, caseId, m);
       if (!(await m.getRepository(Inspection).existsBy({ caseId: c.id }))) {
         throw new ConflictError("Record the inspection before sending the written summary of it.");
@@ -159,11 +159,13 @@ export class InspectionService {
         type: "summary-sent",
         after: { summaryId: saved.id, body, outboxId },
       });
+      const text = await this.cases.queueText(m, c, "summary-sent", {});
       // The summary closes the investigation: a case not yet investigated follows it there.
       await this.cases.follow(m, c.id, "investigated", "Written summary sent to the tenant.", actor);
-      return { saved, deliver };
+      return { saved, deliver, text };
     });
     await deliver();
+    await text();
     return saved;
   }
 }

@@ -444,6 +444,13 @@ export class WorkOrderService {
             },
           }),
         );
+        deliveries.push(
+          await this.cases.queueText(m, c, "appointment-offered", {
+            workWords: common.workWords,
+            slotWords: common.slotWords,
+            rescheduled: common.rescheduled,
+          }),
+        );
       }
       const worker = operative ?? contractor;
       if (worker) {
@@ -465,6 +472,42 @@ export class WorkOrderService {
     });
     for (const d of deliveries) await d();
     return this.dataSource.getRepository(WorkOrder).findOneByOrFail({ id });
+  }
+
+  /**
+   * Texts each tenant who has texts on a reminder the day before their appointment (London dates, by
+   * the app's clock): once per booking (the text outbox's once-key), not for a booking the tenant has
+   * asked to move, nor for one already done or cancelled. Tenants with texts off are not told again on
+   * the timeline (the offer's entry already says e-mail only). Returns how many texts were queued.
+   */
+  async textDueReminders(now = this.clock.now()): Promise<number> {
+    const tomorrow = new Date(`${localDate(now)}T12:00:00Z`);
+    tomorrow.setUTCDate(tomorrow.getUTCDate() + 1);
+    const day = tomorrow.toISOString().slice(0, 10);
+    const due = (await this.dataSource.query(
+      `SELECT b.id AS bookingId, w.id AS workOrderId
+         FROM work_order_bookings b JOIN work_orders w ON w.id = b.work_order_id
+        WHERE b.slot_date = ? AND b.state = 'active' AND w.status = 'scheduled'
+          AND (b.tenant_response IS NULL OR b.tenant_response <> 'change-requested')`,
+      [day],
+    )) as { bookingId: number; workOrderId: number }[];
+    let queued = 0;
+    for (const { bookingId, workOrderId } of due) {
+      const deliver = await inTransaction(this.dataSource, async (m) => {
+        const wo = await m.getRepository(WorkOrder).findOneByOrFail({ id: Number(workOrderId) });
+        const booking = await m.getRepository(WorkOrderBooking).findOneByOrFail({ id: Number(bookingId) });
+        return this.cases.queueText(
+          m,
+          wo.caseId,
+          "appointment-reminder",
+          { workWords: WORK_WORDS[wo.type], slotWords: describeSlot(booking.slotDate, booking.slotWindow) },
+          { onceKey: `appointment-reminder:${booking.id}`, quietWhenOff: true },
+        );
+      });
+      if (deliver.queued) queued += 1;
+      await deliver();
+    }
+    return queued;
   }
 
   /** The tenant confirms the proposed appointment or asks for another slot. */

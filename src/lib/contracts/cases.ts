@@ -77,6 +77,16 @@ export const caseEventEmail = z.object({
 });
 export type CaseEventEmail = z.infer<typeof caseEventEmail>;
 
+export const caseEventText = z.object({
+  status: z.enum(["pending", "sending", "sent", "failed"]),
+  sentAt: instant.nullable(),
+  error: z.string().nullable(),
+  attempts: z.number().int().min(0),
+  /** The provider's id for the text, once it accepted it. */
+  providerId: z.string().nullable(),
+});
+export type CaseEventText = z.infer<typeof caseEventText>;
+
 /** One entry of a case's timeline (GET /api/cases/:id/events). */
 export const caseEventResponse = z.object({
   id,
@@ -87,6 +97,8 @@ export const caseEventResponse = z.object({
   after: z.record(z.string(), z.unknown()).nullable(),
   /** Staff only: the e-mail this event queued, and how its sending went (null for tenants). */
   email: caseEventEmail.nullable(),
+  /** Staff only: the text message this event queued, and how its sending went (null for tenants). */
+  text: caseEventText.nullable().optional(),
 });
 export type CaseEventResponse = z.infer<typeof caseEventResponse>;
 export const caseEventsResponse = z.object({ events: z.array(caseEventResponse) });

@@ -21,6 +21,7 @@ import { evaluationResponse } from "./evaluation.js";
 import { estateLocationListResponse, estateLocationResponse } from "./weather.js";
 import { EVIDENCE_PACK_MEDIA_TYPE } from "./evidence-pack.js";
 import { outboxItem, outboxPageResponse } from "./mail.js";
+import { textChoiceResponse, textOutboxPageResponse } from "./sms.js";
 import {
   webhookDeliveryPageResponse,
   webhookDeliveryResponse,
@@ -479,6 +480,16 @@ export const ENDPOINTS: readonly Endpoint[] = [
     outboxPageResponse,
   ),
   e("POST", "/api/outbox/:id/resend", OFFICERS, "Send a sent or failed e-mail again", outboxItem, 202),
+  e(
+    "GET",
+    "/api/text-outbox",
+    OFFICERS,
+    "The landlord's text messages to tenants and how each one's sending stands, newest first (?status=)",
+    textOutboxPageResponse,
+  ),
+  e("GET", "/api/me/texts", ["tenant"], "The tenant's mobile number and whether they get texts", textChoiceResponse),
+  e("PUT", "/api/me/texts", ["tenant"], "The tenant sets their mobile number and turns texts on or off", textChoiceResponse),
+  e("GET", "/api/cases/:id/text-choice", STAFF, "Whether the case's tenant gets texts, and their number", textChoiceResponse),
 
   e("GET", "/api/integrations/api-keys", ["admin"], "The landlord's API keys (never their secrets)", apiKeyListResponse),
   e(

@@ -31,3 +31,4 @@ export * from "./outlook.js";
 export * from "./weather.js";
 export * from "./sensors.js";
 export * from "./sensor-watch.js";
+export * from "./sms.js";

@@ -8,6 +8,7 @@ import { myHomeQueryOptions, useMyHome } from "@/features/my-home/api/get-my-hom
 import { myOutlookQueryOptions } from "@/features/my-home/api/get-my-outlook";
 import { CondensationOutlookCard } from "@/features/my-home/components/condensation-outlook-card";
 import { HomeSummary } from "@/features/my-home/components/home-summary";
+import { TextChoiceCard } from "@/features/my-home/components/text-choice-card";
 import { myCasesQueryOptions } from "@/features/cases/api/get-my-cases";
 import { MyCases } from "@/features/cases/components/case-list";
 import { StartReport } from "@/features/report/components/start-report";
@@ -61,6 +62,7 @@ export default function MyHomePage() {
           </Panel>
           <CondensationOutlookCard />
           <HomeSummary home={home.data} />
+          <TextChoiceCard />
         </div>
       )}
     </>

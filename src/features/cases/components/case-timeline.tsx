@@ -40,6 +40,14 @@ function byWhom(event: CaseEvent, audience: Audience): string {
   return `${event.actor.name} (${role})`;
 }
 
+/** How a text's sending stands, for staff. */
+const TEXT_STATE_WORDS: Record<string, string> = {
+  pending: "waiting to send",
+  sending: "sending",
+  sent: "sent",
+  failed: "could not be sent",
+};
+
 /** One plain sentence (and sometimes a detail) for each kind of event; unknown kinds still show. */
 export function describeEvent(
   event: CaseEvent,
@@ -129,6 +137,25 @@ export function describeEvent(
             .join(" ") || undefined,
       };
     }
+    case "text-queued": {
+      const ending = str(after.numberEnding);
+      const kind = str(after.kind);
+      const status = audience === "staff" && event.text ? ` (${TEXT_STATE_WORDS[event.text.status] ?? event.text.status})` : "";
+      return {
+        title:
+          audience === "tenant"
+            ? `We sent you a text${ending ? ` to your number ending ${ending}` : ""}.`
+            : `Text to the tenant${ending ? ` (number ending ${ending})` : ""}${kind ? `: ${kind.replace(/-/g, " ")}` : ""}${status}.`,
+        detail: str(after.body) || undefined,
+      };
+    }
+    case "text-not-sent":
+      return {
+        title:
+          audience === "tenant"
+            ? "We did not send a text, as texts are off. You got an e-mail."
+            : "No text: the tenant has texts off, so this went by e-mail only.",
+      };
     case "message-to-tenant": {
       const body = str(after.body);
       return {
