@@ -38,7 +38,6 @@ import { JobLeasesAndRateLimits1796462100000 } from "./migrations/1796462100000-
 import { SensorReadingsByMonth1796462200000 } from "./migrations/1796462200000-SensorReadingsByMonth.js";
 import { CaseStatusCounts1796462300000 } from "./migrations/1796462300000-CaseStatusCounts.js";
 import { QueueCoveringIndexes1796462400000 } from "./migrations/1796462400000-QueueCoveringIndexes.js";
-import { PropertySearchGrams1796462500000 } from "./migrations/1796462500000-PropertySearchGrams.js";
 import { HeatingSupportPolicy1796462600000 } from "./migrations/1796462600000-HeatingSupportPolicy.js";
 import { TextMessages1796462700000 } from "./migrations/1796462700000-TextMessages.js";
 
@@ -81,7 +80,6 @@ export const migrations = [
   SensorReadingsByMonth1796462200000,
   CaseStatusCounts1796462300000,
   QueueCoveringIndexes1796462400000,
-  PropertySearchGrams1796462500000,
   HeatingSupportPolicy1796462600000,
   TextMessages1796462700000,
 ];

@@ -111,38 +111,6 @@ function searchPatterns(q: string): { like: string; compact: string } {
   return { like: `%${escapeLike(q)}%`, compact: `%${escapeLike(q.replace(/\s+/g, ""))}%` };
 }
 
-/** At most this many of a search's pieces are looked up: the homes holding them all are few enough to test. */
-const MAX_GRAMS = 4;
-
-/**
- * A search text's three-character pieces, for property_search_grams: none when the text is shorter
- * than three characters. Long text gives MAX_GRAMS of them, spread from its start to its end.
- */
-function gramsOf(text: string): string[] {
-  const chars = [...text];
-  const all = [...new Set(chars.slice(0, Math.max(0, chars.length - 2)).map((_, i) => chars.slice(i, i + 3).join("")))];
-  if (all.length <= MAX_GRAMS) return all;
-  return Array.from({ length: MAX_GRAMS }, (_, k) => all[Math.round((k * (all.length - 1)) / (MAX_GRAMS - 1))]!);
-}
-
-/**
- * The ids of a landlord's homes holding every one of `grams`: one lookup of a piece, joined to the
- * others by the table's key (MariaDB starts from the piece fewest homes hold).
- */
-function holdingAll(grams: string[]): { sql: string; params: (organisationId: number) => unknown[] } {
-  const joins = grams
-    .slice(1)
-    .map(
-      (_, k) =>
-        ` JOIN property_search_grams g${k + 1} ON g${k + 1}.organisation_id = g0.organisation_id AND g${k + 1}.gram = ? AND g${k + 1}.property_id = g0.property_id`,
-    )
-    .join("");
-  return {
-    sql: `SELECT g0.property_id FROM property_search_grams g0${joins} WHERE g0.organisation_id = ? AND g0.gram = ?`,
-    params: (organisationId) => [...grams.slice(1), organisationId, grams[0]],
-  };
-}
-
 /** Whether the query filters by status alone (or not at all), so its total is a sum of stored counts. */
 function onlyStatusFilter(query: QueueQuery): boolean {
   const { risk, category, band, estate, vulnerable, overdue, dueWithin, assignee, q } = query;
@@ -371,37 +339,17 @@ export class QueueService {
   /**
    * The landlord's homes whose address, town or postcode hold the search text, found once per request
    * so the page and its total both filter cases by home id: each used to test every home's three
-   * columns with a collation-aware LIKE of its own (bench:queue, 20 000 homes). Text of three
-   * characters or more first narrows the homes to those holding some of its three-character pieces
-   * (property_search_grams, kept by triggers: migration PropertySearchGrams), then tests only those
-   * with the same LIKE; shorter text tests every home. Null when there is no search, or when so many
-   * homes match that a list of ids would cost more than the join.
+   * columns with a collation-aware LIKE of its own (bench:queue, 20 000 homes). The test reads
+   * idx_properties_org_address alone, not the homes' rows. Null when there is no search, or when so
+   * many homes match that a list of ids would cost more than the join.
    */
   private async homesMatching(organisationId: number, q: string | undefined): Promise<number[] | null> {
     if (!q) return null;
     const { like, compact } = searchPatterns(q);
-    const test = "(p.address_line1 LIKE ? OR p.town LIKE ? OR REPLACE(p.postcode, ' ', '') LIKE ?)";
-    const testParams = [like, like, compact];
-    // A home matching the text as typed holds its pieces; one matching on the postcode, the pieces of
-    // the text without spaces (the same pieces when it has none).
-    const typed = gramsOf(q);
-    const spaceless = q.replace(/\s+/g, "") === q ? typed : gramsOf(q.replace(/\s+/g, ""));
-    let rows: { id: number | string }[];
-    if (typed.length && spaceless.length) {
-      const candidates = (spaceless === typed ? [typed] : [typed, spaceless]).map((g) => holdingAll(g));
-      // The candidates as a derived table joined to the homes: MariaDB works them out once (an IN over
-      // a UNION would be asked again for every home).
-      rows = (await this.dataSource.query(
-        `SELECT DISTINCT p.id AS id FROM (${candidates.map((c) => c.sql).join(" UNION ")}) c INNER JOIN properties p ON p.id = c.property_id WHERE p.organisation_id = ? AND ${test} LIMIT ?`,
-        [...candidates.flatMap((c) => c.params(organisationId)), organisationId, ...testParams, MAX_SEARCH_HOMES + 1],
-      )) as { id: number | string }[];
-    } else {
-      rows = (await this.dataSource.query(`SELECT p.id AS id FROM properties p WHERE p.organisation_id = ? AND ${test} LIMIT ?`, [
-        organisationId,
-        ...testParams,
-        MAX_SEARCH_HOMES + 1,
-      ])) as { id: number | string }[];
-    }
+    const rows = (await this.dataSource.query(
+      "SELECT p.id AS id FROM properties p WHERE p.organisation_id = ? AND (p.address_line1 LIKE ? OR p.town LIKE ? OR REPLACE(p.postcode, ' ', '') LIKE ?) LIMIT ?",
+      [organisationId, like, like, compact, MAX_SEARCH_HOMES + 1],
+    )) as { id: number | string }[];
     return rows.length > MAX_SEARCH_HOMES ? null : rows.map((r) => Number(r.id));
   }
 
