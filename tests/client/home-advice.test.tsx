@@ -2,6 +2,7 @@
 // rough cost, cautions and source; the oven and hob caution always shown; the landlord's help with
 // heating costs when the tenant asked for it, or neutral wording when the landlord has set none.
 import { screen, within } from "@testing-library/react";
+import userEvent from "@testing-library/user-event";
 import { beforeEach, describe, expect, it } from "vitest";
 import { clearCsrfToken } from "@/lib/api-client";
 import { adviseForHome, type HomeAdviceFacts } from "@/lib/domain/home-advice";
@@ -67,12 +68,20 @@ async function openCase() {
   expect(await screen.findByRole("heading", { level: 1, name: "DW-2026-00042" })).toBeInTheDocument();
 }
 
+/** The section is one press away, like the page's other parts: press its heading. */
+async function openAdvice() {
+  const button = await screen.findByRole("button", { name: "Advice for your home" });
+  await userEvent.setup().click(button);
+  expect(button).toHaveAttribute("aria-expanded", "true");
+}
+
 describe("advice for your home", () => {
   beforeEach(() => clearCsrfToken());
 
   it("lists the advice for this home with why, rough cost, cautions and source, and the safety caution", async () => {
     adviceApi({ caseId: 42, items, safety, support: { text: null, phone: null, link: null } });
     await openCase();
+    await openAdvice();
     const section = await screen.findByRole("region", { name: "Advice for your home" });
     const list = await within(section).findByRole("list", { name: "Things that may help, most helpful first" });
     expect(
@@ -95,6 +104,7 @@ describe("advice for your home", () => {
   it("shows the landlord's own help with heating costs, with a number to call", async () => {
     adviceApi({ caseId: 42, items, safety, support: { text: "Our money team can help.", phone: "0300 123 4567", link: null } });
     await openCase();
+    await openAdvice();
     const help = await screen.findByRole("region", { name: "Help with heating costs" });
     expect(help).toHaveTextContent("Our money team can help.");
     expect(within(help).getByRole("link", { name: "0300 123 4567" })).toHaveAttribute("href", "tel:03001234567");
@@ -104,5 +114,6 @@ describe("advice for your home", () => {
     adviceApi({ caseId: 42, items, safety, support: null }, "closed");
     await openCase();
     expect(screen.queryByRole("region", { name: "Advice for your home" })).toBeNull();
+    expect(screen.queryByRole("button", { name: "Advice for your home" })).toBeNull();
   });
 });

@@ -51,6 +51,14 @@ beforeAll(async () => {
   const officer = await signedInClient(t.app, landlord.officer.email, PASSWORD);
   const lead = await signedInClient(t.app, landlord.maintenance.email, PASSWORD);
 
+  // Texts on, so the journey's appointment offers and replies are texted too (and their timeline entries checked).
+  const texts = await tenant.agent
+    .put("/api/me/texts")
+    .set("X-CSRF-Token", tenant.csrf)
+    .send({ mobileNumber: "07700 900123", textsOn: true })
+    .expect(200);
+  record("PUT", "/api/me/texts", texts.text);
+
   const home = (await tenant.get("/api/me/home").expect(200)).body.property;
   const roomId: number = home.rooms[0].id;
   const created = await tenant

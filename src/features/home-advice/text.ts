@@ -12,6 +12,8 @@ export const adviceText = {
   failed: "We could not load the advice just now. Please try again later.",
   none: "We have no extra tips for this home. Your landlord is looking into the cause.",
   listLabel: "Things that may help, most helpful first",
+  summary: (n: number) =>
+    n === 0 ? "A safety warning" : `${n} ${n === 1 ? "thing" : "things"} that may help, and a safety warning`,
   whyLabel: "Why this helps in your home:",
   costLabel: "Rough cost:",
   cautionsLabel: "Take care:",

@@ -136,7 +136,9 @@ function CaseView({ id }: { id: number }) {
         ) : null}
         <ReportFollowUp caseId={id} rooms={c.homeRooms} onChanged={refresh} />
         <NextSteps c={c} summarySent={summarySent} onChanged={refresh} />
-        {OPEN_CASE_STATUSES.includes(c.status) ? <HomeAdviceSection caseId={id} /> : null}
+        {OPEN_CASE_STATUSES.includes(c.status) ? (
+          <HomeAdviceSection caseId={id} open={Boolean(justSent) || hash === "#case-advice"} />
+        ) : null}
         <TenantRepairs caseId={id} caseStatus={c.status} readingsHref="#case-next" />
         <MessagesPanel id={id} open={hash === "#case-messages"} />
         {/* The rest, one press away under plain headings; a link to a section (#case-readings) opens it. */}

@@ -1,5 +1,5 @@
 import { Alert } from "@/components/ui/alert";
-import { Panel } from "@/components/ui/card";
+import { CollapsibleSection } from "@/components/ui/collapsible-section";
 import type { AdviceItemResponse } from "@/lib/contracts/home-advice";
 import { useCaseAdvice, type HomeAdvice } from "../api/get-case-advice";
 import { adviceText as t, costLabels } from "../text";
@@ -8,14 +8,24 @@ interface HomeAdviceSectionProps {
   caseId: number;
   /** Staff see the same list, read-only, so the officer knows what the tenant was told. */
   audience?: "tenant" | "staff";
+  /** Open when the page loads (just after the report is sent, or a link to #case-advice); one press away otherwise. */
+  open?: boolean;
 }
 
-/** The few things most likely to help in this case's home, ranked by the server, with their cautions and sources. */
-export function HomeAdviceSection({ caseId, audience = "tenant" }: HomeAdviceSectionProps) {
+/**
+ * The few things most likely to help in this case's home, ranked by the server, with their cautions
+ * and sources: behind its heading like the page's other parts, so the case page stays short.
+ */
+export function HomeAdviceSection({ caseId, audience = "tenant", open = false }: HomeAdviceSectionProps) {
   const advice = useCaseAdvice(caseId);
   const staff = audience === "staff";
   return (
-    <Panel title={staff ? t.staffTitle : t.tenantTitle} id="case-advice">
+    <CollapsibleSection
+      id="case-advice"
+      title={staff ? t.staffTitle : t.tenantTitle}
+      summary={advice.data ? t.summary(advice.data.items.length) : undefined}
+      defaultOpen={open}
+    >
       <p className="mb-3">{staff ? t.staffIntro : t.tenantIntro}</p>
       {advice.isPending ? (
         <p role="status">{t.loading}</p>
@@ -24,7 +34,7 @@ export function HomeAdviceSection({ caseId, audience = "tenant" }: HomeAdviceSec
       ) : (
         <AdviceBody advice={advice.data} />
       )}
-    </Panel>
+    </CollapsibleSection>
   );
 }
 
