@@ -55,7 +55,7 @@ beforeAll(async () => {
   const texts = await tenant.agent
     .put("/api/me/texts")
     .set("X-CSRF-Token", tenant.csrf)
-    .send({ mobileNumber: "07700 900123", textsOn: true })
+    .send({ mobileNumber: "07700 900987", textsOn: true })
     .expect(200);
   record("PUT", "/api/me/texts", texts.text);
 
