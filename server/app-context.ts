@@ -28,6 +28,7 @@ import { createSmsProvider, type SmsProvider } from "./modules/sms/sms-provider.
 import { SmsService } from "./modules/sms/sms.service.js";
 import { OrganisationService } from "./modules/organisations/organisation.service.js";
 import { PropertyService } from "./modules/properties/property.service.js";
+import { HomeSearchService } from "./modules/properties/home-search.service.js";
 import { StockImportService } from "./modules/properties/stock-import.service.js";
 import { TenancyService } from "./modules/tenancies/tenancy.service.js";
 import { QueueService } from "./modules/cases/case-queue.service.js";
@@ -73,6 +74,8 @@ export interface Services {
   mail: MailService;
   sms: SmsService;
   properties: PropertyService;
+  /** Homes found by a piece of their address (the queue's search), and its backlog's catch-up job. */
+  homeSearch: HomeSearchService;
   stock: StockImportService;
   queue: QueueService;
   triage: TriageService;
@@ -145,6 +148,7 @@ export function createServices(
   const properties = new PropertyService(dataSource, logger);
   const weather = new WeatherService(dataSource, properties, config.weather, clock, logger);
   const stock = new StockImportService(dataSource, clock, logger);
+  const homeSearch = new HomeSearchService(dataSource, logger);
   const tenancies = new TenancyService(dataSource, properties, clock);
   const users = new UserService(dataSource, clock, config.sessionCacheMs, sessionStore);
   const organisations = new OrganisationService(dataSource);
@@ -201,7 +205,7 @@ export function createServices(
   sensorWatch.useWeather(weather);
   sensorWatch.useTriage(triage);
   triage.useSensorEvidence(sensorWatch);
-  const queue = new QueueService(dataSource, triage, clock);
+  const queue = new QueueService(dataSource, triage, clock, homeSearch);
   const insight = new InsightService(dataSource, triage, clock, complaints);
   const boardReports = new BoardReportService(dataSource, insight, organisations, mail, inspections, clock, logger);
   const digest = new DigestService(dataSource, config, mail, logger, cases, users);
@@ -265,6 +269,7 @@ export function createServices(
     sms,
     photos,
     properties,
+    homeSearch,
     stock,
     queue,
     insight,

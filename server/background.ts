@@ -13,12 +13,14 @@ import { startSensorWatchSweep } from "./modules/sensor-watch/sensor-watch.sweep
 import { startRepeatingJob } from "./lib/repeating-job.js";
 import { purgeExpiredRateLimitHits } from "./middleware/rate-limit-store.js";
 import { startReadingPartitionUpkeep } from "./modules/sensors/reading-partitions.job.js";
+import { startHomeSearchCatchUp } from "./modules/properties/home-search.job.js";
 
 /**
  * Starts the outbox relay, the text relay and the appointment text reminders, the webhook relay, the triage sweep, the deadline digest, the end-of-monitoring
  * reminders, the release of queued invitations (tenancy imports), the monthly board reports, readings
  * over MQTT (the subscriber, and the broker's files brought in step with the registry), the purge of
- * ended rate-limit counts and next months' partitions of the sensor readings;
+ * ended rate-limit counts, next months' partitions of the sensor readings and the search pieces of
+ * imported homes;
  * returns a function that stops them and resolves once any job already running has finished (so
  * shutdown can close the database after it, not under it).
  */
@@ -60,8 +62,11 @@ export function startBackgroundJobs(
   });
   // Next months' partitions of sensor_readings, added before readings reach them (at start, then daily).
   const stopReadingPartitions = startReadingPartitionUpkeep(ctx.services.readingPartitions, ctx.logger, { leases });
+  // Search pieces for the homes a stock import wrote (until then the search tests them one by one).
+  const stopHomeSearch = startHomeSearchCatchUp(ctx.services.homeSearch, ctx.logger, { leases });
   return async () => {
     await Promise.all([
+      stopHomeSearch(),
       stopRateLimitPurge(),
       stopMqtt(),
       stopBoardReports(),

@@ -40,6 +40,7 @@ import { CaseStatusCounts1796462300000 } from "./migrations/1796462300000-CaseSt
 import { QueueCoveringIndexes1796462400000 } from "./migrations/1796462400000-QueueCoveringIndexes.js";
 import { HeatingSupportPolicy1796462600000 } from "./migrations/1796462600000-HeatingSupportPolicy.js";
 import { TextMessages1796462700000 } from "./migrations/1796462700000-TextMessages.js";
+import { HomeSearchPieces1796463000000 } from "./migrations/1796463000000-HomeSearchPieces.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -82,4 +83,5 @@ export const migrations = [
   QueueCoveringIndexes1796462400000,
   HeatingSupportPolicy1796462600000,
   TextMessages1796462700000,
+  HomeSearchPieces1796463000000,
 ];

@@ -11,6 +11,7 @@ import type { Actor } from "../auth/actor.js";
 import type { QueueQuery, QueueSort } from "./case-queue.schemas.js";
 import { Case } from "./case.entity.js";
 import { figuresDue } from "./case.service.js";
+import type { HomeSearchService } from "../properties/home-search.service.js";
 
 /** Works out the stored figures a change or the clock marked stale (the triage module provides it). */
 export interface StaleFiguresRefresher {
@@ -161,6 +162,7 @@ export class QueueService {
     private readonly dataSource: DataSource,
     private readonly figures: StaleFiguresRefresher,
     private readonly clock: Clock,
+    private readonly homeSearch: Pick<HomeSearchService, "matching">,
   ) {}
 
   async list(
@@ -338,19 +340,13 @@ export class QueueService {
 
   /**
    * The landlord's homes whose address, town or postcode hold the search text, found once per request
-   * so the page and its total both filter cases by home id: each used to test every home's three
-   * columns with a collation-aware LIKE of its own (bench:queue, 20 000 homes). The test reads
-   * idx_properties_org_address alone, not the homes' rows. Null when there is no search, or when so
-   * many homes match that a list of ids would cost more than the join.
+   * so the page and its total both filter cases by home id (the properties module's search, through
+   * the homes' three-character pieces). Null when there is no search, or when so many homes match that
+   * a list of ids would cost more than the join.
    */
   private async homesMatching(organisationId: number, q: string | undefined): Promise<number[] | null> {
     if (!q) return null;
-    const { like, compact } = searchPatterns(q);
-    const rows = (await this.dataSource.query(
-      "SELECT p.id AS id FROM properties p WHERE p.organisation_id = ? AND (p.address_line1 LIKE ? OR p.town LIKE ? OR REPLACE(p.postcode, ' ', '') LIKE ?) LIMIT ?",
-      [organisationId, like, like, compact, MAX_SEARCH_HOMES + 1],
-    )) as { id: number | string }[];
-    return rows.length > MAX_SEARCH_HOMES ? null : rows.map((r) => Number(r.id));
+    return this.homeSearch.matching(organisationId, q, MAX_SEARCH_HOMES);
   }
 
   /** Adds the WHERE clauses; says whether any of them needs the home (`p`). `homes`: the homes matching `q` (homesMatching). */

@@ -37,6 +37,7 @@ import { readTableHead, tableRowChunks, type TableHead } from "../../lib/table-f
 import { parse } from "../../lib/validation.js";
 import { StockImport } from "./stock-import.entity.js";
 import { beginHookedTransaction } from "../../lib/transaction.js";
+import { HomeSearchService, idRanges, type IdRange } from "./home-search.service.js";
 
 export const BATCH_ROWS = 5_000;
 /** How long an import waits for another import of the same landlord to finish. */
@@ -264,13 +265,17 @@ function displayFileName(name: string): string {
 }
 
 export class StockImportService {
+  private readonly homeSearch: HomeSearchService;
+
   constructor(
     private readonly dataSource: DataSource,
     private readonly clock: Clock,
     private readonly logger?: Logger,
     private readonly batchRows = BATCH_ROWS,
     private readonly loadSegmentRows = LOAD_SEGMENT_ROWS,
-  ) {}
+  ) {
+    this.homeSearch = new HomeSearchService(dataSource, logger);
+  }
 
   async preview(filePath: string): Promise<StockImportPreview> {
     const head = await readTableHead(filePath);
@@ -345,7 +350,19 @@ export class StockImportService {
         try {
           // The request's Idempotency-Key commits with the import, or not at all.
           settle = await beginHookedTransaction(runner.manager);
-          const counts = await this.importRows(raw, head, mapping, org, input);
+          // The homes written go to the search's backlog in this transaction instead of each firing
+          // the search triggers (HomeSearchService.bulkWrite: 23 s instead of 1.5 s for 100 000 homes).
+          const before = await db.query<RowDataPacket[]>("SELECT COALESCE(MAX(id), 0) AS id FROM properties");
+          const imported = await this.homeSearch.bulkWrite(
+            (sql, params) => db.query(sql, params),
+            org,
+            async () => {
+              const result = await this.importRows(raw, head, mapping, org, input);
+              return { result, wrote: () => this.writtenHomes(db, org, Number(before[0][0]?.id ?? 0), result.updatedIds) };
+            },
+          );
+          const { created, updated, unchanged, refused, report } = imported;
+          const counts = { created, updated, unchanged, refused, report };
           const record = runner.manager.getRepository(StockImport).create({
             organisationId: org,
             uploadedById: actor.id,
@@ -427,7 +444,7 @@ export class StockImportService {
     mapping: StockMapping,
     org: number,
     input: StockImportInput,
-  ): Promise<{ created: number; updated: number; unchanged: number; refused: number; report: string }> {
+  ): Promise<{ created: number; updated: number; unchanged: number; refused: number; report: string; updatedIds: number[] }> {
     const db = raw.promise();
     const convert = stockRowConverter(mapping, head.headers, this.clock.now().getUTCFullYear());
     const held = await this.heldHomes(raw, org);
@@ -566,7 +583,31 @@ export class StockImportService {
     for (let i = 0; i < newRooms.length; i += BATCH_ROWS) {
       await db.execute<ResultSetHeader>(ROOMS_SQL, [JSON.stringify(newRooms.slice(i, i + BATCH_ROWS)), org]);
     }
-    return { ...counts, report: `line,uprn,outcome,changed,details\n${report.join("\n")}\n` };
+    return {
+      ...counts,
+      report: `line,uprn,outcome,changed,details\n${report.join("\n")}\n`,
+      updatedIds: updates.map((u) => Number(u[0])),
+    };
+  }
+
+  /**
+   * The homes an import wrote, for the search's backlog: the new ones (ids above the highest before it,
+   * as one run: other landlords' homes inside it are passed over by the search and its catch-up) and
+   * the updated ones.
+   */
+  private async writtenHomes(
+    db: ReturnType<PoolConnection["promise"]>,
+    org: number,
+    highestBefore: number,
+    updatedIds: readonly number[],
+  ): Promise<IdRange[]> {
+    const [[added]] = await db.query<RowDataPacket[]>(
+      "SELECT MIN(id) AS first, MAX(id) AS last FROM properties WHERE organisation_id = ? AND id > ?",
+      [org, highestBefore],
+    );
+    const ranges = idRanges(updatedIds);
+    if (added?.first != null) ranges.push({ first: Number(added.first), last: Number(added.last) });
+    return ranges;
   }
   /** LOAD DATA LOCAL skipped or altered rows (a duplicate UPRN, a value a column refused): fail the import. */
   private async loadFailed(db: ReturnType<PoolConnection["promise"]>, sent: number, loaded: ResultSetHeader): Promise<never> {
