@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { CASE_STATUSES, OPEN_CASE_STATUSES, type CaseStatus } from "../../../src/lib/domain/case-workflow.js";
 import { BANDS } from "../../../src/lib/domain/hhsrs.js";
-import { exportFormatSchema, queueColumnsSchema } from "../../../src/lib/contracts/exports.js";
+import { exportFormatSchema, queueColumnsSchema } from "../../../src/lib/contracts/export-query.js";
 
 export const QUEUE_SORTS = [
   "reference",

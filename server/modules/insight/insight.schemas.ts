@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { exportFormatSchema } from "../../../src/lib/contracts/exports.js";
+import { exportFormatSchema } from "../../../src/lib/contracts/export-query.js";
 import { INSIGHT_TABLES } from "../../../src/lib/contracts/insight.js";
 
 const isoDate = (field: string) =>

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { idParam } from "../../lib/validation.js";
-import { exportFormatSchema } from "../../../src/lib/contracts/exports.js";
+import { exportFormatSchema } from "../../../src/lib/contracts/export-query.js";
 
 export const propertyListQuerySchema = z.object({
   q: z.string().trim().max(100).optional(),

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { airTemperatureC, outdoorTemperatureC, surfaceTemperatureC } from "../../../src/lib/schemas/psychrometrics.js";
 import { idParam } from "../../lib/validation.js";
-import { exportFormatSchema } from "../../../src/lib/contracts/exports.js";
+import { exportFormatSchema } from "../../../src/lib/contracts/export-query.js";
 
 const rh = z
   .number({ error: "relativeHumidityPct must be a number in %." })

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { ROLES } from "./user.entity.js";
-import { exportFormatSchema } from "../../../src/lib/contracts/exports.js";
+import { exportFormatSchema } from "../../../src/lib/contracts/export-query.js";
 
 export const userListQuerySchema = z.object({
   role: z.enum(ROLES).optional(),

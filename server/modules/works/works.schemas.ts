@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { SLOT_WINDOWS, WORK_ORDER_PRIORITIES, WORK_ORDER_STATUSES, WORK_ORDER_TYPES } from "./work-order.entity.js";
 import { idParam } from "../../lib/validation.js";
-import { exportFormatSchema } from "../../../src/lib/contracts/exports.js";
+import { exportFormatSchema } from "../../../src/lib/contracts/export-query.js";
 
 const isoDate = (field: string) =>
   z

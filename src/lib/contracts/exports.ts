@@ -2,7 +2,8 @@
 // them, with the same headings: one list per view, read by the server's export and by the tables.
 // Values come from the same response shapes the tables show, and stored codes are written in the
 // words the screen shows (the one map of each, in src/lib), so an export holds what the screen holds.
-import { z } from "zod";
+// No zod here: the queue's column headings load with the queue page, and its query schemas are the
+// server's (export-query.ts).
 import {
   areaLabels,
   channelLabels,
@@ -36,9 +37,6 @@ export interface ExportColumn<T> {
   header: string;
   value: (row: T) => ExportCell;
 }
-
-/** `format=csv|xlsx` (csv when left out), shared by every export route. */
-export const exportFormatSchema = z.enum(EXPORT_FORMATS, { error: "format must be csv or xlsx." }).default("csv");
 
 // ── The officers' queue ────────────────────────────────────────────────────────────────────────────
 
@@ -119,24 +117,6 @@ export function queueExportColumns(
     value: values[id],
   }));
 }
-
-/** `columns=` of the queue's export: a comma list of column ids (unknown ids are refused). */
-export const queueColumnsSchema = z
-  .string()
-  .trim()
-  .transform((raw, ctx) => {
-    if (raw === "none") return [];
-    const given = raw
-      .split(",")
-      .map((v) => v.trim())
-      .filter(Boolean);
-    const strange = given.filter((v) => !(QUEUE_COLUMN_IDS as readonly string[]).includes(v));
-    if (strange.length) {
-      ctx.addIssue({ code: "custom", message: `columns: ${strange.join(", ")} is not one of ${QUEUE_COLUMN_IDS.join(", ")}.` });
-      return z.NEVER;
-    }
-    return given as QueueColumnId[];
-  });
 
 // ── Homes, work orders, accounts, a case's readings ─────────────────────────────────────────────────
 

@@ -5,7 +5,7 @@ import { ConfirmDialog } from "@/components/ui/dialog";
 import { Select, Textarea } from "@/components/ui/field";
 import { roleLabels, type Role } from "@/lib/roles";
 import { canTransition, movesValidForAll } from "@/lib/domain/case-workflow";
-import { CASE_STATUSES, type CaseStatus } from "@/lib/schemas/case-report";
+import { CASE_STATUSES, type CaseStatus } from "@/lib/domain/case-workflow";
 import type { BulkUpdateResult, QueueItem, StaffMember } from "../api/types";
 import { casesCount } from "../lib/labels";
 

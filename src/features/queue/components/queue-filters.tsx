@@ -3,7 +3,7 @@ import { Button } from "@/components/ui/button";
 import { controlClasses } from "@/components/ui/field";
 import { SearchField } from "@/components/ui/search-field";
 import { cn } from "@/lib/cn";
-import { CASE_STATUSES, type CaseStatus } from "@/lib/schemas/case-report";
+import { CASE_STATUSES, type CaseStatus } from "@/lib/domain/case-workflow";
 import type { StaffMember } from "../api/types";
 import type { QueueTableParams } from "../hooks/use-queue-table-params";
 import { categoryLabels, riskLabels } from "../lib/labels";

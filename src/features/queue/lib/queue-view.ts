@@ -1,6 +1,6 @@
 // The queue's whole view (filters, sort, page, shown columns) as it is written in the URL, read
 // back from it and sent to GET /api/cases. Pure functions, so a link always opens the same view.
-import { CASE_STATUSES, type CaseStatus } from "@/lib/schemas/case-report";
+import { CASE_STATUSES, type CaseStatus } from "@/lib/domain/case-workflow";
 import { readPositiveInt, readString } from "@/lib/search-params";
 
 export const QUEUE_DEFAULT_PAGE_SIZE = 25;
