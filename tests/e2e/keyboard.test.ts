@@ -7,6 +7,7 @@
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
+import { AxeBuilder } from "@axe-core/playwright";
 import type { Locator, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, type Browser } from "../support/browser.js";
@@ -91,6 +92,16 @@ async function tabTo(page: Page, target: Locator, { back = false, max = 250 } = 
     expect({ tabbedTo: state.on, visible: state.visible }).toEqual({ tabbedTo: state.on, visible: true });
   }
   throw new Error(`Tab never reached ${String(target)}`);
+}
+
+/** axe-core (WCAG 2.0–2.2 A and AA) on an open dialog: nothing serious or critical. */
+async function expectAccessibleDialog(page: Page, where: string): Promise<void> {
+  const scan = await new AxeBuilder({ page })
+    .withTags(["wcag2a", "wcag2aa", "wcag21a", "wcag21aa", "wcag22aa"])
+    .include("dialog[open]")
+    .analyze();
+  const bad = scan.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+  expect(bad.map((v) => `${where}: ${v.id} → ${v.nodes.map((n) => n.target.join(" ")).join(", ")}`)).toEqual([]);
 }
 
 /** Signs in by keyboard alone from the sign-in page. */
@@ -327,6 +338,7 @@ describe("keyboard-only journeys", () => {
     const picker = page.getByRole("dialog", { name: "Book this free slot" });
     await picker.waitFor();
     await expectVisibleFocus(page, "opening the free slot");
+    await expectAccessibleDialog(page, "Book this free slot");
     const order = picker.getByRole("radio", { name: new RegExp(`^${created.reference}: `) });
     await tabTo(page, picker.getByRole("radio").first());
     await page.keyboard.press("Space");
@@ -341,6 +353,7 @@ describe("keyboard-only journeys", () => {
     const dialog = page.getByRole("dialog", { name: `Schedule ${created.reference}` });
     await dialog.waitFor();
     await expectVisibleFocus(page, "opening the schedule");
+    await expectAccessibleDialog(page, "Schedule");
     await tabTo(page, dialog.getByRole("button", { name: "Book the visit" }));
     await page.keyboard.press("Enter");
     await page.getByText(`${created.reference} is booked`).waitFor();
