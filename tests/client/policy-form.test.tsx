@@ -104,7 +104,11 @@ describe("the deadline policy page", () => {
 
     // The server's own limit (72 hours), shown at the field; nothing is saved.
     await waitFor(() => expect(hours).toHaveAccessibleDescription(/Must be at most 72 hours\./));
-    expect(screen.getByRole("alert")).toHaveTextContent("Your timeframes were not saved");
+    // Two alerts: the form's and the field's own (field errors are announced as they appear).
+    expect(screen.getAllByRole("alert").map((a) => a.textContent)).toEqual([
+      expect.stringContaining("Your timeframes were not saved"),
+      expect.stringContaining("Must be at most 72 hours."),
+    ]);
     expect(hours).toHaveAttribute("aria-invalid", "true");
     expect(screen.getByText("The England default is in force")).toBeInTheDocument();
 

@@ -29,7 +29,11 @@ export function buttonClasses(variant: ButtonVariant = "primary", size: ButtonSi
 export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   variant?: ButtonVariant;
   size?: ButtonSize;
-  /** Shows a spinner and blocks a second press, keeping the label for screen readers. */
+  /**
+   * Shows a spinner and blocks a second press, keeping the label for screen readers. The button stays
+   * focusable while busy (aria-disabled, not disabled): disabling the focused button would drop keyboard
+   * focus to the page's start (WCAG 2.4.3).
+   */
   busy?: boolean;
   ref?: Ref<HTMLButtonElement>;
 }
@@ -42,14 +46,19 @@ export function Button({
   children,
   disabled,
   type = "button",
+  onClick,
   ...props
 }: ButtonProps) {
   return (
     <button
       type={type}
       className={buttonClasses(variant, size, className)}
-      disabled={disabled || busy}
+      disabled={disabled}
+      aria-disabled={busy || undefined}
       aria-busy={busy || undefined}
+      // A press while busy does nothing; an Enter in a field of the form presses the submit button too,
+      // so this also stops a second submission.
+      onClick={busy ? (event) => event.preventDefault() : onClick}
       {...props}
     >
       {busy ? <Spinner size="sm" label="" /> : null}

@@ -181,12 +181,14 @@ export function Textarea({
 
 /**
  * A field's error message as a tag: a rounded rust-tinted label with a droplet-and-mark icon, so it
- * does not rely on colour alone (rust-700 on rust-50 6.0:1).
+ * does not rely on colour alone (rust-700 on rust-50 6.0:1). It is an alert, so a screen reader says it
+ * as it appears (WCAG 4.1.3), and the control names it in aria-describedby (3.3.1).
  */
 export function FieldError({ id, children }: { id: string; children: ReactNode }) {
   return (
     <p
       id={id}
+      role="alert"
       className="flex items-start gap-1.5 self-start rounded-md bg-rust-50 px-2.5 py-1 text-sm font-semibold text-rust-700 ring-1 ring-rust-600/40"
     >
       <svg viewBox="0 0 16 16" className="mt-0.5 size-4 shrink-0" aria-hidden="true" focusable="false">

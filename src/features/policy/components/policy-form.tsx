@@ -1,5 +1,5 @@
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useId, useState } from "react";
+import { useEffect, useId, useRef, useState } from "react";
 import { useForm } from "react-hook-form";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -64,6 +64,12 @@ function PolicyEditor({
     formState: { errors },
   } = useForm<PolicyFormValues>({ resolver: zodResolver(policyFormSchema), defaultValues: toFormValues(policy) });
   const own = policy.source === "landlord";
+  // Saving starts the form afresh from the server's answer (a new key), which takes away the button that
+  // had focus: focus goes to the notice saying what happened, not to the page's start (WCAG 2.4.3).
+  const noticeRef = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (notice) noticeRef.current?.focus();
+  }, [notice]);
 
   const onSubmit = handleSubmit((values) => {
     onNotice(null);
@@ -108,7 +114,11 @@ function PolicyEditor({
           : "These are the timeframes for social-housing landlords in England. Change any of them and save to set your own."}
       </Alert>
 
-      {notice ? <Alert tone={notice.tone}>{notice.text}</Alert> : null}
+      {notice ? (
+        <div ref={noticeRef} tabIndex={-1}>
+          <Alert tone={notice.tone}>{notice.text}</Alert>
+        </div>
+      ) : null}
 
       <form onSubmit={onSubmit} noValidate aria-describedby={noteId} className="flex flex-col gap-5">
         {update.isError ? (

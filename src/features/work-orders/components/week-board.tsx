@@ -1,4 +1,4 @@
-import { createContext, use, useId, useState, type ReactNode } from "react";
+import { createContext, use, useEffect, useId, useRef, useState, type ReactNode } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -159,6 +159,15 @@ export function WeekBoard() {
   const [freeSlot, setFreeSlot] = useState<FreeSlot | null>(null);
   const [booking, setBooking] = useState<{ order: WorkOrder; preset: SlotPreset } | null>(null);
   const [booked, setBooked] = useState<WorkOrder | null>(null);
+  // The booking dialogs close onto a free slot that is no longer free (their opener is gone), which left
+  // keyboard focus at the page's start: it goes to the notice saying what was booked (WCAG 2.4.3).
+  const bookedRef = useRef<HTMLDivElement>(null);
+  const justBooked = useRef(false);
+  useEffect(() => {
+    if (!justBooked.current || !booked || booking) return;
+    justBooked.current = false;
+    bookedRef.current?.focus();
+  }, [booked, booking]);
   const rows = boardRows(staff.data, items);
   const caption = `Bookings for the week of ${formatLongDate(week.monday)}`;
 
@@ -269,9 +278,11 @@ export function WeekBoard() {
           </p>
         </nav>
         {booked ? (
-          <Alert tone="success" title={`${orderReference(booked)} is booked`}>
-            The tenant gets an e-mail with the day and time and is asked to confirm it.
-          </Alert>
+          <div ref={bookedRef} tabIndex={-1}>
+            <Alert tone="success" title={`${orderReference(booked)} is booked`}>
+              The tenant gets an e-mail with the day and time and is asked to confirm it.
+            </Alert>
+          </div>
         ) : null}
         {body}
         <SlotOrderPicker
@@ -287,7 +298,10 @@ export function WeekBoard() {
           order={booking?.order ?? null}
           preset={booking?.preset}
           onClose={() => setBooking(null)}
-          onScheduled={setBooked}
+          onScheduled={(order) => {
+            justBooked.current = true;
+            setBooked(order);
+          }}
         />
       </div>
     </BookSlotContext>
