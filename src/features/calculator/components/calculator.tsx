@@ -134,7 +134,7 @@ export function Calculator() {
           <p className="text-sm text-ink-soft">{t("form.surfaceIntro")}</p>
           <Input
             label={t("form.withUnit", { label: t("field.surfaceTemperatureC"), unit: "°C" })}
-            optional
+            optional={t("form.optional")}
             hint={t("form.surfaceHint")}
             autoComplete="off"
             spellCheck={false}
@@ -143,7 +143,7 @@ export function Calculator() {
           />
           <Input
             label={t("form.withUnit", { label: t("field.outdoorTemperatureC"), unit: "°C" })}
-            optional
+            optional={t("form.optional")}
             hint={t("form.outdoorHint")}
             autoComplete="off"
             spellCheck={false}
@@ -152,7 +152,7 @@ export function Calculator() {
           />
           <Select
             label={t("field.element")}
-            optional
+            optional={t("form.optional")}
             hint={
               <>
                 {t("form.elementHint")}

@@ -188,7 +188,7 @@ export function HandReadingForm({
         />
         <Input
           label={t("reading.surface")}
-          optional
+          optional={t("form.optional")}
           ref={surfaceRef}
           onKeyDown={onKeyDown}
           autoComplete="off"
@@ -199,7 +199,7 @@ export function HandReadingForm({
         />
         <Input
           label={t("reading.outdoor")}
-          optional
+          optional={t("form.optional")}
           ref={outdoorRef}
           onKeyDown={onKeyDown}
           autoComplete="off"
