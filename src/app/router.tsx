@@ -1,7 +1,7 @@
 import type { QueryClient } from "@tanstack/react-query";
 import { createBrowserRouter, redirect, RouterProvider, type LoaderFunction, type RouteObject } from "react-router-dom";
 import { RootRouteError, RouteError } from "@/components/errors/route-error";
-import { WaitingOnThisDevice } from "@/features/report/components/waiting-reports";
+import { WaitingOnThisDevice } from "@/features/report/components/waiting-on-this-device";
 import { LoadingState } from "@/components/ui/spinner";
 import { meQueryOptions } from "@/features/auth/api/get-me";
 import { RoleGate, signInPath } from "@/features/auth/components/role-gate";

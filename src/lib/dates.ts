@@ -207,3 +207,26 @@ export function londonLocalToIso(value: string): string | null {
   const utc = converter.toUtc(wall);
   return Number.isNaN(utc) ? null : new Date(utc).toISOString();
 }
+
+const dateTimeByLanguage = new Map<string, Format>();
+
+/**
+ * "15 Jan 2026, 09:05" (English) or "15 Ion 2026, 09:05" (Welsh): formatDateTime in the reader's
+ * language, still London time. The pseudo-locales read English dates, as their text is English underneath.
+ */
+export function formatDateTimeIn(lng: string, iso: string | null | undefined): string {
+  const locale = lng === "en-XA" || lng === "ar-XB" ? "en-GB" : lng;
+  let format = dateTimeByLanguage.get(locale);
+  if (!format) {
+    format = lazyFormat(locale, {
+      timeZone: LONDON,
+      day: "numeric",
+      month: "short",
+      year: "numeric",
+      hour: "2-digit",
+      minute: "2-digit",
+    });
+    dateTimeByLanguage.set(locale, format);
+  }
+  return showInstant(format)(iso);
+}

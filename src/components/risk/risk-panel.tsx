@@ -1,10 +1,38 @@
 // The risk engine's answer for one reading, in words and numbers. Presentational only: the
 // calculator, the tenant's report and the officer's case view each pass it a result.
+import type { TFunction } from "i18next";
 import { useId, type ReactNode } from "react";
-import { CRITICAL_TEMPERATURE_FACTOR, type PointResult, type SurfaceResult, type SurfaceState } from "@/lib/domain";
-import { celsius, factor, fixed, surfaceHumidity as surfaceHumidityWords } from "@/lib/domain/wording";
+import { useTranslation } from "react-i18next";
+import {
+  BORDERLINE_SURFACE_RH_PCT,
+  CRITICAL_TEMPERATURE_FACTOR,
+  MOULD_SURFACE_RH_PCT,
+  type PointResult,
+  type SurfaceResult,
+  type SurfaceState,
+} from "@/lib/domain";
+import { factor, fixed } from "@/lib/domain/wording";
 import { cn } from "@/lib/cn";
-import { STATE_LABELS, SURFACE_SOURCE_LABELS } from "@/lib/surface-state-labels";
+import { i18n } from "@/lib/i18n/i18n";
+
+// Numbers are rounded half up on the decimal value first (src/lib/domain/wording.ts), then written the
+// reader's way by ICU, so every language shows the same figure.
+export const celsiusIn = (t: TFunction, value: number) => t("risk:panel.celsius", { value: Number(fixed(value, 1)) });
+const factorIn = (t: TFunction, value: number) => t("risk:panel.factorValue", { value: Number(factor(value)) });
+
+/** Above 100 % the surface is below the dew point: said as condensing, never as a percentage. */
+export const surfaceHumidityIn = (t: TFunction, value: number) =>
+  value > 100 ? t("risk:panel.condensingValue") : t("risk:panel.percent", { value: Number(fixed(value, 0)) });
+
+/** A surface state's badge text, one-line summary and longer explanation in the reader's language. */
+export function stateWords(t: TFunction, state: SurfaceState) {
+  const values = { mould: MOULD_SURFACE_RH_PCT, borderline: BORDERLINE_SURFACE_RH_PCT };
+  return {
+    label: t(`risk:state.${state}.label`),
+    summary: t(`risk:state.${state}.summary`),
+    explanation: t(`risk:state.${state}.explanation`, values),
+  };
+}
 
 export interface RiskPanelProps {
   result: PointResult;
@@ -25,9 +53,10 @@ const badgeTones: Record<SurfaceState, string> = {
 };
 
 export function RiskPanel({ result, title, headingLevel = 2, compact = false, className }: RiskPanelProps) {
+  const { t } = useTranslation("risk", { i18n });
   const headingId = useId();
   const { surface } = result;
-  const state = STATE_LABELS[surface.state];
+  const state = stateWords(t, surface.state);
   const Heading = headingLevel === 2 ? "h2" : "h3";
   const Tag = title ? "section" : "div";
 
@@ -56,15 +85,11 @@ export function RiskPanel({ result, title, headingLevel = 2, compact = false, cl
         <StateIcon state={surface.state} className={cn("shrink-0", compact ? "size-6" : "size-8")} />
         <div className="flex flex-col gap-0.5">
           <p className={cn("font-bold", compact ? "text-base" : "text-lg")}>
-            <span className="sr-only">Surface state: </span>
-            <span>{surface.source === "estimated" ? `${state.label} (estimate)` : state.label}</span>
+            <span className="sr-only">{t("panel.surfaceState")}</span>
+            <span>{surface.source === "estimated" ? t("panel.estimateLabel", { label: state.label }) : state.label}</span>
           </p>
           <p className={compact ? "text-sm" : undefined}>{state.summary}</p>
-          {surface.source === "estimated" ? (
-            <p className={compact ? "text-sm" : undefined}>
-              An estimate from the home&apos;s construction and the outdoor temperature: no surface temperature was measured.
-            </p>
-          ) : null}
+          {surface.source === "estimated" ? <p className={compact ? "text-sm" : undefined}>{t("panel.estimateNote")}</p> : null}
         </div>
       </div>
       {compact ? null : <p className="text-ink-soft">{state.explanation}</p>}
@@ -75,35 +100,37 @@ export function RiskPanel({ result, title, headingLevel = 2, compact = false, cl
           compact ? "grid-cols-1 gap-y-1 text-sm sm:grid-cols-2" : "grid-cols-1 gap-y-3 sm:grid-cols-2",
         )}
       >
-        <Figure term="Dew point" value={celsius(result.dewPointC)}>
-          {compact ? null : "Any surface colder than this gets wet."}
+        <Figure term={t("panel.dewPoint")} value={celsiusIn(t, result.dewPointC)}>
+          {compact ? null : t("panel.dewPointHint")}
         </Figure>
-        <Figure term="Surface temperature" value={celsius(surface.temperatureC)}>
-          {capitalise(SURFACE_SOURCE_LABELS[surface.source])}.{" "}
-          {compact ? null : dewPointGap(surface.temperatureC, result.dewPointC)}
+        <Figure term={t("panel.surfaceTemperature")} value={celsiusIn(t, surface.temperatureC)}>
+          {t(`source.${surface.source}`)}. {compact ? null : dewPointGap(t, surface.temperatureC, result.dewPointC)}
         </Figure>
-        <Figure term="Relative humidity at the surface" value={surfaceHumidity(surface)}>
-          {surface.relativeHumidityPct >= 100 ? "The air at the surface can hold no more water." : null}
+        <Figure term={t("panel.surfaceHumidity")} value={surfaceHumidityIn(t, surface.relativeHumidityPct)}>
+          {surface.relativeHumidityPct >= 100 ? t("panel.saturated") : null}
         </Figure>
         {surface.temperatureFactor !== undefined ? (
-          <Figure term="Temperature factor" value={factor(surface.temperatureFactor)}>
-            {temperatureFactorWords(surface)}
+          <Figure term={t("panel.temperatureFactor")} value={factorIn(t, surface.temperatureFactor)}>
+            {temperatureFactorWords(t, surface)}
           </Figure>
         ) : null}
-        <Figure term="Absolute humidity" value={`${fixed(result.absoluteHumidityGPerM3, 1)} g/m³`}>
-          {compact ? null : "Grams of water vapour in each cubic metre of room air."}
+        <Figure
+          term={t("panel.absoluteHumidity")}
+          value={t("panel.gramsPerCubicMetre", { value: Number(fixed(result.absoluteHumidityGPerM3, 1)) })}
+        >
+          {compact ? null : t("panel.absoluteHumidityHint")}
         </Figure>
       </dl>
 
       {result.reasons.length ? (
         compact ? (
           <details className="text-sm">
-            <summary className="cursor-pointer rounded-sm font-semibold text-dew-700">Why this result</summary>
+            <summary className="cursor-pointer rounded-sm font-semibold text-dew-700">{t("panel.why")}</summary>
             <Reasons reasons={result.reasons} />
           </details>
         ) : (
           <div>
-            <p className="font-bold">Why this result</p>
+            <p className="font-bold">{t("panel.why")}</p>
             <Reasons reasons={result.reasons} />
           </div>
         )
@@ -134,32 +161,20 @@ function Reasons({ reasons }: { reasons: readonly string[] }) {
   );
 }
 
-/** The engine keeps the raw ratio (above 100 below the dew point); the shared helper says that as condensing. */
-function surfaceHumidity(surface: SurfaceResult): string {
-  return surfaceHumidityWords(surface.relativeHumidityPct);
-}
-
-function dewPointGap(surfaceC: number, dewPointC: number): string {
+function dewPointGap(t: TFunction, surfaceC: number, dewPointC: number): string {
   const gap = surfaceC - dewPointC;
-  const size = `${fixed(Math.abs(gap), 1)} °C`;
-  if (size === "0.0 °C") return "At the dew point.";
-  return gap < 0 ? `${size} colder than the dew point.` : `${size} warmer than the dew point.`;
+  if (fixed(Math.abs(gap), 1) === "0.0") return t("risk:panel.atDewPoint");
+  const size = celsiusIn(t, Math.abs(gap));
+  return gap < 0 ? t("risk:panel.colder", { gap: size }) : t("risk:panel.warmer", { gap: size });
 }
 
-function temperatureFactorWords(surface: SurfaceResult): string {
+function temperatureFactorWords(t: TFunction, surface: SurfaceResult): string {
   const value = surface.temperatureFactor ?? 0;
-  const basis =
-    surface.source === "estimated"
-      ? "Typical for the element chosen, on a scale from as cold as outdoors (0) to as warm as the room (1)"
-      : "From the temperatures given, on a scale from as cold as outdoors (0) to as warm as the room (1)";
+  const basis = t(surface.source === "estimated" ? "risk:panel.factorEstimated" : "risk:panel.factorMeasured");
   // Compare the value as shown, so "0.75" never reads as below 0.75.
   const meets = Number(factor(value)) >= CRITICAL_TEMPERATURE_FACTOR;
-  return meets
-    ? `${basis}. At or above the ${CRITICAL_TEMPERATURE_FACTOR} that BRE IP 1/06 asks of surfaces in homes.`
-    : `${basis}. Below the ${CRITICAL_TEMPERATURE_FACTOR} that BRE IP 1/06 asks of surfaces in homes: it runs cold when it is cold outside.`;
+  return `${basis} ${t(meets ? "risk:panel.factorMeets" : "risk:panel.factorBelow", { critical: CRITICAL_TEMPERATURE_FACTOR })}`;
 }
-
-const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
 /** Our own icons, one shape per state so the badge reads without colour. */
 function StateIcon({ state, className }: { state: SurfaceState; className?: string }) {

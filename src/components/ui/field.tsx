@@ -22,7 +22,8 @@ interface FieldShellProps {
   error?: string;
   /** Hides the label visually (it is still the control's accessible name). */
   hideLabel?: boolean;
-  optional?: boolean;
+  /** Says the field may be left empty; a string is that word in the page's language (English "optional" by default). */
+  optional?: boolean | string;
   className?: string;
   children: ReactNode;
 }
@@ -41,7 +42,7 @@ export function FieldShell({ id, label, hint, error, hideLabel, optional, classN
     <div className={cn("flex flex-col gap-1", className)}>
       <label htmlFor={id} className={cn("font-semibold text-ink", hideLabel && "sr-only")}>
         {label}
-        {optional ? <span className="font-normal text-ink-soft"> (optional)</span> : null}
+        {optional ? <span className="font-normal text-ink-soft"> ({optional === true ? "optional" : optional})</span> : null}
       </label>
       {hint ? (
         <p id={hintId(id)} className="text-sm text-ink-soft">
@@ -59,7 +60,8 @@ interface CommonFieldProps {
   hint?: ReactNode;
   error?: string;
   hideLabel?: boolean;
-  optional?: boolean;
+  /** Says the field may be left empty; a string is that word in the page's language (English "optional" by default). */
+  optional?: boolean | string;
   /** Classes for the wrapper (label, hint, error and control). */
   className?: string;
   controlClassName?: string;

@@ -1,5 +1,6 @@
 // The calculator form over the API's own schema: the fields arrive as text, so this layer only
 // turns text into numbers (or "not given") and the API schema keeps the ranges and messages.
+import type { TFunction } from "i18next";
 import { z } from "zod";
 import { evaluatePointSchema } from "@/lib/schemas/psychrometrics";
 import type { ElementId } from "@/lib/domain";
@@ -44,18 +45,32 @@ export const EXAMPLE_FORM: CalculatorFormValues = {
   surfaceTemperatureC: "9",
 };
 
-export const FIELD_LABELS: Record<CalculatorField, string> = {
-  airTemperatureC: "Room temperature",
-  relativeHumidityPct: "Relative humidity",
-  surfaceTemperatureC: "Surface temperature",
-  outdoorTemperatureC: "Outdoor temperature",
-  element: "Building element",
-};
+/** The ranges of src/lib/schemas/psychrometrics.ts, for saying them (the schema checks them). */
+const RANGES = {
+  airTemperatureC: { min: -20, max: 50, unit: "°C" },
+  relativeHumidityPct: { min: 0, max: 100, unit: "%" },
+  surfaceTemperatureC: { min: -30, max: 50, unit: "°C" },
+  outdoorTemperatureC: { min: -30, max: 40, unit: "°C" },
+} as const;
 
-/** The schema speaks in API field names ("relativeHumidityPct must be…"); the form says "Relative humidity must be…". */
-export function fieldMessage(field: CalculatorField, message: string | undefined): string | undefined {
-  if (!message) return undefined;
-  return message.startsWith(field) ? FIELD_LABELS[field] + message.slice(field.length) : message;
+/**
+ * The schema speaks English in API field names ("relativeHumidityPct must be…"); the form says the same
+ * rule in the reader's language with the field's own label ("Relative humidity must be…"), from the kind
+ * of problem the schema found. `calculator:field.<name>` holds the labels.
+ */
+export function fieldMessage(
+  t: TFunction,
+  field: CalculatorField,
+  error: { type?: string | number; message?: string } | undefined,
+): string | undefined {
+  if (!error) return undefined;
+  if (field === "element") return error.message;
+  const { min, max, unit } = RANGES[field];
+  const values = { field: t(`calculator:field.${field}`), min, max, unit };
+  if (error.type === "too_big") return t("calculator:errors.atMost", values);
+  if (error.type === "too_small")
+    return t(field === "relativeHumidityPct" ? "calculator:errors.moreThan" : "calculator:errors.atLeast", values);
+  return t("calculator:errors.notNumber", values);
 }
 
 export const REQUIRED_FIELDS = ["airTemperatureC", "relativeHumidityPct"] as const satisfies readonly CalculatorField[];

@@ -1,16 +1,16 @@
+import { useTranslation } from "react-i18next";
 import { SafetyCautions } from "@/components/risk/cautions";
 import { PageHeader } from "@/components/ui/page-header";
 import { AboutTheNumbers } from "@/features/calculator/components/about-the-numbers";
 import { Calculator } from "@/features/calculator/components/calculator";
+import { i18n } from "@/lib/i18n/i18n";
 
 export default function CalculatorPage() {
+  const { t } = useTranslation("calculator", { i18n });
   return (
     <>
-      <title>Dew point calculator · Dewline</title>
-      <PageHeader
-        title="Dew point and surface humidity calculator"
-        description="Enter a room's temperature and humidity to see its dew point, and how damp the air is at a cold window or wall."
-      />
+      <title>{t("page.documentTitle")}</title>
+      <PageHeader title={t("page.title")} description={t("page.description")} />
       <div className="flex flex-col gap-10">
         <Calculator />
         <AboutTheNumbers />

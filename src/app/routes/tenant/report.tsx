@@ -1,5 +1,6 @@
 import { useQueryClient, type QueryClient } from "@tanstack/react-query";
 import { useState } from "react";
+import { useTranslation } from "react-i18next";
 import { useNavigate } from "react-router-dom";
 import { SafetyCautions } from "@/components/risk/cautions";
 import { Alert } from "@/components/ui/alert";
@@ -15,6 +16,7 @@ import { WaitingReports } from "@/features/report/components/waiting-reports";
 import { useKeptReports } from "@/features/report/hooks/use-report-queue";
 import { Button } from "@/components/ui/button";
 import { ApiError, errorMessage } from "@/lib/api-client";
+import { i18n } from "@/lib/i18n/i18n";
 
 export const clientLoader = (queryClient: QueryClient) => async () => {
   if (await signedInAs(queryClient, ["tenant"])) void queryClient.prefetchQuery(myHomeQueryOptions());
@@ -22,6 +24,7 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
 };
 
 export default function ReportPage() {
+  const { t } = useTranslation("report", { i18n });
   const user = useUser();
   const home = useMyHome();
   const navigate = useNavigate();
@@ -42,21 +45,14 @@ export default function ReportPage() {
 
   return (
     <>
-      <title>Report damp or mould · Dewline</title>
-      <PageHeader
-        title="Report damp or mould"
-        description="Tell your landlord what you can see, a few questions at a time. Your landlord will look into every report."
-      />
+      <title>{t("page.documentTitle")}</title>
+      <PageHeader title={t("page.title")} description={t("page.description")} />
       {home.isPending || !kept.loaded ? (
-        <LoadingState>Getting your home's details…</LoadingState>
+        <LoadingState>{t("page.loading")}</LoadingState>
       ) : home.isError ? (
         <Alert
           tone={home.error instanceof ApiError && home.error.status === 404 ? "info" : "danger"}
-          title={
-            home.error instanceof ApiError && home.error.status === 404
-              ? "We can't find a home to report for"
-              : "We couldn't load your home's details"
-          }
+          title={home.error instanceof ApiError && home.error.status === 404 ? t("page.noHome") : t("page.homeFailed")}
         >
           {errorMessage(home.error)}
         </Alert>
@@ -95,6 +91,7 @@ interface ReportOrWaitingProps {
  * its own report is being kept and tried.
  */
 function ReportOrWaiting({ userId, hasKept, form, onKeptSent }: ReportOrWaitingProps) {
+  const { t } = useTranslation("report", { i18n });
   const [writing, setWriting] = useState(!hasKept);
   return (
     <div className="flex flex-col gap-5">
@@ -104,7 +101,7 @@ function ReportOrWaiting({ userId, hasKept, form, onKeptSent }: ReportOrWaitingP
       ) : (
         <div>
           <Button variant="secondary" onClick={() => setWriting(true)}>
-            Report something else
+            {t("page.reportSomethingElse")}
           </Button>
         </div>
       )}

@@ -2,20 +2,21 @@
 // browser by the same risk engine the server uses. Nothing typed here leaves the page.
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useId, useMemo, useState } from "react";
+import type { TFunction } from "i18next";
 import { useForm, useWatch } from "react-hook-form";
+import { useTranslation } from "react-i18next";
 import { ReportStillMatters } from "@/components/risk/cautions";
-import { RiskPanel } from "@/components/risk/risk-panel";
-import { STATE_LABELS } from "@/lib/surface-state-labels";
+import { RiskPanel, celsiusIn, stateWords, surfaceHumidityIn } from "@/components/risk/risk-panel";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Input, Select } from "@/components/ui/field";
 import { BUILDING_ELEMENTS, evaluatePoint, getBuildingElement, type PointResult } from "@/lib/domain";
-import { celsius, factor, surfaceHumidity } from "@/lib/domain/wording";
+import { factor } from "@/lib/domain/wording";
+import { i18n } from "@/lib/i18n/i18n";
 import {
   calculatorFormSchema,
   EMPTY_FORM,
   EXAMPLE_FORM,
-  FIELD_LABELS,
   fieldMessage,
   REQUIRED_FIELDS,
   type CalculatorField,
@@ -45,19 +46,26 @@ function evaluateForm(values: CalculatorFormValues): Outcome {
 }
 
 /** What the polite live region says once typing pauses: the state and two numbers, not every figure. */
-function announcement(outcome: Outcome): string {
-  if (outcome.status === "invalid") return "A value needs correcting. The result shown is for the last valid values.";
+function announcement(t: TFunction, outcome: Outcome): string {
+  if (outcome.status === "invalid") return t("calculator:result.needsCorrecting");
   if (outcome.status === "incomplete") return "";
   const { result } = outcome;
-  const state = STATE_LABELS[result.surface.state];
-  const humidity = surfaceHumidity(result.surface.relativeHumidityPct);
-  const frost = result.frostPointC === null ? "" : `; frost point ${celsius(result.frostPointC)}`;
-  return `Result: ${state.label}. ${state.summary} Dew point ${celsius(result.dewPointC)}${frost}; relative humidity at the surface ${humidity}.`;
+  const state = stateWords(t, result.surface.state);
+  const values = {
+    label: state.label,
+    summary: state.summary,
+    dewPoint: celsiusIn(t, result.dewPointC),
+    humidity: surfaceHumidityIn(t, result.surface.relativeHumidityPct),
+  };
+  return result.frostPointC === null
+    ? t("calculator:result.announce", values)
+    : t("calculator:result.announceFrost", { ...values, frostPoint: celsiusIn(t, result.frostPointC) });
 }
 
 const ANNOUNCE_AFTER_MS = 700;
 
 export function Calculator() {
+  const { t } = useTranslation("calculator", { i18n });
   const resultsHeadingId = useId();
   const {
     register,
@@ -80,30 +88,30 @@ export function Calculator() {
   const [lastResult, setLastResult] = useState<PointResult | null>(null);
   if (outcome.status === "ok" && outcome.result !== lastResult) setLastResult(outcome.result);
 
-  const spoken = useDebouncedValue(announcement(outcome), ANNOUNCE_AFTER_MS);
+  const spoken = useDebouncedValue(announcement(t, outcome), ANNOUNCE_AFTER_MS);
 
   /** A field's message from the schema, except "required" on a blank field: the prompt covers that. */
-  const errorFor = (field: CalculatorField) => (isBlank(values[field]) ? undefined : fieldMessage(field, errors[field]?.message));
+  const errorFor = (field: CalculatorField) => (isBlank(values[field]) ? undefined : fieldMessage(t, field, errors[field]));
 
   const element = values.element ? getBuildingElement(values.element) : undefined;
 
   return (
     <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,7fr)] lg:items-start">
-      <form noValidate onSubmit={(event) => event.preventDefault()} className="flex flex-col gap-5" aria-label="Readings">
+      <form noValidate onSubmit={(event) => event.preventDefault()} className="flex flex-col gap-5" aria-label={t("form.label")}>
         <div className="flex flex-wrap gap-2">
           <Button variant="secondary" onClick={() => reset(EXAMPLE_FORM)}>
-            Try an example
+            {t("form.example")}
           </Button>
           <Button variant="ghost" onClick={() => reset(EMPTY_FORM)}>
-            Clear all
+            {t("form.clear")}
           </Button>
         </div>
 
         <fieldset className="flex flex-col gap-4 rounded-lg border border-line bg-surface p-4">
-          <legend className="px-1 text-lg font-bold">The room</legend>
+          <legend className="px-1 text-lg font-bold">{t("form.room")}</legend>
           <Input
-            label={`${FIELD_LABELS.airTemperatureC} (°C)`}
-            hint="The air in the room, away from windows and heaters."
+            label={t("form.withUnit", { label: t("field.airTemperatureC"), unit: "°C" })}
+            hint={t("form.airHint")}
             inputMode="decimal"
             autoComplete="off"
             spellCheck={false}
@@ -111,8 +119,8 @@ export function Calculator() {
             {...register("airTemperatureC")}
           />
           <Input
-            label={`${FIELD_LABELS.relativeHumidityPct} (%)`}
-            hint="From a hygrometer: most digital room thermometers show it."
+            label={t("form.withUnit", { label: t("field.relativeHumidityPct"), unit: "%" })}
+            hint={t("form.rhHint")}
             inputMode="decimal"
             autoComplete="off"
             spellCheck={false}
@@ -122,39 +130,38 @@ export function Calculator() {
         </fieldset>
 
         <fieldset className="flex flex-col gap-4 rounded-lg border border-line bg-surface p-4">
-          <legend className="px-1 text-lg font-bold">The cold surface</legend>
-          <p className="text-sm text-ink-soft">
-            A window, wall or corner you are worried about. Give its temperature if you can measure it, or choose what it is and
-            give the outdoor temperature to estimate it.
-          </p>
+          <legend className="px-1 text-lg font-bold">{t("form.surfaceLegend")}</legend>
+          <p className="text-sm text-ink-soft">{t("form.surfaceIntro")}</p>
           <Input
-            label={`${FIELD_LABELS.surfaceTemperatureC} (°C)`}
-            optional
-            hint="From a surface or infrared thermometer held at the coldest spot. Below zero, type a minus sign first: -2."
+            label={t("form.withUnit", { label: t("field.surfaceTemperatureC"), unit: "°C" })}
+            optional={t("form.optional")}
+            hint={t("form.surfaceHint")}
             autoComplete="off"
             spellCheck={false}
             error={errorFor("surfaceTemperatureC")}
             {...register("surfaceTemperatureC")}
           />
           <Input
-            label={`${FIELD_LABELS.outdoorTemperatureC} (°C)`}
-            optional
-            hint="Outside right now, from a thermometer or the weather forecast. Below zero, type a minus sign first: -2."
+            label={t("form.withUnit", { label: t("field.outdoorTemperatureC"), unit: "°C" })}
+            optional={t("form.optional")}
+            hint={t("form.outdoorHint")}
             autoComplete="off"
             spellCheck={false}
             error={errorFor("outdoorTemperatureC")}
             {...register("outdoorTemperatureC")}
           />
           <Select
-            label={FIELD_LABELS.element}
-            optional
+            label={t("field.element")}
+            optional={t("form.optional")}
             hint={
               <>
-                With an outdoor temperature, the element gives an estimated surface temperature when none is measured.
+                {t("form.elementHint")}
                 {element ? (
                   <>
                     {" "}
-                    Typical temperature factor for this element: {factor(element.fRsi)} ({element.basis}).
+                    {t("form.elementFactor", { factor: Number(factor(element.fRsi)) })}{" "}
+                    {/* The basis comes from the domain in English, as the risk engine's reasons do (not yet translated). */}
+                    <span>({element.basis})</span>
                   </>
                 ) : null}
               </>
@@ -162,20 +169,20 @@ export function Calculator() {
             error={errorFor("element")}
             {...register("element")}
           >
-            <option value="">Not chosen</option>
+            <option value="">{t("form.notChosen")}</option>
             {BUILDING_ELEMENTS.map((item) => (
               <option key={item.id} value={item.id}>
-                {item.label}
+                {t(`risk:element.${item.id}`, { defaultValue: item.label })}
               </option>
             ))}
           </Select>
         </fieldset>
-        <p className="text-sm text-ink-soft">Worked out on this device as you type: nothing you enter is sent or saved.</p>
+        <p className="text-sm text-ink-soft">{t("form.onDevice")}</p>
       </form>
 
       <section aria-labelledby={resultsHeadingId} className="flex flex-col gap-4 lg:sticky lg:top-4">
         <h2 id={resultsHeadingId} className="text-xl font-bold">
-          Result
+          {t("result.heading")}
         </h2>
         <p role="status" aria-live="polite" className="sr-only">
           {spoken}
@@ -188,6 +195,7 @@ export function Calculator() {
 }
 
 function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointResult | null }) {
+  const { t } = useTranslation("calculator", { i18n });
   if (outcome.status === "ok") {
     return (
       <>
@@ -199,9 +207,7 @@ function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointR
   if (outcome.status === "invalid" && lastResult) {
     return (
       <div className="flex flex-col gap-2">
-        <p className="rounded-md border border-dashed border-line-strong bg-paper px-3 py-2 font-semibold">
-          A value needs correcting: see the message beside the field. Until then, this is the result for the last valid values.
-        </p>
+        <p className="rounded-md border border-dashed border-line-strong bg-paper px-3 py-2 font-semibold">{t("result.stale")}</p>
         <div className="grayscale" data-stale="true">
           <RiskPanel result={lastResult} className="border-dashed bg-paper" />
           <FrostPoint result={lastResult} />
@@ -211,14 +217,13 @@ function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointR
   }
   const missing = outcome.status === "incomplete" ? outcome.missing : [];
   return (
-    <EmptyState title="Results appear here as you type">
+    <EmptyState title={t("result.emptyTitle")}>
       {missing.length ? (
         <p>
-          Enter the {joinAnd(missing.map((field) => FIELD_LABELS[field].toLowerCase()))} to see the dew point and how damp the
-          surface is.
+          {t(missing.length === 2 ? "result.enterBoth" : missing[0] === "airTemperatureC" ? "result.enterAir" : "result.enterRh")}
         </p>
       ) : (
-        <p>Correct the value with a message beside it to see the result.</p>
+        <p>{t("result.correct")}</p>
       )}
     </EmptyState>
   );
@@ -229,21 +234,16 @@ function Results({ outcome, lastResult }: { outcome: Outcome; lastResult: PointR
  * water, as humidity readings are): the frost point, over ice, is the mark there.
  */
 function FrostPoint({ result }: { result: PointResult }) {
+  const { t } = useTranslation("calculator", { i18n });
   if (result.frostPointC === null) return null;
-  const frost = celsius(result.frostPointC);
+  const frost = celsiusIn(t, result.frostPointC);
   return (
     <dl className="rounded-lg border border-line bg-surface p-4">
-      <dt className="text-sm font-semibold text-ink-soft">Frost point</dt>
+      <dt className="text-sm font-semibold text-ink-soft">{t("result.frostPoint")}</dt>
       <dd className="flex flex-col">
         <span className="text-lg font-bold text-ink tabular-nums">{frost}</span>
-        <span className="text-sm text-ink-soft">
-          Frost would form on a surface at {frost} or colder. Below freezing, the water in the air settles as ice, and it starts a
-          little above the dew point.
-        </span>
+        <span className="text-sm text-ink-soft">{t("result.frostNote", { frost })}</span>
       </dd>
     </dl>
   );
 }
-
-const joinAnd = (items: string[]) =>
-  items.length <= 1 ? (items[0] ?? "") : `${items.slice(0, -1).join(", ")} and ${items.at(-1)}`;

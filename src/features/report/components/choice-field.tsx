@@ -2,13 +2,16 @@
 // form field, with the field's error beside it.
 import type { ReactNode } from "react";
 import { Controller, type Control } from "react-hook-form";
+import { useTranslation } from "react-i18next";
+import { i18n } from "@/lib/i18n/i18n";
 import type { CaseReport } from "@/lib/schemas/case-report";
 import type { Choice } from "../labels";
 import type { ReportFormValues } from "../lib/draft";
+import { fieldErrorText } from "../lib/field-errors";
 import type { FieldName } from "../lib/steps";
 import { CheckboxGroup, RadioGroup } from "./choice-fields";
 
-type Option = { value: string | number; label: string; hint?: string };
+type Option = { value: string | number; label: ReactNode; hint?: string };
 
 interface ChoiceFieldProps {
   control: Control<ReportFormValues, unknown, CaseReport>;
@@ -40,6 +43,7 @@ export function ChoiceField({
   onChange,
   after,
 }: ChoiceFieldProps) {
+  const { t } = useTranslation("report", { i18n });
   return (
     <Controller
       control={control}
@@ -55,7 +59,7 @@ export function ChoiceField({
             onChange={(onChange as ((next: (string | number)[]) => void) | undefined) ?? field.onChange}
             onBlur={onChange ? undefined : field.onBlur}
             inputRef={field.ref}
-            error={fieldState.error?.message}
+            error={fieldErrorText(t, name, fieldState.error)}
             after={after}
           />
         ) : (
@@ -66,7 +70,7 @@ export function ChoiceField({
             value={field.value as string | undefined}
             onChange={field.onChange}
             inputRef={field.ref}
-            error={fieldState.error?.message}
+            error={fieldErrorText(t, name, fieldState.error)}
             clearLabel={clearLabel}
           />
         )

@@ -1,9 +1,11 @@
 import { useEffect, useEffectEvent, useId, useRef, useState } from "react";
+import { useTranslation } from "react-i18next";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Select } from "@/components/ui/field";
 import { errorMessage } from "@/lib/api-client";
 import { cn } from "@/lib/cn";
+import { i18n } from "@/lib/i18n/i18n";
 import { useImportReadings } from "../api/import-readings";
 import { usePreviewImport } from "../api/preview-import";
 import type { ImportPreview, ImportResult, RoomOption } from "../api/types";
@@ -47,16 +49,17 @@ export function LoggerFileFields({
   roomError,
   disabled,
 }: LoggerFileFieldsProps) {
+  const { t } = useTranslation("report", { i18n });
   const id = useId();
   const describedBy = [`${id}-hint`, fileError ? `${id}-error` : null].filter(Boolean).join(" ");
   return (
     <div className="flex flex-col gap-4">
       <div className="flex flex-col gap-1">
         <label htmlFor={id} className="font-semibold text-ink">
-          Logger file (CSV)
+          {t("readings.loggerFile")}
         </label>
         <p id={`${id}-hint`} className="text-sm text-ink-soft">
-          The file your temperature and humidity logger saved, as CSV text. Most logger apps can export one.
+          {t("readings.loggerHint")}
         </p>
         {fileError ? (
           <p id={`${id}-error`} className="text-sm font-semibold text-rust-700">
@@ -78,22 +81,25 @@ export function LoggerFileFields({
         />
         {file ? (
           <p className="text-sm">
-            Chosen: <span className="font-semibold break-all">{file.name}</span>
+            {t("readings.loggerChosen")}{" "}
+            <span className="font-semibold break-all" translate="no">
+              {file.name}
+            </span>
           </p>
         ) : null}
       </div>
       <Select
-        label="Where was the logger?"
-        hint="The readings from one logger file belong to one place."
+        label={t("readings.loggerWhere")}
+        hint={t("readings.loggerWhereHint")}
         value={roomId === null ? "" : String(roomId)}
         onChange={(e) => onRoomChange(e.target.value ? Number(e.target.value) : null)}
         error={roomError}
         disabled={disabled}
         controlClassName="sm:max-w-xs"
       >
-        <option value="">Choose where it was</option>
+        <option value="">{t("readings.loggerChooseWhere")}</option>
         {rooms.map((r) => (
-          <option key={r.id} value={r.id}>
+          <option key={r.id} value={r.id} translate="no">
             {r.name}
           </option>
         ))}

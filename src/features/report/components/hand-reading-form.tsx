@@ -1,12 +1,21 @@
 import { useEffect, useEffectEvent, useId, useMemo, useRef, useState, type KeyboardEvent } from "react";
+import { useTranslation } from "react-i18next";
 import { ReportStillMatters } from "@/components/risk/cautions";
 import { RiskPanel } from "@/components/risk/risk-panel";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { evaluatePoint, type PointResult } from "@/lib/domain";
+import { i18n } from "@/lib/i18n/i18n";
 import type { HandReading, RoomOption } from "../api/types";
-import { checkHandReading, localNow, previewInput, type HandReadingErrors, type HandReadingFields } from "../lib/hand-reading";
+import {
+  checkHandReading,
+  localNow,
+  previewInput,
+  type HandReadingErrors,
+  type HandReadingFields,
+  type ReadingMessage,
+} from "../lib/hand-reading";
 
 interface HandReadingFormProps {
   rooms: readonly RoomOption[];
@@ -52,6 +61,14 @@ export function HandReadingForm({
   defaultRoomId,
   headingLevel = 3,
 }: HandReadingFormProps) {
+  const { t } = useTranslation("report", { i18n });
+  const say = (message: ReadingMessage | undefined) =>
+    message
+      ? t(`reading.error.${message.key}`, {
+          ...message.values,
+          what: message.values?.what ? t(`reading.what.${message.values.what}`) : undefined,
+        })
+      : undefined;
   const initialRoom = defaultRoomId ?? (rooms.length === 1 ? rooms[0]!.id : undefined);
   const [fields, setFields] = useState<HandReadingFields>(() => blank(initialRoom ? String(initialRoom) : ""));
   const [errors, setErrors] = useState<HandReadingErrors>({});
@@ -105,8 +122,8 @@ export function HandReadingForm({
     }
     const kept = await onAdd(reading);
     if (kept === false) return;
-    const room = rooms.find((r) => r.id === reading.roomId)?.name ?? "the room";
-    setAdded(`Reading added for ${room}.`);
+    const room = rooms.find((r) => r.id === reading.roomId)?.name ?? t("reading.theRoom");
+    setAdded(t("reading.addedFor", { room }));
     setFields(blank(fields.roomId));
     airRef.current?.focus();
   };
@@ -123,8 +140,8 @@ export function HandReadingForm({
 
   if (rooms.length === 0) {
     return (
-      <Alert tone="info" live="none" title="Readings need a room">
-        No rooms are listed for your home yet, so readings can't be added. Your landlord's team can add the rooms.
+      <Alert tone="info" live="none" title={t("reading.noRoomsTitle")}>
+        {t("reading.noRoomsBody")}
       </Alert>
     );
   }
@@ -132,85 +149,85 @@ export function HandReadingForm({
   return (
     <div className="flex flex-col gap-4">
       <Select
-        label="Room"
+        label={t("reading.room")}
         ref={roomRef}
         value={fields.roomId}
         onChange={set("roomId")}
-        error={errors.roomId}
+        error={say(errors.roomId)}
         controlClassName="sm:max-w-xs"
       >
-        <option value="">Choose a room</option>
+        <option value="">{t("reading.chooseRoom")}</option>
         {rooms.map((room) => (
-          <option key={room.id} value={room.id}>
+          <option key={room.id} value={room.id} translate="no">
             {room.name}
           </option>
         ))}
       </Select>
       <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         <Input
-          label="Air temperature (°C)"
+          label={t("reading.air")}
           ref={airRef}
           onKeyDown={onKeyDown}
           inputMode="decimal"
           autoComplete="off"
           value={fields.airTemperatureC}
           onChange={set("airTemperatureC")}
-          error={errors.airTemperatureC}
-          hint="From a room thermometer, for example 18.5"
+          error={say(errors.airTemperatureC)}
+          hint={t("reading.airHint")}
         />
         <Input
-          label="Relative humidity (%)"
+          label={t("reading.rh")}
           ref={humidityRef}
           onKeyDown={onKeyDown}
           inputMode="decimal"
           autoComplete="off"
           value={fields.relativeHumidityPct}
           onChange={set("relativeHumidityPct")}
-          error={errors.relativeHumidityPct}
-          hint="From a hygrometer, for example 65"
+          error={say(errors.relativeHumidityPct)}
+          hint={t("reading.rhHint")}
         />
         <Input
-          label="Surface temperature (°C)"
-          optional
+          label={t("reading.surface")}
+          optional={t("form.optional")}
           ref={surfaceRef}
           onKeyDown={onKeyDown}
           autoComplete="off"
           value={fields.surfaceTemperatureC}
           onChange={set("surfaceTemperatureC")}
-          error={errors.surfaceTemperatureC}
-          hint="If you have a surface (infrared) thermometer: point it at the damp wall or window"
+          error={say(errors.surfaceTemperatureC)}
+          hint={t("reading.surfaceHint")}
         />
         <Input
-          label="Outdoor temperature (°C)"
-          optional
+          label={t("reading.outdoor")}
+          optional={t("form.optional")}
           ref={outdoorRef}
           onKeyDown={onKeyDown}
           autoComplete="off"
           value={fields.outdoorTemperatureC}
           onChange={set("outdoorTemperatureC")}
-          error={errors.outdoorTemperatureC}
-          hint="From a weather app is fine. Below zero? Type a minus sign, for example -2"
+          error={say(errors.outdoorTemperatureC)}
+          hint={t("reading.outdoorHint")}
         />
       </div>
       <Input
-        label="When was it taken?"
+        label={t("reading.takenAt")}
         type="datetime-local"
         ref={takenAtRef}
         onKeyDown={onKeyDown}
         value={fields.takenAt}
         max={localNow()}
         onChange={set("takenAt")}
-        error={errors.takenAt}
+        error={say(errors.takenAt)}
         controlClassName="sm:max-w-xs"
       />
       {error ? (
-        <Alert tone="danger" title="The reading was not added">
+        <Alert tone="danger" title={t("reading.notAdded")}>
           {error}
         </Alert>
       ) : null}
       <div className="flex flex-wrap items-center gap-3">
         <Button variant="secondary" onClick={() => void add()} busy={busy}>
-          Add this reading
+          {t("reading.add")}
         </Button>
         {dirty ? (
           <Button
@@ -221,7 +238,7 @@ export function HandReadingForm({
               setErrors({});
             }}
           >
-            Clear the numbers
+            {t("reading.clear")}
           </Button>
         ) : null}
       </div>
@@ -231,15 +248,9 @@ export function HandReadingForm({
 
       <section aria-labelledby={`${previewId}-heading`} className="flex flex-col gap-3">
         <Heading id={`${previewId}-heading`} className="text-lg font-bold">
-          What this reading shows
+          {t("reading.shows")}
         </Heading>
-        {preview ? (
-          <RiskPanel result={preview} compact />
-        ) : (
-          <p className="text-ink-soft">
-            Type the air temperature and relative humidity to see the dew point and how damp the surface is.
-          </p>
-        )}
+        {preview ? <RiskPanel result={preview} compact /> : <p className="text-ink-soft">{t("reading.typeToSee")}</p>}
         <ReportStillMatters />
       </section>
     </div>

@@ -1,7 +1,20 @@
+import type { TFunction } from "i18next";
 import { useCallback, useId, useState } from "react";
+import { useTranslation } from "react-i18next";
 import { Alert } from "@/components/ui/alert";
 import { cn } from "@/lib/cn";
-import { MAX_PHOTOS, PHOTO_ACCEPT, addPhotos, megabytes, type PhotoSelection } from "../lib/photo-files";
+import { i18n } from "@/lib/i18n/i18n";
+import { MAX_PHOTOS, PHOTO_ACCEPT, addPhotos, megabytesOf, type PhotoSelection } from "../lib/photo-files";
+
+/** "2.4 MB" in the reader's language. */
+export const megabytes = (t: TFunction, bytes: number) => {
+  const { key, mb } = megabytesOf(bytes);
+  return t(`report:photos.${key}`, { mb });
+};
+
+/** Why the browser would not take a file, in the reader's language. */
+export const problemText = (t: TFunction, p: PhotoSelection["problems"][number]) =>
+  t(`report:photos.problem.${p.problem}`, { size: megabytes(t, p.size), max: MAX_PHOTOS });
 
 interface PhotoPickerProps {
   value: readonly File[];
@@ -37,7 +50,10 @@ export function RefusedList({ files }: { files: readonly { name: string; message
     <ul className="flex flex-col gap-1">
       {files.map((p, i) => (
         <li key={`${p.name}-${i}`}>
-          <span className="font-semibold break-all">{p.name}</span>: {p.message}
+          <span className="font-semibold break-all" translate="no">
+            {p.name}
+          </span>
+          : {p.message}
         </li>
       ))}
     </ul>
@@ -46,16 +62,17 @@ export function RefusedList({ files }: { files: readonly { name: string; message
 
 /** Chooses up to ten photos, checks them in the browser, and shows what will be sent. */
 export function PhotoPicker({ value, onChange, serverError, disabled, hint }: PhotoPickerProps) {
+  const { t } = useTranslation("report", { i18n });
   const id = useId();
   const [problems, setProblems] = useState<PhotoSelection["problems"]>([]);
   const full = value.length >= MAX_PHOTOS;
-  const hintText = hint ?? `JPEG, PNG, WebP or AVIF, up to 15 MB each. You can add up to ${MAX_PHOTOS}.`;
+  const hintText = hint ?? t("photos.hint", { max: MAX_PHOTOS });
 
   return (
     <div className="flex flex-col gap-3">
       <div className="flex flex-col gap-1">
         <label htmlFor={id} className="font-semibold text-ink">
-          Add photos
+          {t("photos.add")}
         </label>
         <p id={`${id}-hint`} className="text-sm text-ink-soft">
           {hintText}
@@ -81,30 +98,24 @@ export function PhotoPicker({ value, onChange, serverError, disabled, hint }: Ph
             "file:bg-surface file:px-4 file:font-semibold file:text-dew-800 hover:file:bg-dew-50 disabled:opacity-60",
           )}
         />
-        {full ? (
-          <p className="text-sm text-ink-soft">You have chosen {MAX_PHOTOS} photos, the most we can take at once.</p>
-        ) : null}
+        {full ? <p className="text-sm text-ink-soft">{t("photos.full", { max: MAX_PHOTOS })}</p> : null}
       </div>
 
       {problems.length ? (
         <div id={`${id}-problems`}>
-          <Alert
-            tone="warning"
-            title={problems.length === 1 ? "One file could not be added" : `${problems.length} files could not be added`}
-            live="alert"
-          >
-            <RefusedList files={problems} />
+          <Alert tone="warning" title={t("photos.refusedTitle", { count: problems.length })} live="alert">
+            <RefusedList files={problems.map((p) => ({ name: p.name, message: problemText(t, p) }))} />
           </Alert>
         </div>
       ) : null}
       {serverError ? (
-        <Alert tone="danger" title="The photos were not added">
+        <Alert tone="danger" title={t("photos.serverRefused")}>
           {serverError}
         </Alert>
       ) : null}
 
       {value.length ? (
-        <ul aria-label="Photos you have chosen" className="grid grid-cols-2 gap-3 sm:grid-cols-3">
+        <ul aria-label={t("photos.chosen")} className="grid grid-cols-2 gap-3 sm:grid-cols-3">
           {value.map((file, i) => {
             return (
               <li
@@ -112,16 +123,16 @@ export function PhotoPicker({ value, onChange, serverError, disabled, hint }: Ph
                 className="flex flex-col gap-1 rounded-md border border-line bg-surface p-2"
               >
                 {canPreview() ? (
-                  <FilePreview file={file} alt={`Chosen file ${i + 1}, ${file.name}`} />
+                  <FilePreview file={file} alt={t("photos.previewAlt", { n: i + 1, name: file.name })} />
                 ) : (
                   <div className="flex aspect-square w-full items-center justify-center rounded-sm bg-paper text-sm text-ink-soft">
-                    Photo {i + 1}
+                    {t("photos.placeholder", { n: i + 1 })}
                   </div>
                 )}
-                <span className="truncate text-sm" title={file.name}>
+                <span className="truncate text-sm" title={file.name} translate="no">
                   {file.name}
                 </span>
-                <span className="text-xs text-ink-soft">{megabytes(file.size)}</span>
+                <span className="text-xs text-ink-soft">{megabytes(t, file.size)}</span>
                 <button
                   type="button"
                   disabled={disabled}
@@ -131,11 +142,8 @@ export function PhotoPicker({ value, onChange, serverError, disabled, hint }: Ph
                   }}
                   className="min-h-9 rounded-md border border-line-strong px-2 text-sm font-semibold text-ink hover:bg-rust-50 disabled:opacity-60"
                 >
-                  Remove
-                  <span className="sr-only">
-                    {" "}
-                    photo {i + 1}, {file.name}
-                  </span>
+                  {t("photos.remove")}
+                  <span className="sr-only"> {t("photos.removeWhich", { n: i + 1, name: file.name })}</span>
                 </button>
               </li>
             );

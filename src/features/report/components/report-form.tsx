@@ -5,7 +5,9 @@ import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/dialog";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { cn } from "@/lib/cn";
-import { formatDateTime } from "@/lib/dates";
+import { useTranslation } from "react-i18next";
+import { formatDateTimeIn } from "@/lib/dates";
+import { i18n } from "@/lib/i18n/i18n";
 import type { CaseReport } from "@/lib/schemas/case-report";
 import type { CreatedCase, RoomOption } from "../api/types";
 import { useReportDraft } from "../hooks/use-report-draft";
@@ -21,11 +23,11 @@ import { HomeStep } from "./steps/home-step";
 import { PhotosStep } from "./steps/photos-step";
 import { ReadingsStep } from "./steps/readings-step";
 
-const progressWords: Record<SendProgress, string> = {
-  case: "Sending your report…",
-  photos: "Your report is sent. Adding your photos…",
-  readings: "Adding your readings…",
-};
+const progressWords = {
+  case: "form.sending",
+  photos: "form.sendingPhotos",
+  readings: "form.sendingReadings",
+} as const satisfies Record<SendProgress, string>;
 
 interface ReportFormProps {
   /** Drafts are kept per account, so someone else on this device never sees them. */
@@ -45,6 +47,8 @@ interface ReportFormProps {
  * `useReportDraft`; this component moves between the steps, checks each before going on, and sends.
  */
 export function ReportForm({ userId, rooms, onSent, onQueued }: ReportFormProps) {
+  const { t, i18n: active } = useTranslation("report", { i18n });
+  const when = (iso: string) => formatDateTimeIn(active.language, iso);
   const draft = useReportDraft(userId, rooms);
   const { form, step, setStep, photos, readings, logger, restoredNote } = draft;
 
@@ -80,7 +84,7 @@ export function ReportForm({ userId, rooms, onSent, onQueued }: ReportFormProps)
         return;
       }
       if (logger.file && logger.roomId === null) {
-        setLoggerRoomError("Choose where the logger was, or remove the file.");
+        setLoggerRoomError(t("form.loggerRoomMissing"));
         return;
       }
     }
@@ -183,22 +187,18 @@ export function ReportForm({ userId, rooms, onSent, onQueued }: ReportFormProps)
   return (
     <div className="flex flex-col gap-5">
       {restoredNote ? (
-        <Alert tone="info" title="Welcome back: we kept your answers" live="none">
-          <p>You started this report on {formatDateTime(restoredNote.savedAt)}. You can carry on where you left off.</p>
+        <Alert tone="info" title={t("form.restoredTitle")} live="none">
+          <p>{t("form.restoredBody", { when: when(restoredNote.savedAt) })}</p>
           {restoredNote.photoCount > 0 || restoredNote.hadLoggerFile ? (
             <p className="mt-1">
-              Photos and files can't be kept on this device, so please add{" "}
               {restoredNote.photoCount > 0
-                ? restoredNote.photoCount === 1
-                  ? "your photo"
-                  : `your ${restoredNote.photoCount} photos`
-                : "your logger file"}{" "}
-              again when you get to {restoredNote.photoCount > 0 ? "the photos step" : "the readings step"}.
+                ? t("form.restoredPhotos", { photos: restoredNote.photoCount })
+                : t("form.restoredLogger")}
             </p>
           ) : null}
           <div className="mt-2">
             <Button variant="secondary" size="sm" onClick={() => setConfirmRestart(true)}>
-              Start again
+              {t("form.startAgain")}
             </Button>
           </div>
         </Alert>
@@ -209,9 +209,9 @@ export function ReportForm({ userId, rooms, onSent, onQueued }: ReportFormProps)
           <StepBar step={step} />
           <h2 id={headingId} ref={headingRef} tabIndex={-1} className="flex flex-col text-xl font-bold focus:outline-none">
             <span className="text-sm font-semibold text-ink-soft">
-              Step {step + 1} of {STEPS.length}
+              {t("steps.progress", { step: step + 1, total: STEPS.length })}
             </span>
-            {STEPS[step]!.title}
+            {t(`steps.${STEPS[step]!.title}`)}
           </h2>
         </div>
 
@@ -237,42 +237,42 @@ export function ReportForm({ userId, rooms, onSent, onQueued }: ReportFormProps)
           <div className={cn("flex flex-wrap gap-3", step === 0 ? "justify-end" : "justify-between")}>
             {step > 0 ? (
               <Button variant="secondary" size="lg" onClick={() => goTo(step - 1)} disabled={sending}>
-                Back
+                {t("form.back")}
               </Button>
             ) : null}
             {step < LAST_STEP ? (
               <Button type="submit" size="lg">
-                Next
+                {t("form.next")}
               </Button>
             ) : (
               <Button type="submit" size="lg" busy={sending}>
-                Send report
+                {t("form.send")}
               </Button>
             )}
           </div>
           <p role="status" className="text-sm font-semibold">
-            {progress ? progressWords[progress] : null}
+            {progress ? t(progressWords[progress]) : null}
           </p>
           <p className="text-sm text-ink-soft">
             {draft.saveFailed
-              ? "We couldn't keep a copy of your answers on this device, so please send the report before you close this page."
+              ? t("form.saveFailed")
               : draft.savedAt
-                ? `Your answers are kept on this device as you go (last kept at ${formatDateTime(draft.savedAt)}).`
-                : "Your answers are kept on this device as you go, until you send the report."}
+                ? t("form.savedAt", { when: when(draft.savedAt) })
+                : t("form.keptAsYouGo")}
           </p>
         </div>
       </form>
 
       <ConfirmDialog
         open={confirmRestart}
-        title="Start a new report?"
-        confirmLabel="Clear my answers"
-        cancelLabel="Keep my answers"
+        title={t("form.restartTitle")}
+        confirmLabel={t("form.restartConfirm")}
+        cancelLabel={t("form.restartCancel")}
         tone="danger"
         onConfirm={restart}
         onCancel={() => setConfirmRestart(false)}
       >
-        This clears the answers you've given so far from this device.
+        {t("form.restartBody")}
       </ConfirmDialog>
     </div>
   );

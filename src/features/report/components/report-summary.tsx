@@ -1,18 +1,9 @@
 import { useId, type ReactNode } from "react";
+import { useTranslation } from "react-i18next";
 import { formatDate } from "@/lib/dates";
+import { i18n } from "@/lib/i18n/i18n";
 import type { Area, Duration, EquipmentAnswer, Location, Observation, Vulnerability } from "@/lib/schemas/case-report";
-import {
-  EQUIPMENT_QUESTIONS,
-  areaLabels,
-  durationLabels,
-  equipmentQuestions,
-  heatingCostQuestion,
-  householdNoneLabel,
-  labelFor,
-  locationLabels,
-  observationLabels,
-  vulnerabilityLabels,
-} from "../labels";
+import { EQUIPMENT_QUESTIONS, equipmentQuestion, labelFor } from "../labels";
 
 /** A report's answers, from the form or from a sent case. */
 export interface ReportAnswers {
@@ -41,55 +32,58 @@ interface ReportSummaryProps {
   audience?: "tenant" | "staff";
 }
 
-const notSaid = "Not answered";
-
 export function ReportSummary({ answers, onChange, sentAt, extra, audience = "tenant" }: ReportSummaryProps) {
+  const { t } = useTranslation("report", { i18n });
   const staff = audience === "staff";
+  const notSaid = t("summary.notAnswered");
+  const heatingCost = equipmentQuestion(t, "heatingCost");
   const household =
     answers.vulnerability === undefined || answers.vulnerability === null
       ? answers.householdDeclined
-        ? staff
-          ? "The tenant would rather not say"
-          : "You'd rather not say"
+        ? t(staff ? "summary.declinedStaff" : "summary.declined")
         : notSaid
       : answers.vulnerability.length === 0
-        ? householdNoneLabel
-        : answers.vulnerability.map((v) => labelFor(vulnerabilityLabels, v));
+        ? t("household.none")
+        : answers.vulnerability.map((v) => labelFor(t, "vulnerability", v));
 
   return (
     <div className="flex flex-col gap-3">
-      {sentAt ? <p className="text-ink-soft">Sent on {formatDate(sentAt)}</p> : null}
-      <SummaryCard title={staff ? "What can be seen, and where" : "What you can see, and where"} step={0} onChange={onChange}>
-        <Row term={staff ? "What the tenant can see" : "What you can see"} value={answers.description || notSaid} preserveLines />
+      {sentAt ? <p className="text-ink-soft">{t("summary.sentOn", { when: formatDate(sentAt) })}</p> : null}
+      <SummaryCard title={t(staff ? "summary.describeTitleStaff" : "summary.describeTitle")} step={0} onChange={onChange}>
         <Row
-          term="Where"
-          value={answers.locations.length ? answers.locations.map((l) => labelFor(locationLabels, l)) : notSaid}
+          term={t(staff ? "summary.whatTenantSees" : "summary.whatYouSee")}
+          value={answers.description || notSaid}
+          data={Boolean(answers.description)}
+          preserveLines
         />
         <Row
-          term={staff ? "What the tenant has noticed" : "What you've noticed"}
-          value={answers.observations.length ? answers.observations.map((o) => labelFor(observationLabels, o)) : notSaid}
+          term={t("summary.where")}
+          value={answers.locations.length ? answers.locations.map((l) => labelFor(t, "location", l)) : notSaid}
         />
-        <Row term="Rooms" value={answers.roomNames.length ? [...answers.roomNames] : notSaid} />
+        <Row
+          term={t(staff ? "summary.noticedStaff" : "summary.noticed")}
+          value={answers.observations.length ? answers.observations.map((o) => labelFor(t, "observation", o)) : notSaid}
+        />
+        <Row
+          term={t("summary.rooms")}
+          value={answers.roomNames.length ? [...answers.roomNames] : notSaid}
+          data={answers.roomNames.length > 0}
+        />
       </SummaryCard>
-      <SummaryCard title="How long, and how big" step={1} onChange={onChange}>
-        <Row term="How long" value={answers.since ? labelFor(durationLabels, answers.since) : notSaid} />
-        <Row term="How big" value={answers.area ? labelFor(areaLabels, answers.area) : notSaid} />
+      <SummaryCard title={t("summary.extentTitle")} step={1} onChange={onChange}>
+        <Row term={t("summary.howLong")} value={answers.since ? labelFor(t, "duration", answers.since) : notSaid} />
+        <Row term={t("summary.howBig")} value={answers.area ? labelFor(t, "area", answers.area) : notSaid} />
       </SummaryCard>
-      <SummaryCard title={staff ? "About the home and household" : "About your home and household"} step={2} onChange={onChange}>
+      <SummaryCard title={t(staff ? "summary.homeTitleStaff" : "summary.homeTitle")} step={2} onChange={onChange}>
         {EQUIPMENT_QUESTIONS.map((q) => {
           const answer = answers.equipment?.[q];
-          return (
-            <Row
-              key={q}
-              term={equipmentQuestions[q].question}
-              value={answer ? labelFor(equipmentQuestions[q].answers, answer) : notSaid}
-            />
-          );
+          const question = equipmentQuestion(t, q);
+          return <Row key={q} term={question.question} value={answer ? question.answer(answer) : notSaid} />;
         })}
-        <Row term={staff ? "The household" : "Your household"} value={household} />
+        <Row term={t(staff ? "summary.householdStaff" : "summary.household")} value={household} />
         <Row
-          term={heatingCostQuestion.question}
-          value={answers.equipment?.heatingCost ? labelFor(heatingCostQuestion.answers, answers.equipment.heatingCost) : notSaid}
+          term={heatingCost.question}
+          value={answers.equipment?.heatingCost ? heatingCost.answer(answers.equipment.heatingCost) : notSaid}
         />
       </SummaryCard>
       {extra}
@@ -110,6 +104,7 @@ interface SummaryCardProps {
  * edge, then each question with its answer underneath (Dewline's own layout, one card per step).
  */
 export function SummaryCard({ title, step, onChange, children }: SummaryCardProps) {
+  const { t } = useTranslation("report", { i18n });
   const headingId = useId();
   return (
     <section aria-labelledby={headingId} className="rounded-lg border border-line bg-surface shadow-card">
@@ -132,7 +127,8 @@ export function SummaryCard({ title, step, onChange, children }: SummaryCardProp
                 strokeLinejoin="round"
               />
             </svg>
-            Change<span className="sr-only"> {title.toLowerCase()}</span>
+            {t("summary.change")}
+            <span className="sr-only"> {title.toLowerCase()}</span>
           </button>
         ) : null}
       </div>
@@ -145,14 +141,16 @@ interface RowProps {
   term: string;
   value: string | string[];
   preserveLines?: boolean;
+  /** The answer is data (what someone typed, room names, a file's name), not words to translate. */
+  data?: boolean;
 }
 
 /** A question and its answer inside a SummaryCard: the question small above, the answer as read. */
-export function Row({ term, value, preserveLines }: RowProps) {
+export function Row({ term, value, preserveLines, data }: RowProps) {
   return (
     <div className="flex flex-col gap-0.5">
       <dt className="text-sm text-ink-soft">{term}</dt>
-      <dd className="font-semibold text-ink">
+      <dd className="font-semibold text-ink" translate={data ? "no" : undefined}>
         {Array.isArray(value) ? (
           <ul className="flex flex-wrap gap-1.5 pt-0.5">
             {value.map((v) => (

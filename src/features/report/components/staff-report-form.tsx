@@ -6,10 +6,11 @@ import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/field";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { londonLocalInput, londonLocalToIso } from "@/lib/dates";
-import { EQUIPMENT_ANSWERS, STAFF_CHANNELS, VULNERABILITIES, caseReportSchema, type CaseReport } from "@/lib/schemas/case-report";
+import { i18n } from "@/lib/i18n/i18n";
+import { STAFF_CHANNELS, VULNERABILITIES, caseReportSchema, type CaseReport } from "@/lib/schemas/case-report";
 import { createStaffCase } from "../api/create-case";
 import type { CreatedCase, RoomOption } from "../api/types";
-import { EQUIPMENT_QUESTIONS, choices, equipmentQuestions, householdNoneLabel, vulnerabilityLabels } from "../labels";
+import { EQUIPMENT_QUESTIONS, choices, equipmentQuestion } from "../labels";
 import { emptyReport, type ReportFormValues } from "../lib/draft";
 import { ChoiceField } from "./choice-field";
 import { ExclusiveCheckbox } from "./choice-fields";
@@ -41,6 +42,9 @@ interface StaffReportFormProps {
   onCreated: (created: CreatedCase) => void;
 }
 
+/** Staff screens stay in English whatever language the device was last used in. */
+const english = () => i18n.getFixedT("en-GB");
+
 type StaffErrors = Partial<Record<"propertyId" | "channel" | "awareAt" | "tenantUserId", string>>;
 
 /**
@@ -61,6 +65,8 @@ export function StaffReportForm({ home, homePicker, tenants, tenantsLoading, onC
   const [sending, setSending] = useState(false);
   const [sendError, setSendError] = useState<string | null>(null);
   const vulnerability = useWatch({ control: form.control, name: "vulnerability" });
+  const t = english();
+  const heatingCost = equipmentQuestion(t, "heatingCost");
 
   const checkStaffFields = (): { errors: StaffErrors; awareIso: string | null } => {
     const errors: StaffErrors = {};
@@ -194,29 +200,32 @@ export function StaffReportForm({ home, homePicker, tenants, tenantsLoading, onC
           The home's equipment and the household
         </h3>
         <p className="-mt-3 text-ink-soft">Optional: ask only what the tenant is happy to answer.</p>
-        {EQUIPMENT_QUESTIONS.map((q) => (
-          <ChoiceField
-            key={q}
-            control={form.control}
-            name={`equipment.${q}`}
-            kind="radio"
-            legend={equipmentQuestions[q].question}
-            hint={equipmentQuestions[q].hint}
-            options={EQUIPMENT_ANSWERS.map((value) => ({ value, label: equipmentQuestions[q].answers[value] }))}
-            clearLabel={
-              <>
-                Clear the answer<span className="sr-only">: {equipmentQuestions[q].question}</span>
-              </>
-            }
-          />
-        ))}
+        {EQUIPMENT_QUESTIONS.map((q) => {
+          const question = equipmentQuestion(t, q);
+          return (
+            <ChoiceField
+              key={q}
+              control={form.control}
+              name={`equipment.${q}`}
+              kind="radio"
+              legend={question.question}
+              hint={question.hint}
+              options={question.choices}
+              clearLabel={
+                <>
+                  Clear the answer<span className="sr-only">: {question.question}</span>
+                </>
+              }
+            />
+          );
+        })}
         <ChoiceField
           control={form.control}
           name="vulnerability"
           kind="checkbox"
           legend="Does anyone in the household fit any of these?"
           hint="Leave it empty if the tenant would rather not say."
-          options={choices(vulnerabilityLabels, VULNERABILITIES)}
+          options={choices(t, "vulnerability", VULNERABILITIES)}
           value={householdNone ? [] : (vulnerability ?? [])}
           onChange={(next: never[]) => {
             setHouseholdNone(false);
@@ -224,13 +233,26 @@ export function StaffReportForm({ home, homePicker, tenants, tenantsLoading, onC
           }}
           after={
             <ExclusiveCheckbox
-              label={householdNoneLabel}
+              label={t("report:household.none")}
               checked={householdNone}
               onChange={(checked) => {
                 setHouseholdNone(checked);
                 form.setValue("vulnerability", checked ? [] : undefined);
               }}
             />
+          }
+        />
+        <ChoiceField
+          control={form.control}
+          name="equipment.heatingCost"
+          kind="radio"
+          legend={heatingCost.question}
+          hint="Optional, and only if the tenant is happy to say. “Hard to afford” adds the landlord's support route to the home's advice."
+          options={heatingCost.choices}
+          clearLabel={
+            <>
+              Clear the answer<span className="sr-only">: {heatingCost.question}</span>
+            </>
           }
         />
       </section>

@@ -1,46 +1,29 @@
-import { useEffect, useState } from "react";
+import type { TFunction } from "i18next";
+import { useState } from "react";
+import { useTranslation } from "react-i18next";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { ConfirmDialog } from "@/components/ui/dialog";
 import { TextLink } from "@/components/ui/text-link";
-import { formatDateTime } from "@/lib/dates";
+import { formatDateTimeIn } from "@/lib/dates";
+import { i18n } from "@/lib/i18n/i18n";
 import { useReportQueue, type SentResult } from "../hooks/use-report-queue";
-import { getQueueState, loadQueue, subscribeQueue, type QueuedReport } from "../lib/report-queue";
-
-// Every word these notes show, in one place (for the translations to come).
-const words = {
-  waitingTitle: "Your report is waiting to send",
-  waitingBody:
-    "There is no signal at the moment, so your report is kept on this phone. It will send by itself when you are back online. You do not need to fill it in again.",
-  partlySent: "Your report has reached your landlord. The rest is kept on this phone and will send by itself.",
-  kept: (what: string) => `Kept on this phone: ${what}.`,
-  keptSince: (when: string) => `Saved at ${when}.`,
-  sendNow: "Try to send it now",
-  stillNoSignal: "Still no signal. We will keep trying when you are back online.",
-  refusedTitle: "Your report could not be sent",
-  refusedBody: "It is still kept on this phone. You can try again, or remove it and start a new report.",
-  remove: "Remove it from this phone",
-  removeTitle: "Remove this report from your phone?",
-  removeBody: "The answers, photos and readings kept on this phone for it will be deleted. This cannot be undone.",
-  removeConfirm: "Remove it",
-  keep: "Keep it",
-  sentTitle: "Your report has been sent",
-  sentBody: "Your landlord has it now.",
-  sentLink: "See your report",
-  deviceNote:
-    "A report is kept on this phone, waiting to send. It will send by itself when you are back online and Dewline opens again.",
-} as const;
-
-const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+import type { QueuedReport } from "../lib/report-queue";
 
 /** What is kept on the phone for a report, in words: "your answers, 2 photos and 1 reading". */
-export function keptParts(r: QueuedReport): string {
-  const parts = [r.caseId === undefined ? "your answers" : null];
-  if (!r.photosDone && r.photos.length) parts.push(plural(r.photos.length, "photo", "photos"));
-  if (!r.readingsDone && r.readings.length) parts.push(plural(r.readings.length, "reading", "readings"));
-  if (r.loggerFile) parts.push("your logger file");
+export function keptParts(t: TFunction, r: QueuedReport): string {
+  const parts = [r.caseId === undefined ? t("report:queue.answers") : null];
+  if (!r.photosDone && r.photos.length) parts.push(t("report:queue.photos", { count: r.photos.length }));
+  if (!r.readingsDone && r.readings.length) parts.push(t("report:queue.readings", { count: r.readings.length }));
+  if (r.loggerFile) parts.push(t("report:queue.loggerFile"));
   const list = parts.filter((p): p is string => p !== null);
-  return list.length > 1 ? `${list.slice(0, -1).join(", ")} and ${list.at(-1)}` : (list[0] ?? "your report");
+  return list.length ? joinAnd(t, list) : t("report:queue.yourReport");
+}
+
+/** "a, b and c" in the reader's language. */
+function joinAnd(t: TFunction, items: string[]): string {
+  if (items.length === 1) return items[0]!;
+  return t("report:queue.and", { list: items.slice(0, -1).join(", "), last: items.at(-1) });
 }
 
 interface WaitingReportsProps {
@@ -53,6 +36,7 @@ interface WaitingReportsProps {
 
 /** The tenant's reports kept on this phone, each with its state and a way to send it now. */
 export function WaitingReports({ userId, onSent, showSent = true }: WaitingReportsProps) {
+  const { t, i18n: active } = useTranslation("report", { i18n });
   const queue = useReportQueue(userId, onSent);
   const [removing, setRemoving] = useState<string | null>(null);
 
@@ -64,12 +48,19 @@ export function WaitingReports({ userId, onSent, showSent = true }: WaitingRepor
           <Alert
             key={r.id}
             tone={r.refusal ? "danger" : "warning"}
-            title={r.refusal ? words.refusedTitle : words.waitingTitle}
+            title={t(r.refusal ? "queue.refusedTitle" : "queue.waitingTitle")}
             live={r.refusal ? "alert" : "status"}
           >
             {r.refusal ? (
               <>
-                <p>{r.refusal.message}</p>
+                <p>
+                  {r.refusal.step === "photos"
+                    ? `${t("queue.refusedPhotos")} `
+                    : r.refusal.step === "readings"
+                      ? `${t("queue.refusedReadings")} `
+                      : null}
+                  {r.refusal.message}
+                </p>
                 {r.refusal.fields?.length ? (
                   <ul className="mt-1 list-disc pl-5">
                     {r.refusal.fields.map((f) => (
@@ -77,48 +68,50 @@ export function WaitingReports({ userId, onSent, showSent = true }: WaitingRepor
                     ))}
                   </ul>
                 ) : null}
-                <p className="mt-1">{words.refusedBody}</p>
+                <p className="mt-1">{t("queue.refusedBody")}</p>
               </>
             ) : (
-              <p>{r.caseId === undefined ? words.waitingBody : words.partlySent}</p>
+              <p>{t(r.caseId === undefined ? "queue.waitingBody" : "queue.partlySent")}</p>
             )}
             <p className="mt-1">
-              {words.kept(keptParts(r))} {words.keptSince(formatDateTime(r.queuedAt))}
+              {t("queue.kept", { what: keptParts(t, r) })}{" "}
+              {t("queue.keptSince", { when: formatDateTimeIn(active.language, r.queuedAt) })}
             </p>
-            <p className="mt-1 italic">
+            <p className="mt-1 italic" translate="no">
               “{r.report.description.slice(0, 80)}
               {r.report.description.length > 80 ? "…" : ""}”
             </p>
             <div className="mt-3 flex flex-wrap gap-3">
               <Button variant="secondary" size="sm" busy={sending} onClick={() => void queue.retry(r.id)}>
-                {words.sendNow}
+                {t("queue.sendNow")}
               </Button>
               {r.refusal ? (
                 <Button variant="secondary" size="sm" onClick={() => setRemoving(r.id)}>
-                  {words.remove}
+                  {t("queue.remove")}
                 </Button>
               ) : null}
             </div>
             <p role="status" className="mt-2 text-sm font-semibold">
-              {queue.stillWaiting(r.id) && !sending ? words.stillNoSignal : null}
+              {queue.stillWaiting(r.id) && !sending ? t("queue.stillNoSignal") : null}
             </p>
           </Alert>
         );
       })}
       {showSent
         ? queue.sent.map((s) => (
-            <Alert key={s.report.id} tone="success" title={words.sentTitle}>
+            <Alert key={s.report.id} tone="success" title={t("queue.sentTitle")}>
               <p>
-                {words.sentBody} <TextLink to={s.created ? `/cases/${s.created.id}` : "/cases"}>{words.sentLink}</TextLink>
+                {t("queue.sentBody")}{" "}
+                <TextLink to={s.created ? `/cases/${s.created.id}` : "/cases"}>{t("queue.sentLink")}</TextLink>
               </p>
             </Alert>
           ))
         : null}
       <ConfirmDialog
         open={removing !== null}
-        title={words.removeTitle}
-        confirmLabel={words.removeConfirm}
-        cancelLabel={words.keep}
+        title={t("queue.removeTitle")}
+        confirmLabel={t("queue.removeConfirm")}
+        cancelLabel={t("queue.keep")}
         tone="danger"
         onConfirm={() => {
           if (removing) void queue.remove(removing);
@@ -126,33 +119,8 @@ export function WaitingReports({ userId, onSent, showSent = true }: WaitingRepor
         }}
         onCancel={() => setRemoving(null)}
       >
-        {words.removeBody}
+        {t("queue.removeBody")}
       </ConfirmDialog>
     </div>
-  );
-}
-
-/**
- * For a page that could not reach the server (opened with no signal): says a report is kept here,
- * without showing it (whose it is is not known yet), and opens the page again once back online.
- */
-export function WaitingOnThisDevice() {
-  const [count, setCount] = useState(() => getQueueState().items.length);
-  useEffect(() => {
-    const refresh = () => setCount(getQueueState().items.length);
-    const unsubscribe = subscribeQueue(refresh);
-    void loadQueue().then(refresh);
-    const reload = () => window.location.reload();
-    window.addEventListener("online", reload);
-    return () => {
-      unsubscribe();
-      window.removeEventListener("online", reload);
-    };
-  }, []);
-  if (!count) return null;
-  return (
-    <Alert tone="warning" title={words.waitingTitle} live="none" className="mx-auto w-full max-w-reading">
-      <p>{words.deviceNote}</p>
-    </Alert>
   );
 }

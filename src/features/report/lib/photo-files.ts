@@ -11,30 +11,32 @@ const HEIC_EXTENSIONS = [".heic", ".heif"];
 /** For the file input: lets phones offer the camera and the photo library. */
 export const PHOTO_ACCEPT = [...ACCEPTED_PHOTO_TYPES, ...ACCEPTED_EXTENSIONS].join(",");
 
-export const HEIC_ADVICE =
-  "This photo is in HEIC format, which we can't read yet. On an iPhone, go to Settings, then Camera, then Formats, and choose Most Compatible; or share the photo as a JPEG. Then add it again.";
-
 const extension = (name: string) => {
   const dot = name.lastIndexOf(".");
   return dot === -1 ? "" : name.slice(dot).toLowerCase();
 };
 
-/** Why a file cannot be sent as a photo, or null when it can. */
-export function photoProblem(file: File): string | null {
+/**
+ * Why a file cannot be sent as a photo, or null when it can: a key under `photos.problem` in the
+ * `report` namespace (the picker says it in the person's language).
+ */
+export type PhotoProblem = "heic" | "type" | "tooBig" | "empty" | "tooMany";
+
+export function photoProblem(file: File): PhotoProblem | null {
   const type = file.type.toLowerCase();
   const ext = extension(file.name);
-  if (HEIC_TYPES.includes(type) || HEIC_EXTENSIONS.includes(ext)) return HEIC_ADVICE;
+  if (HEIC_TYPES.includes(type) || HEIC_EXTENSIONS.includes(ext)) return "heic";
   const known = type ? (ACCEPTED_PHOTO_TYPES as readonly string[]).includes(type) : ACCEPTED_EXTENSIONS.includes(ext);
-  if (!known) return "This file isn't a kind of picture we can use. Please choose a JPEG, PNG, WebP or AVIF photo.";
-  if (file.size > MAX_PHOTO_BYTES)
-    return `This photo is ${megabytes(file.size)}, more than the 15 MB we can take. Please choose a smaller photo.`;
-  if (file.size === 0) return "This file is empty. Please choose the photo again.";
+  if (!known) return "type";
+  if (file.size > MAX_PHOTO_BYTES) return "tooBig";
+  if (file.size === 0) return "empty";
   return null;
 }
 
-export function megabytes(bytes: number): string {
+/** A file's size in megabytes as shown: one decimal under 10 MB, whole megabytes from 10. */
+export function megabytesOf(bytes: number): { key: "megabytes" | "megabytesWhole"; mb: number } {
   const mb = bytes / (1024 * 1024);
-  return mb >= 10 ? `${Math.round(mb)} MB` : `${mb.toFixed(1)} MB`;
+  return mb >= 10 ? { key: "megabytesWhole", mb: Math.round(mb) } : { key: "megabytes", mb: Number(mb.toFixed(1)) };
 }
 
 /** The files the server refused, from a 4xx whose `details.refused` lists them (none of the batch was taken). */
@@ -49,7 +51,7 @@ export function refusedFromError(error: unknown): { name: string; message: strin
 
 export interface PhotoSelection {
   accepted: File[];
-  problems: { name: string; message: string }[];
+  problems: { name: string; size: number; problem: PhotoProblem }[];
 }
 
 /** Adds newly picked files to those already chosen, keeping at most MAX_PHOTOS. */
@@ -59,11 +61,11 @@ export function addPhotos(current: readonly File[], picked: readonly File[]): Ph
   for (const file of picked) {
     const problem = photoProblem(file);
     if (problem) {
-      problems.push({ name: file.name, message: problem });
+      problems.push({ name: file.name, size: file.size, problem });
     } else if (accepted.some((f) => f.name === file.name && f.size === file.size && f.lastModified === file.lastModified)) {
       // The same photo picked twice: keep one quietly.
     } else if (accepted.length >= MAX_PHOTOS) {
-      problems.push({ name: file.name, message: `You can add up to ${MAX_PHOTOS} photos at a time, so this one was left out.` });
+      problems.push({ name: file.name, size: file.size, problem: "tooMany" });
     } else {
       accepted.push(file);
     }

@@ -29,7 +29,17 @@ export interface QueuedReport {
   /** Photos the server could not read (kept out, with the reason, so the rest can go). */
   refusedPhotos?: { name: string; message: string }[];
   /** The server said no (4xx): kept, with its reason, until the tenant tries again or removes it. */
-  refusal?: { status: number; code: string; message: string; fields?: { field: string; message: string }[] };
+  /**
+   * The server's answer when it refused a part. `step` says which part after the case was made (the
+   * page says "sent, but not your photos" in the person's language); older copies carry it in `message`.
+   */
+  refusal?: {
+    status: number;
+    code: string;
+    message: string;
+    step?: "photos" | "readings";
+    fields?: { field: string; message: string }[];
+  };
 }
 
 /** Where the queue lives: IndexedDB in the browser, a plain object in the unit tests. */
@@ -221,7 +231,8 @@ export async function sendQueued(id: string, onStep?: (step: SendStep) => void):
     const refusal = {
       status: apiError.status,
       code: apiError.code,
-      message: step === "case" ? errorMessage(apiError) : `${stepWords[step]} ${errorMessage(apiError)}`,
+      message: errorMessage(apiError),
+      ...(step === "case" ? {} : { step }),
       fields: apiError.fieldErrors.length ? apiError.fieldErrors : undefined,
     };
     report = (await update(id, (r) => ({ ...r, refusal }))) ?? report;
@@ -230,11 +241,6 @@ export async function sendQueued(id: string, onStep?: (step: SendStep) => void):
     setState({ sending: state.sending.filter((s) => s !== id) });
   }
 }
-
-const stepWords: Record<Exclude<SendStep, "case">, string> = {
-  photos: "Your report was sent, but not your photos:",
-  readings: "Your report was sent, but not your readings:",
-};
 
 let flushing: Promise<SendResult[]> | null = null;
 

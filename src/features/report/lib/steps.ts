@@ -4,13 +4,14 @@ import type { ReportFormValues } from "./draft";
 
 export type FieldName = FieldPath<ReportFormValues>;
 
-export const STEPS: { title: string; fields: FieldName[] }[] = [
-  { title: "What you can see, and where", fields: ["description", "locations", "observations", "roomIds"] },
-  { title: "How long, and how big", fields: ["since", "area"] },
-  { title: "About your home and household", fields: ["equipment", "vulnerability"] },
-  { title: "Photos", fields: [] },
-  { title: "Readings", fields: [] },
-  { title: "Check and send", fields: [] },
+/** `title` is the step's key in the `report` namespace (report:steps.<title>). */
+export const STEPS: { title: "describe" | "extent" | "home" | "photos" | "readings" | "check"; fields: FieldName[] }[] = [
+  { title: "describe", fields: ["description", "locations", "observations", "roomIds"] },
+  { title: "extent", fields: ["since", "area"] },
+  { title: "home", fields: ["equipment", "vulnerability"] },
+  { title: "photos", fields: [] },
+  { title: "readings", fields: [] },
+  { title: "check", fields: [] },
 ];
 export const PHOTOS_STEP = 3;
 export const READINGS_STEP = 4;

@@ -1,4 +1,6 @@
+import { useTranslation } from "react-i18next";
 import { Alert } from "@/components/ui/alert";
+import { i18n } from "@/lib/i18n/i18n";
 import type { RoomOption } from "../../api/types";
 import type { ReportDraftState } from "../../hooks/use-report-draft";
 import { PHOTOS_STEP, READINGS_STEP } from "../../lib/steps";
@@ -10,15 +12,14 @@ type CheckStepProps = Pick<ReportDraftState, "form" | "household" | "photos" | "
   sendError: string | null;
 };
 
-const count = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
-
 /** The last step: every answer to check, each with a way back to change it, before sending. */
 export function CheckStep({ form, household, photos, readings, logger, rooms, goTo, sendError }: CheckStepProps) {
+  const { t } = useTranslation("report", { i18n });
   const values = form.watch();
-  const roomName = (id: number) => rooms.find((r) => r.id === id)?.name ?? "A room";
+  const roomName = (id: number) => rooms.find((r) => r.id === id)?.name ?? t("form.aRoom");
   return (
     <div className="flex flex-col gap-4">
-      <p>Please check your answers. You can change any of them before you send.</p>
+      <p>{t("check.intro")}</p>
       <ReportSummary
         onChange={goTo}
         answers={{
@@ -34,21 +35,31 @@ export function CheckStep({ form, household, photos, readings, logger, rooms, go
         }}
         extra={
           <>
-            <SummaryCard title="Photos" step={PHOTOS_STEP} onChange={goTo}>
-              <Row term="Photos to send" value={photos.length ? count(photos.length, "photo", "photos") : "None"} />
+            <SummaryCard title={t("steps.photos")} step={PHOTOS_STEP} onChange={goTo}>
+              <Row
+                term={t("check.photosToSend")}
+                value={photos.length ? t("check.photoCount", { count: photos.length }) : t("check.none")}
+              />
             </SummaryCard>
-            <SummaryCard title="Readings" step={READINGS_STEP} onChange={goTo}>
-              <Row term="Readings by hand" value={readings.length ? count(readings.length, "reading", "readings") : "None"} />
-              <Row term="Logger file" value={logger.file ? logger.file.name : "None"} />
+            <SummaryCard title={t("steps.readings")} step={READINGS_STEP} onChange={goTo}>
+              <Row
+                term={t("check.readingsByHand")}
+                value={readings.length ? t("check.readingCount", { count: readings.length }) : t("check.none")}
+              />
+              <Row
+                term={t("check.loggerFile")}
+                value={logger.file ? logger.file.name : t("check.none")}
+                data={Boolean(logger.file)}
+              />
             </SummaryCard>
           </>
         }
       />
-      <p>When you send this report, your landlord is told straight away. They will look into it whatever any readings say.</p>
+      <p>{t("check.sendNote")}</p>
       {sendError ? (
-        <Alert tone="danger" title="Your report has not been sent yet">
+        <Alert tone="danger" title={t("check.notSentTitle")}>
           <p>{sendError}</p>
-          <p className="mt-1">Your answers are kept on this device, so nothing is lost. Please try again.</p>
+          <p className="mt-1">{t("check.notSentBody")}</p>
         </Alert>
       ) : null}
     </div>

@@ -1,23 +1,27 @@
 import type { Control } from "react-hook-form";
+import { useTranslation } from "react-i18next";
+import { i18n } from "@/lib/i18n/i18n";
 import { AREAS, DURATIONS, type CaseReport } from "@/lib/schemas/case-report";
-import { areaLabels, choices, durationLabels } from "../../labels";
+import { choices } from "../../labels";
 import type { ReportFormValues } from "../../lib/draft";
 import { ChoiceField } from "../choice-field";
 
 /** Step 2: how long it has been happening, and how big the biggest patch is. */
 export function ExtentStep({ control }: { control: Control<ReportFormValues, unknown, CaseReport> }) {
+  const { t } = useTranslation("report", { i18n });
   return (
     <div className="flex flex-col gap-6">
-      <p>A rough idea is fine. You can skip either question.</p>
+      <p>{t("extent.intro")}</p>
       <ChoiceField
         control={control}
         name="since"
         kind="radio"
-        legend="How long has this been happening?"
-        options={choices(durationLabels, DURATIONS)}
+        legend={t("extent.since")}
+        options={choices(t, "duration", DURATIONS)}
         clearLabel={
           <>
-            Clear my answer<span className="sr-only">: how long</span>
+            {t("form.clearAnswer")}
+            <span className="sr-only">: {t("extent.sinceShort")}</span>
           </>
         }
       />
@@ -25,12 +29,13 @@ export function ExtentStep({ control }: { control: Control<ReportFormValues, unk
         control={control}
         name="area"
         kind="radio"
-        legend="How big is the biggest patch?"
-        hint="If there is no patch, only water on the windows, you can skip this."
-        options={choices(areaLabels, AREAS)}
+        legend={t("extent.area")}
+        hint={t("extent.areaHint")}
+        options={choices(t, "area", AREAS)}
         clearLabel={
           <>
-            Clear my answer<span className="sr-only">: how big</span>
+            {t("form.clearAnswer")}
+            <span className="sr-only">: {t("extent.areaShort")}</span>
           </>
         }
       />

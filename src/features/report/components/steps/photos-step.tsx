@@ -1,3 +1,5 @@
+import { useTranslation } from "react-i18next";
+import { i18n } from "@/lib/i18n/i18n";
 import { PhotoPicker } from "../photo-picker";
 
 /** Step 4: photos, optional; they cannot be kept on this device with the other answers. */
@@ -10,17 +12,12 @@ export function PhotosStep({
   onChange: (photos: File[]) => void;
   disabled: boolean;
 }) {
+  const { t } = useTranslation("report", { i18n });
   return (
     <div className="flex flex-col gap-4">
-      <p>
-        Photos help your landlord see what you see. If you can, take one close up and one from further back, in daylight. Photos
-        are optional.
-      </p>
+      <p>{t("photos.intro")}</p>
       <PhotoPicker value={photos} onChange={onChange} disabled={disabled} />
-      <p className="text-sm text-ink-soft">
-        Your other answers are kept on this device as you go, but photos can't be. If you leave before sending, you'll need to add
-        them again.
-      </p>
+      <p className="text-sm text-ink-soft">{t("photos.notKept")}</p>
     </div>
   );
 }

@@ -1,6 +1,8 @@
+import { useTranslation } from "react-i18next";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
-import { formatDateTime } from "@/lib/dates";
+import { formatDateTimeIn } from "@/lib/dates";
+import { i18n } from "@/lib/i18n/i18n";
 import type { RoomOption } from "../../api/types";
 import type { ReportDraftState } from "../../hooks/use-report-draft";
 import { LoggerFileFields } from "../csv-import";
@@ -23,20 +25,18 @@ type ReadingsStepProps = Pick<
 
 /** Step 5: readings by hand and a logger's file, optional; the landlord looks into the report whatever they say. */
 export function ReadingsStep(p: ReadingsStepProps) {
-  const roomName = (id: number) => p.rooms.find((r) => r.id === id)?.name ?? "A room";
+  const { t, i18n: active } = useTranslation("report", { i18n });
+  const roomName = (id: number) => p.rooms.find((r) => r.id === id)?.name ?? t("form.aRoom");
   return (
     <div className="flex flex-col gap-6">
-      <p>
-        If you have a thermometer and a humidity meter, or a logger that records them, readings can help find the cause. They are
-        optional: your landlord will look into your report whatever the readings say.
-      </p>
+      <p>{t("readings.intro")}</p>
       <section aria-labelledby={`${p.headingId}-hand`} className="flex flex-col gap-3">
         <h3 id={`${p.headingId}-hand`} className="text-lg font-bold">
-          A reading by hand
+          {t("readings.byHand")}
         </h3>
         {p.readings.length ? (
           <div className="flex flex-col gap-2">
-            <h4 className="font-bold">Readings you've added ({p.readings.length})</h4>
+            <h4 className="font-bold">{t("readings.added", { count: p.readings.length })}</h4>
             <ul className="flex flex-col gap-2">
               {p.readings.map((r, i) => (
                 <li
@@ -44,13 +44,21 @@ export function ReadingsStep(p: ReadingsStepProps) {
                   className="flex flex-wrap items-center justify-between gap-2 rounded-md border border-line bg-paper px-3 py-2"
                 >
                   <span>
-                    <span className="font-semibold">{roomName(r.roomId)}</span>, {formatDateTime(r.takenAt)}: {r.airTemperatureC}{" "}
-                    °C, {r.relativeHumidityPct} %
-                    {r.surfaceTemperatureC !== undefined ? `, surface ${r.surfaceTemperatureC} °C` : ""}
-                    {r.outdoorTemperatureC !== undefined ? `, outdoors ${r.outdoorTemperatureC} °C` : ""}
+                    <span className="font-semibold" translate="no">
+                      {roomName(r.roomId)}
+                    </span>
+                    , {formatDateTimeIn(active.language, r.takenAt)}:{" "}
+                    {[
+                      t("readings.summary", { air: r.airTemperatureC, rh: r.relativeHumidityPct }),
+                      r.surfaceTemperatureC !== undefined ? t("readings.summarySurface", { t: r.surfaceTemperatureC }) : null,
+                      r.outdoorTemperatureC !== undefined ? t("readings.summaryOutdoor", { t: r.outdoorTemperatureC }) : null,
+                    ]
+                      .filter(Boolean)
+                      .join(", ")}
                   </span>
                   <Button variant="ghost" size="sm" onClick={() => p.removeReading(i)}>
-                    Remove<span className="sr-only"> reading {i + 1}</span>
+                    {t("readings.remove")}
+                    <span className="sr-only"> {t("readings.removeWhich", { n: i + 1 })}</span>
                   </Button>
                 </li>
               ))}
@@ -67,14 +75,14 @@ export function ReadingsStep(p: ReadingsStepProps) {
           }}
         />
         {p.warnedUnadded ? (
-          <Alert tone="warning" title="You have typed a reading that isn't added yet" live="alert">
-            Choose “Add this reading” to keep it. To go on without it, choose Next again.
+          <Alert tone="warning" title={t("readings.unaddedTitle")} live="alert">
+            {t("readings.unaddedBody")}
           </Alert>
         ) : null}
       </section>
       <section aria-labelledby={`${p.headingId}-file`} className="flex flex-col gap-3">
         <h3 id={`${p.headingId}-file`} className="text-lg font-bold">
-          Readings from a logger
+          {t("readings.fromLogger")}
         </h3>
         <LoggerFileFields
           rooms={p.rooms}
@@ -89,12 +97,9 @@ export function ReadingsStep(p: ReadingsStepProps) {
         />
         {p.logger.file ? (
           <div className="flex flex-col items-start gap-2">
-            <p className="text-sm">
-              After you send your report, we'll show you the first rows of this file so you can check which column is which before
-              the readings are added.
-            </p>
+            <p className="text-sm">{t("readings.loggerAfter")}</p>
             <Button variant="ghost" size="sm" onClick={() => p.setLoggerFile(null)}>
-              Remove the file
+              {t("readings.removeFile")}
             </Button>
           </div>
         ) : null}
