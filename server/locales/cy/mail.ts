@@ -81,12 +81,12 @@ const cy: Record<keyof typeof en, string> = {
   "appointmentCancelled.reason": "Rheswm: {reason}",
   "appointmentCancelled.calendar": "Mae'r ffeil calendr sydd ynghlwm yn ei dynnu o'ch calendr.",
 
-  "slot.am": "{day, date, day}, yn y bore, rhwng 8am a 12 canol dydd",
-  "slot.pm": "{day, date, day}, yn y prynhawn, rhwng 12 canol dydd a 5pm",
-  "slot.all-day": "{day, date, day}, drwy'r dydd, rhwng 8am a 5pm",
+  "slot.am": "{day, date, day}, yn y bore, 8am tan 12 canol dydd",
+  "slot.pm": "{day, date, day}, yn y prynhawn, 12 canol dydd tan 5pm",
+  "slot.all-day": "{day, date, day}, drwy'r dydd, 8am tan 5pm",
 
   "work.extractor-fan": "gosod neu drwsio ffan echdynnu",
-  "work.fan-upgrade": "uwchraddio ffan echdynnu (un sy'n rhedeg drwy'r amser neu'n ymateb i leithder)",
+  "work.fan-upgrade": "uwchraddio ffan echdynnu (parhaus neu'n synhwyro lleithder)",
   "work.trickle-vents": "gosod neu ddadflocio fentiau diferu (trickle vents)",
   "work.door-undercut": "torri gwaelod drysau i aer lifo",
   "work.piv-unit": "uned awyru mewnbwn positif",

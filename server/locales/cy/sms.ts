@@ -7,7 +7,7 @@ const cy: Record<keyof typeof en, string> = {
   "appointment-offered":
     "{landlord}: Gallwn ddod ynghylch eich adroddiad lleithder a llwydni {reference}. {work}: {slot}. Cadarnhewch neu gofynnwch am ddiwrnod arall yma: {link}",
   "appointment-offered.rescheduled":
-    "{landlord}: Mae gennym ddiwrnod newydd ynghylch eich adroddiad lleithder a llwydni {reference}. {work}: {slot}. Cadarnhewch neu gofynnwch am ddiwrnod arall yma: {link}",
+    "{landlord}: Diwrnod newydd ar gyfer eich adroddiad lleithder a llwydni {reference}. {work}: {slot}. Cadarnhewch neu gofynnwch am ddiwrnod arall yma: {link}",
   "appointment-reminder":
     "{landlord}: Rydym yn dod yfory, {slot}, ynghylch adroddiad {reference} ({work}). Angen diwrnod arall? Dywedwch wrthym yma: {link}",
   "landlord-replied": "{landlord}: Rydym wedi anfon neges atoch am eich adroddiad {reference}. Darllenwch hi yma: {link}",
