@@ -5,7 +5,8 @@ import IntlMessageFormat from "intl-messageformat";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startSmsStandIn, type SmsStandIn } from "../../scripts/lib/sms-stand-in.js";
 import { loadConfig } from "../../server/config/env.js";
-import { MESSAGE_LANGUAGES, MESSAGES, messageLanguage } from "../../server/lib/i18n.js";
+import { MESSAGE_LANGUAGES, MESSAGES, messageLanguage, translator } from "../../server/lib/i18n.js";
+import { mailTemplates } from "../../server/modules/mail/mail-templates.js";
 import { OutboxEmail } from "../../server/modules/mail/outbox-email.entity.js";
 import { OutboxSms } from "../../server/modules/sms/outbox-sms.entity.js";
 import { renderSms, SMS_KINDS, type SmsTexts } from "../../server/modules/sms/sms-texts.js";
@@ -167,6 +168,33 @@ describe("the words", () => {
       "en-GB",
       "en-GB",
     ]);
+  });
+
+  it("a sensor's findings and the mould cautions are worded in the tenant's language; room names stay as the landlord keeps them", () => {
+    const d = {
+      name: "Ana",
+      reference: "DW-2026-00009",
+      address: "4 Heol y Nant",
+      link: "http://dewline.test/cases/9",
+      organisationName: "Cwm Homes",
+      emergencyPhone: null,
+      findings: [
+        { room: "Bedroom", rule: "condensing-days", hoursAt80: 0, condensingDays: 3 },
+        { room: null, rule: "hours-at-80", hoursAt80: 40.4, condensingDays: 0 },
+      ],
+    };
+    const cy = mailTemplates.sensorCaseNotice(d, translator("cy", "mail")).text;
+    expect(cy).toContain("- Bedroom: roedd dŵr yn cyddwyso ar arwyneb oer ar 3 o'r 7 diwrnod diwethaf.");
+    expect(cy).toContain(
+      "- Ystafell: dros y 7 diwrnod diwethaf, roedd wyneb wal neu ffenestr yn ddigon llaith i lwydni ddechrau am tua 40 awr.",
+    );
+    expect(cy).toContain("peidiwch â'i grafu'n sych na'i frwsio");
+    expect(cy).toContain("(mae'r rhif ar eich contract meddiannaeth)");
+    const en = mailTemplates.sensorCaseNotice(d, translator("en-GB", "mail")).text;
+    expect(en).toContain("- Bedroom: water was condensing on a cold surface on 3 of the last 7 days.");
+    expect(en).toContain(
+      "- A room: over the last 7 days, a wall or window surface was damp enough for mould to start for about 40 hours.",
+    );
   });
 
   it("Welsh texts keep to the GSM-7 alphabet (charged per 160 characters) and to at most two parts, like the English", () => {

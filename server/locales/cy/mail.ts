@@ -51,6 +51,11 @@ const cy: Record<keyof typeof en, string> = {
   "sensorCaseNotice.opened":
     "Mae'r synwyryddion a osododd {organisationName} yn {address} yn dangos amodau lle gall lleithder a llwydni ddechrau, felly rydym wedi agor achos i edrych arno. Does dim rhaid i chi wneud dim i'w ddechrau, a does dim byd yma'n dweud eich bod chi wedi gwneud dim o'i le: mae lleithder fel hyn fel arfer yn dod o'r ffordd y mae cartref wedi'i adeiladu, ei wresogi neu ei awyru, a'n gwaith ni yw dod o hyd i'r achos a'i unioni.",
   "sensorCaseNotice.saw": "Beth welodd y synhwyrydd:",
+  "sensorFinding.hours-at-80":
+    "{room}: dros y 7 diwrnod diwethaf, roedd wyneb wal neu ffenestr yn ddigon llaith i lwydni ddechrau am tua {hours, plural, other {# awr}}.",
+  "sensorFinding.condensing-days": "{room}: roedd dŵr yn cyddwyso ar arwyneb oer ar {days} o'r 7 diwrnod diwethaf.",
+  "sensorFinding.other": "{room}: mae'r amodau a fesurwyd dros yr wythnosau diwethaf yn rhai lle gall llwydni ddechrau tyfu.",
+  "sensorFinding.aRoom": "Ystafell",
   "sensorCaseNotice.next":
     "Beth sy'n digwydd nesaf: bydd swyddog yn cysylltu â chi i drefnu ymweliad. Eich cyfeirnod yw {reference}. Gallwch ddilyn yr achos, ychwanegu lluniau a dweud wrthym unrhyw beth rydych chi wedi sylwi arno yn:",
 

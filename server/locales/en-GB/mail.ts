@@ -50,6 +50,11 @@ export default {
   "sensorCaseNotice.opened":
     "The sensors {organisationName} fitted at {address} show conditions in which damp and mould can start, so we have opened a case to look into it. You do not need to do anything to start it, and nothing here says you have done anything wrong: damp like this usually comes from how a home is built, heated or ventilated, and it is ours to find the cause and put it right.",
   "sensorCaseNotice.saw": "What the sensor saw:",
+  "sensorFinding.hours-at-80":
+    "{room}: over the last 7 days, a wall or window surface was damp enough for mould to start for about {hours, plural, one {# hour} other {# hours}}.",
+  "sensorFinding.condensing-days": "{room}: water was condensing on a cold surface on {days} of the last 7 days.",
+  "sensorFinding.other": "{room}: the conditions measured over recent weeks are ones in which mould can begin to grow.",
+  "sensorFinding.aRoom": "A room",
   "sensorCaseNotice.next":
     "What happens next: an officer will contact you to arrange a visit. Your reference is {reference}. You can follow the case, add photos and tell us anything you have noticed at:",
 

@@ -51,6 +51,24 @@ export interface Slot {
   window: "am" | "pm" | "all-day";
 }
 
+/** What one room's sensor saw, worded in the tenant's language by the e-mail (never suggesting blame). */
+export interface SensorFinding {
+  /** The room's name as the landlord keeps it; null when the room is not known. */
+  room: string | null;
+  rule: string;
+  hoursAt80: number;
+  condensingDays: number;
+}
+
+const SENSOR_RULES = new Set(["hours-at-80", "condensing-days"]);
+
+const findingWords = (t: Translate, f: SensorFinding): string =>
+  t(`sensorFinding.${SENSOR_RULES.has(f.rule) ? f.rule : "other"}`, {
+    room: f.room ?? t("sensorFinding.aRoom"),
+    hours: Math.round(f.hoursAt80),
+    days: f.condensingDays,
+  });
+
 /** The kind of work (a work order's type) in the recipient's words. */
 export const workWords = (t: Translate, workType: string): string => t(`mail:work.${workType}`);
 
@@ -183,8 +201,8 @@ export const mailTemplates = {
       name: string;
       reference: string;
       address: string;
-      /** Plain sentences about what the sensor saw, e.g. "The sensor in the Bedroom showed …". */
-      findings: string[];
+      /** What each room's sensor saw; one line each, in the tenant's words. */
+      findings: SensorFinding[];
       link: string;
       organisationName: string;
       emergencyPhone?: string | null;
@@ -199,7 +217,7 @@ export const mailTemplates = {
         t("sensorCaseNotice.opened", d),
         "",
         t("sensorCaseNotice.saw"),
-        ...d.findings.map((f) => `- ${f}`),
+        ...[...new Set(d.findings.map((f) => findingWords(t, f)))].map((f) => `- ${f}`),
         "",
         t("sensorCaseNotice.next", d),
         d.link,
