@@ -1,7 +1,7 @@
 // E-mails and texts to a tenant come in the tenant's language (users.preferred_language): Welsh for
 // "cy", English for "en", no language, or one Dewline has no words for ("pl"). Staff copies of the same
 // event stay English. The words are checked too: every key in both languages, every message parses.
-import IntlMessageFormat from "intl-messageformat";
+import { IntlMessageFormat } from "intl-messageformat";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { startSmsStandIn, type SmsStandIn } from "../../scripts/lib/sms-stand-in.js";
 import { loadConfig } from "../../server/config/env.js";
