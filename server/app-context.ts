@@ -165,12 +165,14 @@ export function createServices(
   );
   const cases = new CaseService(dataSource, config, mail, properties, tenancies, users, organisations, clock);
   mail.useCaseTimeline(cases);
+  mail.useRecipientLanguages(users);
   const sms = new SmsService(dataSource, smsProvider, logger, clock, {
     maxAttempts: config.sms.maxAttempts,
     // A claim outlasts any one send with its timeout, with room to spare.
     leaseMs: Math.max(2 * 60_000, 3 * config.sms.timeoutMs),
   });
   cases.useTexts(sms);
+  sms.useRecipientLanguages(users);
   // Case events reach webhooks in their own transaction (the cases module knows only the listener interface).
   // Admins' changes to keys and endpoints are recorded by the integrations module, in each change's transaction.
   const adminActions = new AdminActionService(dataSource, users, clock);

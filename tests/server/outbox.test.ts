@@ -54,8 +54,8 @@ async function queuedOnly(to: string, template: "fixConfirmed" | "appointmentCan
       : {
           name: "Pat",
           reference: "DW-2026-00002",
-          workWords: "mould wash",
-          slotWords: "Monday 9 to 12",
+          workType: "mould-wash",
+          slot: { date: "2026-12-07", window: "am" },
           address: "1 Test Street",
           reason: `Operative ill <b>${text}</b>`,
           link: "http://dewline.test/cases/2",

@@ -12,7 +12,7 @@ import {
 import { ConflictError, NotFoundError, ValidationError } from "../../lib/errors.js";
 import { inTransaction } from "../../lib/transaction.js";
 import { isStaff, type Actor } from "../auth/actor.js";
-import type { MailTemplateName } from "../mail/mail-templates.js";
+import type { MailTemplateName, SensorFinding } from "../mail/mail-templates.js";
 import type { CaseEmailTimeline, MailService, ResentCaseEmail, SendMail } from "../mail/mail.service.js";
 import type { OrganisationService } from "../organisations/organisation.service.js";
 import type { SmsKind, SmsTexts } from "../sms/sms-texts.js";
@@ -539,7 +539,7 @@ export class CaseService implements CaseEmailTimeline {
       input: CaseReport | StaffCaseReport | SensorCaseInput;
       roomIds: number[];
       /** A sensor case: what the sensor saw, told to the tenant instead of the acknowledgement. */
-      sensorFindings?: string[];
+      sensorFindings?: SensorFinding[];
     },
   ): Promise<{ saved: Case; deliveries: (() => Promise<unknown>)[] }> {
     const { property, tenantUserId, channel, awareAt, input, roomIds, sensorFindings } = r;
@@ -630,7 +630,7 @@ export class CaseService implements CaseEmailTimeline {
   async openFromSensor(
     m: EntityManager,
     actor: Actor,
-    input: SensorCaseInput & { propertyId: number; awareAt: Date; findings: string[] },
+    input: SensorCaseInput & { propertyId: number; awareAt: Date; findings: SensorFinding[] },
   ): Promise<{ saved: Case; deliveries: (() => Promise<unknown>)[] }> {
     const property = await this.properties.getForStaff(actor, input.propertyId);
     const tenantUserId = await this.tenancies.currentTenantOf(property.id);

@@ -1,4 +1,8 @@
-// Plain-text-first e-mails. Each template takes only what it shows.
+// Plain-text-first e-mails. Each template takes only what it shows. Those a tenant may receive take the
+// recipient's translator too (server/lib/i18n.ts: English, Welsh; the words live in server/locales/<lng>/mail.ts);
+// the staff ones stay English and ignore it.
+import type { Translate } from "../../lib/i18n.js";
+
 export interface MailAttachment {
   filename: string;
   /** The text, or with `encoding: "base64"` the file's bytes in base64. */
@@ -35,12 +39,42 @@ export function htmlFromText(text: string): string {
 }
 
 /** The sentence giving the landlord's emergency line, with its number when the landlord has set one in its policy. */
-const emergencyLine = (organisationName: string | undefined, phone: string | null | undefined): string => {
-  const whose = organisationName ? `the ${organisationName}` : "your landlord's";
-  return phone
-    ? `call ${whose} emergency line straight away on ${phone}.`
-    : `call ${whose} emergency line straight away (the number is on your tenancy agreement).`;
-};
+const emergencyLine = (t: Translate, organisationName: string | undefined, phone: string | null | undefined): string =>
+  organisationName
+    ? t(phone ? "emergency.namedWithPhone" : "emergency.named", { organisationName, phone })
+    : t(phone ? "emergency.withPhone" : "emergency.plain", { phone });
+
+/** A visit's window on its London day, in the recipient's language ("Tuesday, 8 December 2026, morning, 8am to 12 noon"). */
+export interface Slot {
+  /** The London calendar date, YYYY-MM-DD. */
+  date: string;
+  window: "am" | "pm" | "all-day";
+}
+
+/** What one room's sensor saw, worded in the tenant's language by the e-mail (never suggesting blame). */
+export interface SensorFinding {
+  /** The room's name as the landlord keeps it; null when the room is not known. */
+  room: string | null;
+  rule: string;
+  hoursAt80: number;
+  condensingDays: number;
+}
+
+const SENSOR_RULES = new Set(["hours-at-80", "condensing-days"]);
+
+const findingWords = (t: Translate, f: SensorFinding): string =>
+  t(`sensorFinding.${SENSOR_RULES.has(f.rule) ? f.rule : "other"}`, {
+    room: f.room ?? t("sensorFinding.aRoom"),
+    hours: Math.round(f.hoursAt80),
+    days: f.condensingDays,
+  });
+
+/** The kind of work (a work order's type) in the recipient's words. */
+export const workWords = (t: Translate, workType: string): string => t(`mail:work.${workType}`);
+
+/** The slot in the recipient's words; noon UTC is the same calendar day in London all year. */
+export const slotWords = (t: Translate, slot: Slot): string =>
+  t(`mail:slot.${slot.window}`, { day: new Date(`${slot.date}T12:00:00Z`) });
 
 /**
  * A letter's text without a greeting of its own: the e-mail greets the tenant once, by name, so a
@@ -54,24 +88,21 @@ const calendarFile = (ics: string): MailAttachment[] => [
 ];
 
 export const mailTemplates = {
-  invitation(d: {
-    name: string;
-    organisationName: string;
-    inviterName: string;
-    link: string;
-    expiresHours: number;
-  }): RenderedMail {
+  invitation(
+    d: { name: string; organisationName: string; inviterName: string; link: string; expiresHours: number },
+    t: Translate,
+  ): RenderedMail {
     return {
-      subject: `You are invited to Dewline by ${d.organisationName}`,
+      subject: t("invitation.subject", d),
       text: [
-        `Hello ${d.name},`,
+        t("hello", d),
         "",
-        `${d.inviterName} of ${d.organisationName} has invited you to Dewline, where reports of damp, condensation and mould in your home are recorded and followed up.`,
+        t("invitation.body", d),
         "",
-        "Choose your password here:",
+        t("choosePassword"),
         d.link,
         "",
-        `The link works once and expires in ${d.expiresHours} hours. If you were not expecting this e-mail you can ignore it.`,
+        t("invitation.expires", { hours: d.expiresHours }),
       ].join("\n"),
     };
   },
@@ -99,68 +130,65 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
-  passwordReset(d: { name: string; link: string; expiresMinutes: number }): RenderedMail {
+  passwordReset(d: { name: string; link: string; expiresMinutes: number }, t: Translate): RenderedMail {
     return {
-      subject: "Reset your Dewline password",
+      subject: t("passwordReset.subject"),
       text: [
-        `Hello ${d.name},`,
+        t("hello", d),
         "",
-        "Someone asked to reset the password of your Dewline account. To choose a new one, open:",
+        t("passwordReset.body"),
         d.link,
         "",
-        `The link works once and expires in ${d.expiresMinutes} minutes. If you did not ask for this, ignore this e-mail: your password stays as it is.`,
+        t("passwordReset.expires", { minutes: d.expiresMinutes }),
       ].join("\n"),
     };
   },
-  signInUnlock(d: { name: string; link: string; expiresMinutes: number }): RenderedMail {
+  signInUnlock(d: { name: string; link: string; expiresMinutes: number }, t: Translate): RenderedMail {
     return {
-      subject: "Signing in to Dewline",
+      subject: t("signInUnlock.subject"),
       text: [
-        `Hello ${d.name},`,
+        t("hello", d),
         "",
-        "There have been several unsuccessful attempts to sign in to your Dewline account, or someone asked us for this link. It may have been you; someone may have been trying to guess your password. Your account is safe and has not been locked.",
+        t("signInUnlock.attempts"),
         "",
-        "While the attempts go on, Dewline asks for a short wait between tries. To skip the wait in your own browser, open this link there, then sign in as usual:",
+        t("signInUnlock.wait"),
         d.link,
         "",
-        `The link works once and expires in ${d.expiresMinutes} minutes. If you do not know your password any more, use "Forgot your password?" on the sign-in page.`,
+        t("signInUnlock.expires", { minutes: d.expiresMinutes }),
       ].join("\n"),
     };
   },
-  invitationAddressInUse(d: { organisationName: string; inviterName: string }): RenderedMail {
+  invitationAddressInUse(d: { organisationName: string; inviterName: string }, t: Translate): RenderedMail {
     return {
-      subject: `${d.organisationName} tried to invite you to Dewline`,
-      text: [
-        "Hello,",
-        "",
-        `${d.inviterName} at ${d.organisationName} tried to invite this e-mail address to Dewline. This address already has a Dewline account, and one address can only belong to one account, so nothing has been changed and no new account was opened.`,
-        "",
-        `If you expected this invitation, please tell ${d.organisationName} which other e-mail address they can invite you at. If you did not expect it, you can ignore this e-mail.`,
-      ].join("\n"),
+      subject: t("invitationAddressInUse.subject", d),
+      text: [t("helloPlain"), "", t("invitationAddressInUse.body", d), "", t("invitationAddressInUse.next", d)].join("\n"),
     };
   },
-  caseAcknowledgement(d: {
-    name: string;
-    reference: string;
-    address: string;
-    link: string;
-    organisationName: string;
-    /** The landlord's emergency line from its policy; null when not set. */
-    emergencyPhone?: string | null;
-  }): RenderedMail {
+  caseAcknowledgement(
+    d: {
+      name: string;
+      reference: string;
+      address: string;
+      link: string;
+      organisationName: string;
+      /** The landlord's emergency line from its policy; null when not set. */
+      emergencyPhone?: string | null;
+    },
+    t: Translate,
+  ): RenderedMail {
     return {
-      subject: `We have your report ${d.reference}`,
+      subject: t("caseAcknowledgement.subject", d),
       text: [
-        `Hello ${d.name},`,
+        t("hello", d),
         "",
-        `Thank you for telling us about damp or mould at ${d.address}. Your reference is ${d.reference}.`,
+        t("caseAcknowledgement.thanks", d),
         "",
-        `What happens next: ${d.organisationName} will look into every report, whatever any readings show. An officer will review it and contact you about an inspection. You can follow the case, add photos or readings, and tell us if it gets worse at:`,
+        t("caseAcknowledgement.next", d),
         d.link,
         "",
-        `If water is coming through a ceiling near lights or sockets, ${emergencyLine(d.organisationName, d.emergencyPhone)}`,
+        t("waterNearElectrics", { emergency: emergencyLine(t, d.organisationName, d.emergencyPhone) }),
         // The national gas emergency line for Great Britain (from memory), not the landlord's.
-        "If you smell gas, open the windows, do not use switches or flames, leave the home and call the gas emergency line on 0800 111 999.",
+        t("gas"),
       ].join("\n"),
     };
   },
@@ -168,31 +196,34 @@ export const mailTemplates = {
    * To the tenant when the landlord opens a case from its sensors' readings: what the sensor saw, that
    * the landlord will be in touch, and the usual cautions. It never suggests the household caused it.
    */
-  sensorCaseNotice(d: {
-    name: string;
-    reference: string;
-    address: string;
-    /** Plain sentences about what the sensor saw, e.g. "The sensor in the Bedroom showed …". */
-    findings: string[];
-    link: string;
-    organisationName: string;
-    emergencyPhone?: string | null;
-  }): RenderedMail {
+  sensorCaseNotice(
+    d: {
+      name: string;
+      reference: string;
+      address: string;
+      /** What each room's sensor saw; one line each, in the tenant's words. */
+      findings: SensorFinding[];
+      link: string;
+      organisationName: string;
+      emergencyPhone?: string | null;
+    },
+    t: Translate,
+  ): RenderedMail {
     return {
-      subject: `We are looking into damp at your home (${d.reference})`,
+      subject: t("sensorCaseNotice.subject", d),
       text: [
-        `Hello ${d.name},`,
+        t("hello", d),
         "",
-        `The sensors ${d.organisationName} fitted at ${d.address} show conditions in which damp and mould can start, so we have opened a case to look into it. You do not need to do anything to start it, and nothing here says you have done anything wrong: damp like this usually comes from how a home is built, heated or ventilated, and it is ours to find the cause and put it right.`,
+        t("sensorCaseNotice.opened", d),
         "",
-        "What the sensor saw:",
-        ...d.findings.map((f) => `- ${f}`),
+        t("sensorCaseNotice.saw"),
+        ...[...new Set(d.findings.map((f) => findingWords(t, f)))].map((f) => `- ${f}`),
         "",
-        `What happens next: an officer will contact you to arrange a visit. Your reference is ${d.reference}. You can follow the case, add photos and tell us anything you have noticed at:`,
+        t("sensorCaseNotice.next", d),
         d.link,
         "",
-        "Until then: if you see mould, do not scrape it dry or brush it, as that spreads spores. Anyone with asthma, allergies or a weak immune system, and babies, should keep away from it, and if anyone's breathing gets worse, speak to your GP or pharmacist.",
-        `If water is coming through a ceiling near lights or sockets, ${emergencyLine(d.organisationName, d.emergencyPhone)}`,
+        t("mouldCaution"),
+        t("waterNearElectrics", { emergency: emergencyLine(t, d.organisationName, d.emergencyPhone) }),
       ].join("\n"),
     };
   },
@@ -236,8 +267,8 @@ export const mailTemplates = {
     };
   },
   /** A complaint letter, its subject and body already filled in from the landlord's wording (complaints module). */
-  complaintLetter(d: { name: string; subject: string; body: string }): RenderedMail {
-    return { subject: d.subject, text: [`Hello ${d.name},`, "", withoutGreeting(d.body)].join("\n") };
+  complaintLetter(d: { name: string; subject: string; body: string }, t: Translate): RenderedMail {
+    return { subject: d.subject, text: [t("hello", d), "", withoutGreeting(d.body)].join("\n") };
   },
   /** For the assignee, or every officer while nobody is assigned: a tenant made a formal complaint about a case. */
   complaintRaised(d: {
@@ -264,40 +295,37 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
-  caseMessage(d: { name: string; reference: string; senderName: string; body: string; link: string }): RenderedMail {
+  caseMessage(
+    d: { name: string; reference: string; senderName: string; body: string; link: string },
+    t: Translate,
+  ): RenderedMail {
     return {
-      subject: `A message about your report ${d.reference}`,
-      text: [
-        `Hello ${d.name},`,
-        "",
-        `${d.senderName} wrote about your report ${d.reference}:`,
-        "",
-        d.body,
-        "",
-        "You can reply and follow the case at:",
-        d.link,
-      ].join("\n"),
+      subject: t("caseMessage.subject", d),
+      text: [t("hello", d), "", t("caseMessage.wrote", d), "", d.body, "", t("caseMessage.reply"), d.link].join("\n"),
     };
   },
-  writtenSummary(d: {
-    name: string;
-    reference: string;
-    body: string;
-    link: string;
-    organisationName?: string;
-    /** The landlord's emergency line from its policy; null when not set. */
-    emergencyPhone?: string | null;
-  }): RenderedMail {
+  writtenSummary(
+    d: {
+      name: string;
+      reference: string;
+      body: string;
+      link: string;
+      organisationName?: string;
+      /** The landlord's emergency line from its policy; null when not set. */
+      emergencyPhone?: string | null;
+    },
+    t: Translate,
+  ): RenderedMail {
     return {
-      subject: `What we found and what happens next: ${d.reference}`,
+      subject: t("writtenSummary.subject", d),
       text: [
-        `Hello ${d.name},`,
+        t("hello", d),
         "",
         withoutGreeting(d.body),
         "",
-        `In an emergency, such as water coming through a ceiling near lights or sockets, ${emergencyLine(d.organisationName, d.emergencyPhone)}`,
+        t("writtenSummary.emergency", { emergency: emergencyLine(t, d.organisationName, d.emergencyPhone) }),
         "",
-        "The summary is also on your case page:",
+        t("writtenSummary.onPage"),
         d.link,
       ].join("\n"),
     };
@@ -343,56 +371,47 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
-  appointmentProposed(d: {
-    name: string;
-    reference: string;
-    workWords: string;
-    slotWords: string;
-    address: string;
-    link: string;
-    ics: string;
-    forOperative: boolean;
-    accessNotes: string | null;
-    /** The visit moved from an earlier booking. */
-    rescheduled?: boolean;
-  }): RenderedMail {
+  appointmentProposed(
+    d: {
+      name: string;
+      reference: string;
+      /** The work order's type; the template words it in the recipient's language. */
+      workType: string;
+      slot: Slot;
+      address: string;
+      link: string;
+      ics: string;
+      forOperative: boolean;
+      accessNotes: string | null;
+      /** The visit moved from an earlier booking. */
+      rescheduled?: boolean;
+    },
+    t: Translate,
+  ): RenderedMail {
+    const words = { ...d, work: workWords(t, d.workType), slot: slotWords(t, d.slot) };
+    const variant = d.forOperative ? "operative" : d.rescheduled ? "rescheduled" : "proposed";
     return {
-      subject: `${d.forOperative ? "Booked" : d.rescheduled ? "New time proposed" : "Proposed appointment"}: ${d.workWords}, ${d.slotWords} (${d.reference})`,
+      subject: t(`appointmentProposed.subject.${variant}`, words),
       text: [
-        `Hello ${d.name},`,
+        t("hello", d),
         "",
-        d.forOperative
-          ? `You are booked for ${d.workWords} at ${d.address}, ${d.slotWords}. The tenant has been asked to confirm.`
-          : d.rescheduled
-            ? `The visit to ${d.address} for ${d.workWords} has moved. The new time is ${d.slotWords}. Please confirm it on your case page, or ask for another time if it does not suit you:`
-            : `We would like to come to ${d.address} for ${d.workWords} on ${d.slotWords}. Please confirm on your case page, or ask for another time if this one does not suit you:`,
+        t(`appointmentProposed.body.${variant}`, words),
         ...(d.forOperative ? [] : [d.link]),
-        ...(d.forOperative && d.accessNotes ? ["", `Access and household notes: ${d.accessNotes}`] : []),
+        ...(d.forOperative && d.accessNotes ? ["", t("appointmentProposed.accessNotes", { notes: d.accessNotes })] : []),
         "",
-        "The appointment is attached as a calendar file.",
+        t("appointment.calendarAttached"),
       ].join("\n"),
       attachments: calendarFile(d.ics),
     };
   },
-  appointmentConfirmed(d: {
-    name: string;
-    reference: string;
-    workWords: string;
-    slotWords: string;
-    address: string;
-    link: string;
-    ics: string;
-  }): RenderedMail {
+  appointmentConfirmed(
+    d: { name: string; reference: string; workType: string; slot: Slot; address: string; link: string; ics: string },
+    t: Translate,
+  ): RenderedMail {
+    const words = { ...d, work: workWords(t, d.workType), slot: slotWords(t, d.slot) };
     return {
-      subject: `Confirmed: ${d.workWords}, ${d.slotWords} (${d.reference})`,
-      text: [
-        `Hello ${d.name},`,
-        "",
-        `The appointment for ${d.workWords} at ${d.address} is confirmed for ${d.slotWords}.`,
-        d.link,
-        "",
-        "The appointment is attached as a calendar file.",
-      ].join("\n"),
+      subject: t("appointmentConfirmed.subject", words),
+      text: [t("hello", d), "", t("appointmentConfirmed.body", words), d.link, "", t("appointment.calendarAttached")].join("\n"),
       attachments: calendarFile(d.ics),
     };
   },
@@ -418,57 +437,56 @@ export const mailTemplates = {
       ].join("\n"),
     };
   },
-  appointmentCancelled(d: {
-    name: string;
-    reference: string;
-    workWords: string;
-    slotWords: string;
-    address: string;
-    reason: string;
-    link: string;
-    ics: string;
-  }): RenderedMail {
+  appointmentCancelled(
+    d: {
+      name: string;
+      reference: string;
+      workType: string;
+      slot: Slot;
+      address: string;
+      reason: string;
+      link: string;
+      ics: string;
+    },
+    t: Translate,
+  ): RenderedMail {
+    const words = { ...d, work: workWords(t, d.workType), slot: slotWords(t, d.slot) };
     return {
-      subject: `Cancelled: ${d.workWords}, ${d.slotWords} (${d.reference})`,
+      subject: t("appointmentCancelled.subject", words),
       text: [
-        `Hello ${d.name},`,
+        t("hello", d),
         "",
-        `The visit for ${d.workWords} at ${d.address} on ${d.slotWords} is cancelled.`,
-        `Reason: ${d.reason}`,
+        t("appointmentCancelled.body", words),
+        t("appointmentCancelled.reason", d),
         d.link,
         "",
-        "The attached calendar file removes it from your calendar.",
+        t("appointmentCancelled.calendar"),
       ].join("\n"),
       attachments: [{ filename: "appointment.ics", content: d.ics, contentType: "text/calendar; charset=utf-8; method=CANCEL" }],
     };
   },
-  monitoringStarted(d: { name: string; reference: string; days: number; endsOn: string; link: string }): RenderedMail {
+  monitoringStarted(
+    d: { name: string; reference: string; days: number; endsAt: Date; link: string },
+    t: Translate,
+  ): RenderedMail {
     return {
-      subject: `Checking the repair worked: ${d.reference}`,
-      text: [
-        `Hello ${d.name},`,
-        "",
-        `The work on your report ${d.reference} is done. Over the next ${d.days} days, until ${d.endsOn}, we will check that the damp and mould have really stopped.`,
-        "If you have a thermometer and humidity meter (hygrometer) or a data logger, please add readings on your case page now and then, in the rooms that were affected. Tell us at once if anything comes back:",
-        d.link,
-      ].join("\n"),
+      subject: t("monitoringStarted.subject", d),
+      text: [t("hello", d), "", t("monitoringStarted.body", d), t("monitoringStarted.readings"), d.link].join("\n"),
     };
   },
-  fixConfirmed(d: { name: string; reference: string; link: string }): RenderedMail {
+  fixConfirmed(d: { name: string; reference: string; link: string }, t: Translate): RenderedMail {
     return {
-      subject: `The repair worked: ${d.reference} is closed`,
-      text: [
-        `Hello ${d.name},`,
-        "",
-        `We have checked the work on your report ${d.reference} and the damp and mould problem looks fixed, so we have closed the report.`,
-        "If damp or mould comes back, open your case page and tell us it has got worse, or make a new report:",
-        d.link,
-      ].join("\n"),
+      subject: t("fixConfirmed.subject", d),
+      text: [t("hello", d), "", t("fixConfirmed.body", d), t("fixConfirmed.comesBack"), d.link].join("\n"),
     };
   },
-  monitoringEnded(d: { name: string; reference: string; link: string; forLead: boolean; readingsAfter: number }): RenderedMail {
+  monitoringEnded(
+    d: { name: string; reference: string; link: string; forLead: boolean; readingsAfter: number },
+    t: Translate,
+  ): RenderedMail {
+    // The lead's e-mail is staff text, in English; the tenant's is in their language.
     return {
-      subject: d.forLead ? `Monitoring ended, decide if the fix worked: ${d.reference}` : `Please add readings: ${d.reference}`,
+      subject: d.forLead ? `Monitoring ended, decide if the fix worked: ${d.reference}` : t("monitoringEnded.subject", d),
       text: d.forLead
         ? [
             `Hello ${d.name},`,
@@ -476,12 +494,7 @@ export const mailTemplates = {
             `The monitoring period for ${d.reference} has ended with ${d.readingsAfter} readings after the works. Compare before and after and record whether the fix worked:`,
             d.link,
           ].join("\n")
-        : [
-            `Hello ${d.name},`,
-            "",
-            `The monitoring period after the work on ${d.reference} has ended. If you have readings from the last few weeks, please add them now so we can see whether the damp has stopped, and tell us if the mould has come back:`,
-            d.link,
-          ].join("\n"),
+        : [t("hello", d), "", t("monitoringEnded.body", d), d.link].join("\n"),
     };
   },
   /** To the assignee, or to each officer while nobody is assigned: the tenant wrote on their case. */

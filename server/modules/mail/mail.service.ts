@@ -5,6 +5,7 @@ import type { Clock } from "../../lib/clock.js";
 import { ConflictError, ForbiddenError, NotFoundError } from "../../lib/errors.js";
 import type { Logger } from "../../lib/logger.js";
 import type { Mailer } from "../../lib/mailer.js";
+import { messageLanguage, translator, type MessageLanguage } from "../../lib/i18n.js";
 import { inTransaction } from "../../lib/transaction.js";
 import { htmlFromText, mailTemplates, SECRET_TEMPLATES, type MailTemplateName, type RenderedMail } from "./mail-templates.js";
 import { MailRelay, type MailRelayOptions } from "./mail.relay.js";
@@ -14,6 +15,11 @@ export interface SendMail<T extends MailTemplateName> {
   to: string;
   template: T;
   data: Parameters<(typeof mailTemplates)[T]>[0];
+  /**
+   * The recipient's language tag (users.preferred_language). Left out, it is looked up by address
+   * (RecipientLanguages); staff, and addresses of no one, get English.
+   */
+  language?: string | null;
   organisationId?: number | null;
   related?: { type: string; id: number };
 }
@@ -43,6 +49,15 @@ export interface CaseEmailTimeline {
   recordEmailResent(m: EntityManager, resent: ResentCaseEmail): Promise<void>;
 }
 
+/**
+ * The language a recipient reads: a tenant's preferred language by their e-mail address, in the caller's
+ * transaction (an account opened in it counts); null for staff and for addresses of no account, so
+ * staff e-mails stay English (UserService, wired in createServices).
+ */
+export interface RecipientLanguages {
+  tenantLanguageByEmail(m: EntityManager, email: string): Promise<string | null>;
+}
+
 /** The delivery key: fixed once per row, carried by every attempt (see mail.relay.ts). */
 const newMessageId = (outboxId: number) => `<outbox-${outboxId}-${randomBytes(9).toString("base64url")}@dewline>`;
 
@@ -53,6 +68,7 @@ const newMessageId = (outboxId: number) => `<outbox-${outboxId}-${randomBytes(9)
 export class MailService {
   readonly relay: MailRelay;
   private caseTimeline: CaseEmailTimeline | null = null;
+  private languages: RecipientLanguages | null = null;
 
   constructor(
     private readonly dataSource: DataSource,
@@ -62,6 +78,17 @@ export class MailService {
     relayOptions: Partial<MailRelayOptions> = {},
   ) {
     this.relay = new MailRelay(dataSource, mailer, logger, clock, relayOptions);
+  }
+
+  /** Where a recipient's language is found (UserService); without it every e-mail is English. */
+  useRecipientLanguages(languages: RecipientLanguages): void {
+    this.languages = languages;
+  }
+
+  /** The language an e-mail to `to` is written in. */
+  async languageFor(m: EntityManager, to: string, tag?: string | null): Promise<MessageLanguage> {
+    if (tag !== undefined) return messageLanguage(tag);
+    return messageLanguage(this.languages ? await this.languages.tenantLanguageByEmail(m, to) : null);
   }
 
   /** Where an e-mail about a case sent again is recorded (CaseService). */
@@ -83,8 +110,9 @@ export class MailService {
     manager: EntityManager,
     mail: SendMail<T>,
   ): Promise<{ outboxId: number; deliver: () => Promise<OutboxEmail> }> {
-    const render = mailTemplates[mail.template] as (d: typeof mail.data) => RenderedMail;
-    const rendered = render(mail.data);
+    const render = mailTemplates[mail.template] as (d: typeof mail.data, t: ReturnType<typeof translator>) => RenderedMail;
+    // Rendered once, in the recipient's language; a retry or resend sends the stored text as it is.
+    const rendered = render(mail.data, translator(await this.languageFor(manager, mail.to, mail.language), "mail"));
     const repo = manager.getRepository(OutboxEmail);
     const row = await repo.save(
       repo.create({

@@ -17,6 +17,7 @@ import type { Logger } from "../../lib/logger.js";
 import { inTransaction } from "../../lib/transaction.js";
 import type { Actor } from "../auth/actor.js";
 import { addressOf, type Case, type CaseService } from "../cases/case.service.js";
+import type { SensorFinding } from "../mail/mail-templates.js";
 import type { PolicyService } from "../policy/policy.service.js";
 import type { Property, PropertyService } from "../properties/property.service.js";
 import type { SensorReadingsListener, StoredReadingsBatch } from "../sensors/sensor-events.js";
@@ -69,17 +70,17 @@ function worseThan(a: RoomWatch, b: RoomWatch): boolean {
   return x.hoursCondensing > y.hoursCondensing;
 }
 
-/** Plain, blame-free sentences about what a room's sensor saw, for the tenant's e-mail. */
-export function findingsFor(alert: Pick<SensorAlert, "rule" | "figures">, roomName: string): string {
-  const f = alert.figures;
-  switch (alert.rule) {
-    case "hours-at-80":
-      return `${roomName}: over the last 7 days, a wall or window surface was damp enough for mould to start for about ${Math.round(f.hoursAt80)} hours.`;
-    case "condensing-days":
-      return `${roomName}: water was condensing on a cold surface on ${f.condensingDays} of the last 7 days.`;
-    default:
-      return `${roomName}: the conditions measured over recent weeks are ones in which mould can begin to grow.`;
-  }
+/**
+ * What a room's sensor saw, for the tenant's e-mail, which words it as plain, blame-free sentences in
+ * the tenant's language (mail-templates.ts, server/locales/<lng>/mail.ts "sensorFinding.*").
+ */
+export function findingsFor(alert: Pick<SensorAlert, "rule" | "figures">, roomName: string | null): SensorFinding {
+  return {
+    room: roomName,
+    rule: alert.rule,
+    hoursAt80: alert.figures.hoursAt80,
+    condensingDays: alert.figures.condensingDays,
+  };
 }
 
 /**
@@ -450,7 +451,7 @@ export class SensorWatchService implements SensorReadingsListener {
       const home = await this.properties.homeWithRooms(alert.propertyId);
       const names = new Map((home.rooms ?? []).map((r) => [r.id, r.name]));
       const roomIds = [...new Set(homeAlerts.map((a) => a.roomId))];
-      const findings = homeAlerts.map((a) => findingsFor(a, names.get(a.roomId) ?? "A room"));
+      const findings = homeAlerts.map((a) => findingsFor(a, names.get(a.roomId) ?? null));
       const rules = [...new Set(homeAlerts.map((a) => RULE_WORDS[a.rule]))];
       const { saved, deliveries } = await this.cases.openFromSensor(m, actor, {
         propertyId: alert.propertyId,
@@ -462,7 +463,7 @@ export class SensorWatchService implements SensorReadingsListener {
         locations: ["other"],
         observations: homeAlerts.some((a) => a.rule === "condensing-days") ? ["condensation"] : [],
         roomIds,
-        findings: [...new Set(findings)],
+        findings,
       });
       for (const a of homeAlerts) {
         await m

@@ -3,6 +3,7 @@ import { normaliseUkMobile, ukMobileProblem } from "../../../src/lib/domain/uk-m
 import type { Actor } from "../../lib/actor.js";
 import type { Clock } from "../../lib/clock.js";
 import { ForbiddenError, ValidationError } from "../../lib/errors.js";
+import { messageLanguage } from "../../lib/i18n.js";
 import type { LeasedQueueOptions } from "../../lib/leased-queue.js";
 import type { Logger } from "../../lib/logger.js";
 import { OutboxSms, type SmsStatus } from "./outbox-sms.entity.js";
@@ -31,6 +32,11 @@ export type QueuedText =
   | { queued: true; outboxSmsId: number; body: string; numberEnding: string; deliver: () => void }
   | { queued: false; reason: "texts-off" | "already-queued" };
 
+/** A tenant's language (users.preferred_language) by id, in the caller's transaction (UserService). */
+export interface TextLanguages {
+  tenantLanguageById(m: EntityManager, userId: number): Promise<string | null>;
+}
+
 /** The last three digits, which is all a timeline shows of a number. */
 const endingOf = (n: string) => n.slice(-3);
 
@@ -41,6 +47,7 @@ const endingOf = (n: string) => n.slice(-3);
  */
 export class SmsService {
   readonly relay: SmsRelay;
+  private languages: TextLanguages | null = null;
 
   constructor(
     private readonly dataSource: DataSource,
@@ -50,6 +57,11 @@ export class SmsService {
     relayOptions: Partial<LeasedQueueOptions> = {},
   ) {
     this.relay = new SmsRelay(dataSource, provider, logger, clock, relayOptions);
+  }
+
+  /** Where a tenant's language is found (UserService); without it every text is English. */
+  useRecipientLanguages(languages: TextLanguages): void {
+    this.languages = languages;
   }
 
   /** The tenant's choice (no row: no number, texts off). */
@@ -99,7 +111,9 @@ export class SmsService {
   async enqueue<K extends SmsKind>(m: EntityManager, text: QueueText<K>): Promise<QueuedText> {
     const choice = await this.choiceOf(text.userId, m);
     if (!choice.textsOn || !choice.mobileNumber) return { queued: false, reason: "texts-off" };
-    const body = renderSms(text.kind, text.data);
+    // Rendered once, in the tenant's language; the outbox keeps the words, so a retry sends the same text.
+    const language = messageLanguage(this.languages ? await this.languages.tenantLanguageById(m, text.userId) : null);
+    const body = renderSms(text.kind, text.data, language);
     const repo = m.getRepository(OutboxSms);
     if (text.onceKey && (await repo.existsBy({ onceKey: text.onceKey }))) return { queued: false, reason: "already-queued" };
     const row = await repo.save(

@@ -97,6 +97,23 @@ export class UserService {
     return personOf(await m.getRepository(User).findOneByOrFail({ id }));
   }
 
+  /**
+   * The preferred language of a tenant (users.preferred_language), by id or by e-mail address, in the
+   * caller's transaction; null for staff (their e-mails and texts stay English) and for no account.
+   */
+  async tenantLanguage(m: EntityManager, who: { id: number } | { email: string }): Promise<string | null> {
+    const u = await m.getRepository(User).findOne({ where: who, select: { id: true, role: true, preferredLanguage: true } });
+    return u?.role === "tenant" ? u.preferredLanguage : null;
+  }
+
+  async tenantLanguageByEmail(m: EntityManager, email: string): Promise<string | null> {
+    return this.tenantLanguage(m, { email });
+  }
+
+  async tenantLanguageById(m: EntityManager, id: number): Promise<string | null> {
+    return this.tenantLanguage(m, { id });
+  }
+
   /** People by id, any status; missing ids are left out. */
   async people(ids: readonly number[], m: EntityManager = this.dataSource.manager): Promise<Map<number, Person>> {
     if (!ids.length) return new Map();

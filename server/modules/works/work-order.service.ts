@@ -421,10 +421,11 @@ export class WorkOrderService {
           location: addressOf(property),
           organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
         });
+      // The work and slot are worded by each message, in its recipient's language.
       const common = {
         reference: c.reference!,
-        workWords: WORK_WORDS[wo.type],
-        slotWords: describeSlot(input.slot.date, input.slot.window),
+        workType: wo.type,
+        slot: { date: input.slot.date, window: input.slot.window },
         address: addressOf(property),
         rescheduled: Boolean(previous),
       };
@@ -446,8 +447,8 @@ export class WorkOrderService {
         );
         deliveries.push(
           await this.cases.queueText(m, c, "appointment-offered", {
-            workWords: common.workWords,
-            slotWords: common.slotWords,
+            workType: common.workType,
+            slot: common.slot,
             rescheduled: common.rescheduled,
           }),
         );
@@ -500,7 +501,7 @@ export class WorkOrderService {
           m,
           wo.caseId,
           "appointment-reminder",
-          { workWords: WORK_WORDS[wo.type], slotWords: describeSlot(booking.slotDate, booking.slotWindow) },
+          { workType: wo.type, slot: { date: booking.slotDate, window: booking.slotWindow } },
           { onceKey: `appointment-reminder:${booking.id}`, quietWhenOff: true },
         );
       });
@@ -563,8 +564,8 @@ export class WorkOrderService {
           });
         const data = {
           reference: c.reference!,
-          workWords: WORK_WORDS[wo.type],
-          slotWords,
+          workType: wo.type,
+          slot: { date: slotDate, window: slotWindow },
           address: addressOf(property),
           link,
         };
@@ -730,8 +731,8 @@ export class WorkOrderService {
         });
       const data = {
         reference: c.reference!,
-        workWords: WORK_WORDS[wo.type],
-        slotWords: describeSlot(booking.slotDate, booking.slotWindow),
+        workType: wo.type,
+        slot: { date: booking.slotDate, window: booking.slotWindow },
         address: addressOf(property),
         reason,
         link: `${this.config.appUrl}/cases/${c.id}`,
@@ -777,13 +778,6 @@ export class WorkOrderService {
     });
     if (c.tenantUserId === null) return [];
     const tenant = await this.users.person(c.tenantUserId, m);
-    const endsOn = endsAt.toLocaleDateString("en-GB", {
-      weekday: "long",
-      day: "numeric",
-      month: "long",
-      year: "numeric",
-      timeZone: "Europe/London",
-    });
     return [
       await this.cases.queueMail(m, c, {
         to: tenant.email,
@@ -792,7 +786,7 @@ export class WorkOrderService {
           name: tenant.name,
           reference: c.reference!,
           days: monitoringDays,
-          endsOn,
+          endsAt,
           link: `${this.config.appUrl}/cases/${c.id}`,
         },
       }),
