@@ -213,7 +213,8 @@ export function londonLocalToIso(value: string): string | null {
 /** Intl's name for a Dewline language: the pseudo-locales read English dates (their words are marked by translation). */
 const intlLocale = (lng: string) => (lng === "en-XA" || lng === "ar-XB" ? "en-GB" : lng);
 const inLanguage = new Map<string, Format>();
-const languageFormat = (lng: string, kind: "day" | "dateTime" | "longDay", options: Intl.DateTimeFormatOptions) => {
+type DateKind = "day" | "dateTime" | "longDay" | "longDayNoYear";
+const languageFormat = (lng: string, kind: DateKind, options: Intl.DateTimeFormatOptions) => {
   const key = `${lng}|${kind}`;
   let format = inLanguage.get(key);
   if (!format) inLanguage.set(key, (format = lazyFormat(intlLocale(lng), { timeZone: LONDON, ...options })));
@@ -222,21 +223,20 @@ const languageFormat = (lng: string, kind: "day" | "dateTime" | "longDay", optio
 
 /**
  * The same London dates in the language the tenant reads ("5 Rhagfyr 2026", "5 Rhag 2026, 14:05"):
- * `day` for when something was sent, `dateTime` for a message, `longDay` for an appointment's day.
+ * `day` for when something was sent, `dateTime` for a message, `longDay` (or `longDayNoYear`) for an
+ * appointment's day.
  * A calendar date (YYYY-MM-DD) is shown as it is, never shifted a day.
  */
-export function formatDateIn(
-  lng: string,
-  value: string | null | undefined,
-  kind: "day" | "dateTime" | "longDay" = "day",
-): string {
+export function formatDateIn(lng: string, value: string | null | undefined, kind: DateKind = "day"): string {
   if (!value) return "";
   const options: Intl.DateTimeFormatOptions =
     kind === "day"
       ? { day: "numeric", month: "long", year: "numeric" }
       : kind === "longDay"
         ? { weekday: "long", day: "numeric", month: "long", year: "numeric" }
-        : { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" };
+        : kind === "longDayNoYear"
+          ? { weekday: "long", day: "numeric", month: "long" }
+          : { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" };
   if (isIsoDate(value))
     return lazyFormat(intlLocale(lng), { timeZone: "UTC", ...options })
       .format(calendarDay(value))
