@@ -34,7 +34,7 @@ export function LandlordMessages({ events, showFirst }: { events: readonly CaseE
                   {" · "}
                 </>
               ) : null}
-              <time dateTime={m.at}>{formatDateIn(i18n.language, m.at, "dateTime")}</time>
+              <time dateTime={m.at}>{t("landlordMessages.at", { when: formatDateIn(i18n.language, m.at, "dateTime") })}</time>
             </p>
             {m.type === "summary-sent" ? <p className="mt-1 font-semibold">{t("landlordMessages.summary")}</p> : null}
             <p className="mt-1 whitespace-pre-line" translate="no">

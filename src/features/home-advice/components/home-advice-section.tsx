@@ -45,7 +45,7 @@ export function HomeAdviceSection({ caseId, audience = "tenant", open = false }:
  * An item's words in the current language: the server sends which item and the home's facts it
  * depends on; the wording (and its ICU selects on those facts) is ours, in src/locales/<lng>/advice.json.
  */
-function itemWords(t: TFunction<"advice">, lng: string, item: AdviceItemResponse) {
+function itemWords(t: TFunction<"advice">, item: AdviceItemResponse) {
   const { walls, glass, ...facts } = item.facts;
   const cold = [walls && walls !== "none" ? t(`walls.${walls}`) : null, glass === "single" ? t("glass.single") : null].filter(
     (part): part is string => part !== null,
@@ -54,7 +54,8 @@ function itemWords(t: TFunction<"advice">, lng: string, item: AdviceItemResponse
     ...facts,
     walls: walls && walls !== "none" ? t(`walls.${walls}`) : "",
     cold: cold.length ? "some" : "none",
-    coldParts: new Intl.ListFormat(lng, { type: "conjunction" }).format(cold),
+    // At most two parts (walls, glass). Our own join: Intl's Welsh list reads "a(c)", leaving the mutation to the reader.
+    coldParts: cold.length === 2 ? t("bothCold", { first: cold[0], second: cold[1] }) : (cold[0] ?? ""),
     heating: facts.heating ?? "other",
     fan: facts.fan ?? "other",
     readings: facts.readings ?? "other",
@@ -70,8 +71,8 @@ function itemWords(t: TFunction<"advice">, lng: string, item: AdviceItemResponse
 }
 
 function AdviceBody({ advice }: { advice: HomeAdvice }) {
-  const { t, i18n } = useTranslation("advice", { i18n: i18next });
-  const safety = itemWords(t, i18n.language, advice.safety);
+  const { t } = useTranslation("advice", { i18n: i18next });
+  const safety = itemWords(t, advice.safety);
   return (
     <div className="flex flex-col gap-4">
       <Alert tone="warning" title={t("safetyTitle", { title: safety.title })} live="none">
@@ -131,8 +132,8 @@ function AdviceBody({ advice }: { advice: HomeAdvice }) {
 }
 
 function AdviceEntry({ item }: { item: AdviceItemResponse }) {
-  const { t, i18n } = useTranslation("advice", { i18n: i18next });
-  const words = itemWords(t, i18n.language, item);
+  const { t } = useTranslation("advice", { i18n: i18next });
+  const words = itemWords(t, item);
   return (
     <li className="rounded-md border border-line p-3">
       <h3 className="font-bold">{words.title}</h3>
