@@ -1,4 +1,4 @@
-import { useId, useRef, useState, type FormEvent } from "react";
+import { useId, useRef, useState, type FormEvent, type ReactNode } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
@@ -64,7 +64,7 @@ export function TenantRepairs({ caseId, caseStatus, readingsHref }: TenantRepair
             live="none"
           >
             <p>
-              <Trans t={t} i18nKey="checkingBody" components={{ add: <a href={readingsHref} /> }} />
+              <Trans t={t} i18nKey="checkingBody" components={{ add: <InPageLink href={readingsHref} /> }} />
             </p>
           </Alert>
         ) : null}
@@ -260,4 +260,9 @@ function VisitNotes({ order: o }: { order: WorkOrder }) {
 /** "Sam Price will come.": the name is data, kept out of translation. */
 function Who({ t, who }: { t: RepairT; who: string }) {
   return <Trans t={t} i18nKey="whoWillCome" values={{ who }} shouldUnescape components={{ who: <span translate="no" /> }} />;
+}
+
+/** A link whose words come from the translation (Trans fills in its children). */
+function InPageLink({ href, children }: { href: string; children?: ReactNode }) {
+  return <a href={href}>{children}</a>;
 }
