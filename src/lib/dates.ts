@@ -208,25 +208,49 @@ export function londonLocalToIso(value: string): string | null {
   return Number.isNaN(utc) ? null : new Date(utc).toISOString();
 }
 
-const dateTimeByLanguage = new Map<string, Format>();
+// ---- In the tenant's language ----
+
+/** Intl's name for a Dewline language: the pseudo-locales read English dates (their words are marked by translation). */
+const intlLocale = (lng: string) => (lng === "en-XA" || lng === "ar-XB" ? "en-GB" : lng);
+const inLanguage = new Map<string, Format>();
+type DateKind = "day" | "dateTime" | "longDay" | "longDayNoYear";
+const languageFormat = (lng: string, kind: DateKind, options: Intl.DateTimeFormatOptions) => {
+  const key = `${lng}|${kind}`;
+  let format = inLanguage.get(key);
+  if (!format) inLanguage.set(key, (format = lazyFormat(intlLocale(lng), { timeZone: LONDON, ...options })));
+  return format;
+};
+
+/**
+ * The same London dates in the language the tenant reads ("5 Rhagfyr 2026", "5 Rhag 2026, 14:05"):
+ * `day` for when something was sent, `dateTime` for a message, `longDay` (or `longDayNoYear`) for an
+ * appointment's day.
+ * A calendar date (YYYY-MM-DD) is shown as it is, never shifted a day.
+ */
+export function formatDateIn(lng: string, value: string | null | undefined, kind: DateKind = "day"): string {
+  if (!value) return "";
+  const options: Intl.DateTimeFormatOptions =
+    kind === "day"
+      ? { day: "numeric", month: "long", year: "numeric" }
+      : kind === "longDay"
+        ? { weekday: "long", day: "numeric", month: "long", year: "numeric" }
+        : kind === "longDayNoYear"
+          ? { weekday: "long", day: "numeric", month: "long" }
+          : { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" };
+  if (isIsoDate(value))
+    return lazyFormat(intlLocale(lng), { timeZone: "UTC", ...options })
+      .format(calendarDay(value))
+      .replace(",", "");
+  const d = instant(value);
+  return d
+    ? languageFormat(lng, kind, options)
+        .format(d)
+        .replace(/^([^\d,]+),/, "$1")
+    : value;
+}
 
 /**
  * "15 Jan 2026, 09:05" (English) or "15 Ion 2026, 09:05" (Welsh): formatDateTime in the reader's
- * language, still London time. The pseudo-locales read English dates, as their text is English underneath.
+ * language, still London time.
  */
-export function formatDateTimeIn(lng: string, iso: string | null | undefined): string {
-  const locale = lng === "en-XA" || lng === "ar-XB" ? "en-GB" : lng;
-  let format = dateTimeByLanguage.get(locale);
-  if (!format) {
-    format = lazyFormat(locale, {
-      timeZone: LONDON,
-      day: "numeric",
-      month: "short",
-      year: "numeric",
-      hour: "2-digit",
-      minute: "2-digit",
-    });
-    dateTimeByLanguage.set(locale, format);
-  }
-  return showInstant(format)(iso);
-}
+export const formatDateTimeIn = (lng: string, iso: string | null | undefined): string => formatDateIn(lng, iso, "dateTime");

@@ -88,7 +88,22 @@ describe("advice for your home", () => {
       within(list)
         .getAllByRole("heading", { level: 3 })
         .map((h) => h.textContent),
-    ).toEqual(items.map((i) => i.title));
+    ).toEqual([
+      "Steady, low warmth rather than none",
+      "Clear window film on single glazing, if your landlord agrees",
+      "Reflector panels behind radiators on outside walls",
+      "Stop draughts, but never block a vent",
+    ]);
+    expect(items.map((i) => i.id)).toEqual(["steady-low-heat", "window-film", "radiator-reflector", "draught-proofing"]);
+    // The item's words follow this home's facts: radiators, solid brick walls and single glazing, heating hard to afford.
+    expect(within(section).getByText(/Use the radiator valves to keep every room a little warm/)).toBeInTheDocument();
+    expect(
+      within(section).getByText(
+        /Your home has solid brick walls and single glazing, which get cold\. .*There is help with costs below\./,
+      ),
+    ).toBeInTheDocument();
+    expect(within(section).getByText(/Your home has solid brick walls, which lose heat quickly/)).toBeInTheDocument();
+    expect(within(section).getAllByText(/ISO 13788 \(surface temperature factor\)/).length).toBe(2);
     expect(within(section).getByText(/Clear window film on single glazing, if your landlord agrees/)).toBeInTheDocument();
     expect(within(section).getAllByText("Under £20").length).toBeGreaterThan(0);
     expect(within(section).getByText(/Never block trickle vents, air bricks or extractor fans/)).toBeInTheDocument();

@@ -63,7 +63,7 @@ describe("advice for the tenant's own home", () => {
     );
     expect(ids(modern)).toEqual(["steady-low-heat"]);
     for (const a of [old, modern]) {
-      expect(a.safety.why).toMatch(/carbon monoxide/);
+      expect(a.safety).toMatchObject({ id: "no-oven-for-warmth", cautions: expect.arrayContaining(["co-alarm"]) });
       for (const item of [...a.items, a.safety]) expect(item.source).not.toBe("");
     }
   });
@@ -108,6 +108,16 @@ describe("advice for the tenant's own home", () => {
     expect(stored.body.supportText).toBe("Our money advice team can help with heating bills.");
     // Another landlord's setting is its own.
     expect((await otherOfficer.get("/api/policy/heating-support").expect(200)).body.source).toBe("default");
+  });
+
+  it("a finished report's advice is not sent to its tenant; the officer still sees what was shown", async () => {
+    const b = await newHomeTenant.post("/api/cases", report).expect(201);
+    await t.ctx.dataSource.query("UPDATE cases SET status = 'closed' WHERE id = ?", [b.body.id]);
+    const refused = await newHomeTenant.get(`/api/cases/${b.body.id}/advice`).expect(404);
+    expect(refused.body.error.message).toMatch(/finished or withdrawn/);
+    expect(ids(homeAdviceResponse.parse((await officer.get(`/api/cases/${b.body.id}/advice`).expect(200)).body))).toEqual([
+      "steady-low-heat",
+    ]);
   });
 
   it("a report with an unknown heating cost answer is refused", async () => {

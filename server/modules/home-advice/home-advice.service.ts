@@ -1,5 +1,7 @@
 import { adviseForHome, type HomeAdvice } from "../../../src/lib/domain/home-advice.js";
-import type { Actor } from "../auth/actor.js";
+import { OPEN_CASE_STATUSES } from "../../../src/lib/domain/case-workflow.js";
+import { NotFoundError } from "../../lib/errors.js";
+import { isStaff, type Actor } from "../auth/actor.js";
 import type { CaseService } from "../cases/case.service.js";
 import type { HeatingSupportView } from "../policy/policy.service.js";
 
@@ -16,7 +18,7 @@ export interface CaseAdvice extends HomeAdvice {
 /**
  * Works out the advice for one case's home: the one owner of the list, so the tenant and the officer
  * see the same items. Access is the case's own (CaseService.getForActor): staff of its landlord, or
- * the tenant it is about; anyone else gets a 404.
+ * the tenant it is about while the case is open; anyone else gets a 404.
  */
 export class HomeAdviceService {
   constructor(
@@ -26,6 +28,10 @@ export class HomeAdviceService {
 
   async forCase(actor: Actor, caseId: number): Promise<CaseAdvice> {
     const c = await this.cases.getForActor(actor, caseId);
+    // Tips for a finished or withdrawn report would read as if the work were still going on; the tenant's
+    // page hides them, and the server does not send them either. Staff still see what the tenant was shown.
+    if (!isStaff(actor) && !OPEN_CASE_STATUSES.includes(c.status))
+      throw new NotFoundError("There is no advice for a report that is finished or withdrawn.");
     const home = c.property;
     // getForActor loads the home and its rooms; a case without them is a programming error, not bad input.
     if (!home) throw new Error(`Case ${c.id} was loaded without its home.`);

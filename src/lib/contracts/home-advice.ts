@@ -1,14 +1,20 @@
 import { z } from "zod";
-import { ADVICE_IDS } from "../domain/home-advice.js";
+import { ADVICE_CAUTIONS, ADVICE_IDS, ADVICE_SOURCES, UNINSULATED_WALLS } from "../domain/home-advice.js";
 
 const adviceItem = z.object({
   id: z.enum([...ADVICE_IDS, "no-oven-for-warmth"]),
-  title: z.string(),
-  whatToDo: z.string(),
-  why: z.string(),
+  /** What the item's words pick from (the client holds the words, per language). */
+  facts: z.object({
+    heating: z.enum(["none", "unreliable", "storage", "radiators", "other"]).optional(),
+    fan: z.enum(["broken", "not-recorded"]).optional(),
+    readings: z.enum(["none", "dry", "condensing", "other"]).optional(),
+    walls: z.enum([...UNINSULATED_WALLS, "none"]).optional(),
+    glass: z.enum(["single", "none"]).optional(),
+    costs: z.enum(["hard", "ok"]).optional(),
+  }),
   cost: z.enum(["free", "under-20", "20-to-100", "landlords-job"]),
-  cautions: z.array(z.string()),
-  source: z.string(),
+  cautions: z.array(z.enum(ADVICE_CAUTIONS)),
+  source: z.enum(ADVICE_SOURCES),
 });
 export type AdviceItemResponse = z.infer<typeof adviceItem>;
 

@@ -1,7 +1,8 @@
 // Advice for one home: from the home's record (walls, glazing, heating, ventilation) and the case's
 // facts (readings, rooms, the tenant's answers), the few things most likely to help there, ranked.
 // Pure: no I/O. Every item names its source beside it, or says it is common practice with no source.
-// Wording is plain English for tenants; repairs, fans and insulation are the landlord's job, never the tenant's.
+// The words are the client's, per language (src/locales/<lng>/advice.json), chosen by each item's id and
+// facts; repairs, fans and insulation are the landlord's job, never the tenant's.
 import type { GlazingKind, WallKind } from "./home-elements.js";
 import type { SurfaceState } from "./surface.js";
 
@@ -52,16 +53,59 @@ export type AdviceId = (typeof ADVICE_IDS)[number] | "no-oven-for-warmth";
 /** Rough bands only (common practice, no source): a tenant's outlay, or none because it is the landlord's job. */
 export type CostBand = "free" | "under-20" | "20-to-100" | "landlords-job";
 
+/** The cautions an item may carry; their words live with the tenant's text (src/locales/<lng>/advice.json). */
+export const ADVICE_CAUTIONS = [
+  "trades",
+  "no-diy-heating-repair",
+  "wet-electrics",
+  "keep-vulnerable-warm",
+  "mould-cleaning",
+  "film-not-repair",
+  "reflector-valves",
+  "walls-landlords-job",
+  "never-block-vents",
+  "gas-appliance-air",
+  "co-symptoms",
+  "co-alarm",
+] as const;
+export type AdviceCaution = (typeof ADVICE_CAUTIONS)[number];
+
+/**
+ * Where an item comes from, named beside it: "common-practice" (no source), Approved Document F
+ * (England, 2021) Vol. 1 extract rates, or ISO 13788's surface temperature factor with typical
+ * U-values from memory ("iso-13788", "iso-13788-panels" when the panels themselves are common practice).
+ */
+export const ADVICE_SOURCES = ["common-practice", "approved-document-f", "iso-13788", "iso-13788-panels"] as const;
+export type AdviceSource = (typeof ADVICE_SOURCES)[number];
+
+/**
+ * One thing that may help. The domain decides what and why; the words are the client's, per language,
+ * chosen by `id` and filled from `facts` (ICU select values such as `heating: "storage"`), so this
+ * code stays free of any one language.
+ */
 export interface AdviceItem {
   id: AdviceId;
-  title: string;
-  whatToDo: string;
-  /** Why it helps in this home, tied to the home's own facts. */
-  why: string;
+  /** The home's facts the item's wording picks from (whatToDo and why), tied to the home's own record. */
+  facts: AdviceFacts;
   cost: CostBand;
-  cautions: string[];
-  /** Where the rule comes from, or "Common practice, no source". */
-  source: string;
+  cautions: AdviceCaution[];
+  source: AdviceSource;
+}
+
+/** Every value is a word for an ICU select; "none" means the fact does not apply. */
+export interface AdviceFacts {
+  /** heating-repair: no fixed heating at all, or heating that does not always work. */
+  heating?: "none" | "unreliable" | "storage" | "radiators" | "other";
+  /** fan-repair: the fan is missing or broken, or the record shows none. */
+  fan?: "broken" | "not-recorded";
+  /** possible-leak, wipe-and-air: what the readings show. */
+  readings?: "none" | "dry" | "condensing" | "other";
+  /** The home's walls when they are uninsulated (and get cold), else "none". */
+  walls?: UninsulatedWall | "none";
+  /** "single" when single or partly single glazed, else "none". */
+  glass?: "single" | "none";
+  /** The tenant said heating is hard to afford: the warmth tip points to the help below. */
+  costs?: "hard" | "ok";
 }
 
 export interface HomeAdvice {
@@ -75,42 +119,24 @@ export interface HomeAdvice {
 
 export const MAX_ADVICE_ITEMS = 4;
 
-const COMMON_PRACTICE = "Common practice, no source";
-const TRADES = "Gas and electrical work is only for qualified trades, following local rules.";
-
-const UNINSULATED_WALLS: readonly WallKind[] = ["solid-brick", "solid-stone", "unfilled-cavity"];
+export const UNINSULATED_WALLS = ["solid-brick", "solid-stone", "unfilled-cavity"] as const satisfies readonly WallKind[];
+export type UninsulatedWall = (typeof UNINSULATED_WALLS)[number];
+const isUninsulated = (wall: WallKind): wall is UninsulatedWall => (UNINSULATED_WALLS as readonly WallKind[]).includes(wall);
 const COLD_GLAZING: readonly GlazingKind[] = ["single", "mixed"];
 const RADIATOR_HEATING: readonly AdviceHeating[] = ["gas-boiler", "heat-pump", "district"];
 const WET = new Set<SurfaceState>(["condensing", "mould-risk"]);
 const NOT_WORKING = new Set<AdviceAnswer>(["no", "sometimes"]);
 
-const wallWords: Record<WallKind, string> = {
-  "solid-brick": "solid brick walls",
-  "solid-stone": "solid stone walls",
-  "unfilled-cavity": "cavity walls that are not filled",
-  "filled-cavity": "filled cavity walls",
-  "system-built": "system-built walls",
-  "timber-frame": "timber frame walls",
-  insulated: "insulated walls",
-};
-
-// Approximate surface temperatures at 20 °C inside and 0 °C outside, from TRADE.md §2's typical
-// U-values [M, from memory] with fRsi ≈ 1 − U·Rsi [D].
-const SURFACE_NOTE = "ISO 13788 (surface temperature factor); typical U-values from memory";
+// The surface temperatures the window-film and reflector wording quote (about 5–7 °C on single glazing,
+// about 9.5 °C on the inside face of solid brick, at 20 °C inside and 0 °C outside) are from TRADE.md §2's
+// typical U-values [M, from memory] with fRsi ≈ 1 − U·Rsi [D]: source "iso-13788".
 
 export const NO_OVEN_FOR_WARMTH: AdviceItem = {
   id: "no-oven-for-warmth",
-  title: "Never heat a room with an oven, hob or bottled gas heater",
-  whatToDo:
-    "Do not use the oven, a gas hob, or a bottled gas or paraffin heater to keep warm. If the heating does not work, tell your landlord.",
-  why: "They can give off carbon monoxide, a gas you cannot see or smell that can kill. They can start a fire. Gas and paraffin heaters also put a lot of water into the air.",
+  facts: {},
   cost: "free",
-  cautions: [
-    "If you feel dizzy, sick or have a headache at home, get fresh air and call for help.",
-    "A carbon monoxide alarm is a good idea near any gas appliance.",
-    TRADES,
-  ],
-  source: COMMON_PRACTICE,
+  cautions: ["co-symptoms", "co-alarm", "trades"],
+  source: "common-practice",
 };
 
 interface Candidate {
@@ -121,7 +147,8 @@ interface Candidate {
 /** The few things most likely to help in this home, ranked, with the safety caution always beside them. */
 export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
   const wet = f.riskState !== null && WET.has(f.riskState);
-  const uninsulatedWalls = UNINSULATED_WALLS.includes(f.wallType);
+  const walls = isUninsulated(f.wallType) ? f.wallType : null;
+  const uninsulatedWalls = walls !== null;
   const coldGlass = COLD_GLAZING.includes(f.glazingType);
   const heatingBroken = f.heatingType === "none" || (f.heatingUsable != null && NOT_WORKING.has(f.heatingUsable));
   const hardToAfford = f.heatingCost === "hard-to-afford";
@@ -138,15 +165,10 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
       score: 100,
       item: {
         id: "heating-repair",
-        title: "Heating that works is your landlord's job",
-        whatToDo:
-          f.heatingType === "none"
-            ? "Your home has no fixed heating on our record. Tell your landlord: they should provide a safe way to heat the home."
-            : "Tell your landlord the heating does not always work. Fixing it is their job, not yours.",
-        why: "A home that stays cold has cold walls and windows, and water from the air settles on cold surfaces.",
+        facts: { heating: f.heatingType === "none" ? "none" : "unreliable" },
         cost: "landlords-job",
-        cautions: [TRADES, "Do not try to repair a boiler or heater yourself."],
-        source: COMMON_PRACTICE,
+        cautions: ["trades", "no-diy-heating-repair"],
+        source: "common-practice",
       },
     });
 
@@ -155,14 +177,10 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
       score: 90,
       item: {
         id: "fan-repair",
-        title: "A working extractor fan is your landlord's job",
-        whatToDo: fanBroken
-          ? "Tell your landlord the extractor fan in the kitchen or bathroom is missing or does not work well. Fitting or fixing it is their job."
-          : "Our record shows no extractor fan. Ask your landlord about fitting one in the kitchen and bathroom.",
-        why: "Cooking and washing put a lot of water into the air. A fan takes it outside before it settles on cold walls.",
+        facts: { fan: fanBroken ? "broken" : "not-recorded" },
         cost: "landlords-job",
-        cautions: [TRADES],
-        source: "Approved Document F (England, 2021) Vol. 1 extract rates: kitchen 30–60 l/s, bathroom 15 l/s",
+        cautions: ["trades"],
+        source: "approved-document-f",
       },
     });
 
@@ -171,62 +189,40 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
       score: 85,
       item: {
         id: "possible-leak",
-        title: "Wet patches may need a surveyor",
-        whatToDo:
-          "Tell your landlord about any wet patch or leak. They should send someone qualified to find where the water comes from.",
-        why:
-          f.riskState === null
-            ? "Wet patches can come from a leak or from damp getting in, not only from condensation."
-            : "The readings do not show condensation on this surface, so the water may come from a leak or from damp getting in.",
+        facts: { readings: f.riskState === null ? "none" : "dry" },
         cost: "landlords-job",
-        cautions: [
-          "Keep away from wet electrics. If water is near lights or sockets, switch off at the fuse box if it is safe and call for help.",
-        ],
-        source: COMMON_PRACTICE,
+        cautions: ["wet-electrics"],
+        source: "common-practice",
       },
     });
 
-  if (!heatingBroken) {
-    const controls =
-      f.heatingType === "electric-storage"
-        ? "Set the storage heaters so they give out a little heat all day, rather than none and then a lot."
-        : RADIATOR_HEATING.includes(f.heatingType)
-          ? "Use the radiator valves to keep every room a little warm, and set the thermostat to the lowest setting you are comfortable with."
-          : "Set the heating to the lowest setting you are comfortable with, and keep it on steadily.";
-    const cold = [uninsulatedWalls ? wallWords[f.wallType] : null, coldGlass ? "single glazing" : null]
-      .filter(Boolean)
-      .join(" and ");
+  if (!heatingBroken)
     candidates.push({
       score: 60 + (wet ? 20 : 0) + (uninsulatedWalls ? 5 : 0) + (coldGlass ? 5 : 0),
       item: {
         id: "steady-low-heat",
-        title: "Steady, low warmth rather than none",
-        whatToDo: `${controls} Keep rooms you use less a little warm too, with the door closed.`,
-        why: `${cold ? `Your home has ${cold}, which get cold. ` : ""}Warm surfaces stay drier: water from the air settles on the coldest surfaces first.${hardToAfford ? " We know heating costs money. There is help with costs below." : ""}`,
+        facts: {
+          heating:
+            f.heatingType === "electric-storage" ? "storage" : RADIATOR_HEATING.includes(f.heatingType) ? "radiators" : "other",
+          walls: walls ?? "none",
+          glass: coldGlass ? "single" : "none",
+          costs: hardToAfford ? "hard" : "ok",
+        },
         cost: "free",
-        cautions: ["Older people, babies and people who are ill need more warmth: do not let them get cold."],
-        source: COMMON_PRACTICE,
+        cautions: ["keep-vulnerable-warm"],
+        source: "common-practice",
       },
     });
-  }
 
   if (condensation || wet)
     candidates.push({
       score: 55 + (wet ? 15 : 0),
       item: {
         id: "wipe-and-air",
-        title: "Let the damp air out",
-        whatToDo:
-          "Keep trickle vents open. Run the extractor fan while cooking or washing and for a while after. Wipe water off windows in the morning.",
-        why:
-          f.riskState === "condensing"
-            ? "The readings show water settling on a cold surface in your home. Moving damp air out helps while your landlord looks at the cause."
-            : "Water on windows and walls feeds mould. This helps while your landlord looks at the cause.",
+        facts: { readings: f.riskState === "condensing" ? "condensing" : "other" },
         cost: "free",
-        cautions: [
-          "If you clean mould, wear gloves, a mask and eye protection and open a window. Do not clean mould if you have asthma, allergies or a weak immune system, are pregnant, or for children. Bleach does not fix it.",
-        ],
-        source: COMMON_PRACTICE,
+        cautions: ["mould-cleaning"],
+        source: "common-practice",
       },
     });
 
@@ -235,13 +231,10 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
       score: 50 + (wet || condensation ? 10 : 0),
       item: {
         id: "window-film",
-        title: "Clear window film on single glazing, if your landlord agrees",
-        whatToDo:
-          "Ask your landlord first. If they agree, fit a clear film kit inside the window frame. Leave trickle vents and opening windows uncovered.",
-        why: "Your home has single glazing. The glass is the coldest surface in the room, about 5–7 °C when it is 0 °C outside and 20 °C inside, so water settles there first. Film adds a layer of still air.",
+        facts: { glass: "single" },
         cost: "under-20",
-        cautions: ["Film does not replace repairs: rotten frames or broken glass are the landlord's job."],
-        source: SURFACE_NOTE,
+        cautions: ["film-not-repair"],
+        source: "iso-13788",
       },
     });
 
@@ -250,13 +243,10 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
       score: 45 + (wet ? 5 : 0),
       item: {
         id: "radiator-reflector",
-        title: "Reflector panels behind radiators on outside walls",
-        whatToDo:
-          "Fit foil reflector panels on the wall behind radiators that sit on an outside wall. Ask your landlord before you stick anything to the walls.",
-        why: `Your home has ${wallWords[f.wallType]}, which lose heat quickly (about 9.5 °C inside face at 0 °C out for solid brick). A panel sends heat back into the room.`,
+        facts: { walls: walls ?? "none" },
         cost: "under-20",
-        cautions: ["Do not cover the radiator valve or the thermostat.", "Insulating the walls is the landlord's job."],
-        source: `${SURFACE_NOTE}; the panels themselves: common practice, no source`,
+        cautions: ["reflector-valves", "walls-landlords-job"],
+        source: "iso-13788-panels",
       },
     });
 
@@ -265,16 +255,10 @@ export function adviseForHome(f: HomeAdviceFacts): HomeAdvice {
       score: 40,
       item: {
         id: "draught-proofing",
-        title: "Stop draughts, but never block a vent",
-        whatToDo:
-          "Brush or foam strips on doors and window gaps stop cold draughts. Ask your landlord first for anything fixed to windows.",
-        why: "Cold draughts chill walls and windows. Vents are different: they let damp air out on purpose.",
+        facts: {},
         cost: "under-20",
-        cautions: [
-          "Never block trickle vents, air bricks or extractor fans.",
-          "Do not seal rooms with a gas fire or boiler that needs air.",
-        ],
-        source: COMMON_PRACTICE,
+        cautions: ["never-block-vents", "gas-appliance-air"],
+        source: "common-practice",
       },
     });
 

@@ -129,7 +129,9 @@ export type {
   TriageVulnerability,
 } from "./triage-priority.js";
 export {
+  ADVICE_CAUTIONS,
   ADVICE_IDS,
+  ADVICE_SOURCES,
   HEATING_COST_ANSWERS,
   MAX_ADVICE_ITEMS,
   NO_OVEN_FOR_WARMTH,

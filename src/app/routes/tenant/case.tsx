@@ -21,7 +21,7 @@ import { CaseTimeline } from "@/features/cases/components/case-timeline";
 import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
-import { tenantStage } from "@/features/cases/labels";
+import { useCaseText, useTenantStage } from "@/features/cases/tenant-words";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
 import { HomeAdviceSection } from "@/features/home-advice/components/home-advice-section";
 import { OPEN_CASE_STATUSES } from "@/lib/domain/case-workflow";
@@ -34,7 +34,8 @@ import { AddReadings } from "@/features/report/components/add-readings";
 import { ReportFollowUp } from "@/features/report/components/report-follow-up";
 import { ReportSummary } from "@/features/report/components/report-summary";
 import { ApiError, errorMessage } from "@/lib/api-client";
-import { formatDate } from "@/lib/dates";
+import { formatDateIn } from "@/lib/dates";
+import { Trans } from "react-i18next";
 
 const caseIdOf = (raw: string | undefined): number | null => {
   const id = Number(raw);
@@ -65,14 +66,16 @@ export default function CasePage() {
 }
 
 function CaseNotFound({ message }: { message?: string }) {
+  const { t } = useCaseText();
   return (
     <>
-      <title>Report not found · Dewline</title>
-      <PageHeader title="Report not found" />
-      <Alert tone="info" title="We couldn't find this report">
-        <p>{message ?? "The link may be wrong, or the report may belong to another account."}</p>
+      <title>{t("notFound.title")}</title>
+      <PageHeader title={t("notFound.heading")} />
+      <Alert tone="info" title={t("notFound.alert")}>
+        {/* The server's own words, when it gave a reason, are not translated. */}
+        {message ? <p translate="no">{message}</p> : <p>{t("notFound.body")}</p>}
         <p className="mt-1">
-          <Link to="/cases">Go to My reports</Link>
+          <Link to="/cases">{t("notFound.myReports")}</Link>
         </p>
       </Alert>
     </>
@@ -80,6 +83,7 @@ function CaseNotFound({ message }: { message?: string }) {
 }
 
 function CaseView({ id }: { id: number }) {
+  const { t, i18n } = useCaseText();
   const queryClient = useQueryClient();
   const location = useLocation();
   const navigate = useNavigate();
@@ -93,16 +97,17 @@ function CaseView({ id }: { id: number }) {
   const summarySent = useCaseEvents(id).data?.some((e) => e.type === "summary-sent") ?? false;
   const refresh = () => void queryClient.invalidateQueries({ queryKey: caseKeys.detail(id) });
   const hash = location.hash;
+  const stage = useTenantStage(kase.data?.status ?? "", { summarySent });
 
-  if (kase.isPending) return <LoadingState>Loading your report…</LoadingState>;
+  if (kase.isPending) return <LoadingState>{t("loading")}</LoadingState>;
   if (kase.isError) {
     if (kase.error instanceof ApiError && kase.error.status === 404) return <CaseNotFound message={kase.error.message} />;
     return (
       <>
-        <title>Report · Dewline</title>
-        <PageHeader title="Your report" />
-        <Alert tone="danger" title="We couldn't load this report">
-          {errorMessage(kase.error)}
+        <title>{t("loadFailed.title")}</title>
+        <PageHeader title={t("loadFailed.heading")} />
+        <Alert tone="danger" title={t("loadFailed.alert")}>
+          <span translate="no">{errorMessage(kase.error)}</span>
         </Alert>
       </>
     );
@@ -112,25 +117,35 @@ function CaseView({ id }: { id: number }) {
 
   return (
     <>
-      <title>{`${title} · Dewline`}</title>
+      <title>{t("pageTitle", { title })}</title>
       <PageHeader
-        title={title}
+        title={<span translate="no">{title}</span>}
         description={
           <span className="flex flex-col gap-1">
-            <StatusBadge status={c.status} facts={{ summarySent }} />
+            <StatusBadge status={c.status} label={stage.label} prefix={t("status.prefix")} />
             <span>
-              Sent on {formatDate(c.createdAt)}
-              {c.property.addressLine1 ? ` · ${c.property.addressLine1}` : ""}
+              {t("sentOn", { date: formatDateIn(i18n.language, c.createdAt) })}
+              {c.property.addressLine1 ? (
+                <>
+                  {" · "}
+                  <span translate="no">{c.property.addressLine1}</span>
+                </>
+              ) : null}
             </span>
           </span>
         }
       />
       <div className="flex flex-col gap-5">
         {justSent ? (
-          <Alert tone="success" title="Thank you. Your report has been sent">
+          <Alert tone="success" title={t("thanks.title")}>
             <p>
-              Your reference is <strong>{title}</strong>. Your landlord has been told and will look into it.
-              {justSent.complete ? "" : " One part still needs your help, just below."}
+              <Trans
+                t={t}
+                i18nKey="thanks.body"
+                values={{ reference: title }}
+                components={{ strong: <strong translate="no" /> }}
+              />
+              {justSent.complete ? "" : ` ${t("thanks.incomplete")}`}
             </p>
           </Alert>
         ) : null}
@@ -146,10 +161,10 @@ function CaseView({ id }: { id: number }) {
         <ReadingsPanel c={c} open={hash === "#case-readings"} />
         <PhotosPanel id={id} open={hash === "#case-photos"} />
         <TimelinePanel c={c} open={hash === "#case-timeline"} />
-        <CollapsibleSection id="case-complaint" title="Complaint" defaultOpen={hash === "#case-complaint"}>
+        <CollapsibleSection id="case-complaint" title={t("sections.complaint.title")} defaultOpen={hash === "#case-complaint"}>
           <TenantComplaintSection caseId={id} />
         </CollapsibleSection>
-        <CollapsibleSection id="case-answers" title="What you told us" defaultOpen={hash === "#case-answers"}>
+        <CollapsibleSection id="case-answers" title={t("sections.answers.title")} defaultOpen={hash === "#case-answers"}>
           <ReportSummary
             sentAt={c.createdAt}
             answers={{
@@ -185,13 +200,14 @@ function NextSteps({ c, summarySent, onChanged }: { c: CaseDto; summarySent: boo
     if (open) actionRef.current?.focus();
   }, [open]);
   const toggle = (action: Exclude<Action, null>) => setOpen((current) => (current === action ? null : action));
-  const meaning = tenantStage(c.status, { summarySent }).meaning;
+  const { t } = useCaseText();
+  const meaning = useTenantStage(c.status, { summarySent }).meaning;
 
   return (
     <>
-      <Panel title="What happens next" id="case-next">
+      <Panel title={t("next.title")} id="case-next">
         {meaning ? <p>{meaning}</p> : null}
-        <p className="mt-2">You can add to your report at any time.</p>
+        <p className="mt-2">{t("next.addAnyTime")}</p>
         <div className="mt-3 flex flex-wrap gap-2">
           <Button
             ref={photosButton}
@@ -200,7 +216,7 @@ function NextSteps({ c, summarySent, onChanged }: { c: CaseDto; summarySent: boo
             aria-controls="case-add-photos"
             onClick={() => toggle("photos")}
           >
-            Add photos
+            {t("next.addPhotos")}
           </Button>
           <Button
             ref={readingsButton}
@@ -209,18 +225,18 @@ function NextSteps({ c, summarySent, onChanged }: { c: CaseDto; summarySent: boo
             aria-controls="case-add-readings"
             onClick={() => toggle("readings")}
           >
-            Add readings
+            {t("next.addReadings")}
           </Button>
           <WorseButton caseId={c.id} onReported={onChanged} />
         </div>
       </Panel>
       {open === "photos" ? (
-        <ActionPanel id="case-add-photos" title="Add more photos" headingRef={actionRef} onClose={close}>
+        <ActionPanel id="case-add-photos" title={t("next.morePhotos")} headingRef={actionRef} onClose={close}>
           <AddPhotos caseId={c.id} onAdded={onChanged} />
         </ActionPanel>
       ) : null}
       {open === "readings" ? (
-        <ActionPanel id="case-add-readings" title="Add more readings" headingRef={actionRef} onClose={close}>
+        <ActionPanel id="case-add-readings" title={t("next.moreReadings")} headingRef={actionRef} onClose={close}>
           <AddReadings caseId={c.id} rooms={c.homeRooms} onAdded={onChanged} headingLevel={3} />
         </ActionPanel>
       ) : null}
@@ -237,6 +253,7 @@ interface ActionPanelProps {
 }
 
 function ActionPanel({ id, title, headingRef, onClose, children }: ActionPanelProps) {
+  const { t } = useCaseText();
   return (
     <section
       id={id}
@@ -248,7 +265,12 @@ function ActionPanel({ id, title, headingRef, onClose, children }: ActionPanelPr
           {title}
         </h2>
         <Button variant="ghost" size="sm" onClick={onClose}>
-          Close<span className="sr-only"> {title.toLowerCase()}</span>
+          <Trans
+            t={t}
+            i18nKey="next.closeWhat"
+            values={{ what: title.toLocaleLowerCase() }}
+            components={{ hidden: <span className="sr-only" /> }}
+          />
         </Button>
       </div>
       {children}
@@ -258,21 +280,22 @@ function ActionPanel({ id, title, headingRef, onClose, children }: ActionPanelPr
 
 function EvaluationPanel({ id, open }: { id: number; open: boolean }) {
   const evaluation = useCaseEvaluation(id);
+  const { t } = useCaseText();
   return (
     <CollapsibleSection
       id="case-evaluation"
-      title="What your readings show"
-      summary="What the readings say about condensation and mould, with advice on staying safe."
+      title={t("sections.evaluation.title")}
+      summary={t("sections.evaluation.summary")}
       defaultOpen={open}
     >
       {evaluation.isPending ? (
-        <LoadingState>Working out what the readings show…</LoadingState>
+        <LoadingState>{t("sections.evaluation.loading")}</LoadingState>
       ) : evaluation.isError ? (
-        <Alert tone="warning" title="We couldn't work out the readings just now">
-          {errorMessage(evaluation.error)}
+        <Alert tone="warning" title={t("sections.evaluation.failed")}>
+          <span translate="no">{errorMessage(evaluation.error)}</span>
         </Alert>
       ) : (
-        <CaseEvaluationView evaluation={evaluation.data} emptyHint="you can add some with “Add readings” above." />
+        <CaseEvaluationView evaluation={evaluation.data} emptyHint={t("sections.evaluation.emptyHint")} />
       )}
     </CollapsibleSection>
   );
@@ -284,24 +307,27 @@ function EvaluationPanel({ id, open }: { id: number; open: boolean }) {
  */
 function MessagesPanel({ id, open }: { id: number; open: boolean }) {
   const events = useCaseEvents(id);
+  const { t } = useCaseText();
   return (
     <>
-      <Panel title="Latest from your landlord" id="case-latest">
+      <Panel title={t("sections.latest.title")} id="case-latest">
         {events.isPending ? (
-          <LoadingState>Loading messages…</LoadingState>
+          <LoadingState>{t("sections.latest.loading")}</LoadingState>
         ) : events.isError ? (
-          <Alert tone="warning">{errorMessage(events.error)}</Alert>
+          <Alert tone="warning">
+            <span translate="no">{errorMessage(events.error)}</span>
+          </Alert>
         ) : (
           <LandlordMessages events={events.data} showFirst={1} />
         )}
         <p className="mt-3">
-          <TextLink to={{ hash: "case-messages" }}>Write to your landlord</TextLink>
+          <TextLink to={{ hash: "case-messages" }}>{t("sections.latest.write")}</TextLink>
         </p>
       </Panel>
       <CollapsibleSection
         id="case-messages"
-        title="Messages with your landlord"
-        summary="Write to your landlord, with photos if you like, and read every message."
+        title={t("sections.messages.title")}
+        summary={t("sections.messages.summary")}
         defaultOpen={open}
       >
         <CaseConversation caseId={id} viewer="tenant" />
@@ -312,17 +338,20 @@ function MessagesPanel({ id, open }: { id: number; open: boolean }) {
 
 function TimelinePanel({ c, open }: { c: CaseDto; open: boolean }) {
   const events = useCaseEvents(c.id);
+  const { t } = useCaseText();
   return (
     <CollapsibleSection
       id="case-timeline"
-      title="What has happened so far"
-      summary="Every step of your report, newest first."
+      title={t("sections.timeline.title")}
+      summary={t("sections.timeline.summary")}
       defaultOpen={open}
     >
       {events.isPending ? (
-        <LoadingState>Loading what has happened…</LoadingState>
+        <LoadingState>{t("sections.timeline.loading")}</LoadingState>
       ) : events.isError ? (
-        <Alert tone="warning">{errorMessage(events.error)}</Alert>
+        <Alert tone="warning">
+          <span translate="no">{errorMessage(events.error)}</span>
+        </Alert>
       ) : (
         <CaseTimeline events={events.data} rooms={c.homeRooms} />
       )}
@@ -333,19 +362,22 @@ function TimelinePanel({ c, open }: { c: CaseDto; open: boolean }) {
 function PhotosPanel({ id, open }: { id: number; open: boolean }) {
   const photos = useCasePhotos(id);
   const count = photos.data?.length;
+  const { t } = useCaseText();
   return (
     <CollapsibleSection
       id="case-photos"
-      title="Photos"
-      summary={count === undefined ? undefined : count === 0 ? "No photos yet." : count === 1 ? "1 photo." : `${count} photos.`}
+      title={t("sections.photos.title")}
+      summary={count === undefined ? undefined : t("sections.photos.summary", { count })}
       defaultOpen={open}
     >
       {photos.isPending ? (
-        <LoadingState>Loading photos…</LoadingState>
+        <LoadingState>{t("sections.photos.loading")}</LoadingState>
       ) : photos.isError ? (
-        <Alert tone="warning">{errorMessage(photos.error)}</Alert>
+        <Alert tone="warning">
+          <span translate="no">{errorMessage(photos.error)}</span>
+        </Alert>
       ) : (
-        <PhotoGallery photos={photos.data} emptyText="No photos yet" />
+        <PhotoGallery photos={photos.data} emptyText={t("sections.photos.empty")} />
       )}
     </CollapsibleSection>
   );
@@ -354,23 +386,20 @@ function PhotosPanel({ id, open }: { id: number; open: boolean }) {
 function ReadingsPanel({ c, open }: { c: CaseDto; open: boolean }) {
   const readings = useCaseReadings(c.id);
   const count = readings.data?.length;
+  const { t } = useCaseText();
   return (
     <CollapsibleSection
       id="case-readings"
-      title="Readings"
-      summary={
-        count === undefined
-          ? undefined
-          : count === 0
-            ? "No readings yet."
-            : `${count.toLocaleString("en-GB")} ${count === 1 ? "reading" : "readings"}, with a chart.`
-      }
+      title={t("sections.readings.title")}
+      summary={count === undefined ? undefined : t("sections.readings.summary", { count })}
       defaultOpen={open}
     >
       {readings.isPending ? (
-        <LoadingState>Loading readings…</LoadingState>
+        <LoadingState>{t("sections.readings.loading")}</LoadingState>
       ) : readings.isError ? (
-        <Alert tone="warning">{errorMessage(readings.error)}</Alert>
+        <Alert tone="warning">
+          <span translate="no">{errorMessage(readings.error)}</span>
+        </Alert>
       ) : (
         <ReadingsSection readings={readings.data} rooms={c.homeRooms} />
       )}

@@ -7,12 +7,18 @@ export function StatusBadge({
   className,
   audience = "tenant",
   facts,
+  label,
+  prefix = "Status: ",
 }: {
   status: string;
   className?: string;
   audience?: Audience;
   /** For the tenant: what else has happened (the written summary sent). */
   facts?: TenantStageFacts;
+  /** The words already worked out, in the tenant's language (this component stays free of i18next for the queue). */
+  label?: string;
+  /** Read before the status by screen readers. */
+  prefix?: string;
 }) {
   return (
     <span
@@ -21,8 +27,8 @@ export function StatusBadge({
         className,
       )}
     >
-      <span className="sr-only">Status: </span>
-      {audience === "tenant" ? tenantStage(status, facts).label : statusLabelFor(audience)(status)}
+      <span className="sr-only">{prefix}</span>
+      {label ?? (audience === "tenant" ? tenantStage(status, facts).label : statusLabelFor(audience)(status))}
     </span>
   );
 }

@@ -1,8 +1,9 @@
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
-import { formatDateTime } from "@/lib/dates";
-import { isRole, roleLabels } from "@/lib/roles";
+import { formatDateIn } from "@/lib/dates";
+import { isRole } from "@/lib/roles";
+import { useCaseText } from "../tenant-words";
 import type { CaseEvent } from "../api/types";
 
 /**
@@ -11,15 +12,12 @@ import type { CaseEvent } from "../api/types";
  */
 export function LandlordMessages({ events, showFirst }: { events: readonly CaseEvent[]; showFirst?: number }) {
   const [all, setAll] = useState(false);
+  const { t, i18n } = useCaseText();
   const messages = events
     .filter((e) => (e.type === "message-to-tenant" || e.type === "summary-sent") && typeof e.after?.body === "string")
     .sort((a, b) => Date.parse(b.at) - Date.parse(a.at) || b.id - a.id);
   if (messages.length === 0) {
-    return (
-      <EmptyState title="No messages yet">
-        When your landlord writes to you about this report, their messages will appear here.
-      </EmptyState>
-    );
+    return <EmptyState title={t("landlordMessages.none")}>{t("landlordMessages.noneBody")}</EmptyState>;
   }
   const shown = all || showFirst === undefined ? messages : messages.slice(0, showFirst);
   const earlier = messages.length - shown.length;
@@ -29,18 +27,26 @@ export function LandlordMessages({ events, showFirst }: { events: readonly CaseE
         {shown.map((m) => (
           <li key={m.id} className="rounded-md border border-line bg-paper p-3">
             <p className="text-sm text-ink-soft">
-              {m.actor ? `${m.actor.name}${isRole(m.actor.role) ? `, ${roleLabels[m.actor.role]}` : ""} · ` : ""}
-              <time dateTime={m.at}>{formatDateTime(m.at)}</time>
+              {m.actor ? (
+                <>
+                  <span translate="no">{m.actor.name}</span>
+                  {isRole(m.actor.role) ? `, ${t(`landlordMessages.role.${m.actor.role}`)}` : ""}
+                  {" · "}
+                </>
+              ) : null}
+              <time dateTime={m.at}>{t("landlordMessages.at", { when: formatDateIn(i18n.language, m.at, "dateTime") })}</time>
             </p>
-            {m.type === "summary-sent" ? <p className="mt-1 font-semibold">Written summary of the investigation</p> : null}
-            <p className="mt-1 whitespace-pre-line">{String(m.after!.body)}</p>
+            {m.type === "summary-sent" ? <p className="mt-1 font-semibold">{t("landlordMessages.summary")}</p> : null}
+            <p className="mt-1 whitespace-pre-line" translate="no">
+              {String(m.after!.body)}
+            </p>
           </li>
         ))}
       </ul>
       {earlier > 0 ? (
         <div>
           <Button variant="secondary" size="sm" onClick={() => setAll(true)}>
-            Show {earlier === 1 ? "the earlier message" : `${earlier} earlier messages`}
+            {t("landlordMessages.showEarlier", { count: earlier })}
           </Button>
         </div>
       ) : null}

@@ -6,6 +6,8 @@ import { errorMessage } from "@/lib/api-client";
 import type { WorseResponse } from "@/lib/contracts";
 import { useReportWorse } from "../api/report-worse";
 import { Modal } from "./modal";
+import { useCaseText } from "../tenant-words";
+import type { TFunction } from "i18next";
 
 interface WorseButtonProps {
   caseId: number;
@@ -16,18 +18,10 @@ interface WorseButtonProps {
  * What the tenant is told afterwards: only what happened. "Told" only when someone was e-mailed;
  * "reopened" only when a finished or monitored report was reopened.
  */
-function outcomeWords(outcome: WorseResponse): { title: string; body: string } {
-  const reopened = outcome.reopened ? " Your report has been reopened, so your landlord will look at it again." : "";
-  if (outcome.told === "nobody") {
-    return {
-      title: "Thank you, this is now part of your report",
-      body: `What you wrote is on your report for your landlord's team to see.${reopened}`,
-    };
-  }
-  return {
-    title: "Thank you, your landlord has been told",
-    body: `We have e-mailed ${outcome.told === "assignee" ? "the person looking after your report" : "your landlord's housing team"} with what you wrote.${reopened}`,
-  };
+function outcomeWords(t: TFunction<"case">, outcome: WorseResponse): { title: string; body: string } {
+  const reopened = outcome.reopened ? t("worse.reopened") : "";
+  if (outcome.told === "nobody") return { title: t("worse.partTitle"), body: t("worse.partBody", { reopened }) };
+  return { title: t("worse.toldTitle"), body: t("worse.toldBody", { who: outcome.told, reopened }) };
 }
 
 /** "It's got worse": a short note to the landlord, added to the timeline. */
@@ -38,6 +32,7 @@ export function WorseButton({ caseId, onReported }: WorseButtonProps) {
   const [done, setDone] = useState<WorseResponse | null>(null);
   const noteRef = useRef<HTMLTextAreaElement>(null);
   const worse = useReportWorse(caseId);
+  const { t } = useCaseText();
 
   const close = () => {
     setOpen(false);
@@ -48,7 +43,7 @@ export function WorseButton({ caseId, onReported }: WorseButtonProps) {
   const submit = (e: FormEvent) => {
     e.preventDefault();
     if (note.trim().length < 3) {
-      setError("Tell us briefly what has changed.");
+      setError(t("worse.tooShort"));
       noteRef.current?.focus();
       return;
     }
@@ -71,25 +66,19 @@ export function WorseButton({ caseId, onReported }: WorseButtonProps) {
           setOpen(true);
         }}
       >
-        It's got worse
+        {t("worse.button")}
       </Button>
       {done ? (
-        <Alert tone="success" title={outcomeWords(done).title} className="basis-full">
-          {outcomeWords(done).body}
+        <Alert tone="success" title={outcomeWords(t, done).title} className="basis-full">
+          {outcomeWords(t, done).body}
         </Alert>
       ) : null}
-      <Modal
-        open={open}
-        onClose={close}
-        title="Tell your landlord it has got worse"
-        initialFocusRef={noteRef}
-        busy={worse.isPending}
-      >
+      <Modal open={open} onClose={close} title={t("worse.title")} initialFocusRef={noteRef} busy={worse.isPending}>
         <form onSubmit={submit} noValidate className="flex flex-col gap-4">
           <Textarea
             ref={noteRef}
-            label="What has changed?"
-            hint="For example: the mould has spread to the wardrobe, or someone at home is now unwell."
+            label={t("worse.label")}
+            hint={t("worse.hint")}
             rows={4}
             maxLength={2000}
             value={note}
@@ -100,16 +89,16 @@ export function WorseButton({ caseId, onReported }: WorseButtonProps) {
             error={error}
           />
           {worse.isError ? (
-            <Alert tone="danger" title="This wasn't sent">
-              {errorMessage(worse.error)}
+            <Alert tone="danger" title={t("worse.notSent")}>
+              <span translate="no">{errorMessage(worse.error)}</span>
             </Alert>
           ) : null}
           <div className="flex flex-wrap justify-end gap-2">
             <Button variant="secondary" onClick={close} disabled={worse.isPending}>
-              Cancel
+              {t("worse.cancel")}
             </Button>
             <Button type="submit" busy={worse.isPending}>
-              Send to my landlord
+              {t("worse.send")}
             </Button>
           </div>
         </form>

@@ -1,4 +1,4 @@
-import { useId, useRef, useState, type FormEvent } from "react";
+import { useId, useRef, useState, type FormEvent, type ReactNode } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
@@ -8,8 +8,23 @@ import { useVerification } from "../api/get-verification";
 import { useCaseWorkOrders } from "../api/get-case-work-orders";
 import { useRespondToBooking } from "../api/respond-to-booking";
 import type { WorkOrder } from "../api/case-types";
-import { slotForTenant, touchesServices, workTypeForTenant } from "../lib/words";
-import { formatLongDay } from "@/lib/dates";
+import { touchesServices, WORK_TYPE_WORDS } from "../lib/words";
+import { formatDateIn, todayInLondon } from "@/lib/dates";
+import { i18n } from "@/lib/i18n/i18n";
+import { Trans, useTranslation } from "react-i18next";
+import type { TFunction } from "i18next";
+
+// The tenant's words for their repairs live in the case page's namespace (src/locales/<lng>/case.json, "repairs").
+const useRepairText = () => useTranslation("case", { i18n, keyPrefix: "repairs" });
+type RepairT = TFunction<"case", "repairs">;
+
+/** "Tuesday 8 December, in the morning (8am to 12 noon)", in the tenant's language; the year only when it is not this year. */
+function slotWords(t: RepairT, lng: string, slot: { date: string; window: string }): string {
+  const thisYear = slot.date.slice(0, 4) === todayInLondon().slice(0, 4);
+  return t("slot", { day: formatDateIn(lng, slot.date, thisYear ? "longDayNoYear" : "longDay"), window: slot.window });
+}
+
+const workWords = (t: RepairT, type: string) => t(`work.${Object.hasOwn(WORK_TYPE_WORDS, type) ? type : "other"}`);
 
 interface TenantRepairsProps {
   caseId: number;
@@ -18,10 +33,9 @@ interface TenantRepairsProps {
   readingsHref: string;
 }
 
-const sentence = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
-
 /** The repairs for the tenant's report, in plain words: what, where, when, and their answer to the appointment. */
 export function TenantRepairs({ caseId, caseStatus, readingsHref }: TenantRepairsProps) {
+  const { t, i18n: lang } = useRepairText();
   const orders = useCaseWorkOrders(caseId);
   const monitoring = caseStatus === "monitoring";
   const verification = useVerification(caseId, { enabled: monitoring });
@@ -30,9 +44,9 @@ export function TenantRepairs({ caseId, caseStatus, readingsHref }: TenantRepair
     // No repairs (or none the tenant can see) is not a problem to report.
     if (orders.error instanceof ApiError && orders.error.status === 404) return null;
     return (
-      <Panel title="Repairs" id="case-repairs">
-        <Alert tone="warning" title="We couldn't load the repairs just now">
-          {errorMessage(orders.error)}
+      <Panel title={t("title")} id="case-repairs">
+        <Alert tone="warning" title={t("loadFailed")}>
+          <span translate="no">{errorMessage(orders.error)}</span>
         </Alert>
       </Panel>
     );
@@ -41,19 +55,16 @@ export function TenantRepairs({ caseId, caseStatus, readingsHref }: TenantRepair
   const endsAt = verification.data?.monitoringEndsAt ?? null;
 
   return (
-    <Panel title="Repairs" id="case-repairs">
+    <Panel title={t("title")} id="case-repairs">
       <div className="flex flex-col gap-4">
         {monitoring ? (
           <Alert
             tone="info"
-            title={
-              endsAt ? `We are checking the repair worked until ${formatLongDay(endsAt)}` : "We are checking the repair worked"
-            }
+            title={endsAt ? t("checkingUntil", { date: formatDateIn(lang.language, endsAt, "longDay") }) : t("checking")}
             live="none"
           >
             <p>
-              Please <a href={readingsHref}>add readings</a> (with “Add readings” above) while we check, and tell us if mould
-              comes back (with “It's got worse”).
+              <Trans t={t} i18nKey="checkingBody" components={{ add: <InPageLink href={readingsHref} /> }} />
             </p>
           </Alert>
         ) : null}
@@ -69,21 +80,32 @@ export function TenantRepairs({ caseId, caseStatus, readingsHref }: TenantRepair
 
 function RepairItem({ order: o }: { order: WorkOrder }) {
   const headingId = useId();
+  const { t, i18n: lang } = useRepairText();
   const upcoming = o.slot !== null && (o.status === "scheduled" || o.status === "confirmed" || o.status === "change-requested");
   return (
     <li aria-labelledby={headingId} className="flex flex-col gap-2 rounded-md border border-line bg-paper p-3 sm:p-4">
       <h3 id={headingId} className="text-lg font-bold">
-        {sentence(workTypeForTenant(o.type))}
+        {workWords(t, o.type)}
       </h3>
-      {o.rooms.length ? <p>Where: {o.rooms.map((r) => r.name).join(", ")}</p> : null}
-      {o.status === "unscheduled" ? <p>We will offer you an appointment soon.</p> : null}
-      {o.status === "cancelled" ? (
-        <p>This repair is no longer planned. Your landlord will tell you if anything else is needed.</p>
+      {o.rooms.length ? (
+        <p>
+          <Trans
+            t={t}
+            i18nKey="where"
+            values={{ rooms: o.rooms.map((r) => r.name).join(", ") }}
+            shouldUnescape
+            components={{ rooms: <span translate="no" /> }}
+          />
+        </p>
       ) : null}
+      {o.status === "unscheduled" ? <p>{t("willOffer")}</p> : null}
+      {o.status === "cancelled" ? <p>{t("noLongerPlanned")}</p> : null}
       {o.status === "done" && o.completion ? (
         <div>
-          <p className="font-semibold">Done on {formatLongDay(o.completion.at)}</p>
-          <p className="whitespace-pre-line">{o.completion.note}</p>
+          <p className="font-semibold">{t("doneOn", { date: formatDateIn(lang.language, o.completion.at, "longDay") })}</p>
+          <p className="whitespace-pre-line" translate="no">
+            {o.completion.note}
+          </p>
         </div>
       ) : null}
       {upcoming ? <Appointment order={o} /> : null}
@@ -94,11 +116,12 @@ function RepairItem({ order: o }: { order: WorkOrder }) {
 
 function Appointment({ order: o }: { order: WorkOrder }) {
   const respond = useRespondToBooking(o.caseId, o.id);
+  const { t, i18n: lang } = useRepairText();
   const [asking, setAsking] = useState(false);
   const [reason, setReason] = useState("");
   const [error, setError] = useState<string | undefined>();
   const reasonRef = useRef<HTMLTextAreaElement>(null);
-  const slot = slotForTenant(o.slot!);
+  const slot = slotWords(t, lang.language, o.slot!);
   const who = o.assignee?.name ?? o.contractor?.name ?? null;
   const answer = o.booking?.response ?? null;
 
@@ -106,7 +129,7 @@ function Appointment({ order: o }: { order: WorkOrder }) {
     e.preventDefault();
     const trimmed = reason.trim();
     if (trimmed.length < 3) {
-      setError("Tell us which days or times suit you better.");
+      setError(t("reasonShort"));
       return reasonRef.current?.focus();
     }
     respond.mutate({ response: "another-slot", reason: trimmed }, { onSuccess: () => setAsking(false) });
@@ -116,8 +139,8 @@ function Appointment({ order: o }: { order: WorkOrder }) {
     <form onSubmit={askAnother} noValidate className="flex flex-col gap-3">
       <Textarea
         ref={reasonRef}
-        label="Which days and times suit you better?"
-        hint="For example: any weekday afternoon, or not on Mondays."
+        label={t("reasonLabel")}
+        hint={t("reasonHint")}
         rows={2}
         maxLength={2000}
         value={reason}
@@ -130,26 +153,36 @@ function Appointment({ order: o }: { order: WorkOrder }) {
       />
       <div className="flex flex-wrap gap-2">
         <Button type="submit" busy={respond.isPending}>
-          Send
+          {t("send")}
         </Button>
         <Button variant="ghost" onClick={() => setAsking(false)} disabled={respond.isPending}>
-          Back
+          {t("back")}
         </Button>
       </div>
     </form>
   );
 
   const failure = respond.isError ? (
-    <Alert tone="danger" title="Your answer was not sent">
-      {errorMessage(respond.error)}
+    <Alert tone="danger" title={t("notSent")}>
+      <span translate="no">{errorMessage(respond.error)}</span>
     </Alert>
   ) : null;
 
   if (answer === "change-requested") {
     return (
-      <Alert tone="info" title="You asked for another time" live="none">
-        {o.booking?.reason ? <p>You said: “{o.booking.reason}”</p> : null}
-        <p>Your landlord has been told and will offer you a new appointment.</p>
+      <Alert tone="info" title={t("askedTitle")} live="none">
+        {o.booking?.reason ? (
+          <p>
+            <Trans
+              t={t}
+              i18nKey="youSaid"
+              values={{ reason: o.booking.reason }}
+              shouldUnescape
+              components={{ said: <span translate="no" /> }}
+            />
+          </p>
+        ) : null}
+        <p>{t("willOfferNew")}</p>
       </Alert>
     );
   }
@@ -157,19 +190,24 @@ function Appointment({ order: o }: { order: WorkOrder }) {
   if (answer === "confirmed") {
     return (
       <div className="flex flex-col gap-2">
-        <Alert tone="success" title="You confirmed this appointment" live="none">
+        <Alert tone="success" title={t("confirmedTitle")} live="none">
           <p>
-            {sentence(slot)}
-            {who ? `. ${who} will come.` : "."}
+            {t("confirmedSlot", { slot: slot.charAt(0).toLocaleUpperCase() + slot.slice(1) })}
+            {who ? (
+              <>
+                {" "}
+                <Who t={t} who={who} />
+              </>
+            ) : null}
           </p>
-          <p>Your landlord has been told.</p>
+          <p>{t("landlordTold")}</p>
         </Alert>
         {asking ? (
           askForm
         ) : (
           <div>
             <Button variant="secondary" size="sm" onClick={() => setAsking(true)}>
-              This time no longer suits me
+              {t("noLongerSuits")}
             </Button>
           </div>
         )}
@@ -180,17 +218,21 @@ function Appointment({ order: o }: { order: WorkOrder }) {
 
   return (
     <div className="flex flex-col gap-3">
-      <p className="font-semibold">We would like to come on {slot}.</p>
-      {who ? <p>{who} will come.</p> : null}
+      <p className="font-semibold">{t("offer", { slot })}</p>
+      {who ? (
+        <p>
+          <Who t={t} who={who} />
+        </p>
+      ) : null}
       {asking ? (
         askForm
       ) : (
         <div className="flex flex-wrap gap-2">
           <Button busy={respond.isPending} onClick={() => respond.mutate({ response: "confirm" })}>
-            Confirm this appointment
+            {t("confirm")}
           </Button>
           <Button variant="secondary" onClick={() => setAsking(true)} disabled={respond.isPending}>
-            Ask for another time
+            {t("askAnother")}
           </Button>
         </div>
       )}
@@ -201,17 +243,26 @@ function Appointment({ order: o }: { order: WorkOrder }) {
 
 /** The usual notes for a visit: short, practical, and never blaming. */
 function VisitNotes({ order: o }: { order: WorkOrder }) {
+  const { t } = useRepairText();
   return (
     <div className="text-sm">
-      <p className="font-semibold">For the visit</p>
+      <p className="font-semibold">{t("visitTitle")}</p>
       <ul className="mt-1 list-disc space-y-1 pl-5">
-        <li>Whoever comes will show you their ID. You can ask to see it before you let them in.</li>
-        <li>Please keep children and pets away from the work area while the work is going on.</li>
-        {touchesServices(o.type) ? (
-          <li>The electricity or heating may be switched off for a short time while they work.</li>
-        ) : null}
-        {o.type === "mould-wash" ? <li>The room may need a window open for a while after the treatment.</li> : null}
+        <li>{t("visitId")}</li>
+        <li>{t("visitChildren")}</li>
+        {touchesServices(o.type) ? <li>{t("visitServices")}</li> : null}
+        {o.type === "mould-wash" ? <li>{t("visitWindow")}</li> : null}
       </ul>
     </div>
   );
+}
+
+/** "Sam Price will come.": the name is data, kept out of translation. */
+function Who({ t, who }: { t: RepairT; who: string }) {
+  return <Trans t={t} i18nKey="whoWillCome" values={{ who }} shouldUnescape components={{ who: <span translate="no" /> }} />;
+}
+
+/** A link whose words come from the translation (Trans fills in its children). */
+function InPageLink({ href, children }: { href: string; children?: ReactNode }) {
+  return <a href={href}>{children}</a>;
 }

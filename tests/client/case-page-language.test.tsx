@@ -1,0 +1,182 @@
+// The tenant's case page in Welsh and in the pseudo-locale en-XA: the status, plurals and dates in the
+// chosen language, an advice item with its safety caution, and (in en-XA) no English left on the page
+// that skipped translation, apart from data marked translate="no" (names, addresses, messages people typed).
+import { screen, waitFor, within } from "@testing-library/react";
+import userEvent from "@testing-library/user-event";
+import { afterEach, beforeEach, describe, expect, it } from "vitest";
+import { clearCsrfToken } from "@/lib/api-client";
+import { adviseForHome } from "@/lib/domain/home-advice";
+import { showLanguage } from "@/lib/i18n/i18n";
+import { mockApi, users } from "./support/api-mock";
+import { renderApp } from "./support/render-app";
+
+// Our own fiction.
+const theCase = {
+  id: 42,
+  reference: "DW-2026-00042",
+  status: "works-planned",
+  assigneeId: null,
+  hazardClass: null,
+  hazardClassReason: null,
+  tenantUserId: users.tenant.id,
+  channel: "tenant-online",
+  awareAt: "2026-01-10T08:00:00.000Z",
+  createdAt: "2026-01-10T08:00:00.000Z",
+  description: "Black mould in the bedroom corner",
+  locations: ["corner"],
+  observations: ["mould-spots", "condensation"],
+  since: "months",
+  area: "a4",
+  vulnerability: null,
+  equipment: null,
+  property: {
+    id: 5,
+    addressLine1: "3 Fenwick Yard",
+    addressLine2: null,
+    town: "Easterby",
+    postcode: "ZX3 1AB",
+    estate: "Fenwick",
+  },
+  rooms: [{ id: 2, name: "Bedroom", kind: "bedroom" }],
+  homeRooms: [{ id: 2, name: "Bedroom", kind: "bedroom" }],
+};
+
+const officer = { name: "Ffion Rhys", role: "officer" };
+const message = (id: number, at: string, body: string) => ({
+  id,
+  type: "message-to-tenant",
+  at,
+  actor: officer,
+  before: null,
+  after: { body },
+  email: null,
+});
+const events = [
+  message(5, "2026-01-12T10:00:00.000Z", "We will send someone to look at the bedroom."),
+  message(6, "2026-01-13T10:00:00.000Z", "The mould wash is booked."),
+  message(7, "2026-01-14T10:30:00.000Z", "See you on Tuesday."),
+];
+
+const photo = (id: number) => ({
+  id,
+  url: `/api/photos/${id}`,
+  thumbnailUrl: `/api/photos/${id}/thumbnail`,
+  width: 1600,
+  height: 1200,
+  sha256: "cd".repeat(32),
+  workOrderId: null,
+  createdAt: "2026-01-10T08:01:00.000Z",
+});
+
+const washOrder = {
+  caseId: 42,
+  caseReference: "DW-2026-00042",
+  priority: "urgent",
+  targetDate: "2026-12-11",
+  property: { id: 5, addressLine1: "3 Fenwick Yard", town: "Easterby", postcode: "ZX3 1AB", estate: "Fenwick" },
+  contractor: null,
+  completion: null,
+  createdAt: "2026-11-30T09:00:00.000Z",
+  id: 8,
+  status: "scheduled",
+  type: "mould-wash",
+  description: "Treat the mould in the bedroom corner.",
+  rooms: [{ id: 2, name: "Bedroom" }],
+  assignee: { id: 8, name: "Nell Okoro" },
+  slot: { date: "2026-12-08", window: "am", startsAt: "2026-12-08T08:00:00.000Z", endsAt: "2026-12-08T12:00:00.000Z" },
+  booking: null,
+  bookings: [],
+  accessNotes: null,
+};
+
+// Advice worked out by the real rules for a solid brick terrace with single glazing.
+const advice = adviseForHome({
+  wallType: "solid-brick",
+  glazingType: "single",
+  heatingType: "gas-boiler",
+  ventilation: "trickle-vents-and-fans",
+  roomKinds: ["bedroom"],
+  riskState: null,
+  observations: ["mould-spots"],
+});
+
+function caseApi() {
+  return mockApi({
+    "GET /api/auth/me": { body: users.tenant },
+    "GET /api/auth/csrf": { body: { csrfToken: "csrf-1" } },
+    "GET /api/cases/42": { body: theCase },
+    "GET /api/cases/42/events": { body: { events } },
+    "GET /api/cases/42/photos": { body: { photos: [photo(7), photo(8)] } },
+    "GET /api/cases/42/readings": { body: { readings: [] } },
+    "GET /api/cases/42/work-orders": { body: { workOrders: [washOrder] } },
+    "GET /api/cases/42/advice": { body: { caseId: 42, items: advice.items, safety: advice.safety, support: null } },
+  });
+}
+
+async function openCase() {
+  renderApp("/cases/42");
+  expect(await screen.findByRole("heading", { level: 1, name: "DW-2026-00042" })).toBeInTheDocument();
+  // Wait for the parts that load on their own: the repairs and the landlord's latest message.
+  await screen.findByText("See you on Tuesday.");
+  await waitFor(() => expect(document.getElementById("case-repairs")).not.toBeNull());
+}
+
+/** The page's own text (its main region), every text node not inside an element marked translate="no". */
+function translatableText(root: Element): string[] {
+  const out: string[] = [];
+  const walker = document.createTreeWalker(root, NodeFilter.SHOW_TEXT);
+  for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+    const text = node.textContent?.trim() ?? "";
+    if (!text || node.parentElement?.closest('[translate="no"]')) continue;
+    out.push(text);
+  }
+  return out;
+}
+
+describe("the tenant's case page in another language", () => {
+  beforeEach(() => clearCsrfToken());
+  afterEach(async () => {
+    await showLanguage("en");
+  });
+
+  it("reads in Welsh: the status, a plural, a date, the repair's day and an advice item with its caution", async () => {
+    await showLanguage("cy");
+    caseApi();
+    await openCase();
+    expect(screen.getByText("Atgyweirio wedi'i gynllunio")).toBeInTheDocument();
+    expect(screen.getByText("Mae gwaith atgyweirio wedi'i gynllunio.")).toBeInTheDocument();
+    // The date the report was sent, in London time and Welsh month names.
+    expect(screen.getByText(/Anfonwyd ar 10 Ionawr 2026/)).toBeInTheDocument();
+    // Welsh plurals: "2 lun" (dau lun), and the landlord's two earlier messages behind a button.
+    expect(screen.getByText("2 lun.")).toBeInTheDocument();
+    expect(screen.getByRole("button", { name: "Dangos y 2 neges gynharach" })).toBeInTheDocument();
+    expect(screen.getByText(/14 Ion 2026, 10:30/)).toBeInTheDocument();
+    const repairs = screen.getByRole("region", { name: "Atgyweiriadau" });
+    expect(within(repairs).getByRole("heading", { name: "Glanhau a thrin y llwydni" })).toBeInTheDocument();
+    expect(within(repairs).getByText(/Hoffen ni ddod ar Dydd Mawrth 8 Rhagfyr.*yn y bore/)).toBeInTheDocument();
+    expect(within(repairs).getByRole("button", { name: "Cadarnhau'r apwyntiad hwn" })).toBeInTheDocument();
+
+    await userEvent.setup().click(screen.getByRole("button", { name: "Cyngor ar gyfer eich cartref" }));
+    const section = screen.getByRole("region", { name: "Cyngor ar gyfer eich cartref" });
+    expect(within(section).getByText(/Cadwch yn ddiogel: Peidiwch byth â gwresogi ystafell gyda ffwrn, hob/)).toBeInTheDocument();
+    expect(within(section).getByText(/carbon monocsid, nwy na allwch ei weld na'i arogli/)).toBeInTheDocument();
+    expect(within(section).getByText("Mae larwm carbon monocsid yn syniad da ger unrhyw offer nwy.")).toBeInTheDocument();
+    expect(within(section).getByRole("heading", { name: "Ffilm ffenest glir ar wydr sengl, os yw'ch landlord yn cytuno" }));
+    // The home's own facts go into the words, joined the Welsh way ("a", not "and").
+    expect(within(section).getByText(/Mae gan eich cartref waliau brics solet a gwydr sengl, sy'n oeri\./)).toBeInTheDocument();
+    expect(within(section).getAllByText(/O ble daw hyn:/)).toHaveLength(advice.items.length + 1);
+  });
+
+  it("leaves no English behind in en-XA: every string on the page went through translation, data apart", async () => {
+    await showLanguage("en-XA");
+    caseApi();
+    await openCase();
+    // The advice opened too, with its items, cautions and sources.
+    const adviceSection = document.getElementById("case-advice")!;
+    await userEvent.setup().click(within(adviceSection).getByRole("button"));
+    expect(within(adviceSection).getAllByRole("listitem").length).toBeGreaterThan(advice.items.length);
+    const main = screen.getByRole("main");
+    const untranslated = translatableText(main).filter((text) => /[A-Za-z]{3,}/.test(text) && !/⟦[\s\S]*⟧/.test(text));
+    expect(untranslated).toEqual([]);
+  });
+});
