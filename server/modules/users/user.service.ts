@@ -247,6 +247,15 @@ export class UserService {
     return u?.preferredLanguage ?? null;
   }
 
+  /** Several accounts' preferred languages, by id (staff see a tenant's beside their name). */
+  async languagesOf(ids: readonly number[]): Promise<Map<number, string | null>> {
+    if (!ids.length) return new Map();
+    const rows = await this.dataSource
+      .getRepository(User)
+      .find({ where: { id: In([...new Set(ids)]) }, select: { id: true, preferredLanguage: true } });
+    return new Map(rows.map((u) => [u.id, u.preferredLanguage]));
+  }
+
   /**
    * A tenant chooses the language they read Dewline in (and get e-mails and texts in). Staff screens
    * are English only, so staff have nothing to choose here.

@@ -7,12 +7,17 @@ export function StatusBadge({
   className,
   audience = "tenant",
   facts,
+  label,
+  statusWord = "Status: ",
 }: {
   status: string;
   className?: string;
   audience?: Audience;
   /** For the tenant: what else has happened (the written summary sent). */
   facts?: TenantStageFacts;
+  /** The status in the reader's language, from a translated page (the English words otherwise). */
+  label?: string;
+  statusWord?: string;
 }) {
   return (
     <span
@@ -21,8 +26,8 @@ export function StatusBadge({
         className,
       )}
     >
-      <span className="sr-only">Status: </span>
-      {audience === "tenant" ? tenantStage(status, facts).label : statusLabelFor(audience)(status)}
+      <span className="sr-only">{statusWord}</span>
+      {label ?? (audience === "tenant" ? tenantStage(status, facts).label : statusLabelFor(audience)(status))}
     </span>
   );
 }
