@@ -39,7 +39,7 @@ import { createHomeOutlookRouter, createMyOutlookRouter } from "./modules/outloo
 import { createTriageRouter } from "./modules/triage/triage.routes.js";
 import { createInsightRouter } from "./modules/insight/insight.routes.js";
 import { createBoardReportRouter } from "./modules/board-report/board-report.routes.js";
-import { createStaffRouter, createUsersRouter } from "./modules/users/users.routes.js";
+import { createMyLanguageRouter, createStaffRouter, createUsersRouter } from "./modules/users/users.routes.js";
 import { createTenancyImportRouter } from "./modules/tenancy-import/tenancy-import.routes.js";
 import { requireAuth } from "./middleware/auth.js";
 import { createCaseWorksRouter, createContractorsRouter, createWorkOrdersRouter } from "./modules/works/works.routes.js";
@@ -193,6 +193,7 @@ export function createApp(
   api.use("/me", createMyHomeRouter({ tenancies: services.tenancies }));
   api.use("/me", createMyOutlookRouter({ outlook: services.outlook }));
   api.use("/me", createMyUnreadRouter({ conversation: services.conversation }));
+  api.use("/me", createMyLanguageRouter({ users: services.users }));
   api.use("/me/cases", createMyCasesRouter({ cases: services.cases, photos: services.photos }));
   api.use(
     "/cases",

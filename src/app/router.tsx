@@ -8,6 +8,7 @@ import { RoleGate, signInPath } from "@/features/auth/components/role-gate";
 import { roleHome } from "@/features/auth/roles";
 import { estatesQueryOptions } from "@/features/properties/api/get-estates";
 import { prefetchCaseQueue } from "@/features/queue/api/prefetch-queue";
+import { markPageEnglish } from "@/lib/i18n/choice";
 import type { Role } from "@/lib/roles";
 
 /** What a lazily loaded route module may export: the page (default) and a loader that warms the cache. */
@@ -30,6 +31,10 @@ const requireUser =
       const url = new URL(request.url);
       throw redirect(signInPath(url.pathname + url.search));
     }
+    // A tenant's pages wait for their language's text (no English before Welsh); staff stay in English
+    // and never load the language machinery.
+    if (user.role === "tenant") await (await import("./routes/app/tenant-root")).prepareTenantLanguage(user);
+    else markPageEnglish();
     return null;
   };
 

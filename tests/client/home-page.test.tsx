@@ -34,6 +34,7 @@ describe("a home's page", () => {
               startDate: "2021-04-12",
               endDate: null,
               current: true,
+              language: "cy",
             },
           ],
         },
@@ -52,6 +53,8 @@ describe("a home's page", () => {
     const details = screen.getByRole("region", { name: "Details" });
     expect(within(details).getByText("Positive input ventilation (PIV)")).toBeInTheDocument();
     expect(await screen.findByText("Robin Ashdown")).toBeInTheDocument();
+    // Staff screens are English; the tenant reads Dewline in Welsh, and staff are told so.
+    expect(screen.getByText("Prefers Welsh (Cymraeg)")).toBeInTheDocument();
     expect(screen.getByText("No cases yet")).toBeInTheDocument();
 
     const user = userEvent.setup();

@@ -24,6 +24,7 @@ describe("sign-in", () => {
       name: landlord.officer.name,
       role: "officer",
       organisationId: landlord.org.id,
+      language: null,
     });
     expect(JSON.stringify(res.body)).not.toContain("passwordHash");
     const me = await client.get("/api/auth/me").expect(200);

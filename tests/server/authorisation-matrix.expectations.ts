@@ -143,6 +143,7 @@ const ROWS: Record<string, Row> = {
   "GET /api/text-outbox":                                       [ 401,  403,  403, "ok",  403, "ok", "ok", "ok"],
   "GET /api/me/texts":                                          [ 401, "ok", "ok",  403,  403,  403,  403,  403],
   "PUT /api/me/texts":                                          [ 401, "ok", "ok",  403,  403,  403,  403,  403],
+  "PUT /api/me/language":                                       [ 401, "ok", "ok",  403,  403,  403,  403,  403],
   "GET /api/cases/:id/text-choice":                             [ 401,  403,  403, "ok", "ok", "ok",  404,  404],
   "GET /api/tenancy-imports":                                   [ 401,  403,  403,  403,  403, "ok", "ok",  403],
   "POST /api/tenancy-imports/preview":                          [ 401,  403,  403,  403,  403, "ok", "ok",  403],

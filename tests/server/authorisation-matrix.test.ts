@@ -29,6 +29,7 @@ const LAST = [
 const BODIES: Record<string, (actor: Actor) => object> = {
   "POST /api/cases/bulk": () => ({ ids: [ids["/api/cases/:id"]], assigneeId: ids.officerId }),
   "POST /api/cases/bulk/preview": () => ({ ids: [ids["/api/cases/:id"]] }),
+  "PUT /api/me/language": () => ({ language: "en" }),
   "PATCH /api/cases/:id": () => ({ assigneeId: ids.officerId }),
   "POST /api/cases/:id/worse": () => ({ note: "The patch has spread to the wall." }),
   "POST /api/cases/:id/assessments": () => ({

@@ -5,6 +5,7 @@ import {
   invitationDescriptionResponse,
   invitationSentResponse,
   loginResponse,
+  meResponse,
   passwordResetRequestedResponse,
   signInUnlockRequestedResponse,
 } from "../../../src/lib/contracts/auth.js";
@@ -87,7 +88,7 @@ export function createAuthRouter({ config, auth, clock, csrfToken, rateLimits }:
     // passport ≥ 0.6 regenerates the session here, so a pre-sign-in session id is never reused.
     await logIn(req, actor);
     markTouched(req, clock);
-    res.json(shaped(loginResponse, { user: toMeDto(actor), csrfToken: csrfToken(req, true) }));
+    res.json(shaped(loginResponse, { user: toMeDto(actor, await auth.languageOf(actor.id)), csrfToken: csrfToken(req, true) }));
   });
 
   /** Asks for a link that lets the account's owner skip the sign-in wait; the same answer for any address. */
@@ -112,8 +113,9 @@ export function createAuthRouter({ config, auth, clock, csrfToken, rateLimits }:
     res.status(204).end();
   });
 
-  router.get("/me", requireAuth, (req, res) => {
-    res.json(toMeDto(actorOf(req)));
+  router.get("/me", requireAuth, async (req, res) => {
+    const actor = actorOf(req);
+    res.json(shaped(meResponse, toMeDto(actor, await auth.languageOf(actor.id))));
   });
 
   router.post("/invitations", requireRole("admin", "officer"), async (req, res) => {

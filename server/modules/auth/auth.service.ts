@@ -101,6 +101,11 @@ export class AuthService {
       : null;
   }
 
+  /** The signed-in user's preferred language, for GET /api/auth/me (the users module owns it). */
+  languageOf(id: number): Promise<string | null> {
+    return this.users.languageOf(id);
+  }
+
   /** Asks for an unlock link by e-mail; the reply never depends on the address (the work happens after it). */
   requestUnlockLink(email: string): void {
     const normalised = email.trim().toLowerCase();

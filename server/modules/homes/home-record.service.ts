@@ -23,10 +23,11 @@ export class HomeRecordService {
   async tenants(actor: Actor, propertyId: number) {
     await this.properties.getForStaff(actor, propertyId);
     const tenancies = await this.tenancies.ofHome(propertyId);
-    const people = await this.users.people(tenancies.map((t) => t.tenantUserId));
+    const ids = tenancies.map((t) => t.tenantUserId);
+    const [people, languages] = await Promise.all([this.users.people(ids), this.users.languagesOf(ids)]);
     return tenancies.flatMap((t) => {
       const person = people.get(t.tenantUserId);
-      return person ? [{ tenancy: t, person }] : [];
+      return person ? [{ tenancy: t, person: { ...person, language: languages.get(person.id) ?? null } }] : [];
     });
   }
 

@@ -25,6 +25,7 @@ export function createHomeRecordRouter({ homes }: { homes: HomeRecordService }):
           startDate: tenancy.startDate,
           endDate: tenancy.endDate,
           current: tenancy.current,
+          language: person.language,
         })),
       }),
     );

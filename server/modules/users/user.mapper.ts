@@ -5,12 +5,13 @@ import type { Actor } from "../../lib/actor.js";
 import type { User } from "./user.entity.js";
 import type { UserAuditRecord } from "./user.service.js";
 
-export const toMeDto = (a: Actor): z.input<typeof meResponse> => ({
+export const toMeDto = (a: Actor, language: string | null): z.input<typeof meResponse> => ({
   id: a.id,
   email: a.email,
   name: a.name,
   role: a.role,
   organisationId: a.organisationId,
+  language,
 });
 
 export const toUserDto = (u: User): z.input<typeof userResponse> => ({

@@ -2,11 +2,12 @@ import { Brackets, In, type DataSource, type EntityManager } from "typeorm";
 import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-export.js";
 import type { Clock } from "../../lib/clock.js";
 import { systemClock } from "../../lib/clock.js";
-import { ConflictError, NotFoundError } from "../../lib/errors.js";
+import { ConflictError, ForbiddenError, NotFoundError } from "../../lib/errors.js";
 import { RecentCache } from "../../lib/recent-cache.js";
 import { escapeLike } from "../../lib/sql.js";
 import type { Actor } from "../../lib/actor.js";
 import type { UserAuditAction } from "../../../src/lib/contracts/users.js";
+import type { StoredLanguage } from "../../../src/lib/schemas/language.js";
 import { UserAuditEntry } from "./user-audit.entity.js";
 import { STAFF_ROLES, User, type Role } from "./user.entity.js";
 import type { UserListQuery, UserUpdateInput } from "./users.schemas.js";
@@ -255,6 +256,32 @@ export class UserService {
   async setPasswordHash(m: EntityManager, id: number, passwordHash: string, activate = false): Promise<void> {
     this.changing(id);
     await m.getRepository(User).update(id, activate ? { passwordHash, status: "active" } : { passwordHash });
+  }
+
+  /** The account's preferred language as stored ("en", "cy", or what a tenancy file said), or null. */
+  async languageOf(id: number): Promise<string | null> {
+    const u = await this.dataSource.getRepository(User).findOne({ where: { id }, select: { id: true, preferredLanguage: true } });
+    return u?.preferredLanguage ?? null;
+  }
+
+  /** Several accounts' preferred languages, by id (staff see a tenant's beside their name). */
+  async languagesOf(ids: readonly number[]): Promise<Map<number, string | null>> {
+    if (!ids.length) return new Map();
+    const rows = await this.dataSource
+      .getRepository(User)
+      .find({ where: { id: In([...new Set(ids)]) }, select: { id: true, preferredLanguage: true } });
+    return new Map(rows.map((u) => [u.id, u.preferredLanguage]));
+  }
+
+  /**
+   * A tenant chooses the language they read Dewline in (and get e-mails and texts in). Staff screens
+   * are English only, so staff have nothing to choose here.
+   */
+  async setOwnLanguage(actor: Actor, language: StoredLanguage): Promise<string> {
+    if (actor.role !== "tenant") throw new ForbiddenError("Only tenants choose a language: staff screens are in English.");
+    this.changing(actor.id);
+    await this.dataSource.getRepository(User).update({ id: actor.id }, { preferredLanguage: language });
+    return language;
   }
 
   async recordSignIn(id: number, at: Date): Promise<void> {

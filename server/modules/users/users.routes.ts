@@ -1,4 +1,6 @@
 import { Router } from "express";
+import { myLanguageResponse } from "../../../src/lib/contracts/auth.js";
+import { myLanguageSchema } from "../../../src/lib/schemas/language.js";
 import { staffListResponse, userHistoryResponse, userPageResponse } from "../../../src/lib/contracts/users.js";
 import { USER_EXPORT_COLUMNS } from "../../../src/lib/contracts/exports.js";
 import { shaped } from "../../lib/contract.js";
@@ -64,6 +66,16 @@ export function createStaffRouter({ users }: { users: UserService }): Router {
   router.get("/", requireStaff, async (req, res) => {
     const staff = await users.activeStaff(actorOf(req));
     res.json(shaped(staffListResponse, { users: staff.map(toStaffMemberDto) }));
+  });
+  return router;
+}
+
+/** PUT /api/me/language: a tenant's own language (staff screens stay English: 403). */
+export function createMyLanguageRouter({ users }: { users: UserService }): Router {
+  const router = Router();
+  router.put("/language", requireRole("tenant"), async (req, res) => {
+    const { language } = parse(myLanguageSchema, req.body);
+    res.json(shaped(myLanguageResponse, { language: await users.setOwnLanguage(actorOf(req), language) }));
   });
   return router;
 }

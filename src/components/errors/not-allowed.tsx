@@ -1,5 +1,6 @@
 import { PageHeader } from "@/components/ui/page-header";
 import { TextLink } from "@/components/ui/text-link";
+import { useErrorWords } from "./error-words";
 
 interface NotAllowedProps {
   homePath: string;
@@ -10,19 +11,16 @@ interface NotAllowedProps {
 
 /** Shown at the URL itself, so the person can see which address their account cannot open. */
 export function NotAllowed({ homePath, homeLabel, askAdministrator = true }: NotAllowedProps) {
+  const w = useErrorWords();
   return (
     <>
-      <title>Not allowed · Dewline</title>
-      <PageHeader title="Not allowed" />
+      <title>{`${w.notAllowedTitle}${w.titleSuffix}`}</title>
+      <PageHeader title={w.notAllowedTitle} />
       <div className="flex max-w-reading flex-col gap-3 text-base">
-        <p>Your account cannot open this page: it is for people with a different role in Dewline.</p>
-        {askAdministrator ? (
-          <p>If you think you should be able to see it, ask your organisation's Dewline administrator.</p>
-        ) : (
-          <p>It is for another kind of account, such as a tenant's. Every staff page is in the menu.</p>
-        )}
+        <p>{w.notAllowedText}</p>
+        {askAdministrator ? <p>{w.notAllowedAsk}</p> : <p>{w.notAllowedOtherKind}</p>}
         <p>
-          <TextLink to={homePath}>Go to {homeLabel}</TextLink>
+          <TextLink to={homePath}>{w.goTo(homeLabel)}</TextLink>
         </p>
       </div>
     </>

@@ -1,15 +1,17 @@
 import { PageHeader } from "@/components/ui/page-header";
 import { TextLink } from "@/components/ui/text-link";
+import { useErrorWords } from "./error-words";
 
 export function NotFound() {
+  const w = useErrorWords();
   return (
     <>
-      <title>Page not found · Dewline</title>
-      <PageHeader title="Page not found" />
+      <title>{`${w.notFoundTitle}${w.titleSuffix}`}</title>
+      <PageHeader title={w.notFoundTitle} />
       <div className="flex flex-col gap-3">
-        <p>There is no page at this address. The link may be mistyped, or the page may have moved.</p>
+        <p>{w.notFoundText}</p>
         <p>
-          <TextLink to="/">Go to the start page</TextLink>
+          <TextLink to="/">{w.startPage}</TextLink>
         </p>
       </div>
     </>

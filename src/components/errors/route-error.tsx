@@ -4,6 +4,7 @@ import { buttonClasses } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { TextLink } from "@/components/ui/text-link";
 import { ApiError, errorMessage } from "@/lib/api-client";
+import { useErrorWords } from "./error-words";
 import { NotFound } from "./not-found";
 
 /** A failed chunk download after a new release reads like this in the main browsers. */
@@ -16,12 +17,13 @@ const isStaleChunk = (e: unknown) =>
  */
 export function RouteError() {
   const error = useRouteError();
+  const w = useErrorWords();
 
   if (isRouteErrorResponse(error) && error.status === 404) return <NotFound />;
 
-  let message = "Something went wrong while showing this page. Please try again.";
+  let message = w.errorText;
   if (error instanceof ApiError) message = errorMessage(error);
-  else if (isStaleChunk(error)) message = "Dewline has been updated since you opened it. Reload the page to get the new version.";
+  else if (isStaleChunk(error)) message = w.staleText;
   else if (isRouteErrorResponse(error))
     message = typeof error.data === "string" && error.data ? error.data : error.statusText || message;
 
@@ -29,16 +31,16 @@ export function RouteError() {
 
   return (
     <div className="flex flex-col gap-4">
-      <title>Something went wrong · Dewline</title>
-      <PageHeader title="Something went wrong" />
+      <title>{`${w.errorTitle}${w.titleSuffix}`}</title>
+      <PageHeader title={w.errorTitle} />
       <Alert tone="danger" live="alert">
         {message}
       </Alert>
       <div className="flex flex-wrap items-center gap-4">
         <button type="button" className={buttonClasses("primary")} onClick={() => window.location.reload()}>
-          Reload the page
+          {w.reload}
         </button>
-        <TextLink to="/">Go to the start page</TextLink>
+        <TextLink to="/">{w.startPage}</TextLink>
       </div>
     </div>
   );

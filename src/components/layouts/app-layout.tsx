@@ -13,6 +13,26 @@ export interface NavItem {
   end?: boolean;
 }
 
+/**
+ * The shell's own words. Staff see the English defaults; the tenant's shell passes them translated
+ * (this file must not load the language machinery: the officers' queue loads it first).
+ */
+export interface ShellWords {
+  skipLink: string;
+  homeLink: string;
+  navLabel: string;
+  signOut: string;
+  footer: string;
+}
+
+export const ENGLISH_SHELL_WORDS: ShellWords = {
+  skipLink: "Skip to main content",
+  homeLink: "Dewline, go to your home screen",
+  navLabel: "Main",
+  signOut: "Sign out",
+  footer: "Dewline helps tenants and landlords deal with damp and mould together.",
+};
+
 interface AppLayoutProps {
   /** "tenant": roomy, one column, mobile first. "staff": dense and wide for tables. */
   variant: "tenant" | "staff";
@@ -22,22 +42,36 @@ interface AppLayoutProps {
   nav: NavItem[];
   onSignOut: () => void;
   signingOut?: boolean;
+  words?: ShellWords;
+  /** Beside the sign-out button: the tenant's language switch. */
+  headerExtra?: ReactNode;
   children: ReactNode;
 }
 
-export function AppLayout({ variant, userName, roleLabel, homePath, nav, onSignOut, signingOut, children }: AppLayoutProps) {
+export function AppLayout({
+  variant,
+  userName,
+  roleLabel,
+  homePath,
+  nav,
+  onSignOut,
+  signingOut,
+  words = ENGLISH_SHELL_WORDS,
+  headerExtra,
+  children,
+}: AppLayoutProps) {
   const staff = variant === "staff";
   const width = staff ? "max-w-wide" : "max-w-reading";
   return (
     <div className={cn("flex min-h-dvh flex-col", staff ? "text-sm" : "text-base")}>
-      <SkipLink />
+      <SkipLink label={words.skipLink} />
       <FocusOnNavigate />
       <header className="on-dark bg-ink text-paper">
         <div className={cn("mx-auto flex w-full flex-wrap items-center gap-x-6 gap-y-2 px-4", width, staff ? "py-2" : "py-3")}>
-          <Link to={homePath} className="rounded-md text-paper no-underline" aria-label="Dewline, go to your home screen">
+          <Link to={homePath} className="rounded-md text-paper no-underline" aria-label={words.homeLink}>
             <Wordmark markClassName="text-dew-300 [--logo-glint:var(--color-ink)]" />
           </Link>
-          <nav aria-label="Main" className="order-last w-full md:order-none md:w-auto">
+          <nav aria-label={words.navLabel} className="order-last w-full md:order-none md:w-auto">
             <ul className="flex flex-wrap gap-1">
               {nav.map((item) => (
                 <li key={item.to}>
@@ -57,9 +91,12 @@ export function AppLayout({ variant, userName, roleLabel, homePath, nav, onSignO
               ))}
             </ul>
           </nav>
-          <div className="ml-auto flex items-center gap-3">
+          <div className="ml-auto flex flex-wrap items-center gap-3">
+            {headerExtra}
             <p className="text-right leading-tight">
-              <span className="block font-semibold">{userName}</span>
+              <span className="block font-semibold" translate="no">
+                {userName}
+              </span>
               <span className="block text-xs text-mist">{roleLabel}</span>
             </p>
             <Button
@@ -69,7 +106,7 @@ export function AppLayout({ variant, userName, roleLabel, homePath, nav, onSignO
               busy={signingOut}
               className="border-dew-300 bg-transparent text-paper hover:bg-dew-900 active:bg-dew-900"
             >
-              Sign out
+              {words.signOut}
             </Button>
           </div>
         </div>
@@ -82,9 +119,7 @@ export function AppLayout({ variant, userName, roleLabel, homePath, nav, onSignO
         {children}
       </main>
       <footer className="border-t border-line">
-        <p className={cn("mx-auto w-full px-4 py-4 text-xs text-ink-soft", width)}>
-          Dewline helps tenants and landlords deal with damp and mould together.
-        </p>
+        <p className={cn("mx-auto w-full px-4 py-4 text-xs text-ink-soft", width)}>{words.footer}</p>
       </footer>
     </div>
   );

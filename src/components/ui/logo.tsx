@@ -24,7 +24,8 @@ export function Wordmark({ className, markClassName }: { className?: string; mar
   return (
     <span className={cn("inline-flex items-center gap-2 text-xl font-bold tracking-tight", className)}>
       <LogoMark className={markClassName} />
-      <span>Dewline</span>
+      {/* A name, the same in every language. */}
+      <span translate="no">Dewline</span>
     </span>
   );
 }

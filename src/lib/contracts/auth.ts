@@ -2,8 +2,18 @@ import { z } from "zod";
 import { ROLES } from "../roles.js";
 import { id, instant, messageResponse } from "./common.js";
 
-/** The signed-in user (GET /api/auth/me; `user` of POST /api/auth/login). */
-export const meResponse = z.object({ id, email: z.string(), name: z.string(), role: z.enum(ROLES), organisationId: id });
+/**
+ * The signed-in user (GET /api/auth/me; `user` of POST /api/auth/login). `language` is the stored
+ * preferred language ("en", "cy", or a tag a tenancy file gave), null when nobody has said.
+ */
+export const meResponse = z.object({
+  id,
+  email: z.string(),
+  name: z.string(),
+  role: z.enum(ROLES),
+  organisationId: id,
+  language: z.string().nullable(),
+});
 export type Me = z.infer<typeof meResponse>;
 
 export const csrfResponse = z.object({ csrfToken: z.string() });
@@ -30,3 +40,7 @@ export const passwordResetRequestedResponse = messageResponse;
 
 /** POST /api/auth/sign-in-unlock/request (202, the same whatever the address). */
 export const signInUnlockRequestedResponse = messageResponse;
+
+/** PUT /api/me/language: the tenant's language as now stored. */
+export const myLanguageResponse = z.object({ language: z.string() });
+export type MyLanguage = z.infer<typeof myLanguageResponse>;

@@ -11,6 +11,7 @@ import {
   invitationDescriptionResponse,
   loginResponse,
   meResponse,
+  myLanguageResponse,
   passwordResetRequestedResponse,
   signInUnlockRequestedResponse,
 } from "./auth.js";
@@ -487,6 +488,7 @@ export const ENDPOINTS: readonly Endpoint[] = [
     "The landlord's text messages to tenants and how each one's sending stands, newest first (?status=)",
     textOutboxPageResponse,
   ),
+  e("PUT", "/api/me/language", ["tenant"], "The tenant chooses the language they read Dewline in (en or cy)", myLanguageResponse),
   e("GET", "/api/me/texts", ["tenant"], "The tenant's mobile number and whether they get texts", textChoiceResponse),
   e("PUT", "/api/me/texts", ["tenant"], "The tenant sets their mobile number and turns texts on or off", textChoiceResponse),
   e("GET", "/api/cases/:id/text-choice", STAFF, "Whether the case's tenant gets texts, and their number", textChoiceResponse),

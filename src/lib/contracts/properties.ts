@@ -60,6 +60,8 @@ export const homeTenantResponse = z.object({
   startDate: calendarDate,
   endDate: calendarDate.nullable(),
   current: z.boolean(),
+  /** The tenant's stored language ("en", "cy", …), null when not known: staff see it beside the name. */
+  language: z.string().nullable(),
 });
 export type HomeTenantResponse = z.infer<typeof homeTenantResponse>;
 export const homeTenantsResponse = z.object({ tenants: z.array(homeTenantResponse) });

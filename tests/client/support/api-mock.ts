@@ -124,10 +124,17 @@ export const apiError = (status: number, code: string, message: string, details?
 export const unauthenticated = apiError(401, "unauthorised", "Please sign in to continue.");
 
 export const users = {
-  tenant: { id: 11, email: "tenant@example.org", name: "Robin Ashdown", role: "tenant", organisationId: 1 },
-  officer: { id: 2, email: "officer@example.org", name: "Priya Venn", role: "officer", organisationId: 1 },
-  maintenance: { id: 3, email: "maintenance@example.org", name: "Dale Whitcombe", role: "maintenance", organisationId: 1 },
-  admin: { id: 1, email: "admin@example.org", name: "Morgan Castell", role: "admin", organisationId: 1 },
+  tenant: { id: 11, email: "tenant@example.org", name: "Robin Ashdown", role: "tenant", organisationId: 1, language: null },
+  officer: { id: 2, email: "officer@example.org", name: "Priya Venn", role: "officer", organisationId: 1, language: null },
+  maintenance: {
+    id: 3,
+    email: "maintenance@example.org",
+    name: "Dale Whitcombe",
+    role: "maintenance",
+    organisationId: 1,
+    language: null,
+  },
+  admin: { id: 1, email: "admin@example.org", name: "Morgan Castell", role: "admin", organisationId: 1, language: null },
 } as const;
 
 export function makeProperty(id: number, overrides: Record<string, unknown> = {}) {

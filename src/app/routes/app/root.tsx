@@ -1,3 +1,4 @@
+import { lazy, Suspense } from "react";
 import { Navigate, Outlet, useLocation, useNavigate } from "react-router-dom";
 import { AppLayout, type NavItem } from "@/components/layouts/app-layout";
 import { useMe } from "@/features/auth/api/get-me";
@@ -6,12 +7,11 @@ import { signInPath } from "@/features/auth/components/role-gate";
 import { roleHome } from "@/features/auth/roles";
 import { roleLabels, type Role } from "@/lib/roles";
 
-const navByRole: Record<Role, NavItem[]> = {
-  tenant: [
-    { to: "/home", label: "My home" },
-    { to: "/cases", label: "My reports" },
-    { to: "/calculator", label: "Dew point calculator" },
-  ],
+// Tenants get their own shell, in their language: loaded only for them, so staff (and the officers'
+// queue's first rows, bench:queue) never download the language machinery.
+const TenantRoot = lazy(() => import("./tenant-root"));
+
+const navByRole: Record<Exclude<Role, "tenant">, NavItem[]> = {
   officer: [
     { to: "/queue", label: "Case queue" },
     { to: "/alerts", label: "Alerts" },
@@ -59,9 +59,17 @@ export default function AppRoot() {
     return <Navigate to={signInPath(location.pathname + location.search)} replace />;
   }
 
+  if (user.role === "tenant") {
+    return (
+      <Suspense fallback={null}>
+        <TenantRoot userName={user.name} onSignOut={() => logout.mutate()} signingOut={logout.isPending} />
+      </Suspense>
+    );
+  }
+
   return (
     <AppLayout
-      variant={user.role === "tenant" ? "tenant" : "staff"}
+      variant="staff"
       userName={user.name}
       roleLabel={roleLabels[user.role]}
       homePath={roleHome(user.role).path}

@@ -1,3 +1,4 @@
+import { Trans, useTranslation } from "react-i18next";
 import { useParams } from "react-router-dom";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
@@ -13,32 +14,33 @@ export default function InvitationPage() {
   const { token = "" } = useParams();
   const invitation = useInvitation(token);
   const accept = useAcceptInvitation();
+  const { t } = useTranslation("auth");
 
   if (accept.isSuccess) {
     return (
       <>
-        <title>Account ready · Dewline</title>
-        <PageHeader title="Your account is ready" />
-        <Alert tone="success" title="Your password is set">
+        <title>{t("invitation.readyPageTitle") + t("titleSuffix")}</title>
+        <PageHeader title={t("invitation.readyTitle")} />
+        <Alert tone="success" title={t("invitation.passwordSet")}>
           <p>
-            <TextLink to="/sign-in">Sign in to Dewline</TextLink> with your e-mail address and the password you just chose.
+            <Trans t={t} i18nKey="invitation.signInWith" components={{ anchor: <TextLink to="/sign-in" /> }} />
           </p>
         </Alert>
       </>
     );
   }
 
-  if (invitation.isPending) return <LoadingState>Checking your invitation…</LoadingState>;
+  if (invitation.isPending) return <LoadingState>{t("invitation.checking")}</LoadingState>;
 
   if (invitation.isError) {
     return (
       <>
-        <title>Invitation link · Dewline</title>
-        <PageHeader title="This invitation link does not work" />
+        <title>{t("invitation.linkPageTitle") + t("titleSuffix")}</title>
+        <PageHeader title={t("invitation.linkBroken")} />
         <div className="flex flex-col gap-4">
           <Alert tone="danger">{errorMessage(invitation.error)}</Alert>
           <p>
-            Already set your password? <TextLink to="/sign-in">Sign in</TextLink>.
+            <Trans t={t} i18nKey="invitation.alreadySet" components={{ anchor: <TextLink to="/sign-in" /> }} />
           </p>
         </div>
       </>
@@ -48,19 +50,21 @@ export default function InvitationPage() {
   const { name, email, organisationName } = invitation.data;
   return (
     <>
-      <title>Welcome · Dewline</title>
+      <title>{t("invitation.welcomePageTitle") + t("titleSuffix")}</title>
       <PageHeader
-        title={`Welcome, ${name}`}
+        title={<Trans t={t} i18nKey="invitation.welcome" values={{ name }} />}
         description={
-          <>
-            {organisationName} has invited you to Dewline. Choose a password for <strong className="text-ink">{email}</strong> to
-            finish setting up your account.
-          </>
+          <Trans
+            t={t}
+            i18nKey="invitation.invited"
+            values={{ organisation: organisationName, email }}
+            components={{ email: <strong className="text-ink" translate="no" /> }}
+          />
         }
       />
       <Panel as="div">
         <NewPasswordForm
-          submitLabel="Set my password"
+          submitLabel={t("invitation.submit")}
           pending={accept.isPending}
           error={accept.error}
           onSubmit={(password) => accept.mutate({ token, password })}

@@ -1,3 +1,4 @@
+import { Trans, useTranslation } from "react-i18next";
 import { useParams } from "react-router-dom";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
@@ -9,22 +10,23 @@ import { NewPasswordForm } from "@/features/auth/components/new-password-form";
 export default function ResetPasswordPage() {
   const { token = "" } = useParams();
   const reset = useResetPassword();
+  const { t } = useTranslation("auth");
 
   return (
     <>
-      <title>Choose a new password · Dewline</title>
-      <PageHeader title="Choose a new password" />
+      <title>{t("reset.title") + t("titleSuffix")}</title>
+      <PageHeader title={t("reset.title")} />
       {reset.isSuccess ? (
-        <Alert tone="success" title="Your password has been changed">
+        <Alert tone="success" title={t("reset.changed")}>
           <p>
-            You can now <TextLink to="/sign-in">sign in with your new password</TextLink>.
+            <Trans t={t} i18nKey="reset.signInNow" components={{ anchor: <TextLink to="/sign-in" /> }} />
           </p>
         </Alert>
       ) : (
         <div className="flex flex-col gap-4">
           <Panel as="div">
             <NewPasswordForm
-              submitLabel="Save new password"
+              submitLabel={t("reset.submit")}
               pending={reset.isPending}
               error={reset.error}
               onSubmit={(password) => reset.mutate({ token, password })}
@@ -32,7 +34,7 @@ export default function ResetPasswordPage() {
           </Panel>
           {reset.isError ? (
             <p>
-              <TextLink to="/forgot-password">Ask for a new link</TextLink>
+              <TextLink to="/forgot-password">{t("reset.askAgain")}</TextLink>
             </p>
           ) : null}
         </div>

@@ -1,3 +1,4 @@
+import { useTranslation } from "react-i18next";
 import { Navigate, useLocation, useNavigate, useSearchParams } from "react-router-dom";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
@@ -12,6 +13,7 @@ export default function SignInPage() {
   const navigate = useNavigate();
   const location = useLocation();
   const me = useMe();
+  const { t } = useTranslation("auth");
   const next = safeNextPath(params.get("next"));
   const signedOut = (location.state as { signedOut?: boolean } | null)?.signedOut;
 
@@ -20,21 +22,19 @@ export default function SignInPage() {
 
   return (
     <>
-      <title>Sign in · Dewline</title>
-      <PageHeader title="Sign in" description="Use the e-mail address and password of your Dewline account." />
+      <title>{t("signIn.title") + t("titleSuffix")}</title>
+      <PageHeader title={t("signIn.title")} description={t("signIn.description")} />
       <div className="flex flex-col gap-4">
-        {signedOut ? <Alert tone="success">You have signed out.</Alert> : null}
+        {signedOut ? <Alert tone="success">{t("signIn.signedOut")}</Alert> : null}
         {next ? (
           <Alert tone="info" live="none">
-            Please sign in to open that page.
+            {t("signIn.pleaseSignIn")}
           </Alert>
         ) : null}
         <Panel as="div">
           <SignInForm onSignedIn={(user) => navigate(next ?? roleHome(user.role).path, { replace: true })} />
         </Panel>
-        <p className="text-sm text-ink-soft">
-          New to Dewline? Your landlord's team sends you an invitation by e-mail; follow the link in it to set your password.
-        </p>
+        <p className="text-sm text-ink-soft">{t("signIn.newHere")}</p>
       </div>
     </>
   );

@@ -1,3 +1,4 @@
+import { Trans, useTranslation } from "react-i18next";
 import { useParams } from "react-router-dom";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -11,31 +12,32 @@ import { errorMessage } from "@/lib/api-client";
 export default function UnlockSignInPage() {
   const { token = "" } = useParams();
   const unlock = useOpenSignInLink();
+  const { t } = useTranslation("auth");
 
   return (
     <>
-      <title>Sign in without waiting · Dewline</title>
-      <PageHeader
-        title="Sign in without waiting"
-        description="After several unsuccessful attempts, Dewline asks for a short wait between tries. This link lets you skip the wait in this browser."
-      />
+      <title>{t("unlock.title") + t("titleSuffix")}</title>
+      <PageHeader title={t("unlock.title")} description={t("unlock.description")} />
       {unlock.isSuccess ? (
-        <Alert tone="success" title="You can sign in now">
+        <Alert tone="success" title={t("unlock.canSignIn")}>
           <p>
-            <TextLink to="/sign-in">Sign in</TextLink> in this browser as usual. If you do not know your password any more,{" "}
-            <TextLink to="/forgot-password">choose a new one</TextLink>.
+            <Trans
+              t={t}
+              i18nKey="unlock.signInAsUsual"
+              components={{ signIn: <TextLink to="/sign-in" />, reset: <TextLink to="/forgot-password" /> }}
+            />
           </p>
         </Alert>
       ) : (
         <div className="flex flex-col gap-4">
           {unlock.isError ? (
-            <Alert tone="danger" title="This link did not work">
+            <Alert tone="danger" title={t("unlock.didNotWork")}>
               {errorMessage(unlock.error)}
             </Alert>
           ) : null}
           <Panel as="div">
             <Button onClick={() => unlock.mutate(token)} disabled={unlock.isPending}>
-              Let me sign in in this browser
+              {t("unlock.submit")}
             </Button>
           </Panel>
         </div>

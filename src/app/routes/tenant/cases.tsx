@@ -1,4 +1,5 @@
 import type { QueryClient } from "@tanstack/react-query";
+import { useTranslation } from "react-i18next";
 import { Link } from "react-router-dom";
 import { buttonClasses } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
@@ -16,15 +17,16 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
 
 export default function MyReportsPage() {
   const user = useUser();
+  const { t } = useTranslation("home");
   return (
     <>
-      <title>My reports · Dewline</title>
+      <title>{t("reports.title") + t("titleSuffix")}</title>
       <PageHeader
-        title="My reports"
-        description="Every report you have sent, newest first. Open one to see what has happened, add photos or readings, or tell your landlord it has got worse."
+        title={t("reports.title")}
+        description={t("reports.description")}
         actions={
           <Link to="/report" className={buttonClasses("primary")}>
-            Report damp or mould
+            {t("reports.report")}
           </Link>
         }
       />

@@ -1,4 +1,5 @@
 import type { QueryClient } from "@tanstack/react-query";
+import { useTranslation } from "react-i18next";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
@@ -29,35 +30,34 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
 export default function MyHomePage() {
   const home = useMyHome();
   const user = useUser();
+  const { t } = useTranslation("home");
 
   return (
     <>
-      <title>My home · Dewline</title>
+      <title>{t("myHome.title") + t("titleSuffix")}</title>
       <PageHeader
-        title="My home"
+        title={t("myHome.title")}
         description={
-          home.data
-            ? `${streetAddress(home.data.property)}, ${home.data.property.town} ${home.data.property.postcode}`
-            : undefined
+          home.data ? (
+            <span translate="no">{`${streetAddress(home.data.property)}, ${home.data.property.town} ${home.data.property.postcode}`}</span>
+          ) : undefined
         }
       />
       {/* A report kept on this phone shows even when the home's details cannot load (no signal). */}
       <WaitingReports userId={user.id} />
       {home.isPending ? (
-        <LoadingState>Loading your home…</LoadingState>
+        <LoadingState>{t("myHome.loading")}</LoadingState>
       ) : home.isError ? (
         <Alert
           tone={home.error instanceof ApiError && home.error.status === 404 ? "info" : "danger"}
-          title={
-            home.error instanceof ApiError && home.error.status === 404 ? "No home to show yet" : "We could not load your home"
-          }
+          title={home.error instanceof ApiError && home.error.status === 404 ? t("myHome.noHome") : t("myHome.loadError")}
         >
           {errorMessage(home.error)}
         </Alert>
       ) : (
         <div className="flex flex-col gap-5">
           <StartReport />
-          <Panel title="Your reports" id="home-reports">
+          <Panel title={t("myHome.yourReports")} id="home-reports">
             <MyCases limit={3} headingLevel={3} emptyAction={false} />
           </Panel>
           <CondensationOutlookCard />

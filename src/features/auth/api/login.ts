@@ -5,13 +5,10 @@ import type { LoginResponse } from "@/lib/contracts";
 import type { User } from "../roles";
 import { authKeys } from "@/lib/query-keys";
 
+// The messages are keys of the `auth` text (src/locales/*/auth.json): the form shows them translated.
 export const signInSchema = z.object({
-  email: z
-    .string()
-    .trim()
-    .min(1, "Enter your e-mail address.")
-    .pipe(z.email("Enter a valid e-mail address, like name@example.org.")),
-  password: z.string().min(1, "Enter your password."),
+  email: z.string().trim().min(1, "auth:form.emailRequired").pipe(z.email("auth:form.emailInvalid")),
+  password: z.string().min(1, "auth:form.passwordRequired"),
 });
 export type SignInInput = z.infer<typeof signInSchema>;
 

@@ -2,12 +2,9 @@ import { useMutation } from "@tanstack/react-query";
 import { z } from "zod";
 import { api } from "@/lib/api-client";
 
+// The messages are keys of the `auth` text: the form shows them translated.
 export const forgotPasswordSchema = z.object({
-  email: z
-    .string()
-    .trim()
-    .min(1, "Enter your e-mail address.")
-    .pipe(z.email("Enter a valid e-mail address, like name@example.org.")),
+  email: z.string().trim().min(1, "auth:form.emailRequired").pipe(z.email("auth:form.emailInvalid")),
 });
 export type ForgotPasswordInput = z.infer<typeof forgotPasswordSchema>;
 

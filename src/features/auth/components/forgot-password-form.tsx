@@ -1,5 +1,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
+import { useTranslation } from "react-i18next";
+import { formMessage } from "../form-message";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
@@ -7,6 +9,7 @@ import { errorMessage } from "@/lib/api-client";
 import { forgotPasswordSchema, useRequestPasswordReset, type ForgotPasswordInput } from "../api/request-password-reset";
 
 export function ForgotPasswordForm() {
+  const { t } = useTranslation("auth");
   const request = useRequestPasswordReset();
   const {
     register,
@@ -16,11 +19,9 @@ export function ForgotPasswordForm() {
 
   if (request.isSuccess) {
     return (
-      <Alert tone="success" title="Check your e-mail">
+      <Alert tone="success" title={t("forgot.checkEmail")}>
         <p>{request.data.message}</p>
-        <p className="mt-2">
-          The link works for one hour. If nothing arrives, check your junk folder or ask your landlord's team for help.
-        </p>
+        <p className="mt-2">{t("forgot.linkHour")}</p>
       </Alert>
     );
   }
@@ -29,18 +30,18 @@ export function ForgotPasswordForm() {
     <form onSubmit={handleSubmit((v) => request.mutate(v))} noValidate className="flex flex-col gap-4">
       {request.error ? <Alert tone="danger">{errorMessage(request.error)}</Alert> : null}
       <Input
-        label="E-mail address"
+        label={t("form.email")}
         type="email"
         autoComplete="email"
         inputMode="email"
         spellCheck={false}
-        hint="We will send a link to choose a new password to this address, if it belongs to an account."
-        error={errors.email?.message}
+        hint={t("forgot.hint")}
+        error={formMessage(t, errors.email?.message)}
         {...register("email")}
       />
       <div>
         <Button type="submit" size="lg" busy={request.isPending}>
-          Send the link
+          {t("forgot.submit")}
         </Button>
       </div>
     </form>

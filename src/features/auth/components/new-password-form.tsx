@@ -1,18 +1,20 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm } from "react-hook-form";
+import { useTranslation } from "react-i18next";
 import { z } from "zod";
+import { formMessage } from "../form-message";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
 import { errorMessage } from "@/lib/api-client";
 
-/** The same limits as the server: 10 to 200 characters. */
+/** The same limits as the server: 10 to 200 characters. Messages are keys of the `auth` text. */
 export const newPasswordFormSchema = z
   .object({
-    password: z.string().min(10, "Use at least 10 characters.").max(200, "Use at most 200 characters."),
-    confirm: z.string().min(1, "Type the password again."),
+    password: z.string().min(10, "auth:form.passwordTooShort").max(200, "auth:form.passwordTooLong"),
+    confirm: z.string().min(1, "auth:form.confirmRequired"),
   })
-  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords are not the same." });
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "auth:form.passwordsDiffer" });
 export type NewPasswordFormInput = z.infer<typeof newPasswordFormSchema>;
 
 interface NewPasswordFormProps {
@@ -24,6 +26,7 @@ interface NewPasswordFormProps {
 
 /** Choose a password, twice. Used when accepting an invitation and when resetting a password. */
 export function NewPasswordForm({ submitLabel, pending, error, onSubmit }: NewPasswordFormProps) {
+  const { t } = useTranslation("auth");
   const {
     register,
     handleSubmit,
@@ -36,23 +39,23 @@ export function NewPasswordForm({ submitLabel, pending, error, onSubmit }: NewPa
   return (
     <form onSubmit={handleSubmit((v) => onSubmit(v.password))} noValidate className="flex flex-col gap-4">
       {error ? (
-        <Alert tone="danger" title="That did not work">
+        <Alert tone="danger" title={t("form.didNotWork")}>
           {errorMessage(error)}
         </Alert>
       ) : null}
       <Input
-        label="New password"
+        label={t("form.newPassword")}
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters. A few unrelated words make a strong password that is easy to remember."
-        error={errors.password?.message}
+        hint={t("form.newPasswordHint")}
+        error={formMessage(t, errors.password?.message)}
         {...register("password")}
       />
       <Input
-        label="Type the new password again"
+        label={t("form.newPasswordAgain")}
         type="password"
         autoComplete="new-password"
-        error={errors.confirm?.message}
+        error={formMessage(t, errors.confirm?.message)}
         {...register("confirm")}
       />
       <div>

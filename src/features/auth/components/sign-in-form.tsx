@@ -1,5 +1,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useForm, useWatch } from "react-hook-form";
+import { useTranslation } from "react-i18next";
+import { formMessage } from "../form-message";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/field";
@@ -10,6 +12,7 @@ import { useRequestSignInLink } from "../api/sign-in-unlock";
 import type { User } from "../roles";
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void }) {
+  const { t } = useTranslation("auth");
   const login = useLogin({ onSuccess: onSignedIn });
   const signInLink = useRequestSignInLink();
   const {
@@ -43,9 +46,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void })
       {serverError ? (
         <Alert
           tone="danger"
-          title={
-            serverError instanceof ApiError && serverError.status === 429 ? "Please wait a little" : "We could not sign you in"
-          }
+          title={serverError instanceof ApiError && serverError.status === 429 ? t("signIn.wait") : t("signIn.failed")}
         >
           {errorMessage(serverError)}
           {serverError instanceof ApiError && serverError.status === 429 ? (
@@ -59,7 +60,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void })
                   disabled={signInLink.isPending || !email}
                   onClick={() => signInLink.mutate(email)}
                 >
-                  E-mail me a link to skip the wait
+                  {t("signIn.skipWait")}
                 </Button>
               )}
             </div>
@@ -67,26 +68,26 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: User) => void })
         </Alert>
       ) : null}
       <Input
-        label="E-mail address"
+        label={t("form.email")}
         type="email"
         autoComplete="username"
         inputMode="email"
         spellCheck={false}
-        error={errors.email?.message}
+        error={formMessage(t, errors.email?.message)}
         {...register("email")}
       />
       <Input
-        label="Password"
+        label={t("form.password")}
         type="password"
         autoComplete="current-password"
-        error={errors.password?.message}
+        error={formMessage(t, errors.password?.message)}
         {...register("password")}
       />
       <div className="flex flex-wrap items-center justify-between gap-3">
         <Button type="submit" size="lg" busy={login.isPending}>
-          Sign in
+          {t("signIn.submit")}
         </Button>
-        <TextLink to="/forgot-password">Forgot your password?</TextLink>
+        <TextLink to="/forgot-password">{t("signIn.forgot")}</TextLink>
       </div>
     </form>
   );

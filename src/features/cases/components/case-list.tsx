@@ -1,10 +1,11 @@
+import { useTranslation } from "react-i18next";
 import { Link } from "react-router-dom";
 import { Alert } from "@/components/ui/alert";
 import { buttonClasses } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { LoadingState } from "@/components/ui/spinner";
 import { errorMessage } from "@/lib/api-client";
-import { formatDate } from "@/lib/dates";
+import { useFormatDate } from "@/lib/i18n/use-format-date";
 import { useMyCases } from "../api/get-my-cases";
 import { caseTitle, type CaseDto } from "../api/types";
 import { StatusBadge } from "./case-status";
@@ -17,6 +18,8 @@ interface CaseListProps {
 }
 
 export function CaseList({ cases, headingLevel = 2 }: CaseListProps) {
+  const { t } = useTranslation("home");
+  const formatDate = useFormatDate();
   const Heading = headingLevel === 2 ? "h2" : "h3";
   return (
     <ul className="flex flex-col gap-3">
@@ -34,35 +37,47 @@ export function CaseList({ cases, headingLevel = 2 }: CaseListProps) {
                   to={`/cases/${c.id}`}
                   className="text-dew-700 underline decoration-2 after:absolute after:inset-0 hover:text-dew-900"
                 >
-                  {caseTitle(c)}
+                  <span translate="no">{caseTitle(c)}</span>
                 </Link>
               </Heading>
-              <StatusBadge status={c.status} />
+              <StatusBadge
+                status={c.status}
+                label={t(`status.${c.status}`, { defaultValue: "" }) || undefined}
+                prefix={`${t("reports.status")} `}
+              />
             </div>
             <dl className="grid grid-cols-1 gap-x-4 gap-y-1 text-sm sm:grid-cols-2">
               <div>
-                <dt className="inline font-semibold text-ink-soft">Sent on </dt>
+                <dt className="inline font-semibold text-ink-soft">{t("reports.sentOn")} </dt>
                 <dd className="inline">{formatDate(c.createdAt)}</dd>
               </div>
               <div>
-                <dt className="inline font-semibold text-ink-soft">{rooms.length === 1 ? "Room " : "Rooms "}</dt>
-                <dd className="inline">{rooms.length ? rooms.join(", ") : "Not given"}</dd>
+                <dt className="inline font-semibold text-ink-soft">{t("reports.rooms", { count: rooms.length })} </dt>
+                {rooms.length ? (
+                  <dd className="inline" translate="no">
+                    {rooms.join(", ")}
+                  </dd>
+                ) : (
+                  <dd className="inline">{t("reports.notGiven")}</dd>
+                )}
               </div>
             </dl>
             <div className="flex items-start gap-3">
               {c.thumbnailUrl ? (
                 <img
                   src={c.thumbnailUrl}
-                  alt={`First sent with ${caseTitle(c)}`}
+                  alt={t("reports.photoAlt", { title: caseTitle(c) })}
                   className="h-16 w-16 shrink-0 rounded-md border border-line object-cover"
                   loading="lazy"
                 />
               ) : null}
               <div className="flex flex-col gap-1">
-                {c.description ? <p className="line-clamp-2 text-ink-soft">{c.description}</p> : null}
-                {c.photoCount ? (
-                  <p className="text-sm text-ink-soft">{c.photoCount === 1 ? "1 photo" : `${c.photoCount} photos`}</p>
+                {c.description ? (
+                  <p className="line-clamp-2 text-ink-soft" translate="no">
+                    {c.description}
+                  </p>
                 ) : null}
+                {c.photoCount ? <p className="text-sm text-ink-soft">{t("reports.photos", { count: c.photoCount })}</p> : null}
               </div>
             </div>
           </li>
@@ -83,26 +98,27 @@ interface MyCasesProps {
 /** The tenant's reports, newest first, with kind empty and error states. */
 export function MyCases({ limit, headingLevel = 2, emptyAction = true }: MyCasesProps) {
   const cases = useMyCases();
-  if (cases.isPending) return <LoadingState>Loading your reports…</LoadingState>;
+  const { t } = useTranslation("home");
+  if (cases.isPending) return <LoadingState>{t("reports.loading")}</LoadingState>;
   if (cases.isError)
     return (
-      <Alert tone="warning" title="We couldn't load your reports just now">
+      <Alert tone="warning" title={t("reports.loadError")}>
         {errorMessage(cases.error)}
       </Alert>
     );
   if (cases.data.length === 0)
     return (
       <EmptyState
-        title="You haven't sent any reports yet"
+        title={t("reports.none")}
         action={
           emptyAction ? (
             <Link to={REPORT_PATH} className={buttonClasses("primary", "lg")}>
-              Report damp or mould
+              {t("reports.report")}
             </Link>
           ) : undefined
         }
       >
-        If you see damp, condensation or mould in your home, tell your landlord here. It takes a few minutes.
+        {t("reports.noneText")}
       </EmptyState>
     );
   const shown = limit ? cases.data.slice(0, limit) : cases.data;
@@ -112,7 +128,7 @@ export function MyCases({ limit, headingLevel = 2, emptyAction = true }: MyCases
       {limit && cases.data.length > limit ? (
         <p>
           <Link to="/cases" className="font-semibold text-dew-700 underline decoration-2">
-            See all {cases.data.length} reports
+            {t("reports.seeAll", { count: cases.data.length })}
           </Link>
         </p>
       ) : null}

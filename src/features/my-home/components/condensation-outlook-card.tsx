@@ -1,3 +1,4 @@
+import { useTranslation } from "react-i18next";
 import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
 import { LoadingState } from "@/components/ui/spinner";
@@ -23,12 +24,13 @@ const LEVELS: Record<Level, { words: string; shape: string; className: string }>
 /** The tenant's home page card: the next three days' chance of condensation in each room, with tips. */
 export function CondensationOutlookCard() {
   const outlook = useMyOutlook();
+  const { t } = useTranslation("home");
   return (
-    <Panel title="Condensation outlook: the next three days" id="home-outlook">
+    <Panel title={t("outlook.title")} id="home-outlook">
       {outlook.isPending ? (
-        <LoadingState>Loading the outlook…</LoadingState>
+        <LoadingState>{t("outlook.loading")}</LoadingState>
       ) : outlook.isError ? (
-        <Alert tone="danger" title="We could not load the outlook">
+        <Alert tone="danger" title={t("outlook.loadError")}>
           {errorMessage(outlook.error)}
         </Alert>
       ) : (
@@ -39,32 +41,28 @@ export function CondensationOutlookCard() {
 }
 
 export function OutlookBody({ outlook }: { outlook: Outlook }) {
+  const { t } = useTranslation("home");
   return (
     <div className="flex flex-col gap-4">
       {!outlook.forecastAvailable ? (
-        <Alert tone="info" title="No forecast for your home yet" live="none">
-          We have no weather forecast for your home at the moment, so we cannot say how the next three days look. This happens
-          when your home's location is not on our records yet, or when the forecast cannot be reached. The tips below help
-          whatever the weather.
+        <Alert tone="info" title={t("outlook.noForecastTitle")} live="none">
+          {t("outlook.noForecast")}
         </Alert>
       ) : outlook.rooms.length === 0 ? (
-        <p className="text-ink-soft">No rooms are listed for your home yet, so there is no outlook to show.</p>
+        <p className="text-ink-soft">{t("outlook.noRooms")}</p>
       ) : (
         <>
-          <p className="text-sm text-ink-soft">
-            How likely water is to settle on the coldest surface in each room ({outlook.surface.label.toLowerCase()}), from the
-            weather forecast. It is an estimate, not a measurement.
-          </p>
+          <p className="text-sm text-ink-soft">{t("outlook.intro", { surface: outlook.surface.label.toLowerCase() })}</p>
           <OutlookTable outlook={outlook} />
           <IndoorNotes rooms={outlook.rooms} />
         </>
       )}
 
-      <AdviceList title="What helps" items={outlook.tips} id="outlook-tips" />
-      <AdviceList title="Please keep in mind" items={outlook.cautions} id="outlook-cautions" />
+      <AdviceList title={t("outlook.helps")} items={outlook.tips} id="outlook-tips" />
+      <AdviceList title={t("outlook.keepInMind")} items={outlook.cautions} id="outlook-cautions" />
 
       <details className="text-sm text-ink-soft">
-        <summary className="cursor-pointer font-semibold text-ink">How we work this out</summary>
+        <summary className="cursor-pointer font-semibold text-ink">{t("outlook.method")}</summary>
         <ul className="mt-2 list-disc space-y-1 pl-5">
           {outlook.method.map((line) => (
             <li key={line}>{line}</li>
@@ -80,14 +78,15 @@ function dayHeading(date: string, index: number): string {
 }
 
 function OutlookTable({ outlook }: { outlook: Outlook }) {
+  const { t } = useTranslation("home");
   return (
     <div className="overflow-x-auto">
       <table className="w-full border-collapse text-left">
-        <caption className="sr-only">Chance of condensation by room and day</caption>
+        <caption className="sr-only">{t("outlook.caption")}</caption>
         <thead>
           <tr className="border-b border-line">
             <th scope="col" className="py-2 pr-3 text-sm font-semibold text-ink-soft">
-              Room
+              {t("outlook.room")}
             </th>
             {outlook.dates.map((date, i) => (
               <th key={date} scope="col" className="py-2 pr-3 text-sm font-semibold">
@@ -100,7 +99,7 @@ function OutlookTable({ outlook }: { outlook: Outlook }) {
         <tbody>
           {outlook.rooms.map((room) => (
             <tr key={room.roomId} className="border-b border-line last:border-b-0">
-              <th scope="row" className="py-2 pr-3 font-semibold">
+              <th scope="row" className="py-2 pr-3 font-semibold" translate="no">
                 {room.name}
               </th>
               {outlook.dates.map((date) => (
@@ -117,7 +116,8 @@ function OutlookTable({ outlook }: { outlook: Outlook }) {
 }
 
 function DayCell({ day }: { day: OutlookDayResponse | undefined }) {
-  if (!day || day.level === null) return <span className="text-ink-soft">No forecast</span>;
+  const { t } = useTranslation("home");
+  if (!day || day.level === null) return <span className="text-ink-soft">{t("outlook.noDayForecast")}</span>;
   const level = LEVELS[day.level];
   return (
     <div className="flex flex-col gap-1">
@@ -128,12 +128,12 @@ function DayCell({ day }: { day: OutlookDayResponse | undefined }) {
         )}
       >
         <span aria-hidden="true">{level.shape}</span>
-        {level.words}
+        {t(`outlook.${day.level}`)}
       </span>
       {day.condensingHours > 0 ? (
-        <span className="text-xs text-ink-soft">about {day.condensingHours} h of condensation</span>
+        <span className="text-xs text-ink-soft">{t("outlook.condensingHours", { hours: day.condensingHours })}</span>
       ) : day.hoursAtOrAbove80 > 0 ? (
-        <span className="text-xs text-ink-soft">about {day.hoursAtOrAbove80} h of very humid surface</span>
+        <span className="text-xs text-ink-soft">{t("outlook.humidHours", { hours: day.hoursAtOrAbove80 })}</span>
       ) : null}
     </div>
   );
@@ -160,6 +160,7 @@ function IndoorNotes({ rooms }: { rooms: OutlookRoomResponse[] }) {
 }
 
 function AdviceList({ title, items, id }: { title: string; items: OutlookAdviceResponse[]; id: string }) {
+  const { t } = useTranslation("home");
   return (
     <section aria-labelledby={`${id}-heading`}>
       <h3 id={`${id}-heading`} className="mb-2 text-lg font-bold">
@@ -168,7 +169,7 @@ function AdviceList({ title, items, id }: { title: string; items: OutlookAdviceR
       <ul className="list-disc space-y-2 pl-5">
         {items.map((item) => (
           <li key={item.id}>
-            {item.text} <span className="text-xs text-ink-soft">(Basis: {item.basis}.)</span>
+            {item.text} <span className="text-xs text-ink-soft">{t("outlook.basis", { basis: item.basis })}</span>
           </li>
         ))}
       </ul>

@@ -1,5 +1,6 @@
+import { useTranslation } from "react-i18next";
 import { Panel } from "@/components/ui/card";
-import { formatDate } from "@/lib/dates";
+import { useFormatDate } from "@/lib/i18n/use-format-date";
 import {
   builtFormLabels,
   glazingTypeLabels,
@@ -14,7 +15,7 @@ import type { MyHome } from "../api/get-my-home";
 
 export function HomeAddress({ property }: { property: Property }) {
   return (
-    <address className="not-italic text-lg leading-relaxed">
+    <address className="not-italic text-lg leading-relaxed" translate="no">
       {property.addressLine1}
       <br />
       {property.addressLine2 ? (
@@ -32,20 +33,29 @@ export function HomeAddress({ property }: { property: Property }) {
 
 export function HomeSummary({ home }: { home: MyHome }) {
   const { property, tenancy } = home;
+  const { t } = useTranslation("home");
+  const formatDate = useFormatDate();
+  // The value's words in the reader's language; a value added on the server since shows as it came.
+  const word = (group: string, labels: Record<string, string>, value: string | null) =>
+    value ? t(`${group}.${value}`, { defaultValue: labelOf(labels, value) }) : "";
   return (
     <div className="flex flex-col gap-4">
-      <Panel title="Your address" id="home-address">
+      <Panel title={t("summary.address")} id="home-address">
         <HomeAddress property={property} />
         <dl className="mt-4 grid grid-cols-1 gap-x-6 gap-y-3 sm:grid-cols-2">
-          <Detail term="Estate" value={property.block ? `${property.estate}, ${property.block}` : property.estate} />
-          <Detail term="Tenancy started" value={formatDate(tenancy.startDate)} />
-          {tenancy.endDate ? <Detail term="Tenancy ends" value={formatDate(tenancy.endDate)} /> : null}
+          <Detail
+            term={t("summary.estate")}
+            value={property.block ? `${property.estate}, ${property.block}` : property.estate}
+            data
+          />
+          <Detail term={t("summary.tenancyStarted")} value={formatDate(tenancy.startDate)} />
+          {tenancy.endDate ? <Detail term={t("summary.tenancyEnds")} value={formatDate(tenancy.endDate)} /> : null}
         </dl>
       </Panel>
 
-      <Panel title="Rooms" id="home-rooms">
+      <Panel title={t("summary.rooms")} id="home-rooms">
         {property.rooms.length === 0 ? (
-          <p className="text-ink-soft">No rooms are listed for your home yet. Your landlord's team can add them.</p>
+          <p className="text-ink-soft">{t("summary.noRooms")}</p>
         ) : (
           <ul className="grid grid-cols-1 gap-2 sm:grid-cols-2">
             {property.rooms.map((room) => (
@@ -53,9 +63,11 @@ export function HomeSummary({ home }: { home: MyHome }) {
                 key={room.id}
                 className="flex items-center justify-between gap-3 rounded-md border border-line bg-paper px-3 py-3"
               >
-                <span className="font-semibold">{room.name}</span>
+                <span className="font-semibold" translate="no">
+                  {room.name}
+                </span>
                 {showKind(room.name, room.kind) ? (
-                  <span className="text-sm text-ink-soft">{labelOf(roomKindLabels, room.kind)}</span>
+                  <span className="text-sm text-ink-soft">{word("roomKind", roomKindLabels, room.kind)}</span>
                 ) : null}
               </li>
             ))}
@@ -63,16 +75,14 @@ export function HomeSummary({ home }: { home: MyHome }) {
         )}
       </Panel>
 
-      <Panel title="About the building" id="home-building">
+      <Panel title={t("summary.building")} id="home-building">
         <dl className="grid grid-cols-1 gap-x-6 gap-y-3 sm:grid-cols-2">
-          <Detail term="Type of home" value={labelOf(builtFormLabels, property.builtForm)} />
-          <Detail term="Walls" value={labelOf(wallTypeLabels, property.wallType)} />
-          <Detail term="Windows" value={labelOf(glazingTypeLabels, property.glazingType)} />
-          <Detail term="Heating" value={labelOf(heatingTypeLabels, property.heatingType)} />
+          <Detail term={t("summary.builtForm")} value={word("builtForm", builtFormLabels, property.builtForm)} />
+          <Detail term={t("summary.walls")} value={word("wallType", wallTypeLabels, property.wallType)} />
+          <Detail term={t("summary.windows")} value={word("glazingType", glazingTypeLabels, property.glazingType)} />
+          <Detail term={t("summary.heating")} value={word("heatingType", heatingTypeLabels, property.heatingType)} />
         </dl>
-        <p className="mt-3 text-sm text-ink-soft">
-          If any of this looks wrong, tell your housing officer: it helps them understand damp in your home.
-        </p>
+        <p className="mt-3 text-sm text-ink-soft">{t("summary.wrong")}</p>
       </Panel>
     </div>
   );
@@ -85,11 +95,14 @@ function showKind(name: string, kind: RoomKind): boolean {
   return !name.toLowerCase().startsWith(label.split(" ")[0]!);
 }
 
-function Detail({ term, value }: { term: string; value: string }) {
+/** `data`: the value is the landlord's own record (an estate's name), not words to translate. */
+function Detail({ term, value, data = false }: { term: string; value: string; data?: boolean }) {
   return (
     <div>
       <dt className="text-sm font-semibold text-ink-soft">{term}</dt>
-      <dd className="text-base">{value}</dd>
+      <dd className="text-base" translate={data ? "no" : undefined}>
+        {value}
+      </dd>
     </div>
   );
 }

@@ -1,4 +1,5 @@
 import { useState, type FormEvent } from "react";
+import { useTranslation } from "react-i18next";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Panel } from "@/components/ui/card";
@@ -6,23 +7,9 @@ import { Input } from "@/components/ui/field";
 import { ApiError, errorMessage } from "@/lib/api-client";
 import { useMyTexts, useSaveMyTexts } from "../api/texts";
 
-/** Every word of the card, in one place (so it can be translated later). */
-const WORDS = {
-  title: "Texts about your reports",
-  intro:
-    "We can send you a text when we offer a visit, the day before a visit, when we send you a message, and when we send you a written summary. Texts are off until you turn them on.",
-  number: "Your mobile number",
-  numberHint: "A UK mobile number, like 07700 900123.",
-  on: "Send me texts",
-  save: "Save",
-  saving: "Saving…",
-  savedOn: "Saved. We will text you.",
-  savedOff: "Saved. We will not text you. You will still get e-mails.",
-  loadError: "We could not load your text settings",
-};
-
 /** The tenant's own choice: their mobile number and texts on or off. */
 export function TextChoiceCard() {
+  const { t } = useTranslation("home");
   const current = useMyTexts();
   const save = useSaveMyTexts();
   const [number, setNumber] = useState<string | null>(null);
@@ -38,18 +25,18 @@ export function TextChoiceCard() {
   };
 
   return (
-    <Panel title={WORDS.title} id="home-texts">
+    <Panel title={t("texts.title")} id="home-texts">
       {current.isError ? (
-        <Alert tone="danger" title={WORDS.loadError}>
+        <Alert tone="danger" title={t("texts.loadError")}>
           {errorMessage(current.error)}
         </Alert>
       ) : (
         <form onSubmit={submit} className="flex flex-col gap-3" noValidate>
-          <p>{WORDS.intro}</p>
+          <p>{t("texts.intro")}</p>
           <Input
             id="texts-number"
-            label={WORDS.number}
-            hint={WORDS.numberHint}
+            label={t("texts.number")}
+            hint={t("texts.numberHint")}
             type="tel"
             autoComplete="tel"
             inputMode="tel"
@@ -59,14 +46,14 @@ export function TextChoiceCard() {
           />
           <label className="flex items-center gap-2">
             <input type="checkbox" checked={shownOn} onChange={(e) => setOn(e.target.checked)} />
-            {WORDS.on}
+            {t("texts.on")}
           </label>
           <div>
             <Button type="submit" disabled={save.isPending || current.isPending}>
-              {save.isPending ? WORDS.saving : WORDS.save}
+              {save.isPending ? t("texts.saving") : t("texts.save")}
             </Button>
           </div>
-          {save.isSuccess && <Alert tone="success">{save.data.textsOn ? WORDS.savedOn : WORDS.savedOff}</Alert>}
+          {save.isSuccess && <Alert tone="success">{save.data.textsOn ? t("texts.savedOn") : t("texts.savedOff")}</Alert>}
           {save.isError && !fieldError("mobileNumber") && <Alert tone="danger">{errorMessage(save.error)}</Alert>}
         </form>
       )}

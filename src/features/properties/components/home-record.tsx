@@ -1,3 +1,4 @@
+import { languagePreferenceWords } from "@/lib/language-words";
 import type { ReactNode } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -104,6 +105,9 @@ export function HomeTenants({ homeId }: { homeId: number }) {
                   <a href={`mailto:${t.email}`} className="text-sm break-all text-dew-700 underline">
                     {t.email}
                   </a>
+                  {languagePreferenceWords(t.language) ? (
+                    <span className="block text-sm font-semibold">{languagePreferenceWords(t.language)}</span>
+                  ) : null}
                 </span>
                 <span className="text-sm text-ink-soft">
                   {t.current ? "Current tenant" : "Former tenant"} · from {formatCalendarShort(t.startDate)}
