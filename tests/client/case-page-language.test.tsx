@@ -7,6 +7,14 @@ import { afterEach, beforeEach, describe, expect, it } from "vitest";
 import { clearCsrfToken } from "@/lib/api-client";
 import { adviseForHome } from "@/lib/domain/home-advice";
 import { showLanguage } from "@/lib/i18n/i18n";
+import { rememberChoice } from "@/lib/i18n/choice";
+import type { Lng } from "@/lib/i18n/languages";
+
+/** The language chosen on this device (as the switch does), so the signed-in shell shows it too. */
+async function choose(lng: Lng): Promise<void> {
+  rememberChoice(lng);
+  await showLanguage(lng);
+}
 import { mockApi, users } from "./support/api-mock";
 import { renderApp } from "./support/render-app";
 
@@ -136,11 +144,12 @@ function translatableText(root: Element): string[] {
 describe("the tenant's case page in another language", () => {
   beforeEach(() => clearCsrfToken());
   afterEach(async () => {
+    window.localStorage.clear();
     await showLanguage("en");
   });
 
   it("reads in Welsh: the status, a plural, a date, the repair's day and an advice item with its caution", async () => {
-    await showLanguage("cy");
+    await choose("cy");
     caseApi();
     await openCase();
     expect(screen.getByText("Atgyweirio wedi'i gynllunio")).toBeInTheDocument();
@@ -168,7 +177,7 @@ describe("the tenant's case page in another language", () => {
   });
 
   it("leaves no English behind in en-XA: every string on the page went through translation, data apart", async () => {
-    await showLanguage("en-XA");
+    await choose("en-XA");
     caseApi();
     await openCase();
     // The advice opened too, with its items, cautions and sources.

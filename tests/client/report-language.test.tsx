@@ -3,6 +3,14 @@ import userEvent from "@testing-library/user-event";
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
 import { clearCsrfToken } from "@/lib/api-client";
 import { i18n, showLanguage } from "@/lib/i18n/i18n";
+import { rememberChoice } from "@/lib/i18n/choice";
+import type { Lng } from "@/lib/i18n/languages";
+
+/** The language chosen on this device (as the switch does), so the signed-in shell shows it too. */
+async function choose(lng: Lng): Promise<void> {
+  rememberChoice(lng);
+  await showLanguage(lng);
+}
 import { PSEUDO_CLOSE, PSEUDO_OPEN } from "@/lib/i18n/pseudo";
 import { makeProperty, mockApi, unauthenticated, users } from "./support/api-mock";
 import { renderApp } from "./support/render-app";
@@ -52,11 +60,12 @@ describe("the report form in other languages", () => {
     window.localStorage.clear();
   });
   afterEach(async () => {
+    window.localStorage.clear();
     await showLanguage("en");
   });
 
   it("asks its questions in Welsh, and says what is missing in Welsh", async () => {
-    await showLanguage("cy");
+    await choose("cy");
     tenantApi();
     const user = userEvent.setup();
     renderApp("/report");
@@ -78,7 +87,7 @@ describe("the report form in other languages", () => {
   });
 
   it("counts photos and readings with Welsh plurals", async () => {
-    await showLanguage("cy");
+    await choose("cy");
     expect(i18n.t("report:check.photoCount", { count: 1 })).toBe("1 llun");
     expect(i18n.t("report:check.photoCount", { count: 2 })).toBe("2 lun");
     expect(i18n.t("report:check.readingCount", { count: 2 })).toBe("2 ddarlleniad");
@@ -86,7 +95,7 @@ describe("the report form in other languages", () => {
   });
 
   it("leaves no English in the form's first steps in the pseudo-locale", async () => {
-    await showLanguage("en-XA");
+    await choose("en-XA");
     tenantApi();
     const user = userEvent.setup();
     renderApp("/report");
@@ -102,11 +111,12 @@ describe("the report form in other languages", () => {
 
 describe("the calculator in other languages", () => {
   afterEach(async () => {
+    window.localStorage.clear();
     await showLanguage("en");
   });
 
   it("labels its fields, says its checks and shows its result in Welsh", async () => {
-    await showLanguage("cy");
+    await choose("cy");
     mockApi({ "GET /api/auth/me": unauthenticated });
     const user = userEvent.setup();
     renderApp("/calculator");
@@ -128,7 +138,7 @@ describe("the calculator in other languages", () => {
   });
 
   it("leaves no English on the empty calculator in the pseudo-locale", async () => {
-    await showLanguage("en-XA");
+    await choose("en-XA");
     mockApi({ "GET /api/auth/me": unauthenticated });
     renderApp("/calculator");
     await screen.findByRole("heading", { level: 1 });

@@ -58,6 +58,13 @@ beforeAll(async () => {
     .send({ mobileNumber: "07700 900987", textsOn: true })
     .expect(200);
   record("PUT", "/api/me/texts", texts.text);
+  // English chosen (the e-mails' words are checked in English below).
+  const language = await tenant.agent
+    .put("/api/me/language")
+    .set("X-CSRF-Token", tenant.csrf)
+    .send({ language: "en" })
+    .expect(200);
+  record("PUT", "/api/me/language", language.text);
 
   const home = (await tenant.get("/api/me/home").expect(200)).body.property;
   const roomId: number = home.rooms[0].id;
