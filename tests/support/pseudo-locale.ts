@@ -5,10 +5,11 @@ import type { Page } from "playwright-core";
 
 /**
  * Visible text in `main`, `header`, `nav` and open dialogs with Latin letters outside ⟦ ⟧ and not
- * inside an element marked translate="no". Pure numbers and punctuation are ignored.
+ * inside an element marked translate="no" (nor inside `except`, a selector for known gaps). Pure numbers and
+ * punctuation are ignored.
  */
-export async function findUntranslated(page: Page): Promise<string[]> {
-  return page.evaluate(() => {
+export async function findUntranslated(page: Page, { except }: { except?: string } = {}): Promise<string[]> {
+  return page.evaluate((except) => {
     const roots = Array.from(document.querySelectorAll("main, header, nav, dialog[open], [role='dialog']"));
     const found = new Set<string>();
     const visible = (el: Element) => {
@@ -23,6 +24,7 @@ export async function findUntranslated(page: Page): Promise<string[]> {
       for (let node = walker.nextNode(); node; node = walker.nextNode()) {
         const parent = node.parentElement;
         if (!parent || parent.closest("[translate='no'], script, style, svg")) continue;
+        if (except && parent.closest(except)) continue;
         if (!visible(parent)) continue;
         found.add(node.textContent ?? "");
       }
@@ -37,5 +39,5 @@ export async function findUntranslated(page: Page): Promise<string[]> {
       if (/[A-Za-z]/.test(outside)) untranslated.push(text.trim());
     }
     return untranslated;
-  });
+  }, except ?? null);
 }
