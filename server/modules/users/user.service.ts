@@ -48,7 +48,7 @@ const IMPORT_ROWS_PER_STATEMENT = 5000;
 const isStaffRole = (role: Role) => (STAFF_ROLES as readonly Role[]).includes(role);
 
 /** What a signed-in request needs of its account, read on every request (and briefly cached). */
-export type SessionAccount = Readonly<Person & Pick<User, "status" | "sessionEpoch">>;
+export type SessionAccount = Readonly<Person & Pick<User, "status" | "sessionEpoch" | "preferredLanguage">>;
 
 /**
  * After this process changes an account inside a transaction, its cached copy is not refilled for this
@@ -82,9 +82,25 @@ export class UserService {
     return this.sessionAccounts.get(id, async () => {
       const u = await this.dataSource.getRepository(User).findOne({
         where: { id },
-        select: { id: true, name: true, email: true, role: true, organisationId: true, status: true, sessionEpoch: true },
+        select: {
+          id: true,
+          name: true,
+          email: true,
+          role: true,
+          organisationId: true,
+          status: true,
+          sessionEpoch: true,
+          preferredLanguage: true,
+        },
       });
-      return u ? Object.freeze({ ...personOf(u), status: u.status, sessionEpoch: u.sessionEpoch }) : null;
+      return u
+        ? Object.freeze({
+            ...personOf(u),
+            status: u.status,
+            sessionEpoch: u.sessionEpoch,
+            preferredLanguage: u.preferredLanguage,
+          })
+        : null;
     });
   }
 
@@ -260,8 +276,8 @@ export class UserService {
 
   /** The account's preferred language as stored ("en", "cy", or what a tenancy file said), or null. */
   async languageOf(id: number): Promise<string | null> {
-    const u = await this.dataSource.getRepository(User).findOne({ where: { id }, select: { id: true, preferredLanguage: true } });
-    return u?.preferredLanguage ?? null;
+    // From the session's cached account: GET /api/auth/me, the lightest signed-in route, reads no row for it.
+    return (await this.sessionAccount(id))?.preferredLanguage ?? null;
   }
 
   /** Several accounts' preferred languages, by id (staff see a tenant's beside their name). */
