@@ -1101,7 +1101,7 @@ async function captureQueueSql(ds: DataSource, capture: CaptureLogger, actor: Ac
     );
     // The total, when it is not asked for in the page query (the stored counts' sum for a status-only view is).
     const count = capture.queries.find((q) => /^SELECT COUNT\(\*\)/.test(q.sql));
-    const homes = capture.queries.find((q) => /^SELECT p\.id AS id FROM properties p/.test(q.sql));
+    const homes = capture.queries.find((q) => /^SELECT (DISTINCT )?p\.id AS id FROM /.test(q.sql));
     if (!list || !(count || list.sql.includes("FROM case_status_counts")))
       throw new Error(`Could not find the queue queries for ${s.name} among:\n${capture.queries.map((q) => q.sql).join("\n")}`);
     out.push({ ...(homes ? { homes } : {}), list, ...(count ? { count } : {}) });

@@ -41,6 +41,7 @@ import { QueueCoveringIndexes1796462400000 } from "./migrations/1796462400000-Qu
 import { HeatingSupportPolicy1796462600000 } from "./migrations/1796462600000-HeatingSupportPolicy.js";
 import { TextMessages1796462700000 } from "./migrations/1796462700000-TextMessages.js";
 import { HomeSearchPieces1796463000000 } from "./migrations/1796463000000-HomeSearchPieces.js";
+import { CasePriorityCounts1796463500000 } from "./migrations/1796463500000-CasePriorityCounts.js";
 
 export const migrations = [
   Foundation1796180785107,
@@ -84,4 +85,5 @@ export const migrations = [
   HeatingSupportPolicy1796462600000,
   TextMessages1796462700000,
   HomeSearchPieces1796463000000,
+  CasePriorityCounts1796463500000,
 ];

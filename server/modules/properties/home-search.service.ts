@@ -1,6 +1,6 @@
 import type { DataSource } from "typeorm";
 import type { Logger } from "../../lib/logger.js";
-import { escapeLike } from "../../lib/sql.js";
+import { searchPatterns } from "../../lib/sql.js";
 import { inTransaction } from "../../lib/transaction.js";
 
 /**
@@ -89,8 +89,7 @@ export class HomeSearchService {
    * without spaces), at most `limit`; null when more match (the caller then joins the homes instead).
    */
   async matching(organisationId: number, q: string, limit: number): Promise<number[] | null> {
-    const like = `%${escapeLike(q)}%`;
-    const compact = `%${escapeLike(q.replace(/\s+/g, ""))}%`;
+    const { like, compact } = searchPatterns(q);
     const test = "(p.address_line1 LIKE ? OR p.town LIKE ? OR REPLACE(p.postcode, ' ', '') LIKE ?)";
     const testParams = [like, like, compact];
     // A home matching the text as typed holds its pieces; one matching on the postcode, the pieces of
@@ -102,12 +101,15 @@ export class HomeSearchService {
       const candidates = (spaceless === typed ? [typed] : [typed, spaceless]).map((g) => holdingAll(g));
       // Homes a bulk write left in the backlog are tested whether or not they have pieces yet.
       const backlog =
-        "SELECT bp.id FROM property_search_backlog b JOIN properties bp ON bp.organisation_id = b.organisation_id " +
+        "SELECT bp.id FROM property_search_backlog b JOIN properties bp FORCE INDEX (PRIMARY) ON bp.organisation_id = b.organisation_id " +
         "AND bp.id BETWEEN b.first_id AND b.last_id WHERE b.organisation_id = ?";
       // The candidates as a derived table joined to the homes: MariaDB works them out once (an IN over
-      // a UNION would be asked again for every home).
+      // a UNION would be asked again for every home). STRAIGHT_JOIN keeps that order: left to itself,
+      // MariaDB read all the landlord's homes and tested each against the candidates (bench:queue's
+      // street name, 20 000 homes: ~25 ms, against ~2.5 ms from the candidates). FORCE INDEX: the
+      // backlog's runs of ids are ranges of the primary key, not a scan of the landlord's homes.
       rows = (await this.dataSource.query(
-        `SELECT DISTINCT p.id AS id FROM (${[...candidates.map((c) => c.sql), backlog].join(" UNION ")}) c ` +
+        `SELECT STRAIGHT_JOIN DISTINCT p.id AS id FROM (${[...candidates.map((c) => c.sql), backlog].join(" UNION ")}) c ` +
           `INNER JOIN properties p ON p.id = c.property_id WHERE p.organisation_id = ? AND ${test} LIMIT ?`,
         [...candidates.flatMap((c) => c.params(organisationId)), organisationId, organisationId, ...testParams, limit + 1],
       )) as { id: number | string }[];
