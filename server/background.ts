@@ -10,7 +10,7 @@ import { startBoardReports } from "./modules/board-report/board-report.scheduler
 import { startSensorHealthSweeper } from "./modules/sensors/sensor-health.sweeper.js";
 import { startMqttIngest } from "./modules/sensors/mqtt/mqtt-ingest.js";
 import { startSensorWatchSweep } from "./modules/sensor-watch/sensor-watch.sweeper.js";
-import { startRepeatingJob } from "./lib/repeating-job.js";
+import { leasedJob } from "./lib/repeating-job.js";
 import { purgeExpiredRateLimitHits } from "./middleware/rate-limit-store.js";
 import { startReadingPartitionUpkeep } from "./modules/sensors/reading-partitions.job.js";
 import { startHomeSearchCatchUp } from "./modules/properties/home-search.job.js";
@@ -53,13 +53,13 @@ export function startBackgroundJobs(
   // Rooms whose sensor figures are behind their readings (a crash or restart mid-evaluation) are worked out again.
   const stopSensorWatch = startSensorWatchSweep(ctx.services.sensorWatch, ctx.logger, { leases });
   // Rate-limit counts whose window has ended.
-  const stopRateLimitPurge = startRepeatingJob({
+  const stopRateLimitPurge = leasedJob("rate-limit-purge", {
     everyMs: 10 * 60_000,
     logger: ctx.logger,
     failure: "purging ended rate-limit counts failed",
-    lease: { leases, name: "rate-limit-purge" },
+    leases,
     run: () => purgeExpiredRateLimitHits(ctx.dataSource),
-  });
+  }).stop;
   // Next months' partitions of sensor_readings, added before readings reach them (at start, then daily).
   const stopReadingPartitions = startReadingPartitionUpkeep(ctx.services.readingPartitions, ctx.logger, { leases });
   // Search pieces for the homes a stock import wrote (until then the search tests them one by one).

@@ -1,11 +1,22 @@
 // One way to run a background job on a timer: never two runs at a time (a tick during a slow run is
 // skipped), a failure logged and the next tick tried as usual, the timer unref'd so it never keeps the
-// process alive. With a lease (job-lease.ts) the job runs on one app instance at a time: each tick
+// process alive. With leases (job-lease.ts) the job runs on one app instance at a time: each tick
 // first takes the job's lease in the database, renews it while the run lasts and gives it back after.
+// Every timed job in server/modules and server/background.ts starts through `leasedJob`.
 import type { JobLeases } from "./job-lease.js";
 import type { Logger } from "./logger.js";
 
-export interface RepeatingJob {
+/** What a job's start function takes (background.ts hands in the leases; tests often a short interval). */
+export interface LeasedJobOptions {
+  everyMs?: number;
+  /**
+   * Runs on one instance at a time, under the job's row in `job_leases`. Without them the job runs
+   * in every process that starts it (tests, scripts).
+   */
+  leases?: JobLeases;
+}
+
+export interface LeasedJob {
   /** The work of one run. */
   run: () => Promise<unknown>;
   everyMs: number;
@@ -16,11 +27,8 @@ export interface RepeatingJob {
   atStart?: boolean;
   /** The first try after this long instead of after `everyMs` (ignored with `atStart`). */
   firstAfterMs?: number;
-  /**
-   * Runs on one instance at a time: `name` is the job's row in `job_leases`. Without it the job runs
-   * in every process that starts it (tests, scripts).
-   */
-  lease?: { leases: JobLeases; name: string };
+  /** See LeasedJobOptions.leases. */
+  leases?: JobLeases;
 }
 
 export interface RepeatingJobHandle {
@@ -30,21 +38,15 @@ export interface RepeatingJobHandle {
   stop(): Promise<void>;
 }
 
-/** Starts the job; the stop function resolves once a run in progress has finished. */
-export function startRepeatingJob(job: RepeatingJob): () => Promise<void> {
-  const handle = repeatingJob(job);
-  return () => handle.stop();
-}
-
-export function repeatingJob({
-  run,
-  everyMs,
-  logger,
-  failure,
-  atStart = false,
-  firstAfterMs,
-  lease,
-}: RepeatingJob): RepeatingJobHandle {
+/**
+ * Starts the job named `name` (its row in `job_leases`, and its name in the failure log when leased);
+ * `stop()` on the handle resolves once a run in progress has finished.
+ */
+export function leasedJob(
+  name: string,
+  { run, everyMs, logger, failure, atStart = false, firstAfterMs, leases }: LeasedJob,
+): RepeatingJobHandle {
+  const lease = leases ? { leases, name } : undefined;
   let running: Promise<void> | null = null;
   let stopped = false;
 

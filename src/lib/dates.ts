@@ -212,12 +212,24 @@ export function londonLocalToIso(value: string): string | null {
 
 /** Intl's name for a Dewline language: the pseudo-locales read English dates (their words are marked by translation). */
 const intlLocale = (lng: string) => (lng === "en-XA" || lng === "ar-XB" ? "en-GB" : lng);
-const inLanguage = new Map<string, Format>();
 type DateKind = "day" | "dateTime" | "longDay" | "longDayNoYear";
-const languageFormat = (lng: string, kind: DateKind, options: Intl.DateTimeFormatOptions) => {
-  const key = `${lng}|${kind}`;
+const STYLES: Record<DateKind, Intl.DateTimeFormatOptions> = {
+  day: { day: "numeric", month: "long", year: "numeric" },
+  longDay: { weekday: "long", day: "numeric", month: "long", year: "numeric" },
+  longDayNoYear: { weekday: "long", day: "numeric", month: "long" },
+  dateTime: { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" },
+};
+/**
+ * One formatter per language and style (and zone: London for instants, UTC for calendar dates), kept
+ * once made: a tenant's list formats a date per row, and each new Intl.DateTimeFormat costs the browser
+ * its zone's rules again.
+ */
+const inLanguage = new Map<string, Format>();
+const languageFormat = (lng: string, kind: DateKind, timeZone: string) => {
+  const locale = intlLocale(lng);
+  const key = `${locale}|${kind}|${timeZone}`;
   let format = inLanguage.get(key);
-  if (!format) inLanguage.set(key, (format = lazyFormat(intlLocale(lng), { timeZone: LONDON, ...options })));
+  if (!format) inLanguage.set(key, (format = lazyFormat(locale, { timeZone, ...STYLES[kind] })));
   return format;
 };
 
@@ -229,21 +241,10 @@ const languageFormat = (lng: string, kind: DateKind, options: Intl.DateTimeForma
  */
 export function formatDateIn(lng: string, value: string | null | undefined, kind: DateKind = "day"): string {
   if (!value) return "";
-  const options: Intl.DateTimeFormatOptions =
-    kind === "day"
-      ? { day: "numeric", month: "long", year: "numeric" }
-      : kind === "longDay"
-        ? { weekday: "long", day: "numeric", month: "long", year: "numeric" }
-        : kind === "longDayNoYear"
-          ? { weekday: "long", day: "numeric", month: "long" }
-          : { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" };
-  if (isIsoDate(value))
-    return lazyFormat(intlLocale(lng), { timeZone: "UTC", ...options })
-      .format(calendarDay(value))
-      .replace(",", "");
+  if (isIsoDate(value)) return languageFormat(lng, kind, "UTC").format(calendarDay(value)).replace(",", "");
   const d = instant(value);
   return d
-    ? languageFormat(lng, kind, options)
+    ? languageFormat(lng, kind, LONDON)
         .format(d)
         .replace(/^([^\d,]+),/, "$1")
     : value;

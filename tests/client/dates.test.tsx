@@ -8,6 +8,7 @@ import { clearCsrfToken } from "@/lib/api-client";
 import {
   formatCalendarLong,
   formatDate,
+  formatDateIn,
   formatDateTime,
   formatDateTimeZoned,
   formatDayTimeZoned,
@@ -50,6 +51,19 @@ describe("London dates", () => {
     expect(londonLocalToIso("2026-01-13T23:59")).toBe(WINTER);
     // 01:30 on 29 March 2026 does not happen in London: the clocks go from 01:00 GMT to 02:00 BST.
     expect(londonLocalToIso("2026-03-29T01:30")).toBeNull();
+  });
+
+  it("writes the same London days in the tenant's language, each time alike", () => {
+    // Welsh month names from memory (Mawrth = March, Awst = August); the pseudo-locales read English dates.
+    for (let i = 0; i < 2; i += 1) {
+      expect(formatDateIn("cy", "2026-03-03")).toBe("3 Mawrth 2026");
+      expect(formatDateIn("cy", "2026-07-31T23:30:00.000Z")).toBe("1 Awst 2026");
+      expect(formatDateIn("en-GB", "2026-07-31T23:30:00.000Z")).toBe("1 August 2026");
+      expect(formatDateIn("en-XA", "2026-03-03")).toBe("3 March 2026");
+      expect(formatDateIn("en-GB", "2026-12-08", "longDay")).toBe("Tuesday 8 December 2026");
+    }
+    expect(formatDateIn("cy", "not a date")).toBe("not a date");
+    expect(formatDateIn("cy", null)).toBe("");
   });
 });
 

@@ -12,7 +12,7 @@ import { loadConfig } from "../../server/config/env.js";
 import { createDataSource } from "../../server/db/create-data-source.js";
 import { JobLeases } from "../../server/lib/job-lease.js";
 import { createLogger } from "../../server/lib/logger.js";
-import { repeatingJob, type RepeatingJobHandle } from "../../server/lib/repeating-job.js";
+import { leasedJob, type RepeatingJobHandle } from "../../server/lib/repeating-job.js";
 import { purgeExpiredRateLimitHits } from "../../server/middleware/rate-limit-store.js";
 import { anonymousClient, createTestApp, type TestApp } from "../support/test-app.js";
 
@@ -82,19 +82,19 @@ describe("a repeating job under a lease", () => {
     const { state, runFor } = sharedRuns();
     const slow = () => new Promise<void>((r) => setTimeout(r, 20));
     const jobs: RepeatingJobHandle[] = [
-      repeatingJob({
+      leasedJob(name, {
         run: runFor("a", slow),
         everyMs: 300,
         logger: quiet,
         failure: "a failed",
-        lease: { leases: leasesA, name },
+        leases: leasesA,
       }),
-      repeatingJob({
+      leasedJob(name, {
         run: runFor("b", slow),
         everyMs: 300,
         logger: quiet,
         failure: "b failed",
-        lease: { leases: leasesB, name },
+        leases: leasesB,
       }),
     ];
     try {
@@ -122,12 +122,12 @@ describe("a repeating job under a lease", () => {
     expect(held.holder).toBe("instance-a");
 
     const { state, runFor } = sharedRuns();
-    const job = repeatingJob({
+    const job = leasedJob(name, {
       run: runFor("b"),
       everyMs: 50,
       logger: quiet,
       failure: "b failed",
-      lease: { leases: leasesB, name },
+      leases: leasesB,
     });
     try {
       await until(() => state.byInstance.b >= 1, "instance B to run the job");
@@ -148,12 +148,12 @@ describe("a repeating job under a lease", () => {
     const leasesB = new JobLeases(dsB, { holder: "instance-b", leaseMs: 300 }, quiet);
     let finishA = () => {};
     const { state, runFor } = sharedRuns();
-    const a = repeatingJob({
+    const a = leasedJob(name, {
       run: runFor("a", () => new Promise<void>((r) => (finishA = r))),
       everyMs: 50,
       logger: quiet,
       failure: "a failed",
-      lease: { leases: leasesA, name },
+      leases: leasesA,
     });
     let tries = 0;
     const take = leasesB.take.bind(leasesB);
@@ -161,12 +161,12 @@ describe("a repeating job under a lease", () => {
       tries += 1;
       return take(...args);
     };
-    const b = repeatingJob({
+    const b = leasedJob(name, {
       run: runFor("b"),
       everyMs: 50,
       logger: quiet,
       failure: "b failed",
-      lease: { leases: leasesB, name },
+      leases: leasesB,
     });
     try {
       await until(() => state.active === 1, "A's run to start");
@@ -197,11 +197,11 @@ describe("a repeating job under a lease", () => {
     const leases = new JobLeases(dsA, { holder: "instance-a", leaseMs: 1000 }, logger);
     let calls = 0;
     let errorSeenBySecondRun: string | null | undefined;
-    const job = repeatingJob({
+    const job = leasedJob(name, {
       everyMs: 50,
       logger,
       failure: "test job failed",
-      lease: { leases, name },
+      leases,
       run: async () => {
         calls += 1;
         if (calls === 1) throw new Error("the first run fails");

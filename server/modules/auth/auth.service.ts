@@ -101,9 +101,12 @@ export class AuthService {
       : null;
   }
 
-  /** The signed-in user's preferred language, for GET /api/auth/me (the users module owns it). */
-  languageOf(id: number): Promise<string | null> {
-    return this.users.languageOf(id);
+  /**
+   * The signed-in user's preferred language as stored, for GET /api/auth/me: from the session's cached
+   * account, so the lightest signed-in route reads no row for it.
+   */
+  async languageOf(id: number): Promise<string | null> {
+    return (await this.users.sessionAccount(id))?.preferredLanguage ?? null;
   }
 
   /** Asks for an unlock link by e-mail; the reply never depends on the address (the work happens after it). */

@@ -1,6 +1,5 @@
-import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
-import { startRepeatingJob } from "../../lib/repeating-job.js";
+import { leasedJob, type LeasedJobOptions } from "../../lib/repeating-job.js";
 import type { InvitationBatchService } from "./invitation-batch.service.js";
 
 /** Its row in `job_leases`: one instance at a time runs it. */
@@ -14,10 +13,10 @@ export const JOB_NAME = "invitation-batches";
 export function startInvitationBatches(
   batches: Pick<InvitationBatchService, "releaseDue">,
   logger: Logger,
-  { everyMs, leases }: { everyMs: number; leases?: JobLeases },
+  { everyMs, leases }: LeasedJobOptions & { everyMs: number },
 ): () => Promise<void> {
-  return startRepeatingJob({
-    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
+  return leasedJob(JOB_NAME, {
+    leases,
     everyMs,
     logger,
     failure: "releasing queued invitations failed",
@@ -25,5 +24,5 @@ export function startInvitationBatches(
       const n = await batches.releaseDue();
       if (n) logger.info({ released: n }, "queued invitations released");
     },
-  });
+  }).stop;
 }

@@ -1,6 +1,5 @@
-import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
-import { startRepeatingJob } from "../../lib/repeating-job.js";
+import { leasedJob, type LeasedJobOptions } from "../../lib/repeating-job.js";
 import type { BoardReportService } from "./board-report.service.js";
 
 /** Its row in `job_leases`: one instance at a time runs it. */
@@ -16,13 +15,13 @@ const EVERY_MS = 60 * 60_000;
 export function startBoardReports(
   reports: Pick<BoardReportService, "sendDue">,
   logger: Logger,
-  { everyMs = EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
+  { everyMs = EVERY_MS, leases }: LeasedJobOptions = {},
 ): () => Promise<void> {
-  return startRepeatingJob({
-    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
+  return leasedJob(JOB_NAME, {
+    leases,
     everyMs,
     logger,
     failure: "board reports failed",
     run: () => reports.sendDue(),
-  });
+  }).stop;
 }

@@ -9,7 +9,7 @@ import { localDate, LONDON_TIME_ZONE } from "../../../src/lib/domain/working-day
 import { systemClock } from "../../lib/clock.js";
 import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
-import { repeatingJob } from "../../lib/repeating-job.js";
+import { leasedJob } from "../../lib/repeating-job.js";
 import type { TriageService } from "../triage/triage.service.js";
 import type { DigestRun, DigestService } from "./digest.service.js";
 
@@ -75,13 +75,13 @@ export function startDigestScheduler(
     if (result.sent || result.failed) logger.info({ digest: result }, "deadline digests sent");
   };
 
-  const job = repeatingJob({
+  const job = leasedJob(JOB_NAME, {
     run,
     everyMs: options.intervalMs ?? CHECK_EVERY_MS,
     firstAfterMs: options.firstCheckMs ?? FIRST_CHECK_MS,
     logger,
     failure: "deadline digests failed; trying again at the next check",
-    ...(options.leases ? { lease: { leases: options.leases, name: JOB_NAME } } : {}),
+    leases: options.leases,
   });
   return { check: job.tick, stop: job.stop };
 }

@@ -55,7 +55,7 @@ export interface CaseEmailTimeline {
  * staff e-mails stay English (UserService, wired in createServices).
  */
 export interface RecipientLanguages {
-  tenantLanguageByEmail(m: EntityManager, email: string): Promise<string | null>;
+  tenantLanguage(m: EntityManager, who: { email: string }): Promise<string | null>;
 }
 
 /** The delivery key: fixed once per row, carried by every attempt (see mail.relay.ts). */
@@ -88,7 +88,7 @@ export class MailService {
   /** The language an e-mail to `to` is written in. */
   async languageFor(m: EntityManager, to: string, tag?: string | null): Promise<MessageLanguage> {
     if (tag !== undefined) return messageLanguage(tag);
-    return messageLanguage(this.languages ? await this.languages.tenantLanguageByEmail(m, to) : null);
+    return messageLanguage(this.languages ? await this.languages.tenantLanguage(m, { email: to }) : null);
   }
 
   /** Where an e-mail about a case sent again is recorded (CaseService). */

@@ -1,6 +1,5 @@
-import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
-import { startRepeatingJob } from "../../lib/repeating-job.js";
+import { leasedJob, type LeasedJobOptions } from "../../lib/repeating-job.js";
 import type { HomeSearchService } from "./home-search.service.js";
 
 /** The job's name in logs and its lease (one instance at a time runs it). */
@@ -15,14 +14,14 @@ const EVERY_MS = 15_000;
 export function startHomeSearchCatchUp(
   homeSearch: Pick<HomeSearchService, "catchUp">,
   logger: Logger,
-  { everyMs = EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
+  { everyMs = EVERY_MS, leases }: LeasedJobOptions = {},
 ): () => Promise<void> {
-  return startRepeatingJob({
-    ...(leases ? { lease: { leases, name: HOME_SEARCH_JOB } } : {}),
+  return leasedJob(HOME_SEARCH_JOB, {
+    leases,
     everyMs,
     logger,
     atStart: true,
     failure: `${HOME_SEARCH_JOB}: writing search pieces failed`,
     run: () => homeSearch.catchUp(),
-  });
+  }).stop;
 }

@@ -1,6 +1,5 @@
-import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
-import { startRepeatingJob } from "../../lib/repeating-job.js";
+import { leasedJob, type LeasedJobOptions } from "../../lib/repeating-job.js";
 import type { SensorWatchService } from "./sensor-watch.service.js";
 
 /** Its row in `job_leases`: one instance at a time runs it. */
@@ -15,10 +14,10 @@ const SWEEP_EVERY_MS = 60_000;
 export function startSensorWatchSweep(
   watch: Pick<SensorWatchService, "sweep" | "drain">,
   logger: Logger,
-  { everyMs = SWEEP_EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
+  { everyMs = SWEEP_EVERY_MS, leases }: LeasedJobOptions = {},
 ): () => Promise<void> {
-  const stop = startRepeatingJob({
-    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
+  const stop = leasedJob(JOB_NAME, {
+    leases,
     everyMs,
     logger,
     failure: "sensor watch sweep failed",
@@ -28,7 +27,7 @@ export function startSensorWatchSweep(
       const n = await watch.sweep();
       if (n) logger.debug({ rooms: n }, "sensor rooms queued by the sweep");
     },
-  });
+  }).stop;
   return async () => {
     await stop();
     await watch.drain();

@@ -1,6 +1,5 @@
-import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
-import { startRepeatingJob } from "../../lib/repeating-job.js";
+import { leasedJob, type LeasedJobOptions } from "../../lib/repeating-job.js";
 import type { ReadingPartitionService } from "./reading-partitions.service.js";
 
 /** The job's name in logs and its lease (one instance at a time runs it). */
@@ -14,14 +13,14 @@ const EVERY_MS = 86_400_000;
 export function startReadingPartitionUpkeep(
   partitions: Pick<ReadingPartitionService, "ensureAhead">,
   logger: Logger,
-  { everyMs = EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
+  { everyMs = EVERY_MS, leases }: LeasedJobOptions = {},
 ): () => Promise<void> {
-  return startRepeatingJob({
-    ...(leases ? { lease: { leases, name: READING_PARTITIONS_JOB } } : {}),
+  return leasedJob(READING_PARTITIONS_JOB, {
+    leases,
     everyMs,
     logger,
     atStart: true,
     failure: `${READING_PARTITIONS_JOB}: partition upkeep failed`,
     run: () => partitions.ensureAhead(),
-  });
+  }).stop;
 }

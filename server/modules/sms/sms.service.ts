@@ -34,7 +34,7 @@ export type QueuedText =
 
 /** A tenant's language (users.preferred_language) by id, in the caller's transaction (UserService). */
 export interface TextLanguages {
-  tenantLanguageById(m: EntityManager, userId: number): Promise<string | null>;
+  tenantLanguage(m: EntityManager, who: { id: number }): Promise<string | null>;
 }
 
 /** The last three digits, which is all a timeline shows of a number. */
@@ -112,7 +112,7 @@ export class SmsService {
     const choice = await this.choiceOf(text.userId, m);
     if (!choice.textsOn || !choice.mobileNumber) return { queued: false, reason: "texts-off" };
     // Rendered once, in the tenant's language; the outbox keeps the words, so a retry sends the same text.
-    const language = messageLanguage(this.languages ? await this.languages.tenantLanguageById(m, text.userId) : null);
+    const language = messageLanguage(this.languages ? await this.languages.tenantLanguage(m, { id: text.userId }) : null);
     const body = renderSms(text.kind, text.data, language);
     const repo = m.getRepository(OutboxSms);
     if (text.onceKey && (await repo.existsBy({ onceKey: text.onceKey }))) return { queued: false, reason: "already-queued" };

@@ -1,6 +1,5 @@
-import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
-import { startRepeatingJob } from "../../lib/repeating-job.js";
+import { leasedJob, type LeasedJobOptions } from "../../lib/repeating-job.js";
 import type { TriageService } from "./triage.service.js";
 
 /** Its row in `job_leases`: one instance at a time runs it. */
@@ -16,10 +15,10 @@ const SWEEP_EVERY_MS = 30_000;
 export function startTriageSweeper(
   triage: Pick<TriageService, "refreshStale">,
   logger: Logger,
-  { everyMs = SWEEP_EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
+  { everyMs = SWEEP_EVERY_MS, leases }: LeasedJobOptions = {},
 ): () => Promise<void> {
-  return startRepeatingJob({
-    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
+  return leasedJob(JOB_NAME, {
+    leases,
     everyMs,
     logger,
     failure: "triage sweep failed",
@@ -27,5 +26,5 @@ export function startTriageSweeper(
       const n = await triage.refreshStale(undefined, 500);
       if (n) logger.debug({ refreshed: n }, "triage figures refreshed");
     },
-  });
+  }).stop;
 }

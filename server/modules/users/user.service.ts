@@ -117,18 +117,11 @@ export class UserService {
   /**
    * The preferred language of a tenant (users.preferred_language), by id or by e-mail address, in the
    * caller's transaction; null for staff (their e-mails and texts stay English) and for no account.
+   * The one way the mail and text services ask (RecipientLanguages, TextLanguages).
    */
   async tenantLanguage(m: EntityManager, who: { id: number } | { email: string }): Promise<string | null> {
     const u = await m.getRepository(User).findOne({ where: who, select: { id: true, role: true, preferredLanguage: true } });
     return u?.role === "tenant" ? u.preferredLanguage : null;
-  }
-
-  async tenantLanguageByEmail(m: EntityManager, email: string): Promise<string | null> {
-    return this.tenantLanguage(m, { email });
-  }
-
-  async tenantLanguageById(m: EntityManager, id: number): Promise<string | null> {
-    return this.tenantLanguage(m, { id });
   }
 
   /** People by id, any status; missing ids are left out. */
@@ -274,13 +267,11 @@ export class UserService {
     await m.getRepository(User).update(id, activate ? { passwordHash, status: "active" } : { passwordHash });
   }
 
-  /** The account's preferred language as stored ("en", "cy", or what a tenancy file said), or null. */
-  async languageOf(id: number): Promise<string | null> {
-    // From the session's cached account: GET /api/auth/me, the lightest signed-in route, reads no row for it.
-    return (await this.sessionAccount(id))?.preferredLanguage ?? null;
-  }
-
-  /** Several accounts' preferred languages, by id (staff see a tenant's beside their name). */
+  /**
+   * Several accounts' preferred languages as stored ("en", "cy", or what a tenancy file said), by id
+   * (staff see a tenant's beside their name). A signed-in account's own comes with its cached
+   * SessionAccount instead.
+   */
   async languagesOf(ids: readonly number[]): Promise<Map<number, string | null>> {
     if (!ids.length) return new Map();
     const rows = await this.dataSource

@@ -1,6 +1,5 @@
-import type { JobLeases } from "../../lib/job-lease.js";
 import type { Logger } from "../../lib/logger.js";
-import { startRepeatingJob } from "../../lib/repeating-job.js";
+import { leasedJob, type LeasedJobOptions } from "../../lib/repeating-job.js";
 import type { VerificationService } from "./verification.service.js";
 
 /** Its row in `job_leases`: one instance at a time runs it. */
@@ -15,13 +14,13 @@ const EVERY_MS = 10 * 60_000;
 export function startMonitoringReminders(
   verification: Pick<VerificationService, "sendDueReminders">,
   logger: Logger,
-  { everyMs = EVERY_MS, leases }: { everyMs?: number; leases?: JobLeases } = {},
+  { everyMs = EVERY_MS, leases }: LeasedJobOptions = {},
 ): () => Promise<void> {
-  return startRepeatingJob({
-    ...(leases ? { lease: { leases, name: JOB_NAME } } : {}),
+  return leasedJob(JOB_NAME, {
+    leases,
     everyMs,
     logger,
     failure: "monitoring reminders failed",
     run: () => verification.sendDueReminders(),
-  });
+  }).stop;
 }
