@@ -1,6 +1,24 @@
+import type enErrors from "../locales/en-GB/errors.js";
+
+/** The id of an error message a tenant can meet (server/locales/<lng>/errors.ts). */
+export type ErrorMessageId = keyof typeof enErrors;
+
+/**
+ * One part of an error's message for the tenant's language: a message id with its values, or English
+ * text that is one of the catalogue's messages without placeholders (found by its text).
+ */
+export type Phrase = string | { id: ErrorMessageId; values?: Record<string, string | number> };
+
 // Typed errors thrown by services and middleware; the error handler turns them into
 // `{ error: { code, message, details? } }` with the matching HTTP status.
 export class AppError extends Error {
+  /**
+   * The message as phrases of the error catalogue, when it is not one catalogue text as it stands (it has
+   * values, or is made of several parts joined by spaces). Only read to answer a Welsh tenant; the English
+   * `message` is always what the thrower wrote.
+   */
+  phrases?: readonly Phrase[];
+
   constructor(
     readonly status: number,
     readonly code: string,
@@ -10,6 +28,12 @@ export class AppError extends Error {
   ) {
     super(message);
     this.name = new.target.name;
+  }
+
+  /** Names the message's phrases in the error catalogue (see `phrases`); returns the error itself. */
+  saying(...phrases: Phrase[]): this {
+    this.phrases = phrases;
+    return this;
   }
 }
 

@@ -1,7 +1,9 @@
 import i18next, { type TFunction } from "i18next";
 import ICU from "i18next-icu";
+import cyErrors from "../locales/cy/errors.js";
 import cyMail from "../locales/cy/mail.js";
 import cySms from "../locales/cy/sms.js";
+import enErrors from "../locales/en-GB/errors.js";
 import enMail from "../locales/en-GB/mail.js";
 import enSms from "../locales/en-GB/sms.js";
 
@@ -10,13 +12,14 @@ import enSms from "../locales/en-GB/sms.js";
  * with ICU MessageFormat as on the client (`{count, plural, …}`, Welsh plurals zero/one/two/few/many/other).
  * The messages are TypeScript objects under server/locales/<lng>/ so the compiler checks every language
  * has every key of the English, and the build carries them without copying files. Staff e-mails stay English.
+ * The "errors" namespace is the error messages a tenant can meet (server/lib/error-language.ts).
  */
 export const MESSAGE_LANGUAGES = ["en-GB", "cy"] as const;
 export type MessageLanguage = (typeof MESSAGE_LANGUAGES)[number];
 
 export const MESSAGES = {
-  "en-GB": { mail: enMail, sms: enSms },
-  cy: { mail: cyMail, sms: cySms },
+  "en-GB": { mail: enMail, sms: enSms, errors: enErrors },
+  cy: { mail: cyMail, sms: cySms, errors: cyErrors },
 } as const satisfies Record<MessageLanguage, Record<string, Record<string, string>>>;
 
 /**
@@ -37,7 +40,7 @@ void messages.use(ICU).init({
   fallbackLng: "en-GB",
   supportedLngs: [...MESSAGE_LANGUAGES],
   resources: MESSAGES,
-  ns: ["mail", "sms"],
+  ns: ["mail", "sms", "errors"],
   defaultNS: "mail",
   // Keys are flat ("caseAcknowledgement.subject"); the text is plain text, never HTML (htmlFromText escapes it).
   keySeparator: false,
@@ -62,5 +65,6 @@ void messages.use(ICU).init({
 
 export type Translate = TFunction;
 
-/** The translator for one language and namespace ("mail" or "sms"). */
-export const translator = (language: MessageLanguage, ns: "mail" | "sms"): Translate => messages.getFixedT(language, ns);
+/** The translator for one language and namespace ("mail", "sms", or "errors": server/lib/error-language.ts). */
+export const translator = (language: MessageLanguage, ns: "mail" | "sms" | "errors"): Translate =>
+  messages.getFixedT(language, ns);

@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 import { asUnavailable } from "../lib/db-errors.js";
+import { errorLanguage, translatedError } from "../lib/error-language.js";
 import { AppError, NotFoundError } from "../lib/errors.js";
 
 interface HttpLikeError {
@@ -64,8 +65,10 @@ export function errorHandler(showInternals: boolean): ErrorRequestHandler {
       res.status(500).json({
         error: {
           code: "internal",
-          message:
-            "Something went wrong on our side. Please try again; if it keeps happening, tell your landlord's support team.",
+          message: translatedError(errorLanguage(req), {
+            message:
+              "Something went wrong on our side. Please try again; if it keeps happening, tell your landlord's support team.",
+          }).message,
           // The same id is in the X-Request-Id header and the log line of the error.
           requestId: req.id === undefined ? undefined : String(req.id),
           ...(showInternals ? { details: { message: String(err?.message ?? err), stack: err?.stack } } : {}),
@@ -74,8 +77,10 @@ export function errorHandler(showInternals: boolean): ErrorRequestHandler {
       return;
     }
     if (known.headers) res.set(known.headers);
+    // A tenant reads it in their language (server/lib/error-language.ts); staff and English as thrown.
+    const { message, details } = translatedError(errorLanguage(req), known);
     res.status(known.status).json({
-      error: { code: known.code, message: known.message, ...(known.details !== undefined ? { details: known.details } : {}) },
+      error: { code: known.code, message, ...(details !== undefined ? { details } : {}) },
     });
   };
 }

@@ -68,7 +68,7 @@ function limiter(o: LimitOptions, store: DatabaseRateLimitStore, logger: Logger)
         new TooManyRequestsError(
           `${o.message} Try again in ${minutes} minute${minutes === 1 ? "" : "s"}.${o.hint ? ` ${o.hint}` : ""}`,
           retryAfterSeconds,
-        ),
+        ).saying(o.message, { id: "try-again-in", values: { minutes } }, ...(o.hint ? [o.hint] : [])),
       );
     },
   });

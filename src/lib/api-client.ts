@@ -155,6 +155,11 @@ async function send(
   const multipart = typeof FormData !== "undefined" && options.body instanceof FormData;
   if (options.body !== undefined && !multipart) headers["Content-Type"] = "application/json";
   if (token) headers["X-CSRF-Token"] = token;
+  // The server writes a signed-out or tenant's error messages in this language. Read from <html lang>
+  // (the tenant shell sets it with the chosen language; staff pages stay "en-GB"), so this module never
+  // needs i18next, which staff never load.
+  const language = typeof document === "undefined" ? "" : document.documentElement.lang;
+  if (language) headers["Accept-Language"] = language;
   try {
     return await fetch(apiUrl(path, options.query), {
       method,

@@ -5,6 +5,20 @@ import { apiError, mockApi } from "./support/api-mock";
 describe("api client", () => {
   beforeEach(() => clearCsrfToken());
 
+  it("asks for the page's language (<html lang>), so the server writes a tenant's errors in it", async () => {
+    const { callsTo } = mockApi({ "GET /api/users": { body: { items: [], total: 0, page: 1, pageSize: 25 } } });
+    const before = document.documentElement.lang;
+    try {
+      document.documentElement.lang = "cy";
+      await api.get("/users");
+      document.documentElement.lang = "en-GB";
+      await api.get("/users");
+    } finally {
+      document.documentElement.lang = before;
+    }
+    expect(callsTo("GET", "/api/users").map((c) => c.headers.get("Accept-Language"))).toEqual(["cy", "en-GB"]);
+  });
+
   it("fetches the CSRF token once and sends it on every state-changing request", async () => {
     const { callsTo } = mockApi({
       "GET /api/auth/csrf": { body: { csrfToken: "token-1" } },

@@ -32,7 +32,7 @@ const notWaiting = (status: string) =>
     : "This person has already accepted their invitation, so there is nothing to send or cancel.";
 
 /** The signed-in actor with the session stamp their session is issued with (users.session_epoch). */
-export type SessionActor = Actor & { sessionEpoch: number };
+export type SessionActor = Actor & { sessionEpoch: number; preferredLanguage?: string | null };
 
 const waitMessage = (seconds: number) => {
   const wait = seconds < 90 ? `${seconds} seconds` : `${Math.ceil(seconds / 60)} minutes`;
@@ -79,7 +79,12 @@ export class AuthService {
     email = email.trim().toLowerCase();
     if (!unlocked) {
       const wait = await this.throttle.claim(email);
-      if (wait !== null) throw new TooManyRequestsError(waitMessage(wait), wait);
+      if (wait !== null)
+        throw new TooManyRequestsError(waitMessage(wait), wait).saying(
+          wait < 90
+            ? { id: "sign-in-wait-seconds", values: { seconds: wait } }
+            : { id: "sign-in-wait-minutes", values: { minutes: Math.ceil(wait / 60) } },
+        );
     }
     const user = await this.users.account({ email });
     const ok = await verifyPassword(user?.status === "active" ? user.passwordHash : null, password);
@@ -97,7 +102,8 @@ export class AuthService {
   async actorForSession(id: number, sessionEpoch: number): Promise<SessionActor | null> {
     const user = await this.users.sessionAccount(id);
     return user && user.status === "active" && user.sessionEpoch === sessionEpoch
-      ? { ...toActor(user), sessionEpoch: user.sessionEpoch }
+      ? // The stored language rides along from the cached account: error messages use it without a read.
+        { ...toActor(user), sessionEpoch: user.sessionEpoch, preferredLanguage: user.preferredLanguage }
       : null;
   }
 

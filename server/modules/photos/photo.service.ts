@@ -156,7 +156,7 @@ export class PhotoService {
     throw new TooManyRequestsError(
       `You have reached the photo upload limit for one hour. Please try again in ${minutes === 1 ? "a minute" : `about ${minutes} minutes`}.`,
       seconds,
-    );
+    ).saying({ id: "photos-hourly-limit", values: { minutes } });
   }
 
   /**
@@ -189,7 +189,7 @@ export class PhotoService {
         const most = Math.floor(this.config.uploads.pixelsPerRequest / 1_000_000);
         throw new PayloadTooLargeError(
           `These photos together have too many pixels to process at once (at most ${most} megapixels in one upload). Please send fewer at a time.`,
-        );
+        ).saying({ id: "photos-too-many-pixels", values: { most } });
       }
       booking = await this.book(actor.id, { pixels: sum(pixels), bytes: sum(bytes) });
       let firstRefusal: AppError | null = null;
