@@ -358,7 +358,10 @@ export class StockImportService {
             org,
             async () => {
               const result = await this.importRows(raw, head, mapping, org, input);
-              return { result, wrote: () => this.writtenHomes(db, org, Number(before[0][0]?.id ?? 0), result.updatedIds) };
+              return {
+                result,
+                wrote: () => this.writtenHomes(db, Number(before[0][0]?.id ?? 0), result.created, result.updatedIds),
+              };
             },
           );
           const { created, updated, unchanged, refused, report } = imported;
@@ -591,24 +594,26 @@ export class StockImportService {
   }
 
   /**
-   * The homes an import wrote, for the search's backlog: the new ones (ids above the highest before it,
-   * as one run: other landlords' homes inside it are passed over by the search and its catch-up) and
-   * the updated ones.
+   * The homes an import wrote, for the search's backlog: the updated ones, and the new ones as one run from
+   * just above the highest id before the import to the highest id it sees now (its own rows are the newest
+   * it sees). Other landlords' homes inside the run are passed over by the search and its catch-up. Both
+   * ends are read from the end of the primary key: asking for this landlord's lowest and highest new id
+   * read every new home again (1.1 s of a 13 s import of 100 000 homes on a busy machine, bench:stock).
    */
   private async writtenHomes(
     db: ReturnType<PoolConnection["promise"]>,
-    org: number,
     highestBefore: number,
+    created: number,
     updatedIds: readonly number[],
   ): Promise<IdRange[]> {
-    const [[added]] = await db.query<RowDataPacket[]>(
-      "SELECT MIN(id) AS first, MAX(id) AS last FROM properties WHERE organisation_id = ? AND id > ?",
-      [org, highestBefore],
-    );
     const ranges = idRanges(updatedIds);
-    if (added?.first != null) ranges.push({ first: Number(added.first), last: Number(added.last) });
+    if (created > 0) {
+      const [[highest]] = await db.query<RowDataPacket[]>("SELECT MAX(id) AS id FROM properties");
+      ranges.push({ first: highestBefore + 1, last: Number(highest?.id) });
+    }
     return ranges;
   }
+
   /** LOAD DATA LOCAL skipped or altered rows (a duplicate UPRN, a value a column refused): fail the import. */
   private async loadFailed(db: ReturnType<PoolConnection["promise"]>, sent: number, loaded: ResultSetHeader): Promise<never> {
     const [warnings] = await db.query<RowDataPacket[]>("SHOW WARNINGS LIMIT 3");
