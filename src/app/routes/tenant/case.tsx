@@ -28,6 +28,7 @@ import { OPEN_CASE_STATUSES } from "@/lib/domain/case-workflow";
 import { TextLink } from "@/components/ui/text-link";
 import { LandlordMessages } from "@/features/cases/components/landlord-messages";
 import { CaseConversation } from "@/features/conversation/components/case-conversation";
+import { useConversationWords } from "@/features/conversation/tenant-words";
 import { TenantComplaintSection } from "@/features/complaints/components/tenant-complaint-section";
 import { AddPhotos } from "@/features/report/components/add-photos";
 import { AddReadings } from "@/features/report/components/add-readings";
@@ -308,6 +309,7 @@ function EvaluationPanel({ id, open }: { id: number; open: boolean }) {
 function MessagesPanel({ id, open }: { id: number; open: boolean }) {
   const events = useCaseEvents(id);
   const { t } = useCaseText();
+  const conversationWords = useConversationWords();
   return (
     <>
       <Panel title={t("sections.latest.title")} id="case-latest">
@@ -330,7 +332,7 @@ function MessagesPanel({ id, open }: { id: number; open: boolean }) {
         summary={t("sections.messages.summary")}
         defaultOpen={open}
       >
-        <CaseConversation caseId={id} viewer="tenant" />
+        <CaseConversation caseId={id} viewer="tenant" words={conversationWords} />
       </CollapsibleSection>
     </>
   );
