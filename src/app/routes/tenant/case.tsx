@@ -21,7 +21,7 @@ import { CaseTimeline } from "@/features/cases/components/case-timeline";
 import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
-import { useCaseText, useTenantStage } from "@/features/cases/tenant-words";
+import { useCaseText, usePhotoGalleryWords, useTenantStage } from "@/features/cases/tenant-words";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
 import { HomeAdviceSection } from "@/features/home-advice/components/home-advice-section";
 import { OPEN_CASE_STATUSES } from "@/lib/domain/case-workflow";
@@ -365,6 +365,7 @@ function PhotosPanel({ id, open }: { id: number; open: boolean }) {
   const photos = useCasePhotos(id);
   const count = photos.data?.length;
   const { t } = useCaseText();
+  const galleryWords = usePhotoGalleryWords();
   return (
     <CollapsibleSection
       id="case-photos"
@@ -379,7 +380,7 @@ function PhotosPanel({ id, open }: { id: number; open: boolean }) {
           <span translate="no">{errorMessage(photos.error)}</span>
         </Alert>
       ) : (
-        <PhotoGallery photos={photos.data} emptyText={t("sections.photos.empty")} />
+        <PhotoGallery photos={photos.data} emptyText={t("sections.photos.empty")} words={galleryWords} />
       )}
     </CollapsibleSection>
   );
