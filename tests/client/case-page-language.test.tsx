@@ -117,6 +117,25 @@ function caseApi() {
     "GET /api/cases/42/photos": { body: { photos: [photo(7), photo(8)] } },
     "GET /api/cases/42/readings": { body: { readings: [] } },
     "GET /api/cases/42/work-orders": { body: { workOrders: [washOrder] } },
+    "GET /api/cases/42/messages": {
+      body: {
+        messages: [
+          {
+            id: 9,
+            kind: "to-tenant",
+            at: "2026-01-14T11:00:00.000Z",
+            author: officer,
+            mine: false,
+            body: "Please open the bedroom window for ten minutes each morning.",
+            photos: [{ id: 7, url: "/api/photos/7", thumbnailUrl: "/api/photos/7/thumbnail" }],
+            readBy: [],
+          },
+        ],
+        unread: 1,
+        readUpTo: null,
+      },
+    },
+    "POST /api/cases/42/messages/read": { body: { unread: 0, readUpTo: 9 } },
     "GET /api/cases/42/advice": { body: { caseId: 42, items: advice.items, safety: advice.safety, support: null } },
   });
 }
@@ -176,6 +195,28 @@ describe("the tenant's case page in another language", () => {
     expect(within(section).getAllByText(/O ble daw hyn:/)).toHaveLength(advice.items.length + 1);
   });
 
+  it("reads the conversation and the photos in Welsh: the unread note, who wrote, the box to write in", async () => {
+    await choose("cy");
+    caseApi();
+    await openCase();
+    const user = userEvent.setup();
+    await user.click(screen.getByRole("button", { name: "Negeseuon gyda'ch landlord" }));
+    const messages = screen.getByRole("region", { name: "Negeseuon gyda'ch landlord" });
+    expect(await within(messages).findByText("1 neges newydd gan eich landlord ers i chi edrych ddiwethaf.")).toBeInTheDocument();
+    expect(within(messages).getByRole("heading", { name: "Ffion Rhys, Swyddog tai" })).toBeInTheDocument();
+    expect(within(messages).getByText("Newydd")).toBeInTheDocument();
+    expect(within(messages).getByText(/14 Ion 2026, 11:00/)).toBeInTheDocument();
+    expect(within(messages).getByRole("img", { name: "Llun 1 o 1 (yn agor yn ei faint llawn)" })).toBeInTheDocument();
+    expect(within(messages).getByLabelText("Ysgrifennu at eich landlord")).toBeInTheDocument();
+    // An empty message is stopped in Welsh, before anything is sent.
+    await user.click(within(messages).getByRole("button", { name: "Anfon at eich landlord" }));
+    expect(within(messages).getByText("Ysgrifennwch y neges.")).toBeInTheDocument();
+
+    await user.click(screen.getByRole("button", { name: "Lluniau" }));
+    const photos = screen.getByRole("region", { name: "Lluniau" });
+    expect(await within(photos).findByRole("button", { name: /^Agor llun 1 o 2.*ychwanegwyd 10 Ion 2026/ })).toBeInTheDocument();
+  });
+
   it("leaves no English behind in en-XA: every string on the page went through translation, data apart", async () => {
     await choose("en-XA");
     caseApi();
@@ -184,6 +225,12 @@ describe("the tenant's case page in another language", () => {
     const adviceSection = document.getElementById("case-advice")!;
     await userEvent.setup().click(within(adviceSection).getByRole("button"));
     expect(within(adviceSection).getAllByRole("listitem").length).toBeGreaterThan(advice.items.length);
+    // The conversation (with a message from the landlord) and the photos open too.
+    const user = userEvent.setup();
+    await user.click(within(document.getElementById("case-messages")!).getAllByRole("button")[0]!);
+    await within(document.getElementById("case-messages")!).findByText(/ten minutes each morning/);
+    await user.click(within(document.getElementById("case-photos")!).getAllByRole("button")[0]!);
+    await within(document.getElementById("case-photos")!).findAllByRole("listitem");
     const main = screen.getByRole("main");
     const untranslated = translatableText(main).filter((text) => /[A-Za-z]{3,}/.test(text) && !/⟦[\s\S]*⟧/.test(text));
     expect(untranslated).toEqual([]);

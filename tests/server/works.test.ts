@@ -188,6 +188,44 @@ describe("double-booking", () => {
 });
 
 describe("the tenant's answer and the calendar file", () => {
+  it("writes the tenant's calendar entry in Welsh for a tenant who reads Welsh, and the operative's in English", async () => {
+    // A landlord of its own, so the shared tenant's language (and the English subjects the other tests read) is untouched.
+    const wales = await makeLandlord(t.ctx.dataSource);
+    const walesOfficer = await signedInClient(t.app, wales.officer.email, PASSWORD);
+    const walesLead = await signedInClient(t.app, wales.maintenance.email, PASSWORD);
+    const walesTenant = await signedInClient(t.app, wales.tenant.email, PASSWORD);
+    await walesTenant.agent.put("/api/me/language").set("X-CSRF-Token", walesTenant.csrf).send({ language: "cy" }).expect(200);
+    const c = (await walesTenant.post("/api/cases", report).expect(201)).body;
+    await walesOfficer
+      .patch(`/api/cases/${c.id}`, { status: "triaged", hazardClass: "significant", reason: "Mould in the bathroom." })
+      .expect(200);
+    await walesOfficer.post(`/api/cases/${c.id}/inspections`, inspection).expect(201);
+    const wo = (
+      await walesOfficer
+        .post(`/api/cases/${c.id}/work-orders`, { type: "mould-wash", description: "Fungicidal wash, operative's note only." })
+        .expect(201)
+    ).body;
+    await walesLead
+      .patch(`/api/work-orders/${wo.id}`, { assigneeId: wales.maintenance.id, slot: { date: futureDate(14), window: "am" } })
+      .expect(200);
+    const eventIn = (raw: string) =>
+      new ICAL.Event(
+        new ICAL.Component(ICAL.parse(/BEGIN:VCALENDAR[\s\S]*END:VCALENDAR/.exec(raw)![0])).getFirstSubcomponent("vevent")!,
+      );
+    const proposed = eventIn((await t.mail.lastTo(wales.tenant.email)).raw);
+    expect(proposed.summary).toBe(`Ymweliad: golchi llwydni a thriniaeth ffwngladdol (${c.reference})`);
+    expect(proposed.description).toMatch(/^Ymweliad ar gyfer golchi llwydni .*Gallwch ei gadarnhau neu ofyn am amser arall/);
+    expect(proposed.description).not.toContain("operative's note");
+    // The operative's copy stays English, with their own note.
+    const operative = eventIn((await t.mail.lastTo(wales.maintenance.email)).raw);
+    expect(operative.summary).toBe(`mould wash and fungicidal treatment (${c.reference})`);
+    expect(operative.description).toContain("operative's note only");
+    // Confirming sends the tenant the calendar file again, still in Welsh.
+    await walesTenant.post(`/api/work-orders/${wo.id}/booking-response`, { response: "confirm" }).expect(200);
+    const confirmed = eventIn((await t.mail.lastTo(wales.tenant.email)).raw);
+    expect(confirmed.summary).toBe(`Ymweliad: golchi llwydni a thriniaeth ffwngladdol (${c.reference})`);
+  });
+
   it("e-mails tenant and operative an RFC 5545 invitation with the right start and end in UTC, and records the answer", async () => {
     const caseId = await investigatedCase();
     const wo = (
@@ -216,6 +254,10 @@ describe("the tenant's answer and the calendar file", () => {
     expect(event.startDate.toJSDate().toISOString()).toBe(`${date}T${String(8 - offsetHours).padStart(2, "0")}:00:00.000Z`);
     expect(event.endDate.toJSDate().toISOString()).toBe(`${date}T${String(12 - offsetHours).padStart(2, "0")}:00:00.000Z`);
     expect(event.uid).toBe(`work-order-${wo.id}@dewline`);
+    // The tenant reads English (no language chosen): the work and the report, never the operative's note.
+    expect(event.summary).toMatch(/^Visit: extractor fan fitting or repair \(/);
+    expect(event.description).toMatch(/^A visit for extractor fan fitting or repair \(report /);
+    expect(event.description).not.toContain("humidity-controlled extract fan");
     expect((await t.mail.lastTo(landlord.maintenance.email)).subject).toMatch(/^Booked/);
 
     // Another tenant cannot answer it; staff cannot answer for the tenant.

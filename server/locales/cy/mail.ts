@@ -104,6 +104,9 @@ const cy: Record<keyof typeof en, string> = {
   "work.roof-gutter": "trwsio to, cwter neu beipen law",
   "work.damp-proofing": "trwsio cwrs atal lleithder neu rendrad",
   "work.other": "gwaith trwsio",
+  "calendar.title": "Ymweliad: {work} ({reference})",
+  "calendar.description":
+    "Ymweliad ar gyfer {work} (adroddiad {reference}). Gallwch ei gadarnhau neu ofyn am amser arall ar dudalen eich adroddiad yn Dewline.",
 
   "monitoringStarted.subject": "Gwirio bod y gwaith wedi gweithio: {reference}",
   "monitoringStarted.body":

@@ -102,6 +102,9 @@ export default {
   "work.roof-gutter": "roof, gutter or downpipe repair",
   "work.damp-proofing": "damp-proof course or render repair",
   "work.other": "repair work",
+  "calendar.title": "Visit: {work} ({reference})",
+  "calendar.description":
+    "A visit for {work} (report {reference}). You can confirm it or ask for another time on your report's page in Dewline.",
 
   "monitoringStarted.subject": "Checking the repair worked: {reference}",
   "monitoringStarted.body":

@@ -18,6 +18,7 @@ import { OperativeSlot } from "./operative-slot.entity.js";
 import { WorkOrder, type SlotWindow } from "./work-order.entity.js";
 import type { WorkOrderCompletion, WorkOrderCreate, WorkOrderListQuery } from "./works.schemas.js";
 import type { Clock } from "../../lib/clock.js";
+import { messageLanguage, translator } from "../../lib/i18n.js";
 import { inTransaction } from "../../lib/transaction.js";
 import { keysetAfter, type KeyTerm, type KeysetPage } from "../../lib/table-export.js";
 import type { WorkOrderExportRow } from "../../../src/lib/contracts/exports.js";
@@ -40,11 +41,21 @@ export const WORK_WORDS: Record<WorkOrder["type"], string> = {
 };
 
 /**
- * What the tenant's calendar entry says about the work: the kind of work and the case, never the
- * operative's description (that is for the operative only).
+ * What the tenant's calendar entry says about the work, in the tenant's language: the kind of work and
+ * the case, never the operative's description (that is for the operative only).
  */
-export const tenantIcsDescription = (type: WorkOrder["type"], reference: string | null) =>
-  `A visit for ${WORK_WORDS[type]}${reference ? ` (report ${reference})` : ""}. You can confirm it or ask for another time on your case page.`;
+export function tenantIcsText(
+  language: string | null | undefined,
+  type: WorkOrder["type"],
+  reference: string | null,
+): { title: string; description: string } {
+  const t = translator(messageLanguage(language), "mail");
+  const work = t(`work.${type}`);
+  return {
+    title: t("calendar.title", { work, reference: reference ?? "" }),
+    description: t("calendar.description", { work, reference: reference ?? "" }),
+  };
+}
 
 /** The statuses a case may take a new work order in. */
 const ORDERABLE: readonly Case["status"][] = ["investigated", "works-planned"];
@@ -410,13 +421,13 @@ export class WorkOrderService {
       });
       await this.moveCase(m, actor, c, "works-planned", "The works are booked.");
       const property = c.property!;
-      const icsFor = (description: string) =>
+      const icsFor = (description: string, title = `${WORK_WORDS[wo.type]} (${c.reference})`) =>
         appointmentIcs({
           workOrderId: wo.id,
           sequence,
           date: input.slot.date,
           window: input.slot.window,
-          title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+          title,
           description,
           location: addressOf(property),
           organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
@@ -431,13 +442,14 @@ export class WorkOrderService {
       };
       if (c.tenantUserId !== null) {
         const tenant = await this.users.person(c.tenantUserId, m);
+        const calendar = tenantIcsText(await this.users.tenantLanguage(m, { id: c.tenantUserId }), wo.type, c.reference);
         deliveries.push(
           await this.cases.queueMail(m, c, {
             to: tenant.email,
             template: "appointmentProposed",
             data: {
               ...common,
-              ics: icsFor(tenantIcsDescription(wo.type, c.reference)),
+              ics: icsFor(calendar.description, calendar.title),
               name: tenant.name,
               link: `${this.config.appUrl}/cases/${c.id}`,
               forOperative: false,
@@ -551,13 +563,13 @@ export class WorkOrderService {
       const link = `${this.config.appUrl}/cases/${c.id}`;
       if (confirmed) {
         const [slotDate, slotWindow] = [wo.slotDate, wo.slotWindow];
-        const icsFor = (description: string) =>
+        const icsFor = (description: string, title = `${WORK_WORDS[wo.type]} (${c.reference})`) =>
           appointmentIcs({
             workOrderId: wo.id,
             sequence: Math.max(0, wo.scheduleCount - 1),
             date: slotDate,
             window: slotWindow,
-            title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+            title,
             description,
             location: addressOf(property),
             organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
@@ -569,11 +581,16 @@ export class WorkOrderService {
           address: addressOf(property),
           link,
         };
+        const calendar = tenantIcsText(await this.users.tenantLanguage(m, { id: actor.id }), wo.type, c.reference);
         deliveries.push(
           await this.cases.queueMail(m, c, {
             to: actor.email,
             template: "appointmentConfirmed",
-            data: { ...data, ics: icsFor(tenantIcsDescription(wo.type, c.reference)), name: actor.name },
+            data: {
+              ...data,
+              ics: icsFor(calendar.description, calendar.title),
+              name: actor.name,
+            },
           }),
         );
         if (worker)
@@ -717,13 +734,13 @@ export class WorkOrderService {
       if (!booking) return;
       const c = await this.cases.getForActor(actor, wo.caseId, m);
       const property = c.property!;
-      const icsFor = (description: string) =>
+      const icsFor = (description: string, title = `${WORK_WORDS[wo.type]} (${c.reference})`) =>
         appointmentIcs({
           workOrderId: wo.id,
           sequence: wo.scheduleCount,
           date: booking.slotDate,
           window: booking.slotWindow,
-          title: `${WORK_WORDS[wo.type]} (${c.reference})`,
+          title,
           description,
           location: addressOf(property),
           organiserEmail: this.config.smtp.from.replace(/^.*<|>.*$/g, ""),
@@ -738,9 +755,12 @@ export class WorkOrderService {
         link: `${this.config.appUrl}/cases/${c.id}`,
       };
       // The tenant's calendar entry never carries the operative's description.
-      const people: { email: string; name: string; description: string }[] = [];
+      const people: { email: string; name: string; description: string; title?: string }[] = [];
       if (c.tenantUserId !== null)
-        people.push({ ...(await this.users.person(c.tenantUserId, m)), description: tenantIcsDescription(wo.type, c.reference) });
+        people.push({
+          ...(await this.users.person(c.tenantUserId, m)),
+          ...tenantIcsText(await this.users.tenantLanguage(m, { id: c.tenantUserId }), wo.type, c.reference),
+        });
       if (booking.assigneeUserId)
         people.push({ ...(await this.users.person(booking.assigneeUserId, m)), description: wo.description });
       else if (booking.contractorId)
@@ -753,7 +773,7 @@ export class WorkOrderService {
           await this.cases.queueMail(m, c, {
             to: p.email,
             template: "appointmentCancelled",
-            data: { ...data, ics: icsFor(p.description), name: p.name },
+            data: { ...data, ics: icsFor(p.description, p.title), name: p.name },
           }),
         );
     });

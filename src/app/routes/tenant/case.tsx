@@ -21,13 +21,14 @@ import { CaseTimeline } from "@/features/cases/components/case-timeline";
 import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
-import { useCaseText, useTenantStage } from "@/features/cases/tenant-words";
+import { useCaseText, usePhotoGalleryWords, useTenantStage } from "@/features/cases/tenant-words";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
 import { HomeAdviceSection } from "@/features/home-advice/components/home-advice-section";
 import { OPEN_CASE_STATUSES } from "@/lib/domain/case-workflow";
 import { TextLink } from "@/components/ui/text-link";
 import { LandlordMessages } from "@/features/cases/components/landlord-messages";
 import { CaseConversation } from "@/features/conversation/components/case-conversation";
+import { useConversationWords } from "@/features/conversation/tenant-words";
 import { TenantComplaintSection } from "@/features/complaints/components/tenant-complaint-section";
 import { AddPhotos } from "@/features/report/components/add-photos";
 import { AddReadings } from "@/features/report/components/add-readings";
@@ -308,6 +309,7 @@ function EvaluationPanel({ id, open }: { id: number; open: boolean }) {
 function MessagesPanel({ id, open }: { id: number; open: boolean }) {
   const events = useCaseEvents(id);
   const { t } = useCaseText();
+  const conversationWords = useConversationWords();
   return (
     <>
       <Panel title={t("sections.latest.title")} id="case-latest">
@@ -330,7 +332,7 @@ function MessagesPanel({ id, open }: { id: number; open: boolean }) {
         summary={t("sections.messages.summary")}
         defaultOpen={open}
       >
-        <CaseConversation caseId={id} viewer="tenant" />
+        <CaseConversation caseId={id} viewer="tenant" words={conversationWords} />
       </CollapsibleSection>
     </>
   );
@@ -363,6 +365,7 @@ function PhotosPanel({ id, open }: { id: number; open: boolean }) {
   const photos = useCasePhotos(id);
   const count = photos.data?.length;
   const { t } = useCaseText();
+  const galleryWords = usePhotoGalleryWords();
   return (
     <CollapsibleSection
       id="case-photos"
@@ -377,7 +380,7 @@ function PhotosPanel({ id, open }: { id: number; open: boolean }) {
           <span translate="no">{errorMessage(photos.error)}</span>
         </Alert>
       ) : (
-        <PhotoGallery photos={photos.data} emptyText={t("sections.photos.empty")} />
+        <PhotoGallery photos={photos.data} emptyText={t("sections.photos.empty")} words={galleryWords} />
       )}
     </CollapsibleSection>
   );

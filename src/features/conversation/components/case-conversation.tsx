@@ -7,11 +7,14 @@ import { useConversation } from "../api/get-conversation";
 import { useMarkRead } from "../api/mark-read";
 import { ComposeBox } from "./compose-box";
 import { MessageThread, type Viewer } from "./message-thread";
+import { englishConversationWords, type ConversationWords } from "../lib/words";
 
 export interface CaseConversationProps {
   caseId: number;
   /** The tenant reads their landlord's messages and writes to them; staff also write internal notes and see read receipts. */
   viewer: Viewer;
+  /** What the tenant reads, in their language (English by default; staff pages always read English). */
+  words?: ConversationWords;
 }
 
 const messagesWord = (n: number) => (n === 1 ? "1 new message" : `${n} new messages`);
@@ -20,7 +23,7 @@ const messagesWord = (n: number) => (n === 1 ? "1 new message" : `${n} new messa
  * The conversation on a case between the tenant and the landlord's staff: the thread (oldest first),
  * what is new since the person last looked, and the box to write in. Opening it marks it read.
  */
-export function CaseConversation({ caseId, viewer }: CaseConversationProps) {
+export function CaseConversation({ caseId, viewer, words = englishConversationWords }: CaseConversationProps) {
   const thread = useConversation(caseId);
   const { mutate: markRead } = useMarkRead(caseId);
   // What was unread when the conversation was opened stays marked "New" for this visit.
@@ -42,22 +45,24 @@ export function CaseConversation({ caseId, viewer }: CaseConversationProps) {
     <div className="flex flex-col gap-4">
       {atOpen && atOpen.unread > 0 ? (
         <p role="status" className="font-semibold text-dew-800">
-          {messagesWord(atOpen.unread)} from {viewer === "tenant" ? "your landlord" : "the tenant"} since you last looked.
+          {viewer === "tenant"
+            ? words.unreadNote(atOpen.unread)
+            : `${messagesWord(atOpen.unread)} from the tenant since you last looked.`}
         </p>
       ) : null}
       {thread.isPending ? (
-        <LoadingState>Loading the messages…</LoadingState>
+        <LoadingState>{words.loading}</LoadingState>
       ) : thread.isError ? (
-        <Alert tone="warning" title="We couldn't load the messages">
-          <p>{errorMessage(thread.error)}</p>
+        <Alert tone="warning" title={words.loadFailed}>
+          <p translate="no">{errorMessage(thread.error)}</p>
           <Button variant="secondary" size="sm" className="mt-2" onClick={() => void thread.refetch()}>
-            Try again
+            {words.tryAgain}
           </Button>
         </Alert>
       ) : (
-        <MessageThread messages={thread.data.messages} viewer={viewer} readUpToAtOpen={atOpen?.readUpTo ?? 0} />
+        <MessageThread messages={thread.data.messages} viewer={viewer} readUpToAtOpen={atOpen?.readUpTo ?? 0} words={words} />
       )}
-      <ComposeBox caseId={caseId} viewer={viewer} />
+      <ComposeBox caseId={caseId} viewer={viewer} words={words} />
     </div>
   );
 }

@@ -8,6 +8,7 @@ import { cn } from "@/lib/cn";
 import { MESSAGE_MAX_LENGTH, MESSAGE_MAX_PHOTOS, staffMessageSchema, tenantMessageSchema } from "@/lib/schemas/messages";
 import { useSendMessage } from "../api/send-message";
 import { ATTACHMENT_ACCEPT, addAttachments, sizeInWords } from "../lib/attachments";
+import { englishConversationWords, type AttachmentProblem, type ConversationWords } from "../lib/words";
 import type { Viewer } from "./message-thread";
 
 type Audience = "tenant" | "internal";
@@ -23,7 +24,16 @@ interface Errors {
 }
 
 /** Writes on the case: a tenant to the landlord (with photos), staff to the tenant or as an internal note. */
-export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer }) {
+export function ComposeBox({
+  caseId,
+  viewer,
+  words = englishConversationWords,
+}: {
+  caseId: number;
+  viewer: Viewer;
+  /** What the tenant reads (see ../lib/words.ts); staff always read English. */
+  words?: ConversationWords;
+}) {
   const send = useSendMessage(caseId);
   const formRef = useRef<HTMLFormElement>(null);
   const audienceRef = useRef<HTMLInputElement>(null);
@@ -32,7 +42,7 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
   const [audience, setAudience] = useState<Audience | "">("");
   const [body, setBody] = useState("");
   const [photos, setPhotos] = useState<File[]>([]);
-  const [refused, setRefused] = useState<{ name: string; reason: string }[]>([]);
+  const [refused, setRefused] = useState<{ name: string; problem: AttachmentProblem }[]>([]);
   const [errors, setErrors] = useState<Errors>({});
   const [done, setDone] = useState<string | null>(null);
   const staff = viewer === "staff";
@@ -49,7 +59,12 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
     const found: Errors = {};
     if (staff && !audience) found.audience = "Choose whether this goes to the tenant or stays with staff.";
     const parsed = staff ? staffMessageSchema.shape.body.safeParse(body) : tenantMessageSchema.shape.body.safeParse(body);
-    if (!parsed.success) found.body = parsed.error.issues[0]?.message ?? "Write the message.";
+    if (!parsed.success)
+      found.body = staff
+        ? (parsed.error.issues[0]?.message ?? "Write the message.")
+        : body.trim()
+          ? words.tooLong
+          : words.writeTheMessage;
     setErrors(found);
     if (found.audience) return audienceRef.current?.focus();
     if (found.body || !parsed.success) return bodyRef.current?.focus();
@@ -61,7 +76,7 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
             ? internal
               ? "Internal note added. Only staff can see it."
               : "Message sent to the tenant. It is on their case page, and an e-mail is on its way to them."
-            : `Message sent${photoCount ? ` with ${photoCount === 1 ? "1 photo" : `${photoCount} photos`}` : ""}. Your landlord has been e-mailed and will reply here.`,
+            : words.sent(photoCount),
         );
         setBody("");
         setAudience("");
@@ -80,7 +95,7 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
   };
 
   const buttonLabel = !staff
-    ? "Send to your landlord"
+    ? words.send
     : audience === "internal"
       ? "Add internal note"
       : audience === "tenant"
@@ -106,12 +121,8 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
       ) : null}
       <Textarea
         ref={bodyRef}
-        label={staff ? (audience === "internal" ? "Note" : "Message") : "Write to your landlord"}
-        hint={
-          staff
-            ? undefined
-            : "Ask a question or tell them what has changed. They get an e-mail and reply here. In an emergency, phone your landlord."
-        }
+        label={staff ? (audience === "internal" ? "Note" : "Message") : words.label}
+        hint={staff ? undefined : words.hint}
         rows={4}
         maxLength={MESSAGE_MAX_LENGTH}
         value={body}
@@ -126,11 +137,10 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
       {staff ? null : (
         <div className="flex flex-col gap-2">
           <label htmlFor={fileId} className="font-semibold text-ink">
-            Photos <span className="font-normal text-ink-soft">(optional)</span>
+            {words.photos} <span className="font-normal text-ink-soft">{words.optional}</span>
           </label>
           <p id={`${fileId}-hint`} className="text-sm text-ink-soft">
-            JPEG, PNG, WebP or AVIF, up to 15 MB each, {MESSAGE_MAX_PHOTOS} at most. They are added to your report&apos;s photos
-            too.
+            {words.photosHint(MESSAGE_MAX_PHOTOS)}
           </p>
           <input
             id={fileId}
@@ -155,15 +165,14 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
           />
           {refused.length ? (
             <div id={`${fileId}-refused`}>
-              <Alert
-                tone="warning"
-                live="alert"
-                title={refused.length === 1 ? "1 file was left out" : `${refused.length} files were left out`}
-              >
+              <Alert tone="warning" live="alert" title={words.refusedTitle(refused.length)}>
                 <ul className="list-disc space-y-1 pl-5">
                   {refused.map((r, i) => (
                     <li key={`${r.name}-${i}`}>
-                      <span className="font-semibold break-all">{r.name}</span>: {r.reason}
+                      <span className="font-semibold break-all" translate="no">
+                        {r.name}
+                      </span>
+                      : {words.problem(r.problem)}
                     </li>
                   ))}
                 </ul>
@@ -171,11 +180,15 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
             </div>
           ) : null}
           {photos.length ? (
-            <ul aria-label="Photos to send with the message" className="flex flex-col gap-1">
+            <ul aria-label={words.chosenLabel} className="flex flex-col gap-1">
               {photos.map((file, i) => (
                 <li key={`${file.name}-${file.size}-${file.lastModified}`} className="flex flex-wrap items-center gap-2 text-sm">
-                  <span className="min-w-0 break-all">{file.name}</span>
-                  <span className="text-ink-soft">{sizeInWords(file.size)}</span>
+                  <span className="min-w-0 break-all" translate="no">
+                    {file.name}
+                  </span>
+                  <span className="text-ink-soft" translate="no">
+                    {sizeInWords(file.size)}
+                  </span>
                   <Button
                     type="button"
                     variant="ghost"
@@ -183,7 +196,11 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
                     disabled={send.isPending}
                     onClick={() => setPhotos((list) => list.filter((_, j) => j !== i))}
                   >
-                    Remove<span className="sr-only"> {file.name}</span>
+                    {words.remove}
+                    <span className="sr-only" translate="no">
+                      {" "}
+                      {file.name}
+                    </span>
                   </Button>
                 </li>
               ))}
@@ -192,8 +209,8 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
         </div>
       )}
       {send.isError ? (
-        <Alert tone="danger" title="This was not sent">
-          {errorMessage(send.error)}
+        <Alert tone="danger" title={staff ? "This was not sent" : words.notSent}>
+          <span translate="no">{errorMessage(send.error)}</span>
         </Alert>
       ) : null}
       {done ? <Alert tone="success">{done}</Alert> : null}
@@ -201,7 +218,7 @@ export function ComposeBox({ caseId, viewer }: { caseId: number; viewer: Viewer 
         <Button type="submit" busy={send.isPending}>
           {buttonLabel}
         </Button>
-        <span className="text-sm text-ink-soft">Ctrl + Enter also sends.</span>
+        <span className="text-sm text-ink-soft">{staff ? "Ctrl + Enter also sends." : words.ctrlEnter}</span>
       </div>
     </form>
   );

@@ -1,8 +1,10 @@
+import type { ReactNode } from "react";
 import { EmptyState } from "@/components/ui/empty-state";
 import { cn } from "@/lib/cn";
 import type { ConversationMessage } from "@/lib/contracts";
 import { formatDateTime } from "@/lib/dates";
 import { isRole, roleLabels } from "@/lib/roles";
+import { englishConversationWords, type ConversationWords } from "../lib/words";
 
 export type Viewer = "tenant" | "staff";
 
@@ -11,15 +13,24 @@ interface MessageThreadProps {
   viewer: Viewer;
   /** Messages from the other side with a higher id were not read when the conversation was opened. */
   readUpToAtOpen: number;
+  /** What the tenant reads (see ../lib/words.ts). */
+  words?: ConversationWords;
 }
 
 const roleWords = (role: string) => (isRole(role) ? roleLabels[role] : role);
 
 /** Who wrote a message, in the words of the person reading. */
-function authorOf(m: ConversationMessage, viewer: Viewer): string {
+function authorOf(m: ConversationMessage, viewer: Viewer, words: ConversationWords): ReactNode {
+  if (viewer === "tenant") {
+    if (m.mine) return words.you;
+    if (!m.author) return words.yourLandlord;
+    if (m.author.role === "tenant") return <span translate="no">{m.author.name}</span>;
+    // The name is data; the role is words (the pseudo-locale marks the whole line as translated).
+    return words.staffAuthor(m.author.name, m.author.role);
+  }
   if (m.mine) return "You";
-  if (!m.author) return viewer === "tenant" ? "Your landlord" : "Dewline";
-  if (m.author.role === "tenant") return viewer === "staff" ? `${m.author.name} (tenant)` : m.author.name;
+  if (!m.author) return "Dewline";
+  if (m.author.role === "tenant") return `${m.author.name} (tenant)`;
   return `${m.author.name}, ${roleWords(m.author.role)}`;
 }
 
@@ -28,18 +39,19 @@ const fromOtherSide = (m: ConversationMessage, viewer: Viewer) =>
   viewer === "staff" ? m.kind === "from-tenant" : m.kind === "to-tenant" || m.kind === "summary";
 
 /** The conversation, oldest first: each side's messages on its own side, internal notes marked as staff only. */
-export function MessageThread({ messages, viewer, readUpToAtOpen }: MessageThreadProps) {
+export function MessageThread({ messages, viewer, readUpToAtOpen, words = englishConversationWords }: MessageThreadProps) {
+  const tenant = viewer === "tenant";
   if (messages.length === 0) {
     return (
-      <EmptyState title="No messages yet">
-        {viewer === "tenant"
-          ? "Write to your landlord below. Their replies will appear here, and you will get an e-mail too."
+      <EmptyState title={tenant ? words.emptyTitle : "No messages yet"}>
+        {tenant
+          ? words.emptyBody
           : "Nothing has been written on this case yet. A message to the tenant is e-mailed to them; an internal note stays with staff."}
       </EmptyState>
     );
   }
   return (
-    <ol aria-label="Messages, oldest first" className="flex flex-col gap-3">
+    <ol aria-label={tenant ? words.listLabel : "Messages, oldest first"} className="flex flex-col gap-3">
       {messages.map((m) => {
         const isNew = fromOtherSide(m, viewer) && m.id > readUpToAtOpen;
         const headingId = `message-${m.id}-from`;
@@ -59,21 +71,29 @@ export function MessageThread({ messages, viewer, readUpToAtOpen }: MessageThrea
             >
               <header className="flex flex-wrap items-baseline gap-x-2 gap-y-1 text-sm">
                 <h3 id={headingId} className="font-semibold text-ink">
-                  {authorOf(m, viewer)}
-                  {m.kind === "summary" ? <span className="font-normal">: the written summary</span> : null}
+                  {authorOf(m, viewer, words)}
+                  {m.kind === "summary" ? (
+                    <span className="font-normal">{tenant ? words.summarySuffix : ": the written summary"}</span>
+                  ) : null}
                 </h3>
                 <time dateTime={m.at} className="text-ink-soft">
-                  {formatDateTime(m.at)}
+                  {tenant ? words.at(m.at) : formatDateTime(m.at)}
                 </time>
-                {isNew ? <span className="rounded-pill bg-dew-700 px-2 text-xs font-bold text-white">New</span> : null}
+                {isNew ? (
+                  <span className="rounded-pill bg-dew-700 px-2 text-xs font-bold text-white">
+                    {tenant ? words.newTag : "New"}
+                  </span>
+                ) : null}
                 {m.kind === "internal-note" ? (
                   <span className="rounded-pill border border-ember-400 px-2 text-xs font-bold text-ember-800">
                     Internal note, staff only
                   </span>
                 ) : null}
               </header>
-              <p className="mt-1 break-words whitespace-pre-line text-ink">{m.body}</p>
-              {m.photos.length ? <MessagePhotos photos={m.photos} /> : null}
+              <p className="mt-1 break-words whitespace-pre-line text-ink" translate="no">
+                {m.body}
+              </p>
+              {m.photos.length ? <MessagePhotos photos={m.photos} words={words} /> : null}
               {viewer === "staff" ? <ReadReceipt message={m} /> : null}
             </article>
           </li>
@@ -83,15 +103,15 @@ export function MessageThread({ messages, viewer, readUpToAtOpen }: MessageThrea
   );
 }
 
-function MessagePhotos({ photos }: { photos: ConversationMessage["photos"] }) {
+function MessagePhotos({ photos, words }: { photos: ConversationMessage["photos"]; words: ConversationWords }) {
   return (
-    <ul aria-label="Photos sent with this message" className="mt-2 flex flex-wrap gap-2">
+    <ul aria-label={words.photosLabel} className="mt-2 flex flex-wrap gap-2">
       {photos.map((p, i) => (
         <li key={p.id}>
           <a href={p.url} target="_blank" rel="noreferrer" className="block rounded-sm focus-visible:outline-3">
             <img
               src={p.thumbnailUrl}
-              alt={`Attachment ${i + 1} of ${photos.length} (opens full size)`}
+              alt={words.photoAlt(i + 1, photos.length)}
               className="size-24 rounded-sm border border-line bg-paper object-cover"
               loading="lazy"
             />
