@@ -1,10 +1,15 @@
 // The condensation outlook card on the tenant's home page: levels said in words (the shape and colour
 // only repeat them), the tips and the usual cautions, and a plain note when there is no forecast.
 import { screen, within } from "@testing-library/react";
-import { beforeEach, describe, expect, it } from "vitest";
+import { IntlMessageFormat } from "intl-messageformat";
+import { afterEach, beforeEach, describe, expect, it } from "vitest";
 import { clearCsrfToken } from "@/lib/api-client";
 import type { OutlookResponse } from "@/lib/contracts";
-import { OUTLOOK_CAUTIONS } from "@/lib/domain/condensation-outlook";
+import { OUTLOOK_CAUTIONS, OUTLOOK_METHOD, outlookTips } from "@/lib/domain/condensation-outlook";
+import { getBuildingElement } from "@/lib/domain/surface";
+import { i18n, showLanguage } from "@/lib/i18n/i18n";
+import { rememberChoice } from "@/lib/i18n/choice";
+import { PSEUDO_CLOSE, PSEUDO_OPEN } from "@/lib/i18n/pseudo";
 import { makeProperty, mockApi, users } from "./support/api-mock";
 import { renderApp } from "./support/render-app";
 
@@ -58,16 +63,14 @@ const outlook: OutlookResponse = {
       hours: [],
     },
   ],
-  tips: [
-    { id: "trickle-vents", text: "Keep the trickle vents at the top of your windows open.", basis: "common practice, no source" },
-    {
-      id: "steady-heating",
-      text: "Cold weather is forecast: keep the heating on steady and low.",
-      basis: "common practice, no source",
-    },
-  ],
+  tips: outlookTips({
+    days: [day(dates[2]!, "likely", 7, 3)],
+    surface: getBuildingElement("corner-thermal-bridge"),
+    wall: getBuildingElement("solid-wall"),
+    forecast: true,
+  }).map((tip) => ({ ...tip })),
   cautions: OUTLOOK_CAUTIONS.map((c) => ({ ...c })),
-  method: ["Surface temperature = outdoor + fRsi × (indoor − outdoor) (ISO 13788)."],
+  method: OUTLOOK_METHOD.map((m) => ({ ...m })),
 };
 
 function render(reply: OutlookResponse) {
@@ -112,7 +115,9 @@ describe("the condensation outlook card", () => {
     render(outlook);
     const tips = await screen.findByRole("region", { name: "What helps" });
     expect(within(tips).getByText(/trickle vents/)).toBeInTheDocument();
-    expect(within(tips).getAllByText(/Basis: common practice, no source/)).toHaveLength(2);
+    expect(within(tips).getByText(/for about 15 to 20 minutes after/)).toBeInTheDocument();
+    expect(within(tips).getByText(/about 5 cm/)).toBeInTheDocument();
+    expect(within(tips).getAllByText(/Basis: common practice, no source/)).toHaveLength(outlook.tips.length);
     const cautions = screen.getByRole("region", { name: "Please keep in mind" });
     expect(within(cautions).getByText(/Never use a gas oven or hob/)).toBeInTheDocument();
     expect(within(cautions).getByText(/Do not block air bricks/)).toBeInTheDocument();
@@ -132,5 +137,94 @@ describe("the condensation outlook card", () => {
     expect(within(card).getByText(/location is not on our records yet/)).toBeInTheDocument();
     expect(within(card).queryByRole("table")).not.toBeInTheDocument();
     expect(within(card).getByRole("region", { name: "Please keep in mind" })).toBeInTheDocument();
+  });
+
+  it("shows how the outlook is worked out, with the levels' figures", async () => {
+    render(outlook);
+    const card = await screen.findByRole("region", { name: /Condensation outlook/ });
+    const method = within(card).getByText("How we work this out").closest("details")!;
+    expect(within(method).getAllByRole("listitem", { hidden: true })).toHaveLength(OUTLOOK_METHOD.length);
+    expect(method).toHaveTextContent(
+      "possible with any such hour or 4 or more hours at 80 % surface humidity or above; unlikely otherwise.",
+    );
+  });
+});
+
+/** Text nodes under `root` with Latin words outside ⟦ ⟧ and outside translate="no": English that skipped translation. */
+function untranslated(root: Element): string[] {
+  const found: string[] = [];
+  const walker = document.createTreeWalker(root, NodeFilter.SHOW_TEXT);
+  for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+    const text = node.textContent ?? "";
+    if (node.parentElement?.closest('[translate="no"], script, style, title')) continue;
+    const outside = text.replace(new RegExp(`${PSEUDO_OPEN}[^${PSEUDO_CLOSE}]*${PSEUDO_CLOSE}`, "g"), "");
+    if (/[A-Za-z]{2,}/.test(outside)) found.push(text.trim());
+  }
+  return found;
+}
+
+describe("the condensation outlook card in other languages", () => {
+  beforeEach(() => {
+    clearCsrfToken();
+    window.localStorage.clear();
+  });
+  afterEach(async () => {
+    window.localStorage.clear();
+    await showLanguage("en");
+  });
+
+  it("gives the tips, cautions and method in Welsh, with the same figures and cautions", async () => {
+    rememberChoice("cy");
+    await showLanguage("cy");
+    render(outlook);
+    const card = await screen.findByRole("region", { name: /Rhagolwg anwedd/ });
+    const table = await within(card).findByRole("table", { name: "Y siawns o anwedd fesul ystafell a diwrnod" });
+    expect(within(table).getByRole("columnheader", { name: /Heddiw/ })).toBeInTheDocument();
+    expect(within(table).getByRole("columnheader", { name: /Yfory/ })).toBeInTheDocument();
+    expect(within(table).getByRole("columnheader", { name: /Dydd Mercher/ })).toBeInTheDocument();
+    expect(within(card).getByText(/rydyn ni wedi cymryd 18\.0 °C a lleithder 60 %/)).toBeInTheDocument();
+
+    const tips = within(card).getByRole("region", { name: "Beth sy’n helpu" });
+    expect(within(tips).getByText(/am tua 15 i 20 munud wedyn/)).toBeInTheDocument();
+    expect(within(tips).getByText(/tua 5 cm/)).toBeInTheDocument();
+    expect(within(tips).getAllByText(/Sail: arfer cyffredin, dim ffynhonnell/)).toHaveLength(outlook.tips.length);
+    const cautions = within(card).getByRole("region", { name: "Cofiwch" });
+    expect(within(cautions).getAllByRole("listitem")).toHaveLength(OUTLOOK_CAUTIONS.length);
+    // The safety cautions say the same in Welsh: no cooker or unflued heater for warmth, vents clear, report damp.
+    expect(within(cautions).getByText(/carbon monocsid/)).toBeInTheDocument();
+    expect(within(cautions).getByText(/Peidiwch â rhwystro briciau aer/)).toBeInTheDocument();
+    expect(within(cautions).getByText(/rhowch wybod i’ch landlord, beth bynnag/)).toBeInTheDocument();
+    expect(within(cautions).getByText(/GIG 111/)).toBeInTheDocument();
+    const method = within(card).getByText("Sut rydyn ni’n cyfrifo hyn").closest("details")!;
+    expect(method).toHaveTextContent("neu 4 awr neu fwy ar leithder arwyneb o 80 % neu uwch");
+    expect(card).not.toHaveTextContent(/trickle vents|Never use|common practice/);
+  });
+
+  it("leaves no English on the card in the pseudo-locale", async () => {
+    rememberChoice("en-XA");
+    await showLanguage("en-XA");
+    render(outlook);
+    const table = await screen.findByRole("table");
+    const card = table.closest("#home-outlook")!;
+    expect(untranslated(card)).toEqual([]);
+  });
+
+  it("says in English exactly what the domain says, so staff and tenants read the same words", async () => {
+    // The en-GB messages and the domain's English (shown to staff and sent by the API) are one wording.
+    const messages = i18n.getResourceBundle("en-GB", "home") as { outlook: Record<string, Record<string, string>> };
+    const lines = [
+      ...OUTLOOK_CAUTIONS.map((l) => ["advice", l] as const),
+      ...outlookTips({
+        days: [],
+        surface: getBuildingElement("single-glazing"),
+        wall: getBuildingElement("solid-wall"),
+        forecast: false,
+      }).map((l) => ["advice", l] as const),
+      ...outlook.tips.map((l) => ["advice", l] as const),
+      ...OUTLOOK_METHOD.map((l) => ["methodLines", l] as const),
+    ];
+    for (const [group, line] of lines) {
+      expect(new IntlMessageFormat(messages.outlook[group]![line.id]!, "en-GB").format(line.values)).toBe(line.text);
+    }
   });
 });

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { reasonInEnglish } from "../../src/lib/domain/point.js";
 import { evaluatePoint } from "../../src/lib/domain/index.js";
 
 describe("evaluatePoint", () => {
@@ -11,6 +12,7 @@ describe("evaluatePoint", () => {
         "dewPointC",
         "frostPointC",
         "humidityRatio",
+        "reasonIds",
         "reasons",
         "saturationVapourPressurePa",
         "surface",
@@ -75,6 +77,18 @@ describe("evaluatePoint", () => {
     expect(r.surface.state).toBe("condensing");
     expect(r.reasons.some((s) => s.includes("estimated at 9.5 °C"))).toBe(true);
     expect(r.reasons.some((s) => s.includes("below the 0.75 that BRE IP 1/06 sets"))).toBe(true);
+    // The same reasons by id, with the figures as shown, and the English is their rendering.
+    expect(r.reasonIds.map((x) => x.id)).toEqual(["estimated", "dew", "factor-typical"]);
+    expect(r.reasonIds[0]!.values).toMatchObject({
+      noun: "wall",
+      element: "solid-wall",
+      surface: 9.5,
+      air: 20,
+      outdoor: 0,
+      factor: 0.48,
+    });
+    expect(r.reasonIds[2]!.values).toEqual({ element: "solid-wall", factor: 0.48, critical: 0.75 });
+    expect(r.reasonIds.map(reasonInEnglish)).toEqual(r.reasons);
   });
 
   it("says the corner figure is our own assumption", () => {

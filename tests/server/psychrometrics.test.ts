@@ -28,6 +28,7 @@ describe("POST /api/psychrometrics/evaluate", () => {
         "dewPointC",
         "frostPointC",
         "humidityRatio",
+        "reasonIds",
         "reasons",
         "saturationVapourPressurePa",
         "surface",

@@ -36,8 +36,8 @@ export function toOutlookDto(o: HomeOutlook): z.input<typeof outlookResponse> {
         surfaceRelativeHumidityPct: round(h.surfaceRelativeHumidityPct, 1),
       })),
     })),
-    tips: o.tips.map((t) => ({ ...t })),
-    cautions: o.cautions.map((c) => ({ ...c })),
-    method: o.method,
+    tips: o.tips.map((t) => ({ ...t, values: { ...t.values } })),
+    cautions: o.cautions.map((c) => ({ ...c, values: { ...c.values } })),
+    method: o.method.map((m) => ({ ...m, values: { ...m.values } })),
   };
 }

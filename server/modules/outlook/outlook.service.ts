@@ -7,6 +7,7 @@ import type { Logger } from "../../lib/logger.js";
 import { DEFAULT_TIME_ZONE } from "../../../src/lib/domain/time-zone.js";
 import {
   OUTLOOK_CAUTIONS,
+  OUTLOOK_METHOD,
   assumedIndoorConditions,
   coldestSurface,
   outlookDates,
@@ -16,6 +17,7 @@ import {
   type IndoorConditions,
   type OutdoorForecastHour,
   type OutlookAdvice,
+  type OutlookLine,
   type RoomOutlook,
 } from "../../../src/lib/domain/condensation-outlook.js";
 import { getBuildingElement, type BuildingElement } from "../../../src/lib/domain/surface.js";
@@ -53,7 +55,7 @@ export interface HomeOutlook {
   rooms: { room: Room; indoor: IndoorConditions; outlook: RoomOutlook }[];
   tips: OutlookAdvice[];
   cautions: readonly OutlookAdvice[];
-  method: string[];
+  method: readonly OutlookLine[];
 }
 
 export class OutlookService {
@@ -114,14 +116,7 @@ export class OutlookService {
       rooms,
       tips: outlookTips({ days: rooms.flatMap((r) => r.outlook.days), surface, wall, forecast: forecastAvailable }),
       cautions: OUTLOOK_CAUTIONS,
-      method: [
-        "The coldest surface of the home is estimated from the outdoor forecast by ISO 13788: " +
-          "surface temperature = outdoor + fRsi × (indoor − outdoor), with fRsi from its walls and windows.",
-        "The surface humidity is the room air's water vapour over what the air can hold at that surface temperature.",
-        "Each room's indoor temperature and humidity are taken to stay as they are for the three days (our assumption).",
-        "Levels are our own: condensation likely with 2 or more hours at the dew point in a day; possible with any " +
-          "such hour or 4 or more hours at 80 % surface humidity or above; unlikely otherwise.",
-      ],
+      method: OUTLOOK_METHOD,
     };
   }
 

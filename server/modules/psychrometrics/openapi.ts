@@ -2,6 +2,7 @@
 // zod schemas the routes validate with, so the document cannot drift from the checks.
 import { z } from "zod";
 import { ELEMENT_IDS, MATERIAL_SENSITIVITIES, SURFACE_STATES } from "../../../src/lib/domain/index.js";
+import { POINT_REASON_IDS } from "../../../src/lib/domain/point.js";
 import { evaluatePointSchema, evaluateSeriesSchema, MAX_SERIES_READINGS } from "../../../src/lib/schemas/psychrometrics.js";
 
 const num = (description: string) => ({ type: "number", description });
@@ -32,6 +33,7 @@ const pointResult = {
     "humidityRatio",
     "surface",
     "reasons",
+    "reasonIds",
   ],
   properties: {
     dewPointC: num(
@@ -66,6 +68,18 @@ const pointResult = {
       },
     },
     reasons: { type: "array", items: { type: "string" }, description: "The result in plain words, with numbers." },
+    reasonIds: {
+      type: "array",
+      description: "The same reasons by id, with their figures (numbers) and word ids (strings), for translation.",
+      items: {
+        type: "object",
+        required: ["id", "values"],
+        properties: {
+          id: { type: "string", enum: POINT_REASON_IDS },
+          values: { type: "object", additionalProperties: { oneOf: [{ type: "number" }, { type: "string" }] } },
+        },
+      },
+    },
   },
 };
 

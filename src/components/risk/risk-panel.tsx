@@ -7,6 +7,7 @@ import {
   BORDERLINE_SURFACE_RH_PCT,
   CRITICAL_TEMPERATURE_FACTOR,
   MOULD_SURFACE_RH_PCT,
+  type PointReason,
   type PointResult,
   type SurfaceResult,
   type SurfaceState,
@@ -126,12 +127,12 @@ export function RiskPanel({ result, title, headingLevel = 2, compact = false, cl
         compact ? (
           <details className="text-sm">
             <summary className="cursor-pointer rounded-sm font-semibold text-dew-700">{t("panel.why")}</summary>
-            <Reasons reasons={result.reasons} />
+            <Reasons result={result} />
           </details>
         ) : (
           <div>
             <p className="font-bold">{t("panel.why")}</p>
-            <Reasons reasons={result.reasons} />
+            <Reasons result={result} />
           </div>
         )
       ) : null}
@@ -151,7 +152,23 @@ function Figure({ term, value, children }: { term: string; value: string; childr
   );
 }
 
-function Reasons({ reasons }: { reasons: readonly string[] }) {
+/**
+ * A reason in the reader's language, by its id: the word ids among its values (the surface's noun, the
+ * building element) are said first, then put in the sentence with its figures.
+ */
+export function reasonIn(t: TFunction, reason: PointReason): string {
+  const { noun, element, ...values } = reason.values;
+  return t(`risk:reason.${reason.id}`, {
+    ...values,
+    subject: t(`risk:reason.subject.${noun ?? "none"}`),
+    phrase: t(`risk:reason.phrase.${element ?? "none"}`),
+  });
+}
+
+function Reasons({ result }: { result: PointResult }) {
+  const { t } = useTranslation("risk", { i18n });
+  // A result from an older server without ids keeps its English reasons.
+  const reasons = result.reasonIds ? result.reasonIds.map((r) => reasonIn(t, r)) : result.reasons;
   return (
     <ul className="mt-1 list-disc space-y-1 pl-5">
       {reasons.map((reason) => (

@@ -3,12 +3,20 @@
 import { z } from "zod";
 import { ROOM_KINDS } from "../homes.js";
 import { ELEMENT_IDS } from "../domain/surface.js";
-import { OUTLOOK_LEVELS } from "../domain/condensation-outlook.js";
+import { ADVICE_BASES, OUTLOOK_LEVELS, type AdviceBasisId } from "../domain/condensation-outlook.js";
 import { calendarDate, id, instant } from "./common.js";
+
+const ADVICE_BASIS_IDS = Object.keys(ADVICE_BASES) as [AdviceBasisId, ...AdviceBasisId[]];
 
 export const INDOOR_SOURCES = ["sensor", "case-readings", "assumed"] as const;
 
-const advice = z.object({ id: z.string(), text: z.string(), basis: z.string() });
+/**
+ * A tip, caution or method line: `text` in English; a tenant screen says it by `id` (home namespace,
+ * outlook.advice / outlook.methodLines) with `values` as ICU arguments, falling back to `text`.
+ */
+const line = z.object({ id: z.string(), text: z.string(), values: z.record(z.string(), z.number()) });
+export type OutlookLineResponse = z.infer<typeof line>;
+const advice = line.extend({ basis: z.string(), basisId: z.enum(ADVICE_BASIS_IDS) });
 export type OutlookAdviceResponse = z.infer<typeof advice>;
 
 export const outlookDayResponse = z.object({
@@ -59,6 +67,6 @@ export const outlookResponse = z.object({
   tips: z.array(advice),
   cautions: z.array(advice),
   /** How the figures were worked out, in plain words (the method and our assumptions). */
-  method: z.array(z.string()),
+  method: z.array(line),
 });
 export type OutlookResponse = z.infer<typeof outlookResponse>;

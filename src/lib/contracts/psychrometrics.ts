@@ -2,6 +2,7 @@
 import { z } from "zod";
 import type { PointResult, SeriesResult } from "../domain/index.js";
 import type { BeforeAfter } from "../domain/verification.js";
+import { POINT_REASON_IDS } from "../domain/point.js";
 
 export const SURFACE_STATES = ["dry", "borderline", "mould-risk", "condensing"] as const;
 export const surfaceState = z.enum(SURFACE_STATES);
@@ -32,6 +33,8 @@ export const pointResult = z.object({
     state: surfaceState,
   }),
   reasons: z.array(z.string()),
+  /** The same reasons by id and values, for a tenant screen to say in the reader's language. */
+  reasonIds: z.array(z.object({ id: z.enum(POINT_REASON_IDS), values: z.record(z.string(), z.union([z.number(), z.string()])) })),
 });
 
 /** POST /api/psychrometrics/series, and each room's series in a case's evaluation. */

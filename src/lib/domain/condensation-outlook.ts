@@ -182,47 +182,76 @@ export function roomOutlook(input: RoomOutlookInput): RoomOutlook {
 
 export const NO_SOURCE = "common practice, no source";
 
-export interface OutlookAdvice {
+/** The ids of the sources behind the advice, so a screen can say each in the reader's language. */
+export const ADVICE_BASES = {
+  "common-practice": NO_SOURCE,
+  "gas-safety": "from memory (gas safety and carbon monoxide guidance)",
+  "damp-health-guidance": "from memory (UK government guidance on the health risks of damp and mould, 2023)",
+} as const;
+export type AdviceBasisId = keyof typeof ADVICE_BASES;
+
+/**
+ * One tip, caution or method line. `text` is the English (staff screens, e-mails, the API); a tenant
+ * screen says it by `id` in the reader's language, with `values` (the figures in it) as ICU arguments.
+ */
+export interface OutlookLine {
   id: string;
   text: string;
+  values: Record<string, number>;
+}
+
+export interface OutlookAdvice extends OutlookLine {
   /** Where the advice comes from: a named source, "from memory", or NO_SOURCE. */
   basis: string;
+  basisId: AdviceBasisId;
 }
+
+const COMMON = { basis: NO_SOURCE, basisId: "common-practice" } as const;
+
+/** Ours (common practice): how long fans run after cooking or a shower, and the gap behind furniture. */
+export const FAN_RUN_ON_MINUTES = { from: 15, to: 20 } as const;
+export const FURNITURE_GAP_CM = 5;
 
 const TIPS = {
   "trickle-vents": {
     id: "trickle-vents",
     text: "Keep the trickle vents at the top of your windows open, day and night, if your windows have them.",
-    basis: NO_SOURCE,
+    values: {},
+    ...COMMON,
   },
   "extract-fans": {
     id: "extract-fans",
     text:
-      "Run the extractor fans while cooking and showering, and for about 15 to 20 minutes after; " +
-      "keep pan lids on and the kitchen or bathroom door closed while you do.",
-    basis: NO_SOURCE,
+      `Run the extractor fans while cooking and showering, and for about ${FAN_RUN_ON_MINUTES.from} to ` +
+      `${FAN_RUN_ON_MINUTES.to} minutes after; keep pan lids on and the kitchen or bathroom door closed while you do.`,
+    values: { from: FAN_RUN_ON_MINUTES.from, to: FAN_RUN_ON_MINUTES.to },
+    ...COMMON,
   },
   "steady-heating": {
     id: "steady-heating",
     text:
       "Cold weather is forecast: if you can, keep the heating on steady and low through the day rather than " +
       "off and then high. Walls and windows stay warmer, so less water settles on them.",
-    basis: NO_SOURCE,
+    values: {},
+    ...COMMON,
   },
   "furniture-off-walls": {
     id: "furniture-off-walls",
-    text: "Leave a small gap (about 5 cm) between large furniture and the outside walls so air can reach them.",
-    basis: NO_SOURCE,
+    text: `Leave a small gap (about ${FURNITURE_GAP_CM} cm) between large furniture and the outside walls so air can reach them.`,
+    values: { gap: FURNITURE_GAP_CM },
+    ...COMMON,
   },
   "wipe-windows": {
     id: "wipe-windows",
     text: "In the morning, wipe any water off windows and sills with a cloth and wring it out in the sink.",
-    basis: NO_SOURCE,
+    values: {},
+    ...COMMON,
   },
   "keep-airing": {
     id: "keep-airing",
     text: "Little condensation is expected: keeping trickle vents open and fans on while cooking and showering helps it stay that way.",
-    basis: NO_SOURCE,
+    values: {},
+    ...COMMON,
   },
 } as const satisfies Record<string, OutlookAdvice>;
 
@@ -233,33 +262,69 @@ export const OUTLOOK_CAUTIONS: readonly OutlookAdvice[] = [
     text:
       "If you see damp or mould, report it to your landlord, whatever this outlook says. Finding the cause " +
       "and putting it right is their job, and this outlook is only an estimate.",
-    basis: NO_SOURCE,
+    values: {},
+    ...COMMON,
   },
   {
     id: "no-cooker-heating",
     text:
       "Never use a gas oven or hob, or a paraffin or bottled-gas heater without a flue, to warm your home: " +
       "they can give off carbon monoxide and they add moisture to the air.",
-    basis: "from memory (gas safety and carbon monoxide guidance)",
+    values: {},
+    basis: ADVICE_BASES["gas-safety"],
+    basisId: "gas-safety",
   },
   {
     id: "keep-vents-clear",
     text: "Do not block air bricks, vents or trickle vents, even when it is cold.",
-    basis: NO_SOURCE,
+    values: {},
+    ...COMMON,
   },
   {
     id: "qualified-trades",
     text:
       "If a fan, vent or heater does not work, tell your landlord rather than repairing it yourself: " +
       "gas and electrical work is for qualified trades.",
-    basis: NO_SOURCE,
+    values: {},
+    ...COMMON,
   },
   {
     id: "health-advice",
     text:
       "If anyone at home has asthma or other breathing problems, or a weakened immune system, and there is damp " +
       "or mould, seek health advice (your GP or NHS 111).",
-    basis: "from memory (UK government guidance on the health risks of damp and mould, 2023)",
+    values: {},
+    basis: ADVICE_BASES["damp-health-guidance"],
+    basisId: "damp-health-guidance",
+  },
+];
+
+/** How the outlook is worked out, in plain words: the method and our assumptions, with their figures. */
+export const OUTLOOK_METHOD: readonly OutlookLine[] = [
+  {
+    id: "surface-temperature",
+    text:
+      "The coldest surface of the home is estimated from the outdoor forecast by ISO 13788: " +
+      "surface temperature = outdoor + fRsi × (indoor − outdoor), with fRsi from its walls and windows.",
+    values: {},
+  },
+  {
+    id: "surface-humidity",
+    text: "The surface humidity is the room air's water vapour over what the air can hold at that surface temperature.",
+    values: {},
+  },
+  {
+    id: "indoor-steady",
+    text: "Each room's indoor temperature and humidity are taken to stay as they are for the three days (our assumption).",
+    values: {},
+  },
+  {
+    id: "levels",
+    text:
+      `Levels are our own: condensation likely with ${LIKELY_CONDENSING_HOURS} or more hours at the dew point in a day; ` +
+      `possible with any such hour or ${POSSIBLE_HOURS_AT_80} or more hours at ${MOULD_SURFACE_RH_PCT} % surface ` +
+      "humidity or above; unlikely otherwise.",
+    values: { likelyHours: LIKELY_CONDENSING_HOURS, possibleHours: POSSIBLE_HOURS_AT_80, mould: MOULD_SURFACE_RH_PCT },
   },
 ];
 

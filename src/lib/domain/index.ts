@@ -69,7 +69,8 @@ export {
   moistureLoadClass,
 } from "./moisture-load.js";
 export { evaluatePoint } from "./point.js";
-export type { PointInput, PointResult, SurfaceResult, SurfaceSource } from "./point.js";
+export type { PointInput, PointReason, PointReasonId, PointResult, SurfaceResult, SurfaceSource } from "./point.js";
+export { POINT_REASON_IDS, reasonInEnglish } from "./point.js";
 export {
   MAX_INTEGRATION_GAP_HOURS,
   MIN_WINDOW_COVER_DAYS,

@@ -3,8 +3,9 @@ import { Alert } from "@/components/ui/alert";
 import { Panel } from "@/components/ui/card";
 import { LoadingState } from "@/components/ui/spinner";
 import { errorMessage } from "@/lib/api-client";
-import type { OutlookAdviceResponse, OutlookDayResponse, OutlookRoomResponse } from "@/lib/contracts";
-import { formatCalendarLong, formatForTenant } from "@/lib/dates";
+import type { OutlookAdviceResponse, OutlookDayResponse, OutlookLineResponse, OutlookRoomResponse } from "@/lib/contracts";
+import type { TFunction } from "i18next";
+import { formatDateIn } from "@/lib/dates";
 import { fixed } from "@/lib/domain/wording";
 import { cn } from "@/lib/cn";
 import { useMyOutlook, type Outlook } from "../api/get-my-outlook";
@@ -41,7 +42,8 @@ export function CondensationOutlookCard() {
 }
 
 export function OutlookBody({ outlook }: { outlook: Outlook }) {
-  const { t } = useTranslation("home");
+  // The risk namespace names the surface (its building elements).
+  const { t } = useTranslation(["home", "risk"]);
   return (
     <div className="flex flex-col gap-4">
       {!outlook.forecastAvailable ? (
@@ -52,7 +54,11 @@ export function OutlookBody({ outlook }: { outlook: Outlook }) {
         <p className="text-ink-soft">{t("outlook.noRooms")}</p>
       ) : (
         <>
-          <p className="text-sm text-ink-soft">{t("outlook.intro", { surface: outlook.surface.label.toLowerCase() })}</p>
+          <p className="text-sm text-ink-soft">
+            {t("outlook.intro", {
+              surface: t(`risk:element.${outlook.surface.elementId}`, { defaultValue: outlook.surface.label }).toLowerCase(),
+            })}
+          </p>
           <OutlookTable outlook={outlook} />
           <IndoorNotes rooms={outlook.rooms} />
         </>
@@ -65,7 +71,7 @@ export function OutlookBody({ outlook }: { outlook: Outlook }) {
         <summary className="cursor-pointer font-semibold text-ink">{t("outlook.method")}</summary>
         <ul className="mt-2 list-disc space-y-1 pl-5">
           {outlook.method.map((line) => (
-            <li key={line}>{line}</li>
+            <li key={line.id}>{lineIn(t, "methodLines", line)}</li>
           ))}
         </ul>
       </details>
@@ -73,12 +79,25 @@ export function OutlookBody({ outlook }: { outlook: Outlook }) {
   );
 }
 
-function dayHeading(date: string, index: number): string {
-  return index === 0 ? "Today" : index === 1 ? "Tomorrow" : formatCalendarLong(date, false).split(" ")[0]!;
+/**
+ * A tip, caution or method line in the reader's language, by its id, with its figures as ICU
+ * arguments; a line this screen does not know yet (a newer server) shows the English it came with.
+ */
+function lineIn(t: TFunction, group: "advice" | "methodLines", line: OutlookLineResponse): string {
+  return t(`home:outlook.${group}.${line.id}`, { ...line.values, defaultValue: line.text });
+}
+
+/** Intl's locale for the reader's language (the pseudo-locales read as English). */
+const localeOf = (lng: string) => (lng === "cy" ? "cy" : "en-GB");
+
+/** "Wednesday" (or "Dydd Mercher") for a calendar date, YYYY-MM-DD. */
+function weekdayIn(locale: string, date: string): string {
+  return new Intl.DateTimeFormat(locale, { weekday: "long", timeZone: "UTC" }).format(new Date(`${date}T00:00:00Z`));
 }
 
 function OutlookTable({ outlook }: { outlook: Outlook }) {
-  const { t } = useTranslation("home");
+  const { t, i18n } = useTranslation("home");
+  const locale = localeOf(i18n.language);
   return (
     <div className="overflow-x-auto">
       <table className="w-full border-collapse text-left">
@@ -90,8 +109,10 @@ function OutlookTable({ outlook }: { outlook: Outlook }) {
             </th>
             {outlook.dates.map((date, i) => (
               <th key={date} scope="col" className="py-2 pr-3 text-sm font-semibold">
-                {dayHeading(date, i)}
-                <span className="block font-normal text-ink-soft">{formatCalendarLong(date, false)}</span>
+                {i === 0 ? t("outlook.today") : i === 1 ? t("outlook.tomorrow") : t("date", { when: weekdayIn(locale, date) })}
+                <span className="block font-normal text-ink-soft">
+                  {t("date", { when: formatDateIn(i18n.language, date, "longDayNoYear") })}
+                </span>
               </th>
             ))}
           </tr>
@@ -140,18 +161,24 @@ function DayCell({ day }: { day: OutlookDayResponse | undefined }) {
 }
 
 function IndoorNotes({ rooms }: { rooms: OutlookRoomResponse[] }) {
+  const { t, i18n } = useTranslation("home");
   return (
     <ul className="space-y-1 text-sm text-ink-soft">
       {rooms.map((room) => {
-        const figures = `${fixed(room.indoor.airTemperatureC, 1)} °C and ${fixed(room.indoor.relativeHumidityPct, 0)} % humidity`;
+        const figures = {
+          temperature: fixed(room.indoor.airTemperatureC, 1),
+          humidity: fixed(room.indoor.relativeHumidityPct, 0),
+        };
         return (
           <li key={room.roomId}>
-            <span className="font-semibold text-ink">{room.name}:</span>{" "}
+            <span className="font-semibold text-ink" translate="no">
+              {room.name}:
+            </span>{" "}
             {room.indoor.source === "sensor"
-              ? `from the sensor in the room (${figures}).`
+              ? t("outlook.fromSensor", figures)
               : room.indoor.source === "case-readings"
-                ? `from the readings taken for your report, ${formatForTenant(room.indoor.takenAt)} (${figures}).`
-                : `we have no recent readings, so we assumed ${figures}.`}
+                ? t("outlook.fromReadings", { ...figures, when: formatDateIn(i18n.language, room.indoor.takenAt, "dateTime") })
+                : t("outlook.assumed", figures)}
           </li>
         );
       })}
@@ -169,7 +196,10 @@ function AdviceList({ title, items, id }: { title: string; items: OutlookAdviceR
       <ul className="list-disc space-y-2 pl-5">
         {items.map((item) => (
           <li key={item.id}>
-            {item.text} <span className="text-xs text-ink-soft">{t("outlook.basis", { basis: item.basis })}</span>
+            {lineIn(t, "advice", item)}{" "}
+            <span className="text-xs text-ink-soft">
+              {t("outlook.basis", { basis: t(`outlook.bases.${item.basisId}`, { defaultValue: item.basis }) })}
+            </span>
           </li>
         ))}
       </ul>
