@@ -1,9 +1,11 @@
 // The tenant's case page in Welsh and in the pseudo-locale en-XA: the status, plurals and dates in the
 // chosen language, an advice item with its safety caution, and (in en-XA) no English left on the page
 // that skipped translation, apart from data marked translate="no" (names, addresses, messages people typed).
-import { screen, waitFor, within } from "@testing-library/react";
+import { render, screen, waitFor, within } from "@testing-library/react";
 import userEvent from "@testing-library/user-event";
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
+import { WaitingNote } from "@/app/waiting-note";
+import { setQueueBackends, type QueuedReport } from "@/features/report/lib/report-queue";
 import { clearCsrfToken } from "@/lib/api-client";
 import { adviseForHome } from "@/lib/domain/home-advice";
 import { showLanguage } from "@/lib/i18n/i18n";
@@ -234,5 +236,23 @@ describe("the tenant's case page in another language", () => {
     const main = screen.getByRole("main");
     const untranslated = translatableText(main).filter((text) => /[A-Za-z]{3,}/.test(text) && !/⟦[\s\S]*⟧/.test(text));
     expect(untranslated).toEqual([]);
+  });
+  it("says a report is waiting on this phone in the device's language, with no signal to check who is signed in", async () => {
+    const kept = [{ id: "q1", userId: users.tenant.id } as QueuedReport];
+    setQueueBackends({ storage: { read: async () => kept, write: async () => undefined } });
+    try {
+      rememberChoice("cy");
+      const { unmount } = render(<WaitingNote />);
+      expect(await screen.findByText("Mae eich adroddiad yn aros i gael ei anfon")).toBeInTheDocument();
+      expect(screen.getByText(/Bydd yn anfon ei hun pan fyddwch chi ar-lein eto/)).toBeInTheDocument();
+      unmount();
+
+      rememberChoice("en-XA");
+      render(<WaitingNote />);
+      // The title and the sentence both went through translation.
+      expect(await screen.findAllByText(/^⟦[\s\S]*⟧$/)).toHaveLength(2);
+    } finally {
+      setQueueBackends({});
+    }
   });
 });
