@@ -62,6 +62,33 @@ const message = (id: number, at: string, body: string) => ({
   email: null,
 });
 const events = [
+  {
+    id: 3,
+    type: "case-created",
+    at: "2026-01-10T08:00:00.000Z",
+    actor: { name: "Tenant Test", role: "tenant" },
+    before: null,
+    after: {},
+    email: null,
+  },
+  {
+    id: 4,
+    type: "status-changed",
+    at: "2026-01-11T09:00:00.000Z",
+    actor: officer,
+    before: { status: "new" },
+    after: { status: "triaged" },
+    email: null,
+  },
+  {
+    id: 8,
+    type: "photos-added",
+    at: "2026-01-10T08:01:00.000Z",
+    actor: { name: "Tenant Test", role: "tenant" },
+    before: null,
+    after: { photoIds: [7, 8] },
+    email: null,
+  },
   message(5, "2026-01-12T10:00:00.000Z", "We will send someone to look at the bedroom."),
   message(6, "2026-01-13T10:00:00.000Z", "The mould wash is booked."),
   message(7, "2026-01-14T10:30:00.000Z", "See you on Tuesday."),
@@ -219,6 +246,24 @@ describe("the tenant's case page in another language", () => {
     expect(await within(photos).findByRole("button", { name: /^Agor llun 1 o 2.*ychwanegwyd 10 Ion 2026/ })).toBeInTheDocument();
   });
 
+  it("tells what has happened in Welsh: who did what, the status in the tenant's words, plurals and dates", async () => {
+    await choose("cy");
+    caseApi();
+    await openCase();
+    await userEvent.setup().click(screen.getByRole("button", { name: "Beth sydd wedi digwydd hyd yma" }));
+    const timeline = screen.getByRole("region", { name: "Beth sydd wedi digwydd hyd yma" });
+    expect(await within(timeline).findByText("Fe anfonoch chi'r adroddiad hwn.")).toBeInTheDocument();
+    expect(within(timeline).getByText("Ychwanegwyd 2 lun gennych chi.")).toBeInTheDocument();
+    expect(within(timeline).getByText("Newidiodd y statws i “Yn cael ei ystyried”.")).toBeInTheDocument();
+    expect(
+      within(timeline).getByText(/^Roedd yn “Wedi'i anfon”\. Mae eich landlord wedi darllen eich adroddiad/),
+    ).toBeInTheDocument();
+    expect(within(timeline).getAllByText("Anfonodd Ffion Rhys (Swyddog tai) neges atoch chi.")).toHaveLength(3);
+    expect(within(timeline).getByText("11 Ion 2026, 09:00")).toBeInTheDocument();
+    // What the landlord typed is shown as written, marked as not for translation.
+    expect(within(timeline).getByText("The mould wash is booked.").closest('[translate="no"]')).not.toBeNull();
+  });
+
   it("leaves no English behind in en-XA: every string on the page went through translation, data apart", async () => {
     await choose("en-XA");
     caseApi();
@@ -227,8 +272,10 @@ describe("the tenant's case page in another language", () => {
     const adviceSection = document.getElementById("case-advice")!;
     await userEvent.setup().click(within(adviceSection).getByRole("button"));
     expect(within(adviceSection).getAllByRole("listitem").length).toBeGreaterThan(advice.items.length);
-    // The conversation (with a message from the landlord) and the photos open too.
+    // The conversation (with a message from the landlord), the photos and the timeline open too.
     const user = userEvent.setup();
+    await user.click(within(document.getElementById("case-timeline")!).getAllByRole("button")[0]!);
+    await within(document.getElementById("case-timeline")!).findAllByRole("listitem");
     await user.click(within(document.getElementById("case-messages")!).getAllByRole("button")[0]!);
     await within(document.getElementById("case-messages")!).findByText(/ten minutes each morning/);
     await user.click(within(document.getElementById("case-photos")!).getAllByRole("button")[0]!);
