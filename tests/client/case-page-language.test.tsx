@@ -284,6 +284,36 @@ describe("the tenant's case page in another language", () => {
     const untranslated = translatableText(main).filter((text) => /[A-Za-z]{3,}/.test(text) && !/⟦[\s\S]*⟧/.test(text));
     expect(untranslated).toEqual([]);
   });
+  it("lists the reports with unread messages on My reports in Welsh and, in en-XA, leaves no English behind", async () => {
+    const reportsApi = () =>
+      mockApi({
+        "GET /api/auth/me": { body: users.tenant },
+        "GET /api/me/cases": { body: { items: [] } },
+        "GET /api/me/unread-messages": {
+          body: {
+            items: [{ caseId: 42, reference: "DW-2026-00042", unread: 2, latestAt: "2026-01-14T11:00:00.000Z" }],
+            total: 2,
+          },
+        },
+      });
+    await choose("cy");
+    reportsApi();
+    renderApp("/cases");
+    const box = (await screen.findByRole("heading", { name: /^Mae eich landlord wedi ysgrifennu atoch chi/ })).closest(
+      "section",
+    )!;
+    expect(within(box).getByText("(2 neges newydd)")).toBeInTheDocument();
+    expect(within(box).getByRole("link", { name: "Adroddiad DW-2026-00042" })).toHaveAttribute("href", "/cases/42#case-messages");
+    expect(within(box).getByText(/2 neges newydd gan eich landlord/)).toBeInTheDocument();
+
+    await choose("en-XA");
+    reportsApi();
+    renderApp("/cases");
+    const pseudoBox = (await screen.findByRole("link", { name: /DW-2026-00042/ })).closest("section")!;
+    const untranslated = translatableText(pseudoBox).filter((text) => /[A-Za-z]{3,}/.test(text) && !/⟦[\s\S]*⟧/.test(text));
+    expect(untranslated).toEqual([]);
+  });
+
   it("says a report is waiting on this phone in the device's language, with no signal to check who is signed in", async () => {
     const kept = [{ id: "q1", userId: users.tenant.id } as QueuedReport];
     setQueueBackends({ storage: { read: async () => kept, write: async () => undefined } });
