@@ -4,7 +4,10 @@
 import { render, screen, waitFor, within } from "@testing-library/react";
 import userEvent from "@testing-library/user-event";
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
+import { QueryClientProvider } from "@tanstack/react-query";
 import { WaitingNote } from "@/app/waiting-note";
+import { TenantComplaintSection } from "@/features/complaints/components/tenant-complaint-section";
+import { createQueryClient } from "@/lib/query-client";
 import { setQueueBackends, type QueuedReport } from "@/features/report/lib/report-queue";
 import { clearCsrfToken } from "@/lib/api-client";
 import { adviseForHome } from "@/lib/domain/home-advice";
@@ -311,6 +314,88 @@ describe("the tenant's case page in another language", () => {
     renderApp("/cases");
     const pseudoBox = (await screen.findByRole("link", { name: /DW-2026-00042/ })).closest("section")!;
     const untranslated = translatableText(pseudoBox).filter((text) => /[A-Za-z]{3,}/.test(text) && !/⟦[\s\S]*⟧/.test(text));
+    expect(untranslated).toEqual([]);
+  });
+
+  it("shows a complaint in Welsh and, in en-XA, leaves no English behind but what the people wrote", async () => {
+    const stage = (n: number, over: Record<string, unknown> = {}) => ({
+      stage: n,
+      startedAt: null,
+      acknowledgeDueAt: null,
+      acknowledgedAt: null,
+      acknowledge: "not-started",
+      respondDueAt: null,
+      respondedAt: null,
+      respond: "not-started",
+      extensionWorkingDays: null,
+      extensionReason: null,
+      response: null,
+      ...over,
+    });
+    const complaint = {
+      id: 7,
+      caseId: 42,
+      status: "stage-1-responded",
+      version: 3,
+      raisedAt: "2026-12-21T10:00:00.000Z",
+      raisedBy: { name: "Tenant Test", role: "tenant" },
+      onBehalf: false,
+      description: "Nobody came to look at the mould for three weeks.",
+      escalatedAt: null,
+      escalationReason: null,
+      closedAt: null,
+      stages: [
+        stage(1, {
+          startedAt: "2026-12-21T10:00:00.000Z",
+          acknowledgeDueAt: "2026-12-30T23:59:59.999Z",
+          acknowledgedAt: "2026-12-22T10:00:00.000Z",
+          acknowledge: "met",
+          respondDueAt: "2027-01-28T23:59:59.999Z",
+          respondedAt: "2027-01-20T10:00:00.000Z",
+          respond: "met",
+          extensionWorkingDays: 2,
+          extensionReason: "The surveyor's report is due next week.",
+          response: "We are sorry for the wait; the works are booked.",
+        }),
+        stage(2),
+      ],
+      remedy: {
+        apology: true,
+        apologyText: null,
+        putRight: null,
+        compensationOfferedPence: 5000,
+        compensationOfferedOn: "2027-01-20",
+        compensationAcceptedOn: null,
+        compensationPaidPence: null,
+        compensationPaidOn: null,
+      },
+      extensionMaxWorkingDays: 10,
+      staffNote: null,
+    };
+    const show = () => {
+      mockApi({ "GET /api/cases/42/complaints": { body: { complaints: [complaint] } } });
+      return render(
+        <QueryClientProvider client={createQueryClient()}>
+          <TenantComplaintSection caseId={42} />
+        </QueryClientProvider>,
+      );
+    };
+    await choose("cy");
+    const { unmount } = show();
+    expect(await screen.findByText("Cam 1: wedi ymateb")).toBeInTheDocument();
+    expect(screen.getByText("Gwnaed ar Dydd Llun 21 Rhagfyr 2026")).toBeInTheDocument();
+    expect(screen.getAllByText("Mewn pryd")).toHaveLength(2);
+    expect(screen.getByText(/^Estynnwyd o 2 ddiwrnod gwaith/)).toBeInTheDocument();
+    expect(screen.getByText("Cynigiwyd £50.00")).toBeInTheDocument();
+    expect(screen.getByRole("button", { name: "Mynd â'm cwyn i gam 2" })).toBeInTheDocument();
+    await userEvent.setup().click(screen.getByRole("button", { name: "Mynd â'm cwyn i gam 2" }));
+    expect(screen.getByText("Ysgrifennwch hyn cyn anfon.")).toBeInTheDocument();
+    unmount();
+
+    await choose("en-XA");
+    const { container } = show();
+    await screen.findByText(/three weeks/);
+    const untranslated = translatableText(container).filter((text) => /[A-Za-z]{3,}/.test(text) && !/⟦[\s\S]*⟧/.test(text));
     expect(untranslated).toEqual([]);
   });
 
