@@ -1,7 +1,6 @@
 import type { QueryClient } from "@tanstack/react-query";
 import { createBrowserRouter, redirect, RouterProvider, type LoaderFunction, type RouteObject } from "react-router-dom";
 import { RootRouteError, RouteError } from "@/components/errors/route-error";
-import { WaitingOnThisDevice } from "@/features/report/components/waiting-on-this-device";
 import { LoadingState } from "@/components/ui/spinner";
 import { meQueryOptions } from "@/features/auth/api/get-me";
 import { RoleGate, signInPath } from "@/features/auth/components/role-gate";
@@ -10,6 +9,7 @@ import { estatesQueryOptions } from "@/features/properties/api/get-estates";
 import { prefetchCaseQueue } from "@/features/queue/api/prefetch-queue";
 import { markPageEnglish } from "@/lib/i18n/choice";
 import type { Role } from "@/lib/roles";
+import { WaitingNote } from "./waiting-note";
 
 /** What a lazily loaded route module may export: the page (default) and a loader that warms the cache. */
 interface RouteModule {
@@ -103,7 +103,7 @@ export function createAppRoutes(queryClient: QueryClient): RouteObject[] {
           errorElement: (
             <>
               <RootRouteError />
-              <WaitingOnThisDevice />
+              <WaitingNote />
             </>
           ),
           children: [

@@ -6,7 +6,7 @@ import { useTranslation } from "react-i18next";
 import { formatDateIn } from "@/lib/dates";
 import { i18n } from "@/lib/i18n/i18n";
 import { isRole } from "@/lib/roles";
-import type { ConversationWords } from "./lib/words";
+import type { ConversationWords, UnreadWords } from "./lib/words";
 
 export function useConversationWords(): ConversationWords {
   const { t, i18n: active } = useTranslation("case", { i18n });
@@ -51,4 +51,21 @@ export function useConversationWords(): ConversationWords {
       ctrlEnter: c("ctrlEnter"),
     };
   }, [t, lng]);
+}
+
+/** The unread-messages box on My reports in the tenant's language (the box is shared with staff). */
+export function useUnreadWords(): UnreadWords {
+  const { t, i18n: active } = useTranslation("case", { i18n });
+  const lng = active.language;
+  return useMemo(
+    () => ({
+      heading: t("unread.heading"),
+      total: (count) => t("unread.total", { count }),
+      report: t("unread.report"),
+      line: (count) => t("unread.line", { count }),
+    }),
+    // lng: the words change when the language does.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [t, lng],
+  );
 }

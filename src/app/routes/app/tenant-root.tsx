@@ -4,8 +4,10 @@ import { ErrorWordsContext } from "@/components/errors/error-words";
 import { AppLayout, type NavItem } from "@/components/layouts/app-layout";
 import { LanguageSwitch } from "@/features/language/components/language-switch";
 import { useShellWords } from "@/features/language/hooks/use-shell-words";
+import type { WaitingWords } from "@/features/report/lib/waiting-words";
 import { languageFor } from "@/lib/i18n/choice";
-import { showLanguage } from "@/lib/i18n/i18n";
+import { i18n, showLanguage } from "@/lib/i18n/i18n";
+import type { Lng } from "@/lib/i18n/languages";
 
 /**
  * Shows the tenant's language before their first page renders (the app route's loader awaits it), so
@@ -13,6 +15,16 @@ import { showLanguage } from "@/lib/i18n/i18n";
  */
 export async function prepareTenantLanguage(user: { role: string; language: string | null }): Promise<void> {
   await showLanguage(languageFor(user));
+}
+
+/**
+ * The "waiting to send" note's words in `lng`, for the page shown when the session could not be checked
+ * (router.tsx's WaitingNote; the note itself is in the main bundle and holds no translation code).
+ */
+export async function waitingWords(lng: Lng): Promise<WaitingWords> {
+  await showLanguage(lng);
+  const t = i18n.getFixedT(lng, "case");
+  return { title: t("waiting.title"), body: t("waiting.body") };
 }
 
 /** The signed-in shell as a tenant sees it: in their language, with the language switch in the header. */

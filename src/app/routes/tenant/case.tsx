@@ -21,7 +21,7 @@ import { CaseTimeline } from "@/features/cases/components/case-timeline";
 import { PhotoGallery } from "@/features/cases/components/photo-gallery";
 import { ReadingsSection } from "@/features/cases/components/readings-section";
 import { WorseButton } from "@/features/cases/components/worse-dialog";
-import { useCaseText, usePhotoGalleryWords, useTenantStage } from "@/features/cases/tenant-words";
+import { useCaseText, usePhotoGalleryWords, useTenantStage, useTimelineWords } from "@/features/cases/tenant-words";
 import { TenantRepairs } from "@/features/work-orders/components/tenant-repairs";
 import { HomeAdviceSection } from "@/features/home-advice/components/home-advice-section";
 import { OPEN_CASE_STATUSES } from "@/lib/domain/case-workflow";
@@ -341,6 +341,7 @@ function MessagesPanel({ id, open }: { id: number; open: boolean }) {
 function TimelinePanel({ c, open }: { c: CaseDto; open: boolean }) {
   const events = useCaseEvents(c.id);
   const { t } = useCaseText();
+  const timelineWords = useTimelineWords();
   return (
     <CollapsibleSection
       id="case-timeline"
@@ -355,7 +356,7 @@ function TimelinePanel({ c, open }: { c: CaseDto; open: boolean }) {
           <span translate="no">{errorMessage(events.error)}</span>
         </Alert>
       ) : (
-        <CaseTimeline events={events.data} rooms={c.homeRooms} />
+        <CaseTimeline events={events.data} rooms={c.homeRooms} words={timelineWords} />
       )}
     </CollapsibleSection>
   );

@@ -7,6 +7,7 @@ import { signedInAs } from "@/features/auth/api/require-role";
 import { myCasesQueryOptions } from "@/features/cases/api/get-my-cases";
 import { MyCases } from "@/features/cases/components/case-list";
 import { UnreadMessages } from "@/features/conversation/components/unread-messages";
+import { useUnreadWords } from "@/features/conversation/tenant-words";
 import { WaitingReports } from "@/features/report/components/waiting-reports";
 import { useUser } from "@/features/auth/api/get-me";
 
@@ -18,6 +19,7 @@ export const clientLoader = (queryClient: QueryClient) => async () => {
 export default function MyReportsPage() {
   const user = useUser();
   const { t } = useTranslation("home");
+  const unreadWords = useUnreadWords();
   return (
     <>
       <title>{t("reports.title") + t("titleSuffix")}</title>
@@ -31,7 +33,7 @@ export default function MyReportsPage() {
         }
       />
       <WaitingReports userId={user.id} />
-      <UnreadMessages viewer="tenant" />
+      <UnreadMessages viewer="tenant" words={unreadWords} />
       <MyCases />
     </>
   );

@@ -3,7 +3,8 @@ import type { ComponentType, ReactNode } from "react";
 import { formatDateTime } from "@/lib/dates";
 import { isRole, roleLabels } from "@/lib/roles";
 import type { CaseEvent, CaseEventEmail, CaseRoom } from "../api/types";
-import { humanise, statusLabelFor, statusMeaning, type Audience } from "../labels";
+import { humanise, statusLabelFor, type Audience } from "../labels";
+import { englishTimelineWords, type By, type TimelineWords } from "./timeline-words";
 
 export type { Audience } from "../labels";
 
@@ -16,6 +17,8 @@ interface CaseTimelineProps {
   staffNames?: ReadonlyMap<number, string>;
   /** Staff views: shown beside an e-mail's delivery state (the page passes the outbox's "Send again" button). */
   EmailAction?: ComponentType<EmailActionProps>;
+  /** The tenant's words (their language on the tenant's page); staff read the English in this file. */
+  words?: TimelineWords;
 }
 
 export interface EmailActionProps {
@@ -33,9 +36,8 @@ const count = (n: number, one: string, many: string) => `${n.toLocaleString("en-
 const num = (v: unknown): number => (typeof v === "number" && Number.isFinite(v) ? v : 0);
 const str = (v: unknown): string | undefined => (typeof v === "string" && v.trim() ? v : undefined);
 
-function byWhom(event: CaseEvent, audience: Audience): string {
+function byWhom(event: CaseEvent): string {
   if (!event.actor) return "";
-  if (audience === "tenant" && event.actor.role === "tenant") return "";
   const role = isRole(event.actor.role) ? roleLabels[event.actor.role] : humanise(event.actor.role);
   return `${event.actor.name} (${role})`;
 }
@@ -48,35 +50,163 @@ const TEXT_STATE_WORDS: Record<string, string> = {
   failed: "could not be sent",
 };
 
+/** Typed by a person (a note, a message, a letter): shown as written, never translated. */
+const typed = (text: string | undefined) =>
+  text ? (
+    <p translate="no" className="whitespace-pre-line">
+      {text}
+    </p>
+  ) : undefined;
+
+/** The tenant's sentence (and sometimes a detail) for each event the server lets them see. */
+function describeForTenant(event: CaseEvent, rooms: readonly CaseRoom[], w: TimelineWords): Entry {
+  const after = event.after ?? {};
+  const before = event.before ?? {};
+  const roomName = (id: unknown) => rooms.find((r) => r.id === id)?.name;
+  const actor = event.actor;
+  const by: By =
+    actor?.role === "tenant"
+      ? { kind: "you" }
+      : actor
+        ? { kind: "who", who: w.byWhom(actor.name, actor.role) }
+        : { kind: "none" };
+  const who = by.kind === "who" ? by.who : undefined;
+
+  switch (event.type) {
+    case "case-created":
+      return { title: w.created(by) };
+    case "email-queued":
+      return { title: w.emailSent };
+    case "email-resent":
+      // The tenant's timeline holds only e-mails to the tenant (the server leaves the others out).
+      return { title: w.emailSentAgain };
+    case "photos-added":
+      return { title: w.photosAdded(Array.isArray(after.photoIds) ? after.photoIds.length : 0, by) };
+    case "readings-added": {
+      const duplicates = num(after.duplicates);
+      return {
+        title: w.readingsAdded(num(after.imported), roomName(after.roomId)),
+        detail: duplicates ? w.readingsSkipped(duplicates) : undefined,
+      };
+    }
+    case "readings-imported": {
+      const duplicates = num(after.duplicates);
+      const rejected = num(after.rejected);
+      const notes = [duplicates ? w.readingsAlreadyThere(duplicates) : "", rejected ? w.rowsUnreadable(rejected) : ""].filter(
+        Boolean,
+      );
+      return {
+        title: w.readingsImported(num(after.imported), roomName(after.roomId)),
+        detail: notes.length ? notes.join(" ") : undefined,
+      };
+    }
+    case "tenant-got-worse": {
+      const note = str(after.note);
+      return {
+        title: w.gotWorse(by),
+        detail: note ? (
+          <blockquote translate="no" className="border-l-4 border-line-strong pl-3 whitespace-pre-line">
+            {note}
+          </blockquote>
+        ) : undefined,
+      };
+    }
+    case "status-changed": {
+      const to = str(after.status);
+      const from = str(before.status);
+      return {
+        title: to ? w.statusChangedTo(w.statusLabel(to)) : w.statusChanged,
+        detail:
+          [from ? w.statusWas(w.statusLabel(from)) : "", to ? (w.statusMeaning(to) ?? "") : ""].filter(Boolean).join(" ") ||
+          undefined,
+      };
+    }
+    case "text-queued":
+      return { title: w.textSent(str(after.numberEnding)), detail: typed(str(after.body)) };
+    case "text-not-sent":
+      return { title: w.textNotSent };
+    case "message-to-tenant":
+      return { title: w.messageToYou(who), detail: typed(str(after.body)) };
+    case "message-from-tenant":
+      return {
+        title: w.messageFromTenant(by, Array.isArray(after.photoIds) ? after.photoIds.length : 0),
+        detail: typed(str(after.body)),
+      };
+    case "summary-sent":
+      return { title: w.summarySent, detail: typed(str(after.body)) };
+    case "inspection-recorded":
+      return { title: w.inspectionRecorded };
+    case "hazard-classified":
+      return { title: w.hazardAssessed };
+    case "hhsrs-assessed":
+      return { title: w.hhsrsAssessed };
+    case "assignee-changed":
+      return { title: w.assigned };
+    case "fix-verified":
+      return { title: after.effective === true ? w.fixWorked : w.fixNotYet, detail: typed(str(after.note)) };
+    case "complaint-raised":
+      return { title: w.complaintRaised(by, after.onBehalf === true), detail: typed(str(after.description)) };
+    case "complaint-acknowledged":
+    case "complaint-extended":
+    case "complaint-responded": {
+      const stage = num(after.stage);
+      const letter = after.letter as { subject?: unknown; body?: unknown } | null | undefined;
+      return {
+        title:
+          event.type === "complaint-acknowledged"
+            ? w.complaintAcknowledged(stage)
+            : event.type === "complaint-extended"
+              ? w.complaintExtended(stage, num(after.workingDays))
+              : after.final
+                ? w.complaintFinal
+                : w.complaintResponded(stage),
+        detail:
+          letter && typeof letter.body === "string" ? (
+            <div translate="no">
+              <p className="font-semibold">{String(letter.subject ?? "")}</p>
+              <p className="whitespace-pre-line">{letter.body}</p>
+            </div>
+          ) : undefined,
+      };
+    }
+    case "complaint-escalated":
+      return { title: w.complaintEscalated(by), detail: typed(str(after.reason)) };
+    case "complaint-closed":
+      return { title: w.complaintClosed };
+    case "complaint-remedy-changed":
+      return { title: w.remedyRecorded };
+    default:
+      return { title: w.other(event.type, who) };
+  }
+}
+
 /** One plain sentence (and sometimes a detail) for each kind of event; unknown kinds still show. */
 export function describeEvent(
   event: CaseEvent,
   rooms: readonly CaseRoom[],
   audience: Audience = "tenant",
   staffNames?: ReadonlyMap<number, string>,
+  words: TimelineWords = englishTimelineWords,
 ): Entry {
+  if (audience === "tenant") return describeForTenant(event, rooms, words);
+  // Staff: names, addresses and reasons, in English.
   const after = event.after ?? {};
   const before = event.before ?? {};
   const roomName = (id: unknown) => rooms.find((r) => r.id === id)?.name;
-  const you = audience === "tenant" && event.actor?.role === "tenant";
-  const who = byWhom(event, audience);
+  const who = byWhom(event);
+  const staff = who || "Staff";
   const inRoom = (id: unknown) => (roomName(id) ? ` for ${roomName(id)}` : "");
 
   switch (event.type) {
     case "case-created":
-      return { title: you ? "You sent this report." : who ? `${who} logged this report.` : "The report was received." };
+      return { title: who ? `${who} logged this report.` : "The report was received." };
     case "email-queued": {
       const to = str(after.to);
       // Staff see below whether it has actually left the outbox.
-      if (audience === "staff" && event.email) return { title: "An e-mail about this report was queued." };
-      return {
-        title:
-          audience === "staff" && to ? `An e-mail about this report was sent to ${to}.` : "An e-mail about this report was sent.",
-      };
+      if (event.email) return { title: "An e-mail about this report was queued." };
+      return { title: to ? `An e-mail about this report was sent to ${to}.` : "An e-mail about this report was sent." };
     }
     case "email-resent": {
-      // The tenant's timeline holds only e-mails to the tenant (the server leaves the others out).
-      if (audience === "tenant") return { title: "An e-mail about this report was sent to you again." };
       const subject = str(after.subject);
       const to = str(after.to);
       return {
@@ -86,7 +216,7 @@ export function describeEvent(
     case "photos-added": {
       const ids = Array.isArray(after.photoIds) ? after.photoIds.length : 0;
       const what = ids ? count(ids, "photo was", "photos were") : "Photos were";
-      return { title: `${what} added${you ? " by you" : who ? ` by ${who}` : ""}.` };
+      return { title: `${what} added${who ? ` by ${who}` : ""}.` };
     }
     case "readings-added": {
       const duplicates = num(after.duplicates);
@@ -112,7 +242,7 @@ export function describeEvent(
     case "tenant-got-worse": {
       const note = str(after.note);
       return {
-        title: you ? "You told your landlord it has got worse." : `${who || "The tenant"} said it has got worse.`,
+        title: `${who || "The tenant"} said it has got worse.`,
         detail: note ? (
           <blockquote className="border-l-4 border-line-strong pl-3 whitespace-pre-line">{note}</blockquote>
         ) : undefined,
@@ -121,50 +251,30 @@ export function describeEvent(
     case "status-changed": {
       const to = str(after.status);
       const from = str(before.status);
-      const reason = audience === "staff" ? str(after.reason) : undefined;
-      const statusLabel = statusLabelFor(audience);
+      const reason = str(after.reason);
+      const statusLabel = statusLabelFor("staff");
       return {
-        title: to
-          ? `The status changed to “${statusLabel(to)}”${audience === "staff" && who ? `, by ${who}` : ""}.`
-          : "The status changed.",
+        title: to ? `The status changed to “${statusLabel(to)}”${who ? `, by ${who}` : ""}.` : "The status changed.",
         detail:
-          [
-            from ? `It was “${statusLabel(from)}”.` : "",
-            to && audience === "tenant" ? (statusMeaning(to) ?? "") : "",
-            reason ? `Reason: ${reason}` : "",
-          ]
-            .filter(Boolean)
-            .join(" ") || undefined,
+          [from ? `It was “${statusLabel(from)}”.` : "", reason ? `Reason: ${reason}` : ""].filter(Boolean).join(" ") ||
+          undefined,
       };
     }
     case "text-queued": {
       const ending = str(after.numberEnding);
       const kind = str(after.kind);
-      const status = audience === "staff" && event.text ? ` (${TEXT_STATE_WORDS[event.text.status] ?? event.text.status})` : "";
+      const status = event.text ? ` (${TEXT_STATE_WORDS[event.text.status] ?? event.text.status})` : "";
       return {
-        title:
-          audience === "tenant"
-            ? `We sent you a text${ending ? ` to your number ending ${ending}` : ""}.`
-            : `Text to the tenant${ending ? ` (number ending ${ending})` : ""}${kind ? `: ${kind.replace(/-/g, " ")}` : ""}${status}.`,
+        title: `Text to the tenant${ending ? ` (number ending ${ending})` : ""}${kind ? `: ${kind.replace(/-/g, " ")}` : ""}${status}.`,
         detail: str(after.body) || undefined,
       };
     }
     case "text-not-sent":
-      return {
-        title:
-          audience === "tenant"
-            ? "We did not send a text, as texts are off. You got an e-mail."
-            : "No text: the tenant has texts off, so this went by e-mail only.",
-      };
+      return { title: "No text: the tenant has texts off, so this went by e-mail only." };
     case "message-to-tenant": {
       const body = str(after.body);
       return {
-        title:
-          audience === "tenant"
-            ? who
-              ? `${who} sent you a message.`
-              : "Your landlord sent you a message."
-            : `${who || "Staff"} sent the tenant a message.`,
+        title: `${staff} sent the tenant a message.`,
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
@@ -172,54 +282,42 @@ export function describeEvent(
       const body = str(after.body);
       const photos = Array.isArray(after.photoIds) ? after.photoIds.length : 0;
       return {
-        title: `${you ? "You" : who || "The tenant"} wrote to ${audience === "tenant" ? "your landlord" : "the landlord"}${photos ? `, with ${count(photos, "photo", "photos")}` : ""}.`,
+        title: `${who || "The tenant"} wrote to the landlord${photos ? `, with ${count(photos, "photo", "photos")}` : ""}.`,
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
     case "summary-sent": {
       const body = str(after.body);
       return {
-        title:
-          audience === "tenant"
-            ? "Your landlord sent you a written summary of what they found and what happens next."
-            : `${who || "Staff"} sent the tenant the written summary.`,
+        title: `${staff} sent the tenant the written summary.`,
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
     case "inspection-recorded":
-      return {
-        title: audience === "tenant" ? "The inspection of your home was recorded." : `${who || "Staff"} recorded the inspection.`,
-      };
+      return { title: `${staff} recorded the inspection.` };
     case "hazard-classified": {
-      if (audience === "tenant") return { title: "Your landlord assessed how serious the hazard is." };
       const to = str(after.hazardClass);
       const reason = str(after.reason);
       return {
-        title: `${who || "Staff"} classified the hazard as ${to ? (hazardClassWords[to] ?? humanise(to)).toLowerCase() : "unknown"}.`,
+        title: `${staff} classified the hazard as ${to ? (hazardClassWords[to] ?? humanise(to)).toLowerCase() : "unknown"}.`,
         detail: reason ? `Reason: ${reason}` : undefined,
       };
     }
     case "hhsrs-assessed":
       return {
-        title:
-          audience === "tenant"
-            ? "Your landlord recorded a health and safety (HHSRS) assessment."
-            : `${who || "Staff"} recorded an HHSRS assessment: band ${String(after.band ?? "?")}, Category ${String(after.category ?? "?")}.`,
+        title: `${staff} recorded an HHSRS assessment: band ${String(after.band ?? "?")}, Category ${String(after.category ?? "?")}.`,
       };
     case "assignee-changed": {
-      if (audience === "tenant") return { title: "A member of staff was given this report to look after." };
       const id = after.assigneeId;
-      if (id === null) return { title: `${who || "Staff"} left the case unassigned.` };
+      if (id === null) return { title: `${staff} left the case unassigned.` };
       const name = typeof id === "number" ? staffNames?.get(id) : undefined;
-      return { title: name ? `${who || "Staff"} assigned the case to ${name}.` : "The assignee changed." };
+      return { title: name ? `${staff} assigned the case to ${name}.` : "The assignee changed." };
     }
     case "fix-verified": {
-      const effective = after.effective === true;
-      const override = audience === "staff" ? str(after.override) : undefined;
+      const override = str(after.override);
+      const recorded = who ? `${who} recorded that` : "Your landlord recorded that";
       return {
-        title: effective
-          ? `${audience === "staff" && who ? `${who} recorded that` : "Your landlord recorded that"} the repair worked.`
-          : `${audience === "staff" && who ? `${who} recorded that` : "Your landlord recorded that"} the repair did not work yet.`,
+        title: after.effective === true ? `${recorded} the repair worked.` : `${recorded} the repair did not work yet.`,
         detail:
           [str(after.note) ?? "", override ? `Recorded without enough readings after the works. Reason: ${override}` : ""]
             .filter(Boolean)
@@ -229,7 +327,7 @@ export function describeEvent(
     case "internal-note": {
       const body = str(after.body);
       return {
-        title: `${who || "Staff"} added an internal note.`,
+        title: `${staff} added an internal note.`,
         detail: body ? <p className="whitespace-pre-line">{body}</p> : undefined,
       };
     }
@@ -237,15 +335,13 @@ export function describeEvent(
       // Staff only: the tenant's timeline never carries it (the server leaves it out).
       const pages = typeof after.pages === "number" ? after.pages : undefined;
       return {
-        title: `${who || "Staff"} made the evidence pack${pages ? ` (${pages} pages)` : ""}.`,
+        title: `${staff} made the evidence pack${pages ? ` (${pages} pages)` : ""}.`,
         detail: str(after.sha256) ? <p className="break-all">Content SHA-256 {str(after.sha256)}</p> : undefined,
       };
     }
     case "complaint-raised":
       return {
-        title: you
-          ? "You made a formal complaint."
-          : `${who || "Staff"} recorded a formal complaint${after.onBehalf ? " for the tenant" : ""}.`,
+        title: `${staff} recorded a formal complaint${after.onBehalf ? " for the tenant" : ""}.`,
         detail: str(after.description) ? <p className="whitespace-pre-line">{str(after.description)}</p> : undefined,
       };
     case "complaint-acknowledged":
@@ -261,9 +357,9 @@ export function describeEvent(
             : after.final
               ? "sent the final response to the complaint"
               : `sent the stage ${stage} response to the complaint`;
-      const note = audience === "staff" ? str(after.note) : undefined;
+      const note = str(after.note);
       return {
-        title: `${audience === "tenant" ? "Your landlord" : who || "Staff"} ${what}.`,
+        title: `${staff} ${what}.`,
         detail:
           letter && typeof letter.body === "string" ? (
             <>
@@ -278,22 +374,17 @@ export function describeEvent(
     }
     case "complaint-escalated":
       return {
-        title: you ? "You took your complaint to stage 2." : `${who || "Staff"} took the complaint to stage 2.`,
+        title: `${staff} took the complaint to stage 2.`,
         detail: str(after.reason),
       };
     case "complaint-closed":
-      return { title: audience === "tenant" ? "Your complaint was closed." : `${who || "Staff"} closed the complaint.` };
+      return { title: `${staff} closed the complaint.` };
     case "complaint-remedy-changed":
-      return {
-        title:
-          audience === "tenant"
-            ? "Your landlord recorded how it will put things right."
-            : `${who || "Staff"} recorded the complaint's remedy.`,
-      };
+      return { title: `${staff} recorded the complaint's remedy.` };
     case "missed-deadline-explained":
       // Staff only: the tenant's timeline never carries it (the server leaves it out).
       return {
-        title: `${who || "Staff"} said why "${deadlineStageLabels[str(after.stage) ?? ""] ?? str(after.stage) ?? "a stage"}" was missed.`,
+        title: `${staff} said why "${deadlineStageLabels[str(after.stage) ?? ""] ?? str(after.stage) ?? "a stage"}" was missed.`,
         detail: str(after.reason),
       };
     case "sensor-alert": {
@@ -322,13 +413,20 @@ export function describeEvent(
 }
 
 /** What has happened to a case, newest first. */
-export function CaseTimeline({ events, rooms, audience = "tenant", staffNames, EmailAction }: CaseTimelineProps) {
-  if (events.length === 0) return <p className="text-ink-soft">Nothing has happened yet.</p>;
+export function CaseTimeline({
+  events,
+  rooms,
+  audience = "tenant",
+  staffNames,
+  EmailAction,
+  words = englishTimelineWords,
+}: CaseTimelineProps) {
+  if (events.length === 0) return <p className="text-ink-soft">{words.nothingYet}</p>;
   const newestFirst = [...events].sort((a, b) => Date.parse(b.at) - Date.parse(a.at) || b.id - a.id);
   return (
     <ol className="relative flex flex-col gap-4 border-l-2 border-dew-200 pl-5">
       {newestFirst.map((event) => {
-        const entry = describeEvent(event, rooms, audience, staffNames);
+        const entry = describeEvent(event, rooms, audience, staffNames, words);
         return (
           <li key={event.id} className="relative">
             <span
@@ -336,7 +434,7 @@ export function CaseTimeline({ events, rooms, audience = "tenant", staffNames, E
               className="absolute top-1.5 -left-[1.6rem] size-3 rounded-pill border-2 border-dew-700 bg-surface"
             />
             <p className="text-sm text-ink-soft">
-              <time dateTime={event.at}>{formatDateTime(event.at)}</time>
+              <time dateTime={event.at}>{audience === "tenant" ? words.at(event.at) : formatDateTime(event.at)}</time>
             </p>
             <p className="font-semibold">{entry.title}</p>
             {entry.detail ? <div className="mt-1 text-ink">{entry.detail}</div> : null}

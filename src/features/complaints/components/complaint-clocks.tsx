@@ -1,6 +1,6 @@
 import type { ComplaintResponse, ComplaintStageResponse } from "@/lib/contracts";
-import { formatLongDay, formatWeekdayDateTimeZoned } from "@/lib/dates";
-import { CLOCK_STATE_LABELS } from "../lib/labels";
+import { formatWeekdayDateTimeZoned } from "@/lib/dates";
+import { englishComplaintWords, type ComplaintWords } from "../lib/words";
 
 const tone: Record<string, string> = {
   pending: "border-dew-700 bg-dew-50 text-dew-800",
@@ -11,41 +11,38 @@ const tone: Record<string, string> = {
 // A shape as well as a colour, so the state never rests on colour alone.
 const mark: Record<string, string> = { pending: "○", met: "✓", missed: "!", "not-started": "–" };
 
-function ClockTag({ state }: { state: string }) {
+function ClockTag({ state, words }: { state: string; words: ComplaintWords }) {
   return (
     <span className={`inline-flex items-center gap-1 rounded-pill border px-2 py-0.5 text-sm font-semibold ${tone[state] ?? ""}`}>
       <span aria-hidden="true">{mark[state]}</span>
-      {CLOCK_STATE_LABELS[state] ?? state}
+      {words.clockState(state)}
     </span>
   );
 }
 
-function when(at: string | null, staff: boolean) {
-  if (!at) return "Not yet";
-  return <time dateTime={at}>{staff ? formatWeekdayDateTimeZoned(at) : formatLongDay(at)}</time>;
+function when(at: string | null, staff: boolean, words: ComplaintWords) {
+  if (!at) return words.notYet;
+  return <time dateTime={at}>{staff ? formatWeekdayDateTimeZoned(at) : words.day(at)}</time>;
 }
 
-function Stage({ s, staff }: { s: ComplaintStageResponse; staff: boolean }) {
+function Stage({ s, staff, words }: { s: ComplaintStageResponse; staff: boolean; words: ComplaintWords }) {
   return (
     <li className="flex flex-col gap-1 py-2">
-      <span className="font-semibold">Stage {s.stage}</span>
+      <span className="font-semibold">{words.stage(s.stage)}</span>
       <dl className="grid grid-cols-[auto_auto_1fr] items-center gap-x-3 gap-y-1 text-sm">
-        <dt className="text-ink-soft">Acknowledge by</dt>
-        <dd>{s.acknowledgeDueAt ? when(s.acknowledgeDueAt, staff) : "—"}</dd>
+        <dt className="text-ink-soft">{words.acknowledgeBy}</dt>
+        <dd>{s.acknowledgeDueAt ? when(s.acknowledgeDueAt, staff, words) : "—"}</dd>
         <dd>
-          <ClockTag state={s.acknowledge} />
+          <ClockTag state={s.acknowledge} words={words} />
         </dd>
-        <dt className="text-ink-soft">Respond by</dt>
-        <dd>{s.respondDueAt ? when(s.respondDueAt, staff) : "—"}</dd>
+        <dt className="text-ink-soft">{words.respondBy}</dt>
+        <dd>{s.respondDueAt ? when(s.respondDueAt, staff, words) : "—"}</dd>
         <dd>
-          <ClockTag state={s.respond} />
+          <ClockTag state={s.respond} words={words} />
         </dd>
       </dl>
       {s.extensionWorkingDays !== null ? (
-        <p className="text-sm">
-          Extended by {s.extensionWorkingDays} working {s.extensionWorkingDays === 1 ? "day" : "days"}
-          {s.extensionReason ? `: ${s.extensionReason}` : "."}
-        </p>
+        <p className="text-sm">{words.extended(s.extensionWorkingDays, s.extensionReason)}</p>
       ) : null}
     </li>
   );
@@ -53,14 +50,22 @@ function Stage({ s, staff }: { s: ComplaintStageResponse; staff: boolean }) {
 
 /**
  * Each started stage's two clocks: when the acknowledgement and the response are due, and whether
- * they were in time. Staff see the time (UK), the tenant the day.
+ * they were in time. Staff see the time (UK), the tenant the day (in their language: `words`).
  */
-export function ComplaintClocks({ complaint, staff }: { complaint: ComplaintResponse; staff: boolean }) {
+export function ComplaintClocks({
+  complaint,
+  staff,
+  words = englishComplaintWords,
+}: {
+  complaint: ComplaintResponse;
+  staff: boolean;
+  words?: ComplaintWords;
+}) {
   const started = complaint.stages.filter((s) => s.startedAt !== null);
   return (
-    <ul className="flex flex-col divide-y divide-line" aria-label="Complaint clocks">
+    <ul className="flex flex-col divide-y divide-line" aria-label={words.clocksLabel}>
       {started.map((s) => (
-        <Stage key={s.stage} s={s} staff={staff} />
+        <Stage key={s.stage} s={s} staff={staff} words={words} />
       ))}
     </ul>
   );

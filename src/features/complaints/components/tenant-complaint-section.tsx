@@ -5,6 +5,8 @@ import { useComplaints } from "../api/get-complaints";
 import { useEscalateComplaint } from "../api/escalate-complaint";
 import type { ComplaintResponse } from "@/lib/contracts";
 import { isOpen } from "../lib/labels";
+import type { ComplaintWords } from "../lib/words";
+import { useComplaintWords } from "../tenant-words";
 import { ComplaintSummary } from "./complaint-summary";
 import { RaiseComplaintForm } from "./raise-complaint-form";
 import { TextActionForm } from "./text-action-form";
@@ -15,33 +17,36 @@ import { TextActionForm } from "./text-action-form";
  */
 export function TenantComplaintSection({ caseId }: { caseId: number }) {
   const complaints = useComplaints(caseId);
-  if (complaints.isPending) return <LoadingState>Loading your complaint…</LoadingState>;
-  if (complaints.isError) return <Alert tone="danger">{errorMessage(complaints.error)}</Alert>;
+  const words = useComplaintWords();
+  if (complaints.isPending) return <LoadingState>{words.loading}</LoadingState>;
+  if (complaints.isError)
+    return (
+      <Alert tone="danger">
+        <span translate="no">{errorMessage(complaints.error)}</span>
+      </Alert>
+    );
   const list = complaints.data.complaints;
   const open = list.find((c) => isOpen(c.status));
   return (
     <div className="flex flex-col gap-4">
       {open ? (
         <>
-          <ComplaintSummary complaint={open} staff={false} />
-          {open.status === "stage-1-responded" ? <Escalate complaint={open} /> : null}
+          <ComplaintSummary complaint={open} staff={false} words={words} />
+          {open.status === "stage-1-responded" ? <Escalate complaint={open} words={words} /> : null}
         </>
       ) : (
         <>
-          <p>
-            If you are unhappy with how your report has been handled, you can make a formal complaint. You will get a letter to
-            say it has been received and when to expect our response.
-          </p>
-          <RaiseComplaintForm caseId={caseId} staff={false} />
+          <p>{words.intro}</p>
+          <RaiseComplaintForm caseId={caseId} staff={false} words={words} />
         </>
       )}
       {list
         .filter((c) => c !== open)
         .map((c) => (
           <details key={c.id}>
-            <summary className="cursor-pointer font-semibold">Earlier complaint</summary>
+            <summary className="cursor-pointer font-semibold">{words.earlier}</summary>
             <div className="mt-2">
-              <ComplaintSummary complaint={c} staff={false} />
+              <ComplaintSummary complaint={c} staff={false} words={words} />
             </div>
           </details>
         ))}
@@ -49,12 +54,13 @@ export function TenantComplaintSection({ caseId }: { caseId: number }) {
   );
 }
 
-function Escalate({ complaint }: { complaint: ComplaintResponse }) {
+function Escalate({ complaint, words }: { complaint: ComplaintResponse; words: ComplaintWords }) {
   const escalate = useEscalateComplaint(complaint.caseId, complaint.id);
   return (
     <TextActionForm
-      label="Still unhappy? Tell us why and we will look at it again (stage 2)"
-      submitLabel="Take my complaint to stage 2"
+      label={words.escalateLabel}
+      submitLabel={words.escalateSubmit}
+      missingText={words.writeThis}
       busy={escalate.isPending}
       error={escalate.error}
       onSubmit={(reason, _note, done) => escalate.mutate({ version: complaint.version, reason }, { onSuccess: done })}

@@ -13,16 +13,27 @@ interface TextActionFormProps {
   /** Staff get a note for staff only beside the text the tenant sees. */
   withNote?: boolean;
   onSubmit: (text: string, note: string | null, done: () => void) => void;
+  /** Said when the box is empty (the tenant's page passes it in the tenant's language). */
+  missingText?: string;
 }
 
 /** One piece of text (and, for staff, an optional staff-only note) sent with one press. */
-export function TextActionForm({ label, hint, submitLabel, busy, error, withNote, onSubmit }: TextActionFormProps) {
+export function TextActionForm({
+  label,
+  hint,
+  submitLabel,
+  busy,
+  error,
+  withNote,
+  onSubmit,
+  missingText = "Write this before sending.",
+}: TextActionFormProps) {
   const [text, setText] = useState("");
   const [note, setNote] = useState("");
   const [missing, setMissing] = useState<string | undefined>();
   const submit = (e: FormEvent) => {
     e.preventDefault();
-    if (!text.trim()) return setMissing("Write this before sending.");
+    if (!text.trim()) return setMissing(missingText);
     setMissing(undefined);
     onSubmit(text.trim(), note.trim() || null, () => {
       setText("");

@@ -98,3 +98,23 @@ export const englishConversationWords: ConversationWords = {
   tooLong: "Keep the message to 5,000 characters or fewer.",
   ctrlEnter: "Ctrl + Enter also sends.",
 };
+
+/** The box on My reports listing the reports with messages the tenant has not read (unread-messages.tsx). */
+export interface UnreadWords {
+  heading: string;
+  /** "2 new messages", after the heading. */
+  total: (count: number) => string;
+  /** Before the report's reference in each link: "Report". */
+  report: string;
+  /** After each link: "1 new message from your landlord". */
+  line: (count: number) => string;
+}
+
+const newMessages = (n: number) => (n === 1 ? "1 new message" : `${n} new messages`);
+
+export const englishUnreadWords: UnreadWords = {
+  heading: "Your landlord has written to you",
+  total: newMessages,
+  report: "Report",
+  line: (n) => `${newMessages(n)} from your landlord`,
+};

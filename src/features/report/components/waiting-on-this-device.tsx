@@ -1,14 +1,16 @@
 import { useEffect, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { getQueueState, loadQueue, subscribeQueue } from "../lib/report-queue";
+import { englishWaitingWords, type WaitingWords } from "../lib/waiting-words";
 
 /**
  * For a page that could not reach the server (opened with no signal): says a report is kept here,
  * without showing it (whose it is is not known yet), and opens the page again once back online.
- * It sits in the router's error page, which staff load too, so it stays in English and away from the
- * language machinery (the officers' queue's first load must not carry i18next).
+ * It sits in the router's error page, which staff load too, so it stays away from the language
+ * machinery (the officers' queue's first load must not carry i18next): its words come as a prop,
+ * English by default (see waiting-words.ts).
  */
-export function WaitingOnThisDevice() {
+export function WaitingOnThisDevice({ words = englishWaitingWords }: { words?: WaitingWords }) {
   const [count, setCount] = useState(() => getQueueState().items.length);
   useEffect(() => {
     const refresh = () => setCount(getQueueState().items.length);
@@ -23,10 +25,8 @@ export function WaitingOnThisDevice() {
   }, []);
   if (!count) return null;
   return (
-    <Alert tone="warning" title="Your report is waiting to send" live="none" className="mx-auto w-full max-w-reading">
-      <p>
-        A report is kept on this phone, waiting to send. It will send by itself when you are back online and Dewline opens again.
-      </p>
+    <Alert tone="warning" title={words.title} live="none" className="mx-auto w-full max-w-reading">
+      <p>{words.body}</p>
     </Alert>
   );
 }
