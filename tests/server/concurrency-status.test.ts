@@ -11,7 +11,8 @@ import { OperativeSlot } from "../../server/modules/works/operative-slot.entity.
 import { WorkOrder } from "../../server/modules/works/work-order.entity.js";
 import { makeLandlord, makeUser, PASSWORD } from "../support/factories.js";
 import { createTestApp, signedInClient, type Client, type TestApp } from "../support/test-app.js";
-import { hoursAgo, workingDayAhead } from "../support/test-clock.js";
+import { localDate } from "../../src/lib/domain/working-days.js";
+import { hoursAgo, testClock, workingDayAhead } from "../support/test-clock.js";
 
 let t: TestApp;
 let landlord: Awaited<ReturnType<typeof makeLandlord>>;
@@ -195,7 +196,8 @@ describe("a work order changed twice at once", () => {
       Promise.all([
         lead.patch(`/api/work-orders/${wo.id}`, { cancel: { reason: "Tenant washed it already." } }),
         lead.patch(`/api/work-orders/${wo.id}`, {
-          complete: { doneOn: hoursAgo(1).toISOString().slice(0, 10), note: "Washed." },
+          // Today in London: an hour ago was yesterday between midnight and one, before the report.
+          complete: { doneOn: localDate(testClock.now()), note: "Washed." },
         }),
       ]),
     );
